@@ -1,0 +1,39 @@
+// Package frame models a plane frame of beams and columns and solves it by
+// the direct stiffness method.
+//
+// # Units
+//
+// The package is unit-agnostic: every number must belong to one consistent
+// set (for example kN and m, so that E is in kN/m², A in m², I in m⁴,
+// distributed loads in kN/m and moments in kN·m).
+//
+// # Sign conventions
+//
+// Global X points right, Y points up and rotations are counter-clockwise.
+// A member's local x axis runs from its start node to its end node and its
+// local y axis is local x turned +90°. Internal forces at a station are:
+//
+//   - N, axial force, positive in tension;
+//   - M, bending moment, positive when the local −y face is in tension
+//     (sagging for a beam drawn left to right);
+//   - V, shear force, V = dM/dx.
+//
+// Member end forces ([Solution.EndForces]) are the forces the nodes exert on
+// the member, in local axes, in the order start (axial, transverse, moment),
+// end (axial, transverse, moment), moments counter-clockwise positive.
+// Reactions are global (Fx, Fy, M): the forces the supports exert on the frame.
+// Gravity loads are entered positive downward.
+//
+// # Degrees of freedom
+//
+// Each node has three degrees of freedom, ux, uy and rz, in that order. The
+// solver numbers the free ones node by node in reverse Cuthill–McKee order so
+// that the banded stiffness matrix stays narrow; restrained ones are removed.
+// Callers never see that numbering: results are indexed by node, member and
+// case in the order of the [Model].
+//
+// # Mutation
+//
+// [Solve] never mutates the [Model]; a [Solution] keeps a pointer to it, so the
+// model must not be changed while the solution is in use.
+package frame
