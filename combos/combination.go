@@ -1,0 +1,67 @@
+package combos
+
+import (
+	"fmt"
+	"strconv"
+	"strings"
+
+	"govern/frame"
+)
+
+// Term is one load case of a combination with its factor.
+type Term struct {
+	Case   int // index into the model's cases
+	Factor float64
+}
+
+// Combination is a named set of factored load cases that act together.
+type Combination struct {
+	Name  string
+	Rule  string // where the combination came from: "model", or a rule of a standard
+	Terms []Term
+}
+
+// EachCase returns one combination per case, the case alone with factor 1,
+// named after it: what a model without combinations is analysed for.
+func EachCase(cases []frame.Case) []Combination {
+	out := make([]Combination, len(cases))
+	for i, c := range cases {
+		out[i] = Combination{Name: c.Name, Rule: "case", Terms: []Term{{Case: i, Factor: 1}}}
+	}
+	return out
+}
+
+// Factor returns the factor of case c in the combination, 0 when absent.
+func (cb *Combination) Factor(c int) float64 {
+	f := 0.0
+	for _, t := range cb.Terms {
+		if t.Case == c {
+			f += t.Factor
+		}
+	}
+	return f
+}
+
+// Describe writes the combination as factors and case names, such as
+// "1.2D + 1.6L - 0.5W".
+func (cb *Combination) Describe(cases []frame.Case) string {
+	var b strings.Builder
+	for i, t := range cb.Terms {
+		f := t.Factor
+		switch {
+		case i == 0 && f < 0:
+			b.WriteString("-")
+			f = -f
+		case i > 0 && f < 0:
+			b.WriteString(" - ")
+			f = -f
+		case i > 0:
+			b.WriteString(" + ")
+		}
+		if f != 1 {
+			b.WriteString(strconv.FormatFloat(f, 'g', -1, 64))
+		}
+		fmt.Fprint(&b, cases[t.Case].Name)
+	}
+	return b.String()
+}

@@ -1,0 +1,35 @@
+package combos
+
+import (
+	"testing"
+
+	"govern/frame"
+)
+
+func TestEachCase(t *testing.T) {
+	cases := []frame.Case{{Name: "D"}, {Name: "L", Kind: frame.Live}}
+	got := EachCase(cases)
+	if len(got) != 2 || got[1].Name != "L" || got[1].Factor(1) != 1 || got[1].Factor(0) != 0 {
+		t.Errorf("EachCase = %+v", got)
+	}
+}
+
+func TestDescribe(t *testing.T) {
+	cases := []frame.Case{{Name: "D"}, {Name: "L"}, {Name: "W"}}
+	for _, tc := range []struct {
+		name  string
+		terms []Term
+		want  string
+	}{
+		{"factored sum", []Term{{0, 1.2}, {1, 1.6}}, "1.2D + 1.6L"},
+		{"negative wind", []Term{{0, 0.9}, {2, -1}}, "0.9D - W"},
+		{"leading negative", []Term{{2, -1}}, "-W"},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			cb := Combination{Terms: tc.terms}
+			if got := cb.Describe(cases); got != tc.want {
+				t.Errorf("Describe = %q, want %q", got, tc.want)
+			}
+		})
+	}
+}

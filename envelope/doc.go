@@ -1,0 +1,20 @@
+// Package envelope finds, at stations along every member and at every
+// support, the largest and smallest value of each force that any load
+// combination produces, and the combination that produces it.
+//
+// Stations are equally spaced along each member, both ends included, and
+// measured from the member's start node in the model's length unit. Forces
+// follow the sign conventions of package frame: N positive in tension, M
+// positive when the local −y face is in tension, V = dM/dx; reactions are
+// global.
+//
+// Within a combination a permanent case always acts with its factor. A
+// variable case acts in full by default only where its factored effect makes
+// the extreme being sought worse, and is left off where it would relieve it
+// (the design standards' requirement to investigate the effects of loads not
+// acting; with EN 1990 this is γQ = 0 for favourable variable actions).
+// [Settings.AsWritten] makes every case always act instead.
+//
+// Combination indices in results refer to the slice given to [Compute];
+// -1 means no combination.
+package envelope
