@@ -1,0 +1,66 @@
+package main
+
+import (
+	"flag"
+	"fmt"
+
+	"govern/frame"
+)
+
+var cmdCheck = &command{
+	name:  "check",
+	usage: "MODEL.toml",
+	short: "read and validate a model without analysing it",
+	long: `
+Check reads and validates the model file and prints what it describes:
+nodes, members, degrees of freedom and bandwidth of the stiffness matrix,
+load cases and combinations. Every problem found is reported, with the
+line it is on, and the exit status is 1.`,
+	flags: func(fs *flag.FlagSet) any { return nil },
+	run: func(env *environ, _ any, args []string) error {
+		if len(args) != 1 {
+			return usagef("need one model file, got %d arguments", len(args))
+		}
+		job, err := loadModel(args[0])
+		if err != nil {
+			return err
+		}
+		mo := job.Model
+		info := frame.Describe(mo)
+		w := env.stdout
+		if job.Title != "" {
+			fmt.Fprintf(w, "%s\n", job.Title)
+		}
+		supported, beams, cols := 0, 0, 0
+		for _, n := range mo.Nodes {
+			if n.Support != frame.Free {
+				supported++
+			}
+		}
+		for m := range mo.Members {
+			switch {
+			case mo.IsBeam(m):
+				beams++
+			case mo.IsColumn(m):
+				cols++
+			}
+		}
+		fmt.Fprintf(w, "units:          force %s, length %s\n", job.Units.Force, job.Units.Length)
+		fmt.Fprintf(w, "nodes:          %d (%d supported)\n", len(mo.Nodes), supported)
+		fmt.Fprintf(w, "members:        %d (%d beams, %d columns, %d other)\n", len(mo.Members), beams, cols, len(mo.Members)-beams-cols)
+		fmt.Fprintf(w, "sections:       %d\n", len(mo.Sections))
+		fmt.Fprintf(w, "equations:      %d free degrees of freedom\n", info.Equations)
+		fmt.Fprintf(w, "bandwidth:      %d (half-bandwidth after reverse Cuthill-McKee numbering)\n", info.Bandwidth)
+		fmt.Fprintf(w, "load cases:     %d\n", len(mo.Cases))
+		for _, c := range mo.Cases {
+			fmt.Fprintf(w, "  %-12s %-9s %d member loads, %d node loads\n", c.Name, c.Kind, len(c.MemberLoads), len(c.NodeLoads))
+		}
+		fmt.Fprintf(w, "combinations:   %d\n", len(job.Combinations))
+		for _, cb := range job.Combinations {
+			fmt.Fprintf(w, "  %-28s %s\n", cb.Name, cb.Describe(mo.Cases))
+		}
+		fmt.Fprintf(w, "stations:       %d per member\n", job.Settings.Stations)
+		fmt.Fprintf(w, "variable loads: %s\n", variableLoads(job.Settings.AsWritten))
+		return nil
+	},
+}

@@ -1,0 +1,174 @@
+// Command govern finds the envelopes of moment, shear and axial force of a
+// plane building frame over the load combinations of a design standard.
+//
+// Run "govern help" for the commands.
+package main
+
+import (
+	"errors"
+	"flag"
+	"fmt"
+	"io"
+	"os"
+	"sort"
+	"strings"
+)
+
+// caution is printed with every result and in the help.
+const caution = "Results are for checking by a qualified engineer. They do not replace the governing local code or licensed professional practice."
+
+// command is one subcommand of govern.
+type command struct {
+	name  string
+	usage string // the arguments, after "govern NAME"
+	short string // one line for the command list
+	long  string // the help text
+	flags func(fs *flag.FlagSet) any
+	run   func(env *environ, opts any, args []string) error
+}
+
+// environ is what a command may touch: its streams. Tests substitute them.
+type environ struct {
+	stdout, stderr io.Writer
+	name           string // "govern run", for messages
+}
+
+// usageError is a mistake in the command line: exit status 2.
+type usageError struct{ msg string }
+
+func (e *usageError) Error() string { return e.msg }
+
+func usagef(format string, args ...any) error {
+	return &usageError{msg: fmt.Sprintf(format, args...)}
+}
+
+var commands []*command
+
+func init() {
+	commands = []*command{cmdRun, cmdCheck, cmdDemo}
+}
+
+func main() {
+	os.Exit(govern(os.Args[1:], os.Stdout, os.Stderr))
+}
+
+// govern runs the command line args and returns the exit status: 0 success,
+// 1 bad model or analysis failure, 2 usage.
+func govern(args []string, stdout, stderr io.Writer) (status int) {
+	defer func() {
+		if p := recover(); p != nil {
+			fmt.Fprintf(stderr, "govern: internal error: %v\nPlease report it with the model that caused it.\n", p)
+			status = 1
+		}
+	}()
+	if len(args) == 0 {
+		printUsage(stderr)
+		return 2
+	}
+	name := args[0]
+	if name == "help" || name == "-h" || name == "-help" || name == "--help" {
+		if len(args) > 1 {
+			if c := lookup(args[1]); c != nil {
+				printHelp(stdout, c)
+				return 0
+			}
+			fmt.Fprintf(stderr, "govern help: unknown command %q\n", args[1])
+			return 2
+		}
+		printUsage(stdout)
+		return 0
+	}
+	c := lookup(name)
+	if c == nil {
+		fmt.Fprintf(stderr, "govern: unknown command %q\nRun 'govern help' for the commands.\n", name)
+		return 2
+	}
+	env := &environ{stdout: stdout, stderr: stderr, name: "govern " + c.name}
+	fs := flag.NewFlagSet(env.name, flag.ContinueOnError)
+	fs.SetOutput(io.Discard)
+	opts := c.flags(fs)
+	pos, err := parseInterspersed(fs, args[1:])
+	if errors.Is(err, flag.ErrHelp) {
+		printHelp(stdout, c)
+		return 0
+	}
+	if err == nil {
+		err = c.run(env, opts, pos)
+	}
+	if err == nil {
+		return 0
+	}
+	var ue *usageError
+	if errors.As(err, &ue) || isFlagError(err) {
+		fmt.Fprintf(stderr, "%s: %v\nusage: govern %s %s\nRun 'govern help %s' for details.\n", env.name, err, c.name, c.usage, c.name)
+		return 2
+	}
+	for _, line := range strings.Split(err.Error(), "\n") {
+		fmt.Fprintf(stderr, "%s: %s\n", env.name, line)
+	}
+	return 1
+}
+
+// flagError marks errors from flag parsing.
+type flagError struct{ error }
+
+func isFlagError(err error) bool {
+	var fe flagError
+	return errors.As(err, &fe)
+}
+
+// parseInterspersed parses flags that may come before or after the
+// positional arguments, returning the positional ones in order.
+func parseInterspersed(fs *flag.FlagSet, args []string) ([]string, error) {
+	var pos []string
+	for {
+		if err := fs.Parse(args); err != nil {
+			if errors.Is(err, flag.ErrHelp) {
+				return nil, err
+			}
+			return nil, flagError{err}
+		}
+		rest := fs.Args()
+		if len(rest) == 0 {
+			return pos, nil
+		}
+		if used := len(args) - len(rest); used > 0 && args[used-1] == "--" {
+			return append(pos, rest...), nil // "--" ends the flags
+		}
+		pos = append(pos, rest[0])
+		args = rest[1:]
+	}
+}
+
+func lookup(name string) *command {
+	for _, c := range commands {
+		if c.name == name {
+			return c
+		}
+	}
+	return nil
+}
+
+func printUsage(w io.Writer) {
+	fmt.Fprintf(w, "govern finds the envelopes of moment, shear and axial force of plane building\nframes over the load combinations of a design standard.\n\nUsage:\n\n\tgovern <command> [arguments]\n\nThe commands are:\n\n")
+	cs := append([]*command(nil), commands...)
+	sort.Slice(cs, func(i, j int) bool { return cs[i].name < cs[j].name })
+	for _, c := range cs {
+		fmt.Fprintf(w, "\t%-8s %s\n", c.name, c.short)
+	}
+	fmt.Fprintf(w, "\nRun 'govern help <command>' for more about a command.\n\n%s\n", caution)
+}
+
+func printHelp(w io.Writer, c *command) {
+	fmt.Fprintf(w, "usage: govern %s %s\n\n%s\n", c.name, c.usage, strings.TrimSpace(c.long))
+	fs := flag.NewFlagSet(c.name, flag.ContinueOnError)
+	c.flags(fs)
+	has := false
+	fs.VisitAll(func(*flag.Flag) { has = true })
+	if has {
+		fmt.Fprintf(w, "\nFlags:\n")
+		fs.SetOutput(w)
+		fs.PrintDefaults()
+	}
+	fmt.Fprintf(w, "\n%s\n", caution)
+}

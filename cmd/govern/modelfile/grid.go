@@ -1,0 +1,231 @@
+package modelfile
+
+import (
+	"fmt"
+	"math"
+	"sort"
+	"strconv"
+	"strings"
+
+	"govern/frame"
+)
+
+// Grid records the regular frame a [grid] table generated: column lines
+// lettered A, B, … left to right at X positions Lines, levels numbered 0
+// (base) up at heights Levels.
+type Grid struct {
+	Lines   []float64 // X of each column line
+	Levels  []float64 // Y of each level, 0 = base
+	Spacing float64   // distance between parallel frames; 0 when not given
+
+	nodes, members int // the first nodes and members of the model are the grid's
+	overridden     map[int]bool
+}
+
+func (g *Grid) isGridNode(i int) bool   { return i < g.nodes }
+func (g *Grid) isGridMember(i int) bool { return i < g.members }
+
+// LineName returns the letters of column line i: A … Z, AA, AB, …
+func LineName(i int) string {
+	s := ""
+	for i++; i > 0; i = (i - 1) / 26 {
+		s = string(rune('A'+(i-1)%26)) + s
+	}
+	return s
+}
+
+// lineIndex is the inverse of LineName; -1 when s is not letters.
+func lineIndex(s string) int {
+	if s == "" {
+		return -1
+	}
+	n := 0
+	for _, r := range s {
+		if r < 'A' || r > 'Z' {
+			return -1
+		}
+		n = n*26 + int(r-'A'+1)
+	}
+	return n - 1
+}
+
+// maxGrid bounds the generated frame so that a typing slip cannot ask for
+// more memory than the machine has.
+const maxGrid = 2000
+
+func (r *reader) readGrid(t *table) {
+	bays, storeys := t.nums("bays"), t.nums("storeys")
+	ok := true
+	if t.need("bays") && len(bays) == 0 && t.has("bays") {
+		t.fail("bays", problem(ErrValue, "bays is empty: give at least one bay width"))
+		ok = false
+	}
+	if t.need("storeys") && len(storeys) == 0 && t.has("storeys") {
+		t.fail("storeys", problem(ErrValue, "storeys is empty: give at least one storey height"))
+		ok = false
+	}
+	for key, v := range map[string][]float64{"bays": bays, "storeys": storeys} {
+		for i, x := range v {
+			if !(x > 0) {
+				t.fail(key, problem(ErrValue, "%s[%d] = %g: must be greater than zero", key, i+1, x))
+				ok = false
+			}
+		}
+		if len(v) > maxGrid {
+			t.fail(key, problem(ErrValue, "%d %s: at most %d", len(v), key, maxGrid))
+			ok = false
+		}
+	}
+	base := t.str("base", "fixed")
+	if !t.oneOf("base", base, "fixed", "pinned") {
+		ok = false
+	}
+	var col, beam int
+	var okC, okB bool
+	if t.need("column") {
+		col, okC = r.section(t, "column")
+	}
+	if t.need("beam") {
+		beam, okB = r.section(t, "beam")
+	}
+	spacing := t.num("spacing", 0)
+	if t.has("spacing") && !(spacing > 0) {
+		t.fail("spacing", problem(ErrValue, "spacing = %g: must be greater than zero", spacing))
+	}
+	t.done()
+	if !ok || !okC || !okB || len(bays) == 0 || len(storeys) == 0 {
+		return
+	}
+	g := &Grid{Spacing: spacing, overridden: map[int]bool{}}
+	x := 0.0
+	g.Lines = append(g.Lines, 0)
+	for _, b := range bays {
+		x += b
+		g.Lines = append(g.Lines, x)
+	}
+	y := 0.0
+	g.Levels = append(g.Levels, 0)
+	for _, h := range storeys {
+		y += h
+		g.Levels = append(g.Levels, y)
+	}
+	mo := r.job.Model
+	r.nodes, r.members = map[string]int{}, map[string]int{}
+	id := func(line, level int) int { return level*len(g.Lines) + line }
+	for lv, y := range g.Levels {
+		for ln, x := range g.Lines {
+			s := frame.Free
+			if lv == 0 {
+				s = supports[base]
+			}
+			name := LineName(ln) + strconv.Itoa(lv)
+			r.nodes[name] = len(mo.Nodes)
+			mo.Nodes = append(mo.Nodes, frame.Node{Name: name, X: x, Y: y, Support: s})
+		}
+	}
+	add := func(a, b, sec int) {
+		name := mo.Nodes[a].Name + "-" + mo.Nodes[b].Name
+		r.members[name] = len(mo.Members)
+		mo.Members = append(mo.Members, frame.Member{Name: name, Start: a, End: b, Section: sec})
+	}
+	for lv := 1; lv < len(g.Levels); lv++ {
+		for ln := range g.Lines {
+			add(id(ln, lv-1), id(ln, lv), col)
+		}
+		for ln := 1; ln < len(g.Lines); ln++ {
+			add(id(ln-1, lv), id(ln, lv), beam)
+		}
+	}
+	g.nodes, g.members = len(mo.Nodes), len(mo.Members)
+	r.job.Grid = g
+}
+
+// levels returns the heights that "level N" selectors count: the grid's
+// levels, or without a grid every distinct node height from the lowest up.
+func (r *reader) levels() []float64 {
+	if r.job.Grid != nil {
+		return r.job.Grid.Levels
+	}
+	return distinct(r.job.Model.Nodes, func(n frame.Node) float64 { return n.Y })
+}
+
+// lines returns the X positions that "line A" selectors count: the grid's
+// column lines, or without a grid every distinct node X from the left.
+func (r *reader) lines() []float64 {
+	if r.job.Grid != nil {
+		return r.job.Grid.Lines
+	}
+	return distinct(r.job.Model.Nodes, func(n frame.Node) float64 { return n.X })
+}
+
+func distinct(nodes []frame.Node, f func(frame.Node) float64) []float64 {
+	v := make([]float64, len(nodes))
+	for i, n := range nodes {
+		v[i] = f(n)
+	}
+	sort.Float64s(v)
+	var out []float64
+	for _, x := range v {
+		if len(out) == 0 || x-out[len(out)-1] > coordTol {
+			out = append(out, x)
+		}
+	}
+	return out
+}
+
+// selectMembers resolves a member selector: a member name, "level N",
+// "roof", "line A", "all beams" or "all columns".
+func (r *reader) selectMembers(sel string) ([]int, error) {
+	mo := r.job.Model
+	if i, ok := r.members[sel]; ok {
+		return []int{i}, nil
+	}
+	var pick func(m int) bool
+	f := strings.Fields(sel)
+	switch {
+	case sel == "all beams":
+		pick = mo.IsBeam
+	case sel == "all columns":
+		pick = mo.IsColumn
+	case sel == "roof" || (len(f) == 2 && f[0] == "level"):
+		lv := r.levels()
+		n := len(lv) - 1
+		if sel != "roof" {
+			var err error
+			n, err = strconv.Atoi(f[1])
+			if err != nil || n < 0 || n >= len(lv) {
+				return nil, fmt.Errorf("selector %q: levels are numbered 0 to %d", sel, len(lv)-1)
+			}
+		}
+		y := lv[n]
+		pick = func(m int) bool {
+			return mo.IsBeam(m) && math.Abs(mo.Nodes[mo.Members[m].Start].Y-y) <= coordTol
+		}
+	case len(f) == 2 && f[0] == "line":
+		ls := r.lines()
+		n := lineIndex(f[1])
+		if n < 0 || n >= len(ls) {
+			return nil, fmt.Errorf("selector %q: column lines are A to %s", sel, LineName(len(ls)-1))
+		}
+		x := ls[n]
+		pick = func(m int) bool {
+			return mo.IsColumn(m) && math.Abs(mo.Nodes[mo.Members[m].Start].X-x) <= coordTol
+		}
+	default:
+		msg := fmt.Sprintf("selector %q: no member of that name, and not one of \"level N\", \"roof\", \"line A\", \"all beams\", \"all columns\"", sel)
+		if s := closest(sel, keys(r.members)); s != "" {
+			msg += fmt.Sprintf(" (did you mean %q?)", s)
+		}
+		return nil, fmt.Errorf("%s", msg)
+	}
+	var out []int
+	for m := range mo.Members {
+		if pick(m) {
+			out = append(out, m)
+		}
+	}
+	if len(out) == 0 {
+		return nil, fmt.Errorf("selector %q matches no member", sel)
+	}
+	return out, nil
+}

@@ -1,0 +1,433 @@
+package modelfile
+
+import (
+	"errors"
+	"fmt"
+	"math"
+	"sort"
+	"strings"
+
+	"github.com/BurntSushi/toml"
+
+	"govern/combos"
+	"govern/envelope"
+	"govern/frame"
+)
+
+// Units are the labels a model declares for its numbers.
+type Units struct {
+	Force, Length string
+}
+
+// Moment returns the label of a moment, such as "kN·m".
+func (u Units) Moment() string { return u.Force + "·" + u.Length }
+
+// Job is everything a model file asks for: the frame, its combinations and
+// the analysis settings.
+type Job struct {
+	Title        string
+	Units        Units
+	Model        *frame.Model
+	Combinations []combos.Combination
+	Settings     envelope.Settings
+	Grid         *Grid // nil when the file has no [grid]
+}
+
+// Read parses and validates a model file. name is used in messages only.
+// All problems found are returned together as [Errors].
+func Read(name string, src []byte) (*Job, error) {
+	var raw map[string]any
+	if _, err := toml.Decode(string(src), &raw); err != nil {
+		var pe toml.ParseError
+		if errors.As(err, &pe) {
+			return nil, Errors{{File: name, Line: pe.Position.Line, Column: pe.Position.Col,
+				Err: problem(ErrSyntax, "%s%s", pe.Message, excerpt(string(src), pe.Position.Line, pe.Position.Col))}}
+		}
+		return nil, Errors{{File: name, Err: problem(ErrSyntax, "%v", err)}}
+	}
+	r := &reader{file: name, loc: newLocator(string(src))}
+	job := r.read(raw)
+	if len(r.errs) > 0 {
+		sort.SliceStable(r.errs, func(i, j int) bool { return r.errs[i].Line < r.errs[j].Line })
+		return nil, r.errs
+	}
+	if err := job.Model.Validate(); err != nil {
+		var ve frame.ValidationErrors
+		if errors.As(err, &ve) {
+			for _, e := range ve {
+				r.errs = append(r.errs, &Error{File: name, Err: problem(ErrValue, "%v", e)})
+			}
+			return nil, r.errs
+		}
+		return nil, Errors{{File: name, Err: problem(ErrValue, "%v", err)}}
+	}
+	return job, nil
+}
+
+// excerpt shows line n of src with a marker under column col.
+func excerpt(src string, n, col int) string {
+	lines := strings.Split(src, "\n")
+	if n < 1 || n > len(lines) {
+		return ""
+	}
+	l := strings.ReplaceAll(lines[n-1], "\t", " ")
+	return fmt.Sprintf("\n    %s\n    %s^", l, strings.Repeat(" ", max(col-1, 0)))
+}
+
+type reader struct {
+	file string
+	loc  *locator
+	errs Errors
+
+	job      *Job
+	sections map[string]int
+	nodes    map[string]int
+	members  map[string]int
+	hasW     []bool // section gives a weight
+	memLine  []int  // line defining each member (0 for grid members)
+}
+
+func (r *reader) fail(line int, where string, err error) {
+	r.errs = append(r.errs, &Error{File: r.file, Line: line, Where: where, Err: err})
+}
+
+func (r *reader) read(raw map[string]any) *Job {
+	top := r.table(raw, "", "")
+	r.job = &Job{Model: &frame.Model{}}
+	job := r.job
+	job.Title = top.str("title", "")
+	job.Units = Units{Force: "kN", Length: "m"}
+	if u := top.sub("units", "[units]"); u != nil {
+		job.Units.Force = u.str("force", "kN")
+		job.Units.Length = u.str("length", "m")
+		u.done()
+	}
+	job.Settings = envelope.Settings{Stations: 11}
+	if a := top.sub("analysis", "[analysis]"); a != nil {
+		job.Settings.Stations = a.integer("stations", 11)
+		if job.Settings.Stations < 2 {
+			a.fail("stations", problem(ErrValue, "stations = %d: need at least 2 (both ends of each member)", job.Settings.Stations))
+		}
+		if a.has("stations") && job.Settings.Stations > maxStations {
+			a.fail("stations", problem(ErrValue, "stations = %d: at most %d", job.Settings.Stations, maxStations))
+		}
+		vl := a.str("variable_loads", "adverse")
+		if a.oneOf("variable_loads", vl, "adverse", "as-written") {
+			job.Settings.AsWritten = vl == "as-written"
+		}
+		a.done()
+	}
+	r.readSections(top.array("section", func(i int, m map[string]any) string { return named("section", i, m) }))
+	if g := top.sub("grid", "[grid]"); g != nil {
+		r.readGrid(g)
+	}
+	r.readNodes(top.array("node", func(i int, m map[string]any) string { return named("node", i, m) }))
+	r.readMembers(top.array("member", func(i int, m map[string]any) string { return named("member", i, m) }))
+	r.readCases(top.array("case", func(i int, m map[string]any) string { return named("case", i, m) }))
+	r.readCombinations(top.array("combination", func(i int, m map[string]any) string { return named("combination", i, m) }))
+	top.done()
+	if len(job.Model.Nodes) == 0 && len(r.errs) == 0 {
+		r.fail(0, "", problem(ErrMissing, "the model has no nodes: give a [grid] or [[node]] tables"))
+	}
+	if len(job.Model.Members) == 0 && len(r.errs) == 0 {
+		r.fail(0, "", problem(ErrMissing, "the model has no members: give a [grid] or [[member]] tables"))
+	}
+	if len(job.Model.Cases) == 0 && len(r.errs) == 0 {
+		r.fail(0, "", problem(ErrMissing, "the model has no load cases: give at least one [[case]]"))
+	}
+	if len(job.Combinations) == 0 {
+		job.Combinations = combos.EachCase(job.Model.Cases)
+	}
+	return job
+}
+
+// maxStations bounds the stations per member.
+const maxStations = 1001
+
+// named describes element i of an array of tables by its name when it has
+// one, such as `case "L"`, else by its position, such as "case 3".
+func named(kind string, i int, m map[string]any) string {
+	if s, ok := m["name"].(string); ok && s != "" {
+		return fmt.Sprintf("%s %q", kind, s)
+	}
+	return fmt.Sprintf("%s %d", kind, i+1)
+}
+
+func (r *reader) readSections(ts []*table) {
+	r.sections = map[string]int{}
+	for _, t := range ts {
+		name := t.str("name", "")
+		if !t.need("name") {
+			t.done()
+			continue
+		}
+		if _, dup := r.sections[name]; dup {
+			t.fail("name", problem(ErrDuplicate, "section %q is defined twice", name))
+		}
+		s := frame.Section{Name: name}
+		for _, p := range []struct {
+			key string
+			dst *float64
+		}{{"E", &s.E}, {"A", &s.A}, {"I", &s.I}} {
+			if t.need(p.key) {
+				*p.dst = t.num(p.key, 0)
+				if *p.dst <= 0 && t.has(p.key) {
+					t.fail(p.key, problem(ErrValue, "%s = %g: must be greater than zero", p.key, *p.dst))
+				}
+			}
+		}
+		s.Weight = t.num("weight", 0)
+		if s.Weight < 0 {
+			t.fail("weight", problem(ErrValue, "weight = %g: must not be negative", s.Weight))
+		}
+		r.sections[name] = len(r.job.Model.Sections)
+		r.job.Model.Sections = append(r.job.Model.Sections, s)
+		r.hasW = append(r.hasW, t.has("weight"))
+		t.done()
+	}
+}
+
+var supports = map[string]frame.Support{"free": frame.Free, "fixed": frame.Fixed, "pinned": frame.Pinned, "roller": frame.Roller}
+var releases = map[string]frame.Release{"none": frame.ReleaseNone, "start": frame.ReleaseStart, "end": frame.ReleaseEnd, "both": frame.ReleaseBoth}
+
+func (r *reader) support(t *table, def frame.Support) frame.Support {
+	s := t.str("support", def.String())
+	if !t.oneOf("support", s, "fixed", "pinned", "roller", "free") {
+		return def
+	}
+	return supports[s]
+}
+
+func (r *reader) section(t *table, key string) (int, bool) {
+	name := t.str(key, "")
+	i, ok := r.sections[name]
+	if !ok && name != "" {
+		msg := fmt.Sprintf("%s = %q: no such section", key, name)
+		if s := closest(name, keys(r.sections)); s != "" {
+			msg += fmt.Sprintf(" (did you mean %q?)", s)
+		}
+		t.fail(key, problem(ErrReference, "%s", msg))
+	}
+	return i, ok
+}
+
+func keys(m map[string]int) []string {
+	out := make([]string, 0, len(m))
+	for k := range m {
+		out = append(out, k)
+	}
+	sort.Strings(out)
+	return out
+}
+
+func (r *reader) readNodes(ts []*table) {
+	if r.nodes == nil {
+		r.nodes = map[string]int{}
+	}
+	mo := r.job.Model
+	for _, t := range ts {
+		name := t.str("name", "")
+		if !t.need("name") {
+			t.done()
+			continue
+		}
+		if i, ok := r.nodes[name]; ok && r.job.Grid != nil && r.job.Grid.isGridNode(i) {
+			// A grid node named again: it may change the support; its
+			// position is the grid's.
+			nd := &mo.Nodes[i]
+			x, y := t.num("x", nd.X), t.num("y", nd.Y)
+			if math.Abs(x-nd.X) > coordTol || math.Abs(y-nd.Y) > coordTol {
+				t.fail("x", problem(ErrValue, "grid node %q is at (%g, %g), not (%g, %g); a [[node]] may only change a grid node's support", name, nd.X, nd.Y, x, y))
+			}
+			nd.Support = r.support(t, nd.Support)
+			r.job.Grid.overridden[i] = true
+			t.done()
+			continue
+		} else if ok {
+			t.fail("name", problem(ErrDuplicate, "node %q is defined twice", name))
+		}
+		has := t.need("x")
+		has = t.need("y") && has
+		nd := frame.Node{Name: name, X: t.num("x", 0), Y: t.num("y", 0), Support: r.support(t, frame.Free)}
+		if has {
+			r.nodes[name] = len(mo.Nodes)
+			mo.Nodes = append(mo.Nodes, nd)
+		}
+		t.done()
+	}
+}
+
+// coordTol is the distance under which two coordinates are the same.
+const coordTol = 1e-9
+
+func (r *reader) node(t *table, key string) (int, bool) {
+	if !t.need(key) {
+		return 0, false
+	}
+	name := t.str(key, "")
+	i, ok := r.nodes[name]
+	if !ok {
+		msg := fmt.Sprintf("%s = %q: no such node", key, name)
+		if s := closest(name, keys(r.nodes)); s != "" {
+			msg += fmt.Sprintf(" (did you mean %q?)", s)
+		}
+		t.fail(key, problem(ErrReference, "%s", msg))
+	}
+	return i, ok
+}
+
+func (r *reader) readMembers(ts []*table) {
+	if r.members == nil {
+		r.members = map[string]int{}
+	}
+	mo := r.job.Model
+	for _, t := range ts {
+		name := t.str("name", "")
+		if i, ok := r.members[name]; ok && r.job.Grid != nil && r.job.Grid.isGridMember(i) {
+			// A grid member named again: section and release may change.
+			m := &mo.Members[i]
+			for _, k := range []string{"start", "end"} {
+				if t.has(k) {
+					if n, ok := r.node(t, k); ok && n != [2]int{m.Start, m.End}[map[string]int{"start": 0, "end": 1}[k]] {
+						t.fail(k, problem(ErrValue, "grid member %q: %s cannot be changed", name, k))
+					}
+				}
+			}
+			if t.has("section") {
+				if s, ok := r.section(t, "section"); ok {
+					m.Section = s
+				}
+			}
+			m.Release = r.release(t, m.Release)
+			t.done()
+			continue
+		}
+		a, okA := r.node(t, "start")
+		b, okB := r.node(t, "end")
+		s, okS := 0, false
+		if t.need("section") {
+			s, okS = r.section(t, "section")
+		}
+		rel := r.release(t, frame.ReleaseNone)
+		t.done()
+		if !okA || !okB || !okS {
+			continue
+		}
+		if name == "" {
+			name = mo.Nodes[a].Name + "-" + mo.Nodes[b].Name
+		}
+		if _, dup := r.members[name]; dup {
+			t.fail("name", problem(ErrDuplicate, "member %q is defined twice", name))
+			continue
+		}
+		if a == b || math.Hypot(mo.Nodes[b].X-mo.Nodes[a].X, mo.Nodes[b].Y-mo.Nodes[a].Y) <= coordTol {
+			t.fail("end", problem(ErrValue, "member %q has zero length", name))
+			continue
+		}
+		r.members[name] = len(mo.Members)
+		mo.Members = append(mo.Members, frame.Member{Name: name, Start: a, End: b, Section: s, Release: rel})
+	}
+}
+
+func (r *reader) release(t *table, def frame.Release) frame.Release {
+	s := t.str("release", def.String())
+	if !t.oneOf("release", s, "none", "start", "end", "both") {
+		return def
+	}
+	return releases[s]
+}
+
+var kindWords = []string{"dead", "live", "roof-live", "snow", "rain", "wind", "seismic", "other"}
+
+func (r *reader) readCases(ts []*table) {
+	mo := r.job.Model
+	seen := map[string]bool{}
+	for ci, t := range ts {
+		name := t.str("name", "")
+		if !t.need("name") {
+			t.done()
+			continue
+		}
+		if seen[name] {
+			t.fail("name", problem(ErrDuplicate, "case %q is defined twice", name))
+		}
+		seen[name] = true
+		c := frame.Case{Name: name}
+		if t.need("kind") {
+			k := t.str("kind", "")
+			if t.oneOf("kind", k, kindWords...) {
+				c.Kind, _ = frame.ParseKind(k)
+			}
+		}
+		if t.boolean("self_weight", false) {
+			for m := range mo.Members {
+				sec := mo.Members[m].Section
+				if !r.hasW[sec] {
+					t.fail("self_weight", problem(ErrMissing, "self_weight: section %q has no weight (member %q)", mo.Sections[sec].Name, mo.Members[m].Name))
+					break
+				}
+				if w := mo.Sections[sec].Weight; w != 0 {
+					c.MemberLoads = append(c.MemberLoads, frame.MemberLoad{Member: m, To: mo.Length(m), W: w, WEnd: w})
+				}
+			}
+		}
+		loads := t.array("load", func(i int, _ map[string]any) string { return fmt.Sprintf("case %q, load %d", name, i+1) })
+		for _, lt := range loads {
+			r.readLoad(lt, &c)
+		}
+		_ = ci
+		t.done()
+		mo.Cases = append(mo.Cases, c)
+	}
+}
+
+func (r *reader) readCombinations(ts []*table) {
+	cases := map[string]int{}
+	for i, c := range r.job.Model.Cases {
+		cases[c.Name] = i
+	}
+	seen := map[string]bool{}
+	for _, t := range ts {
+		name := t.str("name", "")
+		t.need("name")
+		if seen[name] && name != "" {
+			t.fail("name", problem(ErrDuplicate, "combination %q is defined twice", name))
+		}
+		seen[name] = true
+		cb := combos.Combination{Name: name, Rule: "model"}
+		if t.need("factors") {
+			v, _ := t.get("factors")
+			f, ok := v.(map[string]any)
+			if !ok {
+				t.wrongType("factors", "a table of case = factor", v)
+			} else if len(f) == 0 {
+				t.fail("factors", problem(ErrValue, "factors is empty: a combination needs at least one case"))
+			}
+			ft := r.table(f, t.block, t.where)
+			for _, k := range sortedKeys(f) {
+				ci, ok := cases[k]
+				if !ok {
+					msg := fmt.Sprintf("factors: no case named %q", k)
+					if s := closest(k, keys(cases)); s != "" {
+						msg += fmt.Sprintf(" (did you mean %q?)", s)
+					}
+					t.fail("factors", problem(ErrReference, "%s", msg))
+					continue
+				}
+				cb.Terms = append(cb.Terms, combos.Term{Case: ci, Factor: ft.num(k, 0)})
+			}
+			sort.SliceStable(cb.Terms, func(i, j int) bool { return cb.Terms[i].Case < cb.Terms[j].Case })
+		}
+		t.done()
+		r.job.Combinations = append(r.job.Combinations, cb)
+	}
+}
+
+func sortedKeys(m map[string]any) []string {
+	out := make([]string, 0, len(m))
+	for k := range m {
+		out = append(out, k)
+	}
+	sort.Strings(out)
+	return out
+}

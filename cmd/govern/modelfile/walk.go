@@ -1,0 +1,318 @@
+package modelfile
+
+import (
+	"fmt"
+	"math"
+	"slices"
+	"sort"
+	"strings"
+)
+
+// table is one TOML table being read, with what is needed to report
+// problems in it.
+type table struct {
+	r     *reader
+	m     map[string]any
+	block string // locator path, such as "case[1].load[0]"
+	where string // how messages name it, such as `case "L", load 1`
+	used  map[string]bool
+}
+
+func (r *reader) table(m map[string]any, block, where string) *table {
+	return &table{r: r, m: m, block: block, where: where, used: map[string]bool{}}
+}
+
+// fail records a problem at key (or at the table when key is empty).
+func (t *table) fail(key string, err error) {
+	t.r.fail(t.r.loc.line(t.block, key), t.where, err)
+}
+
+func (t *table) get(key string) (any, bool) {
+	t.used[key] = true
+	v, ok := t.m[key]
+	return v, ok
+}
+
+// has reports whether key is present.
+func (t *table) has(key string) bool {
+	_, ok := t.m[key]
+	return ok
+}
+
+func typeName(v any) string {
+	switch v.(type) {
+	case string:
+		return "a string"
+	case int64:
+		return "an integer"
+	case float64:
+		return "a number"
+	case bool:
+		return "a boolean"
+	case []any, []map[string]any:
+		return "an array"
+	case map[string]any:
+		return "a table"
+	}
+	return fmt.Sprintf("a %T", v)
+}
+
+func (t *table) wrongType(key, want string, v any) {
+	t.fail(key, problem(ErrType, "%s must be %s, not %s", key, want, typeName(v)))
+}
+
+// str reads a string; def when absent.
+func (t *table) str(key, def string) string {
+	v, ok := t.get(key)
+	if !ok {
+		return def
+	}
+	s, ok := v.(string)
+	if !ok {
+		t.wrongType(key, "a string", v)
+		return def
+	}
+	return s
+}
+
+// need reports key as missing when absent and returns whether it is present.
+func (t *table) need(key string) bool {
+	if t.has(key) {
+		return true
+	}
+	t.fail("", problem(ErrMissing, "%s is required", key))
+	return false
+}
+
+// num reads a number (integer or float) that must be finite.
+func (t *table) num(key string, def float64) float64 {
+	v, ok := t.get(key)
+	if !ok {
+		return def
+	}
+	var f float64
+	switch x := v.(type) {
+	case int64:
+		f = float64(x)
+	case float64:
+		f = x
+	default:
+		t.wrongType(key, "a number", v)
+		return def
+	}
+	if math.IsNaN(f) || math.IsInf(f, 0) {
+		t.fail(key, problem(ErrValue, "%s must be a finite number, not %v", key, f))
+		return def
+	}
+	return f
+}
+
+// integer reads an integer.
+func (t *table) integer(key string, def int) int {
+	v, ok := t.get(key)
+	if !ok {
+		return def
+	}
+	x, ok := v.(int64)
+	if !ok {
+		t.wrongType(key, "an integer", v)
+		return def
+	}
+	if x > math.MaxInt32 || x < math.MinInt32 {
+		t.fail(key, problem(ErrValue, "%s = %d is out of range", key, x))
+		return def
+	}
+	return int(x)
+}
+
+func (t *table) boolean(key string, def bool) bool {
+	v, ok := t.get(key)
+	if !ok {
+		return def
+	}
+	b, ok := v.(bool)
+	if !ok {
+		t.wrongType(key, "true or false", v)
+		return def
+	}
+	return b
+}
+
+// nums reads an array of numbers.
+func (t *table) nums(key string) []float64 {
+	v, ok := t.get(key)
+	if !ok {
+		return nil
+	}
+	arr, ok := v.([]any)
+	if !ok {
+		t.wrongType(key, "an array of numbers", v)
+		return nil
+	}
+	out := make([]float64, 0, len(arr))
+	for i, e := range arr {
+		switch x := e.(type) {
+		case int64:
+			out = append(out, float64(x))
+		case float64:
+			if math.IsNaN(x) || math.IsInf(x, 0) {
+				t.fail(key, problem(ErrValue, "%s[%d] must be a finite number", key, i+1))
+				return nil
+			}
+			out = append(out, x)
+		default:
+			t.fail(key, problem(ErrType, "%s[%d] must be a number, not %s", key, i+1, typeName(e)))
+			return nil
+		}
+	}
+	return out
+}
+
+// strs reads a string or an array of strings.
+func (t *table) strs(key string) []string {
+	v, ok := t.get(key)
+	if !ok {
+		return nil
+	}
+	if s, ok := v.(string); ok {
+		return []string{s}
+	}
+	arr, ok := v.([]any)
+	if !ok {
+		t.wrongType(key, "a string or an array of strings", v)
+		return nil
+	}
+	out := make([]string, 0, len(arr))
+	for i, e := range arr {
+		s, ok := e.(string)
+		if !ok {
+			t.fail(key, problem(ErrType, "%s[%d] must be a string, not %s", key, i+1, typeName(e)))
+			return nil
+		}
+		out = append(out, s)
+	}
+	return out
+}
+
+// sub reads a sub-table.
+func (t *table) sub(key, where string) *table {
+	v, ok := t.get(key)
+	if !ok {
+		return nil
+	}
+	m, ok := v.(map[string]any)
+	if !ok {
+		t.wrongType(key, "a table", v)
+		return nil
+	}
+	return t.r.table(m, blockPath(nonEmpty(t.block, key)...), where)
+}
+
+// array reads an array of tables; where names element i (0-based).
+func (t *table) array(key string, where func(i int, m map[string]any) string) []*table {
+	v, ok := t.get(key)
+	if !ok {
+		return nil
+	}
+	var ms []map[string]any
+	switch x := v.(type) {
+	case []map[string]any:
+		ms = x
+	case []any:
+		for _, e := range x {
+			m, ok := e.(map[string]any)
+			if !ok {
+				t.fail(key, problem(ErrType, "%s must be an array of tables ([[%s]]), not %s", key, key, typeName(v)))
+				return nil
+			}
+			ms = append(ms, m)
+		}
+	default:
+		t.fail(key, problem(ErrType, "%s must be an array of tables ([[%s]]), not %s", key, key, typeName(v)))
+		return nil
+	}
+	out := make([]*table, len(ms))
+	for i, m := range ms {
+		out[i] = t.r.table(m, blockPath(nonEmpty(t.block, elem(key, i))...), where(i, m))
+	}
+	return out
+}
+
+// done reports every key of the table that was not read, suggesting the
+// nearest known key when one is close.
+func (t *table) done() {
+	var unknown []string
+	for k := range t.m {
+		if !t.used[k] {
+			unknown = append(unknown, k)
+		}
+	}
+	sort.Strings(unknown)
+	known := make([]string, 0, len(t.used))
+	for k := range t.used {
+		known = append(known, k)
+	}
+	sort.Strings(known)
+	for _, k := range unknown {
+		msg := fmt.Sprintf("unknown key %q", k)
+		if s := closest(k, known); s != "" {
+			msg += fmt.Sprintf(" (did you mean %q?)", s)
+		}
+		if t.where == "" {
+			msg += " at the top level"
+		}
+		t.fail(k, problem(ErrUnknownKey, "%s", msg))
+	}
+}
+
+// closest returns the candidate within edit distance 2 of s (or differing
+// only in case), or "".
+func closest(s string, candidates []string) string {
+	best, bestD := "", 3
+	for _, c := range candidates {
+		if strings.EqualFold(c, s) {
+			return c
+		}
+		if d := editDistance(strings.ToLower(s), strings.ToLower(c)); d < bestD {
+			best, bestD = c, d
+		}
+	}
+	return best
+}
+
+func editDistance(a, b string) int {
+	prev := make([]int, len(b)+1)
+	cur := make([]int, len(b)+1)
+	for j := range prev {
+		prev[j] = j
+	}
+	for i := 1; i <= len(a); i++ {
+		cur[0] = i
+		for j := 1; j <= len(b); j++ {
+			cost := 1
+			if a[i-1] == b[j-1] {
+				cost = 0
+			}
+			cur[j] = min(prev[j]+1, cur[j-1]+1, prev[j-1]+cost)
+		}
+		prev, cur = cur, prev
+	}
+	return prev[len(b)]
+}
+
+// oneOf checks that s is one of the allowed words.
+func (t *table) oneOf(key, s string, allowed ...string) bool {
+	if slices.Contains(allowed, s) {
+		return true
+	}
+	t.fail(key, problem(ErrValue, "%s = %q: must be one of %s", key, s, quoteList(allowed)))
+	return false
+}
+
+func quoteList(s []string) string {
+	q := make([]string, len(s))
+	for i, v := range s {
+		q[i] = fmt.Sprintf("%q", v)
+	}
+	return strings.Join(q, ", ")
+}
