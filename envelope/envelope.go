@@ -104,6 +104,9 @@ func Compute(sol *frame.Solution, cs []combos.Combination, set Settings) (*Envel
 		st := make([]Station, set.Stations)
 		for i := range st {
 			x := l * float64(i) / float64(set.Stations-1)
+			if i == set.Stations-1 {
+				x = l // exactly the end, whatever the rounding
+			}
 			for c := range nc {
 				f := sol.At(c, m, x)
 				per[c] = [3]float64{f.N, f.V, f.M}

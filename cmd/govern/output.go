@@ -146,7 +146,7 @@ func (a *analysis) writeCSV(w io.Writer) error {
 				name, unit string
 				x          envelope.Extreme
 			}{{"N", u.Force, st.N}, {"V", u.Force, st.V}, {"M", u.Moment(), st.M}} {
-				if err := cw.Write([]string{name, num(st.X), e.name, num(e.x.Max), a.comboName(e.x.MaxBy), num(e.x.Min), a.comboName(e.x.MinBy), e.unit}); err != nil {
+				if err := cw.Write([]string{name, strconv.FormatFloat(st.X, 'g', 12, 64), e.name, num(e.x.Max), a.comboName(e.x.MaxBy), num(e.x.Min), a.comboName(e.x.MinBy), e.unit}); err != nil {
 					return err
 				}
 			}

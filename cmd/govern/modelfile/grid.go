@@ -1,6 +1,7 @@
 package modelfile
 
 import (
+	"errors"
 	"fmt"
 	"math"
 	"sort"
@@ -173,6 +174,10 @@ func distinct(nodes []frame.Node, f func(frame.Node) float64) []float64 {
 	return out
 }
 
+// errNoSuchMember marks a selector that is neither a member name nor a
+// keyword selector; its message is empty so that it adds nothing when wrapped.
+var errNoSuchMember = errors.New("")
+
 // selectMembers resolves a member selector: a member name, "level N",
 // "roof", "line A", "all beams" or "all columns".
 func (r *reader) selectMembers(sel string) ([]int, error) {
@@ -216,7 +221,7 @@ func (r *reader) selectMembers(sel string) ([]int, error) {
 		if s := closest(sel, keys(r.members)); s != "" {
 			msg += fmt.Sprintf(" (did you mean %q?)", s)
 		}
-		return nil, fmt.Errorf("%s", msg)
+		return nil, fmt.Errorf("%s%w", msg, errNoSuchMember)
 	}
 	var out []int
 	for m := range mo.Members {

@@ -1,6 +1,8 @@
 package modelfile
 
 import (
+	"errors"
+
 	"govern/frame"
 )
 
@@ -33,7 +35,13 @@ func (r *reader) readLoad(t *table, c *frame.Case) {
 	var members []int
 	if t.need("on") {
 		for _, sel := range t.strs("on") {
+			if r.broken[sel] {
+				continue // already reported where the member is defined
+			}
 			ms, err := r.selectMembers(sel)
+			if errors.Is(err, errNoSuchMember) && len(r.broken) > 0 {
+				continue // likely a member whose definition failed, reported there
+			}
 			if err != nil {
 				t.fail("on", problem(ErrReference, "%v", err))
 				continue

@@ -83,8 +83,9 @@ type reader struct {
 	sections map[string]int
 	nodes    map[string]int
 	members  map[string]int
-	hasW     []bool // section gives a weight
-	memLine  []int  // line defining each member (0 for grid members)
+	hasW     []bool          // section gives a weight
+	broken   map[string]bool // members named in the file that could not be built
+	memLine  []int           // line defining each member (0 for grid members)
 }
 
 func (r *reader) fail(line int, where string, err error) {
@@ -170,8 +171,9 @@ func (r *reader) readSections(ts []*table) {
 			dst *float64
 		}{{"E", &s.E}, {"A", &s.A}, {"I", &s.I}} {
 			if t.need(p.key) {
-				*p.dst = t.num(p.key, 0)
-				if *p.dst <= 0 && t.has(p.key) {
+				var ok bool
+				*p.dst, ok = t.numOK(p.key, 0)
+				if ok && *p.dst <= 0 {
 					t.fail(p.key, problem(ErrValue, "%s = %g: must be greater than zero", p.key, *p.dst))
 				}
 			}
@@ -280,6 +282,7 @@ func (r *reader) readMembers(ts []*table) {
 	if r.members == nil {
 		r.members = map[string]int{}
 	}
+	r.broken = map[string]bool{}
 	mo := r.job.Model
 	for _, t := range ts {
 		name := t.str("name", "")
@@ -310,11 +313,12 @@ func (r *reader) readMembers(ts []*table) {
 		}
 		rel := r.release(t, frame.ReleaseNone)
 		t.done()
-		if !okA || !okB || !okS {
-			continue
-		}
 		if name == "" {
-			name = mo.Nodes[a].Name + "-" + mo.Nodes[b].Name
+			name = t.str("start", "") + "-" + t.str("end", "")
+		}
+		if !okA || !okB || !okS {
+			r.broken[name] = true
+			continue
 		}
 		if _, dup := r.members[name]; dup {
 			t.fail("name", problem(ErrDuplicate, "member %q is defined twice", name))
@@ -322,6 +326,7 @@ func (r *reader) readMembers(ts []*table) {
 		}
 		if a == b || math.Hypot(mo.Nodes[b].X-mo.Nodes[a].X, mo.Nodes[b].Y-mo.Nodes[a].Y) <= coordTol {
 			t.fail("end", problem(ErrValue, "member %q has zero length", name))
+			r.broken[name] = true
 			continue
 		}
 		r.members[name] = len(mo.Members)

@@ -86,9 +86,15 @@ func (t *table) need(key string) bool {
 
 // num reads a number (integer or float) that must be finite.
 func (t *table) num(key string, def float64) float64 {
+	v, _ := t.numOK(key, def)
+	return v
+}
+
+// numOK is num that also reports whether a valid number was read.
+func (t *table) numOK(key string, def float64) (float64, bool) {
 	v, ok := t.get(key)
 	if !ok {
-		return def
+		return def, false
 	}
 	var f float64
 	switch x := v.(type) {
@@ -98,13 +104,13 @@ func (t *table) num(key string, def float64) float64 {
 		f = x
 	default:
 		t.wrongType(key, "a number", v)
-		return def
+		return def, false
 	}
 	if math.IsNaN(f) || math.IsInf(f, 0) {
 		t.fail(key, problem(ErrValue, "%s must be a finite number, not %v", key, f))
-		return def
+		return def, false
 	}
-	return f
+	return f, true
 }
 
 // integer reads an integer.
@@ -265,39 +271,52 @@ func (t *table) done() {
 	}
 }
 
-// closest returns the candidate within edit distance 2 of s (or differing
-// only in case), or "".
+// closest returns the candidate that s is most likely a misspelling of, or
+// "": one differing only in case, else the nearest within one edit for
+// names of up to four letters and two edits for longer ones (an edit being
+// an insertion, deletion, substitution or swap of neighbours), never
+// replacing most of s.
 func closest(s string, candidates []string) string {
 	best, bestD := "", 3
+	limit := 2
+	if len(s) <= 4 {
+		limit = 1
+	}
 	for _, c := range candidates {
 		if strings.EqualFold(c, s) {
 			return c
 		}
-		if d := editDistance(strings.ToLower(s), strings.ToLower(c)); d < bestD {
+		d := editDistance(strings.ToLower(s), strings.ToLower(c))
+		if d <= limit && d < len(s) && d < bestD {
 			best, bestD = c, d
 		}
 	}
 	return best
 }
 
+// editDistance is the optimal string alignment distance of a and b.
 func editDistance(a, b string) int {
-	prev := make([]int, len(b)+1)
-	cur := make([]int, len(b)+1)
-	for j := range prev {
-		prev[j] = j
+	d := make([][]int, len(a)+1)
+	for i := range d {
+		d[i] = make([]int, len(b)+1)
+		d[i][0] = i
+	}
+	for j := range d[0] {
+		d[0][j] = j
 	}
 	for i := 1; i <= len(a); i++ {
-		cur[0] = i
 		for j := 1; j <= len(b); j++ {
 			cost := 1
 			if a[i-1] == b[j-1] {
 				cost = 0
 			}
-			cur[j] = min(prev[j]+1, cur[j-1]+1, prev[j-1]+cost)
+			d[i][j] = min(d[i-1][j]+1, d[i][j-1]+1, d[i-1][j-1]+cost)
+			if i > 1 && j > 1 && a[i-1] == b[j-2] && a[i-2] == b[j-1] {
+				d[i][j] = min(d[i][j], d[i-2][j-2]+1)
+			}
 		}
-		prev, cur = cur, prev
 	}
-	return prev[len(b)]
+	return d[len(a)][len(b)]
 }
 
 // oneOf checks that s is one of the allowed words.

@@ -1,0 +1,207 @@
+package main
+
+import (
+	"bytes"
+	"encoding/csv"
+	"encoding/json"
+	"os"
+	"path/filepath"
+	"strings"
+	"testing"
+)
+
+// exec runs govern with args and returns the exit status and both streams.
+func exec(args ...string) (int, string, string) {
+	var out, errb bytes.Buffer
+	code := govern(args, &out, &errb)
+	return code, out.String(), errb.String()
+}
+
+func writeDemo(t *testing.T) string {
+	t.Helper()
+	p := filepath.Join(t.TempDir(), "model.toml")
+	if err := os.WriteFile(p, demoModel, 0o644); err != nil {
+		t.Fatal(err)
+	}
+	return p
+}
+
+func TestExitStatus(t *testing.T) {
+	dir := t.TempDir()
+	bad := filepath.Join(dir, "bad.toml")
+	os.WriteFile(bad, []byte("title = \n"), 0o644)
+	for _, tc := range []struct {
+		name   string
+		args   []string
+		code   int
+		stderr string
+	}{
+		{"no command", nil, 2, "Usage:"},
+		{"unknown command", []string{"frobnicate"}, 2, `govern: unknown command "frobnicate"`},
+		{"unknown flag", []string{"run", "--jsn", "x", "m.toml"}, 2, "govern run: flag provided but not defined: -jsn"},
+		{"missing model", []string{"run"}, 2, "govern run: need one model file, got 0 arguments"},
+		{"unreadable model", []string{"run", filepath.Join(dir, "none.toml")}, 1, "govern run: cannot read model"},
+		{"bad model", []string{"check", bad}, 1, "govern check: bad.toml:1:9: expected value"},
+		{"help", []string{"help", "run"}, 0, ""},
+		{"demo", []string{"demo"}, 0, ""},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			code, _, stderr := exec(tc.args...)
+			if code != tc.code {
+				t.Errorf("exit %d, want %d; stderr:\n%s", code, tc.code, stderr)
+			}
+			if !strings.Contains(stderr, tc.stderr) {
+				t.Errorf("stderr %q does not contain %q", stderr, tc.stderr)
+			}
+		})
+	}
+}
+
+func TestHelpAndReportCarryTheCaution(t *testing.T) {
+	for _, args := range [][]string{{"help"}, {"help", "run"}, {"demo"}} {
+		_, out, _ := exec(args...)
+		if !strings.Contains(out, caution) {
+			t.Errorf("govern %s: output lacks the caution", strings.Join(args, " "))
+		}
+	}
+}
+
+func TestRunJSON(t *testing.T) {
+	model := writeDemo(t)
+	// Flags may follow the model path.
+	code, out, stderr := exec("run", model, "--json", "-")
+	if code != 0 {
+		t.Fatalf("exit %d: %s", code, stderr)
+	}
+	var doc struct {
+		Format   string `json:"format"`
+		Settings struct {
+			Stations      int    `json:"stations"`
+			VariableLoads string `json:"variable_loads"`
+		} `json:"settings"`
+		Combinations []struct {
+			Name    string             `json:"name"`
+			Factors map[string]float64 `json:"factors"`
+		} `json:"combinations"`
+		Members []struct {
+			Name, Start, End string
+			Length           float64
+			Stations         []struct {
+				X       float64
+				N, V, M struct {
+					Max   float64 `json:"max"`
+					MaxBy string  `json:"max_by"`
+					Min   float64 `json:"min"`
+					MinBy string  `json:"min_by"`
+				}
+			}
+		} `json:"members"`
+		Reactions []struct {
+			Node string `json:"node"`
+		} `json:"reactions"`
+	}
+	if err := json.Unmarshal([]byte(out), &doc); err != nil {
+		t.Fatalf("output is not JSON: %v", err)
+	}
+	if doc.Format != "govern.envelopes/1" || doc.Settings.Stations != 11 || doc.Settings.VariableLoads != "adverse" {
+		t.Errorf("header = %q %+v", doc.Format, doc.Settings)
+	}
+	if len(doc.Members) != 35 || len(doc.Reactions) != 4 || len(doc.Combinations) != 9 {
+		t.Fatalf("%d members, %d reactions, %d combinations", len(doc.Members), len(doc.Reactions), len(doc.Combinations))
+	}
+	for _, m := range doc.Members {
+		st := m.Stations
+		if len(st) != 11 || st[0].X != 0 || st[len(st)-1].X != m.Length {
+			t.Errorf("member %s: stations do not run from 0 to %g", m.Name, m.Length)
+		}
+		for i, s := range st {
+			if i > 0 && s.X <= st[i-1].X {
+				t.Errorf("member %s: stations not sorted", m.Name)
+			}
+			if s.M.Max < s.M.Min || s.M.MaxBy == "" || s.M.MinBy == "" {
+				t.Errorf("member %s station %d: M = %+v", m.Name, i, s.M)
+			}
+		}
+	}
+}
+
+func TestRunFilesAndCSV(t *testing.T) {
+	model := writeDemo(t)
+	dir := filepath.Dir(model)
+	js, cs := filepath.Join(dir, "env.json"), filepath.Join(dir, "env.csv")
+	code, out, stderr := exec("run", "--json", js, "--csv", cs, model)
+	if code != 0 {
+		t.Fatalf("exit %d: %s", code, stderr)
+	}
+	if !strings.Contains(out, "Member envelopes") || !strings.Contains(out, "M (kN·m)") {
+		t.Errorf("summary missing:\n%s", out)
+	}
+	f, _ := os.Open(cs)
+	defer f.Close()
+	rows, err := csv.NewReader(f).ReadAll()
+	if err != nil {
+		t.Fatal(err)
+	}
+	if got := strings.Join(rows[0], ","); got != "member,x (m),effect,max,max_by,min,min_by,unit" {
+		t.Errorf("CSV header %q", got)
+	}
+	if len(rows) != 1+35*11*3 {
+		t.Errorf("%d CSV rows, want %d", len(rows), 1+35*11*3)
+	}
+	t.Run("same model, identical bytes", func(t *testing.T) {
+		first, _ := os.ReadFile(js)
+		exec("run", "--json", js, model)
+		second, _ := os.ReadFile(js)
+		if !bytes.Equal(first, second) {
+			t.Error("two runs wrote different JSON")
+		}
+	})
+	t.Run("a failed run leaves the previous file", func(t *testing.T) {
+		before, _ := os.ReadFile(js)
+		bad := filepath.Join(dir, "bad.toml")
+		os.WriteFile(bad, []byte("[[node]]\nname = 1\n"), 0o644)
+		if code, _, _ := exec("run", "--json", js, bad); code != 1 {
+			t.Errorf("exit %d, want 1", code)
+		}
+		after, _ := os.ReadFile(js)
+		if !bytes.Equal(before, after) {
+			t.Error("failed run changed the output file")
+		}
+	})
+	t.Run("output never overwrites the model", func(t *testing.T) {
+		code, _, stderr := exec("run", "--json", model, model)
+		if code != 1 || !strings.Contains(stderr, "it is the model file") {
+			t.Errorf("exit %d, stderr %q", code, stderr)
+		}
+		src, _ := os.ReadFile(model)
+		if !bytes.Equal(src, demoModel) {
+			t.Error("model file changed")
+		}
+	})
+}
+
+func TestCheck(t *testing.T) {
+	code, out, stderr := exec("check", writeDemo(t))
+	if code != 0 {
+		t.Fatalf("exit %d: %s", code, stderr)
+	}
+	for _, want := range []string{"nodes:          24 (4 supported)", "members:        35 (15 beams, 20 columns, 0 other)", "equations:      60", "combinations:   9"} {
+		if !strings.Contains(out, want) {
+			t.Errorf("check output lacks %q:\n%s", want, out)
+		}
+	}
+}
+
+func TestDemoWrite(t *testing.T) {
+	p := filepath.Join(t.TempDir(), "demo.toml")
+	if code, _, stderr := exec("demo", "--write", p); code != 0 {
+		t.Fatalf("exit %d: %s", code, stderr)
+	}
+	got, _ := os.ReadFile(p)
+	if !bytes.Equal(got, demoModel) {
+		t.Error("written model differs from the embedded one")
+	}
+	if code, _, stderr := exec("demo", "--write", p); code != 1 || !strings.Contains(stderr, "not overwriting") {
+		t.Errorf("second write: exit %d, %q", code, stderr)
+	}
+}

@@ -1,0 +1,269 @@
+package modelfile
+
+import (
+	"errors"
+	"strings"
+	"testing"
+
+	"govern/frame"
+)
+
+const gridModel = `
+title = "two bays, two storeys"
+[units]
+force = "kN"
+length = "m"
+[analysis]
+stations = 5
+[grid]
+bays = [6.0, 4.0]
+storeys = [4.0, 3.0]
+base = "pinned"
+column = "C"
+beam = "B"
+spacing = 5.0
+[[section]]
+name = "C"
+E = 30e6
+A = 0.16
+I = 2.1e-3
+weight = 3.8
+[[section]]
+name = "B"
+E = 30e6
+A = 0.2
+I = 4e-3
+weight = 5
+[[member]]
+name = "A2-B2"
+release = "start"
+[[case]]
+name = "D"
+kind = "dead"
+self_weight = true
+  [[case.load]]
+  type = "area"
+  on = ["all beams"]
+  q = 2.0
+[[case]]
+name = "L"
+kind = "live"
+  [[case.load]]
+  type = "udl"
+  on = ["level 1"]
+  w = 10
+  from = 1.0
+  to = 3.0
+  [[case.load]]
+  type = "point"
+  on = "roof"
+  P = 20
+  at = 2
+[[case]]
+name = "W"
+kind = "wind"
+  [[case.load]]
+  type = "udl"
+  on = ["line A"]
+  direction = "x"
+  w = 3
+  [[case.load]]
+  type = "node"
+  node = "A2"
+  fx = 5
+[[combination]]
+name = "1.2D+1.6L"
+factors = { D = 1.2, L = 1.6 }
+`
+
+func TestReadGridModel(t *testing.T) {
+	job, err := Read("grid.toml", []byte(gridModel))
+	if err != nil {
+		t.Fatal(err)
+	}
+	mo := job.Model
+	t.Run("grid nodes and members are named by line and level", func(t *testing.T) {
+		if len(mo.Nodes) != 9 || len(mo.Members) != 10 {
+			t.Fatalf("%d nodes, %d members; want 9 and 10", len(mo.Nodes), len(mo.Members))
+		}
+		var names []string
+		for _, m := range mo.Members {
+			names = append(names, m.Name)
+		}
+		want := "A0-A1 B0-B1 C0-C1 A1-B1 B1-C1 A1-A2 B1-B2 C1-C2 A2-B2 B2-C2"
+		if got := strings.Join(names, " "); got != want {
+			t.Errorf("members %s, want %s", got, want)
+		}
+		if n := mo.Nodes[7]; n.Name != "B2" || n.X != 6 || n.Y != 7 || n.Support != frame.Free {
+			t.Errorf("node 7 = %+v", n)
+		}
+		if n := mo.Nodes[2]; n.Name != "C0" || n.Support != frame.Pinned {
+			t.Errorf("node 2 = %+v", n)
+		}
+		if mo.Members[8].Release != frame.ReleaseStart {
+			t.Errorf("A2-B2 release = %v, want start", mo.Members[8].Release)
+		}
+	})
+	t.Run("loads follow their selectors", func(t *testing.T) {
+		d := mo.Cases[0]
+		// self weight on 10 members plus area load q·spacing on 4 beams
+		if len(d.MemberLoads) != 14 {
+			t.Fatalf("D has %d member loads, want 14", len(d.MemberLoads))
+		}
+		if ld := d.MemberLoads[13]; ld.W != 10 || ld.Member != 9 || ld.To != 4 {
+			t.Errorf("area load = %+v, want w = 2.0 × 5.0 on B2-C2", ld)
+		}
+		l := mo.Cases[1]
+		if len(l.MemberLoads) != 4 || l.MemberLoads[0].From != 1 || l.MemberLoads[0].To != 3 || !l.MemberLoads[2].Point {
+			t.Errorf("L loads = %+v", l.MemberLoads)
+		}
+		w := mo.Cases[2]
+		if len(w.MemberLoads) != 2 || w.MemberLoads[0].Direction != frame.GlobalX || len(w.NodeLoads) != 1 {
+			t.Errorf("W loads = %+v", w)
+		}
+	})
+	t.Run("settings and combinations", func(t *testing.T) {
+		if job.Settings.Stations != 5 || job.Settings.AsWritten {
+			t.Errorf("settings = %+v", job.Settings)
+		}
+		if len(job.Combinations) != 1 || job.Combinations[0].Factor(1) != 1.6 {
+			t.Errorf("combinations = %+v", job.Combinations)
+		}
+	})
+}
+
+func TestReadExplicitModelDefaults(t *testing.T) {
+	src := `
+[[section]]
+name = "S"
+E = 200e6
+A = 0.01
+I = 1e-4
+[[node]]
+name = "a"
+x = 0
+y = 0
+support = "fixed"
+[[node]]
+name = "b"
+x = 5
+y = 0
+support = "roller"
+[[member]]
+start = "a"
+end = "b"
+section = "S"
+[[case]]
+name = "G"
+kind = "dead"
+  [[case.load]]
+  type = "udl"
+  on = "a-b"
+  w = 2
+`
+	job, err := Read("m.toml", []byte(src))
+	if err != nil {
+		t.Fatal(err)
+	}
+	if job.Model.Members[0].Name != "a-b" || job.Settings.Stations != 11 || job.Units.Force != "kN" {
+		t.Errorf("defaults: member %q, stations %d, units %+v", job.Model.Members[0].Name, job.Settings.Stations, job.Units)
+	}
+	if len(job.Combinations) != 1 || job.Combinations[0].Name != "G" {
+		t.Errorf("without [[combination]] each case is a combination: %+v", job.Combinations)
+	}
+}
+
+// base is a small valid model; each error case below edits it.
+const base = `[[section]]
+name = "S"
+E = 200e6
+A = 0.01
+I = 1e-4
+[[node]]
+name = "a"
+x = 0
+y = 0
+support = "fixed"
+[[node]]
+name = "b"
+x = 5
+y = 0
+support = "fixed"
+[[member]]
+start = "a"
+end = "b"
+section = "S"
+[[case]]
+name = "G"
+kind = "dead"
+  [[case.load]]
+  type = "point"
+  on = "a-b"
+  P = 2
+  at = 1
+[[combination]]
+name = "1.4G"
+factors = { G = 1.4 }
+`
+
+func TestReadErrors(t *testing.T) {
+	for _, tc := range []struct {
+		name, old, new string
+		want           string
+		sentinel       error
+	}{
+		{"syntax error gives line, column and the line", `x = 5`, `x = `, "m.toml:13:5: expected value but found '\\n' instead\n    x = \n        ^", ErrSyntax},
+		{"unknown key with a likely misspelling", "support = \"fixed\"\n[[member]]", "suport = \"fixed\"\n[[member]]", `m.toml:15: node "b": unknown key "suport" (did you mean "support"?)`, ErrUnknownKey},
+		{"unknown top-level key", `[[section]]`, "titel = \"x\"\n[[section]]", `m.toml:1: unknown key "titel" (did you mean "title"?) at the top level`, ErrUnknownKey},
+		{"type error names key and type", `E = 200e6`, `E = "steel"`, `m.toml:3: section "S": E must be a number, not a string`, ErrType},
+		{"non-positive section property", `I = 1e-4`, `I = 0.0`, `m.toml:5: section "S": I = 0: must be greater than zero`, ErrValue},
+		{"infinite number", `A = 0.01`, `A = inf`, `m.toml:4: section "S": A must be a finite number, not +Inf`, ErrValue},
+		{"unknown section", `section = "S"`, `section = "T"`, `m.toml:19: member 1: section = "T": no such section`, ErrReference},
+		{"unknown node", `end = "b"`, `end = "c"`, `m.toml:18: member 1: end = "c": no such node`, ErrReference},
+		{"duplicate node", "[[member]]", "[[node]]\nname = \"a\"\nx = 1\ny = 1\n[[member]]", `m.toml:17: node "a": node "a" is defined twice`, ErrDuplicate},
+		{"zero-length member", "x = 5\n", "x = 0\n", `m.toml:18: member 1: member "a-b" has zero length`, ErrValue},
+		{"point load outside its member", `at = 1`, `at = 7.5`, `m.toml:27: case "G", load 1: member "a-b": at = 7.5 is outside the member (length 5)`, ErrValue},
+		{"selector that matches nothing", `on = "a-b"`, `on = "level 3"`, `m.toml:25: case "G", load 1: selector "level 3": levels are numbered 0 to 0`, ErrReference},
+		{"unknown member name", `on = "a-b"`, `on = "a-c"`, `m.toml:25: case "G", load 1: selector "a-c": no member of that name, and not one of "level N", "roof", "line A", "all beams", "all columns" (did you mean "a-b"?)`, ErrReference},
+		{"unknown support word", `support = "fixed"` + "\n[[node]]", `support = "clamped"` + "\n[[node]]", `m.toml:10: node "a": support = "clamped": must be one of "fixed", "pinned", "roller", "free"`, ErrValue},
+		{"unknown kind", `kind = "dead"`, `kind = "permanent"`, `m.toml:22: case "G": kind = "permanent": must be one of "dead", "live", "roof-live", "snow", "rain", "wind", "seismic", "other"`, ErrValue},
+		{"combination naming a missing case", `factors = { G = 1.4 }`, `factors = { G = 1.4, Q = 1.5 }`, `m.toml:30: combination "1.4G": factors: no case named "Q"`, ErrReference},
+		{"combination with no factors", `factors = { G = 1.4 }`, `factors = {}`, `m.toml:30: combination "1.4G": factors is empty: a combination needs at least one case`, ErrValue},
+		{"missing required key", "  P = 2\n", "", `m.toml:23: case "G", load 1: P is required`, ErrMissing},
+		{"area load without spacing", "type = \"point\"\n  on = \"a-b\"\n  P = 2\n  at = 1", "type = \"area\"\n  on = \"a-b\"\n  q = 1", `m.toml:26: case "G", load 1: an area load needs [grid] spacing, the distance between parallel frames`, ErrMissing},
+		{"fewer than two stations", `[[section]]`, "[analysis]\nstations = 1\n[[section]]", `m.toml:2: [analysis]: stations = 1: need at least 2 (both ends of each member)`, ErrValue},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			src := strings.Replace(base, tc.old, tc.new, 1)
+			if src == base {
+				t.Fatalf("edit %q not applied", tc.old)
+			}
+			_, err := Read("m.toml", []byte(src))
+			if err == nil {
+				t.Fatal("no error")
+			}
+			if got := err.Error(); got != tc.want {
+				t.Errorf("error\n got: %s\nwant: %s", got, tc.want)
+			}
+			if !errors.Is(err, tc.sentinel) {
+				t.Errorf("error does not wrap %v", tc.sentinel)
+			}
+		})
+	}
+}
+
+func TestReadReportsEveryProblem(t *testing.T) {
+	src := strings.Replace(base, `E = 200e6`, `E = -1.0`, 1)
+	src = strings.Replace(src, `at = 1`, `at = 9`, 1)
+	src = strings.Replace(src, `[[case]]`, "[[case]]\ncolour = 1", 1)
+	_, err := Read("m.toml", []byte(src))
+	var es Errors
+	if !errors.As(err, &es) || len(es) != 3 {
+		t.Fatalf("err = %v, want 3 problems", err)
+	}
+	for i, line := range []int{3, 21, 28} {
+		if es[i].Line != line {
+			t.Errorf("problem %d at line %d, want %d: %v", i+1, es[i].Line, line, es[i])
+		}
+	}
+}
