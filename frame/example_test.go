@@ -1,0 +1,39 @@
+package frame_test
+
+import (
+	"fmt"
+
+	"govern/frame"
+)
+
+// A beam fixed at both ends under a uniform load w has end moments −wL²/12
+// and a midspan moment wL²/24 (common practice; beam tables).
+func ExampleSolve() {
+	const l, w = 6.0, 10.0 // m, kN/m
+	mo := &frame.Model{
+		Sections: []frame.Section{{Name: "S", E: 200e6, A: 5e-3, I: 8e-5}},
+		Nodes:    []frame.Node{{Name: "a", Support: frame.Fixed}, {Name: "b", X: l, Support: frame.Fixed}},
+		Members:  []frame.Member{{Name: "a-b", Start: 0, End: 1}},
+		Cases: []frame.Case{{Name: "w", Kind: frame.Dead,
+			MemberLoads: []frame.MemberLoad{{Member: 0, From: 0, To: l, W: w, WEnd: w}}}},
+	}
+	sol, err := frame.Solve(mo)
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	for _, x := range []float64{0, l / 4, l / 2, l} {
+		f := sol.At(0, 0, x)
+		fmt.Printf("x = %.1f m: M = %6.2f kN·m\n", x, f.M)
+	}
+	fmt.Printf("V at the ends: %.2f kN, %.2f kN\n", sol.At(0, 0, 0).V, sol.At(0, 0, l).V)
+	_, fy, m := sol.Reaction(0, 0)
+	fmt.Printf("left support: Fy = %.2f kN, M = %.2f kN·m\n", fy, m)
+	// Output:
+	// x = 0.0 m: M = -30.00 kN·m
+	// x = 1.5 m: M =   3.75 kN·m
+	// x = 3.0 m: M =  15.00 kN·m
+	// x = 6.0 m: M = -30.00 kN·m
+	// V at the ends: 30.00 kN, -30.00 kN
+	// left support: Fy = 30.00 kN, M = 30.00 kN·m
+}
