@@ -32,6 +32,17 @@
 // Callers never see that numbering: results are indexed by node, member and
 // case in the order of the [Model].
 //
+// # Failures
+//
+// [Solve] returns an error, never numbers, for a model that is invalid
+// ([Model.Validate]), past the size limits ([ErrTooLarge]: [MaxEquations],
+// [MaxStorage]), a mechanism ([*MechanismError], naming each part joined to
+// no support and each free node and direction), or so ill-conditioned that
+// no digit of the results would be right ([ErrIllConditioned]). A stiffness
+// matrix ill-conditioned enough to cost most of the digits is solved with a
+// warning in [Solution.Warnings]; [Solution.Cond] is the estimated
+// condition number.
+//
 // # Mutation
 //
 // [Solve] never mutates the [Model]; a [Solution] keeps a pointer to it, so the

@@ -1,13 +1,9 @@
 package frame
 
 import (
-	"errors"
 	"fmt"
 	"math"
 	"sort"
-	"strings"
-
-	"gonum.org/v1/gonum/mat"
 )
 
 // Solution holds the displacements and member end forces of every load case
@@ -27,6 +23,7 @@ type Solution struct {
 
 	dofs, band int
 	cond       float64
+	warnings   []string
 }
 
 // Info describes the system of equations a model gives.
@@ -42,66 +39,28 @@ func Describe(mo *Model) Info {
 	return Info{Equations: n, Bandwidth: band}
 }
 
-// MechanismError reports a structure that cannot carry load: some degrees of
-// freedom are not held by any member or support.
-type MechanismError struct {
-	Free []FreeDOF // the free directions found, in equation order
-}
-
-// FreeDOF names a node and a direction (ux, uy or rz) that nothing holds.
-type FreeDOF struct {
-	Node      string
-	Direction string
-}
-
-func (e *MechanismError) Error() string {
-	var b strings.Builder
-	b.WriteString("the structure is a mechanism (it cannot carry load):")
-	for i, f := range e.Free {
-		if i == 8 {
-			fmt.Fprintf(&b, "; and %d more", len(e.Free)-i)
-			break
-		}
-		sep := " "
-		if i > 0 {
-			sep = "; "
-		}
-		fmt.Fprintf(&b, "%snode %q is free to %s", sep, f.Node, dirWords[f.Direction])
-	}
-	return b.String()
-}
-
-var dirWords = map[string]string{
-	"ux": "move along X (ux)",
-	"uy": "move along Y (uy)",
-	"rz": "rotate (rz)",
-}
-
-var dirNames = [3]string{"ux", "uy", "rz"}
-
-// ErrIllConditioned is wrapped by the error Solve returns when the stiffness
-// matrix is so ill-conditioned that the results would carry no correct digits.
-var ErrIllConditioned = errors.New("stiffness matrix is too ill-conditioned to solve")
-
-// A Cholesky pivot counts as zero, its degree of freedom held by nothing but
-// round-off, when it is below pivotTol of its own diagonal or below
-// pivotAbsTol of the largest diagonal (round-off scales with the stiffest
-// members, such as nearly rigid axial links). diagnoseCond is the condition
-// number above which the pivots are examined.
-const (
-	pivotTol     = 1e-10
-	pivotAbsTol  = 1e-13
-	diagnoseCond = 1e8
-)
-
 // Solve validates mo, assembles its stiffness matrix, factors it once and
 // solves every load case in one multi-column solve.
+//
+// A model past the size limits gets an error wrapping [ErrTooLarge]; a
+// structure that cannot carry load a [*MechanismError]; a stiffness matrix
+// too ill-conditioned for the results to carry any correct digit an error
+// wrapping [ErrIllConditioned]. A matrix ill-conditioned enough to cost the
+// results most of their digits is solved, with a warning in
+// [Solution.Warnings].
 func Solve(mo *Model) (*Solution, error) {
+	if err := checkEquations(mo); err != nil {
+		return nil, err
+	}
 	if err := mo.Validate(); err != nil {
 		return nil, err
 	}
+	parts := unsupportedParts(mo)
 	order := rcmOrder(adjacency(mo))
 	dof, n, band := dofMap(mo, order)
+	if err := checkStorage(mo, n, band); err != nil {
+		return nil, err
+	}
 	sol := &Solution{model: mo, dofs: n, band: band, cond: 1}
 	sol.elems = make([]element, len(mo.Members))
 	for m := range mo.Members {
@@ -151,15 +110,16 @@ func Solve(mo *Model) (*Solution, error) {
 				}
 			}
 		}
-		if err := sol.checkDiagonal(data, kb, dof); err != nil {
+		if err := sol.checkDiagonal(data, kb, dof, parts); err != nil {
 			return nil, err
 		}
-		rhs := mat.NewDense(n, max(nc, 1), nil)
+		nr := max(nc, 1)
+		rhs := make([]float64, n*nr) // row-major, one column per case
 		for c := range mo.Cases {
 			for _, nl := range mo.Cases[c].NodeLoads {
 				for d, v := range [3]float64{nl.Fx, nl.Fy, nl.M} {
 					if e := dof[3*nl.Node+d]; e >= 0 {
-						rhs.Set(e, c, rhs.At(e, c)+v)
+						rhs[e*nr+c] += v
 					}
 				}
 			}
@@ -170,32 +130,38 @@ func Solve(mo *Model) (*Solution, error) {
 				ends := [2]int{mem.Start, mem.End}
 				for i := range 6 {
 					if e := dof[3*ends[i/3]+i%3]; e >= 0 && fg[i] != 0 {
-						rhs.Set(e, c, rhs.At(e, c)-fg[i])
+						rhs[e*nr+c] -= fg[i]
 					}
 				}
 			}
 		}
-		k := mat.NewSymBandDense(n, kb, append([]float64(nil), data...))
-		var ch mat.BandCholesky
-		ok := ch.Factorize(k)
-		if !ok || ch.Cond() > diagnoseCond {
+		u, ok := factorBand(data, n, kb)
+		cond := math.Inf(1)
+		if ok {
+			cond = bandCond(data, u, n, kb)
+		}
+		if !ok || cond > diagnoseCond {
 			if err := sol.diagnose(data, n, kb, dof); err != nil {
 				return nil, err
 			}
 			if !ok {
-				return nil, fmt.Errorf("frame: %w (the matrix is not positive definite)", ErrIllConditioned)
+				return nil, fmt.Errorf("frame: %w (the matrix is not positive definite although no mechanism was found); %s", ErrIllConditioned, illAdvice)
 			}
 		}
-		sol.cond = ch.Cond()
-		var x mat.Dense
-		if err := ch.SolveTo(&x, rhs); err != nil {
-			return nil, fmt.Errorf("frame: %w: condition number %.3g", ErrIllConditioned, sol.cond)
+		sol.cond = cond
+		if !(cond <= refuseCond) {
+			return nil, fmt.Errorf("frame: %w: estimated condition number %.2g, so the results would carry no correct digit; %s", ErrIllConditioned, cond, illAdvice)
 		}
+		if cond > warnCond {
+			sol.warnings = append(sol.warnings, fmt.Sprintf("the stiffness matrix is ill-conditioned: estimated condition number %.2g, so results may have lost about %.0f of their 16 significant digits; %s",
+				cond, math.Log10(cond), illAdvice))
+		}
+		solveBandTo(rhs, u, n, kb, nr)
 		for c := range nc {
 			for v := range nn {
 				for d := range 3 {
 					if e := dof[3*v+d]; e >= 0 {
-						sol.disp[c*3*nn+3*v+d] = x.At(e, c)
+						sol.disp[c*3*nn+3*v+d] = rhs[e*nr+c]
 					}
 				}
 			}
@@ -242,8 +208,32 @@ func Solve(mo *Model) (*Solution, error) {
 			}
 		}
 	}
+	if err := sol.checkFinite(); err != nil {
+		return nil, err
+	}
 	return sol, nil
 }
+
+// checkFinite reports results that overflowed, which only numbers far
+// outside any consistent set of units can cause.
+func (sol *Solution) checkFinite() error {
+	nn, nm := len(sol.model.Nodes), len(sol.model.Members)
+	for c := range sol.model.Cases {
+		for _, v := range [][]float64{sol.disp[c*3*nn : (c+1)*3*nn], sol.end[c*6*nm : (c+1)*6*nm], sol.reac[c*3*nn : (c+1)*3*nn]} {
+			for _, x := range v {
+				if !finite(x) {
+					return fmt.Errorf("frame: case %q: %w (the arithmetic overflowed); check that loads, E, A and I are in the declared units", sol.model.Cases[c].Name, ErrNotFinite)
+				}
+			}
+		}
+	}
+	return nil
+}
+
+// Warnings returns what the engineer should know about the solution that
+// did not stop it, such as an ill-conditioned stiffness matrix; nil when
+// there is nothing to say.
+func (sol *Solution) Warnings() []string { return sol.warnings }
 
 // indexLoads sorts each case's member loads by member.
 func (sol *Solution) indexLoads() {
@@ -274,109 +264,15 @@ func (sol *Solution) loadsOn(c, m int) []int32 {
 	return sol.byMember[c][f[m]:f[m+1]]
 }
 
-// checkDiagonal finds degrees of freedom that no member stiffens at all,
-// such as the rotation of a node where every member end is hinged.
-func (sol *Solution) checkDiagonal(data []float64, kb int, dof []int) error {
-	var free []FreeDOF
-	for v := range sol.model.Nodes {
-		for d := range 3 {
-			if e := dof[3*v+d]; e >= 0 && !(data[e*(kb+1)] > 0) {
-				free = append(free, FreeDOF{sol.model.Nodes[v].Name, dirNames[d]})
-			}
-		}
-	}
-	if len(free) > 0 {
-		return &MechanismError{Free: free}
-	}
-	return nil
-}
-
-// diagnose repeats the factorization in plain Go, watching every pivot: a
-// pivot that has fallen to a tiny fraction of its diagonal means that
-// degree of freedom is held by nothing but round-off. Each such one is
-// restrained and the factorization goes on, so every free direction is found.
-func (sol *Solution) diagnose(data []float64, n, kb int, dof []int) error {
-	u := append([]float64(nil), data...)
-	w := kb + 1
-	var bad []int
-	maxDiag := 0.0
-	for i := range n {
-		maxDiag = math.Max(maxDiag, data[i*w])
-	}
-	for i := range n {
-		diag := data[i*w]
-		p := u[i*w]
-		if !(p > pivotTol*diag) || !(p > pivotAbsTol*maxDiag) {
-			bad = append(bad, i)
-			u[i*w] = 1
-			for j := 1; j < w && i+j < n; j++ {
-				u[i*w+j] = 0
-			}
-			continue
-		}
-		p = math.Sqrt(p)
-		u[i*w] = p
-		for j := 1; j < w && i+j < n; j++ {
-			u[i*w+j] /= p
-		}
-		// Update the trailing band: a[j][l] -= u[i][j] u[i][l].
-		for j := 1; j < w && i+j < n; j++ {
-			uij := u[i*w+j]
-			if uij == 0 {
-				continue
-			}
-			row := (i + j) * w
-			for l := j; l < w && i+l < n; l++ {
-				u[row+l-j] -= uij * u[i*w+l]
-			}
-		}
-	}
-	if len(bad) == 0 {
-		return nil
-	}
-	type where struct{ node, d int }
-	at := make([]where, n)
-	lc := 0.0 // mean member length, to weigh rotations against translations
-	for v := range sol.model.Nodes {
-		for d := range 3 {
-			if e := dof[3*v+d]; e >= 0 {
-				at[e] = where{v, d}
-			}
-		}
-	}
-	for m := range sol.model.Members {
-		lc += sol.elems[m].l / float64(len(sol.model.Members))
-	}
-	var free []FreeDOF
-	seen := map[FreeDOF]bool{}
-	for _, i := range bad {
-		z := nullVector(u, w, i)
-		best, bestV := i, 0.0
-		for e := 0; e <= i; e++ {
-			v := math.Abs(z[e])
-			if at[e].d == 2 {
-				v *= lc / 2
-			}
-			if v > bestV {
-				best, bestV = e, v
-			}
-		}
-		f := FreeDOF{sol.model.Nodes[at[best].node].Name, dirNames[at[best].d]}
-		if !seen[f] {
-			seen[f] = true
-			free = append(free, f)
-		}
-	}
-	return &MechanismError{Free: free}
-}
-
 // Model returns the model that was solved.
 func (sol *Solution) Model() *Model { return sol.model }
 
 // Info returns the size of the system that was solved.
 func (sol *Solution) Info() Info { return Info{Equations: sol.dofs, Bandwidth: sol.band} }
 
-// Cond returns the estimated condition number of the stiffness matrix.
+// Cond returns the estimated 1-norm condition number ‖K‖₁ ‖K⁻¹‖₁ of the
+// stiffness matrix K of the free degrees of freedom; 1 when there are none.
+// Results lose about log10(Cond) of the 16 significant digits of float64.
 func (sol *Solution) Cond() float64 { return sol.cond }
 
 // Displacement returns the global displacements (ux, uy, rz) of node v in
@@ -407,20 +303,4 @@ func (sol *Solution) At(c, m int, x float64) Forces {
 	e := &sol.elems[m]
 	f := sol.end[(c*len(sol.model.Members)+m)*6:]
 	return stationForces(f[0], f[1], f[2], x, e.l, e.c, e.s, sol.model.Cases[c].MemberLoads, sol.loadsOn(c, m))
-}
-
-// nullVector returns the shape z[0..i] of the mechanism found at a zero
-// pivot i of the upper band factor u (row-major, width w): z[i] = 1 and the
-// earlier equations U z = 0 hold, so z moves without straining anything.
-func nullVector(u []float64, w, i int) []float64 {
-	z := make([]float64, i+1)
-	z[i] = 1
-	for r := i - 1; r >= 0; r-- {
-		sum := 0.0
-		for c := r + 1; c <= i && c-r < w; c++ {
-			sum += u[r*w+c-r] * z[c]
-		}
-		z[r] = -sum / u[r*w]
-	}
-	return z
 }

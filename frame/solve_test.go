@@ -1,7 +1,6 @@
 package frame
 
 import (
-	"errors"
 	"fmt"
 	"math"
 	"testing"
@@ -314,45 +313,4 @@ func TestInclinedMemberMatchesHorizontal(t *testing.T) {
 	if got := sol.At(0, 0, 0).N; !near(got, -w*s*l/2, tightTol) {
 		t.Errorf("N(0) = %g, want %g (compression at the lower end)", got, -w*s*l/2)
 	}
-}
-
-func TestMechanismsAreReported(t *testing.T) {
-	t.Run("portal with pinned bases and hinged beam sways", func(t *testing.T) {
-		mo := portal(Pinned, 6, 3, 1e-3, 1e-3)
-		mo.Members[1].Release = ReleaseBoth
-		mo.Cases = []Case{{Name: "H", NodeLoads: []NodeLoad{{Node: 1, Fx: 1}}}}
-		_, err := Solve(mo)
-		var me *MechanismError
-		if !errors.As(err, &me) {
-			t.Fatalf("err = %v, want a MechanismError", err)
-		}
-		found := false
-		for _, f := range me.Free {
-			if f.Direction == "ux" {
-				found = true
-			}
-		}
-		if !found {
-			t.Errorf("free = %+v, want a free ux", me.Free)
-		}
-	})
-	t.Run("node where every member end is hinged cannot rotate", func(t *testing.T) {
-		mo := continuous(2, 4, 1, nil)
-		mo.Members[0].Release = ReleaseEnd
-		mo.Members[1].Release = ReleaseStart
-		_, err := Solve(mo)
-		want := `the structure is a mechanism (it cannot carry load): node "N1" is free to rotate (rz)`
-		if err == nil || err.Error() != want {
-			t.Errorf("err = %v, want %s", err, want)
-		}
-	})
-	t.Run("beam on rollers only slides along X", func(t *testing.T) {
-		mo := continuous(1, 4, 1, nil)
-		mo.Nodes[0].Support = Roller
-		_, err := Solve(mo)
-		var me *MechanismError
-		if !errors.As(err, &me) || len(me.Free) != 1 || me.Free[0].Direction != "ux" {
-			t.Errorf("err = %v, want one free ux", err)
-		}
-	})
 }

@@ -1,0 +1,102 @@
+package frame
+
+import (
+	"errors"
+	"fmt"
+)
+
+// Size limits. A model past them is refused by [Solve] with an error
+// wrapping [ErrTooLarge] before the solver allocates its matrices, so that
+// a typing slip cannot exhaust the machine's memory.
+const (
+	// MaxEquations is the largest number of free degrees of freedom.
+	MaxEquations = 1_000_000
+	// MaxStorage is the largest number of float64 values (8 bytes each;
+	// 2^28 values is 2 GiB) the solver may hold at once: the stiffness band
+	// and its factor, the load vectors and solutions of every case, and the
+	// member end forces.
+	MaxStorage = 1 << 28
+)
+
+// ErrTooLarge is wrapped by the error [Solve] returns for a model past the
+// size limits.
+var ErrTooLarge = errors.New("model too large")
+
+// freeDOFs counts the degrees of freedom of mo that no support restrains.
+func freeDOFs(mo *Model) int {
+	n := 0
+	for _, nd := range mo.Nodes {
+		for d := range 3 {
+			if !nd.Support.Restrained(d) {
+				n++
+			}
+		}
+	}
+	return n
+}
+
+// checkEquations refuses a model with more than MaxEquations free degrees
+// of freedom; it needs only the nodes, so it runs before anything else.
+func checkEquations(mo *Model) error {
+	if n := freeDOFs(mo); n > MaxEquations {
+		return fmt.Errorf("frame: %w: %s free degrees of freedom (%s nodes); the limit is %s",
+			ErrTooLarge, thousands(n), thousands(len(mo.Nodes)), thousands(MaxEquations))
+	}
+	return nil
+}
+
+// storage returns the number of float64 values Solve holds at once for n
+// equations of half-bandwidth band: the band and its factor (and a third
+// copy while a mechanism is being diagnosed), right-hand sides and
+// solutions, displacements and reactions, and fixed-end and end forces.
+func storage(mo *Model, n, band int) float64 {
+	kb := float64(min(band, max(n-1, 0)))
+	nc := float64(max(len(mo.Cases), 1))
+	fn := float64(n)
+	nodes, members := float64(len(mo.Nodes)), float64(len(mo.Members))
+	return 3*fn*(kb+1) + fn*nc + nc*(2*3*nodes+2*6*members)
+}
+
+// checkStorage refuses a system that would need more than MaxStorage values.
+func checkStorage(mo *Model, n, band int) error {
+	if s := storage(mo, n, band); s > MaxStorage {
+		return fmt.Errorf("frame: %w: solving needs about %s of memory (%s equations, half-bandwidth %s, %d load cases); the limit is %s",
+			ErrTooLarge, bytesText(8*s), thousands(n), thousands(band), len(mo.Cases), bytesText(8*MaxStorage))
+	}
+	return nil
+}
+
+// thousands formats n with commas between groups of three digits, as
+// 1,000,000.
+func thousands(n int) string {
+	s := fmt.Sprint(n)
+	neg := s[0] == '-'
+	if neg {
+		s = s[1:]
+	}
+	var out []byte
+	for i := range len(s) {
+		if i > 0 && (len(s)-i)%3 == 0 {
+			out = append(out, ',')
+		}
+		out = append(out, s[i])
+	}
+	if neg {
+		return "-" + string(out)
+	}
+	return string(out)
+}
+
+// bytesText formats a size in bytes with a binary unit, as "2.0 GiB".
+func bytesText(b float64) string {
+	units := []string{"bytes", "KiB", "MiB", "GiB", "TiB"}
+	i := 0
+	for b >= 1024 && i < len(units)-1 {
+		b /= 1024
+		i++
+	}
+	if i == 0 {
+		return fmt.Sprintf("%.0f bytes", b)
+	}
+	return fmt.Sprintf("%.1f %s", b, units[i])
+}
