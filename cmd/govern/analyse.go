@@ -1,8 +1,8 @@
 package main
 
 import (
-	"errors"
 	"fmt"
+	"io"
 	"os"
 	"path/filepath"
 
@@ -11,15 +11,27 @@ import (
 	"govern/frame"
 )
 
-// loadModel reads and validates the model file at path.
+// loadModel reads and validates the model file at path. A file past
+// modelfile.MaxFileSize is refused before it is read.
 func loadModel(path string) (*modelfile.Job, error) {
-	src, err := os.ReadFile(path)
+	f, err := os.Open(path)
 	if err != nil {
-		var pe *os.PathError
-		if errors.As(err, &pe) {
-			return nil, fmt.Errorf("cannot read model: %v", err)
-		}
-		return nil, err
+		return nil, fmt.Errorf("cannot read model: %v", err)
+	}
+	defer f.Close()
+	st, err := f.Stat()
+	if err != nil {
+		return nil, fmt.Errorf("cannot read model: %v", err)
+	}
+	if st.IsDir() {
+		return nil, fmt.Errorf("cannot read model: %s is a directory", path)
+	}
+	if st.Size() > modelfile.MaxFileSize {
+		return nil, fmt.Errorf("%s: the file is %d bytes; the limit for a model is %d (%d MiB)", path, st.Size(), modelfile.MaxFileSize, modelfile.MaxFileSize>>20)
+	}
+	src, err := io.ReadAll(io.LimitReader(f, modelfile.MaxFileSize+1))
+	if err != nil {
+		return nil, fmt.Errorf("cannot read model: %v", err)
 	}
 	return modelfile.Read(filepath.Base(path), src)
 }

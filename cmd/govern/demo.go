@@ -54,10 +54,14 @@ edit; an existing file is not overwritten.`,
 		if err != nil {
 			return err
 		}
+		if err := checkSize(job, &f.runFlags); err != nil {
+			return err
+		}
 		a, err := analyse(job)
 		if err != nil {
 			return err
 		}
+		env.warn(a.sol.Warnings())
 		return a.report(env.stdout, "", &f.runFlags)
 	},
 }

@@ -33,6 +33,13 @@ type environ struct {
 	name           string // "govern run", for messages
 }
 
+// warn prints each warning to stderr, prefixed with the command name.
+func (env *environ) warn(ws []string) {
+	for _, w := range ws {
+		fmt.Fprintf(env.stderr, "%s: warning: %s\n", env.name, w)
+	}
+}
+
 // usageError is a mistake in the command line: exit status 2.
 type usageError struct{ msg string }
 
@@ -55,9 +62,10 @@ func main() {
 // govern runs the command line args and returns the exit status: 0 success,
 // 1 bad model or analysis failure, 2 usage.
 func govern(args []string, stdout, stderr io.Writer) (status int) {
+	who := "govern" // the prefix of messages: the command, once known
 	defer func() {
 		if p := recover(); p != nil {
-			fmt.Fprintf(stderr, "govern: internal error: %v\nPlease report it with the model that caused it.\n", p)
+			fmt.Fprintf(stderr, "%s: internal error: %v\n%s: no output was written; please report this with the model that caused it\n", who, p, who)
 			status = 1
 		}
 	}()
@@ -84,6 +92,7 @@ func govern(args []string, stdout, stderr io.Writer) (status int) {
 		return 2
 	}
 	env := &environ{stdout: stdout, stderr: stderr, name: "govern " + c.name}
+	who = env.name
 	fs := flag.NewFlagSet(env.name, flag.ContinueOnError)
 	fs.SetOutput(io.Discard)
 	opts := c.flags(fs)

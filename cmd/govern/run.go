@@ -42,15 +42,23 @@ the signs.`,
 		if len(args) != 1 {
 			return usagef("need one model file, got %d arguments", len(args))
 		}
+		f := opts.(*runFlags)
+		if f.json == "-" && f.csv == "-" {
+			return usagef("only one of --json and --csv can go to standard output")
+		}
 		job, err := loadModel(args[0])
 		if err != nil {
+			return err
+		}
+		if err := checkSize(job, f); err != nil {
 			return err
 		}
 		a, err := analyse(job)
 		if err != nil {
 			return err
 		}
-		return a.report(env.stdout, args[0], opts.(*runFlags))
+		env.warn(a.sol.Warnings())
+		return a.report(env.stdout, args[0], f)
 	},
 }
 
@@ -59,9 +67,12 @@ the signs.`,
 func (a *analysis) report(stdout io.Writer, model string, f *runFlags) error {
 	var outs []*output
 	toStdout := false
+	if f.json == "-" && f.csv == "-" {
+		return usagef("only one of --json and --csv can go to standard output")
+	}
 	if f.json != "" {
 		o := &output{path: f.json}
-		if err := a.writeJSON(&o.buf); err != nil {
+		if err := a.writeJSON(&capped{w: &o.buf, what: "JSON"}); err != nil {
 			return err
 		}
 		outs = append(outs, o)
@@ -69,22 +80,20 @@ func (a *analysis) report(stdout io.Writer, model string, f *runFlags) error {
 	}
 	if f.csv != "" {
 		o := &output{path: f.csv}
-		if err := a.writeCSV(&o.buf); err != nil {
+		if err := a.writeCSV(&capped{w: &o.buf, what: "CSV"}); err != nil {
 			return err
 		}
 		outs = append(outs, o)
 		toStdout = toStdout || f.csv == "-"
 	}
-	if f.json == "-" && f.csv == "-" {
-		return usagef("only one of --json and --csv can go to standard output")
-	}
 	if !toStdout {
 		o := &output{path: "-"}
-		a.writeHeading(&o.buf)
-		if err := a.writeSummary(&o.buf); err != nil {
+		w := &capped{w: &o.buf, what: "summary"}
+		a.writeHeading(w)
+		if err := a.writeSummary(w); err != nil {
 			return err
 		}
-		fmt.Fprintf(&o.buf, "\n%s\n", caution)
+		fmt.Fprintf(w, "\n%s\n", caution)
 		outs = append(outs, o)
 	}
 	return commitOutputs(stdout, model, outs)

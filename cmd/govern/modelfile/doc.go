@@ -7,6 +7,17 @@
 // Problems are reported all together, each as an [*Error] that carries the
 // file name, the line (and column where known) and the thing at fault, and
 // wraps one of the sentinel errors (ErrSyntax, ErrUnknownKey, ErrType,
-// ErrMissing, ErrValue, ErrReference, ErrDuplicate) so callers can tell them
-// apart with errors.Is.
+// ErrMissing, ErrValue, ErrReference, ErrDuplicate, ErrTooLarge, ErrTooMany)
+// so callers can tell them apart with errors.Is. A syntax error stops the
+// reading, since the rest of the file cannot be understood; any other
+// problem does not, and at most [MaxProblems] are listed. The reader itself
+// makes every check of frame.Model.Validate, with the line at fault, so a
+// model it accepts is valid; Validate runs afterwards as a safeguard.
+//
+// A file larger than [MaxFileSize], nested deeper than [MaxNesting], or
+// describing more degrees of freedom than frame.MaxEquations, or more
+// member loads than [MaxMemberLoads], is refused before it can exhaust
+// memory. Docs/errors.md lists every limit.
+//
+// Nothing passed to [Read] is modified.
 package modelfile

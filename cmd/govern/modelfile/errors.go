@@ -15,6 +15,8 @@ var (
 	ErrValue      = errors.New("invalid value")
 	ErrReference  = errors.New("unknown reference")
 	ErrDuplicate  = errors.New("duplicate name")
+	ErrTooLarge   = errors.New("model too large")
+	ErrTooMany    = errors.New("too many problems")
 )
 
 // Error is a problem in a model file at a position.

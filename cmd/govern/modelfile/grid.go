@@ -57,11 +57,11 @@ const maxGrid = 2000
 func (r *reader) readGrid(t *table) {
 	bays, storeys := t.nums("bays"), t.nums("storeys")
 	ok := true
-	if t.need("bays") && len(bays) == 0 && t.has("bays") {
+	if t.need("bays") && emptyArray(t.m["bays"]) {
 		t.fail("bays", problem(ErrValue, "bays is empty: give at least one bay width"))
 		ok = false
 	}
-	if t.need("storeys") && len(storeys) == 0 && t.has("storeys") {
+	if t.need("storeys") && emptyArray(t.m["storeys"]) {
 		t.fail("storeys", problem(ErrValue, "storeys is empty: give at least one storey height"))
 		ok = false
 	}
@@ -95,6 +95,19 @@ func (r *reader) readGrid(t *table) {
 	}
 	t.done()
 	if !ok || !okC || !okB || len(bays) == 0 || len(storeys) == 0 {
+		return
+	}
+	// Refuse a grid past the size limit before generating it.
+	lines, levels := len(bays)+1, len(storeys)+1
+	free := 3 * lines * levels
+	for d := range 3 {
+		if supports[base].Restrained(d) {
+			free -= lines
+		}
+	}
+	if free > frame.MaxEquations {
+		t.fail("", problem(ErrTooLarge, "%d column lines × %d levels make %s nodes with %s free degrees of freedom; the limit is %s",
+			lines, levels, thousands(lines*levels), thousands(free), thousands(frame.MaxEquations)))
 		return
 	}
 	g := &Grid{Spacing: spacing, overridden: map[int]bool{}}
@@ -143,11 +156,15 @@ func (r *reader) readGrid(t *table) {
 
 // levels returns the heights that "level N" selectors count: the grid's
 // levels, or without a grid every distinct node height from the lowest up.
+// Selectors are resolved once all nodes are read, so it is computed once.
 func (r *reader) levels() []float64 {
 	if r.job.Grid != nil {
 		return r.job.Grid.Levels
 	}
-	return distinct(r.job.Model.Nodes, func(n frame.Node) float64 { return n.Y })
+	if r.levelYs == nil {
+		r.levelYs = distinct(r.job.Model.Nodes, func(n frame.Node) float64 { return n.Y })
+	}
+	return r.levelYs
 }
 
 // lines returns the X positions that "line A" selectors count: the grid's
@@ -156,7 +173,16 @@ func (r *reader) lines() []float64 {
 	if r.job.Grid != nil {
 		return r.job.Grid.Lines
 	}
-	return distinct(r.job.Model.Nodes, func(n frame.Node) float64 { return n.X })
+	if r.lineXs == nil {
+		r.lineXs = distinct(r.job.Model.Nodes, func(n frame.Node) float64 { return n.X })
+	}
+	return r.lineXs
+}
+
+// emptyArray reports whether v is an array with no elements.
+func emptyArray(v any) bool {
+	a, ok := v.([]any)
+	return ok && len(a) == 0
 }
 
 func distinct(nodes []frame.Node, f func(frame.Node) float64) []float64 {
@@ -179,13 +205,16 @@ func distinct(nodes []frame.Node, f func(frame.Node) float64) []float64 {
 var errNoSuchMember = errors.New("")
 
 // selectMembers resolves a member selector: a member name, "level N",
-// "roof", "line A", "all beams" or "all columns".
+// "roof", "line A", "all beams" or "all columns". The members each keyword
+// selector picks are found once and kept, so the slice returned is shared:
+// callers must not modify it.
 func (r *reader) selectMembers(sel string) ([]int, error) {
 	mo := r.job.Model
 	if i, ok := r.members[sel]; ok {
 		return []int{i}, nil
 	}
 	var pick func(m int) bool
+	key := sel // canonical form, under which the members picked are kept
 	f := strings.Fields(sel)
 	switch {
 	case sel == "all beams":
@@ -203,6 +232,7 @@ func (r *reader) selectMembers(sel string) ([]int, error) {
 			}
 		}
 		y := lv[n]
+		key = "level " + strconv.Itoa(n)
 		pick = func(m int) bool {
 			return mo.IsBeam(m) && math.Abs(mo.Nodes[mo.Members[m].Start].Y-y) <= coordTol
 		}
@@ -213,6 +243,7 @@ func (r *reader) selectMembers(sel string) ([]int, error) {
 			return nil, fmt.Errorf("selector %q: column lines are A to %s", sel, LineName(len(ls)-1))
 		}
 		x := ls[n]
+		key = "line " + LineName(n)
 		pick = func(m int) bool {
 			return mo.IsColumn(m) && math.Abs(mo.Nodes[mo.Members[m].Start].X-x) <= coordTol
 		}
@@ -223,11 +254,17 @@ func (r *reader) selectMembers(sel string) ([]int, error) {
 		}
 		return nil, fmt.Errorf("%s%w", msg, errNoSuchMember)
 	}
-	var out []int
-	for m := range mo.Members {
-		if pick(m) {
-			out = append(out, m)
+	out, done := r.selected[key]
+	if !done {
+		for m := range mo.Members {
+			if pick(m) {
+				out = append(out, m)
+			}
 		}
+		if r.selected == nil {
+			r.selected = map[string][]int{}
+		}
+		r.selected[key] = out
 	}
 	if len(out) == 0 {
 		return nil, fmt.Errorf("selector %q matches no member", sel)

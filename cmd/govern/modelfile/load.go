@@ -49,6 +49,9 @@ func (r *reader) readLoad(t *table, c *frame.Case) {
 			members = append(members, ms...)
 		}
 	}
+	if !r.budget(t, "on", len(members)) {
+		members = nil
+	}
 	switch typ {
 	case "udl":
 		has := t.need("w")

@@ -5,7 +5,6 @@ import (
 	"fmt"
 	"math"
 	"sort"
-	"strings"
 
 	"github.com/BurntSushi/toml"
 
@@ -34,23 +33,40 @@ type Job struct {
 }
 
 // Read parses and validates a model file. name is used in messages only.
-// All problems found are returned together as [Errors].
+// All problems found are returned together as [Errors]: a syntax error
+// alone, since the rest of the file cannot be understood, else every
+// problem the reader finds (at most [MaxProblems], then a count of the
+// rest), in file order.
 func Read(name string, src []byte) (*Job, error) {
+	if len(src) > MaxFileSize {
+		return nil, Errors{{File: name, Err: problem(ErrTooLarge, "the file is %d bytes; the limit is %d (%d MiB)", len(src), MaxFileSize, MaxFileSize>>20)}}
+	}
+	text := string(src)
+	if line, off, msg := guard(text); line > 0 {
+		col, ex := excerpt(text, line, off)
+		return nil, Errors{{File: name, Line: line, Column: col, Err: problem(ErrSyntax, "%s%s", msg, ex)}}
+	}
 	var raw map[string]any
-	if _, err := toml.Decode(string(src), &raw); err != nil {
+	if _, err := toml.Decode(text, &raw); err != nil {
 		var pe toml.ParseError
 		if errors.As(err, &pe) {
-			return nil, Errors{{File: name, Line: pe.Position.Line, Column: pe.Position.Col,
-				Err: problem(ErrSyntax, "%s%s", pe.Message, excerpt(string(src), pe.Position.Line, pe.Position.Col))}}
+			col, ex := excerpt(text, pe.Position.Line, syntaxOffset(text, pe.Position))
+			return nil, Errors{{File: name, Line: pe.Position.Line, Column: col,
+				Err: problem(ErrSyntax, "%s%s", pe.Message, ex)}}
 		}
 		return nil, Errors{{File: name, Err: problem(ErrSyntax, "%v", err)}}
 	}
-	r := &reader{file: name, loc: newLocator(string(src))}
+	r := &reader{file: name, loc: newLocator(text)}
 	job := r.read(raw)
 	if len(r.errs) > 0 {
 		sort.SliceStable(r.errs, func(i, j int) bool { return r.errs[i].Line < r.errs[j].Line })
+		if r.more > 0 {
+			r.errs = append(r.errs, &Error{File: name, Err: problem(ErrTooMany, "%d more problems not listed; correct these first", r.more)})
+		}
 		return nil, r.errs
 	}
+	// The reader has made every check Validate makes, with the line at
+	// fault; this is a safeguard.
 	if err := job.Model.Validate(); err != nil {
 		var ve frame.ValidationErrors
 		if errors.As(err, &ve) {
@@ -62,16 +78,6 @@ func Read(name string, src []byte) (*Job, error) {
 		return nil, Errors{{File: name, Err: problem(ErrValue, "%v", err)}}
 	}
 	return job, nil
-}
-
-// excerpt shows line n of src with a marker under column col.
-func excerpt(src string, n, col int) string {
-	lines := strings.Split(src, "\n")
-	if n < 1 || n > len(lines) {
-		return ""
-	}
-	l := strings.ReplaceAll(lines[n-1], "\t", " ")
-	return fmt.Sprintf("\n    %s\n    %s^", l, strings.Repeat(" ", max(col-1, 0)))
 }
 
 type reader struct {
@@ -86,9 +92,18 @@ type reader struct {
 	hasW     []bool          // section gives a weight
 	broken   map[string]bool // members named in the file that could not be built
 	memLine  []int           // line defining each member (0 for grid members)
+
+	checks // model-wide checks and limits (checks.go)
 }
 
+// MaxProblems is the most problems [Read] lists; the rest are counted.
+const MaxProblems = 100
+
 func (r *reader) fail(line int, where string, err error) {
+	if len(r.errs) >= MaxProblems {
+		r.more++
+		return
+	}
 	r.errs = append(r.errs, &Error{File: r.file, Line: line, Where: where, Err: err})
 }
 
@@ -127,15 +142,7 @@ func (r *reader) read(raw map[string]any) *Job {
 	r.readCases(top.array("case", func(i int, m map[string]any) string { return named("case", i, m) }))
 	r.readCombinations(top.array("combination", func(i int, m map[string]any) string { return named("combination", i, m) }))
 	top.done()
-	if len(job.Model.Nodes) == 0 && len(r.errs) == 0 {
-		r.fail(0, "", problem(ErrMissing, "the model has no nodes: give a [grid] or [[node]] tables"))
-	}
-	if len(job.Model.Members) == 0 && len(r.errs) == 0 {
-		r.fail(0, "", problem(ErrMissing, "the model has no members: give a [grid] or [[member]] tables"))
-	}
-	if len(job.Model.Cases) == 0 && len(r.errs) == 0 {
-		r.fail(0, "", problem(ErrMissing, "the model has no load cases: give at least one [[case]]"))
-	}
+	r.checkModel(top)
 	if len(job.Combinations) == 0 {
 		job.Combinations = combos.EachCase(job.Model.Cases)
 	}
@@ -253,6 +260,7 @@ func (r *reader) readNodes(ts []*table) {
 		nd := frame.Node{Name: name, X: t.num("x", 0), Y: t.num("y", 0), Support: r.support(t, frame.Free)}
 		if has {
 			r.nodes[name] = len(mo.Nodes)
+			r.noteNode(len(mo.Nodes), t)
 			mo.Nodes = append(mo.Nodes, nd)
 		}
 		t.done()
@@ -330,6 +338,7 @@ func (r *reader) readMembers(ts []*table) {
 			continue
 		}
 		r.members[name] = len(mo.Members)
+		r.noteMember(len(mo.Members), t)
 		mo.Members = append(mo.Members, frame.Member{Name: name, Start: a, End: b, Section: s, Release: rel})
 	}
 }
@@ -364,7 +373,7 @@ func (r *reader) readCases(ts []*table) {
 				c.Kind, _ = frame.ParseKind(k)
 			}
 		}
-		if t.boolean("self_weight", false) {
+		if t.boolean("self_weight", false) && r.budget(t, "self_weight", len(mo.Members)) {
 			for m := range mo.Members {
 				sec := mo.Members[m].Section
 				if !r.hasW[sec] {

@@ -162,7 +162,7 @@ func (t *table) nums(key string) []float64 {
 			out = append(out, float64(x))
 		case float64:
 			if math.IsNaN(x) || math.IsInf(x, 0) {
-				t.fail(key, problem(ErrValue, "%s[%d] must be a finite number", key, i+1))
+				t.fail(key, problem(ErrValue, "%s[%d] must be a finite number, not %v", key, i+1, x))
 				return nil
 			}
 			out = append(out, x)
@@ -282,9 +282,15 @@ func closest(s string, candidates []string) string {
 	if len(s) <= 4 {
 		limit = 1
 	}
+	if len(s) > maxSuggest {
+		return ""
+	}
 	for _, c := range candidates {
 		if strings.EqualFold(c, s) {
 			return c
+		}
+		if len(c) > len(s)+limit || len(c) < len(s)-limit {
+			continue // too long or short to be within the limit
 		}
 		d := editDistance(strings.ToLower(s), strings.ToLower(c))
 		if d <= limit && d < len(s) && d < bestD {
@@ -293,6 +299,10 @@ func closest(s string, candidates []string) string {
 	}
 	return best
 }
+
+// maxSuggest is the longest name for which closest looks for a suggestion;
+// the edit distance costs the product of the lengths.
+const maxSuggest = 64
 
 // editDistance is the optimal string alignment distance of a and b.
 func editDistance(a, b string) int {

@@ -1,0 +1,99 @@
+package main
+
+import (
+	"encoding/json"
+	"errors"
+	"fmt"
+	"io"
+
+	"govern/cmd/govern/modelfile"
+)
+
+// Output limits, checked from the model before any analysis, so that a
+// slip such as a million stations is refused before memory runs out; see
+// docs/errors.md. Outputs are built in memory and written whole.
+const (
+	// maxPoints is the most station values the envelopes may hold:
+	// members × stations.
+	maxPoints = 1_000_000
+	// maxOutput is the largest output (JSON, CSV or summary), in bytes.
+	maxOutput = 512 << 20
+)
+
+// errTooLarge marks an output past maxOutput.
+var errTooLarge = errors.New("output too large")
+
+// checkSize refuses a job whose envelopes or requested outputs would be
+// past the limits. The output sizes are estimates from above: numbers at
+// their longest, names at their longest.
+func checkSize(job *modelfile.Job, f *runFlags) error {
+	members := len(job.Model.Members)
+	stations := job.Settings.Stations
+	points := members * stations
+	if points > maxPoints {
+		return fmt.Errorf("the envelopes would hold %s station values (%s members × %s stations); the limit is %s: use fewer stations",
+			thousands(points), thousands(members), thousands(stations), thousands(maxPoints))
+	}
+	combo := 0 // longest combination name, as JSON
+	for _, cb := range job.Combinations {
+		combo = max(combo, jsonLen(cb.Name))
+	}
+	member := 0
+	for _, m := range job.Model.Members {
+		member = max(member, jsonLen(m.Name))
+	}
+	u := job.Units
+	unit := max(len(u.Force), len(u.Moment()))
+	for _, o := range []struct {
+		flag, what string
+		size       int
+	}{
+		// Per station: x and, for N, V and M, two numbers of up to 24
+		// characters, two combination names and the layout around them.
+		{f.json, "JSON", points*(450+6*combo) + members*(120+3*member)},
+		// Per station three rows: member, x, effect, two numbers, two names, unit.
+		{f.csv, "CSV", points * 3 * (80 + member + 2*combo + unit)},
+	} {
+		if o.flag != "" && o.size > maxOutput {
+			return fmt.Errorf("the %s output would be about %s; the limit is %s: use fewer stations", o.what, mib(o.size), mib(maxOutput))
+		}
+	}
+	return nil
+}
+
+// jsonLen returns the length of s as a JSON string.
+func jsonLen(s string) int {
+	b, _ := json.Marshal(s)
+	return len(b)
+}
+
+func mib(n int) string { return fmt.Sprintf("%d MiB", (n+1<<20-1)>>20) }
+
+// thousands formats n with commas between groups of three digits.
+func thousands(n int) string {
+	s := fmt.Sprint(n)
+	out := make([]byte, 0, len(s)+len(s)/3)
+	for i := range len(s) {
+		if i > 0 && s[i-1] != '-' && (len(s)-i)%3 == 0 {
+			out = append(out, ',')
+		}
+		out = append(out, s[i])
+	}
+	return string(out)
+}
+
+// capped is a writer that refuses to grow past maxOutput: the last line of
+// defence behind checkSize's estimates.
+type capped struct {
+	w    io.Writer
+	n    int
+	what string
+}
+
+func (c *capped) Write(p []byte) (int, error) {
+	if c.n+len(p) > maxOutput {
+		return 0, fmt.Errorf("%w: the %s output passed %s", errTooLarge, c.what, mib(maxOutput))
+	}
+	c.n += len(p)
+	return c.w.Write(p)
+}

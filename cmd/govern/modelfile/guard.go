@@ -1,0 +1,121 @@
+package modelfile
+
+import "strings"
+
+// Limits on the shape of a file, checked before it is parsed. The TOML
+// parser's time and memory grow with the square of the depth of nested
+// inline tables and of dotted keys (a file of a few hundred kilobytes of
+// "{b={b={…" can take many minutes and gigabytes), and the model format
+// needs a depth of two, so anything deeper is refused at once.
+const (
+	// MaxFileSize is the largest model file read, in bytes.
+	MaxFileSize = 64 << 20
+	// MaxNesting is the deepest nesting of arrays and inline tables, and
+	// the most parts a dotted key or table name may have.
+	MaxNesting = 16
+)
+
+// guard scans src for nesting deeper than MaxNesting, outside strings and
+// comments, and returns the line and byte offset of the first excess, or
+// line 0. It understands just enough TOML to skip strings and comments;
+// anything else wrong is left to the parser.
+func guard(src string) (line, off int, msg string) {
+	depth := 0
+	dots := 0       // dots in the current run of key parts
+	dotted := false // the last significant character was a dot
+	line = 1
+	for i := 0; i < len(src); i++ {
+		c := src[i]
+		switch c {
+		case '\n':
+			line++
+			dots, dotted = 0, false
+		case '#':
+			j := strings.IndexByte(src[i:], '\n')
+			if j < 0 {
+				return 0, 0, ""
+			}
+			i += j - 1
+		case '"', '\'':
+			end := stringEnd(src, i)
+			if end < 0 {
+				return 0, 0, "" // unterminated: the parser says where
+			}
+			line += strings.Count(src[i:end], "\n")
+			i = end - 1
+			dotted = false
+		case '[', '{':
+			depth++
+			dots, dotted = 0, false
+			if depth > MaxNesting {
+				return line, i, "arrays, inline tables or table names nested deeper than the format allows"
+			}
+		case ']', '}':
+			depth = max(depth-1, 0)
+			dots, dotted = 0, false
+		case ',', '=':
+			dots, dotted = 0, false
+		case '.':
+			dots++
+			dotted = true
+			if dots >= MaxNesting {
+				return line, i, "a dotted key or table name of more parts than the format allows"
+			}
+		case ' ', '\t', '\r':
+			// Whitespace may separate the parts of a dotted key.
+		default:
+			if dotted {
+				dotted = false
+			} else if i > 0 && (src[i-1] == ' ' || src[i-1] == '\t') {
+				dots = 0 // a new run after whitespace that no dot joined
+			}
+		}
+	}
+	return 0, 0, ""
+}
+
+// stringEnd returns the offset just past the string that starts at src[i]
+// (basic, literal, or either multi-line form), or -1 when it does not end.
+func stringEnd(src string, i int) int {
+	q := src[i]
+	if strings.HasPrefix(src[i:], strings.Repeat(string(q), 3)) {
+		j := strings.Index(src[i+3:], strings.Repeat(string(q), 3))
+		for q == '"' && j >= 0 && escaped(src, i+3+j) {
+			k := strings.Index(src[i+3+j+1:], `"""`)
+			if k < 0 {
+				return -1
+			}
+			j += 1 + k
+		}
+		if j < 0 {
+			return -1
+		}
+		end := i + 3 + j + 3
+		for end < len(src) && src[end] == q { // up to two quotes may close it
+			end++
+		}
+		return end
+	}
+	for j := i + 1; j < len(src); j++ {
+		switch src[j] {
+		case '\n':
+			return -1
+		case '\\':
+			if q == '"' {
+				j++
+			}
+		case q:
+			return j + 1
+		}
+	}
+	return -1
+}
+
+// escaped reports whether src[j] is preceded by an odd number of backslashes.
+func escaped(src string, j int) bool {
+	n := 0
+	for k := j - 1; k >= 0 && src[k] == '\\'; k-- {
+		n++
+	}
+	return n%2 == 1
+}
