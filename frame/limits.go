@@ -20,7 +20,7 @@ const (
 
 // ErrTooLarge is wrapped by the error [Solve] returns for a model past the
 // size limits.
-var ErrTooLarge = errors.New("model too large")
+var ErrTooLarge = errors.New("the model is too large")
 
 // freeDOFs counts the degrees of freedom of mo that no support restrains.
 func freeDOFs(mo *Model) int {
@@ -39,7 +39,7 @@ func freeDOFs(mo *Model) int {
 // of freedom; it needs only the nodes, so it runs before anything else.
 func checkEquations(mo *Model) error {
 	if n := freeDOFs(mo); n > MaxEquations {
-		return fmt.Errorf("frame: %w: %s free degrees of freedom (%s nodes); the limit is %s",
+		return fmt.Errorf("%w: %s free degrees of freedom (%s nodes); the limit is %s",
 			ErrTooLarge, thousands(n), thousands(len(mo.Nodes)), thousands(MaxEquations))
 	}
 	return nil
@@ -60,7 +60,7 @@ func storage(mo *Model, n, band int) float64 {
 // checkStorage refuses a system that would need more than MaxStorage values.
 func checkStorage(mo *Model, n, band int) error {
 	if s := storage(mo, n, band); s > MaxStorage {
-		return fmt.Errorf("frame: %w: solving needs about %s of memory (%s equations, half-bandwidth %s, %d load cases); the limit is %s",
+		return fmt.Errorf("%w: solving needs about %s of memory (%s equations, half-bandwidth %s, %d load cases); the limit is %s",
 			ErrTooLarge, bytesText(8*s), thousands(n), thousands(band), len(mo.Cases), bytesText(8*MaxStorage))
 	}
 	return nil

@@ -19,7 +19,7 @@ func TestModelsPastTheLimitsAreRefused(t *testing.T) {
 			model: func() *Model {
 				return &Model{Nodes: make([]Node, MaxEquations/3+1)}
 			},
-			want: "frame: model too large: 1,000,002 free degrees of freedom (333,334 nodes); the limit is 1,000,000",
+			want: "the model is too large: 1,000,002 free degrees of freedom (333,334 nodes); the limit is 1,000,000",
 		},
 		{
 			// A star: one hub joined to 12,000 pinned feet. Every foot's
@@ -38,7 +38,7 @@ func TestModelsPastTheLimitsAreRefused(t *testing.T) {
 				}
 				return mo
 			},
-			want: "frame: model too large: solving needs about 3.2 GiB of memory (12,003 equations, half-bandwidth 12,001, 0 load cases); the limit is 2.0 GiB",
+			want: "the model is too large: solving needs about 3.2 GiB of memory (12,003 equations, half-bandwidth 12,001, 0 load cases); the limit is 2.0 GiB",
 		},
 	} {
 		t.Run(tc.name, func(t *testing.T) {

@@ -145,12 +145,12 @@ func Solve(mo *Model) (*Solution, error) {
 				return nil, err
 			}
 			if !ok {
-				return nil, fmt.Errorf("frame: %w (the matrix is not positive definite although no mechanism was found); %s", ErrIllConditioned, illAdvice)
+				return nil, fmt.Errorf("%w (the matrix is not positive definite although no mechanism was found); %s", ErrIllConditioned, illAdvice)
 			}
 		}
 		sol.cond = cond
 		if !(cond <= refuseCond) {
-			return nil, fmt.Errorf("frame: %w: estimated condition number %.2g, so the results would carry no correct digit; %s", ErrIllConditioned, cond, illAdvice)
+			return nil, fmt.Errorf("%w: estimated condition number %.2g, so the results would carry no correct digit; %s", ErrIllConditioned, cond, illAdvice)
 		}
 		if cond > warnCond {
 			sol.warnings = append(sol.warnings, fmt.Sprintf("the stiffness matrix is ill-conditioned: estimated condition number %.2g, so results may have lost about %.0f of their 16 significant digits; %s",
@@ -222,7 +222,7 @@ func (sol *Solution) checkFinite() error {
 		for _, v := range [][]float64{sol.disp[c*3*nn : (c+1)*3*nn], sol.end[c*6*nm : (c+1)*6*nm], sol.reac[c*3*nn : (c+1)*3*nn]} {
 			for _, x := range v {
 				if !finite(x) {
-					return fmt.Errorf("frame: case %q: %w (the arithmetic overflowed); check that loads, E, A and I are in the declared units", sol.model.Cases[c].Name, ErrNotFinite)
+					return fmt.Errorf("case %q: %w (the arithmetic overflowed); check that loads, E, A and I are in the declared units", sol.model.Cases[c].Name, ErrNotFinite)
 				}
 			}
 		}

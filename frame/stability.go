@@ -92,7 +92,7 @@ var dirNames = [3]string{"ux", "uy", "rz"}
 
 // ErrIllConditioned is wrapped by the error Solve returns when the stiffness
 // matrix is so ill-conditioned that the results would carry no correct digits.
-var ErrIllConditioned = errors.New("stiffness matrix is too ill-conditioned to solve")
+var ErrIllConditioned = errors.New("the stiffness matrix is too ill-conditioned to solve")
 
 // A Cholesky pivot counts as zero, its degree of freedom held by nothing but
 // round-off, when it is below pivotTol of its own diagonal or below

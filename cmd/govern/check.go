@@ -3,6 +3,7 @@ package main
 import (
 	"flag"
 	"fmt"
+	"path/filepath"
 
 	"govern/frame"
 )
@@ -28,17 +29,18 @@ See docs/errors.md.`,
 		if err != nil {
 			return err
 		}
+		name := filepath.Base(args[0])
 		if err := checkSize(job, &runFlags{}); err != nil {
-			return err
+			return fmt.Errorf("%s: %w", name, err)
 		}
 		mo := job.Model
 		// The stiffness of the frame alone: its factorization finds a
 		// mechanism and estimates the condition number.
 		stiff, err := frame.Solve(&frame.Model{Nodes: mo.Nodes, Sections: mo.Sections, Members: mo.Members})
 		if err != nil {
-			return err
+			return fmt.Errorf("%s: %w", name, err)
 		}
-		env.warn(stiff.Warnings())
+		env.warn(name, stiff.Warnings())
 		info := stiff.Info()
 		w := env.stdout
 		if job.Title != "" {

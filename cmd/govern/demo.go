@@ -55,13 +55,13 @@ edit; an existing file is not overwritten.`,
 			return err
 		}
 		if err := checkSize(job, &f.runFlags); err != nil {
-			return err
+			return fmt.Errorf("demo.toml: %w", err)
 		}
 		a, err := analyse(job)
 		if err != nil {
-			return err
+			return fmt.Errorf("demo.toml: %w", err)
 		}
-		env.warn(a.sol.Warnings())
+		env.warn("demo.toml", a.sol.Warnings())
 		return a.report(env.stdout, "", &f.runFlags)
 	},
 }

@@ -33,10 +33,11 @@ type environ struct {
 	name           string // "govern run", for messages
 }
 
-// warn prints each warning to stderr, prefixed with the command name.
-func (env *environ) warn(ws []string) {
+// warn prints each warning about the model file named model to stderr,
+// prefixed with the command name.
+func (env *environ) warn(model string, ws []string) {
 	for _, w := range ws {
-		fmt.Fprintf(env.stderr, "%s: warning: %s\n", env.name, w)
+		fmt.Fprintf(env.stderr, "%s: warning: %s: %s\n", env.name, model, w)
 	}
 }
 

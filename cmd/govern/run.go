@@ -4,6 +4,7 @@ import (
 	"flag"
 	"fmt"
 	"io"
+	"path/filepath"
 )
 
 type runFlags struct {
@@ -51,13 +52,14 @@ the signs.`,
 			return err
 		}
 		if err := checkSize(job, f); err != nil {
-			return err
+			return fmt.Errorf("%s: %w", filepath.Base(args[0]), err)
 		}
+		name := filepath.Base(args[0])
 		a, err := analyse(job)
 		if err != nil {
-			return err
+			return fmt.Errorf("%s: %w", name, err)
 		}
-		env.warn(a.sol.Warnings())
+		env.warn(name, a.sol.Warnings())
 		return a.report(env.stdout, args[0], f)
 	},
 }

@@ -162,9 +162,11 @@ func (r *reader) checkPositions(top *table) {
 	for _, e := range r.rawEnds(top) {
 		joins[[2]int{min(e[0], e[1]), max(e[0], e[1])}] = true
 	}
-	idx := make([]int, len(mo.Nodes))
-	for i := range idx {
-		idx[i] = i
+	var idx []int
+	for i, nd := range mo.Nodes {
+		if !math.IsNaN(nd.X) && !math.IsNaN(nd.Y) { // NaN: already reported
+			idx = append(idx, i)
+		}
 	}
 	sort.Slice(idx, func(a, b int) bool {
 		p, q := mo.Nodes[idx[a]], mo.Nodes[idx[b]]

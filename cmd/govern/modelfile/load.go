@@ -10,10 +10,12 @@ import (
 func (r *reader) readLoad(t *table, c *frame.Case) {
 	defer t.done()
 	if !t.need("type") {
+		t.skipRest() // which keys belong cannot be told
 		return
 	}
 	typ := t.str("type", "")
 	if !t.oneOf("type", typ, "udl", "point", "area", "node") {
+		t.skipRest() // which keys belong cannot be told
 		return
 	}
 	mo := r.job.Model

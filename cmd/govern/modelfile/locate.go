@@ -102,6 +102,7 @@ func nonEmpty(s ...string) []string {
 }
 
 // line returns the line of key in block, else of key in an inline table of
+// block, else of the header of a table or array of tables named key in
 // block, else the block's header line.
 func (l *locator) line(block, key string) int {
 	if key != "" {
@@ -110,6 +111,11 @@ func (l *locator) line(block, key string) int {
 		}
 		if n, ok := l.inline[block][key]; ok {
 			return n
+		}
+		for _, sub := range []string{key, elem(key, 0)} {
+			if n, ok := l.header[blockPath(nonEmpty(block, sub)...)]; ok {
+				return n
+			}
 		}
 	}
 	return l.header[block]
@@ -135,17 +141,22 @@ func lineBounds(src string, n int) (start, end int, ok bool) {
 	return start, end, true
 }
 
-// syntaxOffset returns the byte offset of a parse error: its Start when that
-// lies on its line, else the line start plus its (byte) column.
-func syntaxOffset(src string, p toml.Position) int {
+// syntaxPosition returns the line and byte offset of a parse error. The
+// parser's byte offset is trusted over its line count, which goes wrong in
+// files with CRLF line ends; an error at the very end of a file that ends
+// in a newline is placed at the end of its last line.
+func syntaxPosition(src string, p toml.Position) (line, off int) {
+	if s := p.Start; s >= 0 && s <= len(src) {
+		if s == len(src) && s > 0 && src[s-1] == '\n' {
+			s--
+		}
+		return 1 + strings.Count(src[:s], "\n"), s
+	}
 	start, end, ok := lineBounds(src, p.Line)
 	if !ok {
-		return 0
+		return p.Line, 0
 	}
-	if p.Start >= start && p.Start <= end {
-		return p.Start
-	}
-	return min(start+max(p.Col-1, 0), end)
+	return p.Line, min(start+max(p.Col-1, 0), end)
 }
 
 // excerptWidth is the most characters of a line an excerpt shows.

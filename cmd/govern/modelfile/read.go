@@ -50,8 +50,9 @@ func Read(name string, src []byte) (*Job, error) {
 	if _, err := toml.Decode(text, &raw); err != nil {
 		var pe toml.ParseError
 		if errors.As(err, &pe) {
-			col, ex := excerpt(text, pe.Position.Line, syntaxOffset(text, pe.Position))
-			return nil, Errors{{File: name, Line: pe.Position.Line, Column: col,
+			line, off := syntaxPosition(text, pe.Position)
+			col, ex := excerpt(text, line, off)
+			return nil, Errors{{File: name, Line: line, Column: col,
 				Err: problem(ErrSyntax, "%s%s", pe.Message, ex)}}
 		}
 		return nil, Errors{{File: name, Err: problem(ErrSyntax, "%v", err)}}
@@ -257,7 +258,8 @@ func (r *reader) readNodes(ts []*table) {
 		}
 		has := t.need("x")
 		has = t.need("y") && has
-		nd := frame.Node{Name: name, X: t.num("x", 0), Y: t.num("y", 0), Support: r.support(t, frame.Free)}
+		// An invalid coordinate is NaN, so that no check compares with it.
+		nd := frame.Node{Name: name, X: t.num("x", math.NaN()), Y: t.num("y", math.NaN()), Support: r.support(t, frame.Free)}
 		if has {
 			r.nodes[name] = len(mo.Nodes)
 			r.noteNode(len(mo.Nodes), t)

@@ -244,6 +244,15 @@ func (t *table) array(key string, where func(i int, m map[string]any) string) []
 	return out
 }
 
+// skipRest marks every key of the table as read, so that done reports
+// none: for a table whose kind is unknown, where which keys belong to it
+// cannot be told.
+func (t *table) skipRest() {
+	for k := range t.m {
+		t.used[k] = true
+	}
+}
+
 // done reports every key of the table that was not read, suggesting the
 // nearest known key when one is close.
 func (t *table) done() {

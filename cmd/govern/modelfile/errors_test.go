@@ -1,0 +1,299 @@
+package modelfile
+
+import (
+	"errors"
+	"fmt"
+	"strings"
+	"testing"
+)
+
+// sound is a small valid model: a beam a-b fixed at both ends with a point
+// load. Each bad input below is an edit of it; the line numbers in the
+// expected messages count its lines:
+//
+//	 1 [[section]]    6 [[node]]   11 [[node]]   16 [[member]]   20 [[case]]
+//	23 [[case.load]] 28 [[combination]]
+const sound = `[[section]]
+name = "S"
+E = 200e6
+A = 0.01
+I = 1e-4
+[[node]]
+name = "a"
+x = 0
+y = 0
+support = "fixed"
+[[node]]
+name = "b"
+x = 5
+y = 0
+support = "fixed"
+[[member]]
+start = "a"
+end = "b"
+section = "S"
+[[case]]
+name = "G"
+kind = "dead"
+  [[case.load]]
+  type = "point"
+  on = "a-b"
+  P = 2
+  at = 1
+[[combination]]
+name = "1.4G"
+factors = { G = 1.4 }
+`
+
+// edits applies old → new replacements, in pairs, to sound.
+func edits(t *testing.T, pairs ...string) string {
+	t.Helper()
+	src := sound
+	for i := 0; i+1 < len(pairs); i += 2 {
+		if !strings.Contains(src, pairs[i]) {
+			t.Fatalf("edit %q not applied", pairs[i])
+		}
+		src = strings.Replace(src, pairs[i], pairs[i+1], 1)
+	}
+	return src
+}
+
+func TestSoundModelReads(t *testing.T) {
+	if _, err := Read("m.toml", []byte(sound)); err != nil {
+		t.Fatal(err)
+	}
+}
+
+// TestReadBadInput covers, one by one, the bad inputs of the reading and
+// validation rules (docs/errors.md): each gives exactly the message shown,
+// with its line (and column for syntax), and wraps the sentinel named.
+func TestReadBadInput(t *testing.T) {
+	for _, tc := range []struct {
+		name     string
+		edit     []string // old, new, old, new, …
+		src      string   // the whole file, when edit is nil
+		want     string
+		sentinel error
+	}{
+		// Syntax: file, line, column, the line and a marker under the column.
+		{name: "syntax: value missing", edit: []string{"x = 5", "x = "},
+			want: "m.toml:13:5: expected value but found '\\n' instead\n    x = \n        ^", sentinel: ErrSyntax},
+		{name: "syntax: column counts characters and the marker keeps tabs", src: "title = \"Träger\"\n\tx = \"Stütze\n",
+			want: "m.toml:2:13: strings cannot contain newlines\n    \tx = \"Stütze\n    \t           ^", sentinel: ErrSyntax},
+		{name: "syntax: CRLF line ends", src: "title = \"a\"\r\nx = [1,\r\n",
+			want: "m.toml:2:8: unexpected EOF; expected value\n    x = [1,\n           ^", sentinel: ErrSyntax},
+		{name: "syntax: a key given twice", edit: []string{"y = 0\nsupport = \"fixed\"\n[[member]]", "y = 0\ny = 1\n[[member]]"},
+			want: "m.toml:15:1: Key 'node.y' has already been defined.\n    y = 1\n    ^", sentinel: ErrSyntax},
+		{name: "syntax: control characters are shown as '?'", src: "title = \"a\x01b\nx = 1\n",
+			want: "m.toml:1:10: TOML files cannot contain control characters: '0x01'\n    title = \"a?b\n             ^", sentinel: ErrSyntax},
+		{name: "syntax: nesting deeper than the format allows", src: "a = " + strings.Repeat("{b=", 40) + "1" + strings.Repeat("}", 40) + "\n",
+			// The 17th brace, at column 53; a long line is cut around it.
+			want: "m.toml:1:53: arrays, inline tables or table names nested deeper than the format allows\n    …= " + strings.Repeat("{b=", 32) + "{b…\n    " + strings.Repeat(" ", 51) + "^", sentinel: ErrSyntax},
+		{name: "syntax: dotted key of too many parts", src: "a" + strings.Repeat(" . a", 16) + " = 1\n",
+			want: "m.toml:1:63: a dotted key or table name of more parts than the format allows\n    a . a . a . a . a . a . a . a . a . a . a . a . a . a . a . a . a = 1\n                                                                  ^", sentinel: ErrSyntax},
+
+		// Keys the format does not know, with the table they sit in.
+		{name: "unknown key in a load, with a likely misspelling", edit: []string{"  at = 1", "  at = 1\n  dirction = \"x\""},
+			want: `m.toml:28: case "G", load 1: unknown key "dirction" (did you mean "direction"?)`, sentinel: ErrUnknownKey},
+		{name: "unknown key with nothing close", edit: []string{"I = 1e-4", "I = 1e-4\ncolour = \"red\""},
+			want: `m.toml:6: section "S": unknown key "colour"`, sentinel: ErrUnknownKey},
+		{name: "unknown table at the top level", edit: []string{"[[section]]", "[analysys]\nstations = 3\n[[section]]"},
+			want: `m.toml:1: unknown key "analysys" (did you mean "analysis"?) at the top level`, sentinel: ErrUnknownKey},
+		{name: "unknown array of tables at the top level", edit: []string{"[[combination]]", "[[combinaton]]"},
+			want: "m.toml:28: unknown key \"combinaton\" (did you mean \"combination\"?) at the top level", sentinel: ErrUnknownKey},
+
+		// Types: the key and the type expected.
+		{name: "number given as a string", edit: []string{"E = 200e6", `E = "200e6"`},
+			want: `m.toml:3: section "S": E must be a number, not a string`, sentinel: ErrType},
+		{name: "integer expected", edit: []string{"[[section]]", "[analysis]\nstations = 5.5\n[[section]]"},
+			want: `m.toml:2: [analysis]: stations must be an integer, not a number`, sentinel: ErrType},
+		{name: "boolean expected", edit: []string{`kind = "dead"`, "kind = \"dead\"\nself_weight = \"yes\""},
+			want: `m.toml:23: case "G": self_weight must be true or false, not a string`, sentinel: ErrType},
+		{name: "string or array expected for a selector", edit: []string{`on = "a-b"`, `on = 3`},
+			want: `m.toml:25: case "G", load 1: on must be a string or an array of strings, not an integer`, sentinel: ErrType},
+		{name: "factor of the wrong type, at its line", edit: []string{"factors = { G = 1.4 }", "\nfactors = { G = \"1.4\" }"},
+			want: `m.toml:31: combination "1.4G": G must be a number, not a string`, sentinel: ErrType},
+
+		// References.
+		{name: "unknown node", edit: []string{`end = "b"`, `end = "c"`},
+			want: `m.toml:18: member 1: end = "c": no such node`, sentinel: ErrReference},
+		{name: "unknown section, with a likely misspelling", edit: []string{"[[section]]\nname = \"S\"", "[[section]]\nname = \"IPE300\"", `section = "S"`, `section = "IPE 300"`},
+			want: `m.toml:19: member 1: section = "IPE 300": no such section (did you mean "IPE300"?)`, sentinel: ErrReference},
+		{name: "unknown case in a combination", edit: []string{"{ G = 1.4 }", "{ G = 1.2, Q = 1.6 }"},
+			want: `m.toml:30: combination "1.4G": factors: no case named "Q"`, sentinel: ErrReference},
+		{name: "unknown member in a selector", edit: []string{`on = "a-b"`, `on = "a_b"`},
+			want: `m.toml:25: case "G", load 1: selector "a_b": no member of that name, and not one of "level N", "roof", "line A", "all beams", "all columns" (did you mean "a-b"?)`, sentinel: ErrReference},
+		{name: "unknown node in a node load", edit: []string{"type = \"point\"\n  on = \"a-b\"\n  P = 2\n  at = 1", "type = \"node\"\n  node = \"B\"\n  fy = -2"},
+			want: `m.toml:25: case "G", load 1: node = "B": no such node (did you mean "b"?)`, sentinel: ErrReference},
+		{name: "selector that matches nothing", edit: []string{`on = "a-b"`, `on = "all columns"`},
+			want: `m.toml:25: case "G", load 1: selector "all columns" matches no member`, sentinel: ErrReference},
+
+		// Duplicates.
+		{name: "duplicate section", edit: []string{"[[node]]\nname = \"a\"", "[[section]]\nname = \"S\"\nE = 1\nA = 1\nI = 1\n[[node]]\nname = \"a\""},
+			want: `m.toml:7: section "S": section "S" is defined twice`, sentinel: ErrDuplicate},
+		{name: "duplicate member", edit: []string{"[[case]]", "[[member]]\nname = \"a-b\"\nstart = \"b\"\nend = \"a\"\nsection = \"S\"\n[[case]]"},
+			want: `m.toml:21: member "a-b": member "a-b" is defined twice`, sentinel: ErrDuplicate},
+		{name: "duplicate case", edit: []string{"[[combination]]", "[[case]]\nname = \"G\"\nkind = \"live\"\n[[combination]]"},
+			want: `m.toml:29: case "G": case "G" is defined twice`, sentinel: ErrDuplicate},
+		{name: "duplicate combination", edit: []string{"factors = { G = 1.4 }", "factors = { G = 1.4 }\n[[combination]]\nname = \"1.4G\"\nfactors = { G = 1.2 }"},
+			want: `m.toml:32: combination "1.4G": combination "1.4G" is defined twice`, sentinel: ErrDuplicate},
+		{name: "two members joining the same nodes", edit: []string{"[[case]]", "[[member]]\nname = \"twin\"\nstart = \"b\"\nend = \"a\"\nsection = \"S\"\n[[case]]"},
+			want: `m.toml:23: member "twin": member "twin" joins the same nodes as member "a-b"`, sentinel: ErrDuplicate},
+		{name: "two nodes at one position", edit: []string{"[[member]]", "[[node]]\nname = \"c\"\nx = 5.0\ny = 0\n[[member]]\nstart = \"a\"\nend = \"c\"\nsection = \"S\"\n[[member]]"},
+			want: `m.toml:18: node "c": node "c" is at the same position (5, 0) as node "b"`, sentinel: ErrDuplicate},
+
+		// Values.
+		{name: "zero-length member", edit: []string{"x = 5\n", "x = 0\n"},
+			want: `m.toml:18: member 1: member "a-b" has zero length`, sentinel: ErrValue},
+		{name: "negative E", edit: []string{"E = 200e6", "E = -200e6"},
+			want: `m.toml:3: section "S": E = -2e+08: must be greater than zero`, sentinel: ErrValue},
+		{name: "zero A", edit: []string{"A = 0.01", "A = 0"},
+			want: `m.toml:4: section "S": A = 0: must be greater than zero`, sentinel: ErrValue},
+		{name: "zero I", edit: []string{"I = 1e-4", "I = 0.0"},
+			want: `m.toml:5: section "S": I = 0: must be greater than zero`, sentinel: ErrValue},
+		{name: "NaN", edit: []string{"E = 200e6", "E = nan"},
+			want: `m.toml:3: section "S": E must be a finite number, not NaN`, sentinel: ErrValue},
+		{name: "infinite coordinate", edit: []string{"x = 5", "x = -inf"},
+			want: `m.toml:13: node "b": x must be a finite number, not -Inf`, sentinel: ErrValue},
+		{name: "infinite load", edit: []string{"P = 2", "P = +inf"},
+			want: `m.toml:26: case "G", load 1: P must be a finite number, not +Inf`, sentinel: ErrValue},
+		{name: "NaN in an array", edit: []string{"[[section]]", "[grid]\nbays = [6.0, nan]\nstoreys = [3.0]\ncolumn = \"S\"\nbeam = \"S\"\n[[section]]"},
+			want: `m.toml:2: [grid]: bays[2] must be a finite number, not NaN`, sentinel: ErrValue},
+		{name: "NaN factor", edit: []string{"{ G = 1.4 }", "{ G = nan }"},
+			want: `m.toml:30: combination "1.4G": G must be a finite number, not NaN`, sentinel: ErrValue},
+		{name: "point load outside its member", edit: []string{"at = 1", "at = 7.5"},
+			want: `m.toml:27: case "G", load 1: member "a-b": at = 7.5 is outside the member (length 5)`, sentinel: ErrValue},
+		{name: "partial load outside its member", edit: []string{"type = \"point\"\n  on = \"a-b\"\n  P = 2\n  at = 1", "type = \"udl\"\n  on = \"a-b\"\n  w = 2\n  from = 2\n  to = 6"},
+			want: `m.toml:27: case "G", load 1: member "a-b": from = 2, to = 6 is not a part of the member (length 5)`, sentinel: ErrValue},
+		{name: "partial load running backwards", edit: []string{"type = \"point\"\n  on = \"a-b\"\n  P = 2\n  at = 1", "type = \"udl\"\n  on = \"a-b\"\n  w = 2\n  from = 3\n  to = 1"},
+			want: `m.toml:27: case "G", load 1: member "a-b": from = 3, to = 1 is not a part of the member (length 5)`, sentinel: ErrValue},
+		{name: "combination with no factors", edit: []string{"{ G = 1.4 }", "{}"},
+			want: `m.toml:30: combination "1.4G": factors is empty: a combination needs at least one case`, sentinel: ErrValue},
+		{name: "grid with no bays", edit: []string{"[[section]]", "[grid]\nbays = []\nstoreys = [3.0]\ncolumn = \"S\"\nbeam = \"S\"\n[[section]]"},
+			want: `m.toml:2: [grid]: bays is empty: give at least one bay width`, sentinel: ErrValue},
+		{name: "grid with no storeys", edit: []string{"[[section]]", "[grid]\nbays = [6.0]\nstoreys = []\ncolumn = \"S\"\nbeam = \"S\"\n[[section]]"},
+			want: `m.toml:3: [grid]: storeys is empty: give at least one storey height`, sentinel: ErrValue},
+		{name: "node joined to no member", edit: []string{"[[member]]", "[[node]]\nname = \"c\"\nx = 9\ny = 0\n[[member]]"},
+			want: `m.toml:17: node "c": node "c" is not joined to any member`, sentinel: ErrValue},
+
+		// Missing pieces.
+		{name: "empty model", src: "",
+			want: `m.toml: the model is empty: give a [grid] or [[node]] and [[member]] tables, and [[case]] tables (see docs/model-format.md)`, sentinel: ErrMissing},
+		{name: "model without load cases", edit: []string{"[[case]]\nname = \"G\"\nkind = \"dead\"\n  [[case.load]]\n  type = \"point\"\n  on = \"a-b\"\n  P = 2\n  at = 1\n[[combination]]\nname = \"1.4G\"\nfactors = { G = 1.4 }\n", ""},
+			want: `m.toml: the model has no load cases: give at least one [[case]]`, sentinel: ErrMissing},
+		{name: "required key missing", edit: []string{"  P = 2\n", ""},
+			want: `m.toml:23: case "G", load 1: P is required`, sentinel: ErrMissing},
+
+		// Limits.
+		{name: "grid past a million degrees of freedom", edit: []string{"[[section]]", "[grid]\nbays = [" + strings.Repeat("1.0, ", 999) + "1.0]\nstoreys = [" + strings.Repeat("1.0, ", 399) + "1.0]\ncolumn = \"S\"\nbeam = \"S\"\n[[section]]"},
+			want: `m.toml:1: [grid]: 1001 column lines × 401 levels make 401,401 nodes with 1,201,200 free degrees of freedom; the limit is 1,000,000`, sentinel: ErrTooLarge},
+		{name: "file past the size limit", src: "title = \"" + strings.Repeat("x", MaxFileSize) + "\"\n",
+			want: fmt.Sprintf("m.toml: the file is %d bytes; the limit is %d (64 MiB)", MaxFileSize+11, MaxFileSize), sentinel: ErrTooLarge},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			src := tc.src
+			if tc.edit != nil {
+				src = edits(t, tc.edit...)
+			}
+			_, err := Read("m.toml", []byte(src))
+			if err == nil {
+				t.Fatal("no error")
+			}
+			if got := err.Error(); got != tc.want {
+				t.Errorf("error\n got: %s\nwant: %s", got, tc.want)
+			}
+			if !errors.Is(err, tc.sentinel) {
+				t.Errorf("error does not wrap %v", tc.sentinel)
+			}
+		})
+	}
+}
+
+func TestReadReportsProblemsInEverySectionAtOnce(t *testing.T) {
+	src := edits(t,
+		"[[section]]", "titel = \"x\"\n[units]\nforce = 1\n[analysis]\nstations = 0\n[[section]]",
+		"E = 200e6", "E = -1.0",
+		"support = \"fixed\"\n[[member]]", "suport = \"fixed\"\n[[member]]",
+		`section = "S"`, `section = "T"`,
+		"kind = \"dead\"", "kind = \"permanent\"",
+		"at = 1", "at = 9",
+		"{ G = 1.4 }", "{ Q = 1.4 }",
+	)
+	_, err := Read("m.toml", []byte(src))
+	var es Errors
+	if !errors.As(err, &es) {
+		t.Fatalf("err = %v, want Errors", err)
+	}
+	want := []string{
+		`m.toml:1: unknown key "titel" (did you mean "title"?) at the top level`,
+		`m.toml:3: [units]: force must be a string, not an integer`,
+		`m.toml:5: [analysis]: stations = 0: need at least 2 (both ends of each member)`,
+		`m.toml:8: section "S": E = -1: must be greater than zero`,
+		`m.toml:20: node "b": unknown key "suport" (did you mean "support"?)`,
+		`m.toml:24: member 1: section = "T": no such section`,
+		`m.toml:27: case "G": kind = "permanent": must be one of "dead", "live", "roof-live", "snow", "rain", "wind", "seismic", "other"`,
+		`m.toml:35: combination "1.4G": factors: no case named "Q"`,
+	}
+	if got := strings.Split(err.Error(), "\n"); strings.Join(got, "\n") != strings.Join(want, "\n") {
+		t.Errorf("problems\n got: %s\nwant: %s", strings.Join(got, "\n      "), strings.Join(want, "\n      "))
+	}
+}
+
+func TestReadListsAtMostMaxProblems(t *testing.T) {
+	var b strings.Builder
+	b.WriteString(sound)
+	const extra = MaxProblems + 25
+	for i := range extra {
+		fmt.Fprintf(&b, "[[node]]\nname = \"n%d\"\nx = %d\ny = 1\nsuport = \"free\"\n", i, i)
+	}
+	_, err := Read("m.toml", []byte(b.String()))
+	var es Errors
+	if !errors.As(err, &es) {
+		t.Fatalf("err = %v", err)
+	}
+	if len(es) != MaxProblems+1 {
+		t.Fatalf("%d problems listed, want %d and a count", len(es), MaxProblems)
+	}
+	// Each extra node has an unknown key and is joined to no member.
+	want := fmt.Sprintf("m.toml: %d more problems not listed; correct these first", 2*extra-MaxProblems)
+	if got := es[MaxProblems].Error(); got != want || !errors.Is(es[MaxProblems], ErrTooMany) {
+		t.Errorf("last = %q, want %q", got, want)
+	}
+}
+
+func TestMemberLoadBudget(t *testing.T) {
+	r := &reader{file: "m.toml", loc: newLocator(sound)}
+	tb := r.table(map[string]any{}, "case[0].load[0]", `case "G", load 1`)
+	r.memberLoads = MaxMemberLoads - 2
+	if !r.budget(tb, "on", 2) {
+		t.Fatal("refused loads within the limit")
+	}
+	for range 2 {
+		if r.budget(tb, "on", 1) {
+			t.Fatal("accepted loads past the limit")
+		}
+	}
+	if len(r.errs) != 1 {
+		t.Fatalf("%d problems, want 1 (reported once): %v", len(r.errs), r.errs)
+	}
+	want := `m.toml:25: case "G", load 1: more than 5,000,000 member loads (each member a selector picks, and each member a self weight loads, counts as one); the limit is 5,000,000`
+	if got := r.errs[0].Error(); got != want {
+		t.Errorf("error\n got: %s\nwant: %s", got, want)
+	}
+}
+
+func TestEveryValidateCheckIsMadeByTheReader(t *testing.T) {
+	// frame.Model.Validate runs only when the reader found nothing; a model
+	// the reader accepts must therefore satisfy it, or its problems would
+	// come without a line. The checks it makes each have a reader test
+	// above; here the accepted models are run through it.
+	for _, src := range []string{sound, gridModel} {
+		job, err := Read("m.toml", []byte(src))
+		if err != nil {
+			t.Fatal(err)
+		}
+		if err := job.Model.Validate(); err != nil {
+			t.Errorf("reader accepted a model Validate rejects: %v", err)
+		}
+	}
+}
