@@ -60,8 +60,12 @@ func storage(mo *Model, n, band int) float64 {
 // checkStorage refuses a system that would need more than MaxStorage values.
 func checkStorage(mo *Model, n, band int) error {
 	if s := storage(mo, n, band); s > MaxStorage {
-		return fmt.Errorf("%w: solving needs about %s of memory (%s equations, half-bandwidth %s, %d load cases); the limit is %s",
-			ErrTooLarge, bytesText(8*s), thousands(n), thousands(band), len(mo.Cases), bytesText(8*MaxStorage))
+		cases := fmt.Sprintf("%d load cases", len(mo.Cases))
+		if len(mo.Cases) == 1 {
+			cases = "1 load case"
+		}
+		return fmt.Errorf("%w: solving needs about %s of memory (%s equations, half-bandwidth %s, %s); the limit is %s",
+			ErrTooLarge, bytesText(8*s), thousands(n), thousands(band), cases, bytesText(8*MaxStorage))
 	}
 	return nil
 }

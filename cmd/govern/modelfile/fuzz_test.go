@@ -1,0 +1,86 @@
+package modelfile
+
+import (
+	"bytes"
+	"errors"
+	"os"
+	"path/filepath"
+	"testing"
+
+	"govern/envelope"
+	"govern/frame"
+)
+
+// sentinels are the errors every reported problem wraps.
+var sentinels = []error{ErrSyntax, ErrUnknownKey, ErrType, ErrMissing, ErrValue, ErrReference, ErrDuplicate, ErrTooLarge, ErrTooMany}
+
+// fuzzSolveLimit bounds the models the fuzz target goes on to solve, so
+// that each input stays fast.
+const fuzzSolveLimit = 300
+
+// FuzzRead feeds the reader and validator arbitrary files, seeded with the
+// models of the test suite, the demonstration model and the bad models of
+// testdata. No input may panic or hang. A rejected file must come back as
+// a list of problems, each with the file name, a line within the file and
+// one of the sentinels; an accepted one must pass frame.Model.Validate, and
+// a small one is solved and enveloped, where the only errors allowed are
+// those that describe the model (a mechanism, a size limit, conditioning).
+func FuzzRead(f *testing.F) {
+	f.Add([]byte(sound))
+	f.Add([]byte(gridModel))
+	seeds := []string{filepath.Join("..", "demo.toml")}
+	for _, pattern := range []string{"*.toml", filepath.Join("bad", "*.toml")} {
+		m, _ := filepath.Glob(filepath.Join("..", "..", "..", "testdata", pattern))
+		seeds = append(seeds, m...)
+	}
+	for _, p := range seeds {
+		src, err := os.ReadFile(p)
+		if err != nil {
+			f.Fatal(err)
+		}
+		if len(src) < 1<<16 { // the large generated grids add nothing but time
+			f.Add(src)
+		}
+	}
+	f.Fuzz(func(t *testing.T, src []byte) {
+		job, err := Read("f.toml", src)
+		if err != nil {
+			var es Errors
+			if !errors.As(err, &es) || len(es) == 0 {
+				t.Fatalf("error is not a list of problems: %v", err)
+			}
+			lines := bytes.Count(src, []byte("\n")) + 1
+			for _, e := range es {
+				if e.File != "f.toml" || e.Line < 0 || e.Line > lines {
+					t.Fatalf("problem at %s:%d of a file of %d lines: %v", e.File, e.Line, lines, e)
+				}
+				known := false
+				for _, s := range sentinels {
+					known = known || errors.Is(e, s)
+				}
+				if !known {
+					t.Fatalf("problem wraps no sentinel: %v", e)
+				}
+			}
+			return
+		}
+		mo := job.Model
+		if err := mo.Validate(); err != nil {
+			t.Fatalf("accepted a model that Validate rejects: %v", err)
+		}
+		if len(mo.Nodes) > fuzzSolveLimit || len(mo.Members) > fuzzSolveLimit || len(mo.Cases) > 20 || len(job.Combinations) > 50 {
+			return
+		}
+		sol, err := frame.Solve(mo)
+		if err != nil {
+			var me *frame.MechanismError
+			if !errors.As(err, &me) && !errors.Is(err, frame.ErrTooLarge) && !errors.Is(err, frame.ErrIllConditioned) && !errors.Is(err, frame.ErrNotFinite) {
+				t.Fatalf("Solve failed on an accepted model: %v", err)
+			}
+			return
+		}
+		if _, err := envelope.Compute(sol, job.Combinations, job.Settings); err != nil {
+			t.Fatalf("envelope failed on an accepted model: %v", err)
+		}
+	})
+}
