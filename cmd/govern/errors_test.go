@@ -9,6 +9,9 @@ import (
 	"path/filepath"
 	"strings"
 	"testing"
+
+	"govern/cmd/govern/modelfile"
+	"govern/frame"
 )
 
 var update = flag.Bool("update", false, "rewrite the golden files of testdata/bad")
@@ -240,5 +243,85 @@ func TestTwoRunsGiveIdenticalBytes(t *testing.T) {
 				t.Errorf("run %d: %s differs from the first run", run+1, what)
 			}
 		}
+	}
+}
+
+func TestCheckReportsStability(t *testing.T) {
+	job, err := modelfile.Read("demo.toml", demoModel)
+	if err != nil {
+		t.Fatal(err)
+	}
+	sol, err := frame.Solve(job.Model)
+	if err != nil {
+		t.Fatal(err)
+	}
+	code, out, stderr := exec("check", writeDemo(t))
+	if code != 0 || stderr != "" {
+		t.Fatalf("exit %d: %s", code, stderr)
+	}
+	// The condition number depends on the stiffness alone, not the loads.
+	want := fmt.Sprintf("stability:      no mechanism; estimated condition number %.2g\n", sol.Cond())
+	if !strings.Contains(out, want) {
+		t.Errorf("check output lacks %q:\n%s", want, out)
+	}
+}
+
+func TestOutputSizeLimits(t *testing.T) {
+	// 20 bays × 24 storeys: 21 × 24 columns and 20 × 24 beams, 984 members;
+	// at 1001 stations, 984,984 station values, under maxPoints.
+	src := fmt.Sprintf(`[analysis]
+stations = 1001
+[grid]
+bays = [%s6.0]
+storeys = [%s3.5]
+column = "S"
+beam = "S"
+[[section]]
+name = "S"
+E = 200e6
+A = 7.8e-3
+I = 1.2e-4
+[[case]]
+name = "D"
+kind = "dead"
+[[case]]
+name = "L"
+kind = "live"
+[[combination]]
+name = "1.2D+1.6L+0.5Lr"
+factors = { D = 1.2, L = 1.6 }
+`, strings.Repeat("6.0, ", 19), strings.Repeat("3.5, ", 23))
+	job, err := modelfile.Read("big.toml", []byte(src))
+	if err != nil {
+		t.Fatal(err)
+	}
+	if err := checkSize(job, &runFlags{csv: "env.csv"}); err != nil {
+		t.Errorf("CSV refused: %v", err)
+	}
+	// JSON: 984,984 × (450 + 6 × 17) bytes, the name being 17 characters
+	// as a JSON string, plus 984 × (120 + 3 × 9) for the members.
+	want := fmt.Sprintf("the JSON output would be about %d MiB; the limit is 512 MiB: use fewer stations", (984984*(450+6*17)+984*(120+3*9)+1<<20-1)>>20)
+	if err := checkSize(job, &runFlags{json: "env.json"}); err == nil || err.Error() != want {
+		t.Errorf("err = %v, want %s", err, want)
+	}
+	job.Settings.Stations = 1017 // 1,000,728 station values
+	want = "the envelopes would hold 1,000,728 station values (984 members × 1,017 stations); the limit is 1,000,000: use fewer stations"
+	if err := checkSize(job, &runFlags{}); err == nil || err.Error() != want {
+		t.Errorf("err = %v, want %s", err, want)
+	}
+}
+
+func TestCappedWriterStopsAtTheLimit(t *testing.T) {
+	var b bytes.Buffer
+	c := &capped{w: &b, n: maxOutput - 3, what: "JSON"}
+	if _, err := c.Write([]byte("abc")); err != nil {
+		t.Fatalf("write up to the limit: %v", err)
+	}
+	_, err := c.Write([]byte("d"))
+	if !errors.Is(err, errTooLarge) || err.Error() != "output too large: the JSON output passed 512 MiB" {
+		t.Errorf("err = %v", err)
+	}
+	if b.String() != "abc" {
+		t.Errorf("wrote %q", b.String())
 	}
 }

@@ -282,18 +282,44 @@ func TestMemberLoadBudget(t *testing.T) {
 	}
 }
 
+// TestEveryValidateCheckIsMadeByTheReader: frame.Model.Validate runs only
+// when the reader found nothing (docs/errors.md), so each of its checks
+// must be made by the reader too, with a line. For each check of
+// Validate, a file that fails it gets a problem from the reader with a
+// line, and none in Validate's words (which come without one).
 func TestEveryValidateCheckIsMadeByTheReader(t *testing.T) {
-	// frame.Model.Validate runs only when the reader found nothing; a model
-	// the reader accepts must therefore satisfy it, or its problems would
-	// come without a line. The checks it makes each have a reader test
-	// above; here the accepted models are run through it.
-	for _, src := range []string{sound, gridModel} {
-		job, err := Read("m.toml", []byte(src))
-		if err != nil {
-			t.Fatal(err)
-		}
-		if err := job.Model.Validate(); err != nil {
-			t.Errorf("reader accepted a model Validate rejects: %v", err)
-		}
+	for _, tc := range []struct {
+		check string
+		edit  []string
+	}{
+		{"duplicate node name", []string{"[[member]]", "[[node]]\nname = \"a\"\nx = 2\ny = 2\n[[member]]"}},
+		{"node coordinates finite", []string{"y = 0\nsupport = \"fixed\"\n[[member]]", "y = nan\nsupport = \"fixed\"\n[[member]]"}},
+		{"duplicate section name", []string{"[[node]]\nname = \"a\"", "[[section]]\nname = \"S\"\nE = 1\nA = 1\nI = 1\n[[node]]\nname = \"a\""}},
+		{"E positive", []string{"E = 200e6", "E = 0"}},
+		{"A finite", []string{"A = 0.01", "A = inf"}},
+		{"I positive", []string{"I = 1e-4", "I = -1e-4"}},
+		{"weight finite and not negative", []string{"I = 1e-4", "I = 1e-4\nweight = -1"}},
+		{"duplicate member name", []string{"[[case]]", "[[member]]\nname = \"a-b\"\nstart = \"a\"\nend = \"b\"\nsection = \"S\"\n[[case]]"}},
+		{"member length", []string{"x = 5\n", "x = 0\n"}},
+		{"node joined to a member", []string{"[[member]]", "[[node]]\nname = \"c\"\nx = 9\ny = 9\n[[member]]"}},
+		{"duplicate case name", []string{"[[combination]]", "[[case]]\nname = \"G\"\nkind = \"dead\"\n[[combination]]"}},
+		{"point load on its member", []string{"at = 1", "at = -1"}},
+		{"point load finite", []string{"P = 2", "P = nan"}},
+		{"distributed load on its member", []string{"type = \"point\"\n  on = \"a-b\"\n  P = 2\n  at = 1", "type = \"udl\"\n  on = \"a-b\"\n  w = 2\n  to = 9"}},
+		{"distributed load finite", []string{"type = \"point\"\n  on = \"a-b\"\n  P = 2\n  at = 1", "type = \"udl\"\n  on = \"a-b\"\n  w = inf"}},
+		{"node load finite", []string{"type = \"point\"\n  on = \"a-b\"\n  P = 2\n  at = 1", "type = \"node\"\n  node = \"b\"\n  m = -inf"}},
+	} {
+		t.Run(tc.check, func(t *testing.T) {
+			_, err := Read("m.toml", []byte(edits(t, tc.edit...)))
+			var es Errors
+			if !errors.As(err, &es) {
+				t.Fatalf("err = %v, want problems", err)
+			}
+			for _, e := range es {
+				if e.Line == 0 {
+					t.Errorf("problem without a line: %v", e)
+				}
+			}
+		})
 	}
 }
