@@ -78,13 +78,14 @@ func (r *reader) checkModel(top *table) {
 	_, nodes := top.m["node"]
 	_, members := top.m["member"]
 	_, cases := top.m["case"]
-	switch {
-	case !grid && !nodes && !members && !cases:
+	if !grid && !nodes && !members && !cases {
 		r.fail(0, "", problem(ErrMissing, "the model is empty: give a [grid] or [[node]] and [[member]] tables, and [[case]] tables (see docs/model-format.md)"))
 		return
-	case !grid && !nodes:
+	}
+	if !grid && !nodes {
 		r.fail(0, "", problem(ErrMissing, "the model has no nodes: give a [grid] or [[node]] tables"))
-	case !grid && !members:
+	}
+	if !grid && !members {
 		r.fail(0, "", problem(ErrMissing, "the model has no members: give a [grid] or [[member]] tables"))
 	}
 	if !cases {

@@ -127,6 +127,8 @@ func TestReadBadInput(t *testing.T) {
 			want: `m.toml:25: case "G", load 1: node = "B": no such node (did you mean "b"?)`, sentinel: ErrReference},
 		{name: "selector that matches nothing", edit: []string{`on = "a-b"`, `on = "all columns"`},
 			want: `m.toml:25: case "G", load 1: selector "all columns" matches no member`, sentinel: ErrReference},
+		{name: "roof of a model without nodes (found by fuzzing)", src: "[[case]]\nname = \"G\"\nkind = \"dead\"\n[[case.load]]\ntype = \"udl\"\non = [\"roof\"]\nw = 1\n",
+			want: "m.toml: the model has no nodes: give a [grid] or [[node]] tables\nm.toml: the model has no members: give a [grid] or [[member]] tables\nm.toml:6: case \"G\", load 1: selector \"roof\": the model has no nodes, so no levels", sentinel: ErrReference},
 
 		// Duplicates.
 		{name: "duplicate section", edit: []string{"[[node]]\nname = \"a\"", "[[section]]\nname = \"S\"\nE = 1\nA = 1\nI = 1\n[[node]]\nname = \"a\""},

@@ -37,7 +37,7 @@ func LineName(i int) string {
 
 // lineIndex is the inverse of LineName; -1 when s is not letters.
 func lineIndex(s string) int {
-	if s == "" {
+	if s == "" || len(s) > 4 { // four letters are past any grid
 		return -1
 	}
 	n := 0
@@ -186,9 +186,11 @@ func emptyArray(v any) bool {
 }
 
 func distinct(nodes []frame.Node, f func(frame.Node) float64) []float64 {
-	v := make([]float64, len(nodes))
-	for i, n := range nodes {
-		v[i] = f(n)
+	v := make([]float64, 0, len(nodes))
+	for _, n := range nodes {
+		if x := f(n); !math.IsNaN(x) { // NaN: a coordinate already reported
+			v = append(v, x)
+		}
 	}
 	sort.Float64s(v)
 	var out []float64
@@ -223,6 +225,9 @@ func (r *reader) selectMembers(sel string) ([]int, error) {
 		pick = mo.IsColumn
 	case sel == "roof" || (len(f) == 2 && f[0] == "level"):
 		lv := r.levels()
+		if len(lv) == 0 {
+			return nil, fmt.Errorf("selector %q: the model has no nodes, so no levels", sel)
+		}
 		n := len(lv) - 1
 		if sel != "roof" {
 			var err error
@@ -238,6 +243,9 @@ func (r *reader) selectMembers(sel string) ([]int, error) {
 		}
 	case len(f) == 2 && f[0] == "line":
 		ls := r.lines()
+		if len(ls) == 0 {
+			return nil, fmt.Errorf("selector %q: the model has no nodes, so no column lines", sel)
+		}
 		n := lineIndex(f[1])
 		if n < 0 || n >= len(ls) {
 			return nil, fmt.Errorf("selector %q: column lines are A to %s", sel, LineName(len(ls)-1))
