@@ -44,8 +44,7 @@ func AppliedResultant(mo *Model, c int) Resultant {
 		h, mid := (hi-lo)/2, (lo+hi)/2
 		for _, g := range gauss3 {
 			xi := mid + h*g.x
-			w := ld.W + (ld.WEnd-ld.W)*(xi-ld.From)/math.Max(ld.To-ld.From, math.SmallestNonzeroFloat64)
-			at(xi, w*g.w*h)
+			at(xi, ld.IntensityAt(xi)*g.w*h)
 		}
 	}
 	return r

@@ -9,6 +9,7 @@ import (
 	"govern/cmd/govern/modelfile"
 	"govern/envelope"
 	"govern/frame"
+	"govern/patterns"
 )
 
 // loadModel reads and validates the model file at path.
@@ -27,19 +28,30 @@ func loadModel(path string) (*modelfile.Job, error) {
 // analysis is a solved job with its envelopes.
 type analysis struct {
 	job *modelfile.Job
+	lay *patterns.Layout
 	sol *frame.Solution
 	env *envelope.Envelope
 }
 
-// analyse solves every load case of the job and forms the envelopes.
+// analyse places the patterned loads, solves every load case of the job
+// and forms the envelopes.
 func analyse(job *modelfile.Job) (*analysis, error) {
-	sol, err := frame.Solve(job.Model)
+	return analyseWith(job, job.Patterns)
+}
+
+// analyseWith is analyse with the pattern placement mode given.
+func analyseWith(job *modelfile.Job, mode patterns.Mode) (*analysis, error) {
+	lay, err := patterns.Expand(job.Model, job.Patterned, job.Segments, mode)
 	if err != nil {
 		return nil, err
 	}
-	env, err := envelope.Compute(sol, job.Combinations, job.Settings)
+	sol, err := frame.Solve(lay.Model)
 	if err != nil {
 		return nil, err
 	}
-	return &analysis{job: job, sol: sol, env: env}, nil
+	env, err := envelope.Compute(sol, job.Combinations, job.Settings, lay)
+	if err != nil {
+		return nil, err
+	}
+	return &analysis{job: job, lay: lay, sol: sol, env: env}, nil
 }

@@ -4,20 +4,23 @@ import (
 	"flag"
 	"fmt"
 	"io"
+	"strings"
 )
 
 type runFlags struct {
-	json, csv string
+	json, csv       string
+	comparePatterns bool
 }
 
 func addRunFlags(fs *flag.FlagSet, f *runFlags) {
 	fs.StringVar(&f.json, "json", "", "write the envelopes as JSON to `FILE` (- for standard output)")
 	fs.StringVar(&f.csv, "csv", "", "write the envelopes as CSV to `FILE` (- for standard output), one row per member, station and effect")
+	fs.BoolVar(&f.comparePatterns, "compare-patterns", false, "report how far the code pattern arrangements fall short of exact placement, member by member, instead of the envelopes")
 }
 
 var cmdRun = &command{
 	name:  "run",
-	usage: "[--json FILE] [--csv FILE] MODEL.toml",
+	usage: "[--json FILE] [--csv FILE] [--compare-patterns] MODEL.toml",
 	short: "analyse a model and report its envelopes",
 	long: `
 Run reads the model file, solves every load case by the direct stiffness
@@ -25,6 +28,12 @@ method, combines the cases into the model's load combinations and reports,
 for every member, the largest and smallest axial force N, shear V and
 moment M with where along the member they occur and which combination
 governs, then the envelope of every support reaction.
+
+Cases marked pattern = true have their beam loads placed span by span as
+[analysis] patterns says (docs/patterns.md); each extreme then names the
+spans loaded to produce it. With --compare-patterns, run instead reports
+for each member how far the code arrangements fall short of exact
+placement at its worst station, and which spans make the difference.
 
 With --json or --csv the full envelopes, at every station of every member,
 are written to a file as well; flags may come before or after the model path.
@@ -46,11 +55,18 @@ the signs.`,
 		if err != nil {
 			return err
 		}
+		f := opts.(*runFlags)
+		if f.comparePatterns {
+			if f.json != "" || f.csv != "" {
+				return usagef("--compare-patterns writes no files; leave out --json and --csv")
+			}
+			return comparePatterns(env.stdout, job)
+		}
 		a, err := analyse(job)
 		if err != nil {
 			return err
 		}
-		return a.report(env.stdout, args[0], opts.(*runFlags))
+		return a.report(env.stdout, args[0], f)
 	},
 }
 
@@ -99,5 +115,12 @@ func (a *analysis) writeHeading(w io.Writer) {
 	info := a.sol.Info()
 	fmt.Fprintf(w, "%d nodes, %d members, %d equations; %d load cases, %d combinations; %d stations per member; variable loads %s\n",
 		len(mo.Nodes), len(mo.Members), info.Equations, len(mo.Cases), len(a.env.Combinations), a.env.Settings.Stations, variableLoads(a.env.Settings.AsWritten))
+	if len(a.job.Patterned) > 0 {
+		var names []string
+		for _, c := range a.job.Patterned {
+			names = append(names, mo.Cases[c].Name)
+		}
+		fmt.Fprintf(w, "Patterned cases %s: %s placement, %d pieces (%d per beam)\n", strings.Join(names, ", "), a.lay.Mode, len(a.lay.Pieces), a.lay.Segments)
+	}
 	fmt.Fprintf(w, "Units: force %s, length %s. N tension positive; M sagging positive (local -y face in tension); V = dM/dx.\n\n", a.job.Units.Force, a.job.Units.Length)
 }

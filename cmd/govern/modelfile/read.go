@@ -12,6 +12,7 @@ import (
 	"govern/combos"
 	"govern/envelope"
 	"govern/frame"
+	"govern/patterns"
 )
 
 // Units are the labels a model declares for its numbers.
@@ -31,6 +32,12 @@ type Job struct {
 	Combinations []combos.Combination
 	Settings     envelope.Settings
 	Grid         *Grid // nil when the file has no [grid]
+
+	// Pattern loading: the cases marked pattern = true, the pieces per
+	// beam and how they are arranged.
+	Patterned []int
+	Segments  int
+	Patterns  patterns.Mode
 }
 
 // Read parses and validates a model file. name is used in messages only.
@@ -104,6 +111,7 @@ func (r *reader) read(raw map[string]any) *Job {
 		u.done()
 	}
 	job.Settings = envelope.Settings{Stations: 11}
+	job.Segments, job.Patterns = 1, patterns.Exact
 	if a := top.sub("analysis", "[analysis]"); a != nil {
 		job.Settings.Stations = a.integer("stations", 11)
 		if job.Settings.Stations < 2 {
@@ -115,6 +123,15 @@ func (r *reader) read(raw map[string]any) *Job {
 		vl := a.str("variable_loads", "adverse")
 		if a.oneOf("variable_loads", vl, "adverse", "as-written") {
 			job.Settings.AsWritten = vl == "as-written"
+		}
+		job.Segments = a.integer("segments", 1)
+		if job.Segments < 1 || job.Segments > maxSegments {
+			a.fail("segments", problem(ErrValue, "segments = %d: must be 1 to %d", job.Segments, maxSegments))
+			job.Segments = 1
+		}
+		pm := a.str("patterns", "exact")
+		if a.oneOf("patterns", pm, "exact", "code", "full", "exhaustive") {
+			job.Patterns, _ = patterns.ParseMode(pm)
 		}
 		a.done()
 	}
@@ -142,8 +159,12 @@ func (r *reader) read(raw map[string]any) *Job {
 	return job
 }
 
-// maxStations bounds the stations per member.
-const maxStations = 1001
+// maxStations bounds the stations per member, maxSegments the pattern
+// pieces per beam.
+const (
+	maxStations = 1001
+	maxSegments = 20
+)
 
 // named describes element i of an array of tables by its name when it has
 // one, such as `case "L"`, else by its position, such as "case 3".
@@ -347,7 +368,7 @@ var kindWords = []string{"dead", "live", "roof-live", "snow", "rain", "wind", "s
 func (r *reader) readCases(ts []*table) {
 	mo := r.job.Model
 	seen := map[string]bool{}
-	for ci, t := range ts {
+	for _, t := range ts {
 		name := t.str("name", "")
 		if !t.need("name") {
 			t.done()
@@ -376,11 +397,17 @@ func (r *reader) readCases(ts []*table) {
 				}
 			}
 		}
+		if t.boolean("pattern", false) {
+			if c.Kind.Permanent() {
+				t.fail("pattern", problem(ErrValue, "pattern = true: a %s case is permanent and always acts in full; only variable cases are patterned", c.Kind))
+			} else {
+				r.job.Patterned = append(r.job.Patterned, len(mo.Cases))
+			}
+		}
 		loads := t.array("load", func(i int, _ map[string]any) string { return fmt.Sprintf("case %q, load %d", name, i+1) })
 		for _, lt := range loads {
 			r.readLoad(lt, &c)
 		}
-		_ = ci
 		t.done()
 		mo.Cases = append(mo.Cases, c)
 	}
