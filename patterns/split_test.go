@@ -1,6 +1,7 @@
 package patterns
 
 import (
+	"errors"
 	"testing"
 
 	"govern/frame"
@@ -146,5 +147,32 @@ func TestCheckerboardAcrossLevels(t *testing.T) {
 	sp := Spans(mo)
 	if s := sp[len(mo.Members)-1]; s.Level != 2 || s.Number != 2 {
 		t.Errorf("top2 = %+v, want level 2 span 2", s)
+	}
+}
+
+func TestExhaustiveRefusesTooManyPieces(t *testing.T) {
+	mo := level(7)
+	if _, err := Expand(mo, []int{0}, 3, Exhaustive); !errors.Is(err, ErrTooManyPieces) ||
+		err.Error() != `patterns: too many pieces for exhaustive patterns: 21 pieces, at most 20 (2^20 arrangements); use "exact", which gives the same envelope` {
+		t.Errorf("err = %v", err)
+	}
+	if _, err := Expand(mo, []int{0}, 2, Exhaustive); err != nil {
+		t.Errorf("14 pieces: %v", err)
+	}
+}
+
+func TestExpandKeepsTheOriginal(t *testing.T) {
+	mo := beamAndColumn()
+	before := len(mo.Cases[0].MemberLoads)
+	lay, err := Expand(mo, []int{0}, 2, Exact)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(mo.Cases) != 1 || len(mo.Cases[0].MemberLoads) != before {
+		t.Error("Expand changed the model it was given")
+	}
+	// The rest keeps the column load; one case per piece follows.
+	if len(lay.Model.Cases) != 3 || len(lay.Model.Cases[0].MemberLoads) != 1 || lay.Patterned[0].Units[1].Column != 2 {
+		t.Errorf("expanded cases = %+v", lay.Model.Cases)
 	}
 }
