@@ -19,14 +19,16 @@ import (
 // the combination that gives each, the forces acting at the same place in
 // that same loading, and the pattern pieces it loads.
 type Extreme struct {
-	Max      float64
-	MaxBy    int
-	MaxWith  [3]float64 // N, V, M (Fx, Fy, M for a reaction) acting with Max
-	MaxSpans []int      // pattern pieces loaded for Max, indices into Envelope.Pieces
-	Min      float64
-	MinBy    int
-	MinWith  [3]float64
-	MinSpans []int
+	Max       float64
+	MaxBy     int
+	MaxWith   [3]float64 // N, V, M (Fx, Fy, M for a reaction) acting with Max
+	MaxSpans  []int      // the most influential pattern pieces loaded for Max, indices into Envelope.Pieces
+	MaxLoaded int        // how many pattern pieces are loaded for Max, listed or not
+	Min       float64
+	MinBy     int
+	MinWith   [3]float64
+	MinSpans  []int
+	MinLoaded int
 }
 
 // empty returns an Extreme that any value replaces.
@@ -80,12 +82,15 @@ type Envelope struct {
 // ErrNoCombinations is returned when there is nothing to envelope.
 var ErrNoCombinations = errors.New("envelope: no load combinations")
 
-// spanShare is the smallest share of the largest single piece's
-// contribution for which a loaded piece is listed in MaxSpans or MinSpans.
-// Pieces with less influence are loaded too (exact placement puts every
-// adverse piece on) but are not named, so that the lists of a tall frame
-// stay readable.
-const spanShare = 0.01
+// A loaded piece is listed in MaxSpans or MinSpans when its own effect is
+// at least spanShare of the largest single piece's, and among the maxSpans
+// largest. Pieces with less influence are loaded too (exact placement puts
+// every adverse piece on; MaxLoaded counts them) but are not named, so that
+// the lists of a tall frame stay readable and its output tractable.
+const (
+	spanShare = 0.01
+	maxSpans  = 16
+)
 
 // Compute forms the envelopes of every member and support over the
 // combinations cs. sol must be the solution of lay.Model when lay is not
@@ -157,6 +162,7 @@ type evaluator struct {
 	nOrig     int    // original cases, leading the columns
 	always    []bool // column acts whatever its sign (permanent, or as written)
 	patternOf []int  // original case → index into lay.Patterned, or -1
+	first     []int  // column of each patterned case's first unit; its units follow in order
 	mode      patterns.Mode
 }
 
@@ -179,6 +185,16 @@ func newEvaluator(mo *frame.Model, cs []combos.Combination, set Settings, lay *p
 	if lay != nil {
 		for i, p := range lay.Patterned {
 			e.patternOf[p.Case] = i
+			if len(p.Units) == 0 {
+				e.first = append(e.first, 0)
+				continue
+			}
+			e.first = append(e.first, p.Units[0].Column)
+			for k, u := range p.Units {
+				if u.Column != p.Units[0].Column+k {
+					panic("envelope: a patterned case's units are not consecutive columns")
+				}
+			}
 		}
 	}
 	return e
@@ -186,10 +202,20 @@ func newEvaluator(mo *frame.Model, cs []combos.Combination, set Settings, lay *p
 
 // work is one goroutine's scratch space.
 type work struct {
+	xs   []float64          // station positions of the current member
+	at   []frame.Forces     // every column at every station of the member
 	ev   [][3]float64       // effects of every column at the station
 	sum  [][3][2][3]float64 // exact: per patterned case, effect, sign: sum of same-signed units
 	big  [][3][2]float64    // exact: largest single |effect| in each of those sets
 	best [][3][2]int        // code: unit with the largest (sign 0) and smallest (sign 1) effect
+	tmp  [6][]int           // spans being collected: max and min of N, V, M
+	cand [6][]candidate     // exact: loaded pieces that may be listed
+
+	// exact: per patterned case, effect and sign, how many units are of that
+	// sign and the most influential of them (min-heaps of unit indices).
+	count [][3][2]int
+	top   [][3][2][]candidate
+	limit int // most pieces listed: maxSpans, or unlimited with AllSpans
 }
 
 func (e *evaluator) scratch() *work {
@@ -198,6 +224,11 @@ func (e *evaluator) scratch() *work {
 		w.ev = make([][3]float64, len(e.lay.Model.Cases))
 		n := len(e.lay.Patterned)
 		w.sum, w.big, w.best = make([][3][2][3]float64, n), make([][3][2]float64, n), make([][3][2]int, n)
+		w.count, w.top = make([][3][2]int, n), make([][3][2][]candidate, n)
+	}
+	w.limit = maxSpans
+	if e.set.AllSpans {
+		w.limit = math.MaxInt
 	}
 	return w
 }
@@ -205,14 +236,20 @@ func (e *evaluator) scratch() *work {
 func (e *evaluator) member(w *work, sol *frame.Solution, m int) Member {
 	mo := sol.Model()
 	l := mo.Length(m)
-	st := make([]Station, e.set.Stations)
-	for i := range st {
-		x := l * float64(i) / float64(e.set.Stations-1)
-		if i == e.set.Stations-1 {
-			x = l // exactly the end, whatever the rounding
-		}
+	ns := e.set.Stations
+	if w.xs == nil {
+		w.xs = make([]float64, ns)
+		w.at = make([]frame.Forces, ns*len(w.ev))
+	}
+	for i := range w.xs {
+		w.xs[i] = l * float64(i) / float64(ns-1)
+	}
+	w.xs[ns-1] = l // exactly the end, whatever the rounding
+	sol.StationsTo(w.at, m, w.xs)
+	st := make([]Station, ns)
+	for i, x := range w.xs {
 		for c := range w.ev {
-			f := sol.At(c, m, x)
+			f := w.at[c*ns+i]
 			w.ev[c] = [3]float64{f.N, f.V, f.M}
 		}
 		ex := e.station(w)
@@ -227,63 +264,77 @@ func (e *evaluator) station(w *work) [3]Extreme {
 	out := [3]Extreme{empty(), empty(), empty()}
 	for k := range e.cs {
 		for j := range 3 {
-			if hi := e.contrib(w, k, j, true, nil); hi[j] > out[j].Max {
+			if hi := e.contrib(w, k, j, true); hi[j] > out[j].Max {
 				out[j].Max, out[j].MaxBy, out[j].MaxWith = hi[j], k, hi
 			}
-			if lo := e.contrib(w, k, j, false, nil); lo[j] < out[j].Min {
+			if lo := e.contrib(w, k, j, false); lo[j] < out[j].Min {
 				out[j].Min, out[j].MinBy, out[j].MinWith = lo[j], k, lo
 			}
 		}
 	}
 	if e.lay != nil && len(e.lay.Patterned) > 0 {
-		for j := range 3 {
-			if out[j].MaxBy >= 0 {
-				e.contrib(w, out[j].MaxBy, j, true, &out[j].MaxSpans)
-			}
-			if out[j].MinBy >= 0 {
-				e.contrib(w, out[j].MinBy, j, false, &out[j].MinSpans)
-			}
-		}
+		e.spans(w, &out)
 	}
 	return out
 }
 
 // aggregate prepares, for each patterned case, what every combination
 // needs of its units: in exact mode the sums of the units whose effect is
-// positive and of those whose effect is negative, for each effect; in code
-// mode the units with the largest and the smallest effect.
+// positive and of those whose effect is negative, for each effect, and the
+// largest single magnitude in each; in code mode the units with the largest
+// and the smallest effect.
 func (e *evaluator) aggregate(w *work) {
 	if e.lay == nil {
 		return
 	}
 	for p, pc := range e.lay.Patterned {
+		units := w.ev[e.first[p] : e.first[p]+len(pc.Units)]
 		switch e.mode {
 		case patterns.Exact:
-			w.sum[p], w.big[p] = [3][2][3]float64{}, [3][2]float64{}
-			for _, u := range pc.Units {
-				v := w.ev[u.Column]
+			// One pass: the sums, the largest magnitudes, how many units
+			// are of each sign, and the most influential units of each
+			// sign, for the spans lists.
+			var sum [3][2][3]float64
+			var big [3][2]float64
+			var count [3][2]int
+			top := &w.top[p]
+			for j := range top {
+				top[j][0], top[j][1] = top[j][0][:0], top[j][1][:0]
+			}
+			for i, v := range units {
 				for j := range 3 {
-					s := 0
-					if v[j] < 0 {
-						s = 1
-					} else if v[j] == 0 {
+					x := v[j]
+					if x == 0 {
 						continue
 					}
-					for q := range 3 {
-						w.sum[p][j][s][q] += v[q]
+					s, a := 0, x
+					if x < 0 {
+						s, a = 1, -x
 					}
-					w.big[p][j][s] = math.Max(w.big[p][j][s], math.Abs(v[j]))
+					t := &sum[j][s]
+					t[0] += v[0]
+					t[1] += v[1]
+					t[2] += v[2]
+					if a > big[j][s] {
+						big[j][s] = a
+					}
+					count[j][s]++
+					// Units under spanShare of the largest so far can never be
+					// listed; skipping them keeps the heaps quiet.
+					if h := top[j][s]; a >= spanShare*big[j][s] && (len(h) < w.limit || a > h[0].a) {
+						top[j][s] = keepLargest(h, candidate{piece: i, a: a}, w.limit)
+					}
 				}
 			}
+			w.sum[p], w.big[p], w.count[p] = sum, big, count
 		case patterns.Code:
 			for j := range 3 {
 				hi, lo := 0, 0
-				for i, u := range pc.Units {
-					v := w.ev[u.Column][j]
-					if v > w.ev[pc.Units[hi].Column][j] {
+				for i, v := range units {
+					if v[j] > units[hi][j] {
 						hi = i
 					}
-					if v < w.ev[pc.Units[lo].Column][j] {
+					if v[j] < units[lo][j] {
 						lo = i
 					}
 				}
@@ -294,94 +345,245 @@ func (e *evaluator) aggregate(w *work) {
 }
 
 // contrib returns the forces (N, V, M) of combination k when its loads are
-// placed to make effect j largest (hi) or smallest. When spans is not nil it
-// also lists the pattern pieces loaded.
-func (e *evaluator) contrib(w *work, k, j int, hi bool, spans *[]int) [3]float64 {
+// placed to make effect j largest (hi) or smallest.
+func (e *evaluator) contrib(w *work, k, j int, hi bool) [3]float64 {
 	var tot [3]float64
-	add := func(f float64, v [3]float64) {
-		for q := range 3 {
-			tot[q] += f * v[q]
-		}
-	}
-	adverse := func(f, v float64) bool { return (hi && f*v > 0) || (!hi && f*v < 0) }
 	var ex []exTerm // exhaustive pattern terms
 	for _, t := range e.cs[k].Terms {
 		f, c := t.Factor, t.Case
 		// The case as a whole, or a patterned case's rest.
-		if e.always[c] || adverse(f, w.ev[c][j]) {
-			add(f, w.ev[c])
+		if v := w.ev[c]; e.always[c] || (hi && f*v[j] > 0) || (!hi && f*v[j] < 0) {
+			tot[0], tot[1], tot[2] = tot[0]+f*v[0], tot[1]+f*v[1], tot[2]+f*v[2]
 		}
 		p := e.patternOf[c]
 		if p < 0 {
 			continue
 		}
-		pc := &e.lay.Patterned[p]
-		want := hi == (f >= 0) // want the largest unpatterned effect
+		want := hi == (f >= 0) // the largest unfactored effect is wanted
 		switch e.mode {
 		case patterns.Exact:
 			s := 1
 			if want {
 				s = 0
 			}
-			add(f, w.sum[p][j][s])
-			if spans != nil {
-				cut := spanShare * w.big[p][j][s]
-				if e.set.AllSpans {
-					cut = 0
-				}
-				for _, u := range pc.Units {
-					if v := w.ev[u.Column][j]; (s == 0 && v > 0 || s == 1 && v < 0) && math.Abs(v) >= cut {
-						*spans = append(*spans, u.Pieces...)
-					}
-				}
-			}
+			v := w.sum[p][j][s]
+			tot[0], tot[1], tot[2] = tot[0]+f*v[0], tot[1]+f*v[1], tot[2]+f*v[2]
 		case patterns.Code:
-			i := w.best[p][j][1]
-			if want {
-				i = w.best[p][j][0]
-			}
-			u := pc.Units[i]
-			if e.set.AsWritten || adverse(f, w.ev[u.Column][j]) {
-				add(f, w.ev[u.Column])
-				if spans != nil {
-					*spans = append(*spans, u.Pieces...)
-				}
+			if v, ok := e.codeUnit(w, p, j, f, want); ok {
+				tot[0], tot[1], tot[2] = tot[0]+f*v[0], tot[1]+f*v[1], tot[2]+f*v[2]
 			}
 		case patterns.Exhaustive:
-			for _, u := range pc.Units {
-				ex = append(ex, exTerm{f: f, v: w.ev[u.Column], pieces: u.Pieces})
-			}
+			ex = e.exTerms(w, ex, p, f)
 		}
 	}
 	if len(ex) > 0 {
 		best := exhaustive(ex, j, hi)
 		for i, t := range ex {
 			if best&(1<<i) != 0 {
-				add(t.f, t.v)
+				tot[0], tot[1], tot[2] = tot[0]+t.f*t.v[0], tot[1]+t.f*t.v[1], tot[2]+t.f*t.v[2]
 			}
 		}
-		if spans != nil {
-			big := 0.0
-			share := spanShare
-			if e.set.AllSpans {
-				share = 0
-			}
-			for i, t := range ex {
-				if best&(1<<i) != 0 {
-					big = math.Max(big, math.Abs(t.f*t.v[j]))
-				}
-			}
-			for i, t := range ex {
-				if best&(1<<i) != 0 && math.Abs(t.f*t.v[j]) >= share*big {
-					*spans = append(*spans, t.pieces...)
-				}
-			}
-		}
-	}
-	if spans != nil {
-		sortUnique(spans)
 	}
 	return tot
+}
+
+// codeUnit returns the effects of the code arrangement of patterned case p
+// chosen for effect j, and whether it acts: with variable loads adverse, an
+// arrangement that would relieve the effect is left off.
+func (e *evaluator) codeUnit(w *work, p, j int, f float64, want bool) ([3]float64, bool) {
+	i := w.best[p][j][1]
+	if want {
+		i = w.best[p][j][0]
+	}
+	v := w.ev[e.first[p]+i]
+	hi := want == (f >= 0)
+	return v, e.set.AsWritten || (hi && f*v[j] > 0) || (!hi && f*v[j] < 0)
+}
+
+func (e *evaluator) exTerms(w *work, ex []exTerm, p int, f float64) []exTerm {
+	for i, u := range e.lay.Patterned[p].Units {
+		ex = append(ex, exTerm{f: f, v: w.ev[e.first[p]+i], pieces: u.Pieces})
+	}
+	return ex
+}
+
+// spans fills in the pattern pieces loaded for each extreme in out. For
+// exact placement every adverse piece is loaded (counted in MaxLoaded,
+// MinLoaded); the most influential of them are listed, at most maxSpans,
+// each with at least spanShare of the largest one's effect (all of them
+// with AllSpans). For code arrangements the arrangement's pieces are listed,
+// for exhaustive search the pieces of the best subset with at least
+// spanShare of the largest one's factored effect. Each patterned case's
+// units are scanned once for all the extremes that need them.
+func (e *evaluator) spans(w *work, out *[3]Extreme) {
+	share, limit := spanShare, w.limit
+	if e.set.AllSpans {
+		share = 0
+	}
+	for k := range w.cand {
+		w.cand[k] = w.cand[k][:0]
+		w.tmp[k] = w.tmp[k][:0]
+	}
+	var loaded [6]int
+	for p, pc := range e.lay.Patterned {
+		for j := range 3 {
+			for side, by := range [2]int{out[j].MaxBy, out[j].MinBy} {
+				if by < 0 {
+					continue
+				}
+				k, hi := 2*j+side, side == 0
+				// The factor of this case in the winning combination.
+				f, has := 0.0, false
+				for _, t := range e.cs[by].Terms {
+					if t.Case == pc.Case {
+						f, has = f+t.Factor, true
+					}
+				}
+				if !has || f == 0 {
+					continue
+				}
+				want := hi == (f >= 0)
+				switch e.mode {
+				case patterns.Exact:
+					s := 1
+					if want {
+						s = 0
+					}
+					loaded[k] += w.count[p][j][s]
+					cut := share * w.big[p][j][s]
+					for _, c := range w.top[p][j][s] {
+						if c.a >= cut {
+							w.cand[k] = keepLargest(w.cand[k], candidate{piece: pc.Units[c.piece].Pieces[0], a: c.a}, limit)
+						}
+					}
+				case patterns.Code:
+					if _, ok := e.codeUnit(w, p, j, f, want); ok {
+						i := w.best[p][j][1]
+						if want {
+							i = w.best[p][j][0]
+						}
+						w.tmp[k] = append(w.tmp[k], pc.Units[i].Pieces...)
+						loaded[k] += len(pc.Units[i].Pieces)
+					}
+				case patterns.Exhaustive:
+					loaded[k] += e.exhaustiveSpans(w, by, j, hi, p, share, &w.tmp[k])
+				}
+			}
+		}
+	}
+	total := 0
+	for k := range w.tmp {
+		for _, x := range w.cand[k] {
+			w.tmp[k] = append(w.tmp[k], x.piece)
+		}
+		sortUnique(&w.tmp[k])
+		total += len(w.tmp[k])
+	}
+	for j := range 3 {
+		out[j].MaxLoaded, out[j].MinLoaded = loaded[2*j], loaded[2*j+1]
+	}
+	if total == 0 {
+		return
+	}
+	// Copy the lists into one exact-size slice per station: appending to the
+	// results directly would grow hundreds of thousands of slices on a tall
+	// frame.
+	buf := make([]int, total)
+	at := 0
+	take := func(k int) []int {
+		n := copy(buf[at:], w.tmp[k])
+		s := buf[at : at+n : at+n]
+		at += n
+		return s
+	}
+	for j := range 3 {
+		out[j].MaxSpans = take(2 * j)
+		out[j].MinSpans = take(2*j + 1)
+	}
+}
+
+// candidate is a loaded piece and the size of its effect.
+type candidate struct {
+	piece int
+	a     float64
+}
+
+// keepLargest adds c to h, a min-heap on a of at most limit candidates,
+// dropping the smallest when full: what remains are the limit largest seen.
+// Equal sizes keep the earlier piece.
+func keepLargest(h []candidate, c candidate, limit int) []candidate {
+	if len(h) < limit {
+		h = append(h, c)
+		for i := len(h) - 1; i > 0; {
+			up := (i - 1) / 2
+			if !h[i].less(h[up]) {
+				break
+			}
+			h[i], h[up] = h[up], h[i]
+			i = up
+		}
+		return h
+	}
+	if !h[0].less(c) {
+		return h
+	}
+	h[0] = c
+	for i := 0; ; {
+		l, r, min := 2*i+1, 2*i+2, i
+		if l < len(h) && h[l].less(h[min]) {
+			min = l
+		}
+		if r < len(h) && h[r].less(h[min]) {
+			min = r
+		}
+		if min == i {
+			return h
+		}
+		h[i], h[min] = h[min], h[i]
+		i = min
+	}
+}
+
+// less orders candidates by size, a later piece counting as smaller.
+func (c candidate) less(d candidate) bool {
+	return c.a < d.a || (c.a == d.a && c.piece > d.piece)
+}
+
+// exhaustiveSpans appends to dst the pieces of patterned case p in the best
+// subset for combination k, effect j, with at least share of the largest
+// one's factored effect, and returns how many of p's pieces that subset loads.
+func (e *evaluator) exhaustiveSpans(w *work, k, j int, hi bool, p int, share float64, dst *[]int) int {
+	var ex []exTerm
+	from := -1
+	for _, t := range e.cs[k].Terms {
+		if q := e.patternOf[t.Case]; q >= 0 {
+			if q == p {
+				from = len(ex)
+			}
+			ex = e.exTerms(w, ex, q, t.Factor)
+		}
+	}
+	if from < 0 {
+		return 0
+	}
+	best := exhaustive(ex, j, hi)
+	big := 0.0
+	for i, t := range ex {
+		if best&(1<<i) != 0 {
+			big = math.Max(big, math.Abs(t.f*t.v[j]))
+		}
+	}
+	n := 0
+	for i := from; i < from+len(e.lay.Patterned[p].Units); i++ {
+		if best&(1<<i) == 0 {
+			continue
+		}
+		n++
+		if t := ex[i]; math.Abs(t.f*t.v[j]) >= share*big {
+			*dst = append(*dst, t.pieces...)
+		}
+	}
+	return n
 }
 
 // exTerm is one piece's factored contribution in exhaustive mode.
@@ -415,7 +617,10 @@ func exhaustive(ts []exTerm, j int, hi bool) uint32 {
 	return best
 }
 
+// sortUnique sorts s and removes repeats; lists are usually sorted already.
 func sortUnique(s *[]int) {
-	slices.Sort(*s)
+	if !slices.IsSorted(*s) {
+		slices.Sort(*s)
+	}
 	*s = slices.Compact(*s)
 }

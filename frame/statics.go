@@ -56,26 +56,19 @@ func AppliedResultant(mo *Model, c int) Resultant {
 // correct solution.
 func (sol *Solution) Residual(c int) float64 {
 	mo := sol.model
-	acc := make([]float64, 3*len(mo.Nodes))
-	for _, nl := range mo.Cases[c].NodeLoads {
-		acc[3*nl.Node] += nl.Fx
-		acc[3*nl.Node+1] += nl.Fy
-		acc[3*nl.Node+2] += nl.M
-	}
-	for m, mem := range mo.Members {
-		f := sol.EndForces(c, m)
-		var g [6]float64
-		sol.elems[m].toGlobal(&g, &f)
-		for i := range 3 {
-			acc[3*mem.Start+i] -= g[i]
-			acc[3*mem.End+i] -= g[3+i]
-		}
-	}
 	worst := 0.0
 	for v, nd := range mo.Nodes {
+		r := sol.nodeSum(c, v)
+		for _, nl := range mo.Cases[c].NodeLoads {
+			if nl.Node == v {
+				r[0] -= nl.Fx
+				r[1] -= nl.Fy
+				r[2] -= nl.M
+			}
+		}
 		for d := range 3 {
 			if !nd.Support.Restrained(d) {
-				worst = math.Max(worst, math.Abs(acc[3*v+d]))
+				worst = math.Max(worst, math.Abs(r[d]))
 			}
 		}
 	}

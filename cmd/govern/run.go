@@ -73,35 +73,25 @@ the signs.`,
 // report writes the requested files and, unless a file goes to standard
 // output, the summary tables.
 func (a *analysis) report(stdout io.Writer, model string, f *runFlags) error {
-	var outs []*output
-	toStdout := false
-	if f.json != "" {
-		o := &output{path: f.json}
-		if err := a.writeJSON(&o.buf); err != nil {
-			return err
-		}
-		outs = append(outs, o)
-		toStdout = toStdout || f.json == "-"
-	}
-	if f.csv != "" {
-		o := &output{path: f.csv}
-		if err := a.writeCSV(&o.buf); err != nil {
-			return err
-		}
-		outs = append(outs, o)
-		toStdout = toStdout || f.csv == "-"
-	}
 	if f.json == "-" && f.csv == "-" {
 		return usagef("only one of --json and --csv can go to standard output")
 	}
-	if !toStdout {
-		o := &output{path: "-"}
-		a.writeHeading(&o.buf)
-		if err := a.writeSummary(&o.buf); err != nil {
+	var outs []output
+	if f.json != "" {
+		outs = append(outs, output{path: f.json, write: a.writeJSON})
+	}
+	if f.csv != "" {
+		outs = append(outs, output{path: f.csv, write: a.writeCSV})
+	}
+	if f.json != "-" && f.csv != "-" {
+		outs = append(outs, output{path: "-", write: func(w io.Writer) error {
+			a.writeHeading(w)
+			if err := a.writeSummary(w); err != nil {
+				return err
+			}
+			_, err := fmt.Fprintf(w, "\n%s\n", caution)
 			return err
-		}
-		fmt.Fprintf(&o.buf, "\n%s\n", caution)
-		outs = append(outs, o)
+		}})
 	}
 	return commitOutputs(stdout, model, outs)
 }

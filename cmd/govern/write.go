@@ -1,58 +1,95 @@
 package main
 
 import (
-	"bytes"
+	"bufio"
 	"fmt"
 	"io"
 	"os"
 	"path/filepath"
 )
 
-// output is a file the run was asked to write, filled in memory first.
+// output is something the run was asked to write: a file, or standard
+// output for path "-".
 type output struct {
-	path string // "-" for standard output
-	buf  bytes.Buffer
+	path  string
+	write func(io.Writer) error
 }
 
-// commitOutputs writes each output to a temporary file beside its target
-// and renames it into place, so that a failed run leaves the previous file
-// untouched and never a partial one. Paths that name the model are refused.
-func commitOutputs(stdout io.Writer, model string, outs []*output) error {
+// commitOutputs writes each file output to a temporary file beside its
+// target and, once every one has been written whole, renames them into
+// place, so that a failed run leaves the previous files untouched and never
+// a partial one. Standard output is written last. Paths that name the model
+// are refused before anything is written.
+func commitOutputs(stdout io.Writer, model string, outs []output) error {
 	for _, o := range outs {
 		if o.path != "-" && sameFile(o.path, model) {
 			return fmt.Errorf("refusing to write %s: it is the model file", o.path)
 		}
 	}
+	var temps []string
+	defer func() {
+		for _, t := range temps {
+			os.Remove(t) // left only on failure; renamed ones are gone
+		}
+	}()
+	var files []output
 	for _, o := range outs {
 		if o.path == "-" {
-			if _, err := stdout.Write(o.buf.Bytes()); err != nil {
-				return err
-			}
 			continue
 		}
-		if err := writeAtomic(o.path, o.buf.Bytes()); err != nil {
+		tmp, err := writeTemp(o.path, o.write)
+		if err != nil {
 			return err
+		}
+		temps = append(temps, tmp)
+		files = append(files, o)
+	}
+	for i, o := range files {
+		if err := os.Rename(temps[i], o.path); err != nil {
+			return fmt.Errorf("cannot write %s: %v", o.path, err)
+		}
+	}
+	temps = nil
+	for _, o := range outs {
+		if o.path == "-" {
+			if err := o.write(stdout); err != nil {
+				return err
+			}
 		}
 	}
 	return nil
 }
 
-// writeAtomic replaces path with data through a temporary file and a rename.
-func writeAtomic(path string, data []byte) error {
-	dir := filepath.Dir(path)
-	f, err := os.CreateTemp(dir, "."+filepath.Base(path)+".tmp*")
+// writeTemp writes a temporary file beside path with write and returns its name.
+func writeTemp(path string, write func(io.Writer) error) (string, error) {
+	f, err := os.CreateTemp(filepath.Dir(path), "."+filepath.Base(path)+".tmp*")
 	if err != nil {
-		return fmt.Errorf("cannot write %s: %v", path, err)
+		return "", fmt.Errorf("cannot write %s: %v", path, err)
 	}
 	tmp := f.Name()
-	if _, err := f.Write(data); err != nil {
-		f.Close()
-		os.Remove(tmp)
-		return fmt.Errorf("cannot write %s: %v", path, err)
+	bw := bufio.NewWriterSize(f, 1<<16)
+	err = write(bw)
+	if err == nil {
+		err = bw.Flush()
 	}
-	if err := f.Close(); err != nil {
+	if cerr := f.Close(); err == nil {
+		err = cerr
+	}
+	if err != nil {
 		os.Remove(tmp)
-		return fmt.Errorf("cannot write %s: %v", path, err)
+		return "", fmt.Errorf("cannot write %s: %v", path, err)
+	}
+	return tmp, nil
+}
+
+// writeAtomic replaces path with data through a temporary file and a rename.
+func writeAtomic(path string, data []byte) error {
+	tmp, err := writeTemp(path, func(w io.Writer) error {
+		_, err := w.Write(data)
+		return err
+	})
+	if err != nil {
+		return err
 	}
 	if err := os.Rename(tmp, path); err != nil {
 		os.Remove(tmp)
