@@ -206,8 +206,17 @@ func (t *ruleTable) tables(key string) []map[string]any {
 	return nil
 }
 
-// done reports every key of the table that was not read.
-func (t *ruleTable) done() {
+// Keys of each table of the format, as messages list them.
+var (
+	topKeys  = []string{"name", "title", "rule"}
+	ruleKeys = []string{"id", "text", "terms"}
+	termKeys = []string{"kind", "factor", "lead", "together", "psi", "sds_factor", "reduced_live_factor", "or"}
+	altKeys  = []string{"kind", "factor", "psi", "sds_factor", "reduced_live_factor"}
+)
+
+// done reports every key of the table that was not read; known lists the
+// keys the format allows there.
+func (t *ruleTable) done(known []string) {
 	var unknown []string
 	for k := range t.m {
 		if !t.used[k] {
@@ -215,11 +224,6 @@ func (t *ruleTable) done() {
 		}
 	}
 	sort.Strings(unknown)
-	var known []string
-	for k := range t.used {
-		known = append(known, k)
-	}
-	sort.Strings(known)
 	for _, k := range unknown {
 		t.fail(k, "unknown key %q; the keys here are %s", k, strings.Join(known, ", "))
 	}
@@ -235,7 +239,7 @@ func (p *parser) set(raw map[string]any) *Set {
 	if !top.has("rule") || isEmptyArray(raw["rule"]) {
 		top.fail("rule", "the file has no rules: give at least one [[rule]] table")
 	}
-	top.done()
+	top.done(topKeys)
 	for i, m := range rules {
 		rl := p.lines.rule(i)
 		where := fmt.Sprintf("rule %d", i+1)
@@ -253,7 +257,7 @@ func (p *parser) set(raw map[string]any) *Set {
 		} else if isEmptyArray(m["terms"]) {
 			t.fail("terms", "terms is empty: a rule needs at least one term")
 		}
-		t.done()
+		t.done(ruleKeys)
 		for j, tm := range terms {
 			line, keys := rl.term(j)
 			tt := p.table(tm, line, keys, fmt.Sprintf("%s, term %d", where, j+1))
@@ -307,18 +311,18 @@ func (p *parser) term(t *ruleTable) RuleTerm {
 			at := p.table(m, line, nil, fmt.Sprintf("%s, alternative %d", t.where, i+1))
 			kinds := p.kinds(at, false)
 			c := p.choice(at, kinds)
-			at.done()
+			at.done(altKeys)
 			if len(kinds) == 1 {
 				c.Kind = kinds[0]
 				rt.Choices = append(rt.Choices, c)
 			}
 		}
-		t.done()
+		t.done(termKeys)
 		return rt
 	}
 	kinds := p.kinds(t, true)
 	c := p.choice(t, kinds)
-	t.done()
+	t.done(termKeys)
 	for _, k := range kinds {
 		c.Kind = k
 		rt.Choices = append(rt.Choices, c)

@@ -57,3 +57,29 @@ func TestSetOptions(t *testing.T) {
 		}
 	}
 }
+
+func TestEveryRuleGivesCombinations(t *testing.T) {
+	// With a case of every kind (ψ from EN 1990 Table A1.1 rows), every
+	// rule of every built-in set is used: none is unreachable.
+	cs, info := cases(t, "D dead", "L live category=B", "Lr roof-live category=H", "S snow category=snow-nordic",
+		"R rain", "W wind reversible", "E seismic reversible", "T other category=temperature")
+	info[4].Psi, info[4].PsiGiven = [3]float64{0.6, 0.5, 0.3}, [3]bool{true, true, true}
+	for _, name := range Standards() {
+		t.Run(name, func(t *testing.T) {
+			s, _ := Standard(name)
+			got, err := s.Generate(cs, info, Params{SDS: 0.5})
+			if err != nil {
+				t.Fatal(err)
+			}
+			for i, r := range s.Rules {
+				found := false
+				for _, cb := range got {
+					found = found || cb.Rule == name+" "+r.ID
+				}
+				if !found {
+					t.Errorf("rule %d (%s, %s) gives nothing", i+1, r.ID, r.Text)
+				}
+			}
+		})
+	}
+}
