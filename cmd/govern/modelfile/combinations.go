@@ -3,6 +3,7 @@ package modelfile
 import (
 	"errors"
 	"fmt"
+	"io"
 	"os"
 	"path/filepath"
 	"strings"
@@ -136,7 +137,7 @@ func (r *reader) readRuleFile(t *table, file string) *combos.Set {
 	}
 	var src []byte
 	if err == nil {
-		src, err = os.ReadFile(path)
+		src, err = readLimited(path, maxRuleFile)
 	}
 	if err != nil {
 		var pe *os.PathError
@@ -166,10 +167,10 @@ func (r *reader) readRuleFile(t *table, file string) *combos.Set {
 // the cases are those of the file, in its order.
 func (r *reader) generate() {
 	job := r.job
+	job.CaseInfo = r.caseInfo
 	if job.Set == nil || len(r.errs) > 0 {
 		return
 	}
-	job.CaseInfo = r.caseInfo
 	cs, err := job.Set.Generate(job.Model.Cases, r.caseInfo, job.Params)
 	var ce combos.CaseErrors
 	switch {
@@ -200,4 +201,19 @@ func (r *reader) generate() {
 		}
 	}
 	job.Combinations = append(cs, job.Combinations...)
+}
+
+// readLimited reads the file at path, refusing one of more than limit bytes
+// whatever its size claimed.
+func readLimited(path string, limit int64) ([]byte, error) {
+	f, err := os.Open(path)
+	if err != nil {
+		return nil, err
+	}
+	defer f.Close()
+	src, err := io.ReadAll(io.LimitReader(f, limit+1))
+	if err == nil && int64(len(src)) > limit {
+		err = fmt.Errorf("larger than %d bytes", limit)
+	}
+	return src, err
 }

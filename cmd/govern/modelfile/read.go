@@ -43,7 +43,7 @@ type Job struct {
 	// combinations come first in Combinations, then the model's own.
 	Set      *combos.Set
 	Params   combos.Params     // the set's options given in [combinations]
-	CaseInfo []combos.CaseInfo // per case: reversible, EN 1990 category and ψ; set with Set
+	CaseInfo []combos.CaseInfo // per case, as Model.Cases: reversible, EN 1990 category and ψ
 }
 
 // Read parses and validates a model file. name is used in messages only.
