@@ -22,7 +22,7 @@ func loadModel(path string) (*modelfile.Job, error) {
 		}
 		return nil, err
 	}
-	return modelfile.Read(filepath.Base(path), src)
+	return modelfile.ReadAt(filepath.Dir(path), filepath.Base(path), src)
 }
 
 // analysis is a solved job with its envelopes.

@@ -25,7 +25,8 @@ var cmdDemo = &command{
 	long: `
 Demo analyses a built-in model of a fictional five-storey, three-bay
 reinforced concrete office frame with dead, floor live, roof live and wind
-load cases and strength combinations, and reports as 'govern run' does.
+load cases and the strength combinations of ASCE/SEI 7-16 section 2.3.1,
+and reports as 'govern run' does.
 
 With --write FILE it writes that model out instead, as a starting point to
 edit; an existing file is not overwritten.`,

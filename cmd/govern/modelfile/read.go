@@ -38,11 +38,21 @@ type Job struct {
 	Patterned []int
 	Segments  int
 	Patterns  patterns.Mode
+
+	// Set is the rule set named in [combinations], nil without one; its
+	// combinations come first in Combinations, then the model's own.
+	Set      *combos.Set
+	Params   combos.Params     // the set's options given in [combinations]
+	CaseInfo []combos.CaseInfo // per case, as Model.Cases: reversible, EN 1990 category and ψ
 }
 
 // Read parses and validates a model file. name is used in messages only.
 // All problems found are returned together as [Errors].
-func Read(name string, src []byte) (*Job, error) {
+func Read(name string, src []byte) (*Job, error) { return ReadAt("", name, src) }
+
+// ReadAt is [Read] for a model in folder dir: a rule file that
+// [combinations] names is read relative to dir ("" is the current folder).
+func ReadAt(dir, name string, src []byte) (*Job, error) {
 	var raw map[string]any
 	if _, err := toml.Decode(string(src), &raw); err != nil {
 		var pe toml.ParseError
@@ -52,7 +62,7 @@ func Read(name string, src []byte) (*Job, error) {
 		}
 		return nil, Errors{{File: name, Err: problem(ErrSyntax, "%v", err)}}
 	}
-	r := &reader{file: name, loc: newLocator(string(src))}
+	r := &reader{file: name, dir: dir, loc: newLocator(string(src))}
 	job := r.read(raw)
 	if len(r.errs) > 0 {
 		sort.SliceStable(r.errs, func(i, j int) bool { return r.errs[i].Line < r.errs[j].Line })
@@ -83,6 +93,7 @@ func excerpt(src string, n, col int) string {
 
 type reader struct {
 	file string
+	dir  string // folder of the model, for rule files
 	loc  *locator
 	errs Errors
 
@@ -90,9 +101,11 @@ type reader struct {
 	sections map[string]int
 	nodes    map[string]int
 	members  map[string]int
-	hasW     []bool          // section gives a weight
-	broken   map[string]bool // members named in the file that could not be built
-	memLine  []int           // line defining each member (0 for grid members)
+	hasW     []bool            // section gives a weight
+	broken   map[string]bool   // members named in the file that could not be built
+	memLine  []int             // line defining each member (0 for grid members)
+	caseInfo []combos.CaseInfo // per case, for the combination rules
+	setTable *table            // the [combinations] table, nil without one
 }
 
 func (r *reader) fail(line int, where string, err error) {
@@ -143,6 +156,7 @@ func (r *reader) read(raw map[string]any) *Job {
 	r.readMembers(top.array("member", func(i int, m map[string]any) string { return named("member", i, m) }))
 	r.readCases(top.array("case", func(i int, m map[string]any) string { return named("case", i, m) }))
 	r.readCombinations(top.array("combination", func(i int, m map[string]any) string { return named("combination", i, m) }))
+	r.readCombinationSet(top.sub("combinations", "[combinations]"))
 	top.done()
 	if len(job.Model.Nodes) == 0 && len(r.errs) == 0 {
 		r.fail(0, "", problem(ErrMissing, "the model has no nodes: give a [grid] or [[node]] tables"))
@@ -153,6 +167,7 @@ func (r *reader) read(raw map[string]any) *Job {
 	if len(job.Model.Cases) == 0 && len(r.errs) == 0 {
 		r.fail(0, "", problem(ErrMissing, "the model has no load cases: give at least one [[case]]"))
 	}
+	r.generate()
 	if len(job.Combinations) == 0 {
 		job.Combinations = combos.EachCase(job.Model.Cases)
 	}
@@ -408,8 +423,10 @@ func (r *reader) readCases(ts []*table) {
 		for _, lt := range loads {
 			r.readLoad(lt, &c)
 		}
+		info := r.readCaseInfo(t)
 		t.done()
 		mo.Cases = append(mo.Cases, c)
+		r.caseInfo = append(r.caseInfo, info)
 	}
 }
 
