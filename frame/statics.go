@@ -56,6 +56,13 @@ func AppliedResultant(mo *Model, c int) Resultant {
 // sum of the member end forces acting on the node. It is round-off for a
 // correct solution.
 func (sol *Solution) Residual(c int) float64 {
+	f, m := sol.residuals(c)
+	return math.Max(f, m)
+}
+
+// residuals returns the largest out-of-balance force and the largest
+// out-of-balance moment at the free degrees of freedom in case c.
+func (sol *Solution) residuals(c int) (force, moment float64) {
 	mo := sol.model
 	acc := make([]float64, 3*len(mo.Nodes))
 	for _, nl := range mo.Cases[c].NodeLoads {
@@ -72,13 +79,17 @@ func (sol *Solution) Residual(c int) float64 {
 			acc[3*mem.End+i] -= g[3+i]
 		}
 	}
-	worst := 0.0
 	for v, nd := range mo.Nodes {
 		for d := range 3 {
-			if !nd.Support.Restrained(d) {
-				worst = math.Max(worst, math.Abs(acc[3*v+d]))
+			if nd.Support.Restrained(d) {
+				continue
+			}
+			if d == 2 {
+				moment = math.Max(moment, math.Abs(acc[3*v+d]))
+			} else {
+				force = math.Max(force, math.Abs(acc[3*v+d]))
 			}
 		}
 	}
-	return worst
+	return force, moment
 }

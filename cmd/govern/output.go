@@ -65,6 +65,7 @@ type jsonOutput struct {
 	Combinations []jsonCombination `json:"combinations"`
 	Members      []jsonMember      `json:"members"`
 	Reactions    []jsonReaction    `json:"reactions"`
+	Statics      []jsonStatics     `json:"statics"`
 	Caution      string            `json:"caution"`
 }
 
@@ -95,7 +96,7 @@ func variableLoads(asWritten bool) string {
 }
 
 // writeJSON writes the envelopes in the govern.envelopes/1 layout.
-func (a *analysis) writeJSON(w io.Writer) error {
+func (a *analysis) writeJSON(w io.Writer, bal []caseBalance) error {
 	mo := a.job.Model
 	var out jsonOutput
 	out.Format = jsonFormat
@@ -126,6 +127,7 @@ func (a *analysis) writeJSON(w io.Writer) error {
 	for i, r := range a.env.Reactions {
 		out.Reactions[i] = jsonReaction{Node: mo.Nodes[r.Node].Name, Fx: a.extreme(r.Fx), Fy: a.extreme(r.Fy), M: a.extreme(r.M)}
 	}
+	out.Statics = staticsJSON(bal)
 	enc := json.NewEncoder(w)
 	enc.SetIndent("", " ")
 	return enc.Encode(&out)

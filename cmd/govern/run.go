@@ -57,11 +57,15 @@ the signs.`,
 // report writes the requested files and, unless a file goes to standard
 // output, the summary tables.
 func (a *analysis) report(stdout io.Writer, model string, f *runFlags) error {
+	bal := a.balances()
+	if err := staticsError(bal); err != nil {
+		return err
+	}
 	var outs []*output
 	toStdout := false
 	if f.json != "" {
 		o := &output{path: f.json}
-		if err := a.writeJSON(&o.buf); err != nil {
+		if err := a.writeJSON(&o.buf, bal); err != nil {
 			return err
 		}
 		outs = append(outs, o)
@@ -82,6 +86,9 @@ func (a *analysis) report(stdout io.Writer, model string, f *runFlags) error {
 		o := &output{path: "-"}
 		a.writeHeading(&o.buf)
 		if err := a.writeSummary(&o.buf); err != nil {
+			return err
+		}
+		if err := a.writeStatics(&o.buf, bal); err != nil {
 			return err
 		}
 		fmt.Fprintf(&o.buf, "\n%s\n", caution)
