@@ -327,8 +327,16 @@ func (st *structure) findSway() error {
 		return nil
 	}
 	var lines []string
-	for _, g := range order {
-		lines = append(lines, "("+strings.Join(quote(free[g]), ", ")+")")
+	for i, g := range order {
+		if i == 3 {
+			lines = append(lines, fmt.Sprintf("and %d more", len(order)-i))
+			break
+		}
+		names := quote(free[g])
+		if len(names) > 4 {
+			names = append(names[:4], "...")
+		}
+		lines = append(lines, "("+strings.Join(names, ", ")+")")
 	}
 	return notApplicable("%d beam lines are free to sway, %s; the sway correction here is for a single storey", len(order), strings.Join(lines, ", "))
 }
