@@ -7,17 +7,19 @@ import (
 )
 
 type runFlags struct {
-	json, csv string
+	json, csv  string
+	crossCheck bool
 }
 
 func addRunFlags(fs *flag.FlagSet, f *runFlags) {
 	fs.StringVar(&f.json, "json", "", "write the envelopes as JSON to `FILE` (- for standard output)")
 	fs.StringVar(&f.csv, "csv", "", "write the envelopes as CSV to `FILE` (- for standard output), one row per member, station and effect")
+	fs.BoolVar(&f.crossCheck, "cross-check", false, "solve every case again by moment distribution and print the largest difference in member end moments")
 }
 
 var cmdRun = &command{
 	name:  "run",
-	usage: "[--json FILE] [--csv FILE] MODEL.toml",
+	usage: "[--json FILE] [--csv FILE] [--cross-check] MODEL.toml",
 	short: "analyse a model and report its envelopes",
 	long: `
 Run reads the model file, solves every load case by the direct stiffness
@@ -30,6 +32,19 @@ With --json or --csv the full envelopes, at every station of every member,
 are written to a file as well; flags may come before or after the model path.
 Files are written whole or not at all. When JSON or CSV goes to standard
 output the summary tables are not printed.
+
+Every run checks statics for each load case: the reactions against the
+applied loads in X, Y and moment about the origin, and the largest
+out-of-balance force and moment at any joint. The check is printed and
+carried in the JSON; a case out of balance by more than 1e-6 of its load
+fails the run and nothing is written.
+
+With --cross-check every case is solved a second time by moment
+distribution (Hardy Cross), independently of the stiffness solver, and the
+largest difference in member end moments is printed. The method applies to
+frames of horizontal beams and vertical columns whose joints are held
+vertically, either held against sway or with a single storey free to sway;
+for any other model the report says why it does not apply.
 
 See docs/model-format.md for the model file and docs/conventions.md for
 the signs.`,
@@ -82,6 +97,9 @@ func (a *analysis) report(stdout io.Writer, model string, f *runFlags) error {
 	if f.json == "-" && f.csv == "-" {
 		return usagef("only one of --json and --csv can go to standard output")
 	}
+	if f.crossCheck && toStdout {
+		return usagef("--cross-check prints a table, so --json and --csv cannot go to standard output with it")
+	}
 	if !toStdout {
 		o := &output{path: "-"}
 		a.writeHeading(&o.buf)
@@ -90,6 +108,11 @@ func (a *analysis) report(stdout io.Writer, model string, f *runFlags) error {
 		}
 		if err := a.writeStatics(&o.buf, bal); err != nil {
 			return err
+		}
+		if f.crossCheck {
+			if err := a.writeCrossCheck(&o.buf); err != nil {
+				return err
+			}
 		}
 		fmt.Fprintf(&o.buf, "\n%s\n", caution)
 		outs = append(outs, o)
