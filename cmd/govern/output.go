@@ -96,7 +96,7 @@ func variableLoads(asWritten bool) string {
 }
 
 // writeJSON writes the envelopes in the govern.envelopes/1 layout.
-func (a *analysis) writeJSON(w io.Writer, bal []caseBalance) error {
+func (a *analysis) writeJSON(w io.Writer) error {
 	mo := a.job.Model
 	var out jsonOutput
 	out.Format = jsonFormat
@@ -127,7 +127,7 @@ func (a *analysis) writeJSON(w io.Writer, bal []caseBalance) error {
 	for i, r := range a.env.Reactions {
 		out.Reactions[i] = jsonReaction{Node: mo.Nodes[r.Node].Name, Fx: a.extreme(r.Fx), Fy: a.extreme(r.Fy), M: a.extreme(r.M)}
 	}
-	out.Statics = staticsJSON(bal)
+	out.Statics = staticsJSON(a.balances())
 	enc := json.NewEncoder(w)
 	enc.SetIndent("", " ")
 	return enc.Encode(&out)

@@ -21,7 +21,7 @@ var cmdRun = &command{
 	name:  "run",
 	usage: "[--json FILE] [--csv FILE] [--cross-check] MODEL.toml",
 	short: "analyse a model and report its envelopes",
-	long: `
+	long: fmt.Sprintf(`
 Run reads the model file, solves every load case by the direct stiffness
 method, combines the cases into the model's load combinations and reports,
 for every member, the largest and smallest axial force N, shear V and
@@ -36,7 +36,7 @@ output the summary tables are not printed.
 Every run checks statics for each load case: the reactions against the
 applied loads in X, Y and moment about the origin, and the largest
 out-of-balance force and moment at any joint. The check is printed and
-carried in the JSON; a case out of balance by more than 1e-6 of its load
+carried in the JSON; a case out of balance by more than %g of its load
 fails the run and nothing is written.
 
 With --cross-check every case is solved a second time by moment
@@ -47,7 +47,7 @@ vertically, either held against sway or with a single storey free to sway;
 for any other model the report says why it does not apply.
 
 See docs/model-format.md for the model file and docs/conventions.md for
-the signs.`,
+the signs.`, staticsLimit),
 	flags: func(fs *flag.FlagSet) any {
 		f := &runFlags{}
 		addRunFlags(fs, f)
@@ -80,7 +80,7 @@ func (a *analysis) report(stdout io.Writer, model string, f *runFlags) error {
 	toStdout := false
 	if f.json != "" {
 		o := &output{path: f.json}
-		if err := a.writeJSON(&o.buf, bal); err != nil {
+		if err := a.writeJSON(&o.buf); err != nil {
 			return err
 		}
 		outs = append(outs, o)
