@@ -130,3 +130,28 @@ func Expand(mo *frame.Model, patterned []int, segments int, mode Mode) (*Layout,
 	lay.Model = &ex
 	return lay, nil
 }
+
+// Whole returns the columns of the expanded model whose sum is original
+// case c in full: the case itself when it is not patterned; otherwise its
+// rest and every piece ("exact", "exhaustive") or its rest and the
+// all-spans arrangement ("code"), which Arrangements always lists first.
+func (lay *Layout) Whole(c int) []int {
+	for _, p := range lay.Patterned {
+		if p.Case != c {
+			continue
+		}
+		cols := []int{c}
+		switch lay.Mode {
+		case Code:
+			if len(p.Units) > 0 {
+				cols = append(cols, p.Units[0].Column)
+			}
+		default:
+			for _, u := range p.Units {
+				cols = append(cols, u.Column)
+			}
+		}
+		return cols
+	}
+	return []int{c}
+}

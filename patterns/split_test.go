@@ -176,3 +176,25 @@ func TestExpandKeepsTheOriginal(t *testing.T) {
 		t.Errorf("expanded cases = %+v", lay.Model.Cases)
 	}
 }
+
+func TestWholeAddsUpToTheCase(t *testing.T) {
+	// Superposition: the columns Whole names carry, together, exactly the
+	// loads of the original case (common practice: linear analysis).
+	mo := level(3)
+	mo.Cases[0].NodeLoads = []frame.NodeLoad{{Node: 1, Fx: 4}}
+	for _, mode := range []Mode{Exact, Code, Exhaustive, Full} {
+		lay, err := Expand(mo, []int{0}, 2, mode)
+		if err != nil {
+			t.Fatal(err)
+		}
+		var sum frame.Resultant
+		for _, c := range lay.Whole(0) {
+			r := frame.AppliedResultant(lay.Model, c)
+			sum.Fx, sum.Fy, sum.M = sum.Fx+r.Fx, sum.Fy+r.Fy, sum.M+r.M
+		}
+		want := frame.AppliedResultant(mo, 0)
+		if abs(sum.Fx-want.Fx) > 1e-9 || abs(sum.Fy-want.Fy) > 1e-9 || abs(sum.M-want.M) > 1e-7 {
+			t.Errorf("%v: columns sum to %+v, case is %+v", mode, sum, want)
+		}
+	}
+}

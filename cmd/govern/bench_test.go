@@ -30,7 +30,7 @@ func BenchmarkRun(b *testing.B) {
 				if err != nil {
 					b.Fatal(err)
 				}
-				if err := a.writeJSON(io.Discard); err != nil {
+				if err := a.writeJSON(io.Discard, a.balances()); err != nil {
 					b.Fatal(err)
 				}
 			}

@@ -48,20 +48,12 @@ See docs/combinations.md for the built-in sets and the rule format.`,
 		if err != nil {
 			return err
 		}
-		var outs []*output
+		var outs []output
 		if f.csv != "" {
-			o := &output{path: f.csv}
-			if err := writeCombosCSV(&o.buf, job); err != nil {
-				return err
-			}
-			outs = append(outs, o)
+			outs = append(outs, output{path: f.csv, write: func(w io.Writer) error { return writeCombosCSV(w, job) }})
 		}
 		if f.csv != "-" {
-			o := &output{path: "-"}
-			if err := writeCombosTable(&o.buf, job); err != nil {
-				return err
-			}
-			outs = append(outs, o)
+			outs = append(outs, output{path: "-", write: func(w io.Writer) error { return writeCombosTable(w, job) }})
 		}
 		return commitOutputs(env.stdout, args[0], outs)
 	},

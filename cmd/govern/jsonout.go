@@ -8,6 +8,7 @@ import (
 	"strconv"
 
 	"govern/envelope"
+	"govern/frame"
 )
 
 // jsonFormat names the layout of the JSON output; it changes when the layout does.
@@ -17,7 +18,7 @@ const jsonFormat = "govern.envelopes/1"
 // docs/output.md). It streams: a large frame's envelopes are written as
 // they are formatted, one station to a line, without building the document
 // in memory. Names are encoded once and reused.
-func (a *analysis) writeJSON(w io.Writer) error {
+func (a *analysis) writeJSON(w io.Writer, bal []caseBalance) error {
 	mo := a.job.Model
 	j := &jsonWriter{w: bufio.NewWriterSize(w, 1<<16)}
 	combo := make([][]byte, len(a.env.Combinations))
@@ -89,6 +90,24 @@ func (a *analysis) writeJSON(w io.Writer) error {
 		j.raw(", ")
 		ext("M", r.M, reactionForces)
 		j.raw("}")
+	}
+	j.raw("\n ],\n \"statics\": [")
+	for i, cb := range bal {
+		b := cb.b
+		res := func(r frame.Resultant) {
+			j.raw("{\"Fx\": ").num(r.Fx).raw(", \"Fy\": ").num(r.Fy).raw(", \"M\": ").num(r.M).raw("}")
+		}
+		j.sep(i, ",").raw("\n  {\"case\": ").str(cb.name).raw(", \"loads\": ")
+		res(b.Applied)
+		j.raw(", \"reactions\": ")
+		res(b.Reactions)
+		j.raw(", \"joint_residual\": {\"force\": ").num(b.JointForce).raw(", \"moment\": ").num(b.JointMoment).raw("}")
+		j.raw(", \"relative\": ").num(b.Relative()).raw(", \"limit\": ").num(staticsLimit)
+		if cb.ok() {
+			j.raw(", \"ok\": true}")
+		} else {
+			j.raw(", \"ok\": false}")
+		}
 	}
 	j.raw("\n ],\n \"caution\": ").str(caution).raw("\n}\n")
 	if j.err != nil {

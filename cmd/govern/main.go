@@ -45,7 +45,7 @@ func usagef(format string, args ...any) error {
 var commands []*command
 
 func init() {
-	commands = []*command{cmdRun, cmdCheck, cmdCombos, cmdDemo}
+	commands = []*command{cmdRun, cmdCheck, cmdCombos, cmdDemo, cmdVerify}
 }
 
 func main() {

@@ -10,19 +10,21 @@ import (
 type runFlags struct {
 	json, csv       string
 	comparePatterns bool
+	crossCheck      bool
 }
 
 func addRunFlags(fs *flag.FlagSet, f *runFlags) {
 	fs.StringVar(&f.json, "json", "", "write the envelopes as JSON to `FILE` (- for standard output)")
 	fs.StringVar(&f.csv, "csv", "", "write the envelopes as CSV to `FILE` (- for standard output), one row per member, station and effect")
 	fs.BoolVar(&f.comparePatterns, "compare-patterns", false, "report how far the code pattern arrangements fall short of exact placement, member by member, instead of the envelopes")
+	fs.BoolVar(&f.crossCheck, "cross-check", false, "solve every case again by moment distribution and print the largest difference in member end moments")
 }
 
 var cmdRun = &command{
 	name:  "run",
-	usage: "[--json FILE] [--csv FILE] [--compare-patterns] MODEL.toml",
+	usage: "[--json FILE] [--csv FILE] [--compare-patterns] [--cross-check] MODEL.toml",
 	short: "analyse a model and report its envelopes",
-	long: `
+	long: fmt.Sprintf(`
 Run reads the model file, solves every load case by the direct stiffness
 method, combines the cases into the model's load combinations and reports,
 for every member, the largest and smallest axial force N, shear V and
@@ -40,8 +42,21 @@ are written to a file as well; flags may come before or after the model path.
 Files are written whole or not at all. When JSON or CSV goes to standard
 output the summary tables are not printed.
 
+Every run checks statics for each load case: the reactions against the
+applied loads in X, Y and moment about the origin, and the largest
+out-of-balance force and moment at any joint. The check is printed and
+carried in the JSON; a case out of balance by more than %g of its load
+fails the run and nothing is written.
+
+With --cross-check every case is solved a second time by moment
+distribution (Hardy Cross), independently of the stiffness solver, and the
+largest difference in member end moments is printed. The method applies to
+frames of horizontal beams and vertical columns whose joints are held
+vertically, either held against sway or with a single storey free to sway;
+for any other model the report says why it does not apply.
+
 See docs/model-format.md for the model file and docs/conventions.md for
-the signs.`,
+the signs.`, staticsLimit),
 	flags: func(fs *flag.FlagSet) any {
 		f := &runFlags{}
 		addRunFlags(fs, f)
@@ -76,18 +91,34 @@ func (a *analysis) report(stdout io.Writer, model string, f *runFlags) error {
 	if f.json == "-" && f.csv == "-" {
 		return usagef("only one of --json and --csv can go to standard output")
 	}
+	toStdout := f.json == "-" || f.csv == "-"
+	if f.crossCheck && toStdout {
+		return usagef("--cross-check prints a table, so --json and --csv cannot go to standard output with it")
+	}
+	bal := a.balances()
+	if err := staticsError(bal); err != nil {
+		return err
+	}
 	var outs []output
 	if f.json != "" {
-		outs = append(outs, output{path: f.json, write: a.writeJSON})
+		outs = append(outs, output{path: f.json, write: func(w io.Writer) error { return a.writeJSON(w, bal) }})
 	}
 	if f.csv != "" {
 		outs = append(outs, output{path: f.csv, write: a.writeCSV})
 	}
-	if f.json != "-" && f.csv != "-" {
+	if !toStdout {
 		outs = append(outs, output{path: "-", write: func(w io.Writer) error {
 			a.writeHeading(w)
 			if err := a.writeSummary(w); err != nil {
 				return err
+			}
+			if err := a.writeStatics(w, bal); err != nil {
+				return err
+			}
+			if f.crossCheck {
+				if err := a.writeCrossCheck(w); err != nil {
+					return err
+				}
 			}
 			_, err := fmt.Fprintf(w, "\n%s\n", caution)
 			return err
