@@ -301,29 +301,48 @@ func (e *evaluator) aggregate(w *work) {
 			for j := range top {
 				top[j][0], top[j][1] = top[j][0][:0], top[j][1][:0]
 			}
+			// Only the positive sums (and the rare exact zeros) are
+			// accumulated; the negative ones are the total less them.
+			var tot [3]float64
+			var zero [3][3]float64
 			for i, v := range units {
+				tot[0] += v[0]
+				tot[1] += v[1]
+				tot[2] += v[2]
 				for j := range 3 {
 					x := v[j]
-					if x == 0 {
+					s, a := 0, x
+					switch {
+					case x > 0:
+						t := &sum[j][0]
+						t[0] += v[0]
+						t[1] += v[1]
+						t[2] += v[2]
+					case x < 0:
+						s, a = 1, -x
+					default:
+						z := &zero[j]
+						z[0] += v[0]
+						z[1] += v[1]
+						z[2] += v[2]
 						continue
 					}
-					s, a := 0, x
-					if x < 0 {
-						s, a = 1, -x
-					}
-					t := &sum[j][s]
-					t[0] += v[0]
-					t[1] += v[1]
-					t[2] += v[2]
+					count[j][s]++
 					if a > big[j][s] {
 						big[j][s] = a
 					}
-					count[j][s]++
 					// Units under spanShare of the largest so far can never be
 					// listed; skipping them keeps the heaps quiet.
-					if h := top[j][s]; a >= spanShare*big[j][s] && (len(h) < w.limit || a > h[0].a) {
-						top[j][s] = keepLargest(h, candidate{piece: i, a: a}, w.limit)
+					if a >= spanShare*big[j][s] {
+						if h := top[j][s]; len(h) < w.limit || a > h[0].a {
+							top[j][s] = keepLargest(h, candidate{piece: i, a: a}, w.limit)
+						}
 					}
+				}
+			}
+			for j := range 3 {
+				for q := range 3 {
+					sum[j][1][q] = tot[q] - sum[j][0][q] - zero[j][q]
 				}
 			}
 			w.sum[p], w.big[p], w.count[p] = sum, big, count

@@ -48,20 +48,79 @@ func (b Balance) Relative() float64 {
 }
 
 // Balance returns the statics check of case c.
-func (sol *Solution) Balance(c int) Balance {
+func (sol *Solution) Balance(c int) Balance { return sol.BalanceOf([]int{c}) }
+
+// BalanceOf returns the statics check of cases cs acting together: their
+// loads against the reactions of their summed displacements, with the joint
+// residuals of that sum. Checking a patterned case through the sum of its
+// pieces costs one pass over the members, not one per piece.
+func (sol *Solution) BalanceOf(cs []int) Balance {
 	mo := sol.model
-	b := Balance{Applied: AppliedResultant(mo, c), Length: extent(mo)}
-	for v, nd := range mo.Nodes {
-		if nd.Support == Free {
-			continue
+	nn, nm := len(mo.Nodes), len(mo.Members)
+	b := Balance{Length: extent(mo)}
+	u := make([]float64, 3*nn)
+	fem := make([]float64, 6*nm)
+	acc := make([]float64, 3*nn) // node loads less the end forces on the members
+	for _, c := range cs {
+		r := AppliedResultant(mo, c)
+		b.Applied = Resultant{Fx: b.Applied.Fx + r.Fx, Fy: b.Applied.Fy + r.Fy, M: b.Applied.M + r.M}
+		b.Load += loadSize(mo, c, b.Length)
+		for i := range u {
+			u[i] += sol.u(c, i)
 		}
-		fx, fy, m := sol.Reaction(c, v)
-		b.Reactions.Fx += fx
-		b.Reactions.Fy += fy
-		b.Reactions.M += m + nd.X*fy - nd.Y*fx
+		for i, m := range sol.loaded[c] {
+			for k := range 6 {
+				fem[6*int(m)+k] += sol.fem[c][6*i+k]
+			}
+		}
+		for _, nl := range mo.Cases[c].NodeLoads {
+			acc[3*nl.Node] += nl.Fx
+			acc[3*nl.Node+1] += nl.Fy
+			acc[3*nl.Node+2] += nl.M
+		}
 	}
-	b.JointForce, b.JointMoment = sol.residuals(c)
-	b.Load = loadSize(mo, c, b.Length)
+	for m, mem := range mo.Members {
+		e := &sol.elems[m]
+		var ug, ul, f, g [6]float64
+		copy(ug[:3], u[3*mem.Start:])
+		copy(ug[3:], u[3*mem.End:])
+		e.toLocal(&ul, &ug)
+		for i := range 6 {
+			v := fem[6*m+i]
+			for j := range 6 {
+				v += e.k[i][j] * ul[j]
+			}
+			f[i] = v
+		}
+		e.toGlobal(&g, &f)
+		for i := range 3 {
+			acc[3*mem.Start+i] -= g[i]
+			acc[3*mem.End+i] -= g[3+i]
+		}
+	}
+	for v, nd := range mo.Nodes {
+		for d := range 3 {
+			r := acc[3*v+d]
+			switch {
+			case nd.Support.Restrained(d):
+				// The reaction balances what is left at a held direction.
+				switch d {
+				case 0:
+					b.Reactions.Fx -= r
+					b.Reactions.M += nd.Y * r // −Y·Rx with Rx = −r
+				case 1:
+					b.Reactions.Fy -= r
+					b.Reactions.M -= nd.X * r // X·Ry with Ry = −r
+				case 2:
+					b.Reactions.M -= r
+				}
+			case d == 2:
+				b.JointMoment = math.Max(b.JointMoment, math.Abs(r))
+			default:
+				b.JointForce = math.Max(b.JointForce, math.Abs(r))
+			}
+		}
+	}
 	return b
 }
 

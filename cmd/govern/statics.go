@@ -3,10 +3,8 @@ package main
 import (
 	"fmt"
 	"io"
-	"runtime"
 	"strconv"
 	"strings"
-	"sync"
 
 	"govern/frame"
 )
@@ -26,57 +24,14 @@ func (cb caseBalance) ok() bool { return cb.b.Relative() <= staticsLimit }
 
 // balances returns the statics check of every load case of the model. A
 // patterned case was solved as several loads (its rest and its pieces or
-// arrangements); each is checked, and the case's check adds them up: loads
-// and reactions sum exactly, and the sum of the joint residuals bounds the
-// residual of the whole. The loads are checked concurrently.
+// arrangements); it is checked whole, through the sum of their solutions.
 func (a *analysis) balances() []caseBalance {
 	cs := a.job.Model.Cases
-	cols := make([][]int, len(cs))
-	var all []int
-	for c := range cs {
-		cols[c] = a.lay.Whole(c)
-		all = append(all, cols[c]...)
-	}
-	each := make(map[int]frame.Balance, len(all))
-	var mu sync.Mutex
-	var wg sync.WaitGroup
-	next := make(chan int, len(all))
-	for _, c := range all {
-		next <- c
-	}
-	close(next)
-	for range min(runtime.GOMAXPROCS(0), len(all)) {
-		wg.Add(1)
-		go func() {
-			defer wg.Done()
-			for c := range next {
-				b := a.sol.Balance(c)
-				mu.Lock()
-				each[c] = b
-				mu.Unlock()
-			}
-		}()
-	}
-	wg.Wait()
 	out := make([]caseBalance, len(cs))
 	for c := range cs {
-		var sum frame.Balance
-		for _, col := range cols[c] {
-			b := each[col]
-			sum.Applied = add(sum.Applied, b.Applied)
-			sum.Reactions = add(sum.Reactions, b.Reactions)
-			sum.JointForce += b.JointForce
-			sum.JointMoment += b.JointMoment
-			sum.Load += b.Load
-			sum.Length = b.Length
-		}
-		out[c] = caseBalance{name: cs[c].Name, b: sum}
+		out[c] = caseBalance{name: cs[c].Name, b: a.sol.BalanceOf(a.lay.Whole(c))}
 	}
 	return out
-}
-
-func add(a, b frame.Resultant) frame.Resultant {
-	return frame.Resultant{Fx: a.Fx + b.Fx, Fy: a.Fy + b.Fy, M: a.M + b.M}
 }
 
 // staticsError returns an error naming every case whose statics check fails,
