@@ -305,6 +305,7 @@ func (e *evaluator) aggregate(w *work) {
 			// accumulated; the negative ones are the total less them.
 			var tot [3]float64
 			var zero [3][3]float64
+			var thr [3][2]float64
 			for i, v := range units {
 				tot[0] += v[0]
 				tot[1] += v[1]
@@ -331,12 +332,17 @@ func (e *evaluator) aggregate(w *work) {
 					if a > big[j][s] {
 						big[j][s] = a
 					}
-					// Units under spanShare of the largest so far can never be
-					// listed; skipping them keeps the heaps quiet.
-					if a >= spanShare*big[j][s] {
-						if h := top[j][s]; len(h) < w.limit || a > h[0].a {
-							top[j][s] = keepLargest(h, candidate{piece: i, a: a}, w.limit)
+					// thr is what a unit must reach to be listed: spanShare of
+					// the largest so far and, once the heap is full, more than
+					// its smallest. Most units fall short at this one test.
+					if a >= thr[j][s] {
+						h := keepLargest(top[j][s], candidate{piece: i, a: a}, w.limit)
+						top[j][s] = h
+						t := spanShare * big[j][s]
+						if len(h) == w.limit && h[0].a > t {
+							t = math.Nextafter(h[0].a, math.Inf(1))
 						}
+						thr[j][s] = t
 					}
 				}
 			}
@@ -472,7 +478,9 @@ func (e *evaluator) spans(w *work, out *[3]Extreme) {
 					cut := share * w.big[p][j][s]
 					for _, c := range w.top[p][j][s] {
 						if c.a >= cut {
-							w.cand[k] = keepLargest(w.cand[k], candidate{piece: pc.Units[c.piece].Pieces[0], a: c.a}, limit)
+							// Factored, so that pieces of cases with different
+							// factors rank fairly against each other.
+							w.cand[k] = keepLargest(w.cand[k], candidate{piece: pc.Units[c.piece].Pieces[0], a: c.a * math.Abs(f)}, limit)
 						}
 					}
 				case patterns.Code:
@@ -492,10 +500,36 @@ func (e *evaluator) spans(w *work, out *[3]Extreme) {
 	}
 	total := 0
 	for k := range w.tmp {
-		for _, x := range w.cand[k] {
-			w.tmp[k] = append(w.tmp[k], x.piece)
+		if c := w.cand[k]; len(c) > 0 {
+			// Exact placement: the most influential first.
+			slices.SortFunc(c, func(x, y candidate) int {
+				if x.less(y) {
+					return 1
+				}
+				if y.less(x) {
+					return -1
+				}
+				return 0
+			})
+			// A piece repeats only when a combination names its case twice.
+			var seen map[int]bool
+			if len(c) > 32 {
+				seen = make(map[int]bool, len(c))
+			}
+			for _, x := range c {
+				if seen != nil {
+					if seen[x.piece] {
+						continue
+					}
+					seen[x.piece] = true
+				} else if slices.Contains(w.tmp[k], x.piece) {
+					continue
+				}
+				w.tmp[k] = append(w.tmp[k], x.piece)
+			}
+		} else {
+			sortUnique(&w.tmp[k])
 		}
-		sortUnique(&w.tmp[k])
 		total += len(w.tmp[k])
 	}
 	for j := range 3 {

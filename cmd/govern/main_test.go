@@ -133,7 +133,7 @@ func TestRunFilesAndCSV(t *testing.T) {
 	if code != 0 {
 		t.Fatalf("exit %d: %s", code, stderr)
 	}
-	if !strings.Contains(out, "Member envelopes") || !strings.Contains(out, "M (kN·m)") {
+	if !strings.Contains(out, "Governing design values") || !strings.Contains(out, "+M (kN·m)") || !strings.Contains(out, "Columns on line A") {
 		t.Errorf("summary missing:\n%s", out)
 	}
 	f, _ := os.Open(cs)

@@ -2,6 +2,7 @@ package main
 
 import (
 	"bufio"
+	"bytes"
 	"fmt"
 	"io"
 	"os"
@@ -26,6 +27,34 @@ func commitOutputs(stdout io.Writer, model string, outs []output) error {
 			return fmt.Errorf("refusing to write %s: it is the model file", o.path)
 		}
 	}
+	nfiles := 0
+	for _, o := range outs {
+		if o.path != "-" {
+			nfiles++
+		}
+	}
+	if nfiles == 0 {
+		// Nothing to keep whole: stream straight out.
+		for _, o := range outs {
+			if err := o.write(stdout); err != nil {
+				return err
+			}
+		}
+		return nil
+	}
+	// Standard output is rendered into memory alongside the files (the two
+	// only read the results), and written once the files are in place.
+	var screen bytes.Buffer
+	var screenErr error
+	done := make(chan struct{})
+	go func() {
+		defer close(done)
+		for _, o := range outs {
+			if o.path == "-" && screenErr == nil {
+				screenErr = o.write(&screen)
+			}
+		}
+	}()
 	var temps []string
 	defer func() {
 		for _, t := range temps {
@@ -33,16 +62,24 @@ func commitOutputs(stdout io.Writer, model string, outs []output) error {
 		}
 	}()
 	var files []output
+	var err error
 	for _, o := range outs {
 		if o.path == "-" {
 			continue
 		}
-		tmp, err := writeTemp(o.path, o.write)
-		if err != nil {
-			return err
+		var tmp string
+		if tmp, err = writeTemp(o.path, o.write); err != nil {
+			break
 		}
 		temps = append(temps, tmp)
 		files = append(files, o)
+	}
+	<-done
+	if err != nil {
+		return err
+	}
+	if screenErr != nil {
+		return screenErr
 	}
 	for i, o := range files {
 		if err := os.Rename(temps[i], o.path); err != nil {
@@ -50,14 +87,8 @@ func commitOutputs(stdout io.Writer, model string, outs []output) error {
 		}
 	}
 	temps = nil
-	for _, o := range outs {
-		if o.path == "-" {
-			if err := o.write(stdout); err != nil {
-				return err
-			}
-		}
-	}
-	return nil
+	_, err = stdout.Write(screen.Bytes())
+	return err
 }
 
 // writeTemp writes a temporary file beside path with write and returns its name.
