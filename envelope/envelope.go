@@ -8,6 +8,7 @@ import (
 	"runtime"
 	"slices"
 	"sync"
+	"sync/atomic"
 
 	"govern/combos"
 	"govern/frame"
@@ -68,6 +69,9 @@ type Settings struct {
 	// AllSpans lists every loaded piece in MaxSpans and MinSpans, not only
 	// those with at least spanShare of the largest piece's effect.
 	AllSpans bool
+	// Progress, when not nil, counts the stations enveloped so far, for a
+	// caller that reports progress from another goroutine.
+	Progress *atomic.Int64
 }
 
 // Envelope is the result of [Compute].
@@ -254,6 +258,9 @@ func (e *evaluator) member(w *work, sol *frame.Solution, m int) Member {
 		}
 		ex := e.station(w)
 		st[i] = Station{X: x, N: ex[0], V: ex[1], M: ex[2]}
+	}
+	if e.set.Progress != nil {
+		e.set.Progress.Add(int64(ns))
 	}
 	return Member{Member: m, Stations: st}
 }

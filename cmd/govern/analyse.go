@@ -36,20 +36,24 @@ type analysis struct {
 // analyse places the patterned loads, solves every load case of the job
 // and forms the envelopes.
 func analyse(job *modelfile.Job) (*analysis, error) {
-	return analyseWith(job, job.Patterns)
+	return analyseWith(job, job.Patterns, nil)
 }
 
-// analyseWith is analyse with the pattern placement mode given.
-func analyseWith(job *modelfile.Job, mode patterns.Mode) (*analysis, error) {
+// analyseWith is analyse with the pattern placement mode given, reporting
+// progress to p when it is not nil.
+func analyseWith(job *modelfile.Job, mode patterns.Mode, p *progress) (*analysis, error) {
 	lay, err := patterns.Expand(job.Model, job.Patterned, job.Segments, mode)
 	if err != nil {
 		return nil, err
 	}
+	p.phase(fmt.Sprintf("solving %d loads (%d load cases, %d pattern pieces or arrangements)", len(lay.Model.Cases), len(job.Model.Cases), len(lay.Model.Cases)-len(job.Model.Cases)), 0)
 	sol, err := frame.Solve(lay.Model)
 	if err != nil {
 		return nil, err
 	}
-	env, err := envelope.Compute(sol, job.Combinations, job.Settings, lay)
+	set := job.Settings
+	set.Progress = p.counter(fmt.Sprintf("solved %d loads; enveloping stations", len(lay.Model.Cases)), int64(len(job.Model.Members)*set.Stations))
+	env, err := envelope.Compute(sol, job.Combinations, set, lay)
 	if err != nil {
 		return nil, err
 	}

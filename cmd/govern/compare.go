@@ -40,11 +40,11 @@ func comparePatterns(w io.Writer, job *modelfile.Job) error {
 	set.AllSpans = true
 	j2 := *job
 	j2.Settings = set
-	ex, err := analyseWith(&j2, patterns.Exact)
+	ex, err := analyseWith(&j2, patterns.Exact, nil)
 	if err != nil {
 		return err
 	}
-	code, err := analyseWith(&j2, patterns.Code)
+	code, err := analyseWith(&j2, patterns.Code, nil)
 	if err != nil {
 		return err
 	}

@@ -55,7 +55,9 @@ edit; an existing file is not overwritten.`,
 		if err != nil {
 			return err
 		}
-		a, err := analyse(job)
+		p := newProgress(env.stderr, env.name, f.quiet)
+		a, err := analyseWith(job, job.Patterns, p)
+		p.end()
 		if err != nil {
 			return err
 		}

@@ -11,18 +11,20 @@ type runFlags struct {
 	json, csv       string
 	comparePatterns bool
 	crossCheck      bool
+	quiet           bool
 }
 
 func addRunFlags(fs *flag.FlagSet, f *runFlags) {
 	fs.StringVar(&f.json, "json", "", "write the envelopes as JSON to `FILE` (- for standard output)")
 	fs.StringVar(&f.csv, "csv", "", "write the envelopes as CSV to `FILE` (- for standard output), one row per member, station and effect")
 	fs.BoolVar(&f.comparePatterns, "compare-patterns", false, "report how far the code pattern arrangements fall short of exact placement, member by member, instead of the envelopes")
+	fs.BoolVar(&f.quiet, "quiet", false, "print nothing on success: no tables, no progress line (files are still written)")
 	fs.BoolVar(&f.crossCheck, "cross-check", false, "solve every case again by moment distribution and print the largest difference in member end moments")
 }
 
 var cmdRun = &command{
 	name:  "run",
-	usage: "[--json FILE] [--csv FILE] [--compare-patterns] [--cross-check] MODEL.toml",
+	usage: "[--json FILE] [--csv FILE] [--quiet] [--compare-patterns] [--cross-check] MODEL.toml",
 	short: "analyse a model and report its envelopes",
 	long: fmt.Sprintf(`
 Run reads the model file, solves every load case by the direct stiffness
@@ -39,7 +41,9 @@ placement at its worst station, and which spans make the difference.
 
 With --json or --csv the full envelopes, at every station of every member,
 are written to a file as well; flags may come before or after the model path.
-Files are written whole or not at all. When JSON or CSV goes to standard
+Files are written whole or not at all. A run that takes more than a
+second or two shows its progress on standard error when that is a
+terminal; --quiet prints nothing but errors. When JSON or CSV goes to standard
 output the summary tables are not printed.
 
 Every run checks statics for each load case: the reactions against the
@@ -77,11 +81,14 @@ the signs.`, staticsLimit),
 			}
 			return comparePatterns(env.stdout, job)
 		}
-		a, err := analyse(job)
-		if err != nil {
-			return err
+		p := newProgress(env.stderr, env.name, f.quiet)
+		a, err := analyseWith(job, job.Patterns, p)
+		if err == nil {
+			p.phase("writing results", 0)
+			err = a.report(env.stdout, args[0], f)
 		}
-		return a.report(env.stdout, args[0], f)
+		p.end()
+		return err
 	},
 }
 
@@ -106,7 +113,7 @@ func (a *analysis) report(stdout io.Writer, model string, f *runFlags) error {
 	if f.csv != "" {
 		outs = append(outs, output{path: f.csv, write: a.writeCSV})
 	}
-	if !toStdout {
+	if !toStdout && !f.quiet {
 		outs = append(outs, output{path: "-", write: func(w io.Writer) error {
 			a.writeHeading(w)
 			if err := a.writeSummary(w); err != nil {
