@@ -84,22 +84,7 @@ func Solve(mo *Model) (*Solution, error) {
 	}
 	kb := min(band, n-1)
 	w := kb + 1
-	data := make([]float64, n*w)
-	for m, mem := range mo.Members {
-		g := sol.elems[m].global()
-		ends := [2]int{mem.Start, mem.End}
-		for i := range 6 {
-			ei := dof[3*ends[i/3]+i%3]
-			if ei < 0 {
-				continue
-			}
-			for j := range 6 {
-				if ej := dof[3*ends[j/3]+j%3]; ej >= ei {
-					data[ei*w+ej-ei] += g[i][j]
-				}
-			}
-		}
-	}
+	data := sol.assemble(n, kb)
 	if err := sol.checkDiagonal(data, kb, dof); err != nil {
 		return nil, err
 	}
@@ -129,8 +114,40 @@ func Solve(mo *Model) (*Solution, error) {
 		return nil, fmt.Errorf("frame: %w: condition number %.3g", ErrIllConditioned, sol.cond)
 	}
 
-	// Right-hand sides, row-major n × nc: node loads less the fixed-end
-	// forces of the member loads.
+	x := sol.rhs(n)
+	bandSolve(u.Data, n, kb, x, nc)
+	sol.x = x
+	return sol, nil
+}
+
+// assemble returns the stiffness matrix in upper band storage, row-major
+// with kb superdiagonals: entry (i, j), j >= i, at [i*(kb+1)+j-i].
+func (sol *Solution) assemble(n, kb int) []float64 {
+	mo, dof, w := sol.model, sol.dof, kb+1
+	data := make([]float64, n*w)
+	for m, mem := range mo.Members {
+		g := sol.elems[m].global()
+		ends := [2]int{mem.Start, mem.End}
+		for i := range 6 {
+			ei := dof[3*ends[i/3]+i%3]
+			if ei < 0 {
+				continue
+			}
+			for j := range 6 {
+				if ej := dof[3*ends[j/3]+j%3]; ej >= ei {
+					data[ei*w+ej-ei] += g[i][j]
+				}
+			}
+		}
+	}
+	return data
+}
+
+// rhs returns the right-hand sides, row-major n × cases: node loads less
+// the fixed-end forces of the member loads.
+func (sol *Solution) rhs(n int) []float64 {
+	mo, dof := sol.model, sol.dof
+	nc := len(mo.Cases)
 	x := make([]float64, n*nc)
 	for c := range mo.Cases {
 		for _, nl := range mo.Cases[c].NodeLoads {
@@ -152,9 +169,7 @@ func Solve(mo *Model) (*Solution, error) {
 			}
 		}
 	}
-	bandSolve(u.Data, n, kb, x, nc)
-	sol.x = x
-	return sol, nil
+	return x
 }
 
 // maxCond is the condition number past which the solution would have no
