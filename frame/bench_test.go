@@ -106,7 +106,7 @@ func TestRowMajorSolveMatchesGonum(t *testing.T) {
 	u, _ := lapack64.Pbtrf(a)
 	got := append([]float64(nil), rhs...)
 	bandSolve(u.Data, n, kb, got, nc)
-	const tol = 1e-10 // relative to the largest displacement
+	const tol = 1e-10                     // relative to the largest displacement
 	scale := mat.Norm(&want, math.Inf(1)) // largest row sum bounds every entry
 	for i := range n {
 		for c := range nc {
