@@ -7,5 +7,18 @@
 // variable (may be absent where its presence would help); the envelope
 // package uses that to investigate "loads not acting".
 //
-// Nothing in this package mutates the cases it is given.
+// A [Set] is a list of combination rules, such as ASCE/SEI 7-16 section
+// 2.3.1 or EN 1990 expression 6.10, that [Set.Generate] expands against the
+// kinds of a model's cases. Sets are data in a small TOML format of this
+// package's own (docs/combinations.md): [Standard] returns the built-in
+// ones, embedded from the sets folder, and [ParseSet] reads an office's own.
+// The ψ factors of EN 1990 Table A1.1 are in [Categories]; a case's own
+// values, its reversibility and its category travel in [CaseInfo].
+//
+// Generated combinations are named after their rule and factors, such as
+// "2.3.1-3 1.2D+1.6S+0.5W", and their Rule field names the set and rule.
+// Factors are rounded to 12 significant digits, so that 1.5 × 0.7 is 1.05.
+//
+// Nothing in this package mutates the cases, case information or sets it is
+// given.
 package combos

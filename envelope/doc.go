@@ -15,6 +15,11 @@
 // acting; with EN 1990 this is γQ = 0 for favourable variable actions).
 // [Settings.AsWritten] makes every case always act instead.
 //
+// Cases patterned by package patterns are placed piece by piece: every
+// extreme records the pieces loaded to produce it and the other forces
+// acting with it in that same loading (see docs/patterns.md).
+//
 // Combination indices in results refer to the slice given to [Compute];
-// -1 means no combination.
+// -1 means no combination. Compute never mutates the solution, the
+// combinations or the layout it is given.
 package envelope

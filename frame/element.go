@@ -139,11 +139,7 @@ var gauss3 = [3]struct{ x, w float64 }{
 
 // intensity returns the local components of a distributed load at ξ.
 func (ld *MemberLoad) intensity(xi, c, s float64) (qx, qy float64) {
-	w := ld.W
-	if ld.To > ld.From {
-		w += (ld.WEnd - ld.W) * (xi - ld.From) / (ld.To - ld.From)
-	}
-	return ld.Direction.local(w, c, s)
+	return ld.Direction.local(ld.IntensityAt(xi), c, s)
 }
 
 // addFixedEnd adds to f the fixed-end forces (forces the nodes exert on a

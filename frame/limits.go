@@ -14,7 +14,7 @@ const (
 	// MaxStorage is the largest number of float64 values (8 bytes each;
 	// 2^28 values is 2 GiB) the solver may hold at once: the stiffness band
 	// and its factor, the load vectors and solutions of every case, and the
-	// member end forces.
+	// fixed-end forces.
 	MaxStorage = 1 << 28
 )
 
@@ -47,14 +47,15 @@ func checkEquations(mo *Model) error {
 
 // storage returns the number of float64 values Solve holds at once for n
 // equations of half-bandwidth band: the band and its factor (and a third
-// copy while a mechanism is being diagnosed), right-hand sides and
-// solutions, displacements and reactions, and fixed-end and end forces.
+// copy while a mechanism is being diagnosed), the right-hand sides that
+// become the displacements, and at most six fixed-end forces a member in
+// every case.
 func storage(mo *Model, n, band int) float64 {
 	kb := float64(min(band, max(n-1, 0)))
 	nc := float64(max(len(mo.Cases), 1))
 	fn := float64(n)
-	nodes, members := float64(len(mo.Nodes)), float64(len(mo.Members))
-	return 3*fn*(kb+1) + fn*nc + nc*(2*3*nodes+2*6*members)
+	members := float64(len(mo.Members))
+	return 3*fn*(kb+1) + fn*nc + nc*6*members
 }
 
 // checkStorage refuses a system that would need more than MaxStorage values.

@@ -68,6 +68,16 @@ type MemberLoad struct {
 	At, P float64 // point: position, 0 <= At <= length, and magnitude
 }
 
+// IntensityAt returns the intensity of a distributed load at distance x
+// from the member start, interpolated linearly between W at From and WEnd
+// at To.
+func (ld *MemberLoad) IntensityAt(x float64) float64 {
+	if !(ld.To > ld.From) {
+		return ld.W
+	}
+	return ld.W + (ld.WEnd-ld.W)*(x-ld.From)/(ld.To-ld.From)
+}
+
 // NodeLoad is a force and moment applied at a node, in global axes.
 type NodeLoad struct {
 	Node      int

@@ -3,23 +3,42 @@ package frame
 import (
 	"fmt"
 	"math"
+	"runtime"
+	"slices"
 	"sort"
+	"sync"
+
+	"gonum.org/v1/gonum/blas"
+	"gonum.org/v1/gonum/blas/blas64"
+	"gonum.org/v1/gonum/lapack"
+	"gonum.org/v1/gonum/lapack/lapack64"
 )
 
-// Solution holds the displacements and member end forces of every load case
-// of a model, solved together.
+// Solution holds the displacements of every load case of a model, solved
+// together. Member end forces, station values and reactions are computed
+// from them on demand, so memory grows with nodes × cases, not members ×
+// cases.
 type Solution struct {
 	model *Model
 	elems []element
 
-	disp []float64 // [case][3*node+d]
-	end  []float64 // [case][6*member+i], local end forces
-	reac []float64 // [case][3*node+d], global reactions (zero at free dofs)
+	// x holds the free displacements, row-major: x[e*nc+c] is equation e
+	// in case c; dof[3*node+d] is the equation of direction d at a node, or
+	// -1 where the support holds it.
+	x   []float64
+	dof []int
 
-	// byMember[c] lists case c's member loads sorted by member; first[c][m]
-	// is where member m's loads start in that list.
+	// Loads by case and member: for case c, loaded[c] lists the members
+	// carrying loads (ascending), span[c][i] the range of byMember[c] holding
+	// member loaded[c][i]'s loads, and fem[c][6i:6i+6] its fixed-end forces
+	// (local, releases condensed).
+	loaded   [][]int32
+	span     [][][2]int32
 	byMember [][]int32
-	first    [][]int32
+	fem      [][]float64
+
+	// Members meeting at each node, for reactions and residuals.
+	atNode [][]int32
 
 	dofs, band int
 	cond       float64
@@ -39,15 +58,16 @@ func Describe(mo *Model) Info {
 	return Info{Equations: n, Bandwidth: band}
 }
 
-// Solve validates mo, assembles its stiffness matrix, factors it once and
-// solves every load case in one multi-column solve.
+// Solve validates mo, assembles its stiffness matrix in band storage,
+// factors it once with gonum's banded Cholesky (LAPACK dpbtrf) and solves
+// every load case in one multi-column solve.
 //
 // A model past the size limits gets an error wrapping [ErrTooLarge]; a
 // structure that cannot carry load a [*MechanismError]; a stiffness matrix
-// too ill-conditioned for the results to carry any correct digit an error
-// wrapping [ErrIllConditioned]. A matrix ill-conditioned enough to cost the
-// results most of their digits is solved, with a warning in
-// [Solution.Warnings].
+// too ill-conditioned for the results to carry any correct digit, or
+// results that overflow, an error wrapping [ErrIllConditioned] or
+// [ErrNotFinite]. A matrix ill-conditioned enough to cost the results most
+// of their digits is solved, with a warning in [Solution.Warnings].
 func Solve(mo *Model) (*Solution, error) {
 	if err := checkEquations(mo); err != nil {
 		return nil, err
@@ -61,185 +81,125 @@ func Solve(mo *Model) (*Solution, error) {
 	if err := checkStorage(mo, n, band); err != nil {
 		return nil, err
 	}
-	sol := &Solution{model: mo, dofs: n, band: band, cond: 1}
+	sol := &Solution{model: mo, dofs: n, band: band, cond: 1, dof: dof}
 	sol.elems = make([]element, len(mo.Members))
-	for m := range mo.Members {
+	sol.atNode = make([][]int32, len(mo.Nodes))
+	for m, mem := range mo.Members {
 		sol.elems[m] = newElement(mo, m)
+		sol.atNode[mem.Start] = append(sol.atNode[mem.Start], int32(m))
+		if mem.End != mem.Start {
+			sol.atNode[mem.End] = append(sol.atNode[mem.End], int32(m))
+		}
 	}
 	sol.indexLoads()
 
 	nc := len(mo.Cases)
-	nn, nm := len(mo.Nodes), len(mo.Members)
-	// Fixed-end forces of every member in every case, local and condensed.
-	fixed := make([]float64, nc*6*nm)
-	for c := range mo.Cases {
-		cs := &mo.Cases[c]
-		for m := range mo.Members {
-			idx := sol.loadsOn(c, m)
-			if len(idx) == 0 {
-				continue
-			}
-			e := &sol.elems[m]
-			var f [6]float64
-			for _, i := range idx {
-				addFixedEnd(&f, &cs.MemberLoads[i], e.c, e.s, e.l)
-			}
-			e.condenseLoads(&f)
-			copy(fixed[(c*nm+m)*6:], f[:])
-		}
+	if n == 0 {
+		return sol, nil
+	}
+	kb := min(band, n-1)
+	w := kb + 1
+	data := sol.assemble(n, kb)
+	if err := sol.checkDiagonal(data, kb, dof, parts); err != nil {
+		return nil, err
 	}
 
-	sol.disp = make([]float64, nc*3*nn)
-	if n > 0 {
-		kb := min(band, n-1)
-		data := make([]float64, n*(kb+1))
-		for m, mem := range mo.Members {
-			g := sol.elems[m].global()
-			ends := [2]int{mem.Start, mem.End}
-			for i := range 6 {
-				ei := dof[3*ends[i/3]+i%3]
-				if ei < 0 {
-					continue
-				}
-				for j := range 6 {
-					ej := dof[3*ends[j/3]+j%3]
-					if ej < ei {
-						continue
-					}
-					data[ei*(kb+1)+ej-ei] += g[i][j]
-				}
-			}
+	// Factor a copy with gonum's LAPACK band Cholesky; keep the matrix for
+	// the diagnosis of a failure.
+	a := blas64.SymmetricBand{Uplo: blas.Upper, N: n, K: kb, Data: slices.Clone(data), Stride: w}
+	work := make([]float64, 3*n)
+	anorm := lapack64.Lansb(lapack.MaxColumnSum, a, work)
+	u, ok := lapack64.Pbtrf(a)
+	if ok {
+		if rc := lapack64.Pbcon(a, anorm, work, make([]int, n)); rc > 0 {
+			sol.cond = 1 / rc
+		} else {
+			sol.cond = math.Inf(1)
 		}
-		if err := sol.checkDiagonal(data, kb, dof, parts); err != nil {
+	}
+	if !ok || sol.cond > diagnoseCond {
+		if err := sol.diagnose(data, n, kb, dof); err != nil {
 			return nil, err
 		}
-		nr := max(nc, 1)
-		rhs := make([]float64, n*nr) // row-major, one column per case
-		for c := range mo.Cases {
-			for _, nl := range mo.Cases[c].NodeLoads {
-				for d, v := range [3]float64{nl.Fx, nl.Fy, nl.M} {
-					if e := dof[3*nl.Node+d]; e >= 0 {
-						rhs[e*nr+c] += v
-					}
-				}
-			}
-			for m, mem := range mo.Members {
-				fl := (*[6]float64)(fixed[(c*nm+m)*6:])
-				var fg [6]float64
-				sol.elems[m].toGlobal(&fg, fl)
-				ends := [2]int{mem.Start, mem.End}
-				for i := range 6 {
-					if e := dof[3*ends[i/3]+i%3]; e >= 0 && fg[i] != 0 {
-						rhs[e*nr+c] -= fg[i]
-					}
-				}
-			}
+		if !ok {
+			return nil, fmt.Errorf("%w (the matrix is not positive definite although no mechanism was found); %s", ErrIllConditioned, illAdvice)
 		}
-		u, ok := factorBand(data, n, kb)
-		cond := math.Inf(1)
-		if ok {
-			cond = bandCond(data, u, n, kb)
-		}
-		if !ok || cond > diagnoseCond {
-			if err := sol.diagnose(data, n, kb, dof); err != nil {
-				return nil, err
-			}
-			if !ok {
-				return nil, fmt.Errorf("%w (the matrix is not positive definite although no mechanism was found); %s", ErrIllConditioned, illAdvice)
-			}
-		}
-		sol.cond = cond
-		if !(cond <= refuseCond) {
-			return nil, fmt.Errorf("%w: estimated condition number %.2g, so the results would carry no correct digit; %s", ErrIllConditioned, cond, illAdvice)
-		}
-		if cond > warnCond {
-			sol.warnings = append(sol.warnings, fmt.Sprintf("the stiffness matrix is ill-conditioned: estimated condition number %.2g, so results may have lost about %.0f of their 16 significant digits; %s",
-				cond, math.Log10(cond), illAdvice))
-		}
-		solveBandTo(rhs, u, n, kb, nr)
-		for c := range nc {
-			for v := range nn {
-				for d := range 3 {
-					if e := dof[3*v+d]; e >= 0 {
-						sol.disp[c*3*nn+3*v+d] = rhs[e*nr+c]
-					}
-				}
-			}
-		}
+	}
+	if !(sol.cond <= maxCond) {
+		return nil, fmt.Errorf("%w: estimated condition number %.2g, so the results would carry no correct digit; %s", ErrIllConditioned, sol.cond, illAdvice)
+	}
+	if w := condWarning(sol.cond); w != "" {
+		sol.warnings = append(sol.warnings, w)
 	}
 
-	// Member end forces: f = k u + f_fixed, in local axes.
-	sol.end = make([]float64, nc*6*nm)
-	sol.reac = make([]float64, nc*3*nn)
-	for c := range nc {
-		for m, mem := range mo.Members {
-			e := &sol.elems[m]
-			var ug, ul [6]float64
-			copy(ug[:3], sol.disp[c*3*nn+3*mem.Start:])
-			copy(ug[3:], sol.disp[c*3*nn+3*mem.End:])
-			e.toLocal(&ul, &ug)
-			f := sol.end[(c*nm+m)*6 : (c*nm+m)*6+6]
-			for i := range 6 {
-				v := fixed[(c*nm+m)*6+i]
-				for j := range 6 {
-					v += e.k[i][j] * ul[j]
-				}
-				f[i] = v
-			}
-			// Reactions: R = Σ (end forces on members, global) − node loads.
-			var fg [6]float64
-			e.toGlobal(&fg, (*[6]float64)(f))
-			for i, v := range [2]int{mem.Start, mem.End} {
-				if mo.Nodes[v].Support == Free {
-					continue
-				}
-				for d := range 3 {
-					if mo.Nodes[v].Support.Restrained(d) {
-						sol.reac[c*3*nn+3*v+d] += fg[3*i+d]
-					}
-				}
-			}
-		}
-		for _, nl := range mo.Cases[c].NodeLoads {
-			for d, v := range [3]float64{nl.Fx, nl.Fy, nl.M} {
-				if mo.Nodes[nl.Node].Support.Restrained(d) {
-					sol.reac[c*3*nn+3*nl.Node+d] -= v
-				}
-			}
-		}
-	}
+	x := sol.rhs(n)
+	bandSolve(u.Data, n, kb, x, nc)
+	sol.x = x
 	if err := sol.checkFinite(); err != nil {
 		return nil, err
 	}
 	return sol, nil
 }
 
-// checkFinite reports results that overflowed, which only numbers far
-// outside any consistent set of units can cause.
-func (sol *Solution) checkFinite() error {
-	nn, nm := len(sol.model.Nodes), len(sol.model.Members)
-	for c := range sol.model.Cases {
-		for _, v := range [][]float64{sol.disp[c*3*nn : (c+1)*3*nn], sol.end[c*6*nm : (c+1)*6*nm], sol.reac[c*3*nn : (c+1)*3*nn]} {
-			for _, x := range v {
-				if !finite(x) {
-					return fmt.Errorf("case %q: %w (the arithmetic overflowed); check that loads, E, A and I are in the declared units", sol.model.Cases[c].Name, ErrNotFinite)
+// assemble returns the stiffness matrix in upper band storage, row-major
+// with kb superdiagonals: entry (i, j), j >= i, at [i*(kb+1)+j-i].
+func (sol *Solution) assemble(n, kb int) []float64 {
+	mo, dof, w := sol.model, sol.dof, kb+1
+	data := make([]float64, n*w)
+	for m, mem := range mo.Members {
+		g := sol.elems[m].global()
+		ends := [2]int{mem.Start, mem.End}
+		for i := range 6 {
+			ei := dof[3*ends[i/3]+i%3]
+			if ei < 0 {
+				continue
+			}
+			for j := range 6 {
+				if ej := dof[3*ends[j/3]+j%3]; ej >= ei {
+					data[ei*w+ej-ei] += g[i][j]
 				}
 			}
 		}
 	}
-	return nil
+	return data
 }
 
-// Warnings returns what the engineer should know about the solution that
-// did not stop it, such as an ill-conditioned stiffness matrix; nil when
-// there is nothing to say.
-func (sol *Solution) Warnings() []string { return sol.warnings }
+// rhs returns the right-hand sides, row-major n × cases: node loads less
+// the fixed-end forces of the member loads.
+func (sol *Solution) rhs(n int) []float64 {
+	mo, dof := sol.model, sol.dof
+	nc := len(mo.Cases)
+	x := make([]float64, n*nc)
+	for c := range mo.Cases {
+		for _, nl := range mo.Cases[c].NodeLoads {
+			for d, v := range [3]float64{nl.Fx, nl.Fy, nl.M} {
+				if e := dof[3*nl.Node+d]; e >= 0 {
+					x[e*nc+c] += v
+				}
+			}
+		}
+		for i, m32 := range sol.loaded[c] {
+			m := int(m32)
+			var fg [6]float64
+			sol.elems[m].toGlobal(&fg, (*[6]float64)(sol.fem[c][6*i:]))
+			ends := [2]int{mo.Members[m].Start, mo.Members[m].End}
+			for k := range 6 {
+				if e := dof[3*ends[k/3]+k%3]; e >= 0 {
+					x[e*nc+c] -= fg[k]
+				}
+			}
+		}
+	}
+	return x
+}
 
-// indexLoads sorts each case's member loads by member.
+// indexLoads groups each case's member loads by member and computes their
+// fixed-end forces.
 func (sol *Solution) indexLoads() {
 	mo := sol.model
-	sol.byMember = make([][]int32, len(mo.Cases))
-	sol.first = make([][]int32, len(mo.Cases))
+	nc := len(mo.Cases)
+	sol.loaded, sol.span = make([][]int32, nc), make([][][2]int32, nc)
+	sol.byMember, sol.fem = make([][]int32, nc), make([][]float64, nc)
 	for c := range mo.Cases {
 		loads := mo.Cases[c].MemberLoads
 		idx := make([]int32, len(loads))
@@ -247,60 +207,124 @@ func (sol *Solution) indexLoads() {
 			idx[i] = int32(i)
 		}
 		sort.SliceStable(idx, func(i, j int) bool { return loads[idx[i]].Member < loads[idx[j]].Member })
-		first := make([]int32, len(mo.Members)+1)
-		for _, i := range idx {
-			first[loads[i].Member+1]++
+		var members []int32
+		var spans [][2]int32
+		for i := 0; i < len(idx); {
+			m := loads[idx[i]].Member
+			j := i
+			for j < len(idx) && loads[idx[j]].Member == m {
+				j++
+			}
+			members = append(members, int32(m))
+			spans = append(spans, [2]int32{int32(i), int32(j)})
+			i = j
 		}
-		for m := range mo.Members {
-			first[m+1] += first[m]
+		fem := make([]float64, 6*len(members))
+		for i, m32 := range members {
+			e := &sol.elems[m32]
+			f := (*[6]float64)(fem[6*i:])
+			for _, li := range idx[spans[i][0]:spans[i][1]] {
+				addFixedEnd(f, &loads[li], e.c, e.s, e.l)
+			}
+			e.condenseLoads(f)
 		}
-		sol.byMember[c], sol.first[c] = idx, first
+		sol.loaded[c], sol.span[c], sol.byMember[c], sol.fem[c] = members, spans, idx, fem
 	}
 }
 
-// loadsOn returns the indices of case c's loads on member m.
-func (sol *Solution) loadsOn(c, m int) []int32 {
-	f := sol.first[c]
-	return sol.byMember[c][f[m]:f[m+1]]
+// loadsOn returns the indices of case c's loads on member m and their
+// fixed-end forces (nil when there are none).
+func (sol *Solution) loadsOn(c, m int) ([]int32, *[6]float64) {
+	ms := sol.loaded[c]
+	i, found := slices.BinarySearch(ms, int32(m))
+	if !found {
+		return nil, nil
+	}
+	sp := sol.span[c][i]
+	return sol.byMember[c][sp[0]:sp[1]], (*[6]float64)(sol.fem[c][6*i:])
 }
 
-// Model returns the model that was solved.
-func (sol *Solution) Model() *Model { return sol.model }
-
-// Info returns the size of the system that was solved.
-func (sol *Solution) Info() Info { return Info{Equations: sol.dofs, Bandwidth: sol.band} }
-
-// Cond returns the estimated 1-norm condition number ‖K‖₁ ‖K⁻¹‖₁ of the
-// stiffness matrix K of the free degrees of freedom; 1 when there are none.
-// Results lose about log10(Cond) of the 16 significant digits of float64.
-func (sol *Solution) Cond() float64 { return sol.cond }
-
-// Displacement returns the global displacements (ux, uy, rz) of node v in
-// case c.
-func (sol *Solution) Displacement(c, v int) (ux, uy, rz float64) {
-	d := sol.disp[c*3*len(sol.model.Nodes)+3*v:]
-	return d[0], d[1], d[2]
+// bandSolve overwrites the n × nrhs row-major matrix x with U⁻¹ U⁻ᵀ x,
+// where u is an upper band Cholesky factor (row-major, kb superdiagonals).
+// Rows of x are contiguous, so each step is a long vector update; columns
+// are split into blocks shared among the processors.
+func bandSolve(u []float64, n, kb int, x []float64, nrhs int) {
+	if nrhs == 0 {
+		return
+	}
+	const block = 64
+	nb := (nrhs + block - 1) / block
+	workers := min(runtime.GOMAXPROCS(0), nb)
+	var wg sync.WaitGroup
+	next := make(chan int, nb)
+	for b := range nb {
+		next <- b
+	}
+	close(next)
+	w := kb + 1
+	for range workers {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			for b := range next {
+				lo, hi := b*block, min((b+1)*block, nrhs)
+				// Forward: Uᵀ y = x. Rows above the block's first nonzero
+				// stay zero: a load on one member fills only a few rows.
+				start := n
+			scan:
+				for i := range n {
+					for _, v := range x[i*nrhs+lo : i*nrhs+hi] {
+						if v != 0 {
+							start = i
+							break scan
+						}
+					}
+				}
+				for i := start; i < n; i++ {
+					xi := x[i*nrhs+lo : i*nrhs+hi]
+					d := 1 / u[i*w]
+					for k := range xi {
+						xi[k] *= d
+					}
+					for j := 1; j < w && i+j < n; j++ {
+						uij := u[i*w+j]
+						if uij == 0 {
+							continue
+						}
+						axpy(x[(i+j)*nrhs+lo:(i+j)*nrhs+hi], -uij, xi)
+					}
+				}
+				// Backward: U x = y.
+				for i := n - 1; i >= 0; i-- {
+					xi := x[i*nrhs+lo : i*nrhs+hi]
+					for j := 1; j < w && i+j < n; j++ {
+						uij := u[i*w+j]
+						if uij == 0 {
+							continue
+						}
+						axpy(xi, -uij, x[(i+j)*nrhs+lo:(i+j)*nrhs+hi])
+					}
+					d := 1 / u[i*w]
+					for k := range xi {
+						xi[k] *= d
+					}
+				}
+			}
+		}()
+	}
+	wg.Wait()
 }
 
-// EndForces returns the local forces the nodes exert on member m in case c:
-// start axial, transverse, moment; end axial, transverse, moment.
-func (sol *Solution) EndForces(c, m int) [6]float64 {
-	return [6]float64(sol.end[(c*len(sol.model.Members)+m)*6:])
-}
-
-// Reaction returns the global reaction (Fx, Fy, M) at node v in case c;
-// components the support does not restrain are zero.
-func (sol *Solution) Reaction(c, v int) (fx, fy, m float64) {
-	r := sol.reac[c*3*len(sol.model.Nodes)+3*v:]
-	return r[0], r[1], r[2]
-}
-
-// At returns the internal forces of member m in case c at distance x from
-// its start. Values come from the end forces and the member's own loads by
-// statics, never by interpolation. At a point load the value just before the
-// load is returned.
-func (sol *Solution) At(c, m int, x float64) Forces {
-	e := &sol.elems[m]
-	f := sol.end[(c*len(sol.model.Members)+m)*6:]
-	return stationForces(f[0], f[1], f[2], x, e.l, e.c, e.s, sol.model.Cases[c].MemberLoads, sol.loadsOn(c, m))
+// axpy adds a·x to y; len(y) == len(x). Unrolled by four, which lets the
+// compiler keep independent sums in flight.
+func axpy(y []float64, a float64, x []float64) {
+	x = x[:len(y)]
+	k := 0
+	for ; k+4 <= len(y); k += 4 {
+		y0, y1, y2, y3 := y[k]+a*x[k], y[k+1]+a*x[k+1], y[k+2]+a*x[k+2], y[k+3]+a*x[k+3]
+		y[k], y[k+1], y[k+2], y[k+3] = y0, y1, y2, y3
+	}
+	for ; k < len(y); k++ {
+		y[k] += a * x[k]
+	}
 }

@@ -44,8 +44,7 @@ func AppliedResultant(mo *Model, c int) Resultant {
 		h, mid := (hi-lo)/2, (lo+hi)/2
 		for _, g := range gauss3 {
 			xi := mid + h*g.x
-			w := ld.W + (ld.WEnd-ld.W)*(xi-ld.From)/math.Max(ld.To-ld.From, math.SmallestNonzeroFloat64)
-			at(xi, w*g.w*h)
+			at(xi, ld.IntensityAt(xi)*g.w*h)
 		}
 	}
 	return r
@@ -56,29 +55,6 @@ func AppliedResultant(mo *Model, c int) Resultant {
 // sum of the member end forces acting on the node. It is round-off for a
 // correct solution.
 func (sol *Solution) Residual(c int) float64 {
-	mo := sol.model
-	acc := make([]float64, 3*len(mo.Nodes))
-	for _, nl := range mo.Cases[c].NodeLoads {
-		acc[3*nl.Node] += nl.Fx
-		acc[3*nl.Node+1] += nl.Fy
-		acc[3*nl.Node+2] += nl.M
-	}
-	for m, mem := range mo.Members {
-		f := sol.EndForces(c, m)
-		var g [6]float64
-		sol.elems[m].toGlobal(&g, &f)
-		for i := range 3 {
-			acc[3*mem.Start+i] -= g[i]
-			acc[3*mem.End+i] -= g[3+i]
-		}
-	}
-	worst := 0.0
-	for v, nd := range mo.Nodes {
-		for d := range 3 {
-			if !nd.Support.Restrained(d) {
-				worst = math.Max(worst, math.Abs(acc[3*v+d]))
-			}
-		}
-	}
-	return worst
+	b := sol.Balance(c)
+	return math.Max(b.JointForce, b.JointMoment)
 }

@@ -20,12 +20,13 @@ type demoFlags struct {
 
 var cmdDemo = &command{
 	name:  "demo",
-	usage: "[--json FILE] [--csv FILE] [--write FILE]",
+	usage: "[--json FILE] [--csv FILE] [--cross-check] [--write FILE]",
 	short: "run the analysis on a built-in demonstration model",
 	long: `
 Demo analyses a built-in model of a fictional five-storey, three-bay
 reinforced concrete office frame with dead, floor live, roof live and wind
-load cases and strength combinations, and reports as 'govern run' does.
+load cases and the strength combinations of ASCE/SEI 7-16 section 2.3.1,
+and reports as 'govern run' does.
 
 With --write FILE it writes that model out instead, as a starting point to
 edit; an existing file is not overwritten.`,
@@ -57,7 +58,9 @@ edit; an existing file is not overwritten.`,
 		if err := checkSize(job, &f.runFlags); err != nil {
 			return fmt.Errorf("demo.toml: %w", err)
 		}
-		a, err := analyse(job)
+		p := newProgress(env.stderr, env.name, f.quiet)
+		a, err := analyseWith(job, job.Patterns, p)
+		p.end()
 		if err != nil {
 			return fmt.Errorf("demo.toml: %w", err)
 		}

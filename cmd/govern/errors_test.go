@@ -5,6 +5,7 @@ import (
 	"errors"
 	"flag"
 	"fmt"
+	"io"
 	"os"
 	"path/filepath"
 	"strings"
@@ -112,10 +113,10 @@ func TestExitStatusAndPrefix(t *testing.T) {
 func TestPanicIsReportedNotRaised(t *testing.T) {
 	model := writeDemo(t)
 	out := filepath.Join(filepath.Dir(model), "env.json")
-	defer func(f func(*os.File, []byte) error) { fill = f }(fill)
-	fill = func(*os.File, []byte) error { panic("simulated fault") }
+	defer func(f func(*os.File) io.Writer) { tempWriter = f }(tempWriter)
+	tempWriter = func(f *os.File) io.Writer { return &faulty{w: f, after: 0, panics: true} }
 	code, stdout, stderr := exec("run", "--json", out, model)
-	want := "govern run: internal error: simulated fault\ngovern run: no output was written; please report this with the model that caused it\n"
+	want := "govern run: internal error: interrupted (simulated)\ngovern run: no output was written; please report this with the model that caused it\n"
 	if code != 1 || stderr != want || stdout != "" {
 		t.Errorf("exit %d, stdout %q, stderr %q; want 1 and %q", code, stdout, stderr, want)
 	}
@@ -123,6 +124,29 @@ func TestPanicIsReportedNotRaised(t *testing.T) {
 		t.Error("an output was left behind")
 	}
 	assertNoTemporaries(t, filepath.Dir(out))
+}
+
+// faulty passes the first after bytes written through it to w, then fails
+// as a full disk would, or panics as an interrupted run would.
+type faulty struct {
+	w      io.Writer
+	after  int
+	panics bool
+}
+
+var errDisk = errors.New("no space left on device (simulated)")
+
+func (f *faulty) Write(p []byte) (int, error) {
+	if len(p) <= f.after {
+		f.after -= len(p)
+		return f.w.Write(p)
+	}
+	n, _ := f.w.Write(p[:f.after])
+	f.after = 0
+	if f.panics {
+		panic("interrupted (simulated)")
+	}
+	return n, errDisk
 }
 
 // assertNoTemporaries fails if a temporary output file is left in dir.
@@ -149,34 +173,29 @@ func TestInterruptedWriteLeavesThePreviousFile(t *testing.T) {
 	if err := os.WriteFile(other, bytes.Replace(demoModel, []byte("stations = 11"), []byte("stations = 5"), 1), 0o644); err != nil {
 		t.Fatal(err)
 	}
-	errDisk := errors.New("no space left on device (simulated)")
 	for _, tc := range []struct {
 		name string
-		fill func(calls int, f *os.File, data []byte) error
+		temp func(file int, f *os.File) io.Writer // the writer of the file-th temporary file
 	}{
-		{"the disk fills half way through the first file", func(_ int, f *os.File, data []byte) error {
-			f.Write(data[:len(data)/2])
-			return errDisk
+		{"the disk fills part way through the first file", func(_ int, f *os.File) io.Writer {
+			return &faulty{w: f, after: 1000}
 		}},
-		{"the first file is written, the second fails half way", func(calls int, f *os.File, data []byte) error {
-			if calls == 1 {
-				_, err := f.Write(data)
-				return err
+		{"the first file is written, the second fails part way", func(file int, f *os.File) io.Writer {
+			if file == 1 {
+				return f
 			}
-			f.Write(data[:len(data)/2])
-			return errDisk
+			return &faulty{w: f, after: 1000}
 		}},
-		{"the run is stopped half way through a write", func(_ int, f *os.File, data []byte) error {
-			f.Write(data[:len(data)/2])
-			panic("interrupted (simulated)")
+		{"the run is stopped part way through a write", func(_ int, f *os.File) io.Writer {
+			return &faulty{w: f, after: 1000, panics: true}
 		}},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
-			defer func(f func(*os.File, []byte) error) { fill = f }(fill)
-			calls := 0
-			fill = func(f *os.File, data []byte) error {
-				calls++
-				return tc.fill(calls, f, data)
+			defer func(f func(*os.File) io.Writer) { tempWriter = f }(tempWriter)
+			files := 0
+			tempWriter = func(f *os.File) io.Writer {
+				files++
+				return tc.temp(files, f)
 			}
 			if code, _, _ := exec("run", "--json", js, "--csv", cs, other); code != 1 {
 				t.Errorf("exit %d, want 1", code)
@@ -267,6 +286,7 @@ func TestCheckReportsStability(t *testing.T) {
 }
 
 func TestOutputSizeLimits(t *testing.T) {
+	longName := strings.Repeat("1.2D+1.6L+", 11) // 110 characters
 	// 20 bays × 24 storeys: 21 × 24 columns and 20 × 24 beams, 984 members;
 	// at 1001 stations, 984,984 station values, under maxPoints.
 	src := fmt.Sprintf(`[analysis]
@@ -288,9 +308,9 @@ kind = "dead"
 name = "L"
 kind = "live"
 [[combination]]
-name = "1.2D+1.6L+0.5Lr"
+name = "%s"
 factors = { D = 1.2, L = 1.6 }
-`, strings.Repeat("6.0, ", 19), strings.Repeat("3.5, ", 23))
+`, strings.Repeat("6.0, ", 19), strings.Repeat("3.5, ", 23), longName)
 	job, err := modelfile.Read("big.toml", []byte(src))
 	if err != nil {
 		t.Fatal(err)
@@ -298,9 +318,9 @@ factors = { D = 1.2, L = 1.6 }
 	if err := checkSize(job, &runFlags{csv: "env.csv"}); err != nil {
 		t.Errorf("CSV refused: %v", err)
 	}
-	// JSON: 984,984 × (450 + 6 × 17) bytes, the name being 17 characters
+	// JSON: 984,984 × (450 + 6 × 112) bytes, the name being 112 characters
 	// as a JSON string, plus 984 × (120 + 3 × 9) for the members.
-	want := fmt.Sprintf("the JSON output would be about %d MiB; the limit is 512 MiB: use fewer stations", (984984*(450+6*17)+984*(120+3*9)+1<<20-1)>>20)
+	want := fmt.Sprintf("the JSON output would be about %d MiB; the limit is 1024 MiB: use fewer stations", (984984*(450+6*112)+984*(120+3*9)+1<<20-1)>>20)
 	if err := checkSize(job, &runFlags{json: "env.json"}); err == nil || err.Error() != want {
 		t.Errorf("err = %v, want %s", err, want)
 	}
@@ -318,7 +338,7 @@ func TestCappedWriterStopsAtTheLimit(t *testing.T) {
 		t.Fatalf("write up to the limit: %v", err)
 	}
 	_, err := c.Write([]byte("d"))
-	if !errors.Is(err, errTooLarge) || err.Error() != "output too large: the JSON output passed 512 MiB" {
+	if !errors.Is(err, errTooLarge) || err.Error() != "output too large: the JSON output passed 1024 MiB" {
 		t.Errorf("err = %v", err)
 	}
 	if b.String() != "abc" {

@@ -9,23 +9,27 @@ import (
 	"govern/cmd/govern/modelfile"
 )
 
-// Output limits, checked from the model before any analysis, so that a
-// slip such as a million stations is refused before memory runs out; see
-// docs/errors.md. Outputs are built in memory and written whole.
+// Output limits, so that a slip such as a thousand stations on a large
+// frame is refused with a clear message rather than filling memory or the
+// disk; see docs/errors.md.
 const (
 	// maxPoints is the most station values the envelopes may hold:
-	// members × stations.
+	// members × stations. Checked before the analysis.
 	maxPoints = 1_000_000
 	// maxOutput is the largest output (JSON, CSV or summary), in bytes.
-	maxOutput = 512 << 20
+	// Refused before the analysis when a quick estimate already passes it,
+	// else stopped while being written, the previous file kept.
+	maxOutput = 1 << 30
 )
 
 // errTooLarge marks an output past maxOutput.
 var errTooLarge = errors.New("output too large")
 
 // checkSize refuses a job whose envelopes or requested outputs would be
-// past the limits. The output sizes are estimates from above: numbers at
-// their longest, names at their longest.
+// past the limits. The output sizes are quick estimates of the part of each
+// station's record that is always there (numbers at their longest, names
+// at their longest, but no lists of loaded spans), so an output they pass
+// certainly passes the limit; capped stops any other while it is written.
 func checkSize(job *modelfile.Job, f *runFlags) error {
 	members := len(job.Model.Members)
 	stations := job.Settings.Stations

@@ -133,7 +133,7 @@ func TestRunFilesAndCSV(t *testing.T) {
 	if code != 0 {
 		t.Fatalf("exit %d: %s", code, stderr)
 	}
-	if !strings.Contains(out, "Member envelopes") || !strings.Contains(out, "M (kN·m)") {
+	if !strings.Contains(out, "Governing design values") || !strings.Contains(out, "+M (kN·m)") || !strings.Contains(out, "Columns on line A") {
 		t.Errorf("summary missing:\n%s", out)
 	}
 	f, _ := os.Open(cs)
@@ -142,7 +142,7 @@ func TestRunFilesAndCSV(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	if got := strings.Join(rows[0], ","); got != "member,x (m),effect,max,max_by,min,min_by,unit" {
+	if got := strings.Join(rows[0], ","); got != "member,x (m),effect,max,max_by,min,min_by,unit,max_spans,min_spans,max_loaded,min_loaded,max_with_N,max_with_V,max_with_M,min_with_N,min_with_V,min_with_M" {
 		t.Errorf("CSV header %q", got)
 	}
 	if len(rows) != 1+35*11*3 {
@@ -203,5 +203,35 @@ func TestDemoWrite(t *testing.T) {
 	}
 	if code, _, stderr := exec("demo", "--write", p); code != 1 || !strings.Contains(stderr, "not overwriting") {
 		t.Errorf("second write: exit %d, %q", code, stderr)
+	}
+}
+
+func TestComparePatterns(t *testing.T) {
+	model := writeDemo(t)
+	code, out, stderr := exec("run", "--compare-patterns", model)
+	if code != 0 {
+		t.Fatalf("exit %d: %s", code, stderr)
+	}
+	// One row per member; the code arrangements never beat exact placement,
+	// so no shortfall is negative.
+	rows := 0
+	for _, line := range strings.Split(out, "\n") {
+		f := strings.Split(line, "│")
+		if len(f) < 9 || strings.TrimSpace(f[1]) == "member" {
+			continue
+		}
+		rows++
+		if v := strings.TrimSpace(f[7]); strings.HasPrefix(v, "-") {
+			t.Errorf("negative shortfall: %s", line)
+		}
+	}
+	if rows != 35 {
+		t.Errorf("%d member rows, want 35:\n%s", rows, out)
+	}
+	plain := strings.Replace(string(demoModel), "pattern = true", "pattern = false", -1)
+	p := filepath.Join(t.TempDir(), "plain.toml")
+	os.WriteFile(p, []byte(plain), 0o644)
+	if code, _, stderr := exec("run", "--compare-patterns", p); code != 1 || !strings.Contains(stderr, "no case has pattern = true") {
+		t.Errorf("without patterned cases: exit %d, %q", code, stderr)
 	}
 }

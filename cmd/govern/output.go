@@ -2,11 +2,9 @@ package main
 
 import (
 	"encoding/csv"
-	"encoding/json"
-	"fmt"
 	"io"
-	"math"
 	"strconv"
+	"strings"
 
 	"github.com/olekukonko/tablewriter"
 	"github.com/olekukonko/tablewriter/tw"
@@ -14,62 +12,18 @@ import (
 	"govern/envelope"
 )
 
-// jsonFormat names the layout of the JSON output; it changes when the layout does.
-const jsonFormat = "govern.envelopes/1"
+var (
+	memberForces   = [3]string{"N", "V", "M"}
+	reactionForces = [3]string{"Fx", "Fy", "M"}
+)
 
-type jsonExtreme struct {
-	Max   float64 `json:"max"`
-	MaxBy string  `json:"max_by"`
-	Min   float64 `json:"min"`
-	MinBy string  `json:"min_by"`
-}
-
-type jsonStation struct {
-	X float64     `json:"x"`
-	N jsonExtreme `json:"N"`
-	V jsonExtreme `json:"V"`
-	M jsonExtreme `json:"M"`
-}
-
-type jsonMember struct {
-	Name     string        `json:"name"`
-	Start    string        `json:"start"`
-	End      string        `json:"end"`
-	Length   float64       `json:"length"`
-	Stations []jsonStation `json:"stations"`
-}
-
-type jsonReaction struct {
-	Node string      `json:"node"`
-	Fx   jsonExtreme `json:"Fx"`
-	Fy   jsonExtreme `json:"Fy"`
-	M    jsonExtreme `json:"M"`
-}
-
-type jsonCombination struct {
-	Name    string             `json:"name"`
-	Factors map[string]float64 `json:"factors"`
-}
-
-type jsonOutput struct {
-	Format string `json:"format"`
-	Title  string `json:"title"`
-	Units  struct {
-		Force  string `json:"force"`
-		Length string `json:"length"`
-	} `json:"units"`
-	Settings struct {
-		Stations      int    `json:"stations"`
-		VariableLoads string `json:"variable_loads"`
-	} `json:"settings"`
-	Combinations []jsonCombination `json:"combinations"`
-	Members      []jsonMember      `json:"members"`
-	Reactions    []jsonReaction    `json:"reactions"`
-	Caution      string            `json:"caution"`
-}
-
-func (a *analysis) extreme(e envelope.Extreme) jsonExtreme {
-	return jsonExtreme{Max: clean(e.Max), MaxBy: a.comboName(e.MaxBy), Min: clean(e.Min), MinBy: a.comboName(e.MinBy)}
+// spanNames names the pattern pieces of an extreme; never nil.
+func (a *analysis) spanNames(idx []int) []string {
+	out := make([]string, len(idx))
+	for i, p := range idx {
+		out[i] = a.env.Pieces[p].Name
+	}
+	return out
 }
 
 func (a *analysis) comboName(k int) string {
@@ -94,49 +48,13 @@ func variableLoads(asWritten bool) string {
 	return "adverse"
 }
 
-// writeJSON writes the envelopes in the govern.envelopes/1 layout.
-func (a *analysis) writeJSON(w io.Writer) error {
-	mo := a.job.Model
-	var out jsonOutput
-	out.Format = jsonFormat
-	out.Title = a.job.Title
-	out.Units.Force, out.Units.Length = a.job.Units.Force, a.job.Units.Length
-	out.Settings.Stations = a.env.Settings.Stations
-	out.Settings.VariableLoads = variableLoads(a.env.Settings.AsWritten)
-	out.Caution = caution
-	out.Combinations = make([]jsonCombination, len(a.env.Combinations))
-	for i, cb := range a.env.Combinations {
-		f := map[string]float64{}
-		for _, t := range cb.Terms {
-			f[mo.Cases[t.Case].Name] += t.Factor
-		}
-		out.Combinations[i] = jsonCombination{Name: cb.Name, Factors: f}
-	}
-	out.Members = make([]jsonMember, len(a.env.Members))
-	for i, em := range a.env.Members {
-		m := mo.Members[em.Member]
-		jm := jsonMember{Name: m.Name, Start: mo.Nodes[m.Start].Name, End: mo.Nodes[m.End].Name, Length: mo.Length(em.Member)}
-		jm.Stations = make([]jsonStation, len(em.Stations))
-		for j, st := range em.Stations {
-			jm.Stations[j] = jsonStation{X: st.X, N: a.extreme(st.N), V: a.extreme(st.V), M: a.extreme(st.M)}
-		}
-		out.Members[i] = jm
-	}
-	out.Reactions = make([]jsonReaction, len(a.env.Reactions))
-	for i, r := range a.env.Reactions {
-		out.Reactions[i] = jsonReaction{Node: mo.Nodes[r.Node].Name, Fx: a.extreme(r.Fx), Fy: a.extreme(r.Fy), M: a.extreme(r.M)}
-	}
-	enc := json.NewEncoder(w)
-	enc.SetIndent("", " ")
-	return enc.Encode(&out)
-}
-
 // writeCSV writes one row per member, station and effect.
 func (a *analysis) writeCSV(w io.Writer) error {
 	mo := a.job.Model
 	u := a.job.Units
 	cw := csv.NewWriter(w)
-	if err := cw.Write([]string{"member", "x (" + u.Length + ")", "effect", "max", "max_by", "min", "min_by", "unit"}); err != nil {
+	if err := cw.Write([]string{"member", "x (" + u.Length + ")", "effect", "max", "max_by", "min", "min_by", "unit",
+		"max_spans", "min_spans", "max_loaded", "min_loaded", "max_with_N", "max_with_V", "max_with_M", "min_with_N", "min_with_V", "min_with_M"}); err != nil {
 		return err
 	}
 	for _, em := range a.env.Members {
@@ -146,7 +64,10 @@ func (a *analysis) writeCSV(w io.Writer) error {
 				name, unit string
 				x          envelope.Extreme
 			}{{"N", u.Force, st.N}, {"V", u.Force, st.V}, {"M", u.Moment(), st.M}} {
-				if err := cw.Write([]string{name, strconv.FormatFloat(st.X, 'g', 12, 64), e.name, num(e.x.Max), a.comboName(e.x.MaxBy), num(e.x.Min), a.comboName(e.x.MinBy), e.unit}); err != nil {
+				x := e.x
+				if err := cw.Write([]string{name, strconv.FormatFloat(st.X, 'g', 12, 64), e.name, num(x.Max), a.comboName(x.MaxBy), num(x.Min), a.comboName(x.MinBy), e.unit,
+					strings.Join(a.spanNames(x.MaxSpans), " "), strings.Join(a.spanNames(x.MinSpans), " "), strconv.Itoa(x.MaxLoaded), strconv.Itoa(x.MinLoaded),
+					num(x.MaxWith[0]), num(x.MaxWith[1]), num(x.MaxWith[2]), num(x.MinWith[0]), num(x.MinWith[1]), num(x.MinWith[2])}); err != nil {
 					return err
 				}
 			}
@@ -180,75 +101,4 @@ func newTable(w io.Writer, header ...string) *tablewriter.Table {
 	}
 	t.Header(h...)
 	return t
-}
-
-// peak is the governing value of one effect over a member's stations.
-type peak struct {
-	v, x float64
-	by   int
-}
-
-// writeSummary prints, per member, the governing max and min of N, V and M
-// with where they occur, then the reaction envelopes.
-func (a *analysis) writeSummary(w io.Writer) error {
-	mo := a.job.Model
-	u := a.job.Units
-	l := u.Length
-	rows := [][]string{}
-	for _, em := range a.env.Members {
-		name := mo.Members[em.Member].Name
-		for _, e := range []struct {
-			label string
-			get   func(envelope.Station) envelope.Extreme
-		}{
-			{"N (" + u.Force + ")", func(s envelope.Station) envelope.Extreme { return s.N }},
-			{"V (" + u.Force + ")", func(s envelope.Station) envelope.Extreme { return s.V }},
-			{"M (" + u.Moment() + ")", func(s envelope.Station) envelope.Extreme { return s.M }},
-		} {
-			hi, lo := peak{v: math.Inf(-1)}, peak{v: math.Inf(1)}
-			for _, st := range em.Stations {
-				x := e.get(st)
-				if x.Max > hi.v {
-					hi = peak{x.Max, st.X, x.MaxBy}
-				}
-				if x.Min < lo.v {
-					lo = peak{x.Min, st.X, x.MinBy}
-				}
-			}
-			rows = append(rows, []string{name, e.label, fixed(hi.v), fixed(hi.x), a.comboName(hi.by), fixed(lo.v), fixed(lo.x), a.comboName(lo.by)})
-			name = ""
-		}
-	}
-	fmt.Fprintf(w, "Member envelopes (x from the member's start, in %s)\n", l)
-	t := newTable(w, "member", "effect", "max", "at x", "governing", "min", "at x", "governing")
-	if err := t.Bulk(rows); err != nil {
-		return err
-	}
-	if err := t.Render(); err != nil {
-		return err
-	}
-	if len(a.env.Reactions) == 0 {
-		return nil
-	}
-	rows = rows[:0]
-	for _, r := range a.env.Reactions {
-		node := mo.Nodes[r.Node]
-		name := node.Name
-		for d, e := range []struct {
-			label string
-			x     envelope.Extreme
-		}{{"Fx (" + u.Force + ")", r.Fx}, {"Fy (" + u.Force + ")", r.Fy}, {"M (" + u.Moment() + ")", r.M}} {
-			if !node.Support.Restrained(d) {
-				continue
-			}
-			rows = append(rows, []string{name, e.label, fixed(e.x.Max), a.comboName(e.x.MaxBy), fixed(e.x.Min), a.comboName(e.x.MinBy)})
-			name = ""
-		}
-	}
-	fmt.Fprintf(w, "\nReactions (global: +X right, +Y up, M counter-clockwise)\n")
-	t = newTable(w, "node", "component", "max", "governing", "min", "governing")
-	if err := t.Bulk(rows); err != nil {
-		return err
-	}
-	return t.Render()
 }

@@ -5,35 +5,63 @@ import (
 	"fmt"
 	"io"
 	"path/filepath"
+	"strings"
 )
 
 type runFlags struct {
-	json, csv string
+	json, csv       string
+	comparePatterns bool
+	crossCheck      bool
+	quiet           bool
 }
 
 func addRunFlags(fs *flag.FlagSet, f *runFlags) {
 	fs.StringVar(&f.json, "json", "", "write the envelopes as JSON to `FILE` (- for standard output)")
 	fs.StringVar(&f.csv, "csv", "", "write the envelopes as CSV to `FILE` (- for standard output), one row per member, station and effect")
+	fs.BoolVar(&f.comparePatterns, "compare-patterns", false, "report how far the code pattern arrangements fall short of exact placement, member by member, instead of the envelopes")
+	fs.BoolVar(&f.quiet, "quiet", false, "print nothing on success: no tables, no progress line (files are still written)")
+	fs.BoolVar(&f.crossCheck, "cross-check", false, "solve every case again by moment distribution and print the largest difference in member end moments")
 }
 
 var cmdRun = &command{
 	name:  "run",
-	usage: "[--json FILE] [--csv FILE] MODEL.toml",
+	usage: "[--json FILE] [--csv FILE] [--quiet] [--compare-patterns] [--cross-check] MODEL.toml",
 	short: "analyse a model and report its envelopes",
-	long: `
+	long: fmt.Sprintf(`
 Run reads the model file, solves every load case by the direct stiffness
 method, combines the cases into the model's load combinations and reports,
 for every member, the largest and smallest axial force N, shear V and
 moment M with where along the member they occur and which combination
 governs, then the envelope of every support reaction.
 
+Cases marked pattern = true have their beam loads placed span by span as
+[analysis] patterns says (docs/patterns.md); each extreme then names the
+spans loaded to produce it. With --compare-patterns, run instead reports
+for each member how far the code arrangements fall short of exact
+placement at its worst station, and which spans make the difference.
+
 With --json or --csv the full envelopes, at every station of every member,
 are written to a file as well; flags may come before or after the model path.
-Files are written whole or not at all. When JSON or CSV goes to standard
+Files are written whole or not at all. A run that takes more than a
+second or two shows its progress on standard error when that is a
+terminal; --quiet prints nothing but errors. When JSON or CSV goes to standard
 output the summary tables are not printed.
 
+Every run checks statics for each load case: the reactions against the
+applied loads in X, Y and moment about the origin, and the largest
+out-of-balance force and moment at any joint. The check is printed and
+carried in the JSON; a case out of balance by more than %g of its load
+fails the run and nothing is written.
+
+With --cross-check every case is solved a second time by moment
+distribution (Hardy Cross), independently of the stiffness solver, and the
+largest difference in member end moments is printed. The method applies to
+frames of horizontal beams and vertical columns whose joints are held
+vertically, either held against sway or with a single storey free to sway;
+for any other model the report says why it does not apply.
+
 See docs/model-format.md for the model file and docs/conventions.md for
-the signs.`,
+the signs.`, staticsLimit),
 	flags: func(fs *flag.FlagSet) any {
 		f := &runFlags{}
 		addRunFlags(fs, f)
@@ -51,52 +79,69 @@ the signs.`,
 		if err != nil {
 			return err
 		}
-		if err := checkSize(job, f); err != nil {
-			return fmt.Errorf("%s: %w", filepath.Base(args[0]), err)
-		}
 		name := filepath.Base(args[0])
-		a, err := analyse(job)
-		if err != nil {
+		if f.comparePatterns {
+			if f.json != "" || f.csv != "" {
+				return usagef("--compare-patterns writes no files; leave out --json and --csv")
+			}
+			return comparePatterns(env.stdout, job)
+		}
+		if err := checkSize(job, f); err != nil {
 			return fmt.Errorf("%s: %w", name, err)
 		}
+		p := newProgress(env.stderr, env.name, f.quiet)
+		a, err := analyseWith(job, job.Patterns, p)
+		if err != nil {
+			p.end()
+			return fmt.Errorf("%s: %w", name, err)
+		}
+		p.phase("writing results", 0)
+		err = a.report(env.stdout, args[0], f)
+		p.end()
+		// After the progress line is gone, and below the tables.
 		env.warn(name, a.sol.Warnings())
-		return a.report(env.stdout, args[0], f)
+		return err
 	},
 }
 
 // report writes the requested files and, unless a file goes to standard
 // output, the summary tables.
 func (a *analysis) report(stdout io.Writer, model string, f *runFlags) error {
-	var outs []*output
-	toStdout := false
 	if f.json == "-" && f.csv == "-" {
 		return usagef("only one of --json and --csv can go to standard output")
 	}
+	toStdout := f.json == "-" || f.csv == "-"
+	if f.crossCheck && toStdout {
+		return usagef("--cross-check prints a table, so --json and --csv cannot go to standard output with it")
+	}
+	bal := a.balances()
+	if err := staticsError(bal); err != nil {
+		return err
+	}
+	var outs []output
 	if f.json != "" {
-		o := &output{path: f.json}
-		if err := a.writeJSON(&capped{w: &o.buf, what: "JSON"}); err != nil {
-			return err
-		}
-		outs = append(outs, o)
-		toStdout = toStdout || f.json == "-"
+		outs = append(outs, output{path: f.json, write: func(w io.Writer) error { return a.writeJSON(w, bal) }})
 	}
 	if f.csv != "" {
-		o := &output{path: f.csv}
-		if err := a.writeCSV(&capped{w: &o.buf, what: "CSV"}); err != nil {
-			return err
-		}
-		outs = append(outs, o)
-		toStdout = toStdout || f.csv == "-"
+		outs = append(outs, output{path: f.csv, write: a.writeCSV})
 	}
-	if !toStdout {
-		o := &output{path: "-"}
-		w := &capped{w: &o.buf, what: "summary"}
-		a.writeHeading(w)
-		if err := a.writeSummary(w); err != nil {
+	if !toStdout && !f.quiet {
+		outs = append(outs, output{path: "-", write: func(w io.Writer) error {
+			a.writeHeading(w)
+			if err := a.writeSummary(w); err != nil {
+				return err
+			}
+			if err := a.writeStatics(w, bal); err != nil {
+				return err
+			}
+			if f.crossCheck {
+				if err := a.writeCrossCheck(w); err != nil {
+					return err
+				}
+			}
+			_, err := fmt.Fprintf(w, "\n%s\n", caution)
 			return err
-		}
-		fmt.Fprintf(w, "\n%s\n", caution)
-		outs = append(outs, o)
+		}})
 	}
 	return commitOutputs(stdout, model, outs)
 }
@@ -110,5 +155,12 @@ func (a *analysis) writeHeading(w io.Writer) {
 	info := a.sol.Info()
 	fmt.Fprintf(w, "%d nodes, %d members, %d equations; %d load cases, %d combinations; %d stations per member; variable loads %s\n",
 		len(mo.Nodes), len(mo.Members), info.Equations, len(mo.Cases), len(a.env.Combinations), a.env.Settings.Stations, variableLoads(a.env.Settings.AsWritten))
+	if len(a.job.Patterned) > 0 {
+		var names []string
+		for _, c := range a.job.Patterned {
+			names = append(names, mo.Cases[c].Name)
+		}
+		fmt.Fprintf(w, "Patterned cases %s: %s placement, %d pieces (%d per beam)\n", strings.Join(names, ", "), a.lay.Mode, len(a.lay.Pieces), a.lay.Segments)
+	}
 	fmt.Fprintf(w, "Units: force %s, length %s. N tension positive; M sagging positive (local -y face in tension); V = dM/dx.\n\n", a.job.Units.Force, a.job.Units.Length)
 }

@@ -1,6 +1,7 @@
 package main
 
 import (
+	"bufio"
 	"bytes"
 	"fmt"
 	"io"
@@ -8,21 +9,22 @@ import (
 	"path/filepath"
 )
 
-// output is a file the run was asked to write, filled in memory first.
+// output is something the run was asked to write: a file, or standard
+// output for path "-".
 type output struct {
-	path string // "-" for standard output
-	buf  bytes.Buffer
+	path  string
+	write func(io.Writer) error
 }
 
-// commitOutputs writes the outputs: each file first to a temporary file
-// beside it, synced to disk, and only when every one is complete are they
-// renamed into place, then standard output. A run that fails or is
-// interrupted before the renames leaves every previous file as it was and
-// removes its temporary files; a rename replaces a file whole, never in
-// part. Paths that name the model, a directory, or the same file twice are
-// refused before anything is written.
-func commitOutputs(stdout io.Writer, model string, outs []*output) error {
-	var files []*output
+// commitOutputs writes each file output to a temporary file beside its
+// target, synced to disk, and, once every one has been written whole,
+// renames them into place, so that a failed or interrupted run leaves the
+// previous files untouched and never a partial one; no temporary file stays
+// behind, even after a panic. Standard output is written last. Paths that
+// name the model, a directory, or the same file twice are refused before
+// anything is written. Every output is capped at maxOutput bytes.
+func commitOutputs(stdout io.Writer, model string, outs []output) error {
+	var named []string
 	for _, o := range outs {
 		if o.path == "-" {
 			continue
@@ -33,78 +35,94 @@ func commitOutputs(stdout io.Writer, model string, outs []*output) error {
 		if st, err := os.Stat(o.path); err == nil && st.IsDir() {
 			return fmt.Errorf("cannot write %s: it is a directory", o.path)
 		}
-		for _, p := range files {
-			if sameFile(o.path, p.path) {
+		for _, p := range named {
+			if sameFile(o.path, p) {
 				return fmt.Errorf("refusing to write %s twice: --json and --csv name the same file", o.path)
 			}
 		}
-		files = append(files, o)
+		named = append(named, o.path)
 	}
-	temps := make([]string, len(files))
-	defer func() { // on failure or panic: no temporary file stays behind
-		for _, t := range temps {
-			if t != "" {
-				os.Remove(t)
+	if len(named) == 0 {
+		// Nothing to keep whole: stream straight out.
+		for _, o := range outs {
+			if err := o.write(&capped{w: stdout, what: "standard output"}); err != nil {
+				return err
+			}
+		}
+		return nil
+	}
+	// Standard output is rendered into memory alongside the files (the two
+	// only read the results), and written once the files are in place. A
+	// panic there becomes an error: it cannot be recovered in another
+	// goroutine.
+	var screen bytes.Buffer
+	var screenErr error
+	done := make(chan struct{})
+	go func() {
+		defer close(done)
+		defer func() {
+			if p := recover(); p != nil {
+				screenErr = fmt.Errorf("internal error: %v", p)
+			}
+		}()
+		for _, o := range outs {
+			if o.path == "-" && screenErr == nil {
+				screenErr = o.write(&capped{w: &screen, what: "summary"})
 			}
 		}
 	}()
-	for i, o := range files {
-		t, err := writeTemp(o.path, o.buf.Bytes())
-		if err != nil {
-			return err
+	defer func() { <-done }() // even on a panic below, do not leave it running
+	var temps []string
+	defer func() {
+		for _, t := range temps {
+			os.Remove(t) // left only on failure; renamed ones are gone
 		}
-		temps[i] = t
+	}()
+	var files []output
+	var err error
+	for _, o := range outs {
+		if o.path == "-" {
+			continue
+		}
+		var tmp string
+		if tmp, err = writeTemp(o.path, o.write); err != nil {
+			break
+		}
+		temps = append(temps, tmp)
+		files = append(files, o)
+	}
+	<-done
+	if err != nil {
+		return err
+	}
+	if screenErr != nil {
+		return screenErr
 	}
 	for i, o := range files {
 		if err := os.Rename(temps[i], o.path); err != nil {
 			return fmt.Errorf("cannot write %s: %v", o.path, err)
 		}
-		temps[i] = ""
 	}
-	for _, o := range outs {
-		if o.path == "-" {
-			if _, err := stdout.Write(o.buf.Bytes()); err != nil {
-				return fmt.Errorf("cannot write to standard output: %v", err)
-			}
-		}
-	}
-	return nil
-}
-
-// writeAtomic replaces path with data through a temporary file and a rename.
-func writeAtomic(path string, data []byte) error {
-	t, err := writeTemp(path, data)
-	if err != nil {
-		return err
-	}
-	if err := os.Rename(t, path); err != nil {
-		os.Remove(t)
-		return fmt.Errorf("cannot write %s: %v", path, err)
-	}
-	return nil
-}
-
-// fill writes data to f. Tests replace it to simulate a write that fails or
-// is interrupted part way.
-var fill = func(f *os.File, data []byte) error {
-	_, err := f.Write(data)
+	temps = nil
+	_, err = stdout.Write(screen.Bytes())
 	return err
 }
 
-// writeTemp writes data to a new temporary file in path's folder, named
+// writeTemp writes a temporary file beside path with write, named
 // ".NAME.tmp…", with the permissions of the file it will replace (0644 for
 // a new one), syncs it to disk and returns its name. On any failure, or a
 // panic, it removes the temporary file.
-func writeTemp(path string, data []byte) (tmp string, err error) {
+func writeTemp(path string, write func(io.Writer) error) (string, error) {
 	f, err := os.CreateTemp(filepath.Dir(path), "."+filepath.Base(path)+".tmp*")
 	if err != nil {
 		return "", fmt.Errorf("cannot write %s: %v", path, err)
 	}
-	done := false
+	tmp := f.Name()
+	kept := false
 	defer func() {
-		if !done {
+		if !kept {
 			f.Close()
-			os.Remove(f.Name())
+			os.Remove(tmp)
 		}
 	}()
 	mode := os.FileMode(0o644)
@@ -114,17 +132,42 @@ func writeTemp(path string, data []byte) (tmp string, err error) {
 	if err := f.Chmod(mode); err != nil {
 		return "", fmt.Errorf("cannot write %s: %v", path, err)
 	}
-	if err := fill(f, data); err != nil {
+	bw := bufio.NewWriterSize(tempWriter(f), 1<<16)
+	err = write(&capped{w: bw, what: filepath.Base(path)})
+	if err == nil {
+		err = bw.Flush()
+	}
+	if err == nil {
+		err = f.Sync()
+	}
+	if cerr := f.Close(); err == nil {
+		err = cerr
+	}
+	if err != nil {
 		return "", fmt.Errorf("cannot write %s: %v", path, err)
 	}
-	if err := f.Sync(); err != nil {
-		return "", fmt.Errorf("cannot write %s: %v", path, err)
+	kept = true
+	return tmp, nil
+}
+
+// tempWriter is what a temporary output file is written through. Tests
+// replace it to simulate a write that fails or is interrupted part way.
+var tempWriter = func(f *os.File) io.Writer { return f }
+
+// writeAtomic replaces path with data through a temporary file and a rename.
+func writeAtomic(path string, data []byte) error {
+	tmp, err := writeTemp(path, func(w io.Writer) error {
+		_, err := w.Write(data)
+		return err
+	})
+	if err != nil {
+		return err
 	}
-	if err := f.Close(); err != nil {
-		return "", fmt.Errorf("cannot write %s: %v", path, err)
+	if err := os.Rename(tmp, path); err != nil {
+		os.Remove(tmp)
+		return fmt.Errorf("cannot write %s: %v", path, err)
 	}
-	done = true
-	return f.Name(), nil
+	return nil
 }
 
 // sameFile reports whether a and b name the same file: the same existing

@@ -9,6 +9,7 @@ import (
 
 	"govern/envelope"
 	"govern/frame"
+	"govern/patterns"
 )
 
 // sentinels are the errors every reported problem wraps.
@@ -71,7 +72,11 @@ func FuzzRead(f *testing.F) {
 		if len(mo.Nodes) > fuzzSolveLimit || len(mo.Members) > fuzzSolveLimit || len(mo.Cases) > 20 || len(job.Combinations) > 50 {
 			return
 		}
-		sol, err := frame.Solve(mo)
+		lay, err := patterns.Expand(mo, job.Patterned, job.Segments, job.Patterns)
+		if err != nil || len(lay.Model.Cases) > 100 {
+			return // pattern limits are patterns' to test
+		}
+		sol, err := frame.Solve(lay.Model)
 		if err != nil {
 			var me *frame.MechanismError
 			if !errors.As(err, &me) && !errors.Is(err, frame.ErrTooLarge) && !errors.Is(err, frame.ErrIllConditioned) && !errors.Is(err, frame.ErrNotFinite) {
@@ -79,7 +84,7 @@ func FuzzRead(f *testing.F) {
 			}
 			return
 		}
-		if _, err := envelope.Compute(sol, job.Combinations, job.Settings); err != nil {
+		if _, err := envelope.Compute(sol, job.Combinations, job.Settings, lay); err != nil {
 			t.Fatalf("envelope failed on an accepted model: %v", err)
 		}
 	})

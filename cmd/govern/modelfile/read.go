@@ -11,6 +11,7 @@ import (
 	"govern/combos"
 	"govern/envelope"
 	"govern/frame"
+	"govern/patterns"
 )
 
 // Units are the labels a model declares for its numbers.
@@ -30,6 +31,18 @@ type Job struct {
 	Combinations []combos.Combination
 	Settings     envelope.Settings
 	Grid         *Grid // nil when the file has no [grid]
+
+	// Pattern loading: the cases marked pattern = true, the pieces per
+	// beam and how they are arranged.
+	Patterned []int
+	Segments  int
+	Patterns  patterns.Mode
+
+	// Set is the rule set named in [combinations], nil without one; its
+	// combinations come first in Combinations, then the model's own.
+	Set      *combos.Set
+	Params   combos.Params     // the set's options given in [combinations]
+	CaseInfo []combos.CaseInfo // per case, as Model.Cases: reversible, EN 1990 category and ψ
 }
 
 // Read parses and validates a model file. name is used in messages only.
@@ -37,7 +50,11 @@ type Job struct {
 // alone, since the rest of the file cannot be understood, else every
 // problem the reader finds (at most [MaxProblems], then a count of the
 // rest), in file order.
-func Read(name string, src []byte) (*Job, error) {
+func Read(name string, src []byte) (*Job, error) { return ReadAt("", name, src) }
+
+// ReadAt is [Read] for a model in folder dir: a rule file that
+// [combinations] names is read relative to dir ("" is the current folder).
+func ReadAt(dir, name string, src []byte) (*Job, error) {
 	if len(src) > MaxFileSize {
 		return nil, Errors{{File: name, Err: problem(ErrTooLarge, "the file is %d bytes; the limit is %d (%d MiB)", len(src), MaxFileSize, MaxFileSize>>20)}}
 	}
@@ -57,7 +74,7 @@ func Read(name string, src []byte) (*Job, error) {
 		}
 		return nil, Errors{{File: name, Err: problem(ErrSyntax, "%v", err)}}
 	}
-	r := &reader{file: name, loc: newLocator(text)}
+	r := &reader{file: name, dir: dir, loc: newLocator(text)}
 	job := r.read(raw)
 	if len(r.errs) > 0 {
 		sort.SliceStable(r.errs, func(i, j int) bool { return r.errs[i].Line < r.errs[j].Line })
@@ -83,6 +100,7 @@ func Read(name string, src []byte) (*Job, error) {
 
 type reader struct {
 	file string
+	dir  string // folder of the model, for rule files
 	loc  *locator
 	errs Errors
 
@@ -90,9 +108,11 @@ type reader struct {
 	sections map[string]int
 	nodes    map[string]int
 	members  map[string]int
-	hasW     []bool          // section gives a weight
-	broken   map[string]bool // members named in the file that could not be built
-	memLine  []int           // line defining each member (0 for grid members)
+	hasW     []bool            // section gives a weight
+	broken   map[string]bool   // members named in the file that could not be built
+	memLine  []int             // line defining each member (0 for grid members)
+	caseInfo []combos.CaseInfo // per case, for the combination rules
+	setTable *table            // the [combinations] table, nil without one
 
 	checks // model-wide checks and limits (checks.go)
 }
@@ -120,6 +140,7 @@ func (r *reader) read(raw map[string]any) *Job {
 		u.done()
 	}
 	job.Settings = envelope.Settings{Stations: 11}
+	job.Segments, job.Patterns = 1, patterns.Exact
 	if a := top.sub("analysis", "[analysis]"); a != nil {
 		job.Settings.Stations = a.integer("stations", 11)
 		if job.Settings.Stations < 2 {
@@ -132,6 +153,15 @@ func (r *reader) read(raw map[string]any) *Job {
 		if a.oneOf("variable_loads", vl, "adverse", "as-written") {
 			job.Settings.AsWritten = vl == "as-written"
 		}
+		job.Segments = a.integer("segments", 1)
+		if job.Segments < 1 || job.Segments > maxSegments {
+			a.fail("segments", problem(ErrValue, "segments = %d: must be 1 to %d", job.Segments, maxSegments))
+			job.Segments = 1
+		}
+		pm := a.str("patterns", "exact")
+		if a.oneOf("patterns", pm, "exact", "code", "full", "exhaustive") {
+			job.Patterns, _ = patterns.ParseMode(pm)
+		}
 		a.done()
 	}
 	r.readSections(top.array("section", func(i int, m map[string]any) string { return named("section", i, m) }))
@@ -142,16 +172,22 @@ func (r *reader) read(raw map[string]any) *Job {
 	r.readMembers(top.array("member", func(i int, m map[string]any) string { return named("member", i, m) }))
 	r.readCases(top.array("case", func(i int, m map[string]any) string { return named("case", i, m) }))
 	r.readCombinations(top.array("combination", func(i int, m map[string]any) string { return named("combination", i, m) }))
+	r.readCombinationSet(top.sub("combinations", "[combinations]"))
 	top.done()
 	r.checkModel(top)
+	r.generate()
 	if len(job.Combinations) == 0 {
 		job.Combinations = combos.EachCase(job.Model.Cases)
 	}
 	return job
 }
 
-// maxStations bounds the stations per member.
-const maxStations = 1001
+// maxStations bounds the stations per member, maxSegments the pattern
+// pieces per beam.
+const (
+	maxStations = 1001
+	maxSegments = 20
+)
 
 // named describes element i of an array of tables by its name when it has
 // one, such as `case "L"`, else by its position, such as "case 3".
@@ -358,7 +394,7 @@ var kindWords = []string{"dead", "live", "roof-live", "snow", "rain", "wind", "s
 func (r *reader) readCases(ts []*table) {
 	mo := r.job.Model
 	seen := map[string]bool{}
-	for ci, t := range ts {
+	for _, t := range ts {
 		name := t.str("name", "")
 		if !t.need("name") {
 			t.done()
@@ -387,13 +423,21 @@ func (r *reader) readCases(ts []*table) {
 				}
 			}
 		}
+		if t.boolean("pattern", false) {
+			if c.Kind.Permanent() {
+				t.fail("pattern", problem(ErrValue, "pattern = true: a %s case is permanent and always acts in full; only variable cases are patterned", c.Kind))
+			} else {
+				r.job.Patterned = append(r.job.Patterned, len(mo.Cases))
+			}
+		}
 		loads := t.array("load", func(i int, _ map[string]any) string { return fmt.Sprintf("case %q, load %d", name, i+1) })
 		for _, lt := range loads {
 			r.readLoad(lt, &c)
 		}
-		_ = ci
+		info := r.readCaseInfo(t)
 		t.done()
 		mo.Cases = append(mo.Cases, c)
+		r.caseInfo = append(r.caseInfo, info)
 	}
 }
 

@@ -48,6 +48,7 @@ self_weight = true
 [[case]]
 name = "L"
 kind = "live"
+pattern = true
   [[case.load]]
   type = "udl"
   on = ["level 1"]
@@ -128,6 +129,9 @@ func TestReadGridModel(t *testing.T) {
 		}
 		if len(job.Combinations) != 1 || job.Combinations[0].Factor(1) != 1.6 {
 			t.Errorf("combinations = %+v", job.Combinations)
+		}
+		if len(job.Patterned) != 1 || job.Patterned[0] != 1 || job.Segments != 1 || job.Patterns.String() != "exact" {
+			t.Errorf("patterns: cases %v, segments %d, mode %v", job.Patterned, job.Segments, job.Patterns)
 		}
 	})
 }
@@ -231,6 +235,9 @@ func TestReadErrors(t *testing.T) {
 		{"combination with no factors", `factors = { G = 1.4 }`, `factors = {}`, `m.toml:30: combination "1.4G": factors is empty: a combination needs at least one case`, ErrValue},
 		{"missing required key", "  P = 2\n", "", `m.toml:23: case "G", load 1: P is required`, ErrMissing},
 		{"area load without spacing", "type = \"point\"\n  on = \"a-b\"\n  P = 2\n  at = 1", "type = \"area\"\n  on = \"a-b\"\n  q = 1", `m.toml:26: case "G", load 1: an area load needs [grid] spacing, the distance between parallel frames`, ErrMissing},
+		{"dead load cannot be patterned", `kind = "dead"`, "kind = \"dead\"\npattern = true", `m.toml:23: case "G": pattern = true: a dead case is permanent and always acts in full; only variable cases are patterned`, ErrValue},
+		{"unknown pattern mode", `[[section]]`, "[analysis]\npatterns = \"checkerboard\"\n[[section]]", `m.toml:2: [analysis]: patterns = "checkerboard": must be one of "exact", "code", "full", "exhaustive"`, ErrValue},
+		{"segments out of range", `[[section]]`, "[analysis]\nsegments = 0\n[[section]]", `m.toml:2: [analysis]: segments = 0: must be 1 to 20`, ErrValue},
 		{"fewer than two stations", `[[section]]`, "[analysis]\nstations = 1\n[[section]]", `m.toml:2: [analysis]: stations = 1: need at least 2 (both ends of each member)`, ErrValue},
 	} {
 		t.Run(tc.name, func(t *testing.T) {

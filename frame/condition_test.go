@@ -91,28 +91,3 @@ func TestStiffnessLostInRoundOffIsNamed(t *testing.T) {
 		t.Errorf("error\n got: %s\nwant: %s", err, want)
 	}
 }
-
-func TestBandFactorSolvesTheSystem(t *testing.T) {
-	// A = [4 2 0; 2 5 1; 0 1 3] in upper band storage with kb = 1; A x = b
-	// for x = (1, 2, 3) gives b = (8, 15, 11).
-	a := []float64{4, 2, 5, 1, 3, 0}
-	u, ok := factorBand(a, 3, 1)
-	if !ok {
-		t.Fatal("not positive definite")
-	}
-	b := []float64{8, 15, 11}
-	solveBandTo(b, u, 3, 1, 1)
-	for i, want := range []float64{1, 2, 3} {
-		if !near(b[i], want, tightTol) {
-			t.Errorf("x[%d] = %g, want %g", i, b[i], want)
-		}
-	}
-	if a[0] != 4 || a[2] != 5 {
-		t.Error("factorBand modified its input")
-	}
-	// ‖A‖₁ = 8 (middle column), and A⁻¹ = (1/44)[14 -6 2; -6 12 -4; 2 -4 16]
-	// by cofactors (det A = 44), whose column sums are all 22/44.
-	if got, want := bandCond(a, u, 3, 1), 8*22.0/44; !near(got, want, condTol) {
-		t.Errorf("cond = %g, want %g", got, want)
-	}
-}

@@ -106,21 +106,6 @@ const (
 	spreadNote   = 1e10 // ratio of largest to smallest diagonal that earns a note on units
 )
 
-// Conditioning. Results computed in float64 (about 16 significant digits)
-// lose about log10(κ) digits to a condition number κ. Above warnCond they
-// may have lost most of them and [Solve] warns; above refuseCond none is
-// left and it refuses.
-const (
-	warnCond   = 1e8
-	refuseCond = 1e16
-)
-
-// illAdvice says where to look when the matrix is ill-conditioned.
-const illAdvice = "look for very stiff members next to very flexible ones, or for E, A or I entered in units other than those declared"
-
-// ErrNotFinite is wrapped by the error Solve returns when results overflow.
-var ErrNotFinite = errors.New("the results are not finite numbers")
-
 // unsupportedParts returns the connected parts of the frame (nodes joined by
 // members, releases or not: a hinge still carries force) that contain no
 // supported node, each as its node indices in increasing order, the parts

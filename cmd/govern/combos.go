@@ -1,0 +1,239 @@
+package main
+
+import (
+	"encoding/csv"
+	"flag"
+	"fmt"
+	"io"
+	"strings"
+
+	"govern/cmd/govern/modelfile"
+	"govern/combos"
+	"govern/frame"
+)
+
+type combosFlags struct {
+	csv string
+}
+
+var cmdCombos = &command{
+	name:  "combos",
+	usage: "[--csv FILE] MODEL.toml",
+	short: "list the load combinations a model is analysed for",
+	long: `
+Combos reads the model file and lists every load combination it will be
+analysed for: those the standard or rule file of its [combinations] table
+gives, expanded against the model's load cases, then the model's own
+[[combination]] tables. For each it shows the name, the rule it came from
+and the factor on each load case; a blank means the case is not in the
+combination. Names start with the rule, such as "2.3.1-3 1.2D+1.6S+0.5W"
+for ASCE/SEI 7-16 section 2.3.1 combination 3; "model" marks the model's
+own and "case" a case alone, used when the model gives no combinations.
+
+With --csv the same list is written as CSV, one row per combination and a
+column per load case. Files are written whole or not at all.
+
+See docs/combinations.md for the built-in sets and the rule format.`,
+	flags: func(fs *flag.FlagSet) any {
+		f := &combosFlags{}
+		fs.StringVar(&f.csv, "csv", "", "write the combinations as CSV to `FILE` (- for standard output)")
+		return f
+	},
+	run: func(env *environ, opts any, args []string) error {
+		if len(args) != 1 {
+			return usagef("need one model file, got %d arguments", len(args))
+		}
+		f := opts.(*combosFlags)
+		job, err := loadModel(args[0])
+		if err != nil {
+			return err
+		}
+		var outs []output
+		if f.csv != "" {
+			outs = append(outs, output{path: f.csv, write: func(w io.Writer) error { return writeCombosCSV(w, job) }})
+		}
+		if f.csv != "-" {
+			outs = append(outs, output{path: "-", write: func(w io.Writer) error { return writeCombosTable(w, job) }})
+		}
+		return commitOutputs(env.stdout, args[0], outs)
+	},
+}
+
+// writeCombosTable prints where the combinations come from, the load
+// cases, the combinations with their factors, and the caution.
+func writeCombosTable(w io.Writer, job *modelfile.Job) error {
+	mo := job.Model
+	if job.Title != "" {
+		fmt.Fprintf(w, "%s\n", job.Title)
+	}
+	bySource := map[string]int{}
+	for _, cb := range job.Combinations {
+		bySource[cb.Rule]++
+	}
+	fmt.Fprintf(w, "%d load combinations", len(job.Combinations))
+	switch s := job.Set; {
+	case s != nil:
+		n := 0
+		for _, cb := range job.Combinations {
+			if strings.HasPrefix(cb.Rule, s.Name+" ") {
+				n++
+			}
+		}
+		fmt.Fprintf(w, ": %d from %s, %d from the model.\n", n, s.Name, bySource["model"])
+		if s.Title != "" {
+			fmt.Fprintf(w, "%s: %s.\n", s.Name, s.Title)
+		}
+		seismic := false
+		for _, c := range mo.Cases {
+			seismic = seismic || c.Kind == frame.Seismic
+		}
+		if s.UsesSDS() && seismic {
+			if job.Params.SDS == 0 {
+				fmt.Fprintf(w, "No sds given: the vertical seismic load effect Ev is taken as zero.\n")
+			} else {
+				fmt.Fprintf(w, "S_DS = %s g: Ev = %s D is in the dead load factors.\n", num(job.Params.SDS), num(0.2*job.Params.SDS))
+			}
+		}
+		if job.Params.ReducedLive {
+			fmt.Fprintf(w, "The reduced live load factor is used where the rules give one.\n")
+		}
+	case bySource["case"] > 0:
+		fmt.Fprintf(w, ": the model gives none, so each load case alone.\n")
+	default:
+		fmt.Fprintf(w, ", all from the model.\n")
+	}
+	fmt.Fprintf(w, "\n")
+
+	psi := job.Set != nil && job.Set.UsesPsi()
+	header := []string{"case", "kind", "reversible"}
+	if psi {
+		header = append(header, "ψ0", "ψ1", "ψ2", "ψ from")
+	}
+	var rows [][]string
+	for i, c := range mo.Cases {
+		var ci combos.CaseInfo
+		if i < len(job.CaseInfo) {
+			ci = job.CaseInfo[i]
+		}
+		row := []string{c.Name, c.Kind.String(), map[bool]string{true: "yes", false: "no"}[ci.Reversible]}
+		if psi {
+			row = append(row, psiCells(ci, c)...)
+		}
+		rows = append(rows, row)
+	}
+	fmt.Fprintf(w, "Load cases\n")
+	t := newTable(w, header...)
+	if err := t.Bulk(rows); err != nil {
+		return err
+	}
+	if err := t.Render(); err != nil {
+		return err
+	}
+
+	header = []string{"combination", "rule"}
+	for _, c := range mo.Cases {
+		header = append(header, c.Name)
+	}
+	rows = rows[:0]
+	used := make([]bool, len(mo.Cases))
+	for _, cb := range job.Combinations {
+		row := []string{cb.Name, cb.Rule}
+		for i := range mo.Cases {
+			cell := ""
+			for _, tm := range cb.Terms {
+				if tm.Case == i {
+					cell = combos.FormatFactor(cb.Factor(i))
+					used[i] = true
+					break
+				}
+			}
+			row = append(row, cell)
+		}
+		rows = append(rows, row)
+	}
+	fmt.Fprintf(w, "\nLoad combinations (factor on each load case)\n")
+	t = newTable(w, header...)
+	if err := t.Bulk(rows); err != nil {
+		return err
+	}
+	if err := t.Render(); err != nil {
+		return err
+	}
+	var unused []string
+	for i, u := range used {
+		if !u {
+			unused = append(unused, fmt.Sprintf("%s (%s)", mo.Cases[i].Name, mo.Cases[i].Kind))
+		}
+	}
+	if len(unused) > 0 {
+		fmt.Fprintf(w, "\nNot in any combination: %s.\n", strings.Join(unused, ", "))
+	}
+	fmt.Fprintf(w, "\n%s\n", caution)
+	return nil
+}
+
+// psiCells gives ψ0, ψ1, ψ2 of a variable case and where they come from.
+func psiCells(ci combos.CaseInfo, c frame.Case) []string {
+	if !c.Variable() {
+		return []string{"", "", "", ""}
+	}
+	out := make([]string, 0, 4)
+	given, fromRow := false, false
+	for p := combos.Psi0; p <= combos.Psi2; p++ {
+		v, ok := ci.PsiFactor(p, c.Kind)
+		if !ok {
+			out = append(out, "")
+			continue
+		}
+		out = append(out, num(v))
+		if ci.PsiGiven[p-combos.Psi0] {
+			given = true
+		} else {
+			fromRow = true
+		}
+	}
+	var from []string
+	if given {
+		from = append(from, "the case")
+	}
+	if fromRow {
+		row := ci.Category
+		if row == "" {
+			row = "wind"
+		}
+		from = append(from, "Table A1.1 "+row)
+	}
+	return append(out, strings.Join(from, ", "))
+}
+
+// writeCombosCSV writes one row per combination: name, rule, then the
+// factor on each load case, empty where the case is not in it.
+func writeCombosCSV(w io.Writer, job *modelfile.Job) error {
+	cases := job.Model.Cases
+	cw := csv.NewWriter(w)
+	header := []string{"combination", "rule"}
+	for _, c := range cases {
+		header = append(header, c.Name)
+	}
+	if err := cw.Write(header); err != nil {
+		return err
+	}
+	for _, cb := range job.Combinations {
+		row := []string{cb.Name, cb.Rule}
+		for i := range cases {
+			cell := ""
+			for _, tm := range cb.Terms {
+				if tm.Case == i {
+					cell = num(cb.Factor(i))
+					break
+				}
+			}
+			row = append(row, cell)
+		}
+		if err := cw.Write(row); err != nil {
+			return err
+		}
+	}
+	cw.Flush()
+	return cw.Error()
+}

@@ -1,0 +1,195 @@
+package main
+
+import (
+	"bufio"
+	"encoding/json"
+	"io"
+	"math"
+	"strconv"
+
+	"govern/envelope"
+	"govern/frame"
+)
+
+// jsonFormat names the layout of the JSON output; it changes when the layout does.
+const jsonFormat = "govern.envelopes/1"
+
+// writeJSON writes the envelopes in the govern.envelopes/1 layout (see
+// docs/output.md). It streams: a large frame's envelopes are written as
+// they are formatted, one station to a line, without building the document
+// in memory. Names are encoded once and reused.
+func (a *analysis) writeJSON(w io.Writer, bal []caseBalance) error {
+	mo := a.job.Model
+	j := &jsonWriter{w: bufio.NewWriterSize(w, 1<<16)}
+	combo := make([][]byte, len(a.env.Combinations))
+	for i, cb := range a.env.Combinations {
+		combo[i] = quote(cb.Name)
+	}
+	piece := make([][]byte, len(a.env.Pieces))
+	for i, p := range a.env.Pieces {
+		piece[i] = quote(p.Name)
+	}
+	j.raw("{\n \"format\": ").str(jsonFormat)
+	j.raw(",\n \"title\": ").str(a.job.Title)
+	j.raw(",\n \"units\": {\"force\": ").str(a.job.Units.Force).raw(", \"length\": ").str(a.job.Units.Length).raw("}")
+	j.raw(",\n \"settings\": {\"stations\": ").int(a.env.Settings.Stations)
+	j.raw(", \"variable_loads\": ").str(variableLoads(a.env.Settings.AsWritten))
+	j.raw(", \"patterns\": ").str(a.lay.Mode.String()).raw(", \"segments\": ").int(a.lay.Segments)
+	j.raw(", \"patterned_cases\": [")
+	for i, c := range a.job.Patterned {
+		j.sep(i, ", ").str(mo.Cases[c].Name)
+	}
+	j.raw("]}")
+	j.raw(",\n \"combinations\": [")
+	for i, cb := range a.env.Combinations {
+		j.sep(i, ",").raw("\n  {\"name\": ").bytes(combo[i]).raw(", \"factors\": {")
+		// Factors by case, in case order, summed where a case repeats.
+		n := 0
+		for c := range mo.Cases[:len(a.job.Model.Cases)] {
+			f, has := 0.0, false
+			for _, t := range cb.Terms {
+				if t.Case == c {
+					f, has = f+t.Factor, true
+				}
+			}
+			if has {
+				j.sep(n, ", ").str(mo.Cases[c].Name).raw(": ").num(f)
+				n++
+			}
+		}
+		j.raw("}}")
+	}
+	j.raw("\n ],\n \"members\": [")
+	ext := func(name string, e envelope.Extreme, with [3]string) {
+		j.raw("\"").raw(name).raw("\": {\"max\": ").num(e.Max).raw(", \"max_by\": ").bytes(nameOf(combo, e.MaxBy))
+		j.raw(", \"max_spans\": ").list(piece, e.MaxSpans).raw(", \"max_loaded\": ").int(e.MaxLoaded).raw(", \"max_with\": ").forces(with, e.MaxWith)
+		j.raw(", \"min\": ").num(e.Min).raw(", \"min_by\": ").bytes(nameOf(combo, e.MinBy))
+		j.raw(", \"min_spans\": ").list(piece, e.MinSpans).raw(", \"min_loaded\": ").int(e.MinLoaded).raw(", \"min_with\": ").forces(with, e.MinWith).raw("}")
+	}
+	for i, em := range a.env.Members {
+		m := mo.Members[em.Member]
+		j.sep(i, ",").raw("\n  {\"name\": ").str(m.Name).raw(", \"start\": ").str(mo.Nodes[m.Start].Name)
+		j.raw(", \"end\": ").str(mo.Nodes[m.End].Name).raw(", \"length\": ").num(mo.Length(em.Member)).raw(", \"stations\": [")
+		for k, st := range em.Stations {
+			j.sep(k, ",").raw("\n   {\"x\": ").num(st.X).raw(", ")
+			ext("N", st.N, memberForces)
+			j.raw(", ")
+			ext("V", st.V, memberForces)
+			j.raw(", ")
+			ext("M", st.M, memberForces)
+			j.raw("}")
+		}
+		j.raw("\n  ]}")
+	}
+	j.raw("\n ],\n \"reactions\": [")
+	for i, r := range a.env.Reactions {
+		j.sep(i, ",").raw("\n  {\"node\": ").str(mo.Nodes[r.Node].Name).raw(", ")
+		ext("Fx", r.Fx, reactionForces)
+		j.raw(", ")
+		ext("Fy", r.Fy, reactionForces)
+		j.raw(", ")
+		ext("M", r.M, reactionForces)
+		j.raw("}")
+	}
+	j.raw("\n ],\n \"statics\": [")
+	for i, cb := range bal {
+		b := cb.b
+		res := func(r frame.Resultant) {
+			j.raw("{\"Fx\": ").num(r.Fx).raw(", \"Fy\": ").num(r.Fy).raw(", \"M\": ").num(r.M).raw("}")
+		}
+		j.sep(i, ",").raw("\n  {\"case\": ").str(cb.name).raw(", \"loads\": ")
+		res(b.Applied)
+		j.raw(", \"reactions\": ")
+		res(b.Reactions)
+		j.raw(", \"joint_residual\": {\"force\": ").num(b.JointForce).raw(", \"moment\": ").num(b.JointMoment).raw("}")
+		j.raw(", \"relative\": ").num(b.Relative()).raw(", \"limit\": ").num(staticsLimit)
+		if cb.ok() {
+			j.raw(", \"ok\": true}")
+		} else {
+			j.raw(", \"ok\": false}")
+		}
+	}
+	j.raw("\n ],\n \"caution\": ").str(caution).raw("\n}\n")
+	if j.err != nil {
+		return j.err
+	}
+	return j.w.Flush()
+}
+
+func nameOf(names [][]byte, k int) []byte {
+	if k < 0 {
+		return []byte(`""`)
+	}
+	return names[k]
+}
+
+// quote returns s as a JSON string.
+func quote(s string) []byte {
+	b, _ := json.Marshal(s) // a string always marshals
+	return b
+}
+
+// jsonWriter appends JSON pieces to a buffered writer, keeping the first error.
+type jsonWriter struct {
+	w   *bufio.Writer
+	err error
+	buf []byte
+}
+
+func (j *jsonWriter) raw(s string) *jsonWriter {
+	if j.err == nil {
+		_, j.err = j.w.WriteString(s)
+	}
+	return j
+}
+
+func (j *jsonWriter) bytes(b []byte) *jsonWriter {
+	if j.err == nil {
+		_, j.err = j.w.Write(b)
+	}
+	return j
+}
+
+func (j *jsonWriter) str(s string) *jsonWriter { return j.bytes(quote(s)) }
+
+func (j *jsonWriter) int(n int) *jsonWriter { return j.raw(strconv.Itoa(n)) }
+
+// sep writes s before every element but the first.
+func (j *jsonWriter) sep(i int, s string) *jsonWriter {
+	if i > 0 {
+		j.raw(s)
+	}
+	return j
+}
+
+// num writes a number as encoding/json would: shortest representation,
+// exponent only for very large or small magnitudes; null if not finite.
+func (j *jsonWriter) num(v float64) *jsonWriter {
+	if math.IsNaN(v) || math.IsInf(v, 0) {
+		return j.raw("null")
+	}
+	v = clean(v)
+	abs := math.Abs(v)
+	format := byte('f')
+	if abs != 0 && (abs < 1e-6 || abs >= 1e21) {
+		format = 'e'
+	}
+	j.buf = strconv.AppendFloat(j.buf[:0], v, format, -1, 64)
+	return j.bytes(j.buf)
+}
+
+func (j *jsonWriter) list(names [][]byte, idx []int) *jsonWriter {
+	j.raw("[")
+	for i, p := range idx {
+		j.sep(i, ", ").bytes(names[p])
+	}
+	return j.raw("]")
+}
+
+func (j *jsonWriter) forces(keys [3]string, v [3]float64) *jsonWriter {
+	j.raw("{")
+	for i, k := range keys {
+		j.sep(i, ", ").raw("\"").raw(k).raw("\": ").num(v[i])
+	}
+	return j.raw("}")
+}

@@ -1,0 +1,219 @@
+package modelfile
+
+import (
+	"errors"
+	"fmt"
+	"io"
+	"os"
+	"path/filepath"
+	"strings"
+
+	"govern/combos"
+	"govern/frame"
+)
+
+// maxRuleFile bounds the size of a rule file named by [combinations] file.
+const maxRuleFile = 1 << 20
+
+// readCaseInfo reads the keys of a [[case]] that only the combination rules
+// use: reversible, category, psi0, psi1, psi2.
+func (r *reader) readCaseInfo(t *table) combos.CaseInfo {
+	var ci combos.CaseInfo
+	word, _ := t.m["kind"].(string) // read and checked by readCases
+	kind, kindOK := frame.ParseKind(word)
+	ci.Reversible = t.boolean("reversible", false)
+	if ci.Reversible && kindOK && kind.Permanent() {
+		t.fail("reversible", problem(ErrValue, "reversible = true: dead load acts one way only; only variable cases (wind, seismic, …) reverse"))
+	}
+	if t.has("category") {
+		ci.Category = t.str("category", "")
+		c, ok := combos.LookupCategory(ci.Category)
+		switch {
+		case !ok:
+			var names []string
+			for _, c := range combos.Categories() {
+				if !kindOK || c.Fits(kind) {
+					names = append(names, c.Name)
+				}
+			}
+			msg := fmt.Sprintf("category = %q is not a row of EN 1990 Table A1.1", ci.Category)
+			if s := closest(ci.Category, names); s != "" {
+				msg += fmt.Sprintf(" (did you mean %q?)", s)
+			}
+			if len(names) > 0 {
+				msg += fmt.Sprintf("; for %s load it is one of %s", word, quoteList(names))
+			}
+			t.fail("category", problem(ErrValue, "%s", msg))
+			ci.Category = ""
+		case kindOK && !c.Fits(kind):
+			t.fail("category", problem(ErrValue, "category = %q (%s) does not apply to %s load", c.Name, c.Row, kind))
+			ci.Category = ""
+		}
+	}
+	for i, key := range []string{"psi0", "psi1", "psi2"} {
+		v, ok := t.numOK(key, 0)
+		if !ok {
+			continue
+		}
+		if v < 0 || v > 1 {
+			t.fail(key, problem(ErrValue, "%s = %g: must be from 0 to 1", key, v))
+		}
+		ci.Psi[i], ci.PsiGiven[i] = v, true
+	}
+	if kindOK && kind.Permanent() {
+		for _, key := range []string{"category", "psi0", "psi1", "psi2"} {
+			if t.has(key) {
+				t.fail(key, problem(ErrValue, "%s: dead load is permanent and has no ψ factors", key))
+				break
+			}
+		}
+	}
+	return ci
+}
+
+// readCombinationSet reads the [combinations] table: the rule set and the
+// values of its options.
+func (r *reader) readCombinationSet(t *table) {
+	if t == nil {
+		return
+	}
+	r.setTable = t
+	job := r.job
+	std, file := t.str("standard", ""), t.str("file", "")
+	switch hasStd, hasFile := t.has("standard"), t.has("file"); {
+	case hasStd && hasFile:
+		t.fail("file", problem(ErrValue, "give standard or file, not both"))
+	case !hasStd && !hasFile:
+		t.fail("", problem(ErrMissing, "[combinations] needs standard (one of %s) or file (a rule file of your own)", quoteList(combos.Standards())))
+	case hasStd:
+		s, err := combos.Standard(std)
+		if err != nil {
+			msg := fmt.Sprintf("standard = %q is not a built-in set", std)
+			if c := closest(std, combos.Standards()); c != "" {
+				msg += fmt.Sprintf(" (did you mean %q?)", c)
+			}
+			msg += "; the known ones are " + quoteList(combos.Standards())
+			t.fail("standard", problem(ErrValue, "%s", msg))
+			break
+		}
+		job.Set = s
+	case hasFile:
+		job.Set = r.readRuleFile(t, file)
+	}
+	if v, ok := t.numOK("sds", 0); ok {
+		if v < 0 {
+			t.fail("sds", problem(ErrValue, "sds = %g: S_DS, in g, must not be negative", v))
+		}
+		job.Params.SDS = v
+	}
+	job.Params.ReducedLive = t.boolean("reduced_live_factor", false)
+	t.done()
+	if s := job.Set; s != nil {
+		if t.has("sds") && !s.UsesSDS() {
+			t.fail("sds", problem(ErrValue, "sds: %s takes no S_DS into its factors", s.Name))
+		}
+		if job.Params.ReducedLive && !s.UsesReducedLive() {
+			t.fail("reduced_live_factor", problem(ErrValue, "reduced_live_factor: %s has no reduced live load factor", s.Name))
+		}
+	}
+}
+
+// readRuleFile reads and parses the rule file named by file, relative to
+// the model's folder.
+func (r *reader) readRuleFile(t *table, file string) *combos.Set {
+	if file == "" {
+		t.fail("file", problem(ErrValue, "file is empty: name a rule file, relative to the model"))
+		return nil
+	}
+	path := file
+	if !filepath.IsAbs(path) {
+		path = filepath.Join(r.dir, file)
+	}
+	fi, err := os.Stat(path)
+	if err == nil && !fi.Mode().IsRegular() {
+		err = errors.New("not a regular file")
+	} else if err == nil && fi.Size() > maxRuleFile {
+		err = fmt.Errorf("larger than %d bytes", maxRuleFile)
+	}
+	var src []byte
+	if err == nil {
+		src, err = readLimited(path, maxRuleFile)
+	}
+	if err != nil {
+		var pe *os.PathError
+		if errors.As(err, &pe) {
+			err = pe.Err
+		}
+		t.fail("file", problem(ErrReference, "file = %q: cannot read it: %v", file, err))
+		return nil
+	}
+	s, err := combos.ParseSet(file, src)
+	var se combos.SetErrors
+	if errors.As(err, &se) {
+		for _, e := range se {
+			sentinel := ErrValue
+			if e.Syntax {
+				sentinel = ErrSyntax
+			}
+			r.errs = append(r.errs, &Error{File: e.File, Line: e.Line, Where: e.Where, Err: problem(sentinel, "%s", e.Msg)})
+		}
+		return nil
+	}
+	return s
+}
+
+// generate expands the rule set against the cases, ahead of the model's
+// own combinations. It runs only on a file without other problems, so that
+// the cases are those of the file, in its order.
+func (r *reader) generate() {
+	job := r.job
+	job.CaseInfo = r.caseInfo
+	if job.Set == nil || len(r.errs) > 0 {
+		return
+	}
+	cs, err := job.Set.Generate(job.Model.Cases, r.caseInfo, job.Params)
+	var ce combos.CaseErrors
+	switch {
+	case errors.As(err, &ce):
+		for _, e := range ce {
+			r.fail(r.loc.line(elem("case", e.Case), "kind"), fmt.Sprintf("case %q", job.Model.Cases[e.Case].Name), problem(ErrMissing, "%s", e.Msg))
+		}
+		return
+	case err != nil:
+		r.setTable.fail("", problem(ErrValue, "%v", err))
+		return
+	case len(cs) == 0 && len(job.Combinations) == 0:
+		var kinds []string
+		for _, c := range job.Model.Cases {
+			kinds = append(kinds, c.Kind.String())
+		}
+		r.setTable.fail("", problem(ErrValue, "%s gives no combinations for load cases of kinds %s", job.Set.Name, strings.Join(kinds, ", ")))
+		return
+	}
+	generated := map[string]bool{}
+	for _, cb := range cs {
+		generated[cb.Name] = true
+	}
+	for i, cb := range job.Combinations {
+		if generated[cb.Name] {
+			r.fail(r.loc.line(elem("combination", i), "name"), fmt.Sprintf("combination %q", cb.Name),
+				problem(ErrDuplicate, "%s also gives a combination named %q; rename this one", job.Set.Name, cb.Name))
+		}
+	}
+	job.Combinations = append(cs, job.Combinations...)
+}
+
+// readLimited reads the file at path, refusing one of more than limit bytes
+// whatever its size claimed.
+func readLimited(path string, limit int64) ([]byte, error) {
+	f, err := os.Open(path)
+	if err != nil {
+		return nil, err
+	}
+	defer f.Close()
+	src, err := io.ReadAll(io.LimitReader(f, limit+1))
+	if err == nil && int64(len(src)) > limit {
+		err = fmt.Errorf("larger than %d bytes", limit)
+	}
+	return src, err
+}

@@ -1,0 +1,254 @@
+package modelfile
+
+import (
+	"errors"
+	"fmt"
+	"os"
+	"path/filepath"
+	"strings"
+	"testing"
+
+	"govern/combos"
+)
+
+// portal is a beam with dead, live, roof live, snow and wind cases whose
+// combinations come from a standard, plus one of the model's own.
+const portal = `[[section]]
+name = "S"
+E = 200e6
+A = 0.01
+I = 1e-4
+[[node]]
+name = "a"
+x = 0
+y = 0
+support = "fixed"
+[[node]]
+name = "b"
+x = 5
+y = 0
+support = "fixed"
+[[member]]
+start = "a"
+end = "b"
+section = "S"
+[[case]]
+name = "D"
+kind = "dead"
+  [[case.load]]
+  type = "udl"
+  on = "a-b"
+  w = 2
+[[case]]
+name = "L"
+kind = "live"
+category = "B"
+  [[case.load]]
+  type = "udl"
+  on = "a-b"
+  w = 3
+[[case]]
+name = "Lr"
+kind = "roof-live"
+  [[case.load]]
+  type = "udl"
+  on = "a-b"
+  w = 1
+[[case]]
+name = "S"
+kind = "snow"
+category = "snow-up-to-1000m"
+  [[case.load]]
+  type = "udl"
+  on = "a-b"
+  w = 1.5
+[[case]]
+name = "W"
+kind = "wind"
+reversible = true
+  [[case.load]]
+  type = "udl"
+  on = "a-b"
+  direction = "x"
+  w = 1
+[[combination]]
+name = "service"
+factors = { D = 1.0, L = 1.0 }
+[combinations]
+standard = "asce7-16-strength"
+`
+
+// lineOf returns the line of the first occurrence of s in src.
+func lineOf(t *testing.T, src, s string) int {
+	t.Helper()
+	i := strings.Index(src, s)
+	if i < 0 {
+		t.Fatalf("%q not in the model", s)
+	}
+	return strings.Count(src[:i], "\n") + 1
+}
+
+func TestReadStandard(t *testing.T) {
+	job, err := Read("p.toml", []byte(portal))
+	if err != nil {
+		t.Fatal(err)
+	}
+	if job.Set == nil || job.Set.Name != "asce7-16-strength" || len(job.CaseInfo) != 5 || !job.CaseInfo[4].Reversible {
+		t.Fatalf("set %v, case info %+v", job.Set, job.CaseInfo)
+	}
+	// ASCE/SEI 7-16 section 2.3.1 with D, L, Lr, S and a reversible W
+	// gives 15 combinations (see combos/standards_test.go); the model's
+	// own follows them.
+	cs := job.Combinations
+	if len(cs) != 16 {
+		t.Fatalf("%d combinations, want 15 generated and 1 of the model", len(cs))
+	}
+	if cs[0].Name != "2.3.1-1 1.4D" || cs[0].Rule != "asce7-16-strength 2.3.1-1" {
+		t.Errorf("first = %+v", cs[0])
+	}
+	if cs[7].Name != "2.3.1-3 1.2D+1.6S+0.5W" || cs[8].Name != "2.3.1-3 1.2D+1.6S-0.5W" || cs[8].Factor(4) != -0.5 {
+		t.Errorf("2.3.1-3 with snow and wind: %+v, %+v", cs[7], cs[8])
+	}
+	if cs[15].Name != "service" || cs[15].Rule != "model" {
+		t.Errorf("last = %+v", cs[15])
+	}
+}
+
+func TestReadEN1990(t *testing.T) {
+	src := strings.Replace(portal, `standard = "asce7-16-strength"`, `standard = "en1990-6.10"`, 1)
+	src = strings.Replace(src, "name = \"Lr\"\nkind = \"roof-live\"\n", "name = \"Lr\"\nkind = \"roof-live\"\ncategory = \"H\"\n", 1)
+	job, err := Read("p.toml", []byte(src))
+	if err != nil {
+		t.Fatal(err)
+	}
+	// EN 1990 Table A1.2(B) with Table A1.1 ψ0: office 0.7, snow below
+	// 1000 m 0.5, wind 0.6: 1.35G + 1.5Q + 0.75S + 0.9W.
+	found := false
+	for _, cb := range job.Combinations {
+		found = found || cb.Name == "6.10 1.35D+1.5L+0.75S+0.9W"
+	}
+	if !found {
+		t.Errorf("no 6.10 1.35D+1.5L+0.75S+0.9W among %d combinations", len(job.Combinations))
+	}
+	t.Run("psi given in the case beats its category", func(t *testing.T) {
+		src := strings.Replace(src, `category = "B"`, "category = \"B\"\npsi0 = 0.6", 1)
+		job, err := Read("p.toml", []byte(src))
+		if err != nil {
+			t.Fatal(err)
+		}
+		// ψ0 = 0.6 for L: 1.5 × 0.6 = 0.9 with snow leading.
+		found := false
+		for _, cb := range job.Combinations {
+			found = found || cb.Name == "6.10 1.35D+1.5S+0.9L+0.9W"
+		}
+		if !found {
+			t.Error("no 6.10 1.35D+1.5S+0.9L+0.9W")
+		}
+	})
+}
+
+func TestReadRuleFile(t *testing.T) {
+	dir := t.TempDir()
+	os.Mkdir(filepath.Join(dir, "codes"), 0o755)
+	rules := "name = \"office\"\n[[rule]]\nid = \"X1\"\nterms = [\n  { kind = \"dead\", factor = 1.25 },\n  { kind = \"live\", factor = 1.5, lead = true },\n]\n"
+	os.WriteFile(filepath.Join(dir, "codes", "office.toml"), []byte(rules), 0o644)
+	src := strings.Replace(portal, `standard = "asce7-16-strength"`, `file = "codes/office.toml"`, 1)
+	job, err := ReadAt(dir, "p.toml", []byte(src))
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(job.Combinations) != 2 || job.Combinations[0].Name != "X1 1.25D+1.5L" || job.Combinations[0].Rule != "office X1" {
+		t.Errorf("combinations %+v", job.Combinations)
+	}
+	t.Run("a problem in the rule file names that file and line", func(t *testing.T) {
+		os.WriteFile(filepath.Join(dir, "codes", "office.toml"), []byte(strings.Replace(rules, `"live"`, `"lve"`, 1)), 0o644)
+		_, err := ReadAt(dir, "p.toml", []byte(src))
+		want := `codes/office.toml:6: rule "X1", term 2: kind "lve" is not a load kind`
+		if err == nil || !strings.Contains(err.Error(), want) || !errors.Is(err, ErrValue) {
+			t.Errorf("error %v\nwant %s", err, want)
+		}
+	})
+	t.Run("a missing rule file", func(t *testing.T) {
+		_, err := ReadAt(dir, "p.toml", []byte(strings.Replace(src, "codes/office.toml", "codes/none.toml", 1)))
+		want := fmt.Sprintf(`p.toml:%d: [combinations]: file = "codes/none.toml": cannot read it: no such file or directory`, lineOf(t, src, "file = "))
+		if err == nil || err.Error() != want || !errors.Is(err, ErrReference) {
+			t.Errorf("error %v\nwant %s", err, want)
+		}
+	})
+}
+
+func TestReadCombinationErrors(t *testing.T) {
+	at := func(s string) int { return lineOf(t, portal, s) }
+	known := `"asce7-16-allowable", "asce7-16-strength", "en1990-6.10", "en1990-6.10ab", "en1990-characteristic", "en1990-frequent", "en1990-quasi-permanent"`
+	if got := quoteList(combos.Standards()); got != known {
+		t.Fatalf("standards %s", got)
+	}
+	std := at("standard = ")
+	for _, tc := range []struct {
+		name, old, new string
+		want           string
+		sentinel       error
+	}{
+		{"unknown standard lists the known ones", `"asce7-16-strength"`, `"asce7-16-strenght"`,
+			fmt.Sprintf(`p.toml:%d: [combinations]: standard = "asce7-16-strenght" is not a built-in set (did you mean "asce7-16-strength"?); the known ones are %s`, std, known), ErrValue},
+		{"standard and file", `standard = "asce7-16-strength"`, "standard = \"asce7-16-strength\"\nfile = \"x.toml\"",
+			fmt.Sprintf(`p.toml:%d: [combinations]: give standard or file, not both`, std+1), ErrValue},
+		{"neither standard nor file", `standard = "asce7-16-strength"`, `sds = 0.5`,
+			fmt.Sprintf(`p.toml:%d: [combinations]: [combinations] needs standard (one of %s) or file (a rule file of your own)`, std-1, known), ErrMissing},
+		{"unknown key in [combinations]", `standard = "asce7-16-strength"`, "standard = \"asce7-16-strength\"\nreduce_live_factor = true",
+			fmt.Sprintf(`p.toml:%d: [combinations]: unknown key "reduce_live_factor" (did you mean "reduced_live_factor"?)`, std+1), ErrUnknownKey},
+		{"negative sds", `standard = "asce7-16-strength"`, "standard = \"asce7-16-strength\"\nsds = -0.2",
+			fmt.Sprintf(`p.toml:%d: [combinations]: sds = -0.2: S_DS, in g, must not be negative`, std+1), ErrValue},
+		{"sds for a set without it", `standard = "asce7-16-strength"`, "standard = \"en1990-6.10\"\nsds = 1.0",
+			fmt.Sprintf(`p.toml:%d: [combinations]: sds: en1990-6.10 takes no S_DS into its factors`, std+1), ErrValue},
+		{"reduced live factor for a set without it", `standard = "asce7-16-strength"`, "standard = \"asce7-16-allowable\"\nreduced_live_factor = true",
+			fmt.Sprintf(`p.toml:%d: [combinations]: reduced_live_factor: asce7-16-allowable has no reduced live load factor`, std+1), ErrValue},
+		{"unknown category", `category = "B"`, `category = "b"`,
+			fmt.Sprintf(`p.toml:%d: case "L": category = "b" is not a row of EN 1990 Table A1.1 (did you mean "B"?); for live load it is one of "A", "B", "C", "D", "E", "F", "G", "H"`, at(`category = "B"`)), ErrValue},
+		{"category of another kind", `category = "B"`, `category = "wind"`,
+			fmt.Sprintf(`p.toml:%d: case "L": category = "wind" (Wind loads on buildings) does not apply to live load`, at(`category = "B"`)), ErrValue},
+		{"psi above 1", `category = "B"`, "psi2 = 1.3",
+			fmt.Sprintf(`p.toml:%d: case "L": psi2 = 1.3: must be from 0 to 1`, at(`category = "B"`)), ErrValue},
+		{"psi on dead load", "kind = \"dead\"\n", "kind = \"dead\"\npsi0 = 0.5\n",
+			fmt.Sprintf(`p.toml:%d: case "D": psi0: dead load is permanent and has no ψ factors`, at(`kind = "dead"`)+1), ErrValue},
+		{"reversible dead load", "kind = \"dead\"\n", "kind = \"dead\"\nreversible = true\n",
+			fmt.Sprintf(`p.toml:%d: case "D": reversible = true: dead load acts one way only; only variable cases (wind, seismic, …) reverse`, at(`kind = "dead"`)+1), ErrValue},
+		{"EN 1990 case without psi", `standard = "asce7-16-strength"`, `standard = "en1990-6.10"`,
+			fmt.Sprintf(`p.toml:%d: case "Lr": en1990-6.10 rule 6.10 needs psi0 of this roof-live case: give category ("A", "B", "C", "D", "E", "F", "G", "H", EN 1990 Table A1.1) or psi0, psi1 and psi2`, at(`kind = "roof-live"`)), ErrMissing},
+		{"model combination named like a generated one", `name = "service"`, `name = "2.3.1-1 1.4D"`,
+			fmt.Sprintf(`p.toml:%d: combination "2.3.1-1 1.4D": asce7-16-strength also gives a combination named "2.3.1-1 1.4D"; rename this one`, at(`name = "service"`)), ErrDuplicate},
+		{"combination factor naming a case the model lacks", `factors = { D = 1.0, L = 1.0 }`, `factors = { D = 1.0, Q = 1.0 }`,
+			fmt.Sprintf(`p.toml:%d: combination "service": factors: no case named "Q"`, at(`factors = `)), ErrReference},
+		{"combination factor that is not a number", `factors = { D = 1.0, L = 1.0 }`, `factors = { D = 1.0, L = "1.0" }`,
+			fmt.Sprintf(`p.toml:%d: combination "service": L must be a number, not a string`, at(`factors = `)), ErrType}, // the line of the factor, not of the table
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			src := strings.Replace(portal, tc.old, tc.new, 1)
+			if src == portal {
+				t.Fatalf("edit %q not applied", tc.old)
+			}
+			_, err := Read("p.toml", []byte(src))
+			if err == nil {
+				t.Fatal("no error")
+			}
+			if got := err.Error(); got != tc.want {
+				t.Errorf("error\n got: %s\nwant: %s", got, tc.want)
+			}
+			if !errors.Is(err, tc.sentinel) {
+				t.Errorf("error does not wrap %v", tc.sentinel)
+			}
+		})
+	}
+}
+
+func TestReadSetGivingNothing(t *testing.T) {
+	// EN 1990 expression 6.16b with wind alone: ψ2 = 0 for wind (Table
+	// A1.1), so nothing is left to combine; that is an error, not an
+	// analysis of each case alone.
+	src := portal[:strings.Index(portal, "[[case]]")] + "[[case]]\nname = \"W\"\nkind = \"wind\"\n[combinations]\nstandard = \"en1990-quasi-permanent\"\n"
+	_, err := Read("p.toml", []byte(src))
+	want := fmt.Sprintf("p.toml:%d: [combinations]: en1990-quasi-permanent gives no combinations for load cases of kinds wind", lineOf(t, src, "[combinations]"))
+	if err == nil || err.Error() != want {
+		t.Errorf("error %v\nwant %s", err, want)
+	}
+}

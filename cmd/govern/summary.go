@@ -1,0 +1,230 @@
+package main
+
+import (
+	"fmt"
+	"io"
+	"math"
+	"sort"
+	"strings"
+
+	"govern/cmd/govern/modelfile"
+	"govern/envelope"
+	"govern/patterns"
+)
+
+// peak is the governing value of one effect over a member's stations, with
+// where it occurs, the combination, the pieces loaded and the forces acting
+// with it.
+type peak struct {
+	v, x   float64
+	by     int
+	spans  []int
+	loaded int
+	with   [3]float64
+}
+
+// member peaks of N, V, M: largest and smallest over the stations.
+type peaks struct {
+	hi, lo [3]peak
+}
+
+func memberPeaks(em envelope.Member) peaks {
+	var p peaks
+	for j := range 3 {
+		p.hi[j].v, p.lo[j].v = math.Inf(-1), math.Inf(1)
+	}
+	for _, st := range em.Stations {
+		for j, e := range [3]envelope.Extreme{st.N, st.V, st.M} {
+			if e.Max > p.hi[j].v {
+				p.hi[j] = peak{e.Max, st.X, e.MaxBy, e.MaxSpans, e.MaxLoaded, e.MaxWith}
+			}
+			if e.Min < p.lo[j].v {
+				p.lo[j] = peak{e.Min, st.X, e.MinBy, e.MinSpans, e.MinLoaded, e.MinWith}
+			}
+		}
+	}
+	return p
+}
+
+// shortSpans lists at most three of the pieces loaded, then how many
+// more are loaded.
+func (a *analysis) shortSpans(idx []int, loaded int) string {
+	names := a.spanNames(idx)
+	if len(names) == 0 {
+		return "-"
+	}
+	if len(names) > 3 {
+		names = names[:3]
+	}
+	if more := loaded - len(names); more > 0 {
+		names = append(names, fmt.Sprintf("+%d", more))
+	}
+	return strings.Join(names, " ")
+}
+
+// writeSummary prints the governing design values: one table per floor
+// (beams: largest sagging and hogging moment and largest shear), one per
+// column line (columns: largest tension and compression with the moment
+// acting with each, largest moment and shear), one for any other members,
+// then the reaction envelopes.
+func (a *analysis) writeSummary(w io.Writer) error {
+	mo := a.job.Model
+	u := a.job.Units
+	patterned := len(a.env.Pieces) > 0
+	spans := patterns.Spans(mo)
+
+	type group struct {
+		title   string
+		key     float64
+		members []int
+	}
+	levels := map[int]*group{}
+	lines := map[float64]*group{}
+	var other []int
+	for m := range mo.Members {
+		switch {
+		case mo.IsBeam(m):
+			lv := spans[m].Level
+			if levels[lv] == nil {
+				y := mo.Nodes[mo.Members[m].Start].Y
+				levels[lv] = &group{title: fmt.Sprintf("Beams at level %d (y = %s %s)", lv, fixed(y), u.Length), key: y}
+			}
+			levels[lv].members = append(levels[lv].members, m)
+		case mo.IsColumn(m):
+			x := mo.Nodes[mo.Members[m].Start].X
+			if lines[x] == nil {
+				lines[x] = &group{key: x}
+			}
+			lines[x].members = append(lines[x].members, m)
+		default:
+			other = append(other, m)
+		}
+	}
+	// Column lines lettered from the left, as the grid names them.
+	xs := make([]float64, 0, len(lines))
+	for x := range lines {
+		xs = append(xs, x)
+	}
+	sort.Float64s(xs)
+	for i, x := range xs {
+		lines[x].title = fmt.Sprintf("Columns on line %s (x = %s %s)", modelfile.LineName(i), fixed(x), u.Length)
+	}
+	lvs := make([]int, 0, len(levels))
+	for lv := range levels {
+		lvs = append(lvs, lv)
+	}
+	sort.Ints(lvs)
+
+	fmt.Fprintf(w, "Governing design values (x from the member's start, in %s; +M sagging)\n", u.Length)
+	force, moment := u.Force, u.Moment()
+	for _, lv := range lvs {
+		g := levels[lv]
+		header := []string{"beam", "+M (" + moment + ")", "at x", "governing", "-M (" + moment + ")", "at x", "governing", "|V| (" + force + ")", "at x", "governing"}
+		if patterned {
+			header = []string{"beam", "+M (" + moment + ")", "at x", "governing", "spans loaded", "-M (" + moment + ")", "at x", "governing", "spans loaded", "|V| (" + force + ")", "at x", "governing"}
+		}
+		var rows [][]string
+		sort.SliceStable(g.members, func(i, j int) bool { return spans[g.members[i]].Number < spans[g.members[j]].Number })
+		for _, m := range g.members {
+			p := memberPeaks(a.env.Members[m])
+			v := p.hi[1]
+			if -p.lo[1].v > v.v {
+				v = p.lo[1]
+				v.v = -v.v
+			}
+			row := []string{mo.Members[m].Name, fixed(p.hi[2].v), fixed(p.hi[2].x), a.comboName(p.hi[2].by)}
+			if patterned {
+				row = append(row, a.shortSpans(p.hi[2].spans, p.hi[2].loaded))
+			}
+			row = append(row, fixed(p.lo[2].v), fixed(p.lo[2].x), a.comboName(p.lo[2].by))
+			if patterned {
+				row = append(row, a.shortSpans(p.lo[2].spans, p.lo[2].loaded))
+			}
+			row = append(row, fixed(v.v), fixed(v.x), a.comboName(v.by))
+			rows = append(rows, row)
+		}
+		if err := a.table(w, g.title, header, rows); err != nil {
+			return err
+		}
+	}
+	for _, x := range xs {
+		g := lines[x]
+		sort.SliceStable(g.members, func(i, j int) bool {
+			return math.Min(mo.Nodes[mo.Members[g.members[i]].Start].Y, mo.Nodes[mo.Members[g.members[i]].End].Y) <
+				math.Min(mo.Nodes[mo.Members[g.members[j]].Start].Y, mo.Nodes[mo.Members[g.members[j]].End].Y)
+		})
+		if err := a.table(w, g.title, columnHeader(force, moment), a.columnRows(g.members)); err != nil {
+			return err
+		}
+	}
+	if len(other) > 0 {
+		if err := a.table(w, "Other members", columnHeader(force, moment), a.columnRows(other)); err != nil {
+			return err
+		}
+	}
+	return a.writeReactions(w)
+}
+
+func columnHeader(force, moment string) []string {
+	return []string{"member", "N max (" + force + ")", "with M", "governing", "N min (" + force + ")", "with M", "governing", "|M| (" + moment + ")", "at x", "governing", "|V| (" + force + ")", "governing"}
+}
+
+// columnRows gives, per member, the largest tension and compression (N is
+// positive in tension) with the moment acting with each, and the largest
+// moment and shear in magnitude.
+func (a *analysis) columnRows(members []int) [][]string {
+	mo := a.job.Model
+	var rows [][]string
+	for _, m := range members {
+		p := memberPeaks(a.env.Members[m])
+		mm, v := p.hi[2], p.hi[1]
+		if -p.lo[2].v > mm.v {
+			mm = p.lo[2]
+			mm.v = -mm.v
+		}
+		if -p.lo[1].v > v.v {
+			v = p.lo[1]
+			v.v = -v.v
+		}
+		rows = append(rows, []string{mo.Members[m].Name,
+			fixed(p.hi[0].v), fixed(p.hi[0].with[2]), a.comboName(p.hi[0].by),
+			fixed(p.lo[0].v), fixed(p.lo[0].with[2]), a.comboName(p.lo[0].by),
+			fixed(mm.v), fixed(mm.x), a.comboName(mm.by),
+			fixed(v.v), a.comboName(v.by)})
+	}
+	return rows
+}
+
+func (a *analysis) table(w io.Writer, title string, header []string, rows [][]string) error {
+	fmt.Fprintf(w, "\n%s\n", title)
+	t := newTable(w, header...)
+	if err := t.Bulk(rows); err != nil {
+		return err
+	}
+	return t.Render()
+}
+
+// writeReactions prints the envelope of every restrained reaction component.
+func (a *analysis) writeReactions(w io.Writer) error {
+	if len(a.env.Reactions) == 0 {
+		return nil
+	}
+	mo := a.job.Model
+	u := a.job.Units
+	var rows [][]string
+	for _, r := range a.env.Reactions {
+		node := mo.Nodes[r.Node]
+		name := node.Name
+		for d, e := range []struct {
+			label string
+			x     envelope.Extreme
+		}{{"Fx (" + u.Force + ")", r.Fx}, {"Fy (" + u.Force + ")", r.Fy}, {"M (" + u.Moment() + ")", r.M}} {
+			if !node.Support.Restrained(d) {
+				continue
+			}
+			rows = append(rows, []string{name, e.label, fixed(e.x.Max), a.comboName(e.x.MaxBy), fixed(e.x.Min), a.comboName(e.x.MinBy)})
+			name = ""
+		}
+	}
+	return a.table(w, "Reactions (global: +X right, +Y up, M counter-clockwise)", []string{"node", "component", "max", "governing", "min", "governing"}, rows)
+}

@@ -1,0 +1,307 @@
+package combos
+
+import (
+	"fmt"
+	"math"
+	"sort"
+	"strconv"
+	"strings"
+
+	"govern/frame"
+)
+
+// Params are the values a model gives for the options of a rule set.
+type Params struct {
+	// SDS is ASCE/SEI 7's design spectral response acceleration parameter
+	// at short periods, S_DS, in g. Rules with an sds_factor take
+	// sds_factor × S_DS into the dead load factor (Ev = 0.2 S_DS D); 0
+	// leaves Ev out.
+	SDS float64
+	// ReducedLive uses each rule's reduced live load factor where it has
+	// one (ASCE/SEI 7-16 section 2.3.1 exception 1: 0.5L where the live
+	// load is not over 100 psf and not a garage or place of public
+	// assembly).
+	ReducedLive bool
+}
+
+// MaxCombinations bounds what one set may generate for one model, so that
+// a model with many reversible cases cannot exhaust memory.
+const MaxCombinations = 20000
+
+// CaseError is a load case that a rule cannot be applied to.
+type CaseError struct {
+	Case int // index into the cases
+	Msg  string
+}
+
+func (e *CaseError) Error() string { return e.Msg }
+
+// CaseErrors is every case problem found, one per case at most.
+type CaseErrors []*CaseError
+
+func (es CaseErrors) Error() string {
+	s := make([]string, len(es))
+	for i, e := range es {
+		s[i] = e.Error()
+	}
+	return strings.Join(s, "\n")
+}
+
+// Unwrap returns the individual errors.
+func (es CaseErrors) Unwrap() []error {
+	out := make([]error, len(es))
+	for i, e := range es {
+		out[i] = e
+	}
+	return out
+}
+
+// Generate expands the rules of the set against the load cases, by their
+// kinds, into factored combinations, in rule order:
+//
+//   - a term takes every case of its kind, all with the term's factor;
+//   - a term of several kinds gives one combination for each kind that has
+//     cases (an alternative), or with Together one combination with them all;
+//   - kinds with no case drop out of a term, and a term left empty drops
+//     out of its rule, except a lead term: then the rule gives nothing;
+//   - a kind already taken by an earlier term of the combination is not
+//     taken again;
+//   - a factor of zero (a ψ of zero, say) leaves the case out;
+//   - a reversible case enters once with its factor and once negated;
+//   - a combination whose factors equal an earlier one's is kept once.
+//
+// info, when not nil, holds one entry per case. Each combination is named
+// after its rule's ID and its factors, such as "2.3.1-3 1.2D+1.6S+0.5W", and
+// its Rule is the set's name and the rule's ID. Cases that lack a ψ factor a
+// rule needs are returned as [CaseErrors].
+func (s *Set) Generate(cases []frame.Case, info []CaseInfo, p Params) ([]Combination, error) {
+	if info == nil {
+		info = make([]CaseInfo, len(cases))
+	}
+	if len(info) != len(cases) {
+		panic("combos: Generate: info and cases differ in length")
+	}
+	g := &generator{set: s, cases: cases, info: info, p: p, seen: map[string]bool{}, bad: map[int]bool{}}
+	g.byKind = make([][]int, len(frame.Kinds()))
+	for i, c := range cases {
+		if int(c.Kind) >= len(g.byKind) {
+			panic("combos: Generate: case " + c.Name + " has no known kind")
+		}
+		g.byKind[c.Kind] = append(g.byKind[c.Kind], i)
+	}
+	for i := range s.Rules {
+		g.rule = &s.Rules[i]
+		g.expand(0, 0, nil)
+		if g.tooMany {
+			return nil, fmt.Errorf("%s gives more than %d combinations for these cases; mark fewer cases reversible", s.Name, MaxCombinations)
+		}
+	}
+	if len(g.errs) > 0 {
+		sort.Slice(g.errs, func(i, j int) bool { return g.errs[i].Case < g.errs[j].Case })
+		return nil, g.errs
+	}
+	return g.out, nil
+}
+
+type generator struct {
+	set    *Set
+	cases  []frame.Case
+	info   []CaseInfo
+	p      Params
+	byKind [][]int
+	rule   *Rule
+
+	out     []Combination
+	seen    map[string]bool // factor sets already given
+	errs    CaseErrors
+	bad     map[int]bool // cases already reported
+	tooMany bool
+}
+
+// expand takes term ti of the current rule given the kinds already taken
+// (a bit set) and the terms so far.
+func (g *generator) expand(ti int, taken uint32, acc []Term) {
+	if g.tooMany {
+		return
+	}
+	if ti == len(g.rule.Terms) {
+		g.emit(acc)
+		return
+	}
+	rt := &g.rule.Terms[ti]
+	type branch struct {
+		terms []Term
+		kinds uint32
+	}
+	var branches []branch
+	add := func(b *branch, ch *Choice) {
+		for _, c := range g.byKind[ch.Kind] {
+			if f := g.factor(ch, c); f != 0 {
+				b.terms = append(b.terms, Term{Case: c, Factor: f})
+				b.kinds |= 1 << ch.Kind
+			}
+		}
+	}
+	if rt.Together {
+		var b branch
+		for i := range rt.Choices {
+			if ch := &rt.Choices[i]; taken&(1<<ch.Kind) == 0 {
+				add(&b, ch)
+			}
+		}
+		if len(b.terms) > 0 {
+			branches = append(branches, b)
+		}
+	} else {
+		for i := range rt.Choices {
+			ch := &rt.Choices[i]
+			if taken&(1<<ch.Kind) != 0 {
+				continue
+			}
+			var b branch
+			add(&b, ch)
+			if len(b.terms) > 0 {
+				branches = append(branches, b)
+			}
+		}
+	}
+	if len(branches) == 0 {
+		if !rt.Lead {
+			g.expand(ti+1, taken, acc)
+		}
+		return
+	}
+	for _, b := range branches {
+		next := append(append([]Term(nil), acc...), b.terms...)
+		g.expand(ti+1, taken|b.kinds, next)
+	}
+}
+
+// factor returns the factor of case c under choice ch, rounded to 12
+// significant digits so that 1.5 × 0.7 is 1.05; 0 when the case lacks a ψ
+// the choice needs, which is recorded as an error.
+func (g *generator) factor(ch *Choice, c int) float64 {
+	f := ch.Factor
+	if ch.HasReducedLive && g.p.ReducedLive {
+		f = ch.ReducedLive
+	}
+	f += ch.SDSFactor * g.p.SDS
+	if ch.Psi != NoPsi {
+		psi, ok := g.info[c].PsiFactor(ch.Psi, g.cases[c].Kind)
+		if !ok {
+			g.needPsi(ch.Psi, c)
+			return 0
+		}
+		f *= psi
+	}
+	return round12(f)
+}
+
+func round12(f float64) float64 {
+	if f == 0 || math.IsNaN(f) || math.IsInf(f, 0) {
+		return f
+	}
+	r, _ := strconv.ParseFloat(strconv.FormatFloat(f, 'g', 12, 64), 64)
+	return r
+}
+
+func (g *generator) needPsi(p Psi, c int) {
+	if g.bad[c] {
+		return
+	}
+	g.bad[c] = true
+	k := g.cases[c].Kind
+	var rows []string
+	for _, cat := range categories {
+		if cat.Fits(k) {
+			rows = append(rows, fmt.Sprintf("%q", cat.Name))
+		}
+	}
+	how := fmt.Sprintf("give psi0, psi1 and psi2 (EN 1990 Table A1.1 has no row for %s load)", k)
+	if len(rows) > 0 {
+		how = fmt.Sprintf("give category (%s, EN 1990 Table A1.1) or psi0, psi1 and psi2", strings.Join(rows, ", "))
+	}
+	g.errs = append(g.errs, &CaseError{Case: c, Msg: fmt.Sprintf("%s rule %s needs %s of this %s case: %s", g.set.Name, g.rule.ID, p, k, how)})
+}
+
+// emit adds the combination of terms, once for each sign of its
+// reversible cases, skipping factor sets already given.
+func (g *generator) emit(terms []Term) {
+	if len(terms) == 0 {
+		return
+	}
+	var rev []int
+	for i, t := range terms {
+		if g.info[t.Case].Reversible {
+			rev = append(rev, i)
+		}
+	}
+	if len(rev) > 30 {
+		g.tooMany = true
+		return
+	}
+	for signs := 0; signs < 1<<len(rev); signs++ {
+		ts := append([]Term(nil), terms...)
+		for j, i := range rev {
+			// the highest bit flips the first reversible case, so that
+			// all + comes first and each case's + before its -
+			if signs&(1<<(len(rev)-1-j)) != 0 {
+				ts[i].Factor = -ts[i].Factor
+			}
+		}
+		key := factorKey(ts)
+		if g.seen[key] {
+			continue
+		}
+		g.seen[key] = true
+		if len(g.out) == MaxCombinations {
+			g.tooMany = true
+			return
+		}
+		g.out = append(g.out, Combination{
+			Name:  g.rule.ID + " " + Compact(ts, g.cases),
+			Rule:  g.set.Name + " " + g.rule.ID,
+			Terms: ts,
+		})
+	}
+}
+
+// factorKey identifies a factor set whatever the order of its terms.
+func factorKey(ts []Term) string {
+	s := make([]string, len(ts))
+	for i, t := range ts {
+		s[i] = strconv.Itoa(t.Case) + ":" + strconv.FormatFloat(t.Factor, 'g', -1, 64)
+	}
+	sort.Strings(s)
+	return strings.Join(s, " ")
+}
+
+// FormatFactor writes a load factor as combination names show it: the
+// shortest decimal with at least one digit after the point, such as "1.0",
+// "1.35" or "-0.5".
+func FormatFactor(f float64) string {
+	s := strconv.FormatFloat(f, 'f', -1, 64)
+	if !strings.ContainsAny(s, ".eEnN") {
+		s += ".0"
+	}
+	return s
+}
+
+// Compact writes terms as factors and case names without spaces, such as
+// "1.2D+1.6S-0.5W".
+func Compact(terms []Term, cases []frame.Case) string {
+	var b strings.Builder
+	for i, t := range terms {
+		f := t.Factor
+		switch {
+		case f < 0:
+			b.WriteString("-")
+			f = -f
+		case i > 0:
+			b.WriteString("+")
+		}
+		b.WriteString(FormatFactor(f))
+		b.WriteString(cases[t.Case].Name)
+	}
+	return b.String()
+}

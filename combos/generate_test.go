@@ -1,0 +1,179 @@
+package combos
+
+import (
+	"errors"
+	"strings"
+	"testing"
+
+	"govern/frame"
+)
+
+// cases builds load cases from specs such as "D dead", "W wind reversible"
+// or "Q live category=B".
+func cases(t *testing.T, specs ...string) ([]frame.Case, []CaseInfo) {
+	t.Helper()
+	var cs []frame.Case
+	var info []CaseInfo
+	for _, s := range specs {
+		f := strings.Fields(s)
+		k, ok := frame.ParseKind(f[1])
+		if !ok {
+			t.Fatalf("bad kind in %q", s)
+		}
+		var ci CaseInfo
+		for _, opt := range f[2:] {
+			switch {
+			case opt == "reversible":
+				ci.Reversible = true
+			case strings.HasPrefix(opt, "category="):
+				ci.Category = strings.TrimPrefix(opt, "category=")
+			default:
+				t.Fatalf("bad option in %q", s)
+			}
+		}
+		cs = append(cs, frame.Case{Name: f[0], Kind: k})
+		info = append(info, ci)
+	}
+	return cs, info
+}
+
+// factorSets generates the set's combinations and returns each as its
+// factors, such as "1.2D+1.6L".
+func factorSets(t *testing.T, s *Set, cs []frame.Case, info []CaseInfo, p Params) []string {
+	t.Helper()
+	got, err := s.Generate(cs, info, p)
+	if err != nil {
+		t.Fatal(err)
+	}
+	out := make([]string, len(got))
+	for i, cb := range got {
+		out[i] = Compact(cb.Terms, cs)
+		if want := cb.Name; !strings.HasSuffix(want, " "+out[i]) {
+			t.Errorf("combination %q is not named after its factors %s", cb.Name, out[i])
+		}
+	}
+	return out
+}
+
+func parse(t *testing.T, src string) *Set {
+	t.Helper()
+	s, err := ParseSet("test.toml", []byte(src))
+	if err != nil {
+		t.Fatal(err)
+	}
+	return s
+}
+
+func TestGenerateRules(t *testing.T) {
+	// The expansion rules of docs/combinations.md, each on a small set.
+	for _, tc := range []struct {
+		name  string
+		rules string
+		cases []string
+		want  string
+	}{
+		{"every case of a kind takes its factor",
+			`terms = [{ kind = "dead", factor = 1.4 }]`,
+			[]string{"G1 dead", "G2 dead", "Q live"}, "1.4G1+1.4G2"},
+		{"an alternative gives one combination per kind present",
+			`terms = [{ kind = "dead", factor = 1.2 }, { kind = ["roof-live", "snow", "rain"], factor = 1.6 }]`,
+			[]string{"D dead", "S snow", "Lr roof-live"}, "1.2D+1.6Lr 1.2D+1.6S"},
+		{"a term with no kind present drops out",
+			`terms = [{ kind = "dead", factor = 1.2 }, { kind = ["snow", "rain"], factor = 0.5 }]`,
+			[]string{"D dead", "L live"}, "1.2D"},
+		{"a lead with no case drops the rule",
+			`terms = [{ kind = "dead", factor = 1.2 }, { kind = "wind", factor = 1.0, lead = true }]`,
+			[]string{"D dead", "L live"}, ""},
+		{"every lead must be present",
+			`terms = [{ kind = "live", factor = 0.75, lead = true }, { kind = "snow", factor = 0.75, lead = true }]`,
+			[]string{"L live"}, ""},
+		{"together puts every kind present in one combination, in the order of the term",
+			`terms = [{ kind = ["live", "snow", "wind"], factor = 1.5, together = true }]`,
+			[]string{"S snow", "L live", "W wind"}, "1.5L+1.5S+1.5W"},
+		{"a kind taken earlier is not taken again",
+			`terms = [{ kind = ["live", "snow"], factor = 1.5, lead = true }, { kind = ["live", "snow"], factor = 0.5, together = true }]`,
+			[]string{"L live", "S snow"}, "1.5L+0.5S 1.5S+0.5L"},
+		{"a reversible case enters with both signs",
+			`terms = [{ kind = "dead", factor = 0.9 }, { kind = "wind", factor = 1.0 }]`,
+			[]string{"D dead", "W wind reversible"}, "0.9D+1.0W 0.9D-1.0W"},
+		{"two reversible cases give four sign sets",
+			`terms = [{ kind = ["wind", "seismic"], factor = 1.0, together = true }]`,
+			[]string{"W wind reversible", "E seismic reversible"}, "1.0W+1.0E 1.0W-1.0E -1.0W+1.0E -1.0W-1.0E"},
+		{"identical factor sets are kept once",
+			`terms = [{ or = [{ kind = "dead", factor = 1.0 }, { kind = "dead", factor = 1.0 }] }]`,
+			[]string{"D dead"}, "1.0D"},
+		{"a zero psi leaves the case out",
+			`terms = [{ kind = "dead", factor = 1.0 }, { kind = ["live", "wind"], factor = 1.0, psi = "psi2", together = true }]`,
+			[]string{"D dead", "Q live category=B", "W wind reversible"}, "1.0D+0.3Q"},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			s := parse(t, "[[rule]]\nid = \"R\"\n"+tc.rules+"\n")
+			cs, info := cases(t, tc.cases...)
+			if got := strings.Join(factorSets(t, s, cs, info, Params{}), " "); got != tc.want {
+				t.Errorf("got  %q\nwant %q", got, tc.want)
+			}
+		})
+	}
+}
+
+func TestGenerateNamesAndRules(t *testing.T) {
+	s, _ := Standard("asce7-16-strength")
+	cs, info := cases(t, "D dead", "S snow", "W wind")
+	got, err := s.Generate(cs, info, Params{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	// The issue's example of a readable name: ASCE/SEI 7-16 section 2.3.1
+	// combination 3 with snow leading and half the wind.
+	for _, cb := range got {
+		if cb.Name == "2.3.1-3 1.2D+1.6S+0.5W" {
+			if cb.Rule != "asce7-16-strength 2.3.1-3" || cb.Factor(0) != 1.2 || cb.Factor(1) != 1.6 || cb.Factor(2) != 0.5 {
+				t.Errorf("combination %+v", cb)
+			}
+			return
+		}
+	}
+	t.Errorf("no combination named 2.3.1-3 1.2D+1.6S+0.5W among %+v", got)
+}
+
+func TestGenerateNeedsPsi(t *testing.T) {
+	s, _ := Standard("en1990-6.10")
+	cs, info := cases(t, "G dead", "Q live", "S snow", "R rain", "W wind")
+	_, err := s.Generate(cs, info, Params{})
+	var ce CaseErrors
+	if !errors.As(err, &ce) || len(ce) != 3 {
+		t.Fatalf("error %v, want one for each of Q, S and R", err)
+	}
+	for i, want := range []string{
+		`en1990-6.10 rule 6.10 needs psi0 of this live case: give category ("A", "B", "C", "D", "E", "F", "G", "H", EN 1990 Table A1.1) or psi0, psi1 and psi2`,
+		`needs psi0 of this snow case: give category ("snow-nordic", "snow-above-1000m", "snow-up-to-1000m"`,
+		`needs psi0 of this rain case: give psi0, psi1 and psi2 (EN 1990 Table A1.1 has no row for rain load)`,
+	} {
+		if ce[i].Case != i+1 || !strings.Contains(ce[i].Msg, want) {
+			t.Errorf("error %d: case %d, %q\nwant case %d and %q", i, ce[i].Case, ce[i].Msg, i+1, want)
+		}
+	}
+}
+
+func TestGenerateBounded(t *testing.T) {
+	s := parse(t, "[[rule]]\nid = \"R\"\nterms = [{ kind = \"wind\", factor = 1.0, together = true }]\n")
+	var specs []string
+	for i := range 16 {
+		specs = append(specs, "W"+strings.Repeat("x", i)+" wind reversible")
+	}
+	cs, info := cases(t, specs...)
+	if _, err := s.Generate(cs, info, Params{}); err == nil || !strings.Contains(err.Error(), "more than 20000 combinations") {
+		t.Errorf("error %v", err)
+	}
+}
+
+func TestFormatFactor(t *testing.T) {
+	for _, tc := range []struct {
+		f    float64
+		want string
+	}{{1, "1.0"}, {1.35, "1.35"}, {-0.5, "-0.5"}, {round12(1.5 * 0.7), "1.05"}, {round12(1.2 + 0.2*0.87), "1.374"}} {
+		if got := FormatFactor(tc.f); got != tc.want {
+			t.Errorf("FormatFactor(%v) = %q, want %q", tc.f, got, tc.want)
+		}
+	}
+}

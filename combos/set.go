@@ -1,0 +1,124 @@
+package combos
+
+import (
+	"embed"
+	"fmt"
+	"path"
+	"sort"
+	"strings"
+
+	"govern/frame"
+)
+
+// Set is a set of combination rules, such as the strength combinations of
+// a design standard. [ParseSet] reads one from its TOML form (described in
+// docs/combinations.md); [Standard] returns a built-in one.
+type Set struct {
+	Name  string // "asce7-16-strength", or the name a rule file gives itself
+	Title string // what the set is, with the standard and its clauses
+	Rules []Rule
+}
+
+// Rule is one combination expression of a standard, such as ASCE/SEI 7-16
+// section 2.3.1 combination 3, "1.2D + 1.6(Lr or S or R) + (L or 0.5W)".
+type Rule struct {
+	ID    string // short reference that starts the name of every combination it gives, such as "2.3.1-3"
+	Text  string // the expression as the standard writes it; for people only
+	Terms []RuleTerm
+}
+
+// RuleTerm is one term of a rule: the loads of one or more kinds with their
+// factors.
+type RuleTerm struct {
+	// Choices lists the kinds the term may take, each with its factor.
+	// With more than one, the term is an alternative, "(Lr or S or R)",
+	// and the rule gives one combination for each choice present, unless
+	// Together is set.
+	Choices []Choice
+	// Lead marks the principal load of the rule: when none of the term's
+	// kinds has a case, the rule gives no combination.
+	Lead bool
+	// Together puts every choice present into the same combination, as
+	// the accompanying variable actions of EN 1990 are.
+	Together bool
+}
+
+// Choice is one kind of load in a term and how its factor is found.
+type Choice struct {
+	Kind   frame.Kind
+	Factor float64
+	// SDSFactor times the model's S_DS is added to Factor: ASCE/SEI 7's
+	// vertical seismic load effect Ev = 0.2 S_DS D taken into the dead
+	// load factor. Dead load only.
+	SDSFactor float64
+	// ReducedLive replaces Factor when the model asks for the reduced live
+	// load factor (ASCE/SEI 7-16 section 2.3.1 exception 1) and
+	// HasReducedLive is set. Live load only.
+	ReducedLive    float64
+	HasReducedLive bool
+	// Psi, when set, multiplies the factor by the case's own ψ factor.
+	Psi Psi
+}
+
+// UsesSDS reports whether any rule of the set takes S_DS into a factor.
+func (s *Set) UsesSDS() bool {
+	return s.any(func(c *Choice) bool { return c.SDSFactor != 0 })
+}
+
+// UsesReducedLive reports whether any rule of the set has a reduced live
+// load factor.
+func (s *Set) UsesReducedLive() bool {
+	return s.any(func(c *Choice) bool { return c.HasReducedLive })
+}
+
+// UsesPsi reports whether any rule of the set takes ψ factors from the cases.
+func (s *Set) UsesPsi() bool {
+	return s.any(func(c *Choice) bool { return c.Psi != NoPsi })
+}
+
+func (s *Set) any(f func(c *Choice) bool) bool {
+	for i := range s.Rules {
+		for j := range s.Rules[i].Terms {
+			for k := range s.Rules[i].Terms[j].Choices {
+				if f(&s.Rules[i].Terms[j].Choices[k]) {
+					return true
+				}
+			}
+		}
+	}
+	return false
+}
+
+// builtin holds the built-in sets, one TOML file each, named after the set.
+//
+//go:embed sets/*.toml
+var builtin embed.FS
+
+// Standards lists the names of the built-in sets, sorted.
+func Standards() []string {
+	ents, err := builtin.ReadDir("sets")
+	if err != nil {
+		panic("combos: built-in sets: " + err.Error())
+	}
+	var out []string
+	for _, e := range ents {
+		out = append(out, strings.TrimSuffix(e.Name(), ".toml"))
+	}
+	sort.Strings(out)
+	return out
+}
+
+// Standard returns the built-in set named name, such as
+// "asce7-16-strength". An unknown name is an error that lists the known
+// ones.
+func Standard(name string) (*Set, error) {
+	src, err := builtin.ReadFile(path.Join("sets", name+".toml"))
+	if err != nil || strings.ContainsAny(name, "/\\") {
+		return nil, fmt.Errorf("unknown standard %q; the known ones are %s", name, strings.Join(Standards(), ", "))
+	}
+	s, err := ParseSet(name+".toml", src)
+	if err != nil {
+		panic("combos: built-in set " + name + ": " + err.Error())
+	}
+	return s, nil
+}

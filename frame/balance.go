@@ -1,0 +1,179 @@
+package frame
+
+import "math"
+
+// Balance is the statics check of one solved load case: the resultant of the
+// applied loads against the resultant of the support reactions, both about
+// the global origin, and the largest out-of-balance force and moment left at
+// any free joint. For a correct solution Applied + Reactions and the joint
+// residuals are round-off.
+type Balance struct {
+	Applied   Resultant // resultant of the loads of the case
+	Reactions Resultant // resultant of the support reactions
+
+	JointForce  float64 // largest out-of-balance force at a free degree of freedom
+	JointMoment float64 // largest out-of-balance moment at a free degree of freedom
+
+	// Load is the size of the loading: the sum of the magnitudes of every
+	// applied force (a distributed load counts its integral of |w|) plus each
+	// applied node moment divided by Length. It is never smaller than the
+	// resultant, and is positive for any case that has a nonzero load.
+	Load float64
+	// Length is the diagonal of the box that holds every node; moments are
+	// compared with Load × Length.
+	Length float64
+}
+
+// Out returns Applied + Reactions, the amount by which the reactions fail to
+// balance the loads.
+func (b Balance) Out() Resultant {
+	return Resultant{Fx: b.Applied.Fx + b.Reactions.Fx, Fy: b.Applied.Fy + b.Reactions.Fy, M: b.Applied.M + b.Reactions.M}
+}
+
+// Relative returns the largest out-of-balance quantity of the check as a
+// fraction of the load: forces over Load, moments over Load × Length. It is 0
+// for an unloaded case that is exactly in balance and +Inf for an unloaded
+// case that is not.
+func (b Balance) Relative() float64 {
+	o := b.Out()
+	f := math.Max(math.Max(math.Abs(o.Fx), math.Abs(o.Fy)), b.JointForce)
+	m := math.Max(math.Abs(o.M), b.JointMoment)
+	if f == 0 && m == 0 {
+		return 0
+	}
+	if !(b.Load > 0) {
+		return math.Inf(1)
+	}
+	return math.Max(f/b.Load, m/(b.Load*math.Max(b.Length, math.SmallestNonzeroFloat64)))
+}
+
+// Balance returns the statics check of case c.
+func (sol *Solution) Balance(c int) Balance { return sol.BalanceOf([]int{c}) }
+
+// BalanceOf returns the statics check of cases cs acting together: their
+// loads against the reactions of their summed displacements, with the joint
+// residuals of that sum. Checking a patterned case through the sum of its
+// pieces costs one pass over the members, not one per piece.
+func (sol *Solution) BalanceOf(cs []int) Balance {
+	mo := sol.model
+	nn, nm := len(mo.Nodes), len(mo.Members)
+	b := Balance{Length: extent(mo)}
+	u := make([]float64, 3*nn)
+	fem := make([]float64, 6*nm)
+	acc := make([]float64, 3*nn) // node loads less the end forces on the members
+	for _, c := range cs {
+		r := AppliedResultant(mo, c)
+		b.Applied = Resultant{Fx: b.Applied.Fx + r.Fx, Fy: b.Applied.Fy + r.Fy, M: b.Applied.M + r.M}
+		b.Load += loadSize(mo, c, b.Length)
+		for i := range u {
+			u[i] += sol.u(c, i)
+		}
+		for i, m := range sol.loaded[c] {
+			for k := range 6 {
+				fem[6*int(m)+k] += sol.fem[c][6*i+k]
+			}
+		}
+		for _, nl := range mo.Cases[c].NodeLoads {
+			acc[3*nl.Node] += nl.Fx
+			acc[3*nl.Node+1] += nl.Fy
+			acc[3*nl.Node+2] += nl.M
+		}
+	}
+	for m, mem := range mo.Members {
+		e := &sol.elems[m]
+		var ug, ul, f, g [6]float64
+		copy(ug[:3], u[3*mem.Start:])
+		copy(ug[3:], u[3*mem.End:])
+		e.toLocal(&ul, &ug)
+		for i := range 6 {
+			v := fem[6*m+i]
+			for j := range 6 {
+				v += e.k[i][j] * ul[j]
+			}
+			f[i] = v
+		}
+		e.toGlobal(&g, &f)
+		for i := range 3 {
+			acc[3*mem.Start+i] -= g[i]
+			acc[3*mem.End+i] -= g[3+i]
+		}
+	}
+	for v, nd := range mo.Nodes {
+		for d := range 3 {
+			r := acc[3*v+d]
+			switch {
+			case nd.Support.Restrained(d):
+				// The reaction balances what is left at a held direction.
+				switch d {
+				case 0:
+					b.Reactions.Fx -= r
+					b.Reactions.M += nd.Y * r // −Y·Rx with Rx = −r
+				case 1:
+					b.Reactions.Fy -= r
+					b.Reactions.M -= nd.X * r // X·Ry with Ry = −r
+				case 2:
+					b.Reactions.M -= r
+				}
+			case d == 2:
+				b.JointMoment = math.Max(b.JointMoment, math.Abs(r))
+			default:
+				b.JointForce = math.Max(b.JointForce, math.Abs(r))
+			}
+		}
+	}
+	return b
+}
+
+// extent returns the diagonal of the bounding box of the nodes of mo.
+func extent(mo *Model) float64 {
+	if len(mo.Nodes) == 0 {
+		return 0
+	}
+	x0, x1 := mo.Nodes[0].X, mo.Nodes[0].X
+	y0, y1 := mo.Nodes[0].Y, mo.Nodes[0].Y
+	for _, n := range mo.Nodes[1:] {
+		x0, x1 = math.Min(x0, n.X), math.Max(x1, n.X)
+		y0, y1 = math.Min(y0, n.Y), math.Max(y1, n.Y)
+	}
+	return math.Hypot(x1-x0, y1-y0)
+}
+
+// loadSize returns the sum of the magnitudes of the loads of case c, node
+// moments divided by length.
+func loadSize(mo *Model, c int, length float64) float64 {
+	cs := &mo.Cases[c]
+	sum := 0.0
+	for _, nl := range cs.NodeLoads {
+		sum += math.Hypot(nl.Fx, nl.Fy)
+		if length > 0 {
+			sum += math.Abs(nl.M) / length
+		}
+	}
+	for _, ld := range cs.MemberLoads {
+		if ld.Point {
+			sum += math.Abs(ld.P)
+			continue
+		}
+		l := mo.Length(ld.Member)
+		a, b := clampTo(ld.From, 0, l), clampTo(ld.To, 0, l)
+		// Intensities at the clamped ends of the load.
+		span := ld.To - ld.From
+		wa, wb := ld.W, ld.WEnd
+		if span > 0 {
+			wa = ld.W + (ld.WEnd-ld.W)*(a-ld.From)/span
+			wb = ld.W + (ld.WEnd-ld.W)*(b-ld.From)/span
+		}
+		sum += absIntegral(wa, wb, b-a)
+	}
+	return sum
+}
+
+// absIntegral returns the integral of |w| over a length len where w varies
+// linearly from wa to wb.
+func absIntegral(wa, wb, length float64) float64 {
+	if wa*wb >= 0 {
+		return (math.Abs(wa) + math.Abs(wb)) / 2 * length
+	}
+	// w changes sign: two triangles.
+	return length * (wa*wa + wb*wb) / (2 * (math.Abs(wa) + math.Abs(wb)))
+}

@@ -1,0 +1,90 @@
+package frame
+
+import (
+	"math"
+	"testing"
+)
+
+func TestBalanceOfAPortal(t *testing.T) {
+	// A pinned-base portal with a UDL w on the beam and a horizontal load H at
+	// the left corner. By statics (closed form) the loads reduce at the origin
+	// to Fx = H, Fy = -wL and M = -wL·L/2 - H·h, and the reactions must be the
+	// opposite.
+	const l, h, w, hx = 8.0, 4.0, 12.0, 30.0
+	mo := portal(Pinned, l, h, 2e-3, 1e-3)
+	mo.Cases = []Case{{Name: "D+W", MemberLoads: []MemberLoad{{Member: 1, To: l, W: w, WEnd: w}},
+		NodeLoads: []NodeLoad{{Node: 1, Fx: hx}}}}
+	sol := solve(t, mo)
+	b := sol.Balance(0)
+	want := Resultant{Fx: hx, Fy: -w * l, M: -w*l*l/2 - hx*h}
+	for _, q := range []struct {
+		name      string
+		got, want float64
+	}{
+		{"applied Fx", b.Applied.Fx, want.Fx},
+		{"applied Fy", b.Applied.Fy, want.Fy},
+		{"applied M", b.Applied.M, want.M},
+		{"reactions Fx", b.Reactions.Fx, -want.Fx},
+		{"reactions Fy", b.Reactions.Fy, -want.Fy},
+		{"reactions M", b.Reactions.M, -want.M},
+		{"load size wL + H", b.Load, w*l + hx},
+		{"length: diagonal of the frame", b.Length, math.Hypot(l, h)},
+	} {
+		if !near(q.got, q.want, tightTol) {
+			t.Errorf("%s = %g, want %g", q.name, q.got, q.want)
+		}
+	}
+	if r := b.Relative(); r > tightTol {
+		t.Errorf("relative out of balance %g, want round-off", r)
+	}
+	if b.JointForce > tightTol*b.Load || b.JointMoment > tightTol*b.Load*b.Length {
+		t.Errorf("joint residuals %g, %g", b.JointForce, b.JointMoment)
+	}
+	if got := sol.Residual(0); got != math.Max(b.JointForce, b.JointMoment) {
+		t.Errorf("Residual = %g, want the larger of %g and %g", got, b.JointForce, b.JointMoment)
+	}
+}
+
+func TestBalanceRelative(t *testing.T) {
+	for _, tc := range []struct {
+		name string
+		b    Balance
+		want float64
+	}{
+		{"exact balance", Balance{Applied: Resultant{1, 2, 3}, Reactions: Resultant{-1, -2, -3}, Load: 3, Length: 2}, 0},
+		{"force out by 1e-3 of the load", Balance{Applied: Resultant{Fy: -10}, Reactions: Resultant{Fy: 10.01}, Load: 10, Length: 5}, 1e-3},
+		{"moment out, scaled by load times length", Balance{Applied: Resultant{M: -50}, Reactions: Resultant{M: 50.5}, Load: 10, Length: 5}, 1e-2},
+		{"joint residual counts", Balance{JointForce: 2e-6, Load: 1, Length: 1}, 2e-6},
+		{"joint moment residual counts", Balance{JointMoment: 4e-6, Load: 1, Length: 2}, 2e-6},
+		{"unloaded and balanced", Balance{}, 0},
+		{"unloaded yet out of balance", Balance{JointForce: 1e-9}, math.Inf(1)},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			if got := tc.b.Relative(); !near(got, tc.want, 1e-9) && got != tc.want {
+				t.Errorf("Relative = %g, want %g", got, tc.want)
+			}
+		})
+	}
+}
+
+func TestLoadSize(t *testing.T) {
+	// The integral of |w| for a load changing sign is the sum of two
+	// triangles (closed form): w from -1 to 3 over 4 crosses zero at 1,
+	// giving 1/2 + 9/2 = 5.
+	if got := absIntegral(-1, 3, 4); !near(got, 5, tightTol) {
+		t.Errorf("absIntegral(-1, 3, 4) = %g, want 5", got)
+	}
+	if got := absIntegral(2, 4, 3); !near(got, 9, tightTol) {
+		t.Errorf("absIntegral(2, 4, 3) = %g, want 9", got)
+	}
+	mo := continuous(2, 5, 0, []int{})
+	mo.Cases[0].MemberLoads = []MemberLoad{
+		{Member: 0, From: 1, To: 3, W: 2, WEnd: 2},
+		{Member: 1, Point: true, At: 2, P: -7},
+	}
+	mo.Cases[0].NodeLoads = []NodeLoad{{Node: 1, Fx: 3, Fy: 4, M: 20}}
+	// 2·2 + 7 + 5 + 20/10 (the frame is 10 long).
+	if got := loadSize(mo, 0, extent(mo)); !near(got, 18, tightTol) {
+		t.Errorf("loadSize = %g, want 18", got)
+	}
+}

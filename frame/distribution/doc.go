@@ -1,0 +1,45 @@
+// Package distribution is a second, independent solver for plane frames: the
+// moment distribution method of Hardy Cross. It exists to check the direct
+// stiffness solver of package frame by a different method, and shares nothing
+// with it but the model types.
+//
+// # Method
+//
+// Every joint free to rotate is first locked, giving the fixed-end moments of
+// the member loads (closed-form integrals of the load against the fixed-end
+// influence functions). Joints are then released one at a time: the
+// unbalanced moment is shared among the member ends at the joint in
+// proportion to their stiffness, 4EI/L, or 3EI/L where the far end is a
+// pinned end (a hinge, or a joint that only that member holds), and half of
+// each share is carried over to the far end (carry-over factor 1/2; 0 towards
+// a pinned end). Sweeps over the joints are repeated until the largest
+// unbalanced moment is below a tolerance. A cantilever is statically
+// determinate: its end moments come from statics and it takes no share.
+//
+// Members are taken as axially rigid and shear deformation is neglected, so
+// the joints of a beam line move together horizontally and the joints of a
+// column line move together vertically.
+//
+// # Where it applies
+//
+// Every member must be horizontal or vertical, and every joint that is not a
+// cantilever tip must be held vertically (by a support, or through a line of
+// columns down to one). A frame whose joints are all held horizontally (by a
+// beam line ending at a fixed or pinned support) is analysed without sway. A
+// frame with exactly one beam line free to move horizontally (a single
+// storey) gets the sway correction: the frame is first held against sway by a
+// prop and distributed, then given a unit sway and distributed again, and the
+// two are combined so that the prop force vanishes. Anything else is reported
+// by a [*NotApplicableError] that says why.
+//
+// # Units and signs
+//
+// Units are those of the model, never converted. End moments are those the
+// joints exert on the member ends, counter-clockwise positive, as the end
+// moments of package frame: for a beam drawn left to right under gravity load
+// the fixed-end moment is +wL²/12 at the start and −wL²/12 at the end.
+//
+// # Mutation
+//
+// [Solve] never mutates the model and keeps no reference to it.
+package distribution

@@ -1,0 +1,140 @@
+package frame
+
+// Model returns the model that was solved.
+func (sol *Solution) Model() *Model { return sol.model }
+
+// Info returns the size of the system that was solved.
+func (sol *Solution) Info() Info { return Info{Equations: sol.dofs, Bandwidth: sol.band} }
+
+// Cond returns the estimated condition number (1-norm) of the stiffness
+// matrix; 1 when there was nothing to solve.
+func (sol *Solution) Cond() float64 { return sol.cond }
+
+// Displacement returns the global displacements (ux, uy, rz) of node v in
+// case c.
+func (sol *Solution) Displacement(c, v int) (ux, uy, rz float64) {
+	return sol.u(c, 3*v), sol.u(c, 3*v+1), sol.u(c, 3*v+2)
+}
+
+// EndForces returns the local forces the nodes exert on member m in case c:
+// start axial, transverse, moment; end axial, transverse, moment.
+func (sol *Solution) EndForces(c, m int) [6]float64 {
+	var f [6]float64
+	sol.endForcesTo(&f, c, m)
+	return f
+}
+
+// endForcesTo computes f = k u + f_fixed in local axes.
+func (sol *Solution) endForcesTo(f *[6]float64, c, m int) {
+	mem := sol.model.Members[m]
+	e := &sol.elems[m]
+	var ug, ul [6]float64
+	for d := range 3 {
+		ug[d], ug[3+d] = sol.u(c, 3*mem.Start+d), sol.u(c, 3*mem.End+d)
+	}
+	e.toLocal(&ul, &ug)
+	*f = [6]float64{}
+	if _, fem := sol.loadsOn(c, m); fem != nil {
+		*f = *fem
+	}
+	for i := range 6 {
+		v := f[i]
+		for j := range 6 {
+			v += e.k[i][j] * ul[j]
+		}
+		f[i] = v
+	}
+}
+
+// Reaction returns the global reaction (Fx, Fy, M) at node v in case c:
+// the sum of the end forces of the members meeting there, less the loads
+// applied at the node. Components the support does not restrain are zero.
+func (sol *Solution) Reaction(c, v int) (fx, fy, m float64) {
+	mo := sol.model
+	s := mo.Nodes[v].Support
+	if s == Free {
+		return 0, 0, 0
+	}
+	r := sol.nodeSum(c, v)
+	for _, nl := range mo.Cases[c].NodeLoads {
+		if nl.Node == v {
+			r[0] -= nl.Fx
+			r[1] -= nl.Fy
+			r[2] -= nl.M
+		}
+	}
+	for d := range 3 {
+		if !s.Restrained(d) {
+			r[d] = 0
+		}
+	}
+	return r[0], r[1], r[2]
+}
+
+// nodeSum returns the sum of the global end forces that node v exerts on
+// the members meeting there.
+func (sol *Solution) nodeSum(c, v int) [3]float64 {
+	var r [3]float64
+	for _, m32 := range sol.atNode[v] {
+		m := int(m32)
+		var f, g [6]float64
+		sol.endForcesTo(&f, c, m)
+		sol.elems[m].toGlobal(&g, &f)
+		mem := sol.model.Members[m]
+		if mem.Start == v {
+			r[0], r[1], r[2] = r[0]+g[0], r[1]+g[1], r[2]+g[2]
+		}
+		if mem.End == v {
+			r[0], r[1], r[2] = r[0]+g[3], r[1]+g[4], r[2]+g[5]
+		}
+	}
+	return r
+}
+
+// At returns the internal forces of member m in case c at distance x from
+// its start. Values come from the end forces and the member's own loads by
+// statics, never by interpolation. At a point load the value just before the
+// load is returned.
+func (sol *Solution) At(c, m int, x float64) Forces {
+	var f [6]float64
+	sol.endForcesTo(&f, c, m)
+	e := &sol.elems[m]
+	idx, _ := sol.loadsOn(c, m)
+	return stationForces(f[0], f[1], f[2], x, e.l, e.c, e.s, sol.model.Cases[c].MemberLoads, idx)
+}
+
+// StationsTo fills dst with the internal forces of member m at the
+// distances xs from its start, in every case: dst[c*len(xs)+i] holds case
+// c at xs[i]. dst must have length len(xs) × the number of cases.
+func (sol *Solution) StationsTo(dst []Forces, m int, xs []float64) {
+	nc := len(sol.model.Cases)
+	if len(dst) != nc*len(xs) {
+		panic("frame: StationsTo: dst has the wrong length")
+	}
+	e := &sol.elems[m]
+	var f [6]float64
+	for c := range nc {
+		sol.endForcesTo(&f, c, m)
+		idx, _ := sol.loadsOn(c, m)
+		row := dst[c*len(xs) : (c+1)*len(xs)]
+		if len(idx) == 0 {
+			// Unloaded in this case: N and V are constant, M linear.
+			for i, x := range xs {
+				row[i] = Forces{N: -f[0], V: f[1], M: -f[2] + x*f[1]}
+			}
+			continue
+		}
+		loads := sol.model.Cases[c].MemberLoads
+		for i, x := range xs {
+			row[i] = stationForces(f[0], f[1], f[2], x, e.l, e.c, e.s, loads, idx)
+		}
+	}
+}
+
+// u returns global displacement component i (3*node+d) in case c.
+func (sol *Solution) u(c, i int) float64 {
+	if e := sol.dof[i]; e >= 0 {
+		return sol.x[e*len(sol.model.Cases)+c]
+	}
+	return 0
+}
