@@ -116,7 +116,7 @@ func TestPanicIsReportedNotRaised(t *testing.T) {
 	defer func(f func(*os.File) io.Writer) { tempWriter = f }(tempWriter)
 	tempWriter = func(f *os.File) io.Writer { return &faulty{w: f, after: 0, panics: true} }
 	code, stdout, stderr := exec("run", "--json", out, model)
-	want := "govern run: internal error: interrupted (simulated)\ngovern run: no output was written; please report this with the model that caused it\n"
+	want := "govern run: internal error: interrupted (simulated)\ngovern run: please report this with the model that caused it\n"
 	if code != 1 || stderr != want || stdout != "" {
 		t.Errorf("exit %d, stdout %q, stderr %q; want 1 and %q", code, stdout, stderr, want)
 	}

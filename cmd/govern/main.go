@@ -66,7 +66,7 @@ func govern(args []string, stdout, stderr io.Writer) (status int) {
 	who := "govern" // the prefix of messages: the command, once known
 	defer func() {
 		if p := recover(); p != nil {
-			fmt.Fprintf(stderr, "%s: internal error: %v\n%s: no output was written; please report this with the model that caused it\n", who, p, who)
+			fmt.Fprintf(stderr, "%s: internal error: %v\n%s: please report this with the model that caused it\n", who, p, who)
 			status = 1
 		}
 	}()

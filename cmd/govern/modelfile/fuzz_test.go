@@ -20,8 +20,8 @@ var sentinels = []error{ErrSyntax, ErrUnknownKey, ErrType, ErrMissing, ErrValue,
 const fuzzSolveLimit = 300
 
 // FuzzRead feeds the reader and validator arbitrary files, seeded with the
-// models of the test suite, the demonstration model and the bad models of
-// testdata. No input may panic or hang. A rejected file must come back as
+// models of the test suite (patterned cases, a combination rule set), the
+// demonstration model and the models of testdata. No input may panic or hang. A rejected file must come back as
 // a list of problems, each with the file name, a line within the file and
 // one of the sentinels; an accepted one must pass frame.Model.Validate, and
 // a small one is solved and enveloped, where the only errors allowed are
@@ -29,6 +29,7 @@ const fuzzSolveLimit = 300
 func FuzzRead(f *testing.F) {
 	f.Add([]byte(sound))
 	f.Add([]byte(gridModel))
+	f.Add([]byte(portal)) // with a [combinations] rule set
 	seeds := []string{filepath.Join("..", "demo.toml")}
 	for _, pattern := range []string{"*.toml", filepath.Join("bad", "*.toml")} {
 		m, _ := filepath.Glob(filepath.Join("..", "..", "..", "testdata", pattern))
