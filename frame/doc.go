@@ -24,6 +24,12 @@
 // Reactions are global (Fx, Fy, M): the forces the supports exert on the frame.
 // Gravity loads are entered positive downward.
 //
+// The deflection of a member ([Solution.Deflection]) is its transverse
+// displacement relative to its chord, the straight line between its
+// displaced ends, along local y: a beam drawn left to right sags
+// negatively. [Section.Depth] is carried for design (faces of columns) and
+// never used by the solver.
+//
 // # Degrees of freedom
 //
 // Each node has three degrees of freedom, ux, uy and rz, in that order. The

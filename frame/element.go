@@ -10,6 +10,7 @@ type element struct {
 	release Release
 	c, s    float64 // direction cosines of local x
 	l       float64
+	ei      float64 // bending stiffness E I
 }
 
 // newElement builds the local stiffness of member m of mo.
@@ -17,9 +18,9 @@ func newElement(mo *Model, m int) element {
 	mem := mo.Members[m]
 	sec := mo.Sections[mem.Section]
 	c, s, l := mo.geometry(m)
-	e := element{c: c, s: s, l: l, release: mem.Release}
-	ea := sec.E * sec.A / l
 	ei := sec.E * sec.I
+	e := element{c: c, s: s, l: l, release: mem.Release, ei: ei}
+	ea := sec.E * sec.A / l
 	k := &e.k
 	k[0][0], k[0][3], k[3][0], k[3][3] = ea, -ea, -ea, ea
 	a, b, d, f := 12*ei/(l*l*l), 6*ei/(l*l), 4*ei/l, 2*ei/l

@@ -37,3 +37,29 @@ func ExampleSolve() {
 	// V at the ends: 30.00 kN, -30.00 kN
 	// left support: Fy = 30.00 kN, M = 30.00 kN·m
 }
+
+// The midspan deflection of a simple span under a uniform load is
+// 5wL⁴/384EI downward (AISC Steel Construction Manual, Table 3-23, case 1;
+// recalled from memory). Deflection is along local y, up for a beam drawn
+// left to right, and relative to the chord joining the member's ends.
+func ExampleSolution_Deflection() {
+	const l, w = 6.0, 10.0 // m, kN/m
+	const e, i = 200e6, 8e-5
+	mo := &frame.Model{
+		Sections: []frame.Section{{Name: "S", E: e, A: 5e-3, I: i}},
+		Nodes:    []frame.Node{{Name: "a", Support: frame.Pinned}, {Name: "b", X: l, Support: frame.Roller}},
+		Members:  []frame.Member{{Name: "a-b", Start: 0, End: 1}},
+		Cases: []frame.Case{{Name: "w", Kind: frame.Dead,
+			MemberLoads: []frame.MemberLoad{{Member: 0, From: 0, To: l, W: w, WEnd: w}}}},
+	}
+	sol, err := frame.Solve(mo)
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	fmt.Printf("computed:   %.3f mm\n", 1000*sol.Deflection(0, 0, l/2))
+	fmt.Printf("5wL⁴/384EI: %.3f mm\n", 1000*5*w*l*l*l*l/(384*e*i))
+	// Output:
+	// computed:   -10.547 mm
+	// 5wL⁴/384EI: 10.547 mm
+}

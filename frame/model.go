@@ -76,6 +76,10 @@ type Section struct {
 	A      float64 // area, length²
 	I      float64 // second moment of area about the bending axis, length⁴
 	Weight float64 // self weight, force/length; 0 when not given
+	// Depth is the overall depth of the section in the plane of the frame,
+	// length; 0 when not given. The solver does not use it: it places the
+	// faces of columns for design (see package envelope's Settings.Extra).
+	Depth float64
 }
 
 // Member is a prismatic beam-column between two nodes.
@@ -168,6 +172,9 @@ func (mo *Model) Validate() error {
 		}
 		if s.Weight < 0 || !finite(s.Weight) {
 			add("section %q: weight must be a finite number >= 0, not %v", s.Name, s.Weight)
+		}
+		if s.Depth < 0 || !finite(s.Depth) {
+			add("section %q: depth must be a finite number >= 0, not %v", s.Name, s.Depth)
 		}
 	}
 	clear(seen)
