@@ -19,6 +19,10 @@ type Combination struct {
 	Name  string
 	Rule  string // where the combination came from: "model", or a rule of a standard
 	Terms []Term
+	// Service marks a serviceability combination: it gives deflections,
+	// and the envelopes of forces for design leave it out when the model
+	// has strength combinations (see package envelope).
+	Service bool
 }
 
 // EachCase returns one combination per case, the case alone with factor 1,

@@ -15,6 +15,10 @@
 // The ψ factors of EN 1990 Table A1.1 are in [Categories]; a case's own
 // values, its reversibility and its category travel in [CaseInfo].
 //
+// A set marked as a serviceability set (EN 1990's characteristic, frequent
+// and quasi-permanent combinations) gives combinations marked Service: they
+// give deflections rather than design forces.
+//
 // Generated combinations are named after their rule and factors, such as
 // "2.3.1-3 1.2D+1.6S+0.5W", and their Rule field names the set and rule.
 // Factors are rounded to 12 significant digits, so that 1.5 × 0.7 is 1.05.

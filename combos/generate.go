@@ -259,9 +259,10 @@ func (g *generator) emit(terms []Term) {
 			return
 		}
 		g.out = append(g.out, Combination{
-			Name:  g.rule.ID + " " + Compact(ts, g.cases),
-			Rule:  g.set.Name + " " + g.rule.ID,
-			Terms: ts,
+			Name:    g.rule.ID + " " + Compact(ts, g.cases),
+			Rule:    g.set.Name + " " + g.rule.ID,
+			Terms:   ts,
+			Service: g.set.Service,
 		})
 	}
 }

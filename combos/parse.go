@@ -208,7 +208,7 @@ func (t *ruleTable) tables(key string) []map[string]any {
 
 // Keys of each table of the format, as messages list them.
 var (
-	topKeys  = []string{"name", "title", "rule"}
+	topKeys  = []string{"name", "title", "service", "rule"}
 	ruleKeys = []string{"id", "text", "terms"}
 	termKeys = []string{"kind", "factor", "lead", "together", "psi", "sds_factor", "reduced_live_factor", "or"}
 	altKeys  = []string{"kind", "factor", "psi", "sds_factor", "reduced_live_factor"}
@@ -231,7 +231,7 @@ func (t *ruleTable) done(known []string) {
 
 func (p *parser) set(raw map[string]any) *Set {
 	top := p.table(raw, 0, p.lines.top, "")
-	s := &Set{Name: top.str("name"), Title: top.str("title")}
+	s := &Set{Name: top.str("name"), Title: top.str("title"), Service: top.boolean("service")}
 	if s.Name == "" {
 		s.Name = strings.TrimSuffix(path.Base(strings.ReplaceAll(p.file, "\\", "/")), ".toml")
 	}

@@ -16,7 +16,11 @@ import (
 type Set struct {
 	Name  string // "asce7-16-strength", or the name a rule file gives itself
 	Title string // what the set is, with the standard and its clauses
-	Rules []Rule
+	// Service marks a set of serviceability combinations (EN 1990's
+	// characteristic, frequent and quasi-permanent ones): its combinations
+	// give deflections, and strength envelopes leave them out.
+	Service bool
+	Rules   []Rule
 }
 
 // Rule is one combination expression of a standard, such as ASCE/SEI 7-16

@@ -83,3 +83,42 @@ func TestEveryRuleGivesCombinations(t *testing.T) {
 		})
 	}
 }
+
+// EN 1990 section 6.5.3 gives the characteristic (6.14b), frequent (6.15b)
+// and quasi-permanent (6.16b) combinations for the serviceability limit
+// states, and Annex A1 section A1.4.3 checks deformations with them; the
+// strength sets (ASCE/SEI 7-16 section 2.3, EN 1990 6.10) are ultimate limit
+// state sets, and the allowable stress set of section 2.4 is for member
+// strength too (recalled from memory).
+func TestServiceSets(t *testing.T) {
+	service := map[string]bool{"en1990-characteristic": true, "en1990-frequent": true, "en1990-quasi-permanent": true}
+	cs, info := cases(t, "G dead", "Q live category=B", "W wind")
+	for _, name := range Standards() {
+		t.Run(name, func(t *testing.T) {
+			s, _ := Standard(name)
+			if s.Service != service[name] {
+				t.Fatalf("Service = %v, want %v", s.Service, service[name])
+			}
+			got, err := s.Generate(cs, info, Params{})
+			if err != nil || len(got) == 0 {
+				t.Fatalf("%d combinations, %v", len(got), err)
+			}
+			for _, cb := range got {
+				if cb.Service != s.Service {
+					t.Errorf("%s: Service = %v, want the set's %v", cb.Name, cb.Service, s.Service)
+				}
+			}
+		})
+	}
+	t.Run("a rule file's service key", func(t *testing.T) {
+		src := strings.Replace(officeCode, `title = "Two rules"`, "title = \"Two rules\"\nservice = true", 1)
+		s, err := ParseSet("office.toml", []byte(src))
+		if err != nil || !s.Service {
+			t.Fatalf("Service = %v, err %v", s != nil && s.Service, err)
+		}
+		_, err = ParseSet("office.toml", []byte(strings.Replace(src, "service = true", `service = "yes"`, 1)))
+		if err == nil || !strings.Contains(err.Error(), "office.toml:4: service must be true or false, not a string") {
+			t.Errorf("service = \"yes\": %v", err)
+		}
+	})
+}

@@ -20,7 +20,7 @@ func beam(l, w float64, sa, sb Support, rel Release) *Model {
 
 // The deflection relative to the chord of single spans against the beam
 // tables: AISC Steel Construction Manual, Table 3-23 (recalled from
-// memory; each formula is also the beam's elastic curve, EI v” = M with
+// memory; each formula is also the beam's elastic curve, EI d²v/dx² = M with
 // v = 0 at both supports). Deflections there are downward; local y of a
 // beam drawn left to right is up, hence the minus signs.
 func TestDeflectionBeamTables(t *testing.T) {
