@@ -3,10 +3,16 @@
 // combination produces, and the combination that produces it.
 //
 // Stations are equally spaced along each member, both ends included, and
-// measured from the member's start node in the model's length unit. Forces
-// follow the sign conventions of package frame: N positive in tension, M
-// positive when the local −y face is in tension, V = dM/dx; reactions are
-// global.
+// measured from the member's start node in the model's length unit; a
+// caller may add stations of its own on any member ([Settings.Extra]), such
+// as the faces of columns. Forces follow the sign conventions of package
+// frame: N positive in tension, M positive when the local −y face is in
+// tension, V = dM/dx; reactions are global.
+//
+// Combinations marked as service combinations give the envelope of each
+// member's deflection relative to its chord (along local y, in the length
+// unit); the forces and reactions are enveloped over the other, strength,
+// combinations, or over all of them when every one is a service one.
 //
 // Within a combination a permanent case always acts with its factor. A
 // variable case acts in full by default only where its factored effect makes

@@ -40,6 +40,7 @@ func empty() Extreme {
 // Station holds the envelopes at one point of a member.
 type Station struct {
 	X       float64 // distance from the start node
+	Extra   bool    // the station was asked for by Settings.Extra
 	N, V, M Extreme
 }
 
@@ -47,6 +48,11 @@ type Station struct {
 type Member struct {
 	Member   int // index into the model's members
 	Stations []Station
+	// Deflection holds, station by station, the envelope of the member's
+	// deflection relative to its chord (along local y, see
+	// frame.Solution.Deflection) over the service combinations; nil when
+	// there are none. MaxWith and MinWith are zero.
+	Deflection []Extreme
 }
 
 // Reaction holds the envelopes of the reaction at one supported node.
@@ -61,6 +67,12 @@ type Settings struct {
 	// Stations is the number of equally spaced stations per member, both
 	// ends included; at least 2.
 	Stations int
+	// Extra, when not nil, lists for member m the distances from its start
+	// of stations to add to the equally spaced ones, such as the faces of
+	// the columns a beam frames into. One that falls on an equally spaced
+	// station (within 1e-9 of the length) marks it instead. Members past
+	// the end of Extra get none.
+	Extra [][]float64
 	// AsWritten makes every case of a combination act with its factor
 	// everywhere, instead of variable cases acting only where adverse.
 	// Pieces of a case patterned "exact" or "exhaustive" are still placed
@@ -81,6 +93,10 @@ type Envelope struct {
 	Pieces       []patterns.Piece // the pattern pieces spans refer to; nil without patterns
 	Members      []Member
 	Reactions    []Reaction
+	// Strength lists the combinations the envelopes of forces and
+	// reactions are taken over, Service those of the deflections (indices
+	// into Combinations). See [Compute].
+	Strength, Service []int
 }
 
 // ErrNoCombinations is returned when there is nothing to envelope.
@@ -101,6 +117,11 @@ const (
 // nil (pattern loading), or of the model itself when lay is nil.
 // Combination terms refer to the original cases, which lead the expanded
 // model's cases.
+//
+// Forces and reactions are enveloped over the strength combinations (those
+// not marked Service), or over every combination when all are service ones.
+// Deflections are enveloped over the service combinations, with the same
+// rules for variable cases and pattern pieces, when there are any.
 func Compute(sol *frame.Solution, cs []combos.Combination, set Settings, lay *patterns.Layout) (*Envelope, error) {
 	if len(cs) == 0 {
 		return nil, ErrNoCombinations
@@ -112,7 +133,20 @@ func Compute(sol *frame.Solution, cs []combos.Combination, set Settings, lay *pa
 	if lay != nil && lay.Model != mo {
 		panic("envelope: solution is not of the layout's model")
 	}
-	e := newEvaluator(mo, cs, set, lay)
+	if len(set.Extra) > len(mo.Members) {
+		return nil, fmt.Errorf("envelope: extra stations for %d members; the model has %d", len(set.Extra), len(mo.Members))
+	}
+	for m, xs := range set.Extra {
+		l := mo.Length(m)
+		for _, x := range xs {
+			if !(x >= 0 && x <= l) {
+				return nil, fmt.Errorf("envelope: member %q: extra station at %g is not on the member (length %g)", mo.Members[m].Name, x, l)
+			}
+		}
+	}
+	env := &Envelope{Settings: set, Combinations: cs}
+	env.Strength, env.Service = split(cs)
+	e := newEvaluator(mo, cs, env.Strength, 3, set, lay)
 	for _, cb := range cs {
 		for _, t := range cb.Terms {
 			if t.Case < 0 || t.Case >= e.nOrig {
@@ -120,7 +154,11 @@ func Compute(sol *frame.Solution, cs []combos.Combination, set Settings, lay *pa
 			}
 		}
 	}
-	env := &Envelope{Settings: set, Combinations: cs}
+	if len(env.Service) > 0 {
+		d := *e
+		d.cs, d.index, d.nEff = pick(cs, env.Service), env.Service, 1
+		e.defl = &d
+	}
 	if lay != nil {
 		env.Pieces = lay.Pieces
 	}
@@ -158,9 +196,14 @@ func Compute(sol *frame.Solution, cs []combos.Combination, set Settings, lay *pa
 	return env, nil
 }
 
-// evaluator holds what is fixed for one Compute call.
+// evaluator holds what is fixed for one Compute call and one kind of
+// envelope: forces over the strength combinations, or deflections over
+// the service ones.
 type evaluator struct {
-	cs        []combos.Combination
+	cs        []combos.Combination // the combinations enveloped
+	index     []int                // their indices in the combinations given to Compute
+	nEff      int                  // effects enveloped: 3 (N, V, M) or 1 (deflection)
+	defl      *evaluator           // the deflections' evaluator, nil without service combinations
 	set       Settings
 	lay       *patterns.Layout
 	nOrig     int    // original cases, leading the columns
@@ -170,8 +213,8 @@ type evaluator struct {
 	mode      patterns.Mode
 }
 
-func newEvaluator(mo *frame.Model, cs []combos.Combination, set Settings, lay *patterns.Layout) *evaluator {
-	e := &evaluator{cs: cs, set: set, lay: lay, nOrig: len(mo.Cases)}
+func newEvaluator(mo *frame.Model, cs []combos.Combination, idx []int, nEff int, set Settings, lay *patterns.Layout) *evaluator {
+	e := &evaluator{cs: pick(cs, idx), index: idx, nEff: nEff, set: set, lay: lay, nOrig: len(mo.Cases)}
 	e.always = make([]bool, len(mo.Cases))
 	for c := range mo.Cases {
 		e.always[c] = set.AsWritten || !mo.Cases[c].Variable()
@@ -206,14 +249,16 @@ func newEvaluator(mo *frame.Model, cs []combos.Combination, set Settings, lay *p
 
 // work is one goroutine's scratch space.
 type work struct {
-	xs   []float64          // station positions of the current member
-	at   []frame.Forces     // every column at every station of the member
-	ev   [][3]float64       // effects of every column at the station
-	sum  [][3][2][3]float64 // exact: per patterned case, effect, sign: sum of same-signed units
-	big  [][3][2]float64    // exact: largest single |effect| in each of those sets
-	best [][3][2]int        // code: unit with the largest (sign 0) and smallest (sign 1) effect
-	tmp  [6][]int           // spans being collected: max and min of N, V, M
-	cand [6][]candidate     // exact: loaded pieces that may be listed
+	xs    []float64          // station positions of the current member
+	extra []bool             // whether each was asked for by Settings.Extra
+	at    []frame.Forces     // every column at every station of the member
+	defl  []float64          // every column's deflection at every station
+	ev    [][3]float64       // effects of every column at the station
+	sum   [][3][2][3]float64 // exact: per patterned case, effect, sign: sum of same-signed units
+	big   [][3][2]float64    // exact: largest single |effect| in each of those sets
+	best  [][3][2]int        // code: unit with the largest (sign 0) and smallest (sign 1) effect
+	tmp   [6][]int           // spans being collected: max and min of N, V, M
+	cand  [6][]candidate     // exact: loaded pieces that may be listed
 
 	// exact: per patterned case, effect and sign, how many units are of that
 	// sign and the most influential of them (min-heaps of unit indices).
@@ -238,31 +283,44 @@ func (e *evaluator) scratch() *work {
 }
 
 func (e *evaluator) member(w *work, sol *frame.Solution, m int) Member {
-	mo := sol.Model()
-	l := mo.Length(m)
-	ns := e.set.Stations
-	if w.xs == nil {
-		w.xs = make([]float64, ns)
-		w.at = make([]frame.Forces, ns*len(w.ev))
+	l := sol.Model().Length(m)
+	var extra []float64
+	if m < len(e.set.Extra) {
+		extra = e.set.Extra[m]
 	}
-	for i := range w.xs {
-		w.xs[i] = l * float64(i) / float64(ns-1)
-	}
-	w.xs[ns-1] = l // exactly the end, whatever the rounding
+	w.stations(l, e.set.Stations, extra)
+	ns := len(w.xs)
+	w.at = grow(w.at, ns*len(w.ev))
 	sol.StationsTo(w.at, m, w.xs)
+	if e.defl != nil {
+		w.defl = grow(w.defl, ns*len(w.ev))
+		sol.DeflectionsTo(w.defl, m, w.xs)
+	}
 	st := make([]Station, ns)
+	var defl []Extreme
+	if e.defl != nil {
+		defl = make([]Extreme, ns)
+	}
 	for i, x := range w.xs {
 		for c := range w.ev {
 			f := w.at[c*ns+i]
 			w.ev[c] = [3]float64{f.N, f.V, f.M}
 		}
 		ex := e.station(w)
-		st[i] = Station{X: x, N: ex[0], V: ex[1], M: ex[2]}
+		st[i] = Station{X: x, Extra: w.extra[i], N: ex[0], V: ex[1], M: ex[2]}
+		if e.defl != nil {
+			for c := range w.ev {
+				w.ev[c] = [3]float64{w.defl[c*ns+i], 0, 0}
+			}
+			d := e.defl.station(w)[0]
+			d.MaxWith, d.MinWith = [3]float64{}, [3]float64{}
+			defl[i] = d
+		}
 	}
 	if e.set.Progress != nil {
 		e.set.Progress.Add(int64(ns))
 	}
-	return Member{Member: m, Stations: st}
+	return Member{Member: m, Stations: st, Deflection: defl}
 }
 
 // station forms the three extremes from the column effects in w.ev.
@@ -270,7 +328,7 @@ func (e *evaluator) station(w *work) [3]Extreme {
 	e.aggregate(w)
 	out := [3]Extreme{empty(), empty(), empty()}
 	for k := range e.cs {
-		for j := range 3 {
+		for j := range e.nEff {
 			if hi := e.contrib(w, k, j, true); hi[j] > out[j].Max {
 				out[j].Max, out[j].MaxBy, out[j].MaxWith = hi[j], k, hi
 			}
@@ -281,6 +339,15 @@ func (e *evaluator) station(w *work) [3]Extreme {
 	}
 	if e.lay != nil && len(e.lay.Patterned) > 0 {
 		e.spans(w, &out)
+	}
+	// Name the combinations by their index in Compute's list.
+	for j := range e.nEff {
+		if out[j].MaxBy >= 0 {
+			out[j].MaxBy = e.index[out[j].MaxBy]
+		}
+		if out[j].MinBy >= 0 {
+			out[j].MinBy = e.index[out[j].MinBy]
+		}
 	}
 	return out
 }
@@ -317,7 +384,7 @@ func (e *evaluator) aggregate(w *work) {
 				tot[0] += v[0]
 				tot[1] += v[1]
 				tot[2] += v[2]
-				for j := range 3 {
+				for j := range e.nEff {
 					x := v[j]
 					s, a := 0, x
 					switch {
@@ -353,14 +420,14 @@ func (e *evaluator) aggregate(w *work) {
 					}
 				}
 			}
-			for j := range 3 {
+			for j := range e.nEff {
 				for q := range 3 {
 					sum[j][1][q] = tot[q] - sum[j][0][q] - zero[j][q]
 				}
 			}
 			w.sum[p], w.big[p], w.count[p] = sum, big, count
 		case patterns.Code:
-			for j := range 3 {
+			for j := range e.nEff {
 				hi, lo := 0, 0
 				for i, v := range units {
 					if v[j] > units[hi][j] {
@@ -458,7 +525,7 @@ func (e *evaluator) spans(w *work, out *[3]Extreme) {
 	}
 	var loaded [6]int
 	for p, pc := range e.lay.Patterned {
-		for j := range 3 {
+		for j := range e.nEff {
 			for side, by := range [2]int{out[j].MaxBy, out[j].MinBy} {
 				if by < 0 {
 					continue
