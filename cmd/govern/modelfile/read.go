@@ -226,6 +226,13 @@ func (r *reader) readSections(ts []*table) {
 		if s.Weight < 0 {
 			t.fail("weight", problem(ErrValue, "weight = %g: must not be negative", s.Weight))
 		}
+		if d, ok := t.numOK("depth", 0); ok {
+			if d <= 0 {
+				t.fail("depth", problem(ErrValue, "depth = %g: must be greater than zero", d))
+			} else {
+				s.Depth = d
+			}
+		}
 		r.sections[name] = len(r.job.Model.Sections)
 		r.job.Model.Sections = append(r.job.Model.Sections, s)
 		r.hasW = append(r.hasW, t.has("weight"))
@@ -454,7 +461,7 @@ func (r *reader) readCombinations(ts []*table) {
 			t.fail("name", problem(ErrDuplicate, "combination %q is defined twice", name))
 		}
 		seen[name] = true
-		cb := combos.Combination{Name: name, Rule: "model"}
+		cb := combos.Combination{Name: name, Rule: "model", Service: t.boolean("service", false)}
 		if t.need("factors") {
 			v, _ := t.get("factors")
 			f, ok := v.(map[string]any)

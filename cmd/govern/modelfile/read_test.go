@@ -274,3 +274,22 @@ func TestReadReportsEveryProblem(t *testing.T) {
 		}
 	}
 }
+
+func TestReadDepthAndService(t *testing.T) {
+	src := strings.Replace(base, `I = 1e-4`, "I = 1e-4\ndepth = 0.45", 1)
+	src = strings.Replace(src, `factors = { G = 1.4 }`, "factors = { G = 1.4 }\n[[combination]]\nname = \"G\"\nfactors = { G = 1.0 }\nservice = true", 1)
+	job, err := Read("m.toml", []byte(src))
+	if err != nil {
+		t.Fatal(err)
+	}
+	if d := job.Model.Sections[0].Depth; d != 0.45 {
+		t.Errorf("depth = %g, want 0.45", d)
+	}
+	if cs := job.Combinations; len(cs) != 2 || cs[0].Service || !cs[1].Service {
+		t.Errorf("combinations %+v: want the second only marked service", cs)
+	}
+	job, err = Read("m.toml", []byte(base))
+	if err != nil || job.Model.Sections[0].Depth != 0 {
+		t.Errorf("without depth: %v, %v", job.Model.Sections[0].Depth, err)
+	}
+}
