@@ -64,7 +64,12 @@ func analyseWith(job *modelfile.Job, mode patterns.Mode, p *progress) (*analysis
 		return nil, err
 	}
 	set := job.Settings
-	set.Progress = p.counter(fmt.Sprintf("solved %d loads; enveloping stations", len(lay.Model.Cases)), int64(len(job.Model.Members)*set.Stations))
+	set.Extra = faceStations(job.Model)
+	total := len(job.Model.Members) * set.Stations
+	for _, xs := range set.Extra {
+		total += len(xs)
+	}
+	set.Progress = p.counter(fmt.Sprintf("solved %d loads; enveloping stations", len(lay.Model.Cases)), int64(total))
 	env, err := envelope.Compute(sol, job.Combinations, set, lay)
 	if err != nil {
 		return nil, err

@@ -57,7 +57,7 @@ func (a *analysis) writeJSON(w io.Writer, bal []caseBalance) error {
 				n++
 			}
 		}
-		j.raw("}}")
+		j.raw("}, \"service\": ").boolean(cb.Service).raw("}")
 	}
 	j.raw("\n ],\n \"members\": [")
 	ext := func(name string, e envelope.Extreme, with [3]string) {
@@ -66,17 +66,35 @@ func (a *analysis) writeJSON(w io.Writer, bal []caseBalance) error {
 		j.raw(", \"min\": ").num(e.Min).raw(", \"min_by\": ").bytes(nameOf(combo, e.MinBy))
 		j.raw(", \"min_spans\": ").list(piece, e.MinSpans).raw(", \"min_loaded\": ").int(e.MinLoaded).raw(", \"min_with\": ").forces(with, e.MinWith).raw("}")
 	}
+	defl := func(e envelope.Extreme) {
+		j.raw("\"deflection\": {\"max\": ").num(e.Max).raw(", \"max_by\": ").bytes(nameOf(combo, e.MaxBy))
+		j.raw(", \"max_spans\": ").list(piece, e.MaxSpans).raw(", \"max_loaded\": ").int(e.MaxLoaded)
+		j.raw(", \"min\": ").num(e.Min).raw(", \"min_by\": ").bytes(nameOf(combo, e.MinBy))
+		j.raw(", \"min_spans\": ").list(piece, e.MinSpans).raw(", \"min_loaded\": ").int(e.MinLoaded).raw("}")
+	}
 	for i, em := range a.env.Members {
 		m := mo.Members[em.Member]
 		j.sep(i, ",").raw("\n  {\"name\": ").str(m.Name).raw(", \"start\": ").str(mo.Nodes[m.Start].Name)
-		j.raw(", \"end\": ").str(mo.Nodes[m.End].Name).raw(", \"length\": ").num(mo.Length(em.Member)).raw(", \"stations\": [")
+		j.raw(", \"end\": ").str(mo.Nodes[m.End].Name).raw(", \"length\": ").num(mo.Length(em.Member))
+		if d, ok := a.spanDeflection(em.Member); ok {
+			j.raw(", \"span_deflection\": {\"deflection\": ").num(d.v).raw(", \"x\": ").num(d.x)
+			j.raw(", \"by\": ").bytes(nameOf(combo, d.by)).raw(", \"ratio\": ").num(d.ratio).raw("}")
+		}
+		j.raw(", \"stations\": [")
 		for k, st := range em.Stations {
 			j.sep(k, ",").raw("\n   {\"x\": ").num(st.X).raw(", ")
+			if st.Extra {
+				j.raw("\"face\": true, ")
+			}
 			ext("N", st.N, memberForces)
 			j.raw(", ")
 			ext("V", st.V, memberForces)
 			j.raw(", ")
 			ext("M", st.M, memberForces)
+			if em.Deflection != nil {
+				j.raw(", ")
+				defl(em.Deflection[k])
+			}
 			j.raw("}")
 		}
 		j.raw("\n  ]}")
@@ -151,6 +169,13 @@ func (j *jsonWriter) bytes(b []byte) *jsonWriter {
 }
 
 func (j *jsonWriter) str(s string) *jsonWriter { return j.bytes(quote(s)) }
+
+func (j *jsonWriter) boolean(b bool) *jsonWriter {
+	if b {
+		return j.raw("true")
+	}
+	return j.raw("false")
+}
 
 func (j *jsonWriter) int(n int) *jsonWriter { return j.raw(strconv.Itoa(n)) }
 

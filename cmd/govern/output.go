@@ -48,18 +48,23 @@ func variableLoads(asWritten bool) string {
 	return "adverse"
 }
 
-// writeCSV writes one row per member, station and effect.
+// writeCSV writes one row per member, station and effect: N, V and M, and
+// with service combinations the deflection.
 func (a *analysis) writeCSV(w io.Writer) error {
 	mo := a.job.Model
 	u := a.job.Units
 	cw := csv.NewWriter(w)
 	if err := cw.Write([]string{"member", "x (" + u.Length + ")", "effect", "max", "max_by", "min", "min_by", "unit",
-		"max_spans", "min_spans", "max_loaded", "min_loaded", "max_with_N", "max_with_V", "max_with_M", "min_with_N", "min_with_V", "min_with_M"}); err != nil {
+		"max_spans", "min_spans", "max_loaded", "min_loaded", "max_with_N", "max_with_V", "max_with_M", "min_with_N", "min_with_V", "min_with_M", "face"}); err != nil {
 		return err
 	}
 	for _, em := range a.env.Members {
 		name := mo.Members[em.Member].Name
-		for _, st := range em.Stations {
+		for k, st := range em.Stations {
+			face := ""
+			if st.Extra {
+				face = "true"
+			}
 			for _, e := range []struct {
 				name, unit string
 				x          envelope.Extreme
@@ -67,7 +72,15 @@ func (a *analysis) writeCSV(w io.Writer) error {
 				x := e.x
 				if err := cw.Write([]string{name, strconv.FormatFloat(st.X, 'g', 12, 64), e.name, num(x.Max), a.comboName(x.MaxBy), num(x.Min), a.comboName(x.MinBy), e.unit,
 					strings.Join(a.spanNames(x.MaxSpans), " "), strings.Join(a.spanNames(x.MinSpans), " "), strconv.Itoa(x.MaxLoaded), strconv.Itoa(x.MinLoaded),
-					num(x.MaxWith[0]), num(x.MaxWith[1]), num(x.MaxWith[2]), num(x.MinWith[0]), num(x.MinWith[1]), num(x.MinWith[2])}); err != nil {
+					num(x.MaxWith[0]), num(x.MaxWith[1]), num(x.MaxWith[2]), num(x.MinWith[0]), num(x.MinWith[1]), num(x.MinWith[2]), face}); err != nil {
+					return err
+				}
+			}
+			if em.Deflection != nil {
+				x := em.Deflection[k]
+				if err := cw.Write([]string{name, strconv.FormatFloat(st.X, 'g', 12, 64), "deflection", num(x.Max), a.comboName(x.MaxBy), num(x.Min), a.comboName(x.MinBy), u.Length,
+					strings.Join(a.spanNames(x.MaxSpans), " "), strings.Join(a.spanNames(x.MinSpans), " "), strconv.Itoa(x.MaxLoaded), strconv.Itoa(x.MinLoaded),
+					"", "", "", "", "", "", face}); err != nil {
 					return err
 				}
 			}

@@ -146,6 +146,25 @@ func (a *analysis) report(stdout io.Writer, model string, f *runFlags) error {
 	return commitOutputs(stdout, model, outs)
 }
 
+// combinationCount says how many combinations there are, and how many are
+// strength and service ones when there are both.
+func (a *analysis) combinationCount() string {
+	n, s := len(a.env.Combinations), len(a.env.Service)
+	if s == 0 || s == n {
+		return fmt.Sprintf("%d combinations", n)
+	}
+	return fmt.Sprintf("%d combinations (%d strength, %d service)", n, n-s, s)
+}
+
+// faceCount returns the number of beam ends that have a face station.
+func (a *analysis) faceCount() int {
+	n := 0
+	for _, xs := range a.env.Settings.Extra {
+		n += len(xs)
+	}
+	return n
+}
+
 // writeHeading prints what was analysed.
 func (a *analysis) writeHeading(w io.Writer) {
 	mo := a.job.Model
@@ -153,8 +172,11 @@ func (a *analysis) writeHeading(w io.Writer) {
 		fmt.Fprintf(w, "%s\n", a.job.Title)
 	}
 	info := a.sol.Info()
-	fmt.Fprintf(w, "%d nodes, %d members, %d equations; %d load cases, %d combinations; %d stations per member; variable loads %s\n",
-		len(mo.Nodes), len(mo.Members), info.Equations, len(mo.Cases), len(a.env.Combinations), a.env.Settings.Stations, variableLoads(a.env.Settings.AsWritten))
+	fmt.Fprintf(w, "%d nodes, %d members, %d equations; %d load cases, %s; %d stations per member; variable loads %s\n",
+		len(mo.Nodes), len(mo.Members), info.Equations, len(mo.Cases), a.combinationCount(), a.env.Settings.Stations, variableLoads(a.env.Settings.AsWritten))
+	if n := a.faceCount(); n > 0 {
+		fmt.Fprintf(w, "Column faces: %d beam ends get a station at the face of the column they frame into (section depth)\n", n)
+	}
 	if len(a.job.Patterned) > 0 {
 		var names []string
 		for _, c := range a.job.Patterned {

@@ -57,20 +57,25 @@ func sci(v float64) string { return strconv.FormatFloat(clean(v), 'e', 1, 64) }
 
 // writeStatics prints the statics check of every case.
 func (a *analysis) writeStatics(w io.Writer, bs []caseBalance) error {
+	return a.staticsTable(textTables{w}, bs)
+}
+
+// staticsTable gives the statics check of every case.
+func (a *analysis) staticsTable(tb tables, bs []caseBalance) error {
 	u := a.job.Units
-	fmt.Fprintf(w, "\nStatics check of each load case: sums about the global origin, forces in %s, moments in %s;\n", u.Force, u.Moment())
-	fmt.Fprintf(w, "largest joint residual as force / moment; out of balance as a fraction of the load, limit %g\n", staticsLimit)
-	t := newTable(w, "case", "loads ΣFx", "reactions ΣFx", "loads ΣFy", "reactions ΣFy", "loads ΣM", "reactions ΣM", "joint residual", "out of balance", "check")
+	if err := tb.note(fmt.Sprintf("\nStatics check of each load case: sums about the global origin, forces in %s, moments in %s;\n"+
+		"largest joint residual as force / moment; out of balance as a fraction of the load, limit %g", u.Force, u.Moment(), staticsLimit)); err != nil {
+		return err
+	}
+	var rows [][]string
 	for _, cb := range bs {
 		b := cb.b
 		check := "ok"
 		if !cb.ok() {
 			check = "FAIL"
 		}
-		if err := t.Append([]string{cb.name, fixed(b.Applied.Fx), fixed(b.Reactions.Fx), fixed(b.Applied.Fy), fixed(b.Reactions.Fy),
-			fixed(b.Applied.M), fixed(b.Reactions.M), sci(b.JointForce) + " / " + sci(b.JointMoment), sci(b.Relative()), check}); err != nil {
-			return err
-		}
+		rows = append(rows, []string{cb.name, fixed(b.Applied.Fx), fixed(b.Reactions.Fx), fixed(b.Applied.Fy), fixed(b.Reactions.Fy),
+			fixed(b.Applied.M), fixed(b.Reactions.M), sci(b.JointForce) + " / " + sci(b.JointMoment), sci(b.Relative()), check})
 	}
-	return t.Render()
+	return tb.table("", []string{"case", "loads ΣFx", "reactions ΣFx", "loads ΣFy", "reactions ΣFy", "loads ΣM", "reactions ΣM", "joint residual", "out of balance", "check"}, rows)
 }

@@ -62,43 +62,87 @@ func (a *analysis) shortSpans(idx []int, loaded int) string {
 	return strings.Join(names, " ")
 }
 
-// writeSummary prints the governing design values: one table per floor
-// (beams: largest sagging and hogging moment and largest shear), one per
-// column line (columns: largest tension and compression with the moment
-// acting with each, largest moment and shear), one for any other members,
-// then the reaction envelopes.
-func (a *analysis) writeSummary(w io.Writer) error {
+// tables receives titled tables: the terminal renders them as text, the
+// report as HTML.
+type tables interface {
+	note(text string) error
+	table(title string, header []string, rows [][]string) error
+}
+
+// textTables renders tables as text with box-drawing rules.
+type textTables struct{ w io.Writer }
+
+func (t textTables) note(text string) error {
+	_, err := fmt.Fprintf(t.w, "%s\n", text)
+	return err
+}
+
+func (t textTables) table(title string, header []string, rows [][]string) error {
+	if title != "" {
+		fmt.Fprintf(t.w, "\n%s\n", title)
+	}
+	tw := newTable(t.w, header...)
+	if err := tw.Bulk(rows); err != nil {
+		return err
+	}
+	return tw.Render()
+}
+
+// memberGroup is a floor (the beams at one level, in span order), a column
+// line (bottom to top) or the other members.
+type memberGroup struct {
+	kind    groupKind
+	title   string
+	id      string // a short name without spaces, such as "level-1"
+	members []int
+}
+
+type groupKind uint8
+
+const (
+	floorGroup groupKind = iota
+	lineGroup
+	otherGroup
+)
+
+// groups returns the floors from the lowest, then the column lines from
+// the left, then the other members, if any.
+func (a *analysis) groups() []memberGroup {
 	mo := a.job.Model
 	u := a.job.Units
-	patterned := len(a.env.Pieces) > 0
 	spans := patterns.Spans(mo)
-
-	type group struct {
-		title   string
-		key     float64
-		members []int
-	}
-	levels := map[int]*group{}
-	lines := map[float64]*group{}
-	var other []int
+	levels := map[int]*memberGroup{}
+	lines := map[float64]*memberGroup{}
+	other := &memberGroup{kind: otherGroup, title: "Other members", id: "other"}
 	for m := range mo.Members {
 		switch {
 		case mo.IsBeam(m):
 			lv := spans[m].Level
 			if levels[lv] == nil {
 				y := mo.Nodes[mo.Members[m].Start].Y
-				levels[lv] = &group{title: fmt.Sprintf("Beams at level %d (y = %s %s)", lv, fixed(y), u.Length), key: y}
+				levels[lv] = &memberGroup{kind: floorGroup, title: fmt.Sprintf("Beams at level %d (y = %s %s)", lv, fixed(y), u.Length), id: fmt.Sprintf("level-%d", lv)}
 			}
 			levels[lv].members = append(levels[lv].members, m)
 		case mo.IsColumn(m):
 			x := mo.Nodes[mo.Members[m].Start].X
 			if lines[x] == nil {
-				lines[x] = &group{key: x}
+				lines[x] = &memberGroup{kind: lineGroup}
 			}
 			lines[x].members = append(lines[x].members, m)
 		default:
-			other = append(other, m)
+			other.members = append(other.members, m)
 		}
+	}
+	var out []memberGroup
+	lvs := make([]int, 0, len(levels))
+	for lv := range levels {
+		lvs = append(lvs, lv)
+	}
+	sort.Ints(lvs)
+	for _, lv := range lvs {
+		g := levels[lv]
+		sort.SliceStable(g.members, func(i, j int) bool { return spans[g.members[i]].Number < spans[g.members[j]].Number })
+		out = append(out, *g)
 	}
 	// Column lines lettered from the left, as the grid names them.
 	xs := make([]float64, 0, len(lines))
@@ -107,62 +151,90 @@ func (a *analysis) writeSummary(w io.Writer) error {
 	}
 	sort.Float64s(xs)
 	for i, x := range xs {
-		lines[x].title = fmt.Sprintf("Columns on line %s (x = %s %s)", modelfile.LineName(i), fixed(x), u.Length)
-	}
-	lvs := make([]int, 0, len(levels))
-	for lv := range levels {
-		lvs = append(lvs, lv)
-	}
-	sort.Ints(lvs)
-
-	fmt.Fprintf(w, "Governing design values (x from the member's start, in %s; +M sagging)\n", u.Length)
-	force, moment := u.Force, u.Moment()
-	for _, lv := range lvs {
-		g := levels[lv]
-		header := []string{"beam", "+M (" + moment + ")", "at x", "governing", "-M (" + moment + ")", "at x", "governing", "|V| (" + force + ")", "at x", "governing"}
-		if patterned {
-			header = []string{"beam", "+M (" + moment + ")", "at x", "governing", "spans loaded", "-M (" + moment + ")", "at x", "governing", "spans loaded", "|V| (" + force + ")", "at x", "governing"}
-		}
-		var rows [][]string
-		sort.SliceStable(g.members, func(i, j int) bool { return spans[g.members[i]].Number < spans[g.members[j]].Number })
-		for _, m := range g.members {
-			p := memberPeaks(a.env.Members[m])
-			v := p.hi[1]
-			if -p.lo[1].v > v.v {
-				v = p.lo[1]
-				v.v = -v.v
-			}
-			row := []string{mo.Members[m].Name, fixed(p.hi[2].v), fixed(p.hi[2].x), a.comboName(p.hi[2].by)}
-			if patterned {
-				row = append(row, a.shortSpans(p.hi[2].spans, p.hi[2].loaded))
-			}
-			row = append(row, fixed(p.lo[2].v), fixed(p.lo[2].x), a.comboName(p.lo[2].by))
-			if patterned {
-				row = append(row, a.shortSpans(p.lo[2].spans, p.lo[2].loaded))
-			}
-			row = append(row, fixed(v.v), fixed(v.x), a.comboName(v.by))
-			rows = append(rows, row)
-		}
-		if err := a.table(w, g.title, header, rows); err != nil {
-			return err
-		}
-	}
-	for _, x := range xs {
 		g := lines[x]
-		sort.SliceStable(g.members, func(i, j int) bool {
-			return math.Min(mo.Nodes[mo.Members[g.members[i]].Start].Y, mo.Nodes[mo.Members[g.members[i]].End].Y) <
-				math.Min(mo.Nodes[mo.Members[g.members[j]].Start].Y, mo.Nodes[mo.Members[g.members[j]].End].Y)
-		})
-		if err := a.table(w, g.title, columnHeader(force, moment), a.columnRows(g.members)); err != nil {
+		g.title = fmt.Sprintf("Columns on line %s (x = %s %s)", modelfile.LineName(i), fixed(x), u.Length)
+		g.id = "line-" + modelfile.LineName(i)
+		bottom := func(m int) float64 {
+			return math.Min(mo.Nodes[mo.Members[m].Start].Y, mo.Nodes[mo.Members[m].End].Y)
+		}
+		sort.SliceStable(g.members, func(i, j int) bool { return bottom(g.members[i]) < bottom(g.members[j]) })
+		out = append(out, *g)
+	}
+	if len(other.members) > 0 {
+		out = append(out, *other)
+	}
+	return out
+}
+
+// writeSummary prints the governing design values: one table per floor
+// (beams: largest sagging and hogging moment and largest shear, and with
+// column faces the values at the supports, centreline and face), one per
+// column line (columns: largest tension and compression with the moment
+// acting with each, largest moment and shear), one for any other members,
+// the deflections of the beams when there are service combinations, then
+// the reaction envelopes.
+func (a *analysis) writeSummary(w io.Writer) error { return a.summaryTables(textTables{w}) }
+
+func (a *analysis) summaryTables(tb tables) error {
+	over := ""
+	if s := len(a.env.Service); s > 0 && s < len(a.env.Combinations) {
+		over = " over the strength combinations"
+	}
+	if err := tb.note(fmt.Sprintf("Governing design values%s (x from the member's start, in %s; +M sagging)", over, a.job.Units.Length)); err != nil {
+		return err
+	}
+	for _, g := range a.groups() {
+		if err := a.groupTables(tb, g); err != nil {
 			return err
 		}
 	}
-	if len(other) > 0 {
-		if err := a.table(w, "Other members", columnHeader(force, moment), a.columnRows(other)); err != nil {
-			return err
-		}
+	if err := a.deflectionTable(tb); err != nil {
+		return err
 	}
-	return a.writeReactions(w)
+	return a.reactionTable(tb)
+}
+
+// groupTables gives the design values of one group of members.
+func (a *analysis) groupTables(tb tables, g memberGroup) error {
+	mo := a.job.Model
+	u := a.job.Units
+	force, moment := u.Force, u.Moment()
+	if g.kind != floorGroup {
+		return tb.table(g.title, columnHeader(force, moment), a.columnRows(g.members))
+	}
+	patterned := len(a.env.Pieces) > 0
+	header := []string{"beam", "+M (" + moment + ")", "at x", "governing", "-M (" + moment + ")", "at x", "governing", "|V| (" + force + ")", "at x", "governing"}
+	if patterned {
+		header = []string{"beam", "+M (" + moment + ")", "at x", "governing", "spans loaded", "-M (" + moment + ")", "at x", "governing", "spans loaded", "|V| (" + force + ")", "at x", "governing"}
+	}
+	var rows [][]string
+	for _, m := range g.members {
+		p := memberPeaks(a.env.Members[m])
+		v := p.hi[1]
+		if -p.lo[1].v > v.v {
+			v = p.lo[1]
+			v.v = -v.v
+		}
+		row := []string{mo.Members[m].Name, fixed(p.hi[2].v), fixed(p.hi[2].x), a.comboName(p.hi[2].by)}
+		if patterned {
+			row = append(row, a.shortSpans(p.hi[2].spans, p.hi[2].loaded))
+		}
+		row = append(row, fixed(p.lo[2].v), fixed(p.lo[2].x), a.comboName(p.lo[2].by))
+		if patterned {
+			row = append(row, a.shortSpans(p.lo[2].spans, p.lo[2].loaded))
+		}
+		row = append(row, fixed(v.v), fixed(v.x), a.comboName(v.by))
+		rows = append(rows, row)
+	}
+	if err := tb.table(g.title, header, rows); err != nil {
+		return err
+	}
+	if !a.hasFaces(g.members) {
+		return nil
+	}
+	header = []string{"beam", "support", "M min, centreline (" + moment + ")", "governing", "M min, face (" + moment + ")", "face at x", "governing",
+		"|V| centreline (" + force + ")", "|V| face (" + force + ")", "governing"}
+	return tb.table(g.title+": at the supports, centreline and column face", header, a.supportRows(g.members))
 }
 
 func columnHeader(force, moment string) []string {
@@ -195,17 +267,8 @@ func (a *analysis) columnRows(members []int) [][]string {
 	return rows
 }
 
-func (a *analysis) table(w io.Writer, title string, header []string, rows [][]string) error {
-	fmt.Fprintf(w, "\n%s\n", title)
-	t := newTable(w, header...)
-	if err := t.Bulk(rows); err != nil {
-		return err
-	}
-	return t.Render()
-}
-
-// writeReactions prints the envelope of every restrained reaction component.
-func (a *analysis) writeReactions(w io.Writer) error {
+// reactionTable gives the envelope of every restrained reaction component.
+func (a *analysis) reactionTable(tb tables) error {
 	if len(a.env.Reactions) == 0 {
 		return nil
 	}
@@ -226,5 +289,5 @@ func (a *analysis) writeReactions(w io.Writer) error {
 			name = ""
 		}
 	}
-	return a.table(w, "Reactions (global: +X right, +Y up, M counter-clockwise)", []string{"node", "component", "max", "governing", "min", "governing"}, rows)
+	return tb.table("Reactions (global: +X right, +Y up, M counter-clockwise)", []string{"node", "component", "max", "governing", "min", "governing"}, rows)
 }
