@@ -20,7 +20,7 @@ type demoFlags struct {
 
 var cmdDemo = &command{
 	name:  "demo",
-	usage: "[--json FILE] [--csv FILE] [--cross-check] [--write FILE]",
+	usage: "[--json FILE] [--csv FILE] [--report FILE.html | --out DIR] [--cross-check] [--write FILE]",
 	short: "run the analysis on a built-in demonstration model",
 	long: `
 Demo analyses a built-in model of a fictional five-storey, three-bay

@@ -15,7 +15,7 @@ import (
 	"govern/frame"
 )
 
-var update = flag.Bool("update", false, "rewrite the golden files of testdata/bad")
+var update = flag.Bool("update", false, "rewrite the golden files of testdata/bad and testdata/output")
 
 // TestBadModels runs "govern run" on every model in testdata/bad and
 // compares the exit status and standard error with the golden file beside
@@ -81,10 +81,10 @@ func TestExitStatusAndPrefix(t *testing.T) {
 		{"missing model", []string{"run", filepath.Join(dir, "none.toml")}, 1, "govern run: cannot read model: open " + filepath.Join(dir, "none.toml")},
 		{"output is the model", []string{"run", "--csv", model, model}, 1, "govern run: refusing to write " + model + ": it is the model file"},
 		{"output is a directory", []string{"run", "--json", dir, model}, 1, "govern run: cannot write " + dir + ": it is a directory"},
-		{"two outputs, one file", []string{"run", "--json", filepath.Join(dir, "e"), "--csv", filepath.Join(dir, "e"), model}, 1, "govern run: refusing to write " + filepath.Join(dir, "e") + " twice: --json and --csv name the same file"},
+		{"two outputs, one file", []string{"run", "--json", filepath.Join(dir, "e"), "--csv", filepath.Join(dir, "e"), model}, 1, "govern run: refusing to write " + filepath.Join(dir, "e") + " twice: two outputs name the same file"},
 		{"no model", []string{"run"}, 2, "govern run: need one model file, got 0 arguments"},
 		{"two models", []string{"check", model, model}, 2, "govern check: need one model file, got 2 arguments"},
-		{"both outputs to stdout", []string{"run", "--json", "-", "--csv", "-", model}, 2, "govern run: only one of --json and --csv can go to standard output"},
+		{"both outputs to stdout", []string{"run", "--json", "-", "--csv", "-", model}, 2, "govern run: only one of --json, --csv and --report can go to standard output"},
 		{"unknown flag", []string{"check", "--fast", model}, 2, "govern check: flag provided but not defined: -fast"},
 		{"flag without its value", []string{"run", model, "--json"}, 2, "govern run: flag needs an argument: -json"},
 		{"unknown command", []string{"analyse"}, 2, `govern: unknown command "analyse"`},

@@ -48,15 +48,22 @@ func checkSize(job *modelfile.Job, f *runFlags) error {
 	}
 	u := job.Units
 	unit := max(len(u.Force), len(u.Moment()))
+	jsonPath, csvPath, reportPath := f.json, f.csv, f.report
+	if f.out != "" {
+		jsonPath, csvPath, reportPath = jsonName, csvName, reportName
+	}
 	for _, o := range []struct {
 		flag, what string
 		size       int
 	}{
 		// Per station: x and, for N, V and M, two numbers of up to 24
 		// characters, two combination names and the layout around them.
-		{f.json, "JSON", points*(450+6*combo) + members*(120+3*member)},
+		{jsonPath, "JSON", points*(450+6*combo) + members*(120+3*member)},
 		// Per station three rows: member, x, effect, two numbers, two names, unit.
-		{f.csv, "CSV", points * 3 * (80 + member + 2*combo + unit)},
+		{csvPath, "CSV", points * 3 * (80 + member + 2*combo + unit)},
+		// Per station a table row of six values with the six combinations'
+		// names as titles; per member its heading and four drawings.
+		{reportPath, "report", points*(300+6*combo) + members*(400+3*member)},
 	} {
 		if o.flag != "" && o.size > maxOutput {
 			return fmt.Errorf("the %s output would be about %s; the limit is %s: use fewer stations", o.what, mib(o.size), mib(maxOutput))

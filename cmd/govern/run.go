@@ -4,12 +4,14 @@ import (
 	"flag"
 	"fmt"
 	"io"
+	"os"
 	"path/filepath"
 	"strings"
 )
 
 type runFlags struct {
 	json, csv       string
+	report, out     string
 	comparePatterns bool
 	crossCheck      bool
 	quiet           bool
@@ -18,6 +20,8 @@ type runFlags struct {
 func addRunFlags(fs *flag.FlagSet, f *runFlags) {
 	fs.StringVar(&f.json, "json", "", "write the envelopes as JSON to `FILE` (- for standard output)")
 	fs.StringVar(&f.csv, "csv", "", "write the envelopes as CSV to `FILE` (- for standard output), one row per member, station and effect")
+	fs.StringVar(&f.report, "report", "", "write a report as one self-contained HTML page to `FILE` (- for standard output): the frame and its envelopes drawn, tables floor by floor, reactions, combinations, statics check")
+	fs.StringVar(&f.out, "out", "", "write "+reportName+", "+jsonName+" and "+csvName+" together into the folder `DIR` (made if missing)")
 	fs.BoolVar(&f.comparePatterns, "compare-patterns", false, "report how far the code pattern arrangements fall short of exact placement, member by member, instead of the envelopes")
 	fs.BoolVar(&f.quiet, "quiet", false, "print nothing on success: no tables, no progress line (files are still written)")
 	fs.BoolVar(&f.crossCheck, "cross-check", false, "solve every case again by moment distribution and print the largest difference in member end moments")
@@ -25,7 +29,7 @@ func addRunFlags(fs *flag.FlagSet, f *runFlags) {
 
 var cmdRun = &command{
 	name:  "run",
-	usage: "[--json FILE] [--csv FILE] [--quiet] [--compare-patterns] [--cross-check] MODEL.toml",
+	usage: "[--json FILE] [--csv FILE] [--report FILE.html | --out DIR] [--quiet] [--compare-patterns] [--cross-check] MODEL.toml",
 	short: "analyse a model and report its envelopes",
 	long: fmt.Sprintf(`
 Run reads the model file, solves every load case by the direct stiffness
@@ -42,6 +46,20 @@ placement at its worst station, and which spans make the difference.
 
 With --json or --csv the full envelopes, at every station of every member,
 are written to a file as well; flags may come before or after the model path.
+With --report a report is written as one HTML page that needs no network
+and no script: the frame drawn to scale with its moment, shear, axial
+force and deflection envelopes, the design values and the station tables
+floor by floor and column line by column line, the reactions, the
+combinations, the statics check and the caution; it prints on A4 or
+Letter paper in landscape. --out DIR writes report.html, envelopes.json
+and envelopes.csv together into DIR.
+
+A section may give its depth: a beam framing into a column whose section
+has one gets stations at the faces of the column, and the tables show the
+moments there beside those at the centreline. Combinations marked
+service = true (and the EN 1990 serviceability sets) give the deflection
+of every member relative to its chord, with span/deflection for beams;
+the envelopes of forces are over the other, strength, combinations.
 Files are written whole or not at all. A run that takes more than a
 second or two shows its progress on standard error when that is a
 terminal; --quiet prints nothing but errors. When JSON or CSV goes to standard
@@ -72,8 +90,8 @@ the signs.`, staticsLimit),
 			return usagef("need one model file, got %d arguments", len(args))
 		}
 		f := opts.(*runFlags)
-		if f.json == "-" && f.csv == "-" {
-			return usagef("only one of --json and --csv can go to standard output")
+		if err := f.check(); err != nil {
+			return err
 		}
 		job, err := loadModel(args[0])
 		if err != nil {
@@ -81,9 +99,6 @@ the signs.`, staticsLimit),
 		}
 		name := filepath.Base(args[0])
 		if f.comparePatterns {
-			if f.json != "" || f.csv != "" {
-				return usagef("--compare-patterns writes no files; leave out --json and --csv")
-			}
 			return comparePatterns(env.stdout, job)
 		}
 		if err := checkSize(job, f); err != nil {
@@ -104,26 +119,63 @@ the signs.`, staticsLimit),
 	},
 }
 
+// The files --out writes into its folder.
+const (
+	reportName = "report.html"
+	jsonName   = "envelopes.json"
+	csvName    = "envelopes.csv"
+)
+
+// check refuses combinations of flags that cannot be honoured.
+func (f *runFlags) check() error {
+	if f.out != "" && (f.json != "" || f.csv != "" || f.report != "") {
+		return usagef("--out writes %s, %s and %s into its folder; leave out --json, --csv and --report", reportName, jsonName, csvName)
+	}
+	if f.out == "-" {
+		return usagef("--out names a folder, not standard output")
+	}
+	n := 0
+	for _, p := range []string{f.json, f.csv, f.report} {
+		if p == "-" {
+			n++
+		}
+	}
+	if n > 1 {
+		return usagef("only one of --json, --csv and --report can go to standard output")
+	}
+	if f.crossCheck && n > 0 {
+		return usagef("--cross-check prints a table, so --json, --csv and --report cannot go to standard output with it")
+	}
+	if f.comparePatterns && (f.json != "" || f.csv != "" || f.report != "" || f.out != "") {
+		return usagef("--compare-patterns writes no files; leave out --json, --csv, --report and --out")
+	}
+	return nil
+}
+
 // report writes the requested files and, unless a file goes to standard
 // output, the summary tables.
 func (a *analysis) report(stdout io.Writer, model string, f *runFlags) error {
-	if f.json == "-" && f.csv == "-" {
-		return usagef("only one of --json and --csv can go to standard output")
+	if err := f.check(); err != nil {
+		return err
 	}
-	toStdout := f.json == "-" || f.csv == "-"
-	if f.crossCheck && toStdout {
-		return usagef("--cross-check prints a table, so --json and --csv cannot go to standard output with it")
-	}
+	toStdout := f.json == "-" || f.csv == "-" || f.report == "-"
 	bal := a.balances()
 	if err := staticsError(bal); err != nil {
 		return err
 	}
-	var outs []output
-	if f.json != "" {
-		outs = append(outs, output{path: f.json, write: func(w io.Writer) error { return a.writeJSON(w, bal) }})
+	jsonPath, csvPath, reportPath := f.json, f.csv, f.report
+	if f.out != "" {
+		jsonPath, csvPath, reportPath = filepath.Join(f.out, jsonName), filepath.Join(f.out, csvName), filepath.Join(f.out, reportName)
 	}
-	if f.csv != "" {
-		outs = append(outs, output{path: f.csv, write: a.writeCSV})
+	var outs []output
+	if jsonPath != "" {
+		outs = append(outs, output{path: jsonPath, write: func(w io.Writer) error { return a.writeJSON(w, bal) }})
+	}
+	if csvPath != "" {
+		outs = append(outs, output{path: csvPath, write: a.writeCSV})
+	}
+	if reportPath != "" {
+		outs = append(outs, output{path: reportPath, write: func(w io.Writer) error { return a.writeReport(w, bal) }})
 	}
 	if !toStdout && !f.quiet {
 		outs = append(outs, output{path: "-", write: func(w io.Writer) error {
@@ -143,7 +195,34 @@ func (a *analysis) report(stdout io.Writer, model string, f *runFlags) error {
 			return err
 		}})
 	}
-	return commitOutputs(stdout, model, outs)
+	if f.out == "" {
+		return commitOutputs(stdout, model, outs)
+	}
+	made, err := makeFolder(f.out)
+	if err != nil {
+		return err
+	}
+	err = commitOutputs(stdout, model, outs)
+	if err != nil && made {
+		os.Remove(f.out) // only if still empty: nothing half-written stays
+	}
+	return err
+}
+
+// makeFolder makes the folder dir if it does not exist and reports whether
+// it did.
+func makeFolder(dir string) (bool, error) {
+	st, err := os.Stat(dir)
+	switch {
+	case err == nil && st.IsDir():
+		return false, nil
+	case err == nil:
+		return false, fmt.Errorf("cannot write into %s: it is a file, not a folder", dir)
+	}
+	if err := os.MkdirAll(dir, 0o755); err != nil {
+		return false, fmt.Errorf("cannot make the folder %s: %v", dir, err)
+	}
+	return true, nil
 }
 
 // combinationCount says how many combinations there are, and how many are

@@ -37,7 +37,7 @@ func commitOutputs(stdout io.Writer, model string, outs []output) error {
 		}
 		for _, p := range named {
 			if sameFile(o.path, p) {
-				return fmt.Errorf("refusing to write %s twice: --json and --csv name the same file", o.path)
+				return fmt.Errorf("refusing to write %s twice: two outputs name the same file", o.path)
 			}
 		}
 		named = append(named, o.path)
