@@ -291,10 +291,11 @@ func (e *evaluator) member(w *work, sol *frame.Solution, m int) Member {
 	w.stations(l, e.set.Stations, extra)
 	ns := len(w.xs)
 	w.at = grow(w.at, ns*len(w.ev))
-	sol.StationsTo(w.at, m, w.xs)
 	if e.defl != nil {
 		w.defl = grow(w.defl, ns*len(w.ev))
-		sol.DeflectionsTo(w.defl, m, w.xs)
+		sol.StationsAndDeflectionsTo(w.at, w.defl, m, w.xs)
+	} else {
+		sol.StationsTo(w.at, m, w.xs)
 	}
 	st := make([]Station, ns)
 	var defl []Extreme

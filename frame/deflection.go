@@ -35,11 +35,23 @@ func (sol *Solution) DeflectionsTo(dst []float64, m int, xs []float64) {
 // deflectionsOf fills dst[i] with the deflection of member m in case c at
 // xs[i] relative to its chord.
 func (sol *Solution) deflectionsOf(dst []float64, c, m int, xs []float64) {
-	e := &sol.elems[m]
 	var f [6]float64
 	sol.endForcesTo(&f, c, m)
 	idx, _ := sol.loadsOn(c, m)
-	loads := sol.model.Cases[c].MemberLoads
+	deflectionsTo(dst, &f, &sol.elems[m], sol.model.Cases[c].MemberLoads, idx, xs)
+}
+
+// deflectionsTo fills dst[i] with the deflection relative to the chord at
+// xs[i] of an element with local end forces f and the loads idx.
+func deflectionsTo(dst []float64, f *[6]float64, e *element, loads []MemberLoad, idx []int32, xs []float64) {
+	if len(idx) == 0 {
+		// Unloaded: the moment is linear, −f2 + f1 ξ.
+		fl := -f[2]*e.l*e.l/2 + f[1]*e.l*e.l*e.l/6
+		for i, x := range xs {
+			dst[i] = (-f[2]*x*x/2 + f[1]*x*x*x/6 - x/e.l*fl) / e.ei
+		}
+		return
+	}
 	fl := curvatureIntegral(f[1], f[2], e.l, e.l, e.c, e.s, loads, idx)
 	for i, x := range xs {
 		dst[i] = (curvatureIntegral(f[1], f[2], x, e.l, e.c, e.s, loads, idx) - x/e.l*fl) / e.ei

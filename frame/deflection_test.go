@@ -233,3 +233,24 @@ func slopedFrame(rel Release, split int, at float64) *Model {
 	mo.Cases = []Case{c}
 	return mo
 }
+
+func TestStationsAndDeflectionsToAgree(t *testing.T) {
+	mo := slopedFrame(ReleaseStart, -1, 0)
+	mo.Cases = append(mo.Cases, Case{Name: "nodes only", Kind: Live, NodeLoads: []NodeLoad{{Node: 1, Fx: 7}}})
+	sol := solve(t, mo)
+	for m := range mo.Members {
+		l := mo.Length(m)
+		xs := []float64{0, 0.2 * l, 0.5 * l, 0.93 * l, l}
+		n := len(xs) * len(mo.Cases)
+		f1, f2 := make([]Forces, n), make([]Forces, n)
+		d1, d2 := make([]float64, n), make([]float64, n)
+		sol.StationsTo(f1, m, xs)
+		sol.DeflectionsTo(d1, m, xs)
+		sol.StationsAndDeflectionsTo(f2, d2, m, xs)
+		for i := range n {
+			if f1[i] != f2[i] || d1[i] != d2[i] {
+				t.Errorf("member %s, value %d: separately %v %g, together %v %g", mo.Members[m].Name, i, f1[i], d1[i], f2[i], d2[i])
+			}
+		}
+	}
+}

@@ -107,16 +107,37 @@ func (sol *Solution) At(c, m int, x float64) Forces {
 // distances xs from its start, in every case: dst[c*len(xs)+i] holds case
 // c at xs[i]. dst must have length len(xs) × the number of cases.
 func (sol *Solution) StationsTo(dst []Forces, m int, xs []float64) {
-	nc := len(sol.model.Cases)
-	if len(dst) != nc*len(xs) {
+	if len(dst) != len(sol.model.Cases)*len(xs) {
 		panic("frame: StationsTo: dst has the wrong length")
 	}
+	sol.stationsTo(dst, nil, m, xs)
+}
+
+// StationsAndDeflectionsTo is [Solution.StationsTo] that also fills defl
+// with the deflections of the member relative to its chord, as
+// [Solution.DeflectionsTo] does, computing each case's end forces once for
+// both. dst and defl must both have length len(xs) × the number of cases.
+func (sol *Solution) StationsAndDeflectionsTo(dst []Forces, defl []float64, m int, xs []float64) {
+	n := len(sol.model.Cases) * len(xs)
+	if len(dst) != n || len(defl) != n {
+		panic("frame: StationsAndDeflectionsTo: dst or defl has the wrong length")
+	}
+	sol.stationsTo(dst, defl, m, xs)
+}
+
+// stationsTo fills dst with the forces and, when defl is not nil, defl with
+// the deflections of member m at xs in every case.
+func (sol *Solution) stationsTo(dst []Forces, defl []float64, m int, xs []float64) {
 	e := &sol.elems[m]
 	var f [6]float64
-	for c := range nc {
+	for c := range len(sol.model.Cases) {
 		sol.endForcesTo(&f, c, m)
 		idx, _ := sol.loadsOn(c, m)
 		row := dst[c*len(xs) : (c+1)*len(xs)]
+		loads := sol.model.Cases[c].MemberLoads
+		if defl != nil {
+			deflectionsTo(defl[c*len(xs):(c+1)*len(xs)], &f, e, loads, idx, xs)
+		}
 		if len(idx) == 0 {
 			// Unloaded in this case: N and V are constant, M linear.
 			for i, x := range xs {
@@ -124,7 +145,6 @@ func (sol *Solution) StationsTo(dst []Forces, m int, xs []float64) {
 			}
 			continue
 		}
-		loads := sol.model.Cases[c].MemberLoads
 		for i, x := range xs {
 			row[i] = stationForces(f[0], f[1], f[2], x, e.l, e.c, e.s, loads, idx)
 		}
