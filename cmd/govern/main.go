@@ -53,7 +53,7 @@ func usagef(format string, args ...any) error {
 var commands []*command
 
 func init() {
-	commands = []*command{cmdRun, cmdCheck, cmdCombos, cmdDemo, cmdVerify}
+	commands = []*command{cmdRun, cmdCheck, cmdCombos, cmdDemo, cmdNew, cmdVerify}
 }
 
 func main() {

@@ -1,0 +1,144 @@
+package main
+
+import (
+	"bytes"
+	"flag"
+	"fmt"
+	"math"
+	"strconv"
+	"strings"
+
+	"govern/cmd/govern/modelfile"
+)
+
+type newFlags struct {
+	bays, storeys string
+	spacing       float64
+	title         string
+}
+
+// maxGridLines is the most bays or storeys a model may have (the model
+// reader's limit on [grid]); maxNewMembers the most members new writes, so
+// that a slip such as 6x2000 for both cannot ask for millions.
+const (
+	maxGridLines  = 2000
+	maxNewMembers = 100000
+)
+
+var cmdNew = &command{
+	name:  "new",
+	usage: "--bays LIST --storeys LIST [--spacing S] [--title TEXT] [FILE]",
+	short: "write a starting model of a regular frame to edit",
+	long: `
+New writes a starting model of a regular reinforced concrete frame, in kN
+and m, for you to edit: the grid of bays and storeys, a typical column and
+beam section (with their depths, so that beams get stations at the column
+faces), a dead load case, a floor live and a roof live case placed span by
+span, a wind case from either side, the strength combinations of ASCE/SEI
+7-16 section 2.3.1 and a service combination for deflections. Every
+number in it is a placeholder, commented, to be checked and replaced.
+
+Lists are comma-separated lengths in m; "3.6x3" repeats 3.6 three times:
+
+	govern new --bays 7.2,6,7.2 --storeys 4.5,3.6x3 office.toml
+
+writes a frame of three bays and four storeys. Without FILE, or with -,
+the model goes to standard output. An existing file is never overwritten.`,
+	flags: func(fs *flag.FlagSet) any {
+		f := &newFlags{}
+		fs.StringVar(&f.bays, "bays", "", "bay widths, left to right: `LIST` of lengths in m, such as 7.2,6,7.2 or 8x4")
+		fs.StringVar(&f.storeys, "storeys", "", "storey heights, bottom to top: `LIST` of lengths in m, such as 4.5,3.6x3")
+		fs.Float64Var(&f.spacing, "spacing", defaultSpacing, "distance between parallel frames in m, for the area loads")
+		fs.StringVar(&f.title, "title", "", "the model's title (default: the numbers of bays and storeys)")
+		return f
+	},
+	run: func(env *environ, opts any, args []string) error {
+		f := opts.(*newFlags)
+		if len(args) > 1 {
+			return usagef("need at most one output file, got %d arguments", len(args))
+		}
+		if f.bays == "" || f.storeys == "" {
+			return usagef("--bays and --storeys are both needed")
+		}
+		bays, err := parseLengths("--bays", f.bays)
+		if err != nil {
+			return err
+		}
+		storeys, err := parseLengths("--storeys", f.storeys)
+		if err != nil {
+			return err
+		}
+		if n := (2*len(bays) + 1) * len(storeys); n > maxNewMembers {
+			return usagef("%d bays and %d storeys make %d members; at most %d", len(bays), len(storeys), n, maxNewMembers)
+		}
+		if !(f.spacing > 0) || math.IsInf(f.spacing, 0) {
+			return usagef("--spacing %g: must be a length greater than zero", f.spacing)
+		}
+		s := frameSpec{Title: f.title, Bays: bays, Storeys: storeys, Spacing: f.spacing, Faces: true, Service: true}
+		if s.Title == "" {
+			s.Title = fmt.Sprintf("New frame: %d bays, %d storeys", len(bays), len(storeys))
+		}
+		var src bytes.Buffer
+		if err := generateModel(&src, s); err != nil {
+			return err
+		}
+		// What is written must read back: the reader is the judge.
+		if _, err := modelfile.Read("new model", src.Bytes()); err != nil {
+			panic("govern new: the model written does not read back: " + err.Error())
+		}
+		path := "-"
+		if len(args) == 1 {
+			path = args[0]
+		}
+		if path == "-" {
+			_, err := env.stdout.Write(src.Bytes())
+			return err
+		}
+		if fileExists(path) {
+			return fmt.Errorf("%s exists; not overwriting it", path)
+		}
+		if err := writeAtomic(path, src.Bytes()); err != nil {
+			return err
+		}
+		fmt.Fprintf(env.stdout, "wrote %s: %d bays, %d storeys; every number in it is a placeholder to check and replace\n", path, len(bays), len(storeys))
+		return nil
+	},
+}
+
+// parseLengths reads a comma-separated list of lengths, where "3.6x3"
+// stands for 3.6 three times. Problems are usage errors naming the flag and
+// the item at fault.
+func parseLengths(flagName, s string) ([]float64, error) {
+	var out []float64
+	for i, item := range strings.Split(s, ",") {
+		item = strings.TrimSpace(item)
+		bad := func(format string, args ...any) error {
+			return usagef("%s %q: item %d, %q: %s", flagName, s, i+1, item, fmt.Sprintf(format, args...))
+		}
+		if item == "" {
+			return nil, usagef("%s %q: item %d is empty", flagName, s, i+1)
+		}
+		value, count := item, "1"
+		if j := strings.IndexAny(item, "xX"); j >= 0 {
+			value, count = strings.TrimSpace(item[:j]), strings.TrimSpace(item[j+1:])
+		}
+		v, err := strconv.ParseFloat(value, 64)
+		if err != nil || math.IsInf(v, 0) || math.IsNaN(v) {
+			return nil, bad("%q is not a length", value)
+		}
+		if v <= 0 {
+			return nil, bad("a length must be greater than zero")
+		}
+		n, err := strconv.Atoi(count)
+		if err != nil || n < 1 || n > maxGridLines {
+			return nil, bad("the count after x must be a whole number from 1 to %d", maxGridLines)
+		}
+		if len(out)+n > maxGridLines {
+			return nil, usagef("%s %q: more than %d in all", flagName, s, maxGridLines)
+		}
+		for range n {
+			out = append(out, v)
+		}
+	}
+	return out, nil
+}
