@@ -73,7 +73,11 @@ See docs/errors.md.`,
 		}
 		fmt.Fprintf(w, "combinations:   %d\n", len(job.Combinations))
 		for _, cb := range job.Combinations {
-			fmt.Fprintf(w, "  %-28s %s\n", cb.Name, cb.Describe(mo.Cases))
+			service := ""
+			if cb.Service {
+				service = "   (service)"
+			}
+			fmt.Fprintf(w, "  %-28s %s%s\n", cb.Name, cb.Describe(mo.Cases), service)
 		}
 		fmt.Fprintf(w, "stations:       %d per member\n", job.Settings.Stations)
 		fmt.Fprintf(w, "variable loads: %s\n", variableLoads(job.Settings.AsWritten))

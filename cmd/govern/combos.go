@@ -131,6 +131,10 @@ func writeCombosTable(w io.Writer, job *modelfile.Job) error {
 	}
 
 	header = []string{"combination", "rule"}
+	service := hasService(job)
+	if service {
+		header = append(header, "use")
+	}
 	for _, c := range mo.Cases {
 		header = append(header, c.Name)
 	}
@@ -138,6 +142,9 @@ func writeCombosTable(w io.Writer, job *modelfile.Job) error {
 	used := make([]bool, len(mo.Cases))
 	for _, cb := range job.Combinations {
 		row := []string{cb.Name, cb.Rule}
+		if service {
+			row = append(row, use(cb))
+		}
 		for i := range mo.Cases {
 			cell := ""
 			for _, tm := range cb.Terms {
@@ -206,12 +213,35 @@ func psiCells(ci combos.CaseInfo, c frame.Case) []string {
 	return append(out, strings.Join(from, ", "))
 }
 
-// writeCombosCSV writes one row per combination: name, rule, then the
-// factor on each load case, empty where the case is not in it.
+// hasService reports whether any combination of the job is a service one.
+func hasService(job *modelfile.Job) bool {
+	for _, cb := range job.Combinations {
+		if cb.Service {
+			return true
+		}
+	}
+	return false
+}
+
+// use names what a combination is for.
+func use(cb combos.Combination) string {
+	if cb.Service {
+		return "service"
+	}
+	return "strength"
+}
+
+// writeCombosCSV writes one row per combination: name, rule, with service
+// combinations their use, then the factor on each load case, empty where
+// the case is not in it.
 func writeCombosCSV(w io.Writer, job *modelfile.Job) error {
 	cases := job.Model.Cases
 	cw := csv.NewWriter(w)
 	header := []string{"combination", "rule"}
+	service := hasService(job)
+	if service {
+		header = append(header, "use")
+	}
 	for _, c := range cases {
 		header = append(header, c.Name)
 	}
@@ -220,6 +250,9 @@ func writeCombosCSV(w io.Writer, job *modelfile.Job) error {
 	}
 	for _, cb := range job.Combinations {
 		row := []string{cb.Name, cb.Rule}
+		if service {
+			row = append(row, use(cb))
+		}
 		for i := range cases {
 			cell := ""
 			for _, tm := range cb.Terms {

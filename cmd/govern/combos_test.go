@@ -124,3 +124,18 @@ func TestRunNamesGeneratedCombinations(t *testing.T) {
 		}
 	}
 }
+
+func TestCombosMarksServiceCombinations(t *testing.T) {
+	code, out, stderr := exec("combos", "--csv", "-", smallModel)
+	if code != 0 {
+		t.Fatalf("exit %d: %s", code, stderr)
+	}
+	lines := strings.Split(strings.TrimSpace(out), "\n")
+	if lines[0] != "combination,rule,use,D,L,W" || lines[5] != "D+L,model,service,1,1," || lines[1] != "1.4D,model,strength,1.4,," {
+		t.Errorf("CSV:\n%s", out)
+	}
+	code, out, _ = exec("combos", "--csv", "-", writeDemo(t))
+	if code != 0 || strings.Contains(out, ",use,") {
+		t.Errorf("a model without service combinations has a use column:\n%s", out)
+	}
+}
