@@ -32,7 +32,9 @@ thead { display: table-header-group; }
 tr { break-inside: avoid; }
 tr.mh th { text-align: left; background: #dde6ee; }
 tr.face td { background: #f6f3e6; }
-.sp { color: #555; font-size: 7pt; white-space: nowrap; }
+table.st { font-size: 7.5pt; }
+td.c { text-align: right; max-width: 9em; }
+.sp { color: #555; font-size: 6.5pt; }
 figure { margin: .5em 0 1.2em; break-inside: avoid; }
 figcaption { font-size: 8.5pt; color: #333; }
 svg { display: block; width: 100%; height: auto; max-height: 170mm; }
@@ -52,6 +54,12 @@ svg text { font-family: Arial, sans-serif; fill: #111; }
 .key .hi-k { color: #b3261e; font-weight: 600; }
 .key .lo-k { color: #1d4f9c; font-weight: 600; }
 section.part { break-before: page; }
+@media print {
+  body { margin: 0; padding: 0; max-width: none; font-size: 9pt; }
+  table { font-size: 7.5pt; }
+  table.st { font-size: 6.5pt; }
+  nav { display: none; }
+}
 footer { margin-top: 2em; }
 `
 
@@ -329,7 +337,7 @@ func (a *analysis) stationTable(h *htmlOut, g memberGroup) {
 			h.raw("<td></td>")
 			return
 		}
-		h.printf("<td class=\"n\" title=\"%s\">%d", esc(a.env.Combinations[k].Name), k+1)
+		h.printf("<td class=\"c\" title=\"%s\">%d", esc(a.env.Combinations[k].Name), k+1)
 		if len(spans) > 0 {
 			h.printf("<br/><span class=\"sp\">%s</span>", esc(a.shortSpans(spans, loaded)))
 		}
