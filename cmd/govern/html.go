@@ -28,7 +28,7 @@ func (h *htmlOut) raw(s string) *htmlOut {
 }
 
 // text writes s escaped, as text or an attribute value.
-func (h *htmlOut) text(s string) *htmlOut { return h.raw(html.EscapeString(s)) }
+func (h *htmlOut) text(s string) *htmlOut { return h.raw(esc(s)) }
 
 // printf writes formatted markup; string arguments must be escaped first
 // with esc.
@@ -46,7 +46,23 @@ func (h *htmlOut) flush() error {
 	return h.w.Flush()
 }
 
-func esc(s string) string { return html.EscapeString(s) }
+// esc escapes s for text or an attribute value, and drops the control
+// characters that XML does not allow (a name in a model may hold them).
+func esc(s string) string {
+	if strings.IndexFunc(s, badXML) >= 0 {
+		s = strings.Map(func(r rune) rune {
+			if badXML(r) {
+				return -1
+			}
+			return r
+		}, s)
+	}
+	return html.EscapeString(s)
+}
+
+func badXML(r rune) bool {
+	return (r < 0x20 && r != '\t' && r != '\n' && r != '\r') || r == 0xFFFE || r == 0xFFFF
+}
 
 // svgNum formats a drawing coordinate: two decimals are plenty.
 func svgNum(v float64) string { return strconv.FormatFloat(v, 'f', 2, 64) }

@@ -425,3 +425,16 @@ func TestRunReportAndOut(t *testing.T) {
 		}
 	})
 }
+
+func TestEscapeForXML(t *testing.T) {
+	for in, want := range map[string]string{
+		`A<B & "C" 'D'>`:   `A&lt;B &amp; &#34;C&#34; &#39;D&#39;&gt;`,
+		"bell\x07 and\tab": "bell and\tab",
+		"plain":            "plain",
+	} {
+		if got := esc(in); got != want {
+			t.Errorf("esc(%q) = %q, want %q", in, got, want)
+		}
+		parseXML(t, []byte("<p>"+esc(in)+"</p>"))
+	}
+}
