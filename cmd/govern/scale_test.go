@@ -87,3 +87,81 @@ func TestStreamedEnvelopeMatchesDirectSum(t *testing.T) {
 		}
 	}
 }
+
+// TestStreamedDeflectionMatchesDirectSum checks the deflection envelope of
+// the starting model of a 5 × 6 frame (column faces, a service
+// combination, patterned live load) against the same direct sum as above,
+// each value from Solution.Deflection, at every station including the faces.
+func TestStreamedDeflectionMatchesDirectSum(t *testing.T) {
+	spec := regularSpec(5, 6)
+	spec.Faces, spec.Service = true, true
+	var src bytes.Buffer
+	if err := generateModel(&src, spec); err != nil {
+		t.Fatal(err)
+	}
+	job, err := modelfile.Read("starter.toml", src.Bytes())
+	if err != nil {
+		t.Fatal(err)
+	}
+	a, err := analyse(job)
+	if err != nil {
+		t.Fatal(err)
+	}
+	mo := job.Model
+	piecesOf := map[int][]int{}
+	for _, p := range a.lay.Patterned {
+		for _, u := range p.Units {
+			piecesOf[p.Case] = append(piecesOf[p.Case], u.Column)
+		}
+	}
+	if len(a.env.Service) != 1 || len(a.env.Strength) != len(job.Combinations)-1 {
+		t.Fatalf("strength %v, service %v", a.env.Strength, a.env.Service)
+	}
+	// scaleTol: agreement to 1e-9 of the largest deflection of the frame.
+	const scaleTol = 1e-9
+	scale := 0.0
+	faces := 0
+	for _, em := range a.env.Members {
+		for i, d := range em.Deflection {
+			scale = math.Max(scale, math.Max(math.Abs(d.Max), math.Abs(d.Min)))
+			if em.Stations[i].Extra {
+				faces++
+			}
+		}
+	}
+	if faces != 2*5*6 {
+		t.Errorf("%d face stations, want two on each of the 30 beams", faces)
+	}
+	for m, em := range a.env.Members {
+		for i, st := range em.Stations {
+			hi, lo := math.Inf(-1), math.Inf(1)
+			for _, k := range a.env.Service {
+				var h, l float64
+				for _, term := range job.Combinations[k].Terms {
+					v := term.Factor * a.sol.Deflection(term.Case, m, st.X)
+					switch {
+					case !mo.Cases[term.Case].Variable():
+						h, l = h+v, l+v
+					case v > 0:
+						h += v
+					default:
+						l += v
+					}
+					for _, col := range piecesOf[term.Case] {
+						v := term.Factor * a.sol.Deflection(col, m, st.X)
+						if v > 0 {
+							h += v
+						} else {
+							l += v
+						}
+					}
+				}
+				hi, lo = math.Max(hi, h), math.Min(lo, l)
+			}
+			d := em.Deflection[i]
+			if math.Abs(d.Max-hi) > scaleTol*scale || math.Abs(d.Min-lo) > scaleTol*scale || d.MaxBy != a.env.Service[0] {
+				t.Errorf("member %s x %g: streamed [%g, %g] by %d, direct [%g, %g]", mo.Members[m].Name, st.X, d.Min, d.Max, d.MaxBy, lo, hi)
+			}
+		}
+	}
+}
