@@ -187,19 +187,13 @@ func (j *jsonWriter) sep(i int, s string) *jsonWriter {
 	return j
 }
 
-// num writes a number as encoding/json would: shortest representation,
-// exponent only for very large or small magnitudes; null if not finite.
+// num writes a number to outputDigits significant digits (see appendNum);
+// null if not finite.
 func (j *jsonWriter) num(v float64) *jsonWriter {
 	if math.IsNaN(v) || math.IsInf(v, 0) {
 		return j.raw("null")
 	}
-	v = clean(v)
-	abs := math.Abs(v)
-	format := byte('f')
-	if abs != 0 && (abs < 1e-6 || abs >= 1e21) {
-		format = 'e'
-	}
-	j.buf = strconv.AppendFloat(j.buf[:0], v, format, -1, 64)
+	j.buf = appendNum(j.buf[:0], v)
 	return j.bytes(j.buf)
 }
 
@@ -217,4 +211,18 @@ func (j *jsonWriter) forces(keys [3]string, v [3]float64) *jsonWriter {
 		j.sep(i, ", ").raw("\"").raw(k).raw("\": ").num(v[i])
 	}
 	return j.raw("}")
+}
+
+// outputDigits is the number of significant digits numbers are written
+// with in JSON and CSV. Results carry far fewer correct digits than a
+// float64's 17 (the loads and stiffnesses behind them are known to three
+// or four), and ten keep every value distinct from its neighbours while
+// making a tall frame's files a third smaller than full precision.
+const outputDigits = 10
+
+// appendNum appends v with outputDigits significant digits, trailing zeros
+// dropped, in exponent form only for magnitudes below 1e-4 or from
+// 10^outputDigits up (strconv's 'g' format; valid JSON either way).
+func appendNum(dst []byte, v float64) []byte {
+	return strconv.AppendFloat(dst, clean(v), 'g', outputDigits, 64)
 }

@@ -91,7 +91,7 @@ func (a *analysis) writeCSV(w io.Writer) error {
 }
 
 // num formats a value for CSV: shortest exact representation.
-func num(v float64) string { return strconv.FormatFloat(clean(v), 'g', -1, 64) }
+func num(v float64) string { return string(appendNum(nil, v)) }
 
 // fixed formats a value for a table with two decimals.
 func fixed(v float64) string {
