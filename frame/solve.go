@@ -51,13 +51,6 @@ type Info struct {
 	Bandwidth int // half-bandwidth after reverse Cuthill–McKee numbering
 }
 
-// Describe returns the size of the system of equations of mo without
-// solving it. mo must be valid.
-func Describe(mo *Model) Info {
-	_, n, band := dofMap(mo, rcmOrder(adjacency(mo)))
-	return Info{Equations: n, Bandwidth: band}
-}
-
 // Solve validates mo, assembles its stiffness matrix in band storage,
 // factors it once with gonum's banded Cholesky (LAPACK dpbtrf) and solves
 // every load case in one multi-column solve.
