@@ -46,20 +46,7 @@ See docs/errors.md.`,
 		if job.Title != "" {
 			fmt.Fprintf(w, "%s\n", job.Title)
 		}
-		supported, beams, cols := 0, 0, 0
-		for _, n := range mo.Nodes {
-			if n.Support != frame.Free {
-				supported++
-			}
-		}
-		for m := range mo.Members {
-			switch {
-			case mo.IsBeam(m):
-				beams++
-			case mo.IsColumn(m):
-				cols++
-			}
-		}
+		supported, beams, cols := census(mo)
 		fmt.Fprintf(w, "units:          force %s, length %s\n", job.Units.Force, job.Units.Length)
 		fmt.Fprintf(w, "nodes:          %d (%d supported)\n", len(mo.Nodes), supported)
 		fmt.Fprintf(w, "members:        %d (%d beams, %d columns, %d other)\n", len(mo.Members), beams, cols, len(mo.Members)-beams-cols)
@@ -83,4 +70,22 @@ See docs/errors.md.`,
 		fmt.Fprintf(w, "variable loads: %s\n", variableLoads(job.Settings.AsWritten))
 		return nil
 	},
+}
+
+// census counts the supported nodes, the beams and the columns of mo.
+func census(mo *frame.Model) (supported, beams, columns int) {
+	for _, n := range mo.Nodes {
+		if n.Support != frame.Free {
+			supported++
+		}
+	}
+	for m := range mo.Members {
+		switch {
+		case mo.IsBeam(m):
+			beams++
+		case mo.IsColumn(m):
+			columns++
+		}
+	}
+	return supported, beams, columns
 }

@@ -36,7 +36,7 @@ func checkSize(job *modelfile.Job, f *runFlags) error {
 	points := members * stations
 	if points > maxPoints {
 		return fmt.Errorf("the envelopes would hold %s station values (%s members × %s stations); the limit is %s: use fewer stations",
-			thousands(points), thousands(members), thousands(stations), thousands(maxPoints))
+			modelfile.Thousands(points), modelfile.Thousands(members), modelfile.Thousands(stations), modelfile.Thousands(maxPoints))
 	}
 	combo := 0 // longest combination name, as JSON
 	for _, cb := range job.Combinations {
@@ -79,19 +79,6 @@ func jsonLen(s string) int {
 }
 
 func mib(n int) string { return fmt.Sprintf("%d MiB", (n+1<<20-1)>>20) }
-
-// thousands formats n with commas between groups of three digits.
-func thousands(n int) string {
-	s := fmt.Sprint(n)
-	out := make([]byte, 0, len(s)+len(s)/3)
-	for i := range len(s) {
-		if i > 0 && s[i-1] != '-' && (len(s)-i)%3 == 0 {
-			out = append(out, ',')
-		}
-		out = append(out, s[i])
-	}
-	return string(out)
-}
 
 // capped is a writer that refuses to grow past maxOutput: the last line of
 // defence behind checkSize's estimates.

@@ -8,7 +8,6 @@ import (
 	"strings"
 
 	"govern/envelope"
-	"govern/frame"
 )
 
 // reportStyle is the report's whole style sheet: plain, and printable on
@@ -174,21 +173,7 @@ func (a *analysis) reportModel(h *htmlOut, bal []caseBalance) {
 	mo := a.job.Model
 	u := a.job.Units
 	info := a.sol.Info()
-	beams, cols := 0, 0
-	for m := range mo.Members {
-		switch {
-		case mo.IsBeam(m):
-			beams++
-		case mo.IsColumn(m):
-			cols++
-		}
-	}
-	supported := 0
-	for _, n := range mo.Nodes {
-		if n.Support != frame.Free {
-			supported++
-		}
-	}
+	supported, beams, cols := census(mo)
 	h.raw("<section id=\"model\">\n<h2>Model</h2>\n")
 	rows := [][]string{
 		{"units", fmt.Sprintf("force %s, length %s; moments in %s (labels only: no unit is converted)", u.Force, u.Length, u.Moment())},

@@ -52,7 +52,7 @@ func (r *reader) budget(t *table, key string, n int) bool {
 	if !r.loadsRefused {
 		r.loadsRefused = true
 		t.fail(key, problem(ErrTooLarge, "more than %s member loads (each member a selector picks, and each member a self weight loads, counts as one); the limit is %s",
-			thousands(MaxMemberLoads), thousands(MaxMemberLoads)))
+			Thousands(MaxMemberLoads), Thousands(MaxMemberLoads)))
 	}
 	return false
 }
@@ -104,7 +104,7 @@ func (r *reader) checkModel(top *table) {
 	}
 	if free > frame.MaxEquations {
 		r.fail(0, "", problem(ErrTooLarge, "the model has %s free degrees of freedom (%s nodes); the limit is %s",
-			thousands(free), thousands(len(mo.Nodes)), thousands(frame.MaxEquations)))
+			Thousands(free), Thousands(len(mo.Nodes)), Thousands(frame.MaxEquations)))
 	}
 }
 
@@ -214,8 +214,9 @@ func (r *reader) checkMemberEnds() {
 	}
 }
 
-// thousands formats n with commas between groups of three digits.
-func thousands(n int) string {
+// Thousands formats n with commas between groups of three digits, as the
+// size limits are written in messages.
+func Thousands(n int) string {
 	s := fmt.Sprint(n)
 	out := make([]byte, 0, len(s)+len(s)/3)
 	for i := range len(s) {

@@ -13,26 +13,7 @@ import (
 
 // portal is a beam with dead, live, roof live, snow and wind cases whose
 // combinations come from a standard, plus one of the model's own.
-const portal = `[[section]]
-name = "S"
-E = 200e6
-A = 0.01
-I = 1e-4
-[[node]]
-name = "a"
-x = 0
-y = 0
-support = "fixed"
-[[node]]
-name = "b"
-x = 5
-y = 0
-support = "fixed"
-[[member]]
-start = "a"
-end = "b"
-section = "S"
-[[case]]
+const portal = beamAB + `[[case]]
 name = "D"
 kind = "dead"
   [[case.load]]

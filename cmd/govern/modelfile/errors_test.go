@@ -7,48 +7,10 @@ import (
 	"testing"
 )
 
-// sound is a small valid model: a beam a-b fixed at both ends with a point
-// load. Each bad input below is an edit of it; the line numbers in the
-// expected messages count its lines:
-//
-//	 1 [[section]]    6 [[node]]   11 [[node]]   16 [[member]]   20 [[case]]
-//	23 [[case.load]] 28 [[combination]]
-const sound = `[[section]]
-name = "S"
-E = 200e6
-A = 0.01
-I = 1e-4
-[[node]]
-name = "a"
-x = 0
-y = 0
-support = "fixed"
-[[node]]
-name = "b"
-x = 5
-y = 0
-support = "fixed"
-[[member]]
-start = "a"
-end = "b"
-section = "S"
-[[case]]
-name = "G"
-kind = "dead"
-  [[case.load]]
-  type = "point"
-  on = "a-b"
-  P = 2
-  at = 1
-[[combination]]
-name = "1.4G"
-factors = { G = 1.4 }
-`
-
-// edits applies old → new replacements, in pairs, to sound.
+// edits applies old → new replacements, in pairs, to base.
 func edits(t *testing.T, pairs ...string) string {
 	t.Helper()
-	src := sound
+	src := base
 	for i := 0; i+1 < len(pairs); i += 2 {
 		if !strings.Contains(src, pairs[i]) {
 			t.Fatalf("edit %q not applied", pairs[i])
@@ -59,7 +21,7 @@ func edits(t *testing.T, pairs ...string) string {
 }
 
 func TestSoundModelReads(t *testing.T) {
-	if _, err := Read("m.toml", []byte(sound)); err != nil {
+	if _, err := Read("m.toml", []byte(base)); err != nil {
 		t.Fatal(err)
 	}
 }
@@ -251,7 +213,7 @@ func TestReadReportsProblemsInEverySectionAtOnce(t *testing.T) {
 
 func TestReadListsAtMostMaxProblems(t *testing.T) {
 	var b strings.Builder
-	b.WriteString(sound)
+	b.WriteString(base)
 	const extra = MaxProblems + 25
 	for i := range extra {
 		fmt.Fprintf(&b, "[[node]]\nname = \"n%d\"\nx = %d\ny = 1\nsuport = \"free\"\n", i, i)
@@ -272,7 +234,7 @@ func TestReadListsAtMostMaxProblems(t *testing.T) {
 }
 
 func TestMemberLoadBudget(t *testing.T) {
-	r := &reader{file: "m.toml", loc: newLocator(sound)}
+	r := &reader{file: "m.toml", loc: newLocator(base)}
 	tb := r.table(map[string]any{}, "case[0].load[0]", `case "G", load 1`)
 	r.memberLoads = MaxMemberLoads - 2
 	if !r.budget(tb, "on", 2) {

@@ -27,7 +27,7 @@ const fuzzSolveLimit = 300
 // a small one is solved and enveloped, where the only errors allowed are
 // those that describe the model (a mechanism, a size limit, conditioning).
 func FuzzRead(f *testing.F) {
-	f.Add([]byte(sound))
+	f.Add([]byte(base))
 	f.Add([]byte(gridModel))
 	f.Add([]byte(portal)) // with a [combinations] rule set
 	seeds := []string{filepath.Join("..", "demo.toml")}

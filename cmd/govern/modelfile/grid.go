@@ -107,7 +107,7 @@ func (r *reader) readGrid(t *table) {
 	}
 	if free > frame.MaxEquations {
 		t.fail("", problem(ErrTooLarge, "%d column lines × %d levels make %s nodes with %s free degrees of freedom; the limit is %s",
-			lines, levels, thousands(lines*levels), thousands(free), thousands(frame.MaxEquations)))
+			lines, levels, Thousands(lines*levels), Thousands(free), Thousands(frame.MaxEquations)))
 		return
 	}
 	g := &Grid{Spacing: spacing, overridden: map[int]bool{}}

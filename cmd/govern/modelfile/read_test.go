@@ -177,8 +177,9 @@ kind = "dead"
 	}
 }
 
-// base is a small valid model; each error case below edits it.
-const base = `[[section]]
+// beamAB is a beam a-b of span 5, fixed at both ends: the first 19 lines of
+// the small models the tests edit.
+const beamAB = `[[section]]
 name = "S"
 E = 200e6
 A = 0.01
@@ -197,7 +198,15 @@ support = "fixed"
 start = "a"
 end = "b"
 section = "S"
-[[case]]
+`
+
+// base is a small valid model: beamAB with a point load. Each bad input in
+// the tests is an edit of it; the line numbers in the expected messages
+// count its lines:
+//
+//	 1 [[section]]    6 [[node]]   11 [[node]]   16 [[member]]   20 [[case]]
+//	23 [[case.load]] 28 [[combination]]
+const base = beamAB + `[[case]]
 name = "G"
 kind = "dead"
   [[case.load]]
