@@ -13,7 +13,15 @@
 // package's own (docs/combinations.md): [Standard] returns the built-in
 // ones, embedded from the sets folder, and [ParseSet] reads an office's own.
 // The ψ factors of EN 1990 Table A1.1 are in [Categories]; a case's own
-// values, its reversibility and its category travel in [CaseInfo].
+// values, its reversibility, its category and its action keys travel in
+// [CaseInfo].
+//
+// Rules combine actions, not cases: [GroupActions] groups the cases into
+// [Action]s (what leads, accompanies and takes ψ) and, within each, into
+// alternatives, of which one at a time acts: wind from the left or from
+// the right. The cases of one alternative act together and change sign
+// together. No generated combination holds two alternatives of one action;
+// [Actions.Clash] finds such a pair in a combination written by hand.
 //
 // A set marked as a serviceability set (EN 1990's characteristic, frequent
 // and quasi-permanent combinations) gives combinations marked Service: they

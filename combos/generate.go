@@ -3,6 +3,7 @@ package combos
 import (
 	"fmt"
 	"math"
+	"slices"
 	"sort"
 	"strconv"
 	"strings"
@@ -30,7 +31,8 @@ const MaxCombinations = 20000
 
 // CaseError is a load case that a rule cannot be applied to.
 type CaseError struct {
-	Case int // index into the cases
+	Case int    // index into the cases
+	Key  string // the case's key at fault, such as "with"; "" for its kind
 	Msg  string
 }
 
@@ -56,24 +58,32 @@ func (es CaseErrors) Unwrap() []error {
 	return out
 }
 
-// Generate expands the rules of the set against the load cases, by their
-// kinds, into factored combinations, in rule order:
+// Generate expands the rules of the set against the load cases, through
+// their actions and alternatives ([GroupActions]), into factored
+// combinations, in rule order:
 //
-//   - a term takes every case of its kind, all with the term's factor;
+//   - a term takes every action of its kind, each with one of its
+//     alternatives: one combination per alternative, every case of the
+//     alternative at the term's factor;
 //   - a term of several kinds gives one combination for each kind that has
-//     cases (an alternative), or with Together one combination with them all;
+//     cases (an alternative), or with Together one combination with them
+//     all, or with EachAction one combination for each action of those
+//     kinds (each leading in turn);
 //   - kinds with no case drop out of a term, and a term left empty drops
 //     out of its rule, except a lead term: then the rule gives nothing;
-//   - a kind already taken by an earlier term of the combination is not
+//   - an action already taken by an earlier term of the combination is not
 //     taken again;
 //   - a factor of zero (a ψ of zero, say) leaves the case out;
-//   - a reversible case enters once with its factor and once negated;
+//   - a reversible alternative enters once with its factors and once with
+//     them negated, its cases together;
 //   - a combination whose factors equal an earlier one's is kept once.
 //
-// info, when not nil, holds one entry per case. Each combination is named
-// after its rule's ID and its factors, such as "2.3.1-3 1.2D+1.6S+0.5W", and
-// its Rule is the set's name and the rule's ID. Cases that lack a ψ factor a
-// rule needs are returned as [CaseErrors].
+// So two alternatives of one action are never in one combination. info,
+// when not nil, holds one entry per case. Each combination is named after
+// its rule's ID and its factors, such as "2.3.1-3 1.2D+1.6S+0.5W", and its
+// Rule is the set's name and the rule's ID. Cases that lack a ψ factor a
+// rule needs, or whose action keys are wrong, are returned as
+// [CaseErrors].
 func (s *Set) Generate(cases []frame.Case, info []CaseInfo, p Params) ([]Combination, error) {
 	if info == nil {
 		info = make([]CaseInfo, len(cases))
@@ -81,23 +91,37 @@ func (s *Set) Generate(cases []frame.Case, info []CaseInfo, p Params) ([]Combina
 	if len(info) != len(cases) {
 		panic("combos: Generate: info and cases differ in length")
 	}
-	g := &generator{set: s, cases: cases, info: info, p: p, seen: map[string]bool{}, bad: map[int]bool{}}
-	g.byKind = make([][]int, len(frame.Kinds()))
-	for i, c := range cases {
-		if int(c.Kind) >= len(g.byKind) {
+	for _, c := range cases {
+		if int(c.Kind) >= len(frame.Kinds()) {
 			panic("combos: Generate: case " + c.Name + " has no known kind")
 		}
-		g.byKind[c.Kind] = append(g.byKind[c.Kind], i)
 	}
+	acts, err := GroupActions(cases, info)
+	if err != nil {
+		return nil, err
+	}
+	g := &generator{set: s, cases: cases, info: info, acts: acts, p: p, seen: map[string]bool{}, bad: map[int]bool{}}
+	g.byKind = make([][]int, len(frame.Kinds()))
+	for i, a := range acts.List {
+		g.byKind[a.Kind] = append(g.byKind[a.Kind], i)
+	}
+	g.altID = make([][]int, len(acts.List))
+	for i, a := range acts.List {
+		for range a.Alternatives {
+			g.altID[i] = append(g.altID[i], g.nAlts)
+			g.nAlts++
+		}
+	}
+	taken := make([]bool, len(acts.List))
 	for i := range s.Rules {
 		g.rule = &s.Rules[i]
-		g.expand(0, 0, nil)
+		g.expand(0, taken, nil)
 		if g.tooMany {
-			return nil, fmt.Errorf("%s gives more than %d combinations for these cases; mark fewer cases reversible", s.Name, MaxCombinations)
+			return nil, fmt.Errorf("%s gives more than %d combinations for these cases; mark fewer cases reversible or give fewer alternatives", s.Name, MaxCombinations)
 		}
 	}
 	if len(g.errs) > 0 {
-		sort.Slice(g.errs, func(i, j int) bool { return g.errs[i].Case < g.errs[j].Case })
+		sortCaseErrors(g.errs)
 		return nil, g.errs
 	}
 	return g.out, nil
@@ -107,20 +131,37 @@ type generator struct {
 	set    *Set
 	cases  []frame.Case
 	info   []CaseInfo
+	acts   *Actions
 	p      Params
-	byKind [][]int
+	byKind [][]int // actions of each kind
+	altID  [][]int // a number for each alternative of each action
+	nAlts  int
 	rule   *Rule
 
 	out     []Combination
 	seen    map[string]bool // factor sets already given
+	tried   int             // combinations formed, duplicates included
 	errs    CaseErrors
 	bad     map[int]bool // cases already reported
 	tooMany bool
 }
 
-// expand takes term ti of the current rule given the kinds already taken
-// (a bit set) and the terms so far.
-func (g *generator) expand(ti int, taken uint32, acc []Term) {
+// term is a case with its factor and the alternative it came with.
+type term struct {
+	Term
+	alt int // the alternative's number (altID)
+	rev bool
+}
+
+// pick is an action a term takes, with the choice that gives its factor.
+type pick struct {
+	action int
+	ch     *Choice
+}
+
+// expand takes term ti of the current rule given the actions already
+// taken and the terms so far.
+func (g *generator) expand(ti int, taken []bool, acc []term) {
 	if g.tooMany {
 		return
 	}
@@ -129,53 +170,103 @@ func (g *generator) expand(ti int, taken uint32, acc []Term) {
 		return
 	}
 	rt := &g.rule.Terms[ti]
-	type branch struct {
-		terms []Term
-		kinds uint32
-	}
-	var branches []branch
-	add := func(b *branch, ch *Choice) {
-		for _, c := range g.byKind[ch.Kind] {
-			if f := g.factor(ch, c); f != 0 {
-				b.terms = append(b.terms, Term{Case: c, Factor: f})
-				b.kinds |= 1 << ch.Kind
-			}
-		}
-	}
-	if rt.Together {
-		var b branch
-		for i := range rt.Choices {
-			if ch := &rt.Choices[i]; taken&(1<<ch.Kind) == 0 {
-				add(&b, ch)
-			}
-		}
-		if len(b.terms) > 0 {
-			branches = append(branches, b)
-		}
-	} else {
+	// The units of the term: the actions that enter a combination
+	// together, one unit per combination.
+	var units [][]pick
+	switch {
+	case rt.Together:
+		var u []pick
+		in := map[int]bool{}
 		for i := range rt.Choices {
 			ch := &rt.Choices[i]
-			if taken&(1<<ch.Kind) != 0 {
-				continue
-			}
-			var b branch
-			add(&b, ch)
-			if len(b.terms) > 0 {
-				branches = append(branches, b)
+			for _, a := range g.byKind[ch.Kind] {
+				if !taken[a] && !in[a] {
+					in[a] = true
+					u = append(u, pick{a, ch})
+				}
 			}
 		}
+		units = append(units, u)
+	case rt.EachAction:
+		for i := range rt.Choices {
+			ch := &rt.Choices[i]
+			for _, a := range g.byKind[ch.Kind] {
+				if !taken[a] {
+					units = append(units, []pick{{a, ch}})
+				}
+			}
+		}
+	default:
+		for i := range rt.Choices {
+			ch := &rt.Choices[i]
+			var u []pick
+			for _, a := range g.byKind[ch.Kind] {
+				if !taken[a] {
+					u = append(u, pick{a, ch})
+				}
+			}
+			units = append(units, u)
+		}
 	}
-	if len(branches) == 0 {
-		if !rt.Lead {
+	found := false
+	for _, u := range units {
+		g.unit(u, 0, taken, acc, len(acc), func(taken []bool, acc []term) {
+			found = true
 			g.expand(ti+1, taken, acc)
+		})
+	}
+	if !found && !rt.Lead {
+		g.expand(ti+1, taken, acc)
+	}
+}
+
+// unit takes action u[k] and the rest of the unit, each action with each
+// of its alternatives in turn, and calls next with every set of terms that
+// adds at least one case to acc[:base]. Alternatives whose factors are all
+// zero leave the action out; they are tried once.
+func (g *generator) unit(u []pick, k int, taken []bool, acc []term, base int, next func([]bool, []term)) {
+	if g.tooMany {
+		return
+	}
+	if k == len(u) {
+		if len(acc) > base {
+			g.tried++
+			if g.tried > triesPerCombination*MaxCombinations {
+				g.tooMany = true
+				return
+			}
+			next(taken, acc)
 		}
 		return
 	}
-	for _, b := range branches {
-		next := append(append([]Term(nil), acc...), b.terms...)
-		g.expand(ti+1, taken|b.kinds, next)
+	pk := u[k]
+	act := &g.acts.List[pk.action]
+	absent := false
+	for li := range act.Alternatives {
+		alt := &act.Alternatives[li]
+		var ts []term
+		for _, c := range alt.Cases {
+			if f := g.factor(pk.ch, c); f != 0 {
+				ts = append(ts, term{Term: Term{Case: c, Factor: f}, alt: g.altID[pk.action][li], rev: alt.Reversible})
+			}
+		}
+		if len(ts) == 0 {
+			absent = true
+			continue
+		}
+		tk := append([]bool(nil), taken...)
+		tk[pk.action] = true
+		g.unit(u, k+1, tk, append(append([]term(nil), acc...), ts...), base, next)
+	}
+	if absent {
+		g.unit(u, k+1, taken, acc, base, next)
 	}
 }
+
+// triesPerCombination bounds the work of one set: combinations formed,
+// duplicates, sign patterns and partial ones included, per combination
+// allowed.
+const triesPerCombination = 8
 
 // factor returns the factor of case c under choice ch, rounded to 12
 // significant digits so that 1.5 × 0.7 is 1.05; 0 when the case lacks a ψ
@@ -225,27 +316,38 @@ func (g *generator) needPsi(p Psi, c int) {
 }
 
 // emit adds the combination of terms, once for each sign of its
-// reversible cases, skipping factor sets already given.
-func (g *generator) emit(terms []Term) {
+// reversible alternatives (the cases of one alternative change sign
+// together), skipping factor sets already given.
+func (g *generator) emit(terms []term) {
 	if len(terms) == 0 {
 		return
 	}
-	var rev []int
-	for i, t := range terms {
-		if g.info[t.Case].Reversible {
-			rev = append(rev, i)
+	var revAlts []int // reversible alternatives, in order of first term
+	for _, t := range terms {
+		if t.rev && !slices.Contains(revAlts, t.alt) {
+			revAlts = append(revAlts, t.alt)
 		}
 	}
-	if len(rev) > 30 {
+	if len(revAlts) > 30 {
 		g.tooMany = true
 		return
 	}
-	for signs := 0; signs < 1<<len(rev); signs++ {
-		ts := append([]Term(nil), terms...)
-		for j, i := range rev {
-			// the highest bit flips the first reversible case, so that
-			// all + comes first and each case's + before its -
-			if signs&(1<<(len(rev)-1-j)) != 0 {
+	for signs := 0; signs < 1<<len(revAlts); signs++ {
+		g.tried++
+		if g.tried > triesPerCombination*MaxCombinations {
+			g.tooMany = true
+			return
+		}
+		ts := make([]Term, len(terms))
+		for i, t := range terms {
+			ts[i] = t.Term
+			if !t.rev {
+				continue
+			}
+			// the highest bit flips the first reversible alternative, so
+			// that all + comes first and each alternative's + before its -
+			j := slices.Index(revAlts, t.alt)
+			if signs&(1<<(len(revAlts)-1-j)) != 0 {
 				ts[i].Factor = -ts[i].Factor
 			}
 		}

@@ -2,14 +2,15 @@ package combos
 
 import (
 	"errors"
+	"fmt"
 	"strings"
 	"testing"
 
 	"govern/frame"
 )
 
-// cases builds load cases from specs such as "D dead", "W wind reversible"
-// or "Q live category=B".
+// cases builds load cases from specs such as "D dead", "W wind reversible",
+// "Q live category=B" or "Wr wind with=Ww" (also action= and alternative=).
 func cases(t *testing.T, specs ...string) ([]frame.Case, []CaseInfo) {
 	t.Helper()
 	var cs []frame.Case
@@ -27,6 +28,12 @@ func cases(t *testing.T, specs ...string) ([]frame.Case, []CaseInfo) {
 				ci.Reversible = true
 			case strings.HasPrefix(opt, "category="):
 				ci.Category = strings.TrimPrefix(opt, "category=")
+			case strings.HasPrefix(opt, "action="):
+				ci.Action = strings.TrimPrefix(opt, "action=")
+			case strings.HasPrefix(opt, "alternative="):
+				ci.Alternative = strings.TrimPrefix(opt, "alternative=")
+			case strings.HasPrefix(opt, "with="):
+				ci.With = strings.TrimPrefix(opt, "with=")
 			default:
 				t.Fatalf("bad option in %q", s)
 			}
@@ -156,15 +163,44 @@ func TestGenerateNeedsPsi(t *testing.T) {
 }
 
 func TestGenerateBounded(t *testing.T) {
-	s := parse(t, "[[rule]]\nid = \"R\"\nterms = [{ kind = \"wind\", factor = 1.0, together = true }]\n")
-	var specs []string
-	for i := range 16 {
-		specs = append(specs, "W"+strings.Repeat("x", i)+" wind reversible")
-	}
-	cs, info := cases(t, specs...)
-	if _, err := s.Generate(cs, info, Params{}); err == nil || !strings.Contains(err.Error(), "more than 20000 combinations") {
-		t.Errorf("error %v", err)
-	}
+	s := parse(t, "[[rule]]\nid = \"R\"\nterms = [{ kind = [\"wind\", \"other\"], factor = 1.0, together = true }]\n")
+	t.Run("sign patterns", func(t *testing.T) {
+		// Each other case is an action of its own: 2^16 sign patterns.
+		var specs []string
+		for i := range 16 {
+			specs = append(specs, "T"+strings.Repeat("x", i)+" other reversible")
+		}
+		cs, info := cases(t, specs...)
+		if _, err := s.Generate(cs, info, Params{}); err == nil || !strings.Contains(err.Error(), "more than 20000 combinations") {
+			t.Errorf("error %v", err)
+		}
+	})
+	t.Run("alternatives", func(t *testing.T) {
+		// 16 wind actions of two alternatives each: 2^16 combinations.
+		var specs []string
+		for i := range 16 {
+			a := fmt.Sprintf("action=W%d", i)
+			specs = append(specs, fmt.Sprintf("W%dL wind %s", i, a), fmt.Sprintf("W%dR wind %s", i, a))
+		}
+		cs, info := cases(t, specs...)
+		if _, err := s.Generate(cs, info, Params{}); err == nil || !strings.Contains(err.Error(), "more than 20000 combinations") {
+			t.Errorf("error %v", err)
+		}
+	})
+	t.Run("alternatives with zero factors are tried once", func(t *testing.T) {
+		// 16 wind actions of two alternatives, all at psi2 = 0: one
+		// combination, without enumerating 2^16 of them.
+		s := parse(t, "[[rule]]\nid = \"R\"\nterms = [{ kind = \"dead\", factor = 1.0 }, { kind = \"wind\", factor = 1.0, psi = \"psi2\", together = true }]\n")
+		specs := []string{"G dead"}
+		for i := range 16 {
+			a := fmt.Sprintf("action=W%d", i)
+			specs = append(specs, fmt.Sprintf("W%dL wind %s", i, a), fmt.Sprintf("W%dR wind %s", i, a))
+		}
+		cs, info := cases(t, specs...)
+		if got := strings.Join(factorSets(t, s, cs, info, Params{}), " "); got != "1.0G" {
+			t.Errorf("got %s", got)
+		}
+	})
 }
 
 func TestFormatFactor(t *testing.T) {

@@ -210,7 +210,7 @@ func (t *ruleTable) tables(key string) []map[string]any {
 var (
 	topKeys  = []string{"name", "title", "service", "rule"}
 	ruleKeys = []string{"id", "text", "terms"}
-	termKeys = []string{"kind", "factor", "lead", "together", "psi", "sds_factor", "reduced_live_factor", "or"}
+	termKeys = []string{"kind", "factor", "lead", "together", "each_action", "psi", "sds_factor", "reduced_live_factor", "or"}
 	altKeys  = []string{"kind", "factor", "psi", "sds_factor", "reduced_live_factor"}
 )
 
@@ -288,8 +288,14 @@ func kindList() string {
 }
 
 func (p *parser) term(t *ruleTable) RuleTerm {
-	rt := RuleTerm{Lead: t.boolean("lead"), Together: t.boolean("together")}
+	rt := RuleTerm{Lead: t.boolean("lead"), Together: t.boolean("together"), EachAction: t.boolean("each_action")}
+	if rt.EachAction && rt.Together {
+		t.fail("each_action", "each_action cannot be used with together: together puts every action in one combination, each_action gives one combination for each")
+	}
 	if t.has("or") {
+		if rt.EachAction {
+			t.fail("each_action", "each_action cannot be used with or: give the kinds as one term's kind instead")
+		}
 		for _, k := range []string{"kind", "factor", "sds_factor", "reduced_live_factor", "psi"} {
 			if t.has(k) {
 				t.get(k)

@@ -75,7 +75,7 @@ func TestParseSetErrors(t *testing.T) {
 		{"factor missing", `{ kind = "dead", factor = 1.3 }`, `{ kind = "dead" }`,
 			`office.toml:9: rule "R1", term 1: factor is required`, nil},
 		{"unknown key in a term", `factor = 1.5, lead = true }`, `factor = 1.5, leading = true }`,
-			`office.toml:10: rule "R1", term 2: unknown key "leading"; the keys here are kind, factor, lead, together, psi, sds_factor, reduced_live_factor, or` + "\n", nil},
+			`office.toml:10: rule "R1", term 2: unknown key "leading"; the keys here are kind, factor, lead, together, each_action, psi, sds_factor, reduced_live_factor, or` + "\n", nil},
 		{"unknown key in a rule", `text = "1.3G + 1.5(Q or S)"`, `txt = "1.3G"`,
 			`office.toml:7: rule "R1": unknown key "txt"; the keys here are id, text, terms` + "\n", nil},
 		{"rule without id", `id = "R1"`, ``,

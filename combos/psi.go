@@ -95,6 +95,11 @@ type CaseInfo struct {
 	// the category's. PsiGiven says which were given.
 	Psi      [3]float64
 	PsiGiven [3]bool
+	// Action names the action the case belongs to, and Alternative the
+	// alternative within it; With names a case whose action and
+	// alternative this case shares. "" when not given: the case is then
+	// grouped by the rule of its kind (see [GroupActions]).
+	Action, Alternative, With string
 }
 
 // PsiFactor returns ψ p (Psi0, Psi1 or Psi2) of a case of kind k: the

@@ -45,6 +45,11 @@ type RuleTerm struct {
 	// Together puts every choice present into the same combination, as
 	// the accompanying variable actions of EN 1990 are.
 	Together bool
+	// EachAction gives one combination for each action of the term's
+	// kinds instead of one for each kind: each variable action leading in
+	// turn, as EN 1990 section 6.4.3.2 has it. Without it, a term takes
+	// every action of a kind (ASCE/SEI 7's L is all the live load).
+	EachAction bool
 }
 
 // Choice is one kind of load in a term and how its factor is found.

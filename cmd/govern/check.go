@@ -15,7 +15,7 @@ var cmdCheck = &command{
 	long: `
 Check reads and validates the model file and prints what it describes:
 nodes, members, degrees of freedom and bandwidth of the stiffness matrix,
-load cases and combinations. It also factorizes the stiffness matrix,
+load cases, their actions and alternatives, and combinations. It also factorizes the stiffness matrix,
 without solving any load case, to find a structure that cannot carry load
 (a mechanism) and to estimate the matrix's condition number. Every problem
 found is reported, with the line it is on, and the exit status is 1.
@@ -58,6 +58,13 @@ See docs/errors.md.`,
 		for _, c := range mo.Cases {
 			fmt.Fprintf(w, "  %-12s %-9s %d member loads, %d node loads\n", c.Name, c.Kind, len(c.MemberLoads), len(c.NodeLoads))
 		}
+		fmt.Fprintf(w, "actions:        %d (two alternatives of one action never act together)\n", len(job.Actions.List))
+		for _, row := range actionRows(job) {
+			fmt.Fprintf(w, "  %-12s %-9s %s\n", row[0], row[1], row[2])
+		}
+		if n := job.Actions.Note; n != "" {
+			fmt.Fprintf(w, "note:           %s\n", n)
+		}
 		fmt.Fprintf(w, "combinations:   %d\n", len(job.Combinations))
 		for _, cb := range job.Combinations {
 			service := ""
@@ -65,6 +72,9 @@ See docs/errors.md.`,
 				service = "   (service)"
 			}
 			fmt.Fprintf(w, "  %-28s %s%s\n", cb.Name, cb.Describe(mo.Cases), service)
+		}
+		if u := unusedText(job); u != "" {
+			fmt.Fprintf(w, "unused cases:   %s\n", u)
 		}
 		fmt.Fprintf(w, "stations:       %d per member\n", job.Settings.Stations)
 		fmt.Fprintf(w, "variable loads: %s\n", variableLoads(job.Settings.AsWritten))

@@ -24,9 +24,11 @@ var cmdCombos = &command{
 Combos reads the model file and lists every load combination it will be
 analysed for: those the standard or rule file of its [combinations] table
 gives, expanded against the model's load cases, then the model's own
-[[combination]] tables. For each it shows the name, the rule it came from
-and the factor on each load case; a blank means the case is not in the
-combination. Names start with the rule, such as "2.3.1-3 1.2D+1.6S+0.5W"
+[[combination]] tables. It lists the load cases and their actions, each
+with its alternatives (two alternatives of one action, such as wind from
+the left and from the right, never act together). For each combination it
+shows the name, the rule it came from and the factor on each load case; a
+blank means the case is not in the combination. Names start with the rule, such as "2.3.1-3 1.2D+1.6S+0.5W"
 for ASCE/SEI 7-16 section 2.3.1 combination 3; "model" marks the model's
 own and "case" a case alone, used when the model gives no combinations.
 
@@ -102,6 +104,9 @@ func writeCombosTable(w io.Writer, job *modelfile.Job) error {
 	default:
 		fmt.Fprintf(w, ", all from the model.\n")
 	}
+	if job.Actions != nil && job.Actions.Note != "" {
+		fmt.Fprintf(w, "Note: %s\n", job.Actions.Note)
+	}
 	fmt.Fprintf(w, "\n")
 
 	psi := job.Set != nil && job.Set.UsesPsi()
@@ -115,7 +120,13 @@ func writeCombosTable(w io.Writer, job *modelfile.Job) error {
 		if i < len(job.CaseInfo) {
 			ci = job.CaseInfo[i]
 		}
-		row := []string{c.Name, c.Kind.String(), map[bool]string{true: "yes", false: "no"}[ci.Reversible]}
+		rev := ci.Reversible
+		if a := job.Actions; a != nil {
+			// a case changes sign with its alternative
+			p := a.Of[i]
+			rev = a.List[p.Action].Alternatives[p.Alternative].Reversible
+		}
+		row := []string{c.Name, c.Kind.String(), map[bool]string{true: "yes", false: "no"}[rev]}
 		if psi {
 			row = append(row, psiCells(ci, c)...)
 		}
@@ -130,6 +141,17 @@ func writeCombosTable(w io.Writer, job *modelfile.Job) error {
 		return err
 	}
 
+	if job.Actions != nil {
+		fmt.Fprintf(w, "\nActions (two alternatives of one action never act together)\n")
+		t = newTable(w, "action", "kind", "alternatives: cases")
+		if err := t.Bulk(actionRows(job)); err != nil {
+			return err
+		}
+		if err := t.Render(); err != nil {
+			return err
+		}
+	}
+
 	header = []string{"combination", "rule"}
 	service := hasService(job)
 	if service {
@@ -139,7 +161,6 @@ func writeCombosTable(w io.Writer, job *modelfile.Job) error {
 		header = append(header, c.Name)
 	}
 	rows = rows[:0]
-	used := make([]bool, len(mo.Cases))
 	for _, cb := range job.Combinations {
 		row := []string{cb.Name, cb.Rule}
 		if service {
@@ -150,7 +171,6 @@ func writeCombosTable(w io.Writer, job *modelfile.Job) error {
 			for _, tm := range cb.Terms {
 				if tm.Case == i {
 					cell = combos.FormatFactor(cb.Factor(i))
-					used[i] = true
 					break
 				}
 			}
@@ -166,17 +186,54 @@ func writeCombosTable(w io.Writer, job *modelfile.Job) error {
 	if err := t.Render(); err != nil {
 		return err
 	}
-	var unused []string
-	for i, u := range used {
-		if !u {
-			unused = append(unused, fmt.Sprintf("%s (%s)", mo.Cases[i].Name, mo.Cases[i].Kind))
-		}
-	}
-	if len(unused) > 0 {
-		fmt.Fprintf(w, "\nNot in any combination: %s.\n", strings.Join(unused, ", "))
+	if u := unusedText(job); u != "" {
+		fmt.Fprintf(w, "\n%s\n", u)
 	}
 	fmt.Fprintf(w, "\n%s\n", caution)
 	return nil
+}
+
+// unusedText names the cases no combination uses and what a run does
+// with them; "" when every case is used.
+func unusedText(job *modelfile.Job) string {
+	var names []string
+	for _, c := range job.Unused() {
+		names = append(names, fmt.Sprintf("%s (%s)", job.Model.Cases[c].Name, job.Model.Cases[c].Kind))
+	}
+	if len(names) == 0 {
+		return ""
+	}
+	if job.AllowUnused {
+		return fmt.Sprintf("Not in any combination: %s; left out of every envelope ([combinations] unused = \"allow\").", strings.Join(names, ", "))
+	}
+	return fmt.Sprintf("Not in any combination: %s; govern run refuses the model until it is in one or [combinations] has unused = \"allow\".", strings.Join(names, ", "))
+}
+
+// actionRows gives each action of the job: its name, kind and
+// alternatives, "WL or WR", an alternative's cases joined by "+" and
+// named when the action has several alternatives and it is not a case's
+// own; reversible ones are marked ±.
+func actionRows(job *modelfile.Job) [][]string {
+	var rows [][]string
+	for _, act := range job.Actions.List {
+		var alts []string
+		for _, alt := range act.Alternatives {
+			var names []string
+			for _, c := range alt.Cases {
+				names = append(names, job.Model.Cases[c].Name)
+			}
+			s := strings.Join(names, " + ")
+			if len(act.Alternatives) > 1 && (len(alt.Cases) > 1 || names[0] != alt.Name) {
+				s = alt.Name + ": " + s
+			}
+			if alt.Reversible {
+				s += " ±"
+			}
+			alts = append(alts, s)
+		}
+		rows = append(rows, []string{act.Name, act.Kind.String(), strings.Join(alts, " or ")})
+	}
+	return rows
 }
 
 // psiCells gives ψ0, ψ1, ψ2 of a variable case and where they come from.

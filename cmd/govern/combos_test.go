@@ -3,6 +3,7 @@ package main
 import (
 	"encoding/csv"
 	"encoding/json"
+	"fmt"
 	"os"
 	"path/filepath"
 	"strings"
@@ -75,8 +76,34 @@ func TestCombosRuleFileBesideTheModel(t *testing.T) {
 	if !strings.Contains(out, "1 load combinations: 1 from office-code, 0 from the model.") || !strings.Contains(out, "K1 1.25D+1.5L") {
 		t.Errorf("output:\n%s", out)
 	}
-	if !strings.Contains(out, "Not in any combination: Lr (roof-live), W (wind).") {
+	if !strings.Contains(out, "Not in any combination: Lr (roof-live), W (wind); govern run refuses the model") {
 		t.Errorf("unused cases not named:\n%s", out)
+	}
+	// Issue 12 item 10c: run refuses the cases no combination uses, each
+	// named at its line, and writes nothing; check still lists them.
+	code, out, stderr = exec("run", model)
+	lr, w := lineOf(t, src, "name = \"Lr\"")-1, lineOf(t, src, "name = \"W\"")-1
+	for _, want := range []string{
+		fmt.Sprintf("govern run: m.toml:%d: case \"Lr\": no load combination uses this case, so it would be left out of every envelope; put it in a combination, or write unused = \"allow\" in [combinations] to analyse the model without it\n", lr),
+		fmt.Sprintf("govern run: m.toml:%d: case \"W\": no load combination uses this case", w),
+	} {
+		if code != 1 || out != "" || !strings.Contains(stderr, want) {
+			t.Errorf("run: exit %d, %d bytes out, stderr\n%s\nwant\n%s", code, len(out), stderr, want)
+		}
+	}
+	code, out, _ = exec("check", model)
+	if code != 0 || !strings.Contains(out, "unused cases:   Not in any combination: Lr (roof-live), W (wind)") {
+		t.Errorf("check: exit %d\n%s", code, out)
+	}
+	allow := strings.Replace(src, `file = "office-code.toml"`, "file = \"office-code.toml\"\nunused = \"allow\"", 1)
+	os.WriteFile(model, []byte(allow), 0o644)
+	code, out, stderr = exec("run", model)
+	if code != 0 || !strings.Contains(out, "K1 1.25D+1.5L") {
+		t.Errorf("run with unused = \"allow\": exit %d, %s", code, stderr)
+	}
+	code, out, _ = exec("combos", model)
+	if code != 0 || !strings.Contains(out, "Not in any combination: Lr (roof-live), W (wind); left out of every envelope ([combinations] unused = \"allow\").") {
+		t.Errorf("combos with unused = \"allow\": exit %d\n%s", code, out)
 	}
 }
 

@@ -71,6 +71,13 @@ out-of-balance force and moment at any joint. The check is printed and
 carried in the JSON; a case out of balance by more than %g of its load
 fails the run and nothing is written.
 
+A load case that no combination uses would be left out of every envelope:
+run refuses the model, naming the case, unless [combinations] has
+unused = "allow". Two alternatives of one action, such as wind from the
+left and wind from the right, are never combined (docs/combinations.md);
+where several wind, seismic or snow cases do not say how they act, run
+notes on standard error how it read them.
+
 With --cross-check every case is solved a second time by moment
 distribution (Hardy Cross), independently of the stiffness solver, and the
 largest difference in member end moments is printed. The method applies to
@@ -98,6 +105,12 @@ the signs.`, staticsLimit),
 			return err
 		}
 		name := filepath.Base(args[0])
+		if err := job.CheckUnused(); err != nil {
+			return err
+		}
+		if n := job.Actions.Note; n != "" && !f.quiet {
+			fmt.Fprintf(env.stderr, "%s: note: %s: %s\n", env.name, name, n)
+		}
 		if f.comparePatterns {
 			return comparePatterns(env.stdout, job)
 		}

@@ -68,7 +68,103 @@ func (r *reader) readCaseInfo(t *table) combos.CaseInfo {
 			}
 		}
 	}
+	r.readActionKeys(t, &ci, kindOK && kind.Permanent())
+	r.caseTables = append(r.caseTables, t)
 	return ci
+}
+
+// readActionKeys reads the keys that group a case into an action and an
+// alternative: action, alternative and with. What needs the other cases is
+// checked by groupActions.
+func (r *reader) readActionKeys(t *table, ci *combos.CaseInfo, permanent bool) {
+	for _, k := range []struct {
+		key string
+		dst *string
+	}{{"action", &ci.Action}, {"alternative", &ci.Alternative}, {"with", &ci.With}} {
+		if !t.has(k.key) {
+			continue
+		}
+		v := t.str(k.key, "")
+		if _, isStr := t.m[k.key].(string); !isStr {
+			continue
+		}
+		if strings.TrimSpace(v) == "" {
+			t.fail(k.key, problem(ErrValue, "%s is empty: give a name", k.key))
+			continue
+		}
+		if permanent {
+			t.fail(k.key, problem(ErrValue, "%s: dead load is permanent and always acts in full, as one action with every dead case; only variable cases are grouped into actions and alternatives", k.key))
+			return
+		}
+		*k.dst = v
+	}
+	name, _ := t.m["name"].(string)
+	switch {
+	case ci.With != "" && (ci.Action != "" || ci.Alternative != ""):
+		t.fail("with", problem(ErrValue, "with = %q: give with, or action and alternative, not both (with takes the action and alternative of case %q)", ci.With, ci.With))
+	case ci.With != "" && ci.With == name:
+		t.fail("with", problem(ErrValue, "with = %q names the case itself; name the case whose action and alternative this one shares", ci.With))
+	default:
+		return
+	}
+	ci.With = ""
+}
+
+// groupActions groups the cases into actions and alternatives and checks
+// that no combination of the model holds two alternatives of one action.
+// The cross-case checks run only on a file without other problems, so
+// that every case is there with its kind.
+func (r *reader) groupActions() {
+	job := r.job
+	cases := map[string]int{}
+	for i, c := range job.Model.Cases {
+		cases[c.Name] = i
+	}
+	for i, ci := range r.caseInfo {
+		if _, ok := cases[ci.With]; ci.With != "" && !ok {
+			msg := fmt.Sprintf("with = %q: no such case", ci.With)
+			if s := closest(ci.With, keys(cases)); s != "" {
+				msg += fmt.Sprintf(" (did you mean %q?)", s)
+			}
+			r.caseTables[i].fail("with", problem(ErrReference, "%s", msg))
+		}
+	}
+	if len(r.errs) > 0 {
+		return
+	}
+	acts, err := combos.GroupActions(job.Model.Cases, r.caseInfo)
+	var ce combos.CaseErrors
+	if errors.As(err, &ce) {
+		for _, e := range ce {
+			r.caseTables[e.Case].fail(e.Key, problem(ErrValue, "%s", e.Msg))
+		}
+		return
+	}
+	if err != nil {
+		panic("modelfile: groupActions: " + err.Error())
+	}
+	job.Actions = acts
+	for i := range job.Combinations {
+		cb := &job.Combinations[i]
+		c1, c2, clash := acts.Clash(cb)
+		if !clash {
+			continue
+		}
+		mo := job.Model
+		p := acts.Of[c1]
+		act := &acts.List[p.Action]
+		a1, a2 := act.Alternatives[p.Alternative].Name, act.Alternatives[acts.Of[c2].Alternative].Name
+		n1, n2 := mo.Cases[c1].Name, mo.Cases[c2].Name
+		var msg string
+		if act.Default {
+			msg = fmt.Sprintf("factors: %s and %s are alternatives of action %q and never act together (read by the default rule for %s cases: each %s case is an alternative of its own); if they are parts of one load, write with = %q in case %q",
+				n1, n2, act.Name, act.Kind, act.Kind, n1, n2)
+		} else {
+			msg = fmt.Sprintf("factors: %s and %s are alternatives %q and %q of action %q and never act together; if they act together, write with = %q in case %q (in place of its action, alternative or with)",
+				n1, n2, a1, a2, act.Name, n1, n2)
+		}
+		r.fail(r.loc.line(elem("combination", i), "factors"), fmt.Sprintf("combination %q", cb.Name), problem(ErrValue, "%s", msg))
+	}
 }
 
 // readCombinationSet reads the [combinations] table: the rule set and the
@@ -83,7 +179,7 @@ func (r *reader) readCombinationSet(t *table) {
 	switch hasStd, hasFile := t.has("standard"), t.has("file"); {
 	case hasStd && hasFile:
 		t.fail("file", problem(ErrValue, "give standard or file, not both"))
-	case !hasStd && !hasFile:
+	case !hasStd && !hasFile && (len(t.m) != 1 || !t.has("unused")):
 		t.fail("", problem(ErrMissing, "[combinations] needs standard (one of %s) or file (a rule file of your own)", quoteList(combos.Standards())))
 	case hasStd:
 		s, err := combos.Standard(std)
@@ -107,6 +203,9 @@ func (r *reader) readCombinationSet(t *table) {
 		job.Params.SDS = v
 	}
 	job.Params.ReducedLive = t.boolean("reduced_live_factor", false)
+	if u := t.str("unused", "error"); t.oneOf("unused", u, "error", "allow") {
+		job.AllowUnused = u == "allow"
+	}
 	t.done()
 	if s := job.Set; s != nil {
 		if t.has("sds") && !s.UsesSDS() {
@@ -168,6 +267,11 @@ func (r *reader) readRuleFile(t *table, file string) *combos.Set {
 func (r *reader) generate() {
 	job := r.job
 	job.CaseInfo = r.caseInfo
+	job.file = r.file
+	for _, t := range r.caseTables {
+		job.caseLines = append(job.caseLines, r.loc.line(t.block, ""))
+	}
+	r.groupActions()
 	if job.Set == nil || len(r.errs) > 0 {
 		return
 	}
@@ -176,7 +280,11 @@ func (r *reader) generate() {
 	switch {
 	case errors.As(err, &ce):
 		for _, e := range ce {
-			r.fail(r.loc.line(elem("case", e.Case), "kind"), fmt.Sprintf("case %q", job.Model.Cases[e.Case].Name), problem(ErrMissing, "%s", e.Msg))
+			key := e.Key
+			if key == "" {
+				key = "kind"
+			}
+			r.caseTables[e.Case].fail(key, problem(ErrMissing, "%s", e.Msg))
 		}
 		return
 	case err != nil:
@@ -216,4 +324,47 @@ func readLimited(path string, limit int64) ([]byte, error) {
 		err = fmt.Errorf("larger than %d bytes", limit)
 	}
 	return src, err
+}
+
+// Unused returns the cases that no combination gives a factor other than
+// 0, in model order: they would be analysed and left out of every
+// envelope.
+func (j *Job) Unused() []int {
+	used := make([]bool, len(j.Model.Cases))
+	for _, cb := range j.Combinations {
+		for _, t := range cb.Terms {
+			if t.Factor != 0 {
+				used[t.Case] = true
+			}
+		}
+	}
+	var out []int
+	for i, u := range used {
+		if !u {
+			out = append(out, i)
+		}
+	}
+	return out
+}
+
+// CheckUnused returns an error naming each case that no combination uses,
+// at its line, unless the model allows them ([combinations] unused =
+// "allow"). An analysis calls it; a listing of the model does not.
+func (j *Job) CheckUnused() error {
+	if j.AllowUnused {
+		return nil
+	}
+	var es Errors
+	for _, c := range j.Unused() {
+		line := 0
+		if c < len(j.caseLines) {
+			line = j.caseLines[c]
+		}
+		es = append(es, &Error{File: j.file, Line: line, Where: fmt.Sprintf("case %q", j.Model.Cases[c].Name),
+			Err: problem(ErrUnused, "no load combination uses this case, so it would be left out of every envelope; put it in a combination, or write unused = \"allow\" in [combinations] to analyse the model without it")})
+	}
+	if len(es) == 0 {
+		return nil
+	}
+	return es
 }

@@ -202,6 +202,24 @@ func TestReadCombinationErrors(t *testing.T) {
 			fmt.Sprintf(`p.toml:%d: combination "service": factors: no case named "Q"`, at(`factors = `)), ErrReference},
 		{"combination factor that is not a number", `factors = { D = 1.0, L = 1.0 }`, `factors = { D = 1.0, L = "1.0" }`,
 			fmt.Sprintf(`p.toml:%d: combination "service": L must be a number, not a string`, at(`factors = `)), ErrType}, // the line of the factor, not of the table
+
+		// Actions and alternatives (issue 11): each key at its line.
+		{"action that is not a string", "name = \"W\"\n", "name = \"W\"\naction = 5\n",
+			fmt.Sprintf(`p.toml:%d: case "W": action must be a string, not an integer`, at(`name = "W"`)+1), ErrType},
+		{"empty alternative", "name = \"W\"\n", "name = \"W\"\nalternative = \" \"\n",
+			fmt.Sprintf(`p.toml:%d: case "W": alternative is empty: give a name`, at(`name = "W"`)+1), ErrValue},
+		{"alternative of dead load", "kind = \"dead\"\n", "kind = \"dead\"\nalternative = \"a\"\n",
+			fmt.Sprintf(`p.toml:%d: case "D": alternative: dead load is permanent and always acts in full, as one action with every dead case; only variable cases are grouped into actions and alternatives`, at(`kind = "dead"`)+1), ErrValue},
+		{"with beside alternative", "name = \"W\"\n", "name = \"W\"\nalternative = \"left\"\nwith = \"S\"\n",
+			fmt.Sprintf(`p.toml:%d: case "W": with = "S": give with, or action and alternative, not both (with takes the action and alternative of case "S")`, at(`name = "W"`)+2), ErrValue},
+		{"with naming the case itself", "name = \"W\"\n", "name = \"W\"\nwith = \"W\"\n",
+			fmt.Sprintf(`p.toml:%d: case "W": with = "W" names the case itself; name the case whose action and alternative this one shares`, at(`name = "W"`)+1), ErrValue},
+		{"with naming no case", "name = \"L\"\n", "name = \"L\"\nwith = \"Lx\"\n",
+			fmt.Sprintf(`p.toml:%d: case "L": with = "Lx": no such case (did you mean "L"?)`, at(`name = "L"`)+1), ErrReference},
+		{"with naming a case of another kind", "kind = \"snow\"\n", "kind = \"snow\"\nwith = \"W\"\n",
+			fmt.Sprintf(`p.toml:%d: case "S": with = "W": case "W" is wind load and case "S" is snow load; with joins cases of one kind`, at(`kind = "snow"`)+1), ErrValue},
+		{"unused neither error nor allow", `standard = "asce7-16-strength"`, "standard = \"asce7-16-strength\"\nunused = \"ignore\"",
+			fmt.Sprintf(`p.toml:%d: [combinations]: unused = "ignore": must be one of "error", "allow"`, std+1), ErrValue},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
 			src := strings.Replace(portal, tc.old, tc.new, 1)
@@ -232,4 +250,120 @@ func TestReadSetGivingNothing(t *testing.T) {
 	if err == nil || err.Error() != want {
 		t.Errorf("error %v\nwant %s", err, want)
 	}
+}
+
+func TestReadActionOfTwoKinds(t *testing.T) {
+	src := strings.Replace(portal, "name = \"L\"\n", "name = \"L\"\naction = \"Q\"\n", 1)
+	src = strings.Replace(src, "kind = \"snow\"\n", "kind = \"snow\"\naction = \"Q\"\n", 1)
+	want := fmt.Sprintf(`p.toml:%d: case "S": action = "Q": case "L" is in this action too and is live load, case "S" is snow load; the cases of one action are of one kind`, lineOf(t, src, "kind = \"snow\"")+1)
+	_, err := Read("p.toml", []byte(src))
+	if err == nil || err.Error() != want || !errors.Is(err, ErrValue) {
+		t.Errorf("error %v\nwant %s", err, want)
+	}
+}
+
+func TestReadActions(t *testing.T) {
+	// The action keys reach the case information and the grouping: a
+	// windward wall and a roof suction case of one direction joined with
+	// with, and a second direction.
+	src := strings.Replace(portal, "[[combination]]", `[[case]]
+name = "Wr"
+kind = "wind"
+with = "W"
+  [[case.load]]
+  type = "udl"
+  on = "a-b"
+  w = -1
+[[case]]
+name = "W2"
+kind = "wind"
+alternative = "right"
+  [[case.load]]
+  type = "udl"
+  on = "a-b"
+  direction = "x"
+  w = -1
+[[combination]]`, 1)
+	job, err := Read("p.toml", []byte(src))
+	if err != nil {
+		t.Fatal(err)
+	}
+	if job.CaseInfo[5].With != "W" || job.CaseInfo[6].Alternative != "right" || job.Actions == nil {
+		t.Fatalf("case info %+v, actions %v", job.CaseInfo[5:], job.Actions)
+	}
+	wind := job.Actions.List[job.Actions.Of[4].Action]
+	if len(wind.Alternatives) != 2 || len(wind.Alternatives[0].Cases) != 2 || !wind.Alternatives[0].Reversible || wind.Default {
+		t.Errorf("wind action %+v", wind)
+	}
+	// ASCE/SEI 7-16 2.3.1 (5) 0.9D + 1.0W: W with Wr, both signs together,
+	// and W2 alone.
+	var names []string
+	for _, cb := range job.Combinations {
+		if strings.HasPrefix(cb.Name, "2.3.1-5 ") {
+			names = append(names, cb.Name)
+		}
+	}
+	if got := strings.Join(names, ", "); got != "2.3.1-5 0.9D+1.0W+1.0Wr, 2.3.1-5 0.9D-1.0W-1.0Wr, 2.3.1-5 0.9D+1.0W2" {
+		t.Errorf("2.3.1-5: %s", got)
+	}
+}
+
+func TestReadUnused(t *testing.T) {
+	// Issue 12 item 10c: a case no combination uses reads (check and
+	// combos list it), and CheckUnused, which run calls, names it at its
+	// line unless [combinations] unused = "allow".
+	src := strings.Replace(portal, "[[combination]]", "[[case]]\nname = \"T\"\nkind = \"other\"\n[[combination]]", 1)
+	job, err := Read("p.toml", []byte(src))
+	if err != nil {
+		t.Fatal(err)
+	}
+	if u := job.Unused(); len(u) != 1 || u[0] != 5 {
+		t.Fatalf("unused %v", u)
+	}
+	want := fmt.Sprintf(`p.toml:%d: case "T": no load combination uses this case, so it would be left out of every envelope; put it in a combination, or write unused = "allow" in [combinations] to analyse the model without it`, lineOf(t, src, "name = \"T\"")-1)
+	if err := job.CheckUnused(); err == nil || err.Error() != want || !errors.Is(err, ErrUnused) {
+		t.Errorf("error %v\nwant %s", err, want)
+	}
+	t.Run("a zero factor does not use a case", func(t *testing.T) {
+		src := strings.Replace(src, "factors = { D = 1.0, L = 1.0 }", "factors = { D = 1.0, L = 1.0, T = 0 }", 1)
+		job, err := Read("p.toml", []byte(src))
+		if err != nil {
+			t.Fatal(err)
+		}
+		if job.CheckUnused() == nil {
+			t.Error("no error")
+		}
+	})
+	t.Run("allowed", func(t *testing.T) {
+		src := strings.Replace(src, `standard = "asce7-16-strength"`, "standard = \"asce7-16-strength\"\nunused = \"allow\"", 1)
+		job, err := Read("p.toml", []byte(src))
+		if err != nil {
+			t.Fatal(err)
+		}
+		if err := job.CheckUnused(); err != nil || !job.AllowUnused || len(job.Unused()) != 1 {
+			t.Errorf("error %v, allow %v, unused %v", err, job.AllowUnused, job.Unused())
+		}
+	})
+	t.Run("allowed without a standard", func(t *testing.T) {
+		// [combinations] may hold unused alone, for a model that writes
+		// its combinations itself.
+		src := strings.Replace(src, `standard = "asce7-16-strength"`, `unused = "allow"`, 1)
+		job, err := Read("p.toml", []byte(src))
+		if err != nil {
+			t.Fatal(err)
+		}
+		if err := job.CheckUnused(); err != nil || job.Set != nil || len(job.Combinations) != 1 {
+			t.Errorf("error %v, set %v, %d combinations", err, job.Set, len(job.Combinations))
+		}
+	})
+	t.Run("each case alone uses every case", func(t *testing.T) {
+		src := src[:strings.Index(src, "[[combination]]")]
+		job, err := Read("p.toml", []byte(src))
+		if err != nil {
+			t.Fatal(err)
+		}
+		if err := job.CheckUnused(); err != nil {
+			t.Errorf("error %v", err)
+		}
+	})
 }

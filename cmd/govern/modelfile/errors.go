@@ -17,6 +17,7 @@ var (
 	ErrDuplicate  = errors.New("duplicate name")
 	ErrTooLarge   = errors.New("model too large")
 	ErrTooMany    = errors.New("too many problems")
+	ErrUnused     = errors.New("case in no combination")
 )
 
 // Error is a problem in a model file at a position.

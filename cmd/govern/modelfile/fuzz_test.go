@@ -70,6 +70,20 @@ func FuzzRead(f *testing.F) {
 		if err := mo.Validate(); err != nil {
 			t.Fatalf("accepted a model that Validate rejects: %v", err)
 		}
+		if job.Actions == nil || len(job.Actions.Of) != len(mo.Cases) {
+			t.Fatalf("accepted a model without its actions")
+		}
+		for _, cb := range job.Combinations {
+			if c1, c2, clash := job.Actions.Clash(&cb); clash {
+				t.Fatalf("combination %q holds cases %d and %d, alternatives of one action", cb.Name, c1, c2)
+			}
+		}
+		if err := job.CheckUnused(); err != nil {
+			var es Errors
+			if !errors.As(err, &es) || len(es) == 0 || !errors.Is(err, ErrUnused) {
+				t.Fatalf("unused cases: not a list of problems: %v", err)
+			}
+		}
 		if len(mo.Nodes) > fuzzSolveLimit || len(mo.Members) > fuzzSolveLimit || len(mo.Cases) > 20 || len(job.Combinations) > 50 {
 			return
 		}

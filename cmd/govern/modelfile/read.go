@@ -42,7 +42,16 @@ type Job struct {
 	// combinations come first in Combinations, then the model's own.
 	Set      *combos.Set
 	Params   combos.Params     // the set's options given in [combinations]
-	CaseInfo []combos.CaseInfo // per case, as Model.Cases: reversible, EN 1990 category and ψ
+	CaseInfo []combos.CaseInfo // per case, as Model.Cases: reversible, EN 1990 category and ψ, action keys
+	// Actions groups the cases into actions and their alternatives, two
+	// of which never act together (docs/combinations.md).
+	Actions *combos.Actions
+	// AllowUnused is [combinations] unused = "allow": cases that no
+	// combination uses are not an error (see [Job.CheckUnused]).
+	AllowUnused bool
+
+	file      string // the model's name, for messages
+	caseLines []int  // the line of each case
 }
 
 // Read parses and validates a model file. name is used in messages only.
@@ -113,6 +122,8 @@ type reader struct {
 	memLine  []int             // line defining each member (0 for grid members)
 	caseInfo []combos.CaseInfo // per case, for the combination rules
 	setTable *table            // the [combinations] table, nil without one
+
+	caseTables []*table // per case, its table, for messages (combinations.go)
 
 	checks // model-wide checks and limits (checks.go)
 }
