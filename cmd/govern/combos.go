@@ -1,7 +1,6 @@
 package main
 
 import (
-	"encoding/csv"
 	"flag"
 	"fmt"
 	"io"
@@ -48,6 +47,7 @@ See docs/combinations.md for the built-in sets and the rule format.`,
 		if err != nil {
 			return err
 		}
+		f.csv = stdoutPath(env.stdout, f.csv)
 		var outs []output
 		if f.csv != "" {
 			outs = append(outs, output{path: f.csv, write: func(w io.Writer) error { return writeCombosCSV(w, job) }})
@@ -64,7 +64,7 @@ See docs/combinations.md for the built-in sets and the rule format.`,
 func writeCombosTable(w io.Writer, job *modelfile.Job) error {
 	mo := job.Model
 	if job.Title != "" {
-		fmt.Fprintf(w, "%s\n", job.Title)
+		fmt.Fprintf(w, "%s\n", escape(job.Title))
 	}
 	bySource := map[string]int{}
 	for _, cb := range job.Combinations {
@@ -79,9 +79,9 @@ func writeCombosTable(w io.Writer, job *modelfile.Job) error {
 				n++
 			}
 		}
-		fmt.Fprintf(w, ": %d from %s, %d from the model.\n", n, s.Name, bySource["model"])
+		fmt.Fprintf(w, ": %d from %s, %d from the model.\n", n, escape(s.Name), bySource["model"])
 		if s.Title != "" {
-			fmt.Fprintf(w, "%s: %s.\n", s.Name, s.Title)
+			fmt.Fprintf(w, "%s: %s.\n", escape(s.Name), escape(s.Title))
 		}
 		seismic := false
 		for _, c := range mo.Cases {
@@ -169,7 +169,7 @@ func writeCombosTable(w io.Writer, job *modelfile.Job) error {
 	var unused []string
 	for i, u := range used {
 		if !u {
-			unused = append(unused, fmt.Sprintf("%s (%s)", mo.Cases[i].Name, mo.Cases[i].Kind))
+			unused = append(unused, fmt.Sprintf("%s (%s)", escape(mo.Cases[i].Name), mo.Cases[i].Kind))
 		}
 	}
 	if len(unused) > 0 {
@@ -236,7 +236,7 @@ func use(cb combos.Combination) string {
 // the case is not in it.
 func writeCombosCSV(w io.Writer, job *modelfile.Job) error {
 	cases := job.Model.Cases
-	cw := csv.NewWriter(w)
+	cw := newCSVWriter(w)
 	header := []string{"combination", "rule"}
 	service := hasService(job)
 	if service {
