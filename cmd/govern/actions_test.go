@@ -155,8 +155,8 @@ func readPortal(t *testing.T, name string, edit func(string) string) (*modelfile
 	return job, s
 }
 
-// mode sets [analysis] variable_loads.
-func mode(m string) func(string) string {
+// withVariableLoads sets [analysis] variable_loads.
+func withVariableLoads(m string) func(string) string {
 	return func(s string) string {
 		return strings.Replace(s, "[combinations]", "[analysis]\nvariable_loads = \""+m+"\"\n\n[combinations]", 1)
 	}
@@ -168,7 +168,7 @@ func mode(m string) func(string) string {
 // 2 and 3 give nothing).
 func byHand(m string) func(string) string {
 	return func(s string) string {
-		s = mode(m)(s)
+		s = withVariableLoads(m)(s)
 		i := strings.Index(s, "[combinations]")
 		return s[:i] + `[[combination]]
 name = "1.4D"
@@ -237,7 +237,7 @@ func TestWindPortalAsHandWritten(t *testing.T) {
 	for _, file := range []string{"wind-portal.toml", "wind-portal-uplift.toml"} {
 		for _, m := range []string{"as-written", "adverse"} {
 			t.Run(file+" "+m, func(t *testing.T) {
-				gen, _ := readPortal(t, file, mode(m))
+				gen, _ := readPortal(t, file, withVariableLoads(m))
 				hand, _ := readPortal(t, file, byHand(m))
 				if len(gen.Combinations) != 5 || len(hand.Combinations) != 5 {
 					t.Fatalf("%d and %d combinations, want 5", len(gen.Combinations), len(hand.Combinations))
@@ -297,7 +297,7 @@ func TestWindPortalIssueNumbers(t *testing.T) {
 		if want != 1.2*aD[2]+aR[2] || !near(want, -18.89, 0.005) {
 			t.Errorf("force method: least M at A %.6f, want 1.2D+WR = %.6f, -18.89", want, 1.2*aD[2]+aR[2])
 		}
-		job, _ := readPortal(t, "wind-portal.toml", mode("as-written"))
+		job, _ := readPortal(t, "wind-portal.toml", withVariableLoads("as-written"))
 		if r := reaction(t, job); !near(r.M.Min, want, rel*math.Abs(want)) {
 			t.Errorf("least M at A %.12g, want %.12g", r.M.Min, want)
 		}
@@ -308,7 +308,7 @@ func TestWindPortalIssueNumbers(t *testing.T) {
 		if today != 1.4*aD[2] || !near(today, -16.60, 0.005) {
 			t.Errorf("force method, both directions together: %.6f, want 1.4D, -16.60", today)
 		}
-		job, _ = readPortal(t, "wind-portal.toml", func(s string) string { return old(mode("as-written")(s)) })
+		job, _ = readPortal(t, "wind-portal.toml", func(s string) string { return old(withVariableLoads("as-written")(s)) })
 		if r := reaction(t, job); !near(r.M.Min, today, rel*math.Abs(today)) {
 			t.Errorf("with = \"WL\": least M at A %.12g, want %.12g", r.M.Min, today)
 		}
@@ -329,7 +329,7 @@ func TestWindPortalIssueNumbers(t *testing.T) {
 		if !near(want, 17.06, 0.005) || !near(want, 27-9+math.Min(aL[1], aR[1]), 1e-8) {
 			t.Errorf("force method: least Fy at A %.6f, want 17.06", want)
 		}
-		job, _ := readPortal(t, "wind-portal-uplift.toml", mode("adverse"))
+		job, _ := readPortal(t, "wind-portal-uplift.toml", withVariableLoads("adverse"))
 		if r := reaction(t, job); !near(r.Fy.Min, want, rel*math.Abs(want)) {
 			t.Errorf("least Fy at A %.12g, want %.12g", r.Fy.Min, want)
 		}
@@ -339,13 +339,13 @@ func TestWindPortalIssueNumbers(t *testing.T) {
 		if !near(today, 9.00, 0.005) {
 			t.Errorf("force method, both directions together: %.6f, want 9.00", today)
 		}
-		job, _ = readPortal(t, "wind-portal-uplift.toml", func(s string) string { return old(mode("adverse")(s)) })
+		job, _ = readPortal(t, "wind-portal-uplift.toml", func(s string) string { return old(withVariableLoads("adverse")(s)) })
 		if r := reaction(t, job); !near(r.Fy.Min, today, rel*math.Abs(today)) {
 			t.Errorf("with = \"WL\": least Fy at A %.12g, want %.12g", r.Fy.Min, today)
 		}
 	})
 	t.Run("every reaction of each case against the force method", func(t *testing.T) {
-		job, _ := readPortal(t, "wind-portal-uplift.toml", mode("as-written"))
+		job, _ := readPortal(t, "wind-portal-uplift.toml", withVariableLoads("as-written"))
 		each := combos.EachCase(job.Model.Cases)
 		for c, want := range [][2][3]float64{{aD, dD}, pair(portalReactions(5, 0, 3)), pair(portalReactions(0, -5, 3))} {
 			job.Combinations = each[c : c+1]

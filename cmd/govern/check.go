@@ -44,10 +44,10 @@ See docs/errors.md.`,
 		info := stiff.Info()
 		w := env.stdout
 		if job.Title != "" {
-			fmt.Fprintf(w, "%s\n", job.Title)
+			fmt.Fprintf(w, "%s\n", escape(job.Title))
 		}
 		supported, beams, cols := census(mo)
-		fmt.Fprintf(w, "units:          force %s, length %s\n", job.Units.Force, job.Units.Length)
+		fmt.Fprintf(w, "units:          force %s, length %s\n", escape(job.Units.Force), escape(job.Units.Length))
 		fmt.Fprintf(w, "nodes:          %d (%d supported)\n", len(mo.Nodes), supported)
 		fmt.Fprintf(w, "members:        %d (%d beams, %d columns, %d other)\n", len(mo.Members), beams, cols, len(mo.Members)-beams-cols)
 		fmt.Fprintf(w, "sections:       %d\n", len(mo.Sections))
@@ -56,14 +56,14 @@ See docs/errors.md.`,
 		fmt.Fprintf(w, "stability:      no mechanism; estimated condition number %.2g\n", stiff.Cond())
 		fmt.Fprintf(w, "load cases:     %d\n", len(mo.Cases))
 		for _, c := range mo.Cases {
-			fmt.Fprintf(w, "  %-12s %-9s %d member loads, %d node loads\n", c.Name, c.Kind, len(c.MemberLoads), len(c.NodeLoads))
+			fmt.Fprintf(w, "  %-12s %-9s %d member loads, %d node loads\n", escape(c.Name), c.Kind, len(c.MemberLoads), len(c.NodeLoads))
 		}
 		fmt.Fprintf(w, "actions:        %d (two alternatives of one action never act together)\n", len(job.Actions.List))
 		for _, row := range actionRows(job) {
-			fmt.Fprintf(w, "  %-12s %-9s %s\n", row[0], row[1], row[2])
+			fmt.Fprintf(w, "  %-12s %-9s %s\n", escape(row[0]), row[1], escape(row[2]))
 		}
 		if n := job.Actions.Note; n != "" {
-			fmt.Fprintf(w, "note:           %s\n", n)
+			fmt.Fprintf(w, "note:           %s\n", escape(n))
 		}
 		fmt.Fprintf(w, "combinations:   %d\n", len(job.Combinations))
 		for _, cb := range job.Combinations {
@@ -71,7 +71,7 @@ See docs/errors.md.`,
 			if cb.Service {
 				service = "   (service)"
 			}
-			fmt.Fprintf(w, "  %-28s %s%s\n", cb.Name, cb.Describe(mo.Cases), service)
+			fmt.Fprintf(w, "  %-28s %s%s\n", escape(cb.Name), escape(cb.Describe(mo.Cases)), service)
 		}
 		if u := unusedText(job); u != "" {
 			fmt.Fprintf(w, "unused cases:   %s\n", u)

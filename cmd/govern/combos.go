@@ -1,7 +1,6 @@
 package main
 
 import (
-	"encoding/csv"
 	"flag"
 	"fmt"
 	"io"
@@ -50,6 +49,7 @@ See docs/combinations.md for the built-in sets and the rule format.`,
 		if err != nil {
 			return err
 		}
+		f.csv = stdoutPath(env.stdout, f.csv)
 		var outs []output
 		if f.csv != "" {
 			outs = append(outs, output{path: f.csv, write: func(w io.Writer) error { return writeCombosCSV(w, job) }})
@@ -66,7 +66,7 @@ See docs/combinations.md for the built-in sets and the rule format.`,
 func writeCombosTable(w io.Writer, job *modelfile.Job) error {
 	mo := job.Model
 	if job.Title != "" {
-		fmt.Fprintf(w, "%s\n", job.Title)
+		fmt.Fprintf(w, "%s\n", escape(job.Title))
 	}
 	bySource := map[string]int{}
 	for _, cb := range job.Combinations {
@@ -81,9 +81,9 @@ func writeCombosTable(w io.Writer, job *modelfile.Job) error {
 				n++
 			}
 		}
-		fmt.Fprintf(w, ": %d from %s, %d from the model.\n", n, s.Name, bySource["model"])
+		fmt.Fprintf(w, ": %d from %s, %d from the model.\n", n, escape(s.Name), bySource["model"])
 		if s.Title != "" {
-			fmt.Fprintf(w, "%s: %s.\n", s.Name, s.Title)
+			fmt.Fprintf(w, "%s: %s.\n", escape(s.Name), escape(s.Title))
 		}
 		seismic := false
 		for _, c := range mo.Cases {
@@ -105,7 +105,7 @@ func writeCombosTable(w io.Writer, job *modelfile.Job) error {
 		fmt.Fprintf(w, ", all from the model.\n")
 	}
 	if job.Actions != nil && job.Actions.Note != "" {
-		fmt.Fprintf(w, "Note: %s\n", job.Actions.Note)
+		fmt.Fprintf(w, "Note: %s\n", escape(job.Actions.Note))
 	}
 	fmt.Fprintf(w, "\n")
 
@@ -198,7 +198,7 @@ func writeCombosTable(w io.Writer, job *modelfile.Job) error {
 func unusedText(job *modelfile.Job) string {
 	var names []string
 	for _, c := range job.Unused() {
-		names = append(names, fmt.Sprintf("%s (%s)", job.Model.Cases[c].Name, job.Model.Cases[c].Kind))
+		names = append(names, fmt.Sprintf("%s (%s)", escape(job.Model.Cases[c].Name), job.Model.Cases[c].Kind))
 	}
 	if len(names) == 0 {
 		return ""
@@ -293,7 +293,7 @@ func use(cb combos.Combination) string {
 // the case is not in it.
 func writeCombosCSV(w io.Writer, job *modelfile.Job) error {
 	cases := job.Model.Cases
-	cw := csv.NewWriter(w)
+	cw := newCSVWriter(w)
 	header := []string{"combination", "rule"}
 	service := hasService(job)
 	if service {

@@ -27,18 +27,18 @@ func (a *analysis) writeCrossCheck(w io.Writer) error {
 	if err != nil {
 		var na *distribution.NotApplicableError
 		if errors.As(err, &na) {
-			fmt.Fprintf(w, "Not made: moment distribution as implemented does not apply to this model: %s.\n", na.Reason)
+			fmt.Fprintf(w, "Not made: moment distribution as implemented does not apply to this model: %s.\n", escape(na.Reason))
 			return nil
 		}
-		fmt.Fprintf(w, "Not made: %v.\n", err)
+		fmt.Fprintf(w, "Not made: %s.\n", escape(err.Error()))
 		return nil
 	}
 	if md.Sway {
-		fmt.Fprintf(w, "With the sway correction for the storey at joints %s.\n", strings.Join(md.SwayNodes, ", "))
+		fmt.Fprintf(w, "With the sway correction for the storey at joints %s.\n", escape(strings.Join(md.SwayNodes, ", ")))
 	} else {
 		fmt.Fprintf(w, "Every joint is held against sway: no sway correction.\n")
 	}
-	fmt.Fprintf(w, "End moments in %s. Moment distribution neglects axial strain, so differences of up to a few percent come from\n", u.Moment())
+	fmt.Fprintf(w, "End moments in %s. Moment distribution neglects axial strain, so differences of up to a few percent come from\n", escape(u.Moment()))
 	fmt.Fprintf(w, "the unequal shortening of the columns; one above %g%% of the case's largest end moment is marked \"differs\".\n", 100*crossCheckFlag)
 	t := newTable(w, "case", "largest difference", "at", "largest end moment", "relative", "check")
 	for c := range mo.Cases {

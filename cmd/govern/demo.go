@@ -45,12 +45,13 @@ edit; an existing file is not overwritten.`,
 			if fileExists(f.write) {
 				return fmt.Errorf("%s exists; not overwriting it", f.write)
 			}
-			if err := writeAtomic(f.write, demoModel); err != nil {
+			if err := writeNew(f.write, demoModel); err != nil {
 				return err
 			}
-			fmt.Fprintf(env.stdout, "wrote %s\n", f.write)
+			fmt.Fprintf(env.stdout, "wrote %s\n", escape(f.write))
 			return nil
 		}
+		f.toStdout(env.stdout)
 		job, err := modelfile.Read("demo.toml", demoModel)
 		if err != nil {
 			return err

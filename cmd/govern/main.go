@@ -10,8 +10,11 @@ import (
 	"fmt"
 	"io"
 	"os"
+	"os/signal"
 	"sort"
 	"strings"
+	"sync"
+	"syscall"
 )
 
 // caution is printed with every result and in the help.
@@ -37,7 +40,7 @@ type environ struct {
 // prefixed with the command name.
 func (env *environ) warn(model string, ws []string) {
 	for _, w := range ws {
-		fmt.Fprintf(env.stderr, "%s: warning: %s: %s\n", env.name, model, w)
+		fmt.Fprintf(env.stderr, "%s: warning: %s: %s\n", env.name, escape(model), escapeLines(w))
 	}
 }
 
@@ -57,16 +60,97 @@ func init() {
 }
 
 func main() {
+	stopOnSignals()
 	os.Exit(govern(os.Args[1:], os.Stdout, os.Stderr))
 }
 
+// stopOnSignals makes an interrupt (SIGINT), termination (SIGTERM) or
+// hang-up (SIGHUP) remove the run's temporary files and any folder it made
+// and still empty, then end the process by that signal, so that the shell
+// sees the usual status 128 + its number (130, 143, 129). A set of files
+// being renamed into place is completed first.
+func stopOnSignals() {
+	sigs := make(chan os.Signal, 1)
+	signal.Notify(sigs, os.Interrupt, syscall.SIGTERM, syscall.SIGHUP)
+	go func() {
+		sig := <-sigs
+		removeTemporaries()
+		signal.Reset(sig)
+		if p, err := os.FindProcess(os.Getpid()); err == nil {
+			p.Signal(sig) // ends the process, as the signal would have
+		}
+		code := 1
+		if n, ok := sig.(syscall.Signal); ok {
+			code = 128 + int(n)
+		}
+		os.Exit(code) // where a process cannot signal itself
+	}()
+}
+
+// checkedWriter remembers the first error of writing to w, so that output
+// printed with fmt.Fprintf, whose errors go unchecked, still fails the
+// command when standard output or error is full or closed.
+type checkedWriter struct {
+	mu  sync.Mutex
+	w   io.Writer
+	err error
+}
+
+func (c *checkedWriter) Write(p []byte) (int, error) {
+	c.mu.Lock()
+	defer c.mu.Unlock()
+	if c.err != nil {
+		return 0, c.err
+	}
+	n, err := c.w.Write(p)
+	if err == nil && n < len(p) {
+		err = io.ErrShortWrite
+	}
+	c.err = err
+	return n, err
+}
+
+func (c *checkedWriter) failed() error {
+	c.mu.Lock()
+	defer c.mu.Unlock()
+	return c.err
+}
+
+// file returns the file written to, or nil: progress asks whether it is a
+// terminal, outputs whether a path names it (fileOf).
+func (c *checkedWriter) file() *os.File { return fileOf(c.w) }
+
 // govern runs the command line args and returns the exit status: 0 success,
-// 1 bad model or analysis failure, 2 usage.
+// 1 bad model, analysis failure or output that could not be written, 2
+// usage. Every write to stdout and stderr is checked: one that fails makes
+// the status 1 with a message (when stderr can still take it).
 func govern(args []string, stdout, stderr io.Writer) (status int) {
+	out, errs := &checkedWriter{w: stdout}, &checkedWriter{w: stderr}
+	status = run(args, out, errs)
+	if status == 0 && out.failed() != nil {
+		who := "govern"
+		if len(args) > 0 && lookup(args[0]) != nil {
+			who = "govern " + args[0]
+		}
+		stdoutFailed(errs, who, out.failed())
+		status = 1
+	}
+	if status == 0 && errs.failed() != nil {
+		status = 1 // a warning was lost; nothing more can be said
+	}
+	return status
+}
+
+func stdoutFailed(stderr io.Writer, who string, err error) {
+	fmt.Fprintf(stderr, "%s: cannot write to standard output: %s\n", who, escape(err.Error()))
+}
+
+// run is govern with checked streams.
+func run(args []string, stdout, stderr *checkedWriter) (status int) {
 	who := "govern" // the prefix of messages: the command, once known
 	defer func() {
 		if p := recover(); p != nil {
-			fmt.Fprintf(stderr, "%s: internal error: %v\n%s: please report this with the model that caused it\n", who, p, who)
+			fmt.Fprintf(stderr, "%s: internal error: %s\n%s: please report this with the model that caused it\n", who, escapeLines(fmt.Sprint(p)), who)
 			status = 1
 		}
 	}()
@@ -110,11 +194,18 @@ func govern(args []string, stdout, stderr io.Writer) (status int) {
 	}
 	var ue *usageError
 	if errors.As(err, &ue) || isFlagError(err) {
-		fmt.Fprintf(stderr, "%s: %v\nusage: govern %s %s\nRun 'govern help %s' for details.\n", env.name, err, c.name, c.usage, c.name)
+		fmt.Fprintf(stderr, "%s: %s\nusage: govern %s %s\nRun 'govern help %s' for details.\n", env.name, escape(err.Error()), c.name, c.usage, c.name)
 		return 2
 	}
-	for _, line := range strings.Split(err.Error(), "\n") {
-		fmt.Fprintf(stderr, "%s: %s\n", env.name, line)
+	// A failed write to standard output is said once, in its own words.
+	werr := stdout.failed()
+	if werr == nil || !errors.Is(err, werr) {
+		for _, line := range strings.Split(escapeLines(err.Error()), "\n") {
+			fmt.Fprintf(stderr, "%s: %s\n", env.name, line)
+		}
+	}
+	if werr != nil {
+		stdoutFailed(stderr, env.name, werr)
 	}
 	return 1
 }

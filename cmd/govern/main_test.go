@@ -4,11 +4,190 @@ import (
 	"bytes"
 	"encoding/csv"
 	"encoding/json"
+	"fmt"
+	"io"
 	"os"
+	osexec "os/exec"
 	"path/filepath"
+	"runtime"
 	"strings"
+	"syscall"
 	"testing"
+	"time"
 )
+
+// asMain, in the environment, makes the test binary run govern's main
+// instead of the tests, for tests that need a process of its own. Its
+// value "stall" makes every temporary output file stop after its first
+// write, as if the run were writing a very large file, so that a signal
+// can be sent while it is there.
+const asMain = "GOVERN_TEST_AS_MAIN"
+
+func TestMain(m *testing.M) {
+	switch os.Getenv(asMain) {
+	case "":
+		os.Exit(m.Run())
+	case "stall":
+		tempWriter = func(f *os.File) io.Writer { return &stall{w: f} }
+	}
+	main()
+}
+
+// stall passes its first write through and then never returns.
+type stall struct {
+	w     io.Writer
+	wrote bool
+}
+
+func (s *stall) Write(p []byte) (int, error) {
+	if s.wrote {
+		for {
+			time.Sleep(time.Hour)
+		}
+	}
+	s.wrote = true
+	return s.w.Write(p)
+}
+
+// signalWait bounds how long the signal test waits for the process to
+// start writing and to end.
+const signalWait = time.Minute
+
+// TestSignalsRemoveTemporaryFiles: an interrupt, termination or hang-up
+// while the outputs are being written removes every temporary file (and a
+// folder --out made), leaves the previous files as they were, and ends the
+// process by that signal: status 128 + its number in the shell.
+func TestSignalsRemoveTemporaryFiles(t *testing.T) {
+	if runtime.GOOS == "windows" {
+		t.Skip("a process cannot be sent these signals here")
+	}
+	for _, sig := range []syscall.Signal{syscall.SIGINT, syscall.SIGTERM, syscall.SIGHUP} {
+		for _, out := range []string{"--json", "--out"} {
+			t.Run(fmt.Sprintf("%v, %s", sig, out), func(t *testing.T) {
+				model := writeDemo(t)
+				dir := filepath.Dir(model)
+				js, cs, folder := filepath.Join(dir, "env.json"), filepath.Join(dir, "env.csv"), filepath.Join(dir, "results")
+				os.WriteFile(js, []byte("previous"), 0o644)
+				args := []string{"run", "--json", js, "--csv", cs, model}
+				temps := dir
+				if out == "--out" {
+					args, temps = []string{"run", "--out", folder, model}, folder
+				}
+				cmd := osexec.Command(os.Args[0], args...)
+				cmd.Env = append(os.Environ(), asMain+"=stall")
+				var stderr bytes.Buffer
+				cmd.Stderr = &stderr
+				if err := cmd.Start(); err != nil {
+					t.Fatal(err)
+				}
+				defer cmd.Process.Kill()
+				for deadline := time.Now().Add(signalWait); ; time.Sleep(10 * time.Millisecond) {
+					left, _ := filepath.Glob(filepath.Join(temps, ".*.tmp*"))
+					if len(left) > 0 {
+						if st, err := os.Stat(left[0]); err == nil && st.Size() > 0 {
+							break
+						}
+					}
+					if time.Now().After(deadline) {
+						t.Fatalf("no temporary file was written in %v; stderr: %s", signalWait, stderr.String())
+					}
+				}
+				if err := cmd.Process.Signal(sig); err != nil {
+					t.Fatal(err)
+				}
+				done := make(chan error, 1)
+				go func() { done <- cmd.Wait() }()
+				select {
+				case <-done:
+				case <-time.After(signalWait):
+					t.Fatalf("the process did not end in %v after %v", signalWait, sig)
+				}
+				ws := cmd.ProcessState.Sys().(syscall.WaitStatus)
+				if !(ws.Signaled() && ws.Signal() == sig) && ws.ExitStatus() != 128+int(sig) {
+					t.Errorf("the process ended with %v, want by %v or with status %d", cmd.ProcessState, sig, 128+int(sig))
+				}
+				assertNoTemporaries(t, dir)
+				if out == "--out" {
+					if fileExists(folder) {
+						left, _ := filepath.Glob(filepath.Join(folder, "*"))
+						t.Errorf("the folder --out made is left behind, holding %v", left)
+					}
+				} else {
+					if b, _ := os.ReadFile(js); string(b) != "previous" {
+						t.Errorf("the JSON file changed to %d bytes", len(b))
+					}
+					if fileExists(cs) {
+						t.Error("a CSV file was written")
+					}
+				}
+				if stderr.Len() > 0 {
+					t.Errorf("stderr: %s", stderr.String())
+				}
+			})
+		}
+	}
+}
+
+// TestEveryWriteErrorIsAnError: a command whose standard output cannot be
+// written (a full disk, a closed pipe) fails with status 1 and says so,
+// whether the first write fails or one part way; so does a successful run
+// whose warnings could not be written to standard error.
+func TestEveryWriteErrorIsAnError(t *testing.T) {
+	model := writeDemo(t)
+	csvFile := filepath.Join(filepath.Dir(model), "combos.csv")
+	for _, tc := range []struct {
+		name  string
+		args  []string
+		after int // bytes written before the fault
+		who   string
+	}{
+		{"check", []string{"check", model}, 0, "govern check"},
+		{"check, part way", []string{"check", model}, 200, "govern check"},
+		{"combos", []string{"combos", model}, 0, "govern combos"},
+		{"combos, part way", []string{"combos", model}, 1500, "govern combos"},
+		{"combos with a CSV file", []string{"combos", "--csv", csvFile, model}, 0, "govern combos"},
+		{"verify", []string{"verify"}, 0, "govern verify"},
+		{"verify, part way", []string{"verify"}, 3000, "govern verify"},
+		{"run", []string{"run", model}, 0, "govern run"},
+		{"run, part way", []string{"run", model}, 5000, "govern run"},
+		{"run, JSON to standard output", []string{"run", "--json", "-", model}, 0, "govern run"},
+		{"new", []string{"new", "--bays", "6", "--storeys", "3"}, 0, "govern new"},
+		{"help", []string{"help"}, 0, "govern"},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			var errb bytes.Buffer
+			code := govern(tc.args, &faulty{w: io.Discard, after: tc.after}, &errb)
+			want := tc.who + ": cannot write to standard output: no space left on device (simulated)\n"
+			if code != 1 || errb.String() != want {
+				t.Errorf("exit %d, stderr %q; want 1 and %q", code, errb.String(), want)
+			}
+		})
+	}
+	t.Run("check to /dev/full", func(t *testing.T) {
+		full, err := os.OpenFile("/dev/full", os.O_WRONLY, 0)
+		if err != nil {
+			t.Skipf("no /dev/full: %v", err)
+		}
+		defer full.Close()
+		for _, args := range [][]string{{"check", model}, {"combos", model}, {"verify"}} {
+			var errb bytes.Buffer
+			code := govern(args, full, &errb)
+			want := "govern " + args[0] + ": cannot write to standard output: write /dev/full: no space left on device\n"
+			if code != 1 || errb.String() != want {
+				t.Errorf("govern %s: exit %d, stderr %q; want 1 and %q", args[0], code, errb.String(), want)
+			}
+		}
+	})
+	t.Run("a warning that cannot be written", func(t *testing.T) {
+		mixed := filepath.Join("..", "..", "testdata", "bad", "mixed-units.toml")
+		if code := govern([]string{"run", "--quiet", mixed}, io.Discard, &faulty{w: io.Discard}); code != 1 {
+			t.Errorf("exit %d, want 1", code)
+		}
+		if code := govern([]string{"run", "--quiet", mixed}, io.Discard, io.Discard); code != 0 {
+			t.Errorf("with standard error writable: exit %d, want 0", code)
+		}
+	})
+}
 
 // exec runs govern with args and returns the exit status and both streams.
 func exec(args ...string) (int, string, string) {

@@ -88,7 +88,7 @@ the model goes to standard output. An existing file is never overwritten.`,
 		}
 		path := "-"
 		if len(args) == 1 {
-			path = args[0]
+			path = stdoutPath(env.stdout, args[0])
 		}
 		if path == "-" {
 			_, err := env.stdout.Write(src.Bytes())
@@ -97,10 +97,10 @@ the model goes to standard output. An existing file is never overwritten.`,
 		if fileExists(path) {
 			return fmt.Errorf("%s exists; not overwriting it", path)
 		}
-		if err := writeAtomic(path, src.Bytes()); err != nil {
+		if err := writeNew(path, src.Bytes()); err != nil {
 			return err
 		}
-		fmt.Fprintf(env.stdout, "wrote %s: %d bays, %d storeys; every number in it is a placeholder to check and replace\n", path, len(bays), len(storeys))
+		fmt.Fprintf(env.stdout, "wrote %s: %d bays, %d storeys; every number in it is a placeholder to check and replace\n", escape(path), len(bays), len(storeys))
 		return nil
 	},
 }

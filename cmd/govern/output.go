@@ -53,7 +53,7 @@ func variableLoads(asWritten bool) string {
 func (a *analysis) writeCSV(w io.Writer) error {
 	mo := a.job.Model
 	u := a.job.Units
-	cw := csv.NewWriter(w)
+	cw := newCSVWriter(w)
 	if err := cw.Write([]string{"member", "x (" + u.Length + ")", "effect", "max", "max_by", "min", "min_by", "unit",
 		"max_spans", "min_spans", "max_loaded", "min_loaded", "max_with_N", "max_with_V", "max_with_M", "min_with_N", "min_with_V", "min_with_M", "face"}); err != nil {
 		return err
@@ -90,6 +90,85 @@ func (a *analysis) writeCSV(w io.Writer) error {
 	return cw.Error()
 }
 
+// csvWriter writes CSV records (RFC 4180, through encoding/csv) whose cells
+// cannot be taken for formulas by a spreadsheet: see csvCell.
+type csvWriter struct {
+	*csv.Writer
+	row []string
+}
+
+func newCSVWriter(w io.Writer) *csvWriter { return &csvWriter{Writer: csv.NewWriter(w)} }
+
+// Write writes one record, each cell through csvCell.
+func (c *csvWriter) Write(record []string) error {
+	c.row = c.row[:0]
+	for _, s := range record {
+		c.row = append(c.row, csvCell(s))
+	}
+	return c.Writer.Write(c.row)
+}
+
+// csvCell returns a CSV cell as it is written. A cell that begins with =,
+// +, -, @, a tab or a carriage return and is not a number would be read as
+// a formula by a spreadsheet that opens the file (a name such as
+// "=HYPERLINK(...)" could run or fetch something), and quoting does not
+// stop that: it gets a leading apostrophe, which spreadsheets take as
+// "text" and do not show. Numbers such as -12.5 or -1.2e-05 are kept as
+// they are. The CSV writer then quotes the cell where RFC 4180 requires (a
+// comma, a double quote or a line break in it).
+func csvCell(s string) string {
+	if s == "" {
+		return s
+	}
+	switch s[0] {
+	case '=', '+', '-', '@', '\t', '\r':
+		if !isDecimal(s) {
+			return "'" + s
+		}
+	}
+	return s
+}
+
+// isDecimal reports whether s is a decimal number as a spreadsheet reads
+// one: an optional sign, digits with an optional point, an optional
+// exponent. "Inf" and "NaN" are not.
+func isDecimal(s string) bool {
+	i := 0
+	if i < len(s) && (s[i] == '+' || s[i] == '-') {
+		i++
+	}
+	digits := 0
+	for i < len(s) && s[i] >= '0' && s[i] <= '9' {
+		i++
+		digits++
+	}
+	if i < len(s) && s[i] == '.' {
+		i++
+		for i < len(s) && s[i] >= '0' && s[i] <= '9' {
+			i++
+			digits++
+		}
+	}
+	if digits == 0 {
+		return false
+	}
+	if i < len(s) && (s[i] == 'e' || s[i] == 'E') {
+		i++
+		if i < len(s) && (s[i] == '+' || s[i] == '-') {
+			i++
+		}
+		exp := 0
+		for i < len(s) && s[i] >= '0' && s[i] <= '9' {
+			i++
+			exp++
+		}
+		if exp == 0 {
+			return false
+		}
+	}
+	return i == len(s)
+}
+
 // num formats a value for CSV: shortest exact representation.
 func num(v float64) string { return string(appendNum(nil, v)) }
 
@@ -102,11 +181,16 @@ func fixed(v float64) string {
 	return s
 }
 
+// newTable starts a text table for the terminal. Every cell of its header
+// and rows is escaped (escape), whoever fills it.
 func newTable(w io.Writer, header ...string) *tablewriter.Table {
+	cells := tw.CellFilter{Global: escapeCells}
 	t := tablewriter.NewTable(w,
 		tablewriter.WithHeaderAutoFormat(tw.Off),
 		tablewriter.WithRowAlignment(tw.AlignRight),
 		tablewriter.WithHeaderAlignment(tw.AlignCenter),
+		tablewriter.WithHeaderFilter(cells),
+		tablewriter.WithRowFilter(cells),
 	)
 	h := make([]any, len(header))
 	for i, s := range header {
@@ -114,4 +198,12 @@ func newTable(w io.Writer, header ...string) *tablewriter.Table {
 	}
 	t.Header(h...)
 	return t
+}
+
+// escapeCells escapes every cell of a table row, for newTable.
+func escapeCells(cells []string) []string {
+	for i, c := range cells {
+		cells[i] = escape(c)
+	}
+	return cells
 }

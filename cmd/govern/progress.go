@@ -50,8 +50,8 @@ func startProgress(w io.Writer, name string, start time.Time) *progress {
 
 // isTerminal reports whether w is a character device, such as a terminal.
 func isTerminal(w io.Writer) bool {
-	f, ok := w.(*os.File)
-	if !ok {
+	f := fileOf(w)
+	if f == nil {
 		return false
 	}
 	st, err := f.Stat()
@@ -99,7 +99,7 @@ func (p *progress) loop() {
 			}
 			p.shown = true
 			p.mu.Unlock()
-			fmt.Fprintf(p.w, "\r%s\033[K", line)
+			fmt.Fprintf(p.w, "\r%s\033[K", escape(line))
 		}
 	}
 }

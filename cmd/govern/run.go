@@ -97,6 +97,7 @@ the signs.`, staticsLimit),
 			return usagef("need one model file, got %d arguments", len(args))
 		}
 		f := opts.(*runFlags)
+		f.toStdout(env.stdout)
 		if err := f.check(); err != nil {
 			return err
 		}
@@ -109,7 +110,7 @@ the signs.`, staticsLimit),
 			return err
 		}
 		if n := job.Actions.Note; n != "" && !f.quiet {
-			fmt.Fprintf(env.stderr, "%s: note: %s: %s\n", env.name, name, n)
+			fmt.Fprintf(env.stderr, "%s: note: %s: %s\n", env.name, escape(name), escape(n))
 		}
 		if f.comparePatterns {
 			return comparePatterns(env.stdout, job)
@@ -138,6 +139,13 @@ const (
 	jsonName   = "envelopes.json"
 	csvName    = "envelopes.csv"
 )
+
+// toStdout turns each output path that names the file standard output
+// already is (such as /dev/stdout) into "-", so that the run treats it as
+// standard output and leaves out the summary.
+func (f *runFlags) toStdout(stdout io.Writer) {
+	f.json, f.csv, f.report = stdoutPath(stdout, f.json), stdoutPath(stdout, f.csv), stdoutPath(stdout, f.report)
+}
 
 // check refuses combinations of flags that cannot be honoured.
 func (f *runFlags) check() error {
@@ -216,26 +224,13 @@ func (a *analysis) report(stdout io.Writer, model string, f *runFlags) error {
 		return err
 	}
 	err = commitOutputs(stdout, model, outs)
-	if err != nil && made {
-		os.Remove(f.out) // only if still empty: nothing half-written stays
+	if made {
+		if err != nil {
+			os.Remove(f.out) // only if still empty: nothing half-written stays
+		}
+		forgetFolder(f.out)
 	}
 	return err
-}
-
-// makeFolder makes the folder dir if it does not exist and reports whether
-// it did.
-func makeFolder(dir string) (bool, error) {
-	st, err := os.Stat(dir)
-	switch {
-	case err == nil && st.IsDir():
-		return false, nil
-	case err == nil:
-		return false, fmt.Errorf("cannot write into %s: it is a file, not a folder", dir)
-	}
-	if err := os.MkdirAll(dir, 0o755); err != nil {
-		return false, fmt.Errorf("cannot make the folder %s: %v", dir, err)
-	}
-	return true, nil
 }
 
 // combinationCount says how many combinations there are, and how many are
@@ -261,7 +256,7 @@ func (a *analysis) faceCount() int {
 func (a *analysis) writeHeading(w io.Writer) {
 	mo := a.job.Model
 	if a.job.Title != "" {
-		fmt.Fprintf(w, "%s\n", a.job.Title)
+		fmt.Fprintf(w, "%s\n", escape(a.job.Title))
 	}
 	info := a.sol.Info()
 	fmt.Fprintf(w, "%d nodes, %d members, %d equations; %d load cases, %s; %d stations per member; variable loads %s\n",
@@ -272,9 +267,9 @@ func (a *analysis) writeHeading(w io.Writer) {
 	if len(a.job.Patterned) > 0 {
 		var names []string
 		for _, c := range a.job.Patterned {
-			names = append(names, mo.Cases[c].Name)
+			names = append(names, escape(mo.Cases[c].Name))
 		}
 		fmt.Fprintf(w, "Patterned cases %s: %s placement, %d pieces (%d per beam)\n", strings.Join(names, ", "), a.lay.Mode, len(a.lay.Pieces), a.lay.Segments)
 	}
-	fmt.Fprintf(w, "Units: force %s, length %s. N tension positive; M sagging positive (local -y face in tension); V = dM/dx.\n\n", a.job.Units.Force, a.job.Units.Length)
+	fmt.Fprintf(w, "Units: force %s, length %s. N tension positive; M sagging positive (local -y face in tension); V = dM/dx.\n\n", escape(a.job.Units.Force), escape(a.job.Units.Length))
 }

@@ -73,13 +73,13 @@ type tables interface {
 type textTables struct{ w io.Writer }
 
 func (t textTables) note(text string) error {
-	_, err := fmt.Fprintf(t.w, "%s\n", text)
+	_, err := fmt.Fprintf(t.w, "%s\n", escapeLines(text))
 	return err
 }
 
 func (t textTables) table(title string, header []string, rows [][]string) error {
 	if title != "" {
-		fmt.Fprintf(t.w, "\n%s\n", title)
+		fmt.Fprintf(t.w, "\n%s\n", escape(title))
 	}
 	tw := newTable(t.w, header...)
 	if err := tw.Bulk(rows); err != nil {

@@ -1,0 +1,116 @@
+package main
+
+import (
+	"bytes"
+	"encoding/csv"
+	"os"
+	"path/filepath"
+	"strconv"
+	"strings"
+	"testing"
+)
+
+// TestCSVCell: a cell that a spreadsheet would take for a formula (it
+// begins with =, +, -, @, a tab or a carriage return and is not a number)
+// gets a leading apostrophe; numbers and other text are kept.
+func TestCSVCell(t *testing.T) {
+	for in, want := range map[string]string{
+		"=1+1":              "'=1+1",
+		`=HYPERLINK("x")`:   `'=HYPERLINK("x")`,
+		"+A1":               "'+A1",
+		"-B":                "'-B",
+		"@SUM(A1:A9)":       "'@SUM(A1:A9)",
+		"\tx":               "'\tx",
+		"\rx":               "'\rx",
+		"-":                 "'-",
+		"-Inf":              "'-Inf",
+		"+NaN":              "'+NaN",
+		"-1e":               "'-1e",
+		"--1":               "'--1",
+		"-2":                "-2",
+		"+3":                "+3",
+		"-12.5":             "-12.5",
+		"-.5":               "-.5",
+		"-1.2e-05":          "-1.2e-05",
+		"-4.7E+11":          "-4.7E+11",
+		"1.2D+1.6L":         "1.2D+1.6L",
+		"2.3.1-5 0.9D-1.0W": "2.3.1-5 0.9D-1.0W",
+		"kN·m":              "kN·m",
+		"":                  "",
+	} {
+		if got := csvCell(in); got != want {
+			t.Errorf("csvCell(%q) = %q, want %q", in, got, want)
+		}
+	}
+}
+
+// TestCSVCellsCannotBeFormulas: the envelopes and the combinations written
+// as CSV from the hostile model: names that look like formulas carry the
+// apostrophe, quoted as RFC 4180 requires where they hold a comma or a
+// double quote; numbers, negative ones too, are written as numbers.
+func TestCSVCellsCannotBeFormulas(t *testing.T) {
+	dir := t.TempDir()
+	envelopes, combinations := filepath.Join(dir, "env.csv"), filepath.Join(dir, "combos.csv")
+	if code, _, stderr := exec("run", "--quiet", "--csv", envelopes, hostile); code != 0 {
+		t.Fatalf("run: exit %d: %s", code, stderr)
+	}
+	if code, _, stderr := exec("combos", "--csv", combinations, hostile); code != 0 {
+		t.Fatalf("combos: exit %d: %s", code, stderr)
+	}
+	read := func(path string) ([]byte, [][]string) {
+		b, err := os.ReadFile(path)
+		if err != nil {
+			t.Fatal(err)
+		}
+		rows, err := csv.NewReader(bytes.NewReader(b)).ReadAll()
+		if err != nil {
+			t.Fatalf("%s: %v", path, err)
+		}
+		return b, rows
+	}
+
+	b, rows := read(envelopes)
+	if want := `"'=HYPERLINK(""http://x"",""y"")",0,N,`; !bytes.Contains(b, []byte("\n"+want)) {
+		t.Errorf("no row begins %s", want)
+	}
+	members := map[string]bool{}
+	for _, r := range rows[1:] {
+		members[r[0]] = true
+		for _, col := range []int{4, 6} { // max_by, min_by
+			if r[2] != "deflection" && r[col] != "'=cmd|' /C calc'!A0" {
+				t.Errorf("combination cell %q", r[col])
+			}
+			if r[2] == "deflection" && r[col] != "'@service\u0085" {
+				t.Errorf("service combination cell %q", r[col])
+			}
+		}
+		for _, col := range []int{1, 3, 5, 10, 11} { // x, max, min, max_loaded, min_loaded
+			if _, err := strconv.ParseFloat(r[col], 64); err != nil {
+				t.Errorf("column %d holds %q, not a number", col, r[col])
+			}
+		}
+	}
+	for _, name := range []string{`'=HYPERLINK("http://x","y")`, "beam \x1b[2J one", "-2", "col\u009bB", "col\u202eC"} {
+		if !members[name] {
+			t.Errorf("no rows for member %q (members: %v)", name, members)
+		}
+	}
+
+	_, rows = read(combinations)
+	want := [][]string{
+		{"combination", "rule", "use", "D\x1b]0;t\x07", "'=L"},
+		{"'=cmd|' /C calc'!A0", "model", "strength", "1.2", "1.6"},
+		{"'@service\u0085", "model", "service", "1", "1"},
+	}
+	if strings.Join(flatten(rows), "|") != strings.Join(flatten(want), "|") {
+		t.Errorf("combinations CSV\n got %q\nwant %q", rows, want)
+	}
+}
+
+func flatten(rows [][]string) []string {
+	var out []string
+	for _, r := range rows {
+		out = append(out, strings.Join(r, ","))
+	}
+	return out
+}
