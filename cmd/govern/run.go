@@ -263,5 +263,5 @@ func (a *analysis) writeHeading(w io.Writer) {
 		}
 		fmt.Fprintf(w, "Patterned cases %s: %s placement, %d pieces (%d per beam)\n", strings.Join(names, ", "), a.lay.Mode, len(a.lay.Pieces), a.lay.Segments)
 	}
-	fmt.Fprintf(w, "Units: force %s, length %s. N tension positive; M sagging positive (local -y face in tension); V = dM/dx.\n\n", a.job.Units.Force, a.job.Units.Length)
+	fmt.Fprintf(w, "Units: force %s, length %s. N tension positive; beams: x from the left end, M sagging positive (lower face in tension); columns: local -y face in tension; V = dM/dx.\n\n", a.job.Units.Force, a.job.Units.Length)
 }
