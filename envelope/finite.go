@@ -1,9 +1,14 @@
 package envelope
 
 import (
+	"errors"
 	"fmt"
 	"math"
 )
+
+// ErrNotFinite is wrapped by the error [Compute] returns for a result that
+// is not a finite number.
+var ErrNotFinite = errors.New("not a finite number")
 
 func finite(v float64) bool { return !math.IsNaN(v) && !math.IsInf(v, 0) }
 
@@ -33,7 +38,7 @@ func (e *evaluator) nonFinite(w *work, what func(q int) string) error {
 	for c, v := range w.ev {
 		for q := range e.nEff {
 			if !finite(v[q]) {
-				return fmt.Errorf("case %q: %s is %v, not a finite number: a load is too large", e.mo.Cases[c].Name, what(q), v[q])
+				return fmt.Errorf("case %q: %s is %v, %w: a load is too large", e.mo.Cases[c].Name, what(q), v[q], ErrNotFinite)
 			}
 		}
 	}
@@ -43,11 +48,11 @@ func (e *evaluator) nonFinite(w *work, what func(q int) string) error {
 				v := e.contrib(w, k, j, hi)
 				for q := range e.nEff {
 					if !finite(v[q]) {
-						return fmt.Errorf("combination %q: %s is %v, not a finite number: a factor or a load is too large", e.cs[k].Name, what(q), v[q])
+						return fmt.Errorf("combination %q: %s is %v, %w: a factor or a load is too large", e.cs[k].Name, what(q), v[q], ErrNotFinite)
 					}
 				}
 			}
 		}
 	}
-	return fmt.Errorf("%s is not a finite number", what(0))
+	return fmt.Errorf("%s is %w", what(0), ErrNotFinite)
 }

@@ -1,6 +1,7 @@
 package envelope
 
 import (
+	"errors"
 	"math"
 	"strings"
 	"testing"
@@ -201,7 +202,7 @@ func TestNonFiniteCombinationIsNamed(t *testing.T) {
 	}
 	_, err = Compute(sol, cs, Settings{Stations: 3}, nil)
 	want := `combination "huge": V of member "AB" at x = 0 is +Inf, not a finite number: a factor or a load is too large`
-	if err == nil || err.Error() != want {
+	if err == nil || err.Error() != want || !errors.Is(err, ErrNotFinite) {
 		t.Errorf("error %v, want %s", err, want)
 	}
 }

@@ -46,7 +46,8 @@ type analysis struct {
 	faces [][2]float64 // per member, its column faces at the start and the end (columnFaces)
 	runs  []run        // the spans and cantilevers, whose deflections are reported
 
-	runIndex []int // member → index into runs, -1 for none; made by runOf
+	runIndex []int    // member → index into runs, -1 for none; made by runOf
+	sags     []runSag // the deflection of each run; made by runDeflection
 }
 
 // analyse places the patterned loads, solves every load case of the job

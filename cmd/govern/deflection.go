@@ -23,22 +23,34 @@ type runSag struct {
 	down, up sagAt   // the smallest (most downward) and the largest deflection
 	big      sagAt   // the one of larger size
 	ratio    float64 // ratioLength / |big.v|; +Inf when it is zero
+	ok       bool    // false when the run has no deflections
 }
 
 // deflectionRoundOff is the fraction of a span's largest deflection at or
 // below which a deflection the other way is taken as round-off.
 const deflectionRoundOff = 1e-9
 
-// runDeflection returns the deflection of r, false when there are no
-// service combinations.
-func (a *analysis) runDeflection(r *run) (runSag, bool) {
+// runDeflection returns the deflection of a.runs[i], false when there are
+// no service combinations. Each run's is found once.
+func (a *analysis) runDeflection(i int) (runSag, bool) {
+	if a.sags == nil {
+		a.sags = make([]runSag, len(a.runs))
+		for k := range a.runs {
+			a.sags[k] = a.findRunDeflection(&a.runs[k])
+		}
+	}
+	return a.sags[i], a.sags[i].ok
+}
+
+// findRunDeflection finds the deflection of r over its stations.
+func (a *analysis) findRunDeflection(r *run) runSag {
 	mo := a.job.Model
 	s := runSag{down: sagAt{v: math.Inf(1), by: -1}, up: sagAt{v: math.Inf(-1), by: -1}, big: sagAt{by: -1}}
 	offset := 0.0
 	for _, m := range r.members {
 		em := a.shown(m)
 		if em.LineDeflection == nil {
-			return runSag{}, false
+			return runSag{}
 		}
 		for i, d := range em.LineDeflection {
 			x := offset + em.Stations[i].X
@@ -65,7 +77,8 @@ func (a *analysis) runDeflection(r *run) (runSag, bool) {
 		s.big = s.down
 	}
 	s.ratio = r.ratioLength() / math.Abs(s.big.v)
-	return s, true
+	s.ok = true
+	return s
 }
 
 // ratio formats a span/deflection ratio as "L/412".
@@ -120,7 +133,7 @@ func (a *analysis) deflectionTable(tb tables) error {
 	var rows [][]string
 	for i := range a.runs {
 		r := &a.runs[i]
-		s, ok := a.runDeflection(r)
+		s, ok := a.runDeflection(i)
 		if !ok {
 			continue
 		}
@@ -157,7 +170,7 @@ func (a *analysis) jsonSpans(j *jsonWriter, combo [][]byte) {
 	n := 0
 	for i := range a.runs {
 		r := &a.runs[i]
-		s, ok := a.runDeflection(r)
+		s, ok := a.runDeflection(i)
 		if !ok {
 			continue
 		}
@@ -188,19 +201,20 @@ func (a *analysis) jsonSpans(j *jsonWriter, combo [][]byte) {
 // member m (as shown) where the largest deflection of its span or
 // cantilever is, with its value and text; false when it is not on m.
 func (a *analysis) deflectionLabel(m int) (int, float64, string, bool) {
-	r := a.runOf(m)
-	if r == nil {
+	i := a.runOf(m)
+	if i < 0 {
 		return 0, 0, "", false
 	}
-	s, ok := a.runDeflection(r)
+	s, ok := a.runDeflection(i)
 	if !ok || s.big.by < 0 || s.big.v == 0 || s.big.member != m {
 		return 0, 0, "", false
 	}
 	return s.big.i, s.big.v, sig4(s.big.v) + " (" + ratio(s.ratio) + ")", true
 }
 
-// runOf returns the span or cantilever member m is part of, nil for none.
-func (a *analysis) runOf(m int) *run {
+// runOf returns the index in a.runs of the span or cantilever member m is
+// part of, -1 for none.
+func (a *analysis) runOf(m int) int {
 	if a.runIndex == nil {
 		a.runIndex = make([]int, len(a.job.Model.Members))
 		for i := range a.runIndex {
@@ -212,8 +226,5 @@ func (a *analysis) runOf(m int) *run {
 			}
 		}
 	}
-	if i := a.runIndex[m]; i >= 0 {
-		return &a.runs[i]
-	}
-	return nil
+	return a.runIndex[m]
 }

@@ -57,9 +57,13 @@ and envelopes.csv together into DIR.
 A section may give its depth: a beam framing into a column whose section
 has one gets stations at the faces of the column, and the tables show the
 moments there beside those at the centreline. Combinations marked
-service = true (and the EN 1990 serviceability sets) give the deflection
-of every member relative to its chord, with span/deflection for beams;
-the envelopes of forces are over the other, strength, combinations.
+service = true (and the EN 1990 serviceability sets) give deflections:
+of every span of beams from the chord between its displaced ends, of
+every cantilever from its displaced root, with span/deflection (over
+twice the length for a cantilever); the envelopes of forces are over the
+other, strength, combinations. The tables and the report show every beam
+from its left end, +M sagging, whichever way it was entered; the JSON
+and CSV keep each member's own axes.
 Files are written whole or not at all. A run that takes more than a
 second or two shows its progress on standard error when that is a
 terminal; --quiet prints nothing but errors. When JSON or CSV goes to standard

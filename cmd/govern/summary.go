@@ -180,7 +180,7 @@ func (a *analysis) summaryTables(tb tables) error {
 	if s := len(a.env.Service); s > 0 && s < len(a.env.Combinations) {
 		over = " over the strength combinations"
 	}
-	if err := tb.note(fmt.Sprintf("Governing design values%s (in %s; beams: x from the left end, +M sagging; columns: x from the foot)", over, a.job.Units.Length)); err != nil {
+	if err := tb.note(fmt.Sprintf("Governing design values%s (in %s; beams: x from the left end, +M sagging; columns: x from the start node)", over, a.job.Units.Length)); err != nil {
 		return err
 	}
 	for _, g := range a.groups() {
