@@ -114,14 +114,14 @@ func (a *analysis) supportRows(beams []int) [][]string {
 	for _, m := range beams {
 		em := a.shown(m)
 		// The faces as shown: from the left end of a beam drawn right to left.
-		f := [2]float64{-1, -1}
+		at := [2]float64{-1, -1}
 		if a.faces != nil {
-			f = a.faces[m]
+			at = a.faces[m]
 			if flipped(mo, m) {
-				f = [2]float64{-1, -1}
+				at = [2]float64{-1, -1}
 				for end, x := range a.faces[m] {
 					if x >= 0 {
-						f[1-end] = mo.Length(m) - x
+						at[1-end] = mo.Length(m) - x
 					}
 				}
 			}
@@ -134,7 +134,7 @@ func (a *analysis) supportRows(beams []int) [][]string {
 			}
 			vcl, _ := largestShear(cl)
 			row := []string{mo.Members[m].Name, mo.Nodes[node].Name, fixed(cl.M.Min), a.comboName(cl.M.MinBy)}
-			if f, ok := faceStation(em, f, end); ok {
+			if f, ok := faceStation(em, at, end); ok {
 				vf, vby := largestShear(f)
 				row = append(row, fixed(f.M.Min), fixed(f.X), a.comboName(f.M.MinBy), fixed(vcl), fixed(vf), a.comboName(vby))
 			} else {
