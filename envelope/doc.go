@@ -7,12 +7,18 @@
 // caller may add stations of its own on any member ([Settings.Extra]), such
 // as the faces of columns. Forces follow the sign conventions of package
 // frame: N positive in tension, M positive when the local −y face is in
-// tension, V = dM/dx; reactions are global.
+// tension, V = dM/dx; reactions are global. At the two end stations N and V
+// are the values inside the member (past a point load at its start, before
+// one at its end, [frame.Solution.StartLoadsTo]); at an interior station
+// where a point load acts, the value before it.
 //
 // Combinations marked as service combinations give the envelope of each
 // member's deflection relative to its chord (along local y, in the length
-// unit); the forces and reactions are enveloped over the other, strength,
-// combinations, or over all of them when every one is a service one.
+// unit), and for members on a [Line] of [Settings.Lines] (the span of a
+// beam built of several members, a cantilever) the deflection across that
+// line from its reference; the forces and reactions are enveloped over the
+// other, strength, combinations, or over all of them when every one is a
+// service one.
 //
 // Within a combination a permanent case always acts with its factor. A
 // variable case acts in full by default only where its factored effect makes
@@ -23,7 +29,13 @@
 //
 // Cases patterned by package patterns are placed piece by piece: every
 // extreme records the pieces loaded to produce it and the other forces
-// acting with it in that same loading (see docs/patterns.md).
+// acting with it in that same loading (see docs/patterns.md). A piece whose
+// effect is round-off (at most 1e-9 of the largest size of that effect in
+// the member, or at the support, over every case and piece) is not loaded.
+//
+// A result that is not a finite number (a factor so large that a sum
+// overflows) is an error naming the combination, or the load case whose own
+// value is not finite, and where; no envelope is returned.
 //
 // Combination indices in results refer to the slice given to [Compute];
 // -1 means no combination. Compute never mutates the solution, the

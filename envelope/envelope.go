@@ -53,10 +53,15 @@ type Member struct {
 	// frame.Solution.Deflection) over the service combinations; nil when
 	// there are none. MaxWith and MinWith are zero.
 	Deflection []Extreme
+	// LineDeflection is Deflection measured across the member's line of
+	// Settings.Lines from its reference (see [Line]); nil when the member
+	// has none or there are no service combinations.
+	LineDeflection []Extreme
 }
 
 // Reaction holds the envelopes of the reaction at one supported node.
-// Components the support does not restrain are zero.
+// Components the support does not restrain are zero, and so are their
+// entries in MaxWith and MinWith.
 type Reaction struct {
 	Node      int // index into the model's nodes
 	Fx, Fy, M Extreme
@@ -78,6 +83,11 @@ type Settings struct {
 	// Pieces of a case patterned "exact" or "exhaustive" are still placed
 	// where adverse: that is what patterning asks for.
 	AsWritten bool
+	// Lines, when not nil, gives for member m the line its deflections are
+	// also measured across (Member.LineDeflection), such as the span of a
+	// beam it is part of. Members past the end of Lines, or with the zero
+	// Line, get none.
+	Lines []Line
 	// AllSpans lists every loaded piece in MaxSpans and MinSpans, not only
 	// those with at least spanShare of the largest piece's effect.
 	AllSpans bool
@@ -112,6 +122,12 @@ const (
 	maxSpans  = 16
 )
 
+// roundOff is the fraction of the largest size of an effect in a member
+// (or of a reaction component at a node), over every load case and piece,
+// at or below which a pattern piece's effect counts as round-off: such a
+// piece is neither loaded for that effect nor listed or counted.
+const roundOff = 1e-9
+
 // Compute forms the envelopes of every member and support over the
 // combinations cs. sol must be the solution of lay.Model when lay is not
 // nil (pattern loading), or of the model itself when lay is nil.
@@ -132,6 +148,9 @@ func Compute(sol *frame.Solution, cs []combos.Combination, set Settings, lay *pa
 	mo := sol.Model()
 	if lay != nil && lay.Model != mo {
 		panic("envelope: solution is not of the layout's model")
+	}
+	if err := checkLines(mo, set.Lines); err != nil {
+		return nil, err
 	}
 	if len(set.Extra) > len(mo.Members) {
 		return nil, fmt.Errorf("envelope: extra stations for %d members; the model has %d", len(set.Extra), len(mo.Members))
@@ -163,6 +182,7 @@ func Compute(sol *frame.Solution, cs []combos.Combination, set Settings, lay *pa
 		env.Pieces = lay.Pieces
 	}
 	env.Members = make([]Member, len(mo.Members))
+	errs := make([]error, len(mo.Members))
 	// Members are independent: share them out among the processors.
 	var wg sync.WaitGroup
 	next := make(chan int, len(mo.Members))
@@ -176,21 +196,37 @@ func Compute(sol *frame.Solution, cs []combos.Combination, set Settings, lay *pa
 			defer wg.Done()
 			w := e.scratch()
 			for m := range next {
-				env.Members[m] = e.member(w, sol, m)
+				env.Members[m], errs[m] = e.member(w, sol, m)
 			}
 		}()
 	}
 	wg.Wait()
+	for _, err := range errs {
+		if err != nil {
+			return nil, err
+		}
+	}
 	w := e.scratch()
+	components := [3]string{"Fx", "Fy", "M"}
 	for v, nd := range mo.Nodes {
 		if nd.Support == frame.Free {
 			continue
 		}
+		w.noise = [3]float64{}
 		for c := range mo.Cases {
 			fx, fy, mz := sol.Reaction(c, v)
 			w.ev[c] = [3]float64{fx, fy, mz}
+			for j, r := range w.ev[c] {
+				w.noise[j] = math.Max(w.noise[j], math.Abs(r))
+			}
+		}
+		for j := range w.noise {
+			w.noise[j] *= roundOff
 		}
 		x := e.station(w)
+		if !allFinite(&x, 3) {
+			return nil, e.nonFinite(w, func(q int) string { return fmt.Sprintf("%s at node %q", components[q], nd.Name) })
+		}
 		env.Reactions = append(env.Reactions, Reaction{Node: v, Fx: x[0], Fy: x[1], M: x[2]})
 	}
 	return env, nil
@@ -200,6 +236,7 @@ func Compute(sol *frame.Solution, cs []combos.Combination, set Settings, lay *pa
 // envelope: forces over the strength combinations, or deflections over
 // the service ones.
 type evaluator struct {
+	mo        *frame.Model         // the model solved (the layout's, with patterns)
 	cs        []combos.Combination // the combinations enveloped
 	index     []int                // their indices in the combinations given to Compute
 	nEff      int                  // effects enveloped: 3 (N, V, M) or 1 (deflection)
@@ -214,7 +251,7 @@ type evaluator struct {
 }
 
 func newEvaluator(mo *frame.Model, cs []combos.Combination, idx []int, nEff int, set Settings, lay *patterns.Layout) *evaluator {
-	e := &evaluator{cs: pick(cs, idx), index: idx, nEff: nEff, set: set, lay: lay, nOrig: len(mo.Cases)}
+	e := &evaluator{mo: mo, cs: pick(cs, idx), index: idx, nEff: nEff, set: set, lay: lay, nOrig: len(mo.Cases)}
 	e.always = make([]bool, len(mo.Cases))
 	for c := range mo.Cases {
 		e.always[c] = set.AsWritten || !mo.Cases[c].Variable()
@@ -253,6 +290,9 @@ type work struct {
 	extra []bool             // whether each was asked for by Settings.Extra
 	at    []frame.Forces     // every column at every station of the member
 	defl  []float64          // every column's deflection at every station
+	line  []float64          // every column's deflection across the member's line
+	start []frame.Forces     // every column's point loads at the member's start
+	noise [3]float64         // effects of a piece at or below these are round-off
 	ev    [][3]float64       // effects of every column at the station
 	sum   [][3][2][3]float64 // exact: per patterned case, effect, sign: sum of same-signed units
 	big   [][3][2]float64    // exact: largest single |effect| in each of those sets
@@ -282,46 +322,125 @@ func (e *evaluator) scratch() *work {
 	return w
 }
 
-func (e *evaluator) member(w *work, sol *frame.Solution, m int) Member {
+// member envelopes the stations of member m.
+func (e *evaluator) member(w *work, sol *frame.Solution, m int) (Member, error) {
 	l := sol.Model().Length(m)
 	var extra []float64
 	if m < len(e.set.Extra) {
 		extra = e.set.Extra[m]
 	}
 	w.stations(l, e.set.Stations, extra)
-	ns := len(w.xs)
-	w.at = grow(w.at, ns*len(w.ev))
+	ns, nc := len(w.xs), len(w.ev)
+	w.at = grow(w.at, ns*nc)
 	if e.defl != nil {
-		w.defl = grow(w.defl, ns*len(w.ev))
+		w.defl = grow(w.defl, ns*nc)
 		sol.StationsAndDeflectionsTo(w.at, w.defl, m, w.xs)
 	} else {
 		sol.StationsTo(w.at, m, w.xs)
 	}
+	// The first station is at x = 0: take it inside the member, past any
+	// point load at its start.
+	w.start = grow(w.start, nc)
+	sol.StartLoadsTo(w.start, m)
+	for c, f := range w.start {
+		w.at[c*ns].N += f.N
+		w.at[c*ns].V += f.V
+	}
+	var line Line
+	if e.defl != nil && m < len(e.set.Lines) {
+		line = e.set.Lines[m]
+	}
+	if !line.none() {
+		w.line = grow(w.line, ns*nc)
+		lineDeflectionsTo(w.line, w.defl, sol, m, line, w.xs)
+	}
+	// Round-off: only pattern pieces are judged by it.
+	patterned := e.lay != nil && len(e.lay.Patterned) > 0
+	var noise [3]float64
+	var noiseDefl, noiseLine float64
+	if patterned {
+		for _, f := range w.at {
+			// Plain comparisons: math.Max's care for NaN and signed zeros
+			// costs a third of the envelope's time here.
+			if a := math.Abs(f.N); a > noise[0] {
+				noise[0] = a
+			}
+			if a := math.Abs(f.V); a > noise[1] {
+				noise[1] = a
+			}
+			if a := math.Abs(f.M); a > noise[2] {
+				noise[2] = a
+			}
+		}
+		if e.defl != nil {
+			noiseDefl = largest(w.defl)
+		}
+		if !line.none() {
+			noiseLine = largest(w.line)
+		}
+		for j := range noise {
+			noise[j] *= roundOff
+		}
+		noiseDefl *= roundOff
+		noiseLine *= roundOff
+	}
+	name := sol.Model().Members[m].Name
+	effects := [3]string{"N", "V", "M"}
 	st := make([]Station, ns)
-	var defl []Extreme
+	var defl, lineDefl []Extreme
 	if e.defl != nil {
 		defl = make([]Extreme, ns)
+	}
+	if !line.none() {
+		lineDefl = make([]Extreme, ns)
 	}
 	for i, x := range w.xs {
 		for c := range w.ev {
 			f := w.at[c*ns+i]
 			w.ev[c] = [3]float64{f.N, f.V, f.M}
 		}
+		w.noise = noise
 		ex := e.station(w)
+		if !allFinite(&ex, 3) {
+			return Member{}, e.nonFinite(w, func(q int) string { return fmt.Sprintf("%s of member %q at x = %g", effects[q], name, x) })
+		}
 		st[i] = Station{X: x, Extra: w.extra[i], N: ex[0], V: ex[1], M: ex[2]}
-		if e.defl != nil {
-			for c := range w.ev {
-				w.ev[c] = [3]float64{w.defl[c*ns+i], 0, 0}
+		for _, d := range [2]struct {
+			vals  []float64
+			noise float64
+			dst   []Extreme
+			what  string
+		}{{w.defl, noiseDefl, defl, ""}, {w.line, noiseLine, lineDefl, " across its line"}} {
+			if d.dst == nil {
+				continue
 			}
-			d := e.defl.station(w)[0]
-			d.MaxWith, d.MinWith = [3]float64{}, [3]float64{}
-			defl[i] = d
+			for c := range w.ev {
+				w.ev[c] = [3]float64{d.vals[c*ns+i], 0, 0}
+			}
+			w.noise = [3]float64{d.noise}
+			ex := e.defl.station(w)
+			if !allFinite(&ex, 1) {
+				return Member{}, e.defl.nonFinite(w, func(int) string { return fmt.Sprintf("the deflection of member %q at x = %g%s", name, x, d.what) })
+			}
+			ex[0].MaxWith, ex[0].MinWith = [3]float64{}, [3]float64{}
+			d.dst[i] = ex[0]
 		}
 	}
 	if e.set.Progress != nil {
 		e.set.Progress.Add(int64(ns))
 	}
-	return Member{Member: m, Stations: st, Deflection: defl}
+	return Member{Member: m, Stations: st, Deflection: defl, LineDeflection: lineDefl}, nil
+}
+
+// largest returns the largest magnitude in v.
+func largest(v []float64) float64 {
+	a := 0.0
+	for _, x := range v {
+		if b := math.Abs(x); b > a {
+			a = b
+		}
+	}
+	return a
 }
 
 // station forms the three extremes from the column effects in w.ev.
@@ -376,7 +495,7 @@ func (e *evaluator) aggregate(w *work) {
 			for j := range top {
 				top[j][0], top[j][1] = top[j][0][:0], top[j][1][:0]
 			}
-			// Only the positive sums (and the rare exact zeros) are
+			// Only the positive sums (and those of round-off) are
 			// accumulated; the negative ones are the total less them.
 			var tot [3]float64
 			var zero [3][3]float64
@@ -389,12 +508,12 @@ func (e *evaluator) aggregate(w *work) {
 					x := v[j]
 					s, a := 0, x
 					switch {
-					case x > 0:
+					case x > w.noise[j]:
 						t := &sum[j][0]
 						t[0] += v[0]
 						t[1] += v[1]
 						t[2] += v[2]
-					case x < 0:
+					case x < -w.noise[j]:
 						s, a = 1, -x
 					default:
 						z := &zero[j]
@@ -477,7 +596,7 @@ func (e *evaluator) contrib(w *work, k, j int, hi bool) [3]float64 {
 		}
 	}
 	if len(ex) > 0 {
-		best := exhaustive(ex, j, hi)
+		best := exhaustive(ex, j, hi, w.noise[j])
 		for i, t := range ex {
 			if best&(1<<i) != 0 {
 				tot[0], tot[1], tot[2] = tot[0]+t.f*t.v[0], tot[1]+t.f*t.v[1], tot[2]+t.f*t.v[2]
@@ -496,6 +615,9 @@ func (e *evaluator) codeUnit(w *work, p, j int, f float64, want bool) ([3]float6
 		i = w.best[p][j][0]
 	}
 	v := w.ev[e.first[p]+i]
+	if math.Abs(v[j]) <= w.noise[j] {
+		return v, false // round-off: not loaded
+	}
 	hi := want == (f >= 0)
 	return v, e.set.AsWritten || (hi && f*v[j] > 0) || (!hi && f*v[j] < 0)
 }
@@ -694,7 +816,7 @@ func (e *evaluator) exhaustiveSpans(w *work, k, j int, hi bool, p int, share flo
 	if from < 0 {
 		return 0
 	}
-	best := exhaustive(ex, j, hi)
+	best := exhaustive(ex, j, hi, w.noise[j])
 	big := 0.0
 	for i, t := range ex {
 		if best&(1<<i) != 0 {
@@ -724,8 +846,19 @@ type exTerm struct {
 // exhaustive tries every on/off subset of the terms, in Gray-code order so
 // that each step switches one piece, and returns the subset (as a bit mask)
 // giving the largest (hi) or smallest sum of effect j. Ties keep the
-// earlier subset in that order; the empty subset comes first.
-func exhaustive(ts []exTerm, j int, hi bool) uint32 {
+// earlier subset in that order; the empty subset comes first. A term whose
+// unfactored effect is at most noise (round-off) is never in the subset.
+func exhaustive(ts []exTerm, j int, hi bool, noise float64) uint32 {
+	best := bestSubset(ts, j, hi)
+	for i, t := range ts {
+		if math.Abs(t.v[j]) <= noise {
+			best &^= 1 << i
+		}
+	}
+	return best
+}
+
+func bestSubset(ts []exTerm, j int, hi bool) uint32 {
 	n := len(ts)
 	var sum, bestV float64
 	var mask, best uint32

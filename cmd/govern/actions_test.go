@@ -13,8 +13,8 @@ import (
 	"govern/envelope"
 )
 
-// lineOf returns the line of the first occurrence of s in src.
-func lineOf(t *testing.T, src, s string) int {
+// sourceLine returns the line of the first occurrence of s in src.
+func sourceLine(t *testing.T, src, s string) int {
 	t.Helper()
 	i := strings.Index(src, s)
 	if i < 0 {
@@ -413,7 +413,7 @@ func TestModelCombinationOfTwoAlternatives(t *testing.T) {
 		t.Fatal(err)
 	}
 	s := strings.Replace(string(src), "[combinations]", "[[combination]]\nname = \"both\"\nfactors = { D = 1.2, WL = 1.0, WR = 1.0 }\n\n[combinations]", 1)
-	line := lineOf(t, s, "factors = { D = 1.2, WL")
+	line := sourceLine(t, s, "factors = { D = 1.2, WL")
 	for _, tc := range []struct {
 		name, edit, want string
 	}{

@@ -39,10 +39,15 @@ func loadModel(path string) (*modelfile.Job, error) {
 
 // analysis is a solved job with its envelopes.
 type analysis struct {
-	job *modelfile.Job
-	lay *patterns.Layout
-	sol *frame.Solution
-	env *envelope.Envelope
+	job   *modelfile.Job
+	lay   *patterns.Layout
+	sol   *frame.Solution
+	env   *envelope.Envelope
+	faces [][2]float64 // per member, its column faces at the start and the end (columnFaces)
+	runs  []run        // the spans and cantilevers, whose deflections are reported
+
+	runIndex []int    // member → index into runs, -1 for none; made by runOf
+	sags     []runSag // the deflection of each run; made by runDeflection
 }
 
 // analyse places the patterned loads, solves every load case of the job
@@ -64,7 +69,10 @@ func analyseWith(job *modelfile.Job, mode patterns.Mode, p *progress) (*analysis
 		return nil, err
 	}
 	set := job.Settings
-	set.Extra = faceStations(job.Model)
+	faces := columnFaces(job.Model)
+	set.Extra = faceStations(faces)
+	rs := runs(job.Model)
+	set.Lines = runLines(job.Model, rs)
 	total := len(job.Model.Members) * set.Stations
 	for _, xs := range set.Extra {
 		total += len(xs)
@@ -74,5 +82,5 @@ func analyseWith(job *modelfile.Job, mode patterns.Mode, p *progress) (*analysis
 	if err != nil {
 		return nil, err
 	}
-	return &analysis{job: job, lay: lay, sol: sol, env: env}, nil
+	return &analysis{job: job, lay: lay, sol: sol, env: env, faces: faces, runs: rs}, nil
 }

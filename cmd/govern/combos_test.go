@@ -82,7 +82,7 @@ func TestCombosRuleFileBesideTheModel(t *testing.T) {
 	// Issue 12 item 10c: run refuses the cases no combination uses, each
 	// named at its line, and writes nothing; check still lists them.
 	code, out, stderr = exec("run", model)
-	lr, w := lineOf(t, src, "name = \"Lr\"")-1, lineOf(t, src, "name = \"W\"")-1
+	lr, w := sourceLine(t, src, "name = \"Lr\"")-1, sourceLine(t, src, "name = \"W\"")-1
 	for _, want := range []string{
 		fmt.Sprintf("govern run: m.toml:%d: case \"Lr\": no load combination uses this case, so it would be left out of every envelope; put it in a combination, or write unused = \"allow\" in [combinations] to analyse the model without it\n", lr),
 		fmt.Sprintf("govern run: m.toml:%d: case \"W\": no load combination uses this case", w),

@@ -56,7 +56,8 @@ func comparePatterns(w io.Writer, job *modelfile.Job) error {
 	fmt.Fprintf(w, "How far the code arrangements (ACI 318-19 6.4, EN 1992-1-1 5.1.3) fall short of exact placement\n")
 	fmt.Fprintf(w, "at each member's worst station. Shortfall is in percent of the member's largest |value| of that\n")
 	fmt.Fprintf(w, "effect (M and V for beams; N, V and M for columns); + marks a piece loaded by exact placement\n")
-	fmt.Fprintf(w, "only, - one loaded by the code arrangement only.\n\n")
+	fmt.Fprintf(w, "only, - one loaded by the code arrangement only. x from the left end of a beam (+M sagging),\n")
+	fmt.Fprintf(w, "from the start node of a column.\n\n")
 	t := newTable(w, "member", "effect", "extreme", "at x ("+u.Length+")", "exact", "code", "shortfall (%)", "pieces that make the difference")
 	var out [][]string
 	for _, r := range rows {
@@ -85,7 +86,14 @@ func comparePatterns(w io.Writer, job *modelfile.Job) error {
 // over M and V for a beam, over N, V and M for any other member.
 func worstShortfall(ex, code *analysis, m int) shortfall {
 	best := shortfall{member: m}
-	em, cm := ex.env.Members[m], code.env.Members[m]
+	// As the tables show it: a beam from its left end, +M sagging.
+	em, cm := ex.shown(m), code.shown(m)
+	local := func(x float64) float64 { // x along the member as entered
+		if flipped(ex.job.Model, m) {
+			return ex.job.Model.Length(m) - x
+		}
+		return x
+	}
 	for j := range 3 {
 		if j == 0 && ex.job.Model.IsBeam(m) {
 			continue // a beam's axial force is rarely what governs it
@@ -112,7 +120,7 @@ func worstShortfall(ex, code *analysis, m int) shortfall {
 				pct := 100 * side.gap / peak
 				if pct > best.percent+1e-9 {
 					best = shortfall{member: m, effect: j, max: side.max, x: st.X, exact: side.exact, code: side.code, percent: pct,
-						pieces: difference(ex, m, st.X, j, side.es, side.cs)}
+						pieces: difference(ex, m, local(st.X), j, side.es, side.cs)}
 				}
 			}
 		}

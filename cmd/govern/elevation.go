@@ -58,6 +58,16 @@ func (d *drawing) on(m int, x, o float64) (float64, float64) {
 	return d.at(a.X+x*c-o*s, a.Y+x*s+o*c)
 }
 
+// onShown is on for a distance x along member m as shown (from the left
+// end of a beam or rafter, see shown.go) and o across it, towards the
+// shown member's +y: up for a beam.
+func (d *drawing) onShown(m int, x, o float64) (float64, float64) {
+	if flipped(d.mo, m) {
+		return d.on(m, d.mo.Length(m)-x, -o)
+	}
+	return d.on(m, x, o)
+}
+
 // open writes the start of an SVG picture of the frame.
 func (d *drawing) open(h *htmlOut, label string) {
 	h.printf(`<svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 %s %s" role="img" aria-label="%s">`+"\n",
@@ -134,10 +144,11 @@ func (d *drawing) elevation(h *htmlOut) {
 	h.raw("</g>\n")
 }
 
-// diagram is one kind of envelope drawn along the members.
+// diagram is one kind of envelope drawn along the members, as they are
+// shown (shown.go).
 type diagram struct {
 	get  func(em envelope.Member, i int) envelope.Extreme
-	side float64 // +1: positive values drawn towards local +y; −1: towards local −y
+	side float64 // +1: positive values drawn towards the shown member's +y (up for a beam); −1: the other way
 	// labels says where values are written: the ends, the largest
 	// interior maximum, one label at mid-length, the largest deflection.
 	ends, span, middle, sag bool
@@ -152,7 +163,7 @@ func (d *drawing) envelopes(h *htmlOut, a *analysis, members []int, dg diagram) 
 	mo := d.mo
 	big := 0.0
 	for _, m := range members {
-		em := a.env.Members[m]
+		em := a.shown(m)
 		for i := range em.Stations {
 			e := dg.get(em, i)
 			big = math.Max(big, math.Max(math.Abs(e.Max), math.Abs(e.Min)))
@@ -180,13 +191,13 @@ func (d *drawing) envelopes(h *htmlOut, a *analysis, members []int, dg diagram) 
 		}
 	}
 	for _, m := range members {
-		em := a.env.Members[m]
+		em := a.shown(m)
 		l := mo.Length(m)
 		hi, lo = hi[:0], lo[:0]
 		for i, st := range em.Stations {
 			e := dg.get(em, i)
-			x1, y1 := d.on(m, st.X, dg.side*e.Max*scale)
-			x2, y2 := d.on(m, st.X, dg.side*e.Min*scale)
+			x1, y1 := d.onShown(m, st.X, dg.side*e.Max*scale)
+			x2, y2 := d.onShown(m, st.X, dg.side*e.Min*scale)
 			hi = append(hi, x1, y1)
 			lo = append(lo, x2, y2)
 		}
@@ -217,8 +228,8 @@ func (d *drawing) envelopes(h *htmlOut, a *analysis, members []int, dg diagram) 
 			if o < 0 || (o == 0 && dg.side < 0) {
 				gap = -gap
 			}
-			px, py := d.on(m, x, o+gap)
-			qx, qy := d.on(m, x, o+2*gap)
+			px, py := d.onShown(m, x, o+gap)
+			qx, qy := d.onShown(m, x, o+2*gap)
 			nx, ny := qx-px, qy-py
 			anchor := "middle"
 			switch {
@@ -274,10 +285,9 @@ func (d *drawing) envelopes(h *htmlOut, a *analysis, members []int, dg diagram) 
 				label(i, larger(e), dg.format(e.Min)+" / "+dg.format(e.Max))
 			}
 		}
-		if dg.sag && mo.IsBeam(m) {
-			if s, ok := largestDeflection(em, l); ok && significant(s.v) {
-				i := slices.IndexFunc(em.Stations, func(st envelope.Station) bool { return st.X == s.x })
-				label(i, s.v, dg.format(s.v)+" ("+ratio(s.ratio)+")")
+		if dg.sag {
+			if i, v, text, ok := a.deflectionLabel(m); ok && significant(v) {
+				label(i, v, text)
 			}
 		}
 		h.raw("</g>\n")

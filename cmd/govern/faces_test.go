@@ -33,7 +33,7 @@ func TestFaceStations(t *testing.T) {
 			{Name: "A2-A2'", Start: 2, End: 7, Section: 4}, // shorter than the face
 		},
 	}
-	got := faceStations(mo)
+	got := faceStations(columnFaces(mo))
 	want := [][]float64{nil, nil, nil, nil, {0.15, 6 - 0.25}, {0.25}, nil}
 	if len(got) != len(want) {
 		t.Fatalf("%d members, want %d", len(got), len(want))
@@ -46,7 +46,7 @@ func TestFaceStations(t *testing.T) {
 	for i := range sec {
 		sec[i].Depth = 0
 	}
-	if got := faceStations(mo); got != nil {
+	if got := faceStations(columnFaces(mo)); got != nil {
 		t.Errorf("without depths: %v", got)
 	}
 }
@@ -174,5 +174,33 @@ func TestFaceMomentsByHand(t *testing.T) {
 				t.Errorf("column %s has a face station", m.Name)
 			}
 		}
+	}
+}
+
+// A beam shorter than the depth of the column at one end: its one face
+// station belongs to that end, however far along the beam it falls.
+func TestFaceOfAShortBeamIsAtItsOwnEnd(t *testing.T) {
+	// A 0.3 m stub from the top of a column 0.4 m deep to a pin: the face
+	// is 0.2 m from the column's node (half the depth), past midlength.
+	src := tsection("C", 2e8, 0.04, 1e-3, 0.4) + tsection("B", 2e8, 0.01, 1e-4, 0) +
+		tnode("P0", 0, 0, "fixed") + tnode("P", 0, 3, "") + tnode("Q", 0.3, 3, "pinned") +
+		tmember("P0", "P", "C") + tmember("P", "Q", "B") + tdead(tudl("P-Q", 10))
+	a := analyseModel(t, src)
+	sup := summary(t, a).one(t, "Beams at level 1 (y = 3.00 m): at the supports")
+	if got := sup.cell(t, "face at x", 0, "P-Q", "P"); got != "0.20" {
+		t.Errorf("end P: face at x = %s, want 0.20", got)
+	}
+	if got := sup.cell(t, "face at x", 0, "P-Q", "Q"); got != "-" {
+		t.Errorf("end Q has no column, but its face is at x = %s", got)
+	}
+	// The face value is the station's: M at x = 0.2 in the station envelope.
+	var face string
+	for _, st := range a.env.Members[1].Stations {
+		if st.Extra {
+			face = fixed(st.M.Min)
+		}
+	}
+	if got := sup.cell(t, "M min, face", 0, "P-Q", "P"); got != face || face == "" {
+		t.Errorf("end P: face M min %s, want the station's %s", got, face)
 	}
 }

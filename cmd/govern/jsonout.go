@@ -3,6 +3,7 @@ package main
 import (
 	"bufio"
 	"encoding/json"
+	"fmt"
 	"io"
 	"math"
 	"strconv"
@@ -12,9 +13,12 @@ import (
 )
 
 // jsonFormat names the layout of the JSON output; it changes when the layout does.
-const jsonFormat = "govern.envelopes/1"
+const jsonFormat = "govern.envelopes/2"
 
-// writeJSON writes the envelopes in the govern.envelopes/1 layout (see
+// jsonSigns says, in the JSON itself, what its signs are: the members' own.
+const jsonSigns = "member-local: x from each member's start node; N positive in tension; M positive with the member's local -y face in tension; V = dM/dx; deflection along the member's local y, from its chord. Spans: deflection positive up, x from the left end. Reactions: global."
+
+// writeJSON writes the envelopes in the govern.envelopes/2 layout (see
 // docs/output.md). It streams: a large frame's envelopes are written as
 // they are formatted, one station to a line, without building the document
 // in memory. Names are encoded once and reused.
@@ -32,6 +36,7 @@ func (a *analysis) writeJSON(w io.Writer, bal []caseBalance) error {
 	j.raw("{\n \"format\": ").str(jsonFormat)
 	j.raw(",\n \"title\": ").str(a.job.Title)
 	j.raw(",\n \"units\": {\"force\": ").str(a.job.Units.Force).raw(", \"length\": ").str(a.job.Units.Length).raw("}")
+	j.raw(",\n \"signs\": ").str(jsonSigns)
 	j.raw(",\n \"settings\": {\"stations\": ").int(a.env.Settings.Stations)
 	j.raw(", \"variable_loads\": ").str(variableLoads(a.env.Settings.AsWritten))
 	j.raw(", \"patterns\": ").str(a.lay.Mode.String()).raw(", \"segments\": ").int(a.lay.Segments)
@@ -76,10 +81,6 @@ func (a *analysis) writeJSON(w io.Writer, bal []caseBalance) error {
 		m := mo.Members[em.Member]
 		j.sep(i, ",").raw("\n  {\"name\": ").str(m.Name).raw(", \"start\": ").str(mo.Nodes[m.Start].Name)
 		j.raw(", \"end\": ").str(mo.Nodes[m.End].Name).raw(", \"length\": ").num(mo.Length(em.Member))
-		if d, ok := a.spanDeflection(em.Member); ok {
-			j.raw(", \"span_deflection\": {\"deflection\": ").num(d.v).raw(", \"x\": ").num(d.x)
-			j.raw(", \"by\": ").bytes(nameOf(combo, d.by)).raw(", \"ratio\": ").num(d.ratio).raw("}")
-		}
 		j.raw(", \"stations\": [")
 		for k, st := range em.Stations {
 			j.sep(k, ",").raw("\n   {\"x\": ").num(st.X).raw(", ")
@@ -99,14 +100,27 @@ func (a *analysis) writeJSON(w io.Writer, bal []caseBalance) error {
 		}
 		j.raw("\n  ]}")
 	}
-	j.raw("\n ],\n \"reactions\": [")
+	j.raw("\n ]")
+	if len(a.env.Service) > 0 {
+		a.jsonSpans(j, combo)
+	}
+	j.raw(",\n \"reactions\": [")
 	for i, r := range a.env.Reactions {
-		j.sep(i, ",").raw("\n  {\"node\": ").str(mo.Nodes[r.Node].Name).raw(", ")
-		ext("Fx", r.Fx, reactionForces)
-		j.raw(", ")
-		ext("Fy", r.Fy, reactionForces)
-		j.raw(", ")
-		ext("M", r.M, reactionForces)
+		// Only the components the support restrains, in "with" too.
+		sup := mo.Nodes[r.Node].Support
+		var keys [3]string
+		for d, k := range reactionForces {
+			if sup.Restrained(d) {
+				keys[d] = k
+			}
+		}
+		j.sep(i, ",").raw("\n  {\"node\": ").str(mo.Nodes[r.Node].Name)
+		for d, e := range [3]envelope.Extreme{r.Fx, r.Fy, r.M} {
+			if keys[d] != "" {
+				j.raw(", ")
+				ext(keys[d], e, keys)
+			}
+		}
 		j.raw("}")
 	}
 	j.raw("\n ],\n \"statics\": [")
@@ -187,11 +201,16 @@ func (j *jsonWriter) sep(i int, s string) *jsonWriter {
 	return j
 }
 
-// num writes a number to outputDigits significant digits (see appendNum);
-// null if not finite.
+// num writes a number to outputDigits significant digits (see appendNum).
+// A value that is not a finite number is never written: the analysis
+// refuses such results (envelope.Compute), and one reaching here is an
+// error, so that no file holds a null in its place.
 func (j *jsonWriter) num(v float64) *jsonWriter {
 	if math.IsNaN(v) || math.IsInf(v, 0) {
-		return j.raw("null")
+		if j.err == nil {
+			j.err = fmt.Errorf("a value to write is %v, not a finite number", v)
+		}
+		return j
 	}
 	j.buf = appendNum(j.buf[:0], v)
 	return j.bytes(j.buf)
@@ -205,10 +224,17 @@ func (j *jsonWriter) list(names [][]byte, idx []int) *jsonWriter {
 	return j.raw("]")
 }
 
+// forces writes v as an object with the given keys; an empty key leaves
+// its value out.
 func (j *jsonWriter) forces(keys [3]string, v [3]float64) *jsonWriter {
 	j.raw("{")
+	n := 0
 	for i, k := range keys {
-		j.sep(i, ", ").raw("\"").raw(k).raw("\": ").num(v[i])
+		if k == "" {
+			continue
+		}
+		j.sep(n, ", ").raw("\"").raw(k).raw("\": ").num(v[i])
+		n++
 	}
 	return j.raw("}")
 }

@@ -126,7 +126,7 @@ func (c *checkedWriter) file() *os.File { return fileOf(c.w) }
 // the status 1 with a message (when stderr can still take it).
 func govern(args []string, stdout, stderr io.Writer) (status int) {
 	out, errs := &checkedWriter{w: stdout}, &checkedWriter{w: stderr}
-	status = run(args, out, errs)
+	status = runChecked(args, out, errs)
 	if status == 0 && out.failed() != nil {
 		who := "govern"
 		if len(args) > 0 && lookup(args[0]) != nil {
@@ -145,8 +145,8 @@ func stdoutFailed(stderr io.Writer, who string, err error) {
 	fmt.Fprintf(stderr, "%s: cannot write to standard output: %s\n", who, escape(err.Error()))
 }
 
-// run is govern with checked streams.
-func run(args []string, stdout, stderr *checkedWriter) (status int) {
+// runChecked is govern with checked streams.
+func runChecked(args []string, stdout, stderr *checkedWriter) (status int) {
 	who := "govern" // the prefix of messages: the command, once known
 	defer func() {
 		if p := recover(); p != nil {

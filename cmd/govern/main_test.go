@@ -282,7 +282,7 @@ func TestRunJSON(t *testing.T) {
 	if err := json.Unmarshal([]byte(out), &doc); err != nil {
 		t.Fatalf("output is not JSON: %v", err)
 	}
-	if doc.Format != "govern.envelopes/1" || doc.Settings.Stations != 11 || doc.Settings.VariableLoads != "adverse" {
+	if doc.Format != "govern.envelopes/2" || doc.Settings.Stations != 11 || doc.Settings.VariableLoads != "adverse" {
 		t.Errorf("header = %q %+v", doc.Format, doc.Settings)
 	}
 	if len(doc.Members) != 35 || len(doc.Reactions) != 4 || len(doc.Combinations) != 9 {

@@ -109,7 +109,7 @@ func (a *analysis) writeReport(w io.Writer, bal []caseBalance) error {
 	if s := len(a.env.Service); s > 0 && s < len(a.env.Combinations) {
 		over = " over the strength combinations"
 	}
-	h.printf("<p>Governing design values%s, then the envelope at every station of every member. x is measured from the member's start node in %s; M is positive sagging (local −y face in tension), N positive in tension, V = dM/dx. Combinations are numbered as in <a href=\"#combinations\">the list</a>; pieces of patterned cases loaded for an extreme are listed under its combination (the first three, then how many more). Rows marked face are at the face of a column.</p>\n",
+	h.printf("<p>Governing design values%s, then the envelope at every station of every member. x is measured in %s from the left end of a beam or rafter, whichever way it was entered, and from the start node of a column; M is positive sagging for a beam or rafter (lower face in tension) and for a column positive with its local −y face in tension (see the conventions); N positive in tension, V = dM/dx. δ is the deflection of a beam or rafter from the line of its span or cantilever, + up (as in the table of deflections), and of a column from its chord. Combinations are numbered as in <a href=\"#combinations\">the list</a>; pieces of patterned cases loaded for an extreme are listed under its combination (the first three, then how many more). Rows marked face are at the face of a column.</p>\n",
 		esc(over), esc(a.job.Units.Length))
 	tb := htmlTables{h: h, heading: "h4"}
 	for _, g := range groups {
@@ -282,7 +282,7 @@ func (a *analysis) reportFigures(h *htmlOut) error {
 		fmt.Sprintf("Bending moment M (%s) over %s, along every member, drawn on the tension side: sagging below a beam. Values: the larger in size at each end, and the largest sagging moment where it peaks within a member.", esc(u.Moment()), over),
 		all, diagram{get: forces(2), side: -1, ends: true, span: true, format: short})
 	figure("shear", "Shear envelope", "shear envelope",
-		fmt.Sprintf("Shear force V (%s) over %s, positive drawn on the local +y side (above a beam drawn left to right, left of a column drawn upwards). Values: the larger in size at each end.", esc(u.Force), over),
+		fmt.Sprintf("Shear force V (%s) over %s, positive drawn above a beam and on the local +y side of a column (left of a column drawn upwards). Values: the larger in size at each end.", esc(u.Force), over),
 		all, diagram{get: forces(1), side: 1, ends: true, format: short})
 	if len(cols) > 0 {
 		figure("axial", "Axial force envelope of the columns", "axial force envelope",
@@ -291,8 +291,8 @@ func (a *analysis) reportFigures(h *htmlOut) error {
 	}
 	if len(a.env.Service) > 0 {
 		figure("deflection", "Deflection envelope", "deflection envelope",
-			fmt.Sprintf("Deflection relative to each member's chord (%s) over the service combinations, drawn as it moves, exaggerated. Value: the largest of each beam, with span/deflection.", esc(u.Length)),
-			all, diagram{get: func(em envelope.Member, i int) envelope.Extreme { return em.Deflection[i] }, side: 1, sag: true, format: sig4})
+			fmt.Sprintf("Deflection (%s) over the service combinations, drawn as it moves, exaggerated: of beams and rafters from the chord between the displaced ends of their span, or for a cantilever from its displaced root; of columns from their own chord. Value: the largest of each span and cantilever, with span/deflection (twice the length for a cantilever).", esc(u.Length)),
+			all, diagram{get: shownDeflection, side: 1, sag: true, format: sig4})
 		// The table below the figure is the terminal's.
 		return a.deflectionTable(htmlTables{h: h, heading: "h3"})
 	}
@@ -330,10 +330,11 @@ func (a *analysis) stationTable(h *htmlOut, g memberGroup) {
 	}
 	cell := func(v float64, f func(float64) string) { h.printf("<td class=\"n\">%s</td>", f(v)) }
 	for _, m := range g.members {
-		em := a.env.Members[m]
+		em := a.shown(m)
 		mem := mo.Members[m]
+		from, to := shownEnds(mo, m)
 		h.printf("<tbody>\n<tr class=\"mh\"><th colspan=\"%d\">%s: %s to %s, %s, length %s %s</th></tr>\n", cols,
-			esc(mem.Name), esc(mo.Nodes[mem.Start].Name), esc(mo.Nodes[mem.End].Name), esc(mo.Sections[mem.Section].Name), fixed(mo.Length(m)), esc(u.Length))
+			esc(mem.Name), esc(mo.Nodes[from].Name), esc(mo.Nodes[to].Name), esc(mo.Sections[mem.Section].Name), fixed(mo.Length(m)), esc(u.Length))
 		for i, st := range em.Stations {
 			if st.Extra {
 				h.raw("<tr class=\"face\">")
@@ -353,7 +354,7 @@ func (a *analysis) stationTable(h *htmlOut, g memberGroup) {
 				by(e.MinBy, e.MinSpans, e.MinLoaded)
 			}
 			if defl {
-				e := em.Deflection[i]
+				e := shownDeflection(em, i)
 				cell(e.Max, sig4)
 				by(e.MaxBy, e.MaxSpans, e.MaxLoaded)
 				cell(e.Min, sig4)
@@ -364,6 +365,16 @@ func (a *analysis) stationTable(h *htmlOut, g memberGroup) {
 		h.raw("</tbody>\n")
 	}
 	h.raw("</table>\n")
+}
+
+// shownDeflection is the deflection the report shows at station i of a
+// member as shown: across the line of its span or cantilever for a beam or
+// rafter, from its own chord for a column.
+func shownDeflection(em envelope.Member, i int) envelope.Extreme {
+	if em.LineDeflection != nil {
+		return em.LineDeflection[i]
+	}
+	return em.Deflection[i]
 }
 
 // plain formats an input value as it would be typed, without an exponent

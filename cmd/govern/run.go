@@ -57,9 +57,13 @@ and envelopes.csv together into DIR.
 A section may give its depth: a beam framing into a column whose section
 has one gets stations at the faces of the column, and the tables show the
 moments there beside those at the centreline. Combinations marked
-service = true (and the EN 1990 serviceability sets) give the deflection
-of every member relative to its chord, with span/deflection for beams;
-the envelopes of forces are over the other, strength, combinations.
+service = true (and the EN 1990 serviceability sets) give deflections:
+of every span of beams from the chord between its displaced ends, of
+every cantilever from its displaced root, with span/deflection (over
+twice the length for a cantilever); the envelopes of forces are over the
+other, strength, combinations. The tables and the report show every beam
+from its left end, +M sagging, whichever way it was entered; the JSON
+and CSV keep each member's own axes.
 Files are written whole or not at all. A run that takes more than a
 second or two shows its progress on standard error when that is a
 terminal; --quiet prints nothing but errors. When JSON or CSV goes to standard
@@ -271,5 +275,5 @@ func (a *analysis) writeHeading(w io.Writer) {
 		}
 		fmt.Fprintf(w, "Patterned cases %s: %s placement, %d pieces (%d per beam)\n", strings.Join(names, ", "), a.lay.Mode, len(a.lay.Pieces), a.lay.Segments)
 	}
-	fmt.Fprintf(w, "Units: force %s, length %s. N tension positive; M sagging positive (local -y face in tension); V = dM/dx.\n\n", escape(a.job.Units.Force), escape(a.job.Units.Length))
+	fmt.Fprintf(w, "Units: force %s, length %s. N tension positive; beams: x from the left end, M sagging positive (lower face in tension); columns: local -y face in tension; V = dM/dx.\n\n", escape(a.job.Units.Force), escape(a.job.Units.Length))
 }

@@ -7,7 +7,6 @@ import (
 	"sort"
 	"strings"
 
-	"govern/cmd/govern/modelfile"
 	"govern/envelope"
 	"govern/patterns"
 )
@@ -112,7 +111,8 @@ func (a *analysis) groups() []memberGroup {
 	u := a.job.Units
 	spans := patterns.Spans(mo)
 	levels := map[int]*memberGroup{}
-	lines := map[float64]*memberGroup{}
+	lines := columnLines(a.job)
+	byLine := make([][]int, len(lines))
 	other := &memberGroup{kind: otherGroup, title: "Other members", id: "other"}
 	for m := range mo.Members {
 		switch {
@@ -124,11 +124,8 @@ func (a *analysis) groups() []memberGroup {
 			}
 			levels[lv].members = append(levels[lv].members, m)
 		case mo.IsColumn(m):
-			x := mo.Nodes[mo.Members[m].Start].X
-			if lines[x] == nil {
-				lines[x] = &memberGroup{kind: lineGroup}
-			}
-			lines[x].members = append(lines[x].members, m)
+			i := lineOf(lines, mo.Nodes[mo.Members[m].Start].X)
+			byLine[i] = append(byLine[i], m)
 		default:
 			other.members = append(other.members, m)
 		}
@@ -144,21 +141,24 @@ func (a *analysis) groups() []memberGroup {
 		sort.SliceStable(g.members, func(i, j int) bool { return spans[g.members[i]].Number < spans[g.members[j]].Number })
 		out = append(out, *g)
 	}
-	// Column lines lettered from the left, as the grid names them.
-	xs := make([]float64, 0, len(lines))
-	for x := range lines {
-		xs = append(xs, x)
+	bottom := func(m int) float64 {
+		return math.Min(mo.Nodes[mo.Members[m].Start].Y, mo.Nodes[mo.Members[m].End].Y)
 	}
-	sort.Float64s(xs)
-	for i, x := range xs {
-		g := lines[x]
-		g.title = fmt.Sprintf("Columns on line %s (x = %s %s)", modelfile.LineName(i), fixed(x), u.Length)
-		g.id = "line-" + modelfile.LineName(i)
-		bottom := func(m int) float64 {
-			return math.Min(mo.Nodes[mo.Members[m].Start].Y, mo.Nodes[mo.Members[m].End].Y)
+	for i, l := range lines {
+		ms := byLine[i]
+		if len(ms) == 0 {
+			continue
+		}
+		g := memberGroup{kind: lineGroup, members: ms}
+		if l.name != "" {
+			g.title = fmt.Sprintf("Columns on line %s (x = %s %s)", l.name, fixed(l.x), u.Length)
+			g.id = "line-" + l.name
+		} else {
+			g.title = fmt.Sprintf("Columns at x = %s %s, on no grid line", fixed(l.x), u.Length)
+			g.id = fmt.Sprintf("line-x%d", l.off)
 		}
 		sort.SliceStable(g.members, func(i, j int) bool { return bottom(g.members[i]) < bottom(g.members[j]) })
-		out = append(out, *g)
+		out = append(out, g)
 	}
 	if len(other.members) > 0 {
 		out = append(out, *other)
@@ -180,7 +180,7 @@ func (a *analysis) summaryTables(tb tables) error {
 	if s := len(a.env.Service); s > 0 && s < len(a.env.Combinations) {
 		over = " over the strength combinations"
 	}
-	if err := tb.note(fmt.Sprintf("Governing design values%s (x from the member's start, in %s; +M sagging)", over, a.job.Units.Length)); err != nil {
+	if err := tb.note(fmt.Sprintf("Governing design values%s (in %s; beams: x from the left end, +M sagging; columns: x from the start node)", over, a.job.Units.Length)); err != nil {
 		return err
 	}
 	for _, g := range a.groups() {
@@ -209,7 +209,7 @@ func (a *analysis) groupTables(tb tables, g memberGroup) error {
 	}
 	var rows [][]string
 	for _, m := range g.members {
-		p := memberPeaks(a.env.Members[m])
+		p := memberPeaks(a.shown(m))
 		v := p.hi[1]
 		if -p.lo[1].v > v.v {
 			v = p.lo[1]
@@ -248,7 +248,7 @@ func (a *analysis) columnRows(members []int) [][]string {
 	mo := a.job.Model
 	var rows [][]string
 	for _, m := range members {
-		p := memberPeaks(a.env.Members[m])
+		p := memberPeaks(a.shown(m))
 		mm, v := p.hi[2], p.hi[1]
 		if -p.lo[2].v > mm.v {
 			mm = p.lo[2]

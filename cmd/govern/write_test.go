@@ -87,7 +87,7 @@ func TestOutputPathsThatAreNotRegularFiles(t *testing.T) {
 		select {
 		case b := <-got:
 			var doc struct{ Format string }
-			if err := json.Unmarshal(b, &doc); err != nil || doc.Format != "govern.envelopes/1" {
+			if err := json.Unmarshal(b, &doc); err != nil || doc.Format != jsonFormat {
 				t.Errorf("the pipe's reader got %d bytes that are not the JSON (%v)", len(b), err)
 			}
 		case <-time.After(pipeWait):
@@ -167,7 +167,7 @@ func TestOutputPathsThatAreNotRegularFiles(t *testing.T) {
 		}
 		b, _ := os.ReadFile(out.Name())
 		var doc struct{ Format string }
-		if err := json.Unmarshal(b, &doc); err != nil || doc.Format != "govern.envelopes/1" {
+		if err := json.Unmarshal(b, &doc); err != nil || doc.Format != jsonFormat {
 			t.Errorf("standard output holds %d bytes that are not the JSON alone (%v)", len(b), err)
 		}
 		if m := mode(t, out.Name()); !m.IsRegular() {

@@ -1,0 +1,64 @@
+package main
+
+import (
+	"strings"
+	"testing"
+)
+
+// Column lines are named as the model names them: by the grid's own
+// letters, and without a grid as the "line A" selectors count them.
+func TestColumnLinesKeepTheirNames(t *testing.T) {
+	titles := func(a *analysis) []string {
+		var out []string
+		for _, g := range a.groups() {
+			if g.kind == lineGroup {
+				out = append(out, g.title+" "+g.id)
+			}
+		}
+		return out
+	}
+	t.Run("grid and an extra column off it", func(t *testing.T) {
+		// Grid lines A, B, C at x = 0, 6, 12; one more column at x = -3,
+		// joined to A1 by a beam.
+		src := `[grid]
+bays = [6.0, 6.0]
+storeys = [4.0]
+column = "C"
+beam = "B"
+` + tsection("C", 2e8, 0.01, 1e-4, 0) + tsection("B", 2e8, 0.01, 1e-4, 0) +
+			tnode("P0", -3, 0, "fixed") + tnode("P1", -3, 4, "") +
+			tmember("P0", "P1", "C") + tmember("P1", "A1", "B") + tdead(tudl("all beams", 10))
+		a := analyseModel(t, src)
+		got := titles(a)
+		want := []string{
+			"Columns at x = -3.00 m, on no grid line line-x1",
+			"Columns on line A (x = 0.00 m) line-A",
+			"Columns on line B (x = 6.00 m) line-B",
+			"Columns on line C (x = 12.00 m) line-C",
+		}
+		if strings.Join(got, "\n") != strings.Join(want, "\n") {
+			t.Errorf("column lines:\n%s\nwant\n%s", strings.Join(got, "\n"), strings.Join(want, "\n"))
+		}
+		for _, g := range a.groups() {
+			if g.id == "line-B" && (len(g.members) != 1 || a.job.Model.Members[g.members[0]].Name != "B0-B1") {
+				t.Errorf("line B holds %v", g.members)
+			}
+		}
+	})
+	t.Run("no grid: as the selectors count", func(t *testing.T) {
+		// Nodes at x = -2 (a cantilever tip), 0 and 6: the selector
+		// "line B" is the column at x = 0.
+		src := tsection("S", 2e8, 0.01, 1e-4, 0) +
+			tnode("T", -2, 4, "") + tnode("P0", 0, 0, "fixed") + tnode("P1", 0, 4, "") + tnode("Q0", 6, 0, "fixed") + tnode("Q1", 6, 4, "") +
+			tmember("P0", "P1", "S") + tmember("Q0", "Q1", "S") + tmember("T", "P1", "S") + tmember("P1", "Q1", "S") +
+			"[[case]]\nname = \"W\"\nkind = \"wind\"\n  [[case.load]]\n  type = \"udl\"\n  on = \"line B\"\n  direction = \"x\"\n  w = 1.0\n"
+		a := analyseModel(t, src)
+		want := "Columns on line B (x = 0.00 m) line-B\nColumns on line C (x = 6.00 m) line-C"
+		if got := strings.Join(titles(a), "\n"); got != want {
+			t.Errorf("column lines:\n%s\nwant\n%s", got, want)
+		}
+		if ld := a.job.Model.Cases[0].MemberLoads; len(ld) != 1 || a.job.Model.Members[ld[0].Member].Name != "P0-P1" {
+			t.Fatalf("the selector line B picked %v", ld)
+		}
+	})
+}
