@@ -4,12 +4,22 @@ import "math"
 
 // Balance is the statics check of one solved load case: the resultant of the
 // applied loads against the resultant of the support reactions, both about
-// the global origin, and the largest out-of-balance force and moment left at
-// any free joint. For a correct solution Applied + Reactions and the joint
-// residuals are round-off.
+// the lower left corner of the frame (X0, Y0), and the largest
+// out-of-balance force and moment left at any free joint. For a correct
+// solution Applied + Reactions and the joint residuals are round-off.
+//
+// Moments are taken about a point of the frame, not the global origin, so
+// that a frame far from the origin (x = 1e12) is checked as closely as one
+// beside it: about the origin each moment would carry the round-off of its
+// position times its load.
 type Balance struct {
 	Applied   Resultant // resultant of the loads of the case
 	Reactions Resultant // resultant of the support reactions
+
+	// X0, Y0 is the point moments are taken about: the smallest X and the
+	// smallest Y of any node, the lower left corner of the box that holds
+	// the frame.
+	X0, Y0 float64
 
 	JointForce  float64 // largest out-of-balance force at a free degree of freedom
 	JointMoment float64 // largest out-of-balance moment at a free degree of freedom
@@ -57,12 +67,13 @@ func (sol *Solution) Balance(c int) Balance { return sol.BalanceOf([]int{c}) }
 func (sol *Solution) BalanceOf(cs []int) Balance {
 	mo := sol.model
 	nn, nm := len(mo.Nodes), len(mo.Members)
-	b := Balance{Length: extent(mo)}
+	x0, y0, x1, y1 := box(mo)
+	b := Balance{Length: math.Hypot(x1-x0, y1-y0), X0: x0, Y0: y0}
 	u := make([]float64, 3*nn)
 	fem := make([]float64, 6*nm)
 	acc := make([]float64, 3*nn) // node loads less the end forces on the members
 	for _, c := range cs {
-		r := AppliedResultant(mo, c)
+		r := appliedAbout(mo, c, x0, y0)
 		b.Applied = Resultant{Fx: b.Applied.Fx + r.Fx, Fy: b.Applied.Fy + r.Fy, M: b.Applied.M + r.M}
 		b.Load += loadSize(mo, c, b.Length)
 		for i := range u {
@@ -107,10 +118,10 @@ func (sol *Solution) BalanceOf(cs []int) Balance {
 				switch d {
 				case 0:
 					b.Reactions.Fx -= r
-					b.Reactions.M += nd.Y * r // −Y·Rx with Rx = −r
+					b.Reactions.M += (nd.Y - y0) * r // −y·Rx with Rx = −r
 				case 1:
 					b.Reactions.Fy -= r
-					b.Reactions.M -= nd.X * r // X·Ry with Ry = −r
+					b.Reactions.M -= (nd.X - x0) * r // x·Ry with Ry = −r
 				case 2:
 					b.Reactions.M -= r
 				}
@@ -126,16 +137,23 @@ func (sol *Solution) BalanceOf(cs []int) Balance {
 
 // extent returns the diagonal of the bounding box of the nodes of mo.
 func extent(mo *Model) float64 {
+	x0, y0, x1, y1 := box(mo)
+	return math.Hypot(x1-x0, y1-y0)
+}
+
+// box returns the lower left (x0, y0) and upper right (x1, y1) corners of
+// the bounding box of the nodes of mo; all zero when there are none.
+func box(mo *Model) (x0, y0, x1, y1 float64) {
 	if len(mo.Nodes) == 0 {
-		return 0
+		return 0, 0, 0, 0
 	}
-	x0, x1 := mo.Nodes[0].X, mo.Nodes[0].X
-	y0, y1 := mo.Nodes[0].Y, mo.Nodes[0].Y
+	x0, x1 = mo.Nodes[0].X, mo.Nodes[0].X
+	y0, y1 = mo.Nodes[0].Y, mo.Nodes[0].Y
 	for _, n := range mo.Nodes[1:] {
 		x0, x1 = math.Min(x0, n.X), math.Max(x1, n.X)
 		y0, y1 = math.Min(y0, n.Y), math.Max(y1, n.Y)
 	}
-	return math.Hypot(x1-x0, y1-y0)
+	return x0, y0, x1, y1
 }
 
 // loadSize returns the sum of the magnitudes of the loads of case c, node

@@ -1,6 +1,7 @@
 package frame
 
 import (
+	"fmt"
 	"math"
 	"testing"
 )
@@ -12,6 +13,9 @@ func TestBalanceOfAPortal(t *testing.T) {
 	// opposite.
 	const l, h, w, hx = 8.0, 4.0, 12.0, 30.0
 	mo := portal(Pinned, l, h, 2e-3, 1e-3)
+	for i := range mo.Sections {
+		mo.Sections[i].A = 0.1 // a real area: the resultants do not depend on it
+	}
 	mo.Cases = []Case{{Name: "D+W", MemberLoads: []MemberLoad{{Member: 1, To: l, W: w, WEnd: w}},
 		NodeLoads: []NodeLoad{{Node: 1, Fx: hx}}}}
 	sol := solve(t, mo)
@@ -86,5 +90,43 @@ func TestLoadSize(t *testing.T) {
 	// 2·2 + 7 + 5 + 20/10 (the frame is 10 long).
 	if got := loadSize(mo, 0, extent(mo)); !near(got, 18, tightTol) {
 		t.Errorf("loadSize = %g, want 18", got)
+	}
+}
+
+func TestBalanceFarFromTheOrigin(t *testing.T) {
+	// The portal of TestBalanceOfAPortal placed with its lower left corner
+	// at (1e12, 1e12): statics does not depend on where the frame stands,
+	// so moments taken about the corner of the frame give the closed form
+	// M = -wL·L/2 - H·h, and the check balances to round-off. Taken about
+	// the global origin they would be sums of terms near 1e13·wL, whose
+	// round-off alone (about 1e-3) is far above the 1e-6 statics limit.
+	const l, h, w, hx = 8.0, 4.0, 12.0, 30.0
+	for _, at := range [][2]float64{{1e12, 0}, {0, 1e12}, {-1e12, 1e12}} {
+		t.Run(fmt.Sprintf("corner at (%g, %g)", at[0], at[1]), func(t *testing.T) {
+			mo := portal(Pinned, l, h, 2e-3, 1e-3)
+			for i := range mo.Sections {
+				mo.Sections[i].A = 0.1
+			}
+			for i := range mo.Nodes {
+				mo.Nodes[i].X += at[0]
+				mo.Nodes[i].Y += at[1]
+			}
+			mo.Cases = []Case{{Name: "D+W", MemberLoads: []MemberLoad{{Member: 1, To: l, W: w, WEnd: w}},
+				NodeLoads: []NodeLoad{{Node: 1, Fx: hx}}}}
+			sol, err := Solve(mo)
+			if err != nil {
+				t.Fatal(err)
+			}
+			b := sol.Balance(0)
+			if r := b.Relative(); !(r <= tightTol) {
+				t.Errorf("relative out of balance %g, want round-off", r)
+			}
+			if !near(b.Applied.M, -w*l*l/2-hx*h, tightTol) || !near(b.Reactions.M, w*l*l/2+hx*h, tightTol) {
+				t.Errorf("moments of loads %g and of reactions %g about the corner, want ∓%g", b.Applied.M, b.Reactions.M, w*l*l/2+hx*h)
+			}
+			if b.X0 != at[0] || b.Y0 != at[1] {
+				t.Errorf("moments taken about (%g, %g), want the lower left corner (%g, %g)", b.X0, b.Y0, at[0], at[1])
+			}
+		})
 	}
 }

@@ -38,16 +38,29 @@
 // Callers never see that numbering: results are indexed by node, member and
 // case in the order of the [Model].
 //
+// The rotation of a node where every member end is released, and that no
+// support holds, carries nothing: it is left out of the equations, and
+// [Solution.Displacement] gives NaN for it ([Solution.RotationFree]). A
+// moment applied at such a node is a mechanism for its case.
+//
 // # Failures
 //
 // [Solve] returns an error, never numbers, for a model that is invalid
 // ([Model.Validate]), past the size limits ([ErrTooLarge]: [MaxEquations],
 // [MaxStorage]), a mechanism ([*MechanismError], naming each part joined to
 // no support and each free node and direction), or so ill-conditioned that
-// no digit of the results would be right ([ErrIllConditioned]). A stiffness
-// matrix ill-conditioned enough to cost most of the digits is solved with a
-// warning in [Solution.Warnings]; [Solution.Cond] is the estimated
-// condition number.
+// fewer than three digits of the results would be right
+// ([*IllConditionedError], wrapping [ErrIllConditioned]; above [RefuseCond],
+// solved anyway by [SolveWith] with [Options.AcceptIllConditioned], up to
+// [MaxCond]). A stiffness matrix ill-conditioned enough to cost most of the
+// digits (above [WarnCond]) is solved with a warning in [Solution.Warnings];
+// [Solution.Cond] is the estimated condition number of the stiffness matrix
+// scaled to unit diagonal, the same in any consistent units. A section
+// whose radius of gyration no buildable member has (a unit slip) earns a
+// warning too.
+//
+// The statics check ([Solution.Balance]) takes moments about the lower left
+// corner of the frame, so that its position does not cost digits.
 //
 // # Mutation
 //

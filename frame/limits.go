@@ -46,16 +46,16 @@ func checkEquations(mo *Model) error {
 }
 
 // storage returns the number of float64 values Solve holds at once for n
-// equations of half-bandwidth band: the band and its factor (and a third
-// copy while a mechanism is being diagnosed), the right-hand sides that
-// become the displacements, and at most six fixed-end forces a member in
-// every case.
+// equations of half-bandwidth band: the band and its factor (and, while a
+// mechanism is being looked for, a third copy and the kb × kb block the
+// pivot watch keeps), the right-hand sides that become the
+// displacements, and at most six fixed-end forces a member in every case.
 func storage(mo *Model, n, band int) float64 {
 	kb := float64(min(band, max(n-1, 0)))
 	nc := float64(max(len(mo.Cases), 1))
 	fn := float64(n)
 	members := float64(len(mo.Members))
-	return 3*fn*(kb+1) + fn*nc + nc*6*members
+	return 3*fn*(kb+1) + kb*kb + fn*nc + nc*6*members
 }
 
 // checkStorage refuses a system that would need more than MaxStorage values.

@@ -7,11 +7,16 @@ import (
 	"strings"
 )
 
-// A structure that cannot carry load is found in three steps (see
+// A structure that cannot carry load is found in four steps (see
 // docs/analysis.md): parts joined to no support, from the members alone;
+// moments applied where every member end is released, from the loads;
 // directions that no member stiffens at all, from the diagonal of the
 // assembled matrix; and any other mechanism, from the pivots of a
 // factorization that watches them.
+//
+// The rotation of a node where every member end is released, and that no
+// support holds, is not a mechanism: no member carries moment there, so it
+// carries nothing, and it is left out of the equations (releasedRotations).
 
 // MechanismError reports a structure that cannot carry load: parts of it
 // that no support holds, or directions at nodes that no member or support
@@ -32,10 +37,16 @@ type FreeDOF struct {
 	Node      string
 	Direction string
 	Reason    string // why, where known, such as "every member end there is released"
+	// Case, when not empty, names the load case that loads the free
+	// direction: a moment applied where every member end is released.
+	Case string
 }
 
 // Reasons given in [FreeDOF].
-const reasonReleased = "every member end there is released (hinged) and no support holds its rotation"
+const (
+	reasonReleased = "every member end there is released (hinged) and no support holds its rotation"
+	reasonNothing  = "no member or support stiffens it"
+)
 
 // maxNamed is how many nodes and free directions a message lists before
 // giving the count of the rest.
@@ -73,6 +84,9 @@ func (e *MechanismError) Error() string {
 			b.WriteString(": ")
 			b.WriteString(f.Reason)
 		}
+		if f.Case != "" {
+			fmt.Fprintf(&b, ", so nothing resists the moment that case %q applies there", f.Case)
+		}
 	}
 	if e.Note != "" {
 		b.WriteString(" (")
@@ -91,18 +105,26 @@ var dirWords = map[string]string{
 var dirNames = [3]string{"ux", "uy", "rz"}
 
 // ErrIllConditioned is wrapped by the error Solve returns when the stiffness
-// matrix is so ill-conditioned that the results would carry no correct digits.
+// matrix is so ill-conditioned that the results would carry fewer than three
+// correct digits, or none.
 var ErrIllConditioned = errors.New("the stiffness matrix is too ill-conditioned to solve")
 
-// A Cholesky pivot counts as zero, its degree of freedom held by nothing but
-// round-off, when it is below pivotTol of its own diagonal or below
-// pivotAbsTol of the largest diagonal (round-off scales with the stiffest
-// members, such as nearly rigid axial links). diagnoseCond is the condition
-// number above which the pivots are examined.
+// The mechanism search works on the matrix scaled to unit diagonal. A
+// mechanism z, closed at pivot i, has a Rayleigh quotient zᵀKz/|z|² that is
+// zero in exact arithmetic and of the size of the factorization's round-off
+// in floating point: about (kb + 1) ε at most for a half-bandwidth kb and
+// machine epsilon ε (measured: below 0.5 (kb + 1) ε on grid frames of up to
+// 30 × 60 bays and storeys, nearly rigid members included), whatever the
+// units and however stiff the stiffest member. A quotient at or below
+// pivotTol (kb + 1) ε is a direction held by nothing but round-off. A
+// direction the frame does hold keeps a quotient of at least its smallest
+// eigenvalue, about 1/κ, so the search runs only when the factorization
+// fails or the estimated condition number is above diagnoseCond, the
+// refusal limit: a frame solved without the refusal's override is never
+// named a mechanism for being ill-conditioned.
 const (
-	pivotTol     = 1e-10
-	pivotAbsTol  = 1e-13
-	diagnoseCond = 1e8
+	pivotTol     = 4
+	diagnoseCond = RefuseCond
 	spreadNote   = 1e10 // ratio of largest to smallest diagonal that earns a note on units
 )
 
@@ -156,13 +178,78 @@ func unsupportedParts(mo *Model) [][]int {
 	return parts
 }
 
+// releasedRotations returns, for each node, whether its rotation carries
+// nothing: members join it, every member end there is released, and its
+// support does not hold its rotation. Such a rotation has no stiffness and
+// no load (fixed-end moments are condensed at a released end), so it is
+// left out of the equations; a moment applied there is a mechanism
+// (releasedMoments).
+func releasedRotations(mo *Model) []bool {
+	joined := make([]bool, len(mo.Nodes))
+	rigid := make([]bool, len(mo.Nodes)) // some member end is not released
+	for _, m := range mo.Members {
+		joined[m.Start], joined[m.End] = true, true
+		if !m.Release.AtStart() {
+			rigid[m.Start] = true
+		}
+		if !m.Release.AtEnd() {
+			rigid[m.End] = true
+		}
+	}
+	out := make([]bool, len(mo.Nodes))
+	for v, nd := range mo.Nodes {
+		out[v] = joined[v] && !rigid[v] && !nd.Support.Restrained(2)
+	}
+	return out
+}
+
+// releasedMoments returns, for each node whose rotation carries nothing
+// (released) and each case that applies a moment there (the node loads of
+// the case at that node summed), the free direction, nodes in model order
+// and then cases in model order. Nodes marked in skip are left out.
+func releasedMoments(mo *Model, released []bool, skip map[int]bool) []FreeDOF {
+	var free []FreeDOF
+	sums := map[int]float64{}
+	var order []int
+	byNode := make([][]string, len(mo.Nodes))
+	for c := range mo.Cases {
+		clear(sums)
+		order = order[:0]
+		for _, nl := range mo.Cases[c].NodeLoads {
+			if !released[nl.Node] || nl.M == 0 {
+				continue
+			}
+			if _, ok := sums[nl.Node]; !ok {
+				order = append(order, nl.Node)
+			}
+			sums[nl.Node] += nl.M
+		}
+		for _, v := range order {
+			if sums[v] != 0 {
+				byNode[v] = append(byNode[v], mo.Cases[c].Name)
+			}
+		}
+	}
+	for v, cases := range byNode {
+		if skip[v] {
+			continue
+		}
+		for _, c := range cases {
+			free = append(free, FreeDOF{Node: mo.Nodes[v].Name, Direction: "rz", Reason: reasonReleased, Case: c})
+		}
+	}
+	return free
+}
+
 // checkDiagonal finds degrees of freedom that no member stiffens at all,
-// such as the rotation of a node where every member end is hinged.
+// which only stiffnesses that underflow to zero can leave now that the
+// rotations of fully released nodes are out of the equations.
 //
 // It reports them together with the parts of the frame joined to no support,
-// which unsupportedParts found before assembly; the nodes of those parts are
-// not listed again.
-func (sol *Solution) checkDiagonal(data []float64, kb int, dof []int, parts [][]int) error {
+// which unsupportedParts found before assembly, and the moments applied
+// where nothing carries them (releasedMoments); the nodes of those parts are
+// not listed again. data is nil when there are no equations.
+func (sol *Solution) checkDiagonal(data []float64, kb int, dof []int, parts [][]int, released []bool) error {
 	var free []FreeDOF
 	inPart := map[int]bool{}
 	var names [][]string
@@ -174,13 +261,14 @@ func (sol *Solution) checkDiagonal(data []float64, kb int, dof []int, parts [][]
 		}
 		names = append(names, ns)
 	}
+	free = append(free, releasedMoments(sol.model, released, inPart)...)
 	for v := range sol.model.Nodes {
-		if inPart[v] {
+		if inPart[v] || data == nil {
 			continue
 		}
 		for d := range 3 {
 			if e := dof[3*v+d]; e >= 0 && !(data[e*(kb+1)] > 0) {
-				free = append(free, FreeDOF{Node: sol.model.Nodes[v].Name, Direction: dirNames[d], Reason: reasonReleased})
+				free = append(free, FreeDOF{Node: sol.model.Nodes[v].Name, Direction: dirNames[d], Reason: reasonNothing})
 			}
 		}
 	}
@@ -190,23 +278,27 @@ func (sol *Solution) checkDiagonal(data []float64, kb int, dof []int, parts [][]
 	return nil
 }
 
-// diagnose repeats the factorization in plain Go, watching every pivot: a
-// pivot that has fallen to a tiny fraction of its diagonal means that
-// degree of freedom is held by nothing but round-off. Each such one is
-// restrained and the factorization goes on, so every free direction is found.
-func (sol *Solution) diagnose(data []float64, n, kb int, dof []int) error {
+// diagnose repeats the factorization of the stiffness matrix scaled to unit
+// diagonal (data, with scale[i] the factor applied to row and column i) in
+// plain Go, watching every pivot. A zero pivot i in exact arithmetic means
+// a mechanism z (z[i] = 1, z[j] = 0 beyond i) that strains nothing; in
+// floating point that pivot is p = zᵀ(A + E)z for the round-off E of the
+// factorization, so it is the Rayleigh quotient p/|z|² (pivotWatch), not p,
+// that falls to the level of E. Where it does, that degree of freedom is
+// held by nothing but round-off: it is restrained and the factorization
+// goes on, so every free direction is found. spread is the ratio of the
+// largest to the smallest diagonal of the unscaled matrix.
+func (sol *Solution) diagnose(data []float64, n, kb int, dof []int, scale []float64, spread float64) error {
 	u := append([]float64(nil), data...)
 	w := kb + 1
+	tol := pivotTol * float64(w) * 0x1p-52
 	var bad []int
-	maxDiag := 0.0
+	watch := newPivotWatch(kb)
 	for i := range n {
-		maxDiag = math.Max(maxDiag, data[i*w])
-	}
-	for i := range n {
-		diag := data[i*w]
 		p := u[i*w]
-		if !(p > pivotTol*diag) || !(p > pivotAbsTol*maxDiag) {
+		if !(watch.quotient(u, i, p) > tol) {
 			bad = append(bad, i)
+			watch.take(i, 1)
 
 			u[i*w] = 1
 			for j := 1; j < w && i+j < n; j++ {
@@ -215,6 +307,7 @@ func (sol *Solution) diagnose(data []float64, n, kb int, dof []int) error {
 			continue
 		}
 		p = math.Sqrt(p)
+		watch.take(i, p)
 		u[i*w] = p
 		for j := 1; j < w && i+j < n; j++ {
 			u[i*w+j] /= p
@@ -250,14 +343,18 @@ func (sol *Solution) diagnose(data []float64, n, kb int, dof []int) error {
 	var free []FreeDOF
 	seen := map[FreeDOF]bool{}
 	for _, i := range bad {
+		// The mechanism's shape in the scaled unknowns, then in
+		// displacements and rotations.
 		z := nullVector(u, w, i)
 		best, bestV := i, 0.0
 		for e := 0; e <= i; e++ {
-			v := math.Abs(z[e])
+			v := math.Abs(z[e] * scale[e])
 			if at[e].d == 2 {
 				v *= lc / 2
 			}
-			if v > bestV {
+			// Near ties (a rigid-body motion moves many nodes alike) go
+			// to the first equation, whatever the round-off.
+			if v > bestV*(1+1e-6) {
 				best, bestV = e, v
 			}
 		}
@@ -269,14 +366,75 @@ func (sol *Solution) diagnose(data []float64, n, kb int, dof []int) error {
 		}
 	}
 	me := &MechanismError{Free: free}
-	minDiag := math.Inf(1)
-	for i := range n {
-		minDiag = math.Min(minDiag, data[i*w])
-	}
-	if spread := maxDiag / minDiag; spread > spreadNote {
+	if spread > spreadNote {
 		me.Note = fmt.Sprintf("the stiffnesses on the diagonal span %.0f orders of magnitude, so what holds these may be lost in round-off: check that E, A and I are in the declared units", math.Log10(spread))
 	}
 	return me
+}
+
+// pivotWatch follows a band Cholesky factorization U of a matrix A (kb
+// superdiagonals) as it is formed row by row, to give at each pivot the
+// Rayleigh quotient of the mechanism that pivot would close. With the rows
+// before i factored (U_B), the mechanism is z = (−U_B⁻¹ c, 1), where c is
+// the column of U above the pivot, zero outside the last kb places (the
+// window): Uz = 0 but for row i. Its quotient is zᵀAz/|z|² = p/(1 + cᵀGc)
+// for the pivot p and G = U_B⁻ᵀ U_B⁻¹. Bordering U_B by column (c, d), d the
+// new diagonal, leaves G's leading block as it is and gives it the new row
+// −(Gc)ᵀ/d and diagonal (cᵀGc + 1)/d², so G's window block follows in one
+// kb × kb product a row, twice the work of a step of the factorization.
+type pivotWatch struct {
+	kb     int
+	g      []float64 // kb × kb: G on the window, row i at i % kb
+	c, gc  []float64 // by window place: the column of U above the pivot; G c
+	cgc    float64   // cᵀGc at the current pivot
+	frozen bool      // no window: kb is 0
+}
+
+func newPivotWatch(kb int) *pivotWatch {
+	return &pivotWatch{kb: kb, g: make([]float64, kb*kb), c: make([]float64, kb), gc: make([]float64, kb), frozen: kb == 0}
+}
+
+// quotient returns the Rayleigh quotient of the mechanism pivot p of
+// equation i would close; u is the factor so far, in upper band storage
+// (rows before i final).
+func (pw *pivotWatch) quotient(u []float64, i int, p float64) float64 {
+	if pw.frozen {
+		pw.cgc = 0
+		return p
+	}
+	kb := pw.kb
+	w := kb + 1
+	clear(pw.c)
+	for r := max(0, i-kb); r < i; r++ {
+		pw.c[r%kb] = u[r*w+i-r]
+	}
+	pw.cgc = 0
+	for s := range kb {
+		row := pw.g[s*kb : (s+1)*kb]
+		v := 0.0
+		for t, c := range pw.c {
+			v += row[t] * c
+		}
+		pw.gc[s] = v
+		pw.cgc += pw.c[s] * v
+	}
+	return p / (1 + pw.cgc)
+}
+
+// take moves the window on past equation i, whose diagonal in U is d (√p,
+// or 1 where diagnose restrains it). The place of i is that of i − kb,
+// which leaves the window.
+func (pw *pivotWatch) take(i int, d float64) {
+	if pw.frozen {
+		return
+	}
+	kb := pw.kb
+	si := i % kb
+	for s := range kb {
+		v := -pw.gc[s] / d
+		pw.g[s*kb+si], pw.g[si*kb+s] = v, v
+	}
+	pw.g[si*kb+si] = (pw.cgc + 1) / (d * d)
 }
 
 // nullVector returns the shape z[0..i] of the mechanism found at a zero

@@ -22,10 +22,11 @@ func TestMechanismOfEachKindIsNamed(t *testing.T) {
 	// independent restraints, and every part of a frame must be held).
 	const prefix = "the structure is a mechanism (it cannot carry load): "
 	for _, tc := range []struct {
-		name  string
-		model func() *Model
-		want  string
-		parts int // len(MechanismError.Unsupported)
+		name   string
+		model  func() *Model
+		want   string
+		parts  int     // len(MechanismError.Unsupported)
+		moment float64 // applied at node 1 with the horizontal load
 	}{
 		{
 			name: "no support against sway: pinned bases, beam hinged at both ends",
@@ -53,24 +54,26 @@ func TestMechanismOfEachKindIsNamed(t *testing.T) {
 			want: `node "N1" is free to move along X (ux)`,
 		},
 		{
-			name: "node where every member end is released",
+			name: "moment applied where every member end is released",
 			model: func() *Model {
 				mo := continuous(2, 4, 1, nil)
 				mo.Members[0].Release = ReleaseEnd
 				mo.Members[1].Release = ReleaseStart
 				return mo
 			},
-			want: `node "N1" is free to rotate (rz): every member end there is released (hinged) and no support holds its rotation`,
+			moment: 1,
+			want:   `node "N1" is free to rotate (rz): every member end there is released (hinged) and no support holds its rotation, so nothing resists the moment that case "H" applies there`,
 		},
 		{
-			name: "frame corner where beam and column are both released",
+			name: "moment at a frame corner where beam and column are both released",
 			model: func() *Model {
 				mo := portal(Fixed, 6, 3, 1e-3, 1e-3)
 				mo.Members[0].Release = ReleaseEnd   // A0-A1 at A1
 				mo.Members[1].Release = ReleaseStart // A1-B1 at A1
 				return mo
 			},
-			want: `node "A1" is free to rotate (rz): every member end there is released (hinged) and no support holds its rotation`,
+			moment: 1,
+			want:   `node "A1" is free to rotate (rz): every member end there is released (hinged) and no support holds its rotation, so nothing resists the moment that case "H" applies there`,
 		},
 		{
 			name: "floating part: a beam joined to nothing that is supported",
@@ -89,27 +92,30 @@ func TestMechanismOfEachKindIsNamed(t *testing.T) {
 			parts: 1,
 		},
 		{
-			name: "floating part and a released node are reported together",
+			name: "floating part and a moment at a released node are reported together",
 			model: func() *Model {
 				mo := twoPortals(Free)
 				mo.Members[0].Release = ReleaseEnd
 				mo.Members[1].Release = ReleaseStart
 				return mo
 			},
-			want:  `nodes "E1", "F1" form a part joined to no support, free to move along X (ux) and Y (uy) and to rotate (rz); node "A1" is free to rotate (rz): every member end there is released (hinged) and no support holds its rotation`,
-			parts: 1,
+			moment: 1,
+			want:   `nodes "E1", "F1" form a part joined to no support, free to move along X (ux) and Y (uy) and to rotate (rz); node "A1" is free to rotate (rz): every member end there is released (hinged) and no support holds its rotation, so nothing resists the moment that case "H" applies there`,
+			parts:  1,
 		},
 		{
+			// The part slides along X as a whole (E1 and F1 alike) and turns
+			// about E1.
 			name: "part held by a single roller still slides and turns",
 			model: func() *Model {
 				return twoPortals(Roller)
 			},
-			want: `node "E1" is free to move along X (ux); node "F1" is free to move along Y (uy)`,
+			want: `node "F1" is free to move along X (ux); node "F1" is free to move along Y (uy)`,
 		},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
 			mo := tc.model()
-			mo.Cases = []Case{{Name: "H", NodeLoads: []NodeLoad{{Node: 1, Fx: 1}}}}
+			mo.Cases = []Case{{Name: "H", NodeLoads: []NodeLoad{{Node: 1, Fx: 1, M: tc.moment}}}}
 			_, err := Solve(mo)
 			var me *MechanismError
 			if !errors.As(err, &me) {
@@ -146,6 +152,18 @@ func TestStableFramesAreNotMechanisms(t *testing.T) {
 			return mo
 		}},
 		{"two separate frames, each supported", func() *Model { return twoPortals(Fixed) }},
+		{"frame corner where beam and column are both released (the column is a cantilever)", func() *Model {
+			mo := portal(Fixed, 6, 3, 1e-3, 1e-3)
+			mo.Members[0].Release = ReleaseEnd   // A0-A1 at A1
+			mo.Members[1].Release = ReleaseStart // A1-B1 at A1
+			return mo
+		}},
+		{"node where every member end is released, on a support", func() *Model {
+			mo := continuous(2, 4, 1, nil)
+			mo.Members[0].Release = ReleaseEnd
+			mo.Members[1].Release = ReleaseStart
+			return mo
+		}},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
 			mo := tc.model()

@@ -105,13 +105,15 @@ func rcmOrder(adj [][]int) []int {
 
 // dofMap numbers the free degrees of freedom of mo node by node in the given
 // order. dof[3*node+d] is the equation number of direction d at node, or -1
-// where the support restrains it. It returns the number of equations and the
-// half-bandwidth (the largest distance of a nonzero from the diagonal).
-func dofMap(mo *Model, order []int) (dof []int, n, band int) {
+// where the support restrains it or, for a rotation, where released[node]
+// says that nothing carries it (see releasedRotations). It returns the
+// number of equations and the half-bandwidth (the largest distance of a
+// nonzero from the diagonal).
+func dofMap(mo *Model, order []int, released []bool) (dof []int, n, band int) {
 	dof = make([]int, 3*len(mo.Nodes))
 	for _, v := range order {
 		for d := range 3 {
-			if mo.Nodes[v].Support.Restrained(d) {
+			if mo.Nodes[v].Support.Restrained(d) || d == 2 && released[v] {
 				dof[3*v+d] = -1
 				continue
 			}

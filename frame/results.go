@@ -1,5 +1,7 @@
 package frame
 
+import "math"
+
 // Model returns the model that was solved.
 func (sol *Solution) Model() *Model { return sol.model }
 
@@ -7,14 +9,29 @@ func (sol *Solution) Model() *Model { return sol.model }
 func (sol *Solution) Info() Info { return Info{Equations: sol.dofs, Bandwidth: sol.band} }
 
 // Cond returns the estimated condition number (1-norm) of the stiffness
-// matrix; 1 when there was nothing to solve.
+// matrix scaled to unit diagonal, S K S with S = diag(1/√K[i][i]): LAPACK's
+// estimate of ‖(SKS)⁻¹‖₁ times ‖SKS‖₁. The results may have lost about
+// log10 of it of their 16 significant digits. It is 1 when there was
+// nothing to solve.
 func (sol *Solution) Cond() float64 { return sol.cond }
 
 // Displacement returns the global displacements (ux, uy, rz) of node v in
-// case c.
+// case c. Where the rotation of v is free ([Solution.RotationFree]) there is
+// no one rotation of the node, and rz is NaN.
 func (sol *Solution) Displacement(c, v int) (ux, uy, rz float64) {
-	return sol.u(c, 3*v), sol.u(c, 3*v+1), sol.u(c, 3*v+2)
+	rz = sol.u(c, 3*v+2)
+	if sol.released[v] {
+		rz = math.NaN()
+	}
+	return sol.u(c, 3*v), sol.u(c, 3*v+1), rz
 }
+
+// RotationFree reports whether the rotation of node v is free: every member
+// end there is released and no support holds it. No member carries moment
+// there, so the rotation carries nothing and is not solved for; each member
+// end turns on its own (see the member's deflection), and
+// [Solution.Displacement] gives NaN for it.
+func (sol *Solution) RotationFree(v int) bool { return sol.released[v] }
 
 // EndForces returns the local forces the nodes exert on member m in case c:
 // start axial, transverse, moment; end axial, transverse, moment.

@@ -10,7 +10,6 @@ import (
 
 	"gonum.org/v1/gonum/blas"
 	"gonum.org/v1/gonum/blas/blas64"
-	"gonum.org/v1/gonum/lapack"
 	"gonum.org/v1/gonum/lapack/lapack64"
 )
 
@@ -40,6 +39,10 @@ type Solution struct {
 	// Members meeting at each node, for reactions and residuals.
 	atNode [][]int32
 
+	// released[node] is true where every member end is released and no
+	// support holds the rotation: it carries nothing and is not solved for.
+	released []bool
+
 	dofs, band int
 	cond       float64
 	warnings   []string
@@ -52,16 +55,23 @@ type Info struct {
 }
 
 // Solve validates mo, assembles its stiffness matrix in band storage,
-// factors it once with gonum's banded Cholesky (LAPACK dpbtrf) and solves
-// every load case in one multi-column solve.
+// scales it by powers of two (exactly), factors it once with gonum's banded
+// Cholesky (LAPACK dpbtrf), estimates the condition number of the matrix
+// scaled to unit diagonal, and solves every load case in one multi-column
+// solve.
 //
 // A model past the size limits gets an error wrapping [ErrTooLarge]; a
 // structure that cannot carry load a [*MechanismError]; a stiffness matrix
-// too ill-conditioned for the results to carry any correct digit, or
-// results that overflow, an error wrapping [ErrIllConditioned] or
-// [ErrNotFinite]. A matrix ill-conditioned enough to cost the results most
-// of their digits is solved, with a warning in [Solution.Warnings].
-func Solve(mo *Model) (*Solution, error) {
+// whose estimated condition number is above [RefuseCond], an
+// [*IllConditionedError] (wrapping [ErrIllConditioned]); results that
+// overflow, an error wrapping [ErrNotFinite]. A matrix ill-conditioned enough
+// to cost the results most of their digits (above [WarnCond]) is solved, with
+// a warning in [Solution.Warnings].
+func Solve(mo *Model) (*Solution, error) { return SolveWith(mo, Options{}) }
+
+// SolveWith is [Solve] with options: [Options.AcceptIllConditioned] solves
+// a model whose condition number is between [RefuseCond] and [MaxCond].
+func SolveWith(mo *Model, opt Options) (*Solution, error) {
 	if err := checkEquations(mo); err != nil {
 		return nil, err
 	}
@@ -69,12 +79,13 @@ func Solve(mo *Model) (*Solution, error) {
 		return nil, err
 	}
 	parts := unsupportedParts(mo)
+	released := releasedRotations(mo)
 	order := rcmOrder(adjacency(mo))
-	dof, n, band := dofMap(mo, order)
+	dof, n, band := dofMap(mo, order, released)
 	if err := checkStorage(mo, n, band); err != nil {
 		return nil, err
 	}
-	sol := &Solution{model: mo, dofs: n, band: band, cond: 1, dof: dof}
+	sol := &Solution{model: mo, dofs: n, band: band, cond: 1, dof: dof, released: released, warnings: sectionWarnings(mo)}
 	sol.elems = make([]element, len(mo.Members))
 	sol.atNode = make([][]int32, len(mo.Nodes))
 	for m, mem := range mo.Members {
@@ -88,45 +99,59 @@ func Solve(mo *Model) (*Solution, error) {
 
 	nc := len(mo.Cases)
 	if n == 0 {
+		if err := sol.checkDiagonal(nil, 0, dof, parts, released); err != nil {
+			return nil, err
+		}
 		return sol, nil
 	}
 	kb := min(band, n-1)
 	w := kb + 1
 	data := sol.assemble(n, kb)
-	if err := sol.checkDiagonal(data, kb, dof, parts); err != nil {
+	if err := sol.checkDiagonal(data, kb, dof, parts, released); err != nil {
 		return nil, err
 	}
+	if err := checkStiffness(data); err != nil {
+		return nil, err
+	}
+	// Scaled by powers of two, D K D, the factorization and the solution
+	// are those of K to the last bit; only the condition estimate below
+	// sees the scaling.
+	d := scalePow2(data, n, kb)
 
-	// Factor a copy with gonum's LAPACK band Cholesky; keep the matrix for
-	// the diagnosis of a failure.
+	// Factor a copy with gonum's LAPACK band Cholesky.
 	a := blas64.SymmetricBand{Uplo: blas.Upper, N: n, K: kb, Data: slices.Clone(data), Stride: w}
-	work := make([]float64, 3*n)
-	anorm := lapack64.Lansb(lapack.MaxColumnSum, a, work)
 	u, ok := lapack64.Pbtrf(a)
 	if ok {
-		if rc := lapack64.Pbcon(a, anorm, work, make([]int, n)); rc > 0 {
-			sol.cond = 1 / rc
-		} else {
-			sol.cond = math.Inf(1)
-		}
+		sol.cond = equilibratedCond(data, u.Data, n, kb)
 	}
 	if !ok || sol.cond > diagnoseCond {
-		if err := sol.diagnose(data, n, kb, dof); err != nil {
+		// data now holds a factor: assemble the matrix again and scale it
+		// to unit diagonal for the mechanism search.
+		clear(data)
+		sol.assembleTo(data, kb)
+		scale, spread := equilibrate(data, n, kb)
+		if err := sol.diagnose(data, n, kb, dof, scale, spread); err != nil {
 			return nil, err
 		}
 		if !ok {
 			return nil, fmt.Errorf("%w (the matrix is not positive definite although no mechanism was found); %s", ErrIllConditioned, illAdvice)
 		}
 	}
-	if !(sol.cond <= maxCond) {
-		return nil, fmt.Errorf("%w: estimated condition number %.2g, so the results would carry no correct digit; %s", ErrIllConditioned, sol.cond, illAdvice)
+	if !(sol.cond <= MaxCond) {
+		return nil, &IllConditionedError{Cond: sol.cond}
+	}
+	if sol.cond > RefuseCond && !opt.AcceptIllConditioned {
+		return nil, &IllConditionedError{Cond: sol.cond, Acceptable: true}
 	}
 	if w := condWarning(sol.cond); w != "" {
 		sol.warnings = append(sol.warnings, w)
 	}
 
+	// K x = b is solved as (D K D)(D⁻¹ x) = D b.
 	x := sol.rhs(n)
+	scaleRows(x, d, nc)
 	bandSolve(u.Data, n, kb, x, nc)
+	scaleRows(x, d, nc)
 	sol.x = x
 	if err := sol.checkFinite(); err != nil {
 		return nil, err
@@ -134,11 +159,124 @@ func Solve(mo *Model) (*Solution, error) {
 	return sol, nil
 }
 
+// checkStiffness refuses a stiffness matrix that overflowed, which only
+// numbers far outside any consistent set of units can cause.
+func checkStiffness(data []float64) error {
+	for _, v := range data {
+		if !finite(v) {
+			return fmt.Errorf("%w: the stiffness matrix overflowed; check that E, A and I are in the declared units", ErrNotFinite)
+		}
+	}
+	return nil
+}
+
+// scalePow2 scales the band matrix data (n equations, kb superdiagonals,
+// positive diagonal) in place to D K D, D = diag(d) with each d[i] the power
+// of two that brings the diagonal to between 1/2 and 2, and returns d.
+// Multiplying by a power of two is exact, and so is every step of a
+// Cholesky factorization and of the substitutions on the scaled system: the
+// solution is that of K to the last bit.
+func scalePow2(data []float64, n, kb int) []float64 {
+	w := kb + 1
+	d := make([]float64, n)
+	for i := range n {
+		_, k := math.Frexp(data[i*w]) // K[i][i] in [2^(k-1), 2^k)
+		d[i] = math.Ldexp(1, -(k >> 1))
+	}
+	scaleBand(data, d, n, kb)
+	return d
+}
+
+// equilibrate scales the band matrix data (n equations, kb superdiagonals,
+// positive diagonal) in place to unit diagonal, S K S with S = diag(scale),
+// scale[i] = 1/√K[i][i], and returns scale and the ratio of the largest to
+// the smallest diagonal of K.
+func equilibrate(data []float64, n, kb int) (scale []float64, spread float64) {
+	w := kb + 1
+	scale = make([]float64, n)
+	lo, hi := math.Inf(1), 0.0
+	for i := range n {
+		d := data[i*w]
+		lo, hi = min(lo, d), max(hi, d)
+		scale[i] = 1 / math.Sqrt(d)
+	}
+	scaleBand(data, scale, n, kb)
+	return scale, hi / lo
+}
+
+// scaleBand replaces the band matrix data by S data S, S = diag(s).
+func scaleBand(data, s []float64, n, kb int) {
+	w := kb + 1
+	for i := range n {
+		row := data[i*w : (i+1)*w]
+		for j := range row {
+			if i+j < n {
+				// |K[i][j]| ≤ √(K[i][i] K[j][j]): no overflow in this order.
+				row[j] = row[j] * s[i] * s[i+j]
+			}
+		}
+	}
+}
+
+// equilibratedCond returns the estimated condition number (1-norm) of the
+// matrix scaled to unit diagonal, given a (n equations, kb superdiagonals)
+// with a diagonal near 1 and its upper Cholesky factor u: with
+// E = diag(1/√a[i][i]), E a E = (u E)ᵀ(u E), so u E is the factor whose
+// condition LAPACK's dpbcon estimates, and ‖E a E‖₁ is summed from a.
+// a is overwritten with u E.
+func equilibratedCond(a, u []float64, n, kb int) float64 {
+	w := kb + 1
+	e := make([]float64, n)
+	for i := range n {
+		e[i] = 1 / math.Sqrt(a[i*w])
+	}
+	col := make([]float64, n)
+	for i := range n {
+		for j := 0; j < w && i+j < n; j++ {
+			v := math.Abs(a[i*w+j]) * e[i] * e[i+j]
+			col[i+j] += v
+			if j > 0 {
+				col[i] += v
+			}
+		}
+	}
+	anorm := 0.0
+	for _, v := range col {
+		anorm = max(anorm, v)
+	}
+	for i := range n {
+		for j := 0; j < w && i+j < n; j++ {
+			a[i*w+j] = u[i*w+j] * e[i+j]
+		}
+	}
+	f := blas64.SymmetricBand{Uplo: blas.Upper, N: n, K: kb, Data: a, Stride: w}
+	if rc := lapack64.Pbcon(f, anorm, make([]float64, 3*n), make([]int, n)); rc > 0 {
+		return 1 / rc
+	}
+	return math.Inf(1)
+}
+
+// scaleRows multiplies row i of the n × nc row-major matrix x by scale[i].
+func scaleRows(x, scale []float64, nc int) {
+	for i, s := range scale {
+		row := x[i*nc : (i+1)*nc]
+		for k := range row {
+			row[k] *= s
+		}
+	}
+}
+
 // assemble returns the stiffness matrix in upper band storage, row-major
 // with kb superdiagonals: entry (i, j), j >= i, at [i*(kb+1)+j-i].
 func (sol *Solution) assemble(n, kb int) []float64 {
+	data := make([]float64, n*(kb+1))
+	sol.assembleTo(data, kb)
+	return data
+}
+
+// assembleTo adds the stiffness matrix to data, in the layout of assemble.
+func (sol *Solution) assembleTo(data []float64, kb int) {
 	mo, dof, w := sol.model, sol.dof, kb+1
-	data := make([]float64, n*w)
 	for m, mem := range mo.Members {
 		g := sol.elems[m].global()
 		ends := [2]int{mem.Start, mem.End}
@@ -154,7 +292,6 @@ func (sol *Solution) assemble(n, kb int) []float64 {
 			}
 		}
 	}
-	return data
 }
 
 // rhs returns the right-hand sides, row-major n × cases: node loads less

@@ -2,14 +2,21 @@ package frame
 
 import "math"
 
-// Resultant is a force system reduced to the global origin.
+// Resultant is a force system reduced to a point: the global origin for
+// [AppliedResultant], the lower left corner of the frame in a [Balance].
 type Resultant struct {
 	Fx, Fy float64 // global components
-	M      float64 // moment about the origin, counter-clockwise
+	M      float64 // moment about the point, counter-clockwise
 }
 
-// AppliedResultant returns the resultant of the loads of case c.
-func AppliedResultant(mo *Model, c int) Resultant {
+// AppliedResultant returns the resultant of the loads of case c about the
+// global origin.
+func AppliedResultant(mo *Model, c int) Resultant { return appliedAbout(mo, c, 0, 0) }
+
+// appliedAbout returns the resultant of the loads of case c about the point
+// (x0, y0). Lever arms are taken from the nodes' offsets to the point, so
+// that a frame far from the origin loses no digits to its position.
+func appliedAbout(mo *Model, c int, x0, y0 float64) Resultant {
 	var r Resultant
 	add := func(x, y, fx, fy float64) {
 		r.Fx += fx
@@ -19,12 +26,13 @@ func AppliedResultant(mo *Model, c int) Resultant {
 	cs := &mo.Cases[c]
 	for _, nl := range cs.NodeLoads {
 		nd := mo.Nodes[nl.Node]
-		add(nd.X, nd.Y, nl.Fx, nl.Fy)
+		add(nd.X-x0, nd.Y-y0, nl.Fx, nl.Fy)
 		r.M += nl.M
 	}
 	for i := range cs.MemberLoads {
 		ld := &cs.MemberLoads[i]
 		a := mo.Nodes[mo.Members[ld.Member].Start]
+		ax, ay := a.X-x0, a.Y-y0
 		c, s, l := mo.geometry(ld.Member)
 		gx, gy := 0.0, 0.0
 		at := func(xi, v float64) {
@@ -34,7 +42,7 @@ func AppliedResultant(mo *Model, c int) Resultant {
 			case GlobalX:
 				gx, gy = v, 0
 			}
-			add(a.X+xi*c, a.Y+xi*s, gx, gy)
+			add(ax+xi*c, ay+xi*s, gx, gy)
 		}
 		if ld.Point {
 			at(clampTo(ld.At, 0, l), ld.P)

@@ -1,8 +1,10 @@
 package main
 
 import (
+	"errors"
 	"fmt"
 	"io"
+	"math"
 	"os"
 	"path/filepath"
 
@@ -53,20 +55,20 @@ type analysis struct {
 // analyse places the patterned loads, solves every load case of the job
 // and forms the envelopes.
 func analyse(job *modelfile.Job) (*analysis, error) {
-	return analyseWith(job, job.Patterns, nil)
+	return analyseWith(job, job.Patterns, nil, frame.Options{})
 }
 
-// analyseWith is analyse with the pattern placement mode given, reporting
-// progress to p when it is not nil.
-func analyseWith(job *modelfile.Job, mode patterns.Mode, p *progress) (*analysis, error) {
+// analyseWith is analyse with the pattern placement mode and the solver
+// options given, reporting progress to p when it is not nil.
+func analyseWith(job *modelfile.Job, mode patterns.Mode, p *progress, opt frame.Options) (*analysis, error) {
 	lay, err := patterns.Expand(job.Model, job.Patterned, job.Segments, mode)
 	if err != nil {
 		return nil, err
 	}
 	p.phase(fmt.Sprintf("solving %d loads (%d load cases, %d pattern pieces or arrangements)", len(lay.Model.Cases), len(job.Model.Cases), len(lay.Model.Cases)-len(job.Model.Cases)), 0)
-	sol, err := frame.Solve(lay.Model)
+	sol, err := frame.SolveWith(lay.Model, opt)
 	if err != nil {
-		return nil, err
+		return nil, acceptHint(err)
 	}
 	set := job.Settings
 	faces := columnFaces(job.Model)
@@ -83,4 +85,29 @@ func analyseWith(job *modelfile.Job, mode patterns.Mode, p *progress) (*analysis
 		return nil, err
 	}
 	return &analysis{job: job, lay: lay, sol: sol, env: env, faces: faces, runs: rs}, nil
+}
+
+// acceptHint adds to a refusal for ill-conditioning the flag that
+// overrides it.
+func acceptHint(err error) error {
+	var ice *frame.IllConditionedError
+	if errors.As(err, &ice) && ice.Acceptable {
+		return fmt.Errorf("%w (govern run --accept-ill-conditioned solves it anyway, and every output then carries the estimate)", err)
+	}
+	return err
+}
+
+// conditionNote says, when the stiffness matrix is ill-conditioned enough
+// to warn about, its estimated condition number and what it costs; every
+// output carries it then. It is "" otherwise.
+func (a *analysis) conditionNote() string {
+	c := a.sol.Cond()
+	if !(c > frame.WarnCond) {
+		return ""
+	}
+	accepted := ""
+	if c > frame.RefuseCond {
+		accepted = fmt.Sprintf(", above the limit %.0e: solved only because --accept-ill-conditioned was given", frame.RefuseCond)
+	}
+	return fmt.Sprintf("Ill-conditioned stiffness matrix: estimated condition number %.2g%s; results may have lost about %.0f of their 16 significant digits.", c, accepted, math.Log10(c))
 }

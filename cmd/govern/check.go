@@ -36,9 +36,15 @@ See docs/errors.md.`,
 		mo := job.Model
 		// The stiffness of the frame alone: its factorization finds a
 		// mechanism and estimates the condition number.
-		stiff, err := frame.Solve(&frame.Model{Nodes: mo.Nodes, Sections: mo.Sections, Members: mo.Members})
+		// The node loads come along: a moment where every member end is
+		// released is a mechanism for that case.
+		cases := make([]frame.Case, len(mo.Cases))
+		for i, c := range mo.Cases {
+			cases[i] = frame.Case{Name: c.Name, Kind: c.Kind, NodeLoads: c.NodeLoads}
+		}
+		stiff, err := frame.Solve(&frame.Model{Nodes: mo.Nodes, Sections: mo.Sections, Members: mo.Members, Cases: cases})
 		if err != nil {
-			return fmt.Errorf("%s: %w", name, err)
+			return fmt.Errorf("%s: %w", name, acceptHint(err))
 		}
 		env.warn(name, stiff.Warnings())
 		info := stiff.Info()

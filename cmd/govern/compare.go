@@ -11,6 +11,7 @@ import (
 
 	"govern/cmd/govern/modelfile"
 	"govern/envelope"
+	"govern/frame"
 	"govern/patterns"
 )
 
@@ -32,7 +33,7 @@ type shortfall struct {
 
 // comparePatterns analyses the job with exact and with code placement and
 // reports, member by member, the largest shortfall of the code envelope.
-func comparePatterns(w io.Writer, job *modelfile.Job) error {
+func comparePatterns(w io.Writer, job *modelfile.Job, opt frame.Options) error {
 	if len(job.Patterned) == 0 {
 		return errNothingPatterned
 	}
@@ -40,11 +41,11 @@ func comparePatterns(w io.Writer, job *modelfile.Job) error {
 	set.AllSpans = true
 	j2 := *job
 	j2.Settings = set
-	ex, err := analyseWith(&j2, patterns.Exact, nil)
+	ex, err := analyseWith(&j2, patterns.Exact, nil, opt)
 	if err != nil {
 		return err
 	}
-	code, err := analyseWith(&j2, patterns.Code, nil)
+	code, err := analyseWith(&j2, patterns.Code, nil, opt)
 	if err != nil {
 		return err
 	}

@@ -60,7 +60,7 @@ edit; an existing file is not overwritten.`,
 			return fmt.Errorf("demo.toml: %w", err)
 		}
 		p := newProgress(env.stderr, env.name, f.quiet)
-		a, err := analyseWith(job, job.Patterns, p)
+		a, err := analyseWith(job, job.Patterns, p, f.options())
 		p.end()
 		if err != nil {
 			return fmt.Errorf("demo.toml: %w", err)

@@ -45,6 +45,11 @@ func (a *analysis) writeJSON(w io.Writer, bal []caseBalance) error {
 		j.sep(i, ", ").str(mo.Cases[c].Name)
 	}
 	j.raw("]}")
+	if a.conditionNote() != "" {
+		c := a.sol.Cond()
+		j.raw(",\n \"condition\": {\"estimate\": ").num(c).raw(", \"digits_lost\": ").num(math.Round(math.Log10(c)))
+		j.raw(", \"accepted\": ").boolean(c > frame.RefuseCond).raw("}")
+	}
 	j.raw(",\n \"combinations\": [")
 	for i, cb := range a.env.Combinations {
 		j.sep(i, ",").raw("\n  {\"name\": ").bytes(combo[i]).raw(", \"factors\": {")
@@ -134,7 +139,7 @@ func (a *analysis) writeJSON(w io.Writer, bal []caseBalance) error {
 		j.raw(", \"reactions\": ")
 		res(b.Reactions)
 		j.raw(", \"joint_residual\": {\"force\": ").num(b.JointForce).raw(", \"moment\": ").num(b.JointMoment).raw("}")
-		j.raw(", \"relative\": ").num(b.Relative()).raw(", \"limit\": ").num(staticsLimit)
+		j.raw(", \"relative\": ").num(b.Relative()).raw(", \"limit\": ").num(cb.limit())
 		if cb.ok() {
 			j.raw(", \"ok\": true}")
 		} else {

@@ -86,6 +86,15 @@ func (a *analysis) writeCSV(w io.Writer) error {
 			}
 		}
 	}
+	if a.conditionNote() != "" {
+		// One last row for the whole model; its columns are those of the
+		// others (docs/output.md).
+		row := make([]string, 19)
+		row[2], row[3] = "condition_number", num(a.sol.Cond())
+		if err := cw.Write(row); err != nil {
+			return err
+		}
+	}
 	cw.Flush()
 	return cw.Error()
 }

@@ -80,7 +80,11 @@ func (a *analysis) writeReport(w io.Writer, bal []caseBalance) error {
 	h.printf("<header>\n<h1>%s</h1>\n", esc(title))
 	h.printf("<p class=\"meta\">Envelopes of N, V and M by the direct stiffness method; %s; units: force %s, length %s.</p>\n",
 		esc(a.combinationCount()), esc(a.job.Units.Force), esc(a.job.Units.Length))
-	h.printf("<p class=\"caution\"><strong>Caution.</strong> %s</p>\n</header>\n", esc(caution))
+	h.printf("<p class=\"caution\"><strong>Caution.</strong> %s</p>\n", esc(caution))
+	if note := a.conditionNote(); note != "" {
+		h.printf("<p class=\"caution\">%s</p>\n", esc(note))
+	}
+	h.raw("</header>\n")
 
 	groups := a.groups()
 	h.raw("<nav><h2>Contents</h2><ol>\n")

@@ -7,6 +7,8 @@ import (
 	"os"
 	"path/filepath"
 	"strings"
+
+	"govern/frame"
 )
 
 type runFlags struct {
@@ -15,6 +17,12 @@ type runFlags struct {
 	comparePatterns bool
 	crossCheck      bool
 	quiet           bool
+	acceptIll       bool
+}
+
+// options returns the solver options the flags ask for.
+func (f *runFlags) options() frame.Options {
+	return frame.Options{AcceptIllConditioned: f.acceptIll}
 }
 
 func addRunFlags(fs *flag.FlagSet, f *runFlags) {
@@ -25,11 +33,12 @@ func addRunFlags(fs *flag.FlagSet, f *runFlags) {
 	fs.BoolVar(&f.comparePatterns, "compare-patterns", false, "report how far the code pattern arrangements fall short of exact placement, member by member, instead of the envelopes")
 	fs.BoolVar(&f.quiet, "quiet", false, "print nothing on success: no tables, no progress line (files are still written)")
 	fs.BoolVar(&f.crossCheck, "cross-check", false, "solve every case again by moment distribution and print the largest difference in member end moments")
+	fs.BoolVar(&f.acceptIll, "accept-ill-conditioned", false, fmt.Sprintf("solve a model whose stiffness matrix has an estimated condition number above %.0e (fewer than three correct digits left), which is refused otherwise; every output then carries the estimate", frame.RefuseCond))
 }
 
 var cmdRun = &command{
 	name:  "run",
-	usage: "[--json FILE] [--csv FILE] [--report FILE.html | --out DIR] [--quiet] [--compare-patterns] [--cross-check] MODEL.toml",
+	usage: "[--json FILE] [--csv FILE] [--report FILE.html | --out DIR] [--quiet] [--compare-patterns] [--cross-check] [--accept-ill-conditioned] MODEL.toml",
 	short: "analyse a model and report its envelopes",
 	long: fmt.Sprintf(`
 Run reads the model file, solves every load case by the direct stiffness
@@ -70,10 +79,15 @@ terminal; --quiet prints nothing but errors. When JSON or CSV goes to standard
 output the summary tables are not printed.
 
 Every run checks statics for each load case: the reactions against the
-applied loads in X, Y and moment about the origin, and the largest
+applied loads in X, Y and moment about the lower left corner of the
+frame (the smallest x and y of any node), and the largest
 out-of-balance force and moment at any joint. The check is printed and
 carried in the JSON; a case out of balance by more than %g of its load
-fails the run and nothing is written.
+(or, for an ill-conditioned stiffness matrix, than the round-off its
+condition number allows, docs/analysis.md) fails the run and nothing is
+written. A model whose stiffness matrix is so ill-conditioned that fewer
+than three digits would be left is refused unless --accept-ill-conditioned
+is given; the outputs then carry the estimated condition number.
 
 A load case that no combination uses would be left out of every envelope:
 run refuses the model, naming the case, unless [combinations] has
@@ -117,13 +131,13 @@ the signs.`, staticsLimit),
 			fmt.Fprintf(env.stderr, "%s: note: %s: %s\n", env.name, escape(name), escape(n))
 		}
 		if f.comparePatterns {
-			return comparePatterns(env.stdout, job)
+			return comparePatterns(env.stdout, job, f.options())
 		}
 		if err := checkSize(job, f); err != nil {
 			return fmt.Errorf("%s: %w", name, err)
 		}
 		p := newProgress(env.stderr, env.name, f.quiet)
-		a, err := analyseWith(job, job.Patterns, p)
+		a, err := analyseWith(job, job.Patterns, p, f.options())
 		if err != nil {
 			p.end()
 			return fmt.Errorf("%s: %w", name, err)
@@ -274,6 +288,9 @@ func (a *analysis) writeHeading(w io.Writer) {
 			names = append(names, escape(mo.Cases[c].Name))
 		}
 		fmt.Fprintf(w, "Patterned cases %s: %s placement, %d pieces (%d per beam)\n", strings.Join(names, ", "), a.lay.Mode, len(a.lay.Pieces), a.lay.Segments)
+	}
+	if note := a.conditionNote(); note != "" {
+		fmt.Fprintf(w, "%s\n", note)
 	}
 	fmt.Fprintf(w, "Units: force %s, length %s. N tension positive; beams: x from the left end, M sagging positive (lower face in tension); columns: local -y face in tension; V = dM/dx.\n\n", escape(a.job.Units.Force), escape(a.job.Units.Length))
 }

@@ -3,6 +3,7 @@ package main
 import (
 	"fmt"
 	"io"
+	"math"
 	"strconv"
 	"strings"
 
@@ -18,9 +19,16 @@ const staticsLimit = 1e-6
 type caseBalance struct {
 	name string
 	b    frame.Balance
+	// roundOff is the imbalance round-off alone may leave
+	// (frame.Solution.RoundOff); it raises the limit above staticsLimit for
+	// an ill-conditioned stiffness matrix.
+	roundOff float64
 }
 
-func (cb caseBalance) ok() bool { return cb.b.Relative() <= staticsLimit }
+// limit is the largest imbalance the check accepts.
+func (cb caseBalance) limit() float64 { return math.Max(staticsLimit, cb.roundOff) }
+
+func (cb caseBalance) ok() bool { return cb.b.Relative() <= cb.limit() }
 
 // balances returns the statics check of every load case of the model. A
 // patterned case was solved as several loads (its rest and its pieces or
@@ -29,7 +37,7 @@ func (a *analysis) balances() []caseBalance {
 	cs := a.job.Model.Cases
 	out := make([]caseBalance, len(cs))
 	for c := range cs {
-		out[c] = caseBalance{name: cs[c].Name, b: a.sol.BalanceOf(a.lay.Whole(c))}
+		out[c] = caseBalance{name: cs[c].Name, b: a.sol.BalanceOf(a.lay.Whole(c)), roundOff: a.sol.RoundOff()}
 	}
 	return out
 }
@@ -43,8 +51,8 @@ func staticsError(bs []caseBalance) error {
 			continue
 		}
 		o := cb.b.Out()
-		bad = append(bad, fmt.Sprintf("case %q is out of balance by %.2g of its load (limit %g): reactions miss the loads by Fx %.3g, Fy %.3g, M %.3g; largest joint residual force %.3g, moment %.3g",
-			cb.name, cb.b.Relative(), staticsLimit, o.Fx, o.Fy, o.M, cb.b.JointForce, cb.b.JointMoment))
+		bad = append(bad, fmt.Sprintf("case %q is out of balance by %.2g of its load (limit %.2g): reactions miss the loads by Fx %.3g, Fy %.3g, M %.3g; largest joint residual force %.3g, moment %.3g",
+			cb.name, cb.b.Relative(), cb.limit(), o.Fx, o.Fy, o.M, cb.b.JointForce, cb.b.JointMoment))
 	}
 	if len(bad) == 0 {
 		return nil
@@ -63,8 +71,16 @@ func (a *analysis) writeStatics(w io.Writer, bs []caseBalance) error {
 // staticsTable gives the statics check of every case.
 func (a *analysis) staticsTable(tb tables, bs []caseBalance) error {
 	u := a.job.Units
-	if err := tb.note(fmt.Sprintf("\nStatics check of each load case: sums about the global origin, forces in %s, moments in %s;\n"+
-		"largest joint residual as force / moment; out of balance as a fraction of the load, limit %g", u.Force, u.Moment(), staticsLimit)); err != nil {
+	limit := staticsLimit
+	if len(bs) > 0 {
+		limit = bs[0].limit()
+	}
+	about := "the global origin"
+	if len(bs) > 0 && (bs[0].b.X0 != 0 || bs[0].b.Y0 != 0) {
+		about = fmt.Sprintf("(%s, %s), the lower left corner of the frame", strconv.FormatFloat(bs[0].b.X0, 'g', -1, 64), strconv.FormatFloat(bs[0].b.Y0, 'g', -1, 64))
+	}
+	if err := tb.note(fmt.Sprintf("\nStatics check of each load case: sums about %s, forces in %s, moments in %s;\n"+
+		"largest joint residual as force / moment; out of balance as a fraction of the load, limit %.2g", about, u.Force, u.Moment(), limit)); err != nil {
 		return err
 	}
 	var rows [][]string
