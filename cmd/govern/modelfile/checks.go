@@ -19,6 +19,7 @@ type checks struct {
 	nodeAt   tablesBy // the [[node]] table that defined or changed each node
 	memberAt tablesBy // the [[member]] table that defined or changed each member
 	passes   passesBy // nodes each member may pass by without being joined to them
+	ends     [][2]int // the nodes each [[member]] table names as start and end (-1: none), built or not
 
 	gridFailed bool // a [grid] was given but could not be generated
 	spacingBad bool // its spacing was given but is not valid
@@ -101,8 +102,8 @@ func (r *reader) checkModel(top *table) {
 	if !cases {
 		r.fail(0, "", problem(ErrMissing, "the model has no load cases: give at least one [[case]]"))
 	}
-	r.checkConnected(top)
-	r.checkPositions(top)
+	r.checkConnected()
+	r.checkPositions()
 	r.checkMemberEnds()
 	r.checkOnMembers()
 	free := 0
@@ -119,29 +120,10 @@ func (r *reader) checkModel(top *table) {
 	}
 }
 
-// rawEnds returns the nodes that each [[member]] table names as its start
-// and end, -1 where the name is not a node, whether or not the member could
-// be built.
-func (r *reader) rawEnds(top *table) [][2]int {
-	ts, _ := top.m["member"].([]map[string]any)
-	out := make([][2]int, len(ts))
-	for i, t := range ts {
-		for j, k := range []string{"start", "end"} {
-			out[i][j] = -1
-			if s, ok := t[k].(string); ok {
-				if n, ok := r.nodes[s]; ok {
-					out[i][j] = n
-				}
-			}
-		}
-	}
-	return out
-}
-
 // checkConnected reports nodes that no member joins. While some [[member]]
 // table could not be built it reports nothing: that member may be the one
 // meant to join the node, and its own problem is reported.
-func (r *reader) checkConnected(top *table) {
+func (r *reader) checkConnected() {
 	if len(r.broken) > 0 {
 		return
 	}
@@ -150,7 +132,7 @@ func (r *reader) checkConnected(top *table) {
 	for _, m := range mo.Members {
 		joined[mo.Nodes[m.Start].Name], joined[mo.Nodes[m.End].Name] = true, true
 	}
-	for _, e := range r.rawEnds(top) {
+	for _, e := range r.ends {
 		for _, n := range e {
 			if n >= 0 {
 				joined[mo.Nodes[n].Name] = true
@@ -168,10 +150,10 @@ func (r *reader) checkConnected(top *table) {
 // checkPositions reports a node within coordTol of an earlier one, against
 // the first such, unless the two share a name (reported as defined twice)
 // or a member joins them (reported as having zero length).
-func (r *reader) checkPositions(top *table) {
+func (r *reader) checkPositions() {
 	mo := r.job.Model
 	joins := map[[2]int]bool{}
-	for _, e := range r.rawEnds(top) {
+	for _, e := range r.ends {
 		joins[[2]int{min(e[0], e[1]), max(e[0], e[1])}] = true
 	}
 	xs, ys := r.coordinates()

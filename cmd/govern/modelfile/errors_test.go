@@ -3,6 +3,8 @@ package modelfile
 import (
 	"errors"
 	"fmt"
+	"os"
+	"path/filepath"
 	"strings"
 	"testing"
 )
@@ -226,8 +228,8 @@ func TestReadBadInput(t *testing.T) {
 		// Limits.
 		{name: "grid past a million degrees of freedom", edit: []string{"[[section]]", "[grid]\nbays = [" + strings.Repeat("1.0, ", 999) + "1.0]\nstoreys = [" + strings.Repeat("1.0, ", 399) + "1.0]\ncolumn = \"S\"\nbeam = \"S\"\n[[section]]"},
 			want: "m.toml:1: [grid]: 1001 column lines × 401 levels make 401,401 nodes with 1,201,200 free degrees of freedom; the limit is 1,000,000\n" + gridNote, sentinel: ErrTooLarge},
-		{name: "file past the size limit", src: "title = \"" + strings.Repeat("x", MaxFileSize) + "\"\n",
-			want: fmt.Sprintf("m.toml: the file is %d bytes; the limit is %d (64 MiB)", MaxFileSize+11, MaxFileSize), sentinel: ErrTooLarge},
+		{name: "more entries than the limit", src: "x = [" + strings.Repeat("{},", MaxEntries/inlineEntries) + "{}]\n",
+			want: "m.toml: the file has 6,000,004 entries (keys and tables, an inline table counting as 3); the limit is 6,000,000", sentinel: ErrTooLarge},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
 			src := tc.src
@@ -361,5 +363,34 @@ func TestEveryValidateCheckIsMadeByTheReader(t *testing.T) {
 				}
 			}
 		})
+	}
+}
+
+// TestReadRefusesALargeFile: a file past MaxFileSize is refused before it
+// is looked at (the bytes of this one are never touched, so it costs no
+// memory).
+func TestReadRefusesALargeFile(t *testing.T) {
+	_, err := Read("m.toml", make([]byte, MaxFileSize+1))
+	want := fmt.Sprintf("m.toml: the file is %d bytes; the limit is %d (%d MiB)", MaxFileSize+1, MaxFileSize, MaxFileSize>>20)
+	if err == nil || err.Error() != want || !errors.Is(err, ErrTooLarge) {
+		t.Errorf("error\n got: %v\nwant: %s", err, want)
+	}
+}
+
+// TestLimitsAreDocumented: docs/errors.md gives the limits of the reader
+// as they are.
+func TestLimitsAreDocumented(t *testing.T) {
+	doc, err := os.ReadFile(filepath.Join("..", "..", "..", "docs", "errors.md"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, row := range []string{
+		fmt.Sprintf("| model file | %d MiB |", MaxFileSize>>20),
+		fmt.Sprintf("| entries of a model file: keys and table headers, an inline table counting as %d | %s |", inlineEntries, Thousands(MaxEntries)),
+		fmt.Sprintf("| nesting of arrays and inline tables, parts of a dotted key | %d |", MaxNesting),
+	} {
+		if !strings.Contains(string(doc), row) {
+			t.Errorf("docs/errors.md has no row %q", row)
+		}
 	}
 }

@@ -74,7 +74,7 @@ type keyPositions struct {
 type keyEntry struct {
 	parent, first, next int32 // tree links; -1 for none, rootEntry for the top level
 	name                int32
-	line, off           int32 // 1-based line; byte offset
+	line, off           int32 // 1-based line; byte offset (for a column, when one is wanted)
 	kind                entryKind
 }
 
@@ -88,8 +88,6 @@ const (
 	kindElem                        // [[array]] element
 	kindInlineElem                  // an inline table inside an array value
 )
-
-func (k entryKind) isTable() bool { return k != kindKey }
 
 // newKeyPositions checks src against keys, the keys its decoder read in
 // file order (MetaData.Keys), and returns what can then locate them.
@@ -111,15 +109,6 @@ func (kp *keyPositions) line(p *place, key string) int {
 		return 0
 	}
 	return int(kp.entries[e].line)
-}
-
-// offset returns the byte offset in the source of what line finds, or -1.
-func (kp *keyPositions) offset(p *place, key string) int {
-	e := kp.lookup(p, key)
-	if e <= 0 {
-		return -1
-	}
-	return int(kp.entries[e].off)
 }
 
 func (kp *keyPositions) lookup(p *place, key string) int32 {

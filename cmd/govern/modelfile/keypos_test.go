@@ -168,7 +168,7 @@ func FuzzKeyPositions(f *testing.F) {
 		f.Add(a + keySnippets[(i+7)%len(keySnippets)])
 	}
 	f.Fuzz(func(t *testing.T, src string) {
-		if _, _, msg := guard(src); msg != "" {
+		if _, _, msg, _ := guard(src); msg != "" {
 			return // nested deeper than the reader lets the decoder see
 		}
 		var raw map[string]any

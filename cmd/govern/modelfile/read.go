@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"slices"
 	"sort"
 
 	"github.com/BurntSushi/toml"
@@ -59,9 +60,14 @@ func ReadAt(dir, name string, src []byte) (*Job, error) {
 		return nil, Errors{{File: name, Err: problem(ErrTooLarge, "the file is %d bytes; the limit is %d (%d MiB)", len(src), MaxFileSize, MaxFileSize>>20)}}
 	}
 	text := string(src)
-	if line, off, msg := guard(text); line > 0 {
+	line, off, msg, entries := guard(text)
+	if line > 0 {
 		col, ex := excerpt(text, line, off)
 		return nil, Errors{{File: name, Line: line, Column: col, Err: problem(ErrSyntax, "%s%s", msg, ex)}}
+	}
+	if entries > MaxEntries {
+		return nil, Errors{{File: name, Err: problem(ErrTooLarge, "the file has %s entries (keys and tables, an inline table counting as %d); the limit is %s",
+			Thousands(entries), inlineEntries, Thousands(MaxEntries))}}
 	}
 	var raw map[string]any
 	md, err := toml.Decode(text, &raw)
@@ -301,48 +307,56 @@ func (r *reader) readNodes(ts []*table) {
 		r.nodes = map[string]int{}
 	}
 	mo := r.job.Model
+	mo.Nodes = slices.Grow(mo.Nodes, len(ts))
 	for _, t := range ts {
-		name := t.str("name", "")
-		if !t.need("name") {
-			t.done()
-			continue
-		}
-		r.nonEmptyName(t, name, "")
-		if r.gridFailed && !t.has("x") && !t.has("y") {
-			// Most likely a change to a node of the grid, which was not
-			// generated: nothing to check it against.
-			t.skipRest()
-			continue
-		}
-		if i, ok := r.nodes[name]; ok && r.job.Grid != nil && r.job.Grid.isGridNode(i) {
-			// A grid node named again: it may change the support; its
-			// position is the grid's.
-			if prev := r.nodeAt.at(i); prev != nil {
-				t.fail("name", problem(ErrDuplicate, "grid node %q is already changed at line %d; give each grid node one [[node]] table", name, prev.line("name")))
-			}
-			nd := &mo.Nodes[i]
-			x, y := t.num("x", nd.X), t.num("y", nd.Y)
-			if math.Abs(x-nd.X) > coordTol || math.Abs(y-nd.Y) > coordTol {
-				t.fail("x", problem(ErrValue, "grid node %q is at (%g, %g), not (%g, %g); a [[node]] may only change a grid node's support", name, nd.X, nd.Y, x, y))
-			}
-			nd.Support = r.support(t, nd.Support)
-			r.nodeAt.set(i, t)
-			t.done()
-			continue
-		} else if ok {
-			t.fail("name", problem(ErrDuplicate, "node %q is defined twice", name))
-		}
-		has := t.need("x")
-		has = t.need("y") && has
-		// An invalid coordinate is NaN, so that no check compares with it.
-		nd := frame.Node{Name: name, X: t.num("x", math.NaN()), Y: t.num("y", math.NaN()), Support: r.support(t, frame.Free)}
-		if has {
-			r.nodes[name] = len(mo.Nodes)
-			r.nodeAt.set(len(mo.Nodes), t)
-			mo.Nodes = append(mo.Nodes, nd)
-		}
-		t.done()
+		r.readNode(t)
+		t.release()
 	}
+}
+
+// readNode reads one [[node]] table.
+func (r *reader) readNode(t *table) {
+	mo := r.job.Model
+	name := t.str("name", "")
+	if !t.need("name") {
+		t.done()
+		return
+	}
+	r.nonEmptyName(t, name, "")
+	if r.gridFailed && !t.has("x") && !t.has("y") {
+		// Most likely a change to a node of the grid, which was not
+		// generated: nothing to check it against.
+		t.skipRest()
+		return
+	}
+	if i, ok := r.nodes[name]; ok && r.job.Grid != nil && r.job.Grid.isGridNode(i) {
+		// A grid node named again: it may change the support; its
+		// position is the grid's.
+		if prev := r.nodeAt.at(i); prev != nil {
+			t.fail("name", problem(ErrDuplicate, "grid node %q is already changed at line %d; give each grid node one [[node]] table", name, prev.line("name")))
+		}
+		nd := &mo.Nodes[i]
+		x, y := t.num("x", nd.X), t.num("y", nd.Y)
+		if math.Abs(x-nd.X) > coordTol || math.Abs(y-nd.Y) > coordTol {
+			t.fail("x", problem(ErrValue, "grid node %q is at (%g, %g), not (%g, %g); a [[node]] may only change a grid node's support", name, nd.X, nd.Y, x, y))
+		}
+		nd.Support = r.support(t, nd.Support)
+		r.nodeAt.set(i, t)
+		t.done()
+		return
+	} else if ok {
+		t.fail("name", problem(ErrDuplicate, "node %q is defined twice", name))
+	}
+	has := t.need("x")
+	has = t.need("y") && has
+	// An invalid coordinate is NaN, so that no check compares with it.
+	nd := frame.Node{Name: name, X: t.num("x", math.NaN()), Y: t.num("y", math.NaN()), Support: r.support(t, frame.Free)}
+	if has {
+		r.nodes[name] = len(mo.Nodes)
+		r.nodeAt.set(len(mo.Nodes), t)
+		mo.Nodes = append(mo.Nodes, nd)
+	}
+	t.done()
 }
 
 // coordTol is the distance under which two coordinates are the same.
@@ -373,82 +387,102 @@ func (r *reader) readMembers(ts []*table) {
 	}
 	r.broken = map[string]bool{}
 	r.passes = passesBy{}
+	r.ends = make([][2]int, 0, len(ts))
 	mo := r.job.Model
+	mo.Members = slices.Grow(mo.Members, len(ts))
 	for _, t := range ts {
-		name := t.str("name", "")
-		if i, ok := r.members[name]; ok && r.job.Grid != nil && r.job.Grid.isGridMember(i) {
-			// A grid member named again: section and release may change.
-			if prev := r.memberAt.at(i); prev != nil {
-				t.fail("name", problem(ErrDuplicate, "grid member %q is already changed at line %d; give each grid member one [[member]] table", name, prev.line("name")))
-			}
-			m := &mo.Members[i]
-			for _, k := range []string{"start", "end"} {
-				if t.has(k) {
-					if n, ok := r.node(t, k); ok && n != [2]int{m.Start, m.End}[map[string]int{"start": 0, "end": 1}[k]] {
-						t.fail(k, problem(ErrValue, "grid member %q: %s cannot be changed", name, k))
-					}
-				}
-			}
-			if t.has("section") {
-				if s, ok := r.section(t, "section"); ok {
-					m.Section = s
-				}
-			}
-			m.Release = r.release(t, m.Release)
-			r.readPasses(t, i)
-			r.memberAt.set(i, t)
-			t.done()
-			continue
-		}
-		if r.gridFailed && !t.has("start") && !t.has("end") {
-			// Most likely a change to a member of the grid, which was not
-			// generated: nothing to check it against.
-			t.skipRest()
-			r.broken[name] = true
-			continue
-		}
-		a, okA := r.node(t, "start")
-		b, okB := r.node(t, "end")
-		s, okS := 0, false
-		if t.need("section") {
-			s, okS = r.section(t, "section")
-		}
-		rel := r.release(t, frame.ReleaseNone)
-		i := len(mo.Members)
-		passes := r.readPasses(t, i)
-		t.done()
-		def := t.str("start", "") + "-" + t.str("end", "")
-		if t.has("start") && t.has("end") {
-			r.nonEmptyName(t, name, def)
-		} else {
-			r.nonEmptyName(t, name, "")
-		}
-		if name == "" {
-			name = def
-		}
-		if isSelector(name) {
-			t.fail("name", problem(ErrValue, "the name %q reads as a member selector (%s): choose another name", name, selectorWords))
-		}
-		if !okA || !okB || !okS {
-			r.broken[name] = true
-			r.dropPasses(passes, i)
-			continue
-		}
-		if _, dup := r.members[name]; dup {
-			t.fail("name", problem(ErrDuplicate, "member %q is defined twice", name))
-			r.dropPasses(passes, i)
-			continue
-		}
-		if a == b || math.Hypot(mo.Nodes[b].X-mo.Nodes[a].X, mo.Nodes[b].Y-mo.Nodes[a].Y) <= coordTol {
-			t.fail("end", problem(ErrValue, "member %q has zero length", name))
-			r.broken[name] = true
-			r.dropPasses(passes, i)
-			continue
-		}
-		r.members[name] = i
-		r.memberAt.set(i, t)
-		mo.Members = append(mo.Members, frame.Member{Name: name, Start: a, End: b, Section: s, Release: rel})
+		r.readMember(t)
+		t.release()
 	}
+}
+
+// readMember reads one [[member]] table.
+func (r *reader) readMember(t *table) {
+	mo := r.job.Model
+	r.ends = append(r.ends, [2]int{r.nodeIndex(t.m["start"]), r.nodeIndex(t.m["end"])})
+	name := t.str("name", "")
+	if i, ok := r.members[name]; ok && r.job.Grid != nil && r.job.Grid.isGridMember(i) {
+		// A grid member named again: section and release may change.
+		if prev := r.memberAt.at(i); prev != nil {
+			t.fail("name", problem(ErrDuplicate, "grid member %q is already changed at line %d; give each grid member one [[member]] table", name, prev.line("name")))
+		}
+		m := &mo.Members[i]
+		for _, k := range []string{"start", "end"} {
+			if t.has(k) {
+				if n, ok := r.node(t, k); ok && n != [2]int{m.Start, m.End}[map[string]int{"start": 0, "end": 1}[k]] {
+					t.fail(k, problem(ErrValue, "grid member %q: %s cannot be changed", name, k))
+				}
+			}
+		}
+		if t.has("section") {
+			if s, ok := r.section(t, "section"); ok {
+				m.Section = s
+			}
+		}
+		m.Release = r.release(t, m.Release)
+		r.readPasses(t, i)
+		r.memberAt.set(i, t)
+		t.done()
+		return
+	}
+	if r.gridFailed && !t.has("start") && !t.has("end") {
+		// Most likely a change to a member of the grid, which was not
+		// generated: nothing to check it against.
+		t.skipRest()
+		r.broken[name] = true
+		return
+	}
+	a, okA := r.node(t, "start")
+	b, okB := r.node(t, "end")
+	s, okS := 0, false
+	if t.need("section") {
+		s, okS = r.section(t, "section")
+	}
+	rel := r.release(t, frame.ReleaseNone)
+	i := len(mo.Members)
+	passes := r.readPasses(t, i)
+	t.done()
+	def := t.str("start", "") + "-" + t.str("end", "")
+	if t.has("start") && t.has("end") {
+		r.nonEmptyName(t, name, def)
+	} else {
+		r.nonEmptyName(t, name, "")
+	}
+	if name == "" {
+		name = def
+	}
+	if isSelector(name) {
+		t.fail("name", problem(ErrValue, "the name %q reads as a member selector (%s): choose another name", name, selectorWords))
+	}
+	if !okA || !okB || !okS {
+		r.broken[name] = true
+		r.dropPasses(passes, i)
+		return
+	}
+	if _, dup := r.members[name]; dup {
+		t.fail("name", problem(ErrDuplicate, "member %q is defined twice", name))
+		r.dropPasses(passes, i)
+		return
+	}
+	if a == b || math.Hypot(mo.Nodes[b].X-mo.Nodes[a].X, mo.Nodes[b].Y-mo.Nodes[a].Y) <= coordTol {
+		t.fail("end", problem(ErrValue, "member %q has zero length", name))
+		r.broken[name] = true
+		r.dropPasses(passes, i)
+		return
+	}
+	r.members[name] = i
+	r.memberAt.set(i, t)
+	mo.Members = append(mo.Members, frame.Member{Name: name, Start: a, End: b, Section: s, Release: rel})
+}
+
+// nodeIndex returns the node named v, or -1.
+func (r *reader) nodeIndex(v any) int {
+	if s, ok := v.(string); ok {
+		if n, ok := r.nodes[s]; ok {
+			return n
+		}
+	}
+	return -1
 }
 
 // readPasses reads the nodes member i may pass by without being joined to

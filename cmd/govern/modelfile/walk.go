@@ -265,7 +265,22 @@ func (t *table) array(key string, where func(i int, m map[string]any) string) []
 	for i, m := range ms {
 		out[i] = &table{r: t.r, m: m, pos: t.pos.elemPlace(key, i), where: where(i, m)}
 	}
+	// From now on each element is held by its table alone, so that
+	// release can let it go.
+	switch x := v.(type) {
+	case []map[string]any:
+		clear(x)
+	case []any:
+		clear(x)
+	}
 	return out
+}
+
+// release lets the table's values go once they are read: a large model's
+// decoded tables then need not all stay in memory while it is built. The
+// table can still report problems.
+func (t *table) release() {
+	t.m, t.used = nil, nil
 }
 
 // skipRest marks every key of the table as read, so that done reports
