@@ -81,6 +81,8 @@ func TestReadBadInput(t *testing.T) {
 			want: `m.toml:6: section "S": depth must be a number, not a string`, sentinel: ErrType},
 		{name: "service given as a number", edit: []string{"factors = { G = 1.4 }", "factors = { G = 1.4 }\nservice = 1"},
 			want: `m.toml:31: combination "1.4G": service must be true or false, not an integer`, sentinel: ErrType},
+		{name: "a node named by a number is reported once", edit: []string{`start = "a"`, `start = 1`},
+			want: `m.toml:17: member 1: start must be a string, not an integer`, sentinel: ErrType},
 		{name: "string or array expected for a selector", edit: []string{`on = "a-b"`, `on = 3`},
 			want: `m.toml:25: case "G", load 1: on must be a string or an array of strings, not an integer`, sentinel: ErrType},
 		{name: "factor of the wrong type, at its line", edit: []string{"factors = { G = 1.4 }", "\nfactors = { G = \"1.4\" }"},

@@ -262,7 +262,7 @@ func (r *reader) support(t *table, def frame.Support) frame.Support {
 func (r *reader) section(t *table, key string) (int, bool) {
 	name := t.str(key, "")
 	i, ok := r.sections[name]
-	if !ok && t.has(key) {
+	if _, isString := t.m[key].(string); !ok && isString {
 		msg := fmt.Sprintf("%s = %q: no such section", key, name)
 		if s := r.suggest(name, r.sections); s != "" {
 			msg += fmt.Sprintf(" (did you mean %q?)", s)
@@ -367,6 +367,9 @@ func (r *reader) node(t *table, key string) (int, bool) {
 		return 0, false
 	}
 	name := t.str(key, "")
+	if _, isString := t.m[key].(string); !isString {
+		return 0, false // its type is reported
+	}
 	i, ok := r.nodes[name]
 	if !ok && r.gridFailed {
 		return i, false // perhaps a node of the grid, which was not generated
@@ -442,8 +445,10 @@ func (r *reader) readMember(t *table) {
 	i := len(mo.Members)
 	passes := r.readPasses(t, i)
 	t.done()
-	def := t.str("start", "") + "-" + t.str("end", "")
-	if t.has("start") && t.has("end") {
+	start, okStart := t.m["start"].(string) // already read and checked
+	end, okEnd := t.m["end"].(string)
+	def := start + "-" + end
+	if okStart && okEnd {
 		r.nonEmptyName(t, name, def)
 	} else {
 		r.nonEmptyName(t, name, "")
