@@ -72,10 +72,10 @@ type keyPositions struct {
 // keyEntry is one key or table of the document. Entries are numbered from
 // 1, in file order (entry 0 is unused, so that a zero place is unresolved).
 type keyEntry struct {
-	parent, first, next int32 // tree links; -1 for none, rootEntry for the top level
-	name                int32
-	line, off           int32 // 1-based line; byte offset (for a column, when one is wanted)
-	kind                entryKind
+	first, next int32 // first child and next sibling; -1 for none
+	name        int32
+	line, off   int32 // 1-based line; byte offset (for a column, when one is wanted)
+	kind        entryKind
 }
 
 type entryKind uint8
@@ -328,7 +328,7 @@ func (b *builder) name(s string) int32 {
 func (b *builder) add(parent, name int32, kind entryKind, off, line int) int32 {
 	kp := b.kp
 	e := int32(len(kp.entries))
-	kp.entries = append(kp.entries, keyEntry{parent: parent, first: -1, next: -1, name: name, line: int32(line), off: int32(off), kind: kind})
+	kp.entries = append(kp.entries, keyEntry{first: -1, next: -1, name: name, line: int32(line), off: int32(off), kind: kind})
 	b.last = append(b.last, -1)
 	li := int32(0) // index into last of the parent: the top level's is 0
 	if parent != rootEntry {
