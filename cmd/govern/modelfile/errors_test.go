@@ -156,7 +156,7 @@ func TestReadBadInput(t *testing.T) {
 		{name: "node joined to no member", edit: []string{"[[member]]", "[[node]]\nname = \"c\"\nx = 9\ny = 0\n[[member]]"},
 			want: `m.toml:17: node "c": node "c" is not joined to any member`, sentinel: ErrValue},
 
-		// Names that read as selectors (issue 12, item 4): a member so named
+		// Names that read as selectors: a member so named
 		// would capture the selector.
 		{name: "member named like a selector", edit: []string{"[[case]]", "[[node]]\nname = \"c\"\nx = 9\ny = 0\n[[member]]\nname = \"all beams\"\nstart = \"b\"\nend = \"c\"\nsection = \"S\"\n[[case]]"},
 			want: `m.toml:25: member "all beams": the name "all beams" reads as a member selector ("level N", "roof", "line A", "all beams", "all columns"): choose another name`, sentinel: ErrValue},
@@ -167,14 +167,14 @@ func TestReadBadInput(t *testing.T) {
 		{name: "member whose default name reads as a line", edit: []string{"name = \"a\"", "name = \"line B\"", "start = \"a\"", "start = \"line B\"", `on = "a-b"`, `on = "all beams"`},
 			want: `m.toml:16: member 1: the name "line B-b" reads as a member selector ("level N", "roof", "line A", "all beams", "all columns"): choose another name`, sentinel: ErrValue},
 
-		// A member picked twice by one load (item 5): refused, naming the
+		// A member picked twice by one load: refused, naming the
 		// member and both selectors.
 		{name: "member picked by a name and a keyword selector", edit: []string{`on = "a-b"`, `on = ["a-b", "all beams"]`},
 			want: `m.toml:25: case "G", load 1: on: "a-b" and "all beams" both pick member "a-b"; a load acts once on each member, so remove one of them`, sentinel: ErrDuplicate},
 		{name: "the same selector twice", edit: []string{`on = "a-b"`, `on = ["a-b", "a-b"]`},
 			want: `m.toml:25: case "G", load 1: on: "a-b" is given twice`, sentinel: ErrDuplicate},
 
-		// A node on a member it is not joined to (item 7).
+		// A node on a member it is not joined to.
 		{name: "node on a member's interior, not joined", edit: []string{"[[case]]", "[[node]]\nname = \"c\"\nx = 2.5\ny = 0\n[[node]]\nname = \"d\"\nx = 2.5\ny = 3\nsupport = \"fixed\"\n[[member]]\nstart = \"c\"\nend = \"d\"\nsection = \"S\"\n[[case]]"},
 			want: `m.toml:16: member 1: node "c" lies on member "a-b", 2.5 from its start, but is not joined to it: split the member at the node, or, if the two cross without a connection, give the member passes = ["c"]`, sentinel: ErrValue},
 		{name: "passes naming a node off the member", edit: []string{"section = \"S\"\n[[case]]", "section = \"S\"\npasses = \"b\"\n[[case]]"},
@@ -183,11 +183,11 @@ func TestReadBadInput(t *testing.T) {
 			want: `m.toml:20: member 1: passes: no node named "B" (did you mean "b"?)`, sentinel: ErrReference},
 
 		// Nodes within the tolerance of each other, whatever lies between
-		// them in any one order (item 8).
+		// them in any one order.
 		{name: "two nodes 1e-10 apart with a third between them in X", edit: []string{"[[case]]", "[[node]]\nname = \"c\"\nx = 5.0000000001\ny = 0\n[[node]]\nname = \"e\"\nx = 5.00000000005\ny = 7\n[[member]]\nstart = \"a\"\nend = \"c\"\nsection = \"S\"\n[[member]]\nstart = \"a\"\nend = \"e\"\nsection = \"S\"\n[[case]]"},
 			want: `m.toml:22: node "c": node "c" is at the same position (5.0000000001, 0) as node "b"`, sentinel: ErrDuplicate},
 
-		// Empty lists and names (item 10).
+		// Empty lists and names.
 		{name: "on is empty", edit: []string{`on = "a-b"`, `on = []`},
 			want: `m.toml:25: case "G", load 1: on is empty: name at least one member or selector`, sentinel: ErrValue},
 		{name: "an empty selector", edit: []string{`on = "a-b"`, `on = ["a-b", ""]`},
@@ -206,14 +206,14 @@ func TestReadBadInput(t *testing.T) {
 			want: `m.toml:19: member 1: section = "": no such section`, sentinel: ErrReference},
 
 		// A misspelt kind gets a suggestion, and nothing that depends on the
-		// kind is checked (item 22).
+		// kind is checked.
 		{name: "kind in capitals, patterned", edit: []string{`kind = "dead"`, "kind = \"Live\"\npattern = true"},
 			want: `m.toml:22: case "G": kind = "Live": must be one of "dead", "live", "roof-live", "snow", "rain", "wind", "seismic", "other" (did you mean "live"?)`, sentinel: ErrValue},
 		{name: "kind misspelt, reversible", edit: []string{`kind = "dead"`, "kind = \"wnid\"\nreversible = true"},
 			want: `m.toml:22: case "G": kind = "wnid": must be one of "dead", "live", "roof-live", "snow", "rain", "wind", "seismic", "other" (did you mean "wind"?)`, sentinel: ErrValue},
 
 		// Positions come from the decoder's keys, not from lines that look
-		// like table headers (item 23): the title's lines shift the rest by 5.
+		// like table headers: the title's lines shift the rest by 5.
 		{name: "a table header inside a multi-line title", edit: []string{"[[section]]", "title = \"\"\"\nFrame\n[[node]]\nx = 1\n\"\"\"\n[[section]]", "support = \"fixed\"\n[[member]]", "suport = \"fixed\"\n[[member]]"},
 			want: `m.toml:20: node "b": unknown key "suport" (did you mean "support"?)`, sentinel: ErrUnknownKey},
 		{name: "a table and a key inside a multi-line string", edit: []string{"[[section]]", "title = '''\n[[section]]\nE = 1\n'''\n[[section]]", "E = 200e6", "E = -1.0"},
