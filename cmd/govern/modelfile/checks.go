@@ -2,8 +2,9 @@ package modelfile
 
 import (
 	"fmt"
+	"maps"
 	"math"
-	"sort"
+	"slices"
 
 	"govern/frame"
 )
@@ -14,9 +15,14 @@ const MaxMemberLoads = 5_000_000
 
 // checks holds what the model-wide checks need beyond the model itself.
 type checks struct {
-	more     int            // problems found past MaxProblems
-	nodeAt   map[int]*table // the [[node]] table that defined each explicit node
-	memberAt map[int]*table // the [[member]] table that defined each explicit member
+	more     int      // problems found past MaxProblems
+	nodeAt   tablesBy // the [[node]] table that defined or changed each node
+	memberAt tablesBy // the [[member]] table that defined or changed each member
+	passes   passesBy // nodes each member may pass by without being joined to them
+	ends     [][2]int // the nodes each [[member]] table names as start and end (-1: none), built or not
+
+	gridFailed bool // a [grid] was given but could not be generated
+	spacingBad bool // its spacing was given but is not valid
 
 	memberLoads  int  // member loads so far
 	loadsRefused bool // the member load limit has been reported
@@ -26,21 +32,26 @@ type checks struct {
 	lineXs   []float64        // r.lines(), once computed
 }
 
-// noteNode records that node i was defined by table t.
-func (r *reader) noteNode(i int, t *table) {
-	if r.nodeAt == nil {
-		r.nodeAt = map[int]*table{}
+// tablesBy records the table that defined or changed each node or member,
+// by index; nil for those of a [grid] no table changed.
+type tablesBy []*table
+
+func (ts tablesBy) at(i int) *table {
+	if i < len(ts) {
+		return ts[i]
 	}
-	r.nodeAt[i] = t
+	return nil
 }
 
-// noteMember records that member i was defined by table t.
-func (r *reader) noteMember(i int, t *table) {
-	if r.memberAt == nil {
-		r.memberAt = map[int]*table{}
+func (ts *tablesBy) set(i int, t *table) {
+	for len(*ts) <= i {
+		*ts = append(*ts, nil)
 	}
-	r.memberAt[i] = t
+	(*ts)[i] = t
 }
+
+// passesBy records, by member, the nodes listed in its passes.
+type passesBy map[int][]int32
 
 // budget counts n more member loads against MaxMemberLoads and reports,
 // once, at key of t, when they no longer fit.
@@ -91,9 +102,10 @@ func (r *reader) checkModel(top *table) {
 	if !cases {
 		r.fail(0, "", problem(ErrMissing, "the model has no load cases: give at least one [[case]]"))
 	}
-	r.checkConnected(top)
-	r.checkPositions(top)
+	r.checkConnected()
+	r.checkPositions()
 	r.checkMemberEnds()
+	r.checkOnMembers()
 	free := 0
 	for _, nd := range mo.Nodes {
 		for d := range 3 {
@@ -108,29 +120,10 @@ func (r *reader) checkModel(top *table) {
 	}
 }
 
-// rawEnds returns the nodes that each [[member]] table names as its start
-// and end, -1 where the name is not a node, whether or not the member could
-// be built.
-func (r *reader) rawEnds(top *table) [][2]int {
-	ts, _ := top.m["member"].([]map[string]any)
-	out := make([][2]int, len(ts))
-	for i, t := range ts {
-		for j, k := range []string{"start", "end"} {
-			out[i][j] = -1
-			if s, ok := t[k].(string); ok {
-				if n, ok := r.nodes[s]; ok {
-					out[i][j] = n
-				}
-			}
-		}
-	}
-	return out
-}
-
 // checkConnected reports nodes that no member joins. While some [[member]]
 // table could not be built it reports nothing: that member may be the one
 // meant to join the node, and its own problem is reported.
-func (r *reader) checkConnected(top *table) {
+func (r *reader) checkConnected() {
 	if len(r.broken) > 0 {
 		return
 	}
@@ -139,7 +132,7 @@ func (r *reader) checkConnected(top *table) {
 	for _, m := range mo.Members {
 		joined[mo.Nodes[m.Start].Name], joined[mo.Nodes[m.End].Name] = true, true
 	}
-	for _, e := range r.rawEnds(top) {
+	for _, e := range r.ends {
 		for _, n := range e {
 			if n >= 0 {
 				joined[mo.Nodes[n].Name] = true
@@ -154,43 +147,69 @@ func (r *reader) checkConnected(top *table) {
 	}
 }
 
-// checkPositions reports a node at the position of an earlier one, unless
-// the two share a name (reported as defined twice) or a member joins them
-// (reported as having zero length).
-func (r *reader) checkPositions(top *table) {
+// checkPositions reports a node within coordTol of an earlier one, against
+// the first such, unless the two share a name (reported as defined twice)
+// or a member joins them (reported as having zero length).
+func (r *reader) checkPositions() {
 	mo := r.job.Model
 	joins := map[[2]int]bool{}
-	for _, e := range r.rawEnds(top) {
+	for _, e := range r.ends {
 		joins[[2]int{min(e[0], e[1]), max(e[0], e[1])}] = true
 	}
-	var idx []int
-	for i, nd := range mo.Nodes {
-		if !math.IsNaN(nd.X) && !math.IsNaN(nd.Y) { // NaN: already reported
-			idx = append(idx, i)
+	xs, ys := r.coordinates()
+	nearPoints(xs, ys, coordTol, func(first, later int) bool {
+		p, q := mo.Nodes[first], mo.Nodes[later]
+		if p.Name == q.Name || joins[[2]int{first, later}] {
+			return false
 		}
-	}
-	sort.Slice(idx, func(a, b int) bool {
-		p, q := mo.Nodes[idx[a]], mo.Nodes[idx[b]]
-		if p.X != q.X {
-			return p.X < q.X
-		}
-		if p.Y != q.Y {
-			return p.Y < q.Y
-		}
-		return idx[a] < idx[b]
+		r.failAt(r.nodeAt.at(later), fmt.Sprintf("node %q", q.Name), "x",
+			problem(ErrDuplicate, "node %q is at the same position (%g, %g) as node %q", q.Name, q.X, q.Y, p.Name))
+		return true
 	})
-	// Coincident nodes are neighbours in this order (up to the rare pair
-	// within coordTol but split by a third node, which is let pass).
-	for a := 1; a < len(idx); a++ {
-		i, j := idx[a-1], idx[a]
-		p, q := mo.Nodes[i], mo.Nodes[j]
-		first, later := min(i, j), max(i, j)
-		if q.X-p.X > coordTol || math.Abs(q.Y-p.Y) > coordTol || p.Name == q.Name || joins[[2]int{first, later}] {
-			continue
+}
+
+// coordinates returns the nodes' coordinates, NaN where one could not be read.
+func (r *reader) coordinates() (xs, ys []float64) {
+	mo := r.job.Model
+	xs, ys = make([]float64, len(mo.Nodes)), make([]float64, len(mo.Nodes))
+	for i, nd := range mo.Nodes {
+		xs[i], ys[i] = nd.X, nd.Y
+	}
+	return xs, ys
+}
+
+// checkOnMembers reports a node that lies on a member between its ends
+// without being joined to it (the member would carry on as if the node
+// were not there), unless the member lists it in passes, and a node a
+// member lists in passes that does not lie on it.
+func (r *reader) checkOnMembers() {
+	mo := r.job.Model
+	xs, ys := r.coordinates()
+	segs := make([][2]int, len(mo.Members))
+	for i, m := range mo.Members {
+		segs[i] = [2]int{m.Start, m.End}
+	}
+	passed := map[[2]int]bool{} // (member, node) pairs that passes allows and that do lie on it
+	pointsOnSegments(xs, ys, segs, coordTol, func(s, p int, along float64) {
+		if slices.Contains(r.passes[s], int32(p)) {
+			passed[[2]int{s, p}] = true
+			return
 		}
-		nd := mo.Nodes[later]
-		r.failAt(r.nodeAt[later], fmt.Sprintf("node %q", nd.Name), "x",
-			problem(ErrDuplicate, "node %q is at the same position (%g, %g) as node %q", nd.Name, nd.X, nd.Y, mo.Nodes[first].Name))
+		m, nd := mo.Members[s], mo.Nodes[p]
+		err := problem(ErrValue, "node %q lies on member %q, %g from its start, but is not joined to it: split the member at the node, or, if the two cross without a connection, give the member passes = [%q]",
+			nd.Name, m.Name, along, nd.Name)
+		if t := r.memberAt.at(s); t != nil {
+			t.fail("passes", err)
+		} else {
+			r.failAt(r.nodeAt.at(p), fmt.Sprintf("node %q", nd.Name), "x", err)
+		}
+	})
+	for _, s := range slices.Sorted(maps.Keys(r.passes)) {
+		for _, p := range r.passes[s] {
+			if !passed[[2]int{s, int(p)}] && !math.IsNaN(xs[p]) && !math.IsNaN(ys[p]) {
+				r.memberAt.at(s).fail("passes", problem(ErrValue, "passes: node %q does not lie on member %q between its ends", mo.Nodes[p].Name, mo.Members[s].Name))
+			}
+		}
 	}
 }
 

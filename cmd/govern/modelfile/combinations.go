@@ -261,6 +261,19 @@ func (r *reader) readRuleFile(t *table, file string) *combos.Set {
 	return s
 }
 
+// lineUnused records the line of each case no combination uses, for
+// CheckUnused; the position index is built only when there is one.
+func (r *reader) lineUnused(job *Job) {
+	for _, c := range job.Unused() {
+		if c < len(r.caseTables) {
+			if job.caseLines == nil {
+				job.caseLines = map[int]int{}
+			}
+			job.caseLines[c] = r.loc.at(&r.caseTables[c].pos, "")
+		}
+	}
+}
+
 // generate expands the rule set against the cases, ahead of the model's
 // own combinations. It runs only on a file without other problems, so that
 // the cases are those of the file, in its order.
@@ -268,9 +281,6 @@ func (r *reader) generate() {
 	job := r.job
 	job.CaseInfo = r.caseInfo
 	job.file = r.file
-	for _, t := range r.caseTables {
-		job.caseLines = append(job.caseLines, r.loc.line(t.block, ""))
-	}
 	r.groupActions()
 	if job.Set == nil || len(r.errs) > 0 {
 		return
@@ -356,10 +366,7 @@ func (j *Job) CheckUnused() error {
 	}
 	var es Errors
 	for _, c := range j.Unused() {
-		line := 0
-		if c < len(j.caseLines) {
-			line = j.caseLines[c]
-		}
+		line := j.caseLines[c]
 		es = append(es, &Error{File: j.file, Line: line, Where: fmt.Sprintf("case %q", j.Model.Cases[c].Name),
 			Err: problem(ErrUnused, "no load combination uses this case, so it would be left out of every envelope; put it in a combination, or write unused = \"allow\" in [combinations] to analyse the model without it")})
 	}

@@ -14,10 +14,12 @@
 // makes every check of frame.Model.Validate, with the line at fault, so a
 // model it accepts is valid; Validate runs afterwards as a safeguard.
 //
-// A file larger than [MaxFileSize], nested deeper than [MaxNesting], or
-// describing more degrees of freedom than frame.MaxEquations, or more
-// member loads than [MaxMemberLoads], is refused before it can exhaust
-// memory. Docs/errors.md lists every limit.
+// A file larger than [MaxFileSize], with more entries (keys and tables)
+// than [MaxEntries], nested deeper than [MaxNesting], or describing more
+// degrees of freedom than frame.MaxEquations, or more member loads than
+// [MaxMemberLoads], is refused before it can exhaust memory. Each decoded
+// table is let go once it is read. Docs/errors.md lists every limit and
+// the memory reading takes.
 //
 // Nothing passed to [Read] is modified.
 package modelfile

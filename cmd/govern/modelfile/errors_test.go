@@ -3,9 +3,15 @@ package modelfile
 import (
 	"errors"
 	"fmt"
+	"os"
+	"path/filepath"
 	"strings"
 	"testing"
 )
+
+// gridNote is the message that a [grid] at the top of the file is not
+// generated.
+const gridNote = "m.toml:1: [grid]: no frame is generated until the problems in [grid] are corrected; until then, what refers to its nodes, members, levels and lines is not checked"
 
 // edits applies old → new replacements, in pairs, to base.
 func edits(t *testing.T, pairs ...string) string {
@@ -75,6 +81,8 @@ func TestReadBadInput(t *testing.T) {
 			want: `m.toml:6: section "S": depth must be a number, not a string`, sentinel: ErrType},
 		{name: "service given as a number", edit: []string{"factors = { G = 1.4 }", "factors = { G = 1.4 }\nservice = 1"},
 			want: `m.toml:31: combination "1.4G": service must be true or false, not an integer`, sentinel: ErrType},
+		{name: "a node named by a number is reported once", edit: []string{`start = "a"`, `start = 1`},
+			want: `m.toml:17: member 1: start must be a string, not an integer`, sentinel: ErrType},
 		{name: "string or array expected for a selector", edit: []string{`on = "a-b"`, `on = 3`},
 			want: `m.toml:25: case "G", load 1: on must be a string or an array of strings, not an integer`, sentinel: ErrType},
 		{name: "factor of the wrong type, at its line", edit: []string{"factors = { G = 1.4 }", "\nfactors = { G = \"1.4\" }"},
@@ -130,7 +138,7 @@ func TestReadBadInput(t *testing.T) {
 		{name: "infinite load", edit: []string{"P = 2", "P = +inf"},
 			want: `m.toml:26: case "G", load 1: P must be a finite number, not +Inf`, sentinel: ErrValue},
 		{name: "NaN in an array", edit: []string{"[[section]]", "[grid]\nbays = [6.0, nan]\nstoreys = [3.0]\ncolumn = \"S\"\nbeam = \"S\"\n[[section]]"},
-			want: `m.toml:2: [grid]: bays[2] must be a finite number, not NaN`, sentinel: ErrValue},
+			want: gridNote + "\nm.toml:2: [grid]: bays[2] must be a finite number, not NaN", sentinel: ErrValue},
 		{name: "NaN factor", edit: []string{"{ G = 1.4 }", "{ G = nan }"},
 			want: `m.toml:30: combination "1.4G": G must be a finite number, not NaN`, sentinel: ErrValue},
 		{name: "point load outside its member", edit: []string{"at = 1", "at = 7.5"},
@@ -142,11 +150,74 @@ func TestReadBadInput(t *testing.T) {
 		{name: "combination with no factors", edit: []string{"{ G = 1.4 }", "{}"},
 			want: `m.toml:30: combination "1.4G": factors is empty: a combination needs at least one case`, sentinel: ErrValue},
 		{name: "grid with no bays", edit: []string{"[[section]]", "[grid]\nbays = []\nstoreys = [3.0]\ncolumn = \"S\"\nbeam = \"S\"\n[[section]]"},
-			want: `m.toml:2: [grid]: bays is empty: give at least one bay width`, sentinel: ErrValue},
+			want: gridNote + "\nm.toml:2: [grid]: bays is empty: give at least one bay width", sentinel: ErrValue},
 		{name: "grid with no storeys", edit: []string{"[[section]]", "[grid]\nbays = [6.0]\nstoreys = []\ncolumn = \"S\"\nbeam = \"S\"\n[[section]]"},
-			want: `m.toml:3: [grid]: storeys is empty: give at least one storey height`, sentinel: ErrValue},
+			want: gridNote + "\nm.toml:3: [grid]: storeys is empty: give at least one storey height", sentinel: ErrValue},
 		{name: "node joined to no member", edit: []string{"[[member]]", "[[node]]\nname = \"c\"\nx = 9\ny = 0\n[[member]]"},
 			want: `m.toml:17: node "c": node "c" is not joined to any member`, sentinel: ErrValue},
+
+		// Names that read as selectors: a member so named
+		// would capture the selector.
+		{name: "member named like a selector", edit: []string{"[[case]]", "[[node]]\nname = \"c\"\nx = 9\ny = 0\n[[member]]\nname = \"all beams\"\nstart = \"b\"\nend = \"c\"\nsection = \"S\"\n[[case]]"},
+			want: `m.toml:25: member "all beams": the name "all beams" reads as a member selector ("level N", "roof", "line A", "all beams", "all columns"): choose another name`, sentinel: ErrValue},
+		{name: "member named like a level", edit: []string{"[[case]]", "[[node]]\nname = \"c\"\nx = 9\ny = 0\n[[member]]\nname = \"level 0\"\nstart = \"b\"\nend = \"c\"\nsection = \"S\"\n[[case]]"},
+			want: `m.toml:25: member "level 0": the name "level 0" reads as a member selector ("level N", "roof", "line A", "all beams", "all columns"): choose another name`, sentinel: ErrValue},
+		{name: "member named roof", edit: []string{"[[case]]", "[[node]]\nname = \"c\"\nx = 9\ny = 0\n[[member]]\nname = \"roof\"\nstart = \"b\"\nend = \"c\"\nsection = \"S\"\n[[case]]"},
+			want: `m.toml:25: member "roof": the name "roof" reads as a member selector ("level N", "roof", "line A", "all beams", "all columns"): choose another name`, sentinel: ErrValue},
+		{name: "member whose default name reads as a line", edit: []string{"name = \"a\"", "name = \"line B\"", "start = \"a\"", "start = \"line B\"", `on = "a-b"`, `on = "all beams"`},
+			want: `m.toml:16: member 1: the name "line B-b" reads as a member selector ("level N", "roof", "line A", "all beams", "all columns"): choose another name`, sentinel: ErrValue},
+
+		// A member picked twice by one load: refused, naming the
+		// member and both selectors.
+		{name: "member picked by a name and a keyword selector", edit: []string{`on = "a-b"`, `on = ["a-b", "all beams"]`},
+			want: `m.toml:25: case "G", load 1: on: "a-b" and "all beams" both pick member "a-b"; a load acts once on each member, so remove one of them`, sentinel: ErrDuplicate},
+		{name: "the same selector twice", edit: []string{`on = "a-b"`, `on = ["a-b", "a-b"]`},
+			want: `m.toml:25: case "G", load 1: on: "a-b" is given twice`, sentinel: ErrDuplicate},
+
+		// A node on a member it is not joined to.
+		{name: "node on a member's interior, not joined", edit: []string{"[[case]]", "[[node]]\nname = \"c\"\nx = 2.5\ny = 0\n[[node]]\nname = \"d\"\nx = 2.5\ny = 3\nsupport = \"fixed\"\n[[member]]\nstart = \"c\"\nend = \"d\"\nsection = \"S\"\n[[case]]"},
+			want: `m.toml:16: member 1: node "c" lies on member "a-b", 2.5 from its start, but is not joined to it: split the member at the node, or, if the two cross without a connection, give the member passes = ["c"]`, sentinel: ErrValue},
+		{name: "passes naming a node off the member", edit: []string{"section = \"S\"\n[[case]]", "section = \"S\"\npasses = \"b\"\n[[case]]"},
+			want: `m.toml:20: member 1: passes: node "b" does not lie on member "a-b" between its ends`, sentinel: ErrValue},
+		{name: "passes naming no node", edit: []string{"section = \"S\"\n[[case]]", "section = \"S\"\npasses = [\"B\"]\n[[case]]"},
+			want: `m.toml:20: member 1: passes: no node named "B" (did you mean "b"?)`, sentinel: ErrReference},
+
+		// Nodes within the tolerance of each other, whatever lies between
+		// them in any one order.
+		{name: "two nodes 1e-10 apart with a third between them in X", edit: []string{"[[case]]", "[[node]]\nname = \"c\"\nx = 5.0000000001\ny = 0\n[[node]]\nname = \"e\"\nx = 5.00000000005\ny = 7\n[[member]]\nstart = \"a\"\nend = \"c\"\nsection = \"S\"\n[[member]]\nstart = \"a\"\nend = \"e\"\nsection = \"S\"\n[[case]]"},
+			want: `m.toml:22: node "c": node "c" is at the same position (5.0000000001, 0) as node "b"`, sentinel: ErrDuplicate},
+
+		// Empty lists and names.
+		{name: "on is empty", edit: []string{`on = "a-b"`, `on = []`},
+			want: `m.toml:25: case "G", load 1: on is empty: name at least one member or selector`, sentinel: ErrValue},
+		{name: "an empty selector", edit: []string{`on = "a-b"`, `on = ["a-b", ""]`},
+			want: `m.toml:25: case "G", load 1: on: an empty selector`, sentinel: ErrValue},
+		{name: "empty section name", edit: []string{"[[section]]\nname = \"S\"", "[[section]]\nname = \"\""},
+			want: "m.toml:2: section 1: name is empty\nm.toml:19: member 1: section = \"S\": no such section", sentinel: ErrValue},
+		{name: "empty node name", edit: []string{"name = \"a\"", "name = \"\""},
+			want: "m.toml:7: node 1: name is empty\nm.toml:17: member 1: start = \"a\": no such node", sentinel: ErrValue},
+		{name: "empty member name", edit: []string{"start = \"a\"", "name = \"\"\nstart = \"a\""},
+			want: `m.toml:17: member 1: name is empty: give a name, or leave name out for "a-b"`, sentinel: ErrValue},
+		{name: "empty case name", edit: []string{"name = \"G\"", "name = \"\"", "{ G = 1.4 }", "{ \"\" = 1.4 }"},
+			want: `m.toml:21: case 1: name is empty`, sentinel: ErrValue},
+		{name: "empty combination name", edit: []string{"name = \"1.4G\"", "name = \"\""},
+			want: `m.toml:29: combination 1: name is empty`, sentinel: ErrValue},
+		{name: "empty section reference", edit: []string{`section = "S"`, `section = ""`},
+			want: `m.toml:19: member 1: section = "": no such section`, sentinel: ErrReference},
+
+		// A misspelt kind gets a suggestion, and nothing that depends on the
+		// kind is checked.
+		{name: "kind in capitals, patterned", edit: []string{`kind = "dead"`, "kind = \"Live\"\npattern = true"},
+			want: `m.toml:22: case "G": kind = "Live": must be one of "dead", "live", "roof-live", "snow", "rain", "wind", "seismic", "other" (did you mean "live"?)`, sentinel: ErrValue},
+		{name: "kind misspelt, reversible", edit: []string{`kind = "dead"`, "kind = \"wnid\"\nreversible = true"},
+			want: `m.toml:22: case "G": kind = "wnid": must be one of "dead", "live", "roof-live", "snow", "rain", "wind", "seismic", "other" (did you mean "wind"?)`, sentinel: ErrValue},
+
+		// Positions come from the decoder's keys, not from lines that look
+		// like table headers: the title's lines shift the rest by 5.
+		{name: "a table header inside a multi-line title", edit: []string{"[[section]]", "title = \"\"\"\nFrame\n[[node]]\nx = 1\n\"\"\"\n[[section]]", "support = \"fixed\"\n[[member]]", "suport = \"fixed\"\n[[member]]"},
+			want: `m.toml:20: node "b": unknown key "suport" (did you mean "support"?)`, sentinel: ErrUnknownKey},
+		{name: "a table and a key inside a multi-line string", edit: []string{"[[section]]", "title = '''\n[[section]]\nE = 1\n'''\n[[section]]", "E = 200e6", "E = -1.0"},
+			want: `m.toml:7: section "S": E = -1: must be greater than zero`, sentinel: ErrValue},
 
 		// Missing pieces.
 		{name: "empty model", src: "",
@@ -158,9 +229,9 @@ func TestReadBadInput(t *testing.T) {
 
 		// Limits.
 		{name: "grid past a million degrees of freedom", edit: []string{"[[section]]", "[grid]\nbays = [" + strings.Repeat("1.0, ", 999) + "1.0]\nstoreys = [" + strings.Repeat("1.0, ", 399) + "1.0]\ncolumn = \"S\"\nbeam = \"S\"\n[[section]]"},
-			want: `m.toml:1: [grid]: 1001 column lines × 401 levels make 401,401 nodes with 1,201,200 free degrees of freedom; the limit is 1,000,000`, sentinel: ErrTooLarge},
-		{name: "file past the size limit", src: "title = \"" + strings.Repeat("x", MaxFileSize) + "\"\n",
-			want: fmt.Sprintf("m.toml: the file is %d bytes; the limit is %d (64 MiB)", MaxFileSize+11, MaxFileSize), sentinel: ErrTooLarge},
+			want: "m.toml:1: [grid]: 1001 column lines × 401 levels make 401,401 nodes with 1,201,200 free degrees of freedom; the limit is 1,000,000\n" + gridNote, sentinel: ErrTooLarge},
+		{name: "more entries than the limit", src: "x = [" + strings.Repeat("{},", MaxEntries/inlineEntries) + "{}]\n",
+			want: "m.toml: the file has 6,000,004 entries (keys and tables, an inline table counting as 3); the limit is 6,000,000", sentinel: ErrTooLarge},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
 			src := tc.src
@@ -234,7 +305,7 @@ func TestReadListsAtMostMaxProblems(t *testing.T) {
 }
 
 func TestMemberLoadBudget(t *testing.T) {
-	r := &reader{file: "m.toml", loc: newLocator(base)}
+	r := &reader{file: "m.toml", loc: &locator{kp: positionsOf(t, base)}}
 	tb := r.table(map[string]any{}, "case[0].load[0]", `case "G", load 1`)
 	r.memberLoads = MaxMemberLoads - 2
 	if !r.budget(tb, "on", 2) {
@@ -294,5 +365,34 @@ func TestEveryValidateCheckIsMadeByTheReader(t *testing.T) {
 				}
 			}
 		})
+	}
+}
+
+// TestReadRefusesALargeFile: a file past MaxFileSize is refused before it
+// is looked at (the bytes of this one are never touched, so it costs no
+// memory).
+func TestReadRefusesALargeFile(t *testing.T) {
+	_, err := Read("m.toml", make([]byte, MaxFileSize+1))
+	want := fmt.Sprintf("m.toml: the file is %d bytes; the limit is %d (%d MiB)", MaxFileSize+1, MaxFileSize, MaxFileSize>>20)
+	if err == nil || err.Error() != want || !errors.Is(err, ErrTooLarge) {
+		t.Errorf("error\n got: %v\nwant: %s", err, want)
+	}
+}
+
+// TestLimitsAreDocumented: docs/errors.md gives the limits of the reader
+// as they are.
+func TestLimitsAreDocumented(t *testing.T) {
+	doc, err := os.ReadFile(filepath.Join("..", "..", "..", "docs", "errors.md"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, row := range []string{
+		fmt.Sprintf("| model file | %d MiB |", MaxFileSize>>20),
+		fmt.Sprintf("| entries of a model file: keys and table headers, an inline table counting as %d | %s |", inlineEntries, Thousands(MaxEntries)),
+		fmt.Sprintf("| nesting of arrays and inline tables, parts of a dotted key | %d |", MaxNesting),
+	} {
+		if !strings.Contains(string(doc), row) {
+			t.Errorf("docs/errors.md has no row %q", row)
+		}
 	}
 }

@@ -5,7 +5,10 @@ import (
 	"errors"
 	"os"
 	"path/filepath"
+	"strings"
 	"testing"
+
+	"github.com/BurntSushi/toml"
 
 	"govern/envelope"
 	"govern/frame"
@@ -19,6 +22,35 @@ var sentinels = []error{ErrSyntax, ErrUnknownKey, ErrType, ErrMissing, ErrValue,
 // that each input stays fast.
 const fuzzSolveLimit = 300
 
+// seedFiles lists the model files the fuzz target starts from: the
+// demonstration model and the models of testdata, good and bad, but for
+// the large generated grids, which add nothing but time.
+func seedFiles(t testing.TB) []string {
+	t.Helper()
+	seeds := []string{filepath.Join("..", "demo.toml")}
+	for _, pattern := range []string{"*.toml", filepath.Join("bad", "*.toml")} {
+		m, err := filepath.Glob(filepath.Join("..", "..", "..", "testdata", pattern))
+		if err != nil {
+			t.Fatal(err)
+		}
+		for _, p := range m {
+			if st, err := os.Stat(p); err == nil && st.Size() < 1<<16 {
+				seeds = append(seeds, p)
+			}
+		}
+	}
+	return seeds
+}
+
+func readSeed(t testing.TB, path string) string {
+	t.Helper()
+	src, err := os.ReadFile(path)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return string(src)
+}
+
 // FuzzRead feeds the reader and validator arbitrary files, seeded with the
 // models of the test suite (patterned cases, a combination rule set), the
 // demonstration model and the models of testdata. No input may panic or hang. A rejected file must come back as
@@ -30,21 +62,35 @@ func FuzzRead(f *testing.F) {
 	f.Add([]byte(base))
 	f.Add([]byte(gridModel))
 	f.Add([]byte(portal)) // with a [combinations] rule set
-	seeds := []string{filepath.Join("..", "demo.toml")}
-	for _, pattern := range []string{"*.toml", filepath.Join("bad", "*.toml")} {
-		m, _ := filepath.Glob(filepath.Join("..", "..", "..", "testdata", pattern))
-		seeds = append(seeds, m...)
+	for _, p := range seedFiles(f) {
+		f.Add([]byte(readSeed(f, p)))
 	}
-	for _, p := range seeds {
-		src, err := os.ReadFile(p)
-		if err != nil {
-			f.Fatal(err)
-		}
-		if len(src) < 1<<16 { // the large generated grids add nothing but time
-			f.Add(src)
-		}
+	// Hostile edits of the small model (the bad models of testdata are
+	// seeds already): strings with lines that look like tables and keys,
+	// names and selectors that collide or are empty, a node on a member,
+	// nodes within the tolerance with another between them.
+	for _, e := range [][2]string{
+		{"[[section]]", "title = \"\"\"\n[[node]]\nname = \"z\"\n\"\"\"\n[[section]]"},
+		{"[[section]]", "title = '''\n[grid]\nbays = [1]\n'''\n[[section]]"},
+		{`on = "a-b"`, `on = ["a-b", "all beams", "level 0", "a-b", ""]`},
+		{`on = "a-b"`, `on = []`},
+		{`start = "a"`, "name = \"roof\"\nstart = \"a\""},
+		{`start = "a"`, "name = \"\"\nstart = \"a\""},
+		{"section = \"S\"\n[[case]]", "section = \"S\"\npasses = [\"c\", \"b\"]\n[[node]]\nname = \"c\"\nx = 2.5\ny = 0\n[[node]]\nname = \"e\"\nx = 5.00000000005\ny = 1\n[[member]]\nstart = \"c\"\nend = \"e\"\nsection = \"S\"\n[[case]]"},
+		{`kind = "dead"`, "kind = \"Live\"\npattern = true\nreversible = true"},
+		{"factors = { G = 1.4 }", "factors = {\n  G = 1.4, # [[case]]\n}"},
+	} {
+		f.Add([]byte(strings.Replace(base, e[0], e[1], 1)))
 	}
 	f.Fuzz(func(t *testing.T, src []byte) {
+		// Lines come from the lexer of keypos.go only where it finds
+		// exactly the keys the decoder read.
+		var raw map[string]any
+		if md, err := toml.Decode(string(src), &raw); err == nil && len(src) <= MaxFileSize {
+			if _, _, msg, _ := guard(string(src)); msg == "" && !newKeyPositions(string(src), md.Keys()).agrees {
+				t.Fatalf("the key lexer does not find the decoder's keys %v", md.Keys())
+			}
+		}
 		job, err := Read("f.toml", src)
 		if err != nil {
 			var es Errors

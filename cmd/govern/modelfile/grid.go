@@ -20,7 +20,6 @@ type Grid struct {
 	Spacing float64   // distance between parallel frames; 0 when not given
 
 	nodes, members int // the first nodes and members of the model are the grid's
-	overridden     map[int]bool
 }
 
 func (g *Grid) isGridNode(i int) bool   { return i < g.nodes }
@@ -55,8 +54,14 @@ func lineIndex(s string) int {
 const maxGrid = 2000
 
 func (r *reader) readGrid(t *table) {
+	r.gridFailed = true // until it is generated
+	defer func() {
+		if r.gridFailed {
+			t.fail("", problem(ErrValue, "no frame is generated until the problems in [grid] are corrected; until then, what refers to its nodes, members, levels and lines is not checked"))
+		}
+	}()
 	bays, storeys := t.nums("bays"), t.nums("storeys")
-	ok := true
+	ok := t.has("bays") && t.has("storeys") && bays != nil && storeys != nil
 	if t.need("bays") && emptyArray(t.m["bays"]) {
 		t.fail("bays", problem(ErrValue, "bays is empty: give at least one bay width"))
 		ok = false
@@ -89,10 +94,12 @@ func (r *reader) readGrid(t *table) {
 	if t.need("beam") {
 		beam, okB = r.section(t, "beam")
 	}
-	spacing := t.num("spacing", 0)
-	if t.has("spacing") && !(spacing > 0) {
+	spacing, okSp := t.numOK("spacing", 0)
+	if okSp && !(spacing > 0) {
 		t.fail("spacing", problem(ErrValue, "spacing = %g: must be greater than zero", spacing))
+		spacing = 0
 	}
+	r.spacingBad = t.has("spacing") && spacing == 0
 	t.done()
 	if !ok || !okC || !okB || len(bays) == 0 || len(storeys) == 0 {
 		return
@@ -110,7 +117,7 @@ func (r *reader) readGrid(t *table) {
 			lines, levels, Thousands(lines*levels), Thousands(free), Thousands(frame.MaxEquations)))
 		return
 	}
-	g := &Grid{Spacing: spacing, overridden: map[int]bool{}}
+	g := &Grid{Spacing: spacing}
 	x := 0.0
 	g.Lines = append(g.Lines, 0)
 	for _, b := range bays {
@@ -152,6 +159,7 @@ func (r *reader) readGrid(t *table) {
 	}
 	g.nodes, g.members = len(mo.Nodes), len(mo.Members)
 	r.job.Grid = g
+	r.gridFailed = false
 }
 
 // levels returns the heights that "level N" selectors count: the grid's
@@ -200,6 +208,19 @@ func distinct(nodes []frame.Node, f func(frame.Node) float64) []float64 {
 		}
 	}
 	return out
+}
+
+// selectorWords lists the keyword selectors, for messages.
+const selectorWords = `"level N", "roof", "line A", "all beams", "all columns"`
+
+// isSelector reports whether s reads as a keyword selector (whether or not
+// the level or line it names exists), so that no member may be named s.
+func isSelector(s string) bool {
+	if s == "roof" || s == "all beams" || s == "all columns" {
+		return true
+	}
+	f := strings.Fields(s)
+	return len(f) == 2 && (f[0] == "level" || f[0] == "line")
 }
 
 // errNoSuchMember marks a selector that is neither a member name nor a
@@ -256,8 +277,8 @@ func (r *reader) selectMembers(sel string) ([]int, error) {
 			return mo.IsColumn(m) && math.Abs(mo.Nodes[mo.Members[m].Start].X-x) <= coordTol
 		}
 	default:
-		msg := fmt.Sprintf("selector %q: no member of that name, and not one of \"level N\", \"roof\", \"line A\", \"all beams\", \"all columns\"", sel)
-		if s := closest(sel, keys(r.members)); s != "" {
+		msg := fmt.Sprintf("selector %q: no member of that name, and not one of %s", sel, selectorWords)
+		if s := r.suggest(sel, r.members); s != "" {
 			msg += fmt.Sprintf(" (did you mean %q?)", s)
 		}
 		return nil, fmt.Errorf("%s%w", msg, errNoSuchMember)

@@ -9,20 +9,34 @@ import "strings"
 // needs a depth of two, so anything deeper is refused at once.
 const (
 	// MaxFileSize is the largest model file read, in bytes.
-	MaxFileSize = 64 << 20
+	MaxFileSize = 128 << 20
 	// MaxNesting is the deepest nesting of arrays and inline tables, and
 	// the most parts a dotted key or table name may have.
 	MaxNesting = 16
+	// MaxEntries is the most entries a file may have: keys and table
+	// headers count one each, an inline table three (besides its keys).
+	// Reading takes about 270 bytes an entry at its peak, whatever the
+	// kind of entry (docs/errors.md).
+	MaxEntries = 6_000_000
 )
+
+// inlineEntries is what an inline table counts: the decoder spends on one
+// about three times what it spends on a key.
+const inlineEntries = 3
 
 // guard scans src for nesting deeper than MaxNesting, outside strings and
 // comments, and returns the line and byte offset of the first excess, or
 // line 0. It understands just enough TOML to skip strings and comments;
 // anything else wrong is left to the parser.
-func guard(src string) (line, off int, msg string) {
+//
+// It also counts the file's entries (keys and table headers one each, an
+// inline table inlineEntries), which is what decoding costs memory for:
+// see MaxEntries.
+func guard(src string) (line, off int, msg string, entries int) {
 	depth := 0
 	dots := 0       // dots in the current run of key parts
 	dotted := false // the last significant character was a dot
+	blank := true   // nothing but spaces so far on this line
 	line = 1
 	for i := 0; i < len(src); i++ {
 		c := src[i]
@@ -30,40 +44,51 @@ func guard(src string) (line, off int, msg string) {
 		case '\n':
 			line++
 			dots, dotted = 0, false
+			blank = true
 		case '#':
 			j := strings.IndexByte(src[i:], '\n')
 			if j < 0 {
-				return 0, 0, ""
+				return 0, 0, "", entries
 			}
 			i += j - 1
 		case '"', '\'':
 			end := stringEnd(src, i)
 			if end < 0 {
-				return 0, 0, "" // unterminated: the parser says where
+				return 0, 0, "", entries // unterminated: the parser says where
 			}
 			line += strings.Count(src[i:end], "\n")
 			i = end - 1
-			dotted = false
+			dotted, blank = false, false
 		case '[', '{':
+			switch {
+			case c == '{':
+				entries += inlineEntries
+			case depth == 0 && blank: // a table header
+				entries++
+			}
 			depth++
-			dots, dotted = 0, false
+			dots, dotted, blank = 0, false, false
 			if depth > MaxNesting {
-				return line, i, "arrays, inline tables or table names nested deeper than the format allows"
+				return line, i, "arrays, inline tables or table names nested deeper than the format allows", entries
 			}
 		case ']', '}':
 			depth = max(depth-1, 0)
-			dots, dotted = 0, false
+			dots, dotted, blank = 0, false, false
 		case ',', '=':
-			dots, dotted = 0, false
+			if c == '=' {
+				entries++
+			}
+			dots, dotted, blank = 0, false, false
 		case '.':
 			dots++
-			dotted = true
+			dotted, blank = true, false
 			if dots >= MaxNesting {
-				return line, i, "a dotted key or table name of more parts than the format allows"
+				return line, i, "a dotted key or table name of more parts than the format allows", entries
 			}
 		case ' ', '\t', '\r':
 			// Whitespace may separate the parts of a dotted key.
 		default:
+			blank = false
 			if dotted {
 				dotted = false
 			} else if i > 0 && (src[i-1] == ' ' || src[i-1] == '\t') {
@@ -71,7 +96,7 @@ func guard(src string) (line, off int, msg string) {
 			}
 		}
 	}
-	return 0, 0, ""
+	return 0, 0, "", entries
 }
 
 // stringEnd returns the offset just past the string that starts at src[i]

@@ -2,6 +2,8 @@ package modelfile
 
 import (
 	"errors"
+	"fmt"
+	"slices"
 
 	"govern/frame"
 )
@@ -36,20 +38,7 @@ func (r *reader) readLoad(t *table, c *frame.Case) {
 	}
 	var members []int
 	if t.need("on") {
-		for _, sel := range t.strs("on") {
-			if r.broken[sel] {
-				continue // already reported where the member is defined
-			}
-			ms, err := r.selectMembers(sel)
-			if errors.Is(err, errNoSuchMember) && len(r.broken) > 0 {
-				continue // likely a member whose definition failed, reported there
-			}
-			if err != nil {
-				t.fail("on", problem(ErrReference, "%v", err))
-				continue
-			}
-			members = append(members, ms...)
-		}
+		members = r.selectAll(t)
 	}
 	if !r.budget(t, "on", len(members)) {
 		members = nil
@@ -95,7 +84,9 @@ func (r *reader) readLoad(t *table, c *frame.Case) {
 			return
 		}
 		if r.job.Grid == nil || r.job.Grid.Spacing == 0 {
-			t.fail("q", problem(ErrMissing, "an area load needs [grid] spacing, the distance between parallel frames"))
+			if !r.gridFailed && !r.spacingBad { // else already reported in [grid]
+				t.fail("q", problem(ErrMissing, "an area load needs [grid] spacing, the distance between parallel frames"))
+			}
 			return
 		}
 		w := q * r.job.Grid.Spacing
@@ -108,4 +99,85 @@ func (r *reader) readLoad(t *table, c *frame.Case) {
 			c.MemberLoads = append(c.MemberLoads, frame.MemberLoad{Member: m, To: l, W: w, WEnd: w})
 		}
 	}
+}
+
+// selectAll returns the members that the selectors of on pick. A member
+// picked by two of them is an error: one load acts on each member once.
+func (r *reader) selectAll(t *table) []int {
+	sels := t.strs("on")
+	if sels != nil && len(sels) == 0 {
+		t.fail("on", problem(ErrValue, "on is empty: name at least one member or selector"))
+		return nil
+	}
+	var members []int
+	var by map[int]int // the selector that picked each member, when there are several
+	if len(sels) > 1 {
+		by = map[int]int{}
+	}
+	type overlap struct {
+		a, b, first, n int // selectors a and b both pick first and n-1 more
+	}
+	var overlaps []overlap
+	for si, sel := range sels {
+		if sel == "" {
+			t.fail("on", problem(ErrValue, "on: an empty selector"))
+			continue
+		}
+		if before := countOf(sels[:si], sel); before > 0 {
+			if before == 1 { // reported once, however often it is repeated
+				t.fail("on", problem(ErrDuplicate, "on: %q is given twice", sel))
+			}
+			continue
+		}
+		if r.broken[sel] {
+			continue // already reported where the member is defined
+		}
+		ms, err := r.selectMembers(sel)
+		if errors.Is(err, errNoSuchMember) && len(r.broken) > 0 {
+			continue // likely a member whose definition failed, reported there
+		}
+		if err != nil {
+			if !r.gridFailed { // else perhaps the grid's, which was not generated
+				t.fail("on", problem(ErrReference, "%v", err))
+			}
+			continue
+		}
+		if by == nil {
+			members = append(members, ms...)
+			continue
+		}
+		for _, m := range ms {
+			prev, dup := by[m]
+			if !dup {
+				by[m] = si
+				members = append(members, m)
+				continue
+			}
+			k := slices.IndexFunc(overlaps, func(o overlap) bool { return o.a == prev && o.b == si })
+			if k < 0 {
+				overlaps = append(overlaps, overlap{a: prev, b: si, first: m})
+				k = len(overlaps) - 1
+			}
+			overlaps[k].n++
+		}
+	}
+	for _, o := range overlaps {
+		more := ""
+		if o.n > 1 {
+			more = fmt.Sprintf(" and %d more", o.n-1)
+		}
+		t.fail("on", problem(ErrDuplicate, "on: %q and %q both pick member %q%s; a load acts once on each member, so remove one of them",
+			sels[o.a], sels[o.b], r.job.Model.Members[o.first].Name, more))
+	}
+	return members
+}
+
+func countOf(ss []string, s string) int {
+	n := 0
+	for _, v := range ss {
+		if v == s {
+			n++
+		}
+	}
+	return n
 }

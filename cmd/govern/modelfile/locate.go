@@ -2,28 +2,22 @@ package modelfile
 
 import (
 	"fmt"
-	"regexp"
+	"strconv"
 	"strings"
 	"unicode/utf8"
 
 	"github.com/BurntSushi/toml"
 )
 
-// locator maps the tables and keys of a file to their lines. The parser has
-// already checked the syntax, so a plain line scan is enough: it follows
-// [table] and [[array]] headers, counting array elements, and records the
-// line of each key in each block.
+// locator gives the lines of the tables and keys of a model file, from
+// the positions of the keys its decoder read (keypos.go).
 type locator struct {
-	header map[string]int            // block path → header line
-	keys   map[string]map[string]int // block path → key → line
-	// inline maps the keys of inline tables, such as the case names in
-	// factors = { D = 1.2, L = 1.6 }, to their line, by block path.
-	inline map[string]map[string]int
+	kp *keyPositions
 }
 
-// inlineKey finds the keys of an inline table: a bare or quoted key
-// followed by '='.
-var inlineKey = regexp.MustCompile(`([A-Za-z0-9_-]+|"[^"]*"|'[^']*')\s*=`)
+func newLocator(src string, keys []toml.Key) *locator {
+	return &locator{kp: newKeyPositions(src, keys)}
+}
 
 // blockPath names the i-th element of an array of tables, as
 // "case[2].load[0]"; a plain table is its name.
@@ -31,94 +25,37 @@ func blockPath(parts ...string) string { return strings.Join(parts, ".") }
 
 func elem(name string, i int) string { return fmt.Sprintf("%s[%d]", name, i) }
 
-func newLocator(src string) *locator {
-	loc := &locator{header: map[string]int{"": 0}, keys: map[string]map[string]int{}, inline: map[string]map[string]int{}}
-	counts := map[string]int{} // array path (with parent indices) → elements so far
-	current := ""
-	// arrays maps an array-of-tables name to the indexed path of its
-	// latest element, so that [[case.load]] nests under the latest [[case]].
-	latest := map[string]string{}
-	for n, line := range strings.Split(src, "\n") {
-		t := strings.TrimSpace(line)
-		switch {
-		case strings.HasPrefix(t, "[["):
-			name := strings.TrimSpace(strings.TrimSuffix(strings.SplitN(t[2:], "]]", 2)[0], "]]"))
-			parent, leaf := "", name
-			if i := strings.LastIndex(name, "."); i >= 0 {
-				parent, leaf = latest[name[:i]], name[i+1:]
-				if parent == "" {
-					parent = name[:i]
-				}
-			}
-			key := blockPath(nonEmpty(parent, leaf)...)
-			i := counts[key]
-			counts[key]++
-			current = blockPath(nonEmpty(parent, elem(leaf, i))...)
-			latest[name] = current
-			loc.header[current] = n + 1
-		case strings.HasPrefix(t, "["):
-			name := strings.TrimSpace(strings.SplitN(t[1:], "]", 2)[0])
-			current = name
-			loc.header[current] = n + 1
-		default:
-			eq := strings.Index(t, "=")
-			if eq <= 0 || strings.HasPrefix(t, "#") {
-				continue
-			}
-			k := strings.Trim(strings.TrimSpace(t[:eq]), `"'`)
-			if i := strings.Index(k, "."); i >= 0 {
-				k = k[:i]
-			}
-			if loc.keys[current] == nil {
-				loc.keys[current] = map[string]int{}
-			}
-			if _, ok := loc.keys[current][k]; !ok {
-				loc.keys[current][k] = n + 1
-			}
-			if b := strings.IndexByte(t[eq:], '{'); b >= 0 {
-				if loc.inline[current] == nil {
-					loc.inline[current] = map[string]int{}
-				}
-				for _, m := range inlineKey.FindAllStringSubmatch(t[eq+b:], -1) {
-					ik := strings.Trim(m[1], `"'`)
-					if _, ok := loc.inline[current][ik]; !ok {
-						loc.inline[current][ik] = n + 1
-					}
-				}
+// place returns the place of the table a block path names.
+func blockPlace(block string) *place {
+	p := &place{}
+	if block == "" {
+		return p
+	}
+	for _, s := range strings.Split(block, ".") {
+		q := p.subPlace(s)
+		if i := strings.IndexByte(s, '['); i > 0 && strings.HasSuffix(s, "]") {
+			if n, err := strconv.Atoi(s[i+1 : len(s)-1]); err == nil {
+				q = p.elemPlace(s[:i], n)
 			}
 		}
+		p = &q
 	}
-	return loc
+	return p
 }
 
-func nonEmpty(s ...string) []string {
-	out := s[:0:0]
-	for _, v := range s {
-		if v != "" {
-			out = append(out, v)
-		}
-	}
-	return out
-}
-
-// line returns the line of key in block, else of key in an inline table of
-// block, else of the header of a table or array of tables named key in
-// block, else the block's header line.
+// line returns the line of key in the table at block (a block path), else
+// of the table or array of tables named key in it, else of the table
+// itself; 0 when unknown.
 func (l *locator) line(block, key string) int {
-	if key != "" {
-		if n, ok := l.keys[block][key]; ok {
-			return n
-		}
-		if n, ok := l.inline[block][key]; ok {
-			return n
-		}
-		for _, sub := range []string{key, elem(key, 0)} {
-			if n, ok := l.header[blockPath(nonEmpty(block, sub)...)]; ok {
-				return n
-			}
-		}
+	return l.at(blockPlace(block), key)
+}
+
+// at is line for a table given by its place.
+func (l *locator) at(p *place, key string) int {
+	if l == nil {
+		return 0
 	}
-	return l.header[block]
+	return l.kp.line(p, key)
 }
 
 // lineBounds returns the byte offsets of the start and end (before the

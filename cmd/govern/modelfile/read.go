@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"slices"
 	"sort"
 
 	"github.com/BurntSushi/toml"
@@ -50,8 +51,8 @@ type Job struct {
 	// combination uses are not an error (see [Job.CheckUnused]).
 	AllowUnused bool
 
-	file      string // the model's name, for messages
-	caseLines []int  // the line of each case
+	file      string      // the model's name, for messages
+	caseLines map[int]int // the line of each case no combination uses
 }
 
 // Read parses and validates a model file. name is used in messages only.
@@ -68,12 +69,18 @@ func ReadAt(dir, name string, src []byte) (*Job, error) {
 		return nil, Errors{{File: name, Err: problem(ErrTooLarge, "the file is %d bytes; the limit is %d (%d MiB)", len(src), MaxFileSize, MaxFileSize>>20)}}
 	}
 	text := string(src)
-	if line, off, msg := guard(text); line > 0 {
+	line, off, msg, entries := guard(text)
+	if line > 0 {
 		col, ex := excerpt(text, line, off)
 		return nil, Errors{{File: name, Line: line, Column: col, Err: problem(ErrSyntax, "%s%s", msg, ex)}}
 	}
+	if entries > MaxEntries {
+		return nil, Errors{{File: name, Err: problem(ErrTooLarge, "the file has %s entries (keys and tables, an inline table counting as %d); the limit is %s",
+			Thousands(entries), inlineEntries, Thousands(MaxEntries))}}
+	}
 	var raw map[string]any
-	if _, err := toml.Decode(text, &raw); err != nil {
+	md, err := toml.Decode(text, &raw)
+	if err != nil {
 		var pe toml.ParseError
 		if errors.As(err, &pe) {
 			line, off := syntaxPosition(text, pe.Position)
@@ -83,7 +90,7 @@ func ReadAt(dir, name string, src []byte) (*Job, error) {
 		}
 		return nil, Errors{{File: name, Err: problem(ErrSyntax, "%v", err)}}
 	}
-	r := &reader{file: name, dir: dir, loc: newLocator(text)}
+	r := &reader{file: name, dir: dir, loc: newLocator(text, md.Keys())}
 	job := r.read(raw)
 	if len(r.errs) > 0 {
 		sort.SliceStable(r.errs, func(i, j int) bool { return r.errs[i].Line < r.errs[j].Line })
@@ -104,6 +111,7 @@ func ReadAt(dir, name string, src []byte) (*Job, error) {
 		}
 		return nil, Errors{{File: name, Err: problem(ErrValue, "%v", err)}}
 	}
+	r.lineUnused(job)
 	return job, nil
 }
 
@@ -217,6 +225,7 @@ func (r *reader) readSections(ts []*table) {
 			t.done()
 			continue
 		}
+		r.nonEmptyName(t, name, "")
 		if _, dup := r.sections[name]; dup {
 			t.fail("name", problem(ErrDuplicate, "section %q is defined twice", name))
 		}
@@ -265,14 +274,35 @@ func (r *reader) support(t *table, def frame.Support) frame.Support {
 func (r *reader) section(t *table, key string) (int, bool) {
 	name := t.str(key, "")
 	i, ok := r.sections[name]
-	if !ok && name != "" {
+	if _, isString := t.m[key].(string); !ok && isString {
 		msg := fmt.Sprintf("%s = %q: no such section", key, name)
-		if s := closest(name, keys(r.sections)); s != "" {
+		if s := r.suggest(name, r.sections); s != "" {
 			msg += fmt.Sprintf(" (did you mean %q?)", s)
 		}
 		t.fail(key, problem(ErrReference, "%s", msg))
 	}
 	return i, ok
+}
+
+// suggest returns the name in m that s is likely a misspelling of, or "";
+// only while problems are still listed, since it looks at every name.
+func (r *reader) suggest(s string, m map[string]int) string {
+	if len(r.errs) >= MaxProblems {
+		return ""
+	}
+	return closest(s, keys(m))
+}
+
+// nonEmptyName reports an empty name; def, when not "", is the name the
+// table takes when it gives none.
+func (r *reader) nonEmptyName(t *table, name, def string) {
+	switch {
+	case name != "" || !t.has("name"):
+	case def != "":
+		t.fail("name", problem(ErrValue, "name is empty: give a name, or leave name out for %q", def))
+	default:
+		t.fail("name", problem(ErrValue, "name is empty"))
+	}
 }
 
 func keys(m map[string]int) []string {
@@ -289,38 +319,56 @@ func (r *reader) readNodes(ts []*table) {
 		r.nodes = map[string]int{}
 	}
 	mo := r.job.Model
+	mo.Nodes = slices.Grow(mo.Nodes, len(ts))
 	for _, t := range ts {
-		name := t.str("name", "")
-		if !t.need("name") {
-			t.done()
-			continue
-		}
-		if i, ok := r.nodes[name]; ok && r.job.Grid != nil && r.job.Grid.isGridNode(i) {
-			// A grid node named again: it may change the support; its
-			// position is the grid's.
-			nd := &mo.Nodes[i]
-			x, y := t.num("x", nd.X), t.num("y", nd.Y)
-			if math.Abs(x-nd.X) > coordTol || math.Abs(y-nd.Y) > coordTol {
-				t.fail("x", problem(ErrValue, "grid node %q is at (%g, %g), not (%g, %g); a [[node]] may only change a grid node's support", name, nd.X, nd.Y, x, y))
-			}
-			nd.Support = r.support(t, nd.Support)
-			r.job.Grid.overridden[i] = true
-			t.done()
-			continue
-		} else if ok {
-			t.fail("name", problem(ErrDuplicate, "node %q is defined twice", name))
-		}
-		has := t.need("x")
-		has = t.need("y") && has
-		// An invalid coordinate is NaN, so that no check compares with it.
-		nd := frame.Node{Name: name, X: t.num("x", math.NaN()), Y: t.num("y", math.NaN()), Support: r.support(t, frame.Free)}
-		if has {
-			r.nodes[name] = len(mo.Nodes)
-			r.noteNode(len(mo.Nodes), t)
-			mo.Nodes = append(mo.Nodes, nd)
-		}
-		t.done()
+		r.readNode(t)
+		t.release()
 	}
+}
+
+// readNode reads one [[node]] table.
+func (r *reader) readNode(t *table) {
+	mo := r.job.Model
+	name := t.str("name", "")
+	if !t.need("name") {
+		t.done()
+		return
+	}
+	r.nonEmptyName(t, name, "")
+	if r.gridFailed && !t.has("x") && !t.has("y") {
+		// Most likely a change to a node of the grid, which was not
+		// generated: nothing to check it against.
+		t.skipRest()
+		return
+	}
+	if i, ok := r.nodes[name]; ok && r.job.Grid != nil && r.job.Grid.isGridNode(i) {
+		// A grid node named again: it may change the support; its
+		// position is the grid's.
+		if prev := r.nodeAt.at(i); prev != nil {
+			t.fail("name", problem(ErrDuplicate, "grid node %q is already changed at line %d; give each grid node one [[node]] table", name, prev.line("name")))
+		}
+		nd := &mo.Nodes[i]
+		x, y := t.num("x", nd.X), t.num("y", nd.Y)
+		if math.Abs(x-nd.X) > coordTol || math.Abs(y-nd.Y) > coordTol {
+			t.fail("x", problem(ErrValue, "grid node %q is at (%g, %g), not (%g, %g); a [[node]] may only change a grid node's support", name, nd.X, nd.Y, x, y))
+		}
+		nd.Support = r.support(t, nd.Support)
+		r.nodeAt.set(i, t)
+		t.done()
+		return
+	} else if ok {
+		t.fail("name", problem(ErrDuplicate, "node %q is defined twice", name))
+	}
+	has := t.need("x")
+	has = t.need("y") && has
+	// An invalid coordinate is NaN, so that no check compares with it.
+	nd := frame.Node{Name: name, X: t.num("x", math.NaN()), Y: t.num("y", math.NaN()), Support: r.support(t, frame.Free)}
+	if has {
+		r.nodes[name] = len(mo.Nodes)
+		r.nodeAt.set(len(mo.Nodes), t)
+		mo.Nodes = append(mo.Nodes, nd)
+	}
+	t.done()
 }
 
 // coordTol is the distance under which two coordinates are the same.
@@ -331,10 +379,16 @@ func (r *reader) node(t *table, key string) (int, bool) {
 		return 0, false
 	}
 	name := t.str(key, "")
+	if _, isString := t.m[key].(string); !isString {
+		return 0, false // its type is reported
+	}
 	i, ok := r.nodes[name]
+	if !ok && r.gridFailed {
+		return i, false // perhaps a node of the grid, which was not generated
+	}
 	if !ok {
 		msg := fmt.Sprintf("%s = %q: no such node", key, name)
-		if s := closest(name, keys(r.nodes)); s != "" {
+		if s := r.suggest(name, r.nodes); s != "" {
 			msg += fmt.Sprintf(" (did you mean %q?)", s)
 		}
 		t.fail(key, problem(ErrReference, "%s", msg))
@@ -347,55 +401,137 @@ func (r *reader) readMembers(ts []*table) {
 		r.members = map[string]int{}
 	}
 	r.broken = map[string]bool{}
+	r.passes = passesBy{}
+	r.ends = make([][2]int, 0, len(ts))
 	mo := r.job.Model
+	mo.Members = slices.Grow(mo.Members, len(ts))
 	for _, t := range ts {
-		name := t.str("name", "")
-		if i, ok := r.members[name]; ok && r.job.Grid != nil && r.job.Grid.isGridMember(i) {
-			// A grid member named again: section and release may change.
-			m := &mo.Members[i]
-			for _, k := range []string{"start", "end"} {
-				if t.has(k) {
-					if n, ok := r.node(t, k); ok && n != [2]int{m.Start, m.End}[map[string]int{"start": 0, "end": 1}[k]] {
-						t.fail(k, problem(ErrValue, "grid member %q: %s cannot be changed", name, k))
-					}
+		r.readMember(t)
+		t.release()
+	}
+}
+
+// readMember reads one [[member]] table.
+func (r *reader) readMember(t *table) {
+	mo := r.job.Model
+	r.ends = append(r.ends, [2]int{r.nodeIndex(t.m["start"]), r.nodeIndex(t.m["end"])})
+	name := t.str("name", "")
+	if i, ok := r.members[name]; ok && r.job.Grid != nil && r.job.Grid.isGridMember(i) {
+		// A grid member named again: section and release may change.
+		if prev := r.memberAt.at(i); prev != nil {
+			t.fail("name", problem(ErrDuplicate, "grid member %q is already changed at line %d; give each grid member one [[member]] table", name, prev.line("name")))
+		}
+		m := &mo.Members[i]
+		for _, k := range []string{"start", "end"} {
+			if t.has(k) {
+				if n, ok := r.node(t, k); ok && n != [2]int{m.Start, m.End}[map[string]int{"start": 0, "end": 1}[k]] {
+					t.fail(k, problem(ErrValue, "grid member %q: %s cannot be changed", name, k))
 				}
 			}
-			if t.has("section") {
-				if s, ok := r.section(t, "section"); ok {
-					m.Section = s
-				}
+		}
+		if t.has("section") {
+			if s, ok := r.section(t, "section"); ok {
+				m.Section = s
 			}
-			m.Release = r.release(t, m.Release)
-			t.done()
-			continue
 		}
-		a, okA := r.node(t, "start")
-		b, okB := r.node(t, "end")
-		s, okS := 0, false
-		if t.need("section") {
-			s, okS = r.section(t, "section")
-		}
-		rel := r.release(t, frame.ReleaseNone)
+		m.Release = r.release(t, m.Release)
+		r.readPasses(t, i)
+		r.memberAt.set(i, t)
 		t.done()
-		if name == "" {
-			name = t.str("start", "") + "-" + t.str("end", "")
+		return
+	}
+	if r.gridFailed && !t.has("start") && !t.has("end") {
+		// Most likely a change to a member of the grid, which was not
+		// generated: nothing to check it against.
+		t.skipRest()
+		r.broken[name] = true
+		return
+	}
+	a, okA := r.node(t, "start")
+	b, okB := r.node(t, "end")
+	s, okS := 0, false
+	if t.need("section") {
+		s, okS = r.section(t, "section")
+	}
+	rel := r.release(t, frame.ReleaseNone)
+	i := len(mo.Members)
+	passes := r.readPasses(t, i)
+	t.done()
+	start, okStart := t.m["start"].(string) // already read and checked
+	end, okEnd := t.m["end"].(string)
+	def := start + "-" + end
+	if okStart && okEnd {
+		r.nonEmptyName(t, name, def)
+	} else {
+		r.nonEmptyName(t, name, "")
+	}
+	if name == "" {
+		name = def
+	}
+	if isSelector(name) {
+		t.fail("name", problem(ErrValue, "the name %q reads as a member selector (%s): choose another name", name, selectorWords))
+	}
+	if !okA || !okB || !okS {
+		r.broken[name] = true
+		r.dropPasses(passes, i)
+		return
+	}
+	if _, dup := r.members[name]; dup {
+		t.fail("name", problem(ErrDuplicate, "member %q is defined twice", name))
+		r.dropPasses(passes, i)
+		return
+	}
+	if a == b || math.Hypot(mo.Nodes[b].X-mo.Nodes[a].X, mo.Nodes[b].Y-mo.Nodes[a].Y) <= coordTol {
+		t.fail("end", problem(ErrValue, "member %q has zero length", name))
+		r.broken[name] = true
+		r.dropPasses(passes, i)
+		return
+	}
+	r.members[name] = i
+	r.memberAt.set(i, t)
+	mo.Members = append(mo.Members, frame.Member{Name: name, Start: a, End: b, Section: s, Release: rel})
+}
+
+// nodeIndex returns the node named v, or -1.
+func (r *reader) nodeIndex(v any) int {
+	if s, ok := v.(string); ok {
+		if n, ok := r.nodes[s]; ok {
+			return n
 		}
-		if !okA || !okB || !okS {
-			r.broken[name] = true
-			continue
+	}
+	return -1
+}
+
+// readPasses reads the nodes member i may pass by without being joined to
+// them, and reports whether it has any.
+func (r *reader) readPasses(t *table, i int) bool {
+	if !t.has("passes") {
+		return false
+	}
+	names := t.strs("passes")
+	if names != nil && len(names) == 0 {
+		t.fail("passes", problem(ErrValue, "passes is empty: name the nodes the member passes by, or leave passes out"))
+	}
+	for _, s := range names {
+		n, ok := r.nodes[s]
+		switch {
+		case ok:
+			r.passes[i] = append(r.passes[i], int32(n))
+		case !r.gridFailed:
+			msg := fmt.Sprintf("passes: no node named %q", s)
+			if c := r.suggest(s, r.nodes); c != "" {
+				msg += fmt.Sprintf(" (did you mean %q?)", c)
+			}
+			t.fail("passes", problem(ErrReference, "%s", msg))
 		}
-		if _, dup := r.members[name]; dup {
-			t.fail("name", problem(ErrDuplicate, "member %q is defined twice", name))
-			continue
-		}
-		if a == b || math.Hypot(mo.Nodes[b].X-mo.Nodes[a].X, mo.Nodes[b].Y-mo.Nodes[a].Y) <= coordTol {
-			t.fail("end", problem(ErrValue, "member %q has zero length", name))
-			r.broken[name] = true
-			continue
-		}
-		r.members[name] = len(mo.Members)
-		r.noteMember(len(mo.Members), t)
-		mo.Members = append(mo.Members, frame.Member{Name: name, Start: a, End: b, Section: s, Release: rel})
+	}
+	return len(r.passes[i]) > 0
+}
+
+// dropPasses forgets the passes of member i, which could not be built.
+func (r *reader) dropPasses(had bool, i int) {
+	if had {
+		delete(r.passes, i)
 	}
 }
 
@@ -418,15 +554,17 @@ func (r *reader) readCases(ts []*table) {
 			t.done()
 			continue
 		}
+		r.nonEmptyName(t, name, "")
 		if seen[name] {
 			t.fail("name", problem(ErrDuplicate, "case %q is defined twice", name))
 		}
 		seen[name] = true
 		c := frame.Case{Name: name}
+		kindOK := false // what depends on the kind is checked only when it is known
 		if t.need("kind") {
 			k := t.str("kind", "")
 			if t.oneOf("kind", k, kindWords...) {
-				c.Kind, _ = frame.ParseKind(k)
+				c.Kind, kindOK = frame.ParseKind(k)
 			}
 		}
 		if t.boolean("self_weight", false) && r.budget(t, "self_weight", len(mo.Members)) {
@@ -441,7 +579,7 @@ func (r *reader) readCases(ts []*table) {
 				}
 			}
 		}
-		if t.boolean("pattern", false) {
+		if t.boolean("pattern", false) && kindOK {
 			if c.Kind.Permanent() {
 				t.fail("pattern", problem(ErrValue, "pattern = true: a %s case is permanent and always acts in full; only variable cases are patterned", c.Kind))
 			} else {
@@ -468,6 +606,7 @@ func (r *reader) readCombinations(ts []*table) {
 	for _, t := range ts {
 		name := t.str("name", "")
 		t.need("name")
+		r.nonEmptyName(t, name, "")
 		if seen[name] && name != "" {
 			t.fail("name", problem(ErrDuplicate, "combination %q is defined twice", name))
 		}
@@ -481,7 +620,7 @@ func (r *reader) readCombinations(ts []*table) {
 			} else if len(f) == 0 {
 				t.fail("factors", problem(ErrValue, "factors is empty: a combination needs at least one case"))
 			}
-			ft := r.table(f, t.block, t.where)
+			ft := t.inline("factors", f)
 			for _, k := range sortedKeys(f) {
 				ci, ok := cases[k]
 				if !ok {

@@ -1,7 +1,13 @@
 package modelfile
 
 import (
+	"bytes"
 	"errors"
+	"flag"
+	"fmt"
+	"io"
+	"os"
+	"path/filepath"
 	"strings"
 	"testing"
 
@@ -300,5 +306,94 @@ func TestReadDepthAndService(t *testing.T) {
 	job, err = Read("m.toml", []byte(base))
 	if err != nil || job.Model.Sections[0].Depth != 0 {
 		t.Errorf("without depth: %v, %v", job.Model.Sections[0].Depth, err)
+	}
+}
+
+var memoryModels = flag.String("memory-models", "", "write the model files whose memory docs/errors.md gives to this folder")
+
+// TestWriteMemoryModels writes, with -memory-models DIR, the files of the
+// table of reading memory in docs/errors.md, to be measured with
+// /usr/bin/time -v govern check FILE, and checks their entries and sizes.
+func TestWriteMemoryModels(t *testing.T) {
+	if *memoryModels == "" {
+		t.Skip("a tool: give -memory-models DIR to write the files")
+	}
+	nodes := func(w io.Writer, n int) {
+		io.WriteString(w, "[[section]]\nname = \"S\"\nE = 200e6\nA = 0.01\nI = 1e-4\n")
+		for i := range n {
+			fmt.Fprintf(w, "[[node]]\nname = \"N%d\"\nx = %d.5\ny = %d.25\n", i, i%1000, i/1000)
+		}
+		io.WriteString(w, "[[case]]\nname = \"G\"\nkind = \"dead\"\n")
+	}
+	frame := func(w io.Writer, bays, storeys int, comments int) {
+		name := func(ln, lv int) string { return fmt.Sprintf("%s%d", LineName(ln), lv) }
+		io.WriteString(w, "title = \"explicit frame\"\n\n[[section]]\nname = \"C450\"\nE = 30.0e6\nA = 0.2025\nI = 3.42e-3\n\n[[section]]\nname = \"B350x650\"\nE = 30.0e6\nA = 0.2275\nI = 8.01e-3\n\n")
+		for lv := range storeys + 1 {
+			for ln := range bays + 1 {
+				fmt.Fprintf(w, "[[node]]\nname = %q\nx = %.6g\ny = %.6g\n", name(ln, lv), 7.2*float64(ln), 3.6*float64(lv))
+				if lv == 0 {
+					io.WriteString(w, "support = \"fixed\"\n")
+				}
+				io.WriteString(w, "\n")
+			}
+		}
+		member := func(a, b, sec string) {
+			fmt.Fprintf(w, "[[member]]\nname = \"%s-%s\"\nstart = %q\nend = %q\nsection = %q\n\n", a, b, a, b, sec)
+		}
+		for lv := 1; lv <= storeys; lv++ {
+			for ln := range bays + 1 {
+				member(name(ln, lv-1), name(ln, lv), "C450")
+			}
+			for ln := 1; ln <= bays; ln++ {
+				member(name(ln-1, lv), name(ln, lv), "B350x650")
+			}
+		}
+		for _, c := range []struct {
+			name, kind string
+			w          float64
+		}{{"D", "dead", 20}, {"L", "live", 12}} {
+			fmt.Fprintf(w, "[[case]]\nname = %q\nkind = %q\n", c.name, c.kind)
+			for lv := 1; lv <= storeys; lv++ {
+				for ln := 1; ln <= bays; ln++ {
+					fmt.Fprintf(w, "  [[case.load]]\n  type = \"udl\"\n  on = \"%s-%s\"\n  w = %g\n\n", name(ln-1, lv), name(ln, lv), c.w)
+				}
+			}
+		}
+		io.WriteString(w, "[analysis]\nstations = 2\n")
+		for range comments {
+			io.WriteString(w, "# "+strings.Repeat("x", 97)+"\n")
+		}
+	}
+	for _, m := range []struct {
+		file    string
+		write   func(io.Writer)
+		entries int // of the full-size file
+	}{
+		{"nodes-50MB.toml", func(w io.Writer) { nodes(w, 1_068_137) }, 4_272_556},
+		{"nodes-limit.toml", func(w io.Writer) { nodes(w, 1_499_990) }, 5_999_968},
+		{"inline-limit.toml", func(w io.Writer) {
+			io.WriteString(w, "x = [")
+			for range 1_499_990 {
+				io.WriteString(w, "{a=1},")
+			}
+			io.WriteString(w, "{a=1}]\n")
+		}, 5_999_965},
+		{"frame-limit.toml", func(w io.Writer) { frame(w, 59, 4585, 0) }, 5_992_914},
+		{"frame-comments-limit.toml", func(w io.Writer) { frame(w, 59, 4585, 423_342) }, 5_992_914},
+		{"comments-limit.toml", func(w io.Writer) {
+			for range 1_342_176 {
+				io.WriteString(w, "# "+strings.Repeat("x", 97)+"\n")
+			}
+		}, 0},
+	} {
+		var b bytes.Buffer
+		m.write(&b)
+		_, _, _, entries := guard(b.String())
+		if entries != m.entries || entries > MaxEntries || b.Len() > MaxFileSize {
+			t.Errorf("%s: %d entries (want %d, at most %d), %d bytes (at most %d)", m.file, entries, m.entries, MaxEntries, b.Len(), MaxFileSize)
+		}
+		if err := os.WriteFile(filepath.Join(*memoryModels, m.file), b.Bytes(), 0o644); err != nil {
+			t.Fatal(err)
+		}
 	}
 }

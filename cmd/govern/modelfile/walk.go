@@ -13,24 +13,48 @@ import (
 type table struct {
 	r     *reader
 	m     map[string]any
-	block string // locator path, such as "case[1].load[0]"
-	where string // how messages name it, such as `case "L", load 1`
-	used  map[string]bool
+	pos   place    // where it is in the file
+	where string   // how messages name it, such as `case "L", load 1`
+	used  []string // the keys read; few, so a slice is smaller than a map
 }
 
+// table returns the table m at block, a block path such as
+// "case[1].load[0]" ("" for the top level).
 func (r *reader) table(m map[string]any, block, where string) *table {
-	return &table{r: r, m: m, block: block, where: where, used: map[string]bool{}}
+	return &table{r: r, m: m, pos: *blockPlace(block), where: where}
 }
 
 // fail records a problem at key (or at the table when key is empty).
 func (t *table) fail(key string, err error) {
-	t.r.fail(t.r.loc.line(t.block, key), t.where, err)
+	if len(t.r.errs) >= MaxProblems {
+		t.r.more++ // not listed, so its line is not needed
+		return
+	}
+	t.r.fail(t.r.loc.at(&t.pos, key), t.where, err)
 }
 
+// line returns the line of key in the table, else of the table.
+func (t *table) line(key string) int { return t.r.loc.at(&t.pos, key) }
+
 func (t *table) get(key string) (any, bool) {
-	t.used[key] = true
+	t.use(key)
 	v, ok := t.m[key]
 	return v, ok
+}
+
+// use marks key as read.
+func (t *table) use(key string) {
+	if t.used == nil {
+		t.used = make([]string, 0, len(t.m))
+	}
+	if !slices.Contains(t.used, key) {
+		t.used = append(t.used, key)
+	}
+}
+
+// inline returns the inline table m, the value of key, to be read on its own.
+func (t *table) inline(key string, m map[string]any) *table {
+	return &table{r: t.r, m: m, pos: t.pos.subPlace(key), where: t.where}
 }
 
 // has reports whether key is present.
@@ -211,7 +235,7 @@ func (t *table) sub(key, where string) *table {
 		t.wrongType(key, "a table", v)
 		return nil
 	}
-	return t.r.table(m, blockPath(nonEmpty(t.block, key)...), where)
+	return &table{r: t.r, m: m, pos: t.pos.subPlace(key), where: where}
 }
 
 // array reads an array of tables; where names element i (0-based).
@@ -239,9 +263,24 @@ func (t *table) array(key string, where func(i int, m map[string]any) string) []
 	}
 	out := make([]*table, len(ms))
 	for i, m := range ms {
-		out[i] = t.r.table(m, blockPath(nonEmpty(t.block, elem(key, i))...), where(i, m))
+		out[i] = &table{r: t.r, m: m, pos: t.pos.elemPlace(key, i), where: where(i, m)}
+	}
+	// From now on each element is held by its table alone, so that
+	// release can let it go.
+	switch x := v.(type) {
+	case []map[string]any:
+		clear(x)
+	case []any:
+		clear(x)
 	}
 	return out
+}
+
+// release lets the table's values go once they are read: a large model's
+// decoded tables then need not all stay in memory while it is built. The
+// table can still report problems.
+func (t *table) release() {
+	t.m, t.used = nil, nil
 }
 
 // skipRest marks every key of the table as read, so that done reports
@@ -249,7 +288,7 @@ func (t *table) array(key string, where func(i int, m map[string]any) string) []
 // cannot be told.
 func (t *table) skipRest() {
 	for k := range t.m {
-		t.used[k] = true
+		t.use(k)
 	}
 }
 
@@ -258,16 +297,15 @@ func (t *table) skipRest() {
 func (t *table) done() {
 	var unknown []string
 	for k := range t.m {
-		if !t.used[k] {
+		if !slices.Contains(t.used, k) {
 			unknown = append(unknown, k)
 		}
 	}
-	sort.Strings(unknown)
-	known := make([]string, 0, len(t.used))
-	for k := range t.used {
-		known = append(known, k)
+	if len(unknown) == 0 {
+		return
 	}
-	sort.Strings(known)
+	sort.Strings(unknown)
+	known := slices.Sorted(slices.Values(t.used))
 	for _, k := range unknown {
 		msg := fmt.Sprintf("unknown key %q", k)
 		if s := closest(k, known); s != "" {
@@ -343,7 +381,11 @@ func (t *table) oneOf(key, s string, allowed ...string) bool {
 	if slices.Contains(allowed, s) {
 		return true
 	}
-	t.fail(key, problem(ErrValue, "%s = %q: must be one of %s", key, s, quoteList(allowed)))
+	msg := fmt.Sprintf("%s = %q: must be one of %s", key, s, quoteList(allowed))
+	if c := closest(s, allowed); c != "" {
+		msg += fmt.Sprintf(" (did you mean %q?)", c)
+	}
+	t.fail(key, problem(ErrValue, "%s", msg))
 	return false
 }
 
