@@ -5,8 +5,6 @@ import (
 	"sort"
 	"strconv"
 	"strings"
-
-	"govern/frame"
 )
 
 // Action is what a standard combines: what leads, accompanies and takes a
@@ -16,7 +14,7 @@ import (
 // (wind from the left or from the right; balanced or unbalanced snow).
 type Action struct {
 	Name string
-	Kind frame.Kind // every case of the action is of this kind
+	Kind Kind // every case of the action is of this kind
 	// Alternatives in the order of their first case.
 	Alternatives []Alternative
 	// Default is set when no case of the action gave action, alternative
@@ -53,11 +51,11 @@ type Actions struct {
 // action, alternative or with: all cases of the kind one action (else each
 // case its own), and within it each case its own alternative (else all
 // cases together).
-func grouped(k frame.Kind) (oneAction, eachAlternative bool) {
+func grouped(k Kind) (oneAction, eachAlternative bool) {
 	switch k {
-	case frame.Dead, frame.Live, frame.RoofLive, frame.Snow:
+	case Dead, Live, RoofLive, Snow:
 		return true, false
-	case frame.Wind, frame.Seismic:
+	case Wind, Seismic:
 		return true, true
 	}
 	return false, false
@@ -76,7 +74,7 @@ func grouped(k frame.Kind) (oneAction, eachAlternative bool) {
 //
 // Dead cases take none of the three keys: permanent actions always act.
 // Problems are returned as [CaseErrors], each at the case and key at fault.
-func GroupActions(cases []frame.Case, info []CaseInfo) (*Actions, error) {
+func GroupActions(cases []Case, info []CaseInfo) (*Actions, error) {
 	if info == nil {
 		info = make([]CaseInfo, len(cases))
 	}
@@ -170,10 +168,10 @@ func GroupActions(cases []frame.Case, info []CaseInfo) (*Actions, error) {
 	}
 
 	a := &Actions{Of: make([]Place, len(cases))}
-	actionOf := map[string]int{}   // action key → index into a.List
-	altOf := map[string]int{}      // action index + alternative key → index
-	firstCase := map[int]int{}     // action index → the case that made it
-	keyed := map[frame.Kind]bool{} // a case of the kind gave a key
+	actionOf := map[string]int{} // action key → index into a.List
+	altOf := map[string]int{}    // action index + alternative key → index
+	firstCase := map[int]int{}   // action index → the case that made it
+	keyed := map[Kind]bool{}     // a case of the kind gave a key
 	for i, c := range cases {
 		ci := &info[i]
 		if ci.Action != "" || ci.Alternative != "" || ci.With != "" {
@@ -248,9 +246,9 @@ func GroupActions(cases []frame.Case, info []CaseInfo) (*Actions, error) {
 
 // defaultNote describes the wind, seismic and snow cases grouped by
 // default when there is more than one of a kind.
-func defaultNote(cases []frame.Case, keyed map[frame.Kind]bool) string {
+func defaultNote(cases []Case, keyed map[Kind]bool) string {
 	var parts []string
-	for _, k := range []frame.Kind{frame.Wind, frame.Seismic, frame.Snow} {
+	for _, k := range []Kind{Wind, Seismic, Snow} {
 		if keyed[k] {
 			continue
 		}

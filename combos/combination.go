@@ -4,8 +4,6 @@ import (
 	"fmt"
 	"strconv"
 	"strings"
-
-	"govern/frame"
 )
 
 // Term is one load case of a combination with its factor.
@@ -27,7 +25,7 @@ type Combination struct {
 
 // EachCase returns one combination per case, the case alone with factor 1,
 // named after it: what a model without combinations is analysed for.
-func EachCase(cases []frame.Case) []Combination {
+func EachCase(cases []Case) []Combination {
 	out := make([]Combination, len(cases))
 	for i, c := range cases {
 		out[i] = Combination{Name: c.Name, Rule: "case", Terms: []Term{{Case: i, Factor: 1}}}
@@ -48,7 +46,7 @@ func (cb *Combination) Factor(c int) float64 {
 
 // Describe writes the combination as factors and case names, such as
 // "1.2D + 1.6L - 0.5W".
-func (cb *Combination) Describe(cases []frame.Case) string {
+func (cb *Combination) Describe(cases []Case) string {
 	var b strings.Builder
 	for i, t := range cb.Terms {
 		f := t.Factor

@@ -2,12 +2,10 @@ package combos
 
 import (
 	"testing"
-
-	"govern/frame"
 )
 
 func TestEachCase(t *testing.T) {
-	cases := []frame.Case{{Name: "D"}, {Name: "L", Kind: frame.Live}}
+	cases := []Case{{Name: "D"}, {Name: "L", Kind: Live}}
 	got := EachCase(cases)
 	if len(got) != 2 || got[1].Name != "L" || got[1].Factor(1) != 1 || got[1].Factor(0) != 0 {
 		t.Errorf("EachCase = %+v", got)
@@ -15,7 +13,7 @@ func TestEachCase(t *testing.T) {
 }
 
 func TestDescribe(t *testing.T) {
-	cases := []frame.Case{{Name: "D"}, {Name: "L"}, {Name: "W"}}
+	cases := []Case{{Name: "D"}, {Name: "L"}, {Name: "W"}}
 	for _, tc := range []struct {
 		name  string
 		terms []Term

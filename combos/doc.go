@@ -3,7 +3,7 @@
 //
 // A [Combination] is a named list of terms, each a load case (by its index in
 // the model) and the factor that multiplies it. Factors are dimensionless.
-// A case's kind ([frame.Kind]) says whether it is permanent (always acts) or
+// A case's kind ([Kind]) says whether it is permanent (always acts) or
 // variable (may be absent where its presence would help); the envelope
 // package uses that to investigate "loads not acting".
 //

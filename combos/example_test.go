@@ -4,7 +4,6 @@ import (
 	"fmt"
 
 	"govern/combos"
-	"govern/frame"
 )
 
 // The strength combinations of ASCE/SEI 7-16 section 2.3.1 for a frame
@@ -15,10 +14,10 @@ func ExampleSet_Generate() {
 		fmt.Println(err)
 		return
 	}
-	cases := []frame.Case{
-		{Name: "D", Kind: frame.Dead},
-		{Name: "L", Kind: frame.Live},
-		{Name: "W", Kind: frame.Wind},
+	cases := []combos.Case{
+		{Name: "D", Kind: combos.Dead},
+		{Name: "L", Kind: combos.Live},
+		{Name: "W", Kind: combos.Wind},
 	}
 	info := []combos.CaseInfo{2: {Reversible: true}}
 	cs, err := set.Generate(cases, info, combos.Params{})

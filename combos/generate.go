@@ -7,8 +7,6 @@ import (
 	"sort"
 	"strconv"
 	"strings"
-
-	"govern/frame"
 )
 
 // Params are the values a model gives for the options of a rule set.
@@ -84,7 +82,7 @@ func (es CaseErrors) Unwrap() []error {
 // Rule is the set's name and the rule's ID. Cases that lack a ψ factor a
 // rule needs, or whose action keys are wrong, are returned as
 // [CaseErrors].
-func (s *Set) Generate(cases []frame.Case, info []CaseInfo, p Params) ([]Combination, error) {
+func (s *Set) Generate(cases []Case, info []CaseInfo, p Params) ([]Combination, error) {
 	if info == nil {
 		info = make([]CaseInfo, len(cases))
 	}
@@ -92,7 +90,7 @@ func (s *Set) Generate(cases []frame.Case, info []CaseInfo, p Params) ([]Combina
 		panic("combos: Generate: info and cases differ in length")
 	}
 	for _, c := range cases {
-		if int(c.Kind) >= len(frame.Kinds()) {
+		if int(c.Kind) >= len(Kinds()) {
 			panic("combos: Generate: case " + c.Name + " has no known kind")
 		}
 	}
@@ -101,7 +99,7 @@ func (s *Set) Generate(cases []frame.Case, info []CaseInfo, p Params) ([]Combina
 		return nil, err
 	}
 	g := &generator{set: s, cases: cases, info: info, acts: acts, p: p, seen: map[string]bool{}, bad: map[int]bool{}}
-	g.byKind = make([][]int, len(frame.Kinds()))
+	g.byKind = make([][]int, len(Kinds()))
 	for i, a := range acts.List {
 		g.byKind[a.Kind] = append(g.byKind[a.Kind], i)
 	}
@@ -129,7 +127,7 @@ func (s *Set) Generate(cases []frame.Case, info []CaseInfo, p Params) ([]Combina
 
 type generator struct {
 	set    *Set
-	cases  []frame.Case
+	cases  []Case
 	info   []CaseInfo
 	acts   *Actions
 	p      Params
@@ -392,7 +390,7 @@ func FormatFactor(f float64) string {
 
 // Compact writes terms as factors and case names without spaces, such as
 // "1.2D+1.6S-0.5W".
-func Compact(terms []Term, cases []frame.Case) string {
+func Compact(terms []Term, cases []Case) string {
 	var b strings.Builder
 	for i, t := range terms {
 		f := t.Factor

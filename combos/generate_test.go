@@ -5,19 +5,17 @@ import (
 	"fmt"
 	"strings"
 	"testing"
-
-	"govern/frame"
 )
 
 // cases builds load cases from specs such as "D dead", "W wind reversible",
 // "Q live category=B" or "Wr wind with=Ww" (also action= and alternative=).
-func cases(t *testing.T, specs ...string) ([]frame.Case, []CaseInfo) {
+func cases(t *testing.T, specs ...string) ([]Case, []CaseInfo) {
 	t.Helper()
-	var cs []frame.Case
+	var cs []Case
 	var info []CaseInfo
 	for _, s := range specs {
 		f := strings.Fields(s)
-		k, ok := frame.ParseKind(f[1])
+		k, ok := ParseKind(f[1])
 		if !ok {
 			t.Fatalf("bad kind in %q", s)
 		}
@@ -38,7 +36,7 @@ func cases(t *testing.T, specs ...string) ([]frame.Case, []CaseInfo) {
 				t.Fatalf("bad option in %q", s)
 			}
 		}
-		cs = append(cs, frame.Case{Name: f[0], Kind: k})
+		cs = append(cs, Case{Name: f[0], Kind: k})
 		info = append(info, ci)
 	}
 	return cs, info
@@ -46,7 +44,7 @@ func cases(t *testing.T, specs ...string) ([]frame.Case, []CaseInfo) {
 
 // factorSets generates the set's combinations and returns each as its
 // factors, such as "1.2D+1.6L".
-func factorSets(t *testing.T, s *Set, cs []frame.Case, info []CaseInfo, p Params) []string {
+func factorSets(t *testing.T, s *Set, cs []Case, info []CaseInfo, p Params) []string {
 	t.Helper()
 	got, err := s.Generate(cs, info, p)
 	if err != nil {

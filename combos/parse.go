@@ -9,8 +9,6 @@ import (
 	"strings"
 
 	"github.com/BurntSushi/toml"
-
-	"govern/frame"
 )
 
 // SetError is a problem in a rule file.
@@ -281,7 +279,7 @@ func isEmptyArray(v any) bool {
 // kindList is how messages list the load kinds.
 func kindList() string {
 	var s []string
-	for _, k := range frame.Kinds() {
+	for _, k := range Kinds() {
 		s = append(s, fmt.Sprintf("%q", k.String()))
 	}
 	return strings.Join(s, ", ")
@@ -337,7 +335,7 @@ func (p *parser) term(t *ruleTable) RuleTerm {
 }
 
 // kinds reads the kind key: a kind name, or with many an array of them.
-func (p *parser) kinds(t *ruleTable, many bool) []frame.Kind {
+func (p *parser) kinds(t *ruleTable, many bool) []Kind {
 	v, ok := t.get("kind")
 	if !ok {
 		t.fail("kind", "kind is required: the load kind the factor applies to (%s)", kindList())
@@ -368,10 +366,10 @@ func (p *parser) kinds(t *ruleTable, many bool) []frame.Kind {
 		t.fail("kind", "kind must be a kind name or an array of them, not %s", tomlType(v))
 		return nil
 	}
-	var out []frame.Kind
+	var out []Kind
 	bad := false
 	for _, n := range names {
-		k, ok := frame.ParseKind(n)
+		k, ok := ParseKind(n)
 		if !ok {
 			t.fail("kind", "kind %q is not a load kind; the kinds are %s", n, kindList())
 			bad = true
@@ -387,13 +385,13 @@ func (p *parser) kinds(t *ruleTable, many bool) []frame.Kind {
 
 // choice reads the factor keys of a term or an alternative; kinds are the
 // kinds they apply to, for checks.
-func (p *parser) choice(t *ruleTable, kinds []frame.Kind) Choice {
+func (p *parser) choice(t *ruleTable, kinds []Kind) Choice {
 	var c Choice
 	c.Factor, _ = t.num("factor")
 	if !t.has("factor") {
 		t.fail("factor", "factor is required")
 	}
-	only := func(key string, k frame.Kind, why string) {
+	only := func(key string, k Kind, why string) {
 		for _, kk := range kinds {
 			if kk != k {
 				t.fail(key, "%s applies to %s load only (%s), not to %s", key, k, why, kk)
@@ -403,11 +401,11 @@ func (p *parser) choice(t *ruleTable, kinds []frame.Kind) Choice {
 	}
 	if v, ok := t.num("sds_factor"); ok {
 		c.SDSFactor = v
-		only("sds_factor", frame.Dead, "Ev = 0.2 S_DS D")
+		only("sds_factor", Dead, "Ev = 0.2 S_DS D")
 	}
 	if v, ok := t.num("reduced_live_factor"); ok {
 		c.ReducedLive, c.HasReducedLive = v, true
-		only("reduced_live_factor", frame.Live, "ASCE/SEI 7-16 section 2.3.1 exception 1")
+		only("reduced_live_factor", Live, "ASCE/SEI 7-16 section 2.3.1 exception 1")
 	}
 	if t.has("psi") {
 		s := t.str("psi")

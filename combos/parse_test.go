@@ -3,8 +3,6 @@ package combos
 import (
 	"strings"
 	"testing"
-
-	"govern/frame"
 )
 
 const officeCode = `# An office's own code, for the tests.
@@ -43,10 +41,10 @@ func TestParseSet(t *testing.T) {
 		t.Errorf("R1 = %+v", r1)
 	}
 	alt := r1.Terms[1].Choices
-	if len(alt) != 2 || alt[0] != (Choice{Kind: frame.Live, Factor: 1.5}) || alt[1] != (Choice{Kind: frame.Snow, Factor: 1.5}) {
+	if len(alt) != 2 || alt[0] != (Choice{Kind: Live, Factor: 1.5}) || alt[1] != (Choice{Kind: Snow, Factor: 1.5}) {
 		t.Errorf("R1 alternative = %+v", alt)
 	}
-	if c := r2.Terms[0].Choices[0]; c.Kind != frame.Dead || c.Factor != 1 || c.SDSFactor != 0.2 {
+	if c := r2.Terms[0].Choices[0]; c.Kind != Dead || c.Factor != 1 || c.SDSFactor != 0.2 {
 		t.Errorf("R2 dead = %+v", c)
 	}
 	or := r2.Terms[1].Choices

@@ -3,8 +3,6 @@ package combos
 import (
 	"fmt"
 	"slices"
-
-	"govern/frame"
 )
 
 // Psi selects one of the EN 1990 factors that turn the characteristic value
@@ -30,16 +28,16 @@ func (p Psi) String() string {
 // Category is a row of EN 1990 Annex A1, Table A1.1: the recommended ψ
 // factors of one sort of variable action in buildings.
 type Category struct {
-	Name  string       // as written in a model, such as "B" or "snow-up-to-1000m"
-	Row   string       // the row of Table A1.1
-	Kinds []frame.Kind // the load kinds the row applies to
-	Psi   [3]float64   // ψ0, ψ1, ψ2
+	Name  string     // as written in a model, such as "B" or "snow-up-to-1000m"
+	Row   string     // the row of Table A1.1
+	Kinds []Kind     // the load kinds the row applies to
+	Psi   [3]float64 // ψ0, ψ1, ψ2
 }
 
 // Fits reports whether the row applies to loads of kind k.
-func (c *Category) Fits(k frame.Kind) bool { return slices.Contains(c.Kinds, k) }
+func (c *Category) Fits(k Kind) bool { return slices.Contains(c.Kinds, k) }
 
-var imposed = []frame.Kind{frame.Live, frame.RoofLive}
+var imposed = []Kind{Live, RoofLive}
 
 // categories is EN 1990:2002 Annex A1, Table A1.1, recommended values
 // (recalled from memory; the ψ0 values of wind, 0.6, and of snow at sites up
@@ -55,11 +53,11 @@ var categories = []Category{
 	{"F", "Category F: traffic area, vehicle weight up to 30 kN", imposed, [3]float64{0.7, 0.7, 0.6}},
 	{"G", "Category G: traffic area, vehicle weight over 30 kN up to 160 kN", imposed, [3]float64{0.7, 0.5, 0.3}},
 	{"H", "Category H: roofs", imposed, [3]float64{0, 0, 0}},
-	{"snow-nordic", "Snow loads on buildings: Finland, Iceland, Norway, Sweden", []frame.Kind{frame.Snow}, [3]float64{0.7, 0.5, 0.2}},
-	{"snow-above-1000m", "Snow loads on buildings: other CEN member states, site altitude above 1000 m", []frame.Kind{frame.Snow}, [3]float64{0.7, 0.5, 0.2}},
-	{"snow-up-to-1000m", "Snow loads on buildings: other CEN member states, site altitude up to 1000 m", []frame.Kind{frame.Snow}, [3]float64{0.5, 0.2, 0}},
-	{"wind", "Wind loads on buildings", []frame.Kind{frame.Wind}, [3]float64{0.6, 0.2, 0}},
-	{"temperature", "Temperature (non-fire) in buildings", []frame.Kind{frame.Other}, [3]float64{0.6, 0.5, 0}},
+	{"snow-nordic", "Snow loads on buildings: Finland, Iceland, Norway, Sweden", []Kind{Snow}, [3]float64{0.7, 0.5, 0.2}},
+	{"snow-above-1000m", "Snow loads on buildings: other CEN member states, site altitude above 1000 m", []Kind{Snow}, [3]float64{0.7, 0.5, 0.2}},
+	{"snow-up-to-1000m", "Snow loads on buildings: other CEN member states, site altitude up to 1000 m", []Kind{Snow}, [3]float64{0.5, 0.2, 0}},
+	{"wind", "Wind loads on buildings", []Kind{Wind}, [3]float64{0.6, 0.2, 0}},
+	{"temperature", "Temperature (non-fire) in buildings", []Kind{Other}, [3]float64{0.6, 0.5, 0}},
 }
 
 // Categories returns the rows of EN 1990 Table A1.1 that a case's category
@@ -105,7 +103,7 @@ type CaseInfo struct {
 // PsiFactor returns ψ p (Psi0, Psi1 or Psi2) of a case of kind k: the
 // value given for the case, else its category's, else, for wind, the wind
 // row of Table A1.1. ok is false when none of these gives it.
-func (ci *CaseInfo) PsiFactor(p Psi, k frame.Kind) (v float64, ok bool) {
+func (ci *CaseInfo) PsiFactor(p Psi, k Kind) (v float64, ok bool) {
 	if p < Psi0 || p > Psi2 {
 		panic("combos: PsiFactor of " + p.String())
 	}
@@ -114,7 +112,7 @@ func (ci *CaseInfo) PsiFactor(p Psi, k frame.Kind) (v float64, ok bool) {
 		return ci.Psi[i], true
 	}
 	name := ci.Category
-	if name == "" && k == frame.Wind {
+	if name == "" && k == Wind {
 		name = "wind"
 	}
 	c, ok := LookupCategory(name)

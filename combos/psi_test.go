@@ -2,8 +2,6 @@ package combos
 
 import (
 	"testing"
-
-	"govern/frame"
 )
 
 func TestCategoriesFollowTableA1_1(t *testing.T) {
@@ -31,7 +29,7 @@ func TestCategoriesFollowTableA1_1(t *testing.T) {
 	t.Run("rows fit their kinds", func(t *testing.T) {
 		b, _ := LookupCategory("B")
 		s, _ := LookupCategory("snow-up-to-1000m")
-		if !b.Fits(frame.Live) || b.Fits(frame.Snow) || !s.Fits(frame.Snow) || s.Fits(frame.Live) {
+		if !b.Fits(Live) || b.Fits(Snow) || !s.Fits(Snow) || s.Fits(Live) {
 			t.Error("category B must fit live loads only and snow rows snow only")
 		}
 		if _, ok := LookupCategory("b"); ok {
@@ -44,19 +42,19 @@ func TestPsiFactor(t *testing.T) {
 	for _, tc := range []struct {
 		name string
 		ci   CaseInfo
-		kind frame.Kind
+		kind Kind
 		p    Psi
 		want float64
 		ok   bool
 	}{
 		// Table A1.1, category B office areas: ψ0 0.7, ψ1 0.5, ψ2 0.3 (recalled from memory).
-		{"from the category", CaseInfo{Category: "B"}, frame.Live, Psi1, 0.5, true},
-		{"given beats category", CaseInfo{Category: "B", Psi: [3]float64{0.6, 0, 0}, PsiGiven: [3]bool{true}}, frame.Live, Psi0, 0.6, true},
-		{"given beats category only where given", CaseInfo{Category: "B", Psi: [3]float64{0.6, 0, 0}, PsiGiven: [3]bool{true}}, frame.Live, Psi2, 0.3, true},
+		{"from the category", CaseInfo{Category: "B"}, Live, Psi1, 0.5, true},
+		{"given beats category", CaseInfo{Category: "B", Psi: [3]float64{0.6, 0, 0}, PsiGiven: [3]bool{true}}, Live, Psi0, 0.6, true},
+		{"given beats category only where given", CaseInfo{Category: "B", Psi: [3]float64{0.6, 0, 0}, PsiGiven: [3]bool{true}}, Live, Psi2, 0.3, true},
 		// Table A1.1, wind loads on buildings: ψ0 0.6.
-		{"wind without category takes the wind row", CaseInfo{}, frame.Wind, Psi0, 0.6, true},
-		{"live without category has none", CaseInfo{}, frame.Live, Psi0, 0, false},
-		{"given zero is a value", CaseInfo{PsiGiven: [3]bool{false, false, true}}, frame.Rain, Psi2, 0, true},
+		{"wind without category takes the wind row", CaseInfo{}, Wind, Psi0, 0.6, true},
+		{"live without category has none", CaseInfo{}, Live, Psi0, 0, false},
+		{"given zero is a value", CaseInfo{PsiGiven: [3]bool{false, false, true}}, Rain, Psi2, 0, true},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
 			got, ok := tc.ci.PsiFactor(tc.p, tc.kind)

@@ -6,8 +6,6 @@ import (
 	"path"
 	"sort"
 	"strings"
-
-	"govern/frame"
 )
 
 // Set is a set of combination rules, such as the strength combinations of
@@ -54,7 +52,7 @@ type RuleTerm struct {
 
 // Choice is one kind of load in a term and how its factor is found.
 type Choice struct {
-	Kind   frame.Kind
+	Kind   Kind
 	Factor float64
 	// SDSFactor times the model's S_DS is added to Factor: ASCE/SEI 7's
 	// vertical seismic load effect Ev = 0.2 S_DS D taken into the dead

@@ -78,6 +78,13 @@ type Settings struct {
 	// station (within 1e-9 of the length) marks it instead. Members past
 	// the end of Extra get none.
 	Extra [][]float64
+	// Kinds gives the kind of each load case of the model before its
+	// patterned cases are placed, in model order (the cases combination
+	// terms refer to). A case of a permanent kind acts in every
+	// combination with its factor; a variable one only where adverse,
+	// unless AsWritten. Compute panics when it does not give one kind per
+	// case.
+	Kinds []combos.Kind
 	// AsWritten makes every case of a combination act with its factor
 	// everywhere, instead of variable cases acting only where adverse.
 	// Pieces of a case patterned "exact" or "exhaustive" are still placed
@@ -252,15 +259,18 @@ type evaluator struct {
 
 func newEvaluator(mo *frame.Model, cs []combos.Combination, idx []int, nEff int, set Settings, lay *patterns.Layout) *evaluator {
 	e := &evaluator{mo: mo, cs: pick(cs, idx), index: idx, nEff: nEff, set: set, lay: lay, nOrig: len(mo.Cases)}
-	e.always = make([]bool, len(mo.Cases))
-	for c := range mo.Cases {
-		e.always[c] = set.AsWritten || !mo.Cases[c].Variable()
-	}
 	if lay != nil {
 		e.mode = lay.Mode
 		for _, p := range lay.Patterned {
 			e.nOrig -= len(p.Units)
 		}
+	}
+	if len(set.Kinds) != e.nOrig {
+		panic(fmt.Sprintf("envelope: Settings.Kinds gives %d kinds for %d load cases", len(set.Kinds), e.nOrig))
+	}
+	e.always = make([]bool, len(mo.Cases))
+	for c := range e.nOrig {
+		e.always[c] = set.AsWritten || set.Kinds[c].Permanent()
 	}
 	e.patternOf = make([]int, e.nOrig)
 	for c := range e.patternOf {

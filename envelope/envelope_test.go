@@ -25,9 +25,9 @@ func twoSpans(l, g, q float64) *frame.Model {
 		},
 		Members: []frame.Member{{Name: "AB", Start: 0, End: 1}, {Name: "BC", Start: 1, End: 2}},
 		Cases: []frame.Case{
-			{Name: "D", Kind: frame.Dead, MemberLoads: []frame.MemberLoad{udl(0, g), udl(1, g)}},
-			{Name: "L1", Kind: frame.Live, MemberLoads: []frame.MemberLoad{udl(0, q)}},
-			{Name: "L2", Kind: frame.Live, MemberLoads: []frame.MemberLoad{udl(1, q)}},
+			{Name: "D", MemberLoads: []frame.MemberLoad{udl(0, g), udl(1, g)}},
+			{Name: "L1", MemberLoads: []frame.MemberLoad{udl(0, q)}},
+			{Name: "L2", MemberLoads: []frame.MemberLoad{udl(1, q)}},
 		},
 	}
 }
@@ -43,7 +43,7 @@ func TestAdverseVariableLoads(t *testing.T) {
 		{Name: "1.2D+1.6L", Terms: []combos.Term{{Case: 0, Factor: 1.2}, {Case: 1, Factor: 1.6}, {Case: 2, Factor: 1.6}}},
 	}
 	// 17 stations put one at 7L/16, where the one-span-loaded moment peaks.
-	env, err := Compute(sol, cs, Settings{Stations: 17}, nil)
+	env, err := Compute(sol, cs, Settings{Kinds: kindsOf(sol, nil), Stations: 17}, nil)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -87,7 +87,7 @@ func TestAdverseVariableLoads(t *testing.T) {
 		}
 	})
 	t.Run("as written: every case always acts", func(t *testing.T) {
-		aw, err := Compute(sol, cs, Settings{Stations: 17, AsWritten: true}, nil)
+		aw, err := Compute(sol, cs, Settings{Kinds: kindsOf(sol, nil), Stations: 17, AsWritten: true}, nil)
 		if err != nil {
 			t.Fatal(err)
 		}
@@ -104,11 +104,11 @@ func TestComputeRejects(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	if _, err := Compute(sol, nil, Settings{Stations: 3}, nil); !errors.Is(err, ErrNoCombinations) {
+	if _, err := Compute(sol, nil, Settings{Kinds: kindsOf(sol, nil), Stations: 3}, nil); !errors.Is(err, ErrNoCombinations) {
 		t.Errorf("no combinations: err = %v", err)
 	}
-	cs := combos.EachCase(sol.Model().Cases)
-	if _, err := Compute(sol, cs, Settings{Stations: 1}, nil); err == nil || err.Error() != "envelope: 1 stations per member; need at least 2" {
+	cs := combos.EachCase(casesOf(sol))
+	if _, err := Compute(sol, cs, Settings{Kinds: kindsOf(sol, nil), Stations: 1}, nil); err == nil || err.Error() != "envelope: 1 stations per member; need at least 2" {
 		t.Errorf("one station: err = %v", err)
 	}
 }

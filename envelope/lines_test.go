@@ -21,7 +21,7 @@ func line(t *testing.T, mo *frame.Model, stations int, lines []Line) *Envelope {
 	if err != nil {
 		t.Fatal(err)
 	}
-	env, err := Compute(sol, service, Settings{Stations: stations, Lines: lines}, nil)
+	env, err := Compute(sol, service, Settings{Kinds: kindsOf(sol, nil), Stations: stations, Lines: lines}, nil)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -40,7 +40,7 @@ func TestLineOfTwoMembersIsOneSpan(t *testing.T) {
 		Sections: []frame.Section{{Name: "S", E: 2e8, A: 0.01, I: ei / 2e8}},
 		Nodes:    []frame.Node{{Name: "A", Support: frame.Pinned}, {Name: "M", X: l / 2}, {Name: "B", X: l, Support: frame.Roller}},
 		Members:  []frame.Member{{Name: "A-M", Start: 0, End: 1}, {Name: "B-M", Start: 2, End: 1}},
-		Cases: []frame.Case{{Name: "D", Kind: frame.Dead, MemberLoads: []frame.MemberLoad{
+		Cases: []frame.Case{{Name: "D", MemberLoads: []frame.MemberLoad{
 			{Member: 0, To: l / 2, W: w, WEnd: w}, {Member: 1, To: l / 2, W: w, WEnd: w},
 		}}},
 	}
@@ -88,7 +88,7 @@ func TestLineOfACantileverIncludesItsRootRotation(t *testing.T) {
 				Sections: []frame.Section{{Name: "S", E: 2e8, A: 0.01, I: ei / 2e8}},
 				Nodes:    []frame.Node{{Name: "A", Support: frame.Pinned}, {Name: "B", X: a, Support: frame.Roller}, {Name: "C", X: a + c}},
 				Members:  []frame.Member{{Name: "AB", Start: 0, End: 1}, {Name: "over", Start: drawn.start, End: drawn.end}},
-				Cases:    []frame.Case{{Name: "D", Kind: frame.Dead, MemberLoads: []frame.MemberLoad{{Member: 1, To: c, W: w, WEnd: w}}}},
+				Cases:    []frame.Case{{Name: "D", MemberLoads: []frame.MemberLoad{{Member: 1, To: c, W: w, WEnd: w}}}},
 			}
 			env := line(t, mo, 3, []Line{{}, drawn.line})
 			if env.Members[0].LineDeflection != nil {
@@ -127,7 +127,7 @@ func TestLinesAreChecked(t *testing.T) {
 		{[]Line{{}, {}, {}}, "lines for 3 members"},
 		{[]Line{{A: 0, B: 1, From: 9}}, "no reference"},
 	} {
-		if _, err := Compute(sol, service, Settings{Stations: 3, Lines: tc.lines}, nil); err == nil || !strings.Contains(err.Error(), tc.msg) {
+		if _, err := Compute(sol, service, Settings{Kinds: kindsOf(sol, nil), Stations: 3, Lines: tc.lines}, nil); err == nil || !strings.Contains(err.Error(), tc.msg) {
 			t.Errorf("lines %v: %v, want %q", tc.lines, err, tc.msg)
 		}
 	}
@@ -141,13 +141,13 @@ func TestStartStationIsInsideTheMember(t *testing.T) {
 		Sections: []frame.Section{{Name: "S", E: 2e8, A: 0.01, I: 1e-4}},
 		Nodes:    []frame.Node{{Name: "T"}, {Name: "R", X: 3, Support: frame.Fixed}},
 		Members:  []frame.Member{{Name: "T-R", Start: 0, End: 1}},
-		Cases:    []frame.Case{{Name: "P", Kind: frame.Dead, MemberLoads: []frame.MemberLoad{{Member: 0, Point: true, P: 10}}}},
+		Cases:    []frame.Case{{Name: "P", MemberLoads: []frame.MemberLoad{{Member: 0, Point: true, P: 10}}}},
 	}
 	sol, err := frame.Solve(mo)
 	if err != nil {
 		t.Fatal(err)
 	}
-	env, err := Compute(sol, []combos.Combination{{Name: "P", Terms: []combos.Term{{Case: 0, Factor: 1}}}}, Settings{Stations: 3}, nil)
+	env, err := Compute(sol, []combos.Combination{{Name: "P", Terms: []combos.Term{{Case: 0, Factor: 1}}}}, Settings{Kinds: kindsOf(sol, nil), Stations: 3}, nil)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -174,7 +174,7 @@ func TestRoundOffPiecesAreNotLoaded(t *testing.T) {
 			t.Fatal(err)
 		}
 		cs := []combos.Combination{{Name: "D+L", Terms: []combos.Term{{Case: 0, Factor: 1}, {Case: 1, Factor: 1}}}}
-		env, err := Compute(sol, cs, Settings{Stations: 3}, lay)
+		env, err := Compute(sol, cs, Settings{Kinds: kindsOf(sol, lay), Stations: 3}, lay)
 		if err != nil {
 			t.Fatal(err)
 		}
@@ -200,7 +200,7 @@ func TestNonFiniteCombinationIsNamed(t *testing.T) {
 		{Name: "fine", Terms: []combos.Term{{Case: 0, Factor: 1.4}}},
 		{Name: "huge", Terms: []combos.Term{{Case: 0, Factor: 1e308}, {Case: 1, Factor: 1e308}}},
 	}
-	_, err = Compute(sol, cs, Settings{Stations: 3}, nil)
+	_, err = Compute(sol, cs, Settings{Kinds: kindsOf(sol, nil), Stations: 3}, nil)
 	want := `combination "huge": V of member "AB" at x = 0 is +Inf, not a finite number: a factor or a load is too large`
 	if err == nil || err.Error() != want || !errors.Is(err, ErrNotFinite) {
 		t.Errorf("error %v, want %s", err, want)

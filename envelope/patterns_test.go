@@ -14,8 +14,8 @@ import (
 // dead load g (case D) and live load q (case L, to be patterned) on every span.
 func beam(n int, l, g, q float64) *frame.Model {
 	mo := &frame.Model{Sections: []frame.Section{{Name: "S", E: 200e6, A: 1e-2, I: 1e-4}}}
-	d := frame.Case{Name: "D", Kind: frame.Dead}
-	lv := frame.Case{Name: "L", Kind: frame.Live}
+	d := frame.Case{Name: "D"}
+	lv := frame.Case{Name: "L"}
 	for i := 0; i <= n; i++ {
 		s := frame.Roller
 		if i == 0 {
@@ -42,7 +42,7 @@ func patterned(t *testing.T, mo *frame.Model, cases []int, segments int, mode pa
 	if err != nil {
 		t.Fatal(err)
 	}
-	env, err := Compute(sol, cs, Settings{Stations: stations}, lay)
+	env, err := Compute(sol, cs, Settings{Kinds: kindsOf(sol, lay), Stations: stations}, lay)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -225,10 +225,10 @@ func frameModel() *frame.Model {
 			mo.Nodes = append(mo.Nodes, frame.Node{Name: fmt.Sprintf("%c%d", 'A'+i, j), X: x, Y: y, Support: s})
 		}
 	}
-	d := frame.Case{Name: "D", Kind: frame.Dead}
-	l := frame.Case{Name: "L", Kind: frame.Live}
-	lr := frame.Case{Name: "Lr", Kind: frame.RoofLive}
-	w := frame.Case{Name: "W", Kind: frame.Wind}
+	d := frame.Case{Name: "D"}
+	l := frame.Case{Name: "L"}
+	lr := frame.Case{Name: "Lr"}
+	w := frame.Case{Name: "W"}
 	for j := 1; j < len(ys); j++ {
 		for i := range xs {
 			mo.Members = append(mo.Members, frame.Member{Name: fmt.Sprintf("c%d%d", i, j), Start: id(i, j-1), End: id(i, j)})

@@ -58,8 +58,8 @@ func TestDeflectionEnvelopeOverServiceCombinations(t *testing.T) {
 				Nodes:    []frame.Node{{Name: "A", Support: tc.s}, {Name: "B", X: l, Support: sb}},
 				Members:  []frame.Member{{Name: "AB", Start: 0, End: 1}},
 				Cases: []frame.Case{
-					{Name: "D", Kind: frame.Dead, MemberLoads: udl(g)},
-					{Name: "L", Kind: frame.Live, MemberLoads: udl(q)},
+					{Name: "D", MemberLoads: udl(g)},
+					{Name: "L", MemberLoads: udl(q)},
 				},
 			}
 			sol, err := frame.Solve(mo)
@@ -70,7 +70,7 @@ func TestDeflectionEnvelopeOverServiceCombinations(t *testing.T) {
 				{Name: "D+L", Service: true, Terms: []combos.Term{{Case: 0, Factor: 1}, {Case: 1, Factor: 1}}},
 				{Name: "1.2D+1.6L", Terms: []combos.Term{{Case: 0, Factor: 1.2}, {Case: 1, Factor: 1.6}}},
 			}
-			env, err := Compute(sol, cs, Settings{Stations: 11}, nil)
+			env, err := Compute(sol, cs, Settings{Kinds: kindsOf(sol, nil), Stations: 11}, nil)
 			if err != nil {
 				t.Fatal(err)
 			}
@@ -108,7 +108,7 @@ func TestDeflectionEnvelopeOverServiceCombinations(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
-		env, err := Compute(sol, combos.EachCase(sol.Model().Cases), Settings{Stations: 5}, nil)
+		env, err := Compute(sol, combos.EachCase(casesOf(sol)), Settings{Kinds: kindsOf(sol, nil), Stations: 5}, nil)
 		if err != nil {
 			t.Fatal(err)
 		}
@@ -138,7 +138,7 @@ func TestPatternedDeflection(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	env, err := Compute(sol, cs, Settings{Stations: 3, Extra: [][]float64{{at * l}}}, lay)
+	env, err := Compute(sol, cs, Settings{Kinds: kindsOf(sol, lay), Stations: 3, Extra: [][]float64{{at * l}}}, lay)
 	if err != nil {
 		t.Fatal(err)
 	}

@@ -36,7 +36,7 @@ func TestFaceStationsOfAFixedBeam(t *testing.T) {
 		Sections: []frame.Section{{Name: "S", E: 30e6, A: 0.2, I: 8e-3}},
 		Nodes:    []frame.Node{{Name: "A", Support: frame.Fixed}, {Name: "B", X: l, Support: frame.Fixed}},
 		Members:  []frame.Member{{Name: "AB", Start: 0, End: 1}},
-		Cases:    []frame.Case{{Name: "D", Kind: frame.Dead, MemberLoads: []frame.MemberLoad{{Member: 0, To: l, W: g, WEnd: g}}}},
+		Cases:    []frame.Case{{Name: "D", MemberLoads: []frame.MemberLoad{{Member: 0, To: l, W: g, WEnd: g}}}},
 	}
 	sol, err := frame.Solve(mo)
 	if err != nil {
@@ -46,7 +46,7 @@ func TestFaceStationsOfAFixedBeam(t *testing.T) {
 		{Name: "1.4D", Terms: []combos.Term{{Case: 0, Factor: 1.4}}},
 		{Name: "1.2D", Terms: []combos.Term{{Case: 0, Factor: 1.2}}},
 	}
-	env, err := Compute(sol, cs, Settings{Stations: 11, Extra: [][]float64{{a / 2, l - a/2}}}, nil)
+	env, err := Compute(sol, cs, Settings{Kinds: kindsOf(sol, nil), Stations: 11, Extra: [][]float64{{a / 2, l - a/2}}}, nil)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -78,9 +78,9 @@ func TestExtraStationsOffTheMemberAreRejected(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	cs := combos.EachCase(sol.Model().Cases)
+	cs := combos.EachCase(casesOf(sol))
 	for _, extra := range [][][]float64{{{-0.1}}, {nil, {4.5}}, {nil, nil, nil}} {
-		_, err := Compute(sol, cs, Settings{Stations: 3, Extra: extra}, nil)
+		_, err := Compute(sol, cs, Settings{Kinds: kindsOf(sol, nil), Stations: 3, Extra: extra}, nil)
 		if err == nil || !strings.HasPrefix(err.Error(), "envelope: ") {
 			t.Errorf("extra %v: err = %v", extra, err)
 		}

@@ -17,7 +17,7 @@ func pieceFrame(bays, storeys int) *Model {
 	mo := gridFrame(bays, storeys, 1)
 	for m := range mo.Members {
 		if mo.IsBeam(m) {
-			mo.Cases = append(mo.Cases, Case{Name: mo.Members[m].Name, Kind: Live,
+			mo.Cases = append(mo.Cases, Case{Name: mo.Members[m].Name,
 				MemberLoads: []MemberLoad{{Member: m, To: mo.Length(m), W: 10, WEnd: 10}}})
 		}
 	}

@@ -83,7 +83,7 @@ func linkedColumns(h, a, hx float64) *Model {
 	mo.Sections[0].A = 1e-2
 	mo.Sections[1].A = a
 	mo.Members[1].Release = ReleaseBoth
-	mo.Cases = []Case{{Name: "H", Kind: Wind, NodeLoads: []NodeLoad{{Node: 1, Fx: hx}}}}
+	mo.Cases = []Case{{Name: "H", NodeLoads: []NodeLoad{{Node: 1, Fx: hx}}}}
 	return mo
 }
 

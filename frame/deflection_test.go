@@ -13,7 +13,7 @@ func beam(l, w float64, sa, sb Support, rel Release) *Model {
 		Sections: []Section{{Name: "S", E: 200e6, A: 1e-2, I: 1e-4}},
 		Nodes:    []Node{{Name: "a", Support: sa}, {Name: "b", X: l, Support: sb}},
 		Members:  []Member{{Name: "a-b", Start: 0, End: 1, Release: rel}},
-		Cases: []Case{{Name: "w", Kind: Dead,
+		Cases: []Case{{Name: "w",
 			MemberLoads: []MemberLoad{{Member: 0, From: 0, To: l, W: w, WEnd: w}}}},
 	}
 }
@@ -171,7 +171,7 @@ func slopedFrame(rel Release, split int, at float64) *Model {
 		{Member: 2, From: 0, To: 4, W: 7, WEnd: 7},
 		{Member: 2, Point: true, At: 3, P: 8},
 	}
-	c := Case{Name: "mixed", Kind: Dead, NodeLoads: []NodeLoad{{Node: 2, Fx: 4, Fy: -10}}}
+	c := Case{Name: "mixed", NodeLoads: []NodeLoad{{Node: 2, Fx: 4, Fy: -10}}}
 	if split < 0 {
 		c.MemberLoads = loads
 		mo.Cases = []Case{c}
@@ -236,7 +236,7 @@ func slopedFrame(rel Release, split int, at float64) *Model {
 
 func TestStationsAndDeflectionsToAgree(t *testing.T) {
 	mo := slopedFrame(ReleaseStart, -1, 0)
-	mo.Cases = append(mo.Cases, Case{Name: "nodes only", Kind: Live, NodeLoads: []NodeLoad{{Node: 1, Fx: 7}}})
+	mo.Cases = append(mo.Cases, Case{Name: "nodes only", NodeLoads: []NodeLoad{{Node: 1, Fx: 7}}})
 	sol := solve(t, mo)
 	for m := range mo.Members {
 		l := mo.Length(m)

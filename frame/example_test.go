@@ -14,7 +14,7 @@ func ExampleSolve() {
 		Sections: []frame.Section{{Name: "S", E: 200e6, A: 5e-3, I: 8e-5}},
 		Nodes:    []frame.Node{{Name: "a", Support: frame.Fixed}, {Name: "b", X: l, Support: frame.Fixed}},
 		Members:  []frame.Member{{Name: "a-b", Start: 0, End: 1}},
-		Cases: []frame.Case{{Name: "w", Kind: frame.Dead,
+		Cases: []frame.Case{{Name: "w",
 			MemberLoads: []frame.MemberLoad{{Member: 0, From: 0, To: l, W: w, WEnd: w}}}},
 	}
 	sol, err := frame.Solve(mo)
@@ -49,7 +49,7 @@ func ExampleSolution_Deflection() {
 		Sections: []frame.Section{{Name: "S", E: e, A: 5e-3, I: i}},
 		Nodes:    []frame.Node{{Name: "a", Support: frame.Pinned}, {Name: "b", X: l, Support: frame.Roller}},
 		Members:  []frame.Member{{Name: "a-b", Start: 0, End: 1}},
-		Cases: []frame.Case{{Name: "w", Kind: frame.Dead,
+		Cases: []frame.Case{{Name: "w",
 			MemberLoads: []frame.MemberLoad{{Member: 0, From: 0, To: l, W: w, WEnd: w}}}},
 	}
 	sol, err := frame.Solve(mo)

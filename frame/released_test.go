@@ -21,7 +21,7 @@ func gerber(a, b, w float64) *Model {
 			{Name: "A-H", Start: 0, End: 1, Release: ReleaseEnd},
 			{Name: "H-B", Start: 1, End: 2, Release: ReleaseStart},
 		},
-		Cases: []Case{{Name: "w", Kind: Dead, MemberLoads: []MemberLoad{{Member: 1, To: b, W: w, WEnd: w}}}},
+		Cases: []Case{{Name: "w", MemberLoads: []MemberLoad{{Member: 1, To: b, W: w, WEnd: w}}}},
 	}
 }
 
@@ -97,7 +97,7 @@ func TestReleasedNodesAreNotMechanisms(t *testing.T) {
 		released.Members[0].Release = ReleaseStart // A0-A1 at A0
 		released.Members[2].Release = ReleaseStart // B0-B1 at B0
 		for _, mo := range []*Model{pinned, released} {
-			mo.Cases = []Case{{Name: "H", Kind: Wind, NodeLoads: []NodeLoad{{Node: 1, Fx: hx}}}}
+			mo.Cases = []Case{{Name: "H", NodeLoads: []NodeLoad{{Node: 1, Fx: hx}}}}
 		}
 		want, got := solve(t, pinned), solve(t, released)
 		for m := range 3 {
@@ -134,7 +134,7 @@ func TestMomentAtAReleasedNodeIsAMechanism(t *testing.T) {
 	mo := simpleSpans(5, 5)
 	mo.Cases = append(mo.Cases,
 		Case{Name: "no moment", NodeLoads: []NodeLoad{{Node: 1, Fy: -10}}},
-		Case{Name: "M at the hinge", Kind: Live, NodeLoads: []NodeLoad{{Node: 1, Fy: -10, M: 3}}})
+		Case{Name: "M at the hinge", NodeLoads: []NodeLoad{{Node: 1, Fy: -10, M: 3}}})
 	_, err := Solve(mo)
 	var me *MechanismError
 	if !errors.As(err, &me) {

@@ -37,7 +37,7 @@ func continuous(spans int, l, w float64, loaded []int) *Model {
 			loaded = append(loaded, i)
 		}
 	}
-	c := Case{Name: "w", Kind: Live}
+	c := Case{Name: "w"}
 	for _, i := range loaded {
 		c.MemberLoads = append(c.MemberLoads, MemberLoad{Member: i, From: 0, To: l, W: w, WEnd: w})
 	}
@@ -259,7 +259,7 @@ func TestPortalFramesAgainstRigidFrameFormulas(t *testing.T) {
 		// Rigid frame formulas, pinned-base portal, horizontal load at beam
 		// level: each column takes H/2, corner moments Hh/2 (recalled from memory).
 		mo := portal(Pinned, l, h, ib, ic)
-		mo.Cases = []Case{{Name: "H", Kind: Wind, NodeLoads: []NodeLoad{{Node: 1, Fx: hx}}}}
+		mo.Cases = []Case{{Name: "H", NodeLoads: []NodeLoad{{Node: 1, Fx: hx}}}}
 		sol := solve(t, mo)
 		want := hx * h / 2
 		if got := sol.At(0, 0, h).M; !near(math.Abs(got), want, rigidTol) {
@@ -278,7 +278,7 @@ func TestPortalFramesAgainstRigidFrameFormulas(t *testing.T) {
 		// Rigid frame formulas, fixed-base portal, horizontal load at beam
 		// level (recalled from memory).
 		mo := portal(Fixed, l, h, ib, ic)
-		mo.Cases = []Case{{Name: "H", Kind: Wind, NodeLoads: []NodeLoad{{Node: 1, Fx: hx}}}}
+		mo.Cases = []Case{{Name: "H", NodeLoads: []NodeLoad{{Node: 1, Fx: hx}}}}
 		sol := solve(t, mo)
 		base := hx * h / 2 * (3*k + 1) / (6*k + 1)
 		top := hx * h / 2 * (3 * k) / (6*k + 1)

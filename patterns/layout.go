@@ -95,12 +95,12 @@ func Expand(mo *frame.Model, patterned []int, segments int, mode Mode) (*Layout,
 		case Exact, Exhaustive:
 			for i, pc := range pieces {
 				p.Units = append(p.Units, Unit{Column: len(ex.Cases), Pieces: []int{first + i}, Name: pc.Name})
-				ex.Cases = append(ex.Cases, frame.Case{Name: mo.Cases[c].Name + " " + pc.Name, Kind: mo.Cases[c].Kind, MemberLoads: pc.Loads})
+				ex.Cases = append(ex.Cases, frame.Case{Name: mo.Cases[c].Name + " " + pc.Name, MemberLoads: pc.Loads})
 			}
 		case Code:
 			for _, a := range Arrangements(mo, pieces) {
 				u := Unit{Column: len(ex.Cases), Name: a.Name}
-				cs := frame.Case{Name: mo.Cases[c].Name + " " + a.Name, Kind: mo.Cases[c].Kind}
+				cs := frame.Case{Name: mo.Cases[c].Name + " " + a.Name}
 				for _, i := range a.Pieces {
 					u.Pieces = append(u.Pieces, first+i)
 					cs.MemberLoads = append(cs.MemberLoads, pieces[i].Loads...)

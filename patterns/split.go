@@ -30,7 +30,7 @@ func Split(mo *frame.Model, c, segments int) (rest frame.Case, pieces []Piece) {
 		panic("patterns: segments < 1")
 	}
 	cs := &mo.Cases[c]
-	rest = frame.Case{Name: cs.Name, Kind: cs.Kind, NodeLoads: cs.NodeLoads}
+	rest = frame.Case{Name: cs.Name, NodeLoads: cs.NodeLoads}
 	byMember := map[int][]frame.MemberLoad{}
 	var order []int
 	for _, ld := range cs.MemberLoads {

@@ -17,7 +17,7 @@ func beamAndColumn() *frame.Model {
 			{Name: "B1", X: 8, Y: 4}, {Name: "B0", X: 8, Support: frame.Fixed},
 		},
 		Members: []frame.Member{{Name: "A0-A1", Start: 0, End: 1}, {Name: "A1-B1", Start: 1, End: 2}, {Name: "B0-B1", Start: 3, End: 2}},
-		Cases: []frame.Case{{Name: "L", Kind: frame.Live,
+		Cases: []frame.Case{{Name: "L",
 			MemberLoads: []frame.MemberLoad{
 				{Member: 1, From: 0, To: 8, W: 10, WEnd: 30},
 				{Member: 1, Point: true, At: 4, P: 50},
@@ -84,7 +84,7 @@ func level(n int) *frame.Model {
 			frame.Node{Name: string(rune('A'+i)) + "1", X: 6 * float64(i), Y: 3})
 		mo.Members = append(mo.Members, frame.Member{Name: string(rune('A'+i)) + "0-1", Start: 2 * i, End: 2*i + 1})
 	}
-	c := frame.Case{Name: "L", Kind: frame.Live}
+	c := frame.Case{Name: "L"}
 	for i := range n {
 		mo.Members = append(mo.Members, frame.Member{Name: string(rune('A'+i)) + "-" + string(rune('B'+i)), Start: 2*i + 1, End: 2*i + 3})
 		c.MemberLoads = append(c.MemberLoads, frame.MemberLoad{Member: len(mo.Members) - 1, To: 6, W: 1, WEnd: 1})

@@ -346,7 +346,7 @@ func TestWindPortalIssueNumbers(t *testing.T) {
 	})
 	t.Run("every reaction of each case against the force method", func(t *testing.T) {
 		job, _ := readPortal(t, "wind-portal-uplift.toml", withVariableLoads("as-written"))
-		each := combos.EachCase(job.Model.Cases)
+		each := combos.EachCase(job.Cases)
 		for c, want := range [][2][3]float64{{aD, dD}, pair(portalReactions(5, 0, 3)), pair(portalReactions(0, -5, 3))} {
 			job.Combinations = each[c : c+1]
 			a, err := analyse(job)

@@ -40,7 +40,7 @@ See docs/errors.md.`,
 		// released is a mechanism for that case.
 		cases := make([]frame.Case, len(mo.Cases))
 		for i, c := range mo.Cases {
-			cases[i] = frame.Case{Name: c.Name, Kind: c.Kind, NodeLoads: c.NodeLoads}
+			cases[i] = frame.Case{Name: c.Name, NodeLoads: c.NodeLoads}
 		}
 		stiff, err := frame.Solve(&frame.Model{Nodes: mo.Nodes, Sections: mo.Sections, Members: mo.Members, Cases: cases})
 		if err != nil {
@@ -61,8 +61,8 @@ See docs/errors.md.`,
 		fmt.Fprintf(w, "bandwidth:      %d (half-bandwidth after reverse Cuthill-McKee numbering)\n", info.Bandwidth)
 		fmt.Fprintf(w, "stability:      no mechanism; estimated condition number %.2g\n", stiff.Cond())
 		fmt.Fprintf(w, "load cases:     %d\n", len(mo.Cases))
-		for _, c := range mo.Cases {
-			fmt.Fprintf(w, "  %-12s %-9s %d member loads, %d node loads\n", escape(c.Name), c.Kind, len(c.MemberLoads), len(c.NodeLoads))
+		for i, c := range mo.Cases {
+			fmt.Fprintf(w, "  %-12s %-9s %d member loads, %d node loads\n", escape(c.Name), job.Cases[i].Kind, len(c.MemberLoads), len(c.NodeLoads))
 		}
 		fmt.Fprintf(w, "actions:        %d (two alternatives of one action never act together)\n", len(job.Actions.List))
 		for _, row := range actionRows(job) {
@@ -77,7 +77,7 @@ See docs/errors.md.`,
 			if cb.Service {
 				service = "   (service)"
 			}
-			fmt.Fprintf(w, "  %-28s %s%s\n", escape(cb.Name), escape(cb.Describe(mo.Cases)), service)
+			fmt.Fprintf(w, "  %-28s %s%s\n", escape(cb.Name), escape(cb.Describe(job.Cases)), service)
 		}
 		if u := unusedText(job); u != "" {
 			fmt.Fprintf(w, "unused cases:   %s\n", u)

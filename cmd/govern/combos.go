@@ -8,7 +8,6 @@ import (
 
 	"govern/cmd/govern/modelfile"
 	"govern/combos"
-	"govern/frame"
 )
 
 type combosFlags struct {
@@ -86,8 +85,8 @@ func writeCombosTable(w io.Writer, job *modelfile.Job) error {
 			fmt.Fprintf(w, "%s: %s.\n", escape(s.Name), escape(s.Title))
 		}
 		seismic := false
-		for _, c := range mo.Cases {
-			seismic = seismic || c.Kind == frame.Seismic
+		for _, c := range job.Cases {
+			seismic = seismic || c.Kind == combos.Seismic
 		}
 		if s.UsesSDS() && seismic {
 			if job.Params.SDS == 0 {
@@ -126,9 +125,9 @@ func writeCombosTable(w io.Writer, job *modelfile.Job) error {
 			p := a.Of[i]
 			rev = a.List[p.Action].Alternatives[p.Alternative].Reversible
 		}
-		row := []string{c.Name, c.Kind.String(), map[bool]string{true: "yes", false: "no"}[rev]}
+		row := []string{c.Name, job.Cases[i].Kind.String(), map[bool]string{true: "yes", false: "no"}[rev]}
 		if psi {
-			row = append(row, psiCells(ci, c)...)
+			row = append(row, psiCells(ci, job.Cases[i].Kind)...)
 		}
 		rows = append(rows, row)
 	}
@@ -198,7 +197,7 @@ func writeCombosTable(w io.Writer, job *modelfile.Job) error {
 func unusedText(job *modelfile.Job) string {
 	var names []string
 	for _, c := range job.Unused() {
-		names = append(names, fmt.Sprintf("%s (%s)", escape(job.Model.Cases[c].Name), job.Model.Cases[c].Kind))
+		names = append(names, fmt.Sprintf("%s (%s)", escape(job.Cases[c].Name), job.Cases[c].Kind))
 	}
 	if len(names) == 0 {
 		return ""
@@ -237,14 +236,14 @@ func actionRows(job *modelfile.Job) [][]string {
 }
 
 // psiCells gives ψ0, ψ1, ψ2 of a variable case and where they come from.
-func psiCells(ci combos.CaseInfo, c frame.Case) []string {
-	if !c.Variable() {
+func psiCells(ci combos.CaseInfo, k combos.Kind) []string {
+	if k.Permanent() {
 		return []string{"", "", "", ""}
 	}
 	out := make([]string, 0, 4)
 	given, fromRow := false, false
 	for p := combos.Psi0; p <= combos.Psi2; p++ {
-		v, ok := ci.PsiFactor(p, c.Kind)
+		v, ok := ci.PsiFactor(p, k)
 		if !ok {
 			out = append(out, "")
 			continue

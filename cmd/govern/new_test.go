@@ -8,7 +8,7 @@ import (
 	"testing"
 
 	"govern/cmd/govern/modelfile"
-	"govern/frame"
+	"govern/combos"
 )
 
 func TestParseLengths(t *testing.T) {
@@ -106,11 +106,11 @@ func TestNewWritesAModelThatRuns(t *testing.T) {
 		}
 	})
 	t.Run("a dead, a patterned live, a roof live and a reversible wind case", func(t *testing.T) {
-		var kinds []frame.Kind
-		for _, c := range mo.Cases {
+		var kinds []combos.Kind
+		for _, c := range job.Cases {
 			kinds = append(kinds, c.Kind)
 		}
-		if !slices.Equal(kinds, []frame.Kind{frame.Dead, frame.Live, frame.RoofLive, frame.Wind}) {
+		if !slices.Equal(kinds, []combos.Kind{combos.Dead, combos.Live, combos.RoofLive, combos.Wind}) {
 			t.Errorf("kinds %v", kinds)
 		}
 		if !slices.Equal(job.Patterned, []int{1, 2}) || !job.CaseInfo[3].Reversible {

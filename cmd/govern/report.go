@@ -236,8 +236,13 @@ func (a *analysis) reportModel(h *htmlOut, bal []caseBalance) {
 		if c < len(a.job.CaseInfo) {
 			rev = a.job.CaseInfo[c].Reversible
 		}
+		if acts := a.job.Actions; acts != nil {
+			// a case changes sign with its alternative
+			p := acts.Of[c]
+			rev = acts.List[p.Action].Alternatives[p.Alternative].Reversible
+		}
 		b := bal[c].b.Applied
-		rows = append(rows, []string{cs.Name, cs.Kind.String(), yes(patterned[c]), yes(rev), strconv.Itoa(len(cs.MemberLoads)), strconv.Itoa(len(cs.NodeLoads)), fixed(b.Fx), fixed(b.Fy)})
+		rows = append(rows, []string{cs.Name, a.job.Cases[c].Kind.String(), yes(patterned[c]), yes(rev), strconv.Itoa(len(cs.MemberLoads)), strconv.Itoa(len(cs.NodeLoads)), fixed(b.Fx), fixed(b.Fy)})
 	}
 	tb.table("Load cases", []string{"case", "kind", "patterned", "reversible", "member loads", "node loads", "ΣFx (" + u.Force + ")", "ΣFy (" + u.Force + ")"}, rows)
 	h.raw("</section>\n")

@@ -59,7 +59,7 @@ func TestStreamedEnvelopeMatchesDirectSum(t *testing.T) {
 					for _, term := range cb.Terms {
 						v := term.Factor * comp(a.sol.At(term.Case, m, st.X), j)
 						switch {
-						case !mo.Cases[term.Case].Variable():
+						case job.Cases[term.Case].Kind.Permanent():
 							h, l = h+v, l+v
 						case v > 0:
 							h += v
@@ -140,7 +140,7 @@ func TestStreamedDeflectionMatchesDirectSum(t *testing.T) {
 				for _, term := range job.Combinations[k].Terms {
 					v := term.Factor * a.sol.Deflection(term.Case, m, st.X)
 					switch {
-					case !mo.Cases[term.Case].Variable():
+					case job.Cases[term.Case].Kind.Permanent():
 						h, l = h+v, l+v
 					case v > 0:
 						h += v

@@ -55,13 +55,13 @@ func shed() *frame.Model {
 		},
 	}
 	mo.Cases = []frame.Case{
-		{Name: "gravity", Kind: frame.Dead, MemberLoads: []frame.MemberLoad{
+		{Name: "gravity", MemberLoads: []frame.MemberLoad{
 			{Member: 3, To: 7, W: 10, WEnd: 10},
 			{Member: 4, From: 1, To: 4, W: 6, WEnd: 14},
 			{Member: 4, Point: true, At: 3.5, P: 25},
 			{Member: 5, To: 2, W: 10, WEnd: 4},
 		}, NodeLoads: []frame.NodeLoad{{Node: 6, Fy: -8}}},
-		{Name: "wind", Kind: frame.Wind, MemberLoads: []frame.MemberLoad{
+		{Name: "wind", MemberLoads: []frame.MemberLoad{
 			{Member: 0, Direction: frame.GlobalX, To: 4, W: 3, WEnd: 3},
 			{Member: 2, Direction: frame.GlobalX, From: 1, To: 3, W: 2, WEnd: 1},
 			{Member: 1, Direction: frame.GlobalX, Point: true, At: 2, P: 5},

@@ -17,7 +17,7 @@ func ExampleSolve() {
 		Nodes: []frame.Node{{Name: "a", Support: frame.Pinned}, {Name: "b", X: l, Support: frame.Roller},
 			{Name: "c", X: 2 * l, Support: frame.Roller}},
 		Members: []frame.Member{{Name: "a-b", Start: 0, End: 1}, {Name: "b-c", Start: 1, End: 2}},
-		Cases: []frame.Case{{Name: "w", Kind: frame.Dead, MemberLoads: []frame.MemberLoad{
+		Cases: []frame.Case{{Name: "w", MemberLoads: []frame.MemberLoad{
 			{Member: 0, To: l, W: w, WEnd: w}, {Member: 1, To: l, W: w, WEnd: w}}}},
 	}
 	r, err := distribution.Solve(mo, nil)

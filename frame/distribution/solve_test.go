@@ -39,7 +39,7 @@ func beam(spans ...float64) *frame.Model {
 	for i := range spans {
 		mo.Members = append(mo.Members, frame.Member{Name: fmt.Sprint("S", i+1), Start: i, End: i + 1})
 	}
-	mo.Cases = []frame.Case{{Name: "w", Kind: frame.Live}}
+	mo.Cases = []frame.Case{{Name: "w"}}
 	return mo
 }
 

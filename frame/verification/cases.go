@@ -40,7 +40,7 @@ func line(xs []float64, sup []frame.Support, loads ...frame.MemberLoad) *frame.M
 	for i := 1; i < len(xs); i++ {
 		mo.Members = append(mo.Members, frame.Member{Name: fmt.Sprintf("N%d-N%d", i-1, i), Start: i - 1, End: i})
 	}
-	mo.Cases = []frame.Case{{Name: "load", Kind: frame.Live, MemberLoads: loads}}
+	mo.Cases = []frame.Case{{Name: "load", MemberLoads: loads}}
 	return mo
 }
 
@@ -356,7 +356,7 @@ func rigidFrames() []Case {
 	k := (ib / l) / (ic / h)
 	beamUDL := frame.Case{MemberLoads: []frame.MemberLoad{uniform(1, 0, l, w)}}
 	beamP := frame.Case{MemberLoads: []frame.MemberLoad{point(1, l/2, p)}}
-	side := frame.Case{Kind: frame.Wind, NodeLoads: []frame.NodeLoad{{Node: 1, Fx: hx}}}
+	side := frame.Case{NodeLoads: []frame.NodeLoad{{Node: 1, Fx: hx}}}
 	name := fmt.Sprintf(" (L = 8, h = 4, k = %g)", k)
 	return []Case{
 		{Name: "Portal, fixed bases, uniform load on the beam" + name, Source: RigidFrame,

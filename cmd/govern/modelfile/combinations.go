@@ -9,7 +9,6 @@ import (
 	"strings"
 
 	"govern/combos"
-	"govern/frame"
 )
 
 // maxRuleFile bounds the size of a rule file named by [combinations] file.
@@ -20,7 +19,7 @@ const maxRuleFile = 1 << 20
 func (r *reader) readCaseInfo(t *table) combos.CaseInfo {
 	var ci combos.CaseInfo
 	word, _ := t.m["kind"].(string) // read and checked by readCases
-	kind, kindOK := frame.ParseKind(word)
+	kind, kindOK := combos.ParseKind(word)
 	ci.Reversible = t.boolean("reversible", false)
 	if ci.Reversible && kindOK && kind.Permanent() {
 		t.fail("reversible", problem(ErrValue, "reversible = true: dead load acts one way only; only variable cases (wind, seismic, …) reverse"))
@@ -132,7 +131,7 @@ func (r *reader) groupActions() {
 	if len(r.errs) > 0 {
 		return
 	}
-	acts, err := combos.GroupActions(job.Model.Cases, r.caseInfo)
+	acts, err := combos.GroupActions(job.Cases, r.caseInfo)
 	var ce combos.CaseErrors
 	if errors.As(err, &ce) {
 		for _, e := range ce {
@@ -285,7 +284,7 @@ func (r *reader) generate() {
 	if job.Set == nil || len(r.errs) > 0 {
 		return
 	}
-	cs, err := job.Set.Generate(job.Model.Cases, r.caseInfo, job.Params)
+	cs, err := job.Set.Generate(job.Cases, r.caseInfo, job.Params)
 	var ce combos.CaseErrors
 	switch {
 	case errors.As(err, &ce):
@@ -302,7 +301,7 @@ func (r *reader) generate() {
 		return
 	case len(cs) == 0 && len(job.Combinations) == 0:
 		var kinds []string
-		for _, c := range job.Model.Cases {
+		for _, c := range job.Cases {
 			kinds = append(kinds, c.Kind.String())
 		}
 		r.setTable.fail("", problem(ErrValue, "%s gives no combinations for load cases of kinds %s", job.Set.Name, strings.Join(kinds, ", ")))

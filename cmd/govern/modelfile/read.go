@@ -29,6 +29,7 @@ type Job struct {
 	Title        string
 	Units        Units
 	Model        *frame.Model
+	Cases        []combos.Case // per case of Model: its name and kind
 	Combinations []combos.Combination
 	Settings     envelope.Settings
 	Grid         *Grid // nil when the file has no [grid]
@@ -196,7 +197,11 @@ func (r *reader) read(raw map[string]any) *Job {
 	r.checkModel(top)
 	r.generate()
 	if len(job.Combinations) == 0 {
-		job.Combinations = combos.EachCase(job.Model.Cases)
+		job.Combinations = combos.EachCase(job.Cases)
+	}
+	job.Settings.Kinds = make([]combos.Kind, len(job.Cases))
+	for c, cc := range job.Cases {
+		job.Settings.Kinds[c] = cc.Kind
 	}
 	return job
 }
@@ -560,11 +565,12 @@ func (r *reader) readCases(ts []*table) {
 		}
 		seen[name] = true
 		c := frame.Case{Name: name}
+		cc := combos.Case{Name: name}
 		kindOK := false // what depends on the kind is checked only when it is known
 		if t.need("kind") {
 			k := t.str("kind", "")
 			if t.oneOf("kind", k, kindWords...) {
-				c.Kind, kindOK = frame.ParseKind(k)
+				cc.Kind, kindOK = combos.ParseKind(k)
 			}
 		}
 		if t.boolean("self_weight", false) && r.budget(t, "self_weight", len(mo.Members)) {
@@ -580,8 +586,8 @@ func (r *reader) readCases(ts []*table) {
 			}
 		}
 		if t.boolean("pattern", false) && kindOK {
-			if c.Kind.Permanent() {
-				t.fail("pattern", problem(ErrValue, "pattern = true: a %s case is permanent and always acts in full; only variable cases are patterned", c.Kind))
+			if cc.Kind.Permanent() {
+				t.fail("pattern", problem(ErrValue, "pattern = true: a %s case is permanent and always acts in full; only variable cases are patterned", cc.Kind))
 			} else {
 				r.job.Patterned = append(r.job.Patterned, len(mo.Cases))
 			}
@@ -593,6 +599,7 @@ func (r *reader) readCases(ts []*table) {
 		info := r.readCaseInfo(t)
 		t.done()
 		mo.Cases = append(mo.Cases, c)
+		r.job.Cases = append(r.job.Cases, cc)
 		r.caseInfo = append(r.caseInfo, info)
 	}
 }
