@@ -1,4 +1,4 @@
-package main
+package files
 
 import (
 	"bufio"
@@ -11,16 +11,18 @@ import (
 	"sort"
 	"sync"
 	"time"
+
+	"govern/envelope/report"
 )
 
-// The files of a run are committed as a set: see commitOutputs, and the
+// The files of a run are committed as a set: see Commit, and the
 // "Output files" part of docs/errors.md.
 
-// output is something the run was asked to write: a file, or standard
-// output for path "-".
-type output struct {
-	path  string
-	write func(io.Writer) error
+// Output is something the run was asked to write: a file, or standard
+// output for Path "-", and how to write it.
+type Output struct {
+	Path  string
+	Write func(io.Writer) error
 }
 
 // How an output reaches its path.
@@ -39,13 +41,13 @@ const (
 
 // target is an output with where and how it is written.
 type target struct {
-	output
+	Output
 	how  delivery
 	dest string // replace: the file renamed over, its symbolic links followed
 	temp string // replace: the temporary file, once written
 }
 
-// commitOutputs writes the outputs of a run as one set. A regular file (or
+// Commit writes the outputs of a run as one set. A regular file (or
 // a path where there is none yet) is written to a temporary file beside it,
 // synced to disk; once every one has been written whole they are renamed
 // into place together, under a lock on their folders that other runs
@@ -56,10 +58,10 @@ type target struct {
 // link to a regular file has its target replaced and stays a link.
 // Standard output ("-", or a path naming the file it is) is written last.
 // Paths that name the model, a directory, or the same file twice are
-// refused before anything is written. Every output is capped at maxOutput
-// bytes. No temporary file stays behind, even after a panic or a signal
-// (removeTemporaries).
-func commitOutputs(stdout io.Writer, model string, outs []output) error {
+// refused before anything is written. Every output is capped at
+// report.MaxOutput bytes. No temporary file stays behind, even after a panic or a signal
+// (RemoveTemporaries).
+func Commit(stdout io.Writer, model string, outs []Output) error {
 	targets, err := locate(stdout, model, outs)
 	if err != nil {
 		return err
@@ -73,7 +75,7 @@ func commitOutputs(stdout io.Writer, model string, outs []output) error {
 	if files == 0 {
 		// Nothing to keep whole: stream straight out.
 		for _, t := range targets {
-			if err := t.write(&capped{w: stdout, what: "standard output"}); err != nil {
+			if err := t.Write(&capped{w: stdout, what: "standard output"}); err != nil {
 				return err
 			}
 		}
@@ -86,7 +88,7 @@ func commitOutputs(stdout io.Writer, model string, outs []output) error {
 	var screens []func(io.Writer) error
 	for _, t := range targets {
 		if t.how == toStdout {
-			screens = append(screens, t.write)
+			screens = append(screens, t.Write)
 		}
 	}
 	var screen bytes.Buffer
@@ -115,14 +117,14 @@ func commitOutputs(stdout io.Writer, model string, outs []output) error {
 	}()
 	for i := range targets {
 		if t := &targets[i]; t.how == replace {
-			if t.temp, err = writeTemp(t.dest, t.path, t.write); err != nil {
+			if t.temp, err = writeTemp(t.dest, t.Path, t.Write); err != nil {
 				break
 			}
 		}
 	}
 	for i := 0; i < len(targets) && err == nil; i++ {
 		if t := targets[i]; t.how == through {
-			err = writeThrough(t.path, t.write)
+			err = writeThrough(t.Path, t.Write)
 		}
 	}
 	<-done
@@ -141,28 +143,28 @@ func commitOutputs(stdout io.Writer, model string, outs []output) error {
 
 // locate finds where and how each output is written, and refuses paths
 // that name the model, a directory, or one file twice.
-func locate(stdout io.Writer, model string, outs []output) ([]target, error) {
+func locate(stdout io.Writer, model string, outs []Output) ([]target, error) {
 	targets := make([]target, 0, len(outs))
 	for _, o := range outs {
-		t := target{output: o, how: toStdout}
-		if o.path != "-" && !namesStdout(stdout, o.path) {
-			if sameFile(o.path, model) {
-				return nil, fmt.Errorf("refusing to write %s: it is the model file", o.path)
+		t := target{Output: o, how: toStdout}
+		if o.Path != "-" && !namesStdout(stdout, o.Path) {
+			if sameFile(o.Path, model) {
+				return nil, fmt.Errorf("refusing to write %s: it is the model file", o.Path)
 			}
-			st, err := os.Stat(o.path)
+			st, err := os.Stat(o.Path)
 			switch {
 			case err == nil && st.IsDir():
-				return nil, fmt.Errorf("cannot write %s: it is a directory", o.path)
+				return nil, fmt.Errorf("cannot write %s: it is a directory", o.Path)
 			case err == nil && !st.Mode().IsRegular():
 				t.how = through
 			default:
 				t.how = replace
-				if t.dest, err = resolve(o.path); err != nil {
-					return nil, fmt.Errorf("cannot write %s: %v", o.path, err)
+				if t.dest, err = resolve(o.Path); err != nil {
+					return nil, fmt.Errorf("cannot write %s: %v", o.Path, err)
 				}
 				for _, u := range targets {
 					if u.how == replace && sameFile(t.dest, u.dest) {
-						return nil, fmt.Errorf("refusing to write %s twice: two outputs name the same file", o.path)
+						return nil, fmt.Errorf("refusing to write %s twice: two outputs name the same file", o.Path)
 					}
 				}
 			}
@@ -201,7 +203,7 @@ func resolve(path string) (string, error) {
 // beginning of a file the shell redirected standard output to) or by
 // replacing it.
 func namesStdout(stdout io.Writer, path string) bool {
-	f := fileOf(stdout)
+	f := Of(stdout)
 	if f == nil || path == "-" {
 		return false
 	}
@@ -213,29 +215,29 @@ func namesStdout(stdout io.Writer, path string) bool {
 	return err == nil && os.SameFile(a, b)
 }
 
-// stdoutPath returns "-" for a path that names the file standard output
+// StdoutPath returns "-" for a path that names the file standard output
 // is, and path otherwise: commands decide on it before they write, as on
 // "-" (such as leaving out the summary when a file goes to standard output).
-func stdoutPath(stdout io.Writer, path string) string {
+func StdoutPath(stdout io.Writer, path string) string {
 	if path != "" && namesStdout(stdout, path) {
 		return "-"
 	}
 	return path
 }
 
-// fileOf returns the file behind w, or nil.
-func fileOf(w io.Writer) *os.File {
+// Of returns the file behind w, or nil.
+func Of(w io.Writer) *os.File {
 	switch v := w.(type) {
 	case *os.File:
 		return v
-	case interface{ file() *os.File }:
-		return v.file()
+	case interface{ File() *os.File }:
+		return v.File()
 	}
 	return nil
 }
 
 // pending holds the temporary files and new folders of the run, so that a
-// signal can remove them (removeTemporaries).
+// signal can remove them (RemoveTemporaries).
 var pending = struct {
 	sync.Mutex
 	temps   map[string]bool
@@ -246,11 +248,11 @@ var pending = struct {
 // a signal waits for the set to be whole rather than break it.
 var committing sync.Mutex
 
-// removeTemporaries removes every temporary output file, and every folder
+// RemoveTemporaries removes every temporary output file, and every folder
 // the run made that is still empty, and blocks any further output: it is
 // for a run that is about to end on a signal. It waits for a set of files
 // being renamed into place to be complete.
-func removeTemporaries() {
+func RemoveTemporaries() {
 	committing.Lock()
 	pending.Lock()
 	for t := range pending.temps {
@@ -269,10 +271,10 @@ func discardTemp(tmp string) {
 	delete(pending.temps, tmp)
 }
 
-// makeFolder makes the folder dir if it does not exist and reports whether
+// MakeFolder makes the folder dir if it does not exist and reports whether
 // it did. A folder it made is removed again on a signal while it is empty;
-// forgetFolder ends that.
-func makeFolder(dir string) (bool, error) {
+// ForgetFolder ends that.
+func MakeFolder(dir string) (bool, error) {
 	st, err := os.Stat(dir)
 	switch {
 	case err == nil && st.IsDir():
@@ -289,7 +291,7 @@ func makeFolder(dir string) (bool, error) {
 	return true, nil
 }
 
-func forgetFolder(dir string) {
+func ForgetFolder(dir string) {
 	pending.Lock()
 	defer pending.Unlock()
 	delete(pending.folders, dir)
@@ -325,7 +327,7 @@ func writeTemp(dest, path string, write func(io.Writer) error) (string, error) {
 	if err := f.Chmod(mode); err != nil {
 		return "", fmt.Errorf("cannot write %s: %v", path, err)
 	}
-	bw := bufio.NewWriterSize(tempWriter(f), 1<<16)
+	bw := bufio.NewWriterSize(TempWriter(f), 1<<16)
 	err = write(&capped{w: bw, what: filepath.Base(path)})
 	if err == nil {
 		err = bw.Flush()
@@ -343,9 +345,9 @@ func writeTemp(dest, path string, write func(io.Writer) error) (string, error) {
 	return tmp, nil
 }
 
-// tempWriter is what a temporary output file is written through. Tests
+// TempWriter is what a temporary output file is written through. Tests
 // replace it to simulate a write that fails or is interrupted part way.
-var tempWriter = func(f *os.File) io.Writer { return f }
+var TempWriter = func(f *os.File) io.Writer { return f }
 
 // writeThrough writes to path as it is: a device or a named pipe, which is
 // opened (a pipe waits for its reader) and written, never made or replaced.
@@ -384,7 +386,7 @@ func renameAll(targets []target) error {
 		if errors.As(err, &busy) {
 			for _, t := range targets {
 				if t.how == replace && filepath.Dir(t.dest) == busy.dir {
-					return fmt.Errorf("cannot write %s: %v", t.path, err)
+					return fmt.Errorf("cannot write %s: %v", t.Path, err)
 				}
 			}
 		}
@@ -399,28 +401,28 @@ func renameAll(targets []target) error {
 			continue
 		}
 		if err := os.Rename(t.temp, t.dest); err != nil {
-			return fmt.Errorf("cannot write %s: %v", t.path, err)
+			return fmt.Errorf("cannot write %s: %v", t.Path, err)
 		}
 		pending.Lock()
 		delete(pending.temps, t.temp)
 		pending.Unlock()
 		t.temp = "" // no longer ours to remove
-		afterRename(t.path)
+		AfterRename(t.Path)
 	}
 	return nil
 }
 
-// afterRename is called after each file of a set is renamed into place.
+// AfterRename is called after each file of a set is renamed into place.
 // Tests set it to start another run at the worst moment.
-var afterRename = func(path string) {}
+var AfterRename = func(path string) {}
 
-// lockWait is how long a run waits for another to finish renaming its
-// files into the same folder, and lockPoll how often it tries again. A set
+// LockWait is how long a run waits for another to finish renaming its
+// files into the same folder, and LockPoll how often it tries again. A set
 // is renamed in milliseconds, so a run that holds the lock longer is
 // stopped or stuck.
 var (
-	lockWait = 10 * time.Second
-	lockPoll = 20 * time.Millisecond
+	LockWait = 10 * time.Second
+	LockPoll = 20 * time.Millisecond
 )
 
 // busyError is a folder whose lock another run holds.
@@ -431,7 +433,7 @@ func (e *busyError) Error() string {
 }
 
 // lockFolders takes the lock of every folder of dirs, in one order (by
-// full path), waiting at most lockWait for each, and returns what releases
+// full path), waiting at most LockWait for each, and returns what releases
 // them. On file systems without locks it goes on unlocked.
 func lockFolders(dirs []string) (func(), error) {
 	type folder struct{ dir, key string }
@@ -457,7 +459,7 @@ func lockFolders(dirs []string) (func(), error) {
 			held[i]()
 		}
 	}
-	deadline := time.Now().Add(lockWait)
+	deadline := time.Now().Add(LockWait)
 	for _, f := range fs {
 		for {
 			unlock, busy := tryLockFolder(f.dir)
@@ -469,16 +471,16 @@ func lockFolders(dirs []string) (func(), error) {
 				release()
 				return nil, &busyError{dir: f.dir}
 			}
-			time.Sleep(lockPoll)
+			time.Sleep(LockPoll)
 		}
 	}
 	return release, nil
 }
 
-// writeNew writes data to path through a temporary file and a link, so
+// WriteNew writes data to path through a temporary file and a link, so
 // that a file there (even one made a moment before) is never overwritten:
 // for the model files that new and demo --write make.
-func writeNew(path string, data []byte) error {
+func WriteNew(path string, data []byte) error {
 	tmp, err := writeTemp(path, path, func(w io.Writer) error {
 		_, err := w.Write(data)
 		return err
@@ -523,7 +525,26 @@ func sameFile(a, b string) bool {
 	return os.SameFile(fa, fb)
 }
 
-func fileExists(path string) bool {
+func Exists(path string) bool {
 	_, err := os.Lstat(path)
 	return err == nil
+}
+
+// ErrTooLarge marks an output past report.MaxOutput.
+var ErrTooLarge = errors.New("output too large")
+
+// capped is a writer that refuses to grow past report.MaxOutput: the last
+// line of defence behind report.CheckSize's estimates.
+type capped struct {
+	w    io.Writer
+	n    int
+	what string
+}
+
+func (c *capped) Write(p []byte) (int, error) {
+	if c.n+len(p) > report.MaxOutput {
+		return 0, fmt.Errorf("%w: the %s output passed %d MiB", ErrTooLarge, c.what, report.MaxOutput>>20)
+	}
+	c.n += len(p)
+	return c.w.Write(p)
 }

@@ -1,6 +1,6 @@
 //go:build !unix
 
-package main
+package files
 
 // tryLockFolder does nothing where there is no flock: concurrent runs are
 // not kept apart there (docs/errors.md).

@@ -1,4 +1,4 @@
-package main
+package modelfile
 
 import (
 	"fmt"
@@ -8,8 +8,8 @@ import (
 	"strings"
 )
 
-// frameSpec describes a regular frame for generateModel.
-type frameSpec struct {
+// Starter describes a regular frame for WriteStarter.
+type Starter struct {
 	Title   string
 	Bays    []float64 // m
 	Storeys []float64 // m, bottom to top
@@ -29,7 +29,7 @@ const (
 	floorLive      = 3.0    // kPa: offices
 	roofLive       = 1.0    // kPa
 	windPressure   = 1.0    // kPa on the facade
-	defaultSpacing = 6.0    // m
+	DefaultSpacing = 6.0    // m
 )
 
 // rect is a rectangular concrete section b × h (m).
@@ -43,7 +43,7 @@ type rect struct {
 // practice), rounded up to 50 mm and at least 400 mm, and square columns of
 // 400 mm plus 50 mm for every three storeys they carry, at most 1200 mm.
 // They are placeholders for the engineer to size.
-func starterSections(s frameSpec) (col, beam rect) {
+func starterSections(s Starter) (col, beam rect) {
 	longest := 0.0
 	for _, b := range s.Bays {
 		longest = math.Max(longest, b)
@@ -62,7 +62,7 @@ func starterSections(s frameSpec) (col, beam rect) {
 	return col, beam
 }
 
-// generateModel writes a starting model for a regular concrete frame in kN
+// WriteStarter writes a starting model for a regular concrete frame in kN
 // and m, commented for the engineer to edit: the grid, a typical column and
 // beam section (with their depths when s.Faces, so that beams get stations
 // at the column faces), a dead case (self weight and floor and roof area
@@ -71,7 +71,7 @@ func starterSections(s frameSpec) (col, beam rect) {
 // ASCE/SEI 7-16 section 2.3.1 and, when s.Service, a service combination
 // for deflections. The loads are typical values to be replaced, not
 // recommendations.
-func generateModel(w io.Writer, s frameSpec) error {
+func WriteStarter(w io.Writer, s Starter) error {
 	list := func(v []float64) string {
 		p := make([]string, len(v))
 		for i, x := range v {
@@ -81,7 +81,7 @@ func generateModel(w io.Writer, s frameSpec) error {
 	}
 	spacing := s.Spacing
 	if spacing == 0 {
-		spacing = defaultSpacing
+		spacing = DefaultSpacing
 	}
 	col, beam := starterSections(s)
 	n := len(s.Storeys)
@@ -206,20 +206,3 @@ func eng(v float64) string {
 
 // g4 formats a derived value to four significant figures.
 func g4(v float64) string { return strconv.FormatFloat(v, 'g', 4, 64) }
-
-// regularSpec is a frame of n bays alternating 7.5 m and 6.0 m and m storeys
-// of 4.2 m then 3.6 m: the shape the benchmarks grow.
-func regularSpec(bays, storeys int) frameSpec {
-	s := frameSpec{Title: fmt.Sprintf("regular frame, %d bays x %d storeys", bays, storeys), Spacing: 6}
-	for i := range bays {
-		s.Bays = append(s.Bays, []float64{7.5, 6.0}[i%2])
-	}
-	for i := range storeys {
-		h := 3.6
-		if i == 0 {
-			h = 4.2
-		}
-		s.Storeys = append(s.Storeys, h)
-	}
-	return s
-}
