@@ -397,18 +397,3 @@ func TestActionsClash(t *testing.T) {
 		})
 	}
 }
-
-func TestParseEachAction(t *testing.T) {
-	for _, tc := range []struct {
-		term, msg string
-	}{
-		{`{ kind = ["live", "wind"], factor = 1.5, together = true, each_action = true }`, "each_action cannot be used with together"},
-		{`{ or = [{ kind = "live", factor = 1.0 }], each_action = true }`, "each_action cannot be used with or"},
-		{`{ kind = "live", factor = 1.0, each_action = "yes" }`, "each_action must be true or false, not a string"},
-	} {
-		_, err := ParseSet("r.toml", []byte("[[rule]]\nid = \"R\"\nterms = [\n  "+tc.term+",\n]\n"))
-		if err == nil || !strings.Contains(err.Error(), "r.toml:4: rule \"R\", term 1: "+tc.msg) {
-			t.Errorf("%s: error %v", tc.term, err)
-		}
-	}
-}

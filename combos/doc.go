@@ -9,9 +9,12 @@
 //
 // A [Set] is a list of combination rules, such as ASCE/SEI 7-16 section
 // 2.3.1 or EN 1990 expression 6.10, that [Set.Generate] expands against the
-// kinds of a model's cases. Sets are data in a small TOML format of this
-// package's own (docs/combinations.md): [Standard] returns the built-in
-// ones, embedded from the sets folder, and [ParseSet] reads an office's own.
+// kinds of a model's cases. [Standard] returns the built-in ones; a program
+// may build its own and check it with [Set.Validate] (Generate does too).
+// This package reads no files and no TOML: the built-in sets are Go values
+// (builtin_sets.go) generated from their rule files in the sets folder
+// (the readable source) by a test of the command's model file reader,
+// which also reads an office's own rule file (docs/combinations.md).
 // The ψ factors of EN 1990 Table A1.1 are in [Categories]; a case's own
 // values, its reversibility, its category and its action keys travel in
 // [CaseInfo].

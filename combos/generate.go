@@ -81,8 +81,11 @@ func (es CaseErrors) Unwrap() []error {
 // its rule's ID and its factors, such as "2.3.1-3 1.2D+1.6S+0.5W", and its
 // Rule is the set's name and the rule's ID. Cases that lack a ψ factor a
 // rule needs, or whose action keys are wrong, are returned as
-// [CaseErrors].
+// [CaseErrors]; a set that [Set.Validate] refuses, as its [SetErrors].
 func (s *Set) Generate(cases []Case, info []CaseInfo, p Params) ([]Combination, error) {
+	if err := s.Validate(); err != nil {
+		return nil, err
+	}
 	if info == nil {
 		info = make([]CaseInfo, len(cases))
 	}

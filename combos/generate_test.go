@@ -60,59 +60,83 @@ func factorSets(t *testing.T, s *Set, cs []Case, info []CaseInfo, p Params) []st
 	return out
 }
 
-func parse(t *testing.T, src string) *Set {
-	t.Helper()
-	s, err := ParseSet("test.toml", []byte(src))
-	if err != nil {
-		t.Fatal(err)
+// rule returns a set of one rule, "R", of the terms.
+func rule(terms ...RuleTerm) *Set {
+	return &Set{Name: "test", Rules: []Rule{{ID: "R", Terms: terms}}}
+}
+
+// kinds returns a term of the kinds ks, each at factor.
+func kinds(factor float64, ks ...Kind) RuleTerm {
+	var rt RuleTerm
+	for _, k := range ks {
+		rt.Choices = append(rt.Choices, Choice{Kind: k, Factor: factor})
 	}
-	return s
+	return rt
+}
+
+// with returns rt with its flags set: "lead", "together", or a ψ.
+func with(rt RuleTerm, flags ...string) RuleTerm {
+	for _, f := range flags {
+		switch f {
+		case "lead":
+			rt.Lead = true
+		case "together":
+			rt.Together = true
+		case "psi2":
+			for i := range rt.Choices {
+				rt.Choices[i].Psi = Psi2
+			}
+		default:
+			panic("with: " + f)
+		}
+	}
+	return rt
 }
 
 func TestGenerateRules(t *testing.T) {
 	// The expansion rules of docs/combinations.md, each on a small set.
 	for _, tc := range []struct {
 		name  string
-		rules string
+		terms []RuleTerm
 		cases []string
 		want  string
 	}{
 		{"every case of a kind takes its factor",
-			`terms = [{ kind = "dead", factor = 1.4 }]`,
+			[]RuleTerm{kinds(1.4, Dead)},
 			[]string{"G1 dead", "G2 dead", "Q live"}, "1.4G1+1.4G2"},
 		{"an alternative gives one combination per kind present",
-			`terms = [{ kind = "dead", factor = 1.2 }, { kind = ["roof-live", "snow", "rain"], factor = 1.6 }]`,
+			[]RuleTerm{kinds(1.2, Dead), kinds(1.6, RoofLive, Snow, Rain)},
 			[]string{"D dead", "S snow", "Lr roof-live"}, "1.2D+1.6Lr 1.2D+1.6S"},
 		{"a term with no kind present drops out",
-			`terms = [{ kind = "dead", factor = 1.2 }, { kind = ["snow", "rain"], factor = 0.5 }]`,
+			[]RuleTerm{kinds(1.2, Dead), kinds(0.5, Snow, Rain)},
 			[]string{"D dead", "L live"}, "1.2D"},
 		{"a lead with no case drops the rule",
-			`terms = [{ kind = "dead", factor = 1.2 }, { kind = "wind", factor = 1.0, lead = true }]`,
+			[]RuleTerm{kinds(1.2, Dead), with(kinds(1.0, Wind), "lead")},
 			[]string{"D dead", "L live"}, ""},
 		{"every lead must be present",
-			`terms = [{ kind = "live", factor = 0.75, lead = true }, { kind = "snow", factor = 0.75, lead = true }]`,
+			[]RuleTerm{with(kinds(0.75, Live), "lead"), with(kinds(0.75, Snow), "lead")},
 			[]string{"L live"}, ""},
 		{"together puts every kind present in one combination, in the order of the term",
-			`terms = [{ kind = ["live", "snow", "wind"], factor = 1.5, together = true }]`,
+			[]RuleTerm{with(kinds(1.5, Live, Snow, Wind), "together")},
 			[]string{"S snow", "L live", "W wind"}, "1.5L+1.5S+1.5W"},
 		{"a kind taken earlier is not taken again",
-			`terms = [{ kind = ["live", "snow"], factor = 1.5, lead = true }, { kind = ["live", "snow"], factor = 0.5, together = true }]`,
+			[]RuleTerm{with(kinds(1.5, Live, Snow), "lead"), with(kinds(0.5, Live, Snow), "together")},
 			[]string{"L live", "S snow"}, "1.5L+0.5S 1.5S+0.5L"},
 		{"a reversible case enters with both signs",
-			`terms = [{ kind = "dead", factor = 0.9 }, { kind = "wind", factor = 1.0 }]`,
+			[]RuleTerm{kinds(0.9, Dead), kinds(1.0, Wind)},
 			[]string{"D dead", "W wind reversible"}, "0.9D+1.0W 0.9D-1.0W"},
 		{"two reversible cases give four sign sets",
-			`terms = [{ kind = ["wind", "seismic"], factor = 1.0, together = true }]`,
+			[]RuleTerm{with(kinds(1.0, Wind, Seismic), "together")},
 			[]string{"W wind reversible", "E seismic reversible"}, "1.0W+1.0E 1.0W-1.0E -1.0W+1.0E -1.0W-1.0E"},
 		{"identical factor sets are kept once",
-			`terms = [{ or = [{ kind = "dead", factor = 1.0 }, { kind = "dead", factor = 1.0 }] }]`,
+			[]RuleTerm{kinds(1.0, Dead, Dead)},
 			[]string{"D dead"}, "1.0D"},
 		{"a zero psi leaves the case out",
-			`terms = [{ kind = "dead", factor = 1.0 }, { kind = ["live", "wind"], factor = 1.0, psi = "psi2", together = true }]`,
+			[]RuleTerm{kinds(1.0, Dead), with(kinds(1.0, Live, Wind), "together", "psi2")},
 			[]string{"D dead", "Q live category=B", "W wind reversible"}, "1.0D+0.3Q"},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
-			s := parse(t, "[[rule]]\nid = \"R\"\n"+tc.rules+"\n")
+			s := rule(tc.terms...)
 			cs, info := cases(t, tc.cases...)
 			if got := strings.Join(factorSets(t, s, cs, info, Params{}), " "); got != tc.want {
 				t.Errorf("got  %q\nwant %q", got, tc.want)
@@ -161,7 +185,7 @@ func TestGenerateNeedsPsi(t *testing.T) {
 }
 
 func TestGenerateBounded(t *testing.T) {
-	s := parse(t, "[[rule]]\nid = \"R\"\nterms = [{ kind = [\"wind\", \"other\"], factor = 1.0, together = true }]\n")
+	s := rule(with(kinds(1.0, Wind, Other), "together"))
 	t.Run("sign patterns", func(t *testing.T) {
 		// Each other case is an action of its own: 2^16 sign patterns.
 		var specs []string
@@ -188,7 +212,7 @@ func TestGenerateBounded(t *testing.T) {
 	t.Run("alternatives with zero factors are tried once", func(t *testing.T) {
 		// 16 wind actions of two alternatives, all at psi2 = 0: one
 		// combination, without enumerating 2^16 of them.
-		s := parse(t, "[[rule]]\nid = \"R\"\nterms = [{ kind = \"dead\", factor = 1.0 }, { kind = \"wind\", factor = 1.0, psi = \"psi2\", together = true }]\n")
+		s := rule(kinds(1.0, Dead), with(kinds(1.0, Wind), "together", "psi2"))
 		specs := []string{"G dead"}
 		for i := range 16 {
 			a := fmt.Sprintf("action=W%d", i)

@@ -110,15 +110,4 @@ func TestServiceSets(t *testing.T) {
 			}
 		})
 	}
-	t.Run("a rule file's service key", func(t *testing.T) {
-		src := strings.Replace(officeCode, `title = "Two rules"`, "title = \"Two rules\"\nservice = true", 1)
-		s, err := ParseSet("office.toml", []byte(src))
-		if err != nil || !s.Service {
-			t.Fatalf("Service = %v, err %v", s != nil && s.Service, err)
-		}
-		_, err = ParseSet("office.toml", []byte(strings.Replace(src, "service = true", `service = "yes"`, 1)))
-		if err == nil || !strings.Contains(err.Error(), "office.toml:4: service must be true or false, not a string") {
-			t.Errorf("service = \"yes\": %v", err)
-		}
-	})
 }

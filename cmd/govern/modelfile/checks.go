@@ -15,7 +15,6 @@ const MaxMemberLoads = 5_000_000
 
 // checks holds what the model-wide checks need beyond the model itself.
 type checks struct {
-	more     int      // problems found past MaxProblems
 	nodeAt   tablesBy // the [[node]] table that defined or changed each node
 	memberAt tablesBy // the [[member]] table that defined or changed each member
 	passes   passesBy // nodes each member may pass by without being joined to them

@@ -11,9 +11,6 @@ import (
 	"govern/combos"
 )
 
-// maxRuleFile bounds the size of a rule file named by [combinations] file.
-const maxRuleFile = 1 << 20
-
 // readCaseInfo reads the keys of a [[case]] that only the combination rules
 // use: reversible, category, psi0, psi1, psi2.
 func (r *reader) readCaseInfo(t *table) combos.CaseInfo {
@@ -230,12 +227,12 @@ func (r *reader) readRuleFile(t *table, file string) *combos.Set {
 	fi, err := os.Stat(path)
 	if err == nil && !fi.Mode().IsRegular() {
 		err = errors.New("not a regular file")
-	} else if err == nil && fi.Size() > maxRuleFile {
-		err = fmt.Errorf("larger than %d bytes", maxRuleFile)
+	} else if err == nil && fi.Size() > MaxRuleFileSize {
+		err = fmt.Errorf("larger than %d bytes", MaxRuleFileSize)
 	}
 	var src []byte
 	if err == nil {
-		src, err = readLimited(path, maxRuleFile)
+		src, err = readLimited(path, MaxRuleFileSize)
 	}
 	if err != nil {
 		var pe *os.PathError
@@ -245,17 +242,14 @@ func (r *reader) readRuleFile(t *table, file string) *combos.Set {
 		t.fail("file", problem(ErrReference, "file = %q: cannot read it: %v", file, err))
 		return nil
 	}
-	s, err := combos.ParseSet(file, src)
-	var se combos.SetErrors
-	if errors.As(err, &se) {
-		for _, e := range se {
-			sentinel := ErrValue
-			if e.Syntax {
-				sentinel = ErrSyntax
-			}
-			r.errs = append(r.errs, &Error{File: e.File, Line: e.Line, Where: e.Where, Err: problem(sentinel, "%s", e.Msg)})
-		}
+	s, err := ReadSet(file, src)
+	var l ErrorList
+	if errors.As(err, &l) {
+		r.errs = append(r.errs, l...)
 		return nil
+	}
+	if err != nil {
+		panic("modelfile: ReadSet: " + err.Error())
 	}
 	return s
 }
@@ -342,14 +336,10 @@ func (j *Job) CheckUnused() error {
 	if j.AllowUnused {
 		return nil
 	}
-	var es Errors
+	var l ErrorList
 	for _, c := range j.Unused() {
-		line := j.caseLines[c]
-		es = append(es, &Error{File: j.file, Line: line, Where: fmt.Sprintf("case %q", j.Model.Cases[c].Name),
-			Err: problem(ErrUnused, "no load combination uses this case, so it would be left out of every envelope; put it in a combination, or write unused = \"allow\" in [combinations] to analyse the model without it")})
+		l.Add(Pos{File: j.file, Line: j.caseLines[c]}, fmt.Sprintf("case %q", j.Model.Cases[c].Name), ErrUnused,
+			"no load combination uses this case, so it would be left out of every envelope; put it in a combination, or write unused = \"allow\" in [combinations] to analyse the model without it")
 	}
-	if len(es) == 0 {
-		return nil
-	}
-	return es
+	return l.Err()
 }

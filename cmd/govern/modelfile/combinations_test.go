@@ -144,9 +144,33 @@ func TestReadRuleFile(t *testing.T) {
 	t.Run("a problem in the rule file names that file and line", func(t *testing.T) {
 		os.WriteFile(filepath.Join(dir, "codes", "office.toml"), []byte(strings.Replace(rules, `"live"`, `"lve"`, 1)), 0o644)
 		_, err := ReadAt(dir, "p.toml", []byte(src))
-		want := `codes/office.toml:6: rule "X1", term 2: kind "lve" is not a load kind`
+		want := `codes/office.toml:6: rule "X1", term 2: kind = "lve": must be one of "dead", "live", "roof-live", "snow", "rain", "wind", "seismic", "other" (did you mean "live"?)`
 		if err == nil || !strings.Contains(err.Error(), want) || !errors.Is(err, ErrValue) {
 			t.Errorf("error %v\nwant %s", err, want)
+		}
+	})
+	t.Run("a syntax error in the rule file, with its column", func(t *testing.T) {
+		os.WriteFile(filepath.Join(dir, "codes", "office.toml"), []byte(strings.Replace(rules, "factor = 1.25", "factor = ", 1)), 0o644)
+		_, err := ReadAt(dir, "p.toml", []byte(src))
+		want := "codes/office.toml:5:30: expected value but found '}' instead\n      { kind = \"dead\", factor =  },\n                                 ^"
+		if err == nil || err.Error() != want || !errors.Is(err, ErrSyntax) {
+			t.Errorf("error %v\nwant %s", err, want)
+		}
+	})
+	t.Run("problems in the model and in its rule file, each file in line order", func(t *testing.T) {
+		os.WriteFile(filepath.Join(dir, "codes", "office.toml"), []byte(strings.Replace(strings.Replace(rules, `"live"`, `"lve"`, 1), "id = ", "idd = ", 1)), 0o644)
+		_, err := ReadAt(dir, "p.toml", []byte(strings.Replace(src, "[combinations]", "[combinations]\nsds = -1", 1)))
+		var l ErrorList
+		if !errors.As(err, &l) || len(l) != 4 {
+			t.Fatalf("error %v, want four problems", err)
+		}
+		// The rule without its id (line 2, its header), the misspelt id
+		// (line 3), the misspelt kind (line 6); then the model's sds.
+		want := []string{"codes/office.toml:2", "codes/office.toml:3", "codes/office.toml:6", fmt.Sprintf("p.toml:%d", lineOf(t, src, "[combinations]")+1)}
+		for i, e := range l {
+			if e.Pos.String() != want[i] {
+				t.Errorf("problem %d at %s, want %s: %v", i+1, e.Pos, want[i], e)
+			}
 		}
 	})
 	t.Run("a missing rule file", func(t *testing.T) {

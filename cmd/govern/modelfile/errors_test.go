@@ -85,6 +85,8 @@ func TestReadBadInput(t *testing.T) {
 			want: `m.toml:17: member 1: start must be a string, not an integer`, sentinel: ErrType},
 		{name: "string or array expected for a selector", edit: []string{`on = "a-b"`, `on = 3`},
 			want: `m.toml:25: case "G", load 1: on must be a string or an array of strings, not an integer`, sentinel: ErrType},
+		{name: "array of tables expected, with its header", edit: []string{"[[combination]]", "[[case]]\nname = \"Q\"\nkind = \"live\"\nload = 3\n[[combination]]"},
+			want: `m.toml:31: case "Q": load must be an array of tables ([[case.load]]), not an integer`, sentinel: ErrType},
 		{name: "factor of the wrong type, at its line", edit: []string{"factors = { G = 1.4 }", "\nfactors = { G = \"1.4\" }"},
 			want: `m.toml:31: combination "1.4G": G must be a number, not a string`, sentinel: ErrType},
 
@@ -263,9 +265,9 @@ func TestReadReportsProblemsInEverySectionAtOnce(t *testing.T) {
 		"{ G = 1.4 }", "{ Q = 1.4 }",
 	)
 	_, err := Read("m.toml", []byte(src))
-	var es Errors
+	var es ErrorList
 	if !errors.As(err, &es) {
-		t.Fatalf("err = %v, want Errors", err)
+		t.Fatalf("err = %v, want an ErrorList", err)
 	}
 	want := []string{
 		`m.toml:1: unknown key "titel" (did you mean "title"?) at the top level`,
@@ -290,7 +292,7 @@ func TestReadListsAtMostMaxProblems(t *testing.T) {
 		fmt.Fprintf(&b, "[[node]]\nname = \"n%d\"\nx = %d\ny = 1\nsuport = \"free\"\n", i, i)
 	}
 	_, err := Read("m.toml", []byte(b.String()))
-	var es Errors
+	var es ErrorList
 	if !errors.As(err, &es) {
 		t.Fatalf("err = %v", err)
 	}
@@ -305,7 +307,7 @@ func TestReadListsAtMostMaxProblems(t *testing.T) {
 }
 
 func TestMemberLoadBudget(t *testing.T) {
-	r := &reader{file: "m.toml", loc: &locator{kp: positionsOf(t, base)}}
+	r := &reader{doc: &doc{file: "m.toml", loc: &locator{kp: positionsOf(t, base)}}}
 	tb := r.table(map[string]any{}, "case[0].load[0]", `case "G", load 1`)
 	r.memberLoads = MaxMemberLoads - 2
 	if !r.budget(tb, "on", 2) {
@@ -355,12 +357,12 @@ func TestEveryValidateCheckIsMadeByTheReader(t *testing.T) {
 	} {
 		t.Run(tc.check, func(t *testing.T) {
 			_, err := Read("m.toml", []byte(edits(t, tc.edit...)))
-			var es Errors
+			var es ErrorList
 			if !errors.As(err, &es) {
 				t.Fatalf("err = %v, want problems", err)
 			}
 			for _, e := range es {
-				if e.Line == 0 {
+				if e.Pos.Line == 0 {
 					t.Errorf("problem without a line: %v", e)
 				}
 			}
@@ -390,6 +392,7 @@ func TestLimitsAreDocumented(t *testing.T) {
 		fmt.Sprintf("| model file | %d MiB |", MaxFileSize>>20),
 		fmt.Sprintf("| entries of a model file: keys and table headers, an inline table counting as %d | %s |", inlineEntries, Thousands(MaxEntries)),
 		fmt.Sprintf("| nesting of arrays and inline tables, parts of a dotted key | %d |", MaxNesting),
+		fmt.Sprintf("| rule file named by `[combinations]` | %d MiB |", MaxRuleFileSize>>20),
 	} {
 		if !strings.Contains(string(doc), row) {
 			t.Errorf("docs/errors.md has no row %q", row)

@@ -11,6 +11,7 @@ import (
 
 	"github.com/BurntSushi/toml"
 
+	"govern/combos"
 	"govern/envelope"
 	"govern/envelope/analysis"
 	"govern/frame"
@@ -42,6 +43,29 @@ func seedFiles(t testing.TB) []string {
 		}
 	}
 	return seeds
+}
+
+// checkProblems fails the test unless err is a list of problems of the
+// file called name, each at a line within src and wrapping a sentinel.
+func checkProblems(t *testing.T, err error, name string, src []byte) {
+	t.Helper()
+	var es ErrorList
+	if !errors.As(err, &es) || len(es) == 0 {
+		t.Fatalf("error is not a list of problems: %v", err)
+	}
+	lines := bytes.Count(src, []byte("\n")) + 1
+	for _, e := range es {
+		if e.Pos.File != name || e.Pos.Line < 0 || e.Pos.Line > lines {
+			t.Fatalf("problem at %s of a file of %d lines: %v", e.Pos, lines, e)
+		}
+		known := false
+		for _, s := range sentinels {
+			known = known || errors.Is(e, s)
+		}
+		if !known {
+			t.Fatalf("problem wraps no sentinel: %v", e)
+		}
+	}
 }
 
 func readSeed(t testing.TB, path string) string {
@@ -95,23 +119,7 @@ func FuzzRead(f *testing.F) {
 		}
 		job, err := Read("f.toml", src)
 		if err != nil {
-			var es Errors
-			if !errors.As(err, &es) || len(es) == 0 {
-				t.Fatalf("error is not a list of problems: %v", err)
-			}
-			lines := bytes.Count(src, []byte("\n")) + 1
-			for _, e := range es {
-				if e.File != "f.toml" || e.Line < 0 || e.Line > lines {
-					t.Fatalf("problem at %s:%d of a file of %d lines: %v", e.File, e.Line, lines, e)
-				}
-				known := false
-				for _, s := range sentinels {
-					known = known || errors.Is(e, s)
-				}
-				if !known {
-					t.Fatalf("problem wraps no sentinel: %v", e)
-				}
-			}
+			checkProblems(t, err, "f.toml", src)
 			return
 		}
 		mo := job.Model
@@ -127,7 +135,7 @@ func FuzzRead(f *testing.F) {
 			}
 		}
 		if err := job.CheckUnused(); err != nil {
-			var es Errors
+			var es ErrorList
 			if !errors.As(err, &es) || len(es) == 0 || !errors.Is(err, ErrUnused) {
 				t.Fatalf("unused cases: not a list of problems: %v", err)
 			}
@@ -146,6 +154,54 @@ func FuzzRead(f *testing.F) {
 				!errors.Is(err, envelope.ErrNotFinite) && !errors.Is(err, analysis.ErrUnused) {
 				t.Fatalf("the analysis failed on an accepted model: %v", err)
 			}
+		}
+	})
+}
+
+// FuzzRuleFile feeds the rule file reader arbitrary files, seeded with the
+// built-in sets' rule files and the test's own, and hostile edits of it.
+// No input may panic or hang. A rejected file must come back as a list of
+// problems, each with the file name, a line within the file and a
+// sentinel; an accepted set must pass combos.Set.Validate, and expanding
+// it against cases of every kind must give combinations or the problems
+// of the cases, never a panic.
+func FuzzRuleFile(f *testing.F) {
+	f.Add([]byte(officeCode))
+	seeds, err := filepath.Glob(filepath.Join(setSources, "*.toml"))
+	if err != nil {
+		f.Fatal(err)
+	}
+	for _, p := range seeds {
+		f.Add([]byte(readSeed(f, p)))
+	}
+	for _, e := range [][2]string{
+		{`text = "1.3G + 1.5(Q or S)"`, "text = \"\"\"\n[[rule]]\nid = \"X\"\n\"\"\""},
+		{`kind = ["live", "snow"]`, `kind = []`},
+		{`or = [`, `or = [{ or = [] }, `},
+		{"  [[rule.terms]]\n  kind", "  [[rule.terms.or]]\n  kind"},
+		{`factor = 1.3 }`, `factor = 1e308, sds_factor = 1e308 }`},
+	} {
+		f.Add([]byte(strings.Replace(officeCode, e[0], e[1], 1)))
+	}
+	cs := []combos.Case{{Name: "D", Kind: combos.Dead}, {Name: "L", Kind: combos.Live}, {Name: "Lr", Kind: combos.RoofLive},
+		{Name: "S", Kind: combos.Snow}, {Name: "R", Kind: combos.Rain}, {Name: "W", Kind: combos.Wind},
+		{Name: "E", Kind: combos.Seismic}, {Name: "T", Kind: combos.Other}}
+	info := []combos.CaseInfo{1: {Category: "B"}, 2: {Category: "H"}, 3: {Category: "snow-nordic"},
+		4: {Psi: [3]float64{0.6, 0.5, 0.3}, PsiGiven: [3]bool{true, true, true}}, 5: {Reversible: true},
+		6: {Reversible: true}, 7: {Category: "temperature"}}
+	f.Fuzz(func(t *testing.T, src []byte) {
+		s, err := ReadSet("r.toml", src)
+		if err != nil {
+			checkProblems(t, err, "r.toml", src)
+			return
+		}
+		if err := s.Validate(); err != nil {
+			t.Fatalf("accepted a set that Validate rejects: %v", err)
+		}
+		_, err = s.Generate(cs, info, combos.Params{SDS: 1, ReducedLive: true})
+		var ce combos.CaseErrors
+		if err != nil && !errors.As(err, &ce) && !strings.Contains(err.Error(), "more than") {
+			t.Fatalf("Generate failed on an accepted set: %v", err)
 		}
 	})
 }

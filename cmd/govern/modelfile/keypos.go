@@ -10,8 +10,8 @@ import (
 )
 
 // This file finds where the keys and tables of a TOML document sit in its
-// source. It depends on nothing else in the package, so that another
-// reader of TOML files can use it as it is.
+// source, for both readers: of model files and of rule files. It depends
+// on nothing else in the package.
 //
 // The decoder (BurntSushi/toml) knows the position of every key while it
 // parses, but keeps it to itself: MetaData lists the keys it read, in file

@@ -9,8 +9,9 @@ import (
 	"github.com/BurntSushi/toml"
 )
 
-// locator gives the lines of the tables and keys of a model file, from
-// the positions of the keys its decoder read (keypos.go).
+// locator gives the lines of the tables and keys of a TOML document (a
+// model file or a rule file), from the positions of the keys its decoder
+// read (keypos.go).
 type locator struct {
 	kp *keyPositions
 }
@@ -100,7 +101,8 @@ func syntaxPosition(src string, p toml.Position) (line, off int) {
 const excerptWidth = 100
 
 // excerpt returns the column (in characters, 1-based) of byte offset off on
-// line n of src, and that line, indented, with a marker under the column.
+// line n of src, and that line, indented, with a marker under the column
+// on the next line (an [Error]'s Excerpt).
 // Control characters show as '?', and a long line is cut to the part around
 // the column. It returns 0 and "" when there is no line n.
 func excerpt(src string, n, off int) (col int, text string) {
@@ -138,5 +140,5 @@ func excerpt(src string, n, off int) (col int, text string) {
 			pad.WriteByte(' ')
 		}
 	}
-	return col, fmt.Sprintf("\n    %s\n    %s^", shown.String(), pad.String())
+	return col, fmt.Sprintf("    %s\n    %s^", shown.String(), pad.String())
 }

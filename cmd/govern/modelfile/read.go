@@ -7,8 +7,6 @@ import (
 	"slices"
 	"sort"
 
-	"github.com/BurntSushi/toml"
-
 	"govern/combos"
 	"govern/envelope/analysis"
 	"govern/frame"
@@ -29,8 +27,8 @@ type Job struct {
 }
 
 // Read parses and validates a model file. name is used in messages only.
-// All problems found are returned together as [Errors]: a syntax error
-// alone, since the rest of the file cannot be understood, else every
+// All problems found are returned together as an [ErrorList]: a syntax
+// error alone, since the rest of the file cannot be understood, else every
 // problem the reader finds (at most [MaxProblems], then a count of the
 // rest), in file order.
 func Read(name string, src []byte) (*Job, error) { return ReadAt("", name, src) }
@@ -39,38 +37,18 @@ func Read(name string, src []byte) (*Job, error) { return ReadAt("", name, src) 
 // [combinations] names is read relative to dir ("" is the current folder).
 func ReadAt(dir, name string, src []byte) (*Job, error) {
 	if len(src) > MaxFileSize {
-		return nil, Errors{{File: name, Err: problem(ErrTooLarge, "the file is %d bytes; the limit is %d (%d MiB)", len(src), MaxFileSize, MaxFileSize>>20)}}
+		var l ErrorList
+		l.Add(Pos{File: name}, "", ErrTooLarge, fmt.Sprintf("the file is %d bytes; the limit is %d (%d MiB)", len(src), MaxFileSize, MaxFileSize>>20))
+		return nil, l
 	}
-	text := string(src)
-	line, off, msg, entries := guard(text)
-	if line > 0 {
-		col, ex := excerpt(text, line, off)
-		return nil, Errors{{File: name, Line: line, Column: col, Err: problem(ErrSyntax, "%s%s", msg, ex)}}
-	}
-	if entries > MaxEntries {
-		return nil, Errors{{File: name, Err: problem(ErrTooLarge, "the file has %s entries (keys and tables, an inline table counting as %d); the limit is %s",
-			Thousands(entries), inlineEntries, Thousands(MaxEntries))}}
-	}
-	var raw map[string]any
-	md, err := toml.Decode(text, &raw)
+	d, raw, err := decode(name, src)
 	if err != nil {
-		var pe toml.ParseError
-		if errors.As(err, &pe) {
-			line, off := syntaxPosition(text, pe.Position)
-			col, ex := excerpt(text, line, off)
-			return nil, Errors{{File: name, Line: line, Column: col,
-				Err: problem(ErrSyntax, "%s%s", pe.Message, ex)}}
-		}
-		return nil, Errors{{File: name, Err: problem(ErrSyntax, "%v", err)}}
+		return nil, err
 	}
-	r := &reader{file: name, dir: dir, loc: newLocator(text, md.Keys())}
+	r := &reader{doc: d, dir: dir}
 	job := r.read(raw)
-	if len(r.errs) > 0 {
-		sort.SliceStable(r.errs, func(i, j int) bool { return r.errs[i].Line < r.errs[j].Line })
-		if r.more > 0 {
-			r.errs = append(r.errs, &Error{File: name, Err: problem(ErrTooMany, "%d more problems not listed; correct these first", r.more)})
-		}
-		return nil, r.errs
+	if err := r.finish(); err != nil {
+		return nil, err
 	}
 	// The reader has made every check Validate makes, with the line at
 	// fault; this is a safeguard.
@@ -78,21 +56,21 @@ func ReadAt(dir, name string, src []byte) (*Job, error) {
 		var ve frame.ValidationErrors
 		if errors.As(err, &ve) {
 			for _, e := range ve {
-				r.errs = append(r.errs, &Error{File: name, Err: problem(ErrValue, "%v", e)})
+				r.errs.Add(Pos{File: name}, "", ErrValue, e.Error())
 			}
 			return nil, r.errs
 		}
-		return nil, Errors{{File: name, Err: problem(ErrValue, "%v", err)}}
+		var l ErrorList
+		l.Add(Pos{File: name}, "", ErrValue, err.Error())
+		return nil, l
 	}
 	r.lineUnused(job)
 	return job, nil
 }
 
 type reader struct {
-	file string
+	*doc        // the model file: its positions and problems
 	dir  string // folder of the model, for rule files
-	loc  *locator
-	errs Errors
 
 	job      *Job
 	sections map[string]int
@@ -107,17 +85,6 @@ type reader struct {
 	caseTables []*table // per case, its table, for messages (combinations.go)
 
 	checks // model-wide checks and limits (checks.go)
-}
-
-// MaxProblems is the most problems [Read] lists; the rest are counted.
-const MaxProblems = 100
-
-func (r *reader) fail(line int, where string, err error) {
-	if len(r.errs) >= MaxProblems {
-		r.more++
-		return
-	}
-	r.errs = append(r.errs, &Error{File: r.file, Line: line, Where: where, Err: err})
 }
 
 func (r *reader) read(raw map[string]any) *Job {

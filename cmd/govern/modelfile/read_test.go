@@ -279,13 +279,13 @@ func TestReadReportsEveryProblem(t *testing.T) {
 	src = strings.Replace(src, `at = 1`, `at = 9`, 1)
 	src = strings.Replace(src, `[[case]]`, "[[case]]\ncolour = 1", 1)
 	_, err := Read("m.toml", []byte(src))
-	var es Errors
+	var es ErrorList
 	if !errors.As(err, &es) || len(es) != 3 {
 		t.Fatalf("err = %v, want 3 problems", err)
 	}
 	for i, line := range []int{3, 21, 28} {
-		if es[i].Line != line {
-			t.Errorf("problem %d at line %d, want %d: %v", i+1, es[i].Line, line, es[i])
+		if es[i].Pos.Line != line {
+			t.Errorf("problem %d at line %d, want %d: %v", i+1, es[i].Pos.Line, line, es[i])
 		}
 	}
 }

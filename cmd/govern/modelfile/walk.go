@@ -8,33 +8,37 @@ import (
 	"strings"
 )
 
-// table is one TOML table being read, with what is needed to report
-// problems in it.
+// table is one TOML table being read, of a model file or a rule file, with
+// what is needed to report problems in it. Its methods read a key's value
+// as a type, report a value of another type, and mark the key as known;
+// done reports the keys no method read, with the nearest known key.
 type table struct {
-	r     *reader
+	d     *doc
 	m     map[string]any
 	pos   place    // where it is in the file
 	where string   // how messages name it, such as `case "L", load 1`
 	used  []string // the keys read; few, so a slice is smaller than a map
 }
 
-// table returns the table m at block, a block path such as
-// "case[1].load[0]" ("" for the top level).
-func (r *reader) table(m map[string]any, block, where string) *table {
-	return &table{r: r, m: m, pos: *blockPlace(block), where: where}
-}
-
 // fail records a problem at key (or at the table when key is empty).
 func (t *table) fail(key string, err error) {
-	if len(t.r.errs) >= MaxProblems {
-		t.r.more++ // not listed, so its line is not needed
+	d := t.d
+	if d.failed != nil {
+		d.failed[t] = append(d.failed[t], key)
+	}
+	if len(d.errs) >= MaxProblems {
+		d.more++ // not listed, so its line is not needed
 		return
 	}
-	t.r.fail(t.r.loc.at(&t.pos, key), t.where, err)
+	d.fail(d.loc.at(&t.pos, key), t.where, err)
 }
 
+// failedAt reports whether the table has reported a problem at key; only
+// for a document that records them (doc.failed).
+func (t *table) failedAt(key string) bool { return slices.Contains(t.d.failed[t], key) }
+
 // line returns the line of key in the table, else of the table.
-func (t *table) line(key string) int { return t.r.loc.at(&t.pos, key) }
+func (t *table) line(key string) int { return t.d.loc.at(&t.pos, key) }
 
 func (t *table) get(key string) (any, bool) {
 	t.use(key)
@@ -52,9 +56,17 @@ func (t *table) use(key string) {
 	}
 }
 
+// known marks keys as read, present or not: the keys of the table's
+// format, which done suggests in place of an unknown one.
+func (t *table) known(keys ...string) {
+	for _, k := range keys {
+		t.use(k)
+	}
+}
+
 // inline returns the inline table m, the value of key, to be read on its own.
 func (t *table) inline(key string, m map[string]any) *table {
-	return &table{r: t.r, m: m, pos: t.pos.subPlace(key), where: t.where}
+	return &table{d: t.d, m: m, pos: t.pos.subPlace(key), where: t.where}
 }
 
 // has reports whether key is present.
@@ -235,7 +247,7 @@ func (t *table) sub(key, where string) *table {
 		t.wrongType(key, "a table", v)
 		return nil
 	}
-	return &table{r: t.r, m: m, pos: t.pos.subPlace(key), where: where}
+	return &table{d: t.d, m: m, pos: t.pos.subPlace(key), where: where}
 }
 
 // array reads an array of tables; where names element i (0-based).
@@ -252,18 +264,18 @@ func (t *table) array(key string, where func(i int, m map[string]any) string) []
 		for _, e := range x {
 			m, ok := e.(map[string]any)
 			if !ok {
-				t.fail(key, problem(ErrType, "%s must be an array of tables ([[%s]]), not %s", key, key, typeName(v)))
+				t.fail(key, problem(ErrType, "%s must be an array of tables ([[%s]]), not %s", key, t.header(key), typeName(v)))
 				return nil
 			}
 			ms = append(ms, m)
 		}
 	default:
-		t.fail(key, problem(ErrType, "%s must be an array of tables ([[%s]]), not %s", key, key, typeName(v)))
+		t.fail(key, problem(ErrType, "%s must be an array of tables ([[%s]]), not %s", key, t.header(key), typeName(v)))
 		return nil
 	}
 	out := make([]*table, len(ms))
 	for i, m := range ms {
-		out[i] = &table{r: t.r, m: m, pos: t.pos.elemPlace(key, i), where: where(i, m)}
+		out[i] = &table{d: t.d, m: m, pos: t.pos.elemPlace(key, i), where: where(i, m)}
 	}
 	// From now on each element is held by its table alone, so that
 	// release can let it go.
@@ -274,6 +286,17 @@ func (t *table) array(key string, where func(i int, m map[string]any) string) []
 		clear(x)
 	}
 	return out
+}
+
+// header returns the name the header of table key in t is written with,
+// such as "case.load".
+func (t *table) header(key string) string {
+	parts := []string{key}
+	for p := &t.pos; !p.isRoot(); p = p.up {
+		parts = append(parts, p.key)
+	}
+	slices.Reverse(parts)
+	return strings.Join(parts, ".")
 }
 
 // release lets the table's values go once they are read: a large model's
