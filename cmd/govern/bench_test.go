@@ -29,7 +29,7 @@ func BenchmarkRun(b *testing.B) {
 			name += "-starter"
 		}
 		var src bytes.Buffer
-		if err := generateModel(&src, spec); err != nil {
+		if err := modelfile.WriteStarter(&src, spec); err != nil {
 			b.Fatal(err)
 		}
 		b.Run(name, func(b *testing.B) {
@@ -40,14 +40,31 @@ func BenchmarkRun(b *testing.B) {
 				if err != nil {
 					b.Fatal(err)
 				}
-				a, err := analyse(job)
+				a, err := analyseJob(job)
 				if err != nil {
 					b.Fatal(err)
 				}
-				if err := a.report(io.Discard, "", &runFlags{json: out}); err != nil {
+				if err := writeResults(io.Discard, "", &runFlags{json: out}, a); err != nil {
 					b.Fatal(err)
 				}
 			}
 		})
 	}
+}
+
+// regularSpec is a frame of n bays alternating 7.5 m and 6.0 m and m storeys
+// of 4.2 m then 3.6 m: the shape the benchmarks grow.
+func regularSpec(bays, storeys int) modelfile.Starter {
+	s := modelfile.Starter{Title: fmt.Sprintf("regular frame, %d bays x %d storeys", bays, storeys), Spacing: 6}
+	for i := range bays {
+		s.Bays = append(s.Bays, []float64{7.5, 6.0}[i%2])
+	}
+	for i := range storeys {
+		h := 3.6
+		if i == 0 {
+			h = 4.2
+		}
+		s.Storeys = append(s.Storeys, h)
+	}
+	return s
 }

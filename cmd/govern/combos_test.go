@@ -8,6 +8,8 @@ import (
 	"path/filepath"
 	"strings"
 	"testing"
+
+	"govern/envelope/report"
 )
 
 func TestCombosTable(t *testing.T) {
@@ -23,7 +25,7 @@ func TestCombosTable(t *testing.T) {
 		"asce7-16-strength: ASCE/SEI 7-16 strength design",
 		"2.3.1-3 1.2D+1.6Lr+0.5W", "2.3.1-3 1.2D+1.6Lr-0.5W", "2.3.1-4 1.2D-1.0W+1.0L+0.5Lr",
 		"asce7-16-strength 2.3.1-5",
-		caution,
+		report.Caution,
 	} {
 		if !strings.Contains(out, want) {
 			t.Errorf("output lacks %q:\n%s", want, out)
@@ -55,7 +57,7 @@ func TestCombosCSV(t *testing.T) {
 	}
 	t.Run("to standard output alone", func(t *testing.T) {
 		_, out, _ := exec("combos", "--csv", "-", model)
-		if !strings.HasPrefix(out, "combination,rule,D,L,Lr,W\n") || strings.Contains(out, caution) {
+		if !strings.HasPrefix(out, "combination,rule,D,L,Lr,W\n") || strings.Contains(out, report.Caution) {
 			t.Errorf("output:\n%s", out)
 		}
 	})

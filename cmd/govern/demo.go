@@ -5,7 +5,9 @@ import (
 	"flag"
 	"fmt"
 
+	"govern/cmd/govern/internal/files"
 	"govern/cmd/govern/modelfile"
+	"govern/envelope/report"
 )
 
 // demoModel is a fictional five-storey, three-bay office frame.
@@ -30,42 +32,33 @@ and reports as 'govern run' does.
 
 With --write FILE it writes that model out instead, as a starting point to
 edit; an existing file is not overwritten.`,
-	flags: func(fs *flag.FlagSet) any {
+	setup: func(fs *flag.FlagSet) func(*environ, []string) error {
 		f := &demoFlags{}
-		addRunFlags(fs, &f.runFlags)
+		f.runFlags.add(fs)
 		fs.StringVar(&f.write, "write", "", "write the demonstration model to `FILE` instead of analysing it")
-		return f
+		return func(env *environ, args []string) error { return demo(env, f, args) }
 	},
-	run: func(env *environ, opts any, args []string) error {
-		f := opts.(*demoFlags)
-		if len(args) != 0 {
-			return usagef("demo takes no arguments")
+}
+
+// demo is govern demo.
+func demo(env *environ, f *demoFlags, args []string) error {
+	if len(args) != 0 {
+		return usagef("demo takes no arguments")
+	}
+	if f.write != "" {
+		if files.Exists(f.write) {
+			return fmt.Errorf("%s exists; not overwriting it", f.write)
 		}
-		if f.write != "" {
-			if fileExists(f.write) {
-				return fmt.Errorf("%s exists; not overwriting it", f.write)
-			}
-			if err := writeNew(f.write, demoModel); err != nil {
-				return err
-			}
-			fmt.Fprintf(env.stdout, "wrote %s\n", escape(f.write))
-			return nil
-		}
-		f.toStdout(env.stdout)
-		job, err := modelfile.Read("demo.toml", demoModel)
-		if err != nil {
+		if err := files.WriteNew(f.write, demoModel); err != nil {
 			return err
 		}
-		if err := checkSize(job, &f.runFlags); err != nil {
-			return fmt.Errorf("demo.toml: %w", err)
-		}
-		p := newProgress(env.stderr, env.name, f.quiet)
-		a, err := analyseWith(job, job.Patterns, p, f.options())
-		p.end()
-		if err != nil {
-			return fmt.Errorf("demo.toml: %w", err)
-		}
-		env.warn("demo.toml", a.sol.Warnings())
-		return a.report(env.stdout, "", &f.runFlags)
-	},
+		fmt.Fprintf(env.stdout, "wrote %s\n", report.Escape(f.write))
+		return nil
+	}
+	f.toStdout(env.stdout)
+	job, err := modelfile.Read("demo.toml", demoModel)
+	if err != nil {
+		return err
+	}
+	return analyse(env, job, "demo.toml", "", &f.runFlags)
 }

@@ -11,6 +11,7 @@ import (
 	"strings"
 	"testing"
 
+	"govern/cmd/govern/internal/files"
 	"govern/cmd/govern/modelfile"
 	"govern/frame"
 )
@@ -114,14 +115,14 @@ func TestExitStatusAndPrefix(t *testing.T) {
 func TestPanicIsReportedNotRaised(t *testing.T) {
 	model := writeDemo(t)
 	out := filepath.Join(filepath.Dir(model), "env.json")
-	defer func(f func(*os.File) io.Writer) { tempWriter = f }(tempWriter)
-	tempWriter = func(f *os.File) io.Writer { return &faulty{w: f, after: 0, panics: true} }
+	defer func(f func(*os.File) io.Writer) { files.TempWriter = f }(files.TempWriter)
+	files.TempWriter = func(f *os.File) io.Writer { return &faulty{w: f, after: 0, panics: true} }
 	code, stdout, stderr := exec("run", "--json", out, model)
 	want := "govern run: internal error: interrupted (simulated)\ngovern run: please report this with the model that caused it\n"
 	if code != 1 || stderr != want || stdout != "" {
 		t.Errorf("exit %d, stdout %q, stderr %q; want 1 and %q", code, stdout, stderr, want)
 	}
-	if fileExists(out) {
+	if files.Exists(out) {
 		t.Error("an output was left behind")
 	}
 	assertNoTemporaries(t, filepath.Dir(out))
@@ -192,11 +193,11 @@ func TestInterruptedWriteLeavesThePreviousFile(t *testing.T) {
 		}},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
-			defer func(f func(*os.File) io.Writer) { tempWriter = f }(tempWriter)
-			files := 0
-			tempWriter = func(f *os.File) io.Writer {
-				files++
-				return tc.temp(files, f)
+			defer func(f func(*os.File) io.Writer) { files.TempWriter = f }(files.TempWriter)
+			n := 0
+			files.TempWriter = func(f *os.File) io.Writer {
+				n++
+				return tc.temp(n, f)
 			}
 			if code, _, _ := exec("run", "--json", js, "--csv", cs, other); code != 1 {
 				t.Errorf("exit %d, want 1", code)
@@ -283,66 +284,5 @@ func TestCheckReportsStability(t *testing.T) {
 	want := fmt.Sprintf("stability:      no mechanism; estimated condition number %.2g\n", sol.Cond())
 	if !strings.Contains(out, want) {
 		t.Errorf("check output lacks %q:\n%s", want, out)
-	}
-}
-
-func TestOutputSizeLimits(t *testing.T) {
-	longName := strings.Repeat("1.2D+1.6L+", 11) // 110 characters
-	// 20 bays × 24 storeys: 21 × 24 columns and 20 × 24 beams, 984 members;
-	// at 1001 stations, 984,984 station values, under maxPoints.
-	src := fmt.Sprintf(`[analysis]
-stations = 1001
-[grid]
-bays = [%s6.0]
-storeys = [%s3.5]
-column = "S"
-beam = "S"
-[[section]]
-name = "S"
-E = 200e6
-A = 7.8e-3
-I = 1.2e-4
-[[case]]
-name = "D"
-kind = "dead"
-[[case]]
-name = "L"
-kind = "live"
-[[combination]]
-name = "%s"
-factors = { D = 1.2, L = 1.6 }
-`, strings.Repeat("6.0, ", 19), strings.Repeat("3.5, ", 23), longName)
-	job, err := modelfile.Read("big.toml", []byte(src))
-	if err != nil {
-		t.Fatal(err)
-	}
-	if err := checkSize(job, &runFlags{csv: "env.csv"}); err != nil {
-		t.Errorf("CSV refused: %v", err)
-	}
-	// JSON: 984,984 × (450 + 6 × 112) bytes, the name being 112 characters
-	// as a JSON string, plus 984 × (120 + 3 × 9) for the members.
-	want := fmt.Sprintf("the JSON output would be about %d MiB; the limit is 1024 MiB: use fewer stations", (984984*(450+6*112)+984*(120+3*9)+1<<20-1)>>20)
-	if err := checkSize(job, &runFlags{json: "env.json"}); err == nil || err.Error() != want {
-		t.Errorf("err = %v, want %s", err, want)
-	}
-	job.Settings.Stations = 1017 // 1,000,728 station values
-	want = "the envelopes would hold 1,000,728 station values (984 members × 1,017 stations); the limit is 1,000,000: use fewer stations"
-	if err := checkSize(job, &runFlags{}); err == nil || err.Error() != want {
-		t.Errorf("err = %v, want %s", err, want)
-	}
-}
-
-func TestCappedWriterStopsAtTheLimit(t *testing.T) {
-	var b bytes.Buffer
-	c := &capped{w: &b, n: maxOutput - 3, what: "JSON"}
-	if _, err := c.Write([]byte("abc")); err != nil {
-		t.Fatalf("write up to the limit: %v", err)
-	}
-	_, err := c.Write([]byte("d"))
-	if !errors.Is(err, errTooLarge) || err.Error() != "output too large: the JSON output passed 1024 MiB" {
-		t.Errorf("err = %v", err)
-	}
-	if b.String() != "abc" {
-		t.Errorf("wrote %q", b.String())
 	}
 }

@@ -3,17 +3,20 @@ package main
 import (
 	"strings"
 	"testing"
+
+	"govern/envelope/analysis"
+	"govern/envelope/report"
 )
 
 // Column lines are named as the model names them: by the grid's own
-// letters, and without a grid as the "line A" selectors count them.
+// letters, and without a grid as the "line A" selectors count them. The
+// reader passes the names on (analysis.Job.Lines), the tables and the
+// report's sections show them.
 func TestColumnLinesKeepTheirNames(t *testing.T) {
-	titles := func(a *analysis) []string {
+	titles := func(a *analysis.Result) []string {
 		var out []string
-		for _, g := range a.groups() {
-			if g.kind == lineGroup {
-				out = append(out, g.title+" "+g.id)
-			}
+		for _, tb := range summary(t, a).find("Columns ") {
+			out = append(out, tb.title)
 		}
 		return out
 	}
@@ -31,17 +34,26 @@ beam = "B"
 		a := analyseModel(t, src)
 		got := titles(a)
 		want := []string{
-			"Columns at x = -3.00 m, on no grid line line-x1",
-			"Columns on line A (x = 0.00 m) line-A",
-			"Columns on line B (x = 6.00 m) line-B",
-			"Columns on line C (x = 12.00 m) line-C",
+			"Columns at x = -3.00 m, on no grid line",
+			"Columns on line A (x = 0.00 m)",
+			"Columns on line B (x = 6.00 m)",
+			"Columns on line C (x = 12.00 m)",
 		}
 		if strings.Join(got, "\n") != strings.Join(want, "\n") {
 			t.Errorf("column lines:\n%s\nwant\n%s", strings.Join(got, "\n"), strings.Join(want, "\n"))
 		}
-		for _, g := range a.groups() {
-			if g.id == "line-B" && (len(g.members) != 1 || a.job.Model.Members[g.members[0]].Name != "B0-B1") {
-				t.Errorf("line B holds %v", g.members)
+		for _, g := range analysis.Groups(a.Job) {
+			if g.Line == "B" && (len(g.Members) != 1 || a.Job.Model.Members[g.Members[0]].Name != "B0-B1") {
+				t.Errorf("line B holds %v", g.Members)
+			}
+		}
+		var b strings.Builder
+		if err := report.New(a).WriteHTML(&b); err != nil {
+			t.Fatal(err)
+		}
+		for _, id := range []string{"line-x1", "line-A", "line-B", "line-C"} {
+			if !strings.Contains(b.String(), `<section id="`+id+`">`) {
+				t.Errorf("the report has no section %s", id)
 			}
 		}
 	})
@@ -53,11 +65,11 @@ beam = "B"
 			tmember("P0", "P1", "S") + tmember("Q0", "Q1", "S") + tmember("T", "P1", "S") + tmember("P1", "Q1", "S") +
 			"[[case]]\nname = \"W\"\nkind = \"wind\"\n  [[case.load]]\n  type = \"udl\"\n  on = \"line B\"\n  direction = \"x\"\n  w = 1.0\n"
 		a := analyseModel(t, src)
-		want := "Columns on line B (x = 0.00 m) line-B\nColumns on line C (x = 6.00 m) line-C"
+		want := "Columns on line B (x = 0.00 m)\nColumns on line C (x = 6.00 m)"
 		if got := strings.Join(titles(a), "\n"); got != want {
 			t.Errorf("column lines:\n%s\nwant\n%s", got, want)
 		}
-		if ld := a.job.Model.Cases[0].MemberLoads; len(ld) != 1 || a.job.Model.Members[ld[0].Member].Name != "P0-P1" {
+		if ld := a.Job.Model.Cases[0].MemberLoads; len(ld) != 1 || a.Job.Model.Members[ld[0].Member].Name != "P0-P1" {
 			t.Fatalf("the selector line B picked %v", ld)
 		}
 	})

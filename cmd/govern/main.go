@@ -1,7 +1,3 @@
-// Command govern finds the envelopes of moment, shear and axial force of a
-// plane building frame over the load combinations of a design standard.
-//
-// Run "govern help" for the commands.
 package main
 
 import (
@@ -11,14 +7,13 @@ import (
 	"io"
 	"os"
 	"os/signal"
-	"sort"
 	"strings"
 	"sync"
 	"syscall"
-)
 
-// caution is printed with every result and in the help.
-const caution = "Results are for checking by a qualified engineer. They do not replace the governing local code or licensed professional practice."
+	"govern/cmd/govern/internal/files"
+	"govern/envelope/report"
+)
 
 // command is one subcommand of govern.
 type command struct {
@@ -26,8 +21,9 @@ type command struct {
 	usage string // the arguments, after "govern NAME"
 	short string // one line for the command list
 	long  string // the help text
-	flags func(fs *flag.FlagSet) any
-	run   func(env *environ, opts any, args []string) error
+	// setup defines the command's flags on fs, into a struct of the
+	// command's own, and returns what runs the command with them.
+	setup func(fs *flag.FlagSet) func(env *environ, args []string) error
 }
 
 // environ is what a command may touch: its streams. Tests substitute them.
@@ -40,7 +36,7 @@ type environ struct {
 // prefixed with the command name.
 func (env *environ) warn(model string, ws []string) {
 	for _, w := range ws {
-		fmt.Fprintf(env.stderr, "%s: warning: %s: %s\n", env.name, escape(model), escapeLines(w))
+		fmt.Fprintf(env.stderr, "%s: warning: %s: %s\n", env.name, report.Escape(model), report.EscapeLines(w))
 	}
 }
 
@@ -74,7 +70,7 @@ func stopOnSignals() {
 	signal.Notify(sigs, os.Interrupt, syscall.SIGTERM, syscall.SIGHUP)
 	go func() {
 		sig := <-sigs
-		removeTemporaries()
+		files.RemoveTemporaries()
 		signal.Reset(sig)
 		if p, err := os.FindProcess(os.Getpid()); err == nil {
 			p.Signal(sig) // ends the process, as the signal would have
@@ -117,8 +113,8 @@ func (c *checkedWriter) failed() error {
 }
 
 // file returns the file written to, or nil: progress asks whether it is a
-// terminal, outputs whether a path names it (fileOf).
-func (c *checkedWriter) file() *os.File { return fileOf(c.w) }
+// terminal, outputs whether a path names it (files.Of).
+func (c *checkedWriter) File() *os.File { return files.Of(c.w) }
 
 // govern runs the command line args and returns the exit status: 0 success,
 // 1 bad model, analysis failure or output that could not be written, 2
@@ -142,7 +138,7 @@ func govern(args []string, stdout, stderr io.Writer) (status int) {
 }
 
 func stdoutFailed(stderr io.Writer, who string, err error) {
-	fmt.Fprintf(stderr, "%s: cannot write to standard output: %s\n", who, escape(err.Error()))
+	fmt.Fprintf(stderr, "%s: cannot write to standard output: %s\n", who, report.Escape(err.Error()))
 }
 
 // runChecked is govern with checked streams.
@@ -150,7 +146,7 @@ func runChecked(args []string, stdout, stderr *checkedWriter) (status int) {
 	who := "govern" // the prefix of messages: the command, once known
 	defer func() {
 		if p := recover(); p != nil {
-			fmt.Fprintf(stderr, "%s: internal error: %s\n%s: please report this with the model that caused it\n", who, escapeLines(fmt.Sprint(p)), who)
+			fmt.Fprintf(stderr, "%s: internal error: %s\n%s: please report this with the model that caused it\n", who, report.EscapeLines(fmt.Sprint(p)), who)
 			status = 1
 		}
 	}()
@@ -180,27 +176,27 @@ func runChecked(args []string, stdout, stderr *checkedWriter) (status int) {
 	who = env.name
 	fs := flag.NewFlagSet(env.name, flag.ContinueOnError)
 	fs.SetOutput(io.Discard)
-	opts := c.flags(fs)
+	run := c.setup(fs)
 	pos, err := parseInterspersed(fs, args[1:])
 	if errors.Is(err, flag.ErrHelp) {
 		printHelp(stdout, c)
 		return 0
 	}
 	if err == nil {
-		err = c.run(env, opts, pos)
+		err = run(env, pos)
 	}
 	if err == nil {
 		return 0
 	}
 	var ue *usageError
 	if errors.As(err, &ue) || isFlagError(err) {
-		fmt.Fprintf(stderr, "%s: %s\nusage: govern %s %s\nRun 'govern help %s' for details.\n", env.name, escape(err.Error()), c.name, c.usage, c.name)
+		fmt.Fprintf(stderr, "%s: %s\nusage: govern %s %s\nRun 'govern help %s' for details.\n", env.name, report.Escape(err.Error()), c.name, c.usage, c.name)
 		return 2
 	}
 	// A failed write to standard output is said once, in its own words.
 	werr := stdout.failed()
 	if werr == nil || !errors.Is(err, werr) {
-		for _, line := range strings.Split(escapeLines(err.Error()), "\n") {
+		for _, line := range strings.Split(report.EscapeLines(err.Error()), "\n") {
 			fmt.Fprintf(stderr, "%s: %s\n", env.name, line)
 		}
 	}
@@ -248,28 +244,4 @@ func lookup(name string) *command {
 		}
 	}
 	return nil
-}
-
-func printUsage(w io.Writer) {
-	fmt.Fprintf(w, "govern finds the envelopes of moment, shear and axial force of plane building\nframes over the load combinations of a design standard.\n\nUsage:\n\n\tgovern <command> [arguments]\n\nThe commands are:\n\n")
-	cs := append([]*command(nil), commands...)
-	sort.Slice(cs, func(i, j int) bool { return cs[i].name < cs[j].name })
-	for _, c := range cs {
-		fmt.Fprintf(w, "\t%-8s %s\n", c.name, c.short)
-	}
-	fmt.Fprintf(w, "\nRun 'govern help <command>' for more about a command.\n\n%s\n", caution)
-}
-
-func printHelp(w io.Writer, c *command) {
-	fmt.Fprintf(w, "usage: govern %s %s\n\n%s\n", c.name, c.usage, strings.TrimSpace(c.long))
-	fs := flag.NewFlagSet(c.name, flag.ContinueOnError)
-	c.flags(fs)
-	has := false
-	fs.VisitAll(func(*flag.Flag) { has = true })
-	if has {
-		fmt.Fprintf(w, "\nFlags:\n")
-		fs.SetOutput(w)
-		fs.PrintDefaults()
-	}
-	fmt.Fprintf(w, "\n%s\n", caution)
 }

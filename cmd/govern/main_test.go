@@ -14,6 +14,9 @@ import (
 	"syscall"
 	"testing"
 	"time"
+
+	"govern/cmd/govern/internal/files"
+	"govern/envelope/report"
 )
 
 // asMain, in the environment, makes the test binary run govern's main
@@ -28,7 +31,7 @@ func TestMain(m *testing.M) {
 	case "":
 		os.Exit(m.Run())
 	case "stall":
-		tempWriter = func(f *os.File) io.Writer { return &stall{w: f} }
+		files.TempWriter = func(f *os.File) io.Writer { return &stall{w: f} }
 	}
 	main()
 }
@@ -108,7 +111,7 @@ func TestSignalsRemoveTemporaryFiles(t *testing.T) {
 				}
 				assertNoTemporaries(t, dir)
 				if out == "--out" {
-					if fileExists(folder) {
+					if files.Exists(folder) {
 						left, _ := filepath.Glob(filepath.Join(folder, "*"))
 						t.Errorf("the folder --out made is left behind, holding %v", left)
 					}
@@ -116,7 +119,7 @@ func TestSignalsRemoveTemporaryFiles(t *testing.T) {
 					if b, _ := os.ReadFile(js); string(b) != "previous" {
 						t.Errorf("the JSON file changed to %d bytes", len(b))
 					}
-					if fileExists(cs) {
+					if files.Exists(cs) {
 						t.Error("a CSV file was written")
 					}
 				}
@@ -239,7 +242,7 @@ func TestExitStatus(t *testing.T) {
 func TestHelpAndReportCarryTheCaution(t *testing.T) {
 	for _, args := range [][]string{{"help"}, {"help", "run"}, {"demo"}} {
 		_, out, _ := exec(args...)
-		if !strings.Contains(out, caution) {
+		if !strings.Contains(out, report.Caution) {
 			t.Errorf("govern %s: output lacks the caution", strings.Join(args, " "))
 		}
 	}

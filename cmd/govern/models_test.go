@@ -1,11 +1,16 @@
 package main
 
 import (
+	"context"
 	"fmt"
 	"os"
 	"path/filepath"
 	"strings"
 	"testing"
+
+	"govern/cmd/govern/modelfile"
+	"govern/envelope/analysis"
+	"govern/envelope/report"
 )
 
 // Small models written as model files, for the tests of what the tables,
@@ -62,46 +67,44 @@ func writeModel(t *testing.T, src string) string {
 	return p
 }
 
+// analyseJob analyses job as govern run does.
+func analyseJob(job *modelfile.Job) (*analysis.Result, error) {
+	return analysis.Run(context.Background(), &job.Job, analysis.Options{})
+}
+
 // analyseModel reads and analyses the model src.
-func analyseModel(t *testing.T, src string) *analysis {
+func analyseModel(t *testing.T, src string) *analysis.Result {
 	t.Helper()
 	job, err := loadModel(writeModel(t, src))
 	if err != nil {
 		t.Fatal(err)
 	}
-	a, err := analyse(job)
+	a, err := analyseJob(job)
 	if err != nil {
 		t.Fatal(err)
 	}
 	return a
 }
 
-// recorded is one table as the tables interface received it.
+// recorded is one table of design values as the terminal and the report
+// show it.
 type recorded struct {
 	title  string
 	header []string
 	rows   [][]string
 }
 
-// recTables records the notes and tables given to it.
+// recTables holds the tables of design values of a result.
 type recTables struct {
-	notes  []string
 	tables []recorded
 }
 
-func (r *recTables) note(text string) error { r.notes = append(r.notes, text); return nil }
-
-func (r *recTables) table(title string, header []string, rows [][]string) error {
-	r.tables = append(r.tables, recorded{title, header, rows})
-	return nil
-}
-
-// summary records the summary tables of a.
-func summary(t *testing.T, a *analysis) *recTables {
+// summary returns the tables of design values of a.
+func summary(t *testing.T, a *analysis.Result) *recTables {
 	t.Helper()
 	var r recTables
-	if err := a.summaryTables(&r); err != nil {
-		t.Fatal(err)
+	for _, tb := range report.New(a).Tables() {
+		r.tables = append(r.tables, recorded{tb.Title, tb.Header, tb.Rows})
 	}
 	return &r
 }

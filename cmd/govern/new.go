@@ -8,7 +8,9 @@ import (
 	"strconv"
 	"strings"
 
+	"govern/cmd/govern/internal/files"
 	"govern/cmd/govern/modelfile"
+	"govern/envelope/report"
 )
 
 type newFlags struct {
@@ -44,65 +46,66 @@ Lists are comma-separated lengths in m; "3.6x3" repeats 3.6 three times:
 
 writes a frame of three bays and four storeys. Without FILE, or with -,
 the model goes to standard output. An existing file is never overwritten.`,
-	flags: func(fs *flag.FlagSet) any {
+	setup: func(fs *flag.FlagSet) func(*environ, []string) error {
 		f := &newFlags{}
 		fs.StringVar(&f.bays, "bays", "", "bay widths, left to right: `LIST` of lengths in m, such as 7.2,6,7.2 or 8x4")
 		fs.StringVar(&f.storeys, "storeys", "", "storey heights, bottom to top: `LIST` of lengths in m, such as 4.5,3.6x3")
-		fs.Float64Var(&f.spacing, "spacing", defaultSpacing, "distance between parallel frames in m, for the area loads")
+		fs.Float64Var(&f.spacing, "spacing", modelfile.DefaultSpacing, "distance between parallel frames in m, for the area loads")
 		fs.StringVar(&f.title, "title", "", "the model's title (default: the numbers of bays and storeys)")
-		return f
+		return func(env *environ, args []string) error { return newModel(env, f, args) }
 	},
-	run: func(env *environ, opts any, args []string) error {
-		f := opts.(*newFlags)
-		if len(args) > 1 {
-			return usagef("need at most one output file, got %d arguments", len(args))
-		}
-		if f.bays == "" || f.storeys == "" {
-			return usagef("--bays and --storeys are both needed")
-		}
-		bays, err := parseLengths("--bays", f.bays)
-		if err != nil {
-			return err
-		}
-		storeys, err := parseLengths("--storeys", f.storeys)
-		if err != nil {
-			return err
-		}
-		if n := (2*len(bays) + 1) * len(storeys); n > maxNewMembers {
-			return usagef("%d bays and %d storeys make %d members; at most %d", len(bays), len(storeys), n, maxNewMembers)
-		}
-		if !(f.spacing > 0) || math.IsInf(f.spacing, 0) {
-			return usagef("--spacing %g: must be a length greater than zero", f.spacing)
-		}
-		s := frameSpec{Title: f.title, Bays: bays, Storeys: storeys, Spacing: f.spacing, Faces: true, Service: true}
-		if s.Title == "" {
-			s.Title = fmt.Sprintf("New frame: %d bays, %d storeys", len(bays), len(storeys))
-		}
-		var src bytes.Buffer
-		if err := generateModel(&src, s); err != nil {
-			return err
-		}
-		// What is written must read back: the reader is the judge.
-		if _, err := modelfile.Read("new model", src.Bytes()); err != nil {
-			panic("govern new: the model written does not read back: " + err.Error())
-		}
-		path := "-"
-		if len(args) == 1 {
-			path = stdoutPath(env.stdout, args[0])
-		}
-		if path == "-" {
-			_, err := env.stdout.Write(src.Bytes())
-			return err
-		}
-		if fileExists(path) {
-			return fmt.Errorf("%s exists; not overwriting it", path)
-		}
-		if err := writeNew(path, src.Bytes()); err != nil {
-			return err
-		}
-		fmt.Fprintf(env.stdout, "wrote %s: %d bays, %d storeys; every number in it is a placeholder to check and replace\n", escape(path), len(bays), len(storeys))
-		return nil
-	},
+}
+
+// newModel is govern new.
+func newModel(env *environ, f *newFlags, args []string) error {
+	if len(args) > 1 {
+		return usagef("need at most one output file, got %d arguments", len(args))
+	}
+	if f.bays == "" || f.storeys == "" {
+		return usagef("--bays and --storeys are both needed")
+	}
+	bays, err := parseLengths("--bays", f.bays)
+	if err != nil {
+		return err
+	}
+	storeys, err := parseLengths("--storeys", f.storeys)
+	if err != nil {
+		return err
+	}
+	if n := (2*len(bays) + 1) * len(storeys); n > maxNewMembers {
+		return usagef("%d bays and %d storeys make %d members; at most %d", len(bays), len(storeys), n, maxNewMembers)
+	}
+	if !(f.spacing > 0) || math.IsInf(f.spacing, 0) {
+		return usagef("--spacing %g: must be a length greater than zero", f.spacing)
+	}
+	s := modelfile.Starter{Title: f.title, Bays: bays, Storeys: storeys, Spacing: f.spacing, Faces: true, Service: true}
+	if s.Title == "" {
+		s.Title = fmt.Sprintf("New frame: %d bays, %d storeys", len(bays), len(storeys))
+	}
+	var src bytes.Buffer
+	if err := modelfile.WriteStarter(&src, s); err != nil {
+		return err
+	}
+	// What is written must read back: the reader is the judge.
+	if _, err := modelfile.Read("new model", src.Bytes()); err != nil {
+		panic("govern new: the model written does not read back: " + err.Error())
+	}
+	path := "-"
+	if len(args) == 1 {
+		path = files.StdoutPath(env.stdout, args[0])
+	}
+	if path == "-" {
+		_, err := env.stdout.Write(src.Bytes())
+		return err
+	}
+	if files.Exists(path) {
+		return fmt.Errorf("%s exists; not overwriting it", path)
+	}
+	if err := files.WriteNew(path, src.Bytes()); err != nil {
+		return err
+	}
+	fmt.Fprintf(env.stdout, "wrote %s: %d bays, %d storeys; every number in it is a placeholder to check and replace\n", report.Escape(path), len(bays), len(storeys))
+	return nil
 }
 
 // parseLengths reads a comma-separated list of lengths, where "3.6x3"

@@ -6,6 +6,8 @@ import (
 	"strconv"
 	"strings"
 	"testing"
+
+	"govern/envelope/report"
 )
 
 // fixedBeamRTL is a beam of 6 m fixed at both ends under 10 kN/m, entered
@@ -58,14 +60,16 @@ func TestBeamDrawnRightToLeft(t *testing.T) {
 
 	t.Run("report station table", func(t *testing.T) {
 		var b strings.Builder
-		h := newHTMLOut(&b)
-		a.stationTable(h, a.groups()[0])
-		if err := h.flush(); err != nil {
+		if err := report.New(a).WriteHTML(&b); err != nil {
 			t.Fatal(err)
 		}
-		root := parseXML(t, []byte("<div>"+b.String()+"</div>"))
+		root := parseXML(t, []byte(b.String()))
+		st := root.find(func(e *element) bool { return e.name == "table" && e.attr["class"] == "st" })
+		if len(st) != 1 {
+			t.Fatalf("%d station tables, want 1", len(st))
+		}
 		rows := map[string][]string{}
-		for _, tr := range root.find(func(e *element) bool { return e.name == "tr" }) {
+		for _, tr := range st[0].find(func(e *element) bool { return e.name == "tr" }) {
 			var cells []string
 			for _, td := range tr.children {
 				if td.name == "td" {
@@ -177,7 +181,7 @@ func TestRafterDrawnEitherWay(t *testing.T) {
 			tmember(start, end, "S") + tdead(tudl(start+"-"+end, 10))
 	}
 	ltr, rtl := analyseModel(t, model("A", "B")), analyseModel(t, model("B", "A"))
-	a, b := ltr.shown(0), rtl.shown(0)
+	a, b := ltr.Shown(0), rtl.Shown(0)
 	// A simply supported sloping member under a gravity load W = wL along
 	// it: M = Wa/8 at midspan, a the horizontal span (statics by hand).
 	l := math.Hypot(6, 3)
@@ -205,7 +209,7 @@ func TestReportDrawsABeamEitherWayAlike(t *testing.T) {
 	curves := func(src string) map[string]string {
 		a := analyseModel(t, src)
 		var b strings.Builder
-		if err := a.writeReport(&b, a.balances()); err != nil {
+		if err := report.New(a).WriteHTML(&b); err != nil {
 			t.Fatal(err)
 		}
 		root := parseXML(t, []byte(b.String()))

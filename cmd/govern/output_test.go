@@ -10,40 +10,6 @@ import (
 	"testing"
 )
 
-// TestCSVCell: a cell that a spreadsheet would take for a formula (it
-// begins with =, +, -, @, a tab or a carriage return and is not a number)
-// gets a leading apostrophe; numbers and other text are kept.
-func TestCSVCell(t *testing.T) {
-	for in, want := range map[string]string{
-		"=1+1":              "'=1+1",
-		`=HYPERLINK("x")`:   `'=HYPERLINK("x")`,
-		"+A1":               "'+A1",
-		"-B":                "'-B",
-		"@SUM(A1:A9)":       "'@SUM(A1:A9)",
-		"\tx":               "'\tx",
-		"\rx":               "'\rx",
-		"-":                 "'-",
-		"-Inf":              "'-Inf",
-		"+NaN":              "'+NaN",
-		"-1e":               "'-1e",
-		"--1":               "'--1",
-		"-2":                "-2",
-		"+3":                "+3",
-		"-12.5":             "-12.5",
-		"-.5":               "-.5",
-		"-1.2e-05":          "-1.2e-05",
-		"-4.7E+11":          "-4.7E+11",
-		"1.2D+1.6L":         "1.2D+1.6L",
-		"2.3.1-5 0.9D-1.0W": "2.3.1-5 0.9D-1.0W",
-		"kN·m":              "kN·m",
-		"":                  "",
-	} {
-		if got := csvCell(in); got != want {
-			t.Errorf("csvCell(%q) = %q, want %q", in, got, want)
-		}
-	}
-}
-
 // TestCSVCellsCannotBeFormulas: the envelopes and the combinations written
 // as CSV from the hostile model: names that look like formulas carry the
 // apostrophe, quoted as RFC 4180 requires where they hold a comma or a

@@ -7,6 +7,10 @@ import (
 	"sync"
 	"sync/atomic"
 	"time"
+
+	"govern/cmd/govern/internal/files"
+	"govern/envelope/analysis"
+	"govern/envelope/report"
 )
 
 // progress keeps a one-line account of a long run on standard error:
@@ -50,7 +54,7 @@ func startProgress(w io.Writer, name string, start time.Time) *progress {
 
 // isTerminal reports whether w is a character device, such as a terminal.
 func isTerminal(w io.Writer) bool {
-	f := fileOf(w)
+	f := files.Of(w)
 	if f == nil {
 		return false
 	}
@@ -68,16 +72,14 @@ func (p *progress) phase(label string, total int64) {
 	p.mu.Unlock()
 }
 
-// counter starts a counted phase and returns the counter to advance, or nil.
-func (p *progress) counter(label string, total int64) *atomic.Int64 {
+// track follows a phase of the analysis (analysis.Options.Progress).
+func (p *progress) track(pr analysis.Progress) {
 	if p == nil {
-		return nil
+		return
 	}
-	c := new(atomic.Int64)
 	p.mu.Lock()
-	p.label, p.count, p.total = label, c, total
+	p.label, p.count, p.total = pr.Phase, pr.Done, pr.Total
 	p.mu.Unlock()
-	return c
 }
 
 func (p *progress) loop() {
@@ -99,7 +101,7 @@ func (p *progress) loop() {
 			}
 			p.shown = true
 			p.mu.Unlock()
-			fmt.Fprintf(p.w, "\r%s\033[K", escape(line))
+			fmt.Fprintf(p.w, "\r%s\033[K", report.Escape(line))
 		}
 	}
 }

@@ -4,8 +4,11 @@ import (
 	"bytes"
 	"strings"
 	"sync"
+	"sync/atomic"
 	"testing"
 	"time"
+
+	"govern/envelope/analysis"
 )
 
 // lockedBuffer is a bytes.Buffer safe for the progress goroutine.
@@ -36,15 +39,14 @@ func TestProgressLine(t *testing.T) {
 		}
 		var p *progress // a nil progress does nothing
 		p.phase("x", 1)
-		if c := p.counter("x", 1); c != nil {
-			t.Error("nil progress returned a counter")
-		}
+		p.track(analysis.Progress{Phase: "x", Total: 1, Done: new(atomic.Int64)})
 		p.end()
 	})
 	t.Run("a long run shows its phase and count, then clears the line", func(t *testing.T) {
 		var buf lockedBuffer
 		p := startProgress(&buf, "govern run", time.Now().Add(-time.Hour))
-		c := p.counter("enveloping stations", 10)
+		c := new(atomic.Int64)
+		p.track(analysis.Progress{Phase: "enveloping stations", Total: 10, Done: c})
 		c.Add(4)
 		deadline := time.Now().Add(5 * time.Second)
 		for !strings.Contains(buf.String(), "govern run: enveloping stations 4/10") && time.Now().Before(deadline) {

@@ -15,6 +15,8 @@ import (
 	"time"
 
 	"govern/cmd/govern/modelfile"
+	"govern/envelope/analysis"
+	"govern/envelope/report"
 )
 
 // smallModel is the model of the golden files: faces, a hinge, patterned
@@ -108,19 +110,19 @@ func byID(root *element, id string) *element {
 	return nil
 }
 
-// report analyses the model at path and returns its report.
-func report(t *testing.T, path string) (*analysis, []byte) {
+// reportOf analyses the model at path and returns its report.
+func reportOf(t *testing.T, path string) (*analysis.Result, []byte) {
 	t.Helper()
 	job, err := loadModel(path)
 	if err != nil {
 		t.Fatal(err)
 	}
-	a, err := analyse(job)
+	a, err := analyseJob(job)
 	if err != nil {
 		t.Fatal(err)
 	}
 	var b bytes.Buffer
-	if err := a.writeReport(&b, a.balances()); err != nil {
+	if err := report.New(a).WriteHTML(&b); err != nil {
 		t.Fatal(err)
 	}
 	return a, b.Bytes()
@@ -133,9 +135,9 @@ func TestReportIsValidAndComplete(t *testing.T) {
 	}
 	for _, path := range []string{smallModel, demo} {
 		t.Run(filepath.Base(path), func(t *testing.T) {
-			a, src := report(t, path)
+			a, src := reportOf(t, path)
 			root := parseXML(t, src)
-			mo := a.job.Model
+			mo := a.Job.Model
 			if root.name != "html" || len(root.find(func(e *element) bool { return e.name == "title" })) != 1 {
 				t.Fatalf("root %s, or no title", root.name)
 			}
@@ -156,7 +158,7 @@ func TestReportIsValidAndComplete(t *testing.T) {
 			})
 			t.Run("every member's envelope is drawn", func(t *testing.T) {
 				figures := []string{"moment", "shear"}
-				if len(a.env.Service) > 0 {
+				if len(a.Envelope.Service) > 0 {
 					figures = append(figures, "deflection")
 				}
 				for _, id := range append(figures, "axial") {
@@ -182,7 +184,7 @@ func TestReportIsValidAndComplete(t *testing.T) {
 						}
 						// A band between the curves, closed, and the two
 						// curves, each through every station.
-						n := len(a.env.Members[m].Stations)
+						n := len(a.Envelope.Members[m].Stations)
 						for _, class := range []string{"band", "hi", "lo"} {
 							ps := g.find(func(e *element) bool { return e.name == "path" && e.attr["class"] == class })
 							want := n
@@ -225,7 +227,7 @@ func TestReportIsValidAndComplete(t *testing.T) {
 					}
 				}
 				combos := byID(root, "combinations").allText()
-				for _, cb := range a.env.Combinations {
+				for _, cb := range a.Envelope.Combinations {
 					if !strings.Contains(combos, cb.Name) {
 						t.Errorf("combination %s not listed", cb.Name)
 					}
@@ -236,14 +238,14 @@ func TestReportIsValidAndComplete(t *testing.T) {
 						t.Errorf("case %s has no statics check", c.Name)
 					}
 				}
-				if byID(root, "reactions") == nil || strings.Count(root.allText(), caution) != 2 {
+				if byID(root, "reactions") == nil || strings.Count(root.allText(), report.Caution) != 2 {
 					t.Error("no reactions section, or the caution not at the head and the foot")
 				}
 			})
 		})
 	}
 	t.Run("faces are marked in the station tables", func(t *testing.T) {
-		_, src := report(t, smallModel)
+		_, src := reportOf(t, smallModel)
 		root := parseXML(t, src)
 		if rows := root.find(func(e *element) bool { return e.name == "tr" && e.attr["class"] == "face" }); len(rows) != 8 {
 			t.Errorf("%d face rows, want 8 (two per beam)", len(rows))
@@ -256,19 +258,19 @@ func TestReportIsValidAndComplete(t *testing.T) {
 // writer's 64 KiB), however long the report.
 func TestReportStreams(t *testing.T) {
 	var src bytes.Buffer
-	if err := generateModel(&src, regularSpec(6, 8)); err != nil {
+	if err := modelfile.WriteStarter(&src, regularSpec(6, 8)); err != nil {
 		t.Fatal(err)
 	}
 	job, err := modelfile.Read("gen.toml", src.Bytes())
 	if err != nil {
 		t.Fatal(err)
 	}
-	a, err := analyse(job)
+	a, err := analyseJob(job)
 	if err != nil {
 		t.Fatal(err)
 	}
 	w := &largestWrite{}
-	if err := a.writeReport(w, a.balances()); err != nil {
+	if err := report.New(a).WriteHTML(w); err != nil {
 		t.Fatal(err)
 	}
 	if w.total < 1<<20 || w.largest > 1<<16 {
@@ -300,7 +302,7 @@ func TestReportRendersInChromium(t *testing.T) {
 		t.Skip("chromium is not installed (/usr/bin/chromium): the report is not rendered; install it to run this test")
 	}
 	dir := t.TempDir()
-	_, src := report(t, smallModel)
+	_, src := reportOf(t, smallModel)
 	page := filepath.Join(dir, "report.html")
 	if err := os.WriteFile(page, src, 0o644); err != nil {
 		t.Fatal(err)
@@ -424,17 +426,4 @@ func TestRunReportAndOut(t *testing.T) {
 			t.Error("model file changed")
 		}
 	})
-}
-
-func TestEscapeForXML(t *testing.T) {
-	for in, want := range map[string]string{
-		`A<B & "C" 'D'>`:   `A&lt;B &amp; &#34;C&#34; &#39;D&#39;&gt;`,
-		"bell\x07 and\tab": "bell and\tab",
-		"plain":            "plain",
-	} {
-		if got := esc(in); got != want {
-			t.Errorf("esc(%q) = %q, want %q", in, got, want)
-		}
-		parseXML(t, []byte("<p>"+esc(in)+"</p>"))
-	}
 }

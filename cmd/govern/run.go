@@ -1,13 +1,18 @@
 package main
 
 import (
+	"context"
+	"errors"
 	"flag"
 	"fmt"
 	"io"
 	"os"
 	"path/filepath"
-	"strings"
 
+	"govern/cmd/govern/internal/files"
+	"govern/cmd/govern/modelfile"
+	"govern/envelope/analysis"
+	"govern/envelope/report"
 	"govern/frame"
 )
 
@@ -20,12 +25,17 @@ type runFlags struct {
 	acceptIll       bool
 }
 
-// options returns the solver options the flags ask for.
-func (f *runFlags) options() frame.Options {
-	return frame.Options{AcceptIllConditioned: f.acceptIll}
+// options returns the analysis options the flags ask for, with progress
+// shown on p (nil for none).
+func (f *runFlags) options(p *progress) analysis.Options {
+	opt := analysis.Options{Solver: frame.Options{AcceptIllConditioned: f.acceptIll}}
+	if p != nil {
+		opt.Progress = p.track
+	}
+	return opt
 }
 
-func addRunFlags(fs *flag.FlagSet, f *runFlags) {
+func (f *runFlags) add(fs *flag.FlagSet) {
 	fs.StringVar(&f.json, "json", "", "write the envelopes as JSON to `FILE` (- for standard output)")
 	fs.StringVar(&f.csv, "csv", "", "write the envelopes as CSV to `FILE` (- for standard output), one row per member, station and effect")
 	fs.StringVar(&f.report, "report", "", "write a report as one self-contained HTML page to `FILE` (- for standard output): the frame and its envelopes drawn, tables floor by floor, reactions, combinations, statics check")
@@ -104,51 +114,67 @@ vertically, either held against sway or with a single storey free to sway;
 for any other model the report says why it does not apply.
 
 See docs/model-format.md for the model file and docs/conventions.md for
-the signs.`, staticsLimit),
-	flags: func(fs *flag.FlagSet) any {
+the signs.`, analysis.StaticsLimit),
+	setup: func(fs *flag.FlagSet) func(*environ, []string) error {
 		f := &runFlags{}
-		addRunFlags(fs, f)
-		return f
+		f.add(fs)
+		return func(env *environ, args []string) error { return run(env, f, args) }
 	},
-	run: func(env *environ, opts any, args []string) error {
-		if len(args) != 1 {
-			return usagef("need one model file, got %d arguments", len(args))
-		}
-		f := opts.(*runFlags)
-		f.toStdout(env.stdout)
-		if err := f.check(); err != nil {
-			return err
-		}
-		job, err := loadModel(args[0])
-		if err != nil {
-			return err
-		}
-		name := filepath.Base(args[0])
-		if err := job.CheckUnused(); err != nil {
-			return err
-		}
-		if n := job.Actions.Note; n != "" && !f.quiet {
-			fmt.Fprintf(env.stderr, "%s: note: %s: %s\n", env.name, escape(name), escape(n))
-		}
-		if f.comparePatterns {
-			return comparePatterns(env.stdout, job, f.options())
-		}
-		if err := checkSize(job, f); err != nil {
-			return fmt.Errorf("%s: %w", name, err)
-		}
-		p := newProgress(env.stderr, env.name, f.quiet)
-		a, err := analyseWith(job, job.Patterns, p, f.options())
-		if err != nil {
-			p.end()
-			return fmt.Errorf("%s: %w", name, err)
-		}
-		p.phase("writing results", 0)
-		err = a.report(env.stdout, args[0], f)
-		p.end()
-		// After the progress line is gone, and below the tables.
-		env.warn(name, a.sol.Warnings())
+}
+
+// run is govern run.
+func run(env *environ, f *runFlags, args []string) error {
+	if len(args) != 1 {
+		return usagef("need one model file, got %d arguments", len(args))
+	}
+	f.toStdout(env.stdout)
+	if err := f.check(); err != nil {
 		return err
-	},
+	}
+	job, err := loadModel(args[0])
+	if err != nil {
+		return err
+	}
+	name := filepath.Base(args[0])
+	if err := job.CheckUnused(); err != nil {
+		return err
+	}
+	if n := job.Actions.Note; n != "" && !f.quiet {
+		fmt.Fprintf(env.stderr, "%s: note: %s: %s\n", env.name, report.Escape(name), report.Escape(n))
+	}
+	if f.comparePatterns {
+		rows, err := analysis.ComparePatterns(context.Background(), &job.Job, f.options(nil))
+		if err != nil {
+			return acceptHint(err)
+		}
+		return report.WriteComparison(env.stdout, &job.Job, rows)
+	}
+	return analyse(env, job, name, args[0], f)
+}
+
+// analyse runs the analysis of job, the model file named name at path (""
+// for the demonstration), and writes the results the flags ask for.
+func analyse(env *environ, job *modelfile.Job, name, path string, f *runFlags) error {
+	if err := report.CheckSize(&job.Job, report.Formats{JSON: f.json != "" || f.out != "", CSV: f.csv != "" || f.out != "", HTML: f.report != "" || f.out != ""}); err != nil {
+		return fmt.Errorf("%s: %w", name, err)
+	}
+	p := newProgress(env.stderr, env.name, f.quiet)
+	res, err := analysis.Run(context.Background(), &job.Job, f.options(p))
+	if err != nil {
+		p.end()
+		var se *analysis.StaticsError
+		if errors.As(err, &se) {
+			env.warn(name, se.Warnings)
+			return err
+		}
+		return fmt.Errorf("%s: %w", name, acceptHint(err))
+	}
+	p.phase("writing results", 0)
+	err = writeResults(env.stdout, path, f, res)
+	p.end()
+	// After the progress line is gone, and below the tables.
+	env.warn(name, res.Warnings)
+	return err
 }
 
 // The files --out writes into its folder.
@@ -162,7 +188,7 @@ const (
 // already is (such as /dev/stdout) into "-", so that the run treats it as
 // standard output and leaves out the summary.
 func (f *runFlags) toStdout(stdout io.Writer) {
-	f.json, f.csv, f.report = stdoutPath(stdout, f.json), stdoutPath(stdout, f.csv), stdoutPath(stdout, f.report)
+	f.json, f.csv, f.report = files.StdoutPath(stdout, f.json), files.StdoutPath(stdout, f.csv), files.StdoutPath(stdout, f.report)
 }
 
 // check refuses combinations of flags that cannot be honoured.
@@ -191,106 +217,40 @@ func (f *runFlags) check() error {
 	return nil
 }
 
-// report writes the requested files and, unless a file goes to standard
-// output, the summary tables.
-func (a *analysis) report(stdout io.Writer, model string, f *runFlags) error {
+// writeResults writes the requested files and, unless a file goes to
+// standard output, the summary tables.
+func writeResults(stdout io.Writer, model string, f *runFlags, res *analysis.Result) error {
 	if err := f.check(); err != nil {
 		return err
 	}
 	toStdout := f.json == "-" || f.csv == "-" || f.report == "-"
-	bal := a.balances()
-	if err := staticsError(bal); err != nil {
-		return err
-	}
+	rp := report.New(res)
 	jsonPath, csvPath, reportPath := f.json, f.csv, f.report
 	if f.out != "" {
 		jsonPath, csvPath, reportPath = filepath.Join(f.out, jsonName), filepath.Join(f.out, csvName), filepath.Join(f.out, reportName)
 	}
-	var outs []output
-	if jsonPath != "" {
-		outs = append(outs, output{path: jsonPath, write: func(w io.Writer) error { return a.writeJSON(w, bal) }})
-	}
-	if csvPath != "" {
-		outs = append(outs, output{path: csvPath, write: a.writeCSV})
-	}
-	if reportPath != "" {
-		outs = append(outs, output{path: reportPath, write: func(w io.Writer) error { return a.writeReport(w, bal) }})
+	var outs []files.Output
+	for _, o := range []files.Output{{Path: jsonPath, Write: rp.WriteJSON}, {Path: csvPath, Write: rp.WriteCSV}, {Path: reportPath, Write: rp.WriteHTML}} {
+		if o.Path != "" {
+			outs = append(outs, o)
+		}
 	}
 	if !toStdout && !f.quiet {
-		outs = append(outs, output{path: "-", write: func(w io.Writer) error {
-			a.writeHeading(w)
-			if err := a.writeSummary(w); err != nil {
-				return err
-			}
-			if err := a.writeStatics(w, bal); err != nil {
-				return err
-			}
-			if f.crossCheck {
-				if err := a.writeCrossCheck(w); err != nil {
-					return err
-				}
-			}
-			_, err := fmt.Fprintf(w, "\n%s\n", caution)
-			return err
-		}})
+		outs = append(outs, files.Output{Path: "-", Write: func(w io.Writer) error { return rp.WriteText(w, f.crossCheck) }})
 	}
 	if f.out == "" {
-		return commitOutputs(stdout, model, outs)
+		return files.Commit(stdout, model, outs)
 	}
-	made, err := makeFolder(f.out)
+	made, err := files.MakeFolder(f.out)
 	if err != nil {
 		return err
 	}
-	err = commitOutputs(stdout, model, outs)
+	err = files.Commit(stdout, model, outs)
 	if made {
 		if err != nil {
 			os.Remove(f.out) // only if still empty: nothing half-written stays
 		}
-		forgetFolder(f.out)
+		files.ForgetFolder(f.out)
 	}
 	return err
-}
-
-// combinationCount says how many combinations there are, and how many are
-// strength and service ones when there are both.
-func (a *analysis) combinationCount() string {
-	n, s := len(a.env.Combinations), len(a.env.Service)
-	if s == 0 || s == n {
-		return fmt.Sprintf("%d combinations", n)
-	}
-	return fmt.Sprintf("%d combinations (%d strength, %d service)", n, n-s, s)
-}
-
-// faceCount returns the number of beam ends that have a face station.
-func (a *analysis) faceCount() int {
-	n := 0
-	for _, xs := range a.env.Settings.Extra {
-		n += len(xs)
-	}
-	return n
-}
-
-// writeHeading prints what was analysed.
-func (a *analysis) writeHeading(w io.Writer) {
-	mo := a.job.Model
-	if a.job.Title != "" {
-		fmt.Fprintf(w, "%s\n", escape(a.job.Title))
-	}
-	info := a.sol.Info()
-	fmt.Fprintf(w, "%d nodes, %d members, %d equations; %d load cases, %s; %d stations per member; variable loads %s\n",
-		len(mo.Nodes), len(mo.Members), info.Equations, len(mo.Cases), a.combinationCount(), a.env.Settings.Stations, variableLoads(a.env.Settings.AsWritten))
-	if n := a.faceCount(); n > 0 {
-		fmt.Fprintf(w, "Column faces: %d beam ends get a station at the face of the column they frame into (section depth)\n", n)
-	}
-	if len(a.job.Patterned) > 0 {
-		var names []string
-		for _, c := range a.job.Patterned {
-			names = append(names, escape(mo.Cases[c].Name))
-		}
-		fmt.Fprintf(w, "Patterned cases %s: %s placement, %d pieces (%d per beam)\n", strings.Join(names, ", "), a.lay.Mode, len(a.lay.Pieces), a.lay.Segments)
-	}
-	if note := a.conditionNote(); note != "" {
-		fmt.Fprintf(w, "%s\n", note)
-	}
-	fmt.Fprintf(w, "Units: force %s, length %s. N tension positive; beams: x from the left end, M sagging positive (lower face in tension); columns: local -y face in tension; V = dM/dx.\n\n", escape(a.job.Units.Force), escape(a.job.Units.Length))
 }

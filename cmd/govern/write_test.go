@@ -10,6 +10,9 @@ import (
 	"strings"
 	"testing"
 	"time"
+
+	"govern/cmd/govern/internal/files"
+	"govern/envelope/report"
 )
 
 // pipeWait bounds how long a test waits for a reader or a writer at the
@@ -87,7 +90,7 @@ func TestOutputPathsThatAreNotRegularFiles(t *testing.T) {
 		select {
 		case b := <-got:
 			var doc struct{ Format string }
-			if err := json.Unmarshal(b, &doc); err != nil || doc.Format != jsonFormat {
+			if err := json.Unmarshal(b, &doc); err != nil || doc.Format != report.JSONFormat {
 				t.Errorf("the pipe's reader got %d bytes that are not the JSON (%v)", len(b), err)
 			}
 		case <-time.After(pipeWait):
@@ -167,7 +170,7 @@ func TestOutputPathsThatAreNotRegularFiles(t *testing.T) {
 		}
 		b, _ := os.ReadFile(out.Name())
 		var doc struct{ Format string }
-		if err := json.Unmarshal(b, &doc); err != nil || doc.Format != jsonFormat {
+		if err := json.Unmarshal(b, &doc); err != nil || doc.Format != report.JSONFormat {
 			t.Errorf("standard output holds %d bytes that are not the JSON alone (%v)", len(b), err)
 		}
 		if m := mode(t, out.Name()); !m.IsRegular() {
@@ -208,12 +211,12 @@ func TestConcurrentRunsCommitWholeSets(t *testing.T) {
 		return doc.Settings.Stations, rows / (35 * 3)
 	}
 
-	defer func(f func(string), w time.Duration) { afterRename, lockWait = f, w }(afterRename, lockWait)
-	lockWait = 0
+	defer func(f func(string), w time.Duration) { files.AfterRename, files.LockWait = f, w }(files.AfterRename, files.LockWait)
+	files.LockWait = 0
 	started := false
 	var code2 int
 	var stderr2 string
-	afterRename = func(path string) {
+	files.AfterRename = func(path string) {
 		if started {
 			return
 		}
@@ -235,81 +238,11 @@ func TestConcurrentRunsCommitWholeSets(t *testing.T) {
 	}
 	assertNoTemporaries(t, dir)
 
-	afterRename = func(string) {}
+	files.AfterRename = func(string) {}
 	if code, _, stderr := exec("run", "--quiet", "--json", js, "--csv", cs, second); code != 0 {
 		t.Fatalf("second run again: exit %d: %s", code, stderr)
 	}
 	if j, c := stations(); j != 5 || c != 5 {
 		t.Errorf("after the second run alone: the JSON is from %d stations and the CSV from %d; want both 5", j, c)
 	}
-}
-
-// TestLockWaitsForTheOtherRun: a run that finds the folder locked waits for
-// the lock and then commits.
-func TestLockWaitsForTheOtherRun(t *testing.T) {
-	dir := t.TempDir()
-	unlock, err := lockFolders([]string{dir})
-	if err != nil {
-		t.Fatal(err)
-	}
-	done := make(chan error, 1)
-	go func() {
-		done <- commitOutputs(io.Discard, "", []output{{path: filepath.Join(dir, "a.csv"), write: func(w io.Writer) error {
-			_, err := io.WriteString(w, "a\n")
-			return err
-		}}})
-	}()
-	// The commit cannot finish while the lock is held: it writes its
-	// temporary file and waits.
-	for deadline := time.Now().Add(pipeWait); ; time.Sleep(lockPoll) {
-		select {
-		case err := <-done:
-			t.Fatalf("the commit ended (%v) while another held the lock", err)
-		default:
-		}
-		if left, _ := filepath.Glob(filepath.Join(dir, ".a.csv.tmp*")); len(left) > 0 {
-			break
-		}
-		if time.Now().After(deadline) {
-			t.Fatal("no temporary file appeared")
-		}
-	}
-	// Time enough for a commit that ignored the lock to get past it.
-	time.Sleep(10 * lockPoll)
-	if fileExists(filepath.Join(dir, "a.csv")) {
-		t.Fatal("a.csv was renamed into place while another held the lock")
-	}
-	unlock()
-	if err := <-done; err != nil {
-		t.Fatalf("after the lock was released: %v", err)
-	}
-	if b, _ := os.ReadFile(filepath.Join(dir, "a.csv")); string(b) != "a\n" {
-		t.Errorf("a.csv = %q", b)
-	}
-}
-
-// TestWriteNewNeverOverwrites: new and demo --write refuse a path that is
-// there, even a link to nothing, and leave no temporary file.
-func TestWriteNewNeverOverwrites(t *testing.T) {
-	dir := t.TempDir()
-	p := filepath.Join(dir, "m.toml")
-	if err := writeNew(p, []byte("a")); err != nil {
-		t.Fatal(err)
-	}
-	for _, path := range []string{p, filepath.Join(dir, "dangling")} {
-		if path != p {
-			os.Symlink("nowhere", path)
-		}
-		err := writeNew(path, []byte("b"))
-		if want := path + " exists; not overwriting it"; err == nil || err.Error() != want {
-			t.Errorf("err = %v, want %s", err, want)
-		}
-	}
-	if b, _ := os.ReadFile(p); string(b) != "a" {
-		t.Errorf("m.toml = %q", b)
-	}
-	if fileExists(filepath.Join(dir, "nowhere")) {
-		t.Error("the link's target was made")
-	}
-	assertNoTemporaries(t, dir)
 }

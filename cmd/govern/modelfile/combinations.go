@@ -329,27 +329,6 @@ func readLimited(path string, limit int64) ([]byte, error) {
 	return src, err
 }
 
-// Unused returns the cases that no combination gives a factor other than
-// 0, in model order: they would be analysed and left out of every
-// envelope.
-func (j *Job) Unused() []int {
-	used := make([]bool, len(j.Model.Cases))
-	for _, cb := range j.Combinations {
-		for _, t := range cb.Terms {
-			if t.Factor != 0 {
-				used[t.Case] = true
-			}
-		}
-	}
-	var out []int
-	for i, u := range used {
-		if !u {
-			out = append(out, i)
-		}
-	}
-	return out
-}
-
 // CheckUnused returns an error naming each case that no combination uses,
 // at its line, unless the model allows them ([combinations] unused =
 // "allow"). An analysis calls it; a listing of the model does not.

@@ -2,6 +2,7 @@ package modelfile
 
 import (
 	"bytes"
+	"context"
 	"errors"
 	"os"
 	"path/filepath"
@@ -12,6 +13,7 @@ import (
 
 	"govern/combos"
 	"govern/envelope"
+	"govern/envelope/analysis"
 	"govern/frame"
 	"govern/patterns"
 )
@@ -80,7 +82,7 @@ func readSeed(t testing.TB, path string) string {
 // demonstration model and the models of testdata. No input may panic or hang. A rejected file must come back as
 // a list of problems, each with the file name, a line within the file and
 // one of the sentinels; an accepted one must pass frame.Model.Validate, and
-// a small one is solved and enveloped, where the only errors allowed are
+// a small one is analysed (analysis.Run), where the only errors allowed are
 // those that describe the model (a mechanism, a size limit, conditioning).
 func FuzzRead(f *testing.F) {
 	f.Add([]byte(base))
@@ -145,16 +147,13 @@ func FuzzRead(f *testing.F) {
 		if err != nil || len(lay.Model.Cases) > 100 {
 			return // pattern limits are patterns' to test
 		}
-		sol, err := frame.Solve(lay.Model)
-		if err != nil {
+		// The whole analysis, column faces and spans included.
+		if _, err := analysis.Run(context.Background(), &job.Job, analysis.Options{}); err != nil {
 			var me *frame.MechanismError
-			if !errors.As(err, &me) && !errors.Is(err, frame.ErrTooLarge) && !errors.Is(err, frame.ErrIllConditioned) && !errors.Is(err, frame.ErrNotFinite) {
-				t.Fatalf("Solve failed on an accepted model: %v", err)
+			if !errors.As(err, &me) && !errors.Is(err, frame.ErrTooLarge) && !errors.Is(err, frame.ErrIllConditioned) && !errors.Is(err, frame.ErrNotFinite) &&
+				!errors.Is(err, envelope.ErrNotFinite) && !errors.Is(err, analysis.ErrUnused) {
+				t.Fatalf("the analysis failed on an accepted model: %v", err)
 			}
-			return
-		}
-		if _, err := envelope.Compute(sol, job.Combinations, job.Settings, lay); err != nil && !errors.Is(err, envelope.ErrNotFinite) {
-			t.Fatalf("envelope failed on an accepted model: %v", err)
 		}
 	})
 }

@@ -8,47 +8,19 @@ import (
 	"sort"
 
 	"govern/combos"
-	"govern/envelope"
+	"govern/envelope/analysis"
 	"govern/frame"
 	"govern/patterns"
 )
 
 // Units are the labels a model declares for its numbers.
-type Units struct {
-	Force, Length string
-}
+type Units = analysis.Units
 
-// Moment returns the label of a moment, such as "kN·m".
-func (u Units) Moment() string { return u.Force + "·" + u.Length }
-
-// Job is everything a model file asks for: the frame, its combinations and
-// the analysis settings.
+// Job is everything a model file asks for: the analysis job (the frame,
+// its cases, combinations and settings), with what the file adds.
 type Job struct {
-	Title        string
-	Units        Units
-	Model        *frame.Model
-	Cases        []combos.Case // per case of Model: its name and kind
-	Combinations []combos.Combination
-	Settings     envelope.Settings
-	Grid         *Grid // nil when the file has no [grid]
-
-	// Pattern loading: the cases marked pattern = true, the pieces per
-	// beam and how they are arranged.
-	Patterned []int
-	Segments  int
-	Patterns  patterns.Mode
-
-	// Set is the rule set named in [combinations], nil without one; its
-	// combinations come first in Combinations, then the model's own.
-	Set      *combos.Set
-	Params   combos.Params     // the set's options given in [combinations]
-	CaseInfo []combos.CaseInfo // per case, as Model.Cases: reversible, EN 1990 category and ψ, action keys
-	// Actions groups the cases into actions and their alternatives, two
-	// of which never act together (docs/combinations.md).
-	Actions *combos.Actions
-	// AllowUnused is [combinations] unused = "allow": cases that no
-	// combination uses are not an error (see [Job.CheckUnused]).
-	AllowUnused bool
+	analysis.Job
+	Grid *Grid // nil when the file has no [grid]
 
 	file      string      // the model's name, for messages
 	caseLines map[int]int // the line of each case no combination uses
@@ -117,7 +89,7 @@ type reader struct {
 
 func (r *reader) read(raw map[string]any) *Job {
 	top := r.table(raw, "", "")
-	r.job = &Job{Model: &frame.Model{}}
+	r.job = &Job{Job: analysis.Job{Model: &frame.Model{}}}
 	job := r.job
 	job.Title = top.str("title", "")
 	job.Units = Units{Force: "kN", Length: "m"}
@@ -126,7 +98,7 @@ func (r *reader) read(raw map[string]any) *Job {
 		job.Units.Length = u.str("length", "m")
 		u.done()
 	}
-	job.Settings = envelope.Settings{Stations: 11}
+	job.Settings = analysis.Settings{Stations: 11}
 	job.Segments, job.Patterns = 1, patterns.Exact
 	if a := top.sub("analysis", "[analysis]"); a != nil {
 		job.Settings.Stations = a.integer("stations", 11)
@@ -166,9 +138,11 @@ func (r *reader) read(raw map[string]any) *Job {
 	if len(job.Combinations) == 0 {
 		job.Combinations = combos.EachCase(job.Cases)
 	}
-	job.Settings.Kinds = make([]combos.Kind, len(job.Cases))
-	for c, cc := range job.Cases {
-		job.Settings.Kinds[c] = cc.Kind
+	for i, x := range r.lines() {
+		job.Lines = append(job.Lines, analysis.GridLine{Name: LineName(i), X: x})
+	}
+	for i, y := range r.levels() {
+		job.Levels = append(job.Levels, analysis.Level{Name: fmt.Sprintf("level %d", i), Y: y})
 	}
 	return job
 }

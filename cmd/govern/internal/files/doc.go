@@ -1,0 +1,13 @@
+// Package files writes the output files of the govern command as one set
+// (Commit): each regular file to a temporary file beside it, synced, and
+// all renamed into place together under a lock on their folders, so that
+// a failed, interrupted or concurrent run never leaves a partial file nor
+// mixes the files of two runs; devices, named pipes and standard output are
+// written through. It keeps the temporary files and new folders of the
+// run, so that a signal can remove them (RemoveTemporaries). Every output
+// is capped at report.MaxOutput bytes. See the "Output files" part of
+// docs/errors.md.
+//
+// It belongs to the command: what it writes is given to it as functions of
+// an io.Writer; it never reads or changes the results they write.
+package files

@@ -1,0 +1,60 @@
+package main
+
+import (
+	"bytes"
+	"errors"
+	"fmt"
+	"io"
+	"os"
+	"path/filepath"
+	"runtime/debug"
+
+	"govern/cmd/govern/modelfile"
+	"govern/frame"
+)
+
+// loadModel reads and validates the model file at path. A file past
+// modelfile.MaxFileSize is refused before it is read.
+func loadModel(path string) (*modelfile.Job, error) {
+	f, err := os.Open(path)
+	if err != nil {
+		return nil, fmt.Errorf("cannot read model: %v", err)
+	}
+	defer f.Close()
+	st, err := f.Stat()
+	if err != nil {
+		return nil, fmt.Errorf("cannot read model: %v", err)
+	}
+	if st.IsDir() {
+		return nil, fmt.Errorf("cannot read model: %s is a directory", path)
+	}
+	if st.Size() > modelfile.MaxFileSize {
+		return nil, fmt.Errorf("%s: the file is %d bytes; the limit for a model is %d (%d MiB)", path, st.Size(), modelfile.MaxFileSize, modelfile.MaxFileSize>>20)
+	}
+	// Read into a buffer of the file's size, so that it is not grown and
+	// copied on the way (a large file costs its size once, not twice).
+	buf := bytes.NewBuffer(make([]byte, 0, st.Size()+bytes.MinRead))
+	if _, err := buf.ReadFrom(io.LimitReader(f, modelfile.MaxFileSize+1)); err != nil {
+		return nil, fmt.Errorf("cannot read model: %v", err)
+	}
+	src := buf.Bytes()
+	// Decoding takes about 270 bytes an entry of the file at its peak
+	// (docs/errors.md); with the collector's default target the heap may
+	// grow to twice what is live, so it is held closer while reading.
+	defer debug.SetGCPercent(debug.SetGCPercent(readGCPercent))
+	return modelfile.ReadAt(filepath.Dir(path), filepath.Base(path), src)
+}
+
+// readGCPercent is the garbage collector's target while a model is read:
+// the heap may grow to 1.25 times what is live, not twice.
+const readGCPercent = 25
+
+// acceptHint adds to a refusal for ill-conditioning the flag that
+// overrides it.
+func acceptHint(err error) error {
+	var ice *frame.IllConditionedError
+	if errors.As(err, &ice) && ice.Acceptable {
+		return fmt.Errorf("%w (govern run --accept-ill-conditioned solves it anyway, and every output then carries the estimate)", err)
+	}
+	return err
+}

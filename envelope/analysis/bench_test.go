@@ -1,0 +1,33 @@
+package analysis
+
+import (
+	"context"
+	"fmt"
+	"testing"
+)
+
+// BenchmarkRun measures Run alone on regular frames built in code
+// (regularJob): place the patterned live load ("exact"), solve, envelope
+// at 11 stations, check the statics; with "-starter" also stations at the
+// column faces and deflections under a service combination. The whole
+// command, reading and writing included, is cmd/govern's BenchmarkRun.
+func BenchmarkRun(b *testing.B) {
+	for _, size := range []struct {
+		bays, storeys int
+		starter       bool
+	}{{3, 3, false}, {10, 10, false}, {30, 20, false}, {30, 60, false}, {30, 60, true}} {
+		name := fmt.Sprintf("%dx%d", size.bays, size.storeys)
+		if size.starter {
+			name += "-starter"
+		}
+		job := regularJob(size.bays, size.storeys, size.starter)
+		b.Run(name, func(b *testing.B) {
+			b.ReportAllocs()
+			for b.Loop() {
+				if _, err := Run(context.Background(), job, Options{}); err != nil {
+					b.Fatal(err)
+				}
+			}
+		})
+	}
+}

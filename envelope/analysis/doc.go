@@ -1,0 +1,51 @@
+// Package analysis runs the whole analysis of a plane frame: from a [Job]
+// (the frame, its load cases with their kinds and actions, the load
+// combinations, which cases are patterned and how, the settings) to the
+// envelopes of N, V and M at stations along every member, of the
+// deflections of spans and cantilevers, and of the reactions, each
+// extreme with its governing combination ([Run] and [Result]).
+//
+// The model file reader (cmd/govern/modelfile) produces a Job; another
+// program may build one in code. Around the envelopes, the package gives
+// what design and checking need of them: the statics check of every load
+// case that Run applies ([Balance], [StaticsError]), the cross-check of end
+// moments by moment distribution ([Result.CrossCheck]), the comparison of
+// the standards' pattern arrangements with exact placement
+// ([ComparePatterns]), the faces of columns where beams may be designed
+// ([ColumnFaces]), the spans and cantilevers of beams ([Span]), the
+// grouping of members into floors and column lines ([Groups]), and every
+// beam seen from its left end ([Result.Shown]). It prints nothing; the
+// outputs are package envelope/report's.
+//
+// # Units and signs
+//
+// Every number is in the job's units (Job.Units are labels only; nothing
+// is converted): distances and deflections in its length unit, forces in
+// its force unit, moments in force × length. Forces follow package frame:
+// N positive in tension, M positive with the member's local −y face in
+// tension, V = dM/dx; x is measured from a member's start node; reactions
+// are global (+X right, +Y up, M counter-clockwise). Result.Shown gives a
+// beam or rafter as if drawn from its left end, so that +M is sagging and a
+// positive deflection is up; a span's or cantilever's deflection is
+// positive up, across its line. Combinations are referred to by their
+// index in Job.Combinations; -1 means none.
+//
+// # Per combination
+//
+// A Result is organised per combination: each [Combination] carries how
+// it was analysed ([Method]) and the condition of its stiffness. Today
+// every combination is analysed first-order with the sections as given,
+// and the Result is formed from one solution of every load case and
+// pattern piece, superposed: that is an optimisation of the first-order
+// analysis, not part of what a Result promises, and the per-case solution
+// is not exposed. Fields of Job for what comes next (Job.MemberFactors
+// for live load reduction, Job.Methods for strength or service stiffness
+// and second-order analysis) are refused by Run with [ErrNotApplied]
+// until they are applied, so that no setting is ever silently ignored.
+//
+// # What is never mutated
+//
+// Run, ComparePatterns and CheckStability never modify the Job or
+// anything it points to (the model, cases, combinations); a Result is not
+// modified after Run returns, so any number of readers may use it at once.
+package analysis

@@ -1,0 +1,266 @@
+package analysis
+
+import (
+	"errors"
+	"fmt"
+
+	"govern/combos"
+	"govern/frame"
+	"govern/patterns"
+)
+
+// Units are the labels of a job's numbers. They are labels only: no number
+// is ever converted.
+type Units struct {
+	Force, Length string
+}
+
+// Moment returns the label of a moment, such as "kN·m".
+func (u Units) Moment() string { return u.Force + "·" + u.Length }
+
+// Settings are the options of the envelopes that belong to the job.
+type Settings struct {
+	// Stations is the number of equally spaced stations per member, both
+	// ends included; at least 2.
+	Stations int
+	// AsWritten makes every case of a combination act with its factor
+	// everywhere, instead of variable cases acting only where adverse
+	// (envelope.Settings.AsWritten).
+	AsWritten bool
+}
+
+// GridLine is a column line with the name the model gives it, such as
+// "A" for the line its "line A" selector picks.
+type GridLine struct {
+	Name string
+	X    float64
+}
+
+// Level is a height the model names, such as "level 1"; the lowest is
+// level 0, the base.
+type Level struct {
+	Name string
+	Y    float64
+}
+
+// MemberFactor scales the effects of one load case in one member: its
+// axial force N, shear V and moment M. It is how live load reduction
+// (ASCE/SEI 7-16 4.7, EN 1991-1-1 6.3.1.2) will enter the analysis.
+//
+// Not applied yet: [Run] refuses a job that gives any.
+type MemberFactor struct {
+	Member, Case int // indices into the model's members and cases
+	N, V, M      float64
+}
+
+// Stiffness names the member stiffness a combination is analysed with.
+type Stiffness uint8
+
+const (
+	// Nominal is the sections as given: what Run applies.
+	Nominal Stiffness = iota
+	// Strength is the reduced stiffness of a strength analysis (such as
+	// AISC 360-16 C2.3 or ACI 318-19 6.6.3.1.1). Not applied yet.
+	Strength
+	// Service is the stiffness for service deflections (such as ACI
+	// 318-19 6.6.3.2.2). Not applied yet.
+	Service
+)
+
+var stiffnessNames = [...]string{"nominal", "strength", "service"}
+
+func (s Stiffness) String() string {
+	if int(s) < len(stiffnessNames) {
+		return stiffnessNames[s]
+	}
+	return fmt.Sprintf("Stiffness(%d)", s)
+}
+
+// Method is how one combination is analysed. The zero value is the
+// first-order elastic analysis with the sections as given, the only one
+// [Run] makes today: a job whose Methods ask for anything else is
+// refused, so that a setting is never silently ignored.
+type Method struct {
+	Stiffness Stiffness
+	// SecondOrder asks for the geometric stiffness of the combination's
+	// own axial forces (P-Δ and P-δ). Not applied yet.
+	SecondOrder bool
+}
+
+// Job is everything an analysis needs: the frame, its load cases with
+// their kinds and actions, the combinations, how patterned cases are
+// placed, the settings, and the names of the model's levels and lines.
+// The model file reader produces one; a program may build one in code.
+//
+// Run never modifies a Job, nor anything it points to.
+type Job struct {
+	Title string
+	Units Units
+	Model *frame.Model
+	// Cases gives, per case of Model, its name and kind; CaseInfo (nil,
+	// or one per case) what the combination rules read besides: reversible,
+	// EN 1990 category and ψ, action keys.
+	Cases    []combos.Case
+	CaseInfo []combos.CaseInfo
+	// Actions groups the cases into actions and their alternatives, two of
+	// which never act together; nil when not grouped.
+	Actions      *combos.Actions
+	Combinations []combos.Combination
+	// Set is the rule set the leading combinations were generated from,
+	// with the options Params; nil when the combinations were written out.
+	// For the record: Run reads only Combinations.
+	Set    *combos.Set
+	Params combos.Params
+	// AllowUnused lets Run analyse a job with load cases that no
+	// combination uses (they are left out of every envelope); otherwise
+	// such a job is refused (see [Job.Unused]).
+	AllowUnused bool
+
+	// Patterned lists the cases whose beam loads are placed piece by
+	// piece, Segments the pieces per beam and Patterns how they are
+	// placed (package patterns).
+	Patterned []int
+	Segments  int
+	Patterns  patterns.Mode
+
+	Settings Settings
+
+	// Lines are the model's column lines and Levels its levels, each as
+	// the model's selectors name them, from the left and from the base.
+	// Columns are tabulated line by line; a column on no line is
+	// tabulated on its own.
+	Lines  []GridLine
+	Levels []Level
+
+	// MemberFactors are factors on the effects of a case in a member
+	// (live load reduction). Not applied yet: Run refuses a job that
+	// gives any.
+	MemberFactors []MemberFactor
+	// Methods, nil or one per combination, says how each combination is
+	// analysed. Only the zero Method is applied yet: Run refuses a job
+	// that asks for another.
+	Methods []Method
+}
+
+// ErrNotApplied marks a field of a Job that asks for something Run does
+// not do yet.
+var ErrNotApplied = errors.New("not applied yet")
+
+// ErrUnused marks a load case that no combination uses.
+var ErrUnused = errors.New("no load combination uses the case")
+
+// Unused returns the cases that no combination gives a factor other than
+// 0, in model order: they would be analysed and left out of every
+// envelope.
+func (j *Job) Unused() []int {
+	used := make([]bool, len(j.Model.Cases))
+	for _, cb := range j.Combinations {
+		for _, t := range cb.Terms {
+			if t.Factor != 0 && t.Case >= 0 && t.Case < len(used) {
+				used[t.Case] = true
+			}
+		}
+	}
+	var out []int
+	for i, u := range used {
+		if !u {
+			out = append(out, i)
+		}
+	}
+	return out
+}
+
+// MaxStationValues is the most station values (members × stations) the
+// envelopes of a job may hold, so that a slip such as a thousand stations
+// on a large frame is refused with a clear message rather than filling
+// memory.
+const MaxStationValues = 1_000_000
+
+// CheckSize returns an error when the envelopes of the job would hold more
+// than MaxStationValues station values.
+func (j *Job) CheckSize() error {
+	members := len(j.Model.Members)
+	stations := j.Settings.Stations
+	if points := members * stations; points > MaxStationValues {
+		return fmt.Errorf("the envelopes would hold %s station values (%s members × %s stations); the limit is %s: use fewer stations",
+			thousands(points), thousands(members), thousands(stations), thousands(MaxStationValues))
+	}
+	return nil
+}
+
+// thousands formats n with commas between groups of three digits.
+func thousands(n int) string {
+	s := fmt.Sprint(n)
+	out := make([]byte, 0, len(s)+len(s)/3)
+	for i := range len(s) {
+		if i > 0 && s[i-1] != '-' && (len(s)-i)%3 == 0 {
+			out = append(out, ',')
+		}
+		out = append(out, s[i])
+	}
+	return string(out)
+}
+
+// check returns an error for a job Run cannot analyse as given: parts that
+// do not match the model, and fields not applied yet.
+func (j *Job) check() error {
+	if j.Model == nil {
+		return errors.New("analysis: the job has no model")
+	}
+	nc := len(j.Model.Cases)
+	if len(j.Cases) != nc {
+		return fmt.Errorf("analysis: the job names %d load cases; the model has %d", len(j.Cases), nc)
+	}
+	if j.CaseInfo != nil && len(j.CaseInfo) != nc {
+		return fmt.Errorf("analysis: the job gives %d case infos; the model has %d cases", len(j.CaseInfo), nc)
+	}
+	if j.Actions != nil && len(j.Actions.Of) != nc {
+		return fmt.Errorf("analysis: the job's actions place %d cases; the model has %d", len(j.Actions.Of), nc)
+	}
+	if len(j.Combinations) == 0 {
+		return errors.New("analysis: the job has no load combinations")
+	}
+	for _, cb := range j.Combinations {
+		for _, t := range cb.Terms {
+			if t.Case < 0 || t.Case >= nc {
+				return fmt.Errorf("analysis: combination %q refers to case %d; the model has %d", cb.Name, t.Case, nc)
+			}
+		}
+	}
+	seen := map[int]bool{}
+	for _, c := range j.Patterned {
+		if c < 0 || c >= nc || seen[c] {
+			return fmt.Errorf("analysis: patterned case %d is not a case of the model, or is listed twice", c)
+		}
+		seen[c] = true
+	}
+	if len(j.Patterned) > 0 && j.Segments < 1 {
+		return fmt.Errorf("analysis: %d pattern pieces per beam; need at least 1", j.Segments)
+	}
+	if j.Settings.Stations < 2 {
+		return fmt.Errorf("analysis: %d stations per member; need at least 2", j.Settings.Stations)
+	}
+	if len(j.MemberFactors) > 0 {
+		return fmt.Errorf("analysis: Job.MemberFactors gives %d member factors: %w (live load reduction); Run refuses them rather than ignore them",
+			len(j.MemberFactors), ErrNotApplied)
+	}
+	if j.Methods != nil && len(j.Methods) != len(j.Combinations) {
+		return fmt.Errorf("analysis: Job.Methods gives %d methods for %d combinations", len(j.Methods), len(j.Combinations))
+	}
+	for k, m := range j.Methods {
+		if m != (Method{}) {
+			return fmt.Errorf("analysis: combination %q asks for %s stiffness, second order %v: %w; only the first-order analysis with the sections as given is made, and Run refuses the job rather than ignore the setting",
+				j.Combinations[k].Name, m.Stiffness, m.SecondOrder, ErrNotApplied)
+		}
+	}
+	if !j.AllowUnused {
+		var errs []error
+		for _, c := range j.Unused() {
+			errs = append(errs, fmt.Errorf("case %q: %w, so it would be left out of every envelope; put it in a combination, or set Job.AllowUnused", j.Model.Cases[c].Name, ErrUnused))
+		}
+		if err := errors.Join(errs...); err != nil {
+			return err
+		}
+	}
+	return j.CheckSize()
+}

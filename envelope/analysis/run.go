@@ -1,0 +1,211 @@
+package analysis
+
+import (
+	"context"
+	"fmt"
+	"sync/atomic"
+
+	"govern/combos"
+	"govern/envelope"
+	"govern/frame"
+	"govern/patterns"
+)
+
+// Options are the choices of one run that are not the job's.
+type Options struct {
+	// Solver passes options on to frame.SolveWith, such as accepting an
+	// ill-conditioned stiffness matrix.
+	Solver frame.Options
+	// Progress, when not nil, is called at the start of each phase of the
+	// run, from the goroutine that called Run.
+	Progress func(Progress)
+
+	// placement, when set, overrides the job's pattern placement, and
+	// allPieces lists every loaded piece in the envelopes (ComparePatterns).
+	placement *patterns.Mode
+	allPieces bool
+}
+
+// Progress says what Run is doing.
+type Progress struct {
+	Phase string // such as "solving 52 loads (4 load cases, 48 pattern pieces or arrangements)"
+	// Total is the units of work of a counted phase (stations to
+	// envelope), 0 for a phase that is not counted. Done, not nil for a
+	// counted phase, is advanced by Run's workers as they go and may be
+	// read from any goroutine until Run returns.
+	Total int64
+	Done  *atomic.Int64
+}
+
+// Result is an analysed job: the envelopes over its combinations, how each
+// combination was analysed, and what the tables and drawings are built
+// from. It is never modified after Run returns, so its readers may run
+// at once.
+type Result struct {
+	Job *Job // the job analysed
+
+	// Combinations holds, per combination of the job and in its order,
+	// how it was analysed.
+	Combinations []Combination
+	// Envelope holds the envelopes of forces, deflections and reactions
+	// over the combinations (package envelope).
+	Envelope *envelope.Envelope
+	// Patterns is the placement the patterned cases were analysed with
+	// and Segments the pieces per beam.
+	Patterns patterns.Mode
+	Segments int
+	// Info is the size of the stiffness equations, the same for every
+	// combination.
+	Info frame.Info
+	// Warnings are the solver's, such as a section no member can be
+	// built of or an ill-conditioned stiffness matrix.
+	Warnings []string
+	// Faces holds, per member, the distances from its start of the faces
+	// of the columns it frames into at its start and end, -1 where there is
+	// none; nil when no section gives a depth (ColumnFaces).
+	Faces [][2]float64
+	// Spans are the spans and cantilevers of beams and rafters, with their
+	// deflections over the service combinations.
+	Spans []Span
+	// Statics is the statics check of every load case, in model order;
+	// Run has refused any case out of balance.
+	Statics []Balance
+
+	// The first-order solution of every load case and pattern piece, from
+	// which every combination is formed: an optimisation of the
+	// first-order analysis, not part of the contract.
+	lay    *patterns.Layout
+	sol    *frame.Solution
+	spanOf []int // member → index into Spans, -1 for none
+}
+
+// Combination is one combination of the job as it was analysed.
+type Combination struct {
+	combos.Combination
+	Method Method
+	// Condition is the estimated condition number of its stiffness matrix,
+	// scaled to unit diagonal (frame.Solution.Cond).
+	Condition float64
+}
+
+// Condition returns the largest estimated condition number of the
+// stiffness matrices of the combinations.
+func (r *Result) Condition() float64 {
+	c := 0.0
+	for _, cb := range r.Combinations {
+		c = max(c, cb.Condition)
+	}
+	return c
+}
+
+// Run places the patterned loads of job, solves every load case and forms
+// the envelopes over the combinations, with the column faces as extra
+// stations and the deflections of spans and cantilevers. It checks the
+// statics of every load case and returns a *StaticsError when one is out
+// of balance. ctx is checked between phases.
+//
+// Input errors are returned: a job whose parts do not match its model,
+// one that asks for what is not applied yet (ErrNotApplied), a load case
+// no combination uses (ErrUnused, unless Job.AllowUnused), a frame that
+// is a mechanism or too ill-conditioned to solve (package frame).
+func Run(ctx context.Context, job *Job, opt Options) (*Result, error) {
+	if err := job.check(); err != nil {
+		return nil, err
+	}
+	if err := ctx.Err(); err != nil {
+		return nil, err
+	}
+	mode := job.Patterns
+	if opt.placement != nil {
+		mode = *opt.placement
+	}
+	lay, err := patterns.Expand(job.Model, job.Patterned, job.Segments, mode)
+	if err != nil {
+		return nil, err
+	}
+	report(opt, Progress{Phase: fmt.Sprintf("solving %d loads (%d load cases, %d pattern pieces or arrangements)",
+		len(lay.Model.Cases), len(job.Model.Cases), len(lay.Model.Cases)-len(job.Model.Cases))})
+	sol, err := frame.SolveWith(lay.Model, opt.Solver)
+	if err != nil {
+		return nil, err
+	}
+	if err := ctx.Err(); err != nil {
+		return nil, err
+	}
+	r := &Result{Job: job, lay: lay, sol: sol, Patterns: lay.Mode, Segments: lay.Segments, Info: sol.Info(), Warnings: sol.Warnings()}
+	r.Faces = ColumnFaces(job.Model)
+	r.Spans = spans(job.Model)
+	set := envelope.Settings{
+		Stations:  job.Settings.Stations,
+		AsWritten: job.Settings.AsWritten,
+		Extra:     faceStations(r.Faces),
+		Lines:     spanLines(job.Model, r.Spans),
+		Kinds:     make([]combos.Kind, len(job.Cases)),
+		AllSpans:  opt.allPieces,
+	}
+	for c, cc := range job.Cases {
+		set.Kinds[c] = cc.Kind
+	}
+	if opt.Progress != nil {
+		total := len(job.Model.Members) * set.Stations
+		for _, xs := range set.Extra {
+			total += len(xs)
+		}
+		set.Progress = new(atomic.Int64)
+		report(opt, Progress{Phase: fmt.Sprintf("solved %d loads; enveloping stations", len(lay.Model.Cases)), Total: int64(total), Done: set.Progress})
+	}
+	env, err := envelope.Compute(sol, job.Combinations, set, lay)
+	if err != nil {
+		return nil, err
+	}
+	r.Envelope = env
+	r.Combinations = make([]Combination, len(job.Combinations))
+	for k, cb := range job.Combinations {
+		r.Combinations[k] = Combination{Combination: cb, Condition: sol.Cond()}
+		if job.Methods != nil {
+			r.Combinations[k].Method = job.Methods[k]
+		}
+	}
+	r.Statics = r.statics()
+	if err := CheckStatics(r.Statics); err != nil {
+		se := err.(*StaticsError)
+		se.Warnings = r.Warnings
+		return nil, se
+	}
+	r.spanOf = make([]int, len(job.Model.Members))
+	for m := range r.spanOf {
+		r.spanOf[m] = -1
+	}
+	for i := range r.Spans {
+		for _, m := range r.Spans[i].Members {
+			r.spanOf[m] = i
+		}
+		if len(env.Service) > 0 {
+			r.Spans[i].Deflection = r.spanDeflection(&r.Spans[i])
+		}
+	}
+	return r, nil
+}
+
+func report(opt Options, p Progress) {
+	if opt.Progress != nil {
+		opt.Progress(p)
+	}
+}
+
+// SpanOf returns the index in r.Spans of the span or cantilever member m
+// is part of, -1 for none.
+func (r *Result) SpanOf(m int) int { return r.spanOf[m] }
+
+// endForces returns member m's end forces in load case c, adding up the
+// loads the case was solved as when it is patterned.
+func (r *Result) endForces(c, m int) [6]float64 {
+	var f [6]float64
+	for _, col := range r.lay.Whole(c) {
+		g := r.sol.EndForces(col, m)
+		for i := range f {
+			f[i] += g[i]
+		}
+	}
+	return f
+}

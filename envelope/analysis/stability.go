@@ -1,0 +1,29 @@
+package analysis
+
+import "govern/frame"
+
+// Stability is what the stiffness of a job's frame says before any load
+// case is solved.
+type Stability struct {
+	Info      frame.Info
+	Condition float64 // estimated condition number, scaled to unit diagonal
+	Warnings  []string
+}
+
+// CheckStability factorizes the stiffness matrix of job's frame, without
+// solving any load case, to find a structure that cannot carry load (a
+// mechanism, returned as the error) and to estimate the matrix's
+// condition number. The node loads come along: a moment where every
+// member end is released is a mechanism for that case.
+func CheckStability(job *Job, opt frame.Options) (*Stability, error) {
+	mo := job.Model
+	cases := make([]frame.Case, len(mo.Cases))
+	for i, c := range mo.Cases {
+		cases[i] = frame.Case{Name: c.Name, NodeLoads: c.NodeLoads}
+	}
+	sol, err := frame.SolveWith(&frame.Model{Nodes: mo.Nodes, Sections: mo.Sections, Members: mo.Members, Cases: cases}, opt)
+	if err != nil {
+		return nil, err
+	}
+	return &Stability{Info: sol.Info(), Condition: sol.Cond(), Warnings: sol.Warnings()}, nil
+}

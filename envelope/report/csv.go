@@ -1,0 +1,143 @@
+package report
+
+import (
+	"encoding/csv"
+	"io"
+	"strconv"
+	"strings"
+
+	"govern/envelope"
+)
+
+// WriteCSV writes one row per member, station and effect: N, V and M, and
+// with service combinations the deflection, each in the member's own axes
+// (docs/output.md). When the stiffness matrix is ill-conditioned the last
+// row gives its estimated condition number. Cells that a spreadsheet would
+// take for formulas are written as text (csvCell).
+func (p *Report) WriteCSV(w io.Writer) error {
+	mo := p.model()
+	u := p.units()
+	cw := newCSVWriter(w)
+	if err := cw.Write([]string{"member", "x (" + u.Length + ")", "effect", "max", "max_by", "min", "min_by", "unit",
+		"max_spans", "min_spans", "max_loaded", "min_loaded", "max_with_N", "max_with_V", "max_with_M", "min_with_N", "min_with_V", "min_with_M", "face"}); err != nil {
+		return err
+	}
+	for _, em := range p.res.Envelope.Members {
+		name := mo.Members[em.Member].Name
+		for k, st := range em.Stations {
+			face := ""
+			if st.Extra {
+				face = "true"
+			}
+			for _, e := range []struct {
+				name, unit string
+				x          envelope.Extreme
+			}{{"N", u.Force, st.N}, {"V", u.Force, st.V}, {"M", u.Moment(), st.M}} {
+				x := e.x
+				if err := cw.Write([]string{name, position(st.X), e.name, num(x.Max), p.comboName(x.MaxBy), num(x.Min), p.comboName(x.MinBy), e.unit,
+					strings.Join(p.spanNames(x.MaxSpans), " "), strings.Join(p.spanNames(x.MinSpans), " "), strconv.Itoa(x.MaxLoaded), strconv.Itoa(x.MinLoaded),
+					num(x.MaxWith[0]), num(x.MaxWith[1]), num(x.MaxWith[2]), num(x.MinWith[0]), num(x.MinWith[1]), num(x.MinWith[2]), face}); err != nil {
+					return err
+				}
+			}
+			if em.Deflection != nil {
+				x := em.Deflection[k]
+				if err := cw.Write([]string{name, position(st.X), "deflection", num(x.Max), p.comboName(x.MaxBy), num(x.Min), p.comboName(x.MinBy), u.Length,
+					strings.Join(p.spanNames(x.MaxSpans), " "), strings.Join(p.spanNames(x.MinSpans), " "), strconv.Itoa(x.MaxLoaded), strconv.Itoa(x.MinLoaded),
+					"", "", "", "", "", "", face}); err != nil {
+					return err
+				}
+			}
+		}
+	}
+	if p.conditionNote() != "" {
+		// One last row for the whole model; its columns are those of the
+		// others (docs/output.md).
+		row := make([]string, 19)
+		row[2], row[3] = "condition_number", num(p.res.Condition())
+		if err := cw.Write(row); err != nil {
+			return err
+		}
+	}
+	cw.Flush()
+	return cw.Error()
+}
+
+// csvWriter writes CSV records (RFC 4180, through encoding/csv) whose cells
+// cannot be taken for formulas by a spreadsheet: see csvCell.
+type csvWriter struct {
+	*csv.Writer
+	row []string
+}
+
+func newCSVWriter(w io.Writer) *csvWriter { return &csvWriter{Writer: csv.NewWriter(w)} }
+
+// Write writes one record, each cell through csvCell.
+func (c *csvWriter) Write(record []string) error {
+	c.row = c.row[:0]
+	for _, s := range record {
+		c.row = append(c.row, csvCell(s))
+	}
+	return c.Writer.Write(c.row)
+}
+
+// csvCell returns a CSV cell as it is written. A cell that begins with =,
+// +, -, @, a tab or a carriage return and is not a number would be read as
+// a formula by a spreadsheet that opens the file (a name such as
+// "=HYPERLINK(...)" could run or fetch something), and quoting does not
+// stop that: it gets a leading apostrophe, which spreadsheets take as
+// "text" and do not show. Numbers such as -12.5 or -1.2e-05 are kept as
+// they are. The CSV writer then quotes the cell where RFC 4180 requires (a
+// comma, a double quote or a line break in it).
+func csvCell(s string) string {
+	if s == "" {
+		return s
+	}
+	switch s[0] {
+	case '=', '+', '-', '@', '\t', '\r':
+		if !isDecimal(s) {
+			return "'" + s
+		}
+	}
+	return s
+}
+
+// isDecimal reports whether s is a decimal number as a spreadsheet reads
+// one: an optional sign, digits with an optional point, an optional
+// exponent. "Inf" and "NaN" are not.
+func isDecimal(s string) bool {
+	i := 0
+	if i < len(s) && (s[i] == '+' || s[i] == '-') {
+		i++
+	}
+	digits := 0
+	for i < len(s) && s[i] >= '0' && s[i] <= '9' {
+		i++
+		digits++
+	}
+	if i < len(s) && s[i] == '.' {
+		i++
+		for i < len(s) && s[i] >= '0' && s[i] <= '9' {
+			i++
+			digits++
+		}
+	}
+	if digits == 0 {
+		return false
+	}
+	if i < len(s) && (s[i] == 'e' || s[i] == 'E') {
+		i++
+		if i < len(s) && (s[i] == '+' || s[i] == '-') {
+			i++
+		}
+		exp := 0
+		for i < len(s) && s[i] >= '0' && s[i] <= '9' {
+			i++
+			exp++
+		}
+		if exp == 0 {
+			return false
+		}
+	}
+	return i == len(s)
+}

@@ -1,0 +1,343 @@
+package report
+
+import (
+	"fmt"
+	"math"
+	"strconv"
+	"strings"
+
+	"govern/envelope"
+	"govern/envelope/analysis"
+	"govern/patterns"
+)
+
+// Table is a titled table of text cells. The design values are formed
+// once as tables, and the terminal and the report render the same ones.
+type Table struct {
+	Title  string
+	Header []string
+	Rows   [][]string
+}
+
+// design is every table of design values of a report, as formed once.
+type design struct {
+	governing  string // the note above the design values
+	groups     []groupDesign
+	deflection *Table // nil without service combinations or spans
+	reactions  *Table // nil without supports
+	staticsTop string // the note above the statics table
+	statics    Table
+}
+
+// groupDesign is the tables of one floor, column line or the others.
+type groupDesign struct {
+	analysis.Group
+	title, id string
+	tables    []Table
+}
+
+// Tables returns the tables of design values in the order the terminal
+// shows them: per floor, column line and the other members; the
+// deflections of spans and cantilevers; the reactions; the statics check.
+func (p *Report) Tables() []Table {
+	d := p.tables()
+	var out []Table
+	for _, g := range d.groups {
+		out = append(out, g.tables...)
+	}
+	if d.deflection != nil {
+		out = append(out, *d.deflection)
+	}
+	if d.reactions != nil {
+		out = append(out, *d.reactions)
+	}
+	return append(out, d.statics)
+}
+
+func newDesign(p *Report) *design {
+	u := p.units()
+	d := &design{governing: fmt.Sprintf("Governing design values%s (in %s; beams: x from the left end, +M sagging; columns: x from the start node)", p.overStrength(), u.Length)}
+	for _, g := range analysis.Groups(p.job()) {
+		gd := groupDesign{Group: g}
+		switch g.Kind {
+		case analysis.Floor:
+			gd.title, gd.id = fmt.Sprintf("Beams at level %d (y = %s %s)", g.Level, fixed(g.Y), u.Length), fmt.Sprintf("level-%d", g.Level)
+		case analysis.ColumnLine:
+			if g.Line != "" {
+				gd.title, gd.id = fmt.Sprintf("Columns on line %s (x = %s %s)", g.Line, fixed(g.X), u.Length), "line-"+g.Line
+			} else {
+				gd.title, gd.id = fmt.Sprintf("Columns at x = %s %s, on no grid line", fixed(g.X), u.Length), fmt.Sprintf("line-x%d", g.Off)
+			}
+		default:
+			gd.title, gd.id = "Other members", "other"
+		}
+		gd.tables = p.groupTables(gd)
+		d.groups = append(d.groups, gd)
+	}
+	d.deflection = p.deflectionTable()
+	d.reactions = p.reactionTable()
+	d.staticsTop, d.statics = p.staticsTable()
+	return d
+}
+
+// peak is the governing value of one effect over a member's stations, with
+// where it occurs, the combination, the pieces loaded and the forces acting
+// with it.
+type peak struct {
+	v, x   float64
+	by     int
+	spans  []int
+	loaded int
+	with   [3]float64
+}
+
+// peaks holds a member's peaks of N, V, M: largest and smallest over the
+// stations.
+type peaks struct {
+	hi, lo [3]peak
+}
+
+func memberPeaks(em envelope.Member) peaks {
+	var p peaks
+	for j := range 3 {
+		p.hi[j].v, p.lo[j].v = math.Inf(-1), math.Inf(1)
+	}
+	for _, st := range em.Stations {
+		for j, e := range [3]envelope.Extreme{st.N, st.V, st.M} {
+			if e.Max > p.hi[j].v {
+				p.hi[j] = peak{e.Max, st.X, e.MaxBy, e.MaxSpans, e.MaxLoaded, e.MaxWith}
+			}
+			if e.Min < p.lo[j].v {
+				p.lo[j] = peak{e.Min, st.X, e.MinBy, e.MinSpans, e.MinLoaded, e.MinWith}
+			}
+		}
+	}
+	return p
+}
+
+// largest returns the peak of larger size of effect j, as a magnitude.
+func (p peaks) largest(j int) peak {
+	v := p.hi[j]
+	if -p.lo[j].v > v.v {
+		v = p.lo[j]
+		v.v = -v.v
+	}
+	return v
+}
+
+// groupTables gives the design values of one group of members: for a
+// floor (beams) the largest sagging and hogging moment and largest shear,
+// and with column faces the values at the supports, centreline and face;
+// for a column line or the others, the largest tension and compression
+// with the moment acting with each, the largest moment and shear.
+func (p *Report) groupTables(g groupDesign) []Table {
+	mo := p.model()
+	u := p.units()
+	force, moment := u.Force, u.Moment()
+	if g.Kind != analysis.Floor {
+		return []Table{{g.title, columnHeader(force, moment), p.columnRows(g.Members)}}
+	}
+	patterned := p.pieces() > 0
+	header := []string{"beam", "+M (" + moment + ")", "at x", "governing", "-M (" + moment + ")", "at x", "governing", "|V| (" + force + ")", "at x", "governing"}
+	if patterned {
+		header = []string{"beam", "+M (" + moment + ")", "at x", "governing", "spans loaded", "-M (" + moment + ")", "at x", "governing", "spans loaded", "|V| (" + force + ")", "at x", "governing"}
+	}
+	var rows [][]string
+	for _, m := range g.Members {
+		pk := memberPeaks(p.shown(m))
+		v := pk.largest(1)
+		row := []string{mo.Members[m].Name, fixed(pk.hi[2].v), fixed(pk.hi[2].x), p.comboName(pk.hi[2].by)}
+		if patterned {
+			row = append(row, p.shortSpans(pk.hi[2].spans, pk.hi[2].loaded))
+		}
+		row = append(row, fixed(pk.lo[2].v), fixed(pk.lo[2].x), p.comboName(pk.lo[2].by))
+		if patterned {
+			row = append(row, p.shortSpans(pk.lo[2].spans, pk.lo[2].loaded))
+		}
+		row = append(row, fixed(v.v), fixed(v.x), p.comboName(v.by))
+		rows = append(rows, row)
+	}
+	out := []Table{{g.title, header, rows}}
+	if !p.res.HasFaces(g.Members) {
+		return out
+	}
+	header = []string{"beam", "support", "M min, centreline (" + moment + ")", "governing", "M min, face (" + moment + ")", "face at x", "governing",
+		"|V| centreline (" + force + ")", "|V| face (" + force + ")", "governing"}
+	return append(out, Table{g.title + ": at the supports, centreline and column face", header, p.supportRows(g.Members)})
+}
+
+func columnHeader(force, moment string) []string {
+	return []string{"member", "N max (" + force + ")", "with M", "governing", "N min (" + force + ")", "with M", "governing", "|M| (" + moment + ")", "at x", "governing", "|V| (" + force + ")", "governing"}
+}
+
+// columnRows gives, per member, the largest tension and compression (N is
+// positive in tension) with the moment acting with each, and the largest
+// moment and shear in magnitude.
+func (p *Report) columnRows(members []int) [][]string {
+	mo := p.model()
+	var rows [][]string
+	for _, m := range members {
+		pk := memberPeaks(p.shown(m))
+		mm, v := pk.largest(2), pk.largest(1)
+		rows = append(rows, []string{mo.Members[m].Name,
+			fixed(pk.hi[0].v), fixed(pk.hi[0].with[2]), p.comboName(pk.hi[0].by),
+			fixed(pk.lo[0].v), fixed(pk.lo[0].with[2]), p.comboName(pk.lo[0].by),
+			fixed(mm.v), fixed(mm.x), p.comboName(mm.by),
+			fixed(v.v), p.comboName(v.by)})
+	}
+	return rows
+}
+
+// largestShear returns the larger magnitude of a station's shear extremes
+// and the combination that gives it.
+func largestShear(s envelope.Station) (float64, int) {
+	if -s.V.Min > s.V.Max {
+		return -s.V.Min, s.V.MinBy
+	}
+	return s.V.Max, s.V.MaxBy
+}
+
+// supportRows gives, for each end of each beam, the least moment (hogging
+// negative) and the largest shear at the centreline of the support and at
+// the column face beside each other; "-" where an end has no face.
+func (p *Report) supportRows(beams []int) [][]string {
+	mo := p.model()
+	var rows [][]string
+	for _, m := range beams {
+		em := p.shown(m)
+		at := p.res.ShownFaces(m)
+		from, to := analysis.ShownEnds(mo, m)
+		for end, node := range [2]int{from, to} {
+			cl := em.Stations[0]
+			if end == 1 {
+				cl = em.Stations[len(em.Stations)-1]
+			}
+			vcl, _ := largestShear(cl)
+			row := []string{mo.Members[m].Name, mo.Nodes[node].Name, fixed(cl.M.Min), p.comboName(cl.M.MinBy)}
+			if f, ok := analysis.FaceStation(em, at, end); ok {
+				vf, vby := largestShear(f)
+				row = append(row, fixed(f.M.Min), fixed(f.X), p.comboName(f.M.MinBy), fixed(vcl), fixed(vf), p.comboName(vby))
+			} else {
+				row = append(row, "-", "-", "-", fixed(vcl), "-", "-")
+			}
+			rows = append(rows, row)
+		}
+	}
+	return rows
+}
+
+// reactionTable gives the envelope of every restrained reaction component;
+// nil without supports.
+func (p *Report) reactionTable() *Table {
+	env := p.res.Envelope
+	if len(env.Reactions) == 0 {
+		return nil
+	}
+	mo := p.model()
+	u := p.units()
+	var rows [][]string
+	for _, r := range env.Reactions {
+		node := mo.Nodes[r.Node]
+		name := node.Name
+		for d, e := range []struct {
+			label string
+			x     envelope.Extreme
+		}{{"Fx (" + u.Force + ")", r.Fx}, {"Fy (" + u.Force + ")", r.Fy}, {"M (" + u.Moment() + ")", r.M}} {
+			if !node.Support.Restrained(d) {
+				continue
+			}
+			rows = append(rows, []string{name, e.label, fixed(e.x.Max), p.comboName(e.x.MaxBy), fixed(e.x.Min), p.comboName(e.x.MinBy)})
+			name = ""
+		}
+	}
+	return &Table{"Reactions (global: +X right, +Y up, M counter-clockwise)", []string{"node", "component", "max", "governing", "min", "governing"}, rows}
+}
+
+// spanName names a span or cantilever by its end nodes, left to right.
+func (p *Report) spanName(s *analysis.Span) string {
+	return p.model().Nodes[s.Left].Name + "–" + p.model().Nodes[s.Right].Name
+}
+
+// spanMembers lists the members of a span: all of up to three, else the
+// first and the last and how many.
+func (p *Report) spanMembers(s *analysis.Span) string {
+	mo := p.model()
+	if len(s.Members) <= 3 {
+		names := make([]string, len(s.Members))
+		for i, m := range s.Members {
+			names[i] = mo.Members[m].Name
+		}
+		return strings.Join(names, " ")
+	}
+	return fmt.Sprintf("%s … %s (%d)", mo.Members[s.Members[0]].Name, mo.Members[s.Members[len(s.Members)-1]].Name, len(s.Members))
+}
+
+// deflectionTable gives, span by span and cantilever by cantilever, the
+// largest downward and upward deflection over the service combinations and
+// span/deflection; nil without service combinations or spans.
+func (p *Report) deflectionTable() *Table {
+	if p.service() == 0 || len(p.res.Spans) == 0 {
+		return nil
+	}
+	mo := p.model()
+	u := p.units()
+	levels := patterns.Spans(mo)
+	var rows [][]string
+	for i := range p.res.Spans {
+		r := &p.res.Spans[i]
+		s := r.Deflection
+		if !s.Found {
+			continue
+		}
+		kind, level := "span", "-"
+		if r.Cantilever {
+			kind = "cantilever"
+		}
+		if r.Beam {
+			level = strconv.Itoa(levels[r.Members[0]].Level)
+		}
+		row := []string{p.spanName(r), kind, p.spanMembers(r), level, fixed(r.Length)}
+		// A span that never moves one way has nothing to show for it.
+		if s.Down.V < 0 {
+			row = append(row, sig4(s.Down.V), fixed(s.Down.X), p.comboName(s.Down.By))
+		} else {
+			row = append(row, "0", "-", "-")
+		}
+		if s.Up.V > 0 {
+			row = append(row, sig4(s.Up.V), fixed(s.Up.X), p.comboName(s.Up.By))
+		} else {
+			row = append(row, "0", "-", "-")
+		}
+		rows = append(rows, append(row, ratio(s.Ratio)))
+	}
+	l := u.Length
+	title := fmt.Sprintf("Deflection of spans and cantilevers, service combinations (+ up, in %s; x from the left end): spans from the chord between their displaced ends, cantilevers from their displaced root", l)
+	return &Table{title, []string{"span", "kind", "members", "level", "length (" + l + ")", "down (" + l + ")", "at x", "governing", "up (" + l + ")", "at x", "governing", "span/deflection (cantilever: 2 × length)"}, rows}
+}
+
+// staticsTable gives the statics check of every case, with the note
+// above it.
+func (p *Report) staticsTable() (string, Table) {
+	bs := p.res.Statics
+	u := p.units()
+	limit := analysis.StaticsLimit
+	if len(bs) > 0 {
+		limit = bs[0].Limit()
+	}
+	about := "the global origin"
+	if len(bs) > 0 && (bs[0].X0 != 0 || bs[0].Y0 != 0) {
+		about = fmt.Sprintf("(%s, %s), the lower left corner of the frame", shortest(bs[0].X0), shortest(bs[0].Y0))
+	}
+	note := fmt.Sprintf("\nStatics check of each load case: sums about %s, forces in %s, moments in %s;\n"+
+		"largest joint residual as force / moment; out of balance as a fraction of the load, limit %.2g", about, u.Force, u.Moment(), limit)
+	var rows [][]string
+	for _, b := range bs {
+		check := "ok"
+		if !b.OK() {
+			check = "FAIL"
+		}
+		rows = append(rows, []string{b.Case, fixed(b.Applied.Fx), fixed(b.Reactions.Fx), fixed(b.Applied.Fy), fixed(b.Reactions.Fy),
+			fixed(b.Applied.M), fixed(b.Reactions.M), sci(b.JointForce) + " / " + sci(b.JointMoment), sci(b.Relative()), check})
+	}
+	return note, Table{"", []string{"case", "loads ΣFx", "reactions ΣFx", "loads ΣFy", "reactions ΣFy", "loads ΣM", "reactions ΣM", "joint residual", "out of balance", "check"}, rows}
+}

@@ -1,0 +1,34 @@
+// Package report writes the results of an analysis (package
+// envelope/analysis) in each output format, one file per format: terminal
+// tables (text.go), JSON (json.go), CSV (csv.go), one self-contained HTML
+// page (html.go) with the frame and its envelopes drawn in SVG (svg.go);
+// and the listings that go with them: the combinations of a job
+// (combos.go), what a model describes (check.go), the comparison of
+// pattern arrangements (compare.go), the cross-check by moment
+// distribution (crosscheck.go) and the verification suite (verify.go).
+//
+// The design values (per floor, column line and the other members; the
+// supports with column faces; the deflections of spans and cantilevers;
+// the reactions; the statics check) are formed once as [Table]s
+// (design.go) and rendered by the terminal and the HTML page alike. Every
+// number is formatted in format.go; text from the model reaches the
+// terminal only through [Escape] (escape.go); CSV cells that a spreadsheet
+// would take for formulas are written as text.
+//
+// # Units and signs
+//
+// Numbers keep the job's units, whose labels head every column: forces in
+// its force unit, moments in force·length, distances and deflections in
+// its length unit. The terminal tables and the page show each beam or
+// rafter from its left end, +M sagging and deflections positive up
+// (analysis.Result.Shown), and columns from their start node with M
+// positive with their local −y face in tension; the JSON and the CSV keep
+// each member's own axes (package frame's conventions); reactions are
+// global. docs/output.md describes every format.
+//
+// # What is never mutated
+//
+// The writers read the result and the job and never modify them; the
+// writers of one [Report] may run at once. The same result always gives
+// the same bytes. Every output carries the caution ([Caution]).
+package report

@@ -1,0 +1,279 @@
+package report
+
+import (
+	"bufio"
+	"encoding/json"
+	"fmt"
+	"io"
+	"math"
+	"strconv"
+
+	"govern/envelope"
+	"govern/frame"
+)
+
+// JSONFormat names the layout of the JSON output; it changes when the layout does.
+const JSONFormat = "govern.envelopes/2"
+
+// jsonSigns says, in the JSON itself, what its signs are: the members' own.
+const jsonSigns = "member-local: x from each member's start node; N positive in tension; M positive with the member's local -y face in tension; V = dM/dx; deflection along the member's local y, from its chord. Spans: deflection positive up, x from the left end. Reactions: global."
+
+// WriteJSON writes the envelopes in the govern.envelopes/2 layout (see
+// docs/output.md). It streams: a large frame's envelopes are written as
+// they are formatted, one station to a line, without building the document
+// in memory. Names are encoded once and reused. The same result always
+// gives the same bytes.
+func (p *Report) WriteJSON(w io.Writer) error {
+	job, mo, env := p.job(), p.model(), p.res.Envelope
+	j := &jsonWriter{w: bufio.NewWriterSize(w, 1<<16)}
+	combo := make([][]byte, len(env.Combinations))
+	for i, cb := range env.Combinations {
+		combo[i] = quote(cb.Name)
+	}
+	piece := make([][]byte, len(env.Pieces))
+	for i, pc := range env.Pieces {
+		piece[i] = quote(pc.Name)
+	}
+	j.raw("{\n \"format\": ").str(JSONFormat)
+	j.raw(",\n \"title\": ").str(job.Title)
+	j.raw(",\n \"units\": {\"force\": ").str(job.Units.Force).raw(", \"length\": ").str(job.Units.Length).raw("}")
+	j.raw(",\n \"signs\": ").str(jsonSigns)
+	j.raw(",\n \"settings\": {\"stations\": ").int(env.Settings.Stations)
+	j.raw(", \"variable_loads\": ").str(variableLoads(env.Settings.AsWritten))
+	j.raw(", \"patterns\": ").str(p.res.Patterns.String()).raw(", \"segments\": ").int(p.res.Segments)
+	j.raw(", \"patterned_cases\": [")
+	for i, c := range job.Patterned {
+		j.sep(i, ", ").str(mo.Cases[c].Name)
+	}
+	j.raw("]}")
+	if p.conditionNote() != "" {
+		c := p.res.Condition()
+		j.raw(",\n \"condition\": {\"estimate\": ").num(c).raw(", \"digits_lost\": ").num(math.Round(math.Log10(c)))
+		j.raw(", \"accepted\": ").boolean(c > frame.RefuseCond).raw("}")
+	}
+	j.raw(",\n \"combinations\": [")
+	for i, cb := range env.Combinations {
+		j.sep(i, ",").raw("\n  {\"name\": ").bytes(combo[i]).raw(", \"factors\": {")
+		// Factors by case, in case order, summed where a case repeats.
+		n := 0
+		for c := range mo.Cases {
+			f, has := 0.0, false
+			for _, t := range cb.Terms {
+				if t.Case == c {
+					f, has = f+t.Factor, true
+				}
+			}
+			if has {
+				j.sep(n, ", ").str(mo.Cases[c].Name).raw(": ").num(f)
+				n++
+			}
+		}
+		j.raw("}, \"service\": ").boolean(cb.Service).raw("}")
+	}
+	j.raw("\n ],\n \"members\": [")
+	ext := func(name string, e envelope.Extreme, with [3]string) {
+		j.raw("\"").raw(name).raw("\": {\"max\": ").num(e.Max).raw(", \"max_by\": ").bytes(nameOf(combo, e.MaxBy))
+		j.raw(", \"max_spans\": ").list(piece, e.MaxSpans).raw(", \"max_loaded\": ").int(e.MaxLoaded).raw(", \"max_with\": ").forces(with, e.MaxWith)
+		j.raw(", \"min\": ").num(e.Min).raw(", \"min_by\": ").bytes(nameOf(combo, e.MinBy))
+		j.raw(", \"min_spans\": ").list(piece, e.MinSpans).raw(", \"min_loaded\": ").int(e.MinLoaded).raw(", \"min_with\": ").forces(with, e.MinWith).raw("}")
+	}
+	defl := func(e envelope.Extreme) {
+		j.raw("\"deflection\": {\"max\": ").num(e.Max).raw(", \"max_by\": ").bytes(nameOf(combo, e.MaxBy))
+		j.raw(", \"max_spans\": ").list(piece, e.MaxSpans).raw(", \"max_loaded\": ").int(e.MaxLoaded)
+		j.raw(", \"min\": ").num(e.Min).raw(", \"min_by\": ").bytes(nameOf(combo, e.MinBy))
+		j.raw(", \"min_spans\": ").list(piece, e.MinSpans).raw(", \"min_loaded\": ").int(e.MinLoaded).raw("}")
+	}
+	for i, em := range env.Members {
+		m := mo.Members[em.Member]
+		j.sep(i, ",").raw("\n  {\"name\": ").str(m.Name).raw(", \"start\": ").str(mo.Nodes[m.Start].Name)
+		j.raw(", \"end\": ").str(mo.Nodes[m.End].Name).raw(", \"length\": ").num(mo.Length(em.Member))
+		j.raw(", \"stations\": [")
+		for k, st := range em.Stations {
+			j.sep(k, ",").raw("\n   {\"x\": ").num(st.X).raw(", ")
+			if st.Extra {
+				j.raw("\"face\": true, ")
+			}
+			ext("N", st.N, memberForces)
+			j.raw(", ")
+			ext("V", st.V, memberForces)
+			j.raw(", ")
+			ext("M", st.M, memberForces)
+			if em.Deflection != nil {
+				j.raw(", ")
+				defl(em.Deflection[k])
+			}
+			j.raw("}")
+		}
+		j.raw("\n  ]}")
+	}
+	j.raw("\n ]")
+	if len(env.Service) > 0 {
+		p.jsonSpans(j, combo)
+	}
+	j.raw(",\n \"reactions\": [")
+	for i, r := range env.Reactions {
+		// Only the components the support restrains, in "with" too.
+		sup := mo.Nodes[r.Node].Support
+		var keys [3]string
+		for d, k := range reactionForces {
+			if sup.Restrained(d) {
+				keys[d] = k
+			}
+		}
+		j.sep(i, ",").raw("\n  {\"node\": ").str(mo.Nodes[r.Node].Name)
+		for d, e := range [3]envelope.Extreme{r.Fx, r.Fy, r.M} {
+			if keys[d] != "" {
+				j.raw(", ")
+				ext(keys[d], e, keys)
+			}
+		}
+		j.raw("}")
+	}
+	j.raw("\n ],\n \"statics\": [")
+	for i, b := range p.res.Statics {
+		res := func(r frame.Resultant) {
+			j.raw("{\"Fx\": ").num(r.Fx).raw(", \"Fy\": ").num(r.Fy).raw(", \"M\": ").num(r.M).raw("}")
+		}
+		j.sep(i, ",").raw("\n  {\"case\": ").str(b.Case).raw(", \"loads\": ")
+		res(b.Applied)
+		j.raw(", \"reactions\": ")
+		res(b.Reactions)
+		j.raw(", \"joint_residual\": {\"force\": ").num(b.JointForce).raw(", \"moment\": ").num(b.JointMoment).raw("}")
+		j.raw(", \"relative\": ").num(b.Relative()).raw(", \"limit\": ").num(b.Limit())
+		if b.OK() {
+			j.raw(", \"ok\": true}")
+		} else {
+			j.raw(", \"ok\": false}")
+		}
+	}
+	j.raw("\n ],\n \"caution\": ").str(Caution).raw("\n}\n")
+	if j.err != nil {
+		return j.err
+	}
+	return j.w.Flush()
+}
+
+// jsonSpans writes the spans and cantilevers with their deflections.
+func (p *Report) jsonSpans(j *jsonWriter, combo [][]byte) {
+	mo := p.model()
+	j.raw(",\n \"spans\": [")
+	n := 0
+	for i := range p.res.Spans {
+		r := &p.res.Spans[i]
+		s := r.Deflection
+		if !s.Found {
+			continue
+		}
+		kind := "span"
+		if r.Cantilever {
+			kind = "cantilever"
+		}
+		j.sep(n, ",").raw("\n  {\"kind\": ").str(kind).raw(", \"left\": ").str(mo.Nodes[r.Left].Name).raw(", \"right\": ").str(mo.Nodes[r.Right].Name)
+		if r.Cantilever {
+			j.raw(", \"root\": ").str(mo.Nodes[r.Root].Name)
+		}
+		j.raw(", \"members\": [")
+		for k, m := range r.Members {
+			j.sep(k, ", ").str(mo.Members[m].Name)
+		}
+		j.raw("], \"length\": ").num(r.Length)
+		j.raw(", \"deflection\": ").num(s.Largest.V).raw(", \"x\": ").num(s.Largest.X).raw(", \"by\": ").bytes(nameOf(combo, s.Largest.By))
+		if !math.IsInf(s.Ratio, 0) {
+			j.raw(", \"ratio\": ").num(s.Ratio)
+		}
+		j.raw(", \"ratio_length\": ").num(r.RatioLength()).raw("}")
+		n++
+	}
+	j.raw("\n ]")
+}
+
+func nameOf(names [][]byte, k int) []byte {
+	if k < 0 {
+		return []byte(`""`)
+	}
+	return names[k]
+}
+
+// quote returns s as a JSON string.
+func quote(s string) []byte {
+	b, _ := json.Marshal(s) // a string always marshals
+	return b
+}
+
+// jsonWriter appends JSON pieces to a buffered writer, keeping the first error.
+type jsonWriter struct {
+	w   *bufio.Writer
+	err error
+	buf []byte
+}
+
+func (j *jsonWriter) raw(s string) *jsonWriter {
+	if j.err == nil {
+		_, j.err = j.w.WriteString(s)
+	}
+	return j
+}
+
+func (j *jsonWriter) bytes(b []byte) *jsonWriter {
+	if j.err == nil {
+		_, j.err = j.w.Write(b)
+	}
+	return j
+}
+
+func (j *jsonWriter) str(s string) *jsonWriter { return j.bytes(quote(s)) }
+
+func (j *jsonWriter) boolean(b bool) *jsonWriter {
+	if b {
+		return j.raw("true")
+	}
+	return j.raw("false")
+}
+
+func (j *jsonWriter) int(n int) *jsonWriter { return j.raw(strconv.Itoa(n)) }
+
+// sep writes s before every element but the first.
+func (j *jsonWriter) sep(i int, s string) *jsonWriter {
+	if i > 0 {
+		j.raw(s)
+	}
+	return j
+}
+
+// num writes a number to outputDigits significant digits (see appendNum).
+// A value that is not a finite number is never written: the analysis
+// refuses such results (envelope.Compute), and one reaching here is an
+// error, so that no file holds a null in its place.
+func (j *jsonWriter) num(v float64) *jsonWriter {
+	if math.IsNaN(v) || math.IsInf(v, 0) {
+		if j.err == nil {
+			j.err = fmt.Errorf("a value to write is %v, not a finite number", v)
+		}
+		return j
+	}
+	j.buf = appendNum(j.buf[:0], v)
+	return j.bytes(j.buf)
+}
+
+func (j *jsonWriter) list(names [][]byte, idx []int) *jsonWriter {
+	j.raw("[")
+	for i, p := range idx {
+		j.sep(i, ", ").bytes(names[p])
+	}
+	return j.raw("]")
+}
+
+// forces writes v as an object with the given keys; an empty key leaves
+// its value out.
+func (j *jsonWriter) forces(keys [3]string, v [3]float64) *jsonWriter {
+	j.raw("{")
+	n := 0
+	for i, k := range keys {
+		if k == "" {
+			continue
+		}
+		j.sep(n, ", ").raw("\"").raw(k).raw("\": ").num(v[i])
+		n++
+	}
+	return j.raw("}")
+}

@@ -1,0 +1,158 @@
+package report
+
+import (
+	"fmt"
+	"math"
+	"strings"
+	"sync"
+
+	"govern/envelope"
+	"govern/envelope/analysis"
+	"govern/frame"
+)
+
+// Caution is printed with every result: in the terminal tables, the JSON
+// and the report, and in the command's help.
+const Caution = "Results are for checking by a qualified engineer. They do not replace the governing local code or licensed professional practice."
+
+// Report renders the results of one analysis in each output format:
+// terminal tables (WriteText), JSON (WriteJSON), CSV (WriteCSV) and one
+// HTML page with drawings (WriteHTML). The tables of design values that
+// the terminal and the page both show are formed once, on first use. Its
+// writers may run at once, and never modify the result.
+type Report struct {
+	res *analysis.Result
+
+	once   sync.Once
+	design *design
+}
+
+// New returns the report of res.
+func New(res *analysis.Result) *Report { return &Report{res: res} }
+
+// job and env are shorthands.
+func (p *Report) job() *analysis.Job          { return p.res.Job }
+func (p *Report) model() *frame.Model         { return p.res.Job.Model }
+func (p *Report) units() analysis.Units       { return p.res.Job.Units }
+func (p *Report) pieces() int                 { return len(p.res.Envelope.Pieces) }
+func (p *Report) service() int                { return len(p.res.Envelope.Service) }
+func (p *Report) combinations() int           { return len(p.res.Envelope.Combinations) }
+func (p *Report) shown(m int) envelope.Member { return p.res.Shown(m) }
+
+// tables returns the design-value tables, formed on first use.
+func (p *Report) tables() *design {
+	p.once.Do(func() { p.design = newDesign(p) })
+	return p.design
+}
+
+// comboName names combination k; "" for none (-1).
+func (p *Report) comboName(k int) string {
+	if k < 0 {
+		return ""
+	}
+	return p.res.Envelope.Combinations[k].Name
+}
+
+// spanNames names the pattern pieces of an extreme; never nil.
+func (p *Report) spanNames(idx []int) []string {
+	out := make([]string, len(idx))
+	for i, k := range idx {
+		out[i] = p.res.Envelope.Pieces[k].Name
+	}
+	return out
+}
+
+// shortSpans lists at most three of the pieces loaded, then how many
+// more are loaded.
+func (p *Report) shortSpans(idx []int, loaded int) string {
+	names := p.spanNames(idx)
+	if len(names) == 0 {
+		return "-"
+	}
+	if len(names) > 3 {
+		names = names[:3]
+	}
+	if more := loaded - len(names); more > 0 {
+		names = append(names, fmt.Sprintf("+%d", more))
+	}
+	return strings.Join(names, " ")
+}
+
+// combinationCount says how many combinations there are, and how many are
+// strength and service ones when there are both.
+func (p *Report) combinationCount() string {
+	n, s := p.combinations(), p.service()
+	if s == 0 || s == n {
+		return fmt.Sprintf("%d combinations", n)
+	}
+	return fmt.Sprintf("%d combinations (%d strength, %d service)", n, n-s, s)
+}
+
+// overStrength is " over the strength combinations" when the model has
+// both strength and service combinations, else "".
+func (p *Report) overStrength() string {
+	if s := p.service(); s > 0 && s < p.combinations() {
+		return " over the strength combinations"
+	}
+	return ""
+}
+
+// patternedNames lists the names of the patterned cases.
+func (p *Report) patternedNames() []string {
+	var names []string
+	for _, c := range p.job().Patterned {
+		names = append(names, p.model().Cases[c].Name)
+	}
+	return names
+}
+
+// placement describes how the patterned cases were placed, such as
+// "exact placement, 15 pieces (1 per beam)".
+func (p *Report) placement() string {
+	return fmt.Sprintf("%s placement, %d pieces (%d per beam)", p.res.Patterns, p.pieces(), p.res.Segments)
+}
+
+// conditionNote says, when the stiffness matrix is ill-conditioned enough
+// to warn about, its estimated condition number and what it costs; every
+// output carries it then. It is "" otherwise.
+func (p *Report) conditionNote() string {
+	c := p.res.Condition()
+	if !(c > frame.WarnCond) {
+		return ""
+	}
+	accepted := ""
+	if c > frame.RefuseCond {
+		accepted = fmt.Sprintf(", above the limit %.0e: solved only because --accept-ill-conditioned was given", frame.RefuseCond)
+	}
+	return fmt.Sprintf("Ill-conditioned stiffness matrix: estimated condition number %.2g%s; results may have lost about %.0f of their 16 significant digits.", c, accepted, math.Log10(c))
+}
+
+func variableLoads(asWritten bool) string {
+	if asWritten {
+		return "as-written"
+	}
+	return "adverse"
+}
+
+var (
+	memberForces   = [3]string{"N", "V", "M"}
+	reactionForces = [3]string{"Fx", "Fy", "M"}
+)
+
+// census counts the supported nodes, the beams and the columns of mo.
+func census(mo *frame.Model) (supported, beams, columns int) {
+	for _, n := range mo.Nodes {
+		if n.Support != frame.Free {
+			supported++
+		}
+	}
+	for m := range mo.Members {
+		switch {
+		case mo.IsBeam(m):
+			beams++
+		case mo.IsColumn(m):
+			columns++
+		}
+	}
+	return supported, beams, columns
+}

@@ -1,0 +1,138 @@
+package report
+
+import (
+	"fmt"
+	"io"
+	"strings"
+
+	"github.com/olekukonko/tablewriter"
+	"github.com/olekukonko/tablewriter/tw"
+)
+
+// tables receives notes and titled tables: the terminal renders them as
+// text, the report as HTML.
+type tables interface {
+	note(text string) error
+	table(t Table) error
+}
+
+// textTables renders tables as text with box-drawing rules.
+type textTables struct{ w io.Writer }
+
+func (t textTables) note(text string) error {
+	_, err := fmt.Fprintf(t.w, "%s\n", EscapeLines(text))
+	return err
+}
+
+func (t textTables) table(tb Table) error {
+	if tb.Title != "" {
+		fmt.Fprintf(t.w, "\n%s\n", Escape(tb.Title))
+	}
+	return renderTable(t.w, tb.Header, tb.Rows)
+}
+
+// newTable starts a text table for the terminal. Every cell of its header
+// and rows is escaped (Escape), whoever fills it.
+func newTable(w io.Writer, header ...string) *tablewriter.Table {
+	cells := tw.CellFilter{Global: escapeCells}
+	t := tablewriter.NewTable(w,
+		tablewriter.WithHeaderAutoFormat(tw.Off),
+		tablewriter.WithRowAlignment(tw.AlignRight),
+		tablewriter.WithHeaderAlignment(tw.AlignCenter),
+		tablewriter.WithHeaderFilter(cells),
+		tablewriter.WithRowFilter(cells),
+	)
+	t.Header(toAny(header)...)
+	return t
+}
+
+// renderTable writes a text table of the header and rows.
+func renderTable(w io.Writer, header []string, rows [][]string) error {
+	t := newTable(w, header...)
+	if err := t.Bulk(rows); err != nil {
+		return err
+	}
+	return t.Render()
+}
+
+// escapeCells returns the cells of a table row escaped, for newTable. The
+// row itself is left as it is: the report renders the same rows.
+func escapeCells(cells []string) []string {
+	out := make([]string, len(cells))
+	for i, c := range cells {
+		out[i] = Escape(c)
+	}
+	return out
+}
+
+func toAny(s []string) []any {
+	out := make([]any, len(s))
+	for i, v := range s {
+		out[i] = v
+	}
+	return out
+}
+
+// WriteText writes what the terminal shows of a run: what was analysed,
+// the design values floor by floor and column line by column line, the
+// deflections of spans and cantilevers, the reactions, the statics check,
+// with crossCheck the cross-check by moment distribution, and the caution.
+// Text from the model is escaped (Escape).
+func (p *Report) WriteText(w io.Writer, crossCheck bool) error {
+	p.writeHeading(w)
+	tb := textTables{w}
+	d := p.tables()
+	if err := tb.note(d.governing); err != nil {
+		return err
+	}
+	for _, g := range d.groups {
+		for _, t := range g.tables {
+			if err := tb.table(t); err != nil {
+				return err
+			}
+		}
+	}
+	for _, t := range []*Table{d.deflection, d.reactions} {
+		if t != nil {
+			if err := tb.table(*t); err != nil {
+				return err
+			}
+		}
+	}
+	if err := tb.note(d.staticsTop); err != nil {
+		return err
+	}
+	if err := tb.table(d.statics); err != nil {
+		return err
+	}
+	if crossCheck {
+		if err := p.writeCrossCheck(w); err != nil {
+			return err
+		}
+	}
+	_, err := fmt.Fprintf(w, "\n%s\n", Caution)
+	return err
+}
+
+// writeHeading prints what was analysed.
+func (p *Report) writeHeading(w io.Writer) {
+	job, mo, env := p.job(), p.model(), p.res.Envelope
+	if job.Title != "" {
+		fmt.Fprintf(w, "%s\n", Escape(job.Title))
+	}
+	fmt.Fprintf(w, "%d nodes, %d members, %d equations; %d load cases, %s; %d stations per member; variable loads %s\n",
+		len(mo.Nodes), len(mo.Members), p.res.Info.Equations, len(mo.Cases), p.combinationCount(), env.Settings.Stations, variableLoads(env.Settings.AsWritten))
+	if n := p.res.FaceCount(); n > 0 {
+		fmt.Fprintf(w, "Column faces: %d beam ends get a station at the face of the column they frame into (section depth)\n", n)
+	}
+	if names := p.patternedNames(); len(names) > 0 {
+		for i := range names {
+			names[i] = Escape(names[i])
+		}
+		fmt.Fprintf(w, "Patterned cases %s: %s\n", strings.Join(names, ", "), p.placement())
+	}
+	if note := p.conditionNote(); note != "" {
+		fmt.Fprintf(w, "%s\n", note)
+	}
+	fmt.Fprintf(w, "Units: force %s, length %s. N tension positive; beams: x from the left end, M sagging positive (lower face in tension); columns: local -y face in tension; V = dM/dx.\n\n", Escape(job.Units.Force), Escape(job.Units.Length))
+}
