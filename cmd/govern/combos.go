@@ -4,8 +4,8 @@ import (
 	"flag"
 	"io"
 
-	"govern/cmd/govern/internal/files"
 	"govern/envelope/report"
+	"govern/envelope/report/files"
 )
 
 type combosFlags struct {

@@ -5,9 +5,9 @@ import (
 	"flag"
 	"fmt"
 
-	"govern/cmd/govern/internal/files"
 	"govern/cmd/govern/modelfile"
 	"govern/envelope/report"
+	"govern/envelope/report/files"
 )
 
 // demoModel is a fictional five-storey, three-bay office frame.

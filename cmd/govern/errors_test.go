@@ -11,8 +11,8 @@ import (
 	"strings"
 	"testing"
 
-	"govern/cmd/govern/internal/files"
 	"govern/cmd/govern/modelfile"
+	"govern/envelope/report/files"
 	"govern/frame"
 )
 

@@ -11,8 +11,8 @@ import (
 	"sync"
 	"syscall"
 
-	"govern/cmd/govern/internal/files"
 	"govern/envelope/report"
+	"govern/envelope/report/files"
 )
 
 // command is one subcommand of govern.

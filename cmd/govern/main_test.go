@@ -15,8 +15,8 @@ import (
 	"testing"
 	"time"
 
-	"govern/cmd/govern/internal/files"
 	"govern/envelope/report"
+	"govern/envelope/report/files"
 )
 
 // asMain, in the environment, makes the test binary run govern's main

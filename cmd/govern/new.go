@@ -8,9 +8,9 @@ import (
 	"strconv"
 	"strings"
 
-	"govern/cmd/govern/internal/files"
 	"govern/cmd/govern/modelfile"
 	"govern/envelope/report"
+	"govern/envelope/report/files"
 )
 
 type newFlags struct {

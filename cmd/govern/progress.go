@@ -8,9 +8,9 @@ import (
 	"sync/atomic"
 	"time"
 
-	"govern/cmd/govern/internal/files"
 	"govern/envelope/analysis"
 	"govern/envelope/report"
+	"govern/envelope/report/files"
 )
 
 // progress keeps a one-line account of a long run on standard error:

@@ -9,10 +9,10 @@ import (
 	"os"
 	"path/filepath"
 
-	"govern/cmd/govern/internal/files"
 	"govern/cmd/govern/modelfile"
 	"govern/envelope/analysis"
 	"govern/envelope/report"
+	"govern/envelope/report/files"
 	"govern/frame"
 )
 

@@ -11,8 +11,8 @@ import (
 	"testing"
 	"time"
 
-	"govern/cmd/govern/internal/files"
 	"govern/envelope/report"
+	"govern/envelope/report/files"
 )
 
 // pipeWait bounds how long a test waits for a reader or a writer at the

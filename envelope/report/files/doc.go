@@ -1,4 +1,4 @@
-// Package files writes the output files of the govern command as one set
+// Package files writes a program's output files as one set
 // (Commit): each regular file to a temporary file beside it, synced, and
 // all renamed into place together under a lock on their folders, so that
 // a failed, interrupted or concurrent run never leaves a partial file nor
@@ -8,6 +8,8 @@
 // is capped at report.MaxOutput bytes. See the "Output files" part of
 // docs/errors.md.
 //
-// It belongs to the command: what it writes is given to it as functions of
-// an io.Writer; it never reads or changes the results they write.
+// What it writes is given to it as functions of an io.Writer; it never
+// reads or changes the results they write. The govern command commits its
+// report, JSON and CSV through it; any program writing the outputs of
+// package report can do the same.
 package files
