@@ -77,8 +77,12 @@ func (pl *codePlacement) pieces(e *evaluator, w *work, l *spanList, k, p, j int,
 // chosen for effect j, largest (hi) or smallest, where p's factor is f,
 // and whether it acts: with variable loads adverse, an arrangement that
 // would relieve the effect is left off, and one whose effect is round-off
-// is not loaded.
+// is not loaded. A case with no load on any beam has no arrangement: only
+// its rest acts.
 func (pl *codePlacement) unit(e *evaluator, w *work, p, j int, f float64, hi bool) (int, bool) {
+	if len(e.lay.Patterned[p].Units) == 0 {
+		return 0, false
+	}
 	want := hi == (f >= 0) // the largest unfactored effect is wanted
 	i := pl.best[p][j][sign(want)]
 	v := w.ev[e.first[p]+i]
