@@ -66,14 +66,15 @@ func newEvaluator(mo *frame.Model, cs []combos.Combination, idx []int, nEff int,
 
 // work is one goroutine's scratch space.
 type work struct {
-	// The current member, filled by evaluate: its stations and the value
-	// of every column at each of them, column by column (c*len(xs)+i).
+	// The current member, filled by evaluate: its stations and the values
+	// of every column at each of them (column c at station i is entry
+	// c*len(xs)+i of at, defl and line).
 	xs    []float64      // station positions
 	extra []bool         // whether each was asked for by Settings.Extra
 	at    []frame.Forces // forces
 	defl  []float64      // deflections relative to the chord
 	line  []float64      // deflections across the member's line
-	start []frame.Forces // point loads at the member's start
+	start []frame.Forces // each column's point loads at the member's start
 	// What counts as round-off in the member (see roundOff): for N, V, M,
 	// for the deflection and for the deflection across its line.
 	noiseAt              [3]float64
@@ -89,6 +90,8 @@ type work struct {
 	limit int         // most pieces listed: maxSpans, or unlimited with AllSpans
 }
 
+// scratch returns scratch space for one goroutine enveloping with e, with
+// its own placement, chosen from the layout's mode.
 func (e *evaluator) scratch() *work {
 	w := &work{ev: make([][3]float64, e.nOrig), place: newPlacement(e), share: spanShare, limit: maxSpans}
 	if e.lay != nil {
