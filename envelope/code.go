@@ -8,12 +8,16 @@ import "math"
 // smallest, acting only where adverse unless as written.
 type codePlacement struct {
 	// Per patterned case and effect, the unit with the largest (0) and
-	// the smallest (1) effect at the station.
+	// the smallest (1) effect at the station; -1 for a case without units.
 	best [][3][2]int
 }
 
 func (pl *codePlacement) scan(e *evaluator, w *work) {
 	for p, pc := range e.lay.Patterned {
+		if len(pc.Units) == 0 {
+			pl.best[p] = [3][2]int{{-1, -1}, {-1, -1}, {-1, -1}}
+			continue
+		}
 		units := w.ev[e.first[p] : e.first[p]+len(pc.Units)]
 		for j := range e.nEff {
 			hi, lo := 0, 0
@@ -80,11 +84,11 @@ func (pl *codePlacement) pieces(e *evaluator, w *work, l *spanList, k, p, j int,
 // is not loaded. A case with no load on any beam has no arrangement: only
 // its rest acts.
 func (pl *codePlacement) unit(e *evaluator, w *work, p, j int, f float64, hi bool) (int, bool) {
-	if len(e.lay.Patterned[p].Units) == 0 {
-		return 0, false
-	}
 	want := hi == (f >= 0) // the largest unfactored effect is wanted
 	i := pl.best[p][j][sign(want)]
+	if i < 0 {
+		return i, false
+	}
 	v := w.ev[e.first[p]+i]
 	if math.Abs(v[j]) <= w.noise[j] {
 		return i, false // round-off: not loaded
