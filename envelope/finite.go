@@ -45,7 +45,7 @@ func (e *evaluator) nonFinite(w *work, what func(q int) string) error {
 	for k := range e.cs {
 		for j := range e.nEff {
 			for _, hi := range [2]bool{true, false} {
-				v := e.contrib(w, k, j, hi)
+				v := w.place.combine(e, w, k, j, hi)
 				for q := range e.nEff {
 					if !finite(v[q]) {
 						return fmt.Errorf("combination %q: %s is %v, %w: a factor or a load is too large", e.cs[k].Name, what(q), v[q], ErrNotFinite)

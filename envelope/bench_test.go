@@ -1,0 +1,90 @@
+package envelope
+
+import (
+	"fmt"
+	"testing"
+
+	"govern/combos"
+	"govern/frame"
+	"govern/patterns"
+)
+
+// regularFrame is a frame of equal bays and storeys on fixed bases, with
+// dead load (case D) on every beam, a live load (L) on the floor beams
+// with a point load at a third of each span, a roof live load (Lr) on the
+// roof beams and wind (W) at every floor: a frame of the size and loading
+// of an office building, for the benchmarks.
+func regularFrame(bays, storeys int) *frame.Model {
+	mo := &frame.Model{Sections: []frame.Section{{Name: "C", E: 30e6, A: 0.16, I: 2.1e-3}, {Name: "B", E: 30e6, A: 0.2, I: 4e-3}}}
+	const bay, storey = 7.2, 3.6
+	id := func(i, j int) int { return j*(bays+1) + i }
+	for j := 0; j <= storeys; j++ {
+		for i := 0; i <= bays; i++ {
+			s := frame.Free
+			if j == 0 {
+				s = frame.Fixed
+			}
+			mo.Nodes = append(mo.Nodes, frame.Node{Name: fmt.Sprintf("n%d-%d", i, j), X: float64(i) * bay, Y: float64(j) * storey, Support: s})
+		}
+	}
+	d, l, lr, w := frame.Case{Name: "D"}, frame.Case{Name: "L"}, frame.Case{Name: "Lr"}, frame.Case{Name: "W"}
+	for j := 1; j <= storeys; j++ {
+		for i := 0; i <= bays; i++ {
+			mo.Members = append(mo.Members, frame.Member{Name: fmt.Sprintf("c%d-%d", i, j), Start: id(i, j-1), End: id(i, j)})
+		}
+		for i := 1; i <= bays; i++ {
+			m := len(mo.Members)
+			mo.Members = append(mo.Members, frame.Member{Name: fmt.Sprintf("b%d-%d", i, j), Start: id(i-1, j), End: id(i, j), Section: 1})
+			d.MemberLoads = append(d.MemberLoads, frame.MemberLoad{Member: m, To: bay, W: 25, WEnd: 25})
+			if j < storeys {
+				l.MemberLoads = append(l.MemberLoads, frame.MemberLoad{Member: m, To: bay, W: 15, WEnd: 15},
+					frame.MemberLoad{Member: m, Point: true, At: bay / 3, P: 12})
+			} else {
+				lr.MemberLoads = append(lr.MemberLoads, frame.MemberLoad{Member: m, To: bay, W: 5, WEnd: 5})
+			}
+		}
+		w.NodeLoads = append(w.NodeLoads, frame.NodeLoad{Node: id(0, j), Fx: 10})
+	}
+	mo.Cases = []frame.Case{d, l, lr, w}
+	return mo
+}
+
+// BenchmarkCompute measures Compute alone (the model solved beforehand) at
+// 11 stations per member over the combinations of frameCombos and a
+// service combination D+L, for each way of placing the patterned live
+// loads L and Lr. Exhaustive placement is measured on a frame small enough
+// for it (at most patterns.MaxExhaustive pieces).
+func BenchmarkCompute(b *testing.B) {
+	cs := append(frameCombos(), combos.Combination{Name: "D+L", Service: true, Terms: []combos.Term{{Case: 0, Factor: 1}, {Case: 1, Factor: 1}}})
+	for _, bc := range []struct {
+		mode          patterns.Mode
+		bays, storeys int
+		segments      int
+	}{
+		{patterns.Full, 10, 10, 1},
+		{patterns.Exact, 10, 10, 1},
+		{patterns.Exact, 10, 10, 3},
+		{patterns.Code, 10, 10, 1},
+		{patterns.Exhaustive, 3, 3, 1},
+	} {
+		name := fmt.Sprintf("%s/%dx%d/segments=%d", bc.mode, bc.bays, bc.storeys, bc.segments)
+		b.Run(name, func(b *testing.B) {
+			lay, err := patterns.Expand(regularFrame(bc.bays, bc.storeys), []int{1, 2}, bc.segments, bc.mode)
+			if err != nil {
+				b.Fatal(err)
+			}
+			sol, err := frame.Solve(lay.Model)
+			if err != nil {
+				b.Fatal(err)
+			}
+			set := Settings{Kinds: kindsOf(sol, lay), Stations: 11}
+			b.ReportAllocs()
+			b.ResetTimer()
+			for b.Loop() {
+				if _, err := Compute(sol, cs, set, lay); err != nil {
+					b.Fatal(err)
+				}
+			}
+		})
+	}
+}

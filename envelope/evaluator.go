@@ -1,0 +1,104 @@
+package envelope
+
+import (
+	"fmt"
+	"math"
+
+	"govern/combos"
+	"govern/frame"
+	"govern/patterns"
+)
+
+// evaluator holds what is fixed for one Compute call and one kind of
+// envelope: forces over the strength combinations, or deflections over
+// the service ones.
+type evaluator struct {
+	mo        *frame.Model         // the model solved (the layout's, with patterns)
+	cs        []combos.Combination // the combinations enveloped
+	index     []int                // their indices in the combinations given to Compute
+	nEff      int                  // effects enveloped: 3 (N, V, M) or 1 (deflection)
+	defl      *evaluator           // the deflections' evaluator, nil without service combinations
+	set       Settings
+	lay       *patterns.Layout
+	patterned bool   // the layout has patterned cases
+	nOrig     int    // original cases, leading the columns
+	always    []bool // column acts whatever its sign (permanent, or as written)
+	patternOf []int  // original case → index into lay.Patterned, or -1
+	first     []int  // column of each patterned case's first unit; its units follow in order
+}
+
+func newEvaluator(mo *frame.Model, cs []combos.Combination, idx []int, nEff int, set Settings, lay *patterns.Layout) *evaluator {
+	e := &evaluator{mo: mo, cs: pick(cs, idx), index: idx, nEff: nEff, set: set, lay: lay, nOrig: len(mo.Cases)}
+	if lay != nil {
+		e.patterned = len(lay.Patterned) > 0
+		for _, p := range lay.Patterned {
+			e.nOrig -= len(p.Units)
+		}
+	}
+	if len(set.Kinds) != e.nOrig {
+		panic(fmt.Sprintf("envelope: Settings.Kinds gives %d kinds for %d load cases", len(set.Kinds), e.nOrig))
+	}
+	e.always = make([]bool, len(mo.Cases))
+	for c := range e.nOrig {
+		e.always[c] = set.AsWritten || set.Kinds[c].Permanent()
+	}
+	e.patternOf = make([]int, e.nOrig)
+	for c := range e.patternOf {
+		e.patternOf[c] = -1
+	}
+	if lay != nil {
+		for i, p := range lay.Patterned {
+			e.patternOf[p.Case] = i
+			if len(p.Units) == 0 {
+				e.first = append(e.first, 0)
+				continue
+			}
+			e.first = append(e.first, p.Units[0].Column)
+			for k, u := range p.Units {
+				if u.Column != p.Units[0].Column+k {
+					panic("envelope: a patterned case's units are not consecutive columns")
+				}
+			}
+		}
+	}
+	return e
+}
+
+// work is one goroutine's scratch space.
+type work struct {
+	// The current member, filled by evaluate: its stations and the values
+	// of every column at each of them (column c at station i is entry
+	// c*len(xs)+i of at, defl and line).
+	xs    []float64      // station positions
+	extra []bool         // whether each was asked for by Settings.Extra
+	at    []frame.Forces // forces
+	defl  []float64      // deflections relative to the chord
+	line  []float64      // deflections across the member's line
+	start []frame.Forces // each column's point loads at the member's start
+	// What counts as round-off in the member (see roundOff): for N, V, M,
+	// for the deflection and for the deflection across its line.
+	noiseAt              [3]float64
+	noiseDefl, noiseLine float64
+
+	// The current station, read by station.
+	ev    [][3]float64 // effects of every column
+	noise [3]float64   // effects of a piece at or below these are round-off
+
+	place placement   // how the patterned cases' units are placed, with its scratch
+	lists [6]spanList // pieces being collected: max and min of N, V, M
+	share float64     // a piece is listed with at least this share of the largest one's effect
+	limit int         // most pieces listed: maxSpans, or unlimited with AllSpans
+}
+
+// scratch returns scratch space for one goroutine enveloping with e, with
+// its own placement, chosen from the layout's mode.
+func (e *evaluator) scratch() *work {
+	w := &work{ev: make([][3]float64, e.nOrig), place: newPlacement(e), share: spanShare, limit: maxSpans}
+	if e.lay != nil {
+		w.ev = make([][3]float64, len(e.lay.Model.Cases))
+	}
+	if e.set.AllSpans {
+		w.share, w.limit = 0, math.MaxInt
+	}
+	return w
+}

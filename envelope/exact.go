@@ -1,0 +1,156 @@
+package envelope
+
+import "math"
+
+// exactPlacement places each piece of a patterned case on its own, where
+// its factored effect makes the extreme sought worse (patterns.Exact):
+// by superposition the sum of the adverse pieces is the worst of every
+// arrangement. At a station it sums, for each patterned case and effect,
+// the units whose effect is positive and those whose effect is negative,
+// so that each combination then adds one sum per patterned term.
+type exactPlacement struct {
+	// Per patterned case, effect and sign (0 positive, 1 negative), over
+	// the units of that sign: the sum of their effects (N, V, M), the
+	// largest single magnitude, how many there are and the most
+	// influential of them (min-heaps of unit indices, see keepLargest).
+	sum   [][3][2][3]float64
+	big   [][3][2]float64
+	count [][3][2]int
+	top   [][3][2][]candidate
+}
+
+func newExactPlacement(patterned int) *exactPlacement {
+	return &exactPlacement{
+		sum:   make([][3][2][3]float64, patterned),
+		big:   make([][3][2]float64, patterned),
+		count: make([][3][2]int, patterned),
+		top:   make([][3][2][]candidate, patterned),
+	}
+}
+
+// scan forms, in one pass over each patterned case's units, the sums, the
+// largest magnitudes, how many units are of each sign, and the most
+// influential units of each sign, for the spans lists. A unit whose effect
+// is round-off is of neither sign.
+func (pl *exactPlacement) scan(e *evaluator, w *work) {
+	for p, pc := range e.lay.Patterned {
+		units := w.ev[e.first[p] : e.first[p]+len(pc.Units)]
+		var sum [3][2][3]float64
+		var big [3][2]float64
+		var count [3][2]int
+		top := &pl.top[p]
+		for j := range top {
+			top[j][0], top[j][1] = top[j][0][:0], top[j][1][:0]
+		}
+		// Only the positive sums (and those of round-off) are
+		// accumulated; the negative ones are the total less them.
+		var tot [3]float64
+		var zero [3][3]float64
+		var thr [3][2]float64
+		for i, v := range units {
+			tot[0] += v[0]
+			tot[1] += v[1]
+			tot[2] += v[2]
+			for j := range e.nEff {
+				x := v[j]
+				s, a := 0, x
+				switch {
+				case x > w.noise[j]:
+					t := &sum[j][0]
+					t[0] += v[0]
+					t[1] += v[1]
+					t[2] += v[2]
+				case x < -w.noise[j]:
+					s, a = 1, -x
+				default:
+					z := &zero[j]
+					z[0] += v[0]
+					z[1] += v[1]
+					z[2] += v[2]
+					continue
+				}
+				count[j][s]++
+				if a > big[j][s] {
+					big[j][s] = a
+				}
+				// thr is what a unit must reach to be listed: spanShare of
+				// the largest so far and, once the heap is full, more than
+				// its smallest. Most units fall short at this one test.
+				if a >= thr[j][s] {
+					h := keepLargest(top[j][s], candidate{piece: i, a: a}, w.limit)
+					top[j][s] = h
+					t := spanShare * big[j][s]
+					if len(h) == w.limit && h[0].a > t {
+						t = math.Nextafter(h[0].a, math.Inf(1))
+					}
+					thr[j][s] = t
+				}
+			}
+		}
+		for j := range e.nEff {
+			for q := range 3 {
+				sum[j][1][q] = tot[q] - sum[j][0][q] - zero[j][q]
+			}
+		}
+		pl.sum[p], pl.big[p], pl.count[p] = sum, big, count
+	}
+}
+
+// extremes is noPlacement.extremes with this placement's combine.
+func (pl *exactPlacement) extremes(e *evaluator, w *work) [3]Extreme {
+	out := [3]Extreme{empty(), empty(), empty()}
+	for k := range e.cs {
+		for j := range e.nEff {
+			if hi := pl.combine(e, w, k, j, true); hi[j] > out[j].Max {
+				out[j].Max, out[j].MaxBy, out[j].MaxWith = hi[j], k, hi
+			}
+			if lo := pl.combine(e, w, k, j, false); lo[j] < out[j].Min {
+				out[j].Min, out[j].MinBy, out[j].MinWith = lo[j], k, lo
+			}
+		}
+	}
+	return out
+}
+
+// combine adds, for each patterned term, the sum of the units of the sign
+// that makes effect j worse once factored: the positive ones when the
+// largest unfactored effect is wanted.
+func (pl *exactPlacement) combine(e *evaluator, w *work, k, j int, hi bool) [3]float64 {
+	var tot [3]float64
+	for _, t := range e.cs[k].Terms {
+		addWhole(&tot, &w.ev[t.Case], t.Factor, e.always[t.Case], j, hi)
+		p := e.patternOf[t.Case]
+		if p < 0 {
+			continue
+		}
+		f := t.Factor
+		v := pl.sum[p][j][sign(hi == (f >= 0))]
+		tot[0], tot[1], tot[2] = tot[0]+f*v[0], tot[1]+f*v[1], tot[2]+f*v[2]
+	}
+	return tot
+}
+
+// pieces loads every unit of the adverse sign and offers the most
+// influential of them, with at least w.share of the largest one's effect,
+// for listing: ranked by factored size, so that pieces of cases with
+// different factors rank fairly against each other.
+func (pl *exactPlacement) pieces(e *evaluator, w *work, l *spanList, k, p, j int, f float64, hi bool) int {
+	s := sign(hi == (f >= 0))
+	units := e.lay.Patterned[p].Units
+	cut := w.share * pl.big[p][j][s]
+	for _, c := range pl.top[p][j][s] {
+		if c.a >= cut {
+			l.ranked = keepLargest(l.ranked, candidate{piece: units[c.piece].Pieces[0], a: c.a * math.Abs(f)}, w.limit)
+		}
+	}
+	return pl.count[p][j][s]
+}
+
+// sign returns the index of the sign sought: 0 for the positive units when
+// the largest unfactored effect is wanted, 1 for the negative ones.
+func sign(largest bool) int {
+	if largest {
+		return 0
+	}
+	return 1
+}

@@ -1,0 +1,115 @@
+package envelope
+
+import (
+	"math"
+	"math/rand/v2"
+	"slices"
+	"testing"
+
+	"govern/combos"
+	"govern/frame"
+	"govern/patterns"
+)
+
+// onePatterned returns an evaluator for one variable case (column 0, its
+// rest) patterned into the given number of units (columns 1 to n, unit i
+// loading piece 100+i) and a combination "f·L", with scratch for it.
+func onePatterned(mode patterns.Mode, units int, f float64) (*evaluator, *work) {
+	pc := patterns.Patterned{Case: 0}
+	for i := range units {
+		pc.Units = append(pc.Units, patterns.Unit{Column: 1 + i, Pieces: []int{100 + i}})
+	}
+	e := &evaluator{
+		cs:        []combos.Combination{{Name: "f·L", Terms: []combos.Term{{Case: 0, Factor: f}}}},
+		index:     []int{0},
+		nEff:      3,
+		lay:       &patterns.Layout{Mode: mode, Patterned: []patterns.Patterned{pc}, Model: &frame.Model{Cases: make([]frame.Case, 1+units)}},
+		patterned: true,
+		nOrig:     1,
+		always:    make([]bool, 1+units),
+		patternOf: []int{0},
+		first:     []int{1},
+	}
+	return e, e.scratch()
+}
+
+// scatter fills the units' effects with sizes over five decades and of
+// either sign, a few of them round-off, and returns the round-off level.
+func scatter(rng *rand.Rand, ev [][3]float64) [3]float64 {
+	const noise = 1e-9
+	for c := range ev {
+		for j := range 3 {
+			a := math.Pow(10, -4*rng.Float64())
+			if rng.IntN(10) == 0 {
+				a = noise * rng.Float64()
+			}
+			if rng.IntN(2) == 0 {
+				a = -a
+			}
+			ev[c][j] = a
+		}
+	}
+	return [3]float64{noise, noise, noise}
+}
+
+// exactTol is the round-off allowed between sums of a hundred effects of
+// size at most 1 formed in different orders.
+const exactTol = 1e-13
+
+func TestExactSumsAndListsAgainstSorting(t *testing.T) {
+	// Exact placement by superposition: the adverse sum is the sum of
+	// every unit whose effect has the adverse sign (closed form), and the
+	// pieces listed are the most influential of them, found here by
+	// sorting all of them: at least spanShare of the largest, at most
+	// maxSpans, the largest first. Few units leave the list short, so
+	// that it is the share that cuts it; many leave it long.
+	rng := rand.New(rand.NewPCG(13, 6))
+	for _, f := range []float64{1.6, -0.9} {
+		for trial := range 20 {
+			e, w := onePatterned(patterns.Exact, []int{8, 120}[trial%2], f)
+			w.noise = scatter(rng, w.ev)
+			pl := w.place.(*exactPlacement)
+			pl.scan(e, w)
+			units := w.ev[1:]
+			for j := range 3 {
+				for _, hi := range []bool{true, false} {
+					positive := hi == (f >= 0) // the sign of the units loaded
+					var sum [3]float64
+					var loaded []candidate
+					for i, v := range units {
+						if (positive && v[j] > w.noise[j]) || (!positive && v[j] < -w.noise[j]) {
+							for q := range 3 {
+								sum[q] += v[q]
+							}
+							loaded = append(loaded, candidate{piece: 100 + i, a: math.Abs(v[j] * f)})
+						}
+					}
+					got := pl.combine(e, w, 0, j, hi)
+					rest := w.ev[0]
+					for q := range 3 {
+						want := f * sum[q]
+						if a := f * rest[j]; (hi && a > 0) || (!hi && a < 0) {
+							want += f * rest[q]
+						}
+						if math.Abs(got[q]-want) > exactTol {
+							t.Errorf("f %g trial %d effect %d hi %v: force %d = %.17g, want %.17g", f, trial, j, hi, q, got[q], want)
+						}
+					}
+					slices.SortFunc(loaded, byInfluence)
+					var want []int
+					for _, c := range loaded {
+						if c.a >= spanShare*loaded[0].a && len(want) < maxSpans {
+							want = append(want, c.piece)
+						}
+					}
+					var l spanList
+					n := pl.pieces(e, w, &l, 0, 0, j, f, hi)
+					l.order()
+					if n != len(loaded) || !slices.Equal(l.pieces, want) {
+						t.Errorf("f %g trial %d effect %d hi %v: %d loaded, listed %v; want %d, %v", f, trial, j, hi, n, l.pieces, len(loaded), want)
+					}
+				}
+			}
+		}
+	}
+}

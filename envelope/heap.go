@@ -1,0 +1,52 @@
+package envelope
+
+// candidate is a loaded piece and the size of its effect.
+type candidate struct {
+	piece int
+	a     float64
+}
+
+// less orders candidates by size, a later piece counting as smaller.
+func (c candidate) less(d candidate) bool {
+	return c.a < d.a || (c.a == d.a && c.piece > d.piece)
+}
+
+// keepLargest adds c to h, a min-heap on a of at most limit candidates,
+// dropping the smallest when full: what remains are the limit largest seen.
+// Equal sizes keep the earlier piece.
+//
+// The heap is the usual implicit binary tree in a slice: the children of
+// h[i] are h[2i+1] and h[2i+2], and no child is less than its parent, so
+// h[0] is the smallest kept, the one a larger candidate replaces.
+func keepLargest(h []candidate, c candidate, limit int) []candidate {
+	if len(h) < limit {
+		h = append(h, c)
+		for i := len(h) - 1; i > 0; {
+			up := (i - 1) / 2
+			if !h[i].less(h[up]) {
+				break
+			}
+			h[i], h[up] = h[up], h[i]
+			i = up
+		}
+		return h
+	}
+	if !h[0].less(c) {
+		return h
+	}
+	h[0] = c
+	for i := 0; ; {
+		l, r, min := 2*i+1, 2*i+2, i
+		if l < len(h) && h[l].less(h[min]) {
+			min = l
+		}
+		if r < len(h) && h[r].less(h[min]) {
+			min = r
+		}
+		if min == i {
+			return h
+		}
+		h[i], h[min] = h[min], h[i]
+		i = min
+	}
+}

@@ -1,0 +1,141 @@
+package envelope
+
+import (
+	"fmt"
+	"math"
+
+	"govern/frame"
+)
+
+// member envelopes the stations of member m: it evaluates every column at
+// every station at once (evaluate), then forms the extremes station by
+// station (station).
+func (e *evaluator) member(w *work, sol *frame.Solution, m int) (Member, error) {
+	line := e.evaluate(w, sol, m)
+	ns := len(w.xs)
+	name := sol.Model().Members[m].Name
+	effects := [3]string{"N", "V", "M"}
+	st := make([]Station, ns)
+	var defl, lineDefl []Extreme
+	if e.defl != nil {
+		defl = make([]Extreme, ns)
+	}
+	if !line.none() {
+		lineDefl = make([]Extreme, ns)
+	}
+	for i, x := range w.xs {
+		for c := range w.ev {
+			f := w.at[c*ns+i]
+			w.ev[c] = [3]float64{f.N, f.V, f.M}
+		}
+		w.noise = w.noiseAt
+		ex := e.station(w)
+		if !allFinite(&ex, 3) {
+			return Member{}, e.nonFinite(w, func(q int) string { return fmt.Sprintf("%s of member %q at x = %g", effects[q], name, x) })
+		}
+		st[i] = Station{X: x, Extra: w.extra[i], N: ex[0], V: ex[1], M: ex[2]}
+		for _, d := range [2]struct {
+			vals  []float64
+			noise float64
+			dst   []Extreme
+			what  string
+		}{{w.defl, w.noiseDefl, defl, ""}, {w.line, w.noiseLine, lineDefl, " across its line"}} {
+			if d.dst == nil {
+				continue
+			}
+			for c := range w.ev {
+				w.ev[c] = [3]float64{d.vals[c*ns+i], 0, 0}
+			}
+			w.noise = [3]float64{d.noise}
+			ex := e.defl.station(w)
+			if !allFinite(&ex, 1) {
+				return Member{}, e.defl.nonFinite(w, func(int) string { return fmt.Sprintf("the deflection of member %q at x = %g%s", name, x, d.what) })
+			}
+			ex[0].MaxWith, ex[0].MinWith = [3]float64{}, [3]float64{}
+			d.dst[i] = ex[0]
+		}
+	}
+	if e.set.Progress != nil {
+		e.set.Progress.Add(int64(ns))
+	}
+	return Member{Member: m, Stations: st, Deflection: defl, LineDeflection: lineDefl}, nil
+}
+
+// evaluate fills w with every column's values at every station of member
+// m (w.xs): the forces, and with service combinations the deflections
+// relative to the chord and across the member's line, which it returns
+// (the zero Line for none); and what counts as round-off in the member.
+func (e *evaluator) evaluate(w *work, sol *frame.Solution, m int) Line {
+	l := sol.Model().Length(m)
+	var extra []float64
+	if m < len(e.set.Extra) {
+		extra = e.set.Extra[m]
+	}
+	w.stations(l, e.set.Stations, extra)
+	ns, nc := len(w.xs), len(w.ev)
+	w.at = grow(w.at, ns*nc)
+	if e.defl != nil {
+		w.defl = grow(w.defl, ns*nc)
+		sol.StationsAndDeflectionsTo(w.at, w.defl, m, w.xs)
+	} else {
+		sol.StationsTo(w.at, m, w.xs)
+	}
+	// The first station is at x = 0: take it inside the member, past any
+	// point load at its start.
+	w.start = grow(w.start, nc)
+	sol.StartLoadsTo(w.start, m)
+	for c, f := range w.start {
+		w.at[c*ns].N += f.N
+		w.at[c*ns].V += f.V
+	}
+	var line Line
+	if e.defl != nil && m < len(e.set.Lines) {
+		line = e.set.Lines[m]
+	}
+	if !line.none() {
+		w.line = grow(w.line, ns*nc)
+		lineDeflectionsTo(w.line, w.defl, sol, m, line, w.xs)
+	}
+	// Round-off: only pattern pieces are judged by it.
+	var noise [3]float64
+	var noiseDefl, noiseLine float64
+	if e.patterned {
+		for _, f := range w.at {
+			// Plain comparisons: math.Max's care for NaN and signed zeros
+			// costs a third of the envelope's time here.
+			if a := math.Abs(f.N); a > noise[0] {
+				noise[0] = a
+			}
+			if a := math.Abs(f.V); a > noise[1] {
+				noise[1] = a
+			}
+			if a := math.Abs(f.M); a > noise[2] {
+				noise[2] = a
+			}
+		}
+		if e.defl != nil {
+			noiseDefl = largest(w.defl)
+		}
+		if !line.none() {
+			noiseLine = largest(w.line)
+		}
+		for j := range noise {
+			noise[j] *= roundOff
+		}
+		noiseDefl *= roundOff
+		noiseLine *= roundOff
+	}
+	w.noiseAt, w.noiseDefl, w.noiseLine = noise, noiseDefl, noiseLine
+	return line
+}
+
+// largest returns the largest magnitude in v.
+func largest(v []float64) float64 {
+	a := 0.0
+	for _, x := range v {
+		if b := math.Abs(x); b > a {
+			a = b
+		}
+	}
+	return a
+}

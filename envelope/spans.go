@@ -1,0 +1,127 @@
+package envelope
+
+import "slices"
+
+// A loaded piece is listed in MaxSpans or MinSpans when its own effect is
+// at least spanShare of the largest single piece's, and among the maxSpans
+// largest. Pieces with less influence are loaded too (exact placement puts
+// every adverse piece on; MaxLoaded counts them) but are not named, so that
+// the lists of a tall frame stay readable and its output tractable.
+const (
+	spanShare = 0.01
+	maxSpans  = 16
+)
+
+// spanList collects the pieces loaded for one extreme at a station: in the
+// order found (code, exhaustive), or ranked by influence (exact), the most
+// influential kept.
+type spanList struct {
+	pieces []int
+	ranked []candidate
+}
+
+// order leaves in l.pieces the list to give: the ranked pieces, the most
+// influential first, or else the pieces sorted; each once. It returns how
+// many there are.
+func (l *spanList) order() int {
+	if c := l.ranked; len(c) > 0 {
+		slices.SortFunc(c, func(x, y candidate) int {
+			if x.less(y) {
+				return 1
+			}
+			if y.less(x) {
+				return -1
+			}
+			return 0
+		})
+		// A piece repeats only when a combination names its case twice.
+		var seen map[int]bool
+		if len(c) > 32 {
+			seen = make(map[int]bool, len(c))
+		}
+		for _, x := range c {
+			if seen != nil {
+				if seen[x.piece] {
+					continue
+				}
+				seen[x.piece] = true
+			} else if slices.Contains(l.pieces, x.piece) {
+				continue
+			}
+			l.pieces = append(l.pieces, x.piece)
+		}
+	} else {
+		sortUnique(&l.pieces)
+	}
+	return len(l.pieces)
+}
+
+// spans fills in the pattern pieces loaded for each extreme in out. For
+// exact placement every adverse piece is loaded (counted in MaxLoaded,
+// MinLoaded); the most influential of them are listed, at most maxSpans,
+// each with at least spanShare of the largest one's effect (all of them
+// with AllSpans). For code arrangements the arrangement's pieces are listed,
+// for exhaustive search the pieces of the best subset with at least
+// spanShare of the largest one's factored effect. Each patterned case's
+// units are scanned once for all the extremes that need them.
+func (e *evaluator) spans(w *work, out *[3]Extreme) {
+	for k := range w.lists {
+		w.lists[k].pieces = w.lists[k].pieces[:0]
+		w.lists[k].ranked = w.lists[k].ranked[:0]
+	}
+	var loaded [6]int
+	for p, pc := range e.lay.Patterned {
+		for j := range e.nEff {
+			for side, by := range [2]int{out[j].MaxBy, out[j].MinBy} {
+				if by < 0 {
+					continue
+				}
+				k, hi := 2*j+side, side == 0
+				// The factor of this case in the winning combination.
+				f, has := 0.0, false
+				for _, t := range e.cs[by].Terms {
+					if t.Case == pc.Case {
+						f, has = f+t.Factor, true
+					}
+				}
+				if !has || f == 0 {
+					continue
+				}
+				loaded[k] += w.place.pieces(e, w, &w.lists[k], by, p, j, f, hi)
+			}
+		}
+	}
+	total := 0
+	for k := range w.lists {
+		total += w.lists[k].order()
+	}
+	for j := range 3 {
+		out[j].MaxLoaded, out[j].MinLoaded = loaded[2*j], loaded[2*j+1]
+	}
+	if total == 0 {
+		return
+	}
+	// Copy the lists into one exact-size slice per station: appending to the
+	// results directly would grow hundreds of thousands of slices on a tall
+	// frame.
+	buf := make([]int, total)
+	at := 0
+	take := func(k int) []int {
+		n := copy(buf[at:], w.lists[k].pieces)
+		s := buf[at : at+n : at+n]
+		at += n
+		return s
+	}
+	for j := range 3 {
+		out[j].MaxSpans = take(2 * j)
+		out[j].MinSpans = take(2*j + 1)
+	}
+}
+
+// sortUnique sorts s and removes repeats; lists are usually sorted already.
+func sortUnique(s *[]int) {
+	if !slices.IsSorted(*s) {
+		slices.Sort(*s)
+	}
+	*s = slices.Compact(*s)
+}
