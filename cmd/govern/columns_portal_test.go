@@ -462,6 +462,7 @@ func TestColumnsPortal(t *testing.T) {
 					checkRowCells(t, cb, r.cells, []cellWant{
 						wantText("numbered in the model's order", hdr("#"), strconv.Itoa(i+1)),
 						wantText("", hdr("combination"), c.name),
+						wantText("listed in the model file", hdr("rule"), "model"),
 						wantText("", hdr("use"), use),
 						wantText("the factor on D", hdr("D"), strconv.FormatFloat(c.fD, 'g', -1, 64)),
 						wantText("the factor on W, blank without it", hdr("W"), fw),

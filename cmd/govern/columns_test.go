@@ -774,7 +774,8 @@ func TestColumnsCantilever(t *testing.T) {
 // 3-23, continuous beam, two equal spans, uniform load on one span: R1 =
 // 7wL/16, R3 = −wL/16, M max = 49wL²/512 at 7L/16 from the end support;
 // and, both spans loaded, M = −wL²/8 and V = 5wL/8 at the middle support,
-// R = 1.25wL there (continuous beam coefficients).
+// R = 1.25wL there (continuous beam coefficients). The deflections under
+// the service combination L, by superposition of elastic curves.
 func TestColumnsPatternedSpans(t *testing.T) {
 	const l, w = 6.0, 16.0
 	pieces := func(s string) []string {
@@ -807,6 +808,57 @@ func TestColumnsPatternedSpans(t *testing.T) {
 					}
 				})
 			}
+			t.Run("deflection", func(t *testing.T) {
+				// Service combination L, w = 10 kN/m placed where adverse.
+				// A span loaded alone sags; the end moment wL²/16 its load
+				// puts on the middle support lifts the other span. Elastic
+				// curves of a simple span, x from its end support: under its
+				// load w x(L³ − 2Lx² + x³)/24EI down, under the end moment
+				// M0 = wL²/16 at the middle support M0 x(L² − x²)/6EIL up.
+				const ws = 10.0
+				m0 := ws * l * l / 16
+				up := func(x float64) float64 { return m0 * x * (l*l - x*x) / (6 * beamEI * l) }
+				down := func(x float64) float64 {
+					return -ws*x*(l*l*l-2*l*x*x+x*x*x)/(24*beamEI) + up(x)
+				}
+				var lo, hi struct{ v, x float64 }
+				for i := range 17 {
+					x := l * float64(i) / 16
+					if d := down(x); d < lo.v {
+						lo.v, lo.x = d, x
+					}
+					if u := up(x); u > hi.v {
+						hi.v, hi.x = u, x
+					}
+				}
+				for _, span := range []struct {
+					name   string
+					mirror bool // x from the middle support, not the end one
+				}{{"A–B", false}, {"B–C", true}} {
+					at := func(x float64) float64 {
+						if span.mirror {
+							return l - x
+						}
+						return x
+					}
+					tb, row := v.row(t, isDeflectionTable, span.name)
+					checkRowCells(t, tb, row, []cellWant{
+						{col: hdr("down (m)"), v: lo.v, tol: columnsExactTol, why: "the span loaded alone: its load's curve less the end moment's, largest over the stations"},
+						wantNum(at(lo.x), "where it is largest", "down (m)", "at x"),
+						wantText("the service combination", hdr("down (m)", "governing"), "L"),
+						{col: hdr("up (m)"), v: hi.v, tol: columnsExactTol, why: "the other span loaded alone: M0 x(L² − x²)/6EIL, M0 = wL²/16"},
+						wantNum(at(hi.x), "the station nearest L/√3 from the end support", "up (m)", "at x"),
+						wantText("the service combination", hdr("up (m)", "governing"), "L"),
+					})
+					r := printedRatio(t, row[columnIndex(t, tb, "span/deflection (cantilever: 2 × length)")].text)
+					if want := math.Floor(l / -lo.v); r != want {
+						t.Errorf("span/deflection L/%g, want L/%g: the length over the larger deflection, the sag", r, want)
+					}
+				}
+				if lo.x == hi.x {
+					t.Fatal("the sag and the rise are at one station: the test could not tell their x apart")
+				}
+			})
 			t.Run("reactions", func(t *testing.T) {
 				tb, rs := reactionsByNode(t, v)
 				for _, end := range []string{"A", "C"} {
