@@ -30,8 +30,8 @@ import (
 //     forces;
 //   - deflections from the chord by integrating M/EI twice.
 //
-// portalCheck checks these forms against each other by statics before any
-// of them is used.
+// TestColumnsPortalClosedForms checks these forms against each other by
+// statics.
 const (
 	portalL, portalH, portalW, portalG, portalWind = 8.0, 4.0, 12.0, 6.0, 62.0
 	portalIb, portalIc, portalE                    = 3e-3, 1e-3, 30e6
@@ -218,6 +218,11 @@ var (
 	portalBeamX   = []float64{0, 0.2, 2, 4, 6, 7.8, 8} // 5 stations and the column faces
 )
 
+// TestColumnsPortal: every table of the portal against the closed forms
+// above: the columns (N with the moment acting with it, |M|, |V|), the beam,
+// its values at the column faces, its deflection, the reactions, the
+// statics check, and in the report the station tables and the tables of
+// the model (load cases, combinations, sections).
 func TestColumnsPortal(t *testing.T) {
 	fx := func(x float64) string { return strconv.FormatFloat(x, 'f', 2, 64) }
 	for _, v := range columnsViews(t, "portal") {

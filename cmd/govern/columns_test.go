@@ -28,8 +28,8 @@ import (
 
 // Tolerances of the comparisons, beyond half a unit of the last printed
 // digit: columnsExactTol for the closed forms of beam theory, which the
-// stiffness method reproduces to round-off; columnsFormulaTol for the rigid frame
-// formulas, which neglect axial strain (the portal's members are made
+// stiffness method reproduces to round-off; columnsFormulaTol for the
+// rigid frame formulas, which neglect axial strain (the portal's members are made
 // axially stiff, leaving differences near 1e-7 of the values); both
 // relative to columnsScale, the size of the models' forces and moments.
 const (
@@ -109,7 +109,7 @@ func renderedTexts(cs []renderedCell) []string {
 	return out
 }
 
-// col returns the index of a column given by a path of headers: the
+// columnIndex returns the index of a column given by a path of headers: the
 // column headed path[0], then the first column headed path[1] after it,
 // and so on ("+M (kN·m)", "at x": the x of the largest sagging moment).
 // The first header must be the table's only one so headed.
@@ -144,22 +144,22 @@ type cellWant struct {
 	why   string   // the closed form and its source
 }
 
-// num expects the value v by a closed form exact to round-off.
+// wantNum expects the value v by a closed form exact to round-off.
 func wantNum(v float64, why string, col ...string) cellWant {
 	return cellWant{col: col, v: v, tol: columnsExactTol * columnsScale, why: why}
 }
 
-// approx expects the value v within the rigid frame formulas' tolerance.
+// wantApprox expects the value v within the rigid frame formulas' tolerance.
 func wantApprox(v float64, why string, col ...string) cellWant {
 	return cellWant{col: col, v: v, tol: columnsFormulaTol * columnsScale, why: why}
 }
 
-// text expects one of the texts.
+// wantText expects one of the texts.
 func wantText(why string, col []string, texts ...string) cellWant {
 	return cellWant{col: col, texts: texts, why: why}
 }
 
-// cols builds a column path.
+// hdr builds a column path.
 func hdr(path ...string) []string { return path }
 
 // checkRowCells checks the cells of a row of tb against wants.
@@ -228,25 +228,27 @@ func reactionsByNode(t *testing.T, v columnsView) (renderedTable, map[string]map
 	return ts[0], out
 }
 
-// combExtreme is the largest or smallest of a quantity over the combinations:
-// its value and the combinations that give it (more than one where they
-// tie, when any of them may be named).
+// combExtreme is the largest or smallest of a quantity over the
+// combinations: its value and the combinations that give it (more than
+// one where they tie, when any of them may be named).
 type combExtreme struct {
 	v  float64
 	by []string
 }
 
-// combValue is a combination of a model under test and what a quantity is in it.
+// combValue is a combination of a model under test and what a quantity
+// is in it.
 type combValue struct {
 	name string
 	v    float64
 }
 
-// columnsTieTol is how close two combinations' values must be for either to be
-// the governing one.
+// columnsTieTol is how close two combinations' values must be for
+// either to be the governing one.
 const columnsTieTol = 1e-6 * columnsScale
 
-// largest and smallest return the extremes of a quantity over combinations.
+// largestOf and smallestOf return the extremes of a quantity over the
+// combinations.
 func largestOf(cs []combValue) combExtreme  { return pickExtreme(cs, 1) }
 func smallestOf(cs []combValue) combExtreme { return pickExtreme(cs, -1) }
 
@@ -268,9 +270,7 @@ func pickExtreme(cs []combValue, sign float64) combExtreme {
 // along the span, x from its left end, for a uniform load w (down
 // positive): M sagging positive, V = dM/dx, δ up positive.
 type beamCase struct {
-	l, ei float64
-	m, v  func(w, x float64) float64
-	defl  func(w, x float64) float64
+	m, v, defl func(w, x float64) float64
 }
 
 // The beams' data: L = 6 m, EI = 200e6 × 1e-4 = 20 000 kN·m² (the
@@ -284,15 +284,13 @@ const (
 var (
 	beamStrength = []combValue{{"1.4D", 1.4 * wDead}, {"1.2D+1.6L", 1.2*wDead + 1.6*wLive}}
 	beamService  = []combValue{{"D", wDead}, {"D+L", wDead + wLive}}
-	// the loads of the strength combinations and the service ones, as
-	// listed in the model files (the numbers of the report's station
-	// tables)
+	// the combinations in the order the model files list them: their
+	// numbers in the report's station tables
 	beamCombos = []string{"1.4D", "1.2D+1.6L", "D", "D+L"}
 )
 
 // beamSimple: AISC Table 3-23, simple beam, uniformly distributed load.
 var beamSimple = beamCase{
-	l: beamL, ei: beamEI,
 	m: func(w, x float64) float64 { return w * x * (beamL - x) / 2 },
 	v: func(w, x float64) float64 { return w * (beamL/2 - x) },
 	defl: func(w, x float64) float64 {
@@ -303,7 +301,6 @@ var beamSimple = beamCase{
 // beamFixed: AISC Table 3-23, beam fixed at both ends, uniformly
 // distributed load.
 var beamFixed = beamCase{
-	l: beamL, ei: beamEI,
 	m: func(w, x float64) float64 { return w * (6*beamL*x - beamL*beamL - 6*x*x) / 12 },
 	v: func(w, x float64) float64 { return w * (beamL/2 - x) },
 	defl: func(w, x float64) float64 {
@@ -314,7 +311,6 @@ var beamFixed = beamCase{
 // beamPropped: AISC Table 3-23, beam fixed at one end, supported at other,
 // uniformly distributed load; x from the supported end (on the left).
 var beamPropped = beamCase{
-	l: beamL, ei: beamEI,
 	m: func(w, x float64) float64 { return 3*w*beamL*x/8 - w*x*x/2 },
 	v: func(w, x float64) float64 { return 3*w*beamL/8 - w*x },
 	defl: func(w, x float64) float64 {
@@ -325,7 +321,6 @@ var beamPropped = beamCase{
 // beamCantilever: AISC Table 3-23, cantilever beam, uniformly distributed
 // load; fixed at the left end.
 var beamCantilever = beamCase{
-	l: beamL, ei: beamEI,
 	m: func(w, x float64) float64 { return -w * (beamL - x) * (beamL - x) / 2 },
 	v: func(w, x float64) float64 { return w * (beamL - x) },
 	defl: func(w, x float64) float64 {
@@ -333,7 +328,7 @@ var beamCantilever = beamCase{
 	},
 }
 
-// over evaluates f for each combination's load.
+// overCombos evaluates f for each combination's load.
 func overCombos(cs []combValue, f func(w float64) float64) []combValue {
 	out := make([]combValue, len(cs))
 	for i, c := range cs {
