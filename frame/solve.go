@@ -125,16 +125,18 @@ func SolveWith(mo *Model, opt Options) (*Solution, error) {
 		sol.cond = equilibratedCond(data, u.Data, n, kb)
 	}
 	if !ok || sol.cond > diagnoseCond {
-		// data now holds a factor: assemble the matrix again and scale it
-		// to unit diagonal for the mechanism search.
+		// data now holds a factor: assemble the matrix of the same members
+		// made alike in stiffness, which has the same mechanisms, scale it
+		// to unit diagonal and search it.
 		clear(data)
-		sol.assembleTo(data, kb)
-		scale, spread := equilibrate(data, n, kb)
-		if err := sol.diagnose(data, n, kb, dof, scale, spread); err != nil {
+		kin, h := sol.kinematic()
+		sol.assembleTo(data, kb, kin)
+		scale := equilibrate(data, n, kb)
+		if err := sol.diagnose(data, n, kb, dof, scale, h); err != nil {
 			return nil, err
 		}
 		if !ok {
-			return nil, fmt.Errorf("%w (the matrix is not positive definite although no mechanism was found); %s", ErrIllConditioned, illAdvice)
+			return nil, &IllConditionedError{Cond: math.Inf(1)}
 		}
 	}
 	if !(sol.cond <= MaxCond) {
@@ -189,19 +191,15 @@ func scalePow2(data []float64, n, kb int) []float64 {
 
 // equilibrate scales the band matrix data (n equations, kb superdiagonals,
 // positive diagonal) in place to unit diagonal, S K S with S = diag(scale),
-// scale[i] = 1/√K[i][i], and returns scale and the ratio of the largest to
-// the smallest diagonal of K.
-func equilibrate(data []float64, n, kb int) (scale []float64, spread float64) {
+// scale[i] = 1/√K[i][i], and returns scale.
+func equilibrate(data []float64, n, kb int) []float64 {
 	w := kb + 1
-	scale = make([]float64, n)
-	lo, hi := math.Inf(1), 0.0
+	scale := make([]float64, n)
 	for i := range n {
-		d := data[i*w]
-		lo, hi = min(lo, d), max(hi, d)
-		scale[i] = 1 / math.Sqrt(d)
+		scale[i] = 1 / math.Sqrt(data[i*w])
 	}
 	scaleBand(data, scale, n, kb)
-	return scale, hi / lo
+	return scale
 }
 
 // scaleBand replaces the band matrix data by S data S, S = diag(s).
@@ -270,15 +268,16 @@ func scaleRows(x, scale []float64, nc int) {
 // with kb superdiagonals: entry (i, j), j >= i, at [i*(kb+1)+j-i].
 func (sol *Solution) assemble(n, kb int) []float64 {
 	data := make([]float64, n*(kb+1))
-	sol.assembleTo(data, kb)
+	sol.assembleTo(data, kb, sol.elems)
 	return data
 }
 
-// assembleTo adds the stiffness matrix to data, in the layout of assemble.
-func (sol *Solution) assembleTo(data []float64, kb int) {
+// assembleTo adds the stiffness matrix of the members elems (one for each
+// member of the model) to data, in the layout of assemble.
+func (sol *Solution) assembleTo(data []float64, kb int, elems []element) {
 	mo, dof, w := sol.model, sol.dof, kb+1
 	for m, mem := range mo.Members {
-		g := sol.elems[m].global()
+		g := elems[m].global()
 		ends := [2]int{mem.Start, mem.End}
 		for i := range 6 {
 			ei := dof[3*ends[i/3]+i%3]
