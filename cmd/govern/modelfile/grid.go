@@ -117,6 +117,10 @@ func (r *reader) readGrid(t *table) {
 			lines, levels, Thousands(lines*levels), Thousands(free), Thousands(frame.MaxEquations)))
 		return
 	}
+	if err := tooManyMembers(lines*(levels-1)+(lines-1)*(levels-1), fmt.Sprintf("%d column lines × %d levels make", lines, levels), "use fewer bays or storeys"); err != nil {
+		t.fail("", err)
+		return
+	}
 	g := &Grid{Spacing: spacing}
 	x := 0.0
 	g.Lines = append(g.Lines, 0)
