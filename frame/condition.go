@@ -44,13 +44,19 @@ var ErrNotFinite = errors.New("the results are not finite numbers")
 // whose estimated condition number is above [RefuseCond]. It wraps
 // [ErrIllConditioned].
 type IllConditionedError struct {
-	Cond float64 // the estimate, as Solution.Cond would give it
+	// Cond is the estimate, as Solution.Cond would give it; +Inf when the
+	// matrix could not be factored at all (it is not positive definite to
+	// the precision of the arithmetic) although no mechanism was found.
+	Cond float64
 	// Acceptable is true when [Options.AcceptIllConditioned] would have
 	// solved it (Cond is not above MaxCond).
 	Acceptable bool
 }
 
 func (e *IllConditionedError) Error() string {
+	if math.IsInf(e.Cond, 1) {
+		return fmt.Sprintf("%v: its factorization failed (it is not positive definite to the precision of the arithmetic, although nothing in the frame is free to move), so the results would carry no correct digit; %s", ErrIllConditioned, illAdvice)
+	}
 	if !e.Acceptable {
 		return fmt.Sprintf("%v: estimated condition number %.2g, so the results would carry no correct digit; %s", ErrIllConditioned, e.Cond, illAdvice)
 	}

@@ -8,6 +8,10 @@ import (
 	"slices"
 	"strings"
 	"testing"
+
+	"gonum.org/v1/gonum/blas"
+	"gonum.org/v1/gonum/blas/blas64"
+	"gonum.org/v1/gonum/lapack/lapack64"
 )
 
 // cantilever returns a horizontal member of length l fixed at node "a" and
@@ -261,22 +265,148 @@ func TestIllConditionedErrorMessages(t *testing.T) {
 	}
 }
 
-func TestStiffnessLostInRoundOffIsNamed(t *testing.T) {
-	// a = 1e12: across the member the bending stiffness is 1.3e16 times
-	// smaller than the axial stiffness it is the remainder of, below the
-	// round-off of the arithmetic, so the tip is held across the member by
-	// nothing the solver can tell from round-off: a mechanism, with the
-	// note on units (diagonal: c²EA/L = 3.75e19 against 4EI/L = 2e4).
-	mo, _ := inclined(1e12)
-	_, err := SolveWith(mo, Options{AcceptIllConditioned: true})
-	var me *MechanismError
-	if !errors.As(err, &me) {
-		t.Fatalf("err = %v, want a mechanism", err)
+func TestStiffnessLostInRoundOffIsIllConditioned(t *testing.T) {
+	// a = 1e12 and 1e13: across the member the bending stiffness is 1e16
+	// times smaller than the axial stiffness it is the remainder of, and
+	// more, below the round-off of the arithmetic. The frame is still a
+	// sound cantilever, not a mechanism: it is refused as having no correct
+	// digit, whatever the options, with the estimate where the matrix could
+	// be factored and without one where it could not.
+	for _, tc := range []struct {
+		a      float64
+		factor bool // Cholesky succeeds and gives an estimate
+	}{{1e12, true}, {1e13, false}} {
+		t.Run(fmt.Sprintf("A = %g", tc.a), func(t *testing.T) {
+			mo, _ := inclined(tc.a)
+			_, err := SolveWith(mo, Options{AcceptIllConditioned: true})
+			var ice *IllConditionedError
+			if !errors.As(err, &ice) || ice.Acceptable {
+				t.Fatalf("err = %v, want an *IllConditionedError that no option accepts", err)
+			}
+			if tc.factor != !math.IsInf(ice.Cond, 1) || !(ice.Cond > MaxCond) {
+				t.Errorf("estimate %g, want one above %g (+Inf only where the factorization failed: %v)", ice.Cond, MaxCond, !tc.factor)
+			}
+			want := fmt.Sprintf("the stiffness matrix is too ill-conditioned to solve: estimated condition number %.2g, so the results would carry no correct digit; %s", ice.Cond, illAdvice)
+			if !tc.factor {
+				want = "the stiffness matrix is too ill-conditioned to solve: its factorization failed (it is not positive definite to the precision of the arithmetic, although nothing in the frame is free to move), so the results would carry no correct digit; " + illAdvice
+			}
+			if err.Error() != want {
+				t.Errorf("error\n got: %s\nwant: %s", err, want)
+			}
+		})
 	}
-	want := `the structure is a mechanism (it cannot carry load): node "b" is free to move along Y (uy) (the stiffnesses on the diagonal span 15 orders of magnitude, so what holds these may be lost in round-off: check that E, A and I are in the declared units)`
-	if err.Error() != want {
-		t.Errorf("error\n got: %s\nwant: %s", err, want)
+}
+
+// stiffColumn returns the regular frame of gridFrame, 20 bays of 6 and 10
+// storeys of 3.5, fixed bases, with the column on line 5 of storey 6 made
+// of a section of area a (E = 30e6, I = 5e-3 like the rest), beams under
+// w = 20 and a horizontal load of 21 at each level of line 0.
+func stiffColumn(a float64) *Model {
+	mo := gridFrame(20, 10, 3)
+	mo.Sections = append(mo.Sections, Section{Name: "stiff", E: 30e6, A: a, I: 5e-3})
+	c := Case{Name: "G+W"}
+	for m, mem := range mo.Members {
+		if mem.Name == "c5-6" {
+			mo.Members[m].Section = 1
+		}
+		if mo.IsBeam(m) {
+			c.MemberLoads = append(c.MemberLoads, MemberLoad{Member: m, To: 6, W: 20, WEnd: 20})
+		}
 	}
+	for v, nd := range mo.Nodes {
+		if nd.X == 0 && nd.Y > 0 {
+			c.NodeLoads = append(c.NodeLoads, NodeLoad{Node: v, Fx: 21})
+		}
+	}
+	mo.Cases = []Case{c}
+	return mo
+}
+
+func TestSoundIllConditionedFramesAreNotMechanisms(t *testing.T) {
+	// Sound frames whose matrices, scaled to unit diagonal, have condition
+	// numbers of about 1e15: each is refused as ill-conditioned, with the
+	// refusal that the option overrides, never named a mechanism; accepted,
+	// it is solved, and its results agree with the closed forms to about
+	// the digits the estimate leaves, κ ε of the largest value.
+	t.Run("cantilever rising at 30°, A = 2.5e10", func(t *testing.T) {
+		// EA/L = 1.25e18 against 12EI/L³ = 3750 across the member.
+		mo, _ := inclined(2.5e10)
+		sol := solveIllConditioned(t, mo)
+		// Across the member the tip deflects P⊥L³/3EI and turns P⊥L²/2EI,
+		// P⊥ = P cos 30°, whatever A (beam tables; common practice).
+		const l, ei = 4.0, 200e6 * 1e-4
+		c, s := math.Cos(math.Pi/6), math.Sin(math.Pi/6)
+		ux, uy, rz := sol.Displacement(0, 1)
+		tol := sol.Cond() * 0x1p-52
+		if across, want := -s*ux+c*uy, -c*l*l*l/(3*ei); !near(across, want, tol) {
+			t.Errorf("tip deflection across the member %.6g, want P⊥L³/3EI = %.6g (tolerance %.2g)", across, want, tol)
+		}
+		if want := -c * l * l / (2 * ei); !near(rz, want, tol) {
+			t.Errorf("tip rotation %.6g, want P⊥L²/2EI = %.6g (tolerance %.2g)", rz, want, tol)
+		}
+	})
+	t.Run("20 × 10 frame with one column of A = 1e13", func(t *testing.T) {
+		// The column's EA/L = 8.6e19 against beams and columns of about 1e6:
+		// the column moves as a rigid body, and the frame holds it.
+		sol := solveIllConditioned(t, stiffColumn(1e13))
+		// The same frame with the column at A = 1e9, axially rigid too
+		// (it shortens by about 1e-10 of the frame's displacements) and
+		// resolved to about five digits (κ ≈ 1e11), and the statics of
+		// the loads: 20 × 6 × 10 × 20 = 24,000 down, 210 across.
+		ref, err := Solve(stiffColumn(1e9))
+		if err != nil {
+			t.Fatal(err)
+		}
+		tol := sol.Cond() * 0x1p-52
+		var big, diff [3]float64
+		for v := range ref.Model().Nodes {
+			a, b := [3]float64{}, [3]float64{}
+			a[0], a[1], a[2] = ref.Displacement(0, v)
+			b[0], b[1], b[2] = sol.Displacement(0, v)
+			for d := range 3 {
+				big[d], diff[d] = max(big[d], math.Abs(a[d])), max(diff[d], math.Abs(a[d]-b[d]))
+			}
+		}
+		for d, name := range dirNames {
+			if diff[d] > tol*big[d] {
+				t.Errorf("%s differs from the frame with A = 1e9 by %.2g of its largest value, above κ ε = %.2g", name, diff[d]/big[d], tol)
+			}
+		}
+		var fx, fy float64
+		for v := range sol.Model().Nodes {
+			rx, ry, _ := sol.Reaction(0, v)
+			fx, fy = fx+rx, fy+ry
+		}
+		if !near(fy, 24000, tol) || !near(fx, -210, tol) {
+			t.Errorf("reactions ΣFx = %.6g, ΣFy = %.6g; want -210 and 24000", fx, fy)
+		}
+	})
+}
+
+// solveIllConditioned solves mo, which must be refused for its condition
+// number (between RefuseCond and MaxCond) unless accepted, and accepted,
+// solved with the warning and in balance to round-off.
+func solveIllConditioned(t *testing.T, mo *Model) *Solution {
+	t.Helper()
+	_, err := Solve(mo)
+	var ice *IllConditionedError
+	if !errors.As(err, &ice) || !ice.Acceptable {
+		t.Fatalf("err = %v, want an acceptable *IllConditionedError", err)
+	}
+	if !(ice.Cond > RefuseCond && ice.Cond < MaxCond) {
+		t.Fatalf("estimate %.3g, want between %g and %g", ice.Cond, RefuseCond, MaxCond)
+	}
+	sol, err := SolveWith(mo, Options{AcceptIllConditioned: true})
+	if err != nil {
+		t.Fatalf("accepted: %v", err)
+	}
+	if w := sol.Warnings(); len(w) != 1 || !strings.Contains(w[0], "solved only because that was accepted") {
+		t.Errorf("warnings %q, want the one on an accepted condition number", w)
+	}
+	if b := sol.Balance(0).Relative(); !(b <= sol.RoundOff()) {
+		t.Errorf("out of balance by %.2g of the load, above round-off %.2g", b, sol.RoundOff())
+	}
+	return sol
 }
 
 func TestPivotWatchFindsTheRayleighQuotient(t *testing.T) {
@@ -376,6 +506,53 @@ func TestUnitSlipInASectionIsNamed(t *testing.T) {
 			}
 			if !near(sol.Cond(), cantileverCond, condTol) {
 				t.Errorf("Cond() = %g, want 7 + 4√3", sol.Cond())
+			}
+		})
+	}
+}
+
+// estimateTol is the agreement asked of the two ways of estimating
+// ‖A⁻¹‖₁: the same estimator on the same solves, one of them scaled
+// against overflow.
+const estimateTol = 1e-12
+
+func TestInverseNormEstimateMatchesLAPACK(t *testing.T) {
+	// invNorm1 runs LAPACK's estimator (dlacn2) with plain triangular
+	// solves; LAPACK's dpbcon runs it with solves guarded against
+	// overflow. Where nothing overflows they must agree: frames scaled to
+	// unit diagonal, well and badly conditioned.
+	for _, tc := range []struct {
+		name string
+		mo   *Model
+	}{
+		{"regular frame 10 × 10", gridFrame(10, 10, 4)},
+		{"regular frame 30 × 20", gridFrame(30, 20, 5)},
+		{"20 × 10 frame with one column of A = 1e13", stiffColumn(1e13)},
+		{"cantilever rising at 30°, A = 2.5e10", func() *Model { mo, _ := inclined(2.5e10); return mo }()},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			order := rcmOrder(adjacency(tc.mo))
+			dof, n, band := dofMap(tc.mo, order, releasedRotations(tc.mo))
+			sol := &Solution{model: tc.mo, dof: dof, elems: make([]element, len(tc.mo.Members))}
+			for m := range tc.mo.Members {
+				sol.elems[m] = newElement(tc.mo, m)
+			}
+			kb := min(band, n-1)
+			data := sol.assemble(n, kb)
+			equilibrate(data, n, kb)
+			a := blas64.SymmetricBand{Uplo: blas.Upper, N: n, K: kb, Data: slices.Clone(data), Stride: kb + 1}
+			u, ok := lapack64.Pbtrf(a)
+			if !ok {
+				t.Fatal("not positive definite")
+			}
+			got, ok := invNorm1(u.Data, n, kb)
+			if !ok {
+				t.Fatal("the plain solves overflowed")
+			}
+			f := blas64.SymmetricBand{Uplo: blas.Upper, N: n, K: kb, Data: u.Data, Stride: kb + 1}
+			want := 1 / lapack64.Pbcon(f, 1, make([]float64, 3*n), make([]int, n))
+			if !near(got, want, estimateTol) {
+				t.Errorf("‖A⁻¹‖₁ estimated %.15g, dpbcon %.15g", got, want)
 			}
 		})
 	}

@@ -19,20 +19,59 @@ func newElement(mo *Model, m int) element {
 	sec := mo.Sections[mem.Section]
 	c, s, l := mo.geometry(m)
 	ei := sec.E * sec.I
-	e := element{c: c, s: s, l: l, release: mem.Release, ei: ei}
-	ea := sec.E * sec.A / l
+	a, b, d, f := 12*ei/(l*l*l), 6*ei/(l*l), 4*ei/l, 2*ei/l
+	return makeElement(c, s, l, ei, mem.Release, sec.E*sec.A/l, &[4][4]float64{
+		{a, b, -a, b},
+		{b, d, -b, f},
+		{-a, -b, a, -b},
+		{b, f, -b, d},
+	})
+}
+
+// kinematic returns e with the same geometry and releases, and the
+// stiffnesses of a member as stiff across its length as along it,
+// EA/L = 12EI/L³ = 1, whatever its section: its strain energy
+// ½δ² + (L²/6)(θ₁² + θ₁θ₂ + θ₂²), for an elongation δ and end rotations θ
+// measured from the chord, weighs stretching and bending alike, in units
+// of length squared. The mechanism search works on the matrix of such
+// members (see diagnose), which has the frame's mechanisms and none of
+// the disparity of its stiffnesses.
+//
+// Its rotations are taken in units of length: the rotation at the start is
+// h1 θ₁ and at the end h2 θ₂, h1 and h2 the longest member held rigidly at
+// each end's node, so that no entry is larger than 1 however long or short
+// the members are (L³/12 itself would overflow past L = 1e102). Its ei is
+// not that of any member.
+func (e *element) kinematic(h1, h2 float64) element {
+	r1, r2 := e.l/h1, e.l/h2
+	b1, b2, d1, d2, f := r1/2, r2/2, r1*r1/3, r2*r2/3, r1*r2/6
+	return makeElement(e.c, e.s, e.l, 0, e.release, 1, &[4][4]float64{
+		{1, b1, -1, b2},
+		{b1, d1, -b1, f},
+		{-1, -b1, 1, -b2},
+		{b2, f, -b2, d2},
+	})
+}
+
+// makeElement builds the local stiffness of a member of direction cosines
+// c, s, length l, bending stiffness ei (EI) and releases rel, from its
+// axial stiffness ea (EA/L) and its bending block bend, in the order
+// transverse displacement and rotation at the start, then at the end.
+func makeElement(c, s, l, ei float64, rel Release, ea float64, bend *[4][4]float64) element {
+	e := element{c: c, s: s, l: l, release: rel, ei: ei}
 	k := &e.k
 	k[0][0], k[0][3], k[3][0], k[3][3] = ea, -ea, -ea, ea
-	a, b, d, f := 12*ei/(l*l*l), 6*ei/(l*l), 4*ei/l, 2*ei/l
-	k[1][1], k[1][2], k[1][4], k[1][5] = a, b, -a, b
-	k[2][1], k[2][2], k[2][4], k[2][5] = b, d, -b, f
-	k[4][1], k[4][2], k[4][4], k[4][5] = -a, -b, a, -b
-	k[5][1], k[5][2], k[5][4], k[5][5] = b, f, -b, d
+	at := [4]int{1, 2, 4, 5}
+	for i, r := range at {
+		for j, c := range at {
+			k[r][c] = bend[i][j]
+		}
+	}
 	e.full = e.k
-	if mem.Release.AtStart() {
+	if rel.AtStart() {
 		condense(k, nil, 2)
 	}
-	if mem.Release.AtEnd() {
+	if rel.AtEnd() {
 		condense(k, nil, 5)
 	}
 	return e

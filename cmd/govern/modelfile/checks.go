@@ -13,6 +13,27 @@ import (
 // member a selector picks and each member a case's self weight loads.
 const MaxMemberLoads = 5_000_000
 
+// MaxStationValues is the most station values (members × stations) the
+// envelopes of a model may hold. The command refuses a model past it
+// before the analysis, asking for fewer stations; the reader refuses one
+// whose members are too many for it at the fewest stations there can be,
+// two (the ends of each member), where fewer stations cannot help.
+const MaxStationValues = 1_000_000
+
+// maxMembers is the most members MaxStationValues admits, at two stations.
+const maxMembers = MaxStationValues / 2
+
+// tooManyMembers returns the problem of a model of n members, what (such
+// as "the model has") saying where they come from and how to have fewer,
+// or nil when they fit.
+func tooManyMembers(n int, what, fewer string) error {
+	if n <= maxMembers {
+		return nil
+	}
+	return problem(ErrTooLarge, "%s %s members, whose envelopes would hold at least %s station values (two a member, its ends, the fewest there can be); the limit is %s station values, which admits %s members: %s",
+		what, Thousands(n), Thousands(2*n), Thousands(MaxStationValues), Thousands(maxMembers), fewer)
+}
+
 // checks holds what the model-wide checks need beyond the model itself.
 type checks struct {
 	nodeAt   tablesBy // the [[node]] table that defined or changed each node
@@ -116,6 +137,9 @@ func (r *reader) checkModel(top *table) {
 	if free > frame.MaxEquations {
 		r.fail(0, "", problem(ErrTooLarge, "the model has %s free degrees of freedom (%s nodes); the limit is %s",
 			Thousands(free), Thousands(len(mo.Nodes)), Thousands(frame.MaxEquations)))
+	}
+	if err := tooManyMembers(len(mo.Members), "the model has", "use fewer members"); err != nil {
+		r.fail(0, "", err)
 	}
 }
 

@@ -232,6 +232,8 @@ func TestReadBadInput(t *testing.T) {
 		// Limits.
 		{name: "grid past a million degrees of freedom", edit: []string{"[[section]]", "[grid]\nbays = [" + strings.Repeat("1.0, ", 999) + "1.0]\nstoreys = [" + strings.Repeat("1.0, ", 399) + "1.0]\ncolumn = \"S\"\nbeam = \"S\"\n[[section]]"},
 			want: "m.toml:1: [grid]: 1001 column lines × 401 levels make 401,401 nodes with 1,201,200 free degrees of freedom; the limit is 1,000,000\n" + gridNote, sentinel: ErrTooLarge},
+		{name: "grid past 500,000 members", edit: []string{"[[section]]", "[grid]\nbays = [" + strings.Repeat("1.0, ", 998) + "1.0]\nstoreys = [" + strings.Repeat("1.0, ", 299) + "1.0]\ncolumn = \"S\"\nbeam = \"S\"\n[[section]]"},
+			want: "m.toml:1: [grid]: 1000 column lines × 301 levels make 599,700 members, whose envelopes would hold at least 1,199,400 station values (two a member, its ends, the fewest there can be); the limit is 1,000,000 station values, which admits 500,000 members: use fewer bays or storeys\n" + gridNote, sentinel: ErrTooLarge},
 		{name: "more entries than the limit", src: "x = [" + strings.Repeat("{},", MaxEntries/inlineEntries) + "{}]\n",
 			want: "m.toml: the file has 6,000,004 entries (keys and tables, an inline table counting as 3); the limit is 6,000,000", sentinel: ErrTooLarge},
 	} {
@@ -251,6 +253,35 @@ func TestReadBadInput(t *testing.T) {
 				t.Errorf("error does not wrap %v", tc.sentinel)
 			}
 		})
+	}
+}
+
+func TestMembersPastTheStationLimit(t *testing.T) {
+	// A grid of 999 bays × 250 storeys has 499,750 members, within the
+	// limit; a chain of 251 more members beside it passes it, which no
+	// number of stations can help: the message asks for fewer members.
+	var b strings.Builder
+	fmt.Fprintf(&b, "[grid]\nbays = [%s1.0]\nstoreys = [%s1.0]\ncolumn = \"S\"\nbeam = \"S\"\n", strings.Repeat("1.0, ", 998), strings.Repeat("1.0, ", 249))
+	b.WriteString("[[section]]\nname = \"S\"\nE = 200e6\nA = 0.01\nI = 1e-4\n")
+	for i := range 251 {
+		fmt.Fprintf(&b, "[[node]]\nname = \"x%d\"\nx = %d\ny = -1\n", i, i)
+		from := fmt.Sprintf("x%d", i-1)
+		if i == 0 {
+			from = "A0"
+		}
+		fmt.Fprintf(&b, "[[member]]\nstart = %q\nend = \"x%d\"\nsection = \"S\"\n", from, i)
+	}
+	b.WriteString("[[case]]\nname = \"G\"\nkind = \"dead\"\n")
+	_, err := Read("m.toml", []byte(b.String()))
+	want := "m.toml: the model has 500,001 members, whose envelopes would hold at least 1,000,002 station values (two a member, its ends, the fewest there can be); the limit is 1,000,000 station values, which admits 500,000 members: use fewer members"
+	if err == nil || err.Error() != want {
+		t.Fatalf("err = %v\nwant %s", err, want)
+	}
+	if !errors.Is(err, ErrTooLarge) {
+		t.Errorf("error does not wrap ErrTooLarge")
+	}
+	if tooManyMembers(MaxStationValues/2, "the model has", "use fewer members") != nil {
+		t.Errorf("refused %d members, which fit at two stations", MaxStationValues/2)
 	}
 }
 

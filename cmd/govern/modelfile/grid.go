@@ -82,6 +82,23 @@ func (r *reader) readGrid(t *table) {
 			ok = false
 		}
 	}
+	// Lines or levels closer than coordTol would put every node of one on
+	// a node of the other: say so once, here, not node by node.
+	for key, v := range map[string][]float64{"bays": bays, "storeys": storeys} {
+		at, name := 0.0, func(i int) string { return "column lines " + LineName(i) + " and " + LineName(i+1) }
+		if key == "storeys" {
+			name = func(i int) string { return fmt.Sprintf("levels %d and %d", i, i+1) }
+		}
+		for i, x := range v {
+			next := at + x
+			if x > 0 && !(next-at > coordTol) {
+				t.fail(key, problem(ErrValue, "%s[%d] = %g puts %s %.2g apart, not more than %g, the distance within which two nodes are one position",
+					key, i+1, x, name(i), next-at, coordTol))
+				ok = false
+			}
+			at = next
+		}
+	}
 	base := t.str("base", "fixed")
 	if !t.oneOf("base", base, "fixed", "pinned") {
 		ok = false
@@ -115,6 +132,10 @@ func (r *reader) readGrid(t *table) {
 	if free > frame.MaxEquations {
 		t.fail("", problem(ErrTooLarge, "%d column lines × %d levels make %s nodes with %s free degrees of freedom; the limit is %s",
 			lines, levels, Thousands(lines*levels), Thousands(free), Thousands(frame.MaxEquations)))
+		return
+	}
+	if err := tooManyMembers(lines*(levels-1)+(lines-1)*(levels-1), fmt.Sprintf("%d column lines × %d levels make", lines, levels), "use fewer bays or storeys"); err != nil {
+		t.fail("", err)
 		return
 	}
 	g := &Grid{Spacing: spacing}

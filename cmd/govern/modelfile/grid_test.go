@@ -38,6 +38,14 @@ func TestGridProblemIsReportedOnce(t *testing.T) {
 			"m.toml:9: [grid]: bays[2] must be a number, not a string"},
 		{"a negative storey", []string{"storeys = [4.0, 3.0]", "storeys = [4.0, -3.0]"},
 			"m.toml:10: [grid]: storeys[2] = -3: must be greater than zero"},
+		// Lines or levels within the coincidence tolerance (1e-9) of each
+		// other would put every node of one on a node of the other.
+		{"a bay shorter than the coincidence tolerance", []string{"bays = [6.0, 4.0]", "bays = [6.0, 1e-12]"},
+			"m.toml:9: [grid]: bays[2] = 1e-12 puts column lines B and C 1e-12 apart, not more than 1e-09, the distance within which two nodes are one position"},
+		{"a bay lost in the rounding of the one before", []string{"bays = [6.0, 4.0]", "bays = [1e17, 4.0]"},
+			"m.toml:9: [grid]: bays[2] = 4 puts column lines B and C 0 apart, not more than 1e-09, the distance within which two nodes are one position"},
+		{"a storey of the coincidence tolerance", []string{"storeys = [4.0, 3.0]", "storeys = [1e-9, 3.0]"},
+			"m.toml:10: [grid]: storeys[1] = 1e-09 puts levels 0 and 1 1e-09 apart, not more than 1e-09, the distance within which two nodes are one position"},
 		{"an unknown column section", []string{`column = "C"`, `column = "C1"`},
 			`m.toml:12: [grid]: column = "C1": no such section (did you mean "C"?)`},
 		{"an unknown base", []string{`base = "pinned"`, `base = "hinged"`},

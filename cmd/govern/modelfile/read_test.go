@@ -368,23 +368,31 @@ func TestWriteMemoryModels(t *testing.T) {
 		file    string
 		write   func(io.Writer)
 		entries int // of the full-size file
+		// reads, for the frames: "yes" when the reader accepts the file,
+		// "members" when it refuses it for its members alone.
+		reads string
 	}{
-		{"nodes-50MB.toml", func(w io.Writer) { nodes(w, 1_068_137) }, 4_272_556},
-		{"nodes-limit.toml", func(w io.Writer) { nodes(w, 1_499_990) }, 5_999_968},
+		{"nodes-50MB.toml", func(w io.Writer) { nodes(w, 1_068_137) }, 4_272_556, ""},
+		{"nodes-limit.toml", func(w io.Writer) { nodes(w, 1_499_990) }, 5_999_968, ""},
 		{"inline-limit.toml", func(w io.Writer) {
 			io.WriteString(w, "x = [")
 			for range 1_499_990 {
 				io.WriteString(w, "{a=1},")
 			}
 			io.WriteString(w, "{a=1}]\n")
-		}, 5_999_965},
-		{"frame-limit.toml", func(w io.Writer) { frame(w, 59, 4585, 0) }, 5_992_914},
-		{"frame-comments-limit.toml", func(w io.Writer) { frame(w, 59, 4585, 423_342) }, 5_992_914},
+		}, 5_999_965, ""},
+		// The frame that fills the entry limit has more members than the
+		// envelopes admit: it is read, then refused.
+		{"frame-entries.toml", func(w io.Writer) { frame(w, 59, 4585, 0) }, 5_992_914, "members"},
+		{"frame-comments-limit.toml", func(w io.Writer) { frame(w, 59, 4585, 423_342) }, 5_992_914, ""},
+		// A frame of as many members as the envelopes admit (499,956 of
+		// 500,000), narrow enough for the solver's memory limit.
+		{"frame-limit.toml", func(w io.Writer) { frame(w, 30, 8196, 0) }, 5_483_298, "yes"},
 		{"comments-limit.toml", func(w io.Writer) {
 			for range 1_342_176 {
 				io.WriteString(w, "# "+strings.Repeat("x", 97)+"\n")
 			}
-		}, 0},
+		}, 0, ""},
 	} {
 		var b bytes.Buffer
 		m.write(&b)
@@ -394,6 +402,17 @@ func TestWriteMemoryModels(t *testing.T) {
 		}
 		if err := os.WriteFile(filepath.Join(*memoryModels, m.file), b.Bytes(), 0o644); err != nil {
 			t.Fatal(err)
+		}
+		if m.reads == "" {
+			continue
+		}
+		_, err := Read(m.file, b.Bytes())
+		var es ErrorList
+		switch {
+		case m.reads == "yes" && err != nil:
+			t.Errorf("%s: %v", m.file, err)
+		case m.reads == "members" && (!errors.As(err, &es) || len(es) != 1 || !errors.Is(err, ErrTooLarge) || !strings.HasSuffix(err.Error(), "use fewer members")):
+			t.Errorf("%s: %v, want the one problem of too many members", m.file, err)
 		}
 	}
 }
