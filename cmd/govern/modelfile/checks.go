@@ -2,6 +2,7 @@ package modelfile
 
 import (
 	"fmt"
+	"govern/envelope/analysis"
 	"maps"
 	"math"
 	"slices"
@@ -14,11 +15,11 @@ import (
 const MaxMemberLoads = 5_000_000
 
 // MaxStationValues is the most station values (members × stations) the
-// envelopes of a model may hold. The command refuses a model past it
-// before the analysis, asking for fewer stations; the reader refuses one
-// whose members are too many for it at the fewest stations there can be,
-// two (the ends of each member), where fewer stations cannot help.
-const MaxStationValues = 1_000_000
+// envelopes of a model may hold: analysis.MaxStationValues. The analysis
+// refuses a model past it, asking for fewer stations; the reader refuses
+// one whose members are too many for it at the fewest stations there can
+// be, two (the ends of each member), where fewer stations cannot help.
+const MaxStationValues = analysis.MaxStationValues
 
 // maxMembers is the most members MaxStationValues admits, at two stations.
 const maxMembers = MaxStationValues / 2
