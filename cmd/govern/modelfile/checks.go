@@ -2,11 +2,11 @@ package modelfile
 
 import (
 	"fmt"
-	"govern/envelope/analysis"
 	"maps"
 	"math"
 	"slices"
 
+	"govern/envelope/analysis"
 	"govern/frame"
 )
 
