@@ -31,6 +31,19 @@ type Alternative struct {
 	// Reversible is set when any of its cases is: the whole alternative
 	// changes sign, its cases together.
 	Reversible bool
+	// Joined lists the sets of its cases that were joined explicitly, each
+	// in model order: the cases that share an explicit alternative name
+	// (the whole alternative), or else a case and those that name it with
+	// with, through chains. Only sets of two or more cases are listed; nil
+	// when there are none. Where variable loads act only where adverse,
+	// each set acts as a whole, all its cases or none (package envelope,
+	// Settings.Groups): they are parts of one load, such as a wall
+	// pressure and the roof suction of one wind direction. The other cases
+	// of the alternative were put together by the default rule of their
+	// kind (the live cases of several floors) and each still acts on its
+	// own where adverse, since loading only part of the structure may be
+	// worse (partial loading).
+	Joined [][]int
 }
 
 // Place is where a case is: the index of its action in [Actions.List]
@@ -38,6 +51,7 @@ type Alternative struct {
 type Place struct{ Action, Alternative int }
 
 // Actions is a model's load cases grouped into actions and alternatives.
+// It is built by [GroupActions]; its slices are not to be changed.
 type Actions struct {
 	List []Action // in the order of their first case
 	Of   []Place  // per case
@@ -70,7 +84,8 @@ func grouped(k Kind) (oneAction, eachAlternative bool) {
 // own. A case with With takes the action and alternative of the case it
 // names (of the same kind; chains are followed). Alternative without
 // Action keeps the kind's action (for rain and other, one action named
-// after the kind).
+// after the kind). The cases joined explicitly, by With or by sharing an
+// Alternative, are listed as sets in their alternative's Joined.
 //
 // Dead cases take none of the three keys: permanent actions always act.
 // Problems are returned as [CaseErrors], each at the case and key at fault.
@@ -168,6 +183,10 @@ func GroupActions(cases []Case, info []CaseInfo) (*Actions, error) {
 	}
 
 	a := &Actions{Of: make([]Place, len(cases))}
+	// joinKey says, per case, which set of explicitly joined cases of its
+	// alternative it is in: "a" for every case of an explicitly named
+	// alternative, else "r" and the root of its with chain.
+	joinKey := make([]string, len(cases))
 	actionOf := map[string]int{} // action key → index into a.List
 	altOf := map[string]int{}    // action index + alternative key → index
 	firstCase := map[int]int{}   // action index → the case that made it
@@ -230,6 +249,10 @@ func GroupActions(cases []Case, info []CaseInfo) (*Actions, error) {
 		}
 		alt := &act.Alternatives[li]
 		alt.Cases = append(alt.Cases, i)
+		joinKey[i] = "r" + strconv.Itoa(r)
+		if rc.Alternative != "" {
+			joinKey[i] = "a"
+		}
 		alt.Reversible = alt.Reversible || ci.Reversible
 		a.Of[i] = Place{Action: ai, Alternative: li}
 		if ci.Action != "" || ci.Alternative != "" || ci.With != "" {
@@ -240,8 +263,68 @@ func GroupActions(cases []Case, info []CaseInfo) (*Actions, error) {
 		sortCaseErrors(errs)
 		return nil, errs
 	}
+	for ai := range a.List {
+		for li := range a.List[ai].Alternatives {
+			alt := &a.List[ai].Alternatives[li]
+			alt.Joined = joinedSets(alt.Cases, joinKey)
+		}
+	}
 	a.Note = defaultNote(cases, keyed)
 	return a, nil
+}
+
+// joinedSets returns the cases of an alternative that share a join key
+// (see GroupActions), set by set in the order of their first case, each
+// in model order; only sets of two or more.
+func joinedSets(cs []int, key []string) [][]int {
+	var out [][]int
+	at := map[string]int{}
+	for _, c := range cs {
+		i, ok := at[key[c]]
+		if !ok {
+			i = len(out)
+			at[key[c]] = i
+			out = append(out, nil)
+		}
+		out[i] = append(out[i], c)
+	}
+	sets := out[:0]
+	for _, s := range out {
+		if len(s) > 1 {
+			sets = append(sets, s)
+		}
+	}
+	if len(sets) == 0 {
+		return nil
+	}
+	return sets
+}
+
+// Groups returns, per case, the index of the set of explicitly joined
+// cases it is in (an entry of some [Alternative.Joined], numbered in the
+// order of the actions, their alternatives and their sets), or -1 for a
+// case joined explicitly with no other; nil when no case is. It is what
+// envelope.Settings.Groups takes.
+func (a *Actions) Groups() []int {
+	var g []int
+	n := 0
+	for _, act := range a.List {
+		for _, alt := range act.Alternatives {
+			for _, set := range alt.Joined {
+				if g == nil {
+					g = make([]int, len(a.Of))
+					for c := range g {
+						g[c] = -1
+					}
+				}
+				for _, c := range set {
+					g[c] = n
+				}
+				n++
+			}
+		}
+	}
+	return g
 }
 
 // defaultNote describes the wind, seismic and snow cases grouped by

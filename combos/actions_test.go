@@ -397,3 +397,72 @@ func TestActionsClash(t *testing.T) {
 		})
 	}
 }
+
+func TestJoinedSets(t *testing.T) {
+	// Cases joined explicitly (with, or two or more sharing an explicit
+	// alternative) are parts of one load and are listed as a set; cases put
+	// together only by the default rule of their kind, such as the live
+	// loads of several floors, are not, since loading part of the
+	// structure may be worse (ASCE/SEI 7-16 section 4.3.3, partial
+	// loading; EN 1991-1-1 section 6.2.1(1), imposed loads placed for the
+	// most unfavourable effect).
+	for _, tc := range []struct {
+		name   string
+		specs  []string
+		joined string // sets, "+" within, "; " between
+		groups []int
+	}{
+		{"with joins a wall pressure and a roof suction of each direction",
+			[]string{"G dead", "WL wind", "WLr wind with=WL", "WR wind", "WRr wind with=WR"},
+			"WL+WLr; WR+WRr", []int{-1, 0, 0, 1, 1}},
+		{"wind directions by default: each alone",
+			[]string{"G dead", "WL wind", "WR wind"}, "", nil},
+		{"live cases by default act together, each on its own where adverse",
+			[]string{"G dead", "L1 live", "L2 live"}, "", nil},
+		{"with inside the live action: only the cases it joins",
+			[]string{"L1 live", "L2 live", "L2p live with=L2"},
+			"L2+L2p", []int{-1, 0, 0}},
+		{"a named alternative of two cases is one set, the rest of the kind alone",
+			[]string{"L1 live alternative=a", "L3 live", "L2 live alternative=a"},
+			"L1+L2", []int{0, -1, 0}},
+		{"a named alternative of one case joins nothing",
+			[]string{"T1 other alternative=summer", "T2 other alternative=winter"}, "", nil},
+		{"a named action alone joins nothing: its live cases act together by default",
+			[]string{"Q1 live action=office", "Q3 live action=office"}, "", nil},
+		{"with into a named alternative joins the whole alternative",
+			[]string{"Sb snow alternative=balanced", "Sd snow with=Sb", "Su snow alternative=unbalanced", "Sx snow alternative=balanced"},
+			"Sb+Sd+Sx", []int{0, 0, -1, 0}},
+		{"chains of with, whatever the order",
+			[]string{"A wind with=B", "B wind with=C", "C wind", "D wind"},
+			"A+B+C", []int{0, 0, 0, -1}},
+		{"with on rain cases, each an action of its own by default",
+			[]string{"R1 rain", "R2 rain with=R1", "R3 rain"},
+			"R1+R2", []int{0, 0, -1}},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			cs, info := cases(t, tc.specs...)
+			a, err := GroupActions(cs, info)
+			if err != nil {
+				t.Fatal(err)
+			}
+			var sets []string
+			for _, act := range a.List {
+				for _, alt := range act.Alternatives {
+					for _, set := range alt.Joined {
+						var names []string
+						for _, c := range set {
+							names = append(names, cs[c].Name)
+						}
+						sets = append(sets, strings.Join(names, "+"))
+					}
+				}
+			}
+			if got := strings.Join(sets, "; "); got != tc.joined {
+				t.Errorf("joined %q, want %q", got, tc.joined)
+			}
+			if got := a.Groups(); !slices.Equal(got, tc.groups) || (got == nil) != (tc.groups == nil) {
+				t.Errorf("groups %v, want %v", got, tc.groups)
+			}
+		})
+	}
+}

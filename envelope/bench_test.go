@@ -53,21 +53,30 @@ func regularFrame(bays, storeys int) *frame.Model {
 // 11 stations per member over the combinations of frameCombos and a
 // service combination D+L, for each way of placing the patterned live
 // loads L and Lr. Exhaustive placement is measured on a frame small enough
-// for it (at most patterns.MaxExhaustive pieces).
+// for it (at most patterns.MaxExhaustive pieces). The "joined" runs put L
+// and Lr in one group (Settings.Groups), which takes the path of
+// combinations with joined terms; with patterns "full" the two act as
+// whole cases, so the group decides for every station.
 func BenchmarkCompute(b *testing.B) {
 	cs := append(frameCombos(), combos.Combination{Name: "D+L", Service: true, Terms: []combos.Term{{Case: 0, Factor: 1}, {Case: 1, Factor: 1}}})
 	for _, bc := range []struct {
 		mode          patterns.Mode
 		bays, storeys int
 		segments      int
+		groups        []int
 	}{
-		{patterns.Full, 10, 10, 1},
-		{patterns.Exact, 10, 10, 1},
-		{patterns.Exact, 10, 10, 3},
-		{patterns.Code, 10, 10, 1},
-		{patterns.Exhaustive, 3, 3, 1},
+		{patterns.Full, 10, 10, 1, nil},
+		{patterns.Exact, 10, 10, 1, nil},
+		{patterns.Exact, 10, 10, 3, nil},
+		{patterns.Code, 10, 10, 1, nil},
+		{patterns.Exhaustive, 3, 3, 1, nil},
+		{patterns.Full, 10, 10, 1, []int{-1, 0, 0, -1}},
+		{patterns.Exact, 10, 10, 1, []int{-1, 0, 0, -1}},
 	} {
 		name := fmt.Sprintf("%s/%dx%d/segments=%d", bc.mode, bc.bays, bc.storeys, bc.segments)
+		if bc.groups != nil {
+			name += "/joined"
+		}
 		b.Run(name, func(b *testing.B) {
 			lay, err := patterns.Expand(regularFrame(bc.bays, bc.storeys), []int{1, 2}, bc.segments, bc.mode)
 			if err != nil {
@@ -77,7 +86,7 @@ func BenchmarkCompute(b *testing.B) {
 			if err != nil {
 				b.Fatal(err)
 			}
-			set := Settings{Kinds: kindsOf(sol, lay), Stations: 11}
+			set := Settings{Kinds: kindsOf(sol, lay), Stations: 11, Groups: bc.groups}
 			b.ReportAllocs()
 			b.ResetTimer()
 			for b.Loop() {

@@ -52,8 +52,13 @@ func (pl *codePlacement) extremes(e *evaluator, w *work) [3]Extreme {
 
 func (pl *codePlacement) combine(e *evaluator, w *work, k, j int, hi bool) [3]float64 {
 	var tot [3]float64
-	for _, t := range e.cs[k].Terms {
-		addWhole(&tot, &w.ev[t.Case], t.Factor, e.always[t.Case], j, hi)
+	act := e.acting(w, k, j, hi)
+	for i, t := range e.cs[k].Terms {
+		if act == nil {
+			addWhole(&tot, &w.ev[t.Case], t.Factor, e.always[t.Case], j, hi)
+		} else if act[i] {
+			add(&tot, &w.ev[t.Case], t.Factor)
+		}
 		p := e.patternOf[t.Case]
 		if p < 0 {
 			continue

@@ -65,6 +65,7 @@ func Compute(sol *frame.Solution, cs []combos.Combination, set Settings, lay *pa
 	if len(env.Service) > 0 {
 		d := *e
 		d.cs, d.index, d.nEff = pick(cs, env.Service), env.Service, 1
+		d.plan()
 		e.defl = &d
 	}
 	if lay != nil {

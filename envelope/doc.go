@@ -36,6 +36,11 @@
 // the extreme being sought worse, and is left off where it would relieve it
 // (the design standards' requirement to investigate the effects of loads not
 // acting; with EN 1990 this is γQ = 0 for favourable variable actions).
+// Cases joined into one load ([Settings.Groups]: a wall pressure and the
+// roof suction of one wind direction entered as two cases) act as a
+// whole instead: all at their factors or none, as the sum of their
+// factored effects decides; cases in no group, such as the live cases of
+// several floors, act each on its own where adverse (partial loading).
 // [Settings.AsWritten] makes every case always act instead.
 //
 // Cases patterned by package patterns are placed piece by piece as the
@@ -56,8 +61,9 @@
 // than two stations, extra stations off their member, lines that name no
 // node and combination terms that name no load case; an empty list of
 // combinations is [ErrNoCombinations]. Settings.Kinds that does not give
-// one kind per load case, and a solution that is not of the layout's
-// model, are programmer errors: Compute panics.
+// one kind per load case, Settings.Groups that does not give one group
+// per case or joins a permanent case, and a solution that is not of the
+// layout's model, are programmer errors: Compute panics.
 //
 // # Mutation
 //
@@ -65,6 +71,7 @@
 // -1 means no combination. Compute never mutates the solution, the
 // combinations, the settings or the layout it is given; it only adds to
 // the counter [Settings.Progress] points to. The [Envelope] shares their
-// slices (Combinations, Settings.Extra, Kinds and Lines, the layout's
-// Pieces) with the caller, who must not change them while it is in use.
+// slices (Combinations, Settings.Extra, Kinds, Groups and Lines, the
+// layout's Pieces) with the caller, who must not change them while it is
+// in use.
 package envelope

@@ -25,6 +25,9 @@ type evaluator struct {
 	always    []bool // column acts whatever its sign (permanent, or as written)
 	patternOf []int  // original case → index into lay.Patterned, or -1
 	first     []int  // column of each patterned case's first unit; its units follow in order
+	// joined gives, per combination of cs, its groups of joined terms
+	// (joined.go); nil when no combination has any, or as written.
+	joined []joinPlan
 }
 
 func newEvaluator(mo *frame.Model, cs []combos.Combination, idx []int, nEff int, set Settings, lay *patterns.Layout) *evaluator {
@@ -38,6 +41,8 @@ func newEvaluator(mo *frame.Model, cs []combos.Combination, idx []int, nEff int,
 	if len(set.Kinds) != e.nOrig {
 		panic(fmt.Sprintf("envelope: Settings.Kinds gives %d kinds for %d load cases", len(set.Kinds), e.nOrig))
 	}
+	checkGroups(set.Groups, set.Kinds)
+	e.plan()
 	e.always = make([]bool, len(mo.Cases))
 	for c := range e.nOrig {
 		e.always[c] = set.AsWritten || set.Kinds[c].Permanent()
@@ -64,6 +69,15 @@ func newEvaluator(mo *frame.Model, cs []combos.Combination, idx []int, nEff int,
 	return e
 }
 
+// plan forms the groups of joined terms of each combination of e.cs:
+// none as written, where every case acts whatever its sign.
+func (e *evaluator) plan() {
+	e.joined = nil
+	if !e.set.AsWritten {
+		e.joined = joinPlans(e.cs, e.set.Groups)
+	}
+}
+
 // work is one goroutine's scratch space.
 type work struct {
 	// The current member, filled by evaluate: its stations and the values
@@ -83,6 +97,11 @@ type work struct {
 	// The current station, read by station.
 	ev    [][3]float64 // effects of every column
 	noise [3]float64   // effects of a piece at or below these are round-off
+
+	// The current combination's joined groups (see acting): whether each
+	// term acts, and each group's sum.
+	act   []bool
+	group []float64
 
 	place placement   // how the patterned cases' units are placed, with its scratch
 	lists [6]spanList // pieces being collected: max and min of N, V, M

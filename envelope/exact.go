@@ -73,13 +73,14 @@ func (pl *exactPlacement) scan(e *evaluator, w *work) {
 				if a > big[j][s] {
 					big[j][s] = a
 				}
-				// thr is what a unit must reach to be listed: spanShare of
-				// the largest so far and, once the heap is full, more than
-				// its smallest. Most units fall short at this one test.
+				// thr is what a unit must reach to be listed: w.share of
+				// the largest so far (spanShare, or 0 with AllSpans) and,
+				// once the heap is full, more than its smallest. Most units
+				// fall short at this one test.
 				if a >= thr[j][s] {
 					h := keepLargest(top[j][s], candidate{piece: i, a: a}, w.limit)
 					top[j][s] = h
-					t := spanShare * big[j][s]
+					t := w.share * big[j][s]
 					if len(h) == w.limit && h[0].a > t {
 						t = math.Nextafter(h[0].a, math.Inf(1))
 					}
@@ -117,8 +118,13 @@ func (pl *exactPlacement) extremes(e *evaluator, w *work) [3]Extreme {
 // largest unfactored effect is wanted.
 func (pl *exactPlacement) combine(e *evaluator, w *work, k, j int, hi bool) [3]float64 {
 	var tot [3]float64
-	for _, t := range e.cs[k].Terms {
-		addWhole(&tot, &w.ev[t.Case], t.Factor, e.always[t.Case], j, hi)
+	act := e.acting(w, k, j, hi)
+	for i, t := range e.cs[k].Terms {
+		if act == nil {
+			addWhole(&tot, &w.ev[t.Case], t.Factor, e.always[t.Case], j, hi)
+		} else if act[i] {
+			add(&tot, &w.ev[t.Case], t.Factor)
+		}
 		p := e.patternOf[t.Case]
 		if p < 0 {
 			continue

@@ -113,3 +113,128 @@ func TestExactSumsAndListsAgainstSorting(t *testing.T) {
 		}
 	}
 }
+
+func TestAllSpansListsEveryLoadedPiece(t *testing.T) {
+	// With AllSpans every loaded piece is listed, whatever its share of
+	// the largest and wherever it comes in piece order: the list is that of
+	// sorting every unit of the adverse sign by its influence (brute force).
+	rng := rand.New(rand.NewPCG(11, 29))
+	for _, f := range []float64{1.6, -0.9} {
+		for trial := range 10 {
+			e, _ := onePatterned(patterns.Exact, 120, f)
+			e.set.AllSpans = true
+			w := e.scratch()
+			w.noise = scatter(rng, w.ev)
+			units := w.ev[1:]
+			// Half the trials put the units in decreasing size of M, the
+			// order that hid the small ones behind a large one before them.
+			if trial%2 == 1 {
+				slices.SortFunc(units, func(x, y [3]float64) int { return -cmpFloat(math.Abs(x[2]), math.Abs(y[2])) })
+			}
+			pl := w.place.(*exactPlacement)
+			pl.scan(e, w)
+			for j := range 3 {
+				for _, hi := range []bool{true, false} {
+					positive := hi == (f >= 0)
+					var loaded []candidate
+					for i, v := range units {
+						if (positive && v[j] > w.noise[j]) || (!positive && v[j] < -w.noise[j]) {
+							loaded = append(loaded, candidate{piece: 100 + i, a: math.Abs(v[j] * f)})
+						}
+					}
+					slices.SortFunc(loaded, byInfluence)
+					var want []int
+					for _, c := range loaded {
+						want = append(want, c.piece)
+					}
+					var l spanList
+					n := pl.pieces(e, w, &l, 0, 0, j, f, hi)
+					l.order()
+					if n != len(loaded) || !slices.Equal(l.pieces, want) {
+						t.Errorf("f %g trial %d effect %d hi %v: %d loaded, listed %d %v; want %d listed", f, trial, j, hi, n, len(l.pieces), l.pieces, len(want))
+					}
+				}
+			}
+		}
+	}
+	t.Run("a twelve-span beam", func(t *testing.T) {
+		// A continuous beam of twelve spans under live load alone: the
+		// influence of a span dies away by a factor of about 0.27 a span
+		// (common practice for equal spans), so most pieces fall below 1%
+		// of the nearest. Every loaded piece must be listed, and the
+		// pieces listed must sum to the extreme with each of them adverse
+		// and every piece not listed round-off or relieving.
+		mo := beam(12, 5, 0, 10)
+		lay, err := patterns.Expand(mo, []int{1}, 1, patterns.Exact)
+		if err != nil {
+			t.Fatal(err)
+		}
+		sol, err := frame.Solve(lay.Model)
+		if err != nil {
+			t.Fatal(err)
+		}
+		cs := []combos.Combination{{Name: "L", Terms: []combos.Term{{Case: 1, Factor: 1}}}}
+		env, err := Compute(sol, cs, Settings{Kinds: kindsOf(sol, lay), Stations: 5, AllSpans: true}, lay)
+		if err != nil {
+			t.Fatal(err)
+		}
+		column := make(map[int]int) // piece → its column
+		for _, u := range lay.Patterned[0].Units {
+			column[u.Pieces[0]] = u.Column
+		}
+		small := 0 // pieces listed with less than spanShare of the largest
+		for m, em := range env.Members {
+			scale := 0.0
+			for _, st := range em.Stations {
+				scale = math.Max(scale, math.Max(math.Abs(st.M.Max), math.Abs(st.M.Min)))
+			}
+			for _, st := range em.Stations {
+				for _, side := range []struct {
+					v      float64
+					spans  []int
+					loaded int
+					sign   float64
+				}{{st.M.Max, st.M.MaxSpans, st.M.MaxLoaded, 1}, {st.M.Min, st.M.MinSpans, st.M.MinLoaded, -1}} {
+					if len(side.spans) != side.loaded {
+						t.Errorf("member %d x %g: %d pieces listed of %d loaded", m, st.X, len(side.spans), side.loaded)
+					}
+					sum, big := 0.0, 0.0
+					for _, p := range side.spans {
+						big = math.Max(big, math.Abs(sol.At(column[p], m, st.X).M))
+					}
+					for p, c := range column {
+						v := sol.At(c, m, st.X).M
+						if slices.Contains(side.spans, p) {
+							sum += v
+							if math.Abs(v) < spanShare*big {
+								small++
+							}
+							if side.sign*v <= 0 {
+								t.Errorf("member %d x %g: piece %d listed, effect %g", m, st.X, p, v)
+							}
+						} else if side.sign*v > 1e-9*scale {
+							t.Errorf("member %d x %g: piece %d of effect %g not listed", m, st.X, p, v)
+						}
+					}
+					if math.Abs(sum-side.v) > 1e-9*scale {
+						t.Errorf("member %d x %g: listed pieces sum to %g, extreme %g", m, st.X, sum, side.v)
+					}
+				}
+			}
+		}
+		if small == 0 {
+			t.Errorf("no piece listed below %g of the largest: the beam tests nothing past the usual share", spanShare)
+		}
+		t.Logf("%d pieces listed below %g of the largest", small, spanShare)
+	})
+}
+
+func cmpFloat(a, b float64) int {
+	switch {
+	case a < b:
+		return -1
+	case a > b:
+		return 1
+	}
+	return 0
+}

@@ -43,8 +43,13 @@ func (pl *exhaustivePlacement) extremes(e *evaluator, w *work) [3]Extreme {
 func (pl *exhaustivePlacement) combine(e *evaluator, w *work, k, j int, hi bool) [3]float64 {
 	var tot [3]float64
 	ex := pl.terms[:0]
-	for _, t := range e.cs[k].Terms {
-		addWhole(&tot, &w.ev[t.Case], t.Factor, e.always[t.Case], j, hi)
+	act := e.acting(w, k, j, hi)
+	for i, t := range e.cs[k].Terms {
+		if act == nil {
+			addWhole(&tot, &w.ev[t.Case], t.Factor, e.always[t.Case], j, hi)
+		} else if act[i] {
+			add(&tot, &w.ev[t.Case], t.Factor)
+		}
 		if p := e.patternOf[t.Case]; p >= 0 {
 			ex = exTerms(e, w, ex, p, t.Factor)
 		}

@@ -16,8 +16,9 @@ import (
 // combinations, the layout and the effects enveloped.
 //
 // Every placement places a case that is not patterned, and a patterned
-// case's rest, as a whole (addWhole), in the order of the combination's
-// terms, so that sums are formed in the same order whatever the placement.
+// case's rest, as a whole (addWhole, or with its joined group: acting,
+// joined.go), in the order of the combination's terms, so that
+// sums are formed in the same order whatever the placement.
 type placement interface {
 	// scan reads the units' effects at the station (w.ev, with round-off
 	// w.noise) and keeps what combine and pieces need. It is called once
@@ -99,8 +100,13 @@ func (pl noPlacement) extremes(e *evaluator, w *work) [3]Extreme {
 
 func (pl noPlacement) combine(e *evaluator, w *work, k, j int, hi bool) [3]float64 {
 	var tot [3]float64
-	for _, t := range e.cs[k].Terms {
-		addWhole(&tot, &w.ev[t.Case], t.Factor, e.always[t.Case], j, hi)
+	act := e.acting(w, k, j, hi)
+	for i, t := range e.cs[k].Terms {
+		if act == nil {
+			addWhole(&tot, &w.ev[t.Case], t.Factor, e.always[t.Case], j, hi)
+		} else if act[i] {
+			add(&tot, &w.ev[t.Case], t.Factor)
+		}
 	}
 	return tot
 }

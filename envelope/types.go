@@ -79,6 +79,19 @@ type Settings struct {
 	// unless AsWritten. Compute panics when it does not give one kind per
 	// case.
 	Kinds []combos.Kind
+	// Groups, when not nil, gives for each load case of Kinds the group of
+	// cases it is joined to, -1 for none: cases joined explicitly into one
+	// alternative of an action, parts of one load (see
+	// combos.Actions.Groups). Where variable cases act only where adverse,
+	// the terms of one group in a combination act as a whole, all at their
+	// factors or none, as the sum of their factored effects makes the
+	// extreme sought worse or not; a patterned case's rest follows its
+	// group, its pieces are still placed one by one. Cases in no group
+	// (the live cases of several floors, which the standards load part by
+	// part) act each on its own where adverse. Compute panics when Groups
+	// does not give one group per case of Kinds, gives a group below -1,
+	// or puts a permanent case in a group.
+	Groups []int
 	// AsWritten makes every case of a combination act with its factor
 	// everywhere, instead of variable cases acting only where adverse.
 	// Pieces of a case patterned "exact" or "exhaustive" are still placed

@@ -103,7 +103,10 @@ type Job struct {
 	Cases    []combos.Case
 	CaseInfo []combos.CaseInfo
 	// Actions groups the cases into actions and their alternatives, two of
-	// which never act together; nil when not grouped.
+	// which never act together; nil when not grouped. The sets of cases
+	// joined explicitly in an alternative (combos.Alternative.Joined) act
+	// as a whole where variable loads act only where adverse
+	// (envelope.Settings.Groups).
 	Actions      *combos.Actions
 	Combinations []combos.Combination
 	// Set is the rule set the leading combinations were generated from,
@@ -216,6 +219,22 @@ func (j *Job) check() error {
 	}
 	if j.Actions != nil && len(j.Actions.Of) != nc {
 		return fmt.Errorf("analysis: the job's actions place %d cases; the model has %d", len(j.Actions.Of), nc)
+	}
+	if j.Actions != nil {
+		for _, act := range j.Actions.List {
+			for _, alt := range act.Alternatives {
+				for _, set := range alt.Joined {
+					for _, c := range set {
+						if c < 0 || c >= nc {
+							return fmt.Errorf("analysis: the job's actions join case %d; the model has %d", c, nc)
+						}
+						if k := j.Cases[c].Kind; k.Permanent() {
+							return fmt.Errorf("analysis: the job's actions join case %q, of %s load, to others; permanent cases always act and are joined to none", j.Cases[c].Name, k)
+						}
+					}
+				}
+			}
+		}
 	}
 	if len(j.Combinations) == 0 {
 		return errors.New("analysis: the job has no load combinations")

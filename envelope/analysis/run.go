@@ -146,6 +146,9 @@ func Run(ctx context.Context, job *Job, opt Options) (*Result, error) {
 	for c, cc := range job.Cases {
 		set.Kinds[c] = cc.Kind
 	}
+	if job.Actions != nil {
+		set.Groups = job.Actions.Groups()
+	}
 	if opt.Progress != nil {
 		total := len(job.Model.Members) * set.Stations
 		for _, xs := range set.Extra {

@@ -88,6 +88,16 @@ func TestRunTwoSpans(t *testing.T) {
 	})
 }
 
+// joining returns actions for twoSpans' two cases that join cases a and b
+// (which a program might build; combos.GroupActions never joins a dead
+// case).
+func joining(a, b int) *combos.Actions {
+	return &combos.Actions{
+		List: []combos.Action{{Name: "x", Kind: combos.Live, Alternatives: []combos.Alternative{{Name: "x", Cases: []int{a, b}, Joined: [][]int{{a, b}}}}}},
+		Of:   make([]combos.Place, 2),
+	}
+}
+
 func TestRunRefuses(t *testing.T) {
 	for _, tc := range []struct {
 		name string
@@ -105,6 +115,8 @@ func TestRunRefuses(t *testing.T) {
 		{"too many station values", func(j *Job) { j.Settings.Stations = MaxStationValues }, nil, "the envelopes would hold 2,000,000 station values"},
 		{"a term of no case", func(j *Job) { j.Combinations[0].Terms[0].Case = 5 }, nil, "refers to case 5"},
 		{"a patterned case twice", func(j *Job) { j.Patterned = []int{1, 1} }, nil, "patterned case 1"},
+		{"actions that join a dead case", func(j *Job) { j.Actions = joining(0, 1) }, nil, `the job's actions join case "D", of dead load`},
+		{"actions that join no case of the model", func(j *Job) { j.Actions = joining(1, 2) }, nil, "the job's actions join case 2; the model has 2"},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
 			job := twoSpans()
