@@ -74,7 +74,9 @@
 // and reports as 'govern run' does.
 //
 // With --write FILE it writes that model out instead, as a starting point to
-// edit; an existing file is not overwritten.
+// edit; an existing file is not overwritten. With --write - (or a path that
+// names standard output, such as /dev/stdout) the model goes to standard
+// output.
 //
 // Flags:
 //

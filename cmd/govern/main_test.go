@@ -386,6 +386,39 @@ func TestDemoWrite(t *testing.T) {
 	if code, _, stderr := exec("demo", "--write", p); code != 1 || !strings.Contains(stderr, "not overwriting") {
 		t.Errorf("second write: exit %d, %q", code, stderr)
 	}
+	// As govern new does: "-" and a path that names standard output write
+	// the model there, and no file named "-" is made.
+	t.Run("to standard output with -", func(t *testing.T) {
+		dir := t.TempDir()
+		t.Chdir(dir)
+		code, out, stderr := exec("demo", "--write", "-")
+		if code != 0 || out != string(demoModel) {
+			t.Errorf("exit %d, %q; standard output holds %d bytes, want the model's %d", code, stderr, len(out), len(demoModel))
+		}
+		if _, err := os.Lstat(filepath.Join(dir, "-")); !os.IsNotExist(err) {
+			t.Errorf("a file named - was made (%v)", err)
+		}
+	})
+	t.Run("to a path that names standard output", func(t *testing.T) {
+		// Standard output redirected to a file; the path names it through
+		// /proc/self/fd, as /dev/stdout does for the process's own.
+		out, err := os.Create(filepath.Join(t.TempDir(), "redirected"))
+		if err != nil {
+			t.Fatal(err)
+		}
+		defer out.Close()
+		path := fmt.Sprintf("/proc/self/fd/%d", out.Fd())
+		if _, err := os.Stat(path); err != nil {
+			t.Skipf("no %s here", path)
+		}
+		var errb bytes.Buffer
+		if code := govern([]string{"demo", "--write", path}, out, &errb); code != 0 {
+			t.Fatalf("exit %d: %s", code, errb.String())
+		}
+		if b, _ := os.ReadFile(out.Name()); !bytes.Equal(b, demoModel) {
+			t.Errorf("standard output holds %d bytes, not the model alone (%d)", len(b), len(demoModel))
+		}
+	})
 }
 
 func TestComparePatterns(t *testing.T) {
