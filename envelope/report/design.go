@@ -253,9 +253,24 @@ func (p *Report) reactionTable() *Table {
 	return &Table{"Reactions (global: +X right, +Y up, M counter-clockwise)", []string{"node", "component", "max", "governing", "min", "governing"}, rows}
 }
 
-// spanName names a span or cantilever by its end nodes, left to right.
+// spanName names a span, cantilever or rafter by its end nodes, left to
+// right, and a ridge or valley by its node.
 func (p *Report) spanName(s *analysis.Span) string {
+	if s.Kind == analysis.KindRidge || s.Kind == analysis.KindValley {
+		return p.model().Nodes[s.Node].Name
+	}
 	return p.model().Nodes[s.Left].Name + "–" + p.model().Nodes[s.Right].Name
+}
+
+// hasRidges reports whether a run changes slope: whether there are
+// rafters, ridges or valleys.
+func (p *Report) hasRidges() bool {
+	for i := range p.res.Spans {
+		if k := p.res.Spans[i].Kind; k != analysis.KindSpan && k != analysis.KindCantilever {
+			return true
+		}
+	}
+	return false
 }
 
 // spanMembers lists the members of a span: all of up to three, else the
@@ -289,10 +304,7 @@ func (p *Report) deflectionTable() *Table {
 		if !s.Found {
 			continue
 		}
-		kind, level := "span", "-"
-		if r.Cantilever {
-			kind = "cantilever"
-		}
+		kind, level := r.Kind.String(), "-"
 		if r.Beam {
 			level = strconv.Itoa(levels[r.Members[0]].Level)
 		}
@@ -312,6 +324,9 @@ func (p *Report) deflectionTable() *Table {
 	}
 	l := u.Length
 	title := fmt.Sprintf("Deflection of spans and cantilevers, service combinations (+ up, in %s; x from the left end): spans from the chord between their displaced ends, cantilevers from their displaced root", l)
+	if p.hasRidges() {
+		title += "; rafters (the straight parts of a run that changes slope) from the chord between their displaced ends; a ridge or valley, where the slope changes, across the line between the ends of its run, from the chord between them"
+	}
 	return &Table{title, []string{"span", "kind", "members", "level", "length (" + l + ")", "down (" + l + ")", "at x", "governing", "up (" + l + ")", "at x", "governing", "span/deflection (cantilever: 2 × length)"}, rows}
 }
 
