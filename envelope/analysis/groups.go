@@ -55,7 +55,7 @@ func Groups(job *Job) []Group {
 			}
 			levels[lv].Members = append(levels[lv].Members, m)
 		case mo.IsColumn(m):
-			i := lineOf(lines, mo.Nodes[mo.Members[m].Start].X)
+			i := lineOf(lines, mo.Nodes[mo.Bottom(m)].X)
 			byLine[i] = append(byLine[i], m)
 		default:
 			other.Members = append(other.Members, m)
@@ -112,8 +112,8 @@ func columnLines(job *Job) []columnLine {
 	sort.SliceStable(out, func(i, j int) bool { return out[i].x < out[j].x })
 	mo := job.Model
 	var off []columnLine
-	for m, mem := range mo.Members {
-		if x := mo.Nodes[mem.Start].X; mo.IsColumn(m) && nearest(out, x) < 0 && nearest(off, x) < 0 {
+	for m := range mo.Members {
+		if x := mo.Nodes[mo.Bottom(m)].X; mo.IsColumn(m) && nearest(out, x) < 0 && nearest(off, x) < 0 {
 			off = append(off, columnLine{x: x})
 			sort.Slice(off, func(i, j int) bool { return off[i].x < off[j].x })
 		}

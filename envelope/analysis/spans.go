@@ -562,3 +562,27 @@ func ridgeLines(mo *frame.Model, ss []Span) []envelope.Line {
 	}
 	return lines
 }
+
+// HeldAt reports whether node n, an end of member m, holds the span,
+// cantilever or rafter m is part of: whether it is an end of its span, its
+// cantilever's root, or an end of its rafter other than a ridge or
+// valley. It is true for a member of none. A cantilever's free end and a
+// node inside a span hold nothing: there is no support there to design.
+func (r *Result) HeldAt(m, n int) bool {
+	i := r.SpanOf(m)
+	if i < 0 {
+		return true
+	}
+	s := &r.Spans[i]
+	switch s.Kind {
+	case KindCantilever:
+		return n == s.Root
+	case KindRafter:
+		for k := range r.Spans {
+			if t := &r.Spans[k]; !t.ofLine() && t.Node == n {
+				return false
+			}
+		}
+	}
+	return n == s.Left || n == s.Right
+}

@@ -56,7 +56,7 @@ func (p *Report) Tables() []Table {
 
 func newDesign(p *Report) *design {
 	u := p.units()
-	d := &design{governing: fmt.Sprintf("Governing design values%s (in %s; beams: x from the left end, +M sagging; columns: x from the start node)", p.overStrength(), u.Length)}
+	d := &design{governing: fmt.Sprintf("Governing design values%s (in %s; %s: x from the left end, +M sagging; columns: x from the start node)", p.overStrength(), u.Length, p.shownFromLeft())}
 	for _, g := range analysis.Groups(p.job()) {
 		gd := groupDesign{Group: g}
 		switch g.Kind {
@@ -197,9 +197,11 @@ func largestShear(s envelope.Station) (float64, int) {
 	return s.V.Max, s.V.MaxBy
 }
 
-// supportRows gives, for each end of each beam, the least moment (hogging
-// negative) and the largest shear at the centreline of the support and at
-// the column face beside each other; "-" where an end has no face.
+// supportRows gives, for each end of each beam at a support (an end of
+// its span or a cantilever's root, not a free end nor a node inside a
+// span), the least moment (hogging negative) and the largest shear at the
+// centreline of the support and at the column face beside each other; "-"
+// where an end has no face.
 func (p *Report) supportRows(beams []int) [][]string {
 	mo := p.model()
 	var rows [][]string
@@ -208,6 +210,9 @@ func (p *Report) supportRows(beams []int) [][]string {
 		at := p.res.ShownFaces(m)
 		from, to := analysis.ShownEnds(mo, m)
 		for end, node := range [2]int{from, to} {
+			if !p.res.HeldAt(m, node) {
+				continue
+			}
 			cl := em.Stations[0]
 			if end == 1 {
 				cl = em.Stations[len(em.Stations)-1]

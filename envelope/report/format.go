@@ -16,17 +16,25 @@ func clean(v float64) float64 {
 	return v
 }
 
-// fixed formats a value for a table with two decimals.
-func fixed(v float64) string {
-	s := strconv.FormatFloat(v, 'f', 2, 64)
-	if s == "-0.00" {
-		s = "0.00"
+// unsigned drops the minus sign of a number that rounded to zero, such as
+// "-0.00" or "-0": output never shows a negative zero.
+func unsigned(s string) string {
+	if len(s) < 2 || s[0] != '-' {
+		return s
 	}
-	return s
+	for i := 1; i < len(s) && s[i] != 'e'; i++ {
+		if s[i] != '0' && s[i] != '.' {
+			return s
+		}
+	}
+	return s[1:]
 }
 
+// fixed formats a value for a table with two decimals.
+func fixed(v float64) string { return unsigned(strconv.FormatFloat(v, 'f', 2, 64)) }
+
 // fixed3 formats a distance along a member with three decimals.
-func fixed3(v float64) string { return strconv.FormatFloat(clean(v), 'f', 3, 64) }
+func fixed3(v float64) string { return unsigned(strconv.FormatFloat(v, 'f', 3, 64)) }
 
 // sci formats a small positive quantity such as a residual.
 func sci(v float64) string { return strconv.FormatFloat(clean(v), 'e', 1, 64) }
@@ -57,11 +65,11 @@ func short(v float64) string {
 	a := math.Abs(v)
 	switch {
 	case a >= 1000:
-		return strconv.FormatFloat(clean(v), 'f', 0, 64)
+		return unsigned(strconv.FormatFloat(v, 'f', 0, 64))
 	case a >= 10:
-		return strconv.FormatFloat(clean(v), 'f', 1, 64)
+		return unsigned(strconv.FormatFloat(v, 'f', 1, 64))
 	case a >= 0.1:
-		return strconv.FormatFloat(clean(v), 'f', 2, 64)
+		return unsigned(strconv.FormatFloat(v, 'f', 2, 64))
 	}
 	return sig4(v)
 }
@@ -107,7 +115,7 @@ func plain(v float64) string {
 }
 
 // svgNum formats a drawing coordinate: two decimals are plenty.
-func svgNum(v float64) string { return strconv.FormatFloat(v, 'f', 2, 64) }
+func svgNum(v float64) string { return unsigned(strconv.FormatFloat(v, 'f', 2, 64)) }
 
 // relDiff formats a relative difference; below 1e-12 it is round-off and
 // shown as a bound, so that the report does not depend on the last bits of

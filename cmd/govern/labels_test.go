@@ -1,0 +1,108 @@
+package main
+
+import (
+	"math"
+	"strings"
+	"testing"
+)
+
+// Labels that must be true for what they mark, whatever the geometry.
+
+// A column set out a millimetre off plumb over 3 m is a column: the "all
+// columns" and "line A" selectors pick it, it is tabulated on its line
+// (by its lower end, as the selectors count lines), and it gets no
+// span/deflection as a beam would.
+func TestLeaningColumnIsAColumn(t *testing.T) {
+	src := tsection("S", 2e8, 0.01, 1e-4, 0) +
+		tnode("A", 0, 0, "fixed") + tnode("B", 0.001, 3, "") + tnode("C", 6, 3, "") + tnode("D", 6, 0, "fixed") +
+		tmember("A", "B", "S") + tmember("B", "C", "S") + tmember("D", "C", "S") +
+		tdead(tudl("B-C", 10)) +
+		"[[case]]\nname = \"W\"\nkind = \"wind\"\n" +
+		"  [[case.load]]\n  type = \"udl\"\n  on = \"all columns\"\n  direction = \"x\"\n  w = 1\n" +
+		"  [[case.load]]\n  type = \"udl\"\n  on = \"line A\"\n  direction = \"x\"\n  w = 0.5\n" +
+		"[[combination]]\nname = \"W\"\nfactors = { W = 1.0 }\n"
+	a := analyseModel(t, src)
+	// Statics: 1 kN/m along both columns and 0.5 kN/m more along the one
+	// on line A (length √(3² + 0.001²)): ΣFx = 1·(l + 3) + 0.5·l = 7.5000003,
+	// and the supports take it back.
+	l := math.Hypot(0.001, 3)
+	want := l + 3 + 0.5*l
+	w := a.Statics[1]
+	if math.Abs(w.Applied.Fx-want) > 1e-9 || math.Abs(w.Reactions.Fx+want) > 1e-9 {
+		t.Errorf("wind: loads ΣFx %.9g, reactions %.9g; want %.9g and its opposite (both columns selected)", w.Applied.Fx, w.Reactions.Fx, want)
+	}
+	r := summary(t, a)
+	var titles []string
+	for _, tb := range r.tables {
+		titles = append(titles, tb.title)
+	}
+	all := strings.Join(titles, "\n")
+	if strings.Contains(all, "Other members") {
+		t.Errorf("the leaning column is among the other members:\n%s", all)
+	}
+	if got := r.one(t, "Columns on line A (x = 0.00 m)").rows; len(got) != 1 || got[0][0] != "A-B" {
+		t.Errorf("line A holds %q, want A-B", got)
+	}
+	// Without a grid, lines are every distinct node X from the left, as
+	// the selectors count them: B at x = 0.001 is line B, so the column at
+	// x = 6 is on line C, which is what `on = "line C"` picks.
+	if got := r.one(t, "Columns on line C (x = 6.00 m)").rows; len(got) != 1 || got[0][0] != "D-C" {
+		t.Errorf("line C holds %q, want D-C", got)
+	}
+	tb := r.one(t, "Deflection of spans and cantilevers")
+	if len(tb.rows) != 1 || tb.rows[0][0] != "B–C" {
+		t.Errorf("deflection rows %q, want the beam B–C alone", tb.rows)
+	}
+}
+
+// The table of the beam ends at the column faces lists the ends that hold
+// a span (supports, columns), not a cantilever's free tip.
+func TestFaceTableHasNoFreeTip(t *testing.T) {
+	src := tsection("C", 2e8, 0.36, 0.0108, 0.6) + tsection("B", 2e8, 0.2, 0.004, 0) +
+		tnode("A0", 0, 0, "fixed") + tnode("A1", 0, 3, "") + tnode("T", -1.5, 3, "") +
+		tnode("B0", 6, 0, "fixed") + tnode("B1", 6, 3, "") +
+		tmember("A0", "A1", "C") + tmember("B0", "B1", "C") + tmember("A1", "T", "B") + tmember("A1", "B1", "B") +
+		tdead(tudl("all beams", 10))
+	tb := summary(t, analyseModel(t, src)).one(t, "Beams at level 1 (y = 3.00 m): at the supports")
+	var ends []string
+	for _, row := range tb.rows {
+		ends = append(ends, row[0]+"@"+row[1])
+	}
+	if got := strings.Join(ends, " "); got != "A1-T@A1 A1-B1@A1 A1-B1@B1" {
+		t.Errorf("rows %s; want every end but the free tip T", got)
+	}
+	// The cantilever's root carries -wc²/2 = -11.25 at the centreline
+	// (statics).
+	if got := tb.cell(t, "M min, centreline", 0, "A1-T", "A1"); got != "-11.25" {
+		t.Errorf("root of the cantilever: %s, want -11.25", got)
+	}
+}
+
+// The headings say how the members they hold are shown: with members
+// that are neither beams nor columns (rafters), that they are shown as
+// beams are.
+func TestHeadingsNameOtherMembers(t *testing.T) {
+	rafter := tsection("S", 2e8, 0.01, 1e-4, 0) + tnode("A", 0, 0, "pinned") + tnode("B", 6, 3, "roller") +
+		tmember("B", "A", "S") + tdead(tudl("B-A", 10))
+	beam := tsection("S", 2e8, 0.01, 1e-4, 0) + tnode("A", 0, 0, "pinned") + tnode("B", 6, 0, "roller") +
+		tmember("A", "B", "S") + tdead(tudl("A-B", 10))
+	for _, c := range []struct {
+		name, src, want string
+	}{
+		{"a rafter", rafter, "beams and other members: x from the left end, +M sagging; columns: x from the start node"},
+		{"beams only", beam, "(in m; beams: x from the left end, +M sagging; columns: x from the start node)"},
+	} {
+		t.Run(c.name, func(t *testing.T) {
+			code, out, stderr := exec("run", writeModel(t, c.src))
+			if code != 0 {
+				t.Fatalf("exit %d: %s", code, stderr)
+			}
+			if !strings.Contains(out, c.want) {
+				t.Errorf("the headings do not say %q:\n%s", c.want, out)
+			}
+			if unit := strings.Contains(out, "; beams and other members: x from the left end, M sagging positive"); unit != (c.name == "a rafter") {
+				t.Errorf("the units line names other members: %v", unit)
+			}
+		})
+	}
+}
