@@ -3,12 +3,10 @@ package report
 import (
 	"fmt"
 	"math"
-	"strconv"
 	"strings"
 
 	"govern/envelope"
 	"govern/envelope/analysis"
-	"govern/patterns"
 )
 
 // Table is a titled table of text cells. The design values are formed
@@ -61,7 +59,11 @@ func newDesign(p *Report) *design {
 		gd := groupDesign{Group: g}
 		switch g.Kind {
 		case analysis.Floor:
-			gd.title, gd.id = fmt.Sprintf("Beams at level %d (y = %s %s)", g.Level, fixed(g.Y), u.Length), fmt.Sprintf("level-%d", g.Level)
+			if g.Index >= 0 {
+				gd.title, gd.id = fmt.Sprintf("Beams at %s (y = %s %s)", g.Level, fixed(g.Y), u.Length), fmt.Sprintf("level-%d", g.Index)
+			} else {
+				gd.title, gd.id = fmt.Sprintf("Beams at y = %s %s, on no grid level", fixed(g.Y), u.Length), fmt.Sprintf("level-y%d", g.Off)
+			}
 		case analysis.ColumnLine:
 			if g.Line != "" {
 				gd.title, gd.id = fmt.Sprintf("Columns on line %s (x = %s %s)", g.Line, fixed(g.X), u.Length), "line-"+g.Line
@@ -299,9 +301,8 @@ func (p *Report) deflectionTable() *Table {
 	if p.service() == 0 || len(p.res.Spans) == 0 {
 		return nil
 	}
-	mo := p.model()
 	u := p.units()
-	levels := patterns.Spans(mo)
+	levels := analysis.Levels(p.job())
 	var rows [][]string
 	for i := range p.res.Spans {
 		r := &p.res.Spans[i]
@@ -311,7 +312,7 @@ func (p *Report) deflectionTable() *Table {
 		}
 		kind, level := r.Kind.String(), "-"
 		if r.Beam {
-			level = strconv.Itoa(levels[r.Members[0]].Level)
+			level = analysis.LevelName(p.job(), levels, r.Members[0])
 		}
 		row := []string{p.spanName(r), kind, p.spanMembers(r), level, fixed(r.Length)}
 		// A span that never moves one way has nothing to show for it.
