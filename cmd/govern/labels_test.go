@@ -2,6 +2,7 @@ package main
 
 import (
 	"math"
+	"strconv"
 	"strings"
 	"testing"
 )
@@ -105,4 +106,45 @@ func TestHeadingsNameOtherMembers(t *testing.T) {
 			}
 		})
 	}
+}
+
+// A unit slip (E = 200 for 2e8) gives a deflection larger than the span:
+// span/deflection is shown as it is, never as L/0, and numbers keep a
+// bounded width however large.
+func TestUnitSlipShownHonestly(t *testing.T) {
+	// A simple span of 6 m, w = 10, EI = 200 × 1e-4 = 0.02: 5wL⁴/384EI =
+	// 8437.5 (AISC Table 3-23 case 1, recalled from memory), so
+	// span/deflection 6/8437.5 = 0.000711, shown rounded down L/0.00071.
+	slip := func(e float64) string {
+		return tsection("S", e, 0.01, 1e-4, 0) + tnode("A", 0, 0, "pinned") + tnode("B", 6, 0, "roller") +
+			tmember("A", "B", "S") + tdead(tudl("A-B", 10))
+	}
+	tb := summary(t, analyseModel(t, slip(200))).one(t, "Deflection of spans and cantilevers")
+	if got := tb.cell(t, "span/deflection", 0, "A–B"); got != "L/0.00071" {
+		t.Errorf("span/deflection %s, want L/0.00071", got)
+	}
+	if got := tb.cell(t, "down", 0, "A–B"); !near(got, -8437.5, 1e-4) || strings.Contains(got, ".") {
+		t.Errorf("down %s, want -8437.5 to four figures", got)
+	}
+	// E = 2e-285: a deflection of 8.4e290, written with an exponent; no
+	// number of any table is longer than 20 characters.
+	r := summary(t, analyseModel(t, slip(2e-285)))
+	if got := r.one(t, "Deflection of spans and cantilevers").cell(t, "down", 0, "A–B"); !near(got, -8.4375e290, 1e-3) || !strings.Contains(got, "e+290") {
+		t.Errorf("down %s, want -8.4375e+290 with an exponent", got)
+	}
+	for _, tb := range r.tables {
+		for _, row := range tb.rows {
+			for _, cell := range row {
+				if len(cell) > 20 {
+					t.Errorf("%s: a cell of %d characters: %q", tb.title, len(cell), cell)
+				}
+			}
+		}
+	}
+}
+
+// near reports whether the cell s holds a number within rel of want.
+func near(s string, want, rel float64) bool {
+	v, err := strconv.ParseFloat(s, 64)
+	return err == nil && math.Abs(v-want) <= rel*math.Abs(want)
 }

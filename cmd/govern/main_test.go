@@ -324,8 +324,13 @@ func TestRunFilesAndCSV(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	if got := strings.Join(rows[0], ","); got != "member,x (m),effect,max,max_by,min,min_by,unit,max_spans,min_spans,max_loaded,min_loaded,max_with_N,max_with_V,max_with_M,min_with_N,min_with_V,min_with_M,face" {
+	// The unit column's header says the signs are the member's own, where
+	// a reader of the file sees it, in the one header row.
+	if got := strings.Join(rows[0], ","); got != "member,x (m),effect,max,max_by,min,min_by,"+report.CSVUnitHeader+",max_spans,min_spans,max_loaded,min_loaded,max_with_N,max_with_V,max_with_M,min_with_N,min_with_V,min_with_M,face" {
 		t.Errorf("CSV header %q", got)
+	}
+	if !strings.Contains(rows[0][7], "member axes") || !strings.Contains(rows[0][7], "local -y face in tension") || strings.Contains(rows[0][7], ",") {
+		t.Errorf("the unit column's header %q does not say the signs are in member axes (in one cell without a comma)", rows[0][7])
 	}
 	if len(rows) != 1+35*11*3 {
 		t.Errorf("%d CSV rows, want %d", len(rows), 1+35*11*3)

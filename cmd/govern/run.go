@@ -170,7 +170,7 @@ func analyse(env *environ, job *modelfile.Job, name, path string, f *runFlags) e
 			env.warn(name, se.Warnings)
 			return err
 		}
-		return fmt.Errorf("%s: %w", name, acceptHint(err))
+		return located(job, name, err)
 	}
 	p.phase("writing results", 0)
 	err = writeResults(env.stdout, path, f, res)
