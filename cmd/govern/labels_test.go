@@ -148,3 +148,23 @@ func near(s string, want, rel float64) bool {
 	v, err := strconv.ParseFloat(s, 64)
 	return err == nil && math.Abs(v-want) <= rel*math.Abs(want)
 }
+
+// A reaction component that is zero in every combination has no
+// governing combination: "-", not one picked by round-off; a component
+// that is not zero names its combination.
+func TestZeroReactionNamesNoCombination(t *testing.T) {
+	// A simple span of 6 m under 10 kN/m on a pin and a roller: the pin's
+	// Fx is zero in every combination; each Fy is wL/2 = 30 under 1.0D
+	// (statics).
+	src := tsection("S", 2e8, 0.01, 1e-4, 0) + tnode("A", 0, 0, "pinned") + tnode("B", 6, 0, "roller") +
+		tmember("A", "B", "S") + tdead(tudl("A-B", 10))
+	tb := summary(t, analyseModel(t, src)).one(t, "Reactions")
+	for i, want := range []string{"-", "-"} {
+		if got := tb.cell(t, "governing", i, "A", "Fx (kN)"); got != want {
+			t.Errorf("A Fx, governing %d: %q, want %q", i, got, want)
+		}
+	}
+	if got, v := tb.cell(t, "governing", 0, "", "Fy (kN)"), tb.cell(t, "max", 0, "", "Fy (kN)"); got != "1.0D" || v != "30.00" {
+		t.Errorf("A Fy: %s by %q, want 30.00 by 1.0D", v, got)
+	}
+}

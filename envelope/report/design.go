@@ -164,7 +164,7 @@ func (p *Report) groupTables(g groupDesign) []Table {
 		return out
 	}
 	header = []string{"beam", "support", "M min, centreline (" + moment + ")", "governing", "M min, face (" + moment + ")", "face at x", "governing",
-		"|V| centreline (" + force + ")", "|V| face (" + force + ")", "governing"}
+		"|V| centreline (" + force + ")", "governing", "|V| face (" + force + ")", "governing"}
 	return append(out, Table{g.title + ": at the supports, centreline and column face", header, p.supportRows(g.Members)})
 }
 
@@ -202,8 +202,8 @@ func largestShear(s envelope.Station) (float64, int) {
 // supportRows gives, for each end of each beam at a support (an end of
 // its span or a cantilever's root, not a free end nor a node inside a
 // span), the least moment (hogging negative) and the largest shear at the
-// centreline of the support and at the column face beside each other; "-"
-// where an end has no face.
+// centreline of the support and at the column face beside each other,
+// each with its governing combination; "-" where an end has no face.
 func (p *Report) supportRows(beams []int) [][]string {
 	mo := p.model()
 	var rows [][]string
@@ -219,13 +219,13 @@ func (p *Report) supportRows(beams []int) [][]string {
 			if end == 1 {
 				cl = em.Stations[len(em.Stations)-1]
 			}
-			vcl, _ := largestShear(cl)
+			vcl, vclBy := largestShear(cl)
 			row := []string{mo.Members[m].Name, mo.Nodes[node].Name, fixed(cl.M.Min), p.comboName(cl.M.MinBy)}
 			if f, ok := analysis.FaceStation(em, at, end); ok {
 				vf, vby := largestShear(f)
-				row = append(row, fixed(f.M.Min), fixed(f.X), p.comboName(f.M.MinBy), fixed(vcl), fixed(vf), p.comboName(vby))
+				row = append(row, fixed(f.M.Min), fixed(f.X), p.comboName(f.M.MinBy), fixed(vcl), p.comboName(vclBy), fixed(vf), p.comboName(vby))
 			} else {
-				row = append(row, "-", "-", "-", fixed(vcl), "-", "-")
+				row = append(row, "-", "-", "-", fixed(vcl), p.comboName(vclBy), "-", "-")
 			}
 			rows = append(rows, row)
 		}
@@ -233,8 +233,14 @@ func (p *Report) supportRows(beams []int) [][]string {
 	return rows
 }
 
+// reactionRoundOff is the fraction of the largest reaction component of a
+// kind (Fx, Fy or M, over every support) at or below which a value is
+// zero to round-off, and has no governing combination.
+const reactionRoundOff = 1e-9
+
 // reactionTable gives the envelope of every restrained reaction component;
-// nil without supports.
+// nil without supports. A value that is zero to round-off names no
+// governing combination ("-"): which combination gives it is round-off.
 func (p *Report) reactionTable() *Table {
 	env := p.res.Envelope
 	if len(env.Reactions) == 0 {
@@ -242,6 +248,24 @@ func (p *Report) reactionTable() *Table {
 	}
 	mo := p.model()
 	u := p.units()
+	// The largest size of each component over every support, for what
+	// counts as zero.
+	var largest [3]float64
+	for _, r := range env.Reactions {
+		for d, e := range [3]envelope.Extreme{r.Fx, r.Fy, r.M} {
+			if mo.Nodes[r.Node].Support.Restrained(d) {
+				largest[d] = math.Max(largest[d], math.Max(math.Abs(e.Max), math.Abs(e.Min)))
+			}
+		}
+	}
+	// by names the combination of a value, "-" for one that is zero to
+	// round-off: no combination governs it.
+	by := func(d int, v float64, k int) string {
+		if math.Abs(v) <= reactionRoundOff*largest[d] {
+			return "-"
+		}
+		return p.comboName(k)
+	}
 	var rows [][]string
 	for _, r := range env.Reactions {
 		node := mo.Nodes[r.Node]
@@ -253,7 +277,7 @@ func (p *Report) reactionTable() *Table {
 			if !node.Support.Restrained(d) {
 				continue
 			}
-			rows = append(rows, []string{name, e.label, fixed(e.x.Max), p.comboName(e.x.MaxBy), fixed(e.x.Min), p.comboName(e.x.MinBy)})
+			rows = append(rows, []string{name, e.label, fixed(e.x.Max), by(d, e.x.Max, e.x.MaxBy), fixed(e.x.Min), by(d, e.x.Min, e.x.MinBy)})
 			name = ""
 		}
 	}
