@@ -178,6 +178,13 @@ func unsupportedParts(mo *Model) [][]int {
 	return parts
 }
 
+// ReleasedRotations returns, for each node, whether its rotation carries
+// nothing: members join it, every member end there is released, and its
+// support does not hold its rotation. A moment applied at such a node is a
+// mechanism for the case that applies it (a MechanismError naming the
+// node and the case).
+func (mo *Model) ReleasedRotations() []bool { return releasedRotations(mo) }
+
 // releasedRotations returns, for each node, whether its rotation carries
 // nothing: members join it, every member end there is released, and its
 // support does not hold its rotation. Such a rotation has no stiffness and

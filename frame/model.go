@@ -124,10 +124,29 @@ func (mo *Model) IsBeam(m int) bool {
 	return math.Abs(b.Y-a.Y) <= orientationTol*math.Hypot(b.X-a.X, b.Y-a.Y)
 }
 
-// IsColumn reports whether member m is vertical.
+// PlumbTol is how far out of plumb a column may be: a member counts as a
+// column when the horizontal distance between its ends is at most this
+// fraction of the difference in their heights. A hundredth is well past
+// the erection tolerances of the codes (a few thousandths), so that a
+// column set out a millimetre off its line is still a column, and well
+// short of a deliberately raking member.
+const PlumbTol = 0.01
+
+// IsColumn reports whether member m is vertical, or out of plumb by at
+// most PlumbTol.
 func (mo *Model) IsColumn(m int) bool {
 	a, b := mo.Nodes[mo.Members[m].Start], mo.Nodes[mo.Members[m].End]
-	return math.Abs(b.X-a.X) <= orientationTol*math.Hypot(b.X-a.X, b.Y-a.Y)
+	return math.Abs(b.X-a.X) <= PlumbTol*math.Abs(b.Y-a.Y)
+}
+
+// Bottom returns the lower end node of member m (its start when both are
+// at one height): where a column stands.
+func (mo *Model) Bottom(m int) int {
+	mem := mo.Members[m]
+	if mo.Nodes[mem.End].Y < mo.Nodes[mem.Start].Y {
+		return mem.End
+	}
+	return mem.Start
 }
 
 // Validate checks that the model is complete and consistent: names are

@@ -40,7 +40,7 @@ func check(env *environ, args []string) error {
 	}
 	st, err := analysis.CheckStability(&job.Job, frame.Options{})
 	if err != nil {
-		return fmt.Errorf("%s: %w", name, acceptHint(err))
+		return located(job, name, err)
 	}
 	env.warn(name, st.Warnings)
 	report.WriteCheck(env.stdout, &job.Job, st)

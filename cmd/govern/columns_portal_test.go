@@ -495,6 +495,7 @@ func checkPortalFaces(t *testing.T, v columnsView, combos []portalCombo, designe
 			wantText("depth/2 from the node", hdr("M min, face (kN·m)", "face at x"), fx(end.fc)),
 			wantText("its combination", hdr("M min, face (kN·m)", "governing"), mFc.c.name),
 			wantApprox(vCl.v, "the largest |V| at the node", "|V| centreline (kN)"),
+			wantText("the combination of |V| at the node", hdr("|V| centreline (kN)", "governing"), vCl.c.name),
 			wantApprox(vFc.v, "|V(a)| = |V(0) − wa| at the face", "|V| face (kN)"),
 			wantText("the combination of |V| at the face", hdr("|V| face (kN)", "governing"), vFc.c.name),
 		})

@@ -3,11 +3,8 @@ package main
 import (
 	_ "embed"
 	"flag"
-	"fmt"
 
 	"govern/cmd/govern/modelfile"
-	"govern/envelope/report"
-	"govern/envelope/report/files"
 )
 
 // demoModel is a fictional five-storey, three-bay office frame.
@@ -31,7 +28,9 @@ load cases and the strength combinations of ASCE/SEI 7-16 section 2.3.1,
 and reports as 'govern run' does.
 
 With --write FILE it writes that model out instead, as a starting point to
-edit; an existing file is not overwritten.`,
+edit; an existing file is not overwritten. With --write - (or a path that
+names standard output, such as /dev/stdout) the model goes to standard
+output.`,
 	setup: func(fs *flag.FlagSet) func(*environ, []string) error {
 		f := &demoFlags{}
 		f.runFlags.add(fs)
@@ -46,14 +45,7 @@ func demo(env *environ, f *demoFlags, args []string) error {
 		return usagef("demo takes no arguments")
 	}
 	if f.write != "" {
-		if files.Exists(f.write) {
-			return fmt.Errorf("%s exists; not overwriting it", f.write)
-		}
-		if err := files.WriteNew(f.write, demoModel); err != nil {
-			return err
-		}
-		fmt.Fprintf(env.stdout, "wrote %s\n", report.Escape(f.write))
-		return nil
+		return writeModelFile(env, f.write, demoModel, "")
 	}
 	f.toStdout(env.stdout)
 	job, err := modelfile.Read("demo.toml", demoModel)

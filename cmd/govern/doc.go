@@ -74,7 +74,9 @@
 // and reports as 'govern run' does.
 //
 // With --write FILE it writes that model out instead, as a starting point to
-// edit; an existing file is not overwritten.
+// edit; an existing file is not overwritten. With --write - (or a path that
+// names standard output, such as /dev/stdout) the model goes to standard
+// output.
 //
 // Flags:
 //
@@ -162,8 +164,11 @@
 // moments there beside those at the centreline. Combinations marked
 // service = true (and the EN 1990 serviceability sets) give deflections:
 // of every span of beams from the chord between its displaced ends, of
-// every cantilever from its displaced root, with span/deflection (over
-// twice the length for a cantilever); the envelopes of forces are over the
+// every cantilever from its displaced root, of a pitched roof's rafters
+// from their chords and its ridge across the line between the eaves, with
+// span/deflection (over twice the length for a cantilever); a member
+// hanging from a beam or standing on it, free at its other end, does not
+// divide its span (docs/output.md); the envelopes of forces are over the
 // other, strength, combinations. The tables and the report show every beam
 // from its left end, +M sagging, whichever way it was entered; the JSON
 // and CSV keep each member's own axes.

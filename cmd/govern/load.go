@@ -49,6 +49,17 @@ func loadModel(path string) (*modelfile.Job, error) {
 // the heap may grow to 1.25 times what is live, not twice.
 const readGCPercent = 25
 
+// located returns an analysis error of the model file name: at the line
+// of the load at fault for a moment applied where nothing resists it,
+// else at the file, with the flag that overrides a refusal for
+// ill-conditioning.
+func located(job *modelfile.Job, name string, err error) error {
+	if line, where, ok := job.MomentLoad(err); ok {
+		return fmt.Errorf("%s:%d: %s: %w", name, line, where, err)
+	}
+	return fmt.Errorf("%s: %w", name, acceptHint(err))
+}
+
 // acceptHint adds to a refusal for ill-conditioning the flag that
 // overrides it.
 func acceptHint(err error) error {

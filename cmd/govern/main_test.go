@@ -324,8 +324,13 @@ func TestRunFilesAndCSV(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	if got := strings.Join(rows[0], ","); got != "member,x (m),effect,max,max_by,min,min_by,unit,max_spans,min_spans,max_loaded,min_loaded,max_with_N,max_with_V,max_with_M,min_with_N,min_with_V,min_with_M,face" {
+	// The unit column's header says the signs are the member's own, where
+	// a reader of the file sees it, in the one header row.
+	if got := strings.Join(rows[0], ","); got != "member,x (m),effect,max,max_by,min,min_by,"+report.CSVUnitHeader+",max_spans,min_spans,max_loaded,min_loaded,max_with_N,max_with_V,max_with_M,min_with_N,min_with_V,min_with_M,face" {
 		t.Errorf("CSV header %q", got)
+	}
+	if !strings.Contains(rows[0][7], "member axes") || !strings.Contains(rows[0][7], "local -y face in tension") || strings.Contains(rows[0][7], ",") {
+		t.Errorf("the unit column's header %q does not say the signs are in member axes (in one cell without a comma)", rows[0][7])
 	}
 	if len(rows) != 1+35*11*3 {
 		t.Errorf("%d CSV rows, want %d", len(rows), 1+35*11*3)
@@ -386,6 +391,39 @@ func TestDemoWrite(t *testing.T) {
 	if code, _, stderr := exec("demo", "--write", p); code != 1 || !strings.Contains(stderr, "not overwriting") {
 		t.Errorf("second write: exit %d, %q", code, stderr)
 	}
+	// As govern new does: "-" and a path that names standard output write
+	// the model there, and no file named "-" is made.
+	t.Run("to standard output with -", func(t *testing.T) {
+		dir := t.TempDir()
+		t.Chdir(dir)
+		code, out, stderr := exec("demo", "--write", "-")
+		if code != 0 || out != string(demoModel) {
+			t.Errorf("exit %d, %q; standard output holds %d bytes, want the model's %d", code, stderr, len(out), len(demoModel))
+		}
+		if _, err := os.Lstat(filepath.Join(dir, "-")); !os.IsNotExist(err) {
+			t.Errorf("a file named - was made (%v)", err)
+		}
+	})
+	t.Run("to a path that names standard output", func(t *testing.T) {
+		// Standard output redirected to a file; the path names it through
+		// /proc/self/fd, as /dev/stdout does for the process's own.
+		out, err := os.Create(filepath.Join(t.TempDir(), "redirected"))
+		if err != nil {
+			t.Fatal(err)
+		}
+		defer out.Close()
+		path := fmt.Sprintf("/proc/self/fd/%d", out.Fd())
+		if _, err := os.Stat(path); err != nil {
+			t.Skipf("no %s here", path)
+		}
+		var errb bytes.Buffer
+		if code := govern([]string{"demo", "--write", path}, out, &errb); code != 0 {
+			t.Fatalf("exit %d: %s", code, errb.String())
+		}
+		if b, _ := os.ReadFile(out.Name()); !bytes.Equal(b, demoModel) {
+			t.Errorf("standard output holds %d bytes, not the model alone (%d)", len(b), len(demoModel))
+		}
+	})
 }
 
 func TestComparePatterns(t *testing.T) {

@@ -92,20 +92,28 @@ func newModel(env *environ, f *newFlags, args []string) error {
 	}
 	path := "-"
 	if len(args) == 1 {
-		path = files.StdoutPath(env.stdout, args[0])
+		path = args[0]
 	}
-	if path == "-" {
-		_, err := env.stdout.Write(src.Bytes())
+	return writeModelFile(env, path, src.Bytes(), fmt.Sprintf(": %d bays, %d storeys; every number in it is a placeholder to check and replace", len(bays), len(storeys)))
+}
+
+// writeModelFile writes a model file that new or demo --write made: to
+// standard output for "-" or a path that names it (such as /dev/stdout),
+// else to a new file at path, never over an existing one, saying so with
+// what after the path.
+func writeModelFile(env *environ, path string, src []byte, what string) error {
+	if files.StdoutPath(env.stdout, path) == "-" {
+		_, err := env.stdout.Write(src)
 		return err
 	}
 	if files.Exists(path) {
 		return fmt.Errorf("%s exists; not overwriting it", path)
 	}
-	if err := files.WriteNew(path, src.Bytes()); err != nil {
+	if err := files.WriteNew(path, src); err != nil {
 		return err
 	}
-	fmt.Fprintf(env.stdout, "wrote %s: %d bays, %d storeys; every number in it is a placeholder to check and replace\n", report.Escape(path), len(bays), len(storeys))
-	return nil
+	_, err := fmt.Fprintf(env.stdout, "wrote %s%s\n", report.Escape(path), what)
+	return err
 }
 
 // parseLengths reads a comma-separated list of lengths, where "3.6x3"

@@ -78,8 +78,11 @@ has one gets stations at the faces of the column, and the tables show the
 moments there beside those at the centreline. Combinations marked
 service = true (and the EN 1990 serviceability sets) give deflections:
 of every span of beams from the chord between its displaced ends, of
-every cantilever from its displaced root, with span/deflection (over
-twice the length for a cantilever); the envelopes of forces are over the
+every cantilever from its displaced root, of a pitched roof's rafters
+from their chords and its ridge across the line between the eaves, with
+span/deflection (over twice the length for a cantilever); a member
+hanging from a beam or standing on it, free at its other end, does not
+divide its span (docs/output.md); the envelopes of forces are over the
 other, strength, combinations. The tables and the report show every beam
 from its left end, +M sagging, whichever way it was entered; the JSON
 and CSV keep each member's own axes.
@@ -167,7 +170,7 @@ func analyse(env *environ, job *modelfile.Job, name, path string, f *runFlags) e
 			env.warn(name, se.Warnings)
 			return err
 		}
-		return fmt.Errorf("%s: %w", name, acceptHint(err))
+		return located(job, name, err)
 	}
 	p.phase("writing results", 0)
 	err = writeResults(env.stdout, path, f, res)

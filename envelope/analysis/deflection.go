@@ -1,13 +1,18 @@
 package analysis
 
-import "math"
+import (
+	"math"
+
+	"govern/envelope"
+)
 
 // Sag is one deflection of a span or cantilever and where it occurs.
 type Sag struct {
 	V, X float64 // the deflection (+ up) and where, from the span's left end
 	By   int     // the combination; -1 for none
 	// Member and Station say where it is: the member and the index of its
-	// station as shown (Result.Shown).
+	// station as shown (Result.Shown); for a ridge, a member with an end
+	// at its node.
 	Member, Station int
 }
 
@@ -29,27 +34,49 @@ type SpanDeflection struct {
 // below which a deflection the other way is taken as round-off.
 const deflectionRoundOff = 1e-9
 
-// spanDeflection finds the deflection of s over its stations.
+// spanDeflection finds the deflection of s over its stations, x along
+// its members from its left end.
 func (r *Result) spanDeflection(s *Span) SpanDeflection {
 	mo := r.Job.Model
-	d := SpanDeflection{Down: Sag{V: math.Inf(1), By: -1}, Up: Sag{V: math.Inf(-1), By: -1}, Largest: Sag{By: -1}}
+	d := SpanDeflection{Down: Sag{V: math.Inf(1), By: -1}, Up: Sag{V: math.Inf(-1), By: -1}}
 	offset := 0.0
+	prev := s.Left
 	for _, m := range s.Members {
 		em := r.Shown(m)
 		if em.LineDeflection == nil {
 			return SpanDeflection{}
 		}
+		from, to := ShownEnds(mo, m)
+		l := mo.Length(m)
 		for i, e := range em.LineDeflection {
 			x := offset + em.Stations[i].X
-			if e.Min < d.Down.V {
-				d.Down = Sag{e.Min, x, e.MinBy, m, i}
+			if from != prev { // a member of a run that turns back on itself
+				x = offset + l - em.Stations[i].X
 			}
-			if e.Max > d.Up.V {
-				d.Up = Sag{e.Max, x, e.MaxBy, m, i}
-			}
+			d.add(e, x, m, i)
 		}
-		offset += mo.Length(m)
+		if from != prev {
+			from, to = to, from
+		}
+		offset += l
+		prev = to
 	}
+	return d.finish(s)
+}
+
+// add takes in the envelope e of a deflection at x, at station i of
+// member m as shown.
+func (d *SpanDeflection) add(e envelope.Extreme, x float64, m, i int) {
+	if e.Min < d.Down.V {
+		d.Down = Sag{e.Min, x, e.MinBy, m, i}
+	}
+	if e.Max > d.Up.V {
+		d.Up = Sag{e.Max, x, e.MaxBy, m, i}
+	}
+}
+
+// finish drops round-off and finds the largest and span/deflection.
+func (d SpanDeflection) finish(s *Span) SpanDeflection {
 	// Round-off is no movement: a span that does not rise has no upward
 	// deflection to show.
 	size := math.Max(-d.Down.V, d.Up.V)
@@ -66,4 +93,34 @@ func (r *Result) spanDeflection(s *Span) SpanDeflection {
 	d.Ratio = s.RatioLength() / math.Abs(d.Largest.V)
 	d.Found = true
 	return d
+}
+
+// ridgeDeflection finds the deflection of a ridge or valley: the movement
+// of its node across the line between the ends of its run, from the chord
+// between them, given across, the envelopes with the deflections across
+// that line (ridgeLines) at the ends of every member.
+func (r *Result) ridgeDeflection(s *Span, across *envelope.Envelope) SpanDeflection {
+	mo := r.Job.Model
+	d := SpanDeflection{Down: Sag{V: math.Inf(1), By: -1}, Up: Sag{V: math.Inf(-1), By: -1}}
+	for _, m := range s.Members {
+		mem := mo.Members[m]
+		if mem.Start != s.Node && mem.End != s.Node {
+			continue
+		}
+		em := across.Members[m]
+		if em.LineDeflection == nil {
+			return SpanDeflection{}
+		}
+		i := 0 // the node's station in across, then as shown
+		if mem.End == s.Node {
+			i = len(em.Stations) - 1
+		}
+		shown := 0
+		if from, _ := ShownEnds(mo, m); from != s.Node {
+			shown = len(r.Envelope.Members[m].Stations) - 1
+		}
+		d.add(em.LineDeflection[i], s.At, m, shown)
+		break
+	}
+	return d.finish(s)
 }

@@ -12,8 +12,9 @@
 // moments by moment distribution ([Result.CrossCheck]), the comparison of
 // the standards' pattern arrangements with exact placement
 // ([ComparePatterns]), the faces of columns where beams may be designed
-// ([ColumnFaces]), the spans and cantilevers of beams ([Span]), the
-// grouping of members into floors and column lines ([Groups]), and every
+// ([ColumnFaces]), the spans, cantilevers, rafters and ridges of beams and
+// rafters ([Span]), the grouping of members into floors (named by the
+// model's levels) and column lines ([Groups]), and every
 // beam seen from its left end ([Result.Shown]). It prints nothing; the
 // outputs are package envelope/report's.
 //

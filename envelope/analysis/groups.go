@@ -1,8 +1,11 @@
 package analysis
 
 import (
+	"fmt"
 	"math"
+	"slices"
 	"sort"
+	"strings"
 
 	"govern/patterns"
 )
@@ -23,9 +26,12 @@ const (
 // and the report gather members by.
 type Group struct {
 	Kind GroupKind
-	// A floor: its level, counted from 1 at the lowest beam height
-	// (patterns.Spans), and its height, that of its first beam's start.
-	Level int
+	// A floor: its level as the model names it (Job.Levels), such as
+	// "level 2", and its index there; for beams at a height that is no
+	// level of the model (beside a grid), Level is "" and Index -1, and Off
+	// numbers such floors 1, 2, … from the lowest. Y is its height.
+	Level string
+	Index int
 	Y     float64
 	// A column line: its X and its name in Job.Lines, or "" for a line
 	// of columns on none of them, then numbered Off = 1, 2, … from the
@@ -42,33 +48,45 @@ type Group struct {
 func Groups(job *Job) []Group {
 	mo := job.Model
 	spans := patterns.Spans(mo)
-	levels := map[int]*Group{}
+	levels := Levels(job)
+	floors := map[float64]*Group{} // by height: a level's, or the beam's own
 	lines := columnLines(job)
 	byLine := make([][]int, len(lines))
 	other := &Group{Kind: Other}
 	for m := range mo.Members {
 		switch {
 		case mo.IsBeam(m):
-			lv := spans[m].Level
-			if levels[lv] == nil {
-				levels[lv] = &Group{Kind: Floor, Level: lv, Y: mo.Nodes[mo.Members[m].Start].Y}
+			y := mo.Nodes[mo.Members[m].Start].Y
+			g := &Group{Kind: Floor, Index: levelAt(levels, y), Y: y}
+			if g.Index >= 0 {
+				g.Level, g.Y = levels[g.Index].Name, levels[g.Index].Y
+			} else if f := nearestFloor(floors, y); f != nil {
+				g = f
 			}
-			levels[lv].Members = append(levels[lv].Members, m)
+			if floors[g.Y] == nil {
+				floors[g.Y] = g
+			}
+			floors[g.Y].Members = append(floors[g.Y].Members, m)
 		case mo.IsColumn(m):
-			i := lineOf(lines, mo.Nodes[mo.Members[m].Start].X)
+			i := lineOf(lines, mo.Nodes[mo.Bottom(m)].X)
 			byLine[i] = append(byLine[i], m)
 		default:
 			other.Members = append(other.Members, m)
 		}
 	}
 	var out []Group
-	lvs := make([]int, 0, len(levels))
-	for lv := range levels {
-		lvs = append(lvs, lv)
+	ys := make([]float64, 0, len(floors))
+	for y := range floors {
+		ys = append(ys, y)
 	}
-	sort.Ints(lvs)
-	for _, lv := range lvs {
-		g := levels[lv]
+	sort.Float64s(ys)
+	off := 0
+	for _, y := range ys {
+		g := floors[y]
+		if g.Index < 0 {
+			off++
+			g.Off = off
+		}
 		sort.SliceStable(g.Members, func(i, j int) bool { return spans[g.Members[i]].Number < spans[g.Members[j]].Number })
 		out = append(out, *g)
 	}
@@ -88,6 +106,63 @@ func Groups(job *Job) []Group {
 		out = append(out, *other)
 	}
 	return out
+}
+
+// Levels returns the levels of job as its model names them (Job.Levels),
+// from the lowest; for a job that gives none, every distinct node height
+// from the lowest, named "level 0", "level 1", … as the model file's
+// "level N" selectors count them.
+func Levels(job *Job) []Level {
+	if len(job.Levels) > 0 {
+		out := slices.Clone(job.Levels)
+		sort.SliceStable(out, func(i, j int) bool { return out[i].Y < out[j].Y })
+		return out
+	}
+	ys := make([]float64, 0, len(job.Model.Nodes))
+	for _, n := range job.Model.Nodes {
+		ys = append(ys, n.Y)
+	}
+	sort.Float64s(ys)
+	var out []Level
+	for _, y := range ys {
+		if len(out) == 0 || y-out[len(out)-1].Y > coordTol {
+			out = append(out, Level{Name: fmt.Sprintf("level %d", len(out)), Y: y})
+		}
+	}
+	return out
+}
+
+// levelAt returns the index of the level at height y (within coordTol)
+// in levels, sorted by height; -1 for none.
+func levelAt(levels []Level, y float64) int {
+	i := sort.Search(len(levels), func(i int) bool { return levels[i].Y >= y-coordTol })
+	if i < len(levels) && levels[i].Y <= y+coordTol {
+		return i
+	}
+	return -1
+}
+
+// nearestFloor returns the floor of floors on no level at height y
+// (within coordTol), or nil.
+func nearestFloor(floors map[float64]*Group, y float64) *Group {
+	for fy, g := range floors {
+		if g.Index < 0 && math.Abs(fy-y) <= coordTol {
+			return g
+		}
+	}
+	return nil
+}
+
+// LevelName returns the short name of member m's level, the one the
+// deflection table shows: "2" for "level 2", the name itself for a level
+// named otherwise, "-" for a member on no level.
+func LevelName(job *Job, levels []Level, m int) string {
+	mo := job.Model
+	i := levelAt(levels, mo.Nodes[mo.Members[m].Start].Y)
+	if i < 0 {
+		return "-"
+	}
+	return strings.TrimPrefix(levels[i].Name, "level ")
 }
 
 // coordTol is the distance under which a column stands on a line: the
@@ -112,8 +187,8 @@ func columnLines(job *Job) []columnLine {
 	sort.SliceStable(out, func(i, j int) bool { return out[i].x < out[j].x })
 	mo := job.Model
 	var off []columnLine
-	for m, mem := range mo.Members {
-		if x := mo.Nodes[mem.Start].X; mo.IsColumn(m) && nearest(out, x) < 0 && nearest(off, x) < 0 {
+	for m := range mo.Members {
+		if x := mo.Nodes[mo.Bottom(m)].X; mo.IsColumn(m) && nearest(out, x) < 0 && nearest(off, x) < 0 {
 			off = append(off, columnLine{x: x})
 			sort.Slice(off, func(i, j int) bool { return off[i].x < off[j].x })
 		}

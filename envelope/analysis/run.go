@@ -179,12 +179,28 @@ func Run(ctx context.Context, job *Job, opt Options) (*Result, error) {
 	for m := range r.spanOf {
 		r.spanOf[m] = -1
 	}
+	var across *envelope.Envelope // deflections across the lines of runs with a ridge
+	if lines := ridgeLines(job.Model, r.Spans); lines != nil && len(env.Service) > 0 {
+		// The ends of the members are enough: a ridge is a node.
+		ends := set
+		ends.Stations, ends.Extra, ends.Lines, ends.Progress = 2, nil, lines, nil
+		if across, err = envelope.Compute(sol, job.Combinations, ends, lay); err != nil {
+			return nil, err
+		}
+	}
 	for i := range r.Spans {
-		for _, m := range r.Spans[i].Members {
+		s := &r.Spans[i]
+		if !s.ofLine() {
+			if across != nil {
+				s.Deflection = r.ridgeDeflection(s, across)
+			}
+			continue
+		}
+		for _, m := range s.Members {
 			r.spanOf[m] = i
 		}
 		if len(env.Service) > 0 {
-			r.Spans[i].Deflection = r.spanDeflection(&r.Spans[i])
+			s.Deflection = r.spanDeflection(s)
 		}
 	}
 	return r, nil
@@ -196,8 +212,8 @@ func report(opt Options, p Progress) {
 	}
 }
 
-// SpanOf returns the index in r.Spans of the span or cantilever member m
-// is part of, -1 for none.
+// SpanOf returns the index in r.Spans of the span, cantilever or rafter
+// member m is part of, -1 for none.
 func (r *Result) SpanOf(m int) int { return r.spanOf[m] }
 
 // endForces returns member m's end forces in load case c, adding up the

@@ -9,6 +9,11 @@ import (
 	"govern/envelope"
 )
 
+// CSVUnitHeader is the header of the CSV's unit column. It also says, where
+// a reader of the file sees it, that every value is in the member's own
+// axes (docs/output.md), without a second header row or a comment line.
+const CSVUnitHeader = "unit (member axes: x from the start node; N + in tension; M + with the local -y face in tension; V = dM/dx; deflection along local y from the chord)"
+
 // WriteCSV writes one row per member, station and effect: N, V and M, and
 // with service combinations the deflection, each in the member's own axes
 // (docs/output.md). When the stiffness matrix is ill-conditioned the last
@@ -18,7 +23,7 @@ func (p *Report) WriteCSV(w io.Writer) error {
 	mo := p.model()
 	u := p.units()
 	cw := newCSVWriter(w)
-	if err := cw.Write([]string{"member", "x (" + u.Length + ")", "effect", "max", "max_by", "min", "min_by", "unit",
+	if err := cw.Write([]string{"member", "x (" + u.Length + ")", "effect", "max", "max_by", "min", "min_by", CSVUnitHeader,
 		"max_spans", "min_spans", "max_loaded", "min_loaded", "max_with_N", "max_with_V", "max_with_M", "min_with_N", "min_with_V", "min_with_M", "face"}); err != nil {
 		return err
 	}
@@ -87,8 +92,11 @@ func (c *csvWriter) Write(record []string) error {
 // "=HYPERLINK(...)" could run or fetch something), and quoting does not
 // stop that: it gets a leading apostrophe, which spreadsheets take as
 // "text" and do not show. Numbers such as -12.5 or -1.2e-05 are kept as
-// they are. The CSV writer then quotes the cell where RFC 4180 requires (a
-// comma, a double quote or a line break in it).
+// they are. A cell that begins with an apostrophe gets one more, so that
+// the rule to read the file back is one and unambiguous: take one leading
+// apostrophe off any cell that has one ("'=x" is written "”=x", "=x" is
+// written "'=x"). The CSV writer then quotes the cell where RFC 4180
+// requires (a comma, a double quote or a line break in it).
 func csvCell(s string) string {
 	if s == "" {
 		return s
@@ -98,6 +106,8 @@ func csvCell(s string) string {
 		if !isDecimal(s) {
 			return "'" + s
 		}
+	case '\'':
+		return "'" + s
 	}
 	return s
 }

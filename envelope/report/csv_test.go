@@ -29,9 +29,27 @@ func TestCSVCell(t *testing.T) {
 		"2.3.1-5 0.9D-1.0W": "2.3.1-5 0.9D-1.0W",
 		"kN·m":              "kN·m",
 		"":                  "",
+		// A cell that begins with an apostrophe gets one more, so that
+		// taking one off gives back every cell: '= and = differ.
+		"'=x": "''=x",
+		"'":   "''",
+		"'a":  "''a",
+		"a'":  "a'",
 	} {
 		if got := csvCell(in); got != want {
 			t.Errorf("csvCell(%q) = %q, want %q", in, got, want)
+		}
+	}
+	// The rule to read: one leading apostrophe off any cell that has one.
+	read := func(s string) string {
+		if len(s) > 0 && s[0] == '\'' {
+			return s[1:]
+		}
+		return s
+	}
+	for _, s := range []string{"=x", "'=x", "''=x", "'", "-B", "-12.5", "a'b", "'plain"} {
+		if got := read(csvCell(s)); got != s {
+			t.Errorf("%q written %q reads back %q", s, csvCell(s), got)
 		}
 	}
 }

@@ -3,12 +3,10 @@ package report
 import (
 	"fmt"
 	"math"
-	"strconv"
 	"strings"
 
 	"govern/envelope"
 	"govern/envelope/analysis"
-	"govern/patterns"
 )
 
 // Table is a titled table of text cells. The design values are formed
@@ -56,12 +54,16 @@ func (p *Report) Tables() []Table {
 
 func newDesign(p *Report) *design {
 	u := p.units()
-	d := &design{governing: fmt.Sprintf("Governing design values%s (in %s; beams: x from the left end, +M sagging; columns: x from the start node)", p.overStrength(), u.Length)}
+	d := &design{governing: fmt.Sprintf("Governing design values%s (in %s; %s: x from the left end, +M sagging; columns: x from the start node)", p.overStrength(), u.Length, p.shownFromLeft())}
 	for _, g := range analysis.Groups(p.job()) {
 		gd := groupDesign{Group: g}
 		switch g.Kind {
 		case analysis.Floor:
-			gd.title, gd.id = fmt.Sprintf("Beams at level %d (y = %s %s)", g.Level, fixed(g.Y), u.Length), fmt.Sprintf("level-%d", g.Level)
+			if g.Index >= 0 {
+				gd.title, gd.id = fmt.Sprintf("Beams at %s (y = %s %s)", g.Level, fixed(g.Y), u.Length), fmt.Sprintf("level-%d", g.Index)
+			} else {
+				gd.title, gd.id = fmt.Sprintf("Beams at y = %s %s, on no grid level", fixed(g.Y), u.Length), fmt.Sprintf("level-y%d", g.Off)
+			}
 		case analysis.ColumnLine:
 			if g.Line != "" {
 				gd.title, gd.id = fmt.Sprintf("Columns on line %s (x = %s %s)", g.Line, fixed(g.X), u.Length), "line-"+g.Line
@@ -162,7 +164,7 @@ func (p *Report) groupTables(g groupDesign) []Table {
 		return out
 	}
 	header = []string{"beam", "support", "M min, centreline (" + moment + ")", "governing", "M min, face (" + moment + ")", "face at x", "governing",
-		"|V| centreline (" + force + ")", "|V| face (" + force + ")", "governing"}
+		"|V| centreline (" + force + ")", "governing", "|V| face (" + force + ")", "governing"}
 	return append(out, Table{g.title + ": at the supports, centreline and column face", header, p.supportRows(g.Members)})
 }
 
@@ -197,9 +199,11 @@ func largestShear(s envelope.Station) (float64, int) {
 	return s.V.Max, s.V.MaxBy
 }
 
-// supportRows gives, for each end of each beam, the least moment (hogging
-// negative) and the largest shear at the centreline of the support and at
-// the column face beside each other; "-" where an end has no face.
+// supportRows gives, for each end of each beam at a support (an end of
+// its span or a cantilever's root, not a free end nor a node inside a
+// span), the least moment (hogging negative) and the largest shear at the
+// centreline of the support and at the column face beside each other,
+// each with its governing combination; "-" where an end has no face.
 func (p *Report) supportRows(beams []int) [][]string {
 	mo := p.model()
 	var rows [][]string
@@ -208,17 +212,20 @@ func (p *Report) supportRows(beams []int) [][]string {
 		at := p.res.ShownFaces(m)
 		from, to := analysis.ShownEnds(mo, m)
 		for end, node := range [2]int{from, to} {
+			if !p.res.HeldAt(m, node) {
+				continue
+			}
 			cl := em.Stations[0]
 			if end == 1 {
 				cl = em.Stations[len(em.Stations)-1]
 			}
-			vcl, _ := largestShear(cl)
+			vcl, vclBy := largestShear(cl)
 			row := []string{mo.Members[m].Name, mo.Nodes[node].Name, fixed(cl.M.Min), p.comboName(cl.M.MinBy)}
 			if f, ok := analysis.FaceStation(em, at, end); ok {
 				vf, vby := largestShear(f)
-				row = append(row, fixed(f.M.Min), fixed(f.X), p.comboName(f.M.MinBy), fixed(vcl), fixed(vf), p.comboName(vby))
+				row = append(row, fixed(f.M.Min), fixed(f.X), p.comboName(f.M.MinBy), fixed(vcl), p.comboName(vclBy), fixed(vf), p.comboName(vby))
 			} else {
-				row = append(row, "-", "-", "-", fixed(vcl), "-", "-")
+				row = append(row, "-", "-", "-", fixed(vcl), p.comboName(vclBy), "-", "-")
 			}
 			rows = append(rows, row)
 		}
@@ -226,8 +233,14 @@ func (p *Report) supportRows(beams []int) [][]string {
 	return rows
 }
 
+// reactionRoundOff is the fraction of the largest reaction component of a
+// kind (Fx, Fy or M, over every support) at or below which a value is
+// zero to round-off, and has no governing combination.
+const reactionRoundOff = 1e-9
+
 // reactionTable gives the envelope of every restrained reaction component;
-// nil without supports.
+// nil without supports. A value that is zero to round-off names no
+// governing combination ("-"): which combination gives it is round-off.
 func (p *Report) reactionTable() *Table {
 	env := p.res.Envelope
 	if len(env.Reactions) == 0 {
@@ -235,6 +248,24 @@ func (p *Report) reactionTable() *Table {
 	}
 	mo := p.model()
 	u := p.units()
+	// The largest size of each component over every support, for what
+	// counts as zero.
+	var largest [3]float64
+	for _, r := range env.Reactions {
+		for d, e := range [3]envelope.Extreme{r.Fx, r.Fy, r.M} {
+			if mo.Nodes[r.Node].Support.Restrained(d) {
+				largest[d] = math.Max(largest[d], math.Max(math.Abs(e.Max), math.Abs(e.Min)))
+			}
+		}
+	}
+	// by names the combination of a value, "-" for one that is zero to
+	// round-off: no combination governs it.
+	by := func(d int, v float64, k int) string {
+		if math.Abs(v) <= reactionRoundOff*largest[d] {
+			return "-"
+		}
+		return p.comboName(k)
+	}
 	var rows [][]string
 	for _, r := range env.Reactions {
 		node := mo.Nodes[r.Node]
@@ -246,16 +277,31 @@ func (p *Report) reactionTable() *Table {
 			if !node.Support.Restrained(d) {
 				continue
 			}
-			rows = append(rows, []string{name, e.label, fixed(e.x.Max), p.comboName(e.x.MaxBy), fixed(e.x.Min), p.comboName(e.x.MinBy)})
+			rows = append(rows, []string{name, e.label, fixed(e.x.Max), by(d, e.x.Max, e.x.MaxBy), fixed(e.x.Min), by(d, e.x.Min, e.x.MinBy)})
 			name = ""
 		}
 	}
 	return &Table{"Reactions (global: +X right, +Y up, M counter-clockwise)", []string{"node", "component", "max", "governing", "min", "governing"}, rows}
 }
 
-// spanName names a span or cantilever by its end nodes, left to right.
+// spanName names a span, cantilever or rafter by its end nodes, left to
+// right, and a ridge or valley by its node.
 func (p *Report) spanName(s *analysis.Span) string {
+	if s.Kind == analysis.KindRidge || s.Kind == analysis.KindValley {
+		return p.model().Nodes[s.Node].Name
+	}
 	return p.model().Nodes[s.Left].Name + "–" + p.model().Nodes[s.Right].Name
+}
+
+// hasRidges reports whether a run changes slope: whether there are
+// rafters, ridges or valleys.
+func (p *Report) hasRidges() bool {
+	for i := range p.res.Spans {
+		if k := p.res.Spans[i].Kind; k != analysis.KindSpan && k != analysis.KindCantilever {
+			return true
+		}
+	}
+	return false
 }
 
 // spanMembers lists the members of a span: all of up to three, else the
@@ -279,9 +325,8 @@ func (p *Report) deflectionTable() *Table {
 	if p.service() == 0 || len(p.res.Spans) == 0 {
 		return nil
 	}
-	mo := p.model()
 	u := p.units()
-	levels := patterns.Spans(mo)
+	levels := analysis.Levels(p.job())
 	var rows [][]string
 	for i := range p.res.Spans {
 		r := &p.res.Spans[i]
@@ -289,12 +334,9 @@ func (p *Report) deflectionTable() *Table {
 		if !s.Found {
 			continue
 		}
-		kind, level := "span", "-"
-		if r.Cantilever {
-			kind = "cantilever"
-		}
+		kind, level := r.Kind.String(), "-"
 		if r.Beam {
-			level = strconv.Itoa(levels[r.Members[0]].Level)
+			level = analysis.LevelName(p.job(), levels, r.Members[0])
 		}
 		row := []string{p.spanName(r), kind, p.spanMembers(r), level, fixed(r.Length)}
 		// A span that never moves one way has nothing to show for it.
@@ -312,6 +354,9 @@ func (p *Report) deflectionTable() *Table {
 	}
 	l := u.Length
 	title := fmt.Sprintf("Deflection of spans and cantilevers, service combinations (+ up, in %s; x from the left end): spans from the chord between their displaced ends, cantilevers from their displaced root", l)
+	if p.hasRidges() {
+		title += "; rafters (the straight parts of a run that changes slope) from the chord between their displaced ends; a ridge or valley, where the slope changes, across the line between the ends of its run, from the chord between them"
+	}
 	return &Table{title, []string{"span", "kind", "members", "level", "length (" + l + ")", "down (" + l + ")", "at x", "governing", "up (" + l + ")", "at x", "governing", "span/deflection (cantilever: 2 × length)"}, rows}
 }
 

@@ -46,12 +46,12 @@ func ExampleReport_Tables() {
 		}
 	}
 	// Output:
-	// Beams at level 1 (y = 0.00 m)
+	// Beams at level 0 (y = 0.00 m)
 	// beam | +M (kN·m) | at x | governing | -M (kN·m) | at x | governing | |V| (kN) | at x | governing
 	// a-b | 35.28 | 3.60 | 1.4D | -63.00 | 0.00 | 1.4D | 52.50 | 0.00 | 1.4D
 	// Reactions (global: +X right, +Y up, M counter-clockwise)
 	// node | component | max | governing | min | governing
-	// a | Fx (kN) | 0.00 | 1.4D | 0.00 | 1.4D
+	// a | Fx (kN) | 0.00 | - | 0.00 | -
 	//  | Fy (kN) | 52.50 | 1.4D | 52.50 | 1.4D
 	//  | M (kN·m) | 63.00 | 1.4D | 63.00 | 1.4D
 	// b | Fy (kN) | 31.50 | 1.4D | 31.50 | 1.4D

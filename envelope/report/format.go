@@ -16,27 +16,61 @@ func clean(v float64) float64 {
 	return v
 }
 
+// unsigned drops the minus sign of a number that rounded to zero, such as
+// "-0.00" or "-0": output never shows a negative zero.
+func unsigned(s string) string {
+	if len(s) < 2 || s[0] != '-' {
+		return s
+	}
+	for i := 1; i < len(s) && s[i] != 'e'; i++ {
+		if s[i] != '0' && s[i] != '.' {
+			return s
+		}
+	}
+	return s[1:]
+}
+
+// Numbers in tables have a bounded width: from hugeValue up (and for a
+// deflection below tinyValue) they are written with an exponent and four
+// significant figures, such as 1.235e+12, never as hundreds of digits. A
+// frame in N and mm reaches 10⁹ N·mm (1000 kN·m) and more, and is still
+// written in full.
+const (
+	hugeValue = 1e12
+	tinyValue = 1e-9
+)
+
+// exponent formats v with an exponent and four significant figures.
+func exponent(v float64) string { return strconv.FormatFloat(v, 'e', 3, 64) }
+
 // fixed formats a value for a table with two decimals.
 func fixed(v float64) string {
-	s := strconv.FormatFloat(v, 'f', 2, 64)
-	if s == "-0.00" {
-		s = "0.00"
+	if math.Abs(v) >= hugeValue {
+		return exponent(v)
 	}
-	return s
+	return unsigned(strconv.FormatFloat(v, 'f', 2, 64))
 }
 
 // fixed3 formats a distance along a member with three decimals.
-func fixed3(v float64) string { return strconv.FormatFloat(clean(v), 'f', 3, 64) }
+func fixed3(v float64) string {
+	if math.Abs(v) >= hugeValue {
+		return exponent(v)
+	}
+	return unsigned(strconv.FormatFloat(v, 'f', 3, 64))
+}
 
 // sci formats a small positive quantity such as a residual.
 func sci(v float64) string { return strconv.FormatFloat(clean(v), 'e', 1, 64) }
 
 // sig4 formats a small length such as a deflection to four significant
-// figures, without an exponent.
+// figures, without an exponent between tinyValue and hugeValue.
 func sig4(v float64) string {
 	v = clean(v)
 	if v == 0 {
 		return "0"
+	}
+	if a := math.Abs(v); a >= hugeValue || a < tinyValue {
+		return exponent(v)
 	}
 	d := 3 - int(math.Floor(math.Log10(math.Abs(v))))
 	d = max(0, min(d, 12))
@@ -56,22 +90,39 @@ func sig6(v float64) string {
 func short(v float64) string {
 	a := math.Abs(v)
 	switch {
+	case a >= hugeValue:
+		return exponent(v)
 	case a >= 1000:
-		return strconv.FormatFloat(clean(v), 'f', 0, 64)
+		return unsigned(strconv.FormatFloat(v, 'f', 0, 64))
 	case a >= 10:
-		return strconv.FormatFloat(clean(v), 'f', 1, 64)
+		return unsigned(strconv.FormatFloat(v, 'f', 1, 64))
 	case a >= 0.1:
-		return strconv.FormatFloat(clean(v), 'f', 2, 64)
+		return unsigned(strconv.FormatFloat(v, 'f', 2, 64))
 	}
 	return sig4(v)
 }
 
-// ratio formats a span/deflection ratio as "L/412".
+// ratio formats a span/deflection ratio as "L/412", rounded down (the
+// safe side). A ratio below 1, a deflection larger than the span (which
+// points to a unit slip), keeps two significant figures, rounded down,
+// such as "L/0.0019", never "L/0"; one from 10⁹ up is written with an
+// exponent, such as "L/1.2e+09".
 func ratio(r float64) string {
-	if math.IsInf(r, 0) || math.IsNaN(r) {
+	switch {
+	case math.IsInf(r, 0) || math.IsNaN(r) || r < 0:
 		return "-"
+	case r >= 1e9:
+		return "L/" + strconv.FormatFloat(twoFigures(r), 'e', 1, 64)
+	case r >= 1:
+		return "L/" + strconv.FormatFloat(math.Floor(r), 'f', 0, 64)
 	}
-	return "L/" + strconv.FormatFloat(math.Floor(r), 'f', 0, 64)
+	return "L/" + strconv.FormatFloat(twoFigures(r), 'g', 2, 64)
+}
+
+// twoFigures returns r > 0 rounded down to two significant figures.
+func twoFigures(r float64) float64 {
+	step := math.Pow(10, math.Floor(math.Log10(r))-1)
+	return math.Floor(r/step*(1+1e-12)) * step
 }
 
 // outputDigits is the number of significant digits numbers are written
@@ -107,7 +158,7 @@ func plain(v float64) string {
 }
 
 // svgNum formats a drawing coordinate: two decimals are plenty.
-func svgNum(v float64) string { return strconv.FormatFloat(v, 'f', 2, 64) }
+func svgNum(v float64) string { return unsigned(strconv.FormatFloat(v, 'f', 2, 64)) }
 
 // relDiff formats a relative difference; below 1e-12 it is round-off and
 // shown as a bound, so that the report does not depend on the last bits of

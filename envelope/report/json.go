@@ -9,6 +9,7 @@ import (
 	"strconv"
 
 	"govern/envelope"
+	"govern/envelope/analysis"
 	"govern/frame"
 )
 
@@ -164,13 +165,12 @@ func (p *Report) jsonSpans(j *jsonWriter, combo [][]byte) {
 		if !s.Found {
 			continue
 		}
-		kind := "span"
-		if r.Cantilever {
-			kind = "cantilever"
-		}
-		j.sep(n, ",").raw("\n  {\"kind\": ").str(kind).raw(", \"left\": ").str(mo.Nodes[r.Left].Name).raw(", \"right\": ").str(mo.Nodes[r.Right].Name)
-		if r.Cantilever {
+		j.sep(n, ",").raw("\n  {\"kind\": ").str(r.Kind.String()).raw(", \"left\": ").str(mo.Nodes[r.Left].Name).raw(", \"right\": ").str(mo.Nodes[r.Right].Name)
+		switch r.Kind {
+		case analysis.KindCantilever:
 			j.raw(", \"root\": ").str(mo.Nodes[r.Root].Name)
+		case analysis.KindRidge, analysis.KindValley:
+			j.raw(", \"node\": ").str(mo.Nodes[r.Node].Name)
 		}
 		j.raw(", \"members\": [")
 		for k, m := range r.Members {

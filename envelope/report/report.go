@@ -139,6 +139,19 @@ var (
 	reactionForces = [3]string{"Fx", "Fy", "M"}
 )
 
+// shownFromLeft names what the tables show from its left end, for their
+// headings: "beams", and "beams and other members" when some members are
+// neither beams nor columns (rafters, braces), shown the same way.
+func (p *Report) shownFromLeft() string {
+	mo := p.model()
+	for m := range mo.Members {
+		if !mo.IsBeam(m) && !mo.IsColumn(m) {
+			return "beams and other members"
+		}
+	}
+	return "beams"
+}
+
 // census counts the supported nodes, the beams and the columns of mo.
 func census(mo *frame.Model) (supported, beams, columns int) {
 	for _, n := range mo.Nodes {

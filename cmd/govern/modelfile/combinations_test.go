@@ -268,7 +268,7 @@ func TestReadSetGivingNothing(t *testing.T) {
 	// EN 1990 expression 6.16b with wind alone: ψ2 = 0 for wind (Table
 	// A1.1), so nothing is left to combine; that is an error, not an
 	// analysis of each case alone.
-	src := portal[:strings.Index(portal, "[[case]]")] + "[[case]]\nname = \"W\"\nkind = \"wind\"\n[combinations]\nstandard = \"en1990-quasi-permanent\"\n"
+	src := portal[:strings.Index(portal, "[[case]]")] + "[[case]]\nname = \"W\"\nkind = \"wind\"\n  [[case.load]]\n  type = \"node\"\n  node = \"b\"\n  fx = 1\n[combinations]\nstandard = \"en1990-quasi-permanent\"\n"
 	_, err := Read("p.toml", []byte(src))
 	want := fmt.Sprintf("p.toml:%d: [combinations]: en1990-quasi-permanent gives no combinations for load cases of kinds wind", lineOf(t, src, "[combinations]"))
 	if err == nil || err.Error() != want {
@@ -336,7 +336,7 @@ func TestReadUnused(t *testing.T) {
 	// Issue 12 item 10c: a case no combination uses reads (check and
 	// combos list it), and CheckUnused, which run calls, names it at its
 	// line unless [combinations] unused = "allow".
-	src := strings.Replace(portal, "[[combination]]", "[[case]]\nname = \"T\"\nkind = \"other\"\n[[combination]]", 1)
+	src := strings.Replace(portal, "[[combination]]", "[[case]]\nname = \"T\"\nkind = \"other\"\n  [[case.load]]\n  type = \"node\"\n  node = \"b\"\n  fx = 1\n[[combination]]", 1)
 	job, err := Read("p.toml", []byte(src))
 	if err != nil {
 		t.Fatal(err)

@@ -106,6 +106,12 @@ func TestReadBadInput(t *testing.T) {
 		{name: "roof of a model without nodes (found by fuzzing)", src: "[[case]]\nname = \"G\"\nkind = \"dead\"\n[[case.load]]\ntype = \"udl\"\non = [\"roof\"]\nw = 1\n",
 			want: "m.toml: the model has no nodes: give a [grid] or [[node]] tables\nm.toml: the model has no members: give a [grid] or [[member]] tables\nm.toml:6: case \"G\", load 1: selector \"roof\": the model has no nodes, so no levels", sentinel: ErrReference},
 
+		// Empty load cases.
+		{name: "a case with no loads", edit: []string{"[[combination]]", "[[case]]\nname = \"Q\"\nkind = \"live\"\n[[combination]]"},
+			want: `m.toml:28: case "Q": it has no loads: give it a [[case.load]] (or self_weight = true), or remove the case`, sentinel: ErrMissing},
+		{name: "a case whose every load is zero", edit: []string{"P = 2", "P = 0"},
+			want: `m.toml:20: case "G": every load of it is zero: give it a [[case.load]] (or self_weight = true), or remove the case`, sentinel: ErrMissing},
+
 		// Duplicates.
 		{name: "duplicate section", edit: []string{"[[node]]\nname = \"a\"", "[[section]]\nname = \"S\"\nE = 1\nA = 1\nI = 1\n[[node]]\nname = \"a\""},
 			want: `m.toml:7: section "S": section "S" is defined twice`, sentinel: ErrDuplicate},

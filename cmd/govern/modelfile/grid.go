@@ -295,7 +295,7 @@ func (r *reader) selectMembers(sel string) ([]int, error) {
 		x := ls[n]
 		key = "line " + LineName(n)
 		pick = func(m int) bool {
-			return mo.IsColumn(m) && math.Abs(mo.Nodes[mo.Members[m].Start].X-x) <= coordTol
+			return mo.IsColumn(m) && math.Abs(mo.Nodes[mo.Bottom(m)].X-x) <= coordTol
 		}
 	default:
 		msg := fmt.Sprintf("selector %q: no member of that name, and not one of %s", sel, selectorWords)

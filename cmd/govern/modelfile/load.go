@@ -26,6 +26,7 @@ func (r *reader) readLoad(t *table, c *frame.Case) {
 		nl := frame.NodeLoad{Node: n, Fx: t.num("fx", 0), Fy: t.num("fy", 0), M: t.num("m", 0)}
 		if ok {
 			c.NodeLoads = append(c.NodeLoads, nl)
+			r.noteMoment(t, nl)
 		}
 		return
 	}
@@ -98,6 +99,29 @@ func (r *reader) readLoad(t *table, c *frame.Case) {
 			l := mo.Length(m)
 			c.MemberLoads = append(c.MemberLoads, frame.MemberLoad{Member: m, To: l, W: w, WEnd: w})
 		}
+	}
+}
+
+// noteMoment records the line of a moment applied at a node where every
+// member end is released, which the solver refuses as a mechanism for the
+// case (Job.MomentLoad): the first such load of each case at each node.
+// The case being read is the next one of the model.
+func (r *reader) noteMoment(t *table, nl frame.NodeLoad) {
+	if nl.M == 0 {
+		return
+	}
+	if r.released == nil {
+		r.released = r.job.Model.ReleasedRotations()
+	}
+	if !r.released[nl.Node] {
+		return
+	}
+	key := [2]int{len(r.job.Model.Cases), nl.Node}
+	if r.job.moments == nil {
+		r.job.moments = map[[2]int]loadLine{}
+	}
+	if _, seen := r.job.moments[key]; !seen {
+		r.job.moments[key] = loadLine{r.loc.at(&t.pos, "m"), t.where}
 	}
 }
 

@@ -24,6 +24,38 @@ type Job struct {
 
 	file      string      // the model's name, for messages
 	caseLines map[int]int // the line of each case no combination uses
+	// moments holds, for a moment applied at a node where every member
+	// end is released, by case and node index, the line of the first load
+	// that applies one and how messages name it (MomentLoad).
+	moments map[[2]int]loadLine
+}
+
+// loadLine is where a load is in the model file.
+type loadLine struct {
+	line  int
+	where string // such as `case "M", load 1`
+}
+
+// MomentLoad returns the line of the load at fault, and how messages name
+// it, when err is a mechanism for a moment applied at a node where every
+// member end is released (a frame.MechanismError naming the node and the
+// case); ok is false otherwise.
+func (j *Job) MomentLoad(err error) (line int, where string, ok bool) {
+	var me *frame.MechanismError
+	if !errors.As(err, &me) || j.moments == nil {
+		return 0, "", false
+	}
+	for _, f := range me.Free {
+		if f.Case == "" {
+			continue
+		}
+		for key, at := range j.moments {
+			if j.Model.Cases[key[0]].Name == f.Case && j.Model.Nodes[key[1]].Name == f.Node {
+				return at.line, at.where, true
+			}
+		}
+	}
+	return 0, "", false
 }
 
 // Read parses and validates a model file. name is used in messages only.
@@ -83,6 +115,7 @@ type reader struct {
 	setTable *table            // the [combinations] table, nil without one
 
 	caseTables []*table // per case, its table, for messages (combinations.go)
+	released   []bool   // nodes whose rotation carries nothing, once found (load.go)
 
 	checks // model-wide checks and limits (checks.go)
 }
@@ -495,6 +528,7 @@ func (r *reader) readCases(ts []*table) {
 	mo := r.job.Model
 	seen := map[string]bool{}
 	for _, t := range ts {
+		problems := len(r.errs) + r.more
 		name := t.str("name", "")
 		if !t.need("name") {
 			t.done()
@@ -534,8 +568,22 @@ func (r *reader) readCases(ts []*table) {
 			}
 		}
 		loads := t.array("load", func(i int, _ map[string]any) string { return fmt.Sprintf("case %q, load %d", name, i+1) })
+		read := len(r.errs)+r.more == problems // every load read, with no problem reported
 		for _, lt := range loads {
+			n, e := len(c.MemberLoads)+len(c.NodeLoads), len(r.errs)+r.more
 			r.readLoad(lt, &c)
+			if len(c.MemberLoads)+len(c.NodeLoads) == n || len(r.errs)+r.more != e {
+				read = false
+			}
+		}
+		if read && !r.gridFailed && carriesNothing(c) {
+			// A case with nothing in it would be named governing where it
+			// is only a tie at zero: an error, not a silent extra.
+			what := "it has no loads"
+			if len(loads) > 0 {
+				what = "every load of it is zero"
+			}
+			t.fail("", problem(ErrMissing, "%s: give it a [[case.load]] (or self_weight = true), or remove the case", what))
 		}
 		info := r.readCaseInfo(t)
 		t.done()
@@ -543,6 +591,22 @@ func (r *reader) readCases(ts []*table) {
 		r.job.Cases = append(r.job.Cases, cc)
 		r.caseInfo = append(r.caseInfo, info)
 	}
+}
+
+// carriesNothing reports whether a case has no load, or only loads of
+// zero.
+func carriesNothing(c frame.Case) bool {
+	for _, l := range c.MemberLoads {
+		if l.W != 0 || l.WEnd != 0 || l.P != 0 {
+			return false
+		}
+	}
+	for _, l := range c.NodeLoads {
+		if l.Fx != 0 || l.Fy != 0 || l.M != 0 {
+			return false
+		}
+	}
+	return true
 }
 
 func (r *reader) readCombinations(ts []*table) {
