@@ -277,7 +277,7 @@ func TestMembersPastTheStationLimit(t *testing.T) {
 		}
 		fmt.Fprintf(&b, "[[member]]\nstart = %q\nend = \"x%d\"\nsection = \"S\"\n", from, i)
 	}
-	b.WriteString("[[case]]\nname = \"G\"\nkind = \"dead\"\n")
+	b.WriteString("[[case]]\nname = \"G\"\nkind = \"dead\"\n[[case.load]]\ntype = \"node\"\nnode = \"A1\"\nfx = 1.0\n")
 	_, err := Read("m.toml", []byte(b.String()))
 	want := "m.toml: the model has 500,001 members, whose envelopes would hold at least 1,000,002 station values (two a member, its ends, the fewest there can be); the limit is 1,000,000 station values, which admits 500,000 members: use fewer members"
 	if err == nil || err.Error() != want {
