@@ -10,6 +10,12 @@ import (
 type Term struct {
 	Case   int // index into the model's cases
 	Factor float64
+	// Favourable, when HasFavourable is set, is the factor of the case
+	// where its effect is favourable, from the rule's favourable_factor:
+	// the case takes Factor where its effect is adverse and Favourable
+	// elsewhere, span by span when it is patterned ([Choice]).
+	Favourable    float64
+	HasFavourable bool
 }
 
 // Combination is a named set of factored load cases that act together.

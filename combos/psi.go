@@ -57,7 +57,7 @@ var categories = []Category{
 	{"snow-above-1000m", "Snow loads on buildings: other CEN member states, site altitude above 1000 m", []Kind{Snow}, [3]float64{0.7, 0.5, 0.2}},
 	{"snow-up-to-1000m", "Snow loads on buildings: other CEN member states, site altitude up to 1000 m", []Kind{Snow}, [3]float64{0.5, 0.2, 0}},
 	{"wind", "Wind loads on buildings", []Kind{Wind}, [3]float64{0.6, 0.2, 0}},
-	{"temperature", "Temperature (non-fire) in buildings", []Kind{Other}, [3]float64{0.6, 0.5, 0}},
+	{"temperature", "Temperature (non-fire) in buildings", []Kind{Other, Temperature}, [3]float64{0.6, 0.5, 0}},
 }
 
 // Categories returns the rows of EN 1990 Table A1.1 that a case's category
@@ -87,7 +87,8 @@ type CaseInfo struct {
 	// the other side).
 	Reversible bool
 	// Category names a row of EN 1990 Table A1.1 (see [Categories]); "" when
-	// not given. A wind case without one takes the wind row.
+	// not given. A wind case without one takes the wind row, a temperature
+	// case the temperature row.
 	Category string
 	// Psi holds ψ0, ψ1, ψ2 given for this case; they take precedence over
 	// the category's. PsiGiven says which were given.
@@ -112,8 +113,12 @@ func (ci *CaseInfo) PsiFactor(p Psi, k Kind) (v float64, ok bool) {
 		return ci.Psi[i], true
 	}
 	name := ci.Category
-	if name == "" && k == Wind {
+	switch {
+	case name != "":
+	case k == Wind:
 		name = "wind"
+	case k == Temperature:
+		name = "temperature"
 	}
 	c, ok := LookupCategory(name)
 	if !ok {

@@ -40,7 +40,7 @@ func newEvaluator(mo *frame.Model, cs []combos.Combination, idx []int, nEff int,
 	}
 	e.always = make([]bool, len(mo.Cases))
 	for c := range e.nOrig {
-		e.always[c] = set.AsWritten || set.Kinds[c].Permanent()
+		e.always[c] = set.AsWritten || set.Kinds[c].AlwaysActs()
 	}
 	e.patternOf = make([]int, e.nOrig)
 	for c := range e.patternOf {
