@@ -81,7 +81,7 @@ func spans(mo *frame.Model) []Span {
 	// n, or -1 where the line ends there. strict: any other member at n
 	// ends it.
 	next := func(m, n int, strict bool) int {
-		if mo.Nodes[n].Support != frame.Free {
+		if mo.Nodes[n].Supported() {
 			return -1
 		}
 		ux, uy := dir(m, n)
@@ -104,7 +104,7 @@ func spans(mo *frame.Model) []Span {
 		}
 		return on
 	}
-	free := func(n int) bool { return mo.Nodes[n].Support == frame.Free && len(at[n]) == 1 }
+	free := func(n int) bool { return !mo.Nodes[n].Supported() && len(at[n]) == 1 }
 	chain := func(m int, strict bool) []int {
 		out := []int{m}
 		for _, n := range [2]int{mo.Members[m].Start, mo.Members[m].End} {

@@ -243,7 +243,7 @@ func (p *Report) reactionTable() *Table {
 			label string
 			x     envelope.Extreme
 		}{{"Fx (" + u.Force + ")", r.Fx}, {"Fy (" + u.Force + ")", r.Fy}, {"M (" + u.Moment() + ")", r.M}} {
-			if !node.Support.Restrained(d) {
+			if !node.Reacts(d) {
 				continue
 			}
 			rows = append(rows, []string{name, e.label, fixed(e.x.Max), p.comboName(e.x.MaxBy), fixed(e.x.Min), p.comboName(e.x.MinBy)})
