@@ -2,9 +2,11 @@ package analysis
 
 import (
 	"fmt"
+	"strings"
 
 	"govern/combos"
 	"govern/frame"
+	"govern/patterns"
 )
 
 // solved is what Run solves and envelopes: the job's model, combinations,
@@ -16,6 +18,29 @@ type solved struct {
 	combinations []combos.Combination
 	kinds        []combos.Kind
 	patterned    []int
+	original     map[int]int // copy → the job's case it copies
+}
+
+// namePieces gives the pieces of a copy the names of the job's case
+// ("G/A1-B1", not "G (adverse part)/A1-B1"): the copy is how the case is
+// solved, not a case of the job.
+func (sv *solved) namePieces(job *Job, lay *patterns.Layout) {
+	for i := range lay.Pieces {
+		pc := &lay.Pieces[i]
+		c, ok := sv.original[pc.Case]
+		if !ok {
+			continue
+		}
+		pc.Name = strings.Replace(pc.Name, sv.model.Cases[pc.Case].Name+"/", job.Model.Cases[c].Name+"/", 1)
+	}
+	for p := range lay.Patterned {
+		for u := range lay.Patterned[p].Units {
+			un := &lay.Patterned[p].Units[u]
+			if c, ok := sv.original[lay.Patterned[p].Case]; ok {
+				un.Name = strings.Replace(un.Name, sv.model.Cases[lay.Patterned[p].Case].Name+"/", job.Model.Cases[c].Name+"/", 1)
+			}
+		}
+	}
 }
 
 // favourableSplit returns what Run solves for job. A term that takes a
@@ -53,7 +78,9 @@ func favourableSplit(job *Job) solved {
 	}
 	mo := *job.Model
 	mo.Cases = append(make([]frame.Case, 0, nc+len(order)), job.Model.Cases...)
+	out.original = map[int]int{}
 	for _, c := range order {
+		out.original[len(mo.Cases)] = c
 		cs := job.Model.Cases[c]
 		cs.Name = fmt.Sprintf("%s (adverse part)", cs.Name)
 		mo.Cases = append(mo.Cases, cs)

@@ -124,6 +124,7 @@ func Run(ctx context.Context, job *Job, opt Options) (*Result, error) {
 	if err != nil {
 		return nil, err
 	}
+	sv.namePieces(job, lay)
 	report(opt, Progress{Phase: fmt.Sprintf("solving %d loads (%d load cases, %d pattern pieces or arrangements)",
 		len(lay.Model.Cases), len(sv.model.Cases), len(lay.Model.Cases)-len(sv.model.Cases))})
 	sol, err := frame.SolveWith(lay.Model, opt.Solver)
