@@ -79,6 +79,24 @@ func TestSpringsAtSupports(t *testing.T) {
 		mo.Nodes[0].Springs[0] = 1e3
 		solve(t, mo) // held along X by a spring: stable
 	})
+	t.Run("held along X only", func(t *testing.T) {
+		// Both ends held along X alone: nothing holds the beam up.
+		mo := fixedBeam(6, false, MemberLoad{Member: 0, To: 6, W: 1, WEnd: 1})
+		mo.Nodes[0].Support, mo.Nodes[1].Support = HoldX, HoldX
+		_, err := Solve(mo)
+		var me *MechanismError
+		if !errors.As(err, &me) || !strings.Contains(err.Error(), "move along Y") {
+			t.Fatalf("got %v, want a mechanism free along Y", err)
+		}
+		// A rotational spring at one end does not hold it up either; a
+		// vertical spring does.
+		mo.Nodes[0].Springs[2] = 1e3
+		if _, err := Solve(mo); !errors.As(err, &me) {
+			t.Fatalf("got %v, want a mechanism", err)
+		}
+		mo.Nodes[1].Springs[1] = 1e3
+		solve(t, mo)
+	})
 }
 
 // TestSupportHeldInXOnly: a column fixed at its base and held along X

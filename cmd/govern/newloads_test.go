@@ -2,6 +2,7 @@ package main
 
 import (
 	"fmt"
+	"math"
 	"strings"
 	"testing"
 )
@@ -179,5 +180,42 @@ func TestNewLoadsPrintTheSameWhicheverWayTheBeamIsDrawn(t *testing.T) {
 				}
 			}
 		})
+	}
+}
+
+// TestRigidZonesLeaveTheFacesWhereTheyAre: with [analysis] rigid_zones the
+// face stations of the beams stay half the column depth in from the
+// nodes, where they were, and the beams' zones are that long (factor 1);
+// a fixed-ended beam between very stiff columns, zones and all, carries
+// wl²/12 at its faces over its clear span l (fixed-end moment table,
+// Hibbeler, inside back cover): the column tops barely turn.
+func TestRigidZonesLeaveTheFacesWhereTheyAre(t *testing.T) {
+	const h, span, d, w = 3.0, 6.0, 0.6, 10.0
+	model := func(zones string) string {
+		return zones + tsection("C", 2e8, 10, 10, d) + tsection("B", 2e8, 0.01, 1e-4, 0.5) +
+			tnode("A0", 0, 0, "fixed") + tnode("A1", 0, h, "") + tnode("B1", span, h, "") + tnode("B0", span, 0, "fixed") +
+			tmember("A0", "A1", "C") + tmember("A1", "B1", "B") + tmember("B0", "B1", "C") + tdead(tudl("A1-B1", w))
+	}
+	plain := analyseModel(t, model(""))
+	zoned := analyseModel(t, model("[analysis]\nrigid_zones = true\n"))
+	if fmt.Sprint(plain.Faces) != fmt.Sprint(zoned.Faces) || zoned.Faces[1] != [2]float64{d / 2, span - d/2} {
+		t.Errorf("faces %v with zones, %v without; want [%g %g] for the beam", zoned.Faces, plain.Faces, d/2, span-d/2)
+	}
+	if mem := zoned.Job.Model.Members[1]; mem.OffsetStart != d/2 || mem.OffsetEnd != d/2 {
+		t.Errorf("beam zones %g, %g; want half the column depth, %g", mem.OffsetStart, mem.OffsetEnd, d/2)
+	}
+	l := span - d
+	em := zoned.Envelope.Members[1]
+	faces := 0
+	for _, st := range em.Stations {
+		if st.Extra {
+			faces++
+			if got, want := st.M.Min, -w*l*l/12; math.Abs(got-want) > 2e-3*math.Abs(want) {
+				t.Errorf("face at x = %g: M %g, want -wl²/12 = %g", st.X, got, want)
+			}
+		}
+	}
+	if faces != 2 {
+		t.Errorf("%d face stations on the beam, want 2", faces)
 	}
 }
