@@ -102,6 +102,16 @@ func TestNewLoadsAgainstFixedEndMoments(t *testing.T) {
 			vLeft: 12 * ei * delta / (l * l * l),
 		},
 		{
+			// The left end turned counter-clockwise by θ: slope-deflection
+			// gives 4EIθ/L at that end and 2EIθ/L at the far one (hogging
+			// at the left, sagging at the right), shear 6EIθ/L².
+			name: "rotation of the left end", source: "slope-deflection: 4EIθ/L, 2EIθ/L, 6EIθ/L²",
+			loads: func(bool) []MemberLoad { return nil },
+			disp:  []NodeDisplacement{{Node: 0, Rz: 0.002}},
+			ms:    []want{{0, -4 * ei * 0.002 / l}, {l, 2 * ei * 0.002 / l}},
+			vLeft: 6 * ei * 0.002 / (l * l),
+		},
+		{
 			// Top hotter by ΔT: the clamped beam cannot curve, so it
 			// carries a constant sagging moment EI α ΔT / h and no shear.
 			name: "top hotter", source: "closed form: restrained thermal curvature, M = EI·α·ΔT/h",
