@@ -43,10 +43,10 @@ type Balance struct {
 	// Length; computed only where Imposed is set.
 	Reaction float64
 	// Restraint is the largest force, or moment divided by Length, that the
-	// imposed deformations cause at the ends of a member whose nodes are
-	// held: the scale of the forces they make, even in a frame that they
-	// strain without any (a simply supported beam warmed on top); computed
-	// only where Imposed is set.
+	// imposed deformations cause at the ends of a member clamped at both
+	// its nodes, whatever its releases: the scale of the forces they make,
+	// even in a frame that they strain without any (a simply supported
+	// beam warmed on top); computed only where Imposed is set.
 	Restraint float64
 }
 
@@ -183,34 +183,26 @@ func (sol *Solution) BalanceOf(cs []int) Balance {
 
 // restraint returns the largest force, or moment divided by length, at the
 // ends of a member that the imposed deformations of cases cs (summed)
-// cause with both its nodes held: the fixed-end forces of its changes of
-// temperature and the forces of the displacements imposed on its nodes.
+// cause with both its nodes held and its ends clamped, whatever its
+// releases and springs: the forces that hold a change of temperature
+// (EA α ΔT, EI α ΔT_gradient / depth) and those of the displacements
+// imposed on its nodes. It is the scale of what the deformations do, not
+// zero where the frame takes them freely (a member hinged at both ends).
 func (sol *Solution) restraint(cs []int, length float64) float64 {
 	mo := sol.model
 	length = math.Max(length, math.SmallestNonzeroFloat64)
 	out := 0.0
-	size := func(f *[6]float64) {
-		for i, v := range f {
-			if i%3 == 2 {
-				v /= length
-			}
-			out = math.Max(out, math.Abs(v))
-		}
-	}
-	var thermal []int32
 	for _, c := range cs {
 		for m := range mo.Members {
 			idx, _ := sol.loadsOn(c, m)
-			thermal = thermal[:0]
+			e := &sol.elems[m]
 			for _, i := range idx {
-				if mo.Cases[c].MemberLoads[i].Thermal {
-					thermal = append(thermal, i)
+				if ld := &mo.Cases[c].MemberLoads[i]; ld.Thermal {
+					out = math.Max(out, math.Abs(e.ea*e.alpha*ld.DT))
+					if ld.DTGrad != 0 {
+						out = math.Max(out, math.Abs(e.ei*e.alpha*ld.DTGrad/e.depth)/length)
+					}
 				}
-			}
-			if len(thermal) > 0 {
-				var f [6]float64
-				sol.elems[m].fixedEnd(&f, mo.Cases[c].MemberLoads, thermal)
-				size(&f)
 			}
 		}
 	}
@@ -219,7 +211,7 @@ func (sol *Solution) restraint(cs []int, length float64) float64 {
 	}
 	nc := len(mo.Cases)
 	for m, mem := range mo.Members {
-		var ug, ul, f [6]float64
+		var ug, ul [6]float64
 		has := false
 		for k := range 6 {
 			if e := sol.dof[3*[2]int{mem.Start, mem.End}[k/3]+k%3]; e < -1 {
@@ -234,12 +226,18 @@ func (sol *Solution) restraint(cs []int, length float64) float64 {
 		}
 		e := &sol.elems[m]
 		e.toLocal(&ul, &ug)
+		k := e.flex // clamped: no releases or springs
+		e.offset(&k)
 		for i := range 6 {
+			f := 0.0
 			for j := range 6 {
-				f[i] += e.k[i][j] * ul[j]
+				f += k[i][j] * ul[j]
 			}
+			if i%3 == 2 {
+				f /= length
+			}
+			out = math.Max(out, math.Abs(f))
 		}
-		size(&f)
 	}
 	return out
 }

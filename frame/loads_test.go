@@ -305,3 +305,38 @@ func TestImposedLoadsAreValidated(t *testing.T) {
 		})
 	}
 }
+
+// TestImposedDeformationsTakenFreely: where the frame takes an imposed
+// deformation without any force (a member hinged at both ends warmed on
+// top; the roller of a simple beam settling), every reaction is zero, by
+// statics, and the check still passes: its scale is what the deformation
+// does to a clamped member.
+func TestImposedDeformationsTakenFreely(t *testing.T) {
+	hinged := fixedBeam(chkL, false, MemberLoad{Member: 0, Thermal: true, DT: 20, DTGrad: 20})
+	hinged.Members[0].Release = ReleaseBoth
+	hinged.Nodes[1].Support = Roller
+	hinged.Nodes[0].Support = Pinned
+	settled := fixedBeam(chkL, false)
+	settled.Nodes[0].Support, settled.Nodes[1].Support = Pinned, Roller
+	settled.Cases[0].Displacements = []NodeDisplacement{{Node: 1, Uy: -0.01}}
+	for name, mo := range map[string]*Model{"hinged and warmed": hinged, "simple beam settling": settled} {
+		t.Run(name, func(t *testing.T) {
+			sol := solve(t, mo)
+			for v := range mo.Nodes {
+				fx, fy, m := sol.Reaction(0, v)
+				if math.Abs(fx)+math.Abs(fy)+math.Abs(m) > 1e-9 {
+					t.Errorf("node %s: reaction (%g, %g, %g), want none", mo.Nodes[v].Name, fx, fy, m)
+				}
+			}
+			if b := sol.Balance(0); !(b.Restraint > 0) || b.Relative() > 1e-9 {
+				t.Errorf("restraint %g, relative %g", b.Restraint, b.Relative())
+			}
+		})
+	}
+	// The settled simple beam turns as a rigid body: its deflection
+	// relative to its chord stays zero, the node moves by the settlement.
+	sol := solve(t, settled)
+	if d := sol.Deflection(0, 0, 3); math.Abs(d) > 1e-15 {
+		t.Errorf("deflection %g", d)
+	}
+}
