@@ -101,6 +101,21 @@ type CaseInfo struct {
 	Action, Alternative, With string
 }
 
+// Row returns the name of the row of Table A1.1 a case of kind k takes
+// its ψ from when it gives none of its own: its Category, else "wind" for
+// a wind case and "temperature" for a temperature case, else "".
+func (ci *CaseInfo) Row(k Kind) string {
+	switch {
+	case ci.Category != "":
+		return ci.Category
+	case k == Wind:
+		return "wind"
+	case k == Temperature:
+		return "temperature"
+	}
+	return ""
+}
+
 // PsiFactor returns ψ p (Psi0, Psi1 or Psi2) of a case of kind k: the
 // value given for the case, else its category's, else, for wind, the wind
 // row of Table A1.1. ok is false when none of these gives it.
@@ -112,15 +127,7 @@ func (ci *CaseInfo) PsiFactor(p Psi, k Kind) (v float64, ok bool) {
 	if ci.PsiGiven[i] {
 		return ci.Psi[i], true
 	}
-	name := ci.Category
-	switch {
-	case name != "":
-	case k == Wind:
-		name = "wind"
-	case k == Temperature:
-		name = "temperature"
-	}
-	c, ok := LookupCategory(name)
+	c, ok := LookupCategory(ci.Row(k))
 	if !ok {
 		return 0, false
 	}

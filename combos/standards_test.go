@@ -250,6 +250,15 @@ func TestSettlementAndTemperature(t *testing.T) {
 		sameList(t, generateSet(t, "en1990-quasi-permanent", Params{}, "G dead", "Q live category=B", "Sd settlement", "T temperature"),
 			"1.0G+0.3Q+1.0Sd")
 	})
+	t.Run("the temperature row by default", func(t *testing.T) {
+		var ci CaseInfo
+		if ci.Row(Temperature) != "temperature" || ci.Row(Wind) != "wind" || ci.Row(Other) != "" {
+			t.Errorf("rows %q, %q, %q", ci.Row(Temperature), ci.Row(Wind), ci.Row(Other))
+		}
+		if v, ok := ci.PsiFactor(Psi1, Temperature); !ok || v != 0.5 {
+			t.Errorf("ψ1 of temperature %g, %v; want 0.5 (Table A1.1)", v, ok)
+		}
+	})
 	t.Run("grouping", func(t *testing.T) {
 		cs, info := cases(t, "S1 settlement", "S2 settlement", "T1 temperature", "T2 temperature")
 		a, err := GroupActions(cs, info)
