@@ -51,7 +51,8 @@ func (cb *Combination) Factor(c int) float64 {
 }
 
 // Describe writes the combination as factors and case names, such as
-// "1.2D + 1.6L - 0.5W".
+// "1.2D + 1.6L - 0.5W", or "1.4/1.0G + 1.6Q" for a term with a favourable
+// factor.
 func (cb *Combination) Describe(cases []Case) string {
 	var b strings.Builder
 	for i, t := range cb.Terms {
@@ -66,7 +67,11 @@ func (cb *Combination) Describe(cases []Case) string {
 		case i > 0:
 			b.WriteString(" + ")
 		}
-		if f != 1 {
+		switch {
+		case t.HasFavourable && t.Favourable != t.Factor:
+			// The factor where adverse, and where favourable.
+			b.WriteString(strconv.FormatFloat(f, 'g', -1, 64) + "/" + strconv.FormatFloat(t.Favourable, 'g', -1, 64))
+		case f != 1:
 			b.WriteString(strconv.FormatFloat(f, 'g', -1, 64))
 		}
 		fmt.Fprint(&b, cases[t.Case].Name)

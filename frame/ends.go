@@ -37,11 +37,14 @@ func (sol *Solution) StartLoadsTo(dst []Forces, m int) {
 // than 1e-9 of the length from either end): minus the concentrated
 // moments exactly there (within that tolerance), whose value
 // [Solution.StationsTo] gives from before them. It reports whether any is
-// not zero. dst must have length len(xs) × the number of cases. Nothing is
-// mutated but dst.
+// not zero; when none is, dst may be left as it was. dst must have length
+// len(xs) × the number of cases. Nothing is mutated but dst.
 func (sol *Solution) MomentJumpsTo(dst []float64, m int, xs []float64) bool {
 	if len(dst) != len(sol.model.Cases)*len(xs) {
 		panic("frame: MomentJumpsTo: dst has the wrong length")
+	}
+	if !sol.moments {
+		return false // dst is not read
 	}
 	clear(dst)
 	e := &sol.elems[m]

@@ -42,6 +42,9 @@ type Solution struct {
 	// Members meeting at each node, for reactions and residuals.
 	atNode [][]int32
 
+	// moments is set when some member carries a concentrated moment.
+	moments bool
+
 	// released[node] is true where every member end is released and no
 	// support holds the rotation: it carries nothing and is not solved for.
 	released []bool
@@ -430,6 +433,9 @@ func (sol *Solution) indexLoads() {
 			members = append(members, int32(m))
 			spans = append(spans, [2]int32{int32(i), int32(j)})
 			i = j
+		}
+		for i := range loads {
+			sol.moments = sol.moments || loads[i].Moment
 		}
 		fem := make([]float64, 6*len(members))
 		for i, m32 := range members {
