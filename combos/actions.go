@@ -67,9 +67,9 @@ type Actions struct {
 // cases together).
 func grouped(k Kind) (oneAction, eachAlternative bool) {
 	switch k {
-	case Dead, Live, RoofLive, Snow:
+	case Dead, Live, RoofLive, Snow, Settlement:
 		return true, false
-	case Wind, Seismic:
+	case Wind, Seismic, Temperature:
 		return true, true
 	}
 	return false, false
@@ -115,7 +115,7 @@ func GroupActions(cases []Case, info []CaseInfo) (*Actions, error) {
 	for i, c := range cases {
 		parent[i] = -1
 		ci := &info[i]
-		if c.Kind.Permanent() {
+		if c.Kind.AlwaysActs() {
 			for _, k := range []struct{ key, v string }{{"action", ci.Action}, {"alternative", ci.Alternative}, {"with", ci.With}} {
 				if k.v != "" {
 					fail(i, k.key, "%s: dead load is permanent and always acts in full, as one action with every dead case; only variable cases are grouped", k.key)
@@ -327,11 +327,12 @@ func (a *Actions) Groups() []int {
 	return g
 }
 
-// defaultNote describes the wind, seismic and snow cases grouped by
-// default when there is more than one of a kind.
+// defaultNote describes the wind, seismic, snow, temperature and
+// settlement cases grouped by default when there is more than one of a
+// kind.
 func defaultNote(cases []Case, keyed map[Kind]bool) string {
 	var parts []string
-	for _, k := range []Kind{Wind, Seismic, Snow} {
+	for _, k := range []Kind{Wind, Seismic, Snow, Temperature, Settlement} {
 		if keyed[k] {
 			continue
 		}

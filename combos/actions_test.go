@@ -385,9 +385,9 @@ func TestActionsClash(t *testing.T) {
 		c1, c2 int
 		clash  bool
 	}{
-		{"both directions", []Term{{0, 1.2}, {4, 1}, {5, 1}}, 4, 5, true},
-		{"one direction", []Term{{0, 1.2}, {1, 1.6}, {4, 1}}, 0, 0, false},
-		{"a zero factor is not acting", []Term{{0, 1.2}, {4, 1}, {5, 0}}, 0, 0, false},
+		{"both directions", []Term{{Case: 0, Factor: 1.2}, {Case: 4, Factor: 1}, {Case: 5, Factor: 1}}, 4, 5, true},
+		{"one direction", []Term{{Case: 0, Factor: 1.2}, {Case: 1, Factor: 1.6}, {Case: 4, Factor: 1}}, 0, 0, false},
+		{"a zero factor is not acting", []Term{{Case: 0, Factor: 1.2}, {Case: 4, Factor: 1}, {Case: 5, Factor: 0}}, 0, 0, false},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
 			c1, c2, ok := a.Clash(&Combination{Terms: tc.terms})

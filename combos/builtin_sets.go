@@ -12,47 +12,57 @@ var builtinSets = [...]Set{
 		Rules: []Rule{
 			{ID: "2.4.1-1", Text: "D", Terms: []RuleTerm{
 				{Choices: []Choice{{Kind: Dead, Factor: 1}}, Lead: true},
+				{Choices: []Choice{{Kind: Settlement, Factor: 1}, {Kind: Temperature, Factor: 1}}, Together: true},
 			}},
 			{ID: "2.4.1-2", Text: "D + L", Terms: []RuleTerm{
 				{Choices: []Choice{{Kind: Dead, Factor: 1}}},
 				{Choices: []Choice{{Kind: Live, Factor: 1}}, Lead: true},
+				{Choices: []Choice{{Kind: Settlement, Factor: 1}, {Kind: Temperature, Factor: 1}}, Together: true},
 			}},
 			{ID: "2.4.1-3", Text: "D + (Lr or S or R)", Terms: []RuleTerm{
 				{Choices: []Choice{{Kind: Dead, Factor: 1}}},
 				{Choices: []Choice{{Kind: RoofLive, Factor: 1}, {Kind: Snow, Factor: 1}, {Kind: Rain, Factor: 1}}, Lead: true},
+				{Choices: []Choice{{Kind: Settlement, Factor: 1}, {Kind: Temperature, Factor: 1}}, Together: true},
 			}},
 			{ID: "2.4.1-4", Text: "D + 0.75L + 0.75(Lr or S or R)", Terms: []RuleTerm{
 				{Choices: []Choice{{Kind: Dead, Factor: 1}}},
 				{Choices: []Choice{{Kind: Live, Factor: 0.75}}, Lead: true},
 				{Choices: []Choice{{Kind: RoofLive, Factor: 0.75}, {Kind: Snow, Factor: 0.75}, {Kind: Rain, Factor: 0.75}}, Lead: true},
+				{Choices: []Choice{{Kind: Settlement, Factor: 1}, {Kind: Temperature, Factor: 1}}, Together: true},
 			}},
 			{ID: "2.4.1-5", Text: "D + 0.6W", Terms: []RuleTerm{
 				{Choices: []Choice{{Kind: Dead, Factor: 1}}},
 				{Choices: []Choice{{Kind: Wind, Factor: 0.6}}, Lead: true},
+				{Choices: []Choice{{Kind: Settlement, Factor: 1}, {Kind: Temperature, Factor: 1}}, Together: true},
 			}},
 			{ID: "2.4.1-6", Text: "D + 0.75L + 0.75(0.6W) + 0.75(Lr or S or R)", Terms: []RuleTerm{
 				{Choices: []Choice{{Kind: Dead, Factor: 1}}},
 				{Choices: []Choice{{Kind: Live, Factor: 0.75}}},
 				{Choices: []Choice{{Kind: Wind, Factor: 0.45}}, Lead: true},
 				{Choices: []Choice{{Kind: RoofLive, Factor: 0.75}, {Kind: Snow, Factor: 0.75}, {Kind: Rain, Factor: 0.75}}},
+				{Choices: []Choice{{Kind: Settlement, Factor: 1}, {Kind: Temperature, Factor: 1}}, Together: true},
 			}},
 			{ID: "2.4.1-7", Text: "0.6D + 0.6W", Terms: []RuleTerm{
 				{Choices: []Choice{{Kind: Dead, Factor: 0.6}}},
 				{Choices: []Choice{{Kind: Wind, Factor: 0.6}}, Lead: true},
+				{Choices: []Choice{{Kind: Settlement, Factor: 1}, {Kind: Temperature, Factor: 1}}, Together: true},
 			}},
 			{ID: "2.4.5-8", Text: "1.0D + 0.7Ev + 0.7Eh, Ev = 0.2 S_DS D", Terms: []RuleTerm{
 				{Choices: []Choice{{Kind: Dead, Factor: 1, SDSFactor: 0.14}}},
 				{Choices: []Choice{{Kind: Seismic, Factor: 0.7}}, Lead: true},
+				{Choices: []Choice{{Kind: Settlement, Factor: 1}, {Kind: Temperature, Factor: 1}}, Together: true},
 			}},
 			{ID: "2.4.5-9", Text: "1.0D + 0.525Ev + 0.525Eh + 0.75L + 0.75S, Ev = 0.2 S_DS D", Terms: []RuleTerm{
 				{Choices: []Choice{{Kind: Dead, Factor: 1, SDSFactor: 0.105}}},
 				{Choices: []Choice{{Kind: Seismic, Factor: 0.525}}, Lead: true},
 				{Choices: []Choice{{Kind: Live, Factor: 0.75}}},
 				{Choices: []Choice{{Kind: Snow, Factor: 0.75}}},
+				{Choices: []Choice{{Kind: Settlement, Factor: 1}, {Kind: Temperature, Factor: 1}}, Together: true},
 			}},
 			{ID: "2.4.5-10", Text: "0.6D - 0.7Ev + 0.7Eh, Ev = 0.2 S_DS D", Terms: []RuleTerm{
 				{Choices: []Choice{{Kind: Dead, Factor: 0.6, SDSFactor: -0.14}}},
 				{Choices: []Choice{{Kind: Seismic, Factor: 0.7}}, Lead: true},
+				{Choices: []Choice{{Kind: Settlement, Factor: 1}, {Kind: Temperature, Factor: 1}}, Together: true},
 			}},
 		},
 	},
@@ -62,36 +72,43 @@ var builtinSets = [...]Set{
 		Rules: []Rule{
 			{ID: "2.3.1-1", Text: "1.4D", Terms: []RuleTerm{
 				{Choices: []Choice{{Kind: Dead, Factor: 1.4}}, Lead: true},
+				{Choices: []Choice{{Kind: Settlement, Factor: 1}, {Kind: Temperature, Factor: 1}}, Together: true},
 			}},
 			{ID: "2.3.1-2", Text: "1.2D + 1.6L + 0.5(Lr or S or R)", Terms: []RuleTerm{
 				{Choices: []Choice{{Kind: Dead, Factor: 1.2}}},
 				{Choices: []Choice{{Kind: Live, Factor: 1.6}}, Lead: true},
 				{Choices: []Choice{{Kind: RoofLive, Factor: 0.5}, {Kind: Snow, Factor: 0.5}, {Kind: Rain, Factor: 0.5}}},
+				{Choices: []Choice{{Kind: Settlement, Factor: 1}, {Kind: Temperature, Factor: 1}}, Together: true},
 			}},
 			{ID: "2.3.1-3", Text: "1.2D + 1.6(Lr or S or R) + (L or 0.5W)", Terms: []RuleTerm{
 				{Choices: []Choice{{Kind: Dead, Factor: 1.2}}},
 				{Choices: []Choice{{Kind: RoofLive, Factor: 1.6}, {Kind: Snow, Factor: 1.6}, {Kind: Rain, Factor: 1.6}}, Lead: true},
 				{Choices: []Choice{{Kind: Live, Factor: 1, ReducedLive: 0.5, HasReducedLive: true}, {Kind: Wind, Factor: 0.5}}},
+				{Choices: []Choice{{Kind: Settlement, Factor: 1}, {Kind: Temperature, Factor: 1}}, Together: true},
 			}},
 			{ID: "2.3.1-4", Text: "1.2D + 1.0W + L + 0.5(Lr or S or R)", Terms: []RuleTerm{
 				{Choices: []Choice{{Kind: Dead, Factor: 1.2}}},
 				{Choices: []Choice{{Kind: Wind, Factor: 1}}, Lead: true},
 				{Choices: []Choice{{Kind: Live, Factor: 1, ReducedLive: 0.5, HasReducedLive: true}}},
 				{Choices: []Choice{{Kind: RoofLive, Factor: 0.5}, {Kind: Snow, Factor: 0.5}, {Kind: Rain, Factor: 0.5}}},
+				{Choices: []Choice{{Kind: Settlement, Factor: 1}, {Kind: Temperature, Factor: 1}}, Together: true},
 			}},
 			{ID: "2.3.1-5", Text: "0.9D + 1.0W", Terms: []RuleTerm{
 				{Choices: []Choice{{Kind: Dead, Factor: 0.9}}},
 				{Choices: []Choice{{Kind: Wind, Factor: 1}}, Lead: true},
+				{Choices: []Choice{{Kind: Settlement, Factor: 1}, {Kind: Temperature, Factor: 1}}, Together: true},
 			}},
 			{ID: "2.3.6-6", Text: "1.2D + Ev + Eh + L + 0.2S, Ev = 0.2 S_DS D", Terms: []RuleTerm{
 				{Choices: []Choice{{Kind: Dead, Factor: 1.2, SDSFactor: 0.2}}},
 				{Choices: []Choice{{Kind: Seismic, Factor: 1}}, Lead: true},
 				{Choices: []Choice{{Kind: Live, Factor: 1, ReducedLive: 0.5, HasReducedLive: true}}},
 				{Choices: []Choice{{Kind: Snow, Factor: 0.2}}},
+				{Choices: []Choice{{Kind: Settlement, Factor: 1}, {Kind: Temperature, Factor: 1}}, Together: true},
 			}},
 			{ID: "2.3.6-7", Text: "0.9D - Ev + Eh, Ev = 0.2 S_DS D", Terms: []RuleTerm{
 				{Choices: []Choice{{Kind: Dead, Factor: 0.9, SDSFactor: -0.2}}},
 				{Choices: []Choice{{Kind: Seismic, Factor: 1}}, Lead: true},
+				{Choices: []Choice{{Kind: Settlement, Factor: 1}, {Kind: Temperature, Factor: 1}}, Together: true},
 			}},
 		},
 	},
@@ -101,16 +118,19 @@ var builtinSets = [...]Set{
 		Rules: []Rule{
 			{ID: "6.10", Text: "1.35 Gk", Terms: []RuleTerm{
 				{Choices: []Choice{{Kind: Dead, Factor: 1.35}}, Lead: true},
+				{Choices: []Choice{{Kind: Settlement, Factor: 1.2}}},
 			}},
 			{ID: "6.10", Text: "γG Gk + 1.5 Qk,1 + 1.5 ψ0,i Qk,i, γG = 1.35 or 1.00", Terms: []RuleTerm{
 				{Choices: []Choice{{Kind: Dead, Factor: 1.35}, {Kind: Dead, Factor: 1}}},
-				{Choices: []Choice{{Kind: Live, Factor: 1.5}, {Kind: RoofLive, Factor: 1.5}, {Kind: Snow, Factor: 1.5}, {Kind: Rain, Factor: 1.5}, {Kind: Wind, Factor: 1.5}, {Kind: Other, Factor: 1.5}}, Lead: true, EachAction: true},
-				{Choices: []Choice{{Kind: Live, Factor: 1.5, Psi: Psi0}, {Kind: RoofLive, Factor: 1.5, Psi: Psi0}, {Kind: Snow, Factor: 1.5, Psi: Psi0}, {Kind: Rain, Factor: 1.5, Psi: Psi0}, {Kind: Wind, Factor: 1.5, Psi: Psi0}, {Kind: Other, Factor: 1.5, Psi: Psi0}}, Together: true},
+				{Choices: []Choice{{Kind: Live, Factor: 1.5}, {Kind: RoofLive, Factor: 1.5}, {Kind: Snow, Factor: 1.5}, {Kind: Rain, Factor: 1.5}, {Kind: Wind, Factor: 1.5}, {Kind: Other, Factor: 1.5}, {Kind: Temperature, Factor: 1.5}}, Lead: true, EachAction: true},
+				{Choices: []Choice{{Kind: Live, Factor: 1.5, Psi: Psi0}, {Kind: RoofLive, Factor: 1.5, Psi: Psi0}, {Kind: Snow, Factor: 1.5, Psi: Psi0}, {Kind: Rain, Factor: 1.5, Psi: Psi0}, {Kind: Wind, Factor: 1.5, Psi: Psi0}, {Kind: Other, Factor: 1.5, Psi: Psi0}, {Kind: Temperature, Factor: 1.5, Psi: Psi0}}, Together: true},
+				{Choices: []Choice{{Kind: Settlement, Factor: 1.2}}},
 			}},
 			{ID: "6.12b", Text: "Gk + AEd + ψ2,i Qk,i", Terms: []RuleTerm{
 				{Choices: []Choice{{Kind: Dead, Factor: 1}}},
 				{Choices: []Choice{{Kind: Seismic, Factor: 1}}, Lead: true},
-				{Choices: []Choice{{Kind: Live, Factor: 1, Psi: Psi2}, {Kind: RoofLive, Factor: 1, Psi: Psi2}, {Kind: Snow, Factor: 1, Psi: Psi2}, {Kind: Rain, Factor: 1, Psi: Psi2}, {Kind: Wind, Factor: 1, Psi: Psi2}, {Kind: Other, Factor: 1, Psi: Psi2}}, Together: true},
+				{Choices: []Choice{{Kind: Live, Factor: 1, Psi: Psi2}, {Kind: RoofLive, Factor: 1, Psi: Psi2}, {Kind: Snow, Factor: 1, Psi: Psi2}, {Kind: Rain, Factor: 1, Psi: Psi2}, {Kind: Wind, Factor: 1, Psi: Psi2}, {Kind: Other, Factor: 1, Psi: Psi2}, {Kind: Temperature, Factor: 1, Psi: Psi2}}, Together: true},
+				{Choices: []Choice{{Kind: Settlement, Factor: 1}}},
 			}},
 		},
 	},
@@ -120,21 +140,25 @@ var builtinSets = [...]Set{
 		Rules: []Rule{
 			{ID: "6.10a", Text: "1.35 Gk + 1.5 ψ0,i Qk,i", Terms: []RuleTerm{
 				{Choices: []Choice{{Kind: Dead, Factor: 1.35}}},
-				{Choices: []Choice{{Kind: Live, Factor: 1.5, Psi: Psi0}, {Kind: RoofLive, Factor: 1.5, Psi: Psi0}, {Kind: Snow, Factor: 1.5, Psi: Psi0}, {Kind: Rain, Factor: 1.5, Psi: Psi0}, {Kind: Wind, Factor: 1.5, Psi: Psi0}, {Kind: Other, Factor: 1.5, Psi: Psi0}}, Together: true},
+				{Choices: []Choice{{Kind: Live, Factor: 1.5, Psi: Psi0}, {Kind: RoofLive, Factor: 1.5, Psi: Psi0}, {Kind: Snow, Factor: 1.5, Psi: Psi0}, {Kind: Rain, Factor: 1.5, Psi: Psi0}, {Kind: Wind, Factor: 1.5, Psi: Psi0}, {Kind: Other, Factor: 1.5, Psi: Psi0}, {Kind: Temperature, Factor: 1.5, Psi: Psi0}}, Together: true},
+				{Choices: []Choice{{Kind: Settlement, Factor: 1.2}}},
 			}},
 			{ID: "6.10a", Text: "1.00 Gk + 1.5 ψ0,i Qk,i", Terms: []RuleTerm{
 				{Choices: []Choice{{Kind: Dead, Factor: 1}}},
-				{Choices: []Choice{{Kind: Live, Factor: 1.5, Psi: Psi0}, {Kind: RoofLive, Factor: 1.5, Psi: Psi0}, {Kind: Snow, Factor: 1.5, Psi: Psi0}, {Kind: Rain, Factor: 1.5, Psi: Psi0}, {Kind: Wind, Factor: 1.5, Psi: Psi0}, {Kind: Other, Factor: 1.5, Psi: Psi0}}, Lead: true, Together: true},
+				{Choices: []Choice{{Kind: Live, Factor: 1.5, Psi: Psi0}, {Kind: RoofLive, Factor: 1.5, Psi: Psi0}, {Kind: Snow, Factor: 1.5, Psi: Psi0}, {Kind: Rain, Factor: 1.5, Psi: Psi0}, {Kind: Wind, Factor: 1.5, Psi: Psi0}, {Kind: Other, Factor: 1.5, Psi: Psi0}, {Kind: Temperature, Factor: 1.5, Psi: Psi0}}, Lead: true, Together: true},
+				{Choices: []Choice{{Kind: Settlement, Factor: 1.2}}},
 			}},
 			{ID: "6.10b", Text: "ξ γG,sup Gk or γG,inf Gk + 1.5 Qk,1 + 1.5 ψ0,i Qk,i", Terms: []RuleTerm{
 				{Choices: []Choice{{Kind: Dead, Factor: 1.1475}, {Kind: Dead, Factor: 1}}},
-				{Choices: []Choice{{Kind: Live, Factor: 1.5}, {Kind: RoofLive, Factor: 1.5}, {Kind: Snow, Factor: 1.5}, {Kind: Rain, Factor: 1.5}, {Kind: Wind, Factor: 1.5}, {Kind: Other, Factor: 1.5}}, Lead: true, EachAction: true},
-				{Choices: []Choice{{Kind: Live, Factor: 1.5, Psi: Psi0}, {Kind: RoofLive, Factor: 1.5, Psi: Psi0}, {Kind: Snow, Factor: 1.5, Psi: Psi0}, {Kind: Rain, Factor: 1.5, Psi: Psi0}, {Kind: Wind, Factor: 1.5, Psi: Psi0}, {Kind: Other, Factor: 1.5, Psi: Psi0}}, Together: true},
+				{Choices: []Choice{{Kind: Live, Factor: 1.5}, {Kind: RoofLive, Factor: 1.5}, {Kind: Snow, Factor: 1.5}, {Kind: Rain, Factor: 1.5}, {Kind: Wind, Factor: 1.5}, {Kind: Other, Factor: 1.5}, {Kind: Temperature, Factor: 1.5}}, Lead: true, EachAction: true},
+				{Choices: []Choice{{Kind: Live, Factor: 1.5, Psi: Psi0}, {Kind: RoofLive, Factor: 1.5, Psi: Psi0}, {Kind: Snow, Factor: 1.5, Psi: Psi0}, {Kind: Rain, Factor: 1.5, Psi: Psi0}, {Kind: Wind, Factor: 1.5, Psi: Psi0}, {Kind: Other, Factor: 1.5, Psi: Psi0}, {Kind: Temperature, Factor: 1.5, Psi: Psi0}}, Together: true},
+				{Choices: []Choice{{Kind: Settlement, Factor: 1.2}}},
 			}},
 			{ID: "6.12b", Text: "Gk + AEd + ψ2,i Qk,i", Terms: []RuleTerm{
 				{Choices: []Choice{{Kind: Dead, Factor: 1}}},
 				{Choices: []Choice{{Kind: Seismic, Factor: 1}}, Lead: true},
-				{Choices: []Choice{{Kind: Live, Factor: 1, Psi: Psi2}, {Kind: RoofLive, Factor: 1, Psi: Psi2}, {Kind: Snow, Factor: 1, Psi: Psi2}, {Kind: Rain, Factor: 1, Psi: Psi2}, {Kind: Wind, Factor: 1, Psi: Psi2}, {Kind: Other, Factor: 1, Psi: Psi2}}, Together: true},
+				{Choices: []Choice{{Kind: Live, Factor: 1, Psi: Psi2}, {Kind: RoofLive, Factor: 1, Psi: Psi2}, {Kind: Snow, Factor: 1, Psi: Psi2}, {Kind: Rain, Factor: 1, Psi: Psi2}, {Kind: Wind, Factor: 1, Psi: Psi2}, {Kind: Other, Factor: 1, Psi: Psi2}, {Kind: Temperature, Factor: 1, Psi: Psi2}}, Together: true},
+				{Choices: []Choice{{Kind: Settlement, Factor: 1}}},
 			}},
 		},
 	},
@@ -145,11 +169,13 @@ var builtinSets = [...]Set{
 		Rules: []Rule{
 			{ID: "6.14b", Text: "Gk", Terms: []RuleTerm{
 				{Choices: []Choice{{Kind: Dead, Factor: 1}}, Lead: true},
+				{Choices: []Choice{{Kind: Settlement, Factor: 1}}},
 			}},
 			{ID: "6.14b", Text: "Gk + Qk,1 + ψ0,i Qk,i", Terms: []RuleTerm{
 				{Choices: []Choice{{Kind: Dead, Factor: 1}}},
-				{Choices: []Choice{{Kind: Live, Factor: 1}, {Kind: RoofLive, Factor: 1}, {Kind: Snow, Factor: 1}, {Kind: Rain, Factor: 1}, {Kind: Wind, Factor: 1}, {Kind: Other, Factor: 1}}, Lead: true, EachAction: true},
-				{Choices: []Choice{{Kind: Live, Factor: 1, Psi: Psi0}, {Kind: RoofLive, Factor: 1, Psi: Psi0}, {Kind: Snow, Factor: 1, Psi: Psi0}, {Kind: Rain, Factor: 1, Psi: Psi0}, {Kind: Wind, Factor: 1, Psi: Psi0}, {Kind: Other, Factor: 1, Psi: Psi0}}, Together: true},
+				{Choices: []Choice{{Kind: Live, Factor: 1}, {Kind: RoofLive, Factor: 1}, {Kind: Snow, Factor: 1}, {Kind: Rain, Factor: 1}, {Kind: Wind, Factor: 1}, {Kind: Other, Factor: 1}, {Kind: Temperature, Factor: 1}}, Lead: true, EachAction: true},
+				{Choices: []Choice{{Kind: Live, Factor: 1, Psi: Psi0}, {Kind: RoofLive, Factor: 1, Psi: Psi0}, {Kind: Snow, Factor: 1, Psi: Psi0}, {Kind: Rain, Factor: 1, Psi: Psi0}, {Kind: Wind, Factor: 1, Psi: Psi0}, {Kind: Other, Factor: 1, Psi: Psi0}, {Kind: Temperature, Factor: 1, Psi: Psi0}}, Together: true},
+				{Choices: []Choice{{Kind: Settlement, Factor: 1}}},
 			}},
 		},
 	},
@@ -160,11 +186,13 @@ var builtinSets = [...]Set{
 		Rules: []Rule{
 			{ID: "6.15b", Text: "Gk", Terms: []RuleTerm{
 				{Choices: []Choice{{Kind: Dead, Factor: 1}}, Lead: true},
+				{Choices: []Choice{{Kind: Settlement, Factor: 1}}},
 			}},
 			{ID: "6.15b", Text: "Gk + ψ1,1 Qk,1 + ψ2,i Qk,i", Terms: []RuleTerm{
 				{Choices: []Choice{{Kind: Dead, Factor: 1}}},
-				{Choices: []Choice{{Kind: Live, Factor: 1, Psi: Psi1}, {Kind: RoofLive, Factor: 1, Psi: Psi1}, {Kind: Snow, Factor: 1, Psi: Psi1}, {Kind: Rain, Factor: 1, Psi: Psi1}, {Kind: Wind, Factor: 1, Psi: Psi1}, {Kind: Other, Factor: 1, Psi: Psi1}}, Lead: true, EachAction: true},
-				{Choices: []Choice{{Kind: Live, Factor: 1, Psi: Psi2}, {Kind: RoofLive, Factor: 1, Psi: Psi2}, {Kind: Snow, Factor: 1, Psi: Psi2}, {Kind: Rain, Factor: 1, Psi: Psi2}, {Kind: Wind, Factor: 1, Psi: Psi2}, {Kind: Other, Factor: 1, Psi: Psi2}}, Together: true},
+				{Choices: []Choice{{Kind: Live, Factor: 1, Psi: Psi1}, {Kind: RoofLive, Factor: 1, Psi: Psi1}, {Kind: Snow, Factor: 1, Psi: Psi1}, {Kind: Rain, Factor: 1, Psi: Psi1}, {Kind: Wind, Factor: 1, Psi: Psi1}, {Kind: Other, Factor: 1, Psi: Psi1}, {Kind: Temperature, Factor: 1, Psi: Psi1}}, Lead: true, EachAction: true},
+				{Choices: []Choice{{Kind: Live, Factor: 1, Psi: Psi2}, {Kind: RoofLive, Factor: 1, Psi: Psi2}, {Kind: Snow, Factor: 1, Psi: Psi2}, {Kind: Rain, Factor: 1, Psi: Psi2}, {Kind: Wind, Factor: 1, Psi: Psi2}, {Kind: Other, Factor: 1, Psi: Psi2}, {Kind: Temperature, Factor: 1, Psi: Psi2}}, Together: true},
+				{Choices: []Choice{{Kind: Settlement, Factor: 1}}},
 			}},
 		},
 	},
@@ -175,7 +203,8 @@ var builtinSets = [...]Set{
 		Rules: []Rule{
 			{ID: "6.16b", Text: "Gk + ψ2,i Qk,i", Terms: []RuleTerm{
 				{Choices: []Choice{{Kind: Dead, Factor: 1}}},
-				{Choices: []Choice{{Kind: Live, Factor: 1, Psi: Psi2}, {Kind: RoofLive, Factor: 1, Psi: Psi2}, {Kind: Snow, Factor: 1, Psi: Psi2}, {Kind: Rain, Factor: 1, Psi: Psi2}, {Kind: Wind, Factor: 1, Psi: Psi2}, {Kind: Other, Factor: 1, Psi: Psi2}}, Together: true},
+				{Choices: []Choice{{Kind: Live, Factor: 1, Psi: Psi2}, {Kind: RoofLive, Factor: 1, Psi: Psi2}, {Kind: Snow, Factor: 1, Psi: Psi2}, {Kind: Rain, Factor: 1, Psi: Psi2}, {Kind: Wind, Factor: 1, Psi: Psi2}, {Kind: Other, Factor: 1, Psi: Psi2}, {Kind: Temperature, Factor: 1, Psi: Psi2}}, Together: true},
+				{Choices: []Choice{{Kind: Settlement, Factor: 1}}},
 			}},
 		},
 	},

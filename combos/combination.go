@@ -10,6 +10,12 @@ import (
 type Term struct {
 	Case   int // index into the model's cases
 	Factor float64
+	// Favourable, when HasFavourable is set, is the factor of the case
+	// where its effect is favourable, from the rule's favourable_factor:
+	// the case takes Factor where its effect is adverse and Favourable
+	// elsewhere, span by span when it is patterned ([Choice]).
+	Favourable    float64
+	HasFavourable bool
 }
 
 // Combination is a named set of factored load cases that act together.
@@ -45,7 +51,8 @@ func (cb *Combination) Factor(c int) float64 {
 }
 
 // Describe writes the combination as factors and case names, such as
-// "1.2D + 1.6L - 0.5W".
+// "1.2D + 1.6L - 0.5W", or "1.4/1.0G + 1.6Q" for a term with a favourable
+// factor.
 func (cb *Combination) Describe(cases []Case) string {
 	var b strings.Builder
 	for i, t := range cb.Terms {
@@ -60,7 +67,11 @@ func (cb *Combination) Describe(cases []Case) string {
 		case i > 0:
 			b.WriteString(" + ")
 		}
-		if f != 1 {
+		switch {
+		case t.HasFavourable && t.Favourable != t.Factor:
+			// The factor where adverse, and where favourable.
+			b.WriteString(strconv.FormatFloat(f, 'g', -1, 64) + "/" + strconv.FormatFloat(t.Favourable, 'g', -1, 64))
+		case f != 1:
 			b.WriteString(strconv.FormatFloat(f, 'g', -1, 64))
 		}
 		fmt.Fprint(&b, cases[t.Case].Name)

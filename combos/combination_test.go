@@ -19,9 +19,10 @@ func TestDescribe(t *testing.T) {
 		terms []Term
 		want  string
 	}{
-		{"factored sum", []Term{{0, 1.2}, {1, 1.6}}, "1.2D + 1.6L"},
-		{"negative wind", []Term{{0, 0.9}, {2, -1}}, "0.9D - W"},
-		{"leading negative", []Term{{2, -1}}, "-W"},
+		{"factored sum", []Term{{Case: 0, Factor: 1.2}, {Case: 1, Factor: 1.6}}, "1.2D + 1.6L"},
+		{"negative wind", []Term{{Case: 0, Factor: 0.9}, {Case: 2, Factor: -1}}, "0.9D - W"},
+		{"leading negative", []Term{{Case: 2, Factor: -1}}, "-W"},
+		{"a favourable factor", []Term{{Case: 0, Factor: 1.4, Favourable: 1, HasFavourable: true}, {Case: 1, Factor: 1.6}}, "1.4/1D + 1.6L"},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
 			cb := Combination{Terms: tc.terms}

@@ -248,7 +248,11 @@ func (g *generator) unit(u []pick, k int, taken []bool, acc []term, base int, ne
 		var ts []term
 		for _, c := range alt.Cases {
 			if f := g.factor(pk.ch, c); f != 0 {
-				ts = append(ts, term{Term: Term{Case: c, Factor: f}, alt: g.altID[pk.action][li], rev: alt.Reversible})
+				t := term{Term: Term{Case: c, Factor: f}, alt: g.altID[pk.action][li], rev: alt.Reversible}
+				if pk.ch.HasFavourable {
+					t.Favourable, t.HasFavourable = round12(pk.ch.Favourable), true
+				}
+				ts = append(ts, t)
 			}
 		}
 		if len(ts) == 0 {
@@ -375,6 +379,9 @@ func factorKey(ts []Term) string {
 	s := make([]string, len(ts))
 	for i, t := range ts {
 		s[i] = strconv.Itoa(t.Case) + ":" + strconv.FormatFloat(t.Factor, 'g', -1, 64)
+		if t.HasFavourable {
+			s[i] += "/" + strconv.FormatFloat(t.Favourable, 'g', -1, 64)
+		}
 	}
 	sort.Strings(s)
 	return strings.Join(s, " ")
@@ -392,7 +399,8 @@ func FormatFactor(f float64) string {
 }
 
 // Compact writes terms as factors and case names without spaces, such as
-// "1.2D+1.6S-0.5W".
+// "1.2D+1.6S-0.5W"; a term with a favourable factor other than its factor
+// shows both, such as "1.4/1.0G" (1.4 where adverse, 1.0 where favourable).
 func Compact(terms []Term, cases []Case) string {
 	var b strings.Builder
 	for i, t := range terms {
@@ -405,6 +413,10 @@ func Compact(terms []Term, cases []Case) string {
 			b.WriteString("+")
 		}
 		b.WriteString(FormatFactor(f))
+		if t.HasFavourable && t.Favourable != t.Factor {
+			// The factor where the case's effect is favourable.
+			b.WriteString("/" + FormatFactor(t.Favourable))
+		}
 		b.WriteString(cases[t.Case].Name)
 	}
 	return b.String()

@@ -57,7 +57,7 @@ var categories = []Category{
 	{"snow-above-1000m", "Snow loads on buildings: other CEN member states, site altitude above 1000 m", []Kind{Snow}, [3]float64{0.7, 0.5, 0.2}},
 	{"snow-up-to-1000m", "Snow loads on buildings: other CEN member states, site altitude up to 1000 m", []Kind{Snow}, [3]float64{0.5, 0.2, 0}},
 	{"wind", "Wind loads on buildings", []Kind{Wind}, [3]float64{0.6, 0.2, 0}},
-	{"temperature", "Temperature (non-fire) in buildings", []Kind{Other}, [3]float64{0.6, 0.5, 0}},
+	{"temperature", "Temperature (non-fire) in buildings", []Kind{Other, Temperature}, [3]float64{0.6, 0.5, 0}},
 }
 
 // Categories returns the rows of EN 1990 Table A1.1 that a case's category
@@ -87,7 +87,8 @@ type CaseInfo struct {
 	// the other side).
 	Reversible bool
 	// Category names a row of EN 1990 Table A1.1 (see [Categories]); "" when
-	// not given. A wind case without one takes the wind row.
+	// not given. A wind case without one takes the wind row, a temperature
+	// case the temperature row.
 	Category string
 	// Psi holds ψ0, ψ1, ψ2 given for this case; they take precedence over
 	// the category's. PsiGiven says which were given.
@@ -98,6 +99,21 @@ type CaseInfo struct {
 	// alternative this case shares. "" when not given: the case is then
 	// grouped by the rule of its kind (see [GroupActions]).
 	Action, Alternative, With string
+}
+
+// Row returns the name of the row of Table A1.1 a case of kind k takes
+// its ψ from when it gives none of its own: its Category, else "wind" for
+// a wind case and "temperature" for a temperature case, else "".
+func (ci *CaseInfo) Row(k Kind) string {
+	switch {
+	case ci.Category != "":
+		return ci.Category
+	case k == Wind:
+		return "wind"
+	case k == Temperature:
+		return "temperature"
+	}
+	return ""
 }
 
 // PsiFactor returns ψ p (Psi0, Psi1 or Psi2) of a case of kind k: the
@@ -111,11 +127,7 @@ func (ci *CaseInfo) PsiFactor(p Psi, k Kind) (v float64, ok bool) {
 	if ci.PsiGiven[i] {
 		return ci.Psi[i], true
 	}
-	name := ci.Category
-	if name == "" && k == Wind {
-		name = "wind"
-	}
-	c, ok := LookupCategory(name)
+	c, ok := LookupCategory(ci.Row(k))
 	if !ok {
 		return 0, false
 	}

@@ -68,6 +68,15 @@ type Choice struct {
 	// Psi, when set, multiplies the factor by the case's own ψ factor.
 	// Key psi.
 	Psi Psi
+	// Favourable, when HasFavourable is set, is the factor of the load
+	// where its effect is favourable: it takes Factor where its effect is
+	// adverse and Favourable elsewhere, span by span when its case is
+	// patterned (BS 8110-1 clause 3.2.1.2.2: 1.4Gk on the loaded spans
+	// and 1.0Gk on the others). Permanent loads only, from 0 to Factor.
+	// Only with it may a permanent case be patterned. Key
+	// favourable_factor.
+	Favourable    float64
+	HasFavourable bool
 }
 
 // UsesSDS reports whether any rule of the set takes S_DS into a factor.
@@ -79,6 +88,12 @@ func (s *Set) UsesSDS() bool {
 // load factor.
 func (s *Set) UsesReducedLive() bool {
 	return s.any(func(c *Choice) bool { return c.HasReducedLive })
+}
+
+// UsesFavourable reports whether any rule of the set gives a favourable
+// factor.
+func (s *Set) UsesFavourable() bool {
+	return s.any(func(c *Choice) bool { return c.HasFavourable })
 }
 
 // UsesPsi reports whether any rule of the set takes ψ factors from the cases.

@@ -211,3 +211,68 @@ func TestEN1990Serviceability(t *testing.T) {
 		sameList(t, generateSet(t, "en1990-quasi-permanent", Params{}, "G dead", "Q live category=E"), "1.0G+0.8Q")
 	})
 }
+
+// TestSettlementAndTemperature: the new kinds in the built-in sets.
+// ASCE/SEI 7-16 takes both as the self-straining load T with a factor of
+// 1.0 in every combination (section 2.3.4, recalled from memory: a factor
+// not less than 1.0; section 2.4.4 for the allowable set, its least
+// factor not confirmed). EN 1990 takes uneven settlements as a permanent
+// action with γG,set = 1.2 in a linear analysis (Annex A1, A1.3.1(4),
+// recalled from memory), 1.0 in 6.12b and the serviceability
+// combinations, and temperature as a variable action with the ψ of Table
+// A1.1's temperature row, 0.6, 0.5 and 0.
+func TestSettlementAndTemperature(t *testing.T) {
+	t.Run("asce7-16-strength", func(t *testing.T) {
+		sameList(t, generateSet(t, "asce7-16-strength", Params{}, "D dead", "L live", "Sd settlement", "T temperature"),
+			"1.4D+1.0Sd+1.0T", "1.2D+1.6L+1.0Sd+1.0T")
+		// T never leads: without D or L nothing is generated.
+		s, _ := Standard("asce7-16-strength")
+		cs, info := cases(t, "Sd settlement", "T temperature")
+		if got, err := s.Generate(cs, info, Params{}); err != nil || len(got) != 0 {
+			t.Errorf("T alone: %v, %v", got, err)
+		}
+	})
+	t.Run("asce7-16-allowable", func(t *testing.T) {
+		sameList(t, generateSet(t, "asce7-16-allowable", Params{}, "D dead", "W wind", "T temperature"),
+			"1.0D+1.0T", "1.0D+0.6W+1.0T", "1.0D+0.45W+1.0T", "0.6D+0.6W+1.0T")
+	})
+	t.Run("en1990-6.10", func(t *testing.T) {
+		// 1.35G + 1.2Sd; (1.35 or 1.0)G + 1.5T (leading) + 1.2Sd; and with
+		// Q leading T accompanies at 1.5 × 0.6 = 0.9 (and Q at 1.5 × 0.7
+		// = 1.05 when T leads).
+		sameList(t, generateSet(t, "en1990-6.10", Params{}, "G dead", "Q live category=B", "Sd settlement", "T temperature"),
+			"1.35G+1.2Sd",
+			"1.35G+1.5Q+0.9T+1.2Sd", "1.35G+1.5T+1.05Q+1.2Sd",
+			"1.0G+1.5Q+0.9T+1.2Sd", "1.0G+1.5T+1.05Q+1.2Sd")
+	})
+	t.Run("en1990-quasi-permanent", func(t *testing.T) {
+		// ψ2 = 0 for temperature: it drops out; the settlement stays at 1.0.
+		sameList(t, generateSet(t, "en1990-quasi-permanent", Params{}, "G dead", "Q live category=B", "Sd settlement", "T temperature"),
+			"1.0G+0.3Q+1.0Sd")
+	})
+	t.Run("the temperature row by default", func(t *testing.T) {
+		var ci CaseInfo
+		if ci.Row(Temperature) != "temperature" || ci.Row(Wind) != "wind" || ci.Row(Other) != "" {
+			t.Errorf("rows %q, %q, %q", ci.Row(Temperature), ci.Row(Wind), ci.Row(Other))
+		}
+		if v, ok := ci.PsiFactor(Psi1, Temperature); !ok || v != 0.5 {
+			t.Errorf("ψ1 of temperature %g, %v; want 0.5 (Table A1.1)", v, ok)
+		}
+	})
+	t.Run("grouping", func(t *testing.T) {
+		cs, info := cases(t, "S1 settlement", "S2 settlement", "T1 temperature", "T2 temperature")
+		a, err := GroupActions(cs, info)
+		if err != nil {
+			t.Fatal(err)
+		}
+		// Settlement: one action, its cases together (each acts only where
+		// adverse); temperature: one action, each case an alternative
+		// (a rise or a fall, never both).
+		if len(a.List) != 2 || len(a.List[0].Alternatives) != 1 || len(a.List[1].Alternatives) != 2 {
+			t.Errorf("actions %+v", a.List)
+		}
+		if !strings.Contains(a.Note, "temperature cases T1, T2 as alternatives") || !strings.Contains(a.Note, "settlement cases S1, S2 as one action") {
+			t.Errorf("note %q", a.Note)
+		}
+	})
+}

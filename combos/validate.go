@@ -115,6 +115,14 @@ func (v *validator) term(i, j int, t *RuleTerm, where string) {
 		if c.HasReducedLive && finite("reduced_live_factor", c.ReducedLive) && c.Kind != Live {
 			v.add(i, j, k, where, "reduced_live_factor", "reduced_live_factor applies to live load only (ASCE/SEI 7-16 section 2.3.1 exception 1), not to %s", c.Kind)
 		}
+		if c.HasFavourable && finite("favourable_factor", c.Favourable) {
+			switch {
+			case !c.Kind.Permanent():
+				v.add(i, j, k, where, "favourable_factor", "favourable_factor applies to permanent loads only, not to %s: a variable load is left out where favourable", c.Kind)
+			case c.Favourable < 0 || c.Favourable > c.Factor:
+				v.add(i, j, k, where, "favourable_factor", "favourable_factor = %g must be from 0 to the factor, %g", c.Favourable, c.Factor)
+			}
+		}
 		switch {
 		case int(c.Psi) >= len(psiNames):
 			v.add(i, j, k, where, "psi", "psi %s is not one of psi0, psi1, psi2", c.Psi)

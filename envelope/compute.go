@@ -98,7 +98,7 @@ func Compute(sol *frame.Solution, cs []combos.Combination, set Settings, lay *pa
 	}
 	w := e.scratch()
 	for v, nd := range mo.Nodes {
-		if nd.Support == frame.Free {
+		if !nd.Supported() { // held by nothing: no reactions
 			continue
 		}
 		r, err := e.reaction(w, sol, v)

@@ -19,7 +19,11 @@
 // reactions are global, the forces the supports exert on the frame. At the
 // two end stations N and V are the values inside the member (past a point
 // load at its start, before one at its end, [frame.Solution.StartLoadsTo]);
-// at an interior station where a point load acts, the value before it.
+// at an interior station where a point load acts, the value before it. At
+// an interior station where a concentrated moment acts, M is taken on both
+// sides of it ([frame.Solution.MomentJumpsTo]): the extremes there are the
+// larger and the smaller of the two sides, whichever way the member was
+// drawn.
 //
 // Combinations marked as service combinations give the envelope of each
 // member's deflection relative to its chord (along local y), and for
@@ -31,8 +35,9 @@
 //
 // # Variable loads and patterns
 //
-// Within a combination a permanent case always acts with its factor. A
-// variable case acts in full by default only where its factored effect makes
+// Within a combination a dead case always acts with its factor
+// ([combos.Kind.AlwaysActs]). Any other case (variable, or settlement) acts
+// in full by default only where its factored effect makes
 // the extreme being sought worse, and is left off where it would relieve it
 // (the design standards' requirement to investigate the effects of loads not
 // acting; with EN 1990 this is γQ = 0 for favourable variable actions).

@@ -45,7 +45,7 @@ func newEvaluator(mo *frame.Model, cs []combos.Combination, idx []int, nEff int,
 	e.plan()
 	e.always = make([]bool, len(mo.Cases))
 	for c := range e.nOrig {
-		e.always[c] = set.AsWritten || set.Kinds[c].Permanent()
+		e.always[c] = set.AsWritten || set.Kinds[c].AlwaysActs()
 	}
 	e.patternOf = make([]int, e.nOrig)
 	for c := range e.patternOf {
@@ -89,6 +89,8 @@ type work struct {
 	defl  []float64      // deflections relative to the chord
 	line  []float64      // deflections across the member's line
 	start []frame.Forces // each column's point loads at the member's start
+	jump  []float64      // each column's change of M past concentrated moments at each station
+	jumps bool           // some column has one at some station
 	// What counts as round-off in the member (see roundOff): for N, V, M,
 	// for the deflection and for the deflection across its line.
 	noiseAt              [3]float64

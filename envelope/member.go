@@ -30,6 +30,9 @@ func (e *evaluator) member(w *work, sol *frame.Solution, m int) (Member, error) 
 		}
 		w.noise = w.noiseAt
 		ex := e.station(w)
+		if w.jumps {
+			e.pastMoments(w, &ex, i)
+		}
 		if !allFinite(&ex, 3) {
 			return Member{}, e.nonFinite(w, func(q int) string { return fmt.Sprintf("%s of member %q at x = %g", effects[q], name, x) })
 		}
@@ -80,6 +83,9 @@ func (e *evaluator) evaluate(w *work, sol *frame.Solution, m int) Line {
 	} else {
 		sol.StationsTo(w.at, m, w.xs)
 	}
+	// Concentrated moments exactly at a station: M is also taken past them.
+	w.jump = grow(w.jump, ns*nc)
+	w.jumps = sol.MomentJumpsTo(w.jump, m, w.xs)
 	// The first station is at x = 0: take it inside the member, past any
 	// point load at its start.
 	w.start = grow(w.start, nc)
@@ -127,6 +133,33 @@ func (e *evaluator) evaluate(w *work, sol *frame.Solution, m int) Line {
 	}
 	w.noiseAt, w.noiseDefl, w.noiseLine = noise, noiseDefl, noiseLine
 	return line
+}
+
+// pastMoments takes into the extremes of M at station i (ex[2]) the values
+// past the concentrated moments that act exactly there, where M jumps:
+// the station's values are those before them, and the larger and the
+// smaller of the two sides are the station's extremes, whichever way the
+// member was drawn. w.ev holds the station's values before them.
+func (e *evaluator) pastMoments(w *work, ex *[3]Extreme, i int) {
+	ns := len(w.xs)
+	jumps := false
+	for c := range w.ev {
+		if d := w.jump[c*ns+i]; d != 0 {
+			w.ev[c][2] += d
+			jumps = true
+		}
+	}
+	if !jumps {
+		return
+	}
+	past := e.station(w)
+	m, p := &ex[2], &past[2]
+	if p.Max > m.Max {
+		m.Max, m.MaxBy, m.MaxWith, m.MaxSpans, m.MaxLoaded = p.Max, p.MaxBy, p.MaxWith, p.MaxSpans, p.MaxLoaded
+	}
+	if p.Min < m.Min {
+		m.Min, m.MinBy, m.MinWith, m.MinSpans, m.MinLoaded = p.Min, p.MinBy, p.MinWith, p.MinSpans, p.MinLoaded
+	}
 }
 
 // largest returns the largest magnitude in v.

@@ -32,6 +32,31 @@ type Balance struct {
 	// Length is the diagonal of the box that holds every node; moments are
 	// compared with Load × Length.
 	Length float64
+
+	// Imposed is set when the cases impose deformations (displacements of
+	// supports, changes of temperature): their reactions balance each
+	// other, and may be far larger than the loads or there may be no load
+	// at all, so the imbalance is compared with the largest of Load,
+	// Reaction and Restraint rather than with Load alone.
+	Imposed bool
+	// Reaction is the largest reaction, a force or a moment divided by
+	// Length; computed only where Imposed is set.
+	Reaction float64
+	// Restraint is the largest force, or moment divided by Length, that the
+	// imposed deformations cause at the ends of a member clamped at both
+	// its nodes, whatever its releases: the scale of the forces they make,
+	// even in a frame that they strain without any (a simply supported
+	// beam warmed on top); computed only where Imposed is set.
+	Restraint float64
+}
+
+// Scale is what the imbalance is compared with: Load, or, for imposed
+// deformations, the largest of Load, Reaction and Restraint.
+func (b Balance) Scale() float64 {
+	if b.Imposed {
+		return max(b.Load, b.Reaction, b.Restraint)
+	}
+	return b.Load
 }
 
 // Out returns Applied + Reactions, the amount by which the reactions fail to
@@ -41,9 +66,9 @@ func (b Balance) Out() Resultant {
 }
 
 // Relative returns the largest out-of-balance quantity of the check as a
-// fraction of the load: forces over Load, moments over Load × Length. It is 0
-// for an unloaded case that is exactly in balance and +Inf for an unloaded
-// case that is not.
+// fraction of the load (of [Balance.Scale]): forces over it, moments over
+// it × Length. It is 0 for an unloaded case that is exactly in balance and
+// +Inf for an unloaded case that is not.
 func (b Balance) Relative() float64 {
 	o := b.Out()
 	f := math.Max(math.Max(math.Abs(o.Fx), math.Abs(o.Fy)), b.JointForce)
@@ -51,10 +76,11 @@ func (b Balance) Relative() float64 {
 	if f == 0 && m == 0 {
 		return 0
 	}
-	if !(b.Load > 0) {
+	scale := b.Scale()
+	if !(scale > 0) {
 		return math.Inf(1)
 	}
-	return math.Max(f/b.Load, m/(b.Load*math.Max(b.Length, math.SmallestNonzeroFloat64)))
+	return math.Max(f/scale, m/(scale*math.Max(b.Length, math.SmallestNonzeroFloat64)))
 }
 
 // Balance returns the statics check of case c.
@@ -73,6 +99,7 @@ func (sol *Solution) BalanceOf(cs []int) Balance {
 	fem := make([]float64, 6*nm)
 	acc := make([]float64, 3*nn) // node loads less the end forces on the members
 	for _, c := range cs {
+		b.Imposed = b.Imposed || mo.Cases[c].Imposed()
 		r := appliedAbout(mo, c, x0, y0)
 		b.Applied = Resultant{Fx: b.Applied.Fx + r.Fx, Fy: b.Applied.Fy + r.Fy, M: b.Applied.M + r.M}
 		b.Load += loadSize(mo, c, b.Length)
@@ -109,22 +136,38 @@ func (sol *Solution) BalanceOf(cs []int) Balance {
 			acc[3*mem.End+i] -= g[3+i]
 		}
 	}
-	for v, nd := range mo.Nodes {
+	react := func(nd *Node, d int, rv float64) {
+		switch d {
+		case 0:
+			b.Reactions.Fx += rv
+			b.Reactions.M -= (nd.Y - y0) * rv // −y·Rx
+		case 1:
+			b.Reactions.Fy += rv
+			b.Reactions.M += (nd.X - x0) * rv // x·Ry
+		case 2:
+			b.Reactions.M += rv
+		}
+		if b.Imposed {
+			if d == 2 {
+				rv /= math.Max(b.Length, math.SmallestNonzeroFloat64)
+			}
+			b.Reaction = math.Max(b.Reaction, math.Abs(rv))
+		}
+	}
+	for v := range mo.Nodes {
+		nd := &mo.Nodes[v]
 		for d := range 3 {
 			r := acc[3*v+d]
+			if k := nd.Springs[d]; k > 0 && !nd.Support.Restrained(d) {
+				// The spring's reaction, −k u, and what it leaves at the joint.
+				rv := -k * u[3*v+d]
+				react(nd, d, rv)
+				r += rv
+			}
 			switch {
 			case nd.Support.Restrained(d):
 				// The reaction balances what is left at a held direction.
-				switch d {
-				case 0:
-					b.Reactions.Fx -= r
-					b.Reactions.M += (nd.Y - y0) * r // −y·Rx with Rx = −r
-				case 1:
-					b.Reactions.Fy -= r
-					b.Reactions.M -= (nd.X - x0) * r // x·Ry with Ry = −r
-				case 2:
-					b.Reactions.M -= r
-				}
+				react(nd, d, -r)
 			case d == 2:
 				b.JointMoment = math.Max(b.JointMoment, math.Abs(r))
 			default:
@@ -132,7 +175,71 @@ func (sol *Solution) BalanceOf(cs []int) Balance {
 			}
 		}
 	}
+	if b.Imposed {
+		b.Restraint = sol.restraint(cs, b.Length)
+	}
 	return b
+}
+
+// restraint returns the largest force, or moment divided by length, at the
+// ends of a member that the imposed deformations of cases cs (summed)
+// cause with both its nodes held and its ends clamped, whatever its
+// releases and springs: the forces that hold a change of temperature
+// (EA α ΔT, EI α ΔT_gradient / depth) and those of the displacements
+// imposed on its nodes. It is the scale of what the deformations do, not
+// zero where the frame takes them freely (a member hinged at both ends).
+func (sol *Solution) restraint(cs []int, length float64) float64 {
+	mo := sol.model
+	length = math.Max(length, math.SmallestNonzeroFloat64)
+	out := 0.0
+	for _, c := range cs {
+		for m := range mo.Members {
+			idx, _ := sol.loadsOn(c, m)
+			e := &sol.elems[m]
+			for _, i := range idx {
+				if ld := &mo.Cases[c].MemberLoads[i]; ld.Thermal {
+					out = math.Max(out, math.Abs(e.ea*e.alpha*ld.DT))
+					if ld.DTGrad != 0 {
+						out = math.Max(out, math.Abs(e.ei*e.alpha*ld.DTGrad/e.depth)/length)
+					}
+				}
+			}
+		}
+	}
+	if len(sol.imposed) == 0 {
+		return out
+	}
+	nc := len(mo.Cases)
+	for m, mem := range mo.Members {
+		var ug, ul [6]float64
+		has := false
+		for k := range 6 {
+			if e := sol.dof[3*[2]int{mem.Start, mem.End}[k/3]+k%3]; e < -1 {
+				for _, c := range cs {
+					ug[k] += sol.imposed[(-2-e)*nc+c]
+				}
+				has = has || ug[k] != 0
+			}
+		}
+		if !has {
+			continue
+		}
+		e := &sol.elems[m]
+		e.toLocal(&ul, &ug)
+		k := e.flex // clamped: no releases or springs
+		e.offset(&k)
+		for i := range 6 {
+			f := 0.0
+			for j := range 6 {
+				f += k[i][j] * ul[j]
+			}
+			if i%3 == 2 {
+				f /= length
+			}
+			out = math.Max(out, math.Abs(f))
+		}
+	}
+	return out
 }
 
 // extent returns the diagonal of the bounding box of the nodes of mo.
@@ -168,9 +275,17 @@ func loadSize(mo *Model, c int, length float64) float64 {
 		}
 	}
 	for _, ld := range cs.MemberLoads {
-		if ld.Point {
+		switch {
+		case ld.Point:
 			sum += math.Abs(ld.P)
 			continue
+		case ld.Moment:
+			if length > 0 {
+				sum += math.Abs(ld.M) / length
+			}
+			continue
+		case ld.Thermal:
+			continue // no resultant: see Balance.Restraint
 		}
 		l := mo.Length(ld.Member)
 		a, b := clampTo(ld.From, 0, l), clampTo(ld.To, 0, l)

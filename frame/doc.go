@@ -28,7 +28,31 @@
 // displacement relative to its chord, the straight line between its
 // displaced ends, along local y: a beam drawn left to right sags
 // negatively. [Section.Depth] is carried for design (faces of columns) and
-// never used by the solver.
+// for the rigid end zones [RigidZones] gives; the solver uses it only for
+// the curvature of a temperature gradient.
+//
+// # Supports, joints and imposed deformations
+//
+// A [Support] holds any set of the three directions of its node (Fixed,
+// Pinned and Roller are named sets; HoldX alone is a floor held
+// laterally). [Node.Springs] are elastic supports in the directions the
+// support leaves free, with reactions −k u. A member end is rigid,
+// released ([Release]) or semi-rigid (a rotational spring in series with
+// the member, [Member.SpringStart]); rigid end zones
+// ([Member.OffsetStart]) make the member rigid near its nodes, its
+// flexible part between them carrying the releases and springs. Loads,
+// stations and results are still measured from the start node.
+//
+// A case may impose displacements on held directions of supported nodes
+// ([NodeDisplacement]: a settlement is a negative Uy) and changes of
+// temperature on members ([MemberLoad] Thermal: uniform DT and DTGrad =
+// T(local +y face) − T(local −y face), with the section's Alpha and
+// Depth). A concentrated moment on a member ([MemberLoad] Moment) is
+// counter-clockwise positive, as a node moment is; the bending moment
+// drops by it past the load. Imposed deformations have no resultant: the
+// statics check of such a case compares its imbalance with the largest of
+// its load, its largest reaction and the forces the deformations cause at
+// held member ends ([Balance.Scale]).
 //
 // # Degrees of freedom
 //

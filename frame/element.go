@@ -2,15 +2,22 @@ package frame
 
 import "math"
 
-// element is the stiffness of one member in local axes after its releases
-// have been condensed out, with the transformation to global axes.
+// element is the stiffness of one member in local axes, at its nodes: the
+// flexible part's stiffness with its end conditions (releases, rotational
+// springs) condensed out, carried to the nodes through the rigid end zones;
+// with the transformation to global axes.
 type element struct {
-	k       [6][6]float64 // local stiffness, releases condensed
-	full    [6][6]float64 // local stiffness before condensation
+	k       [6][6]float64 // local stiffness at the nodes
+	flex    [6][6]float64 // stiffness of the flexible part before its end conditions
 	release Release
-	c, s    float64 // direction cosines of local x
-	l       float64
-	ei      float64 // bending stiffness E I
+	spring  [2]float64 // rotational springs at the flexible part's start and end; 0: none
+	c, s    float64    // direction cosines of local x
+	l       float64    // length between the nodes
+	a, b    float64    // rigid end zones at the start and the end
+	lf      float64    // flexible length, l − a − b
+	ei, ea  float64    // bending stiffness E I and axial stiffness E A
+	alpha   float64    // coefficient of thermal expansion
+	depth   float64    // section depth, for a temperature gradient
 }
 
 // newElement builds the local stiffness of member m of mo.
@@ -18,77 +25,146 @@ func newElement(mo *Model, m int) element {
 	mem := mo.Members[m]
 	sec := mo.Sections[mem.Section]
 	c, s, l := mo.geometry(m)
-	ei := sec.E * sec.I
-	a, b, d, f := 12*ei/(l*l*l), 6*ei/(l*l), 4*ei/l, 2*ei/l
-	return makeElement(c, s, l, ei, mem.Release, sec.E*sec.A/l, &[4][4]float64{
-		{a, b, -a, b},
-		{b, d, -b, f},
-		{-a, -b, a, -b},
-		{b, f, -b, d},
-	})
+	e := element{c: c, s: s, l: l, release: mem.Release, ei: sec.E * sec.I, ea: sec.E * sec.A,
+		spring: [2]float64{mem.SpringStart, mem.SpringEnd}, a: mem.OffsetStart, b: mem.OffsetEnd,
+		alpha: sec.Alpha, depth: sec.Depth}
+	e.lf = l - e.a - e.b
+	if e.a == 0 && e.b == 0 {
+		e.lf = l // exactly
+	}
+	ei, lf := e.ei, e.lf
+	ea := e.ea / lf
+	k := &e.flex
+	k[0][0], k[0][3], k[3][0], k[3][3] = ea, -ea, -ea, ea
+	a, b, d, f := 12*ei/(lf*lf*lf), 6*ei/(lf*lf), 4*ei/lf, 2*ei/lf
+	k[1][1], k[1][2], k[1][4], k[1][5] = a, b, -a, b
+	k[2][1], k[2][2], k[2][4], k[2][5] = b, d, -b, f
+	k[4][1], k[4][2], k[4][4], k[4][5] = -a, -b, a, -b
+	k[5][1], k[5][2], k[5][4], k[5][5] = b, f, -b, d
+	e.k = e.flex
+	e.endConditions(&e.k, nil)
+	e.offset(&e.k)
+	return e
 }
 
-// kinematic returns e with the same geometry and releases, and the
-// stiffnesses of a member as stiff across its length as along it,
-// EA/L = 12EI/L³ = 1, whatever its section: its strain energy
-// ½δ² + (L²/6)(θ₁² + θ₁θ₂ + θ₂²), for an elongation δ and end rotations θ
-// measured from the chord, weighs stretching and bending alike, in units
-// of length squared. The mechanism search works on the matrix of such
-// members (see diagnose), which has the frame's mechanisms and none of
-// the disparity of its stiffnesses.
+// kinematic returns e with the same geometry, releases and rigid end
+// zones, and the stiffnesses of a member as stiff across its flexible
+// length as along it, EA/lf = 12EI/lf³ = 1, whatever its section, with a
+// rotational spring at an end taken as rigid (it holds the rotation): its
+// strain energy ½δ² + (lf²/6)(θ₁² + θ₁θ₂ + θ₂²), for an elongation δ and
+// end rotations θ measured from the chord, weighs stretching and bending
+// alike, in units of length squared. The mechanism search works on the
+// matrix of such members (see diagnose), which has the frame's mechanisms
+// and none of the disparity of its stiffnesses.
 //
 // Its rotations are taken in units of length: the rotation at the start is
 // h1 θ₁ and at the end h2 θ₂, h1 and h2 the longest member held rigidly at
 // each end's node, so that no entry is larger than 1 however long or short
-// the members are (L³/12 itself would overflow past L = 1e102). Its ei is
-// not that of any member.
+// the members are (lf³/12 itself would overflow past lf = 1e102). Its ei
+// and ea are not those of any member.
 func (e *element) kinematic(h1, h2 float64) element {
-	r1, r2 := e.l/h1, e.l/h2
+	r1, r2 := e.lf/h1, e.lf/h2
 	b1, b2, d1, d2, f := r1/2, r2/2, r1*r1/3, r2*r2/3, r1*r2/6
-	return makeElement(e.c, e.s, e.l, 0, e.release, 1, &[4][4]float64{
-		{1, b1, -1, b2},
-		{b1, d1, -b1, f},
-		{-1, -b1, 1, -b2},
-		{b2, f, -b2, d2},
-	})
-}
-
-// makeElement builds the local stiffness of a member of direction cosines
-// c, s, length l, bending stiffness ei (EI) and releases rel, from its
-// axial stiffness ea (EA/L) and its bending block bend, in the order
-// transverse displacement and rotation at the start, then at the end.
-func makeElement(c, s, l, ei float64, rel Release, ea float64, bend *[4][4]float64) element {
-	e := element{c: c, s: s, l: l, release: rel, ei: ei}
-	k := &e.k
-	k[0][0], k[0][3], k[3][0], k[3][3] = ea, -ea, -ea, ea
+	k := element{c: e.c, s: e.s, l: e.l, lf: e.lf, release: e.release,
+		a: e.a / h1, b: e.b / h2} // a zone moves its flexible end by a θ = (a/h1)(h1 θ)
+	m := &k.flex
+	m[0][0], m[0][3], m[3][0], m[3][3] = 1, -1, -1, 1
 	at := [4]int{1, 2, 4, 5}
 	for i, r := range at {
 		for j, c := range at {
-			k[r][c] = bend[i][j]
+			m[r][c] = [4][4]float64{
+				{1, b1, -1, b2},
+				{b1, d1, -b1, f},
+				{-1, -b1, 1, -b2},
+				{b2, f, -b2, d2},
+			}[i][j]
 		}
 	}
-	e.full = e.k
-	if rel.AtStart() {
-		condense(k, nil, 2)
-	}
-	if rel.AtEnd() {
-		condense(k, nil, 5)
-	}
-	return e
+	k.k = k.flex
+	k.endConditions(&k.k, nil) // releases only: k has no springs
+	k.offset(&k.k)
+	return k
 }
 
-// condenseLoads applies the member's releases to its fixed-end forces f.
-func (e *element) condenseLoads(f *[6]float64) {
-	if e.release == ReleaseNone {
+// endConditions condenses the releases and rotational springs of the
+// flexible part's ends out of its stiffness k and, when f is not nil, out
+// of its fixed-end forces f.
+func (e *element) endConditions(k *[6][6]float64, f *[6]float64) {
+	for side, r := range [2]int{2, 5} {
+		released := e.release.AtStart()
+		if side == 1 {
+			released = e.release.AtEnd()
+		}
+		switch {
+		case released:
+			condense(k, f, r)
+		case e.spring[side] > 0:
+			springEnd(k, f, r, e.spring[side])
+		}
+	}
+}
+
+// springEnd puts a rotational spring of stiffness ks between the member's
+// rotation r and its node: the member's own end rotation becomes an inner
+// degree of freedom, joined to the node's by the spring, and is condensed
+// out. With p = k[r][r] + ks, the node's rotation keeps ks k[r][r] / p of
+// the member's stiffness, and the fixed-end moment ks/p of its own.
+func springEnd(k *[6][6]float64, f *[6]float64, r int, ks float64) {
+	p := k[r][r] + ks
+	col := [6]float64{}
+	for i := range 6 {
+		col[i] = k[i][r]
+	}
+	for i := range 6 {
+		if i == r {
+			continue
+		}
+		for j := range 6 {
+			if j == r {
+				continue
+			}
+			k[i][j] -= col[i] * col[j] / p
+		}
+		k[i][r] = col[i] * ks / p
+		k[r][i] = k[i][r]
+	}
+	k[r][r] = ks * col[r] / p
+	if f != nil {
+		fr := f[r]
+		for i := range 6 {
+			if i != r {
+				f[i] -= col[i] * fr / p
+			}
+		}
+		f[r] = ks * fr / p
+	}
+}
+
+// offset carries the stiffness k of the flexible part to the nodes through
+// the rigid end zones: Tᵀ k T, where T gives the flexible ends'
+// displacements from the nodes' (a transverse displacement of a rotation
+// times the zone's length).
+func (e *element) offset(k *[6][6]float64) {
+	if e.a == 0 && e.b == 0 {
 		return
 	}
-	k := e.full
-	if e.release.AtStart() {
-		condense(&k, f, 2)
+	// Columns: k T adds a·(column 1) to column 2 and −b·(column 4) to column 5.
+	for i := range 6 {
+		k[i][2] += e.a * k[i][1]
+		k[i][5] -= e.b * k[i][4]
 	}
-	if e.release.AtEnd() {
-		condense(&k, f, 5)
+	// Rows: Tᵀ (k T) likewise.
+	for j := range 6 {
+		k[2][j] += e.a * k[1][j]
+		k[5][j] -= e.b * k[4][j]
 	}
+}
+
+// offsetLoads carries the fixed-end forces f of the flexible part to the
+// nodes: Tᵀ f, the moments about the nodes.
+func (e *element) offsetLoads(f *[6]float64) {
+	f[2] += e.a * f[1]
+	f[5] -= e.b * f[4]
 }
 
 // condense removes degree of freedom r from k (and from the fixed-end force
@@ -182,31 +258,87 @@ func (ld *MemberLoad) intensity(xi, c, s float64) (qx, qy float64) {
 	return ld.Direction.local(ld.IntensityAt(xi), c, s)
 }
 
-// addFixedEnd adds to f the fixed-end forces (forces the nodes exert on a
-// member clamped at both ends) that load ld causes on a member of length l
-// with direction cosines c, s. The shape functions are the exact
-// deflected shapes of a prismatic member, so the result is exact.
-func addFixedEnd(f *[6]float64, ld *MemberLoad, c, s, l float64) {
-	add := func(xi, px, py float64) {
-		r := xi / l
+// fixedEnd sets f to the fixed-end forces (forces the nodes exert on the
+// member, both nodes clamped) of the loads idx of loads, in local axes at
+// the nodes, with the member's end conditions applied. The loads on the
+// flexible part are integrated against its exact deflected shapes (cubic
+// Hermite functions; linear for axial load), so the result is exact; its
+// releases and springs are condensed, and its end forces carried to the
+// nodes through the rigid end zones. A load on a rigid zone goes straight
+// to its node.
+func (e *element) fixedEnd(f *[6]float64, loads []MemberLoad, idx []int32) {
+	*f = [6]float64{}
+	var direct [6]float64
+	for _, i := range idx {
+		e.addFixedEnd(f, &direct, &loads[i])
+	}
+	k := e.flex
+	e.endConditions(&k, f)
+	e.offsetLoads(f)
+	for i := range 6 {
+		f[i] += direct[i]
+	}
+}
+
+// addFixedEnd adds to f the fixed-end forces of load ld on the flexible
+// part (local axes at its ends, before its end conditions), and to direct
+// the forces the nodes exert on the rigid zones under it.
+func (e *element) addFixedEnd(f, direct *[6]float64, ld *MemberLoad) {
+	l, lf, a0 := e.l, e.lf, e.a
+	b0 := l - e.b // the flexible part is [a0, b0]
+	// at adds a force (px, py) or a moment m at ξ from the start node.
+	at := func(xi, px, py, m float64) {
+		switch {
+		case xi < a0:
+			direct[0] -= px
+			direct[1] -= py
+			direct[2] -= xi*py + m
+			return
+		case xi > b0:
+			direct[3] -= px
+			direct[4] -= py
+			direct[5] -= (xi-l)*py + m
+			return
+		}
+		r := (xi - a0) / lf
 		f[0] -= (1 - r) * px
 		f[3] -= r * px
-		f[1] -= (1 - 3*r*r + 2*r*r*r) * py
-		f[2] -= l * r * (1 - r) * (1 - r) * py
-		f[4] -= (3*r*r - 2*r*r*r) * py
-		f[5] -= l * r * r * (r - 1) * py
+		f[1] -= (1-3*r*r+2*r*r*r)*py + (6*r*r-6*r)/lf*m
+		f[2] -= lf*r*(1-r)*(1-r)*py + (1-r)*(1-3*r)*m
+		f[4] -= (3*r*r-2*r*r*r)*py + (6*r-6*r*r)/lf*m
+		f[5] -= lf*r*r*(r-1)*py + r*(3*r-2)*m
 	}
-	if ld.Point {
-		px, py := ld.Direction.local(ld.P, c, s)
-		add(clampTo(ld.At, 0, l), px, py)
-		return
-	}
-	a, b := clampTo(ld.From, 0, l), clampTo(ld.To, 0, l)
-	h, mid := (b-a)/2, (a+b)/2
-	for _, g := range gauss3 {
-		xi := mid + h*g.x
-		qx, qy := ld.intensity(xi, c, s)
-		add(xi, qx*g.w*h, qy*g.w*h)
+	switch {
+	case ld.Point:
+		px, py := ld.Direction.local(ld.P, e.c, e.s)
+		at(clampTo(ld.At, 0, l), px, py, 0)
+	case ld.Moment:
+		at(clampTo(ld.At, 0, l), 0, 0, ld.M)
+	case ld.Thermal:
+		n := e.ea * e.alpha * ld.DT // axial force of the clamped member, compression positive
+		f[0] += n
+		f[3] -= n
+		if ld.DTGrad != 0 {
+			m := e.ei * e.alpha * ld.DTGrad / e.depth // sagging moment of the clamped member
+			f[2] -= m
+			f[5] += m
+		}
+	default:
+		lo, hi := clampTo(ld.From, 0, l), clampTo(ld.To, 0, l)
+		// Each of the three parts, rigid or flexible, integrated on its own
+		// so that the rule stays exact on each.
+		for _, part := range [3][2]float64{{lo, min(hi, a0)}, {max(lo, a0), min(hi, b0)}, {max(lo, b0), hi}} {
+			pa, pb := part[0], part[1]
+			if !(pb > pa) {
+				continue
+			}
+			h, mid := (pb-pa)/2, (pa+pb)/2
+			for _, g := range gauss3 {
+				xi := mid + h*g.x
+				qx, qy := ld.intensity(xi, e.c, e.s)
+				at(xi, qx*g.w*h, qy*g.w*h, 0)
+			}
+		}
 	}
 }
 
@@ -217,8 +349,11 @@ type Forces struct {
 
 // stationForces returns the internal forces at distance x from the start of
 // a member of length l and direction cosines c, s, given the local end
-// forces at its start and the loads on it. A point load exactly at x is not
-// yet included (the value just before it).
+// forces at its start and the loads on it. A point load or a concentrated
+// moment exactly at x is not yet included (the value just before it),
+// except a concentrated moment at the start (x = 0), which is: the value
+// at the start is the one inside the member. Temperature changes give no
+// forces of their own: they act through the end forces.
 func stationForces(f0, f1, f2, x, l, c, s float64, loads []MemberLoad, idx []int32) Forces {
 	n := -f0
 	v := f1
@@ -226,13 +361,21 @@ func stationForces(f0, f1, f2, x, l, c, s float64, loads []MemberLoad, idx []int
 	tol := 1e-9 * l
 	for _, i := range idx {
 		ld := &loads[i]
-		if ld.Point {
+		switch {
+		case ld.Point:
 			if ld.At < x-tol {
 				px, py := ld.Direction.local(ld.P, c, s)
 				n -= px
 				v += py
 				m += (x - ld.At) * py
 			}
+			continue
+		case ld.Moment:
+			if ld.At < x-tol || ld.At <= tol {
+				m -= ld.M
+			}
+			continue
+		case ld.Thermal:
 			continue
 		}
 		a, b := clampTo(ld.From, 0, l), math.Min(clampTo(ld.To, 0, l), x)

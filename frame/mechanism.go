@@ -155,8 +155,8 @@ func unsupportedParts(mo *Model) [][]int {
 		}
 	}
 	supported := make([]bool, len(mo.Nodes))
-	for v, nd := range mo.Nodes {
-		if nd.Support != Free {
+	for v := range mo.Nodes {
+		if mo.Nodes[v].Supported() {
 			supported[find(v)] = true
 		}
 	}
@@ -196,16 +196,18 @@ func releasedRotations(mo *Model) []bool {
 	rigid := make([]bool, len(mo.Nodes)) // some member end is not released
 	for _, m := range mo.Members {
 		joined[m.Start], joined[m.End] = true, true
-		if !m.Release.AtStart() {
+		// A released end with a rigid zone still turns its node: the
+		// zone carries the hinge's force round the node.
+		if !m.Release.AtStart() || m.OffsetStart > 0 {
 			rigid[m.Start] = true
 		}
-		if !m.Release.AtEnd() {
+		if !m.Release.AtEnd() || m.OffsetEnd > 0 {
 			rigid[m.End] = true
 		}
 	}
 	out := make([]bool, len(mo.Nodes))
 	for v, nd := range mo.Nodes {
-		out[v] = joined[v] && !rigid[v] && !nd.Support.Restrained(2)
+		out[v] = joined[v] && !rigid[v] && !nd.Support.Restrained(2) && !(nd.Springs[2] > 0)
 	}
 	return out
 }

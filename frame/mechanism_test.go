@@ -279,7 +279,7 @@ func TestKinematicMemberEnergy(t *testing.T) {
 				angle, l := rng.Float64()*2*math.Pi, 0.1+10*rng.Float64()
 				h1, h2 := l*(1+3*rng.Float64()), l*(1+3*rng.Float64())
 				c, s := math.Cos(angle), math.Sin(angle)
-				base := makeElement(c, s, l, 0, rel, 1e12*rng.Float64(), &[4][4]float64{})
+				base := element{c: c, s: s, l: l, lf: l, release: rel, ei: 1e12 * rng.Float64()}
 				k := base.kinematic(h1, h2)
 				g := k.global()
 				var u [6]float64

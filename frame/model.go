@@ -5,37 +5,59 @@ import (
 	"math"
 )
 
-// Support is the restraint at a node.
+// Support is the restraint at a node: the set of its directions that are
+// held, one bit each (ux 1, uy 2, rz 4). The named kinds are Free, Fixed,
+// Pinned and Roller; any other set is a restraint by direction, such as
+// HoldX alone (a floor held laterally only) or HoldY|HoldRZ.
 type Support uint8
 
 const (
-	Free   Support = iota // no restraint
-	Fixed                 // ux, uy and rz restrained
-	Pinned                // ux and uy restrained
-	Roller                // uy restrained; free to move along X
+	Free   Support = 0                      // no restraint
+	HoldX  Support = 1                      // ux restrained
+	HoldY  Support = 2                      // uy restrained
+	HoldRZ Support = 4                      // rz restrained
+	Fixed          = HoldX | HoldY | HoldRZ // ux, uy and rz restrained
+	Pinned         = HoldX | HoldY          // ux and uy restrained
+	Roller         = HoldY                  // uy restrained; free to move along X
 )
 
-var supportNames = [...]string{"free", "fixed", "pinned", "roller"}
+// Hold returns the support that holds the directions d (0 ux, 1 uy, 2 rz).
+func Hold(d ...int) Support {
+	var s Support
+	for _, k := range d {
+		s |= 1 << k
+	}
+	return s
+}
 
 func (s Support) String() string {
-	if int(s) < len(supportNames) {
-		return supportNames[s]
+	switch s {
+	case Free:
+		return "free"
+	case Fixed:
+		return "fixed"
+	case Pinned:
+		return "pinned"
+	case Roller:
+		return "roller"
 	}
-	return fmt.Sprintf("Support(%d)", uint8(s))
+	if s > Fixed {
+		return fmt.Sprintf("Support(%d)", uint8(s))
+	}
+	out := ""
+	for d, n := range [3]string{"x", "y", "rotation"} {
+		if s.Restrained(d) {
+			if out != "" {
+				out += "+"
+			}
+			out += n
+		}
+	}
+	return out
 }
 
 // Restrained reports whether degree of freedom d (0 ux, 1 uy, 2 rz) is held.
-func (s Support) Restrained(d int) bool {
-	switch s {
-	case Fixed:
-		return true
-	case Pinned:
-		return d < 2
-	case Roller:
-		return d == 1
-	}
-	return false
-}
+func (s Support) Restrained(d int) bool { return d >= 0 && d < 3 && s&(1<<d) != 0 }
 
 // Release is a moment release (hinge) at one or both ends of a member.
 type Release uint8
@@ -67,7 +89,22 @@ type Node struct {
 	Name    string
 	X, Y    float64
 	Support Support
+	// Springs are the stiffnesses of elastic supports in the directions
+	// the support does not hold: kx and ky (force/length) and kr
+	// (moment/radian); 0 where there is none. A spring's reaction is −k
+	// times the node's displacement in its direction.
+	Springs [3]float64
 }
+
+// Supported reports whether anything holds the node: its support or a
+// spring. Such a node has reactions.
+func (n *Node) Supported() bool {
+	return n.Support != Free || n.Springs != [3]float64{}
+}
+
+// Reacts reports whether the node has a reaction in direction d (0 ux,
+// 1 uy, 2 rz): the support holds it or a spring acts in it.
+func (n *Node) Reacts(d int) bool { return n.Support.Restrained(d) || n.Springs[d] > 0 }
 
 // Section holds the properties of a member cross-section.
 type Section struct {
@@ -77,17 +114,34 @@ type Section struct {
 	I      float64 // second moment of area about the bending axis, length⁴
 	Weight float64 // self weight, force/length; 0 when not given
 	// Depth is the overall depth of the section in the plane of the frame,
-	// length; 0 when not given. The solver does not use it: it places the
-	// faces of columns for design (see package envelope's Settings.Extra).
+	// length; 0 when not given. It places the faces of columns for design
+	// (see package envelope's Settings.Extra) and sets the rigid end zones
+	// of [Model.SetRigidZones]; the solver uses it only for the curvature
+	// of a temperature gradient ([MemberLoad] Thermal).
 	Depth float64
+	// Alpha is the coefficient of thermal expansion, 1/temperature; 0 when
+	// not given. Needed by temperature loads.
+	Alpha float64
 }
 
 // Member is a prismatic beam-column between two nodes.
+//
+// Its ends may be rigid (the default), released (a hinge: Release) or
+// semi-rigid: a rotational spring of stiffness SpringStart or SpringEnd
+// (moment/radian) between the member's end and the node, in series with
+// the member. OffsetStart and OffsetEnd are rigid end zones (length): the
+// member is rigid for that distance from its node, along its axis, and
+// flexible between; the releases and springs act at the ends of the
+// flexible part. Loads, stations and results are measured from the start
+// node along the whole length between the nodes.
 type Member struct {
 	Name       string
 	Start, End int // node indices
 	Section    int // section index
 	Release    Release
+
+	SpringStart, SpringEnd float64 // rotational stiffness of a semi-rigid end; 0: none
+	OffsetStart, OffsetEnd float64 // rigid end zones, length; 0: none
 }
 
 // Model is a plane frame with its load cases. The zero value is an empty
@@ -171,8 +225,16 @@ func (mo *Model) Validate() error {
 		if !finite(n.X) || !finite(n.Y) {
 			add("node %q: coordinates must be finite numbers", n.Name)
 		}
-		if n.Support > Roller {
+		if n.Support > Fixed {
 			add("node %q: unknown support %v", n.Name, n.Support)
+		}
+		for d, k := range n.Springs {
+			switch {
+			case !(k >= 0) || !finite(k):
+				add("node %q: spring %s must be a finite number >= 0, not %v", n.Name, springNames[d], k)
+			case k > 0 && n.Support.Restrained(d):
+				add("node %q: spring %s acts in a direction the support holds", n.Name, springNames[d])
+			}
 		}
 	}
 	clear(seen)
@@ -195,6 +257,9 @@ func (mo *Model) Validate() error {
 		if s.Depth < 0 || !finite(s.Depth) {
 			add("section %q: depth must be a finite number >= 0, not %v", s.Name, s.Depth)
 		}
+		if s.Alpha < 0 || !finite(s.Alpha) {
+			add("section %q: alpha must be a finite number >= 0, not %v", s.Name, s.Alpha)
+		}
 	}
 	clear(seen)
 	connected := make([]bool, len(mo.Nodes))
@@ -214,8 +279,26 @@ func (mo *Model) Validate() error {
 			add("member %q: unknown release %v", m.Name, m.Release)
 		}
 		connected[m.Start], connected[m.End] = true, true
-		if l := mo.Length(i); !(l > 0) {
+		l := mo.Length(i)
+		if !(l > 0) {
 			add("member %q: zero length (nodes %q and %q coincide)", m.Name, mo.Nodes[m.Start].Name, mo.Nodes[m.End].Name)
+		}
+		for _, p := range []struct {
+			key      string
+			v        float64
+			released bool
+		}{{"start", m.SpringStart, m.Release.AtStart()}, {"end", m.SpringEnd, m.Release.AtEnd()}} {
+			switch {
+			case !(p.v >= 0) || !finite(p.v):
+				add("member %q: the spring at its %s must be a finite number >= 0, not %v", m.Name, p.key, p.v)
+			case p.v > 0 && p.released:
+				add("member %q: a spring at its %s, which is released; give a release or a spring, not both", m.Name, p.key)
+			}
+		}
+		if !(m.OffsetStart >= 0) || !finite(m.OffsetStart) || !(m.OffsetEnd >= 0) || !finite(m.OffsetEnd) {
+			add("member %q: rigid end zones must be finite numbers >= 0, not %v and %v", m.Name, m.OffsetStart, m.OffsetEnd)
+		} else if l > 0 && !(l-m.OffsetStart-m.OffsetEnd > offsetTol*l) {
+			add("member %q: rigid end zones %g and %g leave no flexible length (length %g)", m.Name, m.OffsetStart, m.OffsetEnd, l)
 		}
 	}
 	for i, n := range mo.Nodes {
@@ -238,6 +321,13 @@ func (mo *Model) Validate() error {
 	}
 	return errs
 }
+
+// springNames names the springs of a node, by direction.
+var springNames = [3]string{"kx", "ky", "kr"}
+
+// offsetTol is the least flexible length, as a fraction of the member's,
+// that rigid end zones must leave.
+const offsetTol = 1e-6
 
 // ValidationErrors lists every problem [Model.Validate] found.
 type ValidationErrors []error

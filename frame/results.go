@@ -64,12 +64,15 @@ func (sol *Solution) endForcesTo(f *[6]float64, c, m int) {
 }
 
 // Reaction returns the global reaction (Fx, Fy, M) at node v in case c:
-// the sum of the end forces of the members meeting there, less the loads
-// applied at the node. Components the support does not restrain are zero.
+// where the support holds the node, the sum of the end forces of the
+// members meeting there, less the loads applied at the node; where a
+// spring holds it, −k times the node's displacement. Other components are
+// zero.
 func (sol *Solution) Reaction(c, v int) (fx, fy, m float64) {
 	mo := sol.model
-	s := mo.Nodes[v].Support
-	if s == Free {
+	nd := &mo.Nodes[v]
+	s := nd.Support
+	if !nd.Supported() {
 		return 0, 0, 0
 	}
 	r := sol.nodeSum(c, v)
@@ -81,7 +84,11 @@ func (sol *Solution) Reaction(c, v int) (fx, fy, m float64) {
 		}
 	}
 	for d := range 3 {
-		if !s.Restrained(d) {
+		switch {
+		case s.Restrained(d):
+		case nd.Springs[d] > 0:
+			r[d] = -nd.Springs[d] * sol.u(c, 3*v+d)
+		default:
 			r[d] = 0
 		}
 	}
@@ -168,10 +175,13 @@ func (sol *Solution) stationsTo(dst []Forces, defl []float64, m int, xs []float6
 	}
 }
 
-// u returns global displacement component i (3*node+d) in case c.
+// u returns global displacement component i (3*node+d) in case c: solved,
+// imposed, or zero where a support holds it.
 func (sol *Solution) u(c, i int) float64 {
 	if e := sol.dof[i]; e >= 0 {
 		return sol.x[e*len(sol.model.Cases)+c]
+	} else if e < -1 {
+		return sol.imposed[(-2-e)*len(sol.model.Cases)+c]
 	}
 	return 0
 }

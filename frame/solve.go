@@ -24,9 +24,12 @@ type Solution struct {
 
 	// x holds the free displacements, row-major: x[e*nc+c] is equation e
 	// in case c; dof[3*node+d] is the equation of direction d at a node, or
-	// -1 where the support holds it.
-	x   []float64
-	dof []int
+	// -1 where the support holds it, or -2-k where the support holds it
+	// and some case imposes a displacement there: imposed[k*nc+c] is the
+	// displacement in case c.
+	x       []float64
+	dof     []int
+	imposed []float64
 
 	// Loads by case and member: for case c, loaded[c] lists the members
 	// carrying loads (ascending), span[c][i] the range of byMember[c] holding
@@ -39,6 +42,9 @@ type Solution struct {
 
 	// Members meeting at each node, for reactions and residuals.
 	atNode [][]int32
+
+	// moments is set when some member carries a concentrated moment.
+	moments bool
 
 	// released[node] is true where every member end is released and no
 	// support holds the rotation: it carries nothing and is not solved for.
@@ -97,6 +103,7 @@ func SolveWith(mo *Model, opt Options) (*Solution, error) {
 		}
 	}
 	sol.indexLoads()
+	sol.indexImposed()
 
 	nc := len(mo.Cases)
 	if n == 0 {
@@ -325,6 +332,36 @@ func (sol *Solution) assembleTo(data []float64, kb int, elems []element) {
 			}
 		}
 	}
+	for v := range mo.Nodes {
+		for d, k := range mo.Nodes[v].Springs {
+			if e := dof[3*v+d]; e >= 0 && k > 0 {
+				data[e*w] += k
+			}
+		}
+	}
+}
+
+// indexImposed gives each held direction where some case imposes a
+// displacement a place in sol.imposed (dof -2-k), with the displacement
+// of every case there.
+func (sol *Solution) indexImposed() {
+	mo := sol.model
+	nc := len(mo.Cases)
+	for c := range mo.Cases {
+		for _, nd := range mo.Cases[c].Displacements {
+			for d, v := range [3]float64{nd.Ux, nd.Uy, nd.Rz} {
+				i := 3*nd.Node + d
+				if v == 0 || !mo.Nodes[nd.Node].Support.Restrained(d) {
+					continue // Validate refuses a displacement where nothing holds the node
+				}
+				if sol.dof[i] == -1 {
+					sol.dof[i] = -2 - len(sol.imposed)/nc
+					sol.imposed = append(sol.imposed, make([]float64, nc)...)
+				}
+				sol.imposed[(-2-sol.dof[i])*nc+c] += v
+			}
+		}
+	}
 }
 
 // rhs returns the right-hand sides, row-major n × cases: node loads less
@@ -353,7 +390,55 @@ func (sol *Solution) rhs(n int) []float64 {
 			}
 		}
 	}
+	if len(sol.imposed) > 0 {
+		sol.imposedRHS(x)
+	}
 	return x
+}
+
+// imposedRHS subtracts from the right-hand sides x the forces that the
+// imposed displacements of held directions cause at the free ones: the
+// columns of the stiffness matrix of those directions times the
+// displacements.
+func (sol *Solution) imposedRHS(x []float64) {
+	mo, dof := sol.model, sol.dof
+	nc := len(mo.Cases)
+	for m, mem := range mo.Members {
+		ends := [2]int{mem.Start, mem.End}
+		var codes [6]int
+		has := false
+		for k := range 6 {
+			codes[k] = dof[3*ends[k/3]+k%3]
+			has = has || codes[k] < -1
+		}
+		if !has {
+			continue
+		}
+		g := sol.elems[m].global()
+		for c := range nc {
+			var ug [6]float64
+			nonzero := false
+			for k, e := range codes {
+				if e < -1 {
+					ug[k] = sol.imposed[(-2-e)*nc+c]
+					nonzero = nonzero || ug[k] != 0
+				}
+			}
+			if !nonzero {
+				continue
+			}
+			for i, e := range codes {
+				if e < 0 {
+					continue
+				}
+				v := 0.0
+				for j := range 6 {
+					v += g[i][j] * ug[j]
+				}
+				x[e*nc+c] -= v
+			}
+		}
+	}
 }
 
 // indexLoads groups each case's member loads by member and computes their
@@ -382,14 +467,13 @@ func (sol *Solution) indexLoads() {
 			spans = append(spans, [2]int32{int32(i), int32(j)})
 			i = j
 		}
+		for i := range loads {
+			sol.moments = sol.moments || loads[i].Moment
+		}
 		fem := make([]float64, 6*len(members))
 		for i, m32 := range members {
 			e := &sol.elems[m32]
-			f := (*[6]float64)(fem[6*i:])
-			for _, li := range idx[spans[i][0]:spans[i][1]] {
-				addFixedEnd(f, &loads[li], e.c, e.s, e.l)
-			}
-			e.condenseLoads(f)
+			e.fixedEnd((*[6]float64)(fem[6*i:]), loads, idx[spans[i][0]:spans[i][1]])
 		}
 		sol.loaded[c], sol.span[c], sol.byMember[c], sol.fem[c] = members, spans, idx, fem
 	}

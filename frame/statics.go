@@ -44,9 +44,15 @@ func appliedAbout(mo *Model, c int, x0, y0 float64) Resultant {
 			}
 			add(ax+xi*c, ay+xi*s, gx, gy)
 		}
-		if ld.Point {
+		switch {
+		case ld.Point:
 			at(clampTo(ld.At, 0, l), ld.P)
 			continue
+		case ld.Moment:
+			r.M += ld.M
+			continue
+		case ld.Thermal:
+			continue // a strain: no resultant
 		}
 		lo, hi := clampTo(ld.From, 0, l), clampTo(ld.To, 0, l)
 		h, mid := (hi-lo)/2, (lo+hi)/2

@@ -23,18 +23,21 @@ type Piece struct {
 // pieces in member order, then segment order.
 //
 // A distributed load is cut at the segment boundaries, its intensity
-// interpolated there. A point load exactly on a boundary belongs to the
-// segment after it (the last one when it is at the member's end).
+// interpolated there. A point load or a concentrated moment exactly on a
+// boundary belongs to the segment after it (the last one when it is at the
+// member's end). Imposed deformations (temperature changes and
+// displacements of supports) are not loads on a span: they stay in the
+// rest.
 func Split(mo *frame.Model, c, segments int) (rest frame.Case, pieces []Piece) {
 	if segments < 1 {
 		panic("patterns: segments < 1")
 	}
 	cs := &mo.Cases[c]
-	rest = frame.Case{Name: cs.Name, NodeLoads: cs.NodeLoads}
+	rest = frame.Case{Name: cs.Name, NodeLoads: cs.NodeLoads, Displacements: cs.Displacements}
 	byMember := map[int][]frame.MemberLoad{}
 	var order []int
 	for _, ld := range cs.MemberLoads {
-		if !mo.IsBeam(ld.Member) {
+		if !mo.IsBeam(ld.Member) || ld.Thermal {
 			rest.MemberLoads = append(rest.MemberLoads, ld)
 			continue
 		}
@@ -48,7 +51,7 @@ func Split(mo *frame.Model, c, segments int) (rest frame.Case, pieces []Piece) {
 		l := mo.Length(m)
 		seg := make([][]frame.MemberLoad, segments)
 		for _, ld := range byMember[m] {
-			if ld.Point {
+			if ld.Point || ld.Moment {
 				j := int(math.Floor(ld.At / (l / float64(segments))))
 				j = max(0, min(segments-1, j))
 				seg[j] = append(seg[j], ld)

@@ -253,6 +253,19 @@ func (j *Job) check() error {
 		}
 		seen[c] = true
 	}
+	for _, c := range j.Patterned {
+		if !j.Cases[c].Kind.AlwaysActs() {
+			continue
+		}
+		for _, cb := range j.Combinations {
+			for _, t := range cb.Terms {
+				if t.Case == c && t.Factor != 0 && !t.HasFavourable {
+					return fmt.Errorf("analysis: patterned case %q is %s load, which combination %q takes with one factor: a permanent case is patterned only where each term that takes it gives a favourable factor (combos.Term.HasFavourable)",
+						j.Model.Cases[c].Name, j.Cases[c].Kind, cb.Name)
+				}
+			}
+		}
+	}
 	if len(j.Patterned) > 0 && j.Segments < 1 {
 		return fmt.Errorf("analysis: %d pattern pieces per beam; need at least 1", j.Segments)
 	}

@@ -119,12 +119,14 @@ func Run(ctx context.Context, job *Job, opt Options) (*Result, error) {
 	if opt.placement != nil {
 		mode = *opt.placement
 	}
-	lay, err := patterns.Expand(job.Model, job.Patterned, job.Segments, mode)
+	sv := favourableSplit(job)
+	lay, err := patterns.Expand(sv.model, sv.patterned, job.Segments, mode)
 	if err != nil {
 		return nil, err
 	}
+	sv.namePieces(job, lay)
 	report(opt, Progress{Phase: fmt.Sprintf("solving %d loads (%d load cases, %d pattern pieces or arrangements)",
-		len(lay.Model.Cases), len(job.Model.Cases), len(lay.Model.Cases)-len(job.Model.Cases))})
+		len(lay.Model.Cases), len(sv.model.Cases), len(lay.Model.Cases)-len(sv.model.Cases))})
 	sol, err := frame.SolveWith(lay.Model, opt.Solver)
 	if err != nil {
 		return nil, err
@@ -140,14 +142,17 @@ func Run(ctx context.Context, job *Job, opt Options) (*Result, error) {
 		AsWritten: job.Settings.AsWritten,
 		Extra:     faceStations(r.Faces),
 		Lines:     spanLines(job.Model, r.Spans),
-		Kinds:     make([]combos.Kind, len(job.Cases)),
+		Kinds:     sv.kinds,
 		AllSpans:  opt.allPieces,
 	}
-	for c, cc := range job.Cases {
-		set.Kinds[c] = cc.Kind
-	}
 	if job.Actions != nil {
-		set.Groups = job.Actions.Groups()
+		if g := job.Actions.Groups(); g != nil {
+			// The adverse parts of favourable permanent cases join no set.
+			for len(g) < len(sv.kinds) {
+				g = append(g, -1)
+			}
+			set.Groups = g
+		}
 	}
 	if opt.Progress != nil {
 		total := len(job.Model.Members) * set.Stations
@@ -157,10 +162,13 @@ func Run(ctx context.Context, job *Job, opt Options) (*Result, error) {
 		set.Progress = new(atomic.Int64)
 		report(opt, Progress{Phase: fmt.Sprintf("solved %d loads; enveloping stations", len(lay.Model.Cases)), Total: int64(total), Done: set.Progress})
 	}
-	env, err := envelope.Compute(sol, job.Combinations, set, lay)
+	env, err := envelope.Compute(sol, sv.combinations, set, lay)
 	if err != nil {
 		return nil, err
 	}
+	// The job's combinations, index for index: a favourable factor's split
+	// (favourableSplit) is how they were solved, not what they are.
+	env.Combinations = job.Combinations
 	r.Envelope = env
 	r.Combinations = make([]Combination, len(job.Combinations))
 	for k, cb := range job.Combinations {

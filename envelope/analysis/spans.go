@@ -140,7 +140,7 @@ func newRunGraph(mo *frame.Model) *runGraph {
 	return g
 }
 
-func (g *runGraph) supported(n int) bool { return g.mo.Nodes[n].Support != frame.Free }
+func (g *runGraph) supported(n int) bool { return g.mo.Nodes[n].Supported() }
 
 // far returns the node at the other end of member m from n.
 func (g *runGraph) far(m, n int) int {

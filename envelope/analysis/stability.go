@@ -14,12 +14,13 @@ type Stability struct {
 // solving any load case, to find a structure that cannot carry load (a
 // mechanism, returned as the error) and to estimate the matrix's
 // condition number. The node loads come along: a moment where every
-// member end is released is a mechanism for that case.
+// member end is released is a mechanism for that case; so do the imposed
+// displacements, which are checked against the supports.
 func CheckStability(job *Job, opt frame.Options) (*Stability, error) {
 	mo := job.Model
 	cases := make([]frame.Case, len(mo.Cases))
 	for i, c := range mo.Cases {
-		cases[i] = frame.Case{Name: c.Name, NodeLoads: c.NodeLoads}
+		cases[i] = frame.Case{Name: c.Name, NodeLoads: c.NodeLoads, Displacements: c.Displacements}
 	}
 	sol, err := frame.SolveWith(&frame.Model{Nodes: mo.Nodes, Sections: mo.Sections, Members: mo.Members, Cases: cases}, opt)
 	if err != nil {

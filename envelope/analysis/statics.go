@@ -10,7 +10,11 @@ import (
 
 // StaticsLimit is the largest out-of-balance force or moment, as a fraction
 // of a case's load (frame.Balance.Relative), that a run accepts. Above it
-// the solution is not trusted and Run fails.
+// the solution is not trusted and Run fails. For a case with imposed
+// deformations (settlements, temperature), whose reactions balance each
+// other, the fraction is of the largest of its load, its largest reaction
+// and the forces its deformations cause at held member ends
+// (frame.Balance.Scale).
 const StaticsLimit = 1e-6
 
 // Balance is the statics check of one load case: its loads against its
@@ -58,8 +62,13 @@ func (e *StaticsError) Error() string {
 			continue
 		}
 		o := b.Out()
-		bad = append(bad, fmt.Sprintf("case %q is out of balance by %.2g of its load (limit %.2g): reactions miss the loads by Fx %.3g, Fy %.3g, M %.3g; largest joint residual force %.3g, moment %.3g",
-			b.Case, b.Relative(), b.Limit(), o.Fx, o.Fy, o.M, b.JointForce, b.JointMoment))
+		of := "of its load"
+		if b.Imposed {
+			// Imposed deformations: the reactions balance each other.
+			of = "of the largest of its load, its reactions and the forces of its imposed deformations"
+		}
+		bad = append(bad, fmt.Sprintf("case %q is out of balance by %.2g %s (limit %.2g): reactions miss the loads by Fx %.3g, Fy %.3g, M %.3g; largest joint residual force %.3g, moment %.3g",
+			b.Case, b.Relative(), of, b.Limit(), o.Fx, o.Fy, o.M, b.JointForce, b.JointMoment))
 	}
 	return fmt.Sprintf("statics check failed; the results are not written:\n%s", strings.Join(bad, "\n"))
 }

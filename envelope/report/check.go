@@ -26,7 +26,11 @@ func WriteCheck(w io.Writer, job *analysis.Job, st *analysis.Stability) {
 	fmt.Fprintf(w, "stability:      no mechanism; estimated condition number %.2g\n", st.Condition)
 	fmt.Fprintf(w, "load cases:     %d\n", len(mo.Cases))
 	for i, c := range mo.Cases {
-		fmt.Fprintf(w, "  %-12s %-9s %d member loads, %d node loads\n", Escape(c.Name), job.Cases[i].Kind, len(c.MemberLoads), len(c.NodeLoads))
+		imposed := ""
+		if n := len(c.Displacements); n > 0 {
+			imposed = fmt.Sprintf(", %d imposed displacements", n)
+		}
+		fmt.Fprintf(w, "  %-12s %-9s %d member loads, %d node loads%s\n", Escape(c.Name), job.Cases[i].Kind, len(c.MemberLoads), len(c.NodeLoads), imposed)
 	}
 	if job.Actions != nil {
 		fmt.Fprintf(w, "actions:        %d (two alternatives of one action never act together)\n", len(job.Actions.List))

@@ -236,11 +236,7 @@ func psiCells(ci combos.CaseInfo, k combos.Kind) []string {
 		from = append(from, "the case")
 	}
 	if fromRow {
-		row := ci.Category
-		if row == "" {
-			row = "wind"
-		}
-		from = append(from, "Table A1.1 "+row)
+		from = append(from, "Table A1.1 "+ci.Row(k))
 	}
 	return append(out, strings.Join(from, ", "))
 }

@@ -274,7 +274,7 @@ func (p *Report) reactionTable() *Table {
 			label string
 			x     envelope.Extreme
 		}{{"Fx (" + u.Force + ")", r.Fx}, {"Fy (" + u.Force + ")", r.Fy}, {"M (" + u.Moment() + ")", r.M}} {
-			if !node.Support.Restrained(d) {
+			if !node.Reacts(d) {
 				continue
 			}
 			rows = append(rows, []string{name, e.label, fixed(e.x.Max), by(d, e.x.Max, e.x.MaxBy), fixed(e.x.Min), by(d, e.x.Min, e.x.MinBy)})

@@ -113,11 +113,11 @@ func (p *Report) WriteJSON(w io.Writer) error {
 	}
 	j.raw(",\n \"reactions\": [")
 	for i, r := range env.Reactions {
-		// Only the components the support restrains, in "with" too.
-		sup := mo.Nodes[r.Node].Support
+		// Only the components the support or a spring holds, in "with" too.
+		nd := &mo.Nodes[r.Node]
 		var keys [3]string
 		for d, k := range reactionForces {
-			if sup.Restrained(d) {
+			if nd.Reacts(d) {
 				keys[d] = k
 			}
 		}

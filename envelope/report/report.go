@@ -155,7 +155,7 @@ func (p *Report) shownFromLeft() string {
 // census counts the supported nodes, the beams and the columns of mo.
 func census(mo *frame.Model) (supported, beams, columns int) {
 	for _, n := range mo.Nodes {
-		if n.Support != frame.Free {
+		if n.Supported() {
 			supported++
 		}
 	}

@@ -105,6 +105,11 @@ func (d *drawing) elevation(h *htmlOut) {
 		case frame.Roller:
 			h.printf(`<path d="M%s %s L%s %s L%s %s Z"/>`, svgNum(x), svgNum(y), svgNum(x-b*0.8), svgNum(y+t), svgNum(x+b*0.8), svgNum(y+t))
 			h.printf(`<line x1="%s" y1="%s" x2="%s" y2="%s"/>`, svgNum(x-b), svgNum(y+t+0.04*u), svgNum(x+b), svgNum(y+t+0.04*u))
+		default:
+			if n.Supported() {
+				// Held by direction or on springs: an open square.
+				h.printf(`<rect x="%s" y="%s" width="%s" height="%s" fill="none"/>`, svgNum(x-b/2), svgNum(y), svgNum(b), svgNum(b))
+			}
 		}
 	}
 	h.raw("</g>\n")

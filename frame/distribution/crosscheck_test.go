@@ -131,6 +131,25 @@ func TestWhereItDoesNotApply(t *testing.T) {
 				mo.Members[m].Release = frame.ReleaseBoth
 			}
 		}},
+		{"a spring support", `node "A0" has a spring support`, func(mo *frame.Model) {
+			mo.Nodes[0].Support = frame.Pinned
+			mo.Nodes[0].Springs[2] = 1e4
+		}},
+		{"a support by direction", `node "A0" is held in the directions x+rotation`, func(mo *frame.Model) {
+			mo.Nodes[0].Support = frame.HoldX | frame.HoldRZ
+		}},
+		{"a semi-rigid end", `member "A1-B1" has a semi-rigid end`, func(mo *frame.Model) { mo.Members[3].SpringEnd = 1e4 }},
+		{"rigid end zones", `member "A1-B1" has rigid end zones`, func(mo *frame.Model) { mo.Members[3].OffsetStart = 0.2 }},
+		{"a settlement", `imposes displacements on supports`, func(mo *frame.Model) {
+			mo.Cases[0].Displacements = []frame.NodeDisplacement{{Node: 0, Uy: -0.01}}
+		}},
+		{"a moment on a member", `has a concentrated moment on member "A1-B1"`, func(mo *frame.Model) {
+			mo.Cases[0].MemberLoads = append(mo.Cases[0].MemberLoads, frame.MemberLoad{Member: 3, Moment: true, At: 1, M: 2})
+		}},
+		{"a change of temperature", `has a change of temperature of member "A1-B1"`, func(mo *frame.Model) {
+			mo.Sections[1].Alpha = 1e-5
+			mo.Cases[0].MemberLoads = append(mo.Cases[0].MemberLoads, frame.MemberLoad{Member: 3, Thermal: true, DT: 20})
+		}},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
 			mo := shed()

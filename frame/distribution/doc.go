@@ -29,8 +29,12 @@
 // frame with exactly one beam line free to move horizontally (a single
 // storey) gets the sway correction: the frame is first held against sway by a
 // prop and distributed, then given a unit sway and distributed again, and the
-// two are combined so that the prop force vanishes. Anything else is reported
-// by a [*NotApplicableError] that says why.
+// two are combined so that the prop force vanishes. Supports are free,
+// fixed, pinned or rollers, without springs; member ends rigid or released,
+// without rotational springs or rigid end zones; loads are distributed and
+// point loads on members and loads at nodes (no concentrated moments on
+// members, changes of temperature or imposed displacements). Anything else
+// is reported by a [*NotApplicableError] that says why.
 //
 // # Units and signs
 //

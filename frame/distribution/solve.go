@@ -72,6 +72,9 @@ func Solve(mo *frame.Model, opt *Options) (*Result, error) {
 			maxSweeps = opt.MaxSweeps
 		}
 	}
+	if err := applicable(mo); err != nil {
+		return nil, err
+	}
 	st, err := newStructure(mo)
 	if err != nil {
 		return nil, err

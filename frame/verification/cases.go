@@ -82,6 +82,19 @@ func reactionFx(v int) func(*Solved) float64 {
 	return func(s *Solved) float64 { fx, _, _ := s.Sol.Reaction(0, v); return fx }
 }
 
+func shearAt(m int, x float64) func(*Solved) float64 {
+	return func(s *Solved) float64 { return s.Sol.At(0, m, x).V }
+}
+
+func axialAt(m int, x float64) func(*Solved) float64 {
+	return func(s *Solved) float64 { return s.Sol.At(0, m, x).N }
+}
+
+// sway returns the displacement of node v along X.
+func sway(v int) func(*Solved) float64 {
+	return func(s *Solved) float64 { ux, _, _ := s.Sol.Displacement(0, v); return ux }
+}
+
 func deflection(v int) func(*Solved) float64 {
 	return func(s *Solved) float64 { _, uy, _ := s.Sol.Displacement(0, v); return -uy }
 }
@@ -129,6 +142,7 @@ func Cases() []Case {
 	cs = append(cs, rigidFrames()...)
 	cs = append(cs, fixedEndMoments()...)
 	cs = append(cs, closedForms()...)
+	cs = append(cs, deformations()...)
 	cs = append(cs, textbook()...)
 	return cs
 }
@@ -440,6 +454,116 @@ func fixedEndMoments() []Case {
 			Quantities: []Quantity{
 				q("M at A = -wL²/30", -w*l*l/30, Exact, momentAt(0, 0)),
 				q("M at B = -wL²/20", -w*l*l/20, Exact, momentAt(0, l)),
+			}},
+		{Name: "Fixed-end moments, couple M0 at midspan (M0 = 12, counter-clockwise)", Source: FEMTable,
+			Model: clamped(frame.MemberLoad{Moment: true, At: l / 2, M: 12}),
+			Quantities: []Quantity{
+				q("M at A = -M0/4 (hogging)", -12.0/4, Exact, momentAt(0, 0)),
+				q("M at B = M0/4 (sagging)", 12.0/4, Exact, momentAt(0, l)),
+				q("R at A = 3M0/2L", 1.5*12/l, Exact, reactionFy(0)),
+			}},
+		{Name: "Fixed-ended beam with rigid end zones of 0.3 (L = 6, w = 10)", Source: FEMTable,
+			Model: func() *frame.Model {
+				mo := line([]float64{0, l}, []frame.Support{frame.Fixed, frame.Fixed}, uniform(0, 0, l, w))
+				mo.Members[0].OffsetStart, mo.Members[0].OffsetEnd = 0.3, 0.3
+				return mo
+			},
+			Quantities: []Quantity{
+				q("M at the face = -wl²/12, l = 5.4", -w*5.4*5.4/12, Exact, momentAt(0, 0.3)),
+				q("V at the face = wl/2", w*5.4/2, Exact, shearAt(0, 0.3)),
+				q("M at the node = -(wl²/12 + (wl/2)(0.3) + w(0.3)²/2)", -32.85, Exact, momentAt(0, 0)),
+				q("M at midspan = wl²/24", w*5.4*5.4/24, Exact, momentAt(0, l/2)),
+			}},
+	}
+}
+
+// Properties of the cases of imposed deformations and elastic joints:
+// EI = 1e4, EA = 1e6, α = 1.2e-5 per degree, depth h = 0.5.
+const (
+	defE, defI, defA   = 1e7, 1e-3, 0.1
+	defAlpha, defDepth = 1.2e-5, 0.5
+)
+
+// deformations are the cases of settlements, temperature and elastic
+// joints: each a closed form of the slope-deflection method or of beam
+// theory.
+func deformations() []Case {
+	const l, w, dT, delta = 6.0, 10.0, 20.0, 0.01
+	const ei, ea = defE * defI, defE * defA
+	member := func(sup [2]frame.Support, loads ...frame.MemberLoad) *frame.Model {
+		mo := line([]float64{0, l}, sup[:], loads...)
+		mo.Sections[0] = frame.Section{Name: "EI = 1e4", E: defE, A: defA, I: defI, Alpha: defAlpha, Depth: defDepth}
+		return mo
+	}
+	fixed := [2]frame.Support{frame.Fixed, frame.Fixed}
+	return []Case{
+		{Name: "Fixed-ended beam, right end settles by 0.01 (L = 6, EI = 1e4)", Source: SlopeDeflection,
+			Model: func() *frame.Model {
+				mo := member(fixed)
+				mo.Cases[0].Displacements = []frame.NodeDisplacement{{Node: 1, Uy: -delta}}
+				return mo
+			},
+			Quantities: []Quantity{
+				q("M at A = -6EIΔ/L² (hogging)", -6*ei*delta/(l*l), Exact, momentAt(0, 0)),
+				q("M at B = 6EIΔ/L² (sagging)", 6*ei*delta/(l*l), Exact, momentAt(0, l)),
+				q("V = 12EIΔ/L³", 12*ei*delta/(l*l*l), Exact, shearAt(0, l/2)),
+			}},
+		{Name: "Fixed-ended beam, top 20 degrees hotter than the bottom (h = 0.5, α = 1.2e-5)", Source: ClosedForm,
+			Model: func() *frame.Model { return member(fixed, frame.MemberLoad{Thermal: true, DTGrad: dT}) },
+			Quantities: []Quantity{
+				q("M = EIαΔT/h, sagging, constant", ei*defAlpha*dT/defDepth, Exact, momentAt(0, l/3)),
+			}},
+		{Name: "Bar fixed at both ends, uniform rise of 20 degrees (EA = 1e6, α = 1.2e-5)", Source: ClosedForm,
+			Model: func() *frame.Model { return member(fixed, frame.MemberLoad{Thermal: true, DT: dT}) },
+			Quantities: []Quantity{
+				q("N = -EAαΔT (compression)", -ea*defAlpha*dT, Exact, axialAt(0, l/2)),
+			}},
+		{Name: "Fixed-ended beam joined to its nodes by rotational springs k = 2e4 (L = 6, EI = 4e4, w = 10)", Source: SlopeDeflection,
+			Model: func() *frame.Model {
+				mo := line([]float64{0, l}, fixed[:], uniform(0, 0, l, w))
+				mo.Sections[0].I = 4e4 / steelE
+				mo.Members[0].SpringStart, mo.Members[0].SpringEnd = 2e4, 2e4
+				return mo
+			},
+			Quantities: []Quantity{
+				q("M at the ends = -(wL²/12)/(1 + 2EI/kL)", -18, Exact, momentAt(0, 0)),
+				q("M at midspan = wL²/8 - 18", w*l*l/8-18, Exact, momentAt(0, l/2)),
+			}},
+		{Name: "Cantilever propped at its tip by a spring ky = 500 (L = 6, EI = 1e4, w = 10)", Source: ClosedForm,
+			Model: func() *frame.Model {
+				mo := member([2]frame.Support{frame.Fixed, frame.Free}, uniform(0, 0, l, w))
+				mo.Nodes[1].Springs[1] = 500
+				return mo
+			},
+			Quantities: []Quantity{
+				q("R = (3wL⁴/8)/(L³ + 3EI/ky)", (3*w*l*l*l*l/8)/(l*l*l+3*ei/500), Exact, reactionFy(1)),
+			}},
+		{Name: "Column on a rotational spring kr = 5e3, tip load H = 10 (L = 4, EI = 1e4)", Source: ClosedForm,
+			Model: func() *frame.Model {
+				mo := &frame.Model{
+					Sections: []frame.Section{{Name: "EI = 1e4", E: defE, A: defA, I: defI}},
+					Nodes:    []frame.Node{{Name: "base", Support: frame.Pinned, Springs: [3]float64{0, 0, 5e3}}, {Name: "top", Y: 4}},
+					Members:  []frame.Member{{Name: "base-top", Start: 0, End: 1}},
+					Cases:    []frame.Case{{Name: "H", NodeLoads: []frame.NodeLoad{{Node: 1, Fx: 10}}}},
+				}
+				return mo
+			},
+			Quantities: []Quantity{
+				q("δ = HL³/3EI + HL²/kr", 10*64/(3*ei)+10*16/5e3, Exact, sway(1)),
+			}},
+		{Name: "Column fixed at its base and held along X only at its top, uniform lateral load w = 5 (L = 4)", Source: AISC,
+			Model: func() *frame.Model {
+				return &frame.Model{
+					Sections: []frame.Section{{Name: "steel", E: steelE, A: steelA, I: steelI}},
+					Nodes:    []frame.Node{{Name: "base", Support: frame.Fixed}, {Name: "top", Y: 4, Support: frame.HoldX}},
+					Members:  []frame.Member{{Name: "base-top", Start: 0, End: 1}},
+					Cases: []frame.Case{{Name: "w", MemberLoads: []frame.MemberLoad{{Direction: frame.GlobalX, To: 4, W: 5, WEnd: 5}},
+						NodeLoads: []frame.NodeLoad{{Node: 1, Fy: -30}}}},
+				}
+			},
+			Quantities: []Quantity{
+				q("R at the top = -3wL/8 (propped cantilever)", -3*5*4.0/8, Exact, reactionFx(1)),
+				q("vertical load to the base, Fy = 30", 30, Exact, reactionFy(0)),
 			}},
 	}
 }

@@ -26,6 +26,12 @@ var (
 		Recalled: true,
 		Check:    "the table entries; each is the integral of the load against the influence function of a clamped beam",
 	}
+	SlopeDeflection = &Source{
+		Key:      "slope-deflection",
+		Citation: "Slope-deflection equations, M = 2EI/L (2θA + θB − 3ψ) + FEM, with a support settlement as the chord rotation ψ = Δ/L (Hibbeler, Structural Analysis, chapter on the slope-deflection method)",
+		Recalled: true,
+		Check:    "the equations and the chapter; each value is re-derived from them by hand",
+	}
 	ClosedForm = &Source{
 		Key:      "closed form",
 		Citation: "Closed form from Euler-Bernoulli beam theory (common practice; no single source)",
@@ -40,5 +46,5 @@ var (
 
 // Sources lists every source in the order of the catalogue.
 func Sources() []*Source {
-	return []*Source{AISC, Coefficients, RigidFrame, FEMTable, ClosedForm, Textbook}
+	return []*Source{AISC, Coefficients, RigidFrame, FEMTable, SlopeDeflection, ClosedForm, Textbook}
 }

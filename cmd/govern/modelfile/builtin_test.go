@@ -134,7 +134,8 @@ func builtinSetsGo(sets []*combos.Set) ([]byte, error) {
 // kindGo and psiGo are the names of combos' constants.
 var (
 	kindGo = map[combos.Kind]string{combos.Dead: "Dead", combos.Live: "Live", combos.RoofLive: "RoofLive", combos.Snow: "Snow",
-		combos.Rain: "Rain", combos.Wind: "Wind", combos.Seismic: "Seismic", combos.Other: "Other"}
+		combos.Rain: "Rain", combos.Wind: "Wind", combos.Seismic: "Seismic", combos.Other: "Other",
+		combos.Settlement: "Settlement", combos.Temperature: "Temperature"}
 	psiGo = map[combos.Psi]string{combos.Psi0: "Psi0", combos.Psi1: "Psi1", combos.Psi2: "Psi2"}
 )
 
@@ -143,6 +144,9 @@ func choiceGo(c combos.Choice) string {
 	s := fmt.Sprintf("{Kind: %s, Factor: %s", kindGo[c.Kind], num(c.Factor))
 	if c.SDSFactor != 0 {
 		s += ", SDSFactor: " + num(c.SDSFactor)
+	}
+	if c.HasFavourable {
+		s += ", Favourable: " + num(c.Favourable) + ", HasFavourable: true"
 	}
 	if c.HasReducedLive {
 		s += ", ReducedLive: " + num(c.ReducedLive) + ", HasReducedLive: true"

@@ -144,7 +144,7 @@ func TestReadRuleFile(t *testing.T) {
 	t.Run("a problem in the rule file names that file and line", func(t *testing.T) {
 		os.WriteFile(filepath.Join(dir, "codes", "office.toml"), []byte(strings.Replace(rules, `"live"`, `"lve"`, 1)), 0o644)
 		_, err := ReadAt(dir, "p.toml", []byte(src))
-		want := `codes/office.toml:6: rule "X1", term 2: kind = "lve": must be one of "dead", "live", "roof-live", "snow", "rain", "wind", "seismic", "other" (did you mean "live"?)`
+		want := `codes/office.toml:6: rule "X1", term 2: kind = "lve": must be one of "dead", "live", "roof-live", "snow", "rain", "wind", "seismic", "other", "settlement", "temperature" (did you mean "live"?)`
 		if err == nil || !strings.Contains(err.Error(), want) || !errors.Is(err, ErrValue) {
 			t.Errorf("error %v\nwant %s", err, want)
 		}

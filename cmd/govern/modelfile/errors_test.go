@@ -216,9 +216,9 @@ func TestReadBadInput(t *testing.T) {
 		// A misspelt kind gets a suggestion, and nothing that depends on the
 		// kind is checked.
 		{name: "kind in capitals, patterned", edit: []string{`kind = "dead"`, "kind = \"Live\"\npattern = true"},
-			want: `m.toml:22: case "G": kind = "Live": must be one of "dead", "live", "roof-live", "snow", "rain", "wind", "seismic", "other" (did you mean "live"?)`, sentinel: ErrValue},
+			want: `m.toml:22: case "G": kind = "Live": must be one of "dead", "live", "roof-live", "snow", "rain", "wind", "seismic", "other", "settlement", "temperature" (did you mean "live"?)`, sentinel: ErrValue},
 		{name: "kind misspelt, reversible", edit: []string{`kind = "dead"`, "kind = \"wnid\"\nreversible = true"},
-			want: `m.toml:22: case "G": kind = "wnid": must be one of "dead", "live", "roof-live", "snow", "rain", "wind", "seismic", "other" (did you mean "wind"?)`, sentinel: ErrValue},
+			want: `m.toml:22: case "G": kind = "wnid": must be one of "dead", "live", "roof-live", "snow", "rain", "wind", "seismic", "other", "settlement", "temperature" (did you mean "wind"?)`, sentinel: ErrValue},
 
 		// Positions come from the decoder's keys, not from lines that look
 		// like table headers: the title's lines shift the rest by 5.
@@ -313,7 +313,7 @@ func TestReadReportsProblemsInEverySectionAtOnce(t *testing.T) {
 		`m.toml:8: section "S": E = -1: must be greater than zero`,
 		`m.toml:20: node "b": unknown key "suport" (did you mean "support"?)`,
 		`m.toml:24: member 1: section = "T": no such section`,
-		`m.toml:27: case "G": kind = "permanent": must be one of "dead", "live", "roof-live", "snow", "rain", "wind", "seismic", "other"`,
+		`m.toml:27: case "G": kind = "permanent": must be one of "dead", "live", "roof-live", "snow", "rain", "wind", "seismic", "other", "settlement", "temperature"`,
 		`m.toml:35: combination "1.4G": factors: no case named "Q"`,
 	}
 	if got := strings.Split(err.Error(), "\n"); strings.Join(got, "\n") != strings.Join(want, "\n") {

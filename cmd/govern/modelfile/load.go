@@ -16,12 +16,13 @@ func (r *reader) readLoad(t *table, c *frame.Case) {
 		return
 	}
 	typ := t.str("type", "")
-	if !t.oneOf("type", typ, "udl", "point", "area", "node") {
+	if !t.oneOf("type", typ, loadTypes...) {
 		t.skipRest() // which keys belong cannot be told
 		return
 	}
 	mo := r.job.Model
-	if typ == "node" {
+	switch typ {
+	case "node":
 		n, ok := r.node(t, "node")
 		nl := frame.NodeLoad{Node: n, Fx: t.num("fx", 0), Fy: t.num("fy", 0), M: t.num("m", 0)}
 		if ok {
@@ -29,9 +30,12 @@ func (r *reader) readLoad(t *table, c *frame.Case) {
 			r.noteMoment(t, nl)
 		}
 		return
+	case "displacement":
+		r.readDisplacement(t, c)
+		return
 	}
 	dir := frame.Gravity
-	if typ != "area" {
+	if typ == "udl" || typ == "point" {
 		d := t.str("direction", "gravity")
 		if t.oneOf("direction", d, "gravity", "x") && d == "x" {
 			dir = frame.GlobalX
@@ -47,8 +51,9 @@ func (r *reader) readLoad(t *table, c *frame.Case) {
 	switch typ {
 	case "udl":
 		has := t.need("w")
-		w := t.num("w", 0)
-		from, to := t.num("from", 0), t.num("to", -1)
+		w := t.num("w", 0)                            // force/length
+		w2 := t.num("w2", w)                          // force/length, at to
+		from, to := t.num("from", 0), t.num("to", -1) // lengths
 		if !has {
 			return
 		}
@@ -62,7 +67,45 @@ func (r *reader) readLoad(t *table, c *frame.Case) {
 				t.fail("from", problem(ErrValue, "member %q: from = %g, to = %g is not a part of the member (length %g)", mo.Members[m].Name, a, b, l))
 				continue
 			}
-			c.MemberLoads = append(c.MemberLoads, frame.MemberLoad{Member: m, Direction: dir, From: a, To: b, W: w, WEnd: w})
+			c.MemberLoads = append(c.MemberLoads, frame.MemberLoad{Member: m, Direction: dir, From: a, To: b, W: w, WEnd: w2})
+		}
+	case "moment":
+		hasM := t.need("m")
+		hasAt := t.need("at")
+		mv := t.num("m", 0)  // moment, force·length, counter-clockwise
+		at := t.num("at", 0) // length
+		if !hasM || !hasAt {
+			return
+		}
+		for _, m := range members {
+			if l := mo.Length(m); at < -coordTol || at > l+coordTol {
+				t.fail("at", problem(ErrValue, "member %q: at = %g is outside the member (length %g)", mo.Members[m].Name, at, l))
+				continue
+			}
+			c.MemberLoads = append(c.MemberLoads, frame.MemberLoad{Member: m, Moment: true, At: at, M: mv})
+		}
+	case "temperature":
+		dT := t.num("dT", 0)         // temperature difference
+		g := t.num("dT_gradient", 0) // temperature difference, local +y face less local −y face
+		if !t.has("dT") && !t.has("dT_gradient") {
+			t.fail("", problem(ErrMissing, "a temperature load needs dT (a uniform change), dT_gradient (the local +y face less the local -y face) or both"))
+			return
+		}
+		for _, m := range members {
+			sec := &mo.Sections[mo.Members[m].Section]
+			switch {
+			case !(sec.Alpha > 0):
+				key := "dT"
+				if !t.has(key) {
+					key = "dT_gradient"
+				}
+				t.fail(key, problem(ErrMissing, "member %q: section %q gives no alpha, the coefficient of thermal expansion a temperature load needs", mo.Members[m].Name, sec.Name))
+				return // once: the other members likely share the section
+			case g != 0 && !(sec.Depth > 0):
+				t.fail("dT_gradient", problem(ErrMissing, "member %q: section %q gives no depth, which a temperature gradient needs (the curvature is alpha × dT_gradient / depth)", mo.Members[m].Name, sec.Name))
+				return
+			}
+			c.MemberLoads = append(c.MemberLoads, frame.MemberLoad{Member: m, Thermal: true, DT: dT, DTGrad: g})
 		}
 	case "point":
 		hasP := t.need("P")
@@ -123,6 +166,47 @@ func (r *reader) noteMoment(t *table, nl frame.NodeLoad) {
 	if _, seen := r.job.moments[key]; !seen {
 		r.job.moments[key] = loadLine{r.loc.at(&t.pos, "m"), t.where}
 	}
+}
+
+// loadTypes are the values of a load's type.
+var loadTypes = []string{"udl", "point", "moment", "area", "temperature", "node", "displacement"}
+
+// displacementKeys are the components of an imposed displacement, by
+// direction.
+var displacementKeys = [3]string{"dx", "dy", "rz"}
+
+// readDisplacement reads a displacement imposed on a supported node (a
+// settlement): dx and dy, lengths (dy positive up, so a settlement is
+// negative), and rz, a rotation in radians, counter-clockwise; each only
+// in a direction the node's support holds.
+func (r *reader) readDisplacement(t *table, c *frame.Case) {
+	n, ok := r.node(t, "node")
+	var v [3]float64
+	given := false
+	for d, key := range displacementKeys {
+		// dx, dy: length; rz: rotation, radians.
+		v[d] = t.num(key, 0)
+		given = given || t.has(key)
+	}
+	if !given {
+		t.fail("", problem(ErrMissing, "a displacement needs dx, dy or rz (in directions the node's support holds)"))
+		return
+	}
+	if !ok {
+		return
+	}
+	nd := &r.job.Model.Nodes[n]
+	for d, key := range displacementKeys {
+		if t.has(key) && !nd.Support.Restrained(d) {
+			what := fmt.Sprintf("its support (%v) does not hold it in %s", nd.Support, directionWords[d])
+			if nd.Support == frame.Free {
+				what = "it has no support"
+			}
+			t.fail(key, problem(ErrValue, "node %q: %s; a displacement is imposed only where a support holds the node (a spring's node moves with the frame: load it instead)", nd.Name, what))
+			return
+		}
+	}
+	c.Displacements = append(c.Displacements, frame.NodeDisplacement{Node: n, Ux: v[0], Uy: v[1], Rz: v[2]})
 }
 
 // selectAll returns the members that the selectors of on pick. A member

@@ -117,6 +117,11 @@ type reader struct {
 	caseTables []*table // per case, its table, for messages (combinations.go)
 	released   []bool   // nodes whose rotation carries nothing, once found (load.go)
 
+	zones      bool            // [analysis] rigid_zones
+	zoneFactor float64         // [analysis] rigid_zone_factor
+	ownZone    map[[2]int]bool // member and side (0 start, 1 end) that gives its own rigid zone
+	permPat    []int           // permanent cases with pattern = true, checked against the combinations
+
 	checks // model-wide checks and limits (checks.go)
 }
 
@@ -154,6 +159,18 @@ func (r *reader) read(raw map[string]any) *Job {
 		if a.oneOf("patterns", pm, "exact", "code", "full", "exhaustive") {
 			job.Patterns, _ = patterns.ParseMode(pm)
 		}
+		r.zones = a.boolean("rigid_zones", false)
+		r.zoneFactor = 1
+		if f, ok := a.numOK("rigid_zone_factor", 1); ok { // a factor, no unit
+			switch {
+			case !a.has("rigid_zones") || !r.zones:
+				a.fail("rigid_zone_factor", problem(ErrValue, "rigid_zone_factor = %g without rigid_zones = true: the factor scales the rigid end zones that rigid_zones gives", f))
+			case f < 0 || f > 1:
+				a.fail("rigid_zone_factor", problem(ErrValue, "rigid_zone_factor = %g: must be from 0 to 1", f))
+			default:
+				r.zoneFactor = f
+			}
+		}
 		a.done()
 	}
 	r.readSections(top.array("section", func(i int, m map[string]any) string { return named("section", i, m) }))
@@ -162,6 +179,9 @@ func (r *reader) read(raw map[string]any) *Job {
 	}
 	r.readNodes(top.array("node", func(i int, m map[string]any) string { return named("node", i, m) }))
 	r.readMembers(top.array("member", func(i int, m map[string]any) string { return named("member", i, m) }))
+	if r.zones {
+		r.rigidZones(r.zoneFactor)
+	}
 	r.readCases(top.array("case", func(i int, m map[string]any) string { return named("case", i, m) }))
 	r.readCombinations(top.array("combination", func(i int, m map[string]any) string { return named("combination", i, m) }))
 	r.readCombinationSet(top.sub("combinations", "[combinations]"))
@@ -171,6 +191,7 @@ func (r *reader) read(raw map[string]any) *Job {
 	if len(job.Combinations) == 0 {
 		job.Combinations = combos.EachCase(job.Cases)
 	}
+	r.checkPermanentPatterns()
 	for i, x := range r.lines() {
 		job.Lines = append(job.Lines, analysis.GridLine{Name: LineName(i), X: x})
 	}
@@ -225,11 +246,18 @@ func (r *reader) readSections(ts []*table) {
 		if s.Weight < 0 {
 			t.fail("weight", problem(ErrValue, "weight = %g: must not be negative", s.Weight))
 		}
-		if d, ok := t.numOK("depth", 0); ok {
+		if d, ok := t.numOK("depth", 0); ok { // length
 			if d <= 0 {
 				t.fail("depth", problem(ErrValue, "depth = %g: must be greater than zero", d))
 			} else {
 				s.Depth = d
+			}
+		}
+		if a, ok := t.numOK("alpha", 0); ok { // coefficient of thermal expansion, 1/temperature
+			if a <= 0 {
+				t.fail("alpha", problem(ErrValue, "alpha = %g: must be greater than zero", a))
+			} else {
+				s.Alpha = a
 			}
 		}
 		r.sections[name] = len(r.job.Model.Sections)
@@ -239,16 +267,7 @@ func (r *reader) readSections(ts []*table) {
 	}
 }
 
-var supports = map[string]frame.Support{"free": frame.Free, "fixed": frame.Fixed, "pinned": frame.Pinned, "roller": frame.Roller}
 var releases = map[string]frame.Release{"none": frame.ReleaseNone, "start": frame.ReleaseStart, "end": frame.ReleaseEnd, "both": frame.ReleaseBoth}
-
-func (r *reader) support(t *table, def frame.Support) frame.Support {
-	s := t.str("support", def.String())
-	if !t.oneOf("support", s, "fixed", "pinned", "roller", "free") {
-		return def
-	}
-	return supports[s]
-}
 
 func (r *reader) section(t *table, key string) (int, bool) {
 	name := t.str(key, "")
@@ -332,6 +351,7 @@ func (r *reader) readNode(t *table) {
 			t.fail("x", problem(ErrValue, "grid node %q is at (%g, %g), not (%g, %g); a [[node]] may only change a grid node's support", name, nd.X, nd.Y, x, y))
 		}
 		nd.Support = r.support(t, nd.Support)
+		nd.Springs = r.springs(t, nd.Support, nd.Springs)
 		r.nodeAt.set(i, t)
 		t.done()
 		return
@@ -342,6 +362,7 @@ func (r *reader) readNode(t *table) {
 	has = t.need("y") && has
 	// An invalid coordinate is NaN, so that no check compares with it.
 	nd := frame.Node{Name: name, X: t.num("x", math.NaN()), Y: t.num("y", math.NaN()), Support: r.support(t, frame.Free)}
+	nd.Springs = r.springs(t, nd.Support, [3]float64{})
 	if has {
 		r.nodes[name] = len(mo.Nodes)
 		r.nodeAt.set(len(mo.Nodes), t)
@@ -414,6 +435,8 @@ func (r *reader) readMember(t *table) {
 			}
 		}
 		m.Release = r.release(t, m.Release)
+		own := r.memberEnds(t, m, mo.Length(i))
+		r.ownZones(i, own)
 		r.readPasses(t, i)
 		r.memberAt.set(i, t)
 		t.done()
@@ -435,10 +458,19 @@ func (r *reader) readMember(t *table) {
 	rel := r.release(t, frame.ReleaseNone)
 	i := len(mo.Members)
 	passes := r.readPasses(t, i)
-	t.done()
 	start, okStart := t.m["start"].(string) // already read and checked
 	end, okEnd := t.m["end"].(string)
 	def := start + "-" + end
+	ends := frame.Member{Name: name, Release: rel}
+	if ends.Name == "" {
+		ends.Name = def
+	}
+	l := 0.0
+	if okA && okB {
+		l = math.Hypot(mo.Nodes[b].X-mo.Nodes[a].X, mo.Nodes[b].Y-mo.Nodes[a].Y)
+	}
+	own := r.memberEnds(t, &ends, l)
+	t.done()
 	if okStart && okEnd {
 		r.nonEmptyName(t, name, def)
 	} else {
@@ -468,7 +500,9 @@ func (r *reader) readMember(t *table) {
 	}
 	r.members[name] = i
 	r.memberAt.set(i, t)
-	mo.Members = append(mo.Members, frame.Member{Name: name, Start: a, End: b, Section: s, Release: rel})
+	r.ownZones(i, own)
+	mo.Members = append(mo.Members, frame.Member{Name: name, Start: a, End: b, Section: s, Release: rel,
+		SpringStart: ends.SpringStart, SpringEnd: ends.SpringEnd, OffsetStart: ends.OffsetStart, OffsetEnd: ends.OffsetEnd})
 }
 
 // nodeIndex returns the node named v, or -1.
@@ -522,7 +556,7 @@ func (r *reader) release(t *table, def frame.Release) frame.Release {
 	return releases[s]
 }
 
-var kindWords = []string{"dead", "live", "roof-live", "snow", "rain", "wind", "seismic", "other"}
+var kindWords = []string{"dead", "live", "roof-live", "snow", "rain", "wind", "seismic", "other", "settlement", "temperature"}
 
 func (r *reader) readCases(ts []*table) {
 	mo := r.job.Model
@@ -560,19 +594,13 @@ func (r *reader) readCases(ts []*table) {
 				}
 			}
 		}
-		if t.boolean("pattern", false) && kindOK {
-			if cc.Kind.Permanent() {
-				t.fail("pattern", problem(ErrValue, "pattern = true: a %s case is permanent and always acts in full; only variable cases are patterned", cc.Kind))
-			} else {
-				r.job.Patterned = append(r.job.Patterned, len(mo.Cases))
-			}
-		}
+		pattern := t.boolean("pattern", false) && kindOK
 		loads := t.array("load", func(i int, _ map[string]any) string { return fmt.Sprintf("case %q, load %d", name, i+1) })
 		read := len(r.errs)+r.more == problems // every load read, with no problem reported
 		for _, lt := range loads {
-			n, e := len(c.MemberLoads)+len(c.NodeLoads), len(r.errs)+r.more
+			n, e := len(c.MemberLoads)+len(c.NodeLoads)+len(c.Displacements), len(r.errs)+r.more
 			r.readLoad(lt, &c)
-			if len(c.MemberLoads)+len(c.NodeLoads) == n || len(r.errs)+r.more != e {
+			if len(c.MemberLoads)+len(c.NodeLoads)+len(c.Displacements) == n || len(r.errs)+r.more != e {
 				read = false
 			}
 		}
@@ -584,6 +612,20 @@ func (r *reader) readCases(ts []*table) {
 				what = "every load of it is zero"
 			}
 			t.fail("", problem(ErrMissing, "%s: give it a [[case.load]] (or self_weight = true), or remove the case", what))
+		}
+		switch {
+		case !pattern:
+		case c.Imposed():
+			t.fail("pattern", problem(ErrValue, "pattern = true: the case imposes deformations (a displacement of a support or a change of temperature), which are not placed span by span"))
+		case cc.Kind == combos.Settlement:
+			t.fail("pattern", problem(ErrValue, "pattern = true: a settlement case imposes displacements, which are not placed span by span"))
+		case cc.Kind.Permanent():
+			// Patterned where a rule gives a favourable factor
+			// (checkPermanentPatterns, once the combinations are known).
+			r.permPat = append(r.permPat, len(mo.Cases))
+			r.job.Patterned = append(r.job.Patterned, len(mo.Cases))
+		default:
+			r.job.Patterned = append(r.job.Patterned, len(mo.Cases))
 		}
 		info := r.readCaseInfo(t)
 		t.done()
@@ -597,12 +639,17 @@ func (r *reader) readCases(ts []*table) {
 // zero.
 func carriesNothing(c frame.Case) bool {
 	for _, l := range c.MemberLoads {
-		if l.W != 0 || l.WEnd != 0 || l.P != 0 {
+		if l.W != 0 || l.WEnd != 0 || l.P != 0 || l.M != 0 || l.DT != 0 || l.DTGrad != 0 {
 			return false
 		}
 	}
 	for _, l := range c.NodeLoads {
 		if l.Fx != 0 || l.Fy != 0 || l.M != 0 {
+			return false
+		}
+	}
+	for _, d := range c.Displacements {
+		if d.Ux != 0 || d.Uy != 0 || d.Rz != 0 {
 			return false
 		}
 	}

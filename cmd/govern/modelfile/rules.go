@@ -16,8 +16,8 @@ const MaxRuleFileSize = 1 << 20
 var (
 	setKeys    = []string{"name", "title", "service", "rule"}
 	ruleKeys   = []string{"id", "text", "terms"}
-	termKeys   = []string{"kind", "factor", "lead", "together", "each_action", "psi", "sds_factor", "reduced_live_factor", "or"}
-	choiceKeys = []string{"kind", "factor", "psi", "sds_factor", "reduced_live_factor"}
+	termKeys   = []string{"kind", "factor", "lead", "together", "each_action", "psi", "sds_factor", "reduced_live_factor", "favourable_factor", "or"}
+	choiceKeys = []string{"kind", "factor", "psi", "sds_factor", "reduced_live_factor", "favourable_factor"}
 )
 
 // ReadSet reads a combination rule file, in the format of
@@ -200,6 +200,7 @@ func (sr *setReader) choice(t *table) combos.Choice {
 	}
 	c.SDSFactor = t.num("sds_factor", 0)
 	c.ReducedLive, c.HasReducedLive = t.numOK("reduced_live_factor", 0)
+	c.Favourable, c.HasFavourable = t.numOK("favourable_factor", 0) // a factor, no unit
 	if t.has("psi") {
 		s := t.str("psi", "")
 		if _, isStr := t.m["psi"].(string); isStr && t.oneOf("psi", s, "psi0", "psi1", "psi2") {

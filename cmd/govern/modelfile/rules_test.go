@@ -74,7 +74,7 @@ func TestReadSet(t *testing.T) {
 // 15 and 19 its [[rule.terms]], 16 kind, 17 factor, 18 sds_factor, 20 or,
 // 21 lead.
 func TestReadSetErrors(t *testing.T) {
-	const kinds = `"dead", "live", "roof-live", "snow", "rain", "wind", "seismic", "other"`
+	const kinds = `"dead", "live", "roof-live", "snow", "rain", "wind", "seismic", "other", "settlement", "temperature"`
 	for _, tc := range []struct {
 		name     string
 		edit     []string // old, new, … replaced in officeCode
@@ -136,6 +136,10 @@ func TestReadSetErrors(t *testing.T) {
 		// The checks of the set (combos.Set.Validate), at their keys.
 		{name: "psi on dead load", edit: []string{`factor = 1.3 }`, `factor = 1.3, psi = "psi0" }`},
 			want: `office.toml:9: rule "R1", term 1: psi applies to variable loads; dead load has no ψ factors`, sentinel: ErrValue},
+		{name: "favourable_factor on live load", edit: []string{`factor = 1.5, lead = true }`, `factor = 1.5, lead = true, favourable_factor = 0 }`},
+			want: `office.toml:10: rule "R1", term 2: favourable_factor applies to permanent loads only, not to live: a variable load is left out where favourable`, sentinel: ErrValue},
+		{name: "favourable_factor above the factor", edit: []string{`factor = 1.3 }`, `factor = 1.3, favourable_factor = 1.4 }`},
+			want: `office.toml:9: rule "R1", term 1: favourable_factor = 1.4 must be from 0 to the factor, 1.3`, sentinel: ErrValue},
 		{name: "sds_factor on live load", edit: []string{`factor = 1.5, lead = true }`, `factor = 1.5, lead = true, sds_factor = 0.2 }`},
 			want: `office.toml:10: rule "R1", term 2: sds_factor applies to dead load only (Ev = 0.2 S_DS D), not to live`, sentinel: ErrValue},
 		{name: "reduced_live_factor on wind load, in an alternative", edit: []string{`factor = 0.5, psi = "psi0" }`, `factor = 0.5, psi = "psi0", reduced_live_factor = 0.3 }`},
