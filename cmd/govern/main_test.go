@@ -324,7 +324,7 @@ func TestRunFilesAndCSV(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	if got := strings.Join(rows[0], ","); got != "member,x (m),effect,max,max_by,min,min_by,unit,max_spans,min_spans,max_loaded,min_loaded,max_with_N,max_with_V,max_with_M,min_with_N,min_with_V,min_with_M,face" {
+	if got := strings.Join(rows[0], ","); got != "member,x (m),effect,max,max_by,min,min_by,unit,max_spans,min_spans,max_loaded,min_loaded,max_with_N (kN),max_with_V (kN),max_with_M (kN·m),min_with_N (kN),min_with_V (kN),min_with_M (kN·m),face" {
 		t.Errorf("CSV header %q", got)
 	}
 	if len(rows) != 1+35*11*3 {

@@ -50,18 +50,18 @@ func MustParse(s string) Unit {
 func Parse(s string) (Unit, error) {
 	s = strings.TrimSpace(s)
 	if s == "" {
-		return Unit{}, fmt.Errorf("%w: the unit is empty", ErrSyntax)
+		return Unit{}, fail(ErrSyntax, "the unit is empty")
 	}
 	num, den, two := strings.Cut(s, "/")
 	if two && strings.Contains(den, "/") {
-		return Unit{}, fmt.Errorf("%w: %q has more than one \"/\"; write the denominator as one product, such as kN/m2 or kip·in/rad", ErrSyntax, s)
+		return Unit{}, fail(ErrSyntax, "%q has more than one \"/\"; write the denominator as one product, such as kN/m2 or kip·in/rad", s)
 	}
 	u := Unit{SI: 1}
 	var numSym, denSym []string
 	num = strings.TrimSpace(num)
 	if num == "1" || (num == "" && two) {
 		if !two {
-			return Unit{}, fmt.Errorf("%w: %q is a number, not a unit", ErrSyntax, s)
+			return Unit{}, fail(ErrSyntax, "%q is a number, not a unit", s)
 		}
 	} else if err := u.product(num, 1, &numSym); err != nil {
 		return Unit{}, err
@@ -85,7 +85,7 @@ func Parse(s string) (Unit, error) {
 // times sign, and appends each as written to sym.
 func (u *Unit) product(s string, sign int8, sym *[]string) error {
 	if s == "" {
-		return fmt.Errorf("%w: a \"/\" with nothing after it", ErrSyntax)
+		return fail(ErrSyntax, "a \"/\" with nothing after it")
 	}
 	for i := 0; i < len(s); {
 		if len(*sym) > 0 {
@@ -95,7 +95,7 @@ func (u *Unit) product(s string, sign int8, sym *[]string) error {
 			case '*', '·', '⋅', '.', '-':
 				i += n
 			default:
-				return fmt.Errorf("%w: in %q, %q cannot follow %s; join symbols with * or · (such as kN*m)", ErrSyntax, s, string(r), (*sym)[len(*sym)-1])
+				return fail(ErrSyntax, "in %q, %q cannot follow %s; join symbols with * or · (such as kN*m)", s, string(r), (*sym)[len(*sym)-1])
 			}
 		}
 		j := i
@@ -110,9 +110,9 @@ func (u *Unit) product(s string, sign int8, sym *[]string) error {
 		if name == "" {
 			r, _ := utf8.DecodeRuneInString(s[i:])
 			if i >= len(s) {
-				return fmt.Errorf("%w: %q ends with a separator", ErrSyntax, s)
+				return fail(ErrSyntax, "%q ends with a separator", s)
 			}
-			return fmt.Errorf("%w: in %q, %q is not a unit symbol", ErrSyntax, s, string(r))
+			return fail(ErrSyntax, "in %q, %q is not a unit symbol", s, string(r))
 		}
 		e, ok := bySymbol(name)
 		if !ok {
@@ -120,7 +120,7 @@ func (u *Unit) product(s string, sign int8, sym *[]string) error {
 		}
 		p, k, err := power(s[j:])
 		if err != nil {
-			return fmt.Errorf("%w: in %q: %v", ErrSyntax, s, err)
+			return fail(ErrSyntax, "in %q: %v", s, err)
 		}
 		i = j + k
 		u.Dim = u.Dim.mul(e.dim, sign*p)
@@ -222,7 +222,7 @@ func unknown(name string) error {
 	if c := closest(name, Symbols()); c != "" {
 		msg += fmt.Sprintf(" (did you mean %q?)", c)
 	}
-	return fmt.Errorf("%w: %s", ErrUnknown, msg)
+	return fail(ErrUnknown, "%s", msg)
 }
 
 // closest returns the symbol name most likely meant: one differing only in
@@ -285,19 +285,19 @@ func ParseValue(s string) (float64, Unit, error) {
 	t := strings.TrimSpace(s)
 	n := numberPrefix(t)
 	if n == 0 {
-		return 0, Unit{}, fmt.Errorf("%w: %q is not a number followed by a unit, such as \"29000 ksi\" or \"2.4 kip/ft\"", ErrSyntax, s)
+		return 0, Unit{}, fail(ErrSyntax, "%q is not a number followed by a unit, such as \"29000 ksi\" or \"2.4 kip/ft\"", s)
 	}
 	v, err := strconv.ParseFloat(t[:n], 64)
 	if err != nil || math.IsInf(v, 0) {
-		return 0, Unit{}, fmt.Errorf("%w: %q: %s is not a finite number", ErrSyntax, s, t[:n])
+		return 0, Unit{}, fail(ErrSyntax, "%q: %s is not a finite number", s, t[:n])
 	}
 	rest := t[n:]
 	if strings.HasPrefix(rest, ",") || strings.HasPrefix(rest, "_") {
-		return 0, Unit{}, fmt.Errorf("%w: %q: write the number without a decimal comma or digit separators, such as \"1830 in4\" or \"2.5 m\"", ErrSyntax, s)
+		return 0, Unit{}, fail(ErrSyntax, "%q: write the number without a decimal comma or digit separators, such as \"1830 in4\" or \"2.5 m\"", s)
 	}
 	rest = strings.TrimSpace(rest)
 	if rest == "" {
-		return 0, Unit{}, fmt.Errorf("%w: %q has no unit; give one, such as \"%s kN\", or write the number without quotes for the model's own units", ErrSyntax, s, t[:n])
+		return 0, Unit{}, fail(ErrSyntax, "%q has no unit: write the number without quotes for the model's own units, or give a unit, such as \"%s kN\"", s, t[:n])
 	}
 	if strings.HasPrefix(rest, "/") {
 		rest = "1" + rest
@@ -346,4 +346,18 @@ func numberPrefix(s string) int {
 		}
 	}
 	return i
+}
+
+// Error is a problem with a unit or a value: its message, and the kind
+// (ErrSyntax, ErrUnknown, ErrDimension) it wraps for errors.Is.
+type Error struct {
+	Kind error
+	Msg  string
+}
+
+func (e *Error) Error() string { return e.Msg }
+func (e *Error) Unwrap() error { return e.Kind }
+
+func fail(kind error, format string, args ...any) error {
+	return &Error{Kind: kind, Msg: fmt.Sprintf(format, args...)}
 }

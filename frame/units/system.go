@@ -2,8 +2,8 @@ package units
 
 import (
 	"errors"
-	"fmt"
 	"math"
+	"strings"
 )
 
 // System is the units of a model: every value of it is in its force,
@@ -31,7 +31,7 @@ func NewSystem(force, length, temperature string) (System, error) {
 			return System{}, err
 		}
 		if u.Dim != p.q.Dim {
-			return System{}, fmt.Errorf("%s is %s, not %s", u.Symbol, Describe(u.Dim), p.q.Name)
+			return System{}, fail(ErrDimension, "%s is %s, not %s", u.Symbol, Describe(u.Dim), p.q.Name)
 		}
 		*p.dst = u
 	}
@@ -96,7 +96,7 @@ func (s System) From(v float64, u Unit) float64 { return v * s.Factor(u) }
 // to; both must be of one dimension.
 func Factor(from, to Unit) (float64, error) {
 	if from.Dim != to.Dim {
-		return 0, fmt.Errorf("%s is %s and %s is %s: one cannot be converted to the other", from.Symbol, Describe(from.Dim), to.Symbol, Describe(to.Dim))
+		return 0, fail(ErrDimension, "%s is %s and %s is %s: one cannot be converted to the other", from.Symbol, Describe(from.Dim), to.Symbol, Describe(to.Dim))
 	}
 	return from.SI / to.SI, nil
 }
@@ -115,12 +115,23 @@ func pow(x float64, n int8) float64 {
 // (ErrSyntax), a symbol not in the table (ErrUnknown), or a unit of
 // another dimension (ErrDimension), naming what is due.
 func (s System) Value(str string, q Quantity) (float64, Unit, error) {
+	t := strings.TrimSpace(str)
+	ex := q.Examples
+	if i := strings.IndexAny(ex, " ,"); i > 0 {
+		ex = ex[:i]
+	}
+	switch n := numberPrefix(t); {
+	case n == 0 && q != Number:
+		return 0, Unit{}, fail(ErrSyntax, "%q is not a number followed by a unit, such as \"12 %s\"", str, ex)
+	case n > 0 && n == len(t) && q != Number:
+		return 0, Unit{}, fail(ErrSyntax, "%q has no unit: write the number without quotes for the model's own units, or give a unit, such as \"%s %s\"", str, t, ex)
+	}
 	v, u, err := ParseValue(str)
 	if err != nil {
 		return 0, Unit{}, err
 	}
 	if u.Dim != q.Dim {
-		return 0, u, fmt.Errorf("%w: %s is %s, where %s is due (such as %s)", ErrDimension, u.Symbol, Describe(u.Dim), q.Name, q.Examples)
+		return 0, u, fail(ErrDimension, "%s is %s, where %s is due (such as %s)", u.Symbol, Describe(u.Dim), q.Name, q.Examples)
 	}
 	return s.From(v, u), u, nil
 }

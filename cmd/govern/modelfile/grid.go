@@ -9,6 +9,7 @@ import (
 	"strings"
 
 	"govern/frame"
+	"govern/frame/units"
 )
 
 // Grid records the regular frame a [grid] table generated: column lines
@@ -60,7 +61,7 @@ func (r *reader) readGrid(t *table) {
 			t.fail("", problem(ErrValue, "no frame is generated until the problems in [grid] are corrected; until then, what refers to its nodes, members, levels and lines is not checked"))
 		}
 	}()
-	bays, storeys := t.nums("bays"), t.nums("storeys")
+	bays, storeys := t.qtys("bays", units.Length), t.qtys("storeys", units.Length)
 	ok := t.has("bays") && t.has("storeys") && bays != nil && storeys != nil
 	if t.need("bays") && emptyArray(t.m["bays"]) {
 		t.fail("bays", problem(ErrValue, "bays is empty: give at least one bay width"))
@@ -94,7 +95,7 @@ func (r *reader) readGrid(t *table) {
 	if t.need("beam") {
 		beam, okB = r.section(t, "beam")
 	}
-	spacing, okSp := t.numOK("spacing", 0)
+	spacing, okSp := t.qtyOK("spacing", units.Length, 0)
 	if okSp && !(spacing > 0) {
 		t.fail("spacing", problem(ErrValue, "spacing = %g: must be greater than zero", spacing))
 		spacing = 0

@@ -6,6 +6,7 @@ import (
 	"slices"
 
 	"govern/frame"
+	"govern/frame/units"
 )
 
 // readLoad reads one [[case.load]] table into c.
@@ -23,7 +24,7 @@ func (r *reader) readLoad(t *table, c *frame.Case) {
 	mo := r.job.Model
 	if typ == "node" {
 		n, ok := r.node(t, "node")
-		nl := frame.NodeLoad{Node: n, Fx: t.num("fx", 0), Fy: t.num("fy", 0), M: t.num("m", 0)}
+		nl := frame.NodeLoad{Node: n, Fx: t.qty("fx", units.Force, 0), Fy: t.qty("fy", units.Force, 0), M: t.qty("m", units.Moment, 0)}
 		if ok {
 			c.NodeLoads = append(c.NodeLoads, nl)
 		}
@@ -46,8 +47,8 @@ func (r *reader) readLoad(t *table, c *frame.Case) {
 	switch typ {
 	case "udl":
 		has := t.need("w")
-		w := t.num("w", 0)
-		from, to := t.num("from", 0), t.num("to", -1)
+		w := t.qty("w", units.LineLoad, 0)
+		from, to := t.qty("from", units.Length, 0), t.qty("to", units.Length, -1)
 		if !has {
 			return
 		}
@@ -66,7 +67,7 @@ func (r *reader) readLoad(t *table, c *frame.Case) {
 	case "point":
 		hasP := t.need("P")
 		hasAt := t.need("at")
-		p, at := t.num("P", 0), t.num("at", 0)
+		p, at := t.qty("P", units.Force, 0), t.qty("at", units.Length, 0)
 		if !hasP || !hasAt {
 			return
 		}
@@ -79,7 +80,7 @@ func (r *reader) readLoad(t *table, c *frame.Case) {
 		}
 	case "area":
 		has := t.need("q")
-		q := t.num("q", 0)
+		q := t.qty("q", units.Pressure, 0)
 		if !has {
 			return
 		}

@@ -10,6 +10,7 @@ import (
 	"govern/combos"
 	"govern/envelope/analysis"
 	"govern/frame"
+	"govern/frame/units"
 	"govern/patterns"
 )
 
@@ -21,6 +22,9 @@ type Units = analysis.Units
 type Job struct {
 	analysis.Job
 	Grid *Grid // nil when the file has no [grid]
+	// System is the model's units: its force, length and temperature
+	// units, to which every value given with a unit was converted.
+	System units.System
 
 	file      string      // the model's name, for messages
 	caseLines map[int]int // the line of each case no combination uses
@@ -92,12 +96,7 @@ func (r *reader) read(raw map[string]any) *Job {
 	r.job = &Job{Job: analysis.Job{Model: &frame.Model{}}}
 	job := r.job
 	job.Title = top.str("title", "")
-	job.Units = Units{Force: "kN", Length: "m"}
-	if u := top.sub("units", "[units]"); u != nil {
-		job.Units.Force = u.str("force", "kN")
-		job.Units.Length = u.str("length", "m")
-		u.done()
-	}
+	r.readUnits(top)
 	job.Settings = analysis.Settings{Stations: 11}
 	job.Segments, job.Patterns = 1, patterns.Exact
 	if a := top.sub("analysis", "[analysis]"); a != nil {
@@ -178,21 +177,22 @@ func (r *reader) readSections(ts []*table) {
 		s := frame.Section{Name: name}
 		for _, p := range []struct {
 			key string
+			q   units.Quantity
 			dst *float64
-		}{{"E", &s.E}, {"A", &s.A}, {"I", &s.I}} {
+		}{{"E", units.Stress, &s.E}, {"A", units.Area, &s.A}, {"I", units.Inertia, &s.I}} {
 			if t.need(p.key) {
 				var ok bool
-				*p.dst, ok = t.numOK(p.key, 0)
+				*p.dst, ok = t.qtyOK(p.key, p.q, 0)
 				if ok && *p.dst <= 0 {
 					t.fail(p.key, problem(ErrValue, "%s = %g: must be greater than zero", p.key, *p.dst))
 				}
 			}
 		}
-		s.Weight = t.num("weight", 0)
+		s.Weight = t.qty("weight", units.LineLoad, 0)
 		if s.Weight < 0 {
 			t.fail("weight", problem(ErrValue, "weight = %g: must not be negative", s.Weight))
 		}
-		if d, ok := t.numOK("depth", 0); ok {
+		if d, ok := t.qtyOK("depth", units.Length, 0); ok {
 			if d <= 0 {
 				t.fail("depth", problem(ErrValue, "depth = %g: must be greater than zero", d))
 			} else {
@@ -294,7 +294,7 @@ func (r *reader) readNode(t *table) {
 			t.fail("name", problem(ErrDuplicate, "grid node %q is already changed at line %d; give each grid node one [[node]] table", name, prev.line("name")))
 		}
 		nd := &mo.Nodes[i]
-		x, y := t.num("x", nd.X), t.num("y", nd.Y)
+		x, y := t.qty("x", units.Length, nd.X), t.qty("y", units.Length, nd.Y)
 		if math.Abs(x-nd.X) > coordTol || math.Abs(y-nd.Y) > coordTol {
 			t.fail("x", problem(ErrValue, "grid node %q is at (%g, %g), not (%g, %g); a [[node]] may only change a grid node's support", name, nd.X, nd.Y, x, y))
 		}
@@ -308,7 +308,7 @@ func (r *reader) readNode(t *table) {
 	has := t.need("x")
 	has = t.need("y") && has
 	// An invalid coordinate is NaN, so that no check compares with it.
-	nd := frame.Node{Name: name, X: t.num("x", math.NaN()), Y: t.num("y", math.NaN()), Support: r.support(t, frame.Free)}
+	nd := frame.Node{Name: name, X: t.qty("x", units.Length, math.NaN()), Y: t.qty("y", units.Length, math.NaN()), Support: r.support(t, frame.Free)}
 	if has {
 		r.nodes[name] = len(mo.Nodes)
 		r.nodeAt.set(len(mo.Nodes), t)
