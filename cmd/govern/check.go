@@ -3,8 +3,12 @@ package main
 import (
 	"flag"
 	"fmt"
+	"io"
 	"path/filepath"
+	"strconv"
+	"strings"
 
+	"govern/cmd/govern/modelfile"
 	"govern/envelope/analysis"
 	"govern/envelope/report"
 	"govern/frame"
@@ -44,5 +48,45 @@ func check(env *environ, args []string) error {
 	}
 	env.warn(name, st.Warnings)
 	report.WriteCheck(env.stdout, &job.Job, st)
+	writeAssignments(env.stdout, job)
 	return nil
+}
+
+// writeAssignments lists the model's [[assign]] tables and where they,
+// or [[member]] tables, give a member what another table gave it.
+func writeAssignments(w io.Writer, job *modelfile.Job) {
+	if len(job.Assignments) == 0 {
+		return
+	}
+	fmt.Fprintf(w, "assignments:    %d, applied in file order\n", len(job.Assignments))
+	for _, a := range job.Assignments {
+		var what []string
+		if a.Section != "" {
+			what = append(what, "section "+a.Section)
+		}
+		if a.Release != "" {
+			what = append(what, "release "+a.Release)
+		}
+		fmt.Fprintf(w, "  line %-6d %s on %s: %d members\n", a.Line, report.Escape(strings.Join(what, ", ")), report.Escape(quoted(a.On)), len(a.Members))
+	}
+	if len(job.Overlaps) == 0 {
+		fmt.Fprintf(w, "overlaps:       none\n")
+		return
+	}
+	fmt.Fprintf(w, "overlaps:       %d (a later table replaces what an earlier one gave)\n", len(job.Overlaps))
+	for _, o := range job.Overlaps {
+		fmt.Fprintf(w, "  %s\n", report.Escape(job.DescribeOverlap(o)))
+	}
+}
+
+// quoted writes selectors as they are written in on.
+func quoted(on []string) string {
+	q := make([]string, len(on))
+	for i, s := range on {
+		q[i] = strconv.Quote(s)
+	}
+	if len(q) == 1 {
+		return q[0]
+	}
+	return "[" + strings.Join(q, ", ") + "]"
 }

@@ -124,7 +124,7 @@ func TestReadBadInput(t *testing.T) {
 		{name: "unknown case in a combination", edit: []string{"{ G = 1.4 }", "{ G = 1.2, Q = 1.6 }"},
 			want: `m.toml:30: combination "1.4G": factors: no case named "Q"`, sentinel: ErrReference},
 		{name: "unknown member in a selector", edit: []string{`on = "a-b"`, `on = "a_b"`},
-			want: `m.toml:25: case "G", load 1: selector "a_b": no member of that name, and not one of "level N", "roof", "line A", "all beams", "all columns" (did you mean "a-b"?)`, sentinel: ErrReference},
+			want: `m.toml:25: case "G", load 1: selector "a_b": no member of that name, and not one of "level N", "roof", "storey N", "line A", "all beams", "all columns", a range such as "level 1-3", or several joined by " & " (did you mean "a-b"?)`, sentinel: ErrReference},
 		{name: "unknown node in a node load", edit: []string{"type = \"point\"\n  on = \"a-b\"\n  P = 2\n  at = 1", "type = \"node\"\n  node = \"B\"\n  fy = -2"},
 			want: `m.toml:25: case "G", load 1: node = "B": no such node (did you mean "b"?)`, sentinel: ErrReference},
 		{name: "selector that matches nothing", edit: []string{`on = "a-b"`, `on = "all columns"`},
@@ -187,13 +187,13 @@ func TestReadBadInput(t *testing.T) {
 		// Names that read as selectors: a member so named
 		// would capture the selector.
 		{name: "member named like a selector", edit: []string{"[[case]]", "[[node]]\nname = \"c\"\nx = 9\ny = 0\n[[member]]\nname = \"all beams\"\nstart = \"b\"\nend = \"c\"\nsection = \"S\"\n[[case]]"},
-			want: `m.toml:25: member "all beams": the name "all beams" reads as a member selector ("level N", "roof", "line A", "all beams", "all columns"): choose another name`, sentinel: ErrValue},
+			want: `m.toml:25: member "all beams": the name "all beams" reads as a member selector ("level N", "roof", "storey N", "line A", "all beams", "all columns", a range such as "level 1-3", or several joined by " & "): choose another name`, sentinel: ErrValue},
 		{name: "member named like a level", edit: []string{"[[case]]", "[[node]]\nname = \"c\"\nx = 9\ny = 0\n[[member]]\nname = \"level 0\"\nstart = \"b\"\nend = \"c\"\nsection = \"S\"\n[[case]]"},
-			want: `m.toml:25: member "level 0": the name "level 0" reads as a member selector ("level N", "roof", "line A", "all beams", "all columns"): choose another name`, sentinel: ErrValue},
+			want: `m.toml:25: member "level 0": the name "level 0" reads as a member selector ("level N", "roof", "storey N", "line A", "all beams", "all columns", a range such as "level 1-3", or several joined by " & "): choose another name`, sentinel: ErrValue},
 		{name: "member named roof", edit: []string{"[[case]]", "[[node]]\nname = \"c\"\nx = 9\ny = 0\n[[member]]\nname = \"roof\"\nstart = \"b\"\nend = \"c\"\nsection = \"S\"\n[[case]]"},
-			want: `m.toml:25: member "roof": the name "roof" reads as a member selector ("level N", "roof", "line A", "all beams", "all columns"): choose another name`, sentinel: ErrValue},
+			want: `m.toml:25: member "roof": the name "roof" reads as a member selector ("level N", "roof", "storey N", "line A", "all beams", "all columns", a range such as "level 1-3", or several joined by " & "): choose another name`, sentinel: ErrValue},
 		{name: "member whose default name reads as a line", edit: []string{"name = \"a\"", "name = \"line B\"", "start = \"a\"", "start = \"line B\"", `on = "a-b"`, `on = "all beams"`},
-			want: `m.toml:16: member 1: the name "line B-b" reads as a member selector ("level N", "roof", "line A", "all beams", "all columns"): choose another name`, sentinel: ErrValue},
+			want: `m.toml:16: member 1: the name "line B-b" reads as a member selector ("level N", "roof", "storey N", "line A", "all beams", "all columns", a range such as "level 1-3", or several joined by " & "): choose another name`, sentinel: ErrValue},
 
 		// A member picked twice by one load: refused, naming the
 		// member and both selectors.

@@ -39,7 +39,7 @@ func (r *reader) readLoad(t *table, c *frame.Case) {
 	}
 	var members []int
 	if t.need("on") {
-		members = r.selectAll(t)
+		members = r.selectAll(t, true)
 	}
 	if !r.budget(t, "on", len(members)) {
 		members = nil
@@ -102,9 +102,10 @@ func (r *reader) readLoad(t *table, c *frame.Case) {
 	}
 }
 
-// selectAll returns the members that the selectors of on pick. A member
-// picked by two of them is an error: one load acts on each member once.
-func (r *reader) selectAll(t *table) []int {
+// selectAll returns the members that the selectors of on pick, their
+// union. With once, a member picked by two of them is an error: one load
+// acts on each member once; without, it is picked once.
+func (r *reader) selectAll(t *table, once bool) []int {
 	sels := t.strs("on")
 	if sels != nil && len(sels) == 0 {
 		t.fail("on", problem(ErrValue, "on is empty: name at least one member or selector"))
@@ -152,6 +153,9 @@ func (r *reader) selectAll(t *table) []int {
 			if !dup {
 				by[m] = si
 				members = append(members, m)
+				continue
+			}
+			if !once {
 				continue
 			}
 			k := slices.IndexFunc(overlaps, func(o overlap) bool { return o.a == prev && o.b == si })

@@ -25,6 +25,11 @@ type Job struct {
 	// System is the model's units: its force, length and temperature
 	// units, to which every value given with a unit was converted.
 	System units.System
+	// Assignments are the [[assign]] tables, in file order, and Overlaps
+	// the sections and releases they give members that another table
+	// gives too (govern check lists them).
+	Assignments []Assignment
+	Overlaps    []Overlap
 
 	file      string      // the model's name, for messages
 	caseLines map[int]int // the line of each case no combination uses
@@ -128,6 +133,7 @@ func (r *reader) read(raw map[string]any) *Job {
 	}
 	r.readNodes(top.array("node", func(i int, m map[string]any) string { return named("node", i, m) }))
 	r.readMembers(top.array("member", func(i int, m map[string]any) string { return named("member", i, m) }))
+	r.readAssigns(top.array("assign", func(i int, _ map[string]any) string { return fmt.Sprintf("assign %d", i+1) }))
 	r.readCases(top.array("case", func(i int, m map[string]any) string { return named("case", i, m) }))
 	r.readCombinations(top.array("combination", func(i int, m map[string]any) string { return named("combination", i, m) }))
 	r.readCombinationSet(top.sub("combinations", "[combinations]"))
@@ -383,6 +389,7 @@ func (r *reader) readMember(t *table) {
 		m.Release = r.release(t, m.Release)
 		r.readPasses(t, i)
 		r.memberAt.set(i, t)
+		r.sets.set(i, t.has("section"), t.has("release"))
 		t.done()
 		return
 	}
@@ -435,6 +442,7 @@ func (r *reader) readMember(t *table) {
 	}
 	r.members[name] = i
 	r.memberAt.set(i, t)
+	r.sets.set(i, true, t.has("release"))
 	mo.Members = append(mo.Members, frame.Member{Name: name, Start: a, End: b, Section: s, Release: rel})
 }
 

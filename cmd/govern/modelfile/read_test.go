@@ -244,7 +244,7 @@ func TestReadErrors(t *testing.T) {
 		{"zero-length member", "x = 5\n", "x = 0\n", `m.toml:18: member 1: member "a-b" has zero length`, ErrValue},
 		{"point load outside its member", `at = 1`, `at = 7.5`, `m.toml:27: case "G", load 1: member "a-b": at = 7.5 is outside the member (length 5)`, ErrValue},
 		{"selector that matches nothing", `on = "a-b"`, `on = "level 3"`, `m.toml:25: case "G", load 1: selector "level 3": levels are numbered 0 to 0`, ErrReference},
-		{"unknown member name", `on = "a-b"`, `on = "a-c"`, `m.toml:25: case "G", load 1: selector "a-c": no member of that name, and not one of "level N", "roof", "line A", "all beams", "all columns" (did you mean "a-b"?)`, ErrReference},
+		{"unknown member name", `on = "a-b"`, `on = "a-c"`, `m.toml:25: case "G", load 1: selector "a-c": no member of that name, and not one of "level N", "roof", "storey N", "line A", "all beams", "all columns", a range such as "level 1-3", or several joined by " & " (did you mean "a-b"?)`, ErrReference},
 		{"unknown support word", `support = "fixed"` + "\n[[node]]", `support = "clamped"` + "\n[[node]]", `m.toml:10: node "a": support = "clamped": must be one of "fixed", "pinned", "roller", "free"`, ErrValue},
 		{"unknown kind", `kind = "dead"`, `kind = "permanent"`, `m.toml:22: case "G": kind = "permanent": must be one of "dead", "live", "roof-live", "snow", "rain", "wind", "seismic", "other"`, ErrValue},
 		{"combination naming a missing case", `factors = { G = 1.4 }`, `factors = { G = 1.4, Q = 1.5 }`, `m.toml:30: combination "1.4G": factors: no case named "Q"`, ErrReference},
