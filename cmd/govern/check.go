@@ -16,7 +16,7 @@ import (
 
 var cmdCheck = &command{
 	name:  "check",
-	usage: "MODEL.toml",
+	usage: "[--strict] MODEL.toml",
 	short: "read and validate a model without analysing it",
 	long: `
 Check reads and validates the model file and prints what it describes:
@@ -25,12 +25,18 @@ load cases, their actions and alternatives, and combinations. It also factorizes
 without solving any load case, to find a structure that cannot carry load
 (a mechanism) and to estimate the matrix's condition number. Every problem
 found is reported, with the line it is on, and the exit status is 1.
-See docs/errors.md.`,
-	setup: func(*flag.FlagSet) func(*environ, []string) error { return check },
+Numbers that look like a slip of units (E, the radius of gyration against
+a section's depth, a member's L/r) are warned of; --strict makes every
+warning an error. The [[assign]] tables are listed, with every member
+given a section or release by two tables. See docs/errors.md.`,
+	setup: func(fs *flag.FlagSet) func(*environ, []string) error {
+		strict := fs.Bool("strict", false, "treat every warning as an error")
+		return func(env *environ, args []string) error { return check(env, args, *strict) }
+	},
 }
 
 // check is govern check.
-func check(env *environ, args []string) error {
+func check(env *environ, args []string, strict bool) error {
 	if len(args) != 1 {
 		return usagef("need one model file, got %d arguments", len(args))
 	}
@@ -45,6 +51,9 @@ func check(env *environ, args []string) error {
 	st, err := analysis.CheckStability(&job.Job, frame.Options{})
 	if err != nil {
 		return fmt.Errorf("%s: %w", name, acceptHint(err))
+	}
+	if strict && len(st.Warnings) > 0 {
+		return strictError(name, st.Warnings)
 	}
 	env.warn(name, st.Warnings)
 	report.WriteCheck(env.stdout, &job.Job, st)

@@ -25,7 +25,7 @@
 //
 // Usage:
 //
-//	govern check MODEL.toml
+//	govern check [--strict] MODEL.toml
 //
 // Check reads and validates the model file and prints what it describes:
 // nodes, members, degrees of freedom and bandwidth of the stiffness matrix,
@@ -33,7 +33,15 @@
 // without solving any load case, to find a structure that cannot carry load
 // (a mechanism) and to estimate the matrix's condition number. Every problem
 // found is reported, with the line it is on, and the exit status is 1.
-// See docs/errors.md.
+// Numbers that look like a slip of units (E, the radius of gyration against
+// a section's depth, a member's L/r) are warned of; --strict makes every
+// warning an error. The [[assign]] tables are listed, with every member
+// given a section or release by two tables. See docs/errors.md.
+//
+// Flags:
+//
+//	-strict
+//	  	treat every warning as an error
 //
 // # List the load combinations a model is analysed for
 //
@@ -94,6 +102,8 @@
 //	  	print nothing on success: no tables, no progress line (files are still written)
 //	-report FILE
 //	  	write a report as one self-contained HTML page to FILE (- for standard output): the frame and its envelopes drawn, tables floor by floor, reactions, combinations, statics check
+//	-strict
+//	  	treat every warning as an error: a model with numbers that look like a slip of units, or an ill-conditioned stiffness matrix, gives no results
 //	-write FILE
 //	  	write the demonstration model to FILE instead of analysing it
 //
@@ -133,7 +143,7 @@
 //
 // Usage:
 //
-//	govern run [--json FILE] [--csv FILE] [--report FILE.html | --out DIR] [--quiet] [--compare-patterns] [--cross-check] [--accept-ill-conditioned] MODEL.toml
+//	govern run [--json FILE] [--csv FILE] [--report FILE.html | --out DIR] [--quiet] [--compare-patterns] [--cross-check] [--strict] [--accept-ill-conditioned] MODEL.toml
 //
 // Run reads the model file, solves every load case by the direct stiffness
 // method, combines the cases into the model's load combinations and reports,
@@ -197,8 +207,15 @@
 // vertically, either held against sway or with a single storey free to sway;
 // for any other model the report says why it does not apply.
 //
+// Numbers that no building frame has are warned of, with the slip of
+// units that would explain them: E outside 1 to 250 GPa, a radius of
+// gyration √(I/A) outside 0.15 to 0.6 times a section's depth, a member's
+// L/r below 4 or above 1000, a span of beams with span/deflection above
+// 20,000 or below 50 under the service combinations (docs/errors.md).
+// With --strict every warning is an error, and no results are given.
+//
 // See docs/model-format.md for the model file and docs/conventions.md for
-// the signs.
+// the units and signs.
 //
 // Flags:
 //
@@ -218,6 +235,8 @@
 //	  	print nothing on success: no tables, no progress line (files are still written)
 //	-report FILE
 //	  	write a report as one self-contained HTML page to FILE (- for standard output): the frame and its envelopes drawn, tables floor by floor, reactions, combinations, statics check
+//	-strict
+//	  	treat every warning as an error: a model with numbers that look like a slip of units, or an ill-conditioned stiffness matrix, gives no results
 //
 // # Run the built-in verification suite against published results
 //
