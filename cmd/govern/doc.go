@@ -111,33 +111,41 @@
 //
 // Usage:
 //
-//	govern new --bays LIST --storeys LIST [--spacing S] [--title TEXT] [FILE]
+//	govern new --bays LIST --storeys LIST [--units kN,m | N,mm | kip,ft] [--spacing S] [--title TEXT] [FILE]
 //
 // New writes a starting model of a regular reinforced concrete frame, in kN
-// and m, for you to edit: the grid of bays and storeys, a typical column and
+// and m (or, with --units, in N and mm or in kip and ft, with sections of
+// that system's sizes), for you to edit: the grid of bays and storeys, a typical column and
 // beam section (with their depths, so that beams get stations at the column
 // faces), a dead load case, a floor live and a roof live case placed span by
 // span, a wind case from either side, the strength combinations of ASCE/SEI
 // 7-16 section 2.3.1 and a service combination for deflections. Every
 // number in it is a placeholder, commented, to be checked and replaced.
 //
-// Lists are comma-separated lengths in m; "3.6x3" repeats 3.6 three times:
+// Lists are comma-separated lengths in the length unit of --units (m by
+// default); "3.6x3" repeats 3.6 three times:
 //
 //	govern new --bays 7.2,6,7.2 --storeys 4.5,3.6x3 office.toml
+//	govern new --units kip,ft --bays 24,20,24 --storeys 14,12x3 office.toml
 //
-// writes a frame of three bays and four storeys. Without FILE, or with -,
+// each write a frame of three bays and four storeys. In kip and ft the
+// values US practice gives in other units are written with them, such as
+// E = "3600 ksi", I = "18432 in4" and q = "125 psf", which the reader
+// converts. Without FILE, or with -,
 // the model goes to standard output. An existing file is never overwritten.
 //
 // Flags:
 //
 //	-bays LIST
-//	  	bay widths, left to right: LIST of lengths in m, such as 7.2,6,7.2 or 8x4
-//	-spacing float
-//	  	distance between parallel frames in m, for the area loads (default 6)
+//	  	bay widths, left to right: LIST of lengths in the length unit of --units, such as 7.2,6,7.2 or 8x4
+//	-spacing value
+//	  	distance between parallel frames, for the area loads (default 6 m, 6000 mm or 20 ft)
 //	-storeys LIST
-//	  	storey heights, bottom to top: LIST of lengths in m, such as 4.5,3.6x3
+//	  	storey heights, bottom to top: LIST of lengths, such as 4.5,3.6x3
 //	-title string
 //	  	the model's title (default: the numbers of bays and storeys)
+//	-units UNITS
+//	  	the model's force and length UNITS: kN,m, N,mm or kip,ft (default "kN,m")
 //
 // # Analyse a model and report its envelopes
 //
