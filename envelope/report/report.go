@@ -186,7 +186,7 @@ func (p *Report) unitsText() string {
 
 func unitsText(u analysis.Units, force, moment, defl analysis.Shown) string {
 	s := fmt.Sprintf("force %s, moment %s, length %s, deflection %s", force.Label, moment.Label, u.Length, defl.Label)
-	if u.Output != (analysis.OutputUnits{}) {
+	if force.Label != u.Force || moment.Label != u.Moment() || defl.Label != u.Length {
 		s += fmt.Sprintf(" (the model's values are in %s and %s)", u.Force, u.Length)
 	}
 	return s
