@@ -31,7 +31,7 @@ func (p *Report) writeCrossCheck(w io.Writer) error {
 	} else {
 		fmt.Fprintf(w, "Every joint is held against sway: no sway correction.\n")
 	}
-	fmt.Fprintf(w, "End moments in %s. Moment distribution neglects axial strain, so differences of up to a few percent come from\n", Escape(p.units().Moment()))
+	fmt.Fprintf(w, "End moments in %s. Moment distribution neglects axial strain, so differences of up to a few percent come from\n", Escape(p.moment.Label))
 	fmt.Fprintf(w, "the unequal shortening of the columns; one above %g%% of the case's largest end moment is marked \"differs\".\n", 100*analysis.CrossCheckFlag)
 	t := newTable(w, "case", "largest difference", "at", "largest end moment", "relative", "check")
 	for _, c := range cc.Cases {
@@ -43,7 +43,7 @@ func (p *Report) writeCrossCheck(w io.Writer) error {
 		if !c.Agrees() {
 			check = "differs"
 		}
-		if err := t.Append([]string{c.Case, sci(c.Difference), at, fixed(c.Largest), sci(c.Relative), check}); err != nil {
+		if err := t.Append([]string{c.Case, sci(p.moment.Of(c.Difference)), at, fixed(p.moment.Of(c.Largest)), sci(c.Relative), check}); err != nil {
 			return err
 		}
 	}

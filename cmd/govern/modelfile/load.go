@@ -6,6 +6,7 @@ import (
 	"slices"
 
 	"govern/frame"
+	"govern/frame/units"
 )
 
 // readLoad reads one [[case.load]] table into c.
@@ -24,7 +25,7 @@ func (r *reader) readLoad(t *table, c *frame.Case) {
 	switch typ {
 	case "node":
 		n, ok := r.node(t, "node")
-		nl := frame.NodeLoad{Node: n, Fx: t.num("fx", 0), Fy: t.num("fy", 0), M: t.num("m", 0)}
+		nl := frame.NodeLoad{Node: n, Fx: t.qty("fx", units.Force, 0), Fy: t.qty("fy", units.Force, 0), M: t.qty("m", units.Moment, 0)}
 		if ok {
 			c.NodeLoads = append(c.NodeLoads, nl)
 			r.noteMoment(t, nl)
@@ -43,7 +44,7 @@ func (r *reader) readLoad(t *table, c *frame.Case) {
 	}
 	var members []int
 	if t.need("on") {
-		members = r.selectAll(t)
+		members = r.selectAll(t, true)
 	}
 	if !r.budget(t, "on", len(members)) {
 		members = nil
@@ -51,9 +52,9 @@ func (r *reader) readLoad(t *table, c *frame.Case) {
 	switch typ {
 	case "udl":
 		has := t.need("w")
-		w := t.num("w", 0)                            // force/length
-		w2 := t.num("w2", w)                          // force/length, at to
-		from, to := t.num("from", 0), t.num("to", -1) // lengths
+		w := t.qty("w", units.LineLoad, 0)
+		w2 := t.qty("w2", units.LineLoad, w) // at to
+		from, to := t.qty("from", units.Length, 0), t.qty("to", units.Length, -1)
 		if !has {
 			return
 		}
@@ -110,7 +111,7 @@ func (r *reader) readLoad(t *table, c *frame.Case) {
 	case "point":
 		hasP := t.need("P")
 		hasAt := t.need("at")
-		p, at := t.num("P", 0), t.num("at", 0)
+		p, at := t.qty("P", units.Force, 0), t.qty("at", units.Length, 0)
 		if !hasP || !hasAt {
 			return
 		}
@@ -123,7 +124,7 @@ func (r *reader) readLoad(t *table, c *frame.Case) {
 		}
 	case "area":
 		has := t.need("q")
-		q := t.num("q", 0)
+		q := t.qty("q", units.Pressure, 0)
 		if !has {
 			return
 		}
@@ -209,9 +210,10 @@ func (r *reader) readDisplacement(t *table, c *frame.Case) {
 	c.Displacements = append(c.Displacements, frame.NodeDisplacement{Node: n, Ux: v[0], Uy: v[1], Rz: v[2]})
 }
 
-// selectAll returns the members that the selectors of on pick. A member
-// picked by two of them is an error: one load acts on each member once.
-func (r *reader) selectAll(t *table) []int {
+// selectAll returns the members that the selectors of on pick, their
+// union. With once, a member picked by two of them is an error: one load
+// acts on each member once; without, it is picked once.
+func (r *reader) selectAll(t *table, once bool) []int {
 	sels := t.strs("on")
 	if sels != nil && len(sels) == 0 {
 		t.fail("on", problem(ErrValue, "on is empty: name at least one member or selector"))
@@ -259,6 +261,9 @@ func (r *reader) selectAll(t *table) []int {
 			if !dup {
 				by[m] = si
 				members = append(members, m)
+				continue
+			}
+			if !once {
 				continue
 			}
 			k := slices.IndexFunc(overlaps, func(o overlap) bool { return o.a == prev && o.b == si })
