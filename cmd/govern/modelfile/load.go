@@ -73,8 +73,8 @@ func (r *reader) readLoad(t *table, c *frame.Case) {
 	case "moment":
 		hasM := t.need("m")
 		hasAt := t.need("at")
-		mv := t.num("m", 0)  // moment, force·length, counter-clockwise
-		at := t.num("at", 0) // length
+		mv := t.qty("m", units.Moment, 0) // counter-clockwise
+		at := t.qty("at", units.Length, 0)
 		if !hasM || !hasAt {
 			return
 		}
@@ -86,15 +86,18 @@ func (r *reader) readLoad(t *table, c *frame.Case) {
 			c.MemberLoads = append(c.MemberLoads, frame.MemberLoad{Member: m, Moment: true, At: at, M: mv})
 		}
 	case "temperature":
-		dT := t.num("dT", 0)         // temperature difference
-		g := t.num("dT_gradient", 0) // temperature difference, local +y face less local −y face
+		dT := t.qty("dT", units.TempDiff, 0)
+		g := t.qty("dT_gradient", units.TempDiff, 0) // local +y face less local −y face
 		if !t.has("dT") && !t.has("dT_gradient") {
 			t.fail("", problem(ErrMissing, "a temperature load needs dT (a uniform change), dT_gradient (the local +y face less the local -y face) or both"))
 			return
 		}
 		for _, m := range members {
-			sec := &mo.Sections[mo.Members[m].Section]
+			si := mo.Members[m].Section
+			sec := &mo.Sections[si]
 			switch {
+			case !(sec.Alpha > 0) && r.thermal[si][0], g != 0 && !(sec.Depth > 0) && r.thermal[si][1]:
+				return // the section's alpha or depth is wrong, reported there
 			case !(sec.Alpha > 0):
 				key := "dT"
 				if !t.has(key) {
@@ -173,8 +176,11 @@ func (r *reader) noteMoment(t *table, nl frame.NodeLoad) {
 var loadTypes = []string{"udl", "point", "moment", "area", "temperature", "node", "displacement"}
 
 // displacementKeys are the components of an imposed displacement, by
-// direction.
-var displacementKeys = [3]string{"dx", "dy", "rz"}
+// direction, and their quantities.
+var (
+	displacementKeys = [3]string{"dx", "dy", "rz"}
+	displacementQty  = [3]units.Quantity{units.Length, units.Length, units.Rotation}
+)
 
 // readDisplacement reads a displacement imposed on a supported node (a
 // settlement): dx and dy, lengths (dy positive up, so a settlement is
@@ -185,8 +191,7 @@ func (r *reader) readDisplacement(t *table, c *frame.Case) {
 	var v [3]float64
 	given := false
 	for d, key := range displacementKeys {
-		// dx, dy: length; rz: rotation, radians.
-		v[d] = t.num(key, 0)
+		v[d] = t.qty(key, displacementQty[d], 0)
 		given = given || t.has(key)
 	}
 	if !given {

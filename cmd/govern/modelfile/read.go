@@ -118,6 +118,7 @@ type reader struct {
 	nodes    map[string]int
 	members  map[string]int
 	hasW     []bool            // section gives a weight
+	thermal  [][2]bool         // section gives alpha, depth (valid or not: a wrong one is reported there)
 	broken   map[string]bool   // members named in the file that could not be built
 	memLine  []int             // line defining each member (0 for grid members)
 	caseInfo []combos.CaseInfo // per case, for the combination rules
@@ -259,7 +260,7 @@ func (r *reader) readSections(ts []*table) {
 				s.Depth = d
 			}
 		}
-		if a, ok := t.numOK("alpha", 0); ok { // coefficient of thermal expansion, 1/temperature
+		if a, ok := t.qtyOK("alpha", units.Expansion, 0); ok {
 			if a <= 0 {
 				t.fail("alpha", problem(ErrValue, "alpha = %g: must be greater than zero", a))
 			} else {
@@ -269,6 +270,7 @@ func (r *reader) readSections(ts []*table) {
 		r.sections[name] = len(r.job.Model.Sections)
 		r.job.Model.Sections = append(r.job.Model.Sections, s)
 		r.hasW = append(r.hasW, t.has("weight"))
+		r.thermal = append(r.thermal, [2]bool{t.has("alpha"), t.has("depth")})
 		t.done()
 	}
 }
