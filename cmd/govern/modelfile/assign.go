@@ -55,6 +55,14 @@ func (s *memberSets) set(i int, section, release bool) {
 
 func (s memberSets) has(i int, bit uint8) bool { return i < len(s) && s[i]&bit != 0 }
 
+// given is who gave a member its section or release: the line of that
+// table, or 0 for the model's own (a [grid]'s, or none), and whether it is
+// a [[member]] table.
+type given struct {
+	line   int32
+	member bool
+}
+
 // readAssigns reads the [[assign]] tables and applies them, with the
 // [[member]] tables, in file order (the later table's value is a
 // member's), recording in the job each assignment and each overlap.
@@ -100,12 +108,7 @@ func (r *reader) readAssigns(ts []*table) {
 	}
 	mo := r.job.Model
 	// Who gave each member its section (k = 0) and release (k = 1) so
-	// far: the line of that table, or 0 for the model's own (a [grid]'s,
-	// or none), and whether it is a [[member]] table.
-	type given struct {
-		line   int32
-		member bool
-	}
+	// far.
 	var by [2][]given
 	for k, bit := range []uint8{setsSection, setsRelease} {
 		by[k] = make([]given, len(mo.Members))
@@ -136,6 +139,9 @@ func (r *reader) readAssigns(ts []*table) {
 	}
 	for _, p := range all {
 		g := given{line: int32(p.a.Line)}
+		if p.a.Release != "" && !r.releaseFits(p.t, p.release, p.a.Members, by[1], g.line) {
+			p.a.Release = "" // reported: the members keep their ends
+		}
 		for k, v := range [2]string{p.a.Section, p.a.Release} {
 			if v == "" {
 				continue
@@ -159,6 +165,50 @@ func (r *reader) readAssigns(ts []*table) {
 		}
 	}
 	slices.SortStableFunc(r.job.Overlaps, func(a, b Overlap) int { return a.Line - b.Line })
+}
+
+// releaseFits reports whether release may be given to members, those of
+// them whose [[member]] table gives a release later in the file (by, the
+// line of who gave each its release) keeping their own: a hinge where a
+// member has a semi-rigid end (spring_start, spring_end) is an error at
+// the [[assign]]'s release, naming the first such member and the line of
+// its spring.
+func (r *reader) releaseFits(t *table, release frame.Release, members []int, by []given, line int32) bool {
+	mo := r.job.Model
+	first, n, side := -1, 0, ""
+	for _, m := range members {
+		if by[m].member && by[m].line > line {
+			continue // its own release, later in the file, stands
+		}
+		mem := &mo.Members[m]
+		s := ""
+		switch {
+		case release.AtStart() && mem.SpringStart > 0:
+			s = "start"
+		case release.AtEnd() && mem.SpringEnd > 0:
+			s = "end"
+		default:
+			continue
+		}
+		if first < 0 {
+			first, side = m, s
+		}
+		n++
+	}
+	if first < 0 {
+		return true
+	}
+	where := ""
+	if mt := r.memberAt.at(first); mt != nil {
+		where = fmt.Sprintf(" (spring_%s, line %d)", side, mt.line("spring_"+side))
+	}
+	more := ""
+	if n > 1 {
+		more = fmt.Sprintf(", and %d more members have a spring at an end it releases", n-1)
+	}
+	t.fail("release", problem(ErrValue, "release = %q: member %q has a semi-rigid %s%s%s; give a release or a spring, not both",
+		release, mo.Members[first].Name, side, where, more))
+	return false
 }
 
 // failedAtRelease reports whether release could not be read.

@@ -103,6 +103,12 @@ func TestAssignErrors(t *testing.T) {
 		{"[[assign]]\non = \"roof\"\nrelease = \"hinged\"\n", `m.toml:31: assign 1: release = "hinged": must be one of "none", "start", "end", "both"`},
 		{"[[assign]]\non = []\nsection = \"C\"\n", `m.toml:30: assign 1: on is empty: name at least one member or selector`},
 		{"[[assign]]\non = \"roof\"\nsection = \"C\"\ncolour = 1\n", `m.toml:32: assign 1: unknown key "colour"`},
+		// A hinge where a member has a semi-rigid end: the error is the
+		// [[assign]]'s, at its release, naming the member and its spring.
+		{"[[member]]\nname = \"A4-B4\"\nspring_end = 1e4\n[[assign]]\non = \"roof\"\nrelease = \"both\"\n",
+			`m.toml:34: assign 1: release = "both": member "A4-B4" has a semi-rigid end (spring_end, line 31); give a release or a spring, not both`},
+		{"[[member]]\nname = \"A1-B1\"\nspring_start = 1e4\n[[member]]\nname = \"B1-C1\"\nspring_start = 1e4\n[[assign]]\non = \"level 1\"\nrelease = \"start\"\n",
+			`m.toml:37: assign 1: release = "start": member "A1-B1" has a semi-rigid start (spring_start, line 31), and 1 more members have a spring at an end it releases; give a release or a spring, not both`},
 	} {
 		t.Run(tc.want, func(t *testing.T) {
 			_, err := Read("m.toml", []byte(frame3x4+tc.add))
@@ -123,5 +129,62 @@ func TestAssignUnionPicksOnce(t *testing.T) {
 	}
 	if n := len(job.Assignments[0].Members); n != 7 {
 		t.Errorf("%d members, want 4 on line A and 3 more in storey 1", n)
+	}
+}
+
+// TestAssignReleaseBesideSpring: a [[member]] that gives its own release
+// after an [[assign]] keeps it, so the assign's hinge never meets the
+// member's spring at the other end.
+func TestAssignReleaseBesideSpring(t *testing.T) {
+	job, err := Read("m.toml", []byte(frame3x4+"[[assign]]\non = \"roof\"\nrelease = \"end\"\n[[member]]\nname = \"A4-B4\"\nrelease = \"start\"\nspring_end = 1e4\n"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, m := range job.Model.Members {
+		if m.Name == "A4-B4" && (m.Release != frame.ReleaseStart || m.SpringEnd != 1e4) {
+			t.Errorf("A4-B4: release %v, spring at its end %g", m.Release, m.SpringEnd)
+		}
+	}
+}
+
+// TestAssignBeforeRigidZones: the rigid end zones of [analysis]
+// rigid_zones take the depths of the sections as assigned: a beam's end
+// is rigid for half the depth of the column it frames into (column
+// sections given by [[assign]]), a column's for half the beam's.
+func TestAssignBeforeRigidZones(t *testing.T) {
+	src := "[analysis]\nrigid_zones = true\n" + frame3x4 + `[[section]]
+name = "D"
+E = 30e6
+A = 0.36
+I = 1.08e-2
+depth = 0.6
+[[section]]
+name = "BD"
+E = 30e6
+A = 0.28
+I = 1.14e-2
+depth = 0.5
+[[assign]]
+on = "all columns"
+section = "D"
+[[assign]]
+on = "all beams"
+section = "BD"
+`
+	job, err := Read("m.toml", []byte(src))
+	if err != nil {
+		t.Fatal(err)
+	}
+	mo := job.Model
+	for _, m := range mo.Members {
+		want := [2]float64{0.3, 0.3} // a beam: half the columns' depth
+		if strings.HasPrefix(m.Name, "A0") || strings.HasPrefix(m.Name, "B0") || strings.HasPrefix(m.Name, "C0") || strings.HasPrefix(m.Name, "D0") {
+			want = [2]float64{0, 0.25} // a ground-floor column: a base, then half the beams' depth
+		} else if m.Name[0] == m.Name[3] { // another column: beams at both ends
+			want = [2]float64{0.25, 0.25}
+		}
+		if got := [2]float64{m.OffsetStart, m.OffsetEnd}; got != want {
+			t.Errorf("%s: rigid zones %v, want %v", m.Name, got, want)
+		}
 	}
 }
