@@ -27,7 +27,14 @@ type scaled struct {
 
 func runFile(t *testing.T, name string) *analysis.Result {
 	t.Helper()
-	path := filepath.Join("..", "..", "testdata", "units", name)
+	return runPath(t, filepath.Join("..", "..", "testdata", "units", name))
+}
+
+// runPath reads and runs the model at path, failing the test on an error
+// or a warning.
+func runPath(t *testing.T, path string) *analysis.Result {
+	t.Helper()
+	name := filepath.Base(path)
 	src, err := os.ReadFile(path)
 	if err != nil {
 		t.Fatal(err)
@@ -126,27 +133,65 @@ func TestOneFrameInThreeSystems(t *testing.T) {
 		{"frame-kip-ft.toml", lbf, ft},
 	} {
 		t.Run(tc.file, func(t *testing.T) {
-			got := gather(runFile(t, tc.file), tc.force, tc.length)
-			for _, q := range []struct {
-				name      string
-				want, got []float64
-			}{{"forces", ref.force, got.force}, {"lengths", ref.length, got.length}, {"moments", ref.moment, got.moment}, {"span/deflection", ref.number, got.number}} {
-				if len(q.want) != len(q.got) || len(q.want) == 0 {
-					t.Fatalf("%s: %d values, want %d", q.name, len(q.got), len(q.want))
-				}
-				scale := 0.0
-				for _, v := range q.want {
-					scale = math.Max(scale, math.Abs(v))
-				}
-				worst := 0.0
-				for i := range q.want {
-					worst = math.Max(worst, math.Abs(q.got[i]-q.want[i])/scale)
-				}
-				if worst > sameFrameTol {
-					t.Errorf("%s differ by %.2g of the largest (%g)", q.name, worst, scale)
-				}
-				t.Logf("%s: %d values, largest difference %.1e of the largest", q.name, len(q.want), worst)
-			}
+			sameResults(t, ref, gather(runFile(t, tc.file), tc.force, tc.length))
 		})
+	}
+}
+
+// sameResults compares the results of one frame in two systems of units,
+// both in kN and m: each quantity to sameFrameTol of its largest value.
+func sameResults(t *testing.T, ref, got scaled) {
+	t.Helper()
+	for _, q := range []struct {
+		name      string
+		want, got []float64
+	}{{"forces", ref.force, got.force}, {"lengths", ref.length, got.length}, {"moments", ref.moment, got.moment}, {"span/deflection", ref.number, got.number}} {
+		if len(q.want) != len(q.got) || len(q.want) == 0 {
+			t.Fatalf("%s: %d values, want %d", q.name, len(q.got), len(q.want))
+		}
+		scale := 0.0
+		for _, v := range q.want {
+			scale = math.Max(scale, math.Abs(v))
+		}
+		worst := 0.0
+		for i := range q.want {
+			worst = math.Max(worst, math.Abs(q.got[i]-q.want[i])/scale)
+		}
+		if worst > sameFrameTol {
+			t.Errorf("%s differ by %.2g of the largest (%g)", q.name, worst, scale)
+		}
+		t.Logf("%s: %d values, largest difference %.1e of the largest", q.name, len(q.want), worst)
+	}
+}
+
+// TestJointsInKipFootFahrenheit: testdata/joints.toml, in kN, m and °C,
+// and testdata/units/joints-kip-ft.toml, the same frame in kip, ft and °F
+// with every value a string with a unit (springs kN/m and kN·m/rad, a
+// semi-rigid end in N·m/rad, a settlement in mm, a change of temperature
+// in K and °C with alpha per K, a triangular load, a member moment, rigid
+// zones from depths in mm and cm), agree to 1e-9 once converted to kN and
+// m by the exact factors (1 lbf = 4.4482216152605 N, 1 ft = 0.3048 m; a
+// step of 1 °F is 5/9 K; NIST SP 811 Appendix B, recalled from memory).
+// The temperature case checks the conversion of both dT and alpha: their
+// product, the strain, is what the frame sees.
+func TestJointsInKipFootFahrenheit(t *testing.T) {
+	const lbf, ft = 4.4482216152605, 0.3048
+	ref := gather(runPath(t, filepath.Join("..", "..", "testdata", "joints.toml")), 1, 1)
+	res := runPath(t, filepath.Join("..", "..", "testdata", "units", "joints-kip-ft.toml"))
+	sameResults(t, ref, gather(res, lbf, ft))
+	// The model read in its own units: dT = 25 K is 45 °F and alpha =
+	// 1e-5 per K is 1e-5 × 5/9 per °F.
+	mo := res.Job.Model
+	for _, c := range mo.Cases {
+		for _, l := range c.MemberLoads {
+			if l.Thermal && (math.Abs(l.DT-45) > 1e-12 || math.Abs(l.DTGrad-18) > 1e-12) {
+				t.Errorf("case %s: dT %g, dT_gradient %g, want 45 and 18 °F", c.Name, l.DT, l.DTGrad)
+			}
+		}
+	}
+	for _, s := range mo.Sections {
+		if s.Alpha != 0 && math.Abs(s.Alpha-1e-5*5/9) > 1e-20 {
+			t.Errorf("section %s: alpha %g per °F, want %g", s.Name, s.Alpha, 1e-5*5/9)
+		}
 	}
 }
