@@ -13,6 +13,7 @@
 //	check    read and validate a model without analysing it
 //	combos   list the load combinations a model is analysed for
 //	demo     run the analysis on a built-in demonstration model
+//	diff     list the design values that changed between two JSON result files
 //	new      write a starting model of a regular frame to edit
 //	run      analyse a model and report its envelopes
 //	verify   run the built-in verification suite against published results
@@ -108,6 +109,39 @@
 //	  	treat every warning as an error: a model with numbers that look like a slip of units, or an ill-conditioned stiffness matrix, gives no results
 //	-write FILE
 //	  	write the demonstration model to FILE instead of analysing it
+//
+// # List the design values that changed between two JSON result files
+//
+// Usage:
+//
+//	govern diff [--tolerance PERCENT] [--floor PERCENT] OLD.json NEW.json
+//
+// Diff compares two result files written by 'govern run --json' (of this
+// version's format) and lists, member by member, the design values that
+// changed by more than a tolerance, with both values, where along the member
+// each is and the combinations that govern them: for the check that an edit
+// of a model changed only what it was meant to.
+//
+// The design values compared are, for every member, the largest and smallest
+// N, V and M over its stations and M and V at each column face; the
+// deflection of every span and cantilever; and the largest and smallest of
+// every reaction component. A value is listed when it changed by more than
+// --tolerance per cent of the larger of its two values and by more than
+// --floor per cent of the largest value of that quantity in its member (node,
+// span) in either file, so that a value near zero does not count round-off
+// as a change. A member, span or support found in one file only is listed
+// too.
+//
+// The exit status is 0 when nothing changed, 1 when something did or a file
+// cannot be read (not valid JSON, not a result file, another format version,
+// different units), and 2 for a mistake in the command line.
+//
+// Flags:
+//
+//	-floor percent
+//	  	and by more than this percent of the largest value of that quantity in its member (default 0.1)
+//	-tolerance percent
+//	  	list a value that changed by more than this percent of the larger of its two values (default 1)
 //
 // # Write a starting model of a regular frame to edit
 //
@@ -214,11 +248,15 @@
 // notes on standard error how it read them.
 //
 // With --cross-check every case is solved a second time by moment
-// distribution (Hardy Cross), independently of the stiffness solver, and the
-// largest difference in member end moments is printed. The method applies to
-// frames of horizontal beams and vertical columns whose joints are held
-// vertically, either held against sway or with a single storey free to sway;
-// for any other model the report says why it does not apply.
+// distribution (Hardy Cross), independently of the stiffness solver, with
+// one sway correction per storey free to sway, and the largest difference in
+// member end moments is printed twice: against the frame with every area
+// multiplied by 1e6 (no axial strain; limit 1e-6 of the largest end moment)
+// and against the model as given, within a limit derived from moment
+// distribution's estimate of the axial strain it neglects. The method
+// applies to frames of horizontal beams and vertical columns whose joints are
+// held vertically, with any number of storeys; for any other model the
+// report says why it does not apply.
 //
 // Numbers that no building frame has are warned of, with the slip of
 // units that would explain them: E outside 1 to 250 GPa, a radius of

@@ -52,7 +52,7 @@ func usagef(format string, args ...any) error {
 var commands []*command
 
 func init() {
-	commands = []*command{cmdRun, cmdCheck, cmdCombos, cmdDemo, cmdNew, cmdVerify}
+	commands = []*command{cmdRun, cmdCheck, cmdCombos, cmdDemo, cmdDiff, cmdNew, cmdVerify}
 }
 
 func main() {

@@ -113,11 +113,15 @@ where several wind, seismic or snow cases do not say how they act, run
 notes on standard error how it read them.
 
 With --cross-check every case is solved a second time by moment
-distribution (Hardy Cross), independently of the stiffness solver, and the
-largest difference in member end moments is printed. The method applies to
-frames of horizontal beams and vertical columns whose joints are held
-vertically, either held against sway or with a single storey free to sway;
-for any other model the report says why it does not apply.
+distribution (Hardy Cross), independently of the stiffness solver, with
+one sway correction per storey free to sway, and the largest difference in
+member end moments is printed twice: against the frame with every area
+multiplied by 1e6 (no axial strain; limit 1e-6 of the largest end moment)
+and against the model as given, within a limit derived from moment
+distribution's estimate of the axial strain it neglects. The method
+applies to frames of horizontal beams and vertical columns whose joints are
+held vertically, with any number of storeys; for any other model the
+report says why it does not apply.
 
 Numbers that no building frame has are warned of, with the slip of
 units that would explain them: E outside 1 to 250 GPa, a radius of

@@ -178,14 +178,19 @@ func TestCrossCheck(t *testing.T) {
 	}
 	// A beam on knife edges carries no axial force: moment distribution
 	// (members axially rigid) gives the stiffness solver's end moments,
-	// −wL²/8 over the middle support for each case, to round-off.
+	// −wL²/8 over the middle support for each case, to round-off, with
+	// the areas as given or multiplied.
 	if cc.Sway || len(cc.Cases) != 2 {
 		t.Fatalf("cross-check %+v", cc)
 	}
 	for c, w := range []float64{10, 5} {
 		k := cc.Cases[c]
-		if want := w * 36 / 8; math.Abs(k.Largest-want) > closeTol*want || !(k.Relative < 1e-9) || !k.Agrees() {
+		want := w * 36 / 8
+		if math.Abs(k.Largest-want) > closeTol*want || !(k.RigidRelative < 1e-9) || !k.RigidAgrees() {
 			t.Errorf("case %s: %+v, largest end moment want %g", k.Case, k, want)
+		}
+		if !(k.Given.Difference < 1e-9*want) || !(k.Axial < 1e-9*want) || !k.GivenAgrees() {
+			t.Errorf("case %s: as given %+v", k.Case, k)
 		}
 	}
 	t.Run("does not apply to a rafter", func(t *testing.T) {

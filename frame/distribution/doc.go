@@ -25,16 +25,31 @@
 // Every member must be horizontal or vertical, and every joint that is not a
 // cantilever tip must be held vertically (by a support, or through a line of
 // columns down to one). A frame whose joints are all held horizontally (by a
-// beam line ending at a fixed or pinned support) is analysed without sway. A
-// frame with exactly one beam line free to move horizontally (a single
-// storey) gets the sway correction: the frame is first held against sway by a
-// prop and distributed, then given a unit sway and distributed again, and the
-// two are combined so that the prop force vanishes. Supports are free,
+// beam line ending at a fixed or pinned support) is analysed without sway.
+// Each beam line free to move horizontally (a storey) gets a sway
+// correction: the frame is first held against sway by a prop at every such
+// line and distributed; then each line in turn is given a unit sway, the
+// others held, and distributed again; the amplitudes of the corrections
+// come from the storey shear equations, one per line, which say that no
+// prop force remains (the shear of the storey below a line balances the
+// shear of the storey above and the loads on the line), solved by Gaussian
+// elimination. A single storey is the case of one line. Supports are free,
 // fixed, pinned or rollers, without springs; member ends rigid or released,
 // without rotational springs or rigid end zones; loads are distributed and
 // point loads on members and loads at nodes (no concentrated moments on
 // members, changes of temperature or imposed displacements). Anything else
 // is reported by a [*NotApplicableError] that says why.
+//
+// # Axial strain
+//
+// With [Options.AxialStrain], Solve also estimates what the axial strain it
+// neglects changes ([Result.AxialStrain]): the axial forces follow by
+// statics from the end moments, the members' elongations under them move
+// the joints (along the columns from the supports up, along each beam line
+// from the support that holds it), and the chord rotations this gives the
+// members are distributed like those of a sway, with the sway corrections.
+// That is the first term of a series; the second term is the same for the
+// axial forces the first causes, and says how much the first leaves out.
 //
 // # Units and signs
 //

@@ -12,7 +12,9 @@ type memberLoads struct {
 	fs, fe float64 // fixed-end moments at start and end, counter-clockwise on the member
 	q0     float64 // total transverse load (local +y)
 	q1     float64 // its moment about the start: ∫ ξ q dξ
-	gx     float64 // total load along global X
+	gx, gy float64 // total load along global X and Y
+	a0     float64 // total axial load (local +x)
+	a1     float64 // its moment about the start: ∫ ξ a dξ
 }
 
 // add adds the loads of case cs that lie on member m of length l with
@@ -32,6 +34,7 @@ func (r *memberLoads) add(cs *frame.Case, m int, l, c, s float64) {
 			ux = 1
 		}
 		t := -s*ux + c*uy // transverse (local y) component per unit value
+		ax := c*ux + s*uy // axial (local x) component per unit value
 		if ld.Point {
 			a := math.Max(0, math.Min(l, ld.At))
 			p := ld.P * t
@@ -40,6 +43,9 @@ func (r *memberLoads) add(cs *frame.Case, m int, l, c, s float64) {
 			r.q0 += p
 			r.q1 += p * a
 			r.gx += ld.P * ux
+			r.gy += ld.P * uy
+			r.a0 += ld.P * ax
+			r.a1 += ld.P * ax * a
 			continue
 		}
 		a, b := math.Max(0, ld.From), math.Min(l, ld.To)
@@ -54,9 +60,14 @@ func (r *memberLoads) add(cs *frame.Case, m int, l, c, s float64) {
 		p0 := ld.W - p1*ld.From
 		r.fs += -t * (fixedStart(p0, p1, l, b) - fixedStart(p0, p1, l, a)) / (l * l)
 		r.fe += t * (fixedEnd(p0, p1, l, b) - fixedEnd(p0, p1, l, a)) / (l * l)
-		r.q0 += t * (p0*(b-a) + p1*(b*b-a*a)/2)
-		r.q1 += t * (p0*(b*b-a*a)/2 + p1*(b*b*b-a*a*a)/3)
-		r.gx += ux * (p0*(b-a) + p1*(b*b-a*a)/2)
+		total := p0*(b-a) + p1*(b*b-a*a)/2           // ∫ w dξ
+		first := p0*(b*b-a*a)/2 + p1*(b*b*b-a*a*a)/3 // ∫ ξ w dξ
+		r.q0 += t * total
+		r.q1 += t * first
+		r.gx += ux * total
+		r.gy += uy * total
+		r.a0 += ax * total
+		r.a1 += ax * first
 	}
 }
 

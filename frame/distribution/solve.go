@@ -1,6 +1,7 @@
 package distribution
 
 import (
+	"errors"
 	"fmt"
 	"math"
 	"strings"
@@ -31,19 +32,32 @@ type Options struct {
 	// MaxSweeps is the largest number of sweeps over the joints; 100000 when
 	// zero.
 	MaxSweeps int
+	// AxialStrain makes Solve estimate, for every case, the effect of the
+	// axial strain it neglects ([Result.AxialStrain]). It takes two more
+	// distributions per case.
+	AxialStrain bool
 }
 
 // Result holds the end moments of every member in every case.
 type Result struct {
-	// Sway reports whether the sway correction was made; SwayNodes names the
-	// joints that sway together.
+	// Sway reports whether sway corrections were made; SwayLines names the
+	// joints of each beam line free to move along X (a storey), one sway
+	// correction each, in the order of their first joint in the model.
 	Sway      bool
-	SwayNodes []string
+	SwayLines [][]string
 	// Sweeps is the largest number of sweeps any distribution took.
 	Sweeps int
 
+	// Indeterminate names, with Options.AxialStrain, the members whose
+	// axial force statics does not give (between two supports that hold
+	// them along their axis): their axial strain is left out of
+	// AxialStrain.
+	Indeterminate []string
+
 	nm      int
 	moments []float64 // [case][2*member+side]
+	axial   []float64 // [case][term][2*member+side]: the effect of axial strain
+	sway    []float64 // [case][line]: the movement along X of each sway line
 }
 
 // EndMoments returns the moments the joints exert on the start and end of
@@ -51,6 +65,31 @@ type Result struct {
 func (r *Result) EndMoments(c, m int) (start, end float64) {
 	i := (c*r.nm + m) * 2
 	return r.moments[i], r.moments[i+1]
+}
+
+// AxialStrain returns the estimated change in the end moments (start, end)
+// of member m in case c that the axial strain of the members causes, which
+// moment distribution otherwise neglects; only with Options.AxialStrain.
+// The change is a series: its first term is what the frame gives when the
+// elongations of its members under the axial forces of the case (found by
+// statics from the end moments) are imposed on it, and each further term
+// is the same for the axial forces the previous term causes. First is the
+// first term; second the second, whose size says how much the first
+// leaves out.
+func (r *Result) AxialStrain(c, m int) (first, second [2]float64) {
+	if r.axial == nil {
+		panic("distribution: AxialStrain without Options.AxialStrain")
+	}
+	i := (2*c*r.nm + m) * 2
+	j := i + 2*r.nm
+	return [2]float64{r.axial[i], r.axial[i+1]}, [2]float64{r.axial[j], r.axial[j+1]}
+}
+
+// Drift returns the movement along X (+X positive, length units of the
+// model) of sway line j (an index of SwayLines) in case c: the amplitude of
+// its sway correction, since each correction is a unit movement of its line.
+func (r *Result) Drift(c, j int) float64 {
+	return r.sway[c*len(r.SwayLines)+j]
 }
 
 // orientationTol is the relative tolerance under which a member counts as
@@ -63,8 +102,9 @@ const orientationTol = 1e-6
 // distribution that does not converge). The model must be valid
 // ([frame.Model.Validate]).
 func Solve(mo *frame.Model, opt *Options) (*Result, error) {
-	tol, maxSweeps := 1e-12, 100000
+	tol, maxSweeps, axial := 1e-12, 100000, false
 	if opt != nil {
+		axial = opt.AxialStrain
 		if opt.Tol > 0 {
 			tol = opt.Tol
 		}
@@ -79,41 +119,137 @@ func Solve(mo *frame.Model, opt *Options) (*Result, error) {
 	if err != nil {
 		return nil, err
 	}
-	res := &Result{nm: len(mo.Members), moments: make([]float64, 2*len(mo.Cases)*len(mo.Members))}
-	var unit []float64 // moments of the unit sway
-	var unitProp float64
-	if st.swayGroup >= 0 {
-		res.Sway = true
+	ns := len(st.lines)
+	res := &Result{nm: len(mo.Members), moments: make([]float64, 2*len(mo.Cases)*len(mo.Members)),
+		sway: make([]float64, len(mo.Cases)*ns)}
+	for _, g := range st.lines {
+		var names []string
 		for v, n := range mo.Nodes {
-			if st.group[v] == st.swayGroup && !st.tip[v] {
-				res.SwayNodes = append(res.SwayNodes, n.Name)
+			if st.group[v] == g && !st.tip[v] {
+				names = append(names, n.Name)
 			}
 		}
-		m, sweeps, err := st.distribute(-1, tol, maxSweeps)
-		if err != nil {
-			return nil, err
+		res.SwayLines = append(res.SwayLines, names)
+	}
+	res.Sway = ns > 0
+	d := &distributor{st: st, tol: tol, maxSweeps: maxSweeps}
+	if err := d.swayCorrections(); err != nil {
+		var bad *singularError
+		if errors.As(err, &bad) {
+			return nil, notApplicable("the joints %s are free to move along X and no column resists it", strings.Join(quote(res.SwayLines[bad.line]), ", "))
 		}
-		res.Sweeps = max(res.Sweeps, sweeps)
-		unit, unitProp = m, st.prop(-1, m)
-		if !(math.Abs(unitProp) > 0) {
-			return nil, notApplicable("the joints %s are free to move along X and no column resists it", strings.Join(quote(res.SwayNodes), ", "))
+		return nil, err
+	}
+	var psi []float64
+	if axial {
+		psi = make([]float64, len(mo.Members))
+		res.axial = make([]float64, 4*len(mo.Cases)*len(mo.Members))
+		for _, k := range st.indeterminate() {
+			res.Indeterminate = append(res.Indeterminate, mo.Members[k].Name)
 		}
 	}
 	for c := range mo.Cases {
-		m, sweeps, err := st.distribute(c, tol, maxSweeps)
+		m, alpha, err := d.solve(c, nil)
 		if err != nil {
 			return nil, fmt.Errorf("case %q: %w", mo.Cases[c].Name, err)
 		}
-		res.Sweeps = max(res.Sweeps, sweeps)
-		if unit != nil {
-			alpha := -st.prop(c, m) / unitProp
-			for i := range m {
-				m[i] += alpha * unit[i]
+		copy(res.sway[c*ns:], alpha)
+		copy(res.moments[2*c*len(mo.Members):], m)
+		if axial {
+			if err := d.axialStrain(res, c, m, psi); err != nil {
+				return nil, fmt.Errorf("case %q: axial strain: %w", mo.Cases[c].Name, err)
 			}
 		}
-		copy(res.moments[2*c*len(mo.Members):], m)
 	}
+	res.Sweeps = d.sweeps
 	return res, nil
+}
+
+// distributor distributes the moments of one structure, with its sway
+// corrections made once and used for every case.
+type distributor struct {
+	st           *structure
+	tol          float64
+	maxSweeps    int
+	sweeps       int         // the largest number of sweeps any distribution took
+	units        [][]float64 // end moments of the unit sway of each line
+	sw           *swaySystem // the storey shear equations
+	props, alpha []float64
+}
+
+// swayCorrections distributes a unit sway of each beam line free to move
+// along X, every other line held, and factors the storey shear equations:
+// entry (i, j) is the force the prop of line i must exert to hold the frame
+// in the unit sway of line j.
+func (d *distributor) swayCorrections() error {
+	st := d.st
+	ns := len(st.lines)
+	if ns == 0 {
+		return nil
+	}
+	k := make([]float64, ns*ns)
+	col := make([]float64, ns)
+	psi := make([]float64, len(st.mo.Members))
+	for j := range ns {
+		st.swayRotations(psi, j)
+		m, err := d.distribute(-1, psi)
+		if err != nil {
+			return err
+		}
+		d.units = append(d.units, m)
+		st.props(col, -1, m)
+		for i := range ns {
+			k[i*ns+j] = col[i]
+		}
+	}
+	sw, bad := factor(k, ns)
+	if sw == nil {
+		return &singularError{line: bad}
+	}
+	d.sw = sw
+	d.props, d.alpha = make([]float64, ns), make([]float64, ns)
+	return nil
+}
+
+// singularError is a set of storey shear equations with no solution: the
+// line's movement along X is not resisted.
+type singularError struct{ line int }
+
+func (e *singularError) Error() string { return fmt.Sprintf("sway line %d is not resisted", e.line) }
+
+// solve returns the end moments of case c (c < 0: no loads) with the
+// imposed chord rotations psi (nil: none), the sway corrections added so
+// that no prop force remains, and the amplitudes of the corrections (the
+// movement of each sway line along X). The amplitudes are overwritten by
+// the next call.
+func (d *distributor) solve(c int, psi []float64) ([]float64, []float64, error) {
+	st := d.st
+	m, err := d.distribute(c, psi)
+	if err != nil {
+		return nil, nil, err
+	}
+	if d.sw == nil {
+		return m, nil, nil
+	}
+	// The storey shear equations: the amplitudes that make every prop
+	// force vanish, Σj k[i][j] αj = −p[i].
+	st.props(d.props, c, m)
+	for i, p := range d.props {
+		d.alpha[i] = -p
+	}
+	d.sw.solve(d.alpha)
+	for j, a := range d.alpha {
+		for i := range m {
+			m[i] += a * d.units[j][i]
+		}
+	}
+	return m, d.alpha, nil
+}
+
+func (d *distributor) distribute(c int, psi []float64) ([]float64, error) {
+	m, sweeps, err := d.st.distribute(c, psi, d.tol, d.maxSweeps)
+	d.sweeps = max(d.sweeps, sweeps)
+	return m, err
 }
 
 func quote(names []string) []string {
@@ -137,8 +273,10 @@ type structure struct {
 	ends  [][]int   // per node: member ends (2*m+side) attached to it
 	joint []bool    // node is balanced (free to rotate, two or more active ends)
 	group []int     // per node: beam line it moves with along X (-1 for tips)
-	// swayGroup is the one beam line free to move along X, or -1.
-	swayGroup int
+	// lines are the beam lines free to move along X (groups), and line
+	// gives each node's index among them, or -1.
+	lines []int
+	line  []int
 }
 
 // endKind classifies a member end.
@@ -155,7 +293,7 @@ func newStructure(mo *frame.Model) (*structure, error) {
 	nm, nn := len(mo.Members), len(mo.Nodes)
 	st := &structure{mo: mo, l: make([]float64, nm), c: make([]float64, nm), s: make([]float64, nm), ei: make([]float64, nm),
 		tip: make([]bool, nn), cantTip: make([]int, nm), kind: make([]endKind, 2*nm), k: make([]float64, 2*nm),
-		ends: make([][]int, nn), joint: make([]bool, nn), group: make([]int, nn), swayGroup: -1}
+		ends: make([][]int, nn), joint: make([]bool, nn), group: make([]int, nn), line: make([]int, nn)}
 	for m, mem := range mo.Members {
 		a, b := mo.Nodes[mem.Start], mo.Nodes[mem.End]
 		dx, dy := b.X-a.X, b.Y-a.Y
@@ -280,7 +418,7 @@ func (st *structure) checkVertical() error {
 }
 
 // findSway groups the joints into beam lines that move together along X and
-// finds the ones no support holds.
+// finds the ones no support holds, each of which gets a sway correction.
 func (st *structure) findSway() error {
 	mo := st.mo
 	parent := make([]int, len(mo.Nodes))
@@ -322,26 +460,18 @@ func (st *structure) findSway() error {
 			free[g] = append(free[g], n.Name)
 		}
 	}
-	switch len(order) {
-	case 0:
-		return nil
-	case 1:
-		st.swayGroup = order[0]
-		return nil
-	}
-	var lines []string
+	st.lines = order
+	index := make(map[int]int, len(order))
 	for i, g := range order {
-		if i == 3 {
-			lines = append(lines, fmt.Sprintf("and %d more", len(order)-i))
-			break
-		}
-		names := quote(free[g])
-		if len(names) > 4 {
-			names = append(names[:4], "...")
-		}
-		lines = append(lines, "("+strings.Join(names, ", ")+")")
+		index[g] = i
 	}
-	return notApplicable("%d beam lines are free to sway, %s; the sway correction here is for a single storey", len(order), strings.Join(lines, ", "))
+	for v := range mo.Nodes {
+		st.line[v] = -1
+		if i, ok := index[st.group[v]]; ok && !st.tip[v] {
+			st.line[v] = i
+		}
+	}
+	return nil
 }
 
 // loads returns the reduction of case c's loads on member m; c < 0 is the
@@ -382,25 +512,40 @@ func (st *structure) nodeForce(c, v int) (fx, fy float64) {
 	return fx, fy
 }
 
-// swayOf returns the X movement of node v in the unit sway (1 for the joints
-// of the sway line, 0 for the rest).
-func (st *structure) swayOf(v int) float64 {
-	if st.swayGroup >= 0 && st.group[v] == st.swayGroup {
-		return 1
+// swayRotations sets psi[m] to the chord rotation of member m in a unit
+// movement along X of sway line j, every other line held: the columns
+// between the line and the next ones rotate.
+func (st *structure) swayRotations(psi []float64, j int) {
+	at := func(v int) float64 {
+		if st.line[v] == j {
+			return 1
+		}
+		return 0
 	}
-	return 0
+	for m, mem := range st.mo.Members {
+		psi[m] = st.chordRotation(m, at(mem.Start), 0, at(mem.End), 0)
+	}
 }
 
-// distribute returns the end moments of case c ([2*m+side]) with the frame
-// held against sway, or, for c < 0, those of a unit sway of the sway line,
-// and the number of sweeps it took.
-func (st *structure) distribute(c int, tol float64, maxSweeps int) ([]float64, int, error) {
+// chordRotation returns the rotation, counter-clockwise, of the chord of
+// member m when its start moves by (us, vs) and its end by (ue, ve): the
+// movement across the member (local y is (−s, c)) over its length.
+func (st *structure) chordRotation(m int, us, vs, ue, ve float64) float64 {
+	c, s := st.c[m], st.s[m]
+	return ((-s*ue + c*ve) - (-s*us + c*vs)) / st.l[m]
+}
+
+// distribute returns the end moments ([2*m+side]) of case c (c < 0: no
+// loads) with the chord rotations psi imposed on the members (nil: none),
+// the frame held against sway, and the number of sweeps it took.
+func (st *structure) distribute(c int, psi []float64, tol float64, maxSweeps int) ([]float64, int, error) {
 	mo := st.mo
 	nm := len(mo.Members)
 	mom := make([]float64, 2*nm)
 	ref := 0.0
-	// Fixed-end moments, from loads or from the chord rotation of a sway.
-	for m, mem := range mo.Members {
+	// Fixed-end moments, from loads and from the chord rotations: −6EIψ/L
+	// at both ends (a hinge is released below).
+	for m := range mo.Members {
 		if st.cantTip[m] >= 0 {
 			continue
 		}
@@ -408,11 +553,11 @@ func (st *structure) distribute(c int, tol float64, maxSweeps int) ([]float64, i
 		if c >= 0 {
 			r := st.loads(c, m)
 			fs, fe = r.fs, r.fe
-		} else if st.s[m] != 0 {
-			// Column: the ends move across it by -s·ux; chord rotation ψ.
-			psi := (-st.s[m]*st.swayOf(mem.End) + st.s[m]*st.swayOf(mem.Start)) / st.l[m]
-			fs = -6 * st.ei[m] * psi / st.l[m]
-			fe = fs
+		}
+		if psi != nil {
+			f := -6 * st.ei[m] * psi[m] / st.l[m]
+			fs += f
+			fe += f
 		}
 		mom[2*m], mom[2*m+1] = fs, fe
 		ref = math.Max(ref, math.Max(math.Abs(fs), math.Abs(fe)))
@@ -530,36 +675,38 @@ func (st *structure) unbalanced(c, v int, mom []float64) float64 {
 	return u
 }
 
-// prop returns the force along X that a prop at the sway line must exert to
-// hold it, with end moments mom in case c (c < 0: no loads).
-func (st *structure) prop(c int, mom []float64) float64 {
+// props sets dst[i] to the force along X that a prop at sway line i must
+// exert to hold it, with end moments mom in case c (c < 0: no loads).
+func (st *structure) props(dst []float64, c int, mom []float64) {
 	mo := st.mo
-	g := st.swayGroup
-	in := func(v int) bool { return st.group[v] == g }
-	sum := 0.0 // X forces on the free body: sway-line joints, their beams and cantilevers
-	for v := range mo.Nodes {
-		if in(v) {
-			fx, _ := st.nodeForce(c, v)
-			sum += fx
+	clear(dst)
+	// X forces on the free body of each line: its joints, its beams and
+	// the cantilevers it holds, and the columns' end shears.
+	add := func(v int, f float64) {
+		if i := st.line[v]; i >= 0 {
+			dst[i] -= f
 		}
+	}
+	for v := range mo.Nodes {
+		fx, _ := st.nodeForce(c, v)
+		add(v, fx)
 	}
 	for m, mem := range mo.Members {
 		r := st.loads(c, m)
 		if side := st.cantTip[m]; side >= 0 {
-			near, tipNode := mem.Start, mem.End
+			near := mem.Start
 			if side == 0 {
-				near, tipNode = mem.End, mem.Start
+				near = mem.End
 			}
-			if in(near) {
-				fx, _ := st.nodeForce(c, tipNode)
-				sum += r.gx + fx
-			}
+			// The tip's node load is counted with the line of the
+			// cantilever's root: the tip is in no line.
+			tipNode := mem.Start + mem.End - near
+			fx, _ := st.nodeForce(c, tipNode)
+			add(near, r.gx+fx)
 			continue
 		}
 		if st.s[m] == 0 {
-			if in(mem.Start) {
-				sum += r.gx // a beam of the sway line takes its X load along its axis
-			}
+			add(mem.Start, r.gx) // a beam takes its X load along its axis
 			continue
 		}
 		// Column: transverse end forces the joints exert on it, by statics.
@@ -567,12 +714,7 @@ func (st *structure) prop(c int, mom []float64) float64 {
 		fe := -(ms + me + r.q1) / st.l[m]
 		fs := -fe - r.q0
 		// The column pushes on a joint with s·F along X (local y is (-s, 0)).
-		if in(mem.Start) {
-			sum += st.s[m] * fs
-		}
-		if in(mem.End) {
-			sum += st.s[m] * fe
-		}
+		add(mem.Start, st.s[m]*fs)
+		add(mem.End, st.s[m]*fe)
 	}
-	return -sum
 }

@@ -208,8 +208,8 @@ func TestPortalFrames(t *testing.T) {
 			tc.load.Name = "c"
 			mo.Cases = []frame.Case{tc.load}
 			r := solve(t, mo)
-			if !r.Sway || len(r.SwayNodes) != 2 {
-				t.Errorf("sway %v %v, want the beam line to sway", r.Sway, r.SwayNodes)
+			if !r.Sway || len(r.SwayLines) != 1 || len(r.SwayLines[0]) != 2 {
+				t.Errorf("sway %v %v, want the beam line to sway", r.Sway, r.SwayLines)
 			}
 			if got := bending(r, 0, tc.member, tc.x); !near(got, tc.want, closeTol) {
 				t.Errorf("M = %g, want %g", got, tc.want)
