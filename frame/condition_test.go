@@ -475,34 +475,31 @@ func TestPivotWatchFindsTheRayleighQuotient(t *testing.T) {
 	}
 }
 
-func TestUnitSlipInASectionIsNamed(t *testing.T) {
+func TestUnitSlipLeavesTheMatrixWellConditioned(t *testing.T) {
 	// A 4 m steel cantilever, A = 0.01 m², I = 1e-4 m⁴: radius of gyration
-	// √(I/A) = 0.1 m. With I entered in mm⁴ (1e8) beside A in m² it is
-	// 1e5 m, 25 000 times the member, past the 1000 times that no member
-	// that can be built reaches: the slip is named, while consistent units
-	// of any kind, and a link made axially rigid, are not. Scaled to unit
-	// diagonal that slip leaves the matrix as well conditioned as any other
-	// cantilever (7 + 4√3), so the conditioning warning cannot catch it.
+	// √(I/A) = 0.1 m. With I entered in mm⁴ (1e8) beside A in m² every
+	// bending stiffness is 10¹² times too large, uniformly: scaled to unit
+	// diagonal the matrix is as well conditioned as any other cantilever
+	// (7 + 4√3), so the conditioning warning cannot catch the slip, and the
+	// solver says nothing. Package envelope/analysis looks for such slips
+	// (Plausibility), knowing the model's units.
 	for _, tc := range []struct {
 		name string
 		a, i float64
 		l    float64
-		warn string
 	}{
-		{"kN and m", 0.01, 1e-4, 4, ""},
-		{"N and mm", 1e4, 1e8, 4000, ""},
-		{"axially rigid link: A × 1e6", 1e4, 1e-4, 4, ""},
-		{"I in mm⁴ beside A in m²", 0.01, 1e8, 4,
-			`section "S": its radius of gyration √(I/A) = 1e+05 is 2.5e+04 times the length of the longest member made of it ("a-b", 4), which no member that can be built is; check that A and I are in the declared units`},
+		{"kN and m", 0.01, 1e-4, 4},
+		{"N and mm", 1e4, 1e8, 4000},
+		{"axially rigid link: A × 1e6", 1e4, 1e-4, 4},
+		{"I in mm⁴ beside A in m²", 0.01, 1e8, 4},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
 			sol, err := Solve(cantilever(tc.l, 200e6, tc.a, tc.i))
 			if err != nil {
 				t.Fatal(err)
 			}
-			w := sol.Warnings()
-			if tc.warn == "" && len(w) != 0 || tc.warn != "" && (len(w) != 1 || w[0] != tc.warn) {
-				t.Errorf("warnings %q, want %q", w, tc.warn)
+			if w := sol.Warnings(); len(w) != 0 {
+				t.Errorf("warnings %q", w)
 			}
 			if !near(sol.Cond(), cantileverCond, condTol) {
 				t.Errorf("Cond() = %g, want 7 + 4√3", sol.Cond())

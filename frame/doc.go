@@ -79,9 +79,10 @@
 // [MaxCond]). A stiffness matrix ill-conditioned enough to cost most of the
 // digits (above [WarnCond]) is solved with a warning in [Solution.Warnings];
 // [Solution.Cond] is the estimated condition number of the stiffness matrix
-// scaled to unit diagonal, the same in any consistent units. A section
-// whose radius of gyration no buildable member has (a unit slip) earns a
-// warning too.
+// scaled to unit diagonal, the same in any consistent units. (Numbers that
+// look like a slip of units, such as a radius of gyration no buildable
+// member has, are looked for by package envelope/analysis, which knows the
+// model's units.)
 //
 // The statics check ([Solution.Balance]) takes moments about the lower left
 // corner of the frame, so that its position does not cost digits.

@@ -92,7 +92,7 @@ func SolveWith(mo *Model, opt Options) (*Solution, error) {
 	if err := checkStorage(mo, n, band); err != nil {
 		return nil, err
 	}
-	sol := &Solution{model: mo, dofs: n, band: band, cond: 1, dof: dof, released: released, warnings: sectionWarnings(mo)}
+	sol := &Solution{model: mo, dofs: n, band: band, cond: 1, dof: dof, released: released}
 	sol.elems = make([]element, len(mo.Members))
 	sol.atNode = make([][]int32, len(mo.Nodes))
 	for m, mem := range mo.Members {

@@ -66,7 +66,7 @@ func isColumnTable(h []string) bool {
 func isDeflectionTable(h []string) bool { return len(h) > 1 && h[0] == "span" && h[1] == "kind" }
 func isReactionTable(h []string) bool   { return len(h) > 1 && h[0] == "node" && h[1] == "component" }
 func isStaticsTable(h []string) bool {
-	return len(h) > 1 && h[0] == "case" && h[1] == "loads ΣFx"
+	return len(h) > 1 && h[0] == "case" && headed(h[1], "loads ΣFx")
 }
 
 // tablesOf returns the tables of a kind.
@@ -119,7 +119,7 @@ func columnIndex(t *testing.T, tb renderedTable, path ...string) int {
 	for k, name := range path {
 		next := -1
 		for i := at + 1; i < len(tb.header); i++ {
-			if tb.header[i] == name {
+			if headed(tb.header[i], name) {
 				if next < 0 {
 					next = i
 				} else if k == 0 {
@@ -133,6 +133,12 @@ func columnIndex(t *testing.T, tb renderedTable, path ...string) int {
 		at = next
 	}
 	return at
+}
+
+// headed reports whether a column's header h is name, with or without the
+// unit that follows it in parentheses ("at x" heads "at x (m)").
+func headed(h, name string) bool {
+	return h == name || strings.HasPrefix(h, name+" (")
 }
 
 // cellWant is what a cell must show: a number, or one of some texts.

@@ -26,7 +26,7 @@
 //
 // Usage:
 //
-//	govern check MODEL.toml
+//	govern check [--strict] MODEL.toml
 //
 // Check reads and validates the model file and prints what it describes:
 // nodes, members, degrees of freedom and bandwidth of the stiffness matrix,
@@ -34,7 +34,15 @@
 // without solving any load case, to find a structure that cannot carry load
 // (a mechanism) and to estimate the matrix's condition number. Every problem
 // found is reported, with the line it is on, and the exit status is 1.
-// See docs/errors.md.
+// Numbers that look like a slip of units (E, the radius of gyration against
+// a section's depth, a member's L/r) are warned of; --strict makes every
+// warning an error. The [[assign]] tables are listed, with every member
+// given a section or release by two tables. See docs/errors.md.
+//
+// Flags:
+//
+//	-strict
+//	  	treat every warning as an error
 //
 // # List the load combinations a model is analysed for
 //
@@ -97,6 +105,8 @@
 //	  	print nothing on success: no tables, no progress line (files are still written)
 //	-report FILE
 //	  	write a report as one self-contained HTML page to FILE (- for standard output): the frame and its envelopes drawn, tables floor by floor, reactions, combinations, statics check
+//	-strict
+//	  	treat every warning as an error: a model with numbers that look like a slip of units, or an ill-conditioned stiffness matrix, gives no results
 //	-write FILE
 //	  	write the demonstration model to FILE instead of analysing it
 //
@@ -137,39 +147,47 @@
 //
 // Usage:
 //
-//	govern new --bays LIST --storeys LIST [--spacing S] [--title TEXT] [FILE]
+//	govern new --bays LIST --storeys LIST [--units kN,m | N,mm | kip,ft] [--spacing S] [--title TEXT] [FILE]
 //
 // New writes a starting model of a regular reinforced concrete frame, in kN
-// and m, for you to edit: the grid of bays and storeys, a typical column and
+// and m (or, with --units, in N and mm or in kip and ft, with sections of
+// that system's sizes), for you to edit: the grid of bays and storeys, a typical column and
 // beam section (with their depths, so that beams get stations at the column
 // faces), a dead load case, a floor live and a roof live case placed span by
 // span, a wind case from either side, the strength combinations of ASCE/SEI
 // 7-16 section 2.3.1 and a service combination for deflections. Every
 // number in it is a placeholder, commented, to be checked and replaced.
 //
-// Lists are comma-separated lengths in m; "3.6x3" repeats 3.6 three times:
+// Lists are comma-separated lengths in the length unit of --units (m by
+// default); "3.6x3" repeats 3.6 three times:
 //
 //	govern new --bays 7.2,6,7.2 --storeys 4.5,3.6x3 office.toml
+//	govern new --units kip,ft --bays 24,20,24 --storeys 14,12x3 office.toml
 //
-// writes a frame of three bays and four storeys. Without FILE, or with -,
+// each write a frame of three bays and four storeys. In kip and ft the
+// values US practice gives in other units are written with them, such as
+// E = "3600 ksi", I = "18432 in4" and q = "125 psf", which the reader
+// converts. Without FILE, or with -,
 // the model goes to standard output. An existing file is never overwritten.
 //
 // Flags:
 //
 //	-bays LIST
-//	  	bay widths, left to right: LIST of lengths in m, such as 7.2,6,7.2 or 8x4
-//	-spacing float
-//	  	distance between parallel frames in m, for the area loads (default 6)
+//	  	bay widths, left to right: LIST of lengths in the length unit of --units, such as 7.2,6,7.2 or 8x4
+//	-spacing value
+//	  	distance between parallel frames, for the area loads (default 6 m, 6000 mm or 20 ft)
 //	-storeys LIST
-//	  	storey heights, bottom to top: LIST of lengths in m, such as 4.5,3.6x3
+//	  	storey heights, bottom to top: LIST of lengths, such as 4.5,3.6x3
 //	-title string
 //	  	the model's title (default: the numbers of bays and storeys)
+//	-units UNITS
+//	  	the model's force and length UNITS: kN,m, N,mm or kip,ft (default "kN,m")
 //
 // # Analyse a model and report its envelopes
 //
 // Usage:
 //
-//	govern run [--json FILE] [--csv FILE] [--report FILE.html | --out DIR] [--quiet] [--compare-patterns] [--cross-check] [--accept-ill-conditioned] MODEL.toml
+//	govern run [--json FILE] [--csv FILE] [--report FILE.html | --out DIR] [--quiet] [--compare-patterns] [--cross-check] [--strict] [--accept-ill-conditioned] MODEL.toml
 //
 // Run reads the model file, solves every load case by the direct stiffness
 // method, combines the cases into the model's load combinations and reports,
@@ -240,8 +258,15 @@
 // held vertically, with any number of storeys; for any other model the
 // report says why it does not apply.
 //
+// Numbers that no building frame has are warned of, with the slip of
+// units that would explain them: E outside 1 to 250 GPa, a radius of
+// gyration √(I/A) outside 0.15 to 0.6 times a section's depth, a member's
+// L/r below 4 or above 1000, a span of beams with span/deflection above
+// 20,000 or below 50 under the service combinations (docs/errors.md).
+// With --strict every warning is an error, and no results are given.
+//
 // See docs/model-format.md for the model file and docs/conventions.md for
-// the signs.
+// the units and signs.
 //
 // Flags:
 //
@@ -261,6 +286,8 @@
 //	  	print nothing on success: no tables, no progress line (files are still written)
 //	-report FILE
 //	  	write a report as one self-contained HTML page to FILE (- for standard output): the frame and its envelopes drawn, tables floor by floor, reactions, combinations, statics check
+//	-strict
+//	  	treat every warning as an error: a model with numbers that look like a slip of units, or an ill-conditioned stiffness matrix, gives no results
 //
 // # Run the built-in verification suite against published results
 //

@@ -80,7 +80,7 @@ func TestMessagesAreEscaped(t *testing.T) {
 	}{
 		{"model file name", []string{"check", bad}, "govern check: bad\\x1b[2J.toml:1:9: expected value but found '\\n' instead\ngovern check:     title =\t\ngovern check:            \t^\n"},
 		{"flag", []string{"run", "--j\x1b]0;x\x07", "m.toml"}, "govern run: flag provided but not defined: -j\\x1b]0;x\\x07\n"},
-		{"warning", []string{"run", "--quiet", mixed}, "govern run: warning: mixed\\x07.toml: section \"C\": its radius of gyration"},
+		{"warning", []string{"run", "--quiet", mixed}, "govern run: warning: mixed\\x07.toml: member \"A0-A1\" (and 5 more of section \"C\"): L/r"},
 		{"output path", []string{"run", "--json", filepath.Join(dir, "no\x1bfolder", "e.json"), writeDemo(t)}, "govern run: cannot write " + dir + "/no\\x1bfolder/e.json: open " + dir + "/no\\x1bfolder/.e.json.tmp"},
 	} {
 		t.Run(tc.name, func(t *testing.T) {

@@ -326,7 +326,7 @@ func TestRunFilesAndCSV(t *testing.T) {
 	}
 	// The unit column's header says the signs are the member's own, where
 	// a reader of the file sees it, in the one header row.
-	if got := strings.Join(rows[0], ","); got != "member,x (m),effect,max,max_by,min,min_by,"+report.CSVUnitHeader+",max_spans,min_spans,max_loaded,min_loaded,max_with_N,max_with_V,max_with_M,min_with_N,min_with_V,min_with_M,face" {
+	if got := strings.Join(rows[0], ","); got != "member,x (m),effect,max,max_by,min,min_by,"+report.CSVUnitHeader+",max_spans,min_spans,max_loaded,min_loaded,max_with_N (kN),max_with_V (kN),max_with_M (kN·m),min_with_N (kN),min_with_V (kN),min_with_M (kN·m),face" {
 		t.Errorf("CSV header %q", got)
 	}
 	if !strings.Contains(rows[0][7], "member axes") || !strings.Contains(rows[0][7], "local -y face in tension") || strings.Contains(rows[0][7], ",") {

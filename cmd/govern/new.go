@@ -2,6 +2,7 @@ package main
 
 import (
 	"bytes"
+	"errors"
 	"flag"
 	"fmt"
 	"math"
@@ -15,8 +16,31 @@ import (
 
 type newFlags struct {
 	bays, storeys string
-	spacing       float64
+	spacing       optionalFloat
 	title         string
+	units         string
+}
+
+// optionalFloat is a number flag that records whether it was given.
+type optionalFloat struct {
+	v   float64
+	set bool
+}
+
+func (o *optionalFloat) String() string {
+	if o == nil || !o.set {
+		return ""
+	}
+	return strconv.FormatFloat(o.v, 'g', -1, 64)
+}
+
+func (o *optionalFloat) Set(s string) error {
+	v, err := strconv.ParseFloat(s, 64)
+	if err != nil {
+		return errors.New("not a number")
+	}
+	o.v, o.set = v, true
+	return nil
 }
 
 // maxGridLines is the most bays or storeys a model may have (the model
@@ -29,28 +53,35 @@ const (
 
 var cmdNew = &command{
 	name:  "new",
-	usage: "--bays LIST --storeys LIST [--spacing S] [--title TEXT] [FILE]",
+	usage: "--bays LIST --storeys LIST [--units kN,m | N,mm | kip,ft] [--spacing S] [--title TEXT] [FILE]",
 	short: "write a starting model of a regular frame to edit",
 	long: `
 New writes a starting model of a regular reinforced concrete frame, in kN
-and m, for you to edit: the grid of bays and storeys, a typical column and
+and m (or, with --units, in N and mm or in kip and ft, with sections of
+that system's sizes), for you to edit: the grid of bays and storeys, a typical column and
 beam section (with their depths, so that beams get stations at the column
 faces), a dead load case, a floor live and a roof live case placed span by
 span, a wind case from either side, the strength combinations of ASCE/SEI
 7-16 section 2.3.1 and a service combination for deflections. Every
 number in it is a placeholder, commented, to be checked and replaced.
 
-Lists are comma-separated lengths in m; "3.6x3" repeats 3.6 three times:
+Lists are comma-separated lengths in the length unit of --units (m by
+default); "3.6x3" repeats 3.6 three times:
 
 	govern new --bays 7.2,6,7.2 --storeys 4.5,3.6x3 office.toml
+	govern new --units kip,ft --bays 24,20,24 --storeys 14,12x3 office.toml
 
-writes a frame of three bays and four storeys. Without FILE, or with -,
+each write a frame of three bays and four storeys. In kip and ft the
+values US practice gives in other units are written with them, such as
+E = "3600 ksi", I = "18432 in4" and q = "125 psf", which the reader
+converts. Without FILE, or with -,
 the model goes to standard output. An existing file is never overwritten.`,
 	setup: func(fs *flag.FlagSet) func(*environ, []string) error {
 		f := &newFlags{}
-		fs.StringVar(&f.bays, "bays", "", "bay widths, left to right: `LIST` of lengths in m, such as 7.2,6,7.2 or 8x4")
-		fs.StringVar(&f.storeys, "storeys", "", "storey heights, bottom to top: `LIST` of lengths in m, such as 4.5,3.6x3")
-		fs.Float64Var(&f.spacing, "spacing", modelfile.DefaultSpacing, "distance between parallel frames in m, for the area loads")
+		fs.StringVar(&f.bays, "bays", "", "bay widths, left to right: `LIST` of lengths in the length unit of --units, such as 7.2,6,7.2 or 8x4")
+		fs.StringVar(&f.storeys, "storeys", "", "storey heights, bottom to top: `LIST` of lengths, such as 4.5,3.6x3")
+		fs.Var(&f.spacing, "spacing", "distance between parallel frames, for the area loads (default 6 m, 6000 mm or 20 ft)")
+		fs.StringVar(&f.units, "units", "kN,m", "the model's force and length `UNITS`: kN,m, N,mm or kip,ft")
 		fs.StringVar(&f.title, "title", "", "the model's title (default: the numbers of bays and storeys)")
 		return func(env *environ, args []string) error { return newModel(env, f, args) }
 	},
@@ -75,10 +106,18 @@ func newModel(env *environ, f *newFlags, args []string) error {
 	if n := (2*len(bays) + 1) * len(storeys); n > maxNewMembers {
 		return usagef("%d bays and %d storeys make %d members; at most %d", len(bays), len(storeys), n, maxNewMembers)
 	}
-	if !(f.spacing > 0) || math.IsInf(f.spacing, 0) {
-		return usagef("--spacing %g: must be a length greater than zero", f.spacing)
+	sys, ok := modelfile.ParseStarterUnits(f.units)
+	if !ok {
+		return usagef("--units %q: must be kN,m, N,mm or kip,ft", f.units)
 	}
-	s := modelfile.Starter{Title: f.title, Bays: bays, Storeys: storeys, Spacing: f.spacing, Faces: true, Service: true}
+	spacing := sys.DefaultSpacing()
+	if f.spacing.set {
+		spacing = f.spacing.v
+	}
+	if !(spacing > 0) || math.IsInf(spacing, 0) {
+		return usagef("--spacing %g: must be a length greater than zero", spacing)
+	}
+	s := modelfile.Starter{Title: f.title, Units: sys, Bays: bays, Storeys: storeys, Spacing: spacing, Faces: true, Service: true}
 	if s.Title == "" {
 		s.Title = fmt.Sprintf("New frame: %d bays, %d storeys", len(bays), len(storeys))
 	}
@@ -94,7 +133,7 @@ func newModel(env *environ, f *newFlags, args []string) error {
 	if len(args) == 1 {
 		path = args[0]
 	}
-	return writeModelFile(env, path, src.Bytes(), fmt.Sprintf(": %d bays, %d storeys; every number in it is a placeholder to check and replace", len(bays), len(storeys)))
+	return writeModelFile(env, path, src.Bytes(), fmt.Sprintf(": %d bays, %d storeys, in %s; every number in it is a placeholder to check and replace", len(bays), len(storeys), strings.ReplaceAll(sys.String(), ",", " and ")))
 }
 
 // writeModelFile writes a model file that new or demo --write made: to

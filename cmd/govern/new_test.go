@@ -1,6 +1,7 @@
 package main
 
 import (
+	"context"
 	"os"
 	"path/filepath"
 	"slices"
@@ -172,12 +173,100 @@ func TestNewWritesAModelThatRuns(t *testing.T) {
 			{"new", "--bays", "6", "--storeys", "3", "--spacing", "-2"},
 			{"new", "--bays", "6", "--storeys", "3", "a.toml", "b.toml"},
 			{"new", "--bays", "6x2000", "--storeys", "3x2000"},
+			{"new", "--bays", "6", "--storeys", "3", "--units", "kN,ft"},
+			{"new", "--bays", "6", "--storeys", "3", "--spacing", "0", "--units", "kip,ft"},
+			{"new", "--bays", "6", "--storeys", "3", "--spacing", "six"},
 		} {
 			if code, _, stderr := exec(args...); code != 2 || !strings.HasPrefix(stderr, "govern new: ") {
 				t.Errorf("%v: exit %d: %s", args, code, stderr)
 			}
 		}
 	})
+}
+
+// writtenModel writes a starting model with govern new and reads it back.
+func writtenModel(t *testing.T, args ...string) (*modelfile.Job, string) {
+	t.Helper()
+	code, out, stderr := exec(append([]string{"new"}, args...)...)
+	if code != 0 {
+		t.Fatalf("exit %d: %s", code, stderr)
+	}
+	job, err := modelfile.Read("new.toml", []byte(out))
+	if err != nil {
+		t.Fatal(err)
+	}
+	return job, out
+}
+
+// TestNewUnits: govern new --units writes a model in kN and m, N and mm,
+// or kip and ft, each read back in its units, giving no warning (the
+// plausibility checks included) and, in N and mm, the same frame as in kN
+// and m.
+func TestNewUnits(t *testing.T) {
+	t.Run("kip and ft: US sizes and loads, with their units", func(t *testing.T) {
+		job, src := writtenModel(t, "--units", "kip,ft", "--bays", "24,20,24", "--storeys", "14,12x3")
+		if job.Units.Force != "kip" || job.Units.Length != "ft" || job.Grid.Spacing != 20 {
+			t.Fatalf("units %+v, spacing %g", job.Units, job.Grid.Spacing)
+		}
+		for _, want := range []string{`E = "3600 ksi"`, `A = "400 in2"`, `I = "13333 in4"`, `depth = "20 in"`, `q = "125 psf"`, `q = "65 psf"`, `q = "20 psf"`} {
+			if !strings.Contains(src, want) {
+				t.Errorf("the model lacks %s", want)
+			}
+		}
+		// C20, 20 × 20 in: E = 3600 ksi = 3600 × 144 ksf, A = 400/144 ft²,
+		// I = 13333/12⁴ ft⁴; its weight 150 pcf × 400/144 ft² = 0.4167 klf.
+		c := job.Model.Sections[0]
+		for _, v := range [][3]float64{{c.E, 3600 * 144, 1e-12}, {c.A, 400.0 / 144, 1e-12}, {c.I, 13333.0 / 20736, 1e-12}, {c.Depth, 20.0 / 12, 1e-12}, {c.Weight, 0.15 * 400 / 144, 1e-4}} {
+			if abs(v[0]-v[1]) > v[2]*v[1] {
+				t.Errorf("C20: %.10g, want %.10g", v[0], v[1])
+			}
+		}
+		// Wind 20 psf × 20 ft × (14 + 12)/2 ft = 5.2 kip at level 1.
+		if fx := job.Model.Cases[3].NodeLoads[0].Fx; abs(fx-5.2) > 1e-12 {
+			t.Errorf("wind at level 1: %g kip", fx)
+		}
+		if w := plausibleRun(t, job); len(w) > 0 {
+			t.Errorf("warnings %q", w)
+		}
+	})
+	t.Run("N and mm: the frame of kN and m", func(t *testing.T) {
+		a, _ := writtenModel(t, "--bays", "7.2,6,7.2", "--storeys", "4.5,3.6x3")
+		b, src := writtenModel(t, "--units", "N,mm", "--bays", "7200,6000,7200", "--storeys", "4500,3600x3")
+		if b.Units.Force != "N" || b.Units.Length != "mm" || b.Grid.Spacing != 6000 || !strings.Contains(src, `q = "6 kPa"`) {
+			t.Fatalf("units %+v, spacing %g", b.Units, b.Grid.Spacing)
+		}
+		ra, rb := runJob(t, a), runJob(t, b)
+		if len(ra.Warnings)+len(rb.Warnings) > 0 {
+			t.Errorf("warnings %q %q", ra.Warnings, rb.Warnings)
+		}
+		// Every moment of the envelopes: kN·m = 1e6 N·mm, to the four
+		// figures A and I are written with.
+		worst, scale := 0.0, 0.0
+		for i, em := range ra.Envelope.Members {
+			for k, st := range em.Stations {
+				o := rb.Envelope.Members[i].Stations[k]
+				scale = max(scale, abs(st.M.Max), abs(st.M.Min))
+				worst = max(worst, abs(st.M.Max-o.M.Max/1e6), abs(st.M.Min-o.M.Min/1e6))
+			}
+		}
+		if worst > 1e-9*scale {
+			t.Errorf("moments differ by %g of %g", worst, scale)
+		}
+	})
+}
+
+func runJob(t *testing.T, job *modelfile.Job) *analysis.Result {
+	t.Helper()
+	res, err := analysis.Run(context.Background(), &job.Job, analysis.Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	return res
+}
+
+func plausibleRun(t *testing.T, job *modelfile.Job) []string {
+	t.Helper()
+	return runJob(t, job).Warnings
 }
 
 func abs(v float64) float64 {

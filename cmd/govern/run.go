@@ -8,6 +8,7 @@ import (
 	"io"
 	"os"
 	"path/filepath"
+	"strings"
 
 	"govern/cmd/govern/modelfile"
 	"govern/envelope/analysis"
@@ -23,6 +24,7 @@ type runFlags struct {
 	crossCheck      bool
 	quiet           bool
 	acceptIll       bool
+	strict          bool
 }
 
 // options returns the analysis options the flags ask for, with progress
@@ -43,12 +45,13 @@ func (f *runFlags) add(fs *flag.FlagSet) {
 	fs.BoolVar(&f.comparePatterns, "compare-patterns", false, "report how far the code pattern arrangements fall short of exact placement, member by member, instead of the envelopes")
 	fs.BoolVar(&f.quiet, "quiet", false, "print nothing on success: no tables, no progress line (files are still written)")
 	fs.BoolVar(&f.crossCheck, "cross-check", false, "solve every case again by moment distribution and print the largest difference in member end moments")
+	fs.BoolVar(&f.strict, "strict", false, "treat every warning as an error: a model with numbers that look like a slip of units, or an ill-conditioned stiffness matrix, gives no results")
 	fs.BoolVar(&f.acceptIll, "accept-ill-conditioned", false, fmt.Sprintf("solve a model whose stiffness matrix has an estimated condition number above %.0e (fewer than three correct digits left), which is refused otherwise; every output then carries the estimate", frame.RefuseCond))
 }
 
 var cmdRun = &command{
 	name:  "run",
-	usage: "[--json FILE] [--csv FILE] [--report FILE.html | --out DIR] [--quiet] [--compare-patterns] [--cross-check] [--accept-ill-conditioned] MODEL.toml",
+	usage: "[--json FILE] [--csv FILE] [--report FILE.html | --out DIR] [--quiet] [--compare-patterns] [--cross-check] [--strict] [--accept-ill-conditioned] MODEL.toml",
 	short: "analyse a model and report its envelopes",
 	long: fmt.Sprintf(`
 Run reads the model file, solves every load case by the direct stiffness
@@ -120,8 +123,15 @@ applies to frames of horizontal beams and vertical columns whose joints are
 held vertically, with any number of storeys; for any other model the
 report says why it does not apply.
 
+Numbers that no building frame has are warned of, with the slip of
+units that would explain them: E outside 1 to 250 GPa, a radius of
+gyration √(I/A) outside 0.15 to 0.6 times a section's depth, a member's
+L/r below 4 or above 1000, a span of beams with span/deflection above
+20,000 or below 50 under the service combinations (docs/errors.md).
+With --strict every warning is an error, and no results are given.
+
 See docs/model-format.md for the model file and docs/conventions.md for
-the signs.`, analysis.StaticsLimit),
+the units and signs.`, analysis.StaticsLimit),
 	setup: func(fs *flag.FlagSet) func(*environ, []string) error {
 		f := &runFlags{}
 		f.add(fs)
@@ -175,6 +185,10 @@ func analyse(env *environ, job *modelfile.Job, name, path string, f *runFlags) e
 			return err
 		}
 		return located(job, name, err)
+	}
+	if f.strict && len(res.Warnings) > 0 {
+		p.end()
+		return strictError(name, res.Warnings)
 	}
 	p.phase("writing results", 0)
 	err = writeResults(env.stdout, path, f, res)
@@ -260,4 +274,19 @@ func writeResults(stdout io.Writer, model string, f *runFlags, res *analysis.Res
 		files.ForgetFolder(f.out)
 	}
 	return err
+}
+
+// strictError is the error of a run or check with warnings under
+// --strict: the warnings, each on a line of its own, as errors.
+func strictError(model string, warnings []string) error {
+	n := "1 warning"
+	if len(warnings) != 1 {
+		n = fmt.Sprintf("%d warnings", len(warnings))
+	}
+	var b strings.Builder
+	fmt.Fprintf(&b, "%s: %s, which --strict makes errors, so no results are given:", model, n)
+	for _, w := range warnings {
+		fmt.Fprintf(&b, "\n%s: %s", model, w)
+	}
+	return errors.New(b.String())
 }

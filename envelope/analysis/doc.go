@@ -20,9 +20,11 @@
 //
 // # Units and signs
 //
-// Every number is in the job's units (Job.Units are labels only; nothing
-// is converted): distances and deflections in its length unit, forces in
-// its force unit, moments in force × length. Forces follow package frame:
+// Every number is in the job's units (Job.Units; the analysis converts
+// nothing): distances and deflections in its length unit, forces in its
+// force unit, moments in force × length. Job.Units.Output names the units
+// the outputs show forces, moments and deflections in ([Units.Shown]);
+// the Result is in the model's units whatever they are. Forces follow package frame:
 // N positive in tension, M positive with the member's local −y face in
 // tension, V = dM/dx; x is measured from a member's start node; reactions
 // are global (+X right, +Y up, M counter-clockwise). Result.Shown gives a

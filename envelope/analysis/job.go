@@ -6,17 +6,80 @@ import (
 
 	"govern/combos"
 	"govern/frame"
+	"govern/frame/units"
 	"govern/patterns"
 )
 
-// Units are the labels of a job's numbers. They are labels only: no number
-// is ever converted.
+// Units are the units of a job's numbers: its force and length units,
+// from which every other follows (E in force/length², moments in
+// force·length), and the units its results are shown in. The analysis
+// itself never converts a number: every value of the model is in Force
+// and Length, and so is every value of the Result; only the outputs
+// (package report) show forces, moments and deflections in the units of
+// Output.
 type Units struct {
 	Force, Length string
+	// Output gives, per quantity of the results, the unit it is shown in;
+	// "" for the model's own. Each must be a unit package units reads, of
+	// its quantity's dimension, and then so must Force and Length:
+	// [Run] refuses a job whose output units cannot be converted to.
+	Output OutputUnits
 }
 
-// Moment returns the label of a moment, such as "kN·m".
+// OutputUnits are the units results are shown in, per quantity.
+type OutputUnits struct {
+	Force      string // N, V, the reactions Fx and Fy, the statics sums
+	Moment     string // M, reaction moments, end moments
+	Deflection string // deflections of members and spans
+}
+
+// Moment returns the label of a moment in the model's units, such as "kN·m".
 func (u Units) Moment() string { return u.Force + "·" + u.Length }
+
+// Shown is a quantity of the results as an output shows it: its unit's
+// label and the factor a value in the model's units is multiplied by.
+type Shown struct {
+	Label  string
+	Factor float64
+}
+
+// Of returns v in the shown unit.
+func (s Shown) Of(v float64) float64 { return v * s.Factor }
+
+// Shown returns how forces, moments and deflections are shown: in the
+// units of Output where given, else in the model's own (with factor 1).
+// The error names an output unit that cannot be converted to.
+func (u Units) Shown() (force, moment, deflection Shown, err error) {
+	force, moment, deflection = Shown{u.Force, 1}, Shown{u.Moment(), 1}, Shown{u.Length, 1}
+	if u.Output == (OutputUnits{}) {
+		return force, moment, deflection, nil
+	}
+	sys, err := units.NewSystem(u.Force, u.Length, "")
+	if err != nil {
+		return force, moment, deflection, fmt.Errorf("%w: the model's units (force %q, length %q) are not units that can be converted: %v", ErrUnits, u.Force, u.Length, err)
+	}
+	for _, o := range []struct {
+		label string
+		q     units.Quantity
+		dst   *Shown
+	}{{u.Output.Force, units.Force, &force}, {u.Output.Moment, units.Moment, &moment}, {u.Output.Deflection, units.Length, &deflection}} {
+		if o.label == "" {
+			continue
+		}
+		to, err := units.Parse(o.label)
+		if err == nil && to.Dim != o.q.Dim {
+			err = fmt.Errorf("%s is %s, not %s", to.Symbol, units.Describe(to.Dim), o.q.Name)
+		}
+		if err != nil {
+			return force, moment, deflection, fmt.Errorf("%w: output unit %q: %v", ErrUnits, o.label, err)
+		}
+		*o.dst = Shown{to.Symbol, sys.SI(o.q.Dim) / to.SI}
+	}
+	return force, moment, deflection, nil
+}
+
+// ErrUnits marks a job whose output units cannot be converted to.
+var ErrUnits = errors.New("units")
 
 // Settings are the options of the envelopes that belong to the job.
 type Settings struct {
@@ -238,6 +301,9 @@ func (j *Job) check() error {
 	}
 	if len(j.Combinations) == 0 {
 		return errors.New("analysis: the job has no load combinations")
+	}
+	if _, _, _, err := j.Units.Shown(); err != nil {
+		return err
 	}
 	for _, cb := range j.Combinations {
 		for _, t := range cb.Terms {

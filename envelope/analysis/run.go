@@ -3,6 +3,7 @@ package analysis
 import (
 	"context"
 	"fmt"
+	"slices"
 	"sync/atomic"
 
 	"govern/combos"
@@ -57,8 +58,9 @@ type Result struct {
 	// Info is the size of the stiffness equations, the same for every
 	// combination.
 	Info frame.Info
-	// Warnings are the solver's, such as a section no member can be
-	// built of or an ill-conditioned stiffness matrix.
+	// Warnings are the solver's, such as an ill-conditioned stiffness
+	// matrix, then those of numbers that look like a slip of units
+	// ([Plausibility], and span/deflection under the service combinations).
 	Warnings []string
 	// Faces holds, per member, the distances from its start of the faces
 	// of the columns it frames into at its start and end, -1 where there is
@@ -134,7 +136,8 @@ func Run(ctx context.Context, job *Job, opt Options) (*Result, error) {
 	if err := ctx.Err(); err != nil {
 		return nil, err
 	}
-	r := &Result{Job: job, lay: lay, sol: sol, Patterns: lay.Mode, Segments: lay.Segments, Info: sol.Info(), Warnings: sol.Warnings()}
+	r := &Result{Job: job, lay: lay, sol: sol, Patterns: lay.Mode, Segments: lay.Segments, Info: sol.Info(),
+		Warnings: append(slices.Clip(sol.Warnings()), Plausibility(job)...)}
 	r.Faces = ColumnFaces(job.Model)
 	r.Spans = spans(job.Model)
 	set := envelope.Settings{
@@ -211,6 +214,7 @@ func Run(ctx context.Context, job *Job, opt Options) (*Result, error) {
 			s.Deflection = r.spanDeflection(s)
 		}
 	}
+	r.Warnings = append(r.Warnings, newPlausibility(job).spanWarnings(r)...)
 	return r, nil
 }
 

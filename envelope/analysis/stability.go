@@ -1,6 +1,10 @@
 package analysis
 
-import "govern/frame"
+import (
+	"slices"
+
+	"govern/frame"
+)
 
 // Stability is what the stiffness of a job's frame says before any load
 // case is solved.
@@ -26,5 +30,6 @@ func CheckStability(job *Job, opt frame.Options) (*Stability, error) {
 	if err != nil {
 		return nil, err
 	}
-	return &Stability{Info: sol.Info(), Condition: sol.Cond(), Warnings: sol.Warnings()}, nil
+	warnings := append(slices.Clip(sol.Warnings()), Plausibility(job)...)
+	return &Stability{Info: sol.Info(), Condition: sol.Cond(), Warnings: warnings}, nil
 }

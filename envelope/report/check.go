@@ -17,7 +17,11 @@ func WriteCheck(w io.Writer, job *analysis.Job, st *analysis.Stability) {
 		fmt.Fprintf(w, "%s\n", Escape(job.Title))
 	}
 	supported, beams, cols := census(mo)
-	fmt.Fprintf(w, "units:          force %s, length %s\n", Escape(job.Units.Force), Escape(job.Units.Length))
+	if force, moment, defl, err := job.Units.Shown(); err == nil {
+		fmt.Fprintf(w, "units:          %s\n", Escape(unitsText(job.Units, force, moment, defl)))
+	} else {
+		fmt.Fprintf(w, "units:          force %s, length %s (%s)\n", Escape(job.Units.Force), Escape(job.Units.Length), Escape(err.Error()))
+	}
 	fmt.Fprintf(w, "nodes:          %d (%d supported)\n", len(mo.Nodes), supported)
 	fmt.Fprintf(w, "members:        %d (%d beams, %d columns, %d other)\n", len(mo.Members), beams, cols, len(mo.Members)-beams-cols)
 	fmt.Fprintf(w, "sections:       %d\n", len(mo.Sections))

@@ -13,6 +13,7 @@ import (
 // station (analysis.ComparePatterns), as a text table.
 func WriteComparison(w io.Writer, job *analysis.Job, rows []analysis.Shortfall) error {
 	u := job.Units
+	force, moment, _ := mustShown(u)
 	fmt.Fprintf(w, "How far the code arrangements (ACI 318-19 6.4, EN 1992-1-1 5.1.3) fall short of exact placement\n")
 	fmt.Fprintf(w, "at each member's worst station. Shortfall is in percent of the member's largest |value| of that\n")
 	fmt.Fprintf(w, "effect (M and V for beams; N, V and M for columns); + marks a piece loaded by exact placement\n")
@@ -25,15 +26,15 @@ func WriteComparison(w io.Writer, job *analysis.Job, rows []analysis.Shortfall) 
 			out = append(out, []string{name, "-", "-", "-", "-", "-", fixed(0), "none"})
 			continue
 		}
-		unit := u.Force
+		s := force
 		if r.Effect == 2 {
-			unit = u.Moment()
+			s = moment
 		}
 		side := "min"
 		if r.Max {
 			side = "max"
 		}
-		out = append(out, []string{name, fmt.Sprintf("%s (%s)", memberForces[r.Effect], unit), side, fixed(r.X), fixed(r.Exact), fixed(r.Code), fixed(r.Percent), strings.Join(r.Pieces, " ")})
+		out = append(out, []string{name, fmt.Sprintf("%s (%s)", memberForces[r.Effect], s.Label), side, fixed(r.X), fixed(s.Of(r.Exact)), fixed(s.Of(r.Code)), fixed(r.Percent), strings.Join(r.Pieces, " ")})
 	}
 	return renderTable(w, []string{"member", "effect", "extreme", "at x (" + u.Length + ")", "exact", "code", "shortfall (%)", "pieces that make the difference"}, out)
 }

@@ -62,7 +62,8 @@ func (p *Report) writeCrossCheck(w io.Writer) error {
 		}
 		return "differs"
 	}
-	unit := Escape(p.units().Moment())
+	m := p.moment // end moments in the output unit of moments
+	unit := Escape(m.Label)
 	fmt.Fprintf(w, "End moments in %s. Without axial strain: against the stiffness solver with every member's area multiplied by %s;\n", unit, sci(analysis.CrossCheckAreaFactor))
 	fmt.Fprintf(w, "the two must agree to %s of the case's largest end moment, plus the axial strain left (by the estimate below)\n", sci(analysis.CrossCheckRigidLimit))
 	if cc.RigidErr != nil {
@@ -71,7 +72,7 @@ func (p *Report) writeCrossCheck(w io.Writer) error {
 		fmt.Fprintf(w, "and the round-off of that solution (its condition estimate %s times 2^-52).\n", sci(cc.RigidCond))
 		t := newTable(w, "case", "largest difference", "at", "largest end moment", "relative", "limit", "check")
 		for _, c := range cc.Cases {
-			if err := t.Append([]string{c.Case, sci(c.Rigid.Difference), at(c.Rigid), fixed(c.RigidLargest), sci(c.RigidRelative),
+			if err := t.Append([]string{c.Case, sci(m.Of(c.Rigid.Difference)), at(c.Rigid), fixed(m.Of(c.RigidLargest)), sci(c.RigidRelative),
 				sci(c.RigidLimit), word(c.RigidAgrees())}); err != nil {
 				return err
 			}
@@ -88,11 +89,11 @@ func (p *Report) writeCrossCheck(w io.Writer) error {
 	}
 	t := newTable(w, "case", "largest difference", "axial strain estimate", "difference less estimate", "at", "limit", "check")
 	for _, c := range cc.Cases {
-		limit, check := fixed(c.Limit), word(c.GivenAgrees())
+		limit, check := fixed(m.Of(c.Limit)), word(c.GivenAgrees())
 		if !c.Estimated {
 			limit, check = "-", "not estimated"
 		}
-		if err := t.Append([]string{c.Case, fixed(c.Given.Difference), fixed(c.Axial), fixed(c.Corrected.Difference), at(c.Corrected),
+		if err := t.Append([]string{c.Case, fixed(m.Of(c.Given.Difference)), fixed(m.Of(c.Axial)), fixed(m.Of(c.Corrected.Difference)), at(c.Corrected),
 			limit, check}); err != nil {
 			return err
 		}

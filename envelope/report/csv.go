@@ -7,6 +7,7 @@ import (
 	"strings"
 
 	"govern/envelope"
+	"govern/envelope/analysis"
 )
 
 // CSVUnitHeader is the header of the CSV's unit column. It also says, where
@@ -22,9 +23,11 @@ const CSVUnitHeader = "unit (member axes: x from the start node; N + in tension;
 func (p *Report) WriteCSV(w io.Writer) error {
 	mo := p.model()
 	u := p.units()
+	f, m, d := p.force, p.moment, p.defl
 	cw := newCSVWriter(w)
+	fu, mu := " ("+f.Label+")", " ("+m.Label+")"
 	if err := cw.Write([]string{"member", "x (" + u.Length + ")", "effect", "max", "max_by", "min", "min_by", CSVUnitHeader,
-		"max_spans", "min_spans", "max_loaded", "min_loaded", "max_with_N", "max_with_V", "max_with_M", "min_with_N", "min_with_V", "min_with_M", "face"}); err != nil {
+		"max_spans", "min_spans", "max_loaded", "min_loaded", "max_with_N" + fu, "max_with_V" + fu, "max_with_M" + mu, "min_with_N" + fu, "min_with_V" + fu, "min_with_M" + mu, "face"}); err != nil {
 		return err
 	}
 	for _, em := range p.res.Envelope.Members {
@@ -35,19 +38,20 @@ func (p *Report) WriteCSV(w io.Writer) error {
 				face = "true"
 			}
 			for _, e := range []struct {
-				name, unit string
-				x          envelope.Extreme
-			}{{"N", u.Force, st.N}, {"V", u.Force, st.V}, {"M", u.Moment(), st.M}} {
-				x := e.x
-				if err := cw.Write([]string{name, position(st.X), e.name, num(x.Max), p.comboName(x.MaxBy), num(x.Min), p.comboName(x.MinBy), e.unit,
+				name string
+				s    analysis.Shown
+				x    envelope.Extreme
+			}{{"N", f, st.N}, {"V", f, st.V}, {"M", m, st.M}} {
+				x, s := e.x, e.s
+				if err := cw.Write([]string{name, position(st.X), e.name, num(s.Of(x.Max)), p.comboName(x.MaxBy), num(s.Of(x.Min)), p.comboName(x.MinBy), s.Label,
 					strings.Join(p.spanNames(x.MaxSpans), " "), strings.Join(p.spanNames(x.MinSpans), " "), strconv.Itoa(x.MaxLoaded), strconv.Itoa(x.MinLoaded),
-					num(x.MaxWith[0]), num(x.MaxWith[1]), num(x.MaxWith[2]), num(x.MinWith[0]), num(x.MinWith[1]), num(x.MinWith[2]), face}); err != nil {
+					num(f.Of(x.MaxWith[0])), num(f.Of(x.MaxWith[1])), num(m.Of(x.MaxWith[2])), num(f.Of(x.MinWith[0])), num(f.Of(x.MinWith[1])), num(m.Of(x.MinWith[2])), face}); err != nil {
 					return err
 				}
 			}
 			if em.Deflection != nil {
 				x := em.Deflection[k]
-				if err := cw.Write([]string{name, position(st.X), "deflection", num(x.Max), p.comboName(x.MaxBy), num(x.Min), p.comboName(x.MinBy), u.Length,
+				if err := cw.Write([]string{name, position(st.X), "deflection", num(d.Of(x.Max)), p.comboName(x.MaxBy), num(d.Of(x.Min)), p.comboName(x.MinBy), d.Label,
 					strings.Join(p.spanNames(x.MaxSpans), " "), strings.Join(p.spanNames(x.MinSpans), " "), strconv.Itoa(x.MaxLoaded), strconv.Itoa(x.MinLoaded),
 					"", "", "", "", "", "", face}); err != nil {
 					return err

@@ -135,41 +135,41 @@ func (p peaks) largest(j int) peak {
 func (p *Report) groupTables(g groupDesign) []Table {
 	mo := p.model()
 	u := p.units()
-	force, moment := u.Force, u.Moment()
+	force, moment, at := p.force.Label, p.moment.Label, "at x ("+u.Length+")"
 	if g.Kind != analysis.Floor {
-		return []Table{{g.title, columnHeader(force, moment), p.columnRows(g.Members)}}
+		return []Table{{g.title, columnHeader(force, moment, u.Length), p.columnRows(g.Members)}}
 	}
 	patterned := p.pieces() > 0
-	header := []string{"beam", "+M (" + moment + ")", "at x", "governing", "-M (" + moment + ")", "at x", "governing", "|V| (" + force + ")", "at x", "governing"}
+	header := []string{"beam", "+M (" + moment + ")", at, "governing", "-M (" + moment + ")", at, "governing", "|V| (" + force + ")", at, "governing"}
 	if patterned {
-		header = []string{"beam", "+M (" + moment + ")", "at x", "governing", "spans loaded", "-M (" + moment + ")", "at x", "governing", "spans loaded", "|V| (" + force + ")", "at x", "governing"}
+		header = []string{"beam", "+M (" + moment + ")", at, "governing", "spans loaded", "-M (" + moment + ")", at, "governing", "spans loaded", "|V| (" + force + ")", at, "governing"}
 	}
 	var rows [][]string
 	for _, m := range g.Members {
 		pk := memberPeaks(p.shown(m))
 		v := pk.largest(1)
-		row := []string{mo.Members[m].Name, fixed(pk.hi[2].v), fixed(pk.hi[2].x), p.comboName(pk.hi[2].by)}
+		row := []string{mo.Members[m].Name, fixed(p.moment.Of(pk.hi[2].v)), fixed(pk.hi[2].x), p.comboName(pk.hi[2].by)}
 		if patterned {
 			row = append(row, p.shortSpans(pk.hi[2].spans, pk.hi[2].loaded))
 		}
-		row = append(row, fixed(pk.lo[2].v), fixed(pk.lo[2].x), p.comboName(pk.lo[2].by))
+		row = append(row, fixed(p.moment.Of(pk.lo[2].v)), fixed(pk.lo[2].x), p.comboName(pk.lo[2].by))
 		if patterned {
 			row = append(row, p.shortSpans(pk.lo[2].spans, pk.lo[2].loaded))
 		}
-		row = append(row, fixed(v.v), fixed(v.x), p.comboName(v.by))
+		row = append(row, fixed(p.force.Of(v.v)), fixed(v.x), p.comboName(v.by))
 		rows = append(rows, row)
 	}
 	out := []Table{{g.title, header, rows}}
 	if !p.res.HasFaces(g.Members) {
 		return out
 	}
-	header = []string{"beam", "support", "M min, centreline (" + moment + ")", "governing", "M min, face (" + moment + ")", "face at x", "governing",
+	header = []string{"beam", "support", "M min, centreline (" + moment + ")", "governing", "M min, face (" + moment + ")", "face at x (" + u.Length + ")", "governing",
 		"|V| centreline (" + force + ")", "governing", "|V| face (" + force + ")", "governing"}
 	return append(out, Table{g.title + ": at the supports, centreline and column face", header, p.supportRows(g.Members)})
 }
 
-func columnHeader(force, moment string) []string {
-	return []string{"member", "N max (" + force + ")", "with M", "governing", "N min (" + force + ")", "with M", "governing", "|M| (" + moment + ")", "at x", "governing", "|V| (" + force + ")", "governing"}
+func columnHeader(force, moment, length string) []string {
+	return []string{"member", "N max (" + force + ")", "with M (" + moment + ")", "governing", "N min (" + force + ")", "with M (" + moment + ")", "governing", "|M| (" + moment + ")", "at x (" + length + ")", "governing", "|V| (" + force + ")", "governing"}
 }
 
 // columnRows gives, per member, the largest tension and compression (N is
@@ -181,11 +181,12 @@ func (p *Report) columnRows(members []int) [][]string {
 	for _, m := range members {
 		pk := memberPeaks(p.shown(m))
 		mm, v := pk.largest(2), pk.largest(1)
+		f, mf := p.force.Of, p.moment.Of
 		rows = append(rows, []string{mo.Members[m].Name,
-			fixed(pk.hi[0].v), fixed(pk.hi[0].with[2]), p.comboName(pk.hi[0].by),
-			fixed(pk.lo[0].v), fixed(pk.lo[0].with[2]), p.comboName(pk.lo[0].by),
-			fixed(mm.v), fixed(mm.x), p.comboName(mm.by),
-			fixed(v.v), p.comboName(v.by)})
+			fixed(f(pk.hi[0].v)), fixed(mf(pk.hi[0].with[2])), p.comboName(pk.hi[0].by),
+			fixed(f(pk.lo[0].v)), fixed(mf(pk.lo[0].with[2])), p.comboName(pk.lo[0].by),
+			fixed(mf(mm.v)), fixed(mm.x), p.comboName(mm.by),
+			fixed(f(v.v)), p.comboName(v.by)})
 	}
 	return rows
 }
@@ -220,12 +221,12 @@ func (p *Report) supportRows(beams []int) [][]string {
 				cl = em.Stations[len(em.Stations)-1]
 			}
 			vcl, vclBy := largestShear(cl)
-			row := []string{mo.Members[m].Name, mo.Nodes[node].Name, fixed(cl.M.Min), p.comboName(cl.M.MinBy)}
+			row := []string{mo.Members[m].Name, mo.Nodes[node].Name, fixed(p.moment.Of(cl.M.Min)), p.comboName(cl.M.MinBy)}
 			if f, ok := analysis.FaceStation(em, at, end); ok {
 				vf, vby := largestShear(f)
-				row = append(row, fixed(f.M.Min), fixed(f.X), p.comboName(f.M.MinBy), fixed(vcl), p.comboName(vclBy), fixed(vf), p.comboName(vby))
+				row = append(row, fixed(p.moment.Of(f.M.Min)), fixed(f.X), p.comboName(f.M.MinBy), fixed(p.force.Of(vcl)), p.comboName(vclBy), fixed(p.force.Of(vf)), p.comboName(vby))
 			} else {
-				row = append(row, "-", "-", "-", fixed(vcl), p.comboName(vclBy), "-", "-")
+				row = append(row, "-", "-", "-", fixed(p.force.Of(vcl)), p.comboName(vclBy), "-", "-")
 			}
 			rows = append(rows, row)
 		}
@@ -247,7 +248,6 @@ func (p *Report) reactionTable() *Table {
 		return nil
 	}
 	mo := p.model()
-	u := p.units()
 	// The largest size of each component over every support, for what
 	// counts as zero.
 	var largest [3]float64
@@ -272,12 +272,13 @@ func (p *Report) reactionTable() *Table {
 		name := node.Name
 		for d, e := range []struct {
 			label string
+			s     analysis.Shown
 			x     envelope.Extreme
-		}{{"Fx (" + u.Force + ")", r.Fx}, {"Fy (" + u.Force + ")", r.Fy}, {"M (" + u.Moment() + ")", r.M}} {
+		}{{"Fx (" + p.force.Label + ")", p.force, r.Fx}, {"Fy (" + p.force.Label + ")", p.force, r.Fy}, {"M (" + p.moment.Label + ")", p.moment, r.M}} {
 			if !node.Reacts(d) {
 				continue
 			}
-			rows = append(rows, []string{name, e.label, fixed(e.x.Max), by(d, e.x.Max, e.x.MaxBy), fixed(e.x.Min), by(d, e.x.Min, e.x.MinBy)})
+			rows = append(rows, []string{name, e.label, fixed(e.s.Of(e.x.Max)), by(d, e.x.Max, e.x.MaxBy), fixed(e.s.Of(e.x.Min)), by(d, e.x.Min, e.x.MinBy)})
 			name = ""
 		}
 	}
@@ -341,30 +342,29 @@ func (p *Report) deflectionTable() *Table {
 		row := []string{p.spanName(r), kind, p.spanMembers(r), level, fixed(r.Length)}
 		// A span that never moves one way has nothing to show for it.
 		if s.Down.V < 0 {
-			row = append(row, sig4(s.Down.V), fixed(s.Down.X), p.comboName(s.Down.By))
+			row = append(row, sig4(p.defl.Of(s.Down.V)), fixed(s.Down.X), p.comboName(s.Down.By))
 		} else {
 			row = append(row, "0", "-", "-")
 		}
 		if s.Up.V > 0 {
-			row = append(row, sig4(s.Up.V), fixed(s.Up.X), p.comboName(s.Up.By))
+			row = append(row, sig4(p.defl.Of(s.Up.V)), fixed(s.Up.X), p.comboName(s.Up.By))
 		} else {
 			row = append(row, "0", "-", "-")
 		}
 		rows = append(rows, append(row, ratio(s.Ratio)))
 	}
-	l := u.Length
-	title := fmt.Sprintf("Deflection of spans and cantilevers, service combinations (+ up, in %s; x from the left end): spans from the chord between their displaced ends, cantilevers from their displaced root", l)
+	l, d := u.Length, p.defl.Label
+	title := fmt.Sprintf("Deflection of spans and cantilevers, service combinations (+ up; deflections in %s, x in %s from the left end): spans from the chord between their displaced ends, cantilevers from their displaced root", d, l)
 	if p.hasRidges() {
 		title += "; rafters (the straight parts of a run that changes slope) from the chord between their displaced ends; a ridge or valley, where the slope changes, across the line between the ends of its run, from the chord between them"
 	}
-	return &Table{title, []string{"span", "kind", "members", "level", "length (" + l + ")", "down (" + l + ")", "at x", "governing", "up (" + l + ")", "at x", "governing", "span/deflection (cantilever: 2 × length)"}, rows}
+	return &Table{title, []string{"span", "kind", "members", "level", "length (" + l + ")", "down (" + d + ")", "at x (" + l + ")", "governing", "up (" + d + ")", "at x (" + l + ")", "governing", "span/deflection (cantilever: 2 × length)"}, rows}
 }
 
 // staticsTable gives the statics check of every case, with the note
 // above it.
 func (p *Report) staticsTable() (string, Table) {
 	bs := p.res.Statics
-	u := p.units()
 	limit := analysis.StaticsLimit
 	if len(bs) > 0 {
 		limit = bs[0].Limit()
@@ -374,15 +374,17 @@ func (p *Report) staticsTable() (string, Table) {
 		about = fmt.Sprintf("(%s, %s), the lower left corner of the frame", shortest(bs[0].X0), shortest(bs[0].Y0))
 	}
 	note := fmt.Sprintf("\nStatics check of each load case: sums about %s, forces in %s, moments in %s;\n"+
-		"largest joint residual as force / moment; out of balance as a fraction of the load, limit %.2g", about, u.Force, u.Moment(), limit)
+		"largest joint residual as force / moment; out of balance as a fraction of the load, limit %.2g", about, p.force.Label, p.moment.Label, limit)
 	var rows [][]string
 	for _, b := range bs {
 		check := "ok"
 		if !b.OK() {
 			check = "FAIL"
 		}
-		rows = append(rows, []string{b.Case, fixed(b.Applied.Fx), fixed(b.Reactions.Fx), fixed(b.Applied.Fy), fixed(b.Reactions.Fy),
-			fixed(b.Applied.M), fixed(b.Reactions.M), sci(b.JointForce) + " / " + sci(b.JointMoment), sci(b.Relative()), check})
+		f, m := p.force.Of, p.moment.Of
+		rows = append(rows, []string{b.Case, fixed(f(b.Applied.Fx)), fixed(f(b.Reactions.Fx)), fixed(f(b.Applied.Fy)), fixed(f(b.Reactions.Fy)),
+			fixed(m(b.Applied.M)), fixed(m(b.Reactions.M)), sci(f(b.JointForce)) + " / " + sci(m(b.JointMoment)), sci(b.Relative()), check})
 	}
-	return note, Table{"", []string{"case", "loads ΣFx", "reactions ΣFx", "loads ΣFy", "reactions ΣFy", "loads ΣM", "reactions ΣM", "joint residual", "out of balance", "check"}, rows}
+	fu, mu := " ("+p.force.Label+")", " ("+p.moment.Label+")"
+	return note, Table{"", []string{"case", "loads ΣFx" + fu, "reactions ΣFx" + fu, "loads ΣFy" + fu, "reactions ΣFy" + fu, "loads ΣM" + mu, "reactions ΣM" + mu, "joint residual (" + p.force.Label + " / " + p.moment.Label + ")", "out of balance", "check"}, rows}
 }

@@ -54,10 +54,21 @@ type DiffResult struct {
 	Changes  []Change // in the order of the new file (then those only in the old)
 }
 
-// DiffUnits are the labels of a file's numbers, as its "units" gives them.
+// DiffUnits are the units of a file's numbers, as its "units" gives them:
+// forces, lengths (x, span lengths), moments and deflections. A file
+// written before moments and deflections had output units of their own
+// gives force and length only; its moments are then in force·length and
+// its deflections in the length unit (readDesignValues fills them in).
 type DiffUnits struct {
-	Force  string `json:"force"`
-	Length string `json:"length"`
+	Force      string `json:"force"`
+	Length     string `json:"length"`
+	Moment     string `json:"moment"`
+	Deflection string `json:"deflection"`
+}
+
+// String names the units for a message: "kN, m, kN·m and mm".
+func (u DiffUnits) String() string {
+	return u.Force + ", " + u.Length + ", " + u.Moment + " and " + u.Deflection
 }
 
 // diffFile is the part of the JSON a comparison reads.
@@ -115,8 +126,8 @@ func Diff(oldName string, old []byte, newName string, new []byte, opt DiffOption
 		return nil, err
 	}
 	if a.units != b.units {
-		return nil, fmt.Errorf("%s is in %s and %s, %s in %s and %s: the values cannot be compared",
-			oldName, a.units.Force, a.units.Length, newName, b.units.Force, b.units.Length)
+		return nil, fmt.Errorf("%s is in %s (force, length, moment, deflection), %s in %s: the values cannot be compared; write both with the same units (the model's [units], output units included)",
+			oldName, a.units, newName, b.units)
 	}
 	d := &DiffResult{Old: oldName, New: newName, Units: b.units, Options: opt}
 	seen := make(map[string]bool, len(a.values))
@@ -199,7 +210,14 @@ func readDesignValues(name string, data []byte) (*designValues, error) {
 	if f.Units == nil {
 		return nil, fmt.Errorf("%s: %w: it has no \"units\"", name, ErrNotResults)
 	}
-	dv := &designValues{units: *f.Units, values: map[string]namedValue{}, largest: map[string]float64{}}
+	u := *f.Units
+	if u.Moment == "" {
+		u.Moment = u.Force + "·" + u.Length
+	}
+	if u.Deflection == "" {
+		u.Deflection = u.Length
+	}
+	dv := &designValues{units: u, values: map[string]namedValue{}, largest: map[string]float64{}}
 	for i, m := range f.Members {
 		if m.Name == nil {
 			return nil, fmt.Errorf("%s: %w: member %d has no \"name\"", name, ErrNotResults, i+1)
@@ -308,15 +326,14 @@ func lineAt(data []byte, off int64) int {
 // then reactions, each with both values and the combinations that govern
 // them.
 func (d *DiffResult) WriteText(w io.Writer) error {
-	moment := d.Units.Force + "·" + d.Units.Length
 	fmt.Fprintf(w, "Design values of %s (old) and %s (new): %d in both files; %d listed, changed by more than %s %% of the\nlarger value and by more than %s %% of the largest value of that quantity in the member (node, span), or in one file only.\n",
 		Escape(d.Old), Escape(d.New), d.Compared, len(d.Changes), shortest(100*d.Options.Relative), shortest(100*d.Options.Floor))
 	if len(d.Changes) == 0 {
 		return nil
 	}
 	defer fmt.Fprintf(w, "\n%s\n", Caution)
-	fmt.Fprintf(w, "Forces in %s, moments in %s, x and deflections in %s; members in their own axes (x from the start node).\n",
-		Escape(d.Units.Force), Escape(moment), Escape(d.Units.Length))
+	fmt.Fprintf(w, "Forces in %s, moments in %s, x in %s, deflections in %s; members in their own axes (x from the start node).\n",
+		Escape(d.Units.Force), Escape(d.Units.Moment), Escape(d.Units.Length), Escape(d.Units.Deflection))
 	for _, kind := range []struct {
 		title string
 		kinds []string

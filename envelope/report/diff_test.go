@@ -231,8 +231,31 @@ func TestDiffBadFiles(t *testing.T) {
 	t.Run("different units", func(t *testing.T) {
 		other := bytes.Replace(good, []byte(`"force": "kN"`), []byte(`"force": "kip"`), 1)
 		_, err := Diff("good.json", good, "kip.json", other, DefaultDiffOptions)
-		if err == nil || !strings.Contains(err.Error(), "good.json is in kN and m, kip.json in kip and m") {
+		if err == nil || !strings.Contains(err.Error(), "good.json is in kN, m, kN·m and m (force, length, moment, deflection), kip.json in kip, m, kN·m and m: the values cannot be compared") {
 			t.Errorf("err = %v", err)
+		}
+	})
+	t.Run("different output units of deflection", func(t *testing.T) {
+		other := bytes.Replace(good, []byte(`"deflection": "m"`), []byte(`"deflection": "mm"`), 1)
+		if bytes.Equal(other, good) {
+			t.Fatal("no deflection unit in the file")
+		}
+		_, err := Diff("good.json", good, "mm.json", other, DefaultDiffOptions)
+		if err == nil || !strings.Contains(err.Error(), "good.json is in kN, m, kN·m and m (force, length, moment, deflection), mm.json in kN, m, kN·m and mm") {
+			t.Errorf("err = %v", err)
+		}
+	})
+	t.Run("a file that gives force and length only", func(t *testing.T) {
+		// Written before moments and deflections had units of their own:
+		// its moments are in kN·m and its deflections in m, as the new
+		// file's.
+		old := bytes.Replace(good, []byte(`"units": {"force": "kN", "length": "m", "moment": "kN·m", "deflection": "m"}`), []byte(`"units": {"force": "kN", "length": "m"}`), 1)
+		if bytes.Equal(old, good) {
+			t.Fatal("units not as expected")
+		}
+		d, err := Diff("old.json", old, "good.json", good, DefaultDiffOptions)
+		if err != nil || len(d.Changes) != 0 || d.Compared == 0 {
+			t.Errorf("err = %v, %d changes of %d", err, len(d.Changes), d.Compared)
 		}
 	})
 }

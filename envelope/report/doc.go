@@ -17,9 +17,13 @@
 //
 // # Units and signs
 //
-// Numbers keep the job's units, whose labels head every column: forces in
-// its force unit, moments in force·length, distances and deflections in
-// its length unit. The terminal tables and the page show each beam or
+// Forces, moments and deflections are shown in the job's output units
+// (analysis.Units.Output; by default the model's own: forces in its force
+// unit, moments in force·length, deflections in its length unit), through
+// one factor each (analysis.Units.Shown) applied where the number is
+// written; distances and positions stay in the model's length unit. Every
+// column of a number has its unit in its header, and the JSON and CSV
+// state theirs (the JSON's units, the CSV's unit column and headers). The terminal tables and the page show each beam or
 // rafter from its left end, +M sagging and deflections positive up
 // (analysis.Result.Shown), and columns from their start node with M
 // positive with their local −y face in tension; the JSON and the CSV keep

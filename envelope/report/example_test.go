@@ -47,7 +47,7 @@ func ExampleReport_Tables() {
 	}
 	// Output:
 	// Beams at level 0 (y = 0.00 m)
-	// beam | +M (kN·m) | at x | governing | -M (kN·m) | at x | governing | |V| (kN) | at x | governing
+	// beam | +M (kN·m) | at x (m) | governing | -M (kN·m) | at x (m) | governing | |V| (kN) | at x (m) | governing
 	// a-b | 35.28 | 3.60 | 1.4D | -63.00 | 0.00 | 1.4D | 52.50 | 0.00 | 1.4D
 	// Reactions (global: +X right, +Y up, M counter-clockwise)
 	// node | component | max | governing | min | governing

@@ -4,6 +4,8 @@ import (
 	"fmt"
 	"math"
 	"strconv"
+
+	"govern/envelope/analysis"
 )
 
 // Every number the outputs show is formatted here.
@@ -186,4 +188,10 @@ func mib(n int) string { return fmt.Sprintf("%d MiB", (n+1<<20-1)>>20) }
 func isNumber(s string) bool {
 	_, err := strconv.ParseFloat(s, 64)
 	return err == nil
+}
+
+// shownShort formats a value written on a diagram (short) in the unit s
+// shows it in.
+func shownShort(s analysis.Shown) func(float64) string {
+	return func(v float64) string { return short(s.Of(v)) }
 }

@@ -81,8 +81,8 @@ func (p *Report) WriteHTML(w io.Writer) error {
 	h.raw("<!DOCTYPE html>\n<html xmlns=\"http://www.w3.org/1999/xhtml\" lang=\"en\">\n<head>\n<meta charset=\"utf-8\"/>\n")
 	h.printf("<title>%s</title>\n<style>%s</style>\n</head>\n<body>\n", esc(title), reportStyle)
 	h.printf("<header>\n<h1>%s</h1>\n", esc(title))
-	h.printf("<p class=\"meta\">Envelopes of N, V and M by the direct stiffness method; %s; units: force %s, length %s.</p>\n",
-		esc(p.combinationCount()), esc(job.Units.Force), esc(job.Units.Length))
+	h.printf("<p class=\"meta\">Envelopes of N, V and M by the direct stiffness method; %s; %s.</p>\n",
+		esc(p.combinationCount()), esc(p.unitsText()))
 	h.printf("<p class=\"caution\"><strong>Caution.</strong> %s</p>\n", esc(Caution))
 	if note := p.conditionNote(); note != "" {
 		h.printf("<p class=\"caution\">%s</p>\n", esc(note))
@@ -176,7 +176,7 @@ func (p *Report) htmlModel(h *htmlOut) {
 	supported, beams, cols := census(mo)
 	h.raw("<section id=\"model\">\n<h2>Model</h2>\n")
 	rows := [][]string{
-		{"units", fmt.Sprintf("force %s, length %s; moments in %s (labels only: no unit is converted)", u.Force, u.Length, u.Moment())},
+		{"units", p.unitsText()},
 		{"nodes", fmt.Sprintf("%d, %d supported", len(mo.Nodes), supported)},
 		{"members", fmt.Sprintf("%d: %d beams, %d columns, %d other", len(mo.Members), beams, cols, len(mo.Members)-beams-cols)},
 		{"equations", fmt.Sprintf("%d free degrees of freedom, half-bandwidth %d", p.res.Info.Equations, p.res.Info.Bandwidth)},
@@ -225,9 +225,9 @@ func (p *Report) htmlModel(h *htmlOut) {
 	}
 	for c, cs := range mo.Cases {
 		b := p.res.Statics[c].Applied
-		rows = append(rows, []string{cs.Name, job.Cases[c].Kind.String(), yes(patterned[c]), yes(reversible(job, c)), strconv.Itoa(len(cs.MemberLoads)), strconv.Itoa(len(cs.NodeLoads)), fixed(b.Fx), fixed(b.Fy)})
+		rows = append(rows, []string{cs.Name, job.Cases[c].Kind.String(), yes(patterned[c]), yes(reversible(job, c)), strconv.Itoa(len(cs.MemberLoads)), strconv.Itoa(len(cs.NodeLoads)), fixed(p.force.Of(b.Fx)), fixed(p.force.Of(b.Fy))})
 	}
-	tb.table(Table{"Load cases", []string{"case", "kind", "patterned", "reversible", "member loads", "node loads", "ΣFx (" + u.Force + ")", "ΣFy (" + u.Force + ")"}, rows})
+	tb.table(Table{"Load cases", []string{"case", "kind", "patterned", "reversible", "member loads", "node loads", "ΣFx (" + p.force.Label + ")", "ΣFy (" + p.force.Label + ")"}, rows})
 	h.raw("</section>\n")
 }
 
@@ -235,7 +235,6 @@ func (p *Report) htmlModel(h *htmlOut) {
 // table of beam deflections below their figure.
 func (p *Report) htmlFigures(h *htmlOut) error {
 	mo := p.model()
-	u := p.units()
 	d := newDrawing(mo)
 	all := make([]int, len(mo.Members))
 	var cols []int
@@ -271,20 +270,20 @@ func (p *Report) htmlFigures(h *htmlOut) error {
 		}
 	}
 	figure("moment", "Moment envelope", "moment envelope",
-		fmt.Sprintf("Bending moment M (%s) over %s, along every member, drawn on the tension side: sagging below a beam. Values: the larger in size at each end, and the largest sagging moment where it peaks within a member.", esc(u.Moment()), over),
-		all, diagram{get: forces(2), side: -1, ends: true, span: true, format: short})
+		fmt.Sprintf("Bending moment M (%s) over %s, along every member, drawn on the tension side: sagging below a beam. Values: the larger in size at each end, and the largest sagging moment where it peaks within a member.", esc(p.moment.Label), over),
+		all, diagram{get: forces(2), side: -1, ends: true, span: true, format: shownShort(p.moment)})
 	figure("shear", "Shear envelope", "shear envelope",
-		fmt.Sprintf("Shear force V (%s) over %s, positive drawn above a beam and on the local +y side of a column (left of a column drawn upwards). Values: the larger in size at each end.", esc(u.Force), over),
-		all, diagram{get: forces(1), side: 1, ends: true, format: short})
+		fmt.Sprintf("Shear force V (%s) over %s, positive drawn above a beam and on the local +y side of a column (left of a column drawn upwards). Values: the larger in size at each end.", esc(p.force.Label), over),
+		all, diagram{get: forces(1), side: 1, ends: true, format: shownShort(p.force)})
 	if len(cols) > 0 {
 		figure("axial", "Axial force envelope of the columns", "axial force envelope",
-			fmt.Sprintf("Axial force N (%s) of the columns over %s, tension positive, drawn on the local +y side (left of a column drawn upwards). Value at mid-height: smallest / largest.", esc(u.Force), over),
-			cols, diagram{get: forces(0), side: 1, middle: true, format: short})
+			fmt.Sprintf("Axial force N (%s) of the columns over %s, tension positive, drawn on the local +y side (left of a column drawn upwards). Value at mid-height: smallest / largest.", esc(p.force.Label), over),
+			cols, diagram{get: forces(0), side: 1, middle: true, format: shownShort(p.force)})
 	}
 	if p.service() > 0 {
 		figure("deflection", "Deflection envelope", "deflection envelope",
-			fmt.Sprintf("Deflection (%s) over the service combinations, drawn as it moves, exaggerated: of beams and rafters from the chord between the displaced ends of their span, or for a cantilever from its displaced root; of columns from their own chord. Value: the largest of each span and cantilever, with span/deflection (twice the length for a cantilever).", esc(u.Length)),
-			all, diagram{get: analysis.ShownDeflection, side: 1, sag: true, format: sig4})
+			fmt.Sprintf("Deflection (%s) over the service combinations, drawn as it moves, exaggerated: of beams and rafters from the chord between the displaced ends of their span, or for a cantilever from its displaced root; of columns from their own chord. Value: the largest of each span and cantilever, with span/deflection (twice the length for a cantilever).", esc(p.defl.Label)),
+			all, diagram{get: analysis.ShownDeflection, side: 1, sag: true, format: func(v float64) string { return sig4(p.defl.Of(v)) }})
 		// The table below the figure is the terminal's.
 		if t := p.tables().deflection; t != nil {
 			return htmlTables{h: h, heading: "h3"}.table(*t)
@@ -302,10 +301,11 @@ func (p *Report) stationTable(h *htmlOut, members []int) {
 	defl := p.service() > 0
 	cols := 14
 	h.raw("<h4>Stations</h4>\n<table class=\"st\">\n<thead><tr>")
-	head := []string{"x (" + u.Length + ")", "", "N max (" + u.Force + ")", "comb.", "N min (" + u.Force + ")", "comb.",
-		"V max (" + u.Force + ")", "comb.", "V min (" + u.Force + ")", "comb.", "M max (" + u.Moment() + ")", "comb.", "M min (" + u.Moment() + ")", "comb."}
+	f, mu := p.force.Label, p.moment.Label
+	head := []string{"x (" + u.Length + ")", "", "N max (" + f + ")", "comb.", "N min (" + f + ")", "comb.",
+		"V max (" + f + ")", "comb.", "V min (" + f + ")", "comb.", "M max (" + mu + ")", "comb.", "M min (" + mu + ")", "comb."}
 	if defl {
-		head = append(head, "δ max ("+u.Length+")", "comb.", "δ min ("+u.Length+")", "comb.")
+		head = append(head, "δ max ("+p.defl.Label+")", "comb.", "δ min ("+p.defl.Label+")", "comb.")
 		cols += 4
 	}
 	for _, c := range head {
@@ -342,17 +342,18 @@ func (p *Report) stationTable(h *htmlOut, members []int) {
 			} else {
 				h.raw("<td></td>")
 			}
-			for _, e := range [3]envelope.Extreme{st.N, st.V, st.M} {
-				cell(e.Max, fixed)
+			for k, e := range [3]envelope.Extreme{st.N, st.V, st.M} {
+				s := [3]analysis.Shown{p.force, p.force, p.moment}[k]
+				cell(s.Of(e.Max), fixed)
 				by(e.MaxBy, e.MaxSpans, e.MaxLoaded)
-				cell(e.Min, fixed)
+				cell(s.Of(e.Min), fixed)
 				by(e.MinBy, e.MinSpans, e.MinLoaded)
 			}
 			if defl {
 				e := analysis.ShownDeflection(em, i)
-				cell(e.Max, sig4)
+				cell(p.defl.Of(e.Max), sig4)
 				by(e.MaxBy, e.MaxSpans, e.MaxLoaded)
-				cell(e.Min, sig4)
+				cell(p.defl.Of(e.Min), sig4)
 				by(e.MinBy, e.MinSpans, e.MinLoaded)
 			}
 			h.raw("</tr>\n")

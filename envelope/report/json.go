@@ -37,7 +37,10 @@ func (p *Report) WriteJSON(w io.Writer) error {
 	}
 	j.raw("{\n \"format\": ").str(JSONFormat)
 	j.raw(",\n \"title\": ").str(job.Title)
-	j.raw(",\n \"units\": {\"force\": ").str(job.Units.Force).raw(", \"length\": ").str(job.Units.Length).raw("}")
+	// The units of the numbers in the file: forces, moments and
+	// deflections in the output units, lengths and positions in the model's.
+	j.raw(",\n \"units\": {\"force\": ").str(p.force.Label).raw(", \"length\": ").str(job.Units.Length)
+	j.raw(", \"moment\": ").str(p.moment.Label).raw(", \"deflection\": ").str(p.defl.Label).raw("}")
 	j.raw(",\n \"signs\": ").str(jsonSigns)
 	j.raw(",\n \"settings\": {\"stations\": ").int(env.Settings.Stations)
 	j.raw(", \"variable_loads\": ").str(variableLoads(env.Settings.AsWritten))
@@ -72,16 +75,20 @@ func (p *Report) WriteJSON(w io.Writer) error {
 		j.raw("}, \"service\": ").boolean(cb.Service).raw("}")
 	}
 	j.raw("\n ],\n \"members\": [")
-	ext := func(name string, e envelope.Extreme, with [3]string) {
-		j.raw("\"").raw(name).raw("\": {\"max\": ").num(e.Max).raw(", \"max_by\": ").bytes(nameOf(combo, e.MaxBy))
-		j.raw(", \"max_spans\": ").list(piece, e.MaxSpans).raw(", \"max_loaded\": ").int(e.MaxLoaded).raw(", \"max_with\": ").forces(with, e.MaxWith)
-		j.raw(", \"min\": ").num(e.Min).raw(", \"min_by\": ").bytes(nameOf(combo, e.MinBy))
-		j.raw(", \"min_spans\": ").list(piece, e.MinSpans).raw(", \"min_loaded\": ").int(e.MinLoaded).raw(", \"min_with\": ").forces(with, e.MinWith).raw("}")
+	// Each effect in its output unit: N, V and Fx, Fy forces, M moments.
+	shown := [3]analysis.Shown{p.force, p.force, p.moment}
+	ext := func(name string, d int, e envelope.Extreme, with [3]string) {
+		s := shown[d]
+		j.raw("\"").raw(name).raw("\": {\"max\": ").num(s.Of(e.Max)).raw(", \"max_by\": ").bytes(nameOf(combo, e.MaxBy))
+		j.raw(", \"max_spans\": ").list(piece, e.MaxSpans).raw(", \"max_loaded\": ").int(e.MaxLoaded).raw(", \"max_with\": ").forces(with, e.MaxWith, shown)
+		j.raw(", \"min\": ").num(s.Of(e.Min)).raw(", \"min_by\": ").bytes(nameOf(combo, e.MinBy))
+		j.raw(", \"min_spans\": ").list(piece, e.MinSpans).raw(", \"min_loaded\": ").int(e.MinLoaded).raw(", \"min_with\": ").forces(with, e.MinWith, shown).raw("}")
 	}
 	defl := func(e envelope.Extreme) {
-		j.raw("\"deflection\": {\"max\": ").num(e.Max).raw(", \"max_by\": ").bytes(nameOf(combo, e.MaxBy))
+		d := p.defl
+		j.raw("\"deflection\": {\"max\": ").num(d.Of(e.Max)).raw(", \"max_by\": ").bytes(nameOf(combo, e.MaxBy))
 		j.raw(", \"max_spans\": ").list(piece, e.MaxSpans).raw(", \"max_loaded\": ").int(e.MaxLoaded)
-		j.raw(", \"min\": ").num(e.Min).raw(", \"min_by\": ").bytes(nameOf(combo, e.MinBy))
+		j.raw(", \"min\": ").num(d.Of(e.Min)).raw(", \"min_by\": ").bytes(nameOf(combo, e.MinBy))
 		j.raw(", \"min_spans\": ").list(piece, e.MinSpans).raw(", \"min_loaded\": ").int(e.MinLoaded).raw("}")
 	}
 	for i, em := range env.Members {
@@ -94,11 +101,11 @@ func (p *Report) WriteJSON(w io.Writer) error {
 			if st.Extra {
 				j.raw("\"face\": true, ")
 			}
-			ext("N", st.N, memberForces)
+			ext("N", 0, st.N, memberForces)
 			j.raw(", ")
-			ext("V", st.V, memberForces)
+			ext("V", 1, st.V, memberForces)
 			j.raw(", ")
-			ext("M", st.M, memberForces)
+			ext("M", 2, st.M, memberForces)
 			if em.Deflection != nil {
 				j.raw(", ")
 				defl(em.Deflection[k])
@@ -125,7 +132,7 @@ func (p *Report) WriteJSON(w io.Writer) error {
 		for d, e := range [3]envelope.Extreme{r.Fx, r.Fy, r.M} {
 			if keys[d] != "" {
 				j.raw(", ")
-				ext(keys[d], e, keys)
+				ext(keys[d], d, e, keys)
 			}
 		}
 		j.raw("}")
@@ -133,13 +140,13 @@ func (p *Report) WriteJSON(w io.Writer) error {
 	j.raw("\n ],\n \"statics\": [")
 	for i, b := range p.res.Statics {
 		res := func(r frame.Resultant) {
-			j.raw("{\"Fx\": ").num(r.Fx).raw(", \"Fy\": ").num(r.Fy).raw(", \"M\": ").num(r.M).raw("}")
+			j.raw("{\"Fx\": ").num(p.force.Of(r.Fx)).raw(", \"Fy\": ").num(p.force.Of(r.Fy)).raw(", \"M\": ").num(p.moment.Of(r.M)).raw("}")
 		}
 		j.sep(i, ",").raw("\n  {\"case\": ").str(b.Case).raw(", \"loads\": ")
 		res(b.Applied)
 		j.raw(", \"reactions\": ")
 		res(b.Reactions)
-		j.raw(", \"joint_residual\": {\"force\": ").num(b.JointForce).raw(", \"moment\": ").num(b.JointMoment).raw("}")
+		j.raw(", \"joint_residual\": {\"force\": ").num(p.force.Of(b.JointForce)).raw(", \"moment\": ").num(p.moment.Of(b.JointMoment)).raw("}")
 		j.raw(", \"relative\": ").num(b.Relative()).raw(", \"limit\": ").num(b.Limit())
 		if b.OK() {
 			j.raw(", \"ok\": true}")
@@ -177,7 +184,7 @@ func (p *Report) jsonSpans(j *jsonWriter, combo [][]byte) {
 			j.sep(k, ", ").str(mo.Members[m].Name)
 		}
 		j.raw("], \"length\": ").num(r.Length)
-		j.raw(", \"deflection\": ").num(s.Largest.V).raw(", \"x\": ").num(s.Largest.X).raw(", \"by\": ").bytes(nameOf(combo, s.Largest.By))
+		j.raw(", \"deflection\": ").num(p.defl.Of(s.Largest.V)).raw(", \"x\": ").num(s.Largest.X).raw(", \"by\": ").bytes(nameOf(combo, s.Largest.By))
 		if !math.IsInf(s.Ratio, 0) {
 			j.raw(", \"ratio\": ").num(s.Ratio)
 		}
@@ -263,16 +270,16 @@ func (j *jsonWriter) list(names [][]byte, idx []int) *jsonWriter {
 	return j.raw("]")
 }
 
-// forces writes v as an object with the given keys; an empty key leaves
-// its value out.
-func (j *jsonWriter) forces(keys [3]string, v [3]float64) *jsonWriter {
+// forces writes v as an object with the given keys, each value in its
+// shown unit; an empty key leaves its value out.
+func (j *jsonWriter) forces(keys [3]string, v [3]float64, shown [3]analysis.Shown) *jsonWriter {
 	j.raw("{")
 	n := 0
 	for i, k := range keys {
 		if k == "" {
 			continue
 		}
-		j.sep(n, ", ").raw("\"").raw(k).raw("\": ").num(v[i])
+		j.sep(n, ", ").raw("\"").raw(k).raw("\": ").num(shown[i].Of(v[i]))
 		n++
 	}
 	return j.raw("}")

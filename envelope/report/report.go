@@ -23,12 +23,32 @@ const Caution = "Results are for checking by a qualified engineer. They do not r
 type Report struct {
 	res *analysis.Result
 
+	// How forces, moments and deflections are shown: the unit of each,
+	// and the factor from the model's (analysis.Units.Shown). Every value
+	// of those quantities an output writes goes through its Of.
+	force, moment, defl analysis.Shown
+
 	once   sync.Once
 	design *design
 }
 
 // New returns the report of res.
-func New(res *analysis.Result) *Report { return &Report{res: res} }
+func New(res *analysis.Result) *Report {
+	p := &Report{res: res}
+	p.force, p.moment, p.defl = mustShown(res.Job.Units)
+	return p
+}
+
+// mustShown returns how u shows forces, moments and deflections; analysis.Run
+// refuses a job whose output units cannot be converted to, so a failure
+// here is a programmer's error.
+func mustShown(u analysis.Units) (force, moment, defl analysis.Shown) {
+	force, moment, defl, err := u.Shown()
+	if err != nil {
+		panic("report: " + err.Error())
+	}
+	return force, moment, defl
+}
 
 // job and env are shorthands.
 func (p *Report) job() *analysis.Job          { return p.res.Job }
@@ -168,4 +188,19 @@ func census(mo *frame.Model) (supported, beams, columns int) {
 		}
 	}
 	return supported, beams, columns
+}
+
+// unitsText says what units the outputs show: forces, moments, lengths
+// (positions, lengths, coordinates) and deflections, and the model's own
+// where they differ.
+func (p *Report) unitsText() string {
+	return unitsText(p.units(), p.force, p.moment, p.defl)
+}
+
+func unitsText(u analysis.Units, force, moment, defl analysis.Shown) string {
+	s := fmt.Sprintf("force %s, moment %s, length %s, deflection %s", force.Label, moment.Label, u.Length, defl.Label)
+	if force.Label != u.Force || moment.Label != u.Moment() || defl.Label != u.Length {
+		s += fmt.Sprintf(" (the model's values are in %s and %s)", u.Force, u.Length)
+	}
+	return s
 }

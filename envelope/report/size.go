@@ -38,7 +38,7 @@ func CheckSize(job *analysis.Job, f Formats) error {
 		member = max(member, jsonLen(m.Name))
 	}
 	u := job.Units
-	unit := max(len(u.Force), len(u.Moment()))
+	unit := max(len(u.Force), len(u.Moment()), len(u.Output.Force), len(u.Output.Moment), len(u.Output.Deflection))
 	for _, o := range []struct {
 		asked bool
 		what  string

@@ -321,5 +321,5 @@ func (p *Report) deflectionLabel(m int) (int, float64, string, bool) {
 	if !s.Found || s.Largest.By < 0 || s.Largest.V == 0 || s.Largest.Member != m {
 		return 0, 0, "", false
 	}
-	return s.Largest.Station, s.Largest.V, sig4(s.Largest.V) + " (" + ratio(s.Ratio) + ")", true
+	return s.Largest.Station, s.Largest.V, sig4(p.defl.Of(s.Largest.V)) + " (" + ratio(s.Ratio) + ")", true
 }

@@ -134,5 +134,5 @@ func (p *Report) writeHeading(w io.Writer) {
 	if note := p.conditionNote(); note != "" {
 		fmt.Fprintf(w, "%s\n", note)
 	}
-	fmt.Fprintf(w, "Units: force %s, length %s. N tension positive; %s: x from the left end, M sagging positive (lower face in tension); columns: local -y face in tension; V = dM/dx.\n\n", Escape(job.Units.Force), Escape(job.Units.Length), p.shownFromLeft())
+	fmt.Fprintf(w, "Units: %s. N tension positive; %s: x from the left end, M sagging positive (lower face in tension); columns: local -y face in tension; V = dM/dx.\n\n", Escape(p.unitsText()), p.shownFromLeft())
 }

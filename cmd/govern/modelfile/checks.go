@@ -48,6 +48,7 @@ type checks struct {
 	memberLoads  int  // member loads so far
 	loadsRefused bool // the member load limit has been reported
 
+	sets     memberSets       // what each member's [[member]] table gives
 	selected map[string][]int // members each selector picks, by canonical selector
 	levelYs  []float64        // r.levels(), once computed
 	lineXs   []float64        // r.lines(), once computed

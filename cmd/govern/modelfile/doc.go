@@ -1,8 +1,12 @@
 // Package modelfile reads a govern model file (TOML) into a frame model,
 // its load combinations and the analysis settings.
 //
-// The format is described in docs/model-format.md. Every number in a file is
-// in the units its [units] table declares; the reader does not convert.
+// The format is described in docs/model-format.md. A plain number in a
+// file is in the units its [units] table declares; a value may also be a
+// string of a number and a unit, such as "2.4 kip/ft", which the reader
+// converts to them (package frame/units). Each key with a dimension is
+// read with its quantity (walk.go: table.qty, qtyOK, qtys), so that a
+// unit of another dimension is refused at its line.
 //
 // [ReadSet] reads a combination rule file (docs/combinations.md) into a
 // combos.Set; [Read] calls it for the file a model's [combinations] table

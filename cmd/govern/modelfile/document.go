@@ -5,6 +5,8 @@ import (
 	"fmt"
 
 	"github.com/BurntSushi/toml"
+
+	"govern/frame/units"
 )
 
 // doc is one TOML document being read, a model file or a rule file: its
@@ -20,6 +22,14 @@ type doc struct {
 	// reported a problem (the rule file reader's, so that a problem the
 	// checks of the set find again is reported once).
 	failed map[*table][]string
+
+	// units is the model's system of units, to which values written with
+	// a unit are converted; nil for a rule file (whose numbers have no
+	// unit) and while [units] is not known. unitsBad: [units] has a
+	// problem, already reported, so that a value with a unit cannot be
+	// converted and is passed over in silence.
+	units    *units.System
+	unitsBad bool
 }
 
 // MaxProblems is the most problems a file's [ErrorList] lists; the rest

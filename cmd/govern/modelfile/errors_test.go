@@ -71,14 +71,16 @@ func TestReadBadInput(t *testing.T) {
 			want: "m.toml:28: unknown key \"combinaton\" (did you mean \"combination\"?) at the top level", sentinel: ErrUnknownKey},
 
 		// Types: the key and the type expected.
-		{name: "number given as a string", edit: []string{"E = 200e6", `E = "200e6"`},
-			want: `m.toml:3: section "S": E must be a number, not a string`, sentinel: ErrType},
+		{name: "number given as a string without a unit", edit: []string{"E = 200e6", `E = "200e6"`},
+			want: `m.toml:3: section "S": E = "200e6": "200e6" has no unit: write the number without quotes for the model's own units, or give a unit, such as "200e6 MPa"`, sentinel: ErrValue},
+		{name: "a boolean where a number with a unit is due", edit: []string{"E = 200e6", `E = true`},
+			want: `m.toml:3: section "S": E must be a number, or a string of a number and a unit such as "12 kN", not a boolean`, sentinel: ErrType},
 		{name: "integer expected", edit: []string{"[[section]]", "[analysis]\nstations = 5.5\n[[section]]"},
 			want: `m.toml:2: [analysis]: stations must be an integer, not a number`, sentinel: ErrType},
 		{name: "boolean expected", edit: []string{`kind = "dead"`, "kind = \"dead\"\nself_weight = \"yes\""},
 			want: `m.toml:23: case "G": self_weight must be true or false, not a string`, sentinel: ErrType},
-		{name: "depth given as a string", edit: []string{"I = 1e-4", "I = 1e-4\ndepth = \"deep\""},
-			want: `m.toml:6: section "S": depth must be a number, not a string`, sentinel: ErrType},
+		{name: "depth given as a word", edit: []string{"I = 1e-4", "I = 1e-4\ndepth = \"deep\""},
+			want: `m.toml:6: section "S": depth = "deep": "deep" is not a number followed by a unit, such as "12 m"`, sentinel: ErrValue},
 		{name: "service given as a number", edit: []string{"factors = { G = 1.4 }", "factors = { G = 1.4 }\nservice = 1"},
 			want: `m.toml:31: combination "1.4G": service must be true or false, not an integer`, sentinel: ErrType},
 		{name: "a node named by a number is reported once", edit: []string{`start = "a"`, `start = 1`},
@@ -90,6 +92,30 @@ func TestReadBadInput(t *testing.T) {
 		{name: "factor of the wrong type, at its line", edit: []string{"factors = { G = 1.4 }", "\nfactors = { G = \"1.4\" }"},
 			want: `m.toml:31: combination "1.4G": G must be a number, not a string`, sentinel: ErrType},
 
+		// Values with a unit, and [units].
+		{name: "an unknown unit, with the one meant", edit: []string{"E = 200e6", `E = "29000 kis"`},
+			want: `m.toml:3: section "S": E = "29000 kis": "kis" is not a unit govern knows (did you mean "ksi"?)`, sentinel: ErrValue},
+		{name: "a unit of the wrong dimension", edit: []string{"  P = 2", `  P = "2 kN/m"`},
+			want: `m.toml:26: case "G", load 1: P = "2 kN/m": kN/m is a force per length, where a force is due (such as kN or kip)`, sentinel: ErrValue},
+		{name: "a length where a force per length is due", edit: []string{"type = \"point\"\n  on = \"a-b\"\n  P = 2\n  at = 1", "type = \"udl\"\n  on = \"a-b\"\n  w = \"2.4 ft\""},
+			want: `m.toml:26: case "G", load 1: w = "2.4 ft": ft is a length, where a force per length is due (such as kN/m or kip/ft)`, sentinel: ErrValue},
+		{name: "a unit that cannot be read", edit: []string{"x = 5\n", "x = \"5 m m\"\n"},
+			want: `m.toml:13: node "b": x = "5 m m": in "m m", " " cannot follow m; join symbols with * or · (such as kN*m)`, sentinel: ErrValue},
+		{name: "an unknown force unit in [units]", edit: []string{"[[section]]", "[units]\nforce = \"tonf\"\n[[section]]"},
+			want: `m.toml:2: [units]: force = "tonf": "tonf" is not a unit govern knows`, sentinel: ErrValue},
+		{name: "a length given as the force unit, and no value with a unit checked after it", edit: []string{"[[section]]", "[units]\nforce = \"m\"\n[[section]]", "E = 200e6", `E = "200 GPa"`},
+			want: `m.toml:2: [units]: force = "m": m is a length, not a force (such as kN or kip)`, sentinel: ErrValue},
+		{name: "a misspelt length unit", edit: []string{"[[section]]", "[units]\nlength = \"MM\"\n[[section]]"},
+			want: `m.toml:2: [units]: length = "MM": "MM" is not a unit govern knows (did you mean "mm"?)`, sentinel: ErrValue},
+		{name: "a rotation as the temperature unit", edit: []string{"[[section]]", "[units]\ntemperature = \"rad\"\n[[section]]"},
+			want: `m.toml:2: [units]: temperature = "rad": rad is a rotation, not a temperature difference (such as K, °C or °F)`, sentinel: ErrValue},
+		{name: "an output moment unit that is a force", edit: []string{"[[section]]", "[units]\nmoment = \"kip\"\n[[section]]"},
+			want: `m.toml:2: [units]: moment = "kip": kip is a force, not a moment (force × length) (such as kN·m or kip·ft)`, sentinel: ErrValue},
+		{name: "an output deflection unit that is a moment", edit: []string{"[[section]]", "[units]\ndeflection = \"kN*m\"\n[[section]]"},
+			want: `m.toml:2: [units]: deflection = "kN*m": kN·m is a moment (force × length), not a length (such as m, mm or ft)`, sentinel: ErrValue},
+		{name: "a unit given as a number", edit: []string{"[[section]]", "[units]\nforce = 1000\n[[section]]"},
+			want: `m.toml:2: [units]: force must be a string, not an integer`, sentinel: ErrType},
+
 		// References.
 		{name: "unknown node", edit: []string{`end = "b"`, `end = "c"`},
 			want: `m.toml:18: member 1: end = "c": no such node`, sentinel: ErrReference},
@@ -98,7 +124,7 @@ func TestReadBadInput(t *testing.T) {
 		{name: "unknown case in a combination", edit: []string{"{ G = 1.4 }", "{ G = 1.2, Q = 1.6 }"},
 			want: `m.toml:30: combination "1.4G": factors: no case named "Q"`, sentinel: ErrReference},
 		{name: "unknown member in a selector", edit: []string{`on = "a-b"`, `on = "a_b"`},
-			want: `m.toml:25: case "G", load 1: selector "a_b": no member of that name, and not one of "level N", "roof", "line A", "all beams", "all columns" (did you mean "a-b"?)`, sentinel: ErrReference},
+			want: `m.toml:25: case "G", load 1: selector "a_b": no member of that name, and not one of "level N", "roof", "storey N", "line A", "all beams", "all columns", a range such as "level 1-3", or several joined by " & " (did you mean "a-b"?)`, sentinel: ErrReference},
 		{name: "unknown node in a node load", edit: []string{"type = \"point\"\n  on = \"a-b\"\n  P = 2\n  at = 1", "type = \"node\"\n  node = \"B\"\n  fy = -2"},
 			want: `m.toml:25: case "G", load 1: node = "B": no such node (did you mean "b"?)`, sentinel: ErrReference},
 		{name: "selector that matches nothing", edit: []string{`on = "a-b"`, `on = "all columns"`},
@@ -167,13 +193,13 @@ func TestReadBadInput(t *testing.T) {
 		// Names that read as selectors: a member so named
 		// would capture the selector.
 		{name: "member named like a selector", edit: []string{"[[case]]", "[[node]]\nname = \"c\"\nx = 9\ny = 0\n[[member]]\nname = \"all beams\"\nstart = \"b\"\nend = \"c\"\nsection = \"S\"\n[[case]]"},
-			want: `m.toml:25: member "all beams": the name "all beams" reads as a member selector ("level N", "roof", "line A", "all beams", "all columns"): choose another name`, sentinel: ErrValue},
+			want: `m.toml:25: member "all beams": the name "all beams" reads as a member selector ("level N", "roof", "storey N", "line A", "all beams", "all columns", a range such as "level 1-3", or several joined by " & "): choose another name`, sentinel: ErrValue},
 		{name: "member named like a level", edit: []string{"[[case]]", "[[node]]\nname = \"c\"\nx = 9\ny = 0\n[[member]]\nname = \"level 0\"\nstart = \"b\"\nend = \"c\"\nsection = \"S\"\n[[case]]"},
-			want: `m.toml:25: member "level 0": the name "level 0" reads as a member selector ("level N", "roof", "line A", "all beams", "all columns"): choose another name`, sentinel: ErrValue},
+			want: `m.toml:25: member "level 0": the name "level 0" reads as a member selector ("level N", "roof", "storey N", "line A", "all beams", "all columns", a range such as "level 1-3", or several joined by " & "): choose another name`, sentinel: ErrValue},
 		{name: "member named roof", edit: []string{"[[case]]", "[[node]]\nname = \"c\"\nx = 9\ny = 0\n[[member]]\nname = \"roof\"\nstart = \"b\"\nend = \"c\"\nsection = \"S\"\n[[case]]"},
-			want: `m.toml:25: member "roof": the name "roof" reads as a member selector ("level N", "roof", "line A", "all beams", "all columns"): choose another name`, sentinel: ErrValue},
+			want: `m.toml:25: member "roof": the name "roof" reads as a member selector ("level N", "roof", "storey N", "line A", "all beams", "all columns", a range such as "level 1-3", or several joined by " & "): choose another name`, sentinel: ErrValue},
 		{name: "member whose default name reads as a line", edit: []string{"name = \"a\"", "name = \"line B\"", "start = \"a\"", "start = \"line B\"", `on = "a-b"`, `on = "all beams"`},
-			want: `m.toml:16: member 1: the name "line B-b" reads as a member selector ("level N", "roof", "line A", "all beams", "all columns"): choose another name`, sentinel: ErrValue},
+			want: `m.toml:16: member 1: the name "line B-b" reads as a member selector ("level N", "roof", "storey N", "line A", "all beams", "all columns", a range such as "level 1-3", or several joined by " & "): choose another name`, sentinel: ErrValue},
 
 		// A member picked twice by one load: refused, naming the
 		// member and both selectors.

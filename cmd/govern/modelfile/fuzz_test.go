@@ -26,12 +26,13 @@ var sentinels = []error{ErrSyntax, ErrUnknownKey, ErrType, ErrMissing, ErrValue,
 const fuzzSolveLimit = 300
 
 // seedFiles lists the model files the fuzz target starts from: the
-// demonstration model and the models of testdata, good and bad, but for
-// the large generated grids, which add nothing but time.
+// demonstration model and the models of testdata, good and bad, and those
+// with values written with units (testdata/units), but for the large
+// generated grids, which add nothing but time.
 func seedFiles(t testing.TB) []string {
 	t.Helper()
 	seeds := []string{filepath.Join("..", "demo.toml")}
-	for _, pattern := range []string{"*.toml", filepath.Join("bad", "*.toml")} {
+	for _, pattern := range []string{"*.toml", filepath.Join("bad", "*.toml"), filepath.Join("units", "*.toml")} {
 		m, err := filepath.Glob(filepath.Join("..", "..", "..", "testdata", pattern))
 		if err != nil {
 			t.Fatal(err)

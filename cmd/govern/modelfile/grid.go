@@ -1,14 +1,13 @@
 package modelfile
 
 import (
-	"errors"
 	"fmt"
 	"math"
 	"sort"
 	"strconv"
-	"strings"
 
 	"govern/frame"
+	"govern/frame/units"
 )
 
 // Grid records the regular frame a [grid] table generated: column lines
@@ -60,7 +59,7 @@ func (r *reader) readGrid(t *table) {
 			t.fail("", problem(ErrValue, "no frame is generated until the problems in [grid] are corrected; until then, what refers to its nodes, members, levels and lines is not checked"))
 		}
 	}()
-	bays, storeys := t.nums("bays"), t.nums("storeys")
+	bays, storeys := t.qtys("bays", units.Length), t.qtys("storeys", units.Length)
 	ok := t.has("bays") && t.has("storeys") && bays != nil && storeys != nil
 	if t.need("bays") && emptyArray(t.m["bays"]) {
 		t.fail("bays", problem(ErrValue, "bays is empty: give at least one bay width"))
@@ -111,7 +110,7 @@ func (r *reader) readGrid(t *table) {
 	if t.need("beam") {
 		beam, okB = r.section(t, "beam")
 	}
-	spacing, okSp := t.numOK("spacing", 0)
+	spacing, okSp := t.qtyOK("spacing", units.Length, 0)
 	if okSp && !(spacing > 0) {
 		t.fail("spacing", problem(ErrValue, "spacing = %g: must be greater than zero", spacing))
 		spacing = 0
@@ -229,95 +228,4 @@ func distinct(nodes []frame.Node, f func(frame.Node) float64) []float64 {
 		}
 	}
 	return out
-}
-
-// selectorWords lists the keyword selectors, for messages.
-const selectorWords = `"level N", "roof", "line A", "all beams", "all columns"`
-
-// isSelector reports whether s reads as a keyword selector (whether or not
-// the level or line it names exists), so that no member may be named s.
-func isSelector(s string) bool {
-	if s == "roof" || s == "all beams" || s == "all columns" {
-		return true
-	}
-	f := strings.Fields(s)
-	return len(f) == 2 && (f[0] == "level" || f[0] == "line")
-}
-
-// errNoSuchMember marks a selector that is neither a member name nor a
-// keyword selector; its message is empty so that it adds nothing when wrapped.
-var errNoSuchMember = errors.New("")
-
-// selectMembers resolves a member selector: a member name, "level N",
-// "roof", "line A", "all beams" or "all columns". The members each keyword
-// selector picks are found once and kept, so the slice returned is shared:
-// callers must not modify it.
-func (r *reader) selectMembers(sel string) ([]int, error) {
-	mo := r.job.Model
-	if i, ok := r.members[sel]; ok {
-		return []int{i}, nil
-	}
-	var pick func(m int) bool
-	key := sel // canonical form, under which the members picked are kept
-	f := strings.Fields(sel)
-	switch {
-	case sel == "all beams":
-		pick = mo.IsBeam
-	case sel == "all columns":
-		pick = mo.IsColumn
-	case sel == "roof" || (len(f) == 2 && f[0] == "level"):
-		lv := r.levels()
-		if len(lv) == 0 {
-			return nil, fmt.Errorf("selector %q: the model has no nodes, so no levels", sel)
-		}
-		n := len(lv) - 1
-		if sel != "roof" {
-			var err error
-			n, err = strconv.Atoi(f[1])
-			if err != nil || n < 0 || n >= len(lv) {
-				return nil, fmt.Errorf("selector %q: levels are numbered 0 to %d", sel, len(lv)-1)
-			}
-		}
-		y := lv[n]
-		key = "level " + strconv.Itoa(n)
-		pick = func(m int) bool {
-			return mo.IsBeam(m) && math.Abs(mo.Nodes[mo.Members[m].Start].Y-y) <= coordTol
-		}
-	case len(f) == 2 && f[0] == "line":
-		ls := r.lines()
-		if len(ls) == 0 {
-			return nil, fmt.Errorf("selector %q: the model has no nodes, so no column lines", sel)
-		}
-		n := lineIndex(f[1])
-		if n < 0 || n >= len(ls) {
-			return nil, fmt.Errorf("selector %q: column lines are A to %s", sel, LineName(len(ls)-1))
-		}
-		x := ls[n]
-		key = "line " + LineName(n)
-		pick = func(m int) bool {
-			return mo.IsColumn(m) && math.Abs(mo.Nodes[mo.Bottom(m)].X-x) <= coordTol
-		}
-	default:
-		msg := fmt.Sprintf("selector %q: no member of that name, and not one of %s", sel, selectorWords)
-		if s := r.suggest(sel, r.members); s != "" {
-			msg += fmt.Sprintf(" (did you mean %q?)", s)
-		}
-		return nil, fmt.Errorf("%s%w", msg, errNoSuchMember)
-	}
-	out, done := r.selected[key]
-	if !done {
-		for m := range mo.Members {
-			if pick(m) {
-				out = append(out, m)
-			}
-		}
-		if r.selected == nil {
-			r.selected = map[string][]int{}
-		}
-		r.selected[key] = out
-	}
-	if len(out) == 0 {
-		return nil, fmt.Errorf("selector %q matches no member", sel)
-	}
-	return out, nil
 }

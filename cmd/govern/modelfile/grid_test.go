@@ -35,7 +35,9 @@ func TestGridProblemIsReportedOnce(t *testing.T) {
 		want string
 	}{
 		{"a string among the bays", []string{"bays = [6.0, 4.0]", `bays = [6.0, "4"]`},
-			"m.toml:9: [grid]: bays[2] must be a number, not a string"},
+			`m.toml:9: [grid]: bays[2] = "4": "4" has no unit: write the number without quotes for the model's own units, or give a unit, such as "4 m"`},
+		{"a force among the bays", []string{"bays = [6.0, 4.0]", `bays = [6.0, "4 kN"]`},
+			`m.toml:9: [grid]: bays[2] = "4 kN": kN is a force, where a length is due (such as m, mm or ft)`},
 		{"a negative storey", []string{"storeys = [4.0, 3.0]", "storeys = [4.0, -3.0]"},
 			"m.toml:10: [grid]: storeys[2] = -3: must be greater than zero"},
 		// Lines or levels within the coincidence tolerance (1e-9) of each

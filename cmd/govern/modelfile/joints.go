@@ -5,6 +5,7 @@ import (
 	"slices"
 
 	"govern/frame"
+	"govern/frame/units"
 )
 
 // The supports and joints of a model: support (a named kind or the
@@ -60,8 +61,12 @@ func (r *reader) support(t *table, def frame.Support) frame.Support {
 	return s
 }
 
-// springKeys are the springs of a node, by direction.
-var springKeys = [3]string{"kx", "ky", "kr"}
+// springKeys are the springs of a node, by direction, and their
+// quantities.
+var (
+	springKeys = [3]string{"kx", "ky", "kr"}
+	springQty  = [3]units.Quantity{units.Spring, units.Spring, units.RotSpring}
+)
 
 // springs reads the elastic supports of a node, in the directions its
 // support s leaves free: kx and ky are stiffnesses (force/length, such as
@@ -70,8 +75,7 @@ var springKeys = [3]string{"kx", "ky", "kr"}
 func (r *reader) springs(t *table, s frame.Support, def [3]float64) [3]float64 {
 	out := def
 	for d, key := range springKeys {
-		// kx, ky: stiffness, force/length; kr: rotational stiffness, force·length/radian.
-		k, ok := t.numOK(key, 0)
+		k, ok := t.qtyOK(key, springQty[d], 0)
 		if !ok {
 			if !t.has(key) && s.Restrained(d) {
 				out[d] = 0 // a support that now holds the direction replaces a spring
@@ -97,8 +101,7 @@ func (r *reader) springs(t *table, s frame.Support, def [3]float64) [3]float64 {
 // gives itself (start, end), which [analysis] rigid_zones leaves.
 func (r *reader) memberEnds(t *table, mem *frame.Member, l float64) (own [2]bool) {
 	for side, key := range [2]string{"spring_start", "spring_end"} {
-		// Rotational stiffness, force·length/radian (kN·m/rad).
-		k, ok := t.numOK(key, 0)
+		k, ok := t.qtyOK(key, units.RotSpring, 0)
 		if !ok {
 			continue
 		}
@@ -122,8 +125,7 @@ func (r *reader) memberEnds(t *table, mem *frame.Member, l float64) (own [2]bool
 		}
 	}
 	for side, key := range [2]string{"offset_start", "offset_end"} {
-		// Length.
-		a, ok := t.numOK(key, 0)
+		a, ok := t.qtyOK(key, units.Length, 0)
 		if !ok {
 			continue
 		}

@@ -6,6 +6,7 @@ import (
 	"slices"
 
 	"govern/frame"
+	"govern/frame/units"
 )
 
 // readLoad reads one [[case.load]] table into c.
@@ -24,7 +25,7 @@ func (r *reader) readLoad(t *table, c *frame.Case) {
 	switch typ {
 	case "node":
 		n, ok := r.node(t, "node")
-		nl := frame.NodeLoad{Node: n, Fx: t.num("fx", 0), Fy: t.num("fy", 0), M: t.num("m", 0)}
+		nl := frame.NodeLoad{Node: n, Fx: t.qty("fx", units.Force, 0), Fy: t.qty("fy", units.Force, 0), M: t.qty("m", units.Moment, 0)}
 		if ok {
 			c.NodeLoads = append(c.NodeLoads, nl)
 			r.noteMoment(t, nl)
@@ -43,7 +44,7 @@ func (r *reader) readLoad(t *table, c *frame.Case) {
 	}
 	var members []int
 	if t.need("on") {
-		members = r.selectAll(t)
+		members = r.selectAll(t, true)
 	}
 	if !r.budget(t, "on", len(members)) {
 		members = nil
@@ -51,9 +52,9 @@ func (r *reader) readLoad(t *table, c *frame.Case) {
 	switch typ {
 	case "udl":
 		has := t.need("w")
-		w := t.num("w", 0)                            // force/length
-		w2 := t.num("w2", w)                          // force/length, at to
-		from, to := t.num("from", 0), t.num("to", -1) // lengths
+		w := t.qty("w", units.LineLoad, 0)
+		w2 := t.qty("w2", units.LineLoad, w) // at to
+		from, to := t.qty("from", units.Length, 0), t.qty("to", units.Length, -1)
 		if !has {
 			return
 		}
@@ -72,8 +73,8 @@ func (r *reader) readLoad(t *table, c *frame.Case) {
 	case "moment":
 		hasM := t.need("m")
 		hasAt := t.need("at")
-		mv := t.num("m", 0)  // moment, force·length, counter-clockwise
-		at := t.num("at", 0) // length
+		mv := t.qty("m", units.Moment, 0) // counter-clockwise
+		at := t.qty("at", units.Length, 0)
 		if !hasM || !hasAt {
 			return
 		}
@@ -85,15 +86,18 @@ func (r *reader) readLoad(t *table, c *frame.Case) {
 			c.MemberLoads = append(c.MemberLoads, frame.MemberLoad{Member: m, Moment: true, At: at, M: mv})
 		}
 	case "temperature":
-		dT := t.num("dT", 0)         // temperature difference
-		g := t.num("dT_gradient", 0) // temperature difference, local +y face less local −y face
+		dT := t.qty("dT", units.TempDiff, 0)
+		g := t.qty("dT_gradient", units.TempDiff, 0) // local +y face less local −y face
 		if !t.has("dT") && !t.has("dT_gradient") {
 			t.fail("", problem(ErrMissing, "a temperature load needs dT (a uniform change), dT_gradient (the local +y face less the local -y face) or both"))
 			return
 		}
 		for _, m := range members {
-			sec := &mo.Sections[mo.Members[m].Section]
+			si := mo.Members[m].Section
+			sec := &mo.Sections[si]
 			switch {
+			case !(sec.Alpha > 0) && r.thermal[si][0], g != 0 && !(sec.Depth > 0) && r.thermal[si][1]:
+				return // the section's alpha or depth is wrong, reported there
 			case !(sec.Alpha > 0):
 				key := "dT"
 				if !t.has(key) {
@@ -110,7 +114,7 @@ func (r *reader) readLoad(t *table, c *frame.Case) {
 	case "point":
 		hasP := t.need("P")
 		hasAt := t.need("at")
-		p, at := t.num("P", 0), t.num("at", 0)
+		p, at := t.qty("P", units.Force, 0), t.qty("at", units.Length, 0)
 		if !hasP || !hasAt {
 			return
 		}
@@ -123,7 +127,7 @@ func (r *reader) readLoad(t *table, c *frame.Case) {
 		}
 	case "area":
 		has := t.need("q")
-		q := t.num("q", 0)
+		q := t.qty("q", units.Pressure, 0)
 		if !has {
 			return
 		}
@@ -172,8 +176,11 @@ func (r *reader) noteMoment(t *table, nl frame.NodeLoad) {
 var loadTypes = []string{"udl", "point", "moment", "area", "temperature", "node", "displacement"}
 
 // displacementKeys are the components of an imposed displacement, by
-// direction.
-var displacementKeys = [3]string{"dx", "dy", "rz"}
+// direction, and their quantities.
+var (
+	displacementKeys = [3]string{"dx", "dy", "rz"}
+	displacementQty  = [3]units.Quantity{units.Length, units.Length, units.Rotation}
+)
 
 // readDisplacement reads a displacement imposed on a supported node (a
 // settlement): dx and dy, lengths (dy positive up, so a settlement is
@@ -184,8 +191,7 @@ func (r *reader) readDisplacement(t *table, c *frame.Case) {
 	var v [3]float64
 	given := false
 	for d, key := range displacementKeys {
-		// dx, dy: length; rz: rotation, radians.
-		v[d] = t.num(key, 0)
+		v[d] = t.qty(key, displacementQty[d], 0)
 		given = given || t.has(key)
 	}
 	if !given {
@@ -209,9 +215,10 @@ func (r *reader) readDisplacement(t *table, c *frame.Case) {
 	c.Displacements = append(c.Displacements, frame.NodeDisplacement{Node: n, Ux: v[0], Uy: v[1], Rz: v[2]})
 }
 
-// selectAll returns the members that the selectors of on pick. A member
-// picked by two of them is an error: one load acts on each member once.
-func (r *reader) selectAll(t *table) []int {
+// selectAll returns the members that the selectors of on pick, their
+// union. With once, a member picked by two of them is an error: one load
+// acts on each member once; without, it is picked once.
+func (r *reader) selectAll(t *table, once bool) []int {
 	sels := t.strs("on")
 	if sels != nil && len(sels) == 0 {
 		t.fail("on", problem(ErrValue, "on is empty: name at least one member or selector"))
@@ -259,6 +266,9 @@ func (r *reader) selectAll(t *table) []int {
 			if !dup {
 				by[m] = si
 				members = append(members, m)
+				continue
+			}
+			if !once {
 				continue
 			}
 			k := slices.IndexFunc(overlaps, func(o overlap) bool { return o.a == prev && o.b == si })

@@ -10,6 +10,7 @@ import (
 	"govern/combos"
 	"govern/envelope/analysis"
 	"govern/frame"
+	"govern/frame/units"
 	"govern/patterns"
 )
 
@@ -21,6 +22,14 @@ type Units = analysis.Units
 type Job struct {
 	analysis.Job
 	Grid *Grid // nil when the file has no [grid]
+	// System is the model's units: its force, length and temperature
+	// units, to which every value given with a unit was converted.
+	System units.System
+	// Assignments are the [[assign]] tables, in file order, and Overlaps
+	// the sections and releases they give members that another table
+	// gives too (govern check lists them).
+	Assignments []Assignment
+	Overlaps    []Overlap
 
 	file      string      // the model's name, for messages
 	caseLines map[int]int // the line of each case no combination uses
@@ -109,6 +118,7 @@ type reader struct {
 	nodes    map[string]int
 	members  map[string]int
 	hasW     []bool            // section gives a weight
+	thermal  [][2]bool         // section gives alpha, depth (valid or not: a wrong one is reported there)
 	broken   map[string]bool   // members named in the file that could not be built
 	memLine  []int             // line defining each member (0 for grid members)
 	caseInfo []combos.CaseInfo // per case, for the combination rules
@@ -130,12 +140,7 @@ func (r *reader) read(raw map[string]any) *Job {
 	r.job = &Job{Job: analysis.Job{Model: &frame.Model{}}}
 	job := r.job
 	job.Title = top.str("title", "")
-	job.Units = Units{Force: "kN", Length: "m"}
-	if u := top.sub("units", "[units]"); u != nil {
-		job.Units.Force = u.str("force", "kN")
-		job.Units.Length = u.str("length", "m")
-		u.done()
-	}
+	r.readUnits(top)
 	job.Settings = analysis.Settings{Stations: 11}
 	job.Segments, job.Patterns = 1, patterns.Exact
 	if a := top.sub("analysis", "[analysis]"); a != nil {
@@ -179,7 +184,8 @@ func (r *reader) read(raw map[string]any) *Job {
 	}
 	r.readNodes(top.array("node", func(i int, m map[string]any) string { return named("node", i, m) }))
 	r.readMembers(top.array("member", func(i int, m map[string]any) string { return named("member", i, m) }))
-	if r.zones {
+	r.readAssigns(top.array("assign", func(i int, _ map[string]any) string { return fmt.Sprintf("assign %d", i+1) }))
+	if r.zones { // after [[assign]], which may change sections and so depths
 		r.rigidZones(r.zoneFactor)
 	}
 	r.readCases(top.array("case", func(i int, m map[string]any) string { return named("case", i, m) }))
@@ -232,28 +238,29 @@ func (r *reader) readSections(ts []*table) {
 		s := frame.Section{Name: name}
 		for _, p := range []struct {
 			key string
+			q   units.Quantity
 			dst *float64
-		}{{"E", &s.E}, {"A", &s.A}, {"I", &s.I}} {
+		}{{"E", units.Stress, &s.E}, {"A", units.Area, &s.A}, {"I", units.Inertia, &s.I}} {
 			if t.need(p.key) {
 				var ok bool
-				*p.dst, ok = t.numOK(p.key, 0)
+				*p.dst, ok = t.qtyOK(p.key, p.q, 0)
 				if ok && *p.dst <= 0 {
 					t.fail(p.key, problem(ErrValue, "%s = %g: must be greater than zero", p.key, *p.dst))
 				}
 			}
 		}
-		s.Weight = t.num("weight", 0)
+		s.Weight = t.qty("weight", units.LineLoad, 0)
 		if s.Weight < 0 {
 			t.fail("weight", problem(ErrValue, "weight = %g: must not be negative", s.Weight))
 		}
-		if d, ok := t.numOK("depth", 0); ok { // length
+		if d, ok := t.qtyOK("depth", units.Length, 0); ok {
 			if d <= 0 {
 				t.fail("depth", problem(ErrValue, "depth = %g: must be greater than zero", d))
 			} else {
 				s.Depth = d
 			}
 		}
-		if a, ok := t.numOK("alpha", 0); ok { // coefficient of thermal expansion, 1/temperature
+		if a, ok := t.qtyOK("alpha", units.Expansion, 0); ok {
 			if a <= 0 {
 				t.fail("alpha", problem(ErrValue, "alpha = %g: must be greater than zero", a))
 			} else {
@@ -263,6 +270,7 @@ func (r *reader) readSections(ts []*table) {
 		r.sections[name] = len(r.job.Model.Sections)
 		r.job.Model.Sections = append(r.job.Model.Sections, s)
 		r.hasW = append(r.hasW, t.has("weight"))
+		r.thermal = append(r.thermal, [2]bool{t.has("alpha"), t.has("depth")})
 		t.done()
 	}
 }
@@ -346,7 +354,7 @@ func (r *reader) readNode(t *table) {
 			t.fail("name", problem(ErrDuplicate, "grid node %q is already changed at line %d; give each grid node one [[node]] table", name, prev.line("name")))
 		}
 		nd := &mo.Nodes[i]
-		x, y := t.num("x", nd.X), t.num("y", nd.Y)
+		x, y := t.qty("x", units.Length, nd.X), t.qty("y", units.Length, nd.Y)
 		if math.Abs(x-nd.X) > coordTol || math.Abs(y-nd.Y) > coordTol {
 			t.fail("x", problem(ErrValue, "grid node %q is at (%g, %g), not (%g, %g); a [[node]] may only change a grid node's support", name, nd.X, nd.Y, x, y))
 		}
@@ -361,7 +369,7 @@ func (r *reader) readNode(t *table) {
 	has := t.need("x")
 	has = t.need("y") && has
 	// An invalid coordinate is NaN, so that no check compares with it.
-	nd := frame.Node{Name: name, X: t.num("x", math.NaN()), Y: t.num("y", math.NaN()), Support: r.support(t, frame.Free)}
+	nd := frame.Node{Name: name, X: t.qty("x", units.Length, math.NaN()), Y: t.qty("y", units.Length, math.NaN()), Support: r.support(t, frame.Free)}
 	nd.Springs = r.springs(t, nd.Support, [3]float64{})
 	if has {
 		r.nodes[name] = len(mo.Nodes)
@@ -439,6 +447,7 @@ func (r *reader) readMember(t *table) {
 		r.ownZones(i, own)
 		r.readPasses(t, i)
 		r.memberAt.set(i, t)
+		r.sets.set(i, t.has("section"), t.has("release"))
 		t.done()
 		return
 	}
@@ -501,6 +510,7 @@ func (r *reader) readMember(t *table) {
 	r.members[name] = i
 	r.memberAt.set(i, t)
 	r.ownZones(i, own)
+	r.sets.set(i, true, t.has("release"))
 	mo.Members = append(mo.Members, frame.Member{Name: name, Start: a, End: b, Section: s, Release: rel,
 		SpringStart: ends.SpringStart, SpringEnd: ends.SpringEnd, OffsetStart: ends.OffsetStart, OffsetEnd: ends.OffsetEnd})
 }

@@ -6,6 +6,8 @@ import (
 	"slices"
 	"sort"
 	"strings"
+
+	"govern/frame/units"
 )
 
 // table is one TOML table being read, of a model file or a rule file, with
@@ -120,7 +122,9 @@ func (t *table) need(key string) bool {
 	return false
 }
 
-// num reads a number (integer or float) that must be finite.
+// num reads a number (integer or float) that must be finite: a pure
+// number, such as a factor, which takes no unit. A value with a dimension
+// is read with qty.
 func (t *table) num(key string, def float64) float64 {
 	v, _ := t.numOK(key, def)
 	return v
@@ -132,6 +136,12 @@ func (t *table) numOK(key string, def float64) (float64, bool) {
 	if !ok {
 		return def, false
 	}
+	return t.number(key, v, "a number", def)
+}
+
+// number reads v, the value of key, as a finite number; want names the
+// types accepted, for the message when v is of another.
+func (t *table) number(key string, v any, want string, def float64) (float64, bool) {
 	var f float64
 	switch x := v.(type) {
 	case int64:
@@ -139,11 +149,69 @@ func (t *table) numOK(key string, def float64) (float64, bool) {
 	case float64:
 		f = x
 	default:
-		t.wrongType(key, "a number", v)
+		t.wrongType(key, want, v)
 		return def, false
 	}
 	if math.IsNaN(f) || math.IsInf(f, 0) {
 		t.fail(key, problem(ErrValue, "%s must be a finite number, not %v", key, f))
+		return def, false
+	}
+	return f, true
+}
+
+// Values with a unit. Every key with a dimension is read by qty (or qtyOK,
+// qtys) with its quantity, such as units.LineLoad for a distributed load:
+// a number is in the model's units, a string such as "2.4 kip/ft" is
+// converted to them. Converting a key read with num is the one change
+// from t.num(key, def) to t.qty(key, units.Quantity, def).
+
+// withUnit names the types a key with a dimension accepts.
+const withUnit = "a number, or a string of a number and a unit such as \"12 kN\""
+
+// siUnits checks values with a unit while the model's units are not known.
+var siUnits = units.System{Force: units.MustParse("N"), Length: units.MustParse("m"), Temperature: units.MustParse("K")}
+
+// qty reads key as a value of quantity q in the model's units.
+func (t *table) qty(key string, q units.Quantity, def float64) float64 {
+	v, _ := t.qtyOK(key, q, def)
+	return v
+}
+
+// qtyOK is qty that also reports whether a valid value was read.
+func (t *table) qtyOK(key string, q units.Quantity, def float64) (float64, bool) {
+	v, ok := t.get(key)
+	if !ok {
+		return def, false
+	}
+	if s, ok := v.(string); ok {
+		return t.withUnit(key, key, s, q, def)
+	}
+	return t.number(key, v, withUnit, def)
+}
+
+// withUnit converts s, the value of key (named as label in messages), a
+// number and a unit of quantity q, to the model's units.
+func (t *table) withUnit(key, label, s string, q units.Quantity, def float64) (float64, bool) {
+	sys := t.d.units
+	switch {
+	case sys == nil && !t.d.unitsBad:
+		t.fail(key, problem(ErrType, "%s must be a number, not a string", label))
+		return def, false
+	case sys == nil:
+		// [units] has a problem, reported there: the value is checked
+		// all the same, but cannot be converted.
+		sys = &siUnits
+	}
+	f, _, err := sys.Value(s, q)
+	if err != nil {
+		t.fail(key, problem(ErrValue, "%s = %q: %v", label, s, err))
+		return def, false
+	}
+	if t.d.unitsBad {
+		return def, false
+	}
+	if math.IsNaN(f) || math.IsInf(f, 0) {
+		t.fail(key, problem(ErrValue, "%s = %q is too large in the model's units", label, s))
 		return def, false
 	}
 	return f, true
@@ -180,8 +248,9 @@ func (t *table) boolean(key string, def bool) bool {
 	return b
 }
 
-// nums reads an array of numbers.
-func (t *table) nums(key string) []float64 {
+// qtys reads an array of values of quantity q, each a number in the
+// model's units or a string with a unit (qty).
+func (t *table) qtys(key string, q units.Quantity) []float64 {
 	v, ok := t.get(key)
 	if !ok {
 		return nil
@@ -193,17 +262,24 @@ func (t *table) nums(key string) []float64 {
 	}
 	out := make([]float64, 0, len(arr))
 	for i, e := range arr {
+		label := fmt.Sprintf("%s[%d]", key, i+1)
 		switch x := e.(type) {
 		case int64:
 			out = append(out, float64(x))
 		case float64:
 			if math.IsNaN(x) || math.IsInf(x, 0) {
-				t.fail(key, problem(ErrValue, "%s[%d] must be a finite number, not %v", key, i+1, x))
+				t.fail(key, problem(ErrValue, "%s must be a finite number, not %v", label, x))
 				return nil
 			}
 			out = append(out, x)
+		case string:
+			f, ok := t.withUnit(key, label, x, q, 0)
+			if !ok {
+				return nil
+			}
+			out = append(out, f)
 		default:
-			t.fail(key, problem(ErrType, "%s[%d] must be a number, not %s", key, i+1, typeName(e)))
+			t.fail(key, problem(ErrType, "%s must be %s, not %s", label, withUnit, typeName(e)))
 			return nil
 		}
 	}
