@@ -147,6 +147,7 @@ func Run(ctx context.Context, job *Job, opt Options) (*Result, error) {
 		Lines:     spanLines(job.Model, r.Spans),
 		Kinds:     sv.kinds,
 		AllSpans:  opt.allPieces,
+		Factors:   job.envelopeFactors(len(sv.kinds)),
 	}
 	if job.Actions != nil {
 		if g := job.Actions.Groups(); g != nil {

@@ -105,7 +105,11 @@ func TestRunRefuses(t *testing.T) {
 		is   error
 		want string
 	}{
-		{"member factors, not applied yet", func(j *Job) { j.MemberFactors = []MemberFactor{{Member: 0, Case: 1, N: 0.5, V: 0.5, M: 0.5}} }, ErrNotApplied, "MemberFactors"},
+		{"a member factor of no member", func(j *Job) { j.MemberFactors = []MemberFactor{{Member: 2, Case: 1, N: 1, V: 1, M: 1}} }, nil, "member factor 0 is of member 2"},
+		{"a negative member factor", func(j *Job) { j.MemberFactors = []MemberFactor{{Member: 0, Case: 1, N: 1, V: -0.5, M: 1}} }, nil, "factor -0.5 is not a number at least 0"},
+		{"a member factor twice", func(j *Job) {
+			j.MemberFactors = []MemberFactor{{Member: 0, Case: 1, N: 1, V: 1, M: 1}, {Member: 0, Case: 1, N: 1, V: 1, M: 1}}
+		}, nil, "two member factors"},
 		{"second order, not applied yet", func(j *Job) { j.Methods = []Method{{}, {SecondOrder: true}} }, ErrNotApplied, `combination "1.2D+1.6L" asks for nominal stiffness, second order true`},
 		{"strength stiffness, not applied yet", func(j *Job) { j.Methods = []Method{{Stiffness: Strength}, {}} }, ErrNotApplied, "strength stiffness"},
 		{"a method for each combination", func(j *Job) { j.Methods = []Method{{}} }, nil, "gives 1 methods for 2 combinations"},
