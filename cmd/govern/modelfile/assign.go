@@ -76,8 +76,9 @@ func (r *reader) readAssigns(ts []*table) {
 	var all []pending
 	for _, t := range ts {
 		p := pending{t: t, a: Assignment{Line: t.line("")}}
-		if !t.has("section") && !t.has("release") {
-			t.fail("", problem(ErrMissing, "an [[assign]] gives section or release (or both) to the members its on selects"))
+		red, hasRed := readMemberReduction(t)
+		if !t.has("section") && !t.has("release") && !hasRed {
+			t.fail("", problem(ErrMissing, "an [[assign]] gives section or release (or both), or tributary_area, tributary_width or kll, to the members its on selects"))
 		}
 		var okS bool
 		if t.has("section") {
@@ -98,6 +99,11 @@ func (r *reader) readAssigns(ts []*table) {
 			slices.Sort(p.a.Members)
 		}
 		t.done()
+		if hasRed {
+			for _, m := range p.a.Members {
+				r.setMemberReduction(m, red)
+			}
+		}
 		if len(p.a.Members) > 0 && (p.a.Section != "" || p.a.Release != "") {
 			all = append(all, p)
 		}
