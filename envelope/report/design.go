@@ -23,6 +23,7 @@ type design struct {
 	groups     []groupDesign
 	deflection *Table // nil without service combinations or spans
 	reactions  *Table // nil without supports
+	reduction  *Table // the member factors of live load reduction; nil without any
 	staticsTop string // the note above the statics table
 	statics    Table
 }
@@ -48,6 +49,9 @@ func (p *Report) Tables() []Table {
 	}
 	if d.reactions != nil {
 		out = append(out, *d.reactions)
+	}
+	if d.reduction != nil {
+		out = append(out, *d.reduction)
 	}
 	return append(out, d.statics)
 }
@@ -78,6 +82,10 @@ func newDesign(p *Report) *design {
 	}
 	d.deflection = p.deflectionTable()
 	d.reactions = p.reactionTable()
+	if d.reactions != nil {
+		d.reactions.Title += reductionNote(p.job())
+	}
+	d.reduction = p.reductionTable()
 	d.staticsTop, d.statics = p.staticsTable()
 	return d
 }
@@ -137,7 +145,7 @@ func (p *Report) groupTables(g groupDesign) []Table {
 	u := p.units()
 	force, moment, at := p.force.Label, p.moment.Label, "at x ("+u.Length+")"
 	if g.Kind != analysis.Floor {
-		return []Table{{g.title, columnHeader(force, moment, u.Length), p.columnRows(g.Members)}}
+		return []Table{p.withReduction(Table{g.title, columnHeader(force, moment, u.Length), p.columnRows(g.Members)}, g.Members)}
 	}
 	patterned := p.pieces() > 0
 	header := []string{"beam", "+M (" + moment + ")", at, "governing", "-M (" + moment + ")", at, "governing", "|V| (" + force + ")", at, "governing"}
@@ -159,13 +167,13 @@ func (p *Report) groupTables(g groupDesign) []Table {
 		row = append(row, fixed(p.force.Of(v.v)), fixed(v.x), p.comboName(v.by))
 		rows = append(rows, row)
 	}
-	out := []Table{{g.title, header, rows}}
+	out := []Table{p.withReduction(Table{g.title, header, rows}, g.Members)}
 	if !p.res.HasFaces(g.Members) {
 		return out
 	}
 	header = []string{"beam", "support", "M min, centreline (" + moment + ")", "governing", "M min, face (" + moment + ")", "face at x (" + u.Length + ")", "governing",
 		"|V| centreline (" + force + ")", "governing", "|V| face (" + force + ")", "governing"}
-	return append(out, Table{g.title + ": at the supports, centreline and column face", header, p.supportRows(g.Members)})
+	return append(out, Table{g.title + ": at the supports, centreline and column face" + reductionNote(p.job()), header, p.supportRows(g.Members)})
 }
 
 func columnHeader(force, moment, length string) []string {

@@ -146,6 +146,13 @@ func (p *Report) WriteHTML(w io.Writer) error {
 		h.raw("<p>No node is supported.</p>\n")
 	}
 	h.raw("</section>\n")
+	if t := d.reduction; t != nil {
+		h.raw("<section id=\"reduction\" class=\"part\">\n<h2>Live load reduction</h2>\n")
+		if err := (htmlTables{h: h, heading: "h3"}).table(*t); err != nil {
+			return err
+		}
+		h.raw("</section>\n")
+	}
 	p.htmlCombinations(h)
 	h.raw("<section id=\"statics\">\n<h2>Statics check</h2>\n")
 	st := htmlTables{h: h, heading: "h3"}
