@@ -7,6 +7,7 @@ import (
 
 	"govern/combos"
 	"govern/envelope/analysis"
+	"govern/frame"
 )
 
 // In a frame, the reduced case's effects in the first storey interior
@@ -67,5 +68,77 @@ func TestReducedCaseInFrame(t *testing.T) {
 		if r.Node == base && math.Abs(r.Reduced[1]-f.N*r.Unreduced[1]) > tol*math.Abs(r.Unreduced[1]) {
 			t.Errorf("base Fy %g, want %g × %g", r.Reduced[1], f.N, r.Unreduced[1])
 		}
+	}
+}
+
+// EN 1991-1-1 6.3.1.2(11) in the combinations of EN 1990 6.10: αn
+// applies to the first storey column's N where the imposed load Q leads
+// (1.35G + 1.5Q + 0.9W: N of Q × 1.5 × 0.90) and not where it accompanies
+// (1.35G + 1.5W + 1.05Q: N of Q × 1.05 × 1.0; 3.3.1(2)P and 6.2.2(2),
+// from memory). Linearity of the frame gives both from the unreduced N.
+func TestENAccompanyingWithoutAlphaN(t *testing.T) {
+	b := newBuilding(3, 4, 9, 3.5, 1, []int{1, 2, 3}, nil)
+	mo := b.mo
+	// G: nothing, so N is Q's alone; W: a lateral load at the roof.
+	mo.Cases = append([]frame.Case{{Name: "G", NodeLoads: []frame.NodeLoad{{Node: 0, Fy: 0}}}}, mo.Cases[0], frame.Case{Name: "W"})
+	mo.Cases[1].Name = "Q"
+	top := len(mo.Nodes) - 1
+	mo.Cases[2].NodeLoads = []frame.NodeLoad{{Node: top, Fx: 1e-9}}
+	cases := []combos.Case{{Name: "G", Kind: combos.Dead}, {Name: "Q", Kind: combos.Live}, {Name: "W", Kind: combos.Wind}}
+	info := []combos.CaseInfo{{}, {Category: "B"}, {}}
+	set, err := combos.Standard("en1990-6.10")
+	if err != nil {
+		t.Fatal(err)
+	}
+	all, err := set.Generate(cases, info, combos.Params{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	pick := func(name string) combos.Combination {
+		for _, cb := range all {
+			if combos.Compact(cb.Terms, cases) == name {
+				return cb
+			}
+		}
+		t.Fatalf("no combination %s", name)
+		return combos.Combination{}
+	}
+	loaded := make([]bool, len(mo.Members))
+	copy(loaded, b.loaded)
+	fs := Factors(mo, metres(t), nil, Case{Case: 1, Rule: EN1991, Width: 9, Loaded: loaded, Category: "B", Psi0: 0.7})
+	col := b.col[[2]int{1, 1}]
+	run := func(cb combos.Combination, factors []analysis.MemberFactor) float64 {
+		job := &analysis.Job{Units: analysis.Units{Force: "kN", Length: "m"}, Model: mo, Cases: cases,
+			Combinations: []combos.Combination{cb}, Settings: analysis.Settings{Stations: 3, AsWritten: true}, MemberFactors: factors, AllowUnused: true}
+		res, err := analysis.Run(context.Background(), job, analysis.Options{})
+		if err != nil {
+			t.Fatal(err)
+		}
+		return res.Envelope.Members[col].Stations[0].N.Min
+	}
+	unit := run(combos.Combination{Name: "Q", Terms: []combos.Term{{Case: 1, Factor: 1}}}, nil)
+	for _, c := range []struct {
+		name string
+		want float64
+	}{
+		{"1.35G+1.5Q+0.9W", 1.5 * 0.9 * unit},  // Q leads: αn = (2 + 0.7)/3
+		{"1.35G+1.5W+1.05Q", 1.05 * 1.0 * unit}, // Q accompanies: ψ0, no αn
+	} {
+		if got := run(pick(c.name), fs); math.Abs(got-c.want) > 1e-9*math.Abs(c.want) {
+			t.Errorf("%s: N %g, want %g", c.name, got, c.want)
+		}
+	}
+}
+
+// ASCE/SEI 7-16 4.8.2 on a frame: a roof live case of 0.96 kN/m² on the
+// roof beams (9 m × 9 m, 81 m² ≥ 55.74 m²: R1 = 0.6) at a slope of 6 on
+// 12 (R2 = 0.9) gives 0.96 × 0.54 = 0.518 kN/m², raised to the 0.58 kN/m²
+// floor: factor 0.58/0.96.
+func TestRoofCaseOnFrame(t *testing.T) {
+	b := newBuilding(3, 4, 9, 3.5, 1, []int{4}, nil)
+	fs := Factors(b.mo, metres(t), nil, Case{Rule: ASCE716, Roof: true, Lo: 0.96, Rise: 6, Width: 9, Loaded: b.loaded})
+	f := factorOf(t, fs, b.beam[[2]int{1, 4}])
+	if !near(f.N, 0.58/0.96, 1e-12) || f.Basis.Rule != ClauseRoof || f.Basis.Limit != string(RoofMin) {
+		t.Errorf("roof beam: %+v", f)
 	}
 }
