@@ -121,7 +121,7 @@ func TestENAccompanyingWithoutAlphaN(t *testing.T) {
 		name string
 		want float64
 	}{
-		{"1.35G+1.5Q+0.9W", 1.5 * 0.9 * unit},  // Q leads: αn = (2 + 0.7)/3
+		{"1.35G+1.5Q+0.9W", 1.5 * 0.9 * unit},   // Q leads: αn = (2 + 0.7)/3
 		{"1.35G+1.5W+1.05Q", 1.05 * 1.0 * unit}, // Q accompanies: ψ0, no αn
 	} {
 		if got := run(pick(c.name), fs); math.Abs(got-c.want) > 1e-9*math.Abs(c.want) {
