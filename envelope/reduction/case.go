@@ -36,6 +36,10 @@ type Case struct {
 	// Loaded says which members the case loads with its distributed
 	// load (area loads, or loads standing for Lo): one entry per member.
 	Loaded []bool
+	// NodeArea, when not nil, gives for each node the area of floor that
+	// loads applied at the node stand for (a node load divided by Lo):
+	// counted for the columns under the node as the case's load there.
+	NodeArea []float64
 	// Category and Psi0 are the case's category of EN 1991-1-1 Table 6.1
 	// (EN 1990 Table A1.1: "A" to "H") and its ψ0 (EN1991).
 	Category string

@@ -108,9 +108,13 @@ func (g *geometry) share(s *analysis.Span, n int) float64 {
 }
 
 // floorArea returns the area the case loads that node n carries: its
-// share of every span ending there.
+// share of every span ending there, and the area its node loads stand
+// for.
 func (g *geometry) floorArea(n int) float64 {
 	a := 0.0
+	if n < len(g.c.NodeArea) {
+		a = g.c.NodeArea[n]
+	}
 	for i := range g.spans {
 		s := &g.spans[i]
 		if s.Kind == analysis.KindRidge || s.Kind == analysis.KindValley {

@@ -2,6 +2,7 @@ package reduction
 
 import (
 	"fmt"
+	"math"
 	"testing"
 
 	"govern/envelope/analysis"
@@ -223,4 +224,77 @@ func TestEN1991Factors(t *testing.T) {
 	if a := 0.5 + 10.0/243; !near(col.N, a, 1e-12) || col.HasAccompanying && !near(col.Accompanying[0], a, 1e-12) {
 		t.Errorf("smaller: %g, accompanying %v; want %g in both", col.N, col.Accompanying, a)
 	}
+}
+
+// Node loads standing for an area load Lo (the case's lo): a load of
+// 2.4 × 81 kN at the top of the interior third storey column stands for
+// 81 m², one floor: 0.5039 (ASCE/SEI 7-16 Eq. 4.7-1).
+func TestNodeLoadArea(t *testing.T) {
+	b := newBuilding(3, 4, 9, 3.5, 1, nil, nil)
+	top := b.mo.Members[b.col[[2]int{1, 3}]].End
+	area := make([]float64, len(b.mo.Nodes))
+	area[top] = 2.4 * 81 / 2.4
+	fs := Factors(b.mo, metres(t), nil, Case{Rule: ASCE716, Lo: 2.4, Width: 9, Loaded: b.loaded, NodeArea: area})
+	if f := factorOf(t, fs, b.col[[2]int{1, 3}]); !near(f.N, 0.25+4.57/18, 1e-12) || f.Basis.Floors != 1 {
+		t.Errorf("column under the node load: %+v", f)
+	}
+}
+
+// Odd geometry: every member drawn the other way (columns from top to
+// bottom, beams right to left) gives the same factors; a cantilever beam
+// carries its whole area to the column at its root (K_LL 1, Table 4.7-1);
+// a gable's rafters carry their whole plan area to the eave columns.
+func TestFactorsOddGeometry(t *testing.T) {
+	t.Run("members drawn the other way", func(t *testing.T) {
+		b := newBuilding(3, 4, 9, 3.5, 1, []int{1, 2, 3}, nil)
+		want := Factors(b.mo, metres(t), nil, Case{Rule: ASCE716, Lo: 2.4, Width: 9, Loaded: b.loaded})
+		for m := range b.mo.Members {
+			mem := &b.mo.Members[m]
+			mem.Start, mem.End = mem.End, mem.Start
+		}
+		got := Factors(b.mo, metres(t), nil, Case{Rule: ASCE716, Lo: 2.4, Width: 9, Loaded: b.loaded})
+		if len(got) != len(want) {
+			t.Fatalf("%d factors, want %d", len(got), len(want))
+		}
+		for i := range got {
+			if got[i] != want[i] {
+				t.Errorf("member %s: %+v, want %+v", b.mo.Members[got[i].Member].Name, got[i], want[i])
+			}
+		}
+	})
+	t.Run("cantilever", func(t *testing.T) {
+		// One bay of 9 m with a 3 m cantilever beyond column B, one
+		// storey, 9 m wide: column B carries half the bay (40.5 m²) and
+		// the whole cantilever (27 m²): 67.5 m², K_LL 4: 270 m², 0.5281;
+		// the cantilever beam 27 m², K_LL 1: below 37.16 m², not reduced.
+		mo := &frame.Model{
+			Sections: []frame.Section{{Name: "S", E: 30e6, A: 0.2, I: 5e-3}},
+			Nodes: []frame.Node{{Name: "a0", Support: frame.Fixed}, {Name: "a1", Y: 3.5}, {Name: "b0", X: 9, Support: frame.Fixed},
+				{Name: "b1", X: 9, Y: 3.5}, {Name: "c1", X: 12, Y: 3.5}},
+			Members: []frame.Member{{Name: "a", Start: 0, End: 1}, {Name: "b", Start: 2, End: 3}, {Name: "ab", Start: 1, End: 3}, {Name: "bc", Start: 3, End: 4}},
+		}
+		fs := Factors(mo, metres(t), nil, Case{Rule: ASCE716, Lo: 2.4, Width: 9, Loaded: []bool{false, false, true, true}})
+		if f := factorOf(t, fs, 1); !near(f.N, 0.25+4.57/math.Sqrt(270), 1e-12) || !near(f.Basis.Area, 67.5, 1e-12) {
+			t.Errorf("column b: %+v", f)
+		}
+		if f := factorOf(t, fs, 3); f.N != 1 || f.Basis.KLL != 1 || f.Basis.Limit != string(SmallArea) {
+			t.Errorf("cantilever: %+v", f)
+		}
+	})
+	t.Run("gable", func(t *testing.T) {
+		// Eaves at x = 0 and 12 m, ridge at 6 m, 9 m wide: each eave
+		// column carries its rafter's 6 m × 9 m = 54 m² in plan.
+		mo := &frame.Model{
+			Sections: []frame.Section{{Name: "S", E: 30e6, A: 0.2, I: 5e-3}},
+			Nodes: []frame.Node{{Name: "a0", Support: frame.Fixed}, {Name: "a1", Y: 4}, {Name: "r", X: 6, Y: 5.5},
+				{Name: "b1", X: 12, Y: 4}, {Name: "b0", X: 12, Support: frame.Fixed}},
+			Members: []frame.Member{{Name: "a", Start: 0, End: 1}, {Name: "ar", Start: 1, End: 2}, {Name: "rb", Start: 2, End: 3}, {Name: "b", Start: 4, End: 3}},
+		}
+		fs := Factors(mo, metres(t), nil, Case{Rule: ASCE716, Roof: true, Lo: 0.96, Width: 9, Loaded: []bool{false, true, true, false}})
+		for _, m := range []int{0, 3} {
+			if f := factorOf(t, fs, m); !near(f.Basis.Area, 54, 1e-12) {
+				t.Errorf("column %s: A_T %g, want 54", mo.Members[m].Name, f.Basis.Area)
+			}
+		}
+	})
 }

@@ -1,6 +1,7 @@
 package modelfile
 
 import (
+	"math"
 	"slices"
 
 	"govern/combos"
@@ -171,6 +172,15 @@ func (r *reader) readCaseReduction(t *table, ci int, c *frame.Case, k combos.Kin
 		case "node":
 			if !hasLo {
 				l.t.fail("type", problem(ErrValue, "a node load in a case with reduction = %q: give the case lo, the area load (per area) it stands for, or put the load in a case without reduction", word))
+				continue
+			}
+			// The load stands for the area |Fy|/lo, carried by the
+			// columns under its node.
+			if rd.rc.NodeArea == nil {
+				rd.rc.NodeArea = make([]float64, len(r.job.Model.Nodes))
+			}
+			for _, nl := range c.NodeLoads[l.nodesFrom:l.nodesTo] {
+				rd.rc.NodeArea[nl.Node] += math.Abs(nl.Fy) / lo
 			}
 		case "point":
 			l.t.fail("type", problem(ErrValue, "a point load in a case with reduction = %q: concentrated live loads are never reduced; put it in a case without reduction", word))

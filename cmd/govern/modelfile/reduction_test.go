@@ -106,6 +106,17 @@ func TestReductionFromModelFile(t *testing.T) {
 			t.Errorf("tributary_area 100 m²: %+v", f)
 		}
 	})
+	t.Run("node load standing for lo", func(t *testing.T) {
+		// 194.4 kN at the top of the top storey's interior column, lo =
+		// 2.4 kN/m²: 81 m², one floor, K_LL 4: 0.5039 (Eq. 4.7-1).
+		job, err := Read("m.toml", []byte(office("kN", "m", `lo = "2.4 kPa"`, "  [[case.load]]\n  type = \"node\"\n  node = \"B4\"\n  fy = \"-194.4 kN\"\n")))
+		if err != nil {
+			t.Fatal(err)
+		}
+		if f, _ := factorOf(t, job, "B3-B4", 1); math.Abs(f.N-(0.25+4.57/18)) > 1e-12 || f.Basis.Floors != 1 {
+			t.Errorf("column under the node load: %+v", f)
+		}
+	})
 	t.Run("en1991", func(t *testing.T) {
 		// EN 1991-1-1 6.3.1.2(11): three storeys of category B above the
 		// first storey column: αn = (2 + 1 × 0.7)/3 = 0.90 where it leads.
