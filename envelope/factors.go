@@ -180,11 +180,14 @@ func (e *evaluator) forcesWith(w *work, m, i int) [3]Extreme {
 	if e.fac != nil {
 		w.fac = e.fac[m]
 	}
-	for c := range w.ev {
-		f := w.at[c*ns+i]
-		w.ev[c] = [3]float64{f.N, f.V, f.M}
-		if w.fac != nil {
-			s := &w.fac[e.caseOf[c]]
+	if w.fac == nil {
+		for c := range w.ev {
+			f := w.at[c*ns+i]
+			w.ev[c] = [3]float64{f.N, f.V, f.M}
+		}
+	} else {
+		for c := range w.ev {
+			f, s := w.at[c*ns+i], &w.fac[e.caseOf[c]]
 			w.ev[c] = [3]float64{s[0] * f.N, s[1] * f.V, s[2] * f.M}
 		}
 	}
