@@ -192,3 +192,36 @@ func TestReducedJSONAndCSV(t *testing.T) {
 		}
 	})
 }
+
+// TestCheckListsFactors: govern check lists each member factor with how
+// it was found, on testdata/tables/reduced-frame.toml with K_LL 3 given to
+// the columns of line A (an edge column with cantilever slabs, ASCE/SEI
+// 7-16 Table 4.7-1): A0-A1 supports two floors of 40.5 m²: K_LL·A_T =
+// 243 m², N 0.25 + 4.57/√243 = 0.5432; V and M by the one-floor rule,
+// 121.5 m²: 0.6646 (Eq. 4.7-1).
+func TestCheckListsFactors(t *testing.T) {
+	src, err := os.ReadFile(filepath.Join(renderedDir, "reduced-frame.toml"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	path := filepath.Join(t.TempDir(), "m.toml")
+	if err := os.WriteFile(path, append(src, "[[assign]]\non = \"line A\"\nkll = 3\n"...), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	code, out, stderr := exec("check", path)
+	if code != 0 {
+		t.Fatalf("exit %d: %s", code, stderr)
+	}
+	f4 := func(v float64) string { return strconv.FormatFloat(v, 'f', 4, 64) }
+	for _, want := range []string{
+		"live load reduction: 10 member factors (L by ASCE/SEI 7-16 4.7.2)\n",
+		"  A0-A1        L N " + f4(0.25+4.57/math.Sqrt(243)) + ", V M " + f4(0.25+4.57/math.Sqrt(121.5)) +
+			"; ASCE/SEI 7-16 4.7.2, A_T 81.00 m², K_LL 3, 2 floors; V and M by the one-floor rule: the larger factor of the floors at its ends\n",
+		"  A1-B1        L " + f4(0.25+4.57/math.Sqrt(162)) + "; ASCE/SEI 7-16 4.7.2, A_T 81.00 m², K_LL 2, 1 floor\n",
+		"  line 58     kll 3 on \"line A\": 3 members\n",
+	} {
+		if !strings.Contains(out, want) {
+			t.Errorf("check output lacks %q:\n%s", want, out)
+		}
+	}
+}

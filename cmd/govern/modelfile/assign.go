@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"slices"
 
+	"govern/envelope/reduction"
 	"govern/frame"
 )
 
@@ -14,7 +15,10 @@ type Assignment struct {
 	On      []string // its selectors, a union
 	Section string   // the section's name; "" when it gives none
 	Release string   // "" when it gives none
-	Members []int    // the members picked, in model order
+	// Reduction gives the live load reduction values it gives, in the
+	// model's units; the zero value when none.
+	Reduction reduction.Member
+	Members   []int // the members picked, in model order
 }
 
 // Overlap is a section or release given to members twice: by a table
@@ -77,6 +81,7 @@ func (r *reader) readAssigns(ts []*table) {
 	for _, t := range ts {
 		p := pending{t: t, a: Assignment{Line: t.line("")}}
 		red, hasRed := readMemberReduction(t)
+		p.a.Reduction = red
 		if !t.has("section") && !t.has("release") && !hasRed {
 			t.fail("", problem(ErrMissing, "an [[assign]] gives section or release (or both), or tributary_area, tributary_width or kll, to the members its on selects"))
 		}
