@@ -117,6 +117,17 @@ func TestReductionFromModelFile(t *testing.T) {
 			t.Errorf("column under the node load: %+v", f)
 		}
 	})
+	t.Run("roof live", func(t *testing.T) {
+		// ASCE/SEI 7-16 4.8.2: a roof beam of 81 m² (R1 = 0.6) at 6 on 12
+		// (R2 = 0.9) under 0.96 kN/m²: 0.518 kN/m², raised to 0.58.
+		job, err := Read("m.toml", []byte(office("kN", "m", "", "[[case]]\nname = \"Lr\"\nkind = \"roof-live\"\nreduction = \"asce7-16\"\nslope = 6\n  [[case.load]]\n  type = \"area\"\n  on = \"roof\"\n  q = \"0.96 kPa\"\n")))
+		if err != nil {
+			t.Fatal(err)
+		}
+		if f, _ := factorOf(t, job, "B4-C4", 2); math.Abs(f.N-0.58/0.96) > 1e-12 || f.Basis.Rule != "ASCE/SEI 7-16 4.8.2" {
+			t.Errorf("roof beam: %+v", f)
+		}
+	})
 	t.Run("en1991", func(t *testing.T) {
 		// EN 1991-1-1 6.3.1.2(11): three storeys of category B above the
 		// first storey column: αn = (2 + 1 × 0.7)/3 = 0.90 where it leads.
