@@ -71,24 +71,7 @@ func writeAssignments(w io.Writer, job *modelfile.Job) {
 	}
 	fmt.Fprintf(w, "assignments:    %d, applied in file order\n", len(job.Assignments))
 	for _, a := range job.Assignments {
-		var what []string
-		if a.Section != "" {
-			what = append(what, "section "+a.Section)
-		}
-		if a.Release != "" {
-			what = append(what, "release "+a.Release)
-		}
-		g := func(v float64) string { return strconv.FormatFloat(v, 'g', 6, 64) }
-		if r := a.Reduction; r.Area > 0 {
-			what = append(what, "tributary_area "+g(r.Area)+" "+job.Units.Length+"²")
-		}
-		if r := a.Reduction; r.Width > 0 {
-			what = append(what, "tributary_width "+g(r.Width)+" "+job.Units.Length)
-		}
-		if r := a.Reduction; r.KLL > 0 {
-			what = append(what, "kll "+g(r.KLL))
-		}
-		fmt.Fprintf(w, "  line %-6d %s on %s: %d members\n", a.Line, report.Escape(strings.Join(what, ", ")), report.Escape(quoted(a.On)), len(a.Members))
+		fmt.Fprintf(w, "  line %-6d %s on %s: %d members\n", a.Line, report.Escape(a.What(job.Units.Length)), report.Escape(quoted(a.On)), len(a.Members))
 	}
 	if len(job.Overlaps) == 0 {
 		fmt.Fprintf(w, "overlaps:       none\n")

@@ -3,6 +3,8 @@ package modelfile
 import (
 	"fmt"
 	"slices"
+	"strconv"
+	"strings"
 
 	"govern/envelope/reduction"
 	"govern/frame"
@@ -19,6 +21,29 @@ type Assignment struct {
 	// model's units; the zero value when none.
 	Reduction reduction.Member
 	Members   []int // the members picked, in model order
+}
+
+// What says what the assignment gives, such as "section C600, release
+// both" or "kll 3", with lengths and areas in length, the model's unit.
+func (a Assignment) What(length string) string {
+	var what []string
+	if a.Section != "" {
+		what = append(what, "section "+a.Section)
+	}
+	if a.Release != "" {
+		what = append(what, "release "+a.Release)
+	}
+	g := func(v float64) string { return strconv.FormatFloat(v, 'g', 6, 64) }
+	if r := a.Reduction; r.Area > 0 {
+		what = append(what, "tributary_area "+g(r.Area)+" "+length+"²")
+	}
+	if r := a.Reduction; r.Width > 0 {
+		what = append(what, "tributary_width "+g(r.Width)+" "+length)
+	}
+	if r := a.Reduction; r.KLL > 0 {
+		what = append(what, "kll "+g(r.KLL))
+	}
+	return strings.Join(what, ", ")
 }
 
 // Overlap is a section or release given to members twice: by a table
