@@ -53,6 +53,7 @@ const (
 	ENCategory   Limit = "category not reduced (EN 1991-1-1 6.3.1.2(10))"
 	ENCD         Limit = "0.60 for categories C and D"
 	ENOne        Limit = "not above 1.0"
+	ENFewStoreys Limit = "αn only for more than two storeys"
 )
 
 // Floor returns the factor L/Lo of ASCE/SEI 7-16 4.7.2 (Eq. 4.7-1) for a

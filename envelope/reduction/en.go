@@ -40,7 +40,7 @@ func AlphaN(cat string, psi0 float64, n int) (float64, Limit) {
 		return 1, ENCategory
 	}
 	if n <= 2 {
-		return 1, ENOne
+		return 1, ENFewStoreys
 	}
 	return (2 + float64(n-2)*psi0) / float64(n), NoneApplied
 }
