@@ -225,3 +225,52 @@ func TestCheckListsFactors(t *testing.T) {
 		}
 	}
 }
+
+// TestColumnsReducedReactions: the table of the reduced cases' reactions
+// on testdata/tables/reduced-frame.toml. "unreduced" is the case's
+// reaction as solved: the three vertical ones carry the whole floor load,
+// 2.4 kN/m² × 18 m × 9 m × 2 floors = 777.6 kN (statics); "reduced" is
+// each member's end force times its factor, here the one column at each
+// support: Fy by the column's N factor, Fx and M by its V and M factor
+// (ASCE/SEI 7-16 Eq. 4.7-1: interior 0.4295, V M 0.5039; exterior 0.5039,
+// V M 0.6091).
+func TestColumnsReducedReactions(t *testing.T) {
+	f := func(kll, at float64) float64 { return 0.25 + 4.57/math.Sqrt(kll*at) }
+	factors := map[string][3]float64{
+		// N, V, M: two floors, and one floor at the column's top.
+		"A0": {f(4, 81), f(4, 40.5), f(4, 40.5)}, "B0": {f(4, 162), f(4, 81), f(4, 81)}, "C0": {f(4, 81), f(4, 40.5), f(4, 40.5)},
+	}
+	comp := map[string]int{"Fx (kN)": 0, "Fy (kN)": 1, "M (kN·m)": 2}
+	order := [3]int{1, 0, 2} // Fx takes V's factor, Fy N's, M M's
+	for _, v := range columnsViews(t, "reduced-frame") {
+		t.Run(v.name, func(t *testing.T) {
+			tbs := v.tablesOf(func(h []string) bool { return len(h) == 5 && h[3] == "unreduced" && h[4] == "reduced" })
+			if len(tbs) != 1 {
+				t.Fatalf("%d tables of reduced reactions", len(tbs))
+			}
+			sum, node := 0.0, ""
+			for _, r := range tbs[0].rows {
+				if r.cells[1].text != "" {
+					node = r.cells[1].text
+				}
+				d := comp[r.cells[2].text]
+				u, err1 := strconv.ParseFloat(r.cells[3].text, 64)
+				red, err2 := strconv.ParseFloat(r.cells[4].text, 64)
+				if err1 != nil || err2 != nil {
+					t.Fatalf("row %q", renderedTexts(r.cells))
+				}
+				if d == 1 {
+					sum += u
+				}
+				// Two decimals printed: the product is within the rounding
+				// of the unreduced value times the factor, and its own.
+				if want := factors[node][order[d]] * u; math.Abs(red-want) > 0.006 {
+					t.Errorf("%s %s: reduced %g, want %g × %g = %g", node, r.cells[2].text, red, factors[node][order[d]], u, want)
+				}
+			}
+			if math.Abs(sum-777.6) > 0.015 {
+				t.Errorf("Σ unreduced Fy = %g, want 777.6", sum)
+			}
+		})
+	}
+}

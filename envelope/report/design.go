@@ -24,8 +24,11 @@ type design struct {
 	deflection *Table // nil without service combinations or spans
 	reactions  *Table // nil without supports
 	reduction  *Table // the member factors of live load reduction; nil without any
-	staticsTop string // the note above the statics table
-	statics    Table
+	// reducedReactions are the reduced cases' reactions, unreduced and
+	// reduced; nil without member factors.
+	reducedReactions *Table
+	staticsTop       string // the note above the statics table
+	statics          Table
 }
 
 // groupDesign is the tables of one floor, column line or the others.
@@ -52,6 +55,9 @@ func (p *Report) Tables() []Table {
 	}
 	if d.reduction != nil {
 		out = append(out, *d.reduction)
+	}
+	if d.reducedReactions != nil {
+		out = append(out, *d.reducedReactions)
 	}
 	return append(out, d.statics)
 }
@@ -86,6 +92,7 @@ func newDesign(p *Report) *design {
 		d.reactions.Title += reductionNote(p.job())
 	}
 	d.reduction = p.reductionTable()
+	d.reducedReactions = p.reducedReactionTable()
 	d.staticsTop, d.statics = p.staticsTable()
 	return d
 }

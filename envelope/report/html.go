@@ -151,6 +151,11 @@ func (p *Report) WriteHTML(w io.Writer) error {
 		if err := (htmlTables{h: h, heading: "h3"}).table(*t); err != nil {
 			return err
 		}
+		if r := d.reducedReactions; r != nil {
+			if err := (htmlTables{h: h, heading: "h3"}).table(*r); err != nil {
+				return err
+			}
+		}
 		h.raw("</section>\n")
 	}
 	p.htmlCombinations(h)

@@ -205,3 +205,42 @@ func writeReductionCheck(w io.Writer, job *analysis.Job) {
 		}
 	}
 }
+
+// reducedReactionTable gives, for each case with member factors, the
+// reaction of the case alone at every support, as solved (unreduced) and
+// formed from the members' end forces times their factors (reduced;
+// analysis.Result.ReducedReactions); nil without member factors or
+// supports.
+func (p *Report) reducedReactionTable() *Table {
+	job, mo := p.job(), p.model()
+	if len(job.MemberFactors) == 0 || len(p.res.Envelope.Reactions) == 0 {
+		return nil
+	}
+	var rows [][]string
+	for c := range mo.Cases {
+		reduced := false
+		for _, f := range job.MemberFactors {
+			reduced = reduced || f.Case == c
+		}
+		if !reduced {
+			continue
+		}
+		name := mo.Cases[c].Name
+		for _, r := range p.res.ReducedReactions(c) {
+			node := mo.Nodes[r.Node]
+			nodeName := node.Name
+			for d, e := range []struct {
+				label string
+				s     analysis.Shown
+			}{{"Fx (" + p.force.Label + ")", p.force}, {"Fy (" + p.force.Label + ")", p.force}, {"M (" + p.moment.Label + ")", p.moment}} {
+				if !node.Reacts(d) {
+					continue
+				}
+				rows = append(rows, []string{name, nodeName, e.label, fixed(e.s.Of(r.Unreduced[d])), fixed(e.s.Of(r.Reduced[d]))})
+				name, nodeName = "", ""
+			}
+		}
+	}
+	return &Table{Title: "Reactions of the reduced cases alone (global: +X right, +Y up, M counter-clockwise): as solved, and from each member's end force times its factor",
+		Header: []string{"case", "node", "component", "unreduced", "reduced"}, Rows: rows}
+}

@@ -92,7 +92,7 @@ func (p *Report) WriteText(w io.Writer, crossCheck bool) error {
 			}
 		}
 	}
-	for _, t := range []*Table{d.deflection, d.reactions, d.reduction} {
+	for _, t := range []*Table{d.deflection, d.reactions, d.reduction, d.reducedReactions} {
 		if t != nil {
 			if err := tb.table(*t); err != nil {
 				return err
