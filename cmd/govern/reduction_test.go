@@ -123,6 +123,10 @@ func TestReducedJSONAndCSV(t *testing.T) {
 			t.Fatalf("exit %d: %s", code, stderr)
 		}
 		var doc struct {
+			Reduced []struct {
+				Case, Node         string
+				Unreduced, Reduced map[string]float64
+			} `json:"reduced_case_reactions"`
 			Members []struct {
 				Name      string
 				Reduction []struct {
@@ -160,6 +164,19 @@ func TestReducedJSONAndCSV(t *testing.T) {
 		}
 		if !found {
 			t.Fatal("no member B0-B1")
+		}
+		// The reduced case's reactions: under B0-B1, Fy unreduced and
+		// reduced by its N factor; Σ unreduced Fy = 777.6 kN (statics:
+		// 2.4 kN/m² × 18 m × 9 m × 2 floors).
+		sum := 0.0
+		for _, r := range doc.Reduced {
+			sum += r.Unreduced["Fy"]
+			if r.Node == "B0" && (r.Case != "L" || math.Abs(r.Reduced["Fy"]-n*r.Unreduced["Fy"]) > 1e-6) {
+				t.Errorf("B0: %+v, want Fy reduced by %g", r, n)
+			}
+		}
+		if len(doc.Reduced) != 3 || math.Abs(sum-777.6) > 1e-6 {
+			t.Errorf("%d reduced case reactions, Σ Fy %g; want 3 and 777.6", len(doc.Reduced), sum)
 		}
 	})
 	t.Run("csv", func(t *testing.T) {

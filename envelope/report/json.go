@@ -140,7 +140,9 @@ func (p *Report) WriteJSON(w io.Writer) error {
 		}
 		j.raw("}")
 	}
-	j.raw("\n ],\n \"statics\": [")
+	j.raw("\n ]")
+	p.jsonReducedReactions(j)
+	j.raw(",\n \"statics\": [")
 	for i, b := range p.res.Statics {
 		res := func(r frame.Resultant) {
 			j.raw("{\"Fx\": ").num(p.force.Of(r.Fx)).raw(", \"Fy\": ").num(p.force.Of(r.Fy)).raw(", \"M\": ").num(p.moment.Of(r.M)).raw("}")
@@ -183,6 +185,52 @@ func (p *Report) jsonFactors(j *jsonWriter, fs []analysis.MemberFactor) {
 		j.raw(", \"floors\": ").int(b.Floors).raw(", \"limit\": ").str(b.Limit).raw(", \"ends\": ").str(b.Ends).raw("}")
 	}
 	j.raw("]")
+}
+
+// jsonReducedReactions writes, with member factors, each reduced case's
+// reactions alone at every support, as solved and reduced (docs/output.md).
+func (p *Report) jsonReducedReactions(j *jsonWriter) {
+	job, mo := p.job(), p.model()
+	if len(job.MemberFactors) == 0 {
+		return
+	}
+	j.raw(",\n \"reduced_case_reactions\": [")
+	n := 0
+	for c := range mo.Cases {
+		reduced := false
+		for _, f := range job.MemberFactors {
+			reduced = reduced || f.Case == c
+		}
+		if !reduced {
+			continue
+		}
+		for _, r := range p.res.ReducedReactions(c) {
+			nd := &mo.Nodes[r.Node]
+			j.sep(n, ",").raw("\n  {\"case\": ").str(mo.Cases[c].Name).raw(", \"node\": ").str(nd.Name)
+			for _, v := range []struct {
+				key string
+				x   [3]float64
+			}{{"unreduced", r.Unreduced}, {"reduced", r.Reduced}} {
+				j.raw(", \"").raw(v.key).raw("\": {")
+				k := 0
+				for d, name := range reactionForces {
+					if !nd.Reacts(d) {
+						continue
+					}
+					s := p.force
+					if d == 2 {
+						s = p.moment
+					}
+					j.sep(k, ", ").raw("\"").raw(name).raw("\": ").num(s.Of(v.x[d]))
+					k++
+				}
+				j.raw("}")
+			}
+			j.raw("}")
+			n++
+		}
+	}
+	j.raw("\n ]")
 }
 
 // jsonSpans writes the spans and cantilevers with their deflections.
