@@ -115,8 +115,12 @@ func (e *evaluator) setFactors(f *Factors, cs []combos.Combination) {
 	// The cases whose factor depends on the combination.
 	var varying []int
 	for c := range e.nOrig {
-		for _, row := range f.Accompanying {
-			if row != nil {
+		for m, row := range f.Accompanying {
+			of := [3]float64{1, 1, 1}
+			if m < len(f.Of) && f.Of[m] != nil {
+				of = f.Of[m][c]
+			}
+			if row != nil && row[c] != of {
 				varying = append(varying, c)
 				break
 			}

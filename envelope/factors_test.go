@@ -208,3 +208,33 @@ func TestFactorsChecked(t *testing.T) {
 		}
 	}
 }
+
+// The combinations are split into parts only by the cases whose factors
+// where they accompany differ from where they lead: equal ones give one
+// table, and one differing case two parts (it leads or not).
+func TestFactorsPartsOnlyWhereTheyDiffer(t *testing.T) {
+	sol, err := frame.Solve(twoSpans(8, 20, 15))
+	if err != nil {
+		t.Fatal(err)
+	}
+	cs := []combos.Combination{
+		{Name: "L1 leads", Terms: []combos.Term{{Case: 1, Factor: 1.5}, {Case: 2, Factor: 1.05}}, Lead: []int{1}},
+		{Name: "L2 leads", Terms: []combos.Term{{Case: 2, Factor: 1.5}, {Case: 1, Factor: 1.05}}, Lead: []int{2}},
+		{Name: "D", Terms: []combos.Term{{Case: 0, Factor: 1.35}}, Lead: []int{0}},
+	}
+	set := Settings{Kinds: kindsOf(sol, nil), Stations: 3}
+	for _, c := range []struct {
+		name  string
+		acc   [][][3]float64
+		parts int
+	}{
+		{"same", uniform(2, 3, 0.5, 1), 0},
+		{"L1 differs", uniform(2, 3, 1, 2), 2},
+	} {
+		e := newEvaluator(sol.Model(), cs, []int{0, 1, 2}, 3, set, nil)
+		e.setFactors(&Factors{Of: uniform(2, 3, 0.5, 1), Accompanying: c.acc}, cs)
+		if len(e.parts) != c.parts {
+			t.Errorf("%s: %d parts, want %d", c.name, len(e.parts), c.parts)
+		}
+	}
+}
