@@ -17,6 +17,7 @@
 //	new      write a starting model of a regular frame to edit
 //	run      analyse a model and report its envelopes
 //	verify   run the built-in verification suite against published results
+//	version  print govern's version and source revision
 //
 // Run 'govern help <command>' for more about a command.
 //
@@ -75,12 +76,12 @@
 //
 // Usage:
 //
-//	govern demo [--json FILE] [--csv FILE] [--report FILE.html | --out DIR] [--cross-check] [--write FILE]
+//	govern demo [--json FILE] [--csv FILE] [--report FILE.html | --out DIR] [--quiet] [--compare-patterns] [--cross-check] [--strict] [--accept-ill-conditioned] [--date DATE] [--write FILE]
 //
 // Demo analyses a built-in model of a fictional five-storey, three-bay
 // reinforced concrete office frame with dead, floor live, roof live and wind
 // load cases and the strength combinations of ASCE/SEI 7-16 section 2.3.1,
-// and reports as 'govern run' does.
+// and reports as 'govern run' does, with the same flags.
 //
 // With --write FILE it writes that model out instead, as a starting point to
 // edit; an existing file is not overwritten. With --write - (or a path that
@@ -97,6 +98,8 @@
 //	  	solve every case again by moment distribution and print the largest difference in member end moments
 //	-csv FILE
 //	  	write the envelopes as CSV to FILE (- for standard output), one row per member, station and effect
+//	-date DATE
+//	  	give every output this run DATE (2006-01-02 or 2006-01-02T15:04:05Z) instead of the time now, so that a run gives the same bytes again; without it SOURCE_DATE_EPOCH (seconds since 1970) is used when set
 //	-json FILE
 //	  	write the envelopes as JSON to FILE (- for standard output)
 //	-out DIR
@@ -187,7 +190,7 @@
 //
 // Usage:
 //
-//	govern run [--json FILE] [--csv FILE] [--report FILE.html | --out DIR] [--quiet] [--compare-patterns] [--cross-check] [--strict] [--accept-ill-conditioned] MODEL.toml
+//	govern run [--json FILE] [--csv FILE] [--report FILE.html | --out DIR] [--quiet] [--compare-patterns] [--cross-check] [--strict] [--accept-ill-conditioned] [--date DATE] MODEL.toml
 //
 // Run reads the model file, solves every load case by the direct stiffness
 // method, combines the cases into the model's load combinations and reports,
@@ -221,10 +224,13 @@
 // span/deflection (over twice the length for a cantilever); a member
 // hanging from a beam or standing on it, free at its other end, does not
 // divide its span (docs/output.md); the envelopes of forces are over the
-// other, strength, combinations. The tables and the report show every beam
+// other (strength or allowable stress) combinations. The tables and the report show every beam
 // from its left end, +M sagging, whichever way it was entered; the JSON
 // and CSV keep each member's own axes.
-// Files are written whole or not at all. A run that takes more than a
+// Every file carries govern's version, the model file's name and SHA-256,
+// the run date and the model's [project] fields; --date DATE (or the
+// environment's SOURCE_DATE_EPOCH) fixes the date, so that a run can be
+// repeated byte for byte. Files are written whole or not at all. A run that takes more than a
 // second or two shows its progress on standard error when that is a
 // terminal; --quiet prints nothing but errors. When JSON or CSV goes to standard
 // output the summary tables are not printed.
@@ -278,6 +284,8 @@
 //	  	solve every case again by moment distribution and print the largest difference in member end moments
 //	-csv FILE
 //	  	write the envelopes as CSV to FILE (- for standard output), one row per member, station and effect
+//	-date DATE
+//	  	give every output this run DATE (2006-01-02 or 2006-01-02T15:04:05Z) instead of the time now, so that a run gives the same bytes again; without it SOURCE_DATE_EPOCH (seconds since 1970) is used when set
 //	-json FILE
 //	  	write the envelopes as JSON to FILE (- for standard output)
 //	-out DIR
@@ -317,4 +325,15 @@
 //
 //	-markdown
 //	  	write the report as Markdown
+//
+// # Print govern's version and source revision
+//
+// Usage:
+//
+//	govern version
+//
+// Version prints the version of govern and, when the build records it, the
+// source revision (commit) it was built from and whether that source had
+// changes not committed. 'govern --version' does the same. Every output
+// file of a run carries the same line.
 package main

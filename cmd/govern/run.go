@@ -25,6 +25,7 @@ type runFlags struct {
 	quiet           bool
 	acceptIll       bool
 	strict          bool
+	date            string
 }
 
 // options returns the analysis options the flags ask for, with progress
@@ -46,12 +47,13 @@ func (f *runFlags) add(fs *flag.FlagSet) {
 	fs.BoolVar(&f.quiet, "quiet", false, "print nothing on success: no tables, no progress line (files are still written)")
 	fs.BoolVar(&f.crossCheck, "cross-check", false, "solve every case again by moment distribution and print the largest difference in member end moments")
 	fs.BoolVar(&f.strict, "strict", false, "treat every warning as an error: a model with numbers that look like a slip of units, or an ill-conditioned stiffness matrix, gives no results")
+	fs.StringVar(&f.date, "date", "", "give every output this run `DATE` (2006-01-02 or 2006-01-02T15:04:05Z) instead of the time now, so that a run gives the same bytes again; without it SOURCE_DATE_EPOCH (seconds since 1970) is used when set")
 	fs.BoolVar(&f.acceptIll, "accept-ill-conditioned", false, fmt.Sprintf("solve a model whose stiffness matrix has an estimated condition number above %.0e (fewer than three correct digits left), which is refused otherwise; every output then carries the estimate", frame.RefuseCond))
 }
 
 var cmdRun = &command{
 	name:  "run",
-	usage: "[--json FILE] [--csv FILE] [--report FILE.html | --out DIR] [--quiet] [--compare-patterns] [--cross-check] [--strict] [--accept-ill-conditioned] MODEL.toml",
+	usage: "[--json FILE] [--csv FILE] [--report FILE.html | --out DIR] [--quiet] [--compare-patterns] [--cross-check] [--strict] [--accept-ill-conditioned] [--date DATE] MODEL.toml",
 	short: "analyse a model and report its envelopes",
 	long: fmt.Sprintf(`
 Run reads the model file, solves every load case by the direct stiffness
@@ -86,10 +88,13 @@ from their chords and its ridge across the line between the eaves, with
 span/deflection (over twice the length for a cantilever); a member
 hanging from a beam or standing on it, free at its other end, does not
 divide its span (docs/output.md); the envelopes of forces are over the
-other, strength, combinations. The tables and the report show every beam
+other (strength or allowable stress) combinations. The tables and the report show every beam
 from its left end, +M sagging, whichever way it was entered; the JSON
 and CSV keep each member's own axes.
-Files are written whole or not at all. A run that takes more than a
+Every file carries govern's version, the model file's name and SHA-256,
+the run date and the model's [project] fields; --date DATE (or the
+environment's SOURCE_DATE_EPOCH) fixes the date, so that a run can be
+repeated byte for byte. Files are written whole or not at all. A run that takes more than a
 second or two shows its progress on standard error when that is a
 terminal; --quiet prints nothing but errors. When JSON or CSV goes to standard
 output the summary tables are not printed.
@@ -152,7 +157,12 @@ func run(env *environ, f *runFlags, args []string) error {
 	if err != nil {
 		return err
 	}
-	name := filepath.Base(args[0])
+	return runModel(env, f, job, filepath.Base(args[0]), args[0])
+}
+
+// runModel analyses the model job, read from the file named name at path
+// ("" for the demonstration), as the flags ask.
+func runModel(env *environ, f *runFlags, job *modelfile.Job, name, path string) error {
 	if err := job.CheckUnused(); err != nil {
 		return err
 	}
@@ -166,12 +176,16 @@ func run(env *environ, f *runFlags, args []string) error {
 		}
 		return report.WriteComparison(env.stdout, &job.Job, rows)
 	}
-	return analyse(env, job, name, args[0], f)
+	return analyse(env, job, name, path, f)
 }
 
 // analyse runs the analysis of job, the model file named name at path (""
 // for the demonstration), and writes the results the flags ask for.
 func analyse(env *environ, job *modelfile.Job, name, path string, f *runFlags) error {
+	date, err := f.runDate()
+	if err != nil {
+		return err
+	}
 	if err := report.CheckSize(&job.Job, report.Formats{JSON: f.json != "" || f.out != "", CSV: f.csv != "" || f.out != "", HTML: f.report != "" || f.out != ""}); err != nil {
 		return fmt.Errorf("%s: %w", name, err)
 	}
@@ -191,7 +205,7 @@ func analyse(env *environ, job *modelfile.Job, name, path string, f *runFlags) e
 		return strictError(name, res.Warnings)
 	}
 	p.phase("writing results", 0)
-	err = writeResults(env.stdout, path, f, res)
+	err = writeResults(env.stdout, path, f, report.New(res).From(source(job, name, date)))
 	p.end()
 	// After the progress line is gone, and below the tables.
 	env.warn(name, res.Warnings)
@@ -240,12 +254,11 @@ func (f *runFlags) check() error {
 
 // writeResults writes the requested files and, unless a file goes to
 // standard output, the summary tables.
-func writeResults(stdout io.Writer, model string, f *runFlags, res *analysis.Result) error {
+func writeResults(stdout io.Writer, model string, f *runFlags, rp *report.Report) error {
 	if err := f.check(); err != nil {
 		return err
 	}
 	toStdout := f.json == "-" || f.csv == "-" || f.report == "-"
-	rp := report.New(res)
 	jsonPath, csvPath, reportPath := f.json, f.csv, f.report
 	if f.out != "" {
 		jsonPath, csvPath, reportPath = filepath.Join(f.out, jsonName), filepath.Join(f.out, csvName), filepath.Join(f.out, reportName)

@@ -81,6 +81,13 @@ func (p *Report) WriteHTML(w io.Writer) error {
 	h.raw("<!DOCTYPE html>\n<html xmlns=\"http://www.w3.org/1999/xhtml\" lang=\"en\">\n<head>\n<meta charset=\"utf-8\"/>\n")
 	h.printf("<title>%s</title>\n<style>%s</style>\n</head>\n<body>\n", esc(title), reportStyle)
 	h.printf("<header>\n<h1>%s</h1>\n", esc(title))
+	if s := p.src; s != nil {
+		h.raw("<table class=\"src\"><tbody>\n")
+		for _, f := range s.fields() {
+			h.printf("<tr><th>%s</th><td>%s</td></tr>\n", esc(f[0]), esc(f[1]))
+		}
+		h.raw("</tbody></table>\n")
+	}
 	h.printf("<p class=\"meta\">Envelopes of N, V and M by the direct stiffness method; %s; %s.</p>\n",
 		esc(p.combinationCount()), esc(p.unitsText()))
 	h.printf("<p class=\"caution\"><strong>Caution.</strong> %s</p>\n", esc(Caution))
@@ -247,7 +254,7 @@ func (p *Report) htmlFigures(h *htmlOut) error {
 	key := "<span class=\"key\"><span class=\"hi-k\">red</span>: largest value, <span class=\"lo-k\">blue</span>: smallest, shaded between</span>"
 	over := "the combinations"
 	if p.overStrength() != "" {
-		over = "the strength combinations"
+		over = p.designCombinations()
 	}
 
 	h.raw("<section id=\"elevation\" class=\"part\">\n<h2>Elevation</h2>\n<figure>\n")
