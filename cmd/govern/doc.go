@@ -76,7 +76,7 @@
 //
 // Usage:
 //
-//	govern demo [--json FILE] [--csv FILE] [--report FILE.html | --out DIR] [--quiet] [--compare-patterns] [--cross-check] [--strict] [--accept-ill-conditioned] [--date DATE] [--write FILE]
+//	govern demo [--json FILE] [--csv FILE] [--cases-csv FILE] [--report FILE.html | --out DIR] [--quiet] [--compare-patterns] [--cross-check] [--strict] [--accept-ill-conditioned] [--date DATE] [--write FILE]
 //
 // Demo analyses a built-in model of a fictional five-storey, three-bay
 // reinforced concrete office frame with dead, floor live, roof live and wind
@@ -92,6 +92,8 @@
 //
 //	-accept-ill-conditioned
 //	  	solve a model whose stiffness matrix has an estimated condition number above 1e+13 (fewer than three correct digits left), which is refused otherwise; every output then carries the estimate
+//	-cases-csv FILE
+//	  	write the unfactored results of every load case as CSV to FILE (- for standard output): reactions, member end forces and node displacements, one value a row
 //	-compare-patterns
 //	  	report how far the code pattern arrangements fall short of exact placement, member by member, instead of the envelopes
 //	-cross-check
@@ -103,7 +105,7 @@
 //	-json FILE
 //	  	write the envelopes as JSON to FILE (- for standard output)
 //	-out DIR
-//	  	write report.html, envelopes.json and envelopes.csv together into the folder DIR (made if missing)
+//	  	write report.html, envelopes.json, envelopes.csv and cases.csv together into the folder DIR (made if missing)
 //	-quiet
 //	  	print nothing on success: no tables, no progress line (files are still written)
 //	-report FILE
@@ -190,7 +192,7 @@
 //
 // Usage:
 //
-//	govern run [--json FILE] [--csv FILE] [--report FILE.html | --out DIR] [--quiet] [--compare-patterns] [--cross-check] [--strict] [--accept-ill-conditioned] [--date DATE] MODEL.toml
+//	govern run [--json FILE] [--csv FILE] [--cases-csv FILE] [--report FILE.html | --out DIR] [--quiet] [--compare-patterns] [--cross-check] [--strict] [--accept-ill-conditioned] [--date DATE] MODEL.toml
 //
 // Run reads the model file, solves every load case by the direct stiffness
 // method, combines the cases into the model's load combinations and reports,
@@ -206,13 +208,16 @@
 //
 // With --json or --csv the full envelopes, at every station of every member,
 // are written to a file as well; flags may come before or after the model path.
+// The JSON, the report and --cases-csv give the unfactored results of every
+// load case (a patterned one with every span loaded): reactions, member end
+// forces and node displacements.
 // With --report a report is written as one HTML page that needs no network
 // and no script: the frame drawn to scale with its moment, shear, axial
 // force and deflection envelopes, the design values and the station tables
 // floor by floor and column line by column line, the reactions, the
 // combinations, the statics check and the caution; it prints on A4 or
-// Letter paper in landscape. --out DIR writes report.html, envelopes.json
-// and envelopes.csv together into DIR.
+// Letter paper in landscape. --out DIR writes report.html, envelopes.json,
+// envelopes.csv and cases.csv together into DIR.
 //
 // A section may give its depth: a beam framing into a column whose section
 // has one gets stations at the faces of the column, and the tables show the
@@ -278,6 +283,8 @@
 //
 //	-accept-ill-conditioned
 //	  	solve a model whose stiffness matrix has an estimated condition number above 1e+13 (fewer than three correct digits left), which is refused otherwise; every output then carries the estimate
+//	-cases-csv FILE
+//	  	write the unfactored results of every load case as CSV to FILE (- for standard output): reactions, member end forces and node displacements, one value a row
 //	-compare-patterns
 //	  	report how far the code pattern arrangements fall short of exact placement, member by member, instead of the envelopes
 //	-cross-check
@@ -289,7 +296,7 @@
 //	-json FILE
 //	  	write the envelopes as JSON to FILE (- for standard output)
 //	-out DIR
-//	  	write report.html, envelopes.json and envelopes.csv together into the folder DIR (made if missing)
+//	  	write report.html, envelopes.json, envelopes.csv and cases.csv together into the folder DIR (made if missing)
 //	-quiet
 //	  	print nothing on success: no tables, no progress line (files are still written)
 //	-report FILE

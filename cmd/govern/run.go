@@ -19,6 +19,7 @@ import (
 
 type runFlags struct {
 	json, csv       string
+	casesCSV        string
 	report, out     string
 	comparePatterns bool
 	crossCheck      bool
@@ -41,8 +42,9 @@ func (f *runFlags) options(p *progress) analysis.Options {
 func (f *runFlags) add(fs *flag.FlagSet) {
 	fs.StringVar(&f.json, "json", "", "write the envelopes as JSON to `FILE` (- for standard output)")
 	fs.StringVar(&f.csv, "csv", "", "write the envelopes as CSV to `FILE` (- for standard output), one row per member, station and effect")
+	fs.StringVar(&f.casesCSV, "cases-csv", "", "write the unfactored results of every load case as CSV to `FILE` (- for standard output): reactions, member end forces and node displacements, one value a row")
 	fs.StringVar(&f.report, "report", "", "write a report as one self-contained HTML page to `FILE` (- for standard output): the frame and its envelopes drawn, tables floor by floor, reactions, combinations, statics check")
-	fs.StringVar(&f.out, "out", "", "write "+reportName+", "+jsonName+" and "+csvName+" together into the folder `DIR` (made if missing)")
+	fs.StringVar(&f.out, "out", "", "write "+reportName+", "+jsonName+", "+csvName+" and "+casesName+" together into the folder `DIR` (made if missing)")
 	fs.BoolVar(&f.comparePatterns, "compare-patterns", false, "report how far the code pattern arrangements fall short of exact placement, member by member, instead of the envelopes")
 	fs.BoolVar(&f.quiet, "quiet", false, "print nothing on success: no tables, no progress line (files are still written)")
 	fs.BoolVar(&f.crossCheck, "cross-check", false, "solve every case again by moment distribution and print the largest difference in member end moments")
@@ -53,7 +55,7 @@ func (f *runFlags) add(fs *flag.FlagSet) {
 
 var cmdRun = &command{
 	name:  "run",
-	usage: "[--json FILE] [--csv FILE] [--report FILE.html | --out DIR] [--quiet] [--compare-patterns] [--cross-check] [--strict] [--accept-ill-conditioned] [--date DATE] MODEL.toml",
+	usage: "[--json FILE] [--csv FILE] [--cases-csv FILE] [--report FILE.html | --out DIR] [--quiet] [--compare-patterns] [--cross-check] [--strict] [--accept-ill-conditioned] [--date DATE] MODEL.toml",
 	short: "analyse a model and report its envelopes",
 	long: fmt.Sprintf(`
 Run reads the model file, solves every load case by the direct stiffness
@@ -70,13 +72,16 @@ placement at its worst station, and which spans make the difference.
 
 With --json or --csv the full envelopes, at every station of every member,
 are written to a file as well; flags may come before or after the model path.
+The JSON, the report and --cases-csv give the unfactored results of every
+load case (a patterned one with every span loaded): reactions, member end
+forces and node displacements.
 With --report a report is written as one HTML page that needs no network
 and no script: the frame drawn to scale with its moment, shear, axial
 force and deflection envelopes, the design values and the station tables
 floor by floor and column line by column line, the reactions, the
 combinations, the statics check and the caution; it prints on A4 or
-Letter paper in landscape. --out DIR writes report.html, envelopes.json
-and envelopes.csv together into DIR.
+Letter paper in landscape. --out DIR writes report.html, envelopes.json,
+envelopes.csv and cases.csv together into DIR.
 
 A section may give its depth: a beam framing into a column whose section
 has one gets stations at the faces of the column, and the tables show the
@@ -217,6 +222,7 @@ const (
 	reportName = "report.html"
 	jsonName   = "envelopes.json"
 	csvName    = "envelopes.csv"
+	casesName  = "cases.csv"
 )
 
 // toStdout turns each output path that names the file standard output
@@ -224,30 +230,31 @@ const (
 // standard output and leaves out the summary.
 func (f *runFlags) toStdout(stdout io.Writer) {
 	f.json, f.csv, f.report = files.StdoutPath(stdout, f.json), files.StdoutPath(stdout, f.csv), files.StdoutPath(stdout, f.report)
+	f.casesCSV = files.StdoutPath(stdout, f.casesCSV)
 }
 
 // check refuses combinations of flags that cannot be honoured.
 func (f *runFlags) check() error {
-	if f.out != "" && (f.json != "" || f.csv != "" || f.report != "") {
-		return usagef("--out writes %s, %s and %s into its folder; leave out --json, --csv and --report", reportName, jsonName, csvName)
+	if f.out != "" && (f.json != "" || f.csv != "" || f.report != "" || f.casesCSV != "") {
+		return usagef("--out writes %s, %s, %s and %s into its folder; leave out --json, --csv, --cases-csv and --report", reportName, jsonName, csvName, casesName)
 	}
 	if f.out == "-" {
 		return usagef("--out names a folder, not standard output")
 	}
 	n := 0
-	for _, p := range []string{f.json, f.csv, f.report} {
+	for _, p := range []string{f.json, f.csv, f.report, f.casesCSV} {
 		if p == "-" {
 			n++
 		}
 	}
 	if n > 1 {
-		return usagef("only one of --json, --csv and --report can go to standard output")
+		return usagef("only one of --json, --csv, --cases-csv and --report can go to standard output")
 	}
 	if f.crossCheck && n > 0 {
-		return usagef("--cross-check prints a table, so --json, --csv and --report cannot go to standard output with it")
+		return usagef("--cross-check prints a table, so --json, --csv, --cases-csv and --report cannot go to standard output with it")
 	}
-	if f.comparePatterns && (f.json != "" || f.csv != "" || f.report != "" || f.out != "") {
-		return usagef("--compare-patterns writes no files; leave out --json, --csv, --report and --out")
+	if f.comparePatterns && (f.json != "" || f.csv != "" || f.report != "" || f.casesCSV != "" || f.out != "") {
+		return usagef("--compare-patterns writes no files; leave out --json, --csv, --cases-csv, --report and --out")
 	}
 	return nil
 }
@@ -258,13 +265,13 @@ func writeResults(stdout io.Writer, model string, f *runFlags, rp *report.Report
 	if err := f.check(); err != nil {
 		return err
 	}
-	toStdout := f.json == "-" || f.csv == "-" || f.report == "-"
-	jsonPath, csvPath, reportPath := f.json, f.csv, f.report
+	toStdout := f.json == "-" || f.csv == "-" || f.report == "-" || f.casesCSV == "-"
+	jsonPath, csvPath, reportPath, casesPath := f.json, f.csv, f.report, f.casesCSV
 	if f.out != "" {
-		jsonPath, csvPath, reportPath = filepath.Join(f.out, jsonName), filepath.Join(f.out, csvName), filepath.Join(f.out, reportName)
+		jsonPath, csvPath, reportPath, casesPath = filepath.Join(f.out, jsonName), filepath.Join(f.out, csvName), filepath.Join(f.out, reportName), filepath.Join(f.out, casesName)
 	}
 	var outs []files.Output
-	for _, o := range []files.Output{{Path: jsonPath, Write: rp.WriteJSON}, {Path: csvPath, Write: rp.WriteCSV}, {Path: reportPath, Write: rp.WriteHTML}} {
+	for _, o := range []files.Output{{Path: jsonPath, Write: rp.WriteJSON}, {Path: csvPath, Write: rp.WriteCSV}, {Path: casesPath, Write: rp.WriteCasesCSV}, {Path: reportPath, Write: rp.WriteHTML}} {
 		if o.Path != "" {
 			outs = append(outs, o)
 		}

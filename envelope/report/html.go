@@ -108,7 +108,7 @@ func (p *Report) WriteHTML(w io.Writer) error {
 	for _, g := range d.groups {
 		entries = append(entries, [2]string{g.id, g.title})
 	}
-	entries = append(entries, [2]string{"reactions", "Reactions"}, [2]string{"combinations", "Load combinations"}, [2]string{"statics", "Statics check"})
+	entries = append(entries, [2]string{"reactions", "Reactions"}, [2]string{"cases", "Load case results"}, [2]string{"combinations", "Load combinations"}, [2]string{"statics", "Statics check"})
 	for _, e := range entries {
 		h.printf("<li><a href=\"#%s\">%s</a></li>\n", esc(e[0]), esc(e[1]))
 	}
@@ -153,6 +153,9 @@ func (p *Report) WriteHTML(w io.Writer) error {
 		h.raw("<p>No node is supported.</p>\n")
 	}
 	h.raw("</section>\n")
+	if err := p.htmlCases(h); err != nil {
+		return err
+	}
 	p.htmlCombinations(h)
 	h.raw("<section id=\"statics\">\n<h2>Statics check</h2>\n")
 	st := htmlTables{h: h, heading: "h3"}

@@ -144,7 +144,9 @@ func (p *Report) WriteJSON(w io.Writer) error {
 		}
 		j.raw("}")
 	}
-	j.raw("\n ],\n \"statics\": [")
+	j.raw("\n ]")
+	p.jsonCases(j)
+	j.raw(",\n \"statics\": [")
 	for i, b := range p.res.Statics {
 		res := func(r frame.Resultant) {
 			j.raw("{\"Fx\": ").num(p.force.Of(r.Fx)).raw(", \"Fy\": ").num(p.force.Of(r.Fy)).raw(", \"M\": ").num(p.moment.Of(r.M)).raw("}")

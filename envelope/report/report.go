@@ -32,6 +32,9 @@ type Report struct {
 	design *design
 
 	src *Source // nil when the results' source is not known (From)
+
+	casesOnce   sync.Once
+	caseResults []analysis.CaseResult
 }
 
 // New returns the report of res.
