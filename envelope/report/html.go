@@ -48,6 +48,9 @@ svg text { font-family: Arial, sans-serif; fill: #111; }
 .sup line { stroke: #222; stroke-width: 1px; }
 .rel circle { fill: #fff; stroke: #222; stroke-width: 1.2px; }
 .nd circle { fill: #222; }
+.ld line, .ld path.arc { stroke: #7a3b00; stroke-width: 1.2px; fill: none; }
+.ld path { fill: #7a3b00; }
+.ld path.blk { fill: #c9873c; fill-opacity: .35; stroke: #7a3b00; stroke-width: 1px; }
 .mn text { fill: #555; }
 .band { fill: #8a8a8a; fill-opacity: .25; stroke: none; }
 .hi { fill: none; stroke: #b3261e; stroke-width: 1.3px; }
@@ -98,7 +101,7 @@ func (p *Report) WriteHTML(w io.Writer) error {
 
 	d := p.tables()
 	h.raw("<nav><h2>Contents</h2><ol>\n")
-	entries := [][2]string{{"model", "Model"}, {"elevation", "Elevation"}, {"moment", "Moment envelope"}, {"shear", "Shear envelope"}}
+	entries := [][2]string{{"model", "Model"}, {"loads", "Loads"}, {"elevation", "Elevation"}, {"moment", "Moment envelope"}, {"shear", "Shear envelope"}}
 	if p.hasColumns() {
 		entries = append(entries, [2]string{"axial", "Axial force envelope of the columns"})
 	}
@@ -115,6 +118,9 @@ func (p *Report) WriteHTML(w io.Writer) error {
 	h.raw("</ol></nav>\n")
 
 	p.htmlModel(h)
+	if err := p.htmlLoads(h); err != nil {
+		return err
+	}
 	if err := p.htmlFigures(h); err != nil {
 		return err
 	}
@@ -217,10 +223,16 @@ func (p *Report) htmlModel(h *htmlOut) {
 		if s.Depth > 0 {
 			depth = plain(s.Depth)
 		}
-		rows = append(rows, []string{s.Name, plain(s.E), plain(s.A), plain(s.I), plain(s.Weight), depth, strconv.Itoa(count[i])})
+		alpha := "-"
+		if s.Alpha > 0 {
+			alpha = plain(s.Alpha)
+		}
+		rows = append(rows, []string{s.Name, plain(s.E), plain(s.A), plain(s.I), plain(s.Weight), depth, alpha, strconv.Itoa(count[i])})
 	}
 	l := u.Length
-	tb.table(Table{"Sections", []string{"section", "E (" + u.Force + "/" + l + "²)", "A (" + l + "²)", "I (" + l + "⁴)", "weight (" + u.Force + "/" + l + ")", "depth (" + l + ")", "members"}, rows})
+	tb.table(Table{"Sections", []string{"section", "E (" + u.Force + "/" + l + "²)", "A (" + l + "²)", "I (" + l + "⁴)", "weight (" + u.Force + "/" + l + ")", "depth (" + l + ")", "α (per degree)", "members"}, rows})
+	p.htmlNodes(tb)
+	p.htmlMembers(tb)
 
 	rows = rows[:0]
 	patterned := map[int]bool{}
