@@ -73,3 +73,22 @@ func TestEnteredLoads(t *testing.T) {
 		t.Errorf("entered %+v", e)
 	}
 }
+
+func TestAllowableCombination(t *testing.T) {
+	t.Run("read", func(t *testing.T) {
+		job, err := Read("m.toml", []byte(base+"allowable = true\n"))
+		if err != nil {
+			t.Fatal(err)
+		}
+		if cb := job.Combinations[0]; !cb.Allowable || cb.Service {
+			t.Errorf("combination %+v, want allowable", cb)
+		}
+	})
+	t.Run("not with service", func(t *testing.T) {
+		_, err := Read("m.toml", []byte(base+"allowable = true\nservice = true\n"))
+		want := `m.toml:31: combination "1.4G": allowable = true with service = true`
+		if err == nil || !strings.Contains(err.Error(), want) {
+			t.Errorf("error %v, want %q", err, want)
+		}
+	})
+}
