@@ -196,3 +196,31 @@ func TestCaseResultsCantilever(t *testing.T) {
 		t.Errorf("a reaction at the free end")
 	}
 }
+
+// TestCaseResultsReleasedNode: testdata/released-node.toml, two simple
+// spans of 5 m made with releases at B, w = 5 kN/m: reactions wL/2 = 12.5
+// kN at A and C and wL = 25 kN at B, no moment at B (by statics); B has no
+// one rotation, so the JSON leaves out its rz, the CSV has no row for it
+// and the report says "free".
+func TestCaseResultsReleasedNode(t *testing.T) {
+	cases, csvValues, tables := caseRun(t, "../../testdata/released-node.toml")
+	c := cases[0]
+	for _, d := range c.Displacements {
+		if (d.Node == "B") != (d.Rz == nil) {
+			t.Errorf("node %s: rz %v", d.Node, d.Rz)
+		}
+	}
+	name := c.Name
+	for key, want := range map[string]float64{"/reaction/A//Fy": 12.5, "/reaction/B//Fy": 25, "/reaction/C//Fy": 12.5, "/member/A-B/end/M": 0} {
+		if got, ok := csvValues[name+key]; !ok || !nearly(got, want) {
+			t.Errorf("CSV %s%s = %g (%v), want %g", name, key, got, ok, want)
+		}
+	}
+	if _, ok := csvValues[name+"/displacement/B//rz"]; ok {
+		t.Errorf("CSV has a rotation of B")
+	}
+	d := reportTable(t, tables, "Node displacements of "+name)
+	if got := strings.Join(cellsOf(d.rows[1]), " "); !strings.HasPrefix(got, "B ") || !strings.HasSuffix(got, " free") {
+		t.Errorf("report row %q, want B's rotation free", got)
+	}
+}

@@ -191,7 +191,7 @@ func analyse(env *environ, job *modelfile.Job, name, path string, f *runFlags) e
 	if err != nil {
 		return err
 	}
-	if err := report.CheckSize(&job.Job, report.Formats{JSON: f.json != "" || f.out != "", CSV: f.csv != "" || f.out != "", HTML: f.report != "" || f.out != ""}); err != nil {
+	if err := report.CheckSize(&job.Job, report.Formats{JSON: f.json != "" || f.out != "", CSV: f.csv != "" || f.out != "", HTML: f.report != "" || f.out != "", Cases: f.casesCSV != "" || f.out != ""}); err != nil {
 		return fmt.Errorf("%s: %w", name, err)
 	}
 	p := newProgress(env.stderr, env.name, f.quiet)
