@@ -63,7 +63,7 @@ func TestSourceInEveryOutput(t *testing.T) {
 	hash := hex.EncodeToString(sum[:])
 	version := report.ReadBuild().String()
 
-	run := func(t *testing.T, args ...string) (js, cs, page []byte) {
+	run := func(t *testing.T, args ...string) (js, cs, cases, page []byte) {
 		t.Helper()
 		dir := filepath.Join(t.TempDir(), "out")
 		if code, _, stderr := exec(append(append([]string{"run", "--quiet", "--out", dir}, args...), model)...); code != 0 {
@@ -76,9 +76,9 @@ func TestSourceInEveryOutput(t *testing.T) {
 			}
 			return b
 		}
-		return read(jsonName), read(csvName), read(reportName)
+		return read(jsonName), read(csvName), read(casesName), read(reportName)
 	}
-	check := func(t *testing.T, js, cs, page []byte, date string) {
+	check := func(t *testing.T, js, cs, cases, page []byte, date string) {
 		t.Helper()
 		var doc struct {
 			Source struct {
@@ -113,6 +113,20 @@ func TestSourceInEveryOutput(t *testing.T) {
 		if want := map[string]string{"program": version, "model_file": "office frame.toml", "model_sha256": hash, "run_date": date}; !equalMaps(got, want) {
 			t.Errorf("CSV source rows %v, want %v", got, want)
 		}
+		rows, err = csv.NewReader(bytes.NewReader(cases)).ReadAll()
+		if err != nil {
+			t.Fatal(err)
+		}
+		got = map[string]string{}
+		for _, r := range rows[len(rows)-sourceRows:] {
+			if r[1] != "source" {
+				t.Errorf("cases CSV row %q is not the source's", r)
+			}
+			got[r[2]] = r[5]
+		}
+		if want := map[string]string{"program": version, "model_file": "office frame.toml", "model_sha256": hash, "run_date": date}; !equalMaps(got, want) {
+			t.Errorf("cases CSV source rows %v, want %v", got, want)
+		}
 		// The page's header: each field in a row of its own.
 		header := string(page[:bytes.Index(page, []byte("</header>"))])
 		for _, f := range [][2]string{{"program", version}, {"model file", "office frame.toml"}, {"SHA-256", hash}, {"run date", date},
@@ -123,17 +137,17 @@ func TestSourceInEveryOutput(t *testing.T) {
 		}
 	}
 	t.Run("--date", func(t *testing.T) {
-		js, cs, page := run(t, "--date", "2026-03-04")
-		check(t, js, cs, page, "2026-03-04T00:00:00Z")
-		js2, cs2, page2 := run(t, "--date", "2026-03-04T00:00:00Z")
-		if !bytes.Equal(js, js2) || !bytes.Equal(cs, cs2) || !bytes.Equal(page, page2) {
+		js, cs, cases, page := run(t, "--date", "2026-03-04")
+		check(t, js, cs, cases, page, "2026-03-04T00:00:00Z")
+		js2, cs2, cases2, page2 := run(t, "--date", "2026-03-04T00:00:00Z")
+		if !bytes.Equal(js, js2) || !bytes.Equal(cs, cs2) || !bytes.Equal(cases, cases2) || !bytes.Equal(page, page2) {
 			t.Errorf("two runs with one date differ")
 		}
 	})
 	t.Run("SOURCE_DATE_EPOCH", func(t *testing.T) {
 		t.Setenv("SOURCE_DATE_EPOCH", "1700000000") // 2023-11-14T22:13:20Z
-		js, cs, page := run(t)
-		check(t, js, cs, page, "2023-11-14T22:13:20Z")
+		js, cs, cases, page := run(t)
+		check(t, js, cs, cases, page, "2023-11-14T22:13:20Z")
 	})
 	t.Run("a date that is not one", func(t *testing.T) {
 		code, _, stderr := exec("run", "--quiet", "--json", filepath.Join(t.TempDir(), "x.json"), "--date", "4 March", model)

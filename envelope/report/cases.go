@@ -112,6 +112,15 @@ func (p *Report) WriteCasesCSV(w io.Writer) error {
 			}
 		}
 	}
+	if s := p.src; s != nil {
+		// The source, a row each: result "source", its name under name
+		// and its value under value.
+		for _, f := range s.csvFields() {
+			if err := cw.Write([]string{"", "source", f[0], "", "", f[1], ""}); err != nil {
+				return err
+			}
+		}
+	}
 	cw.Flush()
 	return cw.Error()
 }
