@@ -144,3 +144,101 @@ func TestReportEchoesEveryInput(t *testing.T) {
 		})
 	}
 }
+
+// loadDrawing returns the arrows (x1, y1, x2, y2 of each line) and the
+// texts of the loading drawing of case number c (from 1) of a report.
+func loadDrawing(t *testing.T, page []byte, c int) (arrows [][4]float64, texts []string) {
+	t.Helper()
+	s := string(page)
+	i := strings.Index(s, fmt.Sprintf(`<section id="loads-%d">`, c))
+	if i < 0 {
+		t.Fatalf("no loads of case %d", c)
+	}
+	i += strings.Index(s[i:], `<g class="ld"`)
+	j := i + strings.Index(s[i:], "</svg>")
+	d := xml.NewDecoder(strings.NewReader(s[i:j]))
+	inText := false
+	for {
+		tok, err := d.Token()
+		if err != nil {
+			break
+		}
+		switch x := tok.(type) {
+		case xml.StartElement:
+			switch x.Name.Local {
+			case "line":
+				var a [4]float64
+				for _, at := range x.Attr {
+					k := strings.Index("x1y1x2y2", at.Name.Local) / 2
+					a[k], _ = strconv.ParseFloat(at.Value, 64)
+				}
+				arrows = append(arrows, a)
+			case "text":
+				inText = true
+			}
+		case xml.EndElement:
+			inText = false
+		case xml.CharData:
+			if inText {
+				texts = append(texts, string(x))
+			}
+		}
+	}
+	return arrows, texts
+}
+
+// TestLoadDrawing: the loading drawings of testdata/every-load.toml point
+// each arrow the way its load acts (the picture's y runs down): case D's
+// point load of 17.5 kN (gravity, positive down) from above; case W's
+// node load fx = 13.25 (written 13.2) and its point load of 3.35 along +X from the
+// left, and its fy = −2.75 (down) from above; and write each value: the
+// area load q × spacing, 3.15 × 4.25 = 13.3875 kN/m (written 13.4, as the
+// envelopes' labels: four figures or so), and the varying load
+// from 2.35 to 1.15 kN/m.
+func TestLoadDrawing(t *testing.T) {
+	page := filepath.Join(t.TempDir(), "r.html")
+	if code, _, stderr := exec("run", "--quiet", "--report", page, "../../testdata/every-load.toml"); code != 0 {
+		t.Fatalf("exit %d: %s", code, stderr)
+	}
+	src, err := os.ReadFile(page)
+	if err != nil {
+		t.Fatal(err)
+	}
+	has := func(texts []string, want string) bool {
+		for _, s := range texts {
+			if s == want {
+				return true
+			}
+		}
+		return false
+	}
+	arrows, texts := loadDrawing(t, src, 1) // D
+	if len(arrows) != 1 || !(arrows[0][0] == arrows[0][2] && arrows[0][1] < arrows[0][3]) {
+		t.Errorf("case D arrows %v, want one pointing down", arrows)
+	}
+	for _, want := range []string{"17.5", "13.4", "2.35 to 1.15"} {
+		if !has(texts, want) {
+			t.Errorf("case D's drawing lacks %q (texts %q)", want, texts)
+		}
+	}
+	arrows, texts = loadDrawing(t, src, 3) // W
+	right, down := 0, 0
+	for _, a := range arrows {
+		switch {
+		case a[1] == a[3] && a[0] < a[2]:
+			right++
+		case a[0] == a[2] && a[1] < a[3]:
+			down++
+		default:
+			t.Errorf("case W arrow %v points neither right nor down", a)
+		}
+	}
+	if right != 2 || down != 1 {
+		t.Errorf("case W: %d arrows to the right, %d down; want 2 and 1", right, down)
+	}
+	for _, want := range []string{"13.2", "3.35", "-2.75", "4.35", "8.65"} {
+		if !has(texts, want) {
+			t.Errorf("case W's drawing lacks %q (texts %q)", want, texts)
+		}
+	}
+}
