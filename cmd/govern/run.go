@@ -93,9 +93,9 @@ from their chords and its ridge across the line between the eaves, with
 span/deflection (over twice the length for a cantilever); a member
 hanging from a beam or standing on it, free at its other end, does not
 divide its span (docs/output.md); the envelopes of forces are over the
-other (strength or allowable stress) combinations. The tables and the report show every beam
-from its left end, +M sagging, whichever way it was entered; the JSON
-and CSV keep each member's own axes.
+other (strength or allowable stress) combinations. The tables and the
+report show every beam from its left end, +M sagging, whichever way it
+was entered; the JSON and CSV keep each member's own axes.
 Every file carries govern's version, the model file's name and SHA-256,
 the run date and the model's [project] fields; --date DATE (or the
 environment's SOURCE_DATE_EPOCH) fixes the date, so that a run can be
