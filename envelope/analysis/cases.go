@@ -17,12 +17,14 @@ type CaseResult struct {
 	// node for node. It is nil: Run refuses a job with member factors
 	// (ErrNotApplied) until the reduction is applied.
 	Reduced []Reaction
-	// Ends holds, per member in model order, the internal forces at its
-	// two ends in the member's own axes and signs: the values of the
-	// envelopes' stations at x = 0 and x = L (N + in tension, M + with
-	// the local −y face in tension, V = dM/dx, x from the start node;
-	// frame.Solution.At: a point load exactly at the far end is on the
-	// member's side, one exactly at the start on the node's).
+	// Ends holds, per member in model order, its end forces: the forces
+	// the nodes exert on it at its start and end, written as internal
+	// forces in the member's own axes and signs, as the envelopes'
+	// stations (N + in tension, M + with the local −y face in tension,
+	// V = dM/dx, x from the start node). They equal the stations' values
+	// at x = 0 and x = L, but for a point load or moment exactly at an
+	// end, which the member carries to the node: the end force is the
+	// node's side of it.
 	Ends []MemberEnds
 	// Displacements holds, per node in model order, its global
 	// displacements.
@@ -87,16 +89,12 @@ func (r *Result) Cases() []CaseResult {
 			cr.Reactions = append(cr.Reactions, re)
 		}
 		for m := range mo.Members {
-			// The stations' values at x = 0 and x = L (frame.Solution.At),
-			// added up over the loads the case was solved as.
-			e := MemberEnds{Member: m}
-			l := mo.Length(m)
-			for _, col := range cols {
-				a, b := r.sol.At(col, m, 0), r.sol.At(col, m, l)
-				e.Start = frame.Forces{N: e.Start.N + a.N, V: e.Start.V + a.V, M: e.Start.M + a.M}
-				e.End = frame.Forces{N: e.End.N + b.N, V: e.End.V + b.V, M: e.End.M + b.M}
-			}
-			cr.Ends[m] = e
+			f := r.endForces(c, m)
+			// The local end forces the nodes exert (frame.Solution.EndForces)
+			// as internal forces: at the start N = −f0, V = f1, M = −f2; at
+			// the end N = f3, V = −f4, M = f5. A released end's are
+			// exactly zero.
+			cr.Ends[m] = MemberEnds{Member: m, Start: frame.Forces{N: -f[0], V: f[1], M: -f[2]}, End: frame.Forces{N: f[3], V: -f[4], M: f[5]}}
 		}
 		out[c] = cr
 	}
