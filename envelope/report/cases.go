@@ -161,7 +161,7 @@ func (p *Report) htmlCases(h *htmlOut) error {
 			rows = append(rows, []string{mo.Members[e.Member].Name, mo.Nodes[from].Name, fixed(p.force.Of(a.N)), fixed(p.force.Of(a.V)), fixed(p.moment.Of(a.M)),
 				mo.Nodes[to].Name, fixed(p.force.Of(b.N)), fixed(p.force.Of(b.V)), fixed(p.moment.Of(b.M))})
 		}
-		if err := tb.table(Table{"Member end forces of " + c.Name, []string{"member", "from", "N (" + f + ")", "V (" + f + ")", "M (" + m + ")", "to", "N (" + f + ")", "V (" + f + ")", "M (" + m + ")"}, rows}); err != nil {
+		if err := tb.flow(Table{"Member end forces of " + c.Name, []string{"member", "from", "N (" + f + ")", "V (" + f + ")", "M (" + m + ")", "to", "N (" + f + ")", "V (" + f + ")", "M (" + m + ")"}, rows}, 2); err != nil {
 			return err
 		}
 		rows = nil
@@ -172,7 +172,7 @@ func (p *Report) htmlCases(h *htmlOut) error {
 			}
 			rows = append(rows, []string{mo.Nodes[x.Node].Name, sig4(p.defl.Of(x.Ux)), sig4(p.defl.Of(x.Uy)), rz})
 		}
-		if err := tb.table(Table{"Node displacements of " + c.Name, []string{"node", "ux (" + d + ")", "uy (" + d + ")", "rz (rad)"}, rows}); err != nil {
+		if err := tb.flow(Table{"Node displacements of " + c.Name, []string{"node", "ux (" + d + ")", "uy (" + d + ")", "rz (rad)"}, rows}, 3); err != nil {
 			return err
 		}
 	}

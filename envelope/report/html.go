@@ -58,10 +58,16 @@ svg text { font-family: Arial, sans-serif; fill: #111; }
 .key .hi-k { color: #b3261e; font-weight: 600; }
 .key .lo-k { color: #1d4f9c; font-weight: 600; }
 section.part { break-before: page; }
+.flow2, .flow3 { column-gap: 2em; }
+.flow2 { columns: 2; }
+.flow3 { columns: 3; }
+.flow2 table, .flow3 table { margin-top: 0; }
+figure.ld svg { max-height: 80mm; }
 @media print {
   body { margin: 0; padding: 0; max-width: none; font-size: 9pt; }
   table { font-size: 7.5pt; }
   table.st { font-size: 6.5pt; }
+  .flow2 table, .flow3 table { font-size: 6.5pt; }
   nav { display: none; }
 }
 footer { margin-top: 2em; }
@@ -488,6 +494,19 @@ func (t htmlTables) note(text string) error {
 	}
 	t.h.raw("</p>\n")
 	return t.h.err
+}
+
+// flow writes a long, narrow table flowing in n columns of the page
+// (2 or 3), so that it takes fewer pages.
+func (t htmlTables) flow(tb Table, n int) error {
+	if tb.Title != "" {
+		t.h.printf("<%s>%s</%s>\n", t.heading, esc(tb.Title), t.heading)
+		tb.Title = ""
+	}
+	t.h.printf("<div class=\"flow%d\">\n", n)
+	err := t.table(tb)
+	t.h.raw("</div>\n")
+	return err
 }
 
 func (t htmlTables) table(tb Table) error {

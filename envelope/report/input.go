@@ -34,7 +34,7 @@ func (p *Report) htmlNodes(tb htmlTables) error {
 		}
 		rows = append(rows, row)
 	}
-	return tb.table(Table{"Nodes", header, rows})
+	return tb.flow(Table{"Nodes", header, rows}, 3)
 }
 
 // supportText names what a support holds.
@@ -94,7 +94,10 @@ func (p *Report) htmlMembers(tb htmlTables) error {
 		}
 		rows = append(rows, row)
 	}
-	return tb.table(Table{"Members", header, rows})
+	if springs || zones {
+		return tb.table(Table{"Members", header, rows})
+	}
+	return tb.flow(Table{"Members", header, rows}, 2)
 }
 
 // htmlLoads writes, case by case, the loads as the model file gives them
@@ -124,8 +127,9 @@ func (p *Report) htmlLoads(h *htmlOut) error {
 		}
 		if rows := p.memberLoadRows(cs); len(rows) > 0 {
 			f, l := u.Force, u.Length
-			if err := tb.table(Table{"Member loads as applied", []string{"#", "member", "load", "direction", "from (" + l + ")", "to (" + l + ")", "w at from (" + f + "/" + l + ")", "w at to (" + f + "/" + l + ")",
-				"P (" + f + ")", "M (" + u.Moment() + ")", "at (" + l + ")", "ΔT", "ΔT across"}, rows}); err != nil {
+			t := dropEmpty(Table{"Member loads as applied", []string{"#", "member", "load", "direction", "from (" + l + ")", "to (" + l + ")", "w at from (" + f + "/" + l + ")", "w at to (" + f + "/" + l + ")",
+				"P (" + f + ")", "M (" + u.Moment() + ")", "at (" + l + ")", "ΔT", "ΔT across"}, rows})
+			if err := tb.flow(t, 2); err != nil {
 				return err
 			}
 		}
@@ -147,7 +151,7 @@ func (p *Report) htmlLoads(h *htmlOut) error {
 				return err
 			}
 		}
-		h.raw("<figure>\n")
+		h.raw("<figure class=\"ld\">\n")
 		d.open(h, "loads of case "+cs.Name)
 		d.loads(h, cs)
 		h.raw("</svg>\n")
@@ -156,6 +160,32 @@ func (p *Report) htmlLoads(h *htmlOut) error {
 	}
 	h.raw("</section>\n")
 	return h.err
+}
+
+// dropEmpty returns t without the columns that are empty in every row.
+func dropEmpty(t Table) Table {
+	keep := make([]bool, len(t.Header))
+	for _, r := range t.Rows {
+		for i, c := range r {
+			keep[i] = keep[i] || c != ""
+		}
+	}
+	out := Table{Title: t.Title}
+	for i, hd := range t.Header {
+		if keep[i] {
+			out.Header = append(out.Header, hd)
+		}
+	}
+	for _, r := range t.Rows {
+		var row []string
+		for i, c := range r {
+			if keep[i] {
+				row = append(row, c)
+			}
+		}
+		out.Rows = append(out.Rows, row)
+	}
+	return out
 }
 
 // becameText says which applied loads an entered load became, by their
