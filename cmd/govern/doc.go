@@ -101,7 +101,7 @@
 //	-csv FILE
 //	  	write the envelopes as CSV to FILE (- for standard output), one row per member, station and effect
 //	-date DATE
-//	  	give every output this run DATE (2006-01-02 or 2006-01-02T15:04:05Z) instead of the time now, so that a run gives the same bytes again; without it SOURCE_DATE_EPOCH (seconds since 1970) is used when set
+//	  	give every output this run DATE (YYYY-MM-DD, or YYYY-MM-DDThh:mm:ssZ in UTC) instead of the time now, so that a run gives the same bytes again; without it SOURCE_DATE_EPOCH (seconds since 1970) is used when set
 //	-json FILE
 //	  	write the envelopes as JSON to FILE (- for standard output)
 //	-out DIR
@@ -235,9 +235,9 @@
 // Every file carries govern's version, the model file's name and SHA-256,
 // the run date and the model's [project] fields; --date DATE (or the
 // environment's SOURCE_DATE_EPOCH) fixes the date, so that a run can be
-// repeated byte for byte. Files are written whole or not at all. A run that takes more than a
-// second or two shows its progress on standard error when that is a
-// terminal; --quiet prints nothing but errors. When JSON or CSV goes to standard
+// repeated byte for byte. Files are written whole or not at all. A run
+// that takes more than a second or two shows its progress on standard
+// error when that is a terminal; --quiet prints nothing but errors. When JSON or CSV goes to standard
 // output the summary tables are not printed.
 //
 // Every run checks statics for each load case: the reactions against the
@@ -292,7 +292,7 @@
 //	-csv FILE
 //	  	write the envelopes as CSV to FILE (- for standard output), one row per member, station and effect
 //	-date DATE
-//	  	give every output this run DATE (2006-01-02 or 2006-01-02T15:04:05Z) instead of the time now, so that a run gives the same bytes again; without it SOURCE_DATE_EPOCH (seconds since 1970) is used when set
+//	  	give every output this run DATE (YYYY-MM-DD, or YYYY-MM-DDThh:mm:ssZ in UTC) instead of the time now, so that a run gives the same bytes again; without it SOURCE_DATE_EPOCH (seconds since 1970) is used when set
 //	-json FILE
 //	  	write the envelopes as JSON to FILE (- for standard output)
 //	-out DIR

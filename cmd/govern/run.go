@@ -49,7 +49,7 @@ func (f *runFlags) add(fs *flag.FlagSet) {
 	fs.BoolVar(&f.quiet, "quiet", false, "print nothing on success: no tables, no progress line (files are still written)")
 	fs.BoolVar(&f.crossCheck, "cross-check", false, "solve every case again by moment distribution and print the largest difference in member end moments")
 	fs.BoolVar(&f.strict, "strict", false, "treat every warning as an error: a model with numbers that look like a slip of units, or an ill-conditioned stiffness matrix, gives no results")
-	fs.StringVar(&f.date, "date", "", "give every output this run `DATE` (2006-01-02 or 2006-01-02T15:04:05Z) instead of the time now, so that a run gives the same bytes again; without it SOURCE_DATE_EPOCH (seconds since 1970) is used when set")
+	fs.StringVar(&f.date, "date", "", "give every output this run `DATE` (YYYY-MM-DD, or YYYY-MM-DDThh:mm:ssZ in UTC) instead of the time now, so that a run gives the same bytes again; without it SOURCE_DATE_EPOCH (seconds since 1970) is used when set")
 	fs.BoolVar(&f.acceptIll, "accept-ill-conditioned", false, fmt.Sprintf("solve a model whose stiffness matrix has an estimated condition number above %.0e (fewer than three correct digits left), which is refused otherwise; every output then carries the estimate", frame.RefuseCond))
 }
 
@@ -99,9 +99,9 @@ was entered; the JSON and CSV keep each member's own axes.
 Every file carries govern's version, the model file's name and SHA-256,
 the run date and the model's [project] fields; --date DATE (or the
 environment's SOURCE_DATE_EPOCH) fixes the date, so that a run can be
-repeated byte for byte. Files are written whole or not at all. A run that takes more than a
-second or two shows its progress on standard error when that is a
-terminal; --quiet prints nothing but errors. When JSON or CSV goes to standard
+repeated byte for byte. Files are written whole or not at all. A run
+that takes more than a second or two shows its progress on standard
+error when that is a terminal; --quiet prints nothing but errors. When JSON or CSV goes to standard
 output the summary tables are not printed.
 
 Every run checks statics for each load case: the reactions against the

@@ -40,7 +40,7 @@ func (f *runFlags) runDate() (time.Time, error) {
 				return t.UTC(), nil
 			}
 		}
-		return time.Time{}, usagef("--date %q: give a date as 2006-01-02 or a time as 2006-01-02T15:04:05Z", f.date)
+		return time.Time{}, usagef("--date %q: give a date as YYYY-MM-DD, such as 2026-03-04, or a time as YYYY-MM-DDThh:mm:ssZ, such as 2026-03-04T09:30:00Z", f.date)
 	}
 	if s, ok := os.LookupEnv("SOURCE_DATE_EPOCH"); ok && s != "" {
 		n, err := strconv.ParseInt(s, 10, 64)
