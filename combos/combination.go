@@ -31,6 +31,11 @@ type Combination struct {
 	// term marked lead, such as the leading variable action of EN 1990
 	// 6.10); nil when not known, as for a combination written in a model.
 	Lead []int
+	// Allowable marks a combination of allowable stress design (ASCE/SEI
+	// 7-16 section 2.4): its effects are compared with allowable
+	// strengths, and outputs call it "allowable", not "strength". It
+	// changes no number.
+	Allowable bool
 }
 
 // EachCase returns one combination per case, the case alone with factor 1,

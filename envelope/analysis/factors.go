@@ -161,3 +161,13 @@ func (r *Result) ReducedReactions(c int) []CaseReaction {
 	}
 	return out
 }
+
+// reduced reports whether a member factor scales case c.
+func (r *Result) reduced(c int) bool {
+	for _, f := range r.Job.MemberFactors {
+		if f.Case == c {
+			return true
+		}
+	}
+	return false
+}

@@ -37,6 +37,13 @@ func (p *Report) WriteJSON(w io.Writer) error {
 	}
 	j.raw("{\n \"format\": ").str(JSONFormat)
 	j.raw(",\n \"title\": ").str(job.Title)
+	if s := p.src; s != nil {
+		b := s.Build
+		j.raw(",\n \"source\": {\"program\": \"govern\", \"version\": ").str(b.Version).raw(", \"revision\": ").str(b.Revision).raw(", \"modified\": ").boolean(b.Modified)
+		j.raw(", \"model_file\": ").str(s.File).raw(", \"sha256\": ").str(s.SHA256).raw(", \"date\": ").str(s.date())
+		pr := s.Project
+		j.raw(", \"project\": {\"name\": ").str(pr.Name).raw(", \"number\": ").str(pr.Number).raw(", \"engineer\": ").str(pr.Engineer).raw(", \"checker\": ").str(pr.Checker).raw("}}")
+	}
 	// The units of the numbers in the file: forces, moments and
 	// deflections in the output units, lengths and positions in the model's.
 	j.raw(",\n \"units\": {\"force\": ").str(p.force.Label).raw(", \"length\": ").str(job.Units.Length)
@@ -72,7 +79,7 @@ func (p *Report) WriteJSON(w io.Writer) error {
 				n++
 			}
 		}
-		j.raw("}, \"service\": ").boolean(cb.Service).raw("}")
+		j.raw("}, \"service\": ").boolean(cb.Service).raw(", \"use\": ").str(use(cb)).raw("}")
 	}
 	j.raw("\n ],\n \"members\": [")
 	// Each effect in its output unit: N, V and Fx, Fy forces, M moments.
@@ -141,7 +148,7 @@ func (p *Report) WriteJSON(w io.Writer) error {
 		j.raw("}")
 	}
 	j.raw("\n ]")
-	p.jsonReducedReactions(j)
+	p.jsonCases(j)
 	j.raw(",\n \"statics\": [")
 	for i, b := range p.res.Statics {
 		res := func(r frame.Resultant) {
@@ -185,52 +192,6 @@ func (p *Report) jsonFactors(j *jsonWriter, fs []analysis.MemberFactor) {
 		j.raw(", \"floors\": ").int(b.Floors).raw(", \"limit\": ").str(b.Limit).raw(", \"ends\": ").str(b.Ends).raw("}")
 	}
 	j.raw("]")
-}
-
-// jsonReducedReactions writes, with member factors, each reduced case's
-// reactions alone at every support, as solved and reduced (docs/output.md).
-func (p *Report) jsonReducedReactions(j *jsonWriter) {
-	job, mo := p.job(), p.model()
-	if len(job.MemberFactors) == 0 {
-		return
-	}
-	j.raw(",\n \"reduced_case_reactions\": [")
-	n := 0
-	for c := range mo.Cases {
-		reduced := false
-		for _, f := range job.MemberFactors {
-			reduced = reduced || f.Case == c
-		}
-		if !reduced {
-			continue
-		}
-		for _, r := range p.res.ReducedReactions(c) {
-			nd := &mo.Nodes[r.Node]
-			j.sep(n, ",").raw("\n  {\"case\": ").str(mo.Cases[c].Name).raw(", \"node\": ").str(nd.Name)
-			for _, v := range []struct {
-				key string
-				x   [3]float64
-			}{{"unreduced", r.Unreduced}, {"reduced", r.Reduced}} {
-				j.raw(", \"").raw(v.key).raw("\": {")
-				k := 0
-				for d, name := range reactionForces {
-					if !nd.Reacts(d) {
-						continue
-					}
-					s := p.force
-					if d == 2 {
-						s = p.moment
-					}
-					j.sep(k, ", ").raw("\"").raw(name).raw("\": ").num(s.Of(v.x[d]))
-					k++
-				}
-				j.raw("}")
-			}
-			j.raw("}")
-			n++
-		}
-	}
-	j.raw("\n ]")
 }
 
 // jsonSpans writes the spans and cantilevers with their deflections.
