@@ -197,6 +197,41 @@ func TestReducedJSONAndCSV(t *testing.T) {
 			}
 		}
 	})
+	t.Run("cases csv", func(t *testing.T) {
+		// The load case results, one value a row: L's reduced reactions
+		// beside its reactions, result "reduced reaction"; under B0-B1,
+		// Fy by its N factor.
+		code, out, stderr := exec("run", "--quiet", "--cases-csv", "-", model)
+		if code != 0 {
+			t.Fatalf("exit %d: %s", code, stderr)
+		}
+		rows, err := csv.NewReader(strings.NewReader(out)).ReadAll()
+		if err != nil {
+			t.Fatal(err)
+		}
+		var u, red float64
+		reduced := 0
+		for _, r := range rows[1:] {
+			if r[0] == "L" && r[2] == "B0" && r[4] == "Fy" {
+				v, _ := strconv.ParseFloat(r[5], 64)
+				switch r[1] {
+				case "reaction":
+					u = v
+				case "reduced reaction":
+					red = v
+				}
+			}
+			if r[1] == "reduced reaction" {
+				reduced++
+				if r[0] != "L" {
+					t.Errorf("case %s has a reduced reaction", r[0])
+				}
+			}
+		}
+		if reduced != 9 || u == 0 || math.Abs(red-n*u) > 1e-6 {
+			t.Errorf("%d reduced reaction rows; B0 Fy %g reduced %g, want × %g", reduced, u, red, n)
+		}
+	})
 	t.Run("csv", func(t *testing.T) {
 		code, out, stderr := exec("run", "--quiet", "--csv", "-", model)
 		if code != 0 {
@@ -305,6 +340,28 @@ func TestColumnsReducedReactions(t *testing.T) {
 			}
 			if math.Abs(sum-777.6) > 0.015 {
 				t.Errorf("Σ unreduced Fy = %g, want 777.6", sum)
+			}
+			if v.name != "report" {
+				return
+			}
+			// The report's load case results: L's reactions with the
+			// reduced ones beside them, column for column.
+			cases := v.tablesOf(func(h []string) bool { return slices.Contains(h, "reduced Fy (kN)") })
+			if len(cases) != 1 {
+				t.Fatalf("%d case tables with reduced reactions, want 1 (case L)", len(cases))
+			}
+			for _, r := range cases[0].rows {
+				node := r.cells[0].text
+				for d, col := range []string{"Fx (kN)", "Fy (kN)", "M (kN·m)"} {
+					u, err1 := strconv.ParseFloat(r.cells[columnIndex(t, cases[0], col)].text, 64)
+					red, err2 := strconv.ParseFloat(r.cells[columnIndex(t, cases[0], "reduced "+col)].text, 64)
+					if err1 != nil || err2 != nil {
+						t.Fatalf("row %q", renderedTexts(r.cells))
+					}
+					if want := factors[node][order[d]] * u; math.Abs(red-want) > 0.006 {
+						t.Errorf("case L, %s %s: reduced %g, want %g", node, col, red, want)
+					}
+				}
 			}
 		})
 	}

@@ -63,6 +63,17 @@ func TestMemberFactorsApplied(t *testing.T) {
 				t.Errorf("node %d: Fy %g reduced %g, want %g and %g", r.Node, r.Unreduced[1], r.Reduced[1], want, want/2)
 			}
 		}
+		// The load case results carry the same beside the unreduced
+		// ones, node for node; the dead case none.
+		cr := got.Cases()
+		if cr[0].Reduced != nil || len(cr[1].Reduced) != 3 {
+			t.Fatalf("reduced reactions of D %v, of L %v", cr[0].Reduced, cr[1].Reduced)
+		}
+		for i, r := range cr[1].Reduced {
+			if r.Node != rs[i].Node || r.Fy != rs[i].Reduced[1] || cr[1].Reactions[i].Fy != rs[i].Unreduced[1] || r.Components != cr[1].Reactions[i].Components {
+				t.Errorf("node %d: %+v beside %+v, want %+v", r.Node, r, cr[1].Reactions[i], rs[i])
+			}
+		}
 		rd := got.ReducedReactions(0) // dead load: no factor
 		if rd[1].Reduced != rd[1].Unreduced {
 			t.Errorf("dead case reduced: %v, %v", rd[1].Reduced, rd[1].Unreduced)
