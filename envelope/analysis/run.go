@@ -79,6 +79,9 @@ type Result struct {
 	lay    *patterns.Layout
 	sol    *frame.Solution
 	spanOf []int // member → index into Spans, -1 for none
+	// The combinations as they were enveloped (favourableSplit), index
+	// for index with the job's.
+	solved []combos.Combination
 }
 
 // Combination is one combination of the job as it was analysed.
@@ -171,6 +174,7 @@ func Run(ctx context.Context, job *Job, opt Options) (*Result, error) {
 	}
 	// The job's combinations, index for index: a favourable factor's split
 	// (favourableSplit) is how they were solved, not what they are.
+	r.solved = env.Combinations
 	env.Combinations = job.Combinations
 	r.Envelope = env
 	r.Combinations = make([]Combination, len(job.Combinations))
@@ -227,6 +231,15 @@ func report(opt Options, p Progress) {
 // SpanOf returns the index in r.Spans of the span, cantilever or rafter
 // member m is part of, -1 for none.
 func (r *Result) SpanOf(m int) int { return r.spanOf[m] }
+
+// EndMoments returns the moments at the start and end of member m, in its
+// own axes, in the state that gives an extreme of its envelope: effect j
+// (0 N, 1 V, 2 M) at the station at x, largest (hi) or smallest, value
+// want, under combination k (see envelope.EndMoments); ok is false when
+// that state does not give want again.
+func (r *Result) EndMoments(m int, x float64, k, j int, hi bool, want float64) (ends [2]float64, ok bool) {
+	return envelope.EndMoments(r.sol, r.solved, r.Envelope.Settings, r.lay, m, x, k, j, hi, want)
+}
 
 // endForces returns member m's end forces in load case c, adding up the
 // loads the case was solved as when it is patterned.

@@ -142,6 +142,10 @@ func (p *Report) WriteHTML(w io.Writer) error {
 		if err := (htmlTables{h: h, heading: "h3"}).table(r); err != nil {
 			return err
 		}
+		r = *d.withReactions
+		if err := (htmlTables{h: h, heading: "h3"}).table(r); err != nil {
+			return err
+		}
 	} else {
 		h.raw("<p>No node is supported.</p>\n")
 	}

@@ -1,0 +1,97 @@
+package envelope
+
+import (
+	"math"
+
+	"govern/combos"
+
+	"govern/frame"
+	"govern/patterns"
+)
+
+// stateTol is the fraction of the largest size of an effect in the member
+// within which the state formed again must give the extreme it is asked
+// for: the same sums in the same order give it to the last bit, but the
+// check must not fail on the last bit.
+const stateTol = 1e-9
+
+// EndMoments returns the moments at the start and at the end of member m
+// (its own axes, as in Station.M) in the state that gives an extreme of
+// effect j (0 N, 1 V, 2 M) at the station at x: combination k (an index
+// into cs), with its variable cases and pattern pieces
+// placed as Compute placed them to make that effect largest (hi) or
+// smallest there. want is the extreme's value, which the state must give
+// again; ok is false when it does not (a station that is not one of the
+// member's, or another combination), and the ends are then zero. sol,
+// cs, set and lay must be those Compute was given; none is modified.
+//
+// A variable case, a patterned case's piece or arrangement acts or not by
+// the sign of its effect j at x alone, so the same decisions, applied to
+// the effects at the member's ends, give the ends' moments of the state.
+func EndMoments(sol *frame.Solution, cs []combos.Combination, set Settings, lay *patterns.Layout, m int, x float64, k, j int, hi bool, want float64) (ends [2]float64, ok bool) {
+	if j < 0 || j > 2 || k < 0 || k >= len(cs) || m < 0 || m >= len(sol.Model().Members) {
+		return ends, false
+	}
+	set.Progress = nil
+	e := newEvaluator(sol.Model(), cs, []int{k}, 3, set, lay)
+	w := e.scratch()
+	e.evaluate(w, sol, m)
+	ns := len(w.xs)
+	i := -1
+	for s, xs := range w.xs {
+		if xs == x {
+			i = s
+			break
+		}
+	}
+	if i < 0 {
+		return ends, false
+	}
+	// The two slots other than j carry the ends' moments through the
+	// placement: its decisions read slot j only.
+	a, b := (j+1)%3, (j+2)%3
+	if a > b {
+		a, b = b, a
+	}
+	// The largest the sum could be, term by term, for the tolerance.
+	scale := 0.0
+	fmax := 0.0
+	for _, t := range e.cs[0].Terms {
+		fmax = math.Max(fmax, math.Abs(t.Factor))
+	}
+	for c := range w.ev {
+		scale += fmax * math.Abs(eff(w.at[c*ns+i], j))
+	}
+	for _, past := range []bool{false, true} {
+		if past && (j != 2 || !w.jumps) {
+			break
+		}
+		for c := range w.ev {
+			var v [3]float64
+			v[j] = eff(w.at[c*ns+i], j)
+			if past {
+				v[j] += w.jump[c*ns+i]
+			}
+			v[a], v[b] = w.at[c*ns].M, w.at[c*ns+ns-1].M
+			w.ev[c] = v
+		}
+		w.noise = w.noiseAt
+		w.place.scan(e, w)
+		tot := w.place.combine(e, w, 0, j, hi)
+		if math.Abs(tot[j]-want) <= stateTol*(scale+math.Abs(want)) {
+			return [2]float64{tot[a], tot[b]}, true
+		}
+	}
+	return [2]float64{}, false
+}
+
+// eff returns effect j (N, V, M) of f.
+func eff(f frame.Forces, j int) float64 {
+	switch j {
+	case 0:
+		return f.N
+	case 1:
+		return f.V
+	}
+	return f.M
+}
