@@ -107,6 +107,8 @@
 //	  	write a report as one self-contained HTML page to FILE (- for standard output): the frame and its envelopes drawn, tables floor by floor, reactions, combinations, statics check
 //	-strict
 //	  	treat every warning as an error: a model with numbers that look like a slip of units, or an ill-conditioned stiffness matrix, gives no results
+//	-wide
+//	  	print the tables as wide as their columns make them, instead of splitting those wider than 120 characters
 //	-write FILE
 //	  	write the demonstration model to FILE instead of analysing it
 //
@@ -187,7 +189,7 @@
 //
 // Usage:
 //
-//	govern run [--json FILE] [--csv FILE] [--report FILE.html | --out DIR] [--quiet] [--compare-patterns] [--cross-check] [--strict] [--accept-ill-conditioned] MODEL.toml
+//	govern run [--json FILE] [--csv FILE] [--report FILE.html | --out DIR] [--quiet] [--wide] [--compare-patterns] [--cross-check] [--strict] [--accept-ill-conditioned] MODEL.toml
 //
 // Run reads the model file, solves every load case by the direct stiffness
 // method, combines the cases into the model's load combinations and reports,
@@ -227,7 +229,9 @@
 // Files are written whole or not at all. A run that takes more than a
 // second or two shows its progress on standard error when that is a
 // terminal; --quiet prints nothing but errors. When JSON or CSV goes to standard
-// output the summary tables are not printed.
+// output the summary tables are not printed. The tables fit 120 characters:
+// a wider one is split into narrower ones, each repeating the columns that
+// name its rows; --wide prints them whole.
 //
 // Every run checks statics for each load case: the reactions against the
 // applied loads in X, Y and moment about the lower left corner of the
@@ -288,6 +292,8 @@
 //	  	write a report as one self-contained HTML page to FILE (- for standard output): the frame and its envelopes drawn, tables floor by floor, reactions, combinations, statics check
 //	-strict
 //	  	treat every warning as an error: a model with numbers that look like a slip of units, or an ill-conditioned stiffness matrix, gives no results
+//	-wide
+//	  	print the tables as wide as their columns make them, instead of splitting those wider than 120 characters
 //
 // # Run the built-in verification suite against published results
 //

@@ -25,6 +25,7 @@ type runFlags struct {
 	quiet           bool
 	acceptIll       bool
 	strict          bool
+	wide            bool
 }
 
 // options returns the analysis options the flags ask for, with progress
@@ -45,13 +46,14 @@ func (f *runFlags) add(fs *flag.FlagSet) {
 	fs.BoolVar(&f.comparePatterns, "compare-patterns", false, "report how far the code pattern arrangements fall short of exact placement, member by member, instead of the envelopes")
 	fs.BoolVar(&f.quiet, "quiet", false, "print nothing on success: no tables, no progress line (files are still written)")
 	fs.BoolVar(&f.crossCheck, "cross-check", false, "solve every case again by moment distribution and print the largest difference in member end moments")
+	fs.BoolVar(&f.wide, "wide", false, fmt.Sprintf("print the tables as wide as their columns make them, instead of splitting those wider than %d characters", report.TextWidth))
 	fs.BoolVar(&f.strict, "strict", false, "treat every warning as an error: a model with numbers that look like a slip of units, or an ill-conditioned stiffness matrix, gives no results")
 	fs.BoolVar(&f.acceptIll, "accept-ill-conditioned", false, fmt.Sprintf("solve a model whose stiffness matrix has an estimated condition number above %.0e (fewer than three correct digits left), which is refused otherwise; every output then carries the estimate", frame.RefuseCond))
 }
 
 var cmdRun = &command{
 	name:  "run",
-	usage: "[--json FILE] [--csv FILE] [--report FILE.html | --out DIR] [--quiet] [--compare-patterns] [--cross-check] [--strict] [--accept-ill-conditioned] MODEL.toml",
+	usage: "[--json FILE] [--csv FILE] [--report FILE.html | --out DIR] [--quiet] [--wide] [--compare-patterns] [--cross-check] [--strict] [--accept-ill-conditioned] MODEL.toml",
 	short: "analyse a model and report its envelopes",
 	long: fmt.Sprintf(`
 Run reads the model file, solves every load case by the direct stiffness
@@ -92,7 +94,9 @@ and CSV keep each member's own axes.
 Files are written whole or not at all. A run that takes more than a
 second or two shows its progress on standard error when that is a
 terminal; --quiet prints nothing but errors. When JSON or CSV goes to standard
-output the summary tables are not printed.
+output the summary tables are not printed. The tables fit 120 characters:
+a wider one is split into narrower ones, each repeating the columns that
+name its rows; --wide prints them whole.
 
 Every run checks statics for each load case: the reactions against the
 applied loads in X, Y and moment about the lower left corner of the
@@ -246,6 +250,7 @@ func writeResults(stdout io.Writer, model string, f *runFlags, res *analysis.Res
 	}
 	toStdout := f.json == "-" || f.csv == "-" || f.report == "-"
 	rp := report.New(res)
+	rp.Wide = f.wide
 	jsonPath, csvPath, reportPath := f.json, f.csv, f.report
 	if f.out != "" {
 		jsonPath, csvPath, reportPath = filepath.Join(f.out, jsonName), filepath.Join(f.out, csvName), filepath.Join(f.out, reportName)
