@@ -27,6 +27,11 @@ type Combination struct {
 	// and the envelopes of forces for design leave it out when the model
 	// has strength combinations (see package envelope).
 	Service bool
+	// Limit is, for a service combination, the span/deflection its
+	// deflections are checked against (360 for span/360): the largest
+	// deflection of a span may be at most its length over Limit, of a
+	// cantilever twice its length over Limit. 0 for no check.
+	Limit float64
 }
 
 // EachCase returns one combination per case, the case alone with factor 1,

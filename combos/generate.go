@@ -370,6 +370,7 @@ func (g *generator) emit(terms []term) {
 			Rule:    g.set.Name + " " + g.rule.ID,
 			Terms:   ts,
 			Service: g.set.Service,
+			Limit:   g.rule.Limit,
 		})
 	}
 }

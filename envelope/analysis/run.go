@@ -218,6 +218,9 @@ func Run(ctx context.Context, job *Job, opt Options) (*Result, error) {
 			s.Deflection = r.spanDeflection(s)
 		}
 	}
+	if err := r.limitChecks(set); err != nil {
+		return nil, err
+	}
 	r.Warnings = append(r.Warnings, newPlausibility(job).spanWarnings(r)...)
 	return r, nil
 }

@@ -22,6 +22,7 @@ type design struct {
 	governing     string // the note above the design values
 	groups        []groupDesign
 	deflection    *Table // nil without service combinations or spans
+	limits        *Table // nil without a limited service combination or spans
 	reactions     *Table // nil without supports
 	withReactions *Table // each extreme with its concurrent reaction; nil without supports
 	staticsTop    string // the note above the statics table
@@ -46,6 +47,9 @@ func (p *Report) Tables() []Table {
 	}
 	if d.deflection != nil {
 		out = append(out, *d.deflection)
+	}
+	if d.limits != nil {
+		out = append(out, *d.limits)
 	}
 	if d.reactions != nil {
 		out = append(out, *d.reactions, *d.withReactions)
@@ -86,6 +90,7 @@ func newDesign(p *Report) *design {
 		d.groups = append(d.groups, gd)
 	}
 	d.deflection = p.deflectionTable()
+	d.limits = p.limitTable()
 	d.reactions = p.reactionTable()
 	d.withReactions = p.reactionStateTable()
 	d.staticsTop, d.statics = p.staticsTable()
@@ -444,6 +449,40 @@ func (p *Report) deflectionTable() *Table {
 		title += "; rafters (the straight parts of a run that changes slope) from the chord between their displaced ends; a ridge or valley, where the slope changes, across the line between the ends of its run, from the chord between them"
 	}
 	return &Table{title, []string{"span", "kind", "members", "level", "length (" + l + ")", "down (" + d + ")", "at x (" + l + ")", "governing", "up (" + d + ")", "at x (" + l + ")", "governing", "span/deflection (cantilever: 2 × length)"}, rows}
+}
+
+// limitTable gives, span by span and cantilever by cantilever, each
+// service combination with a limit: the largest deflection under it alone
+// and where, span/deflection and whether it passes (at least the limit)
+// or exceeds it; nil without one.
+func (p *Report) limitTable() *Table {
+	u := p.units()
+	var rows [][]string
+	for i := range p.res.Spans {
+		r := &p.res.Spans[i]
+		name := p.spanName(r)
+		for _, c := range r.Limits {
+			d := c.Deflection.Largest
+			row := []string{name, r.Kind.String(), p.comboName(c.Combination), "L/" + shortest(c.Limit)}
+			if d.By >= 0 {
+				row = append(row, sig4(p.defl.Of(d.V)), fixed(d.X))
+			} else {
+				row = append(row, "0", "-")
+			}
+			check := "pass"
+			if !c.Pass() {
+				check = "EXCEEDS"
+			}
+			rows = append(rows, append(row, ratio(c.Deflection.Ratio), check))
+			name = ""
+		}
+	}
+	if len(rows) == 0 {
+		return nil
+	}
+	l, d := u.Length, p.defl.Label
+	return &Table{fmt.Sprintf("Deflection limits: every service combination with a limit, on every span and cantilever, under that combination alone (+ up; deflections in %s, x in %s from the left end; a cantilever's span/deflection over twice its length)", d, l),
+		[]string{"span", "kind", "combination", "limit", "largest (" + d + ")", "at x (" + l + ")", "span/deflection", "check"}, rows}
 }
 
 // staticsTable gives the statics check of every case, with the note

@@ -289,8 +289,12 @@ func (p *Report) htmlFigures(h *htmlOut) error {
 			fmt.Sprintf("Deflection (%s) over the service combinations, drawn as it moves, exaggerated: of beams and rafters from the chord between the displaced ends of their span, or for a cantilever from its displaced root; of columns from their own chord. Value: the largest of each span and cantilever, with span/deflection (twice the length for a cantilever).", esc(p.defl.Label)),
 			all, diagram{get: analysis.ShownDeflection, side: 1, sag: true, format: func(v float64) string { return sig4(p.defl.Of(v)) }})
 		// The table below the figure is the terminal's.
-		if t := p.tables().deflection; t != nil {
-			return htmlTables{h: h, heading: "h3"}.table(*t)
+		for _, t := range []*Table{p.tables().deflection, p.tables().limits} {
+			if t != nil {
+				if err := (htmlTables{h: h, heading: "h3"}).table(*t); err != nil {
+					return err
+				}
+			}
 		}
 	}
 	return h.err

@@ -123,6 +123,7 @@ type reader struct {
 	memLine  []int             // line defining each member (0 for grid members)
 	caseInfo []combos.CaseInfo // per case, for the combination rules
 	setTable *table            // the [combinations] table, nil without one
+	setLimit float64           // [combinations] limit: span/deflection of the generated service combinations without their own
 
 	caseTables []*table // per case, its table, for messages (combinations.go)
 	released   []bool   // nodes whose rotation carries nothing, once found (load.go)
@@ -681,6 +682,16 @@ func (r *reader) readCombinations(ts []*table) {
 		}
 		seen[name] = true
 		cb := combos.Combination{Name: name, Rule: "model", Service: t.boolean("service", false)}
+		if v, ok := t.numOK("limit", 0); ok {
+			switch {
+			case !cb.Service:
+				t.fail("limit", problem(ErrValue, "limit = %g: only a service combination has a deflection limit; add service = true", v))
+			case !(v > 0):
+				t.fail("limit", problem(ErrValue, "limit = %g: span/deflection must be positive, such as 360 for span/360", v))
+			default:
+				cb.Limit = v
+			}
+		}
 		if t.need("factors") {
 			v, _ := t.get("factors")
 			f, ok := v.(map[string]any)
