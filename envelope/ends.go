@@ -1,7 +1,9 @@
 package envelope
 
 import (
+	"fmt"
 	"math"
+	"slices"
 
 	"govern/combos"
 
@@ -94,4 +96,48 @@ func eff(f frame.Forces, j int) float64 {
 		return f.V
 	}
 	return f.M
+}
+
+// StationsAt returns the envelopes of member m at the points xs (distances
+// from its start, on the member), over the strength combinations of cs as
+// Compute forms them: the member is enveloped again with xs as extra
+// stations (Settings.Extra), and the station at each point returned, in
+// the order of xs. A point within round-off of another station gives that
+// station. sol, cs, set and lay must be those Compute was given; none is
+// modified.
+func StationsAt(sol *frame.Solution, cs []combos.Combination, set Settings, lay *patterns.Layout, m int, xs []float64) ([]Station, error) {
+	mo := sol.Model()
+	if m < 0 || m >= len(mo.Members) {
+		panic(fmt.Sprintf("envelope: StationsAt: member %d of %d", m, len(mo.Members)))
+	}
+	l := mo.Length(m)
+	for _, x := range xs {
+		if !(x >= 0 && x <= l) {
+			return nil, fmt.Errorf("envelope: member %q: station at %g is not on the member (length %g)", mo.Members[m].Name, x, l)
+		}
+	}
+	extra := slices.Clone(xs)
+	if m < len(set.Extra) {
+		extra = append(extra, set.Extra[m]...)
+	}
+	set.Extra = make([][]float64, m+1)
+	set.Extra[m] = extra
+	set.Progress, set.Lines = nil, nil
+	strength, _ := split(cs)
+	e := newEvaluator(mo, cs, strength, 3, set, lay)
+	em, err := e.member(e.scratch(), sol, m)
+	if err != nil {
+		return nil, err
+	}
+	out := make([]Station, len(xs))
+	for k, x := range xs {
+		best := 0
+		for i, st := range em.Stations {
+			if math.Abs(st.X-x) < math.Abs(em.Stations[best].X-x) {
+				best = i
+			}
+		}
+		out[k] = em.Stations[best]
+	}
+	return out, nil
 }

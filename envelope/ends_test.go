@@ -101,3 +101,70 @@ func TestEndMomentsOfTheGoverningState(t *testing.T) {
 		t.Error("a combination out of range was accepted")
 	}
 }
+
+// TestStationsAt: the envelope at points between the equally spaced
+// stations is what Compute gives with those points as extra stations, and
+// on a simple span under its dead load alone V = w(L/2 − x) (statics).
+func TestStationsAt(t *testing.T) {
+	const l, g, q = 6.0, 1.0, 1.5
+	mo := beam(3, l, g, q)
+	cs := []combos.Combination{
+		{Name: "1.4D", Terms: []combos.Term{{Case: 0, Factor: 1.4}}},
+		{Name: "1.2D+1.6L", Terms: []combos.Term{{Case: 0, Factor: 1.2}, {Case: 1, Factor: 1.6}}},
+		{Name: "D+L", Terms: []combos.Term{{Case: 0, Factor: 1}, {Case: 1, Factor: 1}}, Service: true},
+	}
+	lay, err := patterns.Expand(mo, []int{1}, 1, patterns.Exact)
+	if err != nil {
+		t.Fatal(err)
+	}
+	sol, err := frame.Solve(lay.Model)
+	if err != nil {
+		t.Fatal(err)
+	}
+	set := Settings{Kinds: kindsOf(sol, lay), Stations: 7}
+	xs := []float64{0.45, 5.1}
+	with := set
+	with.Extra = [][]float64{nil, xs}
+	env, err := Compute(sol, cs, with, lay)
+	if err != nil {
+		t.Fatal(err)
+	}
+	got, err := StationsAt(sol, cs, set, lay, 1, xs)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for k, x := range xs {
+		var want *Station
+		for i := range env.Members[1].Stations {
+			if env.Members[1].Stations[i].X == x {
+				want = &env.Members[1].Stations[i]
+			}
+		}
+		if want == nil {
+			t.Fatalf("Compute has no station at %g", x)
+		}
+		if got[k].X != x || got[k].V.Max != want.V.Max || got[k].V.Min != want.V.Min || got[k].M.Max != want.M.Max || got[k].M.MinBy != want.M.MinBy {
+			t.Errorf("at %g: %+v, Compute gives %+v", x, got[k], *want)
+		}
+	}
+	// One span, dead load only: V = w(L/2 − x) at any point.
+	one := beam(1, l, g, 0)
+	one.Cases = one.Cases[:1]
+	sol1, err := frame.Solve(one)
+	if err != nil {
+		t.Fatal(err)
+	}
+	d := []combos.Combination{{Name: "D", Terms: []combos.Term{{Case: 0, Factor: 1}}}}
+	st, err := StationsAt(sol1, d, Settings{Kinds: []combos.Kind{combos.Dead}, Stations: 3}, nil, 0, []float64{0.37, 4.2})
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, s := range st {
+		if want := g * (l/2 - s.X); math.Abs(s.V.Max-want) > 1e-9 || math.Abs(s.V.Min-want) > 1e-9 {
+			t.Errorf("V at %g: %g to %g, want %g (statics)", s.X, s.V.Min, s.V.Max, want)
+		}
+	}
+	if _, err := StationsAt(sol1, d, Settings{Kinds: []combos.Kind{combos.Dead}, Stations: 3}, nil, 0, []float64{l + 1}); err == nil {
+		t.Error("a point off the member was accepted")
+	}
+}

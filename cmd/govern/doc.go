@@ -97,6 +97,8 @@
 //	  	solve every case again by moment distribution and print the largest difference in member end moments
 //	-csv FILE
 //	  	write the envelopes as CSV to FILE (- for standard output), one row per member, station and effect
+//	-design-csv FILE
+//	  	write the design values as CSV to FILE (- for standard output), one row per member: a beam's moments and shears at its supports' faces, at d from them and in the span, a column's N and M with its end moments M1, M2
 //	-json FILE
 //	  	write the envelopes as JSON to FILE (- for standard output)
 //	-out DIR
@@ -189,7 +191,7 @@
 //
 // Usage:
 //
-//	govern run [--json FILE] [--csv FILE] [--report FILE.html | --out DIR] [--quiet] [--wide] [--compare-patterns] [--cross-check] [--strict] [--accept-ill-conditioned] MODEL.toml
+//	govern run [--json FILE] [--csv FILE] [--design-csv FILE] [--report FILE.html | --out DIR] [--quiet] [--wide] [--compare-patterns] [--cross-check] [--strict] [--accept-ill-conditioned] MODEL.toml
 //
 // Run reads the model file, solves every load case by the direct stiffness
 // method, combines the cases into the model's load combinations and reports,
@@ -205,6 +207,13 @@
 //
 // With --json or --csv the full envelopes, at every station of every member,
 // are written to a file as well; flags may come before or after the model path.
+// With --design-csv the design values are written as CSV, one row per member
+// (docs/output.md): for a beam the least moment at each support's face, the
+// largest in the span, the largest shear at each face and, where its section
+// gives the effective depth d, at d from it (whether that section may be
+// designed for is the user's to confirm: ACI 318-19 9.4.3.2, EN 1992-1-1
+// 6.2.1(8)); for a column N and M of N max, N min and |M| max, each with the
+// end moments M1 and M2 of the same state, M1/M2 and the curvature.
 // With --report a report is written as one HTML page that needs no network
 // and no script: the frame drawn to scale with its moment, shear, axial
 // force and deflection envelopes, the design values and the station tables
@@ -282,6 +291,8 @@
 //	  	solve every case again by moment distribution and print the largest difference in member end moments
 //	-csv FILE
 //	  	write the envelopes as CSV to FILE (- for standard output), one row per member, station and effect
+//	-design-csv FILE
+//	  	write the design values as CSV to FILE (- for standard output), one row per member: a beam's moments and shears at its supports' faces, at d from them and in the span, a column's N and M with its end moments M1, M2
 //	-json FILE
 //	  	write the envelopes as JSON to FILE (- for standard output)
 //	-out DIR

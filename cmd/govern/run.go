@@ -19,6 +19,7 @@ import (
 
 type runFlags struct {
 	json, csv       string
+	designCSV       string
 	report, out     string
 	comparePatterns bool
 	crossCheck      bool
@@ -41,6 +42,7 @@ func (f *runFlags) options(p *progress) analysis.Options {
 func (f *runFlags) add(fs *flag.FlagSet) {
 	fs.StringVar(&f.json, "json", "", "write the envelopes as JSON to `FILE` (- for standard output)")
 	fs.StringVar(&f.csv, "csv", "", "write the envelopes as CSV to `FILE` (- for standard output), one row per member, station and effect")
+	fs.StringVar(&f.designCSV, "design-csv", "", "write the design values as CSV to `FILE` (- for standard output), one row per member: a beam's moments and shears at its supports' faces, at d from them and in the span, a column's N and M with its end moments M1, M2")
 	fs.StringVar(&f.report, "report", "", "write a report as one self-contained HTML page to `FILE` (- for standard output): the frame and its envelopes drawn, tables floor by floor, reactions, combinations, statics check")
 	fs.StringVar(&f.out, "out", "", "write "+reportName+", "+jsonName+" and "+csvName+" together into the folder `DIR` (made if missing)")
 	fs.BoolVar(&f.comparePatterns, "compare-patterns", false, "report how far the code pattern arrangements fall short of exact placement, member by member, instead of the envelopes")
@@ -53,7 +55,7 @@ func (f *runFlags) add(fs *flag.FlagSet) {
 
 var cmdRun = &command{
 	name:  "run",
-	usage: "[--json FILE] [--csv FILE] [--report FILE.html | --out DIR] [--quiet] [--wide] [--compare-patterns] [--cross-check] [--strict] [--accept-ill-conditioned] MODEL.toml",
+	usage: "[--json FILE] [--csv FILE] [--design-csv FILE] [--report FILE.html | --out DIR] [--quiet] [--wide] [--compare-patterns] [--cross-check] [--strict] [--accept-ill-conditioned] MODEL.toml",
 	short: "analyse a model and report its envelopes",
 	long: fmt.Sprintf(`
 Run reads the model file, solves every load case by the direct stiffness
@@ -70,6 +72,13 @@ placement at its worst station, and which spans make the difference.
 
 With --json or --csv the full envelopes, at every station of every member,
 are written to a file as well; flags may come before or after the model path.
+With --design-csv the design values are written as CSV, one row per member
+(docs/output.md): for a beam the least moment at each support's face, the
+largest in the span, the largest shear at each face and, where its section
+gives the effective depth d, at d from it (whether that section may be
+designed for is the user's to confirm: ACI 318-19 9.4.3.2, EN 1992-1-1
+6.2.1(8)); for a column N and M of N max, N min and |M| max, each with the
+end moments M1 and M2 of the same state, M1/M2 and the curvature.
 With --report a report is written as one HTML page that needs no network
 and no script: the frame drawn to scale with its moment, shear, axial
 force and deflection envelopes, the design values and the station tables
@@ -214,6 +223,7 @@ const (
 // standard output and leaves out the summary.
 func (f *runFlags) toStdout(stdout io.Writer) {
 	f.json, f.csv, f.report = files.StdoutPath(stdout, f.json), files.StdoutPath(stdout, f.csv), files.StdoutPath(stdout, f.report)
+	f.designCSV = files.StdoutPath(stdout, f.designCSV)
 }
 
 // check refuses combinations of flags that cannot be honoured.
@@ -225,19 +235,19 @@ func (f *runFlags) check() error {
 		return usagef("--out names a folder, not standard output")
 	}
 	n := 0
-	for _, p := range []string{f.json, f.csv, f.report} {
+	for _, p := range []string{f.json, f.csv, f.report, f.designCSV} {
 		if p == "-" {
 			n++
 		}
 	}
 	if n > 1 {
-		return usagef("only one of --json, --csv and --report can go to standard output")
+		return usagef("only one of --json, --csv, --design-csv and --report can go to standard output")
 	}
 	if f.crossCheck && n > 0 {
 		return usagef("--cross-check prints a table, so --json, --csv and --report cannot go to standard output with it")
 	}
-	if f.comparePatterns && (f.json != "" || f.csv != "" || f.report != "" || f.out != "") {
-		return usagef("--compare-patterns writes no files; leave out --json, --csv, --report and --out")
+	if f.comparePatterns && (f.json != "" || f.csv != "" || f.report != "" || f.out != "" || f.designCSV != "") {
+		return usagef("--compare-patterns writes no files; leave out --json, --csv, --design-csv, --report and --out")
 	}
 	return nil
 }
@@ -248,7 +258,7 @@ func writeResults(stdout io.Writer, model string, f *runFlags, res *analysis.Res
 	if err := f.check(); err != nil {
 		return err
 	}
-	toStdout := f.json == "-" || f.csv == "-" || f.report == "-"
+	toStdout := f.json == "-" || f.csv == "-" || f.report == "-" || f.designCSV == "-"
 	rp := report.New(res)
 	rp.Wide = f.wide
 	jsonPath, csvPath, reportPath := f.json, f.csv, f.report
@@ -256,7 +266,7 @@ func writeResults(stdout io.Writer, model string, f *runFlags, res *analysis.Res
 		jsonPath, csvPath, reportPath = filepath.Join(f.out, jsonName), filepath.Join(f.out, csvName), filepath.Join(f.out, reportName)
 	}
 	var outs []files.Output
-	for _, o := range []files.Output{{Path: jsonPath, Write: rp.WriteJSON}, {Path: csvPath, Write: rp.WriteCSV}, {Path: reportPath, Write: rp.WriteHTML}} {
+	for _, o := range []files.Output{{Path: jsonPath, Write: rp.WriteJSON}, {Path: csvPath, Write: rp.WriteCSV}, {Path: f.designCSV, Write: rp.WriteDesignCSV}, {Path: reportPath, Write: rp.WriteHTML}} {
 		if o.Path != "" {
 			outs = append(outs, o)
 		}

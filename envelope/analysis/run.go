@@ -244,6 +244,13 @@ func (r *Result) EndMoments(m int, x float64, k, j int, hi bool, want float64) (
 	return envelope.EndMoments(r.sol, r.solved, r.Envelope.Settings, r.lay, m, x, k, j, hi, want)
 }
 
+// StationsAt returns the envelopes of member m, in its own axes, at the
+// points xs from its start, over the strength combinations as the
+// envelope forms them (see envelope.StationsAt).
+func (r *Result) StationsAt(m int, xs []float64) ([]envelope.Station, error) {
+	return envelope.StationsAt(r.sol, r.solved, r.Envelope.Settings, r.lay, m, xs)
+}
+
 // endForces returns member m's end forces in load case c, adding up the
 // loads the case was solved as when it is patterned.
 func (r *Result) endForces(c, m int) [6]float64 {

@@ -261,6 +261,17 @@ func (r *reader) readSections(ts []*table) {
 				s.Depth = d
 			}
 		}
+		effective := 0.0
+		if d, ok := t.qtyOK("d", units.Length, 0); ok {
+			switch {
+			case !(d > 0):
+				t.fail("d", problem(ErrValue, "d = %g: the effective depth must be greater than zero", d))
+			case s.Depth > 0 && d > s.Depth:
+				t.fail("d", problem(ErrValue, "d = %g: the effective depth is more than the section's depth %g", d, s.Depth))
+			default:
+				effective = d
+			}
+		}
 		if a, ok := t.qtyOK("alpha", units.Expansion, 0); ok {
 			if a <= 0 {
 				t.fail("alpha", problem(ErrValue, "alpha = %g: must be greater than zero", a))
@@ -270,6 +281,7 @@ func (r *reader) readSections(ts []*table) {
 		}
 		r.sections[name] = len(r.job.Model.Sections)
 		r.job.Model.Sections = append(r.job.Model.Sections, s)
+		r.job.EffectiveDepths = append(r.job.EffectiveDepths, effective)
 		r.hasW = append(r.hasW, t.has("weight"))
 		r.thermal = append(r.thermal, [2]bool{t.has("alpha"), t.has("depth")})
 		t.done()
