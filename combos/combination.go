@@ -32,6 +32,11 @@ type Combination struct {
 	// deflection of a span may be at most its length over Limit, of a
 	// cantilever twice its length over Limit. 0 for no check.
 	Limit float64
+	// Allowable marks a combination of allowable stress design (ASCE/SEI
+	// 7-16 section 2.4): its effects are compared with allowable
+	// strengths, and outputs call it "allowable", not "strength". It
+	// changes no number.
+	Allowable bool
 }
 
 // EachCase returns one combination per case, the case alone with factor 1,

@@ -100,7 +100,7 @@ func checkState(t *testing.T, header, row []string, n, m float64, combo string, 
 // TestEndMomentsPortal: the fixed-base portal of testdata/tables/portal.toml
 // (closed forms in columns_portal_test.go: the rigid frame formulas of
 // docs/verification.md and statics). For each column and each governing
-// value (N max, N min, |M| max, |V| max) the state is the combination the
+// value (N max, N min, |M| max) the state is the combination the
 // closed forms make govern; the moment is linear along a column, so its
 // ends are the closed forms at x = 0 and x = h in that same combination.
 func TestEndMomentsPortal(t *testing.T) {
@@ -122,7 +122,6 @@ func TestEndMomentsPortal(t *testing.T) {
 				{"N max", func(f portalForces) float64 { return f.n }},
 				{"N min", func(f portalForces) float64 { return -f.n }},
 				{"|M| max", func(f portalForces) float64 { return math.Abs(f.m) }},
-				{"|V| max", func(f portalForces) float64 { return math.Abs(f.v) }},
 			} {
 				pk := portalExtreme(t, portalStrength, col.name, portalColumnX, s.q)
 				row := rows[col.name][s.what]

@@ -15,14 +15,14 @@ const endRoundOff = 1e-9
 // forces acting with it and its end moments: all of the one state, the
 // governing combination with the same loaded pieces.
 type columnState struct {
-	what string     // "N max", "N min", "|M| max", "|V| max"
+	what string     // "N max", "N min", "|M| max"
 	pk   peak       // the value and the forces with it, as shown
 	ends [2]float64 // M at the shown start and end, as shown
 	ok   bool       // the end moments were found
 }
 
-// columnStates returns member m's largest and smallest N, its largest |M|
-// and its largest |V|, each with the forces acting with it and the
+// columnStates returns member m's largest and smallest N and its largest
+// |M|, each with the forces acting with it and the
 // moments at the member's ends in the same state (analysis.EndMoments).
 // Values are as the tables show the member: a member that is not vertical
 // from its left end.
@@ -34,7 +34,7 @@ func (p *Report) columnStates(m int) []columnState {
 		j    int
 		hi   bool
 	}
-	wants := []want{{"N max", 0, true}, {"N min", 0, false}, {"|M| max", 2, -pk.lo[2].v <= pk.hi[2].v}, {"|V| max", 1, -pk.lo[1].v <= pk.hi[1].v}}
+	wants := []want{{"N max", 0, true}, {"N min", 0, false}, {"|M| max", 2, -pk.lo[2].v <= pk.hi[2].v}}
 	mo := p.model()
 	flip, l := analysis.Flipped(mo, m), mo.Length(m)
 	var out []columnState
@@ -97,9 +97,9 @@ func stateHeader(force, moment, length string, patterned bool) []string {
 	return append(h, "M1 ("+moment+")", "M2 ("+moment+")", "M2 at", "M1/M2", "curvature")
 }
 
-// stateRows gives, per member, four rows: the largest tension (N max, N
-// positive in tension) and compression (N min), the largest moment and
-// shear in size, each with the N, V and M acting with it at the same
+// stateRows gives, per member, three rows: the largest tension (N max, N
+// positive in tension) and compression (N min) and the largest moment in
+// size, each with the N, V and M acting with it at the same
 // station, where and what governs, and the moments at the member's ends
 // in the same state: M1 the smaller, M2 the larger in size, M1/M2 and
 // single or double curvature.

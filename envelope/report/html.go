@@ -51,6 +51,9 @@ svg text { font-family: Arial, "Liberation Sans", Helvetica, sans-serif; fill: #
 .sup line { stroke: #222; stroke-width: 1px; }
 .rel circle { fill: #fff; stroke: #222; stroke-width: 1.2px; }
 .nd circle { fill: #222; }
+.ld line, .ld path.arc { stroke: #7a3b00; stroke-width: 1.2px; fill: none; }
+.ld path { fill: #7a3b00; }
+.ld path.blk { fill: #c9873c; fill-opacity: .35; stroke: #7a3b00; stroke-width: 1px; }
 .mn text { fill: #555; }
 .band { fill: #8a8a8a; fill-opacity: .25; stroke: none; }
 .hi { fill: none; stroke: #b3261e; stroke-width: 1.3px; }
@@ -58,6 +61,11 @@ svg text { font-family: Arial, "Liberation Sans", Helvetica, sans-serif; fill: #
 .key .hi-k { color: #b3261e; font-weight: 600; }
 .key .lo-k { color: #1d4f9c; font-weight: 600; }
 section.part { break-before: page; }
+.flow2, .flow3 { column-gap: 2em; }
+.flow2 { columns: 2; }
+.flow3 { columns: 3; }
+.flow2 table, .flow3 table { margin-top: 0; }
+figure.ld svg { max-height: 80mm; }
 p.print { display: none; }
 @media print {
   body { margin: 0; padding: 0; max-width: none; font-size: 8.5pt; line-height: 1.15; }
@@ -67,10 +75,14 @@ p.print { display: none; }
   p { margin: .2em 0 .3em; }
   table { font-size: 6.5pt; margin: .2em 0 .5em; }
   th, td { padding: 0 2px; line-height: 1.1; }
-  table.st, h4.st { display: none; }
+  table.st, h4.st, .np { display: none; }
+  figure.ld svg { max-height: 50mm; }
+  section.part { break-before: auto; }
+  #moment, #shear, #axial, #deflection { break-before: page; }
+  #deflection svg { max-height: 100mm; }
   p.print { display: block; font-size: 7pt; color: #444; }
+  .flow2 table, .flow3 table { font-size: 6.5pt; }
   nav { display: none; }
-  #reactions { break-before: auto; }
 }
 footer { margin-top: 2em; }
 `
@@ -92,6 +104,13 @@ func (p *Report) WriteHTML(w io.Writer) error {
 	h.raw("<!DOCTYPE html>\n<html xmlns=\"http://www.w3.org/1999/xhtml\" lang=\"en\">\n<head>\n<meta charset=\"utf-8\"/>\n")
 	h.printf("<title>%s</title>\n<style>%s</style>\n</head>\n<body>\n", esc(title), reportStyle)
 	h.printf("<header>\n<h1>%s</h1>\n", esc(title))
+	if s := p.src; s != nil {
+		h.raw("<table class=\"src\"><tbody>\n")
+		for _, f := range s.fields() {
+			h.printf("<tr><th>%s</th><td>%s</td></tr>\n", esc(f[0]), esc(f[1]))
+		}
+		h.raw("</tbody></table>\n")
+	}
 	h.printf("<p class=\"meta\">Envelopes of N, V and M by the direct stiffness method; %s; %s.</p>\n",
 		esc(p.combinationCount()), esc(p.unitsText()))
 	h.printf("<p class=\"caution\"><strong>Caution.</strong> %s</p>\n", esc(Caution))
@@ -102,7 +121,7 @@ func (p *Report) WriteHTML(w io.Writer) error {
 
 	d := p.tables()
 	h.raw("<nav><h2>Contents</h2><ol>\n")
-	entries := [][2]string{{"model", "Model"}, {"elevation", "Elevation"}, {"moment", "Moment envelope"}, {"shear", "Shear envelope"}}
+	entries := [][2]string{{"model", "Model"}, {"loads", "Loads"}, {"elevation", "Elevation"}, {"moment", "Moment envelope"}, {"shear", "Shear envelope"}}
 	if p.hasColumns() {
 		entries = append(entries, [2]string{"axial", "Axial force envelope of the columns"})
 	}
@@ -112,13 +131,16 @@ func (p *Report) WriteHTML(w io.Writer) error {
 	for _, g := range d.groups {
 		entries = append(entries, [2]string{g.id, g.title})
 	}
-	entries = append(entries, [2]string{"reactions", "Reactions"}, [2]string{"combinations", "Load combinations"}, [2]string{"statics", "Statics check"})
+	entries = append(entries, [2]string{"reactions", "Reactions"}, [2]string{"cases", "Load case results"}, [2]string{"combinations", "Load combinations"}, [2]string{"statics", "Statics check"})
 	for _, e := range entries {
 		h.printf("<li><a href=\"#%s\">%s</a></li>\n", esc(e[0]), esc(e[1]))
 	}
 	h.raw("</ol></nav>\n")
 
 	p.htmlModel(h)
+	if err := p.htmlLoads(h); err != nil {
+		return err
+	}
 	if err := p.htmlFigures(h); err != nil {
 		return err
 	}
@@ -128,7 +150,13 @@ func (p *Report) WriteHTML(w io.Writer) error {
 	tb := htmlTables{h: h, heading: "h4"}
 	for _, g := range d.groups {
 		h.printf("<section id=\"%s\">\n<h3>%s</h3>\n", esc(g.id), esc(g.title))
-		for _, t := range g.tables {
+		for i, t := range g.tables {
+			tt := tb
+			if g.Kind != analysis.Floor && i == 0 && len(g.tables) > 1 {
+				// The table of end moments after it holds every value.
+				tt.noPrint = true
+				h.raw("<p class=\"print\">The summary table of these members is not printed: the table of end moments holds each of its values.</p>\n")
+			}
 			// The section's heading names the group already.
 			t.Title = strings.TrimPrefix(t.Title, g.title)
 			if t.Title == "" {
@@ -137,7 +165,7 @@ func (p *Report) WriteHTML(w io.Writer) error {
 				t.Title = strings.TrimPrefix(t.Title, ": ")
 				t.Title = strings.ToUpper(t.Title[:1]) + t.Title[1:]
 			}
-			if err := tb.table(t); err != nil {
+			if err := tt.table(t); err != nil {
 				return err
 			}
 		}
@@ -150,7 +178,8 @@ func (p *Report) WriteHTML(w io.Writer) error {
 	if t := d.reactions; t != nil {
 		r := *t
 		r.Title = strings.TrimPrefix(r.Title, "Reactions ")
-		if err := (htmlTables{h: h, heading: "h3"}).table(r); err != nil {
+		h.raw("<p class=\"print\">The envelope of the reactions is not printed: the foundation loads below hold each of its values.</p>\n")
+		if err := (htmlTables{h: h, heading: "h3", noPrint: true}).table(r); err != nil {
 			return err
 		}
 		r = *d.withReactions
@@ -161,6 +190,9 @@ func (p *Report) WriteHTML(w io.Writer) error {
 		h.raw("<p>No node is supported.</p>\n")
 	}
 	h.raw("</section>\n")
+	if err := p.htmlCases(h); err != nil {
+		return err
+	}
 	p.htmlCombinations(h)
 	h.raw("<section id=\"statics\">\n<h2>Statics check</h2>\n")
 	st := htmlTables{h: h, heading: "h3"}
@@ -222,10 +254,16 @@ func (p *Report) htmlModel(h *htmlOut) {
 		if s.Depth > 0 {
 			depth = plain(s.Depth)
 		}
-		rows = append(rows, []string{s.Name, plain(s.E), plain(s.A), plain(s.I), plain(s.Weight), depth, strconv.Itoa(count[i])})
+		alpha := "-"
+		if s.Alpha > 0 {
+			alpha = plain(s.Alpha)
+		}
+		rows = append(rows, []string{s.Name, plain(s.E), plain(s.A), plain(s.I), plain(s.Weight), depth, alpha, strconv.Itoa(count[i])})
 	}
 	l := u.Length
-	tb.table(Table{"Sections", []string{"section", "E (" + u.Force + "/" + l + "²)", "A (" + l + "²)", "I (" + l + "⁴)", "weight (" + u.Force + "/" + l + ")", "depth (" + l + ")", "members"}, rows})
+	tb.table(Table{"Sections", []string{"section", "E (" + u.Force + "/" + l + "²)", "A (" + l + "²)", "I (" + l + "⁴)", "weight (" + u.Force + "/" + l + ")", "depth (" + l + ")", "α (per degree)", "members"}, rows})
+	p.htmlNodes(tb)
+	p.htmlMembers(tb)
 
 	rows = rows[:0]
 	patterned := map[int]bool{}
@@ -262,7 +300,7 @@ func (p *Report) htmlFigures(h *htmlOut) error {
 	key := "<span class=\"key\"><span class=\"hi-k\">red</span>: largest value, <span class=\"lo-k\">blue</span>: smallest, shaded between</span>"
 	over := "the combinations"
 	if p.overStrength() != "" {
-		over = "the strength combinations"
+		over = p.designCombinations()
 	}
 
 	h.raw("<section id=\"elevation\" class=\"part\">\n<h2>Elevation</h2>\n<figure>\n")
@@ -495,6 +533,9 @@ func badXML(r rune) bool {
 type htmlTables struct {
 	h       *htmlOut
 	heading string // "h3", "h4"
+	// noPrint leaves the tables out in print (class np): another table
+	// that is printed holds each of their values.
+	noPrint bool
 }
 
 func (t htmlTables) note(text string) error {
@@ -509,12 +550,33 @@ func (t htmlTables) note(text string) error {
 	return t.h.err
 }
 
+// flow writes a long, narrow table flowing in n columns of the page
+// (2 or 3), so that it takes fewer pages.
+func (t htmlTables) flow(tb Table, n int) error {
+	class, attr := "", ""
+	if t.noPrint {
+		class, attr = " np", ` class="np"`
+	}
+	if tb.Title != "" {
+		t.h.printf("<%s%s>%s</%s>\n", t.heading, attr, esc(tb.Title), t.heading)
+		tb.Title = ""
+	}
+	t.h.printf("<div class=\"flow%d%s\">\n", n, class)
+	err := t.table(tb)
+	t.h.raw("</div>\n")
+	return err
+}
+
 func (t htmlTables) table(tb Table) error {
 	h := t.h
-	if tb.Title != "" {
-		h.printf("<%s>%s</%s>\n", t.heading, esc(tb.Title), t.heading)
+	class := ""
+	if t.noPrint {
+		class = ` class="np"`
 	}
-	h.raw("<table>\n")
+	if tb.Title != "" {
+		h.printf("<%s%s>%s</%s>\n", t.heading, class, esc(tb.Title), t.heading)
+	}
+	h.printf("<table%s>\n", class)
 	if len(tb.Header) > 0 {
 		h.raw("<thead><tr>")
 		for _, c := range tb.Header {
