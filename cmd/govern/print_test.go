@@ -8,6 +8,7 @@ import (
 	osexec "os/exec"
 	"path/filepath"
 	"regexp"
+	"slices"
 	"strings"
 	"testing"
 	"time"
@@ -85,11 +86,15 @@ const overlapScript = `<script>
 // two long ones and a short storey between two tall ones, whose labels
 // crowd at the joints: placed where they stand by default, many overlap.
 // It returns the model's path.
-func oddFrame(t *testing.T) string {
+func oddFrame(t *testing.T) string { return startingFrame(t, "8,1.2,8", "4,0.8,3.5") }
+
+// startingFrame writes the starting model of the bays and storeys given
+// and returns its path.
+func startingFrame(t *testing.T, bays, storeys string) string {
 	t.Helper()
-	path := filepath.Join(t.TempDir(), "odd.toml")
+	path := filepath.Join(t.TempDir(), "frame.toml")
 	var stdout, stderr bytes.Buffer
-	if code := govern([]string{"new", "--bays", "8,1.2,8", "--storeys", "4,0.8,3.5", path}, &stdout, &stderr); code != 0 {
+	if code := govern([]string{"new", "--bays", bays, "--storeys", storeys, path}, &stdout, &stderr); code != 0 {
 		t.Fatalf("govern new: exit %d: %s", code, stderr.String())
 	}
 	return path
@@ -98,8 +103,10 @@ func oddFrame(t *testing.T) string {
 // TestReportPrintsInChromium prints the report of the demo and of a frame
 // of 45 members (four bays, five storeys) to PDF in headless Chromium and
 // counts its pages, at most maxPrintedPages; and measures in the browser
-// every label of every drawing of those and of a frame whose joints
-// crowd (oddFrame), of which none may overlap another.
+// every label of every drawing of those, of a frame whose joints crowd
+// (oddFrame) and of one whose moments are drawn floor by floor as well
+// (TestDenseDrawingGetsAFloorByFloorOne), of which none may overlap
+// another.
 func TestReportPrintsInChromium(t *testing.T) {
 	browser := chromiumPath(t)
 	demo := filepath.Join(t.TempDir(), "demo.toml")
@@ -109,7 +116,8 @@ func TestReportPrintsInChromium(t *testing.T) {
 	for _, c := range []struct {
 		name, model string
 		pages       bool // count the printed pages
-	}{{"demo", demo, true}, {"45 members", frame45(t), true}, {"crowded joints", oddFrame(t), false}} {
+	}{{"demo", demo, true}, {"45 members", frame45(t), true}, {"crowded joints", oddFrame(t), false},
+		{"short bays, drawn floor by floor", startingFrame(t, "6,0.6,6,0.6,6", "3.5x4"), false}} {
 		t.Run(c.name, func(t *testing.T) {
 			a, src := reportOf(t, c.model)
 			if n := len(a.Job.Model.Members); c.name == "45 members" && n != 45 {
@@ -163,6 +171,71 @@ func TestReportPrintsInChromium(t *testing.T) {
 				}
 				t.Logf("%d labels measured, %d overlaps", res.Texts, len(res.Overlaps))
 			})
+		})
+	}
+}
+
+// TestDenseDrawingGetsAFloorByFloorOne: where the moment drawing of the
+// whole frame has no room for every value (short bays between long ones:
+// the short beams' end values crowd the joints), the beams are drawn
+// again floor by floor, each floor's drawing holding the envelopes of
+// that floor's beams and no other; where every value has room there is
+// no such drawing.
+func TestDenseDrawingGetsAFloorByFloorOne(t *testing.T) {
+	for _, c := range []struct {
+		name, bays string
+		floors     bool
+	}{{"short bays between long ones", "6,0.6,6,0.6,6", true}, {"even bays", "6x4", false}} {
+		t.Run(c.name, func(t *testing.T) {
+			path := filepath.Join(t.TempDir(), "frame.toml")
+			if code, _, stderr := exec("new", "--bays", c.bays, "--storeys", "3.5x4", path); code != 0 {
+				t.Fatalf("govern new: %s", stderr)
+			}
+			a, src := reportOf(t, path)
+			root := parseXML(t, src)
+			moment := byID(root, "moment")
+			if moment == nil {
+				t.Fatal("no moment section")
+			}
+			floors := moment.find(func(e *element) bool { return e.name == "figure" && e.attr["class"] == "floor" })
+			caption := moment.find(func(e *element) bool { return e.name == "figcaption" })[0].allText()
+			if dropped := strings.Contains(caption, "left out"); dropped != c.floors {
+				t.Fatalf("values left out: %v, want %v: %s", dropped, c.floors, caption)
+			}
+			if !c.floors {
+				if len(floors) != 0 {
+					t.Errorf("%d floor drawings where every value has room", len(floors))
+				}
+				return
+			}
+			mo := a.Job.Model
+			var levels []float64 // the heights of the floors of beams
+			for m := range mo.Members {
+				if y := mo.Nodes[mo.Members[m].Start].Y; mo.IsBeam(m) && !slices.Contains(levels, y) {
+					levels = append(levels, y)
+				}
+			}
+			if len(floors) != len(levels) {
+				t.Fatalf("%d floor drawings, want one per floor: %d", len(floors), len(levels))
+			}
+			for _, f := range floors {
+				var ys []float64
+				for _, g := range f.find(func(e *element) bool { return e.name == "g" && e.attr["class"] == "env" }) {
+					for m, mem := range mo.Members {
+						if mem.Name == g.attr["data-member"] {
+							if !mo.IsBeam(m) {
+								t.Errorf("column %s drawn on a floor", mem.Name)
+							}
+							if y := mo.Nodes[mem.Start].Y; !slices.Contains(ys, y) {
+								ys = append(ys, y)
+							}
+						}
+					}
+				}
+				if len(ys) != 1 {
+					t.Errorf("a floor drawing holds beams at heights %v, want one floor", ys)
+				}
+			}
 		})
 	}
 }

@@ -318,7 +318,23 @@ func (p *Report) htmlFigures(h *htmlOut) error {
 		if scaleText != nil {
 			caption += " " + scaleText(scale)
 		}
-		h.printf("<figcaption>%s%s %s</figcaption>\n</figure>\n</section>\n", caption, leftOut(dropped, "values", "every value is in the tables"), key)
+		h.printf("<figcaption>%s%s %s</figcaption>\n</figure>\n", caption, leftOut(dropped, "values", "every value is in the tables"), key)
+		if dropped > 0 && dg.ends {
+			// Too dense to write every value: the beams again, floor by
+			// floor, each floor's drawing fitted to its beams.
+			for _, g := range p.tables().groups {
+				if g.Kind != analysis.Floor || len(g.Members) == 0 {
+					continue
+				}
+				fd := newDrawingOf(mo, g.Members)
+				h.printf("<figure class=\"floor\">\n")
+				fd.open(h, label+", "+g.title)
+				_, left := fd.envelopes(h, p, g.Members, dg)
+				h.raw("</svg>\n")
+				h.printf("<figcaption>%s: %s, to a scale of its own.%s</figcaption>\n</figure>\n", esc(title), esc(lowerFirst(g.title)), leftOut(left, "values", "every value is in the tables"))
+			}
+		}
+		h.raw("</section>\n")
 	}
 	forces := func(j int) func(em envelope.Member, i int) envelope.Extreme {
 		return func(em envelope.Member, i int) envelope.Extreme {

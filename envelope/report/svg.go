@@ -23,14 +23,34 @@ type drawing struct {
 }
 
 func newDrawing(mo *frame.Model) *drawing {
-	x0, x1, y0, y1 := math.Inf(1), math.Inf(-1), math.Inf(1), math.Inf(-1)
-	for _, n := range mo.Nodes {
-		x0, x1 = math.Min(x0, n.X), math.Max(x1, n.X)
-		y0, y1 = math.Min(y0, n.Y), math.Max(y1, n.Y)
+	all := make([]int, len(mo.Members))
+	for m := range all {
+		all[m] = m
 	}
-	lengths := make([]float64, len(mo.Members))
-	for m := range mo.Members {
-		lengths[m] = mo.Length(m)
+	return newDrawingOf(mo, all)
+}
+
+// newDrawingOf is newDrawing fitted to the members given, such as the
+// beams of one floor: their nodes bound the picture, and its marks are
+// sized from their lengths. Other members drawn on it fall outside.
+func newDrawingOf(mo *frame.Model, members []int) *drawing {
+	x0, x1, y0, y1 := math.Inf(1), math.Inf(-1), math.Inf(1), math.Inf(-1)
+	lengths := make([]float64, 0, len(members))
+	for _, m := range members {
+		mem := mo.Members[m]
+		for _, v := range [2]int{mem.Start, mem.End} {
+			n := mo.Nodes[v]
+			x0, x1 = math.Min(x0, n.X), math.Max(x1, n.X)
+			y0, y1 = math.Min(y0, n.Y), math.Max(y1, n.Y)
+		}
+		lengths = append(lengths, mo.Length(m))
+	}
+	if len(members) == 0 {
+		for _, n := range mo.Nodes {
+			x0, x1 = math.Min(x0, n.X), math.Max(x1, n.X)
+			y0, y1 = math.Min(y0, n.Y), math.Max(y1, n.Y)
+		}
+		lengths = append(lengths, math.Max(x1-x0, y1-y0))
 	}
 	slices.Sort(lengths)
 	lm := lengths[len(lengths)/2]
