@@ -267,3 +267,64 @@ func TestFoundationLoadsPortal(t *testing.T) {
 		}
 	}
 }
+
+// TestBeamConcurrentForces: the forces acting with each of a beam's
+// governing values, on the beam fixed at both ends of
+// testdata/tables/fixed-beam.toml (L = 6 m, the heavier load 1.2D+1.6L,
+// w = 1.2·10 + 1.6·5 = 20 kN/m). Fixed-end beam (AISC Manual Table 3-23,
+// case 15, recalled from memory): at midspan +M = wL²/24 with V = 0; at
+// an end −M = −wL²/12 with V = ±wL/2, and the largest shear wL/2 with
+// M = −wL²/12 (statics).
+func TestBeamConcurrentForces(t *testing.T) {
+	src, err := os.ReadFile(filepath.Join(renderedDir, "fixed-beam.toml"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	tb := summary(t, analyseModel(t, string(src))).one(t, "Beams at level")
+	if len(tb.rows) != 1 {
+		t.Fatalf("rows %q", tb.rows)
+	}
+	row := tb.rows[0]
+	const w, l = 20.0, 6.0
+	tol := columnsExactTol * columnsScale
+	cell := func(path ...string) string {
+		t.Helper()
+		at := -1
+		for _, name := range path {
+			for i := at + 1; i < len(tb.header); i++ {
+				if headed(tb.header[i], name) {
+					at = i
+					break
+				}
+			}
+		}
+		if at < 0 {
+			t.Fatalf("no column %q in %q", path, tb.header)
+		}
+		return row[at]
+	}
+	for _, c := range []struct {
+		path []string
+		want float64
+		why  string
+	}{
+		{[]string{"+M"}, w * l * l / 24, "wL²/24 at midspan"},
+		{[]string{"+M", "with V"}, 0, "V = 0 at midspan"},
+		{[]string{"-M"}, -w * l * l / 12, "−wL²/12 at an end"},
+		{[]string{"|V|"}, w * l / 2, "wL/2 at an end"},
+		{[]string{"|V|", "with M"}, -w * l * l / 12, "−wL²/12 at that end"},
+	} {
+		if s := cell(c.path...); !printedNear(s, c.want, tol) {
+			t.Errorf("%v: %s, want %.6g (%s)", c.path, s, c.want, c.why)
+		}
+	}
+	// −M is at one end or the other (they tie): V there is +wL/2 at the
+	// left end and −wL/2 at the right.
+	want := w * l / 2
+	if cell("-M", "at x") != "0.00" {
+		want = -want
+	}
+	if s := cell("-M", "with V"); !printedNear(s, want, tol) {
+		t.Errorf("-M with V: %s, want %.6g (±wL/2 at the end of −M)", s, want)
+	}
+}

@@ -156,10 +156,15 @@ func (p *Report) groupTables(g groupDesign) []Table {
 			{"End moments, " + lowerFirst(g.title) + ": each governing value with the forces acting with it and the moments at the member's ends in the same state (the same combination and pieces loaded)", stateHeader(force, moment, u.Length, p.pieces() > 0), p.stateRows(g.Members)}}
 	}
 	patterned := p.pieces() > 0
-	header := []string{"beam", "+M (" + moment + ")", at, "governing", "-M (" + moment + ")", at, "governing", "|V| (" + force + ")", at, "governing"}
+	header := []string{"beam", "+M (" + moment + ")", at, "governing"}
 	if patterned {
-		header = []string{"beam", "+M (" + moment + ")", at, "governing", "spans loaded", "-M (" + moment + ")", at, "governing", "spans loaded", "|V| (" + force + ")", at, "governing"}
+		header = append(header, "spans loaded")
 	}
+	header = append(header, "with V ("+force+")", "-M ("+moment+")", at, "governing")
+	if patterned {
+		header = append(header, "spans loaded")
+	}
+	header = append(header, "with V ("+force+")", "|V| ("+force+")", at, "governing", "with M ("+moment+")")
 	var rows [][]string
 	for _, m := range g.Members {
 		pk := memberPeaks(p.shown(m))
@@ -168,11 +173,11 @@ func (p *Report) groupTables(g groupDesign) []Table {
 		if patterned {
 			row = append(row, p.shortSpans(pk.hi[2].spans, pk.hi[2].loaded))
 		}
-		row = append(row, fixed(p.moment.Of(pk.lo[2].v)), fixed(pk.lo[2].x), p.comboName(pk.lo[2].by))
+		row = append(row, fixed(p.force.Of(pk.hi[2].with[1])), fixed(p.moment.Of(pk.lo[2].v)), fixed(pk.lo[2].x), p.comboName(pk.lo[2].by))
 		if patterned {
 			row = append(row, p.shortSpans(pk.lo[2].spans, pk.lo[2].loaded))
 		}
-		row = append(row, fixed(p.force.Of(v.v)), fixed(v.x), p.comboName(v.by))
+		row = append(row, fixed(p.force.Of(pk.lo[2].with[1])), fixed(p.force.Of(v.v)), fixed(v.x), p.comboName(v.by), fixed(p.moment.Of(v.with[2])))
 		rows = append(rows, row)
 	}
 	out := []Table{{g.title, header, rows}}

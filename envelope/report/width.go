@@ -15,7 +15,7 @@ const TextWidth = 120
 // glued lists the starts of the headers of columns that belong with the
 // column before them, and are never split from it: where a value is and
 // what governs it, the forces acting with it, the pair of end moments.
-var glued = []string{"at x", "governing", "spans loaded", "face at x", "with Fy", "with M", "M2", "M1/M2", "curvature"}
+var glued = []string{"at x", "governing", "spans loaded", "face at x", "with V", "with Fy", "with M", "M2", "M1/M2", "curvature"}
 
 // keyColumns are second columns that name rows together with the first
 // (a member's several rows, a node's components).
