@@ -1,6 +1,10 @@
 package main
 
 import (
+	"bytes"
+	"encoding/json"
+
+	"govern/envelope/report"
 	"math"
 	"strconv"
 	"testing"
@@ -47,7 +51,8 @@ func TestDeflectionLimits(t *testing.T) {
 			[]float64{-10 * 81 / (8 * ei), -10 * 81 / (8 * ei)}, []string{"3.00", "3.00"}},
 	} {
 		t.Run(c.name, func(t *testing.T) {
-			tb := summary(t, analyseModel(t, c.src)).one(t, "Deflection limits")
+			a := analyseModel(t, c.src)
+			tb := summary(t, a).one(t, "Deflection limits")
 			if len(tb.rows) != len(c.rows) {
 				t.Fatalf("%d rows, want %d (one per limited combination): %q", len(tb.rows), len(c.rows), tb.rows)
 			}
@@ -65,6 +70,32 @@ func TestDeflectionLimits(t *testing.T) {
 				}
 				if got := stateCell(t, tb.header, row, "at x"); got != c.at[i] {
 					t.Errorf("row %d at x %s, want %s", i, got, c.at[i])
+				}
+			}
+			// The JSON carries the same checks with the span.
+			var buf bytes.Buffer
+			if err := report.New(a).WriteJSON(&buf); err != nil {
+				t.Fatal(err)
+			}
+			var doc struct {
+				Spans []struct {
+					Limits []struct {
+						By         string  `json:"by"`
+						Limit      float64 `json:"limit"`
+						Deflection float64 `json:"deflection"`
+						Pass       bool    `json:"pass"`
+					} `json:"limits"`
+				} `json:"spans"`
+			}
+			if err := json.Unmarshal(buf.Bytes(), &doc); err != nil {
+				t.Fatal(err)
+			}
+			if len(doc.Spans) != 1 || len(doc.Spans[0].Limits) != len(c.rows) {
+				t.Fatalf("JSON spans %+v: want one span with %d limits", doc.Spans, len(c.rows))
+			}
+			for i, l := range doc.Spans[0].Limits {
+				if l.By != c.rows[i][0] || "L/"+strconv.FormatFloat(l.Limit, 'g', -1, 64) != c.rows[i][1] || l.Pass != (c.rows[i][3] == "pass") || !within(l.Deflection, c.defl[i], 1e-9) {
+					t.Errorf("JSON limit %d: %+v, want %v and %.9g", i, l, c.rows[i], c.defl[i])
 				}
 			}
 		})
