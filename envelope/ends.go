@@ -31,23 +31,56 @@ const stateTol = 1e-9
 // the sign of its effect j at x alone, so the same decisions, applied to
 // the effects at the member's ends, give the ends' moments of the state.
 func EndMoments(sol *frame.Solution, cs []combos.Combination, set Settings, lay *patterns.Layout, m int, x float64, k, j int, hi bool, want float64) (ends [2]float64, ok bool) {
-	if j < 0 || j > 2 || k < 0 || k >= len(cs) || m < 0 || m >= len(sol.Model().Members) {
-		return ends, false
+	r := EndMomentsOf(sol, cs, set, lay, m, []State{{X: x, By: k, Effect: j, Hi: hi, Want: want}})
+	return r[0].Ends, r[0].OK
+}
+
+// State names the state of an extreme of a member's envelope: the
+// station at X, effect Effect (0 N, 1 V, 2 M) made largest (Hi) or
+// smallest by combination By (an index into the combinations), with the
+// value Want; and, once found, the member's end moments in it.
+type State struct {
+	X          float64
+	By, Effect int
+	Hi         bool
+	Want       float64
+	Ends       [2]float64 // filled by EndMomentsOf
+	OK         bool       // filled by EndMomentsOf: the state gave Want again
+}
+
+// EndMomentsOf is EndMoments for several states of member m at once: the
+// member is evaluated once. It returns the states with Ends and OK set;
+// states is not modified.
+func EndMomentsOf(sol *frame.Solution, cs []combos.Combination, set Settings, lay *patterns.Layout, m int, states []State) []State {
+	out := slices.Clone(states)
+	if m < 0 || m >= len(sol.Model().Members) || len(cs) == 0 {
+		return out
 	}
 	set.Progress = nil
-	e := newEvaluator(sol.Model(), cs, []int{k}, 3, set, lay)
+	all := make([]int, len(cs))
+	for k := range all {
+		all[k] = k
+	}
+	e := newEvaluator(sol.Model(), cs, all, 3, set, lay)
 	w := e.scratch()
 	e.evaluate(w, sol, m)
-	ns := len(w.xs)
-	i := -1
-	for s, xs := range w.xs {
-		if xs == x {
-			i = s
-			break
-		}
+	for q := range out {
+		out[q].Ends, out[q].OK = e.endMoments(w, &out[q])
 	}
+	return out
+}
+
+// endMoments finds the end moments of state s of the member evaluated in
+// w (see EndMoments).
+func (e *evaluator) endMoments(w *work, s *State) ([2]float64, bool) {
+	j, k, hi, want := s.Effect, s.By, s.Hi, s.Want
+	if j < 0 || j > 2 || k < 0 || k >= len(e.cs) {
+		return [2]float64{}, false
+	}
+	ns := len(w.xs)
+	i := slices.Index(w.xs, s.X)
 	if i < 0 {
-		return ends, false
+		return [2]float64{}, false
 	}
 	// The two slots other than j carry the ends' moments through the
 	// placement: its decisions read slot j only.
@@ -58,7 +91,7 @@ func EndMoments(sol *frame.Solution, cs []combos.Combination, set Settings, lay 
 	// The largest the sum could be, term by term, for the tolerance.
 	scale := 0.0
 	fmax := 0.0
-	for _, t := range e.cs[0].Terms {
+	for _, t := range e.cs[k].Terms {
 		fmax = math.Max(fmax, math.Abs(t.Factor))
 	}
 	for c := range w.ev {
@@ -79,7 +112,7 @@ func EndMoments(sol *frame.Solution, cs []combos.Combination, set Settings, lay 
 		}
 		w.noise = w.noiseAt
 		w.place.scan(e, w)
-		tot := w.place.combine(e, w, 0, j, hi)
+		tot := w.place.combine(e, w, k, j, hi)
 		if math.Abs(tot[j]-want) <= stateTol*(scale+math.Abs(want)) {
 			return [2]float64{tot[a], tot[b]}, true
 		}

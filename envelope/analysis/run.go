@@ -244,6 +244,12 @@ func (r *Result) EndMoments(m int, x float64, k, j int, hi bool, want float64) (
 	return envelope.EndMoments(r.sol, r.solved, r.Envelope.Settings, r.lay, m, x, k, j, hi, want)
 }
 
+// EndMomentsOf is EndMoments for several states of member m at once
+// (envelope.EndMomentsOf).
+func (r *Result) EndMomentsOf(m int, states []envelope.State) []envelope.State {
+	return envelope.EndMomentsOf(r.sol, r.solved, r.Envelope.Settings, r.lay, m, states)
+}
+
 // StationsAt returns the envelopes of member m, in its own axes, at the
 // points xs from its start, over the strength combinations as the
 // envelope forms them (see envelope.StationsAt).

@@ -3,6 +3,8 @@ package report
 import (
 	"math"
 
+	"govern/envelope"
+
 	"govern/envelope/analysis"
 )
 
@@ -38,26 +40,42 @@ func (p *Report) columnStates(m int) []columnState {
 	mo := p.model()
 	flip, l := analysis.Flipped(mo, m), mo.Length(m)
 	var out []columnState
+	var asks []envelope.State
 	for _, w := range wants {
 		s := columnState{what: w.what, pk: pk.lo[w.j]}
 		if w.hi {
 			s.pk = pk.hi[w.j]
 		}
+		out = append(out, s)
+		asks = append(asks, envelope.State{X: s.pk.x, By: s.pk.by, Effect: w.j, Hi: w.hi, Want: s.pk.v})
+	}
+	got := p.res.EndMomentsOf(m, asks)
+	for q := range out {
+		s := &out[q]
 		if s.pk.by >= 0 {
-			s.ends, s.ok = p.res.EndMoments(m, s.pk.x, s.pk.by, w.j, w.hi, s.pk.v)
+			s.ends, s.ok = got[q].Ends, got[q].OK
 		}
 		if flip {
 			// Seen from the other end: x' = l − x, M' = −M, the ends swapped.
 			s.pk.x = l - s.pk.x
 			s.pk.with[2] = -s.pk.with[2]
-			if w.j == 2 {
+			if wants[q].j == 2 {
 				s.pk.v = -s.pk.v
 			}
 			s.ends = [2]float64{-s.ends[1], -s.ends[0]}
 		}
-		out = append(out, s)
 	}
 	return out
+}
+
+// statesOf returns the governing states of member m as the design tables
+// formed them, or forms them.
+func (p *Report) statesOf(m int) []columnState {
+	p.tables()
+	if s, ok := p.states[m]; ok {
+		return s
+	}
+	return p.columnStates(m)
 }
 
 // endPair returns the end moments of a state as M1, the smaller in size,
@@ -110,7 +128,12 @@ func (p *Report) stateRows(members []int) [][]string {
 	for _, m := range members {
 		from, to := analysis.ShownEnds(mo, m)
 		name := mo.Members[m].Name
-		for _, s := range p.columnStates(m) {
+		states := p.columnStates(m)
+		if p.states == nil {
+			p.states = map[int][]columnState{}
+		}
+		p.states[m] = states
+		for _, s := range states {
 			if s.pk.by < 0 {
 				continue
 			}

@@ -71,7 +71,7 @@ func (p *Report) WriteDesignCSV(w io.Writer) error {
 				row[1] = "other"
 			}
 			row = append(row, make([]string, beamCols)...)
-			for _, s := range p.columnStates(m) {
+			for _, s := range p.statesOf(m) {
 				if !containsString(designColumnStates, s.what) {
 					continue
 				}

@@ -34,6 +34,10 @@ type Report struct {
 
 	once   sync.Once
 	design *design
+	// states holds the governing states of each column and other member
+	// (columnStates), formed with the design tables: written only while
+	// they are formed, read after tables() returns.
+	states map[int][]columnState
 
 	src *Source // nil when the results' source is not known (From)
 
