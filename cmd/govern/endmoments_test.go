@@ -328,3 +328,70 @@ func TestBeamConcurrentForces(t *testing.T) {
 		t.Errorf("-M with V: %s, want %.6g (±wL/2 at the end of −M)", s, want)
 	}
 }
+
+// TestEndMomentsSlopingMember: a member neither beam nor column (rising
+// 4 in 3, length 5 m), fixed at both ends under a gravity load of 10 kN/m
+// along its length, drawn from either end. The load across it is
+// 10 × 3/5 = 6 kN/m, so both end moments are 6 × 5²/12 = 12.5 kN·m
+// (fixed-end moments, common practice) and of one sign: single curvature,
+// M1/M2 = −1, whichever way the member was drawn.
+func TestEndMomentsSlopingMember(t *testing.T) {
+	for _, rev := range []bool{false, true} {
+		t.Run("drawn from the top "+strconv.FormatBool(rev), func(t *testing.T) {
+			m := tmember("P", "Q", "S")
+			if rev {
+				m = tmember("Q", "P", "S")
+			}
+			src := tsection("S", 2e8, 0.01, 1e-4, 0) + tnode("P", 0, 0, "fixed") + tnode("Q", 3, 4, "fixed") + m +
+				tdead("  [[case.load]]\n  type = \"udl\"\n  on = \"all\"\n  w = 10\n")
+			src = strings.Replace(src, `on = "all"`, `on = "`+map[bool]string{false: "P-Q", true: "Q-P"}[rev]+`"`, 1)
+			header, rows := stateRows(t, summary(t, analyseModel(t, src)))
+			name := map[bool]string{false: "P-Q", true: "Q-P"}[rev]
+			row := rows[name]["|M| max"]
+			if row == nil {
+				t.Fatalf("no |M| max row of %s: %v", name, rows)
+			}
+			for col, want := range map[string]string{"M1/M2": "-1.00", "curvature": "single"} {
+				if got := stateCell(t, header, row, col); got != want {
+					t.Errorf("%s %s, want %s", col, got, want)
+				}
+			}
+			for _, col := range []string{"M1", "M2"} {
+				if s := stateCell(t, header, row, col); !printedNear(strings.TrimPrefix(s, "-"), 12.5, columnsExactTol*columnsScale) {
+					t.Errorf("%s %s, want ±12.5 (6 × 5²/12)", col, s)
+				}
+			}
+		})
+	}
+}
+
+// TestEndMomentsSlopingPropped: the sloping member of
+// TestEndMomentsSlopingMember fixed at its foot P and pinned at Q: the
+// fixed end takes w⊥L²/8 = 6 × 5²/8 = 18.75 kN·m and the pin none
+// (propped cantilever, common practice): M2 at P whichever way the member
+// was drawn, M1 = 0, M1/M2 = 0, single curvature.
+func TestEndMomentsSlopingPropped(t *testing.T) {
+	for _, rev := range []bool{false, true} {
+		t.Run("drawn from the top "+strconv.FormatBool(rev), func(t *testing.T) {
+			name, m := "P-Q", tmember("P", "Q", "S")
+			if rev {
+				name, m = "Q-P", tmember("Q", "P", "S")
+			}
+			src := tsection("S", 2e8, 0.01, 1e-4, 0) + tnode("P", 0, 0, "fixed") + tnode("Q", 3, 4, "pinned") + m +
+				tdead("  [[case.load]]\n  type = \"udl\"\n  on = \""+name+"\"\n  w = 10\n")
+			header, rows := stateRows(t, summary(t, analyseModel(t, src)))
+			row := rows[name]["|M| max"]
+			if row == nil {
+				t.Fatalf("no |M| max row of %s: %v", name, rows)
+			}
+			for col, want := range map[string]string{"M2 at": "P", "M1/M2": "0.00", "curvature": "single", "M1": "0.00"} {
+				if got := stateCell(t, header, row, col); got != want {
+					t.Errorf("%s %s, want %s", col, got, want)
+				}
+			}
+			if s := stateCell(t, header, row, "M2"); !printedNear(strings.TrimPrefix(s, "-"), 18.75, columnsExactTol*columnsScale) {
+				t.Errorf("M2 %s, want ±18.75 (w⊥L²/8)", s)
+			}
+		})
+	}
+}
