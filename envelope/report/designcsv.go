@@ -3,6 +3,7 @@ package report
 import (
 	"io"
 	"math"
+	"slices"
 	"strings"
 
 	"govern/envelope"
@@ -13,7 +14,7 @@ import (
 // face: taking the shear there is the user's decision.
 const DesignShearNote = "confirm the conditions of ACI 318-19 9.4.3.2 / EN 1992-1-1 6.2.1(8) hold: the support reaction compresses the end of the member and no concentrated load acts between the face and d"
 
-// designBeamCols and designColumnStates give the layout of the design CSV.
+// designColumnStates are the states of a column the design CSV gives.
 var designColumnStates = []string{"N max", "N min", "|M| max"}
 
 // WriteDesignCSV writes the design values of every member, one row per
@@ -72,7 +73,7 @@ func (p *Report) WriteDesignCSV(w io.Writer) error {
 			}
 			row = append(row, make([]string, beamCols)...)
 			for _, s := range p.statesOf(m) {
-				if !containsString(designColumnStates, s.what) {
+				if !slices.Contains(designColumnStates, s.what) {
 					continue
 				}
 				if s.pk.by < 0 {
@@ -96,15 +97,6 @@ func (p *Report) WriteDesignCSV(w io.Writer) error {
 	}
 	cw.Flush()
 	return cw.Error()
-}
-
-func containsString(ss []string, s string) bool {
-	for _, t := range ss {
-		if t == s {
-			return true
-		}
-	}
-	return false
 }
 
 // designBeam gives the beam cells of the design CSV for beam m, as shown,
@@ -137,8 +129,8 @@ func (p *Report) designBeam(m int) ([]string, []string, error) {
 	hog(right)
 	// The effective depth of the beam's section.
 	d := 0.0
-	if eds := p.job().EffectiveDepths; mem(eds, mo.Members[m].Section) {
-		d = eds[mo.Members[m].Section]
+	if eds, sec := p.job().EffectiveDepths, mo.Members[m].Section; sec < len(eds) {
+		d = eds[sec]
 	}
 	for end, st := range []envelope.Station{left, right} {
 		v, by := largestShear(st)
@@ -175,9 +167,6 @@ func (p *Report) designBeam(m int) ([]string, []string, error) {
 	}
 	return cells, notes, nil
 }
-
-// mem reports whether i indexes s.
-func mem(s []float64, i int) bool { return i >= 0 && i < len(s) }
 
 func sideName(end int) string {
 	if end == 0 {
