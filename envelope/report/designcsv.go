@@ -27,7 +27,9 @@ var designColumnStates = []string{"N max", "N min", "|M| max"}
 // of that state, M1/M2 and the curvature. Each value has its position and
 // governing combination. Where a point load lies within d of a face the
 // face's shear is given for the shear at d, and the note column says so.
-// Columns of the other kind of member are empty.
+// Columns of the other kind of member are empty. The last rows give the
+// source of the results (program, model file, SHA-256, run date) and, for
+// an ill-conditioned stiffness matrix, its condition number.
 func (p *Report) WriteDesignCSV(w io.Writer) error {
 	mo := p.model()
 	u := p.units()
@@ -91,6 +93,26 @@ func (p *Report) WriteDesignCSV(w io.Writer) error {
 			}
 		}
 		row = append(row, strings.Join(note, "; "))
+		if err := cw.Write(row); err != nil {
+			return err
+		}
+	}
+	// Rows for the whole model: the source of the results, and an
+	// ill-conditioned stiffness matrix's condition number; the name under
+	// member, the kind "source" or "model", the value under note.
+	var model [][2]string
+	if s := p.src; s != nil {
+		model = s.csvFields()
+	}
+	if p.conditionNote() != "" {
+		model = append(model, [2]string{"condition_number", num(p.res.Condition())})
+	}
+	for _, f := range model {
+		row := make([]string, len(header))
+		row[0], row[1], row[len(row)-1] = f[0], "source", f[1]
+		if f[0] == "condition_number" {
+			row[1] = "model"
+		}
 		if err := cw.Write(row); err != nil {
 			return err
 		}
