@@ -101,7 +101,9 @@ service = true (and the EN 1990 serviceability sets) give deflections:
 of every span of beams from the chord between its displaced ends, of
 every cantilever from its displaced root, of a pitched roof's rafters
 from their chords and its ridge across the line between the eaves, with
-span/deflection (over twice the length for a cantilever); a member
+span/deflection (over twice the length for a cantilever), checked
+against each service combination's limit where it has one (limit = 360
+for span/360); a member
 hanging from a beam or standing on it, free at its other end, does not
 divide its span (docs/output.md); the envelopes of forces are over the
 other (strength or allowable stress) combinations. The tables and the
