@@ -31,6 +31,11 @@ type Combination struct {
 	// term marked lead, such as the leading variable action of EN 1990
 	// 6.10); nil when not known, as for a combination written in a model.
 	Lead []int
+	// Limit is, for a service combination, the span/deflection its
+	// deflections are checked against (360 for span/360): the largest
+	// deflection of a span may be at most its length over Limit, of a
+	// cantilever twice its length over Limit. 0 for no check.
+	Limit float64
 	// Allowable marks a combination of allowable stress design (ASCE/SEI
 	// 7-16 section 2.4): its effects are compared with allowable
 	// strengths, and outputs call it "allowable", not "strength". It

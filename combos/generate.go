@@ -384,6 +384,7 @@ func (g *generator) emit(terms []term) {
 			Service:   g.set.Service,
 			Allowable: g.set.Allowable,
 			Lead:      lead,
+			Limit:     g.rule.Limit,
 		})
 	}
 }

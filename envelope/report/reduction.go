@@ -186,7 +186,8 @@ func reductionNote(job *analysis.Job) string {
 }
 
 // writeReductionCheck lists, for govern check, every member factor with
-// how it was found, in case then member order.
+// how it was found, in case then member order; a column's V and M by the
+// one-floor rule (FactorBasis.Ends) in short.
 func writeReductionCheck(w io.Writer, job *analysis.Job) {
 	if len(job.MemberFactors) == 0 {
 		return
@@ -199,7 +200,7 @@ func writeReductionCheck(w io.Writer, job *analysis.Job) {
 			}
 			line := factorsCell(job, []analysis.MemberFactor{f}) + "; " + basisText(f.Basis, job.Units.Length)
 			if f.Basis.Ends != "" {
-				line += "; V and M by the " + f.Basis.Ends
+				line += "; V, M by the one-floor rule"
 			}
 			fmt.Fprintf(w, "  %-12s %s\n", Escape(job.Model.Members[f.Member].Name), Escape(line))
 		}
