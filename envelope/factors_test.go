@@ -1,6 +1,7 @@
 package envelope
 
 import (
+	"math"
 	"testing"
 
 	"govern/combos"
@@ -235,6 +236,70 @@ func TestFactorsPartsOnlyWhereTheyDiffer(t *testing.T) {
 		e.setFactors(&Factors{Of: uniform(2, 3, 0.5, 1), Accompanying: c.acc}, cs)
 		if len(e.parts) != c.parts {
 			t.Errorf("%s: %d parts, want %d", c.name, len(e.parts), c.parts)
+		}
+	}
+}
+
+// With member factors, the state of each extreme (EndMoments) is formed
+// with the same factors, by the part of the combinations its combination
+// is in: every extreme of M at a member's end is given again, and its own
+// end's moment is the extreme itself; StationsAt gives Compute's
+// stations. Factors differ by member and by which case leads.
+func TestEndMomentsAndStationsWithFactors(t *testing.T) {
+	mo := beam(3, 6, 1, 1.5)
+	mo.Cases = append(mo.Cases, frame.Case{Name: "L2", MemberLoads: []frame.MemberLoad{{Member: 1, To: 6, W: 2, WEnd: 2}}})
+	cs := []combos.Combination{
+		{Name: "L leads", Terms: []combos.Term{{Case: 0, Factor: 1.35}, {Case: 1, Factor: 1.5}, {Case: 2, Factor: 1.05}}, Lead: []int{1}},
+		{Name: "L2 leads", Terms: []combos.Term{{Case: 0, Factor: 1.35}, {Case: 2, Factor: 1.5}, {Case: 1, Factor: 1.05}}, Lead: []int{2}},
+	}
+	lay, err := patterns.Expand(mo, []int{1}, 1, patterns.Exact)
+	if err != nil {
+		t.Fatal(err)
+	}
+	sol, err := frame.Solve(lay.Model)
+	if err != nil {
+		t.Fatal(err)
+	}
+	of := uniform(3, 3, 1)
+	acc := uniform(3, 3, 1)
+	for m := range of {
+		of[m][1] = [3]float64{0.9 - 0.1*float64(m), 0.8, 0.7 - 0.1*float64(m)}
+		acc[m][1] = [3]float64{1, 0.8, 0.9}
+	}
+	set := Settings{Kinds: kindsOf(sol, lay), Stations: 5, Factors: &Factors{Of: of, Accompanying: acc}}
+	env, err := Compute(sol, cs, set, lay)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for m, em := range env.Members {
+		last := len(em.Stations) - 1
+		for _, end := range []int{0, last} {
+			st := em.Stations[end]
+			for _, side := range []struct {
+				hi bool
+				v  float64
+				by int
+			}{{true, st.M.Max, st.M.MaxBy}, {false, st.M.Min, st.M.MinBy}} {
+				ends, ok := EndMoments(sol, cs, set, lay, m, st.X, side.by, 2, side.hi, side.v)
+				own := ends[0]
+				if end == last {
+					own = ends[1]
+				}
+				if !ok || math.Abs(own-side.v) > 1e-9*math.Max(1, math.Abs(side.v)) {
+					t.Errorf("member %d at x = %g: ends %v (ok %v), want the extreme %g at its own end", m, st.X, ends, ok, side.v)
+				}
+			}
+		}
+		xs := []float64{em.Stations[1].X, em.Stations[3].X}
+		got, err := StationsAt(sol, cs, set, lay, m, xs)
+		if err != nil {
+			t.Fatal(err)
+		}
+		for i, st := range got {
+			want := em.Stations[1+2*i]
+			if st.M.Max != want.M.Max || st.M.Min != want.M.Min || st.N.Max != want.N.Max || st.V.Min != want.V.Min {
+				t.Errorf("member %d at x = %g: StationsAt %+v, Compute %+v", m, st.X, st.M, want.M)
+			}
 		}
 	}
 }

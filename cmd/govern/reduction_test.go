@@ -79,6 +79,27 @@ func TestColumnsReduced(t *testing.T) {
 					"L N "+f4(exterior)+", V M "+f4(exteriorOne)),
 				wantApprox(dead+exterior*(full-dead), "N = N(1.2D) + factor × N(1.6L): the live load's part reduced", "N max (kN)"),
 			})
+			// The end moments of the state of A0-A1's |M| max are those
+			// of the reduced envelope: its base moment (the moment with
+			// N max, 82.43) and its top, |M| max itself (linearity: the
+			// state is formed with the same factors).
+			found := 0
+			for _, tb := range v.tablesOf(func(h []string) bool { return slices.Contains(h, "M1 (kN·m)") }) {
+				for _, r := range tb.rows {
+					if r.cells[0].text == "A0-A1" && r.cells[1].text == "N max" {
+						found++
+						m1, m2 := r.cells[columnIndex(t, tb, "M1 (kN·m)")].text, r.cells[columnIndex(t, tb, "M2 (kN·m)")].text
+						_, mrow := v.row(t, isColumnTable, "A0-A1")
+						withM := mrow[columnIndex(t, tb0(v), "N max (kN)", "with M")].text
+						if m1 != withM || m2 == "-" {
+							t.Errorf("A0-A1 end moments %s, %s; want the base moment %s and the top's", m1, m2, withM)
+						}
+					}
+				}
+			}
+			if found != 1 {
+				t.Errorf("%d rows of A0-A1's end moments at N max, want 1", found)
+			}
 			tb, row = v.row(t, isBeamTable, "A1-B1")
 			checkRowCells(t, tb, row, []cellWant{wantText("a 9 m × 9 m beam, K_LL = 2", hdr("live load factor"), "L "+f4(beam))})
 			tb, row = v.row(t, isReductionTable, "L", "B0-B1")
@@ -366,3 +387,6 @@ func TestColumnsReducedReactions(t *testing.T) {
 		})
 	}
 }
+
+// tb0 returns the first column table of v.
+func tb0(v columnsView) renderedTable { return v.tablesOf(isColumnTable)[0] }
