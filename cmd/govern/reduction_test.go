@@ -253,6 +253,37 @@ func TestReducedJSONAndCSV(t *testing.T) {
 			t.Errorf("%d reduced reaction rows; B0 Fy %g reduced %g, want × %g", reduced, u, red, n)
 		}
 	})
+	t.Run("design csv", func(t *testing.T) {
+		// A reduced member's note names its factors: B0-B1's N by two
+		// floors, V and M by one.
+		code, out, stderr := exec("run", "--quiet", "--design-csv", "-", model)
+		if code != 0 {
+			t.Fatalf("exit %d: %s", code, stderr)
+		}
+		rows, err := csv.NewReader(strings.NewReader(out)).ReadAll()
+		if err != nil {
+			t.Fatal(err)
+		}
+		note := slices.Index(rows[0], "note")
+		want := "live load reduced: L N " + strconv.FormatFloat(n, 'f', 4, 64) + ", V M " + strconv.FormatFloat(vm, 'f', 4, 64)
+		seen := false
+		for _, r := range rows[1:] {
+			switch r[0] {
+			case "B0-B1":
+				seen = true
+				if !strings.Contains(r[note], want) {
+					t.Errorf("B0-B1 note %q, want %q", r[note], want)
+				}
+			case "A3-B3":
+				if strings.Contains(r[note], "live load") {
+					t.Errorf("roof beam note %q", r[note])
+				}
+			}
+		}
+		if !seen {
+			t.Fatal("no row of B0-B1")
+		}
+	})
 	t.Run("csv", func(t *testing.T) {
 		code, out, stderr := exec("run", "--quiet", "--csv", "-", model)
 		if code != 0 {
