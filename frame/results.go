@@ -124,7 +124,13 @@ func (sol *Solution) At(c, m int, x float64) Forces {
 	sol.endForcesTo(&f, c, m)
 	e := &sol.elems[m]
 	idx, _ := sol.loadsOn(c, m)
-	return stationForces(f[0], f[1], f[2], x, e.l, e.c, e.s, sol.model.Cases[c].MemberLoads, idx)
+	out := stationForces(f[0], f[1], f[2], x, e.l, e.c, e.s, sol.model.Cases[c].MemberLoads, idx)
+	if e.so != nil {
+		row := []Forces{out}
+		sol.secondTo(row, nil, c, m, []float64{x})
+		out = row[0]
+	}
+	return out
 }
 
 // StationsTo fills dst with the internal forces of member m at the
@@ -167,10 +173,17 @@ func (sol *Solution) stationsTo(dst []Forces, defl []float64, m int, xs []float6
 			for i, x := range xs {
 				row[i] = Forces{N: -f[0], V: f[1], M: -f[2] + x*f[1]}
 			}
-			continue
+		} else {
+			for i, x := range xs {
+				row[i] = stationForces(f[0], f[1], f[2], x, e.l, e.c, e.s, loads, idx)
+			}
 		}
-		for i, x := range xs {
-			row[i] = stationForces(f[0], f[1], f[2], x, e.l, e.c, e.s, loads, idx)
+		if e.so != nil {
+			var d []float64
+			if defl != nil {
+				d = defl[c*len(xs) : (c+1)*len(xs)]
+			}
+			sol.secondTo(row, d, c, m, xs)
 		}
 	}
 }
