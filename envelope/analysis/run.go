@@ -72,6 +72,10 @@ type Result struct {
 	// Statics is the statics check of every load case, in model order;
 	// Run has refused any case out of balance.
 	Statics []Balance
+	// BareReactions are the reaction envelopes with the notional loads left
+	// out (their base shear: AISC 360-16 C2.2b User Note), in the order of
+	// Envelope.Reactions; nil without notional loads.
+	BareReactions []envelope.Reaction
 
 	// The first-order solution of every load case and pattern piece, from
 	// which every combination is formed: an optimisation of the
@@ -79,6 +83,9 @@ type Result struct {
 	lay    *patterns.Layout
 	sol    *frame.Solution
 	spanOf []int // member → index into Spans, -1 for none
+
+	solver  frame.Options // the options of every solve
+	buckled []string      // first-order combinations with αcr ≤ 1, as warnings
 }
 
 // Combination is one combination of the job as it was analysed.
@@ -88,6 +95,23 @@ type Combination struct {
 	// Condition is the estimated condition number of its stiffness matrix,
 	// scaled to unit diagonal (frame.Solution.Cond).
 	Condition float64
+	// CriticalFactor is αcr, the elastic critical load factor of the
+	// combination as written, every case at its factor and every pattern
+	// piece loaded (notional loads included), with the stiffness it is
+	// analysed with: the smallest factor on its loads at which the frame
+	// buckles (frame.CriticalFactor); +Inf where nothing is in
+	// compression. The least over its notional alternatives.
+	CriticalFactor float64
+	// CriticalNominal is αcr with the sections as given (what EN 1993-1-1
+	// 5.2.1(3) compares with 10); CriticalFactor where the stiffness is
+	// nominal.
+	CriticalNominal float64
+	// Iterations is the number of second-order solves of the iteration on
+	// the axial forces; 0 for a first-order analysis.
+	Iterations int
+	// Notional holds its notional loads: none, one set, or one per
+	// direction as alternatives.
+	Notional []Notional
 }
 
 // Condition returns the largest estimated condition number of the
@@ -122,6 +146,10 @@ func Run(ctx context.Context, job *Job, opt Options) (*Result, error) {
 		mode = *opt.placement
 	}
 	sv := favourableSplit(job)
+	pl, err := makePlan(job, &sv)
+	if err != nil {
+		return nil, err
+	}
 	lay, err := patterns.Expand(sv.model, sv.patterned, job.Segments, mode)
 	if err != nil {
 		return nil, err
@@ -136,7 +164,7 @@ func Run(ctx context.Context, job *Job, opt Options) (*Result, error) {
 	if err := ctx.Err(); err != nil {
 		return nil, err
 	}
-	r := &Result{Job: job, lay: lay, sol: sol, Patterns: lay.Mode, Segments: lay.Segments, Info: sol.Info(),
+	r := &Result{Job: job, lay: lay, sol: sol, solver: opt.Solver, Patterns: lay.Mode, Segments: lay.Segments, Info: sol.Info(),
 		Warnings: append(slices.Clip(sol.Warnings()), Plausibility(job)...)}
 	r.Faces = ColumnFaces(job.Model)
 	r.Spans = spans(job.Model)
@@ -157,29 +185,71 @@ func Run(ctx context.Context, job *Job, opt Options) (*Result, error) {
 			set.Groups = g
 		}
 	}
+	r.Combinations = make([]Combination, len(job.Combinations))
+	for k, cb := range job.Combinations {
+		r.Combinations[k] = Combination{Combination: cb, Method: job.methodOf(k)}
+		if pl.simple {
+			r.Combinations[k].Condition = sol.Cond()
+		}
+	}
+	var ends envelope.Settings // the ends of the members, for the deflections across ridges
+	lines := ridgeLines(job.Model, r.Spans)
+	if lines != nil {
+		// The ends of the members are enough: a ridge is a node.
+		ends = set
+		ends.Stations, ends.Extra, ends.Lines, ends.Progress = 2, nil, lines, nil
+	}
+	groups := 1
+	if !pl.simple {
+		groups = len(pl.units)
+	}
 	if opt.Progress != nil {
 		total := len(job.Model.Members) * set.Stations
 		for _, xs := range set.Extra {
 			total += len(xs)
 		}
 		set.Progress = new(atomic.Int64)
-		report(opt, Progress{Phase: fmt.Sprintf("solved %d loads; enveloping stations", len(lay.Model.Cases)), Total: int64(total), Done: set.Progress})
+		report(opt, Progress{Phase: fmt.Sprintf("solved %d loads; enveloping stations", len(lay.Model.Cases)), Total: int64(total * groups), Done: set.Progress})
 	}
-	env, err := envelope.Compute(sol, sv.combinations, set, lay)
-	if err != nil {
-		return nil, err
+	var env, across *envelope.Envelope // across: deflections across the lines of runs with a ridge
+	if pl.simple {
+		if env, err = envelope.Compute(sol, sv.combinations, set, lay); err != nil {
+			return nil, err
+		}
+		for i := range pl.units {
+			if err := r.firstOrderCritical(&pl.units[i], sv.model, Nominal); err != nil {
+				return nil, err
+			}
+			cb := &r.Combinations[pl.units[i].k]
+			cb.CriticalFactor, cb.CriticalNominal = pl.units[i].critical, pl.units[i].nominal
+		}
+	} else {
+		reqs := []request{{set: set}}
+		if job.Sway.Notional != NoNotional || job.Sway.TauB == TauBNotional {
+			bare := set
+			bare.Stations, bare.Extra, bare.Lines, bare.Progress = 2, nil, nil, nil
+			reqs = append(reqs, request{set: bare, bare: true})
+		}
+		if lines != nil {
+			reqs = append(reqs, request{set: ends})
+		}
+		envs, err := r.envelopes(pl, &sv, lay, reqs, opt)
+		if err != nil {
+			return nil, err
+		}
+		env = envs[0]
+		if job.Sway.Notional != NoNotional || job.Sway.TauB == TauBNotional {
+			r.BareReactions = envs[1].Reactions
+		}
+		if lines != nil {
+			across = envs[len(envs)-1]
+		}
 	}
+	r.Warnings = append(r.Warnings, r.stabilityWarnings()...)
 	// The job's combinations, index for index: a favourable factor's split
 	// (favourableSplit) is how they were solved, not what they are.
 	env.Combinations = job.Combinations
 	r.Envelope = env
-	r.Combinations = make([]Combination, len(job.Combinations))
-	for k, cb := range job.Combinations {
-		r.Combinations[k] = Combination{Combination: cb, Condition: sol.Cond()}
-		if job.Methods != nil {
-			r.Combinations[k].Method = job.Methods[k]
-		}
-	}
 	r.Statics = r.statics()
 	if err := CheckStatics(r.Statics); err != nil {
 		se := err.(*StaticsError)
@@ -190,14 +260,13 @@ func Run(ctx context.Context, job *Job, opt Options) (*Result, error) {
 	for m := range r.spanOf {
 		r.spanOf[m] = -1
 	}
-	var across *envelope.Envelope // deflections across the lines of runs with a ridge
-	if lines := ridgeLines(job.Model, r.Spans); lines != nil && len(env.Service) > 0 {
-		// The ends of the members are enough: a ridge is a node.
-		ends := set
-		ends.Stations, ends.Extra, ends.Lines, ends.Progress = 2, nil, lines, nil
+	if pl.simple && lines != nil && len(env.Service) > 0 {
 		if across, err = envelope.Compute(sol, job.Combinations, ends, lay); err != nil {
 			return nil, err
 		}
+	}
+	if len(env.Service) == 0 {
+		across = nil
 	}
 	for i := range r.Spans {
 		s := &r.Spans[i]
