@@ -97,7 +97,8 @@ func (j *Job) checkStability() error {
 func makePlan(job *Job, sv *solved) (*plan, error) {
 	pl := &plan{simple: job.Sway.Notional == NoNotional && job.Sway.TauB != TauBNotional}
 	for k := range job.Combinations {
-		if job.methodOf(k) != (Method{}) {
+		// Allowable alone changes nothing without notional loads.
+		if m := job.methodOf(k); m.SecondOrder || m.Stiffness != Nominal {
 			pl.simple = false
 		}
 	}

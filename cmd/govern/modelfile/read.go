@@ -127,6 +127,7 @@ type reader struct {
 	caseTables []*table // per case, its table, for messages (combinations.go)
 	released   []bool   // nodes whose rotation carries nothing, once found (load.go)
 
+	sway       swaySettings    // [analysis] second_order and its keys
 	zones      bool            // [analysis] rigid_zones
 	zoneFactor float64         // [analysis] rigid_zone_factor
 	ownZone    map[[2]int]bool // member and side (0 start, 1 end) that gives its own rigid zone
@@ -176,6 +177,7 @@ func (r *reader) read(raw map[string]any) *Job {
 				r.zoneFactor = f
 			}
 		}
+		r.readSway(a)
 		a.done()
 	}
 	r.readSections(top.array("section", func(i int, m map[string]any) string { return named("section", i, m) }))
@@ -198,6 +200,7 @@ func (r *reader) read(raw map[string]any) *Job {
 		job.Combinations = combos.EachCase(job.Cases)
 	}
 	r.checkPermanentPatterns()
+	r.methods()
 	for i, x := range r.lines() {
 		job.Lines = append(job.Lines, analysis.GridLine{Name: LineName(i), X: x})
 	}
@@ -260,6 +263,7 @@ func (r *reader) readSections(ts []*table) {
 				s.Depth = d
 			}
 		}
+		r.sectionSway(t)
 		if a, ok := t.qtyOK("alpha", units.Expansion, 0); ok {
 			if a <= 0 {
 				t.fail("alpha", problem(ErrValue, "alpha = %g: must be greater than zero", a))
