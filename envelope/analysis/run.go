@@ -72,6 +72,10 @@ type Result struct {
 	// Statics is the statics check of every load case, in model order;
 	// Run has refused any case out of balance.
 	Statics []Balance
+	// Displacements are the envelopes of the nodes' displacements, in
+	// model order; Storeys the storeys between the job's levels.
+	Displacements []NodeDisplacement
+	Storeys       []Storey
 	// BareReactions are the reaction envelopes with the notional loads left
 	// out (their base shear: AISC 360-16 C2.2b User Note), in the order of
 	// Envelope.Reactions; nil without notional loads.
@@ -211,17 +215,32 @@ func Run(ctx context.Context, job *Job, opt Options) (*Result, error) {
 		set.Progress = new(atomic.Int64)
 		report(opt, Progress{Phase: fmt.Sprintf("solved %d loads; enveloping stations", len(lay.Model.Cases)), Total: int64(total * groups), Done: set.Progress})
 	}
+	r.Storeys = storeysOf(job)
+	nodes, drifts := r.displacementRequests()
 	var env, across *envelope.Envelope // across: deflections across the lines of runs with a ridge
 	if pl.simple {
 		if env, err = envelope.Compute(sol, sv.combinations, set, lay); err != nil {
 			return nil, err
 		}
-		for i := range pl.units {
-			if err := r.firstOrderCritical(&pl.units[i], sv.model, Nominal); err != nil {
+		idx := make([]int, len(sv.combinations))
+		for k := range idx {
+			idx[k] = k
+		}
+		for _, vr := range []*valuesRequest{nodes, drifts} {
+			if err := vr.add(sol, lay, sv.combinations, idx, set); err != nil {
 				return nil, err
 			}
-			cb := &r.Combinations[pl.units[i].k]
-			cb.CriticalFactor, cb.CriticalNominal = pl.units[i].critical, pl.units[i].nominal
+		}
+		for i := range pl.units {
+			u := &pl.units[i]
+			if err := r.firstOrderCritical(u, sv.model, Nominal); err != nil {
+				return nil, err
+			}
+			if err := r.storeyStability(u, sv.model, Nominal); err != nil {
+				return nil, err
+			}
+			cb := &r.Combinations[u.k]
+			cb.CriticalFactor, cb.CriticalNominal = u.critical, u.nominal
 		}
 	} else {
 		reqs := []request{{set: set}}
@@ -233,7 +252,7 @@ func Run(ctx context.Context, job *Job, opt Options) (*Result, error) {
 		if lines != nil {
 			reqs = append(reqs, request{set: ends})
 		}
-		envs, err := r.envelopes(pl, &sv, lay, reqs, opt)
+		envs, err := r.envelopes(pl, &sv, lay, reqs, []*valuesRequest{nodes, drifts}, opt)
 		if err != nil {
 			return nil, err
 		}
@@ -245,6 +264,7 @@ func Run(ctx context.Context, job *Job, opt Options) (*Result, error) {
 			across = envs[len(envs)-1]
 		}
 	}
+	r.setDisplacements(nodes, drifts)
 	r.Warnings = append(r.Warnings, r.stabilityWarnings()...)
 	// The job's combinations, index for index: a favourable factor's split
 	// (favourableSplit) is how they were solved, not what they are.

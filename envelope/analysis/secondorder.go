@@ -385,7 +385,7 @@ type request struct {
 // plan: units analysed alike (first order, one stiffness) together on one
 // solution, each second-order unit on its own; merged combination by
 // combination.
-func (r *Result) envelopes(pl *plan, sv *solved, lay *patterns.Layout, reqs []request, opt Options) ([]*envelope.Envelope, error) {
+func (r *Result) envelopes(pl *plan, sv *solved, lay *patterns.Layout, reqs []request, vals []*valuesRequest, opt Options) ([]*envelope.Envelope, error) {
 	job := r.Job
 	type group struct {
 		stiff  Stiffness
@@ -449,6 +449,9 @@ func (r *Result) envelopes(pl *plan, sv *solved, lay *patterns.Layout, reqs []re
 					return nil, err
 				}
 			}
+			if err := r.storeyStability(u, sv.model, g.stiff); err != nil {
+				return nil, err
+			}
 			cb := &r.Combinations[u.k]
 			cb.CriticalFactor = minCritical(cb.CriticalFactor, u.critical)
 			cb.CriticalNominal = minCritical(cb.CriticalNominal, u.nominal)
@@ -473,6 +476,13 @@ func (r *Result) envelopes(pl *plan, sv *solved, lay *patterns.Layout, reqs []re
 				return nil, err
 			}
 			mg[q].add(env, idx)
+			if q == 0 {
+				for _, vr := range vals {
+					if err := vr.add(sol, glay, cs, idx, rq.set); err != nil {
+						return nil, err
+					}
+				}
+			}
 		}
 	}
 	out := make([]*envelope.Envelope, len(reqs))
