@@ -76,6 +76,10 @@ type Result struct {
 	// model order; Storeys the storeys between the job's levels.
 	Displacements []NodeDisplacement
 	Storeys       []Storey
+	// Amplifications gives, for each column whose governing moment comes
+	// from a second-order combination, that moment beside the first-order
+	// one of the same state; by member.
+	Amplifications []Amplification
 	// BareReactions are the reaction envelopes with the notional loads left
 	// out (their base shear: AISC 360-16 C2.2b User Note), in the order of
 	// Envelope.Reactions; nil without notional loads.
@@ -270,6 +274,11 @@ func Run(ctx context.Context, job *Job, opt Options) (*Result, error) {
 	// (favourableSplit) is how they were solved, not what they are.
 	env.Combinations = job.Combinations
 	r.Envelope = env
+	if !pl.simple {
+		if err := r.amplifications(pl, &sv, lay, set); err != nil {
+			return nil, err
+		}
+	}
 	r.Statics = r.statics()
 	if err := CheckStatics(r.Statics); err != nil {
 		se := err.(*StaticsError)

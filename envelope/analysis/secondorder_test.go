@@ -68,6 +68,12 @@ func TestSecondOrderCantileverRun(t *testing.T) {
 	if cb.Iterations < 1 {
 		t.Errorf("%d iterations on the axial forces", cb.Iterations)
 	}
+	// The column's governing moment beside the first-order one of the same
+	// state, H L = 0.45: the ratio ACI 318-19 6.2.5.3 limits to 1.4.
+	if a := res.Amplifications; len(a) != 1 || a[0].X != 0 || a[0].By != 0 || !within(a[0].Second, want, 1e-3) ||
+		!within(a[0].First, 0.45, 1e-9) || !within(a[0].Ratio, want/0.45, 1e-3) || a[0].Ratio <= AmplificationLimit {
+		t.Errorf("amplifications %+v, want %.6g / 0.45 at the base", a, want)
+	}
 	for _, w := range res.Warnings {
 		if strings.Contains(w, "first-order") {
 			t.Errorf("a second-order run warned: %s", w)

@@ -3,6 +3,7 @@ package analysis
 import (
 	"fmt"
 	"math"
+	"slices"
 
 	"govern/combos"
 	"govern/envelope"
@@ -345,4 +346,121 @@ func lateralAtNodes(mo *frame.Model, cs *frame.Case, hx []float64) {
 		hx[mem.Start] += p * (1 - rr)
 		hx[mem.End] += p * rr
 	}
+}
+
+// Amplification is one column's governing moment in a second-order run
+// beside the first-order moment of the same state: the same combination,
+// at the same station, with its loads placed for the same extreme
+// (largest or smallest) of a first-order analysis with the same stiffness.
+type Amplification struct {
+	Member int
+	X      float64 // the station, from the member's start
+	By     int     // the combination
+	Second float64 // |M|, second order
+	First  float64 // |M|, first order
+	// Ratio is Second/First; above AmplificationLimit it is flagged (ACI
+	// 318-19 6.2.5.3).
+	Ratio float64
+}
+
+// AmplificationLimit is the ratio of second-order to first-order moment
+// above which ACI 318-19 6.2.5.3 asks for a review of the frame.
+const AmplificationLimit = 1.4
+
+// amplifications fills r.Amplifications for the columns governed by a
+// second-order combination.
+func (r *Result) amplifications(pl *plan, sv *solved, lay *patterns.Layout, set envelope.Settings) error {
+	job, mo := r.Job, r.Job.Model
+	type item struct {
+		m, station int
+		hi         bool
+		second     float64
+	}
+	byCombo := map[int][]item{}
+	for m := range mo.Members {
+		if !mo.IsColumn(m) {
+			continue
+		}
+		em := &r.Envelope.Members[m]
+		best, it := -1.0, item{m: m}
+		for i, st := range em.Stations {
+			if st.M.MaxBy >= 0 && math.Abs(st.M.Max) > best {
+				best, it.station, it.hi = math.Abs(st.M.Max), i, true
+			}
+			if st.M.MinBy >= 0 && math.Abs(st.M.Min) > best {
+				best, it.station, it.hi = math.Abs(st.M.Min), i, false
+			}
+		}
+		st := em.Stations[it.station]
+		k := st.M.MinBy
+		if it.hi {
+			k = st.M.MaxBy
+		}
+		if k < 0 || !job.methodOf(k).SecondOrder || best <= 0 {
+			continue
+		}
+		it.second = best
+		byCombo[k] = append(byCombo[k], it)
+	}
+	sols := map[Stiffness]*frame.Solution{Nominal: r.sol}
+	for k := range job.Combinations {
+		items := byCombo[k]
+		if len(items) == 0 {
+			continue
+		}
+		stiff := job.methodOf(k).Stiffness
+		sol := sols[stiff]
+		glay := lay
+		if sol == nil {
+			secs, mems := job.stiffnessOf(lay.Model, stiff)
+			m2 := *lay.Model
+			m2.Sections, m2.Members = secs, mems
+			var err error
+			if sol, err = frame.SolveWith(&m2, r.solver); err != nil {
+				return err
+			}
+			sols[stiff] = sol
+		}
+		if sol.Model() != lay.Model {
+			l2 := *lay
+			l2.Model = sol.Model()
+			glay = &l2
+		}
+		var cs []combos.Combination
+		for _, u := range pl.units {
+			if u.k == k {
+				cs = append(cs, u.cb)
+			}
+		}
+		idx := make([]int, len(cs))
+		for i := range idx {
+			idx[i] = i
+		}
+		nc := len(sol.Model().Cases)
+		vals := make([][]frame.Forces, len(items))
+		for i, it := range items {
+			vals[i] = make([]frame.Forces, nc)
+			sol.StationsTo(vals[i], it.m, []float64{r.Envelope.Members[it.m].Stations[it.station].X})
+		}
+		ex, err := envelope.Values(sol, cs, idx, set, glay, len(items),
+			func(c, i int) [3]float64 { f := vals[i][c]; return [3]float64{f.N, f.V, f.M} },
+			func(i, q int) string { return fmt.Sprintf("the moment of column %q", mo.Members[items[i].m].Name) })
+		if err != nil {
+			return err
+		}
+		for i, it := range items {
+			first := ex[i][2].Min
+			if it.hi {
+				first = ex[i][2].Max
+			}
+			a := Amplification{Member: it.m, X: r.Envelope.Members[it.m].Stations[it.station].X, By: k, Second: it.second, First: math.Abs(first)}
+			a.Ratio = math.Inf(1)
+			if a.First > 0 {
+				a.Ratio = a.Second / a.First
+			}
+			r.Amplifications = append(r.Amplifications, a)
+		}
+	}
+	slices.SortFunc(r.Amplifications, func(a, b Amplification) int { return a.Member - b.Member })
+	return nil
 }
