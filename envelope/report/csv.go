@@ -59,6 +59,9 @@ func (p *Report) WriteCSV(w io.Writer) error {
 			}
 		}
 	}
+	if err := p.csvNodes(cw.Write); err != nil {
+		return err
+	}
 	if p.conditionNote() != "" {
 		// One last row for the whole model; its columns are those of the
 		// others (docs/output.md).

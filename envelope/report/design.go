@@ -23,7 +23,8 @@ type design struct {
 	groups     []groupDesign
 	deflection *Table // nil without service combinations or spans
 	reactions  *Table // nil without supports
-	staticsTop string // the note above the statics table
+	stability  []Table // the frame's stability (stability.go)
+	staticsTop string  // the note above the statics table
 	statics    Table
 }
 
@@ -49,6 +50,7 @@ func (p *Report) Tables() []Table {
 	if d.reactions != nil {
 		out = append(out, *d.reactions)
 	}
+	out = append(out, d.stability...)
 	return append(out, d.statics)
 }
 
@@ -78,6 +80,7 @@ func newDesign(p *Report) *design {
 	}
 	d.deflection = p.deflectionTable()
 	d.reactions = p.reactionTable()
+	d.stability = p.stabilityTables()
 	d.staticsTop, d.statics = p.staticsTable()
 	return d
 }
@@ -243,15 +246,19 @@ const reactionRoundOff = 1e-9
 // nil without supports. A value that is zero to round-off names no
 // governing combination ("-"): which combination gives it is round-off.
 func (p *Report) reactionTable() *Table {
-	env := p.res.Envelope
-	if len(env.Reactions) == 0 {
+	return p.reactionTableOf(p.res.Envelope.Reactions, "Reactions (global: +X right, +Y up, M counter-clockwise)")
+}
+
+// reactionTableOf is reactionTable for the reactions rs, with a title.
+func (p *Report) reactionTableOf(rs []envelope.Reaction, title string) *Table {
+	if len(rs) == 0 {
 		return nil
 	}
 	mo := p.model()
 	// The largest size of each component over every support, for what
 	// counts as zero.
 	var largest [3]float64
-	for _, r := range env.Reactions {
+	for _, r := range rs {
 		for d, e := range [3]envelope.Extreme{r.Fx, r.Fy, r.M} {
 			if mo.Nodes[r.Node].Support.Restrained(d) {
 				largest[d] = math.Max(largest[d], math.Max(math.Abs(e.Max), math.Abs(e.Min)))
@@ -267,7 +274,7 @@ func (p *Report) reactionTable() *Table {
 		return p.comboName(k)
 	}
 	var rows [][]string
-	for _, r := range env.Reactions {
+	for _, r := range rs {
 		node := mo.Nodes[r.Node]
 		name := node.Name
 		for d, e := range []struct {
@@ -282,7 +289,7 @@ func (p *Report) reactionTable() *Table {
 			name = ""
 		}
 	}
-	return &Table{"Reactions (global: +X right, +Y up, M counter-clockwise)", []string{"node", "component", "max", "governing", "min", "governing"}, rows}
+	return &Table{title, []string{"node", "component", "max", "governing", "min", "governing"}, rows}
 }
 
 // spanName names a span, cantilever or rafter by its end nodes, left to

@@ -72,7 +72,9 @@ func (p *Report) WriteJSON(w io.Writer) error {
 				n++
 			}
 		}
-		j.raw("}, \"service\": ").boolean(cb.Service).raw("}")
+		j.raw("}, \"service\": ").boolean(cb.Service)
+		p.jsonCombination(j, i)
+		j.raw("}")
 	}
 	j.raw("\n ],\n \"members\": [")
 	// Each effect in its output unit: N, V and Fx, Fy forces, M moments.
@@ -137,7 +139,9 @@ func (p *Report) WriteJSON(w io.Writer) error {
 		}
 		j.raw("}")
 	}
-	j.raw("\n ],\n \"statics\": [")
+	j.raw("\n ]")
+	p.jsonStability(j, combo)
+	j.raw(",\n \"statics\": [")
 	for i, b := range p.res.Statics {
 		res := func(r frame.Resultant) {
 			j.raw("{\"Fx\": ").num(p.force.Of(r.Fx)).raw(", \"Fy\": ").num(p.force.Of(r.Fy)).raw(", \"M\": ").num(p.moment.Of(r.M)).raw("}")
