@@ -21,8 +21,8 @@ type Table struct {
 type design struct {
 	governing  string // the note above the design values
 	groups     []groupDesign
-	deflection *Table // nil without service combinations or spans
-	reactions  *Table // nil without supports
+	deflection *Table  // nil without service combinations or spans
+	reactions  *Table  // nil without supports
 	stability  []Table // the frame's stability (stability.go)
 	staticsTop string  // the note above the statics table
 	statics    Table
