@@ -235,3 +235,24 @@ func en1993Phi(job *Job, mo *frame.Model, axial []float64) (float64, error) {
 	am := math.Sqrt(0.5 * (1 + 1/float64(mCount)))
 	return ah * am / 200, nil
 }
+
+// NotionalLoads returns the notional loads of each combination of the job
+// as Run applies them (none without Job.Sway.Notional or tau_b
+// "notional"), for listing without analysing.
+func NotionalLoads(job *Job) ([][]Notional, error) {
+	if err := job.check(); err != nil {
+		return nil, err
+	}
+	sv := favourableSplit(job)
+	pl, err := makePlan(job, &sv)
+	if err != nil {
+		return nil, err
+	}
+	out := make([][]Notional, len(job.Combinations))
+	for _, u := range pl.units {
+		if u.notional != nil {
+			out[u.k] = append(out[u.k], *u.notional)
+		}
+	}
+	return out, nil
+}

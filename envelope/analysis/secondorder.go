@@ -130,7 +130,9 @@ func makePlan(job *Job, sv *solved) (*plan, error) {
 		if err != nil {
 			return nil, err
 		}
-		if ratio == 0 {
+		// Notional loads stand for the imperfections that strength design
+		// must allow for; service combinations take none.
+		if ratio == 0 || cb.Service {
 			pl.units = append(pl.units, u)
 			continue
 		}
@@ -440,7 +442,11 @@ func (r *Result) envelopes(pl *plan, sv *solved, lay *patterns.Layout, reqs []re
 			if sol, err = frame.SolveWith(&mo, so); err != nil {
 				return nil, fmt.Errorf("combination %q: %w", job.Combinations[pl.units[g.units[0]].k].Name, err)
 			}
-			r.Warnings = append(r.Warnings, sol.Warnings()...)
+			for _, w := range sol.Warnings() {
+				if !slices.Contains(r.Warnings, w) {
+					r.Warnings = append(r.Warnings, w)
+				}
+			}
 		}
 		for _, i := range g.units {
 			u := &pl.units[i]
