@@ -9,11 +9,12 @@ import (
 	"gonum.org/v1/gonum/blas"
 	"gonum.org/v1/gonum/blas/blas64"
 	"gonum.org/v1/gonum/lapack/lapack64"
+	"gonum.org/v1/gonum/mat"
 )
 
 // CriticalTol is the relative width of the bracket [CriticalFactor]
 // narrows αcr to.
-const CriticalTol = 1e-7
+const CriticalTol = 1e-6
 
 // maxCritical is the largest critical load factor sought: past it the
 // axial forces are taken to make no difference (αcr reported as +Inf).
@@ -110,20 +111,29 @@ func CriticalFactor(mo *Model, axial []float64) (float64, error) {
 	lo, hi := 0.0, math.Inf(1)
 	aLo, uLo := a0, u0
 	x := make([]float64, n)
+	y := make([]float64, n)
+	fails := 0 // trials failed since the last that succeeded
 	for range 200 {
 		if hi-lo <= CriticalTol*lo {
 			return (lo + hi) / 2, nil
 		}
 		cand := newtonStep(assemble, aLo, uLo, lo, n, kb, x)
+		if cand > lo && !math.IsInf(cand, 0) {
+			// The Rayleigh functional of the mode found: the λ at which
+			// xᵀ K(λ) x = 0, as good as the mode squared.
+			cand = rayleighRoot(assemble, aLo, x, y, lo, min(cand, hi), n, kb)
+		}
 		switch {
-		case !(cand > lo) || math.IsInf(cand, 0):
+		case !(cand > lo) || math.IsInf(cand, 0) || math.IsNaN(cand):
 			if math.IsInf(hi, 1) {
 				cand = max(2*lo, 1)
 			} else {
 				cand = (lo + hi) / 2
 			}
 		case cand >= hi:
-			cand = (lo + hi) / 2
+			// The last trial from this λ failed, most often by a hair: come
+			// nearer, by more each time it fails again.
+			cand = hi - (hi-lo)*retreat[min(max(fails-1, 0), len(retreat)-1)]
 		}
 		if cand > maxCritical {
 			if math.IsInf(hi, 1) {
@@ -133,9 +143,10 @@ func CriticalFactor(mo *Model, axial []float64) (float64, error) {
 		}
 		below := cand * (1 - CriticalTol/4)
 		if a, u, ok := factor(below); ok {
-			lo, aLo, uLo = below, a, u
+			lo, aLo, uLo, fails = below, a, u, 0
 		} else {
 			hi = below
+			fails++
 			continue
 		}
 		above := cand * (1 + CriticalTol/4)
@@ -143,7 +154,7 @@ func CriticalFactor(mo *Model, axial []float64) (float64, error) {
 			continue
 		}
 		if a, u, ok := factor(above); ok {
-			lo, aLo, uLo = above, a, u
+			lo, aLo, uLo = above, a, u // and a new Newton step from there
 		} else {
 			hi = above
 		}
@@ -151,10 +162,84 @@ func CriticalFactor(mo *Model, axial []float64) (float64, error) {
 	return 0, fmt.Errorf("frame: CriticalFactor: %w found between %g and %g", ErrNoCritical, lo, hi)
 }
 
+// retreat gives, by the number of trials that have failed in a row, how
+// far below the last failed one the next is put, as a share of the
+// bracket.
+var retreat = [...]float64{1e-4, 1e-2, 0.1, 0.5}
+
+// rayleighRoot returns the λ in (lo, hi] at which xᵀ K(λ) x = 0 (a = K(lo)),
+// by the Illinois variant of regula falsi; hi when xᵀ K(hi) x is still
+// positive. K(λ) past a member's own buckling counts as negative.
+func rayleighRoot(assemble func(float64) []float64, a, x, y []float64, lo, hi float64, n, kb int) float64 {
+	f := func(lambda float64, m []float64) float64 {
+		if m == nil {
+			if m = assemble(lambda); m == nil {
+				return math.Inf(-1)
+			}
+		}
+		bandMulVec(y, m, x, n, kb)
+		return dot(x, y)
+	}
+	fa, fb := f(lo, a), f(hi, nil)
+	if !(fa > 0) {
+		return math.NaN()
+	}
+	if fb > 0 {
+		return hi
+	}
+	if math.IsInf(fb, -1) {
+		fb = -fa // a member buckles: bisect the first step
+	}
+	side := 0
+	for range 30 {
+		c := (lo*fb - hi*fa) / (fb - fa)
+		if !(c > lo && c < hi) {
+			c = (lo + hi) / 2
+		}
+		fc := f(c, nil)
+		if math.IsInf(fc, -1) {
+			fc = -math.Abs(fa)
+		}
+		if fc > 0 {
+			lo, fa = c, fc
+			if side == -1 {
+				fb /= 2
+			}
+			side = -1
+		} else {
+			hi, fb = c, fc
+			if side == 1 {
+				fa /= 2
+			}
+			side = 1
+		}
+		if hi-lo <= CriticalTol/16*hi {
+			break
+		}
+	}
+	return (lo + hi) / 2
+}
+
+// maxInverse bounds the steps of inverse iteration of one Newton step, and
+// inverseTol is the relative change of the Rayleigh quotient that ends
+// it: the quotient's error is of the order of the square of the
+// eigenvector's, and a Newton step is judged by the factorization anyway.
+const (
+	maxInverse = 40
+	inverseTol = 1e-6
+)
+
+// subspace is the number of vectors of the subspace iteration of a
+// Newton step: enough that the buckling modes of a frame's storeys, whose
+// factors lie close together, are told apart by the Rayleigh–Ritz
+// projection rather than by the slow convergence of one vector.
+const subspace = 6
+
 // newtonStep returns λ + μ for the smallest μ > 0 with K(λ) + μ K′(λ)
-// singular, found by inverse iteration with the factor u of a = K(λ);
-// K′ by a difference of the assembled matrices. NaN when no positive μ is
-// found. x is scratch of length n.
+// singular, found by subspace iteration with the factor u of a = K(λ)
+// and a Rayleigh–Ritz projection on the subspace (a dense eigenproblem of
+// its size only); K′ by a difference of the assembled matrices. NaN when
+// no positive μ is found. x receives the mode, of length n.
 func newtonStep(assemble func(float64) []float64, a, u []float64, lambda float64, n, kb int, x []float64) float64 {
 	step := 1e-4 * max(lambda, 1)
 	a1 := assemble(lambda + step)
@@ -166,47 +251,129 @@ func newtonStep(assemble func(float64) []float64, a, u []float64, lambda float64
 	}
 	d := make([]float64, len(a))
 	for i := range d {
-		d[i] = (a1[i] - a[i]) / step
+		d[i] = -(a1[i] - a[i]) / step // −K′
 	}
-	y := make([]float64, n)
-	for i := range x {
+	p := min(subspace, n)
+	// The subspace, row-major n × p as bandSolve takes it, and −K′ times it.
+	y := make([]float64, n*p)
+	dx := make([]float64, n*p)
+	col, out := make([]float64, n), make([]float64, n)
+	column := func(m []float64, j int) []float64 {
+		for i := range n {
+			col[i] = m[i*p+j]
+		}
+		return col
+	}
+	for j := range p {
 		// A fixed start with every direction in it.
-		x[i] = 1 + 0.1*math.Sin(float64(i))
+		for i := range n {
+			col[i] = math.Sin(float64((i+1)*(j+1))*0.7548776662) + b2f(j == 0)
+		}
+		bandMulVec(out, d, col, n, kb)
+		for i := range n {
+			dx[i*p+j] = out[i]
+		}
 	}
+	sy := make([]float64, n*p)
 	mu := math.NaN()
-	for it := range 300 {
-		bandMulVec(y, d, x, n, kb)
-		for i := range y {
-			y[i] = -y[i]
+	var ritz *mat.Dense
+	for range maxInverse {
+		copy(y, dx)
+		copy(sy, dx)              // K Y = −K′ X: no product needed
+		bandSolve(u, n, kb, y, p) // Y = K⁻¹ (−K′) X
+		for j := range p {
+			bandMulVec(out, d, column(y, j), n, kb)
+			for i := range n {
+				dx[i*p+j] = out[i]
+			}
 		}
-		bandSolve(u, n, kb, y, 1)
-		norm := 0.0
-		for _, v := range y {
-			norm += v * v
+		as, bs := mat.NewSymDense(p, nil), mat.NewSymDense(p, nil)
+		for j := range p {
+			for k := j; k < p; k++ {
+				var sa, sb float64
+				for i := range n {
+					sa += y[i*p+j] * sy[i*p+k]
+					sb += y[i*p+j] * dx[i*p+k]
+				}
+				as.SetSym(j, k, sa)
+				bs.SetSym(j, k, sb)
+			}
 		}
-		norm = math.Sqrt(norm)
-		if !(norm > 0) || !finite(norm) {
+		// Bs z = θ As z with As = L Lᵀ: C = L⁻¹ Bs L⁻ᵀ, z = L⁻ᵀ w.
+		var ch mat.Cholesky
+		if !ch.Factorize(as) {
 			return math.NaN()
 		}
-		for i := range y {
-			x[i] = y[i] / norm
+		var l, linv mat.TriDense
+		ch.LTo(&l)
+		if err := linv.InverseTri(&l); err != nil {
+			return math.NaN()
 		}
-		// Rayleigh quotient of the pencil: μ = −xᵀ K x / xᵀ K′ x.
-		bandMulVec(y, a, x, n, kb)
-		num := dot(x, y)
-		bandMulVec(y, d, x, n, kb)
-		den := dot(x, y)
-		next := -num / den
-		if it > 2 && math.Abs(next-mu) <= 1e-12*math.Abs(next) {
-			mu = next
+		var c mat.Dense
+		c.Mul(&linv, bs)
+		c.Mul(&c, linv.T())
+		cs := mat.NewSymDense(p, nil)
+		for j := range p {
+			for k := j; k < p; k++ {
+				cs.SetSym(j, k, (c.At(j, k)+c.At(k, j))/2)
+			}
+		}
+		var eig mat.EigenSym
+		if !eig.Factorize(cs, true) {
+			return math.NaN()
+		}
+		theta := eig.Values(nil)
+		var w mat.Dense
+		eig.VectorsTo(&w)
+		// Largest θ first: the smallest μ = 1/θ.
+		z := mat.NewDense(p, p, nil)
+		z.Mul(linv.T(), &w)
+		ritz = mat.NewDense(p, p, nil)
+		for j := range p {
+			for k := range p {
+				ritz.Set(j, k, z.At(j, p-1-k))
+			}
+		}
+		next := math.NaN()
+		if th := theta[p-1]; th > 0 {
+			next = 1 / th
+		}
+		// The next subspace: the Ritz vectors, and −K′ times them from dx.
+		xn := make([]float64, n*p)
+		dn := make([]float64, n*p)
+		for i := range n {
+			for k := range p {
+				var sx, sd float64
+				for j := range p {
+					r := ritz.At(j, k)
+					sx += y[i*p+j] * r
+					sd += dx[i*p+j] * r
+				}
+				xn[i*p+k], dn[i*p+k] = sx, sd
+			}
+		}
+		copy(y, xn)
+		copy(dx, dn)
+		done := math.Abs(next-mu) <= inverseTol*math.Abs(next)
+		mu = next
+		if done || math.IsNaN(mu) {
 			break
 		}
-		mu = next
+	}
+	for i := range n {
+		x[i] = y[i*p]
 	}
 	if !(mu > 0) {
 		return math.NaN()
 	}
 	return lambda + mu
+}
+
+func b2f(b bool) float64 {
+	if b {
+		return 1
+	}
+	return 0
 }
 
 // bandMulVec sets y to A x, A symmetric in upper band storage (n

@@ -4,6 +4,7 @@ import (
 	"context"
 	"fmt"
 	"slices"
+	"sync"
 	"sync/atomic"
 
 	"govern/combos"
@@ -93,7 +94,8 @@ type Result struct {
 	spanOf []int // member → index into Spans, -1 for none
 
 	solver  frame.Options // the options of every solve
-	buckled []string      // first-order combinations with αcr ≤ 1, as warnings
+	mu      sync.Mutex    // guards buckled
+	buckled []buckled     // first-order combinations with αcr ≤ 1, as warnings
 }
 
 // Combination is one combination of the job as it was analysed.
@@ -235,11 +237,15 @@ func Run(ctx context.Context, job *Job, opt Options) (*Result, error) {
 				return nil, err
 			}
 		}
+		us := make([]*unit, len(pl.units))
+		for i := range us {
+			us[i] = &pl.units[i]
+		}
+		if err := r.criticalAll(us, sv.model, Nominal); err != nil {
+			return nil, err
+		}
 		for i := range pl.units {
 			u := &pl.units[i]
-			if err := r.firstOrderCritical(u, sv.model, Nominal); err != nil {
-				return nil, err
-			}
 			if err := r.storeyStability(u, sv.model, Nominal); err != nil {
 				return nil, err
 			}

@@ -4,7 +4,9 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"runtime"
 	"slices"
+	"sync"
 
 	"govern/combos"
 	"govern/envelope"
@@ -368,7 +370,9 @@ func (r *Result) critical(u *unit, base *frame.Model, n []float64, stiff Stiffne
 		}
 		// A first-order analysis can still be made; what it gives does not
 		// stand, and the warning says so (see docs/analysis.md).
-		r.buckled = append(r.buckled, err.Error()+"; the first-order results of this combination do not stand")
+		r.mu.Lock()
+		r.buckled = append(r.buckled, buckled{u.k, err.Error() + "; the first-order results of this combination do not stand"})
+		r.mu.Unlock()
 	}
 	return nil
 }
@@ -448,13 +452,17 @@ func (r *Result) envelopes(pl *plan, sv *solved, lay *patterns.Layout, reqs []re
 				}
 			}
 		}
+		if !g.second {
+			var us []*unit
+			for _, i := range g.units {
+				us = append(us, &pl.units[i])
+			}
+			if err := r.criticalAll(us, sv.model, g.stiff); err != nil {
+				return nil, err
+			}
+		}
 		for _, i := range g.units {
 			u := &pl.units[i]
-			if !g.second {
-				if err := r.firstOrderCritical(u, sv.model, g.stiff); err != nil {
-					return nil, err
-				}
-			}
 			if err := r.storeyStability(u, sv.model, g.stiff); err != nil {
 				return nil, err
 			}
@@ -649,7 +657,13 @@ const FirstOrderLimit = 21
 // analysed in first order whose critical load factor is below
 // FirstOrderLimit.
 func (r *Result) stabilityWarnings() []string {
-	out := r.buckled
+	slices.SortStableFunc(r.buckled, func(a, b buckled) int { return a.k - b.k })
+	var out []string
+	for _, b := range r.buckled {
+		if !slices.Contains(out, b.msg) {
+			out = append(out, b.msg)
+		}
+	}
 	for _, cb := range r.Combinations {
 		if cb.Service || cb.Method.SecondOrder || !(cb.CriticalFactor > 1) || cb.CriticalFactor >= FirstOrderLimit {
 			continue
@@ -658,4 +672,34 @@ func (r *Result) stabilityWarnings() []string {
 			cb.Name, cb.CriticalFactor, 100/(cb.CriticalFactor-1), FirstOrderLimit))
 	}
 	return out
+}
+
+// buckled is the warning of a first-order combination with αcr ≤ 1.
+type buckled struct {
+	k   int
+	msg string
+}
+
+// criticalAll sets the critical load factors of the first-order units us,
+// analysed with stiffness stiff, the units shared among the processors;
+// the first error in their order.
+func (r *Result) criticalAll(us []*unit, base *frame.Model, stiff Stiffness) error {
+	errs := make([]error, len(us))
+	next := make(chan int, len(us))
+	for i := range us {
+		next <- i
+	}
+	close(next)
+	var wg sync.WaitGroup
+	for range min(runtime.GOMAXPROCS(0), len(us)) {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			for i := range next {
+				errs[i] = r.firstOrderCritical(us[i], base, stiff)
+			}
+		}()
+	}
+	wg.Wait()
+	return errors.Join(errs...)
 }
