@@ -350,14 +350,14 @@ func (r *Result) critical(u *unit, base *frame.Model, n []float64, stiff Stiffne
 	if err != nil {
 		return fmt.Errorf("combination %q: critical load factor: %w", name, err)
 	}
-	u.critical = a * u.scale
+	u.critical = sixFigures(a * u.scale)
 	u.nominal = u.critical
 	if stiff != Nominal {
 		a, err := frame.CriticalFactor(&frame.Model{Nodes: base.Nodes, Sections: base.Sections, Members: base.Members}, n)
 		if err != nil {
 			return fmt.Errorf("combination %q: critical load factor: %w", name, err)
 		}
-		u.nominal = a * u.scale
+		u.nominal = sixFigures(a * u.scale)
 	}
 	limit := 1.0
 	if u.method.Allowable {
@@ -702,4 +702,15 @@ func (r *Result) criticalAll(us []*unit, base *frame.Model, stiff Stiffness) err
 	}
 	wg.Wait()
 	return errors.Join(errs...)
+}
+
+// sixFigures rounds a critical load factor to the six significant figures
+// frame.CriticalTol finds it to, so that its last digits are not those of
+// the search.
+func sixFigures(a float64) float64 {
+	if a == 0 || math.IsInf(a, 0) || math.IsNaN(a) {
+		return a
+	}
+	e := math.Pow(10, 5-math.Floor(math.Log10(math.Abs(a))))
+	return math.Round(a*e) / e
 }
