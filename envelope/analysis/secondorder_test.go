@@ -205,3 +205,83 @@ func TestNotionalGravityOnly(t *testing.T) {
 }
 
 func within(got, want, tol float64) bool { return math.Abs(got-want) <= tol*math.Abs(want) }
+
+// TestStiffnessReduction checks the stiffness factors against closed
+// forms: αcr = π²(0.8 EI)/(4L²)/P with AISC 360-16 C2.3(a)'s 0.8 on EI
+// (the nominal αcr beside it); τb = 4(αPr/Pns)(1 − αPr/Pns) = 0.75 for
+// αPr/Pns = 0.75 (C2.3(b)), the base moment that of the beam-column with
+// 0.75 EI (Timoshenko & Gere); and ACI 318-19 6.6.3: a section factor
+// 0.35 on I for strength, min(1.4 × 0.35, 1) = 0.49 for service drift, the
+// cantilever's tip HL³/(3 × 0.49 EI).
+func TestStiffnessReduction(t *testing.T) {
+	const p, h, ei = 4.0, 0.045, 250.0
+	euler := math.Pi * math.Pi * ei / 400 / p
+	t.Run("AISC 0.8", func(t *testing.T) {
+		job := cantileverJob(p*0.5, h, Method{SecondOrder: true, Stiffness: Strength})
+		job.Sway.StrengthEI, job.Sway.StrengthEA = 0.8, 0.8
+		res, err := Run(context.Background(), job, Options{})
+		if err != nil {
+			t.Fatal(err)
+		}
+		cb := res.Combinations[0]
+		if !within(cb.CriticalFactor, 0.8*2*euler, 1e-3) || !within(cb.CriticalNominal, 2*euler, 1e-3) {
+			t.Errorf("αcr %g, nominal %g; want 0.8 × %g and %g", cb.CriticalFactor, cb.CriticalNominal, 2*euler, 2*euler)
+		}
+		k := math.Sqrt(p * 0.5 / (0.8 * ei))
+		want := h * math.Tan(k*10) / k
+		if m := res.Envelope.Members[0].Stations[0].M; !within(math.Max(math.Abs(m.Max), math.Abs(m.Min)), want, 1e-3) {
+			t.Errorf("base moment %v, want %g with 0.8 EI", m, want)
+		}
+	})
+	t.Run("tau_b", func(t *testing.T) {
+		job := cantileverJob(p*0.5, h, Method{SecondOrder: true, Stiffness: Strength})
+		a := job.Model.Sections[0].A
+		job.Sway.TauB = TauBFy
+		job.Sway.Fy = []float64{p * 0.5 / (0.75 * a)} // αPr/Pns = 0.75
+		res, err := Run(context.Background(), job, Options{})
+		if err != nil {
+			t.Fatal(err)
+		}
+		k := math.Sqrt(p * 0.5 / (0.75 * ei))
+		want := h * math.Tan(k*10) / k
+		if m := res.Envelope.Members[0].Stations[0].M; !within(math.Max(math.Abs(m.Max), math.Abs(m.Min)), want, 1e-3) {
+			t.Errorf("base moment %v, want %g with τb = 0.75", m, want)
+		}
+	})
+	t.Run("ACI sections", func(t *testing.T) {
+		job := cantileverJob(0.01, h, Method{})
+		job.Combinations = append(job.Combinations, combos.Combination{Name: "W service", Service: true, Terms: []combos.Term{{Case: 1, Factor: 1}}})
+		job.Methods = []Method{{Stiffness: Strength}, {Stiffness: Service}}
+		job.Sway.SectionI = []float64{0.35}
+		res, err := Run(context.Background(), job, Options{})
+		if err != nil {
+			t.Fatal(err)
+		}
+		want := h * 1000 / (3 * 0.49 * ei)
+		if ux := res.Displacements[1].Ux; !within(ux.Max, want, 1e-9) || ux.MaxBy != 1 {
+			t.Errorf("service tip %+v, want HL³/(3 × 0.49 EI) = %g", ux, want)
+		}
+		if !within(res.Combinations[0].CriticalFactor, 0.35*math.Pi*math.Pi*ei/400/0.01, 1e-3) {
+			t.Errorf("strength αcr %g, want with 0.35 I", res.Combinations[0].CriticalFactor)
+		}
+	})
+}
+
+// TestNotionalEN1993 checks φ = φ0 αh αm of EN 1993-1-1 5.3.2(3)a on the
+// portal: h = 4 m gives αh = 2/√4 = 1, two equally loaded columns m = 2,
+// αm = √(0.5(1 + 1/2)), φ = αm/200 = 0.004330.
+func TestNotionalEN1993(t *testing.T) {
+	res, err := Run(context.Background(), portalJob(Method{}, NotionalEN1993), Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	want := math.Sqrt(0.75) / 200
+	for _, n := range res.Combinations[0].Notional {
+		if !within(n.Ratio, want, 1e-12) {
+			t.Errorf("φ = %g, want %g", n.Ratio, want)
+		}
+	}
+	if len(res.Combinations[0].Notional) != 2 {
+		t.Errorf("notional %+v", res.Combinations[0].Notional)
+	}
+}
