@@ -381,17 +381,52 @@ func (sol *Solution) localU(c, m int) [6]float64 {
 // equilibrium on the deformed geometry asks. When defl is not nil it is
 // filled with the deflections relative to the chord from the same shape.
 func (sol *Solution) secondTo(row []Forces, defl []float64, c, m int, xs []float64) {
+	w := sol.elems[m].weights(xs)
+	sol.secondWith(w, row, defl, c, m, xs)
+}
+
+// weights returns, for an element solved with a geometric stiffness, the
+// weights that give its transverse displacement at each of xs, less its
+// start node's, from the local displacements of its nodes when it carries
+// no load: the shape is linear in them.
+func (e *element) weights(xs []float64) [][6]float64 {
+	w := make([][6]float64, len(xs))
+	for j := range 6 {
+		var ul [6]float64
+		ul[j] = 1
+		sh := e.shape(&ul, nil, nil)
+		for i, x := range xs {
+			w[i][j] = e.transverse(&sh, &ul, x) - ul[1]
+		}
+	}
+	return w
+}
+
+// secondWith is secondTo with the element's weights at xs (weights): the
+// shape of the unloaded member from them, and that of the loads of case c
+// on the member with its nodes held added where there are any.
+func (sol *Solution) secondWith(w [][6]float64, row []Forces, defl []float64, c, m int, xs []float64) {
 	e := &sol.elems[m]
 	ul := sol.localU(c, m)
 	idx, _ := sol.loadsOn(c, m)
-	sh := e.shape(&ul, sol.model.Cases[c].MemberLoads, idx)
+	var held [6]float64
+	var sh [3 * (SubElements + 1)]float64
+	if len(idx) > 0 {
+		sh = e.shape(&held, sol.model.Cases[c].MemberLoads, idx)
+	}
 	for i, x := range xs {
-		v := e.transverse(&sh, &ul, x)
+		v := 0.0
+		for j := range 6 {
+			v += w[i][j] * ul[j]
+		}
+		if len(idx) > 0 {
+			v += e.transverse(&sh, &held, x)
+		}
 		if row != nil {
-			row[i].M += e.so.n * (v - ul[1])
+			row[i].M += e.so.n * v
 		}
 		if defl != nil {
-			defl[i] = v - ul[1] - x/e.l*(ul[4]-ul[1])
+			defl[i] = v - x/e.l*(ul[4]-ul[1])
 		}
 	}
 }

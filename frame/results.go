@@ -159,6 +159,10 @@ func (sol *Solution) StationsAndDeflectionsTo(dst []Forces, defl []float64, m in
 // the deflections of member m at xs in every case.
 func (sol *Solution) stationsTo(dst []Forces, defl []float64, m int, xs []float64) {
 	e := &sol.elems[m]
+	var w [][6]float64 // second order: the shape's weights at xs
+	if e.so != nil {
+		w = e.weights(xs)
+	}
 	var f [6]float64
 	for c := range len(sol.model.Cases) {
 		sol.endForcesTo(&f, c, m)
@@ -183,7 +187,7 @@ func (sol *Solution) stationsTo(dst []Forces, defl []float64, m int, xs []float6
 			if defl != nil {
 				d = defl[c*len(xs) : (c+1)*len(xs)]
 			}
-			sol.secondTo(row, d, c, m, xs)
+			sol.secondWith(w, row, d, c, m, xs)
 		}
 	}
 }
