@@ -113,11 +113,20 @@ func CriticalFactor(mo *Model, axial []float64) (float64, error) {
 	x := make([]float64, n)
 	y := make([]float64, n)
 	fails := 0 // trials failed since the last that succeeded
+	sub := make([]float64, n*min(subspace, n))
+	warm := false
 	for range 200 {
 		if hi-lo <= CriticalTol*lo {
 			return (lo + hi) / 2, nil
 		}
-		cand := newtonStep(assemble, aLo, uLo, lo, n, kb, x)
+		// The first step only has to land near αcr: the Rayleigh functional
+		// and the next step, started from its subspace, do the rest.
+		tol := inverseTol
+		if !warm {
+			tol = firstTol
+		}
+		cand := newtonStep(assemble, aLo, uLo, lo, n, kb, x, sub, warm, tol)
+		warm = true
 		if cand > lo && !math.IsInf(cand, 0) {
 			// The Rayleigh functional of the mode found: the λ at which
 			// xᵀ K(λ) x = 0, as good as the mode squared.
@@ -227,6 +236,7 @@ func rayleighRoot(assemble func(float64) []float64, a, x, y []float64, lo, hi fl
 const (
 	maxInverse = 40
 	inverseTol = 1e-6
+	firstTol   = 1e-6
 )
 
 // subspace is the number of vectors of the subspace iteration of a
@@ -240,7 +250,12 @@ const subspace = 6
 // and a Rayleigh–Ritz projection on the subspace (a dense eigenproblem of
 // its size only); K′ by a difference of the assembled matrices. NaN when
 // no positive μ is found. x receives the mode, of length n.
-func newtonStep(assemble func(float64) []float64, a, u []float64, lambda float64, n, kb int, x []float64) float64 {
+//
+// sub, n × p row-major, is the subspace to start from when warm is set
+// (the last step's, whose modes are near), else a fixed start; it
+// receives the subspace reached. tol is the relative change of μ that ends
+// the iteration.
+func newtonStep(assemble func(float64) []float64, a, u []float64, lambda float64, n, kb int, x, sub []float64, warm bool, tol float64) float64 {
 	step := 1e-4 * max(lambda, 1)
 	a1 := assemble(lambda + step)
 	if a1 == nil {
@@ -258,16 +273,14 @@ func newtonStep(assemble func(float64) []float64, a, u []float64, lambda float64
 	y := make([]float64, n*p)
 	dx := make([]float64, n*p)
 	col, out := make([]float64, n), make([]float64, n)
-	column := func(m []float64, j int) []float64 {
-		for i := range n {
-			col[i] = m[i*p+j]
-		}
-		return col
-	}
 	for j := range p {
-		// A fixed start with every direction in it.
 		for i := range n {
-			col[i] = math.Sin(float64((i+1)*(j+1))*0.7548776662) + b2f(j == 0)
+			if warm {
+				col[i] = sub[i*p+j]
+			} else {
+				// A fixed start with every direction in it.
+				col[i] = math.Sin(float64((i+1)*(j+1))*0.7548776662) + b2f(j == 0)
+			}
 		}
 		bandMulVec(out, d, col, n, kb)
 		for i := range n {
@@ -281,12 +294,7 @@ func newtonStep(assemble func(float64) []float64, a, u []float64, lambda float64
 		copy(y, dx)
 		copy(sy, dx)              // K Y = −K′ X: no product needed
 		bandSolve(u, n, kb, y, p) // Y = K⁻¹ (−K′) X
-		for j := range p {
-			bandMulVec(out, d, column(y, j), n, kb)
-			for i := range n {
-				dx[i*p+j] = out[i]
-			}
-		}
+		bandMulBlock(dx, d, y, n, kb, p)
 		as, bs := mat.NewSymDense(p, nil), mat.NewSymDense(p, nil)
 		for j := range p {
 			for k := j; k < p; k++ {
@@ -354,7 +362,7 @@ func newtonStep(assemble func(float64) []float64, a, u []float64, lambda float64
 		}
 		copy(y, xn)
 		copy(dx, dn)
-		done := math.Abs(next-mu) <= inverseTol*math.Abs(next)
+		done := math.Abs(next-mu) <= tol*math.Abs(next)
 		mu = next
 		if done || math.IsNaN(mu) {
 			break
@@ -363,6 +371,7 @@ func newtonStep(assemble func(float64) []float64, a, u []float64, lambda float64
 	for i := range n {
 		x[i] = y[i*p]
 	}
+	copy(sub, y)
 	if !(mu > 0) {
 		return math.NaN()
 	}
@@ -374,6 +383,25 @@ func b2f(b bool) float64 {
 		return 1
 	}
 	return 0
+}
+
+// bandMulBlock sets y to A x for the p columns of x (n × p, row-major),
+// A symmetric in upper band storage: one pass over the band for all.
+func bandMulBlock(y, a, x []float64, n, kb, p int) {
+	w := kb + 1
+	clear(y)
+	for i := range n {
+		row := a[i*w : (i+1)*w]
+		yi, xi := y[i*p:(i+1)*p], x[i*p:(i+1)*p]
+		axpy(yi, row[0], xi)
+		for d := 1; d < w && i+d < n; d++ {
+			if row[d] == 0 {
+				continue
+			}
+			axpy(yi, row[d], x[(i+d)*p:(i+d+1)*p])
+			axpy(y[(i+d)*p:(i+d+1)*p], row[d], xi)
+		}
+	}
 }
 
 // bandMulVec sets y to A x, A symmetric in upper band storage (n
