@@ -209,9 +209,18 @@ func Run(ctx context.Context, job *Job, opt Options) (*Result, error) {
 		ends = set
 		ends.Stations, ends.Extra, ends.Lines, ends.Progress = 2, nil, lines, nil
 	}
-	groups := 1
+	groups := 1 // the Compute calls over the members: one per group of units analysed alike
 	if !pl.simple {
-		groups = len(pl.units)
+		groups = 0
+		first := map[Stiffness]bool{}
+		for _, u := range pl.units {
+			if u.method.SecondOrder {
+				groups++
+			} else if !first[u.method.Stiffness] {
+				first[u.method.Stiffness] = true
+				groups++
+			}
+		}
 	}
 	if opt.Progress != nil {
 		total := len(job.Model.Members) * set.Stations
