@@ -18,7 +18,11 @@ type Set struct {
 	// characteristic, frequent and quasi-permanent ones): its combinations
 	// give deflections, and strength envelopes leave them out. Key service.
 	Service bool
-	Rules   []Rule // rule
+	// Allowable marks a set of allowable stress design combinations
+	// (ASCE/SEI 7-16 section 2.4); its combinations are marked Allowable.
+	// Key allowable.
+	Allowable bool
+	Rules     []Rule // rule
 }
 
 // Rule is one combination expression of a standard, such as ASCE/SEI 7-16
@@ -27,6 +31,9 @@ type Rule struct {
 	ID    string     // id: short reference that starts the name of every combination it gives, such as "2.3.1-3"
 	Text  string     // text: the expression as the standard writes it; for people only
 	Terms []RuleTerm // terms
+	// Limit is the span/deflection limit of the combinations the rule
+	// gives, in a service set (Combination.Limit); 0 for none. Key limit.
+	Limit float64
 }
 
 // RuleTerm is one term of a rule: the loads of one or more kinds with their

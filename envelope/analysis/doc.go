@@ -44,7 +44,12 @@
 // combination is solved on its own stiffness, iterated on its axial
 // forces, its pieces superposed on it; the envelopes are merged
 // combination by combination. The per-case solutions are an optimisation,
-// not part of what a Result promises, and are not exposed.
+// not part of what a Result promises, and are not exposed. What a
+// designer asks of each load case alone, unfactored (its reactions,
+// member end forces and node displacements, a patterned case fully
+// loaded), is formed on request by [Result.Cases], first-order; with live
+// load reduction its reduced reactions will stand beside the unreduced
+// ones ([CaseResult].Reduced).
 // Job.MemberFactors (live load reduction) is refused by Run with
 // [ErrNotApplied] until it is applied, so that no setting is ever
 // silently ignored.

@@ -94,8 +94,16 @@ type Result struct {
 	spanOf []int // member → index into Spans, -1 for none
 
 	solver  frame.Options // the options of every solve
-	mu      sync.Mutex    // guards buckled
+	mu      sync.Mutex    // guards buckled and solutions
 	buckled []buckled     // first-order combinations with αcr ≤ 1, as warnings
+	// units are the analyses of the combinations when they are not all one
+	// first-order analysis with the sections as given (nil then), and
+	// solutions those solved again on request (solutionFor), by unit.
+	units     []unit
+	solutions map[int]*frame.Solution
+	// The combinations as they were enveloped (favourableSplit), index
+	// for index with the job's.
+	solved []combos.Combination
 }
 
 // Combination is one combination of the job as it was analysed.
@@ -287,6 +295,16 @@ func Run(ctx context.Context, job *Job, opt Options) (*Result, error) {
 	r.Warnings = append(r.Warnings, r.stabilityWarnings()...)
 	// The job's combinations, index for index: a favourable factor's split
 	// (favourableSplit) is how they were solved, not what they are.
+	r.solved = env.Combinations
+	if !pl.simple {
+		// Each combination as its (first) unit was solved, notional loads
+		// included; and how to solve it again on request (solutionFor).
+		r.solved = slices.Clone(sv.combinations)
+		for i := len(pl.units) - 1; i >= 0; i-- {
+			r.solved[pl.units[i].k] = pl.units[i].cb
+		}
+		r.units = pl.units
+	}
 	env.Combinations = job.Combinations
 	r.Envelope = env
 	if !pl.simple {
@@ -327,6 +345,9 @@ func Run(ctx context.Context, job *Job, opt Options) (*Result, error) {
 			s.Deflection = r.spanDeflection(s)
 		}
 	}
+	if err := r.limitChecks(set); err != nil {
+		return nil, err
+	}
 	r.Warnings = append(r.Warnings, newPlausibility(job).spanWarnings(r)...)
 	return r, nil
 }
@@ -340,6 +361,106 @@ func report(opt Options, p Progress) {
 // SpanOf returns the index in r.Spans of the span, cantilever or rafter
 // member m is part of, -1 for none.
 func (r *Result) SpanOf(m int) int { return r.spanOf[m] }
+
+// EndMoments returns the moments at the start and end of member m, in its
+// own axes, in the state that gives an extreme of its envelope: effect j
+// (0 N, 1 V, 2 M) at the station at x, largest (hi) or smallest, value
+// want, under combination k (see envelope.EndMoments); ok is false when
+// that state does not give want again.
+func (r *Result) EndMoments(m int, x float64, k, j int, hi bool, want float64) (ends [2]float64, ok bool) {
+	sol, lay, err := r.solutionFor(k)
+	if err != nil {
+		return ends, false
+	}
+	return envelope.EndMoments(sol, r.solved, r.Envelope.Settings, lay, m, x, k, j, hi, want)
+}
+
+// EndMomentsOf is EndMoments for several states of member m at once
+// (envelope.EndMomentsOf); each state with the solution of its
+// combination (second order: its own).
+func (r *Result) EndMomentsOf(m int, states []envelope.State) []envelope.State {
+	if r.units == nil {
+		return envelope.EndMomentsOf(r.sol, r.solved, r.Envelope.Settings, r.lay, m, states)
+	}
+	out := make([]envelope.State, len(states))
+	byKey := map[int][]int{} // unit of the solution → states
+	var order []int
+	for i, st := range states {
+		u := r.unitOf(st.By)
+		if _, ok := byKey[u]; !ok {
+			order = append(order, u)
+		}
+		byKey[u] = append(byKey[u], i)
+	}
+	for _, u := range order {
+		idx := byKey[u]
+		sub := make([]envelope.State, len(idx))
+		for q, i := range idx {
+			sub[q] = states[i]
+		}
+		sol, lay, err := r.solutionFor(states[idx[0]].By)
+		if err != nil {
+			for _, i := range idx {
+				out[i] = states[i]
+			}
+			continue
+		}
+		got := envelope.EndMomentsOf(sol, r.solved, r.Envelope.Settings, lay, m, sub)
+		for q, i := range idx {
+			out[i] = got[q]
+		}
+	}
+	return out
+}
+
+// StationsAt returns the envelopes of member m, in its own axes, at the
+// points xs from its start, over the strength combinations as the
+// envelope forms them (see envelope.StationsAt); in a run with
+// combinations analysed apart (second order, reduced stiffness), each
+// group of them on its own solution, merged.
+func (r *Result) StationsAt(m int, xs []float64) ([]envelope.Station, error) {
+	if r.units == nil {
+		return envelope.StationsAt(r.sol, r.solved, r.Envelope.Settings, r.lay, m, xs)
+	}
+	var out []envelope.Station
+	strength := newMerger(r.Job.Combinations).strength
+	seen := map[int]bool{}
+	for _, u := range r.units {
+		g := r.unitOf(u.k)
+		if seen[g] || !strength[u.k] {
+			continue
+		}
+		seen[g] = true
+		sol, lay, err := r.solutionFor(u.k)
+		if err != nil {
+			return nil, err
+		}
+		// The strength combinations this solution serves.
+		var cs []combos.Combination
+		var idx []int
+		for _, v := range r.units {
+			if r.unitOf(v.k) == g && strength[v.k] {
+				cs, idx = append(cs, v.cb), append(idx, v.k)
+			}
+		}
+		st, err := envelope.StationsAt(sol, cs, r.Envelope.Settings, lay, m, xs)
+		if err != nil {
+			return nil, err
+		}
+		if out == nil {
+			out = make([]envelope.Station, len(st))
+			for i := range st {
+				out[i] = envelope.Station{X: st[i].X, Extra: st[i].Extra, N: emptyExtreme(), V: emptyExtreme(), M: emptyExtreme()}
+			}
+		}
+		for i := range st {
+			mergeExtreme(&out[i].N, &st[i].N, idx)
+			mergeExtreme(&out[i].V, &st[i].V, idx)
+			mergeExtreme(&out[i].M, &st[i].M, idx)
+		}
+	}
+	return out, nil
+}
 
 // endForces returns member m's end forces in load case c, adding up the
 // loads the case was solved as when it is patterned.

@@ -714,3 +714,68 @@ func sixFigures(a float64) float64 {
 	e := math.Pow(10, 5-math.Floor(math.Log10(math.Abs(a))))
 	return math.Round(a*e) / e
 }
+
+// unitOf returns the unit whose solution serves combination k: its first
+// unit when it is second-order (each has its own), else the first unit of
+// the first-order ones of its stiffness (they share one); -1 when every
+// combination shares r.sol.
+func (r *Result) unitOf(k int) int {
+	if r.units == nil {
+		return -1
+	}
+	m := r.Job.methodOf(k)
+	for i, u := range r.units {
+		if m.SecondOrder && u.k == k {
+			return i
+		}
+		if !m.SecondOrder && !u.method.SecondOrder && u.method.Stiffness == m.Stiffness {
+			if m.Stiffness == Nominal {
+				return -1
+			}
+			return i
+		}
+	}
+	return -1
+}
+
+// solutionFor returns the solution of every load case and piece that
+// combination k was enveloped from, with its layout: r.sol for the
+// first-order ones with the sections as given; else that of its unit,
+// solved again on request and kept (the envelopes did not keep it).
+func (r *Result) solutionFor(k int) (*frame.Solution, *patterns.Layout, error) {
+	u := r.unitOf(k)
+	if u < 0 {
+		return r.sol, r.lay, nil
+	}
+	r.mu.Lock()
+	defer r.mu.Unlock()
+	if sol := r.solutions[u]; sol != nil {
+		l2 := *r.lay
+		l2.Model = sol.Model()
+		return sol, &l2, nil
+	}
+	un := &r.units[u]
+	secs, mems := r.Job.stiffnessOf(r.lay.Model, un.method.Stiffness)
+	so := r.solver
+	if un.method.SecondOrder {
+		alpha := 1.0
+		if un.method.Allowable {
+			alpha = AllowableScale
+		}
+		secs, mems = r.Job.tauB(secs, mems, un.axial, alpha/un.scale)
+		so.Axial = un.axial
+	}
+	mo := *r.lay.Model
+	mo.Sections, mo.Members = secs, mems
+	sol, err := frame.SolveWith(&mo, so)
+	if err != nil {
+		return nil, nil, err
+	}
+	if r.solutions == nil {
+		r.solutions = map[int]*frame.Solution{}
+	}
+	r.solutions[u] = sol
+	l2 := *r.lay
+	l2.Model = sol.Model()
+	return sol, &l2, nil
+}

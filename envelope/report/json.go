@@ -37,6 +37,13 @@ func (p *Report) WriteJSON(w io.Writer) error {
 	}
 	j.raw("{\n \"format\": ").str(JSONFormat)
 	j.raw(",\n \"title\": ").str(job.Title)
+	if s := p.src; s != nil {
+		b := s.Build
+		j.raw(",\n \"source\": {\"program\": \"govern\", \"version\": ").str(b.Version).raw(", \"revision\": ").str(b.Revision).raw(", \"modified\": ").boolean(b.Modified)
+		j.raw(", \"model_file\": ").str(s.File).raw(", \"sha256\": ").str(s.SHA256).raw(", \"date\": ").str(s.date())
+		pr := s.Project
+		j.raw(", \"project\": {\"name\": ").str(pr.Name).raw(", \"number\": ").str(pr.Number).raw(", \"engineer\": ").str(pr.Engineer).raw(", \"checker\": ").str(pr.Checker).raw("}}")
+	}
 	// The units of the numbers in the file: forces, moments and
 	// deflections in the output units, lengths and positions in the model's.
 	j.raw(",\n \"units\": {\"force\": ").str(p.force.Label).raw(", \"length\": ").str(job.Units.Length)
@@ -72,7 +79,7 @@ func (p *Report) WriteJSON(w io.Writer) error {
 				n++
 			}
 		}
-		j.raw("}, \"service\": ").boolean(cb.Service)
+		j.raw("}, \"service\": ").boolean(cb.Service).raw(", \"use\": ").str(use(cb))
 		p.jsonCombination(j, i)
 		j.raw("}")
 	}
@@ -141,6 +148,7 @@ func (p *Report) WriteJSON(w io.Writer) error {
 	}
 	j.raw("\n ]")
 	p.jsonStability(j, combo)
+	p.jsonCases(j)
 	j.raw(",\n \"statics\": [")
 	for i, b := range p.res.Statics {
 		res := func(r frame.Resultant) {
@@ -192,7 +200,21 @@ func (p *Report) jsonSpans(j *jsonWriter, combo [][]byte) {
 		if !math.IsInf(s.Ratio, 0) {
 			j.raw(", \"ratio\": ").num(s.Ratio)
 		}
-		j.raw(", \"ratio_length\": ").num(r.RatioLength()).raw("}")
+		j.raw(", \"ratio_length\": ").num(r.RatioLength())
+		if len(r.Limits) > 0 {
+			// Each limited service combination on its own.
+			j.raw(", \"limits\": [")
+			for k, c := range r.Limits {
+				d := c.Deflection.Largest
+				j.sep(k, ", ").raw("{\"by\": ").bytes(nameOf(combo, c.Combination)).raw(", \"limit\": ").num(c.Limit).raw(", \"deflection\": ").num(p.defl.Of(d.V)).raw(", \"x\": ").num(d.X)
+				if !math.IsInf(c.Deflection.Ratio, 0) {
+					j.raw(", \"ratio\": ").num(c.Deflection.Ratio)
+				}
+				j.raw(", \"pass\": ").raw(strconv.FormatBool(c.Pass())).raw("}")
+			}
+			j.raw("]")
+		}
+		j.raw("}")
 		n++
 	}
 	j.raw("\n ]")

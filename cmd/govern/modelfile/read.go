@@ -1,6 +1,8 @@
 package modelfile
 
 import (
+	"crypto/sha256"
+	"encoding/hex"
 	"errors"
 	"fmt"
 	"math"
@@ -30,6 +32,15 @@ type Job struct {
 	// gives too (govern check lists them).
 	Assignments []Assignment
 	Overlaps    []Overlap
+	// Project is the optional [project] table: who and what the model is
+	// for, shown in the report's header.
+	Project Project
+	// SHA256 is the SHA-256 of the model file's bytes, in lowercase hex:
+	// which file the results are of.
+	SHA256 string
+	// Entered lists, per load case, its loads as the file gives them
+	// (the input echo of the report).
+	Entered [][]EnteredLoad
 
 	file      string      // the model's name, for messages
 	caseLines map[int]int // the line of each case no combination uses
@@ -91,6 +102,8 @@ func ReadAt(dir, name string, src []byte) (*Job, error) {
 	if err := r.finish(); err != nil {
 		return nil, err
 	}
+	sum := sha256.Sum256(src)
+	job.SHA256 = hex.EncodeToString(sum[:])
 	// The reader has made every check Validate makes, with the line at
 	// fault; this is a safeguard.
 	if err := job.Model.Validate(); err != nil {
@@ -123,6 +136,7 @@ type reader struct {
 	memLine  []int             // line defining each member (0 for grid members)
 	caseInfo []combos.CaseInfo // per case, for the combination rules
 	setTable *table            // the [combinations] table, nil without one
+	setLimit float64           // [combinations] limit: span/deflection of the generated service combinations without their own
 
 	caseTables []*table // per case, its table, for messages (combinations.go)
 	released   []bool   // nodes whose rotation carries nothing, once found (load.go)
@@ -141,6 +155,10 @@ func (r *reader) read(raw map[string]any) *Job {
 	r.job = &Job{Job: analysis.Job{Model: &frame.Model{}}}
 	job := r.job
 	job.Title = top.str("title", "")
+	if p := top.sub("project", "[project]"); p != nil {
+		job.Project = Project{Name: p.str("name", ""), Number: p.str("number", ""), Engineer: p.str("engineer", ""), Checker: p.str("checker", "")}
+		p.done()
+	}
 	r.readUnits(top)
 	job.Settings = analysis.Settings{Stations: 11}
 	job.Segments, job.Patterns = 1, patterns.Exact
@@ -264,6 +282,17 @@ func (r *reader) readSections(ts []*table) {
 			}
 		}
 		r.sectionSway(t)
+		effective := 0.0
+		if d, ok := t.qtyOK("d", units.Length, 0); ok {
+			switch {
+			case !(d > 0):
+				t.fail("d", problem(ErrValue, "d = %g: the effective depth must be greater than zero", d))
+			case s.Depth > 0 && d > s.Depth:
+				t.fail("d", problem(ErrValue, "d = %g: the effective depth is more than the section's depth %g", d, s.Depth))
+			default:
+				effective = d
+			}
+		}
 		if a, ok := t.qtyOK("alpha", units.Expansion, 0); ok {
 			if a <= 0 {
 				t.fail("alpha", problem(ErrValue, "alpha = %g: must be greater than zero", a))
@@ -273,6 +302,7 @@ func (r *reader) readSections(ts []*table) {
 		}
 		r.sections[name] = len(r.job.Model.Sections)
 		r.job.Model.Sections = append(r.job.Model.Sections, s)
+		r.job.EffectiveDepths = append(r.job.EffectiveDepths, effective)
 		r.hasW = append(r.hasW, t.has("weight"))
 		r.thermal = append(r.thermal, [2]bool{t.has("alpha"), t.has("depth")})
 		t.done()
@@ -611,9 +641,16 @@ func (r *reader) readCases(ts []*table) {
 		pattern := t.boolean("pattern", false) && kindOK
 		loads := t.array("load", func(i int, _ map[string]any) string { return fmt.Sprintf("case %q, load %d", name, i+1) })
 		read := len(r.errs)+r.more == problems // every load read, with no problem reported
+		var entered []EnteredLoad
+		if c.MemberLoads != nil {
+			entered = append(entered, EnteredLoad{Line: t.line("self_weight"), Text: "self_weight = true", Members: len(c.MemberLoads)})
+		}
 		for _, lt := range loads {
 			n, e := len(c.MemberLoads)+len(c.NodeLoads)+len(c.Displacements), len(r.errs)+r.more
+			el := EnteredLoad{Line: lt.line(""), Text: entryText(lt.m), FirstMember: len(c.MemberLoads), FirstNode: len(c.NodeLoads), FirstDisplacement: len(c.Displacements)}
 			r.readLoad(lt, &c)
+			el.Members, el.Nodes, el.Displacements = len(c.MemberLoads)-el.FirstMember, len(c.NodeLoads)-el.FirstNode, len(c.Displacements)-el.FirstDisplacement
+			entered = append(entered, el)
 			if len(c.MemberLoads)+len(c.NodeLoads)+len(c.Displacements) == n || len(r.errs)+r.more != e {
 				read = false
 			}
@@ -645,6 +682,7 @@ func (r *reader) readCases(ts []*table) {
 		t.done()
 		mo.Cases = append(mo.Cases, c)
 		r.job.Cases = append(r.job.Cases, cc)
+		r.job.Entered = append(r.job.Entered, entered)
 		r.caseInfo = append(r.caseInfo, info)
 	}
 }
@@ -684,7 +722,20 @@ func (r *reader) readCombinations(ts []*table) {
 			t.fail("name", problem(ErrDuplicate, "combination %q is defined twice", name))
 		}
 		seen[name] = true
-		cb := combos.Combination{Name: name, Rule: "model", Service: t.boolean("service", false)}
+		cb := combos.Combination{Name: name, Rule: "model", Service: t.boolean("service", false), Allowable: t.boolean("allowable", false)}
+		if cb.Service && cb.Allowable {
+			t.fail("allowable", problem(ErrValue, "allowable = true with service = true: a combination is for strength, allowable stress or service, one of them"))
+		}
+		if v, ok := t.numOK("limit", 0); ok {
+			switch {
+			case !cb.Service:
+				t.fail("limit", problem(ErrValue, "limit = %g: only a service combination has a deflection limit; add service = true", v))
+			case !(v > 0):
+				t.fail("limit", problem(ErrValue, "limit = %g: span/deflection must be positive, such as 360 for span/360", v))
+			default:
+				cb.Limit = v
+			}
+		}
 		if t.need("factors") {
 			v, _ := t.get("factors")
 			f, ok := v.(map[string]any)

@@ -14,8 +14,8 @@ const MaxRuleFileSize = 1 << 20
 
 // The keys of each table of a rule file (docs/combinations.md).
 var (
-	setKeys    = []string{"name", "title", "service", "rule"}
-	ruleKeys   = []string{"id", "text", "terms"}
+	setKeys    = []string{"name", "title", "service", "allowable", "rule"}
+	ruleKeys   = []string{"id", "text", "terms", "limit"}
 	termKeys   = []string{"kind", "factor", "lead", "together", "each_action", "psi", "sds_factor", "reduced_live_factor", "favourable_factor", "or"}
 	choiceKeys = []string{"kind", "factor", "psi", "sds_factor", "reduced_live_factor", "favourable_factor"}
 )
@@ -69,7 +69,10 @@ func (sr *setReader) set(raw map[string]any) *combos.Set {
 	top := sr.table(raw, "", "")
 	sr.top = top
 	top.known(setKeys...)
-	s := &combos.Set{Name: top.str("name", ""), Title: top.str("title", ""), Service: top.boolean("service", false)}
+	s := &combos.Set{Name: top.str("name", ""), Title: top.str("title", ""), Service: top.boolean("service", false), Allowable: top.boolean("allowable", false)}
+	if s.Service && s.Allowable {
+		top.fail("allowable", problem(ErrValue, "allowable = true with service = true: a set is for strength, allowable stress or service, one of them"))
+	}
 	if s.Name == "" {
 		s.Name = strings.TrimSuffix(path.Base(strings.ReplaceAll(sr.file, "\\", "/")), ".toml")
 	}
@@ -92,7 +95,7 @@ func (sr *setReader) set(raw map[string]any) *combos.Set {
 
 func (sr *setReader) rule(t *table) combos.Rule {
 	t.known(ruleKeys...)
-	r := combos.Rule{ID: t.str("id", ""), Text: t.str("text", "")}
+	r := combos.Rule{ID: t.str("id", ""), Text: t.str("text", ""), Limit: t.num("limit", 0)}
 	terms := t.array("terms", func(j int, _ map[string]any) string { return fmt.Sprintf("%s, term %d", t.where, j+1) })
 	if !t.has("terms") {
 		t.fail("terms", problem(ErrMissing, "terms is required: the loads of the rule with their factors"))
