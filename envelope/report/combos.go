@@ -126,7 +126,7 @@ func writeNotional(w io.Writer, job *analysis.Job) error {
 				if level == "" {
 					level = "y = " + fixed(lv.Y)
 				}
-				rows = append(rows, []string{name, dir, sig4(n.Ratio), level, fixed(force.Of(lv.Gravity)), fixed(force.Of(math.Abs(lv.Force)))})
+				rows = append(rows, []string{name, dir, sig4(n.Ratio), level, fixed(force.Of(lv.Gravity)), sig4(force.Of(math.Abs(lv.Force)))})
 				name, dir = "", ""
 			}
 		}

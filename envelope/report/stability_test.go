@@ -181,3 +181,56 @@ func TestJSONStabilityMeaning(t *testing.T) {
 		t.Errorf("nodes %+v, storeys %+v", doc.Nodes, doc.Storeys)
 	}
 }
+
+// TestNotionalListingMeaning: govern combos lists each combination's
+// notional loads level by level, Yi the gravity load of the level and Ni =
+// 0.002 Yi (AISC 360-16 C2.2b), a gravity-only combination in each
+// direction as alternatives: here 1.4 × (20 kN/m × 6 m + 2 × 50 kN) = 308
+// kN at level 1, Ni = 0.616 kN.
+func TestNotionalListingMeaning(t *testing.T) {
+	job := &analysis.Job{
+		Units: analysis.Units{Force: "kN", Length: "m"},
+		Model: &frame.Model{
+			Sections: []frame.Section{{Name: "S", E: 2e8, A: 5e-3, I: 8e-5}},
+			Nodes: []frame.Node{{Name: "A0", Support: frame.Fixed}, {Name: "A1", Y: 4},
+				{Name: "B1", X: 6, Y: 4}, {Name: "B0", X: 6, Support: frame.Fixed}},
+			Members: []frame.Member{{Name: "A0-A1", Start: 0, End: 1}, {Name: "A1-B1", Start: 1, End: 2}, {Name: "B0-B1", Start: 3, End: 2}},
+			Cases: []frame.Case{{Name: "D", MemberLoads: []frame.MemberLoad{{Member: 1, To: 6, W: 20, WEnd: 20}},
+				NodeLoads: []frame.NodeLoad{{Node: 1, Fy: -50}, {Node: 2, Fy: -50}}}},
+		},
+		Cases:        []combos.Case{{Name: "D", Kind: combos.Dead}},
+		Combinations: []combos.Combination{{Name: "1.4D", Terms: []combos.Term{{Case: 0, Factor: 1.4}}}},
+		Sway:         analysis.Sway{Notional: analysis.NotionalAISC360},
+		Settings:     analysis.Settings{Stations: 5},
+		Levels:       []analysis.Level{{Name: "level 0"}, {Name: "level 1", Y: 4}},
+	}
+	var b bytes.Buffer
+	if err := WriteCombinations(&b, job); err != nil {
+		t.Fatal(err)
+	}
+	out := b.String()
+	var rows [][]string
+	for _, line := range strings.Split(out[strings.Index(out, "Notional loads"):], "\n") {
+		if !strings.HasPrefix(line, "│") {
+			continue
+		}
+		var cells []string
+		for _, c := range strings.Split(strings.Trim(line, "│"), "│") {
+			cells = append(cells, strings.TrimSpace(c))
+		}
+		rows = append(rows, cells)
+	}
+	want := [][]string{
+		{"combination", "direction", "ratio", "level", "Yi (kN)", "Ni (kN)"},
+		{"1.4D", "+X (alternative)", "0.002000", "level 1", "308.00", "0.6160"},
+		{"", "-X (alternative)", "0.002000", "level 1", "308.00", "0.6160"},
+	}
+	if len(rows) != len(want) {
+		t.Fatalf("rows %q", rows)
+	}
+	for i := range want {
+		if strings.Join(rows[i], "|") != strings.Join(want[i], "|") {
+			t.Errorf("row %q, want %q", rows[i], want[i])
+		}
+	}
+}
