@@ -234,3 +234,46 @@ func TestNotionalListingMeaning(t *testing.T) {
 		}
 	}
 }
+
+// TestNotionalTablesMeaning: on a symmetric portal under gravity only with
+// AISC 360-16 C2.2b notional loads (0.002 × 308 kN = 0.616 kN, each
+// direction an alternative), the table by combination names both
+// directions and their base shear, and the reactions without the notional
+// loads are the gravity thrusts alone, equal and opposite at the two feet
+// (common practice: a symmetric frame under symmetric load does not sway).
+func TestNotionalTablesMeaning(t *testing.T) {
+	job := &analysis.Job{
+		Units: analysis.Units{Force: "kN", Length: "m"},
+		Model: &frame.Model{
+			Sections: []frame.Section{{Name: "S", E: 2e8, A: 5e-3, I: 8e-5}},
+			Nodes: []frame.Node{{Name: "A0", Support: frame.Fixed}, {Name: "A1", Y: 4},
+				{Name: "B1", X: 6, Y: 4}, {Name: "B0", X: 6, Support: frame.Fixed}},
+			Members: []frame.Member{{Name: "A0-A1", Start: 0, End: 1}, {Name: "A1-B1", Start: 1, End: 2}, {Name: "B0-B1", Start: 3, End: 2}},
+			Cases: []frame.Case{{Name: "D", MemberLoads: []frame.MemberLoad{{Member: 1, To: 6, W: 20, WEnd: 20}},
+				NodeLoads: []frame.NodeLoad{{Node: 1, Fy: -50}, {Node: 2, Fy: -50}}}},
+		},
+		Cases:        []combos.Case{{Name: "D", Kind: combos.Dead}},
+		Combinations: []combos.Combination{{Name: "1.4D", Terms: []combos.Term{{Case: 0, Factor: 1.4}}}},
+		Sway:         analysis.Sway{Notional: analysis.NotionalAISC360},
+		Settings:     analysis.Settings{Stations: 5},
+		Levels:       []analysis.Level{{Name: "level 0"}, {Name: "level 1", Y: 4}},
+	}
+	res, err := analysis.Run(context.Background(), job, analysis.Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	p := New(res)
+	tb := tableNamed(t, p, "Frame stability by combination")
+	if got, want := tb.Rows[0][4], "+X 0.002000 × gravity = 0.62 kN; -X 0.002000 × gravity = 0.62 kN (alternatives)"; got != want {
+		t.Errorf("notional loads %q, want %q", got, want)
+	}
+	bare := tableNamed(t, p, "Reactions without the notional loads")
+	// Rows: A0 Fx, Fy, M, then B0 Fx, Fy, M; max and min alike, opposite at the feet.
+	if len(bare.Rows) != 6 || bare.Rows[0][2] != bare.Rows[0][4] || strings.TrimPrefix(bare.Rows[3][2], "-") != strings.TrimPrefix(bare.Rows[0][2], "-") || bare.Rows[3][2] == bare.Rows[0][2] {
+		t.Errorf("reactions without notional loads %q", bare.Rows)
+	}
+	with := tableNamed(t, p, "Reactions (global")
+	if with.Rows[0][2] == with.Rows[0][4] {
+		t.Errorf("with the notional loads the feet's Fx should differ between the alternatives: %q", with.Rows[0])
+	}
+}
