@@ -285,3 +285,34 @@ func TestNotionalEN1993(t *testing.T) {
 		t.Errorf("notional %+v", res.Combinations[0].Notional)
 	}
 }
+
+// TestSecondOrderOnRequest: what the tables ask of a result after the run,
+// the end moments of an extreme's state and the envelope at any point,
+// come from the combination's own second-order solution: the cantilever's
+// base moment H tan(kL)/k = 1.126536 (Timoshenko & Gere), not the
+// first-order H L = 0.45.
+func TestSecondOrderOnRequest(t *testing.T) {
+	const p, h = 4.0, 0.045
+	want := cantileverMoment(p, h)
+	res, err := Run(context.Background(), cantileverJob(p, h, Method{SecondOrder: true}), Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	st, err := res.StationsAt(0, []float64{0, 5})
+	if err != nil {
+		t.Fatal(err)
+	}
+	m := st[0].M
+	base := m.Max
+	hi := true
+	if math.Abs(m.Min) > math.Abs(m.Max) {
+		base, hi = m.Min, false
+	}
+	if !within(math.Abs(base), want, 1e-3) {
+		t.Errorf("StationsAt: base moment %v, want %.6g", m, want)
+	}
+	ends, ok := res.EndMoments(0, 0, 0, 2, hi, base)
+	if !ok || !within(math.Abs(ends[0]), want, 1e-3) || math.Abs(ends[1]) > 1e-9 {
+		t.Errorf("EndMoments: %v (ok %v), want %.6g at the base and 0 at the top", ends, ok, want)
+	}
+}
