@@ -32,6 +32,17 @@ type Options struct {
 	// may carry fewer than three correct digits; whoever shows them must
 	// show [Solution.Cond] with them.
 	AcceptIllConditioned bool
+	// Axial, when not nil, gives per member the axial force N (tension
+	// positive, force) whose geometric stiffness is added to the member's:
+	// a second-order analysis of the model's cases about that state of
+	// axial force (P-Δ and P-δ; see SubElements). Every case is solved with
+	// the one stiffness, so cases still add up; whoever iterates on the
+	// axial forces supplies them (see [Solution.Axial]). Station moments
+	// then include N times the member's transverse displacement from its
+	// start node, and the statics check takes moments on the deformed
+	// geometry. A stiffness that is not positive definite under them is
+	// an error wrapping [ErrUnstable].
+	Axial []float64
 }
 
 // illAdvice says where to look when the matrix is ill-conditioned.

@@ -80,6 +80,14 @@ func (p *Report) WriteCSV(w io.Writer) error {
 			}
 		}
 	}
+	write := cw.Write
+	if reduced {
+		// Displacements are of the loads as given: never reduced.
+		write = func(row []string) error { return cw.Write(append(row, "", "")) }
+	}
+	if err := p.csvNodes(write); err != nil {
+		return err
+	}
 	if s := p.src; s != nil {
 		// The source, a row each for the whole model, as the condition
 		// number below: member and x empty, the name in the effect

@@ -21,11 +21,12 @@ type Table struct {
 type design struct {
 	governing     string // the note above the design values
 	groups        []groupDesign
-	deflection    *Table // nil without service combinations or spans
-	limits        *Table // nil without a limited service combination or spans
-	reactions     *Table // nil without supports
-	withReactions *Table // each extreme with its concurrent reaction; nil without supports
-	reduction     *Table // the member factors of live load reduction; nil without any
+	deflection    *Table  // nil without service combinations or spans
+	limits        *Table  // nil without a limited service combination or spans
+	reactions     *Table  // nil without supports
+	withReactions *Table  // each extreme with its concurrent reaction; nil without supports
+	stability     []Table // the frame's stability (stability.go)
+	reduction     *Table  // the member factors of live load reduction; nil without any
 	// reducedReactions are the reduced cases' reactions, unreduced and
 	// reduced; nil without member factors.
 	reducedReactions *Table
@@ -64,6 +65,7 @@ func (p *Report) Tables() []Table {
 	if d.reducedReactions != nil {
 		out = append(out, *d.reducedReactions)
 	}
+	out = append(out, d.stability...)
 	return append(out, d.statics)
 }
 
@@ -111,6 +113,7 @@ func newDesign(p *Report) *design {
 	}
 	d.reduction = p.reductionTable()
 	d.reducedReactions = p.reducedReactionTable()
+	d.stability = p.stabilityTables()
 	d.staticsTop, d.statics = p.staticsTable()
 	return d
 }
@@ -282,15 +285,19 @@ const reactionRoundOff = 1e-9
 // nil without supports. A value that is zero to round-off names no
 // governing combination ("-"): which combination gives it is round-off.
 func (p *Report) reactionTable() *Table {
-	env := p.res.Envelope
-	if len(env.Reactions) == 0 {
+	return p.reactionTableOf(p.res.Envelope.Reactions, "Reactions (global: +X right, +Y up, M counter-clockwise)")
+}
+
+// reactionTableOf is reactionTable for the reactions rs, with a title.
+func (p *Report) reactionTableOf(rs []envelope.Reaction, title string) *Table {
+	if len(rs) == 0 {
 		return nil
 	}
 	mo := p.model()
 	// The largest size of each component over every support, for what
 	// counts as zero.
 	var largest [3]float64
-	for _, r := range env.Reactions {
+	for _, r := range rs {
 		for d, e := range [3]envelope.Extreme{r.Fx, r.Fy, r.M} {
 			if mo.Nodes[r.Node].Support.Restrained(d) {
 				largest[d] = math.Max(largest[d], math.Max(math.Abs(e.Max), math.Abs(e.Min)))
@@ -306,7 +313,7 @@ func (p *Report) reactionTable() *Table {
 		return p.comboName(k)
 	}
 	var rows [][]string
-	for _, r := range env.Reactions {
+	for _, r := range rs {
 		node := mo.Nodes[r.Node]
 		name := node.Name
 		for d, e := range []struct {
@@ -321,7 +328,7 @@ func (p *Report) reactionTable() *Table {
 			name = ""
 		}
 	}
-	return &Table{"Reactions (global: +X right, +Y up, M counter-clockwise)", []string{"node", "component", "max", "governing", "min", "governing"}, rows}
+	return &Table{title, []string{"node", "component", "max", "governing", "min", "governing"}, rows}
 }
 
 // reactionStateTable gives, for every restrained reaction component of
