@@ -165,6 +165,13 @@ func TestReductionErrors(t *testing.T) {
 			}
 		})
 	}
+	t.Run("with second order", func(t *testing.T) {
+		src := strings.Replace(office("kN", "m", "", ""), "[grid]", "[analysis]\nsecond_order = true\n[grid]", 1)
+		_, err := Read("m.toml", []byte(src))
+		if want := `m.toml:27: case "L": reduction with a second-order analysis`; err == nil || !strings.Contains(err.Error(), want) {
+			t.Errorf("\n got: %v\nwant: %s", err, want)
+		}
+	})
 	t.Run("reduction of a dead case", func(t *testing.T) {
 		src := strings.Replace(office("kN", "m", "", ""), "kind = \"dead\"\n", "kind = \"dead\"\nreduction = \"asce7-16\"\n", 1)
 		_, err := Read("m.toml", []byte(src))
