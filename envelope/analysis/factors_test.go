@@ -350,3 +350,116 @@ func TestMemberFactorsSecondOrderUniform(t *testing.T) {
 		}
 	}
 }
+
+// Notional loads come from the gravity loads as applied, unreduced (AISC
+// 360-16 C2.2b: Yi is the gravity load applied at level i; live load
+// reduction is a design rule on member effects, not a load): the portal
+// of portalJob with a live load of 10 kN/m on its beam, 1.2D + 1.6L in
+// second order, L's effects halved in every member: Yi = 1.2 × (20 × 6 +
+// 100) + 1.6 × 10 × 6 = 360 kN, Ni = 0.002 × 360 = 0.72 kN in each
+// direction, as without the factors; the feet's shears from them still
+// sum to the notional base shear, every case acting as written (the
+// notional case is not scaled; the gravity thrusts, scaled alike in both
+// columns, cancel).
+func TestMemberFactorsNotional(t *testing.T) {
+	const yi = 1.2*(20*6+100) + 1.6*10*6
+	mk := func(reduced bool) *Job {
+		job := portalJob(Method{SecondOrder: true}, NotionalAISC360)
+		job.Model.Cases = append(job.Model.Cases, frame.Case{Name: "L", MemberLoads: []frame.MemberLoad{{Member: 1, To: 6, W: 10, WEnd: 10}}})
+		job.Cases = append(job.Cases, combos.Case{Name: "L", Kind: combos.Live})
+		job.Combinations = []combos.Combination{{Name: "1.2D+1.6L", Terms: []combos.Term{{Case: 0, Factor: 1.2}, {Case: 1, Factor: 1.6}}}}
+		job.Settings.AsWritten = true
+		if reduced {
+			for m := range job.Model.Members {
+				job.MemberFactors = append(job.MemberFactors, MemberFactor{Member: m, Case: 1, N: 0.5, V: 0.5, M: 0.5})
+			}
+		}
+		return job
+	}
+	var runs [2]*Result
+	for i, reduced := range []bool{false, true} {
+		res, err := Run(context.Background(), mk(reduced), Options{})
+		if err != nil {
+			t.Fatal(err)
+		}
+		runs[i] = res
+		ns := res.Combinations[0].Notional
+		if len(ns) != 2 {
+			t.Fatalf("reduced %v: notional loads %+v, want one per direction", reduced, ns)
+		}
+		for _, n := range ns {
+			if len(n.Levels) != 1 || !within(n.Levels[0].Gravity, yi, 1e-12) || !within(math.Abs(n.Total), 0.002*yi, 1e-12) {
+				t.Errorf("reduced %v: notional %+v, want Yi = %g and Ni = %g", reduced, n, yi, 0.002*yi)
+			}
+		}
+		var hi, lo float64
+		for _, rc := range res.Envelope.Reactions {
+			hi += rc.Fx.Max
+			lo += rc.Fx.Min
+		}
+		if !within(hi, 0.002*yi, 1e-6) || !within(lo, -0.002*yi, 1e-6) {
+			t.Errorf("reduced %v: base shears sum to %.6g and %.6g, want ±%.6g", reduced, hi, lo, 0.002*yi)
+		}
+	}
+	// The reduction did act: the beam's largest sagging moment is less.
+	mid := func(r *Result) float64 { st := r.Envelope.Members[1].Stations; return st[len(st)/2].M.Max }
+	if !(mid(runs[1]) < mid(runs[0])) {
+		t.Errorf("beam's midspan moment %g reduced, %g unreduced", mid(runs[1]), mid(runs[0]))
+	}
+}
+
+// EN 1991-1-1 6.3.1.2(11): αn applies only where the imposed load leads,
+// in second order too: the frame of TestMemberFactorsSecondOrder with αn =
+// 0.9 (n = 3, ψ0 = 0.7) on L in the ground-floor interior column and 1.0
+// where L accompanies, and two second-order combinations of the same
+// terms, one led by L and one by W: the first gives L's part of the
+// column's N × 0.9, the second the unreduced N (the run without factors),
+// each on the geometric stiffness of its unreduced loads.
+func TestMemberFactorsSecondOrderLead(t *testing.T) {
+	const col, an = 1, 0.9
+	mk := func(reduced bool) *Job {
+		job := linearFrame(1.2e-5)
+		job.Patterned, job.Settings.AsWritten = nil, true
+		led := job.Combinations[0]
+		led.Name, led.Lead = "L leads", []int{1}
+		acc := job.Combinations[0]
+		acc.Name, acc.Lead = "W leads", []int{2}
+		acc.Terms = slices.Clone(acc.Terms)
+		job.Combinations = []combos.Combination{led, acc}
+		job.Methods = []Method{{SecondOrder: true}, {SecondOrder: true}}
+		if reduced {
+			job.MemberFactors = []MemberFactor{{Member: col, Case: 1, N: an, V: 1, M: 1, Accompanying: [3]float64{1, 1, 1}, HasAccompanying: true}}
+		}
+		return job
+	}
+	red, err := Run(context.Background(), mk(true), Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	whole, err := Run(context.Background(), mk(false), Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	job := mk(true)
+	axial := secondOrderAxial(t, job, 0) // both combinations have the same loads
+	sol, err := frame.SolveWith(job.Model, frame.Options{Axial: axial})
+	if err != nil {
+		t.Fatal(err)
+	}
+	st := red.Envelope.Members[col].Stations
+	for i := range st {
+		f := make([]frame.Forces, 3)
+		sol.StationsTo(f, col, []float64{st[i].X})
+		nl := 1.6 * f[1].N
+		led := 1.2*f[0].N + an*nl + 0.8*f[2].N
+		acc := whole.Envelope.Members[col].Stations[i].N.Min
+		// N is compression: the largest (least compression) is the led
+		// combination's, the smallest the accompanied one's.
+		if math.Abs(st[i].N.Max-led) > 1e-6*math.Abs(led) || st[i].N.MaxBy != 0 {
+			t.Errorf("x=%g: largest N %g by %d, want %g by L leads (αn)", st[i].X, st[i].N.Max, st[i].N.MaxBy, led)
+		}
+		if st[i].N.Min != acc || st[i].N.MinBy != 1 {
+			t.Errorf("x=%g: smallest N %g by %d, want the unreduced %g by W leads", st[i].X, st[i].N.Min, st[i].N.MinBy, acc)
+		}
+	}
+}
