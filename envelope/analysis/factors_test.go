@@ -246,6 +246,25 @@ func TestMemberFactorsSecondOrder(t *testing.T) {
 			}
 		}
 	}
+	// The envelope at any point, on request after the run (the design
+	// tables' faces and points), takes the same factors on the
+	// combination's own solution.
+	{
+		st := red.Envelope.Members[col].Stations
+		xs := make([]float64, len(st))
+		for i := range st {
+			xs[i] = st[i].X
+		}
+		at, err := red.StationsAt(col, xs)
+		if err != nil {
+			t.Fatal(err)
+		}
+		for i := range st {
+			if math.Abs(at[i].N.Max-st[i].N.Max) > 1e-9*math.Abs(st[i].N.Max) || math.Abs(at[i].M.Max-st[i].M.Max) > 1e-9*math.Abs(st[i].M.Max)+1e-9 {
+				t.Errorf("StationsAt x=%g: N %g M %g, the envelope N %g M %g", xs[i], at[i].N.Max, at[i].M.Max, st[i].N.Max, st[i].M.Max)
+			}
+		}
+	}
 	rc, wc := red.Combinations[0], whole.Combinations[0]
 	if rc.CriticalFactor != wc.CriticalFactor || rc.Iterations != wc.Iterations || rc.CriticalFactor > 10 {
 		t.Errorf("αcr %g in %d iterations, without factors %g in %d: the geometric stiffness must be the unreduced one (and αcr < 10 for this test to mean anything)",
