@@ -8,10 +8,36 @@ import (
 )
 
 // member envelopes the stations of member m: it evaluates every column at
-// every station at once (evaluate), then forms the extremes station by
-// station (station).
+// every station at once (evaluate), or folds the member (fold.go), then
+// forms the extremes station by station (station).
 func (e *evaluator) member(w *work, sol *frame.Solution, m int) (Member, error) {
+	l := sol.Model().Length(m)
+	var extra []float64
+	if m < len(e.set.Extra) {
+		extra = e.set.Extra[m]
+	}
+	w.stations(l, e.set.Stations, extra)
+	if pl, ok := e.foldable(w, sol, m); ok {
+		w.fold.load(e, w, sol, m)
+		if e.defl != nil {
+			ns, nc := len(w.xs), len(w.ev)
+			w.defl = grow(w.defl, ns*nc)
+			sol.DeflectionsTo(w.defl, m, w.xs)
+		}
+		line := e.lineDeflections(w, sol, m)
+		if mem, err := e.stationsOf(w, sol, m, line, pl); err == nil {
+			return mem, nil
+		}
+		// Not finite somewhere: the unfolded path names what.
+	}
 	line := e.evaluate(w, sol, m)
+	return e.stationsOf(w, sol, m, line, nil)
+}
+
+// stationsOf forms the extremes of member m station by station, from the
+// member folded (folded, its placement) or from the table of every
+// column's values (folded nil).
+func (e *evaluator) stationsOf(w *work, sol *frame.Solution, m int, line Line, folded *exactPlacement) (Member, error) {
 	ns := len(w.xs)
 	name := sol.Model().Members[m].Name
 	effects := [3]string{"N", "V", "M"}
@@ -24,17 +50,30 @@ func (e *evaluator) member(w *work, sol *frame.Solution, m int) (Member, error) 
 		lineDefl = make([]Extreme, ns)
 	}
 	for i, x := range w.xs {
-		for c := range w.ev {
-			f := w.at[c*ns+i]
-			w.ev[c] = [3]float64{f.N, f.V, f.M}
-		}
+		var ex [3]Extreme
 		w.noise = w.noiseAt
-		ex := e.station(w)
-		if w.jumps {
-			e.pastMoments(w, &ex, i)
-		}
-		if !allFinite(&ex, 3) {
-			return Member{}, e.nonFinite(w, func(q int) string { return fmt.Sprintf("%s of member %q at x = %g", effects[q], name, x) })
+		if folded != nil {
+			for c := range e.nOrig {
+				f := w.fold.orig[c*ns+i]
+				w.ev[c] = [3]float64{f.N, f.V, f.M}
+			}
+			folded.scanFolded(e, w, &w.fold, i)
+			ex = e.scanned(w)
+			if !allFinite(&ex, 3) {
+				return Member{}, ErrNotFinite
+			}
+		} else {
+			for c := range w.ev {
+				f := w.at[c*ns+i]
+				w.ev[c] = [3]float64{f.N, f.V, f.M}
+			}
+			ex = e.station(w)
+			if w.jumps {
+				e.pastMoments(w, &ex, i)
+			}
+			if !allFinite(&ex, 3) {
+				return Member{}, e.nonFinite(w, func(q int) string { return fmt.Sprintf("%s of member %q at x = %g", effects[q], name, x) })
+			}
 		}
 		st[i] = Station{X: x, Extra: w.extra[i], N: ex[0], V: ex[1], M: ex[2]}
 		for _, d := range [2]struct {
@@ -69,12 +108,6 @@ func (e *evaluator) member(w *work, sol *frame.Solution, m int) (Member, error) 
 // relative to the chord and across the member's line, which it returns
 // (the zero Line for none); and what counts as round-off in the member.
 func (e *evaluator) evaluate(w *work, sol *frame.Solution, m int) Line {
-	l := sol.Model().Length(m)
-	var extra []float64
-	if m < len(e.set.Extra) {
-		extra = e.set.Extra[m]
-	}
-	w.stations(l, e.set.Stations, extra)
 	ns, nc := len(w.xs), len(w.ev)
 	w.at = grow(w.at, ns*nc)
 	if e.defl != nil {
@@ -94,17 +127,8 @@ func (e *evaluator) evaluate(w *work, sol *frame.Solution, m int) Line {
 		w.at[c*ns].N += f.N
 		w.at[c*ns].V += f.V
 	}
-	var line Line
-	if e.defl != nil && m < len(e.set.Lines) {
-		line = e.set.Lines[m]
-	}
-	if !line.none() {
-		w.line = grow(w.line, ns*nc)
-		lineDeflectionsTo(w.line, w.defl, sol, m, line, w.xs)
-	}
 	// Round-off: only pattern pieces are judged by it.
 	var noise [3]float64
-	var noiseDefl, noiseLine float64
 	if e.patterned {
 		for _, f := range w.at {
 			// Plain comparisons: math.Max's care for NaN and signed zeros
@@ -119,19 +143,36 @@ func (e *evaluator) evaluate(w *work, sol *frame.Solution, m int) Line {
 				noise[2] = a
 			}
 		}
-		if e.defl != nil {
-			noiseDefl = largest(w.defl)
-		}
-		if !line.none() {
-			noiseLine = largest(w.line)
-		}
 		for j := range noise {
 			noise[j] *= roundOff
 		}
-		noiseDefl *= roundOff
-		noiseLine *= roundOff
 	}
-	w.noiseAt, w.noiseDefl, w.noiseLine = noise, noiseDefl, noiseLine
+	w.noiseAt = noise
+	return e.lineDeflections(w, sol, m)
+}
+
+// lineDeflections fills w.line from w.defl, the deflections relative to
+// the chord, for a member on a line, and sets what counts as round-off in
+// the deflections; it returns the member's line (the zero Line for none).
+func (e *evaluator) lineDeflections(w *work, sol *frame.Solution, m int) Line {
+	var line Line
+	if e.defl != nil && m < len(e.set.Lines) {
+		line = e.set.Lines[m]
+	}
+	if !line.none() {
+		w.line = grow(w.line, len(w.xs)*len(w.ev))
+		lineDeflectionsTo(w.line, w.defl, sol, m, line, w.xs)
+	}
+	var noiseDefl, noiseLine float64
+	if e.patterned {
+		if e.defl != nil {
+			noiseDefl = largest(w.defl) * roundOff
+		}
+		if !line.none() {
+			noiseLine = largest(w.line) * roundOff
+		}
+	}
+	w.noiseDefl, w.noiseLine = noiseDefl, noiseLine
 	return line
 }
 

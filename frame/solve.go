@@ -39,6 +39,11 @@ type Solution struct {
 	span     [][][2]int32
 	byMember [][]int32
 	fem      [][]float64
+	// By member: the cases loading it, ascending (casesOn), and for each
+	// its place in loaded (onMember: fem[c][6i:6i+6] are its fixed-end
+	// forces).
+	casesOn  [][]int32
+	onMember [][]loadRef
 
 	// Members meeting at each node, for reactions and residuals.
 	atNode [][]int32
@@ -477,7 +482,18 @@ func (sol *Solution) indexLoads() {
 		}
 		sol.loaded[c], sol.span[c], sol.byMember[c], sol.fem[c] = members, spans, idx, fem
 	}
+	sol.casesOn, sol.onMember = make([][]int32, len(mo.Members)), make([][]loadRef, len(mo.Members))
+	for c := range mo.Cases {
+		for i, m := range sol.loaded[c] {
+			sol.casesOn[m] = append(sol.casesOn[m], int32(c))
+			sol.onMember[m] = append(sol.onMember[m], loadRef{c: int32(c), i: int32(i)})
+		}
+	}
 }
+
+// loadRef is a case loading a member and the member's place in the case's
+// list of loaded members.
+type loadRef struct{ c, i int32 }
 
 // loadsOn returns the indices of case c's loads on member m and their
 // fixed-end forces (nil when there are none).

@@ -1,0 +1,114 @@
+package frame
+
+// The per-member access the envelope streams: every case's end forces of
+// one member at once, read from the displacement rows of its ends, and
+// which cases load it, so that a case that does not load the member can be
+// folded once (N and V constant along it, M linear) and only the others
+// evaluated station by station.
+
+// EndForcesEach fills dst[c] with the local end forces of member m in
+// case c, for every case: the values [Solution.EndForces] gives, to the
+// last bit, with each end's displacement rows read once for all the cases
+// (they are contiguous). dst must have the length of the model's cases.
+// Nothing is mutated but dst.
+func (sol *Solution) EndForcesEach(dst [][6]float64, m int) {
+	nc := len(sol.model.Cases)
+	if len(dst) != nc {
+		panic("frame: EndForcesEach: dst has the wrong length")
+	}
+	mem := sol.model.Members[m]
+	e := &sol.elems[m]
+	// rows[d] holds direction d's displacement in every case, nil where a
+	// support holds it with nothing imposed.
+	var rows [6][]float64
+	for d := range 6 {
+		node := mem.Start
+		if d >= 3 {
+			node = mem.End
+		}
+		i := sol.dof[3*node+d%3]
+		switch {
+		case i >= 0:
+			rows[d] = sol.x[i*nc : (i+1)*nc]
+		case i < -1:
+			rows[d] = sol.imposed[(-2-i)*nc : (-1-i)*nc]
+		}
+	}
+	clear(dst)
+	// The fixed-end forces of the cases that load the member, then k u,
+	// summed in the order of endForcesTo.
+	for _, ref := range sol.onMember[m] {
+		dst[ref.c] = *(*[6]float64)(sol.fem[ref.c][6*ref.i:])
+	}
+	for c := range dst {
+		var ug, ul [6]float64
+		for d, r := range rows {
+			if r != nil {
+				ug[d] = r[c]
+			}
+		}
+		e.toLocal(&ul, &ug)
+		f := &dst[c]
+		for i := range 6 {
+			v := f[i]
+			for j := range 6 {
+				v += e.k[i][j] * ul[j]
+			}
+			f[i] = v
+		}
+	}
+}
+
+// CasesOn returns the cases whose loads act on member m, ascending; every
+// other case leaves the member unloaded between its ends. The slice is the
+// solution's own: do not modify it.
+func (sol *Solution) CasesOn(m int) []int32 { return sol.casesOn[m] }
+
+// StationsFrom fills dst[i] with the internal forces of member m in case c
+// at xs[i], given the member's local end forces f in that case (from
+// [Solution.EndForcesEach]): the values of [Solution.StationsTo], to the
+// last bit. dst must have length len(xs).
+func (sol *Solution) StationsFrom(dst []Forces, c, m int, f *[6]float64, xs []float64) {
+	if len(dst) != len(xs) {
+		panic("frame: StationsFrom: dst has the wrong length")
+	}
+	idx, _ := sol.loadsOn(c, m)
+	if len(idx) == 0 {
+		for i, x := range xs {
+			dst[i] = Forces{N: -f[0], V: f[1], M: -f[2] + x*f[1]}
+		}
+		return
+	}
+	e := &sol.elems[m]
+	loads := sol.model.Cases[c].MemberLoads
+	for i, x := range xs {
+		dst[i] = stationForces(f[0], f[1], f[2], x, e.l, e.c, e.s, loads, idx)
+	}
+}
+
+// StartLoad returns the part of N and V of member m in case c that the
+// point loads at its start carry: entry c of [Solution.StartLoadsTo].
+func (sol *Solution) StartLoad(c, m int) Forces {
+	var f Forces
+	idx, _ := sol.loadsOn(c, m)
+	if len(idx) == 0 {
+		return f
+	}
+	e := &sol.elems[m]
+	tol := 1e-9 * e.l // as stationForces
+	loads := sol.model.Cases[c].MemberLoads
+	for _, i := range idx {
+		ld := &loads[i]
+		if !ld.Point || ld.At > tol {
+			continue
+		}
+		px, py := ld.Direction.local(ld.P, e.c, e.s)
+		f.N -= px
+		f.V += py
+	}
+	return f
+}
+
+// HasMomentLoads reports whether some case loads some member with a
+// concentrated moment (see [Solution.MomentJumpsTo]).
+func (sol *Solution) HasMomentLoads() bool { return sol.moments }
