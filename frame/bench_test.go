@@ -155,3 +155,25 @@ func BenchmarkConditionEstimate(b *testing.B) {
 		})
 	}
 }
+
+// BenchmarkBalance measures the statics check of one patterned case
+// through the sum of its pieces: one load column per beam, summed.
+func BenchmarkBalance(b *testing.B) {
+	for _, size := range []struct{ bays, storeys int }{{10, 10}, {30, 60}} {
+		mo := pieceFrame(size.bays, size.storeys)
+		sol, err := Solve(mo)
+		if err != nil {
+			b.Fatal(err)
+		}
+		cs := make([]int, len(mo.Cases))
+		for c := range cs {
+			cs[c] = c
+		}
+		b.Run(fmt.Sprintf("%dx%d/%d-columns", size.bays, size.storeys, len(cs)), func(b *testing.B) {
+			b.ReportAllocs()
+			for b.Loop() {
+				sol.BalanceOf(cs)
+			}
+		})
+	}
+}

@@ -86,3 +86,27 @@ func TestColumnsAgreeWithPerCaseCalls(t *testing.T) {
 		t.Fatal("no member is loaded: the test checks nothing")
 	}
 }
+
+// The statics check's row sums are the displacements summed case by case,
+// in the order given, to the last bit.
+func TestRowSumsAreCaseSums(t *testing.T) {
+	mo := columnsFrame()
+	sol := solve(t, mo)
+	cs := []int{5, 0, 3, 1}
+	got := make([]float64, 3*len(mo.Nodes))
+	sol.rowSums(got, cs)
+	settled := false
+	for i := range got {
+		want := 0.0
+		for _, c := range cs {
+			want += sol.u(c, i)
+		}
+		if got[i] != want {
+			t.Errorf("component %d: row sum %v, case sum %v", i, got[i], want)
+		}
+		settled = settled || sol.dof[i] < -1
+	}
+	if !settled {
+		t.Error("no imposed displacement: the test misses that branch")
+	}
+}
