@@ -3,10 +3,8 @@ package frame
 import (
 	"fmt"
 	"math"
-	"runtime"
 	"slices"
 	"sort"
-	"sync"
 
 	"gonum.org/v1/gonum/blas"
 	"gonum.org/v1/gonum/blas/blas64"
@@ -505,89 +503,4 @@ func (sol *Solution) loadsOn(c, m int) ([]int32, *[6]float64) {
 	}
 	sp := sol.span[c][i]
 	return sol.byMember[c][sp[0]:sp[1]], (*[6]float64)(sol.fem[c][6*i:])
-}
-
-// bandSolve overwrites the n × nrhs row-major matrix x with U⁻¹ U⁻ᵀ x,
-// where u is an upper band Cholesky factor (row-major, kb superdiagonals).
-// Rows of x are contiguous, so each step is a long vector update; columns
-// are split into blocks shared among the processors.
-func bandSolve(u []float64, n, kb int, x []float64, nrhs int) {
-	if nrhs == 0 {
-		return
-	}
-	const block = 64
-	nb := (nrhs + block - 1) / block
-	workers := min(runtime.GOMAXPROCS(0), nb)
-	var wg sync.WaitGroup
-	next := make(chan int, nb)
-	for b := range nb {
-		next <- b
-	}
-	close(next)
-	w := kb + 1
-	for range workers {
-		wg.Add(1)
-		go func() {
-			defer wg.Done()
-			for b := range next {
-				lo, hi := b*block, min((b+1)*block, nrhs)
-				// Forward: Uᵀ y = x. Rows above the block's first nonzero
-				// stay zero: a load on one member fills only a few rows.
-				start := n
-			scan:
-				for i := range n {
-					for _, v := range x[i*nrhs+lo : i*nrhs+hi] {
-						if v != 0 {
-							start = i
-							break scan
-						}
-					}
-				}
-				for i := start; i < n; i++ {
-					xi := x[i*nrhs+lo : i*nrhs+hi]
-					d := 1 / u[i*w]
-					for k := range xi {
-						xi[k] *= d
-					}
-					for j := 1; j < w && i+j < n; j++ {
-						uij := u[i*w+j]
-						if uij == 0 {
-							continue
-						}
-						axpy(x[(i+j)*nrhs+lo:(i+j)*nrhs+hi], -uij, xi)
-					}
-				}
-				// Backward: U x = y.
-				for i := n - 1; i >= 0; i-- {
-					xi := x[i*nrhs+lo : i*nrhs+hi]
-					for j := 1; j < w && i+j < n; j++ {
-						uij := u[i*w+j]
-						if uij == 0 {
-							continue
-						}
-						axpy(xi, -uij, x[(i+j)*nrhs+lo:(i+j)*nrhs+hi])
-					}
-					d := 1 / u[i*w]
-					for k := range xi {
-						xi[k] *= d
-					}
-				}
-			}
-		}()
-	}
-	wg.Wait()
-}
-
-// axpy adds a·x to y; len(y) == len(x). Unrolled by four, which lets the
-// compiler keep independent sums in flight.
-func axpy(y []float64, a float64, x []float64) {
-	x = x[:len(y)]
-	k := 0
-	for ; k+4 <= len(y); k += 4 {
-		y0, y1, y2, y3 := y[k]+a*x[k], y[k+1]+a*x[k+1], y[k+2]+a*x[k+2], y[k+3]+a*x[k+3]
-		y[k], y[k+1], y[k+2], y[k+3] = y0, y1, y2, y3
-	}
-	for ; k < len(y); k++ {
-		y[k] += a * x[k]
-	}
 }

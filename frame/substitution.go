@@ -1,0 +1,142 @@
+package frame
+
+import (
+	"runtime"
+	"sync"
+)
+
+// solveBlock is the number of load columns one processor substitutes at a
+// time: 32 rows' worth of a block (the rows one row's update reads) stay
+// in the first-level cache for the half-bandwidths of tall frames.
+const solveBlock = 32
+
+// bandSolve overwrites the n × nrhs row-major matrix x with U⁻¹ U⁻ᵀ x,
+// where u is an upper band Cholesky factor (row-major, kb superdiagonals).
+// Columns are split into blocks of solveBlock shared among the processors;
+// within a block each row is formed at once from the rows it depends on
+// (eight columns at a time held in registers, each row read but not
+// written), with the terms added in the order of the row-by-row vector
+// updates, so that the result is the same to the last bit, whatever the
+// number of processors. Rows above a block's first non-zero stay zero in
+// the forward substitution: a load on one member fills only a few rows.
+func bandSolve(u []float64, n, kb int, x []float64, nrhs int) {
+	if nrhs == 0 {
+		return
+	}
+	nb := (nrhs + solveBlock - 1) / solveBlock
+	workers := min(runtime.GOMAXPROCS(0), nb)
+	var wg sync.WaitGroup
+	next := make(chan int, nb)
+	for b := range nb {
+		next <- b
+	}
+	close(next)
+	for range workers {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			// The non-zero terms of the row being formed: the rows it reads
+			// and minus their factors.
+			rows := make([]int, 0, kb)
+			negs := make([]float64, 0, kb)
+			buf := make([]float64, n*solveBlock)
+			for b := range next {
+				lo, hi := b*solveBlock, min((b+1)*solveBlock, nrhs)
+				// The block's columns packed, rows of hi−lo: the rows one
+				// row reads are then a few kilobytes apart, not nrhs words.
+				bw := hi - lo
+				for i := range n {
+					copy(buf[i*bw:(i+1)*bw], x[i*nrhs+lo:i*nrhs+hi])
+				}
+				substitute(u, n, kb, buf[:n*bw], bw, 0, bw, rows, negs)
+				for i := range n {
+					copy(x[i*nrhs+lo:i*nrhs+hi], buf[i*bw:(i+1)*bw])
+				}
+			}
+		}()
+	}
+	wg.Wait()
+}
+
+// substitute solves columns lo to hi of x (see bandSolve).
+func substitute(u []float64, n, kb int, x []float64, nrhs, lo, hi int, rows []int, negs []float64) {
+	w := kb + 1
+	start := n
+scan:
+	for i := range n {
+		for _, v := range x[i*nrhs+lo : i*nrhs+hi] {
+			if v != 0 {
+				start = i
+				break scan
+			}
+		}
+	}
+	// Forward: Uᵀ y = x, y[i] = (x[i] − Σ U[k][i] y[k]) / U[i][i] over the
+	// rows k from max(start, i − kb) up.
+	for i := start; i < n; i++ {
+		rows, negs = rows[:0], negs[:0]
+		for k := max(start, i-kb); k < i; k++ {
+			if uki := u[k*w+i-k]; uki != 0 {
+				rows = append(rows, k*nrhs)
+				negs = append(negs, -uki)
+			}
+		}
+		combineRow(x, i*nrhs, lo, hi, rows, negs, 1/u[i*w])
+	}
+	// Backward: U x = y, x[i] = (y[i] − Σ U[i][i+j] x[i+j]) / U[i][i]
+	// over j from 1 up.
+	for i := n - 1; i >= 0; i-- {
+		rows, negs = rows[:0], negs[:0]
+		for j := 1; j < w && i+j < n; j++ {
+			if uij := u[i*w+j]; uij != 0 {
+				rows = append(rows, (i+j)*nrhs)
+				negs = append(negs, -uij)
+			}
+		}
+		combineRow(x, i*nrhs, lo, hi, rows, negs, 1/u[i*w])
+	}
+}
+
+// combineRow is combine, by combine32 for a whole packed block where the
+// processor has AVX.
+func combineRow(x []float64, at, lo, hi int, rows []int, negs []float64, d float64) {
+	if useAVX && lo == 0 && hi == solveBlock && len(rows) > 0 {
+		// Every row read lies within x: rows[t]+32 <= len(x).
+		_ = x[at+solveBlock-1]
+		_ = negs[len(rows)-1]
+		combine32(&x[at], &x[0], &rows[0], &negs[0], len(rows), d)
+		return
+	}
+	combine(x, at, lo, hi, rows, negs, d)
+}
+
+// combine sets x[at+c], for c from lo to hi, to (x[at+c] + Σ negs[t]·x[rows[t]+c]) · d,
+// the terms added in order.
+func combine(x []float64, at, lo, hi int, rows []int, negs []float64, d float64) {
+	negs = negs[:len(rows)]
+	c := lo
+	for ; c+8 <= hi; c += 8 {
+		y := x[at+c : at+c+8 : at+c+8]
+		s0, s1, s2, s3, s4, s5, s6, s7 := y[0], y[1], y[2], y[3], y[4], y[5], y[6], y[7]
+		for t, r := range rows {
+			a := negs[t]
+			v := x[r+c : r+c+8 : r+c+8]
+			s0 += a * v[0]
+			s1 += a * v[1]
+			s2 += a * v[2]
+			s3 += a * v[3]
+			s4 += a * v[4]
+			s5 += a * v[5]
+			s6 += a * v[6]
+			s7 += a * v[7]
+		}
+		y[0], y[1], y[2], y[3], y[4], y[5], y[6], y[7] = s0*d, s1*d, s2*d, s3*d, s4*d, s5*d, s6*d, s7*d
+	}
+	for ; c < hi; c++ {
+		s := x[at+c]
+		for t, r := range rows {
+			s += negs[t] * x[r+c]
+		}
+		x[at+c] = s * d
+	}
+}
