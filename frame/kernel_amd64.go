@@ -3,13 +3,13 @@
 package frame
 
 // combine32 is combine for one row of a packed block of 32 columns, four
-// at a time with AVX: dst[c] = (dst[c] + Σ negs[t]·base[offs[t]+c]) · d
+// at a time with AVX: dst[c] = (dst[c] + Σ negs[t]·base[32·rows[t]+c]) · d
 // for c from 0 to 31, each product rounded and then added, in the order
 // of t (no fused multiply-add), so that every sum is the pure-Go one to
 // the last bit.
 //
 //go:noescape
-func combine32(dst, base *float64, offs *int, negs *float64, n int, d float64)
+func combine32(dst, base *float64, rows *int, negs *float64, n int, d float64)
 
 // cpuid and xgetbv are the instructions of those names.
 func cpuid(eaxArg, ecxArg uint32) (eax, ebx, ecx, edx uint32)

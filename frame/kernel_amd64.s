@@ -2,11 +2,11 @@
 
 #include "textflag.h"
 
-// func combine32(dst, base *float64, offs *int, negs *float64, n int, d float64)
+// func combine32(dst, base *float64, rows *int, negs *float64, n int, d float64)
 TEXT ·combine32(SB), NOSPLIT, $0-48
 	MOVQ dst+0(FP), DI
 	MOVQ base+8(FP), SI
-	MOVQ offs+16(FP), BX
+	MOVQ rows+16(FP), BX
 	MOVQ negs+24(FP), DX
 	MOVQ n+32(FP), CX
 	VMOVUPD 0(DI), Y0
@@ -22,7 +22,8 @@ TEXT ·combine32(SB), NOSPLIT, $0-48
 
 loop:
 	MOVQ (BX), AX
-	LEAQ (SI)(AX*8), AX
+	SHLQ $8, AX // a row of 32 is 256 bytes
+	ADDQ SI, AX
 	VBROADCASTSD (DX), Y8
 	VMULPD 0(AX), Y8, Y9
 	VMULPD 32(AX), Y8, Y10

@@ -23,6 +23,7 @@ func bandSolve(u []float64, n, kb int, x []float64, nrhs int) {
 	if nrhs == 0 {
 		return
 	}
+	fwd, bwd := newTerms(u, n, kb, true), newTerms(u, n, kb, false)
 	nb := (nrhs + solveBlock - 1) / solveBlock
 	workers := min(runtime.GOMAXPROCS(0), nb)
 	var wg sync.WaitGroup
@@ -35,10 +36,7 @@ func bandSolve(u []float64, n, kb int, x []float64, nrhs int) {
 		wg.Add(1)
 		go func() {
 			defer wg.Done()
-			// The non-zero terms of the row being formed: the rows it reads
-			// and minus their factors.
-			rows := make([]int, 0, kb)
-			negs := make([]float64, 0, kb)
+			offs := make([]int, 0, kb)
 			buf := make([]float64, n*solveBlock)
 			for b := range next {
 				lo, hi := b*solveBlock, min((b+1)*solveBlock, nrhs)
@@ -48,7 +46,7 @@ func bandSolve(u []float64, n, kb int, x []float64, nrhs int) {
 				for i := range n {
 					copy(buf[i*bw:(i+1)*bw], x[i*nrhs+lo:i*nrhs+hi])
 				}
-				substitute(u, n, kb, buf[:n*bw], bw, 0, bw, rows, negs)
+				substitute(&fwd, &bwd, u, n, kb, buf[:n*bw], bw, offs)
 				for i := range n {
 					copy(x[i*nrhs+lo:i*nrhs+hi], buf[i*bw:(i+1)*bw])
 				}
@@ -58,56 +56,87 @@ func bandSolve(u []float64, n, kb int, x []float64, nrhs int) {
 	wg.Wait()
 }
 
-// substitute solves columns lo to hi of x (see bandSolve).
-func substitute(u []float64, n, kb int, x []float64, nrhs, lo, hi int, rows []int, negs []float64) {
+// terms lists, for each row of one substitution, the non-zero terms of
+// the factor it takes: the rows it reads (rows[at[i]:at[i+1]], ascending)
+// and minus their factors (negs, alike).
+type terms struct {
+	at   []int
+	rows []int
+	negs []float64
+}
+
+// newTerms lists the terms of the forward substitution, Uᵀ y = x (row i
+// reads rows k from i − kb up to i − 1 with U[k][i]), or of the backward
+// one, U x = y (row i reads rows i + j for j from 1 up with U[i][i+j]).
+func newTerms(u []float64, n, kb int, forward bool) terms {
+	w := kb + 1
+	t := terms{at: make([]int, n+1)}
+	for i := range n {
+		if forward {
+			for k := max(0, i-kb); k < i; k++ {
+				if uki := u[k*w+i-k]; uki != 0 {
+					t.rows = append(t.rows, k)
+					t.negs = append(t.negs, -uki)
+				}
+			}
+		} else {
+			for j := 1; j < w && i+j < n; j++ {
+				if uij := u[i*w+j]; uij != 0 {
+					t.rows = append(t.rows, i+j)
+					t.negs = append(t.negs, -uij)
+				}
+			}
+		}
+		t.at[i+1] = len(t.rows)
+	}
+	return t
+}
+
+// substitute solves the packed block x, n rows of bw columns (see
+// bandSolve); offs is scratch for the rows' offsets in x.
+func substitute(fwd, bwd *terms, u []float64, n, kb int, x []float64, bw int, offs []int) {
 	w := kb + 1
 	start := n
-scan:
-	for i := range n {
-		for _, v := range x[i*nrhs+lo : i*nrhs+hi] {
-			if v != 0 {
-				start = i
-				break scan
-			}
+	for i, v := range x {
+		if v != 0 {
+			start = i / bw
+			break
 		}
 	}
 	// Forward: Uᵀ y = x, y[i] = (x[i] − Σ U[k][i] y[k]) / U[i][i] over the
-	// rows k from max(start, i − kb) up.
+	// rows k from max(start, i − kb) up: rows above start are zero.
 	for i := start; i < n; i++ {
-		rows, negs = rows[:0], negs[:0]
-		for k := max(start, i-kb); k < i; k++ {
-			if uki := u[k*w+i-k]; uki != 0 {
-				rows = append(rows, k*nrhs)
-				negs = append(negs, -uki)
-			}
+		a, b := fwd.at[i], fwd.at[i+1]
+		for a < b && fwd.rows[a] < start {
+			a++
 		}
-		combineRow(x, i*nrhs, lo, hi, rows, negs, 1/u[i*w])
+		combineRow(x, i, bw, fwd.rows[a:b], fwd.negs[a:b], 1/u[i*w], offs)
 	}
 	// Backward: U x = y, x[i] = (y[i] − Σ U[i][i+j] x[i+j]) / U[i][i]
 	// over j from 1 up.
 	for i := n - 1; i >= 0; i-- {
-		rows, negs = rows[:0], negs[:0]
-		for j := 1; j < w && i+j < n; j++ {
-			if uij := u[i*w+j]; uij != 0 {
-				rows = append(rows, (i+j)*nrhs)
-				negs = append(negs, -uij)
-			}
-		}
-		combineRow(x, i*nrhs, lo, hi, rows, negs, 1/u[i*w])
+		a, b := bwd.at[i], bwd.at[i+1]
+		combineRow(x, i, bw, bwd.rows[a:b], bwd.negs[a:b], 1/u[i*w], offs)
 	}
 }
 
-// combineRow is combine, by combine32 for a whole packed block where the
-// processor has AVX.
-func combineRow(x []float64, at, lo, hi int, rows []int, negs []float64, d float64) {
-	if useAVX && lo == 0 && hi == solveBlock && len(rows) > 0 {
-		// Every row read lies within x: rows[t]+32 <= len(x).
-		_ = x[at+solveBlock-1]
+// combineRow forms row i of the packed block x (rows of bw) from the rows
+// it reads and minus their factors (see combine): by combine32 for a
+// whole block where the processor has AVX. offs is scratch.
+func combineRow(x []float64, i, bw int, rows []int, negs []float64, d float64, offs []int) {
+	if useAVX && bw == solveBlock && len(rows) > 0 {
+		// Every row read lies within x.
+		_ = x[i*bw+solveBlock-1]
+		_ = x[rows[len(rows)-1]*bw+solveBlock-1]
 		_ = negs[len(rows)-1]
-		combine32(&x[at], &x[0], &rows[0], &negs[0], len(rows), d)
+		combine32(&x[i*bw], &x[0], &rows[0], &negs[0], len(rows), d)
 		return
 	}
-	combine(x, at, lo, hi, rows, negs, d)
+	offs = offs[:0]
+	for _, k := range rows {
+		offs = append(offs, k*bw)
+	}
+	combine(x, i*bw, 0, bw, offs, negs, d)
 }
 
 // combine sets x[at+c], for c from lo to hi, to (x[at+c] + Σ negs[t]·x[rows[t]+c]) · d,
