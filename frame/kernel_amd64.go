@@ -9,7 +9,7 @@ package frame
 // the last bit.
 //
 //go:noescape
-func combine32(dst, base *float64, rows *int, negs *float64, n int, d float64)
+func combine32(dst, base *float64, rows *int32, negs *float64, n int, d float64)
 
 // cpuid and xgetbv are the instructions of those names.
 func cpuid(eaxArg, ecxArg uint32) (eax, ebx, ecx, edx uint32)

@@ -2,7 +2,7 @@
 
 #include "textflag.h"
 
-// func combine32(dst, base *float64, rows *int, negs *float64, n int, d float64)
+// func combine32(dst, base *float64, rows *int32, negs *float64, n int, d float64)
 TEXT ·combine32(SB), NOSPLIT, $0-48
 	MOVQ dst+0(FP), DI
 	MOVQ base+8(FP), SI
@@ -21,7 +21,7 @@ TEXT ·combine32(SB), NOSPLIT, $0-48
 	JE done
 
 loop:
-	MOVQ (BX), AX
+	MOVLQSX (BX), AX
 	SHLQ $8, AX // a row of 32 is 256 bytes
 	ADDQ SI, AX
 	VBROADCASTSD (DX), Y8
@@ -41,7 +41,7 @@ loop:
 	VADDPD Y14, Y5, Y5
 	VADDPD Y15, Y6, Y6
 	VADDPD Y9, Y7, Y7
-	ADDQ $8, BX
+	ADDQ $4, BX
 	ADDQ $8, DX
 	DECQ CX
 	JNZ loop

@@ -5,7 +5,7 @@ package frame
 // useAVX is false: the pure-Go substitution everywhere.
 var useAVX = false
 
-func combine32(dst, base *float64, rows *int, negs *float64, n int, d float64) {
+func combine32(dst, base *float64, rows *int32, negs *float64, n int, d float64) {
 	panic("frame: combine32 without AVX")
 }
 

@@ -92,7 +92,7 @@ func SolveWith(mo *Model, opt Options) (*Solution, error) {
 	released := releasedRotations(mo)
 	order := rcmOrder(adjacency(mo))
 	dof, n, band := dofMap(mo, order, released)
-	if err := checkStorage(mo, n, band); err != nil {
+	if err := checkMemory(mo, n, band, opt.PerMember); err != nil {
 		return nil, err
 	}
 	sol := &Solution{model: mo, dofs: n, band: band, cond: 1, dof: dof, released: released}

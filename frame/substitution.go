@@ -61,33 +61,44 @@ func bandSolve(u []float64, n, kb int, x []float64, nrhs int) {
 // and minus their factors (negs, alike).
 type terms struct {
 	at   []int
-	rows []int
+	rows []int32
 	negs []float64
 }
 
 // newTerms lists the terms of the forward substitution, Uᵀ y = x (row i
 // reads rows k from i − kb up to i − 1 with U[k][i]), or of the backward
-// one, U x = y (row i reads rows i + j for j from 1 up with U[i][i+j]).
+// one, U x = y (row i reads rows i + j for j from 1 up with U[i][i+j]),
+// in storage of exactly their number: it is allocated while the solution
+// is live, and adds to the run's peak memory.
 func newTerms(u []float64, n, kb int, forward bool) terms {
 	w := kb + 1
-	t := terms{at: make([]int, n+1)}
-	for i := range n {
+	each := func(i int, f func(k int, v float64)) {
 		if forward {
 			for k := max(0, i-kb); k < i; k++ {
 				if uki := u[k*w+i-k]; uki != 0 {
-					t.rows = append(t.rows, k)
-					t.negs = append(t.negs, -uki)
+					f(k, uki)
 				}
 			}
-		} else {
-			for j := 1; j < w && i+j < n; j++ {
-				if uij := u[i*w+j]; uij != 0 {
-					t.rows = append(t.rows, i+j)
-					t.negs = append(t.negs, -uij)
-				}
+			return
+		}
+		for j := 1; j < w && i+j < n; j++ {
+			if uij := u[i*w+j]; uij != 0 {
+				f(i+j, uij)
 			}
 		}
-		t.at[i+1] = len(t.rows)
+	}
+	t := terms{at: make([]int, n+1)}
+	for i := range n {
+		c := 0
+		each(i, func(int, float64) { c++ })
+		t.at[i+1] = t.at[i] + c
+	}
+	t.rows, t.negs = make([]int32, 0, t.at[n]), make([]float64, 0, t.at[n])
+	for i := range n {
+		each(i, func(k int, v float64) {
+			t.rows = append(t.rows, int32(k))
+			t.negs = append(t.negs, -v)
+		})
 	}
 	return t
 }
@@ -107,7 +118,7 @@ func substitute(fwd, bwd *terms, u []float64, n, kb int, x []float64, bw int, of
 	// rows k from max(start, i − kb) up: rows above start are zero.
 	for i := start; i < n; i++ {
 		a, b := fwd.at[i], fwd.at[i+1]
-		for a < b && fwd.rows[a] < start {
+		for a < b && int(fwd.rows[a]) < start {
 			a++
 		}
 		combineRow(x, i, bw, fwd.rows[a:b], fwd.negs[a:b], 1/u[i*w], offs)
@@ -123,18 +134,18 @@ func substitute(fwd, bwd *terms, u []float64, n, kb int, x []float64, bw int, of
 // combineRow forms row i of the packed block x (rows of bw) from the rows
 // it reads and minus their factors (see combine): by combine32 for a
 // whole block where the processor has AVX. offs is scratch.
-func combineRow(x []float64, i, bw int, rows []int, negs []float64, d float64, offs []int) {
+func combineRow(x []float64, i, bw int, rows []int32, negs []float64, d float64, offs []int) {
 	if useAVX && bw == solveBlock && len(rows) > 0 {
 		// Every row read lies within x.
 		_ = x[i*bw+solveBlock-1]
-		_ = x[rows[len(rows)-1]*bw+solveBlock-1]
+		_ = x[int(rows[len(rows)-1])*bw+solveBlock-1]
 		_ = negs[len(rows)-1]
 		combine32(&x[i*bw], &x[0], &rows[0], &negs[0], len(rows), d)
 		return
 	}
 	offs = offs[:0]
 	for _, k := range rows {
-		offs = append(offs, k*bw)
+		offs = append(offs, int(k)*bw)
 	}
 	combine(x, i*bw, 0, bw, offs, negs, d)
 }

@@ -129,7 +129,13 @@ func Run(ctx context.Context, job *Job, opt Options) (*Result, error) {
 	sv.namePieces(job, lay)
 	report(opt, Progress{Phase: fmt.Sprintf("solving %d loads (%d load cases, %d pattern pieces or arrangements)",
 		len(lay.Model.Cases), len(sv.model.Cases), len(lay.Model.Cases)-len(sv.model.Cases))})
-	sol, err := frame.SolveWith(lay.Model, opt.Solver)
+	// What the envelopes will hold, for the estimate of the run's memory:
+	// each member's stations, with two faces on a beam.
+	solver := opt.Solver
+	pieces := len(lay.Model.Cases) - len(sv.model.Cases)
+	service := slices.ContainsFunc(sv.combinations, func(c combos.Combination) bool { return c.Service })
+	solver.PerMember += float64(job.Settings.Stations+2) * envelope.StationBytes(pieces, service, opt.allPieces)
+	sol, err := frame.SolveWith(lay.Model, solver)
 	if err != nil {
 		return nil, err
 	}
