@@ -18,43 +18,45 @@ func (sol *Solution) EndForcesEach(dst [][6]float64, m int) {
 	}
 	mem := sol.model.Members[m]
 	e := &sol.elems[m]
-	// rows[d] holds direction d's displacement in every case, nil where a
-	// support holds it with nothing imposed.
+	// rows[d] holds direction d's displacement in every case: solved,
+	// imposed, or zero where a support holds it.
 	var rows [6][]float64
+	zero := sol.zero
 	for d := range 6 {
 		node := mem.Start
 		if d >= 3 {
 			node = mem.End
 		}
-		i := sol.dof[3*node+d%3]
-		switch {
+		switch i := sol.dof[3*node+d%3]; {
 		case i >= 0:
 			rows[d] = sol.x[i*nc : (i+1)*nc]
 		case i < -1:
 			rows[d] = sol.imposed[(-2-i)*nc : (-1-i)*nc]
+		default:
+			if len(zero) != nc {
+				zero = make([]float64, nc)
+			}
+			rows[d] = zero
 		}
 	}
 	clear(dst)
 	// The fixed-end forces of the cases that load the member, then k u,
-	// summed in the order of endForcesTo.
+	// summed in the order of endForcesTo: f[i] + k[i][0] u[0] + … + k[i][5] u[5].
 	for _, ref := range sol.onMember[m] {
 		dst[ref.c] = *(*[6]float64)(sol.fem[ref.c][6*ref.i:])
 	}
+	r0, r1, r2, r3, r4, r5 := rows[0][:nc], rows[1][:nc], rows[2][:nc], rows[3][:nc], rows[4][:nc], rows[5][:nc]
+	k := &e.k
+	cs, sn := e.c, e.s
 	for c := range dst {
-		var ug, ul [6]float64
-		for d, r := range rows {
-			if r != nil {
-				ug[d] = r[c]
-			}
-		}
-		e.toLocal(&ul, &ug)
+		g0, g1, g2, g3, g4, g5 := r0[c], r1[c], r2[c], r3[c], r4[c], r5[c]
+		// toLocal
+		u0, u1, u2 := cs*g0+sn*g1, -sn*g0+cs*g1, g2
+		u3, u4, u5 := cs*g3+sn*g4, -sn*g3+cs*g4, g5
 		f := &dst[c]
 		for i := range 6 {
-			v := f[i]
-			for j := range 6 {
-				v += e.k[i][j] * ul[j]
-			}
-			f[i] = v
+			ki := &k[i]
+			f[i] = f[i] + ki[0]*u0 + ki[1]*u1 + ki[2]*u2 + ki[3]*u3 + ki[4]*u4 + ki[5]*u5
 		}
 	}
 }

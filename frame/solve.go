@@ -28,6 +28,7 @@ type Solution struct {
 	x       []float64
 	dof     []int
 	imposed []float64
+	zero    []float64 // a zero for every case: the displacements where a support holds a node
 
 	// Loads by case and member: for case c, loaded[c] lists the members
 	// carrying loads (ascending), span[c][i] the range of byMember[c] holding
@@ -166,6 +167,7 @@ func SolveWith(mo *Model, opt Options) (*Solution, error) {
 	bandSolve(u.Data, n, kb, x, nc)
 	scaleRows(x, d, nc)
 	sol.x = x
+	sol.zero = make([]float64, nc)
 	if err := sol.checkFinite(); err != nil {
 		return nil, err
 	}
