@@ -47,6 +47,9 @@ type fold struct {
 	orig  []frame.Forces // the original cases' stations: c*ns+i
 	cases []foldCase     // per patterned case
 	mv    []float64      // scratch: the M of each unit at the station
+	// seed holds, per patterned case and sign, the smallest size of M the
+	// list kept at the previous station of the member (0 if not full).
+	seed [][2]float64
 }
 
 // foldCase is one patterned case folded over the current member.
@@ -126,6 +129,7 @@ func (f *fold) load(e *evaluator, w *work, sol *frame.Solution, m int) {
 		f.cases = make([]foldCase, len(e.lay.Patterned))
 	}
 	f.cases = f.cases[:len(e.lay.Patterned)]
+	f.seed = grow(f.seed, len(e.lay.Patterned))
 	for p := range f.cases {
 		fc := &f.cases[p]
 		fc.own, fc.ownAt = fc.own[:0], fc.ownAt[:0]
@@ -204,9 +208,27 @@ func (fc *foldCase) fold(w *work) {
 	}
 	// The most influential, with the threshold seeded from the largest:
 	// most units fall short of it at one comparison.
-	for j, vals := range [2][]float64{fc.n, fc.v} {
+	// One pass for N and V, either sign.
+	var thr [2][2]float64
+	for j := range 2 {
 		for s := range 2 {
-			fc.top[j][s] = rank(fc.top[j][s][:0], vals, w.noiseAt[j], s == 1, w.share*fc.big[j][s], w.limit)
+			thr[j][s] = w.share * fc.big[j][s]
+			fc.top[j][s] = fc.top[j][s][:0]
+		}
+	}
+	for u, n := range fc.n {
+		for j, x := range [2]float64{n, fc.v[u]} {
+			s, a := 0, x
+			if x < 0 {
+				s, a = 1, -x
+			}
+			if a > w.noiseAt[j] && a >= thr[j][s] {
+				h := keepLargest(fc.top[j][s], candidate{piece: u, a: a}, w.limit)
+				fc.top[j][s] = h
+				if len(h) == w.limit && h[0].a >= thr[j][s] {
+					thr[j][s] = math.Nextafter(h[0].a, math.Inf(1))
+				}
+			}
 		}
 	}
 }
@@ -283,7 +305,19 @@ func (pl *exactPlacement) scanFolded(e *evaluator, w *work, f *fold, i int) {
 				}
 			}
 		}
-		thr := [2]float64{w.share * big[2][0], w.share * big[2][1]}
+		// Ranking: a unit must reach w.share of the largest; and, seeded
+		// from the previous station of the member, half the smallest size
+		// the list kept there. When fewer than the list's length reach the
+		// seed, the units are ranked again without it (below); when enough
+		// do, those are the largest, the seed made no difference, and
+		// far fewer units went through the heap.
+		cut := [2]float64{w.share * big[2][0], w.share * big[2][1]}
+		thr := cut
+		if i > 0 && w.limit != math.MaxInt {
+			for s := range thr {
+				thr[s] = max(thr[s], f.seed[p][s]/2)
+			}
+		}
 		top[2][0], top[2][1] = top[2][0][:0], top[2][1][:0]
 		var pos, zer [3]float64
 		var m0 float64
@@ -318,6 +352,15 @@ func (pl *exactPlacement) scanFolded(e *evaluator, w *work, f *fold, i int) {
 			}
 		}
 		sum[2][0], zero[2], tot[2] = pos, zer, m0
+		for s := range 2 {
+			if len(top[2][s]) < w.limit && thr[s] > cut[s] {
+				top[2][s] = rank(top[2][s][:0], mv, nz, s == 1, cut[s], w.limit)
+			}
+			f.seed[p][s] = 0
+			if h := top[2][s]; len(h) == w.limit {
+				f.seed[p][s] = h[0].a
+			}
+		}
 		// The units that load the member, exactly.
 		for k, u := range fc.own {
 			v := fc.ownAt[k*ns+i]
