@@ -35,6 +35,16 @@ import (
 // the largest size of each effect over every column and station; for a
 // linear M the largest size is at the member's ends, which are stations.
 //
+// What other terms need of it: the fold keeps, per patterned case, the
+// station's sums of the units of each sign (exactPlacement.sum, as the
+// unfolded scan does), and the original cases' values in w.ev; combine
+// adds them term by term. A factor per member and load case (live load
+// reduction) therefore multiplies, in combine, a case's w.ev entry or its
+// patterned sums, N, V and M each by its own; a term of each combination
+// at each station (second order, N·(v − chord)) is added to that
+// combination's total in combine. A combination solved on its own
+// stiffness has its own columns, and is folded from its own solution.
+//
 // A member is folded only with exact placement of the force envelope, and
 // when no concentrated moment acts exactly at one of its stations (the
 // stations' values past them are then formed from the whole table, the

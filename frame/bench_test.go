@@ -187,3 +187,60 @@ func BenchmarkBalance(b *testing.B) {
 		})
 	}
 }
+
+// BenchmarkFloors measures what this machine can do, for the floors of
+// docs/performance.md: the substitution's row kernel (one row of a packed
+// block of 32 columns formed from 96 rows, the data in the first-level
+// cache) in pure Go and with AVX, in GFLOP/s (two operations a term and
+// column), and reading memory (a sum over 256 MiB), in GB/s.
+func BenchmarkFloors(b *testing.B) {
+	const rows = 96
+	x := make([]float64, (rows+1)*solveBlock)
+	for i := range x {
+		x[i] = float64(i%7) - 3
+	}
+	idx := make([]int32, rows)
+	offs := make([]int, rows)
+	negs := make([]float64, rows)
+	for k := range rows {
+		idx[k], offs[k], negs[k] = int32(k+1), (k+1)*solveBlock, 1e-3*float64(k%5-2)
+	}
+	flops := float64(2 * rows * solveBlock)
+	b.Run("row-kernel/pure-Go", func(b *testing.B) {
+		for b.Loop() {
+			combine(x, 0, 0, solveBlock, offs, negs, 1)
+		}
+		b.ReportMetric(flops*float64(b.N)/b.Elapsed().Seconds()/1e9, "GFLOP/s")
+	})
+	b.Run("row-kernel/AVX", func(b *testing.B) {
+		if !hasAVX() {
+			b.Skip("no AVX")
+		}
+		for b.Loop() {
+			combine32(&x[0], &x[0], &idx[0], &negs[0], rows, 1)
+		}
+		b.ReportMetric(flops*float64(b.N)/b.Elapsed().Seconds()/1e9, "GFLOP/s")
+	})
+	b.Run("memory-read", func(b *testing.B) {
+		big := make([]float64, 32<<20)
+		for i := range big {
+			big[i] = 1
+		}
+		b.ResetTimer()
+		s := 0.0
+		for b.Loop() {
+			var s0, s1, s2, s3 float64
+			for i := 0; i+4 <= len(big); i += 4 {
+				s0 += big[i]
+				s1 += big[i+1]
+				s2 += big[i+2]
+				s3 += big[i+3]
+			}
+			s += s0 + s1 + s2 + s3
+		}
+		if s == 0 {
+			b.Fatal("nothing read")
+		}
+		b.ReportMetric(float64(8*len(big))*float64(b.N)/b.Elapsed().Seconds()/1e9, "GB/s")
+	})
+}
