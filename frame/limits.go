@@ -14,8 +14,8 @@ const (
 	// MaxMemory is the most memory, in bytes (2 GiB), a run may be
 	// estimated to need at its peak (see [Options.PerMember]): the
 	// stiffness band and its factor, the load vectors and solutions of
-	// every case, the fixed-end forces, what the caller holds per member,
-	// and the garbage collector's margin.
+	// every case, the fixed-end forces, and what the caller holds per
+	// member with the garbage collector's margin.
 	MaxMemory = 2 << 30
 )
 
@@ -47,16 +47,15 @@ func checkEquations(mo *Model) error {
 }
 
 // The estimate of a run's peak memory (resident set) is fitted to the
-// peaks of 'govern run --json' on regular frames from 20 × 20 to 65 × 65
-// (docs/performance.md), within 10 % of each: the solver's values times
-// gcMargin (the garbage collector lets the heap grow past what is live
-// before it collects, GOGC=100), what the caller holds per member times
-// heldShare (its lists of pieces are rarely full), and baseMemory, the
-// runtime's and the program's own.
+// peaks of 'govern run --json' on regular frames from 20 × 20 to 70 × 70
+// (docs/errors.md), within 4 % of each: the solver's values as they are
+// held, what the caller holds per member times heldMargin (the envelopes
+// are allocated member by member while the collector lets the heap grow
+// past what is live, GOGC=100), and baseMemory, the runtime's and the
+// program's own.
 const (
-	gcMargin   = 1.6
-	heldShare  = 0.7
-	baseMemory = 10 << 20
+	heldMargin = 1.3
+	baseMemory = 6 << 20
 )
 
 // memory returns the estimated peak memory, in bytes, of solving mo (n
@@ -64,9 +63,7 @@ const (
 // perMember bytes a member: the band and its factor (and, while a
 // mechanism is being looked for, a third copy and the kb × kb block the
 // pivot watch keeps), the right-hand sides that become the displacements,
-// six fixed-end forces for each member load (the margin also covers each
-// processor's block of the substitution, 32 values an equation), and those
-// results.
+// six fixed-end forces for each member load, and those results.
 func memory(mo *Model, n, band int, perMember float64) float64 {
 	kb := float64(min(band, max(n-1, 0)))
 	nc := float64(max(len(mo.Cases), 1))
@@ -76,7 +73,7 @@ func memory(mo *Model, n, band int, perMember float64) float64 {
 		loads += len(mo.Cases[c].MemberLoads)
 	}
 	values := 3*fn*(kb+1) + kb*kb + fn*nc + 6*float64(loads)
-	return gcMargin*8*values + heldShare*perMember*float64(len(mo.Members)) + baseMemory
+	return 8*values + heldMargin*perMember*float64(len(mo.Members)) + baseMemory
 }
 
 // checkMemory refuses a run estimated to need more than MaxMemory.

@@ -27,8 +27,8 @@ func TestModelsPastTheLimitsAreRefused(t *testing.T) {
 			// narrow the band: 12,003 equations and a half-bandwidth of 12,001
 			// (the hub is numbered next to the last foot); band, factor and
 			// diagnosis copy, 3 × 12,003 × 12,002 values, and the pivot
-			// watch's block, 12,001², × 8 bytes = 4.29 GiB, times the
-			// collector's margin 1.6, and 10 MiB: 6.9 GiB.
+			// watch's block, 12,001², × 8 bytes = 4.29 GiB, and 6 MiB
+			// of the runtime's own: 4.3 GiB.
 			name: "a stiffness band past the memory limit",
 			model: func() *Model {
 				const feet = 12000
@@ -40,7 +40,7 @@ func TestModelsPastTheLimitsAreRefused(t *testing.T) {
 				}
 				return mo
 			},
-			want: "the model is too large: solving needs about 6.9 GiB of memory (12,003 equations, half-bandwidth 12,001, 0 load cases); the limit is 2.0 GiB",
+			want: "the model is too large: solving needs about 4.3 GiB of memory (12,003 equations, half-bandwidth 12,001, 0 load cases); the limit is 2.0 GiB",
 		},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
