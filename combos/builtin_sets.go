@@ -7,8 +7,9 @@ package combos
 // derived factors).
 var builtinSets = [...]Set{
 	{ // sets/asce7-16-allowable.toml
-		Name:  "asce7-16-allowable",
-		Title: "ASCE/SEI 7-16 allowable stress design: section 2.4.1 combinations 1-7 and section 2.4.5 combinations 8-10",
+		Name:      "asce7-16-allowable",
+		Title:     "ASCE/SEI 7-16 allowable stress design: section 2.4.1 combinations 1-7 and section 2.4.5 combinations 8-10",
+		Allowable: true,
 		Rules: []Rule{
 			{ID: "2.4.1-1", Text: "D", Terms: []RuleTerm{
 				{Choices: []Choice{{Kind: Dead, Factor: 1}}, Lead: true},

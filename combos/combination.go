@@ -27,6 +27,11 @@ type Combination struct {
 	// and the envelopes of forces for design leave it out when the model
 	// has strength combinations (see package envelope).
 	Service bool
+	// Allowable marks a combination of allowable stress design (ASCE/SEI
+	// 7-16 section 2.4): its effects are compared with allowable
+	// strengths, and outputs call it "allowable", not "strength". It
+	// changes no number.
+	Allowable bool
 }
 
 // EachCase returns one combination per case, the case alone with factor 1,

@@ -366,10 +366,11 @@ func (g *generator) emit(terms []term) {
 			return
 		}
 		g.out = append(g.out, Combination{
-			Name:    g.rule.ID + " " + Compact(ts, g.cases),
-			Rule:    g.set.Name + " " + g.rule.ID,
-			Terms:   ts,
-			Service: g.set.Service,
+			Name:      g.rule.ID + " " + Compact(ts, g.cases),
+			Rule:      g.set.Name + " " + g.rule.ID,
+			Terms:     ts,
+			Service:   g.set.Service,
+			Allowable: g.set.Allowable,
 		})
 	}
 }

@@ -18,7 +18,11 @@ type Set struct {
 	// characteristic, frequent and quasi-permanent ones): its combinations
 	// give deflections, and strength envelopes leave them out. Key service.
 	Service bool
-	Rules   []Rule // rule
+	// Allowable marks a set of allowable stress design combinations
+	// (ASCE/SEI 7-16 section 2.4); its combinations are marked Allowable.
+	// Key allowable.
+	Allowable bool
+	Rules     []Rule // rule
 }
 
 // Rule is one combination expression of a standard, such as ASCE/SEI 7-16

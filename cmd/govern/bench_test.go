@@ -8,6 +8,7 @@ import (
 	"testing"
 
 	"govern/cmd/govern/modelfile"
+	"govern/envelope/report"
 )
 
 // BenchmarkRun measures the whole of 'govern run --json FILE': read the
@@ -44,7 +45,7 @@ func BenchmarkRun(b *testing.B) {
 				if err != nil {
 					b.Fatal(err)
 				}
-				if err := writeResults(io.Discard, "", &runFlags{json: out}, a); err != nil {
+				if err := writeResults(io.Discard, "", &runFlags{json: out}, report.New(a)); err != nil {
 					b.Fatal(err)
 				}
 			}

@@ -19,13 +19,13 @@ type demoFlags struct {
 
 var cmdDemo = &command{
 	name:  "demo",
-	usage: "[--json FILE] [--csv FILE] [--report FILE.html | --out DIR] [--cross-check] [--write FILE]",
+	usage: "[--json FILE] [--csv FILE] [--cases-csv FILE] [--report FILE.html | --out DIR] [--quiet] [--compare-patterns] [--cross-check] [--strict] [--accept-ill-conditioned] [--date DATE] [--write FILE]",
 	short: "run the analysis on a built-in demonstration model",
 	long: `
 Demo analyses a built-in model of a fictional five-storey, three-bay
 reinforced concrete office frame with dead, floor live, roof live and wind
 load cases and the strength combinations of ASCE/SEI 7-16 section 2.3.1,
-and reports as 'govern run' does.
+and reports as 'govern run' does, with the same flags.
 
 With --write FILE it writes that model out instead, as a starting point to
 edit; an existing file is not overwritten. With --write - (or a path that
@@ -52,5 +52,5 @@ func demo(env *environ, f *demoFlags, args []string) error {
 	if err != nil {
 		return err
 	}
-	return analyse(env, job, "demo.toml", "", &f.runFlags)
+	return runModel(env, &f.runFlags, job, "demo.toml", "")
 }

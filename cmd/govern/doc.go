@@ -17,6 +17,7 @@
 //	new      write a starting model of a regular frame to edit
 //	run      analyse a model and report its envelopes
 //	verify   run the built-in verification suite against published results
+//	version  print govern's version and source revision
 //
 // Run 'govern help <command>' for more about a command.
 //
@@ -75,12 +76,12 @@
 //
 // Usage:
 //
-//	govern demo [--json FILE] [--csv FILE] [--report FILE.html | --out DIR] [--cross-check] [--write FILE]
+//	govern demo [--json FILE] [--csv FILE] [--cases-csv FILE] [--report FILE.html | --out DIR] [--quiet] [--compare-patterns] [--cross-check] [--strict] [--accept-ill-conditioned] [--date DATE] [--write FILE]
 //
 // Demo analyses a built-in model of a fictional five-storey, three-bay
 // reinforced concrete office frame with dead, floor live, roof live and wind
 // load cases and the strength combinations of ASCE/SEI 7-16 section 2.3.1,
-// and reports as 'govern run' does.
+// and reports as 'govern run' does, with the same flags.
 //
 // With --write FILE it writes that model out instead, as a starting point to
 // edit; an existing file is not overwritten. With --write - (or a path that
@@ -91,16 +92,20 @@
 //
 //	-accept-ill-conditioned
 //	  	solve a model whose stiffness matrix has an estimated condition number above 1e+13 (fewer than three correct digits left), which is refused otherwise; every output then carries the estimate
+//	-cases-csv FILE
+//	  	write the unfactored results of every load case as CSV to FILE (- for standard output): reactions, member end forces and node displacements, one value a row
 //	-compare-patterns
 //	  	report how far the code pattern arrangements fall short of exact placement, member by member, instead of the envelopes
 //	-cross-check
 //	  	solve every case again by moment distribution and print the largest difference in member end moments
 //	-csv FILE
 //	  	write the envelopes as CSV to FILE (- for standard output), one row per member, station and effect
+//	-date DATE
+//	  	give every output this run DATE (YYYY-MM-DD, or YYYY-MM-DDThh:mm:ssZ in UTC) instead of the time now, so that a run gives the same bytes again; without it SOURCE_DATE_EPOCH (seconds since 1970) is used when set
 //	-json FILE
 //	  	write the envelopes as JSON to FILE (- for standard output)
 //	-out DIR
-//	  	write report.html, envelopes.json and envelopes.csv together into the folder DIR (made if missing)
+//	  	write report.html, envelopes.json, envelopes.csv and cases.csv together into the folder DIR (made if missing)
 //	-quiet
 //	  	print nothing on success: no tables, no progress line (files are still written)
 //	-report FILE
@@ -187,7 +192,7 @@
 //
 // Usage:
 //
-//	govern run [--json FILE] [--csv FILE] [--report FILE.html | --out DIR] [--quiet] [--compare-patterns] [--cross-check] [--strict] [--accept-ill-conditioned] MODEL.toml
+//	govern run [--json FILE] [--csv FILE] [--cases-csv FILE] [--report FILE.html | --out DIR] [--quiet] [--compare-patterns] [--cross-check] [--strict] [--accept-ill-conditioned] [--date DATE] MODEL.toml
 //
 // Run reads the model file, solves every load case by the direct stiffness
 // method, combines the cases into the model's load combinations and reports,
@@ -203,13 +208,16 @@
 //
 // With --json or --csv the full envelopes, at every station of every member,
 // are written to a file as well; flags may come before or after the model path.
+// The JSON, the report and --cases-csv give the unfactored results of every
+// load case (a patterned one with every span loaded): reactions, member end
+// forces and node displacements.
 // With --report a report is written as one HTML page that needs no network
 // and no script: the frame drawn to scale with its moment, shear, axial
 // force and deflection envelopes, the design values and the station tables
 // floor by floor and column line by column line, the reactions, the
 // combinations, the statics check and the caution; it prints on A4 or
-// Letter paper in landscape. --out DIR writes report.html, envelopes.json
-// and envelopes.csv together into DIR.
+// Letter paper in landscape. --out DIR writes report.html, envelopes.json,
+// envelopes.csv and cases.csv together into DIR.
 //
 // A section may give its depth: a beam framing into a column whose section
 // has one gets stations at the faces of the column, and the tables show the
@@ -221,12 +229,15 @@
 // span/deflection (over twice the length for a cantilever); a member
 // hanging from a beam or standing on it, free at its other end, does not
 // divide its span (docs/output.md); the envelopes of forces are over the
-// other, strength, combinations. The tables and the report show every beam
-// from its left end, +M sagging, whichever way it was entered; the JSON
-// and CSV keep each member's own axes.
-// Files are written whole or not at all. A run that takes more than a
-// second or two shows its progress on standard error when that is a
-// terminal; --quiet prints nothing but errors. When JSON or CSV goes to standard
+// other (strength or allowable stress) combinations. The tables and the
+// report show every beam from its left end, +M sagging, whichever way it
+// was entered; the JSON and CSV keep each member's own axes.
+// Every file carries govern's version, the model file's name and SHA-256,
+// the run date and the model's [project] fields; --date DATE (or the
+// environment's SOURCE_DATE_EPOCH) fixes the date, so that a run can be
+// repeated byte for byte. Files are written whole or not at all. A run
+// that takes more than a second or two shows its progress on standard
+// error when that is a terminal; --quiet prints nothing but errors. When JSON or CSV goes to standard
 // output the summary tables are not printed.
 //
 // Every run checks statics for each load case: the reactions against the
@@ -272,16 +283,20 @@
 //
 //	-accept-ill-conditioned
 //	  	solve a model whose stiffness matrix has an estimated condition number above 1e+13 (fewer than three correct digits left), which is refused otherwise; every output then carries the estimate
+//	-cases-csv FILE
+//	  	write the unfactored results of every load case as CSV to FILE (- for standard output): reactions, member end forces and node displacements, one value a row
 //	-compare-patterns
 //	  	report how far the code pattern arrangements fall short of exact placement, member by member, instead of the envelopes
 //	-cross-check
 //	  	solve every case again by moment distribution and print the largest difference in member end moments
 //	-csv FILE
 //	  	write the envelopes as CSV to FILE (- for standard output), one row per member, station and effect
+//	-date DATE
+//	  	give every output this run DATE (YYYY-MM-DD, or YYYY-MM-DDThh:mm:ssZ in UTC) instead of the time now, so that a run gives the same bytes again; without it SOURCE_DATE_EPOCH (seconds since 1970) is used when set
 //	-json FILE
 //	  	write the envelopes as JSON to FILE (- for standard output)
 //	-out DIR
-//	  	write report.html, envelopes.json and envelopes.csv together into the folder DIR (made if missing)
+//	  	write report.html, envelopes.json, envelopes.csv and cases.csv together into the folder DIR (made if missing)
 //	-quiet
 //	  	print nothing on success: no tables, no progress line (files are still written)
 //	-report FILE
@@ -317,4 +332,15 @@
 //
 //	-markdown
 //	  	write the report as Markdown
+//
+// # Print govern's version and source revision
+//
+// Usage:
+//
+//	govern version
+//
+// Version prints the version of govern and, when the build records it, the
+// source revision (commit) it was built from and whether that source had
+// changes not committed. 'govern --version' does the same. Every output
+// file of a run carries the same line.
 package main

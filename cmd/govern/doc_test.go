@@ -40,7 +40,7 @@ func TestDocHoldsEveryHelp(t *testing.T) {
 	}
 	doc := string(src)
 	for _, c := range commands {
-		for _, want := range []string{"//\tgovern " + c.name + " " + c.usage, "// " + strings.SplitN(strings.TrimSpace(c.long), "\n", 2)[0]} {
+		for _, want := range []string{strings.TrimSpace("//\tgovern " + c.name + " " + c.usage), "// " + strings.SplitN(strings.TrimSpace(c.long), "\n", 2)[0]} {
 			if !strings.Contains(doc, want) {
 				t.Errorf("doc.go lacks %q", want)
 			}
@@ -70,7 +70,7 @@ func docSource() ([]byte, error) {
 	printUsage(&usage)
 	line("Govern" + strings.TrimRight(strings.TrimPrefix(usage.String(), "govern"), "\n"))
 	for _, c := range byName() {
-		line("\n# " + strings.ToUpper(c.short[:1]) + c.short[1:] + "\n\nUsage:\n\n\tgovern " + c.name + " " + c.usage + "\n")
+		line("\n# " + strings.ToUpper(c.short[:1]) + c.short[1:] + "\n\nUsage:\n\n\t" + strings.TrimSpace("govern "+c.name+" "+c.usage) + "\n")
 		line(strings.TrimSpace(c.long))
 		if flags := flagDefaults(c); flags != "" {
 			line("\nFlags:\n")

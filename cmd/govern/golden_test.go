@@ -30,8 +30,8 @@ const goldenTol = 1e-9
 // the values against unintended change.
 func TestGoldenJSONAndCSV(t *testing.T) {
 	dir := t.TempDir()
-	js, cs := filepath.Join(dir, "small.json"), filepath.Join(dir, "small.csv")
-	if code, _, stderr := exec("run", "--quiet", "--json", js, "--csv", cs, smallModel); code != 0 {
+	js, cs, cc := filepath.Join(dir, "small.json"), filepath.Join(dir, "small.csv"), filepath.Join(dir, "small.cases.csv")
+	if code, _, stderr := exec("run", "--quiet", "--json", js, "--csv", cs, "--cases-csv", cc, smallModel); code != 0 {
 		t.Fatalf("exit %d: %s", code, stderr)
 	}
 	for _, f := range []struct {
@@ -40,6 +40,7 @@ func TestGoldenJSONAndCSV(t *testing.T) {
 	}{
 		{js, "../../testdata/output/small.json", sameJSON},
 		{cs, "../../testdata/output/small.csv", sameCSV},
+		{cc, "../../testdata/output/small.cases.csv", sameCSV},
 	} {
 		t.Run(filepath.Base(f.golden), func(t *testing.T) {
 			got, err := os.ReadFile(f.got)

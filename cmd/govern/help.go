@@ -26,7 +26,7 @@ func printUsage(w io.Writer) {
 }
 
 func printHelp(w io.Writer, c *command) {
-	fmt.Fprintf(w, "usage: govern %s %s\n\n%s\n", c.name, c.usage, strings.TrimSpace(c.long))
+	fmt.Fprintf(w, "usage: %s\n\n%s\n", strings.TrimSpace("govern "+c.name+" "+c.usage), strings.TrimSpace(c.long))
 	if flags := flagDefaults(c); flags != "" {
 		fmt.Fprintf(w, "\nFlags:\n%s", flags)
 	}

@@ -52,7 +52,7 @@ func usagef(format string, args ...any) error {
 var commands []*command
 
 func init() {
-	commands = []*command{cmdRun, cmdCheck, cmdCombos, cmdDemo, cmdDiff, cmdNew, cmdVerify}
+	commands = []*command{cmdRun, cmdCheck, cmdCombos, cmdDemo, cmdDiff, cmdNew, cmdVerify, cmdVersion}
 }
 
 func main() {
@@ -155,6 +155,9 @@ func runChecked(args []string, stdout, stderr *checkedWriter) (status int) {
 		return 2
 	}
 	name := args[0]
+	if name == "--version" || name == "-version" {
+		name, args = "version", append([]string{"version"}, args[1:]...)
+	}
 	if name == "help" || name == "-h" || name == "-help" || name == "--help" {
 		if len(args) > 1 {
 			if c := lookup(args[1]); c != nil {

@@ -384,7 +384,7 @@ func TestRunReportAndOut(t *testing.T) {
 		if code != 0 {
 			t.Fatalf("exit %d: %s", code, stderr)
 		}
-		for _, name := range []string{reportName, jsonName, csvName} {
+		for _, name := range []string{reportName, jsonName, csvName, casesName} {
 			if st, err := os.Stat(filepath.Join(out, name)); err != nil || st.Size() == 0 {
 				t.Errorf("%s: %v", name, err)
 			}
@@ -405,8 +405,8 @@ func TestRunReportAndOut(t *testing.T) {
 		args []string
 		msg  string
 	}{
-		{"--out with --json", []string{"--out", dir, "--json", "x.json"}, "--out writes report.html, envelopes.json and envelopes.csv"},
-		{"two to standard output", []string{"--report", "-", "--csv", "-"}, "only one of --json, --csv and --report can go to standard output"},
+		{"--out with --json", []string{"--out", dir, "--json", "x.json"}, "--out writes report.html, envelopes.json, envelopes.csv and cases.csv"},
+		{"two to standard output", []string{"--report", "-", "--csv", "-"}, "only one of --json, --csv, --cases-csv and --report can go to standard output"},
 		{"--out to standard output", []string{"--out", "-"}, "--out names a folder"},
 		{"--compare-patterns with --report", []string{"--compare-patterns", "--report", "x.html"}, "--compare-patterns writes no files"},
 	} {

@@ -19,12 +19,14 @@ import (
 
 type runFlags struct {
 	json, csv       string
+	casesCSV        string
 	report, out     string
 	comparePatterns bool
 	crossCheck      bool
 	quiet           bool
 	acceptIll       bool
 	strict          bool
+	date            string
 }
 
 // options returns the analysis options the flags ask for, with progress
@@ -40,18 +42,20 @@ func (f *runFlags) options(p *progress) analysis.Options {
 func (f *runFlags) add(fs *flag.FlagSet) {
 	fs.StringVar(&f.json, "json", "", "write the envelopes as JSON to `FILE` (- for standard output)")
 	fs.StringVar(&f.csv, "csv", "", "write the envelopes as CSV to `FILE` (- for standard output), one row per member, station and effect")
+	fs.StringVar(&f.casesCSV, "cases-csv", "", "write the unfactored results of every load case as CSV to `FILE` (- for standard output): reactions, member end forces and node displacements, one value a row")
 	fs.StringVar(&f.report, "report", "", "write a report as one self-contained HTML page to `FILE` (- for standard output): the frame and its envelopes drawn, tables floor by floor, reactions, combinations, statics check")
-	fs.StringVar(&f.out, "out", "", "write "+reportName+", "+jsonName+" and "+csvName+" together into the folder `DIR` (made if missing)")
+	fs.StringVar(&f.out, "out", "", "write "+reportName+", "+jsonName+", "+csvName+" and "+casesName+" together into the folder `DIR` (made if missing)")
 	fs.BoolVar(&f.comparePatterns, "compare-patterns", false, "report how far the code pattern arrangements fall short of exact placement, member by member, instead of the envelopes")
 	fs.BoolVar(&f.quiet, "quiet", false, "print nothing on success: no tables, no progress line (files are still written)")
 	fs.BoolVar(&f.crossCheck, "cross-check", false, "solve every case again by moment distribution and print the largest difference in member end moments")
 	fs.BoolVar(&f.strict, "strict", false, "treat every warning as an error: a model with numbers that look like a slip of units, or an ill-conditioned stiffness matrix, gives no results")
+	fs.StringVar(&f.date, "date", "", "give every output this run `DATE` (YYYY-MM-DD, or YYYY-MM-DDThh:mm:ssZ in UTC) instead of the time now, so that a run gives the same bytes again; without it SOURCE_DATE_EPOCH (seconds since 1970) is used when set")
 	fs.BoolVar(&f.acceptIll, "accept-ill-conditioned", false, fmt.Sprintf("solve a model whose stiffness matrix has an estimated condition number above %.0e (fewer than three correct digits left), which is refused otherwise; every output then carries the estimate", frame.RefuseCond))
 }
 
 var cmdRun = &command{
 	name:  "run",
-	usage: "[--json FILE] [--csv FILE] [--report FILE.html | --out DIR] [--quiet] [--compare-patterns] [--cross-check] [--strict] [--accept-ill-conditioned] MODEL.toml",
+	usage: "[--json FILE] [--csv FILE] [--cases-csv FILE] [--report FILE.html | --out DIR] [--quiet] [--compare-patterns] [--cross-check] [--strict] [--accept-ill-conditioned] [--date DATE] MODEL.toml",
 	short: "analyse a model and report its envelopes",
 	long: fmt.Sprintf(`
 Run reads the model file, solves every load case by the direct stiffness
@@ -68,13 +72,16 @@ placement at its worst station, and which spans make the difference.
 
 With --json or --csv the full envelopes, at every station of every member,
 are written to a file as well; flags may come before or after the model path.
+The JSON, the report and --cases-csv give the unfactored results of every
+load case (a patterned one with every span loaded): reactions, member end
+forces and node displacements.
 With --report a report is written as one HTML page that needs no network
 and no script: the frame drawn to scale with its moment, shear, axial
 force and deflection envelopes, the design values and the station tables
 floor by floor and column line by column line, the reactions, the
 combinations, the statics check and the caution; it prints on A4 or
-Letter paper in landscape. --out DIR writes report.html, envelopes.json
-and envelopes.csv together into DIR.
+Letter paper in landscape. --out DIR writes report.html, envelopes.json,
+envelopes.csv and cases.csv together into DIR.
 
 A section may give its depth: a beam framing into a column whose section
 has one gets stations at the faces of the column, and the tables show the
@@ -86,12 +93,15 @@ from their chords and its ridge across the line between the eaves, with
 span/deflection (over twice the length for a cantilever); a member
 hanging from a beam or standing on it, free at its other end, does not
 divide its span (docs/output.md); the envelopes of forces are over the
-other, strength, combinations. The tables and the report show every beam
-from its left end, +M sagging, whichever way it was entered; the JSON
-and CSV keep each member's own axes.
-Files are written whole or not at all. A run that takes more than a
-second or two shows its progress on standard error when that is a
-terminal; --quiet prints nothing but errors. When JSON or CSV goes to standard
+other (strength or allowable stress) combinations. The tables and the
+report show every beam from its left end, +M sagging, whichever way it
+was entered; the JSON and CSV keep each member's own axes.
+Every file carries govern's version, the model file's name and SHA-256,
+the run date and the model's [project] fields; --date DATE (or the
+environment's SOURCE_DATE_EPOCH) fixes the date, so that a run can be
+repeated byte for byte. Files are written whole or not at all. A run
+that takes more than a second or two shows its progress on standard
+error when that is a terminal; --quiet prints nothing but errors. When JSON or CSV goes to standard
 output the summary tables are not printed.
 
 Every run checks statics for each load case: the reactions against the
@@ -152,7 +162,12 @@ func run(env *environ, f *runFlags, args []string) error {
 	if err != nil {
 		return err
 	}
-	name := filepath.Base(args[0])
+	return runModel(env, f, job, filepath.Base(args[0]), args[0])
+}
+
+// runModel analyses the model job, read from the file named name at path
+// ("" for the demonstration), as the flags ask.
+func runModel(env *environ, f *runFlags, job *modelfile.Job, name, path string) error {
 	if err := job.CheckUnused(); err != nil {
 		return err
 	}
@@ -166,13 +181,17 @@ func run(env *environ, f *runFlags, args []string) error {
 		}
 		return report.WriteComparison(env.stdout, &job.Job, rows)
 	}
-	return analyse(env, job, name, args[0], f)
+	return analyse(env, job, name, path, f)
 }
 
 // analyse runs the analysis of job, the model file named name at path (""
 // for the demonstration), and writes the results the flags ask for.
 func analyse(env *environ, job *modelfile.Job, name, path string, f *runFlags) error {
-	if err := report.CheckSize(&job.Job, report.Formats{JSON: f.json != "" || f.out != "", CSV: f.csv != "" || f.out != "", HTML: f.report != "" || f.out != ""}); err != nil {
+	date, err := f.runDate()
+	if err != nil {
+		return err
+	}
+	if err := report.CheckSize(&job.Job, report.Formats{JSON: f.json != "" || f.out != "", CSV: f.csv != "" || f.out != "", HTML: f.report != "" || f.out != "", Cases: f.casesCSV != "" || f.out != ""}); err != nil {
 		return fmt.Errorf("%s: %w", name, err)
 	}
 	p := newProgress(env.stderr, env.name, f.quiet)
@@ -191,7 +210,7 @@ func analyse(env *environ, job *modelfile.Job, name, path string, f *runFlags) e
 		return strictError(name, res.Warnings)
 	}
 	p.phase("writing results", 0)
-	err = writeResults(env.stdout, path, f, res)
+	err = writeResults(env.stdout, path, f, report.New(res).From(source(job, name, date)))
 	p.end()
 	// After the progress line is gone, and below the tables.
 	env.warn(name, res.Warnings)
@@ -203,6 +222,7 @@ const (
 	reportName = "report.html"
 	jsonName   = "envelopes.json"
 	csvName    = "envelopes.csv"
+	casesName  = "cases.csv"
 )
 
 // toStdout turns each output path that names the file standard output
@@ -210,48 +230,48 @@ const (
 // standard output and leaves out the summary.
 func (f *runFlags) toStdout(stdout io.Writer) {
 	f.json, f.csv, f.report = files.StdoutPath(stdout, f.json), files.StdoutPath(stdout, f.csv), files.StdoutPath(stdout, f.report)
+	f.casesCSV = files.StdoutPath(stdout, f.casesCSV)
 }
 
 // check refuses combinations of flags that cannot be honoured.
 func (f *runFlags) check() error {
-	if f.out != "" && (f.json != "" || f.csv != "" || f.report != "") {
-		return usagef("--out writes %s, %s and %s into its folder; leave out --json, --csv and --report", reportName, jsonName, csvName)
+	if f.out != "" && (f.json != "" || f.csv != "" || f.report != "" || f.casesCSV != "") {
+		return usagef("--out writes %s, %s, %s and %s into its folder; leave out --json, --csv, --cases-csv and --report", reportName, jsonName, csvName, casesName)
 	}
 	if f.out == "-" {
 		return usagef("--out names a folder, not standard output")
 	}
 	n := 0
-	for _, p := range []string{f.json, f.csv, f.report} {
+	for _, p := range []string{f.json, f.csv, f.report, f.casesCSV} {
 		if p == "-" {
 			n++
 		}
 	}
 	if n > 1 {
-		return usagef("only one of --json, --csv and --report can go to standard output")
+		return usagef("only one of --json, --csv, --cases-csv and --report can go to standard output")
 	}
 	if f.crossCheck && n > 0 {
-		return usagef("--cross-check prints a table, so --json, --csv and --report cannot go to standard output with it")
+		return usagef("--cross-check prints a table, so --json, --csv, --cases-csv and --report cannot go to standard output with it")
 	}
-	if f.comparePatterns && (f.json != "" || f.csv != "" || f.report != "" || f.out != "") {
-		return usagef("--compare-patterns writes no files; leave out --json, --csv, --report and --out")
+	if f.comparePatterns && (f.json != "" || f.csv != "" || f.report != "" || f.casesCSV != "" || f.out != "") {
+		return usagef("--compare-patterns writes no files; leave out --json, --csv, --cases-csv, --report and --out")
 	}
 	return nil
 }
 
 // writeResults writes the requested files and, unless a file goes to
 // standard output, the summary tables.
-func writeResults(stdout io.Writer, model string, f *runFlags, res *analysis.Result) error {
+func writeResults(stdout io.Writer, model string, f *runFlags, rp *report.Report) error {
 	if err := f.check(); err != nil {
 		return err
 	}
-	toStdout := f.json == "-" || f.csv == "-" || f.report == "-"
-	rp := report.New(res)
-	jsonPath, csvPath, reportPath := f.json, f.csv, f.report
+	toStdout := f.json == "-" || f.csv == "-" || f.report == "-" || f.casesCSV == "-"
+	jsonPath, csvPath, reportPath, casesPath := f.json, f.csv, f.report, f.casesCSV
 	if f.out != "" {
-		jsonPath, csvPath, reportPath = filepath.Join(f.out, jsonName), filepath.Join(f.out, csvName), filepath.Join(f.out, reportName)
+		jsonPath, csvPath, reportPath, casesPath = filepath.Join(f.out, jsonName), filepath.Join(f.out, csvName), filepath.Join(f.out, reportName), filepath.Join(f.out, casesName)
 	}
 	var outs []files.Output
-	for _, o := range []files.Output{{Path: jsonPath, Write: rp.WriteJSON}, {Path: csvPath, Write: rp.WriteCSV}, {Path: reportPath, Write: rp.WriteHTML}} {
+	for _, o := range []files.Output{{Path: jsonPath, Write: rp.WriteJSON}, {Path: csvPath, Write: rp.WriteCSV}, {Path: casesPath, Write: rp.WriteCasesCSV}, {Path: reportPath, Write: rp.WriteHTML}} {
 		if o.Path != "" {
 			outs = append(outs, o)
 		}

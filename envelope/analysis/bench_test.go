@@ -31,3 +31,22 @@ func BenchmarkRun(b *testing.B) {
 		})
 	}
 }
+
+// BenchmarkCases measures Result.Cases alone, on the results of Run for
+// regular frames (regularJob): the reactions, member end forces and node
+// displacements of every load case, the patterned live load summed over
+// its pieces.
+func BenchmarkCases(b *testing.B) {
+	for _, size := range []struct{ bays, storeys int }{{3, 3}, {10, 10}, {30, 20}} {
+		res, err := Run(context.Background(), regularJob(size.bays, size.storeys, false), Options{})
+		if err != nil {
+			b.Fatal(err)
+		}
+		b.Run(fmt.Sprintf("%dx%d", size.bays, size.storeys), func(b *testing.B) {
+			b.ReportAllocs()
+			for b.Loop() {
+				res.Cases()
+			}
+		})
+	}
+}

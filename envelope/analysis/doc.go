@@ -41,7 +41,11 @@
 // and the Result is formed from one solution of every load case and
 // pattern piece, superposed: that is an optimisation of the first-order
 // analysis, not part of what a Result promises, and the per-case solution
-// is not exposed. Fields of Job for what comes next (Job.MemberFactors
+// is not exposed. What a designer asks of each load case alone, unfactored
+// (its reactions, member end forces and node displacements, a patterned
+// case fully loaded), is formed on request by [Result.Cases]; with live
+// load reduction its reduced reactions will stand beside the unreduced
+// ones ([CaseResult].Reduced). Fields of Job for what comes next (Job.MemberFactors
 // for live load reduction, Job.Methods for strength or service stiffness
 // and second-order analysis) are refused by Run with [ErrNotApplied]
 // until they are applied, so that no setting is ever silently ignored.

@@ -253,8 +253,11 @@ func hasService(job *analysis.Job) bool {
 
 // use names what a combination is for.
 func use(cb combos.Combination) string {
-	if cb.Service {
+	switch {
+	case cb.Service:
 		return "service"
+	case cb.Allowable:
+		return "allowable"
 	}
 	return "strength"
 }

@@ -59,6 +59,18 @@ func (p *Report) WriteCSV(w io.Writer) error {
 			}
 		}
 	}
+	if s := p.src; s != nil {
+		// The source, a row each for the whole model, as the condition
+		// number below: member and x empty, the name in the effect
+		// column, the value in the max column (docs/output.md).
+		for _, f := range s.csvFields() {
+			row := make([]string, 19)
+			row[2], row[3] = f[0], f[1]
+			if err := cw.Write(row); err != nil {
+				return err
+			}
+		}
+	}
 	if p.conditionNote() != "" {
 		// One last row for the whole model; its columns are those of the
 		// others (docs/output.md).
@@ -70,6 +82,11 @@ func (p *Report) WriteCSV(w io.Writer) error {
 	}
 	cw.Flush()
 	return cw.Error()
+}
+
+// csvFields are the source's rows of a CSV: name and value.
+func (s *Source) csvFields() [][2]string {
+	return [][2]string{{"program", s.Build.String()}, {"model_file", s.File}, {"model_sha256", s.SHA256}, {"run_date", s.date()}}
 }
 
 // csvWriter writes CSV records (RFC 4180, through encoding/csv) whose cells

@@ -6,6 +6,13 @@
 // (combos.go), what a model describes (check.go), the comparison of
 // pattern arrangements (compare.go), the cross-check by moment
 // distribution (crosscheck.go) and the verification suite (verify.go).
+// The page echoes the model as analysed (input.go: nodes, members,
+// sections, each case's loads as entered and as applied, a loading
+// drawing per case); the JSON, the page and a CSV of their own give the
+// unfactored results of each load case (cases.go). A [Source] given with
+// [Report.From] (provenance.go: govern's version, the model file's name
+// and SHA-256, the run date, the [project] fields, the loads as entered)
+// is carried by every file.
 //
 // The design values (per floor, column line and the other members; the
 // supports with column faces; the deflections of spans and cantilevers;
@@ -33,6 +40,7 @@
 // # What is never mutated
 //
 // The writers read the result and the job and never modify them; the
-// writers of one [Report] may run at once. The same result always gives
-// the same bytes. Every output carries the caution ([Caution]).
+// writers of one [Report] may run at once. The same result (and source,
+// whose run date is given, not read from the clock) always gives the same
+// bytes. Every output carries the caution ([Caution]).
 package report

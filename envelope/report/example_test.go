@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"os"
 	"strings"
+	"time"
 
 	"govern/combos"
 	"govern/envelope/analysis"
@@ -91,4 +92,61 @@ func ExampleWriteCombinationsCSV() {
 	// 2.3.1-4 1.2D-1.0W+1.0L,asce7-16-strength 2.3.1-4,1.2,1,-1
 	// 2.3.1-5 0.9D+1.0W,asce7-16-strength 2.3.1-5,0.9,,1
 	// 2.3.1-5 0.9D-1.0W,asce7-16-strength 2.3.1-5,0.9,,-1
+}
+
+// The unfactored results of each load case as CSV, with the source of the
+// results: a cantilever of 3 m fixed at a with a point load of 20 kN at
+// its free end b. By statics the root's reactions are Fy = 20 kN and
+// M = 60 kN·m counter-clockwise, its moment −60 kN·m (hogging); the tip
+// deflects PL³/3EI = 20 × 27 / (3 × 40 000) = 0.0045 m (beam tables,
+// common practice).
+func ExampleReport_WriteCasesCSV() {
+	const l = 3.0
+	job := &analysis.Job{
+		Units: analysis.Units{Force: "kN", Length: "m"},
+		Model: &frame.Model{
+			Sections: []frame.Section{{Name: "B", E: 200e6, A: 1e-2, I: 2e-4}},
+			Nodes:    []frame.Node{{Name: "a", Support: frame.Fixed}, {Name: "b", X: l}},
+			Members:  []frame.Member{{Name: "a-b", Start: 0, End: 1}},
+			Cases:    []frame.Case{{Name: "P", MemberLoads: []frame.MemberLoad{{Member: 0, Point: true, At: l, P: 20}}}},
+		},
+		Cases:        []combos.Case{{Name: "P", Kind: combos.Dead}},
+		Combinations: []combos.Combination{{Name: "P", Terms: []combos.Term{{Case: 0, Factor: 1}}}},
+		Settings:     analysis.Settings{Stations: 3},
+	}
+	res, err := analysis.Run(context.Background(), job, analysis.Options{})
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	src := &report.Source{Build: report.Build{Version: "v1.0.0"}, File: "cantilever.toml", SHA256: "0123abcd", Date: time.Date(2026, 12, 2, 0, 0, 0, 0, time.UTC)}
+	var b strings.Builder
+	if err := report.New(res).From(src).WriteCasesCSV(&b); err != nil {
+		fmt.Println(err)
+	}
+	for _, line := range strings.Split(strings.TrimSpace(b.String()), "\n") {
+		// The free end's forces are zero to round-off (about 1e-14),
+		// whose last bits vary from one processor to another: left out.
+		if !strings.Contains(line, ",a-b,end,") {
+			fmt.Println(line)
+		}
+	}
+	// Output:
+	// case,result,name,end,quantity,value,unit
+	// P,reaction,a,,Fx,0,kN
+	// P,reaction,a,,Fy,20,kN
+	// P,reaction,a,,M,60,kN·m
+	// P,member,a-b,start,N,0,kN
+	// P,member,a-b,start,V,20,kN
+	// P,member,a-b,start,M,-60,kN·m
+	// P,displacement,a,,ux,0,m
+	// P,displacement,a,,uy,0,m
+	// P,displacement,a,,rz,0,rad
+	// P,displacement,b,,ux,0,m
+	// P,displacement,b,,uy,-0.0045,m
+	// P,displacement,b,,rz,-0.00225,rad
+	// ,source,program,,,govern v1.0.0,
+	// ,source,model_file,,,cantilever.toml,
+	// ,source,model_sha256,,,0123abcd,
+	// ,source,run_date,,,2026-12-02T00:00:00Z,
 }

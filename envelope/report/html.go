@@ -48,6 +48,9 @@ svg text { font-family: Arial, sans-serif; fill: #111; }
 .sup line { stroke: #222; stroke-width: 1px; }
 .rel circle { fill: #fff; stroke: #222; stroke-width: 1.2px; }
 .nd circle { fill: #222; }
+.ld line, .ld path.arc { stroke: #7a3b00; stroke-width: 1.2px; fill: none; }
+.ld path { fill: #7a3b00; }
+.ld path.blk { fill: #c9873c; fill-opacity: .35; stroke: #7a3b00; stroke-width: 1px; }
 .mn text { fill: #555; }
 .band { fill: #8a8a8a; fill-opacity: .25; stroke: none; }
 .hi { fill: none; stroke: #b3261e; stroke-width: 1.3px; }
@@ -55,10 +58,16 @@ svg text { font-family: Arial, sans-serif; fill: #111; }
 .key .hi-k { color: #b3261e; font-weight: 600; }
 .key .lo-k { color: #1d4f9c; font-weight: 600; }
 section.part { break-before: page; }
+.flow2, .flow3 { column-gap: 2em; }
+.flow2 { columns: 2; }
+.flow3 { columns: 3; }
+.flow2 table, .flow3 table { margin-top: 0; }
+figure.ld svg { max-height: 80mm; }
 @media print {
   body { margin: 0; padding: 0; max-width: none; font-size: 9pt; }
   table { font-size: 7.5pt; }
   table.st { font-size: 6.5pt; }
+  .flow2 table, .flow3 table { font-size: 6.5pt; }
   nav { display: none; }
 }
 footer { margin-top: 2em; }
@@ -81,6 +90,13 @@ func (p *Report) WriteHTML(w io.Writer) error {
 	h.raw("<!DOCTYPE html>\n<html xmlns=\"http://www.w3.org/1999/xhtml\" lang=\"en\">\n<head>\n<meta charset=\"utf-8\"/>\n")
 	h.printf("<title>%s</title>\n<style>%s</style>\n</head>\n<body>\n", esc(title), reportStyle)
 	h.printf("<header>\n<h1>%s</h1>\n", esc(title))
+	if s := p.src; s != nil {
+		h.raw("<table class=\"src\"><tbody>\n")
+		for _, f := range s.fields() {
+			h.printf("<tr><th>%s</th><td>%s</td></tr>\n", esc(f[0]), esc(f[1]))
+		}
+		h.raw("</tbody></table>\n")
+	}
 	h.printf("<p class=\"meta\">Envelopes of N, V and M by the direct stiffness method; %s; %s.</p>\n",
 		esc(p.combinationCount()), esc(p.unitsText()))
 	h.printf("<p class=\"caution\"><strong>Caution.</strong> %s</p>\n", esc(Caution))
@@ -91,7 +107,7 @@ func (p *Report) WriteHTML(w io.Writer) error {
 
 	d := p.tables()
 	h.raw("<nav><h2>Contents</h2><ol>\n")
-	entries := [][2]string{{"model", "Model"}, {"elevation", "Elevation"}, {"moment", "Moment envelope"}, {"shear", "Shear envelope"}}
+	entries := [][2]string{{"model", "Model"}, {"loads", "Loads"}, {"elevation", "Elevation"}, {"moment", "Moment envelope"}, {"shear", "Shear envelope"}}
 	if p.hasColumns() {
 		entries = append(entries, [2]string{"axial", "Axial force envelope of the columns"})
 	}
@@ -101,13 +117,16 @@ func (p *Report) WriteHTML(w io.Writer) error {
 	for _, g := range d.groups {
 		entries = append(entries, [2]string{g.id, g.title})
 	}
-	entries = append(entries, [2]string{"reactions", "Reactions"}, [2]string{"combinations", "Load combinations"}, [2]string{"statics", "Statics check"})
+	entries = append(entries, [2]string{"reactions", "Reactions"}, [2]string{"cases", "Load case results"}, [2]string{"combinations", "Load combinations"}, [2]string{"statics", "Statics check"})
 	for _, e := range entries {
 		h.printf("<li><a href=\"#%s\">%s</a></li>\n", esc(e[0]), esc(e[1]))
 	}
 	h.raw("</ol></nav>\n")
 
 	p.htmlModel(h)
+	if err := p.htmlLoads(h); err != nil {
+		return err
+	}
 	if err := p.htmlFigures(h); err != nil {
 		return err
 	}
@@ -146,6 +165,9 @@ func (p *Report) WriteHTML(w io.Writer) error {
 		h.raw("<p>No node is supported.</p>\n")
 	}
 	h.raw("</section>\n")
+	if err := p.htmlCases(h); err != nil {
+		return err
+	}
 	p.htmlCombinations(h)
 	h.raw("<section id=\"statics\">\n<h2>Statics check</h2>\n")
 	st := htmlTables{h: h, heading: "h3"}
@@ -207,10 +229,16 @@ func (p *Report) htmlModel(h *htmlOut) {
 		if s.Depth > 0 {
 			depth = plain(s.Depth)
 		}
-		rows = append(rows, []string{s.Name, plain(s.E), plain(s.A), plain(s.I), plain(s.Weight), depth, strconv.Itoa(count[i])})
+		alpha := "-"
+		if s.Alpha > 0 {
+			alpha = plain(s.Alpha)
+		}
+		rows = append(rows, []string{s.Name, plain(s.E), plain(s.A), plain(s.I), plain(s.Weight), depth, alpha, strconv.Itoa(count[i])})
 	}
 	l := u.Length
-	tb.table(Table{"Sections", []string{"section", "E (" + u.Force + "/" + l + "²)", "A (" + l + "²)", "I (" + l + "⁴)", "weight (" + u.Force + "/" + l + ")", "depth (" + l + ")", "members"}, rows})
+	tb.table(Table{"Sections", []string{"section", "E (" + u.Force + "/" + l + "²)", "A (" + l + "²)", "I (" + l + "⁴)", "weight (" + u.Force + "/" + l + ")", "depth (" + l + ")", "α (per degree)", "members"}, rows})
+	p.htmlNodes(tb)
+	p.htmlMembers(tb)
 
 	rows = rows[:0]
 	patterned := map[int]bool{}
@@ -247,7 +275,7 @@ func (p *Report) htmlFigures(h *htmlOut) error {
 	key := "<span class=\"key\"><span class=\"hi-k\">red</span>: largest value, <span class=\"lo-k\">blue</span>: smallest, shaded between</span>"
 	over := "the combinations"
 	if p.overStrength() != "" {
-		over = "the strength combinations"
+		over = p.designCombinations()
 	}
 
 	h.raw("<section id=\"elevation\" class=\"part\">\n<h2>Elevation</h2>\n<figure>\n")
@@ -466,6 +494,19 @@ func (t htmlTables) note(text string) error {
 	}
 	t.h.raw("</p>\n")
 	return t.h.err
+}
+
+// flow writes a long, narrow table flowing in n columns of the page
+// (2 or 3), so that it takes fewer pages.
+func (t htmlTables) flow(tb Table, n int) error {
+	if tb.Title != "" {
+		t.h.printf("<%s>%s</%s>\n", t.heading, esc(tb.Title), t.heading)
+		tb.Title = ""
+	}
+	t.h.printf("<div class=\"flow%d\">\n", n)
+	err := t.table(tb)
+	t.h.raw("</div>\n")
+	return err
 }
 
 func (t htmlTables) table(tb Table) error {

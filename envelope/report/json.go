@@ -41,6 +41,13 @@ func (p *Report) WriteJSON(w io.Writer) error {
 	}
 	j.raw("{\n \"format\": ").str(JSONFormat)
 	j.raw(",\n \"title\": ").str(job.Title)
+	if s := p.src; s != nil {
+		b := s.Build
+		j.raw(",\n \"source\": {\"program\": \"govern\", \"version\": ").str(b.Version).raw(", \"revision\": ").str(b.Revision).raw(", \"modified\": ").boolean(b.Modified)
+		j.raw(", \"model_file\": ").str(s.File).raw(", \"sha256\": ").str(s.SHA256).raw(", \"date\": ").str(s.date())
+		pr := s.Project
+		j.raw(", \"project\": {\"name\": ").str(pr.Name).raw(", \"number\": ").str(pr.Number).raw(", \"engineer\": ").str(pr.Engineer).raw(", \"checker\": ").str(pr.Checker).raw("}}")
+	}
 	// The units of the numbers in the file: forces, moments and
 	// deflections in the output units, lengths and positions in the model's.
 	j.raw(",\n \"units\": {\"force\": ").str(p.force.Label).raw(", \"length\": ").str(job.Units.Length)
@@ -76,7 +83,7 @@ func (p *Report) WriteJSON(w io.Writer) error {
 				n++
 			}
 		}
-		j.raw("}, \"service\": ").boolean(cb.Service).raw("}")
+		j.raw("}, \"service\": ").boolean(cb.Service).raw(", \"use\": ").str(use(cb)).raw("}")
 	}
 	j.raw("\n ],\n \"members\": [")
 	// Each effect in its output unit: N, V and Fx, Fy forces, M moments.
@@ -143,7 +150,9 @@ func (p *Report) WriteJSON(w io.Writer) error {
 		}
 		j.raw("}")
 	}
-	j.raw("\n ],\n \"statics\": [")
+	j.raw("\n ]")
+	p.jsonCases(j)
+	j.raw(",\n \"statics\": [")
 	for i, b := range p.res.Statics {
 		res := func(r frame.Resultant) {
 			j.raw("{\"Fx\": ").num(p.force.Of(r.Fx)).raw(", \"Fy\": ").num(p.force.Of(r.Fy)).raw(", \"M\": ").num(p.moment.Of(r.M)).raw("}")

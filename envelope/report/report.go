@@ -30,6 +30,11 @@ type Report struct {
 
 	once   sync.Once
 	design *design
+
+	src *Source // nil when the results' source is not known (From)
+
+	casesOnce   sync.Once
+	caseResults []analysis.CaseResult
 }
 
 // New returns the report of res.
@@ -99,20 +104,50 @@ func (p *Report) shortSpans(idx []int, loaded int) string {
 }
 
 // combinationCount says how many combinations there are, and how many are
-// strength and service ones when there are both.
+// strength, allowable stress and service ones when there are several
+// uses.
 func (p *Report) combinationCount() string {
-	n, s := p.combinations(), p.service()
-	if s == 0 || s == n {
+	n := p.combinations()
+	count := map[string]int{}
+	for _, cb := range p.res.Envelope.Combinations {
+		count[use(cb)]++
+	}
+	if len(count) < 2 {
 		return fmt.Sprintf("%d combinations", n)
 	}
-	return fmt.Sprintf("%d combinations (%d strength, %d service)", n, n-s, s)
+	var parts []string
+	for _, u := range []string{"strength", "allowable", "service"} {
+		if count[u] > 0 {
+			parts = append(parts, fmt.Sprintf("%d %s", count[u], u))
+		}
+	}
+	return fmt.Sprintf("%d combinations (%s)", n, strings.Join(parts, ", "))
 }
 
-// overStrength is " over the strength combinations" when the model has
-// both strength and service combinations, else "".
+// designCombinations names the combinations the envelopes of forces are
+// over when the model has service combinations besides: "the strength
+// combinations", "the allowable stress combinations", or both.
+func (p *Report) designCombinations() string {
+	strength, allowable := false, false
+	for _, cb := range p.res.Envelope.Combinations {
+		strength = strength || (!cb.Service && !cb.Allowable)
+		allowable = allowable || (!cb.Service && cb.Allowable)
+	}
+	switch {
+	case strength && allowable:
+		return "the strength and allowable stress combinations"
+	case allowable:
+		return "the allowable stress combinations"
+	}
+	return "the strength combinations"
+}
+
+// overStrength is " over the strength combinations" (or the allowable
+// stress ones) when the model has both those and service combinations,
+// else "".
 func (p *Report) overStrength() string {
 	if s := p.service(); s > 0 && s < p.combinations() {
-		return " over the strength combinations"
+		return " over " + p.designCombinations()
 	}
 	return ""
 }

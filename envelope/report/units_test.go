@@ -63,7 +63,7 @@ func TestOutputUnitsJSON(t *testing.T) {
 		k := path[len(path)-1]
 		in := func(s string) bool { return strings.Contains(strings.Join(path, "/"), s) }
 		switch {
-		case in("deflection"):
+		case in("deflection"), in("displacements") && (k == "ux" || k == "uy"):
 			return mToMM
 		case k == "N" || k == "V" || k == "Fx" || k == "Fy" || k == "force" && in("joint_residual"):
 			return kNToKip

@@ -101,6 +101,9 @@ func builtinSetsGo(sets []*combos.Set) ([]byte, error) {
 		if s.Service {
 			b.WriteString("Service: true,\n")
 		}
+		if s.Allowable {
+			b.WriteString("Allowable: true,\n")
+		}
 		b.WriteString("Rules: []Rule{\n")
 		for _, r := range s.Rules {
 			fmt.Fprintf(&b, "{ID: %s, Text: %s, Terms: []RuleTerm{\n", strconv.Quote(r.ID), strconv.Quote(r.Text))

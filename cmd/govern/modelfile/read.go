@@ -1,6 +1,8 @@
 package modelfile
 
 import (
+	"crypto/sha256"
+	"encoding/hex"
 	"errors"
 	"fmt"
 	"math"
@@ -30,6 +32,15 @@ type Job struct {
 	// gives too (govern check lists them).
 	Assignments []Assignment
 	Overlaps    []Overlap
+	// Project is the optional [project] table: who and what the model is
+	// for, shown in the report's header.
+	Project Project
+	// SHA256 is the SHA-256 of the model file's bytes, in lowercase hex:
+	// which file the results are of.
+	SHA256 string
+	// Entered lists, per load case, its loads as the file gives them
+	// (the input echo of the report).
+	Entered [][]EnteredLoad
 
 	file      string      // the model's name, for messages
 	caseLines map[int]int // the line of each case no combination uses
@@ -91,6 +102,8 @@ func ReadAt(dir, name string, src []byte) (*Job, error) {
 	if err := r.finish(); err != nil {
 		return nil, err
 	}
+	sum := sha256.Sum256(src)
+	job.SHA256 = hex.EncodeToString(sum[:])
 	// The reader has made every check Validate makes, with the line at
 	// fault; this is a safeguard.
 	if err := job.Model.Validate(); err != nil {
@@ -140,6 +153,10 @@ func (r *reader) read(raw map[string]any) *Job {
 	r.job = &Job{Job: analysis.Job{Model: &frame.Model{}}}
 	job := r.job
 	job.Title = top.str("title", "")
+	if p := top.sub("project", "[project]"); p != nil {
+		job.Project = Project{Name: p.str("name", ""), Number: p.str("number", ""), Engineer: p.str("engineer", ""), Checker: p.str("checker", "")}
+		p.done()
+	}
 	r.readUnits(top)
 	job.Settings = analysis.Settings{Stations: 11}
 	job.Segments, job.Patterns = 1, patterns.Exact
@@ -607,9 +624,16 @@ func (r *reader) readCases(ts []*table) {
 		pattern := t.boolean("pattern", false) && kindOK
 		loads := t.array("load", func(i int, _ map[string]any) string { return fmt.Sprintf("case %q, load %d", name, i+1) })
 		read := len(r.errs)+r.more == problems // every load read, with no problem reported
+		var entered []EnteredLoad
+		if c.MemberLoads != nil {
+			entered = append(entered, EnteredLoad{Line: t.line("self_weight"), Text: "self_weight = true", Members: len(c.MemberLoads)})
+		}
 		for _, lt := range loads {
 			n, e := len(c.MemberLoads)+len(c.NodeLoads)+len(c.Displacements), len(r.errs)+r.more
+			el := EnteredLoad{Line: lt.line(""), Text: entryText(lt.m), FirstMember: len(c.MemberLoads), FirstNode: len(c.NodeLoads), FirstDisplacement: len(c.Displacements)}
 			r.readLoad(lt, &c)
+			el.Members, el.Nodes, el.Displacements = len(c.MemberLoads)-el.FirstMember, len(c.NodeLoads)-el.FirstNode, len(c.Displacements)-el.FirstDisplacement
+			entered = append(entered, el)
 			if len(c.MemberLoads)+len(c.NodeLoads)+len(c.Displacements) == n || len(r.errs)+r.more != e {
 				read = false
 			}
@@ -641,6 +665,7 @@ func (r *reader) readCases(ts []*table) {
 		t.done()
 		mo.Cases = append(mo.Cases, c)
 		r.job.Cases = append(r.job.Cases, cc)
+		r.job.Entered = append(r.job.Entered, entered)
 		r.caseInfo = append(r.caseInfo, info)
 	}
 }
@@ -680,7 +705,10 @@ func (r *reader) readCombinations(ts []*table) {
 			t.fail("name", problem(ErrDuplicate, "combination %q is defined twice", name))
 		}
 		seen[name] = true
-		cb := combos.Combination{Name: name, Rule: "model", Service: t.boolean("service", false)}
+		cb := combos.Combination{Name: name, Rule: "model", Service: t.boolean("service", false), Allowable: t.boolean("allowable", false)}
+		if cb.Service && cb.Allowable {
+			t.fail("allowable", problem(ErrValue, "allowable = true with service = true: a combination is for strength, allowable stress or service, one of them"))
+		}
 		if t.need("factors") {
 			v, _ := t.get("factors")
 			f, ok := v.(map[string]any)

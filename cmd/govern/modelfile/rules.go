@@ -14,7 +14,7 @@ const MaxRuleFileSize = 1 << 20
 
 // The keys of each table of a rule file (docs/combinations.md).
 var (
-	setKeys    = []string{"name", "title", "service", "rule"}
+	setKeys    = []string{"name", "title", "service", "allowable", "rule"}
 	ruleKeys   = []string{"id", "text", "terms"}
 	termKeys   = []string{"kind", "factor", "lead", "together", "each_action", "psi", "sds_factor", "reduced_live_factor", "favourable_factor", "or"}
 	choiceKeys = []string{"kind", "factor", "psi", "sds_factor", "reduced_live_factor", "favourable_factor"}
@@ -69,7 +69,10 @@ func (sr *setReader) set(raw map[string]any) *combos.Set {
 	top := sr.table(raw, "", "")
 	sr.top = top
 	top.known(setKeys...)
-	s := &combos.Set{Name: top.str("name", ""), Title: top.str("title", ""), Service: top.boolean("service", false)}
+	s := &combos.Set{Name: top.str("name", ""), Title: top.str("title", ""), Service: top.boolean("service", false), Allowable: top.boolean("allowable", false)}
+	if s.Service && s.Allowable {
+		top.fail("allowable", problem(ErrValue, "allowable = true with service = true: a set is for strength, allowable stress or service, one of them"))
+	}
 	if s.Name == "" {
 		s.Name = strings.TrimSuffix(path.Base(strings.ReplaceAll(sr.file, "\\", "/")), ".toml")
 	}

@@ -91,6 +91,9 @@ func TestReadSetErrors(t *testing.T) {
 		{name: "nesting deeper than the format allows", src: "name = " + strings.Repeat("[", 20) + strings.Repeat("]", 20) + "\n",
 			want: "office.toml:1:24: arrays, inline tables or table names nested deeper than the format allows\n    name = " + strings.Repeat("[", 20) + strings.Repeat("]", 20) + "\n" + strings.Repeat(" ", 27) + "^", sentinel: ErrSyntax},
 
+		{name: "allowable and service at once", edit: []string{`title = "Two rules"`, "title = \"Two rules\"\nallowable = true\nservice = true"},
+			want: `office.toml:4: allowable = true with service = true: a set is for strength, allowable stress or service, one of them`, sentinel: ErrValue},
+
 		// Unknown keys, with the nearest known one.
 		{name: "unknown key at the top level", edit: []string{`title = "Two rules"`, `titel = "Two rules"`},
 			want: `office.toml:3: unknown key "titel" (did you mean "title"?) at the top level`, sentinel: ErrUnknownKey},

@@ -1,0 +1,114 @@
+package analysis
+
+import "govern/frame"
+
+// CaseResult is the unfactored result of one load case of the job: a
+// patterned case with every piece loaded (the case as written), every
+// other case as it is. Notional loads and other effects that belong to a
+// combination are in no case.
+type CaseResult struct {
+	Name string
+	// Reactions are the reactions of every node a support or a spring
+	// holds, in model order, in global axes (Fx +X, Fy +Y, M
+	// counter-clockwise); a component that nothing holds is 0.
+	Reactions []Reaction
+	// Reduced is where the reactions with live load reduction
+	// (Job.MemberFactors) will stand beside the unreduced ones above,
+	// node for node. It is nil: Run refuses a job with member factors
+	// (ErrNotApplied) until the reduction is applied.
+	Reduced []Reaction
+	// Ends holds, per member in model order, its end forces: the forces
+	// the nodes exert on it at its start and end, written as internal
+	// forces in the member's own axes and signs, as the envelopes'
+	// stations (N + in tension, M + with the local −y face in tension,
+	// V = dM/dx, x from the start node). They equal the stations' values
+	// at x = 0 and x = L, but for a point load or moment exactly at an
+	// end, which the member carries to the node: the end force is the
+	// node's side of it.
+	Ends []MemberEnds
+	// Displacements holds, per node in model order, its global
+	// displacements.
+	Displacements []Displacement
+}
+
+// Reaction is the reaction of one node, global.
+type Reaction struct {
+	Node       int
+	Fx, Fy, M  float64
+	Components [3]bool // which of Fx, Fy, M a support or a spring holds
+}
+
+// MemberEnds is a member's internal forces at its start and end.
+type MemberEnds struct {
+	Member     int
+	Start, End frame.Forces
+}
+
+// Displacement is a node's displacement, global: Ux along +X, Uy along
+// +Y (length), Rz counter-clockwise (radians). Where every member end at
+// the node is released and nothing holds its rotation, the node has no
+// one rotation: RotationFree is set and Rz is 0.
+type Displacement struct {
+	Node         int
+	Ux, Uy, Rz   float64
+	RotationFree bool
+}
+
+// Cases returns the unfactored results of every load case of the job, in
+// model order: reactions, member end forces and node displacements. They
+// are formed from the first-order solution Run made, on request; the
+// envelopes do not need them.
+func (r *Result) Cases() []CaseResult {
+	mo := r.Job.Model
+	out := make([]CaseResult, len(mo.Cases))
+	for c := range mo.Cases {
+		cols := r.lay.Whole(c)
+		cr := CaseResult{Name: mo.Cases[c].Name, Ends: make([]MemberEnds, len(mo.Members)), Displacements: make([]Displacement, len(mo.Nodes))}
+		for v := range mo.Nodes {
+			nd := &mo.Nodes[v]
+			d := Displacement{Node: v, RotationFree: r.sol.RotationFree(v)}
+			for _, col := range cols {
+				ux, uy, rz := r.sol.Displacement(col, v)
+				d.Ux, d.Uy = d.Ux+ux, d.Uy+uy
+				if !d.RotationFree {
+					d.Rz += rz
+				}
+			}
+			cr.Displacements[v] = d
+			if !nd.Supported() {
+				continue
+			}
+			re := Reaction{Node: v}
+			for k := range re.Components {
+				re.Components[k] = nd.Reacts(k)
+			}
+			for _, col := range cols {
+				fx, fy, m := r.sol.Reaction(col, v)
+				re.Fx, re.Fy, re.M = re.Fx+fx, re.Fy+fy, re.M+m
+			}
+			cr.Reactions = append(cr.Reactions, re)
+		}
+		for m := range mo.Members {
+			f := r.endForces(c, m)
+			// The local end forces the nodes exert (frame.Solution.EndForces)
+			// as internal forces: at the start N = −f0, V = f1, M = −f2; at
+			// the end N = f3, V = −f4, M = f5. A released end's are
+			// exactly zero.
+			cr.Ends[m] = MemberEnds{Member: m, Start: frame.Forces{N: -f[0], V: f[1], M: -f[2]}, End: frame.Forces{N: f[3], V: -f[4], M: f[5]}}
+		}
+		out[c] = cr
+	}
+	return out
+}
+
+// Shown returns the end forces of the member as the tables and the report
+// show it (see ShownMember): for a beam or rafter drawn from right to left,
+// its right end's as the first and its left end's as the second, with M of
+// opposite sign (V and N keep theirs); else start and end as they are.
+func (e MemberEnds) Shown(mo *frame.Model) (from, to frame.Forces) {
+	if !Flipped(mo, e.Member) {
+		return e.Start, e.End
+	}
+	flip := func(f frame.Forces) frame.Forces { return frame.Forces{N: f.N, V: f.V, M: -f.M} }
+	return flip(e.End), flip(e.Start)
+}
