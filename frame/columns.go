@@ -114,3 +114,15 @@ func (sol *Solution) StartLoad(c, m int) Forces {
 // HasMomentLoads reports whether some case loads some member with a
 // concentrated moment (see [Solution.MomentJumpsTo]).
 func (sol *Solution) HasMomentLoads() bool { return sol.moments }
+
+// DisplacementSums sets u[3*v+d] to the sum of direction d's displacement
+// of node v over the cases cs, added in the order of cs: the sums of
+// [Solution.Displacement] over them, to the last bit, except that a
+// rotation that is free ([Solution.RotationFree]) sums to 0, not NaN. u
+// must have length 3 × the number of nodes.
+func (sol *Solution) DisplacementSums(u []float64, cs []int) {
+	if len(u) != 3*len(sol.model.Nodes) {
+		panic("frame: DisplacementSums: u has the wrong length")
+	}
+	sol.rowSums(u, cs)
+}
