@@ -409,3 +409,59 @@ func (pl *exactPlacement) scanFolded(e *evaluator, w *work, f *fold, i int) {
 		pl.sum[p], pl.big[p], pl.count[p] = sum, big, count
 	}
 }
+
+// scanOne is scan of one effect (the deflections' evaluator e), reading
+// column c's value at station i from vals[c*ns+i] rather than from w.ev:
+// the same sums in the same order, largest sizes, counts and most
+// influential units, the ranking's threshold seeded with the largest size
+// (a first pass), so that most units are rejected at one comparison.
+func (pl *exactPlacement) scanOne(e *evaluator, w *work, vals []float64, ns, i int) {
+	nz := w.noise[0]
+	for p, pc := range e.lay.Patterned {
+		lo := e.first[p]
+		nu := len(pc.Units)
+		var big [2]float64
+		for u := range nu {
+			x := vals[(lo+u)*ns+i]
+			if x > nz && x > big[0] {
+				big[0] = x
+			} else if x < -nz && -x > big[1] {
+				big[1] = -x
+			}
+		}
+		thr := [2]float64{w.share * big[0], w.share * big[1]}
+		top := &pl.top[p]
+		top[0][0], top[0][1] = top[0][0][:0], top[0][1][:0]
+		var tot, pos, zero float64
+		var count [2]int
+		for u := range nu {
+			x := vals[(lo+u)*ns+i]
+			tot += x
+			s, a := 0, x
+			switch {
+			case x > nz:
+				pos += x
+			case x < -nz:
+				s, a = 1, -x
+			default:
+				zero += x
+				continue
+			}
+			count[s]++
+			if a >= thr[s] {
+				h := keepLargest(top[0][s], candidate{piece: u, a: a}, w.limit)
+				top[0][s] = h
+				if len(h) == w.limit && h[0].a >= thr[s] {
+					thr[s] = math.Nextafter(h[0].a, math.Inf(1))
+				}
+			}
+		}
+		var sum [3][2][3]float64
+		sum[0][0][0] = pos
+		sum[0][1][0] = tot - pos - zero
+		// The other components are zero, as scan leaves them: tot − 0 − 0.
+		pl.sum[p] = sum
+		pl.big[p] = [3][2]float64{big}
+		pl.count[p] = [3][2]int{count}
+	}
+}

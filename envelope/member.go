@@ -22,7 +22,9 @@ func (e *evaluator) member(w *work, sol *frame.Solution, m int) (Member, error) 
 		if e.defl != nil {
 			ns, nc := len(w.xs), len(w.ev)
 			w.defl = grow(w.defl, ns*nc)
-			sol.DeflectionsTo(w.defl, m, w.xs)
+			for c := range nc {
+				sol.DeflectionsFrom(w.defl[c*ns:(c+1)*ns], c, m, &w.fold.ends[c], w.xs)
+			}
 		}
 		line := e.lineDeflections(w, sol, m)
 		if mem, err := e.stationsOf(w, sol, m, line, pl); err == nil {
@@ -85,11 +87,21 @@ func (e *evaluator) stationsOf(w *work, sol *frame.Solution, m int, line Line, f
 			if d.dst == nil {
 				continue
 			}
-			for c := range w.ev {
-				w.ev[c] = [3]float64{d.vals[c*ns+i], 0, 0}
-			}
+			var ex [3]Extreme
 			w.noise = [3]float64{d.noise}
-			ex := e.defl.station(w)
+			if folded != nil {
+				// Only the original cases' values are read from w.ev.
+				for c := range e.nOrig {
+					w.ev[c] = [3]float64{d.vals[c*ns+i], 0, 0}
+				}
+				folded.scanOne(e.defl, w, d.vals, ns, i)
+				ex = e.defl.scanned(w)
+			} else {
+				for c := range w.ev {
+					w.ev[c] = [3]float64{d.vals[c*ns+i], 0, 0}
+				}
+				ex = e.defl.station(w)
+			}
 			if !allFinite(&ex, 1) {
 				return Member{}, e.defl.nonFinite(w, func(int) string { return fmt.Sprintf("the deflection of member %q at x = %g%s", name, x, d.what) })
 			}

@@ -126,3 +126,15 @@ func (sol *Solution) DisplacementSums(u []float64, cs []int) {
 	}
 	sol.rowSums(u, cs)
 }
+
+// DeflectionsFrom fills dst[i] with the deflection of member m in case c
+// at xs[i] relative to its chord, given the member's local end forces f in
+// that case (from [Solution.EndForcesEach]): the values of
+// [Solution.DeflectionsTo], to the last bit. dst must have length len(xs).
+func (sol *Solution) DeflectionsFrom(dst []float64, c, m int, f *[6]float64, xs []float64) {
+	if len(dst) != len(xs) {
+		panic("frame: DeflectionsFrom: dst has the wrong length")
+	}
+	idx, _ := sol.loadsOn(c, m)
+	deflectionsTo(dst, f, &sol.elems[m], sol.model.Cases[c].MemberLoads, idx, xs)
+}

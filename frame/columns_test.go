@@ -69,6 +69,12 @@ func TestColumnsAgreeWithPerCaseCalls(t *testing.T) {
 			if f := sol.StartLoad(c, m); f != start[c] {
 				t.Errorf("member %d case %d: StartLoad %v, StartLoadsTo %v", m, c, f, start[c])
 			}
+			dg, dw := make([]float64, len(xs)), make([]float64, len(xs))
+			sol.DeflectionsFrom(dg, c, m, &ends[c], xs)
+			sol.deflectionsOf(dw, c, m, xs)
+			if !slices.Equal(dg, dw) {
+				t.Errorf("member %d case %d: DeflectionsFrom %v, DeflectionsTo %v", m, c, dg, dw)
+			}
 			sol.StationsFrom(got, c, m, &ends[c], xs)
 			if !slices.Equal(got, want[c*len(xs):(c+1)*len(xs)]) {
 				t.Errorf("member %d case %d: StationsFrom %v, StationsTo %v", m, c, got, want[c*len(xs):(c+1)*len(xs)])
