@@ -123,3 +123,19 @@ func bytesText(b float64) string {
 	}
 	return fmt.Sprintf("%.1f %s", b, units[i])
 }
+
+// EstimateMemory returns the estimate of the peak memory, in bytes, of
+// solving mo with opt (see [MaxMemory] and [Options.PerMember]), which
+// [SolveWith] refuses past MaxMemory, with the size of the system. It
+// numbers the equations, as SolveWith does, but assembles nothing.
+func EstimateMemory(mo *Model, opt Options) (float64, Info, error) {
+	if err := checkEquations(mo); err != nil {
+		return 0, Info{}, err
+	}
+	if err := mo.Validate(); err != nil {
+		return 0, Info{}, err
+	}
+	released := releasedRotations(mo)
+	_, n, band := dofMap(mo, rcmOrder(adjacency(mo)), released)
+	return memory(mo, n, band, opt.PerMember), Info{Equations: n, Bandwidth: band}, nil
+}
