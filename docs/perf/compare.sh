@@ -1,7 +1,8 @@
 #!/bin/sh
 # compare.sh MODEL RUNS CMD...: runs each command RUNS times, alternating
 # (one of each per round), and prints each one's wall times sorted, the
-# median, and the median peak memory, from /usr/bin/time. In a command,
+# median, the median CPU time (user + system) and the median peak memory,
+# from /usr/bin/time. In a command,
 # MODEL stands for the model file and OUT for an output file of its own.
 # Example, on the frame docs/perf/model.sh writes:
 #   docs/perf/compare.sh tall.toml 5 "./govern-main run --quiet --json OUT MODEL" \
@@ -16,7 +17,7 @@ for r in $(seq "$runs"); do
 	for cmd in "$@"; do
 		i=$((i + 1))
 		c=$(echo "$cmd" | sed -e "s|MODEL|$model|g" -e "s|OUT|$log.$i.out|g")
-		/usr/bin/time -f "$i %e %M" -a -o "$log" $c >/dev/null 2>&1
+		/usr/bin/time -f "$i %e %M %U %S" -a -o "$log" $c >/dev/null 2>&1
 	done
 done
 i=0
@@ -25,5 +26,6 @@ for cmd in "$@"; do
 	t=$(awk -v i=$i '$1 == i {print $2}' "$log" | sort -n | tr '\n' ' ')
 	med=$(awk -v i=$i '$1 == i {print $2}' "$log" | sort -n | awk '{a[NR]=$1} END {print a[int((NR+1)/2)]}')
 	mem=$(awk -v i=$i '$1 == i {print $3}' "$log" | sort -n | awk '{a[NR]=$1} END {printf "%.0f", a[int((NR+1)/2)]/1024}')
-	echo "$cmd: median $med s ($t), peak $mem MiB"
+	cpu=$(awk -v i=$i '$1 == i {print $4 + $5}' "$log" | sort -n | awk '{a[NR]=$1} END {print a[int((NR+1)/2)]}')
+	echo "$cmd: median $med s ($t), CPU $cpu s, peak $mem MiB"
 done
