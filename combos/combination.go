@@ -27,6 +27,11 @@ type Combination struct {
 	// and the envelopes of forces for design leave it out when the model
 	// has strength combinations (see package envelope).
 	Service bool
+	// Limit is, for a service combination, the span/deflection its
+	// deflections are checked against (360 for span/360): the largest
+	// deflection of a span may be at most its length over Limit, of a
+	// cantilever twice its length over Limit. 0 for no check.
+	Limit float64
 	// Allowable marks a combination of allowable stress design (ASCE/SEI
 	// 7-16 section 2.4): its effects are compared with allowable
 	// strengths, and outputs call it "allowable", not "strength". It

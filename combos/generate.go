@@ -371,6 +371,7 @@ func (g *generator) emit(terms []term) {
 			Terms:     ts,
 			Service:   g.set.Service,
 			Allowable: g.set.Allowable,
+			Limit:     g.rule.Limit,
 		})
 	}
 }

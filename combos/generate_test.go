@@ -235,3 +235,24 @@ func TestFormatFactor(t *testing.T) {
 		}
 	}
 }
+
+// TestGenerateCarriesTheLimit: the combinations of a service rule carry
+// its span/deflection limit; a strength set may not have one.
+func TestGenerateCarriesTheLimit(t *testing.T) {
+	s := &Set{Name: "deflection", Service: true, Rules: []Rule{
+		{ID: "total", Terms: []RuleTerm{{Choices: []Choice{{Kind: Dead, Factor: 1}}}, {Choices: []Choice{{Kind: Live, Factor: 1}}}}, Limit: 240},
+		{ID: "live", Terms: []RuleTerm{{Choices: []Choice{{Kind: Live, Factor: 1}}, Lead: true}}, Limit: 360},
+	}}
+	cs, info := cases(t, "D dead", "L live")
+	got, err := s.Generate(cs, info, Params{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(got) != 2 || got[0].Limit != 240 || got[1].Limit != 360 || !got[0].Service || !got[1].Service {
+		t.Errorf("combinations %+v, want the total at 240 and the live load at 360, both service", got)
+	}
+	s.Service = false
+	if err := s.Validate(); err == nil {
+		t.Error("a limit in a strength set was accepted")
+	}
+}

@@ -31,6 +31,9 @@ type Rule struct {
 	ID    string     // id: short reference that starts the name of every combination it gives, such as "2.3.1-3"
 	Text  string     // text: the expression as the standard writes it; for people only
 	Terms []RuleTerm // terms
+	// Limit is the span/deflection limit of the combinations the rule
+	// gives, in a service set (Combination.Limit); 0 for none. Key limit.
+	Limit float64
 }
 
 // RuleTerm is one term of a rule: the loads of one or more kinds with their

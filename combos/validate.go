@@ -49,7 +49,7 @@ func (es SetErrors) Unwrap() []error {
 // least one kind, and each_action not with together; each choice a known
 // kind and finite factors, the S_DS factor on dead load only, the reduced
 // live load factor on live load only and a ψ factor on variable loads
-// only. It returns every problem found as [SetErrors], or nil.
+// only; a limit only in a service set, positive. It returns every problem found as [SetErrors], or nil.
 // [Set.Generate] validates the set first.
 func (s *Set) Validate() error {
 	v := &validator{}
@@ -69,6 +69,12 @@ func (s *Set) Validate() error {
 		}
 		if len(r.Terms) == 0 {
 			v.add(i, -1, -1, name+": ", "terms", "terms is empty: a rule needs at least one term")
+		}
+		switch {
+		case r.Limit != 0 && !s.Service:
+			v.add(i, -1, -1, name+": ", "limit", "limit = %g: only a service set's combinations have a deflection limit; give the set service = true", r.Limit)
+		case math.IsNaN(r.Limit) || math.IsInf(r.Limit, 0) || r.Limit < 0:
+			v.add(i, -1, -1, name+": ", "limit", "limit = %v: span/deflection must be a positive number, such as 360 for span/360", r.Limit)
 		}
 		for j := range r.Terms {
 			v.term(i, j, &r.Terms[j], fmt.Sprintf("%s, term %d: ", name, j+1))

@@ -67,3 +67,46 @@ func ExampleCompute() {
 	// AB at x = 3.5 m: M max 252.0 kN·m by 1.2D+1.6L, live load on [AB]
 	// AB at x = 8.0 m: M min -384.0 kN·m by 1.2D+1.6L, live load on [AB BC]
 }
+
+// The beam of ExampleCompute: the largest sagging moment of AB, at
+// x = 3.5 m, has the live load on AB alone; in that same state the
+// moment at B is the dead load's -wL²/8 on both spans and the live load's
+// -wL²/16 on one span (AISC Manual Table 3-23, recalled from memory):
+// -1.2·20·8²/8 - 1.6·15·8²/16 = -192 - 96 = -288 kN·m; at the pin A, 0.
+func ExampleEndMoments() {
+	const l = 8.0 // m
+	udl := func(m int, w float64) frame.MemberLoad { return frame.MemberLoad{Member: m, To: l, W: w, WEnd: w} }
+	mo := &frame.Model{
+		Sections: []frame.Section{{Name: "B", E: 30e6, A: 0.18, I: 5.4e-3}},
+		Nodes: []frame.Node{
+			{Name: "A", Support: frame.Pinned}, {Name: "B", X: l, Support: frame.Roller}, {Name: "C", X: 2 * l, Support: frame.Roller},
+		},
+		Members: []frame.Member{{Name: "AB", Start: 0, End: 1}, {Name: "BC", Start: 1, End: 2}},
+		Cases: []frame.Case{
+			{Name: "D", MemberLoads: []frame.MemberLoad{udl(0, 20), udl(1, 20)}},
+			{Name: "L", MemberLoads: []frame.MemberLoad{udl(0, 15), udl(1, 15)}},
+		},
+	}
+	lay, err := patterns.Expand(mo, []int{1}, 1, patterns.Exact)
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	sol, err := frame.Solve(lay.Model)
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	cs := []combos.Combination{{Name: "1.2D+1.6L", Terms: []combos.Term{{Case: 0, Factor: 1.2}, {Case: 1, Factor: 1.6}}}}
+	set := envelope.Settings{Stations: 17, Kinds: []combos.Kind{combos.Dead, combos.Live}}
+	env, err := envelope.Compute(sol, cs, set, lay)
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	st := env.Members[0].Stations[7]
+	ends, ok := envelope.EndMoments(sol, cs, set, lay, 0, st.X, st.M.MaxBy, 2, true, st.M.Max)
+	fmt.Printf("M max %.1f kN·m at x = %.1f m; in its state M at A %.1f, at B %.1f kN·m (%v)\n", st.M.Max, st.X, ends[0]+0, ends[1], ok)
+	// Output:
+	// M max 252.0 kN·m at x = 3.5 m; in its state M at A 0.0, at B -288.0 kN·m (true)
+}

@@ -19,7 +19,7 @@ type demoFlags struct {
 
 var cmdDemo = &command{
 	name:  "demo",
-	usage: "[--json FILE] [--csv FILE] [--cases-csv FILE] [--report FILE.html | --out DIR] [--quiet] [--compare-patterns] [--cross-check] [--strict] [--accept-ill-conditioned] [--date DATE] [--write FILE]",
+	usage: "[--json FILE] [--csv FILE] [--cases-csv FILE] [--design-csv FILE] [--report FILE.html | --out DIR] [--quiet] [--wide] [--compare-patterns] [--cross-check] [--strict] [--accept-ill-conditioned] [--date DATE] [--write FILE]",
 	short: "run the analysis on a built-in demonstration model",
 	long: `
 Demo analyses a built-in model of a fictional five-storey, three-bay

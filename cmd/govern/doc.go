@@ -76,7 +76,7 @@
 //
 // Usage:
 //
-//	govern demo [--json FILE] [--csv FILE] [--cases-csv FILE] [--report FILE.html | --out DIR] [--quiet] [--compare-patterns] [--cross-check] [--strict] [--accept-ill-conditioned] [--date DATE] [--write FILE]
+//	govern demo [--json FILE] [--csv FILE] [--cases-csv FILE] [--design-csv FILE] [--report FILE.html | --out DIR] [--quiet] [--wide] [--compare-patterns] [--cross-check] [--strict] [--accept-ill-conditioned] [--date DATE] [--write FILE]
 //
 // Demo analyses a built-in model of a fictional five-storey, three-bay
 // reinforced concrete office frame with dead, floor live, roof live and wind
@@ -102,6 +102,8 @@
 //	  	write the envelopes as CSV to FILE (- for standard output), one row per member, station and effect
 //	-date DATE
 //	  	give every output this run DATE (YYYY-MM-DD, or YYYY-MM-DDThh:mm:ssZ in UTC) instead of the time now, so that a run gives the same bytes again; without it SOURCE_DATE_EPOCH (seconds since 1970) is used when set
+//	-design-csv FILE
+//	  	write the design values as CSV to FILE (- for standard output), one row per member: a beam's moments and shears at its supports' faces, at d from them and in the span, a column's N and M with its end moments M1, M2
 //	-json FILE
 //	  	write the envelopes as JSON to FILE (- for standard output)
 //	-out DIR
@@ -112,6 +114,8 @@
 //	  	write a report as one self-contained HTML page to FILE (- for standard output): the frame and its envelopes drawn, tables floor by floor, reactions, combinations, statics check
 //	-strict
 //	  	treat every warning as an error: a model with numbers that look like a slip of units, or an ill-conditioned stiffness matrix, gives no results
+//	-wide
+//	  	print the tables as wide as their columns make them, instead of splitting those wider than 120 characters
 //	-write FILE
 //	  	write the demonstration model to FILE instead of analysing it
 //
@@ -192,7 +196,7 @@
 //
 // Usage:
 //
-//	govern run [--json FILE] [--csv FILE] [--cases-csv FILE] [--report FILE.html | --out DIR] [--quiet] [--compare-patterns] [--cross-check] [--strict] [--accept-ill-conditioned] [--date DATE] MODEL.toml
+//	govern run [--json FILE] [--csv FILE] [--cases-csv FILE] [--design-csv FILE] [--report FILE.html | --out DIR] [--quiet] [--wide] [--compare-patterns] [--cross-check] [--strict] [--accept-ill-conditioned] [--date DATE] MODEL.toml
 //
 // Run reads the model file, solves every load case by the direct stiffness
 // method, combines the cases into the model's load combinations and reports,
@@ -211,6 +215,13 @@
 // The JSON, the report and --cases-csv give the unfactored results of every
 // load case (a patterned one with every span loaded): reactions, member end
 // forces and node displacements.
+// With --design-csv the design values are written as CSV, one row per member
+// (docs/output.md): for a beam the least moment at each support's face, the
+// largest in the span, the largest shear at each face and, where its section
+// gives the effective depth d, at d from it (whether that section may be
+// designed for is the user's to confirm: ACI 318-19 9.4.3.2, EN 1992-1-1
+// 6.2.1(8)); for a column N and M of N max, N min and |M| max, each with the
+// end moments M1 and M2 of the same state, M1/M2 and the curvature.
 // With --report a report is written as one HTML page that needs no network
 // and no script: the frame drawn to scale with its moment, shear, axial
 // force and deflection envelopes, the design values and the station tables
@@ -226,7 +237,9 @@
 // of every span of beams from the chord between its displaced ends, of
 // every cantilever from its displaced root, of a pitched roof's rafters
 // from their chords and its ridge across the line between the eaves, with
-// span/deflection (over twice the length for a cantilever); a member
+// span/deflection (over twice the length for a cantilever), checked
+// against each service combination's limit where it has one (limit = 360
+// for span/360); a member
 // hanging from a beam or standing on it, free at its other end, does not
 // divide its span (docs/output.md); the envelopes of forces are over the
 // other (strength or allowable stress) combinations. The tables and the
@@ -238,7 +251,9 @@
 // repeated byte for byte. Files are written whole or not at all. A run
 // that takes more than a second or two shows its progress on standard
 // error when that is a terminal; --quiet prints nothing but errors. When JSON or CSV goes to standard
-// output the summary tables are not printed.
+// output the summary tables are not printed. The tables fit 120 characters:
+// a wider one is split into narrower ones, each repeating the columns that
+// name its rows; --wide prints them whole.
 //
 // Every run checks statics for each load case: the reactions against the
 // applied loads in X, Y and moment about the lower left corner of the
@@ -293,6 +308,8 @@
 //	  	write the envelopes as CSV to FILE (- for standard output), one row per member, station and effect
 //	-date DATE
 //	  	give every output this run DATE (YYYY-MM-DD, or YYYY-MM-DDThh:mm:ssZ in UTC) instead of the time now, so that a run gives the same bytes again; without it SOURCE_DATE_EPOCH (seconds since 1970) is used when set
+//	-design-csv FILE
+//	  	write the design values as CSV to FILE (- for standard output), one row per member: a beam's moments and shears at its supports' faces, at d from them and in the span, a column's N and M with its end moments M1, M2
 //	-json FILE
 //	  	write the envelopes as JSON to FILE (- for standard output)
 //	-out DIR
@@ -303,6 +320,8 @@
 //	  	write a report as one self-contained HTML page to FILE (- for standard output): the frame and its envelopes drawn, tables floor by floor, reactions, combinations, statics check
 //	-strict
 //	  	treat every warning as an error: a model with numbers that look like a slip of units, or an ill-conditioned stiffness matrix, gives no results
+//	-wide
+//	  	print the tables as wide as their columns make them, instead of splitting those wider than 120 characters
 //
 // # Run the built-in verification suite against published results
 //

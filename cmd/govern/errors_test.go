@@ -90,7 +90,7 @@ func TestExitStatusAndPrefix(t *testing.T) {
 		{"two outputs, one file", []string{"run", "--json", filepath.Join(dir, "e"), "--csv", filepath.Join(dir, "e"), model}, 1, "govern run: refusing to write " + filepath.Join(dir, "e") + " twice: two outputs name the same file"},
 		{"no model", []string{"run"}, 2, "govern run: need one model file, got 0 arguments"},
 		{"two models", []string{"check", model, model}, 2, "govern check: need one model file, got 2 arguments"},
-		{"both outputs to stdout", []string{"run", "--json", "-", "--csv", "-", model}, 2, "govern run: only one of --json, --csv, --cases-csv and --report can go to standard output"},
+		{"both outputs to stdout", []string{"run", "--json", "-", "--csv", "-", model}, 2, "govern run: only one of --json, --csv, --cases-csv, --design-csv and --report can go to standard output"},
 		{"unknown flag", []string{"check", "--fast", model}, 2, "govern check: flag provided but not defined: -fast"},
 		{"flag without its value", []string{"run", model, "--json"}, 2, "govern run: flag needs an argument: -json"},
 		{"unknown command", []string{"analyse"}, 2, `govern: unknown command "analyse"`},

@@ -10,6 +10,7 @@ import (
 	"os"
 	"path/filepath"
 	"regexp"
+	"slices"
 	"strconv"
 	"strings"
 	"testing"
@@ -157,6 +158,26 @@ func renderedTextTables(t *testing.T, out string) []renderedTable {
 		}
 		if i == len(lines) {
 			t.Fatalf("table %q is not closed", tb.title)
+		}
+		// A table split to fit the terminal: its later parts repeat the
+		// columns that name the rows, and are read back into one.
+		if strings.HasSuffix(tb.title, "(continued)") && len(tables) > 0 {
+			prev := &tables[len(tables)-1]
+			k := 0
+			for k < 2 && k < len(tb.header) && k < len(prev.header) && tb.header[k] == prev.header[k] {
+				k++
+			}
+			if k == 0 || len(tb.rows) != len(prev.rows) {
+				t.Fatalf("table %q does not continue %q: header %q, %d rows against %d", tb.title, prev.title, tb.header, len(tb.rows), len(prev.rows))
+			}
+			prev.header = append(prev.header, tb.header[k:]...)
+			for r := range tb.rows {
+				if !slices.Equal(renderedTexts(tb.rows[r].cells[:k]), renderedTexts(prev.rows[r].cells[:k])) {
+					t.Fatalf("table %q, row %d: %q does not continue %q", tb.title, r, renderedTexts(tb.rows[r].cells[:k]), renderedTexts(prev.rows[r].cells[:k]))
+				}
+				prev.rows[r].cells = append(prev.rows[r].cells, tb.rows[r].cells[k:]...)
+			}
+			continue
 		}
 		tables = append(tables, tb)
 	}

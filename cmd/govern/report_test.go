@@ -406,7 +406,7 @@ func TestRunReportAndOut(t *testing.T) {
 		msg  string
 	}{
 		{"--out with --json", []string{"--out", dir, "--json", "x.json"}, "--out writes report.html, envelopes.json, envelopes.csv and cases.csv"},
-		{"two to standard output", []string{"--report", "-", "--csv", "-"}, "only one of --json, --csv, --cases-csv and --report can go to standard output"},
+		{"two to standard output", []string{"--report", "-", "--csv", "-"}, "only one of --json, --csv, --cases-csv, --design-csv and --report can go to standard output"},
 		{"--out to standard output", []string{"--out", "-"}, "--out names a folder"},
 		{"--compare-patterns with --report", []string{"--compare-patterns", "--report", "x.html"}, "--compare-patterns writes no files"},
 	} {

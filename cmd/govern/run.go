@@ -19,6 +19,7 @@ import (
 
 type runFlags struct {
 	json, csv       string
+	designCSV       string
 	casesCSV        string
 	report, out     string
 	comparePatterns bool
@@ -26,6 +27,7 @@ type runFlags struct {
 	quiet           bool
 	acceptIll       bool
 	strict          bool
+	wide            bool
 	date            string
 }
 
@@ -43,11 +45,13 @@ func (f *runFlags) add(fs *flag.FlagSet) {
 	fs.StringVar(&f.json, "json", "", "write the envelopes as JSON to `FILE` (- for standard output)")
 	fs.StringVar(&f.csv, "csv", "", "write the envelopes as CSV to `FILE` (- for standard output), one row per member, station and effect")
 	fs.StringVar(&f.casesCSV, "cases-csv", "", "write the unfactored results of every load case as CSV to `FILE` (- for standard output): reactions, member end forces and node displacements, one value a row")
+	fs.StringVar(&f.designCSV, "design-csv", "", "write the design values as CSV to `FILE` (- for standard output), one row per member: a beam's moments and shears at its supports' faces, at d from them and in the span, a column's N and M with its end moments M1, M2")
 	fs.StringVar(&f.report, "report", "", "write a report as one self-contained HTML page to `FILE` (- for standard output): the frame and its envelopes drawn, tables floor by floor, reactions, combinations, statics check")
 	fs.StringVar(&f.out, "out", "", "write "+reportName+", "+jsonName+", "+csvName+" and "+casesName+" together into the folder `DIR` (made if missing)")
 	fs.BoolVar(&f.comparePatterns, "compare-patterns", false, "report how far the code pattern arrangements fall short of exact placement, member by member, instead of the envelopes")
 	fs.BoolVar(&f.quiet, "quiet", false, "print nothing on success: no tables, no progress line (files are still written)")
 	fs.BoolVar(&f.crossCheck, "cross-check", false, "solve every case again by moment distribution and print the largest difference in member end moments")
+	fs.BoolVar(&f.wide, "wide", false, fmt.Sprintf("print the tables as wide as their columns make them, instead of splitting those wider than %d characters", report.TextWidth))
 	fs.BoolVar(&f.strict, "strict", false, "treat every warning as an error: a model with numbers that look like a slip of units, or an ill-conditioned stiffness matrix, gives no results")
 	fs.StringVar(&f.date, "date", "", "give every output this run `DATE` (YYYY-MM-DD, or YYYY-MM-DDThh:mm:ssZ in UTC) instead of the time now, so that a run gives the same bytes again; without it SOURCE_DATE_EPOCH (seconds since 1970) is used when set")
 	fs.BoolVar(&f.acceptIll, "accept-ill-conditioned", false, fmt.Sprintf("solve a model whose stiffness matrix has an estimated condition number above %.0e (fewer than three correct digits left), which is refused otherwise; every output then carries the estimate", frame.RefuseCond))
@@ -55,7 +59,7 @@ func (f *runFlags) add(fs *flag.FlagSet) {
 
 var cmdRun = &command{
 	name:  "run",
-	usage: "[--json FILE] [--csv FILE] [--cases-csv FILE] [--report FILE.html | --out DIR] [--quiet] [--compare-patterns] [--cross-check] [--strict] [--accept-ill-conditioned] [--date DATE] MODEL.toml",
+	usage: "[--json FILE] [--csv FILE] [--cases-csv FILE] [--design-csv FILE] [--report FILE.html | --out DIR] [--quiet] [--wide] [--compare-patterns] [--cross-check] [--strict] [--accept-ill-conditioned] [--date DATE] MODEL.toml",
 	short: "analyse a model and report its envelopes",
 	long: fmt.Sprintf(`
 Run reads the model file, solves every load case by the direct stiffness
@@ -75,6 +79,13 @@ are written to a file as well; flags may come before or after the model path.
 The JSON, the report and --cases-csv give the unfactored results of every
 load case (a patterned one with every span loaded): reactions, member end
 forces and node displacements.
+With --design-csv the design values are written as CSV, one row per member
+(docs/output.md): for a beam the least moment at each support's face, the
+largest in the span, the largest shear at each face and, where its section
+gives the effective depth d, at d from it (whether that section may be
+designed for is the user's to confirm: ACI 318-19 9.4.3.2, EN 1992-1-1
+6.2.1(8)); for a column N and M of N max, N min and |M| max, each with the
+end moments M1 and M2 of the same state, M1/M2 and the curvature.
 With --report a report is written as one HTML page that needs no network
 and no script: the frame drawn to scale with its moment, shear, axial
 force and deflection envelopes, the design values and the station tables
@@ -90,7 +101,9 @@ service = true (and the EN 1990 serviceability sets) give deflections:
 of every span of beams from the chord between its displaced ends, of
 every cantilever from its displaced root, of a pitched roof's rafters
 from their chords and its ridge across the line between the eaves, with
-span/deflection (over twice the length for a cantilever); a member
+span/deflection (over twice the length for a cantilever), checked
+against each service combination's limit where it has one (limit = 360
+for span/360); a member
 hanging from a beam or standing on it, free at its other end, does not
 divide its span (docs/output.md); the envelopes of forces are over the
 other (strength or allowable stress) combinations. The tables and the
@@ -102,7 +115,9 @@ environment's SOURCE_DATE_EPOCH) fixes the date, so that a run can be
 repeated byte for byte. Files are written whole or not at all. A run
 that takes more than a second or two shows its progress on standard
 error when that is a terminal; --quiet prints nothing but errors. When JSON or CSV goes to standard
-output the summary tables are not printed.
+output the summary tables are not printed. The tables fit 120 characters:
+a wider one is split into narrower ones, each repeating the columns that
+name its rows; --wide prints them whole.
 
 Every run checks statics for each load case: the reactions against the
 applied loads in X, Y and moment about the lower left corner of the
@@ -231,6 +246,7 @@ const (
 func (f *runFlags) toStdout(stdout io.Writer) {
 	f.json, f.csv, f.report = files.StdoutPath(stdout, f.json), files.StdoutPath(stdout, f.csv), files.StdoutPath(stdout, f.report)
 	f.casesCSV = files.StdoutPath(stdout, f.casesCSV)
+	f.designCSV = files.StdoutPath(stdout, f.designCSV)
 }
 
 // check refuses combinations of flags that cannot be honoured.
@@ -242,19 +258,19 @@ func (f *runFlags) check() error {
 		return usagef("--out names a folder, not standard output")
 	}
 	n := 0
-	for _, p := range []string{f.json, f.csv, f.report, f.casesCSV} {
+	for _, p := range []string{f.json, f.csv, f.report, f.casesCSV, f.designCSV} {
 		if p == "-" {
 			n++
 		}
 	}
 	if n > 1 {
-		return usagef("only one of --json, --csv, --cases-csv and --report can go to standard output")
+		return usagef("only one of --json, --csv, --cases-csv, --design-csv and --report can go to standard output")
 	}
 	if f.crossCheck && n > 0 {
-		return usagef("--cross-check prints a table, so --json, --csv, --cases-csv and --report cannot go to standard output with it")
+		return usagef("--cross-check prints a table, so --json, --csv, --cases-csv, --design-csv and --report cannot go to standard output with it")
 	}
-	if f.comparePatterns && (f.json != "" || f.csv != "" || f.report != "" || f.casesCSV != "" || f.out != "") {
-		return usagef("--compare-patterns writes no files; leave out --json, --csv, --cases-csv, --report and --out")
+	if f.comparePatterns && (f.json != "" || f.csv != "" || f.report != "" || f.casesCSV != "" || f.designCSV != "" || f.out != "") {
+		return usagef("--compare-patterns writes no files; leave out --json, --csv, --cases-csv, --design-csv, --report and --out")
 	}
 	return nil
 }
@@ -265,13 +281,14 @@ func writeResults(stdout io.Writer, model string, f *runFlags, rp *report.Report
 	if err := f.check(); err != nil {
 		return err
 	}
-	toStdout := f.json == "-" || f.csv == "-" || f.report == "-" || f.casesCSV == "-"
+	toStdout := f.json == "-" || f.csv == "-" || f.report == "-" || f.casesCSV == "-" || f.designCSV == "-"
+	rp.Wide = f.wide
 	jsonPath, csvPath, reportPath, casesPath := f.json, f.csv, f.report, f.casesCSV
 	if f.out != "" {
 		jsonPath, csvPath, reportPath, casesPath = filepath.Join(f.out, jsonName), filepath.Join(f.out, csvName), filepath.Join(f.out, reportName), filepath.Join(f.out, casesName)
 	}
 	var outs []files.Output
-	for _, o := range []files.Output{{Path: jsonPath, Write: rp.WriteJSON}, {Path: csvPath, Write: rp.WriteCSV}, {Path: casesPath, Write: rp.WriteCasesCSV}, {Path: reportPath, Write: rp.WriteHTML}} {
+	for _, o := range []files.Output{{Path: jsonPath, Write: rp.WriteJSON}, {Path: csvPath, Write: rp.WriteCSV}, {Path: casesPath, Write: rp.WriteCasesCSV}, {Path: f.designCSV, Write: rp.WriteDesignCSV}, {Path: reportPath, Write: rp.WriteHTML}} {
 		if o.Path != "" {
 			outs = append(outs, o)
 		}

@@ -178,7 +178,7 @@ func TestOutputPathsThatAreNotRegularFiles(t *testing.T) {
 		}
 		errb.Reset()
 		code = govern([]string{"run", "--json", path, "--csv", "-", model}, out, &errb)
-		want := "govern run: only one of --json, --csv, --cases-csv and --report can go to standard output\n"
+		want := "govern run: only one of --json, --csv, --cases-csv, --design-csv and --report can go to standard output\n"
 		if code != 2 || !strings.HasPrefix(errb.String(), want) {
 			t.Errorf("two outputs to standard output: exit %d, %q; want 2 and %q", code, errb.String(), want)
 		}

@@ -37,12 +37,18 @@ const deflectionRoundOff = 1e-9
 // spanDeflection finds the deflection of s over its stations, x along
 // its members from its left end.
 func (r *Result) spanDeflection(s *Span) SpanDeflection {
+	return r.spanDeflectionIn(s, r.Envelope)
+}
+
+// spanDeflectionIn is spanDeflection over the service combinations of
+// env, an envelope of the result's solution with the same stations.
+func (r *Result) spanDeflectionIn(s *Span, env *envelope.Envelope) SpanDeflection {
 	mo := r.Job.Model
 	d := SpanDeflection{Down: Sag{V: math.Inf(1), By: -1}, Up: Sag{V: math.Inf(-1), By: -1}}
 	offset := 0.0
 	prev := s.Left
 	for _, m := range s.Members {
-		em := r.Shown(m)
+		em := ShownMember(env.Members[m], mo.Length(m), Flipped(mo, m))
 		if em.LineDeflection == nil {
 			return SpanDeflection{}
 		}

@@ -198,6 +198,11 @@ type Job struct {
 	Lines  []GridLine
 	Levels []Level
 
+	// EffectiveDepths, nil or one per section of Model, is each section's
+	// effective depth d (length), 0 where not given: the design values
+	// give the shear at d from the face of a support. Run does not use it.
+	EffectiveDepths []float64
+
 	// MemberFactors are factors on the effects of a case in a member
 	// (live load reduction). Not applied yet: Run refuses a job that
 	// gives any.

@@ -79,6 +79,9 @@ type Result struct {
 	lay    *patterns.Layout
 	sol    *frame.Solution
 	spanOf []int // member → index into Spans, -1 for none
+	// The combinations as they were enveloped (favourableSplit), index
+	// for index with the job's.
+	solved []combos.Combination
 }
 
 // Combination is one combination of the job as it was analysed.
@@ -173,6 +176,7 @@ func Run(ctx context.Context, job *Job, opt Options) (*Result, error) {
 	}
 	// The job's combinations, index for index: a favourable factor's split
 	// (favourableSplit) is how they were solved, not what they are.
+	r.solved = env.Combinations
 	env.Combinations = job.Combinations
 	r.Envelope = env
 	r.Combinations = make([]Combination, len(job.Combinations))
@@ -216,6 +220,9 @@ func Run(ctx context.Context, job *Job, opt Options) (*Result, error) {
 			s.Deflection = r.spanDeflection(s)
 		}
 	}
+	if err := r.limitChecks(set); err != nil {
+		return nil, err
+	}
 	r.Warnings = append(r.Warnings, newPlausibility(job).spanWarnings(r)...)
 	return r, nil
 }
@@ -229,6 +236,28 @@ func report(opt Options, p Progress) {
 // SpanOf returns the index in r.Spans of the span, cantilever or rafter
 // member m is part of, -1 for none.
 func (r *Result) SpanOf(m int) int { return r.spanOf[m] }
+
+// EndMoments returns the moments at the start and end of member m, in its
+// own axes, in the state that gives an extreme of its envelope: effect j
+// (0 N, 1 V, 2 M) at the station at x, largest (hi) or smallest, value
+// want, under combination k (see envelope.EndMoments); ok is false when
+// that state does not give want again.
+func (r *Result) EndMoments(m int, x float64, k, j int, hi bool, want float64) (ends [2]float64, ok bool) {
+	return envelope.EndMoments(r.sol, r.solved, r.Envelope.Settings, r.lay, m, x, k, j, hi, want)
+}
+
+// EndMomentsOf is EndMoments for several states of member m at once
+// (envelope.EndMomentsOf).
+func (r *Result) EndMomentsOf(m int, states []envelope.State) []envelope.State {
+	return envelope.EndMomentsOf(r.sol, r.solved, r.Envelope.Settings, r.lay, m, states)
+}
+
+// StationsAt returns the envelopes of member m, in its own axes, at the
+// points xs from its start, over the strength combinations as the
+// envelope forms them (see envelope.StationsAt).
+func (r *Result) StationsAt(m int, xs []float64) ([]envelope.Station, error) {
+	return envelope.StationsAt(r.sol, r.solved, r.Envelope.Settings, r.lay, m, xs)
+}
 
 // endForces returns member m's end forces in load case c, adding up the
 // loads the case was solved as when it is patterned.

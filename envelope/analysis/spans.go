@@ -84,6 +84,9 @@ type Span struct {
 	// Deflection is over the service combinations; its Found is false
 	// when there are none.
 	Deflection SpanDeflection
+	// Limits holds the deflection under each service combination with a
+	// limit, against it (limitChecks); none for a ridge or valley.
+	Limits []LimitCheck
 }
 
 // RatioLength is the length span/deflection is taken over: the length of

@@ -135,6 +135,8 @@ func (p *Report) htmlCases(h *htmlOut) error {
 	h.raw("<section id=\"cases\" class=\"part\">\n<h2>Load case results</h2>\n")
 	h.printf("<p>Each load case alone, unfactored; a patterned case with every span loaded. Reactions in global axes (Fx +X, Fy +Y, M counter-clockwise), only where a support or spring holds the node. Member end forces as the other tables show them: beams and rafters from the left end (+M sagging), columns from the start node (+M with the local −y face in tension); N + in tension, V = dM/dx. Displacements in global axes, rotation in radians counter-clockwise. Lengths in %s.</p>\n", esc(u.Length))
 	tb := htmlTables{h: h, heading: "h4"}
+	bulk := htmlTables{h: h, heading: "h4", noPrint: true}
+	h.raw("<p class=\"print\">The member end forces and node displacements of each case are not printed: they are in the report on screen and in the cases CSV.</p>\n")
 	for _, c := range p.cases() {
 		h.printf("<h3>%s</h3>\n", esc(c.Name))
 		var rows [][]string
@@ -161,7 +163,8 @@ func (p *Report) htmlCases(h *htmlOut) error {
 			rows = append(rows, []string{mo.Members[e.Member].Name, mo.Nodes[from].Name, fixed(p.force.Of(a.N)), fixed(p.force.Of(a.V)), fixed(p.moment.Of(a.M)),
 				mo.Nodes[to].Name, fixed(p.force.Of(b.N)), fixed(p.force.Of(b.V)), fixed(p.moment.Of(b.M))})
 		}
-		if err := tb.flow(Table{"Member end forces of " + c.Name, []string{"member", "from", "N (" + f + ")", "V (" + f + ")", "M (" + m + ")", "to", "N (" + f + ")", "V (" + f + ")", "M (" + m + ")"}, rows}, 2); err != nil {
+		// Bulk data, in the cases CSV too: shown on screen, not printed.
+		if err := bulk.flow(Table{"Member end forces of " + c.Name, []string{"member", "from", "N (" + f + ")", "V (" + f + ")", "M (" + m + ")", "to", "N (" + f + ")", "V (" + f + ")", "M (" + m + ")"}, rows}, 2); err != nil {
 			return err
 		}
 		rows = nil
@@ -172,7 +175,7 @@ func (p *Report) htmlCases(h *htmlOut) error {
 			}
 			rows = append(rows, []string{mo.Nodes[x.Node].Name, sig4(p.defl.Of(x.Ux)), sig4(p.defl.Of(x.Uy)), rz})
 		}
-		if err := tb.flow(Table{"Node displacements of " + c.Name, []string{"node", "ux (" + d + ")", "uy (" + d + ")", "rz (rad)"}, rows}, 3); err != nil {
+		if err := bulk.flow(Table{"Node displacements of " + c.Name, []string{"node", "ux (" + d + ")", "uy (" + d + ")", "rz (rad)"}, rows}, 3); err != nil {
 			return err
 		}
 	}

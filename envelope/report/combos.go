@@ -74,17 +74,17 @@ func WriteCombinations(w io.Writer, job *analysis.Job) error {
 		rows = append(rows, row)
 	}
 	fmt.Fprintf(w, "Load cases\n")
-	if err := renderTable(w, header, rows); err != nil {
+	if err := renderFitted(w, "", header, rows, TextWidth); err != nil {
 		return err
 	}
 	if job.Actions != nil {
 		fmt.Fprintf(w, "\nActions (two alternatives of one action never act together)\n")
-		if err := renderTable(w, []string{"action", "kind", "alternatives: cases"}, actionRows(job)); err != nil {
+		if err := renderFitted(w, "", []string{"action", "kind", "alternatives: cases"}, actionRows(job), TextWidth); err != nil {
 			return err
 		}
 	}
 	fmt.Fprintf(w, "\nLoad combinations (factor on each load case)\n")
-	if err := renderTable(w, combinationHeader(job), combinationRows(job, combos.FormatFactor)); err != nil {
+	if err := renderFitted(w, "", combinationHeader(job), combinationRows(job, combos.FormatFactor), TextWidth); err != nil {
 		return err
 	}
 	if u := unusedText(job); u != "" {

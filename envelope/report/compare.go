@@ -36,5 +36,5 @@ func WriteComparison(w io.Writer, job *analysis.Job, rows []analysis.Shortfall) 
 		}
 		out = append(out, []string{name, fmt.Sprintf("%s (%s)", memberForces[r.Effect], s.Label), side, fixed(r.X), fixed(s.Of(r.Exact)), fixed(s.Of(r.Code)), fixed(r.Percent), strings.Join(r.Pieces, " ")})
 	}
-	return renderTable(w, []string{"member", "effect", "extreme", "at x (" + u.Length + ")", "exact", "code", "shortfall (%)", "pieces that make the difference"}, out)
+	return renderFitted(w, "", []string{"member", "effect", "extreme", "at x (" + u.Length + ")", "exact", "code", "shortfall (%)", "pieces that make the difference"}, out, TextWidth)
 }

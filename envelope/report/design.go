@@ -19,12 +19,14 @@ type Table struct {
 
 // design is every table of design values of a report, as formed once.
 type design struct {
-	governing  string // the note above the design values
-	groups     []groupDesign
-	deflection *Table // nil without service combinations or spans
-	reactions  *Table // nil without supports
-	staticsTop string // the note above the statics table
-	statics    Table
+	governing     string // the note above the design values
+	groups        []groupDesign
+	deflection    *Table // nil without service combinations or spans
+	limits        *Table // nil without a limited service combination or spans
+	reactions     *Table // nil without supports
+	withReactions *Table // each extreme with its concurrent reaction; nil without supports
+	staticsTop    string // the note above the statics table
+	statics       Table
 }
 
 // groupDesign is the tables of one floor, column line or the others.
@@ -46,10 +48,21 @@ func (p *Report) Tables() []Table {
 	if d.deflection != nil {
 		out = append(out, *d.deflection)
 	}
+	if d.limits != nil {
+		out = append(out, *d.limits)
+	}
 	if d.reactions != nil {
-		out = append(out, *d.reactions)
+		out = append(out, *d.reactions, *d.withReactions)
 	}
 	return append(out, d.statics)
+}
+
+// lowerFirst returns s with its first letter in lower case.
+func lowerFirst(s string) string {
+	if s == "" {
+		return s
+	}
+	return strings.ToLower(s[:1]) + s[1:]
 }
 
 func newDesign(p *Report) *design {
@@ -77,7 +90,9 @@ func newDesign(p *Report) *design {
 		d.groups = append(d.groups, gd)
 	}
 	d.deflection = p.deflectionTable()
+	d.limits = p.limitTable()
 	d.reactions = p.reactionTable()
+	d.withReactions = p.reactionStateTable()
 	d.staticsTop, d.statics = p.staticsTable()
 	return d
 }
@@ -137,13 +152,19 @@ func (p *Report) groupTables(g groupDesign) []Table {
 	u := p.units()
 	force, moment, at := p.force.Label, p.moment.Label, "at x ("+u.Length+")"
 	if g.Kind != analysis.Floor {
-		return []Table{{g.title, columnHeader(force, moment, u.Length), p.columnRows(g.Members)}}
+		return []Table{{g.title, columnHeader(force, moment, u.Length), p.columnRows(g.Members)},
+			{"End moments, " + lowerFirst(g.title) + ": each governing value with the forces acting with it and the moments at the member's ends in the same state (the same combination and pieces loaded)", stateHeader(force, moment, u.Length, p.pieces() > 0), p.stateRows(g.Members)}}
 	}
 	patterned := p.pieces() > 0
-	header := []string{"beam", "+M (" + moment + ")", at, "governing", "-M (" + moment + ")", at, "governing", "|V| (" + force + ")", at, "governing"}
+	header := []string{"beam", "+M (" + moment + ")", at, "governing"}
 	if patterned {
-		header = []string{"beam", "+M (" + moment + ")", at, "governing", "spans loaded", "-M (" + moment + ")", at, "governing", "spans loaded", "|V| (" + force + ")", at, "governing"}
+		header = append(header, "spans loaded")
 	}
+	header = append(header, "with V ("+force+")", "-M ("+moment+")", at, "governing")
+	if patterned {
+		header = append(header, "spans loaded")
+	}
+	header = append(header, "with V ("+force+")", "|V| ("+force+")", at, "governing", "with M ("+moment+")")
 	var rows [][]string
 	for _, m := range g.Members {
 		pk := memberPeaks(p.shown(m))
@@ -152,11 +173,11 @@ func (p *Report) groupTables(g groupDesign) []Table {
 		if patterned {
 			row = append(row, p.shortSpans(pk.hi[2].spans, pk.hi[2].loaded))
 		}
-		row = append(row, fixed(p.moment.Of(pk.lo[2].v)), fixed(pk.lo[2].x), p.comboName(pk.lo[2].by))
+		row = append(row, fixed(p.force.Of(pk.hi[2].with[1])), fixed(p.moment.Of(pk.lo[2].v)), fixed(pk.lo[2].x), p.comboName(pk.lo[2].by))
 		if patterned {
 			row = append(row, p.shortSpans(pk.lo[2].spans, pk.lo[2].loaded))
 		}
-		row = append(row, fixed(p.force.Of(v.v)), fixed(v.x), p.comboName(v.by))
+		row = append(row, fixed(p.force.Of(pk.lo[2].with[1])), fixed(p.force.Of(v.v)), fixed(v.x), p.comboName(v.by), fixed(p.moment.Of(v.with[2])))
 		rows = append(rows, row)
 	}
 	out := []Table{{g.title, header, rows}}
@@ -285,6 +306,80 @@ func (p *Report) reactionTable() *Table {
 	return &Table{"Reactions (global: +X right, +Y up, M counter-clockwise)", []string{"node", "component", "max", "governing", "min", "governing"}, rows}
 }
 
+// reactionStateTable gives, for every restrained reaction component of
+// every support, its largest and smallest value with the reaction acting
+// with it at that node in the same state (the same combination and loaded
+// pieces): what a foundation is designed for. nil without supports.
+func (p *Report) reactionStateTable() *Table {
+	env := p.res.Envelope
+	if len(env.Reactions) == 0 {
+		return nil
+	}
+	mo := p.model()
+	// The largest size of each component over every support, for what
+	// counts as zero.
+	var largest [3]float64
+	for _, r := range env.Reactions {
+		for d, e := range [3]envelope.Extreme{r.Fx, r.Fy, r.M} {
+			if mo.Nodes[r.Node].Support.Restrained(d) {
+				largest[d] = math.Max(largest[d], math.Max(math.Abs(e.Max), math.Abs(e.Min)))
+			}
+		}
+	}
+	// by names the combination of a value, "-" for one that is zero to
+	// round-off: no combination governs it.
+	by := func(d int, v float64, k int) string {
+		if math.Abs(v) <= reactionRoundOff*largest[d] {
+			return "-"
+		}
+		return p.comboName(k)
+	}
+	patterned := p.pieces() > 0
+	comps := [3]struct {
+		name string
+		s    analysis.Shown
+	}{{"Fx", p.force}, {"Fy", p.force}, {"M", p.moment}}
+	var rows [][]string
+	for _, r := range env.Reactions {
+		node := mo.Nodes[r.Node]
+		name := node.Name
+		for d, x := range [3]envelope.Extreme{r.Fx, r.Fy, r.M} {
+			if !node.Reacts(d) {
+				continue
+			}
+			for _, e := range [2]struct {
+				what   string
+				v      float64
+				k      int
+				with   [3]float64
+				spans  []int
+				loaded int
+			}{{"max", x.Max, x.MaxBy, x.MaxWith, x.MaxSpans, x.MaxLoaded}, {"min", x.Min, x.MinBy, x.MinWith, x.MinSpans, x.MinLoaded}} {
+				row := []string{name, comps[d].name + " " + e.what, fixed(comps[d].s.Of(e.v)), by(d, e.v, e.k)}
+				if patterned {
+					row = append(row, p.shortSpans(e.spans, e.loaded))
+				}
+				for c, w := range e.with {
+					if node.Reacts(c) {
+						row = append(row, fixed(comps[c].s.Of(w)))
+					} else {
+						row = append(row, "-")
+					}
+				}
+				rows = append(rows, row)
+				name = ""
+			}
+		}
+	}
+	f, m := p.force.Label, p.moment.Label
+	header := []string{"node", "extreme", "value", "governing"}
+	if patterned {
+		header = append(header, "spans loaded")
+	}
+	header = append(header, "with Fx ("+f+")", "with Fy ("+f+")", "with M ("+m+")")
+	return &Table{"Foundation loads: each extreme of a reaction with the whole reaction at its node in the same state, the same combination and pieces loaded (global: +X right, +Y up, M counter-clockwise)", header, rows}
+}
+
 // spanName names a span, cantilever or rafter by its end nodes, left to
 // right, and a ridge or valley by its node.
 func (p *Report) spanName(s *analysis.Span) string {
@@ -359,6 +454,40 @@ func (p *Report) deflectionTable() *Table {
 		title += "; rafters (the straight parts of a run that changes slope) from the chord between their displaced ends; a ridge or valley, where the slope changes, across the line between the ends of its run, from the chord between them"
 	}
 	return &Table{title, []string{"span", "kind", "members", "level", "length (" + l + ")", "down (" + d + ")", "at x (" + l + ")", "governing", "up (" + d + ")", "at x (" + l + ")", "governing", "span/deflection (cantilever: 2 × length)"}, rows}
+}
+
+// limitTable gives, span by span and cantilever by cantilever, each
+// service combination with a limit: the largest deflection under it alone
+// and where, span/deflection and whether it passes (at least the limit)
+// or exceeds it; nil without one.
+func (p *Report) limitTable() *Table {
+	u := p.units()
+	var rows [][]string
+	for i := range p.res.Spans {
+		r := &p.res.Spans[i]
+		name := p.spanName(r)
+		for _, c := range r.Limits {
+			d := c.Deflection.Largest
+			row := []string{name, r.Kind.String(), p.comboName(c.Combination), "L/" + shortest(c.Limit)}
+			if d.By >= 0 {
+				row = append(row, sig4(p.defl.Of(d.V)), fixed(d.X))
+			} else {
+				row = append(row, "0", "-")
+			}
+			check := "pass"
+			if !c.Pass() {
+				check = "EXCEEDS"
+			}
+			rows = append(rows, append(row, ratio(c.Deflection.Ratio), check))
+			name = ""
+		}
+	}
+	if len(rows) == 0 {
+		return nil
+	}
+	l, d := u.Length, p.defl.Label
+	return &Table{fmt.Sprintf("Deflection limits: every service combination with a limit, on every span and cantilever, under that combination alone (+ up; deflections in %s, x in %s from the left end; a cantilever's span/deflection over twice its length)", d, l),
+		[]string{"span", "kind", "combination", "limit", "largest (" + d + ")", "at x (" + l + ")", "span/deflection", "check"}, rows}
 }
 
 // staticsTable gives the statics check of every case, with the note

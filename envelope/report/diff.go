@@ -380,7 +380,7 @@ func (d *DiffResult) WriteText(w io.Writer) error {
 		if !kind.hasX {
 			header = append(header[:4], header[5:]...)
 		}
-		if err := renderTable(w, header, rows); err != nil {
+		if err := renderFitted(w, "", header, rows, TextWidth); err != nil {
 			return err
 		}
 	}

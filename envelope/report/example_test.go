@@ -19,7 +19,9 @@ import (
 // −wL²/8 = −63 kN·m and the largest shear 5wL/8 = 52.5 kN at the fixed
 // end, the roller's reaction 3wL/8 = 31.5 kN, and in the span
 // M = 31.5s − 7s² at s from b: 35.28 kN·m at the station x = 3.6 m
-// (9wL²/128 = 35.44 kN·m at x = 3.75 m, between stations).
+// (9wL²/128 = 35.44 kN·m at x = 3.75 m, between stations), where the
+// shear acting with it is 14·(3.75 − 3.6) = 2.1 kN; the shear at the
+// fixed end acts with −63 kN·m and the hogging moment with 52.5 kN.
 func ExampleReport_Tables() {
 	const l = 6.0
 	job := &analysis.Job{
@@ -48,8 +50,8 @@ func ExampleReport_Tables() {
 	}
 	// Output:
 	// Beams at level 0 (y = 0.00 m)
-	// beam | +M (kN·m) | at x (m) | governing | -M (kN·m) | at x (m) | governing | |V| (kN) | at x (m) | governing
-	// a-b | 35.28 | 3.60 | 1.4D | -63.00 | 0.00 | 1.4D | 52.50 | 0.00 | 1.4D
+	// beam | +M (kN·m) | at x (m) | governing | with V (kN) | -M (kN·m) | at x (m) | governing | with V (kN) | |V| (kN) | at x (m) | governing | with M (kN·m)
+	// a-b | 35.28 | 3.60 | 1.4D | 2.10 | -63.00 | 0.00 | 1.4D | 52.50 | 52.50 | 0.00 | 1.4D | -63.00
 	// Reactions (global: +X right, +Y up, M counter-clockwise)
 	// node | component | max | governing | min | governing
 	// a | Fx (kN) | 0.00 | - | 0.00 | -

@@ -13,7 +13,10 @@ import (
 )
 
 // reportStyle is the report's whole style sheet: plain, and printable on
-// A4 or Letter paper in landscape.
+// A4 or Letter paper in landscape. In print the tables are set smaller
+// and the station tables, data rather than a calculation, are left out
+// (a line says where they are), so that a 45-member frame prints in
+// about 15 pages.
 const reportStyle = `
 @page { size: landscape; margin: 10mm; }
 body { font: 10pt/1.35 "Helvetica Neue", Arial, sans-serif; color: #111; margin: 1.5em auto; max-width: 1400px; padding: 0 1em; }
@@ -40,7 +43,7 @@ figure { margin: .5em 0 1.2em; break-inside: avoid; }
 figcaption { font-size: 8.5pt; color: #333; }
 svg { display: block; width: 100%; height: auto; max-height: 170mm; }
 svg line, svg path, svg circle, svg rect { vector-effect: non-scaling-stroke; }
-svg text { font-family: Arial, sans-serif; fill: #111; }
+svg text { font-family: Arial, "Liberation Sans", Helvetica, sans-serif; fill: #111; }
 .m line { stroke: #222; stroke-width: 1.8px; }
 .g line { stroke: #999; stroke-width: 1px; }
 .sup path, .sup rect { fill: #fff; stroke: #222; stroke-width: 1px; }
@@ -63,10 +66,21 @@ section.part { break-before: page; }
 .flow3 { columns: 3; }
 .flow2 table, .flow3 table { margin-top: 0; }
 figure.ld svg { max-height: 80mm; }
+p.print { display: none; }
 @media print {
-  body { margin: 0; padding: 0; max-width: none; font-size: 9pt; }
-  table { font-size: 7.5pt; }
-  table.st { font-size: 6.5pt; }
+  body { margin: 0; padding: 0; max-width: none; font-size: 8.5pt; line-height: 1.15; }
+  h2 { margin: 1em 0 .3em; }
+  h3 { margin: .5em 0 .2em; }
+  h4 { margin: .4em 0 .1em; }
+  p { margin: .2em 0 .3em; }
+  table { font-size: 6.5pt; margin: .2em 0 .5em; }
+  th, td { padding: 0 2px; line-height: 1.1; }
+  table.st, h4.st, .np { display: none; }
+  figure.ld svg { max-height: 50mm; }
+  section.part { break-before: auto; }
+  #moment, #shear, #axial, #deflection { break-before: page; }
+  #deflection svg { max-height: 100mm; }
+  p.print { display: block; font-size: 7pt; color: #444; }
   .flow2 table, .flow3 table { font-size: 6.5pt; }
   nav { display: none; }
 }
@@ -136,7 +150,13 @@ func (p *Report) WriteHTML(w io.Writer) error {
 	tb := htmlTables{h: h, heading: "h4"}
 	for _, g := range d.groups {
 		h.printf("<section id=\"%s\">\n<h3>%s</h3>\n", esc(g.id), esc(g.title))
-		for _, t := range g.tables {
+		for i, t := range g.tables {
+			tt := tb
+			if g.Kind != analysis.Floor && i == 0 && len(g.tables) > 1 {
+				// The table of end moments after it holds every value.
+				tt.noPrint = true
+				h.raw("<p class=\"print\">The summary table of these members is not printed: the table of end moments holds each of its values.</p>\n")
+			}
 			// The section's heading names the group already.
 			t.Title = strings.TrimPrefix(t.Title, g.title)
 			if t.Title == "" {
@@ -145,7 +165,7 @@ func (p *Report) WriteHTML(w io.Writer) error {
 				t.Title = strings.TrimPrefix(t.Title, ": ")
 				t.Title = strings.ToUpper(t.Title[:1]) + t.Title[1:]
 			}
-			if err := tb.table(t); err != nil {
+			if err := tt.table(t); err != nil {
 				return err
 			}
 		}
@@ -158,6 +178,11 @@ func (p *Report) WriteHTML(w io.Writer) error {
 	if t := d.reactions; t != nil {
 		r := *t
 		r.Title = strings.TrimPrefix(r.Title, "Reactions ")
+		h.raw("<p class=\"print\">The envelope of the reactions is not printed: the foundation loads below hold each of its values.</p>\n")
+		if err := (htmlTables{h: h, heading: "h3", noPrint: true}).table(r); err != nil {
+			return err
+		}
+		r = *d.withReactions
 		if err := (htmlTables{h: h, heading: "h3"}).table(r); err != nil {
 			return err
 		}
@@ -280,16 +305,36 @@ func (p *Report) htmlFigures(h *htmlOut) error {
 
 	h.raw("<section id=\"elevation\" class=\"part\">\n<h2>Elevation</h2>\n<figure>\n")
 	d.open(h, "elevation of the frame")
-	d.elevation(h)
+	left := d.elevation(h)
 	h.raw("</svg>\n")
-	h.printf("<figcaption>The frame to scale, with node and member names. Supports: filled bar fixed, triangle pinned, triangle on a line roller (free along X). An open circle on a member marks a moment release (hinge) at that end.</figcaption>\n</figure>\n</section>\n")
+	h.printf("<figcaption>The frame to scale, with node and member names. Supports: filled bar fixed, triangle pinned, triangle on a line roller (free along X). An open circle on a member marks a moment release (hinge) at that end.%s</figcaption>\n</figure>\n</section>\n", leftOut(left, "names", "the tables name every node and member"))
 
-	figure := func(id, title, label, caption string, members []int, dg diagram) {
+	// figure draws a diagram; caption may hold one %s, for the scale.
+	figure := func(id, title, label, caption string, members []int, dg diagram, scaleText func(float64) string) {
 		h.printf("<section id=\"%s\" class=\"part\">\n<h2>%s</h2>\n<figure>\n", id, esc(title))
 		d.open(h, label)
-		d.envelopes(h, p, members, dg)
+		scale, dropped := d.envelopes(h, p, members, dg)
 		h.raw("</svg>\n")
-		h.printf("<figcaption>%s %s</figcaption>\n</figure>\n</section>\n", caption, key)
+		if scaleText != nil {
+			caption += " " + scaleText(scale)
+		}
+		h.printf("<figcaption>%s%s %s</figcaption>\n</figure>\n", caption, leftOut(dropped, "values", "every value is in the tables"), key)
+		if dropped > 0 && dg.ends {
+			// Too dense to write every value: the beams again, floor by
+			// floor, each floor's drawing fitted to its beams.
+			for _, g := range p.tables().groups {
+				if g.Kind != analysis.Floor || len(g.Members) == 0 {
+					continue
+				}
+				fd := newDrawingOf(mo, g.Members)
+				h.printf("<figure class=\"floor\">\n")
+				fd.open(h, label+", "+g.title)
+				_, left := fd.envelopes(h, p, g.Members, dg)
+				h.raw("</svg>\n")
+				h.printf("<figcaption>%s: %s, to a scale of its own.%s</figcaption>\n</figure>\n", esc(title), esc(lowerFirst(g.title)), leftOut(left, "values", "every value is in the tables"))
+			}
+		}
+		h.raw("</section>\n")
 	}
 	forces := func(j int) func(em envelope.Member, i int) envelope.Extreme {
 		return func(em envelope.Member, i int) envelope.Extreme {
@@ -299,25 +344,47 @@ func (p *Report) htmlFigures(h *htmlOut) error {
 	}
 	figure("moment", "Moment envelope", "moment envelope",
 		fmt.Sprintf("Bending moment M (%s) over %s, along every member, drawn on the tension side: sagging below a beam. Values: the larger in size at each end, and the largest sagging moment where it peaks within a member.", esc(p.moment.Label), over),
-		all, diagram{get: forces(2), side: -1, ends: true, span: true, format: shownShort(p.moment)})
+		all, diagram{get: forces(2), side: -1, ends: true, span: true, format: shownShort(p.moment)}, nil)
 	figure("shear", "Shear envelope", "shear envelope",
 		fmt.Sprintf("Shear force V (%s) over %s, positive drawn above a beam and on the local +y side of a column (left of a column drawn upwards). Values: the larger in size at each end.", esc(p.force.Label), over),
-		all, diagram{get: forces(1), side: 1, ends: true, format: shownShort(p.force)})
+		all, diagram{get: forces(1), side: 1, ends: true, format: shownShort(p.force)}, nil)
 	if len(cols) > 0 {
 		figure("axial", "Axial force envelope of the columns", "axial force envelope",
 			fmt.Sprintf("Axial force N (%s) of the columns over %s, tension positive, drawn on the local +y side (left of a column drawn upwards). Value at mid-height: smallest / largest.", esc(p.force.Label), over),
-			cols, diagram{get: forces(0), side: 1, middle: true, format: shownShort(p.force)})
+			cols, diagram{get: forces(0), side: 1, middle: true, format: shownShort(p.force)}, nil)
 	}
 	if p.service() > 0 {
 		figure("deflection", "Deflection envelope", "deflection envelope",
 			fmt.Sprintf("Deflection (%s) over the service combinations, drawn as it moves, exaggerated: of beams and rafters from the chord between the displaced ends of their span, or for a cantilever from its displaced root; of columns from their own chord. Value: the largest of each span and cantilever, with span/deflection (twice the length for a cantilever).", esc(p.defl.Label)),
-			all, diagram{get: analysis.ShownDeflection, side: 1, sag: true, format: func(v float64) string { return sig4(p.defl.Of(v)) }})
+			all, diagram{get: analysis.ShownDeflection, side: 1, sag: true, format: func(v float64) string { return sig4(p.defl.Of(v)) }},
+			func(scale float64) string {
+				if scale == 0 {
+					return "Nothing deflects."
+				}
+				return fmt.Sprintf("Scale: deflections drawn %s times their true size, lengths to scale.", sig4(scale))
+			})
 		// The table below the figure is the terminal's.
-		if t := p.tables().deflection; t != nil {
-			return htmlTables{h: h, heading: "h3"}.table(*t)
+		for _, t := range []*Table{p.tables().deflection, p.tables().limits} {
+			if t != nil {
+				if err := (htmlTables{h: h, heading: "h3"}).table(*t); err != nil {
+					return err
+				}
+			}
 		}
 	}
 	return h.err
+}
+
+// leftOut says how many labels of a drawing were left out for want of
+// room, and where they are found; "" for none.
+func leftOut(n int, what, where string) string {
+	if n == 0 {
+		return ""
+	}
+	if n == 1 {
+		return fmt.Sprintf(" 1 of the %s is left out where it would overlap others; %s.", what, where)
+	}
+	return fmt.Sprintf(" %d %s are left out where they would overlap others; %s.", n, what, where)
 }
 
 // stationTable writes the envelope at every station of the members of a
@@ -328,7 +395,7 @@ func (p *Report) stationTable(h *htmlOut, members []int) {
 	env := p.res.Envelope
 	defl := p.service() > 0
 	cols := 14
-	h.raw("<h4>Stations</h4>\n<table class=\"st\">\n<thead><tr>")
+	h.raw("<h4 class=\"st\">Stations</h4>\n<p class=\"print\">The envelope at every station of these members is in the report on screen and in the CSV; it is not printed.</p>\n<table class=\"st\">\n<thead><tr>")
 	f, mu := p.force.Label, p.moment.Label
 	head := []string{"x (" + u.Length + ")", "", "N max (" + f + ")", "comb.", "N min (" + f + ")", "comb.",
 		"V max (" + f + ")", "comb.", "V min (" + f + ")", "comb.", "M max (" + mu + ")", "comb.", "M min (" + mu + ")", "comb."}
@@ -482,6 +549,9 @@ func badXML(r rune) bool {
 type htmlTables struct {
 	h       *htmlOut
 	heading string // "h3", "h4"
+	// noPrint leaves the tables out in print (class np): another table
+	// that is printed holds each of their values.
+	noPrint bool
 }
 
 func (t htmlTables) note(text string) error {
@@ -499,11 +569,15 @@ func (t htmlTables) note(text string) error {
 // flow writes a long, narrow table flowing in n columns of the page
 // (2 or 3), so that it takes fewer pages.
 func (t htmlTables) flow(tb Table, n int) error {
+	class, attr := "", ""
+	if t.noPrint {
+		class, attr = " np", ` class="np"`
+	}
 	if tb.Title != "" {
-		t.h.printf("<%s>%s</%s>\n", t.heading, esc(tb.Title), t.heading)
+		t.h.printf("<%s%s>%s</%s>\n", t.heading, attr, esc(tb.Title), t.heading)
 		tb.Title = ""
 	}
-	t.h.printf("<div class=\"flow%d\">\n", n)
+	t.h.printf("<div class=\"flow%d%s\">\n", n, class)
 	err := t.table(tb)
 	t.h.raw("</div>\n")
 	return err
@@ -511,10 +585,14 @@ func (t htmlTables) flow(tb Table, n int) error {
 
 func (t htmlTables) table(tb Table) error {
 	h := t.h
-	if tb.Title != "" {
-		h.printf("<%s>%s</%s>\n", t.heading, esc(tb.Title), t.heading)
+	class := ""
+	if t.noPrint {
+		class = ` class="np"`
 	}
-	h.raw("<table>\n")
+	if tb.Title != "" {
+		h.printf("<%s%s>%s</%s>\n", t.heading, class, esc(tb.Title), t.heading)
+	}
+	h.printf("<table%s>\n", class)
 	if len(tb.Header) > 0 {
 		h.raw("<thead><tr>")
 		for _, c := range tb.Header {

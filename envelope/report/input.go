@@ -153,10 +153,10 @@ func (p *Report) htmlLoads(h *htmlOut) error {
 		}
 		h.raw("<figure class=\"ld\">\n")
 		d.open(h, "loads of case "+cs.Name)
-		d.loads(h, cs)
+		left := d.loads(h, cs)
 		h.raw("</svg>\n")
-		h.printf("<figcaption>Loads of %s on the elevation: distributed loads as blocks with their intensity (%s/%s), point loads and node forces as arrows (%s), moments as arcs (%s).</figcaption>\n</figure>\n</section>\n",
-			esc(cs.Name), esc(u.Force), esc(u.Length), esc(u.Force), esc(u.Moment()))
+		h.printf("<figcaption>Loads of %s on the elevation: distributed loads as blocks with their intensity (%s/%s), point loads and node forces as arrows (%s), moments as arcs (%s).%s</figcaption>\n</figure>\n</section>\n",
+			esc(cs.Name), esc(u.Force), esc(u.Length), esc(u.Force), esc(u.Moment()), leftOut(left, "values", "the tables above give every load"))
 	}
 	h.raw("</section>\n")
 	return h.err
@@ -240,7 +240,7 @@ func (p *Report) memberLoadRows(cs frame.Case) [][]string {
 // blocks beside their members (stacked where several act on one), to one
 // scale within the case; point loads and node forces as arrows of one
 // length; moments as arcs; each with its value.
-func (d *drawing) loads(h *htmlOut, cs frame.Case) {
+func (d *drawing) loads(h *htmlOut, cs frame.Case) int {
 	mo := d.mo
 	d.members(h, "m")
 	big := 0.0
@@ -253,6 +253,13 @@ func (d *drawing) loads(h *htmlOut, cs frame.Case) {
 	arrow := 0.22 * d.u // length of a point load's arrow
 	fs := 0.06 * d.u
 	h.printf(`<g class="ld" font-size="%s">`+"\n", svgNum(fs))
+	// The values are placed at the end so that none overlaps another
+	// (labelSet): each where it belongs if there is room, else moved
+	// along and up by steps.
+	vals := &labelSet{fs: fs}
+	put := func(x, y float64, anchor, text string) {
+		vals.add(label{text: text, at: around(pos{x, y, anchor}, 1, 0, 0, -1, 0.9*fs), rank: 1})
+	}
 	stack := make([]float64, len(mo.Members)) // picture units used beside each member
 	// pointer draws an arrow ending at (x, y) from direction (ux, uy) (unit,
 	// picture axes), with a label at its tail.
@@ -261,19 +268,19 @@ func (d *drawing) loads(h *htmlOut, cs frame.Case) {
 		h.printf(`<line x1="%s" y1="%s" x2="%s" y2="%s"/>`, svgNum(tx), svgNum(ty), svgNum(x), svgNum(y))
 		hx, hy := 0.04*d.u, 0.02*d.u
 		h.printf(`<path d="M%s %s L%s %s L%s %s Z"/>`, svgNum(x), svgNum(y), svgNum(x-ux*hx-uy*hy), svgNum(y-uy*hx+ux*hy), svgNum(x-ux*hx+uy*hy), svgNum(y-uy*hx-ux*hy))
-		h.printf(`<text x="%s" y="%s" text-anchor="middle">%s</text>`, svgNum(tx-ux*0.3*fs), svgNum(ty-uy*0.6*fs+0.35*fs), esc(text))
+		put(tx-ux*0.3*fs, ty-uy*0.6*fs+0.35*fs, "middle", text)
 	}
 	for _, ld := range cs.MemberLoads {
 		m := ld.Member
 		switch {
 		case ld.Thermal:
 			x, y := d.on(m, mo.Length(m)/2, 0)
-			h.printf(`<text x="%s" y="%s" text-anchor="middle">ΔT %s / %s</text>`, svgNum(x), svgNum(y+1.2*fs), esc(short(ld.DT)), esc(short(ld.DTGrad)))
+			put(x, y+1.2*fs, "middle", "ΔT "+short(ld.DT)+" / "+short(ld.DTGrad))
 		case ld.Moment:
 			x, y := d.on(m, ld.At, 0)
 			r := 0.07 * d.u
 			h.printf(`<path class="arc" d="M%s %s A%s %s 0 1 0 %s %s"/>`, svgNum(x+r), svgNum(y), svgNum(r), svgNum(r), svgNum(x), svgNum(y-r))
-			h.printf(`<text x="%s" y="%s" text-anchor="start">%s</text>`, svgNum(x+r), svgNum(y-r), esc(short(ld.M)))
+			put(x+r, y-r, "start", short(ld.M))
 		case ld.Point:
 			x, y := d.on(m, ld.At, 0)
 			if ld.Direction == frame.GlobalX {
@@ -293,7 +300,7 @@ func (d *drawing) loads(h *htmlOut, cs frame.Case) {
 			if ld.Direction == frame.GlobalX {
 				arrowText = " →"
 			}
-			h.printf(`<text x="%s" y="%s" text-anchor="start">%s</text>`, svgNum(x+0.3*fs+stack[m]), svgNum(y), esc(text+arrowText))
+			put(x+0.3*fs+stack[m], y, "start", text+arrowText)
 			stack[m] += (float64(len(text)) + 3) * 0.6 * fs
 		default:
 			// A block beside the member, on the side the load comes from:
@@ -323,7 +330,7 @@ func (d *drawing) loads(h *htmlOut, cs frame.Case) {
 			if ux < 0 {
 				anchor = "end"
 			}
-			h.printf(`<text x="%s" y="%s" text-anchor="%s">%s</text>`, svgNum(mx), svgNum(my), anchor, esc(text))
+			put(mx, my, anchor, text)
 			stack[m] = top + 1.3*fs
 		}
 	}
@@ -338,14 +345,17 @@ func (d *drawing) loads(h *htmlOut, cs frame.Case) {
 		if nl.M != 0 {
 			r := 0.07 * d.u
 			h.printf(`<path class="arc" d="M%s %s A%s %s 0 1 0 %s %s"/>`, svgNum(x+r), svgNum(y), svgNum(r), svgNum(r), svgNum(x), svgNum(y-r))
-			h.printf(`<text x="%s" y="%s" text-anchor="start">%s</text>`, svgNum(x+r), svgNum(y-r), esc(short(nl.M)))
+			put(x+r, y-r, "start", short(nl.M))
 		}
 	}
 	for _, nd := range cs.Displacements {
 		x, y := d.at(mo.Nodes[nd.Node].X, mo.Nodes[nd.Node].Y)
-		h.printf(`<text x="%s" y="%s" text-anchor="middle">imposed %s, %s, %s</text>`, svgNum(x), svgNum(y+2*fs), esc(short(nd.Ux)), esc(short(nd.Uy)), esc(short(nd.Rz)))
+		put(x, y+2*fs, "middle", "imposed "+short(nd.Ux)+", "+short(nd.Uy)+", "+short(nd.Rz))
 	}
+	out, dropped := vals.place(nil)
+	writeLabels(h, "vals", out)
 	h.raw("</g>\n")
+	return dropped
 }
 
 // parallel reports whether a load in direction dir acts along member m's

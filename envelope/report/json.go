@@ -203,7 +203,21 @@ func (p *Report) jsonSpans(j *jsonWriter, combo [][]byte) {
 		if !math.IsInf(s.Ratio, 0) {
 			j.raw(", \"ratio\": ").num(s.Ratio)
 		}
-		j.raw(", \"ratio_length\": ").num(r.RatioLength()).raw("}")
+		j.raw(", \"ratio_length\": ").num(r.RatioLength())
+		if len(r.Limits) > 0 {
+			// Each limited service combination on its own.
+			j.raw(", \"limits\": [")
+			for k, c := range r.Limits {
+				d := c.Deflection.Largest
+				j.sep(k, ", ").raw("{\"by\": ").bytes(nameOf(combo, c.Combination)).raw(", \"limit\": ").num(c.Limit).raw(", \"deflection\": ").num(p.defl.Of(d.V)).raw(", \"x\": ").num(d.X)
+				if !math.IsInf(c.Deflection.Ratio, 0) {
+					j.raw(", \"ratio\": ").num(c.Deflection.Ratio)
+				}
+				j.raw(", \"pass\": ").raw(strconv.FormatBool(c.Pass())).raw("}")
+			}
+			j.raw("]")
+		}
+		j.raw("}")
 		n++
 	}
 	j.raw("\n ]")

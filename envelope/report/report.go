@@ -21,6 +21,10 @@ const Caution = "Results are for checking by a qualified engineer. They do not r
 // the terminal and the page both show are formed once, on first use. Its
 // writers may run at once, and never modify the result.
 type Report struct {
+	// Wide leaves the terminal's tables as wide as their columns make
+	// them, instead of fitting them to TextWidth. Set it before writing.
+	Wide bool
+
 	res *analysis.Result
 
 	// How forces, moments and deflections are shown: the unit of each,
@@ -30,6 +34,10 @@ type Report struct {
 
 	once   sync.Once
 	design *design
+	// states holds the governing states of each column and other member
+	// (columnStates), formed with the design tables: written only while
+	// they are formed, read after tables() returns.
+	states map[int][]columnState
 
 	src *Source // nil when the results' source is not known (From)
 

@@ -23,14 +23,34 @@ type drawing struct {
 }
 
 func newDrawing(mo *frame.Model) *drawing {
-	x0, x1, y0, y1 := math.Inf(1), math.Inf(-1), math.Inf(1), math.Inf(-1)
-	for _, n := range mo.Nodes {
-		x0, x1 = math.Min(x0, n.X), math.Max(x1, n.X)
-		y0, y1 = math.Min(y0, n.Y), math.Max(y1, n.Y)
+	all := make([]int, len(mo.Members))
+	for m := range all {
+		all[m] = m
 	}
-	lengths := make([]float64, len(mo.Members))
-	for m := range mo.Members {
-		lengths[m] = mo.Length(m)
+	return newDrawingOf(mo, all)
+}
+
+// newDrawingOf is newDrawing fitted to the members given, such as the
+// beams of one floor: their nodes bound the picture, and its marks are
+// sized from their lengths. Other members drawn on it fall outside.
+func newDrawingOf(mo *frame.Model, members []int) *drawing {
+	x0, x1, y0, y1 := math.Inf(1), math.Inf(-1), math.Inf(1), math.Inf(-1)
+	lengths := make([]float64, 0, len(members))
+	for _, m := range members {
+		mem := mo.Members[m]
+		for _, v := range [2]int{mem.Start, mem.End} {
+			n := mo.Nodes[v]
+			x0, x1 = math.Min(x0, n.X), math.Max(x1, n.X)
+			y0, y1 = math.Min(y0, n.Y), math.Max(y1, n.Y)
+		}
+		lengths = append(lengths, mo.Length(m))
+	}
+	if len(members) == 0 {
+		for _, n := range mo.Nodes {
+			x0, x1 = math.Min(x0, n.X), math.Max(x1, n.X)
+			y0, y1 = math.Min(y0, n.Y), math.Max(y1, n.Y)
+		}
+		lengths = append(lengths, math.Max(x1-x0, y1-y0))
 	}
 	slices.Sort(lengths)
 	lm := lengths[len(lengths)/2]
@@ -86,8 +106,8 @@ func (d *drawing) members(h *htmlOut, class string) {
 }
 
 // elevation draws the frame with its node and member names, supports and
-// releases.
-func (d *drawing) elevation(h *htmlOut) {
+// releases; it returns how many names were left out for want of room.
+func (d *drawing) elevation(h *htmlOut) int {
 	mo := d.mo
 	u := d.u
 	d.members(h, "m")
@@ -128,25 +148,46 @@ func (d *drawing) elevation(h *htmlOut) {
 		}
 	}
 	h.raw("</g>\n")
-	// Nodes and their names, above and to the left.
-	h.printf(`<g class="nd" font-size="%s">`, svgNum(0.08*u))
+	// Nodes, and their names above and to the left where there is room;
+	// member names at midlength beside the member; none over another.
+	h.raw(`<g class="nd">`)
 	for _, n := range mo.Nodes {
 		x, y := d.at(n.X, n.Y)
 		h.printf(`<circle cx="%s" cy="%s" r="%s"/>`, svgNum(x), svgNum(y), svgNum(0.018*u))
-		h.printf(`<text x="%s" y="%s" text-anchor="end">%s</text>`, svgNum(x-0.03*u), svgNum(y-0.03*u), esc(n.Name))
 	}
 	h.raw("</g>\n")
-	// Member names at midlength, beside the member.
-	h.printf(`<g class="mn" font-size="%s">`, svgNum(0.065*u))
+	nodes := &labelSet{fs: 0.08 * u}
+	for _, n := range mo.Nodes {
+		x, y := d.at(n.X, n.Y)
+		o, b := 0.03*u, 0.03*u+ascent*0.08*u
+		nodes.add(label{text: n.Name, rank: 1, at: []pos{
+			{x - o, y - o, "end"}, {x + o, y - o, "start"}, {x - o, y + b, "end"}, {x + o, y + b, "start"},
+			{x - o, y - o - 0.08*u, "end"}, {x + o, y - o - 0.08*u, "start"}}})
+	}
+	np, nd := nodes.place(nil)
+	taken := make([]textBox, len(np))
+	for i, l := range np {
+		taken[i] = l.box
+	}
+	names := &labelSet{fs: 0.065 * u}
 	for m, mem := range mo.Members {
 		x, y := d.on(m, mo.Length(m)/2, 0)
-		anchor, dx, dy := "middle", 0.0, -0.035*u
+		ex, ey := d.on(m, mo.Length(m), 0)
+		ax, ay := unit(ex-x, ey-y)
+		p, nx, ny := pos{x, y - 0.035*u, "middle"}, 0.0, -1.0
 		if !mo.IsBeam(m) {
-			anchor, dx, dy = "start", 0.035*u, 0.02*u
+			p, nx, ny = pos{x + 0.035*u, y + 0.02*u, "start"}, 1, 0
 		}
-		h.printf(`<text x="%s" y="%s" text-anchor="%s">%s</text>`, svgNum(x+dx), svgNum(y+dy), anchor, esc(mem.Name))
+		names.add(label{text: mem.Name, rank: 1, at: around(p, ax, ay, nx, ny, 0.065*u)})
 	}
+	mp, md := names.place(taken)
+	h.printf(`<g class="nn" font-size="%s">`, svgNum(0.08*u))
+	writeLabels(h, "names", np)
 	h.raw("</g>\n")
+	h.printf(`<g class="mn" font-size="%s">`, svgNum(0.065*u))
+	writeLabels(h, "names", mp)
+	h.raw("</g>\n")
+	return nd + md
 }
 
 // diagram is one kind of envelope drawn along the members, as they are
@@ -162,9 +203,12 @@ type diagram struct {
 
 // envelopes draws, for each of the members, the diagram's largest and
 // smallest values along the member with the band between them filled,
-// and writes the governing values. One <g class="env"> per member, holding
-// a path for the band and one each for the two curves.
-func (d *drawing) envelopes(h *htmlOut, p *Report, members []int, dg diagram) {
+// and writes the governing values, none over another (labelSet): one
+// <g class="env"> per member, holding a path for the band and one each
+// for the two curves, then the values in <g class="vals">. It returns the
+// scale the values are drawn to (model length per unit of value) and how
+// many values were left out for want of room.
+func (d *drawing) envelopes(h *htmlOut, p *Report, members []int, dg diagram) (scale float64, dropped int) {
 	mo := d.mo
 	big := 0.0
 	for _, m := range members {
@@ -174,11 +218,11 @@ func (d *drawing) envelopes(h *htmlOut, p *Report, members []int, dg diagram) {
 			big = math.Max(big, math.Max(math.Abs(e.Max), math.Abs(e.Min)))
 		}
 	}
-	scale := 0.0
 	if big > 0 {
 		scale = d.diag / big
 	}
 	fs := 0.065 * d.u
+	vals := &labelSet{fs: fs}
 	d.members(h, "g")
 	h.printf(`<g class="lab" font-size="%s">`+"\n", svgNum(fs))
 	var hi, lo []float64
@@ -198,6 +242,10 @@ func (d *drawing) envelopes(h *htmlOut, p *Report, members []int, dg diagram) {
 	for _, m := range members {
 		em := p.shown(m)
 		l := mo.Length(m)
+		// The member's direction as shown, in the picture.
+		sx, sy := d.onShown(m, 0, 0)
+		ex, ey := d.onShown(m, l, 0)
+		ax, ay := unit(ex-sx, ey-sy)
 		hi, lo = hi[:0], lo[:0]
 		for i, st := range em.Stations {
 			e := dg.get(em, i)
@@ -216,7 +264,7 @@ func (d *drawing) envelopes(h *htmlOut, p *Report, members []int, dg diagram) {
 		h.raw(`"/>`)
 		// Values.
 		n := len(em.Stations)
-		label := func(i int, v float64, text string) {
+		label := func(i int, v float64, text string, rank float64) {
 			if text == "" {
 				return
 			}
@@ -254,7 +302,8 @@ func (d *drawing) envelopes(h *htmlOut, p *Report, members []int, dg diagram) {
 					anchor = "end"
 				}
 			}
-			h.printf(`<text x="%s" y="%s" text-anchor="%s">%s</text>`, svgNum(px), svgNum(py), anchor, esc(text))
+			ox, oy := unit(nx, ny)
+			vals.add(label{text: text, at: around(pos{px, py, anchor}, ax, ay, ox, oy, 0.9*fs), rank: rank})
 		}
 		larger := func(e envelope.Extreme) float64 {
 			if math.Abs(e.Min) > math.Abs(e.Max) {
@@ -266,7 +315,7 @@ func (d *drawing) envelopes(h *htmlOut, p *Report, members []int, dg diagram) {
 		if dg.ends {
 			for _, i := range []int{0, n - 1} {
 				if v := larger(dg.get(em, i)); significant(v) {
-					label(i, v, dg.format(v))
+					label(i, v, dg.format(v), math.Abs(v)/big)
 				}
 			}
 		}
@@ -280,22 +329,34 @@ func (d *drawing) envelopes(h *htmlOut, p *Report, members []int, dg diagram) {
 			}
 			v := dg.get(em, best).Max
 			if v > 0 && v > dg.get(em, 0).Max && v > dg.get(em, n-1).Max && significant(v) {
-				label(best, v, dg.format(v))
+				label(best, v, dg.format(v), math.Abs(v)/big)
 			}
 		}
 		if dg.middle {
 			i := n / 2
 			e := dg.get(em, i)
 			if significant(e.Min) || significant(e.Max) {
-				label(i, larger(e), dg.format(e.Min)+" / "+dg.format(e.Max))
+				label(i, larger(e), dg.format(e.Min)+" / "+dg.format(e.Max), 1+math.Abs(larger(e))/big)
 			}
 		}
 		if dg.sag {
 			if i, v, text, ok := p.deflectionLabel(m); ok && significant(v) {
-				label(i, v, text)
+				label(i, v, text, 1+math.Abs(v)/big)
 			}
 		}
 		h.raw("</g>\n")
+	}
+	out, dropped := vals.place(nil)
+	writeLabels(h, "vals", out)
+	h.raw("</g>\n")
+	return scale, dropped
+}
+
+// writeLabels writes placed labels as the texts of a group of the class.
+func writeLabels(h *htmlOut, class string, ls []placed) {
+	h.printf(`<g class="%s">`, class)
+	for _, l := range ls {
+		h.printf(`<text x="%s" y="%s" text-anchor="%s">%s</text>`, svgNum(l.x), svgNum(l.y), l.anchor, esc(l.text))
 	}
 	h.raw("</g>\n")
 }

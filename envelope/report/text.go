@@ -16,8 +16,12 @@ type tables interface {
 	table(t Table) error
 }
 
-// textTables renders tables as text with box-drawing rules.
-type textTables struct{ w io.Writer }
+// textTables renders tables as text with box-drawing rules, fitted to
+// width (none when not positive; see renderFitted).
+type textTables struct {
+	w     io.Writer
+	width int
+}
 
 func (t textTables) note(text string) error {
 	_, err := fmt.Fprintf(t.w, "%s\n", EscapeLines(text))
@@ -25,10 +29,7 @@ func (t textTables) note(text string) error {
 }
 
 func (t textTables) table(tb Table) error {
-	if tb.Title != "" {
-		fmt.Fprintf(t.w, "\n%s\n", Escape(tb.Title))
-	}
-	return renderTable(t.w, tb.Header, tb.Rows)
+	return renderFitted(t.w, tb.Title, tb.Header, tb.Rows, t.width)
 }
 
 // newTable starts a text table for the terminal. Every cell of its header
@@ -73,14 +74,19 @@ func toAny(s []string) []any {
 	return out
 }
 
-// WriteText writes what the terminal shows of a run: what was analysed,
+// WriteText writes what the terminal shows of a run, its tables and
+// notes fitted to TextWidth unless p.Wide: what was analysed,
 // the design values floor by floor and column line by column line, the
 // deflections of spans and cantilevers, the reactions, the statics check,
 // with crossCheck the cross-check by moment distribution, and the caution.
 // Text from the model is escaped (Escape).
 func (p *Report) WriteText(w io.Writer, crossCheck bool) error {
+	width := TextWidth
+	if p.Wide {
+		width = 0
+	}
 	p.writeHeading(w)
-	tb := textTables{w}
+	tb := textTables{w, width}
 	d := p.tables()
 	if err := tb.note(d.governing); err != nil {
 		return err
@@ -92,7 +98,7 @@ func (p *Report) WriteText(w io.Writer, crossCheck bool) error {
 			}
 		}
 	}
-	for _, t := range []*Table{d.deflection, d.reactions} {
+	for _, t := range []*Table{d.deflection, d.limits, d.reactions, d.withReactions} {
 		if t != nil {
 			if err := tb.table(*t); err != nil {
 				return err

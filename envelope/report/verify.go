@@ -47,9 +47,21 @@ func WriteVerification(w io.Writer, results []verification.Result, markdown bool
 		if r.Source.Recalled {
 			src += " (recalled)"
 		}
-		rows = append(rows, []string{name, quantity, sig6(r.Published), sig6(r.Computed), relDiff(r.RelDiff()), res, src})
+		if markdown {
+			rows = append(rows, []string{name, quantity, sig6(r.Published), sig6(r.Computed), relDiff(r.RelDiff()), res, src})
+			continue
+		}
+		// On the terminal the case is a row of its own above its checks,
+		// so that the table fits 120 characters.
+		if name != "" {
+			rows = append(rows, []string{name, "", "", "", "", ""})
+		}
+		rows = append(rows, []string{"- " + quantity, sig6(r.Published), sig6(r.Computed), relDiff(r.RelDiff()), res, src})
 	}
 	header := []string{"case", "quantity", "published", "computed", "relative difference", "result", "source"}
+	if !markdown {
+		header = []string{"case and quantity", "published", "computed", "rel. diff.", "result", "source"}
+	}
 	var t *tablewriter.Table
 	if markdown {
 		t = tablewriter.NewTable(w, tablewriter.WithRenderer(renderer.NewMarkdown()), tablewriter.WithHeaderAutoFormat(tw.Off),
@@ -58,12 +70,12 @@ func WriteVerification(w io.Writer, results []verification.Result, markdown bool
 		fmt.Fprintf(w, "%d cases, %d checks: %d pass, %d fail. Units kN and m unless the case says otherwise; moments sagging positive, reactions up and right positive, deflections downward positive.\n\n", cases, len(results), passed, len(results)-passed)
 	} else {
 		fmt.Fprintf(w, "Verification against published results: %d cases, %d checks, %d pass, %d fail\n", cases, len(results), passed, len(results)-passed)
-		fmt.Fprintf(w, "Units kN and m unless the case says otherwise; moments sagging positive, reactions up and right positive, deflections downward positive.\n")
+		fmt.Fprintln(w, wrap("Units kN and m unless the case says otherwise; moments sagging positive, reactions up and right positive, deflections downward positive.", 100, ""))
 		t = newTable(w, header...)
 		t.Configure(func(c *tablewriter.Config) {
-			c.Row.Alignment.PerColumn = []tw.Align{tw.AlignLeft, tw.AlignLeft, tw.AlignRight, tw.AlignRight, tw.AlignRight, tw.AlignCenter, tw.AlignLeft}
+			c.Row.Alignment.PerColumn = []tw.Align{tw.AlignLeft, tw.AlignRight, tw.AlignRight, tw.AlignRight, tw.AlignCenter, tw.AlignLeft}
 			c.Row.Formatting.AutoWrap = tw.WrapNormal
-			c.Row.ColMaxWidths.PerColumn = tw.Mapper[int, int]{0: 40, 1: 40, 6: 28}
+			c.Row.ColMaxWidths.PerColumn = tw.Mapper[int, int]{0: 46, 5: 22}
 		})
 	}
 	if err := t.Bulk(rows); err != nil {
@@ -98,7 +110,11 @@ func WriteVerification(w io.Writer, results []verification.Result, markdown bool
 		st = wrap(st, 100, "")
 	}
 	fmt.Fprintf(w, "\n%s\n", st)
-	fmt.Fprintf(w, "\n%s\n", Caution)
+	caution := Caution
+	if !markdown {
+		caution = wrap(caution, 100, "")
+	}
+	fmt.Fprintf(w, "\n%s\n", caution)
 	return nil
 }
 

@@ -199,6 +199,11 @@ func (r *reader) readCombinationSet(t *table) {
 		job.Params.SDS = v
 	}
 	job.Params.ReducedLive = t.boolean("reduced_live_factor", false)
+	limit, hasLimit := t.numOK("limit", 0)
+	if hasLimit && !(limit > 0) {
+		t.fail("limit", problem(ErrValue, "limit = %g: span/deflection must be positive, such as 360 for span/360", limit))
+		hasLimit = false
+	}
 	if u := t.str("unused", "error"); t.oneOf("unused", u, "error", "allow") {
 		job.AllowUnused = u == "allow"
 	}
@@ -209,6 +214,13 @@ func (r *reader) readCombinationSet(t *table) {
 		}
 		if job.Params.ReducedLive && !s.UsesReducedLive() {
 			t.fail("reduced_live_factor", problem(ErrValue, "reduced_live_factor: %s has no reduced live load factor", s.Name))
+		}
+		if hasLimit {
+			if !s.Service {
+				t.fail("limit", problem(ErrValue, "limit: %s is not a set of service combinations; only those have a deflection limit", s.Name))
+			} else {
+				r.setLimit = limit
+			}
 		}
 	}
 }
@@ -309,6 +321,12 @@ func (r *reader) generate() {
 		if generated[cb.Name] {
 			r.fail(r.loc.line(elem("combination", i), "name"), fmt.Sprintf("combination %q", cb.Name),
 				problem(ErrDuplicate, "%s also gives a combination named %q; rename this one", job.Set.Name, cb.Name))
+		}
+	}
+	// The set's limit for the rules that give none of their own.
+	for i := range cs {
+		if cs[i].Limit == 0 {
+			cs[i].Limit = r.setLimit
 		}
 	}
 	job.Combinations = append(cs, job.Combinations...)

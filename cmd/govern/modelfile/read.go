@@ -136,6 +136,7 @@ type reader struct {
 	memLine  []int             // line defining each member (0 for grid members)
 	caseInfo []combos.CaseInfo // per case, for the combination rules
 	setTable *table            // the [combinations] table, nil without one
+	setLimit float64           // [combinations] limit: span/deflection of the generated service combinations without their own
 
 	caseTables []*table // per case, its table, for messages (combinations.go)
 	released   []bool   // nodes whose rotation carries nothing, once found (load.go)
@@ -277,6 +278,17 @@ func (r *reader) readSections(ts []*table) {
 				s.Depth = d
 			}
 		}
+		effective := 0.0
+		if d, ok := t.qtyOK("d", units.Length, 0); ok {
+			switch {
+			case !(d > 0):
+				t.fail("d", problem(ErrValue, "d = %g: the effective depth must be greater than zero", d))
+			case s.Depth > 0 && d > s.Depth:
+				t.fail("d", problem(ErrValue, "d = %g: the effective depth is more than the section's depth %g", d, s.Depth))
+			default:
+				effective = d
+			}
+		}
 		if a, ok := t.qtyOK("alpha", units.Expansion, 0); ok {
 			if a <= 0 {
 				t.fail("alpha", problem(ErrValue, "alpha = %g: must be greater than zero", a))
@@ -286,6 +298,7 @@ func (r *reader) readSections(ts []*table) {
 		}
 		r.sections[name] = len(r.job.Model.Sections)
 		r.job.Model.Sections = append(r.job.Model.Sections, s)
+		r.job.EffectiveDepths = append(r.job.EffectiveDepths, effective)
 		r.hasW = append(r.hasW, t.has("weight"))
 		r.thermal = append(r.thermal, [2]bool{t.has("alpha"), t.has("depth")})
 		t.done()
@@ -708,6 +721,16 @@ func (r *reader) readCombinations(ts []*table) {
 		cb := combos.Combination{Name: name, Rule: "model", Service: t.boolean("service", false), Allowable: t.boolean("allowable", false)}
 		if cb.Service && cb.Allowable {
 			t.fail("allowable", problem(ErrValue, "allowable = true with service = true: a combination is for strength, allowable stress or service, one of them"))
+		}
+		if v, ok := t.numOK("limit", 0); ok {
+			switch {
+			case !cb.Service:
+				t.fail("limit", problem(ErrValue, "limit = %g: only a service combination has a deflection limit; add service = true", v))
+			case !(v > 0):
+				t.fail("limit", problem(ErrValue, "limit = %g: span/deflection must be positive, such as 360 for span/360", v))
+			default:
+				cb.Limit = v
+			}
 		}
 		if t.need("factors") {
 			v, _ := t.get("factors")

@@ -254,6 +254,11 @@ func TestReadErrors(t *testing.T) {
 		{"dead load cannot be patterned", `kind = "dead"`, "kind = \"dead\"\npattern = true", `m.toml:23: case "G": pattern = true: combination "1.4G" takes dead case "G" with one factor; permanent load is placed span by span only by a rule that gives its term a favourable_factor (in a rule file of [combinations])`, ErrValue},
 		{"unknown pattern mode", `[[section]]`, "[analysis]\npatterns = \"checkerboard\"\n[[section]]", `m.toml:2: [analysis]: patterns = "checkerboard": must be one of "exact", "code", "full", "exhaustive"`, ErrValue},
 		{"segments out of range", `[[section]]`, "[analysis]\nsegments = 0\n[[section]]", `m.toml:2: [analysis]: segments = 0: must be 1 to 20`, ErrValue},
+		{"effective depth not positive", `I = 1e-4`, "I = 1e-4\nd = -0.1", `m.toml:6: section "S": d = -0.1: the effective depth must be greater than zero`, ErrValue},
+		{"effective depth past the depth", `I = 1e-4`, "I = 1e-4\ndepth = 0.5\nd = 0.6", `m.toml:7: section "S": d = 0.6: the effective depth is more than the section's depth 0.5`, ErrValue},
+		{"deflection limit on a strength combination", `factors = { G = 1.4 }`, "factors = { G = 1.4 }\nlimit = 360", `m.toml:31: combination "1.4G": limit = 360: only a service combination has a deflection limit; add service = true`, ErrValue},
+		{"deflection limit not positive", `factors = { G = 1.4 }`, "factors = { G = 1.4 }\nservice = true\nlimit = 0", `m.toml:32: combination "1.4G": limit = 0: span/deflection must be positive, such as 360 for span/360`, ErrValue},
+		{"deflection limit of a strength set", `[[combination]]`, "[combinations]\nstandard = \"asce7-16-strength\"\nlimit = 240\n[[combination]]", `m.toml:30: [combinations]: limit: asce7-16-strength is not a set of service combinations; only those have a deflection limit`, ErrValue},
 		{"fewer than two stations", `[[section]]`, "[analysis]\nstations = 1\n[[section]]", `m.toml:2: [analysis]: stations = 1: need at least 2 (both ends of each member)`, ErrValue},
 	} {
 		t.Run(tc.name, func(t *testing.T) {

@@ -15,7 +15,7 @@ const MaxRuleFileSize = 1 << 20
 // The keys of each table of a rule file (docs/combinations.md).
 var (
 	setKeys    = []string{"name", "title", "service", "allowable", "rule"}
-	ruleKeys   = []string{"id", "text", "terms"}
+	ruleKeys   = []string{"id", "text", "terms", "limit"}
 	termKeys   = []string{"kind", "factor", "lead", "together", "each_action", "psi", "sds_factor", "reduced_live_factor", "favourable_factor", "or"}
 	choiceKeys = []string{"kind", "factor", "psi", "sds_factor", "reduced_live_factor", "favourable_factor"}
 )
@@ -95,7 +95,7 @@ func (sr *setReader) set(raw map[string]any) *combos.Set {
 
 func (sr *setReader) rule(t *table) combos.Rule {
 	t.known(ruleKeys...)
-	r := combos.Rule{ID: t.str("id", ""), Text: t.str("text", "")}
+	r := combos.Rule{ID: t.str("id", ""), Text: t.str("text", ""), Limit: t.num("limit", 0)}
 	terms := t.array("terms", func(j int, _ map[string]any) string { return fmt.Sprintf("%s, term %d", t.where, j+1) })
 	if !t.has("terms") {
 		t.fail("terms", problem(ErrMissing, "terms is required: the loads of the rule with their factors"))

@@ -97,6 +97,11 @@ func TestReadSetErrors(t *testing.T) {
 		// Unknown keys, with the nearest known one.
 		{name: "unknown key at the top level", edit: []string{`title = "Two rules"`, `titel = "Two rules"`},
 			want: `office.toml:3: unknown key "titel" (did you mean "title"?) at the top level`, sentinel: ErrUnknownKey},
+		// A deflection limit: only in a service set, positive.
+		{name: "a limit in a strength set", edit: []string{`text = "1.3G + 1.5(Q or S)"`, "text = \"1.3G + 1.5(Q or S)\"\nlimit = 360"},
+			want: `office.toml:8: rule "R1": limit = 360: only a service set's combinations have a deflection limit; give the set service = true`, sentinel: ErrValue},
+		{name: "a limit not positive", edit: []string{`title = "Two rules"`, "title = \"Two rules\"\nservice = true", `text = "1.3G + 1.5(Q or S)"`, "text = \"1.3G + 1.5(Q or S)\"\nlimit = -240"},
+			want: `office.toml:9: rule "R1": limit = -240: span/deflection must be a positive number, such as 360 for span/360`, sentinel: ErrValue},
 		{name: "unknown key in a rule", edit: []string{`text = "1.3G + 1.5(Q or S)"`, `txt = "1.3G"`},
 			want: `office.toml:7: rule "R1": unknown key "txt" (did you mean "text"?)`, sentinel: ErrUnknownKey},
 		{name: "unknown key in an inline term", edit: []string{`factor = 1.5, lead = true }`, `factor = 1.5, togther = true }`},

@@ -1,0 +1,176 @@
+package envelope
+
+import (
+	"fmt"
+	"math"
+	"slices"
+
+	"govern/combos"
+
+	"govern/frame"
+	"govern/patterns"
+)
+
+// stateTol is the fraction of the largest size of an effect in the member
+// within which the state formed again must give the extreme it is asked
+// for: the same sums in the same order give it to the last bit, but the
+// check must not fail on the last bit.
+const stateTol = 1e-9
+
+// EndMoments returns the moments at the start and at the end of member m
+// (its own axes, as in Station.M) in the state that gives an extreme of
+// effect j (0 N, 1 V, 2 M) at the station at x: combination k (an index
+// into cs), with its variable cases and pattern pieces
+// placed as Compute placed them to make that effect largest (hi) or
+// smallest there. want is the extreme's value, which the state must give
+// again; ok is false when it does not (a station that is not one of the
+// member's, or another combination), and the ends are then zero. sol,
+// cs, set and lay must be those Compute was given; none is modified.
+//
+// A variable case, a patterned case's piece or arrangement acts or not by
+// the sign of its effect j at x alone, so the same decisions, applied to
+// the effects at the member's ends, give the ends' moments of the state.
+func EndMoments(sol *frame.Solution, cs []combos.Combination, set Settings, lay *patterns.Layout, m int, x float64, k, j int, hi bool, want float64) (ends [2]float64, ok bool) {
+	r := EndMomentsOf(sol, cs, set, lay, m, []State{{X: x, By: k, Effect: j, Hi: hi, Want: want}})
+	return r[0].Ends, r[0].OK
+}
+
+// State names the state of an extreme of a member's envelope: the
+// station at X, effect Effect (0 N, 1 V, 2 M) made largest (Hi) or
+// smallest by combination By (an index into the combinations), with the
+// value Want; and, once found, the member's end moments in it.
+type State struct {
+	X          float64
+	By, Effect int
+	Hi         bool
+	Want       float64
+	Ends       [2]float64 // filled by EndMomentsOf
+	OK         bool       // filled by EndMomentsOf: the state gave Want again
+}
+
+// EndMomentsOf is EndMoments for several states of member m at once: the
+// member is evaluated once. It returns the states with Ends and OK set;
+// states is not modified.
+func EndMomentsOf(sol *frame.Solution, cs []combos.Combination, set Settings, lay *patterns.Layout, m int, states []State) []State {
+	out := slices.Clone(states)
+	if m < 0 || m >= len(sol.Model().Members) || len(cs) == 0 {
+		return out
+	}
+	set.Progress = nil
+	all := make([]int, len(cs))
+	for k := range all {
+		all[k] = k
+	}
+	e := newEvaluator(sol.Model(), cs, all, 3, set, lay)
+	w := e.scratch()
+	e.evaluate(w, sol, m)
+	for q := range out {
+		out[q].Ends, out[q].OK = e.endMoments(w, &out[q])
+	}
+	return out
+}
+
+// endMoments finds the end moments of state s of the member evaluated in
+// w (see EndMoments).
+func (e *evaluator) endMoments(w *work, s *State) ([2]float64, bool) {
+	j, k, hi, want := s.Effect, s.By, s.Hi, s.Want
+	if j < 0 || j > 2 || k < 0 || k >= len(e.cs) {
+		return [2]float64{}, false
+	}
+	ns := len(w.xs)
+	i := slices.Index(w.xs, s.X)
+	if i < 0 {
+		return [2]float64{}, false
+	}
+	// The two slots other than j carry the ends' moments through the
+	// placement: its decisions read slot j only.
+	a, b := (j+1)%3, (j+2)%3
+	if a > b {
+		a, b = b, a
+	}
+	// The largest the sum could be, term by term, for the tolerance.
+	scale := 0.0
+	fmax := 0.0
+	for _, t := range e.cs[k].Terms {
+		fmax = math.Max(fmax, math.Abs(t.Factor))
+	}
+	for c := range w.ev {
+		scale += fmax * math.Abs(eff(w.at[c*ns+i], j))
+	}
+	for _, past := range []bool{false, true} {
+		if past && (j != 2 || !w.jumps) {
+			break
+		}
+		for c := range w.ev {
+			var v [3]float64
+			v[j] = eff(w.at[c*ns+i], j)
+			if past {
+				v[j] += w.jump[c*ns+i]
+			}
+			v[a], v[b] = w.at[c*ns].M, w.at[c*ns+ns-1].M
+			w.ev[c] = v
+		}
+		w.noise = w.noiseAt
+		w.place.scan(e, w)
+		tot := w.place.combine(e, w, k, j, hi)
+		if math.Abs(tot[j]-want) <= stateTol*(scale+math.Abs(want)) {
+			return [2]float64{tot[a], tot[b]}, true
+		}
+	}
+	return [2]float64{}, false
+}
+
+// eff returns effect j (N, V, M) of f.
+func eff(f frame.Forces, j int) float64 {
+	switch j {
+	case 0:
+		return f.N
+	case 1:
+		return f.V
+	}
+	return f.M
+}
+
+// StationsAt returns the envelopes of member m at the points xs (distances
+// from its start, on the member), over the strength combinations of cs as
+// Compute forms them: the member is enveloped again with xs as extra
+// stations (Settings.Extra), and the station at each point returned, in
+// the order of xs. A point within round-off of another station gives that
+// station. sol, cs, set and lay must be those Compute was given; none is
+// modified.
+func StationsAt(sol *frame.Solution, cs []combos.Combination, set Settings, lay *patterns.Layout, m int, xs []float64) ([]Station, error) {
+	mo := sol.Model()
+	if m < 0 || m >= len(mo.Members) {
+		panic(fmt.Sprintf("envelope: StationsAt: member %d of %d", m, len(mo.Members)))
+	}
+	l := mo.Length(m)
+	for _, x := range xs {
+		if !(x >= 0 && x <= l) {
+			return nil, fmt.Errorf("envelope: member %q: station at %g is not on the member (length %g)", mo.Members[m].Name, x, l)
+		}
+	}
+	extra := slices.Clone(xs)
+	if m < len(set.Extra) {
+		extra = append(extra, set.Extra[m]...)
+	}
+	set.Extra = make([][]float64, m+1)
+	set.Extra[m] = extra
+	set.Progress, set.Lines = nil, nil
+	strength, _ := split(cs)
+	e := newEvaluator(mo, cs, strength, 3, set, lay)
+	em, err := e.member(e.scratch(), sol, m)
+	if err != nil {
+		return nil, err
+	}
+	out := make([]Station, len(xs))
+	for k, x := range xs {
+		best := 0
+		for i, st := range em.Stations {
+			if math.Abs(st.X-x) < math.Abs(em.Stations[best].X-x) {
+				best = i
+			}
+		}
+		out[k] = em.Stations[best]
+	}
+	return out, nil
+}

@@ -1,0 +1,157 @@
+package report
+
+import (
+	"math"
+
+	"govern/envelope"
+
+	"govern/envelope/analysis"
+)
+
+// endRoundOff is the fraction of the larger end moment at or below which
+// the smaller one is zero: the member is then bent by one end moment only.
+const endRoundOff = 1e-9
+
+// columnState is one governing value of a member that carries axial force
+// (a column, or a member that is neither a column nor a beam), with the
+// forces acting with it and its end moments: all of the one state, the
+// governing combination with the same loaded pieces.
+type columnState struct {
+	what string     // "N max", "N min", "|M| max"
+	pk   peak       // the value and the forces with it, as shown
+	ends [2]float64 // M at the shown start and end, as shown
+	ok   bool       // the end moments were found
+}
+
+// columnStates returns member m's largest and smallest N and its largest
+// |M|, each with the forces acting with it and the
+// moments at the member's ends in the same state (analysis.EndMoments).
+// Values are as the tables show the member: a member that is not vertical
+// from its left end.
+func (p *Report) columnStates(m int) []columnState {
+	em := p.res.Envelope.Members[m]
+	pk := memberPeaks(em)
+	type want struct {
+		what string
+		j    int
+		hi   bool
+	}
+	wants := []want{{"N max", 0, true}, {"N min", 0, false}, {"|M| max", 2, -pk.lo[2].v <= pk.hi[2].v}}
+	mo := p.model()
+	flip, l := analysis.Flipped(mo, m), mo.Length(m)
+	var out []columnState
+	var asks []envelope.State
+	for _, w := range wants {
+		s := columnState{what: w.what, pk: pk.lo[w.j]}
+		if w.hi {
+			s.pk = pk.hi[w.j]
+		}
+		out = append(out, s)
+		asks = append(asks, envelope.State{X: s.pk.x, By: s.pk.by, Effect: w.j, Hi: w.hi, Want: s.pk.v})
+	}
+	got := p.res.EndMomentsOf(m, asks)
+	for q := range out {
+		s := &out[q]
+		if s.pk.by >= 0 {
+			s.ends, s.ok = got[q].Ends, got[q].OK
+		}
+		if flip {
+			// Seen from the other end: x' = l − x, M' = −M, the ends swapped.
+			s.pk.x = l - s.pk.x
+			s.pk.with[2] = -s.pk.with[2]
+			if wants[q].j == 2 {
+				s.pk.v = -s.pk.v
+			}
+			s.ends = [2]float64{-s.ends[1], -s.ends[0]}
+		}
+	}
+	return out
+}
+
+// statesOf returns the governing states of member m as the design tables
+// formed them, or forms them.
+func (p *Report) statesOf(m int) []columnState {
+	p.tables()
+	if s, ok := p.states[m]; ok {
+		return s
+	}
+	return p.columnStates(m)
+}
+
+// endPair returns the end moments of a state as M1, the smaller in size,
+// and M2, the larger, with the end of M2 (0 the shown start, 1 the end),
+// M1/M2 with the sign of ACI 318-19 6.6.4.5.3 and AISC 360-16 Appendix 8
+// (positive for double, reverse, curvature; negative for single) and
+// the curvature named. The ends are moments in one sign convention along
+// the member: ends of the same sign bend it in single curvature, and so
+// does one end moment alone (M1/M2 = 0). ratio and curvature are "-" when
+// both ends are zero.
+func endPair(ends [2]float64) (m1, m2 float64, at int, ratioText, curvature string) {
+	m1, m2 = ends[0], ends[1]
+	at = 1
+	if math.Abs(m1) > math.Abs(m2) {
+		m1, m2, at = m2, m1, 0
+	}
+	switch {
+	case m2 == 0:
+		return m1, m2, at, "-", "-"
+	case math.Abs(m1) <= endRoundOff*math.Abs(m2):
+		return 0, m2, at, fixed(0), "single"
+	}
+	r := -m1 / m2
+	curvature = "single"
+	if r > 0 {
+		curvature = "double"
+	}
+	return m1, m2, at, fixed(r), curvature
+}
+
+// stateHeader is the header of the tables of the states of columns.
+func stateHeader(force, moment, length string, patterned bool) []string {
+	h := []string{"member", "value", "N (" + force + ")", "V (" + force + ")", "M (" + moment + ")", "at x (" + length + ")", "governing"}
+	if patterned {
+		h = append(h, "spans loaded")
+	}
+	return append(h, "M1 ("+moment+")", "M2 ("+moment+")", "M2 at", "M1/M2", "curvature")
+}
+
+// stateRows gives, per member, three rows: the largest tension (N max, N
+// positive in tension) and compression (N min) and the largest moment in
+// size, each with the N, V and M acting with it at the same
+// station, where and what governs, and the moments at the member's ends
+// in the same state: M1 the smaller, M2 the larger in size, M1/M2 and
+// single or double curvature.
+func (p *Report) stateRows(members []int) [][]string {
+	mo := p.model()
+	patterned := p.pieces() > 0
+	var rows [][]string
+	for _, m := range members {
+		from, to := analysis.ShownEnds(mo, m)
+		name := mo.Members[m].Name
+		states := p.columnStates(m)
+		if p.states == nil {
+			p.states = map[int][]columnState{}
+		}
+		p.states[m] = states
+		for _, s := range states {
+			if s.pk.by < 0 {
+				continue
+			}
+			n, v, mm := s.pk.with[0], s.pk.with[1], s.pk.with[2]
+			row := []string{name, s.what, fixed(p.force.Of(n)), fixed(p.force.Of(v)), fixed(p.moment.Of(mm)), fixed(s.pk.x), p.comboName(s.pk.by)}
+			if patterned {
+				row = append(row, p.shortSpans(s.pk.spans, s.pk.loaded))
+			}
+			if s.ok {
+				m1, m2, at, r, c := endPair(s.ends)
+				node := mo.Nodes[[2]int{from, to}[at]].Name
+				row = append(row, fixed(p.moment.Of(m1)), fixed(p.moment.Of(m2)), node, r, c)
+			} else {
+				row = append(row, "-", "-", "-", "-", "-")
+			}
+			rows = append(rows, row)
+			name = ""
+		}
+	}
+	return rows
+}
