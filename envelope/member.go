@@ -11,12 +11,7 @@ import (
 // every station at once (evaluate), or folds the member (fold.go), then
 // forms the extremes station by station (station).
 func (e *evaluator) member(w *work, sol *frame.Solution, m int) (Member, error) {
-	l := sol.Model().Length(m)
-	var extra []float64
-	if m < len(e.set.Extra) {
-		extra = e.set.Extra[m]
-	}
-	w.stations(l, e.set.Stations, extra)
+	e.placeStations(w, sol, m)
 	if pl, ok := e.foldable(w, sol, m); ok {
 		w.fold.load(e, w, sol, m)
 		if e.defl != nil {
@@ -120,6 +115,7 @@ func (e *evaluator) stationsOf(w *work, sol *frame.Solution, m int, line Line, f
 // relative to the chord and across the member's line, which it returns
 // (the zero Line for none); and what counts as round-off in the member.
 func (e *evaluator) evaluate(w *work, sol *frame.Solution, m int) Line {
+	e.placeStations(w, sol, m)
 	ns, nc := len(w.xs), len(w.ev)
 	w.at = grow(w.at, ns*nc)
 	if e.defl != nil {
@@ -161,6 +157,15 @@ func (e *evaluator) evaluate(w *work, sol *frame.Solution, m int) Line {
 	}
 	w.noiseAt = noise
 	return e.lineDeflections(w, sol, m)
+}
+
+// placeStations sets w.xs and w.extra to the stations of member m.
+func (e *evaluator) placeStations(w *work, sol *frame.Solution, m int) {
+	var extra []float64
+	if m < len(e.set.Extra) {
+		extra = e.set.Extra[m]
+	}
+	w.stations(sol.Model().Length(m), e.set.Stations, extra)
 }
 
 // lineDeflections fills w.line from w.defl, the deflections relative to
