@@ -53,7 +53,7 @@ import (
 
 // fold is one goroutine's folded member.
 type fold struct {
-	ends  [][6]float64   // every column's local end forces
+	ends  [][6]float64   // every column's local forces at the member's start (StartForcesEach)
 	orig  []frame.Forces // the original cases' stations: c*ns+i
 	cases []foldCase     // per patterned case
 	mv    []float64      // scratch: the M of each unit at the station
@@ -107,8 +107,8 @@ func (e *evaluator) foldable(w *work, sol *frame.Solution, m int) (*exactPlaceme
 func (f *fold) load(e *evaluator, w *work, sol *frame.Solution, m int) {
 	ns, nc := len(w.xs), len(e.mo.Cases)
 	f.ends = grow(f.ends, nc)
-	sol.EndForcesEach(f.ends, m)
-	var big [3]float64 // largest sizes, for the round-off
+	sol.StartForcesEach(f.ends, m) // the start gives N, V, M and the deflections anywhere
+	var big [3]float64             // largest sizes, for the round-off
 	see := func(v frame.Forces) {
 		if a := math.Abs(v.N); a > big[0] {
 			big[0] = a

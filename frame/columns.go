@@ -11,16 +11,25 @@ package frame
 // last bit, with each end's displacement rows read once for all the cases
 // (they are contiguous). dst must have the length of the model's cases.
 // Nothing is mutated but dst.
-func (sol *Solution) EndForcesEach(dst [][6]float64, m int) {
+func (sol *Solution) EndForcesEach(dst [][6]float64, m int) { sol.endForcesEach(dst, m, 6) }
+
+// StartForcesEach is [Solution.EndForcesEach] for the forces at the
+// member's start only, dst[c][0:3], which give its internal forces
+// anywhere along it with its loads (and its deflections); dst[c][3:6] are
+// left zero. It does half the work.
+func (sol *Solution) StartForcesEach(dst [][6]float64, m int) { sol.endForcesEach(dst, m, 3) }
+
+// endForcesEach fills dst[c][0:rows] (see EndForcesEach).
+func (sol *Solution) endForcesEach(dst [][6]float64, m, rows int) {
 	nc := len(sol.model.Cases)
 	if len(dst) != nc {
 		panic("frame: EndForcesEach: dst has the wrong length")
 	}
 	mem := sol.model.Members[m]
 	e := &sol.elems[m]
-	// rows[d] holds direction d's displacement in every case: solved,
+	// disp[d] holds direction d's displacement in every case: solved,
 	// imposed, or zero where a support holds it.
-	var rows [6][]float64
+	var disp [6][]float64
 	zero := sol.zero
 	for d := range 6 {
 		node := mem.Start
@@ -29,23 +38,24 @@ func (sol *Solution) EndForcesEach(dst [][6]float64, m int) {
 		}
 		switch i := sol.dof[3*node+d%3]; {
 		case i >= 0:
-			rows[d] = sol.x[i*nc : (i+1)*nc]
+			disp[d] = sol.x[i*nc : (i+1)*nc]
 		case i < -1:
-			rows[d] = sol.imposed[(-2-i)*nc : (-1-i)*nc]
+			disp[d] = sol.imposed[(-2-i)*nc : (-1-i)*nc]
 		default:
 			if len(zero) != nc {
 				zero = make([]float64, nc)
 			}
-			rows[d] = zero
+			disp[d] = zero
 		}
 	}
 	clear(dst)
 	// The fixed-end forces of the cases that load the member, then k u,
 	// summed in the order of endForcesTo: f[i] + k[i][0] u[0] + … + k[i][5] u[5].
 	for _, ref := range sol.onMember[m] {
-		dst[ref.c] = *(*[6]float64)(sol.fem[ref.c][6*ref.i:])
+		at := 6 * int(ref.i)
+		copy(dst[ref.c][:rows], sol.fem[ref.c][at:at+rows])
 	}
-	r0, r1, r2, r3, r4, r5 := rows[0][:nc], rows[1][:nc], rows[2][:nc], rows[3][:nc], rows[4][:nc], rows[5][:nc]
+	r0, r1, r2, r3, r4, r5 := disp[0][:nc], disp[1][:nc], disp[2][:nc], disp[3][:nc], disp[4][:nc], disp[5][:nc]
 	k := &e.k
 	cs, sn := e.c, e.s
 	for c := range dst {
@@ -54,7 +64,7 @@ func (sol *Solution) EndForcesEach(dst [][6]float64, m int) {
 		u0, u1, u2 := cs*g0+sn*g1, -sn*g0+cs*g1, g2
 		u3, u4, u5 := cs*g3+sn*g4, -sn*g3+cs*g4, g5
 		f := &dst[c]
-		for i := range 6 {
+		for i := range rows {
 			ki := &k[i]
 			f[i] = f[i] + ki[0]*u0 + ki[1]*u1 + ki[2]*u2 + ki[3]*u3 + ki[4]*u4 + ki[5]*u5
 		}

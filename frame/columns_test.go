@@ -58,6 +58,12 @@ func TestColumnsAgreeWithPerCaseCalls(t *testing.T) {
 	got := make([]Forces, len(xs))
 	loadedSomewhere := 0
 	for m := range mo.Members {
+		sol.StartForcesEach(ends, m)
+		for c := range mo.Cases {
+			if f := sol.EndForces(c, m); [3]float64(f[:3]) != [3]float64(ends[c][:3]) || ends[c][3] != 0 || ends[c][4] != 0 || ends[c][5] != 0 {
+				t.Fatalf("member %d case %d: StartForcesEach %v, EndForces %v", m, c, ends[c], f)
+			}
+		}
 		sol.EndForcesEach(ends, m)
 		sol.StartLoadsTo(start, m)
 		sol.StationsTo(want, m, xs)
