@@ -52,20 +52,44 @@ type State struct {
 // member is evaluated once. It returns the states with Ends and OK set;
 // states is not modified.
 func EndMomentsOf(sol *frame.Solution, cs []combos.Combination, set Settings, lay *patterns.Layout, m int, states []State) []State {
-	out := slices.Clone(states)
-	if m < 0 || m >= len(sol.Model().Members) || len(cs) == 0 {
-		return out
+	return NewEndsFinder(sol, cs, set, lay).Of(m, states)
+}
+
+// An EndsFinder is EndMomentsOf for the members of one solution, one after
+// the other, with the evaluator and its scratch space formed once: a
+// design table asks for the states of every member. It is not for
+// concurrent use; sol, cs, set and lay must be those Compute was given.
+type EndsFinder struct {
+	sol *frame.Solution
+	e   *evaluator
+	w   *work
+}
+
+// NewEndsFinder returns an EndsFinder (see EndMomentsOf).
+func NewEndsFinder(sol *frame.Solution, cs []combos.Combination, set Settings, lay *patterns.Layout) *EndsFinder {
+	f := &EndsFinder{sol: sol}
+	if len(cs) == 0 {
+		return f
 	}
 	set.Progress = nil
 	all := make([]int, len(cs))
 	for k := range all {
 		all[k] = k
 	}
-	e := newEvaluator(sol.Model(), cs, all, 3, set, lay)
-	w := e.scratch()
-	e.evaluate(w, sol, m)
+	f.e = newEvaluator(sol.Model(), cs, all, 3, set, lay)
+	f.w = f.e.scratch()
+	return f
+}
+
+// Of is EndMomentsOf for member m.
+func (f *EndsFinder) Of(m int, states []State) []State {
+	out := slices.Clone(states)
+	if f.e == nil || m < 0 || m >= len(f.sol.Model().Members) {
+		return out
+	}
+	f.e.evaluate(f.w, f.sol, m)
 	for q := range out {
-		out[q].Ends, out[q].OK = e.endMoments(w, &out[q])
+		out[q].Ends, out[q].OK = f.e.endMoments(f.w, &out[q])
 	}
 	return out
 }

@@ -4,6 +4,7 @@ import (
 	"context"
 	"fmt"
 	"slices"
+	"sync"
 	"sync/atomic"
 
 	"govern/combos"
@@ -82,6 +83,8 @@ type Result struct {
 	// The combinations as they were enveloped (favourableSplit), index
 	// for index with the job's.
 	solved []combos.Combination
+	// finders holds EndMomentsOf's reusable evaluators.
+	finders sync.Pool
 }
 
 // Combination is one combination of the job as it was analysed.
@@ -249,7 +252,15 @@ func (r *Result) EndMoments(m int, x float64, k, j int, hi bool, want float64) (
 // EndMomentsOf is EndMoments for several states of member m at once
 // (envelope.EndMomentsOf).
 func (r *Result) EndMomentsOf(m int, states []envelope.State) []envelope.State {
-	return envelope.EndMomentsOf(r.sol, r.solved, r.Envelope.Settings, r.lay, m, states)
+	// A finder's evaluator and scratch, formed once and reused member
+	// after member: a design table asks for every member's states.
+	f, _ := r.finders.Get().(*envelope.EndsFinder)
+	if f == nil {
+		f = envelope.NewEndsFinder(r.sol, r.solved, r.Envelope.Settings, r.lay)
+	}
+	out := f.Of(m, states)
+	r.finders.Put(f)
+	return out
 }
 
 // StationsAt returns the envelopes of member m, in its own axes, at the
