@@ -87,7 +87,12 @@ func (f *EndsFinder) Of(m int, states []State) []State {
 	if f.e == nil || m < 0 || m >= len(f.sol.Model().Members) {
 		return out
 	}
-	f.e.evaluate(f.w, f.sol, m)
+	f.e.placeStations(f.w, f.sol, m)
+	if pl, ok := f.e.foldable(f.w, f.sol, m); ok && pl != nil {
+		f.e.evaluateFor(f.w, f.sol, m, out)
+	} else {
+		f.e.evaluate(f.w, f.sol, m)
+	}
 	for q := range out {
 		out[q].Ends, out[q].OK = f.e.endMoments(f.w, &out[q])
 	}
@@ -197,4 +202,46 @@ func StationsAt(sol *frame.Solution, cs []combos.Combination, set Settings, lay 
 		out[k] = em.Stations[best]
 	}
 	return out, nil
+}
+
+// evaluateFor is evaluate for the states of member m alone, the member
+// folded (fold.go): every column's forces at the stations the states ask
+// for and at the ends, which is all endMoments reads, from the same
+// numbers evaluate forms (the fold's exact values, and N = −f0, V = f1,
+// M = −f2 + x·f1 for a column that does not load the member), with the
+// same round-off threshold. Stations the states do not name are left as
+// they were. No concentrated moment acts at a station (foldable).
+func (e *evaluator) evaluateFor(w *work, sol *frame.Solution, m int, states []State) {
+	w.fold.load(e, w, sol, m)
+	w.jumps = false
+	ns, nc := len(w.xs), len(w.ev)
+	w.at = grow(w.at, ns*nc)
+	need := []int{0, ns - 1}
+	for _, s := range states {
+		if i := slices.Index(w.xs, s.X); i >= 0 {
+			need = append(need, i)
+		}
+	}
+	f := &w.fold
+	for c := range nc {
+		row := w.at[c*ns : (c+1)*ns]
+		if c < e.nOrig {
+			for _, i := range need {
+				row[i] = f.orig[c*ns+i]
+			}
+			continue
+		}
+		p := e.unitCase[c-e.nOrig]
+		fc := &f.cases[p]
+		if k, own := slices.BinarySearch(fc.own, c-e.first[p]); own {
+			for _, i := range need {
+				row[i] = fc.ownAt[k*ns+i]
+			}
+			continue
+		}
+		g := &f.ends[c]
+		for _, i := range need {
+			row[i] = frame.Forces{N: -g[0], V: g[1], M: -g[2] + w.xs[i]*g[1]}
+		}
+	}
 }
