@@ -140,7 +140,10 @@ func (e *evaluator) endMoments(w *work, s *State) ([2]float64, bool) {
 			w.ev[c] = v
 		}
 		w.noise = w.noiseAt
+		// Only effect j decides, and only its sums are combined.
+		w.only = j + 1
 		w.place.scan(e, w)
+		w.only = 0
 		tot := w.place.combine(e, w, k, j, hi)
 		if math.Abs(tot[j]-want) <= stateTol*(scale+math.Abs(want)) {
 			return [2]float64{tot[a], tot[b]}, true

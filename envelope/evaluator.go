@@ -127,6 +127,7 @@ type work struct {
 	group []float64
 
 	place placement   // how the patterned cases' units are placed, with its scratch
+	only  int         // when not 0, exact placement scans effect only−1 alone (endMoments)
 	fold  fold        // the current member folded, for exact placement (fold.go)
 	lists [6]spanList // pieces being collected: max and min of N, V, M
 	share float64     // a piece is listed with at least this share of the largest one's effect

@@ -33,6 +33,12 @@ func newExactPlacement(patterned int) *exactPlacement {
 // influential units of each sign, for the spans lists. A unit whose effect
 // is round-off is of neither sign.
 func (pl *exactPlacement) scan(e *evaluator, w *work) {
+	// The effects scanned: all of them, or the one w.only names (the
+	// others' sums are then zero: only that effect's are read).
+	js, je := 0, e.nEff
+	if w.only > 0 {
+		js, je = w.only-1, w.only
+	}
 	for p, pc := range e.lay.Patterned {
 		units := w.ev[e.first[p] : e.first[p]+len(pc.Units)]
 		var sum [3][2][3]float64
@@ -51,7 +57,7 @@ func (pl *exactPlacement) scan(e *evaluator, w *work) {
 			tot[0] += v[0]
 			tot[1] += v[1]
 			tot[2] += v[2]
-			for j := range e.nEff {
+			for j := js; j < je; j++ {
 				x := v[j]
 				s, a := 0, x
 				switch {
@@ -88,7 +94,7 @@ func (pl *exactPlacement) scan(e *evaluator, w *work) {
 				}
 			}
 		}
-		for j := range e.nEff {
+		for j := js; j < je; j++ {
 			for q := range 3 {
 				sum[j][1][q] = tot[q] - sum[j][0][q] - zero[j][q]
 			}
