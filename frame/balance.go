@@ -133,6 +133,12 @@ func (sol *Solution) BalanceOf(cs []int) Balance {
 			acc[3*mem.Start+i] -= g[i]
 			acc[3*mem.End+i] -= g[3+i]
 		}
+		if e.so != nil {
+			// On the deformed geometry the axial force of the geometric
+			// stiffness, carried across the member from one displaced end to
+			// the other, adds N Δv to the moment of the loads.
+			b.Applied.M -= e.so.n * (ul[4] - ul[1])
+		}
 	}
 	react := func(nd *Node, d int, rv float64) {
 		switch d {

@@ -79,7 +79,9 @@ func (sol *Solution) CasesOn(m int) []int32 { return sol.casesOn[m] }
 // StationsFrom fills dst[i] with the internal forces of member m in case c
 // at xs[i], given the member's local end forces f in that case (from
 // [Solution.EndForcesEach]): the values of [Solution.StationsTo], to the
-// last bit. dst must have length len(xs).
+// last bit, in a first-order solution ([Solution.Unloaded]; in second
+// order they leave out N times the displacement). dst must have length
+// len(xs).
 func (sol *Solution) StationsFrom(dst []Forces, c, m int, f *[6]float64, xs []float64) {
 	if len(dst) != len(xs) {
 		panic("frame: StationsFrom: dst has the wrong length")
@@ -140,7 +142,8 @@ func (sol *Solution) DisplacementSums(u []float64, cs []int) {
 // DeflectionsFrom fills dst[i] with the deflection of member m in case c
 // at xs[i] relative to its chord, given the member's local end forces f in
 // that case (from [Solution.EndForcesEach]): the values of
-// [Solution.DeflectionsTo], to the last bit. dst must have length len(xs).
+// [Solution.DeflectionsTo], to the last bit, in a first-order solution
+// ([Solution.Unloaded]). dst must have length len(xs).
 func (sol *Solution) DeflectionsFrom(dst []float64, c, m int, f *[6]float64, xs []float64) {
 	if len(dst) != len(xs) {
 		panic("frame: DeflectionsFrom: dst has the wrong length")
@@ -148,3 +151,10 @@ func (sol *Solution) DeflectionsFrom(dst []float64, c, m int, f *[6]float64, xs 
 	idx, _ := sol.loadsOn(c, m)
 	deflectionsTo(dst, f, &sol.elems[m], sol.model.Cases[c].MemberLoads, idx, xs)
 }
+
+// Unloaded reports whether a case that does not load member m leaves N
+// and V constant along it and M linear, as [Solution.StationsFrom] and
+// [Solution.DeflectionsFrom] assume: true but in a second-order solution
+// ([Options.Axial]), where M also carries N times the member's
+// displacement from its chord.
+func (sol *Solution) Unloaded(m int) bool { return sol.elems[m].so == nil }

@@ -36,6 +36,17 @@ type Options struct {
 	// member while the solution is in use (an envelope's stations), counted
 	// in the estimate of the run's peak memory that [MaxMemory] limits.
 	PerMember float64
+	// Axial, when not nil, gives per member the axial force N (tension
+	// positive, force) whose geometric stiffness is added to the member's:
+	// a second-order analysis of the model's cases about that state of
+	// axial force (P-Δ and P-δ; see SubElements). Every case is solved with
+	// the one stiffness, so cases still add up; whoever iterates on the
+	// axial forces supplies them (see [Solution.Axial]). Station moments
+	// then include N times the member's transverse displacement from its
+	// start node, and the statics check takes moments on the deformed
+	// geometry. A stiffness that is not positive definite under them is
+	// an error wrapping [ErrUnstable].
+	Axial []float64
 }
 
 // illAdvice says where to look when the matrix is ill-conditioned.

@@ -37,6 +37,10 @@ func (sol *Solution) DeflectionsTo(dst []float64, m int, xs []float64) {
 // deflectionsOf fills dst[i] with the deflection of member m in case c at
 // xs[i] relative to its chord.
 func (sol *Solution) deflectionsOf(dst []float64, c, m int, xs []float64) {
+	if sol.elems[m].so != nil {
+		sol.secondTo(nil, dst, c, m, xs)
+		return
+	}
 	var f [6]float64
 	sol.endForcesTo(&f, c, m)
 	idx, _ := sol.loadsOn(c, m)

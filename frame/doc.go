@@ -67,6 +67,19 @@
 // [Solution.Displacement] gives NaN for it ([Solution.RotationFree]). A
 // moment applied at such a node is a mechanism for its case.
 //
+// # Second order
+//
+// [SolveWith] with [Options.Axial] adds to each member the geometric
+// stiffness of a given axial force N (tension positive): its flexible part
+// is divided into [SubElements] sub-elements with the consistent geometric
+// stiffness, their inner nodes condensed out (P-Δ and P-δ; geometric.go).
+// Every case is then solved with that one stiffness; station moments add
+// N·(v(x) − v(0)), v the displacement across the member's undeformed axis
+// from its start node, and [Solution.Balance] takes moments on the deformed
+// geometry. Iterating on N is the caller's. [CriticalFactor] gives αcr, the
+// smallest λ with K + λ·Kg singular, by band Cholesky trials and Newton
+// steps (critical.go); it is a pure number.
+//
 // # Failures
 //
 // [Solve] returns an error, never numbers, for a model that is invalid
@@ -76,7 +89,8 @@
 // fewer than three digits of the results would be right
 // ([*IllConditionedError], wrapping [ErrIllConditioned]; above [RefuseCond],
 // solved anyway by [SolveWith] with [Options.AcceptIllConditioned], up to
-// [MaxCond]). A stiffness matrix ill-conditioned enough to cost most of the
+// [MaxCond]), or, in second order, a stiffness that is not positive
+// definite under the axial forces ([ErrUnstable]). A stiffness matrix ill-conditioned enough to cost most of the
 // digits (above [WarnCond]) is solved with a warning in [Solution.Warnings];
 // [Solution.Cond] is the estimated condition number of the stiffness matrix
 // scaled to unit diagonal, the same in any consistent units. (Numbers that

@@ -18,14 +18,26 @@ type element struct {
 	ei, ea  float64    // bending stiffness E I and axial stiffness E A
 	alpha   float64    // coefficient of thermal expansion
 	depth   float64    // section depth, for a temperature gradient
+	// so is set for a member solved with a geometric stiffness
+	// (Options.Axial): its flexible part is then subdivided (geometric.go).
+	so *secondOrder
 }
 
 // newElement builds the local stiffness of member m of mo.
 func newElement(mo *Model, m int) element {
+	e, _ := newElementAxial(mo, m, 0, false)
+	return e
+}
+
+// newElementAxial builds the local stiffness of member m of mo, with the
+// geometric stiffness of axial force n (tension positive) when second is
+// set. ok is false when the member buckles between its ends under n with
+// them held (see condenseInner).
+func newElementAxial(mo *Model, m int, n float64, second bool) (e element, ok bool) {
 	mem := mo.Members[m]
 	sec := mo.Sections[mem.Section]
 	c, s, l := mo.geometry(m)
-	e := element{c: c, s: s, l: l, release: mem.Release, ei: sec.E * sec.I, ea: sec.E * sec.A,
+	e = element{c: c, s: s, l: l, release: mem.Release, ei: sec.E * sec.I, ea: sec.E * sec.A,
 		spring: [2]float64{mem.SpringStart, mem.SpringEnd}, a: mem.OffsetStart, b: mem.OffsetEnd,
 		alpha: sec.Alpha, depth: sec.Depth}
 	e.lf = l - e.a - e.b
@@ -41,10 +53,18 @@ func newElement(mo *Model, m int) element {
 	k[2][1], k[2][2], k[2][4], k[2][5] = b, d, -b, f
 	k[4][1], k[4][2], k[4][4], k[4][5] = -a, -b, a, -b
 	k[5][1], k[5][2], k[5][4], k[5][5] = b, f, -b, d
+	if second && !e.condenseInner(n) {
+		return e, false
+	}
 	e.k = e.flex
-	e.endConditions(&e.k, nil)
+	if !e.endConditions(&e.k, nil) && second {
+		return e, false // a released end's own rotation has lost its stiffness
+	}
 	e.offset(&e.k)
-	return e
+	if second {
+		e.zoneGeometric(&e.k, n)
+	}
+	return e, true
 }
 
 // kinematic returns e with the same geometry, releases and rigid end
@@ -89,7 +109,12 @@ func (e *element) kinematic(h1, h2 float64) element {
 // endConditions condenses the releases and rotational springs of the
 // flexible part's ends out of its stiffness k and, when f is not nil, out
 // of its fixed-end forces f.
-func (e *element) endConditions(k *[6][6]float64, f *[6]float64) {
+//
+// It reports whether the stiffness of each end rotation condensed was
+// positive when it was condensed: with a geometric stiffness, whether the
+// member's own end rotations are still stable.
+func (e *element) endConditions(k *[6][6]float64, f *[6]float64) bool {
+	ok := true
 	for side, r := range [2]int{2, 5} {
 		released := e.release.AtStart()
 		if side == 1 {
@@ -97,11 +122,14 @@ func (e *element) endConditions(k *[6][6]float64, f *[6]float64) {
 		}
 		switch {
 		case released:
+			ok = ok && k[r][r] > 0
 			condense(k, f, r)
 		case e.spring[side] > 0:
+			ok = ok && k[r][r]+e.spring[side] > 0
 			springEnd(k, f, r, e.spring[side])
 		}
 	}
+	return ok
 }
 
 // springEnd puts a rotational spring of stiffness ks between the member's
@@ -267,6 +295,10 @@ func (ld *MemberLoad) intensity(xi, c, s float64) (qx, qy float64) {
 // nodes through the rigid end zones. A load on a rigid zone goes straight
 // to its node.
 func (e *element) fixedEnd(f *[6]float64, loads []MemberLoad, idx []int32) {
+	if e.so != nil {
+		e.fixedEndSecond(f, loads, idx)
+		return
+	}
 	*f = [6]float64{}
 	var direct [6]float64
 	for _, i := range idx {

@@ -87,3 +87,33 @@ func ExampleEstimateMemory() {
 	// 6 equations, half-bandwidth at most 5: true
 	// within the limit: true
 }
+
+// A cantilever column, EI = 250 kN·m², L = 10 m, under P = 4 kN and
+// H = 0.045 kN at its top: solved with the geometric stiffness of its axial
+// force it sways H(tan kL − kL)/(P k) = 0.1691 m with a base moment of
+// H tan(kL)/k = 1.127 kN·m (first order 0.45), and it buckles at
+// π²EI/(4L²) = 1.542 P (Timoshenko & Gere, Theory of Elastic Stability).
+func ExampleCriticalFactor() {
+	mo := &frame.Model{
+		Sections: []frame.Section{{Name: "C", E: 200e6, A: 0.01, I: 1.25e-6}},
+		Nodes:    []frame.Node{{Name: "base", Support: frame.Fixed}, {Name: "top", Y: 10}},
+		Members:  []frame.Member{{Name: "col", Start: 0, End: 1}},
+		Cases:    []frame.Case{{Name: "P+H", NodeLoads: []frame.NodeLoad{{Node: 1, Fx: 0.045, Fy: -4}}}},
+	}
+	axial := []float64{-4} // kN, tension positive
+	sol, err := frame.SolveWith(mo, frame.Options{Axial: axial})
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	ux, _, _ := sol.Displacement(0, 1)
+	_, _, m := sol.Reaction(0, 0)
+	a, err := frame.CriticalFactor(mo, axial)
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	fmt.Printf("sway %.4f m, base moment %.3f kN·m, αcr %.3f\n", ux, m, a)
+	// Output:
+	// sway 0.1691 m, base moment 1.127 kN·m, αcr 1.542
+}

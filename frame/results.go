@@ -124,7 +124,13 @@ func (sol *Solution) At(c, m int, x float64) Forces {
 	sol.endForcesTo(&f, c, m)
 	e := &sol.elems[m]
 	idx, _ := sol.loadsOn(c, m)
-	return stationForces(f[0], f[1], f[2], x, e.l, e.c, e.s, sol.model.Cases[c].MemberLoads, idx)
+	out := stationForces(f[0], f[1], f[2], x, e.l, e.c, e.s, sol.model.Cases[c].MemberLoads, idx)
+	if e.so != nil {
+		row := []Forces{out}
+		sol.secondTo(row, nil, c, m, []float64{x})
+		out = row[0]
+	}
+	return out
 }
 
 // StationsTo fills dst with the internal forces of member m at the
@@ -153,6 +159,10 @@ func (sol *Solution) StationsAndDeflectionsTo(dst []Forces, defl []float64, m in
 // the deflections of member m at xs in every case.
 func (sol *Solution) stationsTo(dst []Forces, defl []float64, m int, xs []float64) {
 	e := &sol.elems[m]
+	var w [][6]float64 // second order: the shape's weights at xs
+	if e.so != nil {
+		w = e.weights(xs)
+	}
 	var f [6]float64
 	for c := range len(sol.model.Cases) {
 		sol.endForcesTo(&f, c, m)
@@ -167,10 +177,17 @@ func (sol *Solution) stationsTo(dst []Forces, defl []float64, m int, xs []float6
 			for i, x := range xs {
 				row[i] = Forces{N: -f[0], V: f[1], M: -f[2] + x*f[1]}
 			}
-			continue
+		} else {
+			for i, x := range xs {
+				row[i] = stationForces(f[0], f[1], f[2], x, e.l, e.c, e.s, loads, idx)
+			}
 		}
-		for i, x := range xs {
-			row[i] = stationForces(f[0], f[1], f[2], x, e.l, e.c, e.s, loads, idx)
+		if e.so != nil {
+			var d []float64
+			if defl != nil {
+				d = defl[c*len(xs) : (c+1)*len(xs)]
+			}
+			sol.secondWith(w, row, d, c, m, xs)
 		}
 	}
 }

@@ -57,6 +57,9 @@ type Solution struct {
 	dofs, band int
 	cond       float64
 	warnings   []string
+
+	// axial is Options.Axial of a second-order solve, nil otherwise.
+	axial []float64
 }
 
 // Info describes the system of equations a model gives.
@@ -96,11 +99,22 @@ func SolveWith(mo *Model, opt Options) (*Solution, error) {
 	if err := checkMemory(mo, n, band, opt.PerMember); err != nil {
 		return nil, err
 	}
-	sol := &Solution{model: mo, dofs: n, band: band, cond: 1, dof: dof, released: released}
+	if opt.Axial != nil && len(opt.Axial) != len(mo.Members) {
+		panic("frame: Options.Axial does not give one axial force per member")
+	}
+	sol := &Solution{model: mo, dofs: n, band: band, cond: 1, dof: dof, released: released, axial: opt.Axial}
 	sol.elems = make([]element, len(mo.Members))
 	sol.atNode = make([][]int32, len(mo.Nodes))
 	for m, mem := range mo.Members {
-		sol.elems[m] = newElement(mo, m)
+		if opt.Axial != nil {
+			e, ok := newElementAxial(mo, m, opt.Axial[m], true)
+			if !ok {
+				return nil, fmt.Errorf("%w: member %q buckles between its ends under N = %.6g", ErrUnstable, mem.Name, opt.Axial[m])
+			}
+			sol.elems[m] = e
+		} else {
+			sol.elems[m] = newElement(mo, m)
+		}
 		sol.atNode[mem.Start] = append(sol.atNode[mem.Start], int32(m))
 		if mem.End != mem.Start {
 			sol.atNode[mem.End] = append(sol.atNode[mem.End], int32(m))
@@ -135,6 +149,9 @@ func SolveWith(mo *Model, opt Options) (*Solution, error) {
 	u, ok := lapack64.Pbtrf(a)
 	if ok {
 		sol.cond = equilibratedCond(data, u.Data, n, kb)
+	}
+	if !ok && opt.Axial != nil {
+		return nil, fmt.Errorf("%w: the stiffness with the geometric stiffness is not positive definite", ErrUnstable)
 	}
 	if !ok || sol.cond > diagnoseCond {
 		// data now holds a factor: assemble the matrix of the same members

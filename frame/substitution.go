@@ -180,3 +180,17 @@ func combine(x []float64, at, lo, hi int, rows []int, negs []float64, d float64)
 		x[at+c] = s * d
 	}
 }
+
+// axpy adds a·x to y; len(y) == len(x). Unrolled by four, which lets the
+// compiler keep independent sums in flight.
+func axpy(y []float64, a float64, x []float64) {
+	x = x[:len(y)]
+	k := 0
+	for ; k+4 <= len(y); k += 4 {
+		y0, y1, y2, y3 := y[k]+a*x[k], y[k+1]+a*x[k+1], y[k+2]+a*x[k+2], y[k+3]+a*x[k+3]
+		y[k], y[k+1], y[k+2], y[k+3] = y0, y1, y2, y3
+	}
+	for ; k < len(y); k++ {
+		y[k] += a * x[k]
+	}
+}

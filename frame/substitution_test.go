@@ -134,17 +134,3 @@ func bandSolveAxpy(u []float64, n, kb int, x []float64, nrhs int) {
 	}
 	wg.Wait()
 }
-
-// axpy adds a·x to y; len(y) == len(x). Unrolled by four, which lets the
-// compiler keep independent sums in flight.
-func axpy(y []float64, a float64, x []float64) {
-	x = x[:len(y)]
-	k := 0
-	for ; k+4 <= len(y); k += 4 {
-		y0, y1, y2, y3 := y[k]+a*x[k], y[k+1]+a*x[k+1], y[k+2]+a*x[k+2], y[k+3]+a*x[k+3]
-		y[k], y[k+1], y[k+2], y[k+3] = y0, y1, y2, y3
-	}
-	for ; k < len(y); k++ {
-		y[k] += a * x[k]
-	}
-}

@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"io"
 	"path/filepath"
+	"strings"
 	"testing"
 
 	"govern/cmd/govern/modelfile"
@@ -22,7 +23,9 @@ func BenchmarkRun(b *testing.B) {
 	for _, size := range []struct {
 		bays, storeys int
 		starter       bool
-	}{{3, 3, false}, {10, 10, false}, {30, 20, false}, {30, 60, false}, {30, 60, true}} {
+		second        bool
+	}{{3, 3, false, false}, {10, 10, false, false}, {30, 20, false, false}, {30, 60, false, false}, {30, 60, true, false},
+		{10, 10, false, true}, {30, 20, false, true}, {30, 60, false, true}} {
 		spec := regularSpec(size.bays, size.storeys)
 		name := fmt.Sprintf("%dx%d", size.bays, size.storeys)
 		if size.starter {
@@ -32,6 +35,13 @@ func BenchmarkRun(b *testing.B) {
 		var src bytes.Buffer
 		if err := modelfile.WriteStarter(&src, spec); err != nil {
 			b.Fatal(err)
+		}
+		if size.second {
+			// The same frame with every combination second-order.
+			s := strings.Replace(src.String(), "[analysis]\n", "[analysis]\nsecond_order = true\n", 1)
+			src.Reset()
+			src.WriteString(s)
+			name += "-second-order"
 		}
 		b.Run(name, func(b *testing.B) {
 			b.ReportAllocs()

@@ -168,3 +168,12 @@ func TestRunCrossCheck(t *testing.T) {
 		}
 	})
 }
+
+// TestCrossCheckRefusedInSecondOrder: moment distribution is first-order,
+// so --cross-check is refused for a second-order model, with a message.
+func TestCrossCheckRefusedInSecondOrder(t *testing.T) {
+	code, _, stderr := exec("run", "--cross-check", filepath.Join("..", "..", "testdata", "tables", "sway-storey.toml"))
+	if code == 0 || !strings.Contains(stderr, "--cross-check solves each load case by first-order moment distribution") || !strings.Contains(stderr, "second_order = true") {
+		t.Errorf("exit %d: %s", code, stderr)
+	}
+}

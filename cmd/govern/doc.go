@@ -282,7 +282,8 @@
 // distribution's estimate of the axial strain it neglects. The method
 // applies to frames of horizontal beams and vertical columns whose joints are
 // held vertically, with any number of storeys; for any other model the
-// report says why it does not apply.
+// report says why it does not apply. It is first-order: a model with
+// [analysis] second_order = true is refused with it.
 //
 // Numbers that no building frame has are warned of, with the slip of
 // units that would explain them: E outside 1 to 250 GPa, a radius of

@@ -344,9 +344,10 @@ func TestRunFilesAndCSV(t *testing.T) {
 	if !strings.Contains(rows[0][7], "member axes") || !strings.Contains(rows[0][7], "local -y face in tension") || strings.Contains(rows[0][7], ",") {
 		t.Errorf("the unit column's header %q does not say the signs are in member axes (in one cell without a comma)", rows[0][7])
 	}
-	// A row per member, station and effect, then the source's rows.
-	if len(rows) != 1+35*11*3+sourceRows {
-		t.Errorf("%d CSV rows, want %d", len(rows), 1+35*11*3+sourceRows)
+	// A row per member, station and effect, ux, uy and rz of each of the
+	// 24 nodes, then the source's rows.
+	if len(rows) != 1+35*11*3+24*3+sourceRows {
+		t.Errorf("%d CSV rows, want %d", len(rows), 1+35*11*3+24*3+sourceRows)
 	}
 	t.Run("same model, identical bytes", func(t *testing.T) {
 		first, _ := os.ReadFile(js)

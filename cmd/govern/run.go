@@ -146,7 +146,8 @@ and against the model as given, within a limit derived from moment
 distribution's estimate of the axial strain it neglects. The method
 applies to frames of horizontal beams and vertical columns whose joints are
 held vertically, with any number of storeys; for any other model the
-report says why it does not apply.
+report says why it does not apply. It is first-order: a model with
+[analysis] second_order = true is refused with it.
 
 Numbers that no building frame has are warned of, with the slip of
 units that would explain them: E outside 1 to 250 GPa, a radius of
@@ -202,6 +203,13 @@ func runModel(env *environ, f *runFlags, job *modelfile.Job, name, path string) 
 // analyse runs the analysis of job, the model file named name at path (""
 // for the demonstration), and writes the results the flags ask for.
 func analyse(env *environ, job *modelfile.Job, name, path string, f *runFlags) error {
+	if f.crossCheck {
+		for _, m := range job.Methods {
+			if m.SecondOrder {
+				return fmt.Errorf("%s: --cross-check solves each load case by first-order moment distribution, which cannot check a second-order analysis ([analysis] second_order = true); run without one of them", name)
+			}
+		}
+	}
 	date, err := f.runDate()
 	if err != nil {
 		return err

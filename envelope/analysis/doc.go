@@ -36,19 +36,28 @@
 // # Per combination
 //
 // A Result is organised per combination: each [Combination] carries how
-// it was analysed ([Method]) and the condition of its stiffness. Today
-// every combination is analysed first-order with the sections as given,
-// and the Result is formed from one solution of every load case and
-// pattern piece, superposed: that is an optimisation of the first-order
-// analysis, not part of what a Result promises, and the per-case solution
-// is not exposed. What a designer asks of each load case alone, unfactored
-// (its reactions, member end forces and node displacements, a patterned
-// case fully loaded), is formed on request by [Result.Cases]; with live
+// it was analysed ([Method]: first or second order, nominal, strength or
+// service stiffness, allowable), the condition of its stiffness, its
+// critical load factor αcr and its notional loads. Combinations analysed
+// alike (first order, one stiffness) are formed from one solution of
+// every load case and pattern piece, superposed; each second-order
+// combination is solved on its own stiffness, iterated on its axial
+// forces, its pieces superposed on it; the envelopes are merged
+// combination by combination. The per-case solutions are an optimisation,
+// not part of what a Result promises, and are not exposed. What a
+// designer asks of each load case alone, unfactored (its reactions,
+// member end forces and node displacements, a patterned case fully
+// loaded), is formed on request by [Result.Cases], first-order; with live
 // load reduction its reduced reactions will stand beside the unreduced
-// ones ([CaseResult].Reduced). Fields of Job for what comes next (Job.MemberFactors
-// for live load reduction, Job.Methods for strength or service stiffness
-// and second-order analysis) are refused by Run with [ErrNotApplied]
-// until they are applied, so that no setting is ever silently ignored.
+// ones ([CaseResult].Reduced).
+// Job.MemberFactors (live load reduction) is refused by Run with
+// [ErrNotApplied] until it is applied, so that no setting is ever
+// silently ignored.
+//
+// Second-order results: moments include N·(v − v(0)) along each member
+// (package frame); αcr is for the combination as written; storeys give
+// drift, Q and B2 (storeys.go). Units are the model's throughout; αcr, Q,
+// B2 and ratios are pure numbers.
 //
 // # What is never mutated
 //

@@ -120,13 +120,16 @@ type MemberFactor struct {
 type Stiffness uint8
 
 const (
-	// Nominal is the sections as given: what Run applies.
+	// Nominal is the sections as given.
 	Nominal Stiffness = iota
-	// Strength is the reduced stiffness of a strength analysis (such as
-	// AISC 360-16 C2.3 or ACI 318-19 6.6.3.1.1). Not applied yet.
+	// Strength is the reduced stiffness of a strength analysis (AISC
+	// 360-16 C2.3, ACI 318-19 6.6.3.1.1): the factors of
+	// [Sway.StrengthEI], [Sway.StrengthEA],
+	// [Sway.SectionI] and τb.
 	Strength
-	// Service is the stiffness for service deflections (such as ACI
-	// 318-19 6.6.3.2.2). Not applied yet.
+	// Service is the stiffness for lateral service deflections (ACI
+	// 318-19 6.6.3.2.2): each section's I times min(1.4 × its strength
+	// factor, 1) where [Sway.SectionI] gives one.
 	Service
 )
 
@@ -140,15 +143,87 @@ func (s Stiffness) String() string {
 }
 
 // Method is how one combination is analysed. The zero value is the
-// first-order elastic analysis with the sections as given, the only one
-// [Run] makes today: a job whose Methods ask for anything else is
-// refused, so that a setting is never silently ignored.
+// first-order elastic analysis with the sections as given.
 type Method struct {
 	Stiffness Stiffness
 	// SecondOrder asks for the geometric stiffness of the combination's
-	// own axial forces (P-Δ and P-δ). Not applied yet.
+	// own axial forces (P-Δ and P-δ), iterated (see docs/analysis.md).
 	SecondOrder bool
+	// Allowable marks an allowable stress (ASD) combination: a
+	// second-order analysis is made at 1.6 times its loads and the
+	// results divided by 1.6 (AISC 360-16 C2.1(d)); its critical load
+	// factor must exceed 1.6, and a first-order one takes α = 1.6 in its
+	// notional loads (C2.2b).
+	Allowable bool
 }
+
+// NotionalRule says how notional loads are formed.
+type NotionalRule uint8
+
+const (
+	NoNotional NotionalRule = iota
+	// NotionalAISC360 is AISC 360-16 C2.2b: Ni = 0.002 α Yi.
+	NotionalAISC360
+	// NotionalEN1993 is EN 1993-1-1 5.3.2: φ = φ0 αh αm.
+	NotionalEN1993
+	// NotionalRatio is Sway.NotionalRatio times the gravity load.
+	NotionalRatio
+)
+
+var notionalNames = [...]string{"none", "aisc360", "en1993", "ratio"}
+
+func (n NotionalRule) String() string {
+	if int(n) < len(notionalNames) {
+		return notionalNames[n]
+	}
+	return fmt.Sprintf("NotionalRule(%d)", n)
+}
+
+// TauB says how AISC 360-16 C2.3(b) is met.
+type TauB uint8
+
+const (
+	// TauBNone applies no τb (τb = 1).
+	TauBNone TauB = iota
+	// TauBFy takes τb per member from its section's Fy (Sway.Fy):
+	// τb = 4(αPr/Pns)(1 − αPr/Pns) where αPr/Pns > 0.5, Pns = Fy A.
+	TauBFy
+	// TauBNotional keeps τb = 1 and adds 0.001 α Yi to the notional
+	// loads of every combination (C2.3(c)).
+	TauBNotional
+)
+
+// Sway holds the job's settings for second-order analysis, notional
+// loads and stiffness reduction; the zero value asks for none.
+type Sway struct {
+	Notional NotionalRule
+	// NotionalRatio is the ratio of NotionalRatio.
+	NotionalRatio float64
+	// StrengthEI and StrengthEA are factors on EI and EA of every member
+	// with Strength stiffness (AISC 360-16 C2.3(a): 0.8); 0 is taken as 1.
+	StrengthEI, StrengthEA float64
+	// SectionI, nil or one per section of the model, gives a factor on the
+	// section's I with Strength stiffness (ACI 318-19 6.6.3.1.1: 0.35 beams,
+	// 0.70 columns; 0: none), and with Service stiffness min(1.4 × it, 1).
+	SectionI []float64
+	// TauB and Fy (nil or one per section, force/length², 0: none).
+	TauB TauB
+	Fy   []float64
+	// Tolerance is the relative change of the axial forces, of the largest
+	// of them, below which the iteration stops; 0 is DefaultTolerance.
+	Tolerance float64
+}
+
+// DefaultTolerance is the tolerance of the iteration on the axial forces
+// when Sway.Tolerance is 0.
+const DefaultTolerance = 1e-6
+
+// MaxIterations bounds the iterations on the axial forces.
+const MaxIterations = 100
+
+// AllowableScale is the factor an allowable stress combination is
+// analysed at in second order (AISC 360-16 C2.1(d)).
+const AllowableScale = 1.6
 
 // Job is everything an analysis needs: the frame, its load cases with
 // their kinds and actions, the combinations, how patterned cases are
@@ -208,9 +283,10 @@ type Job struct {
 	// gives any.
 	MemberFactors []MemberFactor
 	// Methods, nil or one per combination, says how each combination is
-	// analysed. Only the zero Method is applied yet: Run refuses a job
-	// that asks for another.
+	// analysed.
 	Methods []Method
+	// Sway gives the notional loads and the stiffness factors.
+	Sway Sway
 }
 
 // ErrNotApplied marks a field of a Job that asks for something Run does
@@ -350,11 +426,8 @@ func (j *Job) check() error {
 	if j.Methods != nil && len(j.Methods) != len(j.Combinations) {
 		return fmt.Errorf("analysis: Job.Methods gives %d methods for %d combinations", len(j.Methods), len(j.Combinations))
 	}
-	for k, m := range j.Methods {
-		if m != (Method{}) {
-			return fmt.Errorf("analysis: combination %q asks for %s stiffness, second order %v: %w; only the first-order analysis with the sections as given is made, and Run refuses the job rather than ignore the setting",
-				j.Combinations[k].Name, m.Stiffness, m.SecondOrder, ErrNotApplied)
-		}
+	if err := j.checkStability(); err != nil {
+		return err
 	}
 	if !j.AllowUnused {
 		var errs []error

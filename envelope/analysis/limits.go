@@ -33,7 +33,11 @@ func (r *Result) limitChecks(set envelope.Settings) error {
 		if !cb.Service || cb.Limit <= 0 {
 			continue
 		}
-		env, err := envelope.Compute(r.sol, []combos.Combination{r.solved[k]}, set, r.lay)
+		sol, lay, err := r.solutionFor(k) // second order: its own
+		if err != nil {
+			return err
+		}
+		env, err := envelope.Compute(sol, []combos.Combination{r.solved[k]}, set, lay)
 		if err != nil {
 			return err
 		}

@@ -73,6 +73,18 @@ type Result struct {
 	// Statics is the statics check of every load case, in model order;
 	// Run has refused any case out of balance.
 	Statics []Balance
+	// Displacements are the envelopes of the nodes' displacements, in
+	// model order; Storeys the storeys between the job's levels.
+	Displacements []NodeDisplacement
+	Storeys       []Storey
+	// Amplifications gives, for each column whose governing moment comes
+	// from a second-order combination, that moment beside the first-order
+	// one of the same state; by member.
+	Amplifications []Amplification
+	// BareReactions are the reaction envelopes with the notional loads left
+	// out (their base shear: AISC 360-16 C2.2b User Note), in the order of
+	// Envelope.Reactions; nil without notional loads.
+	BareReactions []envelope.Reaction
 
 	// The first-order solution of every load case and pattern piece, from
 	// which every combination is formed: an optimisation of the
@@ -80,6 +92,15 @@ type Result struct {
 	lay    *patterns.Layout
 	sol    *frame.Solution
 	spanOf []int // member → index into Spans, -1 for none
+
+	solver  frame.Options // the options of every solve
+	mu      sync.Mutex    // guards buckled and solutions
+	buckled []buckled     // first-order combinations with αcr ≤ 1, as warnings
+	// units are the analyses of the combinations when they are not all one
+	// first-order analysis with the sections as given (nil then), and
+	// solutions those solved again on request (solutionFor), by unit.
+	units     []unit
+	solutions map[int]*frame.Solution
 	// The combinations as they were enveloped (favourableSplit), index
 	// for index with the job's.
 	solved []combos.Combination
@@ -94,6 +115,23 @@ type Combination struct {
 	// Condition is the estimated condition number of its stiffness matrix,
 	// scaled to unit diagonal (frame.Solution.Cond).
 	Condition float64
+	// CriticalFactor is αcr, the elastic critical load factor of the
+	// combination as written, every case at its factor and every pattern
+	// piece loaded (notional loads included), with the stiffness it is
+	// analysed with: the smallest factor on its loads at which the frame
+	// buckles (frame.CriticalFactor); +Inf where nothing is in
+	// compression. The least over its notional alternatives.
+	CriticalFactor float64
+	// CriticalNominal is αcr with the sections as given (what EN 1993-1-1
+	// 5.2.1(3) compares with 10); CriticalFactor where the stiffness is
+	// nominal.
+	CriticalNominal float64
+	// Iterations is the number of second-order solves of the iteration on
+	// the axial forces; 0 for a first-order analysis.
+	Iterations int
+	// Notional holds its notional loads: none, one set, or one per
+	// direction as alternatives.
+	Notional []Notional
 }
 
 // Condition returns the largest estimated condition number of the
@@ -128,6 +166,10 @@ func Run(ctx context.Context, job *Job, opt Options) (*Result, error) {
 		mode = *opt.placement
 	}
 	sv := favourableSplit(job)
+	pl, err := makePlan(job, &sv)
+	if err != nil {
+		return nil, err
+	}
 	lay, err := patterns.Expand(sv.model, sv.patterned, job.Segments, mode)
 	if err != nil {
 		return nil, err
@@ -144,7 +186,7 @@ func Run(ctx context.Context, job *Job, opt Options) (*Result, error) {
 	if err := ctx.Err(); err != nil {
 		return nil, err
 	}
-	r := &Result{Job: job, lay: lay, sol: sol, Patterns: lay.Mode, Segments: lay.Segments, Info: sol.Info(),
+	r := &Result{Job: job, lay: lay, sol: sol, solver: opt.Solver, Patterns: lay.Mode, Segments: lay.Segments, Info: sol.Info(),
 		Warnings: append(slices.Clip(sol.Warnings()), Plausibility(job)...)}
 	r.Faces = ColumnFaces(job.Model)
 	r.Spans = spans(job.Model)
@@ -165,28 +207,113 @@ func Run(ctx context.Context, job *Job, opt Options) (*Result, error) {
 			set.Groups = g
 		}
 	}
+	r.Combinations = make([]Combination, len(job.Combinations))
+	for k, cb := range job.Combinations {
+		r.Combinations[k] = Combination{Combination: cb, Method: job.methodOf(k)}
+		if pl.simple {
+			r.Combinations[k].Condition = sol.Cond()
+		}
+	}
+	var ends envelope.Settings // the ends of the members, for the deflections across ridges
+	lines := ridgeLines(job.Model, r.Spans)
+	if lines != nil {
+		// The ends of the members are enough: a ridge is a node.
+		ends = set
+		ends.Stations, ends.Extra, ends.Lines, ends.Progress = 2, nil, lines, nil
+	}
+	groups := 1 // the Compute calls over the members: one per group of units analysed alike
+	if !pl.simple {
+		groups = 0
+		first := map[Stiffness]bool{}
+		for _, u := range pl.units {
+			if u.method.SecondOrder {
+				groups++
+			} else if !first[u.method.Stiffness] {
+				first[u.method.Stiffness] = true
+				groups++
+			}
+		}
+	}
 	if opt.Progress != nil {
 		total := len(job.Model.Members) * set.Stations
 		for _, xs := range set.Extra {
 			total += len(xs)
 		}
 		set.Progress = new(atomic.Int64)
-		report(opt, Progress{Phase: fmt.Sprintf("solved %d loads; enveloping stations", len(lay.Model.Cases)), Total: int64(total), Done: set.Progress})
+		report(opt, Progress{Phase: fmt.Sprintf("solved %d loads; enveloping stations", len(lay.Model.Cases)), Total: int64(total * groups), Done: set.Progress})
 	}
-	env, err := envelope.Compute(sol, sv.combinations, set, lay)
-	if err != nil {
-		return nil, err
+	r.Storeys = storeysOf(job)
+	nodes, drifts := r.displacementRequests()
+	var env, across *envelope.Envelope // across: deflections across the lines of runs with a ridge
+	if pl.simple {
+		if env, err = envelope.Compute(sol, sv.combinations, set, lay); err != nil {
+			return nil, err
+		}
+		idx := make([]int, len(sv.combinations))
+		for k := range idx {
+			idx[k] = k
+		}
+		for _, vr := range []*valuesRequest{nodes, drifts} {
+			if err := vr.add(sol, lay, sv.combinations, idx, set); err != nil {
+				return nil, err
+			}
+		}
+		us := make([]*unit, len(pl.units))
+		for i := range us {
+			us[i] = &pl.units[i]
+		}
+		if err := r.criticalAll(us, sv.model, Nominal); err != nil {
+			return nil, err
+		}
+		for i := range pl.units {
+			u := &pl.units[i]
+			if err := r.storeyStability(u, sv.model, Nominal); err != nil {
+				return nil, err
+			}
+			cb := &r.Combinations[u.k]
+			cb.CriticalFactor, cb.CriticalNominal = u.critical, u.nominal
+		}
+	} else {
+		reqs := []request{{set: set}}
+		if job.Sway.Notional != NoNotional || job.Sway.TauB == TauBNotional {
+			bare := set
+			bare.Stations, bare.Extra, bare.Lines, bare.Progress = 2, nil, nil, nil
+			reqs = append(reqs, request{set: bare, bare: true})
+		}
+		if lines != nil {
+			reqs = append(reqs, request{set: ends})
+		}
+		envs, err := r.envelopes(pl, &sv, lay, reqs, []*valuesRequest{nodes, drifts}, opt)
+		if err != nil {
+			return nil, err
+		}
+		env = envs[0]
+		if job.Sway.Notional != NoNotional || job.Sway.TauB == TauBNotional {
+			r.BareReactions = envs[1].Reactions
+		}
+		if lines != nil {
+			across = envs[len(envs)-1]
+		}
 	}
+	r.setDisplacements(nodes, drifts)
+	r.Warnings = append(r.Warnings, r.stabilityWarnings()...)
 	// The job's combinations, index for index: a favourable factor's split
 	// (favourableSplit) is how they were solved, not what they are.
 	r.solved = env.Combinations
+	if !pl.simple {
+		// Each combination as its (first) unit was solved, notional loads
+		// included; and how to solve it again on request (solutionFor).
+		r.solved = slices.Clone(sv.combinations)
+		for i := len(pl.units) - 1; i >= 0; i-- {
+			r.solved[pl.units[i].k] = pl.units[i].cb
+		}
+		r.units = pl.units
+	}
 	env.Combinations = job.Combinations
 	r.Envelope = env
-	r.Combinations = make([]Combination, len(job.Combinations))
-	for k, cb := range job.Combinations {
-		r.Combinations[k] = Combination{Combination: cb, Condition: sol.Cond()}
-		if job.Methods != nil {
-			r.Combinations[k].Method = job.Methods[k]
+	if !pl.simple {
+		if err := r.amplifications(pl, &sv, lay, set); err != nil {
+			return nil, err
 		}
 	}
 	r.Statics = r.statics()
@@ -199,14 +326,13 @@ func Run(ctx context.Context, job *Job, opt Options) (*Result, error) {
 	for m := range r.spanOf {
 		r.spanOf[m] = -1
 	}
-	var across *envelope.Envelope // deflections across the lines of runs with a ridge
-	if lines := ridgeLines(job.Model, r.Spans); lines != nil && len(env.Service) > 0 {
-		// The ends of the members are enough: a ridge is a node.
-		ends := set
-		ends.Stations, ends.Extra, ends.Lines, ends.Progress = 2, nil, lines, nil
+	if pl.simple && lines != nil && len(env.Service) > 0 {
 		if across, err = envelope.Compute(sol, job.Combinations, ends, lay); err != nil {
 			return nil, err
 		}
+	}
+	if len(env.Service) == 0 {
+		across = nil
 	}
 	for i := range r.Spans {
 		s := &r.Spans[i]
@@ -246,28 +372,106 @@ func (r *Result) SpanOf(m int) int { return r.spanOf[m] }
 // want, under combination k (see envelope.EndMoments); ok is false when
 // that state does not give want again.
 func (r *Result) EndMoments(m int, x float64, k, j int, hi bool, want float64) (ends [2]float64, ok bool) {
-	return envelope.EndMoments(r.sol, r.solved, r.Envelope.Settings, r.lay, m, x, k, j, hi, want)
+	sol, lay, err := r.solutionFor(k)
+	if err != nil {
+		return ends, false
+	}
+	return envelope.EndMoments(sol, r.solved, r.Envelope.Settings, lay, m, x, k, j, hi, want)
 }
 
 // EndMomentsOf is EndMoments for several states of member m at once
-// (envelope.EndMomentsOf).
+// (envelope.EndMomentsOf); each state with the solution of its
+// combination (second order: its own).
 func (r *Result) EndMomentsOf(m int, states []envelope.State) []envelope.State {
-	// A finder's evaluator and scratch, formed once and reused member
-	// after member: a design table asks for every member's states.
-	f, _ := r.finders.Get().(*envelope.EndsFinder)
-	if f == nil {
-		f = envelope.NewEndsFinder(r.sol, r.solved, r.Envelope.Settings, r.lay)
+	if r.units == nil {
+		// A finder's evaluator and scratch, formed once and reused member
+		// after member: a design table asks for every member's states.
+		f, _ := r.finders.Get().(*envelope.EndsFinder)
+		if f == nil {
+			f = envelope.NewEndsFinder(r.sol, r.solved, r.Envelope.Settings, r.lay)
+		}
+		out := f.Of(m, states)
+		r.finders.Put(f)
+		return out
 	}
-	out := f.Of(m, states)
-	r.finders.Put(f)
+	out := make([]envelope.State, len(states))
+	byKey := map[int][]int{} // unit of the solution → states
+	var order []int
+	for i, st := range states {
+		u := r.unitOf(st.By)
+		if _, ok := byKey[u]; !ok {
+			order = append(order, u)
+		}
+		byKey[u] = append(byKey[u], i)
+	}
+	for _, u := range order {
+		idx := byKey[u]
+		sub := make([]envelope.State, len(idx))
+		for q, i := range idx {
+			sub[q] = states[i]
+		}
+		sol, lay, err := r.solutionFor(states[idx[0]].By)
+		if err != nil {
+			for _, i := range idx {
+				out[i] = states[i]
+			}
+			continue
+		}
+		got := envelope.EndMomentsOf(sol, r.solved, r.Envelope.Settings, lay, m, sub)
+		for q, i := range idx {
+			out[i] = got[q]
+		}
+	}
 	return out
 }
 
 // StationsAt returns the envelopes of member m, in its own axes, at the
 // points xs from its start, over the strength combinations as the
-// envelope forms them (see envelope.StationsAt).
+// envelope forms them (see envelope.StationsAt); in a run with
+// combinations analysed apart (second order, reduced stiffness), each
+// group of them on its own solution, merged.
 func (r *Result) StationsAt(m int, xs []float64) ([]envelope.Station, error) {
-	return envelope.StationsAt(r.sol, r.solved, r.Envelope.Settings, r.lay, m, xs)
+	if r.units == nil {
+		return envelope.StationsAt(r.sol, r.solved, r.Envelope.Settings, r.lay, m, xs)
+	}
+	var out []envelope.Station
+	strength := newMerger(r.Job.Combinations).strength
+	seen := map[int]bool{}
+	for _, u := range r.units {
+		g := r.unitOf(u.k)
+		if seen[g] || !strength[u.k] {
+			continue
+		}
+		seen[g] = true
+		sol, lay, err := r.solutionFor(u.k)
+		if err != nil {
+			return nil, err
+		}
+		// The strength combinations this solution serves.
+		var cs []combos.Combination
+		var idx []int
+		for _, v := range r.units {
+			if r.unitOf(v.k) == g && strength[v.k] {
+				cs, idx = append(cs, v.cb), append(idx, v.k)
+			}
+		}
+		st, err := envelope.StationsAt(sol, cs, r.Envelope.Settings, lay, m, xs)
+		if err != nil {
+			return nil, err
+		}
+		if out == nil {
+			out = make([]envelope.Station, len(st))
+			for i := range st {
+				out[i] = envelope.Station{X: st[i].X, Extra: st[i].Extra, N: emptyExtreme(), V: emptyExtreme(), M: emptyExtreme()}
+			}
+		}
+		for i := range st {
+			mergeExtreme(&out[i].N, &st[i].N, idx)
+			mergeExtreme(&out[i].V, &st[i].V, idx)
+			mergeExtreme(&out[i].M, &st[i].M, idx)
+		}
+	}
+	return out, nil
 }
 
 // endForces returns member m's end forces in load case c, adding up the

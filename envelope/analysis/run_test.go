@@ -106,8 +106,8 @@ func TestRunRefuses(t *testing.T) {
 		want string
 	}{
 		{"member factors, not applied yet", func(j *Job) { j.MemberFactors = []MemberFactor{{Member: 0, Case: 1, N: 0.5, V: 0.5, M: 0.5}} }, ErrNotApplied, "MemberFactors"},
-		{"second order, not applied yet", func(j *Job) { j.Methods = []Method{{}, {SecondOrder: true}} }, ErrNotApplied, `combination "1.2D+1.6L" asks for nominal stiffness, second order true`},
-		{"strength stiffness, not applied yet", func(j *Job) { j.Methods = []Method{{Stiffness: Strength}, {}} }, ErrNotApplied, "strength stiffness"},
+		{"a stiffness factor above 1", func(j *Job) { j.Sway.StrengthEI = 1.2 }, nil, "a reduction is at most 1"},
+		{"factors on I for the wrong sections", func(j *Job) { j.Sway.SectionI = []float64{0.35, 0.7, 1} }, nil, "gives 3 factors for 1 sections"},
 		{"a method for each combination", func(j *Job) { j.Methods = []Method{{}} }, nil, "gives 1 methods for 2 combinations"},
 		{"a case no combination uses", func(j *Job) { j.Combinations = j.Combinations[:1] }, ErrUnused, `case "L"`},
 		{"cases not those of the model", func(j *Job) { j.Cases = j.Cases[:1] }, nil, "names 1 load cases; the model has 2"},

@@ -3,6 +3,7 @@ package report
 import (
 	"fmt"
 	"io"
+	"math"
 	"strings"
 
 	"govern/combos"
@@ -90,8 +91,47 @@ func WriteCombinations(w io.Writer, job *analysis.Job) error {
 	if u := unusedText(job); u != "" {
 		fmt.Fprintf(w, "\n%s\n", u)
 	}
+	if err := writeNotional(w, job); err != nil {
+		return err
+	}
 	fmt.Fprintf(w, "\n%s\n", Caution)
 	return nil
+}
+
+// writeNotional lists the notional loads of each combination, level by
+// level, where the job asks for them.
+func writeNotional(w io.Writer, job *analysis.Job) error {
+	if job.Sway.Notional == analysis.NoNotional && job.Sway.TauB != analysis.TauBNotional {
+		return nil
+	}
+	ns, err := analysis.NotionalLoads(job)
+	if err != nil {
+		return err
+	}
+	force, _, _ := mustShown(job.Units)
+	fmt.Fprintf(w, "\nNotional loads (%s): the ratio times the gravity load Yi each level receives, along X\n", job.Sway.Notional)
+	var rows [][]string
+	for k, cb := range job.Combinations {
+		name := cb.Name
+		for _, n := range ns[k] {
+			dir := "+X"
+			if n.Direction < 0 {
+				dir = "-X"
+			}
+			if n.Alternative {
+				dir += " (alternative)"
+			}
+			for _, lv := range n.Levels {
+				level := lv.Level
+				if level == "" {
+					level = "y = " + fixed(lv.Y)
+				}
+				rows = append(rows, []string{name, dir, sig4(n.Ratio), level, fixed(force.Of(lv.Gravity)), sig4(force.Of(math.Abs(lv.Force)))})
+				name, dir = "", ""
+			}
+		}
+	}
+	return renderTable(w, []string{"combination", "direction", "ratio", "level", "Yi (" + force.Label + ")", "Ni (" + force.Label + ")"}, rows)
 }
 
 // WriteCombinationsCSV writes one row per combination: name, rule, with

@@ -59,6 +59,9 @@ func (p *Report) WriteCSV(w io.Writer) error {
 			}
 		}
 	}
+	if err := p.csvNodes(cw.Write); err != nil {
+		return err
+	}
 	if s := p.src; s != nil {
 		// The source, a row each for the whole model, as the condition
 		// number below: member and x empty, the name in the effect

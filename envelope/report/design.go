@@ -21,11 +21,12 @@ type Table struct {
 type design struct {
 	governing     string // the note above the design values
 	groups        []groupDesign
-	deflection    *Table // nil without service combinations or spans
-	limits        *Table // nil without a limited service combination or spans
-	reactions     *Table // nil without supports
-	withReactions *Table // each extreme with its concurrent reaction; nil without supports
-	staticsTop    string // the note above the statics table
+	deflection    *Table  // nil without service combinations or spans
+	limits        *Table  // nil without a limited service combination or spans
+	reactions     *Table  // nil without supports
+	withReactions *Table  // each extreme with its concurrent reaction; nil without supports
+	stability     []Table // the frame's stability (stability.go)
+	staticsTop    string  // the note above the statics table
 	statics       Table
 }
 
@@ -54,6 +55,7 @@ func (p *Report) Tables() []Table {
 	if d.reactions != nil {
 		out = append(out, *d.reactions, *d.withReactions)
 	}
+	out = append(out, d.stability...)
 	return append(out, d.statics)
 }
 
@@ -93,6 +95,7 @@ func newDesign(p *Report) *design {
 	d.limits = p.limitTable()
 	d.reactions = p.reactionTable()
 	d.withReactions = p.reactionStateTable()
+	d.stability = p.stabilityTables()
 	d.staticsTop, d.statics = p.staticsTable()
 	return d
 }
@@ -264,15 +267,19 @@ const reactionRoundOff = 1e-9
 // nil without supports. A value that is zero to round-off names no
 // governing combination ("-"): which combination gives it is round-off.
 func (p *Report) reactionTable() *Table {
-	env := p.res.Envelope
-	if len(env.Reactions) == 0 {
+	return p.reactionTableOf(p.res.Envelope.Reactions, "Reactions (global: +X right, +Y up, M counter-clockwise)")
+}
+
+// reactionTableOf is reactionTable for the reactions rs, with a title.
+func (p *Report) reactionTableOf(rs []envelope.Reaction, title string) *Table {
+	if len(rs) == 0 {
 		return nil
 	}
 	mo := p.model()
 	// The largest size of each component over every support, for what
 	// counts as zero.
 	var largest [3]float64
-	for _, r := range env.Reactions {
+	for _, r := range rs {
 		for d, e := range [3]envelope.Extreme{r.Fx, r.Fy, r.M} {
 			if mo.Nodes[r.Node].Support.Restrained(d) {
 				largest[d] = math.Max(largest[d], math.Max(math.Abs(e.Max), math.Abs(e.Min)))
@@ -288,7 +295,7 @@ func (p *Report) reactionTable() *Table {
 		return p.comboName(k)
 	}
 	var rows [][]string
-	for _, r := range env.Reactions {
+	for _, r := range rs {
 		node := mo.Nodes[r.Node]
 		name := node.Name
 		for d, e := range []struct {
@@ -303,7 +310,7 @@ func (p *Report) reactionTable() *Table {
 			name = ""
 		}
 	}
-	return &Table{"Reactions (global: +X right, +Y up, M counter-clockwise)", []string{"node", "component", "max", "governing", "min", "governing"}, rows}
+	return &Table{title, []string{"node", "component", "max", "governing", "min", "governing"}, rows}
 }
 
 // reactionStateTable gives, for every restrained reaction component of

@@ -113,6 +113,7 @@ func (p *Report) WriteHTML(w io.Writer) error {
 	}
 	h.printf("<p class=\"meta\">Envelopes of N, V and M by the direct stiffness method; %s; %s.</p>\n",
 		esc(p.combinationCount()), esc(p.unitsText()))
+	h.printf("<p class=\"meta\">%s</p>\n", esc(p.analysisText()))
 	h.printf("<p class=\"caution\"><strong>Caution.</strong> %s</p>\n", esc(Caution))
 	if note := p.conditionNote(); note != "" {
 		h.printf("<p class=\"caution\">%s</p>\n", esc(note))
@@ -131,7 +132,7 @@ func (p *Report) WriteHTML(w io.Writer) error {
 	for _, g := range d.groups {
 		entries = append(entries, [2]string{g.id, g.title})
 	}
-	entries = append(entries, [2]string{"reactions", "Reactions"}, [2]string{"cases", "Load case results"}, [2]string{"combinations", "Load combinations"}, [2]string{"statics", "Statics check"})
+	entries = append(entries, [2]string{"reactions", "Reactions"}, [2]string{"stability", "Frame stability"}, [2]string{"cases", "Load case results"}, [2]string{"combinations", "Load combinations"}, [2]string{"statics", "Statics check"})
 	for _, e := range entries {
 		h.printf("<li><a href=\"#%s\">%s</a></li>\n", esc(e[0]), esc(e[1]))
 	}
@@ -188,6 +189,13 @@ func (p *Report) WriteHTML(w io.Writer) error {
 		}
 	} else {
 		h.raw("<p>No node is supported.</p>\n")
+	}
+	h.raw("</section>\n")
+	h.raw("<section id=\"stability\" class=\"part\">\n<h2>Frame stability</h2>\n")
+	for _, t := range d.stability {
+		if err := (htmlTables{h: h, heading: "h3"}).table(t); err != nil {
+			return err
+		}
 	}
 	h.raw("</section>\n")
 	if err := p.htmlCases(h); err != nil {

@@ -83,7 +83,9 @@ func (p *Report) WriteJSON(w io.Writer) error {
 				n++
 			}
 		}
-		j.raw("}, \"service\": ").boolean(cb.Service).raw(", \"use\": ").str(use(cb)).raw("}")
+		j.raw("}, \"service\": ").boolean(cb.Service).raw(", \"use\": ").str(use(cb))
+		p.jsonCombination(j, i)
+		j.raw("}")
 	}
 	j.raw("\n ],\n \"members\": [")
 	// Each effect in its output unit: N, V and Fx, Fy forces, M moments.
@@ -151,6 +153,7 @@ func (p *Report) WriteJSON(w io.Writer) error {
 		j.raw("}")
 	}
 	j.raw("\n ]")
+	p.jsonStability(j, combo)
 	p.jsonCases(j)
 	j.raw(",\n \"statics\": [")
 	for i, b := range p.res.Statics {

@@ -105,6 +105,11 @@ func (p *Report) WriteText(w io.Writer, crossCheck bool) error {
 			}
 		}
 	}
+	for _, t := range d.stability {
+		if err := tb.table(t); err != nil {
+			return err
+		}
+	}
 	if err := tb.note(d.staticsTop); err != nil {
 		return err
 	}
@@ -140,5 +145,6 @@ func (p *Report) writeHeading(w io.Writer) {
 	if note := p.conditionNote(); note != "" {
 		fmt.Fprintf(w, "%s\n", note)
 	}
+	fmt.Fprintf(w, "%s\n", p.analysisText())
 	fmt.Fprintf(w, "Units: %s. N tension positive; %s: x from the left end, M sagging positive (lower face in tension); columns: local -y face in tension; V = dM/dx.\n\n", Escape(p.unitsText()), p.shownFromLeft())
 }

@@ -63,8 +63,14 @@ func TestOutputUnitsJSON(t *testing.T) {
 		k := path[len(path)-1]
 		in := func(s string) bool { return strings.Contains(strings.Join(path, "/"), s) }
 		switch {
-		case in("deflection"), in("displacements") && (k == "ux" || k == "uy"):
+		case in("deflection"), in("nodes/") && (in("/ux/") || in("/uy/")), in("drift"), in("displacements") && (k == "ux" || k == "uy"):
 			return mToMM
+		case in("nodes/") && in("/rz/"):
+			return 1 // radians
+		case in("storeys/") && (k == "P" || k == "H"), k == "base_shear", k == "gravity", k == "force" && in("notional"):
+			return kNToKip
+		case k == "second_order" || k == "first_order":
+			return kNmToKipFt
 		case k == "N" || k == "V" || k == "Fx" || k == "Fy" || k == "force" && in("joint_residual"):
 			return kNToKip
 		case k == "M" || k == "moment" && in("joint_residual"):
@@ -197,7 +203,7 @@ func TestOutputUnitsCSV(t *testing.T) {
 	if h := strings.Join(rows[0][12:18], ","); h != "max_with_N (kip),max_with_V (kip),max_with_M (kip·ft),min_with_N (kip),min_with_V (kip),min_with_M (kip·ft)" {
 		t.Errorf("header %s", h)
 	}
-	units := map[string]string{"N": "kip", "V": "kip", "M": "kip·ft", "deflection": "mm"}
+	units := map[string]string{"N": "kip", "V": "kip", "M": "kip·ft", "deflection": "mm", "node ux": "mm", "node uy": "mm", "node rz": "rad"}
 	for _, r := range rows[1:] {
 		if r[7] != units[r[2]] {
 			t.Errorf("row %v: unit %q, want %q", r[:3], r[7], units[r[2]])

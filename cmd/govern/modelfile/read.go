@@ -141,6 +141,7 @@ type reader struct {
 	caseTables []*table // per case, its table, for messages (combinations.go)
 	released   []bool   // nodes whose rotation carries nothing, once found (load.go)
 
+	sway       swaySettings    // [analysis] second_order and its keys
 	zones      bool            // [analysis] rigid_zones
 	zoneFactor float64         // [analysis] rigid_zone_factor
 	ownZone    map[[2]int]bool // member and side (0 start, 1 end) that gives its own rigid zone
@@ -194,6 +195,7 @@ func (r *reader) read(raw map[string]any) *Job {
 				r.zoneFactor = f
 			}
 		}
+		r.readSway(a)
 		a.done()
 	}
 	r.readSections(top.array("section", func(i int, m map[string]any) string { return named("section", i, m) }))
@@ -216,6 +218,7 @@ func (r *reader) read(raw map[string]any) *Job {
 		job.Combinations = combos.EachCase(job.Cases)
 	}
 	r.checkPermanentPatterns()
+	r.methods()
 	for i, x := range r.lines() {
 		job.Lines = append(job.Lines, analysis.GridLine{Name: LineName(i), X: x})
 	}
@@ -278,6 +281,7 @@ func (r *reader) readSections(ts []*table) {
 				s.Depth = d
 			}
 		}
+		r.sectionSway(t)
 		effective := 0.0
 		if d, ok := t.qtyOK("d", units.Length, 0); ok {
 			switch {

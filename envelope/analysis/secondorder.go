@@ -1,0 +1,781 @@
+package analysis
+
+import (
+	"errors"
+	"fmt"
+	"math"
+	"runtime"
+	"slices"
+	"sync"
+
+	"govern/combos"
+	"govern/envelope"
+	"govern/frame"
+	"govern/patterns"
+)
+
+// unit is one analysis of a combination of the job: the combination as
+// solved (its terms on the solved model's cases, its notional case
+// among them), how it is analysed, and its notional loads. A
+// combination without lateral load whose notional loads act in either
+// direction has two units, one per direction.
+type unit struct {
+	k         int                // the job's combination
+	cb        combos.Combination // as solved
+	bare      combos.Combination // as solved without its notional case
+	method    Method
+	scale     float64   // 1.6 for a second-order allowable combination, else 1
+	notional  *Notional // nil for none
+	axial     []float64 // the axial forces of its geometric stiffness (second order)
+	critical  float64   // αcr of the combination as written, with its stiffness
+	nominal   float64   // αcr with the sections as given
+	iteration int
+}
+
+// plan lists the units of a job, with the solved model grown by the
+// notional cases.
+type plan struct {
+	units []unit
+	// simple is set when every combination is one first-order analysis
+	// with the sections as given and no notional load: Run then envelopes
+	// them all at once as it always has.
+	simple bool
+}
+
+// methodOf returns the method of combination k.
+func (j *Job) methodOf(k int) Method {
+	if j.Methods == nil {
+		return Method{}
+	}
+	return j.Methods[k]
+}
+
+// checkStability returns an error for stability settings Run cannot apply.
+func (j *Job) checkStability() error {
+	st := &j.Sway
+	for _, f := range []struct {
+		name string
+		v    float64
+	}{{"StrengthEI", st.StrengthEI}, {"StrengthEA", st.StrengthEA}, {"NotionalRatio", st.NotionalRatio}, {"Tolerance", st.Tolerance}} {
+		if !(f.v >= 0) || math.IsInf(f.v, 0) {
+			return fmt.Errorf("analysis: Sway.%s = %v: must be a finite number >= 0", f.name, f.v)
+		}
+	}
+	if st.StrengthEI > 1 || st.StrengthEA > 1 {
+		return fmt.Errorf("analysis: stiffness factors %v on EI and %v on EA: a reduction is at most 1", st.StrengthEI, st.StrengthEA)
+	}
+	ns := len(j.Model.Sections)
+	if st.SectionI != nil && len(st.SectionI) != ns {
+		return fmt.Errorf("analysis: Sway.SectionI gives %d factors for %d sections", len(st.SectionI), ns)
+	}
+	for i, f := range st.SectionI {
+		if !(f >= 0 && f <= 1) {
+			return fmt.Errorf("analysis: section %q: factor on I %v must be from 0 to 1", j.Model.Sections[i].Name, f)
+		}
+	}
+	if st.Fy != nil && len(st.Fy) != ns {
+		return fmt.Errorf("analysis: Sway.Fy gives %d values for %d sections", len(st.Fy), ns)
+	}
+	if st.TauB == TauBFy {
+		for i, fy := range st.Fy {
+			if !(fy >= 0) || math.IsInf(fy, 0) {
+				return fmt.Errorf("analysis: section %q: Fy %v must be a finite number >= 0", j.Model.Sections[i].Name, fy)
+			}
+		}
+	}
+	if st.Notional > NotionalRatio || st.TauB > TauBNotional {
+		return errors.New("analysis: unknown notional load rule or τb choice")
+	}
+	for k, m := range j.Methods {
+		if m.Stiffness > Service {
+			return fmt.Errorf("analysis: combination %q: unknown stiffness %v", j.Combinations[k].Name, m.Stiffness)
+		}
+	}
+	return nil
+}
+
+// makePlan returns the units of the job and grows sv's model by one
+// notional case per unit that has notional loads.
+func makePlan(job *Job, sv *solved) (*plan, error) {
+	pl := &plan{simple: job.Sway.Notional == NoNotional && job.Sway.TauB != TauBNotional}
+	for k := range job.Combinations {
+		// Allowable alone changes nothing without notional loads.
+		if m := job.methodOf(k); m.SecondOrder || m.Stiffness != Nominal {
+			pl.simple = false
+		}
+	}
+	base := sv.model
+	var added []frame.Case
+	for k, cb := range sv.combinations {
+		m := job.methodOf(k)
+		u := unit{k: k, cb: cb, bare: cb, method: m, scale: 1}
+		if m.SecondOrder && m.Allowable {
+			u.scale = AllowableScale
+		}
+		if pl.simple {
+			pl.units = append(pl.units, u)
+			continue
+		}
+		alpha := 1.0
+		if m.Allowable && !m.SecondOrder {
+			alpha = AllowableScale
+		}
+		var axial []float64
+		if job.Sway.Notional == NotionalEN1993 {
+			sol, err := frame.Solve(combined(base, base.Sections, base.Members, cb, 1, nil))
+			if err != nil {
+				return nil, fmt.Errorf("combination %q: %w", job.Combinations[k].Name, err)
+			}
+			axial = axialForces(sol, 0)
+		}
+		ratio, err := notionalRatio(job, base, alpha, axial)
+		if err != nil {
+			return nil, err
+		}
+		// Notional loads stand for the imperfections that strength design
+		// must allow for; service combinations take none.
+		if ratio == 0 || cb.Service {
+			pl.units = append(pl.units, u)
+			continue
+		}
+		for _, n := range notionalLoads(job, base, cb, ratio) {
+			v := u
+			n := n
+			v.notional = &n
+			c := len(base.Cases) + len(added)
+			dir := "+X"
+			if n.Direction < 0 {
+				dir = "−X"
+			}
+			added = append(added, frame.Case{Name: fmt.Sprintf("notional %s (%s)", dir, job.Combinations[k].Name), NodeLoads: n.nodes})
+			v.cb.Terms = append(slices.Clip(cb.Terms), combos.Term{Case: c, Factor: 1})
+			pl.units = append(pl.units, v)
+		}
+	}
+	if len(added) > 0 {
+		mo := *base
+		mo.Cases = append(slices.Clip(base.Cases), added...)
+		sv.model = &mo
+		for range added {
+			sv.kinds = append(sv.kinds, combos.Dead) // always acts in its combination
+		}
+	}
+	return pl, nil
+}
+
+// combined returns a model with the nodes of base, the sections and
+// members given, and one load case: the cases of cb at scale times their
+// factors, each whole (every pattern piece loaded).
+func combined(base *frame.Model, sections []frame.Section, members []frame.Member, cb combos.Combination, scale float64, extra *frame.Case) *frame.Model {
+	var c frame.Case
+	c.Name = cb.Name
+	add := func(src *frame.Case, f float64) {
+		for _, ld := range src.MemberLoads {
+			ld.W, ld.WEnd, ld.P, ld.M, ld.DT, ld.DTGrad = f*ld.W, f*ld.WEnd, f*ld.P, f*ld.M, f*ld.DT, f*ld.DTGrad
+			c.MemberLoads = append(c.MemberLoads, ld)
+		}
+		for _, nl := range src.NodeLoads {
+			nl.Fx, nl.Fy, nl.M = f*nl.Fx, f*nl.Fy, f*nl.M
+			c.NodeLoads = append(c.NodeLoads, nl)
+		}
+		for _, nd := range src.Displacements {
+			nd.Ux, nd.Uy, nd.Rz = f*nd.Ux, f*nd.Uy, f*nd.Rz
+			c.Displacements = append(c.Displacements, nd)
+		}
+	}
+	for _, t := range cb.Terms {
+		add(&base.Cases[t.Case], scale*t.Factor)
+	}
+	if extra != nil {
+		add(extra, scale)
+	}
+	return &frame.Model{Nodes: base.Nodes, Sections: sections, Members: members, Cases: []frame.Case{c}}
+}
+
+// axialForces returns the axial force (tension positive) of every member
+// in case c: the mean of its ends' where member loads along it make it
+// vary.
+func axialForces(sol *frame.Solution, c int) []float64 {
+	mo := sol.Model()
+	out := make([]float64, len(mo.Members))
+	for m := range out {
+		f := sol.EndForces(c, m)
+		out[m] = (-f[0] + f[3]) / 2
+	}
+	return out
+}
+
+// stiffnessOf returns the sections and members of mo with stiffness s: the
+// sections as given (Nominal), or copies scaled by the job's factors, one
+// per section.
+func (j *Job) stiffnessOf(mo *frame.Model, s Stiffness) ([]frame.Section, []frame.Member) {
+	st := &j.Sway
+	if s == Nominal {
+		return mo.Sections, mo.Members
+	}
+	secs := slices.Clone(mo.Sections)
+	for i := range secs {
+		fi, fa := 1.0, 1.0
+		var own float64
+		if st.SectionI != nil {
+			own = st.SectionI[i]
+		}
+		switch s {
+		case Strength:
+			if st.StrengthEI > 0 {
+				fi = st.StrengthEI
+			}
+			if st.StrengthEA > 0 {
+				fa = st.StrengthEA
+			}
+			if own > 0 {
+				fi *= own
+			}
+		case Service:
+			if own > 0 {
+				fi = min(1.4*own, 1)
+			}
+		}
+		secs[i].I *= fi
+		secs[i].A *= fa
+	}
+	return secs, mo.Members
+}
+
+// tauB returns sections and members with τb of AISC 360-16 C2.3(b)
+// applied to the bending stiffness of each member whose section gives Fy,
+// from its axial force: each member gets its own section. alpha is 1 for
+// strength, 1.6 for allowable.
+func (j *Job) tauB(secs []frame.Section, members []frame.Member, axial []float64, alpha float64) ([]frame.Section, []frame.Member) {
+	if j.Sway.TauB != TauBFy || j.Sway.Fy == nil {
+		return secs, members
+	}
+	out := slices.Clone(secs)
+	mem := slices.Clone(members)
+	for m := range mem {
+		s := members[m].Section
+		fy := j.Sway.Fy[s]
+		if fy <= 0 {
+			continue
+		}
+		pns := fy * j.Model.Sections[s].A
+		ratio := alpha * max(-axial[m], 0) / pns
+		if ratio <= 0.5 {
+			continue
+		}
+		tau := max(4*ratio*(1-ratio), 0)
+		sec := secs[s]
+		sec.Name = fmt.Sprintf("%s (τb %s)", sec.Name, members[m].Name)
+		sec.I *= tau
+		if !(sec.I > 0) {
+			sec.I = math.SmallestNonzeroFloat64 * 1e10
+		}
+		mem[m].Section = len(out)
+		out = append(out, sec)
+	}
+	return out, mem
+}
+
+// iterate solves unit u's combination, every case at its factor (times
+// u.scale) and every piece loaded, in second order: the axial forces of
+// one solve give the geometric stiffness of the next until they change by
+// less than the tolerance. It sets u.axial and u.iteration, and u's
+// critical load factors from the first-order axial forces.
+func (r *Result) iterate(u *unit, base *frame.Model, stiff Stiffness) error {
+	job := r.Job
+	name := job.Combinations[u.k].Name
+	tol := job.Sway.Tolerance
+	if tol == 0 {
+		tol = DefaultTolerance
+	}
+	secs, mems := job.stiffnessOf(base, stiff)
+	mo := combined(base, secs, mems, u.cb, u.scale, nil)
+	sol, err := frame.SolveWith(mo, r.solver)
+	if err != nil {
+		return fmt.Errorf("combination %q: %w", name, err)
+	}
+	n := axialForces(sol, 0)
+	if err := r.critical(u, base, n, stiff); err != nil {
+		return err
+	}
+	alpha := 1.0
+	if u.method.Allowable {
+		alpha = AllowableScale
+	}
+	for it := 1; ; it++ {
+		s2, m2 := job.tauB(secs, mems, n, alpha/u.scale)
+		mo.Sections, mo.Members = s2, m2
+		so := r.solver
+		so.Axial = n
+		sol, err = frame.SolveWith(mo, so)
+		if err != nil {
+			return fmt.Errorf("combination %q: second-order analysis: %w", name, err)
+		}
+		next := axialForces(sol, 0)
+		big, change := 0.0, 0.0
+		for m := range n {
+			big = max(big, math.Abs(next[m]))
+			change = max(change, math.Abs(next[m]-n[m]))
+		}
+		n = next
+		if change <= tol*big {
+			u.iteration = it
+			break
+		}
+		if it >= MaxIterations {
+			return fmt.Errorf("combination %q: the second-order analysis did not converge in %d iterations (axial forces still change by %.3g of the largest): the frame is close to buckling under it", name, MaxIterations, change/big)
+		}
+	}
+	// The combination's own statics, on the deformed geometry.
+	so := r.solver
+	so.Axial = n
+	sol, err = frame.SolveWith(mo, so)
+	if err != nil {
+		return fmt.Errorf("combination %q: second-order analysis: %w", name, err)
+	}
+	if b := sol.Balance(0); b.Relative() > max(StaticsLimit, sol.RoundOff()) {
+		return fmt.Errorf("combination %q: the second-order solution is out of balance by %.2g of its load on the deformed geometry", name, b.Relative())
+	}
+	u.axial = n
+	return nil
+}
+
+// critical sets u's critical load factors, for the combination as
+// written, from the first-order axial forces n of its loads at u.scale.
+func (r *Result) critical(u *unit, base *frame.Model, n []float64, stiff Stiffness) error {
+	job := r.Job
+	name := job.Combinations[u.k].Name
+	secs, mems := job.stiffnessOf(base, stiff)
+	a, err := frame.CriticalFactor(&frame.Model{Nodes: base.Nodes, Sections: secs, Members: mems}, n)
+	if err != nil {
+		return fmt.Errorf("combination %q: critical load factor: %w", name, err)
+	}
+	u.critical = sixFigures(a * u.scale)
+	u.nominal = u.critical
+	if stiff != Nominal {
+		a, err := frame.CriticalFactor(&frame.Model{Nodes: base.Nodes, Sections: base.Sections, Members: base.Members}, n)
+		if err != nil {
+			return fmt.Errorf("combination %q: critical load factor: %w", name, err)
+		}
+		u.nominal = sixFigures(a * u.scale)
+	}
+	limit := 1.0
+	if u.method.Allowable {
+		limit = AllowableScale
+	}
+	if !(u.critical > limit) {
+		err := fmt.Errorf("%w: combination %q: the critical load factor αcr = %.4g is not above %g: the frame buckles under it (with %s stiffness)", ErrBuckles, name, u.critical, limit, stiff)
+		if u.method.SecondOrder {
+			return err
+		}
+		// A first-order analysis can still be made; what it gives does not
+		// stand, and the warning says so (see docs/analysis.md).
+		r.mu.Lock()
+		r.buckled = append(r.buckled, buckled{u.k, err.Error() + "; the first-order results of this combination do not stand"})
+		r.mu.Unlock()
+	}
+	return nil
+}
+
+// ErrBuckles marks a combination under which the frame buckles.
+var ErrBuckles = errors.New("the frame buckles")
+
+// request is one envelope Run forms over every unit: its settings, and
+// whether the units' notional cases are left out.
+type request struct {
+	set  envelope.Settings
+	bare bool
+}
+
+// envelopes forms the envelopes of the requests over every unit of the
+// plan: units analysed alike (first order, one stiffness) together on one
+// solution, each second-order unit on its own; merged combination by
+// combination.
+func (r *Result) envelopes(pl *plan, sv *solved, lay *patterns.Layout, reqs []request, vals []*valuesRequest, opt Options) ([]*envelope.Envelope, error) {
+	job := r.Job
+	type group struct {
+		stiff  Stiffness
+		second bool
+		units  []int
+	}
+	var groups []group
+	firstOf := map[Stiffness]int{}
+	for i, u := range pl.units {
+		if u.method.SecondOrder {
+			groups = append(groups, group{stiff: u.method.Stiffness, second: true, units: []int{i}})
+			continue
+		}
+		g, ok := firstOf[u.method.Stiffness]
+		if !ok {
+			g = len(groups)
+			firstOf[u.method.Stiffness] = g
+			groups = append(groups, group{stiff: u.method.Stiffness})
+		}
+		groups[g].units = append(groups[g].units, i)
+	}
+	mg := make([]*merger, len(reqs))
+	for i := range reqs {
+		mg[i] = newMerger(job.Combinations)
+	}
+	for _, g := range groups {
+		sol := r.sol
+		glay := lay
+		if g.second || g.stiff != Nominal {
+			secs, mems := job.stiffnessOf(lay.Model, g.stiff)
+			var axial []float64
+			if g.second {
+				u := &pl.units[g.units[0]]
+				if err := r.iterate(u, sv.model, g.stiff); err != nil {
+					return nil, err
+				}
+				axial = u.axial
+				alpha := 1.0
+				if u.method.Allowable {
+					alpha = AllowableScale
+				}
+				secs, mems = job.tauB(secs, mems, axial, alpha/u.scale)
+			}
+			mo := *lay.Model
+			mo.Sections, mo.Members = secs, mems
+			l2 := *lay
+			l2.Model = &mo
+			glay = &l2
+			var err error
+			so := opt.Solver
+			so.Axial = axial
+			if sol, err = frame.SolveWith(&mo, so); err != nil {
+				return nil, fmt.Errorf("combination %q: %w", job.Combinations[pl.units[g.units[0]].k].Name, err)
+			}
+			for _, w := range sol.Warnings() {
+				if !slices.Contains(r.Warnings, w) {
+					r.Warnings = append(r.Warnings, w)
+				}
+			}
+		}
+		if !g.second {
+			var us []*unit
+			for _, i := range g.units {
+				us = append(us, &pl.units[i])
+			}
+			if err := r.criticalAll(us, sv.model, g.stiff); err != nil {
+				return nil, err
+			}
+		}
+		for _, i := range g.units {
+			u := &pl.units[i]
+			if err := r.storeyStability(u, sv.model, g.stiff); err != nil {
+				return nil, err
+			}
+			cb := &r.Combinations[u.k]
+			cb.CriticalFactor = minCritical(cb.CriticalFactor, u.critical)
+			cb.CriticalNominal = minCritical(cb.CriticalNominal, u.nominal)
+			cb.Iterations = max(cb.Iterations, u.iteration)
+			cb.Condition = max(cb.Condition, sol.Cond())
+			if u.notional != nil {
+				cb.Notional = append(cb.Notional, *u.notional)
+			}
+		}
+		for q, rq := range reqs {
+			cs := make([]combos.Combination, len(g.units))
+			idx := make([]int, len(g.units))
+			for i, ui := range g.units {
+				u := &pl.units[ui]
+				cs[i], idx[i] = u.cb, u.k
+				if rq.bare {
+					cs[i] = u.bare
+				}
+			}
+			env, err := envelope.Compute(sol, cs, rq.set, glay)
+			if err != nil {
+				return nil, err
+			}
+			mg[q].add(env, idx)
+			if q == 0 {
+				for _, vr := range vals {
+					if err := vr.add(sol, glay, cs, idx, rq.set); err != nil {
+						return nil, err
+					}
+				}
+			}
+		}
+	}
+	out := make([]*envelope.Envelope, len(reqs))
+	for q := range reqs {
+		out[q] = mg[q].env
+		out[q].Settings = reqs[q].set
+		if lay != nil {
+			out[q].Pieces = lay.Pieces
+		}
+	}
+	return out, nil
+}
+
+// minCritical returns the smaller of two critical load factors, 0 being
+// none yet.
+func minCritical(a, b float64) float64 {
+	if a == 0 {
+		return b
+	}
+	return min(a, b)
+}
+
+// merger gathers envelopes formed over parts of the combinations into one
+// over all of them: at each station the larger maximum and the smaller
+// minimum, the first combination (in the job's order) of equal values.
+type merger struct {
+	env               *envelope.Envelope
+	strength, service []bool // per job combination
+}
+
+func newMerger(cs []combos.Combination) *merger {
+	mg := &merger{strength: make([]bool, len(cs)), service: make([]bool, len(cs))}
+	anyStrength := false
+	for k, cb := range cs {
+		mg.service[k] = cb.Service
+		mg.strength[k] = !cb.Service
+		anyStrength = anyStrength || !cb.Service
+	}
+	env := &envelope.Envelope{Combinations: cs}
+	for k := range cs {
+		if !anyStrength {
+			mg.strength[k] = true
+		}
+		if mg.strength[k] {
+			env.Strength = append(env.Strength, k)
+		}
+		if mg.service[k] {
+			env.Service = append(env.Service, k)
+		}
+	}
+	mg.env = env
+	return mg
+}
+
+func emptyExtreme() envelope.Extreme {
+	return envelope.Extreme{Max: math.Inf(-1), MaxBy: -1, Min: math.Inf(1), MinBy: -1}
+}
+
+// mergeExtreme takes into d the extremes of s, whose combinations idx
+// maps to the job's.
+func mergeExtreme(d *envelope.Extreme, s *envelope.Extreme, idx []int) {
+	if s.MaxBy >= 0 {
+		by := idx[s.MaxBy]
+		if d.MaxBy < 0 || s.Max > d.Max || s.Max == d.Max && by < d.MaxBy {
+			d.Max, d.MaxBy, d.MaxWith, d.MaxSpans, d.MaxLoaded = s.Max, by, s.MaxWith, s.MaxSpans, s.MaxLoaded
+		}
+	}
+	if s.MinBy >= 0 {
+		by := idx[s.MinBy]
+		if d.MinBy < 0 || s.Min < d.Min || s.Min == d.Min && by < d.MinBy {
+			d.Min, d.MinBy, d.MinWith, d.MinSpans, d.MinLoaded = s.Min, by, s.MinWith, s.MinSpans, s.MinLoaded
+		}
+	}
+}
+
+// add merges src, formed over the job's combinations idx (src's
+// combination i is the job's idx[i]): its forces and reactions where they
+// are over strength combinations, its deflections where over service ones.
+func (mg *merger) add(src *envelope.Envelope, idx []int) {
+	forces := len(src.Strength) > 0 && mg.strength[idx[src.Strength[0]]]
+	defl := len(src.Service) > 0
+	d := mg.env
+	if d.Members == nil {
+		d.Members = make([]envelope.Member, len(src.Members))
+		for m, sm := range src.Members {
+			dm := &d.Members[m]
+			dm.Member = sm.Member
+			dm.Stations = make([]envelope.Station, len(sm.Stations))
+			for i, st := range sm.Stations {
+				dm.Stations[i] = envelope.Station{X: st.X, Extra: st.Extra, N: emptyExtreme(), V: emptyExtreme(), M: emptyExtreme()}
+			}
+			if len(d.Service) > 0 {
+				dm.Deflection = make([]envelope.Extreme, len(sm.Stations))
+				for i := range dm.Deflection {
+					dm.Deflection[i] = emptyExtreme()
+				}
+			}
+		}
+		d.Reactions = make([]envelope.Reaction, len(src.Reactions))
+		for i, sr := range src.Reactions {
+			d.Reactions[i] = envelope.Reaction{Node: sr.Node, Fx: emptyExtreme(), Fy: emptyExtreme(), M: emptyExtreme()}
+		}
+	}
+	for m := range src.Members {
+		sm, dm := &src.Members[m], &d.Members[m]
+		if forces {
+			for i := range sm.Stations {
+				s, t := &sm.Stations[i], &dm.Stations[i]
+				mergeExtreme(&t.N, &s.N, idx)
+				mergeExtreme(&t.V, &s.V, idx)
+				mergeExtreme(&t.M, &s.M, idx)
+			}
+		}
+		if defl {
+			for i := range sm.Deflection {
+				mergeExtreme(&dm.Deflection[i], &sm.Deflection[i], idx)
+			}
+			if sm.LineDeflection != nil {
+				if dm.LineDeflection == nil {
+					dm.LineDeflection = make([]envelope.Extreme, len(sm.LineDeflection))
+					for i := range dm.LineDeflection {
+						dm.LineDeflection[i] = emptyExtreme()
+					}
+				}
+				for i := range sm.LineDeflection {
+					mergeExtreme(&dm.LineDeflection[i], &sm.LineDeflection[i], idx)
+				}
+			}
+		}
+	}
+	if forces {
+		for i := range src.Reactions {
+			s, t := &src.Reactions[i], &d.Reactions[i]
+			mergeExtreme(&t.Fx, &s.Fx, idx)
+			mergeExtreme(&t.Fy, &s.Fy, idx)
+			mergeExtreme(&t.M, &s.M, idx)
+		}
+	}
+}
+
+// firstOrderCritical sets unit u's critical load factors from a
+// first-order solve of its combination with stiffness stiff.
+func (r *Result) firstOrderCritical(u *unit, base *frame.Model, stiff Stiffness) error {
+	secs, mems := r.Job.stiffnessOf(base, stiff)
+	s0, err := frame.SolveWith(combined(base, secs, mems, u.cb, u.scale, nil), r.solver)
+	if err != nil {
+		return fmt.Errorf("combination %q: %w", r.Job.Combinations[u.k].Name, err)
+	}
+	return r.critical(u, base, axialForces(s0, 0), stiff)
+}
+
+// FirstOrderLimit is the critical load factor below which a first-order
+// analysis of a strength combination is warned about: the second-order
+// effects 1/(αcr − 1) then exceed 5 % (αcr < 21).
+const FirstOrderLimit = 21
+
+// stabilityWarnings returns a warning for each strength combination
+// analysed in first order whose critical load factor is below
+// FirstOrderLimit.
+func (r *Result) stabilityWarnings() []string {
+	slices.SortStableFunc(r.buckled, func(a, b buckled) int { return a.k - b.k })
+	var out []string
+	for _, b := range r.buckled {
+		if !slices.Contains(out, b.msg) {
+			out = append(out, b.msg)
+		}
+	}
+	for _, cb := range r.Combinations {
+		if cb.Service || cb.Method.SecondOrder || !(cb.CriticalFactor > 1) || cb.CriticalFactor >= FirstOrderLimit {
+			continue
+		}
+		out = append(out, fmt.Sprintf("combination %q: critical load factor αcr = %.3g, so second-order effects 1/(αcr − 1) = %.0f %% exceed 5 %% (αcr < %d); this analysis is first-order: EN 1993-1-1 5.2.1(3) asks αcr ≥ 10 for it, ACI 318-19 6.6.4.3 a stability index Q ≤ 0.05; set [analysis] second_order = true",
+			cb.Name, cb.CriticalFactor, 100/(cb.CriticalFactor-1), FirstOrderLimit))
+	}
+	return out
+}
+
+// buckled is the warning of a first-order combination with αcr ≤ 1.
+type buckled struct {
+	k   int
+	msg string
+}
+
+// criticalAll sets the critical load factors of the first-order units us,
+// analysed with stiffness stiff, the units shared among the processors;
+// the first error in their order.
+func (r *Result) criticalAll(us []*unit, base *frame.Model, stiff Stiffness) error {
+	errs := make([]error, len(us))
+	next := make(chan int, len(us))
+	for i := range us {
+		next <- i
+	}
+	close(next)
+	var wg sync.WaitGroup
+	for range min(runtime.GOMAXPROCS(0), len(us)) {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			for i := range next {
+				errs[i] = r.firstOrderCritical(us[i], base, stiff)
+			}
+		}()
+	}
+	wg.Wait()
+	return errors.Join(errs...)
+}
+
+// sixFigures rounds a critical load factor to the six significant figures
+// frame.CriticalTol finds it to, so that its last digits are not those of
+// the search.
+func sixFigures(a float64) float64 {
+	if a == 0 || math.IsInf(a, 0) || math.IsNaN(a) {
+		return a
+	}
+	e := math.Pow(10, 5-math.Floor(math.Log10(math.Abs(a))))
+	return math.Round(a*e) / e
+}
+
+// unitOf returns the unit whose solution serves combination k: its first
+// unit when it is second-order (each has its own), else the first unit of
+// the first-order ones of its stiffness (they share one); -1 when every
+// combination shares r.sol.
+func (r *Result) unitOf(k int) int {
+	if r.units == nil {
+		return -1
+	}
+	m := r.Job.methodOf(k)
+	for i, u := range r.units {
+		if m.SecondOrder && u.k == k {
+			return i
+		}
+		if !m.SecondOrder && !u.method.SecondOrder && u.method.Stiffness == m.Stiffness {
+			if m.Stiffness == Nominal {
+				return -1
+			}
+			return i
+		}
+	}
+	return -1
+}
+
+// solutionFor returns the solution of every load case and piece that
+// combination k was enveloped from, with its layout: r.sol for the
+// first-order ones with the sections as given; else that of its unit,
+// solved again on request and kept (the envelopes did not keep it).
+func (r *Result) solutionFor(k int) (*frame.Solution, *patterns.Layout, error) {
+	u := r.unitOf(k)
+	if u < 0 {
+		return r.sol, r.lay, nil
+	}
+	r.mu.Lock()
+	defer r.mu.Unlock()
+	if sol := r.solutions[u]; sol != nil {
+		l2 := *r.lay
+		l2.Model = sol.Model()
+		return sol, &l2, nil
+	}
+	un := &r.units[u]
+	secs, mems := r.Job.stiffnessOf(r.lay.Model, un.method.Stiffness)
+	so := r.solver
+	if un.method.SecondOrder {
+		alpha := 1.0
+		if un.method.Allowable {
+			alpha = AllowableScale
+		}
+		secs, mems = r.Job.tauB(secs, mems, un.axial, alpha/un.scale)
+		so.Axial = un.axial
+	}
+	mo := *r.lay.Model
+	mo.Sections, mo.Members = secs, mems
+	sol, err := frame.SolveWith(&mo, so)
+	if err != nil {
+		return nil, nil, err
+	}
+	if r.solutions == nil {
+		r.solutions = map[int]*frame.Solution{}
+	}
+	r.solutions[u] = sol
+	l2 := *r.lay
+	l2.Model = sol.Model()
+	return sol, &l2, nil
+}

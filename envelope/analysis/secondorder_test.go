@@ -1,0 +1,318 @@
+package analysis
+
+import (
+	"context"
+	"errors"
+	"math"
+	"strings"
+	"testing"
+
+	"govern/combos"
+	"govern/frame"
+)
+
+// cantileverJob is a cantilever column, fixed at its base, EI = 250,
+// L = 10, under a dead load p down and a wind load h along X at its top:
+// the beam-column of Timoshenko & Gere, Theory of Elastic Stability.
+func cantileverJob(p, h float64, m Method) *Job {
+	const ei, l = 250.0, 10.0
+	return &Job{
+		Units: Units{Force: "kN", Length: "m"},
+		Model: &frame.Model{
+			Sections: []frame.Section{{Name: "C", E: 2e8, A: 1e4 * ei / (l * l) / 2e8, I: ei / 2e8}},
+			Nodes:    []frame.Node{{Name: "B", Support: frame.Fixed}, {Name: "T", Y: l}},
+			Members:  []frame.Member{{Name: "B-T", Start: 0, End: 1}},
+			Cases: []frame.Case{
+				{Name: "D", NodeLoads: []frame.NodeLoad{{Node: 1, Fy: -p}}},
+				{Name: "W", NodeLoads: []frame.NodeLoad{{Node: 1, Fx: h}}},
+			},
+		},
+		Cases:        []combos.Case{{Name: "D", Kind: combos.Dead}, {Name: "W", Kind: combos.Wind}},
+		Combinations: []combos.Combination{{Name: "D+W", Terms: []combos.Term{{Case: 0, Factor: 1}, {Case: 1, Factor: 1}}}},
+		Methods:      []Method{m},
+		Settings:     Settings{Stations: 11},
+		Levels:       []Level{{Name: "level 0"}, {Name: "level 1", Y: l}},
+	}
+}
+
+// cantileverMoment is the base moment of the cantilever beam-column, H
+// tan(kL)/k with k = √(P/EI) (Timoshenko & Gere).
+func cantileverMoment(p, h float64) float64 {
+	k := math.Sqrt(p / 250)
+	return h * math.Tan(k*10) / k
+}
+
+// TestSecondOrderCantileverRun checks a second-order run of the
+// cantilever column against the closed form (Timoshenko & Gere): base
+// moment 1.126536 for P = 4, H = 0.045, αcr = π²EI/(4L²)/P = 1.542126;
+// a first-order run of it gives H L = 0.45 with a warning that names the
+// thresholds (EN 1993-1-1 5.2.1(3), ACI 318-19 6.6.4.3).
+func TestSecondOrderCantileverRun(t *testing.T) {
+	const p, h = 4.0, 0.045
+	want := cantileverMoment(p, h)
+	if !within(want, 1.126536, 2e-6) {
+		t.Fatalf("closed form %.7g", want)
+	}
+	res, err := Run(context.Background(), cantileverJob(p, h, Method{SecondOrder: true}), Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	base := res.Envelope.Members[0].Stations[0].M
+	if got := math.Max(math.Abs(base.Max), math.Abs(base.Min)); !within(got, want, 1e-3) {
+		t.Errorf("base moment %.7g, want %.7g (Timoshenko & Gere)", got, want)
+	}
+	cb := res.Combinations[0]
+	if a := math.Pi * math.Pi * 250 / 400 / p; !within(cb.CriticalFactor, a, 1e-3) {
+		t.Errorf("αcr %.7g, want π²EI/(4L²)/P = %.7g", cb.CriticalFactor, a)
+	}
+	if cb.Iterations < 1 {
+		t.Errorf("%d iterations on the axial forces", cb.Iterations)
+	}
+	// The column's governing moment beside the first-order one of the same
+	// state, H L = 0.45: the ratio ACI 318-19 6.2.5.3 limits to 1.4.
+	if a := res.Amplifications; len(a) != 1 || a[0].X != 0 || a[0].By != 0 || !within(a[0].Second, want, 1e-3) ||
+		!within(a[0].First, 0.45, 1e-9) || !within(a[0].Ratio, want/0.45, 1e-3) || a[0].Ratio <= AmplificationLimit {
+		t.Errorf("amplifications %+v, want %.6g / 0.45 at the base", a, want)
+	}
+	for _, w := range res.Warnings {
+		if strings.Contains(w, "first-order") {
+			t.Errorf("a second-order run warned: %s", w)
+		}
+	}
+
+	first, err := Run(context.Background(), cantileverJob(p, h, Method{}), Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if m := first.Envelope.Members[0].Stations[0].M; !within(math.Max(math.Abs(m.Max), math.Abs(m.Min)), h*10, 1e-9) {
+		t.Errorf("first-order base moment %v, want HL = 0.45", m)
+	}
+	if !within(first.Combinations[0].CriticalFactor, cb.CriticalFactor, 1e-9) {
+		t.Errorf("first-order run's αcr %.7g, the second-order run's %.7g", first.Combinations[0].CriticalFactor, cb.CriticalFactor)
+	}
+	warned := false
+	for _, w := range first.Warnings {
+		warned = warned || strings.Contains(w, `combination "D+W"`) && strings.Contains(w, "αcr ≥ 10") && strings.Contains(w, "Q ≤ 0.05")
+	}
+	if !warned {
+		t.Errorf("no first-order warning for αcr = 1.54: %q", first.Warnings)
+	}
+}
+
+// TestSecondOrderAllowable checks an allowable stress combination: it is
+// analysed at 1.6 times its loads and its forces divided by 1.6 (AISC
+// 360-16 C2.1(d)), here against the closed form of the cantilever at 1.6P
+// and 1.6H, divided by 1.6 (Timoshenko & Gere); with αcr ≤ 1.6 it is an
+// error naming the combination.
+func TestSecondOrderAllowable(t *testing.T) {
+	const p, h = 2.0, 0.045
+	res, err := Run(context.Background(), cantileverJob(p, h, Method{SecondOrder: true, Allowable: true}), Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	want := cantileverMoment(1.6*p, 1.6*h) / 1.6
+	base := res.Envelope.Members[0].Stations[0].M
+	if got := math.Max(math.Abs(base.Max), math.Abs(base.Min)); !within(got, want, 1e-3) {
+		t.Errorf("base moment %.7g, want M(1.6P, 1.6H)/1.6 = %.7g", got, want)
+	}
+	if strength := cantileverMoment(p, h); within(want, strength, 1e-2) {
+		t.Fatalf("the test cannot tell 1.6 scaling from none: %g and %g", want, strength)
+	}
+	_, err = Run(context.Background(), cantileverJob(4, h, Method{SecondOrder: true, Allowable: true}), Options{})
+	if !errors.Is(err, ErrBuckles) || !strings.Contains(err.Error(), `combination "D+W"`) || !strings.Contains(err.Error(), "not above 1.6") {
+		t.Errorf("αcr = 1.54 on an allowable combination: %v", err)
+	}
+}
+
+// TestBucklingIsAnError checks that a combination whose critical load
+// factor is at most 1 is an error naming it in a second-order run, and a
+// warning saying the results do not stand in a first-order one.
+func TestBucklingIsAnError(t *testing.T) {
+	_, err := Run(context.Background(), cantileverJob(7, 0.045, Method{SecondOrder: true}), Options{})
+	if !errors.Is(err, ErrBuckles) || !strings.Contains(err.Error(), `combination "D+W"`) {
+		t.Errorf("P = 7 over the Euler load 6.17: %v", err)
+	}
+	res, err := Run(context.Background(), cantileverJob(7, 0.045, Method{}), Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(res.Warnings) != 1 || !strings.Contains(res.Warnings[0], `combination "D+W": the critical load factor αcr = 0.8812 is not above 1`) || !strings.Contains(res.Warnings[0], "do not stand") {
+		t.Errorf("first order, P = 7: warnings %q", res.Warnings)
+	}
+}
+
+// portalJob is a symmetric portal frame, fixed feet, under gravity only.
+func portalJob(m Method, rule NotionalRule) *Job {
+	const h, l = 4.0, 6.0
+	return &Job{
+		Units: Units{Force: "kN", Length: "m"},
+		Model: &frame.Model{
+			Sections: []frame.Section{{Name: "S", E: 2e8, A: 5e-3, I: 8e-5}},
+			Nodes: []frame.Node{{Name: "A0", Support: frame.Fixed}, {Name: "A1", Y: h},
+				{Name: "B1", X: l, Y: h}, {Name: "B0", X: l, Support: frame.Fixed}},
+			Members: []frame.Member{{Name: "A0-A1", Start: 0, End: 1}, {Name: "A1-B1", Start: 1, End: 2}, {Name: "B0-B1", Start: 3, End: 2}},
+			Cases: []frame.Case{{Name: "D", MemberLoads: []frame.MemberLoad{{Member: 1, To: l, W: 20, WEnd: 20}},
+				NodeLoads: []frame.NodeLoad{{Node: 1, Fy: -50}, {Node: 2, Fy: -50}}}},
+		},
+		Cases:        []combos.Case{{Name: "D", Kind: combos.Dead}},
+		Combinations: []combos.Combination{{Name: "1.4D", Terms: []combos.Term{{Case: 0, Factor: 1.4}}}},
+		Methods:      []Method{m},
+		Sway:         Sway{Notional: rule},
+		Settings:     Settings{Stations: 5},
+		Levels:       []Level{{Name: "level 0"}, {Name: "level 1", Y: h}},
+	}
+}
+
+// TestNotionalGravityOnly checks the notional loads of a gravity-only
+// combination of a symmetric frame (AISC 360-16 C2.2b: Ni = 0.002 α Yi):
+// the base shears sum to 0.002 ΣP in each direction, the directions
+// alternatives; without the notional loads the reactions balance.
+func TestNotionalGravityOnly(t *testing.T) {
+	total := 1.4 * (20*6 + 100)
+	for _, m := range []Method{{}, {SecondOrder: true}} {
+		res, err := Run(context.Background(), portalJob(m, NotionalAISC360), Options{})
+		if err != nil {
+			t.Fatal(err)
+		}
+		ns := res.Combinations[0].Notional
+		if len(ns) != 2 || !ns[0].Alternative || ns[0].Direction != 1 || ns[1].Direction != -1 {
+			t.Fatalf("notional loads %+v, want one per direction as alternatives", ns)
+		}
+		for _, n := range ns {
+			if !within(math.Abs(n.Total), 0.002*total, 1e-12) || len(n.Levels) != 1 || !within(n.Levels[0].Gravity, total, 1e-12) {
+				t.Errorf("notional %+v: total %g, want 0.002 × %g", n, n.Total, total)
+			}
+		}
+		var lo, hi, bareLo, bareHi float64
+		for i, rc := range res.Envelope.Reactions {
+			lo += rc.Fx.Min
+			hi += rc.Fx.Max
+			bareLo += res.BareReactions[i].Fx.Min
+			bareHi += res.BareReactions[i].Fx.Max
+		}
+		// Sway amplifies the base shear of the notional loads only through
+		// the P-Δ shear, which the feet carry back: the sum stays 0.002 ΣP.
+		if !within(hi, 0.002*total, 1e-6) || !within(lo, -0.002*total, 1e-6) {
+			t.Errorf("second order %v: base shears sum to %.6g and %.6g, want ±%.6g", m.SecondOrder, hi, lo, 0.002*total)
+		}
+		if math.Abs(bareLo) > 1e-9*total || math.Abs(bareHi) > 1e-9*total {
+			t.Errorf("without the notional loads the base shears sum to %.6g and %.6g, want 0", bareLo, bareHi)
+		}
+		if f := res.BareReactions[0].Fx; !(f.Max > 0.01*total) || !within(f.Min, f.Max, 1e-9) {
+			t.Errorf("without the notional loads the left foot's shear %+v: want the gravity thrust alone", f)
+		}
+	}
+}
+
+func within(got, want, tol float64) bool { return math.Abs(got-want) <= tol*math.Abs(want) }
+
+// TestStiffnessReduction checks the stiffness factors against closed
+// forms: αcr = π²(0.8 EI)/(4L²)/P with AISC 360-16 C2.3(a)'s 0.8 on EI
+// (the nominal αcr beside it); τb = 4(αPr/Pns)(1 − αPr/Pns) = 0.75 for
+// αPr/Pns = 0.75 (C2.3(b)), the base moment that of the beam-column with
+// 0.75 EI (Timoshenko & Gere); and ACI 318-19 6.6.3: a section factor
+// 0.35 on I for strength, min(1.4 × 0.35, 1) = 0.49 for service drift, the
+// cantilever's tip HL³/(3 × 0.49 EI).
+func TestStiffnessReduction(t *testing.T) {
+	const p, h, ei = 4.0, 0.045, 250.0
+	euler := math.Pi * math.Pi * ei / 400 / p
+	t.Run("AISC 0.8", func(t *testing.T) {
+		job := cantileverJob(p*0.5, h, Method{SecondOrder: true, Stiffness: Strength})
+		job.Sway.StrengthEI, job.Sway.StrengthEA = 0.8, 0.8
+		res, err := Run(context.Background(), job, Options{})
+		if err != nil {
+			t.Fatal(err)
+		}
+		cb := res.Combinations[0]
+		if !within(cb.CriticalFactor, 0.8*2*euler, 1e-3) || !within(cb.CriticalNominal, 2*euler, 1e-3) {
+			t.Errorf("αcr %g, nominal %g; want 0.8 × %g and %g", cb.CriticalFactor, cb.CriticalNominal, 2*euler, 2*euler)
+		}
+		k := math.Sqrt(p * 0.5 / (0.8 * ei))
+		want := h * math.Tan(k*10) / k
+		if m := res.Envelope.Members[0].Stations[0].M; !within(math.Max(math.Abs(m.Max), math.Abs(m.Min)), want, 1e-3) {
+			t.Errorf("base moment %v, want %g with 0.8 EI", m, want)
+		}
+	})
+	t.Run("tau_b", func(t *testing.T) {
+		job := cantileverJob(p*0.5, h, Method{SecondOrder: true, Stiffness: Strength})
+		a := job.Model.Sections[0].A
+		job.Sway.TauB = TauBFy
+		job.Sway.Fy = []float64{p * 0.5 / (0.75 * a)} // αPr/Pns = 0.75
+		res, err := Run(context.Background(), job, Options{})
+		if err != nil {
+			t.Fatal(err)
+		}
+		k := math.Sqrt(p * 0.5 / (0.75 * ei))
+		want := h * math.Tan(k*10) / k
+		if m := res.Envelope.Members[0].Stations[0].M; !within(math.Max(math.Abs(m.Max), math.Abs(m.Min)), want, 1e-3) {
+			t.Errorf("base moment %v, want %g with τb = 0.75", m, want)
+		}
+	})
+	t.Run("ACI sections", func(t *testing.T) {
+		job := cantileverJob(0.01, h, Method{})
+		job.Combinations = append(job.Combinations, combos.Combination{Name: "W service", Service: true, Terms: []combos.Term{{Case: 1, Factor: 1}}})
+		job.Methods = []Method{{Stiffness: Strength}, {Stiffness: Service}}
+		job.Sway.SectionI = []float64{0.35}
+		res, err := Run(context.Background(), job, Options{})
+		if err != nil {
+			t.Fatal(err)
+		}
+		want := h * 1000 / (3 * 0.49 * ei)
+		if ux := res.Displacements[1].Ux; !within(ux.Max, want, 1e-9) || ux.MaxBy != 1 {
+			t.Errorf("service tip %+v, want HL³/(3 × 0.49 EI) = %g", ux, want)
+		}
+		if !within(res.Combinations[0].CriticalFactor, 0.35*math.Pi*math.Pi*ei/400/0.01, 1e-3) {
+			t.Errorf("strength αcr %g, want with 0.35 I", res.Combinations[0].CriticalFactor)
+		}
+	})
+}
+
+// TestNotionalEN1993 checks φ = φ0 αh αm of EN 1993-1-1 5.3.2(3)a on the
+// portal: h = 4 m gives αh = 2/√4 = 1, two equally loaded columns m = 2,
+// αm = √(0.5(1 + 1/2)), φ = αm/200 = 0.004330.
+func TestNotionalEN1993(t *testing.T) {
+	res, err := Run(context.Background(), portalJob(Method{}, NotionalEN1993), Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	want := math.Sqrt(0.75) / 200
+	for _, n := range res.Combinations[0].Notional {
+		if !within(n.Ratio, want, 1e-12) {
+			t.Errorf("φ = %g, want %g", n.Ratio, want)
+		}
+	}
+	if len(res.Combinations[0].Notional) != 2 {
+		t.Errorf("notional %+v", res.Combinations[0].Notional)
+	}
+}
+
+// TestSecondOrderOnRequest: what the tables ask of a result after the run,
+// the end moments of an extreme's state and the envelope at any point,
+// come from the combination's own second-order solution: the cantilever's
+// base moment H tan(kL)/k = 1.126536 (Timoshenko & Gere), not the
+// first-order H L = 0.45.
+func TestSecondOrderOnRequest(t *testing.T) {
+	const p, h = 4.0, 0.045
+	want := cantileverMoment(p, h)
+	res, err := Run(context.Background(), cantileverJob(p, h, Method{SecondOrder: true}), Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	st, err := res.StationsAt(0, []float64{0, 5})
+	if err != nil {
+		t.Fatal(err)
+	}
+	m := st[0].M
+	base := m.Max
+	hi := true
+	if math.Abs(m.Min) > math.Abs(m.Max) {
+		base, hi = m.Min, false
+	}
+	if !within(math.Abs(base), want, 1e-3) {
+		t.Errorf("StationsAt: base moment %v, want %.6g", m, want)
+	}
+	ends, ok := res.EndMoments(0, 0, 0, 2, hi, base)
+	if !ok || !within(math.Abs(ends[0]), want, 1e-3) || math.Abs(ends[1]) > 1e-9 {
+		t.Errorf("EndMoments: %v (ok %v), want %.6g at the base and 0 at the top", ends, ok, want)
+	}
+}

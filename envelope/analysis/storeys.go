@@ -1,0 +1,466 @@
+package analysis
+
+import (
+	"fmt"
+	"math"
+	"slices"
+
+	"govern/combos"
+	"govern/envelope"
+	"govern/frame"
+	"govern/patterns"
+)
+
+// NodeDisplacement is the envelope of the displacements of one node: ux,
+// uy (length) and rz (radians, counter-clockwise), over the service
+// combinations when there are any, else over the strength ones (as
+// member deflections are), each with its governing combination.
+// RotationFree is set where every member end at the node is released:
+// its rotation is not one number, and Rz is zero.
+type NodeDisplacement struct {
+	Node         int
+	Ux, Uy, Rz   envelope.Extreme
+	RotationFree bool
+}
+
+// Storey is one storey of the frame: the columns between two consecutive
+// levels of the job, its drift and its stability indices.
+type Storey struct {
+	Bottom, Top Level
+	Height      float64
+	Columns     []int // members that are columns from Bottom to Top
+	// Drift is the envelope of the storey's drift Δ, the displacement
+	// along X of a column's top less its bottom's, enveloped as a quantity
+	// of its own over the combinations of the node displacements; of the
+	// storey's columns, the one whose drift is largest in size
+	// (DriftColumn).
+	Drift       envelope.Extreme
+	DriftColumn int
+	// Stability holds per combination of the job its stability indices;
+	// the zero value for a service combination.
+	Stability []StoreyStability
+}
+
+// StoreyStability are the stability indices of one storey under one
+// combination, from first-order analyses with the combination's
+// stiffness: P from the combination, every case at its factor and every
+// pattern piece loaded; H and ΔH under the horizontal loads of the
+// combination, or, where they give the storey no shear, under a unit
+// storey shear (Unit).
+type StoreyStability struct {
+	P   float64 // ΣPu: the axial compression of the storey's columns
+	Pmf float64 // the part of P in moment-frame columns (neither end released)
+	H   float64 // the storey shear (Vus)
+	// DeltaH is the first-order drift (Δo) under H: the largest of the
+	// storey's columns'.
+	DeltaH float64
+	Unit   bool
+	// Q is the stability index ΣPu Δo/(Vus lc) of ACI 318-19 6.6.4.4.1,
+	// lc the storey height.
+	Q float64
+	// RM = 1 − 0.15 Pmf/P and B2 = 1/(1 − α P/Pe,story) with Pe,story =
+	// RM H L/ΔH (AISC 360-16 Appendix 8, α = 1.6 for an allowable
+	// combination): +Inf where α P reaches Pe,story.
+	RM, B2 float64
+}
+
+// storeys returns the storeys of the job: consecutive levels with
+// columns between them.
+func storeysOf(job *Job) []Storey {
+	mo := job.Model
+	var out []Storey
+	for i := 1; i < len(job.Levels); i++ {
+		lo, hi := job.Levels[i-1], job.Levels[i]
+		tol := levelTol * (1 + math.Abs(hi.Y))
+		s := Storey{Bottom: lo, Top: hi, Height: hi.Y - lo.Y}
+		for m, mem := range mo.Members {
+			if !mo.IsColumn(m) {
+				continue
+			}
+			b := mo.Bottom(m)
+			t := mem.Start + mem.End - b
+			if math.Abs(mo.Nodes[b].Y-lo.Y) <= tol && math.Abs(mo.Nodes[t].Y-hi.Y) <= tol {
+				s.Columns = append(s.Columns, m)
+			}
+		}
+		if len(s.Columns) > 0 && s.Height > 0 {
+			out = append(out, s)
+		}
+	}
+	return out
+}
+
+// columnDrift returns the displacement along X of column m's top less its
+// bottom's in column c of sol.
+func columnDrift(sol *frame.Solution, c, m int) float64 {
+	mo := sol.Model()
+	mem := mo.Members[m]
+	b := mo.Bottom(m)
+	t := mem.Start + mem.End - b
+	ut, _, _ := sol.Displacement(c, t)
+	ub, _, _ := sol.Displacement(c, b)
+	return ut - ub
+}
+
+// displacementTargets returns, per job combination, whether node
+// displacements and drifts are enveloped over it: the service
+// combinations when there are any, else every one.
+func displacementTargets(cs []combos.Combination) []bool {
+	out := make([]bool, len(cs))
+	service := false
+	for _, cb := range cs {
+		service = service || cb.Service
+	}
+	for k, cb := range cs {
+		out[k] = cb.Service || !service
+	}
+	return out
+}
+
+// valuesRequest is an envelope of quantities other than stations (node
+// displacements, drifts), formed group by group with the envelopes.
+type valuesRequest struct {
+	n       int
+	get     func(sol *frame.Solution, c, i int) [3]float64
+	what    func(i, q int) string
+	targets []bool // per job combination, whether it is enveloped over
+	out     [][3]envelope.Extreme
+}
+
+// add envelopes the request over the combinations cs (cs[i] is the job's
+// combination idx[i]) solved in sol, and merges the result.
+func (vr *valuesRequest) add(sol *frame.Solution, lay *patterns.Layout, cs []combos.Combination, idx []int, set envelope.Settings) error {
+	var sel []int
+	for i, k := range idx {
+		if vr.targets[k] {
+			sel = append(sel, i)
+		}
+	}
+	if len(sel) == 0 || vr.n == 0 {
+		return nil
+	}
+	set.Stations, set.Extra, set.Lines, set.Progress = 2, nil, nil, nil
+	vals, err := envelope.Values(sol, cs, sel, set, lay, vr.n, func(c, i int) [3]float64 { return vr.get(sol, c, i) }, vr.what)
+	if err != nil {
+		return err
+	}
+	if vr.out == nil {
+		vr.out = make([][3]envelope.Extreme, vr.n)
+		for i := range vr.out {
+			for q := range 3 {
+				vr.out[i][q] = emptyExtreme()
+			}
+		}
+	}
+	for i := range vals {
+		for q := range 3 {
+			mergeExtreme(&vr.out[i][q], &vals[i][q], idx)
+		}
+	}
+	return nil
+}
+
+// displacementRequests returns the requests for the node displacements
+// and the drifts of the storeys' columns.
+func (r *Result) displacementRequests() (nodes, drifts *valuesRequest) {
+	mo := r.Job.Model
+	targets := displacementTargets(r.Job.Combinations)
+	dir := [3]string{"ux", "uy", "rz"}
+	nodes = &valuesRequest{n: len(mo.Nodes), targets: targets,
+		get: func(sol *frame.Solution, c, v int) [3]float64 {
+			ux, uy, rz := sol.Displacement(c, v)
+			if math.IsNaN(rz) {
+				rz = 0
+			}
+			return [3]float64{ux, uy, rz}
+		},
+		what: func(v, q int) string { return fmt.Sprintf("%s of node %q", dir[q], mo.Nodes[v].Name) }}
+	var cols []int
+	for _, s := range r.Storeys {
+		cols = append(cols, s.Columns...)
+	}
+	drifts = &valuesRequest{n: len(cols), targets: targets,
+		get: func(sol *frame.Solution, c, i int) [3]float64 { return [3]float64{columnDrift(sol, c, cols[i])} },
+		what: func(i, _ int) string {
+			return fmt.Sprintf("the drift of column %q", mo.Members[cols[i]].Name)
+		}}
+	return nodes, drifts
+}
+
+// setDisplacements keeps the envelopes of the requests in r.
+func (r *Result) setDisplacements(nodes, drifts *valuesRequest) {
+	mo := r.Job.Model
+	if nodes.out != nil {
+		r.Displacements = make([]NodeDisplacement, len(mo.Nodes))
+		for v := range mo.Nodes {
+			x := nodes.out[v]
+			r.Displacements[v] = NodeDisplacement{Node: v, Ux: x[0], Uy: x[1], Rz: x[2], RotationFree: r.sol.RotationFree(v)}
+		}
+	}
+	if drifts.out == nil {
+		return
+	}
+	i := 0
+	for s := range r.Storeys {
+		st := &r.Storeys[s]
+		best := -1.0
+		for _, m := range st.Columns {
+			d := drifts.out[i][0]
+			i++
+			if size := max(math.Abs(d.Max), math.Abs(d.Min)); size > best {
+				best, st.Drift, st.DriftColumn = size, d, m
+			}
+		}
+		st.Drift.MaxWith, st.Drift.MinWith = [3]float64{}, [3]float64{}
+	}
+}
+
+// storeyStability fills the stability indices of every storey for the
+// strength combination of unit u, analysed with stiffness stiff.
+func (r *Result) storeyStability(u *unit, base *frame.Model, stiff Stiffness) error {
+	job := r.Job
+	if len(r.Storeys) == 0 || job.Combinations[u.k].Service {
+		return nil
+	}
+	name := job.Combinations[u.k].Name
+	secs, mems := job.stiffnessOf(base, stiff)
+	all := combined(base, secs, mems, u.cb, 1, nil)
+	// The horizontal loads of the combination alone, then a unit storey
+	// shear at the top of each storey.
+	var lateral frame.Case
+	for _, ld := range all.Cases[0].MemberLoads {
+		if ld.Direction == frame.GlobalX && !ld.Moment && !ld.Thermal {
+			lateral.MemberLoads = append(lateral.MemberLoads, ld)
+		}
+	}
+	for _, nl := range all.Cases[0].NodeLoads {
+		if nl.Fx != 0 {
+			lateral.NodeLoads = append(lateral.NodeLoads, frame.NodeLoad{Node: nl.Node, Fx: nl.Fx})
+		}
+	}
+	lateral.Name = "lateral"
+	all.Cases = append(all.Cases, lateral)
+	hx := make([]float64, len(base.Nodes)) // horizontal load at each node, by the lever rule
+	lateralAtNodes(all, &lateral, hx)
+	for _, s := range r.Storeys {
+		c := frame.Case{Name: "unit " + s.Top.Name}
+		var free []int
+		for v, nd := range base.Nodes {
+			if math.Abs(nd.Y-s.Top.Y) <= levelTol*(1+math.Abs(s.Top.Y)) && !nd.Support.Restrained(0) && nd.Springs[0] == 0 {
+				free = append(free, v)
+			}
+		}
+		for _, v := range free {
+			c.NodeLoads = append(c.NodeLoads, frame.NodeLoad{Node: v, Fx: 1 / float64(len(free))})
+		}
+		all.Cases = append(all.Cases, c)
+	}
+	sol, err := frame.SolveWith(all, r.solver)
+	if err != nil {
+		return fmt.Errorf("combination %q: storey stability: %w", name, err)
+	}
+	alpha := 1.0
+	if u.method.Allowable {
+		alpha = AllowableScale
+	}
+	axial := axialForces(sol, 0)
+	for si := range r.Storeys {
+		s := &r.Storeys[si]
+		if s.Stability == nil {
+			s.Stability = make([]StoreyStability, len(job.Combinations))
+		}
+		var st StoreyStability
+		for _, m := range s.Columns {
+			p := max(-axial[m], 0)
+			st.P += p
+			if base.Members[m].Release == frame.ReleaseNone {
+				st.Pmf += p
+			}
+		}
+		// The storey shear: the horizontal loads above its bottom.
+		for v, nd := range base.Nodes {
+			if nd.Y > s.Bottom.Y+levelTol*(1+math.Abs(s.Bottom.Y)) {
+				st.H += hx[v]
+			}
+		}
+		col := 1
+		if math.Abs(st.H) <= lateralTol*max(st.P, 1e-300) || st.H == 0 {
+			col, st.H, st.Unit = 2+si, 1, true
+		}
+		for _, m := range s.Columns {
+			d := columnDrift(sol, col, m)
+			if math.Abs(d) > math.Abs(st.DeltaH) {
+				st.DeltaH = d
+			}
+		}
+		st.H, st.DeltaH = math.Abs(st.H), math.Abs(st.DeltaH)
+		st.RM = 1
+		if st.P > 0 {
+			st.RM = 1 - 0.15*st.Pmf/st.P
+		}
+		if st.H > 0 && st.DeltaH > 0 {
+			st.Q = st.P * st.DeltaH / (st.H * s.Height)
+			if d := 1 - alpha*st.Q/st.RM; d > 0 {
+				st.B2 = 1 / d
+			} else {
+				st.B2 = math.Inf(1)
+			}
+		} else {
+			st.B2 = 1
+		}
+		// Keep the worst alternative of notional loads.
+		if old := s.Stability[u.k]; old.Q >= st.Q && old.RM != 0 {
+			continue
+		}
+		s.Stability[u.k] = st
+	}
+	return nil
+}
+
+// lateralAtNodes adds to hx the horizontal loads of case cs at the nodes,
+// member loads carried to their ends by the lever rule.
+func lateralAtNodes(mo *frame.Model, cs *frame.Case, hx []float64) {
+	for _, nl := range cs.NodeLoads {
+		hx[nl.Node] += nl.Fx
+	}
+	for i := range cs.MemberLoads {
+		ld := &cs.MemberLoads[i]
+		if ld.Direction != frame.GlobalX || ld.Moment || ld.Thermal {
+			continue
+		}
+		mem := mo.Members[ld.Member]
+		l := mo.Length(ld.Member)
+		var p, x float64
+		if ld.Point {
+			p, x = ld.P, ld.At
+		} else {
+			a, b := ld.From, ld.To
+			p = (ld.W + ld.WEnd) / 2 * (b - a)
+			if s := ld.W + ld.WEnd; s != 0 {
+				x = a + (b-a)*(ld.W+2*ld.WEnd)/(3*s)
+			} else {
+				x = (a + b) / 2
+			}
+		}
+		rr := min(max(x/l, 0), 1)
+		hx[mem.Start] += p * (1 - rr)
+		hx[mem.End] += p * rr
+	}
+}
+
+// Amplification is one column's governing moment in a second-order run
+// beside the first-order moment of the same state: the same combination,
+// at the same station, with its loads placed for the same extreme
+// (largest or smallest) of a first-order analysis with the same stiffness.
+type Amplification struct {
+	Member int
+	X      float64 // the station, from the member's start
+	By     int     // the combination
+	Second float64 // |M|, second order
+	First  float64 // |M|, first order
+	// Ratio is Second/First; above AmplificationLimit it is flagged (ACI
+	// 318-19 6.2.5.3).
+	Ratio float64
+}
+
+// AmplificationLimit is the ratio of second-order to first-order moment
+// above which ACI 318-19 6.2.5.3 asks for a review of the frame.
+const AmplificationLimit = 1.4
+
+// amplifications fills r.Amplifications for the columns governed by a
+// second-order combination.
+func (r *Result) amplifications(pl *plan, sv *solved, lay *patterns.Layout, set envelope.Settings) error {
+	job, mo := r.Job, r.Job.Model
+	type item struct {
+		m, station int
+		hi         bool
+		second     float64
+	}
+	byCombo := map[int][]item{}
+	for m := range mo.Members {
+		if !mo.IsColumn(m) {
+			continue
+		}
+		em := &r.Envelope.Members[m]
+		best, it := -1.0, item{m: m}
+		for i, st := range em.Stations {
+			if st.M.MaxBy >= 0 && math.Abs(st.M.Max) > best {
+				best, it.station, it.hi = math.Abs(st.M.Max), i, true
+			}
+			if st.M.MinBy >= 0 && math.Abs(st.M.Min) > best {
+				best, it.station, it.hi = math.Abs(st.M.Min), i, false
+			}
+		}
+		st := em.Stations[it.station]
+		k := st.M.MinBy
+		if it.hi {
+			k = st.M.MaxBy
+		}
+		if k < 0 || !job.methodOf(k).SecondOrder || best <= 0 {
+			continue
+		}
+		it.second = best
+		byCombo[k] = append(byCombo[k], it)
+	}
+	sols := map[Stiffness]*frame.Solution{Nominal: r.sol}
+	for k := range job.Combinations {
+		items := byCombo[k]
+		if len(items) == 0 {
+			continue
+		}
+		stiff := job.methodOf(k).Stiffness
+		sol := sols[stiff]
+		glay := lay
+		if sol == nil {
+			secs, mems := job.stiffnessOf(lay.Model, stiff)
+			m2 := *lay.Model
+			m2.Sections, m2.Members = secs, mems
+			var err error
+			if sol, err = frame.SolveWith(&m2, r.solver); err != nil {
+				return err
+			}
+			sols[stiff] = sol
+		}
+		if sol.Model() != lay.Model {
+			l2 := *lay
+			l2.Model = sol.Model()
+			glay = &l2
+		}
+		var cs []combos.Combination
+		for _, u := range pl.units {
+			if u.k == k {
+				cs = append(cs, u.cb)
+			}
+		}
+		idx := make([]int, len(cs))
+		for i := range idx {
+			idx[i] = i
+		}
+		nc := len(sol.Model().Cases)
+		vals := make([][]frame.Forces, len(items))
+		for i, it := range items {
+			vals[i] = make([]frame.Forces, nc)
+			sol.StationsTo(vals[i], it.m, []float64{r.Envelope.Members[it.m].Stations[it.station].X})
+		}
+		ex, err := envelope.Values(sol, cs, idx, set, glay, len(items),
+			func(c, i int) [3]float64 { f := vals[i][c]; return [3]float64{f.N, f.V, f.M} },
+			func(i, q int) string { return fmt.Sprintf("the moment of column %q", mo.Members[items[i].m].Name) })
+		if err != nil {
+			return err
+		}
+		for i, it := range items {
+			first := ex[i][2].Min
+			if it.hi {
+				first = ex[i][2].Max
+			}
+			a := Amplification{Member: it.m, X: r.Envelope.Members[it.m].Stations[it.station].X, By: k, Second: it.second, First: math.Abs(first)}
+			a.Ratio = math.Inf(1)
+			if a.First > 0 {
+				a.Ratio = a.Second / a.First
+			}
+			r.Amplifications = append(r.Amplifications, a)
+		}
+	}
+	slices.SortFunc(r.Amplifications, func(a, b Amplification) int { return a.Member - b.Member })
+	return nil
+}

@@ -1,0 +1,107 @@
+package analysis
+
+import (
+	"context"
+	"math"
+	"testing"
+
+	"govern/combos"
+	"govern/frame"
+)
+
+// storeyJob is one storey of two equal columns fixed at their bases, EI =
+// 250, L = 10, under a beam rigid in bending and along its axis, each
+// column carrying P = 4, with a horizontal load of 0.045 per column.
+func storeyJob(m Method) *Job {
+	const ei, l = 250.0, 10.0
+	return &Job{
+		Units: Units{Force: "kN", Length: "m"},
+		Model: &frame.Model{
+			Sections: []frame.Section{{Name: "C", E: 2e8, A: 10, I: ei / 2e8}, {Name: "R", E: 2e8, A: 10, I: 10}},
+			Nodes: []frame.Node{{Name: "A0", Support: frame.Fixed}, {Name: "A1", Y: l},
+				{Name: "B1", X: 6, Y: l}, {Name: "B0", X: 6, Support: frame.Fixed}},
+			Members: []frame.Member{{Name: "A0-A1", Start: 0, End: 1}, {Name: "A1-B1", Start: 1, End: 2, Section: 1}, {Name: "B0-B1", Start: 3, End: 2}},
+			Cases: []frame.Case{
+				{Name: "D", NodeLoads: []frame.NodeLoad{{Node: 1, Fy: -4}, {Node: 2, Fy: -4}}},
+				{Name: "W", NodeLoads: []frame.NodeLoad{{Node: 1, Fx: 0.09}}},
+			},
+		},
+		Cases:        []combos.Case{{Name: "D", Kind: combos.Dead}, {Name: "W", Kind: combos.Wind}},
+		Combinations: []combos.Combination{{Name: "D+W", Terms: []combos.Term{{Case: 0, Factor: 1}, {Case: 1, Factor: 1}}}},
+		Methods:      []Method{m},
+		Settings:     Settings{Stations: 5},
+		Levels:       []Level{{Name: "level 0"}, {Name: "level 1", Y: l}},
+	}
+}
+
+// TestStoreyStability checks one storey of equal fixed-base columns under
+// an axially rigid beam rigid in bending, each column free to sway but not
+// to rotate at its top, against closed forms: the stability index Q =
+// ΣPu Δo/(Vus lc) (ACI 318-19 6.6.4.4.1) = P L²/(12 EI) = 0.133333 with
+// Δo/V = L³/(24 EI); αcr = π²EI/L²/P = 6.168503 (Timoshenko & Gere), so
+// Q αcr = π²/12 = 0.822467; B2 = 1/(1 − P/Pe,story) with RM = 0.85 (AISC
+// 360-16 Appendix 8) = 1.186047; and the second-order sway amplification
+// of the beam-column, 3(tan u − u)/u³ = 1.190916 with u = kL/2
+// (Timoshenko & Gere), from the drift envelope of a second-order run
+// against a first-order one.
+func TestStoreyStability(t *testing.T) {
+	first, err := Run(context.Background(), storeyJob(Method{}), Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(first.Storeys) != 1 || len(first.Storeys[0].Columns) != 2 {
+		t.Fatalf("storeys %+v", first.Storeys)
+	}
+	s := first.Storeys[0]
+	st := s.Stability[0]
+	if !within(st.Q, 4.0/30, 1e-6) {
+		t.Errorf("Q = %.7g, want P L²/(12 EI) = 0.133333", st.Q)
+	}
+	if !within(st.RM, 0.85, 1e-12) || !within(st.B2, 1/(1-(4.0/30)/0.85), 1e-6) || !within(st.B2, 1.186047, 1e-6) {
+		t.Errorf("RM = %.7g, B2 = %.7g, want 0.85 and 1.186047", st.RM, st.B2)
+	}
+	a := first.Combinations[0].CriticalFactor
+	if !within(a, 6.168503, 1e-3) || !within(st.Q*a, math.Pi*math.Pi/12, 1e-3) {
+		t.Errorf("αcr = %.7g, Q αcr = %.7g; want 6.168503 and π²/12 = 0.822467", a, st.Q*a)
+	}
+	if !within(st.H, 0.09, 1e-12) || st.Unit {
+		t.Errorf("storey shear %g (unit %v), want the wind's 0.09", st.H, st.Unit)
+	}
+	d1 := s.Drift.Max
+	if want := 0.09 * 1000 / (24 * 250); !within(d1, want, 1e-6) || !within(s.Drift.Max/s.Height, want/10, 1e-6) {
+		t.Errorf("first-order drift %.7g, want V L³/(24 EI) = %.7g", d1, want)
+	}
+	second, err := Run(context.Background(), storeyJob(Method{SecondOrder: true}), Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	u := math.Sqrt(4.0/250) * 10 / 2
+	amp := 3 * (math.Tan(u) - u) / (u * u * u)
+	if !within(amp, 1.190916, 1e-6) {
+		t.Fatalf("closed form amplification %.7g", amp)
+	}
+	if got := second.Storeys[0].Drift.Max / d1; !within(got, amp, 1e-3) {
+		t.Errorf("second-order drift / first-order %.7g, want 3(tan u − u)/u³ = %.7g", got, amp)
+	}
+	// The node displacement envelope gives the same sway at the top.
+	if ux := second.Displacements[1].Ux; !within(ux.Max, second.Storeys[0].Drift.Max, 1e-9) || ux.MaxBy != 0 {
+		t.Errorf("top node's ux %+v, the drift %g", ux, second.Storeys[0].Drift.Max)
+	}
+}
+
+// TestStoreyUnitShear checks a combination without horizontal load: Q
+// comes from a unit storey shear (ACI 318-19 6.6.4.4.1), the same
+// P L²/(12 EI) = 0.133333.
+func TestStoreyUnitShear(t *testing.T) {
+	job := storeyJob(Method{})
+	job.Methods = nil
+	job.Combinations = append(job.Combinations, combos.Combination{Name: "D", Terms: []combos.Term{{Case: 0, Factor: 1}}})
+	res, err := Run(context.Background(), job, Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	st := res.Storeys[0].Stability[1]
+	if !st.Unit || !within(st.H, 1, 0) || !within(st.Q, 4.0/30, 1e-6) {
+		t.Errorf("gravity only: %+v, want a unit storey shear and Q = 0.133333", st)
+	}
+}
