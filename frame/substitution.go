@@ -23,7 +23,28 @@ func bandSolve(u []float64, n, kb int, x []float64, nrhs int) {
 	if nrhs == 0 {
 		return
 	}
-	fwd, bwd := newTerms(u, n, kb, true), newTerms(u, n, kb, false)
+	newBandSolver(u, n, kb).solve(x, nrhs)
+}
+
+// bandSolver is bandSolve for one factor used many times (an iteration):
+// the factor's terms are listed once.
+type bandSolver struct {
+	u        []float64
+	n, kb    int
+	fwd, bwd terms
+}
+
+func newBandSolver(u []float64, n, kb int) *bandSolver {
+	return &bandSolver{u: u, n: n, kb: kb, fwd: newTerms(u, n, kb, true), bwd: newTerms(u, n, kb, false)}
+}
+
+// solve is bandSolve with the solver's factor.
+func (bs *bandSolver) solve(x []float64, nrhs int) {
+	if nrhs == 0 {
+		return
+	}
+	u, n, kb := bs.u, bs.n, bs.kb
+	fwd, bwd := bs.fwd, bs.bwd
 	nb := (nrhs + solveBlock - 1) / solveBlock
 	workers := min(runtime.GOMAXPROCS(0), nb)
 	var wg sync.WaitGroup
