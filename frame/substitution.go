@@ -193,6 +193,32 @@ func combine(x []float64, at, lo, hi int, rows []int, negs []float64, d float64)
 		}
 		y[0], y[1], y[2], y[3], y[4], y[5], y[6], y[7] = s0*d, s1*d, s2*d, s3*d, s4*d, s5*d, s6*d, s7*d
 	}
+	if c+4 <= hi { // narrow blocks (an iteration's few columns): four at a time
+		y := x[at+c : at+c+4 : at+c+4]
+		s0, s1, s2, s3 := y[0], y[1], y[2], y[3]
+		for t, r := range rows {
+			a := negs[t]
+			v := x[r+c : r+c+4 : r+c+4]
+			s0 += a * v[0]
+			s1 += a * v[1]
+			s2 += a * v[2]
+			s3 += a * v[3]
+		}
+		y[0], y[1], y[2], y[3] = s0*d, s1*d, s2*d, s3*d
+		c += 4
+	}
+	if c+2 <= hi {
+		y := x[at+c : at+c+2 : at+c+2]
+		s0, s1 := y[0], y[1]
+		for t, r := range rows {
+			a := negs[t]
+			v := x[r+c : r+c+2 : r+c+2]
+			s0 += a * v[0]
+			s1 += a * v[1]
+		}
+		y[0], y[1] = s0*d, s1*d
+		c += 2
+	}
 	for ; c < hi; c++ {
 		s := x[at+c]
 		for t, r := range rows {

@@ -24,8 +24,9 @@ func TestSubstitutionIsTheReferenceToTheLastBit(t *testing.T) {
 		t.Log("no AVX here: the pure-Go kernel only")
 	}
 	defer func(v bool) { useAVX = v }(useAVX)
-	// 30 columns (one partial block), 36 (one whole and one partial), 72.
-	for _, size := range []struct{ bays, storeys int }{{6, 5}, {3, 12}, {8, 9}} {
+	// 30 columns (one partial block), 36 (one whole and one partial), 72;
+	// 6 and 7 (the narrow widths of an iteration).
+	for _, size := range []struct{ bays, storeys int }{{6, 5}, {3, 12}, {8, 9}, {2, 3}, {7, 1}} {
 		mo := pieceFrame(size.bays, size.storeys)
 		order := rcmOrder(adjacency(mo))
 		dof, n, band := dofMap(mo, order, releasedRotations(mo))
