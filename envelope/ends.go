@@ -77,6 +77,9 @@ func NewEndsFinder(sol *frame.Solution, cs []combos.Combination, set Settings, l
 		all[k] = k
 	}
 	f.e = newEvaluator(sol.Model(), cs, all, 3, set, lay)
+	if set.Factors != nil {
+		f.e.setFactors(set.Factors, cs)
+	}
 	f.w = f.e.scratch()
 	return f
 }
@@ -94,18 +97,31 @@ func (f *EndsFinder) Of(m int, states []State) []State {
 		f.e.evaluate(f.w, f.sol, m)
 	}
 	for q := range out {
-		out[q].Ends, out[q].OK = f.e.endMoments(f.w, &out[q])
+		out[q].Ends, out[q].OK = f.e.endMoments(f.w, m, &out[q])
 	}
 	return out
 }
 
-// endMoments finds the end moments of state s of the member evaluated in
-// w (see EndMoments).
-func (e *evaluator) endMoments(w *work, s *State) ([2]float64, bool) {
+// endMoments finds the end moments of state s of member m, evaluated in
+// w (see EndMoments). With member factors (Settings.Factors) the columns
+// are scaled as Compute scales them, by the factors of the part of the
+// combinations s.By is in.
+func (e *evaluator) endMoments(w *work, m int, s *State) ([2]float64, bool) {
 	j, k, hi, want := s.Effect, s.By, s.Hi, s.Want
 	if j < 0 || j > 2 || k < 0 || k >= len(e.cs) {
 		return [2]float64{}, false
 	}
+	for _, p := range e.parts {
+		if i := slices.Index(p.index, k); i >= 0 {
+			e, k = p, i
+			break
+		}
+	}
+	var fac [][3]float64
+	if e.fac != nil {
+		fac = e.fac[m]
+	}
+	one := [3]float64{1, 1, 1}
 	ns := len(w.xs)
 	i := slices.Index(w.xs, s.X)
 	if i < 0 {
@@ -131,12 +147,17 @@ func (e *evaluator) endMoments(w *work, s *State) ([2]float64, bool) {
 			break
 		}
 		for c := range w.ev {
+			f := &one
+			if fac != nil {
+				f = &fac[e.caseOf[c]]
+			}
 			var v [3]float64
 			v[j] = eff(w.at[c*ns+i], j)
 			if past {
 				v[j] += w.jump[c*ns+i]
 			}
-			v[a], v[b] = w.at[c*ns].M, w.at[c*ns+ns-1].M
+			v[j] *= f[j]
+			v[a], v[b] = f[2]*w.at[c*ns].M, f[2]*w.at[c*ns+ns-1].M
 			w.ev[c] = v
 		}
 		w.noise = w.noiseAt
@@ -190,6 +211,9 @@ func StationsAt(sol *frame.Solution, cs []combos.Combination, set Settings, lay 
 	set.Progress, set.Lines = nil, nil
 	strength, _ := split(cs)
 	e := newEvaluator(mo, cs, strength, 3, set, lay)
+	if set.Factors != nil {
+		e.setFactors(set.Factors, cs)
+	}
 	em, err := e.member(e.scratch(), sol, m)
 	if err != nil {
 		return nil, err

@@ -33,6 +33,14 @@ type evaluator struct {
 	// joined gives, per combination of cs, its groups of joined terms
 	// (joined.go); nil when no combination has any, or as written.
 	joined []joinPlan
+	// fac gives, per member, the factors on each original case's N, V
+	// and M, nil for a member not scaled (factors.go); nil without
+	// factors, and for deflections. caseOf gives each column's original
+	// case. parts, when not nil, are the evaluators of the sets of
+	// combinations whose factors differ; forces and reactions merge them.
+	fac    [][][3]float64
+	caseOf []int
+	parts  []*evaluator
 }
 
 func newEvaluator(mo *frame.Model, cs []combos.Combination, idx []int, nEff int, set Settings, lay *patterns.Layout) *evaluator {
@@ -51,6 +59,17 @@ func newEvaluator(mo *frame.Model, cs []combos.Combination, idx []int, nEff int,
 	e.always = make([]bool, len(mo.Cases))
 	for c := range e.nOrig {
 		e.always[c] = set.AsWritten || set.Kinds[c].AlwaysActs()
+	}
+	e.caseOf = make([]int, len(mo.Cases))
+	for c := range e.caseOf {
+		e.caseOf[c] = c
+	}
+	if lay != nil {
+		for _, p := range lay.Patterned {
+			for _, u := range p.Units {
+				e.caseOf[u.Column] = p.Case
+			}
+		}
 	}
 	e.patternOf = make([]int, e.nOrig)
 	for c := range e.patternOf {
@@ -112,6 +131,7 @@ type work struct {
 	start []frame.Forces // each column's point loads at the member's start
 	jump  []float64      // each column's change of M past concentrated moments at each station
 	jumps bool           // some column has one at some station
+	fac   [][3]float64   // the current member's factors of each original case, nil for none
 	// What counts as round-off in the member (see roundOff): for N, V, M,
 	// for the deflection and for the deflection across its line.
 	noiseAt              [3]float64

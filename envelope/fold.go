@@ -45,7 +45,9 @@ import (
 // combination's total in combine. A combination solved on its own
 // stiffness has its own columns, and is folded from its own solution.
 //
-// A member is folded only in a first-order solution (in second order M
+// A member is folded only without member factors (live load reduction:
+// every column is then scaled by its case's factor, factors.go), only in a
+// first-order solution (in second order M
 // also carries N times the member's displacement: frame.Solution.Unloaded),
 // only with exact placement of the force envelope, and
 // when no concentrated moment acts exactly at one of its stations (the
@@ -92,7 +94,7 @@ var folding = true
 // foldable reports whether member m's forces can be folded (see above).
 func (e *evaluator) foldable(w *work, sol *frame.Solution, m int) (*exactPlacement, bool) {
 	pl, ok := w.place.(*exactPlacement)
-	if !folding || !ok || !sol.Unloaded(m) || e.nEff != 3 || e.unitCase == nil {
+	if !folding || !ok || !sol.Unloaded(m) || e.fac != nil || e.parts != nil || e.nEff != 3 || e.unitCase == nil {
 		return nil, false
 	}
 	if sol.HasMomentLoads() {

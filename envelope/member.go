@@ -60,14 +60,9 @@ func (e *evaluator) stationsOf(w *work, sol *frame.Solution, m int, line Line, f
 				return Member{}, ErrNotFinite
 			}
 		} else {
-			for c := range w.ev {
-				f := w.at[c*ns+i]
-				w.ev[c] = [3]float64{f.N, f.V, f.M}
-			}
-			ex = e.station(w)
-			if w.jumps {
-				e.pastMoments(w, &ex, i)
-			}
+			// Every column at the station, with the member's factors
+			// (live load reduction) where it has them (factors.go).
+			ex = e.forces(w, m, i)
 			if !allFinite(&ex, 3) {
 				return Member{}, e.nonFinite(w, func(q int) string { return fmt.Sprintf("%s of member %q at x = %g", effects[q], name, x) })
 			}
@@ -203,6 +198,9 @@ func (e *evaluator) pastMoments(w *work, ex *[3]Extreme, i int) {
 	jumps := false
 	for c := range w.ev {
 		if d := w.jump[c*ns+i]; d != 0 {
+			if w.fac != nil {
+				d *= w.fac[e.caseOf[c]][2]
+			}
 			w.ev[c][2] += d
 			jumps = true
 		}

@@ -106,6 +106,9 @@ type Settings struct {
 	// AllSpans lists every loaded piece in MaxSpans and MinSpans, not only
 	// those with at least spanShare of the largest piece's effect.
 	AllSpans bool
+	// Factors, when not nil, scale the effects of load cases in members
+	// (live load reduction): see [Factors].
+	Factors *Factors
 	// Progress, when not nil, counts the stations enveloped so far, for a
 	// caller that reports progress from another goroutine.
 	Progress *atomic.Int64

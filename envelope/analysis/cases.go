@@ -12,10 +12,11 @@ type CaseResult struct {
 	// holds, in model order, in global axes (Fx +X, Fy +Y, M
 	// counter-clockwise); a component that nothing holds is 0.
 	Reactions []Reaction
-	// Reduced is where the reactions with live load reduction
-	// (Job.MemberFactors) will stand beside the unreduced ones above,
-	// node for node. It is nil: Run refuses a job with member factors
-	// (ErrNotApplied) until the reduction is applied.
+	// Reduced, for a case with live load reduction (Job.MemberFactors),
+	// holds the reactions beside the unreduced ones above, node for node:
+	// at each, the sum of the members' end forces times their factors
+	// for that component ([Result.ReducedReactions]); nil for a case no
+	// member factor scales.
 	Reduced []Reaction
 	// Ends holds, per member in model order, its end forces: the forces
 	// the nodes exert on it at its start and end, written as internal
@@ -110,6 +111,13 @@ func (r *Result) Cases() []CaseResult {
 				re.Fx, re.Fy, re.M = re.Fx+fx, re.Fy+fy, re.M+m
 			}
 			cr.Reactions = append(cr.Reactions, re)
+		}
+		if r.reduced(c) {
+			for i, rr := range r.ReducedReactions(c) {
+				re := cr.Reactions[i]
+				re.Fx, re.Fy, re.M = rr.Reduced[0], rr.Reduced[1], rr.Reduced[2]
+				cr.Reduced = append(cr.Reduced, re)
+			}
 		}
 	}
 	return out

@@ -170,6 +170,11 @@ func Run(ctx context.Context, job *Job, opt Options) (*Result, error) {
 	if err != nil {
 		return nil, err
 	}
+	if len(job.MemberFactors) > 0 && !pl.simple {
+		// A second-order combination is solved whole, its cases not apart:
+		// its effects cannot be scaled case by case.
+		return nil, fmt.Errorf("analysis: Job.MemberFactors (live load reduction) with a combination analysed other than first-order with the sections as given (second order, reduced stiffness, notional loads): %w; Run refuses them rather than ignore them", ErrNotApplied)
+	}
 	lay, err := patterns.Expand(sv.model, sv.patterned, job.Segments, mode)
 	if err != nil {
 		return nil, err
@@ -246,6 +251,7 @@ func Run(ctx context.Context, job *Job, opt Options) (*Result, error) {
 	nodes, drifts := r.displacementRequests()
 	var env, across *envelope.Envelope // across: deflections across the lines of runs with a ridge
 	if pl.simple {
+		set.Factors = job.envelopeFactors(len(sv.kinds))
 		if env, err = envelope.Compute(sol, sv.combinations, set, lay); err != nil {
 			return nil, err
 		}

@@ -109,6 +109,9 @@ func (p *Report) WriteJSON(w io.Writer) error {
 		m := mo.Members[em.Member]
 		j.sep(i, ",").raw("\n  {\"name\": ").str(m.Name).raw(", \"start\": ").str(mo.Nodes[m.Start].Name)
 		j.raw(", \"end\": ").str(mo.Nodes[m.End].Name).raw(", \"length\": ").num(mo.Length(em.Member))
+		if fs := memberFactors(job, em.Member); len(fs) > 0 {
+			p.jsonFactors(j, fs)
+		}
 		j.raw(", \"stations\": [")
 		for k, st := range em.Stations {
 			j.sep(k, ",").raw("\n   {\"x\": ").num(st.X).raw(", ")
@@ -177,6 +180,27 @@ func (p *Report) WriteJSON(w io.Writer) error {
 		return j.err
 	}
 	return bw.Flush()
+}
+
+// jsonFactors writes a member's live load reduction factors and how each
+// was found (docs/output.md); the area in the model's length².
+func (p *Report) jsonFactors(j *jsonWriter, fs []analysis.MemberFactor) {
+	mo := p.model()
+	j.raw(", \"live_load_reduction\": [")
+	for i, f := range fs {
+		j.sep(i, ", ").raw("{\"case\": ").str(mo.Cases[f.Case].Name).raw(", \"N\": ").num(f.N).raw(", \"V\": ").num(f.V).raw(", \"M\": ").num(f.M)
+		if f.HasAccompanying {
+			a := f.Accompanying
+			j.raw(", \"accompanying\": {\"N\": ").num(a[0]).raw(", \"V\": ").num(a[1]).raw(", \"M\": ").num(a[2]).raw("}")
+		}
+		b := f.Basis
+		j.raw(", \"rule\": ").str(b.Rule).raw(", \"tributary_area\": ").num(b.Area)
+		if b.KLL != 0 {
+			j.raw(", \"kll\": ").num(b.KLL)
+		}
+		j.raw(", \"floors\": ").int(b.Floors).raw(", \"limit\": ").str(b.Limit).raw(", \"ends\": ").str(b.Ends).raw("}")
+	}
+	j.raw("]")
 }
 
 // jsonSpans writes the spans and cantilevers with their deflections.
