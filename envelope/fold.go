@@ -35,15 +35,13 @@ import (
 // the largest size of each effect over every column and station; for a
 // linear M the largest size is at the member's ends, which are stations.
 //
-// What other terms need of it: the fold keeps, per patterned case, the
-// station's sums of the units of each sign (exactPlacement.sum, as the
-// unfolded scan does), and the original cases' values in w.ev; combine
-// adds them term by term. A factor per member and load case (live load
-// reduction) therefore multiplies, in combine, a case's w.ev entry or its
-// patterned sums, N, V and M each by its own; a term of each combination
-// at each station (second order, N·(v − chord)) is added to that
-// combination's total in combine. A combination solved on its own
-// stiffness has its own columns, and is folded from its own solution.
+// What other terms would need of it: the fold keeps, per patterned case,
+// the station's sums of the units of each sign (exactPlacement.sum, as
+// the unfolded scan does), and the original cases' values in w.ev. Member
+// factors (live load reduction, factors.go) scale every column of a case
+// by one factor per effect, so they could scale those sums instead; and a
+// second-order member's station term could be folded as the M of each
+// piece is. Neither is done yet: such members take the unfolded path.
 //
 // A member is folded only without member factors (live load reduction:
 // every column is then scaled by its case's factor, factors.go), only in a
