@@ -52,23 +52,52 @@ type State struct {
 // member is evaluated once. It returns the states with Ends and OK set;
 // states is not modified.
 func EndMomentsOf(sol *frame.Solution, cs []combos.Combination, set Settings, lay *patterns.Layout, m int, states []State) []State {
-	out := slices.Clone(states)
-	if m < 0 || m >= len(sol.Model().Members) || len(cs) == 0 {
-		return out
+	return NewEndsFinder(sol, cs, set, lay).Of(m, states)
+}
+
+// An EndsFinder is EndMomentsOf for the members of one solution, one after
+// the other, with the evaluator and its scratch space formed once: a
+// design table asks for the states of every member. It is not for
+// concurrent use; sol, cs, set and lay must be those Compute was given.
+type EndsFinder struct {
+	sol *frame.Solution
+	e   *evaluator
+	w   *work
+}
+
+// NewEndsFinder returns an EndsFinder (see EndMomentsOf).
+func NewEndsFinder(sol *frame.Solution, cs []combos.Combination, set Settings, lay *patterns.Layout) *EndsFinder {
+	f := &EndsFinder{sol: sol}
+	if len(cs) == 0 {
+		return f
 	}
 	set.Progress = nil
 	all := make([]int, len(cs))
 	for k := range all {
 		all[k] = k
 	}
-	e := newEvaluator(sol.Model(), cs, all, 3, set, lay)
+	f.e = newEvaluator(sol.Model(), cs, all, 3, set, lay)
 	if set.Factors != nil {
-		e.setFactors(set.Factors, cs)
+		f.e.setFactors(set.Factors, cs)
 	}
-	w := e.scratch()
-	e.evaluate(w, sol, m)
+	f.w = f.e.scratch()
+	return f
+}
+
+// Of is EndMomentsOf for member m.
+func (f *EndsFinder) Of(m int, states []State) []State {
+	out := slices.Clone(states)
+	if f.e == nil || m < 0 || m >= len(f.sol.Model().Members) {
+		return out
+	}
+	f.e.placeStations(f.w, f.sol, m)
+	if pl, ok := f.e.foldable(f.w, f.sol, m); ok && pl != nil {
+		f.e.evaluateFor(f.w, f.sol, m, out)
+	} else {
+		f.e.evaluate(f.w, f.sol, m)
+	}
 	for q := range out {
-		out[q].Ends, out[q].OK = e.endMoments(w, m, &out[q])
+		out[q].Ends, out[q].OK = f.e.endMoments(f.w, m, &out[q])
 	}
 	return out
 }
@@ -132,7 +161,10 @@ func (e *evaluator) endMoments(w *work, m int, s *State) ([2]float64, bool) {
 			w.ev[c] = v
 		}
 		w.noise = w.noiseAt
+		// Only effect j decides, and only its sums are combined.
+		w.only = j + 1
 		w.place.scan(e, w)
+		w.only = 0
 		tot := w.place.combine(e, w, k, j, hi)
 		if math.Abs(tot[j]-want) <= stateTol*(scale+math.Abs(want)) {
 			return [2]float64{tot[a], tot[b]}, true
@@ -197,4 +229,46 @@ func StationsAt(sol *frame.Solution, cs []combos.Combination, set Settings, lay 
 		out[k] = em.Stations[best]
 	}
 	return out, nil
+}
+
+// evaluateFor is evaluate for the states of member m alone, the member
+// folded (fold.go): every column's forces at the stations the states ask
+// for and at the ends, which is all endMoments reads, from the same
+// numbers evaluate forms (the fold's exact values, and N = −f0, V = f1,
+// M = −f2 + x·f1 for a column that does not load the member), with the
+// same round-off threshold. Stations the states do not name are left as
+// they were. No concentrated moment acts at a station (foldable).
+func (e *evaluator) evaluateFor(w *work, sol *frame.Solution, m int, states []State) {
+	w.fold.load(e, w, sol, m)
+	w.jumps = false
+	ns, nc := len(w.xs), len(w.ev)
+	w.at = grow(w.at, ns*nc)
+	need := []int{0, ns - 1}
+	for _, s := range states {
+		if i := slices.Index(w.xs, s.X); i >= 0 {
+			need = append(need, i)
+		}
+	}
+	f := &w.fold
+	for c := range nc {
+		row := w.at[c*ns : (c+1)*ns]
+		if c < e.nOrig {
+			for _, i := range need {
+				row[i] = f.orig[c*ns+i]
+			}
+			continue
+		}
+		p := e.unitCase[c-e.nOrig]
+		fc := &f.cases[p]
+		if k, own := slices.BinarySearch(fc.own, c-e.first[p]); own {
+			for _, i := range need {
+				row[i] = fc.ownAt[k*ns+i]
+			}
+			continue
+		}
+		g := &f.ends[c]
+		for _, i := range need {
+			row[i] = frame.Forces{N: -g[0], V: g[1], M: -g[2] + w.xs[i]*g[1]}
+		}
+	}
 }

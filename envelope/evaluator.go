@@ -3,6 +3,7 @@ package envelope
 import (
 	"fmt"
 	"math"
+	"slices"
 
 	"govern/combos"
 	"govern/frame"
@@ -25,6 +26,10 @@ type evaluator struct {
 	always    []bool // column acts whatever its sign (permanent, or as written)
 	patternOf []int  // original case → index into lay.Patterned, or -1
 	first     []int  // column of each patterned case's first unit; its units follow in order
+	// unitCase gives, for each column past the original cases, the
+	// patterned case it is a unit of; nil when some column is of none,
+	// and then no member is folded (fold.go).
+	unitCase []int
 	// joined gives, per combination of cs, its groups of joined terms
 	// (joined.go); nil when no combination has any, or as written.
 	joined []joinPlan
@@ -85,6 +90,22 @@ func newEvaluator(mo *frame.Model, cs []combos.Combination, idx []int, nEff int,
 			}
 		}
 	}
+	if lay != nil {
+		e.unitCase = make([]int, len(mo.Cases)-e.nOrig)
+		for i := range e.unitCase {
+			e.unitCase[i] = -1
+		}
+		for p, pc := range lay.Patterned {
+			for k := range pc.Units {
+				if c := e.first[p] + k - e.nOrig; c >= 0 && c < len(e.unitCase) {
+					e.unitCase[c] = p
+				}
+			}
+		}
+		if slices.Contains(e.unitCase, -1) {
+			e.unitCase = nil
+		}
+	}
 	return e
 }
 
@@ -126,6 +147,8 @@ type work struct {
 	group []float64
 
 	place placement   // how the patterned cases' units are placed, with its scratch
+	only  int         // when not 0, exact placement scans effect only−1 alone (endMoments)
+	fold  fold        // the current member folded, for exact placement (fold.go)
 	lists [6]spanList // pieces being collected: max and min of N, V, M
 	share float64     // a piece is listed with at least this share of the largest one's effect
 	limit int         // most pieces listed: maxSpans, or unlimited with AllSpans

@@ -62,18 +62,41 @@ type Displacement struct {
 func (r *Result) Cases() []CaseResult {
 	mo := r.Job.Model
 	out := make([]CaseResult, len(mo.Cases))
+	cols := make([][]int, len(mo.Cases))
 	for c := range mo.Cases {
-		cols := r.lay.Whole(c)
-		cr := CaseResult{Name: mo.Cases[c].Name, Ends: make([]MemberEnds, len(mo.Members)), Displacements: make([]Displacement, len(mo.Nodes))}
+		cols[c] = r.lay.Whole(c)
+		out[c] = CaseResult{Name: mo.Cases[c].Name, Ends: make([]MemberEnds, len(mo.Members)), Displacements: make([]Displacement, len(mo.Nodes))}
+	}
+	// The end forces of every column of a member at once, summed case by
+	// case over its columns in order: the sums of endForces, to the last
+	// bit, without reading the displacements column by column.
+	ends := make([][6]float64, len(r.sol.Model().Cases))
+	for m := range mo.Members {
+		r.sol.EndForcesEach(ends, m)
+		for c := range mo.Cases {
+			var f [6]float64
+			for _, col := range cols[c] {
+				g := &ends[col]
+				for i := range f {
+					f[i] += g[i]
+				}
+			}
+			// The local end forces the nodes exert (frame.Solution.EndForces)
+			// as internal forces: at the start N = −f0, V = f1, M = −f2; at
+			// the end N = f3, V = −f4, M = f5. A released end's are
+			// exactly zero.
+			out[c].Ends[m] = MemberEnds{Member: m, Start: frame.Forces{N: -f[0], V: f[1], M: -f[2]}, End: frame.Forces{N: f[3], V: -f[4], M: f[5]}}
+		}
+	}
+	u := make([]float64, 3*len(mo.Nodes))
+	for c := range mo.Cases {
+		cr := &out[c]
+		r.sol.DisplacementSums(u, cols[c])
 		for v := range mo.Nodes {
 			nd := &mo.Nodes[v]
-			d := Displacement{Node: v, RotationFree: r.sol.RotationFree(v)}
-			for _, col := range cols {
-				ux, uy, rz := r.sol.Displacement(col, v)
-				d.Ux, d.Uy = d.Ux+ux, d.Uy+uy
-				if !d.RotationFree {
-					d.Rz += rz
-				}
+			d := Displacement{Node: v, RotationFree: r.sol.RotationFree(v), Ux: u[3*v], Uy: u[3*v+1]}
+			if !d.RotationFree {
+				d.Rz = u[3*v+2]
 			}
 			cr.Displacements[v] = d
 			if !nd.Supported() {
@@ -83,7 +106,7 @@ func (r *Result) Cases() []CaseResult {
 			for k := range re.Components {
 				re.Components[k] = nd.Reacts(k)
 			}
-			for _, col := range cols {
+			for _, col := range cols[c] {
 				fx, fy, m := r.sol.Reaction(col, v)
 				re.Fx, re.Fy, re.M = re.Fx+fx, re.Fy+fy, re.M+m
 			}
@@ -96,15 +119,6 @@ func (r *Result) Cases() []CaseResult {
 				cr.Reduced = append(cr.Reduced, re)
 			}
 		}
-		for m := range mo.Members {
-			f := r.endForces(c, m)
-			// The local end forces the nodes exert (frame.Solution.EndForces)
-			// as internal forces: at the start N = −f0, V = f1, M = −f2; at
-			// the end N = f3, V = −f4, M = f5. A released end's are
-			// exactly zero.
-			cr.Ends[m] = MemberEnds{Member: m, Start: frame.Forces{N: -f[0], V: f[1], M: -f[2]}, End: frame.Forces{N: f[3], V: -f[4], M: f[5]}}
-		}
-		out[c] = cr
 	}
 	return out
 }

@@ -104,6 +104,8 @@ type Result struct {
 	// The combinations as they were enveloped (favourableSplit), index
 	// for index with the job's.
 	solved []combos.Combination
+	// finders holds EndMomentsOf's reusable evaluators.
+	finders sync.Pool
 }
 
 // Combination is one combination of the job as it was analysed.
@@ -175,7 +177,9 @@ func Run(ctx context.Context, job *Job, opt Options) (*Result, error) {
 	sv.namePieces(job, lay)
 	report(opt, Progress{Phase: fmt.Sprintf("solving %d loads (%d load cases, %d pattern pieces or arrangements)",
 		len(lay.Model.Cases), len(sv.model.Cases), len(lay.Model.Cases)-len(sv.model.Cases))})
-	sol, err := frame.SolveWith(lay.Model, opt.Solver)
+	solver := opt.Solver
+	solver.PerMember += perMember(job, sv, lay, opt)
+	sol, err := frame.SolveWith(lay.Model, solver)
 	if err != nil {
 		return nil, err
 	}
@@ -386,7 +390,15 @@ func (r *Result) EndMoments(m int, x float64, k, j int, hi bool, want float64) (
 // combination (second order: its own).
 func (r *Result) EndMomentsOf(m int, states []envelope.State) []envelope.State {
 	if r.units == nil {
-		return envelope.EndMomentsOf(r.sol, r.solved, r.Envelope.Settings, r.lay, m, states)
+		// A finder's evaluator and scratch, formed once and reused member
+		// after member: a design table asks for every member's states.
+		f, _ := r.finders.Get().(*envelope.EndsFinder)
+		if f == nil {
+			f = envelope.NewEndsFinder(r.sol, r.solved, r.Envelope.Settings, r.lay)
+		}
+		out := f.Of(m, states)
+		r.finders.Put(f)
+		return out
 	}
 	out := make([]envelope.State, len(states))
 	byKey := map[int][]int{} // unit of the solution → states
@@ -479,4 +491,28 @@ func (r *Result) endForces(c, m int) [6]float64 {
 		}
 	}
 	return f
+}
+
+// perMember is what the envelopes will hold per member, for the estimate
+// of the run's memory: each member's stations, with two faces on a beam.
+func perMember(job *Job, sv solved, lay *patterns.Layout, opt Options) float64 {
+	pieces := len(lay.Model.Cases) - len(sv.model.Cases)
+	service := slices.ContainsFunc(sv.combinations, func(c combos.Combination) bool { return c.Service })
+	return float64(job.Settings.Stations+2) * envelope.StationBytes(pieces, service, opt.allPieces)
+}
+
+// EstimateMemory returns the estimate of the peak memory, in bytes, of
+// running job, which Run refuses past frame.MaxMemory (an error wrapping
+// frame.ErrTooLarge), and the size of its system of equations. It places
+// the patterned loads but solves nothing.
+func EstimateMemory(job *Job) (float64, frame.Info, error) {
+	if err := job.check(); err != nil {
+		return 0, frame.Info{}, err
+	}
+	sv := favourableSplit(job)
+	lay, err := patterns.Expand(sv.model, sv.patterned, job.Segments, job.Patterns)
+	if err != nil {
+		return 0, frame.Info{}, err
+	}
+	return frame.EstimateMemory(lay.Model, frame.Options{PerMember: perMember(job, sv, lay, Options{})})
 }

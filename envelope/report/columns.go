@@ -2,6 +2,8 @@ package report
 
 import (
 	"math"
+	"runtime"
+	"sync"
 
 	"govern/envelope"
 
@@ -125,10 +127,11 @@ func (p *Report) stateRows(members []int) [][]string {
 	mo := p.model()
 	patterned := p.pieces() > 0
 	var rows [][]string
-	for _, m := range members {
+	all := p.allColumnStates(members)
+	for i, m := range members {
 		from, to := analysis.ShownEnds(mo, m)
 		name := mo.Members[m].Name
-		states := p.columnStates(m)
+		states := all[i]
 		if p.states == nil {
 			p.states = map[int][]columnState{}
 		}
@@ -154,4 +157,28 @@ func (p *Report) stateRows(members []int) [][]string {
 		}
 	}
 	return rows
+}
+
+// allColumnStates returns columnStates of each of members, formed on every
+// processor (each member's states are formed from the result alone),
+// in the order of members.
+func (p *Report) allColumnStates(members []int) [][]columnState {
+	out := make([][]columnState, len(members))
+	next := make(chan int, len(members))
+	for i := range members {
+		next <- i
+	}
+	close(next)
+	var wg sync.WaitGroup
+	for range min(runtime.GOMAXPROCS(0), len(members)) {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			for i := range next {
+				out[i] = p.columnStates(members[i])
+			}
+		}()
+	}
+	wg.Wait()
+	return out
 }
