@@ -96,6 +96,9 @@ type Result struct {
 	solver  frame.Options // the options of every solve
 	mu      sync.Mutex    // guards buckled and solutions
 	buckled []buckled     // first-order combinations with αcr ≤ 1, as warnings
+	// buckling holds the factored elastic stiffness of each stiffness the
+	// critical load factors are found with, shared by every combination.
+	buckling map[Stiffness]*bucklingOnce
 	// units are the analyses of the combinations when they are not all one
 	// first-order analysis with the sections as given (nil then), and
 	// solutions those solved again on request (solutionFor), by unit.

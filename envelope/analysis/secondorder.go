@@ -345,15 +345,14 @@ func (r *Result) iterate(u *unit, base *frame.Model, stiff Stiffness) error {
 func (r *Result) critical(u *unit, base *frame.Model, n []float64, stiff Stiffness) error {
 	job := r.Job
 	name := job.Combinations[u.k].Name
-	secs, mems := job.stiffnessOf(base, stiff)
-	a, err := frame.CriticalFactor(&frame.Model{Nodes: base.Nodes, Sections: secs, Members: mems}, n)
+	a, err := r.criticalFactor(base, stiff, n)
 	if err != nil {
 		return fmt.Errorf("combination %q: critical load factor: %w", name, err)
 	}
 	u.critical = sixFigures(a * u.scale)
 	u.nominal = u.critical
 	if stiff != Nominal {
-		a, err := frame.CriticalFactor(&frame.Model{Nodes: base.Nodes, Sections: base.Sections, Members: base.Members}, n)
+		a, err := r.criticalFactor(base, Nominal, n)
 		if err != nil {
 			return fmt.Errorf("combination %q: critical load factor: %w", name, err)
 		}
@@ -375,6 +374,38 @@ func (r *Result) critical(u *unit, base *frame.Model, n []float64, stiff Stiffne
 		r.mu.Unlock()
 	}
 	return nil
+}
+
+// bucklingOnce is the factored elastic stiffness of one stiffness, made
+// by the first combination that needs it.
+type bucklingOnce struct {
+	once sync.Once
+	b    *frame.Buckling
+	err  error
+}
+
+// criticalFactor returns αcr of the axial forces n with stiffness stiff:
+// the elastic stiffness is factored once per stiffness for every
+// combination (frame.NewBuckling).
+func (r *Result) criticalFactor(base *frame.Model, stiff Stiffness, n []float64) (float64, error) {
+	r.mu.Lock()
+	if r.buckling == nil {
+		r.buckling = map[Stiffness]*bucklingOnce{}
+	}
+	bo := r.buckling[stiff]
+	if bo == nil {
+		bo = &bucklingOnce{}
+		r.buckling[stiff] = bo
+	}
+	r.mu.Unlock()
+	bo.once.Do(func() {
+		secs, mems := r.Job.stiffnessOf(base, stiff)
+		bo.b, bo.err = frame.NewBuckling(&frame.Model{Nodes: base.Nodes, Sections: secs, Members: mems})
+	})
+	if bo.err != nil {
+		return 0, bo.err
+	}
+	return bo.b.Factor(n)
 }
 
 // ErrBuckles marks a combination under which the frame buckles.

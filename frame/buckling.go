@@ -1,0 +1,590 @@
+package frame
+
+import (
+	"errors"
+	"fmt"
+	"math"
+	"slices"
+
+	"gonum.org/v1/gonum/blas"
+	"gonum.org/v1/gonum/blas/blas64"
+	"gonum.org/v1/gonum/lapack/lapack64"
+	"gonum.org/v1/gonum/mat"
+)
+
+// Buckling holds what the critical load factors of one model under any
+// number of sets of axial forces share: the elastic stiffness K, factored
+// once. It is safe for concurrent use.
+//
+// The stiffness with the geometric stiffness of axial forces λ·N is linear
+// in λ only before the sub-elements' inner nodes and the members' own end
+// rotations (releases, rotational springs) are condensed out, so the
+// eigenproblem is posed over all of them: K x = λ (−Kg) x, with those
+// degrees of freedom kept (the inner nodes' axial ones, which Kg does not
+// touch, are condensed). K is applied inverted by eliminating each
+// member's own degrees of freedom and one band Cholesky factor of what is
+// left, the stiffness the first-order solve uses. αcr is 1/μ for the
+// largest μ of K⁻¹(−Kg), found by Lanczos iteration in the K inner
+// product with full reorthogonalization; each step is one band forward
+// and back substitution and one product with Kg.
+type Buckling struct {
+	model *Model
+	n     int // equations of the band
+	kb    int
+	u     []float64 // upper band Cholesky factor of the condensed K
+	mems  []pencil
+	size  int       // n plus every member's own degrees of freedom
+	sol   *Solution // the numbering, for the check of a factor found
+}
+
+// maxOwn is the most degrees of freedom a member keeps of its own: the
+// transverse displacement and rotation of each inner node, and a
+// released or sprung rotation at either end.
+const maxOwn = 2*(SubElements-1) + 2
+
+// pencil is one member's part of K and of Kg per unit axial force, over
+// its nodes' six local degrees of freedom and ni of its own.
+type pencil struct {
+	c, s float64
+	gdof [6]int // equation of each node degree of freedom, or < 0
+	ni   int
+	off  int                             // where its own degrees of freedom start in a vector
+	lii  [maxOwn][maxOwn]float64         // lower Cholesky factor of K's own block
+	kin  [maxOwn][6]float64              // K's own rows, node columns (local axes)
+	g    [6 + maxOwn][6 + maxOwn]float64 // Kg per unit axial force, tension positive
+}
+
+// NewBuckling factors the elastic stiffness of mo for [Buckling.Factor].
+// A model the first-order solve refuses is refused with the same error.
+func NewBuckling(mo *Model) (*Buckling, error) {
+	if err := checkEquations(mo); err != nil {
+		return nil, err
+	}
+	if err := mo.Validate(); err != nil {
+		return nil, err
+	}
+	released := releasedRotations(mo)
+	order := rcmOrder(adjacency(mo))
+	dof, n, band := dofMap(mo, order, released)
+	if err := checkStorage(mo, n, band); err != nil {
+		return nil, err
+	}
+	b := &Buckling{model: mo, n: n, mems: make([]pencil, len(mo.Members))}
+	sol := &Solution{model: mo, dofs: n, band: band, cond: 1, dof: dof, released: released}
+	sol.elems = make([]element, len(mo.Members))
+	off := n
+	for m, mem := range mo.Members {
+		p := &b.mems[m]
+		e := newElement(mo, m)
+		k, ok := p.build(&e)
+		if !ok {
+			return nil, b.refuse()
+		}
+		e.k = k
+		sol.elems[m] = e
+		ends := [2]int{mem.Start, mem.End}
+		for i := range 6 {
+			p.gdof[i] = dof[3*ends[i/3]+i%3]
+		}
+		p.off = off
+		off += p.ni
+	}
+	b.size = off
+	b.sol = sol
+	if n == 0 {
+		return b, nil
+	}
+	b.kb = min(band, n-1)
+	data := sol.assemble(n, b.kb)
+	f, ok := lapack64.Pbtrf(blas64.SymmetricBand{Uplo: blas.Upper, N: n, K: b.kb, Data: data, Stride: b.kb + 1})
+	if !ok {
+		return nil, b.refuse()
+	}
+	b.u = f.Data
+	return b, nil
+}
+
+// refuse returns why the first-order stiffness is not positive definite.
+func (b *Buckling) refuse() error {
+	mo := b.model
+	if _, err := Solve(&Model{Nodes: mo.Nodes, Sections: mo.Sections, Members: mo.Members}); err != nil {
+		return err
+	}
+	return errors.New("frame: CriticalFactor: the stiffness is not positive definite")
+}
+
+// build sets p's parts from the member e and returns the local stiffness
+// at the nodes with its own degrees of freedom condensed out (which is
+// e's own, to rounding); ok is false when K's own block is not positive
+// definite.
+func (p *pencil) build(e *element) (k [6][6]float64, ok bool) {
+	p.c, p.s = e.c, e.s
+	// Degrees of freedom: 0-5 the nodes' (local axes); then the own end
+	// rotations; then v, θ of each inner node; last u of each inner node
+	// (condensed here).
+	own := [2]int{-1, -1}
+	d := 6
+	for side := range 2 {
+		rel := e.release.AtStart()
+		if side == 1 {
+			rel = e.release.AtEnd()
+		}
+		if rel || e.spring[side] > 0 {
+			own[side] = d
+			d++
+		}
+	}
+	ni := d - 6 + 2*(SubElements-1)
+	full := d + 3*(SubElements-1)
+	// sub maps each of the subdivided member's 15 degrees of freedom to
+	// the full ones: sub = Σ coef · full.
+	type term struct {
+		j int
+		c float64
+	}
+	var sub [3 * (SubElements + 1)][]term
+	sub[0] = []term{{0, 1}}
+	sub[1] = []term{{1, 1}, {2, e.a}}
+	sub[2] = []term{{2, 1}}
+	if own[0] >= 0 {
+		sub[2] = []term{{own[0], 1}}
+	}
+	last := 3 * SubElements
+	sub[last] = []term{{3, 1}}
+	sub[last+1] = []term{{4, 1}, {5, -e.b}}
+	sub[last+2] = []term{{5, 1}}
+	if own[1] >= 0 {
+		sub[last+2] = []term{{own[1], 1}}
+	}
+	for j := 1; j < SubElements; j++ {
+		sub[3*j] = []term{{d + 2*(SubElements-1) + j - 1, 1}}
+		sub[3*j+1] = []term{{d + 2*(j-1), 1}}
+		sub[3*j+2] = []term{{d + 2*(j-1) + 1, 1}}
+	}
+	k0 := subStiffness(e.ea, e.ei, e.lf, 0)
+	k1 := subStiffness(0, 0, e.lf, 1)
+	a0 := mat.NewDense(full, full, nil)
+	a1 := mat.NewDense(full, full, nil)
+	for i := range k0 {
+		for j := range k0 {
+			for _, ti := range sub[i] {
+				for _, tj := range sub[j] {
+					a0.Set(ti.j, tj.j, a0.At(ti.j, tj.j)+ti.c*tj.c*k0[i][j])
+					a1.Set(ti.j, tj.j, a1.At(ti.j, tj.j)+ti.c*tj.c*k1[i][j])
+				}
+			}
+		}
+	}
+	for side, r := range [2]int{2, 5} {
+		if o := own[side]; o >= 0 && !(side == 0 && e.release.AtStart() || side == 1 && e.release.AtEnd()) {
+			ks := e.spring[side]
+			a0.Set(o, o, a0.At(o, o)+ks)
+			a0.Set(r, r, a0.At(r, r)+ks)
+			a0.Set(o, r, a0.At(o, r)-ks)
+			a0.Set(r, o, a0.At(r, o)-ks)
+		}
+	}
+	a1.Set(2, 2, a1.At(2, 2)+e.a)
+	a1.Set(5, 5, a1.At(5, 5)+e.b)
+	// Condense the inner axial ones out of K (Kg has none of them), then
+	// the member's own.
+	keep := 6 + ni
+	red := schur(a0, keep)
+	if red == nil {
+		return k, false
+	}
+	p.ni = ni
+	var lii [maxOwn][maxOwn]float64
+	for i := range ni {
+		for j := range 6 {
+			p.kin[i][j] = red.At(6+i, j)
+		}
+	}
+	s := schur(red, 6)
+	if s == nil {
+		return k, false
+	}
+	own2 := mat.NewSymDense(ni, nil)
+	for i := range ni {
+		for j := i; j < ni; j++ {
+			own2.SetSym(i, j, red.At(6+i, 6+j))
+		}
+	}
+	var ch mat.Cholesky
+	if ni > 0 {
+		if !ch.Factorize(own2) {
+			return k, false
+		}
+		var l mat.TriDense
+		ch.LTo(&l)
+		for i := range ni {
+			for j := 0; j <= i; j++ {
+				lii[i][j] = l.At(i, j)
+			}
+		}
+	}
+	p.lii = lii
+	for i := range keep {
+		for j := range keep {
+			p.g[i][j] = a1.At(i, j)
+		}
+	}
+	for i := range 6 {
+		for j := range 6 {
+			k[i][j] = (s.At(i, j) + s.At(j, i)) / 2
+		}
+	}
+	return k, true
+}
+
+// schur returns a[:keep, :keep] − a[:keep, keep:] a[keep:, keep:]⁻¹
+// a[keep:, :keep], nil when a[keep:, keep:] is not positive definite.
+func schur(a *mat.Dense, keep int) *mat.Dense {
+	r, _ := a.Dims()
+	out := mat.DenseCopyOf(a.Slice(0, keep, 0, keep))
+	if r == keep {
+		return out
+	}
+	z := r - keep
+	zz := mat.NewSymDense(z, nil)
+	for i := range z {
+		for j := i; j < z; j++ {
+			zz.SetSym(i, j, a.At(keep+i, keep+j))
+		}
+	}
+	var ch mat.Cholesky
+	if !ch.Factorize(zz) {
+		return nil
+	}
+	var x mat.Dense
+	if err := ch.SolveTo(&x, a.Slice(keep, r, 0, keep)); err != nil {
+		return nil
+	}
+	var c mat.Dense
+	c.Mul(a.Slice(0, keep, keep, r), &x)
+	out.Sub(out, &c)
+	return out
+}
+
+// ownSolve overwrites x (length p.ni) with K's own block inverted times x.
+func (p *pencil) ownSolve(x []float64) {
+	for i := range p.ni {
+		s := x[i]
+		for k := range i {
+			s -= p.lii[i][k] * x[k]
+		}
+		x[i] = s / p.lii[i][i]
+	}
+	for i := p.ni - 1; i >= 0; i-- {
+		s := x[i]
+		for k := i + 1; k < p.ni; k++ {
+			s -= p.lii[k][i] * x[k]
+		}
+		x[i] = s / p.lii[i][i]
+	}
+}
+
+// local returns the member's node degrees of freedom of x in local axes.
+func (p *pencil) local(x []float64) [6]float64 {
+	var g, l [6]float64
+	for i, e := range p.gdof {
+		if e >= 0 {
+			g[i] = x[e]
+		}
+	}
+	for n := 0; n < 6; n += 3 {
+		l[n] = p.c*g[n] + p.s*g[n+1]
+		l[n+1] = -p.s*g[n] + p.c*g[n+1]
+		l[n+2] = g[n+2]
+	}
+	return l
+}
+
+// addGlobal adds the local node forces l, turned to global axes, to y.
+func (p *pencil) addGlobal(y []float64, l *[6]float64) {
+	for n := 0; n < 6; n += 3 {
+		g := [3]float64{p.c*l[n] - p.s*l[n+1], p.s*l[n] + p.c*l[n+1], l[n+2]}
+		for i := range 3 {
+			if e := p.gdof[n+i]; e >= 0 {
+				y[e] += g[i]
+			}
+		}
+	}
+}
+
+// solveK overwrites x (length b.size) with K⁻¹ x.
+func (b *Buckling) solveK(x []float64) {
+	for m := range b.mems {
+		p := &b.mems[m]
+		xi := x[p.off : p.off+p.ni]
+		p.ownSolve(xi)
+		var l [6]float64
+		for j := range 6 {
+			s := 0.0
+			for i := range p.ni {
+				s -= p.kin[i][j] * xi[i]
+			}
+			l[j] = s
+		}
+		p.addGlobal(x, &l)
+	}
+	if b.n > 0 {
+		bandSolveVec(b.u, b.n, b.kb, x[:b.n])
+	}
+	var t [maxOwn]float64
+	for m := range b.mems {
+		p := &b.mems[m]
+		l := p.local(x)
+		for i := range p.ni {
+			s := 0.0
+			for j := range 6 {
+				s += p.kin[i][j] * l[j]
+			}
+			t[i] = s
+		}
+		p.ownSolve(t[:p.ni])
+		xi := x[p.off : p.off+p.ni]
+		for i := range p.ni {
+			xi[i] -= t[i]
+		}
+	}
+}
+
+// mulKg sets y to −Kg x for the axial forces axial.
+func (b *Buckling) mulKg(y, x, axial []float64) {
+	clear(y)
+	var z [6 + maxOwn]float64
+	for m := range b.mems {
+		p := &b.mems[m]
+		nm := axial[m]
+		if nm == 0 {
+			continue
+		}
+		l := p.local(x)
+		d := 6 + p.ni
+		copy(z[:6], l[:])
+		copy(z[6:d], x[p.off:p.off+p.ni])
+		var f [6]float64
+		for i := range d {
+			s := 0.0
+			for j := range d {
+				s += p.g[i][j] * z[j]
+			}
+			s *= -nm
+			if i < 6 {
+				f[i] = s
+			} else {
+				y[p.off+i-6] += s
+			}
+		}
+		p.addGlobal(y, &f)
+	}
+}
+
+// bandSolveVec overwrites x with U⁻¹ U⁻ᵀ x, u an upper band Cholesky
+// factor (row-major, kb superdiagonals).
+func bandSolveVec(u []float64, n, kb int, x []float64) {
+	w := kb + 1
+	for i := range n {
+		xi := x[i] / u[i*w]
+		x[i] = xi
+		row := u[i*w+1 : i*w+min(w, n-i)]
+		y := x[i+1 : i+1+len(row)]
+		for j, v := range row {
+			y[j] -= v * xi
+		}
+	}
+	for i := n - 1; i >= 0; i-- {
+		row := u[i*w+1 : i*w+min(w, n-i)]
+		y := x[i+1 : i+1+len(row)]
+		s := x[i]
+		for j, v := range row {
+			s -= v * y[j]
+		}
+		x[i] = s / u[i*w]
+	}
+}
+
+// Lanczos limits: the most steps, how often the tridiagonal matrix's
+// eigenvalues are formed, and the residual bound, relative to μ, at which
+// the largest is taken as found. The bound is that of the eigenvalue
+// itself (an eigenvalue of the pencil lies within it), so 1e-9 leaves
+// the six figures reported exact.
+const (
+	maxLanczos   = 300
+	lanczosCheck = 5
+	lanczosTol   = 1e-9
+)
+
+// Factor returns αcr for the axial forces axial (one per member, tension
+// positive), as [CriticalFactor].
+func (b *Buckling) Factor(axial []float64) (float64, error) {
+	mo := b.model
+	if len(axial) != len(mo.Members) {
+		panic("frame: Buckling.Factor: axial does not give one axial force per member")
+	}
+	compressed := false
+	for _, v := range axial {
+		if !finite(v) {
+			return 0, fmt.Errorf("frame: CriticalFactor: axial force %v is not a finite number", v)
+		}
+		compressed = compressed || v < 0
+	}
+	if !compressed || b.size == 0 {
+		return math.Inf(1), nil
+	}
+	mu, err := b.lanczos(axial)
+	if err == nil && !(mu > 1/maxCritical) {
+		return math.Inf(1), nil
+	}
+	// The factor found is an eigenvalue (its residual bound says so); it
+	// is the smallest when K + λ·Kg is positive definite just below it
+	// (Sylvester's law of inertia). Else the search by factorizations.
+	if a := 1 / mu; err == nil && b.definite(a*(1-certifyGap), axial) {
+		return a, nil
+	}
+	return criticalBisect(mo, axial)
+}
+
+// certifyGap is how far below the factor found the stiffness must still
+// be positive definite: within the six figures reported.
+const certifyGap = 1e-6
+
+// definite reports whether K + λ·Kg of axial is positive definite.
+func (b *Buckling) definite(lambda float64, axial []float64) bool {
+	mo, sol := b.model, b.sol
+	elems := make([]element, len(mo.Members))
+	for m := range mo.Members {
+		e, ok := newElementAxial(mo, m, lambda*axial[m], true)
+		if !ok {
+			return false
+		}
+		elems[m] = e
+	}
+	if b.n == 0 {
+		return true
+	}
+	data := make([]float64, b.n*(b.kb+1))
+	sol.assembleTo(data, b.kb, elems)
+	_, ok := lapack64.Pbtrf(blas64.SymmetricBand{Uplo: blas.Upper, N: b.n, K: b.kb, Data: data, Stride: b.kb + 1})
+	return ok
+}
+
+// lanczos returns the largest eigenvalue μ of K⁻¹(−Kg), 0 or less when
+// none is positive.
+func (b *Buckling) lanczos(axial []float64) (float64, error) {
+	size := b.size
+	// q are K-orthonormal, p = K q.
+	var qs, ps [][]float64
+	// A fixed start with every direction in it: z, and r = K⁻¹ z.
+	w := make([]float64, size)
+	for i := range w {
+		w[i] = math.Sin(float64(i+1)*0.7548776662) + 0.5
+	}
+	r := slices.Clone(w)
+	b.solveK(r)
+	var alpha, beta []float64
+	top := 0.0 // the largest |α| so far, the scale of the operator
+	for j := 0; j < min(maxLanczos, size); j++ {
+		// Reorthogonalize r against every q, twice, and w = K r alike.
+		for range 2 {
+			for k := range qs {
+				c := dot(ps[k], r)
+				axpy(r, -c, qs[k])
+				axpy(w, -c, ps[k])
+			}
+		}
+		bb := dot(r, w)
+		if j > 0 {
+			if !(bb > 0) || math.Sqrt(bb) <= 1e-13*top {
+				break // an invariant subspace: T's eigenvalues are exact
+			}
+			beta = append(beta, math.Sqrt(bb))
+		} else if !(bb > 0) {
+			return 0, errors.New("frame: CriticalFactor: the stiffness is not positive definite")
+		}
+		nb := math.Sqrt(bb)
+		q, p := r, w
+		for i := range q {
+			q[i] /= nb
+			p[i] /= nb
+		}
+		qs, ps = append(qs, q), append(ps, p)
+		w = make([]float64, size)
+		b.mulKg(w, q, axial) // −Kg q = K r
+		r = slices.Clone(w)
+		b.solveK(r)
+		a := dot(q, w)
+		alpha = append(alpha, a)
+		top = max(top, math.Abs(a))
+		axpy(r, -a, q)
+		axpy(w, -a, p)
+		if j > 0 {
+			axpy(r, -beta[j-1], qs[j-1])
+			axpy(w, -beta[j-1], ps[j-1])
+		}
+		if (j+1)%lanczosCheck == 0 {
+			theta, res := tridiagTop(alpha, beta, math.Sqrt(max(dot(r, w), 0)))
+			if res <= lanczosTol*math.Abs(theta) {
+				return theta, nil
+			}
+		}
+	}
+	theta, res := tridiagTop(alpha, beta, math.Sqrt(max(dot(r, w), 0)))
+	if len(alpha) < size && len(alpha) >= maxLanczos && res > lanczosTol*math.Abs(theta) {
+		return 0, fmt.Errorf("frame: CriticalFactor: %w: the largest eigenvalue did not converge in %d steps", ErrNoCritical, maxLanczos)
+	}
+	return theta, nil
+}
+
+// tridiagTop returns the largest eigenvalue of the symmetric tridiagonal
+// matrix of diagonal alpha and off-diagonal beta, and its residual bound
+// next·|last component of its eigenvector|.
+func tridiagTop(alpha, beta []float64, next float64) (theta, res float64) {
+	m := len(alpha)
+	t := mat.NewSymDense(m, nil)
+	for i := range m {
+		t.SetSym(i, i, alpha[i])
+		if i+1 < m {
+			t.SetSym(i, i+1, beta[i])
+		}
+	}
+	var eig mat.EigenSym
+	if !eig.Factorize(t, true) {
+		return math.NaN(), math.Inf(1)
+	}
+	vals := eig.Values(nil)
+	var v mat.Dense
+	eig.VectorsTo(&v)
+	return vals[m-1], next * math.Abs(v.At(m-1, m-1))
+}
+
+// CriticalFactor returns αcr, the elastic critical load factor of the
+// model under the axial forces axial (one per member, tension positive):
+// the smallest λ > 0 for which K + λ·Kg is singular, K the elastic
+// stiffness and Kg the geometric stiffness of the axial forces (with each
+// member's flexible part subdivided, SubElements). It returns +Inf when
+// no member is in compression, or when no λ up to 1e12 makes it singular.
+// For several sets of axial forces on one model, [NewBuckling] factors K
+// once for all. A model the first-order solve refuses is refused with
+// the same error.
+func CriticalFactor(mo *Model, axial []float64) (float64, error) {
+	if len(axial) != len(mo.Members) {
+		panic("frame: CriticalFactor: axial does not give one axial force per member")
+	}
+	compressed := false
+	for _, n := range axial {
+		if !finite(n) {
+			return 0, fmt.Errorf("frame: CriticalFactor: axial force %v is not a finite number", n)
+		}
+		compressed = compressed || n < 0
+	}
+	if !compressed {
+		return math.Inf(1), nil
+	}
+	b, err := NewBuckling(mo)
+	if err != nil {
+		return 0, err
+	}
+	return b.Factor(axial)
+}
