@@ -4,7 +4,9 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"runtime"
 	"slices"
+	"sync"
 
 	"gonum.org/v1/gonum/blas"
 	"gonum.org/v1/gonum/blas/blas64"
@@ -284,12 +286,13 @@ func (p *pencil) ownSolve(x []float64) {
 	}
 }
 
-// local returns the member's node degrees of freedom of x in local axes.
-func (p *pencil) local(x []float64) [6]float64 {
+// local returns the member's node degrees of freedom of column c of the
+// block x (k columns, row-major) in local axes.
+func (p *pencil) local(x []float64, c, k int) [6]float64 {
 	var g, l [6]float64
 	for i, e := range p.gdof {
 		if e >= 0 {
-			g[i] = x[e]
+			g[i] = x[e*k+c]
 		}
 	}
 	for n := 0; n < 6; n += 3 {
@@ -300,98 +303,84 @@ func (p *pencil) local(x []float64) [6]float64 {
 	return l
 }
 
-// addGlobal adds the local node forces l, turned to global axes, to y.
-func (p *pencil) addGlobal(y []float64, l *[6]float64) {
+// addGlobal adds the local node forces l, turned to global axes, to
+// column c of the block y (k columns).
+func (p *pencil) addGlobal(y []float64, l *[6]float64, c, k int) {
 	for n := 0; n < 6; n += 3 {
 		g := [3]float64{p.c*l[n] - p.s*l[n+1], p.s*l[n] + p.c*l[n+1], l[n+2]}
 		for i := range 3 {
 			if e := p.gdof[n+i]; e >= 0 {
-				y[e] += g[i]
+				y[e*k+c] += g[i]
 			}
 		}
 	}
 }
 
-// solveK overwrites x (length b.size) with K⁻¹ x.
-func (b *Buckling) solveK(x []float64) {
-	for m := range b.mems {
-		p := &b.mems[m]
-		xi := x[p.off : p.off+p.ni]
-		p.ownSolve(xi)
-		var l [6]float64
-		for j := range 6 {
-			s := 0.0
-			for i := range p.ni {
-				s -= p.kin[i][j] * xi[i]
-			}
-			l[j] = s
-		}
-		p.addGlobal(x, &l)
-	}
-	if b.n > 0 {
-		bandSolveVec(b.u, b.n, b.kb, x[:b.n])
-	}
+// solveK overwrites each of the k columns of x (b.size rows, row-major)
+// with K⁻¹ times it. Each column's arithmetic is the same whatever k.
+func (b *Buckling) solveK(x []float64, k int) {
 	var t [maxOwn]float64
 	for m := range b.mems {
 		p := &b.mems[m]
-		l := p.local(x)
-		for i := range p.ni {
-			s := 0.0
-			for j := range 6 {
-				s += p.kin[i][j] * l[j]
+		for c := range k {
+			for i := range p.ni {
+				t[i] = x[(p.off+i)*k+c]
 			}
-			t[i] = s
-		}
-		p.ownSolve(t[:p.ni])
-		xi := x[p.off : p.off+p.ni]
-		for i := range p.ni {
-			xi[i] -= t[i]
+			p.ownSolve(t[:p.ni])
+			var l [6]float64
+			for j := range 6 {
+				s := 0.0
+				for i := range p.ni {
+					s -= p.kin[i][j] * t[i]
+				}
+				l[j] = s
+			}
+			for i := range p.ni {
+				x[(p.off+i)*k+c] = t[i]
+			}
+			p.addGlobal(x, &l, c, k)
 		}
 	}
-}
-
-// mulKg sets y to −Kg x for the axial forces axial.
-func (b *Buckling) mulKg(y, x, axial []float64) {
-	clear(y)
-	var z [6 + maxOwn]float64
+	switch {
+	case b.n == 0:
+	case k == 1:
+		bandSolveVec(b.u, b.n, b.kb, x[:b.n])
+	default:
+		bandSolve(b.u, b.n, b.kb, x[:b.n*k], k)
+	}
 	for m := range b.mems {
 		p := &b.mems[m]
-		nm := axial[m]
-		if nm == 0 {
-			continue
-		}
-		l := p.local(x)
-		d := 6 + p.ni
-		copy(z[:6], l[:])
-		copy(z[6:d], x[p.off:p.off+p.ni])
-		var f [6]float64
-		for i := range d {
-			s := 0.0
-			for j := range d {
-				s += p.g[i][j] * z[j]
+		for c := range k {
+			l := p.local(x, c, k)
+			for i := range p.ni {
+				s := 0.0
+				for j := range 6 {
+					s += p.kin[i][j] * l[j]
+				}
+				t[i] = s
 			}
-			s *= -nm
-			if i < 6 {
-				f[i] = s
-			} else {
-				y[p.off+i-6] += s
+			p.ownSolve(t[:p.ni])
+			for i := range p.ni {
+				x[(p.off+i)*k+c] -= t[i]
 			}
 		}
-		p.addGlobal(y, &f)
 	}
 }
 
 // bandSolveVec overwrites x with U⁻¹ U⁻ᵀ x, u an upper band Cholesky
-// factor (row-major, kb superdiagonals).
+// factor (row-major, kb superdiagonals): bandSolve for one column, in the
+// same order of operations.
 func bandSolveVec(u []float64, n, kb int, x []float64) {
 	w := kb + 1
 	for i := range n {
-		xi := x[i] / u[i*w]
+		xi := x[i] * (1 / u[i*w])
 		x[i] = xi
 		row := u[i*w+1 : i*w+min(w, n-i)]
 		y := x[i+1 : i+1+len(row)]
 		for j, v := range row {
-			y[j] -= v * xi
+			if v != 0 {
+				y[j] += -v * xi
+			}
 		}
 	}
 	for i := n - 1; i >= 0; i-- {
@@ -399,51 +388,140 @@ func bandSolveVec(u []float64, n, kb int, x []float64) {
 		y := x[i+1 : i+1+len(row)]
 		s := x[i]
 		for j, v := range row {
-			s -= v * y[j]
+			if v != 0 {
+				s += -v * y[j]
+			}
 		}
-		x[i] = s / u[i*w]
+		x[i] = s * (1 / u[i*w])
 	}
 }
 
-// Lanczos limits: the most steps, how often the tridiagonal matrix's
-// eigenvalues are formed, and the residual bound, relative to μ, at which
-// the largest is taken as found. The bound is that of the eigenvalue
-// itself (an eigenvalue of the pencil lies within it), so 1e-9 leaves
-// the six figures reported exact.
+// mulKg sets column c of the block y to −Kg x for the axial forces
+// axials[c], x and y of b.size rows and len(axials) columns.
+func (b *Buckling) mulKg(y, x []float64, axials [][]float64) {
+	clear(y)
+	k := len(axials)
+	var z [6 + maxOwn]float64
+	for m := range b.mems {
+		p := &b.mems[m]
+		d := 6 + p.ni
+		for c, axial := range axials {
+			nm := axial[m]
+			if nm == 0 {
+				continue
+			}
+			l := p.local(x, c, k)
+			copy(z[:6], l[:])
+			for i := range p.ni {
+				z[6+i] = x[(p.off+i)*k+c]
+			}
+			var f [6]float64
+			for i := range d {
+				s := 0.0
+				for j := range d {
+					s += p.g[i][j] * z[j]
+				}
+				s *= -nm
+				if i < 6 {
+					f[i] = s
+				} else {
+					y[(p.off+i-6)*k+c] += s
+				}
+			}
+			p.addGlobal(y, &f, c, k)
+		}
+	}
+}
+
+// Lanczos limits: the most steps, and the residual bound of the largest
+// Ritz value, relative to it, at which it is taken as found (an
+// eigenvalue lies within the bound; the square of the bound over the gap
+// to the next Ritz value would be smaller, but it is met early by a Ritz
+// value that is not yet the largest eigenvalue's). Ritz values lie below
+// the largest eigenvalue μ, so 1/θ is never below αcr; the check of
+// [Buckling.Factors] bounds it from below.
 const (
-	maxLanczos   = 300
-	lanczosCheck = 5
-	lanczosTol   = 1e-9
+	maxLanczos = 300
+	lanczosTol = 1e-8
 )
 
 // Factor returns αcr for the axial forces axial (one per member, tension
 // positive), as [CriticalFactor].
 func (b *Buckling) Factor(axial []float64) (float64, error) {
+	a, err := b.Factors([][]float64{axial})
+	if err != nil {
+		return 0, err
+	}
+	return a[0], nil
+}
+
+// Factors returns αcr for each set of axial forces of axials, as
+// [Buckling.Factor] for each: their iterations run side by side, each
+// step's substitutions one pass over the factor for all, and give the
+// same values as one by one.
+//
+// Each factor found is certified: it is 1/θ for the largest Ritz value θ,
+// never below αcr, and K + λ·Kg must be positive definite at λ =
+// (1 − certifyGap)/θ (one band Cholesky factorization, Sylvester's law of
+// inertia), so that αcr lies within certifyGap below it. Where the check
+// fails (a mode missed), αcr is found by the search that factors
+// K + λ·Kg at trial λ instead.
+func (b *Buckling) Factors(axials [][]float64) ([]float64, error) {
 	mo := b.model
-	if len(axial) != len(mo.Members) {
-		panic("frame: Buckling.Factor: axial does not give one axial force per member")
-	}
-	compressed := false
-	for _, v := range axial {
-		if !finite(v) {
-			return 0, fmt.Errorf("frame: CriticalFactor: axial force %v is not a finite number", v)
+	out := make([]float64, len(axials))
+	var run [][]float64
+	var at []int
+	for c, axial := range axials {
+		if len(axial) != len(mo.Members) {
+			panic("frame: Buckling.Factors: axial does not give one axial force per member")
 		}
-		compressed = compressed || v < 0
+		compressed := false
+		for _, v := range axial {
+			if !finite(v) {
+				return nil, fmt.Errorf("frame: CriticalFactor: axial force %v is not a finite number", v)
+			}
+			compressed = compressed || v < 0
+		}
+		if !compressed || b.size == 0 {
+			out[c] = math.Inf(1)
+			continue
+		}
+		run, at = append(run, axial), append(at, c)
 	}
-	if !compressed || b.size == 0 {
-		return math.Inf(1), nil
+	mus, errs := b.lanczos(run)
+	fail := make([]error, len(axials))
+	next := make(chan int, len(run))
+	for i := range run {
+		next <- i
 	}
-	mu, err := b.lanczos(axial)
-	if err == nil && !(mu > 1/maxCritical) {
-		return math.Inf(1), nil
+	close(next)
+	var wg sync.WaitGroup
+	for range min(runtime.GOMAXPROCS(0), len(run)) {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			for i := range next {
+				c, mu := at[i], mus[i]
+				switch {
+				case errs[i] != nil:
+				case !(mu > 1/maxCritical):
+					if b.definite(maxCritical, run[i]) {
+						out[c] = math.Inf(1)
+						continue
+					}
+				case b.definite((1-certifyGap)/mu, run[i]):
+					out[c] = 1 / mu
+					continue
+				}
+				out[c], fail[c] = criticalBisect(mo, run[i])
+			}
+		}()
 	}
-	// The factor found is an eigenvalue (its residual bound says so); it
-	// is the smallest when K + λ·Kg is positive definite just below it
-	// (Sylvester's law of inertia). Else the search by factorizations.
-	if a := 1 / mu; err == nil && b.definite(a*(1-certifyGap), axial) {
-		return a, nil
+	wg.Wait()
+	if err := errors.Join(fail...); err != nil {
+		return nil, err
 	}
-	return criticalBisect(mo, axial)
+	return out, nil
 }
 
 // certifyGap is how far below the factor found the stiffness must still
@@ -470,77 +548,130 @@ func (b *Buckling) definite(lambda float64, axial []float64) bool {
 	return ok
 }
 
-// lanczos returns the largest eigenvalue μ of K⁻¹(−Kg), 0 or less when
-// none is positive.
-func (b *Buckling) lanczos(axial []float64) (float64, error) {
-	size := b.size
-	// q are K-orthonormal, p = K q.
-	var qs, ps [][]float64
+// lanczos returns, for each set of axial forces, the largest eigenvalue μ
+// of K⁻¹(−Kg) (0 or less when none is positive), by Lanczos iteration in
+// the K inner product with full reorthogonalization, every set's side by
+// side.
+func (b *Buckling) lanczos(axials [][]float64) ([]float64, []error) {
+	size, k := b.size, len(axials)
+	type recurrence struct {
+		qs, ps      [][]float64 // K-orthonormal q, and p = K q
+		alpha, beta []float64
+		r, w        []float64 // the next residual, and K r
+		top         float64   // the largest |α|, the scale of the operator
+		done        bool
+	}
+	mus, errs := make([]float64, k), make([]error, k)
+	recs := make([]recurrence, k)
 	// A fixed start with every direction in it: z, and r = K⁻¹ z.
-	w := make([]float64, size)
-	for i := range w {
-		w[i] = math.Sin(float64(i+1)*0.7548776662) + 0.5
+	z := make([]float64, size)
+	for i := range z {
+		z[i] = math.Sin(float64(i+1)*0.7548776662) + 0.5
 	}
-	r := slices.Clone(w)
-	b.solveK(r)
-	var alpha, beta []float64
-	top := 0.0 // the largest |α| so far, the scale of the operator
+	r0 := slices.Clone(z)
+	b.solveK(r0, 1)
+	for c := range recs {
+		recs[c].r, recs[c].w = slices.Clone(r0), slices.Clone(z)
+	}
+	var active []int
+	var block, out []float64
+	var ax [][]float64
 	for j := 0; j < min(maxLanczos, size); j++ {
-		// Reorthogonalize r against every q, twice, and w = K r alike.
-		for range 2 {
-			for k := range qs {
-				c := dot(ps[k], r)
-				axpy(r, -c, qs[k])
-				axpy(w, -c, ps[k])
+		active = active[:0]
+		for c := range recs {
+			rc := &recs[c]
+			if rc.done {
+				continue
 			}
-		}
-		bb := dot(r, w)
-		if j > 0 {
-			if !(bb > 0) || math.Sqrt(bb) <= 1e-13*top {
-				break // an invariant subspace: T's eigenvalues are exact
+			// Reorthogonalize r against every q, twice, and w = K r alike.
+			for range 2 {
+				for q := range rc.qs {
+					s := dot(rc.ps[q], rc.r)
+					axpy(rc.r, -s, rc.qs[q])
+					axpy(rc.w, -s, rc.ps[q])
+				}
 			}
-			beta = append(beta, math.Sqrt(bb))
-		} else if !(bb > 0) {
-			return 0, errors.New("frame: CriticalFactor: the stiffness is not positive definite")
+			bb := dot(rc.r, rc.w)
+			if j == 0 && !(bb > 0) {
+				errs[c] = errors.New("frame: CriticalFactor: the stiffness is not positive definite")
+				rc.done = true
+				continue
+			}
+			if j > 0 {
+				if !(bb > 0) || math.Sqrt(bb) <= 1e-13*rc.top {
+					// An invariant subspace: T's eigenvalues are exact.
+					mus[c], _, _ = tridiagTop(rc.alpha, rc.beta, 0)
+					rc.done = true
+					continue
+				}
+				rc.beta = append(rc.beta, math.Sqrt(bb))
+			}
+			nb := math.Sqrt(bb)
+			for i := range rc.r {
+				rc.r[i] /= nb
+				rc.w[i] /= nb
+			}
+			rc.qs, rc.ps = append(rc.qs, rc.r), append(rc.ps, rc.w)
+			active = append(active, c)
 		}
-		nb := math.Sqrt(bb)
-		q, p := r, w
-		for i := range q {
-			q[i] /= nb
-			p[i] /= nb
+		if len(active) == 0 {
+			break
 		}
-		qs, ps = append(qs, q), append(ps, p)
-		w = make([]float64, size)
-		b.mulKg(w, q, axial) // −Kg q = K r
-		r = slices.Clone(w)
-		b.solveK(r)
-		a := dot(q, w)
-		alpha = append(alpha, a)
-		top = max(top, math.Abs(a))
-		axpy(r, -a, q)
-		axpy(w, -a, p)
-		if j > 0 {
-			axpy(r, -beta[j-1], qs[j-1])
-			axpy(w, -beta[j-1], ps[j-1])
+		na := len(active)
+		block = slices.Grow(block[:0], size*na)[:size*na]
+		out = slices.Grow(out[:0], size*na)[:size*na]
+		ax = ax[:0]
+		for a, c := range active {
+			q := recs[c].qs[j]
+			for i, v := range q {
+				block[i*na+a] = v
+			}
+			ax = append(ax, axials[c])
 		}
-		if (j+1)%lanczosCheck == 0 {
-			theta, res := tridiagTop(alpha, beta, math.Sqrt(max(dot(r, w), 0)))
+		b.mulKg(out, block, ax) // −Kg q = K r
+		copy(block, out)
+		b.solveK(block, na)
+		for a, c := range active {
+			rc := &recs[c]
+			rc.r, rc.w = make([]float64, size), make([]float64, size)
+			for i := range size {
+				rc.r[i], rc.w[i] = block[i*na+a], out[i*na+a]
+			}
+			q, p := rc.qs[j], rc.ps[j]
+			al := dot(q, rc.w)
+			rc.alpha = append(rc.alpha, al)
+			rc.top = max(rc.top, math.Abs(al))
+			axpy(rc.r, -al, q)
+			axpy(rc.w, -al, p)
+			if j > 0 {
+				axpy(rc.r, -rc.beta[j-1], rc.qs[j-1])
+				axpy(rc.w, -rc.beta[j-1], rc.ps[j-1])
+			}
+			theta, res, _ := tridiagTop(rc.alpha, rc.beta, math.Sqrt(max(dot(rc.r, rc.w), 0)))
 			if res <= lanczosTol*math.Abs(theta) {
-				return theta, nil
+				mus[c] = theta
+				rc.done = true
+			} else if j+1 >= min(maxLanczos, size) {
+				if j+1 < maxLanczos {
+					mus[c] = theta // the whole space: exact
+				} else {
+					errs[c] = fmt.Errorf("frame: CriticalFactor: %w: the largest eigenvalue did not converge in %d steps", ErrNoCritical, maxLanczos)
+				}
+				rc.done = true
+			}
+			if rc.done {
+				rc.qs, rc.ps = nil, nil
 			}
 		}
 	}
-	theta, res := tridiagTop(alpha, beta, math.Sqrt(max(dot(r, w), 0)))
-	if len(alpha) < size && len(alpha) >= maxLanczos && res > lanczosTol*math.Abs(theta) {
-		return 0, fmt.Errorf("frame: CriticalFactor: %w: the largest eigenvalue did not converge in %d steps", ErrNoCritical, maxLanczos)
-	}
-	return theta, nil
+	return mus, errs
 }
 
 // tridiagTop returns the largest eigenvalue of the symmetric tridiagonal
-// matrix of diagonal alpha and off-diagonal beta, and its residual bound
-// next·|last component of its eigenvector|.
-func tridiagTop(alpha, beta []float64, next float64) (theta, res float64) {
+// matrix of diagonal alpha and off-diagonal beta, its residual bound
+// next·|last component of its eigenvector|, and its distance to the next
+// eigenvalue (+Inf for a 1 × 1 matrix).
+func tridiagTop(alpha, beta []float64, next float64) (theta, res, gap float64) {
 	m := len(alpha)
 	t := mat.NewSymDense(m, nil)
 	for i := range m {
@@ -551,12 +682,16 @@ func tridiagTop(alpha, beta []float64, next float64) (theta, res float64) {
 	}
 	var eig mat.EigenSym
 	if !eig.Factorize(t, true) {
-		return math.NaN(), math.Inf(1)
+		return math.NaN(), math.Inf(1), 0
 	}
 	vals := eig.Values(nil)
 	var v mat.Dense
 	eig.VectorsTo(&v)
-	return vals[m-1], next * math.Abs(v.At(m-1, m-1))
+	gap = math.Inf(1)
+	if m > 1 {
+		gap = vals[m-1] - vals[m-2]
+	}
+	return vals[m-1], next * math.Abs(v.At(m-1, m-1)), gap
 }
 
 // CriticalFactor returns αcr, the elastic critical load factor of the
@@ -588,3 +723,5 @@ func CriticalFactor(mo *Model, axial []float64) (float64, error) {
 	}
 	return b.Factor(axial)
 }
+
+var debugLanczos = false

@@ -207,3 +207,85 @@ func (p *pencil) condensedAt(e *element, n float64) [6][6]float64 {
 	}
 	return k
 }
+
+// BenchmarkCriticalFactor measures αcr of a random frame: the factor of K
+// once per size (NewBuckling) and one set of axial forces (Factor), and
+// the search by factorizations it replaces.
+func BenchmarkCriticalFactor(b *testing.B) {
+	for _, size := range [][2]int{{10, 10}, {30, 20}, {30, 60}} {
+		mo, axial := randomFrame(rand.New(rand.NewPCG(18, 1)), size[0], size[1])
+		name := fmt.Sprintf("%dx%d", size[0], size[1])
+		b.Run(name+"/new", func(b *testing.B) {
+			b.ReportAllocs()
+			for b.Loop() {
+				if _, err := NewBuckling(mo); err != nil {
+					b.Fatal(err)
+				}
+			}
+		})
+		bk, err := NewBuckling(mo)
+		if err != nil {
+			b.Fatal(err)
+		}
+		b.Run(name+"/factor", func(b *testing.B) {
+			b.ReportAllocs()
+			for b.Loop() {
+				if _, err := bk.Factor(axial); err != nil {
+					b.Fatal(err)
+				}
+			}
+		})
+		b.Run(name+"/bisection", func(b *testing.B) {
+			b.ReportAllocs()
+			for b.Loop() {
+				if _, err := criticalBisect(mo, axial); err != nil {
+					b.Fatal(err)
+				}
+			}
+		})
+	}
+}
+
+// TestBucklingBatch checks that the factors of several sets of axial
+// forces found side by side are those found one by one, to the bit, and
+// that the check a factor passes tells the two sides of it apart: K + λ·Kg
+// positive definite at 0.999 αcr and not at 1.001 αcr (Sylvester's law of
+// inertia).
+func TestBucklingBatch(t *testing.T) {
+	rng := rand.New(rand.NewPCG(14, 3))
+	mo, axial := randomFrame(rng, 3, 4)
+	sets := [][]float64{axial, make([]float64, len(axial)), nil, nil}
+	for _, k := range []int{2, 3} {
+		a := make([]float64, len(axial))
+		for m := range a {
+			a[m] = axial[m] * (1 + 0.5*rng.Float64()) / float64(k)
+		}
+		sets[k] = a
+	}
+	b, err := NewBuckling(mo)
+	if err != nil {
+		t.Fatal(err)
+	}
+	all, err := b.Factors(sets)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for i, set := range sets {
+		one, err := b.Factor(set)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if one != all[i] {
+			t.Errorf("set %d: αcr %.17g side by side, %.17g alone", i, all[i], one)
+		}
+		if i == 1 {
+			if !math.IsInf(one, 1) {
+				t.Errorf("no axial force: αcr %g, want +Inf", one)
+			}
+			continue
+		}
+		if !b.definite(0.999*one, set) || b.definite(1.001*one, set) {
+			t.Errorf("set %d: the stiffness at 0.999 and 1.001 αcr = %.7g is not positive definite below and indefinite above", i, one)
+		}
+	}
+}
