@@ -54,6 +54,15 @@ type pencil struct {
 	lii  [maxOwn][maxOwn]float64         // lower Cholesky factor of K's own block
 	kin  [maxOwn][6]float64              // K's own rows, node columns (local axes)
 	g    [6 + maxOwn][6 + maxOwn]float64 // Kg per unit axial force, tension positive
+	inv  [maxOwn][maxOwn]float64         // K's own block inverted
+	w    [maxOwn][6]float64              // inv times kin
+	gnz  []gEntry                        // the entries of g that are not zero, upper triangle
+}
+
+// gEntry is one entry of a pencil's Kg, at row i and column j.
+type gEntry struct {
+	i, j uint8
+	v    float64
 }
 
 // NewBuckling factors the elastic stiffness of mo for [Buckling.Factor].
@@ -226,9 +235,29 @@ func (p *pencil) build(e *element) (k [6][6]float64, ok bool) {
 		}
 	}
 	p.lii = lii
+	for j := range ni {
+		var col [maxOwn]float64
+		col[j] = 1
+		p.ownSolve(col[:ni])
+		for i := range ni {
+			p.inv[i][j] = col[i]
+		}
+	}
+	for i := range ni {
+		for j := range 6 {
+			s := 0.0
+			for q := range ni {
+				s += p.inv[i][q] * p.kin[q][j]
+			}
+			p.w[i][j] = s
+		}
+	}
 	for i := range keep {
 		for j := range keep {
 			p.g[i][j] = a1.At(i, j)
+			if j >= i && p.g[i][j] != 0 {
+				p.gnz = append(p.gnz, gEntry{uint8(i), uint8(j), p.g[i][j]})
+			}
 		}
 	}
 	for i := range 6 {
@@ -317,26 +346,28 @@ func (p *pencil) addGlobal(y []float64, l *[6]float64, c, k int) {
 }
 
 // solveK overwrites each of the k columns of x (b.size rows, row-major)
-// with K⁻¹ times it. Each column's arithmetic is the same whatever k.
+// with K⁻¹ times it: each member's own degrees of freedom eliminated,
+// the band factor, and them recovered. Each column's arithmetic is the
+// same whatever k.
 func (b *Buckling) solveK(x []float64, k int) {
 	var t [maxOwn]float64
 	for m := range b.mems {
 		p := &b.mems[m]
 		for c := range k {
 			for i := range p.ni {
-				t[i] = x[(p.off+i)*k+c]
-			}
-			p.ownSolve(t[:p.ni])
-			var l [6]float64
-			for j := range 6 {
 				s := 0.0
-				for i := range p.ni {
-					s -= p.kin[i][j] * t[i]
+				for q := range p.ni {
+					s += p.inv[i][q] * x[(p.off+q)*k+c]
 				}
-				l[j] = s
+				t[i] = s
 			}
+			var l [6]float64
 			for i := range p.ni {
-				x[(p.off+i)*k+c] = t[i]
+				ti := t[i]
+				for j := range 6 {
+					l[j] -= p.kin[i][j] * ti
+				}
+				x[(p.off+i)*k+c] = ti
 			}
 			p.addGlobal(x, &l, c, k)
 		}
@@ -346,7 +377,7 @@ func (b *Buckling) solveK(x []float64, k int) {
 	case k == 1:
 		bandSolveVec(b.u, b.n, b.kb, x[:b.n])
 	default:
-		bandSolve(b.u, b.n, b.kb, x[:b.n*k], k)
+		bandSolveCols(b.u, b.n, b.kb, x[:b.n*k], k)
 	}
 	for m := range b.mems {
 		p := &b.mems[m]
@@ -355,13 +386,9 @@ func (b *Buckling) solveK(x []float64, k int) {
 			for i := range p.ni {
 				s := 0.0
 				for j := range 6 {
-					s += p.kin[i][j] * l[j]
+					s += p.w[i][j] * l[j]
 				}
-				t[i] = s
-			}
-			p.ownSolve(t[:p.ni])
-			for i := range p.ni {
-				x[(p.off+i)*k+c] -= t[i]
+				x[(p.off+i)*k+c] -= s
 			}
 		}
 	}
@@ -396,6 +423,47 @@ func bandSolveVec(u []float64, n, kb int, x []float64) {
 	}
 }
 
+// bandSolveCols is bandSolveVec for the k columns of x (row-major, n
+// rows), each column in the same order of operations as alone: one pass
+// over the factor for all.
+func bandSolveCols(u []float64, n, kb int, x []float64, k int) {
+	w := kb + 1
+	for i := range n {
+		xi := x[i*k : (i+1)*k]
+		d := 1 / u[i*w]
+		for c := range xi {
+			xi[c] *= d
+		}
+		row := u[i*w+1 : i*w+min(w, n-i)]
+		for j, v := range row {
+			if v == 0 {
+				continue
+			}
+			y := x[(i+1+j)*k : (i+2+j)*k]
+			for c := range y {
+				y[c] += -v * xi[c]
+			}
+		}
+	}
+	for i := n - 1; i >= 0; i-- {
+		xi := x[i*k : (i+1)*k]
+		row := u[i*w+1 : i*w+min(w, n-i)]
+		for j, v := range row {
+			if v == 0 {
+				continue
+			}
+			y := x[(i+1+j)*k : (i+2+j)*k]
+			for c := range xi {
+				xi[c] += -v * y[c]
+			}
+		}
+		d := 1 / u[i*w]
+		for c := range xi {
+			xi[c] *= d
+		}
+	}
+}
+
 // mulKg sets column c of the block y to −Kg x for the axial forces
 // axials[c], x and y of b.size rows and len(axials) columns.
 func (b *Buckling) mulKg(y, x []float64, axials [][]float64) {
@@ -415,34 +483,35 @@ func (b *Buckling) mulKg(y, x []float64, axials [][]float64) {
 			for i := range p.ni {
 				z[6+i] = x[(p.off+i)*k+c]
 			}
-			var f [6]float64
-			for i := range d {
-				s := 0.0
-				for j := range d {
-					s += p.g[i][j] * z[j]
-				}
-				s *= -nm
-				if i < 6 {
-					f[i] = s
-				} else {
-					y[(p.off+i-6)*k+c] += s
+			var f [6 + maxOwn]float64
+			for _, e := range p.gnz {
+				f[e.i] += e.v * z[e.j]
+				if e.i != e.j {
+					f[e.j] += e.v * z[e.i]
 				}
 			}
-			p.addGlobal(y, &f, c, k)
+			for i := 6; i < d; i++ {
+				y[(p.off+i-6)*k+c] += -nm * f[i]
+			}
+			fn := [6]float64{-nm * f[0], -nm * f[1], -nm * f[2], -nm * f[3], -nm * f[4], -nm * f[5]}
+			p.addGlobal(y, &fn, c, k)
 		}
 	}
 }
 
-// Lanczos limits: the most steps, and the residual bound of the largest
-// Ritz value, relative to it, at which it is taken as found (an
-// eigenvalue lies within the bound; the square of the bound over the gap
-// to the next Ritz value would be smaller, but it is met early by a Ritz
-// value that is not yet the largest eigenvalue's). Ritz values lie below
-// the largest eigenvalue μ, so 1/θ is never below αcr; the check of
-// [Buckling.Factors] bounds it from below.
+// Lanczos limits: the most steps, and the estimated error of the largest
+// Ritz value θ, relative to it, at which it is taken as found: the
+// residual bound (an eigenvalue lies within it), or, once that is below
+// lanczosNear, its square over the gap to the next Ritz value (the error
+// of θ itself; met early by a Ritz value that is not yet the largest
+// eigenvalue's, hence the bound). Either way the result stands only by
+// the check of [Buckling.Factors]: Ritz values lie below the largest
+// eigenvalue μ, so 1/θ is never below αcr, and the check bounds αcr from
+// below within certifyGap.
 const (
-	maxLanczos = 300
-	lanczosTol = 1e-8
+	maxLanczos  = 300
+	lanczosTol  = 1e-9
+	lanczosNear = 1e-4
 )
 
 // Factor returns αcr for the axial forces axial (one per member, tension
@@ -456,9 +525,10 @@ func (b *Buckling) Factor(axial []float64) (float64, error) {
 }
 
 // Factors returns αcr for each set of axial forces of axials, as
-// [Buckling.Factor] for each: their iterations run side by side, each
-// step's substitutions one pass over the factor for all, and give the
-// same values as one by one.
+// [Buckling.Factor] for each: the first set's iteration alone, then the
+// others' side by side from its mode (each step's substitutions one pass
+// over the factor for all); each within certifyGap of the set's αcr, as
+// one by one, and the same on every run.
 //
 // Each factor found is certified: it is 1/θ for the largest Ritz value θ,
 // never below αcr, and K + λ·Kg must be positive definite at λ =
@@ -488,7 +558,35 @@ func (b *Buckling) Factors(axials [][]float64) ([]float64, error) {
 		}
 		run, at = append(run, axial), append(at, c)
 	}
-	mus, errs := b.lanczos(run)
+	// A fixed start with every direction in it: z, and r = K⁻¹ z, then
+	// K-normalized.
+	z := make([]float64, b.size)
+	for i := range z {
+		z[i] = math.Sin(float64(i+1)*0.7548776662) + 0.5
+	}
+	r := slices.Clone(z)
+	b.solveK(r, 1)
+	if nr := math.Sqrt(dot(r, z)); nr > 0 {
+		for i := range r {
+			r[i] /= nr
+			z[i] /= nr
+		}
+	}
+	// The first set alone; the others side by side from its mode, with
+	// the fixed start's every direction mixed in: the modes of a frame's
+	// combinations are much alike.
+	mus, errs, y, ky := b.lanczos(run[:min(1, len(run))], r, z, len(run) > 1)
+	if len(run) > 1 {
+		if y != nil {
+			for i := range y {
+				y[i] += warmMix * r[i]
+				ky[i] += warmMix * z[i]
+			}
+			r, z = y, ky
+		}
+		m, e, _, _ := b.lanczos(run[1:], r, z, false)
+		mus, errs = append(mus, m...), append(errs, e...)
+	}
 	fail := make([]error, len(axials))
 	next := make(chan int, len(run))
 	for i := range run {
@@ -524,6 +622,10 @@ func (b *Buckling) Factors(axials [][]float64) ([]float64, error) {
 	return out, nil
 }
 
+// warmMix is the share of the fixed start mixed into the mode the other
+// sets of axial forces start from.
+const warmMix = 1e-3
+
 // certifyGap is how far below the factor found the stiffness must still
 // be positive definite: within the six figures reported.
 const certifyGap = 1e-6
@@ -551,8 +653,9 @@ func (b *Buckling) definite(lambda float64, axial []float64) bool {
 // lanczos returns, for each set of axial forces, the largest eigenvalue μ
 // of K⁻¹(−Kg) (0 or less when none is positive), by Lanczos iteration in
 // the K inner product with full reorthogonalization, every set's side by
-// side.
-func (b *Buckling) lanczos(axials [][]float64) ([]float64, []error) {
+// side, from r0 (w0 = K r0). With keep, y is the first set's eigenvector
+// found, K-normalized, and ky = K y.
+func (b *Buckling) lanczos(axials [][]float64, r0, w0 []float64, keep bool) (mus []float64, errs []error, y, ky []float64) {
 	size, k := b.size, len(axials)
 	type recurrence struct {
 		qs, ps      [][]float64 // K-orthonormal q, and p = K q
@@ -561,17 +664,10 @@ func (b *Buckling) lanczos(axials [][]float64) ([]float64, []error) {
 		top         float64   // the largest |α|, the scale of the operator
 		done        bool
 	}
-	mus, errs := make([]float64, k), make([]error, k)
+	mus, errs = make([]float64, k), make([]error, k)
 	recs := make([]recurrence, k)
-	// A fixed start with every direction in it: z, and r = K⁻¹ z.
-	z := make([]float64, size)
-	for i := range z {
-		z[i] = math.Sin(float64(i+1)*0.7548776662) + 0.5
-	}
-	r0 := slices.Clone(z)
-	b.solveK(r0, 1)
 	for c := range recs {
-		recs[c].r, recs[c].w = slices.Clone(r0), slices.Clone(z)
+		recs[c].r, recs[c].w = slices.Clone(r0), slices.Clone(w0)
 	}
 	var active []int
 	var block, out []float64
@@ -583,13 +679,11 @@ func (b *Buckling) lanczos(axials [][]float64) ([]float64, []error) {
 			if rc.done {
 				continue
 			}
-			// Reorthogonalize r against every q, twice, and w = K r alike.
-			for range 2 {
-				for q := range rc.qs {
-					s := dot(rc.ps[q], rc.r)
-					axpy(rc.r, -s, rc.qs[q])
-					axpy(rc.w, -s, rc.ps[q])
-				}
+			// Reorthogonalize r against every q, and w = K r alike.
+			for q := range rc.qs {
+				s := dot(rc.ps[q], rc.r)
+				axpy(rc.r, -s, rc.qs[q])
+				axpy(rc.w, -s, rc.ps[q])
 			}
 			bb := dot(rc.r, rc.w)
 			if j == 0 && !(bb > 0) {
@@ -602,6 +696,9 @@ func (b *Buckling) lanczos(axials [][]float64) ([]float64, []error) {
 					// An invariant subspace: T's eigenvalues are exact.
 					mus[c], _, _ = tridiagTop(rc.alpha, rc.beta, 0)
 					rc.done = true
+					if keep && c == 0 {
+						y, ky = ritzVector(rc.qs, rc.ps, rc.alpha, rc.beta)
+					}
 					continue
 				}
 				rc.beta = append(rc.beta, math.Sqrt(bb))
@@ -647,8 +744,8 @@ func (b *Buckling) lanczos(axials [][]float64) ([]float64, []error) {
 				axpy(rc.r, -rc.beta[j-1], rc.qs[j-1])
 				axpy(rc.w, -rc.beta[j-1], rc.ps[j-1])
 			}
-			theta, res, _ := tridiagTop(rc.alpha, rc.beta, math.Sqrt(max(dot(rc.r, rc.w), 0)))
-			if res <= lanczosTol*math.Abs(theta) {
+			theta, res, gap := tridiagTop(rc.alpha, rc.beta, math.Sqrt(max(dot(rc.r, rc.w), 0)))
+			if res <= lanczosTol*math.Abs(theta) || res <= lanczosNear*math.Abs(theta) && res*res <= lanczosTol*gap*math.Abs(theta) {
 				mus[c] = theta
 				rc.done = true
 			} else if j+1 >= min(maxLanczos, size) {
@@ -660,11 +757,39 @@ func (b *Buckling) lanczos(axials [][]float64) ([]float64, []error) {
 				rc.done = true
 			}
 			if rc.done {
+				if keep && c == 0 && errs[c] == nil {
+					y, ky = ritzVector(rc.qs, rc.ps, rc.alpha, rc.beta)
+				}
 				rc.qs, rc.ps = nil, nil
 			}
 		}
 	}
-	return mus, errs
+	return mus, errs, y, ky
+}
+
+// ritzVector returns Q s and P s for s the eigenvector of the largest
+// eigenvalue of the tridiagonal matrix of alpha and beta.
+func ritzVector(qs, ps [][]float64, alpha, beta []float64) (y, ky []float64) {
+	m := len(alpha)
+	t := mat.NewSymDense(m, nil)
+	for i := range m {
+		t.SetSym(i, i, alpha[i])
+		if i+1 < m {
+			t.SetSym(i, i+1, beta[i])
+		}
+	}
+	var eig mat.EigenSym
+	if !eig.Factorize(t, true) {
+		return nil, nil
+	}
+	var v mat.Dense
+	eig.VectorsTo(&v)
+	y, ky = make([]float64, len(qs[0])), make([]float64, len(qs[0]))
+	for j := range m {
+		axpy(y, v.At(j, m-1), qs[j])
+		axpy(ky, v.At(j, m-1), ps[j])
+	}
+	return y, ky
 }
 
 // tridiagTop returns the largest eigenvalue of the symmetric tridiagonal

@@ -247,7 +247,8 @@ func BenchmarkCriticalFactor(b *testing.B) {
 }
 
 // TestBucklingBatch checks that the factors of several sets of axial
-// forces found side by side are those found one by one, to the bit, and
+// forces found side by side (the others started from the first's mode)
+// are those found one by one, within 1e-7, and
 // that the check a factor passes tells the two sides of it apart: K + λ·Kg
 // positive definite at 0.999 αcr and not at 1.001 αcr (Sylvester's law of
 // inertia).
@@ -275,8 +276,8 @@ func TestBucklingBatch(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
-		if one != all[i] {
-			t.Errorf("set %d: αcr %.17g side by side, %.17g alone", i, all[i], one)
+		if !(one == all[i] || within(all[i], one, 1e-7)) {
+			t.Errorf("set %d: αcr %.10g side by side, %.10g alone", i, all[i], one)
 		}
 		if i == 1 {
 			if !math.IsInf(one, 1) {
