@@ -416,6 +416,57 @@ func (r *Result) EndMomentsOf(m int, states []envelope.State) []envelope.State {
 	return out
 }
 
+// EndMomentsOfMany is EndMomentsOf for the states of several members,
+// states[i] those of member ms[i]: in a run with combinations analysed
+// apart, each one's solution is formed once for every member (or taken
+// from those kept) and let go before the next, so that no more than one
+// is held at a time.
+func (r *Result) EndMomentsOfMany(ms []int, states [][]envelope.State) [][]envelope.State {
+	out := make([][]envelope.State, len(ms))
+	if r.units == nil {
+		for i, m := range ms {
+			out[i] = envelope.EndMomentsOf(r.sol, r.solved, r.Envelope.Settings, r.lay, m, states[i])
+		}
+		return out
+	}
+	type at struct{ i, q int } // member ms[i], its state q
+	byUnit := map[int][]at{}
+	var order []int
+	for i := range ms {
+		out[i] = slices.Clone(states[i])
+		for q, st := range states[i] {
+			u := r.unitOf(st.By)
+			if _, ok := byUnit[u]; !ok {
+				order = append(order, u)
+			}
+			byUnit[u] = append(byUnit[u], at{i, q})
+		}
+	}
+	for _, u := range order {
+		list := byUnit[u]
+		sol, lay, err := r.solutionOnce(states[list[0].i][list[0].q].By)
+		if err != nil {
+			continue // the states as they are: not found
+		}
+		for a := 0; a < len(list); {
+			b := a
+			for b < len(list) && list[b].i == list[a].i {
+				b++
+			}
+			sub := make([]envelope.State, b-a)
+			for q := range sub {
+				sub[q] = states[list[a+q].i][list[a+q].q]
+			}
+			got := envelope.EndMomentsOf(sol, r.solved, r.Envelope.Settings, lay, ms[list[a].i], sub)
+			for q := range sub {
+				out[list[a+q].i][list[a+q].q] = got[q]
+			}
+			a = b
+		}
+	}
+	return out
+}
+
 // StationsAt returns the envelopes of member m, in its own axes, at the
 // points xs from its start, over the strength combinations as the
 // envelope forms them (see envelope.StationsAt); in a run with

@@ -807,11 +807,22 @@ func (r *Result) unitOf(k int) int {
 	return -1
 }
 
+// solutionOnce is solutionFor without keeping a solution it forms: the
+// caller lets it go when done.
+func (r *Result) solutionOnce(k int) (*frame.Solution, *patterns.Layout, error) {
+	return r.solution(k, false)
+}
+
 // solutionFor returns the solution of every load case and piece that
 // combination k was enveloped from, with its layout: r.sol for the
 // first-order ones with the sections as given; else that of its unit,
 // solved again on request and kept (the envelopes did not keep it).
 func (r *Result) solutionFor(k int) (*frame.Solution, *patterns.Layout, error) {
+	return r.solution(k, true)
+}
+
+// solution is solutionFor, keeping a solution it forms when keep is set.
+func (r *Result) solution(k int, keep bool) (*frame.Solution, *patterns.Layout, error) {
 	u := r.unitOf(k)
 	if u < 0 {
 		return r.sol, r.lay, nil
@@ -840,10 +851,12 @@ func (r *Result) solutionFor(k int) (*frame.Solution, *patterns.Layout, error) {
 	if err != nil {
 		return nil, nil, err
 	}
-	if r.solutions == nil {
-		r.solutions = map[int]*frame.Solution{}
+	if keep {
+		if r.solutions == nil {
+			r.solutions = map[int]*frame.Solution{}
+		}
+		r.solutions[u] = sol
 	}
-	r.solutions[u] = sol
 	l2 := *r.lay
 	l2.Model = sol.Model()
 	return sol, &l2, nil

@@ -29,19 +29,45 @@ type columnState struct {
 // Values are as the tables show the member: a member that is not vertical
 // from its left end.
 func (p *Report) columnStates(m int) []columnState {
-	em := p.res.Envelope.Members[m]
-	pk := memberPeaks(em)
-	type want struct {
-		what string
-		j    int
-		hi   bool
+	out, asks := p.stateAsks(m)
+	return p.stateEnds(m, out, p.res.EndMomentsOf(m, asks))
+}
+
+// columnStatesOf is columnStates for the members ms, the end moments of
+// all found together (analysis.EndMomentsOfMany: in second order, each
+// combination's solution formed once and let go).
+func (p *Report) columnStatesOf(ms []int) [][]columnState {
+	outs := make([][]columnState, len(ms))
+	asks := make([][]envelope.State, len(ms))
+	for i, m := range ms {
+		outs[i], asks[i] = p.stateAsks(m)
 	}
-	wants := []want{{"N max", 0, true}, {"N min", 0, false}, {"|M| max", 2, -pk.lo[2].v <= pk.hi[2].v}}
-	mo := p.model()
-	flip, l := analysis.Flipped(mo, m), mo.Length(m)
+	got := p.res.EndMomentsOfMany(ms, asks)
+	for i, m := range ms {
+		outs[i] = p.stateEnds(m, outs[i], got[i])
+	}
+	return outs
+}
+
+// stateWants are the states columnStates gives: effect j (0 N, 2 M), the
+// largest (hi) or smallest.
+func stateWants(pk peaks) []stateWant {
+	return []stateWant{{"N max", 0, true}, {"N min", 0, false}, {"|M| max", 2, -pk.lo[2].v <= pk.hi[2].v}}
+}
+
+type stateWant struct {
+	what string
+	j    int
+	hi   bool
+}
+
+// stateAsks returns member m's states without their end moments, and the
+// states to ask the end moments of.
+func (p *Report) stateAsks(m int) ([]columnState, []envelope.State) {
+	pk := memberPeaks(p.res.Envelope.Members[m])
 	var out []columnState
 	var asks []envelope.State
-	for _, w := range wants {
+	for _, w := range stateWants(pk) {
 		s := columnState{what: w.what, pk: pk.lo[w.j]}
 		if w.hi {
 			s.pk = pk.hi[w.j]
@@ -49,7 +75,15 @@ func (p *Report) columnStates(m int) []columnState {
 		out = append(out, s)
 		asks = append(asks, envelope.State{X: s.pk.x, By: s.pk.by, Effect: w.j, Hi: w.hi, Want: s.pk.v})
 	}
-	got := p.res.EndMomentsOf(m, asks)
+	return out, asks
+}
+
+// stateEnds sets the end moments got of member m's states out, and turns
+// them as the tables show the member.
+func (p *Report) stateEnds(m int, out []columnState, got []envelope.State) []columnState {
+	wants := stateWants(memberPeaks(p.res.Envelope.Members[m]))
+	mo := p.model()
+	flip, l := analysis.Flipped(mo, m), mo.Length(m)
 	for q := range out {
 		s := &out[q]
 		if s.pk.by >= 0 {
@@ -125,10 +159,11 @@ func (p *Report) stateRows(members []int) [][]string {
 	mo := p.model()
 	patterned := p.pieces() > 0
 	var rows [][]string
-	for _, m := range members {
+	all := p.columnStatesOf(members)
+	for i, m := range members {
 		from, to := analysis.ShownEnds(mo, m)
 		name := mo.Members[m].Name
-		states := p.columnStates(m)
+		states := all[i]
 		if p.states == nil {
 			p.states = map[int][]columnState{}
 		}
