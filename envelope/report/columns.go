@@ -49,6 +49,28 @@ func (p *Report) columnStatesOf(ms []int) [][]columnState {
 	return outs
 }
 
+// prefetchStates sets p.states of the members ms that have none, all
+// found together (columnStatesOf).
+func (p *Report) prefetchStates(ms []int) {
+	var need []int
+	seen := map[int]bool{}
+	for _, m := range ms {
+		if _, ok := p.states[m]; !ok && !seen[m] {
+			seen[m] = true
+			need = append(need, m)
+		}
+	}
+	if len(need) == 0 {
+		return
+	}
+	if p.states == nil {
+		p.states = map[int][]columnState{}
+	}
+	for i, s := range p.columnStatesOf(need) {
+		p.states[need[i]] = s
+	}
+}
+
 // stateWants are the states columnStates gives: effect j (0 N, 2 M), the
 // largest (hi) or smallest.
 func stateWants(pk peaks) []stateWant {
@@ -159,15 +181,11 @@ func (p *Report) stateRows(members []int) [][]string {
 	mo := p.model()
 	patterned := p.pieces() > 0
 	var rows [][]string
-	all := p.columnStatesOf(members)
-	for i, m := range members {
+	p.prefetchStates(members)
+	for _, m := range members {
 		from, to := analysis.ShownEnds(mo, m)
 		name := mo.Members[m].Name
-		states := all[i]
-		if p.states == nil {
-			p.states = map[int][]columnState{}
-		}
-		p.states[m] = states
+		states := p.states[m]
 		for _, s := range states {
 			if s.pk.by < 0 {
 				continue
