@@ -27,6 +27,10 @@ type Combination struct {
 	// and the envelopes of forces for design leave it out when the model
 	// has strength combinations (see package envelope).
 	Service bool
+	// Lead lists the cases of the terms of its rule that lead (a rule
+	// term marked lead, such as the leading variable action of EN 1990
+	// 6.10); nil when not known, as for a combination written in a model.
+	Lead []int
 	// Limit is, for a service combination, the span/deflection its
 	// deflections are checked against (360 for span/360): the largest
 	// deflection of a span may be at most its length over Limit, of a

@@ -150,8 +150,9 @@ type generator struct {
 // term is a case with its factor and the alternative it came with.
 type term struct {
 	Term
-	alt int // the alternative's number (altID)
-	rev bool
+	alt  int // the alternative's number (altID)
+	rev  bool
+	lead bool // from a term of its rule marked lead
 }
 
 // pick is an action a term takes, with the choice that gives its factor.
@@ -210,9 +211,16 @@ func (g *generator) expand(ti int, taken []bool, acc []term) {
 		}
 	}
 	found := false
+	base := len(acc)
 	for _, u := range units {
-		g.unit(u, 0, taken, acc, len(acc), func(taken []bool, acc []term) {
+		g.unit(u, 0, taken, acc, base, func(taken []bool, acc []term) {
 			found = true
+			if rt.Lead {
+				// acc is the unit's own copy: marking it changes no other.
+				for i := base; i < len(acc); i++ {
+					acc[i].lead = true
+				}
+			}
 			g.expand(ti+1, taken, acc)
 		})
 	}
@@ -344,8 +352,12 @@ func (g *generator) emit(terms []term) {
 			return
 		}
 		ts := make([]Term, len(terms))
+		var lead []int
 		for i, t := range terms {
 			ts[i] = t.Term
+			if t.lead && !slices.Contains(lead, t.Case) {
+				lead = append(lead, t.Case)
+			}
 			if !t.rev {
 				continue
 			}
@@ -371,6 +383,7 @@ func (g *generator) emit(terms []term) {
 			Terms:     ts,
 			Service:   g.set.Service,
 			Allowable: g.set.Allowable,
+			Lead:      lead,
 			Limit:     g.rule.Limit,
 		})
 	}

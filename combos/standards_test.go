@@ -276,3 +276,33 @@ func TestSettlementAndTemperature(t *testing.T) {
 		}
 	})
 }
+
+// EN 1990 6.10 (Table A1.2(B)): the combination names the leading
+// variable action's cases in Lead, which EN 1991-1-1 6.3.1.2(11) needs (αn
+// only where the imposed load leads); the accompanying ones are not in it.
+func TestEN1990LeadIsNamed(t *testing.T) {
+	s, err := Standard("en1990-6.10")
+	if err != nil {
+		t.Fatal(err)
+	}
+	cs, info := cases(t, "G dead", "Q live category=B", "W wind")
+	got, err := s.Generate(cs, info, Params{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	want := map[string][]int{
+		"1.35G": {0}, "1.35G+1.5Q+0.9W": {1}, "1.35G+1.5W+1.05Q": {2}, "1.35G-1.5W+1.05Q": {2},
+		"1.0G+1.5Q+0.9W": {1}, "1.0G+1.5W+1.05Q": {2}, "1.0G-1.5W+1.05Q": {2}, "1.35G+1.5Q-0.9W": {1}, "1.0G+1.5Q-0.9W": {1},
+	}
+	for _, cb := range got {
+		name := Compact(cb.Terms, cs)
+		w, ok := want[name]
+		if !ok {
+			t.Errorf("unexpected combination %s", name)
+			continue
+		}
+		if !slices.Equal(cb.Lead, w) {
+			t.Errorf("%s: Lead = %v, want %v", name, cb.Lead, w)
+		}
+	}
+}

@@ -97,3 +97,50 @@ func BenchmarkCompute(b *testing.B) {
 		})
 	}
 }
+
+// BenchmarkComputeFactors measures the envelopes with live load
+// reduction factors on L in every member (Settings.Factors): one table
+// ("uniform"), and one whose factors depend on which case leads
+// ("leading", two parts of the combinations).
+func BenchmarkComputeFactors(b *testing.B) {
+	cs := frameCombos()
+	for _, bc := range []struct {
+		mode          patterns.Mode
+		bays, storeys int
+		leading       bool
+	}{
+		{patterns.Full, 10, 10, false},
+		{patterns.Exact, 10, 10, false},
+		{patterns.Exact, 10, 10, true},
+		{patterns.Exact, 20, 20, false},
+	} {
+		name := fmt.Sprintf("%s/%dx%d", bc.mode, bc.bays, bc.storeys)
+		if bc.leading {
+			name += "/leading"
+		}
+		b.Run(name, func(b *testing.B) {
+			mo := regularFrame(bc.bays, bc.storeys)
+			lay, err := patterns.Expand(mo, []int{1, 2}, 1, bc.mode)
+			if err != nil {
+				b.Fatal(err)
+			}
+			sol, err := frame.Solve(lay.Model)
+			if err != nil {
+				b.Fatal(err)
+			}
+			kinds := kindsOf(sol, lay)
+			f := &Factors{Of: uniform(len(mo.Members), len(kinds), 0.6, 1)}
+			if bc.leading {
+				f.Accompanying = uniform(len(mo.Members), len(kinds), 1, 1)
+			}
+			set := Settings{Kinds: kinds, Stations: 11, Factors: f}
+			b.ReportAllocs()
+			b.ResetTimer()
+			for b.Loop() {
+				if _, err := Compute(sol, cs, set, lay); err != nil {
+					b.Fatal(err)
+				}
+			}
+		})
+	}
+}

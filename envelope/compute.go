@@ -68,6 +68,12 @@ func Compute(sol *frame.Solution, cs []combos.Combination, set Settings, lay *pa
 		d.plan()
 		e.defl = &d
 	}
+	if set.Factors != nil {
+		if err := set.Factors.check(mo, e.nOrig); err != nil {
+			return nil, err
+		}
+		e.setFactors(set.Factors, cs)
+	}
 	if lay != nil {
 		env.Pieces = lay.Pieces
 	}
@@ -97,11 +103,25 @@ func Compute(sol *frame.Solution, cs []combos.Combination, set Settings, lay *pa
 		}
 	}
 	w := e.scratch()
+	var at [][]int // the members meeting at each node, with factors
+	if set.Factors != nil {
+		at = make([][]int, len(mo.Nodes))
+		for m, mem := range mo.Members {
+			at[mem.Start] = append(at[mem.Start], m)
+			if mem.End != mem.Start {
+				at[mem.End] = append(at[mem.End], m)
+			}
+		}
+	}
 	for v, nd := range mo.Nodes {
 		if !nd.Supported() { // held by nothing: no reactions
 			continue
 		}
-		r, err := e.reaction(w, sol, v)
+		var here []int
+		if at != nil {
+			here = at[v]
+		}
+		r, err := e.reaction(w, sol, v, here)
 		if err != nil {
 			return nil, err
 		}
@@ -110,20 +130,34 @@ func Compute(sol *frame.Solution, cs []combos.Combination, set Settings, lay *pa
 	return env, nil
 }
 
-// reaction envelopes the reaction at supported node v.
-func (e *evaluator) reaction(w *work, sol *frame.Solution, v int) (Reaction, error) {
-	w.noise = [3]float64{}
-	for c := range e.mo.Cases {
-		fx, fy, mz := sol.Reaction(c, v)
-		w.ev[c] = [3]float64{fx, fy, mz}
-		for j, r := range w.ev[c] {
-			w.noise[j] = math.Max(w.noise[j], math.Abs(r))
+// reaction envelopes the reaction at supported node v, where the members
+// at meet (used with factors only).
+func (e *evaluator) reaction(w *work, sol *frame.Solution, v int, at []int) (Reaction, error) {
+	one := func(p *evaluator) [3]Extreme {
+		p.reactionsTo(w, sol, v, at)
+		w.noise = [3]float64{}
+		for c := range w.ev {
+			for j, r := range w.ev[c] {
+				w.noise[j] = math.Max(w.noise[j], math.Abs(r))
+			}
 		}
+		for j := range w.noise {
+			w.noise[j] *= roundOff
+		}
+		return p.station(w)
 	}
-	for j := range w.noise {
-		w.noise[j] *= roundOff
+	var x [3]Extreme
+	if e.parts == nil {
+		x = one(e)
 	}
-	x := e.station(w)
+	for k, p := range e.parts {
+		y := one(p)
+		if k == 0 {
+			x = y
+			continue
+		}
+		merge(&x, &y, 3)
+	}
 	if !allFinite(&x, 3) {
 		components := [3]string{"Fx", "Fy", "M"}
 		return Reaction{}, e.nonFinite(w, func(q int) string { return fmt.Sprintf("%s at node %q", components[q], e.mo.Nodes[v].Name) })

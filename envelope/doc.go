@@ -33,6 +33,12 @@
 // strength, combinations, or over all of them when every one is a service
 // one.
 //
+// Member factors ([Settings.Factors], live load reduction) scale a load
+// case's N, V and M in a member before the combinations are formed, in
+// every combination (or by which case leads, [Leads]) and every pattern
+// piece of the case; reactions are then formed from the members' scaled
+// end forces. Deflections are never scaled.
+//
 // # Variable loads and patterns
 //
 // Within a combination a dead case always acts with its factor

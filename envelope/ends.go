@@ -52,31 +52,76 @@ type State struct {
 // member is evaluated once. It returns the states with Ends and OK set;
 // states is not modified.
 func EndMomentsOf(sol *frame.Solution, cs []combos.Combination, set Settings, lay *patterns.Layout, m int, states []State) []State {
-	out := slices.Clone(states)
-	if m < 0 || m >= len(sol.Model().Members) || len(cs) == 0 {
-		return out
+	return NewEndsFinder(sol, cs, set, lay).Of(m, states)
+}
+
+// An EndsFinder is EndMomentsOf for the members of one solution, one after
+// the other, with the evaluator and its scratch space formed once: a
+// design table asks for the states of every member. It is not for
+// concurrent use; sol, cs, set and lay must be those Compute was given.
+type EndsFinder struct {
+	sol *frame.Solution
+	e   *evaluator
+	w   *work
+}
+
+// NewEndsFinder returns an EndsFinder (see EndMomentsOf).
+func NewEndsFinder(sol *frame.Solution, cs []combos.Combination, set Settings, lay *patterns.Layout) *EndsFinder {
+	f := &EndsFinder{sol: sol}
+	if len(cs) == 0 {
+		return f
 	}
 	set.Progress = nil
 	all := make([]int, len(cs))
 	for k := range all {
 		all[k] = k
 	}
-	e := newEvaluator(sol.Model(), cs, all, 3, set, lay)
-	w := e.scratch()
-	e.evaluate(w, sol, m)
+	f.e = newEvaluator(sol.Model(), cs, all, 3, set, lay)
+	if set.Factors != nil {
+		f.e.setFactors(set.Factors, cs)
+	}
+	f.w = f.e.scratch()
+	return f
+}
+
+// Of is EndMomentsOf for member m.
+func (f *EndsFinder) Of(m int, states []State) []State {
+	out := slices.Clone(states)
+	if f.e == nil || m < 0 || m >= len(f.sol.Model().Members) {
+		return out
+	}
+	f.e.placeStations(f.w, f.sol, m)
+	if pl, ok := f.e.foldable(f.w, f.sol, m); ok && pl != nil {
+		f.e.evaluateFor(f.w, f.sol, m, out)
+	} else {
+		f.e.evaluate(f.w, f.sol, m)
+	}
 	for q := range out {
-		out[q].Ends, out[q].OK = e.endMoments(w, &out[q])
+		out[q].Ends, out[q].OK = f.e.endMoments(f.w, m, &out[q])
 	}
 	return out
 }
 
-// endMoments finds the end moments of state s of the member evaluated in
-// w (see EndMoments).
-func (e *evaluator) endMoments(w *work, s *State) ([2]float64, bool) {
+// endMoments finds the end moments of state s of member m, evaluated in
+// w (see EndMoments). With member factors (Settings.Factors) the columns
+// are scaled as Compute scales them, by the factors of the part of the
+// combinations s.By is in.
+func (e *evaluator) endMoments(w *work, m int, s *State) ([2]float64, bool) {
 	j, k, hi, want := s.Effect, s.By, s.Hi, s.Want
 	if j < 0 || j > 2 || k < 0 || k >= len(e.cs) {
 		return [2]float64{}, false
 	}
+	for _, p := range e.parts {
+		if i := slices.Index(p.index, k); i >= 0 {
+			e, k = p, i
+			break
+		}
+	}
+	var fac [][3]float64
+	if e.fac != nil {
+		fac = e.fac[m]
+	}
+	one := [3]float64{1, 1, 1}
 	ns := len(w.xs)
 	i := slices.Index(w.xs, s.X)
 	if i < 0 {
@@ -102,16 +147,24 @@ func (e *evaluator) endMoments(w *work, s *State) ([2]float64, bool) {
 			break
 		}
 		for c := range w.ev {
+			f := &one
+			if fac != nil {
+				f = &fac[e.caseOf[c]]
+			}
 			var v [3]float64
 			v[j] = eff(w.at[c*ns+i], j)
 			if past {
 				v[j] += w.jump[c*ns+i]
 			}
-			v[a], v[b] = w.at[c*ns].M, w.at[c*ns+ns-1].M
+			v[j] *= f[j]
+			v[a], v[b] = f[2]*w.at[c*ns].M, f[2]*w.at[c*ns+ns-1].M
 			w.ev[c] = v
 		}
 		w.noise = w.noiseAt
+		// Only effect j decides, and only its sums are combined.
+		w.only = j + 1
 		w.place.scan(e, w)
+		w.only = 0
 		tot := w.place.combine(e, w, k, j, hi)
 		if math.Abs(tot[j]-want) <= stateTol*(scale+math.Abs(want)) {
 			return [2]float64{tot[a], tot[b]}, true
@@ -158,6 +211,9 @@ func StationsAt(sol *frame.Solution, cs []combos.Combination, set Settings, lay 
 	set.Progress, set.Lines = nil, nil
 	strength, _ := split(cs)
 	e := newEvaluator(mo, cs, strength, 3, set, lay)
+	if set.Factors != nil {
+		e.setFactors(set.Factors, cs)
+	}
 	em, err := e.member(e.scratch(), sol, m)
 	if err != nil {
 		return nil, err
@@ -173,4 +229,46 @@ func StationsAt(sol *frame.Solution, cs []combos.Combination, set Settings, lay 
 		out[k] = em.Stations[best]
 	}
 	return out, nil
+}
+
+// evaluateFor is evaluate for the states of member m alone, the member
+// folded (fold.go): every column's forces at the stations the states ask
+// for and at the ends, which is all endMoments reads, from the same
+// numbers evaluate forms (the fold's exact values, and N = −f0, V = f1,
+// M = −f2 + x·f1 for a column that does not load the member), with the
+// same round-off threshold. Stations the states do not name are left as
+// they were. No concentrated moment acts at a station (foldable).
+func (e *evaluator) evaluateFor(w *work, sol *frame.Solution, m int, states []State) {
+	w.fold.load(e, w, sol, m)
+	w.jumps = false
+	ns, nc := len(w.xs), len(w.ev)
+	w.at = grow(w.at, ns*nc)
+	need := []int{0, ns - 1}
+	for _, s := range states {
+		if i := slices.Index(w.xs, s.X); i >= 0 {
+			need = append(need, i)
+		}
+	}
+	f := &w.fold
+	for c := range nc {
+		row := w.at[c*ns : (c+1)*ns]
+		if c < e.nOrig {
+			for _, i := range need {
+				row[i] = f.orig[c*ns+i]
+			}
+			continue
+		}
+		p := e.unitCase[c-e.nOrig]
+		fc := &f.cases[p]
+		if k, own := slices.BinarySearch(fc.own, c-e.first[p]); own {
+			for _, i := range need {
+				row[i] = fc.ownAt[k*ns+i]
+			}
+			continue
+		}
+		g := &f.ends[c]
+		for _, i := range need {
+			row[i] = frame.Forces{N: -g[0], V: g[1], M: -g[2] + w.xs[i]*g[1]}
+		}
+	}
 }

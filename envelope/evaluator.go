@@ -3,6 +3,7 @@ package envelope
 import (
 	"fmt"
 	"math"
+	"slices"
 
 	"govern/combos"
 	"govern/frame"
@@ -25,9 +26,21 @@ type evaluator struct {
 	always    []bool // column acts whatever its sign (permanent, or as written)
 	patternOf []int  // original case → index into lay.Patterned, or -1
 	first     []int  // column of each patterned case's first unit; its units follow in order
+	// unitCase gives, for each column past the original cases, the
+	// patterned case it is a unit of; nil when some column is of none,
+	// and then no member is folded (fold.go).
+	unitCase []int
 	// joined gives, per combination of cs, its groups of joined terms
 	// (joined.go); nil when no combination has any, or as written.
 	joined []joinPlan
+	// fac gives, per member, the factors on each original case's N, V
+	// and M, nil for a member not scaled (factors.go); nil without
+	// factors, and for deflections. caseOf gives each column's original
+	// case. parts, when not nil, are the evaluators of the sets of
+	// combinations whose factors differ; forces and reactions merge them.
+	fac    [][][3]float64
+	caseOf []int
+	parts  []*evaluator
 }
 
 func newEvaluator(mo *frame.Model, cs []combos.Combination, idx []int, nEff int, set Settings, lay *patterns.Layout) *evaluator {
@@ -47,6 +60,17 @@ func newEvaluator(mo *frame.Model, cs []combos.Combination, idx []int, nEff int,
 	for c := range e.nOrig {
 		e.always[c] = set.AsWritten || set.Kinds[c].AlwaysActs()
 	}
+	e.caseOf = make([]int, len(mo.Cases))
+	for c := range e.caseOf {
+		e.caseOf[c] = c
+	}
+	if lay != nil {
+		for _, p := range lay.Patterned {
+			for _, u := range p.Units {
+				e.caseOf[u.Column] = p.Case
+			}
+		}
+	}
 	e.patternOf = make([]int, e.nOrig)
 	for c := range e.patternOf {
 		e.patternOf[c] = -1
@@ -64,6 +88,22 @@ func newEvaluator(mo *frame.Model, cs []combos.Combination, idx []int, nEff int,
 					panic("envelope: a patterned case's units are not consecutive columns")
 				}
 			}
+		}
+	}
+	if lay != nil {
+		e.unitCase = make([]int, len(mo.Cases)-e.nOrig)
+		for i := range e.unitCase {
+			e.unitCase[i] = -1
+		}
+		for p, pc := range lay.Patterned {
+			for k := range pc.Units {
+				if c := e.first[p] + k - e.nOrig; c >= 0 && c < len(e.unitCase) {
+					e.unitCase[c] = p
+				}
+			}
+		}
+		if slices.Contains(e.unitCase, -1) {
+			e.unitCase = nil
 		}
 	}
 	return e
@@ -91,6 +131,7 @@ type work struct {
 	start []frame.Forces // each column's point loads at the member's start
 	jump  []float64      // each column's change of M past concentrated moments at each station
 	jumps bool           // some column has one at some station
+	fac   [][3]float64   // the current member's factors of each original case, nil for none
 	// What counts as round-off in the member (see roundOff): for N, V, M,
 	// for the deflection and for the deflection across its line.
 	noiseAt              [3]float64
@@ -106,6 +147,8 @@ type work struct {
 	group []float64
 
 	place placement   // how the patterned cases' units are placed, with its scratch
+	only  int         // when not 0, exact placement scans effect only−1 alone (endMoments)
+	fold  fold        // the current member folded, for exact placement (fold.go)
 	lists [6]spanList // pieces being collected: max and min of N, V, M
 	share float64     // a piece is listed with at least this share of the largest one's effect
 	limit int         // most pieces listed: maxSpans, or unlimited with AllSpans

@@ -33,6 +33,12 @@ func newExactPlacement(patterned int) *exactPlacement {
 // influential units of each sign, for the spans lists. A unit whose effect
 // is round-off is of neither sign.
 func (pl *exactPlacement) scan(e *evaluator, w *work) {
+	// The effects scanned: all of them, or the one w.only names (the
+	// others' sums are then zero: only that effect's are read).
+	js, je := 0, e.nEff
+	if w.only > 0 {
+		js, je = w.only-1, w.only
+	}
 	for p, pc := range e.lay.Patterned {
 		units := w.ev[e.first[p] : e.first[p]+len(pc.Units)]
 		var sum [3][2][3]float64
@@ -46,12 +52,31 @@ func (pl *exactPlacement) scan(e *evaluator, w *work) {
 		// accumulated; the negative ones are the total less them.
 		var tot [3]float64
 		var zero [3][3]float64
-		var thr [3][2]float64
+		// The threshold for ranking seeded from the largest sizes, found
+		// first: units in the order of the pieces grow in influence
+		// toward the member, and a threshold following the largest so
+		// far let most of them through the heap.
+		var thr, seed [3][2]float64
+		for _, v := range units {
+			for j := js; j < je; j++ {
+				if x := v[j]; x > w.noise[j] && x > seed[j][0] {
+					seed[j][0] = x
+				} else if x < -w.noise[j] && -x > seed[j][1] {
+					seed[j][1] = -x
+				}
+			}
+		}
+		for j := js; j < je; j++ {
+			for s := range 2 {
+				seed[j][s] *= w.share
+				thr[j][s] = seed[j][s]
+			}
+		}
 		for i, v := range units {
 			tot[0] += v[0]
 			tot[1] += v[1]
 			tot[2] += v[2]
-			for j := range e.nEff {
+			for j := js; j < je; j++ {
 				x := v[j]
 				s, a := 0, x
 				switch {
@@ -74,13 +99,13 @@ func (pl *exactPlacement) scan(e *evaluator, w *work) {
 					big[j][s] = a
 				}
 				// thr is what a unit must reach to be listed: w.share of
-				// the largest so far (spanShare, or 0 with AllSpans) and,
-				// once the heap is full, more than its smallest. Most units
+				// the largest (spanShare, or 0 with AllSpans) and, once
+				// the heap is full, more than its smallest. Most units
 				// fall short at this one test.
 				if a >= thr[j][s] {
 					h := keepLargest(top[j][s], candidate{piece: i, a: a}, w.limit)
 					top[j][s] = h
-					t := w.share * big[j][s]
+					t := seed[j][s]
 					if len(h) == w.limit && h[0].a > t {
 						t = math.Nextafter(h[0].a, math.Inf(1))
 					}
@@ -88,7 +113,7 @@ func (pl *exactPlacement) scan(e *evaluator, w *work) {
 				}
 			}
 		}
-		for j := range e.nEff {
+		for j := js; j < je; j++ {
 			for q := range 3 {
 				sum[j][1][q] = tot[q] - sum[j][0][q] - zero[j][q]
 			}

@@ -7,6 +7,11 @@ package envelope
 // forces acting with it and the pattern pieces it loads.
 func (e *evaluator) station(w *work) [3]Extreme {
 	w.place.scan(e, w)
+	return e.scanned(w)
+}
+
+// scanned is station once the placement has scanned the station.
+func (e *evaluator) scanned(w *work) [3]Extreme {
 	out := w.place.extremes(e, w)
 	if e.patterned {
 		e.spans(w, &out)

@@ -8,10 +8,33 @@ import (
 )
 
 // member envelopes the stations of member m: it evaluates every column at
-// every station at once (evaluate), then forms the extremes station by
-// station (station).
+// every station at once (evaluate), or folds the member (fold.go), then
+// forms the extremes station by station (station).
 func (e *evaluator) member(w *work, sol *frame.Solution, m int) (Member, error) {
+	e.placeStations(w, sol, m)
+	if pl, ok := e.foldable(w, sol, m); ok {
+		w.fold.load(e, w, sol, m)
+		if e.defl != nil {
+			ns, nc := len(w.xs), len(w.ev)
+			w.defl = grow(w.defl, ns*nc)
+			for c := range nc {
+				sol.DeflectionsFrom(w.defl[c*ns:(c+1)*ns], c, m, &w.fold.ends[c], w.xs)
+			}
+		}
+		line := e.lineDeflections(w, sol, m)
+		if mem, err := e.stationsOf(w, sol, m, line, pl); err == nil {
+			return mem, nil
+		}
+		// Not finite somewhere: the unfolded path names what.
+	}
 	line := e.evaluate(w, sol, m)
+	return e.stationsOf(w, sol, m, line, nil)
+}
+
+// stationsOf forms the extremes of member m station by station, from the
+// member folded (folded, its placement) or from the table of every
+// column's values (folded nil).
+func (e *evaluator) stationsOf(w *work, sol *frame.Solution, m int, line Line, folded *exactPlacement) (Member, error) {
 	ns := len(w.xs)
 	name := sol.Model().Members[m].Name
 	effects := [3]string{"N", "V", "M"}
@@ -24,17 +47,25 @@ func (e *evaluator) member(w *work, sol *frame.Solution, m int) (Member, error) 
 		lineDefl = make([]Extreme, ns)
 	}
 	for i, x := range w.xs {
-		for c := range w.ev {
-			f := w.at[c*ns+i]
-			w.ev[c] = [3]float64{f.N, f.V, f.M}
-		}
+		var ex [3]Extreme
 		w.noise = w.noiseAt
-		ex := e.station(w)
-		if w.jumps {
-			e.pastMoments(w, &ex, i)
-		}
-		if !allFinite(&ex, 3) {
-			return Member{}, e.nonFinite(w, func(q int) string { return fmt.Sprintf("%s of member %q at x = %g", effects[q], name, x) })
+		if folded != nil {
+			for c := range e.nOrig {
+				f := w.fold.orig[c*ns+i]
+				w.ev[c] = [3]float64{f.N, f.V, f.M}
+			}
+			folded.scanFolded(e, w, &w.fold, i)
+			ex = e.scanned(w)
+			if !allFinite(&ex, 3) {
+				return Member{}, ErrNotFinite
+			}
+		} else {
+			// Every column at the station, with the member's factors
+			// (live load reduction) where it has them (factors.go).
+			ex = e.forces(w, m, i)
+			if !allFinite(&ex, 3) {
+				return Member{}, e.nonFinite(w, func(q int) string { return fmt.Sprintf("%s of member %q at x = %g", effects[q], name, x) })
+			}
 		}
 		st[i] = Station{X: x, Extra: w.extra[i], N: ex[0], V: ex[1], M: ex[2]}
 		for _, d := range [2]struct {
@@ -46,11 +77,21 @@ func (e *evaluator) member(w *work, sol *frame.Solution, m int) (Member, error) 
 			if d.dst == nil {
 				continue
 			}
-			for c := range w.ev {
-				w.ev[c] = [3]float64{d.vals[c*ns+i], 0, 0}
-			}
+			var ex [3]Extreme
 			w.noise = [3]float64{d.noise}
-			ex := e.defl.station(w)
+			if folded != nil {
+				// Only the original cases' values are read from w.ev.
+				for c := range e.nOrig {
+					w.ev[c] = [3]float64{d.vals[c*ns+i], 0, 0}
+				}
+				folded.scanOne(e.defl, w, d.vals, ns, i)
+				ex = e.defl.scanned(w)
+			} else {
+				for c := range w.ev {
+					w.ev[c] = [3]float64{d.vals[c*ns+i], 0, 0}
+				}
+				ex = e.defl.station(w)
+			}
 			if !allFinite(&ex, 1) {
 				return Member{}, e.defl.nonFinite(w, func(int) string { return fmt.Sprintf("the deflection of member %q at x = %g%s", name, x, d.what) })
 			}
@@ -69,12 +110,7 @@ func (e *evaluator) member(w *work, sol *frame.Solution, m int) (Member, error) 
 // relative to the chord and across the member's line, which it returns
 // (the zero Line for none); and what counts as round-off in the member.
 func (e *evaluator) evaluate(w *work, sol *frame.Solution, m int) Line {
-	l := sol.Model().Length(m)
-	var extra []float64
-	if m < len(e.set.Extra) {
-		extra = e.set.Extra[m]
-	}
-	w.stations(l, e.set.Stations, extra)
+	e.placeStations(w, sol, m)
 	ns, nc := len(w.xs), len(w.ev)
 	w.at = grow(w.at, ns*nc)
 	if e.defl != nil {
@@ -94,17 +130,8 @@ func (e *evaluator) evaluate(w *work, sol *frame.Solution, m int) Line {
 		w.at[c*ns].N += f.N
 		w.at[c*ns].V += f.V
 	}
-	var line Line
-	if e.defl != nil && m < len(e.set.Lines) {
-		line = e.set.Lines[m]
-	}
-	if !line.none() {
-		w.line = grow(w.line, ns*nc)
-		lineDeflectionsTo(w.line, w.defl, sol, m, line, w.xs)
-	}
 	// Round-off: only pattern pieces are judged by it.
 	var noise [3]float64
-	var noiseDefl, noiseLine float64
 	if e.patterned {
 		for _, f := range w.at {
 			// Plain comparisons: math.Max's care for NaN and signed zeros
@@ -119,19 +146,45 @@ func (e *evaluator) evaluate(w *work, sol *frame.Solution, m int) Line {
 				noise[2] = a
 			}
 		}
-		if e.defl != nil {
-			noiseDefl = largest(w.defl)
-		}
-		if !line.none() {
-			noiseLine = largest(w.line)
-		}
 		for j := range noise {
 			noise[j] *= roundOff
 		}
-		noiseDefl *= roundOff
-		noiseLine *= roundOff
 	}
-	w.noiseAt, w.noiseDefl, w.noiseLine = noise, noiseDefl, noiseLine
+	w.noiseAt = noise
+	return e.lineDeflections(w, sol, m)
+}
+
+// placeStations sets w.xs and w.extra to the stations of member m.
+func (e *evaluator) placeStations(w *work, sol *frame.Solution, m int) {
+	var extra []float64
+	if m < len(e.set.Extra) {
+		extra = e.set.Extra[m]
+	}
+	w.stations(sol.Model().Length(m), e.set.Stations, extra)
+}
+
+// lineDeflections fills w.line from w.defl, the deflections relative to
+// the chord, for a member on a line, and sets what counts as round-off in
+// the deflections; it returns the member's line (the zero Line for none).
+func (e *evaluator) lineDeflections(w *work, sol *frame.Solution, m int) Line {
+	var line Line
+	if e.defl != nil && m < len(e.set.Lines) {
+		line = e.set.Lines[m]
+	}
+	if !line.none() {
+		w.line = grow(w.line, len(w.xs)*len(w.ev))
+		lineDeflectionsTo(w.line, w.defl, sol, m, line, w.xs)
+	}
+	var noiseDefl, noiseLine float64
+	if e.patterned {
+		if e.defl != nil {
+			noiseDefl = largest(w.defl) * roundOff
+		}
+		if !line.none() {
+			noiseLine = largest(w.line) * roundOff
+		}
+	}
+	w.noiseDefl, w.noiseLine = noiseDefl, noiseLine
 	return line
 }
 
@@ -145,6 +198,9 @@ func (e *evaluator) pastMoments(w *work, ex *[3]Extreme, i int) {
 	jumps := false
 	for c := range w.ev {
 		if d := w.jump[c*ns+i]; d != 0 {
+			if w.fac != nil {
+				d *= w.fac[e.caseOf[c]][2]
+			}
 			w.ev[c][2] += d
 			jumps = true
 		}

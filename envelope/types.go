@@ -4,6 +4,7 @@ import (
 	"errors"
 	"math"
 	"sync/atomic"
+	"unsafe"
 
 	"govern/combos"
 	"govern/patterns"
@@ -105,6 +106,9 @@ type Settings struct {
 	// AllSpans lists every loaded piece in MaxSpans and MinSpans, not only
 	// those with at least spanShare of the largest piece's effect.
 	AllSpans bool
+	// Factors, when not nil, scale the effects of load cases in members
+	// (live load reduction): see [Factors].
+	Factors *Factors
 	// Progress, when not nil, counts the stations enveloped so far, for a
 	// caller that reports progress from another goroutine.
 	Progress *atomic.Int64
@@ -125,3 +129,20 @@ type Envelope struct {
 
 // ErrNoCombinations is returned when there is nothing to envelope.
 var ErrNoCombinations = errors.New("envelope: no load combinations")
+
+// StationBytes is the most memory, in bytes, one station's envelope holds:
+// its forces' extremes, with their lists of pattern pieces when the
+// layout has pieces (at most maxSpans a list, unless every piece is
+// listed), and with service combinations its deflection and its deflection
+// across a line. For the memory estimate of a run (frame.Options.PerMember).
+func StationBytes(pieces int, service, allSpans bool) float64 {
+	listed := min(pieces, maxSpans)
+	if allSpans {
+		listed = pieces
+	}
+	b := float64(unsafe.Sizeof(Station{})) + 6*8*float64(listed)
+	if service {
+		b += 2 * (float64(unsafe.Sizeof(Extreme{})) + 2*8*float64(listed))
+	}
+	return b
+}

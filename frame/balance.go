@@ -103,9 +103,6 @@ func (sol *Solution) BalanceOf(cs []int) Balance {
 		r := appliedAbout(mo, c, x0, y0)
 		b.Applied = Resultant{Fx: b.Applied.Fx + r.Fx, Fy: b.Applied.Fy + r.Fy, M: b.Applied.M + r.M}
 		b.Load += loadSize(mo, c, b.Length)
-		for i := range u {
-			u[i] += sol.u(c, i)
-		}
 		for i, m := range sol.loaded[c] {
 			for k := range 6 {
 				fem[6*int(m)+k] += sol.fem[c][6*i+k]
@@ -117,6 +114,7 @@ func (sol *Solution) BalanceOf(cs []int) Balance {
 			acc[3*nl.Node+2] += nl.M
 		}
 	}
+	sol.rowSums(u, cs)
 	for m, mem := range mo.Members {
 		e := &sol.elems[m]
 		var ug, ul, f, g [6]float64
@@ -315,4 +313,54 @@ func absIntegral(wa, wb, length float64) float64 {
 	}
 	// w changes sign: two triangles.
 	return length * (wa*wa + wb*wb) / (2 * (math.Abs(wa) + math.Abs(wb)))
+}
+
+// rowSums sets u[i] to the sum of displacement component i (3*node+d) over
+// the cases cs, added in the order of cs: row by row, each row of the
+// solution read along its contiguous cases once, four rows at a time (four
+// independent sums in flight; each row's order is that of cs).
+func (sol *Solution) rowSums(u []float64, cs []int) {
+	nc := len(sol.model.Cases)
+	row := func(i int) []float64 {
+		switch e := sol.dof[i]; {
+		case e >= 0:
+			return sol.x[e*nc : (e+1)*nc]
+		case e < -1:
+			return sol.imposed[(-2-e)*nc : (-1-e)*nc]
+		}
+		return nil
+	}
+	i := 0
+	for ; i+4 <= len(u); i += 4 {
+		r0, r1, r2, r3 := row(i), row(i+1), row(i+2), row(i+3)
+		if r0 == nil || r1 == nil || r2 == nil || r3 == nil {
+			for k := i; k < i+4; k++ {
+				u[k] = sum(row(k), cs)
+			}
+			continue
+		}
+		var s0, s1, s2, s3 float64
+		for _, c := range cs {
+			s0 += r0[c]
+			s1 += r1[c]
+			s2 += r2[c]
+			s3 += r3[c]
+		}
+		u[i], u[i+1], u[i+2], u[i+3] = s0, s1, s2, s3
+	}
+	for ; i < len(u); i++ {
+		u[i] = sum(row(i), cs)
+	}
+}
+
+// sum returns the sum of r[c] over cs, in their order; 0 for r nil.
+func sum(r []float64, cs []int) float64 {
+	s := 0.0
+	if r == nil {
+		return s
+	}
+	for _, c := range cs {
+		s += r[c]
+	}
+	return s
 }

@@ -40,15 +40,20 @@ func prepared(b *testing.B, mo *Model) (sol *Solution, data []float64, n, kb int
 // BenchmarkMultiColumnSolve compares the two ways of solving one load
 // column per beam after a single factorization: gonum's BandCholesky.SolveTo
 // (the baseline: LAPACK dpbtrs, one strided column at a time) and the
-// row-major block substitution Solve uses.
+// row-major block substitution Solve uses (register-blocked), and that
+// substitution as vector updates (axpy), as it was before; gonum's only on
+// the smaller frames.
 func BenchmarkMultiColumnSolve(b *testing.B) {
-	for _, size := range []struct{ bays, storeys int }{{10, 10}, {30, 20}} {
+	for _, size := range []struct{ bays, storeys int }{{10, 10}, {30, 20}, {30, 60}} {
 		mo := pieceFrame(size.bays, size.storeys)
 		sol, data, n, kb := prepared(b, mo)
 		nc := len(mo.Cases)
 		rhs := sol.rhs(n)
 		name := fmt.Sprintf("%dx%d/%d-columns", size.bays, size.storeys, nc)
 		b.Run(name+"/gonum-SolveTo", func(b *testing.B) {
+			if size.storeys > 20 {
+				b.Skip("minutes")
+			}
 			b.ReportAllocs()
 			var ch mat.BandCholesky
 			if !ch.Factorize(mat.NewSymBandDense(n, kb, append([]float64(nil), data...))) {
@@ -63,20 +68,25 @@ func BenchmarkMultiColumnSolve(b *testing.B) {
 				}
 			}
 		})
-		b.Run(name+"/row-major", func(b *testing.B) {
-			b.ReportAllocs()
-			a := blas64.SymmetricBand{Uplo: blas.Upper, N: n, K: kb, Data: append([]float64(nil), data...), Stride: kb + 1}
-			u, ok := lapack64.Pbtrf(a)
-			if !ok {
-				b.Fatal("not positive definite")
-			}
-			x := make([]float64, len(rhs))
-			b.ResetTimer()
-			for b.Loop() {
-				copy(x, rhs)
-				bandSolve(u.Data, n, kb, x, nc)
-			}
-		})
+		for _, kernel := range []struct {
+			name  string
+			solve func([]float64, int, int, []float64, int)
+		}{{"row-major-axpy", bandSolveAxpy}, {"row-major", bandSolve}} {
+			b.Run(name+"/"+kernel.name, func(b *testing.B) {
+				b.ReportAllocs()
+				a := blas64.SymmetricBand{Uplo: blas.Upper, N: n, K: kb, Data: append([]float64(nil), data...), Stride: kb + 1}
+				u, ok := lapack64.Pbtrf(a)
+				if !ok {
+					b.Fatal("not positive definite")
+				}
+				x := make([]float64, len(rhs))
+				b.ResetTimer()
+				for b.Loop() {
+					copy(x, rhs)
+					kernel.solve(u.Data, n, kb, x, nc)
+				}
+			})
+		}
 	}
 }
 
@@ -154,4 +164,83 @@ func BenchmarkConditionEstimate(b *testing.B) {
 			}
 		})
 	}
+}
+
+// BenchmarkBalance measures the statics check of one patterned case
+// through the sum of its pieces: one load column per beam, summed.
+func BenchmarkBalance(b *testing.B) {
+	for _, size := range []struct{ bays, storeys int }{{10, 10}, {30, 60}} {
+		mo := pieceFrame(size.bays, size.storeys)
+		sol, err := Solve(mo)
+		if err != nil {
+			b.Fatal(err)
+		}
+		cs := make([]int, len(mo.Cases))
+		for c := range cs {
+			cs[c] = c
+		}
+		b.Run(fmt.Sprintf("%dx%d/%d-columns", size.bays, size.storeys, len(cs)), func(b *testing.B) {
+			b.ReportAllocs()
+			for b.Loop() {
+				sol.BalanceOf(cs)
+			}
+		})
+	}
+}
+
+// BenchmarkFloors measures what this machine can do, for the floors of
+// docs/performance.md: the substitution's row kernel (one row of a packed
+// block of 32 columns formed from 96 rows, the data in the first-level
+// cache) in pure Go and with AVX, in GFLOP/s (two operations a term and
+// column), and reading memory (a sum over 256 MiB), in GB/s.
+func BenchmarkFloors(b *testing.B) {
+	const rows = 96
+	x := make([]float64, (rows+1)*solveBlock)
+	for i := range x {
+		x[i] = float64(i%7) - 3
+	}
+	idx := make([]int32, rows)
+	offs := make([]int, rows)
+	negs := make([]float64, rows)
+	for k := range rows {
+		idx[k], offs[k], negs[k] = int32(k+1), (k+1)*solveBlock, 1e-3*float64(k%5-2)
+	}
+	flops := float64(2 * rows * solveBlock)
+	b.Run("row-kernel/pure-Go", func(b *testing.B) {
+		for b.Loop() {
+			combine(x, 0, 0, solveBlock, offs, negs, 1)
+		}
+		b.ReportMetric(flops*float64(b.N)/b.Elapsed().Seconds()/1e9, "GFLOP/s")
+	})
+	b.Run("row-kernel/AVX", func(b *testing.B) {
+		if !hasAVX() {
+			b.Skip("no AVX")
+		}
+		for b.Loop() {
+			combine32(&x[0], &x[0], &idx[0], &negs[0], rows, 1)
+		}
+		b.ReportMetric(flops*float64(b.N)/b.Elapsed().Seconds()/1e9, "GFLOP/s")
+	})
+	b.Run("memory-read", func(b *testing.B) {
+		big := make([]float64, 32<<20)
+		for i := range big {
+			big[i] = 1
+		}
+		b.ResetTimer()
+		s := 0.0
+		for b.Loop() {
+			var s0, s1, s2, s3 float64
+			for i := 0; i+4 <= len(big); i += 4 {
+				s0 += big[i]
+				s1 += big[i+1]
+				s2 += big[i+2]
+				s3 += big[i+3]
+			}
+			s += s0 + s1 + s2 + s3
+		}
+		if s == 0 {
+			b.Fatal("nothing read")
+		}
+		b.ReportMetric(float64(8*len(big))*float64(b.N)/b.Elapsed().Seconds()/1e9, "GB/s")
+	})
 }

@@ -32,6 +32,10 @@ type Options struct {
 	// may carry fewer than three correct digits; whoever shows them must
 	// show [Solution.Cond] with them.
 	AcceptIllConditioned bool
+	// PerMember is the memory, in bytes, the caller will hold for each
+	// member while the solution is in use (an envelope's stations), counted
+	// in the estimate of the run's peak memory that [MaxMemory] limits.
+	PerMember float64
 	// Axial, when not nil, gives per member the axial force N (tension
 	// positive, force) whose geometric stiffness is added to the member's:
 	// a second-order analysis of the model's cases about that state of

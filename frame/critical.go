@@ -64,7 +64,7 @@ func criticalBisect(mo *Model, axial []float64) (float64, error) {
 	released := releasedRotations(mo)
 	order := rcmOrder(adjacency(mo))
 	dof, n, band := dofMap(mo, order, released)
-	if err := checkStorage(mo, n, band); err != nil {
+	if err := checkMemory(mo, n, band, 0); err != nil {
 		return 0, err
 	}
 	if n == 0 {
@@ -290,10 +290,11 @@ func newtonStep(assemble func(float64) []float64, a, u []float64, lambda float64
 	sy := make([]float64, n*p)
 	mu := math.NaN()
 	var ritz *mat.Dense
+	bs := newBandSolver(u, n, kb) // the factor's terms listed once for every step
 	for range maxInverse {
 		copy(y, dx)
-		copy(sy, dx)              // K Y = −K′ X: no product needed
-		bandSolve(u, n, kb, y, p) // Y = K⁻¹ (−K′) X
+		copy(sy, dx)   // K Y = −K′ X: no product needed
+		bs.solve(y, p) // Y = K⁻¹ (−K′) X
 		bandMulBlock(dx, d, y, n, kb, p)
 		as, bs := mat.NewSymDense(p, nil), mat.NewSymDense(p, nil)
 		for j := range p {

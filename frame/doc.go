@@ -84,7 +84,7 @@
 //
 // [Solve] returns an error, never numbers, for a model that is invalid
 // ([Model.Validate]), past the size limits ([ErrTooLarge]: [MaxEquations],
-// [MaxStorage]), a mechanism ([*MechanismError], naming each part joined to
+// [MaxMemory]), a mechanism ([*MechanismError], naming each part joined to
 // no support and each free node and direction), or so ill-conditioned that
 // fewer than three digits of the results would be right
 // ([*IllConditionedError], wrapping [ErrIllConditioned]; above [RefuseCond],

@@ -64,6 +64,30 @@ func ExampleSolution_Deflection() {
 	// 5wL⁴/384EI: 10.547 mm
 }
 
+// Before solving a large model a program can ask what it would take: a
+// portal frame on fixed bases has its two top nodes free, 6 equations,
+// coupled through the beam (half-bandwidth 5 at most), far within the
+// limit.
+func ExampleEstimateMemory() {
+	mo := &frame.Model{
+		Sections: []frame.Section{{Name: "S", E: 200e6, A: 5e-3, I: 8e-5}},
+		Nodes: []frame.Node{{Name: "a", Support: frame.Fixed}, {Name: "b", Y: 4}, {Name: "c", X: 6, Y: 4},
+			{Name: "d", X: 6, Support: frame.Fixed}},
+		Members: []frame.Member{{Name: "a-b", Start: 0, End: 1}, {Name: "b-c", Start: 1, End: 2}, {Name: "c-d", Start: 2, End: 3}},
+		Cases:   []frame.Case{{Name: "H", NodeLoads: []frame.NodeLoad{{Node: 1, Fx: 10}}}},
+	}
+	bytes, info, err := frame.EstimateMemory(mo, frame.Options{})
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	fmt.Println(info.Equations, "equations, half-bandwidth at most 5:", info.Bandwidth <= 5)
+	fmt.Println("within the limit:", bytes <= frame.MaxMemory)
+	// Output:
+	// 6 equations, half-bandwidth at most 5: true
+	// within the limit: true
+}
+
 // A cantilever column, EI = 250 kN·m², L = 10 m, under P = 4 kN and
 // H = 0.045 kN at its top: solved with the geometric stiffness of its axial
 // force it sways H(tan kL − kL)/(P k) = 0.1691 m with a base moment of

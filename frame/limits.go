@@ -11,11 +11,12 @@ import (
 const (
 	// MaxEquations is the largest number of free degrees of freedom.
 	MaxEquations = 1_000_000
-	// MaxStorage is the largest number of float64 values (8 bytes each;
-	// 2^28 values is 2 GiB) the solver may hold at once: the stiffness band
-	// and its factor, the load vectors and solutions of every case, and the
-	// fixed-end forces.
-	MaxStorage = 1 << 28
+	// MaxMemory is the most memory, in bytes (2 GiB), a run may be
+	// estimated to need at its peak (see [Options.PerMember]): the
+	// stiffness band and its factor, the load vectors and solutions of
+	// every case, the fixed-end forces, and what the caller holds per
+	// member with the garbage collector's margin.
+	MaxMemory = 2 << 30
 )
 
 // ErrTooLarge is wrapped by the error [Solve] returns for a model past the
@@ -45,28 +46,45 @@ func checkEquations(mo *Model) error {
 	return nil
 }
 
-// storage returns the number of float64 values Solve holds at once for n
-// equations of half-bandwidth band: the band and its factor (and, while a
+// The estimate of a run's peak memory (resident set) is fitted to the
+// peaks of 'govern run --json' on regular frames from 20 × 20 to 70 × 70
+// (docs/errors.md), within 4 % of each: the solver's values as they are
+// held, what the caller holds per member times heldMargin (the envelopes
+// are allocated member by member while the collector lets the heap grow
+// past what is live, GOGC=100), and baseMemory, the runtime's and the
+// program's own.
+const (
+	heldMargin = 1.3
+	baseMemory = 6 << 20
+)
+
+// memory returns the estimated peak memory, in bytes, of solving mo (n
+// equations of half-bandwidth band) with the results its caller holds,
+// perMember bytes a member: the band and its factor (and, while a
 // mechanism is being looked for, a third copy and the kb × kb block the
-// pivot watch keeps), the right-hand sides that become the
-// displacements, and at most six fixed-end forces a member in every case.
-func storage(mo *Model, n, band int) float64 {
+// pivot watch keeps), the right-hand sides that become the displacements,
+// six fixed-end forces for each member load, and those results.
+func memory(mo *Model, n, band int, perMember float64) float64 {
 	kb := float64(min(band, max(n-1, 0)))
 	nc := float64(max(len(mo.Cases), 1))
 	fn := float64(n)
-	members := float64(len(mo.Members))
-	return 3*fn*(kb+1) + kb*kb + fn*nc + nc*6*members
+	loads := 0
+	for c := range mo.Cases {
+		loads += len(mo.Cases[c].MemberLoads)
+	}
+	values := 3*fn*(kb+1) + kb*kb + fn*nc + 6*float64(loads)
+	return 8*values + heldMargin*perMember*float64(len(mo.Members)) + baseMemory
 }
 
-// checkStorage refuses a system that would need more than MaxStorage values.
-func checkStorage(mo *Model, n, band int) error {
-	if s := storage(mo, n, band); s > MaxStorage {
+// checkMemory refuses a run estimated to need more than MaxMemory.
+func checkMemory(mo *Model, n, band int, perMember float64) error {
+	if s := memory(mo, n, band, perMember); s > MaxMemory {
 		cases := fmt.Sprintf("%d load cases", len(mo.Cases))
 		if len(mo.Cases) == 1 {
 			cases = "1 load case"
 		}
 		return fmt.Errorf("%w: solving needs about %s of memory (%s equations, half-bandwidth %s, %s); the limit is %s",
-			ErrTooLarge, bytesText(8*s), thousands(n), thousands(band), cases, bytesText(8*MaxStorage))
+			ErrTooLarge, bytesText(s), thousands(n), thousands(band), cases, bytesText(MaxMemory))
 	}
 	return nil
 }
@@ -104,4 +122,20 @@ func bytesText(b float64) string {
 		return fmt.Sprintf("%.0f bytes", b)
 	}
 	return fmt.Sprintf("%.1f %s", b, units[i])
+}
+
+// EstimateMemory returns the estimate of the peak memory, in bytes, of
+// solving mo with opt (see [MaxMemory] and [Options.PerMember]), which
+// [SolveWith] refuses past MaxMemory, with the size of the system. It
+// numbers the equations, as SolveWith does, but assembles nothing.
+func EstimateMemory(mo *Model, opt Options) (float64, Info, error) {
+	if err := checkEquations(mo); err != nil {
+		return 0, Info{}, err
+	}
+	if err := mo.Validate(); err != nil {
+		return 0, Info{}, err
+	}
+	released := releasedRotations(mo)
+	_, n, band := dofMap(mo, rcmOrder(adjacency(mo)), released)
+	return memory(mo, n, band, opt.PerMember), Info{Equations: n, Bandwidth: band}, nil
 }

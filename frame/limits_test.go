@@ -27,7 +27,8 @@ func TestModelsPastTheLimitsAreRefused(t *testing.T) {
 			// narrow the band: 12,003 equations and a half-bandwidth of 12,001
 			// (the hub is numbered next to the last foot); band, factor and
 			// diagnosis copy, 3 × 12,003 × 12,002 values, and the pivot
-			// watch's block, 12,001², × 8 bytes = 4.3 GiB.
+			// watch's block, 12,001², × 8 bytes = 4.29 GiB, and 6 MiB
+			// of the runtime's own: 4.3 GiB.
 			name: "a stiffness band past the memory limit",
 			model: func() *Model {
 				const feet = 12000

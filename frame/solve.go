@@ -3,10 +3,8 @@ package frame
 import (
 	"fmt"
 	"math"
-	"runtime"
 	"slices"
 	"sort"
-	"sync"
 
 	"gonum.org/v1/gonum/blas"
 	"gonum.org/v1/gonum/blas/blas64"
@@ -30,6 +28,7 @@ type Solution struct {
 	x       []float64
 	dof     []int
 	imposed []float64
+	zero    []float64 // a zero for every case: the displacements where a support holds a node
 
 	// Loads by case and member: for case c, loaded[c] lists the members
 	// carrying loads (ascending), span[c][i] the range of byMember[c] holding
@@ -39,6 +38,11 @@ type Solution struct {
 	span     [][][2]int32
 	byMember [][]int32
 	fem      [][]float64
+	// By member: the cases loading it, ascending (casesOn), and for each
+	// its place in loaded (onMember: fem[c][6i:6i+6] are its fixed-end
+	// forces).
+	casesOn  [][]int32
+	onMember [][]loadRef
 
 	// Members meeting at each node, for reactions and residuals.
 	atNode [][]int32
@@ -92,7 +96,7 @@ func SolveWith(mo *Model, opt Options) (*Solution, error) {
 	released := releasedRotations(mo)
 	order := rcmOrder(adjacency(mo))
 	dof, n, band := dofMap(mo, order, released)
-	if err := checkStorage(mo, n, band); err != nil {
+	if err := checkMemory(mo, n, band, opt.PerMember); err != nil {
 		return nil, err
 	}
 	if opt.Axial != nil && len(opt.Axial) != len(mo.Members) {
@@ -180,6 +184,7 @@ func SolveWith(mo *Model, opt Options) (*Solution, error) {
 	bandSolve(u.Data, n, kb, x, nc)
 	scaleRows(x, d, nc)
 	sol.x = x
+	sol.zero = make([]float64, nc)
 	if err := sol.checkFinite(); err != nil {
 		return nil, err
 	}
@@ -494,7 +499,18 @@ func (sol *Solution) indexLoads() {
 		}
 		sol.loaded[c], sol.span[c], sol.byMember[c], sol.fem[c] = members, spans, idx, fem
 	}
+	sol.casesOn, sol.onMember = make([][]int32, len(mo.Members)), make([][]loadRef, len(mo.Members))
+	for c := range mo.Cases {
+		for i, m := range sol.loaded[c] {
+			sol.casesOn[m] = append(sol.casesOn[m], int32(c))
+			sol.onMember[m] = append(sol.onMember[m], loadRef{c: int32(c), i: int32(i)})
+		}
+	}
 }
+
+// loadRef is a case loading a member and the member's place in the case's
+// list of loaded members.
+type loadRef struct{ c, i int32 }
 
 // loadsOn returns the indices of case c's loads on member m and their
 // fixed-end forces (nil when there are none).
@@ -506,89 +522,4 @@ func (sol *Solution) loadsOn(c, m int) ([]int32, *[6]float64) {
 	}
 	sp := sol.span[c][i]
 	return sol.byMember[c][sp[0]:sp[1]], (*[6]float64)(sol.fem[c][6*i:])
-}
-
-// bandSolve overwrites the n × nrhs row-major matrix x with U⁻¹ U⁻ᵀ x,
-// where u is an upper band Cholesky factor (row-major, kb superdiagonals).
-// Rows of x are contiguous, so each step is a long vector update; columns
-// are split into blocks shared among the processors.
-func bandSolve(u []float64, n, kb int, x []float64, nrhs int) {
-	if nrhs == 0 {
-		return
-	}
-	const block = 64
-	nb := (nrhs + block - 1) / block
-	workers := min(runtime.GOMAXPROCS(0), nb)
-	var wg sync.WaitGroup
-	next := make(chan int, nb)
-	for b := range nb {
-		next <- b
-	}
-	close(next)
-	w := kb + 1
-	for range workers {
-		wg.Add(1)
-		go func() {
-			defer wg.Done()
-			for b := range next {
-				lo, hi := b*block, min((b+1)*block, nrhs)
-				// Forward: Uᵀ y = x. Rows above the block's first nonzero
-				// stay zero: a load on one member fills only a few rows.
-				start := n
-			scan:
-				for i := range n {
-					for _, v := range x[i*nrhs+lo : i*nrhs+hi] {
-						if v != 0 {
-							start = i
-							break scan
-						}
-					}
-				}
-				for i := start; i < n; i++ {
-					xi := x[i*nrhs+lo : i*nrhs+hi]
-					d := 1 / u[i*w]
-					for k := range xi {
-						xi[k] *= d
-					}
-					for j := 1; j < w && i+j < n; j++ {
-						uij := u[i*w+j]
-						if uij == 0 {
-							continue
-						}
-						axpy(x[(i+j)*nrhs+lo:(i+j)*nrhs+hi], -uij, xi)
-					}
-				}
-				// Backward: U x = y.
-				for i := n - 1; i >= 0; i-- {
-					xi := x[i*nrhs+lo : i*nrhs+hi]
-					for j := 1; j < w && i+j < n; j++ {
-						uij := u[i*w+j]
-						if uij == 0 {
-							continue
-						}
-						axpy(xi, -uij, x[(i+j)*nrhs+lo:(i+j)*nrhs+hi])
-					}
-					d := 1 / u[i*w]
-					for k := range xi {
-						xi[k] *= d
-					}
-				}
-			}
-		}()
-	}
-	wg.Wait()
-}
-
-// axpy adds a·x to y; len(y) == len(x). Unrolled by four, which lets the
-// compiler keep independent sums in flight.
-func axpy(y []float64, a float64, x []float64) {
-	x = x[:len(y)]
-	k := 0
-	for ; k+4 <= len(y); k += 4 {
-		y0, y1, y2, y3 := y[k]+a*x[k], y[k+1]+a*x[k+1], y[k+2]+a*x[k+2], y[k+3]+a*x[k+3]
-		y[k], y[k+1], y[k+2], y[k+3] = y0, y1, y2, y3
-	}
-	for ; k < len(y); k++ {
-		y[k] += a * x[k]
-	}
 }

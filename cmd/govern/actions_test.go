@@ -376,7 +376,7 @@ func TestActionsListedAndNoted(t *testing.T) {
 	}
 	code, out, _ = exec("check", model)
 	for _, want := range []string{
-		"actions:        2 (two alternatives of one action never act together)\n  dead         dead      D\n  wind         wind      WL or WR\n",
+		"actions:        2 (two alternatives of one action never act together)\n  dead         dead        D\n  wind         wind        WL or WR\n",
 		"note:           cases read by the default rule: wind cases WL, WR as alternatives",
 	} {
 		if code != 0 || !strings.Contains(out, want) {
@@ -398,7 +398,7 @@ func TestActionsListedAndNoted(t *testing.T) {
 		if code != 0 || strings.Contains(out, "note:") || stderr != "" {
 			t.Errorf("exit %d, stderr %q\n%s", code, stderr, out)
 		}
-		if !strings.Contains(out, "  wind         wind      left: WL ± or WR\n") {
+		if !strings.Contains(out, "  wind         wind        left: WL ± or WR\n") {
 			t.Errorf("actions not listed:\n%s", out)
 		}
 	})

@@ -21,7 +21,9 @@ var cmdCheck = &command{
 	long: `
 Check reads and validates the model file and prints what it describes:
 nodes, members, degrees of freedom and bandwidth of the stiffness matrix,
-load cases, their actions and alternatives, and combinations. It also factorizes the stiffness matrix,
+load cases, their actions and alternatives, and combinations; with live
+load reduction, each member's factors and how they were found (tributary
+area, K_LL, floors supported, the limit that governed). It also factorizes the stiffness matrix,
 without solving any load case, to find a structure that cannot carry load
 (a mechanism) and to estimate the matrix's condition number. Every problem
 found is reported, with the line it is on, and the exit status is 1.
@@ -69,14 +71,7 @@ func writeAssignments(w io.Writer, job *modelfile.Job) {
 	}
 	fmt.Fprintf(w, "assignments:    %d, applied in file order\n", len(job.Assignments))
 	for _, a := range job.Assignments {
-		var what []string
-		if a.Section != "" {
-			what = append(what, "section "+a.Section)
-		}
-		if a.Release != "" {
-			what = append(what, "release "+a.Release)
-		}
-		fmt.Fprintf(w, "  line %-6d %s on %s: %d members\n", a.Line, report.Escape(strings.Join(what, ", ")), report.Escape(quoted(a.On)), len(a.Members))
+		fmt.Fprintf(w, "  line %-6d %s on %s: %d members\n", a.Line, report.Escape(a.What(job.Units.Length)), report.Escape(quoted(a.On)), len(a.Members))
 	}
 	if len(job.Overlaps) == 0 {
 		fmt.Fprintf(w, "overlaps:       none\n")

@@ -31,7 +31,9 @@
 //
 // Check reads and validates the model file and prints what it describes:
 // nodes, members, degrees of freedom and bandwidth of the stiffness matrix,
-// load cases, their actions and alternatives, and combinations. It also factorizes the stiffness matrix,
+// load cases, their actions and alternatives, and combinations; with live
+// load reduction, each member's factors and how they were found (tributary
+// area, K_LL, floors supported, the limit that governed). It also factorizes the stiffness matrix,
 // without solving any load case, to find a structure that cannot carry load
 // (a mechanism) and to estimate the matrix's condition number. Every problem
 // found is reported, with the line it is on, and the exit status is 1.

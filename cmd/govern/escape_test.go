@@ -53,7 +53,7 @@ func TestTerminalTextIsEscaped(t *testing.T) {
 	})
 	t.Run("check lists cases and combinations escaped", func(t *testing.T) {
 		_, stdout, _ := exec("check", hostile)
-		for _, want := range []string{"  D\\x1b]0;t\\x07 dead      2 member loads", "  @service\\u0085               D\\x1b]0;t\\x07 + =L   (service)"} {
+		for _, want := range []string{"  D\\x1b]0;t\\x07 dead        2 member loads", "  @service\\u0085               D\\x1b]0;t\\x07 + =L   (service)"} {
 			if !strings.Contains(stdout, want) {
 				t.Errorf("check output lacks %q:\n%s", want, stdout)
 			}

@@ -12,10 +12,11 @@ type CaseResult struct {
 	// holds, in model order, in global axes (Fx +X, Fy +Y, M
 	// counter-clockwise); a component that nothing holds is 0.
 	Reactions []Reaction
-	// Reduced is where the reactions with live load reduction
-	// (Job.MemberFactors) will stand beside the unreduced ones above,
-	// node for node. It is nil: Run refuses a job with member factors
-	// (ErrNotApplied) until the reduction is applied.
+	// Reduced, for a case with live load reduction (Job.MemberFactors),
+	// holds the reactions beside the unreduced ones above, node for node:
+	// at each, the sum of the members' end forces times their factors
+	// for that component ([Result.ReducedReactions]); nil for a case no
+	// member factor scales.
 	Reduced []Reaction
 	// Ends holds, per member in model order, its end forces: the forces
 	// the nodes exert on it at its start and end, written as internal
@@ -61,18 +62,41 @@ type Displacement struct {
 func (r *Result) Cases() []CaseResult {
 	mo := r.Job.Model
 	out := make([]CaseResult, len(mo.Cases))
+	cols := make([][]int, len(mo.Cases))
 	for c := range mo.Cases {
-		cols := r.lay.Whole(c)
-		cr := CaseResult{Name: mo.Cases[c].Name, Ends: make([]MemberEnds, len(mo.Members)), Displacements: make([]Displacement, len(mo.Nodes))}
+		cols[c] = r.lay.Whole(c)
+		out[c] = CaseResult{Name: mo.Cases[c].Name, Ends: make([]MemberEnds, len(mo.Members)), Displacements: make([]Displacement, len(mo.Nodes))}
+	}
+	// The end forces of every column of a member at once, summed case by
+	// case over its columns in order: the sums of endForces, to the last
+	// bit, without reading the displacements column by column.
+	ends := make([][6]float64, len(r.sol.Model().Cases))
+	for m := range mo.Members {
+		r.sol.EndForcesEach(ends, m)
+		for c := range mo.Cases {
+			var f [6]float64
+			for _, col := range cols[c] {
+				g := &ends[col]
+				for i := range f {
+					f[i] += g[i]
+				}
+			}
+			// The local end forces the nodes exert (frame.Solution.EndForces)
+			// as internal forces: at the start N = −f0, V = f1, M = −f2; at
+			// the end N = f3, V = −f4, M = f5. A released end's are
+			// exactly zero.
+			out[c].Ends[m] = MemberEnds{Member: m, Start: frame.Forces{N: -f[0], V: f[1], M: -f[2]}, End: frame.Forces{N: f[3], V: -f[4], M: f[5]}}
+		}
+	}
+	u := make([]float64, 3*len(mo.Nodes))
+	for c := range mo.Cases {
+		cr := &out[c]
+		r.sol.DisplacementSums(u, cols[c])
 		for v := range mo.Nodes {
 			nd := &mo.Nodes[v]
-			d := Displacement{Node: v, RotationFree: r.sol.RotationFree(v)}
-			for _, col := range cols {
-				ux, uy, rz := r.sol.Displacement(col, v)
-				d.Ux, d.Uy = d.Ux+ux, d.Uy+uy
-				if !d.RotationFree {
-					d.Rz += rz
-				}
+			d := Displacement{Node: v, RotationFree: r.sol.RotationFree(v), Ux: u[3*v], Uy: u[3*v+1]}
+			if !d.RotationFree {
+				d.Rz = u[3*v+2]
 			}
 			cr.Displacements[v] = d
 			if !nd.Supported() {
@@ -82,21 +106,19 @@ func (r *Result) Cases() []CaseResult {
 			for k := range re.Components {
 				re.Components[k] = nd.Reacts(k)
 			}
-			for _, col := range cols {
+			for _, col := range cols[c] {
 				fx, fy, m := r.sol.Reaction(col, v)
 				re.Fx, re.Fy, re.M = re.Fx+fx, re.Fy+fy, re.M+m
 			}
 			cr.Reactions = append(cr.Reactions, re)
 		}
-		for m := range mo.Members {
-			f := r.endForces(c, m)
-			// The local end forces the nodes exert (frame.Solution.EndForces)
-			// as internal forces: at the start N = −f0, V = f1, M = −f2; at
-			// the end N = f3, V = −f4, M = f5. A released end's are
-			// exactly zero.
-			cr.Ends[m] = MemberEnds{Member: m, Start: frame.Forces{N: -f[0], V: f[1], M: -f[2]}, End: frame.Forces{N: f[3], V: -f[4], M: f[5]}}
+		if r.reduced(c) {
+			for i, rr := range r.ReducedReactions(c) {
+				re := cr.Reactions[i]
+				re.Fx, re.Fy, re.M = rr.Reduced[0], rr.Reduced[1], rr.Reduced[2]
+				cr.Reduced = append(cr.Reduced, re)
+			}
 		}
-		out[c] = cr
 	}
 	return out
 }

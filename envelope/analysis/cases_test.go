@@ -161,3 +161,45 @@ func TestCasesPatternedWhole(t *testing.T) {
 		near(t, "D against L", cs[0].Reactions[i].Fy, 2*c.Reactions[i].Fy, w*l)
 	}
 }
+
+// Cases forms each case's end forces from every column's at once and its
+// displacements row by row: the same sums, in the same order, as adding
+// up EndForces and Displacement column by column, to the last bit.
+func TestCasesAreTheColumnSums(t *testing.T) {
+	job := twoSpans()
+	res, err := Run(context.Background(), job, Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	got := res.Cases()
+	mo := job.Model
+	checked := 0
+	for c := range mo.Cases {
+		cols := res.lay.Whole(c)
+		for m := range mo.Members {
+			f := res.endForces(c, m)
+			want := MemberEnds{Member: m, Start: frame.Forces{N: -f[0], V: f[1], M: -f[2]}, End: frame.Forces{N: f[3], V: -f[4], M: f[5]}}
+			if got[c].Ends[m] != want {
+				t.Errorf("case %d member %d: %+v, column by column %+v", c, m, got[c].Ends[m], want)
+			}
+		}
+		for v := range mo.Nodes {
+			var want Displacement
+			want.Node, want.RotationFree = v, res.sol.RotationFree(v)
+			for _, col := range cols {
+				ux, uy, rz := res.sol.Displacement(col, v)
+				want.Ux, want.Uy = want.Ux+ux, want.Uy+uy
+				if !want.RotationFree {
+					want.Rz += rz
+				}
+			}
+			if got[c].Displacements[v] != want {
+				t.Errorf("case %d node %d: %+v, column by column %+v", c, v, got[c].Displacements[v], want)
+			}
+		}
+		checked += len(cols)
+	}
+	if checked <= len(mo.Cases) {
+		t.Fatal("no patterned case: the test sums no pieces")
+	}
+}

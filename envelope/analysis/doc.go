@@ -48,11 +48,15 @@
 // designer asks of each load case alone, unfactored (its reactions,
 // member end forces and node displacements, a patterned case fully
 // loaded), is formed on request by [Result.Cases], first-order; with live
-// load reduction its reduced reactions will stand beside the unreduced
-// ones ([CaseResult].Reduced).
-// Job.MemberFactors (live load reduction) is refused by Run with
-// [ErrNotApplied] until it is applied, so that no setting is ever
-// silently ignored.
+// load reduction its reduced reactions stand beside the unreduced ones
+// ([CaseResult].Reduced). Job.MemberFactors (live load reduction) scale
+// the effects of a case in a member in the envelopes and the reactions
+// formed from them ([Result.ReducedReactions] for one case), where every
+// combination is analysed first-order with the sections as given;
+// deflections and the statics check are of the loads as given. With
+// another method (second order, reduced stiffness) Run refuses member
+// factors with [ErrNotApplied], so that no setting is ever silently
+// ignored.
 //
 // Second-order results: moments include N·(v − v(0)) along each member
 // (package frame); αcr is for the combination as written; storeys give

@@ -107,13 +107,35 @@ type Level struct {
 }
 
 // MemberFactor scales the effects of one load case in one member: its
-// axial force N, shear V and moment M. It is how live load reduction
-// (ASCE/SEI 7-16 4.7, EN 1991-1-1 6.3.1.2) will enter the analysis.
-//
-// Not applied yet: [Run] refuses a job that gives any.
+// axial force N, shear V and moment M, in every combination and every
+// pattern piece of the case. It is how live load reduction (ASCE/SEI 7-16
+// 4.7 and 4.8, EN 1991-1-1 6.3.1.2; package envelope/reduction) enters
+// the analysis. Reactions are formed from the scaled member end forces
+// (envelope.Factors); deflections and the statics check are not scaled.
 type MemberFactor struct {
 	Member, Case int // indices into the model's members and cases
 	N, V, M      float64
+	// Accompanying, when HasAccompanying, are the factors on N, V and M
+	// in the combinations where the case does not lead (envelope.Leads):
+	// EN 1991-1-1 6.3.1.2(11) applies αn only where the imposed load
+	// leads.
+	Accompanying    [3]float64
+	HasAccompanying bool
+	// Basis says how the factors were found, for the outputs; the zero
+	// value when not told.
+	Basis FactorBasis
+}
+
+// FactorBasis is how a MemberFactor was found.
+type FactorBasis struct {
+	Rule   string  // the clause, such as "ASCE/SEI 7-16 4.7.2"
+	Area   float64 // the tributary area A_T, in the model's length²
+	KLL    float64 // the live load element factor K_LL; 0 where the rule has none
+	Floors int     // floors (storeys) supported with load of the case
+	Limit  string  // what governed N's factor; "" the equation
+	// Ends, for a column, says how V and M were found: the one-floor rule
+	// (the larger one-floor factor of the floors at its ends).
+	Ends string
 }
 
 // Stiffness names the member stiffness a combination is analysed with.
@@ -279,8 +301,7 @@ type Job struct {
 	EffectiveDepths []float64
 
 	// MemberFactors are factors on the effects of a case in a member
-	// (live load reduction). Not applied yet: Run refuses a job that
-	// gives any.
+	// (live load reduction), at most one per member and case.
 	MemberFactors []MemberFactor
 	// Methods, nil or one per combination, says how each combination is
 	// analysed.
@@ -419,9 +440,8 @@ func (j *Job) check() error {
 	if j.Settings.Stations < 2 {
 		return fmt.Errorf("analysis: %d stations per member; need at least 2", j.Settings.Stations)
 	}
-	if len(j.MemberFactors) > 0 {
-		return fmt.Errorf("analysis: Job.MemberFactors gives %d member factors: %w (live load reduction); Run refuses them rather than ignore them",
-			len(j.MemberFactors), ErrNotApplied)
+	if err := j.checkFactors(); err != nil {
+		return err
 	}
 	if j.Methods != nil && len(j.Methods) != len(j.Combinations) {
 		return fmt.Errorf("analysis: Job.Methods gives %d methods for %d combinations", len(j.Methods), len(j.Combinations))

@@ -3,6 +3,7 @@ package analysis
 import (
 	"context"
 	"fmt"
+	"runtime"
 	"slices"
 	"sync"
 	"sync/atomic"
@@ -107,6 +108,8 @@ type Result struct {
 	// The combinations as they were enveloped (favourableSplit), index
 	// for index with the job's.
 	solved []combos.Combination
+	// finders holds EndMomentsOf's reusable evaluators.
+	finders sync.Pool
 }
 
 // Combination is one combination of the job as it was analysed.
@@ -171,6 +174,11 @@ func Run(ctx context.Context, job *Job, opt Options) (*Result, error) {
 	if err != nil {
 		return nil, err
 	}
+	if len(job.MemberFactors) > 0 && !pl.simple {
+		// A second-order combination is solved whole, its cases not apart:
+		// its effects cannot be scaled case by case.
+		return nil, fmt.Errorf("analysis: Job.MemberFactors (live load reduction) with a combination analysed other than first-order with the sections as given (second order, reduced stiffness, notional loads): %w; Run refuses them rather than ignore them", ErrNotApplied)
+	}
 	lay, err := patterns.Expand(sv.model, sv.patterned, job.Segments, mode)
 	if err != nil {
 		return nil, err
@@ -178,7 +186,9 @@ func Run(ctx context.Context, job *Job, opt Options) (*Result, error) {
 	sv.namePieces(job, lay)
 	report(opt, Progress{Phase: fmt.Sprintf("solving %d loads (%d load cases, %d pattern pieces or arrangements)",
 		len(lay.Model.Cases), len(sv.model.Cases), len(lay.Model.Cases)-len(sv.model.Cases))})
-	sol, err := frame.SolveWith(lay.Model, opt.Solver)
+	solver := opt.Solver
+	solver.PerMember += perMember(job, sv, lay, opt)
+	sol, err := frame.SolveWith(lay.Model, solver)
 	if err != nil {
 		return nil, err
 	}
@@ -245,6 +255,7 @@ func Run(ctx context.Context, job *Job, opt Options) (*Result, error) {
 	nodes, drifts := r.displacementRequests()
 	var env, across *envelope.Envelope // across: deflections across the lines of runs with a ridge
 	if pl.simple {
+		set.Factors = job.envelopeFactors(len(sv.kinds))
 		if env, err = envelope.Compute(sol, sv.combinations, set, lay); err != nil {
 			return nil, err
 		}
@@ -383,7 +394,15 @@ func (r *Result) EndMoments(m int, x float64, k, j int, hi bool, want float64) (
 // combination (second order: its own).
 func (r *Result) EndMomentsOf(m int, states []envelope.State) []envelope.State {
 	if r.units == nil {
-		return envelope.EndMomentsOf(r.sol, r.solved, r.Envelope.Settings, r.lay, m, states)
+		// A finder's evaluator and scratch, formed once and reused member
+		// after member: a design table asks for every member's states.
+		f, _ := r.finders.Get().(*envelope.EndsFinder)
+		if f == nil {
+			f = envelope.NewEndsFinder(r.sol, r.solved, r.Envelope.Settings, r.lay)
+		}
+		out := f.Of(m, states)
+		r.finders.Put(f)
+		return out
 	}
 	out := make([]envelope.State, len(states))
 	byKey := map[int][]int{} // unit of the solution → states
@@ -424,9 +443,9 @@ func (r *Result) EndMomentsOf(m int, states []envelope.State) []envelope.State {
 func (r *Result) EndMomentsOfMany(ms []int, states [][]envelope.State) [][]envelope.State {
 	out := make([][]envelope.State, len(ms))
 	if r.units == nil {
-		for i, m := range ms {
-			out[i] = envelope.EndMomentsOf(r.sol, r.solved, r.Envelope.Settings, r.lay, m, states[i])
-		}
+		eachShared(len(ms), func(i int) {
+			out[i] = envelope.EndMomentsOf(r.sol, r.solved, r.Envelope.Settings, r.lay, ms[i], states[i])
+		})
 		return out
 	}
 	type at struct{ i, q int } // member ms[i], its state q
@@ -448,11 +467,18 @@ func (r *Result) EndMomentsOfMany(ms []int, states [][]envelope.State) [][]envel
 		if err != nil {
 			continue // the states as they are: not found
 		}
+		// The runs of one member's states, shared among the processors.
+		var runs [][2]int
 		for a := 0; a < len(list); {
 			b := a
 			for b < len(list) && list[b].i == list[a].i {
 				b++
 			}
+			runs = append(runs, [2]int{a, b})
+			a = b
+		}
+		eachShared(len(runs), func(k int) {
+			a, b := runs[k][0], runs[k][1]
 			sub := make([]envelope.State, b-a)
 			for q := range sub {
 				sub[q] = states[list[a+q].i][list[a+q].q]
@@ -461,10 +487,29 @@ func (r *Result) EndMomentsOfMany(ms []int, states [][]envelope.State) [][]envel
 			for q := range sub {
 				out[list[a+q].i][list[a+q].q] = got[q]
 			}
-			a = b
-		}
+		})
 	}
 	return out
+}
+
+// eachShared calls f(i) for i in [0, n), shared among the processors.
+func eachShared(n int, f func(i int)) {
+	next := make(chan int, n)
+	for i := range n {
+		next <- i
+	}
+	close(next)
+	var wg sync.WaitGroup
+	for range min(runtime.GOMAXPROCS(0), n) {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			for i := range next {
+				f(i)
+			}
+		}()
+	}
+	wg.Wait()
 }
 
 // StationsAt returns the envelopes of member m, in its own axes, at the
@@ -527,4 +572,28 @@ func (r *Result) endForces(c, m int) [6]float64 {
 		}
 	}
 	return f
+}
+
+// perMember is what the envelopes will hold per member, for the estimate
+// of the run's memory: each member's stations, with two faces on a beam.
+func perMember(job *Job, sv solved, lay *patterns.Layout, opt Options) float64 {
+	pieces := len(lay.Model.Cases) - len(sv.model.Cases)
+	service := slices.ContainsFunc(sv.combinations, func(c combos.Combination) bool { return c.Service })
+	return float64(job.Settings.Stations+2) * envelope.StationBytes(pieces, service, opt.allPieces)
+}
+
+// EstimateMemory returns the estimate of the peak memory, in bytes, of
+// running job, which Run refuses past frame.MaxMemory (an error wrapping
+// frame.ErrTooLarge), and the size of its system of equations. It places
+// the patterned loads but solves nothing.
+func EstimateMemory(job *Job) (float64, frame.Info, error) {
+	if err := job.check(); err != nil {
+		return 0, frame.Info{}, err
+	}
+	sv := favourableSplit(job)
+	lay, err := patterns.Expand(sv.model, sv.patterned, job.Segments, job.Patterns)
+	if err != nil {
+		return 0, frame.Info{}, err
+	}
+	return frame.EstimateMemory(lay.Model, frame.Options{PerMember: perMember(job, sv, lay, Options{})})
 }

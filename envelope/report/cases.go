@@ -32,8 +32,21 @@ func (p *Report) jsonCases(j *jsonWriter) {
 			}
 			j.raw("}")
 		}
-		// Reactions with live load reduction will go here, as
-		// "reduced_reactions", when CaseResult.Reduced is given.
+		if c.Reduced != nil {
+			// Live load reduction: node for node, each member's end force
+			// there times its factor (analysis.Result.ReducedReactions).
+			j.raw("],\n   \"reduced_reactions\": [")
+			for k, r := range c.Reduced {
+				j.sep(k, ", ").raw("{\"node\": ").str(mo.Nodes[r.Node].Name)
+				v := [3]float64{p.force.Of(r.Fx), p.force.Of(r.Fy), p.moment.Of(r.M)}
+				for d, key := range reactionForces {
+					if r.Components[d] {
+						j.raw(", \"").raw(key).raw("\": ").num(v[d])
+					}
+				}
+				j.raw("}")
+			}
+		}
 		j.raw("],\n   \"members\": [")
 		end := func(f frame.Forces) {
 			j.raw("{\"N\": ").num(p.force.Of(f.N)).raw(", \"V\": ").num(p.force.Of(f.V)).raw(", \"M\": ").num(p.moment.Of(f.M)).raw("}")
@@ -72,13 +85,18 @@ func (p *Report) WriteCasesCSV(w io.Writer) error {
 		return cw.Write([]string{c, what, name, end, q, num(v), unit})
 	}
 	for _, c := range p.cases() {
-		for _, r := range c.Reactions {
-			v := [3]float64{p.force.Of(r.Fx), p.force.Of(r.Fy), p.moment.Of(r.M)}
-			units := [3]string{p.force.Label, p.force.Label, p.moment.Label}
-			for d, key := range reactionForces {
-				if r.Components[d] {
-					if err := row(c.Name, "reaction", mo.Nodes[r.Node].Name, "", key, v[d], units[d]); err != nil {
-						return err
+		for _, rs := range []struct {
+			what string
+			rs   []analysis.Reaction
+		}{{"reaction", c.Reactions}, {"reduced reaction", c.Reduced}} {
+			for _, r := range rs.rs {
+				v := [3]float64{p.force.Of(r.Fx), p.force.Of(r.Fy), p.moment.Of(r.M)}
+				units := [3]string{p.force.Label, p.force.Label, p.moment.Label}
+				for d, key := range reactionForces {
+					if r.Components[d] {
+						if err := row(c.Name, rs.what, mo.Nodes[r.Node].Name, "", key, v[d], units[d]); err != nil {
+							return err
+						}
 					}
 				}
 			}
@@ -140,8 +158,7 @@ func (p *Report) htmlCases(h *htmlOut) error {
 	for _, c := range p.cases() {
 		h.printf("<h3>%s</h3>\n", esc(c.Name))
 		var rows [][]string
-		for _, r := range c.Reactions {
-			row := []string{mo.Nodes[r.Node].Name}
+		cells := func(row []string, r analysis.Reaction) []string {
 			for d, v := range [3]float64{p.force.Of(r.Fx), p.force.Of(r.Fy), p.moment.Of(r.M)} {
 				if r.Components[d] {
 					row = append(row, fixed(v))
@@ -149,10 +166,23 @@ func (p *Report) htmlCases(h *htmlOut) error {
 					row = append(row, "")
 				}
 			}
+			return row
+		}
+		for i, r := range c.Reactions {
+			row := cells([]string{mo.Nodes[r.Node].Name}, r)
+			if c.Reduced != nil {
+				row = cells(row, c.Reduced[i])
+			}
 			rows = append(rows, row)
 		}
+		header, title := []string{"node", "Fx (" + f + ")", "Fy (" + f + ")", "M (" + m + ")"}, "Reactions of "+c.Name
+		if c.Reduced != nil {
+			// Live load reduction: the reduced reactions beside, labelled.
+			header = append(header, "reduced Fx ("+f+")", "reduced Fy ("+f+")", "reduced M ("+m+")")
+			title += " (reduced: each member's end force times its live load factor)"
+		}
 		if len(rows) > 0 {
-			if err := tb.table(Table{"Reactions of " + c.Name, []string{"node", "Fx (" + f + ")", "Fy (" + f + ")", "M (" + m + ")"}, rows}); err != nil {
+			if err := tb.table(Table{title, header, rows}); err != nil {
 				return err
 			}
 		}

@@ -34,12 +34,13 @@ func WriteCheck(w io.Writer, job *analysis.Job, st *analysis.Stability) {
 		if n := len(c.Displacements); n > 0 {
 			imposed = fmt.Sprintf(", %d imposed displacements", n)
 		}
-		fmt.Fprintf(w, "  %-12s %-9s %d member loads, %d node loads%s\n", Escape(c.Name), job.Cases[i].Kind, len(c.MemberLoads), len(c.NodeLoads), imposed)
+		fmt.Fprintf(w, "  %-12s %-11s %d member loads, %d node loads%s\n", Escape(c.Name), job.Cases[i].Kind, len(c.MemberLoads), len(c.NodeLoads), imposed)
 	}
+	writeReductionCheck(w, job)
 	if job.Actions != nil {
 		fmt.Fprintf(w, "actions:        %d (two alternatives of one action never act together)\n", len(job.Actions.List))
 		for _, row := range actionRows(job) {
-			fmt.Fprintf(w, "  %-12s %-9s %s\n", Escape(row[0]), row[1], Escape(row[2]))
+			fmt.Fprintf(w, "  %-12s %-11s %s\n", Escape(row[0]), row[1], Escape(row[2]))
 		}
 		if n := job.Actions.Note; n != "" {
 			fmt.Fprintf(w, "note:           %s\n", Escape(n))

@@ -26,12 +26,24 @@ func (p *Report) WriteCSV(w io.Writer) error {
 	f, m, d := p.force, p.moment, p.defl
 	cw := newCSVWriter(w)
 	fu, mu := " ("+f.Label+")", " ("+m.Label+")"
-	if err := cw.Write([]string{"member", "x (" + u.Length + ")", "effect", "max", "max_by", "min", "min_by", CSVUnitHeader,
-		"max_spans", "min_spans", "max_loaded", "min_loaded", "max_with_N" + fu, "max_with_V" + fu, "max_with_M" + mu, "min_with_N" + fu, "min_with_V" + fu, "min_with_M" + mu, "face"}); err != nil {
+	header := []string{"member", "x (" + u.Length + ")", "effect", "max", "max_by", "min", "min_by", CSVUnitHeader,
+		"max_spans", "min_spans", "max_loaded", "min_loaded", "max_with_N" + fu, "max_with_V" + fu, "max_with_M" + mu, "min_with_N" + fu, "min_with_V" + fu, "min_with_M" + mu, "face"}
+	// With live load reduction, two more columns: the factors of the
+	// reduced cases on the row's effect, and how they were found.
+	reduced := len(p.job().MemberFactors) > 0
+	if reduced {
+		header = append(header, "live_load_factor", "live_load_basis")
+	}
+	if err := cw.Write(header); err != nil {
 		return err
 	}
 	for _, em := range p.res.Envelope.Members {
 		name := mo.Members[em.Member].Name
+		var factor [3]string // the row's extra cells for N, V, M
+		var basis string
+		if reduced {
+			factor, basis = csvFactors(p.job(), em.Member)
+		}
 		for k, st := range em.Stations {
 			face := ""
 			if st.Extra {
@@ -43,23 +55,37 @@ func (p *Report) WriteCSV(w io.Writer) error {
 				x    envelope.Extreme
 			}{{"N", f, st.N}, {"V", f, st.V}, {"M", m, st.M}} {
 				x, s := e.x, e.s
-				if err := cw.Write([]string{name, position(st.X), e.name, num(s.Of(x.Max)), p.comboName(x.MaxBy), num(s.Of(x.Min)), p.comboName(x.MinBy), s.Label,
+				row := []string{name, position(st.X), e.name, num(s.Of(x.Max)), p.comboName(x.MaxBy), num(s.Of(x.Min)), p.comboName(x.MinBy), s.Label,
 					strings.Join(p.spanNames(x.MaxSpans), " "), strings.Join(p.spanNames(x.MinSpans), " "), strconv.Itoa(x.MaxLoaded), strconv.Itoa(x.MinLoaded),
-					num(f.Of(x.MaxWith[0])), num(f.Of(x.MaxWith[1])), num(m.Of(x.MaxWith[2])), num(f.Of(x.MinWith[0])), num(f.Of(x.MinWith[1])), num(m.Of(x.MinWith[2])), face}); err != nil {
+					num(f.Of(x.MaxWith[0])), num(f.Of(x.MaxWith[1])), num(m.Of(x.MaxWith[2])), num(f.Of(x.MinWith[0])), num(f.Of(x.MinWith[1])), num(m.Of(x.MinWith[2])), face}
+				if reduced {
+					row = append(row, factor[strings.Index("NVM", e.name)], basis)
+				}
+				if err := cw.Write(row); err != nil {
 					return err
 				}
 			}
 			if em.Deflection != nil {
 				x := em.Deflection[k]
-				if err := cw.Write([]string{name, position(st.X), "deflection", num(d.Of(x.Max)), p.comboName(x.MaxBy), num(d.Of(x.Min)), p.comboName(x.MinBy), d.Label,
+				row := []string{name, position(st.X), "deflection", num(d.Of(x.Max)), p.comboName(x.MaxBy), num(d.Of(x.Min)), p.comboName(x.MinBy), d.Label,
 					strings.Join(p.spanNames(x.MaxSpans), " "), strings.Join(p.spanNames(x.MinSpans), " "), strconv.Itoa(x.MaxLoaded), strconv.Itoa(x.MinLoaded),
-					"", "", "", "", "", "", face}); err != nil {
+					"", "", "", "", "", "", face}
+				if reduced {
+					// Deflections are of the loads as given: never reduced.
+					row = append(row, "", "")
+				}
+				if err := cw.Write(row); err != nil {
 					return err
 				}
 			}
 		}
 	}
-	if err := p.csvNodes(cw.Write); err != nil {
+	write := cw.Write
+	if reduced {
+		// Displacements are of the loads as given: never reduced.
+		write = func(row []string) error { return cw.Write(append(row, "", "")) }
+	}
+	if err := p.csvNodes(write); err != nil {
 		return err
 	}
 	if s := p.src; s != nil {
@@ -67,7 +93,7 @@ func (p *Report) WriteCSV(w io.Writer) error {
 		// number below: member and x empty, the name in the effect
 		// column, the value in the max column (docs/output.md).
 		for _, f := range s.csvFields() {
-			row := make([]string, 19)
+			row := make([]string, len(header))
 			row[2], row[3] = f[0], f[1]
 			if err := cw.Write(row); err != nil {
 				return err
@@ -77,7 +103,7 @@ func (p *Report) WriteCSV(w io.Writer) error {
 	if p.conditionNote() != "" {
 		// One last row for the whole model; its columns are those of the
 		// others (docs/output.md).
-		row := make([]string, 19)
+		row := make([]string, len(header))
 		row[2], row[3] = "condition_number", num(p.res.Condition())
 		if err := cw.Write(row); err != nil {
 			return err
@@ -85,6 +111,32 @@ func (p *Report) WriteCSV(w io.Writer) error {
 	}
 	cw.Flush()
 	return cw.Error()
+}
+
+// csvFactors returns, for member m, the cells of the live load factor
+// column for its N, V and M rows, such as "L 0.4000" ("" where no case is
+// reduced in it), and of the basis column.
+func csvFactors(job *analysis.Job, m int) (cells [3]string, basis string) {
+	var b []string
+	for _, f := range memberFactors(job, m) {
+		name := job.Model.Cases[f.Case].Name
+		for j, v := range [3]float64{f.N, f.V, f.M} {
+			c := name + " " + factorText(v)
+			if j == 0 && f.HasAccompanying && f.Accompanying[0] != f.N {
+				c += " (" + factorText(f.Accompanying[0]) + " where " + name + " accompanies)"
+			}
+			if cells[j] != "" {
+				cells[j] += "; "
+			}
+			cells[j] += c
+		}
+		s := name + ": " + basisText(f.Basis, job.Units.Length)
+		if f.Basis.Ends != "" {
+			s += "; V and M by the " + f.Basis.Ends
+		}
+		b = append(b, s)
+	}
+	return cells, strings.Join(b, "; ")
 }
 
 // csvFields are the source's rows of a CSV: name and value.

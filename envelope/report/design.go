@@ -26,8 +26,12 @@ type design struct {
 	reactions     *Table  // nil without supports
 	withReactions *Table  // each extreme with its concurrent reaction; nil without supports
 	stability     []Table // the frame's stability (stability.go)
-	staticsTop    string  // the note above the statics table
-	statics       Table
+	reduction     *Table  // the member factors of live load reduction; nil without any
+	// reducedReactions are the reduced cases' reactions, unreduced and
+	// reduced; nil without member factors.
+	reducedReactions *Table
+	staticsTop       string // the note above the statics table
+	statics          Table
 }
 
 // groupDesign is the tables of one floor, column line or the others.
@@ -54,6 +58,12 @@ func (p *Report) Tables() []Table {
 	}
 	if d.reactions != nil {
 		out = append(out, *d.reactions, *d.withReactions)
+	}
+	if d.reduction != nil {
+		out = append(out, *d.reduction)
+	}
+	if d.reducedReactions != nil {
+		out = append(out, *d.reducedReactions)
 	}
 	out = append(out, d.stability...)
 	return append(out, d.statics)
@@ -104,7 +114,15 @@ func newDesign(p *Report) *design {
 	d.deflection = p.deflectionTable()
 	d.limits = p.limitTable()
 	d.reactions = p.reactionTable()
+	if d.reactions != nil {
+		d.reactions.Title += reductionNote(p.job())
+	}
 	d.withReactions = p.reactionStateTable()
+	if d.withReactions != nil {
+		d.withReactions.Title += reductionNote(p.job())
+	}
+	d.reduction = p.reductionTable()
+	d.reducedReactions = p.reducedReactionTable()
 	d.stability = p.stabilityTables()
 	d.staticsTop, d.statics = p.staticsTable()
 	return d
@@ -165,8 +183,8 @@ func (p *Report) groupTables(g groupDesign) []Table {
 	u := p.units()
 	force, moment, at := p.force.Label, p.moment.Label, "at x ("+u.Length+")"
 	if g.Kind != analysis.Floor {
-		return []Table{{g.title, columnHeader(force, moment, u.Length), p.columnRows(g.Members)},
-			{"End moments, " + lowerFirst(g.title) + ": each governing value with the forces acting with it and the moments at the member's ends in the same state (the same combination and pieces loaded)", stateHeader(force, moment, u.Length, p.pieces() > 0), p.stateRows(g.Members)}}
+		return []Table{p.withReduction(Table{g.title, columnHeader(force, moment, u.Length), p.columnRows(g.Members)}, g.Members),
+			{"End moments, " + lowerFirst(g.title) + ": each governing value with the forces acting with it and the moments at the member's ends in the same state (the same combination and pieces loaded)" + reductionNote(p.job()), stateHeader(force, moment, u.Length, p.pieces() > 0), p.stateRows(g.Members)}}
 	}
 	patterned := p.pieces() > 0
 	header := []string{"beam", "+M (" + moment + ")", at, "governing"}
@@ -193,13 +211,13 @@ func (p *Report) groupTables(g groupDesign) []Table {
 		row = append(row, fixed(p.force.Of(pk.lo[2].with[1])), fixed(p.force.Of(v.v)), fixed(v.x), p.comboName(v.by), fixed(p.moment.Of(v.with[2])))
 		rows = append(rows, row)
 	}
-	out := []Table{{g.title, header, rows}}
+	out := []Table{p.withReduction(Table{g.title, header, rows}, g.Members)}
 	if !p.res.HasFaces(g.Members) {
 		return out
 	}
 	header = []string{"beam", "support", "M min, centreline (" + moment + ")", "governing", "M min, face (" + moment + ")", "face at x (" + u.Length + ")", "governing",
 		"|V| centreline (" + force + ")", "governing", "|V| face (" + force + ")", "governing"}
-	return append(out, Table{g.title + ": at the supports, centreline and column face", header, p.supportRows(g.Members)})
+	return append(out, Table{g.title + ": at the supports, centreline and column face" + reductionNote(p.job()), header, p.supportRows(g.Members)})
 }
 
 func columnHeader(force, moment, length string) []string {

@@ -92,6 +92,10 @@ func (p *Report) WriteDesignCSV(w io.Writer) error {
 				row = append(row, cells...)
 			}
 		}
+		if fs := memberFactors(p.job(), m); len(fs) > 0 {
+			// The values above are reduced: say by what.
+			note = append(note, "live load reduced: "+factorsCell(p.job(), fs))
+		}
 		row = append(row, strings.Join(note, "; "))
 		if err := cw.Write(row); err != nil {
 			return err

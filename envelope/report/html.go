@@ -191,6 +191,18 @@ func (p *Report) WriteHTML(w io.Writer) error {
 		h.raw("<p>No node is supported.</p>\n")
 	}
 	h.raw("</section>\n")
+	if t := d.reduction; t != nil {
+		h.raw("<section id=\"reduction\" class=\"part\">\n<h2>Live load reduction</h2>\n")
+		if err := (htmlTables{h: h, heading: "h3"}).table(*t); err != nil {
+			return err
+		}
+		if r := d.reducedReactions; r != nil {
+			if err := (htmlTables{h: h, heading: "h3"}).table(*r); err != nil {
+				return err
+			}
+		}
+		h.raw("</section>\n")
+	}
 	h.raw("<section id=\"stability\" class=\"part\">\n<h2>Frame stability</h2>\n")
 	for _, t := range d.stability {
 		if err := (htmlTables{h: h, heading: "h3"}).table(t); err != nil {

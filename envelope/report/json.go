@@ -2,11 +2,14 @@ package report
 
 import (
 	"bufio"
+	"bytes"
 	"encoding/json"
 	"fmt"
 	"io"
 	"math"
+	"runtime"
 	"strconv"
+	"sync"
 
 	"govern/envelope"
 	"govern/envelope/analysis"
@@ -26,7 +29,8 @@ const jsonSigns = "member-local: x from each member's start node; N positive in 
 // gives the same bytes.
 func (p *Report) WriteJSON(w io.Writer) error {
 	job, mo, env := p.job(), p.model(), p.res.Envelope
-	j := &jsonWriter{w: bufio.NewWriterSize(w, 1<<16)}
+	bw := bufio.NewWriterSize(w, 1<<16)
+	j := &jsonWriter{w: bw}
 	combo := make([][]byte, len(env.Combinations))
 	for i, cb := range env.Combinations {
 		combo[i] = quote(cb.Name)
@@ -86,43 +90,48 @@ func (p *Report) WriteJSON(w io.Writer) error {
 	j.raw("\n ],\n \"members\": [")
 	// Each effect in its output unit: N, V and Fx, Fy forces, M moments.
 	shown := [3]analysis.Shown{p.force, p.force, p.moment}
-	ext := func(name string, d int, e envelope.Extreme, with [3]string) {
+	ext := func(j *jsonWriter, name string, d int, e envelope.Extreme, with [3]string) {
 		s := shown[d]
 		j.raw("\"").raw(name).raw("\": {\"max\": ").num(s.Of(e.Max)).raw(", \"max_by\": ").bytes(nameOf(combo, e.MaxBy))
 		j.raw(", \"max_spans\": ").list(piece, e.MaxSpans).raw(", \"max_loaded\": ").int(e.MaxLoaded).raw(", \"max_with\": ").forces(with, e.MaxWith, shown)
 		j.raw(", \"min\": ").num(s.Of(e.Min)).raw(", \"min_by\": ").bytes(nameOf(combo, e.MinBy))
 		j.raw(", \"min_spans\": ").list(piece, e.MinSpans).raw(", \"min_loaded\": ").int(e.MinLoaded).raw(", \"min_with\": ").forces(with, e.MinWith, shown).raw("}")
 	}
-	defl := func(e envelope.Extreme) {
+	defl := func(j *jsonWriter, e envelope.Extreme) {
 		d := p.defl
 		j.raw("\"deflection\": {\"max\": ").num(d.Of(e.Max)).raw(", \"max_by\": ").bytes(nameOf(combo, e.MaxBy))
 		j.raw(", \"max_spans\": ").list(piece, e.MaxSpans).raw(", \"max_loaded\": ").int(e.MaxLoaded)
 		j.raw(", \"min\": ").num(d.Of(e.Min)).raw(", \"min_by\": ").bytes(nameOf(combo, e.MinBy))
 		j.raw(", \"min_spans\": ").list(piece, e.MinSpans).raw(", \"min_loaded\": ").int(e.MinLoaded).raw("}")
 	}
-	for i, em := range env.Members {
+	member := func(j *jsonWriter, i int) {
+		em := env.Members[i]
 		m := mo.Members[em.Member]
 		j.sep(i, ",").raw("\n  {\"name\": ").str(m.Name).raw(", \"start\": ").str(mo.Nodes[m.Start].Name)
 		j.raw(", \"end\": ").str(mo.Nodes[m.End].Name).raw(", \"length\": ").num(mo.Length(em.Member))
+		if fs := memberFactors(job, em.Member); len(fs) > 0 {
+			p.jsonFactors(j, fs)
+		}
 		j.raw(", \"stations\": [")
 		for k, st := range em.Stations {
 			j.sep(k, ",").raw("\n   {\"x\": ").num(st.X).raw(", ")
 			if st.Extra {
 				j.raw("\"face\": true, ")
 			}
-			ext("N", 0, st.N, memberForces)
+			ext(j, "N", 0, st.N, memberForces)
 			j.raw(", ")
-			ext("V", 1, st.V, memberForces)
+			ext(j, "V", 1, st.V, memberForces)
 			j.raw(", ")
-			ext("M", 2, st.M, memberForces)
+			ext(j, "M", 2, st.M, memberForces)
 			if em.Deflection != nil {
 				j.raw(", ")
-				defl(em.Deflection[k])
+				defl(j, em.Deflection[k])
 			}
 			j.raw("}")
 		}
 		j.raw("\n  ]}")
 	}
+	inOrder(j, len(env.Members), member)
 	j.raw("\n ]")
 	if len(env.Service) > 0 {
 		p.jsonSpans(j, combo)
@@ -141,7 +150,7 @@ func (p *Report) WriteJSON(w io.Writer) error {
 		for d, e := range [3]envelope.Extreme{r.Fx, r.Fy, r.M} {
 			if keys[d] != "" {
 				j.raw(", ")
-				ext(keys[d], d, e, keys)
+				ext(j, keys[d], d, e, keys)
 			}
 		}
 		j.raw("}")
@@ -170,7 +179,28 @@ func (p *Report) WriteJSON(w io.Writer) error {
 	if j.err != nil {
 		return j.err
 	}
-	return j.w.Flush()
+	return bw.Flush()
+}
+
+// jsonFactors writes a member's live load reduction factors and how each
+// was found (docs/output.md); the area in the model's length².
+func (p *Report) jsonFactors(j *jsonWriter, fs []analysis.MemberFactor) {
+	mo := p.model()
+	j.raw(", \"live_load_reduction\": [")
+	for i, f := range fs {
+		j.sep(i, ", ").raw("{\"case\": ").str(mo.Cases[f.Case].Name).raw(", \"N\": ").num(f.N).raw(", \"V\": ").num(f.V).raw(", \"M\": ").num(f.M)
+		if f.HasAccompanying {
+			a := f.Accompanying
+			j.raw(", \"accompanying\": {\"N\": ").num(a[0]).raw(", \"V\": ").num(a[1]).raw(", \"M\": ").num(a[2]).raw("}")
+		}
+		b := f.Basis
+		j.raw(", \"rule\": ").str(b.Rule).raw(", \"tributary_area\": ").num(b.Area)
+		if b.KLL != 0 {
+			j.raw(", \"kll\": ").num(b.KLL)
+		}
+		j.raw(", \"floors\": ").int(b.Floors).raw(", \"limit\": ").str(b.Limit).raw(", \"ends\": ").str(b.Ends).raw("}")
+	}
+	j.raw("]")
 }
 
 // jsonSpans writes the spans and cantilevers with their deflections.
@@ -235,9 +265,87 @@ func quote(s string) []byte {
 
 // jsonWriter appends JSON pieces to a buffered writer, keeping the first error.
 type jsonWriter struct {
-	w   *bufio.Writer
+	w   sink
 	err error
 	buf []byte
+}
+
+// sink is what a jsonWriter writes to: the file's buffered writer, or a
+// buffer for a part formatted on another processor (inOrder).
+type sink interface {
+	io.Writer
+	io.StringWriter
+}
+
+// jsonChunk is the number of members one processor formats at a time.
+const jsonChunk = 16
+
+// inOrder writes item(j, i) for i from 0 to n−1 to j, the items formatted
+// by jsonChunk on every processor, each chunk into a buffer of its own,
+// and written in order as they are done: the same bytes as one after the
+// other. At most two chunks per processor are held at once.
+func inOrder(j *jsonWriter, n int, item func(j *jsonWriter, i int)) {
+	chunks := (n + jsonChunk - 1) / jsonChunk
+	workers := min(runtime.GOMAXPROCS(0), chunks)
+	if workers <= 1 {
+		for i := range n {
+			item(j, i)
+		}
+		return
+	}
+	type part struct {
+		buf  *bytes.Buffer
+		err  error
+		done chan struct{}
+	}
+	parts := make([]part, chunks)
+	for k := range parts {
+		parts[k].done = make(chan struct{})
+	}
+	todo := make(chan int)
+	room := make(chan struct{}, 2*workers) // chunks formatted and not yet written
+	// Their buffers, reused: one per chunk that may be held at once.
+	free := make(chan *bytes.Buffer, 2*workers)
+	for range 2 * workers {
+		free <- new(bytes.Buffer)
+	}
+	go func() {
+		for k := range chunks {
+			room <- struct{}{}
+			todo <- k
+		}
+		close(todo)
+	}()
+	var wg sync.WaitGroup
+	for range workers {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			for k := range todo {
+				pt := &parts[k]
+				pt.buf = <-free
+				pt.buf.Reset()
+				w := &jsonWriter{w: pt.buf}
+				for i := k * jsonChunk; i < min(n, (k+1)*jsonChunk); i++ {
+					item(w, i)
+				}
+				pt.err = w.err
+				close(pt.done)
+			}
+		}()
+	}
+	for k := range parts {
+		pt := &parts[k]
+		<-pt.done
+		if j.err == nil {
+			j.err = pt.err
+		}
+		j.bytes(pt.buf.Bytes())
+		free <- pt.buf
+		pt.buf = nil
+		<-room
+	}
+	wg.Wait()
 }
 
 func (j *jsonWriter) raw(s string) *jsonWriter {

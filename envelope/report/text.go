@@ -98,7 +98,7 @@ func (p *Report) WriteText(w io.Writer, crossCheck bool) error {
 			}
 		}
 	}
-	for _, t := range []*Table{d.deflection, d.limits, d.reactions, d.withReactions} {
+	for _, t := range []*Table{d.deflection, d.limits, d.reactions, d.withReactions, d.reduction, d.reducedReactions} {
 		if t != nil {
 			if err := tb.table(*t); err != nil {
 				return err

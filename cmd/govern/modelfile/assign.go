@@ -3,7 +3,10 @@ package modelfile
 import (
 	"fmt"
 	"slices"
+	"strconv"
+	"strings"
 
+	"govern/envelope/reduction"
 	"govern/frame"
 )
 
@@ -14,7 +17,33 @@ type Assignment struct {
 	On      []string // its selectors, a union
 	Section string   // the section's name; "" when it gives none
 	Release string   // "" when it gives none
-	Members []int    // the members picked, in model order
+	// Reduction gives the live load reduction values it gives, in the
+	// model's units; the zero value when none.
+	Reduction reduction.Member
+	Members   []int // the members picked, in model order
+}
+
+// What says what the assignment gives, such as "section C600, release
+// both" or "kll 3", with lengths and areas in length, the model's unit.
+func (a Assignment) What(length string) string {
+	var what []string
+	if a.Section != "" {
+		what = append(what, "section "+a.Section)
+	}
+	if a.Release != "" {
+		what = append(what, "release "+a.Release)
+	}
+	g := func(v float64) string { return strconv.FormatFloat(v, 'g', 6, 64) }
+	if r := a.Reduction; r.Area > 0 {
+		what = append(what, "tributary_area "+g(r.Area)+" "+length+"²")
+	}
+	if r := a.Reduction; r.Width > 0 {
+		what = append(what, "tributary_width "+g(r.Width)+" "+length)
+	}
+	if r := a.Reduction; r.KLL > 0 {
+		what = append(what, "kll "+g(r.KLL))
+	}
+	return strings.Join(what, ", ")
 }
 
 // Overlap is a section or release given to members twice: by a table
@@ -76,8 +105,10 @@ func (r *reader) readAssigns(ts []*table) {
 	var all []pending
 	for _, t := range ts {
 		p := pending{t: t, a: Assignment{Line: t.line("")}}
-		if !t.has("section") && !t.has("release") {
-			t.fail("", problem(ErrMissing, "an [[assign]] gives section or release (or both) to the members its on selects"))
+		red, hasRed := readMemberReduction(t)
+		p.a.Reduction = red
+		if !t.has("section") && !t.has("release") && !hasRed {
+			t.fail("", problem(ErrMissing, "an [[assign]] gives section or release (or both), or tributary_area, tributary_width or kll, to the members its on selects"))
 		}
 		var okS bool
 		if t.has("section") {
@@ -98,6 +129,11 @@ func (r *reader) readAssigns(ts []*table) {
 			slices.Sort(p.a.Members)
 		}
 		t.done()
+		if hasRed {
+			for _, m := range p.a.Members {
+				r.setMemberReduction(m, red)
+			}
+		}
 		if len(p.a.Members) > 0 && (p.a.Section != "" || p.a.Release != "") {
 			all = append(all, p)
 		}

@@ -96,7 +96,7 @@ section = "B"
 
 func TestAssignErrors(t *testing.T) {
 	for _, tc := range []struct{ add, want string }{
-		{"[[assign]]\non = \"roof\"\n", `m.toml:29: assign 1: an [[assign]] gives section or release (or both) to the members its on selects`},
+		{"[[assign]]\non = \"roof\"\n", `m.toml:29: assign 1: an [[assign]] gives section or release (or both), or tributary_area, tributary_width or kll, to the members its on selects`},
 		{"[[assign]]\nsection = \"C\"\n", `m.toml:29: assign 1: on is required`},
 		{"[[assign]]\non = \"roof\"\nsection = \"C700\"\n", `m.toml:31: assign 1: section = "C700": no such section (did you mean "C600"?)`},
 		{"[[assign]]\non = \"line B & level 2\"\nsection = \"C\"\n", `m.toml:30: assign 1: selector "line B & level 2" matches no member: no member is picked by both "line B" and "level 2"`},

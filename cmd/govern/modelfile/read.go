@@ -11,6 +11,7 @@ import (
 
 	"govern/combos"
 	"govern/envelope/analysis"
+	"govern/envelope/reduction"
 	"govern/frame"
 	"govern/frame/units"
 	"govern/patterns"
@@ -147,6 +148,12 @@ type reader struct {
 	ownZone    map[[2]int]bool // member and side (0 start, 1 end) that gives its own rigid zone
 	permPat    []int           // permanent cases with pattern = true, checked against the combinations
 
+	// Live load reduction (reduction.go): each member's own values, the
+	// reduced cases, and [analysis] en1991_rule.
+	redMembers    []reduction.Member
+	reduce        []reduced
+	en1991Smaller bool
+
 	checks // model-wide checks and limits (checks.go)
 }
 
@@ -183,6 +190,7 @@ func (r *reader) read(raw map[string]any) *Job {
 		if a.oneOf("patterns", pm, "exact", "code", "full", "exhaustive") {
 			job.Patterns, _ = patterns.ParseMode(pm)
 		}
+		r.en1991Smaller = readEN1991Rule(a, false)
 		r.zones = a.boolean("rigid_zones", false)
 		r.zoneFactor = 1
 		if f, ok := a.numOK("rigid_zone_factor", 1); ok { // a factor, no unit
@@ -219,6 +227,7 @@ func (r *reader) read(raw map[string]any) *Job {
 	}
 	r.checkPermanentPatterns()
 	r.methods()
+	r.reduceCases()
 	for i, x := range r.lines() {
 		job.Lines = append(job.Lines, analysis.GridLine{Name: LineName(i), X: x})
 	}
@@ -477,6 +486,9 @@ func (r *reader) readMember(t *table) {
 			}
 		}
 		m.Release = r.release(t, m.Release)
+		if red, ok := readMemberReduction(t); ok {
+			r.setMemberReduction(i, red)
+		}
 		own := r.memberEnds(t, m, mo.Length(i))
 		r.ownZones(i, own)
 		r.readPasses(t, i)
@@ -513,6 +525,7 @@ func (r *reader) readMember(t *table) {
 		l = math.Hypot(mo.Nodes[b].X-mo.Nodes[a].X, mo.Nodes[b].Y-mo.Nodes[a].Y)
 	}
 	own := r.memberEnds(t, &ends, l)
+	red, hasRed := readMemberReduction(t)
 	t.done()
 	if okStart && okEnd {
 		r.nonEmptyName(t, name, def)
@@ -542,6 +555,9 @@ func (r *reader) readMember(t *table) {
 		return
 	}
 	r.members[name] = i
+	if hasRed {
+		r.setMemberReduction(i, red)
+	}
 	r.memberAt.set(i, t)
 	r.ownZones(i, own)
 	r.sets.set(i, true, t.has("release"))
@@ -641,14 +657,19 @@ func (r *reader) readCases(ts []*table) {
 		pattern := t.boolean("pattern", false) && kindOK
 		loads := t.array("load", func(i int, _ map[string]any) string { return fmt.Sprintf("case %q, load %d", name, i+1) })
 		read := len(r.errs)+r.more == problems // every load read, with no problem reported
+		var ranges []loadRange
 		var entered []EnteredLoad
 		if c.MemberLoads != nil {
 			entered = append(entered, EnteredLoad{Line: t.line("self_weight"), Text: "self_weight = true", Members: len(c.MemberLoads)})
 		}
 		for _, lt := range loads {
 			n, e := len(c.MemberLoads)+len(c.NodeLoads)+len(c.Displacements), len(r.errs)+r.more
+			typ, _ := lt.m["type"].(string)
+			lr := loadRange{t: lt, typ: typ, from: len(c.MemberLoads), nodesFrom: len(c.NodeLoads)}
 			el := EnteredLoad{Line: lt.line(""), Text: entryText(lt.m), FirstMember: len(c.MemberLoads), FirstNode: len(c.NodeLoads), FirstDisplacement: len(c.Displacements)}
 			r.readLoad(lt, &c)
+			lr.to, lr.nodesTo = len(c.MemberLoads), len(c.NodeLoads)
+			ranges = append(ranges, lr)
 			el.Members, el.Nodes, el.Displacements = len(c.MemberLoads)-el.FirstMember, len(c.NodeLoads)-el.FirstNode, len(c.Displacements)-el.FirstDisplacement
 			entered = append(entered, el)
 			if len(c.MemberLoads)+len(c.NodeLoads)+len(c.Displacements) == n || len(r.errs)+r.more != e {
@@ -679,6 +700,7 @@ func (r *reader) readCases(ts []*table) {
 			r.job.Patterned = append(r.job.Patterned, len(mo.Cases))
 		}
 		info := r.readCaseInfo(t)
+		r.readCaseReduction(t, len(mo.Cases), &c, cc.Kind, kindOK, ranges)
 		t.done()
 		mo.Cases = append(mo.Cases, c)
 		r.job.Cases = append(r.job.Cases, cc)

@@ -305,6 +305,7 @@ self_weight = true           # the sections' weight along every member
 name = "L"
 kind = "live"
 pattern = true               # placed span by span
+# reduction = "asce7-16"     # live load reduction by tributary area (or "en1991")
 `, tx.dead)
 	var floors []string
 	for lv := 1; lv < n; lv++ {

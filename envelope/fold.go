@@ -1,0 +1,469 @@
+package envelope
+
+import (
+	"math"
+	"slices"
+
+	"govern/frame"
+)
+
+// Folding, for exact placement (the envelope's hot path). A pattern piece
+// that does not load a member leaves it unloaded between its ends: along
+// it N and V are constant and M = M₀ + x·V is linear. So, per member,
+//
+//   - each column's end forces are computed once, from the contiguous
+//     displacement rows of the member's ends (frame.Solution.EndForcesEach);
+//   - for N and V the pieces that do not load the member are classified
+//     (adverse either way, or round-off), counted, summed and ranked once
+//     for all the stations: the fold (foldCase);
+//   - for M each such piece is classified at each station from its M₀ and
+//     V, with no table of station values;
+//   - the pieces that load the member (usually one: the span itself), the
+//     original cases and the member's own loads are evaluated exactly at
+//     every station, as before.
+//
+// Each piece is classified from the very numbers the unfolded path
+// computes (frame.Solution.StationsTo), so the same pieces are loaded,
+// counted and listed; only the order of the sums changes (the fold's
+// sums first, then the pieces that load the member; the concurrent M of
+// the pieces folded for N or V is ΣM₀ + x·ΣV), which changes results by
+// round-off (a few units in the 16th digit). The spans lists do not
+// depend on the order pieces are met (the heap keeps the largest by size,
+// ties to the earlier piece).
+//
+// What counts as round-off in the member (noiseAt) is, as before, 1e-9 of
+// the largest size of each effect over every column and station; for a
+// linear M the largest size is at the member's ends, which are stations.
+//
+// What other terms would need of it: the fold keeps, per patterned case,
+// the station's sums of the units of each sign (exactPlacement.sum, as
+// the unfolded scan does), and the original cases' values in w.ev. Member
+// factors (live load reduction, factors.go) scale every column of a case
+// by one factor per effect, so they could scale those sums instead; and a
+// second-order member's station term could be folded as the M of each
+// piece is. Neither is done yet: such members take the unfolded path.
+//
+// A member is folded only without member factors (live load reduction:
+// every column is then scaled by its case's factor, factors.go), only in a
+// first-order solution (in second order M
+// also carries N times the member's displacement: frame.Solution.Unloaded),
+// only with exact placement of the force envelope, and
+// when no concentrated moment acts exactly at one of its stations (the
+// stations' values past them are then formed from the whole table, the
+// unfolded path); a station whose extremes are not finite is formed again
+// on the unfolded path, which names the case at fault.
+
+// fold is one goroutine's folded member.
+type fold struct {
+	ends  [][6]float64   // every column's local forces at the member's start (StartForcesEach)
+	orig  []frame.Forces // the original cases' stations: c*ns+i
+	cases []foldCase     // per patterned case
+	mv    []float64      // scratch: the M of each unit at the station
+	// seed holds, per patterned case and sign, the smallest size of M the
+	// list kept at the previous station of the member (0 if not full).
+	seed [][2]float64
+}
+
+// foldCase is one patterned case folded over the current member.
+type foldCase struct {
+	// The units that load the member (indices into the case's units,
+	// ascending) and their values at the stations (k*ns+i for own[k]).
+	own   []int
+	ownAt []frame.Forces
+	// Every unit's N, and V and M₀ (M = M₀ + x·V), zero for the units
+	// that load the member, which are taken from ownAt instead.
+	n, v, a []float64
+	// The fold over the units that do not load the member, for N (j = 0)
+	// and V (j = 1): per class (0 positive, 1 round-off) the sums of N, V
+	// and M₀; per sign (0 positive, 1 negative) the count, the largest
+	// size and the most influential units (see exactPlacement).
+	sum   [2][2][3]float64
+	count [2][2]int
+	big   [2][2]float64
+	top   [2][2][]candidate
+	totN  float64 // their sums of N and V
+	totV  float64
+}
+
+// folding is whether members are folded at all; the tests turn it off to
+// compare the two paths.
+var folding = true
+
+// foldable reports whether member m's forces can be folded (see above).
+func (e *evaluator) foldable(w *work, sol *frame.Solution, m int) (*exactPlacement, bool) {
+	pl, ok := w.place.(*exactPlacement)
+	if !folding || !ok || !sol.Unloaded(m) || e.fac != nil || e.parts != nil || e.nEff != 3 || e.unitCase == nil {
+		return nil, false
+	}
+	if sol.HasMomentLoads() {
+		ns, nc := len(w.xs), len(e.mo.Cases)
+		w.jump = grow(w.jump, ns*nc)
+		if sol.MomentJumpsTo(w.jump, m, w.xs) {
+			return nil, false
+		}
+	}
+	return pl, true
+}
+
+// load folds member m (stations w.xs) into f and sets w.noiseAt.
+func (f *fold) load(e *evaluator, w *work, sol *frame.Solution, m int) {
+	ns, nc := len(w.xs), len(e.mo.Cases)
+	f.ends = grow(f.ends, nc)
+	sol.StartForcesEach(f.ends, m) // the start gives N, V, M and the deflections anywhere
+	var big [3]float64             // largest sizes, for the round-off
+	see := func(v frame.Forces) {
+		if a := math.Abs(v.N); a > big[0] {
+			big[0] = a
+		}
+		if a := math.Abs(v.V); a > big[1] {
+			big[1] = a
+		}
+		if a := math.Abs(v.M); a > big[2] {
+			big[2] = a
+		}
+	}
+	// The original cases, and the units that load the member, exactly at
+	// every station, taken inside the member at its start.
+	exact := func(dst []frame.Forces, c int) {
+		sol.StationsFrom(dst, c, m, &f.ends[c], w.xs)
+		s := sol.StartLoad(c, m)
+		dst[0].N += s.N
+		dst[0].V += s.V
+		for _, v := range dst {
+			see(v)
+		}
+	}
+	f.orig = grow(f.orig, e.nOrig*ns)
+	for c := range e.nOrig {
+		exact(f.orig[c*ns:(c+1)*ns], c)
+	}
+	if cap(f.cases) < len(e.lay.Patterned) {
+		f.cases = make([]foldCase, len(e.lay.Patterned))
+	}
+	f.cases = f.cases[:len(e.lay.Patterned)]
+	f.seed = grow(f.seed, len(e.lay.Patterned))
+	for p := range f.cases {
+		fc := &f.cases[p]
+		fc.own, fc.ownAt = fc.own[:0], fc.ownAt[:0]
+	}
+	for _, c32 := range sol.CasesOn(m) {
+		c := int(c32)
+		if c < e.nOrig {
+			continue
+		}
+		p := e.unitCase[c-e.nOrig]
+		fc := &f.cases[p]
+		fc.own = append(fc.own, c-e.first[p])
+		at := len(fc.ownAt)
+		fc.ownAt = slices.Grow(fc.ownAt, ns)[:at+ns]
+		exact(fc.ownAt[at:at+ns], c)
+	}
+	l := w.xs[ns-1]
+	for p, pc := range e.lay.Patterned {
+		fc := &f.cases[p]
+		nu := len(pc.Units)
+		fc.n, fc.v, fc.a = grow(fc.n, nu), grow(fc.v, nu), grow(fc.a, nu)
+		ends := f.ends[e.first[p] : e.first[p]+nu]
+		for u := range ends {
+			g := &ends[u]
+			fc.n[u], fc.v[u], fc.a[u] = -g[0], g[1], -g[2]
+		}
+		for _, u := range fc.own { // seen above, exactly
+			fc.n[u], fc.v[u], fc.a[u] = 0, 0, 0
+		}
+		for u, a := range fc.a {
+			see(frame.Forces{N: fc.n[u], V: fc.v[u], M: a})
+			see(frame.Forces{M: a + l*fc.v[u]})
+		}
+	}
+	for j := range big {
+		w.noiseAt[j] = big[j] * roundOff
+	}
+	for p := range f.cases {
+		f.cases[p].fold(w)
+	}
+}
+
+// fold forms fc's fold for N and V over the units that do not load the
+// member (those of own have zero entries: round-off, adding nothing).
+func (fc *foldCase) fold(w *work) {
+	fc.sum, fc.count, fc.big = [2][2][3]float64{}, [2][2]int{}, [2][2]float64{}
+	fc.totN, fc.totV = 0, 0
+	for u, n := range fc.n {
+		v, a := fc.v[u], fc.a[u]
+		fc.totN += n
+		fc.totV += v
+		for j, x := range [2]float64{n, v} {
+			var s int
+			var size float64
+			switch {
+			case x > w.noiseAt[j]:
+				s, size = 0, x
+				t := &fc.sum[j][0]
+				t[0] += n
+				t[1] += v
+				t[2] += a
+			case x < -w.noiseAt[j]:
+				s, size = 1, -x
+			default:
+				t := &fc.sum[j][1]
+				t[0] += n
+				t[1] += v
+				t[2] += a
+				continue
+			}
+			fc.count[j][s]++
+			if size > fc.big[j][s] {
+				fc.big[j][s] = size
+			}
+		}
+	}
+	// The most influential, with the threshold seeded from the largest:
+	// most units fall short of it at one comparison.
+	// One pass for N and V, either sign.
+	var thr [2][2]float64
+	for j := range 2 {
+		for s := range 2 {
+			thr[j][s] = w.share * fc.big[j][s]
+			fc.top[j][s] = fc.top[j][s][:0]
+		}
+	}
+	for u, n := range fc.n {
+		for j, x := range [2]float64{n, fc.v[u]} {
+			s, a := 0, x
+			if x < 0 {
+				s, a = 1, -x
+			}
+			if a > w.noiseAt[j] && a >= thr[j][s] {
+				h := keepLargest(fc.top[j][s], candidate{piece: u, a: a}, w.limit)
+				fc.top[j][s] = h
+				if len(h) == w.limit && h[0].a >= thr[j][s] {
+					thr[j][s] = math.Nextafter(h[0].a, math.Inf(1))
+				}
+			}
+		}
+	}
+}
+
+// rank adds to h, a heap of keepLargest, the units of vals of the sign
+// asked for (past the round-off noise), by size, that reach thr.
+func rank(h []candidate, vals []float64, noise float64, negative bool, thr float64, limit int) []candidate {
+	for u, x := range vals {
+		if negative {
+			x = -x
+		}
+		if x > noise && x >= thr {
+			h = keepLargest(h, candidate{piece: u, a: x}, limit)
+			if len(h) == limit && h[0].a >= thr {
+				thr = math.Nextafter(h[0].a, math.Inf(1))
+			}
+		}
+	}
+	return h
+}
+
+// scanFolded is scan at station i of the folded member f: the same sums,
+// largest sizes, counts and most influential units per patterned case.
+func (pl *exactPlacement) scanFolded(e *evaluator, w *work, f *fold, i int) {
+	ns := len(w.xs)
+	x := w.xs[i]
+	for p := range e.lay.Patterned {
+		fc := &f.cases[p]
+		var sum [3][2][3]float64
+		var zero [3][3]float64
+		var big [3][2]float64
+		var count [3][2]int
+		var tot [3]float64
+		top := &pl.top[p]
+		// N and V: the fold.
+		tot[0], tot[1] = fc.totN, fc.totV
+		for j := range 2 {
+			s := &fc.sum[j]
+			sum[j][0] = [3]float64{s[0][0], s[0][1], s[0][2] + x*s[0][1]}
+			zero[j] = [3]float64{s[1][0], s[1][1], s[1][2] + x*s[1][1]}
+			big[j], count[j] = fc.big[j], fc.count[j]
+			top[j][0] = append(top[j][0][:0], fc.top[j][0]...)
+			top[j][1] = append(top[j][1][:0], fc.top[j][1]...)
+		}
+		// M: every unit classified at x, the largest sizes first so that
+		// the threshold for ranking is seeded with them.
+		f.mv = grow(f.mv, len(fc.n))
+		mv := f.mv
+		hi, lo := 0.0, 0.0
+		for u, a := range fc.a {
+			m := a + x*fc.v[u]
+			mv[u] = m
+			if m > hi {
+				hi = m
+			}
+			if m < lo {
+				lo = m
+			}
+		}
+		nz := w.noise[2]
+		if hi > nz {
+			big[2][0] = hi
+		}
+		if -lo > nz {
+			big[2][1] = -lo
+		}
+		for k := range fc.own {
+			v := fc.ownAt[k*ns+i]
+			for j, y := range [3]float64{v.N, v.V, v.M} {
+				if y > w.noise[j] && y > big[j][0] {
+					big[j][0] = y
+				} else if y < -w.noise[j] && -y > big[j][1] {
+					big[j][1] = -y
+				}
+			}
+		}
+		// Ranking: a unit must reach w.share of the largest; and, seeded
+		// from the previous station of the member, half the smallest size
+		// the list kept there. When fewer than the list's length reach the
+		// seed, the units are ranked again without it (below); when enough
+		// do, those are the largest, the seed made no difference, and
+		// far fewer units went through the heap.
+		cut := [2]float64{w.share * big[2][0], w.share * big[2][1]}
+		thr := cut
+		if i > 0 && w.limit != math.MaxInt {
+			for s := range thr {
+				thr[s] = max(thr[s], f.seed[p][s]/2)
+			}
+		}
+		top[2][0], top[2][1] = top[2][0][:0], top[2][1][:0]
+		var pos, zer [3]float64
+		var m0 float64
+		for u, m := range mv {
+			m0 += m
+			switch {
+			case m > nz:
+				pos[0] += fc.n[u]
+				pos[1] += fc.v[u]
+				pos[2] += m
+				count[2][0]++
+				if m >= thr[0] {
+					h := keepLargest(top[2][0], candidate{piece: u, a: m}, w.limit)
+					top[2][0] = h
+					if len(h) == w.limit && h[0].a >= thr[0] {
+						thr[0] = math.Nextafter(h[0].a, math.Inf(1))
+					}
+				}
+			case m < -nz:
+				count[2][1]++
+				if -m >= thr[1] {
+					h := keepLargest(top[2][1], candidate{piece: u, a: -m}, w.limit)
+					top[2][1] = h
+					if len(h) == w.limit && h[0].a >= thr[1] {
+						thr[1] = math.Nextafter(h[0].a, math.Inf(1))
+					}
+				}
+			default:
+				zer[0] += fc.n[u]
+				zer[1] += fc.v[u]
+				zer[2] += m
+			}
+		}
+		sum[2][0], zero[2], tot[2] = pos, zer, m0
+		for s := range 2 {
+			if len(top[2][s]) < w.limit && thr[s] > cut[s] {
+				top[2][s] = rank(top[2][s][:0], mv, nz, s == 1, cut[s], w.limit)
+			}
+			f.seed[p][s] = 0
+			if h := top[2][s]; len(h) == w.limit {
+				f.seed[p][s] = h[0].a
+			}
+		}
+		// The units that load the member, exactly.
+		for k, u := range fc.own {
+			v := fc.ownAt[k*ns+i]
+			vv := [3]float64{v.N, v.V, v.M}
+			tot[0] += v.N
+			tot[1] += v.V
+			tot[2] += v.M
+			for j, y := range vv {
+				var s int
+				switch {
+				case y > w.noise[j]:
+					t := &sum[j][0]
+					t[0] += v.N
+					t[1] += v.V
+					t[2] += v.M
+				case y < -w.noise[j]:
+					s, y = 1, -y
+				default:
+					z := &zero[j]
+					z[0] += v.N
+					z[1] += v.V
+					z[2] += v.M
+					continue
+				}
+				count[j][s]++
+				if y >= w.share*big[j][s] {
+					top[j][s] = keepLargest(top[j][s], candidate{piece: u, a: y}, w.limit)
+				}
+			}
+		}
+		for j := range 3 {
+			for q := range 3 {
+				sum[j][1][q] = tot[q] - sum[j][0][q] - zero[j][q]
+			}
+		}
+		pl.sum[p], pl.big[p], pl.count[p] = sum, big, count
+	}
+}
+
+// scanOne is scan of one effect (the deflections' evaluator e), reading
+// column c's value at station i from vals[c*ns+i] rather than from w.ev:
+// the same sums in the same order, largest sizes, counts and most
+// influential units, the ranking's threshold seeded with the largest size
+// (a first pass), so that most units are rejected at one comparison.
+func (pl *exactPlacement) scanOne(e *evaluator, w *work, vals []float64, ns, i int) {
+	nz := w.noise[0]
+	for p, pc := range e.lay.Patterned {
+		lo := e.first[p]
+		nu := len(pc.Units)
+		var big [2]float64
+		for u := range nu {
+			x := vals[(lo+u)*ns+i]
+			if x > nz && x > big[0] {
+				big[0] = x
+			} else if x < -nz && -x > big[1] {
+				big[1] = -x
+			}
+		}
+		thr := [2]float64{w.share * big[0], w.share * big[1]}
+		top := &pl.top[p]
+		top[0][0], top[0][1] = top[0][0][:0], top[0][1][:0]
+		var tot, pos, zero float64
+		var count [2]int
+		for u := range nu {
+			x := vals[(lo+u)*ns+i]
+			tot += x
+			s, a := 0, x
+			switch {
+			case x > nz:
+				pos += x
+			case x < -nz:
+				s, a = 1, -x
+			default:
+				zero += x
+				continue
+			}
+			count[s]++
+			if a >= thr[s] {
+				h := keepLargest(top[0][s], candidate{piece: u, a: a}, w.limit)
+				top[0][s] = h
+				if len(h) == w.limit && h[0].a >= thr[s] {
+					thr[s] = math.Nextafter(h[0].a, math.Inf(1))
+				}
+			}
+		}
+		var sum [3][2][3]float64
+		sum[0][0][0] = pos
+		sum[0][1][0] = tot - pos - zero
+		// The other components are zero, as scan leaves them: tot − 0 − 0.
+		pl.sum[p] = sum
+		pl.big[p] = [3][2]float64{big}
+		pl.count[p] = [3][2]int{count}
+	}
+}

@@ -1,0 +1,130 @@
+package report
+
+import (
+	"bytes"
+	"context"
+	"errors"
+	"fmt"
+	"runtime"
+	"testing"
+
+	"govern/combos"
+	"govern/envelope/analysis"
+	"govern/frame"
+)
+
+// gridResult analyses a fixed-base frame of bays × storeys (6 m, 3.5 m)
+// with dead load on the beams and wind at each floor: enough members for
+// the JSON to be formatted in several chunks.
+func gridResult(t testing.TB, bays, storeys int) *analysis.Result {
+	t.Helper()
+	mo := &frame.Model{Sections: []frame.Section{{Name: "S", E: 30e6, A: 0.2, I: 5e-3}}}
+	id := func(i, j int) int { return j*(bays+1) + i }
+	for j := 0; j <= storeys; j++ {
+		for i := 0; i <= bays; i++ {
+			s := frame.Free
+			if j == 0 {
+				s = frame.Fixed
+			}
+			mo.Nodes = append(mo.Nodes, frame.Node{Name: fmt.Sprintf("n%d-%d", i, j), X: 6 * float64(i), Y: 3.5 * float64(j), Support: s})
+		}
+	}
+	d, w := frame.Case{Name: "D"}, frame.Case{Name: "W"}
+	for j := 1; j <= storeys; j++ {
+		for i := 0; i <= bays; i++ {
+			mo.Members = append(mo.Members, frame.Member{Name: fmt.Sprintf("c%d-%d", i, j), Start: id(i, j-1), End: id(i, j)})
+		}
+		for i := 1; i <= bays; i++ {
+			d.MemberLoads = append(d.MemberLoads, frame.MemberLoad{Member: len(mo.Members), To: 6, W: 20, WEnd: 20})
+			mo.Members = append(mo.Members, frame.Member{Name: fmt.Sprintf("b%d-%d", i, j), Start: id(i-1, j), End: id(i, j)})
+		}
+		w.NodeLoads = append(w.NodeLoads, frame.NodeLoad{Node: id(0, j), Fx: 10})
+	}
+	mo.Cases = []frame.Case{d, w}
+	job := &analysis.Job{
+		Title: "grid",
+		Units: analysis.Units{Force: "kN", Length: "m"},
+		Model: mo,
+		Cases: []combos.Case{{Name: "D", Kind: combos.Dead}, {Name: "W", Kind: combos.Wind}},
+		Combinations: []combos.Combination{
+			{Name: "1.2D+1.0W", Terms: []combos.Term{{Case: 0, Factor: 1.2}, {Case: 1, Factor: 1}}},
+			{Name: "0.9D-1.0W", Terms: []combos.Term{{Case: 0, Factor: 0.9}, {Case: 1, Factor: -1}}},
+		},
+		Settings: analysis.Settings{Stations: 5},
+	}
+	res, err := analysis.Run(context.Background(), job, analysis.Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	return res
+}
+
+// The members are formatted in chunks on every processor and written in
+// order: the same bytes on one processor as on two.
+func TestJSONIsTheSameOnOneOrTwoProcessors(t *testing.T) {
+	res := gridResult(t, 5, 9) // 99 members: 7 chunks
+	if len(res.Envelope.Members) <= 2*jsonChunk {
+		t.Fatalf("%d members: too few for several chunks", len(res.Envelope.Members))
+	}
+	var out [2]bytes.Buffer
+	for i, procs := range []int{1, 2} {
+		func() {
+			defer runtime.GOMAXPROCS(runtime.GOMAXPROCS(procs))
+			if err := New(res).WriteJSON(&out[i]); err != nil {
+				t.Fatal(err)
+			}
+		}()
+	}
+	if !bytes.Equal(out[0].Bytes(), out[1].Bytes()) {
+		t.Error("the JSON differs on one processor and on two")
+	}
+	if !bytes.Contains(out[1].Bytes(), []byte(`"name": "b5-9"`)) {
+		t.Error("the last member is missing")
+	}
+}
+
+// failAfter accepts n bytes, then fails every write.
+type failAfter struct{ n int }
+
+var errFull = errors.New("disk full")
+
+func (f *failAfter) Write(p []byte) (int, error) {
+	if len(p) > f.n {
+		k := f.n
+		f.n = 0
+		return k, errFull
+	}
+	f.n -= len(p)
+	return len(p), nil
+}
+
+// A write that fails while the members are being formatted on two
+// processors is reported, and nothing waits for ever.
+func TestJSONWriteErrorWhileFormattingInParallel(t *testing.T) {
+	res := gridResult(t, 5, 9)
+	defer runtime.GOMAXPROCS(runtime.GOMAXPROCS(2))
+	if err := New(res).WriteJSON(&failAfter{n: 100_000}); !errors.Is(err, errFull) {
+		t.Errorf("error %v, want %v", err, errFull)
+	}
+}
+
+// BenchmarkWriteJSON measures the JSON file of a frame's envelopes (no
+// patterns: 11 numbers and three names per effect at each station); run
+// with -cpu 1,2 to see the formatting shared between processors.
+func BenchmarkWriteJSON(b *testing.B) {
+	for _, size := range []struct{ bays, storeys int }{{5, 9}, {30, 60}} {
+		res := gridResult(b, size.bays, size.storeys)
+		p := New(res)
+		b.Run(fmt.Sprintf("%dx%d", size.bays, size.storeys), func(b *testing.B) {
+			b.ReportAllocs()
+			var out bytes.Buffer
+			for b.Loop() {
+				out.Reset()
+				if err := p.WriteJSON(&out); err != nil {
+					b.Fatal(err)
+				}
+			}
+			b.SetBytes(int64(out.Len()))
+		})
+	}
+}

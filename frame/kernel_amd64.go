@@ -1,0 +1,32 @@
+//go:build amd64 && !purego
+
+package frame
+
+// combine32 is combine for one row of a packed block of 32 columns, four
+// at a time with AVX: dst[c] = (dst[c] + Σ negs[t]·base[32·rows[t]+c]) · d
+// for c from 0 to 31, each product rounded and then added, in the order
+// of t (no fused multiply-add), so that every sum is the pure-Go one to
+// the last bit.
+//
+//go:noescape
+func combine32(dst, base *float64, rows *int32, negs *float64, n int, d float64)
+
+// cpuid and xgetbv are the instructions of those names.
+func cpuid(eaxArg, ecxArg uint32) (eax, ebx, ecx, edx uint32)
+func xgetbv() (eax, edx uint32)
+
+// hasAVX reports whether the processor and the operating system support
+// AVX: the processor's flags for AVX and OSXSAVE, and the operating
+// system saving the YMM registers (XCR0 bits 1 and 2).
+func hasAVX() bool {
+	_, _, ecx, _ := cpuid(1, 0)
+	if ecx&(1<<27) == 0 || ecx&(1<<28) == 0 {
+		return false
+	}
+	eax, _ := xgetbv()
+	return eax&6 == 6
+}
+
+// useAVX is whether bandSolve uses combine32; the tests turn it off to
+// check the pure-Go path, which other processors take.
+var useAVX = hasAVX()

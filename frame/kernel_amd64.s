@@ -1,0 +1,87 @@
+//go:build amd64 && !purego
+
+#include "textflag.h"
+
+// func combine32(dst, base *float64, rows *int32, negs *float64, n int, d float64)
+TEXT ·combine32(SB), NOSPLIT, $0-48
+	MOVQ dst+0(FP), DI
+	MOVQ base+8(FP), SI
+	MOVQ rows+16(FP), BX
+	MOVQ negs+24(FP), DX
+	MOVQ n+32(FP), CX
+	VMOVUPD 0(DI), Y0
+	VMOVUPD 32(DI), Y1
+	VMOVUPD 64(DI), Y2
+	VMOVUPD 96(DI), Y3
+	VMOVUPD 128(DI), Y4
+	VMOVUPD 160(DI), Y5
+	VMOVUPD 192(DI), Y6
+	VMOVUPD 224(DI), Y7
+	TESTQ CX, CX
+	JE done
+
+loop:
+	MOVLQSX (BX), AX
+	SHLQ $8, AX // a row of 32 is 256 bytes
+	ADDQ SI, AX
+	VBROADCASTSD (DX), Y8
+	VMULPD 0(AX), Y8, Y9
+	VMULPD 32(AX), Y8, Y10
+	VMULPD 64(AX), Y8, Y11
+	VMULPD 96(AX), Y8, Y12
+	VADDPD Y9, Y0, Y0
+	VADDPD Y10, Y1, Y1
+	VADDPD Y11, Y2, Y2
+	VADDPD Y12, Y3, Y3
+	VMULPD 128(AX), Y8, Y13
+	VMULPD 160(AX), Y8, Y14
+	VMULPD 192(AX), Y8, Y15
+	VMULPD 224(AX), Y8, Y9
+	VADDPD Y13, Y4, Y4
+	VADDPD Y14, Y5, Y5
+	VADDPD Y15, Y6, Y6
+	VADDPD Y9, Y7, Y7
+	ADDQ $4, BX
+	ADDQ $8, DX
+	DECQ CX
+	JNZ loop
+
+done:
+	VBROADCASTSD d+40(FP), Y8
+	VMULPD Y8, Y0, Y0
+	VMULPD Y8, Y1, Y1
+	VMULPD Y8, Y2, Y2
+	VMULPD Y8, Y3, Y3
+	VMULPD Y8, Y4, Y4
+	VMULPD Y8, Y5, Y5
+	VMULPD Y8, Y6, Y6
+	VMULPD Y8, Y7, Y7
+	VMOVUPD Y0, 0(DI)
+	VMOVUPD Y1, 32(DI)
+	VMOVUPD Y2, 64(DI)
+	VMOVUPD Y3, 96(DI)
+	VMOVUPD Y4, 128(DI)
+	VMOVUPD Y5, 160(DI)
+	VMOVUPD Y6, 192(DI)
+	VMOVUPD Y7, 224(DI)
+	VZEROUPPER
+	RET
+
+// func cpuid(eaxArg, ecxArg uint32) (eax, ebx, ecx, edx uint32)
+TEXT ·cpuid(SB), NOSPLIT, $0-24
+	MOVL eaxArg+0(FP), AX
+	MOVL ecxArg+4(FP), CX
+	CPUID
+	MOVL AX, eax+8(FP)
+	MOVL BX, ebx+12(FP)
+	MOVL CX, ecx+16(FP)
+	MOVL DX, edx+20(FP)
+	RET
+
+// func xgetbv() (eax, edx uint32)
+TEXT ·xgetbv(SB), NOSPLIT, $0-8
+	MOVL $0, CX
+	XGETBV
+	MOVL AX, eax+0(FP)
+	MOVL DX, edx+4(FP)
+	RET

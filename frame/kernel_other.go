@@ -1,0 +1,12 @@
+//go:build !amd64 || purego
+
+package frame
+
+// useAVX is false: the pure-Go substitution everywhere.
+var useAVX = false
+
+func combine32(dst, base *float64, rows *int32, negs *float64, n int, d float64) {
+	panic("frame: combine32 without AVX")
+}
+
+func hasAVX() bool { return false }

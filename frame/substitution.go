@@ -1,0 +1,243 @@
+package frame
+
+import (
+	"runtime"
+	"sync"
+)
+
+// solveBlock is the number of load columns one processor substitutes at a
+// time: 32 rows' worth of a block (the rows one row's update reads) stay
+// in the first-level cache for the half-bandwidths of tall frames.
+const solveBlock = 32
+
+// bandSolve overwrites the n × nrhs row-major matrix x with U⁻¹ U⁻ᵀ x,
+// where u is an upper band Cholesky factor (row-major, kb superdiagonals).
+// Columns are split into blocks of solveBlock shared among the processors;
+// within a block each row is formed at once from the rows it depends on
+// (eight columns at a time held in registers, each row read but not
+// written), with the terms added in the order of the row-by-row vector
+// updates, so that the result is the same to the last bit, whatever the
+// number of processors. Rows above a block's first non-zero stay zero in
+// the forward substitution: a load on one member fills only a few rows.
+func bandSolve(u []float64, n, kb int, x []float64, nrhs int) {
+	if nrhs == 0 {
+		return
+	}
+	newBandSolver(u, n, kb).solve(x, nrhs)
+}
+
+// bandSolver is bandSolve for one factor used many times (an iteration):
+// the factor's terms are listed once.
+type bandSolver struct {
+	u        []float64
+	n, kb    int
+	fwd, bwd terms
+}
+
+func newBandSolver(u []float64, n, kb int) *bandSolver {
+	return &bandSolver{u: u, n: n, kb: kb, fwd: newTerms(u, n, kb, true), bwd: newTerms(u, n, kb, false)}
+}
+
+// solve is bandSolve with the solver's factor.
+func (bs *bandSolver) solve(x []float64, nrhs int) {
+	if nrhs == 0 {
+		return
+	}
+	u, n, kb := bs.u, bs.n, bs.kb
+	fwd, bwd := bs.fwd, bs.bwd
+	nb := (nrhs + solveBlock - 1) / solveBlock
+	workers := min(runtime.GOMAXPROCS(0), nb)
+	var wg sync.WaitGroup
+	next := make(chan int, nb)
+	for b := range nb {
+		next <- b
+	}
+	close(next)
+	for range workers {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			offs := make([]int, 0, kb)
+			buf := make([]float64, n*solveBlock)
+			for b := range next {
+				lo, hi := b*solveBlock, min((b+1)*solveBlock, nrhs)
+				// The block's columns packed, rows of hi−lo: the rows one
+				// row reads are then a few kilobytes apart, not nrhs words.
+				bw := hi - lo
+				for i := range n {
+					copy(buf[i*bw:(i+1)*bw], x[i*nrhs+lo:i*nrhs+hi])
+				}
+				substitute(&fwd, &bwd, u, n, kb, buf[:n*bw], bw, offs)
+				for i := range n {
+					copy(x[i*nrhs+lo:i*nrhs+hi], buf[i*bw:(i+1)*bw])
+				}
+			}
+		}()
+	}
+	wg.Wait()
+}
+
+// terms lists, for each row of one substitution, the non-zero terms of
+// the factor it takes: the rows it reads (rows[at[i]:at[i+1]], ascending)
+// and minus their factors (negs, alike).
+type terms struct {
+	at   []int
+	rows []int32
+	negs []float64
+}
+
+// newTerms lists the terms of the forward substitution, Uᵀ y = x (row i
+// reads rows k from i − kb up to i − 1 with U[k][i]), or of the backward
+// one, U x = y (row i reads rows i + j for j from 1 up with U[i][i+j]),
+// in storage of exactly their number: it is allocated while the solution
+// is live, and adds to the run's peak memory.
+func newTerms(u []float64, n, kb int, forward bool) terms {
+	w := kb + 1
+	each := func(i int, f func(k int, v float64)) {
+		if forward {
+			for k := max(0, i-kb); k < i; k++ {
+				if uki := u[k*w+i-k]; uki != 0 {
+					f(k, uki)
+				}
+			}
+			return
+		}
+		for j := 1; j < w && i+j < n; j++ {
+			if uij := u[i*w+j]; uij != 0 {
+				f(i+j, uij)
+			}
+		}
+	}
+	t := terms{at: make([]int, n+1)}
+	for i := range n {
+		c := 0
+		each(i, func(int, float64) { c++ })
+		t.at[i+1] = t.at[i] + c
+	}
+	t.rows, t.negs = make([]int32, 0, t.at[n]), make([]float64, 0, t.at[n])
+	for i := range n {
+		each(i, func(k int, v float64) {
+			t.rows = append(t.rows, int32(k))
+			t.negs = append(t.negs, -v)
+		})
+	}
+	return t
+}
+
+// substitute solves the packed block x, n rows of bw columns (see
+// bandSolve); offs is scratch for the rows' offsets in x.
+func substitute(fwd, bwd *terms, u []float64, n, kb int, x []float64, bw int, offs []int) {
+	w := kb + 1
+	start := n
+	for i, v := range x {
+		if v != 0 {
+			start = i / bw
+			break
+		}
+	}
+	// Forward: Uᵀ y = x, y[i] = (x[i] − Σ U[k][i] y[k]) / U[i][i] over the
+	// rows k from max(start, i − kb) up: rows above start are zero.
+	for i := start; i < n; i++ {
+		a, b := fwd.at[i], fwd.at[i+1]
+		for a < b && int(fwd.rows[a]) < start {
+			a++
+		}
+		combineRow(x, i, bw, fwd.rows[a:b], fwd.negs[a:b], 1/u[i*w], offs)
+	}
+	// Backward: U x = y, x[i] = (y[i] − Σ U[i][i+j] x[i+j]) / U[i][i]
+	// over j from 1 up.
+	for i := n - 1; i >= 0; i-- {
+		a, b := bwd.at[i], bwd.at[i+1]
+		combineRow(x, i, bw, bwd.rows[a:b], bwd.negs[a:b], 1/u[i*w], offs)
+	}
+}
+
+// combineRow forms row i of the packed block x (rows of bw) from the rows
+// it reads and minus their factors (see combine): by combine32 for a
+// whole block where the processor has AVX. offs is scratch.
+func combineRow(x []float64, i, bw int, rows []int32, negs []float64, d float64, offs []int) {
+	if useAVX && bw == solveBlock && len(rows) > 0 {
+		// Every row read lies within x.
+		_ = x[i*bw+solveBlock-1]
+		_ = x[int(rows[len(rows)-1])*bw+solveBlock-1]
+		_ = negs[len(rows)-1]
+		combine32(&x[i*bw], &x[0], &rows[0], &negs[0], len(rows), d)
+		return
+	}
+	offs = offs[:0]
+	for _, k := range rows {
+		offs = append(offs, int(k)*bw)
+	}
+	combine(x, i*bw, 0, bw, offs, negs, d)
+}
+
+// combine sets x[at+c], for c from lo to hi, to (x[at+c] + Σ negs[t]·x[rows[t]+c]) · d,
+// the terms added in order.
+func combine(x []float64, at, lo, hi int, rows []int, negs []float64, d float64) {
+	negs = negs[:len(rows)]
+	c := lo
+	for ; c+8 <= hi; c += 8 {
+		y := x[at+c : at+c+8 : at+c+8]
+		s0, s1, s2, s3, s4, s5, s6, s7 := y[0], y[1], y[2], y[3], y[4], y[5], y[6], y[7]
+		for t, r := range rows {
+			a := negs[t]
+			v := x[r+c : r+c+8 : r+c+8]
+			s0 += a * v[0]
+			s1 += a * v[1]
+			s2 += a * v[2]
+			s3 += a * v[3]
+			s4 += a * v[4]
+			s5 += a * v[5]
+			s6 += a * v[6]
+			s7 += a * v[7]
+		}
+		y[0], y[1], y[2], y[3], y[4], y[5], y[6], y[7] = s0*d, s1*d, s2*d, s3*d, s4*d, s5*d, s6*d, s7*d
+	}
+	if c+4 <= hi { // narrow blocks (an iteration's few columns): four at a time
+		y := x[at+c : at+c+4 : at+c+4]
+		s0, s1, s2, s3 := y[0], y[1], y[2], y[3]
+		for t, r := range rows {
+			a := negs[t]
+			v := x[r+c : r+c+4 : r+c+4]
+			s0 += a * v[0]
+			s1 += a * v[1]
+			s2 += a * v[2]
+			s3 += a * v[3]
+		}
+		y[0], y[1], y[2], y[3] = s0*d, s1*d, s2*d, s3*d
+		c += 4
+	}
+	if c+2 <= hi {
+		y := x[at+c : at+c+2 : at+c+2]
+		s0, s1 := y[0], y[1]
+		for t, r := range rows {
+			a := negs[t]
+			v := x[r+c : r+c+2 : r+c+2]
+			s0 += a * v[0]
+			s1 += a * v[1]
+		}
+		y[0], y[1] = s0*d, s1*d
+		c += 2
+	}
+	for ; c < hi; c++ {
+		s := x[at+c]
+		for t, r := range rows {
+			s += negs[t] * x[r+c]
+		}
+		x[at+c] = s * d
+	}
+}
+
+// axpy adds a·x to y; len(y) == len(x). Unrolled by four, which lets the
+// compiler keep independent sums in flight.
+func axpy(y []float64, a float64, x []float64) {
+	x = x[:len(y)]
+	k := 0
+	for ; k+4 <= len(y); k += 4 {
+		y0, y1, y2, y3 := y[k]+a*x[k], y[k+1]+a*x[k+1], y[k+2]+a*x[k+2], y[k+3]+a*x[k+3]
+		y[k], y[k+1], y[k+2], y[k+3] = y0, y1, y2, y3
+	}
+	for ; k < len(y); k++ {
+		y[k] += a * x[k]
+	}
+}

@@ -1,0 +1,137 @@
+package frame
+
+import (
+	"fmt"
+	"runtime"
+	"sync"
+	"testing"
+
+	"gonum.org/v1/gonum/blas"
+	"gonum.org/v1/gonum/blas/blas64"
+	"gonum.org/v1/gonum/lapack/lapack64"
+)
+
+// The register-blocked substitution gives the vector-update one's results
+// to the last bit, on one processor or two: the sums are formed in the same
+// order whatever the blocks and whoever forms them. (Agreement with gonum's
+// own solver is TestRowMajorSolveMatchesGonum.) Both kernels: the pure-Go
+// one every processor can run, and AVX where this one has it.
+func TestSubstitutionIsTheReferenceToTheLastBit(t *testing.T) {
+	kernels := []bool{false}
+	if hasAVX() {
+		kernels = append(kernels, true)
+	} else {
+		t.Log("no AVX here: the pure-Go kernel only")
+	}
+	defer func(v bool) { useAVX = v }(useAVX)
+	// 30 columns (one partial block), 36 (one whole and one partial), 72;
+	// 6 and 7 (the narrow widths of an iteration).
+	for _, size := range []struct{ bays, storeys int }{{6, 5}, {3, 12}, {8, 9}, {2, 3}, {7, 1}} {
+		mo := pieceFrame(size.bays, size.storeys)
+		order := rcmOrder(adjacency(mo))
+		dof, n, band := dofMap(mo, order, releasedRotations(mo))
+		sol := &Solution{model: mo, dof: dof, elems: make([]element, len(mo.Members))}
+		for m := range mo.Members {
+			sol.elems[m] = newElement(mo, m)
+		}
+		sol.indexLoads()
+		kb := min(band, n-1)
+		a := blas64.SymmetricBand{Uplo: blas.Upper, N: n, K: kb, Data: sol.assemble(n, kb), Stride: kb + 1}
+		u, ok := lapack64.Pbtrf(a)
+		if !ok {
+			t.Fatal("not positive definite")
+		}
+		nc := len(mo.Cases)
+		rhs := sol.rhs(n)
+		want := append([]float64(nil), rhs...)
+		bandSolveAxpy(u.Data, n, kb, want, nc)
+		for _, procs := range []int{1, 2} {
+			for _, avx := range kernels {
+				t.Run(fmt.Sprintf("%dx%d/GOMAXPROCS=%d/avx=%v", size.bays, size.storeys, procs, avx), func(t *testing.T) {
+					defer runtime.GOMAXPROCS(runtime.GOMAXPROCS(procs))
+					useAVX = avx
+					got := append([]float64(nil), rhs...)
+					bandSolve(u.Data, n, kb, got, nc)
+					for i := range got {
+						if got[i] != want[i] {
+							t.Fatalf("x[%d, %d] = %v, reference %v", i/nc, i%nc, got[i], want[i])
+						}
+					}
+				})
+			}
+		}
+	}
+}
+
+// bandSolveAxpy is the substitution as it was before it was register-blocked
+// (substitution.go), kept as the reference it must equal to the last bit.
+// It overwrites the n × nrhs row-major matrix x with U⁻¹ U⁻ᵀ x,
+// where u is an upper band Cholesky factor (row-major, kb superdiagonals).
+// Rows of x are contiguous, so each step is a long vector update; columns
+// are split into blocks shared among the processors.
+func bandSolveAxpy(u []float64, n, kb int, x []float64, nrhs int) {
+	if nrhs == 0 {
+		return
+	}
+	const block = 64
+	nb := (nrhs + block - 1) / block
+	workers := min(runtime.GOMAXPROCS(0), nb)
+	var wg sync.WaitGroup
+	next := make(chan int, nb)
+	for b := range nb {
+		next <- b
+	}
+	close(next)
+	w := kb + 1
+	for range workers {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			for b := range next {
+				lo, hi := b*block, min((b+1)*block, nrhs)
+				// Forward: Uᵀ y = x. Rows above the block's first nonzero
+				// stay zero: a load on one member fills only a few rows.
+				start := n
+			scan:
+				for i := range n {
+					for _, v := range x[i*nrhs+lo : i*nrhs+hi] {
+						if v != 0 {
+							start = i
+							break scan
+						}
+					}
+				}
+				for i := start; i < n; i++ {
+					xi := x[i*nrhs+lo : i*nrhs+hi]
+					d := 1 / u[i*w]
+					for k := range xi {
+						xi[k] *= d
+					}
+					for j := 1; j < w && i+j < n; j++ {
+						uij := u[i*w+j]
+						if uij == 0 {
+							continue
+						}
+						axpy(x[(i+j)*nrhs+lo:(i+j)*nrhs+hi], -uij, xi)
+					}
+				}
+				// Backward: U x = y.
+				for i := n - 1; i >= 0; i-- {
+					xi := x[i*nrhs+lo : i*nrhs+hi]
+					for j := 1; j < w && i+j < n; j++ {
+						uij := u[i*w+j]
+						if uij == 0 {
+							continue
+						}
+						axpy(xi, -uij, x[(i+j)*nrhs+lo:(i+j)*nrhs+hi])
+					}
+					d := 1 / u[i*w]
+					for k := range xi {
+						xi[k] *= d
+					}
+				}
+			}
+		}()
+	}
+	wg.Wait()
+}
