@@ -599,19 +599,12 @@ func (b *Buckling) Factors(axials [][]float64) ([]float64, error) {
 		go func() {
 			defer wg.Done()
 			for i := range next {
-				c, mu := at[i], mus[i]
-				switch {
-				case errs[i] != nil:
-				case !(mu > 1/maxCritical):
-					if b.definite(maxCritical, run[i]) {
-						out[c] = math.Inf(1)
-						continue
-					}
-				case b.definite((1-certifyGap)/mu, run[i]):
-					out[c] = 1 / mu
+				c := at[i]
+				if errs[i] != nil {
+					out[c], fail[c] = criticalBisect(mo, run[i])
 					continue
 				}
-				out[c], fail[c] = criticalBisect(mo, run[i])
+				out[c], fail[c] = b.certify(mus[i], run[i])
 			}
 		}()
 	}
@@ -620,6 +613,21 @@ func (b *Buckling) Factors(axials [][]float64) ([]float64, error) {
 		return nil, err
 	}
 	return out, nil
+}
+
+// certify returns 1/mu when the check bounds αcr of axial within
+// certifyGap below it (+Inf for mu ≤ 1e-12 when the stiffness is positive
+// definite up to λ = 1e12), else αcr by the search of factorizations.
+func (b *Buckling) certify(mu float64, axial []float64) (float64, error) {
+	switch {
+	case !(mu > 1/maxCritical):
+		if b.definite(maxCritical, axial) {
+			return math.Inf(1), nil
+		}
+	case b.definite((1-certifyGap)/mu, axial):
+		return 1 / mu, nil
+	}
+	return criticalBisect(b.model, axial)
 }
 
 // warmMix is the share of the fixed start mixed into the mode the other

@@ -290,3 +290,37 @@ func TestBucklingBatch(t *testing.T) {
 		}
 	}
 }
+
+// TestBucklingCertify: a Ritz value that is not the largest eigenvalue's
+// (a mode missed: here the second buckling mode's) is never reported; the
+// check sees K + λ·Kg indefinite below it and the search of
+// factorizations gives αcr. On the pinned strut, the Euler loads
+// π²EI/L² and 4π²EI/L² (Timoshenko & Gere, Theory of Elastic Stability).
+func TestBucklingCertify(t *testing.T) {
+	const ei, l, p = 250.0, 10.0, 4.0
+	mo := &Model{
+		Sections: []Section{{Name: "S", E: 1, A: 1e6 * ei / (l * l), I: ei}},
+		Nodes:    []Node{{Name: "A", Support: Pinned}, {Name: "B", X: l, Support: HoldY}},
+		Members:  []Member{{Name: "AB", Start: 0, End: 1}},
+	}
+	b, err := NewBuckling(mo)
+	if err != nil {
+		t.Fatal(err)
+	}
+	axial := []float64{-p}
+	want := math.Pi * math.Pi * ei / (l * l) / p
+	for _, tc := range []struct {
+		name string
+		mu   float64
+	}{{"the first mode", 1 / want}, {"the second mode", 1 / (4 * want)}, {"none", 1e-13}} {
+		t.Run(tc.name, func(t *testing.T) {
+			got, err := b.certify(tc.mu, axial)
+			if err != nil {
+				t.Fatal(err)
+			}
+			if !within(got, want, 6e-4) {
+				t.Errorf("αcr %.7g, want π²EI/L²/P = %.7g", got, want)
+			}
+		})
+	}
+}
