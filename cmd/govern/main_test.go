@@ -254,7 +254,8 @@ func TestExitStatus(t *testing.T) {
 func TestHelpAndReportCarryTheCaution(t *testing.T) {
 	for _, args := range [][]string{{"help"}, {"help", "run"}, {"demo"}} {
 		_, out, _ := exec(args...)
-		if !strings.Contains(out, report.Caution) {
+		// The caution is wrapped to the terminal's width.
+		if !strings.Contains(strings.Join(strings.Fields(out), " "), report.Caution) {
 			t.Errorf("govern %s: output lacks the caution", strings.Join(args, " "))
 		}
 	}

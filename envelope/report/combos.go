@@ -94,7 +94,7 @@ func WriteCombinations(w io.Writer, job *analysis.Job) error {
 	if err := writeNotional(w, job); err != nil {
 		return err
 	}
-	fmt.Fprintf(w, "\n%s\n", Caution)
+	fmt.Fprintf(w, "\n%s\n", wrapLines(Caution, TextWidth))
 	return nil
 }
 

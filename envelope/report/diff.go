@@ -331,7 +331,7 @@ func (d *DiffResult) WriteText(w io.Writer) error {
 	if len(d.Changes) == 0 {
 		return nil
 	}
-	defer fmt.Fprintf(w, "\n%s\n", Caution)
+	defer fmt.Fprintf(w, "\n%s\n", wrapLines(Caution, TextWidth))
 	fmt.Fprintf(w, "Forces in %s, moments in %s, x in %s, deflections in %s; members in their own axes (x from the start node).\n",
 		Escape(d.Units.Force), Escape(d.Units.Moment), Escape(d.Units.Length), Escape(d.Units.Deflection))
 	for _, kind := range []struct {

@@ -24,7 +24,7 @@ type textTables struct {
 }
 
 func (t textTables) note(text string) error {
-	_, err := fmt.Fprintf(t.w, "%s\n", EscapeLines(text))
+	_, err := fmt.Fprintf(t.w, "%s\n", wrapLines(EscapeLines(text), t.width))
 	return err
 }
 
@@ -85,7 +85,11 @@ func (p *Report) WriteText(w io.Writer, crossCheck bool) error {
 	if p.Wide {
 		width = 0
 	}
-	p.writeHeading(w)
+	var heading strings.Builder
+	p.writeHeading(&heading)
+	if _, err := io.WriteString(w, wrapLines(heading.String(), width)); err != nil {
+		return err
+	}
 	tb := textTables{w, width}
 	d := p.tables()
 	if err := tb.note(d.governing); err != nil {
@@ -121,7 +125,7 @@ func (p *Report) WriteText(w io.Writer, crossCheck bool) error {
 			return err
 		}
 	}
-	_, err := fmt.Fprintf(w, "\n%s\n", Caution)
+	_, err := fmt.Fprintf(w, "\n%s\n", wrapLines(Caution, width))
 	return err
 }
 

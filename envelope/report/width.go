@@ -103,8 +103,8 @@ func pick(row []string, cols []int) []string {
 
 // renderFitted writes a table fitted to width (see tableParts), under its
 // title when it has one: the parts after the first under the title's
-// first words and "(continued)". Titles and notes are prose and left to
-// the terminal to wrap.
+// first words and "(continued)". Titles, prose, are wrapped at spaces
+// to width as notes are (wrapLines).
 func renderFitted(w io.Writer, title string, header []string, rows [][]string, width int) error {
 	parts := tableParts(header, rows, width)
 	for k, cols := range parts {
@@ -113,7 +113,7 @@ func renderFitted(w io.Writer, title string, header []string, rows [][]string, w
 			t = continued(title)
 		}
 		if t != "" {
-			if _, err := fmt.Fprintf(w, "\n%s\n", EscapeLines(t)); err != nil {
+			if _, err := fmt.Fprintf(w, "\n%s\n", wrapLines(EscapeLines(t), width)); err != nil {
 				return err
 			}
 		}
@@ -138,4 +138,22 @@ func continued(title string) string {
 		return "(continued)"
 	}
 	return title + " (continued)"
+}
+
+// wrapLines breaks each line of text longer than width characters at
+// spaces, its continuation lines indented as the line itself is; a
+// width not positive leaves text as it is (--wide).
+func wrapLines(text string, width int) string {
+	if width <= 0 {
+		return text
+	}
+	lines := strings.Split(text, "\n")
+	for i, l := range lines {
+		if utf8.RuneCountInString(l) <= width {
+			continue
+		}
+		indent := l[:len(l)-len(strings.TrimLeft(l, " "))]
+		lines[i] = indent + wrap(l, width-len(indent), indent)
+	}
+	return strings.Join(lines, "\n")
 }
