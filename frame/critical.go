@@ -41,7 +41,7 @@ var ErrNoCritical = errors.New("no critical load factor")
 // the bracket is narrower than CriticalTol of αcr; bisection where a
 // step fails. No dense eigen solve is made. A model the first-order
 // solve refuses is refused with the same error.
-func CriticalFactor(mo *Model, axial []float64) (float64, error) {
+func criticalBisect(mo *Model, axial []float64) (float64, error) {
 	if len(axial) != len(mo.Members) {
 		panic("frame: CriticalFactor: axial does not give one axial force per member")
 	}

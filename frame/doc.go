@@ -77,8 +77,11 @@
 // N·(v(x) − v(0)), v the displacement across the member's undeformed axis
 // from its start node, and [Solution.Balance] takes moments on the deformed
 // geometry. Iterating on N is the caller's. [CriticalFactor] gives αcr, the
-// smallest λ with K + λ·Kg singular, by band Cholesky trials and Newton
-// steps (critical.go); it is a pure number.
+// smallest λ with K + λ·Kg singular, by Lanczos iteration on one factor of
+// K, certified by one band Cholesky factorization just below it, with
+// band Cholesky trials and Newton steps where that check fails
+// (buckling.go, critical.go); [NewBuckling] shares the factor of K among
+// many sets of axial forces. It is a pure number.
 //
 // # Failures
 //

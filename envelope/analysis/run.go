@@ -3,6 +3,7 @@ package analysis
 import (
 	"context"
 	"fmt"
+	"runtime"
 	"slices"
 	"sync"
 	"sync/atomic"
@@ -96,6 +97,9 @@ type Result struct {
 	solver  frame.Options // the options of every solve
 	mu      sync.Mutex    // guards buckled and solutions
 	buckled []buckled     // first-order combinations with αcr ≤ 1, as warnings
+	// buckling holds the factored elastic stiffness of each stiffness the
+	// critical load factors are found with, shared by every combination.
+	buckling map[Stiffness]*bucklingOnce
 	// units are the analyses of the combinations when they are not all one
 	// first-order analysis with the sections as given (nil then), and
 	// solutions those solved again on request (solutionFor), by unit.
@@ -429,6 +433,83 @@ func (r *Result) EndMomentsOf(m int, states []envelope.State) []envelope.State {
 		}
 	}
 	return out
+}
+
+// EndMomentsOfMany is EndMomentsOf for the states of several members,
+// states[i] those of member ms[i]: in a run with combinations analysed
+// apart, each one's solution is formed once for every member (or taken
+// from those kept) and let go before the next, so that no more than one
+// is held at a time.
+func (r *Result) EndMomentsOfMany(ms []int, states [][]envelope.State) [][]envelope.State {
+	out := make([][]envelope.State, len(ms))
+	if r.units == nil {
+		eachShared(len(ms), func(i int) {
+			out[i] = envelope.EndMomentsOf(r.sol, r.solved, r.Envelope.Settings, r.lay, ms[i], states[i])
+		})
+		return out
+	}
+	type at struct{ i, q int } // member ms[i], its state q
+	byUnit := map[int][]at{}
+	var order []int
+	for i := range ms {
+		out[i] = slices.Clone(states[i])
+		for q, st := range states[i] {
+			u := r.unitOf(st.By)
+			if _, ok := byUnit[u]; !ok {
+				order = append(order, u)
+			}
+			byUnit[u] = append(byUnit[u], at{i, q})
+		}
+	}
+	for _, u := range order {
+		list := byUnit[u]
+		sol, lay, err := r.solutionOnce(states[list[0].i][list[0].q].By)
+		if err != nil {
+			continue // the states as they are: not found
+		}
+		// The runs of one member's states, shared among the processors.
+		var runs [][2]int
+		for a := 0; a < len(list); {
+			b := a
+			for b < len(list) && list[b].i == list[a].i {
+				b++
+			}
+			runs = append(runs, [2]int{a, b})
+			a = b
+		}
+		eachShared(len(runs), func(k int) {
+			a, b := runs[k][0], runs[k][1]
+			sub := make([]envelope.State, b-a)
+			for q := range sub {
+				sub[q] = states[list[a+q].i][list[a+q].q]
+			}
+			got := envelope.EndMomentsOf(sol, r.solved, r.Envelope.Settings, lay, ms[list[a].i], sub)
+			for q := range sub {
+				out[list[a+q].i][list[a+q].q] = got[q]
+			}
+		})
+	}
+	return out
+}
+
+// eachShared calls f(i) for i in [0, n), shared among the processors.
+func eachShared(n int, f func(i int)) {
+	next := make(chan int, n)
+	for i := range n {
+		next <- i
+	}
+	close(next)
+	var wg sync.WaitGroup
+	for range min(runtime.GOMAXPROCS(0), n) {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			for i := range next {
+				f(i)
+			}
+		}()
+	}
+	wg.Wait()
 }
 
 // StationsAt returns the envelopes of member m, in its own axes, at the

@@ -4,7 +4,6 @@ import (
 	"errors"
 	"fmt"
 	"math"
-	"runtime"
 	"slices"
 	"sync"
 
@@ -343,38 +342,100 @@ func (r *Result) iterate(u *unit, base *frame.Model, stiff Stiffness) error {
 // critical sets u's critical load factors, for the combination as
 // written, from the first-order axial forces n of its loads at u.scale.
 func (r *Result) critical(u *unit, base *frame.Model, n []float64, stiff Stiffness) error {
+	return r.criticalOf([]*unit{u}, base, [][]float64{n}, stiff)
+}
+
+// criticalOf sets the critical load factors of the units us, each from
+// its first-order axial forces ns[i], found side by side on one factor of
+// the stiffness (frame.Buckling.Factors); the first error in their order.
+func (r *Result) criticalOf(us []*unit, base *frame.Model, ns [][]float64, stiff Stiffness) error {
 	job := r.Job
-	name := job.Combinations[u.k].Name
-	secs, mems := job.stiffnessOf(base, stiff)
-	a, err := frame.CriticalFactor(&frame.Model{Nodes: base.Nodes, Sections: secs, Members: mems}, n)
+	as, err := r.criticalFactors(base, stiff, ns)
+	if err != nil && len(us) > 1 {
+		// Which combination: each alone.
+		for i, u := range us {
+			if err := r.critical(u, base, ns[i], stiff); err != nil {
+				return err
+			}
+		}
+		return nil
+	}
 	if err != nil {
-		return fmt.Errorf("combination %q: critical load factor: %w", name, err)
+		return fmt.Errorf("combination %q: critical load factor: %w", job.Combinations[us[0].k].Name, err)
 	}
-	u.critical = sixFigures(a * u.scale)
-	u.nominal = u.critical
+	noms := as
 	if stiff != Nominal {
-		a, err := frame.CriticalFactor(&frame.Model{Nodes: base.Nodes, Sections: base.Sections, Members: base.Members}, n)
-		if err != nil {
-			return fmt.Errorf("combination %q: critical load factor: %w", name, err)
+		if noms, err = r.criticalFactors(base, Nominal, ns); err != nil {
+			if len(us) > 1 {
+				for i, u := range us {
+					if err := r.critical(u, base, ns[i], stiff); err != nil {
+						return err
+					}
+				}
+				return nil
+			}
+			return fmt.Errorf("combination %q: critical load factor: %w", job.Combinations[us[0].k].Name, err)
 		}
-		u.nominal = sixFigures(a * u.scale)
 	}
-	limit := 1.0
-	if u.method.Allowable {
-		limit = AllowableScale
-	}
-	if !(u.critical > limit) {
-		err := fmt.Errorf("%w: combination %q: the critical load factor αcr = %.4g is not above %g: the frame buckles under it (with %s stiffness)", ErrBuckles, name, u.critical, limit, stiff)
-		if u.method.SecondOrder {
-			return err
+	var errs []error
+	for i, u := range us {
+		name := job.Combinations[u.k].Name
+		u.critical = sixFigures(as[i] * u.scale)
+		u.nominal = sixFigures(noms[i] * u.scale)
+		limit := 1.0
+		if u.method.Allowable {
+			limit = AllowableScale
 		}
-		// A first-order analysis can still be made; what it gives does not
-		// stand, and the warning says so (see docs/analysis.md).
-		r.mu.Lock()
-		r.buckled = append(r.buckled, buckled{u.k, err.Error() + "; the first-order results of this combination do not stand"})
-		r.mu.Unlock()
+		if !(u.critical > limit) {
+			err := fmt.Errorf("%w: combination %q: the critical load factor αcr = %.4g is not above %g: the frame buckles under it (with %s stiffness)", ErrBuckles, name, u.critical, limit, stiff)
+			if u.method.SecondOrder {
+				errs = append(errs, err)
+				continue
+			}
+			// A first-order analysis can still be made; what it gives does
+			// not stand, and the warning says so (see docs/analysis.md).
+			r.mu.Lock()
+			r.buckled = append(r.buckled, buckled{u.k, err.Error() + "; the first-order results of this combination do not stand"})
+			r.mu.Unlock()
+		}
+	}
+	if len(errs) > 0 {
+		return errs[0]
 	}
 	return nil
+}
+
+// bucklingOnce is the factored elastic stiffness of one stiffness, made
+// by the first combination that needs it.
+type bucklingOnce struct {
+	once sync.Once
+	b    *frame.Buckling
+	err  error
+}
+
+// criticalFactors returns αcr of each set of axial forces ns with
+// stiffness stiff:
+// the elastic stiffness is factored once per stiffness for every
+// combination (frame.NewBuckling).
+func (r *Result) criticalFactors(base *frame.Model, stiff Stiffness, ns [][]float64) ([]float64, error) {
+	r.mu.Lock()
+	if r.buckling == nil {
+		r.buckling = map[Stiffness]*bucklingOnce{}
+	}
+	bo := r.buckling[stiff]
+	if bo == nil {
+		bo = &bucklingOnce{}
+		r.buckling[stiff] = bo
+	}
+	r.mu.Unlock()
+	bo.once.Do(func() {
+		secs, mems := r.Job.stiffnessOf(base, stiff)
+		bo.b, bo.err = frame.NewBuckling(&frame.Model{Nodes: base.Nodes, Sections: secs, Members: mems})
+	})
+	if bo.err != nil {
+		return nil, bo.err
+	}
+	return bo.b.Factors(ns)
 }
 
 // ErrBuckles marks a combination under which the frame buckles.
@@ -681,27 +742,35 @@ type buckled struct {
 }
 
 // criticalAll sets the critical load factors of the first-order units us,
-// analysed with stiffness stiff, the units shared among the processors;
-// the first error in their order.
+// analysed with stiffness stiff: their combinations solved together (one
+// factor of the stiffness, a load column each), and their factors found
+// side by side; the first error in their order.
 func (r *Result) criticalAll(us []*unit, base *frame.Model, stiff Stiffness) error {
-	errs := make([]error, len(us))
-	next := make(chan int, len(us))
-	for i := range us {
-		next <- i
+	if len(us) == 0 {
+		return nil
 	}
-	close(next)
-	var wg sync.WaitGroup
-	for range min(runtime.GOMAXPROCS(0), len(us)) {
-		wg.Add(1)
-		go func() {
-			defer wg.Done()
-			for i := range next {
-				errs[i] = r.firstOrderCritical(us[i], base, stiff)
+	secs, mems := r.Job.stiffnessOf(base, stiff)
+	all := &frame.Model{Nodes: base.Nodes, Sections: secs, Members: mems}
+	for i, u := range us {
+		c := combined(base, secs, mems, u.cb, u.scale, nil).Cases[0]
+		c.Name = fmt.Sprintf("unit %d", i+1) // a combination's alternatives share its name
+		all.Cases = append(all.Cases, c)
+	}
+	s0, err := frame.SolveWith(all, r.solver)
+	if err != nil {
+		// Which combination: each alone.
+		for _, u := range us {
+			if err := r.firstOrderCritical(u, base, stiff); err != nil {
+				return err
 			}
-		}()
+		}
+		return err
 	}
-	wg.Wait()
-	return errors.Join(errs...)
+	ns := make([][]float64, len(us))
+	for i := range us {
+		ns[i] = axialForces(s0, i)
+	}
+	return r.criticalOf(us, base, ns, stiff)
 }
 
 // sixFigures rounds a critical load factor to the six significant figures
@@ -738,11 +807,22 @@ func (r *Result) unitOf(k int) int {
 	return -1
 }
 
+// solutionOnce is solutionFor without keeping a solution it forms: the
+// caller lets it go when done.
+func (r *Result) solutionOnce(k int) (*frame.Solution, *patterns.Layout, error) {
+	return r.solution(k, false)
+}
+
 // solutionFor returns the solution of every load case and piece that
 // combination k was enveloped from, with its layout: r.sol for the
 // first-order ones with the sections as given; else that of its unit,
 // solved again on request and kept (the envelopes did not keep it).
 func (r *Result) solutionFor(k int) (*frame.Solution, *patterns.Layout, error) {
+	return r.solution(k, true)
+}
+
+// solution is solutionFor, keeping a solution it forms when keep is set.
+func (r *Result) solution(k int, keep bool) (*frame.Solution, *patterns.Layout, error) {
 	u := r.unitOf(k)
 	if u < 0 {
 		return r.sol, r.lay, nil
@@ -771,10 +851,12 @@ func (r *Result) solutionFor(k int) (*frame.Solution, *patterns.Layout, error) {
 	if err != nil {
 		return nil, nil, err
 	}
-	if r.solutions == nil {
-		r.solutions = map[int]*frame.Solution{}
+	if keep {
+		if r.solutions == nil {
+			r.solutions = map[int]*frame.Solution{}
+		}
+		r.solutions[u] = sol
 	}
-	r.solutions[u] = sol
 	l2 := *r.lay
 	l2.Model = sol.Model()
 	return sol, &l2, nil

@@ -8,6 +8,7 @@ import (
 	"testing"
 
 	"govern/combos"
+	"govern/envelope"
 	"govern/frame"
 )
 
@@ -314,5 +315,40 @@ func TestSecondOrderOnRequest(t *testing.T) {
 	ends, ok := res.EndMoments(0, 0, 0, 2, hi, base)
 	if !ok || !within(math.Abs(ends[0]), want, 1e-3) || math.Abs(ends[1]) > 1e-9 {
 		t.Errorf("EndMoments: %v (ok %v), want %.6g at the base and 0 at the top", ends, ok, want)
+	}
+}
+
+// TestEndMomentsOfMany: the end moments of several members' states asked
+// together (each second-order combination's solution formed once and let
+// go) are those asked member by member; on the cantilever, H tan(kL)/k =
+// 1.126536 at the base (Timoshenko & Gere), and the solutions asked
+// together are not kept.
+func TestEndMomentsOfMany(t *testing.T) {
+	const p, h = 4.0, 0.045
+	want := cantileverMoment(p, h)
+	res, err := Run(context.Background(), cantileverJob(p, h, Method{SecondOrder: true}), Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	m := res.Envelope.Members[0].Stations[0].M
+	base, hi := m.Max, true
+	if math.Abs(m.Min) > math.Abs(m.Max) {
+		base, hi = m.Min, false
+	}
+	asks := []envelope.State{{X: 0, By: 0, Effect: 2, Hi: hi, Want: base}, {X: 0, By: 0, Effect: 0, Hi: true, Want: m.Max}}
+	many := res.EndMomentsOfMany([]int{0, 0}, [][]envelope.State{asks, asks[:1]})
+	if len(res.solutions) != 0 {
+		t.Errorf("%d solutions kept", len(res.solutions))
+	}
+	one := res.EndMomentsOf(0, asks)
+	for i, got := range [][]envelope.State{many[0], many[1]} {
+		for q := range got {
+			if got[q] != one[q] {
+				t.Errorf("member %d state %d: %+v together, %+v alone", i, q, got[q], one[q])
+			}
+		}
+	}
+	if !many[0][0].OK || !within(math.Abs(many[0][0].Ends[0]), want, 1e-3) {
+		t.Errorf("base moment %v, want %.6g", many[0][0].Ends, want)
 	}
 }

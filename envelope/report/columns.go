@@ -2,8 +2,6 @@ package report
 
 import (
 	"math"
-	"runtime"
-	"sync"
 
 	"govern/envelope"
 
@@ -31,19 +29,67 @@ type columnState struct {
 // Values are as the tables show the member: a member that is not vertical
 // from its left end.
 func (p *Report) columnStates(m int) []columnState {
-	em := p.res.Envelope.Members[m]
-	pk := memberPeaks(em)
-	type want struct {
-		what string
-		j    int
-		hi   bool
+	out, asks := p.stateAsks(m)
+	return p.stateEnds(m, out, p.res.EndMomentsOf(m, asks))
+}
+
+// columnStatesOf is columnStates for the members ms, the end moments of
+// all found together (analysis.EndMomentsOfMany: in second order, each
+// combination's solution formed once and let go).
+func (p *Report) columnStatesOf(ms []int) [][]columnState {
+	outs := make([][]columnState, len(ms))
+	asks := make([][]envelope.State, len(ms))
+	for i, m := range ms {
+		outs[i], asks[i] = p.stateAsks(m)
 	}
-	wants := []want{{"N max", 0, true}, {"N min", 0, false}, {"|M| max", 2, -pk.lo[2].v <= pk.hi[2].v}}
-	mo := p.model()
-	flip, l := analysis.Flipped(mo, m), mo.Length(m)
+	got := p.res.EndMomentsOfMany(ms, asks)
+	for i, m := range ms {
+		outs[i] = p.stateEnds(m, outs[i], got[i])
+	}
+	return outs
+}
+
+// prefetchStates sets p.states of the members ms that have none, all
+// found together (columnStatesOf).
+func (p *Report) prefetchStates(ms []int) {
+	var need []int
+	seen := map[int]bool{}
+	for _, m := range ms {
+		if _, ok := p.states[m]; !ok && !seen[m] {
+			seen[m] = true
+			need = append(need, m)
+		}
+	}
+	if len(need) == 0 {
+		return
+	}
+	if p.states == nil {
+		p.states = map[int][]columnState{}
+	}
+	for i, s := range p.columnStatesOf(need) {
+		p.states[need[i]] = s
+	}
+}
+
+// stateWants are the states columnStates gives: effect j (0 N, 2 M), the
+// largest (hi) or smallest.
+func stateWants(pk peaks) []stateWant {
+	return []stateWant{{"N max", 0, true}, {"N min", 0, false}, {"|M| max", 2, -pk.lo[2].v <= pk.hi[2].v}}
+}
+
+type stateWant struct {
+	what string
+	j    int
+	hi   bool
+}
+
+// stateAsks returns member m's states without their end moments, and the
+// states to ask the end moments of.
+func (p *Report) stateAsks(m int) ([]columnState, []envelope.State) {
+	pk := memberPeaks(p.res.Envelope.Members[m])
 	var out []columnState
 	var asks []envelope.State
-	for _, w := range wants {
+	for _, w := range stateWants(pk) {
 		s := columnState{what: w.what, pk: pk.lo[w.j]}
 		if w.hi {
 			s.pk = pk.hi[w.j]
@@ -51,7 +97,15 @@ func (p *Report) columnStates(m int) []columnState {
 		out = append(out, s)
 		asks = append(asks, envelope.State{X: s.pk.x, By: s.pk.by, Effect: w.j, Hi: w.hi, Want: s.pk.v})
 	}
-	got := p.res.EndMomentsOf(m, asks)
+	return out, asks
+}
+
+// stateEnds sets the end moments got of member m's states out, and turns
+// them as the tables show the member.
+func (p *Report) stateEnds(m int, out []columnState, got []envelope.State) []columnState {
+	wants := stateWants(memberPeaks(p.res.Envelope.Members[m]))
+	mo := p.model()
+	flip, l := analysis.Flipped(mo, m), mo.Length(m)
 	for q := range out {
 		s := &out[q]
 		if s.pk.by >= 0 {
@@ -127,15 +181,11 @@ func (p *Report) stateRows(members []int) [][]string {
 	mo := p.model()
 	patterned := p.pieces() > 0
 	var rows [][]string
-	all := p.allColumnStates(members)
-	for i, m := range members {
+	p.prefetchStates(members)
+	for _, m := range members {
 		from, to := analysis.ShownEnds(mo, m)
 		name := mo.Members[m].Name
-		states := all[i]
-		if p.states == nil {
-			p.states = map[int][]columnState{}
-		}
-		p.states[m] = states
+		states := p.states[m]
 		for _, s := range states {
 			if s.pk.by < 0 {
 				continue
@@ -157,28 +207,4 @@ func (p *Report) stateRows(members []int) [][]string {
 		}
 	}
 	return rows
-}
-
-// allColumnStates returns columnStates of each of members, formed on every
-// processor (each member's states are formed from the result alone),
-// in the order of members.
-func (p *Report) allColumnStates(members []int) [][]columnState {
-	out := make([][]columnState, len(members))
-	next := make(chan int, len(members))
-	for i := range members {
-		next <- i
-	}
-	close(next)
-	var wg sync.WaitGroup
-	for range min(runtime.GOMAXPROCS(0), len(members)) {
-		wg.Add(1)
-		go func() {
-			defer wg.Done()
-			for i := range next {
-				out[i] = p.columnStates(members[i])
-			}
-		}()
-	}
-	wg.Wait()
-	return out
 }

@@ -80,7 +80,17 @@ func lowerFirst(s string) string {
 func newDesign(p *Report) *design {
 	u := p.units()
 	d := &design{governing: fmt.Sprintf("Governing design values%s (in %s; %s: x from the left end, +M sagging; columns: x from the start node)", p.overStrength(), u.Length, p.shownFromLeft())}
-	for _, g := range analysis.Groups(p.job()) {
+	groups := analysis.Groups(p.job())
+	// The column states of every group's tables at once: in second order
+	// each combination's solution is then formed once and let go.
+	var states []int
+	for _, g := range groups {
+		if g.Kind != analysis.Floor {
+			states = append(states, g.Members...)
+		}
+	}
+	p.prefetchStates(states)
+	for _, g := range groups {
 		gd := groupDesign{Group: g}
 		switch g.Kind {
 		case analysis.Floor:

@@ -1,0 +1,860 @@
+package frame
+
+import (
+	"errors"
+	"fmt"
+	"math"
+	"runtime"
+	"slices"
+	"sync"
+
+	"gonum.org/v1/gonum/blas"
+	"gonum.org/v1/gonum/blas/blas64"
+	"gonum.org/v1/gonum/lapack/lapack64"
+	"gonum.org/v1/gonum/mat"
+)
+
+// Buckling holds what the critical load factors of one model under any
+// number of sets of axial forces share: the elastic stiffness K, factored
+// once. It is safe for concurrent use.
+//
+// The stiffness with the geometric stiffness of axial forces λ·N is linear
+// in λ only before the sub-elements' inner nodes and the members' own end
+// rotations (releases, rotational springs) are condensed out, so the
+// eigenproblem is posed over all of them: K x = λ (−Kg) x, with those
+// degrees of freedom kept (the inner nodes' axial ones, which Kg does not
+// touch, are condensed). K is applied inverted by eliminating each
+// member's own degrees of freedom and one band Cholesky factor of what is
+// left, the stiffness the first-order solve uses. αcr is 1/μ for the
+// largest μ of K⁻¹(−Kg), found by Lanczos iteration in the K inner
+// product with full reorthogonalization; each step is one band forward
+// and back substitution and one product with Kg.
+type Buckling struct {
+	model *Model
+	n     int // equations of the band
+	kb    int
+	u     []float64 // upper band Cholesky factor of the condensed K
+	mems  []pencil
+	size  int       // n plus every member's own degrees of freedom
+	sol   *Solution // the numbering, for the check of a factor found
+}
+
+// maxOwn is the most degrees of freedom a member keeps of its own: the
+// transverse displacement and rotation of each inner node, and a
+// released or sprung rotation at either end.
+const maxOwn = 2*(SubElements-1) + 2
+
+// pencil is one member's part of K and of Kg per unit axial force, over
+// its nodes' six local degrees of freedom and ni of its own.
+type pencil struct {
+	c, s float64
+	gdof [6]int // equation of each node degree of freedom, or < 0
+	ni   int
+	off  int                             // where its own degrees of freedom start in a vector
+	lii  [maxOwn][maxOwn]float64         // lower Cholesky factor of K's own block
+	kin  [maxOwn][6]float64              // K's own rows, node columns (local axes)
+	g    [6 + maxOwn][6 + maxOwn]float64 // Kg per unit axial force, tension positive
+	inv  [maxOwn][maxOwn]float64         // K's own block inverted
+	w    [maxOwn][6]float64              // inv times kin
+	gnz  []gEntry                        // the entries of g that are not zero, upper triangle
+}
+
+// gEntry is one entry of a pencil's Kg, at row i and column j.
+type gEntry struct {
+	i, j uint8
+	v    float64
+}
+
+// NewBuckling factors the elastic stiffness of mo for [Buckling.Factor].
+// A model the first-order solve refuses is refused with the same error.
+func NewBuckling(mo *Model) (*Buckling, error) {
+	if err := checkEquations(mo); err != nil {
+		return nil, err
+	}
+	if err := mo.Validate(); err != nil {
+		return nil, err
+	}
+	released := releasedRotations(mo)
+	order := rcmOrder(adjacency(mo))
+	dof, n, band := dofMap(mo, order, released)
+	if err := checkMemory(mo, n, band, 0); err != nil {
+		return nil, err
+	}
+	b := &Buckling{model: mo, n: n, mems: make([]pencil, len(mo.Members))}
+	sol := &Solution{model: mo, dofs: n, band: band, cond: 1, dof: dof, released: released}
+	sol.elems = make([]element, len(mo.Members))
+	off := n
+	for m, mem := range mo.Members {
+		p := &b.mems[m]
+		e := newElement(mo, m)
+		k, ok := p.build(&e)
+		if !ok {
+			return nil, b.refuse()
+		}
+		e.k = k
+		sol.elems[m] = e
+		ends := [2]int{mem.Start, mem.End}
+		for i := range 6 {
+			p.gdof[i] = dof[3*ends[i/3]+i%3]
+		}
+		p.off = off
+		off += p.ni
+	}
+	b.size = off
+	b.sol = sol
+	if n == 0 {
+		return b, nil
+	}
+	b.kb = min(band, n-1)
+	data := sol.assemble(n, b.kb)
+	f, ok := lapack64.Pbtrf(blas64.SymmetricBand{Uplo: blas.Upper, N: n, K: b.kb, Data: data, Stride: b.kb + 1})
+	if !ok {
+		return nil, b.refuse()
+	}
+	b.u = f.Data
+	return b, nil
+}
+
+// refuse returns why the first-order stiffness is not positive definite.
+func (b *Buckling) refuse() error {
+	mo := b.model
+	if _, err := Solve(&Model{Nodes: mo.Nodes, Sections: mo.Sections, Members: mo.Members}); err != nil {
+		return err
+	}
+	return errors.New("frame: CriticalFactor: the stiffness is not positive definite")
+}
+
+// build sets p's parts from the member e and returns the local stiffness
+// at the nodes with its own degrees of freedom condensed out (which is
+// e's own, to rounding); ok is false when K's own block is not positive
+// definite.
+func (p *pencil) build(e *element) (k [6][6]float64, ok bool) {
+	p.c, p.s = e.c, e.s
+	// Degrees of freedom: 0-5 the nodes' (local axes); then the own end
+	// rotations; then v, θ of each inner node; last u of each inner node
+	// (condensed here).
+	own := [2]int{-1, -1}
+	d := 6
+	for side := range 2 {
+		rel := e.release.AtStart()
+		if side == 1 {
+			rel = e.release.AtEnd()
+		}
+		if rel || e.spring[side] > 0 {
+			own[side] = d
+			d++
+		}
+	}
+	ni := d - 6 + 2*(SubElements-1)
+	full := d + 3*(SubElements-1)
+	// sub maps each of the subdivided member's 15 degrees of freedom to
+	// the full ones: sub = Σ coef · full.
+	type term struct {
+		j int
+		c float64
+	}
+	var sub [3 * (SubElements + 1)][]term
+	sub[0] = []term{{0, 1}}
+	sub[1] = []term{{1, 1}, {2, e.a}}
+	sub[2] = []term{{2, 1}}
+	if own[0] >= 0 {
+		sub[2] = []term{{own[0], 1}}
+	}
+	last := 3 * SubElements
+	sub[last] = []term{{3, 1}}
+	sub[last+1] = []term{{4, 1}, {5, -e.b}}
+	sub[last+2] = []term{{5, 1}}
+	if own[1] >= 0 {
+		sub[last+2] = []term{{own[1], 1}}
+	}
+	for j := 1; j < SubElements; j++ {
+		sub[3*j] = []term{{d + 2*(SubElements-1) + j - 1, 1}}
+		sub[3*j+1] = []term{{d + 2*(j-1), 1}}
+		sub[3*j+2] = []term{{d + 2*(j-1) + 1, 1}}
+	}
+	k0 := subStiffness(e.ea, e.ei, e.lf, 0)
+	k1 := subStiffness(0, 0, e.lf, 1)
+	a0 := mat.NewDense(full, full, nil)
+	a1 := mat.NewDense(full, full, nil)
+	for i := range k0 {
+		for j := range k0 {
+			for _, ti := range sub[i] {
+				for _, tj := range sub[j] {
+					a0.Set(ti.j, tj.j, a0.At(ti.j, tj.j)+ti.c*tj.c*k0[i][j])
+					a1.Set(ti.j, tj.j, a1.At(ti.j, tj.j)+ti.c*tj.c*k1[i][j])
+				}
+			}
+		}
+	}
+	for side, r := range [2]int{2, 5} {
+		if o := own[side]; o >= 0 && !(side == 0 && e.release.AtStart() || side == 1 && e.release.AtEnd()) {
+			ks := e.spring[side]
+			a0.Set(o, o, a0.At(o, o)+ks)
+			a0.Set(r, r, a0.At(r, r)+ks)
+			a0.Set(o, r, a0.At(o, r)-ks)
+			a0.Set(r, o, a0.At(r, o)-ks)
+		}
+	}
+	a1.Set(2, 2, a1.At(2, 2)+e.a)
+	a1.Set(5, 5, a1.At(5, 5)+e.b)
+	// Condense the inner axial ones out of K (Kg has none of them), then
+	// the member's own.
+	keep := 6 + ni
+	red := schur(a0, keep)
+	if red == nil {
+		return k, false
+	}
+	p.ni = ni
+	var lii [maxOwn][maxOwn]float64
+	for i := range ni {
+		for j := range 6 {
+			p.kin[i][j] = red.At(6+i, j)
+		}
+	}
+	s := schur(red, 6)
+	if s == nil {
+		return k, false
+	}
+	own2 := mat.NewSymDense(ni, nil)
+	for i := range ni {
+		for j := i; j < ni; j++ {
+			own2.SetSym(i, j, red.At(6+i, 6+j))
+		}
+	}
+	var ch mat.Cholesky
+	if ni > 0 {
+		if !ch.Factorize(own2) {
+			return k, false
+		}
+		var l mat.TriDense
+		ch.LTo(&l)
+		for i := range ni {
+			for j := 0; j <= i; j++ {
+				lii[i][j] = l.At(i, j)
+			}
+		}
+	}
+	p.lii = lii
+	for j := range ni {
+		var col [maxOwn]float64
+		col[j] = 1
+		p.ownSolve(col[:ni])
+		for i := range ni {
+			p.inv[i][j] = col[i]
+		}
+	}
+	for i := range ni {
+		for j := range 6 {
+			s := 0.0
+			for q := range ni {
+				s += p.inv[i][q] * p.kin[q][j]
+			}
+			p.w[i][j] = s
+		}
+	}
+	for i := range keep {
+		for j := range keep {
+			p.g[i][j] = a1.At(i, j)
+			if j >= i && p.g[i][j] != 0 {
+				p.gnz = append(p.gnz, gEntry{uint8(i), uint8(j), p.g[i][j]})
+			}
+		}
+	}
+	for i := range 6 {
+		for j := range 6 {
+			k[i][j] = (s.At(i, j) + s.At(j, i)) / 2
+		}
+	}
+	return k, true
+}
+
+// schur returns a[:keep, :keep] − a[:keep, keep:] a[keep:, keep:]⁻¹
+// a[keep:, :keep], nil when a[keep:, keep:] is not positive definite.
+func schur(a *mat.Dense, keep int) *mat.Dense {
+	r, _ := a.Dims()
+	out := mat.DenseCopyOf(a.Slice(0, keep, 0, keep))
+	if r == keep {
+		return out
+	}
+	z := r - keep
+	zz := mat.NewSymDense(z, nil)
+	for i := range z {
+		for j := i; j < z; j++ {
+			zz.SetSym(i, j, a.At(keep+i, keep+j))
+		}
+	}
+	var ch mat.Cholesky
+	if !ch.Factorize(zz) {
+		return nil
+	}
+	var x mat.Dense
+	if err := ch.SolveTo(&x, a.Slice(keep, r, 0, keep)); err != nil {
+		return nil
+	}
+	var c mat.Dense
+	c.Mul(a.Slice(0, keep, keep, r), &x)
+	out.Sub(out, &c)
+	return out
+}
+
+// ownSolve overwrites x (length p.ni) with K's own block inverted times x.
+func (p *pencil) ownSolve(x []float64) {
+	for i := range p.ni {
+		s := x[i]
+		for k := range i {
+			s -= p.lii[i][k] * x[k]
+		}
+		x[i] = s / p.lii[i][i]
+	}
+	for i := p.ni - 1; i >= 0; i-- {
+		s := x[i]
+		for k := i + 1; k < p.ni; k++ {
+			s -= p.lii[k][i] * x[k]
+		}
+		x[i] = s / p.lii[i][i]
+	}
+}
+
+// local returns the member's node degrees of freedom of column c of the
+// block x (k columns, row-major) in local axes.
+func (p *pencil) local(x []float64, c, k int) [6]float64 {
+	var g, l [6]float64
+	for i, e := range p.gdof {
+		if e >= 0 {
+			g[i] = x[e*k+c]
+		}
+	}
+	for n := 0; n < 6; n += 3 {
+		l[n] = p.c*g[n] + p.s*g[n+1]
+		l[n+1] = -p.s*g[n] + p.c*g[n+1]
+		l[n+2] = g[n+2]
+	}
+	return l
+}
+
+// addGlobal adds the local node forces l, turned to global axes, to
+// column c of the block y (k columns).
+func (p *pencil) addGlobal(y []float64, l *[6]float64, c, k int) {
+	for n := 0; n < 6; n += 3 {
+		g := [3]float64{p.c*l[n] - p.s*l[n+1], p.s*l[n] + p.c*l[n+1], l[n+2]}
+		for i := range 3 {
+			if e := p.gdof[n+i]; e >= 0 {
+				y[e*k+c] += g[i]
+			}
+		}
+	}
+}
+
+// solveK overwrites each of the k columns of x (b.size rows, row-major)
+// with K⁻¹ times it: each member's own degrees of freedom eliminated,
+// the band factor, and them recovered. Each column's arithmetic is the
+// same whatever k.
+func (b *Buckling) solveK(x []float64, k int) {
+	var t [maxOwn]float64
+	for m := range b.mems {
+		p := &b.mems[m]
+		for c := range k {
+			for i := range p.ni {
+				s := 0.0
+				for q := range p.ni {
+					s += p.inv[i][q] * x[(p.off+q)*k+c]
+				}
+				t[i] = s
+			}
+			var l [6]float64
+			for i := range p.ni {
+				ti := t[i]
+				for j := range 6 {
+					l[j] -= p.kin[i][j] * ti
+				}
+				x[(p.off+i)*k+c] = ti
+			}
+			p.addGlobal(x, &l, c, k)
+		}
+	}
+	switch {
+	case b.n == 0:
+	case k == 1:
+		bandSolveVec(b.u, b.n, b.kb, x[:b.n])
+	default:
+		bandSolveCols(b.u, b.n, b.kb, x[:b.n*k], k)
+	}
+	for m := range b.mems {
+		p := &b.mems[m]
+		for c := range k {
+			l := p.local(x, c, k)
+			for i := range p.ni {
+				s := 0.0
+				for j := range 6 {
+					s += p.w[i][j] * l[j]
+				}
+				x[(p.off+i)*k+c] -= s
+			}
+		}
+	}
+}
+
+// bandSolveVec overwrites x with U⁻¹ U⁻ᵀ x, u an upper band Cholesky
+// factor (row-major, kb superdiagonals): bandSolve for one column, in the
+// same order of operations.
+func bandSolveVec(u []float64, n, kb int, x []float64) {
+	w := kb + 1
+	for i := range n {
+		xi := x[i] * (1 / u[i*w])
+		x[i] = xi
+		row := u[i*w+1 : i*w+min(w, n-i)]
+		y := x[i+1 : i+1+len(row)]
+		for j, v := range row {
+			if v != 0 {
+				y[j] += -v * xi
+			}
+		}
+	}
+	for i := n - 1; i >= 0; i-- {
+		row := u[i*w+1 : i*w+min(w, n-i)]
+		y := x[i+1 : i+1+len(row)]
+		s := x[i]
+		for j, v := range row {
+			if v != 0 {
+				s += -v * y[j]
+			}
+		}
+		x[i] = s * (1 / u[i*w])
+	}
+}
+
+// bandSolveCols is bandSolveVec for the k columns of x (row-major, n
+// rows), each column in the same order of operations as alone: one pass
+// over the factor for all.
+func bandSolveCols(u []float64, n, kb int, x []float64, k int) {
+	w := kb + 1
+	for i := range n {
+		xi := x[i*k : (i+1)*k]
+		d := 1 / u[i*w]
+		for c := range xi {
+			xi[c] *= d
+		}
+		row := u[i*w+1 : i*w+min(w, n-i)]
+		for j, v := range row {
+			if v == 0 {
+				continue
+			}
+			y := x[(i+1+j)*k : (i+2+j)*k]
+			for c := range y {
+				y[c] += -v * xi[c]
+			}
+		}
+	}
+	for i := n - 1; i >= 0; i-- {
+		xi := x[i*k : (i+1)*k]
+		row := u[i*w+1 : i*w+min(w, n-i)]
+		for j, v := range row {
+			if v == 0 {
+				continue
+			}
+			y := x[(i+1+j)*k : (i+2+j)*k]
+			for c := range xi {
+				xi[c] += -v * y[c]
+			}
+		}
+		d := 1 / u[i*w]
+		for c := range xi {
+			xi[c] *= d
+		}
+	}
+}
+
+// mulKg sets column c of the block y to −Kg x for the axial forces
+// axials[c], x and y of b.size rows and len(axials) columns.
+func (b *Buckling) mulKg(y, x []float64, axials [][]float64) {
+	clear(y)
+	k := len(axials)
+	var z [6 + maxOwn]float64
+	for m := range b.mems {
+		p := &b.mems[m]
+		d := 6 + p.ni
+		for c, axial := range axials {
+			nm := axial[m]
+			if nm == 0 {
+				continue
+			}
+			l := p.local(x, c, k)
+			copy(z[:6], l[:])
+			for i := range p.ni {
+				z[6+i] = x[(p.off+i)*k+c]
+			}
+			var f [6 + maxOwn]float64
+			for _, e := range p.gnz {
+				f[e.i] += e.v * z[e.j]
+				if e.i != e.j {
+					f[e.j] += e.v * z[e.i]
+				}
+			}
+			for i := 6; i < d; i++ {
+				y[(p.off+i-6)*k+c] += -nm * f[i]
+			}
+			fn := [6]float64{-nm * f[0], -nm * f[1], -nm * f[2], -nm * f[3], -nm * f[4], -nm * f[5]}
+			p.addGlobal(y, &fn, c, k)
+		}
+	}
+}
+
+// Lanczos limits: the most steps, and the estimated error of the largest
+// Ritz value θ, relative to it, at which it is taken as found: the
+// residual bound (an eigenvalue lies within it), or, once that is below
+// lanczosNear, its square over the gap to the next Ritz value (the error
+// of θ itself; met early by a Ritz value that is not yet the largest
+// eigenvalue's, hence the bound). Either way the result stands only by
+// the check of [Buckling.Factors]: Ritz values lie below the largest
+// eigenvalue μ, so 1/θ is never below αcr, and the check bounds αcr from
+// below within certifyGap.
+const (
+	maxLanczos  = 300
+	lanczosTol  = 1e-9
+	lanczosNear = 1e-4
+)
+
+// Factor returns αcr for the axial forces axial (one per member, tension
+// positive), as [CriticalFactor].
+func (b *Buckling) Factor(axial []float64) (float64, error) {
+	a, err := b.Factors([][]float64{axial})
+	if err != nil {
+		return 0, err
+	}
+	return a[0], nil
+}
+
+// Factors returns αcr for each set of axial forces of axials, as
+// [Buckling.Factor] for each: the first set's iteration alone, then the
+// others' side by side from its mode (each step's substitutions one pass
+// over the factor for all); each within certifyGap of the set's αcr, as
+// one by one, and the same on every run.
+//
+// Each factor found is certified: it is 1/θ for the largest Ritz value θ,
+// never below αcr, and K + λ·Kg must be positive definite at λ =
+// (1 − certifyGap)/θ (one band Cholesky factorization, Sylvester's law of
+// inertia), so that αcr lies within certifyGap below it. Where the check
+// fails (a mode missed), αcr is found by the search that factors
+// K + λ·Kg at trial λ instead.
+func (b *Buckling) Factors(axials [][]float64) ([]float64, error) {
+	mo := b.model
+	out := make([]float64, len(axials))
+	var run [][]float64
+	var at []int
+	for c, axial := range axials {
+		if len(axial) != len(mo.Members) {
+			panic("frame: Buckling.Factors: axial does not give one axial force per member")
+		}
+		compressed := false
+		for _, v := range axial {
+			if !finite(v) {
+				return nil, fmt.Errorf("frame: CriticalFactor: axial force %v is not a finite number", v)
+			}
+			compressed = compressed || v < 0
+		}
+		if !compressed || b.size == 0 {
+			out[c] = math.Inf(1)
+			continue
+		}
+		run, at = append(run, axial), append(at, c)
+	}
+	// A fixed start with every direction in it: z, and r = K⁻¹ z, then
+	// K-normalized.
+	z := make([]float64, b.size)
+	for i := range z {
+		z[i] = math.Sin(float64(i+1)*0.7548776662) + 0.5
+	}
+	r := slices.Clone(z)
+	b.solveK(r, 1)
+	if nr := math.Sqrt(dot(r, z)); nr > 0 {
+		for i := range r {
+			r[i] /= nr
+			z[i] /= nr
+		}
+	}
+	// The first set alone; the others side by side from its mode, with
+	// the fixed start's every direction mixed in: the modes of a frame's
+	// combinations are much alike.
+	mus, errs, y, ky := b.lanczos(run[:min(1, len(run))], r, z, len(run) > 1)
+	if len(run) > 1 {
+		if y != nil {
+			for i := range y {
+				y[i] += warmMix * r[i]
+				ky[i] += warmMix * z[i]
+			}
+			r, z = y, ky
+		}
+		m, e, _, _ := b.lanczos(run[1:], r, z, false)
+		mus, errs = append(mus, m...), append(errs, e...)
+	}
+	fail := make([]error, len(axials))
+	next := make(chan int, len(run))
+	for i := range run {
+		next <- i
+	}
+	close(next)
+	var wg sync.WaitGroup
+	for range min(runtime.GOMAXPROCS(0), len(run)) {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			for i := range next {
+				c := at[i]
+				if errs[i] != nil {
+					out[c], fail[c] = criticalBisect(mo, run[i])
+					continue
+				}
+				out[c], fail[c] = b.certify(mus[i], run[i])
+			}
+		}()
+	}
+	wg.Wait()
+	if err := errors.Join(fail...); err != nil {
+		return nil, err
+	}
+	return out, nil
+}
+
+// certify returns 1/mu when the check bounds αcr of axial within
+// certifyGap below it (+Inf for mu ≤ 1e-12 when the stiffness is positive
+// definite up to λ = 1e12), else αcr by the search of factorizations.
+func (b *Buckling) certify(mu float64, axial []float64) (float64, error) {
+	switch {
+	case !(mu > 1/maxCritical):
+		if b.definite(maxCritical, axial) {
+			return math.Inf(1), nil
+		}
+	case b.definite((1-certifyGap)/mu, axial):
+		return 1 / mu, nil
+	}
+	return criticalBisect(b.model, axial)
+}
+
+// warmMix is the share of the fixed start mixed into the mode the other
+// sets of axial forces start from.
+const warmMix = 1e-3
+
+// certifyGap is how far below the factor found the stiffness must still
+// be positive definite: within the six figures reported.
+const certifyGap = 1e-6
+
+// definite reports whether K + λ·Kg of axial is positive definite.
+func (b *Buckling) definite(lambda float64, axial []float64) bool {
+	mo, sol := b.model, b.sol
+	elems := make([]element, len(mo.Members))
+	for m := range mo.Members {
+		e, ok := newElementAxial(mo, m, lambda*axial[m], true)
+		if !ok {
+			return false
+		}
+		elems[m] = e
+	}
+	if b.n == 0 {
+		return true
+	}
+	data := make([]float64, b.n*(b.kb+1))
+	sol.assembleTo(data, b.kb, elems)
+	_, ok := lapack64.Pbtrf(blas64.SymmetricBand{Uplo: blas.Upper, N: b.n, K: b.kb, Data: data, Stride: b.kb + 1})
+	return ok
+}
+
+// lanczos returns, for each set of axial forces, the largest eigenvalue μ
+// of K⁻¹(−Kg) (0 or less when none is positive), by Lanczos iteration in
+// the K inner product with full reorthogonalization, every set's side by
+// side, from r0 (w0 = K r0). With keep, y is the first set's eigenvector
+// found, K-normalized, and ky = K y.
+func (b *Buckling) lanczos(axials [][]float64, r0, w0 []float64, keep bool) (mus []float64, errs []error, y, ky []float64) {
+	size, k := b.size, len(axials)
+	type recurrence struct {
+		qs, ps      [][]float64 // K-orthonormal q, and p = K q
+		alpha, beta []float64
+		r, w        []float64 // the next residual, and K r
+		top         float64   // the largest |α|, the scale of the operator
+		done        bool
+	}
+	mus, errs = make([]float64, k), make([]error, k)
+	recs := make([]recurrence, k)
+	for c := range recs {
+		recs[c].r, recs[c].w = slices.Clone(r0), slices.Clone(w0)
+	}
+	var active []int
+	var block, out []float64
+	var ax [][]float64
+	for j := 0; j < min(maxLanczos, size); j++ {
+		active = active[:0]
+		for c := range recs {
+			rc := &recs[c]
+			if rc.done {
+				continue
+			}
+			// Reorthogonalize r against every q, and w = K r alike.
+			for q := range rc.qs {
+				s := dot(rc.ps[q], rc.r)
+				axpy(rc.r, -s, rc.qs[q])
+				axpy(rc.w, -s, rc.ps[q])
+			}
+			bb := dot(rc.r, rc.w)
+			if j == 0 && !(bb > 0) {
+				errs[c] = errors.New("frame: CriticalFactor: the stiffness is not positive definite")
+				rc.done = true
+				continue
+			}
+			if j > 0 {
+				if !(bb > 0) || math.Sqrt(bb) <= 1e-13*rc.top {
+					// An invariant subspace: T's eigenvalues are exact.
+					mus[c], _, _ = tridiagTop(rc.alpha, rc.beta, 0)
+					rc.done = true
+					if keep && c == 0 {
+						y, ky = ritzVector(rc.qs, rc.ps, rc.alpha, rc.beta)
+					}
+					continue
+				}
+				rc.beta = append(rc.beta, math.Sqrt(bb))
+			}
+			nb := math.Sqrt(bb)
+			for i := range rc.r {
+				rc.r[i] /= nb
+				rc.w[i] /= nb
+			}
+			rc.qs, rc.ps = append(rc.qs, rc.r), append(rc.ps, rc.w)
+			active = append(active, c)
+		}
+		if len(active) == 0 {
+			break
+		}
+		na := len(active)
+		block = slices.Grow(block[:0], size*na)[:size*na]
+		out = slices.Grow(out[:0], size*na)[:size*na]
+		ax = ax[:0]
+		for a, c := range active {
+			q := recs[c].qs[j]
+			for i, v := range q {
+				block[i*na+a] = v
+			}
+			ax = append(ax, axials[c])
+		}
+		b.mulKg(out, block, ax) // −Kg q = K r
+		copy(block, out)
+		b.solveK(block, na)
+		for a, c := range active {
+			rc := &recs[c]
+			rc.r, rc.w = make([]float64, size), make([]float64, size)
+			for i := range size {
+				rc.r[i], rc.w[i] = block[i*na+a], out[i*na+a]
+			}
+			q, p := rc.qs[j], rc.ps[j]
+			al := dot(q, rc.w)
+			rc.alpha = append(rc.alpha, al)
+			rc.top = max(rc.top, math.Abs(al))
+			axpy(rc.r, -al, q)
+			axpy(rc.w, -al, p)
+			if j > 0 {
+				axpy(rc.r, -rc.beta[j-1], rc.qs[j-1])
+				axpy(rc.w, -rc.beta[j-1], rc.ps[j-1])
+			}
+			theta, res, gap := tridiagTop(rc.alpha, rc.beta, math.Sqrt(max(dot(rc.r, rc.w), 0)))
+			if res <= lanczosTol*math.Abs(theta) || res <= lanczosNear*math.Abs(theta) && res*res <= lanczosTol*gap*math.Abs(theta) {
+				mus[c] = theta
+				rc.done = true
+			} else if j+1 >= min(maxLanczos, size) {
+				if j+1 < maxLanczos {
+					mus[c] = theta // the whole space: exact
+				} else {
+					errs[c] = fmt.Errorf("frame: CriticalFactor: %w: the largest eigenvalue did not converge in %d steps", ErrNoCritical, maxLanczos)
+				}
+				rc.done = true
+			}
+			if rc.done {
+				if keep && c == 0 && errs[c] == nil {
+					y, ky = ritzVector(rc.qs, rc.ps, rc.alpha, rc.beta)
+				}
+				rc.qs, rc.ps = nil, nil
+			}
+		}
+	}
+	return mus, errs, y, ky
+}
+
+// ritzVector returns Q s and P s for s the eigenvector of the largest
+// eigenvalue of the tridiagonal matrix of alpha and beta.
+func ritzVector(qs, ps [][]float64, alpha, beta []float64) (y, ky []float64) {
+	m := len(alpha)
+	t := mat.NewSymDense(m, nil)
+	for i := range m {
+		t.SetSym(i, i, alpha[i])
+		if i+1 < m {
+			t.SetSym(i, i+1, beta[i])
+		}
+	}
+	var eig mat.EigenSym
+	if !eig.Factorize(t, true) {
+		return nil, nil
+	}
+	var v mat.Dense
+	eig.VectorsTo(&v)
+	y, ky = make([]float64, len(qs[0])), make([]float64, len(qs[0]))
+	for j := range m {
+		axpy(y, v.At(j, m-1), qs[j])
+		axpy(ky, v.At(j, m-1), ps[j])
+	}
+	return y, ky
+}
+
+// tridiagTop returns the largest eigenvalue of the symmetric tridiagonal
+// matrix of diagonal alpha and off-diagonal beta, its residual bound
+// next·|last component of its eigenvector|, and its distance to the next
+// eigenvalue (+Inf for a 1 × 1 matrix).
+func tridiagTop(alpha, beta []float64, next float64) (theta, res, gap float64) {
+	m := len(alpha)
+	t := mat.NewSymDense(m, nil)
+	for i := range m {
+		t.SetSym(i, i, alpha[i])
+		if i+1 < m {
+			t.SetSym(i, i+1, beta[i])
+		}
+	}
+	var eig mat.EigenSym
+	if !eig.Factorize(t, true) {
+		return math.NaN(), math.Inf(1), 0
+	}
+	vals := eig.Values(nil)
+	var v mat.Dense
+	eig.VectorsTo(&v)
+	gap = math.Inf(1)
+	if m > 1 {
+		gap = vals[m-1] - vals[m-2]
+	}
+	return vals[m-1], next * math.Abs(v.At(m-1, m-1)), gap
+}
+
+// CriticalFactor returns αcr, the elastic critical load factor of the
+// model under the axial forces axial (one per member, tension positive):
+// the smallest λ > 0 for which K + λ·Kg is singular, K the elastic
+// stiffness and Kg the geometric stiffness of the axial forces (with each
+// member's flexible part subdivided, SubElements). It returns +Inf when
+// no member is in compression, or when no λ up to 1e12 makes it singular.
+// For several sets of axial forces on one model, [NewBuckling] factors K
+// once for all. A model the first-order solve refuses is refused with
+// the same error.
+func CriticalFactor(mo *Model, axial []float64) (float64, error) {
+	if len(axial) != len(mo.Members) {
+		panic("frame: CriticalFactor: axial does not give one axial force per member")
+	}
+	compressed := false
+	for _, n := range axial {
+		if !finite(n) {
+			return 0, fmt.Errorf("frame: CriticalFactor: axial force %v is not a finite number", n)
+		}
+		compressed = compressed || n < 0
+	}
+	if !compressed {
+		return math.Inf(1), nil
+	}
+	b, err := NewBuckling(mo)
+	if err != nil {
+		return 0, err
+	}
+	return b.Factor(axial)
+}
+
+var debugLanczos = false
