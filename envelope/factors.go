@@ -33,6 +33,23 @@ type Factors struct {
 	Accompanying [][][3]float64
 }
 
+// Scale returns the factors on N, V and M of original case c in member m
+// in a combination where c leads (lead) or does not: Accompanying[m][c]
+// where c does not lead and Accompanying gives a row for m, else
+// Of[m][c], else 1 for each.
+func (f *Factors) Scale(m, c int, lead bool) [3]float64 {
+	if f == nil {
+		return [3]float64{1, 1, 1}
+	}
+	if !lead && m < len(f.Accompanying) && f.Accompanying[m] != nil {
+		return f.Accompanying[m][c]
+	}
+	if m < len(f.Of) && f.Of[m] != nil {
+		return f.Of[m][c]
+	}
+	return [3]float64{1, 1, 1}
+}
+
 // Leads reports whether case c leads in combination cb: is one of its
 // Lead cases, when the combination names them; otherwise (a combination
 // written in a model, or a case alone) when c has a term whose factor is

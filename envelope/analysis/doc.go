@@ -51,12 +51,12 @@
 // load reduction its reduced reactions stand beside the unreduced ones
 // ([CaseResult].Reduced). Job.MemberFactors (live load reduction) scale
 // the effects of a case in a member in the envelopes and the reactions
-// formed from them ([Result.ReducedReactions] for one case), where every
-// combination is analysed first-order with the sections as given;
-// deflections and the statics check are of the loads as given. With
-// another method (second order, reduced stiffness) Run refuses member
-// factors with [ErrNotApplied], so that no setting is ever silently
-// ignored.
+// formed from them ([Result.ReducedReactions] for one case), with any
+// method: a second-order combination's geometric stiffness is of its
+// unreduced loads, and each case and piece solved on it is scaled as in
+// a first-order run (its second-order station moment with it);
+// deflections, the statics check and the notional loads are of the loads
+// as given.
 //
 // Second-order results: moments include N·(v − v(0)) along each member
 // (package frame); αcr is for the combination as written; storeys give

@@ -4,7 +4,9 @@ import (
 	"fmt"
 	"math"
 
+	"govern/combos"
 	"govern/envelope"
+	"govern/patterns"
 )
 
 // checkFactors returns an error for member factors that do not fit the
@@ -170,4 +172,25 @@ func (r *Result) reduced(c int) bool {
 		}
 	}
 	return false
+}
+
+// columnFactors returns the factors f puts on N, V and M of member m in
+// each column (load case or pattern piece) of lay's model, in combination
+// cb: each column takes its case's, as the case leads in cb or not.
+func columnFactors(f *envelope.Factors, lay *patterns.Layout, kinds []combos.Kind, cb *combos.Combination, m int) [][3]float64 {
+	out := make([][3]float64, len(lay.Model.Cases))
+	caseOf := make([]int, len(out))
+	for c := range caseOf {
+		caseOf[c] = c
+	}
+	for _, p := range lay.Patterned {
+		for _, u := range p.Units {
+			caseOf[u.Column] = p.Case
+		}
+	}
+	for c := range out {
+		oc := caseOf[c]
+		out[c] = f.Scale(m, oc, envelope.Leads(cb, oc, kinds))
+	}
+	return out
 }

@@ -311,7 +311,8 @@ type Job struct {
 }
 
 // ErrNotApplied marks a field of a Job that asks for something Run does
-// not do yet.
+// not do yet. No field is refused at present; it stays for the next
+// option (DEVELOPERS.md, "How to add an analysis option").
 var ErrNotApplied = errors.New("not applied yet")
 
 // ErrUnused marks a load case that no combination uses.

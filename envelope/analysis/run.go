@@ -174,11 +174,6 @@ func Run(ctx context.Context, job *Job, opt Options) (*Result, error) {
 	if err != nil {
 		return nil, err
 	}
-	if len(job.MemberFactors) > 0 && !pl.simple {
-		// A second-order combination is solved whole, its cases not apart:
-		// its effects cannot be scaled case by case.
-		return nil, fmt.Errorf("analysis: Job.MemberFactors (live load reduction) with a combination analysed other than first-order with the sections as given (second order, reduced stiffness, notional loads): %w; Run refuses them rather than ignore them", ErrNotApplied)
-	}
 	lay, err := patterns.Expand(sv.model, sv.patterned, job.Segments, mode)
 	if err != nil {
 		return nil, err
@@ -284,6 +279,11 @@ func Run(ctx context.Context, job *Job, opt Options) (*Result, error) {
 			cb.CriticalFactor, cb.CriticalNominal = u.critical, u.nominal
 		}
 	} else {
+		// Member factors scale each case's and piece's effects on the
+		// combination's own stiffness, second-order included: its geometric
+		// stiffness is from the unreduced axial forces (iterate), fixed, so
+		// the effects of its columns superpose as in first order.
+		set.Factors = job.envelopeFactors(len(sv.kinds))
 		reqs := []request{{set: set}}
 		if job.Sway.Notional != NoNotional || job.Sway.TauB == TauBNotional {
 			bare := set

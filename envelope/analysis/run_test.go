@@ -110,10 +110,6 @@ func TestRunRefuses(t *testing.T) {
 		{"a member factor twice", func(j *Job) {
 			j.MemberFactors = []MemberFactor{{Member: 0, Case: 1, N: 1, V: 1, M: 1}, {Member: 0, Case: 1, N: 1, V: 1, M: 1}}
 		}, nil, "two member factors"},
-		{"member factors with second order", func(j *Job) {
-			j.MemberFactors = []MemberFactor{{Member: 0, Case: 1, N: 0.5, V: 0.5, M: 0.5}}
-			j.Methods = []Method{{}, {SecondOrder: true}}
-		}, ErrNotApplied, "Job.MemberFactors (live load reduction) with a combination analysed other than first-order"},
 		{"a stiffness factor above 1", func(j *Job) { j.Sway.StrengthEI = 1.2 }, nil, "a reduction is at most 1"},
 		{"factors on I for the wrong sections", func(j *Job) { j.Sway.SectionI = []float64{0.35, 0.7, 1} }, nil, "gives 3 factors for 1 sections"},
 		{"a method for each combination", func(j *Job) { j.Methods = []Method{{}} }, nil, "gives 1 methods for 2 combinations"},

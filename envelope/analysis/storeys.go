@@ -441,6 +441,15 @@ func (r *Result) amplifications(pl *plan, sv *solved, lay *patterns.Layout, set 
 		for i, it := range items {
 			vals[i] = make([]frame.Forces, nc)
 			sol.StationsTo(vals[i], it.m, []float64{r.Envelope.Members[it.m].Stations[it.station].X})
+			// With member factors (live load reduction) the first-order
+			// moment is scaled as the second-order one was.
+			if set.Factors != nil {
+				for c, s := range columnFactors(set.Factors, glay, set.Kinds, &cs[0], it.m) {
+					vals[i][c].N *= s[0]
+					vals[i][c].V *= s[1]
+					vals[i][c].M *= s[2]
+				}
+			}
 		}
 		ex, err := envelope.Values(sol, cs, idx, set, glay, len(items),
 			func(c, i int) [3]float64 { f := vals[i][c]; return [3]float64{f.N, f.V, f.M} },

@@ -5,7 +5,6 @@ import (
 	"slices"
 
 	"govern/combos"
-	"govern/envelope/analysis"
 	"govern/envelope/reduction"
 	"govern/frame"
 	"govern/frame/units"
@@ -193,24 +192,11 @@ func (r *reader) readCaseReduction(t *table, ci int, c *frame.Case, k combos.Kin
 }
 
 // reduceCases turns the reduced cases into the job's member factors,
-// once every member, case, combination and method is known. Reduction
-// needs the cases' effects apart: a second-order analysis, notional loads
-// or a reduced stiffness (which analysis.Run refuses with member factors)
-// is an error at each reduced case.
+// once every member, case, combination and method is known. They apply
+// with any [analysis] settings: in a second-order analysis the geometric
+// stiffness is from the unreduced loads (docs/analysis.md).
 func (r *reader) reduceCases() {
 	job := r.job
-	other := job.Sway.Notional != analysis.NoNotional || job.Sway.TauB == analysis.TauBNotional
-	for k := range job.Combinations {
-		if k < len(job.Methods) && (job.Methods[k].SecondOrder || job.Methods[k].Stiffness != analysis.Nominal) {
-			other = true
-		}
-	}
-	if other && len(r.reduce) > 0 {
-		for _, rd := range r.reduce {
-			rd.t.fail("reduction", problem(ErrValue, "reduction with a second-order analysis, notional loads or a stiffness reduction in [analysis] is not applied yet: a second-order analysis solves each combination whole, not case by case; remove one or the other"))
-		}
-		return
-	}
 	for _, rd := range r.reduce {
 		rc := rd.rc
 		if !rd.hasWidth {
