@@ -54,20 +54,7 @@ func gravityAtNodes(mo *frame.Model, cs *frame.Case, factor float64, g []float64
 			continue
 		}
 		mem := mo.Members[ld.Member]
-		l := mo.Length(ld.Member)
-		var p, x float64 // resultant and its distance from the start
-		if ld.Point {
-			p, x = ld.P, ld.At
-		} else {
-			a, b := ld.From, ld.To
-			p = (ld.W + ld.WEnd) / 2 * (b - a)
-			if s := ld.W + ld.WEnd; s != 0 {
-				x = a + (b-a)*(ld.W+2*ld.WEnd)/(3*s)
-			} else {
-				x = (a + b) / 2
-			}
-		}
-		r := min(max(x/l, 0), 1)
+		p, r := leverShares(mo, ld)
 		g[mem.Start] += factor * p * (1 - r)
 		g[mem.End] += factor * p * r
 	}
@@ -255,4 +242,24 @@ func NotionalLoads(job *Job) ([][]Notional, error) {
 		}
 	}
 	return out, nil
+}
+
+// leverShares returns the resultant p of member load ld and the share r
+// of it its end node takes by the lever rule (1 − r at its start), as a
+// simply supported member would carry it: the resultant's distance from
+// the start over the length, held to 0 to 1.
+func leverShares(mo *frame.Model, ld *frame.MemberLoad) (p, r float64) {
+	var x float64 // the resultant's distance from the start
+	if ld.Point {
+		p, x = ld.P, ld.At
+	} else {
+		a, b := ld.From, ld.To
+		p = (ld.W + ld.WEnd) / 2 * (b - a)
+		if s := ld.W + ld.WEnd; s != 0 {
+			x = a + (b-a)*(ld.W+2*ld.WEnd)/(3*s)
+		} else {
+			x = (a + b) / 2
+		}
+	}
+	return p, min(max(x/mo.Length(ld.Member), 0), 1)
 }

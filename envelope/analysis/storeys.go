@@ -329,22 +329,9 @@ func lateralAtNodes(mo *frame.Model, cs *frame.Case, hx []float64) {
 			continue
 		}
 		mem := mo.Members[ld.Member]
-		l := mo.Length(ld.Member)
-		var p, x float64
-		if ld.Point {
-			p, x = ld.P, ld.At
-		} else {
-			a, b := ld.From, ld.To
-			p = (ld.W + ld.WEnd) / 2 * (b - a)
-			if s := ld.W + ld.WEnd; s != 0 {
-				x = a + (b-a)*(ld.W+2*ld.WEnd)/(3*s)
-			} else {
-				x = (a + b) / 2
-			}
-		}
-		rr := min(max(x/l, 0), 1)
-		hx[mem.Start] += p * (1 - rr)
-		hx[mem.End] += p * rr
+		p, r := leverShares(mo, ld)
+		hx[mem.Start] += p * (1 - r)
+		hx[mem.End] += p * r
 	}
 }
 
