@@ -30,7 +30,7 @@ func describe(a *Actions, cs []string) string {
 }
 
 func TestGroupActionsByDefault(t *testing.T) {
-	// The default rule of issue 11: live, roof-live and snow cases one
+	// The default rule: live, roof-live and snow cases one
 	// action each, acting together (EN 1991-1-1 6.1: the imposed load is a
 	// single action; drift and sliding surcharges are superimposed on the
 	// balanced snow load, common practice); wind and seismic one action,
@@ -192,7 +192,7 @@ func together(cbs []Combination, cs []string, a, b string) (string, bool) {
 	return "", false
 }
 
-// windModel is issue 11's model: D; L (category B); Lr (category H); S
+// windModel is the wind portal's model: D; L (category B); Lr (category H); S
 // (snow, site up to 1000 m); wind from the left WL and from the right WR,
 // two cases of kind wind.
 var windModel = []string{"D dead", "L live category=B", "Lr roof-live category=H", "S snow category=snow-up-to-1000m", "WL wind", "WR wind"}
@@ -233,7 +233,7 @@ func TestActionsNeverCombineAlternatives(t *testing.T) {
 }
 
 func TestActionsCounts(t *testing.T) {
-	// Issue 11's model against ASCE/SEI 7-16 sections 2.3.1 and 2.4.1 and
+	// The wind portal's model against ASCE/SEI 7-16 sections 2.3.1 and 2.4.1 and
 	// EN 1990 Annex A1 (expressions 6.10, 6.10a/b, 6.14b, 6.15b, 6.16b):
 	// the same counts as one reversible wind case W, the two directions
 	// taking the places of +W and -W. Hand count for the strength set:
@@ -270,7 +270,7 @@ func TestActionsCounts(t *testing.T) {
 			"1.2D+1.6L+0.5Lr", "1.2D+1.6L+0.5S", // (2)
 			"1.2D+1.6Lr+1.0L", "1.2D+1.6Lr+0.5WL", "1.2D+1.6Lr+0.5WR", // (3)
 			"1.2D+1.6S+1.0L", "1.2D+1.6S+0.5WL", "1.2D+1.6S+0.5WR",
-			"1.2D+1.0WL+1.0L+0.5Lr", "1.2D+1.0WL+1.0L+0.5S", // (4), the issue's example first
+			"1.2D+1.0WL+1.0L+0.5Lr", "1.2D+1.0WL+1.0L+0.5S", // (4), the readable name's example first
 			"1.2D+1.0WR+1.0L+0.5Lr", "1.2D+1.0WR+1.0L+0.5S",
 			"0.9D+1.0WL", "0.9D+1.0WR", // (5)
 		)
@@ -351,7 +351,7 @@ func TestActionsLiveAlternatives(t *testing.T) {
 func TestActionsWithReversible(t *testing.T) {
 	// Windward wall pressure Ww and roof suction Wr of one direction,
 	// joined with with, reversible: two sign patterns, both cases + or
-	// both -, never mixed (issue 11; ASCE/SEI 7-16 2.3.1 (5) 0.9D + 1.0W).
+	// both -, never mixed (ASCE/SEI 7-16 2.3.1 (5) 0.9D + 1.0W).
 	got := generateSet(t, "asce7-16-strength", Params{}, "D dead", "Ww wind reversible", "Wr wind with=Ww")
 	sameList(t, got, "1.4D", "1.2D+1.0Ww+1.0Wr", "1.2D-1.0Ww-1.0Wr", "0.9D+1.0Ww+1.0Wr", "0.9D-1.0Ww-1.0Wr")
 	t.Run("two directions, each reversible", func(t *testing.T) {

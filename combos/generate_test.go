@@ -152,7 +152,7 @@ func TestGenerateNamesAndRules(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	// The example of a readable name: ASCE/SEI 7-16 section 2.3.1
+	// An example of a readable name: ASCE/SEI 7-16 section 2.3.1
 	// combination 3 with snow leading and half the wind.
 	for _, cb := range got {
 		if cb.Name == "2.3.1-3 1.2D+1.6S+0.5W" {

@@ -9,7 +9,7 @@ import (
 
 // Each built-in set against its standard. ASCE/SEI 7-16 expressions are
 // recalled from memory (sections 2.3.1, 2.3.6, 2.4.1, 2.4.5 and 12.4.2.2);
-// they are also the ones issue 3 lists. EN 1990 factors are Annex A1, Table
+// they are also the common practice lists. EN 1990 factors are Annex A1, Table
 // A1.2(B) (γG,sup 1.35, γG,inf 1.00, γQ 1.5, ξ 0.85), confirmed by "Steel
 // Buildings in Europe", Part 3: Actions, section 3.2 (Table 3.1 and its
 // worked example); ψ from Table A1.1 (see psi_test.go).
@@ -33,7 +33,7 @@ func sameList(t *testing.T, got []string, want ...string) {
 
 func TestASCE716StrengthFifteen(t *testing.T) {
 	// ASCE/SEI 7-16 section 2.3.1 combinations 1-5 with D, L, Lr, S and a
-	// reversible W: exactly the 15 factor sets of issue 3, in rule order.
+	// reversible W: exactly the 15 factor sets of those sections, in rule order.
 	got := generateSet(t, "asce7-16-strength", Params{}, "D dead", "L live", "Lr roof-live", "S snow", "W wind reversible")
 	sameList(t, got,
 		"1.4D",                              // 2.3.1 (1) 1.4D
@@ -132,7 +132,7 @@ func TestEN1990Expression6_10(t *testing.T) {
 		"1.35G", // permanent actions alone
 		// γG,sup = 1.35, each variable action leading with γQ = 1.5, the
 		// others at γQ ψ0: 1.5 × 0.5 = 0.75 (S), 1.5 × 0.6 = 0.9 (W),
-		// 1.5 × 0.7 = 1.05 (Q). The issue's example is the first.
+		// 1.5 × 0.7 = 1.05 (Q). The first is the example.
 		"1.35G+1.5Q+0.75S+0.9W", "1.35G+1.5Q+0.75S-0.9W",
 		"1.35G+1.5S+1.05Q+0.9W", "1.35G+1.5S+1.05Q-0.9W",
 		"1.35G+1.5W+1.05Q+0.75S", "1.35G-1.5W+1.05Q+0.75S",

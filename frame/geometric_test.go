@@ -7,7 +7,7 @@ import (
 )
 
 // secondTol is the agreement asked of the subdivided members with the
-// closed forms: 0.1 %, the "enough" for P-δ.
+// closed forms: 0.1 %, the accuracy asked of P-δ.
 const secondTol = 1e-3
 
 // beamColumn returns a vertical member of length l with EI = ei from a
@@ -45,11 +45,11 @@ func TestSecondOrderCantilever(t *testing.T) {
 	k := math.Sqrt(p / ei)
 	delta := h * (math.Tan(k*l) - k*l) / (p * k)
 	if !within(delta, 0.169134, 2e-6) {
-		t.Fatalf("closed form δ = %.7g, the issue's 0.169134", delta)
+		t.Fatalf("closed form δ = %.7g, want 0.169134", delta)
 	}
 	mBase := h * l * math.Tan(k*l) / (k * l)
 	if !within(mBase, 1.126536, 2e-6) {
-		t.Fatalf("closed form base moment %.7g, the issue's 1.126536", mBase)
+		t.Fatalf("closed form base moment %.7g, want 1.126536", mBase)
 	}
 	for _, tc := range []struct {
 		name string
@@ -153,10 +153,10 @@ func TestSecondOrderSwayWithoutRotation(t *testing.T) {
 	sway := 2 * h * (math.Tan(u) - u) / (p * k)
 	mEnd := h * math.Tan(u) / k
 	if !within(mEnd, 0.260727, 3e-6) {
-		t.Fatalf("closed form end moment %.7g, the issue's 0.260727", mEnd)
+		t.Fatalf("closed form end moment %.7g, want 0.260727", mEnd)
 	}
 	if !within(sway, 0.017864, 3e-5) {
-		t.Fatalf("closed form sway %.7g, the issue's 0.017864", sway)
+		t.Fatalf("closed form sway %.7g, want 0.017864", sway)
 	}
 	mo := beamColumn(l, ei, h, p, Fixed, HoldRZ)
 	first := solveAxial(t, mo, []float64{0})

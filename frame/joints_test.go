@@ -140,7 +140,7 @@ func TestSemiRigidEnds(t *testing.T) {
 		sol := solve(t, mo)
 		want := (w * l * l / 12) / (1 + 2*ei/(k*l))
 		if math.Abs(want-18) > 1e-12 {
-			t.Fatalf("closed form %g, the issue gives 18.00", want)
+			t.Fatalf("closed form %g, want 18.00", want)
 		}
 		for _, x := range []float64{0, l} {
 			if got := sagging(sol, l, x, rev).M; !near(got, -want, tightTol) {

@@ -7,7 +7,7 @@ import (
 	"testing"
 )
 
-// The properties of the issue's checks: EI = 1e4, EA = 1e6, α = 1.2e-5,
+// The properties of the closed-form checks: EI = 1e4, EA = 1e6, α = 1.2e-5,
 // h = 0.5, L = 6.
 const (
 	chkE, chkI, chkA   = 1e7, 1e-3, 0.1
@@ -161,10 +161,10 @@ func TestNewLoadsAgainstFixedEndMoments(t *testing.T) {
 	}
 }
 
-// TestIssueCheckValues prints the check values of the issue to four
+// TestCheckValues prints the check values to four
 // decimals: EI·α·ΔT/h = 4.8000, −EA·α·ΔT = −240.0000, 6EIΔ/L² = 16.6667,
 // 12EIΔ/L³ = 5.5556 (closed forms above).
-func TestIssueCheckValues(t *testing.T) {
+func TestCheckValues(t *testing.T) {
 	const dT, delta = 20.0, 0.01
 	thermal := solve(t, fixedBeam(chkL, false, MemberLoad{Member: 0, Thermal: true, DT: dT, DTGrad: dT}))
 	settle := fixedBeam(chkL, false)
@@ -180,7 +180,7 @@ func TestIssueCheckValues(t *testing.T) {
 		t.Errorf("shear under a temperature gradient %g, want 0", v)
 	}
 	if strings.Join(got, " ") != strings.Join(want, " ") {
-		t.Errorf("got %v, want %v (the issue's check values)", got, want)
+		t.Errorf("got %v, want %v (the check values)", got, want)
 	}
 }
 

@@ -23,7 +23,7 @@ func sourceLine(t *testing.T, src, s string) int {
 	return strings.Count(src[:i], "\n") + 1
 }
 
-// portalReactions solves issue 11's portal (testdata/wind-portal.toml:
+// portalReactions solves the wind portal (testdata/wind-portal.toml:
 // fixed feet A (0, 0) and D (6, 0), knees B (0, 3) and C (6, 3), EI = 2e4,
 // EA = 2e6) by the force method, independently of the stiffness solver:
 // the base D released, its reactions X = (Fx, Fy, M) are the redundants,
@@ -228,7 +228,7 @@ func sameEnvelopes(t *testing.T, got, want *envelope.Envelope, rel float64) {
 }
 
 func TestWindPortalAsHandWritten(t *testing.T) {
-	// Issue 11: the envelopes from asce7-16-strength with WL and WR as
+	// The envelopes from asce7-16-strength with WL and WR as
 	// alternatives equal those of the combinations written out by hand,
 	// each wind direction on its own (ASCE/SEI 7-16 section 2.3.1), at
 	// every station and reaction, as written and with variable loads only
@@ -256,9 +256,9 @@ func TestWindPortalAsHandWritten(t *testing.T) {
 	}
 }
 
-func TestWindPortalIssueNumbers(t *testing.T) {
-	// The numbers of issue 11, each against the force method solution
-	// (portalReactions) combined by hand, and the issue's two decimals.
+func TestWindPortalNumbers(t *testing.T) {
+	// The wind portal's numbers, each against the force method solution
+	// (portalReactions) combined by hand, to two decimals.
 	// Equilibrium of the force method: symmetric gravity gives wL/2 at
 	// each foot; the reactions balance every load.
 	const rel = 1e-9
@@ -289,7 +289,7 @@ func TestWindPortalIssueNumbers(t *testing.T) {
 	t.Run("base moment, as written", func(t *testing.T) {
 		// ASCE/SEI 7-16 2.3.1 (1) 1.4D, (4) 1.2D + 1.0W, (5) 0.9D + 1.0W,
 		// each wind direction alone: the least base moment at A is
-		// 1.2D + WR, -18.89 kN·m in the issue.
+		// 1.2D + WR, -18.89 kN·m.
 		want := math.Inf(1)
 		for _, m := range []float64{1.4 * aD[2], 1.2*aD[2] + aL[2], 1.2*aD[2] + aR[2], 0.9*aD[2] + aL[2], 0.9*aD[2] + aR[2]} {
 			want = math.Min(want, m)
@@ -302,7 +302,7 @@ func TestWindPortalIssueNumbers(t *testing.T) {
 			t.Errorf("least M at A %.12g, want %.12g", r.M.Min, want)
 		}
 		// Before alternatives, WL and WR in one combination cancel and
-		// 1.4D governs: -16.60 in the issue. with = "WL" on WR puts them
+		// 1.4D governs: -16.60. with = "WL" on WR puts them
 		// in one alternative, which is what the tool did.
 		today := math.Min(1.4*aD[2], 1.2*aD[2]+aL[2]+aR[2])
 		if today != 1.4*aD[2] || !near(today, -16.60, 0.005) {
@@ -316,7 +316,7 @@ func TestWindPortalIssueNumbers(t *testing.T) {
 	t.Run("least vertical reaction, adverse", func(t *testing.T) {
 		// Variable loads only where adverse (docs/analysis.md): each wind
 		// case adds min(0, its Fy at A). Alone, 0.9D + WL governs: 17.06
-		// in the issue; by statics 0.9 × 30 - 3 × 6 / 2 minus the couple
+		// by statics 0.9 × 30 - 3 × 6 / 2 minus the couple
 		// of the lateral load.
 		adv := func(ws ...float64) float64 {
 			s := 0.0
@@ -333,7 +333,7 @@ func TestWindPortalIssueNumbers(t *testing.T) {
 		if r := reaction(t, job); !near(r.Fy.Min, want, rel*math.Abs(want)) {
 			t.Errorf("least Fy at A %.12g, want %.12g", r.Fy.Min, want)
 		}
-		// Both directions summed, as before: 9.00 in the issue, both
+		// Both directions summed, as before: 9.00, both
 		// uplifts counted (27 - 9 - 9).
 		today := 0.9*aD[1] + adv(aLu[1], aRu[1])
 		if !near(today, 9.00, 0.005) {
@@ -405,7 +405,7 @@ func TestActionsListedAndNoted(t *testing.T) {
 }
 
 func TestModelCombinationOfTwoAlternatives(t *testing.T) {
-	// Issue 11 item 5: a combination written in the model with both wind
+	// A combination written in the model with both wind
 	// directions is an error naming the combination, the action and both
 	// cases, with the one-line fix.
 	src, err := os.ReadFile(filepath.Join("..", "..", "testdata", "wind-portal.toml"))
@@ -530,7 +530,7 @@ func TestWindPortalJoinedCases(t *testing.T) {
 					}
 				}
 			}
-			// The review's numbers: the least base moment at A is 1.4D's,
+			// By statics: the least base moment at A is 1.4D's,
 			// -16.60 kN·m to two decimals, in both modes; WR acting without
 			// its roof suction gave -18.89 (1.2D + WR alone).
 			m := a.Envelope.Reactions[0].M

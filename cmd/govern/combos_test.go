@@ -82,7 +82,7 @@ func TestCombosRuleFileBesideTheModel(t *testing.T) {
 	if !strings.Contains(out, "Not in any combination: Lr (roof-live), W (wind); govern run refuses the model") {
 		t.Errorf("unused cases not named:\n%s", out)
 	}
-	// Issue 12 item 10c: run refuses the cases no combination uses, each
+	// Run refuses the cases no combination uses, each
 	// named at its line, and writes nothing; check still lists them.
 	code, out, stderr = exec("run", model)
 	lr, w := sourceLine(t, src, "name = \"Lr\"")-1, sourceLine(t, src, "name = \"W\"")-1

@@ -56,7 +56,7 @@ func TestUnitSlipsAreNamed(t *testing.T) {
 			`section "IPE450": its radius of gyration r = √(I/A) = 1.848 mm is 0.004107 times its depth 450 mm`,
 			`member "A-B" (and 1 more of section "HEB300"): L/r = 3848 (L = 5000 mm, r = √(I/A) = 1.299 mm), above 1000: more slender than any member of a frame: I looks like cm⁴ in a mm model`,
 			`member "B-C" (section "IPE450"): L/r = 6494 (L = 12000 mm, r = √(I/A) = 1.848 mm), above 1000: more slender than any member of a frame: I looks like cm⁴ in a mm model`,
-			// The slip makes the frame buckle under its loads (issue 14's
+			// The slip makes the frame buckle under its loads (the
 			// critical load factor, π²EI/L² with I 10⁴ too small).
 			`the frame buckles: combination "1.35G+1.5Q": the critical load factor αcr = 0.006494 is not above 1`,
 			`the frame buckles: combination "1.35G+1.5W+1.05Q": the critical load factor αcr = 0.007357 is not above 1`,

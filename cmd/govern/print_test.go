@@ -15,7 +15,7 @@ import (
 )
 
 // maxPrintedPages is what the report of a frame of 45 members (and the
-// demo's 35) may print to: the issue asks for 15 pages or fewer.
+// demo's 35) may print to: 15 pages or fewer, a package a checker reads in one sitting.
 const maxPrintedPages = 15
 
 // chromiumPath returns the headless browser's path, or skips the test

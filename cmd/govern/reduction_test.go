@@ -423,7 +423,7 @@ func TestColumnsReducedReactions(t *testing.T) {
 func tb0(v columnsView) renderedTable { return v.tablesOf(isColumnTable)[0] }
 
 // govern run takes live load reduction with a second-order analysis and
-// notional loads (issue 15 item 5): testdata/tables/reduced-frame.toml
+// notional loads: testdata/tables/reduced-frame.toml
 // with second_order = true and notional = "aisc360" runs, its heading
 // says second-order, and the table of member factors is printed (the
 // factors themselves and their effect in a second-order combination are

@@ -27,7 +27,7 @@ func TestVerifyCommand(t *testing.T) {
 }
 
 // TestVerifyFitsTheTerminal: every line of govern verify, table and prose,
-// fits report.TextWidth characters (issue 17: terminal tables fit 120
+// fits report.TextWidth characters (terminal tables fit 120
 // columns), and each case heads its own checks.
 func TestVerifyFitsTheTerminal(t *testing.T) {
 	code, out, stderr := exec("verify")

@@ -166,7 +166,7 @@ func secondOrderAxial(t *testing.T, job *Job, k int) []float64 {
 	return nil
 }
 
-// Live load reduction in a second-order combination (issue 15 item 5): in
+// Live load reduction in a second-order combination: in
 // the three-storey frame of linearFrame under 1.2D + 1.6L + 0.8W in second
 // order, every case acting as written, factors on L in the interior
 // ground-floor column (0.4 on N, 0.6 on V and M) scale L's part of that
@@ -301,7 +301,7 @@ func TestMemberFactorsSecondOrder(t *testing.T) {
 
 // A uniform factor f on every member of a live case in a second-order
 // combination gives the envelope of that case's loads scaled by f, the
-// geometric stiffness kept from the unscaled loads (issue 15 item 5):
+// geometric stiffness kept from the unscaled loads:
 // the frame of linearFrame, L placed beam by beam ("exact"), built here
 // straight from the libraries: the axial forces of the unreduced
 // combination (secondOrderAxial), the model with L's loads × f expanded

@@ -126,7 +126,7 @@ func iterated(t *testing.T, job *Job, live []bool, wind bool, xs [][]float64, se
 // iterated second-order analyses of every arrangement: the 2⁶ subsets of
 // the live load's pieces, the wind on and off. The unconservative
 // difference at each station is under 1 % of the station's |M| (the
-// issue's bound; an independent comparison found 0.43 %); first order
+// bound docs/analysis.md states; an independent comparison found 0.43 %); first order
 // would be off by far more. The measured values are in docs/analysis.md.
 func TestLinearisedPatterns(t *testing.T) {
 	job := linearFrame(1.2e-5)

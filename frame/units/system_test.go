@@ -16,7 +16,7 @@ func mustSystem(t *testing.T, f, l, temp string) System {
 	return s
 }
 
-// TestSystemValue converts the values of the examples into
+// TestSystemValue converts values written with units into
 // models of kN and m, kip and ft, and N and mm; each expected value is
 // worked by hand from the exact definitions (1 in = 25.4 mm, 1 ft = 12 in,
 // 1 lbf = 4.4482216152605 N, 1 kip = 1000 lbf).

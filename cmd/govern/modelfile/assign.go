@@ -94,7 +94,7 @@ type given struct {
 
 // readAssigns reads the [[assign]] tables and applies them, with the
 // [[member]] tables, in file order (the later table's value is a
-// member's), recording in the job each assignment and each overlap.
+// member's), and keeps each assignment and each overlap for govern check.
 func (r *reader) readAssigns(ts []*table) {
 	type pending struct {
 		t       *table

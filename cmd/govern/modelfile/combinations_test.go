@@ -227,7 +227,7 @@ func TestReadCombinationErrors(t *testing.T) {
 		{"combination factor that is not a number", `factors = { D = 1.0, L = 1.0 }`, `factors = { D = 1.0, L = "1.0" }`,
 			fmt.Sprintf(`p.toml:%d: combination "service": L must be a number, not a string`, at(`factors = `)), ErrType}, // the line of the factor, not of the table
 
-		// Actions and alternatives (issue 11): each key at its line.
+		// Actions and alternatives: each key at its line.
 		{"action that is not a string", "name = \"W\"\n", "name = \"W\"\naction = 5\n",
 			fmt.Sprintf(`p.toml:%d: case "W": action must be a string, not an integer`, at(`name = "W"`)+1), ErrType},
 		{"empty alternative", "name = \"W\"\n", "name = \"W\"\nalternative = \" \"\n",
@@ -333,7 +333,7 @@ alternative = "right"
 }
 
 func TestReadUnused(t *testing.T) {
-	// Issue 12 item 10c: a case no combination uses reads (check and
+	// A case no combination uses reads (check and
 	// combos list it), and CheckUnused, which run calls, names it at its
 	// line unless [combinations] unused = "allow".
 	src := strings.Replace(portal, "[[combination]]", "[[case]]\nname = \"T\"\nkind = \"other\"\n  [[case.load]]\n  type = \"node\"\n  node = \"b\"\n  fx = 1\n[[combination]]", 1)

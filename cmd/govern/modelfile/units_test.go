@@ -79,7 +79,7 @@ func TestEveryValueTakesAUnit(t *testing.T) {
 	}
 }
 
-// TestValuesInAnotherSystem reads values of the examples into a
+// TestValuesInAnotherSystem reads values written with units (examples of the trade's usage) into a
 // model in kip and ft and one in N and mm, each against its value worked
 // by hand from the exact definitions.
 func TestValuesInAnotherSystem(t *testing.T) {
