@@ -837,17 +837,9 @@ func tridiagTop(alpha, beta []float64, next float64) (theta, res, gap float64) {
 // once for all. A model the first-order solve refuses is refused with
 // the same error.
 func CriticalFactor(mo *Model, axial []float64) (float64, error) {
-	if len(axial) != len(mo.Members) {
-		panic("frame: CriticalFactor: axial does not give one axial force per member")
-	}
-	compressed := false
-	for _, n := range axial {
-		if !finite(n) {
-			return 0, fmt.Errorf("frame: CriticalFactor: axial force %v is not a finite number", n)
-		}
-		compressed = compressed || n < 0
-	}
-	if !compressed {
+	if compressed, err := checkAxial(mo, axial); err != nil {
+		return 0, err
+	} else if !compressed {
 		return math.Inf(1), nil
 	}
 	b, err := NewBuckling(mo)

@@ -42,17 +42,9 @@ var ErrNoCritical = errors.New("no critical load factor")
 // step fails. No dense eigen solve is made. A model the first-order
 // solve refuses is refused with the same error.
 func criticalBisect(mo *Model, axial []float64) (float64, error) {
-	if len(axial) != len(mo.Members) {
-		panic("frame: CriticalFactor: axial does not give one axial force per member")
-	}
-	compressed := false
-	for _, n := range axial {
-		if !finite(n) {
-			return 0, fmt.Errorf("frame: CriticalFactor: axial force %v is not a finite number", n)
-		}
-		compressed = compressed || n < 0
-	}
-	if !compressed {
+	if compressed, err := checkAxial(mo, axial); err != nil {
+		return 0, err
+	} else if !compressed {
 		return math.Inf(1), nil
 	}
 	if err := checkEquations(mo); err != nil {
@@ -426,4 +418,20 @@ func dot(x, y []float64) float64 {
 		s += x[i] * y[i]
 	}
 	return s
+}
+
+// checkAxial panics unless axial gives one axial force per member of mo,
+// returns an error for one that is not a finite number, and says whether
+// any member is in compression (without which nothing buckles).
+func checkAxial(mo *Model, axial []float64) (compressed bool, err error) {
+	if len(axial) != len(mo.Members) {
+		panic("frame: CriticalFactor: axial does not give one axial force per member")
+	}
+	for _, n := range axial {
+		if !finite(n) {
+			return false, fmt.Errorf("frame: CriticalFactor: axial force %v is not a finite number", n)
+		}
+		compressed = compressed || n < 0
+	}
+	return compressed, nil
 }
