@@ -3,6 +3,7 @@ package frame
 import (
 	"errors"
 	"fmt"
+	"unsafe"
 )
 
 // Size limits. A model past them is refused by [Solve] with an error
@@ -46,25 +47,41 @@ func checkEquations(mo *Model) error {
 	return nil
 }
 
-// The estimate of a run's peak memory (resident set) is fitted to the
-// peaks of 'govern run --json' on regular frames from 20 × 20 to 70 × 70
-// (docs/errors.md), within 4 % of each: the solver's values as they are
-// held, what the caller holds per member times heldMargin (the envelopes
-// are allocated member by member while the collector lets the heap grow
-// past what is live, GOGC=100), and baseMemory, the runtime's and the
-// program's own.
+// The estimate of a run's peak memory (resident set), made before anything
+// large is allocated: what is live at the run's peak, times the growth of
+// the heap the garbage collector allows past it, and the runtime's and the
+// program's own (docs/errors.md gives the terms and the runs measured).
+// What is live, 8-byte values for the solver's:
+//
+//   - bandCopies band matrices of n × (kb + 1): the stiffness and its
+//     factor, the substitution's lists of the factor's terms (12 bytes an
+//     entry each way, three matrices' worth, while the envelopes are not
+//     yet formed), the factor and the trial matrices of the critical load
+//     factors' search (while they are): four, fitted to the runs
+//     measured; with the kb × kb block of the pivot watch while a
+//     mechanism is looked for;
+//   - each solution held at once (Options.Solutions): n × nc
+//     displacements (nc load columns), six fixed-end forces for each
+//     member load, and each member's element;
+//   - what the caller holds: Options.PerMember for each member and
+//     Options.Held.
+//
+// The heap grows to about twice what is live (GOGC=100) once the run
+// makes as much garbage again after its live set is formed, as the
+// critical load factors, the storeys' stability and every second-order
+// solve do: collectorGrowth.
 const (
-	heldMargin = 1.3
-	baseMemory = 6 << 20
+	bandCopies      = 4
+	collectorGrowth = 2
+	baseMemory      = 14 << 20
 )
 
+// elementBytes is the memory of one member's element in a solution.
+const elementBytes = float64(unsafe.Sizeof(element{}))
+
 // memory returns the estimated peak memory, in bytes, of solving mo (n
-// equations of half-bandwidth band) with the results its caller holds,
-// perMember bytes a member: the band and its factor (and, while a
-// mechanism is being looked for, a third copy and the kb × kb block the
-// pivot watch keeps), the right-hand sides that become the displacements,
-// six fixed-end forces for each member load, and those results.
-func memory(mo *Model, n, band int, perMember float64) float64 {
+// equations of half-bandwidth band) with what the caller holds (opt).
+func memory(mo *Model, n, band int, opt Options) float64 {
 	kb := float64(min(band, max(n-1, 0)))
 	nc := float64(max(len(mo.Cases), 1))
 	fn := float64(n)
@@ -72,13 +89,18 @@ func memory(mo *Model, n, band int, perMember float64) float64 {
 	for c := range mo.Cases {
 		loads += len(mo.Cases[c].MemberLoads)
 	}
-	values := 3*fn*(kb+1) + kb*kb + fn*nc + 6*float64(loads)
-	return 8*values + heldMargin*perMember*float64(len(mo.Members)) + baseMemory
+	members := float64(len(mo.Members))
+	solution := 8*(fn*nc+6*float64(loads)) + elementBytes*members
+	live := 8*(bandCopies*fn*(kb+1)+kb*kb) + float64(max(opt.Solutions, 1))*solution + opt.PerMember*members
+	if opt.Held != nil {
+		live += opt.Held(Info{Equations: n, Bandwidth: band, Columns: len(mo.Cases)})
+	}
+	return collectorGrowth*live + baseMemory
 }
 
 // checkMemory refuses a run estimated to need more than MaxMemory.
-func checkMemory(mo *Model, n, band int, perMember float64) error {
-	if s := memory(mo, n, band, perMember); s > MaxMemory {
+func checkMemory(mo *Model, n, band int, opt Options) error {
+	if s := memory(mo, n, band, opt); s > MaxMemory {
 		cases := fmt.Sprintf("%d load cases", len(mo.Cases))
 		if len(mo.Cases) == 1 {
 			cases = "1 load case"
@@ -137,5 +159,5 @@ func EstimateMemory(mo *Model, opt Options) (float64, Info, error) {
 	}
 	released := releasedRotations(mo)
 	_, n, band := dofMap(mo, rcmOrder(adjacency(mo)), released)
-	return memory(mo, n, band, opt.PerMember), Info{Equations: n, Bandwidth: band}, nil
+	return memory(mo, n, band, opt), Info{Equations: n, Bandwidth: band, Columns: len(mo.Cases)}, nil
 }

@@ -66,6 +66,7 @@ type Solution struct {
 type Info struct {
 	Equations int // free degrees of freedom
 	Bandwidth int // half-bandwidth after reverse Cuthill–McKee numbering
+	Columns   int // load columns solved at once: the model's load cases
 }
 
 // Solve validates mo, assembles its stiffness matrix in band storage,
@@ -96,7 +97,7 @@ func SolveWith(mo *Model, opt Options) (*Solution, error) {
 	released := releasedRotations(mo)
 	order := rcmOrder(adjacency(mo))
 	dof, n, band := dofMap(mo, order, released)
-	if err := checkMemory(mo, n, band, opt.PerMember); err != nil {
+	if err := checkMemory(mo, n, band, opt); err != nil {
 		return nil, err
 	}
 	if opt.Axial != nil && len(opt.Axial) != len(mo.Members) {

@@ -1,0 +1,66 @@
+#!/bin/sh
+# memory.sh [RUNS]: the peak memory of 'govern run --quiet --json OUT MODEL'
+# (maximum resident set size from /usr/bin/time, the median of RUNS runs,
+# default 1) on the frames docs/perf/model.sh writes, against the estimate
+# that refuses a model too large (frame.MaxMemory; docs/errors.md, Limits).
+# Run from the repository's root; not run by the tests (minutes of work).
+#
+# FIRST and SECOND list the frames (BAYSxSTOREYS) run in first and in
+# second order ([analysis] second_order = true), UNPATTERNED those run in
+# first order with no case patterned (a few load columns: the band
+# dominates). GOVERN names the command measured (default: one built from
+# this tree). The estimates are printed by the test helper
+# TestPrintMemoryEstimates of cmd/govern.
+#
+# Prints, for each run: the order, the frame, equations, half-bandwidth,
+# load columns, the estimate and the measured peak (MiB), their ratio, and
+# the load average when it ended.
+set -e
+runs=${1:-1}
+: "${FIRST=10x10 20x20 30x30 40x40 30x60 50x20 10x50 60x60 20x200 70x70}"
+: "${SECOND=10x10 10x20 20x20 20x30 30x30 10x50 50x20 30x60}"
+: "${UNPATTERNED=60x60 100x100}"
+dir=$(mktemp -d)
+trap 'rm -rf "$dir"' EXIT
+if [ -z "$GOVERN" ]; then
+	go build -o "$dir/govern" ./cmd/govern
+	GOVERN=$dir/govern
+fi
+export GOVERN
+files=
+for order in first second unpatterned; do
+	case $order in
+	first) sizes=$FIRST ;;
+	second) sizes=$SECOND ;;
+	unpatterned) sizes=$UNPATTERNED ;;
+	esac
+	for size in $sizes; do
+		b=${size%x*} s=${size#*x}
+		f=$dir/$order-$size.toml
+		sh docs/perf/model.sh "$b" "$s" "$f.base"
+		case $order in
+		first) cp "$f.base" "$f" ;;
+		second) sed 's/^\[analysis\]$/[analysis]\nsecond_order = true/' "$f.base" >"$f" ;;
+		unpatterned) sed 's/^pattern = true/pattern = false/' "$f.base" >"$f" ;;
+		esac
+		rm "$f.base"
+		files="$files $f"
+	done
+done
+go test -count=1 -v -run TestPrintMemoryEstimates ./cmd/govern -memory-estimates "$files" |
+	awk '$1 == "estimate"' >"$dir/estimates"
+printf '%-12s %-8s %9s %6s %8s %10s %10s %6s  %s\n' order frame equations band columns "estimate" "peak" ratio load
+for f in $files; do
+	name=$(basename "$f" .toml)
+	: >"$dir/peaks"
+	for r in $(seq "$runs"); do
+		/usr/bin/time -f %M -a -o "$dir/peaks" "$GOVERN" run --quiet --json "$dir/out.json" "$f" >/dev/null 2>&1
+	done
+	peak=$(sort -n "$dir/peaks" | awk '{a[NR] = $1} END {print a[int((NR + 1) / 2)]}')
+	load=$(uptime | sed 's/.*load average: //')
+	awk -v f="$f" -v name="$name" -v peak="$peak" -v load="$load" '$2 == f {
+		split(name, p, "-")
+		est = $6 / 1048576; got = peak / 1024
+		printf "%-12s %-8s %9d %6d %8d %6.0f MiB %6.0f MiB %6.2f  %s\n", p[1], p[2], $3, $4, $5, est, got, est / got, load
+	}' "$dir/estimates"
+done
