@@ -8,7 +8,9 @@
 # FIRST and SECOND list the frames (BAYSxSTOREYS) run in first and in
 # second order ([analysis] second_order = true), UNPATTERNED those run in
 # first order with no case patterned (a few load columns: the band
-# dominates). GOVERN names the command measured (default: one built from
+# dominates), STARTER those run as 'govern new' writes them (column faces
+# and a service combination with a deflection limit), in first order
+# ("starter") and in second ("starter2"). GOVERN names the command measured (default: one built from
 # this tree). The estimates are printed by the test helper
 # TestPrintMemoryEstimates of cmd/govern.
 #
@@ -20,6 +22,7 @@ runs=${1:-1}
 : "${FIRST=10x10 20x20 30x30 40x40 30x60 50x20 10x50 60x60 20x200 70x70}"
 : "${SECOND=10x10 10x20 20x20 20x30 30x30 10x50 50x20 30x60}"
 : "${UNPATTERNED=60x60 100x100}"
+: "${STARTER=20x20 30x30}"
 dir=$(mktemp -d)
 trap 'rm -rf "$dir"' EXIT
 if [ -z "$GOVERN" ]; then
@@ -28,19 +31,23 @@ if [ -z "$GOVERN" ]; then
 fi
 export GOVERN
 files=
-for order in first second unpatterned; do
+for order in first second unpatterned starter starter2; do
 	case $order in
 	first) sizes=$FIRST ;;
 	second) sizes=$SECOND ;;
 	unpatterned) sizes=$UNPATTERNED ;;
+	starter | starter2) sizes=$STARTER ;;
 	esac
 	for size in $sizes; do
 		b=${size%x*} s=${size#*x}
 		f=$dir/$order-$size.toml
-		sh docs/perf/model.sh "$b" "$s" "$f.base"
 		case $order in
-		first) cp "$f.base" "$f" ;;
-		second) sed 's/^\[analysis\]$/[analysis]\nsecond_order = true/' "$f.base" >"$f" ;;
+		starter*) "$GOVERN" new --bays "7.5,6x$((b - 1))" --storeys "4.2,3.6x$((s - 1))" "$f.base" >/dev/null 2>&1 ;;
+		*) sh docs/perf/model.sh "$b" "$s" "$f.base" ;;
+		esac
+		case $order in
+		first | starter) cp "$f.base" "$f" ;;
+		second | starter2) sed 's/^\[analysis\]$/[analysis]\nsecond_order = true/' "$f.base" >"$f" ;;
 		unpatterned) sed 's/^pattern = true/pattern = false/' "$f.base" >"$f" ;;
 		esac
 		rm "$f.base"

@@ -25,8 +25,8 @@ import (
 //   - one solve of the storeys' stability: n × (storeys + 2) values;
 //   - where combinations are analysed apart (second order, a reduced
 //     stiffness), the solution of every load case of the one being
-//     enveloped beside the first-order solution, and its envelopes beside
-//     the merged ones.
+//     enveloped beside the first-order solution, and its envelopes (of
+//     forces: a strength combination's) beside the merged ones.
 const (
 	lanczosFirst  = 12
 	lanczosOthers = 6
@@ -60,7 +60,8 @@ func memoryOptions(job *Job, sv solved, lay *patterns.Layout, opt Options) frame
 	envelopes := float64(stations) * sb
 	solutions := 1
 	if apart {
-		envelopes *= 2
+		// Those of a strength combination, without deflections.
+		envelopes += float64(stations) * envelope.StationBytes(pieces, false, opt.allPieces)
 		solutions = 2
 	}
 	members := float64(len(mo.Members))
