@@ -6,22 +6,25 @@
 # Run from the repository's root; not run by the tests (minutes of work).
 #
 # FIRST and SECOND list the frames (BAYSxSTOREYS) run in first and in
-# second order ([analysis] second_order = true), UNPATTERNED those run in
-# first order with no case patterned (a few load columns: the band
-# dominates), STARTER those run as 'govern new' writes them (column faces
-# and a service combination with a deflection limit), in first order
-# ("starter") and in second ("starter2"). GOVERN names the command measured (default: one built from
+# second order ([analysis] second_order = true), UNPATTERNED and
+# UNPATTERNED2 those run with no case patterned (a few load columns: the
+# band dominates) in first and in second order, STARTER those run as
+# 'govern new' writes them (column faces and a service combination with a
+# deflection limit), in first order ("starter") and in second
+# ("starter2"). GOVERN names the command measured (default: one built from
 # this tree). The estimates are printed by the test helper
 # TestPrintMemoryEstimates of cmd/govern.
 #
-# Prints, for each run: the order, the frame, equations, half-bandwidth,
-# load columns, the estimate and the measured peak (MiB), their ratio, and
-# the load average when it ended.
+# Prints, for each frame: the order, the frame, equations, half-bandwidth,
+# load columns, the estimate and the measured peak (MiB, the median), their
+# ratio, the smallest and largest peak of the runs, and the load average
+# when they ended.
 set -e
 runs=${1:-1}
 : "${FIRST=10x10 20x20 30x30 40x40 30x60 50x20 10x50 60x60 20x200 70x70}"
 : "${SECOND=10x10 10x20 20x20 20x30 30x30 10x50 50x20 30x60}"
 : "${UNPATTERNED=60x60 100x100}"
+: "${UNPATTERNED2=60x60}"
 : "${STARTER=20x20 30x30}"
 dir=$(mktemp -d)
 trap 'rm -rf "$dir"' EXIT
@@ -31,11 +34,12 @@ if [ -z "$GOVERN" ]; then
 fi
 export GOVERN
 files=
-for order in first second unpatterned starter starter2; do
+for order in first second unpatterned unpatterned2 starter starter2; do
 	case $order in
 	first) sizes=$FIRST ;;
 	second) sizes=$SECOND ;;
 	unpatterned) sizes=$UNPATTERNED ;;
+	unpatterned2) sizes=$UNPATTERNED2 ;;
 	starter | starter2) sizes=$STARTER ;;
 	esac
 	for size in $sizes; do
@@ -49,6 +53,7 @@ for order in first second unpatterned starter starter2; do
 		first | starter) cp "$f.base" "$f" ;;
 		second | starter2) sed 's/^\[analysis\]$/[analysis]\nsecond_order = true/' "$f.base" >"$f" ;;
 		unpatterned) sed 's/^pattern = true/pattern = false/' "$f.base" >"$f" ;;
+		unpatterned2) sed -e 's/^pattern = true/pattern = false/' -e 's/^\[analysis\]$/[analysis]\nsecond_order = true/' "$f.base" >"$f" ;;
 		esac
 		rm "$f.base"
 		files="$files $f"
@@ -56,7 +61,7 @@ for order in first second unpatterned starter starter2; do
 done
 go test -count=1 -v -run TestPrintMemoryEstimates ./cmd/govern -memory-estimates "$files" |
 	awk '$1 == "estimate"' >"$dir/estimates"
-printf '%-12s %-8s %9s %6s %8s %10s %10s %6s  %s\n' order frame equations band columns "estimate" "peak" ratio load
+printf '%-12s %-8s %9s %6s %8s %10s %10s %6s %11s  %s\n' order frame equations band columns "estimate" "peak" ratio "runs (MiB)" load
 for f in $files; do
 	name=$(basename "$f" .toml)
 	: >"$dir/peaks"
@@ -64,10 +69,11 @@ for f in $files; do
 		/usr/bin/time -f %M -a -o "$dir/peaks" "$GOVERN" run --quiet --json "$dir/out.json" "$f" >/dev/null 2>&1
 	done
 	peak=$(sort -n "$dir/peaks" | awk '{a[NR] = $1} END {print a[int((NR + 1) / 2)]}')
+	range=$(sort -n "$dir/peaks" | awk 'NR == 1 {lo = $1} {hi = $1} END {printf "%.0f-%.0f", lo / 1024, hi / 1024}')
 	load=$(uptime | sed 's/.*load average: //')
-	awk -v f="$f" -v name="$name" -v peak="$peak" -v load="$load" '$2 == f {
+	awk -v f="$f" -v name="$name" -v peak="$peak" -v range="$range" -v load="$load" '$2 == f {
 		split(name, p, "-")
 		est = $6 / 1048576; got = peak / 1024
-		printf "%-12s %-8s %9d %6d %8d %6.0f MiB %6.0f MiB %6.2f  %s\n", p[1], p[2], $3, $4, $5, est, got, est / got, load
+		printf "%-12s %-8s %9d %6d %8d %6.0f MiB %6.0f MiB %6.2f %11s  %s\n", p[1], p[2], $3, $4, $5, est, got, est / got, range, load
 	}' "$dir/estimates"
 done
