@@ -60,6 +60,11 @@ type Solution struct {
 
 	// axial is Options.Axial of a second-order solve, nil otherwise.
 	axial []float64
+
+	// factor is the band Cholesky factor of the stiffness scaled by pow2
+	// (upper, row-major, band+1 a row; nil when there was nothing to
+	// solve), kept to solve more cases on it ([Solution.SolveCases]).
+	factor, pow2 []float64
 }
 
 // Info describes the system of equations a model gives.
@@ -184,6 +189,7 @@ func SolveWith(mo *Model, opt Options) (*Solution, error) {
 	bandSolve(u.Data, n, kb, x, nc)
 	scaleRows(x, d, nc)
 	sol.x = x
+	sol.factor, sol.pow2 = u.Data, d
 	sol.zero = make([]float64, nc)
 	if err := sol.checkFinite(); err != nil {
 		return nil, err
