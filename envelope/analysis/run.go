@@ -267,14 +267,16 @@ func Run(ctx context.Context, job *Job, opt Options) (*Result, error) {
 		for i := range us {
 			us[i] = &pl.units[i]
 		}
-		if err := r.criticalAll(us, sv.model, Nominal); err != nil {
+		// The combinations' axial forces and storey drifts are solved on
+		// the factor of sol, whose stiffness they share.
+		if err := r.criticalAll(us, sv.model, Nominal, sol); err != nil {
+			return nil, err
+		}
+		if err := r.storeyStabilityAll(us, sv.model, Nominal, sol); err != nil {
 			return nil, err
 		}
 		for i := range pl.units {
 			u := &pl.units[i]
-			if err := r.storeyStability(u, sv.model, Nominal); err != nil {
-				return nil, err
-			}
 			cb := &r.Combinations[u.k]
 			cb.CriticalFactor, cb.CriticalNominal = u.critical, u.nominal
 		}

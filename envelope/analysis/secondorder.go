@@ -514,19 +514,23 @@ func (r *Result) envelopes(pl *plan, sv *solved, lay *patterns.Layout, reqs []re
 			}
 		}
 		if !g.second {
+			// sol has the group's stiffness: the combinations' axial
+			// forces and storey drifts are solved on its factor.
 			var us []*unit
 			for _, i := range g.units {
 				us = append(us, &pl.units[i])
 			}
-			if err := r.criticalAll(us, sv.model, g.stiff); err != nil {
+			if err := r.criticalAll(us, sv.model, g.stiff, sol); err != nil {
 				return nil, err
 			}
+			if err := r.storeyStabilityAll(us, sv.model, g.stiff, sol); err != nil {
+				return nil, err
+			}
+		} else if err := r.storeyStability(&pl.units[g.units[0]], sv.model, g.stiff, nil); err != nil {
+			return nil, err
 		}
 		for _, i := range g.units {
 			u := &pl.units[i]
-			if err := r.storeyStability(u, sv.model, g.stiff); err != nil {
-				return nil, err
-			}
 			cb := &r.Combinations[u.k]
 			cb.CriticalFactor = minCritical(cb.CriticalFactor, u.critical)
 			cb.CriticalNominal = minCritical(cb.CriticalNominal, u.nominal)
@@ -742,21 +746,21 @@ type buckled struct {
 }
 
 // criticalAll sets the critical load factors of the first-order units us,
-// analysed with stiffness stiff: their combinations solved together (one
-// factor of the stiffness, a load column each), and their factors found
-// side by side; the first error in their order.
-func (r *Result) criticalAll(us []*unit, base *frame.Model, stiff Stiffness) error {
+// analysed with stiffness stiff on sol: their combinations solved
+// together on the factor of sol's stiffness (a load column each), and
+// their factors found side by side; the first error in their order.
+func (r *Result) criticalAll(us []*unit, base *frame.Model, stiff Stiffness, sol *frame.Solution) error {
 	if len(us) == 0 {
 		return nil
 	}
 	secs, mems := r.Job.stiffnessOf(base, stiff)
-	all := &frame.Model{Nodes: base.Nodes, Sections: secs, Members: mems}
+	var cases []frame.Case
 	for i, u := range us {
 		c := combined(base, secs, mems, u.cb, u.scale, nil).Cases[0]
 		c.Name = fmt.Sprintf("unit %d", i+1) // a combination's alternatives share its name
-		all.Cases = append(all.Cases, c)
+		cases = append(cases, c)
 	}
-	s0, err := frame.SolveWith(all, r.solver)
+	s0, err := sol.SolveCases(cases)
 	if err != nil {
 		// Which combination: each alone.
 		for _, u := range us {

@@ -216,17 +216,84 @@ func (r *Result) setDisplacements(nodes, drifts *valuesRequest) {
 }
 
 // storeyStability fills the stability indices of every storey for the
-// strength combination of unit u, analysed with stiffness stiff.
-func (r *Result) storeyStability(u *unit, base *frame.Model, stiff Stiffness) error {
+// strength combination of unit u, analysed with stiffness stiff: on the
+// factor of first, a first-order solution with that stiffness, when it is
+// not nil.
+func (r *Result) storeyStability(u *unit, base *frame.Model, stiff Stiffness, first *frame.Solution) error {
 	job := r.Job
 	if len(r.Storeys) == 0 || job.Combinations[u.k].Service {
 		return nil
 	}
-	name := job.Combinations[u.k].Name
 	secs, mems := job.stiffnessOf(base, stiff)
+	all, hx := r.stabilityCases(u, base, secs, mems)
+	cases := append(all.Cases, r.unitShears(base)...)
+	var sol *frame.Solution
+	var err error
+	if first != nil {
+		sol, err = first.SolveCases(cases)
+	} else {
+		all.Cases = cases
+		sol, err = frame.SolveWith(all, r.solver)
+	}
+	if err != nil {
+		return fmt.Errorf("combination %q: storey stability: %w", job.Combinations[u.k].Name, err)
+	}
+	r.setStability(u, base, sol, 0, 1, 2, hx)
+	return nil
+}
+
+// storeyStabilityAll is storeyStability for the first-order units us
+// analysed on sol (stiffness stiff): their combinations and horizontal
+// loads, and once for all of them the unit storey shears, solved on sol's
+// factor together.
+func (r *Result) storeyStabilityAll(us []*unit, base *frame.Model, stiff Stiffness, sol *frame.Solution) error {
+	job := r.Job
+	if len(r.Storeys) == 0 {
+		return nil
+	}
+	secs, mems := job.stiffnessOf(base, stiff)
+	var strength []*unit
+	var cases []frame.Case
+	var hxs [][]float64
+	for _, u := range us {
+		if job.Combinations[u.k].Service {
+			continue
+		}
+		all, hx := r.stabilityCases(u, base, secs, mems)
+		// Names of their own: a combination's alternatives share its name.
+		all.Cases[0].Name = fmt.Sprintf("combination %d", len(strength)+1)
+		all.Cases[1].Name = fmt.Sprintf("lateral %d", len(strength)+1)
+		strength = append(strength, u)
+		cases = append(cases, all.Cases...)
+		hxs = append(hxs, hx)
+	}
+	if len(strength) == 0 {
+		return nil
+	}
+	shears := len(cases)
+	cases = append(cases, r.unitShears(base)...)
+	s2, err := sol.SolveCases(cases)
+	if err != nil {
+		// Which combination: each alone.
+		for _, u := range strength {
+			if err := r.storeyStability(u, base, stiff, sol); err != nil {
+				return err
+			}
+		}
+		return fmt.Errorf("storey stability: %w", err)
+	}
+	for i, u := range strength {
+		r.setStability(u, base, s2, 2*i, 2*i+1, shears, hxs[i])
+	}
+	return nil
+}
+
+// stabilityCases returns unit u's combination, every case at its factor
+// and every piece loaded, and its horizontal loads alone, as the two
+// cases of a model with the sections and members given; and the
+// horizontal load at each node, by the lever rule.
+func (r *Result) stabilityCases(u *unit, base *frame.Model, secs []frame.Section, mems []frame.Member) (*frame.Model, []float64) {
 	all := combined(base, secs, mems, u.cb, 1, nil)
-	// The horizontal loads of the combination alone, then a unit storey
-	// shear at the top of each storey.
 	var lateral frame.Case
 	for _, ld := range all.Cases[0].MemberLoads {
 		if ld.Direction == frame.GlobalX && !ld.Moment && !ld.Thermal {
@@ -240,8 +307,15 @@ func (r *Result) storeyStability(u *unit, base *frame.Model, stiff Stiffness) er
 	}
 	lateral.Name = "lateral"
 	all.Cases = append(all.Cases, lateral)
-	hx := make([]float64, len(base.Nodes)) // horizontal load at each node, by the lever rule
+	hx := make([]float64, len(base.Nodes))
 	lateralAtNodes(all, &lateral, hx)
+	return all, hx
+}
+
+// unitShears returns a case per storey: a unit storey shear at its top,
+// shared by the free nodes of that level.
+func (r *Result) unitShears(base *frame.Model) []frame.Case {
+	out := make([]frame.Case, 0, len(r.Storeys))
 	for _, s := range r.Storeys {
 		c := frame.Case{Name: "unit " + s.Top.Name}
 		var free []int
@@ -253,17 +327,22 @@ func (r *Result) storeyStability(u *unit, base *frame.Model, stiff Stiffness) er
 		for _, v := range free {
 			c.NodeLoads = append(c.NodeLoads, frame.NodeLoad{Node: v, Fx: 1 / float64(len(free))})
 		}
-		all.Cases = append(all.Cases, c)
+		out = append(out, c)
 	}
-	sol, err := frame.SolveWith(all, r.solver)
-	if err != nil {
-		return fmt.Errorf("combination %q: storey stability: %w", name, err)
-	}
+	return out
+}
+
+// setStability fills the stability indices of every storey for unit u
+// from sol: its combination in column comb, its horizontal loads in
+// column lat, the unit shear of storey i in column shear+i; hx the
+// horizontal load at each node.
+func (r *Result) setStability(u *unit, base *frame.Model, sol *frame.Solution, comb, lat, shear int, hx []float64) {
+	job := r.Job
 	alpha := 1.0
 	if u.method.Allowable {
 		alpha = AllowableScale
 	}
-	axial := axialForces(sol, 0)
+	axial := axialForces(sol, comb)
 	for si := range r.Storeys {
 		s := &r.Storeys[si]
 		if s.Stability == nil {
@@ -283,9 +362,9 @@ func (r *Result) storeyStability(u *unit, base *frame.Model, stiff Stiffness) er
 				st.H += hx[v]
 			}
 		}
-		col := 1
+		col := lat
 		if math.Abs(st.H) <= lateralTol*max(st.P, 1e-300) || st.H == 0 {
-			col, st.H, st.Unit = 2+si, 1, true
+			col, st.H, st.Unit = shear+si, 1, true
 		}
 		for _, m := range s.Columns {
 			d := columnDrift(sol, col, m)
@@ -314,7 +393,6 @@ func (r *Result) storeyStability(u *unit, base *frame.Model, stiff Stiffness) er
 		}
 		s.Stability[u.k] = st
 	}
-	return nil
 }
 
 // lateralAtNodes adds to hx the horizontal loads of case cs at the nodes,
