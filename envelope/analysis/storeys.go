@@ -120,8 +120,10 @@ func displacementTargets(cs []combos.Combination) []bool {
 // valuesRequest is an envelope of quantities other than stations (node
 // displacements, drifts), formed group by group with the envelopes.
 type valuesRequest struct {
-	n       int
-	get     func(sol *frame.Solution, c, i int) [3]float64
+	n int
+	// fill sets row[c] to quantity i in every column c of sol; tmp is
+	// scratch of the same length (envelope.ValuesRows).
+	fill    func(sol *frame.Solution, i int, row, tmp [][3]float64)
 	what    func(i, q int) string
 	targets []bool // per job combination, whether it is enveloped over
 	out     [][3]envelope.Extreme
@@ -140,7 +142,7 @@ func (vr *valuesRequest) add(sol *frame.Solution, lay *patterns.Layout, cs []com
 		return nil
 	}
 	set.Stations, set.Extra, set.Lines, set.Progress = 2, nil, nil, nil
-	vals, err := envelope.Values(sol, cs, sel, set, lay, vr.n, func(c, i int) [3]float64 { return vr.get(sol, c, i) }, vr.what)
+	vals, err := envelope.ValuesRows(sol, cs, sel, set, lay, vr.n, func(i int, row, tmp [][3]float64) { vr.fill(sol, i, row, tmp) }, vr.what)
 	if err != nil {
 		return err
 	}
@@ -167,12 +169,13 @@ func (r *Result) displacementRequests() (nodes, drifts *valuesRequest) {
 	targets := displacementTargets(r.Job.Combinations)
 	dir := [3]string{"ux", "uy", "rz"}
 	nodes = &valuesRequest{n: len(mo.Nodes), targets: targets,
-		get: func(sol *frame.Solution, c, v int) [3]float64 {
-			ux, uy, rz := sol.Displacement(c, v)
-			if math.IsNaN(rz) {
-				rz = 0
+		fill: func(sol *frame.Solution, v int, row, _ [][3]float64) {
+			sol.DisplacementsTo(row, v)
+			if sol.RotationFree(v) {
+				for c := range row {
+					row[c][2] = 0
+				}
 			}
-			return [3]float64{ux, uy, rz}
 		},
 		what: func(v, q int) string { return fmt.Sprintf("%s of node %q", dir[q], mo.Nodes[v].Name) }}
 	var cols []int
@@ -180,7 +183,16 @@ func (r *Result) displacementRequests() (nodes, drifts *valuesRequest) {
 		cols = append(cols, s.Columns...)
 	}
 	drifts = &valuesRequest{n: len(cols), targets: targets,
-		get: func(sol *frame.Solution, c, i int) [3]float64 { return [3]float64{columnDrift(sol, c, cols[i])} },
+		fill: func(sol *frame.Solution, i int, row, tmp [][3]float64) {
+			// columnDrift in every column: the top's ux less the bottom's.
+			b := mo.Bottom(cols[i])
+			mem := mo.Members[cols[i]]
+			sol.DisplacementsTo(row, mem.Start+mem.End-b)
+			sol.DisplacementsTo(tmp, b)
+			for c := range row {
+				row[c] = [3]float64{row[c][0] - tmp[c][0]}
+			}
+		},
 		what: func(i, _ int) string {
 			return fmt.Sprintf("the drift of column %q", mo.Members[cols[i]].Name)
 		}}
