@@ -247,6 +247,25 @@ func Run(ctx context.Context, job *Job, opt Options) (*Result, error) {
 		report(opt, Progress{Phase: fmt.Sprintf("solved %d loads; enveloping stations", len(lay.Model.Cases)), Total: int64(total * groups), Done: set.Progress})
 	}
 	r.Storeys = storeysOf(job)
+	var stability error // reported after the envelopes' errors, which say more
+	if pl.simple {
+		// The combinations' axial forces and storey drifts, solved on the
+		// factor of sol, whose stiffness they share: before the envelopes,
+		// whose memory then reuses theirs.
+		us := make([]*unit, len(pl.units))
+		for i := range us {
+			us[i] = &pl.units[i]
+		}
+		stability = r.criticalAll(us, sv.model, Nominal, sol)
+		if stability == nil {
+			stability = r.storeyStabilityAll(us, sv.model, Nominal, sol)
+		}
+		for i := range pl.units {
+			u := &pl.units[i]
+			cb := &r.Combinations[u.k]
+			cb.CriticalFactor, cb.CriticalNominal = u.critical, u.nominal
+		}
+	}
 	nodes, drifts := r.displacementRequests()
 	var env, across *envelope.Envelope // across: deflections across the lines of runs with a ridge
 	if pl.simple {
@@ -263,22 +282,8 @@ func Run(ctx context.Context, job *Job, opt Options) (*Result, error) {
 				return nil, err
 			}
 		}
-		us := make([]*unit, len(pl.units))
-		for i := range us {
-			us[i] = &pl.units[i]
-		}
-		// The combinations' axial forces and storey drifts are solved on
-		// the factor of sol, whose stiffness they share.
-		if err := r.criticalAll(us, sv.model, Nominal, sol); err != nil {
-			return nil, err
-		}
-		if err := r.storeyStabilityAll(us, sv.model, Nominal, sol); err != nil {
-			return nil, err
-		}
-		for i := range pl.units {
-			u := &pl.units[i]
-			cb := &r.Combinations[u.k]
-			cb.CriticalFactor, cb.CriticalNominal = u.critical, u.nominal
+		if stability != nil {
+			return nil, stability
 		}
 	} else {
 		// Member factors scale each case's and piece's effects on the
