@@ -285,7 +285,7 @@ func TestBucklingBatch(t *testing.T) {
 			}
 			continue
 		}
-		if !b.definite(0.999*one, set) || b.definite(1.001*one, set) {
+		if !b.definite(0.999*one, set, nil) || b.definite(1.001*one, set, nil) {
 			t.Errorf("set %d: the stiffness at 0.999 and 1.001 αcr = %.7g is not positive definite below and indefinite above", i, one)
 		}
 	}
@@ -314,7 +314,7 @@ func TestBucklingCertify(t *testing.T) {
 		mu   float64
 	}{{"the first mode", 1 / want}, {"the second mode", 1 / (4 * want)}, {"none", 1e-13}} {
 		t.Run(tc.name, func(t *testing.T) {
-			got, err := b.certify(tc.mu, axial)
+			got, err := b.certify(tc.mu, axial, nil)
 			if err != nil {
 				t.Fatal(err)
 			}
