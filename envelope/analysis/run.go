@@ -256,9 +256,10 @@ func Run(ctx context.Context, job *Job, opt Options) (*Result, error) {
 		for i := range us {
 			us[i] = &pl.units[i]
 		}
-		stability = r.criticalAll(us, sv.model, Nominal, sol)
+		comb := combinedOf(sv.model, us)
+		stability = r.criticalAll(us, sv.model, Nominal, sol, comb)
 		if stability == nil {
-			stability = r.storeyStabilityAll(us, sv.model, Nominal, sol)
+			stability = r.storeyStabilityAll(us, sv.model, Nominal, sol, comb)
 		}
 		for i := range pl.units {
 			u := &pl.units[i]

@@ -162,6 +162,17 @@ func makePlan(job *Job, sv *solved) (*plan, error) {
 	return pl, nil
 }
 
+// combinedOf returns the combination of each unit of us as one case, every
+// case of base at u.scale times its factor and every piece loaded (as
+// combined gives it).
+func combinedOf(base *frame.Model, us []*unit) []frame.Case {
+	out := make([]frame.Case, len(us))
+	for i, u := range us {
+		out[i] = combined(base, base.Sections, base.Members, u.cb, u.scale, nil).Cases[0]
+	}
+	return out
+}
+
 // combined returns a model with the nodes of base, the sections and
 // members given, and one load case: the cases of cb at scale times their
 // factors, each whole (every pattern piece loaded).
@@ -520,10 +531,11 @@ func (r *Result) envelopes(pl *plan, sv *solved, lay *patterns.Layout, reqs []re
 			for _, i := range g.units {
 				us = append(us, &pl.units[i])
 			}
-			if err := r.criticalAll(us, sv.model, g.stiff, sol); err != nil {
+			comb := combinedOf(sv.model, us)
+			if err := r.criticalAll(us, sv.model, g.stiff, sol, comb); err != nil {
 				return nil, err
 			}
-			if err := r.storeyStabilityAll(us, sv.model, g.stiff, sol); err != nil {
+			if err := r.storeyStabilityAll(us, sv.model, g.stiff, sol, comb); err != nil {
 				return nil, err
 			}
 		} else if err := r.storeyStability(&pl.units[g.units[0]], sv.model, g.stiff, nil); err != nil {
@@ -746,19 +758,18 @@ type buckled struct {
 }
 
 // criticalAll sets the critical load factors of the first-order units us,
-// analysed with stiffness stiff on sol: their combinations solved
-// together on the factor of sol's stiffness (a load column each), and
-// their factors found side by side; the first error in their order.
-func (r *Result) criticalAll(us []*unit, base *frame.Model, stiff Stiffness, sol *frame.Solution) error {
+// analysed with stiffness stiff on sol: their combinations comb
+// (combinedOf) solved together on the factor of sol's stiffness (a load
+// column each), and their factors found side by side; the first error in
+// their order.
+func (r *Result) criticalAll(us []*unit, base *frame.Model, stiff Stiffness, sol *frame.Solution, comb []frame.Case) error {
 	if len(us) == 0 {
 		return nil
 	}
-	secs, mems := r.Job.stiffnessOf(base, stiff)
-	var cases []frame.Case
-	for i, u := range us {
-		c := combined(base, secs, mems, u.cb, u.scale, nil).Cases[0]
-		c.Name = fmt.Sprintf("unit %d", i+1) // a combination's alternatives share its name
-		cases = append(cases, c)
+	cases := make([]frame.Case, len(us))
+	for i := range us {
+		cases[i] = comb[i]
+		cases[i].Name = fmt.Sprintf("unit %d", i+1) // a combination's alternatives share its name
 	}
 	s0, err := sol.SolveCases(cases)
 	if err != nil {

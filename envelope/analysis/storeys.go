@@ -237,7 +237,7 @@ func (r *Result) storeyStability(u *unit, base *frame.Model, stiff Stiffness, fi
 		return nil
 	}
 	secs, mems := job.stiffnessOf(base, stiff)
-	all, hx := r.stabilityCases(u, base, secs, mems)
+	all, hx := r.stabilityCases(base, secs, mems, combined(base, secs, mems, u.cb, 1, nil).Cases[0])
 	cases := append(all.Cases, r.unitShears(base)...)
 	var sol *frame.Solution
 	var err error
@@ -255,10 +255,11 @@ func (r *Result) storeyStability(u *unit, base *frame.Model, stiff Stiffness, fi
 }
 
 // storeyStabilityAll is storeyStability for the first-order units us
-// analysed on sol (stiffness stiff): their combinations and horizontal
-// loads, and once for all of them the unit storey shears, solved on sol's
-// factor together.
-func (r *Result) storeyStabilityAll(us []*unit, base *frame.Model, stiff Stiffness, sol *frame.Solution) error {
+// analysed on sol (stiffness stiff), comb their combinations
+// (combinedOf): those at a factor of 1 and their horizontal loads, and
+// once for all of them the unit storey shears, solved on sol's factor
+// together.
+func (r *Result) storeyStabilityAll(us []*unit, base *frame.Model, stiff Stiffness, sol *frame.Solution, comb []frame.Case) error {
 	job := r.Job
 	if len(r.Storeys) == 0 {
 		return nil
@@ -267,11 +268,15 @@ func (r *Result) storeyStabilityAll(us []*unit, base *frame.Model, stiff Stiffne
 	var strength []*unit
 	var cases []frame.Case
 	var hxs [][]float64
-	for _, u := range us {
+	for i, u := range us {
 		if job.Combinations[u.k].Service {
 			continue
 		}
-		all, hx := r.stabilityCases(u, base, secs, mems)
+		c := comb[i]
+		if u.scale != 1 {
+			c = combined(base, secs, mems, u.cb, 1, nil).Cases[0]
+		}
+		all, hx := r.stabilityCases(base, secs, mems, c)
 		// Names of their own: a combination's alternatives share its name.
 		all.Cases[0].Name = fmt.Sprintf("combination %d", len(strength)+1)
 		all.Cases[1].Name = fmt.Sprintf("lateral %d", len(strength)+1)
@@ -300,12 +305,12 @@ func (r *Result) storeyStabilityAll(us []*unit, base *frame.Model, stiff Stiffne
 	return nil
 }
 
-// stabilityCases returns unit u's combination, every case at its factor
-// and every piece loaded, and its horizontal loads alone, as the two
-// cases of a model with the sections and members given; and the
+// stabilityCases returns a combination's case comb (every case at its
+// factor and every piece loaded) and its horizontal loads alone, as the
+// two cases of a model with the sections and members given; and the
 // horizontal load at each node, by the lever rule.
-func (r *Result) stabilityCases(u *unit, base *frame.Model, secs []frame.Section, mems []frame.Member) (*frame.Model, []float64) {
-	all := combined(base, secs, mems, u.cb, 1, nil)
+func (r *Result) stabilityCases(base *frame.Model, secs []frame.Section, mems []frame.Member, comb frame.Case) (*frame.Model, []float64) {
+	all := &frame.Model{Nodes: base.Nodes, Sections: secs, Members: mems, Cases: []frame.Case{comb}}
 	var lateral frame.Case
 	for _, ld := range all.Cases[0].MemberLoads {
 		if ld.Direction == frame.GlobalX && !ld.Moment && !ld.Thermal {
