@@ -29,6 +29,10 @@ type unit struct {
 	critical  float64   // αcr of the combination as written, with its stiffness
 	nominal   float64   // αcr with the sections as given
 	iteration int
+	// first is the first-order solution of its combination that a
+	// second-order unit's iteration starts from (iterate), kept for its
+	// storeys' stability (the same stiffness) until they are found.
+	first *frame.Solution
 }
 
 // plan lists the units of a job, with the solved model grown by the
@@ -299,12 +303,14 @@ func (r *Result) iterate(u *unit, base *frame.Model, stiff Stiffness) error {
 		tol = DefaultTolerance
 	}
 	secs, mems := job.stiffnessOf(base, stiff)
-	mo := combined(base, secs, mems, u.cb, u.scale, nil)
-	sol, err := frame.SolveWith(mo, r.solver)
+	first, err := frame.SolveWith(combined(base, secs, mems, u.cb, u.scale, nil), r.solver)
 	if err != nil {
 		return fmt.Errorf("combination %q: %w", name, err)
 	}
-	n := axialForces(sol, 0)
+	u.first = first
+	n := axialForces(first, 0)
+	mo := combined(base, secs, mems, u.cb, u.scale, nil)
+	var sol *frame.Solution
 	if err := r.critical(u, base, n, stiff); err != nil {
 		return err
 	}
@@ -538,8 +544,15 @@ func (r *Result) envelopes(pl *plan, sv *solved, lay *patterns.Layout, reqs []re
 			if err := r.storeyStabilityAll(us, sv.model, g.stiff, sol, comb); err != nil {
 				return nil, err
 			}
-		} else if err := r.storeyStability(&pl.units[g.units[0]], sv.model, g.stiff, nil); err != nil {
-			return nil, err
+		} else {
+			// The storeys' first-order analyses have the stiffness the
+			// iteration started from: solved on its factor.
+			u := &pl.units[g.units[0]]
+			err := r.storeyStability(u, sv.model, g.stiff, u.first)
+			u.first = nil
+			if err != nil {
+				return nil, err
+			}
 		}
 		for _, i := range g.units {
 			u := &pl.units[i]

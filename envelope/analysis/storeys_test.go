@@ -168,7 +168,9 @@ func swayFrame() *Job {
 // each combination solved alone, by an assembly and factor of its own
 // (frame.SolveWith): with the sections as given and no notional load
 // (every combination on the one solution), with notional loads as
-// alternatives each way, and with strength and service stiffness.
+// alternatives each way, with strength and service stiffness, and in
+// second order (each combination's storeys on the factor its iteration
+// starts from).
 func TestStoreyStabilityOnSharedFactor(t *testing.T) {
 	for _, tc := range []struct {
 		name string
@@ -180,6 +182,10 @@ func TestStoreyStabilityOnSharedFactor(t *testing.T) {
 		{"strength stiffness", func(j *Job) {
 			j.Sway.StrengthEI = 0.8
 			j.Methods = []Method{{Stiffness: Strength}, {Stiffness: Strength}, {}, {Stiffness: Strength}, {Stiffness: Service}}
+		}, 2},
+		{"second order", func(j *Job) {
+			so := Method{SecondOrder: true}
+			j.Methods = []Method{so, {SecondOrder: true, Allowable: true}, so, {SecondOrder: true, Stiffness: Strength}, {}}
 		}, 2},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
