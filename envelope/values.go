@@ -22,7 +22,7 @@ import (
 // get may be called from several goroutines at once.
 func Values(sol *frame.Solution, cs []combos.Combination, idx []int, set Settings, lay *patterns.Layout, n int,
 	get func(c, i int) [3]float64, what func(i, q int) string) ([][3]Extreme, error) {
-	return ValuesRows(sol, cs, idx, set, lay, n, func(i int, row, _ [][3]float64) {
+	return ValuesRows(sol, cs, idx, set, lay, n, 3, func(i int, row, _ [][3]float64) {
 		for c := range row {
 			row[c] = get(c, i)
 		}
@@ -34,21 +34,27 @@ const valuesBlock = 64
 
 // ValuesRows is [Values] with each quantity's values given in one call:
 // fill(i, row, tmp) sets row[c] to quantity i's three components in every
-// column c; tmp, of the same length, is scratch of its own. The quantities
+// column c; tmp, of the same length, is scratch of its own. Only the first
+// effects components (1 to 3) are enveloped, the others' Extremes left
+// none (zero, MaxBy and MinBy −1): a quantity of one number (a drift) is
+// not placed three times. The quantities
 // are enveloped on every processor, each alone, so the result does not
 // depend on how many there are; fill is called from several goroutines at
 // once. The error is that of the first quantity, in their order, that has
 // one.
-func ValuesRows(sol *frame.Solution, cs []combos.Combination, idx []int, set Settings, lay *patterns.Layout, n int,
+func ValuesRows(sol *frame.Solution, cs []combos.Combination, idx []int, set Settings, lay *patterns.Layout, n, effects int,
 	fill func(i int, row, tmp [][3]float64), what func(i, q int) string) ([][3]Extreme, error) {
 	if len(idx) == 0 {
 		return nil, ErrNoCombinations
+	}
+	if effects < 1 || effects > 3 {
+		panic("envelope: ValuesRows: effects must be 1, 2 or 3")
 	}
 	mo := sol.Model()
 	if lay != nil && lay.Model != mo {
 		panic("envelope: solution is not of the layout's model")
 	}
-	e := newEvaluator(mo, cs, idx, 3, set, lay)
+	e := newEvaluator(mo, cs, idx, effects, set, lay)
 	out := make([][3]Extreme, n)
 	blocks := (n + valuesBlock - 1) / valuesBlock
 	workers := max(min(runtime.GOMAXPROCS(0), blocks), 1)
@@ -112,5 +118,8 @@ func valueOf(e *evaluator, w *work) (x [3]Extreme, ok bool) {
 		w.noise[j] *= roundOff
 	}
 	x = e.station(w)
-	return x, allFinite(&x, 3)
+	for j := e.nEff; j < 3; j++ {
+		x[j] = Extreme{MaxBy: -1, MinBy: -1}
+	}
+	return x, allFinite(&x, e.nEff)
 }

@@ -51,7 +51,7 @@ func TestValuesRowsAgainstDirectSums(t *testing.T) {
 	what := func(i, q int) string { return fmt.Sprintf("quantity %d, component %d", i, q) }
 	run := func(procs int) [][3]Extreme {
 		defer runtime.GOMAXPROCS(runtime.GOMAXPROCS(procs))
-		out, err := ValuesRows(sol, cs, []int{0, 1}, set, nil, n, fill, what)
+		out, err := ValuesRows(sol, cs, []int{0, 1}, set, nil, n, 3, fill, what)
 		if err != nil {
 			t.Fatal(err)
 		}
@@ -82,13 +82,25 @@ func TestValuesRowsAgainstDirectSums(t *testing.T) {
 			}
 		}
 	})
+	t.Run("one component", func(t *testing.T) {
+		first, err := ValuesRows(sol, cs, []int{0, 1}, set, nil, n, 1, fill, what)
+		if err != nil {
+			t.Fatal(err)
+		}
+		none := Extreme{MaxBy: -1, MinBy: -1}
+		for i := range n {
+			if fmt.Sprint(first[i][0]) != fmt.Sprint(one[i][0]) || fmt.Sprint(first[i][1]) != fmt.Sprint(none) || fmt.Sprint(first[i][2]) != fmt.Sprint(none) {
+				t.Fatalf("quantity %d: %v, with three components %v", i, first[i], one[i])
+			}
+		}
+	})
 	t.Run("first error", func(t *testing.T) {
 		vals[2*valuesBlock+3][1][2] = math.Inf(1)
 		vals[valuesBlock+5][2][0] = math.Inf(-1)
 		for _, procs := range []int{1, 2} {
 			func() {
 				defer runtime.GOMAXPROCS(runtime.GOMAXPROCS(procs))
-				_, err := ValuesRows(sol, cs, []int{0, 1}, set, nil, n, fill, what)
+				_, err := ValuesRows(sol, cs, []int{0, 1}, set, nil, n, 3, fill, what)
 				want := fmt.Sprintf("quantity %d, component 0", valuesBlock+5)
 				if !errors.Is(err, ErrNotFinite) || !strings.Contains(err.Error(), want) {
 					t.Errorf("%d processors: %v, want the error of %s", procs, err, want)

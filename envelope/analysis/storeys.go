@@ -121,6 +121,9 @@ func displacementTargets(cs []combos.Combination) []bool {
 // displacements, drifts), formed group by group with the envelopes.
 type valuesRequest struct {
 	n int
+	// effects is how many of a quantity's three components are enveloped
+	// (envelope.ValuesRows): 3 for a node's displacements, 1 for a drift.
+	effects int
 	// fill sets row[c] to quantity i in every column c of sol; tmp is
 	// scratch of the same length (envelope.ValuesRows).
 	fill    func(sol *frame.Solution, i int, row, tmp [][3]float64)
@@ -142,7 +145,7 @@ func (vr *valuesRequest) add(sol *frame.Solution, lay *patterns.Layout, cs []com
 		return nil
 	}
 	set.Stations, set.Extra, set.Lines, set.Progress = 2, nil, nil, nil
-	vals, err := envelope.ValuesRows(sol, cs, sel, set, lay, vr.n, func(i int, row, tmp [][3]float64) { vr.fill(sol, i, row, tmp) }, vr.what)
+	vals, err := envelope.ValuesRows(sol, cs, sel, set, lay, vr.n, vr.effects, func(i int, row, tmp [][3]float64) { vr.fill(sol, i, row, tmp) }, vr.what)
 	if err != nil {
 		return err
 	}
@@ -168,7 +171,7 @@ func (r *Result) displacementRequests() (nodes, drifts *valuesRequest) {
 	mo := r.Job.Model
 	targets := displacementTargets(r.Job.Combinations)
 	dir := [3]string{"ux", "uy", "rz"}
-	nodes = &valuesRequest{n: len(mo.Nodes), targets: targets,
+	nodes = &valuesRequest{n: len(mo.Nodes), effects: 3, targets: targets,
 		fill: func(sol *frame.Solution, v int, row, _ [][3]float64) {
 			sol.DisplacementsTo(row, v)
 			if sol.RotationFree(v) {
@@ -182,7 +185,7 @@ func (r *Result) displacementRequests() (nodes, drifts *valuesRequest) {
 	for _, s := range r.Storeys {
 		cols = append(cols, s.Columns...)
 	}
-	drifts = &valuesRequest{n: len(cols), targets: targets,
+	drifts = &valuesRequest{n: len(cols), effects: 1, targets: targets,
 		fill: func(sol *frame.Solution, i int, row, tmp [][3]float64) {
 			// columnDrift in every column: the top's ux less the bottom's.
 			b := mo.Bottom(cols[i])
