@@ -618,8 +618,24 @@ func (b *Buckling) Factors(axials [][]float64) ([]float64, error) {
 			}
 			r, z = y, ky
 		}
-		m, e, _, _ := b.lanczos(run[1:], r, z, false)
-		mus, errs = append(mus, m...), append(errs, e...)
+		// Each set's recurrence is its own (every column of a step in the
+		// same order of operations as alone): the sets split between the
+		// processors give the same numbers.
+		rest := run[1:]
+		parts := min(runtime.GOMAXPROCS(0), len(rest))
+		ms, es := make([][]float64, parts), make([][]error, parts)
+		var wg sync.WaitGroup
+		for i := range parts {
+			wg.Add(1)
+			go func() {
+				defer wg.Done()
+				ms[i], es[i], _, _ = b.lanczos(rest[i*len(rest)/parts:(i+1)*len(rest)/parts], r, z, false)
+			}()
+		}
+		wg.Wait()
+		for i := range parts {
+			mus, errs = append(mus, ms[i]...), append(errs, es[i]...)
+		}
 	}
 	fail := make([]error, len(axials))
 	next := make(chan int, len(run))

@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"math"
 	"math/rand/v2"
+	"runtime"
 	"testing"
 )
 
@@ -270,6 +271,21 @@ func TestBucklingBatch(t *testing.T) {
 	all, err := b.Factors(sets)
 	if err != nil {
 		t.Fatal(err)
+	}
+	// The sets after the first are split between the processors: on one
+	// the same numbers, to the last bit.
+	single := func() []float64 {
+		defer runtime.GOMAXPROCS(runtime.GOMAXPROCS(1))
+		out, err := b.Factors(sets)
+		if err != nil {
+			t.Fatal(err)
+		}
+		return out
+	}()
+	for i := range sets {
+		if single[i] != all[i] {
+			t.Errorf("set %d: αcr %.17g on one processor, %.17g on several", i, single[i], all[i])
+		}
 	}
 	for i, set := range sets {
 		one, err := b.Factor(set)
