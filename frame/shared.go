@@ -44,9 +44,7 @@ func (sol *Solution) SolveCases(cases []Case) (*Solution, error) {
 	}
 	kb := min(sol.band, n-1)
 	x := out.rhs(n)
-	scaleRows(x, sol.pow2, nc)
-	bandSolve(sol.factor, n, kb, x, nc)
-	scaleRows(x, sol.pow2, nc)
+	bandSolveScaled(sol.factor, n, kb, x, nc, sol.pow2)
 	out.x = x
 	out.zero = make([]float64, nc)
 	if err := out.checkFinite(); err != nil {

@@ -185,9 +185,7 @@ func SolveWith(mo *Model, opt Options) (*Solution, error) {
 
 	// K x = b is solved as (D K D)(D⁻¹ x) = D b.
 	x := sol.rhs(n)
-	scaleRows(x, d, nc)
-	bandSolve(u.Data, n, kb, x, nc)
-	scaleRows(x, d, nc)
+	bandSolveScaled(u.Data, n, kb, x, nc, d)
 	sol.x = x
 	sol.factor, sol.pow2 = u.Data, d
 	sol.zero = make([]float64, nc)
