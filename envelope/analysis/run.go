@@ -256,21 +256,7 @@ func Run(ctx context.Context, job *Job, opt Options) (*Result, error) {
 		for i := range us {
 			us[i] = &pl.units[i]
 		}
-		comb := combinedOf(sv.model, us)
-		// The storeys beside the critical load factors, whose Lanczos
-		// iteration starts on one processor: they share nothing they
-		// write.
-		var storeys error
-		done := make(chan struct{})
-		go func() {
-			defer close(done)
-			storeys = r.storeyStabilityAll(us, sv.model, Nominal, sol, comb)
-		}()
-		stability = r.criticalAll(us, sv.model, Nominal, sol, comb)
-		<-done
-		if stability == nil {
-			stability = storeys
-		}
+		stability = r.firstOrderStability(us, sv.model, Nominal, sol)
 		for i := range pl.units {
 			u := &pl.units[i]
 			cb := &r.Combinations[u.k]

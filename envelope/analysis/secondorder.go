@@ -537,11 +537,7 @@ func (r *Result) envelopes(pl *plan, sv *solved, lay *patterns.Layout, reqs []re
 			for _, i := range g.units {
 				us = append(us, &pl.units[i])
 			}
-			comb := combinedOf(sv.model, us)
-			if err := r.criticalAll(us, sv.model, g.stiff, sol, comb); err != nil {
-				return nil, err
-			}
-			if err := r.storeyStabilityAll(us, sv.model, g.stiff, sol, comb); err != nil {
+			if err := r.firstOrderStability(us, sv.model, g.stiff, sol); err != nil {
 				return nil, err
 			}
 		} else {
@@ -768,6 +764,27 @@ func (r *Result) stabilityWarnings() []string {
 type buckled struct {
 	k   int
 	msg string
+}
+
+// firstOrderStability sets the critical load factors and the storeys'
+// stability indices of the first-order units us, analysed with stiffness
+// stiff on sol: the storeys beside the critical load factors, whose
+// Lanczos iteration starts on one processor (they share nothing they
+// write). The error is the critical load factors', else the storeys'.
+func (r *Result) firstOrderStability(us []*unit, base *frame.Model, stiff Stiffness, sol *frame.Solution) error {
+	comb := combinedOf(base, us)
+	var storeys error
+	done := make(chan struct{})
+	go func() {
+		defer close(done)
+		storeys = r.storeyStabilityAll(us, base, stiff, sol, comb)
+	}()
+	err := r.criticalAll(us, base, stiff, sol, comb)
+	<-done
+	if err != nil {
+		return err
+	}
+	return storeys
 }
 
 // criticalAll sets the critical load factors of the first-order units us,
