@@ -3,8 +3,10 @@ package frame
 import (
 	"fmt"
 	"math"
+	"runtime"
 	"slices"
 	"sort"
+	"sync"
 
 	"gonum.org/v1/gonum/blas"
 	"gonum.org/v1/gonum/blas/blas64"
@@ -393,10 +395,31 @@ func (sol *Solution) indexImposed() {
 // rhs returns the right-hand sides, row-major n × cases: node loads less
 // the fixed-end forces of the member loads.
 func (sol *Solution) rhs(n int) []float64 {
+	nc := len(sol.model.Cases)
+	x := make([]float64, n*nc)
+	// Each case's column alone, the cases split in runs between the
+	// processors: the same sums in the same order on any number.
+	workers := max(min(runtime.GOMAXPROCS(0), nc/64), 1)
+	var wg sync.WaitGroup
+	for k := range workers {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			sol.rhsOf(x, k*nc/workers, (k+1)*nc/workers)
+		}()
+	}
+	wg.Wait()
+	if len(sol.imposed) > 0 {
+		sol.imposedRHS(x)
+	}
+	return x
+}
+
+// rhsOf adds to x (see rhs) the loads of cases lo up to hi.
+func (sol *Solution) rhsOf(x []float64, lo, hi int) {
 	mo, dof := sol.model, sol.dof
 	nc := len(mo.Cases)
-	x := make([]float64, n*nc)
-	for c := range mo.Cases {
+	for c := lo; c < hi; c++ {
 		for _, nl := range mo.Cases[c].NodeLoads {
 			for d, v := range [3]float64{nl.Fx, nl.Fy, nl.M} {
 				if e := dof[3*nl.Node+d]; e >= 0 {
@@ -416,10 +439,6 @@ func (sol *Solution) rhs(n int) []float64 {
 			}
 		}
 	}
-	if len(sol.imposed) > 0 {
-		sol.imposedRHS(x)
-	}
-	return x
 }
 
 // imposedRHS subtracts from the right-hand sides x the forces that the
