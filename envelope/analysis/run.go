@@ -183,15 +183,23 @@ func Run(ctx context.Context, job *Job, opt Options) (*Result, error) {
 		len(lay.Model.Cases), len(sv.model.Cases), len(lay.Model.Cases)-len(sv.model.Cases))})
 	solver := opt.Solver
 	solver.PerMember += perMember(job, sv, lay, opt)
+	// The elastic stiffness with the sections as given, factored for the
+	// critical load factors (every run finds them) beside the solve, whose
+	// assembly and factorization take one processor.
+	nominal := &bucklingOnce{}
+	go nominal.once.Do(func() {
+		nominal.b, nominal.err = frame.NewBuckling(&frame.Model{Nodes: sv.model.Nodes, Sections: sv.model.Sections, Members: sv.model.Members})
+	})
 	sol, err := frame.SolveWith(lay.Model, solver)
-	if err != nil {
-		return nil, err
+	if err == nil {
+		err = ctx.Err()
 	}
-	if err := ctx.Err(); err != nil {
+	if err != nil {
+		nominal.once.Do(func() {}) // done with it
 		return nil, err
 	}
 	r := &Result{Job: job, lay: lay, sol: sol, solver: opt.Solver, Patterns: lay.Mode, Segments: lay.Segments, Info: sol.Info(),
-		Warnings: append(slices.Clip(sol.Warnings()), Plausibility(job)...)}
+		Warnings: append(slices.Clip(sol.Warnings()), Plausibility(job)...), buckling: map[Stiffness]*bucklingOnce{Nominal: nominal}}
 	r.Faces = ColumnFaces(job.Model)
 	r.Spans = spans(job.Model)
 	set := envelope.Settings{
