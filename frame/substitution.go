@@ -92,16 +92,16 @@ func (bs *bandSolver) solveScaled(x []float64, nrhs int, d []float64) {
 	wg.Wait()
 }
 
-// copyScaled copies src to dst times d[i], or as it is when d is nil.
+// copyScaled copies src to dst times d[i], or as it is when d is nil:
+// copied, then scaled where the row is in cache.
 func copyScaled(dst, src, d []float64, i int) {
+	copy(dst, src)
 	if d == nil {
-		copy(dst, src)
 		return
 	}
 	s := d[i]
-	dst = dst[:len(src)]
-	for k, v := range src {
-		dst[k] = v * s
+	for k := range dst[:len(src)] {
+		dst[k] *= s
 	}
 }
 
