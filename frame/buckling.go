@@ -694,6 +694,7 @@ const certifyGap = 1e-6
 // slow to touch.
 type certifyScratch struct {
 	elems []element
+	so    []secondOrder // the elements' second-order parts
 	data  []float64
 }
 
@@ -706,10 +707,11 @@ func (b *Buckling) definite(lambda float64, axial []float64, sc *certifyScratch)
 	}
 	if len(sc.elems) != len(mo.Members) {
 		sc.elems = make([]element, len(mo.Members))
+		sc.so = make([]secondOrder, len(mo.Members))
 	}
 	elems := sc.elems
 	for m := range mo.Members {
-		e, ok := newElementAxial(mo, m, lambda*axial[m], true)
+		e, ok := newElementAxialIn(mo, m, lambda*axial[m], true, &sc.so[m])
 		if !ok {
 			return false
 		}
