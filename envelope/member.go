@@ -18,7 +18,12 @@ func (e *evaluator) member(w *work, sol *frame.Solution, m int) (Member, error) 
 			ns, nc := len(w.xs), len(w.ev)
 			w.defl = grow(w.defl, ns*nc)
 			for c := range nc {
-				sol.DeflectionsFrom(w.defl[c*ns:(c+1)*ns], c, m, &w.fold.ends[c], w.xs)
+				d := w.defl[c*ns : (c+1)*ns]
+				if f := &w.fold; f.second {
+					sol.SecondFrom(nil, d, c, m, &f.disp[c], f.wts, w.xs)
+				} else {
+					sol.DeflectionsFrom(d, c, m, &f.ends[c], w.xs)
+				}
 			}
 		}
 		line := e.lineDeflections(w, sol, m)

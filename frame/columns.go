@@ -19,6 +19,55 @@ func (sol *Solution) EndForcesEach(dst [][6]float64, m int) { sol.endForcesEach(
 // left zero. It does half the work.
 func (sol *Solution) StartForcesEach(dst [][6]float64, m int) { sol.endForcesEach(dst, m, 3) }
 
+// DisplacementsEach fills dst[c] with the local displacements of the nodes
+// of member m in case c (start u, v, θ; end u, v, θ), for every case, read
+// from the contiguous displacement rows as [Solution.EndForcesEach] reads
+// them: in a second-order solution they give, with
+// [Solution.SecondOrderWeightsTo], N times the member's displacement at
+// its stations ([Sway], [Solution.SecondFrom]). dst must have the length
+// of the model's cases. Nothing is mutated but dst.
+func (sol *Solution) DisplacementsEach(dst [][6]float64, m int) {
+	if len(dst) != len(sol.model.Cases) {
+		panic("frame: DisplacementsEach: dst has the wrong length")
+	}
+	sol.eachCase(m, func(c int, u *[6]float64) { dst[c] = *u })
+}
+
+// eachCase calls fn with each case's local displacements of the nodes of
+// member m, in the order of the cases.
+func (sol *Solution) eachCase(m int, fn func(c int, u *[6]float64)) {
+	nc := len(sol.model.Cases)
+	mem := sol.model.Members[m]
+	e := &sol.elems[m]
+	var disp [6][]float64
+	zero := sol.zero
+	for d := range 6 {
+		node := mem.Start
+		if d >= 3 {
+			node = mem.End
+		}
+		switch i := sol.dof[3*node+d%3]; {
+		case i >= 0:
+			disp[d] = sol.x[i*nc : (i+1)*nc]
+		case i < -1:
+			disp[d] = sol.imposed[(-2-i)*nc : (-1-i)*nc]
+		default:
+			if len(zero) != nc {
+				zero = make([]float64, nc)
+			}
+			disp[d] = zero
+		}
+	}
+	r0, r1, r2, r3, r4, r5 := disp[0][:nc], disp[1][:nc], disp[2][:nc], disp[3][:nc], disp[4][:nc], disp[5][:nc]
+	cs, sn := e.c, e.s
+	for c := range nc {
+		g0, g1, g2, g3, g4, g5 := r0[c], r1[c], r2[c], r3[c], r4[c], r5[c]
+		// toLocal
+		u := [6]float64{cs*g0 + sn*g1, -sn*g0 + cs*g1, g2, cs*g3 + sn*g4, -sn*g3 + cs*g4, g5}
+		fn(c, &u)
+	}
+}
+
 // endForcesEach fills dst[c][0:rows] (see EndForcesEach).
 func (sol *Solution) endForcesEach(dst [][6]float64, m, rows int) {
 	nc := len(sol.model.Cases)
