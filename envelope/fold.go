@@ -225,15 +225,21 @@ func (f *fold) load(e *evaluator, w *work, sol *frame.Solution, m int) {
 			fc.u[u] = [6]float64{}
 		}
 		fc.mt = grow(fc.mt, ns*nu)
+		bm := big[2]
 		for u, a := range fc.a {
 			see(frame.Forces{N: fc.n[u], V: fc.v[u]})
 			v, d := fc.v[u], &fc.u[u]
 			for i, x := range w.xs {
 				mm := (a + x*v) + f.n*frame.Sway(&f.wts[i], d)
 				fc.mt[i*nu+u] = mm
-				see(frame.Forces{M: mm})
+				if mm > bm {
+					bm = mm
+				} else if -mm > bm {
+					bm = -mm
+				}
 			}
 		}
+		big[2] = bm
 		for _, u := range fc.own {
 			for i := range ns {
 				fc.mt[i*nu+u] = 0
@@ -244,7 +250,9 @@ func (f *fold) load(e *evaluator, w *work, sol *frame.Solution, m int) {
 		w.noiseAt[j] = big[j] * roundOff
 	}
 	for p := range f.cases {
-		f.cases[p].fold(w, f.second)
+		if e.uses(p) {
+			f.cases[p].fold(w, f.second)
+		}
 	}
 }
 
@@ -346,6 +354,9 @@ func (pl *exactPlacement) scanFolded(e *evaluator, w *work, f *fold, i int) {
 	ns := len(w.xs)
 	x := w.xs[i]
 	for p := range e.lay.Patterned {
+		if !e.uses(p) {
+			continue // read by no combination
+		}
 		fc := &f.cases[p]
 		var sum [3][2][3]float64
 		var zero [3][3]float64
@@ -516,6 +527,9 @@ func (pl *exactPlacement) scanFolded(e *evaluator, w *work, f *fold, i int) {
 func (pl *exactPlacement) scanOne(e *evaluator, w *work, vals []float64, ns, i int) {
 	nz := w.noise[0]
 	for p, pc := range e.lay.Patterned {
+		if !e.uses(p) {
+			continue // read by no combination
+		}
 		lo := e.first[p]
 		nu := len(pc.Units)
 		var big [2]float64

@@ -30,15 +30,24 @@ func (sol *Solution) DisplacementsEach(dst [][6]float64, m int) {
 	if len(dst) != len(sol.model.Cases) {
 		panic("frame: DisplacementsEach: dst has the wrong length")
 	}
-	sol.eachCase(m, func(c int, u *[6]float64) { dst[c] = *u })
+	nc := len(sol.model.Cases)
+	disp := sol.endRows(m)
+	r0, r1, r2, r3, r4, r5 := disp[0][:nc], disp[1][:nc], disp[2][:nc], disp[3][:nc], disp[4][:nc], disp[5][:nc]
+	e := &sol.elems[m]
+	cs, sn := e.c, e.s
+	for c := range dst {
+		g0, g1, g2, g3, g4, g5 := r0[c], r1[c], r2[c], r3[c], r4[c], r5[c]
+		// toLocal
+		dst[c] = [6]float64{cs*g0 + sn*g1, -sn*g0 + cs*g1, g2, cs*g3 + sn*g4, -sn*g3 + cs*g4, g5}
+	}
 }
 
-// eachCase calls fn with each case's local displacements of the nodes of
-// member m, in the order of the cases.
-func (sol *Solution) eachCase(m int, fn func(c int, u *[6]float64)) {
+// endRows returns, for each of the 6 end directions of member m (start
+// ux, uy, rz, end ux, uy, rz, global), its displacement in every case:
+// solved, imposed, or zero where a support holds it.
+func (sol *Solution) endRows(m int) [6][]float64 {
 	nc := len(sol.model.Cases)
 	mem := sol.model.Members[m]
-	e := &sol.elems[m]
 	var disp [6][]float64
 	zero := sol.zero
 	for d := range 6 {
@@ -58,14 +67,7 @@ func (sol *Solution) eachCase(m int, fn func(c int, u *[6]float64)) {
 			disp[d] = zero
 		}
 	}
-	r0, r1, r2, r3, r4, r5 := disp[0][:nc], disp[1][:nc], disp[2][:nc], disp[3][:nc], disp[4][:nc], disp[5][:nc]
-	cs, sn := e.c, e.s
-	for c := range nc {
-		g0, g1, g2, g3, g4, g5 := r0[c], r1[c], r2[c], r3[c], r4[c], r5[c]
-		// toLocal
-		u := [6]float64{cs*g0 + sn*g1, -sn*g0 + cs*g1, g2, cs*g3 + sn*g4, -sn*g3 + cs*g4, g5}
-		fn(c, &u)
-	}
+	return disp
 }
 
 // endForcesEach fills dst[c][0:rows] (see EndForcesEach).
@@ -74,29 +76,8 @@ func (sol *Solution) endForcesEach(dst [][6]float64, m, rows int) {
 	if len(dst) != nc {
 		panic("frame: EndForcesEach: dst has the wrong length")
 	}
-	mem := sol.model.Members[m]
 	e := &sol.elems[m]
-	// disp[d] holds direction d's displacement in every case: solved,
-	// imposed, or zero where a support holds it.
-	var disp [6][]float64
-	zero := sol.zero
-	for d := range 6 {
-		node := mem.Start
-		if d >= 3 {
-			node = mem.End
-		}
-		switch i := sol.dof[3*node+d%3]; {
-		case i >= 0:
-			disp[d] = sol.x[i*nc : (i+1)*nc]
-		case i < -1:
-			disp[d] = sol.imposed[(-2-i)*nc : (-1-i)*nc]
-		default:
-			if len(zero) != nc {
-				zero = make([]float64, nc)
-			}
-			disp[d] = zero
-		}
-	}
+	disp := sol.endRows(m)
 	clear(dst)
 	// The fixed-end forces of the cases that load the member, then k u,
 	// summed in the order of endForcesTo: f[i] + k[i][0] u[0] + … + k[i][5] u[5].

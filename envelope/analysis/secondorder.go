@@ -500,6 +500,15 @@ func (r *Result) envelopes(pl *plan, sv *solved, lay *patterns.Layout, reqs []re
 			mo.Sections, mo.Members = secs, mems
 			l2 := *lay
 			l2.Model = &mo
+			if !usesPatterns(lay, pl, g.units) {
+				// No combination of the group has a patterned term: their
+				// pieces are read by none (neither summed nor listed, and
+				// round-off is judged for pieces only), so they are not
+				// solved for.
+				l2 = withoutUnits(lay)
+				mo.Cases = l2.Model.Cases
+				l2.Model = &mo
+			}
 			glay = &l2
 			var err error
 			so := opt.Solver
@@ -569,6 +578,38 @@ func (r *Result) envelopes(pl *plan, sv *solved, lay *patterns.Layout, reqs []re
 		}
 	}
 	return out, nil
+}
+
+// usesPatterns reports whether some unit of us (indices into pl.units)
+// has a term on a patterned case of lay.
+func usesPatterns(lay *patterns.Layout, pl *plan, us []int) bool {
+	for _, i := range us {
+		for _, t := range pl.units[i].cb.Terms {
+			for _, pc := range lay.Patterned {
+				if t.Case == pc.Case {
+					return true
+				}
+			}
+		}
+	}
+	return false
+}
+
+// withoutUnits returns lay with its patterned cases' units left out: its
+// model has the original cases only (each patterned case as its rest).
+func withoutUnits(lay *patterns.Layout) patterns.Layout {
+	l2 := *lay
+	n := len(lay.Model.Cases)
+	l2.Patterned = make([]patterns.Patterned, len(lay.Patterned))
+	for p, pc := range lay.Patterned {
+		n -= len(pc.Units)
+		pc.Units = nil
+		l2.Patterned[p] = pc
+	}
+	mo := *lay.Model
+	mo.Cases = lay.Model.Cases[:n:n]
+	l2.Model = &mo
+	return l2
 }
 
 // minCritical returns the smaller of two critical load factors, 0 being
