@@ -81,10 +81,12 @@ type fold struct {
 	disp   [][6]float64
 	wts    [][6]float64
 	n      float64
-	cases  []foldCase // per patterned case
-	mv     []float64  // scratch: the M of each unit at the station
-	// seed holds, per patterned case and sign, the smallest size of M the
-	// list kept at the previous station of the member (0 if not full).
+	cases  []foldCase     // per patterned case
+	mv     []float64      // scratch: the M of each unit at the station
+	own    []frame.Forces // scratch: the units that load the member at the station
+	// seed holds, per set of member factors, patterned case and sign
+	// (k*len(cases)+p), the smallest size of M the list kept at the
+	// previous station of the member (0 if not full).
 	seed [][2]float64
 }
 
@@ -98,20 +100,28 @@ type foldCase struct {
 	// that load the member, which are taken from ownAt instead.
 	n, v, a []float64
 	// In second order: every unit's local displacements of the member's
-	// nodes (zero for the units that load the member), and its M at every
-	// station, station by station (mt[i*len(n)+u]).
+	// nodes (a view of fold.disp), and its M at every station, station by
+	// station (mt[i*len(n)+u]; zero for the units that load the member).
 	u  [][6]float64
 	mt []float64
-	// The fold over the units that do not load the member, for N (j = 0)
-	// and V (j = 1): per class (0 positive, 1 round-off) the sums of N, V
-	// and M₀; per sign (0 positive, 1 negative) the count, the largest
-	// size and the most influential units (see exactPlacement).
+	// The fold over the units that do not load the member, for N and V,
+	// one per set of member factors (evaluator.parts, or one).
+	nv []foldNV
+}
+
+// foldNV is the fold of a patterned case's units that do not load the
+// member, for N (j = 0) and V (j = 1), each unit classified by its effect
+// scaled by the member's factors for the case: per class (0 positive, 1
+// round-off) the sums of N, V and M₀ (unscaled); per sign (0 positive, 1
+// negative) the count, the largest size and the most influential units
+// (see exactPlacement), scaled.
+type foldNV struct {
 	sum   [2][2][3]float64
 	sumU  [2][2][6]float64 // in second order, the sums of their displacements
 	count [2][2]int
 	big   [2][2]float64
 	top   [2][2][]candidate
-	totN  float64 // their sums of N and V
+	totN  float64 // their sums of N and V, unscaled
 	totV  float64
 }
 
@@ -122,7 +132,7 @@ var folding = true
 // foldable reports whether member m's forces can be folded (see above).
 func (e *evaluator) foldable(w *work, sol *frame.Solution, m int) (*exactPlacement, bool) {
 	pl, ok := w.place.(*exactPlacement)
-	if !folding || !ok || e.fac != nil || e.parts != nil || e.nEff != 3 || e.unitCase == nil {
+	if !folding || !ok || e.nEff != 3 || e.unitCase == nil {
 		return nil, false
 	}
 	if sol.HasMomentLoads() {
@@ -181,7 +191,11 @@ func (f *fold) load(e *evaluator, w *work, sol *frame.Solution, m int) {
 		f.cases = make([]foldCase, len(e.lay.Patterned))
 	}
 	f.cases = f.cases[:len(e.lay.Patterned)]
-	f.seed = grow(f.seed, len(e.lay.Patterned))
+	parts := e.parts
+	if parts == nil {
+		parts = []*evaluator{e}
+	}
+	f.seed = grow(f.seed, len(parts)*len(e.lay.Patterned))
 	for p := range f.cases {
 		fc := &f.cases[p]
 		fc.own, fc.ownAt = fc.own[:0], fc.ownAt[:0]
@@ -219,11 +233,7 @@ func (f *fold) load(e *evaluator, w *work, sol *frame.Solution, m int) {
 			continue
 		}
 		// Second order: M at every station, as StationsTo forms it.
-		fc.u = grow(fc.u, nu)
-		copy(fc.u, f.disp[e.first[p]:e.first[p]+nu])
-		for _, u := range fc.own {
-			fc.u[u] = [6]float64{}
-		}
+		fc.u = f.disp[e.first[p] : e.first[p]+nu]
 		fc.mt = grow(fc.mt, ns*nu)
 		bm := big[2]
 		for u, a := range fc.a {
@@ -249,51 +259,79 @@ func (f *fold) load(e *evaluator, w *work, sol *frame.Solution, m int) {
 	for j := range big {
 		w.noiseAt[j] = big[j] * roundOff
 	}
-	for p := range f.cases {
-		if e.uses(p) {
-			f.cases[p].fold(w, f.second)
+	for p, pc := range e.lay.Patterned {
+		fc := &f.cases[p]
+		if cap(fc.nv) < len(parts) {
+			fc.nv = make([]foldNV, len(parts))
+		}
+		fc.nv = fc.nv[:len(parts)]
+		for k, q := range parts {
+			if q.uses(p) {
+				fc.fold(w, &fc.nv[k], f.second, scaleOf(q, m, pc.Case))
+			}
 		}
 	}
 }
 
-// fold forms fc's fold for N and V over the units that do not load the
-// member (those of own have zero entries: round-off, adding nothing).
-func (fc *foldCase) fold(w *work, second bool) {
-	fc.sum, fc.count, fc.big = [2][2][3]float64{}, [2][2]int{}, [2][2]float64{}
-	fc.sumU = [2][2][6]float64{}
-	fc.totN, fc.totV = 0, 0
+// scaleOf returns the factors of evaluator e on original case c's N, V
+// and M in member m: 1 without member factors.
+func scaleOf(e *evaluator, m, c int) [3]float64 {
+	if e.fac != nil && e.fac[m] != nil {
+		return e.fac[m][c]
+	}
+	return [3]float64{1, 1, 1}
+}
+
+// fold forms in nv fc's fold for N and V over the units that do not load
+// the member (those of own have zero entries: round-off, adding nothing),
+// each classified by its effect times sc, as the unfolded path scales it.
+func (fc *foldCase) fold(w *work, nv *foldNV, second bool, sc [3]float64) {
+	nv.sum, nv.count, nv.big = [2][2][3]float64{}, [2][2]int{}, [2][2]float64{}
+	nv.sumU = [2][2][6]float64{}
+	nv.totN, nv.totV = 0, 0
+	scaled := sc != [3]float64{1, 1, 1}
+	own := 0 // the next of fc.own, whose displacements are not summed
 	for u, n := range fc.n {
 		v, a := fc.v[u], fc.a[u]
-		fc.totN += n
-		fc.totV += v
-		for j, x := range [2]float64{n, v} {
+		add := second
+		if own < len(fc.own) && fc.own[own] == u {
+			add = false
+			own++
+		}
+		nv.totN += n
+		nv.totV += v
+		xs := [2]float64{n, v}
+		if scaled {
+			xs = [2]float64{sc[0] * n, sc[1] * v}
+		}
+		for j, x := range xs {
 			var s int
 			var size float64
 			switch {
 			case x > w.noiseAt[j]:
 				s, size = 0, x
-				t := &fc.sum[j][0]
+				t := &nv.sum[j][0]
 				t[0] += n
 				t[1] += v
 				t[2] += a
-				if second {
-					addU(&fc.sumU[j][0], &fc.u[u])
+				if add {
+					addU(&nv.sumU[j][0], &fc.u[u])
 				}
 			case x < -w.noiseAt[j]:
 				s, size = 1, -x
 			default:
-				t := &fc.sum[j][1]
+				t := &nv.sum[j][1]
 				t[0] += n
 				t[1] += v
 				t[2] += a
-				if second {
-					addU(&fc.sumU[j][1], &fc.u[u])
+				if add {
+					addU(&nv.sumU[j][1], &fc.u[u])
 				}
 				continue
 			}
-			fc.count[j][s]++
-			if size > fc.big[j][s] {
-				fc.big[j][s] = size
+			nv.count[j][s]++
+			if size > nv.big[j][s] {
+				nv.big[j][s] = size
 			}
 		}
 	}
@@ -303,19 +341,23 @@ func (fc *foldCase) fold(w *work, second bool) {
 	var thr [2][2]float64
 	for j := range 2 {
 		for s := range 2 {
-			thr[j][s] = w.share * fc.big[j][s]
-			fc.top[j][s] = fc.top[j][s][:0]
+			thr[j][s] = w.share * nv.big[j][s]
+			nv.top[j][s] = nv.top[j][s][:0]
 		}
 	}
 	for u, n := range fc.n {
-		for j, x := range [2]float64{n, fc.v[u]} {
+		xs := [2]float64{n, fc.v[u]}
+		if scaled {
+			xs = [2]float64{sc[0] * n, sc[1] * fc.v[u]}
+		}
+		for j, x := range xs {
 			s, a := 0, x
 			if x < 0 {
 				s, a = 1, -x
 			}
 			if a > w.noiseAt[j] && a >= thr[j][s] {
-				h := keepLargest(fc.top[j][s], candidate{piece: u, a: a}, w.limit)
-				fc.top[j][s] = h
+				h := keepLargest(nv.top[j][s], candidate{piece: u, a: a}, w.limit)
+				nv.top[j][s] = h
 				if len(h) == w.limit && h[0].a >= thr[j][s] {
 					thr[j][s] = math.Nextafter(h[0].a, math.Inf(1))
 				}
@@ -349,34 +391,50 @@ func rank(h []candidate, vals []float64, noise float64, negative bool, thr float
 }
 
 // scanFolded is scan at station i of the folded member f: the same sums,
-// largest sizes, counts and most influential units per patterned case.
-func (pl *exactPlacement) scanFolded(e *evaluator, w *work, f *fold, i int) {
+// largest sizes, counts and most influential units per patterned case,
+// for the set k of member factors (of evaluator e), whose factors on each
+// original case in the member are row (nil for none).
+func (pl *exactPlacement) scanFolded(e *evaluator, w *work, f *fold, i, k int, row [][3]float64) {
 	ns := len(w.xs)
 	x := w.xs[i]
-	for p := range e.lay.Patterned {
+	np := len(e.lay.Patterned)
+	for p, pc := range e.lay.Patterned {
 		if !e.uses(p) {
 			continue // read by no combination
 		}
 		fc := &f.cases[p]
+		nv := &fc.nv[k]
+		sc := [3]float64{1, 1, 1}
+		if row != nil {
+			sc = row[pc.Case]
+		}
+		scaled := sc != [3]float64{1, 1, 1}
+		seed := &f.seed[k*np+p]
 		var sum [3][2][3]float64
 		var zero [3][3]float64
 		var big [3][2]float64
 		var count [3][2]int
 		var tot [3]float64
 		top := &pl.top[p]
-		// N and V: the fold.
-		tot[0], tot[1] = fc.totN, fc.totV
+		// N and V: the fold, scaled.
+		tot[0], tot[1] = sc[0]*nv.totN, sc[1]*nv.totV
 		for j := range 2 {
-			s := &fc.sum[j]
+			s := &nv.sum[j]
 			sum[j][0] = [3]float64{s[0][0], s[0][1], s[0][2] + x*s[0][1]}
 			zero[j] = [3]float64{s[1][0], s[1][1], s[1][2] + x*s[1][1]}
 			if f.second {
-				sum[j][0][2] += f.n * frame.Sway(&f.wts[i], &fc.sumU[j][0])
-				zero[j][2] += f.n * frame.Sway(&f.wts[i], &fc.sumU[j][1])
+				sum[j][0][2] += f.n * frame.Sway(&f.wts[i], &nv.sumU[j][0])
+				zero[j][2] += f.n * frame.Sway(&f.wts[i], &nv.sumU[j][1])
 			}
-			big[j], count[j] = fc.big[j], fc.count[j]
-			top[j][0] = append(top[j][0][:0], fc.top[j][0]...)
-			top[j][1] = append(top[j][1][:0], fc.top[j][1]...)
+			if scaled {
+				for q := range 3 {
+					sum[j][0][q] *= sc[q]
+					zero[j][q] *= sc[q]
+				}
+			}
+			big[j], count[j] = nv.big[j], nv.count[j]
+			top[j][0] = append(top[j][0][:0], nv.top[j][0]...)
+			top[j][1] = append(top[j][1][:0], nv.top[j][1]...)
 		}
 		// M: every unit classified at x, the largest sizes first so that
 		// the threshold for ranking is seeded with them.
@@ -385,6 +443,13 @@ func (pl *exactPlacement) scanFolded(e *evaluator, w *work, f *fold, i int) {
 		if f.second {
 			nu := len(fc.n)
 			mv = fc.mt[i*nu : (i+1)*nu]
+			if scaled {
+				f.mv = grow(f.mv, nu)
+				for u, m := range mv {
+					f.mv[u] = sc[2] * m
+				}
+				mv = f.mv
+			}
 			for _, m := range mv {
 				if m > hi {
 					hi = m
@@ -398,6 +463,9 @@ func (pl *exactPlacement) scanFolded(e *evaluator, w *work, f *fold, i int) {
 			mv = f.mv
 			for u, a := range fc.a {
 				m := a + x*fc.v[u]
+				if scaled {
+					m *= sc[2]
+				}
 				mv[u] = m
 				if m > hi {
 					hi = m
@@ -414,8 +482,14 @@ func (pl *exactPlacement) scanFolded(e *evaluator, w *work, f *fold, i int) {
 		if -lo > nz {
 			big[2][1] = -lo
 		}
-		for k := range fc.own {
-			v := fc.ownAt[k*ns+i]
+		// The values of the units that load the member, scaled.
+		f.own = grow(f.own, len(fc.own))
+		for q := range fc.own {
+			v := fc.ownAt[q*ns+i]
+			if scaled {
+				v = frame.Forces{N: sc[0] * v.N, V: sc[1] * v.V, M: sc[2] * v.M}
+			}
+			f.own[q] = v
 			for j, y := range [3]float64{v.N, v.V, v.M} {
 				if y > w.noise[j] && y > big[j][0] {
 					big[j][0] = y
@@ -434,7 +508,7 @@ func (pl *exactPlacement) scanFolded(e *evaluator, w *work, f *fold, i int) {
 		thr := cut
 		if i > 0 && w.limit != math.MaxInt {
 			for s := range thr {
-				thr[s] = max(thr[s], f.seed[p][s]/2)
+				thr[s] = max(thr[s], seed[s]/2)
 			}
 		}
 		top[2][0], top[2][1] = top[2][0][:0], top[2][1][:0]
@@ -470,19 +544,23 @@ func (pl *exactPlacement) scanFolded(e *evaluator, w *work, f *fold, i int) {
 				zer[2] += m
 			}
 		}
+		if scaled {
+			pos[0], pos[1] = sc[0]*pos[0], sc[1]*pos[1]
+			zer[0], zer[1] = sc[0]*zer[0], sc[1]*zer[1]
+		}
 		sum[2][0], zero[2], tot[2] = pos, zer, m0
 		for s := range 2 {
 			if len(top[2][s]) < w.limit && thr[s] > cut[s] {
 				top[2][s] = rank(top[2][s][:0], mv, nz, s == 1, cut[s], w.limit)
 			}
-			f.seed[p][s] = 0
+			seed[s] = 0
 			if h := top[2][s]; len(h) == w.limit {
-				f.seed[p][s] = h[0].a
+				seed[s] = h[0].a
 			}
 		}
 		// The units that load the member, exactly.
-		for k, u := range fc.own {
-			v := fc.ownAt[k*ns+i]
+		for q, u := range fc.own {
+			v := f.own[q]
 			vv := [3]float64{v.N, v.V, v.M}
 			tot[0] += v.N
 			tot[1] += v.V

@@ -23,15 +23,23 @@ const foldTol = 1e-12
 // start (D), extra stations, and a service combination; in first order,
 // and in second order (frame.Options.Axial, the axial forces 1.5 times
 // those of D in first order) with a released beam end, rigid end zones
-// and a rotational spring at a beam end.
+// and a rotational spring at a beam end; each without and with member
+// factors (foldFactors: a factor per effect, and one that depends on the
+// combination, so that the envelope is formed in parts).
 func TestFoldedEqualsUnfolded(t *testing.T) {
 	for _, second := range []bool{false, true} {
-		for _, segments := range []int{1, 2} {
-			name := fmt.Sprintf("first order/segments=%d", segments)
-			if second {
-				name = fmt.Sprintf("second order/segments=%d", segments)
+		for _, factors := range []bool{false, true} {
+			for _, segments := range []int{1, 2} {
+				name := "first order"
+				if second {
+					name = "second order"
+				}
+				if factors {
+					name += " with member factors"
+				}
+				name += fmt.Sprintf("/segments=%d", segments)
+				t.Run(name, func(t *testing.T) { foldedEqualsUnfolded(t, second, segments, factors) })
 			}
-			t.Run(name, func(t *testing.T) { foldedEqualsUnfolded(t, second, segments, false) })
 		}
 	}
 }
@@ -145,6 +153,12 @@ func foldedEqualsUnfolded(t *testing.T, second bool, segments int, factors bool)
 	// near it would otherwise be loaded on one path only.
 	strength, _ := split(cs)
 	e := newEvaluator(sol.Model(), cs, strength, 3, set, lay)
+	if factors {
+		e.setFactors(set.Factors, cs)
+		if len(e.parts) < 2 {
+			t.Fatalf("the member factors make %d parts: the factors that depend on the combination are not checked", len(e.parts))
+		}
+	}
 	w := e.scratch()
 	for m := range mo.Members {
 		var extra []float64
