@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"runtime"
 	"slices"
 	"sync"
 
@@ -474,6 +475,26 @@ func (r *Result) envelopes(pl *plan, sv *solved, lay *patterns.Layout, reqs []re
 		}
 		groups[g].units = append(groups[g].units, i)
 	}
+	// The second-order units' iterations are independent of each other
+	// and of the envelopes: they run side by side, and each unit's error
+	// is returned where the unit comes in order.
+	iterated := make([]error, len(pl.units))
+	var wg sync.WaitGroup
+	slots := make(chan struct{}, runtime.GOMAXPROCS(0))
+	for _, g := range groups {
+		if !g.second {
+			continue
+		}
+		i, stiff := g.units[0], g.stiff
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			slots <- struct{}{}
+			defer func() { <-slots }()
+			iterated[i] = r.iterate(&pl.units[i], sv.model, stiff)
+		}()
+	}
+	wg.Wait()
 	mg := make([]*merger, len(reqs))
 	for i := range reqs {
 		mg[i] = newMerger(job.Combinations)
@@ -486,7 +507,7 @@ func (r *Result) envelopes(pl *plan, sv *solved, lay *patterns.Layout, reqs []re
 			var axial []float64
 			if g.second {
 				u := &pl.units[g.units[0]]
-				if err := r.iterate(u, sv.model, g.stiff); err != nil {
+				if err := iterated[g.units[0]]; err != nil {
 					return nil, err
 				}
 				axial = u.axial
