@@ -37,38 +37,39 @@ import (
 // member and the original cases add their second-order moment from their
 // own shape (frame.Solution.SecondFrom), and so do the deflections.
 //
+// Member factors (live load reduction, factors.go) scale every column of
+// a case in the member by one factor per effect. Each piece is then
+// classified and ranked by its scaled effect, as the unfolded path scales
+// it, and the fold's sums are kept unscaled and scaled at each station;
+// where the factors depend on the combination (evaluator.parts) the N and
+// V fold is formed once per set of factors, and each set's extremes are
+// merged as unfolded.
+//
 // Each piece is classified from the very numbers the unfolded path
-// computes (frame.Solution.StationsTo), so the same pieces are loaded,
-// counted and listed; only the order of the sums changes (the fold's
-// sums first, then the pieces that load the member; the concurrent M of
-// the pieces folded for N or V is formed from their sums), which changes
-// results by round-off (a few units in the 16th digit). The spans lists do
-// not depend on the order pieces are met (the heap keeps the largest by
-// size, ties to the earlier piece). On the 30 × 60 frame in second order
-// 24 of the 1 385 845 numbers of the JSON output changed in their printed
-// digits (10 significant), by at most 1e-10 of their size, or 2e-13 of the
-// member's largest moment for a moment acting with an extreme that is
-// itself almost zero (docs/performance.md).
+// computes (frame.Solution.StationsTo, times the member's factors), so
+// the same pieces are loaded, counted and listed; only the order of the
+// sums changes (the fold's sums first, then the pieces that load the
+// member; the concurrent M of the pieces folded for N or V is formed from
+// their sums; the factors applied to sums rather than to each piece),
+// which changes results by round-off (a few units in the 16th digit). The
+// spans lists do not depend on the order pieces are met (the heap keeps
+// the largest by size, ties to the earlier piece). Members in first order
+// without factors are folded as before, to the last bit. On the 30 × 60
+// frame in second order OUTPUT_CHANGE (docs/performance.md).
 //
 // What counts as round-off in the member (noiseAt) is, as before, 1e-9 of
-// the largest size of each effect over every column and station; for a
-// linear M the largest size is at the member's ends, which are stations;
-// in second order every station's M is seen.
+// the largest size of each effect over every column and station,
+// unscaled; for a linear M the largest size is at the member's ends,
+// which are stations; in second order every station's M is seen. It is
+// over every column, the units of patterned cases no combination uses
+// included: those are neither folded nor scanned (evaluator.used), but
+// they are still evaluated, for the round-off of the others.
 //
-// What other terms would need of it: the fold keeps, per patterned case,
-// the station's sums of the units of each sign (exactPlacement.sum, as
-// the unfolded scan does), and the original cases' values in w.ev. Member
-// factors (live load reduction, factors.go) scale every column of a case
-// by one factor per effect, so they could scale those sums instead. That
-// is not done yet: such members take the unfolded path.
-//
-// A member is folded only without member factors (live load reduction:
-// every column is then scaled by its case's factor, factors.go), only
-// with exact placement of the force envelope, and when no concentrated
-// moment acts exactly at one of its stations (the stations' values past
-// them are then formed from the whole table, the unfolded path); a
-// station whose extremes are not finite is formed again on the unfolded
-// path, which names the case at fault.
+// A member is folded only with exact placement of the force envelope, and
+// when no concentrated moment acts exactly at one of its stations (the
+// stations' values past them are then formed from the whole table, the
+// unfolded path); a station whose extremes are not finite is formed again
+// on the unfolded path, which names the case at fault.
 
 // fold is one goroutine's folded member.
 type fold struct {
@@ -237,8 +238,13 @@ func (f *fold) load(e *evaluator, w *work, sol *frame.Solution, m int) {
 		fc.mt = grow(fc.mt, ns*nu)
 		bm := big[2]
 		for u, a := range fc.a {
-			see(frame.Forces{N: fc.n[u], V: fc.v[u]})
+			if b := math.Abs(fc.n[u]); b > big[0] {
+				big[0] = b
+			}
 			v, d := fc.v[u], &fc.u[u]
+			if b := math.Abs(v); b > big[1] {
+				big[1] = b
+			}
 			for i, x := range w.xs {
 				mm := (a + x*v) + f.n*frame.Sway(&f.wts[i], d)
 				fc.mt[i*nu+u] = mm
