@@ -3,6 +3,7 @@ package envelope
 import (
 	"fmt"
 	"math"
+	"reflect"
 	"slices"
 	"testing"
 
@@ -200,4 +201,59 @@ func foldFactors(mo *frame.Model) *Factors {
 		}
 	}
 	return f
+}
+
+// The units of a patterned case that no combination uses are neither
+// folded nor scanned: the envelope over combinations without L (1.4D and
+// 1.2D+1.6Lr ± 0.5W of foldFrame, in first and second order, folded and
+// unfolded) is the same, to the last bit, as when they are.
+func TestUnusedPatternedCasesAreNotScanned(t *testing.T) {
+	cs := []combos.Combination{
+		{Name: "1.4D", Terms: []combos.Term{{Case: 0, Factor: 1.4}}},
+		{Name: "1.2D+1.6Lr+0.5W", Terms: []combos.Term{{Case: 0, Factor: 1.2}, {Case: 2, Factor: 1.6}, {Case: 3, Factor: 0.5}}},
+		{Name: "1.2D+1.6Lr-0.5W", Terms: []combos.Term{{Case: 0, Factor: 1.2}, {Case: 2, Factor: 1.6}, {Case: 3, Factor: -0.5}}},
+		{Name: "D+Lr", Service: true, Terms: []combos.Term{{Case: 0, Factor: 1}, {Case: 2, Factor: 1}}},
+	}
+	for _, second := range []bool{false, true} {
+		for _, fold := range []bool{false, true} {
+			t.Run(fmt.Sprintf("second order %v/folded %v", second, fold), func(t *testing.T) {
+				mo := foldFrame(second)
+				lay, err := patterns.Expand(mo, []int{1, 2}, 1, patterns.Exact)
+				if err != nil {
+					t.Fatal(err)
+				}
+				var opt frame.Options
+				if second {
+					opt.Axial = make([]float64, len(mo.Members))
+					for m := range opt.Axial {
+						opt.Axial[m] = -50 // compression in every member
+					}
+				}
+				sol, err := frame.SolveWith(lay.Model, opt)
+				if err != nil {
+					t.Fatal(err)
+				}
+				set := Settings{Kinds: kindsOf(sol, lay), Stations: 11}
+				folding = fold
+				defer func() { folding = true }()
+				got, err := Compute(sol, cs, set, lay)
+				if err != nil {
+					t.Fatal(err)
+				}
+				e := newEvaluator(sol.Model(), cs, []int{0, 1, 2}, 3, set, lay)
+				if e.uses(0) || !e.uses(1) {
+					t.Fatalf("L used %v, Lr used %v: want false, true", e.uses(0), e.uses(1))
+				}
+				skipUnused = false
+				defer func() { skipUnused = true }()
+				want, err := Compute(sol, cs, set, lay)
+				if err != nil {
+					t.Fatal(err)
+				}
+				if !reflect.DeepEqual(got.Members, want.Members) || !reflect.DeepEqual(got.Reactions, want.Reactions) {
+					t.Error("the envelopes differ when the unused units are scanned")
+				}
+			})
+		}
+	}
 }

@@ -4,6 +4,7 @@ import (
 	"context"
 	"errors"
 	"math"
+	"reflect"
 	"strings"
 	"testing"
 
@@ -350,5 +351,55 @@ func TestEndMomentsOfMany(t *testing.T) {
 	}
 	if !many[0][0].OK || !within(math.Abs(many[0][0].Ends[0]), want, 1e-3) {
 		t.Errorf("base moment %v, want %.6g", many[0][0].Ends, want)
+	}
+}
+
+// A second-order combination without patterned terms (1.4D, 0.9D ± W) is
+// solved without the pattern pieces, which none of its results reads:
+// every result is the same, to the last bit, as when they are solved, on
+// a regular frame whose live and roof live loads are patterned, with a
+// service combination.
+func TestCombinationsWithoutPatternsLeaveOutThePieces(t *testing.T) {
+	job := regularJob(4, 3, true)
+	job.Methods = make([]Method, len(job.Combinations))
+	without := 0
+	for k, cb := range job.Combinations {
+		job.Methods[k] = Method{SecondOrder: true}
+		patterned := false
+		for _, term := range cb.Terms {
+			patterned = patterned || term.Case == 1 || term.Case == 2
+		}
+		if !patterned {
+			without++
+		}
+	}
+	if without == 0 {
+		t.Fatal("every combination has a patterned term: nothing is left out")
+	}
+	got, err := Run(context.Background(), job, Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	leaveOutUnits = false
+	defer func() { leaveOutUnits = true }()
+	want, err := Run(context.Background(), job, Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, c := range []struct {
+		what      string
+		got, want any
+	}{
+		{"members", got.Envelope.Members, want.Envelope.Members},
+		{"reactions", got.Envelope.Reactions, want.Envelope.Reactions},
+		{"combinations", got.Combinations, want.Combinations},
+		{"node displacements", got.Displacements, want.Displacements},
+		{"storeys", got.Storeys, want.Storeys},
+		{"amplifications", got.Amplifications, want.Amplifications},
+		{"warnings", got.Warnings, want.Warnings},
+	} {
+		if !reflect.DeepEqual(c.got, c.want) {
+			t.Errorf("%s differ with the pieces left out", c.what)
+		}
 	}
 }
