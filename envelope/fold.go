@@ -55,7 +55,11 @@ import (
 // spans lists do not depend on the order pieces are met (the heap keeps
 // the largest by size, ties to the earlier piece). Members in first order
 // without factors are folded as before, to the last bit. On the 30 × 60
-// frame in second order OUTPUT_CHANGE (docs/performance.md).
+// frame in second order 24 of the 1 385 845 numbers of the JSON output
+// changed in their printed digits (ten significant), by at most 1e-10 of
+// their size (2e-13 of the member's moments for a moment acting with an
+// extreme that is itself almost zero); with live load reduction 13 to 14
+// of 1.4 million, by at most 1e-9 of their size (docs/performance.md).
 //
 // What counts as round-off in the member (noiseAt) is, as before, 1e-9 of
 // the largest size of each effect over every column and station,
