@@ -241,17 +241,32 @@ func (f *fold) load(e *evaluator, w *work, sol *frame.Solution, m int) {
 		fc.u = f.disp[e.first[p] : e.first[p]+nu]
 		fc.mt = grow(fc.mt, ns*nu)
 		bm := big[2]
-		for u, a := range fc.a {
-			if b := math.Abs(fc.n[u]); b > big[0] {
+		an, av, au := fc.a[:nu], fc.v[:nu], fc.u[:nu]
+		for u, n := range fc.n[:nu] {
+			if b := math.Abs(n); b > big[0] {
 				big[0] = b
 			}
-			v, d := fc.v[u], &fc.u[u]
-			if b := math.Abs(v); b > big[1] {
+			if b := math.Abs(av[u]); b > big[1] {
 				big[1] = b
 			}
-			for i, x := range w.xs {
-				mm := (a + x*v) + f.n*frame.Sway(&f.wts[i], d)
-				fc.mt[i*nu+u] = mm
+		}
+		// Station by station, the weights held: the same sums, in the
+		// same order, as frame.Sway.
+		for i, x := range w.xs {
+			wi := &f.wts[i]
+			w0, w1, w2, w3, w4, w5 := wi[0], wi[1], wi[2], wi[3], wi[4], wi[5]
+			row := fc.mt[i*nu : (i+1)*nu]
+			for u := range row {
+				d := &au[u]
+				sw := 0.0
+				sw += w0 * d[0]
+				sw += w1 * d[1]
+				sw += w2 * d[2]
+				sw += w3 * d[3]
+				sw += w4 * d[4]
+				sw += w5 * d[5]
+				mm := (an[u] + x*av[u]) + f.n*sw
+				row[u] = mm
 				if mm > bm {
 					bm = mm
 				} else if -mm > bm {
