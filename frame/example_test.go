@@ -183,6 +183,7 @@ func ExampleSolution_SecondFrom() {
 	want := make([]frame.Forces, len(xs))
 	sol.StationsTo(want, 0, xs)
 	fmt.Printf("N = %.1f kN\n", n)
+	// (+ 0 prints N·0 at the base without a minus sign.)
 	for i, x := range xs {
 		fmt.Printf("x = %4.1f m: M = %9.6f %+9.6f = %9.6f kN·m, as StationsTo: %v\n", x, part[i], n*frame.Sway(&w[i], &disp[0])+0, st[i].M, st[i] == want[i])
 	}
