@@ -539,14 +539,16 @@ func (pl *exactPlacement) scanFolded(e *evaluator, w *work, f *fold, i, k int, r
 		top[2][0], top[2][1] = top[2][0][:0], top[2][1][:0]
 		var pos, zer [3]float64
 		var m0 float64
+		var cp, cn int
+		fn, fv := fc.n[:len(mv)], fc.v[:len(mv)]
 		for u, m := range mv {
 			m0 += m
 			switch {
 			case m > nz:
-				pos[0] += fc.n[u]
-				pos[1] += fc.v[u]
+				pos[0] += fn[u]
+				pos[1] += fv[u]
 				pos[2] += m
-				count[2][0]++
+				cp++
 				if m >= thr[0] {
 					h := keepLargest(top[2][0], candidate{piece: u, a: m}, w.limit)
 					top[2][0] = h
@@ -555,7 +557,7 @@ func (pl *exactPlacement) scanFolded(e *evaluator, w *work, f *fold, i, k int, r
 					}
 				}
 			case m < -nz:
-				count[2][1]++
+				cn++
 				if -m >= thr[1] {
 					h := keepLargest(top[2][1], candidate{piece: u, a: -m}, w.limit)
 					top[2][1] = h
@@ -564,11 +566,12 @@ func (pl *exactPlacement) scanFolded(e *evaluator, w *work, f *fold, i, k int, r
 					}
 				}
 			default:
-				zer[0] += fc.n[u]
-				zer[1] += fc.v[u]
+				zer[0] += fn[u]
+				zer[1] += fv[u]
 				zer[2] += m
 			}
 		}
+		count[2][0], count[2][1] = count[2][0]+cp, count[2][1]+cn
 		if scaled {
 			pos[0], pos[1] = sc[0]*pos[0], sc[1]*pos[1]
 			zer[0], zer[1] = sc[0]*zer[0], sc[1]*zer[1]
