@@ -86,6 +86,8 @@ type fold struct {
 	disp   [][6]float64
 	wts    [][6]float64
 	n      float64
+	wmax   [6]float64     // the largest size of each weight over the stations
+	held   [][6]float64   // scratch: the displacements of the units that load the member
 	cases  []foldCase     // per patterned case
 	mv     []float64      // scratch: the M of each unit at the station
 	own    []frame.Forces // scratch: the units that load the member at the station
@@ -218,6 +220,18 @@ func (f *fold) load(e *evaluator, w *work, sol *frame.Solution, m int) {
 		exact(fc.ownAt[at:at+ns], c)
 	}
 	l := w.xs[ns-1]
+	xmax := 0.0 // the farthest station, for the bounds of M
+	for _, x := range w.xs {
+		xmax = max(xmax, math.Abs(x))
+	}
+	if f.second {
+		f.wmax = [6]float64{}
+		for i := range f.wts {
+			for k, h := range f.wts[i] {
+				f.wmax[k] = max(f.wmax[k], math.Abs(h))
+			}
+		}
+	}
 	for p, pc := range e.lay.Patterned {
 		fc := &f.cases[p]
 		nu := len(pc.Units)
@@ -237,11 +251,18 @@ func (f *fold) load(e *evaluator, w *work, sol *frame.Solution, m int) {
 			}
 			continue
 		}
-		// Second order: M at every station, as StationsTo forms it.
+		// Second order: M at every station, as StationsTo forms it. The
+		// units that load the member were seen above, exactly: their
+		// displacements are held at zero meanwhile, so that their M here
+		// is 0.
 		fc.u = f.disp[e.first[p] : e.first[p]+nu]
-		fc.mt = grow(fc.mt, ns*nu)
 		bm := big[2]
 		an, av, au := fc.a[:nu], fc.v[:nu], fc.u[:nu]
+		f.held = f.held[:0]
+		for _, u := range fc.own {
+			f.held = append(f.held, au[u])
+			au[u] = [6]float64{}
+		}
 		for u, n := range fc.n[:nu] {
 			if b := math.Abs(n); b > big[0] {
 				big[0] = b
@@ -250,6 +271,34 @@ func (f *fold) load(e *evaluator, w *work, sol *frame.Solution, m int) {
 				big[1] = b
 			}
 		}
+		if !anyUses(parts, p) {
+			// Read by no combination: only its largest size of M counts,
+			// for what is round-off in the others. A unit whose bound
+			// (|M₀| + l·|V| + |N|·Σₖ maxᵢ|Hᵢₖ|·|uₖ|, with room for the
+			// rounding) does not pass the largest so far cannot raise it.
+			absN := math.Abs(f.n)
+			for u := range au {
+				d := &au[u]
+				sw := f.wmax[0]*math.Abs(d[0]) + f.wmax[1]*math.Abs(d[1]) + f.wmax[2]*math.Abs(d[2]) +
+					f.wmax[3]*math.Abs(d[3]) + f.wmax[4]*math.Abs(d[4]) + f.wmax[5]*math.Abs(d[5])
+				if b := (math.Abs(fc.a[u]) + xmax*math.Abs(av[u]) + absN*sw) * (1 + boundRoom); b <= bm {
+					continue
+				}
+				for i, x := range w.xs {
+					if mm := (fc.a[u] + x*av[u]) + f.n*frame.Sway(&f.wts[i], d); mm > bm {
+						bm = mm
+					} else if -mm > bm {
+						bm = -mm
+					}
+				}
+			}
+			big[2] = bm
+			for k, u := range fc.own {
+				au[u] = f.held[k]
+			}
+			continue
+		}
+		fc.mt = grow(fc.mt, ns*nu)
 		// Station by station, the weights held: the same sums, in the
 		// same order, as frame.Sway.
 		for i, x := range w.xs {
@@ -275,7 +324,8 @@ func (f *fold) load(e *evaluator, w *work, sol *frame.Solution, m int) {
 			}
 		}
 		big[2] = bm
-		for _, u := range fc.own {
+		for k, u := range fc.own {
+			au[u] = f.held[k]
 			for i := range ns {
 				fc.mt[i*nu+u] = 0
 			}
@@ -296,6 +346,20 @@ func (f *fold) load(e *evaluator, w *work, sol *frame.Solution, m int) {
 			}
 		}
 	}
+}
+
+// boundRoom is the room a bound of the size of M leaves for the rounding
+// of its terms (each within a few units of the 16th digit).
+const boundRoom = 1e-12
+
+// anyUses reports whether some evaluator of parts uses patterned case p.
+func anyUses(parts []*evaluator, p int) bool {
+	for _, q := range parts {
+		if q.uses(p) {
+			return true
+		}
+	}
+	return false
 }
 
 // scaleOf returns the factors of evaluator e on original case c's N, V

@@ -244,6 +244,18 @@ func TestUnusedPatternedCasesAreNotScanned(t *testing.T) {
 				if e.uses(0) || !e.uses(1) {
 					t.Fatalf("L used %v, Lr used %v: want false, true", e.uses(0), e.uses(1))
 				}
+				// What counts as round-off is that of every column, the
+				// unused units' included, to the last bit.
+				w := e.scratch()
+				for m := range mo.Members {
+					w.stations(mo.Length(m), set.Stations, nil)
+					w.fold.load(e, w, sol, m)
+					got := w.noiseAt
+					e.evaluate(w, sol, m)
+					if got != w.noiseAt {
+						t.Errorf("member %s: round-off folded %v, unfolded %v", mo.Members[m].Name, got, w.noiseAt)
+					}
+				}
 				skipUnused = false
 				defer func() { skipUnused = true }()
 				want, err := Compute(sol, cs, set, lay)
