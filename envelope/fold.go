@@ -67,7 +67,9 @@ import (
 // which are stations; in second order every station's M is seen. It is
 // over every column, the units of patterned cases no combination uses
 // included: those are neither folded nor scanned (evaluator.used), but
-// they are still evaluated, for the round-off of the others.
+// their largest M is still found, for the round-off of the others (in
+// second order from a bound of each unit's M over the member, evaluated
+// at the stations only where the bound passes the largest so far).
 //
 // A member is folded only with exact placement of the force envelope, and
 // when no concentrated moment acts exactly at one of its stations (the
