@@ -4,7 +4,10 @@ package frame
 // one member at once, read from the displacement rows of its ends, and
 // which cases load it, so that a case that does not load the member can be
 // folded once (N and V constant along it, M linear) and only the others
-// evaluated station by station.
+// evaluated station by station. In second order, every case's local
+// displacements of the member's nodes as well, which give the moment
+// N·(v(x) − v(0)) of a case that does not load the member with the
+// member's weights (geometric.go: Sway, SecondOrderWeightsTo, SecondFrom).
 
 // EndForcesEach fills dst[c] with the local end forces of member m in
 // case c, for every case: the values [Solution.EndForces] gives, to the
@@ -110,8 +113,8 @@ func (sol *Solution) CasesOn(m int) []int32 { return sol.casesOn[m] }
 // at xs[i], given the member's local end forces f in that case (from
 // [Solution.EndForcesEach]): the values of [Solution.StationsTo], to the
 // last bit, in a first-order solution ([Solution.Unloaded]; in second
-// order they leave out N times the displacement). dst must have length
-// len(xs).
+// order they leave out N times the displacement, which
+// [Solution.SecondFrom] adds). dst must have length len(xs).
 func (sol *Solution) StationsFrom(dst []Forces, c, m int, f *[6]float64, xs []float64) {
 	if len(dst) != len(xs) {
 		panic("frame: StationsFrom: dst has the wrong length")
@@ -173,7 +176,8 @@ func (sol *Solution) DisplacementSums(u []float64, cs []int) {
 // at xs[i] relative to its chord, given the member's local end forces f in
 // that case (from [Solution.EndForcesEach]): the values of
 // [Solution.DeflectionsTo], to the last bit, in a first-order solution
-// ([Solution.Unloaded]). dst must have length len(xs).
+// ([Solution.Unloaded]; in second order [Solution.SecondFrom] gives
+// them). dst must have length len(xs).
 func (sol *Solution) DeflectionsFrom(dst []float64, c, m int, f *[6]float64, xs []float64) {
 	if len(dst) != len(xs) {
 		panic("frame: DeflectionsFrom: dst has the wrong length")
