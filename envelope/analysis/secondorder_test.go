@@ -11,6 +11,7 @@ import (
 	"govern/combos"
 	"govern/envelope"
 	"govern/frame"
+	"govern/patterns"
 )
 
 // cantileverJob is a cantilever column, fixed at its base, EI = 250,
@@ -357,10 +358,17 @@ func TestEndMomentsOfMany(t *testing.T) {
 // A second-order combination without patterned terms (1.4D, 0.9D ± W) is
 // solved without the pattern pieces, which none of its results reads:
 // every result is the same, to the last bit, as when they are solved, on
-// a regular frame whose live and roof live loads are patterned, with a
-// service combination.
+// a regular frame whose live and roof live loads are patterned (span by
+// span, and by the code's arrangements), with a service combination.
 func TestCombinationsWithoutPatternsLeaveOutThePieces(t *testing.T) {
+	for _, mode := range []patterns.Mode{patterns.Exact, patterns.Code} {
+		t.Run(mode.String(), func(t *testing.T) { leaveOutThePieces(t, mode) })
+	}
+}
+
+func leaveOutThePieces(t *testing.T, mode patterns.Mode) {
 	job := regularJob(4, 3, true)
+	job.Patterns = mode
 	job.Methods = make([]Method, len(job.Combinations))
 	without := 0
 	for k, cb := range job.Combinations {
