@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"runtime"
 	"slices"
 	"sync"
 
@@ -29,10 +30,6 @@ type unit struct {
 	critical  float64   // αcr of the combination as written, with its stiffness
 	nominal   float64   // αcr with the sections as given
 	iteration int
-	// first is the first-order solution of its combination that a
-	// second-order unit's iteration starts from (iterate), kept for its
-	// storeys' stability (the same stiffness) until they are found.
-	first *frame.Solution
 }
 
 // plan lists the units of a job, with the solved model grown by the
@@ -303,14 +300,12 @@ func (r *Result) iterate(u *unit, base *frame.Model, stiff Stiffness) error {
 		tol = DefaultTolerance
 	}
 	secs, mems := job.stiffnessOf(base, stiff)
-	first, err := frame.SolveWith(combined(base, secs, mems, u.cb, u.scale, nil), r.solver)
+	mo := combined(base, secs, mems, u.cb, u.scale, nil)
+	sol, err := frame.SolveWith(mo, r.solver)
 	if err != nil {
 		return fmt.Errorf("combination %q: %w", name, err)
 	}
-	u.first = first
-	n := axialForces(first, 0)
-	mo := combined(base, secs, mems, u.cb, u.scale, nil)
-	var sol *frame.Solution
+	n := axialForces(sol, 0)
 	if err := r.critical(u, base, n, stiff); err != nil {
 		return err
 	}
@@ -491,6 +486,26 @@ func (r *Result) envelopes(pl *plan, sv *solved, lay *patterns.Layout, reqs []re
 		}
 		groups[g].units = append(groups[g].units, i)
 	}
+	// The second-order units' iterations are independent of each other
+	// and of the envelopes: they run side by side, and each unit's error
+	// is returned where the unit comes in order.
+	iterated := make([]error, len(pl.units))
+	var wg sync.WaitGroup
+	slots := make(chan struct{}, runtime.GOMAXPROCS(0))
+	for _, g := range groups {
+		if !g.second {
+			continue
+		}
+		i, stiff := g.units[0], g.stiff
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			slots <- struct{}{}
+			defer func() { <-slots }()
+			iterated[i] = r.iterate(&pl.units[i], sv.model, stiff)
+		}()
+	}
+	wg.Wait()
 	mg := make([]*merger, len(reqs))
 	for i := range reqs {
 		mg[i] = newMerger(job.Combinations)
@@ -503,7 +518,7 @@ func (r *Result) envelopes(pl *plan, sv *solved, lay *patterns.Layout, reqs []re
 			var axial []float64
 			if g.second {
 				u := &pl.units[g.units[0]]
-				if err := r.iterate(u, sv.model, g.stiff); err != nil {
+				if err := iterated[g.units[0]]; err != nil {
 					return nil, err
 				}
 				axial = u.axial
@@ -517,6 +532,15 @@ func (r *Result) envelopes(pl *plan, sv *solved, lay *patterns.Layout, reqs []re
 			mo.Sections, mo.Members = secs, mems
 			l2 := *lay
 			l2.Model = &mo
+			if leaveOutUnits && !usesPatterns(lay, pl, g.units) {
+				// No combination of the group has a patterned term: their
+				// pieces are read by none (neither summed nor listed, and
+				// round-off is judged for pieces only), so they are not
+				// solved for.
+				l2 = withoutUnits(lay)
+				mo.Cases = l2.Model.Cases
+				l2.Model = &mo
+			}
 			glay = &l2
 			var err error
 			so := opt.Solver
@@ -540,15 +564,8 @@ func (r *Result) envelopes(pl *plan, sv *solved, lay *patterns.Layout, reqs []re
 			if err := r.firstOrderStability(us, sv.model, g.stiff, sol); err != nil {
 				return nil, err
 			}
-		} else {
-			// The storeys' first-order analyses have the stiffness the
-			// iteration started from: solved on its factor.
-			u := &pl.units[g.units[0]]
-			err := r.storeyStability(u, sv.model, g.stiff, u.first)
-			u.first = nil
-			if err != nil {
-				return nil, err
-			}
+		} else if err := r.storeyStability(&pl.units[g.units[0]], sv.model, g.stiff, nil); err != nil {
+			return nil, err
 		}
 		for _, i := range g.units {
 			u := &pl.units[i]
@@ -594,6 +611,43 @@ func (r *Result) envelopes(pl *plan, sv *solved, lay *patterns.Layout, reqs []re
 		}
 	}
 	return out, nil
+}
+
+// leaveOutUnits is whether a group of combinations without patterned
+// terms is solved without the pattern pieces; the tests turn it off to
+// compare.
+var leaveOutUnits = true
+
+// usesPatterns reports whether some unit of us (indices into pl.units)
+// has a term on a patterned case of lay.
+func usesPatterns(lay *patterns.Layout, pl *plan, us []int) bool {
+	for _, i := range us {
+		for _, t := range pl.units[i].cb.Terms {
+			for _, pc := range lay.Patterned {
+				if t.Case == pc.Case {
+					return true
+				}
+			}
+		}
+	}
+	return false
+}
+
+// withoutUnits returns lay with its patterned cases' units left out: its
+// model has the original cases only (each patterned case as its rest).
+func withoutUnits(lay *patterns.Layout) patterns.Layout {
+	l2 := *lay
+	n := len(lay.Model.Cases)
+	l2.Patterned = make([]patterns.Patterned, len(lay.Patterned))
+	for p, pc := range lay.Patterned {
+		n -= len(pc.Units)
+		pc.Units = nil
+		l2.Patterned[p] = pc
+	}
+	mo := *lay.Model
+	mo.Cases = lay.Model.Cases[:n:n]
+	l2.Model = &mo
+	return l2
 }
 
 // minCritical returns the smaller of two critical load factors, 0 being

@@ -169,8 +169,7 @@ func swayFrame() *Job {
 // (frame.SolveWith): with the sections as given and no notional load
 // (every combination on the one solution), with notional loads as
 // alternatives each way, with strength and service stiffness, and in
-// second order (each combination's storeys on the factor its iteration
-// starts from).
+// second order (each combination's storeys solved on their own).
 func TestStoreyStabilityOnSharedFactor(t *testing.T) {
 	for _, tc := range []struct {
 		name string
