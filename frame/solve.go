@@ -397,10 +397,23 @@ func (sol *Solution) indexImposed() {
 func (sol *Solution) rhs(n int) []float64 {
 	nc := len(sol.model.Cases)
 	x := make([]float64, n*nc)
+	// Zeros written first, on every processor, a run of rows each: fresh
+	// memory first read is mapped to the system's zero page, and the
+	// first write to it then faults again and flushes every processor's
+	// address translations; first written, it faults once.
+	workers := max(min(runtime.GOMAXPROCS(0), n*nc>>16), 1)
+	var wg sync.WaitGroup
+	for k := range workers {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			clear(x[k*n/workers*nc : (k+1)*n/workers*nc])
+		}()
+	}
+	wg.Wait()
 	// Each case's column alone, the cases split in runs between the
 	// processors: the same sums in the same order on any number.
-	workers := max(min(runtime.GOMAXPROCS(0), nc/64), 1)
-	var wg sync.WaitGroup
+	workers = max(min(runtime.GOMAXPROCS(0), nc/64), 1)
 	for k := range workers {
 		wg.Add(1)
 		go func() {
