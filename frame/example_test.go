@@ -193,3 +193,33 @@ func ExampleSolution_SecondFrom() {
 	// x =  5.0 m: M = -0.901510 +0.203186 = -0.698324 kN·m, as StationsTo: true
 	// x = 10.0 m: M = -0.676510 +0.676510 =  0.000000 kN·m, as StationsTo: true
 }
+
+// More cases on the stiffness already factored: a fixed-ended beam solved
+// for a uniform load, then for a point load P at midspan, whose end
+// moments are −PL/8 (beam tables; from memory).
+func ExampleSolution_SolveCases() {
+	const l, w, p = 6.0, 10.0, 40.0 // m, kN/m, kN
+	mo := &frame.Model{
+		Sections: []frame.Section{{Name: "S", E: 200e6, A: 5e-3, I: 8e-5}},
+		Nodes:    []frame.Node{{Name: "a", Support: frame.Fixed}, {Name: "b", X: l, Support: frame.Fixed}},
+		Members:  []frame.Member{{Name: "a-b", Start: 0, End: 1}},
+		Cases: []frame.Case{{Name: "w",
+			MemberLoads: []frame.MemberLoad{{Member: 0, From: 0, To: l, W: w, WEnd: w}}}},
+	}
+	sol, err := frame.Solve(mo)
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	more, err := sol.SolveCases([]frame.Case{{Name: "P",
+		MemberLoads: []frame.MemberLoad{{Member: 0, Point: true, At: l / 2, P: p}}}})
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	fmt.Printf("%s: M at the start %.2f kN·m\n", sol.Model().Cases[0].Name, sol.At(0, 0, 0).M)
+	fmt.Printf("%s: M at the start %.2f kN·m, at midspan %.2f kN·m\n", more.Model().Cases[0].Name, more.At(0, 0, 0).M, more.At(0, 0, l/2).M)
+	// Output:
+	// w: M at the start -30.00 kN·m
+	// P: M at the start -30.00 kN·m, at midspan 30.00 kN·m
+}

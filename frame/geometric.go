@@ -72,12 +72,16 @@ func innerDOF(i int) int { return 3 + i }
 
 // condenseInner sets e.flex to the stiffness of the subdivided flexible
 // part with the geometric stiffness of axial force n, its inner nodes
-// condensed out, and e.so to what recovers them. ok is false when the
-// inner stiffness is not positive definite: the member buckles between
-// its ends under n even with them held.
-func (e *element) condenseInner(n float64) bool {
+// condensed out, and e.so to what recovers them: so, overwritten, when it
+// is not nil. ok is false when the inner stiffness is not positive
+// definite: the member buckles between its ends under n even with them
+// held.
+func (e *element) condenseInner(n float64, so *secondOrder) bool {
 	k := subStiffness(e.ea, e.ei, e.lf, n)
-	so := &secondOrder{n: n, h: e.lf / SubElements}
+	if so == nil {
+		so = new(secondOrder)
+	}
+	*so = secondOrder{n: n, h: e.lf / SubElements}
 	var kii [inner][inner]float64
 	for i := range inner {
 		for j := range inner {

@@ -163,6 +163,17 @@ func makePlan(job *Job, sv *solved) (*plan, error) {
 	return pl, nil
 }
 
+// combinedOf returns the combination of each unit of us as one case, every
+// case of base at u.scale times its factor and every piece loaded (as
+// combined gives it).
+func combinedOf(base *frame.Model, us []*unit) []frame.Case {
+	out := make([]frame.Case, len(us))
+	for i, u := range us {
+		out[i] = combined(base, base.Sections, base.Members, u.cb, u.scale, nil).Cases[0]
+	}
+	return out
+}
+
 // combined returns a model with the nodes of base, the sections and
 // members given, and one load case: the cases of cb at scale times their
 // factors, each whole (every pattern piece loaded).
@@ -544,19 +555,20 @@ func (r *Result) envelopes(pl *plan, sv *solved, lay *patterns.Layout, reqs []re
 			}
 		}
 		if !g.second {
+			// sol has the group's stiffness: the combinations' axial
+			// forces and storey drifts are solved on its factor.
 			var us []*unit
 			for _, i := range g.units {
 				us = append(us, &pl.units[i])
 			}
-			if err := r.criticalAll(us, sv.model, g.stiff); err != nil {
+			if err := r.firstOrderStability(us, sv.model, g.stiff, sol); err != nil {
 				return nil, err
 			}
+		} else if err := r.storeyStability(&pl.units[g.units[0]], sv.model, g.stiff, nil); err != nil {
+			return nil, err
 		}
 		for _, i := range g.units {
 			u := &pl.units[i]
-			if err := r.storeyStability(u, sv.model, g.stiff); err != nil {
-				return nil, err
-			}
 			cb := &r.Combinations[u.k]
 			cb.CriticalFactor = minCritical(cb.CriticalFactor, u.critical)
 			cb.CriticalNominal = minCritical(cb.CriticalNominal, u.nominal)
@@ -808,22 +820,42 @@ type buckled struct {
 	msg string
 }
 
+// firstOrderStability sets the critical load factors and the storeys'
+// stability indices of the first-order units us, analysed with stiffness
+// stiff on sol: the storeys beside the critical load factors, whose
+// Lanczos iteration starts on one processor (they share nothing they
+// write). The error is the critical load factors', else the storeys'.
+func (r *Result) firstOrderStability(us []*unit, base *frame.Model, stiff Stiffness, sol *frame.Solution) error {
+	comb := combinedOf(base, us)
+	var storeys error
+	done := make(chan struct{})
+	go func() {
+		defer close(done)
+		storeys = r.storeyStabilityAll(us, base, stiff, sol, comb)
+	}()
+	err := r.criticalAll(us, base, stiff, sol, comb)
+	<-done
+	if err != nil {
+		return err
+	}
+	return storeys
+}
+
 // criticalAll sets the critical load factors of the first-order units us,
-// analysed with stiffness stiff: their combinations solved together (one
-// factor of the stiffness, a load column each), and their factors found
-// side by side; the first error in their order.
-func (r *Result) criticalAll(us []*unit, base *frame.Model, stiff Stiffness) error {
+// analysed with stiffness stiff on sol: their combinations comb
+// (combinedOf) solved together on the factor of sol's stiffness (a load
+// column each), and their factors found side by side; the first error in
+// their order.
+func (r *Result) criticalAll(us []*unit, base *frame.Model, stiff Stiffness, sol *frame.Solution, comb []frame.Case) error {
 	if len(us) == 0 {
 		return nil
 	}
-	secs, mems := r.Job.stiffnessOf(base, stiff)
-	all := &frame.Model{Nodes: base.Nodes, Sections: secs, Members: mems}
-	for i, u := range us {
-		c := combined(base, secs, mems, u.cb, u.scale, nil).Cases[0]
-		c.Name = fmt.Sprintf("unit %d", i+1) // a combination's alternatives share its name
-		all.Cases = append(all.Cases, c)
+	cases := make([]frame.Case, len(us))
+	for i := range us {
+		cases[i] = comb[i]
+		cases[i].Name = fmt.Sprintf("unit %d", i+1) // a combination's alternatives share its name
 	}
-	s0, err := frame.SolveWith(all, r.solver)
+	s0, err := sol.SolveCases(cases)
 	if err != nil {
 		// Which combination: each alone.
 		for _, u := range us {
