@@ -144,3 +144,41 @@ func BenchmarkComputeFactors(b *testing.B) {
 		})
 	}
 }
+
+// BenchmarkComputeSecondOrder measures Compute on a second-order solution
+// (frame.Options.Axial: the axial forces of D in first order, times 1.4),
+// exact placement, over the combinations of frameCombos: every member
+// then carries N·(v(x) − v(0)) in its moments (fold.go).
+func BenchmarkComputeSecondOrder(b *testing.B) {
+	cs := frameCombos()
+	for _, size := range []struct{ bays, storeys int }{{10, 10}, {30, 20}} {
+		b.Run(fmt.Sprintf("%dx%d", size.bays, size.storeys), func(b *testing.B) {
+			mo := regularFrame(size.bays, size.storeys)
+			first, err := frame.Solve(mo)
+			if err != nil {
+				b.Fatal(err)
+			}
+			axial := make([]float64, len(mo.Members))
+			for m := range axial {
+				f := first.EndForces(0, m)
+				axial[m] = 1.4 * (-f[0] + f[3]) / 2
+			}
+			lay, err := patterns.Expand(mo, []int{1, 2}, 1, patterns.Exact)
+			if err != nil {
+				b.Fatal(err)
+			}
+			sol, err := frame.SolveWith(lay.Model, frame.Options{Axial: axial})
+			if err != nil {
+				b.Fatal(err)
+			}
+			set := Settings{Kinds: kindsOf(sol, lay), Stations: 11}
+			b.ReportAllocs()
+			b.ResetTimer()
+			for b.Loop() {
+				if _, err := Compute(sol, cs, set, lay); err != nil {
+					b.Fatal(err)
+				}
+			}
+		})
+	}
+}

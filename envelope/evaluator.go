@@ -33,6 +33,10 @@ type evaluator struct {
 	// joined gives, per combination of cs, its groups of joined terms
 	// (joined.go); nil when no combination has any, or as written.
 	joined []joinPlan
+	// used tells, per patterned case, whether some combination of cs has
+	// a term on it: exact placement scans the units of no other (plan;
+	// nil: every one).
+	used []bool
 	// fac gives, per member, the factors on each original case's N, V
 	// and M, nil for a member not scaled (factors.go); nil without
 	// factors, and for deflections. caseOf gives each column's original
@@ -109,14 +113,36 @@ func newEvaluator(mo *frame.Model, cs []combos.Combination, idx []int, nEff int,
 	return e
 }
 
-// plan forms the groups of joined terms of each combination of e.cs:
-// none as written, where every case acts whatever its sign.
+// plan forms the groups of joined terms of each combination of e.cs
+// (none as written, where every case acts whatever its sign), and which
+// patterned cases they use.
 func (e *evaluator) plan() {
 	e.joined = nil
 	if !e.set.AsWritten {
 		e.joined = joinPlans(e.cs, e.set.Groups)
 	}
+	// A patterned case no combination has a term on is read by none:
+	// neither its sums (combine) nor its pieces (spans) are asked for.
+	e.used = nil
+	if e.lay != nil && skipUnused {
+		e.used = make([]bool, len(e.lay.Patterned))
+		for p, pc := range e.lay.Patterned {
+			for _, cb := range e.cs {
+				for _, t := range cb.Terms {
+					e.used[p] = e.used[p] || t.Case == pc.Case
+				}
+			}
+		}
+	}
 }
+
+// skipUnused is whether the patterned cases no combination uses are
+// left unscanned; the tests turn it off to compare.
+var skipUnused = true
+
+// uses reports whether some combination of e.cs has a term on patterned
+// case p (see used).
+func (e *evaluator) uses(p int) bool { return e.used == nil || e.used[p] }
 
 // work is one goroutine's scratch space.
 type work struct {

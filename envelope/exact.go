@@ -40,6 +40,9 @@ func (pl *exactPlacement) scan(e *evaluator, w *work) {
 		js, je = w.only-1, w.only
 	}
 	for p, pc := range e.lay.Patterned {
+		if !e.uses(p) {
+			continue // read by no combination
+		}
 		units := w.ev[e.first[p] : e.first[p]+len(pc.Units)]
 		var sum [3][2][3]float64
 		var big [3][2]float64

@@ -110,3 +110,54 @@ func ExampleEndMoments() {
 	// Output:
 	// M max 252.0 kN·m at x = 3.5 m; in its state M at A 0.0, at B -288.0 kN·m (true)
 }
+
+// The beam of ExampleCompute: the reaction at the middle support B as a
+// quantity of its own. For two equal spans under w on both it is
+// 10/8 wL, under w on one span 5/8 wL (AISC Manual Table 3-23, recalled
+// from memory): the largest, with the live load on both spans,
+// 10/8 (1.2·20 + 1.6·15) 8 = 480 kN; the smallest, the live load on
+// neither, 10/8 · 1.2·20 · 8 = 240 kN.
+func ExampleValuesRows() {
+	const l = 8.0 // m
+	udl := func(m int, w float64) frame.MemberLoad { return frame.MemberLoad{Member: m, To: l, W: w, WEnd: w} }
+	mo := &frame.Model{
+		Sections: []frame.Section{{Name: "B", E: 30e6, A: 0.18, I: 5.4e-3}},
+		Nodes: []frame.Node{
+			{Name: "A", Support: frame.Pinned}, {Name: "B", X: l, Support: frame.Roller}, {Name: "C", X: 2 * l, Support: frame.Roller},
+		},
+		Members: []frame.Member{{Name: "AB", Start: 0, End: 1}, {Name: "BC", Start: 1, End: 2}},
+		Cases: []frame.Case{
+			{Name: "D", MemberLoads: []frame.MemberLoad{udl(0, 20), udl(1, 20)}},
+			{Name: "L", MemberLoads: []frame.MemberLoad{udl(0, 15), udl(1, 15)}},
+		},
+	}
+	lay, err := patterns.Expand(mo, []int{1}, 1, patterns.Exact)
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	sol, err := frame.Solve(lay.Model)
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	cs := []combos.Combination{{Name: "1.2D+1.6L", Terms: []combos.Term{{Case: 0, Factor: 1.2}, {Case: 1, Factor: 1.6}}}}
+	set := envelope.Settings{Stations: 2, Kinds: []combos.Kind{combos.Dead, combos.Live}}
+	// One quantity, one component: Fy at node B in every column.
+	out, err := envelope.ValuesRows(sol, cs, []int{0}, set, lay, 1, 1,
+		func(_ int, row, _ [][3]float64) {
+			for c := range row {
+				_, fy, _ := sol.Reaction(c, 1)
+				row[c] = [3]float64{fy}
+			}
+		},
+		func(_, _ int) string { return "Fy at B" })
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	fy := out[0][0]
+	fmt.Printf("Fy at B: largest %.1f kN (%d spans loaded), smallest %.1f kN (%d)\n", fy.Max, len(fy.MaxSpans), fy.Min, len(fy.MinSpans))
+	// Output:
+	// Fy at B: largest 480.0 kN (2 spans loaded), smallest 240.0 kN (0)
+}

@@ -9,7 +9,8 @@ import (
 
 // Folding, for exact placement (the envelope's hot path). A pattern piece
 // that does not load a member leaves it unloaded between its ends: along
-// it N and V are constant and M = M₀ + x·V is linear. So, per member,
+// it N and V are constant and, in first order, M = M₀ + x·V is linear. So,
+// per member,
 //
 //   - each column's end forces are computed once, from the contiguous
 //     displacement rows of the member's ends (frame.Solution.EndForcesEach);
@@ -22,32 +23,55 @@ import (
 //     original cases and the member's own loads are evaluated exactly at
 //     every station, as before.
 //
+// Second order. In a second-order solution (frame.Options.Axial) M also
+// carries N·(v(x) − v(0)), v the member's displacement across its axis;
+// for a piece that does not load the member v(x) − v(0) is linear in the
+// local displacements u of the member's nodes, Σₖ Hᵢₖ·uₖ at station i,
+// with weights H of the member's condensed sub-element shape
+// (frame.Solution.SecondOrderWeightsTo, frame.Sway). So each column's u is
+// read once from the same rows (frame.Solution.DisplacementsEach), each
+// piece's M at each station is M₀ + x·V + N·Σₖ Hᵢₖ·uₖ, formed once per
+// member into a table (foldCase.mt) and classified from it station by
+// station; N and V fold as in first order, the concurrent M of the pieces
+// folded for them being ΣM₀ + x·ΣV + N·Σₖ Hᵢₖ·Σuₖ; the pieces that load the
+// member and the original cases add their second-order moment from their
+// own shape (frame.Solution.SecondFrom), and so do the deflections.
+//
+// Member factors (live load reduction, factors.go) scale every column of
+// a case in the member by one factor per effect. Each piece is then
+// classified and ranked by its scaled effect, as the unfolded path scales
+// it, and the fold's sums are kept unscaled and scaled at each station;
+// where the factors depend on the combination (evaluator.parts) the N and
+// V fold is formed once per set of factors, and each set's extremes are
+// merged as unfolded.
+//
 // Each piece is classified from the very numbers the unfolded path
-// computes (frame.Solution.StationsTo), so the same pieces are loaded,
-// counted and listed; only the order of the sums changes (the fold's
-// sums first, then the pieces that load the member; the concurrent M of
-// the pieces folded for N or V is ΣM₀ + x·ΣV), which changes results by
-// round-off (a few units in the 16th digit). The spans lists do not
-// depend on the order pieces are met (the heap keeps the largest by size,
-// ties to the earlier piece).
+// computes (frame.Solution.StationsTo, times the member's factors), so
+// the same pieces are loaded, counted and listed; only the order of the
+// sums changes (the fold's sums first, then the pieces that load the
+// member; the concurrent M of the pieces folded for N or V is formed from
+// their sums; the factors applied to sums rather than to each piece),
+// which changes results by round-off (a few units in the 16th digit). The
+// spans lists do not depend on the order pieces are met (the heap keeps
+// the largest by size, ties to the earlier piece). Members in first order
+// without factors are folded as before, to the last bit. On the 30 × 60
+// frame in second order 24 of the 1 385 845 numbers of the JSON output
+// changed in their printed digits (ten significant), by at most 1e-10 of
+// their size (2e-13 of the member's moments for a moment acting with an
+// extreme that is itself almost zero); with live load reduction 13 to 14
+// of 1.4 million, by at most 1e-9 of their size (docs/performance.md).
 //
 // What counts as round-off in the member (noiseAt) is, as before, 1e-9 of
-// the largest size of each effect over every column and station; for a
-// linear M the largest size is at the member's ends, which are stations.
+// the largest size of each effect over every column and station,
+// unscaled; for a linear M the largest size is at the member's ends,
+// which are stations; in second order every station's M is seen. It is
+// over every column, the units of patterned cases no combination uses
+// included: those are neither folded nor scanned (evaluator.used), but
+// their largest M is still found, for the round-off of the others (in
+// second order from a bound of each unit's M over the member, evaluated
+// at the stations only where the bound passes the largest so far).
 //
-// What other terms would need of it: the fold keeps, per patterned case,
-// the station's sums of the units of each sign (exactPlacement.sum, as
-// the unfolded scan does), and the original cases' values in w.ev. Member
-// factors (live load reduction, factors.go) scale every column of a case
-// by one factor per effect, so they could scale those sums instead; and a
-// second-order member's station term could be folded as the M of each
-// piece is. Neither is done yet: such members take the unfolded path.
-//
-// A member is folded only without member factors (live load reduction:
-// every column is then scaled by its case's factor, factors.go), only in a
-// first-order solution (in second order M
-// also carries N times the member's displacement: frame.Solution.Unloaded),
-// only with exact placement of the force envelope, and
+// A member is folded only with exact placement of the force envelope, and
 // when no concentrated moment acts exactly at one of its stations (the
 // stations' values past them are then formed from the whole table, the
 // unfolded path); a station whose extremes are not finite is formed again
@@ -55,12 +79,23 @@ import (
 
 // fold is one goroutine's folded member.
 type fold struct {
-	ends  [][6]float64   // every column's local forces at the member's start (StartForcesEach)
-	orig  []frame.Forces // the original cases' stations: c*ns+i
-	cases []foldCase     // per patterned case
-	mv    []float64      // scratch: the M of each unit at the station
-	// seed holds, per patterned case and sign, the smallest size of M the
-	// list kept at the previous station of the member (0 if not full).
+	ends [][6]float64   // every column's local forces at the member's start (StartForcesEach)
+	orig []frame.Forces // the original cases' stations: c*ns+i
+	// In second order (second): every column's local displacements of
+	// the member's nodes (DisplacementsEach), the member's weights at the
+	// stations and its axial force, which give N·(v(x) − v(0)) (frame.Sway).
+	second bool
+	disp   [][6]float64
+	wts    [][6]float64
+	n      float64
+	wmax   [6]float64     // the largest size of each weight over the stations
+	held   [][6]float64   // scratch: the displacements of the units that load the member
+	cases  []foldCase     // per patterned case
+	mv     []float64      // scratch: the M of each unit at the station
+	own    []frame.Forces // scratch: the units that load the member at the station
+	// seed holds, per set of member factors, patterned case and sign
+	// (k*len(cases)+p), the smallest size of M the list kept at the
+	// previous station of the member (0 if not full).
 	seed [][2]float64
 }
 
@@ -73,15 +108,29 @@ type foldCase struct {
 	// Every unit's N, and V and M₀ (M = M₀ + x·V), zero for the units
 	// that load the member, which are taken from ownAt instead.
 	n, v, a []float64
-	// The fold over the units that do not load the member, for N (j = 0)
-	// and V (j = 1): per class (0 positive, 1 round-off) the sums of N, V
-	// and M₀; per sign (0 positive, 1 negative) the count, the largest
-	// size and the most influential units (see exactPlacement).
+	// In second order: every unit's local displacements of the member's
+	// nodes (a view of fold.disp), and its M at every station, station by
+	// station (mt[i*len(n)+u]; zero for the units that load the member).
+	u  [][6]float64
+	mt []float64
+	// The fold over the units that do not load the member, for N and V,
+	// one per set of member factors (evaluator.parts, or one).
+	nv []foldNV
+}
+
+// foldNV is the fold of a patterned case's units that do not load the
+// member, for N (j = 0) and V (j = 1), each unit classified by its effect
+// scaled by the member's factors for the case: per class (0 positive, 1
+// round-off) the sums of N, V and M₀ (unscaled); per sign (0 positive, 1
+// negative) the count, the largest size and the most influential units
+// (see exactPlacement), scaled.
+type foldNV struct {
 	sum   [2][2][3]float64
+	sumU  [2][2][6]float64 // in second order, the sums of their displacements
 	count [2][2]int
 	big   [2][2]float64
 	top   [2][2][]candidate
-	totN  float64 // their sums of N and V
+	totN  float64 // their sums of N and V, unscaled
 	totV  float64
 }
 
@@ -92,7 +141,7 @@ var folding = true
 // foldable reports whether member m's forces can be folded (see above).
 func (e *evaluator) foldable(w *work, sol *frame.Solution, m int) (*exactPlacement, bool) {
 	pl, ok := w.place.(*exactPlacement)
-	if !folding || !ok || !sol.Unloaded(m) || e.fac != nil || e.parts != nil || e.nEff != 3 || e.unitCase == nil {
+	if !folding || !ok || e.nEff != 3 || e.unitCase == nil {
 		return nil, false
 	}
 	if sol.HasMomentLoads() {
@@ -110,7 +159,14 @@ func (f *fold) load(e *evaluator, w *work, sol *frame.Solution, m int) {
 	ns, nc := len(w.xs), len(e.mo.Cases)
 	f.ends = grow(f.ends, nc)
 	sol.StartForcesEach(f.ends, m) // the start gives N, V, M and the deflections anywhere
-	var big [3]float64             // largest sizes, for the round-off
+	f.second = !sol.Unloaded(m)
+	if f.second {
+		f.disp = grow(f.disp, nc)
+		sol.DisplacementsEach(f.disp, m)
+		f.wts = grow(f.wts, ns)
+		f.n = sol.SecondOrderWeightsTo(f.wts, m, w.xs)
+	}
+	var big [3]float64 // largest sizes, for the round-off
 	see := func(v frame.Forces) {
 		if a := math.Abs(v.N); a > big[0] {
 			big[0] = a
@@ -126,6 +182,9 @@ func (f *fold) load(e *evaluator, w *work, sol *frame.Solution, m int) {
 	// every station, taken inside the member at its start.
 	exact := func(dst []frame.Forces, c int) {
 		sol.StationsFrom(dst, c, m, &f.ends[c], w.xs)
+		if f.second {
+			sol.SecondFrom(dst, nil, c, m, &f.disp[c], f.wts, w.xs)
+		}
 		s := sol.StartLoad(c, m)
 		dst[0].N += s.N
 		dst[0].V += s.V
@@ -141,7 +200,11 @@ func (f *fold) load(e *evaluator, w *work, sol *frame.Solution, m int) {
 		f.cases = make([]foldCase, len(e.lay.Patterned))
 	}
 	f.cases = f.cases[:len(e.lay.Patterned)]
-	f.seed = grow(f.seed, len(e.lay.Patterned))
+	parts := e.parts
+	if parts == nil {
+		parts = []*evaluator{e}
+	}
+	f.seed = grow(f.seed, len(parts)*len(e.lay.Patterned))
 	for p := range f.cases {
 		fc := &f.cases[p]
 		fc.own, fc.ownAt = fc.own[:0], fc.ownAt[:0]
@@ -159,6 +222,18 @@ func (f *fold) load(e *evaluator, w *work, sol *frame.Solution, m int) {
 		exact(fc.ownAt[at:at+ns], c)
 	}
 	l := w.xs[ns-1]
+	xmax := 0.0 // the farthest station, for the bounds of M
+	for _, x := range w.xs {
+		xmax = max(xmax, math.Abs(x))
+	}
+	if f.second {
+		f.wmax = [6]float64{}
+		for i := range f.wts {
+			for k, h := range f.wts[i] {
+				f.wmax[k] = max(f.wmax[k], math.Abs(h))
+			}
+		}
+	}
 	for p, pc := range e.lay.Patterned {
 		fc := &f.cases[p]
 		nu := len(pc.Units)
@@ -171,50 +246,183 @@ func (f *fold) load(e *evaluator, w *work, sol *frame.Solution, m int) {
 		for _, u := range fc.own { // seen above, exactly
 			fc.n[u], fc.v[u], fc.a[u] = 0, 0, 0
 		}
-		for u, a := range fc.a {
-			see(frame.Forces{N: fc.n[u], V: fc.v[u], M: a})
-			see(frame.Forces{M: a + l*fc.v[u]})
+		if !f.second {
+			for u, a := range fc.a {
+				see(frame.Forces{N: fc.n[u], V: fc.v[u], M: a})
+				see(frame.Forces{M: a + l*fc.v[u]})
+			}
+			continue
+		}
+		// Second order: M at every station, as StationsTo forms it. The
+		// units that load the member were seen above, exactly: their
+		// displacements are held at zero meanwhile, so that their M here
+		// is 0.
+		fc.u = f.disp[e.first[p] : e.first[p]+nu]
+		bm := big[2]
+		an, av, au := fc.a[:nu], fc.v[:nu], fc.u[:nu]
+		f.held = f.held[:0]
+		for _, u := range fc.own {
+			f.held = append(f.held, au[u])
+			au[u] = [6]float64{}
+		}
+		for u, n := range fc.n[:nu] {
+			if b := math.Abs(n); b > big[0] {
+				big[0] = b
+			}
+			if b := math.Abs(av[u]); b > big[1] {
+				big[1] = b
+			}
+		}
+		if !anyUses(parts, p) {
+			// Read by no combination: only its largest size of M counts,
+			// for what is round-off in the others. A unit whose bound
+			// (|M₀| + l·|V| + |N|·Σₖ maxᵢ|Hᵢₖ|·|uₖ|, with room for the
+			// rounding) does not pass the largest so far cannot raise it.
+			absN := math.Abs(f.n)
+			for u := range au {
+				d := &au[u]
+				sw := f.wmax[0]*math.Abs(d[0]) + f.wmax[1]*math.Abs(d[1]) + f.wmax[2]*math.Abs(d[2]) +
+					f.wmax[3]*math.Abs(d[3]) + f.wmax[4]*math.Abs(d[4]) + f.wmax[5]*math.Abs(d[5])
+				if b := (math.Abs(fc.a[u]) + xmax*math.Abs(av[u]) + absN*sw) * (1 + boundRoom); b <= bm {
+					continue
+				}
+				for i, x := range w.xs {
+					if mm := (fc.a[u] + x*av[u]) + f.n*frame.Sway(&f.wts[i], d); mm > bm {
+						bm = mm
+					} else if -mm > bm {
+						bm = -mm
+					}
+				}
+			}
+			big[2] = bm
+			for k, u := range fc.own {
+				au[u] = f.held[k]
+			}
+			continue
+		}
+		fc.mt = grow(fc.mt, ns*nu)
+		// Station by station, the weights held: the same sums, in the
+		// same order, as frame.Sway.
+		for i, x := range w.xs {
+			wi := &f.wts[i]
+			w0, w1, w2, w3, w4, w5 := wi[0], wi[1], wi[2], wi[3], wi[4], wi[5]
+			row := fc.mt[i*nu : (i+1)*nu]
+			for u := range row {
+				d := &au[u]
+				sw := 0.0
+				sw += w0 * d[0]
+				sw += w1 * d[1]
+				sw += w2 * d[2]
+				sw += w3 * d[3]
+				sw += w4 * d[4]
+				sw += w5 * d[5]
+				mm := (an[u] + x*av[u]) + f.n*sw
+				row[u] = mm
+				if mm > bm {
+					bm = mm
+				} else if -mm > bm {
+					bm = -mm
+				}
+			}
+		}
+		big[2] = bm
+		for k, u := range fc.own {
+			au[u] = f.held[k]
+			for i := range ns {
+				fc.mt[i*nu+u] = 0
+			}
 		}
 	}
 	for j := range big {
 		w.noiseAt[j] = big[j] * roundOff
 	}
-	for p := range f.cases {
-		f.cases[p].fold(w)
+	for p, pc := range e.lay.Patterned {
+		fc := &f.cases[p]
+		if cap(fc.nv) < len(parts) {
+			fc.nv = make([]foldNV, len(parts))
+		}
+		fc.nv = fc.nv[:len(parts)]
+		for k, q := range parts {
+			if q.uses(p) {
+				fc.fold(w, &fc.nv[k], f.second, scaleOf(q, m, pc.Case))
+			}
+		}
 	}
 }
 
-// fold forms fc's fold for N and V over the units that do not load the
-// member (those of own have zero entries: round-off, adding nothing).
-func (fc *foldCase) fold(w *work) {
-	fc.sum, fc.count, fc.big = [2][2][3]float64{}, [2][2]int{}, [2][2]float64{}
-	fc.totN, fc.totV = 0, 0
+// boundRoom is the room a bound of the size of M leaves for the rounding
+// of its terms (each within a few units of the 16th digit).
+const boundRoom = 1e-12
+
+// anyUses reports whether some evaluator of parts uses patterned case p.
+func anyUses(parts []*evaluator, p int) bool {
+	for _, q := range parts {
+		if q.uses(p) {
+			return true
+		}
+	}
+	return false
+}
+
+// scaleOf returns the factors of evaluator e on original case c's N, V
+// and M in member m: 1 without member factors.
+func scaleOf(e *evaluator, m, c int) [3]float64 {
+	if e.fac != nil && e.fac[m] != nil {
+		return e.fac[m][c]
+	}
+	return [3]float64{1, 1, 1}
+}
+
+// fold forms in nv fc's fold for N and V over the units that do not load
+// the member (those of own have zero entries: round-off, adding nothing),
+// each classified by its effect times sc, as the unfolded path scales it.
+func (fc *foldCase) fold(w *work, nv *foldNV, second bool, sc [3]float64) {
+	nv.sum, nv.count, nv.big = [2][2][3]float64{}, [2][2]int{}, [2][2]float64{}
+	nv.sumU = [2][2][6]float64{}
+	nv.totN, nv.totV = 0, 0
+	scaled := sc != [3]float64{1, 1, 1}
+	own := 0 // the next of fc.own, whose displacements are not summed
 	for u, n := range fc.n {
 		v, a := fc.v[u], fc.a[u]
-		fc.totN += n
-		fc.totV += v
-		for j, x := range [2]float64{n, v} {
+		add := second
+		if own < len(fc.own) && fc.own[own] == u {
+			add = false
+			own++
+		}
+		nv.totN += n
+		nv.totV += v
+		xs := [2]float64{n, v}
+		if scaled {
+			xs = [2]float64{sc[0] * n, sc[1] * v}
+		}
+		for j, x := range xs {
 			var s int
 			var size float64
 			switch {
 			case x > w.noiseAt[j]:
 				s, size = 0, x
-				t := &fc.sum[j][0]
+				t := &nv.sum[j][0]
 				t[0] += n
 				t[1] += v
 				t[2] += a
+				if add {
+					addU(&nv.sumU[j][0], &fc.u[u])
+				}
 			case x < -w.noiseAt[j]:
 				s, size = 1, -x
 			default:
-				t := &fc.sum[j][1]
+				t := &nv.sum[j][1]
 				t[0] += n
 				t[1] += v
 				t[2] += a
+				if add {
+					addU(&nv.sumU[j][1], &fc.u[u])
+				}
 				continue
 			}
-			fc.count[j][s]++
-			if size > fc.big[j][s] {
-				fc.big[j][s] = size
+			nv.count[j][s]++
+			if size > nv.big[j][s] {
+				nv.big[j][s] = size
 			}
 		}
 	}
@@ -224,24 +432,35 @@ func (fc *foldCase) fold(w *work) {
 	var thr [2][2]float64
 	for j := range 2 {
 		for s := range 2 {
-			thr[j][s] = w.share * fc.big[j][s]
-			fc.top[j][s] = fc.top[j][s][:0]
+			thr[j][s] = w.share * nv.big[j][s]
+			nv.top[j][s] = nv.top[j][s][:0]
 		}
 	}
 	for u, n := range fc.n {
-		for j, x := range [2]float64{n, fc.v[u]} {
+		xs := [2]float64{n, fc.v[u]}
+		if scaled {
+			xs = [2]float64{sc[0] * n, sc[1] * fc.v[u]}
+		}
+		for j, x := range xs {
 			s, a := 0, x
 			if x < 0 {
 				s, a = 1, -x
 			}
 			if a > w.noiseAt[j] && a >= thr[j][s] {
-				h := keepLargest(fc.top[j][s], candidate{piece: u, a: a}, w.limit)
-				fc.top[j][s] = h
+				h := keepLargest(nv.top[j][s], candidate{piece: u, a: a}, w.limit)
+				nv.top[j][s] = h
 				if len(h) == w.limit && h[0].a >= thr[j][s] {
 					thr[j][s] = math.Nextafter(h[0].a, math.Inf(1))
 				}
 			}
 		}
+	}
+}
+
+// addU adds u to s.
+func addU(s, u *[6]float64) {
+	for k := range s {
+		s[k] += u[k]
 	}
 }
 
@@ -263,41 +482,88 @@ func rank(h []candidate, vals []float64, noise float64, negative bool, thr float
 }
 
 // scanFolded is scan at station i of the folded member f: the same sums,
-// largest sizes, counts and most influential units per patterned case.
-func (pl *exactPlacement) scanFolded(e *evaluator, w *work, f *fold, i int) {
+// largest sizes, counts and most influential units per patterned case,
+// for the set k of member factors (of evaluator e), whose factors on each
+// original case in the member are row (nil for none).
+func (pl *exactPlacement) scanFolded(e *evaluator, w *work, f *fold, i, k int, row [][3]float64) {
 	ns := len(w.xs)
 	x := w.xs[i]
-	for p := range e.lay.Patterned {
+	np := len(e.lay.Patterned)
+	for p, pc := range e.lay.Patterned {
+		if !e.uses(p) {
+			continue // read by no combination
+		}
 		fc := &f.cases[p]
+		nv := &fc.nv[k]
+		sc := [3]float64{1, 1, 1}
+		if row != nil {
+			sc = row[pc.Case]
+		}
+		scaled := sc != [3]float64{1, 1, 1}
+		seed := &f.seed[k*np+p]
 		var sum [3][2][3]float64
 		var zero [3][3]float64
 		var big [3][2]float64
 		var count [3][2]int
 		var tot [3]float64
 		top := &pl.top[p]
-		// N and V: the fold.
-		tot[0], tot[1] = fc.totN, fc.totV
+		// N and V: the fold, scaled.
+		tot[0], tot[1] = sc[0]*nv.totN, sc[1]*nv.totV
 		for j := range 2 {
-			s := &fc.sum[j]
+			s := &nv.sum[j]
 			sum[j][0] = [3]float64{s[0][0], s[0][1], s[0][2] + x*s[0][1]}
 			zero[j] = [3]float64{s[1][0], s[1][1], s[1][2] + x*s[1][1]}
-			big[j], count[j] = fc.big[j], fc.count[j]
-			top[j][0] = append(top[j][0][:0], fc.top[j][0]...)
-			top[j][1] = append(top[j][1][:0], fc.top[j][1]...)
+			if f.second {
+				sum[j][0][2] += f.n * frame.Sway(&f.wts[i], &nv.sumU[j][0])
+				zero[j][2] += f.n * frame.Sway(&f.wts[i], &nv.sumU[j][1])
+			}
+			if scaled {
+				for q := range 3 {
+					sum[j][0][q] *= sc[q]
+					zero[j][q] *= sc[q]
+				}
+			}
+			big[j], count[j] = nv.big[j], nv.count[j]
+			top[j][0] = append(top[j][0][:0], nv.top[j][0]...)
+			top[j][1] = append(top[j][1][:0], nv.top[j][1]...)
 		}
 		// M: every unit classified at x, the largest sizes first so that
 		// the threshold for ranking is seeded with them.
-		f.mv = grow(f.mv, len(fc.n))
-		mv := f.mv
+		var mv []float64
 		hi, lo := 0.0, 0.0
-		for u, a := range fc.a {
-			m := a + x*fc.v[u]
-			mv[u] = m
-			if m > hi {
-				hi = m
+		if f.second {
+			nu := len(fc.n)
+			mv = fc.mt[i*nu : (i+1)*nu]
+			if scaled {
+				f.mv = grow(f.mv, nu)
+				for u, m := range mv {
+					f.mv[u] = sc[2] * m
+				}
+				mv = f.mv
 			}
-			if m < lo {
-				lo = m
+			for _, m := range mv {
+				if m > hi {
+					hi = m
+				}
+				if m < lo {
+					lo = m
+				}
+			}
+		} else {
+			f.mv = grow(f.mv, len(fc.n))
+			mv = f.mv
+			for u, a := range fc.a {
+				m := a + x*fc.v[u]
+				if scaled {
+					m *= sc[2]
+				}
+				mv[u] = m
+				if m > hi {
+					hi = m
+				}
+				if m < lo {
+					lo = m
+				}
 			}
 		}
 		nz := w.noise[2]
@@ -307,8 +573,14 @@ func (pl *exactPlacement) scanFolded(e *evaluator, w *work, f *fold, i int) {
 		if -lo > nz {
 			big[2][1] = -lo
 		}
-		for k := range fc.own {
-			v := fc.ownAt[k*ns+i]
+		// The values of the units that load the member, scaled.
+		f.own = grow(f.own, len(fc.own))
+		for q := range fc.own {
+			v := fc.ownAt[q*ns+i]
+			if scaled {
+				v = frame.Forces{N: sc[0] * v.N, V: sc[1] * v.V, M: sc[2] * v.M}
+			}
+			f.own[q] = v
 			for j, y := range [3]float64{v.N, v.V, v.M} {
 				if y > w.noise[j] && y > big[j][0] {
 					big[j][0] = y
@@ -327,20 +599,22 @@ func (pl *exactPlacement) scanFolded(e *evaluator, w *work, f *fold, i int) {
 		thr := cut
 		if i > 0 && w.limit != math.MaxInt {
 			for s := range thr {
-				thr[s] = max(thr[s], f.seed[p][s]/2)
+				thr[s] = max(thr[s], seed[s]/2)
 			}
 		}
 		top[2][0], top[2][1] = top[2][0][:0], top[2][1][:0]
 		var pos, zer [3]float64
 		var m0 float64
+		var cp, cn int
+		fn, fv := fc.n[:len(mv)], fc.v[:len(mv)]
 		for u, m := range mv {
 			m0 += m
 			switch {
 			case m > nz:
-				pos[0] += fc.n[u]
-				pos[1] += fc.v[u]
+				pos[0] += fn[u]
+				pos[1] += fv[u]
 				pos[2] += m
-				count[2][0]++
+				cp++
 				if m >= thr[0] {
 					h := keepLargest(top[2][0], candidate{piece: u, a: m}, w.limit)
 					top[2][0] = h
@@ -349,7 +623,7 @@ func (pl *exactPlacement) scanFolded(e *evaluator, w *work, f *fold, i int) {
 					}
 				}
 			case m < -nz:
-				count[2][1]++
+				cn++
 				if -m >= thr[1] {
 					h := keepLargest(top[2][1], candidate{piece: u, a: -m}, w.limit)
 					top[2][1] = h
@@ -358,24 +632,29 @@ func (pl *exactPlacement) scanFolded(e *evaluator, w *work, f *fold, i int) {
 					}
 				}
 			default:
-				zer[0] += fc.n[u]
-				zer[1] += fc.v[u]
+				zer[0] += fn[u]
+				zer[1] += fv[u]
 				zer[2] += m
 			}
+		}
+		count[2][0], count[2][1] = count[2][0]+cp, count[2][1]+cn
+		if scaled {
+			pos[0], pos[1] = sc[0]*pos[0], sc[1]*pos[1]
+			zer[0], zer[1] = sc[0]*zer[0], sc[1]*zer[1]
 		}
 		sum[2][0], zero[2], tot[2] = pos, zer, m0
 		for s := range 2 {
 			if len(top[2][s]) < w.limit && thr[s] > cut[s] {
 				top[2][s] = rank(top[2][s][:0], mv, nz, s == 1, cut[s], w.limit)
 			}
-			f.seed[p][s] = 0
+			seed[s] = 0
 			if h := top[2][s]; len(h) == w.limit {
-				f.seed[p][s] = h[0].a
+				seed[s] = h[0].a
 			}
 		}
 		// The units that load the member, exactly.
-		for k, u := range fc.own {
-			v := fc.ownAt[k*ns+i]
+		for q, u := range fc.own {
+			v := f.own[q]
 			vv := [3]float64{v.N, v.V, v.M}
 			tot[0] += v.N
 			tot[1] += v.V
@@ -420,6 +699,9 @@ func (pl *exactPlacement) scanFolded(e *evaluator, w *work, f *fold, i int) {
 func (pl *exactPlacement) scanOne(e *evaluator, w *work, vals []float64, ns, i int) {
 	nz := w.noise[0]
 	for p, pc := range e.lay.Patterned {
+		if !e.uses(p) {
+			continue // read by no combination
+		}
 		lo := e.first[p]
 		nu := len(pc.Units)
 		var big [2]float64

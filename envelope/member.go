@@ -18,7 +18,12 @@ func (e *evaluator) member(w *work, sol *frame.Solution, m int) (Member, error) 
 			ns, nc := len(w.xs), len(w.ev)
 			w.defl = grow(w.defl, ns*nc)
 			for c := range nc {
-				sol.DeflectionsFrom(w.defl[c*ns:(c+1)*ns], c, m, &w.fold.ends[c], w.xs)
+				d := w.defl[c*ns : (c+1)*ns]
+				if f := &w.fold; f.second {
+					sol.SecondFrom(nil, d, c, m, &f.disp[c], f.wts, w.xs)
+				} else {
+					sol.DeflectionsFrom(d, c, m, &f.ends[c], w.xs)
+				}
 			}
 		}
 		line := e.lineDeflections(w, sol, m)
@@ -50,12 +55,7 @@ func (e *evaluator) stationsOf(w *work, sol *frame.Solution, m int, line Line, f
 		var ex [3]Extreme
 		w.noise = w.noiseAt
 		if folded != nil {
-			for c := range e.nOrig {
-				f := w.fold.orig[c*ns+i]
-				w.ev[c] = [3]float64{f.N, f.V, f.M}
-			}
-			folded.scanFolded(e, w, &w.fold, i)
-			ex = e.scanned(w)
+			ex = e.foldedStation(w, m, i, folded)
 			if !allFinite(&ex, 3) {
 				return Member{}, ErrNotFinite
 			}
@@ -103,6 +103,46 @@ func (e *evaluator) stationsOf(w *work, sol *frame.Solution, m int, line Line, f
 		e.set.Progress.Add(int64(ns))
 	}
 	return Member{Member: m, Stations: st, Deflection: defl, LineDeflection: lineDefl}, nil
+}
+
+// foldedStation forms the extremes of N, V and M at station i of the
+// folded member m, with e's member factors, as forces does unfolded.
+func (e *evaluator) foldedStation(w *work, m, i int, pl *exactPlacement) [3]Extreme {
+	if e.parts == nil {
+		return e.foldedWith(w, m, i, 0, pl)
+	}
+	var out [3]Extreme
+	for k, p := range e.parts {
+		x := p.foldedWith(w, m, i, k, pl)
+		if k == 0 {
+			out = x
+			continue
+		}
+		merge(&out, &x, e.nEff)
+	}
+	return out
+}
+
+// foldedWith is foldedStation with e's factors alone, the k-th set of
+// member factors of the fold.
+func (e *evaluator) foldedWith(w *work, m, i, k int, pl *exactPlacement) [3]Extreme {
+	ns := len(w.xs)
+	var row [][3]float64
+	if e.fac != nil {
+		row = e.fac[m]
+	}
+	for c := range e.nOrig {
+		f := w.fold.orig[c*ns+i]
+		if row == nil {
+			w.ev[c] = [3]float64{f.N, f.V, f.M}
+		} else {
+			s := &row[c]
+			w.ev[c] = [3]float64{s[0] * f.N, s[1] * f.V, s[2] * f.M}
+		}
+	}
+	w.noise = w.noiseAt
+	pl.scanFolded(e, w, &w.fold, i, k, row)
+	return e.scanned(w)
 }
 
 // evaluate fills w with every column's values at every station of member

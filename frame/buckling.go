@@ -7,6 +7,7 @@ import (
 	"runtime"
 	"slices"
 	"sync"
+	"sync/atomic"
 
 	"gonum.org/v1/gonum/blas"
 	"gonum.org/v1/gonum/blas/blas64"
@@ -83,16 +84,12 @@ func NewBuckling(mo *Model) (*Buckling, error) {
 	b := &Buckling{model: mo, n: n, mems: make([]pencil, len(mo.Members))}
 	sol := &Solution{model: mo, dofs: n, band: band, cond: 1, dof: dof, released: released}
 	sol.elems = make([]element, len(mo.Members))
+	if !b.buildPencils(sol.elems) {
+		return nil, b.refuse()
+	}
 	off := n
 	for m, mem := range mo.Members {
 		p := &b.mems[m]
-		e := newElement(mo, m)
-		k, ok := p.build(&e)
-		if !ok {
-			return nil, b.refuse()
-		}
-		e.k = k
-		sol.elems[m] = e
 		ends := [2]int{mem.Start, mem.End}
 		for i := range 6 {
 			p.gdof[i] = dof[3*ends[i/3]+i%3]
@@ -113,6 +110,43 @@ func NewBuckling(mo *Model) (*Buckling, error) {
 	}
 	b.u = f.Data
 	return b, nil
+}
+
+// buildPencils builds every member's pencil and sets elems[m] to member
+// m's element with the local stiffness its pencil condenses, on every
+// processor (each member alone: the same on any number); false when some
+// member's own block of K is not positive definite.
+func (b *Buckling) buildPencils(elems []element) bool {
+	mo := b.model
+	const chunk = 64
+	chunks := (len(mo.Members) + chunk - 1) / chunk
+	var next atomic.Int64
+	var bad atomic.Bool
+	var wg sync.WaitGroup
+	for range max(min(runtime.GOMAXPROCS(0), chunks), 1) {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			for {
+				c := int(next.Add(1) - 1)
+				if c >= chunks || bad.Load() {
+					return
+				}
+				for m := c * chunk; m < min((c+1)*chunk, len(mo.Members)); m++ {
+					e := newElement(mo, m)
+					k, ok := b.mems[m].build(&e)
+					if !ok {
+						bad.Store(true)
+						return
+					}
+					e.k = k
+					elems[m] = e
+				}
+			}
+		}()
+	}
+	wg.Wait()
+	return !bad.Load()
 }
 
 // refuse returns why the first-order stiffness is not positive definite.
@@ -584,8 +618,24 @@ func (b *Buckling) Factors(axials [][]float64) ([]float64, error) {
 			}
 			r, z = y, ky
 		}
-		m, e, _, _ := b.lanczos(run[1:], r, z, false)
-		mus, errs = append(mus, m...), append(errs, e...)
+		// Each set's recurrence is its own (every column of a step in the
+		// same order of operations as alone): the sets split between the
+		// processors give the same numbers.
+		rest := run[1:]
+		parts := min(runtime.GOMAXPROCS(0), len(rest))
+		ms, es := make([][]float64, parts), make([][]error, parts)
+		var wg sync.WaitGroup
+		for i := range parts {
+			wg.Add(1)
+			go func() {
+				defer wg.Done()
+				ms[i], es[i], _, _ = b.lanczos(rest[i*len(rest)/parts:(i+1)*len(rest)/parts], r, z, false)
+			}()
+		}
+		wg.Wait()
+		for i := range parts {
+			mus, errs = append(mus, ms[i]...), append(errs, es[i]...)
+		}
 	}
 	fail := make([]error, len(axials))
 	next := make(chan int, len(run))
@@ -598,13 +648,14 @@ func (b *Buckling) Factors(axials [][]float64) ([]float64, error) {
 		wg.Add(1)
 		go func() {
 			defer wg.Done()
+			var sc certifyScratch
 			for i := range next {
 				c := at[i]
 				if errs[i] != nil {
 					out[c], fail[c] = criticalBisect(mo, run[i])
 					continue
 				}
-				out[c], fail[c] = b.certify(mus[i], run[i])
+				out[c], fail[c] = b.certify(mus[i], run[i], &sc)
 			}
 		}()
 	}
@@ -618,13 +669,13 @@ func (b *Buckling) Factors(axials [][]float64) ([]float64, error) {
 // certify returns 1/mu when the check bounds αcr of axial within
 // certifyGap below it (+Inf for mu ≤ 1e-12 when the stiffness is positive
 // definite up to λ = 1e12), else αcr by the search of factorizations.
-func (b *Buckling) certify(mu float64, axial []float64) (float64, error) {
+func (b *Buckling) certify(mu float64, axial []float64, sc *certifyScratch) (float64, error) {
 	switch {
 	case !(mu > 1/maxCritical):
-		if b.definite(maxCritical, axial) {
+		if b.definite(maxCritical, axial, sc) {
 			return math.Inf(1), nil
 		}
-	case b.definite((1-certifyGap)/mu, axial):
+	case b.definite((1-certifyGap)/mu, axial, sc):
 		return 1 / mu, nil
 	}
 	return criticalBisect(b.model, axial)
@@ -638,12 +689,29 @@ const warmMix = 1e-3
 // be positive definite: within the six figures reported.
 const certifyGap = 1e-6
 
-// definite reports whether K + λ·Kg of axial is positive definite.
-func (b *Buckling) definite(lambda float64, axial []float64) bool {
+// certifyScratch is the memory of one check of definiteness (definite),
+// kept for the next: a frame's band is megabytes, and fresh memory is
+// slow to touch.
+type certifyScratch struct {
+	elems []element
+	so    []secondOrder // the elements' second-order parts
+	data  []float64
+}
+
+// definite reports whether K + λ·Kg of axial is positive definite; sc,
+// when not nil, lends it its memory.
+func (b *Buckling) definite(lambda float64, axial []float64, sc *certifyScratch) bool {
 	mo, sol := b.model, b.sol
-	elems := make([]element, len(mo.Members))
+	if sc == nil {
+		sc = &certifyScratch{}
+	}
+	if len(sc.elems) != len(mo.Members) {
+		sc.elems = make([]element, len(mo.Members))
+		sc.so = make([]secondOrder, len(mo.Members))
+	}
+	elems := sc.elems
 	for m := range mo.Members {
-		e, ok := newElementAxial(mo, m, lambda*axial[m], true)
+		e, ok := newElementAxialIn(mo, m, lambda*axial[m], true, &sc.so[m])
 		if !ok {
 			return false
 		}
@@ -652,7 +720,11 @@ func (b *Buckling) definite(lambda float64, axial []float64) bool {
 	if b.n == 0 {
 		return true
 	}
-	data := make([]float64, b.n*(b.kb+1))
+	if len(sc.data) != b.n*(b.kb+1) {
+		sc.data = make([]float64, b.n*(b.kb+1))
+	}
+	clear(sc.data) // fresh memory too: written before it is read (see Solution.rhs)
+	data := sc.data
 	sol.assembleTo(data, b.kb, elems)
 	_, ok := lapack64.Pbtrf(blas64.SymmetricBand{Uplo: blas.Upper, N: b.n, K: b.kb, Data: data, Stride: b.kb + 1})
 	return ok

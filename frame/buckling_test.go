@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"math"
 	"math/rand/v2"
+	"runtime"
 	"testing"
 )
 
@@ -271,6 +272,21 @@ func TestBucklingBatch(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
+	// The sets after the first are split between the processors: on one
+	// the same numbers, to the last bit.
+	single := func() []float64 {
+		defer runtime.GOMAXPROCS(runtime.GOMAXPROCS(1))
+		out, err := b.Factors(sets)
+		if err != nil {
+			t.Fatal(err)
+		}
+		return out
+	}()
+	for i := range sets {
+		if single[i] != all[i] {
+			t.Errorf("set %d: αcr %.17g on one processor, %.17g on several", i, single[i], all[i])
+		}
+	}
 	for i, set := range sets {
 		one, err := b.Factor(set)
 		if err != nil {
@@ -285,7 +301,7 @@ func TestBucklingBatch(t *testing.T) {
 			}
 			continue
 		}
-		if !b.definite(0.999*one, set) || b.definite(1.001*one, set) {
+		if !b.definite(0.999*one, set, nil) || b.definite(1.001*one, set, nil) {
 			t.Errorf("set %d: the stiffness at 0.999 and 1.001 αcr = %.7g is not positive definite below and indefinite above", i, one)
 		}
 	}
@@ -314,7 +330,7 @@ func TestBucklingCertify(t *testing.T) {
 		mu   float64
 	}{{"the first mode", 1 / want}, {"the second mode", 1 / (4 * want)}, {"none", 1e-13}} {
 		t.Run(tc.name, func(t *testing.T) {
-			got, err := b.certify(tc.mu, axial)
+			got, err := b.certify(tc.mu, axial, nil)
 			if err != nil {
 				t.Fatal(err)
 			}

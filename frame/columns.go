@@ -4,7 +4,10 @@ package frame
 // one member at once, read from the displacement rows of its ends, and
 // which cases load it, so that a case that does not load the member can be
 // folded once (N and V constant along it, M linear) and only the others
-// evaluated station by station.
+// evaluated station by station. In second order, every case's local
+// displacements of the member's nodes as well, which give the moment
+// N·(v(x) − v(0)) of a case that does not load the member with the
+// member's weights (geometric.go: Sway, SecondOrderWeightsTo, SecondFrom).
 
 // EndForcesEach fills dst[c] with the local end forces of member m in
 // case c, for every case: the values [Solution.EndForces] gives, to the
@@ -19,16 +22,35 @@ func (sol *Solution) EndForcesEach(dst [][6]float64, m int) { sol.endForcesEach(
 // left zero. It does half the work.
 func (sol *Solution) StartForcesEach(dst [][6]float64, m int) { sol.endForcesEach(dst, m, 3) }
 
-// endForcesEach fills dst[c][0:rows] (see EndForcesEach).
-func (sol *Solution) endForcesEach(dst [][6]float64, m, rows int) {
-	nc := len(sol.model.Cases)
-	if len(dst) != nc {
-		panic("frame: EndForcesEach: dst has the wrong length")
+// DisplacementsEach fills dst[c] with the local displacements of the nodes
+// of member m in case c (start u, v, θ; end u, v, θ), for every case, read
+// from the contiguous displacement rows as [Solution.EndForcesEach] reads
+// them: in a second-order solution they give, with
+// [Solution.SecondOrderWeightsTo], N times the member's displacement at
+// its stations ([Sway], [Solution.SecondFrom]). dst must have the length
+// of the model's cases. Nothing is mutated but dst.
+func (sol *Solution) DisplacementsEach(dst [][6]float64, m int) {
+	if len(dst) != len(sol.model.Cases) {
+		panic("frame: DisplacementsEach: dst has the wrong length")
 	}
-	mem := sol.model.Members[m]
+	nc := len(sol.model.Cases)
+	disp := sol.endRows(m)
+	r0, r1, r2, r3, r4, r5 := disp[0][:nc], disp[1][:nc], disp[2][:nc], disp[3][:nc], disp[4][:nc], disp[5][:nc]
 	e := &sol.elems[m]
-	// disp[d] holds direction d's displacement in every case: solved,
-	// imposed, or zero where a support holds it.
+	cs, sn := e.c, e.s
+	for c := range dst {
+		g0, g1, g2, g3, g4, g5 := r0[c], r1[c], r2[c], r3[c], r4[c], r5[c]
+		// toLocal
+		dst[c] = [6]float64{cs*g0 + sn*g1, -sn*g0 + cs*g1, g2, cs*g3 + sn*g4, -sn*g3 + cs*g4, g5}
+	}
+}
+
+// endRows returns, for each of the 6 end directions of member m (start
+// ux, uy, rz, end ux, uy, rz, global), its displacement in every case:
+// solved, imposed, or zero where a support holds it.
+func (sol *Solution) endRows(m int) [6][]float64 {
+	nc := len(sol.model.Cases)
+	mem := sol.model.Members[m]
 	var disp [6][]float64
 	zero := sol.zero
 	for d := range 6 {
@@ -48,6 +70,17 @@ func (sol *Solution) endForcesEach(dst [][6]float64, m, rows int) {
 			disp[d] = zero
 		}
 	}
+	return disp
+}
+
+// endForcesEach fills dst[c][0:rows] (see EndForcesEach).
+func (sol *Solution) endForcesEach(dst [][6]float64, m, rows int) {
+	nc := len(sol.model.Cases)
+	if len(dst) != nc {
+		panic("frame: EndForcesEach: dst has the wrong length")
+	}
+	e := &sol.elems[m]
+	disp := sol.endRows(m)
 	clear(dst)
 	// The fixed-end forces of the cases that load the member, then k u,
 	// summed in the order of endForcesTo: f[i] + k[i][0] u[0] + … + k[i][5] u[5].
@@ -80,8 +113,8 @@ func (sol *Solution) CasesOn(m int) []int32 { return sol.casesOn[m] }
 // at xs[i], given the member's local end forces f in that case (from
 // [Solution.EndForcesEach]): the values of [Solution.StationsTo], to the
 // last bit, in a first-order solution ([Solution.Unloaded]; in second
-// order they leave out N times the displacement). dst must have length
-// len(xs).
+// order they leave out N times the displacement, which
+// [Solution.SecondFrom] adds). dst must have length len(xs).
 func (sol *Solution) StationsFrom(dst []Forces, c, m int, f *[6]float64, xs []float64) {
 	if len(dst) != len(xs) {
 		panic("frame: StationsFrom: dst has the wrong length")
@@ -143,7 +176,8 @@ func (sol *Solution) DisplacementSums(u []float64, cs []int) {
 // at xs[i] relative to its chord, given the member's local end forces f in
 // that case (from [Solution.EndForcesEach]): the values of
 // [Solution.DeflectionsTo], to the last bit, in a first-order solution
-// ([Solution.Unloaded]). dst must have length len(xs).
+// ([Solution.Unloaded]; in second order [Solution.SecondFrom] gives
+// them). dst must have length len(xs).
 func (sol *Solution) DeflectionsFrom(dst []float64, c, m int, f *[6]float64, xs []float64) {
 	if len(dst) != len(xs) {
 		panic("frame: DeflectionsFrom: dst has the wrong length")

@@ -107,5 +107,8 @@
 // # Mutation
 //
 // [Solve] never mutates the [Model]; a [Solution] keeps a pointer to it, so the
-// model must not be changed while the solution is in use.
+// model must not be changed while the solution is in use. A Solution is
+// never changed once made: [Solution.SolveCases] solves more cases on its
+// factor into a new one that shares its nodes, sections, members and
+// factor, and both may be read at once.
 package frame

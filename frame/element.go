@@ -34,6 +34,13 @@ func newElement(mo *Model, m int) element {
 // set. ok is false when the member buckles between its ends under n with
 // them held (see condenseInner).
 func newElementAxial(mo *Model, m int, n float64, second bool) (e element, ok bool) {
+	return newElementAxialIn(mo, m, n, second, nil)
+}
+
+// newElementAxialIn is newElementAxial with the second-order part in so
+// when it is not nil (memory reused from element to element), else in
+// memory of its own.
+func newElementAxialIn(mo *Model, m int, n float64, second bool, so *secondOrder) (e element, ok bool) {
 	mem := mo.Members[m]
 	sec := mo.Sections[mem.Section]
 	c, s, l := mo.geometry(m)
@@ -53,7 +60,7 @@ func newElementAxial(mo *Model, m int, n float64, second bool) (e element, ok bo
 	k[2][1], k[2][2], k[2][4], k[2][5] = b, d, -b, f
 	k[4][1], k[4][2], k[4][4], k[4][5] = -a, -b, a, -b
 	k[5][1], k[5][2], k[5][4], k[5][5] = b, f, -b, d
-	if second && !e.condenseInner(n) {
+	if second && !e.condenseInner(n, so) {
 		return e, false
 	}
 	e.k = e.flex

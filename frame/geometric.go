@@ -72,12 +72,16 @@ func innerDOF(i int) int { return 3 + i }
 
 // condenseInner sets e.flex to the stiffness of the subdivided flexible
 // part with the geometric stiffness of axial force n, its inner nodes
-// condensed out, and e.so to what recovers them. ok is false when the
-// inner stiffness is not positive definite: the member buckles between
-// its ends under n even with them held.
-func (e *element) condenseInner(n float64) bool {
+// condensed out, and e.so to what recovers them: so, overwritten, when it
+// is not nil. ok is false when the inner stiffness is not positive
+// definite: the member buckles between its ends under n even with them
+// held.
+func (e *element) condenseInner(n float64, so *secondOrder) bool {
 	k := subStiffness(e.ea, e.ei, e.lf, n)
-	so := &secondOrder{n: n, h: e.lf / SubElements}
+	if so == nil {
+		so = new(secondOrder)
+	}
+	*so = secondOrder{n: n, h: e.lf / SubElements}
 	var kii [inner][inner]float64
 	for i := range inner {
 		for j := range inner {
@@ -406,8 +410,14 @@ func (e *element) weights(xs []float64) [][6]float64 {
 // shape of the unloaded member from them, and that of the loads of case c
 // on the member with its nodes held added where there are any.
 func (sol *Solution) secondWith(w [][6]float64, row []Forces, defl []float64, c, m int, xs []float64) {
-	e := &sol.elems[m]
 	ul := sol.localU(c, m)
+	sol.secondFrom(w, row, defl, c, m, &ul, xs)
+}
+
+// secondFrom is secondWith given the local displacements ul of the
+// member's nodes in case c.
+func (sol *Solution) secondFrom(w [][6]float64, row []Forces, defl []float64, c, m int, ul *[6]float64, xs []float64) {
+	e := &sol.elems[m]
 	idx, _ := sol.loadsOn(c, m)
 	var held [6]float64
 	var sh [3 * (SubElements + 1)]float64
@@ -415,10 +425,7 @@ func (sol *Solution) secondWith(w [][6]float64, row []Forces, defl []float64, c,
 		sh = e.shape(&held, sol.model.Cases[c].MemberLoads, idx)
 	}
 	for i, x := range xs {
-		v := 0.0
-		for j := range 6 {
-			v += w[i][j] * ul[j]
-		}
+		v := Sway(&w[i], ul)
 		if len(idx) > 0 {
 			v += e.transverse(&sh, &held, x)
 		}
@@ -429,4 +436,56 @@ func (sol *Solution) secondWith(w [][6]float64, row []Forces, defl []float64, c,
 			defl[i] = v - x/e.l*(ul[4]-ul[1])
 		}
 	}
+}
+
+// Sway returns Σ w[j]·u[j], j = 0 to 5 in that order: the transverse
+// displacement v(x) − v(0) of a member solved with a geometric stiffness,
+// at a station whose weights are w ([Solution.SecondOrderWeightsTo]), in a
+// case that does not load it, whose nodes' local displacements are u
+// ([Solution.DisplacementsEach]). Its moment there is the first-order
+// −f₂ + x·f₁ plus N·Sway, to the last bit of [Solution.StationsTo].
+func Sway(w, u *[6]float64) float64 {
+	v := 0.0
+	v += w[0] * u[0]
+	v += w[1] * u[1]
+	v += w[2] * u[2]
+	v += w[3] * u[3]
+	v += w[4] * u[4]
+	v += w[5] * u[5]
+	return v
+}
+
+// SecondOrderWeightsTo fills dst[i] with the weights ([Sway]) at xs[i] of
+// member m, solved with a geometric stiffness, and returns its axial force
+// N (tension positive). It panics for a member of a first-order solution
+// ([Solution.Unloaded]). dst must have length len(xs).
+func (sol *Solution) SecondOrderWeightsTo(dst [][6]float64, m int, xs []float64) float64 {
+	e := &sol.elems[m]
+	if e.so == nil {
+		panic("frame: SecondOrderWeightsTo: the member is not solved in second order")
+	}
+	if len(dst) != len(xs) {
+		panic("frame: SecondOrderWeightsTo: dst has the wrong length")
+	}
+	copy(dst, e.weights(xs))
+	return e.so.n
+}
+
+// SecondFrom adds to dst[i].M, when dst is not nil, the second-order
+// moment N·(v(x) − v(0)) of member m in case c at xs[i], and sets defl[i],
+// when defl is not nil, to its deflection there relative to its chord,
+// given the local displacements u of the member's nodes in that case
+// ([Solution.DisplacementsEach]) and the member's weights w at xs
+// ([Solution.SecondOrderWeightsTo]): after [Solution.StationsFrom], dst
+// holds the values of [Solution.StationsTo] to the last bit, and defl
+// those of [Solution.DeflectionsTo]. dst (when not nil), defl (when not
+// nil) and w must have length len(xs).
+func (sol *Solution) SecondFrom(dst []Forces, defl []float64, c, m int, u *[6]float64, w [][6]float64, xs []float64) {
+	if sol.elems[m].so == nil {
+		panic("frame: SecondFrom: the member is not solved in second order")
+	}
+	if (dst != nil && len(dst) != len(xs)) || (defl != nil && len(defl) != len(xs)) || len(w) != len(xs) {
+		panic("frame: SecondFrom: dst, defl or w has the wrong length")
+	}
+	sol.secondFrom(w, dst, defl, c, m, u, xs)
 }

@@ -28,6 +28,40 @@ func (sol *Solution) Displacement(c, v int) (ux, uy, rz float64) {
 	return sol.u(c, 3*v), sol.u(c, 3*v+1), rz
 }
 
+// DisplacementsTo sets dst[c] to the displacements (ux, uy, rz) of node v
+// in every case c, as [Solution.Displacement] gives them, reading each
+// direction's values of every case together. dst must have one entry per
+// case.
+func (sol *Solution) DisplacementsTo(dst [][3]float64, v int) {
+	nc := len(sol.model.Cases)
+	if len(dst) != nc {
+		panic("frame: DisplacementsTo: dst has the wrong length")
+	}
+	for d := range 3 {
+		var row []float64 // every case's value, nil for zero
+		switch e := sol.dof[3*v+d]; {
+		case d == 2 && sol.released[v]:
+			for c := range dst {
+				dst[c][d] = math.NaN()
+			}
+			continue
+		case e >= 0:
+			row = sol.x[e*nc : (e+1)*nc]
+		case e < -1:
+			row = sol.imposed[(-2-e)*nc : (-1-e)*nc]
+		}
+		if row == nil {
+			for c := range dst {
+				dst[c][d] = 0
+			}
+			continue
+		}
+		for c, x := range row {
+			dst[c][d] = x
+		}
+	}
+}
+
 // RotationFree reports whether the rotation of node v is free: every member
 // end there is released and no support holds it. No member carries moment
 // there, so the rotation carries nothing and is not solved for; each member

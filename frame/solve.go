@@ -3,8 +3,10 @@ package frame
 import (
 	"fmt"
 	"math"
+	"runtime"
 	"slices"
 	"sort"
+	"sync"
 
 	"gonum.org/v1/gonum/blas"
 	"gonum.org/v1/gonum/blas/blas64"
@@ -60,6 +62,11 @@ type Solution struct {
 
 	// axial is Options.Axial of a second-order solve, nil otherwise.
 	axial []float64
+
+	// factor is the band Cholesky factor of the stiffness scaled by pow2
+	// (upper, row-major, band+1 a row; nil when there was nothing to
+	// solve), kept to solve more cases on it ([Solution.SolveCases]).
+	factor, pow2 []float64
 }
 
 // Info describes the system of equations a model gives.
@@ -181,10 +188,9 @@ func SolveWith(mo *Model, opt Options) (*Solution, error) {
 
 	// K x = b is solved as (D K D)(D⁻¹ x) = D b.
 	x := sol.rhs(n)
-	scaleRows(x, d, nc)
-	bandSolve(u.Data, n, kb, x, nc)
-	scaleRows(x, d, nc)
+	bandSolveScaled(u.Data, n, kb, x, nc, d)
 	sol.x = x
+	sol.factor, sol.pow2 = u.Data, d
 	sol.zero = make([]float64, nc)
 	if err := sol.checkFinite(); err != nil {
 		return nil, err
@@ -331,6 +337,7 @@ func scaleRows(x, scale []float64, nc int) {
 // with kb superdiagonals: entry (i, j), j >= i, at [i*(kb+1)+j-i].
 func (sol *Solution) assemble(n, kb int) []float64 {
 	data := make([]float64, n*(kb+1))
+	clear(data) // written before it is read: see rhs
 	sol.assembleTo(data, kb, sol.elems)
 	return data
 }
@@ -389,10 +396,44 @@ func (sol *Solution) indexImposed() {
 // rhs returns the right-hand sides, row-major n × cases: node loads less
 // the fixed-end forces of the member loads.
 func (sol *Solution) rhs(n int) []float64 {
+	nc := len(sol.model.Cases)
+	x := make([]float64, n*nc)
+	// Zeros written first, on every processor, a run of rows each: fresh
+	// memory first read is mapped to the system's zero page, and the
+	// first write to it then faults again and flushes every processor's
+	// address translations; first written, it faults once.
+	workers := max(min(runtime.GOMAXPROCS(0), n*nc>>16), 1)
+	var wg sync.WaitGroup
+	for k := range workers {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			clear(x[k*n/workers*nc : (k+1)*n/workers*nc])
+		}()
+	}
+	wg.Wait()
+	// Each case's column alone, the cases split in runs between the
+	// processors: the same sums in the same order on any number.
+	workers = max(min(runtime.GOMAXPROCS(0), nc/64), 1)
+	for k := range workers {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			sol.rhsOf(x, k*nc/workers, (k+1)*nc/workers)
+		}()
+	}
+	wg.Wait()
+	if len(sol.imposed) > 0 {
+		sol.imposedRHS(x)
+	}
+	return x
+}
+
+// rhsOf adds to x (see rhs) the loads of cases lo up to hi.
+func (sol *Solution) rhsOf(x []float64, lo, hi int) {
 	mo, dof := sol.model, sol.dof
 	nc := len(mo.Cases)
-	x := make([]float64, n*nc)
-	for c := range mo.Cases {
+	for c := lo; c < hi; c++ {
 		for _, nl := range mo.Cases[c].NodeLoads {
 			for d, v := range [3]float64{nl.Fx, nl.Fy, nl.M} {
 				if e := dof[3*nl.Node+d]; e >= 0 {
@@ -412,10 +453,6 @@ func (sol *Solution) rhs(n int) []float64 {
 			}
 		}
 	}
-	if len(sol.imposed) > 0 {
-		sol.imposedRHS(x)
-	}
-	return x
 }
 
 // imposedRHS subtracts from the right-hand sides x the forces that the

@@ -23,7 +23,18 @@ func bandSolve(u []float64, n, kb int, x []float64, nrhs int) {
 	if nrhs == 0 {
 		return
 	}
-	newBandSolver(u, n, kb).solve(x, nrhs)
+	newBandSolver(u, n, kb).solveScaled(x, nrhs, nil)
+}
+
+// bandSolveScaled is bandSolve of the system scaled by D = diag(d), D K D
+// factored in u: it overwrites x with D (U⁻¹ U⁻ᵀ) D x, scaling each
+// block's rows as they are packed and unpacked. With powers of two in d
+// that is scaleRows, bandSolve and scaleRows again to the last bit.
+func bandSolveScaled(u []float64, n, kb int, x []float64, nrhs int, d []float64) {
+	if nrhs == 0 {
+		return
+	}
+	newBandSolver(u, n, kb).solveScaled(x, nrhs, d)
 }
 
 // bandSolver is bandSolve for one factor used many times (an iteration):
@@ -39,7 +50,11 @@ func newBandSolver(u []float64, n, kb int) *bandSolver {
 }
 
 // solve is bandSolve with the solver's factor.
-func (bs *bandSolver) solve(x []float64, nrhs int) {
+func (bs *bandSolver) solve(x []float64, nrhs int) { bs.solveScaled(x, nrhs, nil) }
+
+// solveScaled is bandSolveScaled with the solver's factor; d nil is no
+// scaling.
+func (bs *bandSolver) solveScaled(x []float64, nrhs int, d []float64) {
 	if nrhs == 0 {
 		return
 	}
@@ -65,11 +80,11 @@ func (bs *bandSolver) solve(x []float64, nrhs int) {
 				// row reads are then a few kilobytes apart, not nrhs words.
 				bw := hi - lo
 				for i := range n {
-					copy(buf[i*bw:(i+1)*bw], x[i*nrhs+lo:i*nrhs+hi])
+					copyScaled(buf[i*bw:(i+1)*bw], x[i*nrhs+lo:i*nrhs+hi], d, i)
 				}
 				substitute(&fwd, &bwd, u, n, kb, buf[:n*bw], bw, offs)
 				for i := range n {
-					copy(x[i*nrhs+lo:i*nrhs+hi], buf[i*bw:(i+1)*bw])
+					copyScaled(x[i*nrhs+lo:i*nrhs+hi], buf[i*bw:(i+1)*bw], d, i)
 				}
 			}
 		}()
@@ -118,6 +133,19 @@ func solveColumn(u []float64, n, kb int, x []float64) {
 			s -= v * above[j]
 		}
 		x[i] = s * (1 / u[i*w])
+	}
+}
+
+// copyScaled copies src to dst times d[i], or as it is when d is nil:
+// copied, then scaled where the row is in cache.
+func copyScaled(dst, src, d []float64, i int) {
+	copy(dst, src)
+	if d == nil {
+		return
+	}
+	s := d[i]
+	for k := range dst[:len(src)] {
+		dst[k] *= s
 	}
 }
 

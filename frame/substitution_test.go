@@ -59,6 +59,23 @@ func TestSubstitutionIsTheReferenceToTheLastBit(t *testing.T) {
 							t.Fatalf("x[%d, %d] = %v, reference %v", i/nc, i%nc, got[i], want[i])
 						}
 					}
+					// Scaled by powers of two as the blocks are packed:
+					// scaling the rows before and after, to the last bit.
+					d := make([]float64, n)
+					for i := range d {
+						d[i] = math.Ldexp(1, i%7-3)
+					}
+					scaled := append([]float64(nil), rhs...)
+					scaleRows(scaled, d, nc)
+					bandSolve(u.Data, n, kb, scaled, nc)
+					scaleRows(scaled, d, nc)
+					got = append(got[:0], rhs...)
+					bandSolveScaled(u.Data, n, kb, got, nc, d)
+					for i := range got {
+						if got[i] != scaled[i] {
+							t.Fatalf("scaled: x[%d, %d] = %v, rows scaled apart %v", i/nc, i%nc, got[i], scaled[i])
+						}
+					}
 				})
 			}
 		}

@@ -1,6 +1,12 @@
 package analysis
 
-import "govern/frame"
+import (
+	"runtime"
+	"sync"
+	"sync/atomic"
+
+	"govern/frame"
+)
 
 // CaseResult is the unfactored result of one load case of the job: a
 // patterned case with every piece loaded (the case as written), every
@@ -69,25 +75,43 @@ func (r *Result) Cases() []CaseResult {
 	}
 	// The end forces of every column of a member at once, summed case by
 	// case over its columns in order: the sums of endForces, to the last
-	// bit, without reading the displacements column by column.
-	ends := make([][6]float64, len(r.sol.Model().Cases))
-	for m := range mo.Members {
-		r.sol.EndForcesEach(ends, m)
-		for c := range mo.Cases {
-			var f [6]float64
-			for _, col := range cols[c] {
-				g := &ends[col]
-				for i := range f {
-					f[i] += g[i]
+	// bit, without reading the displacements column by column. Members
+	// on every processor, each alone.
+	const chunk = 64
+	chunks := (len(mo.Members) + chunk - 1) / chunk
+	var next atomic.Int64
+	var wg sync.WaitGroup
+	for range max(min(runtime.GOMAXPROCS(0), chunks), 1) {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			ends := make([][6]float64, len(r.sol.Model().Cases))
+			for {
+				k := int(next.Add(1) - 1)
+				if k >= chunks {
+					return
+				}
+				for m := k * chunk; m < min((k+1)*chunk, len(mo.Members)); m++ {
+					r.sol.EndForcesEach(ends, m)
+					for c := range mo.Cases {
+						var f [6]float64
+						for _, col := range cols[c] {
+							g := &ends[col]
+							for i := range f {
+								f[i] += g[i]
+							}
+						}
+						// The local end forces the nodes exert
+						// (frame.Solution.EndForces) as internal forces: at the
+						// start N = −f0, V = f1, M = −f2; at the end N = f3,
+						// V = −f4, M = f5. A released end's are exactly zero.
+						out[c].Ends[m] = MemberEnds{Member: m, Start: frame.Forces{N: -f[0], V: f[1], M: -f[2]}, End: frame.Forces{N: f[3], V: -f[4], M: f[5]}}
+					}
 				}
 			}
-			// The local end forces the nodes exert (frame.Solution.EndForces)
-			// as internal forces: at the start N = −f0, V = f1, M = −f2; at
-			// the end N = f3, V = −f4, M = f5. A released end's are
-			// exactly zero.
-			out[c].Ends[m] = MemberEnds{Member: m, Start: frame.Forces{N: -f[0], V: f[1], M: -f[2]}, End: frame.Forces{N: f[3], V: -f[4], M: f[5]}}
-		}
+		}()
 	}
+	wg.Wait()
 	u := make([]float64, 3*len(mo.Nodes))
 	for c := range mo.Cases {
 		cr := &out[c]

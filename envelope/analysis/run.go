@@ -185,15 +185,23 @@ func Run(ctx context.Context, job *Job, opt Options) (*Result, error) {
 	held := memoryOptions(job, sv, lay, opt)
 	solver.PerMember += held.PerMember
 	solver.Held, solver.Solutions = held.Held, held.Solutions
+	// The elastic stiffness with the sections as given, factored for the
+	// critical load factors (every run finds them) beside the solve, whose
+	// assembly and factorization take one processor.
+	nominal := &bucklingOnce{}
+	go nominal.once.Do(func() {
+		nominal.b, nominal.err = frame.NewBuckling(&frame.Model{Nodes: sv.model.Nodes, Sections: sv.model.Sections, Members: sv.model.Members})
+	})
 	sol, err := frame.SolveWith(lay.Model, solver)
-	if err != nil {
-		return nil, err
+	if err == nil {
+		err = ctx.Err()
 	}
-	if err := ctx.Err(); err != nil {
+	if err != nil {
+		nominal.once.Do(func() {}) // done with it
 		return nil, err
 	}
 	r := &Result{Job: job, lay: lay, sol: sol, solver: opt.Solver, Patterns: lay.Mode, Segments: lay.Segments, Info: sol.Info(),
-		Warnings: append(slices.Clip(sol.Warnings()), Plausibility(job)...)}
+		Warnings: append(slices.Clip(sol.Warnings()), Plausibility(job)...), buckling: map[Stiffness]*bucklingOnce{Nominal: nominal}}
 	r.Faces = ColumnFaces(job.Model)
 	r.Spans = spans(job.Model)
 	set := envelope.Settings{
@@ -249,6 +257,22 @@ func Run(ctx context.Context, job *Job, opt Options) (*Result, error) {
 		report(opt, Progress{Phase: fmt.Sprintf("solved %d loads; enveloping stations", len(lay.Model.Cases)), Total: int64(total * groups), Done: set.Progress})
 	}
 	r.Storeys = storeysOf(job)
+	var stability error // reported after the envelopes' errors, which say more
+	if pl.simple {
+		// The combinations' axial forces and storey drifts, solved on the
+		// factor of sol, whose stiffness they share: before the envelopes,
+		// whose memory then reuses theirs.
+		us := make([]*unit, len(pl.units))
+		for i := range us {
+			us[i] = &pl.units[i]
+		}
+		stability = r.firstOrderStability(us, sv.model, Nominal, sol)
+		for i := range pl.units {
+			u := &pl.units[i]
+			cb := &r.Combinations[u.k]
+			cb.CriticalFactor, cb.CriticalNominal = u.critical, u.nominal
+		}
+	}
 	nodes, drifts := r.displacementRequests()
 	var env, across *envelope.Envelope // across: deflections across the lines of runs with a ridge
 	if pl.simple {
@@ -265,20 +289,8 @@ func Run(ctx context.Context, job *Job, opt Options) (*Result, error) {
 				return nil, err
 			}
 		}
-		us := make([]*unit, len(pl.units))
-		for i := range us {
-			us[i] = &pl.units[i]
-		}
-		if err := r.criticalAll(us, sv.model, Nominal); err != nil {
-			return nil, err
-		}
-		for i := range pl.units {
-			u := &pl.units[i]
-			if err := r.storeyStability(u, sv.model, Nominal); err != nil {
-				return nil, err
-			}
-			cb := &r.Combinations[u.k]
-			cb.CriticalFactor, cb.CriticalNominal = u.critical, u.nominal
+		if stability != nil {
+			return nil, stability
 		}
 	} else {
 		// Member factors scale each case's and piece's effects on the

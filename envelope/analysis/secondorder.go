@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"runtime"
 	"slices"
 	"sync"
 
@@ -160,6 +161,17 @@ func makePlan(job *Job, sv *solved) (*plan, error) {
 		}
 	}
 	return pl, nil
+}
+
+// combinedOf returns the combination of each unit of us as one case, every
+// case of base at u.scale times its factor and every piece loaded (as
+// combined gives it).
+func combinedOf(base *frame.Model, us []*unit) []frame.Case {
+	out := make([]frame.Case, len(us))
+	for i, u := range us {
+		out[i] = combined(base, base.Sections, base.Members, u.cb, u.scale, nil).Cases[0]
+	}
+	return out
 }
 
 // combined returns a model with the nodes of base, the sections and
@@ -474,6 +486,26 @@ func (r *Result) envelopes(pl *plan, sv *solved, lay *patterns.Layout, reqs []re
 		}
 		groups[g].units = append(groups[g].units, i)
 	}
+	// The second-order units' iterations are independent of each other
+	// and of the envelopes: they run side by side, and each unit's error
+	// is returned where the unit comes in order.
+	iterated := make([]error, len(pl.units))
+	var wg sync.WaitGroup
+	slots := make(chan struct{}, runtime.GOMAXPROCS(0))
+	for _, g := range groups {
+		if !g.second {
+			continue
+		}
+		i, stiff := g.units[0], g.stiff
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			slots <- struct{}{}
+			defer func() { <-slots }()
+			iterated[i] = r.iterate(&pl.units[i], sv.model, stiff)
+		}()
+	}
+	wg.Wait()
 	mg := make([]*merger, len(reqs))
 	for i := range reqs {
 		mg[i] = newMerger(job.Combinations)
@@ -486,7 +518,7 @@ func (r *Result) envelopes(pl *plan, sv *solved, lay *patterns.Layout, reqs []re
 			var axial []float64
 			if g.second {
 				u := &pl.units[g.units[0]]
-				if err := r.iterate(u, sv.model, g.stiff); err != nil {
+				if err := iterated[g.units[0]]; err != nil {
 					return nil, err
 				}
 				axial = u.axial
@@ -500,6 +532,15 @@ func (r *Result) envelopes(pl *plan, sv *solved, lay *patterns.Layout, reqs []re
 			mo.Sections, mo.Members = secs, mems
 			l2 := *lay
 			l2.Model = &mo
+			if leaveOutUnits && !usesPatterns(lay, pl, g.units) {
+				// No combination of the group has a patterned term: their
+				// pieces are read by none (neither summed nor listed, and
+				// round-off is judged for pieces only), so they are not
+				// solved for.
+				l2 = withoutUnits(lay)
+				mo.Cases = l2.Model.Cases
+				l2.Model = &mo
+			}
 			glay = &l2
 			var err error
 			so := opt.Solver
@@ -514,19 +555,20 @@ func (r *Result) envelopes(pl *plan, sv *solved, lay *patterns.Layout, reqs []re
 			}
 		}
 		if !g.second {
+			// sol has the group's stiffness: the combinations' axial
+			// forces and storey drifts are solved on its factor.
 			var us []*unit
 			for _, i := range g.units {
 				us = append(us, &pl.units[i])
 			}
-			if err := r.criticalAll(us, sv.model, g.stiff); err != nil {
+			if err := r.firstOrderStability(us, sv.model, g.stiff, sol); err != nil {
 				return nil, err
 			}
+		} else if err := r.storeyStability(&pl.units[g.units[0]], sv.model, g.stiff, nil); err != nil {
+			return nil, err
 		}
 		for _, i := range g.units {
 			u := &pl.units[i]
-			if err := r.storeyStability(u, sv.model, g.stiff); err != nil {
-				return nil, err
-			}
 			cb := &r.Combinations[u.k]
 			cb.CriticalFactor = minCritical(cb.CriticalFactor, u.critical)
 			cb.CriticalNominal = minCritical(cb.CriticalNominal, u.nominal)
@@ -569,6 +611,43 @@ func (r *Result) envelopes(pl *plan, sv *solved, lay *patterns.Layout, reqs []re
 		}
 	}
 	return out, nil
+}
+
+// leaveOutUnits is whether a group of combinations without patterned
+// terms is solved without the pattern pieces; the tests turn it off to
+// compare.
+var leaveOutUnits = true
+
+// usesPatterns reports whether some unit of us (indices into pl.units)
+// has a term on a patterned case of lay.
+func usesPatterns(lay *patterns.Layout, pl *plan, us []int) bool {
+	for _, i := range us {
+		for _, t := range pl.units[i].cb.Terms {
+			for _, pc := range lay.Patterned {
+				if t.Case == pc.Case {
+					return true
+				}
+			}
+		}
+	}
+	return false
+}
+
+// withoutUnits returns lay with its patterned cases' units left out: its
+// model has the original cases only (each patterned case as its rest).
+func withoutUnits(lay *patterns.Layout) patterns.Layout {
+	l2 := *lay
+	n := len(lay.Model.Cases)
+	l2.Patterned = make([]patterns.Patterned, len(lay.Patterned))
+	for p, pc := range lay.Patterned {
+		n -= len(pc.Units)
+		pc.Units = nil
+		l2.Patterned[p] = pc
+	}
+	mo := *lay.Model
+	mo.Cases = lay.Model.Cases[:n:n]
+	l2.Model = &mo
+	return l2
 }
 
 // minCritical returns the smaller of two critical load factors, 0 being
@@ -741,22 +820,42 @@ type buckled struct {
 	msg string
 }
 
+// firstOrderStability sets the critical load factors and the storeys'
+// stability indices of the first-order units us, analysed with stiffness
+// stiff on sol: the storeys beside the critical load factors, whose
+// Lanczos iteration starts on one processor (they share nothing they
+// write). The error is the critical load factors', else the storeys'.
+func (r *Result) firstOrderStability(us []*unit, base *frame.Model, stiff Stiffness, sol *frame.Solution) error {
+	comb := combinedOf(base, us)
+	var storeys error
+	done := make(chan struct{})
+	go func() {
+		defer close(done)
+		storeys = r.storeyStabilityAll(us, base, stiff, sol, comb)
+	}()
+	err := r.criticalAll(us, base, stiff, sol, comb)
+	<-done
+	if err != nil {
+		return err
+	}
+	return storeys
+}
+
 // criticalAll sets the critical load factors of the first-order units us,
-// analysed with stiffness stiff: their combinations solved together (one
-// factor of the stiffness, a load column each), and their factors found
-// side by side; the first error in their order.
-func (r *Result) criticalAll(us []*unit, base *frame.Model, stiff Stiffness) error {
+// analysed with stiffness stiff on sol: their combinations comb
+// (combinedOf) solved together on the factor of sol's stiffness (a load
+// column each), and their factors found side by side; the first error in
+// their order.
+func (r *Result) criticalAll(us []*unit, base *frame.Model, stiff Stiffness, sol *frame.Solution, comb []frame.Case) error {
 	if len(us) == 0 {
 		return nil
 	}
-	secs, mems := r.Job.stiffnessOf(base, stiff)
-	all := &frame.Model{Nodes: base.Nodes, Sections: secs, Members: mems}
-	for i, u := range us {
-		c := combined(base, secs, mems, u.cb, u.scale, nil).Cases[0]
-		c.Name = fmt.Sprintf("unit %d", i+1) // a combination's alternatives share its name
-		all.Cases = append(all.Cases, c)
+	cases := make([]frame.Case, len(us))
+	for i := range us {
+		cases[i] = comb[i]
+		cases[i].Name = fmt.Sprintf("unit %d", i+1) // a combination's alternatives share its name
 	}
-	s0, err := frame.SolveWith(all, r.solver)
+	s0, err := sol.SolveCases(cases)
 	if err != nil {
 		// Which combination: each alone.
 		for _, u := range us {

@@ -4,12 +4,14 @@ import (
 	"context"
 	"errors"
 	"math"
+	"reflect"
 	"strings"
 	"testing"
 
 	"govern/combos"
 	"govern/envelope"
 	"govern/frame"
+	"govern/patterns"
 )
 
 // cantileverJob is a cantilever column, fixed at its base, EI = 250,
@@ -350,5 +352,62 @@ func TestEndMomentsOfMany(t *testing.T) {
 	}
 	if !many[0][0].OK || !within(math.Abs(many[0][0].Ends[0]), want, 1e-3) {
 		t.Errorf("base moment %v, want %.6g", many[0][0].Ends, want)
+	}
+}
+
+// A second-order combination without patterned terms (1.4D, 0.9D ± W) is
+// solved without the pattern pieces, which none of its results reads:
+// every result is the same, to the last bit, as when they are solved, on
+// a regular frame whose live and roof live loads are patterned (span by
+// span, and by the code's arrangements), with a service combination.
+func TestCombinationsWithoutPatternsLeaveOutThePieces(t *testing.T) {
+	for _, mode := range []patterns.Mode{patterns.Exact, patterns.Code} {
+		t.Run(mode.String(), func(t *testing.T) { leaveOutThePieces(t, mode) })
+	}
+}
+
+func leaveOutThePieces(t *testing.T, mode patterns.Mode) {
+	job := regularJob(4, 3, true)
+	job.Patterns = mode
+	job.Methods = make([]Method, len(job.Combinations))
+	without := 0
+	for k, cb := range job.Combinations {
+		job.Methods[k] = Method{SecondOrder: true}
+		patterned := false
+		for _, term := range cb.Terms {
+			patterned = patterned || term.Case == 1 || term.Case == 2
+		}
+		if !patterned {
+			without++
+		}
+	}
+	if without == 0 {
+		t.Fatal("every combination has a patterned term: nothing is left out")
+	}
+	got, err := Run(context.Background(), job, Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	leaveOutUnits = false
+	defer func() { leaveOutUnits = true }()
+	want, err := Run(context.Background(), job, Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, c := range []struct {
+		what      string
+		got, want any
+	}{
+		{"members", got.Envelope.Members, want.Envelope.Members},
+		{"reactions", got.Envelope.Reactions, want.Envelope.Reactions},
+		{"combinations", got.Combinations, want.Combinations},
+		{"node displacements", got.Displacements, want.Displacements},
+		{"storeys", got.Storeys, want.Storeys},
+		{"amplifications", got.Amplifications, want.Amplifications},
+		{"warnings", got.Warnings, want.Warnings},
+	} {
+		if !reflect.DeepEqual(c.got, c.want) {
+			t.Errorf("%s differ with the pieces left out", c.what)
+		}
 	}
 }

@@ -120,8 +120,13 @@ func displacementTargets(cs []combos.Combination) []bool {
 // valuesRequest is an envelope of quantities other than stations (node
 // displacements, drifts), formed group by group with the envelopes.
 type valuesRequest struct {
-	n       int
-	get     func(sol *frame.Solution, c, i int) [3]float64
+	n int
+	// effects is how many of a quantity's three components are enveloped
+	// (envelope.ValuesRows): 3 for a node's displacements, 1 for a drift.
+	effects int
+	// fill sets row[c] to quantity i in every column c of sol; tmp is
+	// scratch of the same length (envelope.ValuesRows).
+	fill    func(sol *frame.Solution, i int, row, tmp [][3]float64)
 	what    func(i, q int) string
 	targets []bool // per job combination, whether it is enveloped over
 	out     [][3]envelope.Extreme
@@ -140,7 +145,7 @@ func (vr *valuesRequest) add(sol *frame.Solution, lay *patterns.Layout, cs []com
 		return nil
 	}
 	set.Stations, set.Extra, set.Lines, set.Progress = 2, nil, nil, nil
-	vals, err := envelope.Values(sol, cs, sel, set, lay, vr.n, func(c, i int) [3]float64 { return vr.get(sol, c, i) }, vr.what)
+	vals, err := envelope.ValuesRows(sol, cs, sel, set, lay, vr.n, vr.effects, func(i int, row, tmp [][3]float64) { vr.fill(sol, i, row, tmp) }, vr.what)
 	if err != nil {
 		return err
 	}
@@ -166,21 +171,31 @@ func (r *Result) displacementRequests() (nodes, drifts *valuesRequest) {
 	mo := r.Job.Model
 	targets := displacementTargets(r.Job.Combinations)
 	dir := [3]string{"ux", "uy", "rz"}
-	nodes = &valuesRequest{n: len(mo.Nodes), targets: targets,
-		get: func(sol *frame.Solution, c, v int) [3]float64 {
-			ux, uy, rz := sol.Displacement(c, v)
-			if math.IsNaN(rz) {
-				rz = 0
+	nodes = &valuesRequest{n: len(mo.Nodes), effects: 3, targets: targets,
+		fill: func(sol *frame.Solution, v int, row, _ [][3]float64) {
+			sol.DisplacementsTo(row, v)
+			if sol.RotationFree(v) {
+				for c := range row {
+					row[c][2] = 0
+				}
 			}
-			return [3]float64{ux, uy, rz}
 		},
 		what: func(v, q int) string { return fmt.Sprintf("%s of node %q", dir[q], mo.Nodes[v].Name) }}
 	var cols []int
 	for _, s := range r.Storeys {
 		cols = append(cols, s.Columns...)
 	}
-	drifts = &valuesRequest{n: len(cols), targets: targets,
-		get: func(sol *frame.Solution, c, i int) [3]float64 { return [3]float64{columnDrift(sol, c, cols[i])} },
+	drifts = &valuesRequest{n: len(cols), effects: 1, targets: targets,
+		fill: func(sol *frame.Solution, i int, row, tmp [][3]float64) {
+			// columnDrift in every column: the top's ux less the bottom's.
+			b := mo.Bottom(cols[i])
+			mem := mo.Members[cols[i]]
+			sol.DisplacementsTo(row, mem.Start+mem.End-b)
+			sol.DisplacementsTo(tmp, b)
+			for c := range row {
+				row[c] = [3]float64{row[c][0] - tmp[c][0]}
+			}
+		},
 		what: func(i, _ int) string {
 			return fmt.Sprintf("the drift of column %q", mo.Members[cols[i]].Name)
 		}}
@@ -216,17 +231,89 @@ func (r *Result) setDisplacements(nodes, drifts *valuesRequest) {
 }
 
 // storeyStability fills the stability indices of every storey for the
-// strength combination of unit u, analysed with stiffness stiff.
-func (r *Result) storeyStability(u *unit, base *frame.Model, stiff Stiffness) error {
+// strength combination of unit u, analysed with stiffness stiff: on the
+// factor of first, a first-order solution with that stiffness, when it is
+// not nil.
+func (r *Result) storeyStability(u *unit, base *frame.Model, stiff Stiffness, first *frame.Solution) error {
 	job := r.Job
 	if len(r.Storeys) == 0 || job.Combinations[u.k].Service {
 		return nil
 	}
-	name := job.Combinations[u.k].Name
 	secs, mems := job.stiffnessOf(base, stiff)
-	all := combined(base, secs, mems, u.cb, 1, nil)
-	// The horizontal loads of the combination alone, then a unit storey
-	// shear at the top of each storey.
+	all, hx := r.stabilityCases(base, secs, mems, combined(base, secs, mems, u.cb, 1, nil).Cases[0])
+	cases := append(all.Cases, r.unitShears(base)...)
+	var sol *frame.Solution
+	var err error
+	if first != nil {
+		sol, err = first.SolveCases(cases)
+	} else {
+		all.Cases = cases
+		sol, err = frame.SolveWith(all, r.solver)
+	}
+	if err != nil {
+		return fmt.Errorf("combination %q: storey stability: %w", job.Combinations[u.k].Name, err)
+	}
+	r.setStability(u, base, sol, 0, 1, 2, hx)
+	return nil
+}
+
+// storeyStabilityAll is storeyStability for the first-order units us
+// analysed on sol (stiffness stiff), comb their combinations
+// (combinedOf): those at a factor of 1 and their horizontal loads, and
+// once for all of them the unit storey shears, solved on sol's factor
+// together.
+func (r *Result) storeyStabilityAll(us []*unit, base *frame.Model, stiff Stiffness, sol *frame.Solution, comb []frame.Case) error {
+	job := r.Job
+	if len(r.Storeys) == 0 {
+		return nil
+	}
+	secs, mems := job.stiffnessOf(base, stiff)
+	var strength []*unit
+	var cases []frame.Case
+	var hxs [][]float64
+	for i, u := range us {
+		if job.Combinations[u.k].Service {
+			continue
+		}
+		c := comb[i]
+		if u.scale != 1 {
+			c = combined(base, secs, mems, u.cb, 1, nil).Cases[0]
+		}
+		all, hx := r.stabilityCases(base, secs, mems, c)
+		// Names of their own: a combination's alternatives share its name.
+		all.Cases[0].Name = fmt.Sprintf("combination %d", len(strength)+1)
+		all.Cases[1].Name = fmt.Sprintf("lateral %d", len(strength)+1)
+		strength = append(strength, u)
+		cases = append(cases, all.Cases...)
+		hxs = append(hxs, hx)
+	}
+	if len(strength) == 0 {
+		return nil
+	}
+	shears := len(cases)
+	cases = append(cases, r.unitShears(base)...)
+	s2, err := sol.SolveCases(cases)
+	if err != nil {
+		// Which combination: each alone.
+		for _, u := range strength {
+			if err := r.storeyStability(u, base, stiff, sol); err != nil {
+				return err
+			}
+		}
+		return fmt.Errorf("storey stability: %w", err)
+	}
+	for i, u := range strength {
+		r.setStability(u, base, s2, 2*i, 2*i+1, shears, hxs[i])
+	}
+	return nil
+}
+
+// stabilityCases returns a combination's case comb (every case at its
+// factor and every piece loaded) and its horizontal loads alone, as the
+// two cases of a model with the sections and members given; and the
+// horizontal load at each node, by the lever rule.
+func (r *Result) stabilityCases(base *frame.Model, secs []frame.Section, mems []frame.Member, comb frame.Case) (*frame.Model, []float64) {
+	all := &frame.Model{Nodes: base.Nodes, Sections: secs, Members: mems, Cases: []frame.Case{comb}}
 	var lateral frame.Case
 	for _, ld := range all.Cases[0].MemberLoads {
 		if ld.Direction == frame.GlobalX && !ld.Moment && !ld.Thermal {
@@ -240,8 +327,15 @@ func (r *Result) storeyStability(u *unit, base *frame.Model, stiff Stiffness) er
 	}
 	lateral.Name = "lateral"
 	all.Cases = append(all.Cases, lateral)
-	hx := make([]float64, len(base.Nodes)) // horizontal load at each node, by the lever rule
+	hx := make([]float64, len(base.Nodes))
 	lateralAtNodes(all, &lateral, hx)
+	return all, hx
+}
+
+// unitShears returns a case per storey: a unit storey shear at its top,
+// shared by the free nodes of that level.
+func (r *Result) unitShears(base *frame.Model) []frame.Case {
+	out := make([]frame.Case, 0, len(r.Storeys))
 	for _, s := range r.Storeys {
 		c := frame.Case{Name: "unit " + s.Top.Name}
 		var free []int
@@ -253,17 +347,22 @@ func (r *Result) storeyStability(u *unit, base *frame.Model, stiff Stiffness) er
 		for _, v := range free {
 			c.NodeLoads = append(c.NodeLoads, frame.NodeLoad{Node: v, Fx: 1 / float64(len(free))})
 		}
-		all.Cases = append(all.Cases, c)
+		out = append(out, c)
 	}
-	sol, err := frame.SolveWith(all, r.solver)
-	if err != nil {
-		return fmt.Errorf("combination %q: storey stability: %w", name, err)
-	}
+	return out
+}
+
+// setStability fills the stability indices of every storey for unit u
+// from sol: its combination in column comb, its horizontal loads in
+// column lat, the unit shear of storey i in column shear+i; hx the
+// horizontal load at each node.
+func (r *Result) setStability(u *unit, base *frame.Model, sol *frame.Solution, comb, lat, shear int, hx []float64) {
+	job := r.Job
 	alpha := 1.0
 	if u.method.Allowable {
 		alpha = AllowableScale
 	}
-	axial := axialForces(sol, 0)
+	axial := axialForces(sol, comb)
 	for si := range r.Storeys {
 		s := &r.Storeys[si]
 		if s.Stability == nil {
@@ -283,9 +382,9 @@ func (r *Result) storeyStability(u *unit, base *frame.Model, stiff Stiffness) er
 				st.H += hx[v]
 			}
 		}
-		col := 1
+		col := lat
 		if math.Abs(st.H) <= lateralTol*max(st.P, 1e-300) || st.H == 0 {
-			col, st.H, st.Unit = 2+si, 1, true
+			col, st.H, st.Unit = shear+si, 1, true
 		}
 		for _, m := range s.Columns {
 			d := columnDrift(sol, col, m)
@@ -314,7 +413,6 @@ func (r *Result) storeyStability(u *unit, base *frame.Model, stiff Stiffness) er
 		}
 		s.Stability[u.k] = st
 	}
-	return nil
 }
 
 // lateralAtNodes adds to hx the horizontal loads of case cs at the nodes,

@@ -2,6 +2,7 @@ package analysis
 
 import (
 	"context"
+	"fmt"
 	"math"
 	"testing"
 
@@ -103,5 +104,137 @@ func TestStoreyUnitShear(t *testing.T) {
 	st := res.Storeys[0].Stability[1]
 	if !st.Unit || !within(st.H, 1, 0) || !within(st.Q, 4.0/30, 1e-6) {
 		t.Errorf("gravity only: %+v, want a unit storey shear and Q = 0.133333", st)
+	}
+}
+
+// swayFrame is a job of 2 bays and 4 storeys, fixed bases, with dead,
+// live and wind cases and five combinations: one without horizontal load
+// (its storeys take a unit shear), one with the wind each way, one with
+// the live load alone on the dead, and a service one.
+func swayFrame() *Job {
+	const bay, storey = 6.0, 3.5
+	mo := &frame.Model{Sections: []frame.Section{
+		{Name: "C", E: 2e8, A: 8e-3, I: 1.2e-4}, {Name: "B", E: 2e8, A: 6e-3, I: 2e-4}}}
+	node := func(i, j int) int { return j*3 + i }
+	var levels []Level
+	for j := range 5 {
+		levels = append(levels, Level{Name: fmt.Sprintf("L%d", j), Y: float64(j) * storey})
+		for i := range 3 {
+			n := frame.Node{Name: fmt.Sprintf("N%d%d", i, j), X: float64(i) * bay, Y: float64(j) * storey}
+			if j == 0 {
+				n.Support = frame.Fixed
+			}
+			mo.Nodes = append(mo.Nodes, n)
+		}
+	}
+	var d, l, w frame.Case
+	d.Name, l.Name, w.Name = "D", "L", "W"
+	for j := range 4 {
+		for i := range 3 {
+			mo.Members = append(mo.Members, frame.Member{Name: fmt.Sprintf("C%d%d", i, j), Start: node(i, j), End: node(i, j+1)})
+		}
+		for i := range 2 {
+			m := len(mo.Members)
+			mem := frame.Member{Name: fmt.Sprintf("B%d%d", i, j+1), Start: node(i, j+1), End: node(i+1, j+1), Section: 1}
+			if i == 1 && j == 2 {
+				mem.Release = frame.ReleaseBoth // a leaning bay
+			}
+			mo.Members = append(mo.Members, mem)
+			d.MemberLoads = append(d.MemberLoads, frame.MemberLoad{Member: m, From: 0, To: bay, W: 20, WEnd: 20})
+			l.MemberLoads = append(l.MemberLoads, frame.MemberLoad{Member: m, From: 0, To: bay, W: 10 + 2*float64(i), WEnd: 10})
+		}
+		w.NodeLoads = append(w.NodeLoads, frame.NodeLoad{Node: node(0, j+1), Fx: 8 + float64(j)})
+	}
+	mo.Cases = []frame.Case{d, l, w}
+	t := func(c int, f float64) combos.Term { return combos.Term{Case: c, Factor: f} }
+	return &Job{
+		Units: Units{Force: "kN", Length: "m"},
+		Model: mo,
+		Cases: []combos.Case{{Name: "D", Kind: combos.Dead}, {Name: "L", Kind: combos.Live}, {Name: "W", Kind: combos.Wind}},
+		Combinations: []combos.Combination{
+			{Name: "1.4D", Terms: []combos.Term{t(0, 1.4)}},
+			{Name: "1.2D+1.6L", Terms: []combos.Term{t(0, 1.2), t(1, 1.6)}},
+			{Name: "1.2D+1.0W+L", Terms: []combos.Term{t(0, 1.2), t(2, 1), t(1, 1)}},
+			{Name: "0.9D-1.0W", Terms: []combos.Term{t(0, 0.9), t(2, -1)}},
+			{Name: "D+L", Terms: []combos.Term{t(0, 1), t(1, 1)}, Service: true},
+		},
+		Settings: Settings{Stations: 5},
+		Levels:   levels,
+	}
+}
+
+// The storey stability indices and critical load factors Run finds on
+// the factor of the stiffness it solved the load cases with are those of
+// each combination solved alone, by an assembly and factor of its own
+// (frame.SolveWith): with the sections as given and no notional load
+// (every combination on the one solution), with notional loads as
+// alternatives each way, with strength and service stiffness, and in
+// second order (each combination's storeys solved on their own).
+func TestStoreyStabilityOnSharedFactor(t *testing.T) {
+	for _, tc := range []struct {
+		name string
+		set  func(*Job)
+		unit int // combinations whose storeys take a unit shear
+	}{
+		{"nominal", func(*Job) {}, 2},
+		{"notional loads", func(j *Job) { j.Sway.Notional, j.Sway.NotionalRatio = NotionalRatio, 0.003 }, 0},
+		{"strength stiffness", func(j *Job) {
+			j.Sway.StrengthEI = 0.8
+			j.Methods = []Method{{Stiffness: Strength}, {Stiffness: Strength}, {}, {Stiffness: Strength}, {Stiffness: Service}}
+		}, 2},
+		{"second order", func(j *Job) {
+			so := Method{SecondOrder: true}
+			j.Methods = []Method{so, {SecondOrder: true, Allowable: true}, so, {SecondOrder: true, Stiffness: Strength}, {}}
+		}, 2},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			job := swayFrame()
+			tc.set(job)
+			res, err := Run(context.Background(), job, Options{})
+			if err != nil {
+				t.Fatal(err)
+			}
+			if len(res.Storeys) != 4 {
+				t.Fatalf("%d storeys, want 4", len(res.Storeys))
+			}
+			// Each unit alone, as the stability indices were found before
+			// they shared a factor.
+			sv := favourableSplit(job)
+			pl, err := makePlan(job, &sv)
+			if err != nil {
+				t.Fatal(err)
+			}
+			alone := &Result{Job: job, Storeys: storeysOf(job)}
+			critical := make([]float64, len(job.Combinations))
+			for i := range pl.units {
+				u := &pl.units[i]
+				if err := alone.storeyStability(u, sv.model, u.method.Stiffness, nil); err != nil {
+					t.Fatal(err)
+				}
+				if err := alone.firstOrderCritical(u, sv.model, u.method.Stiffness); err != nil {
+					t.Fatal(err)
+				}
+				critical[u.k] = minCritical(critical[u.k], u.critical)
+			}
+			for s := range res.Storeys {
+				for k, got := range res.Storeys[s].Stability {
+					if want := alone.Storeys[s].Stability[k]; got != want {
+						t.Errorf("storey %d, combination %q: %+v, alone %+v", s, job.Combinations[k].Name, got, want)
+					}
+				}
+			}
+			units := 0
+			for k, cb := range res.Combinations {
+				if cb.CriticalFactor != critical[k] {
+					t.Errorf("combination %q: αcr = %v, alone %v", cb.Name, cb.CriticalFactor, critical[k])
+				}
+				if !cb.Service && res.Storeys[0].Stability[k].Unit {
+					units++
+				}
+			}
+			if units != tc.unit {
+				t.Errorf("%d combinations take a unit storey shear at the bottom storey, want %d", units, tc.unit)
+			}
+		})
 	}
 }

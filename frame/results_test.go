@@ -1,0 +1,49 @@
+package frame
+
+import (
+	"math"
+	"testing"
+)
+
+// DisplacementsTo gives, case by case, what Displacement gives: solved,
+// imposed (a settlement), held (zero) and free rotations (NaN).
+func TestDisplacementsToMatchesDisplacement(t *testing.T) {
+	hinge := &Model{Sections: []Section{{Name: "S", E: 2e8, A: 1e-2, I: 1e-4}},
+		Nodes: []Node{{Name: "a", Support: Fixed}, {Name: "b", X: 4}, {Name: "c", X: 8, Support: Fixed}},
+		Members: []Member{{Name: "ab", Start: 0, End: 1, Release: ReleaseEnd},
+			{Name: "bc", Start: 1, End: 2, Release: ReleaseStart}},
+		Cases: []Case{{Name: "P", NodeLoads: []NodeLoad{{Node: 1, Fy: -10}}},
+			{Name: "settlement", Displacements: []NodeDisplacement{{Node: 2, Uy: -0.01}}}}}
+	for _, tc := range []struct {
+		name string
+		mo   *Model
+	}{{"every load", columnsFrame()}, {"hinge", hinge}} {
+		t.Run(tc.name, func(t *testing.T) {
+			sol, err := Solve(tc.mo)
+			if err != nil {
+				t.Fatal(err)
+			}
+			dst := make([][3]float64, len(tc.mo.Cases))
+			nan := 0
+			for v := range tc.mo.Nodes {
+				sol.DisplacementsTo(dst, v)
+				for c := range dst {
+					ux, uy, rz := sol.Displacement(c, v)
+					want := [3]float64{ux, uy, rz}
+					for d := range 3 {
+						same := dst[c][d] == want[d] || math.IsNaN(dst[c][d]) && math.IsNaN(want[d])
+						if !same {
+							t.Fatalf("node %d, case %d, direction %d: %v, Displacement gives %v", v, c, d, dst[c][d], want[d])
+						}
+						if math.IsNaN(want[d]) {
+							nan++
+						}
+					}
+				}
+			}
+			if tc.name == "hinge" && nan != len(tc.mo.Cases) {
+				t.Errorf("%d free rotations, want one per case", nan)
+			}
+		})
+	}
+}

@@ -1,0 +1,187 @@
+package frame
+
+import (
+	"errors"
+	"math"
+	"math/rand/v2"
+	"testing"
+)
+
+// sharedTol is how closely SolveCases must agree with SolveWith, relative
+// to the largest value of the same kind: both solve the same equations on
+// the same factor, so they agree to the last bit unless something differs.
+const sharedTol = 1e-12
+
+// sharedFrame is randomFrame of 3 bays and 4 storeys (releases,
+// semi-rigid ends, rigid zones) on bases with springs, and two sets of
+// cases: each
+// with distributed, point, moment and thermal member loads, node loads
+// and a settlement of a different support.
+func sharedFrame(seed uint64) (mo *Model, axial []float64, first, second []Case) {
+	rng := rand.New(rand.NewPCG(seed, 0))
+	mo, axial = randomFrame(rng, 3, 4)
+	for i := range mo.Sections {
+		mo.Sections[i].Alpha, mo.Sections[i].Depth = 1e-5, 0.4
+	}
+	// The four bases: fixed, pinned with a rotational spring, held in X
+	// on vertical and rotational springs, fixed.
+	mo.Nodes[0].Support, mo.Nodes[3].Support = Fixed, Fixed
+	mo.Nodes[1].Support, mo.Nodes[1].Springs = Pinned, [3]float64{0, 0, 5e3 * (1 + rng.Float64())}
+	mo.Nodes[2].Support, mo.Nodes[2].Springs = HoldX, [3]float64{0, 1e5, 2e4}
+	cases := func(settle int) []Case {
+		var out []Case
+		for c := range 4 {
+			cs := Case{Name: string(rune('A' + c))}
+			for range 4 {
+				m := rng.IntN(len(mo.Members))
+				l := mo.Length(m)
+				switch c {
+				case 0:
+					cs.MemberLoads = append(cs.MemberLoads, MemberLoad{Member: m, From: 0.1 * l, To: 0.9 * l, W: -5 * rng.Float64(), WEnd: -8})
+				case 1:
+					cs.MemberLoads = append(cs.MemberLoads, MemberLoad{Member: m, Point: true, At: l * rng.Float64(), P: -20},
+						MemberLoad{Member: m, Moment: true, At: l / 3, M: 7})
+				case 2:
+					cs.MemberLoads = append(cs.MemberLoads, MemberLoad{Member: m, Thermal: true, DT: 15, DTGrad: -10})
+				case 3:
+					cs.NodeLoads = append(cs.NodeLoads, NodeLoad{Node: rng.IntN(len(mo.Nodes)), Fx: 10 * rng.Float64(), Fy: -4, M: 3})
+				}
+			}
+			out = append(out, cs)
+		}
+		return append(out, Case{Name: "settlement", Displacements: []NodeDisplacement{{Node: settle, Uy: -0.01, Rz: 0.002}}})
+	}
+	mo.Cases = cases(0)
+	return mo, axial, mo.Cases, cases(3)
+}
+
+// compareSolutions checks that got and want agree in every node's
+// displacements and reaction and every member's end forces, each case,
+// to sharedTol of the largest of its kind.
+func compareSolutions(t *testing.T, got, want *Solution) {
+	t.Helper()
+	mo := want.Model()
+	type value struct {
+		what string
+		got  float64
+		want float64
+	}
+	var kinds [3][]value // displacements, reactions, end forces
+	for c := range mo.Cases {
+		for v := range mo.Nodes {
+			gx, gy, gr := got.Displacement(c, v)
+			wx, wy, wr := want.Displacement(c, v)
+			kinds[0] = append(kinds[0], value{"ux", gx, wx}, value{"uy", gy, wy}, value{"rz", gr, wr})
+			gx, gy, gr = got.Reaction(c, v)
+			wx, wy, wr = want.Reaction(c, v)
+			kinds[1] = append(kinds[1], value{"Rx", gx, wx}, value{"Ry", gy, wy}, value{"M", gr, wr})
+		}
+		for m := range mo.Members {
+			g, w := got.EndForces(c, m), want.EndForces(c, m)
+			for i := range 6 {
+				kinds[2] = append(kinds[2], value{"end force", g[i], w[i]})
+			}
+		}
+	}
+	for _, vs := range kinds {
+		big := 0.0
+		for _, v := range vs {
+			big = max(big, math.Abs(v.want))
+		}
+		for _, v := range vs {
+			if !(math.Abs(v.got-v.want) <= sharedTol*big) {
+				t.Fatalf("%s: %.17g, SolveWith gives %.17g", v.what, v.got, v.want)
+			}
+		}
+	}
+}
+
+// SolveCases on a solution's factor gives what SolveWith gives the same
+// model with those cases, which assembles and factors the stiffness
+// again: first and second order, on frames with releases, semi-rigid
+// ends, rigid zones, springs and settlements of supports other than those
+// of the solution's own cases.
+func TestSolveCasesMatchesSolveWith(t *testing.T) {
+	for _, tc := range []struct {
+		name   string
+		seed   uint64
+		second bool
+	}{{"first order", 3, false}, {"first order, other frame", 8, false}, {"second order", 3, true}} {
+		t.Run(tc.name, func(t *testing.T) {
+			mo, axial, _, more := sharedFrame(tc.seed)
+			var opt Options
+			if tc.second {
+				opt.Axial = axial
+			}
+			sol, err := SolveWith(mo, opt)
+			if err != nil {
+				t.Fatal(err)
+			}
+			got, err := sol.SolveCases(more)
+			if err != nil {
+				t.Fatal(err)
+			}
+			m2 := *mo
+			m2.Cases = more
+			want, err := SolveWith(&m2, opt)
+			if err != nil {
+				t.Fatal(err)
+			}
+			compareSolutions(t, got, want)
+			if got.Cond() != want.Cond() {
+				t.Errorf("condition %v, SolveWith gives %v", got.Cond(), want.Cond())
+			}
+			// sol itself is unchanged: its own cases still agree.
+			again, err := SolveWith(mo, opt)
+			if err != nil {
+				t.Fatal(err)
+			}
+			compareSolutions(t, sol, again)
+		})
+	}
+}
+
+// SolveCases refuses what SolveWith refuses in the cases: a load on a
+// member that is not there, and a moment at a node whose rotation is
+// free (every member end released there, no support holding it).
+func TestSolveCasesValidates(t *testing.T) {
+	sec := []Section{{Name: "S", E: 2e8, A: 1e-2, I: 1e-4}}
+	mo := &Model{Sections: sec,
+		Nodes: []Node{{Name: "a", Support: Fixed}, {Name: "b", X: 4}, {Name: "c", X: 8, Support: Fixed}},
+		Members: []Member{{Name: "ab", Start: 0, End: 1, Release: ReleaseEnd},
+			{Name: "bc", Start: 1, End: 2, Release: ReleaseStart}},
+		Cases: []Case{{Name: "P", NodeLoads: []NodeLoad{{Node: 1, Fy: -10}}}}}
+	sol, err := Solve(mo)
+	if err != nil {
+		t.Fatal(err)
+	}
+	t.Run("member not in the model", func(t *testing.T) {
+		_, err := sol.SolveCases([]Case{{Name: "w", MemberLoads: []MemberLoad{{Member: 5, From: 0, To: 1, W: 1, WEnd: 1}}}})
+		var ve ValidationErrors
+		if !errors.As(err, &ve) {
+			t.Fatalf("got %v, want a ValidationErrors", err)
+		}
+	})
+	t.Run("moment at a free rotation", func(t *testing.T) {
+		_, err := sol.SolveCases([]Case{{Name: "M", NodeLoads: []NodeLoad{{Node: 1, M: 5}}}})
+		m2 := *mo
+		m2.Cases = []Case{{Name: "M", NodeLoads: []NodeLoad{{Node: 1, M: 5}}}}
+		_, want := Solve(&m2)
+		var me *MechanismError
+		if !errors.As(err, &me) || want == nil || err.Error() != want.Error() {
+			t.Fatalf("got %v, SolveWith gives %v", err, want)
+		}
+	})
+	t.Run("a load it can carry", func(t *testing.T) {
+		// Two propped cantilevers joined by a hinge: a load P at the hinge
+		// is shared equally, M = P L/2 at each fixed end (statics).
+		got, err := sol.SolveCases([]Case{{Name: "P2", NodeLoads: []NodeLoad{{Node: 1, Fy: -20}}}})
+		if err != nil {
+			t.Fatal(err)
+		}
+		_, fy, m := got.Reaction(0, 0)
+		if math.Abs(fy-10) > 1e-9 || math.Abs(m-40) > 1e-9 {
+			t.Errorf("reaction at a: Fy = %v, M = %v; want 10, 40", fy, m)
+		}
+	})
+}
