@@ -48,32 +48,37 @@ func checkEquations(mo *Model) error {
 }
 
 // The estimate of a run's peak memory (resident set), made before anything
-// large is allocated: what is live at the run's peak, times the growth of
-// the heap the garbage collector allows past it, and the runtime's and the
-// program's own (docs/errors.md gives the terms and the runs measured).
-// What is live, 8-byte values for the solver's:
+// large is allocated from the sizes of the model (docs/errors.md gives the
+// terms and the runs they are fitted to), in bytes:
 //
-//   - bandCopies band matrices of n × (kb + 1): the stiffness and its
+//	growth × (solutions × (8 n nc + 48 loads + elements + 8 n (kb + 1))
+//	          + perMember × members)
+//	+ bandWork × 8 n (kb + 1) + 8 kb² + held + baseMemory
+//
+// for n equations of half-bandwidth kb (kb + 1 values a row), nc load
+// columns and as many member loads as the model has:
+//
+//   - each solution held at once (Options.Solutions, 1 at least): its
+//     displacements, six fixed-end forces for each member load, each
+//     member's element, and its factor (kept to solve more cases on it);
+//   - what the caller holds for each member (Options.PerMember);
+//   - both times the growth of the heap past what is live at the run's
+//     peak (Options.Growth; 2 when not given: the collector's default
+//     target, GOGC=100, which a run reaches when it makes as much garbage
+//     again once its live set is formed);
+//   - bandWork band matrices of the solve itself: the stiffness, its
 //     factor, the substitution's lists of the factor's terms (12 bytes an
-//     entry each way, three matrices' worth, while the envelopes are not
-//     yet formed), the factor and the trial matrices of the critical load
-//     factors' search (while they are): four, fitted to the runs
-//     measured; with the kb × kb block of the pivot watch while a
-//     mechanism is looked for;
-//   - each solution held at once (Options.Solutions): n × nc
-//     displacements (nc load columns), six fixed-end forces for each
-//     member load, and each member's element;
-//   - what the caller holds: Options.PerMember for each member and
-//     Options.Held.
-//
-// The heap grows to about twice what is live (GOGC=100) once the run
-// makes as much garbage again after its live set is formed, as the
-// critical load factors, the storeys' stability and every second-order
-// solve do: collectorGrowth.
+//     entry each way: three matrices' worth) and the elastic stiffness's
+//     factor that the critical load factors are found with, made beside
+//     them, six in all, twice over for the heap's growth (fitted: 12);
+//     the kb × kb block of the pivot watch while a mechanism is looked
+//     for;
+//   - what the caller adds (Options.Held), and baseMemory: the runtime's,
+//     the program's and the model's own (fitted).
 const (
-	bandCopies      = 4
-	collectorGrowth = 2
-	baseMemory      = 14 << 20
+	bandWork      = 12
+	defaultGrowth = 2
+	baseMemory    = 15 << 20
 )
 
 // elementBytes is the memory of one member's element in a solution.
@@ -90,12 +95,17 @@ func memory(mo *Model, n, band int, opt Options) float64 {
 		loads += len(mo.Cases[c].MemberLoads)
 	}
 	members := float64(len(mo.Members))
-	solution := 8*(fn*nc+6*float64(loads)) + elementBytes*members
-	live := 8*(bandCopies*fn*(kb+1)+kb*kb) + float64(max(opt.Solutions, 1))*solution + opt.PerMember*members
-	if opt.Held != nil {
-		live += opt.Held(Info{Equations: n, Bandwidth: band, Columns: len(mo.Cases)})
+	matrix := 8 * fn * (kb + 1)
+	solution := 8*(fn*nc+6*float64(loads)) + elementBytes*members + matrix
+	growth := opt.Growth
+	if growth == 0 {
+		growth = defaultGrowth
 	}
-	return collectorGrowth*live + baseMemory
+	est := growth*(float64(max(opt.Solutions, 1))*solution+opt.PerMember*members) + bandWork*matrix + 8*kb*kb + baseMemory
+	if opt.Held != nil {
+		est += opt.Held(Info{Equations: n, Bandwidth: band, Columns: len(mo.Cases)})
+	}
+	return est
 }
 
 // checkMemory refuses a run estimated to need more than MaxMemory.

@@ -25,11 +25,12 @@ func TestModelsPastTheLimitsAreRefused(t *testing.T) {
 			// A star: one hub joined to 12,000 pinned feet. Every foot's
 			// rotation couples to the hub, so reverse Cuthill–McKee cannot
 			// narrow the band: 12,003 equations and a half-bandwidth of 12,001
-			// (the hub is numbered next to the last foot); four band
-			// matrices' worth, 4 × 12,003 × 12,002 values, and the pivot
-			// watch's block, 12,001², × 8 bytes = 5.37 GiB, the 12,000
-			// members' elements, twice that for the collector's growth, and
-			// 14 MiB of the runtime's own: 10.8 GiB.
+			// (the hub is numbered next to the last foot). A band matrix is
+			// 12,003 × 12,002 values, 8 bytes each: 1.07 GiB. The solution,
+			// with its factor and the 12,000 members' elements, twice for the
+			// collector's growth, 2.16 GiB; the solve's twelve band matrices'
+			// worth, 12.88 GiB; the pivot watch's block, 12,001² values,
+			// 1.07 GiB; and 15 MiB of the runtime's own: 16.1 GiB.
 			name: "a stiffness band past the memory limit",
 			model: func() *Model {
 				const feet = 12000
@@ -41,7 +42,7 @@ func TestModelsPastTheLimitsAreRefused(t *testing.T) {
 				}
 				return mo
 			},
-			want: "the model is too large: solving needs about 10.8 GiB of memory (12,003 equations, half-bandwidth 12,001, 0 load cases); the limit is 2.0 GiB",
+			want: "the model is too large: solving needs about 16.1 GiB of memory (12,003 equations, half-bandwidth 12,001, 0 load cases); the limit is 2.0 GiB",
 		},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
@@ -71,23 +72,26 @@ func TestThousands(t *testing.T) {
 func TestMemoryEstimateArithmetic(t *testing.T) {
 	mo := cantilever(4, 200e6, 5e-3, 8e-5)
 	mo.Cases[0].MemberLoads = []MemberLoad{{Member: 0, To: 4, W: 10, WEnd: 10}}
-	// Band terms: 4 matrices of 3 × 3 values and the pivot watch's 2 × 2
-	// block, 40 values, 320 bytes. A solution: 3 × 1 displacements and 6
-	// fixed-end forces, 72 bytes, and the member's element.
-	const band, solution = 320.0, 72.0
+	// A band matrix: 3 × 3 values, 72 bytes. A solution: 3 × 1
+	// displacements and 6 fixed-end forces, 72 bytes, the member's element
+	// and its factor. The solve's 12 band matrices, 864 bytes, and the
+	// pivot watch's 2 × 2 block, 32 bytes; 15 MiB of the runtime's own.
+	const matrix = 72.0
+	solution := 72 + elementBytes + matrix
+	rest := 12*matrix + 32 + 15<<20
 	for _, tc := range []struct {
 		name string
 		opt  Options
-		live float64
+		want float64
 	}{
-		{"the solver alone", Options{}, band + solution + elementBytes},
-		{"two solutions, 1000 bytes a member and 5000 held", Options{PerMember: 1000, Solutions: 2,
+		{"the solver alone, the heap grown to twice", Options{}, 2*solution + rest},
+		{"two solutions, 1000 bytes a member, the heap grown by half, 5000 added", Options{PerMember: 1000, Solutions: 2, Growth: 1.5,
 			Held: func(info Info) float64 {
 				if info != (Info{Equations: 3, Bandwidth: 2, Columns: 1}) {
 					t.Errorf("Held asked for %+v, want 3 equations, half-bandwidth 2, 1 column", info)
 				}
 				return 5000
-			}}, band + 2*(solution+elementBytes) + 1000 + 5000},
+			}}, 1.5*(2*solution+1000) + 5000 + rest},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
 			got, info, err := EstimateMemory(mo, tc.opt)
@@ -97,9 +101,8 @@ func TestMemoryEstimateArithmetic(t *testing.T) {
 			if info != (Info{Equations: 3, Bandwidth: 2, Columns: 1}) {
 				t.Fatalf("info %+v, want 3 equations, half-bandwidth 2, 1 column", info)
 			}
-			// Twice what is live (the collector's growth) and 14 MiB.
-			if want := 2*tc.live + 14<<20; got != want {
-				t.Errorf("estimate %.0f bytes, want %.0f", got, want)
+			if got != tc.want {
+				t.Errorf("estimate %.0f bytes, want %.0f", got, tc.want)
 			}
 		})
 	}

@@ -11,25 +11,32 @@ import (
 
 // The terms of a run's peak memory that the analysis adds to the
 // solver's (frame.MaxMemory, frame.Options), counted before anything is
-// solved from the sizes of the job alone:
+// solved from the sizes of the job alone, n equations of half-bandwidth
+// kb, and fitted to the runs measured (docs/errors.md):
 //
 //   - the envelopes of the members' stations (envelope.StationBytes each,
-//     at the job's stations and the column faces), of the nodes'
-//     displacements and of the storeys' drifts (three extremes each, as a
-//     station's);
-//   - the Lanczos vectors of the critical load factors: two of
-//     n + 6 × members values (the members' own degrees of freedom of the
-//     geometric stiffness, SubElements − 1 inner nodes of two each) a
-//     step, lanczosFirst steps for the first combination and
-//     lanczosOthers for each other solved beside it;
-//   - one solve of the storeys' stability: n × (storeys + 2) values;
+//     at the job's stations and the column faces), and of the nodes'
+//     displacements and the storeys' drifts (three extremes each, as a
+//     station's): held with the solution, times the heap's growth;
+//   - a first-order run holds its solution and envelopes at its end, and
+//     makes less garbage once its envelopes are formed than they and the
+//     solution take: the heap grows past them by firstGrowth;
 //   - where combinations are analysed apart (second order, a reduced
-//     stiffness), the solution of every load case of the one being
+//     stiffness): the solution of every load column of the one being
 //     enveloped beside the first-order solution, and its envelopes (of
-//     forces: a strength combination's) beside the merged ones.
+//     forces: a strength combination's) beside the merged ones, the heap
+//     grown to twice them (frame's default: every combination's solves
+//     make as much garbage again); and for each second-order combination
+//     unitBands band matrices of n × (kb + 1): the first-order solution its
+//     iteration starts from, kept on its own factor for its storeys, with
+//     the heap's growth over it.
+//
+// The critical load factors' Lanczos vectors and the storeys' solves are
+// not counted apart: they are formed before the envelopes, on the
+// solution's factor, and take less than the envelopes then do.
 const (
-	lanczosFirst  = 12
-	lanczosOthers = 6
+	firstGrowth = 1.3
+	unitBands   = 2.5
 )
 
 // memoryOptions returns the solver options that count what job's run
@@ -45,39 +52,34 @@ func memoryOptions(job *Job, sv solved, lay *patterns.Layout, opt Options) frame
 		stations += len(xs)
 	}
 	columns := 0
-	storeys := storeysOf(job)
-	for _, s := range storeys {
+	for _, s := range storeysOf(job) {
 		columns += len(s.Columns)
 	}
-	apart, first := false, 0
+	apart, second := false, 0
 	for k := range job.Combinations {
 		m := job.methodOf(k)
 		apart = apart || m.SecondOrder || m.Stiffness != Nominal
-		if !m.SecondOrder {
-			first++
+		if m.SecondOrder {
+			second++
 		}
 	}
-	envelopes := float64(stations) * sb
-	solutions := 1
-	if apart {
-		// Those of a strength combination, without deflections.
-		envelopes += float64(stations) * envelope.StationBytes(pieces, false, opt.allPieces)
-		solutions = 2
-	}
 	members := float64(len(mo.Members))
+	envelopes := float64(stations) * sb
 	values := float64(len(mo.Nodes)+columns) * sb
+	if !apart {
+		return frame.Options{
+			PerMember: envelopes / max(members, 1),
+			Growth:    firstGrowth,
+			Held:      func(frame.Info) float64 { return firstGrowth * values },
+		}
+	}
+	envelopes += float64(stations) * envelope.StationBytes(pieces, false, opt.allPieces)
 	return frame.Options{
 		PerMember: envelopes / max(members, 1),
-		Solutions: solutions,
+		Solutions: 2,
 		Held: func(info frame.Info) float64 {
-			n := float64(info.Equations)
-			steps := float64(lanczosFirst + lanczosOthers*max(first-1, 0))
-			lanczos := 16 * (n + 6*members) * steps
-			var storey float64
-			if len(storeys) > 0 {
-				storey = 8 * n * float64(len(storeys)+2)
-			}
-			return values + lanczos + storey
+			n, kb := float64(info.Equations), float64(min(info.Bandwidth, max(info.Equations-1, 0)))
+			return 2*values + unitBands*float64(second)*8*n*(kb+1)
 		},
 	}
 }

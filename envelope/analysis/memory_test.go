@@ -12,23 +12,25 @@ import (
 // of portalJob, counted by hand from the formula documented there: 3
 // members at 5 stations, no column faces, no pattern pieces and no
 // service combination (a station of StationBytes(0, false, false)); 4
-// nodes and the 2 columns of its one storey; 6 equations; one
-// combination.
+// nodes and the 2 columns of its one storey; 6 equations, half-bandwidth
+// 5; one combination.
 func TestMemoryTermsByHand(t *testing.T) {
 	sb := envelope.StationBytes(0, false, false)
-	// Lanczos: 2 vectors of 6 + 6 × 3 values a step, 12 steps for the one
-	// combination: 16 × 24 × 12 bytes. The storey's solve: 6 × (1 + 2)
-	// values. The envelopes of the nodes and drifts: 6 stations' worth.
-	held := 16*24*12 + 8*6*3 + 6*sb
 	for _, tc := range []struct {
 		name      string
 		method    Method
 		perMember float64
 		solutions int
+		growth    float64
+		held      float64
 	}{
-		{"first order", Method{}, 5 * sb, 1},
-		// Its own solution and envelopes beside the first-order ones.
-		{"second order", Method{SecondOrder: true}, 10 * sb, 2},
+		// The nodes' and drifts' envelopes, 6 stations' worth, grown by
+		// 1.3 as the members'.
+		{"first order", Method{}, 5 * sb, 0, 1.3, 1.3 * 6 * sb},
+		// Its own solution and envelopes beside the first-order ones, the
+		// heap grown to twice (frame's default); its first-order solution's
+		// factor, 6 × 6 values, 2.5 times.
+		{"second order", Method{SecondOrder: true}, 10 * sb, 2, 0, 2*6*sb + 2.5*8*6*6},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
 			job := portalJob(tc.method, NoNotional)
@@ -38,11 +40,11 @@ func TestMemoryTermsByHand(t *testing.T) {
 				t.Fatal(err)
 			}
 			opt := memoryOptions(job, sv, lay, Options{})
-			if opt.PerMember != tc.perMember || opt.Solutions != tc.solutions {
-				t.Errorf("%.0f bytes a member, %d solutions; want %.0f and %d", opt.PerMember, opt.Solutions, tc.perMember, tc.solutions)
+			if opt.PerMember != tc.perMember || opt.Solutions != tc.solutions || opt.Growth != tc.growth {
+				t.Errorf("%.0f bytes a member, %d solutions, growth %g; want %.0f, %d and %g", opt.PerMember, opt.Solutions, opt.Growth, tc.perMember, tc.solutions, tc.growth)
 			}
-			if got := opt.Held(frame.Info{Equations: 6, Bandwidth: 5, Columns: 1}); got != held {
-				t.Errorf("held %.0f bytes, want %.0f", got, held)
+			if got := opt.Held(frame.Info{Equations: 6, Bandwidth: 5, Columns: 1}); got != tc.held {
+				t.Errorf("held %.0f bytes, want %.0f", got, tc.held)
 			}
 		})
 	}

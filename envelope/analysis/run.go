@@ -184,7 +184,7 @@ func Run(ctx context.Context, job *Job, opt Options) (*Result, error) {
 	solver := opt.Solver
 	held := memoryOptions(job, sv, lay, opt)
 	solver.PerMember += held.PerMember
-	solver.Held, solver.Solutions = held.Held, held.Solutions
+	solver.Held, solver.Solutions, solver.Growth = held.Held, held.Solutions, held.Growth
 	// The elastic stiffness with the sections as given, factored for the
 	// critical load factors (every run finds them) beside the solve, whose
 	// assembly and factorization take one processor.
