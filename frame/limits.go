@@ -53,7 +53,7 @@ func checkEquations(mo *Model) error {
 //
 //	growth × (solutions × (8 n nc + 48 loads + elements + 8 n (kb + 1))
 //	          + perMember × members)
-//	+ bandWork × 8 n (kb + 1) + 8 kb² + held + baseMemory
+//	+ bandWork × 8 n (kb + 1) + 8 kb² + pencils + held + baseMemory
 //
 // for n equations of half-bandwidth kb (kb + 1 values a row), nc load
 // columns and as many member loads as the model has:
@@ -73,16 +73,24 @@ func checkEquations(mo *Model) error {
 //     them, six in all, twice over for the heap's growth (fitted: 12);
 //     the kb × kb block of the pivot watch while a mechanism is looked
 //     for;
+//   - each member's pencil and element of the critical load factors'
+//     search (NewBuckling), made beside the solve: pencilBytes;
 //   - what the caller adds (Options.Held), and baseMemory: the runtime's,
 //     the program's and the model's own (fitted).
 const (
 	bandWork      = 12
 	defaultGrowth = 2
-	baseMemory    = 15 << 20
+	baseMemory    = 13 << 20
 )
 
-// elementBytes is the memory of one member's element in a solution.
-const elementBytes = float64(unsafe.Sizeof(element{}))
+// elementBytes is the memory of one member's element in a solution, and
+// pencilBytes that of its pencil in the critical load factors' search,
+// with the 32 entries of Kg a member with no release lists, and its
+// element there.
+const (
+	elementBytes = float64(unsafe.Sizeof(element{}))
+	pencilBytes  = float64(unsafe.Sizeof(pencil{})+32*unsafe.Sizeof(gEntry{})) + elementBytes
+)
 
 // memory returns the estimated peak memory, in bytes, of solving mo (n
 // equations of half-bandwidth band) with what the caller holds (opt).
@@ -101,7 +109,8 @@ func memory(mo *Model, n, band int, opt Options) float64 {
 	if growth == 0 {
 		growth = defaultGrowth
 	}
-	est := growth*(float64(max(opt.Solutions, 1))*solution+opt.PerMember*members) + bandWork*matrix + 8*kb*kb + baseMemory
+	est := growth*(float64(max(opt.Solutions, 1))*solution+opt.PerMember*members) +
+		bandWork*matrix + 8*kb*kb + pencilBytes*members + baseMemory
 	if opt.Held != nil {
 		est += opt.Held(Info{Equations: n, Bandwidth: band, Columns: len(mo.Cases)})
 	}

@@ -30,7 +30,8 @@ func TestModelsPastTheLimitsAreRefused(t *testing.T) {
 			// with its factor and the 12,000 members' elements, twice for the
 			// collector's growth, 2.16 GiB; the solve's twelve band matrices'
 			// worth, 12.88 GiB; the pivot watch's block, 12,001² values,
-			// 1.07 GiB; and 15 MiB of the runtime's own: 16.1 GiB.
+			// 1.07 GiB; the members' pencils for the critical load factors,
+			// 53 MiB; and 13 MiB of the runtime's own: 16.2 GiB.
 			name: "a stiffness band past the memory limit",
 			model: func() *Model {
 				const feet = 12000
@@ -42,7 +43,7 @@ func TestModelsPastTheLimitsAreRefused(t *testing.T) {
 				}
 				return mo
 			},
-			want: "the model is too large: solving needs about 16.1 GiB of memory (12,003 equations, half-bandwidth 12,001, 0 load cases); the limit is 2.0 GiB",
+			want: "the model is too large: solving needs about 16.2 GiB of memory (12,003 equations, half-bandwidth 12,001, 0 load cases); the limit is 2.0 GiB",
 		},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
@@ -75,10 +76,11 @@ func TestMemoryEstimateArithmetic(t *testing.T) {
 	// A band matrix: 3 × 3 values, 72 bytes. A solution: 3 × 1
 	// displacements and 6 fixed-end forces, 72 bytes, the member's element
 	// and its factor. The solve's 12 band matrices, 864 bytes, and the
-	// pivot watch's 2 × 2 block, 32 bytes; 15 MiB of the runtime's own.
+	// pivot watch's 2 × 2 block, 32 bytes; the member's pencil; 13 MiB of
+	// the runtime's own.
 	const matrix = 72.0
 	solution := 72 + elementBytes + matrix
-	rest := 12*matrix + 32 + 15<<20
+	rest := 12*matrix + 32 + pencilBytes + 13<<20
 	for _, tc := range []struct {
 		name string
 		opt  Options
