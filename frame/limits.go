@@ -70,7 +70,7 @@ func checkEquations(mo *Model) error {
 //     factor, the substitution's lists of the factor's terms (12 bytes an
 //     entry each way: three matrices' worth) and the elastic stiffness's
 //     factor that the critical load factors are found with, made beside
-//     them, six in all, twice over for the heap's growth (fitted: 12);
+//     them, six in all, with the heap's growth past them (fitted: 11);
 //     the kb × kb block of the pivot watch while a mechanism is looked
 //     for;
 //   - each member's pencil and element of the critical load factors'
@@ -78,9 +78,9 @@ func checkEquations(mo *Model) error {
 //   - what the caller adds (Options.Held), and baseMemory: the runtime's,
 //     the program's and the model's own (fitted).
 const (
-	bandWork      = 12
+	bandWork      = 11
 	defaultGrowth = 2
-	baseMemory    = 13 << 20
+	baseMemory    = 14 << 20
 )
 
 // elementBytes is the memory of one member's element in a solution, and

@@ -32,7 +32,7 @@ import (
 // The critical load factors' Lanczos vectors and the storeys' solves are
 // not counted apart: they are formed before the envelopes, on the
 // solution's factor, and take less than the envelopes then do.
-const firstGrowth = 1.3
+const firstGrowth = 1.2
 
 // memoryOptions returns the solver options that count what job's run
 // holds beside the first-order solution: lay is the job's patterned
