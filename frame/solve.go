@@ -151,10 +151,15 @@ func SolveWith(mo *Model, opt Options) (*Solution, error) {
 	// sees the scaling.
 	d := scalePow2(data, n, kb)
 
-	// Factor a copy with gonum's LAPACK band Cholesky.
-	a := blas64.SymmetricBand{Uplo: blas.Upper, N: n, K: kb, Data: slices.Clone(data), Stride: w}
-	u, ok := lapack64.Pbtrf(a)
+	// Factor a copy with gonum's LAPACK band Cholesky: the estimate reads
+	// the matrix. Without it the matrix is factored in place (a failed
+	// factorization is diagnosed on a matrix assembled anew below).
 	estimate := !opt.SkipCondition
+	a := blas64.SymmetricBand{Uplo: blas.Upper, N: n, K: kb, Data: data, Stride: w}
+	if estimate {
+		a.Data = slices.Clone(data)
+	}
+	u, ok := lapack64.Pbtrf(a)
 	if ok && estimate {
 		sol.cond = equilibratedCond(data, u.Data, n, kb)
 	} else if ok {
