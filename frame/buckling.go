@@ -722,9 +722,8 @@ func (b *Buckling) definite(lambda float64, axial []float64, sc *certifyScratch)
 	}
 	if len(sc.data) != b.n*(b.kb+1) {
 		sc.data = make([]float64, b.n*(b.kb+1))
-	} else {
-		clear(sc.data)
 	}
+	clear(sc.data) // fresh memory too: written before it is read (see Solution.rhs)
 	data := sc.data
 	sol.assembleTo(data, b.kb, elems)
 	_, ok := lapack64.Pbtrf(blas64.SymmetricBand{Uplo: blas.Upper, N: b.n, K: b.kb, Data: data, Stride: b.kb + 1})

@@ -347,6 +347,7 @@ func scaleRows(x, scale []float64, nc int) {
 // with kb superdiagonals: entry (i, j), j >= i, at [i*(kb+1)+j-i].
 func (sol *Solution) assemble(n, kb int) []float64 {
 	data := make([]float64, n*(kb+1))
+	clear(data) // written before it is read: see rhs
 	sol.assembleTo(data, kb, sol.elems)
 	return data
 }
