@@ -296,9 +296,9 @@ func (j *Job) tauB(secs []frame.Section, members []frame.Member, axial []float64
 // less than the tolerance. It sets u.axial, u.iteration and u.final, and
 // u's critical load factors from the first-order axial forces.
 //
-// The first-order solve with the sections as given is made on the factor
-// of r.sol, whose stiffness it is (the same numbers to the last bit,
-// frame.Solution.SolveCases). The steps between leave out the condition
+// The first-order solve is made on the factor of the first-order
+// solution of its stiffness (firstOrder; the same numbers to the last
+// bit, frame.Solution.SolveCases). The steps between leave out the condition
 // estimate (frame.Options.SkipCondition): their results are not reported,
 // and the last solve, with the axial forces and τb reductions the
 // envelopes use, is estimated, refused and warned of as every solve is.
@@ -313,8 +313,11 @@ func (r *Result) iterate(u *unit, base *frame.Model, stiff Stiffness) error {
 	mo := combined(base, secs, mems, u.cb, u.scale, nil)
 	var sol *frame.Solution
 	var err error
-	if stiff == Nominal && r.sol != nil && shareFactors {
-		sol, err = r.sol.SolveCases(mo.Cases)
+	if shareFactors {
+		var first *frame.Solution
+		if first, err = r.firstOrder(base, stiff); err == nil {
+			sol, err = first.SolveCases(mo.Cases)
+		}
 	} else {
 		sol, err = frame.SolveWith(mo, r.solver)
 	}
@@ -470,6 +473,39 @@ func (r *Result) criticalFactors(base *frame.Model, stiff Stiffness, ns [][]floa
 	return bo.b.Factors(ns)
 }
 
+// firstOnce is the first-order solution of one stiffness, made by the
+// first combination that needs it.
+type firstOnce struct {
+	once sync.Once
+	sol  *frame.Solution
+	err  error
+}
+
+// firstOrder returns a first-order solution with stiffness stiff of base's
+// nodes, sections and members, on whose factor more cases are solved
+// (frame.Solution.SolveCases): r.sol with the sections as given, else one
+// with no load, solved once per stiffness for every combination.
+func (r *Result) firstOrder(base *frame.Model, stiff Stiffness) (*frame.Solution, error) {
+	if stiff == Nominal && r.sol != nil {
+		return r.sol, nil
+	}
+	r.mu.Lock()
+	if r.firsts == nil {
+		r.firsts = map[Stiffness]*firstOnce{}
+	}
+	fo := r.firsts[stiff]
+	if fo == nil {
+		fo = &firstOnce{}
+		r.firsts[stiff] = fo
+	}
+	r.mu.Unlock()
+	fo.once.Do(func() {
+		secs, mems := r.Job.stiffnessOf(base, stiff)
+		fo.sol, fo.err = frame.SolveWith(&frame.Model{Nodes: base.Nodes, Sections: secs, Members: mems, Cases: []frame.Case{{Name: "no load"}}}, r.solver)
+	})
+	return fo.sol, fo.err
+}
+
 // ErrBuckles marks a combination under which the frame buckles.
 var ErrBuckles = errors.New("the frame buckles")
 
@@ -598,11 +634,12 @@ func (r *Result) envelopes(pl *plan, sv *solved, lay *patterns.Layout, reqs []re
 				return nil, err
 			}
 		} else {
-			// The storeys' first-order analyses: with the sections as
-			// given, on the factor of r.sol.
+			// The storeys' first-order analyses, on the factor of the
+			// first-order solution of the stiffness (its own solve where
+			// that failed: its error names the storeys).
 			var first *frame.Solution
-			if g.stiff == Nominal && shareFactors {
-				first = r.sol
+			if shareFactors {
+				first, _ = r.firstOrder(sv.model, g.stiff)
 			}
 			if err := r.storeyStability(&pl.units[g.units[0]], sv.model, g.stiff, first); err != nil {
 				return nil, err
