@@ -30,8 +30,23 @@ func bandSolve(u []float64, n, kb int, x []float64, nrhs int) {
 // factored in u: it overwrites x with D (U⁻¹ U⁻ᵀ) D x, scaling each
 // block's rows as they are packed and unpacked. With powers of two in d
 // that is scaleRows, bandSolve and scaleRows again to the last bit.
+//
+// One column (a step of a second-order iteration) is solved by the plain
+// vector substitutions, bandSolveVec, in the same order of operations:
+// listing the factor's terms would cost more than using them once.
 func bandSolveScaled(u []float64, n, kb int, x []float64, nrhs int, d []float64) {
 	if nrhs == 0 {
+		return
+	}
+	if nrhs == 1 {
+		x = x[:n]
+		for i := range d {
+			x[i] *= d[i]
+		}
+		bandSolveVec(u, n, kb, x)
+		for i := range d {
+			x[i] *= d[i]
+		}
 		return
 	}
 	newBandSolver(u, n, kb).solveScaled(x, nrhs, d)
@@ -90,50 +105,6 @@ func (bs *bandSolver) solveScaled(x []float64, nrhs int, d []float64) {
 		}()
 	}
 	wg.Wait()
-}
-
-// solveColumn overwrites x (n values) with U⁻¹ U⁻ᵀ x: bandSolve of one
-// column to the last bit, for the solves of the condition estimate
-// (invNorm1), repeated on one factor, where listing the factor's terms
-// (newTerms: 12 bytes for each of its entries, twice) would cost more
-// memory than the solves are worth. Each row takes the same terms in the
-// same order as substitute, subtracted (exactly adding minus the factor)
-// and times the reciprocal of the diagonal; a zero factor changes
-// nothing, as its term left out. The forward substitution is made by
-// vector updates along the rows of U, which add each row's terms in the
-// order substitute does, reading U row by row.
-func solveColumn(u []float64, n, kb int, x []float64) {
-	w := kb + 1
-	x = x[:n]
-	start := n
-	for i, v := range x {
-		if v != 0 {
-			start = i
-			break
-		}
-	}
-	// Forward: Uᵀ y = x. Row k is final once the rows above it have been
-	// taken from it; it is then taken from the rows below, k + 1 up: row i
-	// takes the rows from max(start, i − kb) up, in that order.
-	for k := start; k < n; k++ {
-		x[k] *= 1 / u[k*w]
-		yk := x[k]
-		row := u[k*w+1 : k*w+min(w, n-k)]
-		below := x[k+1 : k+1+len(row)]
-		for j, v := range row {
-			below[j] -= v * yk
-		}
-	}
-	// Backward: U x = y, row i from the rows i + j for j from 1 up.
-	for i := n - 1; i >= 0; i-- {
-		row := u[i*w+1 : i*w+min(w, n-i)]
-		above := x[i+1 : i+1+len(row)]
-		s := x[i]
-		for j, v := range row {
-			s -= v * above[j]
-		}
-		x[i] = s * (1 / u[i*w])
-	}
 }
 
 // copyScaled copies src to dst times d[i], or as it is when d is nil:
