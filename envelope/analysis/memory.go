@@ -26,13 +26,20 @@ import (
 //     enveloped beside the first-order solution, and its envelopes (of
 //     forces: a strength combination's) beside the merged ones, the heap
 //     grown to twice them (frame's default: every combination's solves
-//     make as much garbage again). The iterations of the second-order
-//     combinations, side by side, solve one column each and add little.
+//     make as much garbage again); and for each second-order
+//     combination, the last solve of its iteration, kept from the
+//     iterations (made side by side, before the envelopes) until its
+//     envelopes solve their cases on its factor: unitBands band matrices
+//     of n × (kb + 1), its factor and elements with the heap's growth
+//     (fitted).
 //
 // The critical load factors' Lanczos vectors and the storeys' solves are
 // not counted apart: they are formed before the envelopes, on the
 // solution's factor, and take less than the envelopes then do.
-const firstGrowth = 1.2
+const (
+	firstGrowth = 1.2
+	unitBands   = 2.5
+)
 
 // memoryOptions returns the solver options that count what job's run
 // holds beside the first-order solution: lay is the job's patterned
@@ -50,10 +57,13 @@ func memoryOptions(job *Job, sv solved, lay *patterns.Layout, opt Options) frame
 	for _, s := range storeysOf(job) {
 		columns += len(s.Columns)
 	}
-	apart := false
+	apart, second := false, 0
 	for k := range job.Combinations {
 		m := job.methodOf(k)
 		apart = apart || m.SecondOrder || m.Stiffness != Nominal
+		if m.SecondOrder {
+			second++
+		}
 	}
 	members := float64(len(mo.Members))
 	envelopes := float64(stations) * sb
@@ -69,6 +79,9 @@ func memoryOptions(job *Job, sv solved, lay *patterns.Layout, opt Options) frame
 	return frame.Options{
 		PerMember: envelopes / max(members, 1),
 		Solutions: 2,
-		Held:      func(frame.Info) float64 { return 2 * values },
+		Held: func(info frame.Info) float64 {
+			n, kb := float64(info.Equations), float64(min(info.Bandwidth, max(info.Equations-1, 0)))
+			return 2*values + unitBands*float64(second)*8*n*(kb+1)
+		},
 	}
 }
