@@ -47,6 +47,16 @@ type Options struct {
 	// geometry. A stiffness that is not positive definite under them is
 	// an error wrapping [ErrUnstable].
 	Axial []float64
+	// SkipCondition factors the stiffness without estimating its condition
+	// number: for a solution whose results nobody reports, such as an
+	// intermediate step of an iteration whose last solve is estimated.
+	// [Solution.Cond] is then NaN, and the solve neither refuses nor warns
+	// of ill-conditioning, nor searches an ill-conditioned matrix for a
+	// near-mechanism: a stiffness is refused only when it cannot be
+	// factored at all (an [*IllConditionedError] with Cond +Inf, or, with
+	// Axial, an error wrapping [ErrUnstable]) or the results overflow.
+	// Mechanisms that show in the matrix's diagonal are found as always.
+	SkipCondition bool
 }
 
 // illAdvice says where to look when the matrix is ill-conditioned.

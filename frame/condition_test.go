@@ -554,3 +554,57 @@ func TestInverseNormEstimateMatchesLAPACK(t *testing.T) {
 		})
 	}
 }
+
+func TestSkipConditionSolvesAlikeAndRefusesOnlyWhatCannotBeFactored(t *testing.T) {
+	// The inclined cantilever's tip deflection is the closed form of
+	// inclined (beam tables, from memory); the estimate left out changes no
+	// digit of the results, only what is refused or warned of.
+	t.Run("well-conditioned: the same results, no estimate", func(t *testing.T) {
+		mo, _ := inclined(0.01)
+		want, err := Solve(mo)
+		if err != nil {
+			t.Fatal(err)
+		}
+		got, err := SolveWith(mo, Options{SkipCondition: true})
+		if err != nil {
+			t.Fatal(err)
+		}
+		if !math.IsNaN(got.Cond()) {
+			t.Errorf("Cond() = %g, want NaN (not estimated)", got.Cond())
+		}
+		for d := range 3 {
+			if g, w := got.x[d], want.x[d]; g != w {
+				t.Errorf("displacement %d = %v, estimated %v", d, g, w)
+			}
+		}
+	})
+	t.Run("ill-conditioned: solved without refusal or warning", func(t *testing.T) {
+		mo, uy := inclined(5e8)
+		accepted, err := SolveWith(mo, Options{AcceptIllConditioned: true})
+		if err != nil {
+			t.Fatal(err)
+		}
+		got, err := SolveWith(mo, Options{SkipCondition: true})
+		if err != nil {
+			t.Fatalf("err = %v, want no refusal without an estimate", err)
+		}
+		if len(got.Warnings()) != 0 {
+			t.Errorf("warnings %q, want none", got.Warnings())
+		}
+		_, gy, _ := got.Displacement(0, 1)
+		if _, ay, _ := accepted.Displacement(0, 1); gy != ay {
+			t.Errorf("tip uy = %v, accepted with an estimate %v", gy, ay)
+		}
+		if !near(gy, uy, 10*accepted.Cond()*0x1p-52) {
+			t.Errorf("tip uy = %.6g, want %.6g", gy, uy)
+		}
+	})
+	t.Run("not factorable: refused as before", func(t *testing.T) {
+		mo, _ := inclined(1e13)
+		_, err := SolveWith(mo, Options{SkipCondition: true})
+		var ice *IllConditionedError
+		if !errors.As(err, &ice) || !math.IsInf(ice.Cond, 1) {
+			t.Fatalf("err = %v, want an *IllConditionedError with Cond +Inf", err)
+		}
+	})
+}

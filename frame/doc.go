@@ -101,6 +101,11 @@
 // member has, are looked for by package envelope/analysis, which knows the
 // model's units.)
 //
+// [Options.SkipCondition] leaves the estimate out, for solutions whose
+// results are not reported (the steps of an iteration before its last):
+// such a solve refuses only a stiffness that cannot be factored at all, and
+// neither refuses nor warns of one merely ill-conditioned; its Cond is NaN.
+//
 // The statics check ([Solution.Balance]) takes moments about the lower left
 // corner of the frame, so that its position does not cost digits.
 //

@@ -12,7 +12,7 @@ func (sol *Solution) Info() Info { return Info{Equations: sol.dofs, Bandwidth: s
 // matrix scaled to unit diagonal, S K S with S = diag(1/√K[i][i]): LAPACK's
 // estimate of ‖(SKS)⁻¹‖₁ times ‖SKS‖₁. The results may have lost about
 // log10 of it of their 16 significant digits. It is 1 when there was
-// nothing to solve.
+// nothing to solve, NaN when [Options.SkipCondition] left it unestimated.
 func (sol *Solution) Cond() float64 { return sol.cond }
 
 // Displacement returns the global displacements (ux, uy, rz) of node v in

@@ -151,16 +151,24 @@ func SolveWith(mo *Model, opt Options) (*Solution, error) {
 	// sees the scaling.
 	d := scalePow2(data, n, kb)
 
-	// Factor a copy with gonum's LAPACK band Cholesky.
-	a := blas64.SymmetricBand{Uplo: blas.Upper, N: n, K: kb, Data: slices.Clone(data), Stride: w}
+	// Factor a copy with gonum's LAPACK band Cholesky: the estimate reads
+	// the matrix. Without it the matrix is factored in place (a failed
+	// factorization is diagnosed on a matrix assembled anew below).
+	estimate := !opt.SkipCondition
+	a := blas64.SymmetricBand{Uplo: blas.Upper, N: n, K: kb, Data: data, Stride: w}
+	if estimate {
+		a.Data = slices.Clone(data)
+	}
 	u, ok := lapack64.Pbtrf(a)
-	if ok {
+	if ok && estimate {
 		sol.cond = equilibratedCond(data, u.Data, n, kb)
+	} else if ok {
+		sol.cond = math.NaN()
 	}
 	if !ok && opt.Axial != nil {
 		return nil, fmt.Errorf("%w: the stiffness with the geometric stiffness is not positive definite", ErrUnstable)
 	}
-	if !ok || sol.cond > diagnoseCond {
+	if !ok || estimate && sol.cond > diagnoseCond {
 		// data now holds a factor: assemble the matrix of the same members
 		// made alike in stiffness, which has the same mechanisms, scale it
 		// to unit diagonal and search it.
@@ -175,14 +183,16 @@ func SolveWith(mo *Model, opt Options) (*Solution, error) {
 			return nil, &IllConditionedError{Cond: math.Inf(1)}
 		}
 	}
-	if !(sol.cond <= MaxCond) {
-		return nil, &IllConditionedError{Cond: sol.cond}
-	}
-	if sol.cond > RefuseCond && !opt.AcceptIllConditioned {
-		return nil, &IllConditionedError{Cond: sol.cond, Acceptable: true}
-	}
-	if w := condWarning(sol.cond); w != "" {
-		sol.warnings = append(sol.warnings, w)
+	if estimate {
+		if !(sol.cond <= MaxCond) {
+			return nil, &IllConditionedError{Cond: sol.cond}
+		}
+		if sol.cond > RefuseCond && !opt.AcceptIllConditioned {
+			return nil, &IllConditionedError{Cond: sol.cond, Acceptable: true}
+		}
+		if w := condWarning(sol.cond); w != "" {
+			sol.warnings = append(sol.warnings, w)
+		}
 	}
 
 	// K x = b is solved as (D K D)(D⁻¹ x) = D b.

@@ -30,8 +30,23 @@ func bandSolve(u []float64, n, kb int, x []float64, nrhs int) {
 // factored in u: it overwrites x with D (U⁻¹ U⁻ᵀ) D x, scaling each
 // block's rows as they are packed and unpacked. With powers of two in d
 // that is scaleRows, bandSolve and scaleRows again to the last bit.
+//
+// One column (a step of a second-order iteration) is solved by the plain
+// vector substitutions, bandSolveVec, in the same order of operations:
+// listing the factor's terms would cost more than using them once.
 func bandSolveScaled(u []float64, n, kb int, x []float64, nrhs int, d []float64) {
 	if nrhs == 0 {
+		return
+	}
+	if nrhs == 1 {
+		x = x[:n]
+		for i := range d {
+			x[i] *= d[i]
+		}
+		bandSolveVec(u, n, kb, x)
+		for i := range d {
+			x[i] *= d[i]
+		}
 		return
 	}
 	newBandSolver(u, n, kb).solveScaled(x, nrhs, d)

@@ -153,3 +153,56 @@ func bandSolveAxpy(u []float64, n, kb int, x []float64, nrhs int) {
 	}
 	wg.Wait()
 }
+
+// TestOneColumnIsTheBlockedSolveToTheLastBit checks that a single load
+// column, solved by the plain vector substitutions, has the numbers the
+// blocked substitution gives it among others: each column of the
+// frames' cases alone against all of them together, scaled by powers of
+// two as a solve scales them.
+func TestOneColumnIsTheBlockedSolveToTheLastBit(t *testing.T) {
+	for _, size := range []struct{ bays, storeys int }{{6, 5}, {3, 12}, {2, 3}} {
+		t.Run(fmt.Sprintf("%dx%d", size.bays, size.storeys), func(t *testing.T) {
+			mo := pieceFrame(size.bays, size.storeys)
+			order := rcmOrder(adjacency(mo))
+			dof, n, band := dofMap(mo, order, releasedRotations(mo))
+			sol := &Solution{model: mo, dof: dof, elems: make([]element, len(mo.Members))}
+			for m := range mo.Members {
+				sol.elems[m] = newElement(mo, m)
+			}
+			sol.indexLoads()
+			kb := min(band, n-1)
+			a := blas64.SymmetricBand{Uplo: blas.Upper, N: n, K: kb, Data: sol.assemble(n, kb), Stride: kb + 1}
+			u, ok := lapack64.Pbtrf(a)
+			if !ok {
+				t.Fatal("not positive definite")
+			}
+			nc := len(mo.Cases)
+			rhs := sol.rhs(n)
+			d := make([]float64, n)
+			for i := range d {
+				d[i] = math.Ldexp(1, i%5-2)
+			}
+			all := append([]float64(nil), rhs...)
+			newBandSolver(u.Data, n, kb).solveScaled(all, nc, d)
+			nonzero := 0
+			for c := range nc {
+				col := make([]float64, n)
+				for i := range col {
+					col[i] = rhs[i*nc+c]
+				}
+				bandSolveScaled(u.Data, n, kb, col, 1, d)
+				for i, v := range col {
+					if v != all[i*nc+c] || math.Signbit(v) != math.Signbit(all[i*nc+c]) {
+						t.Fatalf("case %d, row %d: alone %v, among the others %v", c, i, v, all[i*nc+c])
+					}
+					if v != 0 {
+						nonzero++
+					}
+				}
+			}
+			if nonzero == 0 {
+				t.Fatal("every displacement is zero: nothing compared")
+			}
+		})
+	}
+}

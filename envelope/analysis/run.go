@@ -100,6 +100,11 @@ type Result struct {
 	// buckling holds the factored elastic stiffness of each stiffness the
 	// critical load factors are found with, shared by every combination.
 	buckling map[Stiffness]*bucklingOnce
+	// firsts holds the first-order solution, with no load, of each
+	// stiffness other than the sections as given that second-order
+	// combinations are analysed with: their starts and storeys are solved
+	// on its factor (firstOrder).
+	firsts map[Stiffness]*firstOnce
 	// units are the analyses of the combinations when they are not all one
 	// first-order analysis with the sections as given (nil then), and
 	// solutions those solved again on request (solutionFor), by unit.

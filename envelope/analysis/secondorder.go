@@ -30,6 +30,9 @@ type unit struct {
 	critical  float64   // αcr of the combination as written, with its stiffness
 	nominal   float64   // αcr with the sections as given
 	iteration int
+	// final is the iteration's last solve (second order), on whose factor
+	// the envelopes solve their cases; nil once they have.
+	final *frame.Solution
 }
 
 // plan lists the units of a job, with the solved model grown by the
@@ -290,8 +293,15 @@ func (j *Job) tauB(secs []frame.Section, members []frame.Member, axial []float64
 // iterate solves unit u's combination, every case at its factor (times
 // u.scale) and every piece loaded, in second order: the axial forces of
 // one solve give the geometric stiffness of the next until they change by
-// less than the tolerance. It sets u.axial and u.iteration, and u's
-// critical load factors from the first-order axial forces.
+// less than the tolerance. It sets u.axial, u.iteration and u.final, and
+// u's critical load factors from the first-order axial forces.
+//
+// The first-order solve is made on the factor of the first-order
+// solution of its stiffness (firstOrder; the same numbers to the last
+// bit, frame.Solution.SolveCases). The steps between leave out the condition
+// estimate (frame.Options.SkipCondition): their results are not reported,
+// and the last solve, with the axial forces and τb reductions the
+// envelopes use, is estimated, refused and warned of as every solve is.
 func (r *Result) iterate(u *unit, base *frame.Model, stiff Stiffness) error {
 	job := r.Job
 	name := job.Combinations[u.k].Name
@@ -301,7 +311,16 @@ func (r *Result) iterate(u *unit, base *frame.Model, stiff Stiffness) error {
 	}
 	secs, mems := job.stiffnessOf(base, stiff)
 	mo := combined(base, secs, mems, u.cb, u.scale, nil)
-	sol, err := frame.SolveWith(mo, r.solver)
+	var sol *frame.Solution
+	var err error
+	if shareFactors {
+		var first *frame.Solution
+		if first, err = r.firstOrder(base, stiff); err == nil {
+			sol, err = first.SolveCases(mo.Cases)
+		}
+	} else {
+		sol, err = frame.SolveWith(mo, r.solver)
+	}
 	if err != nil {
 		return fmt.Errorf("combination %q: %w", name, err)
 	}
@@ -318,6 +337,7 @@ func (r *Result) iterate(u *unit, base *frame.Model, stiff Stiffness) error {
 		mo.Sections, mo.Members = s2, m2
 		so := r.solver
 		so.Axial = n
+		so.SkipCondition = true
 		sol, err = frame.SolveWith(mo, so)
 		if err != nil {
 			return fmt.Errorf("combination %q: second-order analysis: %w", name, err)
@@ -337,7 +357,9 @@ func (r *Result) iterate(u *unit, base *frame.Model, stiff Stiffness) error {
 			return fmt.Errorf("combination %q: the second-order analysis did not converge in %d iterations (axial forces still change by %.3g of the largest): the frame is close to buckling under it", name, MaxIterations, change/big)
 		}
 	}
-	// The combination's own statics, on the deformed geometry.
+	// The combination's own statics, on the deformed geometry, with the
+	// stiffness the envelopes use (the τb reductions of n).
+	mo.Sections, mo.Members = job.tauB(secs, mems, n, alpha/u.scale)
 	so := r.solver
 	so.Axial = n
 	sol, err = frame.SolveWith(mo, so)
@@ -348,6 +370,7 @@ func (r *Result) iterate(u *unit, base *frame.Model, stiff Stiffness) error {
 		return fmt.Errorf("combination %q: the second-order solution is out of balance by %.2g of its load on the deformed geometry", name, b.Relative())
 	}
 	u.axial = n
+	u.final = sol
 	return nil
 }
 
@@ -450,6 +473,39 @@ func (r *Result) criticalFactors(base *frame.Model, stiff Stiffness, ns [][]floa
 	return bo.b.Factors(ns)
 }
 
+// firstOnce is the first-order solution of one stiffness, made by the
+// first combination that needs it.
+type firstOnce struct {
+	once sync.Once
+	sol  *frame.Solution
+	err  error
+}
+
+// firstOrder returns a first-order solution with stiffness stiff of base's
+// nodes, sections and members, on whose factor more cases are solved
+// (frame.Solution.SolveCases): r.sol with the sections as given, else one
+// with no load, solved once per stiffness for every combination.
+func (r *Result) firstOrder(base *frame.Model, stiff Stiffness) (*frame.Solution, error) {
+	if stiff == Nominal && r.sol != nil {
+		return r.sol, nil
+	}
+	r.mu.Lock()
+	if r.firsts == nil {
+		r.firsts = map[Stiffness]*firstOnce{}
+	}
+	fo := r.firsts[stiff]
+	if fo == nil {
+		fo = &firstOnce{}
+		r.firsts[stiff] = fo
+	}
+	r.mu.Unlock()
+	fo.once.Do(func() {
+		secs, mems := r.Job.stiffnessOf(base, stiff)
+		fo.sol, fo.err = frame.SolveWith(&frame.Model{Nodes: base.Nodes, Sections: secs, Members: mems, Cases: []frame.Case{{Name: "no load"}}}, r.solver)
+	})
+	return fo.sol, fo.err
+}
+
 // ErrBuckles marks a combination under which the frame buckles.
 var ErrBuckles = errors.New("the frame buckles")
 
@@ -545,7 +601,20 @@ func (r *Result) envelopes(pl *plan, sv *solved, lay *patterns.Layout, reqs []re
 			var err error
 			so := opt.Solver
 			so.Axial = axial
-			if sol, err = frame.SolveWith(&mo, so); err != nil {
+			if g.second && shareFactors {
+				// The iteration's last solve has this stiffness (the same
+				// sections, members and axial forces): its factor solves
+				// the cases, to the same numbers as a solve of their own.
+				u := &pl.units[g.units[0]]
+				sol, err = u.final.SolveCases(mo.Cases)
+				u.final = nil
+				if err == nil {
+					l2.Model = sol.Model() // equal to mo, the iteration's copy
+				}
+			} else {
+				sol, err = frame.SolveWith(&mo, so)
+			}
+			if err != nil {
 				return nil, fmt.Errorf("combination %q: %w", job.Combinations[pl.units[g.units[0]].k].Name, err)
 			}
 			for _, w := range sol.Warnings() {
@@ -564,8 +633,17 @@ func (r *Result) envelopes(pl *plan, sv *solved, lay *patterns.Layout, reqs []re
 			if err := r.firstOrderStability(us, sv.model, g.stiff, sol); err != nil {
 				return nil, err
 			}
-		} else if err := r.storeyStability(&pl.units[g.units[0]], sv.model, g.stiff, nil); err != nil {
-			return nil, err
+		} else {
+			// The storeys' first-order analyses, on the factor of the
+			// first-order solution of the stiffness (its own solve where
+			// that failed: its error names the storeys).
+			var first *frame.Solution
+			if shareFactors {
+				first, _ = r.firstOrder(sv.model, g.stiff)
+			}
+			if err := r.storeyStability(&pl.units[g.units[0]], sv.model, g.stiff, first); err != nil {
+				return nil, err
+			}
 		}
 		for _, i := range g.units {
 			u := &pl.units[i]
@@ -612,6 +690,12 @@ func (r *Result) envelopes(pl *plan, sv *solved, lay *patterns.Layout, reqs []re
 	}
 	return out, nil
 }
+
+// shareFactors is whether a second-order unit's solves reuse the factors
+// of solves with the same stiffness (its first-order solves r.sol's, its
+// envelope the iteration's last solve's) rather than factor their own;
+// the tests turn it off to compare.
+var shareFactors = true
 
 // leaveOutUnits is whether a group of combinations without patterned
 // terms is solved without the pattern pieces; the tests turn it off to

@@ -411,3 +411,143 @@ func leaveOutThePieces(t *testing.T, mode patterns.Mode) {
 		}
 	}
 }
+
+// inclinedJob is a cantilever of length 4 inclined at 30°, E = 200e6,
+// I = 1e-4 and area a, under 1 down and 0.1 along X at its tip. With
+// a = 5e8 its axial stiffness is about 7e12 times its bending stiffness
+// across the member, a condition number between frame.RefuseCond and
+// frame.MaxCond (the frame package's inclined cantilever).
+func inclinedJob(a float64, m Method) *Job {
+	const l = 4.0
+	c, s := math.Cos(math.Pi/6), math.Sin(math.Pi/6)
+	return &Job{
+		Units: Units{Force: "kN", Length: "m"},
+		Model: &frame.Model{
+			Sections: []frame.Section{{Name: "S", E: 200e6, A: a, I: 1e-4}},
+			Nodes:    []frame.Node{{Name: "B", Support: frame.Fixed}, {Name: "T", X: l * c, Y: l * s}},
+			Members:  []frame.Member{{Name: "B-T", Start: 0, End: 1}},
+			Cases: []frame.Case{
+				{Name: "D", NodeLoads: []frame.NodeLoad{{Node: 1, Fy: -1}}},
+				{Name: "W", NodeLoads: []frame.NodeLoad{{Node: 1, Fx: 0.1}}},
+			},
+		},
+		Cases:        []combos.Case{{Name: "D", Kind: combos.Dead}, {Name: "W", Kind: combos.Wind}},
+		Combinations: []combos.Combination{{Name: "D+W", Terms: []combos.Term{{Case: 0, Factor: 1}, {Case: 1, Factor: 1}}}},
+		Methods:      []Method{m},
+		Settings:     Settings{Stations: 11},
+	}
+}
+
+// TestIllConditionedSecondOrderIsRefusedAlike checks that a second-order
+// run of an ill-conditioned frame is refused with the error of a
+// first-order run (frame.IllConditionedError, the frame package's own
+// estimate), whatever the stiffness, although the iteration's steps leave
+// the estimate out; accepted, the combination reports the estimate of
+// the solution its results come from, above frame.RefuseCond, with the
+// warning.
+func TestIllConditionedSecondOrderIsRefusedAlike(t *testing.T) {
+	_, want := Run(context.Background(), inclinedJob(5e8, Method{}), Options{})
+	var ice *frame.IllConditionedError
+	if !errors.As(want, &ice) || !ice.Acceptable {
+		t.Fatalf("first order: err = %v, want an acceptable *frame.IllConditionedError", want)
+	}
+	for _, m := range []Method{{SecondOrder: true}, {SecondOrder: true, Stiffness: Strength}} {
+		t.Run(m.Stiffness.String(), func(t *testing.T) {
+			_, err := Run(context.Background(), inclinedJob(5e8, m), Options{})
+			if err == nil || err.Error() != want.Error() || !errors.Is(err, frame.ErrIllConditioned) {
+				t.Fatalf("err = %v\nwant %v", err, want)
+			}
+			res, err := Run(context.Background(), inclinedJob(5e8, m), Options{Solver: frame.Options{AcceptIllConditioned: true}})
+			if err != nil {
+				t.Fatal(err)
+			}
+			cb := res.Combinations[0]
+			if cb.Iterations < 1 || !(cb.Condition > frame.RefuseCond && cb.Condition <= frame.MaxCond) {
+				t.Errorf("%d iterations, condition %g: want iterations and an estimate between %g and %g", cb.Iterations, cb.Condition, frame.RefuseCond, frame.MaxCond)
+			}
+			warned := false
+			for _, w := range res.Warnings {
+				warned = warned || strings.Contains(w, "ill-conditioned") && strings.Contains(w, "accepted")
+			}
+			if !warned {
+				t.Errorf("no warning of the accepted ill-conditioning: %q", res.Warnings)
+			}
+		})
+	}
+}
+
+// TestSecondOrderSharedFactorsChangeNothing checks that the second-order
+// solves made on the factors of others of the same stiffness (the
+// first-order start and storeys on the run's, the envelope on the
+// iteration's last) give every result to the last bit as solves of their
+// own do: an independent factorization of the same matrix (shareFactors
+// off), on the regular frame with patterned live loads, with the sections
+// as given, reduced, and reduced by τb.
+func TestSecondOrderSharedFactorsChangeNothing(t *testing.T) {
+	for _, tc := range []struct {
+		name string
+		set  func(*Job)
+	}{
+		{"nominal", func(*Job) {}},
+		{"strength 0.8", func(j *Job) {
+			j.Sway.StrengthEI, j.Sway.StrengthEA = 0.8, 0.8
+			for k := range j.Methods {
+				j.Methods[k].Stiffness = Strength
+			}
+		}},
+		{"tau_b", func(j *Job) {
+			// Fy low enough that the lower columns' αPr/Pns passes 0.5.
+			j.Sway.TauB = TauBFy
+			j.Sway.Fy = []float64{8000, 1e6} // Pns = 2000 for the columns
+			for k := range j.Methods {
+				j.Methods[k].Stiffness = Strength
+			}
+		}},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			job := regularJob(4, 3, true)
+			job.Methods = make([]Method, len(job.Combinations))
+			for k := range job.Methods {
+				job.Methods[k] = Method{SecondOrder: true}
+			}
+			tc.set(job)
+			got, err := Run(context.Background(), job, Options{})
+			if err != nil {
+				t.Fatal(err)
+			}
+			if job.Sway.TauB == TauBFy {
+				plain := *job
+				plain.Sway.TauB = TauBNone
+				p, err := Run(context.Background(), &plain, Options{})
+				if err != nil {
+					t.Fatal(err)
+				}
+				if reflect.DeepEqual(p.Envelope.Members, got.Envelope.Members) {
+					t.Fatal("τb reduces no member: the case tests nothing of its own")
+				}
+			}
+			shareFactors = false
+			defer func() { shareFactors = true }()
+			want, err := Run(context.Background(), job, Options{})
+			if err != nil {
+				t.Fatal(err)
+			}
+			for _, c := range []struct {
+				what      string
+				got, want any
+			}{
+				{"members", got.Envelope.Members, want.Envelope.Members},
+				{"reactions", got.Envelope.Reactions, want.Envelope.Reactions},
+				{"combinations", got.Combinations, want.Combinations},
+				{"node displacements", got.Displacements, want.Displacements},
+				{"storeys", got.Storeys, want.Storeys},
+				{"amplifications", got.Amplifications, want.Amplifications},
+				{"warnings", got.Warnings, want.Warnings},
+			} {
+				if !reflect.DeepEqual(c.got, c.want) {
+					t.Errorf("%s differ on shared factors", c.what)
+				}
+			}
+		})
+	}
+}
