@@ -93,6 +93,9 @@ type fold struct {
 	cases  []foldCase     // per patterned case
 	mv     []float64      // scratch: the M of each unit at the station
 	own    []frame.Forces // scratch: the units that load the member at the station
+	// scratch: the units at the station whose M is positive, negative and
+	// round-off (classify)
+	pos, neg, zer []int32
 	// seed holds, per set of member factors, patterned case and sign
 	// (k*len(cases)+p), the smallest size of M the list kept at the
 	// previous station of the member (0 if not full).
@@ -344,7 +347,7 @@ func (f *fold) load(e *evaluator, w *work, sol *frame.Solution, m int) {
 		fc.nv = fc.nv[:len(parts)]
 		for k, q := range parts {
 			if q.uses(p) {
-				fc.fold(w, &fc.nv[k], f.second, scaleOf(q, m, pc.Case))
+				fc.fold(f, w, &fc.nv[k], f.second, scaleOf(q, m, pc.Case))
 			}
 		}
 	}
@@ -376,83 +379,62 @@ func scaleOf(e *evaluator, m, c int) [3]float64 {
 // fold forms in nv fc's fold for N and V over the units that do not load
 // the member (those of own have zero entries: round-off, adding nothing),
 // each classified by its effect times sc, as the unfolded path scales it.
-func (fc *foldCase) fold(w *work, nv *foldNV, second bool, sc [3]float64) {
-	nv.sum, nv.count, nv.big = [2][2][3]float64{}, [2][2]int{}, [2][2]float64{}
+// Each effect's units are listed by sign (classify, into f's scratch) and
+// summed, sized and ranked list by list, each sum in the order of the
+// units.
+func (fc *foldCase) fold(f *fold, w *work, nv *foldNV, second bool, sc [3]float64) {
 	nv.sumU = [2][2][6]float64{}
-	nv.totN, nv.totV = 0, 0
 	scaled := sc != [3]float64{1, 1, 1}
-	own := 0 // the next of fc.own, whose displacements are not summed
-	for u, n := range fc.n {
-		v, a := fc.v[u], fc.a[u]
-		add := second
-		if own < len(fc.own) && fc.own[own] == u {
-			add = false
-			own++
-		}
-		nv.totN += n
-		nv.totV += v
-		xs := [2]float64{n, v}
-		if scaled {
-			xs = [2]float64{sc[0] * n, sc[1] * v}
-		}
-		for j, x := range xs {
-			var s int
-			var size float64
-			switch {
-			case x > w.noiseAt[j]:
-				s, size = 0, x
-				t := &nv.sum[j][0]
-				t[0] += n
-				t[1] += v
-				t[2] += a
-				if add {
-					addU(&nv.sumU[j][0], &fc.u[u])
-				}
-			case x < -w.noiseAt[j]:
-				s, size = 1, -x
-			default:
-				t := &nv.sum[j][1]
-				t[0] += n
-				t[1] += v
-				t[2] += a
-				if add {
-					addU(&nv.sumU[j][1], &fc.u[u])
-				}
-				continue
-			}
-			nv.count[j][s]++
-			if size > nv.big[j][s] {
-				nv.big[j][s] = size
-			}
+	nu := len(fc.n)
+	fn, fv, fa := fc.n[:nu], fc.v[:nu], fc.a[:nu]
+	if scaled {
+		nv.totN, nv.totV = 0, 0
+		for u, n := range fn {
+			nv.totN += n
+			nv.totV += fv[u]
 		}
 	}
-	// The most influential, with the threshold seeded from the largest:
-	// most units fall short of it at one comparison.
-	// One pass for N and V, either sign.
-	var thr [2][2]float64
-	for j := range 2 {
-		for s := range 2 {
-			thr[j][s] = w.share * nv.big[j][s]
-			nv.top[j][s] = nv.top[j][s][:0]
-		}
-	}
-	for u, n := range fc.n {
-		xs := [2]float64{n, fc.v[u]}
+	f.pos, f.neg, f.zer = grow(f.pos, nu), grow(f.neg, nu), grow(f.zer, nu)
+	for j, vals := range [2][]float64{fn, fv} {
+		x := vals
 		if scaled {
-			xs = [2]float64{sc[0] * n, sc[1] * fc.v[u]}
+			f.mv = grow(f.mv, nu)
+			x = f.mv[:nu]
+			for u, y := range vals {
+				x[u] = sc[j] * y
+			}
 		}
-		for j, x := range xs {
-			s, a := 0, x
-			if x < 0 {
-				s, a = 1, -x
+		t, np, nn, nr := classify(x, w.noiseAt[j], f.pos, f.neg, f.zer)
+		if !scaled && j == 0 {
+			nv.totN = t
+		} else if !scaled {
+			nv.totV = t
+		}
+		pos, neg, zer := f.pos[:np], f.neg[:nn], f.zer[:nr]
+		sum := &nv.sum[j]
+		sum[0][0], sum[0][1], sum[0][2], nv.big[j][0] = sumsOver(pos, fn, fv, fa, x)
+		sum[1][0], sum[1][1], sum[1][2], _ = sumsOver(zer, fn, fv, fa, x)
+		nv.big[j][1] = largestOver(neg, x)
+		nv.count[j] = [2]int{np, nn}
+		if second {
+			for _, u := range pos {
+				addU(&nv.sumU[j][0], &fc.u[u])
 			}
-			if a > w.noiseAt[j] && a >= thr[j][s] {
-				h := keepLargest(nv.top[j][s], candidate{piece: u, a: a}, w.limit)
-				nv.top[j][s] = h
-				if len(h) == w.limit && h[0].a >= thr[j][s] {
-					thr[j][s] = math.Nextafter(h[0].a, math.Inf(1))
+			own := fc.own // round-off, and not summed
+			for _, u := range zer {
+				for len(own) > 0 && own[0] < int(u) {
+					own = own[1:]
 				}
+				if len(own) > 0 && own[0] == int(u) {
+					continue
+				}
+				addU(&nv.sumU[j][1], &fc.u[u])
 			}
+		}
+		// The most influential, with the threshold seeded from the
+		// largest: most units fall short of it at one comparison.
+		for s, list := range [2][]int32{pos, neg} {
+			nv.top[j][s] = rankListed(nv.top[j][s][:0], list, x, s == 1, w.share*nv.big[j][s], w.limit)
 		}
 	}
 }
@@ -464,15 +446,92 @@ func addU(s, u *[6]float64) {
 	}
 }
 
-// rank adds to h, a heap of keepLargest, the units of vals of the sign
-// asked for (past the round-off noise), by size, that reach thr.
-func rank(h []candidate, vals []float64, noise float64, negative bool, thr float64, limit int) []candidate {
-	for u, x := range vals {
+// classify lists in pos, neg and zer, in ascending order, the units
+// whose M (mv) is positive past the round-off nz, negative past it, and
+// round-off (any other, NaN included), and returns the sum of every M in
+// the order of the units and how many are in each list. pos, neg and zer
+// hold at least len(mv) entries. It has no branch per unit: each index is
+// written to every list, and only the list it belongs to moves on.
+func classify(mv []float64, nz float64, pos, neg, zer []int32) (m0 float64, np, nn, nr int) {
+	pos, neg, zer = pos[:len(mv)], neg[:len(mv)], zer[:len(mv)]
+	for u, m := range mv {
+		m0 += m
+		pos[np] = int32(u)
+		neg[nn] = int32(u)
+		zer[nr] = int32(u)
+		p, n := b2i(m > nz), b2i(m < -nz)
+		np += p
+		nn += n
+		nr += 1 - p - n
+	}
+	return m0, np, nn, nr
+}
+
+// classifyLine is classify of M = a + x·v, each unit's M stored in mv
+// as it is formed: one pass over the units instead of two.
+func classifyLine(mv, a, v []float64, x, nz float64, pos, neg, zer []int32) (m0 float64, np, nn, nr int) {
+	n := len(mv)
+	a, v = a[:n], v[:n]
+	pos, neg, zer = pos[:n], neg[:n], zer[:n]
+	for u := range mv {
+		m := a[u] + x*v[u]
+		mv[u] = m
+		m0 += m
+		pos[np] = int32(u)
+		neg[nn] = int32(u)
+		zer[nr] = int32(u)
+		p, q := b2i(m > nz), b2i(m < -nz)
+		np += p
+		nn += q
+		nr += 1 - p - q
+	}
+	return m0, np, nn, nr
+}
+
+// b2i is 1 for true and 0 for false, without a branch.
+func b2i(b bool) int {
+	var i int
+	if b {
+		i = 1
+	}
+	return i
+}
+
+// sumsOver returns the sums of n, v and a over the units listed, in their
+// order, and the largest size of x over them (largestOver).
+func sumsOver(list []int32, n, v, a, x []float64) (sn, sv, sa, big float64) {
+	var hb uint64
+	for _, u := range list {
+		sn += n[u]
+		sv += v[u]
+		sa += a[u]
+		hb = max(hb, math.Float64bits(x[u])&^(1<<63))
+	}
+	return sn, sv, sa, math.Float64frombits(hb)
+}
+
+// largestOver returns the largest size of vals over the units listed, 0
+// for none, NaN apart: the sizes compared as their bits, which order as
+// the numbers do, without a branch.
+func largestOver(list []int32, vals []float64) float64 {
+	var hb uint64
+	for _, u := range list {
+		hb = max(hb, math.Float64bits(vals[u])&^(1<<63))
+	}
+	return math.Float64frombits(hb)
+}
+
+// rankListed adds to h, a heap of keepLargest, the units listed (of one
+// sign, past the round-off) by the size of their value in vals (negated
+// for the negative ones), in their order, that reach thr.
+func rankListed(h []candidate, list []int32, vals []float64, negative bool, thr float64, limit int) []candidate {
+	for _, u := range list {
+		x := vals[u]
 		if negative {
 			x = -x
 		}
-		if x > noise && x >= thr {
-			h = keepLargest(h, candidate{piece: u, a: x}, limit)
+		if x >= thr {
+			h = keepLargest(h, candidate{piece: int(u), a: x}, limit)
 			if len(h) == limit && h[0].a >= thr {
 				thr = math.Nextafter(h[0].a, math.Inf(1))
 			}
@@ -527,12 +586,13 @@ func (pl *exactPlacement) scanFolded(e *evaluator, w *work, f *fold, i, k int, r
 			top[j][0] = append(top[j][0][:0], nv.top[j][0]...)
 			top[j][1] = append(top[j][1][:0], nv.top[j][1]...)
 		}
-		// M: every unit classified at x, the largest sizes first so that
-		// the threshold for ranking is seeded with them.
+		// M: every unit's value at x (mv), then the units listed by sign
+		// (classify), so that the sums and the largest sizes are formed
+		// over each list without a branch per unit, the largest sizes
+		// first so that the threshold for ranking is seeded with them.
 		var mv []float64
-		hi, lo := 0.0, 0.0
+		nu := len(fc.n)
 		if f.second {
-			nu := len(fc.n)
 			mv = fc.mt[i*nu : (i+1)*nu]
 			if scaled {
 				f.mv = grow(f.mv, nu)
@@ -541,38 +601,30 @@ func (pl *exactPlacement) scanFolded(e *evaluator, w *work, f *fold, i, k int, r
 				}
 				mv = f.mv
 			}
-			for _, m := range mv {
-				if m > hi {
-					hi = m
-				}
-				if m < lo {
-					lo = m
-				}
-			}
 		} else {
-			f.mv = grow(f.mv, len(fc.n))
-			mv = f.mv
-			for u, a := range fc.a {
-				m := a + x*fc.v[u]
-				if scaled {
-					m *= sc[2]
-				}
-				mv[u] = m
-				if m > hi {
-					hi = m
-				}
-				if m < lo {
-					lo = m
+			f.mv = grow(f.mv, nu)
+			mv = f.mv[:nu]
+			fa, fv := fc.a[:nu], fc.v[:nu]
+			if scaled {
+				for u, a := range fa {
+					mv[u] = (a + x*fv[u]) * sc[2]
 				}
 			}
 		}
 		nz := w.noise[2]
-		if hi > nz {
-			big[2][0] = hi
+		f.pos, f.neg, f.zer = grow(f.pos, nu), grow(f.neg, nu), grow(f.zer, nu)
+		var m0 float64
+		var cp, cn, cz int
+		if f.second || scaled {
+			m0, cp, cn, cz = classify(mv, nz, f.pos, f.neg, f.zer)
+		} else {
+			m0, cp, cn, cz = classifyLine(mv, fc.a, fc.v, x, nz, f.pos, f.neg, f.zer)
 		}
-		if -lo > nz {
-			big[2][1] = -lo
-		}
+		pos, neg, zer := f.pos[:cp], f.neg[:cn], f.zer[:cz]
+		var ps, zs [3]float64
+		ps[0], ps[1], ps[2], big[2][0] = sumsOver(pos, fc.n, fc.v, mv, mv)
+		zs[0], zs[1], zs[2], _ = sumsOver(zer, fc.n, fc.v, mv, mv)
+		big[2][1] = largestOver(neg, mv)
 		// The values of the units that load the member, scaled.
 		f.own = grow(f.own, len(fc.own))
 		for q := range fc.own {
@@ -594,7 +646,8 @@ func (pl *exactPlacement) scanFolded(e *evaluator, w *work, f *fold, i, k int, r
 		// the list kept there. When fewer than the list's length reach the
 		// seed, the units are ranked again without it (below); when enough
 		// do, those are the largest, the seed made no difference, and
-		// far fewer units went through the heap.
+		// far fewer units went through the heap. Each sign's units are
+		// ranked in their order, as one pass over every unit ranks them.
 		cut := [2]float64{w.share * big[2][0], w.share * big[2][1]}
 		thr := cut
 		if i > 0 && w.limit != math.MaxInt {
@@ -602,53 +655,21 @@ func (pl *exactPlacement) scanFolded(e *evaluator, w *work, f *fold, i, k int, r
 				thr[s] = max(thr[s], seed[s]/2)
 			}
 		}
-		top[2][0], top[2][1] = top[2][0][:0], top[2][1][:0]
-		var pos, zer [3]float64
-		var m0 float64
-		var cp, cn int
-		fn, fv := fc.n[:len(mv)], fc.v[:len(mv)]
-		for u, m := range mv {
-			m0 += m
-			switch {
-			case m > nz:
-				pos[0] += fn[u]
-				pos[1] += fv[u]
-				pos[2] += m
-				cp++
-				if m >= thr[0] {
-					h := keepLargest(top[2][0], candidate{piece: u, a: m}, w.limit)
-					top[2][0] = h
-					if len(h) == w.limit && h[0].a >= thr[0] {
-						thr[0] = math.Nextafter(h[0].a, math.Inf(1))
-					}
-				}
-			case m < -nz:
-				cn++
-				if -m >= thr[1] {
-					h := keepLargest(top[2][1], candidate{piece: u, a: -m}, w.limit)
-					top[2][1] = h
-					if len(h) == w.limit && h[0].a >= thr[1] {
-						thr[1] = math.Nextafter(h[0].a, math.Inf(1))
-					}
-				}
-			default:
-				zer[0] += fn[u]
-				zer[1] += fv[u]
-				zer[2] += m
-			}
-		}
 		count[2][0], count[2][1] = count[2][0]+cp, count[2][1]+cn
 		if scaled {
-			pos[0], pos[1] = sc[0]*pos[0], sc[1]*pos[1]
-			zer[0], zer[1] = sc[0]*zer[0], sc[1]*zer[1]
+			ps[0], ps[1] = sc[0]*ps[0], sc[1]*ps[1]
+			zs[0], zs[1] = sc[0]*zs[0], sc[1]*zs[1]
 		}
-		sum[2][0], zero[2], tot[2] = pos, zer, m0
-		for s := range 2 {
-			if len(top[2][s]) < w.limit && thr[s] > cut[s] {
-				top[2][s] = rank(top[2][s][:0], mv, nz, s == 1, cut[s], w.limit)
+		sum[2][0], zero[2], tot[2] = ps, zs, m0
+		for s, list := range [2][]int32{pos, neg} {
+			neg := s == 1
+			h := rankListed(top[2][s][:0], list, mv, neg, thr[s], w.limit)
+			if len(h) < w.limit && thr[s] > cut[s] {
+				h = rankListed(h[:0], list, mv, neg, cut[s], w.limit)
 			}
+			top[2][s] = h
 			seed[s] = 0
-			if h := top[2][s]; len(h) == w.limit {
+			if len(h) == w.limit {
 				seed[s] = h[0].a
 			}
 		}

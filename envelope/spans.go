@@ -25,15 +25,7 @@ type spanList struct {
 // many there are.
 func (l *spanList) order() int {
 	if c := l.ranked; len(c) > 0 {
-		slices.SortFunc(c, func(x, y candidate) int {
-			if x.less(y) {
-				return 1
-			}
-			if y.less(x) {
-				return -1
-			}
-			return 0
-		})
+		sortLargestFirst(c)
 		// A piece repeats only when a combination names its case twice.
 		var seen map[int]bool
 		if len(c) > 32 {
@@ -115,6 +107,34 @@ func (e *evaluator) spans(w *work, out *[3]Extreme) {
 	for j := range 3 {
 		out[j].MaxSpans = take(2 * j)
 		out[j].MinSpans = take(2*j + 1)
+	}
+}
+
+// sortLargestFirst sorts c, the largest candidate first (candidate.less):
+// a short list (at most maxSpans per patterned case, unless AllSpans) by
+// insertion, without a call per comparison. Candidates that neither is
+// less than the other are the same piece with the same size, so the order
+// is the one any sort gives.
+func sortLargestFirst(c []candidate) {
+	if len(c) > 4*maxSpans {
+		slices.SortFunc(c, func(x, y candidate) int {
+			if x.less(y) {
+				return 1
+			}
+			if y.less(x) {
+				return -1
+			}
+			return 0
+		})
+		return
+	}
+	for i := 1; i < len(c); i++ {
+		x := c[i]
+		k := i
+		for ; k > 0 && c[k-1].less(x); k-- {
+			c[k] = c[k-1]
+		}
+		c[k] = x
 	}
 }
 

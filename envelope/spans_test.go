@@ -1,6 +1,7 @@
 package envelope
 
 import (
+	"fmt"
 	"math/rand/v2"
 	"slices"
 	"testing"
@@ -45,4 +46,23 @@ func TestSpanListOrder(t *testing.T) {
 			t.Errorf("order gives %v, want %v", l.pieces, want)
 		}
 	})
+}
+
+// sortLargestFirst gives the order of a general sort by influence
+// (byInfluence, the definition of candidate.less), on short lists
+// (insertion) and long ones, with repeated pieces and sizes.
+func TestSortLargestFirst(t *testing.T) {
+	rng := rand.New(rand.NewPCG(7, 21))
+	for _, n := range []int{0, 1, 2, 16, 4 * maxSpans, 4*maxSpans + 1, 200} {
+		t.Run(fmt.Sprint(n), func(t *testing.T) {
+			c := make([]candidate, n)
+			for i := range c {
+				c[i] = candidate{piece: rng.IntN(n/2 + 1), a: float64(rng.IntN(6))}
+			}
+			want := slices.SortedFunc(slices.Values(c), byInfluence)
+			if sortLargestFirst(c); !slices.Equal(c, want) {
+				t.Errorf("sortLargestFirst gives %v, want %v", c, want)
+			}
+		})
+	}
 }

@@ -1,6 +1,7 @@
 package envelope
 
 import (
+	"math"
 	"runtime"
 	"sync"
 	"sync/atomic"
@@ -105,18 +106,16 @@ func ValuesRows(sol *frame.Solution, cs []combos.Combination, idx []int, set Set
 // valueOf envelopes the values in w.ev as a station's; ok is false when
 // the envelope is not finite.
 func valueOf(e *evaluator, w *work) (x [3]Extreme, ok bool) {
-	w.noise = [3]float64{}
+	// The largest sizes, compared as their bits (which order as the
+	// sizes do, a NaN above all), in registers.
+	var b0, b1, b2 uint64
 	for c := range w.ev {
-		for j, v := range w.ev[c] {
-			if v < 0 {
-				v = -v
-			}
-			w.noise[j] = max(w.noise[j], v)
-		}
+		v := &w.ev[c]
+		b0 = max(b0, math.Float64bits(v[0])&^(1<<63))
+		b1 = max(b1, math.Float64bits(v[1])&^(1<<63))
+		b2 = max(b2, math.Float64bits(v[2])&^(1<<63))
 	}
-	for j := range w.noise {
-		w.noise[j] *= roundOff
-	}
+	w.noise = [3]float64{math.Float64frombits(b0) * roundOff, math.Float64frombits(b1) * roundOff, math.Float64frombits(b2) * roundOff}
 	x = e.station(w)
 	for j := e.nEff; j < 3; j++ {
 		x[j] = Extreme{MaxBy: -1, MinBy: -1}

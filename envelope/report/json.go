@@ -176,6 +176,7 @@ func (p *Report) WriteJSON(w io.Writer) error {
 		}
 	}
 	j.raw("\n ],\n \"caution\": ").str(Caution).raw("\n}\n")
+	j.flush()
 	if j.err != nil {
 		return j.err
 	}
@@ -267,7 +268,21 @@ func quote(s string) []byte {
 type jsonWriter struct {
 	w   sink
 	err error
-	buf []byte
+	// out holds what is written until it reaches jsonFlush bytes (flush):
+	// the many short pieces of a document are appended, not each passed
+	// to w.
+	out []byte
+}
+
+// jsonFlush is how many bytes a jsonWriter holds before it passes them on.
+const jsonFlush = 1 << 15
+
+// flush passes on what j holds; j's writes end with it.
+func (j *jsonWriter) flush() {
+	if j.err == nil && len(j.out) > 0 {
+		_, j.err = j.w.Write(j.out)
+	}
+	j.out = j.out[:0]
 }
 
 // sink is what a jsonWriter writes to: the file's buffered writer, or a
@@ -321,14 +336,16 @@ func inOrder(j *jsonWriter, n int, item func(j *jsonWriter, i int)) {
 		wg.Add(1)
 		go func() {
 			defer wg.Done()
+			w := &jsonWriter{} // its held bytes reused from chunk to chunk
 			for k := range todo {
 				pt := &parts[k]
 				pt.buf = <-free
 				pt.buf.Reset()
-				w := &jsonWriter{w: pt.buf}
+				w.w, w.err = pt.buf, nil
 				for i := k * jsonChunk; i < min(n, (k+1)*jsonChunk); i++ {
 					item(w, i)
 				}
+				w.flush()
 				pt.err = w.err
 				close(pt.done)
 			}
@@ -350,14 +367,27 @@ func inOrder(j *jsonWriter, n int, item func(j *jsonWriter, i int)) {
 
 func (j *jsonWriter) raw(s string) *jsonWriter {
 	if j.err == nil {
-		_, j.err = j.w.WriteString(s)
+		j.out = append(j.out, s...)
+		if len(j.out) >= jsonFlush {
+			j.flush()
+		}
 	}
 	return j
 }
 
 func (j *jsonWriter) bytes(b []byte) *jsonWriter {
+	if len(b) >= jsonFlush { // a part formatted elsewhere (inOrder): passed on as it is
+		j.flush()
+		if j.err == nil {
+			_, j.err = j.w.Write(b)
+		}
+		return j
+	}
 	if j.err == nil {
-		_, j.err = j.w.Write(b)
+		j.out = append(j.out, b...)
+		if len(j.out) >= jsonFlush {
+			j.flush()
+		}
 	}
 	return j
 }
@@ -392,8 +422,13 @@ func (j *jsonWriter) num(v float64) *jsonWriter {
 		}
 		return j
 	}
-	j.buf = appendNum(j.buf[:0], v)
-	return j.bytes(j.buf)
+	if j.err == nil {
+		j.out = appendNum(j.out, v)
+		if len(j.out) >= jsonFlush {
+			j.flush()
+		}
+	}
+	return j
 }
 
 func (j *jsonWriter) list(names [][]byte, idx []int) *jsonWriter {
