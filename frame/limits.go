@@ -13,10 +13,12 @@ const (
 	// MaxEquations is the largest number of free degrees of freedom.
 	MaxEquations = 1_000_000
 	// MaxMemory is the most memory, in bytes (2 GiB), a run may be
-	// estimated to need at its peak (see [Options.PerMember]): the
-	// stiffness band and its factor, the load vectors and solutions of
-	// every case, the fixed-end forces, and what the caller holds per
-	// member with the garbage collector's margin.
+	// estimated to need at its peak (see [EstimateMemory]): the stiffness
+	// band, its factor and the substitution's work, the solutions of every
+	// load column with their factors, the critical load factors' search,
+	// and what the caller holds ([Options.PerMember], [Options.Held],
+	// [Options.Solutions]), with the heap's growth past what is live
+	// ([Options.Growth]).
 	MaxMemory = 2 << 30
 )
 
