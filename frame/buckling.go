@@ -78,7 +78,7 @@ func NewBuckling(mo *Model) (*Buckling, error) {
 	released := releasedRotations(mo)
 	order := rcmOrder(adjacency(mo))
 	dof, n, band := dofMap(mo, order, released)
-	if err := checkMemory(mo, n, band, 0); err != nil {
+	if err := checkMemory(mo, n, band, Options{}); err != nil {
 		return nil, err
 	}
 	b := &Buckling{model: mo, n: n, mems: make([]pencil, len(mo.Members))}

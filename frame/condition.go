@@ -36,6 +36,19 @@ type Options struct {
 	// member while the solution is in use (an envelope's stations), counted
 	// in the estimate of the run's peak memory that [MaxMemory] limits.
 	PerMember float64
+	// Held, when not nil, gives the other memory, in bytes, the caller
+	// adds to the estimate for a system of equations of info's size (what
+	// it solves and keeps beside the solution), the heap's growth over it
+	// included.
+	Held func(info Info) float64
+	// Solutions is how many solutions of the model's every load case the
+	// caller holds at once, for the estimate (0 counts as 1): 2 where
+	// combinations solved apart (second-order) each form one beside this.
+	Solutions int
+	// Growth is how far the heap grows past what is live at the caller's
+	// peak, for the estimate: the solutions and PerMember are counted
+	// Growth times (0 counts as 2, the garbage collector's default target).
+	Growth float64
 	// Axial, when not nil, gives per member the axial force N (tension
 	// positive, force) whose geometric stiffness is added to the member's:
 	// a second-order analysis of the model's cases about that state of

@@ -11,6 +11,7 @@ import (
 
 	"gonum.org/v1/gonum/blas"
 	"gonum.org/v1/gonum/blas/blas64"
+	lapackgo "gonum.org/v1/gonum/lapack/gonum"
 	"gonum.org/v1/gonum/lapack/lapack64"
 )
 
@@ -514,10 +515,12 @@ func TestUnitSlipLeavesTheMatrixWellConditioned(t *testing.T) {
 const estimateTol = 1e-12
 
 func TestInverseNormEstimateMatchesLAPACK(t *testing.T) {
-	// invNorm1 runs LAPACK's estimator (dlacn2) with plain triangular
-	// solves; LAPACK's dpbcon runs it with solves guarded against
-	// overflow. Where nothing overflows they must agree: frames scaled to
-	// unit diagonal, well and badly conditioned.
+	// invNorm1 runs LAPACK's estimator (dlacn2) with the project's band
+	// substitution (bandSolveVec); LAPACK's dpbcon runs it with solves
+	// guarded against overflow (dlatbs), and invNorm1Tbsv with gonum's
+	// plain triangular solves (dtbsv), as invNorm1 did before. Where
+	// nothing overflows all three must agree: frames scaled to unit
+	// diagonal, well and badly conditioned.
 	for _, tc := range []struct {
 		name string
 		mo   *Model
@@ -551,7 +554,38 @@ func TestInverseNormEstimateMatchesLAPACK(t *testing.T) {
 			if !near(got, want, estimateTol) {
 				t.Errorf("‖A⁻¹‖₁ estimated %.15g, dpbcon %.15g", got, want)
 			}
+			tb, ok := invNorm1Tbsv(u.Data, n, kb)
+			if !ok {
+				t.Fatal("the dtbsv solves overflowed")
+			}
+			if !near(got, tb, estimateTol) {
+				t.Errorf("‖A⁻¹‖₁ estimated %.15g, with dtbsv %.15g", got, tb)
+			}
 		})
+	}
+}
+
+// invNorm1Tbsv is invNorm1 with gonum's band triangular solves (dtbsv), as
+// it was before it took the project's substitution: the reference of
+// TestInverseNormEstimateMatchesLAPACK and BenchmarkConditionEstimate.
+func invNorm1Tbsv(u []float64, n, kb int) (est float64, ok bool) {
+	t := blas64.TriangularBand{Uplo: blas.Upper, Diag: blas.NonUnit, N: n, K: kb, Data: u, Stride: kb + 1}
+	x, v, sign := make([]float64, n), make([]float64, n), make([]int, n)
+	xv := blas64.Vector{N: n, Data: x, Inc: 1}
+	var kase int
+	var save [3]int
+	for {
+		est, kase = lapackgo.Implementation{}.Dlacn2(n, v, x, sign, est, kase, &save)
+		if kase == 0 {
+			return est, finite(est)
+		}
+		blas64.Tbsv(blas.Trans, t, xv)
+		blas64.Tbsv(blas.NoTrans, t, xv)
+		for _, xi := range x {
+			if !finite(xi) {
+				return 0, false
+			}
+		}
 	}
 }
 

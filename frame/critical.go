@@ -56,7 +56,7 @@ func criticalBisect(mo *Model, axial []float64) (float64, error) {
 	released := releasedRotations(mo)
 	order := rcmOrder(adjacency(mo))
 	dof, n, band := dofMap(mo, order, released)
-	if err := checkMemory(mo, n, band, 0); err != nil {
+	if err := checkMemory(mo, n, band, Options{}); err != nil {
 		return 0, err
 	}
 	if n == 0 {

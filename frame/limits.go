@@ -3,6 +3,7 @@ package frame
 import (
 	"errors"
 	"fmt"
+	"unsafe"
 )
 
 // Size limits. A model past them is refused by [Solve] with an error
@@ -12,10 +13,12 @@ const (
 	// MaxEquations is the largest number of free degrees of freedom.
 	MaxEquations = 1_000_000
 	// MaxMemory is the most memory, in bytes (2 GiB), a run may be
-	// estimated to need at its peak (see [Options.PerMember]): the
-	// stiffness band and its factor, the load vectors and solutions of
-	// every case, the fixed-end forces, and what the caller holds per
-	// member with the garbage collector's margin.
+	// estimated to need at its peak (see [EstimateMemory]): the stiffness
+	// band, its factor and the substitution's work, the solutions of every
+	// load column with their factors, the critical load factors' search,
+	// and what the caller holds ([Options.PerMember], [Options.Held],
+	// [Options.Solutions]), with the heap's growth past what is live
+	// ([Options.Growth]).
 	MaxMemory = 2 << 30
 )
 
@@ -46,25 +49,54 @@ func checkEquations(mo *Model) error {
 	return nil
 }
 
-// The estimate of a run's peak memory (resident set) is fitted to the
-// peaks of 'govern run --json' on regular frames from 20 × 20 to 70 × 70
-// (docs/errors.md), within 4 % of each: the solver's values as they are
-// held, what the caller holds per member times heldMargin (the envelopes
-// are allocated member by member while the collector lets the heap grow
-// past what is live, GOGC=100), and baseMemory, the runtime's and the
-// program's own.
+// The estimate of a run's peak memory (resident set), made before anything
+// large is allocated from the sizes of the model (docs/errors.md gives the
+// terms and the runs they are fitted to), in bytes:
+//
+//	growth × (solutions × (8 n nc + 48 loads + elements + 8 n (kb + 1))
+//	          + perMember × members)
+//	+ bandWork × 8 n (kb + 1) + 8 kb² + pencils + held + baseMemory
+//
+// for n equations of half-bandwidth kb (kb + 1 values a row), nc load
+// columns and as many member loads as the model has:
+//
+//   - each solution held at once (Options.Solutions, 1 at least): its
+//     displacements, six fixed-end forces for each member load, each
+//     member's element, and its factor (kept to solve more cases on it);
+//   - what the caller holds for each member (Options.PerMember);
+//   - both times the growth of the heap past what is live at the run's
+//     peak (Options.Growth; 2 when not given: the collector's default
+//     target, GOGC=100, which a run reaches when it makes as much garbage
+//     again once its live set is formed);
+//   - bandWork band matrices of the solve itself: the stiffness, its
+//     factor, the substitution's lists of the factor's terms (12 bytes an
+//     entry each way: three matrices' worth) and the elastic stiffness's
+//     factor that the critical load factors are found with, made beside
+//     them, six in all, with the heap's growth past them (fitted: 11);
+//     the kb × kb block of the pivot watch while a mechanism is looked
+//     for;
+//   - each member's pencil and element of the critical load factors'
+//     search (NewBuckling), made beside the solve: pencilBytes;
+//   - what the caller adds (Options.Held), and baseMemory: the runtime's,
+//     the program's and the model's own (fitted).
 const (
-	heldMargin = 1.3
-	baseMemory = 6 << 20
+	bandWork      = 11
+	defaultGrowth = 2
+	baseMemory    = 14 << 20
+)
+
+// elementBytes is the memory of one member's element in a solution, and
+// pencilBytes that of its pencil in the critical load factors' search,
+// with the 32 entries of Kg a member with no release lists, and its
+// element there.
+const (
+	elementBytes = float64(unsafe.Sizeof(element{}))
+	pencilBytes  = float64(unsafe.Sizeof(pencil{})+32*unsafe.Sizeof(gEntry{})) + elementBytes
 )
 
 // memory returns the estimated peak memory, in bytes, of solving mo (n
-// equations of half-bandwidth band) with the results its caller holds,
-// perMember bytes a member: the band and its factor (and, while a
-// mechanism is being looked for, a third copy and the kb × kb block the
-// pivot watch keeps), the right-hand sides that become the displacements,
-// six fixed-end forces for each member load, and those results.
-func memory(mo *Model, n, band int, perMember float64) float64 {
+// equations of half-bandwidth band) with what the caller holds (opt).
+func memory(mo *Model, n, band int, opt Options) float64 {
 	kb := float64(min(band, max(n-1, 0)))
 	nc := float64(max(len(mo.Cases), 1))
 	fn := float64(n)
@@ -72,13 +104,24 @@ func memory(mo *Model, n, band int, perMember float64) float64 {
 	for c := range mo.Cases {
 		loads += len(mo.Cases[c].MemberLoads)
 	}
-	values := 3*fn*(kb+1) + kb*kb + fn*nc + 6*float64(loads)
-	return 8*values + heldMargin*perMember*float64(len(mo.Members)) + baseMemory
+	members := float64(len(mo.Members))
+	matrix := 8 * fn * (kb + 1)
+	solution := 8*(fn*nc+6*float64(loads)) + elementBytes*members + matrix
+	growth := opt.Growth
+	if growth == 0 {
+		growth = defaultGrowth
+	}
+	est := growth*(float64(max(opt.Solutions, 1))*solution+opt.PerMember*members) +
+		bandWork*matrix + 8*kb*kb + pencilBytes*members + baseMemory
+	if opt.Held != nil {
+		est += opt.Held(Info{Equations: n, Bandwidth: band, Columns: len(mo.Cases)})
+	}
+	return est
 }
 
 // checkMemory refuses a run estimated to need more than MaxMemory.
-func checkMemory(mo *Model, n, band int, perMember float64) error {
-	if s := memory(mo, n, band, perMember); s > MaxMemory {
+func checkMemory(mo *Model, n, band int, opt Options) error {
+	if s := memory(mo, n, band, opt); s > MaxMemory {
 		cases := fmt.Sprintf("%d load cases", len(mo.Cases))
 		if len(mo.Cases) == 1 {
 			cases = "1 load case"
@@ -137,5 +180,5 @@ func EstimateMemory(mo *Model, opt Options) (float64, Info, error) {
 	}
 	released := releasedRotations(mo)
 	_, n, band := dofMap(mo, rcmOrder(adjacency(mo)), released)
-	return memory(mo, n, band, opt.PerMember), Info{Equations: n, Bandwidth: band}, nil
+	return memory(mo, n, band, opt), Info{Equations: n, Bandwidth: band, Columns: len(mo.Cases)}, nil
 }

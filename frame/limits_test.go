@@ -25,10 +25,13 @@ func TestModelsPastTheLimitsAreRefused(t *testing.T) {
 			// A star: one hub joined to 12,000 pinned feet. Every foot's
 			// rotation couples to the hub, so reverse Cuthill–McKee cannot
 			// narrow the band: 12,003 equations and a half-bandwidth of 12,001
-			// (the hub is numbered next to the last foot); band, factor and
-			// diagnosis copy, 3 × 12,003 × 12,002 values, and the pivot
-			// watch's block, 12,001², × 8 bytes = 4.29 GiB, and 6 MiB
-			// of the runtime's own: 4.3 GiB.
+			// (the hub is numbered next to the last foot). A band matrix is
+			// 12,003 × 12,002 values, 8 bytes each: 1.07 GiB. The solution,
+			// with its factor and the 12,000 members' elements, twice for the
+			// collector's growth, 2.16 GiB; the solve's eleven band matrices'
+			// worth, 11.81 GiB; the pivot watch's block, 12,001² values,
+			// 1.07 GiB; the members' pencils for the critical load factors,
+			// 53 MiB; and 14 MiB of the runtime's own: 15.1 GiB.
 			name: "a stiffness band past the memory limit",
 			model: func() *Model {
 				const feet = 12000
@@ -40,7 +43,7 @@ func TestModelsPastTheLimitsAreRefused(t *testing.T) {
 				}
 				return mo
 			},
-			want: "the model is too large: solving needs about 4.3 GiB of memory (12,003 equations, half-bandwidth 12,001, 0 load cases); the limit is 2.0 GiB",
+			want: "the model is too large: solving needs about 15.1 GiB of memory (12,003 equations, half-bandwidth 12,001, 0 load cases); the limit is 2.0 GiB",
 		},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
@@ -60,5 +63,49 @@ func TestThousands(t *testing.T) {
 		if got := thousands(n); got != want {
 			t.Errorf("thousands(%d) = %q, want %q", n, got, want)
 		}
+	}
+}
+
+// The estimate's arithmetic on a model small enough to count by hand,
+// against the formula documented beside memory (limits.go): a cantilever
+// fixed at one end, its free end's 3 equations coupled (half-bandwidth 2),
+// one load case with one member load.
+func TestMemoryEstimateArithmetic(t *testing.T) {
+	mo := cantilever(4, 200e6, 5e-3, 8e-5)
+	mo.Cases[0].MemberLoads = []MemberLoad{{Member: 0, To: 4, W: 10, WEnd: 10}}
+	// A band matrix: 3 × 3 values, 72 bytes. A solution: 3 × 1
+	// displacements and 6 fixed-end forces, 72 bytes, the member's element
+	// and its factor. The solve's 11 band matrices, 792 bytes, and the
+	// pivot watch's 2 × 2 block, 32 bytes; the member's pencil; 14 MiB of
+	// the runtime's own.
+	const matrix = 72.0
+	solution := 72 + elementBytes + matrix
+	rest := 11*matrix + 32 + pencilBytes + 14<<20
+	for _, tc := range []struct {
+		name string
+		opt  Options
+		want float64
+	}{
+		{"the solver alone, the heap grown to twice", Options{}, 2*solution + rest},
+		{"two solutions, 1000 bytes a member, the heap grown by half, 5000 added", Options{PerMember: 1000, Solutions: 2, Growth: 1.5,
+			Held: func(info Info) float64 {
+				if info != (Info{Equations: 3, Bandwidth: 2, Columns: 1}) {
+					t.Errorf("Held asked for %+v, want 3 equations, half-bandwidth 2, 1 column", info)
+				}
+				return 5000
+			}}, 1.5*(2*solution+1000) + 5000 + rest},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			got, info, err := EstimateMemory(mo, tc.opt)
+			if err != nil {
+				t.Fatal(err)
+			}
+			if info != (Info{Equations: 3, Bandwidth: 2, Columns: 1}) {
+				t.Fatalf("info %+v, want 3 equations, half-bandwidth 2, 1 column", info)
+			}
+			if got != tc.want {
+				t.Errorf("estimate %.0f bytes, want %.0f", got, tc.want)
+			}
+		})
 	}
 }

@@ -6,7 +6,9 @@ import "math"
 func (sol *Solution) Model() *Model { return sol.model }
 
 // Info returns the size of the system that was solved.
-func (sol *Solution) Info() Info { return Info{Equations: sol.dofs, Bandwidth: sol.band} }
+func (sol *Solution) Info() Info {
+	return Info{Equations: sol.dofs, Bandwidth: sol.band, Columns: len(sol.model.Cases)}
+}
 
 // Cond returns the estimated condition number (1-norm) of the stiffness
 // matrix scaled to unit diagonal, S K S with S = diag(1/√K[i][i]): LAPACK's

@@ -22,7 +22,7 @@ func (sol *Solution) SolveCases(cases []Case) (*Solution, error) {
 	if err := mo.Validate(); err != nil {
 		return nil, err
 	}
-	if err := checkMemory(&mo, sol.dofs, sol.band, 0); err != nil {
+	if err := checkMemory(&mo, sol.dofs, sol.band, Options{}); err != nil {
 		return nil, err
 	}
 	if free := releasedMoments(&mo, sol.released, nil); len(free) > 0 {

@@ -3,6 +3,7 @@ package frame
 import (
 	"fmt"
 	"math"
+	"math/rand/v2"
 	"runtime"
 	"sync"
 	"testing"
@@ -152,6 +153,67 @@ func bandSolveAxpy(u []float64, n, kb int, x []float64, nrhs int) {
 		}()
 	}
 	wg.Wait()
+}
+
+// The one-column substitution of the condition estimate (bandSolveVec)
+// gives bandSolve's column to the last bit, for a vector full from its
+// first row and for one that is zero down to a row (the forward
+// substitution starts there), and agrees with gonum's band triangular
+// solves (dtbsv, Uᵀ then U) to round-off.
+func TestColumnSubstitutionIsBandSolve(t *testing.T) {
+	const tol = 1e-12 // relative to the largest entry: the same solves, other orders of the sums
+	rng := rand.New(rand.NewPCG(3, 0))
+	for _, size := range []struct{ bays, storeys int }{{6, 5}, {3, 12}, {2, 3}, {7, 1}} {
+		mo := pieceFrame(size.bays, size.storeys)
+		order := rcmOrder(adjacency(mo))
+		dof, n, band := dofMap(mo, order, releasedRotations(mo))
+		sol := &Solution{model: mo, dof: dof, elems: make([]element, len(mo.Members))}
+		for m := range mo.Members {
+			sol.elems[m] = newElement(mo, m)
+		}
+		kb := min(band, n-1)
+		a := blas64.SymmetricBand{Uplo: blas.Upper, N: n, K: kb, Data: sol.assemble(n, kb), Stride: kb + 1}
+		u, ok := lapack64.Pbtrf(a)
+		if !ok {
+			t.Fatal("not positive definite")
+		}
+		full := make([]float64, n)
+		for i := range full {
+			full[i] = rng.Float64() - 0.5
+		}
+		late := make([]float64, n)
+		late[n/2], late[n-1] = 1, -2
+		for _, tc := range []struct {
+			name string
+			rhs  []float64
+		}{{"full", full}, {"zero to the middle", late}} {
+			name, rhs := tc.name, tc.rhs
+			t.Run(fmt.Sprintf("%dx%d/%s", size.bays, size.storeys, name), func(t *testing.T) {
+				want := append([]float64(nil), rhs...)
+				bandSolve(u.Data, n, kb, want, 1)
+				got := append([]float64(nil), rhs...)
+				bandSolveVec(u.Data, n, kb, got)
+				for i := range got {
+					if got[i] != want[i] {
+						t.Fatalf("x[%d] = %v, bandSolve %v", i, got[i], want[i])
+					}
+				}
+				tb := append([]float64(nil), rhs...)
+				f := blas64.TriangularBand{Uplo: blas.Upper, Diag: blas.NonUnit, N: n, K: kb, Data: u.Data, Stride: kb + 1}
+				blas64.Tbsv(blas.Trans, f, blas64.Vector{N: n, Data: tb, Inc: 1})
+				blas64.Tbsv(blas.NoTrans, f, blas64.Vector{N: n, Data: tb, Inc: 1})
+				big := 0.0
+				for _, v := range tb {
+					big = max(big, math.Abs(v))
+				}
+				for i := range got {
+					if math.Abs(got[i]-tb[i]) > tol*big {
+						t.Fatalf("x[%d] = %v, dtbsv %v", i, got[i], tb[i])
+					}
+				}
+			})
+		}
+	}
 }
 
 // TestOneColumnIsTheBlockedSolveToTheLastBit checks that a single load

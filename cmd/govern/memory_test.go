@@ -2,7 +2,9 @@ package main
 
 import (
 	"bytes"
+	"flag"
 	"fmt"
+	"strings"
 	"testing"
 
 	"govern/cmd/govern/modelfile"
@@ -12,23 +14,34 @@ import (
 // The estimate that refuses a model too large (frame.MaxMemory) is within
 // 25 % of the peak memory measured for it: the peaks of 'govern run
 // --quiet --json' (maximum resident set size from /usr/bin/time) on the
-// frames docs/perf/model.sh writes, measured 2026-12-02 and listed in
-// docs/errors.md, with their equations and half-bandwidths.
+// frames docs/perf/model.sh writes, first- and second-order, measured by
+// docs/perf/memory.sh and listed in docs/errors.md, with their equations
+// and half-bandwidths.
 func TestMemoryEstimateAgainstMeasuredPeaks(t *testing.T) {
 	const within = 0.25
 	for _, m := range []struct {
 		bays, storeys int
+		second        bool
 		equations     int
 		band          int
 		peakMiB       float64
 	}{
-		{20, 20, 1260, 62, 28},
-		{40, 40, 4920, 122, 143},
-		{30, 60, 5580, 98, 169},
-		{60, 60, 10980, 182, 492},
-		{20, 200, 12600, 68, 595},
+		{10, 10, false, 330, 32, 19},
+		{20, 20, false, 1260, 62, 40},
+		{40, 40, false, 4920, 122, 202},
+		{30, 60, false, 5580, 98, 258},
+		{60, 60, false, 10980, 182, 714},
+		{20, 200, false, 12600, 68, 852},
+		{10, 20, true, 660, 38, 55},
+		{20, 30, true, 1890, 68, 150},
+		{30, 30, true, 2790, 92, 247},
+		{30, 60, true, 5580, 98, 657},
 	} {
-		t.Run(fmt.Sprintf("%dx%d", m.bays, m.storeys), func(t *testing.T) {
+		name := fmt.Sprintf("%dx%d", m.bays, m.storeys)
+		if m.second {
+			name += "-second-order"
+		}
+		t.Run(name, func(t *testing.T) {
 			s := modelfile.Starter{Title: "memory", Spacing: 6}
 			for i := range m.bays {
 				s.Bays = append(s.Bays, []float64{7.5, 6.0}[min(i, 1)])
@@ -40,7 +53,11 @@ func TestMemoryEstimateAgainstMeasuredPeaks(t *testing.T) {
 			if err := modelfile.WriteStarter(&src, s); err != nil {
 				t.Fatal(err)
 			}
-			job, err := modelfile.Read("memory.toml", src.Bytes())
+			text := src.String()
+			if m.second {
+				text = strings.Replace(text, "[analysis]\n", "[analysis]\nsecond_order = true\n", 1)
+			}
+			job, err := modelfile.Read("memory.toml", []byte(text))
 			if err != nil {
 				t.Fatal(err)
 			}
@@ -57,5 +74,28 @@ func TestMemoryEstimateAgainstMeasuredPeaks(t *testing.T) {
 				t.Errorf("estimate %.0f MiB, measured peak %.0f MiB: %.2f of it", est/(1<<20), m.peakMiB, r)
 			}
 		})
+	}
+}
+
+var memoryEstimates = flag.String("memory-estimates", "", "print the memory estimate of these model files (separated by spaces), as docs/perf/memory.sh asks")
+
+// TestPrintMemoryEstimates prints, with -memory-estimates 'FILE...' (and
+// -v), a line for each model file: "estimate FILE equations
+// half-bandwidth load-columns bytes", the estimate of the peak memory of
+// 'govern run' that frame.MaxMemory limits, for docs/perf/memory.sh.
+func TestPrintMemoryEstimates(t *testing.T) {
+	if *memoryEstimates == "" {
+		t.Skip("a tool: give -memory-estimates 'FILE...' to print their estimates")
+	}
+	for _, path := range strings.Fields(*memoryEstimates) {
+		job, err := loadModel(path)
+		if err != nil {
+			t.Fatal(err)
+		}
+		est, info, err := analysis.EstimateMemory(&job.Job)
+		if err != nil {
+			t.Fatal(err)
+		}
+		fmt.Printf("estimate %s %d %d %d %.0f\n", path, info.Equations, info.Bandwidth, info.Columns, est)
 	}
 }

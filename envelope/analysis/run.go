@@ -187,7 +187,9 @@ func Run(ctx context.Context, job *Job, opt Options) (*Result, error) {
 	report(opt, Progress{Phase: fmt.Sprintf("solving %d loads (%d load cases, %d pattern pieces or arrangements)",
 		len(lay.Model.Cases), len(sv.model.Cases), len(lay.Model.Cases)-len(sv.model.Cases))})
 	solver := opt.Solver
-	solver.PerMember += perMember(job, sv, lay, opt)
+	held := memoryOptions(job, sv, lay, opt)
+	solver.PerMember += held.PerMember
+	solver.Held, solver.Solutions, solver.Growth = held.Held, held.Solutions, held.Growth
 	// The elastic stiffness with the sections as given, factored for the
 	// critical load factors (every run finds them) beside the solve, whose
 	// assembly and factorization take one processor.
@@ -591,14 +593,6 @@ func (r *Result) endForces(c, m int) [6]float64 {
 	return f
 }
 
-// perMember is what the envelopes will hold per member, for the estimate
-// of the run's memory: each member's stations, with two faces on a beam.
-func perMember(job *Job, sv solved, lay *patterns.Layout, opt Options) float64 {
-	pieces := len(lay.Model.Cases) - len(sv.model.Cases)
-	service := slices.ContainsFunc(sv.combinations, func(c combos.Combination) bool { return c.Service })
-	return float64(job.Settings.Stations+2) * envelope.StationBytes(pieces, service, opt.allPieces)
-}
-
 // EstimateMemory returns the estimate of the peak memory, in bytes, of
 // running job, which Run refuses past frame.MaxMemory (an error wrapping
 // frame.ErrTooLarge), and the size of its system of equations. It places
@@ -612,5 +606,5 @@ func EstimateMemory(job *Job) (float64, frame.Info, error) {
 	if err != nil {
 		return 0, frame.Info{}, err
 	}
-	return frame.EstimateMemory(lay.Model, frame.Options{PerMember: perMember(job, sv, lay, Options{})})
+	return frame.EstimateMemory(lay.Model, memoryOptions(job, sv, lay, Options{}))
 }
