@@ -467,27 +467,6 @@ func classify(mv []float64, nz float64, pos, neg, zer []int32) (m0 float64, np, 
 	return m0, np, nn, nr
 }
 
-// classifyLine is classify of M = a + x·v, each unit's M stored in mv
-// as it is formed: one pass over the units instead of two.
-func classifyLine(mv, a, v []float64, x, nz float64, pos, neg, zer []int32) (m0 float64, np, nn, nr int) {
-	n := len(mv)
-	a, v = a[:n], v[:n]
-	pos, neg, zer = pos[:n], neg[:n], zer[:n]
-	for u := range mv {
-		m := a[u] + x*v[u]
-		mv[u] = m
-		m0 += m
-		pos[np] = int32(u)
-		neg[nn] = int32(u)
-		zer[nr] = int32(u)
-		p, q := b2i(m > nz), b2i(m < -nz)
-		np += p
-		nn += q
-		nr += 1 - p - q
-	}
-	return m0, np, nn, nr
-}
-
 // b2i is 1 for true and 0 for false, without a branch.
 func b2i(b bool) int {
 	var i int
@@ -609,17 +588,15 @@ func (pl *exactPlacement) scanFolded(e *evaluator, w *work, f *fold, i, k int, r
 				for u, a := range fa {
 					mv[u] = (a + x*fv[u]) * sc[2]
 				}
+			} else {
+				for u, a := range fa {
+					mv[u] = a + x*fv[u]
+				}
 			}
 		}
 		nz := w.noise[2]
 		f.pos, f.neg, f.zer = grow(f.pos, nu), grow(f.neg, nu), grow(f.zer, nu)
-		var m0 float64
-		var cp, cn, cz int
-		if f.second || scaled {
-			m0, cp, cn, cz = classify(mv, nz, f.pos, f.neg, f.zer)
-		} else {
-			m0, cp, cn, cz = classifyLine(mv, fc.a, fc.v, x, nz, f.pos, f.neg, f.zer)
-		}
+		m0, cp, cn, cz := classify(mv, nz, f.pos, f.neg, f.zer)
 		pos, neg, zer := f.pos[:cp], f.neg[:cn], f.zer[:cz]
 		var ps, zs [3]float64
 		ps[0], ps[1], ps[2], big[2][0] = sumsOver(pos, fc.n, fc.v, mv, mv)
