@@ -38,16 +38,11 @@ func (sol *Solution) SolveCases(cases []Case) (*Solution, error) {
 	}
 	out.indexLoads()
 	out.indexImposed()
-	n, nc := sol.dofs, len(cases)
+	n := sol.dofs
 	if n == 0 {
 		return out, nil
 	}
-	kb := min(sol.band, n-1)
-	x := out.rhs(n)
-	bandSolveScaled(sol.factor, n, kb, x, nc, sol.pow2)
-	out.x = x
-	out.zero = make([]float64, nc)
-	if err := out.checkFinite(); err != nil {
+	if err := out.solveLoads(n, min(sol.band, n-1)); err != nil {
 		return nil, err
 	}
 	return out, nil

@@ -131,7 +131,6 @@ func SolveWith(mo *Model, opt Options) (*Solution, error) {
 	sol.indexLoads()
 	sol.indexImposed()
 
-	nc := len(mo.Cases)
 	if n == 0 {
 		if err := sol.checkDiagonal(nil, 0, dof, parts, released); err != nil {
 			return nil, err
@@ -197,15 +196,22 @@ func SolveWith(mo *Model, opt Options) (*Solution, error) {
 	}
 
 	// K x = b is solved as (D K D)(D⁻¹ x) = D b.
-	x := sol.rhs(n)
-	bandSolveScaled(u.Data, n, kb, x, nc, d)
-	sol.x = x
 	sol.factor, sol.pow2 = u.Data, d
-	sol.zero = make([]float64, nc)
-	if err := sol.checkFinite(); err != nil {
+	if err := sol.solveLoads(n, kb); err != nil {
 		return nil, err
 	}
 	return sol, nil
+}
+
+// solveLoads forms the right-hand sides of sol's cases and solves them on
+// its factor (n equations, kb superdiagonals, scaled by sol.pow2).
+func (sol *Solution) solveLoads(n, kb int) error {
+	nc := len(sol.model.Cases)
+	x := sol.rhs(n)
+	bandSolveScaled(sol.factor, n, kb, x, nc, sol.pow2)
+	sol.x = x
+	sol.zero = make([]float64, nc)
+	return sol.checkFinite()
 }
 
 // checkStiffness refuses a stiffness matrix that overflowed, which only
