@@ -622,4 +622,3 @@ func CriticalFactor(mo *Model, axial []float64) (float64, error) {
 	}
 	return b.Factor(axial)
 }
-
