@@ -7,60 +7,23 @@ package frame
 // registers. Every column's arithmetic is that of the column alone, in
 // the order of bandSolveVec's vector updates.
 
-// solveScratch is the memory of one solveK for k columns.
-type solveScratch struct {
-	t, l, s []float64
-}
-
-func (sc *solveScratch) grow(k int) {
-	if len(sc.l) < 6*k {
-		sc.t = make([]float64, maxOwn*k)
-		sc.l = make([]float64, 6*k)
-		sc.s = make([]float64, k)
-	}
-}
-
 // solveK overwrites each of the k columns of x (b.size rows, row-major)
 // with K⁻¹ times it: each member's own degrees of freedom eliminated,
 // the band factor, and them recovered. Each column's arithmetic is the
-// same whatever k.
+// same whatever k: four columns at a time, then one.
 func (b *Buckling) solveK(x []float64, k int) {
-	var sc solveScratch
-	sc.grow(k)
-	t, l, s := sc.t, sc.l[:6*k], sc.s[:k]
 	for m := range b.mems {
 		p := &b.mems[m]
-		ni := p.ni
-		if ni == 0 {
+		if p.ni == 0 {
 			continue
 		}
-		inv, kin, _, _ := p.parts()
-		xo := x[p.off*k : (p.off+ni)*k]
-		// t = inv · x_own, l = −kinᵀ t, x_own = t.
-		tt := t[:ni*k]
-		clear(tt)
-		for i := range ni {
-			ti := tt[i*k : (i+1)*k]
-			for q, a := range inv[i*ni : (i+1)*ni] {
-				xq := xo[q*k : (q+1)*k]
-				for c := range ti {
-					ti[c] += a * xq[c]
-				}
-			}
+		c := 0
+		for ; c+4 <= k; c += 4 {
+			p.eliminate4(x, k, c)
 		}
-		clear(l)
-		for i := range ni {
-			ti := tt[i*k : (i+1)*k]
-			for j := range 6 {
-				a := kin[6*i+j]
-				lj := l[j*k : (j+1)*k]
-				for c := range lj {
-					lj[c] -= a * ti[c]
-				}
-			}
+		for ; c < k; c++ {
+			p.eliminate1(x, k, c)
 		}
-		copy(xo, tt)
-		p.addGlobalCols(x, l, k)
 	}
 	switch {
 	case b.n == 0:
@@ -71,82 +34,135 @@ func (b *Buckling) solveK(x []float64, k int) {
 	}
 	for m := range b.mems {
 		p := &b.mems[m]
-		ni := p.ni
-		if ni == 0 {
+		if p.ni == 0 {
 			continue
 		}
-		_, _, w, _ := p.parts()
-		xo := x[p.off*k : (p.off+ni)*k]
-		p.localCols(l, x, k)
-		// x_own −= w · l.
-		for i := range ni {
-			clear(s)
-			for j, a := range w[6*i : 6*i+6] {
-				lj := l[j*k : (j+1)*k]
-				for c := range s {
-					s[c] += a * lj[c]
+		c := 0
+		for ; c+4 <= k; c += 4 {
+			p.recover4(x, k, c)
+		}
+		for ; c < k; c++ {
+			p.recover1(x, k, c)
+		}
+	}
+}
+
+// eliminate4 eliminates the member's own degrees of freedom from columns
+// c to c+3 of the block x (k columns): t = K_oo⁻¹ x_o takes x_o's place,
+// and −K_noᵀ t, turned to global axes, is added at its nodes.
+func (p *pencil) eliminate4(x []float64, k, c int) {
+	ni := p.ni
+	inv, kin, _, _ := p.parts()
+	var xv, t [maxOwn][4]float64
+	for q := range ni {
+		copy(xv[q][:], x[(p.off+q)*k+c:(p.off+q)*k+c+4])
+	}
+	for i := range ni {
+		var s [4]float64
+		for q, a := range inv[i*ni : (i+1)*ni] {
+			s[0] += a * xv[q][0]
+			s[1] += a * xv[q][1]
+			s[2] += a * xv[q][2]
+			s[3] += a * xv[q][3]
+		}
+		t[i] = s
+	}
+	var l [6][4]float64
+	for i := range ni {
+		ti := &t[i]
+		for j, a := range kin[6*i : 6*i+6] {
+			l[j][0] -= a * ti[0]
+			l[j][1] -= a * ti[1]
+			l[j][2] -= a * ti[2]
+			l[j][3] -= a * ti[3]
+		}
+		copy(x[(p.off+i)*k+c:(p.off+i)*k+c+4], ti[:])
+	}
+	for n := 0; n < 6; n += 3 {
+		for cc := range 4 {
+			g := [3]float64{p.c*l[n][cc] - p.s*l[n+1][cc], p.s*l[n][cc] + p.c*l[n+1][cc], l[n+2][cc]}
+			for i := range 3 {
+				if e := p.gdof[n+i]; e >= 0 {
+					x[e*k+c+cc] += g[i]
 				}
 			}
-			xi := xo[i*k : (i+1)*k]
-			for c := range xi {
-				xi[c] -= s[c]
-			}
 		}
 	}
 }
 
-// localCols sets l (6 rows of k) to the member's node degrees of freedom
-// of every column of the block x in local axes, as local for each.
-func (p *pencil) localCols(l, x []float64, k int) {
+// eliminate1 is eliminate4 for column c alone.
+func (p *pencil) eliminate1(x []float64, k, c int) {
+	ni := p.ni
+	inv, kin, _, _ := p.parts()
+	var xv, t [maxOwn]float64
+	for q := range ni {
+		xv[q] = x[(p.off+q)*k+c]
+	}
+	for i := range ni {
+		s := 0.0
+		for q, a := range inv[i*ni : (i+1)*ni] {
+			s += a * xv[q]
+		}
+		t[i] = s
+	}
+	var l [6]float64
+	for i := range ni {
+		ti := t[i]
+		for j, a := range kin[6*i : 6*i+6] {
+			l[j] -= a * ti
+		}
+		x[(p.off+i)*k+c] = ti
+	}
+	p.addGlobal(x, &l, c, k)
+}
+
+// recover4 recovers the member's own degrees of freedom in columns c to
+// c+3 of the block x (k columns): x_o −= K_oo⁻¹ K_on u_n, u_n its nodes'
+// displacements in local axes.
+func (p *pencil) recover4(x []float64, k, c int) {
+	ni := p.ni
+	_, _, w, _ := p.parts()
+	var l [6][4]float64
 	for n := 0; n < 6; n += 3 {
-		var g [3][]float64
+		var g [3][4]float64
 		for i := range 3 {
 			if e := p.gdof[n+i]; e >= 0 {
-				g[i] = x[e*k : (e+1)*k]
+				copy(g[i][:], x[e*k+c:e*k+c+4])
 			}
 		}
-		l0, l1, l2 := l[n*k:(n+1)*k], l[(n+1)*k:(n+2)*k], l[(n+2)*k:(n+3)*k]
-		for c := range k {
-			var g0, g1, g2 float64
-			if g[0] != nil {
-				g0 = g[0][c]
-			}
-			if g[1] != nil {
-				g1 = g[1][c]
-			}
-			if g[2] != nil {
-				g2 = g[2][c]
-			}
-			l0[c] = p.c*g0 + p.s*g1
-			l1[c] = -p.s*g0 + p.c*g1
-			l2[c] = g2
+		for cc := range 4 {
+			l[n][cc] = p.c*g[0][cc] + p.s*g[1][cc]
+			l[n+1][cc] = -p.s*g[0][cc] + p.c*g[1][cc]
+			l[n+2][cc] = g[2][cc]
 		}
+	}
+	for i := range ni {
+		var s [4]float64
+		for j, a := range w[6*i : 6*i+6] {
+			s[0] += a * l[j][0]
+			s[1] += a * l[j][1]
+			s[2] += a * l[j][2]
+			s[3] += a * l[j][3]
+		}
+		xi := x[(p.off+i)*k+c : (p.off+i)*k+c+4]
+		xi[0] -= s[0]
+		xi[1] -= s[1]
+		xi[2] -= s[2]
+		xi[3] -= s[3]
 	}
 }
 
-// addGlobalCols adds the local node forces l (6 rows of k), turned to
-// global axes, to every column of the block y, as addGlobal for each.
-func (p *pencil) addGlobalCols(y, l []float64, k int) {
-	for n := 0; n < 6; n += 3 {
-		l0, l1, l2 := l[n*k:(n+1)*k], l[(n+1)*k:(n+2)*k], l[(n+2)*k:(n+3)*k]
-		if e := p.gdof[n]; e >= 0 {
-			ye := y[e*k : (e+1)*k]
-			for c := range ye {
-				ye[c] += p.c*l0[c] - p.s*l1[c]
-			}
+// recover1 is recover4 for column c alone.
+func (p *pencil) recover1(x []float64, k, c int) {
+	ni := p.ni
+	_, _, w, _ := p.parts()
+	l := p.local(x, c, k)
+	for i := range ni {
+		s := 0.0
+		for j, a := range w[6*i : 6*i+6] {
+			s += a * l[j]
 		}
-		if e := p.gdof[n+1]; e >= 0 {
-			ye := y[e*k : (e+1)*k]
-			for c := range ye {
-				ye[c] += p.s*l0[c] + p.c*l1[c]
-			}
-		}
-		if e := p.gdof[n+2]; e >= 0 {
-			ye := y[e*k : (e+1)*k]
-			for c := range ye {
-				ye[c] += l2[c]
-			}
-		}
+		x[(p.off+i)*k+c] -= s
 	}
 }
 
