@@ -38,6 +38,7 @@ type Buckling struct {
 	mems  []pencil
 	size  int       // n plus every member's own degrees of freedom
 	sol   *Solution // the numbering, for the check of a factor found
+	lt    []float64 // u by columns (transposeBand)
 	first []int32   // firstRows of u
 }
 
@@ -85,6 +86,7 @@ func NewBuckling(mo *Model) (*Buckling, error) {
 	}
 	b.u = f.Data
 	b.first = firstRows(b.u, n, b.kb)
+	b.lt = transposeBand(b.u, n, b.kb)
 	return b, nil
 }
 
@@ -428,8 +430,7 @@ func (b *Buckling) definite(lambda float64, axial []float64, sc *certifyScratch)
 	clear(sc.data) // fresh memory too: written before it is read (see Solution.rhs)
 	data := sc.data
 	sol.assembleTo(data, b.kb, elems)
-	_, ok := lapack64.Pbtrf(blas64.SymmetricBand{Uplo: blas.Upper, N: b.n, K: b.kb, Data: data, Stride: b.kb + 1})
-	return ok
+	return bandCholesky(data, b.n, b.kb)
 }
 
 // lanczos returns, for each set of axial forces, the largest eigenvalue μ

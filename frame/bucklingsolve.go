@@ -30,7 +30,7 @@ func (b *Buckling) solveK(x []float64, k int) {
 	case k == 1:
 		bandSolveVec(b.u, b.n, b.kb, x[:b.n])
 	default:
-		bandSolveRows(b.u, b.n, b.kb, x[:b.n*k], k, b.first)
+		bandSolveRows(b.u, b.lt, b.n, b.kb, x[:b.n*k], k, b.first)
 	}
 	for m := range b.mems {
 		p := &b.mems[m]
@@ -166,6 +166,22 @@ func (p *pencil) recover1(x []float64, k, c int) {
 	}
 }
 
+// transposeBand returns the upper band factor u (n equations, kb
+// superdiagonals, row-major) by columns: column i's entries above the
+// diagonal, U[i−d][i] at [i(kb+1)+d] for d from 1 up, so that the forward
+// substitution reads each row's terms one after another.
+func transposeBand(u []float64, n, kb int) []float64 {
+	w := kb + 1
+	lt := make([]float64, n*w)
+	for i := range n {
+		lt[i*w] = u[i*w]
+		for d := 1; d <= min(kb, i); d++ {
+			lt[i*w+d] = u[(i-d)*w+d]
+		}
+	}
+	return lt
+}
+
 // firstRows returns, for each column i of the upper band factor u (n
 // equations, kb superdiagonals), the first row whose entry in it is not
 // zero: the forward substitution of row i reads no row above it.
@@ -187,12 +203,12 @@ func firstRows(u []float64, n, kb int) []int32 {
 
 // bandSolveRows overwrites the k columns of x (n rows, row-major) with
 // U⁻¹ U⁻ᵀ x, u an upper band Cholesky factor (row-major, kb
-// superdiagonals) and first its firstRows: each row formed at once from
+// superdiagonals), lt its transposeBand and first its firstRows: each row formed at once from
 // the rows it reads, eight, four, two or one column at a time in
 // registers, each column's terms in the order of bandSolveVec's (x − v·y
 // is x + (−v)·y to the bit; a zero term inside the band changes no sum
 // but the sign of a zero).
-func bandSolveRows(u []float64, n, kb int, x []float64, k int, first []int32) {
+func bandSolveRows(u, lt []float64, n, kb int, x []float64, k int, first []int32) {
 	w := kb + 1
 	for i := range n {
 		d := 1 / u[i*w]
@@ -203,7 +219,7 @@ func bandSolveRows(u []float64, n, kb int, x []float64, k int, first []int32) {
 				y := x[i*k+c : i*k+c+8 : i*k+c+8]
 				s0, s1, s2, s3, s4, s5, s6, s7 := y[0], y[1], y[2], y[3], y[4], y[5], y[6], y[7]
 				for r := lo; r < i; r++ {
-					v := u[r*w+i-r]
+					v := lt[i*w+i-r]
 					z := x[r*k+c : r*k+c+8 : r*k+c+8]
 					s0 -= v * z[0]
 					s1 -= v * z[1]
@@ -220,7 +236,7 @@ func bandSolveRows(u []float64, n, kb int, x []float64, k int, first []int32) {
 				y := x[i*k+c : i*k+c+4 : i*k+c+4]
 				s0, s1, s2, s3 := y[0], y[1], y[2], y[3]
 				for r := lo; r < i; r++ {
-					v := u[r*w+i-r]
+					v := lt[i*w+i-r]
 					z := x[r*k+c : r*k+c+4 : r*k+c+4]
 					s0 -= v * z[0]
 					s1 -= v * z[1]
@@ -233,7 +249,7 @@ func bandSolveRows(u []float64, n, kb int, x []float64, k int, first []int32) {
 				y := x[i*k+c : i*k+c+2 : i*k+c+2]
 				s0, s1 := y[0], y[1]
 				for r := lo; r < i; r++ {
-					v := u[r*w+i-r]
+					v := lt[i*w+i-r]
 					z := x[r*k+c : r*k+c+2 : r*k+c+2]
 					s0 -= v * z[0]
 					s1 -= v * z[1]
@@ -243,7 +259,7 @@ func bandSolveRows(u []float64, n, kb int, x []float64, k int, first []int32) {
 			default:
 				s := x[i*k+c]
 				for r := lo; r < i; r++ {
-					s -= u[r*w+i-r] * x[r*k+c]
+					s -= lt[i*w+i-r] * x[r*k+c]
 				}
 				x[i*k+c] = s * d
 				c++

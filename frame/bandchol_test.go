@@ -1,0 +1,118 @@
+package frame
+
+import (
+	"fmt"
+	"math"
+	"math/rand/v2"
+	"slices"
+	"testing"
+
+	"gonum.org/v1/gonum/blas"
+	"gonum.org/v1/gonum/blas/blas64"
+	"gonum.org/v1/gonum/lapack/lapack64"
+)
+
+// randomBand returns a symmetric band matrix (upper band storage, n
+// equations, kb superdiagonals) B Bᵀ-like and diagonally dominant by the
+// factor dom (positive definite for dom > 1 by Gershgorin's theorem),
+// with some entries zero, and shifted by shift on the diagonal.
+func randomBand(rng *rand.Rand, n, kb int, dom, shift float64) []float64 {
+	w := kb + 1
+	a := make([]float64, n*w)
+	rowSum := make([]float64, n)
+	for i := range n {
+		for j := 1; j < w && i+j < n; j++ {
+			if rng.IntN(5) == 0 {
+				continue
+			}
+			v := rng.Float64() - 0.5
+			a[i*w+j] = v
+			rowSum[i] += math.Abs(v)
+			rowSum[i+j] += math.Abs(v)
+		}
+	}
+	for i := range n {
+		a[i*w] = dom*rowSum[i] + shift + 1e-3
+	}
+	return a
+}
+
+// TestBandCholesky checks the band Cholesky factorization of the check
+// of a factor (bandCholesky) against LAPACK's dpbtrf (gonum): the same
+// factor to 1e-12 of the largest entry on positive definite matrices
+// (diagonally dominant: Gershgorin's theorem), and both refusing
+// matrices that are not (a negative diagonal entry, or one dominant
+// matrix shifted far down); with and without AVX the same numbers to
+// the last bit.
+func TestBandCholesky(t *testing.T) {
+	rng := rand.New(rand.NewPCG(31, 7))
+	for _, tc := range []struct {
+		n, kb      int
+		dom, shift float64
+		definite   bool
+	}{
+		{1, 0, 2, 0, true}, {5, 4, 2, 0, true}, {40, 3, 1.5, 0, true}, {200, 37, 1.1, 0, true},
+		{300, 96, 1.2, 0, true}, {60, 9, 2, -1e6, false}, {120, 20, 0.2, -8, false},
+	} {
+		a := randomBand(rng, tc.n, tc.kb, tc.dom, tc.shift)
+		want, ok := lapack64.Pbtrf(blas64.SymmetricBand{Uplo: blas.Upper, N: tc.n, K: tc.kb, Data: slices.Clone(a), Stride: tc.kb + 1})
+		got := slices.Clone(a)
+		gotOK := bandCholesky(got, tc.n, tc.kb)
+		if ok != tc.definite || gotOK != ok {
+			t.Fatalf("n %d, kb %d: positive definite %v, LAPACK %v, meant %v", tc.n, tc.kb, gotOK, ok, tc.definite)
+		}
+		if ok {
+			scale := 0.0
+			for _, v := range want.Data {
+				scale = max(scale, math.Abs(v))
+			}
+			for i := range got {
+				if math.Abs(got[i]-want.Data[i]) > 1e-12*scale {
+					t.Fatalf("n %d, kb %d: entry %d is %.15g, LAPACK's %.15g", tc.n, tc.kb, i, got[i], want.Data[i])
+				}
+			}
+		}
+		if useAVX {
+			plain := slices.Clone(a)
+			useAVX = false
+			plainOK := bandCholesky(plain, tc.n, tc.kb)
+			useAVX = true
+			if plainOK != gotOK {
+				t.Fatalf("n %d, kb %d: without AVX positive definite %v, with %v", tc.n, tc.kb, plainOK, gotOK)
+			}
+			for i := range got {
+				if gotOK && plain[i] != got[i] {
+					t.Fatalf("n %d, kb %d: entry %d is %.17g without AVX, %.17g with", tc.n, tc.kb, i, plain[i], got[i])
+				}
+			}
+		}
+	}
+}
+
+// BenchmarkBandCholesky measures the band Cholesky factorization of the
+// check of a factor (bandCholesky) against LAPACK's dpbtrf (gonum) on
+// a matrix of the band of the 30 × 60 frame and smaller ones.
+func BenchmarkBandCholesky(b *testing.B) {
+	for _, size := range [][2]int{{600, 30}, {2000, 60}, {5580, 96}} {
+		a := randomBand(rand.New(rand.NewPCG(5, 5)), size[0], size[1], 1.2, 0)
+		c := make([]float64, len(a))
+		b.Run(fmt.Sprintf("%dx%d/own", size[0], size[1]), func(b *testing.B) {
+			b.ReportAllocs()
+			for b.Loop() {
+				copy(c, a)
+				if !bandCholesky(c, size[0], size[1]) {
+					b.Fatal("not positive definite")
+				}
+			}
+		})
+		b.Run(fmt.Sprintf("%dx%d/lapack", size[0], size[1]), func(b *testing.B) {
+			b.ReportAllocs()
+			for b.Loop() {
+				copy(c, a)
+				if _, ok := lapack64.Pbtrf(blas64.SymmetricBand{Uplo: blas.Upper, N: size[0], K: size[1], Data: c, Stride: size[1] + 1}); !ok {
+					b.Fatal("not positive definite")
+				}
+			}
+		})
+	}
+}
