@@ -40,3 +40,16 @@ func subScaled2(y, x, z []float64, a, b float64) {
 	}
 	subScaled2Go(y, x, z, a, b)
 }
+
+// lanes1 sets a[j] to the sum of v[t]·z[t] over the t < n (a multiple of
+// 4) with t mod 4 = j, in the order of t, with AVX.
+//
+//go:noescape
+func lanes1(v, z *float64, n int, a *[4]float64)
+
+// lanes4 sets dst[c], c < 4, to (dst[c] − ((s₀ + s₁) + (s₂ + s₃)))·d, sⱼ
+// the sum of v[t]·z[t·zstride/8 + c] over the t < n with t mod 4 = j in
+// the order of t, with AVX (zstride in bytes).
+//
+//go:noescape
+func lanes4(dst, z *float64, zstride int, v *float64, n int, d float64)

@@ -1,11 +1,10 @@
 package frame
 
 // The solves of the Lanczos iteration of [Buckling]: each member's own
-// degrees of freedom eliminated and recovered from one packed block of
-// its numbers, and the band substitutions of several columns at once,
-// each row formed from the rows it reads with the columns' sums held in
-// registers. Every column's arithmetic is that of the column alone, in
-// the order of bandSolveVec's vector updates.
+// degrees of freedom eliminated and recovered from its packed numbers,
+// four columns at a time, and the band substitutions of all the columns
+// at once (bucklingband.go). Every column's arithmetic is that of the
+// column alone, whatever the number of columns solved with it.
 
 // solveK overwrites each of the k columns of x (b.size rows, row-major)
 // with K⁻¹ times it: each member's own degrees of freedom eliminated,
@@ -25,12 +24,8 @@ func (b *Buckling) solveK(x []float64, k int) {
 			p.eliminate1(x, k, c)
 		}
 	}
-	switch {
-	case b.n == 0:
-	case k == 1:
-		bandSolveVec(b.u, b.n, b.kb, x[:b.n])
-	default:
-		bandSolveRows(b.u, b.lt, b.n, b.kb, x[:b.n*k], k, b.first)
+	if b.n > 0 {
+		bandSolveLanes(b.u, b.lt, b.n, b.kb, x[:b.n*k], k, b.first)
 	}
 	for m := range b.mems {
 		p := &b.mems[m]
@@ -166,157 +161,3 @@ func (p *pencil) recover1(x []float64, k, c int) {
 	}
 }
 
-// transposeBand returns the upper band factor u (n equations, kb
-// superdiagonals, row-major) by columns: column i's entries above the
-// diagonal, U[i−d][i] at [i(kb+1)+d] for d from 1 up, so that the forward
-// substitution reads each row's terms one after another.
-func transposeBand(u []float64, n, kb int) []float64 {
-	w := kb + 1
-	lt := make([]float64, n*w)
-	for i := range n {
-		lt[i*w] = u[i*w]
-		for d := 1; d <= min(kb, i); d++ {
-			lt[i*w+d] = u[(i-d)*w+d]
-		}
-	}
-	return lt
-}
-
-// firstRows returns, for each column i of the upper band factor u (n
-// equations, kb superdiagonals), the first row whose entry in it is not
-// zero: the forward substitution of row i reads no row above it.
-func firstRows(u []float64, n, kb int) []int32 {
-	w := kb + 1
-	first := make([]int32, n)
-	for i := range n {
-		f := i
-		for k := max(0, i-kb); k < i; k++ {
-			if u[k*w+i-k] != 0 {
-				f = k
-				break
-			}
-		}
-		first[i] = int32(f)
-	}
-	return first
-}
-
-// bandSolveRows overwrites the k columns of x (n rows, row-major) with
-// U⁻¹ U⁻ᵀ x, u an upper band Cholesky factor (row-major, kb
-// superdiagonals), lt its transposeBand and first its firstRows: each row formed at once from
-// the rows it reads, eight, four, two or one column at a time in
-// registers, each column's terms in the order of bandSolveVec's (x − v·y
-// is x + (−v)·y to the bit; a zero term inside the band changes no sum
-// but the sign of a zero).
-func bandSolveRows(u, lt []float64, n, kb int, x []float64, k int, first []int32) {
-	w := kb + 1
-	for i := range n {
-		d := 1 / u[i*w]
-		lo := int(first[i])
-		for c := 0; c < k; {
-			switch {
-			case c+8 <= k:
-				y := x[i*k+c : i*k+c+8 : i*k+c+8]
-				s0, s1, s2, s3, s4, s5, s6, s7 := y[0], y[1], y[2], y[3], y[4], y[5], y[6], y[7]
-				for r := lo; r < i; r++ {
-					v := lt[i*w+i-r]
-					z := x[r*k+c : r*k+c+8 : r*k+c+8]
-					s0 -= v * z[0]
-					s1 -= v * z[1]
-					s2 -= v * z[2]
-					s3 -= v * z[3]
-					s4 -= v * z[4]
-					s5 -= v * z[5]
-					s6 -= v * z[6]
-					s7 -= v * z[7]
-				}
-				y[0], y[1], y[2], y[3], y[4], y[5], y[6], y[7] = s0*d, s1*d, s2*d, s3*d, s4*d, s5*d, s6*d, s7*d
-				c += 8
-			case c+4 <= k:
-				y := x[i*k+c : i*k+c+4 : i*k+c+4]
-				s0, s1, s2, s3 := y[0], y[1], y[2], y[3]
-				for r := lo; r < i; r++ {
-					v := lt[i*w+i-r]
-					z := x[r*k+c : r*k+c+4 : r*k+c+4]
-					s0 -= v * z[0]
-					s1 -= v * z[1]
-					s2 -= v * z[2]
-					s3 -= v * z[3]
-				}
-				y[0], y[1], y[2], y[3] = s0*d, s1*d, s2*d, s3*d
-				c += 4
-			case c+2 <= k:
-				y := x[i*k+c : i*k+c+2 : i*k+c+2]
-				s0, s1 := y[0], y[1]
-				for r := lo; r < i; r++ {
-					v := lt[i*w+i-r]
-					z := x[r*k+c : r*k+c+2 : r*k+c+2]
-					s0 -= v * z[0]
-					s1 -= v * z[1]
-				}
-				y[0], y[1] = s0*d, s1*d
-				c += 2
-			default:
-				s := x[i*k+c]
-				for r := lo; r < i; r++ {
-					s -= lt[i*w+i-r] * x[r*k+c]
-				}
-				x[i*k+c] = s * d
-				c++
-			}
-		}
-	}
-	for i := n - 1; i >= 0; i-- {
-		d := 1 / u[i*w]
-		row := u[i*w+1 : i*w+min(w, n-i)]
-		for c := 0; c < k; {
-			switch {
-			case c+8 <= k:
-				y := x[i*k+c : i*k+c+8 : i*k+c+8]
-				s0, s1, s2, s3, s4, s5, s6, s7 := y[0], y[1], y[2], y[3], y[4], y[5], y[6], y[7]
-				for j, v := range row {
-					z := x[(i+1+j)*k+c : (i+1+j)*k+c+8 : (i+1+j)*k+c+8]
-					s0 -= v * z[0]
-					s1 -= v * z[1]
-					s2 -= v * z[2]
-					s3 -= v * z[3]
-					s4 -= v * z[4]
-					s5 -= v * z[5]
-					s6 -= v * z[6]
-					s7 -= v * z[7]
-				}
-				y[0], y[1], y[2], y[3], y[4], y[5], y[6], y[7] = s0*d, s1*d, s2*d, s3*d, s4*d, s5*d, s6*d, s7*d
-				c += 8
-			case c+4 <= k:
-				y := x[i*k+c : i*k+c+4 : i*k+c+4]
-				s0, s1, s2, s3 := y[0], y[1], y[2], y[3]
-				for j, v := range row {
-					z := x[(i+1+j)*k+c : (i+1+j)*k+c+4 : (i+1+j)*k+c+4]
-					s0 -= v * z[0]
-					s1 -= v * z[1]
-					s2 -= v * z[2]
-					s3 -= v * z[3]
-				}
-				y[0], y[1], y[2], y[3] = s0*d, s1*d, s2*d, s3*d
-				c += 4
-			case c+2 <= k:
-				y := x[i*k+c : i*k+c+2 : i*k+c+2]
-				s0, s1 := y[0], y[1]
-				for j, v := range row {
-					z := x[(i+1+j)*k+c : (i+1+j)*k+c+2 : (i+1+j)*k+c+2]
-					s0 -= v * z[0]
-					s1 -= v * z[1]
-				}
-				y[0], y[1] = s0*d, s1*d
-				c += 2
-			default:
-				s := x[i*k+c]
-				for j, v := range row {
-					s -= v * x[(i+1+j)*k+c]
-				}
-				x[i*k+c] = s * d
-				c++
-			}
-		}
-	}
-}

@@ -99,16 +99,21 @@ func bandSolveColsRef(u []float64, n, kb int, x []float64, k int) {
 }
 
 // TestSolveKAsBefore checks the solves of the Lanczos iteration (solveK:
-// the packed own blocks, the row-at-once band substitution) against the
-// column-by-column form they replace (solveKRef, kept here), on random
-// frames (fixed seed) for 1 to 9 columns: the same numbers to the last
-// bit (a zero's sign aside: == compares them), since each column's terms
-// are added in the same order. The reference is itself checked against
-// an independent product: K (K⁻¹ x) = x, by the pencils' own K, to 1e-9
-// of x's scale.
+// the packed own blocks, the band substitutions by partial sums) on
+// random frames (fixed seed) for 1 to 9 columns:
+//   - against the column-by-column form they replace (solveKRef, kept
+//     here, bandSolveVec's order of operations): the same to solveKTol of
+//     the column's largest number (the sums are in another order);
+//   - each column the same to the last bit solved alone or with the
+//     others, and with or without AVX (the numbers may not depend on the
+//     number of processors);
+//   - an independent product: K (K⁻¹ x) = x, K formed from the pencils
+//     before their own degrees of freedom are condensed, to 1e-9 of x's
+//     scale.
 func TestSolveKAsBefore(t *testing.T) {
+	const solveKTol = 1e-9
 	rng := rand.New(rand.NewPCG(21, 4))
-	for _, size := range [][2]int{{1, 1}, {3, 5}, {6, 4}} {
+	for _, size := range [][2]int{{1, 1}, {3, 5}, {6, 4}, {12, 9}} {
 		mo, _ := randomFrame(rng, size[0], size[1])
 		b, err := NewBuckling(mo)
 		if err != nil {
@@ -122,9 +127,36 @@ func TestSolveKAsBefore(t *testing.T) {
 			got, want := append([]float64(nil), x...), append([]float64(nil), x...)
 			b.solveK(got, k)
 			b.solveKRef(want, k)
-			for i := range got {
-				if got[i] != want[i] {
-					t.Fatalf("%d × %d frame, %d columns: entry %d is %.17g, before %.17g", size[0], size[1], k, i, got[i], want[i])
+			for c := range k {
+				scale := 0.0
+				for i := range b.size {
+					scale = max(scale, abs(want[i*k+c]))
+				}
+				for i := range b.size {
+					if abs(got[i*k+c]-want[i*k+c]) > solveKTol*scale {
+						t.Fatalf("%d × %d frame, %d columns: entry %d of column %d is %.17g, before %.17g", size[0], size[1], k, i, c, got[i*k+c], want[i*k+c])
+					}
+				}
+				alone := make([]float64, b.size)
+				for i := range alone {
+					alone[i] = x[i*k+c]
+				}
+				b.solveK(alone, 1)
+				for i := range alone {
+					if alone[i] != got[i*k+c] {
+						t.Fatalf("%d × %d frame, %d columns: entry %d of column %d is %.17g, alone %.17g", size[0], size[1], k, i, c, got[i*k+c], alone[i])
+					}
+				}
+			}
+			if useAVX {
+				plain := append([]float64(nil), x...)
+				useAVX = false
+				b.solveK(plain, k)
+				useAVX = true
+				for i := range plain {
+					if plain[i] != got[i] {
+						t.Fatalf("%d × %d frame, %d columns: entry %d is %.17g with AVX, %.17g without", size[0], size[1], k, i, got[i], plain[i])
+					}
 				}
 			}
 			if k == 1 {
