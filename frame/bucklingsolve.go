@@ -160,4 +160,3 @@ func (p *pencil) recover1(x []float64, k, c int) {
 		x[(p.off+i)*k+c] -= s
 	}
 }
-
