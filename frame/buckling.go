@@ -113,12 +113,13 @@ func (b *Buckling) buildPencils(elems []element) bool {
 				lo, hi := c*chunk, min((c+1)*chunk, len(mo.Members))
 				// One store for the run: the members' numbers lie
 				// together, in the order solveK reads them.
-				size := 0
+				sd, sk := 0, 0
 				for m := lo; m < hi; m++ {
 					ni := ownDOFs(&mo.Members[m])
-					size += ni*ni + 12*ni + (6+ni)*(6+ni)
+					sd += ni*ni + 12*ni
+					sk += (6 + ni) * (6 + ni)
 				}
-				st := pencilStore{d: make([]float64, 0, size), gnz: make([]gEntry, 0, 48*(hi-lo))}
+				st := pencilStore{d: make([]float64, 0, sd), k: make([]float64, 0, sk), gnz: make([]gEntry, 0, 48*(hi-lo))}
 				for m := lo; m < hi; m++ {
 					e := newElement(mo, m)
 					k, ok := b.mems[m].build(&e, &st)

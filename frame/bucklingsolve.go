@@ -52,7 +52,26 @@ func (p *pencil) eliminate4(x []float64, k, c int) {
 	for q := range ni {
 		copy(xv[q][:], x[(p.off+q)*k+c:(p.off+q)*k+c+4])
 	}
-	for i := range ni {
+	// Two rows at a time: eight independent sums.
+	i := 0
+	for ; i+1 < ni; i += 2 {
+		var s, u [4]float64
+		ri, ru := inv[i*ni:(i+1)*ni], inv[(i+1)*ni:(i+2)*ni]
+		for q := range ni {
+			a, b := ri[q], ru[q]
+			xq := &xv[q]
+			s[0] += a * xq[0]
+			s[1] += a * xq[1]
+			s[2] += a * xq[2]
+			s[3] += a * xq[3]
+			u[0] += b * xq[0]
+			u[1] += b * xq[1]
+			u[2] += b * xq[2]
+			u[3] += b * xq[3]
+		}
+		t[i], t[i+1] = s, u
+	}
+	for ; i < ni; i++ {
 		var s [4]float64
 		for q, a := range inv[i*ni : (i+1)*ni] {
 			s[0] += a * xv[q][0]
@@ -131,7 +150,34 @@ func (p *pencil) recover4(x []float64, k, c int) {
 			l[n+2][cc] = g[2][cc]
 		}
 	}
-	for i := range ni {
+	i := 0
+	for ; i+1 < ni; i += 2 {
+		var s, u [4]float64
+		wi, wu := w[6*i:6*i+6], w[6*i+6:6*i+12]
+		for j := range 6 {
+			a, b := wi[j], wu[j]
+			lj := &l[j]
+			s[0] += a * lj[0]
+			s[1] += a * lj[1]
+			s[2] += a * lj[2]
+			s[3] += a * lj[3]
+			u[0] += b * lj[0]
+			u[1] += b * lj[1]
+			u[2] += b * lj[2]
+			u[3] += b * lj[3]
+		}
+		xi := x[(p.off+i)*k+c : (p.off+i)*k+c+4]
+		xi[0] -= s[0]
+		xi[1] -= s[1]
+		xi[2] -= s[2]
+		xi[3] -= s[3]
+		xu := x[(p.off+i+1)*k+c : (p.off+i+1)*k+c+4]
+		xu[0] -= u[0]
+		xu[1] -= u[1]
+		xu[2] -= u[2]
+		xu[3] -= u[3]
+	}
+	for ; i < ni; i++ {
 		var s [4]float64
 		for j, a := range w[6*i : 6*i+6] {
 			s[0] += a * l[j][0]

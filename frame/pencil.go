@@ -19,14 +19,16 @@ const (
 // its nodes' six local degrees of freedom and ni of its own. Its numbers
 // (d) lie packed one member after another, in the order solveK reads
 // them: K's own block inverted (ni × ni), K's own rows at the node
-// columns (ni × 6), the product of the two (ni × 6), and K over all
-// 6 + ni degrees of freedom, row-major, for the check of a factor.
+// columns (ni × 6) and the product of the two (ni × 6); apart from them
+// (k), K over all 6 + ni degrees of freedom, row-major, for the check of
+// a factor.
 type pencil struct {
 	c, s float64
 	gdof [6]int // equation of each node degree of freedom, or < 0
 	ni   int
 	off  int       // where its own degrees of freedom start in a vector
-	d    []float64 // its numbers (above)
+	d    []float64 // its numbers for solveK (above)
+	k    []float64 // K over all its degrees of freedom
 	gnz  []gEntry  // the entries of Kg per unit axial force that are not zero, upper triangle, tension positive
 }
 
@@ -41,14 +43,14 @@ type gEntry struct {
 func (p *pencil) parts() (inv, kin, w, k []float64) {
 	ni := p.ni
 	d := p.d
-	return d[:ni*ni], d[ni*ni : ni*ni+6*ni], d[ni*ni+6*ni : ni*ni+12*ni], d[ni*ni+12*ni:]
+	return d[:ni*ni], d[ni*ni : ni*ni+6*ni], d[ni*ni+6*ni : ni*ni+12*ni], p.k
 }
 
 // pencilStore is the memory the pencils of a run of members share:
 // their numbers and Kg's entries are appended to it.
 type pencilStore struct {
-	d   []float64
-	gnz []gEntry
+	d, k []float64
+	gnz  []gEntry
 }
 
 // build sets p's parts from the member e, appending its numbers to st,
@@ -138,8 +140,11 @@ func (p *pencil) build(e *element, st *pencilStore) (k [6][6]float64, ok bool) {
 	}
 	p.ni = ni
 	at := len(st.d)
-	st.d = append(st.d, make([]float64, ni*ni+12*ni+keep*keep)...)
+	st.d = append(st.d, make([]float64, ni*ni+12*ni)...)
 	p.d = st.d[at:len(st.d):len(st.d)]
+	at = len(st.k)
+	st.k = append(st.k, make([]float64, keep*keep)...)
+	p.k = st.k[at:len(st.k):len(st.k)]
 	inv, kin, w, kk := p.parts()
 	for i := range ni {
 		for j := range 6 {
