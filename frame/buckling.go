@@ -464,11 +464,7 @@ func (b *Buckling) lanczos(axials [][]float64, r0, w0 []float64, keep bool) (mus
 				continue
 			}
 			// Reorthogonalize r against every q, and w = K r alike.
-			for q := range rc.qs {
-				s := dot(rc.ps[q], rc.r)
-				axpy(rc.r, -s, rc.qs[q])
-				axpy(rc.w, -s, rc.ps[q])
-			}
+			reorthogonalize(rc.r, rc.w, rc.qs, rc.ps)
 			bb := dot(rc.r, rc.w)
 			if j == 0 && !(bb > 0) {
 				errs[c] = errors.New("frame: CriticalFactor: the stiffness is not positive definite")

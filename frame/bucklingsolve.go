@@ -206,3 +206,85 @@ func (p *pencil) recover1(x []float64, k, c int) {
 		x[(p.off+i)*k+c] -= s
 	}
 }
+
+// reorthogonalize makes r K-orthogonal to each of qs in turn (modified
+// Gram–Schmidt: r −= (pᵀr) q, pᵀr taken after the previous q's), and w
+// = K r alike (w −= (pᵀr) p), ps[i] = K qs[i]. Each q's update and the
+// next q's product are one pass over the vectors; each product is summed
+// by four partial sums, (s₀ + s₁) + (s₂ + s₃), sⱼ over the entries i
+// with i mod 4 = j.
+func reorthogonalize(r, w []float64, qs, ps [][]float64) {
+	if len(qs) == 0 {
+		return
+	}
+	s := dot4(ps[0], r)
+	for q := range qs {
+		var next []float64
+		if q+1 < len(qs) {
+			next = ps[q+1]
+		}
+		s = updateDot(r, w, qs[q], ps[q], next, -s)
+	}
+}
+
+// dot4 returns xᵀy by four partial sums (see reorthogonalize).
+func dot4(x, y []float64) float64 {
+	y = y[:len(x)]
+	var s0, s1, s2, s3 float64
+	i := 0
+	for ; i+4 <= len(x); i += 4 {
+		s0 += x[i] * y[i]
+		s1 += x[i+1] * y[i+1]
+		s2 += x[i+2] * y[i+2]
+		s3 += x[i+3] * y[i+3]
+	}
+	for ; i < len(x); i++ {
+		switch i & 3 {
+		case 0:
+			s0 += x[i] * y[i]
+		case 1:
+			s1 += x[i] * y[i]
+		default:
+			s2 += x[i] * y[i]
+		}
+	}
+	return (s0 + s1) + (s2 + s3)
+}
+
+// updateDot sets r to r + a·q and w to w + a·p, and returns nextᵀr of
+// the new r as dot4 would (0 when next is nil).
+func updateDot(r, w, q, p, next []float64, a float64) float64 {
+	n := len(r)
+	w, q, p = w[:n], q[:n], p[:n]
+	if next == nil {
+		axpy(r, a, q)
+		axpy(w, a, p)
+		return 0
+	}
+	next = next[:n]
+	var s0, s1, s2, s3 float64
+	i := 0
+	for ; i+4 <= n; i += 4 {
+		r0, r1, r2, r3 := r[i]+a*q[i], r[i+1]+a*q[i+1], r[i+2]+a*q[i+2], r[i+3]+a*q[i+3]
+		r[i], r[i+1], r[i+2], r[i+3] = r0, r1, r2, r3
+		w0, w1, w2, w3 := w[i]+a*p[i], w[i+1]+a*p[i+1], w[i+2]+a*p[i+2], w[i+3]+a*p[i+3]
+		w[i], w[i+1], w[i+2], w[i+3] = w0, w1, w2, w3
+		s0 += next[i] * r0
+		s1 += next[i+1] * r1
+		s2 += next[i+2] * r2
+		s3 += next[i+3] * r3
+	}
+	for ; i < n; i++ {
+		r[i] += a * q[i]
+		w[i] += a * p[i]
+		switch i & 3 {
+		case 0:
+			s0 += next[i] * r[i]
+		case 1:
+			s1 += next[i] * r[i]
+		default:
+			s2 += next[i] * r[i]
+		}
+	}
+	return (s0 + s1) + (s2 + s3)
+}

@@ -2,6 +2,7 @@ package frame
 
 import (
 	"fmt"
+	"math"
 	"math/rand/v2"
 	"testing"
 )
@@ -247,6 +248,67 @@ func BenchmarkSolveK(b *testing.B) {
 					f.solve(y, k)
 				}
 			})
+		}
+	}
+}
+
+// TestReorthogonalize checks the fused Gram–Schmidt pass of the Lanczos
+// iteration against the plain one (a product, then two vector updates,
+// for each q in turn): r and w the same to 1e-12 of their largest
+// entries (the products are summed in another order), for vectors of
+// lengths 1 to 13 and 1 to 5 previous vectors (fixed seed); and r
+// K-orthogonal to every q after it, |pᵀr| ≤ 1e-12 ‖r‖ (r as given), for
+// orthonormal qs (the identity as K, p = q).
+func TestReorthogonalize(t *testing.T) {
+	rng := rand.New(rand.NewPCG(3, 9))
+	for n := 1; n <= 13; n++ {
+		for m := 1; m <= min(5, n); m++ {
+			qs, ps := make([][]float64, m), make([][]float64, m)
+			for j := range m {
+				q := make([]float64, n)
+				for i := range q {
+					q[i] = rng.Float64() - 0.5
+				}
+				// Orthonormal (plain Gram–Schmidt twice).
+				for range 2 {
+					for l := range j {
+						s := dot(qs[l], q)
+						axpy(q, -s, qs[l])
+					}
+				}
+				nq := math.Sqrt(dot(q, q))
+				for i := range q {
+					q[i] /= nq
+				}
+				qs[j], ps[j] = q, q
+			}
+			r := make([]float64, n)
+			for i := range r {
+				r[i] = rng.Float64() - 0.5
+			}
+			w := append([]float64(nil), r...)
+			nr := math.Sqrt(dot(r, r))
+			r2, w2 := append([]float64(nil), r...), append([]float64(nil), w...)
+			reorthogonalize(r, w, qs, ps)
+			for q := range qs {
+				s := dot(ps[q], r2)
+				axpy(r2, -s, qs[q])
+				axpy(w2, -s, ps[q])
+			}
+			scale := 0.0
+			for i := range r2 {
+				scale = max(scale, abs(r2[i]), abs(w2[i]))
+			}
+			for i := range r {
+				if abs(r[i]-r2[i]) > 1e-12*max(scale, 1e-300) || abs(w[i]-w2[i]) > 1e-12*max(scale, 1e-300) {
+					t.Fatalf("n %d, %d vectors: entry %d: r %.17g, w %.17g; plainly %.17g, %.17g", n, m, i, r[i], w[i], r2[i], w2[i])
+				}
+			}
+			for q := range qs {
+				if s := dot(ps[q], r); abs(s) > 1e-12*max(nr, 1e-300) {
+					t.Errorf("n %d, %d vectors: pᵀr = %g against vector %d", n, m, s, q)
+				}
+			}
 		}
 	}
 }
