@@ -9,9 +9,6 @@ import (
 	"sync"
 	"sync/atomic"
 
-	"gonum.org/v1/gonum/blas"
-	"gonum.org/v1/gonum/blas/blas64"
-	"gonum.org/v1/gonum/lapack/lapack64"
 	"gonum.org/v1/gonum/mat"
 )
 
@@ -80,11 +77,10 @@ func NewBuckling(mo *Model) (*Buckling, error) {
 	}
 	b.kb = min(band, n-1)
 	data := sol.assemble(n, b.kb)
-	f, ok := lapack64.Pbtrf(blas64.SymmetricBand{Uplo: blas.Upper, N: n, K: b.kb, Data: data, Stride: b.kb + 1})
-	if !ok {
+	if !bandCholesky(data, n, b.kb) {
 		return nil, b.refuse()
 	}
-	b.u = f.Data
+	b.u = data
 	b.first = firstRows(b.u, n, b.kb)
 	b.lt = transposeBand(b.u, n, b.kb)
 	return b, nil
@@ -400,29 +396,21 @@ const certifyGap = 1e-6
 // kept for the next: a frame's band is megabytes, and fresh memory is
 // slow to touch.
 type certifyScratch struct {
-	elems []element
-	data  []float64
+	data []float64
 }
 
 // definite reports whether K + λ·Kg of axial is positive definite; sc,
 // when not nil, lends it its memory.
 func (b *Buckling) definite(lambda float64, axial []float64, sc *certifyScratch) bool {
-	mo, sol := b.model, b.sol
 	if sc == nil {
 		sc = &certifyScratch{}
 	}
-	if len(sc.elems) != len(mo.Members) {
-		sc.elems = make([]element, len(mo.Members))
-	}
-	elems := sc.elems
-	for m := range mo.Members {
-		k, ok := b.mems[m].condensedAt(lambda * axial[m])
-		if !ok {
-			return false
-		}
-		elems[m] = element{k: k, c: b.mems[m].c, s: b.mems[m].s}
-	}
 	if b.n == 0 {
+		for m := range b.mems {
+			if _, ok := b.mems[m].condensedAt(lambda * axial[m]); !ok {
+				return false
+			}
+		}
 		return true
 	}
 	if len(sc.data) != b.n*(b.kb+1) {
@@ -430,8 +418,7 @@ func (b *Buckling) definite(lambda float64, axial []float64, sc *certifyScratch)
 	}
 	clear(sc.data) // fresh memory too: written before it is read (see Solution.rhs)
 	data := sc.data
-	sol.assembleTo(data, b.kb, elems)
-	return bandCholesky(data, b.n, b.kb)
+	return b.assembleAt(data, lambda, axial) && bandCholesky(data, b.n, b.kb)
 }
 
 // lanczos returns, for each set of axial forces, the largest eigenvalue μ
