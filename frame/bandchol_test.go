@@ -42,8 +42,9 @@ func randomBand(rng *rand.Rand, n, kb int, dom, shift float64) []float64 {
 // factor to 1e-12 of the largest entry on positive definite matrices
 // (diagonally dominant: Gershgorin's theorem), and both refusing
 // matrices that are not (a negative diagonal entry, or one dominant
-// matrix shifted far down); with and without AVX the same numbers to
-// the last bit.
+// matrix shifted far down); with and without AVX, and one row at a time
+// (bandCholeskyRows, LAPACK's dpbtf2 in row-major order), the same
+// numbers to the last bit.
 func TestBandCholesky(t *testing.T) {
 	rng := rand.New(rand.NewPCG(31, 7))
 	for _, tc := range []struct {
@@ -52,12 +53,17 @@ func TestBandCholesky(t *testing.T) {
 		definite   bool
 	}{
 		{1, 0, 2, 0, true}, {5, 4, 2, 0, true}, {40, 3, 1.5, 0, true}, {200, 37, 1.1, 0, true},
-		{300, 96, 1.2, 0, true}, {60, 9, 2, -1e6, false}, {120, 20, 0.2, -8, false},
+		{300, 96, 1.2, 0, true}, {301, 96, 1.2, 0, true}, {7, 2, 1.5, 0, true}, {6, 30, 1.5, 0, true},
+		{60, 9, 2, -1e6, false}, {120, 20, 0.2, -8, false},
 	} {
 		a := randomBand(rng, tc.n, tc.kb, tc.dom, tc.shift)
 		want, ok := lapack64.Pbtrf(blas64.SymmetricBand{Uplo: blas.Upper, N: tc.n, K: tc.kb, Data: slices.Clone(a), Stride: tc.kb + 1})
 		got := slices.Clone(a)
 		gotOK := bandCholesky(got, tc.n, tc.kb)
+		one := slices.Clone(a)
+		if oneOK := bandCholeskyRows(one, tc.n, tc.kb); oneOK != gotOK || gotOK && !slices.Equal(one, got) {
+			t.Fatalf("n %d, kb %d: two rows at a time differ from one at a time", tc.n, tc.kb)
+		}
 		if ok != tc.definite || gotOK != ok {
 			t.Fatalf("n %d, kb %d: positive definite %v, LAPACK %v, meant %v", tc.n, tc.kb, gotOK, ok, tc.definite)
 		}
@@ -115,4 +121,31 @@ func BenchmarkBandCholesky(b *testing.B) {
 			}
 		})
 	}
+}
+
+// bandCholeskyRows is bandCholesky one row at a time: row i pivoted and
+// scaled, then each row below it less its outer product.
+func bandCholeskyRows(a []float64, n, kb int) bool {
+	w := kb + 1
+	for i := range n {
+		m := min(kb, n-1-i)
+		row := a[i*w : i*w+m+1]
+		if !(row[0] > 0) {
+			return false
+		}
+		d := math.Sqrt(row[0])
+		row[0] = d
+		r := 1 / d
+		for j := 1; j <= m; j++ {
+			row[j] *= r
+		}
+		for j := 1; j <= m; j++ {
+			v := row[j]
+			y := a[(i+j)*w : (i+j)*w+m-j+1]
+			for c := range y {
+				y[c] -= v * row[j+c]
+			}
+		}
+	}
+	return true
 }
