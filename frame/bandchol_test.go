@@ -104,21 +104,25 @@ func BenchmarkBandCholesky(b *testing.B) {
 		c := make([]float64, len(a))
 		b.Run(fmt.Sprintf("%dx%d/own", size[0], size[1]), func(b *testing.B) {
 			b.ReportAllocs()
+			start := cpuTime()
 			for b.Loop() {
 				copy(c, a)
 				if !bandCholesky(c, size[0], size[1]) {
 					b.Fatal("not positive definite")
 				}
 			}
+			b.ReportMetric(float64(cpuTime()-start)/float64(b.N), "cpu-ns/op")
 		})
 		b.Run(fmt.Sprintf("%dx%d/lapack", size[0], size[1]), func(b *testing.B) {
 			b.ReportAllocs()
+			start := cpuTime()
 			for b.Loop() {
 				copy(c, a)
 				if _, ok := lapack64.Pbtrf(blas64.SymmetricBand{Uplo: blas.Upper, N: size[0], K: size[1], Data: c, Stride: size[1] + 1}); !ok {
 					b.Fatal("not positive definite")
 				}
 			}
+			b.ReportMetric(float64(cpuTime()-start)/float64(b.N), "cpu-ns/op")
 		})
 	}
 }
