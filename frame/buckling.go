@@ -22,11 +22,12 @@ import (
 // eigenproblem is posed over all of them: K x = λ (−Kg) x, with those
 // degrees of freedom kept (the inner nodes' axial ones, which Kg does not
 // touch, are condensed). K is applied inverted by eliminating each
-// member's own degrees of freedom and one band Cholesky factor of what is
-// left, the stiffness the first-order solve uses. αcr is 1/μ for the
-// largest μ of K⁻¹(−Kg), found by Lanczos iteration in the K inner
-// product with full reorthogonalization; each step is one band forward
-// and back substitution and one product with Kg.
+// member's own degrees of freedom (pencil.go) and one band Cholesky
+// factor of what is left, the stiffness the first-order solve uses
+// (bandchol.go). αcr is 1/μ for the largest μ of K⁻¹(−Kg), found by
+// Lanczos iteration in the K inner product with full
+// reorthogonalization; each step is one band forward and back
+// substitution (bucklingband.go) and one product with Kg.
 type Buckling struct {
 	model *Model
 	n     int // equations of the band
