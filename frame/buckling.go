@@ -203,37 +203,96 @@ func bandSolveVec(u []float64, n, kb int, x []float64) {
 }
 
 // mulKg sets column c of the block y to −Kg x for the axial forces
-// axials[c], x and y of b.size rows and len(axials) columns.
+// axials[c], x and y of b.size rows and len(axials) columns: four columns
+// at a time, then one (each column's numbers the same either way).
 func (b *Buckling) mulKg(y, x []float64, axials [][]float64) {
 	clear(y)
 	k := len(axials)
-	var z [6 + maxOwn]float64
 	for m := range b.mems {
 		p := &b.mems[m]
-		d := 6 + p.ni
-		for c, axial := range axials {
-			nm := axial[m]
-			if nm == 0 {
-				continue
-			}
-			l := p.local(x, c, k)
-			copy(z[:6], l[:])
-			for i := range p.ni {
-				z[6+i] = x[(p.off+i)*k+c]
-			}
-			var f [6 + maxOwn]float64
-			for _, e := range p.gnz {
-				f[e.i] += e.v * z[e.j]
-				if e.i != e.j {
-					f[e.j] += e.v * z[e.i]
-				}
-			}
-			for i := 6; i < d; i++ {
-				y[(p.off+i-6)*k+c] += -nm * f[i]
-			}
-			fn := [6]float64{-nm * f[0], -nm * f[1], -nm * f[2], -nm * f[3], -nm * f[4], -nm * f[5]}
-			p.addGlobal(y, &fn, c, k)
+		c := 0
+		for ; c+4 <= k; c += 4 {
+			p.mulKg4(y, x, k, c, [4]float64{axials[c][m], axials[c+1][m], axials[c+2][m], axials[c+3][m]})
 		}
+		for ; c < k; c++ {
+			if nm := axials[c][m]; nm != 0 {
+				p.mulKg1(y, x, k, c, nm)
+			}
+		}
+	}
+}
+
+// mulKg1 adds −nm·Kg x of the member to column c of the block y (k
+// columns).
+func (p *pencil) mulKg1(y, x []float64, k, c int, nm float64) {
+	var z [maxKeep]float64
+	d := 6 + p.ni
+	l := p.local(x, c, k)
+	copy(z[:6], l[:])
+	for i := range p.ni {
+		z[6+i] = x[(p.off+i)*k+c]
+	}
+	var f [maxKeep]float64
+	for _, e := range p.gnz {
+		f[e.i] += e.v * z[e.j]
+		if e.i != e.j {
+			f[e.j] += e.v * z[e.i]
+		}
+	}
+	for i := 6; i < d; i++ {
+		y[(p.off+i-6)*k+c] += -nm * f[i]
+	}
+	fn := [6]float64{-nm * f[0], -nm * f[1], -nm * f[2], -nm * f[3], -nm * f[4], -nm * f[5]}
+	p.addGlobal(y, &fn, c, k)
+}
+
+// mulKg4 is mulKg1 for columns c to c+3 at once, nm their axial forces
+// (a column whose force is 0 gets nothing).
+func (p *pencil) mulKg4(y, x []float64, k, c int, nm [4]float64) {
+	if nm == [4]float64{} {
+		return
+	}
+	var z [maxKeep][4]float64
+	for n := 0; n < 6; n += 3 {
+		var g [3][4]float64
+		for i := range 3 {
+			if e := p.gdof[n+i]; e >= 0 {
+				copy(g[i][:], x[e*k+c:e*k+c+4])
+			}
+		}
+		for cc := range 4 {
+			z[n][cc] = p.c*g[0][cc] + p.s*g[1][cc]
+			z[n+1][cc] = -p.s*g[0][cc] + p.c*g[1][cc]
+			z[n+2][cc] = g[2][cc]
+		}
+	}
+	for i := range p.ni {
+		copy(z[6+i][:], x[(p.off+i)*k+c:(p.off+i)*k+c+4])
+	}
+	var f [maxKeep][4]float64
+	for _, e := range p.gnz {
+		fi, zj := &f[e.i], &z[e.j]
+		fi[0] += e.v * zj[0]
+		fi[1] += e.v * zj[1]
+		fi[2] += e.v * zj[2]
+		fi[3] += e.v * zj[3]
+		if e.i != e.j {
+			fj, zi := &f[e.j], &z[e.i]
+			fj[0] += e.v * zi[0]
+			fj[1] += e.v * zi[1]
+			fj[2] += e.v * zi[2]
+			fj[3] += e.v * zi[3]
+		}
+	}
+	for cc, n := range nm {
+		if n == 0 {
+			continue
+		}
+		for i := 6; i < 6+p.ni; i++ {
+			y[(p.off+i-6)*k+c+cc] += -n * f[i][cc]
+		}
+		fn := [6]float64{-n * f[0][cc], -n * f[1][cc], -n * f[2][cc], -n * f[3][cc], -n * f[4][cc], -n * f[5][cc]}
+		p.addGlobal(y, &fn, c+cc, k)
 	}
 }
 
