@@ -222,14 +222,16 @@ func (p *pencil) condensedAt(n float64) (k [6][6]float64, ok bool) {
 
 // schurIn replaces a[:keep][:keep] by its Schur complement a[:keep, :keep]
 // − a[:keep, keep:r] a[keep:r, keep:r]⁻¹ a[keep:r, :keep] (r rows of a in
-// use), a[keep:r, keep:r] by Cholesky factorization; false when that is
-// not positive definite. a[keep:r] is left overwritten.
+// use, keep ≤ maxKeep and r − keep ≤ maxOwn), a[keep:r, keep:r] by
+// Cholesky factorization; false when that is not positive definite.
+// The rest of a is left as it was.
 func schurIn(a *[maxFull][maxFull]float64, r, keep int) bool {
 	z := r - keep
 	if z == 0 {
 		return true
 	}
-	var l [maxFull][maxFull]float64
+	// Arrays of the sizes needed only: they are zeroed at each call.
+	var l [maxOwn][maxOwn]float64
 	for j := range z {
 		s := a[keep+j][keep+j]
 		for q := range j {
@@ -249,7 +251,7 @@ func schurIn(a *[maxFull][maxFull]float64, r, keep int) bool {
 	}
 	// Each column j of a[keep:r, :keep]: y = L⁻¹ a[keep:, j]; then
 	// a[i][j] −= yᵢ · yⱼ summed, a[:keep, keep:] = a[keep:, :keep]ᵀ.
-	var y [maxFull][maxFull]float64 // y[j] = L⁻¹ column j
+	var y [maxKeep][maxOwn]float64 // y[j] = L⁻¹ column j
 	for j := range keep {
 		for i := range z {
 			s := a[keep+i][j]
