@@ -29,13 +29,21 @@ import (
 // local displacements u of the member's nodes, Σₖ Hᵢₖ·uₖ at station i,
 // with weights H of the member's condensed sub-element shape
 // (frame.Solution.SecondOrderWeightsTo, frame.Sway). So each column's u is
-// read once from the same rows (frame.Solution.DisplacementsEach), each
-// piece's M at each station is M₀ + x·V + N·Σₖ Hᵢₖ·uₖ, formed once per
-// member into a table (foldCase.mt) and classified from it station by
-// station; N and V fold as in first order, the concurrent M of the pieces
-// folded for them being ΣM₀ + x·ΣV + N·Σₖ Hᵢₖ·Σuₖ; the pieces that load the
-// member and the original cases add their second-order moment from their
-// own shape (frame.Solution.SecondFrom), and so do the deflections.
+// read once from the same rows, in the same pass as its end forces
+// (frame.Solution.StartForcesAndDisplacementsEach), each piece's M at
+// each station is M₀ + x·V + N·Σₖ Hᵢₖ·uₖ, formed once per member into a
+// table (foldCase.mt) and classified from it station by station; N and V
+// fold as in first order, the concurrent M of the pieces folded for them
+// being ΣM₀ + x·ΣV + N·Σₖ Hᵢₖ·Σuₖ; the pieces that load the member and
+// the original cases add their second-order moment from their own shape
+// (frame.Solution.SecondFrom), and so do the deflections.
+//
+// Ranking. Of the units of each sign only the most influential are
+// listed; the ranking at a station (and the fold's of N and V) is seeded
+// from the units the list kept at the station before, or at the last
+// station of the member before (seed.go), and ranks only the units that
+// reach the seed, found in the pass that sums that sign's units: the
+// lists are the same as without the seed.
 //
 // Member factors (live load reduction, factors.go) scale every column of
 // a case in the member by one factor per effect. Each piece is then
@@ -167,11 +175,14 @@ func (e *evaluator) foldable(w *work, sol *frame.Solution, m int) (*exactPlaceme
 func (f *fold) load(e *evaluator, w *work, sol *frame.Solution, m int) {
 	ns, nc := len(w.xs), len(e.mo.Cases)
 	f.ends = grow(f.ends, nc)
-	sol.StartForcesEach(f.ends, m) // the start gives N, V, M and the deflections anywhere
+	// The start gives N, V, M and the deflections anywhere; in second
+	// order with the nodes' displacements, read from the same rows.
 	f.second = !sol.Unloaded(m)
-	if f.second {
+	if !f.second {
+		sol.StartForcesEach(f.ends, m)
+	} else {
 		f.disp = grow(f.disp, nc)
-		sol.DisplacementsEach(f.disp, m)
+		sol.StartForcesAndDisplacementsEach(f.ends, f.disp, m)
 		f.wts = grow(f.wts, ns)
 		f.n = sol.SecondOrderWeightsTo(f.wts, m, w.xs)
 	}
