@@ -328,11 +328,37 @@ func (f *fold) load(e *evaluator, w *work, sol *frame.Solution, m int) {
 		}
 		fc.mt = grow(fc.mt, ns*nu)
 		// Station by station, the weights held: the same sums, in the
-		// same order, as frame.Sway.
+		// same order, as frame.Sway. The weights of the nodes' axial
+		// displacements (0 and 3) are zero at every station of a member
+		// whose displacement across it does not depend on them (every
+		// one, as frame forms them): their terms, ±0 for a finite
+		// displacement, leave the sum as it is (a sum begun at +0 is
+		// never −0), and are left out. (A displacement that is not
+		// finite makes the column's end forces not finite too, and the
+		// station is formed again on the unfolded path.)
+		axialFree := f.wmax[0] == 0 && f.wmax[3] == 0
 		for i, x := range w.xs {
 			wi := &f.wts[i]
 			w0, w1, w2, w3, w4, w5 := wi[0], wi[1], wi[2], wi[3], wi[4], wi[5]
 			row := fc.mt[i*nu : (i+1)*nu]
+			if axialFree {
+				for u := range row {
+					d := &au[u]
+					sw := 0.0
+					sw += w1 * d[1]
+					sw += w2 * d[2]
+					sw += w4 * d[4]
+					sw += w5 * d[5]
+					mm := (an[u] + x*av[u]) + f.n*sw
+					row[u] = mm
+					if mm > bm {
+						bm = mm
+					} else if -mm > bm {
+						bm = -mm
+					}
+				}
+				continue
+			}
 			for u := range row {
 				d := &au[u]
 				sw := 0.0
