@@ -678,15 +678,14 @@ func (pl *exactPlacement) scanFolded(e *evaluator, w *work, f *fold, i, k int, r
 		f.pos, f.neg, f.zer = grow(f.pos, nu), grow(f.neg, nu), grow(f.zer, nu)
 		m0, cp, cn, cz := classify(mv, nz, f.pos, f.neg, f.zer)
 		pos, neg, zer := f.pos[:cp], f.neg[:cn], f.zer[:cz]
-		// The seed of the ranking from the previous station (see below):
-		// where it is the smallest size here of the units the list kept
-		// there, the units that reach it are listed (ranked) as each
-		// sign's sum or largest size is formed, and only they are ranked.
-		// At the member's first station the list kept is the one of the
-		// last station of the member enveloped before it with this
-		// scratch, if any: any list of distinct units gives a seed that
-		// changes nothing (keptAt), a list of units close to the largest
-		// a high one.
+		// The seed of the ranking (keptAt, see below) from the units the
+		// list kept at the previous station, or at the member's first
+		// station at the last station of the member enveloped before with
+		// this scratch: the units below it are left out of the ranking as
+		// each sign's sum or largest size is formed (ranked), and only
+		// the others are ranked. Any list of distinct units gives a seed
+		// that changes nothing; one of units close to the largest, a high
+		// one.
 		kept := &f.kept[k*np+p]
 		var pre [2]float64
 		var full [2]bool
@@ -730,18 +729,18 @@ func (pl *exactPlacement) scanFolded(e *evaluator, w *work, f *fold, i, k int, r
 				}
 			}
 		}
-		// Ranking: a unit must reach w.share of the largest; and, seeded
-		// from the previous station, the smallest size here of the units
-		// the list kept there, when all of them are still of its sign
-		// (then at least the list's length of units reach it, and the
-		// largest are among them: only the units that reach it were
-		// listed above), else, from the previous station of the member,
-		// half the smallest size the list kept there.
-		// When fewer than the list's length reach the seed, the units are
-		// ranked again without it (below); when enough do, those are the
-		// largest, the seed made no difference, and far fewer units went
-		// through the heap. Each sign's units are ranked in their order,
-		// as one pass over every unit ranks them.
+		// Ranking: a unit must reach w.share of the largest; and the
+		// seed: w.share of the largest size here of the units kept, and
+		// when all the list's length of them are still of its sign the
+		// smallest of their sizes here (at least that many units reach
+		// it, and the largest are among them); else, after the member's
+		// first station, half the smallest size the list kept at the
+		// previous one. When fewer than the list's length reach the
+		// seed, the units are ranked again without it (below); when
+		// enough do, those are the largest, the seed made no difference,
+		// and far fewer units went through the heap. Each sign's units
+		// are ranked in their order, as one pass over every unit ranks
+		// them.
 		cut := [2]float64{w.share * big[2][0], w.share * big[2][1]}
 		thr := cut
 		if w.limit != math.MaxInt {
