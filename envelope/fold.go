@@ -465,7 +465,7 @@ func (fc *foldCase) fold(f *fold, w *work, nv *foldNV, kept *[2][2][]int32, seco
 		}
 		pos, neg, zer := f.pos[:np], f.neg[:nn], f.zer[:nr]
 		var pre [2]float64
-		if w.limit != math.MaxInt {
+		if seeds(w) {
 			for s := range pre {
 				pre[s], _ = keptAt(kept[j][s], x, w.noiseAt[j], s == 1, w.share, w.limit)
 			}
@@ -690,7 +690,7 @@ func (pl *exactPlacement) scanFolded(e *evaluator, w *work, f *fold, i, k int, r
 		var pre [2]float64
 		var full [2]bool
 		ranked := [2][]int32{pos, neg}
-		if w.limit != math.MaxInt {
+		if seeds(w) {
 			for s := range pre {
 				pre[s], full[s] = keptAt(kept[s], mv, nz, s == 1, w.share, w.limit)
 			}

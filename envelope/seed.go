@@ -13,6 +13,14 @@ import "math"
 // changes the list: any list of distinct units gives one that the units
 // kept reach (keptAt), whichever units it names.
 
+// seeding is whether the ranking is seeded from the units kept before;
+// the tests turn it off to compare.
+var seeding = true
+
+// seeds reports whether w's rankings are seeded: with seeding, and a
+// limit to the lists (not with AllSpans).
+func seeds(w *work) bool { return seeding && w.limit != math.MaxInt }
+
 // sumsReaching is sumsOver(list, n, v, a, x), and lists in ranked, in
 // their order, the units whose x reaches thr; it returns how many.
 // ranked holds at least len(list) entries.
@@ -73,4 +81,26 @@ func keptAt(units []int32, mv []float64, nz float64, negative bool, share float6
 		return max(t, lo), true
 	}
 	return t, false
+}
+
+// keptRows is keptAt's full bound for effect j of rows of values (a
+// station's or a node's, exact.go's scan): the smallest size at rows of
+// the units listed when all limit of them (distinct) are of the sign
+// asked, past nz; else 0.
+func keptRows(units []int32, rows [][3]float64, j int, nz float64, negative bool, limit int) float64 {
+	if len(units) != limit {
+		return 0
+	}
+	lo := math.Inf(1)
+	for _, u := range units {
+		x := rows[u][j]
+		if negative {
+			x = -x
+		}
+		if !(x > nz) {
+			return 0
+		}
+		lo = min(lo, x)
+	}
+	return lo
 }

@@ -91,7 +91,28 @@ func TestSeededRankingListsTheSame(t *testing.T) {
 						other := [2][]int32{neg, pos}[s]
 						kept = other[:min(maxSpans, len(other))]
 					}
-					pre, _ := keptAt(kept, vals, nz, negative, spanShare, maxSpans)
+					pre, full := keptAt(kept, vals, nz, negative, spanShare, maxSpans)
+					// keptRows, for rows of values, is the bound of a full
+					// list alone, 0 otherwise.
+					rows := make([][3]float64, nu)
+					for u := range rows {
+						rows[u][2] = vals[u]
+					}
+					byRows := keptRows(kept, rows, 2, nz, negative, maxSpans)
+					if full {
+						lo := math.Inf(1)
+						for _, u := range kept {
+							lo = min(lo, size(u))
+						}
+						if byRows != lo {
+							t.Fatalf("keptRows %v, the smallest size kept %v", byRows, lo)
+						}
+					} else if byRows != 0 {
+						t.Fatalf("keptRows %v of a list not full", byRows)
+					}
+					if h := rankListed(nil, list, vals, negative, max(spanShare*big, byRows), maxSpans); !sameUnits(h, want) {
+						t.Fatalf("seeded by keptRows %v: listed %v, directly %v", byRows, h, want)
+					}
 					ranked := make([]int32, nu)
 					var nr int
 					var gotBig float64
@@ -134,7 +155,7 @@ func TestSeededRankingListsTheSame(t *testing.T) {
 // On a frame with many pieces to a sign (8 bays, 9 storeys: 64 pieces of
 // L), where the lists are full and the seeds cut most units out of the
 // ranking, the folded envelope lists, counts and governs as evaluating
-// every column at every station does (the unfolded path ranks every unit),
+// every column at every station with no seed does (every unit ranked),
 // in first and in second order (the axial forces of D in first order,
 // times 1.5).
 func TestSeededListsEqualUnfolded(t *testing.T) {
@@ -166,13 +187,13 @@ func TestSeededListsEqualUnfolded(t *testing.T) {
 			if err != nil {
 				t.Fatal(err)
 			}
-			folding = false
-			defer func() { folding = true }()
+			folding, seeding = false, false
+			defer func() { folding, seeding = true, true }()
 			plain, err := Compute(sol, frameCombos(), set, lay)
 			if err != nil {
 				t.Fatal(err)
 			}
-			folding = true
+			folding, seeding = true, true
 			full := 0
 			for m := range plain.Members {
 				a, b := folded.Members[m], plain.Members[m]
@@ -207,4 +228,16 @@ func TestSeededListsEqualUnfolded(t *testing.T) {
 			}
 		})
 	}
+}
+
+// sameUnits reports whether h lists the units of want, in any order.
+func sameUnits(h []candidate, want []int) bool {
+	got := make([]int, len(h))
+	for q, c := range h {
+		got[q] = c.piece
+	}
+	slices.Sort(got)
+	w := slices.Clone(want)
+	slices.Sort(w)
+	return slices.Equal(got, w)
 }
