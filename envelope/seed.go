@@ -2,16 +2,17 @@ package envelope
 
 import "math"
 
-// Seeding the ranking of the folded units (fold.go). Of the units of one
-// sign at a station only the most influential are listed (maxSpans, with
-// at least spanShare of the largest), and a unit below what the list keeps
-// in the end is ranked for nothing. The units the list kept at the
-// previous station, or at the last station of the member before, are
+// Seeding the ranking of the units (fold.go; exact.go's scan, for the
+// unfolded stations and the nodes). Of the units of one sign at a station
+// only the most influential are listed (maxSpans, with at least spanShare
+// of the largest), and a unit below what the list keeps in the end is
+// ranked for nothing. The units the list kept at the previous station, or
+// at the last station of the member before (the last node before), are
 // mostly still among the largest: their sizes here bound from below what
-// the list will keep, and the units below the bound are left out of the
-// ranking as each sign's sum is formed, in the same pass. The bound never
-// changes the list: any list of distinct units gives one that the units
-// kept reach (keptAt), whichever units it names.
+// the list will keep, and on the folded path the units below the bound
+// are left out of the ranking as each sign's sum is formed, in the same
+// pass. The bound never changes the list: any list of distinct units
+// gives one that the units kept reach (keptAt), whichever units it names.
 
 // seeding is whether the ranking is seeded from the units kept before;
 // the tests turn it off to compare.
