@@ -5,6 +5,7 @@ go 1.26.8
 require (
 	github.com/BurntSushi/toml v1.6.0
 	github.com/olekukonko/tablewriter v1.1.5
+	golang.org/x/sys v0.30.0
 	gonum.org/v1/gonum v0.17.0
 )
 
@@ -19,5 +20,4 @@ require (
 	github.com/olekukonko/cat v0.0.0-20250911104152-50322a0618f6 // indirect
 	github.com/olekukonko/errors v1.2.0 // indirect
 	github.com/olekukonko/ll v0.1.6 // indirect
-	golang.org/x/sys v0.30.0 // indirect
 )
