@@ -48,12 +48,10 @@ func appendTen(dst []byte, v float64) []byte {
 	// The ten digits, the first at decimal exponent e10; nd of them once
 	// the trailing zeros are dropped.
 	var buf [10]byte
-	for i := 8; i >= 0; i -= 2 {
-		q := d / 100
-		r := d - 100*q
-		buf[i], buf[i+1] = tens[r], ones[r]
-		d = q
-	}
+	hi := uint32(d / 100000) // the first five digits and the last five, apart
+	lo := uint32(d) - hi*100000
+	fiveDigits(buf[:5], hi)
+	fiveDigits(buf[5:], lo)
 	nd := 10
 	for buf[nd-1] == '0' {
 		nd--
@@ -80,7 +78,7 @@ func appendTen(dst []byte, v float64) []byte {
 		} else {
 			dst = append(dst, '+')
 		}
-		return append(dst, tens[x], ones[x])
+		return append(dst, pairs[2*x], pairs[2*x+1])
 	}
 	switch {
 	case dp >= nd: // an integer
@@ -119,11 +117,14 @@ func scaleTen(a float64, k int) float64 {
 var exactTen = [23]float64{1e0, 1e1, 1e2, 1e3, 1e4, 1e5, 1e6, 1e7, 1e8, 1e9, 1e10,
 	1e11, 1e12, 1e13, 1e14, 1e15, 1e16, 1e17, 1e18, 1e19, 1e20, 1e21, 1e22}
 
-// tens and ones give the two digits of 0 to 99.
-var tens, ones [100]byte
-
-func init() {
-	for i := range 100 {
-		tens[i], ones[i] = byte('0'+i/10), byte('0'+i%10)
-	}
+// fiveDigits writes x < 100000 as five decimal digits to b.
+func fiveDigits(b []byte, x uint32) {
+	_ = b[4]
+	r := x % 10000
+	b[0] = byte('0' + x/10000)
+	copy(b[1:3], pairs[2*(r/100):])
+	copy(b[3:5], pairs[2*(r%100):])
 }
+
+// pairs holds the two digits of 0 to 99, one after the other.
+const pairs = "00010203040506070809101112131415161718192021222324252627282930313233343536373839404142434445464748495051525354555657585960616263646566676869707172737475767778798081828384858687888990919293949596979899"
