@@ -8,6 +8,7 @@ import (
 	"runtime"
 	"strings"
 	"testing"
+	"time"
 
 	"govern/combos"
 	"govern/frame"
@@ -279,6 +280,7 @@ func BenchmarkValuesRows(b *testing.B) {
 			rowScans = rows
 			b.Run("nodes/"+name, func(b *testing.B) {
 				b.ReportAllocs()
+				defer reportCPU(b, cpuTime())
 				for b.Loop() {
 					if _, err := ValuesRows(sol, cs, idx, set, lay, len(mo.Nodes), 3, func(v int, row, _ [][3]float64) { sol.DisplacementsTo(row, v) }, what); err != nil {
 						b.Fatal(err)
@@ -287,6 +289,7 @@ func BenchmarkValuesRows(b *testing.B) {
 			})
 			b.Run("drifts/"+name, func(b *testing.B) {
 				b.ReportAllocs()
+				defer reportCPU(b, cpuTime())
 				for b.Loop() {
 					fill := func(i int, row, tmp [][3]float64) {
 						mem := mo.Members[cols[i]]
@@ -305,4 +308,10 @@ func BenchmarkValuesRows(b *testing.B) {
 		}
 		rowScans = true
 	}
+}
+
+// reportCPU reports the processor time used since start, per iteration of
+// b, as cpu-ns/op.
+func reportCPU(b *testing.B, start time.Duration) {
+	b.ReportMetric(float64(cpuTime()-start)/float64(b.N), "cpu-ns/op")
 }
