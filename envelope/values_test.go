@@ -119,7 +119,8 @@ func TestValuesRowsAgainstDirectSums(t *testing.T) {
 // acting with them, counts and lists of pieces, on one processor and on
 // two. The rows are the nodes' displacements of a solved frame, and rows
 // of random values with round-off, zeros and repeated sizes, where the
-// seeded ranking must fall back to the full one. As a check of its own,
+// seeded ranking must fall back to the full one, some with every piece
+// near the round-off. As a check of its own,
 // the largest of 1.2D + 1.6L + 0.5Lr over random rows is 1.2d plus the
 // factored sums of each live load's rest where positive and of its
 // pieces that are positive past the round-off (exact placement,
@@ -156,6 +157,27 @@ func TestValuesRowsPlacedByRows(t *testing.T) {
 				default:
 					rows[i][c][q] = math.Ldexp(rng.Float64()-0.5, rng.IntN(8*(1+i%3)))
 				}
+				if i%5 == 0 && c > 0 {
+					// Every piece near the round-off of a large wind load
+					// (below): some past it, some not, and the ranking's
+					// seed from the row before far too high.
+					rows[i][c][q] = 3e-9 * (2*rng.Float64() - 1)
+				}
+			}
+		}
+		if i%5 == 4 {
+			// Every piece of L positive and large: the ranking of the
+			// row after is seeded far above its pieces.
+			for _, u := range lay.Patterned[0].Units {
+				rows[i][u.Column] = [3]float64{1 + rng.Float64(), 1 + rng.Float64(), 1 + rng.Float64()}
+			}
+		}
+		if i%5 == 0 {
+			// No dead load and a large wind: the combinations with W and
+			// L govern, and list L's pieces.
+			rows[i][0], rows[i][3] = [3]float64{}, [3]float64{1, -1, 1}
+			for _, u := range lay.Patterned[1].Units {
+				rows[i][u.Column] = [3]float64{} // Lr's pieces none, L's alone listed
 			}
 		}
 	}
@@ -166,16 +188,19 @@ func TestValuesRowsPlacedByRows(t *testing.T) {
 		n       int
 		effects int
 		fill    func(i int, row, tmp [][3]float64)
-		all     bool
+		set     Settings
 	}{
-		{"nodes", len(mo.Nodes), 3, nodes, false},
-		{"nodes, every piece listed", len(mo.Nodes), 3, nodes, true},
-		{"random rows", n, 3, random, false},
-		{"random rows, one component", n, 1, random, false},
-		{"random rows, every piece listed", n, 3, random, true},
+		{"nodes", len(mo.Nodes), 3, nodes, Settings{}},
+		{"nodes, every piece listed", len(mo.Nodes), 3, nodes, Settings{AllSpans: true}},
+		{"random rows", n, 3, random, Settings{}},
+		{"random rows, one component", n, 1, random, Settings{}},
+		{"random rows, every piece listed", n, 3, random, Settings{AllSpans: true}},
+		{"random rows, L and Lr joined", n, 3, random, Settings{Groups: []int{-1, 0, 0, -1}}},
+		{"random rows, as written", n, 3, random, Settings{AsWritten: true}},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
-			set := Settings{Kinds: kindsOf(sol, lay), Stations: 2, AllSpans: tc.all}
+			set := tc.set
+			set.Kinds, set.Stations = kindsOf(sol, lay), 2
 			e := newEvaluator(mo, cs, idx, tc.effects, set, lay)
 			w := e.scratch()
 			if newRowScan(e, w) == nil {
