@@ -25,9 +25,15 @@ type writingBack struct {
 func (wb *writingBack) Write(p []byte) (int, error) {
 	n, err := wb.w.Write(p)
 	wb.written += int64(n)
-	if wb.written-wb.started >= writebackEvery {
-		startWriteback(wb.f, wb.started, wb.written-wb.started)
-		wb.started = wb.written
+	// Whole blocks only: the last, partly written, is left to be
+	// completed first (a write into a page being written back waits).
+	if end := wb.written &^ (writebackBlock - 1); end-wb.started >= writebackEvery {
+		startWriteback(wb.f, wb.started, end-wb.started)
+		wb.started = end
 	}
 	return n, err
 }
+
+// writebackBlock is the alignment of the ranges written back: a multiple
+// of the pages of the systems the program runs on.
+const writebackBlock = 1 << 16

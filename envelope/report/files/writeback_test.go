@@ -58,8 +58,9 @@ func TestWritebackKeepsTheBytes(t *testing.T) {
 			t.Fatal("the bytes passed on differ from those written")
 		}
 		// Write-back started as each step of writebackEvery or more was
-		// passed on, the rest (less than a step) left to the sync.
-		if wb.written != int64(len(want)) || wb.started < writebackEvery || wb.written-wb.started >= writebackEvery {
+		// passed on, in whole blocks, the rest (less than a step and a
+		// block) left to the sync.
+		if wb.written != int64(len(want)) || wb.started < writebackEvery || wb.started%writebackBlock != 0 || wb.written-wb.started >= writebackEvery+writebackBlock {
 			t.Fatalf("written %d, write-back started up to %d", wb.written, wb.started)
 		}
 	})
