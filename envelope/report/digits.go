@@ -9,7 +9,7 @@ import (
 // to the byte, in a few nanoseconds for the magnitudes a frame's results
 // have. Between 1e-12 and 1e12 the ten significant digits are those of
 // the integer nearest s = |v|·10^k, for the k that puts s in [10⁹, 10¹⁰):
-// 10^k is exact in a float64 for |k| ≤ 22 (here −2 ≤ k ≤ 21), so s is
+// 10^k is exact in a float64 for |k| ≤ 22 (here −3 ≤ k ≤ 22), so s is
 // formed with one rounding, within half its unit in the last place
 // (2⁻²⁰ < 10⁻⁶ below 10¹⁰) of the exact product. The integer nearest it
 // is then the exact one unless s's fraction is that close to one half;
@@ -25,8 +25,8 @@ func appendTen(dst []byte, v float64) []byte {
 	if !(a >= 1e-12 && a < 1e12) {
 		return strconv.AppendFloat(dst, v, 'g', 10, 64)
 	}
-	// e0 = ⌊e2·log10 2⌋ for a = m·2^e2, 1 ≤ m < 2, so 10^e0 ≤ a < 10^(e0+1)
-	// or 10^(e0+1) ≤ a < 10^(e0+2).
+	// e10 = ⌊e2·log10 2⌋ for a = m·2^e2, 1 ≤ m < 2: a's decimal exponent
+	// is e10 or e10 + 1, the second when s ≥ 10¹⁰.
 	e2 := int(math.Float64bits(a)>>52&0x7ff) - 1023
 	e10 := (e2 * 78913) >> 18
 	s := scaleTen(a, 9-e10)
@@ -49,7 +49,7 @@ func appendTen(dst []byte, v float64) []byte {
 	// the trailing zeros are dropped.
 	var buf [10]byte
 	hi := uint32(d / 100000) // the first five digits and the last five, apart
-	lo := uint32(d) - hi*100000
+	lo := uint32(d - uint64(hi)*100000)
 	fiveDigits(buf[:5], hi)
 	fiveDigits(buf[5:], lo)
 	nd := 10
