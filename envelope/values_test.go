@@ -11,6 +11,7 @@ import (
 	"time"
 
 	"govern/combos"
+	"govern/envelope/internal/cputime"
 	"govern/frame"
 	"govern/patterns"
 )
@@ -305,7 +306,7 @@ func BenchmarkValuesRows(b *testing.B) {
 			rowScans = rows
 			b.Run("nodes/"+name, func(b *testing.B) {
 				b.ReportAllocs()
-				defer reportCPU(b, cpuTime())
+				defer reportCPU(b, cputime.Now())
 				for b.Loop() {
 					if _, err := ValuesRows(sol, cs, idx, set, lay, len(mo.Nodes), 3, func(v int, row, _ [][3]float64) { sol.DisplacementsTo(row, v) }, what); err != nil {
 						b.Fatal(err)
@@ -314,7 +315,7 @@ func BenchmarkValuesRows(b *testing.B) {
 			})
 			b.Run("drifts/"+name, func(b *testing.B) {
 				b.ReportAllocs()
-				defer reportCPU(b, cpuTime())
+				defer reportCPU(b, cputime.Now())
 				for b.Loop() {
 					fill := func(i int, row, tmp [][3]float64) {
 						mem := mo.Members[cols[i]]
@@ -338,5 +339,5 @@ func BenchmarkValuesRows(b *testing.B) {
 // reportCPU reports the processor time used since start, per iteration of
 // b, as cpu-ns/op.
 func reportCPU(b *testing.B, start time.Duration) {
-	b.ReportMetric(float64(cpuTime()-start)/float64(b.N), "cpu-ns/op")
+	b.ReportMetric(float64(cputime.Now()-start)/float64(b.N), "cpu-ns/op")
 }
