@@ -7,7 +7,6 @@ import (
 	"math/rand/v2"
 	"slices"
 	"testing"
-
 )
 
 // The seeded ranking lists the same units as ranking every unit of the
