@@ -9,9 +9,6 @@ import (
 	"sync"
 	"sync/atomic"
 
-	"gonum.org/v1/gonum/blas"
-	"gonum.org/v1/gonum/blas/blas64"
-	"gonum.org/v1/gonum/lapack/lapack64"
 	"gonum.org/v1/gonum/mat"
 )
 
@@ -25,11 +22,12 @@ import (
 // eigenproblem is posed over all of them: K x = λ (−Kg) x, with those
 // degrees of freedom kept (the inner nodes' axial ones, which Kg does not
 // touch, are condensed). K is applied inverted by eliminating each
-// member's own degrees of freedom and one band Cholesky factor of what is
-// left, the stiffness the first-order solve uses. αcr is 1/μ for the
-// largest μ of K⁻¹(−Kg), found by Lanczos iteration in the K inner
-// product with full reorthogonalization; each step is one band forward
-// and back substitution and one product with Kg.
+// member's own degrees of freedom (pencil.go) and one band Cholesky
+// factor of what is left, the stiffness the first-order solve uses
+// (bandchol.go). αcr is 1/μ for the largest μ of K⁻¹(−Kg), found by
+// Lanczos iteration in the K inner product with full
+// reorthogonalization; each step is one band forward and back
+// substitution (bucklingband.go) and one product with Kg.
 type Buckling struct {
 	model *Model
 	n     int // equations of the band
@@ -38,32 +36,8 @@ type Buckling struct {
 	mems  []pencil
 	size  int       // n plus every member's own degrees of freedom
 	sol   *Solution // the numbering, for the check of a factor found
-}
-
-// maxOwn is the most degrees of freedom a member keeps of its own: the
-// transverse displacement and rotation of each inner node, and a
-// released or sprung rotation at either end.
-const maxOwn = 2*(SubElements-1) + 2
-
-// pencil is one member's part of K and of Kg per unit axial force, over
-// its nodes' six local degrees of freedom and ni of its own.
-type pencil struct {
-	c, s float64
-	gdof [6]int // equation of each node degree of freedom, or < 0
-	ni   int
-	off  int                             // where its own degrees of freedom start in a vector
-	lii  [maxOwn][maxOwn]float64         // lower Cholesky factor of K's own block
-	kin  [maxOwn][6]float64              // K's own rows, node columns (local axes)
-	g    [6 + maxOwn][6 + maxOwn]float64 // Kg per unit axial force, tension positive
-	inv  [maxOwn][maxOwn]float64         // K's own block inverted
-	w    [maxOwn][6]float64              // inv times kin
-	gnz  []gEntry                        // the entries of g that are not zero, upper triangle
-}
-
-// gEntry is one entry of a pencil's Kg, at row i and column j.
-type gEntry struct {
-	i, j uint8
-	v    float64
+	lt    []float64 // u by columns (transposeBand)
+	first []int32   // firstRows of u
 }
 
 // NewBuckling factors the elastic stiffness of mo for [Buckling.Factor].
@@ -104,11 +78,12 @@ func NewBuckling(mo *Model) (*Buckling, error) {
 	}
 	b.kb = min(band, n-1)
 	data := sol.assemble(n, b.kb)
-	f, ok := lapack64.Pbtrf(blas64.SymmetricBand{Uplo: blas.Upper, N: n, K: b.kb, Data: data, Stride: b.kb + 1})
-	if !ok {
+	if !bandCholesky(data, n, b.kb) {
 		return nil, b.refuse()
 	}
-	b.u = f.Data
+	b.u = data
+	b.first = firstRows(b.u, n, b.kb)
+	b.lt = transposeBand(b.u, n, b.kb)
 	return b, nil
 }
 
@@ -132,9 +107,19 @@ func (b *Buckling) buildPencils(elems []element) bool {
 				if c >= chunks || bad.Load() {
 					return
 				}
-				for m := c * chunk; m < min((c+1)*chunk, len(mo.Members)); m++ {
+				lo, hi := c*chunk, min((c+1)*chunk, len(mo.Members))
+				// One store for the run: the members' numbers lie
+				// together, in the order solveK reads them.
+				sd, sk := 0, 0
+				for m := lo; m < hi; m++ {
+					ni := ownDOFs(&mo.Members[m])
+					sd += ni*ni + 12*ni
+					sk += (6 + ni) * (6 + ni)
+				}
+				st := pencilStore{d: make([]float64, 0, sd), k: make([]float64, 0, sk), gnz: make([]gEntry, 0, 48*(hi-lo))}
+				for m := lo; m < hi; m++ {
 					e := newElement(mo, m)
-					k, ok := b.mems[m].build(&e)
+					k, ok := b.mems[m].build(&e, &st)
 					if !ok {
 						bad.Store(true)
 						return
@@ -156,197 +141,6 @@ func (b *Buckling) refuse() error {
 		return err
 	}
 	return errors.New("frame: CriticalFactor: the stiffness is not positive definite")
-}
-
-// build sets p's parts from the member e and returns the local stiffness
-// at the nodes with its own degrees of freedom condensed out (which is
-// e's own, to rounding); ok is false when K's own block is not positive
-// definite.
-func (p *pencil) build(e *element) (k [6][6]float64, ok bool) {
-	p.c, p.s = e.c, e.s
-	// Degrees of freedom: 0-5 the nodes' (local axes); then the own end
-	// rotations; then v, θ of each inner node; last u of each inner node
-	// (condensed here).
-	own := [2]int{-1, -1}
-	d := 6
-	for side := range 2 {
-		rel := e.release.AtStart()
-		if side == 1 {
-			rel = e.release.AtEnd()
-		}
-		if rel || e.spring[side] > 0 {
-			own[side] = d
-			d++
-		}
-	}
-	ni := d - 6 + 2*(SubElements-1)
-	full := d + 3*(SubElements-1)
-	// sub maps each of the subdivided member's 15 degrees of freedom to
-	// the full ones: sub = Σ coef · full.
-	type term struct {
-		j int
-		c float64
-	}
-	var sub [3 * (SubElements + 1)][]term
-	sub[0] = []term{{0, 1}}
-	sub[1] = []term{{1, 1}, {2, e.a}}
-	sub[2] = []term{{2, 1}}
-	if own[0] >= 0 {
-		sub[2] = []term{{own[0], 1}}
-	}
-	last := 3 * SubElements
-	sub[last] = []term{{3, 1}}
-	sub[last+1] = []term{{4, 1}, {5, -e.b}}
-	sub[last+2] = []term{{5, 1}}
-	if own[1] >= 0 {
-		sub[last+2] = []term{{own[1], 1}}
-	}
-	for j := 1; j < SubElements; j++ {
-		sub[3*j] = []term{{d + 2*(SubElements-1) + j - 1, 1}}
-		sub[3*j+1] = []term{{d + 2*(j-1), 1}}
-		sub[3*j+2] = []term{{d + 2*(j-1) + 1, 1}}
-	}
-	k0 := subStiffness(e.ea, e.ei, e.lf, 0)
-	k1 := subStiffness(0, 0, e.lf, 1)
-	a0 := mat.NewDense(full, full, nil)
-	a1 := mat.NewDense(full, full, nil)
-	for i := range k0 {
-		for j := range k0 {
-			for _, ti := range sub[i] {
-				for _, tj := range sub[j] {
-					a0.Set(ti.j, tj.j, a0.At(ti.j, tj.j)+ti.c*tj.c*k0[i][j])
-					a1.Set(ti.j, tj.j, a1.At(ti.j, tj.j)+ti.c*tj.c*k1[i][j])
-				}
-			}
-		}
-	}
-	for side, r := range [2]int{2, 5} {
-		if o := own[side]; o >= 0 && !(side == 0 && e.release.AtStart() || side == 1 && e.release.AtEnd()) {
-			ks := e.spring[side]
-			a0.Set(o, o, a0.At(o, o)+ks)
-			a0.Set(r, r, a0.At(r, r)+ks)
-			a0.Set(o, r, a0.At(o, r)-ks)
-			a0.Set(r, o, a0.At(r, o)-ks)
-		}
-	}
-	a1.Set(2, 2, a1.At(2, 2)+e.a)
-	a1.Set(5, 5, a1.At(5, 5)+e.b)
-	// Condense the inner axial ones out of K (Kg has none of them), then
-	// the member's own.
-	keep := 6 + ni
-	red := schur(a0, keep)
-	if red == nil {
-		return k, false
-	}
-	p.ni = ni
-	var lii [maxOwn][maxOwn]float64
-	for i := range ni {
-		for j := range 6 {
-			p.kin[i][j] = red.At(6+i, j)
-		}
-	}
-	s := schur(red, 6)
-	if s == nil {
-		return k, false
-	}
-	own2 := mat.NewSymDense(ni, nil)
-	for i := range ni {
-		for j := i; j < ni; j++ {
-			own2.SetSym(i, j, red.At(6+i, 6+j))
-		}
-	}
-	var ch mat.Cholesky
-	if ni > 0 {
-		if !ch.Factorize(own2) {
-			return k, false
-		}
-		var l mat.TriDense
-		ch.LTo(&l)
-		for i := range ni {
-			for j := 0; j <= i; j++ {
-				lii[i][j] = l.At(i, j)
-			}
-		}
-	}
-	p.lii = lii
-	for j := range ni {
-		var col [maxOwn]float64
-		col[j] = 1
-		p.ownSolve(col[:ni])
-		for i := range ni {
-			p.inv[i][j] = col[i]
-		}
-	}
-	for i := range ni {
-		for j := range 6 {
-			s := 0.0
-			for q := range ni {
-				s += p.inv[i][q] * p.kin[q][j]
-			}
-			p.w[i][j] = s
-		}
-	}
-	for i := range keep {
-		for j := range keep {
-			p.g[i][j] = a1.At(i, j)
-			if j >= i && p.g[i][j] != 0 {
-				p.gnz = append(p.gnz, gEntry{uint8(i), uint8(j), p.g[i][j]})
-			}
-		}
-	}
-	for i := range 6 {
-		for j := range 6 {
-			k[i][j] = (s.At(i, j) + s.At(j, i)) / 2
-		}
-	}
-	return k, true
-}
-
-// schur returns a[:keep, :keep] − a[:keep, keep:] a[keep:, keep:]⁻¹
-// a[keep:, :keep], nil when a[keep:, keep:] is not positive definite.
-func schur(a *mat.Dense, keep int) *mat.Dense {
-	r, _ := a.Dims()
-	out := mat.DenseCopyOf(a.Slice(0, keep, 0, keep))
-	if r == keep {
-		return out
-	}
-	z := r - keep
-	zz := mat.NewSymDense(z, nil)
-	for i := range z {
-		for j := i; j < z; j++ {
-			zz.SetSym(i, j, a.At(keep+i, keep+j))
-		}
-	}
-	var ch mat.Cholesky
-	if !ch.Factorize(zz) {
-		return nil
-	}
-	var x mat.Dense
-	if err := ch.SolveTo(&x, a.Slice(keep, r, 0, keep)); err != nil {
-		return nil
-	}
-	var c mat.Dense
-	c.Mul(a.Slice(0, keep, keep, r), &x)
-	out.Sub(out, &c)
-	return out
-}
-
-// ownSolve overwrites x (length p.ni) with K's own block inverted times x.
-func (p *pencil) ownSolve(x []float64) {
-	for i := range p.ni {
-		s := x[i]
-		for k := range i {
-			s -= p.lii[i][k] * x[k]
-		}
-		x[i] = s / p.lii[i][i]
-	}
-	for i := p.ni - 1; i >= 0; i-- {
-		s := x[i]
-		for k := i + 1; k < p.ni; k++ {
-			s -= p.lii[k][i] * x[k]
-		}
-		x[i] = s / p.lii[i][i]
-	}
 }
 
 // local returns the member's node degrees of freedom of column c of the
@@ -374,55 +168,6 @@ func (p *pencil) addGlobal(y []float64, l *[6]float64, c, k int) {
 		for i := range 3 {
 			if e := p.gdof[n+i]; e >= 0 {
 				y[e*k+c] += g[i]
-			}
-		}
-	}
-}
-
-// solveK overwrites each of the k columns of x (b.size rows, row-major)
-// with K⁻¹ times it: each member's own degrees of freedom eliminated,
-// the band factor, and them recovered. Each column's arithmetic is the
-// same whatever k.
-func (b *Buckling) solveK(x []float64, k int) {
-	var t [maxOwn]float64
-	for m := range b.mems {
-		p := &b.mems[m]
-		for c := range k {
-			for i := range p.ni {
-				s := 0.0
-				for q := range p.ni {
-					s += p.inv[i][q] * x[(p.off+q)*k+c]
-				}
-				t[i] = s
-			}
-			var l [6]float64
-			for i := range p.ni {
-				ti := t[i]
-				for j := range 6 {
-					l[j] -= p.kin[i][j] * ti
-				}
-				x[(p.off+i)*k+c] = ti
-			}
-			p.addGlobal(x, &l, c, k)
-		}
-	}
-	switch {
-	case b.n == 0:
-	case k == 1:
-		bandSolveVec(b.u, b.n, b.kb, x[:b.n])
-	default:
-		bandSolveCols(b.u, b.n, b.kb, x[:b.n*k], k)
-	}
-	for m := range b.mems {
-		p := &b.mems[m]
-		for c := range k {
-			l := p.local(x, c, k)
-			for i := range p.ni {
-				s := 0.0
-				for j := range 6 {
-					s += p.w[i][j] * l[j]
-				}
-				x[(p.off+i)*k+c] -= s
 			}
 		}
 	}
@@ -457,79 +202,97 @@ func bandSolveVec(u []float64, n, kb int, x []float64) {
 	}
 }
 
-// bandSolveCols is bandSolveVec for the k columns of x (row-major, n
-// rows), each column in the same order of operations as alone: one pass
-// over the factor for all.
-func bandSolveCols(u []float64, n, kb int, x []float64, k int) {
-	w := kb + 1
-	for i := range n {
-		xi := x[i*k : (i+1)*k]
-		d := 1 / u[i*w]
-		for c := range xi {
-			xi[c] *= d
+// mulKg sets column c of the block y to −Kg x for the axial forces
+// axials[c], x and y of b.size rows and len(axials) columns: four columns
+// at a time, then one (each column's numbers the same either way).
+func (b *Buckling) mulKg(y, x []float64, axials [][]float64) {
+	clear(y)
+	k := len(axials)
+	for m := range b.mems {
+		p := &b.mems[m]
+		c := 0
+		for ; c+4 <= k; c += 4 {
+			p.mulKg4(y, x, k, c, [4]float64{axials[c][m], axials[c+1][m], axials[c+2][m], axials[c+3][m]})
 		}
-		row := u[i*w+1 : i*w+min(w, n-i)]
-		for j, v := range row {
-			if v == 0 {
-				continue
+		for ; c < k; c++ {
+			if nm := axials[c][m]; nm != 0 {
+				p.mulKg1(y, x, k, c, nm)
 			}
-			y := x[(i+1+j)*k : (i+2+j)*k]
-			for c := range y {
-				y[c] += -v * xi[c]
-			}
-		}
-	}
-	for i := n - 1; i >= 0; i-- {
-		xi := x[i*k : (i+1)*k]
-		row := u[i*w+1 : i*w+min(w, n-i)]
-		for j, v := range row {
-			if v == 0 {
-				continue
-			}
-			y := x[(i+1+j)*k : (i+2+j)*k]
-			for c := range xi {
-				xi[c] += -v * y[c]
-			}
-		}
-		d := 1 / u[i*w]
-		for c := range xi {
-			xi[c] *= d
 		}
 	}
 }
 
-// mulKg sets column c of the block y to −Kg x for the axial forces
-// axials[c], x and y of b.size rows and len(axials) columns.
-func (b *Buckling) mulKg(y, x []float64, axials [][]float64) {
-	clear(y)
-	k := len(axials)
-	var z [6 + maxOwn]float64
-	for m := range b.mems {
-		p := &b.mems[m]
-		d := 6 + p.ni
-		for c, axial := range axials {
-			nm := axial[m]
-			if nm == 0 {
-				continue
-			}
-			l := p.local(x, c, k)
-			copy(z[:6], l[:])
-			for i := range p.ni {
-				z[6+i] = x[(p.off+i)*k+c]
-			}
-			var f [6 + maxOwn]float64
-			for _, e := range p.gnz {
-				f[e.i] += e.v * z[e.j]
-				if e.i != e.j {
-					f[e.j] += e.v * z[e.i]
-				}
-			}
-			for i := 6; i < d; i++ {
-				y[(p.off+i-6)*k+c] += -nm * f[i]
-			}
-			fn := [6]float64{-nm * f[0], -nm * f[1], -nm * f[2], -nm * f[3], -nm * f[4], -nm * f[5]}
-			p.addGlobal(y, &fn, c, k)
+// mulKg1 adds −nm·Kg x of the member to column c of the block y (k
+// columns).
+func (p *pencil) mulKg1(y, x []float64, k, c int, nm float64) {
+	var z [maxKeep]float64
+	d := 6 + p.ni
+	l := p.local(x, c, k)
+	copy(z[:6], l[:])
+	for i := range p.ni {
+		z[6+i] = x[(p.off+i)*k+c]
+	}
+	var f [maxKeep]float64
+	for _, e := range p.gnz {
+		f[e.i] += e.v * z[e.j]
+		if e.i != e.j {
+			f[e.j] += e.v * z[e.i]
 		}
+	}
+	for i := 6; i < d; i++ {
+		y[(p.off+i-6)*k+c] += -nm * f[i]
+	}
+	fn := [6]float64{-nm * f[0], -nm * f[1], -nm * f[2], -nm * f[3], -nm * f[4], -nm * f[5]}
+	p.addGlobal(y, &fn, c, k)
+}
+
+// mulKg4 is mulKg1 for columns c to c+3 at once, nm their axial forces
+// (a column whose force is 0 gets nothing).
+func (p *pencil) mulKg4(y, x []float64, k, c int, nm [4]float64) {
+	if nm == [4]float64{} {
+		return
+	}
+	var z [maxKeep][4]float64
+	for n := 0; n < 6; n += 3 {
+		var g [3][4]float64
+		for i := range 3 {
+			if e := p.gdof[n+i]; e >= 0 {
+				copy(g[i][:], x[e*k+c:e*k+c+4])
+			}
+		}
+		for cc := range 4 {
+			z[n][cc] = p.c*g[0][cc] + p.s*g[1][cc]
+			z[n+1][cc] = -p.s*g[0][cc] + p.c*g[1][cc]
+			z[n+2][cc] = g[2][cc]
+		}
+	}
+	for i := range p.ni {
+		copy(z[6+i][:], x[(p.off+i)*k+c:(p.off+i)*k+c+4])
+	}
+	var f [maxKeep][4]float64
+	for _, e := range p.gnz {
+		fi, zj := &f[e.i], &z[e.j]
+		fi[0] += e.v * zj[0]
+		fi[1] += e.v * zj[1]
+		fi[2] += e.v * zj[2]
+		fi[3] += e.v * zj[3]
+		if e.i != e.j {
+			fj, zi := &f[e.j], &z[e.i]
+			fj[0] += e.v * zi[0]
+			fj[1] += e.v * zi[1]
+			fj[2] += e.v * zi[2]
+			fj[3] += e.v * zi[3]
+		}
+	}
+	for cc, n := range nm {
+		if n == 0 {
+			continue
+		}
+		for i := 6; i < 6+p.ni; i++ {
+			y[(p.off+i-6)*k+c+cc] += -n * f[i][cc]
+		}
+		fn := [6]float64{-n * f[0][cc], -n * f[1][cc], -n * f[2][cc], -n * f[3][cc], -n * f[4][cc], -n * f[5][cc]}
+		p.addGlobal(y, &fn, c+cc, k)
 	}
 }
 
@@ -693,31 +456,21 @@ const certifyGap = 1e-6
 // kept for the next: a frame's band is megabytes, and fresh memory is
 // slow to touch.
 type certifyScratch struct {
-	elems []element
-	so    []secondOrder // the elements' second-order parts
-	data  []float64
+	data []float64
 }
 
 // definite reports whether K + λ·Kg of axial is positive definite; sc,
 // when not nil, lends it its memory.
 func (b *Buckling) definite(lambda float64, axial []float64, sc *certifyScratch) bool {
-	mo, sol := b.model, b.sol
 	if sc == nil {
 		sc = &certifyScratch{}
 	}
-	if len(sc.elems) != len(mo.Members) {
-		sc.elems = make([]element, len(mo.Members))
-		sc.so = make([]secondOrder, len(mo.Members))
-	}
-	elems := sc.elems
-	for m := range mo.Members {
-		e, ok := newElementAxialIn(mo, m, lambda*axial[m], true, &sc.so[m])
-		if !ok {
-			return false
-		}
-		elems[m] = e
-	}
 	if b.n == 0 {
+		for m := range b.mems {
+			if _, ok := b.mems[m].condensedAt(lambda * axial[m]); !ok {
+				return false
+			}
+		}
 		return true
 	}
 	if len(sc.data) != b.n*(b.kb+1) {
@@ -725,9 +478,7 @@ func (b *Buckling) definite(lambda float64, axial []float64, sc *certifyScratch)
 	}
 	clear(sc.data) // fresh memory too: written before it is read (see Solution.rhs)
 	data := sc.data
-	sol.assembleTo(data, b.kb, elems)
-	_, ok := lapack64.Pbtrf(blas64.SymmetricBand{Uplo: blas.Upper, N: b.n, K: b.kb, Data: data, Stride: b.kb + 1})
-	return ok
+	return b.assembleAt(data, lambda, axial) && bandCholesky(data, b.n, b.kb)
 }
 
 // lanczos returns, for each set of axial forces, the largest eigenvalue μ
@@ -760,11 +511,7 @@ func (b *Buckling) lanczos(axials [][]float64, r0, w0 []float64, keep bool) (mus
 				continue
 			}
 			// Reorthogonalize r against every q, and w = K r alike.
-			for q := range rc.qs {
-				s := dot(rc.ps[q], rc.r)
-				axpy(rc.r, -s, rc.qs[q])
-				axpy(rc.w, -s, rc.ps[q])
-			}
+			reorthogonalize(rc.r, rc.w, rc.qs, rc.ps)
 			bb := dot(rc.r, rc.w)
 			if j == 0 && !(bb > 0) {
 				errs[c] = errors.New("frame: CriticalFactor: the stiffness is not positive definite")
@@ -920,5 +667,3 @@ func CriticalFactor(mo *Model, axial []float64) (float64, error) {
 	}
 	return b.Factor(axial)
 }
-
-var debugLanczos = false

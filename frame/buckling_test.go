@@ -100,9 +100,13 @@ func TestBucklingAgainstBisection(t *testing.T) {
 }
 
 // TestBucklingPencil checks that each member's pencil, its own degrees of
-// freedom condensed out at axial force n, is the member stiffness the
-// second-order solve uses (condensed in the other order: inner nodes,
-// then releases and springs, then rigid zones).
+// freedom condensed out at axial force n (condensedAt, which the check of
+// a factor assembles), is the member stiffness the second-order solve
+// uses (newElementAxial: condensed in the other order, inner nodes, then
+// releases and springs, then rigid zones), to 1e-9 of its largest
+// diagonal term; and that a member beyond its own buckling load between
+// held ends (Euler, π²EI/L² for the pinned-pinned flexible part: a
+// released end) is refused by both.
 func TestBucklingPencil(t *testing.T) {
 	mo := &Model{
 		Sections: []Section{{Name: "S", E: 2e8, A: 1e-2, I: 2e-4}},
@@ -120,16 +124,26 @@ func TestBucklingPencil(t *testing.T) {
 		t.Run(m.Name, func(t *testing.T) {
 			m.Start, m.End = 0, 1
 			mo.Members = []Member{m}
+			e := newElement(mo, 0)
+			var p pencil
+			var st pencilStore
+			k0, ok := p.build(&e, &st)
+			if !ok {
+				t.Fatal("pencil not positive definite")
+			}
 			for _, n := range []float64{-300, 0, 500} {
-				e := newElement(mo, 0)
-				var p pencil
-				k, ok := p.build(&e)
+				k, ok := p.condensedAt(n)
 				if !ok {
-					t.Fatal("pencil not positive definite")
+					t.Fatal("pencil at n not positive definite")
 				}
-				// K(n) = K + n·G over the pencil's degrees of freedom, condensed.
-				if n != 0 {
-					k = p.condensedAt(&e, n)
+				if n == 0 {
+					for i := range 6 {
+						for j := range 6 {
+							if math.Abs(k[i][j]-k0[i][j]) > 1e-12*math.Abs(k0[i][i]) {
+								t.Errorf("k[%d][%d] at n = 0 %.15g, built %.15g", i, j, k[i][j], k0[i][j])
+							}
+						}
+					}
 				}
 				want, ok := newElementAxial(mo, 0, n, true)
 				if !ok {
@@ -147,66 +161,20 @@ func TestBucklingPencil(t *testing.T) {
 					}
 				}
 			}
+			if m.Release == ReleaseBoth && m.OffsetStart == 0 && m.OffsetEnd == 0 {
+				euler := math.Pi * math.Pi * 2e8 * 2e-4 / 25
+				if _, ok := p.condensedAt(-1.01 * euler); ok {
+					t.Errorf("pinned member at 1.01 × the Euler load accepted")
+				}
+				if _, ok := newElementAxial(mo, 0, -1.01*euler, true); ok {
+					t.Errorf("pinned member at 1.01 × the Euler load accepted by the element")
+				}
+				if _, ok := p.condensedAt(-0.99 * euler); !ok {
+					t.Errorf("pinned member at 0.99 × the Euler load refused")
+				}
+			}
 		})
 	}
-}
-
-// condensedAt returns the pencil's K + n·G with its own degrees of freedom
-// condensed out, rebuilt from what it keeps (the factor of K's own block,
-// its coupling and the condensed K at n = 0).
-func (p *pencil) condensedAt(e *element, n float64) [6][6]float64 {
-	s0, _ := (&pencil{}).build(e)
-	ni, d := p.ni, 6+p.ni
-	full := make([][]float64, d)
-	for i := range full {
-		full[i] = make([]float64, d)
-	}
-	// K's own block L Lᵀ, and K's node block s0 + kinᵀ Aii⁻¹ kin.
-	for i := range ni {
-		for j := range ni {
-			s := 0.0
-			for k := range ni {
-				s += p.lii[i][k] * p.lii[j][k]
-			}
-			full[6+i][6+j] = s
-		}
-	}
-	for j := range 6 {
-		var col [maxOwn]float64
-		for i := range ni {
-			col[i] = p.kin[i][j]
-			full[6+i][j], full[j][6+i] = p.kin[i][j], p.kin[i][j]
-		}
-		p.ownSolve(col[:ni])
-		for i := range 6 {
-			s := s0[i][j]
-			for k := range ni {
-				s += p.kin[k][i] * col[k]
-			}
-			full[i][j] = s
-		}
-	}
-	for i := range d {
-		for j := range d {
-			full[i][j] += n * p.g[i][j]
-		}
-	}
-	// Gaussian elimination of the own ones, last first.
-	for r := d - 1; r >= 6; r-- {
-		for i := range r {
-			f := full[i][r] / full[r][r]
-			for j := range r {
-				full[i][j] -= f * full[r][j]
-			}
-		}
-	}
-	var k [6][6]float64
-	for i := range 6 {
-		for j := range 6 {
-			k[i][j] = full[i][j]
-		}
-	}
-	return k
 }
 
 // BenchmarkCriticalFactor measures αcr of a random frame: the factor of K
@@ -337,6 +305,50 @@ func TestBucklingCertify(t *testing.T) {
 			if !within(got, want, 6e-4) {
 				t.Errorf("αcr %.7g, want π²EI/L²/P = %.7g", got, want)
 			}
+		})
+	}
+}
+
+// randomSets returns k sets of axial forces for the frame of axial: the
+// first axial itself, the others each member's force times a random
+// factor between 0.5 and 1.5 (fixed seed), as a frame's combinations
+// differ.
+func randomSets(rng *rand.Rand, axial []float64, k int) [][]float64 {
+	sets := [][]float64{axial}
+	for range k - 1 {
+		a := make([]float64, len(axial))
+		for m := range a {
+			a[m] = axial[m] * (0.5 + rng.Float64())
+		}
+		sets = append(sets, a)
+	}
+	return sets
+}
+
+// BenchmarkCriticalFactors measures what a run pays for αcr of its
+// combinations: the factor of K (NewBuckling) and the factors of nine
+// sets of axial forces on it (Factors), on random frames of a few sizes.
+// Beside the time, cpu-ns/op is the process's processor time (user and
+// system, every thread) per operation: on a machine shared with other
+// work it is the steadier figure.
+func BenchmarkCriticalFactors(b *testing.B) {
+	for _, size := range [][2]int{{10, 10}, {30, 20}, {30, 60}} {
+		rng := rand.New(rand.NewPCG(18, 2))
+		mo, axial := randomFrame(rng, size[0], size[1])
+		sets := randomSets(rng, axial, 9)
+		b.Run(fmt.Sprintf("%dx%d", size[0], size[1]), func(b *testing.B) {
+			b.ReportAllocs()
+			start := cpuTime()
+			for b.Loop() {
+				bk, err := NewBuckling(mo)
+				if err != nil {
+					b.Fatal(err)
+				}
+				if _, err := bk.Factors(sets); err != nil {
+					b.Fatal(err)
+				}
+			}
+			b.ReportMetric(float64(cpuTime()-start)/float64(b.N), "cpu-ns/op")
 		})
 	}
 }

@@ -80,8 +80,10 @@
 // smallest λ with K + λ·Kg singular, by Lanczos iteration on one factor of
 // K, certified by one band Cholesky factorization just below it, with
 // band Cholesky trials and Newton steps where that check fails
-// (buckling.go, critical.go); [NewBuckling] shares the factor of K among
-// many sets of axial forces. It is a pure number.
+// (buckling.go, critical.go; the members' pencils, the solves and the
+// check in pencil.go, bucklingsolve.go, bucklingband.go, bandchol.go and
+// certify.go); [NewBuckling] shares the factor of K among many sets of
+// axial forces. It is a pure number.
 //
 // # Failures
 //

@@ -1,0 +1,102 @@
+package frame
+
+import "math"
+
+// bandCholesky overwrites a, a symmetric positive definite matrix in
+// upper band storage (n equations, kb superdiagonals, row-major, kb + 1
+// a row: entry (i, i+j) at a[i*(kb+1)+j]), with its upper Cholesky factor
+// U, a = UᵀU, and reports whether it is positive definite: false as soon
+// as a pivot is not positive (a is then left partly overwritten). It is
+// LAPACK's unblocked dpbtf2 in row-major order: row i is scaled by its
+// pivot's square root and its outer product taken from the rows below
+// it, one row at a time, each row's update a contiguous y −= a·x (by
+// subScaled, four at a time with AVX where the processor has it).
+func bandCholesky(a []float64, n, kb int) bool {
+	w := kb + 1
+	_ = a[n*w-1]
+	// pivot takes row i's pivot and scales the row, m entries right of
+	// the diagonal.
+	pivot := func(i, m int) bool {
+		row := a[i*w : i*w+m+1]
+		d := row[0]
+		if !(d > 0) {
+			return false
+		}
+		d = math.Sqrt(d)
+		row[0] = d
+		r := 1 / d
+		for j := 1; j <= m; j++ {
+			row[j] *= r
+		}
+		return true
+	}
+	i := 0
+	// Two rows at a time: row i, row i+1 updated by it, row i+1; then the
+	// rows below updated by both at once, row i's term first (the numbers
+	// of one row at a time).
+	for ; i+1 < n; i += 2 {
+		m := min(kb, n-1-i)
+		if !pivot(i, m) {
+			return false
+		}
+		ri := a[i*w : i*w+m+1]
+		if v := ri[1]; v != 0 {
+			subScaled(a[(i+1)*w:(i+1)*w+m], ri[1:m+1], v)
+		}
+		m1 := min(kb, n-2-i)
+		if !pivot(i+1, m1) {
+			return false
+		}
+		r1 := a[(i+1)*w : (i+1)*w+m1+1]
+		// Row i+j, j from 2: row i's term U[i][i+j] on columns i+j up to
+		// i+m, row i+1's U[i+1][i+j] on columns i+j up to i+1+m1.
+		for j := 2; j <= m1+1; j++ {
+			y := a[(i+j)*w : (i+j)*w+m1-j+2]
+			v1 := r1[j-1]
+			if j > m {
+				if v1 != 0 {
+					subScaled(y, r1[j-1:m1+1], v1)
+				}
+				continue
+			}
+			v0 := ri[j]
+			both := m - j + 1 // columns both rows reach
+			switch {
+			case v0 != 0 && v1 != 0:
+				subScaled2(y[:both], ri[j:m+1], r1[j-1:j-1+both], v0, v1)
+				if len(y) > both {
+					subScaled(y[both:], r1[j-1+both:m1+1], v1)
+				}
+			case v0 != 0:
+				subScaled(y[:both], ri[j:m+1], v0)
+			case v1 != 0:
+				subScaled(y, r1[j-1:m1+1], v1)
+			}
+		}
+	}
+	if i < n {
+		return pivot(i, 0)
+	}
+	return true
+}
+
+// subScaled2Go sets y to (y − a·x) − b·z, len(x), len(z) ≥ len(y).
+func subScaled2Go(y, x, z []float64, a, b float64) {
+	x, z = x[:len(y)], z[:len(y)]
+	for k := range y {
+		y[k] = y[k] - a*x[k] - b*z[k]
+	}
+}
+
+// subScaledGo sets y to y − a·x, len(x) == len(y).
+func subScaledGo(y, x []float64, a float64) {
+	x = x[:len(y)]
+	k := 0
+	for ; k+4 <= len(y); k += 4 {
+		y0, y1, y2, y3 := y[k]-a*x[k], y[k+1]-a*x[k+1], y[k+2]-a*x[k+2], y[k+3]-a*x[k+3]
+		y[k], y[k+1], y[k+2], y[k+3] = y0, y1, y2, y3
+	}
+	for ; k < len(y); k++ {
+		y[k] -= a * x[k]
+	}
+}

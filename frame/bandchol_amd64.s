@@ -1,0 +1,196 @@
+//go:build amd64 && !purego
+
+#include "textflag.h"
+
+// func subScaledAVX(y, x *float64, n int, a float64)
+TEXT ·subScaledAVX(SB), NOSPLIT, $0-32
+	MOVQ y+0(FP), DI
+	MOVQ x+8(FP), SI
+	MOVQ n+16(FP), CX
+	VBROADCASTSD a+24(FP), Y0
+	CMPQ CX, $8
+	JLT four
+
+eight:
+	VMULPD 0(SI), Y0, Y1
+	VMULPD 32(SI), Y0, Y2
+	VMOVUPD 0(DI), Y3
+	VMOVUPD 32(DI), Y4
+	VSUBPD Y1, Y3, Y3
+	VSUBPD Y2, Y4, Y4
+	VMOVUPD Y3, 0(DI)
+	VMOVUPD Y4, 32(DI)
+	ADDQ $64, SI
+	ADDQ $64, DI
+	SUBQ $8, CX
+	CMPQ CX, $8
+	JGE eight
+
+four:
+	CMPQ CX, $4
+	JLT one
+	VMULPD 0(SI), Y0, Y1
+	VMOVUPD 0(DI), Y3
+	VSUBPD Y1, Y3, Y3
+	VMOVUPD Y3, 0(DI)
+	ADDQ $32, SI
+	ADDQ $32, DI
+	SUBQ $4, CX
+
+one:
+	TESTQ CX, CX
+	JE done
+
+loop1:
+	VMOVSD 0(SI), X1
+	VMULSD X0, X1, X1
+	VMOVSD 0(DI), X3
+	VSUBSD X1, X3, X3
+	VMOVSD X3, 0(DI)
+	ADDQ $8, SI
+	ADDQ $8, DI
+	DECQ CX
+	JNZ loop1
+
+done:
+	VZEROUPPER
+	RET
+
+// func subScaled2AVX(y, x, z *float64, n int, a, b float64)
+TEXT ·subScaled2AVX(SB), NOSPLIT, $0-48
+	MOVQ y+0(FP), DI
+	MOVQ x+8(FP), SI
+	MOVQ z+16(FP), DX
+	MOVQ n+24(FP), CX
+	VBROADCASTSD a+32(FP), Y0
+	VBROADCASTSD b+40(FP), Y5
+	CMPQ CX, $4
+	JLT one2
+
+four2:
+	VMULPD 0(SI), Y0, Y1
+	VMULPD 0(DX), Y5, Y2
+	VMOVUPD 0(DI), Y3
+	VSUBPD Y1, Y3, Y3
+	VSUBPD Y2, Y3, Y3
+	VMOVUPD Y3, 0(DI)
+	ADDQ $32, SI
+	ADDQ $32, DX
+	ADDQ $32, DI
+	SUBQ $4, CX
+	CMPQ CX, $4
+	JGE four2
+
+one2:
+	TESTQ CX, CX
+	JE done2
+
+loop2:
+	VMOVSD 0(SI), X1
+	VMULSD X0, X1, X1
+	VMOVSD 0(DX), X2
+	VMULSD X5, X2, X2
+	VMOVSD 0(DI), X3
+	VSUBSD X1, X3, X3
+	VSUBSD X2, X3, X3
+	VMOVSD X3, 0(DI)
+	ADDQ $8, SI
+	ADDQ $8, DX
+	ADDQ $8, DI
+	DECQ CX
+	JNZ loop2
+
+done2:
+	VZEROUPPER
+	RET
+
+// func lanes1(v, z *float64, n int, a *[4]float64)
+TEXT ·lanes1(SB), NOSPLIT, $0-32
+	MOVQ v+0(FP), SI
+	MOVQ z+8(FP), DX
+	MOVQ n+16(FP), CX
+	MOVQ a+24(FP), DI
+	VXORPD Y0, Y0, Y0
+	TESTQ CX, CX
+	JE l1done
+
+l1loop:
+	VMOVUPD 0(SI), Y1
+	VMULPD 0(DX), Y1, Y1
+	VADDPD Y1, Y0, Y0
+	ADDQ $32, SI
+	ADDQ $32, DX
+	SUBQ $4, CX
+	JNZ l1loop
+
+l1done:
+	VMOVUPD Y0, 0(DI)
+	VZEROUPPER
+	RET
+
+// func lanes4(dst, z *float64, zstride int, v *float64, n int, d float64)
+TEXT ·lanes4(SB), NOSPLIT, $0-48
+	MOVQ dst+0(FP), DI
+	MOVQ z+8(FP), DX
+	MOVQ zstride+16(FP), BX
+	MOVQ v+24(FP), SI
+	MOVQ n+32(FP), CX
+	VXORPD Y0, Y0, Y0
+	VXORPD Y1, Y1, Y1
+	VXORPD Y2, Y2, Y2
+	VXORPD Y3, Y3, Y3
+	CMPQ CX, $4
+	JLT l4tail
+
+l4loop:
+	VBROADCASTSD 0(SI), Y4
+	VMULPD 0(DX), Y4, Y4
+	VADDPD Y4, Y0, Y0
+	ADDQ BX, DX
+	VBROADCASTSD 8(SI), Y5
+	VMULPD 0(DX), Y5, Y5
+	VADDPD Y5, Y1, Y1
+	ADDQ BX, DX
+	VBROADCASTSD 16(SI), Y6
+	VMULPD 0(DX), Y6, Y6
+	VADDPD Y6, Y2, Y2
+	ADDQ BX, DX
+	VBROADCASTSD 24(SI), Y7
+	VMULPD 0(DX), Y7, Y7
+	VADDPD Y7, Y3, Y3
+	ADDQ BX, DX
+	ADDQ $32, SI
+	SUBQ $4, CX
+	CMPQ CX, $4
+	JGE l4loop
+
+l4tail:
+	TESTQ CX, CX
+	JE l4sum
+	VBROADCASTSD 0(SI), Y4
+	VMULPD 0(DX), Y4, Y4
+	VADDPD Y4, Y0, Y0
+	ADDQ BX, DX
+	CMPQ CX, $1
+	JE l4sum
+	VBROADCASTSD 8(SI), Y5
+	VMULPD 0(DX), Y5, Y5
+	VADDPD Y5, Y1, Y1
+	ADDQ BX, DX
+	CMPQ CX, $2
+	JE l4sum
+	VBROADCASTSD 16(SI), Y6
+	VMULPD 0(DX), Y6, Y6
+	VADDPD Y6, Y2, Y2
+
+l4sum:
+	VADDPD Y1, Y0, Y0
+	VADDPD Y3, Y2, Y2
+	VADDPD Y2, Y0, Y0
+	VMOVUPD 0(DI), Y1
+	VSUBPD Y0, Y1, Y1
+	VBROADCASTSD d+40(FP), Y2
+	VMULPD Y2, Y1, Y1
+	VMOVUPD Y1, 0(DI)
+	VZEROUPPER
+	RET

@@ -1,0 +1,155 @@
+package frame
+
+import (
+	"fmt"
+	"math"
+	"math/rand/v2"
+	"slices"
+	"testing"
+
+	"gonum.org/v1/gonum/blas"
+	"gonum.org/v1/gonum/blas/blas64"
+	"gonum.org/v1/gonum/lapack/lapack64"
+)
+
+// randomBand returns a symmetric band matrix (upper band storage, n
+// equations, kb superdiagonals) B Bᵀ-like and diagonally dominant by the
+// factor dom (positive definite for dom > 1 by Gershgorin's theorem),
+// with some entries zero, and shifted by shift on the diagonal.
+func randomBand(rng *rand.Rand, n, kb int, dom, shift float64) []float64 {
+	w := kb + 1
+	a := make([]float64, n*w)
+	rowSum := make([]float64, n)
+	for i := range n {
+		for j := 1; j < w && i+j < n; j++ {
+			if rng.IntN(5) == 0 {
+				continue
+			}
+			v := rng.Float64() - 0.5
+			a[i*w+j] = v
+			rowSum[i] += math.Abs(v)
+			rowSum[i+j] += math.Abs(v)
+		}
+	}
+	for i := range n {
+		a[i*w] = dom*rowSum[i] + shift + 1e-3
+	}
+	return a
+}
+
+// TestBandCholesky checks the band Cholesky factorization of the check
+// of a factor (bandCholesky) against LAPACK's dpbtrf (gonum): the same
+// factor to 1e-12 of the largest entry on positive definite matrices
+// (diagonally dominant: Gershgorin's theorem), and both refusing
+// matrices that are not (a negative diagonal entry, or one dominant
+// matrix shifted far down); with and without AVX, and one row at a time
+// (bandCholeskyRows, LAPACK's dpbtf2 in row-major order), the same
+// numbers to the last bit.
+func TestBandCholesky(t *testing.T) {
+	rng := rand.New(rand.NewPCG(31, 7))
+	for _, tc := range []struct {
+		n, kb      int
+		dom, shift float64
+		definite   bool
+	}{
+		{1, 0, 2, 0, true}, {5, 4, 2, 0, true}, {40, 3, 1.5, 0, true}, {200, 37, 1.1, 0, true},
+		{300, 96, 1.2, 0, true}, {301, 96, 1.2, 0, true}, {7, 2, 1.5, 0, true}, {6, 30, 1.5, 0, true},
+		{60, 9, 2, -1e6, false}, {120, 20, 0.2, -8, false},
+	} {
+		a := randomBand(rng, tc.n, tc.kb, tc.dom, tc.shift)
+		want, ok := lapack64.Pbtrf(blas64.SymmetricBand{Uplo: blas.Upper, N: tc.n, K: tc.kb, Data: slices.Clone(a), Stride: tc.kb + 1})
+		got := slices.Clone(a)
+		gotOK := bandCholesky(got, tc.n, tc.kb)
+		one := slices.Clone(a)
+		if oneOK := bandCholeskyRows(one, tc.n, tc.kb); oneOK != gotOK || gotOK && !slices.Equal(one, got) {
+			t.Fatalf("n %d, kb %d: two rows at a time differ from one at a time", tc.n, tc.kb)
+		}
+		if ok != tc.definite || gotOK != ok {
+			t.Fatalf("n %d, kb %d: positive definite %v, LAPACK %v, meant %v", tc.n, tc.kb, gotOK, ok, tc.definite)
+		}
+		if ok {
+			scale := 0.0
+			for _, v := range want.Data {
+				scale = max(scale, math.Abs(v))
+			}
+			for i := range got {
+				if math.Abs(got[i]-want.Data[i]) > 1e-12*scale {
+					t.Fatalf("n %d, kb %d: entry %d is %.15g, LAPACK's %.15g", tc.n, tc.kb, i, got[i], want.Data[i])
+				}
+			}
+		}
+		if useAVX {
+			plain := slices.Clone(a)
+			useAVX = false
+			plainOK := bandCholesky(plain, tc.n, tc.kb)
+			useAVX = true
+			if plainOK != gotOK {
+				t.Fatalf("n %d, kb %d: without AVX positive definite %v, with %v", tc.n, tc.kb, plainOK, gotOK)
+			}
+			for i := range got {
+				if gotOK && plain[i] != got[i] {
+					t.Fatalf("n %d, kb %d: entry %d is %.17g without AVX, %.17g with", tc.n, tc.kb, i, plain[i], got[i])
+				}
+			}
+		}
+	}
+}
+
+// BenchmarkBandCholesky measures the band Cholesky factorization of the
+// check of a factor (bandCholesky) against LAPACK's dpbtrf (gonum) on
+// a matrix of the band of the 30 × 60 frame and smaller ones.
+func BenchmarkBandCholesky(b *testing.B) {
+	for _, size := range [][2]int{{600, 30}, {2000, 60}, {5580, 96}} {
+		a := randomBand(rand.New(rand.NewPCG(5, 5)), size[0], size[1], 1.2, 0)
+		c := make([]float64, len(a))
+		b.Run(fmt.Sprintf("%dx%d/own", size[0], size[1]), func(b *testing.B) {
+			b.ReportAllocs()
+			start := cpuTime()
+			for b.Loop() {
+				copy(c, a)
+				if !bandCholesky(c, size[0], size[1]) {
+					b.Fatal("not positive definite")
+				}
+			}
+			b.ReportMetric(float64(cpuTime()-start)/float64(b.N), "cpu-ns/op")
+		})
+		b.Run(fmt.Sprintf("%dx%d/lapack", size[0], size[1]), func(b *testing.B) {
+			b.ReportAllocs()
+			start := cpuTime()
+			for b.Loop() {
+				copy(c, a)
+				if _, ok := lapack64.Pbtrf(blas64.SymmetricBand{Uplo: blas.Upper, N: size[0], K: size[1], Data: c, Stride: size[1] + 1}); !ok {
+					b.Fatal("not positive definite")
+				}
+			}
+			b.ReportMetric(float64(cpuTime()-start)/float64(b.N), "cpu-ns/op")
+		})
+	}
+}
+
+// bandCholeskyRows is bandCholesky one row at a time: row i pivoted and
+// scaled, then each row below it less its outer product.
+func bandCholeskyRows(a []float64, n, kb int) bool {
+	w := kb + 1
+	for i := range n {
+		m := min(kb, n-1-i)
+		row := a[i*w : i*w+m+1]
+		if !(row[0] > 0) {
+			return false
+		}
+		d := math.Sqrt(row[0])
+		row[0] = d
+		r := 1 / d
+		for j := 1; j <= m; j++ {
+			row[j] *= r
+		}
+		for j := 1; j <= m; j++ {
+			v := row[j]
+			y := a[(i+j)*w : (i+j)*w+m-j+1]
+			for c := range y {
+				y[c] -= v * row[j+c]
+			}
+		}
+	}
+	return true
+}
