@@ -206,12 +206,21 @@ func SolveWith(mo *Model, opt Options) (*Solution, error) {
 // solveLoads forms the right-hand sides of sol's cases and solves them on
 // its factor (n equations, kb superdiagonals, scaled by sol.pow2).
 func (sol *Solution) solveLoads(n, kb int) error {
+	return sol.solveLoadsIn(n, kb, nil)
+}
+
+// solveLoadsIn is solveLoads with the displacements in buf when it holds
+// as many (its values are overwritten), else in memory of their own.
+func (sol *Solution) solveLoadsIn(n, kb int, buf []float64) error {
 	nc := len(sol.model.Cases)
-	x := sol.rhs(n)
-	bandSolveScaled(sol.factor, n, kb, x, nc, sol.pow2)
+	x := sol.rhsIn(n, buf)
+	finite := bandSolveScaled(sol.factor, n, kb, x, nc, sol.pow2)
 	sol.x = x
 	sol.zero = make([]float64, nc)
-	return sol.checkFinite()
+	if finite {
+		return nil
+	}
+	return sol.checkFinite() // which case
 }
 
 // checkStiffness refuses a stiffness matrix that overflowed, which only
@@ -411,9 +420,18 @@ func (sol *Solution) indexImposed() {
 
 // rhs returns the right-hand sides, row-major n × cases: node loads less
 // the fixed-end forces of the member loads.
-func (sol *Solution) rhs(n int) []float64 {
+func (sol *Solution) rhs(n int) []float64 { return sol.rhsIn(n, nil) }
+
+// rhsIn is rhs in buf when it holds as many values (its own are
+// overwritten), else in memory of its own.
+func (sol *Solution) rhsIn(n int, buf []float64) []float64 {
 	nc := len(sol.model.Cases)
-	x := make([]float64, n*nc)
+	var x []float64
+	if cap(buf) >= n*nc {
+		x = buf[:n*nc]
+	} else {
+		x = make([]float64, n*nc)
+	}
 	// Zeros written first, on every processor, a run of rows each: fresh
 	// memory first read is mapped to the system's zero page, and the
 	// first write to it then faults again and flushes every processor's

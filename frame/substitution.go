@@ -34,9 +34,11 @@ func bandSolve(u []float64, n, kb int, x []float64, nrhs int) {
 // One column (a step of a second-order iteration) is solved by the plain
 // vector substitutions, bandSolveVec, in the same order of operations:
 // listing the factor's terms would cost more than using them once.
-func bandSolveScaled(u []float64, n, kb int, x []float64, nrhs int, d []float64) {
+// finite reports whether every value of x is a finite number afterwards
+// (checked as the rows are unpacked, while they are in cache).
+func bandSolveScaled(u []float64, n, kb int, x []float64, nrhs int, d []float64) (finite bool) {
 	if nrhs == 0 {
-		return
+		return true
 	}
 	if nrhs == 1 {
 		x = x[:n]
@@ -47,9 +49,9 @@ func bandSolveScaled(u []float64, n, kb int, x []float64, nrhs int, d []float64)
 		for i := range d {
 			x[i] *= d[i]
 		}
-		return
+		return allFinite(x)
 	}
-	newBandSolver(u, n, kb).solveScaled(x, nrhs, d)
+	return newBandSolver(u, n, kb).solveScaled(x, nrhs, d)
 }
 
 // bandSolver is bandSolve for one factor used many times (an iteration):
@@ -68,43 +70,85 @@ func newBandSolver(u []float64, n, kb int) *bandSolver {
 func (bs *bandSolver) solve(x []float64, nrhs int) { bs.solveScaled(x, nrhs, nil) }
 
 // solveScaled is bandSolveScaled with the solver's factor; d nil is no
-// scaling.
-func (bs *bandSolver) solveScaled(x []float64, nrhs int, d []float64) {
+// scaling. A last block narrower than solveBlock is padded with zero
+// columns to a whole one where combine32 is used: each column is formed
+// on its own, in the same order of operations at any width, and zero
+// columns move no block's first non-zero row, so its columns come out the
+// same to the last bit, and a whole block by combine32 takes a fraction
+// of the time of the few columns by combine.
+func (bs *bandSolver) solveScaled(x []float64, nrhs int, d []float64) (finite bool) {
 	if nrhs == 0 {
-		return
+		return true
 	}
 	u, n, kb := bs.u, bs.n, bs.kb
 	fwd, bwd := bs.fwd, bs.bwd
 	nb := (nrhs + solveBlock - 1) / solveBlock
 	workers := min(runtime.GOMAXPROCS(0), nb)
 	var wg sync.WaitGroup
+	bad := make([]bool, workers)
 	next := make(chan int, nb)
 	for b := range nb {
 		next <- b
 	}
 	close(next)
-	for range workers {
+	for k := range workers {
 		wg.Add(1)
 		go func() {
 			defer wg.Done()
 			offs := make([]int, 0, kb)
 			buf := make([]float64, n*solveBlock)
+			ok := true
 			for b := range next {
 				lo, hi := b*solveBlock, min((b+1)*solveBlock, nrhs)
-				// The block's columns packed, rows of hi−lo: the rows one
-				// row reads are then a few kilobytes apart, not nrhs words.
-				bw := hi - lo
+				// The block's columns packed, rows of bw ≥ hi−lo: the rows
+				// one row reads are then a few kilobytes apart, not nrhs
+				// words.
+				cols := hi - lo
+				bw := cols
+				if useAVX && cols < solveBlock {
+					bw = solveBlock
+				}
 				for i := range n {
-					copyScaled(buf[i*bw:(i+1)*bw], x[i*nrhs+lo:i*nrhs+hi], d, i)
+					row := buf[i*bw : (i+1)*bw]
+					copyScaled(row, x[i*nrhs+lo:i*nrhs+hi], d, i)
+					clear(row[cols:])
 				}
 				substitute(&fwd, &bwd, u, n, kb, buf[:n*bw], bw, offs)
 				for i := range n {
-					copyScaled(x[i*nrhs+lo:i*nrhs+hi], buf[i*bw:(i+1)*bw], d, i)
+					dst := x[i*nrhs+lo : i*nrhs+hi]
+					copyScaled(dst, buf[i*bw:i*bw+cols], d, i)
+					ok = ok && allFinite(dst)
 				}
 			}
+			bad[k] = !ok
 		}()
 	}
 	wg.Wait()
+	for _, b := range bad {
+		if b {
+			return false
+		}
+	}
+	return true
+}
+
+// allFinite reports whether every value of x is a finite number: x − x
+// is 0 for a finite x and NaN for an infinite one or NaN.
+// Four sums, so that the additions do not wait on each other.
+func allFinite(x []float64) bool {
+	var s0, s1, s2, s3 float64
+	k := 0
+	for ; k+4 <= len(x); k += 4 {
+		y := x[k : k+4 : k+4]
+		s0 += y[0] - y[0]
+		s1 += y[1] - y[1]
+		s2 += y[2] - y[2]
+		s3 += y[3] - y[3]
+	}
+	for ; k < len(x); k++ {
+		s0 += x[k] - x[k]
+	}
+	return s0+s1+s2+s3 == 0
 }
 
 // copyScaled copies src to dst times d[i], or as it is when d is nil:

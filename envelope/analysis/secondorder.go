@@ -566,6 +566,9 @@ func (r *Result) envelopes(pl *plan, sv *solved, lay *patterns.Layout, reqs []re
 	for i := range reqs {
 		mg[i] = newMerger(job.Combinations)
 	}
+	// The solution of the last second-order group, once enveloped: the
+	// next one's displacements take its memory (frame.SolveCasesReusing).
+	var spent *frame.Solution
 	for _, g := range groups {
 		sol := r.sol
 		glay := lay
@@ -606,8 +609,8 @@ func (r *Result) envelopes(pl *plan, sv *solved, lay *patterns.Layout, reqs []re
 				// sections, members and axial forces): its factor solves
 				// the cases, to the same numbers as a solve of their own.
 				u := &pl.units[g.units[0]]
-				sol, err = u.final.SolveCases(mo.Cases)
-				u.final = nil
+				sol, err = u.final.SolveCasesReusing(mo.Cases, spent)
+				u.final, spent = nil, nil
 				if err == nil {
 					l2.Model = sol.Model() // equal to mo, the iteration's copy
 				}
@@ -678,6 +681,9 @@ func (r *Result) envelopes(pl *plan, sv *solved, lay *patterns.Layout, reqs []re
 					}
 				}
 			}
+		}
+		if g.second && shareFactors {
+			spent = sol // read no more
 		}
 	}
 	out := make([]*envelope.Envelope, len(reqs))
