@@ -1,11 +1,11 @@
 package frame
 
 import (
+	"cmp"
 	"fmt"
 	"math"
 	"runtime"
 	"slices"
-	"sort"
 	"sync"
 
 	"gonum.org/v1/gonum/blas"
@@ -102,8 +102,7 @@ func SolveWith(mo *Model, opt Options) (*Solution, error) {
 	}
 	parts := unsupportedParts(mo)
 	released := releasedRotations(mo)
-	order := rcmOrder(adjacency(mo))
-	dof, n, band := dofMap(mo, order, released)
+	dof, n, band := dofMap(mo, nodeOrder(mo), released)
 	if err := checkMemory(mo, n, band, opt); err != nil {
 		return nil, err
 	}
@@ -113,9 +112,13 @@ func SolveWith(mo *Model, opt Options) (*Solution, error) {
 	sol := &Solution{model: mo, dofs: n, band: band, cond: 1, dof: dof, released: released, axial: opt.Axial}
 	sol.elems = make([]element, len(mo.Members))
 	sol.atNode = make([][]int32, len(mo.Nodes))
+	var sos []secondOrder // the members' second-order parts, in one block
+	if opt.Axial != nil {
+		sos = make([]secondOrder, len(mo.Members))
+	}
 	for m, mem := range mo.Members {
 		if opt.Axial != nil {
-			e, ok := newElementAxial(mo, m, opt.Axial[m], true)
+			e, ok := newElementAxialIn(mo, m, opt.Axial[m], true, &sos[m])
 			if !ok {
 				return nil, fmt.Errorf("%w: member %q buckles between its ends under N = %.6g", ErrUnstable, mem.Name, opt.Axial[m])
 			}
@@ -547,7 +550,9 @@ func (sol *Solution) indexLoads() {
 		for i := range idx {
 			idx[i] = int32(i)
 		}
-		sort.SliceStable(idx, func(i, j int) bool { return loads[idx[i]].Member < loads[idx[j]].Member })
+		if !slices.IsSortedFunc(idx, func(i, j int32) int { return cmp.Compare(loads[i].Member, loads[j].Member) }) {
+			slices.SortStableFunc(idx, func(i, j int32) int { return cmp.Compare(loads[i].Member, loads[j].Member) })
+		}
 		var members []int32
 		var spans [][2]int32
 		for i := 0; i < len(idx); {
