@@ -62,8 +62,22 @@ type bandSolver struct {
 	fwd, bwd terms
 }
 
+// The two lists are made side by side where there is more than one
+// processor (each is the same whichever makes it).
 func newBandSolver(u []float64, n, kb int) *bandSolver {
-	return &bandSolver{u: u, n: n, kb: kb, fwd: newTerms(u, n, kb, true), bwd: newTerms(u, n, kb, false)}
+	bs := &bandSolver{u: u, n: n, kb: kb}
+	if runtime.GOMAXPROCS(0) == 1 {
+		bs.fwd, bs.bwd = newTerms(u, n, kb, true), newTerms(u, n, kb, false)
+		return bs
+	}
+	done := make(chan struct{})
+	go func() {
+		defer close(done)
+		bs.bwd = newTerms(u, n, kb, false)
+	}()
+	bs.fwd = newTerms(u, n, kb, true)
+	<-done
+	return bs
 }
 
 // solve is bandSolve with the solver's factor.
@@ -180,33 +194,42 @@ type terms struct {
 // is live, and adds to the run's peak memory.
 func newTerms(u []float64, n, kb int, forward bool) terms {
 	w := kb + 1
-	each := func(i int, f func(k int, v float64)) {
-		if forward {
-			for k := max(0, i-kb); k < i; k++ {
-				if uki := u[k*w+i-k]; uki != 0 {
-					f(k, uki)
-				}
-			}
-			return
-		}
-		for j := 1; j < w && i+j < n; j++ {
-			if uij := u[i*w+j]; uij != 0 {
-				f(i+j, uij)
-			}
-		}
-	}
 	t := terms{at: make([]int, n+1)}
 	for i := range n {
 		c := 0
-		each(i, func(int, float64) { c++ })
+		if forward {
+			for k := max(0, i-kb); k < i; k++ {
+				if u[k*w+i-k] != 0 {
+					c++
+				}
+			}
+		} else {
+			for j := 1; j < w && i+j < n; j++ {
+				if u[i*w+j] != 0 {
+					c++
+				}
+			}
+		}
 		t.at[i+1] = t.at[i] + c
 	}
-	t.rows, t.negs = make([]int32, 0, t.at[n]), make([]float64, 0, t.at[n])
+	t.rows, t.negs = make([]int32, t.at[n]), make([]float64, t.at[n])
+	p := 0
 	for i := range n {
-		each(i, func(k int, v float64) {
-			t.rows = append(t.rows, int32(k))
-			t.negs = append(t.negs, -v)
-		})
+		if forward {
+			for k := max(0, i-kb); k < i; k++ {
+				if uki := u[k*w+i-k]; uki != 0 {
+					t.rows[p], t.negs[p] = int32(k), -uki
+					p++
+				}
+			}
+			continue
+		}
+		for j := 1; j < w && i+j < n; j++ {
+			if uij := u[i*w+j]; uij != 0 {
+				t.rows[p], t.negs[p] = int32(i+j), -uij
+				p++
+			}
+		}
 	}
 	return t
 }
