@@ -214,10 +214,32 @@ func (sol *Solution) solveLoads(n, kb int) error {
 
 // solveLoadsIn is solveLoads with the displacements in buf when it holds
 // as many (its values are overwritten), else in memory of their own.
+//
+// One column is formed in x and solved by the vector substitutions
+// (bandSolveScaled). More are formed block by block where the
+// substitution packs them (bandSolver.solveBlocks, rhsBlock), straight
+// into the packed rows, scaled there: x is then only written, once, as
+// each block's solution is unpacked, not cleared, formed and read again
+// first (each entry's terms are added in the same order as rhs adds them,
+// and scaled alike: the same numbers to the last bit).
 func (sol *Solution) solveLoadsIn(n, kb int, buf []float64) error {
 	nc := len(sol.model.Cases)
-	x := sol.rhsIn(n, buf)
-	finite := bandSolveScaled(sol.factor, n, kb, x, nc, sol.pow2)
+	var x []float64
+	var finite bool
+	if nc <= 1 {
+		x = sol.rhsIn(n, buf)
+		finite = bandSolveScaled(sol.factor, n, kb, x, nc, sol.pow2)
+	} else {
+		if cap(buf) >= n*nc {
+			x = buf[:n*nc] // every value is written by the solve
+		} else {
+			x = make([]float64, n*nc)
+		}
+		d := sol.pow2
+		finite = newBandSolver(sol.factor, n, kb).solveBlocks(x, nc, d, func(dst []float64, lo, hi, bw int) {
+			sol.rhsBlock(dst, lo, hi, bw, d)
+		})
+	}
 	sol.x = x
 	sol.zero = make([]float64, nc)
 	if finite {
@@ -468,25 +490,56 @@ func (sol *Solution) rhsIn(n int, buf []float64) []float64 {
 
 // rhsOf adds to x (see rhs) the loads of cases lo up to hi.
 func (sol *Solution) rhsOf(x []float64, lo, hi int) {
-	mo, dof := sol.model, sol.dof
-	nc := len(mo.Cases)
+	nc := len(sol.model.Cases)
 	for c := lo; c < hi; c++ {
-		for _, nl := range mo.Cases[c].NodeLoads {
-			for d, v := range [3]float64{nl.Fx, nl.Fy, nl.M} {
-				if e := dof[3*nl.Node+d]; e >= 0 {
-					x[e*nc+c] += v
-				}
+		sol.rhsCol(x, nc, c, c)
+	}
+}
+
+// rhsCol adds the loads of case c to column at of dst, rows of stride
+// values: node loads, then less the fixed-end forces of the loaded
+// members in their order.
+func (sol *Solution) rhsCol(dst []float64, stride, at, c int) {
+	mo, dof := sol.model, sol.dof
+	for _, nl := range mo.Cases[c].NodeLoads {
+		for d, v := range [3]float64{nl.Fx, nl.Fy, nl.M} {
+			if e := dof[3*nl.Node+d]; e >= 0 {
+				dst[e*stride+at] += v
 			}
 		}
-		for i, m32 := range sol.loaded[c] {
-			m := int(m32)
-			var fg [6]float64
-			sol.elems[m].toGlobal(&fg, (*[6]float64)(sol.fem[c][6*i:]))
-			ends := [2]int{mo.Members[m].Start, mo.Members[m].End}
-			for k := range 6 {
-				if e := dof[3*ends[k/3]+k%3]; e >= 0 {
-					x[e*nc+c] -= fg[k]
-				}
+	}
+	for i, m32 := range sol.loaded[c] {
+		m := int(m32)
+		var fg [6]float64
+		sol.elems[m].toGlobal(&fg, (*[6]float64)(sol.fem[c][6*i:]))
+		ends := [2]int{mo.Members[m].Start, mo.Members[m].End}
+		for k := range 6 {
+			if e := dof[3*ends[k/3]+k%3]; e >= 0 {
+				dst[e*stride+at] -= fg[k]
+			}
+		}
+	}
+}
+
+// rhsBlock forms in dst the right-hand sides of cases lo up to hi, packed
+// as the substitution takes them (rows of bw ≥ hi − lo values, the rest
+// of each row zero) and each row i scaled by d[i]: rhs's numbers, packed.
+func (sol *Solution) rhsBlock(dst []float64, lo, hi, bw int, d []float64) {
+	n := sol.dofs
+	dst = dst[:n*bw]
+	clear(dst)
+	for c := lo; c < hi; c++ {
+		sol.rhsCol(dst, bw, c-lo, c)
+	}
+	if len(sol.imposed) > 0 {
+		sol.imposedTo(dst, bw, lo, hi)
+	}
+	if d != nil {
+		for i := range n {
+			row := dst[i*bw : i*bw+hi-lo]
+			s := d[i]
+			for k := range row {
+				row[k] *= s
 			}
 		}
 	}
@@ -497,6 +550,13 @@ func (sol *Solution) rhsOf(x []float64, lo, hi int) {
 // columns of the stiffness matrix of those directions times the
 // displacements.
 func (sol *Solution) imposedRHS(x []float64) {
+	nc := len(sol.model.Cases)
+	sol.imposedTo(x, nc, 0, nc)
+}
+
+// imposedTo is imposedRHS for cases lo up to hi, case c in column c − lo
+// of dst, rows of stride values: each value's terms in the same order.
+func (sol *Solution) imposedTo(dst []float64, stride, lo, hi int) {
 	mo, dof := sol.model, sol.dof
 	nc := len(mo.Cases)
 	for m, mem := range mo.Members {
@@ -511,7 +571,7 @@ func (sol *Solution) imposedRHS(x []float64) {
 			continue
 		}
 		g := sol.elems[m].global()
-		for c := range nc {
+		for c := lo; c < hi; c++ {
 			var ug [6]float64
 			nonzero := false
 			for k, e := range codes {
@@ -531,7 +591,7 @@ func (sol *Solution) imposedRHS(x []float64) {
 				for j := range 6 {
 					v += g[i][j] * ug[j]
 				}
-				x[e*nc+c] -= v
+				dst[e*stride+c-lo] -= v
 			}
 		}
 	}

@@ -84,13 +84,32 @@ func newBandSolver(u []float64, n, kb int) *bandSolver {
 func (bs *bandSolver) solve(x []float64, nrhs int) { bs.solveScaled(x, nrhs, nil) }
 
 // solveScaled is bandSolveScaled with the solver's factor; d nil is no
-// scaling. A last block narrower than solveBlock is padded with zero
-// columns to a whole one where combine32 is used: each column is formed
-// on its own, in the same order of operations at any width, and zero
-// columns move no block's first non-zero row, so its columns come out the
-// same to the last bit, and a whole block by combine32 takes a fraction
-// of the time of the few columns by combine.
+// scaling: solveBlocks, each block packed from x.
 func (bs *bandSolver) solveScaled(x []float64, nrhs int, d []float64) (finite bool) {
+	n := bs.n
+	return bs.solveBlocks(x, nrhs, d, func(buf []float64, lo, hi, bw int) {
+		cols := hi - lo
+		for i := range n {
+			row := buf[i*bw : (i+1)*bw]
+			copyScaled(row, x[i*nrhs+lo:i*nrhs+hi], d, i)
+			clear(row[cols:])
+		}
+	})
+}
+
+// solveBlocks solves the n × nrhs system whose columns fill packs, block
+// by block: fill(buf, lo, hi, bw) sets buf to the n rows of bw values of
+// columns lo up to hi (scaled by d where there is a d), the rest of each
+// row zero. The block is substituted and its solution written to x,
+// times d again, and finite reports whether every value written is a
+// finite number (checked as the rows are unpacked, while they are in
+// cache). x is only written. A last block narrower than solveBlock is
+// padded with zero columns to a whole one where combine32 is used: each
+// column is formed on its own, in the same order of operations at any
+// width, and zero columns move no block's first non-zero row, so its
+// columns come out the same to the last bit, and a whole block by
+// combine32 takes a fraction of the time of the few columns by combine.
+func (bs *bandSolver) solveBlocks(x []float64, nrhs int, d []float64, fill func(buf []float64, lo, hi, bw int)) (finite bool) {
 	if nrhs == 0 {
 		return true
 	}
@@ -122,11 +141,7 @@ func (bs *bandSolver) solveScaled(x []float64, nrhs int, d []float64) (finite bo
 				if useAVX && cols < solveBlock {
 					bw = solveBlock
 				}
-				for i := range n {
-					row := buf[i*bw : (i+1)*bw]
-					copyScaled(row, x[i*nrhs+lo:i*nrhs+hi], d, i)
-					clear(row[cols:])
-				}
+				fill(buf[:n*bw], lo, hi, bw)
 				substitute(&fwd, &bwd, u, n, kb, buf[:n*bw], bw, offs)
 				for i := range n {
 					dst := x[i*nrhs+lo : i*nrhs+hi]
@@ -165,16 +180,23 @@ func allFinite(x []float64) bool {
 	return s0+s1+s2+s3 == 0
 }
 
-// copyScaled copies src to dst times d[i], or as it is when d is nil:
-// copied, then scaled where the row is in cache.
+// copyScaled copies src to dst times d[i], or as it is when d is nil: in
+// one pass, four values at a time (a call of copy and a second pass over
+// the row took as long as the substitution's packing itself).
 func copyScaled(dst, src, d []float64, i int) {
-	copy(dst, src)
 	if d == nil {
+		copy(dst, src)
 		return
 	}
 	s := d[i]
-	for k := range dst[:len(src)] {
-		dst[k] *= s
+	dst = dst[:len(src)]
+	k := 0
+	for ; k+4 <= len(src); k += 4 {
+		v, w := src[k:k+4:k+4], dst[k:k+4:k+4]
+		w[0], w[1], w[2], w[3] = v[0]*s, v[1]*s, v[2]*s, v[3]*s
+	}
+	for ; k < len(src); k++ {
+		dst[k] = src[k] * s
 	}
 }
 
