@@ -544,22 +544,17 @@ func (r *Result) envelopes(pl *plan, sv *solved, lay *patterns.Layout, reqs []re
 	}
 	// The second-order units' iterations are independent of each other
 	// and of the envelopes: they run side by side, taken in the groups'
-	// order by one worker per processor, while the groups are enveloped
-	// in order, each once its own iteration is done (so the processors
-	// are kept busy to the last iteration); each unit's error is returned
-	// where the unit comes in order. No iteration outlives the call.
+	// order by one worker per processor, and each unit's error is
+	// returned where the unit comes in order.
 	iterated := make([]error, len(pl.units))
-	done := make([]chan struct{}, len(pl.units))
 	next := make(chan group, len(groups))
 	for _, g := range groups {
 		if g.second {
-			done[g.units[0]] = make(chan struct{})
 			next <- g
 		}
 	}
 	close(next)
 	var wg sync.WaitGroup
-	defer wg.Wait()
 	for range min(runtime.GOMAXPROCS(0), len(next)) {
 		wg.Add(1)
 		go func() {
@@ -567,10 +562,10 @@ func (r *Result) envelopes(pl *plan, sv *solved, lay *patterns.Layout, reqs []re
 			for g := range next {
 				i := g.units[0]
 				iterated[i] = r.iterate(&pl.units[i], sv.model, g.stiff)
-				close(done[i])
 			}
 		}()
 	}
+	wg.Wait()
 	mg := make([]*merger, len(reqs))
 	for i := range reqs {
 		mg[i] = newMerger(job.Combinations)
@@ -586,7 +581,6 @@ func (r *Result) envelopes(pl *plan, sv *solved, lay *patterns.Layout, reqs []re
 			var axial []float64
 			if g.second {
 				u := &pl.units[g.units[0]]
-				<-done[g.units[0]]
 				if err := iterated[g.units[0]]; err != nil {
 					return nil, err
 				}
