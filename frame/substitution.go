@@ -144,9 +144,7 @@ func (bs *bandSolver) solveBlocks(x []float64, nrhs int, d []float64, fill func(
 				fill(buf[:n*bw], lo, hi, bw)
 				substitute(&fwd, &bwd, u, n, kb, buf[:n*bw], bw, offs)
 				for i := range n {
-					dst := x[i*nrhs+lo : i*nrhs+hi]
-					copyScaled(dst, buf[i*bw:i*bw+cols], d, i)
-					ok = ok && allFinite(dst)
+					ok = unpackRow(x[i*nrhs+lo:i*nrhs+hi], buf[i*bw:i*bw+cols], d, i) && ok
 				}
 			}
 			bad[k] = !ok
@@ -159,6 +157,38 @@ func (bs *bandSolver) solveBlocks(x []float64, nrhs int, d []float64, fill func(
 		}
 	}
 	return true
+}
+
+// unpackRow copies the packed row src (scratch: it is scaled in place)
+// to dst times d[i], or as it is when d is nil, and reports whether every
+// value is a finite number (allFinite): scaled and checked where src is
+// in cache, then copied whole, so that dst, far in memory, is only
+// written, by the wide moves of copy (writing it value by value, or
+// reading it again to check it, took longer than the substitution's
+// packing had).
+func unpackRow(dst, src, d []float64, i int) bool {
+	s := 1.0
+	if d != nil {
+		s = d[i]
+	}
+	var f0, f1, f2, f3 float64
+	k := 0
+	for ; k+4 <= len(src); k += 4 {
+		v := src[k : k+4 : k+4]
+		a, b, c, e := v[0]*s, v[1]*s, v[2]*s, v[3]*s
+		v[0], v[1], v[2], v[3] = a, b, c, e
+		f0 += a - a
+		f1 += b - b
+		f2 += c - c
+		f3 += e - e
+	}
+	for ; k < len(src); k++ {
+		a := src[k] * s
+		src[k] = a
+		f0 += a - a
+	}
+	copy(dst, src)
+	return f0+f1+f2+f3 == 0
 }
 
 // allFinite reports whether every value of x is a finite number: x − x
@@ -180,23 +210,16 @@ func allFinite(x []float64) bool {
 	return s0+s1+s2+s3 == 0
 }
 
-// copyScaled copies src to dst times d[i], or as it is when d is nil: in
-// one pass, four values at a time (a call of copy and a second pass over
-// the row took as long as the substitution's packing itself).
+// copyScaled copies src to dst times d[i], or as it is when d is nil:
+// copied, then scaled where the row is in cache.
 func copyScaled(dst, src, d []float64, i int) {
+	copy(dst, src)
 	if d == nil {
-		copy(dst, src)
 		return
 	}
 	s := d[i]
-	dst = dst[:len(src)]
-	k := 0
-	for ; k+4 <= len(src); k += 4 {
-		v, w := src[k:k+4:k+4], dst[k:k+4:k+4]
-		w[0], w[1], w[2], w[3] = v[0]*s, v[1]*s, v[2]*s, v[3]*s
-	}
-	for ; k < len(src); k++ {
-		dst[k] = src[k] * s
+	for k := range dst[:len(src)] {
+		dst[k] *= s
 	}
 }
 
