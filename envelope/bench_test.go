@@ -56,7 +56,9 @@ func regularFrame(bays, storeys int) *frame.Model {
 // for it (at most patterns.MaxExhaustive pieces). The "joined" runs put L
 // and Lr in one group (Settings.Groups), which takes the path of
 // combinations with joined terms; with patterns "full" the two act as
-// whole cases, so the group decides for every station.
+// whole cases, so the group decides for every station. The "strength"
+// sizes leave out the service combination (no deflections), as a run of
+// a model without one does.
 func BenchmarkCompute(b *testing.B) {
 	cs := append(frameCombos(), combos.Combination{Name: "D+L", Service: true, Terms: []combos.Term{{Case: 0, Factor: 1}, {Case: 1, Factor: 1}}})
 	for _, bc := range []struct {
@@ -64,16 +66,25 @@ func BenchmarkCompute(b *testing.B) {
 		bays, storeys int
 		segments      int
 		groups        []int
+		strength      bool
 	}{
-		{patterns.Full, 10, 10, 1, nil},
-		{patterns.Exact, 10, 10, 1, nil},
-		{patterns.Exact, 10, 10, 3, nil},
-		{patterns.Code, 10, 10, 1, nil},
-		{patterns.Exhaustive, 3, 3, 1, nil},
-		{patterns.Full, 10, 10, 1, []int{-1, 0, 0, -1}},
-		{patterns.Exact, 10, 10, 1, []int{-1, 0, 0, -1}},
+		{patterns.Full, 10, 10, 1, nil, false},
+		{patterns.Exact, 10, 10, 1, nil, false},
+		{patterns.Exact, 10, 10, 3, nil, false},
+		{patterns.Code, 10, 10, 1, nil, false},
+		{patterns.Exhaustive, 3, 3, 1, nil, false},
+		{patterns.Full, 10, 10, 1, []int{-1, 0, 0, -1}, false},
+		{patterns.Exact, 10, 10, 1, []int{-1, 0, 0, -1}, false},
+		{patterns.Exact, 30, 60, 1, nil, false},
+		{patterns.Exact, 30, 60, 1, nil, true},
 	} {
-		name := fmt.Sprintf("%s/%dx%d/segments=%d", bc.mode, bc.bays, bc.storeys, bc.segments)
+		size := fmt.Sprintf("%dx%d", bc.bays, bc.storeys)
+		cs := cs
+		if bc.strength {
+			size += "-strength"
+			cs = frameCombos()
+		}
+		name := fmt.Sprintf("%s/%s/segments=%d", bc.mode, size, bc.segments)
 		if bc.groups != nil {
 			name += "/joined"
 		}
@@ -151,7 +162,7 @@ func BenchmarkComputeFactors(b *testing.B) {
 // then carries N·(v(x) − v(0)) in its moments (fold.go).
 func BenchmarkComputeSecondOrder(b *testing.B) {
 	cs := frameCombos()
-	for _, size := range []struct{ bays, storeys int }{{10, 10}, {30, 20}} {
+	for _, size := range []struct{ bays, storeys int }{{10, 10}, {30, 20}, {30, 60}} {
 		b.Run(fmt.Sprintf("%dx%d", size.bays, size.storeys), func(b *testing.B) {
 			mo := regularFrame(size.bays, size.storeys)
 			first, err := frame.Solve(mo)

@@ -17,6 +17,9 @@ type exactPlacement struct {
 	big   [][3][2]float64
 	count [][3][2]int
 	top   [][3][2][]candidate
+	// kept holds, per patterned case, effect and sign, the units of the
+	// list the last scan made, which seed the next one's ranking (seed.go).
+	kept [][3][2][]int32
 }
 
 func newExactPlacement(patterned int) *exactPlacement {
@@ -25,6 +28,7 @@ func newExactPlacement(patterned int) *exactPlacement {
 		big:   make([][3][2]float64, patterned),
 		count: make([][3][2]int, patterned),
 		top:   make([][3][2][]candidate, patterned),
+		kept:  make([][3][2][]int32, patterned),
 	}
 }
 
@@ -69,9 +73,17 @@ func (pl *exactPlacement) scan(e *evaluator, w *work) {
 				}
 			}
 		}
+		// And from the units the list kept at the last scan (keptRows):
+		// with all of them of its sign, at least the list's length of
+		// units reach the smallest of their sizes here, and the largest
+		// are among them.
+		kept := &pl.kept[p]
 		for j := js; j < je; j++ {
 			for s := range 2 {
 				seed[j][s] *= w.share
+				if seeds(w) {
+					seed[j][s] = max(seed[j][s], keptRows(kept[j][s], units, j, w.noise[j], s == 1, w.limit))
+				}
 				thr[j][s] = seed[j][s]
 			}
 		}
@@ -119,6 +131,12 @@ func (pl *exactPlacement) scan(e *evaluator, w *work) {
 		for j := js; j < je; j++ {
 			for q := range 3 {
 				sum[j][1][q] = tot[q] - sum[j][0][q] - zero[j][q]
+			}
+			for s := range 2 {
+				kept[j][s] = kept[j][s][:0]
+				for _, c := range top[j][s] {
+					kept[j][s] = append(kept[j][s], int32(c.piece))
+				}
 			}
 		}
 		pl.sum[p], pl.big[p], pl.count[p] = sum, big, count

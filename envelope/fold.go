@@ -29,13 +29,21 @@ import (
 // local displacements u of the member's nodes, Σₖ Hᵢₖ·uₖ at station i,
 // with weights H of the member's condensed sub-element shape
 // (frame.Solution.SecondOrderWeightsTo, frame.Sway). So each column's u is
-// read once from the same rows (frame.Solution.DisplacementsEach), each
-// piece's M at each station is M₀ + x·V + N·Σₖ Hᵢₖ·uₖ, formed once per
-// member into a table (foldCase.mt) and classified from it station by
-// station; N and V fold as in first order, the concurrent M of the pieces
-// folded for them being ΣM₀ + x·ΣV + N·Σₖ Hᵢₖ·Σuₖ; the pieces that load the
-// member and the original cases add their second-order moment from their
-// own shape (frame.Solution.SecondFrom), and so do the deflections.
+// read once from the same rows, in the same pass as its end forces
+// (frame.Solution.StartForcesAndDisplacementsEach), each piece's M at
+// each station is M₀ + x·V + N·Σₖ Hᵢₖ·uₖ, formed once per member into a
+// table (foldCase.mt) and classified from it station by station; N and V
+// fold as in first order, the concurrent M of the pieces folded for them
+// being ΣM₀ + x·ΣV + N·Σₖ Hᵢₖ·Σuₖ; the pieces that load the member and
+// the original cases add their second-order moment from their own shape
+// (frame.Solution.SecondFrom), and so do the deflections.
+//
+// Ranking. Of the units of each sign only the most influential are
+// listed; the ranking at a station (and the fold's of N and V) is seeded
+// from the units the list kept at the station before, or at the last
+// station of the member before (seed.go), and ranks only the units that
+// reach the seed, found in the pass that sums that sign's units: the
+// lists are the same as without the seed.
 //
 // Member factors (live load reduction, factors.go) scale every column of
 // a case in the member by one factor per effect. Each piece is then
@@ -96,10 +104,16 @@ type fold struct {
 	// scratch: the units at the station whose M is positive, negative and
 	// round-off (classify)
 	pos, neg, zer []int32
+	ranked        [2][]int32 // scratch: the units of each sign that reach the seed
 	// seed holds, per set of member factors, patterned case and sign
 	// (k*len(cases)+p), the smallest size of M the list kept at the
-	// previous station of the member (0 if not full).
+	// previous station of the member (0 if not full), and kept the units
+	// of that list.
 	seed [][2]float64
+	kept [][2][]int32
+	// keptNV holds, likewise, the units of the lists of N and V
+	// ([j][s]) of the member folded before (foldCase.fold).
+	keptNV [][2][2][]int32
 }
 
 // foldCase is one patterned case folded over the current member.
@@ -161,11 +175,14 @@ func (e *evaluator) foldable(w *work, sol *frame.Solution, m int) (*exactPlaceme
 func (f *fold) load(e *evaluator, w *work, sol *frame.Solution, m int) {
 	ns, nc := len(w.xs), len(e.mo.Cases)
 	f.ends = grow(f.ends, nc)
-	sol.StartForcesEach(f.ends, m) // the start gives N, V, M and the deflections anywhere
+	// The start gives N, V, M and the deflections anywhere; in second
+	// order with the nodes' displacements, read from the same rows.
 	f.second = !sol.Unloaded(m)
-	if f.second {
+	if !f.second {
+		sol.StartForcesEach(f.ends, m)
+	} else {
 		f.disp = grow(f.disp, nc)
-		sol.DisplacementsEach(f.disp, m)
+		sol.StartForcesAndDisplacementsEach(f.ends, f.disp, m)
 		f.wts = grow(f.wts, ns)
 		f.n = sol.SecondOrderWeightsTo(f.wts, m, w.xs)
 	}
@@ -208,6 +225,12 @@ func (f *fold) load(e *evaluator, w *work, sol *frame.Solution, m int) {
 		parts = []*evaluator{e}
 	}
 	f.seed = grow(f.seed, len(parts)*len(e.lay.Patterned))
+	if n := len(parts) * len(e.lay.Patterned); cap(f.kept) < n {
+		f.kept = make([][2][]int32, n)
+		f.keptNV = make([][2][2][]int32, n)
+	} else {
+		f.kept, f.keptNV = f.kept[:n], f.keptNV[:n]
+	}
 	for p := range f.cases {
 		fc := &f.cases[p]
 		fc.own, fc.ownAt = fc.own[:0], fc.ownAt[:0]
@@ -305,11 +328,37 @@ func (f *fold) load(e *evaluator, w *work, sol *frame.Solution, m int) {
 		}
 		fc.mt = grow(fc.mt, ns*nu)
 		// Station by station, the weights held: the same sums, in the
-		// same order, as frame.Sway.
+		// same order, as frame.Sway. The weights of the nodes' axial
+		// displacements (0 and 3) are zero at every station of a member
+		// whose displacement across it does not depend on them (every
+		// one, as frame forms them): their terms, ±0 for a finite
+		// displacement, leave the sum as it is (a sum begun at +0 is
+		// never −0), and are left out. (A displacement that is not
+		// finite makes the column's end forces not finite too, and the
+		// station is formed again on the unfolded path.)
+		axialFree := f.wmax[0] == 0 && f.wmax[3] == 0
 		for i, x := range w.xs {
 			wi := &f.wts[i]
 			w0, w1, w2, w3, w4, w5 := wi[0], wi[1], wi[2], wi[3], wi[4], wi[5]
 			row := fc.mt[i*nu : (i+1)*nu]
+			if axialFree {
+				for u := range row {
+					d := &au[u]
+					sw := 0.0
+					sw += w1 * d[1]
+					sw += w2 * d[2]
+					sw += w4 * d[4]
+					sw += w5 * d[5]
+					mm := (an[u] + x*av[u]) + f.n*sw
+					row[u] = mm
+					if mm > bm {
+						bm = mm
+					} else if -mm > bm {
+						bm = -mm
+					}
+				}
+				continue
+			}
 			for u := range row {
 				d := &au[u]
 				sw := 0.0
@@ -347,7 +396,7 @@ func (f *fold) load(e *evaluator, w *work, sol *frame.Solution, m int) {
 		fc.nv = fc.nv[:len(parts)]
 		for k, q := range parts {
 			if q.uses(p) {
-				fc.fold(f, w, &fc.nv[k], f.second, scaleOf(q, m, pc.Case))
+				fc.fold(f, w, &fc.nv[k], &f.keptNV[k*len(f.cases)+p], f.second, scaleOf(q, m, pc.Case))
 			}
 		}
 	}
@@ -382,7 +431,11 @@ func scaleOf(e *evaluator, m, c int) [3]float64 {
 // Each effect's units are listed by sign (classify, into f's scratch) and
 // summed, sized and ranked list by list, each sum in the order of the
 // units.
-func (fc *foldCase) fold(f *fold, w *work, nv *foldNV, second bool, sc [3]float64) {
+//
+// The ranking is seeded as scanFolded seeds it, from kept, the units of
+// the lists of the member folded before with this scratch, which it then
+// holds this member's.
+func (fc *foldCase) fold(f *fold, w *work, nv *foldNV, kept *[2][2][]int32, second bool, sc [3]float64) {
 	nv.sumU = [2][2][6]float64{}
 	scaled := sc != [3]float64{1, 1, 1}
 	nu := len(fc.n)
@@ -411,10 +464,31 @@ func (fc *foldCase) fold(f *fold, w *work, nv *foldNV, second bool, sc [3]float6
 			nv.totV = t
 		}
 		pos, neg, zer := f.pos[:np], f.neg[:nn], f.zer[:nr]
+		var pre [2]float64
+		if seeds(w) {
+			for s := range pre {
+				pre[s], _ = keptAt(kept[j][s], x, w.noiseAt[j], s == 1, w.share, w.limit)
+			}
+		}
+		ranked := [2][]int32{pos, neg}
 		sum := &nv.sum[j]
-		sum[0][0], sum[0][1], sum[0][2], nv.big[j][0] = sumsOver(pos, fn, fv, fa, x)
+		if pre[0] > 0 {
+			f.ranked[0] = grow(f.ranked[0], nu)
+			var n int
+			sum[0][0], sum[0][1], sum[0][2], nv.big[j][0], n = sumsReaching(pos, fn, fv, fa, x, pre[0], f.ranked[0])
+			ranked[0] = f.ranked[0][:n]
+		} else {
+			sum[0][0], sum[0][1], sum[0][2], nv.big[j][0] = sumsOver(pos, fn, fv, fa, x)
+		}
 		sum[1][0], sum[1][1], sum[1][2], _ = sumsOver(zer, fn, fv, fa, x)
-		nv.big[j][1] = largestOver(neg, x)
+		if pre[1] > 0 {
+			f.ranked[1] = grow(f.ranked[1], nu)
+			var n int
+			nv.big[j][1], n = largestReaching(neg, x, -pre[1], f.ranked[1])
+			ranked[1] = f.ranked[1][:n]
+		} else {
+			nv.big[j][1] = largestOver(neg, x)
+		}
 		nv.count[j] = [2]int{np, nn}
 		if second {
 			for _, u := range pos {
@@ -432,9 +506,15 @@ func (fc *foldCase) fold(f *fold, w *work, nv *foldNV, second bool, sc [3]float6
 			}
 		}
 		// The most influential, with the threshold seeded from the
-		// largest: most units fall short of it at one comparison.
-		for s, list := range [2][]int32{pos, neg} {
-			nv.top[j][s] = rankListed(nv.top[j][s][:0], list, x, s == 1, w.share*nv.big[j][s], w.limit)
+		// largest, and from the lists of the member before: most units
+		// fall short of it at one comparison.
+		for s := range ranked {
+			h := rankListed(nv.top[j][s][:0], ranked[s], x, s == 1, max(w.share*nv.big[j][s], pre[s]), w.limit)
+			nv.top[j][s] = h
+			kept[j][s] = kept[j][s][:0]
+			for _, c := range h {
+				kept[j][s] = append(kept[j][s], int32(c.piece))
+			}
 		}
 	}
 }
@@ -598,10 +678,41 @@ func (pl *exactPlacement) scanFolded(e *evaluator, w *work, f *fold, i, k int, r
 		f.pos, f.neg, f.zer = grow(f.pos, nu), grow(f.neg, nu), grow(f.zer, nu)
 		m0, cp, cn, cz := classify(mv, nz, f.pos, f.neg, f.zer)
 		pos, neg, zer := f.pos[:cp], f.neg[:cn], f.zer[:cz]
+		// The seed of the ranking (keptAt, see below) from the units the
+		// list kept at the previous station, or at the member's first
+		// station at the last station of the member enveloped before with
+		// this scratch: the units below it are left out of the ranking as
+		// each sign's sum or largest size is formed (ranked), and only
+		// the others are ranked. Any list of distinct units gives a seed
+		// that changes nothing; one of units close to the largest, a high
+		// one.
+		kept := &f.kept[k*np+p]
+		var pre [2]float64
+		var full [2]bool
+		ranked := [2][]int32{pos, neg}
+		if seeds(w) {
+			for s := range pre {
+				pre[s], full[s] = keptAt(kept[s], mv, nz, s == 1, w.share, w.limit)
+			}
+		}
 		var ps, zs [3]float64
-		ps[0], ps[1], ps[2], big[2][0] = sumsOver(pos, fc.n, fc.v, mv, mv)
+		if pre[0] > 0 {
+			f.ranked[0] = grow(f.ranked[0], nu)
+			var nr int
+			ps[0], ps[1], ps[2], big[2][0], nr = sumsReaching(pos, fc.n, fc.v, mv, mv, pre[0], f.ranked[0])
+			ranked[0] = f.ranked[0][:nr]
+		} else {
+			ps[0], ps[1], ps[2], big[2][0] = sumsOver(pos, fc.n, fc.v, mv, mv)
+		}
 		zs[0], zs[1], zs[2], _ = sumsOver(zer, fc.n, fc.v, mv, mv)
-		big[2][1] = largestOver(neg, mv)
+		if pre[1] > 0 {
+			f.ranked[1] = grow(f.ranked[1], nu)
+			var nr int
+			big[2][1], nr = largestReaching(neg, mv, -pre[1], f.ranked[1])
+			ranked[1] = f.ranked[1][:nr]
+		} else {
+			big[2][1] = largestOver(neg, mv)
+		}
 		// The values of the units that load the member, scaled.
 		f.own = grow(f.own, len(fc.own))
 		for q := range fc.own {
@@ -618,18 +729,27 @@ func (pl *exactPlacement) scanFolded(e *evaluator, w *work, f *fold, i, k int, r
 				}
 			}
 		}
-		// Ranking: a unit must reach w.share of the largest; and, seeded
-		// from the previous station of the member, half the smallest size
-		// the list kept there. When fewer than the list's length reach the
-		// seed, the units are ranked again without it (below); when enough
-		// do, those are the largest, the seed made no difference, and
-		// far fewer units went through the heap. Each sign's units are
-		// ranked in their order, as one pass over every unit ranks them.
+		// Ranking: a unit must reach w.share of the largest; and the
+		// seed: w.share of the largest size here of the units kept, and
+		// when all the list's length of them are still of its sign the
+		// smallest of their sizes here (at least that many units reach
+		// it, and the largest are among them); else, after the member's
+		// first station, half the smallest size the list kept at the
+		// previous one. When fewer than the list's length reach the
+		// seed, the units are ranked again without it (below); when
+		// enough do, those are the largest, the seed made no difference,
+		// and far fewer units went through the heap. Each sign's units
+		// are ranked in their order, as one pass over every unit ranks
+		// them.
 		cut := [2]float64{w.share * big[2][0], w.share * big[2][1]}
 		thr := cut
-		if i > 0 && w.limit != math.MaxInt {
+		if w.limit != math.MaxInt {
 			for s := range thr {
-				thr[s] = max(thr[s], seed[s]/2)
+				t := pre[s]
+				if !full[s] && i > 0 {
+					t = max(t, seed[s]/2)
+				}
+				thr[s] = max(thr[s], t)
 			}
 		}
 		count[2][0], count[2][1] = count[2][0]+cp, count[2][1]+cn
@@ -638,16 +758,20 @@ func (pl *exactPlacement) scanFolded(e *evaluator, w *work, f *fold, i, k int, r
 			zs[0], zs[1] = sc[0]*zs[0], sc[1]*zs[1]
 		}
 		sum[2][0], zero[2], tot[2] = ps, zs, m0
-		for s, list := range [2][]int32{pos, neg} {
+		for s := range ranked {
 			neg := s == 1
-			h := rankListed(top[2][s][:0], list, mv, neg, thr[s], w.limit)
+			h := rankListed(top[2][s][:0], ranked[s], mv, neg, thr[s], w.limit)
 			if len(h) < w.limit && thr[s] > cut[s] {
-				h = rankListed(h[:0], list, mv, neg, cut[s], w.limit)
+				h = rankListed(h[:0], ranked[s], mv, neg, cut[s], w.limit)
 			}
 			top[2][s] = h
 			seed[s] = 0
 			if len(h) == w.limit {
 				seed[s] = h[0].a
+			}
+			kept[s] = kept[s][:0]
+			for _, c := range h {
+				kept[s] = append(kept[s], int32(c.piece))
 			}
 		}
 		// The units that load the member, exactly.
