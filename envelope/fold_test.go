@@ -65,11 +65,12 @@ func foldFrame(second bool) *frame.Model {
 	return mo
 }
 
-// foldedEqualsUnfolded compares the folded and unfolded envelopes of
-// foldFrame, with member factors (live load reduction) when factors is
-// set.
-func foldedEqualsUnfolded(t *testing.T, second bool, segments int, factors bool) {
-	mo := foldFrame(second)
+// solvePatterned expands cases 1 and 2 of mo into exact pattern pieces
+// of segments each and solves them: in first order, or, with second, in
+// second order under the axial forces of case 0 times 1.5 (the mean of
+// each member's end forces in a first-order solve).
+func solvePatterned(t *testing.T, mo *frame.Model, segments int, second bool) (*frame.Solution, *patterns.Layout) {
+	t.Helper()
 	lay, err := patterns.Expand(mo, []int{1, 2}, segments, patterns.Exact)
 	if err != nil {
 		t.Fatal(err)
@@ -90,6 +91,15 @@ func foldedEqualsUnfolded(t *testing.T, second bool, segments int, factors bool)
 	if err != nil {
 		t.Fatal(err)
 	}
+	return sol, lay
+}
+
+// foldedEqualsUnfolded compares the folded and unfolded envelopes of
+// foldFrame, with member factors (live load reduction) when factors is
+// set.
+func foldedEqualsUnfolded(t *testing.T, second bool, segments int, factors bool) {
+	mo := foldFrame(second)
+	sol, lay := solvePatterned(t, mo, segments, second)
 	cs := append(frameCombos(), combos.Combination{Name: "D+L", Service: true, Terms: []combos.Term{{Case: 0, Factor: 1}, {Case: 1, Factor: 1}}})
 	set := Settings{Kinds: kindsOf(sol, lay), Stations: 11, Extra: [][]float64{nil, nil, nil, nil, nil, nil, nil, {0.4, 6.8}}}
 	if factors {

@@ -7,9 +7,6 @@ import (
 	"math/rand/v2"
 	"slices"
 	"testing"
-
-	"govern/frame"
-	"govern/patterns"
 )
 
 // The seeded ranking lists the same units as ranking every unit of the
@@ -162,26 +159,7 @@ func TestSeededListsEqualUnfolded(t *testing.T) {
 	for _, second := range []bool{false, true} {
 		t.Run(fmt.Sprintf("second order %v", second), func(t *testing.T) {
 			mo := regularFrame(8, 9)
-			lay, err := patterns.Expand(mo, []int{1, 2}, 1, patterns.Exact)
-			if err != nil {
-				t.Fatal(err)
-			}
-			var opt frame.Options
-			if second {
-				first, err := frame.Solve(mo)
-				if err != nil {
-					t.Fatal(err)
-				}
-				opt.Axial = make([]float64, len(mo.Members))
-				for m := range mo.Members {
-					f := first.EndForces(0, m)
-					opt.Axial[m] = 1.5 * (-f[0] + f[3]) / 2
-				}
-			}
-			sol, err := frame.SolveWith(lay.Model, opt)
-			if err != nil {
-				t.Fatal(err)
-			}
+			sol, lay := solvePatterned(t, mo, 1, second)
 			set := Settings{Kinds: kindsOf(sol, lay), Stations: 11}
 			folded, err := Compute(sol, frameCombos(), set, lay)
 			if err != nil {

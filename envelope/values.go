@@ -69,6 +69,7 @@ func ValuesRows(sol *frame.Solution, cs []combos.Combination, idx []int, set Set
 		go func() {
 			defer wg.Done()
 			w := e.scratch()
+			rs := newRowScan(e, w)
 			tmp := make([][3]float64, len(w.ev))
 			for {
 				b := int(next.Add(1) - 1)
@@ -77,7 +78,7 @@ func ValuesRows(sol *frame.Solution, cs []combos.Combination, idx []int, set Set
 				}
 				for i := b * valuesBlock; i < min((b+1)*valuesBlock, n); i++ {
 					fill(i, w.ev, tmp)
-					x, ok := valueOf(e, w)
+					x, ok := valueOfRow(e, w, rs)
 					if !ok {
 						if i < firstErr[k] {
 							firstErr[k] = i
@@ -121,4 +122,212 @@ func valueOf(e *evaluator, w *work) (x [3]Extreme, ok bool) {
 		x[j] = Extreme{MaxBy: -1, MinBy: -1}
 	}
 	return x, allFinite(&x, e.nEff)
+}
+
+// rowScan is one worker's scratch for scanRow: the units listed as
+// candidates for the spans lists, effect by effect, and, per patterned
+// case, effect and sign, the smallest size kept in the list of the
+// quantity before (0 when that list was not full), which seeds the
+// ranking of the next.
+type rowScan struct {
+	list  [3][]int32 // per effect, the units listed for ranking (classify)
+	every []int32    // every unit, in order
+	seed  [][3][2]float64
+}
+
+// newRowScan returns the scratch for scanRow, or nil when the quantities
+// are not placed piece by piece (exact placement over a layout whose
+// every column past the load cases is a pattern piece): valueOf's general
+// path then envelopes them.
+func newRowScan(e *evaluator, w *work) *rowScan {
+	if !rowScans {
+		return nil
+	}
+	if _, ok := w.place.(*exactPlacement); !ok || e.lay == nil || e.unitCase == nil || e.first == nil {
+		return nil
+	}
+	n := 0
+	for _, pc := range e.lay.Patterned {
+		n = max(n, len(pc.Units))
+	}
+	rs := &rowScan{every: make([]int32, n), seed: make([][3][2]float64, len(e.lay.Patterned))}
+	for j := range e.nEff {
+		rs.list[j] = make([]int32, n)
+	}
+	for i := range rs.every {
+		rs.every[i] = int32(i)
+	}
+	return rs
+}
+
+// rowScans is whether ValuesRows scans the rows of a layout placed piece
+// by piece with scanRow; the benchmarks turn it off to compare.
+var rowScans = true
+
+// valueOfRow is valueOf, the same values to the last bit, with the
+// patterned cases' units scanned by scanRow; rs nil, or a value that is
+// not finite, takes valueOf's path.
+func valueOfRow(e *evaluator, w *work, rs *rowScan) (x [3]Extreme, ok bool) {
+	if rs == nil {
+		return valueOf(e, w)
+	}
+	pl := w.place.(*exactPlacement)
+	// The largest sizes (valueOf), and per patterned case the largest
+	// positive and the largest negative value of each component, as
+	// bits: a positive number's order as the numbers', a negative one's
+	// size with its sign cleared.
+	var b0, b1, b2 uint64
+	for c := range e.nOrig {
+		v := &w.ev[c]
+		b0 = max(b0, math.Float64bits(v[0])&^(1<<63))
+		b1 = max(b1, math.Float64bits(v[1])&^(1<<63))
+		b2 = max(b2, math.Float64bits(v[2])&^(1<<63))
+	}
+	for p, pc := range e.lay.Patterned {
+		var p0, p1, p2, n0, n1, n2 uint64
+		for _, v := range w.ev[e.first[p] : e.first[p]+len(pc.Units)] {
+			x0, x1, x2 := math.Float64bits(v[0]), math.Float64bits(v[1]), math.Float64bits(v[2])
+			// All ones for a negative number.
+			m0, m1, m2 := uint64(int64(x0)>>63), uint64(int64(x1)>>63), uint64(int64(x2)>>63)
+			p0, n0 = max(p0, x0&^m0), max(n0, x0&m0)
+			p1, n1 = max(p1, x1&^m1), max(n1, x1&m1)
+			p2, n2 = max(p2, x2&^m2), max(n2, x2&m2)
+		}
+		n0, n1, n2 = n0&^(1<<63), n1&^(1<<63), n2&^(1<<63)
+		b0, b1, b2 = max(b0, p0, n0), max(b1, p1, n1), max(b2, p2, n2)
+		pl.big[p] = [3][2]float64{{math.Float64frombits(p0), math.Float64frombits(n0)},
+			{math.Float64frombits(p1), math.Float64frombits(n1)}, {math.Float64frombits(p2), math.Float64frombits(n2)}}
+	}
+	if max(b0, b1, b2) >= 0x7ff0000000000000 { // an infinity or a NaN
+		return valueOf(e, w)
+	}
+	w.noise = [3]float64{math.Float64frombits(b0) * roundOff, math.Float64frombits(b1) * roundOff, math.Float64frombits(b2) * roundOff}
+	for p := range e.lay.Patterned {
+		if e.uses(p) {
+			pl.scanRow(e, w, rs, p)
+		}
+	}
+	x = e.scanned(w)
+	for j := e.nEff; j < 3; j++ {
+		x[j] = Extreme{MaxBy: -1, MinBy: -1}
+	}
+	return x, allFinite(&x, e.nEff)
+}
+
+// scanRow is scan for patterned case p, its largest sizes of each sign
+// already in pl.big[p] (whatever the round-off): the same sums, added in
+// the same order, largest sizes, counts and most influential units. The
+// units are classified effect by effect, in a pass without a branch on
+// their signs: each positive sum adds every unit, the others as +0, which
+// leaves a sum that is never −0 unchanged to the bit (the round-off units,
+// rare, are added with a branch). The units that reach the ranking's
+// threshold are listed in the same pass and ranked after it, the threshold seeded with half the
+// smallest size kept for the quantity before (the neighbouring node, most
+// often), and ranked again without that seed when fewer than a full list
+// reach it.
+func (pl *exactPlacement) scanRow(e *evaluator, w *work, rs *rowScan, p int) {
+	units := w.ev[e.first[p] : e.first[p]+len(e.lay.Patterned[p].Units)]
+	nu := len(units)
+	big, top := &pl.big[p], &pl.top[p]
+	var cut, thr [3][2]float64
+	for j := range e.nEff {
+		for s := range 2 {
+			if !(big[j][s] > w.noise[j]) { // sizes past the round-off only
+				big[j][s] = 0
+			}
+			cut[j][s] = w.share * big[j][s]
+			thr[j][s] = cut[j][s]
+			if w.limit != math.MaxInt {
+				thr[j][s] = max(thr[j][s], rs.seed[p][j][s]/2)
+			}
+		}
+	}
+	var sum [3][2][3]float64
+	var zero [3][3]float64
+	var count [3][2]int
+	var tot [3]float64
+	var listed [3]int
+	for j := range e.nEff {
+		t := tot
+		listed[j] = rs.classify(units, j, w.noise[j], &thr[j], &sum[j][0], &zero[j], &t, &count[j])
+		if j == 0 {
+			tot = t
+		}
+		for s := range 2 {
+			neg := s == 1
+			h := rankRow(top[j][s][:0], units, j, neg, w.noise[j], rs.list[j][:listed[j]], thr[j][s], w.limit)
+			if len(h) < w.limit && thr[j][s] > cut[j][s] {
+				// Fewer than a full list reached the seed: every unit
+				// past the round-off that reaches the cut, again.
+				h = rankRow(h[:0], units, j, neg, w.noise[j], rs.every[:nu], cut[j][s], w.limit)
+			}
+			top[j][s] = h
+			rs.seed[p][j][s] = 0
+			if len(h) == w.limit {
+				rs.seed[p][j][s] = h[0].a
+			}
+		}
+	}
+	for j := range 3 {
+		for q := range 3 {
+			sum[j][1][q] = tot[q] - sum[j][0][q] - zero[j][q]
+		}
+	}
+	pl.sum[p], pl.count[p] = sum, count
+}
+
+// classify is scanRow's pass over the units for effect j: the sums of
+// its positive units (pos), of its round-off ones and of all, in their
+// order, the counts of each sign, and in rs.list[j] the units past the
+// round-off that reach their sign's thr; it returns how many are listed.
+// A pass per effect keeps its sums in registers.
+func (rs *rowScan) classify(units [][3]float64, j int, nz float64, thr *[2]float64, pos, zero, tot *[3]float64, count *[2]int) int {
+	list := rs.list[j][:len(units)]
+	tp, tn := thr[0], thr[1]
+	var s0, s1, s2, t0, t1, t2 float64
+	var np, nn, k int
+	for i := range units {
+		v := &units[i]
+		x := v[j]
+		t0 += v[0]
+		t1 += v[1]
+		t2 += v[2]
+		p, n := b2i(x > nz), b2i(x < -nz)
+		if p|n == 0 {
+			zero[0] += v[0]
+			zero[1] += v[1]
+			zero[2] += v[2]
+		}
+		m := -uint64(p)
+		s0 += math.Float64frombits(math.Float64bits(v[0]) & m)
+		s1 += math.Float64frombits(math.Float64bits(v[1]) & m)
+		s2 += math.Float64frombits(math.Float64bits(v[2]) & m)
+		np += p
+		nn += n
+		list[k] = int32(i)
+		k += p&b2i(x >= tp) | n&b2i(-x >= tn)
+	}
+	*pos, *tot = [3]float64{s0, s1, s2}, [3]float64{t0, t1, t2}
+	*count = [2]int{np, nn}
+	return k
+}
+
+// rankRow adds to h, a heap of keepLargest, the units listed by the size
+// of their component j (negated for the negative ones), in their order,
+// that are past the round-off nz and reach thr: as exactPlacement.scan
+// ranks them.
+func rankRow(h []candidate, units [][3]float64, j int, negative bool, nz float64, list []int32, thr float64, limit int) []candidate {
+	for _, i := range list {
+		a := units[i][j]
+		if negative {
+			a = -a
+		}
+		if a > nz && a >= thr {
+			h = keepLargest(h, candidate{piece: int(i), a: a}, limit)
+			if len(h) == limit && h[0].a >= thr {
+				thr = math.Nextafter(h[0].a, math.Inf(1))
+			}
+		}
+	}
+	return h
 }

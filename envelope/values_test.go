@@ -8,9 +8,12 @@ import (
 	"runtime"
 	"strings"
 	"testing"
+	"time"
 
 	"govern/combos"
+	"govern/envelope/internal/cputime"
 	"govern/frame"
+	"govern/patterns"
 )
 
 // valuesTol is the agreement of an enveloped value with its direct sum,
@@ -108,4 +111,233 @@ func TestValuesRowsAgainstDirectSums(t *testing.T) {
 			}()
 		}
 	})
+}
+
+// The quantities of a patterned layout, placed piece by piece, are
+// scanned row by row (scanRow): each must give valueOf's envelope, the
+// general path's (itself checked against direct sums above and in the
+// exact placement's tests), to the last bit: values, combinations, forces
+// acting with them, counts and lists of pieces, on one processor and on
+// two. The rows are the nodes' displacements of a solved frame, and rows
+// of random values with round-off, zeros and repeated sizes, where the
+// seeded ranking must fall back to the full one, some with every piece
+// near the round-off. As a check of its own,
+// the largest of 1.2D + 1.6L + 0.5Lr over random rows is 1.2d plus the
+// factored sums of each live load's rest where positive and of its
+// pieces that are positive past the round-off (exact placement,
+// docs/patterns.md: by superposition the sum of the adverse pieces is the
+// worst arrangement), within valuesTol.
+func TestValuesRowsPlacedByRows(t *testing.T) {
+	lay, err := patterns.Expand(regularFrame(6, 8), []int{1, 2}, 1, patterns.Exact)
+	if err != nil {
+		t.Fatal(err)
+	}
+	sol, err := frame.Solve(lay.Model)
+	if err != nil {
+		t.Fatal(err)
+	}
+	mo := lay.Model
+	cs := frameCombos()
+	idx := []int{0, 1, 2, 3, 4, 5}
+	what := func(i, q int) string { return fmt.Sprintf("quantity %d, component %d", i, q) }
+	const n = 3*valuesBlock + 5
+	nc := len(mo.Cases)
+	rows := make([][][3]float64, n)
+	rng := rand.New(rand.NewPCG(7, 3))
+	for i := range rows {
+		rows[i] = make([][3]float64, nc)
+		for c := range rows[i] {
+			for q := range 3 {
+				switch k := rng.IntN(10); {
+				case k == 0:
+					rows[i][c][q] = 0
+				case k == 1:
+					rows[i][c][q] = 1e-12 * (rng.Float64() - 0.5) // round-off
+				case k == 2:
+					rows[i][c][q] = float64(rng.IntN(5)) - 2 // repeated sizes
+				default:
+					rows[i][c][q] = math.Ldexp(rng.Float64()-0.5, rng.IntN(8*(1+i%3)))
+				}
+				if i%5 == 0 && c > 0 {
+					// Every piece near the round-off of a large wind load
+					// (below): some past it, some not, and the ranking's
+					// seed from the row before far too high.
+					rows[i][c][q] = 3e-9 * (2*rng.Float64() - 1)
+				}
+			}
+		}
+		if i%5 == 4 {
+			// Every piece of L positive and large: the ranking of the
+			// row after is seeded far above its pieces.
+			for _, u := range lay.Patterned[0].Units {
+				rows[i][u.Column] = [3]float64{1 + rng.Float64(), 1 + rng.Float64(), 1 + rng.Float64()}
+			}
+		}
+		if i%5 == 0 {
+			// No dead load and a large wind: the combinations with W and
+			// L govern, and list L's pieces.
+			rows[i][0], rows[i][3] = [3]float64{}, [3]float64{1, -1, 1}
+			for _, u := range lay.Patterned[1].Units {
+				rows[i][u.Column] = [3]float64{} // Lr's pieces none, L's alone listed
+			}
+		}
+	}
+	random := func(i int, row, _ [][3]float64) { copy(row, rows[i]) }
+	nodes := func(v int, row, _ [][3]float64) { sol.DisplacementsTo(row, v) }
+	for _, tc := range []struct {
+		name    string
+		n       int
+		effects int
+		fill    func(i int, row, tmp [][3]float64)
+		set     Settings
+	}{
+		{"nodes", len(mo.Nodes), 3, nodes, Settings{}},
+		{"nodes, every piece listed", len(mo.Nodes), 3, nodes, Settings{AllSpans: true}},
+		{"random rows", n, 3, random, Settings{}},
+		{"random rows, one component", n, 1, random, Settings{}},
+		{"random rows, every piece listed", n, 3, random, Settings{AllSpans: true}},
+		{"random rows, L and Lr joined", n, 3, random, Settings{Groups: []int{-1, 0, 0, -1}}},
+		{"random rows, as written", n, 3, random, Settings{AsWritten: true}},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			set := tc.set
+			set.Kinds, set.Stations = kindsOf(sol, lay), 2
+			e := newEvaluator(mo, cs, idx, tc.effects, set, lay)
+			w := e.scratch()
+			if newRowScan(e, w) == nil {
+				t.Fatal("the rows are not scanned by scanRow")
+			}
+			want := make([]string, tc.n)
+			for i := range tc.n {
+				tc.fill(i, w.ev, nil)
+				x, ok := valueOf(e, w)
+				if !ok {
+					t.Fatalf("quantity %d is not finite", i)
+				}
+				want[i] = fmt.Sprintf("%#v", x)
+			}
+			for _, procs := range []int{1, 2} {
+				func() {
+					defer runtime.GOMAXPROCS(runtime.GOMAXPROCS(procs))
+					got, err := ValuesRows(sol, cs, idx, set, lay, tc.n, tc.effects, tc.fill, what)
+					if err != nil {
+						t.Fatal(err)
+					}
+					for i := range tc.n {
+						if g := fmt.Sprintf("%#v", got[i]); g != want[i] {
+							t.Fatalf("%d processors, quantity %d:\n%s\nvalueOf:\n%s", procs, i, g, want[i])
+						}
+					}
+				}()
+			}
+		})
+	}
+	t.Run("direct sums", func(t *testing.T) {
+		set := Settings{Kinds: kindsOf(sol, lay), Stations: 2}
+		got, err := ValuesRows(sol, cs, idx, set, lay, n, 3, random, what)
+		if err != nil {
+			t.Fatal(err)
+		}
+		for i := range n {
+			for q := range 3 {
+				big := 0.0
+				for c := range nc {
+					big = max(big, math.Abs(rows[i][c][q]))
+				}
+				noise := big * roundOff
+				want := 1.2 * rows[i][0][q]
+				for p, f := range []float64{1.6, 0.5} {
+					pc := lay.Patterned[p]
+					// The case's rest (its loads that are not pieces)
+					// where adverse, then its adverse pieces.
+					want += f * max(rows[i][pc.Case][q], 0)
+					for _, u := range pc.Units {
+						if x := rows[i][u.Column][q]; x > noise {
+							want += f * x
+						}
+					}
+				}
+				x := got[i][q]
+				if x.MaxBy == 1 && math.Abs(x.Max-want) > valuesTol*math.Abs(want) {
+					t.Fatalf("quantity %d, component %d: largest %v by 1.2D+1.6L+0.5Lr, direct %v", i, q, x.Max, want)
+				}
+				if x.MaxBy != 1 && x.Max < want-valuesTol*math.Abs(want) {
+					t.Fatalf("quantity %d, component %d: largest %v, below 1.2D+1.6L+0.5Lr's %v", i, q, x.Max, want)
+				}
+			}
+		}
+	})
+}
+
+// BenchmarkValuesRows measures the node displacement envelopes of
+// regularFrame (every node's ux, uy, rz over the combinations of
+// frameCombos, the live loads L and Lr placed piece by piece) and the
+// envelopes of the columns' drifts (one component), as the analysis asks
+// for them; "general" without scanRow (valueOf's path).
+func BenchmarkValuesRows(b *testing.B) {
+	cs := frameCombos()
+	idx := make([]int, len(cs))
+	for k := range idx {
+		idx[k] = k
+	}
+	for _, size := range []struct{ bays, storeys int }{{10, 10}, {30, 60}} {
+		lay, err := patterns.Expand(regularFrame(size.bays, size.storeys), []int{1, 2}, 1, patterns.Exact)
+		if err != nil {
+			b.Fatal(err)
+		}
+		sol, err := frame.Solve(lay.Model)
+		if err != nil {
+			b.Fatal(err)
+		}
+		mo := lay.Model
+		set := Settings{Kinds: kindsOf(sol, lay), Stations: 2}
+		what := func(i, q int) string { return fmt.Sprint(i, q) }
+		var cols []int
+		for m, mem := range mo.Members {
+			if mo.Nodes[mem.Start].X == mo.Nodes[mem.End].X {
+				cols = append(cols, m)
+			}
+		}
+		for _, rows := range []bool{false, true} {
+			name := fmt.Sprintf("%dx%d/rows", size.bays, size.storeys)
+			if !rows {
+				name = fmt.Sprintf("%dx%d/general", size.bays, size.storeys)
+			}
+			rowScans = rows
+			b.Run("nodes/"+name, func(b *testing.B) {
+				b.ReportAllocs()
+				defer reportCPU(b, cputime.Now())
+				for b.Loop() {
+					if _, err := ValuesRows(sol, cs, idx, set, lay, len(mo.Nodes), 3, func(v int, row, _ [][3]float64) { sol.DisplacementsTo(row, v) }, what); err != nil {
+						b.Fatal(err)
+					}
+				}
+			})
+			b.Run("drifts/"+name, func(b *testing.B) {
+				b.ReportAllocs()
+				defer reportCPU(b, cputime.Now())
+				for b.Loop() {
+					fill := func(i int, row, tmp [][3]float64) {
+						mem := mo.Members[cols[i]]
+						sol.DisplacementsTo(row, mem.End)
+						sol.DisplacementsTo(tmp, mem.Start)
+						for c := range row {
+							row[c] = [3]float64{row[c][0] - tmp[c][0]}
+						}
+					}
+					if _, err := ValuesRows(sol, cs, idx, set, lay, len(cols), 1, fill, what); err != nil {
+						b.Fatal(err)
+					}
+				}
+			})
+
+		}
+		rowScans = true
+	}
+}
+
+// reportCPU reports the processor time used since start, per iteration of
+// b, as cpu-ns/op.
+func reportCPU(b *testing.B, start time.Duration) {
+	b.ReportMetric(float64(cputime.Now()-start)/float64(b.N), "cpu-ns/op")
 }

@@ -94,13 +94,14 @@ func (r *Result) Cases() []CaseResult {
 				for m := k * chunk; m < min((k+1)*chunk, len(mo.Members)); m++ {
 					r.sol.EndForcesEach(ends, m)
 					for c := range mo.Cases {
-						var f [6]float64
+						// Six sums in registers, each over the columns in order.
+						var f0, f1, f2, f3, f4, f5 float64
 						for _, col := range cols[c] {
 							g := &ends[col]
-							for i := range f {
-								f[i] += g[i]
-							}
+							f0, f1, f2 = f0+g[0], f1+g[1], f2+g[2]
+							f3, f4, f5 = f3+g[3], f4+g[4], f5+g[5]
 						}
+						f := [6]float64{f0, f1, f2, f3, f4, f5}
 						// The local end forces the nodes exert
 						// (frame.Solution.EndForces) as internal forces: at the
 						// start N = −f0, V = f1, M = −f2; at the end N = f3,

@@ -136,9 +136,10 @@ const outputDigits = 10
 
 // appendNum appends v with outputDigits significant digits, trailing zeros
 // dropped, in exponent form only for magnitudes below 1e-4 or from
-// 10^outputDigits up (strconv's 'g' format; valid JSON either way).
+// 10^outputDigits up (strconv's 'g' format, to the byte: appendTen;
+// valid JSON either way).
 func appendNum(dst []byte, v float64) []byte {
-	return strconv.AppendFloat(dst, clean(v), 'g', outputDigits, 64)
+	return appendTen(dst, clean(v))
 }
 
 // num formats a value for CSV or JSON (appendNum).

@@ -431,12 +431,24 @@ func (j *jsonWriter) num(v float64) *jsonWriter {
 	return j
 }
 
+// list writes the names of idx as a JSON array, appended at once (a
+// station has six lists of up to 16 names).
 func (j *jsonWriter) list(names [][]byte, idx []int) *jsonWriter {
-	j.raw("[")
-	for i, p := range idx {
-		j.sep(i, ", ").bytes(names[p])
+	if j.err != nil {
+		return j
 	}
-	return j.raw("]")
+	j.out = append(j.out, '[')
+	for i, p := range idx {
+		if i > 0 {
+			j.out = append(j.out, ", "...)
+		}
+		j.out = append(j.out, names[p]...)
+	}
+	j.out = append(j.out, ']')
+	if len(j.out) >= jsonFlush {
+		j.flush()
+	}
+	return j
 }
 
 // forces writes v as an object with the given keys, each value in its

@@ -10,6 +10,7 @@ import (
 
 	"govern/combos"
 	"govern/envelope/analysis"
+	"govern/envelope/internal/cputime"
 	"govern/frame"
 )
 
@@ -118,12 +119,14 @@ func BenchmarkWriteJSON(b *testing.B) {
 		b.Run(fmt.Sprintf("%dx%d", size.bays, size.storeys), func(b *testing.B) {
 			b.ReportAllocs()
 			var out bytes.Buffer
+			start := cputime.Now()
 			for b.Loop() {
 				out.Reset()
 				if err := p.WriteJSON(&out); err != nil {
 					b.Fatal(err)
 				}
 			}
+			b.ReportMetric(float64(cputime.Now()-start)/float64(b.N), "cpu-ns/op")
 			b.SetBytes(int64(out.Len()))
 		})
 	}

@@ -327,7 +327,7 @@ func writeTemp(dest, path string, write func(io.Writer) error) (string, error) {
 	if err := f.Chmod(mode); err != nil {
 		return "", fmt.Errorf("cannot write %s: %v", path, err)
 	}
-	bw := bufio.NewWriterSize(TempWriter(f), 1<<16)
+	bw := bufio.NewWriterSize(&writingBack{w: TempWriter(f), f: f}, 1<<16)
 	err = write(&capped{w: bw, what: filepath.Base(path)})
 	if err == nil {
 		err = bw.Flush()
