@@ -117,5 +117,7 @@
 // model must not be changed while the solution is in use. A Solution is
 // never changed once made: [Solution.SolveCases] solves more cases on its
 // factor into a new one that shares its nodes, sections, members and
-// factor, and both may be read at once.
+// factor, and both may be read at once. The one exception is the spent
+// solution given to [Solution.SolveCasesReusing]: the new one takes its
+// displacements' memory, and it is emptied (reading it then panics).
 package frame

@@ -223,3 +223,35 @@ func ExampleSolution_SolveCases() {
 	// w: M at the start -30.00 kN·m
 	// P: M at the start -30.00 kN·m, at midspan 30.00 kN·m
 }
+
+// A fixed-end beam's cases solved one set after another on its factor,
+// each set in the memory of the one before, once that is read: the
+// midspan moment of a central point load P is P l / 8 (a handbook
+// formula, from memory).
+func ExampleSolution_SolveCasesReusing() {
+	const l = 6.0 // m
+	mo := &frame.Model{
+		Sections: []frame.Section{{Name: "S", E: 200e6, A: 5e-3, I: 8e-5}},
+		Nodes:    []frame.Node{{Name: "a", Support: frame.Fixed}, {Name: "b", X: l, Support: frame.Fixed}},
+		Members:  []frame.Member{{Name: "a-b", Start: 0, End: 1}},
+	}
+	sol, err := frame.Solve(mo)
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	var spent *frame.Solution
+	for _, p := range []float64{40, 80} { // kN
+		set, err := sol.SolveCasesReusing([]frame.Case{{Name: fmt.Sprintf("P = %g kN", p),
+			MemberLoads: []frame.MemberLoad{{Member: 0, Point: true, At: l / 2, P: p}}}}, spent)
+		if err != nil {
+			fmt.Println(err)
+			return
+		}
+		fmt.Printf("%s: M at midspan %.2f kN·m\n", set.Model().Cases[0].Name, set.At(0, 0, l/2).M)
+		spent = set // read no more
+	}
+	// Output:
+	// P = 40 kN: M at midspan 30.00 kN·m
+	// P = 80 kN: M at midspan 60.00 kN·m
+}

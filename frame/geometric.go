@@ -70,6 +70,41 @@ var endDOF = [6]int{0, 1, 2, 3 * SubElements, 3*SubElements + 1, 3*SubElements +
 
 func innerDOF(i int) int { return 3 + i }
 
+// The degrees of freedom of the subdivided member fall in two sets that
+// subStiffness never couples: the axial ones (u at each node) and the
+// bending ones (v and θ). Between the sets the inner stiffness, its
+// Cholesky factor (whose entries there come out +0) and the coupling kie
+// are +0 exactly, and so is each product with them, which changes no sum
+// it would be added to or subtracted from (no such sum is −0: every one
+// starts from an entry formed by adding to +0). So the factor, the solves
+// and the condensation go set by set, over each set's terms in the order
+// the full loops take them, and give the full loops' results to the last
+// bit in a third of the operations (TestInnerSetsAreTheFullLoops);
+// innerAxial and innerBending list each set's inner degrees of freedom,
+// ascending, and endAxial and endBending its end ones (places in endDOF).
+var (
+	innerAxial, innerBending = innerSets()
+	endAxial                 = [...]int{0, 3}
+	endBending               = [...]int{1, 2, 4, 5}
+)
+
+func innerSets() (a [SubElements - 1]int, b [2 * (SubElements - 1)]int) {
+	for n := range SubElements - 1 {
+		a[n] = 3 * n
+		b[2*n], b[2*n+1] = 3*n+1, 3*n+2
+	}
+	return a, b
+}
+
+// innerOf returns the inner set of the end degree of freedom j (a place
+// in endDOF).
+func innerOf(j int) []int {
+	if j == 0 || j == 3 {
+		return innerAxial[:]
+	}
+	return innerBending[:]
+}
+
 // condenseInner sets e.flex to the stiffness of the subdivided flexible
 // part with the geometric stiffness of axial force n, its inner nodes
 // condensed out, and e.so to what recovers them: so, overwritten, when it
@@ -94,19 +129,24 @@ func (e *element) condenseInner(n float64, so *secondOrder) bool {
 	if !cholesky(&kii, &so.lii) {
 		return false
 	}
-	// flex = kee − keiᵀ kii⁻¹ kie, column by column.
-	for j := range 6 {
-		var col [inner]float64
-		for i := range inner {
-			col[i] = so.kie[i][j]
-		}
-		so.solve(&col)
-		for i := range 6 {
-			v := k[endDOF[i]][endDOF[j]]
-			for q := range inner {
-				v -= so.kie[q][i] * col[q]
+	// flex = kee − keiᵀ kii⁻¹ kie, column by column: a column of kie has
+	// its end's set only, and so has its solve (the other set's entries
+	// of col and of flex's column stay +0).
+	for _, ends := range [2][]int{endAxial[:], endBending[:]} {
+		set := innerOf(ends[0])
+		for _, j := range ends {
+			var col [inner]float64
+			for _, i := range set {
+				col[i] = so.kie[i][j]
 			}
-			e.flex[i][j] = v
+			so.solveSet(&col, set)
+			for _, i := range ends {
+				v := k[endDOF[i]][endDOF[j]]
+				for _, q := range set {
+					v -= so.kie[q][i] * col[q]
+				}
+				e.flex[i][j] = v
+			}
 		}
 	}
 	// Symmetric to the last bit, as the band storage assumes.
@@ -120,21 +160,27 @@ func (e *element) condenseInner(n float64, so *secondOrder) bool {
 	return true
 }
 
-// cholesky sets l to the lower Cholesky factor of a; false when a is not
-// positive definite.
+// cholesky sets l, whose entries between the sets must be +0, to the
+// lower Cholesky factor of the inner stiffness a, set by set; false when
+// a is not positive definite.
 func cholesky(a, l *[inner][inner]float64) bool {
-	for j := range inner {
+	return choleskySet(a, l, innerAxial[:]) && choleskySet(a, l, innerBending[:])
+}
+
+// choleskySet factors the rows and columns set of a into l.
+func choleskySet(a, l *[inner][inner]float64, set []int) bool {
+	for jj, j := range set {
 		s := a[j][j]
-		for k := range j {
+		for _, k := range set[:jj] {
 			s -= l[j][k] * l[j][k]
 		}
 		if !(s > 0) {
 			return false
 		}
 		l[j][j] = math.Sqrt(s)
-		for i := j + 1; i < inner; i++ {
+		for _, i := range set[jj+1:] {
 			t := a[i][j]
-			for k := range j {
+			for _, k := range set[:jj] {
 				t -= l[i][k] * l[j][k]
 			}
 			l[i][j] = t / l[j][j]
@@ -145,16 +191,24 @@ func cholesky(a, l *[inner][inner]float64) bool {
 
 // solve overwrites x with kii⁻¹ x.
 func (so *secondOrder) solve(x *[inner]float64) {
-	for i := range inner {
+	so.solveSet(x, innerAxial[:])
+	so.solveSet(x, innerBending[:])
+}
+
+// solveSet overwrites the entries set of x with those of kii⁻¹ x, from
+// the same entries of x.
+func (so *secondOrder) solveSet(x *[inner]float64, set []int) {
+	for ii, i := range set {
 		s := x[i]
-		for k := range i {
+		for _, k := range set[:ii] {
 			s -= so.lii[i][k] * x[k]
 		}
 		x[i] = s / so.lii[i][i]
 	}
-	for i := inner - 1; i >= 0; i-- {
+	for ii := len(set) - 1; ii >= 0; ii-- {
+		i := set[ii]
 		s := x[i]
-		for k := i + 1; k < inner; k++ {
+		for _, k := range set[ii+1:] {
 			s -= so.lii[k][i] * x[k]
 		}
 		x[i] = s / so.lii[i][i]
@@ -263,7 +317,7 @@ func (so *secondOrder) condenseLoads(full *[3 * (SubElements + 1)]float64) [6]fl
 	var out [6]float64
 	for i := range 6 {
 		v := full[endDOF[i]]
-		for q := range inner {
+		for _, q := range innerOf(i) {
 			v -= so.kie[q][i] * fi[q]
 		}
 		out[i] = v
@@ -316,12 +370,14 @@ func (e *element) shape(ul *[6]float64, loads []MemberLoad, idx []int32) [3 * (S
 		ue[5] = (a[0][0]*rhs[1] - a[1][0]*rhs[0]) / det
 	}
 	var ui [inner]float64
-	for i := range inner {
-		v := full[innerDOF(i)]
-		for j := range 6 {
-			v += e.so.kie[i][j] * ue[j]
+	for _, ends := range [2][]int{endAxial[:], endBending[:]} {
+		for _, i := range innerOf(ends[0]) {
+			v := full[innerDOF(i)]
+			for _, j := range ends {
+				v += e.so.kie[i][j] * ue[j]
+			}
+			ui[i] = -v
 		}
-		ui[i] = -v
 	}
 	e.so.solve(&ui)
 	var out [3 * (SubElements + 1)]float64

@@ -179,6 +179,6 @@ func EstimateMemory(mo *Model, opt Options) (float64, Info, error) {
 		return 0, Info{}, err
 	}
 	released := releasedRotations(mo)
-	_, n, band := dofMap(mo, rcmOrder(adjacency(mo)), released)
+	_, n, band := dofMap(mo, nodeOrder(mo), released)
 	return memory(mo, n, band, opt), Info{Equations: n, Bandwidth: band, Columns: len(mo.Cases)}, nil
 }

@@ -17,6 +17,34 @@ import "slices"
 // wrapping [ErrNotFinite]. sol is not changed, and the two solutions may
 // be read at once.
 func (sol *Solution) SolveCases(cases []Case) (*Solution, error) {
+	return sol.solveCases(cases, nil)
+}
+
+// SolveCasesReusing is [Solution.SolveCases] with the memory of spent's
+// displacements, when spent is not nil and they are at least as many,
+// taken for the new solution's: a caller that solves set after set of
+// cases, each read and let go before the next, is spared allocating that
+// memory afresh each time (and the system mapping it in page by page).
+// The results are those of SolveCases to the last bit. spent gives up its
+// displacements whether or not the solve succeeds: it must not be read
+// again, and reading its results panics. It panics when spent is sol.
+func (sol *Solution) SolveCasesReusing(cases []Case, spent *Solution) (*Solution, error) {
+	if spent == nil {
+		return sol.solveCases(cases, nil)
+	}
+	if spent == sol {
+		panic("frame: SolveCasesReusing: spent is the solution whose factor solves the cases")
+	}
+	buf := spent.x
+	// Emptied of its model too, so that no result of it, not even of a
+	// member held at both ends (which reads no displacement), is given.
+	spent.x, spent.zero, spent.imposed, spent.model = nil, nil, nil, nil
+	return sol.solveCases(cases, buf)
+}
+
+// solveCases is SolveCases with the displacements in buf when it holds as
+// many (solveLoadsIn).
+func (sol *Solution) solveCases(cases []Case, buf []float64) (*Solution, error) {
 	mo := *sol.model
 	mo.Cases = cases
 	if err := mo.Validate(); err != nil {
@@ -42,7 +70,7 @@ func (sol *Solution) SolveCases(cases []Case) (*Solution, error) {
 	if n == 0 {
 		return out, nil
 	}
-	if err := out.solveLoads(n, min(sol.band, n-1)); err != nil {
+	if err := out.solveLoadsIn(n, min(sol.band, n-1), buf); err != nil {
 		return nil, err
 	}
 	return out, nil

@@ -2,8 +2,12 @@ package frame
 
 import (
 	"errors"
+	"fmt"
 	"math"
 	"math/rand/v2"
+	"runtime"
+	"slices"
+	"strings"
 	"testing"
 )
 
@@ -184,4 +188,77 @@ func TestSolveCasesValidates(t *testing.T) {
 			t.Errorf("reaction at a: Fy = %v, M = %v; want 10, 40", fy, m)
 		}
 	})
+}
+
+// SolveCasesReusing gives SolveCases' results to the last bit (compared
+// with a SolveWith of the same model, which assembles and factors
+// anew), whether spent's memory is large enough to be taken or not, on
+// one processor or two; spent gives up its results.
+func TestSolveCasesReusingMatchesSolveWith(t *testing.T) {
+	mo, axial, first, more := sharedFrame(5)
+	opt := Options{Axial: axial}
+	sol, err := SolveWith(mo, opt)
+	if err != nil {
+		t.Fatal(err)
+	}
+	m2 := *mo
+	m2.Cases = more
+	want, err := SolveWith(&m2, opt)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, procs := range []int{1, 2} {
+		for _, tc := range []struct {
+			name  string
+			cases []Case
+			taken bool
+		}{{"as many columns", first, true}, {"more columns", append(slices.Clone(more), renamed(more, "again")...), true}, {"fewer columns", first[:2], false}} {
+			t.Run(fmt.Sprintf("%s/GOMAXPROCS=%d", tc.name, procs), func(t *testing.T) {
+				defer runtime.GOMAXPROCS(runtime.GOMAXPROCS(procs))
+				spent, err := sol.SolveCases(tc.cases)
+				if err != nil {
+					t.Fatal(err)
+				}
+				mem := &spent.x[0]
+				got, err := sol.SolveCasesReusing(more, spent)
+				if err != nil {
+					t.Fatal(err)
+				}
+				if taken := &got.x[0] == mem; taken != tc.taken {
+					t.Errorf("spent's memory taken: %v, want %v", taken, tc.taken)
+				}
+				for i := range want.x {
+					if got.x[i] != want.x[i] {
+						t.Fatalf("x[%d] = %v, SolveWith %v", i, got.x[i], want.x[i])
+					}
+				}
+				compareSolutions(t, got, want)
+				func() {
+					defer func() {
+						if recover() == nil {
+							t.Error("a spent solution still gives results")
+						}
+					}()
+					spent.EndForces(0, 0)
+				}()
+			})
+		}
+	}
+	t.Run("spent is the factor's own", func(t *testing.T) {
+		defer func() {
+			if r := recover(); r == nil || !strings.HasPrefix(fmt.Sprint(r), "frame: ") {
+				t.Errorf("panic %v, want a frame: message", r)
+			}
+		}()
+		sol.SolveCasesReusing(more, sol)
+	})
+}
+
+// renamed returns cases with suffix added to their names.
+func renamed(cases []Case, suffix string) []Case {
+	out := slices.Clone(cases)
+	for i := range out {
+		out[i].Name += " " + suffix
+	}
+	return out
 }

@@ -1,11 +1,11 @@
 package frame
 
 import (
+	"cmp"
 	"fmt"
 	"math"
 	"runtime"
 	"slices"
-	"sort"
 	"sync"
 
 	"gonum.org/v1/gonum/blas"
@@ -102,8 +102,7 @@ func SolveWith(mo *Model, opt Options) (*Solution, error) {
 	}
 	parts := unsupportedParts(mo)
 	released := releasedRotations(mo)
-	order := rcmOrder(adjacency(mo))
-	dof, n, band := dofMap(mo, order, released)
+	dof, n, band := dofMap(mo, nodeOrder(mo), released)
 	if err := checkMemory(mo, n, band, opt); err != nil {
 		return nil, err
 	}
@@ -113,9 +112,13 @@ func SolveWith(mo *Model, opt Options) (*Solution, error) {
 	sol := &Solution{model: mo, dofs: n, band: band, cond: 1, dof: dof, released: released, axial: opt.Axial}
 	sol.elems = make([]element, len(mo.Members))
 	sol.atNode = make([][]int32, len(mo.Nodes))
+	var sos []secondOrder // the members' second-order parts, in one block
+	if opt.Axial != nil {
+		sos = make([]secondOrder, len(mo.Members))
+	}
 	for m, mem := range mo.Members {
 		if opt.Axial != nil {
-			e, ok := newElementAxial(mo, m, opt.Axial[m], true)
+			e, ok := newElementAxialIn(mo, m, opt.Axial[m], true, &sos[m])
 			if !ok {
 				return nil, fmt.Errorf("%w: member %q buckles between its ends under N = %.6g", ErrUnstable, mem.Name, opt.Axial[m])
 			}
@@ -206,12 +209,43 @@ func SolveWith(mo *Model, opt Options) (*Solution, error) {
 // solveLoads forms the right-hand sides of sol's cases and solves them on
 // its factor (n equations, kb superdiagonals, scaled by sol.pow2).
 func (sol *Solution) solveLoads(n, kb int) error {
+	return sol.solveLoadsIn(n, kb, nil)
+}
+
+// solveLoadsIn is solveLoads with the displacements in buf when it holds
+// as many (its values are overwritten), else in memory of their own.
+//
+// One column is formed in x and solved by the vector substitutions
+// (bandSolveScaled). More are formed block by block where the
+// substitution packs them (bandSolver.solveBlocks, rhsBlock), straight
+// into the packed rows, scaled there: x is then only written, once, as
+// each block's solution is unpacked, not cleared, formed and read again
+// first (each entry's terms are added in the same order as rhs adds them,
+// and scaled alike: the same numbers to the last bit).
+func (sol *Solution) solveLoadsIn(n, kb int, buf []float64) error {
 	nc := len(sol.model.Cases)
-	x := sol.rhs(n)
-	bandSolveScaled(sol.factor, n, kb, x, nc, sol.pow2)
+	var x []float64
+	var finite bool
+	if nc <= 1 {
+		x = sol.rhsIn(n, buf)
+		finite = bandSolveScaled(sol.factor, n, kb, x, nc, sol.pow2)
+	} else {
+		if cap(buf) >= n*nc {
+			x = buf[:n*nc] // every value is written by the solve
+		} else {
+			x = make([]float64, n*nc)
+		}
+		d := sol.pow2
+		finite = newBandSolver(sol.factor, n, kb).solveBlocks(x, nc, d, func(dst []float64, lo, hi, bw int) {
+			sol.rhsBlock(dst, lo, hi, bw, d)
+		})
+	}
 	sol.x = x
 	sol.zero = make([]float64, nc)
-	return sol.checkFinite()
+	if finite {
+		return nil
+	}
+	return sol.checkFinite() // which case
 }
 
 // checkStiffness refuses a stiffness matrix that overflowed, which only
@@ -411,9 +445,18 @@ func (sol *Solution) indexImposed() {
 
 // rhs returns the right-hand sides, row-major n × cases: node loads less
 // the fixed-end forces of the member loads.
-func (sol *Solution) rhs(n int) []float64 {
+func (sol *Solution) rhs(n int) []float64 { return sol.rhsIn(n, nil) }
+
+// rhsIn is rhs in buf when it holds as many values (its own are
+// overwritten), else in memory of its own.
+func (sol *Solution) rhsIn(n int, buf []float64) []float64 {
 	nc := len(sol.model.Cases)
-	x := make([]float64, n*nc)
+	var x []float64
+	if cap(buf) >= n*nc {
+		x = buf[:n*nc]
+	} else {
+		x = make([]float64, n*nc)
+	}
 	// Zeros written first, on every processor, a run of rows each: fresh
 	// memory first read is mapped to the system's zero page, and the
 	// first write to it then faults again and flushes every processor's
@@ -447,25 +490,56 @@ func (sol *Solution) rhs(n int) []float64 {
 
 // rhsOf adds to x (see rhs) the loads of cases lo up to hi.
 func (sol *Solution) rhsOf(x []float64, lo, hi int) {
-	mo, dof := sol.model, sol.dof
-	nc := len(mo.Cases)
+	nc := len(sol.model.Cases)
 	for c := lo; c < hi; c++ {
-		for _, nl := range mo.Cases[c].NodeLoads {
-			for d, v := range [3]float64{nl.Fx, nl.Fy, nl.M} {
-				if e := dof[3*nl.Node+d]; e >= 0 {
-					x[e*nc+c] += v
-				}
+		sol.rhsCol(x, nc, c, c)
+	}
+}
+
+// rhsCol adds the loads of case c to column at of dst, rows of stride
+// values: node loads, then less the fixed-end forces of the loaded
+// members in their order.
+func (sol *Solution) rhsCol(dst []float64, stride, at, c int) {
+	mo, dof := sol.model, sol.dof
+	for _, nl := range mo.Cases[c].NodeLoads {
+		for d, v := range [3]float64{nl.Fx, nl.Fy, nl.M} {
+			if e := dof[3*nl.Node+d]; e >= 0 {
+				dst[e*stride+at] += v
 			}
 		}
-		for i, m32 := range sol.loaded[c] {
-			m := int(m32)
-			var fg [6]float64
-			sol.elems[m].toGlobal(&fg, (*[6]float64)(sol.fem[c][6*i:]))
-			ends := [2]int{mo.Members[m].Start, mo.Members[m].End}
-			for k := range 6 {
-				if e := dof[3*ends[k/3]+k%3]; e >= 0 {
-					x[e*nc+c] -= fg[k]
-				}
+	}
+	for i, m32 := range sol.loaded[c] {
+		m := int(m32)
+		var fg [6]float64
+		sol.elems[m].toGlobal(&fg, (*[6]float64)(sol.fem[c][6*i:]))
+		ends := [2]int{mo.Members[m].Start, mo.Members[m].End}
+		for k := range 6 {
+			if e := dof[3*ends[k/3]+k%3]; e >= 0 {
+				dst[e*stride+at] -= fg[k]
+			}
+		}
+	}
+}
+
+// rhsBlock forms in dst the right-hand sides of cases lo up to hi, packed
+// as the substitution takes them (rows of bw ≥ hi − lo values, the rest
+// of each row zero) and each row i scaled by d[i]: rhs's numbers, packed.
+func (sol *Solution) rhsBlock(dst []float64, lo, hi, bw int, d []float64) {
+	n := sol.dofs
+	dst = dst[:n*bw]
+	clear(dst)
+	for c := lo; c < hi; c++ {
+		sol.rhsCol(dst, bw, c-lo, c)
+	}
+	if len(sol.imposed) > 0 {
+		sol.imposedTo(dst, bw, lo, hi)
+	}
+	if d != nil {
+		for i := range n {
+			row := dst[i*bw : i*bw+hi-lo]
+			s := d[i]
+			for k := range row {
+				row[k] *= s
 			}
 		}
 	}
@@ -476,6 +550,13 @@ func (sol *Solution) rhsOf(x []float64, lo, hi int) {
 // columns of the stiffness matrix of those directions times the
 // displacements.
 func (sol *Solution) imposedRHS(x []float64) {
+	nc := len(sol.model.Cases)
+	sol.imposedTo(x, nc, 0, nc)
+}
+
+// imposedTo is imposedRHS for cases lo up to hi, case c in column c − lo
+// of dst, rows of stride values: each value's terms in the same order.
+func (sol *Solution) imposedTo(dst []float64, stride, lo, hi int) {
 	mo, dof := sol.model, sol.dof
 	nc := len(mo.Cases)
 	for m, mem := range mo.Members {
@@ -490,7 +571,7 @@ func (sol *Solution) imposedRHS(x []float64) {
 			continue
 		}
 		g := sol.elems[m].global()
-		for c := range nc {
+		for c := lo; c < hi; c++ {
 			var ug [6]float64
 			nonzero := false
 			for k, e := range codes {
@@ -510,7 +591,7 @@ func (sol *Solution) imposedRHS(x []float64) {
 				for j := range 6 {
 					v += g[i][j] * ug[j]
 				}
-				x[e*nc+c] -= v
+				dst[e*stride+c-lo] -= v
 			}
 		}
 	}
@@ -529,7 +610,9 @@ func (sol *Solution) indexLoads() {
 		for i := range idx {
 			idx[i] = int32(i)
 		}
-		sort.SliceStable(idx, func(i, j int) bool { return loads[idx[i]].Member < loads[idx[j]].Member })
+		if !slices.IsSortedFunc(idx, func(i, j int32) int { return cmp.Compare(loads[i].Member, loads[j].Member) }) {
+			slices.SortStableFunc(idx, func(i, j int32) int { return cmp.Compare(loads[i].Member, loads[j].Member) })
+		}
 		var members []int32
 		var spans [][2]int32
 		for i := 0; i < len(idx); {

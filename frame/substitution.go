@@ -34,9 +34,11 @@ func bandSolve(u []float64, n, kb int, x []float64, nrhs int) {
 // One column (a step of a second-order iteration) is solved by the plain
 // vector substitutions, bandSolveVec, in the same order of operations:
 // listing the factor's terms would cost more than using them once.
-func bandSolveScaled(u []float64, n, kb int, x []float64, nrhs int, d []float64) {
+// finite reports whether every value of x is a finite number afterwards
+// (checked as the rows are unpacked, while they are in cache).
+func bandSolveScaled(u []float64, n, kb int, x []float64, nrhs int, d []float64) (finite bool) {
 	if nrhs == 0 {
-		return
+		return true
 	}
 	if nrhs == 1 {
 		x = x[:n]
@@ -47,9 +49,9 @@ func bandSolveScaled(u []float64, n, kb int, x []float64, nrhs int, d []float64)
 		for i := range d {
 			x[i] *= d[i]
 		}
-		return
+		return allFinite(x)
 	}
-	newBandSolver(u, n, kb).solveScaled(x, nrhs, d)
+	return newBandSolver(u, n, kb).solveScaled(x, nrhs, d)
 }
 
 // bandSolver is bandSolve for one factor used many times (an iteration):
@@ -60,51 +62,152 @@ type bandSolver struct {
 	fwd, bwd terms
 }
 
+// The two lists are made side by side where there is more than one
+// processor (each is the same whichever makes it).
 func newBandSolver(u []float64, n, kb int) *bandSolver {
-	return &bandSolver{u: u, n: n, kb: kb, fwd: newTerms(u, n, kb, true), bwd: newTerms(u, n, kb, false)}
+	bs := &bandSolver{u: u, n: n, kb: kb}
+	if runtime.GOMAXPROCS(0) == 1 {
+		bs.fwd, bs.bwd = newTerms(u, n, kb, true), newTerms(u, n, kb, false)
+		return bs
+	}
+	done := make(chan struct{})
+	go func() {
+		defer close(done)
+		bs.bwd = newTerms(u, n, kb, false)
+	}()
+	bs.fwd = newTerms(u, n, kb, true)
+	<-done
+	return bs
 }
 
 // solve is bandSolve with the solver's factor.
 func (bs *bandSolver) solve(x []float64, nrhs int) { bs.solveScaled(x, nrhs, nil) }
 
 // solveScaled is bandSolveScaled with the solver's factor; d nil is no
-// scaling.
-func (bs *bandSolver) solveScaled(x []float64, nrhs int, d []float64) {
+// scaling: solveBlocks, each block packed from x.
+func (bs *bandSolver) solveScaled(x []float64, nrhs int, d []float64) (finite bool) {
+	n := bs.n
+	return bs.solveBlocks(x, nrhs, d, func(buf []float64, lo, hi, bw int) {
+		cols := hi - lo
+		for i := range n {
+			row := buf[i*bw : (i+1)*bw]
+			copyScaled(row, x[i*nrhs+lo:i*nrhs+hi], d, i)
+			clear(row[cols:])
+		}
+	})
+}
+
+// solveBlocks solves the n × nrhs system whose columns fill packs, block
+// by block: fill(buf, lo, hi, bw) sets buf to the n rows of bw values of
+// columns lo up to hi (scaled by d where there is a d), the rest of each
+// row zero. The block is substituted and its solution written to x,
+// times d again, and finite reports whether every value written is a
+// finite number (checked as the rows are unpacked, while they are in
+// cache). x is only written. A last block narrower than solveBlock is
+// padded with zero columns to a whole one where combine32 is used: each
+// column is formed on its own, in the same order of operations at any
+// width, and zero columns move no block's first non-zero row, so its
+// columns come out the same to the last bit, and a whole block by
+// combine32 takes a fraction of the time of the few columns by combine.
+func (bs *bandSolver) solveBlocks(x []float64, nrhs int, d []float64, fill func(buf []float64, lo, hi, bw int)) (finite bool) {
 	if nrhs == 0 {
-		return
+		return true
 	}
 	u, n, kb := bs.u, bs.n, bs.kb
 	fwd, bwd := bs.fwd, bs.bwd
 	nb := (nrhs + solveBlock - 1) / solveBlock
 	workers := min(runtime.GOMAXPROCS(0), nb)
 	var wg sync.WaitGroup
+	bad := make([]bool, workers)
 	next := make(chan int, nb)
 	for b := range nb {
 		next <- b
 	}
 	close(next)
-	for range workers {
+	for k := range workers {
 		wg.Add(1)
 		go func() {
 			defer wg.Done()
 			offs := make([]int, 0, kb)
 			buf := make([]float64, n*solveBlock)
+			ok := true
 			for b := range next {
 				lo, hi := b*solveBlock, min((b+1)*solveBlock, nrhs)
-				// The block's columns packed, rows of hi−lo: the rows one
-				// row reads are then a few kilobytes apart, not nrhs words.
-				bw := hi - lo
-				for i := range n {
-					copyScaled(buf[i*bw:(i+1)*bw], x[i*nrhs+lo:i*nrhs+hi], d, i)
+				// The block's columns packed, rows of bw ≥ hi−lo: the rows
+				// one row reads are then a few kilobytes apart, not nrhs
+				// words.
+				cols := hi - lo
+				bw := cols
+				if useAVX && cols < solveBlock {
+					bw = solveBlock
 				}
+				fill(buf[:n*bw], lo, hi, bw)
 				substitute(&fwd, &bwd, u, n, kb, buf[:n*bw], bw, offs)
 				for i := range n {
-					copyScaled(x[i*nrhs+lo:i*nrhs+hi], buf[i*bw:(i+1)*bw], d, i)
+					ok = unpackRow(x[i*nrhs+lo:i*nrhs+hi], buf[i*bw:i*bw+cols], d, i) && ok
 				}
 			}
+			bad[k] = !ok
 		}()
 	}
 	wg.Wait()
+	for _, b := range bad {
+		if b {
+			return false
+		}
+	}
+	return true
+}
+
+// unpackRow copies the packed row src (scratch: it is scaled in place)
+// to dst times d[i], or as it is when d is nil, and reports whether every
+// value is a finite number (allFinite): scaled and checked where src is
+// in cache, then copied whole, so that dst, far in memory, is only
+// written, by the wide moves of copy (writing it value by value, or
+// reading it again to check it, took longer than the substitution's
+// packing had).
+func unpackRow(dst, src, d []float64, i int) bool {
+	s := 1.0
+	if d != nil {
+		s = d[i]
+	}
+	var f0, f1, f2, f3 float64
+	k := 0
+	for ; k+4 <= len(src); k += 4 {
+		v := src[k : k+4 : k+4]
+		a, b, c, e := v[0]*s, v[1]*s, v[2]*s, v[3]*s
+		v[0], v[1], v[2], v[3] = a, b, c, e
+		f0 += a - a
+		f1 += b - b
+		f2 += c - c
+		f3 += e - e
+	}
+	for ; k < len(src); k++ {
+		a := src[k] * s
+		src[k] = a
+		f0 += a - a
+	}
+	copy(dst, src)
+	return f0+f1+f2+f3 == 0
+}
+
+// allFinite reports whether every value of x is a finite number: x − x
+// is 0 for a finite x and NaN for an infinite one or NaN.
+// Four sums, so that the additions do not wait on each other.
+func allFinite(x []float64) bool {
+	var s0, s1, s2, s3 float64
+	k := 0
+	for ; k+4 <= len(x); k += 4 {
+		y := x[k : k+4 : k+4]
+		s0 += y[0] - y[0]
+		s1 += y[1] - y[1]
+		s2 += y[2] - y[2]
+		s3 += y[3] - y[3]
+	}
+	for ; k < len(x); k++ {
+		s0 += x[k] - x[k]
+	}
+	return s0+s1+s2+s3 == 0
 }
 
 // copyScaled copies src to dst times d[i], or as it is when d is nil:
@@ -136,33 +239,42 @@ type terms struct {
 // is live, and adds to the run's peak memory.
 func newTerms(u []float64, n, kb int, forward bool) terms {
 	w := kb + 1
-	each := func(i int, f func(k int, v float64)) {
-		if forward {
-			for k := max(0, i-kb); k < i; k++ {
-				if uki := u[k*w+i-k]; uki != 0 {
-					f(k, uki)
-				}
-			}
-			return
-		}
-		for j := 1; j < w && i+j < n; j++ {
-			if uij := u[i*w+j]; uij != 0 {
-				f(i+j, uij)
-			}
-		}
-	}
 	t := terms{at: make([]int, n+1)}
 	for i := range n {
 		c := 0
-		each(i, func(int, float64) { c++ })
+		if forward {
+			for k := max(0, i-kb); k < i; k++ {
+				if u[k*w+i-k] != 0 {
+					c++
+				}
+			}
+		} else {
+			for j := 1; j < w && i+j < n; j++ {
+				if u[i*w+j] != 0 {
+					c++
+				}
+			}
+		}
 		t.at[i+1] = t.at[i] + c
 	}
-	t.rows, t.negs = make([]int32, 0, t.at[n]), make([]float64, 0, t.at[n])
+	t.rows, t.negs = make([]int32, t.at[n]), make([]float64, t.at[n])
+	p := 0
 	for i := range n {
-		each(i, func(k int, v float64) {
-			t.rows = append(t.rows, int32(k))
-			t.negs = append(t.negs, -v)
-		})
+		if forward {
+			for k := max(0, i-kb); k < i; k++ {
+				if uki := u[k*w+i-k]; uki != 0 {
+					t.rows[p], t.negs[p] = int32(k), -uki
+					p++
+				}
+			}
+			continue
+		}
+		for j := 1; j < w && i+j < n; j++ {
+			if uij := u[i*w+j]; uij != 0 {
+				t.rows[p], t.negs[p] = int32(i+j), -uij
+				p++
+			}
+		}
 	}
 	return t
 }

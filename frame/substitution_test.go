@@ -268,3 +268,70 @@ func TestOneColumnIsTheBlockedSolveToTheLastBit(t *testing.T) {
 		})
 	}
 }
+
+// The substitution reports whether every value it leaves is a finite
+// number, as checkFinite would find (IEEE 754: ∞ − ∞ and NaN − NaN are
+// NaN): a load column of +Inf, of NaN or of −Inf, in a whole block, in
+// the last (padded) partial one, and alone (the vector substitution), on
+// one processor or two.
+func TestSubstitutionReportsNonFinite(t *testing.T) {
+	mo := pieceFrame(6, 6) // 36 columns: a whole block and a partial one
+	order := rcmOrder(adjacency(mo))
+	dof, n, band := dofMap(mo, order, releasedRotations(mo))
+	sol := &Solution{model: mo, dof: dof, elems: make([]element, len(mo.Members))}
+	for m := range mo.Members {
+		sol.elems[m] = newElement(mo, m)
+	}
+	sol.indexLoads()
+	kb := min(band, n-1)
+	a := blas64.SymmetricBand{Uplo: blas.Upper, N: n, K: kb, Data: sol.assemble(n, kb), Stride: kb + 1}
+	u, ok := lapack64.Pbtrf(a)
+	if !ok {
+		t.Fatal("not positive definite")
+	}
+	nc := len(mo.Cases)
+	rhs := sol.rhs(n)
+	d := make([]float64, n)
+	for i := range d {
+		d[i] = 1
+	}
+	for _, procs := range []int{1, 2} {
+		for _, tc := range []struct {
+			name   string
+			col    int
+			v      float64
+			finite bool
+		}{{"finite", 0, 0, true}, {"+Inf, whole block", 3, math.Inf(1), false}, {"NaN, partial block", 33, math.NaN(), false},
+			{"−Inf, partial block", 35, math.Inf(-1), false}} {
+			t.Run(fmt.Sprintf("%s/GOMAXPROCS=%d", tc.name, procs), func(t *testing.T) {
+				defer runtime.GOMAXPROCS(runtime.GOMAXPROCS(procs))
+				x := append([]float64(nil), rhs...)
+				if !tc.finite {
+					x[(n/2)*nc+tc.col] = tc.v
+				}
+				got := bandSolveScaled(u.Data, n, kb, x, nc, d)
+				want := true
+				for _, v := range x {
+					want = want && finite(v)
+				}
+				if got != want || got != tc.finite {
+					t.Errorf("finite %v, the values say %v, want %v", got, want, tc.finite)
+				}
+				one := make([]float64, n)
+				for i := range n {
+					one[i] = x[i*nc+tc.col]
+				}
+				if !tc.finite {
+					one[n/2] = tc.v
+				} else {
+					for i := range n {
+						one[i] = rhs[i*nc+tc.col]
+					}
+				}
+				if got := bandSolveScaled(u.Data, n, kb, one, 1, d); got != tc.finite {
+					t.Errorf("one column: finite %v, want %v", got, tc.finite)
+				}
+			})
+		}
+	}
+}

@@ -543,22 +543,26 @@ func (r *Result) envelopes(pl *plan, sv *solved, lay *patterns.Layout, reqs []re
 		groups[g].units = append(groups[g].units, i)
 	}
 	// The second-order units' iterations are independent of each other
-	// and of the envelopes: they run side by side, and each unit's error
-	// is returned where the unit comes in order.
+	// and of the envelopes: they run side by side, taken in the groups'
+	// order by one worker per processor, and each unit's error is
+	// returned where the unit comes in order.
 	iterated := make([]error, len(pl.units))
-	var wg sync.WaitGroup
-	slots := make(chan struct{}, runtime.GOMAXPROCS(0))
+	next := make(chan group, len(groups))
 	for _, g := range groups {
-		if !g.second {
-			continue
+		if g.second {
+			next <- g
 		}
-		i, stiff := g.units[0], g.stiff
+	}
+	close(next)
+	var wg sync.WaitGroup
+	for range min(runtime.GOMAXPROCS(0), len(next)) {
 		wg.Add(1)
 		go func() {
 			defer wg.Done()
-			slots <- struct{}{}
-			defer func() { <-slots }()
-			iterated[i] = r.iterate(&pl.units[i], sv.model, stiff)
+			for g := range next {
+				i := g.units[0]
+				iterated[i] = r.iterate(&pl.units[i], sv.model, g.stiff)
+			}
 		}()
 	}
 	wg.Wait()
@@ -566,6 +570,9 @@ func (r *Result) envelopes(pl *plan, sv *solved, lay *patterns.Layout, reqs []re
 	for i := range reqs {
 		mg[i] = newMerger(job.Combinations)
 	}
+	// The solution of the last second-order group, once enveloped: the
+	// next one's displacements take its memory (frame.SolveCasesReusing).
+	var spent *frame.Solution
 	for _, g := range groups {
 		sol := r.sol
 		glay := lay
@@ -606,8 +613,8 @@ func (r *Result) envelopes(pl *plan, sv *solved, lay *patterns.Layout, reqs []re
 				// sections, members and axial forces): its factor solves
 				// the cases, to the same numbers as a solve of their own.
 				u := &pl.units[g.units[0]]
-				sol, err = u.final.SolveCases(mo.Cases)
-				u.final = nil
+				sol, err = u.final.SolveCasesReusing(mo.Cases, spent)
+				u.final, spent = nil, nil
 				if err == nil {
 					l2.Model = sol.Model() // equal to mo, the iteration's copy
 				}
@@ -678,6 +685,9 @@ func (r *Result) envelopes(pl *plan, sv *solved, lay *patterns.Layout, reqs []re
 					}
 				}
 			}
+		}
+		if g.second && shareFactors {
+			spent = sol // read no more
 		}
 	}
 	out := make([]*envelope.Envelope, len(reqs))
