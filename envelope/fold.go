@@ -130,6 +130,10 @@ type foldCase struct {
 	// station (mt[i*len(n)+u]; zero for the units that load the member).
 	u  [][6]float64
 	mt []float64
+	// When summed, tot[i] is the sum of row i of mt over the units, in
+	// their order from +0, as classify forms it (table.go).
+	tot    []float64
+	summed bool
 	// The fold over the units that do not load the member, for N and V,
 	// one per set of member factors (evaluator.parts, or one).
 	nv []foldNV
@@ -337,16 +341,22 @@ func (f *fold) load(e *evaluator, w *work, sol *frame.Solution, m int) {
 		// finite makes the column's end forces not finite too, and the
 		// station is formed again on the unfolded path.)
 		axialFree := f.wmax[0] == 0 && f.wmax[3] == 0
-		for i, x := range w.xs {
-			wi := &f.wts[i]
-			w0, w1, w2, w3, w4, w5 := wi[0], wi[1], wi[2], wi[3], wi[4], wi[5]
-			row := fc.mt[i*nu : (i+1)*nu]
-			if axialFree {
+		fc.summed = false
+		if axialFree {
+			fc.tot = grow(fc.tot, ns)
+			bm, fc.summed = momentTable(fc.mt, fc.tot, w.xs, f.wts, f.n, an, av, au, bm)
+		} else {
+			for i, x := range w.xs {
+				wi := &f.wts[i]
+				w0, w1, w2, w3, w4, w5 := wi[0], wi[1], wi[2], wi[3], wi[4], wi[5]
+				row := fc.mt[i*nu : (i+1)*nu]
 				for u := range row {
 					d := &au[u]
 					sw := 0.0
+					sw += w0 * d[0]
 					sw += w1 * d[1]
 					sw += w2 * d[2]
+					sw += w3 * d[3]
 					sw += w4 * d[4]
 					sw += w5 * d[5]
 					mm := (an[u] + x*av[u]) + f.n*sw
@@ -357,30 +367,19 @@ func (f *fold) load(e *evaluator, w *work, sol *frame.Solution, m int) {
 						bm = -mm
 					}
 				}
-				continue
-			}
-			for u := range row {
-				d := &au[u]
-				sw := 0.0
-				sw += w0 * d[0]
-				sw += w1 * d[1]
-				sw += w2 * d[2]
-				sw += w3 * d[3]
-				sw += w4 * d[4]
-				sw += w5 * d[5]
-				mm := (an[u] + x*av[u]) + f.n*sw
-				row[u] = mm
-				if mm > bm {
-					bm = mm
-				} else if -mm > bm {
-					bm = -mm
-				}
 			}
 		}
 		big[2] = bm
 		for k, u := range fc.own {
 			au[u] = f.held[k]
 			for i := range ns {
+				// Held at zero, a unit that loads the member added +0 to
+				// the sums of the rows (which then leave them as they
+				// are, a sum begun at +0 being never −0), unless the
+				// weights or the axial force are not finite.
+				if math.Float64bits(fc.mt[i*nu+u]) != 0 {
+					fc.summed = false
+				}
 				fc.mt[i*nu+u] = 0
 			}
 		}
@@ -547,6 +546,21 @@ func classify(mv []float64, nz float64, pos, neg, zer []int32) (m0 float64, np, 
 	return m0, np, nn, nr
 }
 
+// classifySigns is classify without the sum.
+func classifySigns(mv []float64, nz float64, pos, neg, zer []int32) (np, nn, nr int) {
+	pos, neg, zer = pos[:len(mv)], neg[:len(mv)], zer[:len(mv)]
+	for u, m := range mv {
+		pos[np] = int32(u)
+		neg[nn] = int32(u)
+		zer[nr] = int32(u)
+		p, n := b2i(m > nz), b2i(m < -nz)
+		np += p
+		nn += n
+		nr += 1 - p - n
+	}
+	return np, nn, nr
+}
+
 // b2i is 1 for true and 0 for false, without a branch.
 func b2i(b bool) int {
 	var i int
@@ -676,7 +690,14 @@ func (pl *exactPlacement) scanFolded(e *evaluator, w *work, f *fold, i, k int, r
 		}
 		nz := w.noise[2]
 		f.pos, f.neg, f.zer = grow(f.pos, nu), grow(f.neg, nu), grow(f.zer, nu)
-		m0, cp, cn, cz := classify(mv, nz, f.pos, f.neg, f.zer)
+		var m0 float64
+		var cp, cn, cz int
+		if f.second && !scaled && fc.summed {
+			m0 = fc.tot[i]
+			cp, cn, cz = classifySigns(mv, nz, f.pos, f.neg, f.zer)
+		} else {
+			m0, cp, cn, cz = classify(mv, nz, f.pos, f.neg, f.zer)
+		}
 		pos, neg, zer := f.pos[:cp], f.neg[:cn], f.zer[:cz]
 		// The seed of the ranking (keptAt, see below) from the units the
 		// list kept at the previous station, or at the member's first

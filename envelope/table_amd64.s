@@ -1,0 +1,95 @@
+//go:build amd64 && !purego
+
+#include "textflag.h"
+
+// func momentRowsAVX(rows *[4]*float64, a, v *float64, d *[6]float64, nu int, p *momentLanes, out *[8]float64)
+//
+// p: x at 0, w1 at 32, w2 at 64, w4 at 96, w5 at 128 (four lanes each),
+// n at 160, the mask of a size (every bit but the sign) at 168.
+TEXT ·momentRowsAVX(SB), NOSPLIT, $0-56
+	MOVQ rows+0(FP), AX
+	MOVQ 0(AX), R8
+	MOVQ 8(AX), R9
+	MOVQ 16(AX), R10
+	MOVQ 24(AX), R11
+	MOVQ a+8(FP), SI
+	MOVQ v+16(FP), DI
+	MOVQ d+24(FP), DX
+	MOVQ nu+32(FP), CX
+	MOVQ p+40(FP), AX
+	MOVQ out+48(FP), BX
+	VMOVUPD 0(AX), Y1
+	VMOVUPD 32(AX), Y2
+	VMOVUPD 64(AX), Y3
+	VMOVUPD 96(AX), Y4
+	VMOVUPD 128(AX), Y5
+	VBROADCASTSD 160(AX), Y0
+	VBROADCASTSD 168(AX), Y14
+	VXORPD Y15, Y15, Y15
+	VXORPD Y6, Y6, Y6
+	VXORPD Y7, Y7, Y7
+	XORQ R12, R12
+	TESTQ CX, CX
+	JEQ done
+
+loop:
+	// sw = (((0 + w1·d1) + w2·d2) + w4·d4) + w5·d5
+	VBROADCASTSD 8(DX), Y8
+	VMULPD Y2, Y8, Y8
+	VADDPD Y8, Y15, Y8
+	VBROADCASTSD 16(DX), Y9
+	VMULPD Y3, Y9, Y9
+	VADDPD Y9, Y8, Y8
+	VBROADCASTSD 32(DX), Y9
+	VMULPD Y4, Y9, Y9
+	VADDPD Y9, Y8, Y8
+	VBROADCASTSD 40(DX), Y9
+	VMULPD Y5, Y9, Y9
+	VADDPD Y9, Y8, Y8
+	// mm = (a + x·v) + n·sw
+	VMULPD Y0, Y8, Y8
+	VBROADCASTSD (DI)(R12*8), Y9
+	VMULPD Y1, Y9, Y9
+	VBROADCASTSD (SI)(R12*8), Y10
+	VADDPD Y9, Y10, Y10
+	VADDPD Y8, Y10, Y10
+	// The sum, and the largest size: VMAXPD gives its second source
+	// (the running largest) when the size is NaN.
+	VADDPD Y10, Y6, Y6
+	VANDPD Y14, Y10, Y11
+	VMAXPD Y7, Y11, Y7
+	// Each lane to its station's row.
+	VMOVSD X10, (R8)(R12*8)
+	VMOVHPD X10, (R9)(R12*8)
+	VEXTRACTF128 $1, Y10, X11
+	VMOVSD X11, (R10)(R12*8)
+	VMOVHPD X11, (R11)(R12*8)
+	ADDQ $48, DX
+	INCQ R12
+	CMPQ R12, CX
+	JNE loop
+
+done:
+	VMOVUPD Y6, 0(BX)
+	VMOVUPD Y7, 32(BX)
+	VZEROUPPER
+	RET
+
+// func cpuid(eaxArg, ecxArg uint32) (eax, ebx, ecx, edx uint32)
+TEXT ·cpuid(SB), NOSPLIT, $0-24
+	MOVL eaxArg+0(FP), AX
+	MOVL ecxArg+4(FP), CX
+	CPUID
+	MOVL AX, eax+8(FP)
+	MOVL BX, ebx+12(FP)
+	MOVL CX, ecx+16(FP)
+	MOVL DX, edx+20(FP)
+	RET
+
+// func xgetbv() (eax, edx uint32)
+TEXT ·xgetbv(SB), NOSPLIT, $0-8
+	MOVL $0, CX
+	XGETBV
+	MOVL AX, eax+0(FP)
+	MOVL DX, edx+4(FP)
+	RET
