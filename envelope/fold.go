@@ -32,7 +32,9 @@ import (
 // read once from the same rows, in the same pass as its end forces
 // (frame.Solution.StartForcesAndDisplacementsEach), each piece's M at
 // each station is M₀ + x·V + N·Σₖ Hᵢₖ·uₖ, formed once per member into a
-// table (foldCase.mt) and classified from it station by station; N and V
+// table (foldCase.mt; with AVX four stations at once, table.go, which
+// also forms each station's sum of the pieces' M that the classification
+// would otherwise add up) and classified from it station by station; N and V
 // fold as in first order, the concurrent M of the pieces folded for them
 // being ΣM₀ + x·ΣV + N·Σₖ Hᵢₖ·Σuₖ; the pieces that load the member and
 // the original cases add their second-order moment from their own shape
@@ -134,6 +136,10 @@ type foldCase struct {
 	// their order from +0, as classify forms it (table.go).
 	tot    []float64
 	summed bool
+	// When signed, sg[i] is what the classification of station i by the
+	// sign of M gives (table.go), with the member's round-off.
+	sg     []stationSigns
+	signed bool
 	// The fold over the units that do not load the member, for N and V,
 	// one per set of member factors (evaluator.parts, or one).
 	nv []foldNV
@@ -387,6 +393,13 @@ func (f *fold) load(e *evaluator, w *work, sol *frame.Solution, m int) {
 	for j := range big {
 		w.noiseAt[j] = big[j] * roundOff
 	}
+	for p := range f.cases {
+		fc := &f.cases[p]
+		if fc.signed = fc.summed && anyUses(parts, p); fc.signed {
+			fc.sg = grow(fc.sg, ns)
+			signsOf(fc.sg, fc.mt, fc.n, fc.v, w.noiseAt[2])
+		}
+	}
 	for p, pc := range e.lay.Patterned {
 		fc := &f.cases[p]
 		if cap(fc.nv) < len(parts) {
@@ -516,6 +529,27 @@ func (fc *foldCase) fold(f *fold, w *work, nv *foldNV, kept *[2][2][]int32, seco
 			}
 		}
 	}
+}
+
+// listReaching lists in r0, in their order, the units whose M (mv) is at
+// least t0, and in r1 those whose M is at most −t1 (t0, t1 > 0), and
+// returns the two lists. r0 and r1 hold at least len(mv) entries. Most
+// units reach neither: one well-predicted branch each.
+func listReaching(mv []float64, t0, t1 float64, r0, r1 []int32) [2][]int32 {
+	r0, r1 = r0[:len(mv)], r1[:len(mv)]
+	n0, n1 := 0, 0
+	for u, m := range mv {
+		if m >= t0 || -m >= t1 {
+			if m >= t0 {
+				r0[n0] = int32(u)
+				n0++
+			} else {
+				r1[n1] = int32(u)
+				n1++
+			}
+		}
+	}
+	return [2][]int32{r0[:n0], r1[:n1]}
 }
 
 // addU adds u to s.
@@ -690,12 +724,13 @@ func (pl *exactPlacement) scanFolded(e *evaluator, w *work, f *fold, i, k int, r
 		}
 		nz := w.noise[2]
 		f.pos, f.neg, f.zer = grow(f.pos, nu), grow(f.neg, nu), grow(f.zer, nu)
+		// In second order, unscaled, with AVX, the sums, largest sizes and
+		// counts by sign were formed four stations at once (signsOf), and
+		// only the units the ranking may keep are listed, below.
+		fast := f.second && !scaled && fc.signed
 		var m0 float64
 		var cp, cn, cz int
-		if f.second && !scaled && fc.summed {
-			m0 = fc.tot[i]
-			cp, cn, cz = classifySigns(mv, nz, f.pos, f.neg, f.zer)
-		} else {
+		if !fast {
 			m0, cp, cn, cz = classify(mv, nz, f.pos, f.neg, f.zer)
 		}
 		pos, neg, zer := f.pos[:cp], f.neg[:cn], f.zer[:cz]
@@ -717,7 +752,11 @@ func (pl *exactPlacement) scanFolded(e *evaluator, w *work, f *fold, i, k int, r
 			}
 		}
 		var ps, zs [3]float64
-		if pre[0] > 0 {
+		if fast {
+			sg := &fc.sg[i]
+			m0, ps, zs, big[2] = fc.tot[i], sg.pos, sg.zero, sg.big
+			cp, cn = sg.count[0], sg.count[1]
+		} else if pre[0] > 0 {
 			f.ranked[0] = grow(f.ranked[0], nu)
 			var nr int
 			ps[0], ps[1], ps[2], big[2][0], nr = sumsReaching(pos, fc.n, fc.v, mv, mv, pre[0], f.ranked[0])
@@ -725,13 +764,16 @@ func (pl *exactPlacement) scanFolded(e *evaluator, w *work, f *fold, i, k int, r
 		} else {
 			ps[0], ps[1], ps[2], big[2][0] = sumsOver(pos, fc.n, fc.v, mv, mv)
 		}
-		zs[0], zs[1], zs[2], _ = sumsOver(zer, fc.n, fc.v, mv, mv)
-		if pre[1] > 0 {
+		switch {
+		case fast:
+		case pre[1] > 0:
+			zs[0], zs[1], zs[2], _ = sumsOver(zer, fc.n, fc.v, mv, mv)
 			f.ranked[1] = grow(f.ranked[1], nu)
 			var nr int
 			big[2][1], nr = largestReaching(neg, mv, -pre[1], f.ranked[1])
 			ranked[1] = f.ranked[1][:nr]
-		} else {
+		default:
+			zs[0], zs[1], zs[2], _ = sumsOver(zer, fc.n, fc.v, mv, mv)
 			big[2][1] = largestOver(neg, mv)
 		}
 		// The values of the units that load the member, scaled.
@@ -779,6 +821,19 @@ func (pl *exactPlacement) scanFolded(e *evaluator, w *work, f *fold, i, k int, r
 			zs[0], zs[1] = sc[0]*zs[0], sc[1]*zs[1]
 		}
 		sum[2][0], zero[2], tot[2] = ps, zs, m0
+		if fast {
+			// The units of each sign that reach both the seed and the
+			// share of the largest, in their order: every unit either
+			// ranking below accepts (its thresholds are at least the
+			// share of the largest, and it ranks only the units that
+			// reach the seed), so the same lists.
+			above := math.Nextafter(nz, math.Inf(1)) // a size past the round-off
+			if !(above < math.Inf(1)) {
+				above = math.NaN() // none is: no unit listed
+			}
+			f.ranked[0], f.ranked[1] = grow(f.ranked[0], nu), grow(f.ranked[1], nu)
+			ranked = listReaching(mv[:nu], max(pre[0], cut[0], above), max(pre[1], cut[1], above), f.ranked[0], f.ranked[1])
+		}
 		for s := range ranked {
 			neg := s == 1
 			h := rankListed(top[2][s][:0], ranked[s], mv, neg, thr[s], w.limit)

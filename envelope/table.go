@@ -1,5 +1,7 @@
 package envelope
 
+import "math"
+
 // The table of a second-order member's moments (fold.go): every unit's M
 // at every station, M = (M₀ + x·V) + N·Σₖ Hᵢₖ·uₖ, for a member whose
 // weights of the nodes' axial displacements (k = 0 and 3) are zero at
@@ -84,4 +86,55 @@ func momentTableGo(mt, xs []float64, wts [][6]float64, n float64, a, v []float64
 		}
 	}
 	return bm
+}
+
+// signConsts is what signSumsAVX reads: the round-off nz and −nz, the
+// mask that clears a number's sign and 1, four lanes each.
+type signConsts struct {
+	nz, negNz, mask, one [4]float64
+}
+
+// stationSigns is, at one station of a folded second-order member, what
+// classify, sumsOver and largestOver form over a patterned case's units
+// by the sign of their M: the sums of N, V and M of the positive units
+// and of the round-off ones, the largest size of M of each sign and how
+// many units are of each.
+type stationSigns struct {
+	pos, zero [3]float64
+	big       [2]float64
+	count     [2]int
+}
+
+// signsOf sets sg[i] to station i's stationSigns over the units of the
+// table mt (nu = len(n), ns = len(sg) stations, n and v the units' N and
+// V) with round-off nz, four stations at once (AVX only).
+func signsOf(sg []stationSigns, mt, n, v []float64, nz float64) {
+	nu, ns := len(n), len(sg)
+	if nu == 0 {
+		for i := range sg {
+			sg[i] = stationSigns{}
+		}
+		return
+	}
+	v, mt = v[:nu], mt[:ns*nu]
+	c := signConsts{}
+	for l := range 4 {
+		c.nz[l], c.negNz[l], c.mask[l], c.one[l] = nz, -nz, math.Float64frombits(1<<63-1), 1
+	}
+	var rows [4]*float64
+	var out [10][4]float64
+	for i0 := 0; i0 < ns; i0 += 4 {
+		for l := range 4 {
+			rows[l] = &mt[min(i0+l, ns-1)*nu]
+		}
+		signSumsAVX(&rows, &n[0], &v[0], nu, &c, &out)
+		for l := range min(4, ns-i0) {
+			sg[i0+l] = stationSigns{
+				pos:   [3]float64{out[0][l], out[1][l], out[2][l]},
+				zero:  [3]float64{out[3][l], out[4][l], out[5][l]},
+				big:   [2]float64{out[6][l], out[7][l]},
+				count: [2]int{int(out[8][l]), int(out[9][l])},
+			}
+		}
+	}
 }

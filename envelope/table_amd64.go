@@ -18,6 +18,19 @@ package envelope
 //go:noescape
 func momentRowsAVX(rows *[4]*float64, a, v *float64, d *[6]float64, nu int, p *momentLanes, out *[8]float64)
 
+// signSumsAVX classifies the units' M at four stations (rows[l][u] for
+// lane l, the table formed by momentRowsAVX) as classify and the sums of
+// scanFolded do, one station to a lane, unit after unit: out[0..2] are
+// the sums of n, v and M over the units whose M is above c's nz, out[3..5]
+// those over the units of neither sign (round-off, NaN included), each
+// in the order of the units from +0 (+0 added for the others, which
+// leaves such a sum as it is); out[6] and out[7] the largest size of M of
+// each sign (+0 for none) and out[8] and out[9] how many units are of
+// each.
+//
+//go:noescape
+func signSumsAVX(rows *[4]*float64, n, v *float64, nu int, c *signConsts, out *[10][4]float64)
+
 // cpuid and xgetbv are the instructions of those names.
 func cpuid(eaxArg, ecxArg uint32) (eax, ebx, ecx, edx uint32)
 func xgetbv() (eax, edx uint32)

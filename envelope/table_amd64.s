@@ -93,3 +93,91 @@ TEXT ·xgetbv(SB), NOSPLIT, $0-8
 	MOVL AX, eax+0(FP)
 	MOVL DX, edx+4(FP)
 	RET
+
+// func signSumsAVX(rows *[4]*float64, n, v *float64, nu int, c *signConsts, out *[10][4]float64)
+//
+// c: nz at 0, −nz at 32, the mask of a size at 64, ones at 96 (four
+// lanes each). out: the positive units' sums of n, v and M, the round-off
+// units' sums of the same, the largest size of the positive and of the
+// negative units, and the counts of each.
+TEXT ·signSumsAVX(SB), NOSPLIT, $0-48
+	MOVQ rows+0(FP), AX
+	MOVQ 0(AX), R8
+	MOVQ 8(AX), R9
+	MOVQ 16(AX), R10
+	MOVQ 24(AX), R11
+	MOVQ n+8(FP), SI
+	MOVQ v+16(FP), DI
+	MOVQ nu+24(FP), CX
+	MOVQ c+32(FP), AX
+	MOVQ out+40(FP), BX
+	VXORPD Y0, Y0, Y0
+	VXORPD Y1, Y1, Y1
+	VXORPD Y2, Y2, Y2
+	VXORPD Y3, Y3, Y3
+	VXORPD Y4, Y4, Y4
+	VXORPD Y5, Y5, Y5
+	VXORPD Y6, Y6, Y6
+	VXORPD Y7, Y7, Y7
+	VXORPD Y8, Y8, Y8
+	VXORPD Y9, Y9, Y9
+	XORQ R12, R12
+	TESTQ CX, CX
+	JEQ sdone
+
+sloop:
+	// The four stations' M of unit u.
+	VMOVSD (R8)(R12*8), X10
+	VMOVHPD (R9)(R12*8), X10, X10
+	VMOVSD (R10)(R12*8), X11
+	VMOVHPD (R11)(R12*8), X11, X11
+	VINSERTF128 $1, X11, Y10, Y10
+	// P: M > nz; N: M < −nz (false for NaN).
+	VCMPPD $0x1e, 0(AX), Y10, Y11
+	VCMPPD $0x11, 32(AX), Y10, Y12
+	VBROADCASTSD (SI)(R12*8), Y13
+	VBROADCASTSD (DI)(R12*8), Y14
+	// The positive units' sums: +0 added for the others.
+	VANDPD Y11, Y13, Y15
+	VADDPD Y15, Y0, Y0
+	VANDPD Y11, Y14, Y15
+	VADDPD Y15, Y1, Y1
+	VANDPD Y11, Y10, Y15
+	VADDPD Y15, Y2, Y2
+	// The counts.
+	VANDPD 96(AX), Y11, Y15
+	VADDPD Y15, Y8, Y8
+	VANDPD 96(AX), Y12, Y15
+	VADDPD Y15, Y9, Y9
+	// The largest sizes.
+	VANDPD 64(AX), Y10, Y15
+	VANDPD Y11, Y15, Y11
+	VMAXPD Y6, Y11, Y6
+	VANDPD Y12, Y15, Y15
+	VMAXPD Y7, Y15, Y7
+	// The round-off units (neither P nor N): their sums.
+	VCMPPD $0x1e, 0(AX), Y10, Y11
+	VORPD Y11, Y12, Y11
+	VANDNPD Y13, Y11, Y15
+	VADDPD Y15, Y3, Y3
+	VANDNPD Y14, Y11, Y15
+	VADDPD Y15, Y4, Y4
+	VANDNPD Y10, Y11, Y15
+	VADDPD Y15, Y5, Y5
+	INCQ R12
+	CMPQ R12, CX
+	JNE sloop
+
+sdone:
+	VMOVUPD Y0, 0(BX)
+	VMOVUPD Y1, 32(BX)
+	VMOVUPD Y2, 64(BX)
+	VMOVUPD Y3, 96(BX)
+	VMOVUPD Y4, 128(BX)
+	VMOVUPD Y5, 160(BX)
+	VMOVUPD Y6, 192(BX)
+	VMOVUPD Y7, 224(BX)
+	VMOVUPD Y8, 256(BX)
+	VMOVUPD Y9, 288(BX)
+	VZEROUPPER
+	RET

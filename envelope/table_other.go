@@ -8,3 +8,7 @@ var useAVX = false
 func momentRowsAVX(rows *[4]*float64, a, v *float64, d *[6]float64, nu int, p *momentLanes, out *[8]float64) {
 	panic("envelope: momentRowsAVX without AVX")
 }
+
+func signSumsAVX(rows *[4]*float64, n, v *float64, nu int, c *signConsts, out *[10][4]float64) {
+	panic("envelope: signSumsAVX without AVX")
+}

@@ -158,3 +158,96 @@ func sameBits(a, b []float64) bool {
 	}
 	return true
 }
+
+// TestSignsOfIsClassify checks the sums, largest sizes and counts by sign
+// formed four stations at once (signsOf, AVX) against classify,
+// sumsOver and largestOver at each station, the direct pass over the
+// units: the same numbers to the last bit (no tolerance: the same sums in
+// the same order, +0 added for the units of another class). The rows are
+// random (fixed seed) with values at and near the round-off of either
+// sign, zeros of either sign and NaN.
+func TestSignsOfIsClassify(t *testing.T) {
+	if !hasAVXHere() {
+		t.Skip("no AVX")
+	}
+	rng := rand.New(rand.NewPCG(3, 5))
+	const nz = 1e-6
+	num := func() float64 {
+		switch rng.IntN(10) {
+		case 0:
+			return 0
+		case 1:
+			return math.Copysign(0, -1)
+		case 2:
+			return nz
+		case 3:
+			return -nz
+		case 4:
+			return math.NaN()
+		case 5:
+			return math.Nextafter(nz, 1)
+		}
+		return rng.NormFloat64() * 10
+	}
+	for _, ns := range []int{1, 3, 4, 6, 11, 13} {
+		for _, nu := range []int{0, 1, 5, 300} {
+			t.Run(fmt.Sprintf("%d stations, %d units", ns, nu), func(t *testing.T) {
+				mt := make([]float64, ns*nu)
+				for q := range mt {
+					mt[q] = num()
+				}
+				n, v := make([]float64, nu), make([]float64, nu)
+				for u := range nu {
+					n[u], v[u] = rng.NormFloat64(), rng.NormFloat64()
+				}
+				sg := make([]stationSigns, ns)
+				signsOf(sg, mt, n, v, nz)
+				pos, neg, zer := make([]int32, nu), make([]int32, nu), make([]int32, nu)
+				for i := range ns {
+					mv := mt[i*nu : (i+1)*nu]
+					_, np, nn, nr := classify(mv, nz, pos, neg, zer)
+					var want stationSigns
+					want.pos[0], want.pos[1], want.pos[2], want.big[0] = sumsOver(pos[:np], n, v, mv, mv)
+					want.zero[0], want.zero[1], want.zero[2], _ = sumsOver(zer[:nr], n, v, mv, mv)
+					want.big[1] = largestOver(neg[:nn], mv)
+					want.count = [2]int{np, nn}
+					got := sg[i]
+					if !sameBits(append(got.pos[:], append(got.zero[:], got.big[:]...)...), append(want.pos[:], append(want.zero[:], want.big[:]...)...)) || got.count != want.count {
+						t.Errorf("station %d: %+v, want %+v", i, got, want)
+					}
+				}
+			})
+		}
+	}
+}
+
+// TestListReaching checks the units listed for ranking against the
+// units of each sign (classify) that reach the thresholds, compared one
+// by one: the same units in the same order.
+func TestListReaching(t *testing.T) {
+	rng := rand.New(rand.NewPCG(9, 1))
+	mv := make([]float64, 500)
+	for u := range mv {
+		mv[u] = rng.NormFloat64()
+		if u%50 == 0 {
+			mv[u] = math.NaN()
+		}
+	}
+	const nz = 0.05
+	for _, th := range [][2]float64{{0.1, 0.1}, {1, 2}, {3, 0.06}, {10, 10}} {
+		t.Run(fmt.Sprintf("%v", th), func(t *testing.T) {
+			got := listReaching(mv, th[0], th[1], make([]int32, len(mv)), make([]int32, len(mv)))
+			var want [2][]int32
+			for u, m := range mv {
+				if m > nz && m >= th[0] {
+					want[0] = append(want[0], int32(u))
+				} else if m < -nz && -m >= th[1] {
+					want[1] = append(want[1], int32(u))
+				}
+			}
+			if !reflect.DeepEqual(append([]int32{}, got[0]...), append([]int32{}, want[0]...)) || !reflect.DeepEqual(append([]int32{}, got[1]...), append([]int32{}, want[1]...)) {
+				t.Errorf("listed %v, want %v", got, want)
+			}
+		})
+	}
+}
