@@ -537,8 +537,13 @@ func (fc *foldCase) fold(f *fold, w *work, nv *foldNV, kept *[2][2][]int32, seco
 // units reach neither: one well-predicted branch each.
 func listReaching(mv []float64, t0, t1 float64, r0, r1 []int32) [2][]int32 {
 	r0, r1 = r0[:len(mv)], r1[:len(mv)]
-	n0, n1 := 0, 0
-	for u, m := range mv {
+	n0, n1, from := 0, 0, 0
+	if useAVX && len(mv) >= 4 {
+		from = len(mv) &^ 3
+		n0, n1 = listReachingAVX(&mv[0], from, t0, t1, &r0[0], &r1[0])
+	}
+	for u := from; u < len(mv); u++ {
+		m := mv[u]
 		if m >= t0 || -m >= t1 {
 			if m >= t0 {
 				r0[n0] = int32(u)

@@ -31,6 +31,14 @@ func momentRowsAVX(rows *[4]*float64, a, v *float64, d *[6]float64, nu int, p *m
 //go:noescape
 func signSumsAVX(rows *[4]*float64, n, v *float64, nu int, c *signConsts, out *[10][4]float64)
 
+// listReachingAVX is listReaching over the first n units of mv (n a
+// multiple of 4), four units compared at once, the few that reach a
+// threshold listed one by one in their order: it returns how many units
+// it listed in r0 and in r1.
+//
+//go:noescape
+func listReachingAVX(mv *float64, n int, t0, t1 float64, r0, r1 *int32) (n0, n1 int)
+
 // cpuid and xgetbv are the instructions of those names.
 func cpuid(eaxArg, ecxArg uint32) (eax, ebx, ecx, edx uint32)
 func xgetbv() (eax, edx uint32)

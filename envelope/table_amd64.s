@@ -181,3 +181,99 @@ sdone:
 	VMOVUPD Y9, 288(BX)
 	VZEROUPPER
 	RET
+
+// func listReachingAVX(mv *float64, n int, t0, t1 float64, r0, r1 *int32) (n0, n1 int)
+TEXT ·listReachingAVX(SB), NOSPLIT, $0-64
+	MOVQ mv+0(FP), SI
+	MOVQ n+8(FP), CX
+	VBROADCASTSD t0+16(FP), Y4
+	VBROADCASTSD t1+24(FP), Y5
+	VXORPD Y6, Y6, Y6
+	VSUBPD Y5, Y6, Y5
+	MOVQ r0+32(FP), DI
+	MOVQ r1+40(FP), R8
+	XORQ R9, R9
+	XORQ R10, R10
+	XORQ R12, R12
+	TESTQ CX, CX
+	JEQ ldone
+
+lloop:
+	VMOVUPD (SI)(R12*8), Y0
+	// M ≥ t0, and M ≤ −t1 (false for NaN).
+	VCMPPD $0x1d, Y4, Y0, Y1
+	VCMPPD $0x12, Y5, Y0, Y2
+	VORPD Y1, Y2, Y3
+	VMOVMSKPD Y3, AX
+	TESTL AX, AX
+	JNE lsome
+
+lnext:
+	ADDQ $4, R12
+	CMPQ R12, CX
+	JLT lloop
+
+ldone:
+	MOVQ R9, n0+48(FP)
+	MOVQ R10, n1+56(FP)
+	VZEROUPPER
+	RET
+
+lsome:
+	VMOVMSKPD Y1, BX
+	// Lane 0: to r0 if M ≥ t0, else to r1 if M ≤ −t1.
+	MOVQ R12, R13
+	ADDQ $0, R13
+	BTL $0, BX
+	JCC n0
+	MOVL R13, (DI)(R9*4)
+	INCQ R9
+	JMP l1
+n0:
+	BTL $0, AX
+	JCC l1
+	MOVL R13, (R8)(R10*4)
+	INCQ R10
+l1:
+	// Lane 1: to r0 if M ≥ t0, else to r1 if M ≤ −t1.
+	MOVQ R12, R13
+	ADDQ $1, R13
+	BTL $1, BX
+	JCC n1
+	MOVL R13, (DI)(R9*4)
+	INCQ R9
+	JMP l2
+n1:
+	BTL $1, AX
+	JCC l2
+	MOVL R13, (R8)(R10*4)
+	INCQ R10
+l2:
+	// Lane 2: to r0 if M ≥ t0, else to r1 if M ≤ −t1.
+	MOVQ R12, R13
+	ADDQ $2, R13
+	BTL $2, BX
+	JCC n2
+	MOVL R13, (DI)(R9*4)
+	INCQ R9
+	JMP l3
+n2:
+	BTL $2, AX
+	JCC l3
+	MOVL R13, (R8)(R10*4)
+	INCQ R10
+l3:
+	// Lane 3: to r0 if M ≥ t0, else to r1 if M ≤ −t1.
+	MOVQ R12, R13
+	ADDQ $3, R13
+	BTL $3, BX
+	JCC n3
+	MOVL R13, (DI)(R9*4)
+	INCQ R9
+	JMP lnext
+n3:
+	BTL $3, AX
+	JCC lnext
+	MOVL R13, (R8)(R10*4)
+	INCQ R10
+	JMP lnext

@@ -221,33 +221,42 @@ func TestSignsOfIsClassify(t *testing.T) {
 	}
 }
 
-// TestListReaching checks the units listed for ranking against the
-// units of each sign (classify) that reach the thresholds, compared one
-// by one: the same units in the same order.
+// TestListReaching checks the units listed for ranking (listReaching,
+// with AVX four at a time and in pure Go) against the units of each sign
+// past the round-off that reach the thresholds, compared one by one: the
+// same units in the same order; a NaN threshold lists none.
 func TestListReaching(t *testing.T) {
 	rng := rand.New(rand.NewPCG(9, 1))
-	mv := make([]float64, 500)
+	mv := make([]float64, 503)
 	for u := range mv {
 		mv[u] = rng.NormFloat64()
 		if u%50 == 0 {
 			mv[u] = math.NaN()
 		}
 	}
+	mv[7], mv[9] = 1, -2 // exactly at the thresholds {1, 2}
 	const nz = 0.05
-	for _, th := range [][2]float64{{0.1, 0.1}, {1, 2}, {3, 0.06}, {10, 10}} {
-		t.Run(fmt.Sprintf("%v", th), func(t *testing.T) {
-			got := listReaching(mv, th[0], th[1], make([]int32, len(mv)), make([]int32, len(mv)))
-			var want [2][]int32
-			for u, m := range mv {
-				if m > nz && m >= th[0] {
-					want[0] = append(want[0], int32(u))
-				} else if m < -nz && -m >= th[1] {
-					want[1] = append(want[1], int32(u))
+	for _, th := range [][2]float64{{0.1, 0.1}, {1, 2}, {3, 0.06}, {10, 10}, {math.NaN(), math.NaN()}} {
+		for _, avx := range []bool{false, true} {
+			if avx && !hasAVXHere() {
+				continue
+			}
+			t.Run(fmt.Sprintf("%v AVX %v", th, avx), func(t *testing.T) {
+				defer func(v bool) { useAVX = v }(useAVX)
+				useAVX = avx
+				got := listReaching(mv, th[0], th[1], make([]int32, len(mv)), make([]int32, len(mv)))
+				var want [2][]int32
+				for u, m := range mv {
+					if m > nz && m >= th[0] {
+						want[0] = append(want[0], int32(u))
+					} else if m < -nz && -m >= th[1] {
+						want[1] = append(want[1], int32(u))
+					}
 				}
-			}
-			if !reflect.DeepEqual(append([]int32{}, got[0]...), append([]int32{}, want[0]...)) || !reflect.DeepEqual(append([]int32{}, got[1]...), append([]int32{}, want[1]...)) {
-				t.Errorf("listed %v, want %v", got, want)
-			}
-		})
+				if !reflect.DeepEqual(append([]int32{}, got[0]...), append([]int32{}, want[0]...)) || !reflect.DeepEqual(append([]int32{}, got[1]...), append([]int32{}, want[1]...)) {
+					t.Errorf("listed %v, want %v", got, want)
+				}
+			})
+		}
 	}
 }
