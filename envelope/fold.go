@@ -32,9 +32,11 @@ import (
 // read once from the same rows, in the same pass as its end forces
 // (frame.Solution.StartForcesAndDisplacementsEach), each piece's M at
 // each station is M₀ + x·V + N·Σₖ Hᵢₖ·uₖ, formed once per member into a
-// table (foldCase.mt; with AVX four stations at once, table.go, which
-// also forms each station's sum of the pieces' M that the classification
-// would otherwise add up) and classified from it station by station; N and V
+// table (foldCase.mt) and classified from it station by station (with
+// AVX, table.go: the table four stations at once, one to a lane, with
+// each station's sum of the pieces' M; then the sums, largest sizes and
+// counts by sign, four stations at once, so that at each station only
+// the pieces the ranking may keep are listed); N and V
 // fold as in first order, the concurrent M of the pieces folded for them
 // being ΣM₀ + x·ΣV + N·Σₖ Hᵢₖ·Σuₖ; the pieces that load the member and
 // the original cases add their second-order moment from their own shape
@@ -44,8 +46,10 @@ import (
 // listed; the ranking at a station (and the fold's of N and V) is seeded
 // from the units the list kept at the station before, or at the last
 // station of the member before (seed.go), and ranks only the units that
-// reach the seed, found in the pass that sums that sign's units: the
-// lists are the same as without the seed.
+// reach the seed, found in the pass that sums that sign's units (in
+// second order with AVX, in a pass of their own, listReaching, which
+// also leaves out those below the share of the largest): the lists are
+// the same as without the seed.
 //
 // Member factors (live load reduction, factors.go) scale every column of
 // a case in the member by one factor per effect. Each piece is then

@@ -12,6 +12,18 @@ import "math"
 // pass, each station's sum of the units' M in their order, which the
 // classification of the station would otherwise form as a chain of
 // additions of its own (classify).
+//
+// Once the member's round-off is known, the table is classified four
+// stations at once too (signsOf): each lane adds, unit after unit, the
+// unit's N, V and M to its station's sums of the positive or of the
+// round-off units, and +0 to the others (a sum begun at +0 is never −0,
+// so +0 leaves it as it is), and keeps the largest size of each sign and
+// the counts: the numbers classify, sumsOver and largestOver form one
+// station at a time, to the last bit. A station then needs no lists of
+// its units by sign: only the few that reach the ranking's seed and
+// share of the largest are listed (listReaching, four units compared at
+// once). Without AVX (or with -tags purego) the stations are classified
+// one by one as before.
 
 // momentLanes is what momentRowsAVX reads: the four lanes' stations and
 // weights (H₁, H₂, H₄, H₅), the member's axial force and the mask that
