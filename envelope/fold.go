@@ -589,19 +589,39 @@ func classify(mv []float64, nz float64, pos, neg, zer []int32) (m0 float64, np, 
 	return m0, np, nn, nr
 }
 
-// classifySigns is classify without the sum.
-func classifySigns(mv []float64, nz float64, pos, neg, zer []int32) (np, nn, nr int) {
-	pos, neg, zer = pos[:len(mv)], neg[:len(mv)], zer[:len(mv)]
-	for u, m := range mv {
-		pos[np] = int32(u)
-		neg[nn] = int32(u)
-		zer[nr] = int32(u)
-		p, n := b2i(m > nz), b2i(m < -nz)
-		np += p
-		nn += n
-		nr += 1 - p - n
+// signsAt classifies the units' M at one station (mv, round-off nz)
+// into f's scratch and forms over them what stationSigns holds and the
+// sum of every M; it lists, in their order, the units of each sign that
+// reach pre (every unit of the sign where pre is 0), for the ranking.
+// (A function of its own, so that its loops keep their variables in
+// registers.)
+func (f *fold) signsAt(fc *foldCase, mv []float64, nz float64, pre [2]float64) (sg stationSigns, m0 float64, ranked [2][]int32) {
+	nu := len(fc.n)
+	f.pos, f.neg, f.zer = grow(f.pos, nu), grow(f.neg, nu), grow(f.zer, nu)
+	m0, cp, cn, cz := classify(mv, nz, f.pos, f.neg, f.zer)
+	pos, neg, zer := f.pos[:cp], f.neg[:cn], f.zer[:cz]
+	ranked = [2][]int32{pos, neg}
+	sg.count = [2]int{cp, cn}
+	ps := &sg.pos
+	if pre[0] > 0 {
+		f.ranked[0] = grow(f.ranked[0], nu)
+		var nr int
+		ps[0], ps[1], ps[2], sg.big[0], nr = sumsReaching(pos, fc.n, fc.v, mv, mv, pre[0], f.ranked[0])
+		ranked[0] = f.ranked[0][:nr]
+	} else {
+		ps[0], ps[1], ps[2], sg.big[0] = sumsOver(pos, fc.n, fc.v, mv, mv)
 	}
-	return np, nn, nr
+	zs := &sg.zero
+	zs[0], zs[1], zs[2], _ = sumsOver(zer, fc.n, fc.v, mv, mv)
+	if pre[1] > 0 {
+		f.ranked[1] = grow(f.ranked[1], nu)
+		var nr int
+		sg.big[1], nr = largestReaching(neg, mv, -pre[1], f.ranked[1])
+		ranked[1] = f.ranked[1][:nr]
+	} else {
+		sg.big[1] = largestOver(neg, mv)
+	}
+	return sg, m0, ranked
 }
 
 // b2i is 1 for true and 0 for false, without a branch.
@@ -732,17 +752,10 @@ func (pl *exactPlacement) scanFolded(e *evaluator, w *work, f *fold, i, k int, r
 			}
 		}
 		nz := w.noise[2]
-		f.pos, f.neg, f.zer = grow(f.pos, nu), grow(f.neg, nu), grow(f.zer, nu)
 		// In second order, unscaled, with AVX, the sums, largest sizes and
 		// counts by sign were formed four stations at once (signsOf), and
 		// only the units the ranking may keep are listed, below.
 		fast := f.second && !scaled && fc.signed
-		var m0 float64
-		var cp, cn, cz int
-		if !fast {
-			m0, cp, cn, cz = classify(mv, nz, f.pos, f.neg, f.zer)
-		}
-		pos, neg, zer := f.pos[:cp], f.neg[:cn], f.zer[:cz]
 		// The seed of the ranking (keptAt, see below) from the units the
 		// list kept at the previous station, or at the member's first
 		// station at the last station of the member enveloped before with
@@ -754,37 +767,21 @@ func (pl *exactPlacement) scanFolded(e *evaluator, w *work, f *fold, i, k int, r
 		kept := &f.kept[k*np+p]
 		var pre [2]float64
 		var full [2]bool
-		ranked := [2][]int32{pos, neg}
 		if seeds(w) {
 			for s := range pre {
 				pre[s], full[s] = keptAt(kept[s], mv, nz, s == 1, w.share, w.limit)
 			}
 		}
-		var ps, zs [3]float64
+		var sg stationSigns
+		var m0 float64
+		var ranked [2][]int32
 		if fast {
-			sg := &fc.sg[i]
-			m0, ps, zs, big[2] = fc.tot[i], sg.pos, sg.zero, sg.big
-			cp, cn = sg.count[0], sg.count[1]
-		} else if pre[0] > 0 {
-			f.ranked[0] = grow(f.ranked[0], nu)
-			var nr int
-			ps[0], ps[1], ps[2], big[2][0], nr = sumsReaching(pos, fc.n, fc.v, mv, mv, pre[0], f.ranked[0])
-			ranked[0] = f.ranked[0][:nr]
+			sg, m0 = fc.sg[i], fc.tot[i]
 		} else {
-			ps[0], ps[1], ps[2], big[2][0] = sumsOver(pos, fc.n, fc.v, mv, mv)
+			sg, m0, ranked = f.signsAt(fc, mv, nz, pre)
 		}
-		switch {
-		case fast:
-		case pre[1] > 0:
-			zs[0], zs[1], zs[2], _ = sumsOver(zer, fc.n, fc.v, mv, mv)
-			f.ranked[1] = grow(f.ranked[1], nu)
-			var nr int
-			big[2][1], nr = largestReaching(neg, mv, -pre[1], f.ranked[1])
-			ranked[1] = f.ranked[1][:nr]
-		default:
-			zs[0], zs[1], zs[2], _ = sumsOver(zer, fc.n, fc.v, mv, mv)
-			big[2][1] = largestOver(neg, mv)
-		}
+		ps, zs, cp, cn := sg.pos, sg.zero, sg.count[0], sg.count[1]
+		big[2] = sg.big
 		// The values of the units that load the member, scaled.
 		f.own = grow(f.own, len(fc.own))
 		for q := range fc.own {
