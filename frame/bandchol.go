@@ -80,7 +80,15 @@ func bandCholesky(a []float64, n, kb int) bool {
 			switch {
 			case v0 != 0 && v1 != 0:
 				subScaled2(y[:both], ri[j:m+1], r1[j-1:j-1+both], v0, v1)
-				if len(y) > both {
+				if len(y)-both <= 3 {
+					// Row i+1's last few: subScaled's numbers, without
+					// its call (one entry when both rows reach the band's
+					// end).
+					x := r1[j-1 : m1+1]
+					for k := both; k < len(y); k++ {
+						y[k] -= v1 * x[k]
+					}
+				} else {
 					subScaled(y[both:], r1[j-1+both:m1+1], v1)
 				}
 			case v0 != 0:
