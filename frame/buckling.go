@@ -323,7 +323,8 @@ func (b *Buckling) Factor(axial []float64) (float64, error) {
 
 // Factors returns αcr for each set of axial forces of axials, as
 // [Buckling.Factor] for each: the first set's iteration alone, then the
-// others' side by side from its mode (each step's substitutions one pass
+// others' side by side, each from its own Ritz vector on the first set's
+// Lanczos vectors (bucklingstart.go; each step's substitutions one pass
 // over the factor for all); each within certifyGap of the set's αcr, as
 // one by one, and the same on every run.
 //

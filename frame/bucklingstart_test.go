@@ -1,6 +1,7 @@
 package frame
 
 import (
+	"fmt"
 	"math"
 	"math/rand/v2"
 	"runtime"
@@ -136,6 +137,77 @@ func TestBucklingLongFirst(t *testing.T) {
 			if single[i] != all[i] {
 				t.Errorf("set %d: αcr %.17g on one processor, %.17g on several", i, single[i], all[i])
 			}
+		})
+	}
+}
+
+// combinedSets returns the regular frame of bays × storeys of gridFrame
+// and nine sets of axial forces on it as a run's combinations make them:
+// the member forces of three load cases solved on it (a permanent load on
+// every beam, an imposed one on every other bay, and a wind load at each
+// floor), added with the factors of the basic combinations 1.4D,
+// 1.2D + 1.6L and so on (ASCE 7-16 2.3.1, from memory).
+func combinedSets(tb testing.TB, bays, storeys int) (*Model, [][]float64) {
+	mo := gridFrame(bays, storeys, 1)
+	dead, live, wind := Case{Name: "D"}, Case{Name: "L"}, Case{Name: "W"}
+	for m := range mo.Members {
+		if mo.IsBeam(m) {
+			dead.MemberLoads = append(dead.MemberLoads, MemberLoad{Member: m, To: mo.Length(m), W: 20, WEnd: 20})
+			if m%2 == 0 {
+				live.MemberLoads = append(live.MemberLoads, MemberLoad{Member: m, To: mo.Length(m), W: 12, WEnd: 12})
+			}
+		}
+	}
+	for v, n := range mo.Nodes {
+		if n.X == 0 && n.Y > 0 {
+			wind.NodeLoads = append(wind.NodeLoads, NodeLoad{Node: v, Fx: 15})
+		}
+	}
+	mo.Cases = []Case{dead, live, wind}
+	sol, err := Solve(mo)
+	if err != nil {
+		tb.Fatal(err)
+	}
+	forces := make([][]float64, 3)
+	for c := range forces {
+		forces[c] = make([]float64, len(mo.Members))
+		for m := range mo.Members {
+			f := sol.EndForces(c, m)
+			forces[c][m] = (-f[0] + f[3]) / 2
+		}
+	}
+	var sets [][]float64
+	for _, f := range [][3]float64{{1.4, 0, 0}, {1.2, 1.6, 0}, {1.2, 1, 0.5}, {1.2, 1, -0.5}, {1.2, 1, 1}, {1.2, 1, -1}, {0.9, 0, 1}, {0.9, 0, -1}, {1.2, 0.5, 0}} {
+		s := make([]float64, len(mo.Members))
+		for m := range s {
+			s[m] = f[0]*forces[0][m] + f[1]*forces[1][m] + f[2]*forces[2][m]
+		}
+		sets = append(sets, s)
+	}
+	return &Model{Nodes: mo.Nodes, Sections: mo.Sections, Members: mo.Members}, sets
+}
+
+// BenchmarkCriticalCombinations is BenchmarkCriticalFactors on the
+// regular frames of combinedSets, the nine sets of axial forces those of
+// combinations of three load cases, whose modes are alike as a building
+// frame's are (the sets of BenchmarkCriticalFactors differ member by
+// member at random). cpu-ns/op as there.
+func BenchmarkCriticalCombinations(b *testing.B) {
+	for _, size := range [][2]int{{10, 10}, {30, 20}, {30, 60}} {
+		mo, sets := combinedSets(b, size[0], size[1])
+		b.Run(fmt.Sprintf("%dx%d", size[0], size[1]), func(b *testing.B) {
+			b.ReportAllocs()
+			start := cpuTime()
+			for b.Loop() {
+				bk, err := NewBuckling(mo)
+				if err != nil {
+					b.Fatal(err)
+				}
+				if _, err := bk.Factors(sets); err != nil {
+					b.Fatal(err)
+				}
+			}
+			b.ReportMetric(float64(cpuTime()-start)/float64(b.N), "cpu-ns/op")
 		})
 	}
 }
