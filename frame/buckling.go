@@ -375,7 +375,7 @@ func (b *Buckling) Factors(axials [][]float64) ([]float64, error) {
 	// with the fixed start's every direction mixed in: the modes of a
 	// frame's combinations are much alike, and lie mostly in the space
 	// the first set's iteration has spanned.
-	mus, errs, first := b.lanczos(run[:min(1, len(run))], [][]float64{r}, [][]float64{z}, len(run) > 1)
+	mus, errs, first := b.lanczos(run[:min(1, len(run))], [][]float64{slices.Clone(r)}, [][]float64{slices.Clone(z)}, len(run) > 1)
 	if len(run) > 1 {
 		rest := run[1:]
 		rs, zs := make([][]float64, len(rest)), make([][]float64, len(rest))
@@ -383,7 +383,7 @@ func (b *Buckling) Factors(axials [][]float64) ([]float64, error) {
 			rs, zs = b.ritzStarts(rest, first, r, z)
 		} else {
 			for i := range rest {
-				rs[i], zs[i] = r, z
+				rs[i], zs[i] = slices.Clone(r), slices.Clone(z)
 			}
 		}
 		// Each set's recurrence is its own (every column of a step in the
@@ -485,7 +485,8 @@ func (b *Buckling) definite(lambda float64, axial []float64, sc *certifyScratch)
 // lanczos returns, for each set of axial forces, the largest eigenvalue μ
 // of K⁻¹(−Kg) (0 or less when none is positive), by Lanczos iteration in
 // the K inner product with full reorthogonalization, every set's side by
-// side, set c from r0[c] (w0[c] = K r0[c]). With keep, first is the first
+// side, set c from r0[c] (w0[c] = K r0[c]; both its own, overwritten:
+// they become its first Lanczos vector). With keep, first is the first
 // set's iteration once its μ is found (nil when it is not).
 func (b *Buckling) lanczos(axials [][]float64, r0, w0 [][]float64, keep bool) (mus []float64, errs []error, first *krylov) {
 	size, k := b.size, len(axials)
@@ -499,7 +500,7 @@ func (b *Buckling) lanczos(axials [][]float64, r0, w0 [][]float64, keep bool) (m
 	mus, errs = make([]float64, k), make([]error, k)
 	recs := make([]recurrence, k)
 	for c := range recs {
-		recs[c].r, recs[c].w = slices.Clone(r0[c]), slices.Clone(w0[c])
+		recs[c].r, recs[c].w = r0[c], w0[c]
 	}
 	var active []int
 	var block, out []float64
