@@ -21,9 +21,11 @@ type krylov struct {
 	alpha, beta []float64
 }
 
-// maxRitzBasis (a variable for the tests) is the most Lanczos vectors of the first set the others'
-// starts are projected on: with more, its mode alone (an iteration that
-// long is a frame whose modes the first set's space says little of).
+// maxRitzBasis (a variable for the tests) is the most Lanczos vectors
+// of the first set the others' starts are projected on: with more, its
+// mode alone (an iteration that long is a frame whose modes the first
+// set's space says little of, and the projection's work grows with the
+// square of the vectors).
 var maxRitzBasis = 32
 
 // startMix is the share of the fixed start mixed into each later set's
