@@ -378,10 +378,11 @@ func (b *Buckling) Factors(axials [][]float64) ([]float64, error) {
 	mus, errs, first := b.lanczos(run[:min(1, len(run))], [][]float64{slices.Clone(r)}, [][]float64{slices.Clone(z)}, len(run) > 1)
 	if len(run) > 1 {
 		rest := run[1:]
-		rs, zs := make([][]float64, len(rest)), make([][]float64, len(rest))
+		var rs, zs [][]float64
 		if first != nil {
 			rs, zs = b.ritzStarts(rest, first, r, z)
 		} else {
+			rs, zs = make([][]float64, len(rest)), make([][]float64, len(rest))
 			for i := range rest {
 				rs[i], zs[i] = slices.Clone(r), slices.Clone(z)
 			}
