@@ -341,8 +341,9 @@ func (f *fold) load(e *evaluator, w *work, sol *frame.Solution, m int) {
 			continue
 		}
 		fc.mt = grow(fc.mt, ns*nu)
-		// Station by station, the weights held: the same sums, in the
-		// same order, as frame.Sway. The weights of the nodes' axial
+		// Station by station (momentTable, table.go), the weights held:
+		// the same sums, in the same order, as frame.Sway. The weights of
+		// the nodes' axial
 		// displacements (0 and 3) are zero at every station of a member
 		// whose displacement across it does not depend on them (every
 		// one, as frame forms them): their terms, ±0 for a finite
