@@ -13,7 +13,7 @@ import (
 // the run's peak, which for the 10 × 10 frame is within 25 % of the
 // 19 MiB measured for it (docs/errors.md, Limits: maximum resident set
 // size of 'govern run', docs/perf/memory.sh); and leaves a limit given by
-// GOMEMLIMIT alone.
+// GOMEMLIMIT alone; and that what it returns puts the limit back.
 func TestSetMemoryLimit(t *testing.T) {
 	const (
 		measuredMiB = 19
@@ -37,16 +37,20 @@ func TestSetMemoryLimit(t *testing.T) {
 	t.Run("from the estimate", func(t *testing.T) {
 		t.Setenv("GOMEMLIMIT", "")
 		debug.SetMemoryLimit(math.MaxInt64)
-		setMemoryLimit(&job.Job)
+		restore := setMemoryLimit(&job.Job)
 		got := float64(debug.SetMemoryLimit(-1))
 		if r := got / (measuredMiB << 20); r < 1-within || r > 1+within {
 			t.Errorf("limit %.1f MiB, %.2f of the %d MiB measured", got/(1<<20), r, measuredMiB)
+		}
+		restore()
+		if got := debug.SetMemoryLimit(-1); got != math.MaxInt64 {
+			t.Errorf("limit %d bytes after the analysis, want none, as before it", got)
 		}
 	})
 	t.Run("GOMEMLIMIT given", func(t *testing.T) {
 		t.Setenv("GOMEMLIMIT", "off")
 		debug.SetMemoryLimit(math.MaxInt64)
-		setMemoryLimit(&job.Job)
+		setMemoryLimit(&job.Job)()
 		if got := debug.SetMemoryLimit(-1); got != math.MaxInt64 {
 			t.Errorf("limit %d bytes, want none (GOMEMLIMIT=off)", got)
 		}
@@ -54,7 +58,7 @@ func TestSetMemoryLimit(t *testing.T) {
 	t.Run("not in tests", func(t *testing.T) {
 		t.Setenv("GOMEMLIMIT", "")
 		debug.SetMemoryLimit(math.MaxInt64)
-		limitMemory(&job.Job)
+		limitMemory(&job.Job)()
 		if got := debug.SetMemoryLimit(-1); got != math.MaxInt64 {
 			t.Errorf("limit %d bytes set where main did not ask for one", got)
 		}
