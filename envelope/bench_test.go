@@ -5,6 +5,7 @@ import (
 	"testing"
 
 	"govern/combos"
+	"govern/envelope/internal/cputime"
 	"govern/frame"
 	"govern/patterns"
 )
@@ -100,11 +101,13 @@ func BenchmarkCompute(b *testing.B) {
 			set := Settings{Kinds: kindsOf(sol, lay), Stations: 11, Groups: bc.groups}
 			b.ReportAllocs()
 			b.ResetTimer()
+			start := cputime.Now()
 			for b.Loop() {
 				if _, err := Compute(sol, cs, set, lay); err != nil {
 					b.Fatal(err)
 				}
 			}
+			reportCPU(b, start)
 		})
 	}
 }
@@ -147,11 +150,13 @@ func BenchmarkComputeFactors(b *testing.B) {
 			set := Settings{Kinds: kinds, Stations: 11, Factors: f}
 			b.ReportAllocs()
 			b.ResetTimer()
+			start := cputime.Now()
 			for b.Loop() {
 				if _, err := Compute(sol, cs, set, lay); err != nil {
 					b.Fatal(err)
 				}
 			}
+			reportCPU(b, start)
 		})
 	}
 }
@@ -185,11 +190,13 @@ func BenchmarkComputeSecondOrder(b *testing.B) {
 			set := Settings{Kinds: kindsOf(sol, lay), Stations: 11}
 			b.ReportAllocs()
 			b.ResetTimer()
+			start := cputime.Now()
 			for b.Loop() {
 				if _, err := Compute(sol, cs, set, lay); err != nil {
 					b.Fatal(err)
 				}
 			}
+			reportCPU(b, start)
 		})
 	}
 }

@@ -32,7 +32,11 @@ import (
 // read once from the same rows, in the same pass as its end forces
 // (frame.Solution.StartForcesAndDisplacementsEach), each piece's M at
 // each station is M₀ + x·V + N·Σₖ Hᵢₖ·uₖ, formed once per member into a
-// table (foldCase.mt) and classified from it station by station; N and V
+// table (foldCase.mt) and classified from it station by station (with
+// AVX, table.go: the table four stations at once, one to a lane, with
+// each station's sum of the pieces' M; then the sums, largest sizes and
+// counts by sign, four stations at once, so that at each station only
+// the pieces the ranking may keep are listed); N and V
 // fold as in first order, the concurrent M of the pieces folded for them
 // being ΣM₀ + x·ΣV + N·Σₖ Hᵢₖ·Σuₖ; the pieces that load the member and
 // the original cases add their second-order moment from their own shape
@@ -42,8 +46,10 @@ import (
 // listed; the ranking at a station (and the fold's of N and V) is seeded
 // from the units the list kept at the station before, or at the last
 // station of the member before (seed.go), and ranks only the units that
-// reach the seed, found in the pass that sums that sign's units: the
-// lists are the same as without the seed.
+// reach the seed, found in the pass that sums that sign's units (in
+// second order with AVX, in a pass of their own, listReaching, which
+// also leaves out those below the share of the largest): the lists are
+// the same as without the seed.
 //
 // Member factors (live load reduction, factors.go) scale every column of
 // a case in the member by one factor per effect. Each piece is then
@@ -130,6 +136,14 @@ type foldCase struct {
 	// station (mt[i*len(n)+u]; zero for the units that load the member).
 	u  [][6]float64
 	mt []float64
+	// When summed, tot[i] is the sum of row i of mt over the units, in
+	// their order from +0, as classify forms it (table.go).
+	tot    []float64
+	summed bool
+	// When signed, sg[i] is what the classification of station i by the
+	// sign of M gives (table.go), with the member's round-off.
+	sg     []stationSigns
+	signed bool
 	// The fold over the units that do not load the member, for N and V,
 	// one per set of member factors (evaluator.parts, or one).
 	nv []foldNV
@@ -327,8 +341,9 @@ func (f *fold) load(e *evaluator, w *work, sol *frame.Solution, m int) {
 			continue
 		}
 		fc.mt = grow(fc.mt, ns*nu)
-		// Station by station, the weights held: the same sums, in the
-		// same order, as frame.Sway. The weights of the nodes' axial
+		// Station by station (momentTable, table.go), the weights held:
+		// the same sums, in the same order, as frame.Sway. The weights of
+		// the nodes' axial
 		// displacements (0 and 3) are zero at every station of a member
 		// whose displacement across it does not depend on them (every
 		// one, as frame forms them): their terms, ±0 for a finite
@@ -337,16 +352,22 @@ func (f *fold) load(e *evaluator, w *work, sol *frame.Solution, m int) {
 		// finite makes the column's end forces not finite too, and the
 		// station is formed again on the unfolded path.)
 		axialFree := f.wmax[0] == 0 && f.wmax[3] == 0
-		for i, x := range w.xs {
-			wi := &f.wts[i]
-			w0, w1, w2, w3, w4, w5 := wi[0], wi[1], wi[2], wi[3], wi[4], wi[5]
-			row := fc.mt[i*nu : (i+1)*nu]
-			if axialFree {
+		fc.summed = false
+		if axialFree {
+			fc.tot = grow(fc.tot, ns)
+			bm, fc.summed = momentTable(fc.mt, fc.tot, w.xs, f.wts, f.n, an, av, au, bm)
+		} else {
+			for i, x := range w.xs {
+				wi := &f.wts[i]
+				w0, w1, w2, w3, w4, w5 := wi[0], wi[1], wi[2], wi[3], wi[4], wi[5]
+				row := fc.mt[i*nu : (i+1)*nu]
 				for u := range row {
 					d := &au[u]
 					sw := 0.0
+					sw += w0 * d[0]
 					sw += w1 * d[1]
 					sw += w2 * d[2]
+					sw += w3 * d[3]
 					sw += w4 * d[4]
 					sw += w5 * d[5]
 					mm := (an[u] + x*av[u]) + f.n*sw
@@ -357,36 +378,32 @@ func (f *fold) load(e *evaluator, w *work, sol *frame.Solution, m int) {
 						bm = -mm
 					}
 				}
-				continue
-			}
-			for u := range row {
-				d := &au[u]
-				sw := 0.0
-				sw += w0 * d[0]
-				sw += w1 * d[1]
-				sw += w2 * d[2]
-				sw += w3 * d[3]
-				sw += w4 * d[4]
-				sw += w5 * d[5]
-				mm := (an[u] + x*av[u]) + f.n*sw
-				row[u] = mm
-				if mm > bm {
-					bm = mm
-				} else if -mm > bm {
-					bm = -mm
-				}
 			}
 		}
 		big[2] = bm
 		for k, u := range fc.own {
 			au[u] = f.held[k]
 			for i := range ns {
+				// Held at zero, a unit that loads the member added +0 to
+				// the sums of the rows (which then leave them as they
+				// are, a sum begun at +0 being never −0), unless the
+				// weights or the axial force are not finite.
+				if math.Float64bits(fc.mt[i*nu+u]) != 0 {
+					fc.summed = false
+				}
 				fc.mt[i*nu+u] = 0
 			}
 		}
 	}
 	for j := range big {
 		w.noiseAt[j] = big[j] * roundOff
+	}
+	for p := range f.cases {
+		fc := &f.cases[p]
+		if fc.signed = fc.summed && anyUses(parts, p); fc.signed {
+			fc.sg = grow(fc.sg, ns)
+			signsOf(fc.sg, fc.mt, fc.n, fc.v, w.noiseAt[2])
+		}
 	}
 	for p, pc := range e.lay.Patterned {
 		fc := &f.cases[p]
@@ -519,6 +536,32 @@ func (fc *foldCase) fold(f *fold, w *work, nv *foldNV, kept *[2][2][]int32, seco
 	}
 }
 
+// listReaching lists in r0, in their order, the units whose M (mv) is at
+// least t0, and in r1 those whose M is at most −t1 (t0, t1 > 0), and
+// returns the two lists. r0 and r1 hold at least len(mv) entries. Most
+// units reach neither: one well-predicted branch each.
+func listReaching(mv []float64, t0, t1 float64, r0, r1 []int32) [2][]int32 {
+	r0, r1 = r0[:len(mv)], r1[:len(mv)]
+	n0, n1, from := 0, 0, 0
+	if useAVX && len(mv) >= 4 {
+		from = len(mv) &^ 3
+		n0, n1 = listReachingAVX(&mv[0], from, t0, t1, &r0[0], &r1[0])
+	}
+	for u := from; u < len(mv); u++ {
+		m := mv[u]
+		if m >= t0 || -m >= t1 {
+			if m >= t0 {
+				r0[n0] = int32(u)
+				n0++
+			} else {
+				r1[n1] = int32(u)
+				n1++
+			}
+		}
+	}
+	return [2][]int32{r0[:n0], r1[:n1]}
+}
+
 // addU adds u to s.
 func addU(s, u *[6]float64) {
 	for k := range s {
@@ -545,6 +588,41 @@ func classify(mv []float64, nz float64, pos, neg, zer []int32) (m0 float64, np, 
 		nr += 1 - p - n
 	}
 	return m0, np, nn, nr
+}
+
+// signsAt classifies the units' M at one station (mv, round-off nz)
+// into f's scratch and forms over them what stationSigns holds and the
+// sum of every M; it lists, in their order, the units of each sign that
+// reach pre (every unit of the sign where pre is 0), for the ranking.
+// (A function of its own, so that its loops keep their variables in
+// registers.)
+func (f *fold) signsAt(fc *foldCase, mv []float64, nz float64, pre [2]float64) (sg stationSigns, m0 float64, ranked [2][]int32) {
+	nu := len(fc.n)
+	f.pos, f.neg, f.zer = grow(f.pos, nu), grow(f.neg, nu), grow(f.zer, nu)
+	m0, cp, cn, cz := classify(mv, nz, f.pos, f.neg, f.zer)
+	pos, neg, zer := f.pos[:cp], f.neg[:cn], f.zer[:cz]
+	ranked = [2][]int32{pos, neg}
+	sg.count = [2]int{cp, cn}
+	ps := &sg.pos
+	if pre[0] > 0 {
+		f.ranked[0] = grow(f.ranked[0], nu)
+		var nr int
+		ps[0], ps[1], ps[2], sg.big[0], nr = sumsReaching(pos, fc.n, fc.v, mv, mv, pre[0], f.ranked[0])
+		ranked[0] = f.ranked[0][:nr]
+	} else {
+		ps[0], ps[1], ps[2], sg.big[0] = sumsOver(pos, fc.n, fc.v, mv, mv)
+	}
+	zs := &sg.zero
+	zs[0], zs[1], zs[2], _ = sumsOver(zer, fc.n, fc.v, mv, mv)
+	if pre[1] > 0 {
+		f.ranked[1] = grow(f.ranked[1], nu)
+		var nr int
+		sg.big[1], nr = largestReaching(neg, mv, -pre[1], f.ranked[1])
+		ranked[1] = f.ranked[1][:nr]
+	} else {
+		sg.big[1] = largestOver(neg, mv)
+	}
+	return sg, m0, ranked
 }
 
 // b2i is 1 for true and 0 for false, without a branch.
@@ -675,9 +753,10 @@ func (pl *exactPlacement) scanFolded(e *evaluator, w *work, f *fold, i, k int, r
 			}
 		}
 		nz := w.noise[2]
-		f.pos, f.neg, f.zer = grow(f.pos, nu), grow(f.neg, nu), grow(f.zer, nu)
-		m0, cp, cn, cz := classify(mv, nz, f.pos, f.neg, f.zer)
-		pos, neg, zer := f.pos[:cp], f.neg[:cn], f.zer[:cz]
+		// In second order, unscaled, with AVX, the sums, largest sizes and
+		// counts by sign were formed four stations at once (signsOf), and
+		// only the units the ranking may keep are listed, below.
+		fast := f.second && !scaled && fc.signed
 		// The seed of the ranking (keptAt, see below) from the units the
 		// list kept at the previous station, or at the member's first
 		// station at the last station of the member enveloped before with
@@ -689,30 +768,21 @@ func (pl *exactPlacement) scanFolded(e *evaluator, w *work, f *fold, i, k int, r
 		kept := &f.kept[k*np+p]
 		var pre [2]float64
 		var full [2]bool
-		ranked := [2][]int32{pos, neg}
 		if seeds(w) {
 			for s := range pre {
 				pre[s], full[s] = keptAt(kept[s], mv, nz, s == 1, w.share, w.limit)
 			}
 		}
-		var ps, zs [3]float64
-		if pre[0] > 0 {
-			f.ranked[0] = grow(f.ranked[0], nu)
-			var nr int
-			ps[0], ps[1], ps[2], big[2][0], nr = sumsReaching(pos, fc.n, fc.v, mv, mv, pre[0], f.ranked[0])
-			ranked[0] = f.ranked[0][:nr]
+		var sg stationSigns
+		var m0 float64
+		var ranked [2][]int32
+		if fast {
+			sg, m0 = fc.sg[i], fc.tot[i]
 		} else {
-			ps[0], ps[1], ps[2], big[2][0] = sumsOver(pos, fc.n, fc.v, mv, mv)
+			sg, m0, ranked = f.signsAt(fc, mv, nz, pre)
 		}
-		zs[0], zs[1], zs[2], _ = sumsOver(zer, fc.n, fc.v, mv, mv)
-		if pre[1] > 0 {
-			f.ranked[1] = grow(f.ranked[1], nu)
-			var nr int
-			big[2][1], nr = largestReaching(neg, mv, -pre[1], f.ranked[1])
-			ranked[1] = f.ranked[1][:nr]
-		} else {
-			big[2][1] = largestOver(neg, mv)
-		}
+		ps, zs, cp, cn := sg.pos, sg.zero, sg.count[0], sg.count[1]
+		big[2] = sg.big
 		// The values of the units that load the member, scaled.
 		f.own = grow(f.own, len(fc.own))
 		for q := range fc.own {
@@ -758,6 +828,19 @@ func (pl *exactPlacement) scanFolded(e *evaluator, w *work, f *fold, i, k int, r
 			zs[0], zs[1] = sc[0]*zs[0], sc[1]*zs[1]
 		}
 		sum[2][0], zero[2], tot[2] = ps, zs, m0
+		if fast {
+			// The units of each sign that reach both the seed and the
+			// share of the largest, in their order: every unit either
+			// ranking below accepts (its thresholds are at least the
+			// share of the largest, and it ranks only the units that
+			// reach the seed), so the same lists.
+			above := math.Nextafter(nz, math.Inf(1)) // a size past the round-off
+			if !(above < math.Inf(1)) {
+				above = math.NaN() // none is: no unit listed
+			}
+			f.ranked[0], f.ranked[1] = grow(f.ranked[0], nu), grow(f.ranked[1], nu)
+			ranked = listReaching(mv[:nu], max(pre[0], cut[0], above), max(pre[1], cut[1], above), f.ranked[0], f.ranked[1])
+		}
 		for s := range ranked {
 			neg := s == 1
 			h := rankListed(top[2][s][:0], ranked[s], mv, neg, thr[s], w.limit)

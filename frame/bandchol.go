@@ -10,7 +10,11 @@ import "math"
 // LAPACK's unblocked dpbtf2 in row-major order: row i is scaled by its
 // pivot's square root and its outer product taken from the rows below
 // it, one row at a time, each row's update a contiguous y −= a·x (by
-// subScaled, four at a time with AVX where the processor has it).
+// subScaled, four at a time with AVX where the processor has it). A row's
+// update stops at its last entry that is not zero (a stiffness ordered
+// by reverse Cuthill–McKee is a profile: a fifth of the band is zeros at
+// the rows' ends, and stays zero): the numbers are those of the whole
+// band, zeros but for their sign.
 func bandCholesky(a []float64, n, kb int) bool {
 	w := kb + 1
 	_ = a[n*w-1]
@@ -30,20 +34,32 @@ func bandCholesky(a []float64, n, kb int) bool {
 		}
 		return true
 	}
+	// reach returns how many entries right of row i's diagonal, of at
+	// most m, reach its last one that is not zero.
+	reach := func(i, m int) int {
+		row := a[i*w : i*w+m+1]
+		for m > 0 && row[m] == 0 {
+			m--
+		}
+		return m
+	}
 	i := 0
 	// Two rows at a time: row i, row i+1 updated by it, row i+1; then the
 	// rows below updated by both at once, row i's term first (the numbers
-	// of one row at a time).
+	// of one row at a time). Row i+1 is taken at least as far as row i
+	// reaches.
 	for ; i+1 < n; i += 2 {
-		m := min(kb, n-1-i)
+		m := reach(i, min(kb, n-1-i))
 		if !pivot(i, m) {
 			return false
 		}
 		ri := a[i*w : i*w+m+1]
-		if v := ri[1]; v != 0 {
-			subScaled(a[(i+1)*w:(i+1)*w+m], ri[1:m+1], v)
+		if m > 0 {
+			if v := ri[1]; v != 0 {
+				subScaled(a[(i+1)*w:(i+1)*w+m], ri[1:m+1], v)
+			}
 		}
-		m1 := min(kb, n-2-i)
+		m1 := max(reach(i+1, min(kb, n-2-i)), m-1)
 		if !pivot(i+1, m1) {
 			return false
 		}
@@ -64,7 +80,15 @@ func bandCholesky(a []float64, n, kb int) bool {
 			switch {
 			case v0 != 0 && v1 != 0:
 				subScaled2(y[:both], ri[j:m+1], r1[j-1:j-1+both], v0, v1)
-				if len(y) > both {
+				if len(y)-both <= 3 {
+					// Row i+1's last few: subScaled's numbers, without
+					// its call (one entry when both rows reach the band's
+					// end).
+					x := r1[j-1 : m1+1]
+					for k := both; k < len(y); k++ {
+						y[k] -= v1 * x[k]
+					}
+				} else {
 					subScaled(y[both:], r1[j-1+both:m1+1], v1)
 				}
 			case v0 != 0:

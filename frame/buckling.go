@@ -323,7 +323,8 @@ func (b *Buckling) Factor(axial []float64) (float64, error) {
 
 // Factors returns αcr for each set of axial forces of axials, as
 // [Buckling.Factor] for each: the first set's iteration alone, then the
-// others' side by side from its mode (each step's substitutions one pass
+// others' side by side, each from its own Ritz vector on the first set's
+// Lanczos vectors (bucklingstart.go; each step's substitutions one pass
 // over the factor for all); each within certifyGap of the set's αcr, as
 // one by one, and the same on every run.
 //
@@ -369,22 +370,26 @@ func (b *Buckling) Factors(axials [][]float64) ([]float64, error) {
 			z[i] /= nr
 		}
 	}
-	// The first set alone; the others side by side from its mode, with
-	// the fixed start's every direction mixed in: the modes of a frame's
-	// combinations are much alike.
-	mus, errs, y, ky := b.lanczos(run[:min(1, len(run))], r, z, len(run) > 1)
+	// The first set alone; the others side by side, each from its own
+	// Ritz vector on the first set's Lanczos vectors (bucklingstart.go),
+	// with the fixed start's every direction mixed in: the modes of a
+	// frame's combinations are much alike, and lie mostly in the space
+	// the first set's iteration has spanned.
+	mus, errs, first := b.lanczos(run[:min(1, len(run))], [][]float64{slices.Clone(r)}, [][]float64{slices.Clone(z)}, len(run) > 1)
 	if len(run) > 1 {
-		if y != nil {
-			for i := range y {
-				y[i] += warmMix * r[i]
-				ky[i] += warmMix * z[i]
+		rest := run[1:]
+		var rs, zs [][]float64
+		if first != nil {
+			rs, zs = b.ritzStarts(rest, first, r, z)
+		} else {
+			rs, zs = make([][]float64, len(rest)), make([][]float64, len(rest))
+			for i := range rest {
+				rs[i], zs[i] = slices.Clone(r), slices.Clone(z)
 			}
-			r, z = y, ky
 		}
 		// Each set's recurrence is its own (every column of a step in the
 		// same order of operations as alone): the sets split between the
 		// processors give the same numbers.
-		rest := run[1:]
 		parts := min(runtime.GOMAXPROCS(0), len(rest))
 		ms, es := make([][]float64, parts), make([][]error, parts)
 		var wg sync.WaitGroup
@@ -392,7 +397,8 @@ func (b *Buckling) Factors(axials [][]float64) ([]float64, error) {
 			wg.Add(1)
 			go func() {
 				defer wg.Done()
-				ms[i], es[i], _, _ = b.lanczos(rest[i*len(rest)/parts:(i+1)*len(rest)/parts], r, z, false)
+				lo, hi := i*len(rest)/parts, (i+1)*len(rest)/parts
+				ms[i], es[i], _ = b.lanczos(rest[lo:hi], rs[lo:hi], zs[lo:hi], false)
 			}()
 		}
 		wg.Wait()
@@ -444,10 +450,6 @@ func (b *Buckling) certify(mu float64, axial []float64, sc *certifyScratch) (flo
 	return criticalBisect(b.model, axial)
 }
 
-// warmMix is the share of the fixed start mixed into the mode the other
-// sets of axial forces start from.
-const warmMix = 1e-3
-
 // certifyGap is how far below the factor found the stiffness must still
 // be positive definite: within the six figures reported.
 const certifyGap = 1e-6
@@ -484,9 +486,10 @@ func (b *Buckling) definite(lambda float64, axial []float64, sc *certifyScratch)
 // lanczos returns, for each set of axial forces, the largest eigenvalue μ
 // of K⁻¹(−Kg) (0 or less when none is positive), by Lanczos iteration in
 // the K inner product with full reorthogonalization, every set's side by
-// side, from r0 (w0 = K r0). With keep, y is the first set's eigenvector
-// found, K-normalized, and ky = K y.
-func (b *Buckling) lanczos(axials [][]float64, r0, w0 []float64, keep bool) (mus []float64, errs []error, y, ky []float64) {
+// side, set c from r0[c] (w0[c] = K r0[c]; both its own, overwritten:
+// they become its first Lanczos vector). With keep, first is the first
+// set's iteration once its μ is found (nil when it is not).
+func (b *Buckling) lanczos(axials [][]float64, r0, w0 [][]float64, keep bool) (mus []float64, errs []error, first *krylov) {
 	size, k := b.size, len(axials)
 	type recurrence struct {
 		qs, ps      [][]float64 // K-orthonormal q, and p = K q
@@ -498,7 +501,7 @@ func (b *Buckling) lanczos(axials [][]float64, r0, w0 []float64, keep bool) (mus
 	mus, errs = make([]float64, k), make([]error, k)
 	recs := make([]recurrence, k)
 	for c := range recs {
-		recs[c].r, recs[c].w = slices.Clone(r0), slices.Clone(w0)
+		recs[c].r, recs[c].w = r0[c], w0[c]
 	}
 	var active []int
 	var block, out []float64
@@ -524,7 +527,7 @@ func (b *Buckling) lanczos(axials [][]float64, r0, w0 []float64, keep bool) (mus
 					mus[c], _, _ = tridiagTop(rc.alpha, rc.beta, 0)
 					rc.done = true
 					if keep && c == 0 {
-						y, ky = ritzVector(rc.qs, rc.ps, rc.alpha, rc.beta)
+						first = &krylov{rc.qs, rc.ps, rc.alpha, rc.beta}
 					}
 					continue
 				}
@@ -585,13 +588,13 @@ func (b *Buckling) lanczos(axials [][]float64, r0, w0 []float64, keep bool) (mus
 			}
 			if rc.done {
 				if keep && c == 0 && errs[c] == nil {
-					y, ky = ritzVector(rc.qs, rc.ps, rc.alpha, rc.beta)
+					first = &krylov{rc.qs, rc.ps, rc.alpha, rc.beta}
 				}
 				rc.qs, rc.ps = nil, nil
 			}
 		}
 	}
-	return mus, errs, y, ky
+	return mus, errs, first
 }
 
 // ritzVector returns Q s and P s for s the eigenvector of the largest

@@ -216,7 +216,8 @@ func BenchmarkCriticalFactor(b *testing.B) {
 }
 
 // TestBucklingBatch checks that the factors of several sets of axial
-// forces found side by side (the others started from the first's mode)
+// forces found side by side (the others started from their Ritz vectors
+// on the first's Lanczos vectors)
 // are those found one by one, within 1e-7, and
 // that the check a factor passes tells the two sides of it apart: K + λ·Kg
 // positive definite at 0.999 αcr and not at 1.001 αcr (Sylvester's law of

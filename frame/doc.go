@@ -83,7 +83,8 @@
 // (buckling.go, critical.go; the members' pencils, the solves and the
 // check in pencil.go, bucklingsolve.go, bucklingband.go, bandchol.go and
 // certify.go); [NewBuckling] shares the factor of K among many sets of
-// axial forces. It is a pure number.
+// axial forces, the later sets' iterations started from the first set's
+// (bucklingstart.go). It is a pure number.
 //
 // # Failures
 //

@@ -194,27 +194,91 @@ func (p *pencil) build(e *element, st *pencilStore) (k [6][6]float64, ok bool) {
 // condensedAt returns the pencil's K + n·Kg (n the axial force, tension
 // positive) with its own degrees of freedom condensed out, the local
 // stiffness at the nodes; ok is false when the own block of K + n·Kg is
-// not positive definite (its Cholesky factorization fails).
+// not positive definite (its Cholesky factorization fails). It is
+// schurIn's arithmetic on the pencil's blocks, each sum of the node
+// block formed once for both of its places (the two are the same
+// products in the same order): the same numbers, a third of the work.
 func (p *pencil) condensedAt(n float64) (k [6][6]float64, ok bool) {
-	keep := 6 + p.ni
-	_, _, _, kk := p.parts()
-	var a [maxFull][maxFull]float64
-	for i := range keep {
-		copy(a[i][:keep], kk[i*keep:(i+1)*keep])
+	ni := p.ni
+	keep := 6 + ni
+	kk := p.k[:keep*keep]
+	// a = K + n·Kg: the node block, the own rows at the node columns
+	// (lower left) and the own block.
+	var nn [6][6]float64
+	var on [maxOwn][6]float64
+	var oo [maxOwn][maxOwn]float64
+	for i := range 6 {
+		copy(nn[i][:], kk[i*keep:i*keep+6])
+	}
+	for i := range ni {
+		r := kk[(6+i)*keep : (7+i)*keep]
+		copy(on[i][:], r[:6])
+		copy(oo[i][:ni], r[6:])
 	}
 	for _, e := range p.gnz {
 		v := n * e.v
-		a[e.i][e.j] += v
-		if e.i != e.j {
-			a[e.j][e.i] += v
+		i, j := int(e.i), int(e.j)
+		switch {
+		case j < 6: // i ≤ j < 6
+			nn[i][j] += v
+			if i != j {
+				nn[j][i] += v
+			}
+		case i < 6: // a node row, an own column: its mirror is in on
+			on[j-6][i] += v
+		default:
+			oo[i-6][j-6] += v
+			if i != j {
+				oo[j-6][i-6] += v
+			}
 		}
 	}
-	if !schurIn(&a, keep, 6) {
-		return k, false
+	// The own block's Cholesky factor, column by column (schurIn).
+	var l [maxOwn][maxOwn]float64
+	for j := range ni {
+		lj := &l[j]
+		s := oo[j][j]
+		for q := range j {
+			s -= lj[q] * lj[q]
+		}
+		if !(s > 0) {
+			return k, false
+		}
+		d := math.Sqrt(s)
+		lj[j] = d
+		for i := j + 1; i < ni; i++ {
+			li := &l[i]
+			t := oo[i][j]
+			for q := range j {
+				t -= li[q] * lj[q]
+			}
+			li[j] = t / d
+		}
+	}
+	// y[j] = L⁻¹ (column j of the own rows), then the node block less
+	// Σ y[i][q] y[j][q].
+	var y [6][maxOwn]float64
+	for j := range 6 {
+		yj := &y[j]
+		for i := range ni {
+			li := &l[i]
+			s := on[i][j]
+			for q := range i {
+				s -= li[q] * yj[q]
+			}
+			yj[i] = s / li[i]
+		}
 	}
 	for i := range 6 {
-		for j := range 6 {
-			k[i][j] = (a[i][j] + a[j][i]) / 2
+		yi := &y[i]
+		for j := i; j < 6; j++ {
+			yj := &y[j]
+			s := 0.0
+			for q := range ni {
+				s += yi[q] * yj[q]
+			}
+			v := ((nn[i][j] - s) + (nn[j][i] - s)) / 2
+			k[i][j], k[j][i] = v, v
 		}
 	}
 	return k, true

@@ -1,0 +1,60 @@
+//go:build amd64 && !purego
+
+package envelope
+
+// momentRowsAVX forms four stations' rows of a second-order member's
+// table of moments (table.go) with AVX, the stations in the four lanes of
+// one register: for each unit u of nu, at each lane's station,
+//
+//	mm = (a[u] + x·v[u]) + n·((((0 + w1·d1) + w2·d2) + w4·d4) + w5·d5)
+//
+// with d = d[u], each product rounded and then added (no fused
+// multiply-add), the same operations in the same order as the pure-Go
+// loop, so the same numbers to the last bit. It stores mm at rows[l][u]
+// for lane l, and sets out[l] to the sum of the lane's mm over the
+// units, in their order from +0, and out[4+l] to their largest size, NaN
+// left out (+0 for none).
+//
+//go:noescape
+func momentRowsAVX(rows *[4]*float64, a, v *float64, d *[6]float64, nu int, p *momentLanes, out *[8]float64)
+
+// signSumsAVX classifies the units' M at four stations (rows[l][u] for
+// lane l, the table formed by momentRowsAVX) as classify and the sums of
+// scanFolded do, one station to a lane, unit after unit: out[0..2] are
+// the sums of n, v and M over the units whose M is above c's nz, out[3..5]
+// those over the units of neither sign (round-off, NaN included), each
+// in the order of the units from +0 (+0 added for the others, which
+// leaves such a sum as it is); out[6] and out[7] the largest size of M of
+// each sign (+0 for none) and out[8] and out[9] how many units are of
+// each.
+//
+//go:noescape
+func signSumsAVX(rows *[4]*float64, n, v *float64, nu int, c *signConsts, out *[10][4]float64)
+
+// listReachingAVX is listReaching over the first n units of mv (n a
+// multiple of 4), four units compared at once, the few that reach a
+// threshold listed one by one in their order: it returns how many units
+// it listed in r0 and in r1.
+//
+//go:noescape
+func listReachingAVX(mv *float64, n int, t0, t1 float64, r0, r1 *int32) (n0, n1 int)
+
+// cpuid and xgetbv are the instructions of those names.
+func cpuid(eaxArg, ecxArg uint32) (eax, ebx, ecx, edx uint32)
+func xgetbv() (eax, edx uint32)
+
+// hasAVX reports whether the processor and the operating system support
+// AVX: the processor's flags for AVX and OSXSAVE, and the operating
+// system saving the YMM registers (XCR0 bits 1 and 2).
+func hasAVX() bool {
+	_, _, ecx, _ := cpuid(1, 0)
+	if ecx&(1<<27) == 0 || ecx&(1<<28) == 0 {
+		return false
+	}
+	eax, _ := xgetbv()
+	return eax&6 == 6
+}
+
+// useAVX is whether the table of moments is formed by momentRowsAVX;
+// the tests turn it off to compare with the pure-Go loop.
+var useAVX = hasAVX()

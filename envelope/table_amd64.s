@@ -1,0 +1,279 @@
+//go:build amd64 && !purego
+
+#include "textflag.h"
+
+// func momentRowsAVX(rows *[4]*float64, a, v *float64, d *[6]float64, nu int, p *momentLanes, out *[8]float64)
+//
+// p: x at 0, w1 at 32, w2 at 64, w4 at 96, w5 at 128 (four lanes each),
+// n at 160, the mask of a size (every bit but the sign) at 168.
+TEXT ·momentRowsAVX(SB), NOSPLIT, $0-56
+	MOVQ rows+0(FP), AX
+	MOVQ 0(AX), R8
+	MOVQ 8(AX), R9
+	MOVQ 16(AX), R10
+	MOVQ 24(AX), R11
+	MOVQ a+8(FP), SI
+	MOVQ v+16(FP), DI
+	MOVQ d+24(FP), DX
+	MOVQ nu+32(FP), CX
+	MOVQ p+40(FP), AX
+	MOVQ out+48(FP), BX
+	VMOVUPD 0(AX), Y1
+	VMOVUPD 32(AX), Y2
+	VMOVUPD 64(AX), Y3
+	VMOVUPD 96(AX), Y4
+	VMOVUPD 128(AX), Y5
+	VBROADCASTSD 160(AX), Y0
+	VBROADCASTSD 168(AX), Y14
+	VXORPD Y15, Y15, Y15
+	VXORPD Y6, Y6, Y6
+	VXORPD Y7, Y7, Y7
+	XORQ R12, R12
+	TESTQ CX, CX
+	JEQ done
+
+loop:
+	// sw = (((0 + w1·d1) + w2·d2) + w4·d4) + w5·d5
+	VBROADCASTSD 8(DX), Y8
+	VMULPD Y2, Y8, Y8
+	VADDPD Y8, Y15, Y8
+	VBROADCASTSD 16(DX), Y9
+	VMULPD Y3, Y9, Y9
+	VADDPD Y9, Y8, Y8
+	VBROADCASTSD 32(DX), Y9
+	VMULPD Y4, Y9, Y9
+	VADDPD Y9, Y8, Y8
+	VBROADCASTSD 40(DX), Y9
+	VMULPD Y5, Y9, Y9
+	VADDPD Y9, Y8, Y8
+	// mm = (a + x·v) + n·sw
+	VMULPD Y0, Y8, Y8
+	VBROADCASTSD (DI)(R12*8), Y9
+	VMULPD Y1, Y9, Y9
+	VBROADCASTSD (SI)(R12*8), Y10
+	VADDPD Y9, Y10, Y10
+	VADDPD Y8, Y10, Y10
+	// The sum, and the largest size: VMAXPD gives its second source
+	// (the running largest) when the size is NaN.
+	VADDPD Y10, Y6, Y6
+	VANDPD Y14, Y10, Y11
+	VMAXPD Y7, Y11, Y7
+	// Each lane to its station's row.
+	VMOVSD X10, (R8)(R12*8)
+	VMOVHPD X10, (R9)(R12*8)
+	VEXTRACTF128 $1, Y10, X11
+	VMOVSD X11, (R10)(R12*8)
+	VMOVHPD X11, (R11)(R12*8)
+	ADDQ $48, DX
+	INCQ R12
+	CMPQ R12, CX
+	JNE loop
+
+done:
+	VMOVUPD Y6, 0(BX)
+	VMOVUPD Y7, 32(BX)
+	VZEROUPPER
+	RET
+
+// func cpuid(eaxArg, ecxArg uint32) (eax, ebx, ecx, edx uint32)
+TEXT ·cpuid(SB), NOSPLIT, $0-24
+	MOVL eaxArg+0(FP), AX
+	MOVL ecxArg+4(FP), CX
+	CPUID
+	MOVL AX, eax+8(FP)
+	MOVL BX, ebx+12(FP)
+	MOVL CX, ecx+16(FP)
+	MOVL DX, edx+20(FP)
+	RET
+
+// func xgetbv() (eax, edx uint32)
+TEXT ·xgetbv(SB), NOSPLIT, $0-8
+	MOVL $0, CX
+	XGETBV
+	MOVL AX, eax+0(FP)
+	MOVL DX, edx+4(FP)
+	RET
+
+// func signSumsAVX(rows *[4]*float64, n, v *float64, nu int, c *signConsts, out *[10][4]float64)
+//
+// c: nz at 0, −nz at 32, the mask of a size at 64, ones at 96 (four
+// lanes each). out: the positive units' sums of n, v and M, the round-off
+// units' sums of the same, the largest size of the positive and of the
+// negative units, and the counts of each.
+TEXT ·signSumsAVX(SB), NOSPLIT, $0-48
+	MOVQ rows+0(FP), AX
+	MOVQ 0(AX), R8
+	MOVQ 8(AX), R9
+	MOVQ 16(AX), R10
+	MOVQ 24(AX), R11
+	MOVQ n+8(FP), SI
+	MOVQ v+16(FP), DI
+	MOVQ nu+24(FP), CX
+	MOVQ c+32(FP), AX
+	MOVQ out+40(FP), BX
+	VXORPD Y0, Y0, Y0
+	VXORPD Y1, Y1, Y1
+	VXORPD Y2, Y2, Y2
+	VXORPD Y3, Y3, Y3
+	VXORPD Y4, Y4, Y4
+	VXORPD Y5, Y5, Y5
+	VXORPD Y6, Y6, Y6
+	VXORPD Y7, Y7, Y7
+	VXORPD Y8, Y8, Y8
+	VXORPD Y9, Y9, Y9
+	XORQ R12, R12
+	TESTQ CX, CX
+	JEQ sdone
+
+sloop:
+	// The four stations' M of unit u.
+	VMOVSD (R8)(R12*8), X10
+	VMOVHPD (R9)(R12*8), X10, X10
+	VMOVSD (R10)(R12*8), X11
+	VMOVHPD (R11)(R12*8), X11, X11
+	VINSERTF128 $1, X11, Y10, Y10
+	// P: M > nz; N: M < −nz (false for NaN).
+	VCMPPD $0x1e, 0(AX), Y10, Y11
+	VCMPPD $0x11, 32(AX), Y10, Y12
+	VBROADCASTSD (SI)(R12*8), Y13
+	VBROADCASTSD (DI)(R12*8), Y14
+	// The positive units' sums: +0 added for the others.
+	VANDPD Y11, Y13, Y15
+	VADDPD Y15, Y0, Y0
+	VANDPD Y11, Y14, Y15
+	VADDPD Y15, Y1, Y1
+	VANDPD Y11, Y10, Y15
+	VADDPD Y15, Y2, Y2
+	// The counts.
+	VANDPD 96(AX), Y11, Y15
+	VADDPD Y15, Y8, Y8
+	VANDPD 96(AX), Y12, Y15
+	VADDPD Y15, Y9, Y9
+	// The largest sizes.
+	VANDPD 64(AX), Y10, Y15
+	VANDPD Y11, Y15, Y11
+	VMAXPD Y6, Y11, Y6
+	VANDPD Y12, Y15, Y15
+	VMAXPD Y7, Y15, Y7
+	// The round-off units (neither P nor N): their sums.
+	VCMPPD $0x1e, 0(AX), Y10, Y11
+	VORPD Y11, Y12, Y11
+	VANDNPD Y13, Y11, Y15
+	VADDPD Y15, Y3, Y3
+	VANDNPD Y14, Y11, Y15
+	VADDPD Y15, Y4, Y4
+	VANDNPD Y10, Y11, Y15
+	VADDPD Y15, Y5, Y5
+	INCQ R12
+	CMPQ R12, CX
+	JNE sloop
+
+sdone:
+	VMOVUPD Y0, 0(BX)
+	VMOVUPD Y1, 32(BX)
+	VMOVUPD Y2, 64(BX)
+	VMOVUPD Y3, 96(BX)
+	VMOVUPD Y4, 128(BX)
+	VMOVUPD Y5, 160(BX)
+	VMOVUPD Y6, 192(BX)
+	VMOVUPD Y7, 224(BX)
+	VMOVUPD Y8, 256(BX)
+	VMOVUPD Y9, 288(BX)
+	VZEROUPPER
+	RET
+
+// func listReachingAVX(mv *float64, n int, t0, t1 float64, r0, r1 *int32) (n0, n1 int)
+TEXT ·listReachingAVX(SB), NOSPLIT, $0-64
+	MOVQ mv+0(FP), SI
+	MOVQ n+8(FP), CX
+	VBROADCASTSD t0+16(FP), Y4
+	VBROADCASTSD t1+24(FP), Y5
+	VXORPD Y6, Y6, Y6
+	VSUBPD Y5, Y6, Y5
+	MOVQ r0+32(FP), DI
+	MOVQ r1+40(FP), R8
+	XORQ R9, R9
+	XORQ R10, R10
+	XORQ R12, R12
+	TESTQ CX, CX
+	JEQ ldone
+
+lloop:
+	VMOVUPD (SI)(R12*8), Y0
+	// M ≥ t0, and M ≤ −t1 (false for NaN).
+	VCMPPD $0x1d, Y4, Y0, Y1
+	VCMPPD $0x12, Y5, Y0, Y2
+	VORPD Y1, Y2, Y3
+	VMOVMSKPD Y3, AX
+	TESTL AX, AX
+	JNE lsome
+
+lnext:
+	ADDQ $4, R12
+	CMPQ R12, CX
+	JLT lloop
+
+ldone:
+	MOVQ R9, n0+48(FP)
+	MOVQ R10, n1+56(FP)
+	VZEROUPPER
+	RET
+
+lsome:
+	VMOVMSKPD Y1, BX
+	// Lane 0: to r0 if M ≥ t0, else to r1 if M ≤ −t1.
+	MOVQ R12, R13
+	ADDQ $0, R13
+	BTL $0, BX
+	JCC n0
+	MOVL R13, (DI)(R9*4)
+	INCQ R9
+	JMP l1
+n0:
+	BTL $0, AX
+	JCC l1
+	MOVL R13, (R8)(R10*4)
+	INCQ R10
+l1:
+	// Lane 1: to r0 if M ≥ t0, else to r1 if M ≤ −t1.
+	MOVQ R12, R13
+	ADDQ $1, R13
+	BTL $1, BX
+	JCC n1
+	MOVL R13, (DI)(R9*4)
+	INCQ R9
+	JMP l2
+n1:
+	BTL $1, AX
+	JCC l2
+	MOVL R13, (R8)(R10*4)
+	INCQ R10
+l2:
+	// Lane 2: to r0 if M ≥ t0, else to r1 if M ≤ −t1.
+	MOVQ R12, R13
+	ADDQ $2, R13
+	BTL $2, BX
+	JCC n2
+	MOVL R13, (DI)(R9*4)
+	INCQ R9
+	JMP l3
+n2:
+	BTL $2, AX
+	JCC l3
+	MOVL R13, (R8)(R10*4)
+	INCQ R10
+l3:
+	// Lane 3: to r0 if M ≥ t0, else to r1 if M ≤ −t1.
+	MOVQ R12, R13
+	ADDQ $3, R13
+	BTL $3, BX
+	JCC n3
+	MOVL R13, (DI)(R9*4)
+	INCQ R9
+	JMP lnext
+n3:
+	BTL $3, AX
+	JCC lnext
+	MOVL R13, (R8)(R10*4)
+	INCQ R10
+	JMP lnext

@@ -1,0 +1,18 @@
+//go:build !amd64 || purego
+
+package envelope
+
+// useAVX is false: the pure-Go table of moments everywhere.
+var useAVX = false
+
+func momentRowsAVX(rows *[4]*float64, a, v *float64, d *[6]float64, nu int, p *momentLanes, out *[8]float64) {
+	panic("envelope: momentRowsAVX without AVX")
+}
+
+func signSumsAVX(rows *[4]*float64, n, v *float64, nu int, c *signConsts, out *[10][4]float64) {
+	panic("envelope: signSumsAVX without AVX")
+}
+
+func listReachingAVX(mv *float64, n int, t0, t1 float64, r0, r1 *int32) (n0, n1 int) {
+	panic("envelope: listReachingAVX without AVX")
+}
