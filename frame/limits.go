@@ -70,29 +70,45 @@ func checkEquations(mo *Model) error {
 //     again once its live set is formed);
 //   - bandWork band matrices of the solve itself: the stiffness, its
 //     factor, the substitution's lists of the factor's terms (12 bytes an
-//     entry each way: three matrices' worth) and the elastic stiffness's
-//     factor that the critical load factors are found with, made beside
-//     them, six in all, with the heap's growth past them (fitted: 11);
-//     the kb × kb block of the pivot watch while a mechanism is looked
-//     for;
+//     entry each way: three matrices' worth) and, for the critical load
+//     factors, made beside them, the elastic stiffness's factor and its
+//     copy by columns (the forward substitution's), seven in all, with
+//     the heap's growth past them (fitted: 12); the kb × kb block of the
+//     pivot watch while a mechanism is looked for;
 //   - each member's pencil and element of the critical load factors'
-//     search (NewBuckling), made beside the solve: pencilBytes;
+//     search (NewBuckling), made beside the solve: pencilBytes, with its
+//     numbers outside the struct, 8 (ni² + 12 ni + (6 + ni)²) bytes for
+//     ni degrees of freedom of its own (ownDOFs);
 //   - what the caller adds (Options.Held), and baseMemory: the runtime's,
 //     the program's and the model's own (fitted).
 const (
-	bandWork      = 11
+	bandWork      = 12
 	defaultGrowth = 2
 	baseMemory    = 14 << 20
 )
 
 // elementBytes is the memory of one member's element in a solution, and
-// pencilBytes that of its pencil in the critical load factors' search,
-// with the 32 entries of Kg a member with no release lists, and its
-// element there.
+// pencilBytes that of a pencil's struct in the critical load factors'
+// search with the room its store keeps for 48 entries of Kg, and its
+// element there; pencilNumbers adds the numbers of a member with ni
+// degrees of freedom of its own: its own block of K inverted, its own
+// rows and their product (ni² + 12 ni), and K over all its degrees of
+// freedom ((6 + ni)²).
 const (
 	elementBytes = float64(unsafe.Sizeof(element{}))
-	pencilBytes  = float64(unsafe.Sizeof(pencil{})+32*unsafe.Sizeof(gEntry{})) + elementBytes
+	pencilBytes  = float64(unsafe.Sizeof(pencil{})+48*unsafe.Sizeof(gEntry{})) + elementBytes
 )
+
+// pencilNumbers returns the bytes of the numbers of the pencils of mo's
+// members, kept outside their structs (pencil.build).
+func pencilNumbers(mo *Model) float64 {
+	values := 0
+	for m := range mo.Members {
+		ni := ownDOFs(&mo.Members[m])
+		values += ni*ni + 12*ni + (6+ni)*(6+ni)
+	}
+	return 8 * float64(values)
+}
 
 // memory returns the estimated peak memory, in bytes, of solving mo (n
 // equations of half-bandwidth band) with what the caller holds (opt).
@@ -112,7 +128,7 @@ func memory(mo *Model, n, band int, opt Options) float64 {
 		growth = defaultGrowth
 	}
 	est := growth*(float64(max(opt.Solutions, 1))*solution+opt.PerMember*members) +
-		bandWork*matrix + 8*kb*kb + pencilBytes*members + baseMemory
+		bandWork*matrix + 8*kb*kb + pencilBytes*members + pencilNumbers(mo) + baseMemory
 	if opt.Held != nil {
 		est += opt.Held(Info{Equations: n, Bandwidth: band, Columns: len(mo.Cases)})
 	}

@@ -57,6 +57,7 @@ func init() {
 
 func main() {
 	stopOnSignals()
+	limitMemory = setMemoryLimit
 	os.Exit(govern(os.Args[1:], os.Stdout, os.Stderr))
 }
 

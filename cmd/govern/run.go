@@ -217,8 +217,10 @@ func analyse(env *environ, job *modelfile.Job, name, path string, f *runFlags) e
 	if err := report.CheckSize(&job.Job, report.Formats{JSON: f.json != "" || f.out != "", CSV: f.csv != "" || f.out != "", HTML: f.report != "" || f.out != "", Cases: f.casesCSV != "" || f.out != ""}); err != nil {
 		return fmt.Errorf("%s: %w", name, err)
 	}
+	unlimit := limitMemory(&job.Job)
 	p := newProgress(env.stderr, env.name, f.quiet)
 	res, err := analysis.Run(context.Background(), &job.Job, f.options(p))
+	unlimit()
 	if err != nil {
 		p.end()
 		var se *analysis.StaticsError

@@ -13,7 +13,9 @@
 # deflection limit), in first order ("starter") and in second
 # ("starter2"). GOVERN names the command measured (default: one built from
 # this tree). The estimates are printed by the test helper
-# TestPrintMemoryEstimates of cmd/govern.
+# TestPrintMemoryEstimates of cmd/govern. 'govern run' sets the Go
+# runtime's soft memory limit to the estimate unless GOMEMLIMIT is set:
+# GOMEMLIMIT=off measures the run without it.
 #
 # Prints, for each frame: the order, the frame, equations, half-bandwidth,
 # load columns, the estimate and the measured peak (MiB, the median), their

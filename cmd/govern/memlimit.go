@@ -1,0 +1,36 @@
+package main
+
+import (
+	"os"
+	"runtime/debug"
+
+	"govern/envelope/analysis"
+)
+
+// limitMemory is called with the job about to be analysed, and what it
+// returns once the analysis is done. The command (main) sets it to
+// setMemoryLimit; tests, which run many models in one process, leave it
+// doing nothing.
+var limitMemory = func(*analysis.Job) (restore func()) { return func() {} }
+
+// setMemoryLimit sets the Go runtime's soft memory limit to the estimate
+// of job's peak memory (analysis.EstimateMemory, the one frame.MaxMemory
+// refuses a model by), unless GOMEMLIMIT is set, and returns what puts
+// the limit back. The collector then runs before the heap's growth past
+// what is live takes the process past the estimate, where its default
+// target (twice the live heap) would let it run further (docs/errors.md,
+// Limits). The limit is for the analysis only: the estimate does not
+// count writing the report and the CSV files, which with the limit kept
+// would be collected over and over. A job the estimate refuses is left to
+// the analysis to report.
+func setMemoryLimit(job *analysis.Job) (restore func()) {
+	if os.Getenv("GOMEMLIMIT") != "" {
+		return func() {}
+	}
+	est, _, err := analysis.EstimateMemory(job)
+	if err != nil || est <= 0 {
+		return func() {}
+	}
+	old := debug.SetMemoryLimit(int64(est))
+	return func() { debug.SetMemoryLimit(old) }
+}
