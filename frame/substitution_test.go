@@ -30,19 +30,7 @@ func TestSubstitutionIsTheReferenceToTheLastBit(t *testing.T) {
 	// 6 and 7 (the narrow widths of an iteration).
 	for _, size := range []struct{ bays, storeys int }{{6, 5}, {3, 12}, {8, 9}, {2, 3}, {7, 1}} {
 		mo := pieceFrame(size.bays, size.storeys)
-		order := rcmOrder(adjacency(mo))
-		dof, n, band := dofMap(mo, order, releasedRotations(mo))
-		sol := &Solution{model: mo, dof: dof, elems: make([]element, len(mo.Members))}
-		for m := range mo.Members {
-			sol.elems[m] = newElement(mo, m)
-		}
-		sol.indexLoads()
-		kb := min(band, n-1)
-		a := blas64.SymmetricBand{Uplo: blas.Upper, N: n, K: kb, Data: sol.assemble(n, kb), Stride: kb + 1}
-		u, ok := lapack64.Pbtrf(a)
-		if !ok {
-			t.Fatal("not positive definite")
-		}
+		sol, u, n, kb := factorPieces(t, mo)
 		nc := len(mo.Cases)
 		rhs := sol.rhs(n)
 		want := append([]float64(nil), rhs...)
@@ -165,18 +153,7 @@ func TestColumnSubstitutionIsBandSolve(t *testing.T) {
 	rng := rand.New(rand.NewPCG(3, 0))
 	for _, size := range []struct{ bays, storeys int }{{6, 5}, {3, 12}, {2, 3}, {7, 1}} {
 		mo := pieceFrame(size.bays, size.storeys)
-		order := rcmOrder(adjacency(mo))
-		dof, n, band := dofMap(mo, order, releasedRotations(mo))
-		sol := &Solution{model: mo, dof: dof, elems: make([]element, len(mo.Members))}
-		for m := range mo.Members {
-			sol.elems[m] = newElement(mo, m)
-		}
-		kb := min(band, n-1)
-		a := blas64.SymmetricBand{Uplo: blas.Upper, N: n, K: kb, Data: sol.assemble(n, kb), Stride: kb + 1}
-		u, ok := lapack64.Pbtrf(a)
-		if !ok {
-			t.Fatal("not positive definite")
-		}
+		_, u, n, kb := factorPieces(t, mo)
 		full := make([]float64, n)
 		for i := range full {
 			full[i] = rng.Float64() - 0.5
@@ -225,19 +202,7 @@ func TestOneColumnIsTheBlockedSolveToTheLastBit(t *testing.T) {
 	for _, size := range []struct{ bays, storeys int }{{6, 5}, {3, 12}, {2, 3}} {
 		t.Run(fmt.Sprintf("%dx%d", size.bays, size.storeys), func(t *testing.T) {
 			mo := pieceFrame(size.bays, size.storeys)
-			order := rcmOrder(adjacency(mo))
-			dof, n, band := dofMap(mo, order, releasedRotations(mo))
-			sol := &Solution{model: mo, dof: dof, elems: make([]element, len(mo.Members))}
-			for m := range mo.Members {
-				sol.elems[m] = newElement(mo, m)
-			}
-			sol.indexLoads()
-			kb := min(band, n-1)
-			a := blas64.SymmetricBand{Uplo: blas.Upper, N: n, K: kb, Data: sol.assemble(n, kb), Stride: kb + 1}
-			u, ok := lapack64.Pbtrf(a)
-			if !ok {
-				t.Fatal("not positive definite")
-			}
+			sol, u, n, kb := factorPieces(t, mo)
 			nc := len(mo.Cases)
 			rhs := sol.rhs(n)
 			d := make([]float64, n)
@@ -276,19 +241,7 @@ func TestOneColumnIsTheBlockedSolveToTheLastBit(t *testing.T) {
 // one processor or two.
 func TestSubstitutionReportsNonFinite(t *testing.T) {
 	mo := pieceFrame(6, 6) // 36 columns: a whole block and a partial one
-	order := rcmOrder(adjacency(mo))
-	dof, n, band := dofMap(mo, order, releasedRotations(mo))
-	sol := &Solution{model: mo, dof: dof, elems: make([]element, len(mo.Members))}
-	for m := range mo.Members {
-		sol.elems[m] = newElement(mo, m)
-	}
-	sol.indexLoads()
-	kb := min(band, n-1)
-	a := blas64.SymmetricBand{Uplo: blas.Upper, N: n, K: kb, Data: sol.assemble(n, kb), Stride: kb + 1}
-	u, ok := lapack64.Pbtrf(a)
-	if !ok {
-		t.Fatal("not positive definite")
-	}
+	sol, u, n, kb := factorPieces(t, mo)
 	nc := len(mo.Cases)
 	rhs := sol.rhs(n)
 	d := make([]float64, n)
@@ -334,4 +287,27 @@ func TestSubstitutionReportsNonFinite(t *testing.T) {
 			})
 		}
 	}
+}
+
+// factorPieces numbers mo as a solve does (reverse Cuthill–McKee), forms
+// its elements and loads, and returns the solution so far with the band
+// Cholesky factor of its stiffness (gonum's dpbtrf), n equations and kb
+// superdiagonals.
+func factorPieces(t *testing.T, mo *Model) (sol *Solution, u blas64.TriangularBand, n, kb int) {
+	t.Helper()
+	order := rcmOrder(adjacency(mo))
+	dof, n, band := dofMap(mo, order, releasedRotations(mo))
+	sol = &Solution{model: mo, dof: dof, elems: make([]element, len(mo.Members))}
+	for m := range mo.Members {
+		sol.elems[m] = newElement(mo, m)
+	}
+	sol.indexLoads()
+	kb = min(band, n-1)
+	a := blas64.SymmetricBand{Uplo: blas.Upper, N: n, K: kb, Data: sol.assemble(n, kb), Stride: kb + 1}
+	var ok bool
+	u, ok = lapack64.Pbtrf(a)
+	if !ok {
+		t.Fatal("not positive definite")
+	}
+	return sol, u, n, kb
 }
