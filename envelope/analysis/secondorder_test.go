@@ -394,22 +394,7 @@ func leaveOutThePieces(t *testing.T, mode patterns.Mode) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	for _, c := range []struct {
-		what      string
-		got, want any
-	}{
-		{"members", got.Envelope.Members, want.Envelope.Members},
-		{"reactions", got.Envelope.Reactions, want.Envelope.Reactions},
-		{"combinations", got.Combinations, want.Combinations},
-		{"node displacements", got.Displacements, want.Displacements},
-		{"storeys", got.Storeys, want.Storeys},
-		{"amplifications", got.Amplifications, want.Amplifications},
-		{"warnings", got.Warnings, want.Warnings},
-	} {
-		if !reflect.DeepEqual(c.got, c.want) {
-			t.Errorf("%s differ with the pieces left out", c.what)
-		}
-	}
+	sameResults(t, got, want, "with the pieces left out")
 }
 
 // inclinedJob is a cantilever of length 4 inclined at 30°, E = 200e6,
@@ -532,22 +517,30 @@ func TestSecondOrderSharedFactorsChangeNothing(t *testing.T) {
 			if err != nil {
 				t.Fatal(err)
 			}
-			for _, c := range []struct {
-				what      string
-				got, want any
-			}{
-				{"members", got.Envelope.Members, want.Envelope.Members},
-				{"reactions", got.Envelope.Reactions, want.Envelope.Reactions},
-				{"combinations", got.Combinations, want.Combinations},
-				{"node displacements", got.Displacements, want.Displacements},
-				{"storeys", got.Storeys, want.Storeys},
-				{"amplifications", got.Amplifications, want.Amplifications},
-				{"warnings", got.Warnings, want.Warnings},
-			} {
-				if !reflect.DeepEqual(c.got, c.want) {
-					t.Errorf("%s differ on shared factors", c.what)
-				}
-			}
+			sameResults(t, got, want, "on shared factors")
 		})
+	}
+}
+
+// sameResults reports each part of got that is not deeply equal to want's
+// (members, reactions, combinations, node displacements, storeys,
+// amplifications, warnings), saying how got was found: "differ " + why.
+func sameResults(t *testing.T, got, want *Result, why string) {
+	t.Helper()
+	for _, c := range []struct {
+		what      string
+		got, want any
+	}{
+		{"members", got.Envelope.Members, want.Envelope.Members},
+		{"reactions", got.Envelope.Reactions, want.Envelope.Reactions},
+		{"combinations", got.Combinations, want.Combinations},
+		{"node displacements", got.Displacements, want.Displacements},
+		{"storeys", got.Storeys, want.Storeys},
+		{"amplifications", got.Amplifications, want.Amplifications},
+		{"warnings", got.Warnings, want.Warnings},
+	} {
+		if !reflect.DeepEqual(c.got, c.want) {
+			t.Errorf("%s differ %s", c.what, why)
+		}
 	}
 }
