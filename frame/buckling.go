@@ -253,19 +253,8 @@ func (p *pencil) mulKg4(y, x []float64, k, c int, nm [4]float64) {
 		return
 	}
 	var z [maxKeep][4]float64
-	for n := 0; n < 6; n += 3 {
-		var g [3][4]float64
-		for i := range 3 {
-			if e := p.gdof[n+i]; e >= 0 {
-				copy(g[i][:], x[e*k+c:e*k+c+4])
-			}
-		}
-		for cc := range 4 {
-			z[n][cc] = p.c*g[0][cc] + p.s*g[1][cc]
-			z[n+1][cc] = -p.s*g[0][cc] + p.c*g[1][cc]
-			z[n+2][cc] = g[2][cc]
-		}
-	}
+	l := p.local4(x, k, c)
+	copy(z[:6], l[:])
 	for i := range p.ni {
 		copy(z[6+i][:], x[(p.off+i)*k+c:(p.off+i)*k+c+4])
 	}

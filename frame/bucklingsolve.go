@@ -136,20 +136,7 @@ func (p *pencil) eliminate1(x []float64, k, c int) {
 func (p *pencil) recover4(x []float64, k, c int) {
 	ni := p.ni
 	_, _, w, _ := p.parts()
-	var l [6][4]float64
-	for n := 0; n < 6; n += 3 {
-		var g [3][4]float64
-		for i := range 3 {
-			if e := p.gdof[n+i]; e >= 0 {
-				copy(g[i][:], x[e*k+c:e*k+c+4])
-			}
-		}
-		for cc := range 4 {
-			l[n][cc] = p.c*g[0][cc] + p.s*g[1][cc]
-			l[n+1][cc] = -p.s*g[0][cc] + p.c*g[1][cc]
-			l[n+2][cc] = g[2][cc]
-		}
-	}
+	l := p.local4(x, k, c)
 	i := 0
 	for ; i+1 < ni; i += 2 {
 		var s, u [4]float64
@@ -287,4 +274,25 @@ func updateDot(r, w, q, p, next []float64, a float64) float64 {
 		}
 	}
 	return (s0 + s1) + (s2 + s3)
+}
+
+// local4 is pencil.local for columns c to c+3 of the block x (k
+// columns): the member's node degrees of freedom in local axes, one row a
+// degree of freedom, one entry a column.
+func (p *pencil) local4(x []float64, k, c int) [6][4]float64 {
+	var l [6][4]float64
+	for n := 0; n < 6; n += 3 {
+		var g [3][4]float64
+		for i := range 3 {
+			if e := p.gdof[n+i]; e >= 0 {
+				copy(g[i][:], x[e*k+c:e*k+c+4])
+			}
+		}
+		for cc := range 4 {
+			l[n][cc] = p.c*g[0][cc] + p.s*g[1][cc]
+			l[n+1][cc] = -p.s*g[0][cc] + p.c*g[1][cc]
+			l[n+2][cc] = g[2][cc]
+		}
+	}
+	return l
 }
