@@ -357,28 +357,7 @@ func (f *fold) load(e *evaluator, w *work, sol *frame.Solution, m int) {
 			fc.tot = grow(fc.tot, ns)
 			bm, fc.summed = momentTable(fc.mt, fc.tot, w.xs, f.wts, f.n, an, av, au, bm)
 		} else {
-			for i, x := range w.xs {
-				wi := &f.wts[i]
-				w0, w1, w2, w3, w4, w5 := wi[0], wi[1], wi[2], wi[3], wi[4], wi[5]
-				row := fc.mt[i*nu : (i+1)*nu]
-				for u := range row {
-					d := &au[u]
-					sw := 0.0
-					sw += w0 * d[0]
-					sw += w1 * d[1]
-					sw += w2 * d[2]
-					sw += w3 * d[3]
-					sw += w4 * d[4]
-					sw += w5 * d[5]
-					mm := (an[u] + x*av[u]) + f.n*sw
-					row[u] = mm
-					if mm > bm {
-						bm = mm
-					} else if -mm > bm {
-						bm = -mm
-					}
-				}
-			}
+			bm = momentTableGo(fc.mt, w.xs, f.wts, f.n, an, av, au, bm)
 		}
 		big[2] = bm
 		for k, u := range fc.own {

@@ -73,19 +73,24 @@ func momentTable(mt, tot, xs []float64, wts [][6]float64, n float64, a, v []floa
 	return momentTableGo(mt, xs, wts, n, a, v, d, bm), false
 }
 
-// momentTableGo is momentTable in pure Go, without the sums.
+// momentTableGo is momentTable in pure Go, without the sums, for any
+// weights: the terms of weights 0 and 3 are ±0 where those are zero (d
+// finite), and leave a sum begun at +0 as it is, so that the numbers are
+// those of momentTable's four terms.
 func momentTableGo(mt, xs []float64, wts [][6]float64, n float64, a, v []float64, d [][6]float64, bm float64) float64 {
 	nu := len(a)
 	v, d = v[:nu], d[:nu]
 	for i, x := range xs {
 		wi := &wts[i]
-		w1, w2, w4, w5 := wi[1], wi[2], wi[4], wi[5]
+		w0, w1, w2, w3, w4, w5 := wi[0], wi[1], wi[2], wi[3], wi[4], wi[5]
 		row := mt[i*nu : (i+1)*nu]
 		for u := range row {
 			du := &d[u]
 			sw := 0.0
+			sw += w0 * du[0]
 			sw += w1 * du[1]
 			sw += w2 * du[2]
+			sw += w3 * du[3]
 			sw += w4 * du[4]
 			sw += w5 * du[5]
 			mm := (a[u] + x*v[u]) + n*sw
