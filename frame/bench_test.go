@@ -24,8 +24,10 @@ func pieceFrame(bays, storeys int) *Model {
 	return mo
 }
 
-// prepared returns the pieces of Solve up to the factorization.
-func prepared(b *testing.B, mo *Model) (sol *Solution, data []float64, n, kb int) {
+// prepared returns the pieces of Solve up to the factorization: the
+// solution with its numbering, elements and loads, and the assembled band
+// (n equations, kb superdiagonals).
+func prepared(_ testing.TB, mo *Model) (sol *Solution, data []float64, n, kb int) {
 	order := rcmOrder(adjacency(mo))
 	dof, n, band := dofMap(mo, order, releasedRotations(mo))
 	sol = &Solution{model: mo, dof: dof, elems: make([]element, len(mo.Members))}
@@ -93,15 +95,7 @@ func BenchmarkMultiColumnSolve(b *testing.B) {
 func TestRowMajorSolveMatchesGonum(t *testing.T) {
 	// The same system solved both ways agrees to round-off.
 	mo := pieceFrame(6, 5)
-	order := rcmOrder(adjacency(mo))
-	dof, n, band := dofMap(mo, order, releasedRotations(mo))
-	sol := &Solution{model: mo, dof: dof, elems: make([]element, len(mo.Members))}
-	for m := range mo.Members {
-		sol.elems[m] = newElement(mo, m)
-	}
-	sol.indexLoads()
-	kb := min(band, n-1)
-	data := sol.assemble(n, kb)
+	sol, data, n, kb := prepared(t, mo)
 	nc := len(mo.Cases)
 	rhs := sol.rhs(n)
 	var ch mat.BandCholesky

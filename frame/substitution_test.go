@@ -289,21 +289,13 @@ func TestSubstitutionReportsNonFinite(t *testing.T) {
 	}
 }
 
-// factorPieces numbers mo as a solve does (reverse Cuthill–McKee), forms
-// its elements and loads, and returns the solution so far with the band
-// Cholesky factor of its stiffness (gonum's dpbtrf), n equations and kb
-// superdiagonals.
+// factorPieces returns the pieces of Solve for mo up to the
+// factorization (prepared) with the band Cholesky factor of its stiffness
+// (gonum's dpbtrf), n equations and kb superdiagonals.
 func factorPieces(t *testing.T, mo *Model) (sol *Solution, u blas64.TriangularBand, n, kb int) {
 	t.Helper()
-	order := rcmOrder(adjacency(mo))
-	dof, n, band := dofMap(mo, order, releasedRotations(mo))
-	sol = &Solution{model: mo, dof: dof, elems: make([]element, len(mo.Members))}
-	for m := range mo.Members {
-		sol.elems[m] = newElement(mo, m)
-	}
-	sol.indexLoads()
-	kb = min(band, n-1)
-	a := blas64.SymmetricBand{Uplo: blas.Upper, N: n, K: kb, Data: sol.assemble(n, kb), Stride: kb + 1}
+	sol, data, n, kb := prepared(t, mo)
+	a := blas64.SymmetricBand{Uplo: blas.Upper, N: n, K: kb, Data: data, Stride: kb + 1}
 	var ok bool
 	u, ok = lapack64.Pbtrf(a)
 	if !ok {
