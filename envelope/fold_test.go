@@ -46,9 +46,17 @@ func TestFoldedEqualsUnfolded(t *testing.T) {
 }
 
 // foldFrame is the frame of TestFoldedEqualsUnfolded, with its releases,
-// rigid end zones and spring in second order.
+// rigid end zones and spring in second order, a beam drawn right to left
+// (b3-2) and the top right node raised 0.6 m (the last roof beam sloping,
+// the column under it longer).
 func foldFrame(second bool) *frame.Model {
 	mo := regularFrame(6, 5)
+	for m := range mo.Members {
+		if mem := &mo.Members[m]; mem.Name == "b3-2" {
+			mem.Start, mem.End = mem.End, mem.Start
+		}
+	}
+	mo.Nodes[len(mo.Nodes)-1].Y += 0.6
 	d := &mo.Cases[0]
 	for m, mem := range mo.Members {
 		if mo.Nodes[mem.Start].X == mo.Nodes[mem.End].X { // a column
