@@ -136,6 +136,10 @@ type foldCase struct {
 	// station (mt[i*len(n)+u]; zero for the units that load the member).
 	u  [][6]float64
 	mt []float64
+	// In first order, with AVX, mt holds every unit's M = M₀ + x·V at
+	// every station too (firstTable). tabled is whether mt holds the
+	// table.
+	tabled bool
 	// When summed, tot[i] is the sum of row i of mt over the units, in
 	// their order from +0, as classify forms it (table.go).
 	tot    []float64
@@ -291,6 +295,17 @@ func (f *fold) load(e *evaluator, w *work, sol *frame.Solution, m int) {
 				see(frame.Forces{N: fc.n[u], V: fc.v[u], M: a})
 				see(frame.Forces{M: a + l*fc.v[u]})
 			}
+			// With AVX, M at every station into the table, and each
+			// station's sum (firstTable): the numbers scanFolded forms
+			// otherwise, to the last bit. The units that load the member
+			// have M₀ = V = 0: +0 at every station (x ≥ 0), which leaves
+			// the sums as they are.
+			fc.tabled, fc.summed = false, false
+			if useAVX && anyUses(parts, p) {
+				fc.mt, fc.tot = grow(fc.mt, ns*nu), grow(fc.tot, ns)
+				fc.summed = firstTable(fc.mt, fc.tot, w.xs, fc.a[:nu], fc.v[:nu])
+				fc.tabled = fc.summed
+			}
 			continue
 		}
 		// Second order: M at every station, as StationsTo forms it. The
@@ -340,7 +355,7 @@ func (f *fold) load(e *evaluator, w *work, sol *frame.Solution, m int) {
 			}
 			continue
 		}
-		fc.mt = grow(fc.mt, ns*nu)
+		fc.mt, fc.tabled = grow(fc.mt, ns*nu), true
 		// Station by station (momentTable, table.go), the weights held:
 		// the same sums, in the same order, as frame.Sway. The weights of
 		// the nodes' axial
@@ -708,7 +723,7 @@ func (pl *exactPlacement) scanFolded(e *evaluator, w *work, f *fold, i, k int, r
 		// first so that the threshold for ranking is seeded with them.
 		var mv []float64
 		nu := len(fc.n)
-		if f.second {
+		if fc.tabled {
 			mv = fc.mt[i*nu : (i+1)*nu]
 			if scaled {
 				f.mv = grow(f.mv, nu)
@@ -732,10 +747,11 @@ func (pl *exactPlacement) scanFolded(e *evaluator, w *work, f *fold, i, k int, r
 			}
 		}
 		nz := w.noise[2]
-		// In second order, unscaled, with AVX, the sums, largest sizes and
-		// counts by sign were formed four stations at once (signsOf), and
-		// only the units the ranking may keep are listed, below.
-		fast := f.second && !scaled && fc.signed
+		// Unscaled, with AVX, the sums, largest sizes and counts by sign
+		// were formed four stations at once (signsOf, from the table of
+		// either order), and only the units the ranking may keep are
+		// listed, below.
+		fast := !scaled && fc.signed
 		// The seed of the ranking (keptAt, see below) from the units the
 		// list kept at the previous station, or at the member's first
 		// station at the last station of the member enveloped before with

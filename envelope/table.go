@@ -155,3 +155,31 @@ func signsOf(sg []stationSigns, mt, n, v []float64, nz float64) {
 		}
 	}
 }
+
+// firstTable sets mt[i*nu+u], nu = len(a), to unit u's M = a[u] + xs[i]·v[u]
+// at station i of a first-order member (a and v the units' M₀ and V), and
+// tot[i] to the sum of row i over the units, in their order from +0,
+// four stations at once with AVX (firstRowsAVX): the numbers scanFolded's
+// loop forms station by station, to the last bit. It reports whether it
+// formed them: not without AVX, nor for no unit.
+func firstTable(mt, tot, xs, a, v []float64) bool {
+	nu, ns := len(a), len(xs)
+	if !useAVX || nu == 0 || ns == 0 {
+		return false
+	}
+	v, mt, tot = v[:nu], mt[:ns*nu], tot[:ns]
+	var rows [4]*float64
+	var x, out [4]float64
+	for i0 := 0; i0 < ns; i0 += 4 {
+		// A last group of fewer than four repeats its last station: the
+		// same numbers, written twice to the same row.
+		for l := range 4 {
+			i := min(i0+l, ns-1)
+			x[l] = xs[i]
+			rows[l] = &mt[i*nu]
+		}
+		firstRowsAVX(&rows, &a[0], &v[0], nu, &x, &out)
+		copy(tot[i0:min(i0+4, ns)], out[:])
+	}
+	return true
+}

@@ -39,6 +39,20 @@ func signSumsAVX(rows *[4]*float64, n, v *float64, nu int, c *signConsts, out *[
 //go:noescape
 func listReachingAVX(mv *float64, n int, t0, t1 float64, r0, r1 *int32) (n0, n1 int)
 
+// firstRowsAVX forms four stations' rows of a first-order member's table
+// of moments (table.go) with AVX, the stations in the four lanes of one
+// register: for each unit u of nu, at each lane's station x[l],
+//
+//	mm = a[u] + x[l]·v[u]
+//
+// the product rounded and then added (no fused multiply-add), as the
+// pure-Go loop of scanFolded, so the same numbers to the last bit. It
+// stores mm at rows[l][u] and sets out[l] to the sum of the lane's mm
+// over the units, in their order from +0.
+//
+//go:noescape
+func firstRowsAVX(rows *[4]*float64, a, v *float64, nu int, x *[4]float64, out *[4]float64)
+
 // cpuid and xgetbv are the instructions of those names.
 func cpuid(eaxArg, ecxArg uint32) (eax, ebx, ecx, edx uint32)
 func xgetbv() (eax, edx uint32)
@@ -55,6 +69,10 @@ func hasAVX() bool {
 	return eax&6 == 6
 }
 
-// useAVX is whether the table of moments is formed by momentRowsAVX;
-// the tests turn it off to compare with the pure-Go loop.
-var useAVX = hasAVX()
+// useAVX is whether the tables of moments are formed by momentRowsAVX
+// and firstRowsAVX; the tests turn it off to compare with the pure-Go
+// loops. Not where the compiler fuses a product and a sum into one
+// multiply-add (goFuses): the kernels round each product, so their
+// numbers would no longer be those of the pure-Go loops, nor those of
+// frame's stations.
+var useAVX = hasAVX() && !goFuses

@@ -75,6 +75,47 @@ done:
 	VZEROUPPER
 	RET
 
+// func firstRowsAVX(rows *[4]*float64, a, v *float64, nu int, x *[4]float64, out *[4]float64)
+TEXT ·firstRowsAVX(SB), NOSPLIT, $0-48
+	MOVQ rows+0(FP), AX
+	MOVQ 0(AX), R8
+	MOVQ 8(AX), R9
+	MOVQ 16(AX), R10
+	MOVQ 24(AX), R11
+	MOVQ a+8(FP), SI
+	MOVQ v+16(FP), DI
+	MOVQ nu+24(FP), CX
+	MOVQ x+32(FP), AX
+	MOVQ out+40(FP), BX
+	VMOVUPD 0(AX), Y1
+	VXORPD Y6, Y6, Y6
+	XORQ R12, R12
+	TESTQ CX, CX
+	JEQ fdone
+
+floop:
+	// mm = a + x·v, the product rounded, then added.
+	VBROADCASTSD (DI)(R12*8), Y9
+	VMULPD Y1, Y9, Y9
+	VBROADCASTSD (SI)(R12*8), Y10
+	VADDPD Y9, Y10, Y10
+	// The sum.
+	VADDPD Y10, Y6, Y6
+	// Each lane to its station's row.
+	VMOVSD X10, (R8)(R12*8)
+	VMOVHPD X10, (R9)(R12*8)
+	VEXTRACTF128 $1, Y10, X11
+	VMOVSD X11, (R10)(R12*8)
+	VMOVHPD X11, (R11)(R12*8)
+	INCQ R12
+	CMPQ R12, CX
+	JNE floop
+
+fdone:
+	VMOVUPD Y6, 0(BX)
+	VZEROUPPER
+	RET
+
 // func cpuid(eaxArg, ecxArg uint32) (eax, ebx, ecx, edx uint32)
 TEXT ·cpuid(SB), NOSPLIT, $0-24
 	MOVL eaxArg+0(FP), AX

@@ -1,0 +1,199 @@
+package envelope
+
+import (
+	"fmt"
+	"math"
+	"math/rand/v2"
+	"reflect"
+	"runtime"
+	"testing"
+
+	"govern/combos"
+	"govern/frame"
+)
+
+// TestFirstTableIsDirect checks the table of first-order moments
+// (firstTable, four stations at once with AVX) against each unit's M
+// formed one station at a time as scanFolded's pure-Go loop forms it,
+// a + x·v (the product rounded, then added), and each row's sum of the
+// units in their order from +0 against the sum classify forms: the same
+// numbers to the last bit, no tolerance. The data are random (fixed
+// seed), with zeros of either sign, repeated values, sizes from 1e-300
+// to 1e300, infinities and NaN; the counts of stations cover groups of
+// four with every remainder.
+func TestFirstTableIsDirect(t *testing.T) {
+	if !hasAVXHere() {
+		t.Skip("no AVX")
+	}
+	rng := rand.New(rand.NewPCG(17, 23))
+	num := func() float64 {
+		switch rng.IntN(10) {
+		case 0:
+			return 0
+		case 1:
+			return math.Copysign(0, -1)
+		case 2:
+			return 1.5
+		case 3:
+			return math.Ldexp(rng.NormFloat64(), rng.IntN(1990)-995)
+		case 4:
+			if rng.IntN(20) == 0 {
+				return math.Inf(1 - 2*rng.IntN(2))
+			}
+		case 5:
+			if rng.IntN(20) == 0 {
+				return math.NaN()
+			}
+		}
+		return rng.NormFloat64() * 100
+	}
+	for _, ns := range []int{1, 2, 3, 4, 5, 7, 8, 11, 13} {
+		for _, nu := range []int{1, 2, 3, 17, 200} {
+			t.Run(fmt.Sprintf("%d stations, %d units", ns, nu), func(t *testing.T) {
+				xs := make([]float64, ns)
+				for i := range xs {
+					xs[i] = float64(i) * 0.7 * (1 + rng.Float64()/100)
+				}
+				a, v := make([]float64, nu), make([]float64, nu)
+				for u := range nu {
+					a[u], v[u] = num(), num()
+				}
+				mt, tot := make([]float64, ns*nu), make([]float64, ns)
+				if !firstTable(mt, tot, xs, a, v) {
+					t.Fatal("firstTable formed no table with AVX")
+				}
+				pos, neg, zer := make([]int32, nu), make([]int32, nu), make([]int32, nu)
+				mv := make([]float64, nu)
+				for i, x := range xs {
+					for u := range nu {
+						mv[u] = a[u] + x*v[u]
+					}
+					if !sameBits(mt[i*nu:(i+1)*nu], mv) {
+						t.Errorf("station %d: the table differs from the direct M", i)
+					}
+					m0, _, _, _ := classify(mv, 1, pos, neg, zer)
+					if math.Float64bits(tot[i]) != math.Float64bits(m0) {
+						t.Errorf("station %d: sum %v, want %v", i, tot[i], m0)
+					}
+				}
+			})
+		}
+	}
+	t.Run("no units, no table", func(t *testing.T) {
+		if firstTable(nil, make([]float64, 3), []float64{0, 1, 2}, nil, nil) {
+			t.Error("firstTable reported a table of no units")
+		}
+	})
+	t.Run("without AVX, no table", func(t *testing.T) {
+		defer func(v bool) { useAVX = v }(useAVX)
+		useAVX = false
+		if firstTable(make([]float64, 3), make([]float64, 3), []float64{0, 1, 2}, []float64{1}, []float64{2}) {
+			t.Error("firstTable reported a table without AVX")
+		}
+	})
+}
+
+// oddFrame is a small patterned frame of the shapes a member can take:
+// regularFrame(4, 3) with a beam drawn right to left (b2-2), the top
+// right node raised 0.6 m (the last roof beam sloping, the column under
+// it longer), a beam hinged at its start (b1-1) and one at its end
+// (b4-3), a cantilever of 2.5 m off the right of the second floor drawn
+// from its tip, carrying D and L (one more pattern piece) with a point
+// load at its tip, the columns' own weight along them and a point load
+// at a column's start (D).
+func oddFrame() *frame.Model {
+	mo := regularFrame(4, 3)
+	for m := range mo.Members {
+		switch mem := &mo.Members[m]; mem.Name {
+		case "b2-2":
+			mem.Start, mem.End = mem.End, mem.Start
+		case "b1-1":
+			mem.Release = frame.ReleaseStart
+		case "b4-3":
+			mem.Release = frame.ReleaseEnd
+		}
+	}
+	mo.Nodes[len(mo.Nodes)-1].Y += 0.6
+	at := 2*5 + 4 // node n4-2
+	mo.Nodes = append(mo.Nodes, frame.Node{Name: "tip", X: mo.Nodes[at].X + 2.5, Y: mo.Nodes[at].Y})
+	c := len(mo.Members)
+	mo.Members = append(mo.Members, frame.Member{Name: "cantilever", Start: len(mo.Nodes) - 1, End: at, Section: 1})
+	d, l := &mo.Cases[0], &mo.Cases[1]
+	d.MemberLoads = append(d.MemberLoads, frame.MemberLoad{Member: c, To: 2.5, W: 25, WEnd: 25},
+		frame.MemberLoad{Member: c, Point: true, At: 0, P: 8})
+	l.MemberLoads = append(l.MemberLoads, frame.MemberLoad{Member: c, To: 2.5, W: 15, WEnd: 15})
+	for m, mem := range mo.Members {
+		if mo.Nodes[mem.Start].X == mo.Nodes[mem.End].X { // a column
+			d.MemberLoads = append(d.MemberLoads, frame.MemberLoad{Member: m, Direction: frame.Gravity, To: mo.Length(m), W: 4, WEnd: 4})
+		}
+	}
+	d.MemberLoads = append(d.MemberLoads, frame.MemberLoad{Member: 0, Point: true, At: 0, P: 30})
+	return mo
+}
+
+// TestFirstOrderWithAndWithoutAVX holds the first-order envelope of a
+// patterned frame whose folded members' moments are tabled with AVX
+// (firstTable, then signsOf and listReaching) to the one formed by the
+// pure-Go loop of scanFolded, station by station (classify, the sums and
+// the ranking of every listed unit): every number to the last bit and
+// every list the same, on foldFrame and oddFrame, with one and two
+// pieces per beam, without and with member factors (foldFactors, which
+// also make the envelope be formed in parts), with a service combination
+// (deflections) and on one and two cores. It also checks that the table
+// was used: the units of every used patterned case of every folded
+// member signed from it.
+func TestFirstOrderWithAndWithoutAVX(t *testing.T) {
+	if !hasAVXHere() {
+		t.Skip("no AVX")
+	}
+	for _, shape := range []string{"foldFrame", "oddFrame"} {
+		for _, segments := range []int{1, 2} {
+			for _, factors := range []bool{false, true} {
+				for _, procs := range []int{1, 2} {
+					t.Run(fmt.Sprintf("%s/segments=%d/factors=%v/GOMAXPROCS=%d", shape, segments, factors, procs), func(t *testing.T) {
+						defer runtime.GOMAXPROCS(runtime.GOMAXPROCS(procs))
+						mo := oddFrame()
+						if shape == "foldFrame" {
+							mo = foldFrame(false)
+						}
+						sol, lay := solvePatterned(t, mo, segments, false)
+						cs := append(frameCombos(), combos.Combination{Name: "D+L", Service: true, Terms: []combos.Term{{Case: 0, Factor: 1}, {Case: 1, Factor: 1}}})
+						set := Settings{Kinds: kindsOf(sol, lay), Stations: 11, Extra: [][]float64{nil, {0.4, 1.7}}}
+						if factors {
+							set.Factors = foldFactors(mo)
+						}
+						with, err := Compute(sol, cs, set, lay)
+						if err != nil {
+							t.Fatal(err)
+						}
+						// The table was formed and signed.
+						strength, _ := split(cs)
+						e := newEvaluator(sol.Model(), cs, strength, 3, set, lay)
+						w := e.scratch()
+						for m := range mo.Members {
+							w.stations(mo.Length(m), set.Stations, nil)
+							if _, ok := e.foldable(w, sol, m); !ok {
+								t.Fatalf("member %s is not folded", mo.Members[m].Name)
+							}
+							w.fold.load(e, w, sol, m)
+							for p := range w.fold.cases {
+								if fc := &w.fold.cases[p]; e.uses(p) && (!fc.tabled || !fc.signed) {
+									t.Errorf("member %s, patterned case %d: tabled %v, signed %v", mo.Members[m].Name, p, fc.tabled, fc.signed)
+								}
+							}
+						}
+						defer func(v bool) { useAVX = v }(useAVX)
+						useAVX = false
+						without, err := Compute(sol, cs, set, lay)
+						if err != nil {
+							t.Fatal(err)
+						}
+						if !reflect.DeepEqual(with, without) {
+							t.Fatal("the envelope with AVX differs from the one without")
+						}
+					})
+				}
+			}
+		}
+	}
+}
