@@ -186,14 +186,33 @@ func (pl *exactPlacement) combine(e *evaluator, w *work, k, j int, hi bool) [3]f
 // influential of them, with at least w.share of the largest one's effect,
 // for listing: ranked by factored size, so that pieces of cases with
 // different factors rank fairly against each other.
+//
+// With a limit to the lists, the units are sorted the smallest first (in
+// place: still a heap; one comparison each when the scan sorted them)
+// and offered the largest first to the list, kept sorted the largest
+// first (keepDescending), so that spanList.order need not sort it: the
+// same pieces in the same order as keepLargest and sortLargestFirst give.
+// The factored sizes are the units' times one factor, so in the same
+// order but where two round to the same size, and keepDescending places
+// each where its factored size and piece put it.
 func (pl *exactPlacement) pieces(e *evaluator, w *work, l *spanList, k, p, j int, f float64, hi bool) int {
 	s := sign(hi == (f >= 0))
 	units := e.lay.Patterned[p].Units
 	cut := w.share * pl.big[p][j][s]
-	for _, c := range pl.top[p][j][s] {
-		if c.a >= cut {
-			l.ranked = keepLargest(l.ranked, candidate{piece: units[c.piece].Pieces[0], a: c.a * math.Abs(f)}, w.limit)
+	top := pl.top[p][j][s]
+	af := math.Abs(f)
+	if w.limit == math.MaxInt {
+		for _, c := range top {
+			if c.a >= cut {
+				l.ranked = keepLargest(l.ranked, candidate{piece: units[c.piece].Pieces[0], a: c.a * af}, w.limit)
+			}
 		}
+		return pl.count[p][j][s]
+	}
+	sortSmallestFirst(top)
+	l.sorted = true
+	for q := len(top) - 1; q >= 0 && top[q].a >= cut; q-- {
+		l.ranked = keepDescending(l.ranked, candidate{piece: units[top[q].piece].Pieces[0], a: top[q].a * af}, w.limit)
 	}
 	return pl.count[p][j][s]
 }

@@ -12,22 +12,26 @@ import (
 	"govern/frame"
 )
 
-// TestFirstTableIsDirect checks the table of first-order moments
-// (firstTable, four stations at once with AVX) against each unit's M
-// formed one station at a time as scanFolded's pure-Go loop forms it,
-// a + x·v (the product rounded, then added), and each row's sum of the
-// units in their order from +0 against the sum classify forms: the same
-// numbers to the last bit, no tolerance. The data are random (fixed
-// seed), with zeros of either sign, repeated values, sizes from 1e-300
-// to 1e300, infinities and NaN; the counts of stations cover groups of
-// four with every remainder.
-func TestFirstTableIsDirect(t *testing.T) {
+// TestFirstSignsIsDirect checks the table of first-order moments and its
+// classification (firstSigns, four stations at once with AVX) against
+// each unit's M formed one station at a time as scanFolded's pure-Go
+// loop forms it, a + x·v (the product rounded, then added), then
+// classify, sumsOver and largestOver over it (the direct pass over the
+// units): the table, each row's sum of the units in their order from +0,
+// the sums of N, V and M of the positive and round-off units, the largest
+// sizes and the counts by sign, the same to the last bit, no tolerance.
+// The data are random (fixed seed), with zeros of either sign, values at
+// and next to the round-off, repeated values, sizes from 1e-300 to
+// 1e300, infinities and NaN; the counts of stations cover groups of four
+// with every remainder.
+func TestFirstSignsIsDirect(t *testing.T) {
 	if !hasAVXHere() {
 		t.Skip("no AVX")
 	}
 	rng := rand.New(rand.NewPCG(17, 23))
+	const nz = 1e-6
 	num := func() float64 {
-		switch rng.IntN(10) {
+		switch rng.IntN(12) {
 		case 0:
 			return 0
 		case 1:
@@ -44,6 +48,10 @@ func TestFirstTableIsDirect(t *testing.T) {
 			if rng.IntN(20) == 0 {
 				return math.NaN()
 			}
+		case 6:
+			return nz * float64(1-2*rng.IntN(2))
+		case 7:
+			return math.Nextafter(nz, 1)
 		}
 		return rng.NormFloat64() * 100
 	}
@@ -54,13 +62,18 @@ func TestFirstTableIsDirect(t *testing.T) {
 				for i := range xs {
 					xs[i] = float64(i) * 0.7 * (1 + rng.Float64()/100)
 				}
-				a, v := make([]float64, nu), make([]float64, nu)
+				a, v, n := make([]float64, nu), make([]float64, nu), make([]float64, nu)
 				for u := range nu {
-					a[u], v[u] = num(), num()
+					a[u], n[u] = num(), num()
+					if rng.IntN(3) == 0 {
+						v[u] = 0 // M = a at every station: at the round-off too
+					} else {
+						v[u] = num()
+					}
 				}
-				mt, tot := make([]float64, ns*nu), make([]float64, ns)
-				if !firstTable(mt, tot, xs, a, v) {
-					t.Fatal("firstTable formed no table with AVX")
+				mt, tot, sg := make([]float64, ns*nu), make([]float64, ns), make([]stationSigns, ns)
+				if !firstSigns(mt, tot, sg, xs, a, v, n, nz) {
+					t.Fatal("firstSigns formed no table with AVX")
 				}
 				pos, neg, zer := make([]int32, nu), make([]int32, nu), make([]int32, nu)
 				mv := make([]float64, nu)
@@ -71,24 +84,33 @@ func TestFirstTableIsDirect(t *testing.T) {
 					if !sameBits(mt[i*nu:(i+1)*nu], mv) {
 						t.Errorf("station %d: the table differs from the direct M", i)
 					}
-					m0, _, _, _ := classify(mv, 1, pos, neg, zer)
+					m0, np, nn, nr := classify(mv, nz, pos, neg, zer)
 					if math.Float64bits(tot[i]) != math.Float64bits(m0) {
 						t.Errorf("station %d: sum %v, want %v", i, tot[i], m0)
+					}
+					var want stationSigns
+					want.pos[0], want.pos[1], want.pos[2], want.big[0] = sumsOver(pos[:np], n, v, mv, mv)
+					want.zero[0], want.zero[1], want.zero[2], _ = sumsOver(zer[:nr], n, v, mv, mv)
+					want.big[1] = largestOver(neg[:nn], mv)
+					want.count = [2]int{np, nn}
+					got := sg[i]
+					if !sameBits(append(got.pos[:], append(got.zero[:], got.big[:]...)...), append(want.pos[:], append(want.zero[:], want.big[:]...)...)) || got.count != want.count {
+						t.Errorf("station %d: %+v, want %+v", i, got, want)
 					}
 				}
 			})
 		}
 	}
 	t.Run("no units, no table", func(t *testing.T) {
-		if firstTable(nil, make([]float64, 3), []float64{0, 1, 2}, nil, nil) {
-			t.Error("firstTable reported a table of no units")
+		if firstSigns(nil, make([]float64, 3), make([]stationSigns, 3), []float64{0, 1, 2}, nil, nil, nil, 0) {
+			t.Error("firstSigns reported a table of no units")
 		}
 	})
 	t.Run("without AVX, no table", func(t *testing.T) {
 		defer func(v bool) { useAVX = v }(useAVX)
 		useAVX = false
-		if firstTable(make([]float64, 3), make([]float64, 3), []float64{0, 1, 2}, []float64{1}, []float64{2}) {
-			t.Error("firstTable reported a table without AVX")
+		if firstSigns(make([]float64, 3), make([]float64, 3), make([]stationSigns, 3), []float64{0, 1, 2}, []float64{1}, []float64{2}, []float64{3}, 0) {
+			t.Error("firstSigns reported a table without AVX")
 		}
 	})
 }
@@ -133,7 +155,7 @@ func oddFrame() *frame.Model {
 
 // TestFirstOrderWithAndWithoutAVX holds the first-order envelope of a
 // patterned frame whose folded members' moments are tabled with AVX
-// (firstTable, then signsOf and listReaching) to the one formed by the
+// (firstSigns, then listReaching) to the one formed by the
 // pure-Go loop of scanFolded, station by station (classify, the sums and
 // the ranking of every listed unit): every number to the last bit and
 // every list the same, on foldFrame and oddFrame, with one and two

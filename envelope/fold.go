@@ -295,17 +295,7 @@ func (f *fold) load(e *evaluator, w *work, sol *frame.Solution, m int) {
 				see(frame.Forces{N: fc.n[u], V: fc.v[u], M: a})
 				see(frame.Forces{M: a + l*fc.v[u]})
 			}
-			// With AVX, M at every station into the table, and each
-			// station's sum (firstTable): the numbers scanFolded forms
-			// otherwise, to the last bit. The units that load the member
-			// have M₀ = V = 0: +0 at every station (x ≥ 0), which leaves
-			// the sums as they are.
-			fc.tabled, fc.summed = false, false
-			if useAVX && anyUses(parts, p) {
-				fc.mt, fc.tot = grow(fc.mt, ns*nu), grow(fc.tot, ns)
-				fc.summed = firstTable(fc.mt, fc.tot, w.xs, fc.a[:nu], fc.v[:nu])
-				fc.tabled = fc.summed
-			}
+			fc.tabled, fc.summed = false, false // below, with AVX
 			continue
 		}
 		// Second order: M at every station, as StationsTo forms it. The
@@ -394,6 +384,21 @@ func (f *fold) load(e *evaluator, w *work, sol *frame.Solution, m int) {
 	}
 	for p := range f.cases {
 		fc := &f.cases[p]
+		if !f.second {
+			// With AVX, M at every station into the table, each
+			// station's sum and its sums, largest sizes and counts by
+			// sign (firstSigns): the numbers scanFolded forms otherwise,
+			// to the last bit. The units that load the member have M₀ =
+			// V = N = 0: +0 at every station (x ≥ 0), round-off, which
+			// leaves the sums as they are.
+			fc.signed = false
+			if nu := len(fc.n); useAVX && nu > 0 && anyUses(parts, p) {
+				fc.mt, fc.tot, fc.sg = grow(fc.mt, ns*nu), grow(fc.tot, ns), grow(fc.sg, ns)
+				fc.signed = firstSigns(fc.mt, fc.tot, fc.sg, w.xs, fc.a[:nu], fc.v[:nu], fc.n[:nu], w.noiseAt[2])
+				fc.tabled, fc.summed = fc.signed, fc.signed
+			}
+			continue
+		}
 		if fc.signed = fc.summed && anyUses(parts, p); fc.signed {
 			fc.sg = grow(fc.sg, ns)
 			signsOf(fc.sg, fc.mt, fc.n, fc.v, w.noiseAt[2])
@@ -521,6 +526,10 @@ func (fc *foldCase) fold(f *fold, w *work, nv *foldNV, kept *[2][2][]int32, seco
 		// fall short of it at one comparison.
 		for s := range ranked {
 			h := rankListed(nv.top[j][s][:0], ranked[s], x, s == 1, max(w.share*nv.big[j][s], pre[s]), w.limit)
+			// Sorted once for the member: each station's copy is then
+			// sorted for exactPlacement.pieces, which sorts a list in
+			// place otherwise.
+			sortSmallestFirst(h)
 			nv.top[j][s] = h
 			kept[j][s] = kept[j][s][:0]
 			for _, c := range h {

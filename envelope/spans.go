@@ -18,6 +18,7 @@ const (
 type spanList struct {
 	pieces []int
 	ranked []candidate
+	sorted bool // ranked is sorted the largest first already (exactPlacement.pieces)
 }
 
 // order leaves in l.pieces the list to give: the ranked pieces, the most
@@ -25,7 +26,9 @@ type spanList struct {
 // many there are.
 func (l *spanList) order() int {
 	if c := l.ranked; len(c) > 0 {
-		sortLargestFirst(c)
+		if !l.sorted {
+			sortLargestFirst(c)
+		}
 		// A piece repeats only when a combination names its case twice.
 		var seen map[int]bool
 		if len(c) > 32 {
@@ -60,6 +63,7 @@ func (e *evaluator) spans(w *work, out *[3]Extreme) {
 	for k := range w.lists {
 		w.lists[k].pieces = w.lists[k].pieces[:0]
 		w.lists[k].ranked = w.lists[k].ranked[:0]
+		w.lists[k].sorted = false
 	}
 	var loaded [6]int
 	for p, pc := range e.lay.Patterned {

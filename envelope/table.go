@@ -156,30 +156,50 @@ func signsOf(sg []stationSigns, mt, n, v []float64, nz float64) {
 	}
 }
 
-// firstTable sets mt[i*nu+u], nu = len(a), to unit u's M = a[u] + xs[i]·v[u]
-// at station i of a first-order member (a and v the units' M₀ and V), and
-// tot[i] to the sum of row i over the units, in their order from +0,
-// four stations at once with AVX (firstRowsAVX): the numbers scanFolded's
-// loop forms station by station, to the last bit. It reports whether it
-// formed them: not without AVX, nor for no unit.
-func firstTable(mt, tot, xs, a, v []float64) bool {
+// firstConsts is what firstSignsAVX reads: the four lanes' stations, the
+// round-off nz and −nz, the mask that clears a number's sign and 1.
+type firstConsts struct {
+	x, nz, negNz, mask, one [4]float64
+}
+
+// firstSigns sets mt[i*nu+u], nu = len(a), to unit u's M = a[u] + xs[i]·v[u]
+// at station i of a first-order member (a, v and n the units' M₀, V and
+// N), tot[i] to the sum of row i over the units, in their order from +0,
+// and sg[i] to station i's stationSigns with round-off nz, four stations
+// at once with AVX (firstSignsAVX): the numbers scanFolded's loop forms
+// station by station (a + x·v, then classify, sumsOver and largestOver),
+// to the last bit. It reports whether it formed them: not without AVX,
+// nor for no unit.
+func firstSigns(mt, tot []float64, sg []stationSigns, xs, a, v, n []float64, nz float64) bool {
 	nu, ns := len(a), len(xs)
 	if !useAVX || nu == 0 || ns == 0 {
 		return false
 	}
-	v, mt, tot = v[:nu], mt[:ns*nu], tot[:ns]
+	v, n, mt, tot, sg = v[:nu], n[:nu], mt[:ns*nu], tot[:ns], sg[:ns]
+	c := firstConsts{}
+	for l := range 4 {
+		c.nz[l], c.negNz[l], c.mask[l], c.one[l] = nz, -nz, math.Float64frombits(1<<63-1), 1
+	}
 	var rows [4]*float64
-	var x, out [4]float64
+	var out [11][4]float64
 	for i0 := 0; i0 < ns; i0 += 4 {
 		// A last group of fewer than four repeats its last station: the
 		// same numbers, written twice to the same row.
 		for l := range 4 {
 			i := min(i0+l, ns-1)
-			x[l] = xs[i]
+			c.x[l] = xs[i]
 			rows[l] = &mt[i*nu]
 		}
-		firstRowsAVX(&rows, &a[0], &v[0], nu, &x, &out)
-		copy(tot[i0:min(i0+4, ns)], out[:])
+		firstSignsAVX(&rows, &a[0], &v[0], &n[0], nu, &c, &out)
+		for l := range min(4, ns-i0) {
+			tot[i0+l] = out[10][l]
+			sg[i0+l] = stationSigns{
+				pos:   [3]float64{out[0][l], out[1][l], out[2][l]},
+				zero:  [3]float64{out[3][l], out[4][l], out[5][l]},
+				big:   [2]float64{out[6][l], out[7][l]},
+				count: [2]int{int(out[8][l]), int(out[9][l])},
+			}
+		}
 	}
 	return true
 }

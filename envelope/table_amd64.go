@@ -39,19 +39,21 @@ func signSumsAVX(rows *[4]*float64, n, v *float64, nu int, c *signConsts, out *[
 //go:noescape
 func listReachingAVX(mv *float64, n int, t0, t1 float64, r0, r1 *int32) (n0, n1 int)
 
-// firstRowsAVX forms four stations' rows of a first-order member's table
-// of moments (table.go) with AVX, the stations in the four lanes of one
-// register: for each unit u of nu, at each lane's station x[l],
+// firstSignsAVX forms four stations' rows of a first-order member's
+// table of moments (table.go) with AVX, the stations in the four lanes of
+// one register, and classifies them as signSumsAVX does, in the same pass:
+// for each unit u of nu, at each lane's station c.x[l],
 //
-//	mm = a[u] + x[l]·v[u]
+//	mm = a[u] + x·v[u]
 //
 // the product rounded and then added (no fused multiply-add), as the
 // pure-Go loop of scanFolded, so the same numbers to the last bit. It
-// stores mm at rows[l][u] and sets out[l] to the sum of the lane's mm
+// stores mm at rows[l][u]; out[0..9] are what signSumsAVX gives for the
+// lane's row (with c's round-off), and out[10] the sum of the lane's mm
 // over the units, in their order from +0.
 //
 //go:noescape
-func firstRowsAVX(rows *[4]*float64, a, v *float64, nu int, x *[4]float64, out *[4]float64)
+func firstSignsAVX(rows *[4]*float64, a, v, n *float64, nu int, c *firstConsts, out *[11][4]float64)
 
 // cpuid and xgetbv are the instructions of those names.
 func cpuid(eaxArg, ecxArg uint32) (eax, ebx, ecx, edx uint32)

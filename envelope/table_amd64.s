@@ -75,8 +75,14 @@ done:
 	VZEROUPPER
 	RET
 
-// func firstRowsAVX(rows *[4]*float64, a, v *float64, nu int, x *[4]float64, out *[4]float64)
-TEXT ·firstRowsAVX(SB), NOSPLIT, $0-48
+// func firstSignsAVX(rows *[4]*float64, a, v, n *float64, nu int, c *firstConsts, out *[11][4]float64)
+//
+// c: the stations x at 0, nz at 32, −nz at 64, the mask of a size at 96,
+// ones at 128 (four lanes each). out: the positive units' sums of n, v
+// and M, the round-off units' sums of the same, the largest size of the
+// positive and of the negative units, the counts of each, and the sum of
+// every unit's M.
+TEXT ·firstSignsAVX(SB), NOSPLIT, $0-56
 	MOVQ rows+0(FP), AX
 	MOVQ 0(AX), R8
 	MOVQ 8(AX), R9
@@ -84,35 +90,87 @@ TEXT ·firstRowsAVX(SB), NOSPLIT, $0-48
 	MOVQ 24(AX), R11
 	MOVQ a+8(FP), SI
 	MOVQ v+16(FP), DI
-	MOVQ nu+24(FP), CX
-	MOVQ x+32(FP), AX
-	MOVQ out+40(FP), BX
-	VMOVUPD 0(AX), Y1
+	MOVQ n+24(FP), DX
+	MOVQ nu+32(FP), CX
+	MOVQ c+40(FP), AX
+	MOVQ out+48(FP), BX
+	VXORPD Y0, Y0, Y0
+	VXORPD Y1, Y1, Y1
+	VXORPD Y2, Y2, Y2
+	VXORPD Y3, Y3, Y3
+	VXORPD Y4, Y4, Y4
+	VXORPD Y5, Y5, Y5
 	VXORPD Y6, Y6, Y6
+	VXORPD Y7, Y7, Y7
+	VXORPD Y8, Y8, Y8
+	VXORPD Y9, Y9, Y9
+	VXORPD Y10, Y10, Y10
 	XORQ R12, R12
 	TESTQ CX, CX
 	JEQ fdone
 
 floop:
-	// mm = a + x·v, the product rounded, then added.
-	VBROADCASTSD (DI)(R12*8), Y9
-	VMULPD Y1, Y9, Y9
-	VBROADCASTSD (SI)(R12*8), Y10
-	VADDPD Y9, Y10, Y10
-	// The sum.
-	VADDPD Y10, Y6, Y6
+	// mm = a + x·v, the product rounded, then added; and the sum.
+	VBROADCASTSD (DI)(R12*8), Y14
+	VMULPD 0(AX), Y14, Y14
+	VBROADCASTSD (SI)(R12*8), Y11
+	VADDPD Y14, Y11, Y11
+	VADDPD Y11, Y10, Y10
 	// Each lane to its station's row.
-	VMOVSD X10, (R8)(R12*8)
-	VMOVHPD X10, (R9)(R12*8)
-	VEXTRACTF128 $1, Y10, X11
-	VMOVSD X11, (R10)(R12*8)
-	VMOVHPD X11, (R11)(R12*8)
+	VMOVSD X11, (R8)(R12*8)
+	VMOVHPD X11, (R9)(R12*8)
+	VEXTRACTF128 $1, Y11, X15
+	VMOVSD X15, (R10)(R12*8)
+	VMOVHPD X15, (R11)(R12*8)
+	// P: M > nz; N: M < −nz (false for NaN).
+	VCMPPD $0x1e, 32(AX), Y11, Y12
+	VCMPPD $0x11, 64(AX), Y11, Y13
+	// The positive units' sums: +0 added for the others.
+	VBROADCASTSD (DX)(R12*8), Y14
+	VANDPD Y12, Y14, Y15
+	VADDPD Y15, Y0, Y0
+	VBROADCASTSD (DI)(R12*8), Y14
+	VANDPD Y12, Y14, Y15
+	VADDPD Y15, Y1, Y1
+	VANDPD Y12, Y11, Y15
+	VADDPD Y15, Y2, Y2
+	// The counts.
+	VANDPD 128(AX), Y12, Y15
+	VADDPD Y15, Y8, Y8
+	VANDPD 128(AX), Y13, Y15
+	VADDPD Y15, Y9, Y9
+	// The largest sizes.
+	VANDPD 96(AX), Y11, Y15
+	VANDPD Y12, Y15, Y14
+	VMAXPD Y6, Y14, Y6
+	VANDPD Y13, Y15, Y15
+	VMAXPD Y7, Y15, Y7
+	// The round-off units (neither P nor N): their sums.
+	VORPD Y12, Y13, Y12
+	VBROADCASTSD (DX)(R12*8), Y14
+	VANDNPD Y14, Y12, Y15
+	VADDPD Y15, Y3, Y3
+	VBROADCASTSD (DI)(R12*8), Y14
+	VANDNPD Y14, Y12, Y15
+	VADDPD Y15, Y4, Y4
+	VANDNPD Y11, Y12, Y15
+	VADDPD Y15, Y5, Y5
 	INCQ R12
 	CMPQ R12, CX
 	JNE floop
 
 fdone:
-	VMOVUPD Y6, 0(BX)
+	VMOVUPD Y0, 0(BX)
+	VMOVUPD Y1, 32(BX)
+	VMOVUPD Y2, 64(BX)
+	VMOVUPD Y3, 96(BX)
+	VMOVUPD Y4, 128(BX)
+	VMOVUPD Y5, 160(BX)
+	VMOVUPD Y6, 192(BX)
+	VMOVUPD Y7, 224(BX)
+	VMOVUPD Y8, 256(BX)
+	VMOVUPD Y9, 288(BX)
+	VMOVUPD Y10, 320(BX)
 	VZEROUPPER
 	RET
 

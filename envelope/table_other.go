@@ -17,6 +17,6 @@ func listReachingAVX(mv *float64, n int, t0, t1 float64, r0, r1 *int32) (n0, n1 
 	panic("envelope: listReachingAVX without AVX")
 }
 
-func firstRowsAVX(rows *[4]*float64, a, v *float64, nu int, x *[4]float64, out *[4]float64) {
-	panic("envelope: firstRowsAVX without AVX")
+func firstSignsAVX(rows *[4]*float64, a, v, n *float64, nu int, c *firstConsts, out *[11][4]float64) {
+	panic("envelope: firstSignsAVX without AVX")
 }
