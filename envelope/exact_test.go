@@ -238,3 +238,90 @@ func cmpFloat(a, b float64) int {
 	}
 	return 0
 }
+
+// TestPiecesSortedAsRanked checks the lists exactPlacement.pieces keeps
+// sorted (the units offered the largest first, keepDescending) against
+// the way they were formed before: every unit reaching the cut offered
+// in heap order to a heap of keepLargest, then sortLargestFirst and the
+// repeats left out (spanList.order). Two patterned cases offer their
+// units to one list, with factors that round sizes one unit of the last
+// digit apart to the same factored size (so that their order falls to
+// the pieces), sizes drawn from a few values (ties) and some below the
+// share of the largest (the cut), and with a
+// hand-made layout whose two cases share pieces (repeats).
+func TestPiecesSortedAsRanked(t *testing.T) {
+	rng := rand.New(rand.NewPCG(41, 3))
+	collided := 0
+	for _, shared := range []bool{false, true} {
+		for _, f := range []float64{1.6, 1.0 / 3, -0.7, 1} {
+			for trial := range 50 {
+				nu := []int{40, 12}[trial%2] // the list full, or holding units below the cut
+				var pcs []patterns.Patterned
+				for p := range 2 {
+					pc := patterns.Patterned{Case: p}
+					for u := range nu {
+						piece := 1000*p + u
+						if shared && u%3 == 0 {
+							piece = u
+						}
+						pc.Units = append(pc.Units, patterns.Unit{Column: 2 + p*nu + u, Pieces: []int{piece}})
+					}
+					pcs = append(pcs, pc)
+				}
+				e := &evaluator{lay: &patterns.Layout{Mode: patterns.Exact, Patterned: pcs}}
+				w := &work{share: spanShare, limit: maxSpans}
+				pl := newExactPlacement(2)
+				for p := range 2 {
+					for j := range 3 {
+						for s := range 2 {
+							var h []candidate
+							big := 0.0
+							for u := range nu {
+								a := 1 + float64(rng.IntN(6))/8
+								switch rng.IntN(4) {
+								case 0:
+									a = math.Nextafter(a, 2)
+								case 1: // over three decades, a third below the cut
+									a = math.Pow(10, -3*rng.Float64())
+								}
+								if a*math.Abs(f) == math.Nextafter(a, 2)*math.Abs(f) {
+									collided++
+								}
+								big = max(big, a)
+								if rng.IntN(3) > 0 { // the others not ranked
+									h = keepLargest(h, candidate{piece: u, a: a}, maxSpans)
+								}
+							}
+							pl.top[p][j][s], pl.big[p][j][s], pl.count[p][j][s] = h, big, nu
+						}
+					}
+				}
+				for j := range 3 {
+					for _, hi := range []bool{true, false} {
+						var want, got spanList
+						for p := range 2 {
+							s := sign(hi == (f >= 0))
+							cut := w.share * pl.big[p][j][s]
+							for _, c := range pl.top[p][j][s] {
+								if c.a >= cut {
+									want.ranked = keepLargest(want.ranked, candidate{piece: pcs[p].Units[c.piece].Pieces[0], a: c.a * math.Abs(f)}, w.limit)
+								}
+							}
+						}
+						want.order()
+						for p := range 2 {
+							pl.pieces(e, w, &got, 0, p, j, f, hi)
+						}
+						got.order()
+						if !slices.Equal(got.pieces, want.pieces) {
+							t.Fatalf("shared %v f %g trial %d effect %d hi %v: listed %v, want %v", shared, f, trial, j, hi, got.pieces, want.pieces)
+						}
+					}
+				}
+			}
+		}
+	}
+	if collided == 0 {
+		t.Error("no two sizes rounded to the same factored size: the ties of factored sizes are not checked")
+	}
+}
