@@ -219,3 +219,69 @@ func TestFirstOrderWithAndWithoutAVX(t *testing.T) {
 		}
 	}
 }
+
+// TestFoldSignsIsDirect checks the fold of N and V formed for both
+// effects at once (foldSigns, AVX) against classify, sumsOver and
+// largestOver over each effect's values, the direct pass over the units
+// that foldCase.fold makes otherwise: the sums of N, V and M₀ of the
+// positive and the round-off units, the largest sizes and counts by sign
+// and the sum of the values, the same to the last bit, no tolerance.
+// The values are random (fixed seed) with sizes at and next to each
+// effect's own round-off, zeros of either sign, infinities and NaN.
+func TestFoldSignsIsDirect(t *testing.T) {
+	if !hasAVXHere() {
+		t.Skip("no AVX")
+	}
+	rng := rand.New(rand.NewPCG(5, 29))
+	nz := [2]float64{1e-6, 3e-4}
+	num := func(nz float64) float64 {
+		switch rng.IntN(12) {
+		case 0:
+			return 0
+		case 1:
+			return math.Copysign(0, -1)
+		case 2:
+			return nz
+		case 3:
+			return -nz
+		case 4:
+			return math.Nextafter(nz, 1)
+		case 5:
+			if rng.IntN(10) == 0 {
+				return math.NaN()
+			}
+		case 6:
+			if rng.IntN(10) == 0 {
+				return math.Inf(1 - 2*rng.IntN(2))
+			}
+		}
+		return rng.NormFloat64() * 10
+	}
+	for _, nu := range []int{1, 2, 5, 300} {
+		t.Run(fmt.Sprintf("%d units", nu), func(t *testing.T) {
+			x := [2][]float64{make([]float64, nu), make([]float64, nu)}
+			n, v, a := make([]float64, nu), make([]float64, nu), make([]float64, nu)
+			for u := range nu {
+				x[0][u], x[1][u] = num(nz[0]), num(nz[1])
+				n[u], v[u], a[u] = rng.NormFloat64(), rng.NormFloat64(), rng.NormFloat64()
+			}
+			sg, tot := foldSigns(x[0], x[1], n, v, a, nz)
+			pos, neg, zer := make([]int32, nu), make([]int32, nu), make([]int32, nu)
+			for j := range 2 {
+				m0, np, nn, nr := classify(x[j], nz[j], pos, neg, zer)
+				var want stationSigns
+				want.pos[0], want.pos[1], want.pos[2], want.big[0] = sumsOver(pos[:np], n, v, a, x[j])
+				want.zero[0], want.zero[1], want.zero[2], _ = sumsOver(zer[:nr], n, v, a, x[j])
+				want.big[1] = largestOver(neg[:nn], x[j])
+				want.count = [2]int{np, nn}
+				got := sg[j]
+				if !sameBits(append(got.pos[:], append(got.zero[:], got.big[:]...)...), append(want.pos[:], append(want.zero[:], want.big[:]...)...)) || got.count != want.count {
+					t.Errorf("effect %d: %+v, want %+v", j, got, want)
+				}
+				if math.Float64bits(tot[j]) != math.Float64bits(m0) {
+					t.Errorf("effect %d: sum %v, want %v", j, tot[j], m0)
+				}
+			}
+		})
+	}
+}

@@ -106,6 +106,7 @@ type fold struct {
 	held   [][6]float64   // scratch: the displacements of the units that load the member
 	cases  []foldCase     // per patterned case
 	mv     []float64      // scratch: the M of each unit at the station
+	mv2    []float64      // scratch: the scaled V of each unit (foldSigned)
 	own    []frame.Forces // scratch: the units that load the member at the station
 	// scratch: the units at the station whose M is positive, negative and
 	// round-off (classify)
@@ -451,11 +452,20 @@ func scaleOf(e *evaluator, m, c int) [3]float64 {
 // The ranking is seeded as scanFolded seeds it, from kept, the units of
 // the lists of the member folded before with this scratch, which it then
 // holds this member's.
+//
+// In first order with AVX, the two effects are classified, summed and
+// sized at once (foldSigns), and only the units the ranking may keep are
+// listed (listReaching), as scanFolded does for M: the same numbers and
+// lists.
 func (fc *foldCase) fold(f *fold, w *work, nv *foldNV, kept *[2][2][]int32, second bool, sc [3]float64) {
 	nv.sumU = [2][2][6]float64{}
 	scaled := sc != [3]float64{1, 1, 1}
 	nu := len(fc.n)
 	fn, fv, fa := fc.n[:nu], fc.v[:nu], fc.a[:nu]
+	if !second && useAVX && nu > 0 {
+		fc.foldSigned(f, w, nv, kept, sc)
+		return
+	}
 	if scaled {
 		nv.totN, nv.totV = 0, 0
 		for u, n := range fn {
@@ -530,6 +540,61 @@ func (fc *foldCase) fold(f *fold, w *work, nv *foldNV, kept *[2][2][]int32, seco
 			// sorted for exactPlacement.pieces, which sorts a list in
 			// place otherwise.
 			sortSmallestFirst(h)
+			nv.top[j][s] = h
+			kept[j][s] = kept[j][s][:0]
+			for _, c := range h {
+				kept[j][s] = append(kept[j][s], int32(c.piece))
+			}
+		}
+	}
+}
+
+// foldSigned is fold in first order with AVX (foldSigns): for each effect
+// the units' values (scaled by sc), their sums, largest sizes and counts
+// by sign, and the units of each sign that reach both the seed and the
+// share of the largest, listed in their order, ranked; every unit the
+// ranking of fold accepts (its thresholds are at least the share of the
+// largest, and it ranks only the units that reach the seed), so the same
+// lists.
+func (fc *foldCase) foldSigned(f *fold, w *work, nv *foldNV, kept *[2][2][]int32, sc [3]float64) {
+	nu := len(fc.n)
+	fn, fv, fa := fc.n[:nu], fc.v[:nu], fc.a[:nu]
+	xs := [2][]float64{fn, fv}
+	if sc != [3]float64{1, 1, 1} {
+		f.mv, f.mv2 = grow(f.mv, nu), grow(f.mv2, nu)
+		xs = [2][]float64{f.mv[:nu], f.mv2[:nu]}
+		nv.totN, nv.totV = 0, 0
+		for u, n := range fn {
+			xs[0][u], xs[1][u] = sc[0]*n, sc[1]*fv[u]
+			nv.totN += n
+			nv.totV += fv[u]
+		}
+	}
+	sg, tot := foldSigns(xs[0], xs[1], fn, fv, fa, [2]float64{w.noiseAt[0], w.noiseAt[1]})
+	if sc == [3]float64{1, 1, 1} {
+		nv.totN, nv.totV = tot[0], tot[1]
+	}
+	f.ranked[0], f.ranked[1] = grow(f.ranked[0], nu), grow(f.ranked[1], nu)
+	for j, x := range xs {
+		nz := w.noiseAt[j]
+		g := &sg[j]
+		nv.sum[j] = [2][3]float64{g.pos, g.zero}
+		nv.big[j], nv.count[j] = g.big, g.count
+		var pre [2]float64
+		if seeds(w) {
+			for s := range pre {
+				pre[s], _ = keptAt(kept[j][s], x, nz, s == 1, w.share, w.limit)
+			}
+		}
+		above := math.Nextafter(nz, math.Inf(1)) // a size past the round-off
+		if !(above < math.Inf(1)) {
+			above = math.NaN() // none is: no unit listed
+		}
+		cut := [2]float64{w.share * g.big[0], w.share * g.big[1]}
+		ranked := listReaching(x, max(pre[0], cut[0], above), max(pre[1], cut[1], above), f.ranked[0], f.ranked[1])
+		for s := range ranked {
+			h := rankListed(nv.top[j][s][:0], ranked[s], x, s == 1, max(cut[s], pre[s]), w.limit)
+			sortSmallestFirst(h) // see fold
 			nv.top[j][s] = h
 			kept[j][s] = kept[j][s][:0]
 			for _, c := range h {

@@ -203,3 +203,39 @@ func firstSigns(mt, tot []float64, sg []stationSigns, xs, a, v, n []float64, nz 
 	}
 	return true
 }
+
+// foldConsts is what foldSignsAVX reads: the round-off nz and −nz of N and
+// of V, the mask that clears a number's sign and 1, a lane for each.
+type foldConsts struct {
+	nz, negNz, mask, one [2]float64
+}
+
+// foldSigns is, for N (j = 0, the units classified by xn) and V (j = 1,
+// by xv), what classify, sumsOver and largestOver form over the units of
+// a first-order member for its fold (foldCase.fold), both at once with
+// AVX (foldSignsAVX): in sg[j] the sums of n, v and a of the positive and
+// of the round-off units (past nz[j]), in their order from +0, the
+// largest size of each sign and the counts, and in tot[j] the sum of the
+// values, as classify forms it; to the last bit. len(xn) = len(xv) =
+// len(n) = len(v) = len(a) > 0; AVX only.
+func foldSigns(xn, xv, n, v, a []float64, nz [2]float64) (sg [2]stationSigns, tot [2]float64) {
+	nu := len(n)
+	xn, xv, v, a = xn[:nu], xv[:nu], v[:nu], a[:nu]
+	c := foldConsts{nz: nz, negNz: [2]float64{-nz[0], -nz[1]}}
+	for l := range 2 {
+		c.mask[l], c.one[l] = math.Float64frombits(1<<63-1), 1
+	}
+	x := [2]*float64{&xn[0], &xv[0]}
+	var out [11][2]float64
+	foldSignsAVX(&x, &n[0], &v[0], &a[0], nu, &c, &out)
+	for l := range 2 {
+		sg[l] = stationSigns{
+			pos:   [3]float64{out[0][l], out[1][l], out[2][l]},
+			zero:  [3]float64{out[3][l], out[4][l], out[5][l]},
+			big:   [2]float64{out[6][l], out[7][l]},
+			count: [2]int{int(out[8][l]), int(out[9][l])},
+		}
+		tot[l] = out[10][l]
+	}
+	return sg, tot
+}

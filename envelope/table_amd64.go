@@ -55,6 +55,20 @@ func listReachingAVX(mv *float64, n int, t0, t1 float64, r0, r1 *int32) (n0, n1 
 //go:noescape
 func firstSignsAVX(rows *[4]*float64, a, v, n *float64, nu int, c *firstConsts, out *[11][4]float64)
 
+// foldSignsAVX classifies the units that do not load a first-order
+// member for N (lane 0, by the values x[0]) and for V (lane 1, by x[1])
+// as classify and the sums of foldCase.fold do, both at once, unit after
+// unit: out[0..2] are the sums of n, v and a over the units whose value
+// is above the lane's nz, out[3..5] those over the units of neither sign
+// (round-off, NaN included), each in the order of the units from +0 (+0
+// added for the others, which leaves such a sum as it is); out[6] and
+// out[7] the largest size of each sign (+0 for none), out[8] and out[9]
+// how many units are of each, and out[10] the sum of every unit's value,
+// in their order from +0.
+//
+//go:noescape
+func foldSignsAVX(x *[2]*float64, n, v, a *float64, nu int, c *foldConsts, out *[11][2]float64)
+
 // cpuid and xgetbv are the instructions of those names.
 func cpuid(eaxArg, ecxArg uint32) (eax, ebx, ecx, edx uint32)
 func xgetbv() (eax, edx uint32)

@@ -174,6 +174,95 @@ fdone:
 	VZEROUPPER
 	RET
 
+// func foldSignsAVX(x *[2]*float64, n, v, a *float64, nu int, c *foldConsts, out *[11][2]float64)
+//
+// c: nz at 0, −nz at 16, the mask of a size at 32, ones at 48 (two lanes
+// each). out: the positive units' sums of n, v and a, the round-off
+// units' sums of the same, the largest size of the positive and of the
+// negative units, the counts of each, and the sum of every unit's value.
+TEXT ·foldSignsAVX(SB), NOSPLIT, $0-56
+	MOVQ x+0(FP), AX
+	MOVQ 0(AX), R8
+	MOVQ 8(AX), R9
+	MOVQ n+8(FP), DX
+	MOVQ v+16(FP), DI
+	MOVQ a+24(FP), SI
+	MOVQ nu+32(FP), CX
+	MOVQ c+40(FP), AX
+	MOVQ out+48(FP), BX
+	VXORPD X0, X0, X0
+	VXORPD X1, X1, X1
+	VXORPD X2, X2, X2
+	VXORPD X3, X3, X3
+	VXORPD X4, X4, X4
+	VXORPD X5, X5, X5
+	VXORPD X6, X6, X6
+	VXORPD X7, X7, X7
+	VXORPD X8, X8, X8
+	VXORPD X9, X9, X9
+	VXORPD X10, X10, X10
+	XORQ R12, R12
+	TESTQ CX, CX
+	JEQ gdone
+
+gloop:
+	// The two lanes' values of unit u, and their sum.
+	VMOVSD (R8)(R12*8), X11
+	VMOVHPD (R9)(R12*8), X11, X11
+	VADDPD X11, X10, X10
+	// P: value > nz; N: value < −nz (false for NaN).
+	VCMPPD $0x1e, 0(AX), X11, X12
+	VCMPPD $0x11, 16(AX), X11, X13
+	// The positive units' sums: +0 added for the others.
+	VMOVDDUP (DX)(R12*8), X14
+	VANDPD X12, X14, X15
+	VADDPD X15, X0, X0
+	VMOVDDUP (DI)(R12*8), X14
+	VANDPD X12, X14, X15
+	VADDPD X15, X1, X1
+	VMOVDDUP (SI)(R12*8), X14
+	VANDPD X12, X14, X15
+	VADDPD X15, X2, X2
+	// The counts.
+	VANDPD 48(AX), X12, X15
+	VADDPD X15, X8, X8
+	VANDPD 48(AX), X13, X15
+	VADDPD X15, X9, X9
+	// The largest sizes.
+	VANDPD 32(AX), X11, X15
+	VANDPD X12, X15, X14
+	VMAXPD X6, X14, X6
+	VANDPD X13, X15, X15
+	VMAXPD X7, X15, X7
+	// The round-off units (neither P nor N): their sums.
+	VORPD X12, X13, X12
+	VMOVDDUP (DX)(R12*8), X14
+	VANDNPD X14, X12, X15
+	VADDPD X15, X3, X3
+	VMOVDDUP (DI)(R12*8), X14
+	VANDNPD X14, X12, X15
+	VADDPD X15, X4, X4
+	VMOVDDUP (SI)(R12*8), X14
+	VANDNPD X14, X12, X15
+	VADDPD X15, X5, X5
+	INCQ R12
+	CMPQ R12, CX
+	JNE gloop
+
+gdone:
+	VMOVUPD X0, 0(BX)
+	VMOVUPD X1, 16(BX)
+	VMOVUPD X2, 32(BX)
+	VMOVUPD X3, 48(BX)
+	VMOVUPD X4, 64(BX)
+	VMOVUPD X5, 80(BX)
+	VMOVUPD X6, 96(BX)
+	VMOVUPD X7, 112(BX)
+	VMOVUPD X8, 128(BX)
+	VMOVUPD X9, 144(BX)
+	VMOVUPD X10, 160(BX)
+	RET
+
 // func cpuid(eaxArg, ecxArg uint32) (eax, ebx, ecx, edx uint32)
 TEXT ·cpuid(SB), NOSPLIT, $0-24
 	MOVL eaxArg+0(FP), AX

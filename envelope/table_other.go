@@ -20,3 +20,7 @@ func listReachingAVX(mv *float64, n int, t0, t1 float64, r0, r1 *int32) (n0, n1 
 func firstSignsAVX(rows *[4]*float64, a, v, n *float64, nu int, c *firstConsts, out *[11][4]float64) {
 	panic("envelope: firstSignsAVX without AVX")
 }
+
+func foldSignsAVX(x *[2]*float64, n, v, a *float64, nu int, c *foldConsts, out *[11][2]float64) {
+	panic("envelope: foldSignsAVX without AVX")
+}
