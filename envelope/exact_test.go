@@ -298,7 +298,11 @@ func TestPiecesSortedAsRanked(t *testing.T) {
 				}
 				for j := range 3 {
 					for _, hi := range []bool{true, false} {
-						var want, got spanList
+						var want spanList
+						got := spanList{distinct: distinctPieces(e.lay)}
+						if got.distinct == shared {
+							t.Fatalf("shared %v: distinctPieces %v", shared, got.distinct)
+						}
 						for p := range 2 {
 							s := sign(hi == (f >= 0))
 							cut := w.share * pl.big[p][j][s]
