@@ -143,20 +143,47 @@ func (pl *exactPlacement) scan(e *evaluator, w *work) {
 	}
 }
 
-// extremes is noPlacement.extremes with this placement's combine.
+// extremes is noPlacement.extremes with this placement's combine: the
+// effect sought first (combineOne), and the forces acting with it only
+// for a combination that makes it worse, the same numbers.
 func (pl *exactPlacement) extremes(e *evaluator, w *work) [3]Extreme {
 	out := [3]Extreme{empty(), empty(), empty()}
 	for k := range e.cs {
 		for j := range e.nEff {
-			if hi := pl.combine(e, w, k, j, true); hi[j] > out[j].Max {
+			if pl.combineOne(e, w, k, j, true) > out[j].Max {
+				hi := pl.combine(e, w, k, j, true)
 				out[j].Max, out[j].MaxBy, out[j].MaxWith = hi[j], k, hi
 			}
-			if lo := pl.combine(e, w, k, j, false); lo[j] < out[j].Min {
+			if pl.combineOne(e, w, k, j, false) < out[j].Min {
+				lo := pl.combine(e, w, k, j, false)
 				out[j].Min, out[j].MinBy, out[j].MinWith = lo[j], k, lo
 			}
 		}
 	}
 	return out
+}
+
+// combineOne is combine's effect j alone: the same terms added in the
+// same order, so the same number to the last bit.
+func (pl *exactPlacement) combineOne(e *evaluator, w *work, k, j int, hi bool) float64 {
+	var tot float64
+	act := e.acting(w, k, j, hi)
+	for i, t := range e.cs[k].Terms {
+		f := t.Factor
+		if act == nil {
+			if a := f * w.ev[t.Case][j]; e.always[t.Case] || (hi && a > 0) || (!hi && a < 0) {
+				tot += f * w.ev[t.Case][j]
+			}
+		} else if act[i] {
+			tot += f * w.ev[t.Case][j]
+		}
+		p := e.patternOf[t.Case]
+		if p < 0 {
+			continue
+		}
+		tot += f * pl.sum[p][j][sign(hi == (f >= 0))][j]
+	}
+	return tot
 }
 
 // combine adds, for each patterned term, the sum of the units of the sign

@@ -1,6 +1,7 @@
 package envelope
 
 import (
+	"fmt"
 	"math"
 	"math/rand/v2"
 	"slices"
@@ -327,5 +328,60 @@ func TestPiecesSortedAsRanked(t *testing.T) {
 	}
 	if collided == 0 {
 		t.Error("no two sizes rounded to the same factored size: the ties of factored sizes are not checked")
+	}
+}
+
+// TestCombineOneIsCombine checks that the effect sought alone
+// (exactPlacement.combineOne, which extremes compares first) is, to the
+// last bit, the same effect of the whole combination (combine), for
+// every combination, effect and sense at every station of foldFrame with
+// its live cases patterned: the same terms added in the same order. With
+// L and Lr joined in a group (Settings.Groups: the terms act by the sum
+// of the group) and without.
+func TestCombineOneIsCombine(t *testing.T) {
+	mo := foldFrame(false)
+	sol, lay := solvePatterned(t, mo, 2, false)
+	cs := frameCombos()
+	for _, groups := range [][]int{nil, {-1, 0, 0, -1}} {
+		t.Run(fmt.Sprintf("groups %v", groups), func(t *testing.T) {
+			set := Settings{Kinds: kindsOf(sol, lay), Stations: 11, Groups: groups}
+			idx := make([]int, len(cs))
+			for k := range idx {
+				idx[k] = k
+			}
+			e := newEvaluator(sol.Model(), cs, idx, 3, set, lay)
+			if (groups != nil) != (e.joined != nil) {
+				t.Fatalf("groups %v: joined plans %v", groups, e.joined)
+			}
+			w := e.scratch()
+			pl := w.place.(*exactPlacement)
+			compared := 0
+			for m := range mo.Members {
+				e.evaluate(w, sol, m)
+				ns := len(w.xs)
+				for i := range ns {
+					for c := range w.ev {
+						f := w.at[c*ns+i]
+						w.ev[c] = [3]float64{f.N, f.V, f.M}
+					}
+					w.noise = w.noiseAt
+					pl.scan(e, w)
+					for k := range e.cs {
+						for j := range 3 {
+							for _, hi := range []bool{true, false} {
+								got, want := pl.combineOne(e, w, k, j, hi), pl.combine(e, w, k, j, hi)[j]
+								if math.Float64bits(got) != math.Float64bits(want) {
+									t.Fatalf("member %d station %d combination %d effect %d hi %v: %v, want %v", m, i, k, j, hi, got, want)
+								}
+								compared++
+							}
+						}
+					}
+				}
+			}
+			if compared == 0 {
+				t.Fatal("nothing compared")
+			}
+		})
 	}
 }
