@@ -292,10 +292,7 @@ func (f *fold) load(e *evaluator, w *work, sol *frame.Solution, m int) {
 			fc.n[u], fc.v[u], fc.a[u] = 0, 0, 0
 		}
 		if !f.second {
-			for u, a := range fc.a {
-				see(frame.Forces{N: fc.n[u], V: fc.v[u], M: a})
-				see(frame.Forces{M: a + l*fc.v[u]})
-			}
+			largestFirst(&big, fc.n[:nu], fc.v[:nu], fc.a[:nu], l)
 			fc.tabled, fc.summed = false, false // below, with AVX
 			continue
 		}
@@ -417,6 +414,30 @@ func (f *fold) load(e *evaluator, w *work, sol *frame.Solution, m int) {
 			}
 		}
 	}
+}
+
+// largestFirst raises big to the largest sizes of N, V and M over the
+// units of a first-order member (n, v and a their N, V and M₀), M at its
+// start (a) and at its end (a + l·v), NaN left out: what load's plain
+// comparisons give, the sizes kept in registers.
+func largestFirst(big *[3]float64, n, v, a []float64, l float64) {
+	bn, bv, bm := big[0], big[1], big[2]
+	v, a = v[:len(n)], a[:len(n)]
+	for u, x := range n {
+		if s := math.Abs(x); s > bn {
+			bn = s
+		}
+		if s := math.Abs(v[u]); s > bv {
+			bv = s
+		}
+		if s := math.Abs(a[u]); s > bm {
+			bm = s
+		}
+		if s := math.Abs(a[u] + l*v[u]); s > bm {
+			bm = s
+		}
+	}
+	big[0], big[1], big[2] = bn, bv, bm
 }
 
 // boundRoom is the room a bound of the size of M leaves for the rounding
