@@ -595,7 +595,7 @@ func (fc *foldCase) foldSigned(f *fold, w *work, nv *foldNV, kept *[2][2][]int32
 	if sc == [3]float64{1, 1, 1} {
 		nv.totN, nv.totV = tot[0], tot[1]
 	}
-	f.ranked[0], f.ranked[1] = grow(f.ranked[0], nu), grow(f.ranked[1], nu)
+	f.ranked[0], f.ranked[1] = grow(f.ranked[0], nu+4), grow(f.ranked[1], nu+4)
 	for j, x := range xs {
 		nz := w.noiseAt[j]
 		g := &sg[j]
@@ -627,14 +627,15 @@ func (fc *foldCase) foldSigned(f *fold, w *work, nv *foldNV, kept *[2][2][]int32
 
 // listReaching lists in r0, in their order, the units whose M (mv) is at
 // least t0, and in r1 those whose M is at most −t1 (t0, t1 > 0), and
-// returns the two lists. r0 and r1 hold at least len(mv) entries. Most
-// units reach neither: one well-predicted branch each.
+// returns the two lists. r0 and r1 hold at least len(mv) + 4 entries (see
+// listReachingAVX). Most units reach neither: one well-predicted branch
+// each (with AVX, for four).
 func listReaching(mv []float64, t0, t1 float64, r0, r1 []int32) [2][]int32 {
-	r0, r1 = r0[:len(mv)], r1[:len(mv)]
+	r0, r1 = r0[:len(mv)+4], r1[:len(mv)+4]
 	n0, n1, from := 0, 0, 0
 	if useAVX && len(mv) >= 4 {
 		from = len(mv) &^ 3
-		n0, n1 = listReachingAVX(&mv[0], from, t0, t1, &r0[0], &r1[0])
+		n0, n1 = listReachingAVX(&mv[0], from, t0, t1, &r0[0], &r1[0], lanes)
 	}
 	for u := from; u < len(mv); u++ {
 		m := mv[u]
@@ -928,7 +929,7 @@ func (pl *exactPlacement) scanFolded(e *evaluator, w *work, f *fold, i, k int, r
 			if !(above < math.Inf(1)) {
 				above = math.NaN() // none is: no unit listed
 			}
-			f.ranked[0], f.ranked[1] = grow(f.ranked[0], nu), grow(f.ranked[1], nu)
+			f.ranked[0], f.ranked[1] = grow(f.ranked[0], nu+4), grow(f.ranked[1], nu+4)
 			ranked = listReaching(mv[:nu], max(pre[0], cut[0], above), max(pre[1], cut[1], above), f.ranked[0], f.ranked[1])
 		}
 		for s := range ranked {

@@ -239,3 +239,25 @@ func foldSigns(xn, xv, n, v, a []float64, nz [2]float64) (sg [2]stationSigns, to
 	}
 	return sg, tot
 }
+
+// laneTable gives, for each mask of four lanes (bit l for lane l), the
+// lanes set in order (the rest 0) and how many are set: what
+// listReachingAVX lists a group of four units by.
+type laneTable struct {
+	idx [16][4]int32
+	cnt [16]uint8
+}
+
+// lanes is the laneTable.
+var lanes = func() *laneTable {
+	var lt laneTable
+	for m := range 16 {
+		for l := range 4 {
+			if m&(1<<l) != 0 {
+				lt.idx[m][lt.cnt[m]] = int32(l)
+				lt.cnt[m]++
+			}
+		}
+	}
+	return &lt
+}()

@@ -32,12 +32,14 @@ func momentRowsAVX(rows *[4]*float64, a, v *float64, d *[6]float64, nu int, p *m
 func signSumsAVX(rows *[4]*float64, n, v *float64, nu int, c *signConsts, out *[10][4]float64)
 
 // listReachingAVX is listReaching over the first n units of mv (n a
-// multiple of 4), four units compared at once, the few that reach a
-// threshold listed one by one in their order: it returns how many units
-// it listed in r0 and in r1.
+// multiple of 4), four units compared at once, and those of a group that
+// reach a threshold listed at once, in their order, from the lanes set
+// (lt, lanes): it returns how many units it listed in r0 and in r1, which
+// hold at least n + 4 entries (a group writes four, of which those listed
+// count).
 //
 //go:noescape
-func listReachingAVX(mv *float64, n int, t0, t1 float64, r0, r1 *int32) (n0, n1 int)
+func listReachingAVX(mv *float64, n int, t0, t1 float64, r0, r1 *int32, lt *laneTable) (n0, n1 int)
 
 // firstSignsAVX forms four stations' rows of a first-order member's
 // table of moments (table.go) with AVX, the stations in the four lanes of

@@ -370,8 +370,14 @@ sdone:
 	VZEROUPPER
 	RET
 
-// func listReachingAVX(mv *float64, n int, t0, t1 float64, r0, r1 *int32) (n0, n1 int)
-TEXT ·listReachingAVX(SB), NOSPLIT, $0-64
+// func listReachingAVX(mv *float64, n int, t0, t1 float64, r0, r1 *int32, lt *laneTable) (n0, n1 int)
+//
+// lt: at 0, for each mask of four lanes, the lanes set, in order (four
+// int32 each, 16 bytes a mask); at 256, how many are set (a byte each).
+// A group of four units with some listed writes four indices at the end
+// of each list, of which those listed count: the lists hold four entries
+// more than the units.
+TEXT ·listReachingAVX(SB), NOSPLIT, $0-72
 	MOVQ mv+0(FP), SI
 	MOVQ n+8(FP), CX
 	VBROADCASTSD t0+16(FP), Y4
@@ -380,6 +386,7 @@ TEXT ·listReachingAVX(SB), NOSPLIT, $0-64
 	VSUBPD Y5, Y6, Y5
 	MOVQ r0+32(FP), DI
 	MOVQ r1+40(FP), R8
+	MOVQ lt+48(FP), R11
 	XORQ R9, R9
 	XORQ R10, R10
 	XORQ R12, R12
@@ -402,66 +409,31 @@ lnext:
 	JLT lloop
 
 ldone:
-	MOVQ R9, n0+48(FP)
-	MOVQ R10, n1+56(FP)
+	MOVQ R9, n0+56(FP)
+	MOVQ R10, n1+64(FP)
 	VZEROUPPER
 	RET
 
 lsome:
+	// The group's first unit, in each lane.
+	VMOVQ R12, X8
+	VPSHUFD $0, X8, X8
+	// To r0, the lanes where M ≥ t0, in order.
 	VMOVMSKPD Y1, BX
-	// Lane 0: to r0 if M ≥ t0, else to r1 if M ≤ −t1.
-	MOVQ R12, R13
-	ADDQ $0, R13
-	BTL $0, BX
-	JCC n0
-	MOVL R13, (DI)(R9*4)
-	INCQ R9
-	JMP l1
-n0:
-	BTL $0, AX
-	JCC l1
-	MOVL R13, (R8)(R10*4)
-	INCQ R10
-l1:
-	// Lane 1: to r0 if M ≥ t0, else to r1 if M ≤ −t1.
-	MOVQ R12, R13
-	ADDQ $1, R13
-	BTL $1, BX
-	JCC n1
-	MOVL R13, (DI)(R9*4)
-	INCQ R9
-	JMP l2
-n1:
-	BTL $1, AX
-	JCC l2
-	MOVL R13, (R8)(R10*4)
-	INCQ R10
-l2:
-	// Lane 2: to r0 if M ≥ t0, else to r1 if M ≤ −t1.
-	MOVQ R12, R13
-	ADDQ $2, R13
-	BTL $2, BX
-	JCC n2
-	MOVL R13, (DI)(R9*4)
-	INCQ R9
-	JMP l3
-n2:
-	BTL $2, AX
-	JCC l3
-	MOVL R13, (R8)(R10*4)
-	INCQ R10
-l3:
-	// Lane 3: to r0 if M ≥ t0, else to r1 if M ≤ −t1.
-	MOVQ R12, R13
-	ADDQ $3, R13
-	BTL $3, BX
-	JCC n3
-	MOVL R13, (DI)(R9*4)
-	INCQ R9
-	JMP lnext
-n3:
-	BTL $3, AX
-	JCC lnext
-	MOVL R13, (R8)(R10*4)
-	INCQ R10
+	MOVQ BX, R13
+	SHLQ $4, R13
+	VMOVDQU (R11)(R13*1), X7
+	VPADDD X8, X7, X7
+	VMOVDQU X7, (DI)(R9*4)
+	MOVBQZX 256(R11)(BX*1), BX
+	ADDQ BX, R9
+	// To r1, the lanes where M ≤ −t1.
+	VMOVMSKPD Y2, BX
+	MOVQ BX, R13
+	SHLQ $4, R13
+	VMOVDQU (R11)(R13*1), X7
+	VPADDD X8, X7, X7
+	VMOVDQU X7, (R8)(R10*4)
+	MOVBQZX 256(R11)(BX*1), BX
+	ADDQ BX, R10
 	JMP lnext
