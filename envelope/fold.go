@@ -18,7 +18,10 @@ import (
 //     (adverse either way, or round-off), counted, summed and ranked once
 //     for all the stations: the fold (foldCase);
 //   - for M each such piece is classified at each station from its M₀ and
-//     V, with no table of station values;
+//     V: with AVX from a table of every piece's M at every station, formed
+//     and classified four stations at once (table.go, firstSigns), so
+//     that at each station only the pieces the ranking may keep are
+//     listed; else station by station, with no table;
 //   - the pieces that load the member (usually one: the span itself), the
 //     original cases and the member's own loads are evaluated exactly at
 //     every station, as before.
@@ -41,6 +44,15 @@ import (
 // being ΣM₀ + x·ΣV + N·Σₖ Hᵢₖ·Σuₖ; the pieces that load the member and
 // the original cases add their second-order moment from their own shape
 // (frame.Solution.SecondFrom), and so do the deflections.
+//
+// In first order with AVX, the fold of N and V classifies the units for
+// both effects at once (foldSigns) and lists only those the ranking may
+// keep (listReaching), as for M. The table's numbers are those of the
+// loop station by station to the last bit (each product rounded, then
+// added: no fused multiply-add; not where the compiler would fuse the
+// pure-Go loop's, goFuses), and so are the sums, largest sizes and counts
+// formed from it: members in first order are folded as before, to the
+// last bit, with AVX and without.
 //
 // Ranking. Of the units of each sign only the most influential are
 // listed; the ranking at a station (and the fold's of N and V) is seeded

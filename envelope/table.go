@@ -24,6 +24,13 @@ import "math"
 // share of the largest are listed (listReaching, four units compared at
 // once). Without AVX (or with -tags purego) the stations are classified
 // one by one as before.
+//
+// A first-order member's table is simpler, M = M₀ + x·V, and the
+// round-off is known before it is formed (from the units' M at the
+// member's ends): it is formed and classified in one pass, four stations
+// at once (firstSigns), the same numbers as classify and the sums form
+// from scanFolded's loop. The fold of N and V of such a member classifies
+// the units for both effects at once, two lanes (foldSigns).
 
 // momentLanes is what momentRowsAVX reads: the four lanes' stations and
 // weights (H₁, H₂, H₄, H₅), the member's axial force and the mask that
