@@ -296,17 +296,17 @@ func (f *fold) load(e *evaluator, w *work, sol *frame.Solution, m int) {
 		nu := len(pc.Units)
 		fc.n, fc.v, fc.a = grow(fc.n, nu), grow(fc.v, nu), grow(fc.a, nu)
 		ends := f.ends[e.first[p] : e.first[p]+nu]
+		if !f.second {
+			largestFirst(&big, fc.n[:nu], fc.v[:nu], fc.a[:nu], ends, fc.own, l)
+			fc.tabled, fc.summed = false, false // below, with AVX
+			continue
+		}
 		for u := range ends {
 			g := &ends[u]
 			fc.n[u], fc.v[u], fc.a[u] = -g[0], g[1], -g[2]
 		}
 		for _, u := range fc.own { // seen above, exactly
 			fc.n[u], fc.v[u], fc.a[u] = 0, 0, 0
-		}
-		if !f.second {
-			largestFirst(&big, fc.n[:nu], fc.v[:nu], fc.a[:nu], l)
-			fc.tabled, fc.summed = false, false // below, with AVX
-			continue
 		}
 		// Second order: M at every station, as StationsTo forms it. The
 		// units that load the member were seen above, exactly: their
@@ -428,24 +428,35 @@ func (f *fold) load(e *evaluator, w *work, sol *frame.Solution, m int) {
 	}
 }
 
-// largestFirst raises big to the largest sizes of N, V and M over the
-// units of a first-order member (n, v and a their N, V and M₀), M at its
-// start (a) and at its end (a + l·v), NaN left out: what load's plain
-// comparisons give, the sizes kept in registers.
-func largestFirst(big *[3]float64, n, v, a []float64, l float64) {
+// largestFirst sets n, v and a to the units' N, V and M₀ in a
+// first-order member from their local forces at its start (ends), zero
+// for the units that load it (own, ascending), and raises big to the
+// largest sizes of N, V and M over the others, M at the member's start
+// (M₀) and at its end (M₀ + l·V), NaN left out: what load's plain
+// comparisons give (a size of zero raises none), in one pass, the sizes
+// kept in registers.
+func largestFirst(big *[3]float64, n, v, a []float64, ends [][6]float64, own []int, l float64) {
 	bn, bv, bm := big[0], big[1], big[2]
-	v, a = v[:len(n)], a[:len(n)]
-	for u, x := range n {
+	v, a, ends = v[:len(n)], a[:len(n)], ends[:len(n)]
+	for u := range n {
+		if len(own) > 0 && own[0] == u {
+			n[u], v[u], a[u] = 0, 0, 0
+			own = own[1:]
+			continue
+		}
+		g := &ends[u]
+		x, y, z := -g[0], g[1], -g[2]
+		n[u], v[u], a[u] = x, y, z
 		if s := math.Abs(x); s > bn {
 			bn = s
 		}
-		if s := math.Abs(v[u]); s > bv {
+		if s := math.Abs(y); s > bv {
 			bv = s
 		}
-		if s := math.Abs(a[u]); s > bm {
+		if s := math.Abs(z); s > bm {
 			bm = s
 		}
-		if s := math.Abs(a[u] + l*v[u]); s > bm {
+		if s := math.Abs(z + l*y); s > bm {
 			bm = s
 		}
 	}
