@@ -145,9 +145,24 @@ func (pl *exactPlacement) scan(e *evaluator, w *work) {
 
 // extremes is noPlacement.extremes with this placement's combine: the
 // effect sought first (combineOne), and the forces acting with it only
-// for a combination that makes it worse, the same numbers.
+// for a combination that makes it worse, the same numbers. (Not where
+// the compiler may fuse a product and a sum, goFuses: it might fuse them
+// in one function and not in the other.)
 func (pl *exactPlacement) extremes(e *evaluator, w *work) [3]Extreme {
 	out := [3]Extreme{empty(), empty(), empty()}
+	if goFuses {
+		for k := range e.cs {
+			for j := range e.nEff {
+				if hi := pl.combine(e, w, k, j, true); hi[j] > out[j].Max {
+					out[j].Max, out[j].MaxBy, out[j].MaxWith = hi[j], k, hi
+				}
+				if lo := pl.combine(e, w, k, j, false); lo[j] < out[j].Min {
+					out[j].Min, out[j].MinBy, out[j].MinWith = lo[j], k, lo
+				}
+			}
+		}
+		return out
+	}
 	for k := range e.cs {
 		for j := range e.nEff {
 			if pl.combineOne(e, w, k, j, true) > out[j].Max {
