@@ -150,7 +150,7 @@ type foldCase struct {
 	u  [][6]float64
 	mt []float64
 	// In first order, with AVX, mt holds every unit's M = M₀ + x·V at
-	// every station too (firstTable). tabled is whether mt holds the
+	// every station too (firstSigns). tabled is whether mt holds the
 	// table.
 	tabled bool
 	// When summed, tot[i] is the sum of row i of mt over the units, in

@@ -87,9 +87,9 @@ func hasAVX() bool {
 	return eax&6 == 6
 }
 
-// useAVX is whether the tables of moments are formed by momentRowsAVX
-// and firstRowsAVX; the tests turn it off to compare with the pure-Go
-// loops. Not where the compiler fuses a product and a sum into one
+// useAVX is whether the AVX kernels of this package are used (the
+// tables of moments of momentRowsAVX and firstSignsAVX, and the others);
+// the tests turn it off to compare with the pure-Go loops. Not where the compiler fuses a product and a sum into one
 // multiply-add (goFuses): the kernels round each product, so their
 // numbers would no longer be those of the pure-Go loops, nor those of
 // frame's stations.
