@@ -580,10 +580,10 @@ func (fc *foldCase) fold(f *fold, w *work, nv *foldNV, kept *[2][2][]int32, seco
 		// fall short of it at one comparison.
 		for s := range ranked {
 			h := rankListed(nv.top[j][s][:0], ranked[s], x, s == 1, max(w.share*nv.big[j][s], pre[s]), w.limit)
-			// Sorted once for the member: each station's copy is then
-			// sorted for exactPlacement.pieces, which sorts a list in
-			// place otherwise.
-			sortSmallestFirst(h)
+			// Sorted once for the member (rankListed sorts a list of a
+			// limited length): each station's copy is then sorted for
+			// exactPlacement.pieces, which sorts a list in place
+			// otherwise.
 			nv.top[j][s] = h
 			kept[j][s] = kept[j][s][:0]
 			for _, c := range h {
@@ -638,7 +638,6 @@ func (fc *foldCase) foldSigned(f *fold, w *work, nv *foldNV, kept *[2][2][]int32
 		ranked := listReaching(x, max(pre[0], cut[0], above), max(pre[1], cut[1], above), f.ranked[0], f.ranked[1])
 		for s := range ranked {
 			h := rankListed(nv.top[j][s][:0], ranked[s], x, s == 1, max(cut[s], pre[s]), w.limit)
-			sortSmallestFirst(h) // see fold
 			nv.top[j][s] = h
 			kept[j][s] = kept[j][s][:0]
 			for _, c := range h {
@@ -773,8 +772,26 @@ func largestOver(list []int32, vals []float64) float64 {
 
 // rankListed adds to h, a heap of keepLargest, the units listed (of one
 // sign, past the round-off) by the size of their value in vals (negated
-// for the negative ones), in their order, that reach thr.
+// for the negative ones), in their order, that reach thr. With a limit
+// to the list and h empty, it keeps h sorted the smallest first
+// (keepAscending: a heap too, the same units), so that it need not be
+// sorted for exactPlacement.pieces.
 func rankListed(h []candidate, list []int32, vals []float64, negative bool, thr float64, limit int) []candidate {
+	if limit != math.MaxInt && len(h) == 0 {
+		for _, u := range list {
+			x := vals[u]
+			if negative {
+				x = -x
+			}
+			if x >= thr {
+				h = keepAscending(h, candidate{piece: int(u), a: x}, limit)
+				if len(h) == limit && h[0].a >= thr {
+					thr = math.Nextafter(h[0].a, math.Inf(1))
+				}
+			}
+		}
+		return h
+	}
 	for _, u := range list {
 		x := vals[u]
 		if negative {

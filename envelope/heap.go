@@ -91,3 +91,31 @@ func keepDescending(h []candidate, c candidate, limit int) []candidate {
 	h[k] = c
 	return h
 }
+
+// keepAscending adds c to h, at most limit candidates sorted the smallest
+// first (candidate.less), dropping the smallest when full: what remains
+// are the limit largest seen, the same as keepLargest keeps, in order (so
+// a heap of keepLargest too). For a short list the moves cost less than
+// the heap's comparisons and its sorting after.
+func keepAscending(h []candidate, c candidate, limit int) []candidate {
+	n := len(h)
+	if n < limit {
+		h = append(h, c)
+		k := n
+		for ; k > 0 && c.less(h[k-1]); k-- {
+			h[k] = h[k-1]
+		}
+		h[k] = c
+		return h
+	}
+	if !h[0].less(c) {
+		return h
+	}
+	// h[0] dropped: c goes after every other kept one less than it.
+	k := 0
+	for ; k+1 < n && h[k+1].less(c); k++ {
+		h[k] = h[k+1]
+	}
+	h[k] = c
+	return h
+}

@@ -89,9 +89,10 @@ func TestCandidateOrder(t *testing.T) {
 	}
 }
 
-// TestKeepDescendingKeepsTheLargest checks keepDescending against the
-// definition of the limit largest (every candidate sorted by influence,
-// the first limit of them), in order, whatever the order the candidates
+// TestKeepDescendingKeepsTheLargest checks keepDescending and
+// keepAscending against the definition of the limit largest (every
+// candidate sorted by influence, the first limit of them), in order,
+// whatever the order the candidates
 // come in, with ties common (they keep the earlier piece) and repeated
 // candidates (the same piece and size twice, as two patterned terms of a
 // hand-made layout could give); and sortSmallestFirst against a general
@@ -136,9 +137,10 @@ func TestKeepDescendingKeepsTheLargest(t *testing.T) {
 					all = slices.Clone(order)
 					rng.Shuffle(len(order), func(i, j int) { order[i], order[j] = order[j], order[i] })
 				}
-				var h, heap []candidate
+				var h, asc, heap []candidate
 				for _, c := range order {
 					h = keepDescending(h, c, tc.limit)
+					asc = keepAscending(asc, c, tc.limit)
 					heap = keepLargest(heap, c, tc.limit)
 				}
 				want := slices.SortedFunc(slices.Values(all), byInfluence)
@@ -150,6 +152,9 @@ func TestKeepDescendingKeepsTheLargest(t *testing.T) {
 				slices.Reverse(want)
 				if !slices.Equal(heap, want) {
 					t.Fatalf("trial %d: sorted %v, want %v", trial, heap, want)
+				}
+				if !slices.Equal(asc, want) {
+					t.Fatalf("trial %d: kept ascending %v, want %v", trial, asc, want)
 				}
 				// Still a heap: the largest yet is kept.
 				c := candidate{piece: -1, a: float64(tc.sizes) + 1}
