@@ -49,6 +49,10 @@ type evaluator struct {
 	// name the same first piece (as patterns.Expand makes them), so that
 	// the spans lists need not look for repeats (spanList.order).
 	distinct bool
+	// piece0 gives, per patterned case, each unit's first piece (its
+	// Pieces[0], -1 for none): what exactPlacement.pieces lists, read
+	// from one short slice rather than from each unit's.
+	piece0 [][]int
 }
 
 func newEvaluator(mo *frame.Model, cs []combos.Combination, idx []int, nEff int, set Settings, lay *patterns.Layout) *evaluator {
@@ -114,6 +118,10 @@ func newEvaluator(mo *frame.Model, cs []combos.Combination, idx []int, nEff int,
 			e.unitCase = nil
 		}
 		e.distinct = distinctPieces(lay)
+		e.piece0 = make([][]int, len(lay.Patterned))
+		for p, pc := range lay.Patterned {
+			e.piece0[p] = firstPieces(pc.Units)
+		}
 	}
 	return e
 }

@@ -1,6 +1,10 @@
 package envelope
 
-import "math"
+import (
+	"math"
+
+	"govern/patterns"
+)
 
 // exactPlacement places each piece of a patterned case on its own, where
 // its factored effect makes the extreme sought worse (patterns.Exact):
@@ -253,10 +257,37 @@ func (pl *exactPlacement) pieces(e *evaluator, w *work, l *spanList, k, p, j int
 	}
 	sortSmallestFirst(top)
 	l.sorted = true
+	piece0 := units0(e, p)
 	for q := len(top) - 1; q >= 0 && top[q].a >= cut; q-- {
-		l.ranked = keepDescending(l.ranked, candidate{piece: units[top[q].piece].Pieces[0], a: top[q].a * af}, w.limit)
+		pc := piece0[top[q].piece]
+		if pc < 0 {
+			pc = units[top[q].piece].Pieces[0] // none: as before
+		}
+		l.ranked = keepDescending(l.ranked, candidate{piece: pc, a: top[q].a * af}, w.limit)
 	}
 	return pl.count[p][j][s]
+}
+
+// units0 returns each unit's first piece for patterned case p of e
+// (evaluator.piece0), formed here for an evaluator not made by
+// newEvaluator (the tests'), -1 for none.
+func units0(e *evaluator, p int) []int {
+	if e.piece0 != nil {
+		return e.piece0[p]
+	}
+	return firstPieces(e.lay.Patterned[p].Units)
+}
+
+// firstPieces returns each unit's first piece, -1 for none.
+func firstPieces(units []patterns.Unit) []int {
+	out := make([]int, len(units))
+	for u, un := range units {
+		out[u] = -1
+		if len(un.Pieces) > 0 {
+			out[u] = un.Pieces[0]
+		}
+	}
+	return out
 }
 
 // sign returns the index of the sign sought: 0 for the positive units when
