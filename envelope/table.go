@@ -164,9 +164,9 @@ func signsOf(sg []stationSigns, mt, n, v []float64, nz float64) {
 }
 
 // firstConsts is what firstSignsAVX reads: the four lanes' stations, the
-// round-off nz and −nz, the mask that clears a number's sign and 1.
+// round-off nz and −nz, and 1.
 type firstConsts struct {
-	x, nz, negNz, mask, one [4]float64
+	x, nz, negNz, one [4]float64
 }
 
 // firstSigns sets mt[i*nu+u], nu = len(a), to unit u's M = a[u] + xs[i]·v[u]
@@ -185,7 +185,7 @@ func firstSigns(mt, tot []float64, sg []stationSigns, xs, a, v, n []float64, nz 
 	v, n, mt, tot, sg = v[:nu], n[:nu], mt[:ns*nu], tot[:ns], sg[:ns]
 	c := firstConsts{}
 	for l := range 4 {
-		c.nz[l], c.negNz[l], c.mask[l], c.one[l] = nz, -nz, math.Float64frombits(1<<63-1), 1
+		c.nz[l], c.negNz[l], c.one[l] = nz, -nz, 1
 	}
 	var rows [4]*float64
 	var out [11][4]float64

@@ -77,8 +77,8 @@ done:
 
 // func firstSignsAVX(rows *[4]*float64, a, v, n *float64, nu int, c *firstConsts, out *[11][4]float64)
 //
-// c: the stations x at 0, nz at 32, −nz at 64, the mask of a size at 96,
-// ones at 128 (four lanes each). out: the positive units' sums of n, v
+// c: the stations x at 0, nz at 32, −nz at 64, ones at 96 (four lanes
+// each). out: the positive units' sums of n, v
 // and M, the round-off units' sums of the same, the largest size of the
 // positive and of the negative units, the counts of each, and the sum of
 // every unit's M.
@@ -134,17 +134,17 @@ floop:
 	VADDPD Y15, Y1, Y1
 	VANDPD Y12, Y11, Y15
 	VADDPD Y15, Y2, Y2
+	// The largest positive M (+0 for the others; VMAXPD gives its second
+	// source, the running largest, for equal ones), and the smallest
+	// negative one (the same, VMINPD), whose size is its negation.
+	VMAXPD Y6, Y15, Y6
+	VANDPD Y13, Y11, Y15
+	VMINPD Y7, Y15, Y7
 	// The counts.
-	VANDPD 128(AX), Y12, Y15
+	VANDPD 96(AX), Y12, Y15
 	VADDPD Y15, Y8, Y8
-	VANDPD 128(AX), Y13, Y15
+	VANDPD 96(AX), Y13, Y15
 	VADDPD Y15, Y9, Y9
-	// The largest sizes.
-	VANDPD 96(AX), Y11, Y15
-	VANDPD Y12, Y15, Y14
-	VMAXPD Y6, Y14, Y6
-	VANDPD Y13, Y15, Y15
-	VMAXPD Y7, Y15, Y7
 	// The round-off units (neither P nor N): their sums.
 	VORPD Y12, Y13, Y12
 	VBROADCASTSD (DX)(R12*8), Y14
@@ -160,6 +160,9 @@ floop:
 	JNE floop
 
 fdone:
+	// The largest size of the negative M: 0 − the smallest (+0 for none).
+	VXORPD Y15, Y15, Y15
+	VSUBPD Y7, Y15, Y7
 	VMOVUPD Y0, 0(BX)
 	VMOVUPD Y1, 32(BX)
 	VMOVUPD Y2, 64(BX)
