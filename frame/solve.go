@@ -234,6 +234,7 @@ func (sol *Solution) solveLoadsIn(n, kb int, buf []float64) error {
 			x = buf[:n*nc] // every value is written by the solve
 		} else {
 			x = make([]float64, n*nc)
+			adviseHuge(x)
 		}
 		d := sol.pow2
 		finite = newBandSolver(sol.factor, n, kb).solveBlocks(x, nc, d, func(dst []float64, lo, hi, bw int) {
