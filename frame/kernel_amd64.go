@@ -11,6 +11,13 @@ package frame
 //go:noescape
 func combine32(dst, base *float64, rows *int32, negs *float64, n int, d float64)
 
+// unpack32 sets dst[c] = src[c]·s for c from 0 to 31 and returns the
+// sum of every dst[c] − dst[c]: 0 when all are finite numbers, NaN when
+// some is not (see unpackRow).
+//
+//go:noescape
+func unpack32(dst, src *float64, s float64) (nonFinite float64)
+
 // cpuid and xgetbv are the instructions of those names.
 func cpuid(eaxArg, ecxArg uint32) (eax, ebx, ecx, edx uint32)
 func xgetbv() (eax, edx uint32)

@@ -142,7 +142,14 @@ func (bs *bandSolver) solveBlocks(x []float64, nrhs int, d []float64, fill func(
 					bw = solveBlock
 				}
 				fill(buf[:n*bw], lo, hi, bw)
-				substitute(&fwd, &bwd, u, n, kb, buf[:n*bw], bw, offs)
+				if useAVX && cols == solveBlock {
+					// Each row written to x as the backward substitution
+					// finishes it, from the first-level cache.
+					out := unpackTo{x: x, stride: nrhs, lo: lo, d: d}
+					ok = substitute(&fwd, &bwd, u, n, kb, buf[:n*bw], bw, offs, &out) && ok
+					continue
+				}
+				substitute(&fwd, &bwd, u, n, kb, buf[:n*bw], bw, offs, nil)
 				for i := range n {
 					ok = unpackRow(x[i*nrhs+lo:i*nrhs+hi], buf[i*bw:i*bw+cols], d, i) && ok
 				}
@@ -279,9 +286,23 @@ func newTerms(u []float64, n, kb int, forward bool) terms {
 	return t
 }
 
+// unpackTo is where substitute writes each row of a whole block of
+// solveBlock columns as it finishes it: row i's to x[i·stride+lo:], times
+// d[i] (as it is where d is nil).
+type unpackTo struct {
+	x          []float64
+	stride, lo int
+	d          []float64
+}
+
 // substitute solves the packed block x, n rows of bw columns (see
-// bandSolve); offs is scratch for the rows' offsets in x.
-func substitute(fwd, bwd *terms, u []float64, n, kb int, x []float64, bw int, offs []int) {
+// bandSolve); offs is scratch for the rows' offsets in x. With out (a
+// block of solveBlock columns, with AVX), each row of the solution is
+// also written there, scaled, as the backward substitution forms it: the
+// numbers unpackRow writes, read from the first-level cache rather than
+// from the whole block again. finite reports whether every value written
+// there is a finite number (true without out).
+func substitute(fwd, bwd *terms, u []float64, n, kb int, x []float64, bw int, offs []int, out *unpackTo) (finite bool) {
 	w := kb + 1
 	start := n
 	for i, v := range x {
@@ -301,10 +322,28 @@ func substitute(fwd, bwd *terms, u []float64, n, kb int, x []float64, bw int, of
 	}
 	// Backward: U x = y, x[i] = (y[i] − Σ U[i][i+j] x[i+j]) / U[i][i]
 	// over j from 1 up.
+	if out == nil {
+		for i := n - 1; i >= 0; i-- {
+			a, b := bwd.at[i], bwd.at[i+1]
+			combineRow(x, i, bw, bwd.rows[a:b], bwd.negs[a:b], 1/u[i*w], offs)
+		}
+		return true
+	}
+	dst := out.x
+	nonFinite := 0.0
 	for i := n - 1; i >= 0; i-- {
 		a, b := bwd.at[i], bwd.at[i+1]
 		combineRow(x, i, bw, bwd.rows[a:b], bwd.negs[a:b], 1/u[i*w], offs)
+		s := 1.0
+		if out.d != nil {
+			s = out.d[i]
+		}
+		at := i*out.stride + out.lo
+		_ = dst[at+solveBlock-1]
+		_ = x[i*bw+solveBlock-1]
+		nonFinite += unpack32(&dst[at], &x[i*bw], s)
 	}
+	return nonFinite == 0
 }
 
 // combineRow forms row i of the packed block x (rows of bw) from the rows
