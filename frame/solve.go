@@ -254,7 +254,6 @@ func (sol *Solution) solveLoadsIn(n, kb int, buf []float64) error {
 			x = buf[:n*nc] // every value is written by the solve
 		} else {
 			x = make([]float64, n*nc)
-			adviseHuge(x)
 		}
 		d := sol.pow2
 		finite = sol.solver(n, kb).solveBlocks(x, nc, d, func(dst []float64, lo, hi, bw int) {
