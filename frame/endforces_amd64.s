@@ -35,8 +35,8 @@
 	VEXTRACTF128 $1, Y10, (96+OFF)(DI) \
 	VEXTRACTF128 $1, Y11, (144+OFF)(DI)
 
-// func endForces4(dst *[6]float64, r0, r1, r2, r3, r4, r5 *float64, n int, k *[6][6]float64, cs, sn float64, rows int)
-TEXT ·endForces4(SB), NOSPLIT, $0-96
+// func endForces4(dst *[6]float64, r0, r1, r2, r3, r4, r5 *float64, n int, k *[6][6]float64, cs, sn float64, rows int, disp *[6]float64)
+TEXT ·endForces4(SB), NOSPLIT, $0-104
 	MOVQ dst+0(FP), DI
 	MOVQ r0+8(FP), R8
 	MOVQ r1+16(FP), R9
@@ -49,6 +49,7 @@ TEXT ·endForces4(SB), NOSPLIT, $0-96
 	VBROADCASTSD cs+72(FP), Y14
 	VBROADCASTSD sn+80(FP), Y15
 	MOVQ rows+88(FP), DX
+	MOVQ disp+96(FP), BX
 	XORQ AX, AX
 	TESTQ CX, CX
 	JE done
@@ -75,6 +76,17 @@ loop:
 	VMULPD Y8, Y15, Y11
 	VSUBPD Y11, Y4, Y4
 
+	// The local displacements too, where disp is given.
+	TESTQ BX, BX
+	JE forces
+	XCHGQ BX, DI
+	PAIR(Y0, Y1, 0)
+	PAIR(Y2, Y3, 16)
+	PAIR(Y4, Y5, 32)
+	XCHGQ BX, DI
+	ADDQ $192, BX
+
+forces:
 	ROW(0, Y6)
 	ROW(48, Y7)
 	PAIR(Y6, Y7, 0)

@@ -39,7 +39,8 @@ func oddFrame(rng *rand.Rand, nc int) *Model {
 }
 
 // The end forces of every case at once, four lanes at a time with AVX,
-// are the pure-Go ones to the last bit, and those of EndForces, for every
+// are the pure-Go ones to the last bit (with the local displacements,
+// those of DisplacementsEach), and those of EndForces, for every
 // number of cases around the width of the lanes, members sloping, drawn
 // right to left and released, cases that load a member and cases that do
 // not.
@@ -55,17 +56,27 @@ func TestEndForcesLanesAreThePureGoOnes(t *testing.T) {
 		for _, rows := range []int{3, 6} {
 			t.Run(fmt.Sprintf("%d-cases/%d-rows", nc, rows), func(t *testing.T) {
 				lanes, plain := make([][6]float64, nc), make([][6]float64, nc)
+				both, disp, plainDisp := make([][6]float64, nc), make([][6]float64, nc), make([][6]float64, nc)
 				for m := range mo.Members {
 					for c := range lanes {
 						lanes[c] = [6]float64{1, 2, 3, 4, 5, 6} // overwritten
 					}
 					useAVX = true
 					sol.endForcesEach(lanes, m, rows)
+					if rows == 3 {
+						sol.StartForcesAndDisplacementsEach(both, disp, m)
+					}
 					useAVX = false
 					sol.endForcesEach(plain, m, rows)
+					if rows == 3 {
+						sol.DisplacementsEach(plainDisp, m)
+					}
 					for c := range nc {
 						if !sameBits(lanes[c][:], plain[c][:]) {
 							t.Fatalf("member %d case %d: lanes %v, pure Go %v", m, c, lanes[c], plain[c])
+						}
+						if rows == 3 && (!sameBits(both[c][:], plain[c][:]) || !sameBits(disp[c][:], plainDisp[c][:])) {
+							t.Fatalf("member %d case %d: StartForcesAndDisplacementsEach %v %v, pure Go %v %v", m, c, both[c], disp[c], plain[c], plainDisp[c])
 						}
 						f := sol.EndForces(c, m)
 						for i := range 6 {
@@ -134,13 +145,18 @@ func TestEndForces4Bits(t *testing.T) {
 			}
 		}
 		for _, rows := range []int{3, 6} {
-			got := make([][6]float64, nc)
-			endForces4(&got[0], &disp[0][0], &disp[1][0], &disp[2][0], &disp[3][0], &disp[4][0], &disp[5][0], nc/4, &k, cs, sn, rows)
+			got, local := make([][6]float64, nc), make([][6]float64, nc)
+			endForces4(&got[0], &disp[0][0], &disp[1][0], &disp[2][0], &disp[3][0], &disp[4][0], &disp[5][0], nc/4, &k, cs, sn, rows, &local[0])
+			alone := make([][6]float64, nc) // without the displacements
+			endForces4(&alone[0], &disp[0][0], &disp[1][0], &disp[2][0], &disp[3][0], &disp[4][0], &disp[5][0], nc/4, &k, cs, sn, rows, nil)
 			for c := range nc {
 				var want [6]float64
-				endForcesCol(&want, &k, cs, sn, &disp, c, rows)
-				if !sameBits(got[c][:], want[:]) {
-					t.Fatalf("trial %d, %d rows, case %d: kernel %v, pure Go %v", trial, rows, c, got[c], want)
+				u := endForcesCol(&want, &k, cs, sn, &disp, c, rows)
+				if !sameBits(got[c][:], want[:]) || !sameBits(alone[c][:], want[:]) {
+					t.Fatalf("trial %d, %d rows, case %d: kernel %v (%v without the displacements), pure Go %v", trial, rows, c, got[c], alone[c], want)
+				}
+				if !sameBits(local[c][:], u[:]) {
+					t.Fatalf("trial %d, %d rows, case %d: local displacements %v, pure Go %v", trial, rows, c, local[c], u)
 				}
 			}
 		}
@@ -188,6 +204,89 @@ func BenchmarkEndForcesEach(b *testing.B) {
 					}
 				})
 			}
+		}
+	}
+}
+
+// stationsToRef is stationsTo as it was, each case's end forces formed
+// alone (endForcesTo, from values a row apart): the reference the
+// per-member form must equal to the last bit.
+func (sol *Solution) stationsToRef(dst []Forces, defl []float64, m int, xs []float64) {
+	e := &sol.elems[m]
+	var w [][6]float64
+	if e.so != nil {
+		w = e.weights(xs)
+	}
+	var f [6]float64
+	for c := range len(sol.model.Cases) {
+		sol.endForcesTo(&f, c, m)
+		idx, _ := sol.loadsOn(c, m)
+		row := dst[c*len(xs) : (c+1)*len(xs)]
+		loads := sol.model.Cases[c].MemberLoads
+		if defl != nil {
+			deflectionsTo(defl[c*len(xs):(c+1)*len(xs)], &f, e, loads, idx, xs)
+		}
+		if len(idx) == 0 {
+			for i, x := range xs {
+				row[i] = Forces{N: -f[0], V: f[1], M: -f[2] + x*f[1]}
+			}
+		} else {
+			for i, x := range xs {
+				row[i] = stationForces(f[0], f[1], f[2], x, e.l, e.c, e.s, loads, idx)
+			}
+		}
+		if e.so != nil {
+			var d []float64
+			if defl != nil {
+				d = defl[c*len(xs) : (c+1)*len(xs)]
+			}
+			sol.secondWith(w, row, d, c, m, xs)
+		}
+	}
+}
+
+// The stations of every case, formed from the end forces of all of them
+// at once, are those of each case formed alone, to the last bit: first and
+// second order, with and without AVX, on the odd frame (sloping, drawn
+// right to left, released) and on a shuffled grid with every kind of load.
+func TestStationsFromEveryCaseAreThePerCaseOnes(t *testing.T) {
+	defer func(v bool) { useAVX = v }(useAVX)
+	odd := oddFrame(rand.New(rand.NewPCG(8, 1)), 11)
+	grid := columnsFrame()
+	axial := make([]float64, len(grid.Members))
+	for m := range axial {
+		axial[m] = -150 + 20*float64(m%5)
+	}
+	xs := []float64{0, 0.3, 1.1, 2.5, 3.5}
+	for _, tc := range []struct {
+		name  string
+		mo    *Model
+		axial []float64
+	}{{"odd frame", odd, nil}, {"grid", grid, nil}, {"grid, second order", grid, axial}} {
+		sol, err := SolveWith(tc.mo, Options{Axial: tc.axial})
+		if err != nil {
+			t.Fatal(err)
+		}
+		nc := len(tc.mo.Cases)
+		for _, avx := range []bool{false, true} {
+			if avx && !hasAVX() {
+				continue
+			}
+			t.Run(fmt.Sprintf("%s/avx=%v", tc.name, avx), func(t *testing.T) {
+				useAVX = avx
+				got, want := make([]Forces, len(xs)*nc), make([]Forces, len(xs)*nc)
+				gotDefl, wantDefl := make([]float64, len(xs)*nc), make([]float64, len(xs)*nc)
+				for m := range tc.mo.Members {
+					sol.StationsAndDeflectionsTo(got, gotDefl, m, xs)
+					sol.stationsToRef(want, wantDefl, m, xs)
+					for i := range got {
+						g, w := got[i], want[i]
+						if !sameBits([]float64{g.N, g.V, g.M, gotDefl[i]}, []float64{w.N, w.V, w.M, wantDefl[i]}) {
+							t.Fatalf("member %d case %d x %v: %v (deflection %v), case by case %v (%v)", m, i/len(xs), xs[i%len(xs)], g, gotDefl[i], w, wantDefl[i])
+						}
+					}
+				}
+			})
 		}
 	}
 }
