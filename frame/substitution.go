@@ -115,7 +115,8 @@ func (bs *bandSolver) solveBlocks(x []float64, nrhs int, d []float64, fill func(
 	}
 	u, n, kb := bs.u, bs.n, bs.kb
 	fwd, bwd := bs.fwd, bs.bwd
-	nb := (nrhs + solveBlock - 1) / solveBlock
+	spans, width := blockSpans(nrhs)
+	nb := len(spans)
 	workers := min(runtime.GOMAXPROCS(0), nb)
 	var wg sync.WaitGroup
 	bad := make([]bool, workers)
@@ -129,20 +130,16 @@ func (bs *bandSolver) solveBlocks(x []float64, nrhs int, d []float64, fill func(
 		go func() {
 			defer wg.Done()
 			offs := make([]int, 0, kb)
-			buf := make([]float64, n*solveBlock)
+			buf := make([]float64, n*width)
 			ok := true
 			for b := range next {
-				lo, hi := b*solveBlock, min((b+1)*solveBlock, nrhs)
 				// The block's columns packed, rows of bw ≥ hi−lo: the rows
 				// one row reads are then a few kilobytes apart, not nrhs
 				// words.
+				lo, hi, bw := spans[b][0], spans[b][1], spans[b][2]
 				cols := hi - lo
-				bw := cols
-				if useAVX && cols < solveBlock {
-					bw = solveBlock
-				}
 				fill(buf[:n*bw], lo, hi, bw)
-				if useAVX && cols == solveBlock {
+				if useAVX && cols == bw && (bw == solveBlock || bw == wideBlock) {
 					// Each row written to x as the backward substitution
 					// finishes it, from the first-level cache.
 					out := unpackTo{x: x, stride: nrhs, lo: lo, d: d}
@@ -164,6 +161,41 @@ func (bs *bandSolver) solveBlocks(x []float64, nrhs int, d []float64, fill func(
 		}
 	}
 	return true
+}
+
+// wideBlock is the width of a block substituted with AVX-512 (combine64):
+// each of the factor's terms, listed once, serves twice the columns of a
+// block of solveBlock, and its row index and factor are read half as
+// often.
+const wideBlock = 64
+
+// blockSpans returns the blocks the nrhs columns are substituted in, each
+// as its first column, the column past its last and its width bw (the
+// columns it holds, or more, padded with zero columns, where a kernel
+// takes a whole block: with AVX), and the widest bw. Blocks are of
+// solveBlock columns; of wideBlock with AVX-512 but for a last part of
+// solveBlock columns or fewer, which is a block of solveBlock: each
+// column is formed alike in either (combine32 and combine64 add the same
+// products in the same order), so the width changes no number.
+func blockSpans(nrhs int) (spans [][3]int, width int) {
+	width = solveBlock
+	if useAVX && useAVX512 && nrhs > solveBlock {
+		width = wideBlock
+	}
+	for lo := 0; lo < nrhs; {
+		w := width
+		if nrhs-lo <= solveBlock {
+			w = solveBlock
+		}
+		hi := min(lo+w, nrhs)
+		bw := hi - lo
+		if useAVX {
+			bw = w
+		}
+		spans = append(spans, [3]int{lo, hi, bw})
+		lo = hi
+	}
+	return spans, width
 }
 
 // unpackRow copies the packed row src (scratch: it is scaled in place)
@@ -339,24 +371,34 @@ func substitute(fwd, bwd *terms, u []float64, n, kb int, x []float64, bw int, of
 			s = out.d[i]
 		}
 		at := i*out.stride + out.lo
-		_ = dst[at+solveBlock-1]
-		_ = x[i*bw+solveBlock-1]
+		_ = dst[at+bw-1]
+		_ = x[i*bw+bw-1]
 		nonFinite += unpack32(&dst[at], &x[i*bw], s)
+		if bw == wideBlock {
+			nonFinite += unpack32(&dst[at+solveBlock], &x[i*bw+solveBlock], s)
+		}
 	}
 	return nonFinite == 0
 }
 
 // combineRow forms row i of the packed block x (rows of bw) from the rows
 // it reads and minus their factors (see combine): by combine32 for a
-// whole block where the processor has AVX. offs is scratch.
+// whole block where the processor has AVX, by combine64 for a wide one
+// where it has AVX-512. offs is scratch.
 func combineRow(x []float64, i, bw int, rows []int32, negs []float64, d float64, offs []int) {
-	if useAVX && bw == solveBlock && len(rows) > 0 {
+	if useAVX && (bw == solveBlock || bw == wideBlock) && len(rows) > 0 {
 		// Every row read lies within x.
-		_ = x[i*bw+solveBlock-1]
-		_ = x[int(rows[len(rows)-1])*bw+solveBlock-1]
+		_ = x[i*bw+bw-1]
+		_ = x[int(rows[len(rows)-1])*bw+bw-1]
 		_ = negs[len(rows)-1]
-		combine32(&x[i*bw], &x[0], &rows[0], &negs[0], len(rows), d)
-		return
+		switch {
+		case bw == solveBlock:
+			combine32(&x[i*bw], &x[0], &rows[0], &negs[0], len(rows), d)
+			return
+		case useAVX512:
+			combine64(&x[i*bw], &x[0], &rows[0], &negs[0], len(rows), d)
+			return
+		}
 	}
 	offs = offs[:0]
 	for _, k := range rows {
