@@ -103,8 +103,9 @@ func (bs *bandSolver) solveScaled(x []float64, nrhs int, d []float64) (finite bo
 // row zero. The block is substituted and its solution written to x,
 // times d again, and finite reports whether every value written is a
 // finite number (checked as the rows are unpacked, while they are in
-// cache). x is only written. A last block narrower than solveBlock is
-// padded with zero columns to a whole one where combine32 is used: each
+// cache). x is only written. The blocks are blockSpans'. A last block
+// narrower than its width is padded with zero columns to a whole one
+// where combine32 (or combine64) is used: each
 // column is formed on its own, in the same order of operations at any
 // width, and zero columns move no block's first non-zero row, so its
 // columns come out the same to the last bit, and a whole block by
@@ -319,7 +320,7 @@ func newTerms(u []float64, n, kb int, forward bool) terms {
 }
 
 // unpackTo is where substitute writes each row of a whole block of
-// solveBlock columns as it finishes it: row i's to x[i·stride+lo:], times
+// solveBlock or wideBlock columns as it finishes it: row i's to x[i·stride+lo:], times
 // d[i] (as it is where d is nil).
 type unpackTo struct {
 	x          []float64
@@ -329,7 +330,7 @@ type unpackTo struct {
 
 // substitute solves the packed block x, n rows of bw columns (see
 // bandSolve); offs is scratch for the rows' offsets in x. With out (a
-// block of solveBlock columns, with AVX), each row of the solution is
+// whole block of solveBlock or wideBlock columns, with AVX), each row of the solution is
 // also written there, scaled, as the backward substitution forms it: the
 // numbers unpackRow writes, read from the first-level cache rather than
 // from the whole block again. finite reports whether every value written
