@@ -200,3 +200,48 @@ func BenchmarkComputeSecondOrder(b *testing.B) {
 		})
 	}
 }
+
+// BenchmarkFirstOrderMembers measures Compute on first-order solutions of
+// regularFrame with its live loads placed span by span (exact), over the
+// strength combinations of frameCombos (no deflections), where nearly all
+// the time goes to the folded members: with the AVX kernels where the
+// processor has them ("avx": the table of moments classified four stations
+// at once, the fold of N and V both at once, the units that may be listed
+// found four at a time) and without ("go": each station classified one by
+// one, as -tags purego builds it), to the same results.
+func BenchmarkFirstOrderMembers(b *testing.B) {
+	cs := frameCombos()
+	for _, size := range []struct{ bays, storeys int }{{10, 10}, {30, 20}, {30, 60}} {
+		lay, err := patterns.Expand(regularFrame(size.bays, size.storeys), []int{1, 2}, 1, patterns.Exact)
+		if err != nil {
+			b.Fatal(err)
+		}
+		sol, err := frame.Solve(lay.Model)
+		if err != nil {
+			b.Fatal(err)
+		}
+		set := Settings{Kinds: kindsOf(sol, lay), Stations: 11}
+		for _, avx := range []bool{true, false} {
+			if avx && !useAVX {
+				continue
+			}
+			kernels := "go"
+			if avx {
+				kernels = "avx"
+			}
+			b.Run(fmt.Sprintf("%dx%d/%s", size.bays, size.storeys, kernels), func(b *testing.B) {
+				defer func(v bool) { useAVX = v }(useAVX)
+				useAVX = avx
+				b.ReportAllocs()
+				b.ResetTimer()
+				start := cputime.Now()
+				for b.Loop() {
+					if _, err := Compute(sol, cs, set, lay); err != nil {
+						b.Fatal(err)
+					}
+				}
+				reportCPU(b, start)
+			})
+		}
+	}
+}

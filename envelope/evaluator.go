@@ -45,6 +45,14 @@ type evaluator struct {
 	fac    [][][3]float64
 	caseOf []int
 	parts  []*evaluator
+	// distinct is whether no two units of the layout's patterned cases
+	// name the same first piece (as patterns.Expand makes them), so that
+	// the spans lists need not look for repeats (spanList.order).
+	distinct bool
+	// piece0 gives, per patterned case, each unit's first piece (its
+	// Pieces[0], -1 for none): what exactPlacement.pieces lists, read
+	// from one short slice rather than from each unit's.
+	piece0 [][]int
 }
 
 func newEvaluator(mo *frame.Model, cs []combos.Combination, idx []int, nEff int, set Settings, lay *patterns.Layout) *evaluator {
@@ -109,8 +117,31 @@ func newEvaluator(mo *frame.Model, cs []combos.Combination, idx []int, nEff int,
 		if slices.Contains(e.unitCase, -1) {
 			e.unitCase = nil
 		}
+		e.distinct = distinctPieces(lay)
+		e.piece0 = make([][]int, len(lay.Patterned))
+		for p, pc := range lay.Patterned {
+			e.piece0[p] = firstPieces(pc.Units)
+		}
 	}
 	return e
+}
+
+// distinctPieces reports whether no two units of lay's patterned cases
+// name the same first piece.
+func distinctPieces(lay *patterns.Layout) bool {
+	seen := make(map[int]bool)
+	for _, pc := range lay.Patterned {
+		for _, u := range pc.Units {
+			if len(u.Pieces) == 0 {
+				continue
+			}
+			if seen[u.Pieces[0]] {
+				return false
+			}
+			seen[u.Pieces[0]] = true
+		}
+	}
+	return true
 }
 
 // plan forms the groups of joined terms of each combination of e.cs
@@ -176,8 +207,11 @@ type work struct {
 	only  int         // when not 0, exact placement scans effect only−1 alone (endMoments)
 	fold  fold        // the current member folded, for exact placement (fold.go)
 	lists [6]spanList // pieces being collected: max and min of N, V, M
-	share float64     // a piece is listed with at least this share of the largest one's effect
-	limit int         // most pieces listed: maxSpans, or unlimited with AllSpans
+	// spanBuf is the rest of the chunk the stations' lists are copied
+	// into (spans).
+	spanBuf []int
+	share   float64 // a piece is listed with at least this share of the largest one's effect
+	limit   int     // most pieces listed: maxSpans, or unlimited with AllSpans
 }
 
 // scratch returns scratch space for one goroutine enveloping with e, with

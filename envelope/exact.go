@@ -1,6 +1,10 @@
 package envelope
 
-import "math"
+import (
+	"math"
+
+	"govern/patterns"
+)
 
 // exactPlacement places each piece of a patterned case on its own, where
 // its factored effect makes the extreme sought worse (patterns.Exact):
@@ -143,20 +147,62 @@ func (pl *exactPlacement) scan(e *evaluator, w *work) {
 	}
 }
 
-// extremes is noPlacement.extremes with this placement's combine.
+// extremes is noPlacement.extremes with this placement's combine: the
+// effect sought first (combineOne), and the forces acting with it only
+// for a combination that makes it worse, the same numbers. (Not where
+// the compiler may fuse a product and a sum, goFuses: it might fuse them
+// in one function and not in the other.)
 func (pl *exactPlacement) extremes(e *evaluator, w *work) [3]Extreme {
 	out := [3]Extreme{empty(), empty(), empty()}
+	if goFuses {
+		for k := range e.cs {
+			for j := range e.nEff {
+				if hi := pl.combine(e, w, k, j, true); hi[j] > out[j].Max {
+					out[j].Max, out[j].MaxBy, out[j].MaxWith = hi[j], k, hi
+				}
+				if lo := pl.combine(e, w, k, j, false); lo[j] < out[j].Min {
+					out[j].Min, out[j].MinBy, out[j].MinWith = lo[j], k, lo
+				}
+			}
+		}
+		return out
+	}
 	for k := range e.cs {
 		for j := range e.nEff {
-			if hi := pl.combine(e, w, k, j, true); hi[j] > out[j].Max {
+			if pl.combineOne(e, w, k, j, true) > out[j].Max {
+				hi := pl.combine(e, w, k, j, true)
 				out[j].Max, out[j].MaxBy, out[j].MaxWith = hi[j], k, hi
 			}
-			if lo := pl.combine(e, w, k, j, false); lo[j] < out[j].Min {
+			if pl.combineOne(e, w, k, j, false) < out[j].Min {
+				lo := pl.combine(e, w, k, j, false)
 				out[j].Min, out[j].MinBy, out[j].MinWith = lo[j], k, lo
 			}
 		}
 	}
 	return out
+}
+
+// combineOne is combine's effect j alone: the same terms added in the
+// same order, so the same number to the last bit.
+func (pl *exactPlacement) combineOne(e *evaluator, w *work, k, j int, hi bool) float64 {
+	var tot float64
+	act := e.acting(w, k, j, hi)
+	for i, t := range e.cs[k].Terms {
+		f := t.Factor
+		if act == nil {
+			if a := f * w.ev[t.Case][j]; e.always[t.Case] || (hi && a > 0) || (!hi && a < 0) {
+				tot += f * w.ev[t.Case][j]
+			}
+		} else if act[i] {
+			tot += f * w.ev[t.Case][j]
+		}
+		p := e.patternOf[t.Case]
+		if p < 0 {
+			continue
+		}
+		tot += f * pl.sum[p][j][sign(hi == (f >= 0))][j]
+	}
+	return tot
 }
 
 // combine adds, for each patterned term, the sum of the units of the sign
@@ -186,16 +232,62 @@ func (pl *exactPlacement) combine(e *evaluator, w *work, k, j int, hi bool) [3]f
 // influential of them, with at least w.share of the largest one's effect,
 // for listing: ranked by factored size, so that pieces of cases with
 // different factors rank fairly against each other.
+//
+// With a limit to the lists, the units are sorted the smallest first (in
+// place: still a heap; one comparison each when the scan sorted them)
+// and offered the largest first to the list, kept sorted the largest
+// first (keepDescending), so that spanList.order need not sort it: the
+// same pieces in the same order as keepLargest and sortLargestFirst give.
+// The factored sizes are the units' times one factor, so in the same
+// order but where two round to the same size, and keepDescending places
+// each where its factored size and piece put it.
 func (pl *exactPlacement) pieces(e *evaluator, w *work, l *spanList, k, p, j int, f float64, hi bool) int {
 	s := sign(hi == (f >= 0))
 	units := e.lay.Patterned[p].Units
 	cut := w.share * pl.big[p][j][s]
-	for _, c := range pl.top[p][j][s] {
-		if c.a >= cut {
-			l.ranked = keepLargest(l.ranked, candidate{piece: units[c.piece].Pieces[0], a: c.a * math.Abs(f)}, w.limit)
+	top := pl.top[p][j][s]
+	af := math.Abs(f)
+	if w.limit == math.MaxInt {
+		for _, c := range top {
+			if c.a >= cut {
+				l.ranked = keepLargest(l.ranked, candidate{piece: units[c.piece].Pieces[0], a: c.a * af}, w.limit)
+			}
 		}
+		return pl.count[p][j][s]
+	}
+	sortSmallestFirst(top)
+	l.sorted = true
+	piece0 := units0(e, p)
+	for q := len(top) - 1; q >= 0 && top[q].a >= cut; q-- {
+		pc := piece0[top[q].piece]
+		if pc < 0 {
+			pc = units[top[q].piece].Pieces[0] // none: as before
+		}
+		l.ranked = keepDescending(l.ranked, candidate{piece: pc, a: top[q].a * af}, w.limit)
 	}
 	return pl.count[p][j][s]
+}
+
+// units0 returns each unit's first piece for patterned case p of e
+// (evaluator.piece0), formed here for an evaluator not made by
+// newEvaluator (the tests'), -1 for none.
+func units0(e *evaluator, p int) []int {
+	if e.piece0 != nil {
+		return e.piece0[p]
+	}
+	return firstPieces(e.lay.Patterned[p].Units)
+}
+
+// firstPieces returns each unit's first piece, -1 for none.
+func firstPieces(units []patterns.Unit) []int {
+	out := make([]int, len(units))
+	for u, un := range units {
+		out[u] = -1
+		if len(un.Pieces) > 0 {
+			out[u] = un.Pieces[0]
+		}
+	}
+	return out
 }
 
 // sign returns the index of the sign sought: 0 for the positive units when

@@ -1,6 +1,7 @@
 package envelope
 
 import (
+	"fmt"
 	"math"
 	"math/rand/v2"
 	"slices"
@@ -237,4 +238,153 @@ func cmpFloat(a, b float64) int {
 		return 1
 	}
 	return 0
+}
+
+// TestPiecesSortedAsRanked checks the lists exactPlacement.pieces keeps
+// sorted (the units offered the largest first, keepDescending) against
+// the way they were formed before: every unit reaching the cut offered
+// in heap order to a heap of keepLargest, then sortLargestFirst and the
+// repeats left out (spanList.order). Two patterned cases offer their
+// units to one list, with factors that round sizes one unit of the last
+// digit apart to the same factored size (so that their order falls to
+// the pieces), sizes drawn from a few values (ties) and some below the
+// share of the largest (the cut), and with a
+// hand-made layout whose two cases share pieces (repeats).
+func TestPiecesSortedAsRanked(t *testing.T) {
+	rng := rand.New(rand.NewPCG(41, 3))
+	collided := 0
+	for _, shared := range []bool{false, true} {
+		for _, f := range []float64{1.6, 1.0 / 3, -0.7, 1} {
+			for trial := range 50 {
+				nu := []int{40, 12}[trial%2] // the list full, or holding units below the cut
+				var pcs []patterns.Patterned
+				for p := range 2 {
+					pc := patterns.Patterned{Case: p}
+					for u := range nu {
+						piece := 1000*p + u
+						if shared && u%3 == 0 {
+							piece = u
+						}
+						pc.Units = append(pc.Units, patterns.Unit{Column: 2 + p*nu + u, Pieces: []int{piece}})
+					}
+					pcs = append(pcs, pc)
+				}
+				e := &evaluator{lay: &patterns.Layout{Mode: patterns.Exact, Patterned: pcs}}
+				w := &work{share: spanShare, limit: maxSpans}
+				pl := newExactPlacement(2)
+				for p := range 2 {
+					for j := range 3 {
+						for s := range 2 {
+							var h []candidate
+							big := 0.0
+							for u := range nu {
+								a := 1 + float64(rng.IntN(6))/8
+								switch rng.IntN(4) {
+								case 0:
+									a = math.Nextafter(a, 2)
+								case 1: // over three decades, a third below the cut
+									a = math.Pow(10, -3*rng.Float64())
+								}
+								if a*math.Abs(f) == math.Nextafter(a, 2)*math.Abs(f) {
+									collided++
+								}
+								big = max(big, a)
+								if rng.IntN(3) > 0 { // the others not ranked
+									h = keepLargest(h, candidate{piece: u, a: a}, maxSpans)
+								}
+							}
+							pl.top[p][j][s], pl.big[p][j][s], pl.count[p][j][s] = h, big, nu
+						}
+					}
+				}
+				for j := range 3 {
+					for _, hi := range []bool{true, false} {
+						var want spanList
+						got := spanList{distinct: distinctPieces(e.lay)}
+						if got.distinct == shared {
+							t.Fatalf("shared %v: distinctPieces %v", shared, got.distinct)
+						}
+						for p := range 2 {
+							s := sign(hi == (f >= 0))
+							cut := w.share * pl.big[p][j][s]
+							for _, c := range pl.top[p][j][s] {
+								if c.a >= cut {
+									want.ranked = keepLargest(want.ranked, candidate{piece: pcs[p].Units[c.piece].Pieces[0], a: c.a * math.Abs(f)}, w.limit)
+								}
+							}
+						}
+						want.order()
+						for p := range 2 {
+							pl.pieces(e, w, &got, 0, p, j, f, hi)
+						}
+						got.order()
+						if !slices.Equal(got.pieces, want.pieces) {
+							t.Fatalf("shared %v f %g trial %d effect %d hi %v: listed %v, want %v", shared, f, trial, j, hi, got.pieces, want.pieces)
+						}
+					}
+				}
+			}
+		}
+	}
+	if collided == 0 {
+		t.Error("no two sizes rounded to the same factored size: the ties of factored sizes are not checked")
+	}
+}
+
+// TestCombineOneIsCombine checks that the effect sought alone
+// (exactPlacement.combineOne, which extremes compares first) is, to the
+// last bit, the same effect of the whole combination (combine), for
+// every combination, effect and sense at every station of foldFrame with
+// its live cases patterned: the same terms added in the same order. With
+// L and Lr joined in a group (Settings.Groups: the terms act by the sum
+// of the group) and without.
+func TestCombineOneIsCombine(t *testing.T) {
+	if goFuses {
+		t.Skip("the compiler may fuse products and sums: extremes does not use combineOne")
+	}
+	mo := foldFrame(false)
+	sol, lay := solvePatterned(t, mo, 2, false)
+	cs := frameCombos()
+	for _, groups := range [][]int{nil, {-1, 0, 0, -1}} {
+		t.Run(fmt.Sprintf("groups %v", groups), func(t *testing.T) {
+			set := Settings{Kinds: kindsOf(sol, lay), Stations: 11, Groups: groups}
+			idx := make([]int, len(cs))
+			for k := range idx {
+				idx[k] = k
+			}
+			e := newEvaluator(sol.Model(), cs, idx, 3, set, lay)
+			if (groups != nil) != (e.joined != nil) {
+				t.Fatalf("groups %v: joined plans %v", groups, e.joined)
+			}
+			w := e.scratch()
+			pl := w.place.(*exactPlacement)
+			compared := 0
+			for m := range mo.Members {
+				e.evaluate(w, sol, m)
+				ns := len(w.xs)
+				for i := range ns {
+					for c := range w.ev {
+						f := w.at[c*ns+i]
+						w.ev[c] = [3]float64{f.N, f.V, f.M}
+					}
+					w.noise = w.noiseAt
+					pl.scan(e, w)
+					for k := range e.cs {
+						for j := range 3 {
+							for _, hi := range []bool{true, false} {
+								got, want := pl.combineOne(e, w, k, j, hi), pl.combine(e, w, k, j, hi)[j]
+								if math.Float64bits(got) != math.Float64bits(want) {
+									t.Fatalf("member %d station %d combination %d effect %d hi %v: %v, want %v", m, i, k, j, hi, got, want)
+								}
+								compared++
+							}
+						}
+					}
+				}
+			}
+			if compared == 0 {
+				t.Fatal("nothing compared")
+			}
+		})
+	}
 }

@@ -18,7 +18,10 @@ import (
 //     (adverse either way, or round-off), counted, summed and ranked once
 //     for all the stations: the fold (foldCase);
 //   - for M each such piece is classified at each station from its M₀ and
-//     V, with no table of station values;
+//     V: with AVX from a table of every piece's M at every station, formed
+//     and classified four stations at once (table.go, firstSigns), so
+//     that at each station only the pieces the ranking may keep are
+//     listed; else station by station, with no table;
 //   - the pieces that load the member (usually one: the span itself), the
 //     original cases and the member's own loads are evaluated exactly at
 //     every station, as before.
@@ -41,6 +44,15 @@ import (
 // being ΣM₀ + x·ΣV + N·Σₖ Hᵢₖ·Σuₖ; the pieces that load the member and
 // the original cases add their second-order moment from their own shape
 // (frame.Solution.SecondFrom), and so do the deflections.
+//
+// In first order with AVX, the fold of N and V classifies the units for
+// both effects at once (foldSigns) and lists only those the ranking may
+// keep (listReaching), as for M. The table's numbers are those of the
+// loop station by station to the last bit (each product rounded, then
+// added: no fused multiply-add; not where the compiler would fuse the
+// pure-Go loop's, goFuses), and so are the sums, largest sizes and counts
+// formed from it: members in first order are folded as before, to the
+// last bit, with AVX and without.
 //
 // Ranking. Of the units of each sign only the most influential are
 // listed; the ranking at a station (and the fold's of N and V) is seeded
@@ -106,6 +118,7 @@ type fold struct {
 	held   [][6]float64   // scratch: the displacements of the units that load the member
 	cases  []foldCase     // per patterned case
 	mv     []float64      // scratch: the M of each unit at the station
+	mv2    []float64      // scratch: the scaled V of each unit (foldSigned)
 	own    []frame.Forces // scratch: the units that load the member at the station
 	// scratch: the units at the station whose M is positive, negative and
 	// round-off (classify)
@@ -136,6 +149,10 @@ type foldCase struct {
 	// station (mt[i*len(n)+u]; zero for the units that load the member).
 	u  [][6]float64
 	mt []float64
+	// In first order, with AVX, mt holds every unit's M = M₀ + x·V at
+	// every station too (firstSigns). tabled is whether mt holds the
+	// table.
+	tabled bool
 	// When summed, tot[i] is the sum of row i of mt over the units, in
 	// their order from +0, as classify forms it (table.go).
 	tot    []float64
@@ -279,19 +296,17 @@ func (f *fold) load(e *evaluator, w *work, sol *frame.Solution, m int) {
 		nu := len(pc.Units)
 		fc.n, fc.v, fc.a = grow(fc.n, nu), grow(fc.v, nu), grow(fc.a, nu)
 		ends := f.ends[e.first[p] : e.first[p]+nu]
+		if !f.second {
+			largestFirst(&big, fc.n[:nu], fc.v[:nu], fc.a[:nu], ends, fc.own, l)
+			fc.tabled, fc.summed = false, false // below, with AVX
+			continue
+		}
 		for u := range ends {
 			g := &ends[u]
 			fc.n[u], fc.v[u], fc.a[u] = -g[0], g[1], -g[2]
 		}
 		for _, u := range fc.own { // seen above, exactly
 			fc.n[u], fc.v[u], fc.a[u] = 0, 0, 0
-		}
-		if !f.second {
-			for u, a := range fc.a {
-				see(frame.Forces{N: fc.n[u], V: fc.v[u], M: a})
-				see(frame.Forces{M: a + l*fc.v[u]})
-			}
-			continue
 		}
 		// Second order: M at every station, as StationsTo forms it. The
 		// units that load the member were seen above, exactly: their
@@ -340,7 +355,7 @@ func (f *fold) load(e *evaluator, w *work, sol *frame.Solution, m int) {
 			}
 			continue
 		}
-		fc.mt = grow(fc.mt, ns*nu)
+		fc.mt, fc.tabled = grow(fc.mt, ns*nu), true
 		// Station by station (momentTable, table.go), the weights held:
 		// the same sums, in the same order, as frame.Sway. The weights of
 		// the nodes' axial
@@ -379,6 +394,21 @@ func (f *fold) load(e *evaluator, w *work, sol *frame.Solution, m int) {
 	}
 	for p := range f.cases {
 		fc := &f.cases[p]
+		if !f.second {
+			// With AVX, M at every station into the table, each
+			// station's sum and its sums, largest sizes and counts by
+			// sign (firstSigns): the numbers scanFolded forms otherwise,
+			// to the last bit. The units that load the member have M₀ =
+			// V = N = 0: +0 at every station (x ≥ 0), round-off, which
+			// leaves the sums as they are.
+			fc.signed = false
+			if nu := len(fc.n); useAVX && nu > 0 && anyUses(parts, p) {
+				fc.mt, fc.tot, fc.sg = grow(fc.mt, ns*nu), grow(fc.tot, ns), grow(fc.sg, ns)
+				fc.signed = firstSigns(fc.mt, fc.tot, fc.sg, w.xs, fc.a[:nu], fc.v[:nu], fc.n[:nu], w.noiseAt[2])
+				fc.tabled, fc.summed = fc.signed, fc.signed
+			}
+			continue
+		}
 		if fc.signed = fc.summed && anyUses(parts, p); fc.signed {
 			fc.sg = grow(fc.sg, ns)
 			signsOf(fc.sg, fc.mt, fc.n, fc.v, w.noiseAt[2])
@@ -396,6 +426,41 @@ func (f *fold) load(e *evaluator, w *work, sol *frame.Solution, m int) {
 			}
 		}
 	}
+}
+
+// largestFirst sets n, v and a to the units' N, V and M₀ in a
+// first-order member from their local forces at its start (ends), zero
+// for the units that load it (own, ascending), and raises big to the
+// largest sizes of N, V and M over the others, M at the member's start
+// (M₀) and at its end (M₀ + l·V), NaN left out: what load's plain
+// comparisons give (a size of zero raises none), in one pass, the sizes
+// kept in registers.
+func largestFirst(big *[3]float64, n, v, a []float64, ends [][6]float64, own []int, l float64) {
+	bn, bv, bm := big[0], big[1], big[2]
+	v, a, ends = v[:len(n)], a[:len(n)], ends[:len(n)]
+	for u := range n {
+		if len(own) > 0 && own[0] == u {
+			n[u], v[u], a[u] = 0, 0, 0
+			own = own[1:]
+			continue
+		}
+		g := &ends[u]
+		x, y, z := -g[0], g[1], -g[2]
+		n[u], v[u], a[u] = x, y, z
+		if s := math.Abs(x); s > bn {
+			bn = s
+		}
+		if s := math.Abs(y); s > bv {
+			bv = s
+		}
+		if s := math.Abs(z); s > bm {
+			bm = s
+		}
+		if s := math.Abs(z + l*y); s > bm {
+			bm = s
+		}
+	}
+	big[0], big[1], big[2] = bn, bv, bm
 }
 
 // boundRoom is the room a bound of the size of M leaves for the rounding
@@ -431,11 +496,20 @@ func scaleOf(e *evaluator, m, c int) [3]float64 {
 // The ranking is seeded as scanFolded seeds it, from kept, the units of
 // the lists of the member folded before with this scratch, which it then
 // holds this member's.
+//
+// In first order with AVX, the two effects are classified, summed and
+// sized at once (foldSigns), and only the units the ranking may keep are
+// listed (listReaching), as scanFolded does for M: the same numbers and
+// lists.
 func (fc *foldCase) fold(f *fold, w *work, nv *foldNV, kept *[2][2][]int32, second bool, sc [3]float64) {
 	nv.sumU = [2][2][6]float64{}
 	scaled := sc != [3]float64{1, 1, 1}
 	nu := len(fc.n)
 	fn, fv, fa := fc.n[:nu], fc.v[:nu], fc.a[:nu]
+	if !second && useAVX && nu > 0 {
+		fc.foldSigned(f, w, nv, kept, sc)
+		return
+	}
 	if scaled {
 		nv.totN, nv.totV = 0, 0
 		for u, n := range fn {
@@ -506,6 +580,64 @@ func (fc *foldCase) fold(f *fold, w *work, nv *foldNV, kept *[2][2][]int32, seco
 		// fall short of it at one comparison.
 		for s := range ranked {
 			h := rankListed(nv.top[j][s][:0], ranked[s], x, s == 1, max(w.share*nv.big[j][s], pre[s]), w.limit)
+			// Sorted once for the member (rankListed sorts a list of a
+			// limited length): each station's copy is then sorted for
+			// exactPlacement.pieces, which sorts a list in place
+			// otherwise.
+			nv.top[j][s] = h
+			kept[j][s] = kept[j][s][:0]
+			for _, c := range h {
+				kept[j][s] = append(kept[j][s], int32(c.piece))
+			}
+		}
+	}
+}
+
+// foldSigned is fold in first order with AVX (foldSigns): for each effect
+// the units' values (scaled by sc), their sums, largest sizes and counts
+// by sign, and the units of each sign that reach both the seed and the
+// share of the largest, listed in their order, ranked; every unit the
+// ranking of fold accepts (its thresholds are at least the share of the
+// largest, and it ranks only the units that reach the seed), so the same
+// lists.
+func (fc *foldCase) foldSigned(f *fold, w *work, nv *foldNV, kept *[2][2][]int32, sc [3]float64) {
+	nu := len(fc.n)
+	fn, fv, fa := fc.n[:nu], fc.v[:nu], fc.a[:nu]
+	xs := [2][]float64{fn, fv}
+	if sc != [3]float64{1, 1, 1} {
+		f.mv, f.mv2 = grow(f.mv, nu), grow(f.mv2, nu)
+		xs = [2][]float64{f.mv[:nu], f.mv2[:nu]}
+		nv.totN, nv.totV = 0, 0
+		for u, n := range fn {
+			xs[0][u], xs[1][u] = sc[0]*n, sc[1]*fv[u]
+			nv.totN += n
+			nv.totV += fv[u]
+		}
+	}
+	sg, tot := foldSigns(xs[0], xs[1], fn, fv, fa, [2]float64{w.noiseAt[0], w.noiseAt[1]})
+	if sc == [3]float64{1, 1, 1} {
+		nv.totN, nv.totV = tot[0], tot[1]
+	}
+	f.ranked[0], f.ranked[1] = grow(f.ranked[0], nu+4), grow(f.ranked[1], nu+4)
+	for j, x := range xs {
+		nz := w.noiseAt[j]
+		g := &sg[j]
+		nv.sum[j] = [2][3]float64{g.pos, g.zero}
+		nv.big[j], nv.count[j] = g.big, g.count
+		var pre [2]float64
+		if seeds(w) {
+			for s := range pre {
+				pre[s], _ = keptAt(kept[j][s], x, nz, s == 1, w.share, w.limit)
+			}
+		}
+		above := math.Nextafter(nz, math.Inf(1)) // a size past the round-off
+		if !(above < math.Inf(1)) {
+			above = math.NaN() // none is: no unit listed
+		}
+		cut := [2]float64{w.share * g.big[0], w.share * g.big[1]}
+		ranked := listReaching(x, max(pre[0], cut[0], above), max(pre[1], cut[1], above), f.ranked[0], f.ranked[1])
+		for s := range ranked {
+			h := rankListed(nv.top[j][s][:0], ranked[s], x, s == 1, max(cut[s], pre[s]), w.limit)
 			nv.top[j][s] = h
 			kept[j][s] = kept[j][s][:0]
 			for _, c := range h {
@@ -517,14 +649,15 @@ func (fc *foldCase) fold(f *fold, w *work, nv *foldNV, kept *[2][2][]int32, seco
 
 // listReaching lists in r0, in their order, the units whose M (mv) is at
 // least t0, and in r1 those whose M is at most −t1 (t0, t1 > 0), and
-// returns the two lists. r0 and r1 hold at least len(mv) entries. Most
-// units reach neither: one well-predicted branch each.
+// returns the two lists. r0 and r1 hold at least len(mv) + 4 entries (see
+// listReachingAVX). Most units reach neither: one well-predicted branch
+// each (with AVX, for four).
 func listReaching(mv []float64, t0, t1 float64, r0, r1 []int32) [2][]int32 {
-	r0, r1 = r0[:len(mv)], r1[:len(mv)]
+	r0, r1 = r0[:len(mv)+4], r1[:len(mv)+4]
 	n0, n1, from := 0, 0, 0
 	if useAVX && len(mv) >= 4 {
 		from = len(mv) &^ 3
-		n0, n1 = listReachingAVX(&mv[0], from, t0, t1, &r0[0], &r1[0])
+		n0, n1 = listReachingAVX(&mv[0], from, t0, t1, &r0[0], &r1[0], lanes)
 	}
 	for u := from; u < len(mv); u++ {
 		m := mv[u]
@@ -639,8 +772,26 @@ func largestOver(list []int32, vals []float64) float64 {
 
 // rankListed adds to h, a heap of keepLargest, the units listed (of one
 // sign, past the round-off) by the size of their value in vals (negated
-// for the negative ones), in their order, that reach thr.
+// for the negative ones), in their order, that reach thr. With a limit
+// to the list and h empty, it keeps h sorted the smallest first
+// (keepAscending: a heap too, the same units), so that it need not be
+// sorted for exactPlacement.pieces.
 func rankListed(h []candidate, list []int32, vals []float64, negative bool, thr float64, limit int) []candidate {
+	if limit != math.MaxInt && len(h) == 0 {
+		for _, u := range list {
+			x := vals[u]
+			if negative {
+				x = -x
+			}
+			if x >= thr {
+				h = keepAscending(h, candidate{piece: int(u), a: x}, limit)
+				if len(h) == limit && h[0].a >= thr {
+					thr = math.Nextafter(h[0].a, math.Inf(1))
+				}
+			}
+		}
+		return h
+	}
 	for _, u := range list {
 		x := vals[u]
 		if negative {
@@ -708,7 +859,7 @@ func (pl *exactPlacement) scanFolded(e *evaluator, w *work, f *fold, i, k int, r
 		// first so that the threshold for ranking is seeded with them.
 		var mv []float64
 		nu := len(fc.n)
-		if f.second {
+		if fc.tabled {
 			mv = fc.mt[i*nu : (i+1)*nu]
 			if scaled {
 				f.mv = grow(f.mv, nu)
@@ -732,10 +883,11 @@ func (pl *exactPlacement) scanFolded(e *evaluator, w *work, f *fold, i, k int, r
 			}
 		}
 		nz := w.noise[2]
-		// In second order, unscaled, with AVX, the sums, largest sizes and
-		// counts by sign were formed four stations at once (signsOf), and
-		// only the units the ranking may keep are listed, below.
-		fast := f.second && !scaled && fc.signed
+		// Unscaled, with AVX, the sums, largest sizes and counts by sign
+		// were formed four stations at once (signsOf, from the table of
+		// either order), and only the units the ranking may keep are
+		// listed, below.
+		fast := !scaled && fc.signed
 		// The seed of the ranking (keptAt, see below) from the units the
 		// list kept at the previous station, or at the member's first
 		// station at the last station of the member enveloped before with
@@ -817,7 +969,7 @@ func (pl *exactPlacement) scanFolded(e *evaluator, w *work, f *fold, i, k int, r
 			if !(above < math.Inf(1)) {
 				above = math.NaN() // none is: no unit listed
 			}
-			f.ranked[0], f.ranked[1] = grow(f.ranked[0], nu), grow(f.ranked[1], nu)
+			f.ranked[0], f.ranked[1] = grow(f.ranked[0], nu+4), grow(f.ranked[1], nu+4)
 			ranked = listReaching(mv[:nu], max(pre[0], cut[0], above), max(pre[1], cut[1], above), f.ranked[0], f.ranked[1])
 		}
 		for s := range ranked {

@@ -73,8 +73,14 @@ func keptAt(units []int32, mv []float64, nz float64, negative bool, share float6
 		if negative {
 			x = -x
 		}
-		if x > nz {
-			lo, hi, q = min(lo, x), max(hi, x), q+1
+		if x > nz { // plain comparisons: x is a number past the round-off
+			if x < lo {
+				lo = x
+			}
+			if x > hi {
+				hi = x
+			}
+			q++
 		}
 	}
 	t = share * hi

@@ -18,6 +18,10 @@ const (
 type spanList struct {
 	pieces []int
 	ranked []candidate
+	sorted bool // ranked is sorted the largest first already (exactPlacement.pieces)
+	// distinct is whether no two units name the same piece (evaluator),
+	// so that no piece can repeat in ranked.
+	distinct bool
 }
 
 // order leaves in l.pieces the list to give: the ranked pieces, the most
@@ -25,8 +29,17 @@ type spanList struct {
 // many there are.
 func (l *spanList) order() int {
 	if c := l.ranked; len(c) > 0 {
-		sortLargestFirst(c)
-		// A piece repeats only when a combination names its case twice.
+		if !l.sorted {
+			sortLargestFirst(c)
+		}
+		// A piece repeats only when two units name it (a hand-made
+		// layout).
+		if l.distinct {
+			for _, x := range c {
+				l.pieces = append(l.pieces, x.piece)
+			}
+			return len(l.pieces)
+		}
 		var seen map[int]bool
 		if len(c) > 32 {
 			seen = make(map[int]bool, len(c))
@@ -60,6 +73,8 @@ func (e *evaluator) spans(w *work, out *[3]Extreme) {
 	for k := range w.lists {
 		w.lists[k].pieces = w.lists[k].pieces[:0]
 		w.lists[k].ranked = w.lists[k].ranked[:0]
+		w.lists[k].sorted = false
+		w.lists[k].distinct = e.distinct
 	}
 	var loaded [6]int
 	for p, pc := range e.lay.Patterned {
@@ -93,10 +108,15 @@ func (e *evaluator) spans(w *work, out *[3]Extreme) {
 	if total == 0 {
 		return
 	}
-	// Copy the lists into one exact-size slice per station: appending to the
-	// results directly would grow hundreds of thousands of slices on a tall
-	// frame.
-	buf := make([]int, total)
+	// Copy the lists into exact-size slices of a chunk shared by many
+	// stations (each slice's capacity its length): appending to the results
+	// directly would grow hundreds of thousands of slices on a tall frame,
+	// and a slice per station would be as many allocations.
+	if len(w.spanBuf) < total {
+		w.spanBuf = make([]int, max(total, spanChunk))
+	}
+	buf := w.spanBuf
+	w.spanBuf = w.spanBuf[total:]
 	at := 0
 	take := func(k int) []int {
 		n := copy(buf[at:], w.lists[k].pieces)
@@ -109,6 +129,10 @@ func (e *evaluator) spans(w *work, out *[3]Extreme) {
 		out[j].MinSpans = take(2*j + 1)
 	}
 }
+
+// spanChunk is how many pieces the lists of the stations share one
+// allocation for (spans).
+const spanChunk = 2048
 
 // sortLargestFirst sorts c, the largest candidate first (candidate.less):
 // a short list (at most maxSpans per patterned case, unless AllSpans) by

@@ -24,6 +24,13 @@ import "math"
 // share of the largest are listed (listReaching, four units compared at
 // once). Without AVX (or with -tags purego) the stations are classified
 // one by one as before.
+//
+// A first-order member's table is simpler, M = M₀ + x·V, and the
+// round-off is known before it is formed (from the units' M at the
+// member's ends): it is formed and classified in one pass, four stations
+// at once (firstSigns), the same numbers as classify and the sums form
+// from scanFolded's loop. The fold of N and V of such a member classifies
+// the units for both effects at once, two lanes (foldSigns).
 
 // momentLanes is what momentRowsAVX reads: the four lanes' stations and
 // weights (H₁, H₂, H₄, H₅), the member's axial force and the mask that
@@ -155,3 +162,109 @@ func signsOf(sg []stationSigns, mt, n, v []float64, nz float64) {
 		}
 	}
 }
+
+// firstConsts is what firstSignsAVX reads: the four lanes' stations, the
+// round-off nz and −nz, and 1.
+type firstConsts struct {
+	x, nz, negNz, one [4]float64
+}
+
+// firstSigns sets mt[i*nu+u], nu = len(a), to unit u's M = a[u] + xs[i]·v[u]
+// at station i of a first-order member (a, v and n the units' M₀, V and
+// N), tot[i] to the sum of row i over the units, in their order from +0,
+// and sg[i] to station i's stationSigns with round-off nz, four stations
+// at once with AVX (firstSignsAVX): the numbers scanFolded's loop forms
+// station by station (a + x·v, then classify, sumsOver and largestOver),
+// to the last bit. It reports whether it formed them: not without AVX,
+// nor for no unit.
+func firstSigns(mt, tot []float64, sg []stationSigns, xs, a, v, n []float64, nz float64) bool {
+	nu, ns := len(a), len(xs)
+	if !useAVX || nu == 0 || ns == 0 {
+		return false
+	}
+	v, n, mt, tot, sg = v[:nu], n[:nu], mt[:ns*nu], tot[:ns], sg[:ns]
+	c := firstConsts{}
+	for l := range 4 {
+		c.nz[l], c.negNz[l], c.one[l] = nz, -nz, 1
+	}
+	var rows [4]*float64
+	var out [11][4]float64
+	for i0 := 0; i0 < ns; i0 += 4 {
+		// A last group of fewer than four repeats its last station: the
+		// same numbers, written twice to the same row.
+		for l := range 4 {
+			i := min(i0+l, ns-1)
+			c.x[l] = xs[i]
+			rows[l] = &mt[i*nu]
+		}
+		firstSignsAVX(&rows, &a[0], &v[0], &n[0], nu, &c, &out)
+		for l := range min(4, ns-i0) {
+			tot[i0+l] = out[10][l]
+			sg[i0+l] = stationSigns{
+				pos:   [3]float64{out[0][l], out[1][l], out[2][l]},
+				zero:  [3]float64{out[3][l], out[4][l], out[5][l]},
+				big:   [2]float64{out[6][l], out[7][l]},
+				count: [2]int{int(out[8][l]), int(out[9][l])},
+			}
+		}
+	}
+	return true
+}
+
+// foldConsts is what foldSignsAVX reads: the round-off nz and −nz of N and
+// of V, the mask that clears a number's sign and 1, a lane for each.
+type foldConsts struct {
+	nz, negNz, mask, one [2]float64
+}
+
+// foldSigns is, for N (j = 0, the units classified by xn) and V (j = 1,
+// by xv), what classify, sumsOver and largestOver form over the units of
+// a first-order member for its fold (foldCase.fold), both at once with
+// AVX (foldSignsAVX): in sg[j] the sums of n, v and a of the positive and
+// of the round-off units (past nz[j]), in their order from +0, the
+// largest size of each sign and the counts, and in tot[j] the sum of the
+// values, as classify forms it; to the last bit. len(xn) = len(xv) =
+// len(n) = len(v) = len(a) > 0; AVX only.
+func foldSigns(xn, xv, n, v, a []float64, nz [2]float64) (sg [2]stationSigns, tot [2]float64) {
+	nu := len(n)
+	xn, xv, v, a = xn[:nu], xv[:nu], v[:nu], a[:nu]
+	c := foldConsts{nz: nz, negNz: [2]float64{-nz[0], -nz[1]}}
+	for l := range 2 {
+		c.mask[l], c.one[l] = math.Float64frombits(1<<63-1), 1
+	}
+	x := [2]*float64{&xn[0], &xv[0]}
+	var out [11][2]float64
+	foldSignsAVX(&x, &n[0], &v[0], &a[0], nu, &c, &out)
+	for l := range 2 {
+		sg[l] = stationSigns{
+			pos:   [3]float64{out[0][l], out[1][l], out[2][l]},
+			zero:  [3]float64{out[3][l], out[4][l], out[5][l]},
+			big:   [2]float64{out[6][l], out[7][l]},
+			count: [2]int{int(out[8][l]), int(out[9][l])},
+		}
+		tot[l] = out[10][l]
+	}
+	return sg, tot
+}
+
+// laneTable gives, for each mask of four lanes (bit l for lane l), the
+// lanes set in order (the rest 0) and how many are set: what
+// listReachingAVX lists a group of four units by.
+type laneTable struct {
+	idx [16][4]int32
+	cnt [16]uint8
+}
+
+// lanes is the laneTable.
+var lanes = func() *laneTable {
+	var lt laneTable
+	for m := range 16 {
+		for l := range 4 {
+			if m&(1<<l) != 0 {
+				lt.idx[m][lt.cnt[m]] = int32(l)
+				lt.cnt[m]++
+			}
+		}
+	}
+	return &lt
+}()

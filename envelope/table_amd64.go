@@ -32,12 +32,44 @@ func momentRowsAVX(rows *[4]*float64, a, v *float64, d *[6]float64, nu int, p *m
 func signSumsAVX(rows *[4]*float64, n, v *float64, nu int, c *signConsts, out *[10][4]float64)
 
 // listReachingAVX is listReaching over the first n units of mv (n a
-// multiple of 4), four units compared at once, the few that reach a
-// threshold listed one by one in their order: it returns how many units
-// it listed in r0 and in r1.
+// multiple of 4), four units compared at once, and those of a group that
+// reach a threshold listed at once, in their order, from the lanes set
+// (lt, lanes): it returns how many units it listed in r0 and in r1, which
+// hold at least n + 4 entries (a group writes four, of which those listed
+// count).
 //
 //go:noescape
-func listReachingAVX(mv *float64, n int, t0, t1 float64, r0, r1 *int32) (n0, n1 int)
+func listReachingAVX(mv *float64, n int, t0, t1 float64, r0, r1 *int32, lt *laneTable) (n0, n1 int)
+
+// firstSignsAVX forms four stations' rows of a first-order member's
+// table of moments (table.go) with AVX, the stations in the four lanes of
+// one register, and classifies them as signSumsAVX does, in the same pass:
+// for each unit u of nu, at each lane's station c.x[l],
+//
+//	mm = a[u] + x·v[u]
+//
+// the product rounded and then added (no fused multiply-add), as the
+// pure-Go loop of scanFolded, so the same numbers to the last bit. It
+// stores mm at rows[l][u]; out[0..9] are what signSumsAVX gives for the
+// lane's row (with c's round-off), and out[10] the sum of the lane's mm
+// over the units, in their order from +0.
+//
+//go:noescape
+func firstSignsAVX(rows *[4]*float64, a, v, n *float64, nu int, c *firstConsts, out *[11][4]float64)
+
+// foldSignsAVX classifies the units that do not load a first-order
+// member for N (lane 0, by the values x[0]) and for V (lane 1, by x[1])
+// as classify and the sums of foldCase.fold do, both at once, unit after
+// unit: out[0..2] are the sums of n, v and a over the units whose value
+// is above the lane's nz, out[3..5] those over the units of neither sign
+// (round-off, NaN included), each in the order of the units from +0 (+0
+// added for the others, which leaves such a sum as it is); out[6] and
+// out[7] the largest size of each sign (+0 for none), out[8] and out[9]
+// how many units are of each, and out[10] the sum of every unit's value,
+// in their order from +0.
+//
+//go:noescape
+func foldSignsAVX(x *[2]*float64, n, v, a *float64, nu int, c *foldConsts, out *[11][2]float64)
 
 // cpuid and xgetbv are the instructions of those names.
 func cpuid(eaxArg, ecxArg uint32) (eax, ebx, ecx, edx uint32)
@@ -55,6 +87,10 @@ func hasAVX() bool {
 	return eax&6 == 6
 }
 
-// useAVX is whether the table of moments is formed by momentRowsAVX;
-// the tests turn it off to compare with the pure-Go loop.
-var useAVX = hasAVX()
+// useAVX is whether the AVX kernels of this package are used (the
+// tables of moments of momentRowsAVX and firstSignsAVX, and the others);
+// the tests turn it off to compare with the pure-Go loops. Not where the compiler fuses a product and a sum into one
+// multiply-add (goFuses): the kernels round each product, so their
+// numbers would no longer be those of the pure-Go loops, nor those of
+// frame's stations.
+var useAVX = hasAVX() && !goFuses

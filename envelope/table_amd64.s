@@ -75,6 +75,197 @@ done:
 	VZEROUPPER
 	RET
 
+// func firstSignsAVX(rows *[4]*float64, a, v, n *float64, nu int, c *firstConsts, out *[11][4]float64)
+//
+// c: the stations x at 0, nz at 32, −nz at 64, ones at 96 (four lanes
+// each). out: the positive units' sums of n, v
+// and M, the round-off units' sums of the same, the largest size of the
+// positive and of the negative units, the counts of each, and the sum of
+// every unit's M.
+TEXT ·firstSignsAVX(SB), NOSPLIT, $0-56
+	MOVQ rows+0(FP), AX
+	MOVQ 0(AX), R8
+	MOVQ 8(AX), R9
+	MOVQ 16(AX), R10
+	MOVQ 24(AX), R11
+	MOVQ a+8(FP), SI
+	MOVQ v+16(FP), DI
+	MOVQ n+24(FP), DX
+	MOVQ nu+32(FP), CX
+	MOVQ c+40(FP), AX
+	MOVQ out+48(FP), BX
+	VXORPD Y0, Y0, Y0
+	VXORPD Y1, Y1, Y1
+	VXORPD Y2, Y2, Y2
+	VXORPD Y3, Y3, Y3
+	VXORPD Y4, Y4, Y4
+	VXORPD Y5, Y5, Y5
+	VXORPD Y6, Y6, Y6
+	VXORPD Y7, Y7, Y7
+	VXORPD Y8, Y8, Y8
+	VXORPD Y9, Y9, Y9
+	VXORPD Y10, Y10, Y10
+	XORQ R12, R12
+	TESTQ CX, CX
+	JEQ fdone
+
+floop:
+	// mm = a + x·v, the product rounded, then added; and the sum.
+	VBROADCASTSD (DI)(R12*8), Y14
+	VMULPD 0(AX), Y14, Y14
+	VBROADCASTSD (SI)(R12*8), Y11
+	VADDPD Y14, Y11, Y11
+	VADDPD Y11, Y10, Y10
+	// Each lane to its station's row.
+	VMOVSD X11, (R8)(R12*8)
+	VMOVHPD X11, (R9)(R12*8)
+	VEXTRACTF128 $1, Y11, X15
+	VMOVSD X15, (R10)(R12*8)
+	VMOVHPD X15, (R11)(R12*8)
+	// P: M > nz; N: M < −nz (false for NaN).
+	VCMPPD $0x1e, 32(AX), Y11, Y12
+	VCMPPD $0x11, 64(AX), Y11, Y13
+	// The positive units' sums: +0 added for the others.
+	VBROADCASTSD (DX)(R12*8), Y14
+	VANDPD Y12, Y14, Y15
+	VADDPD Y15, Y0, Y0
+	VBROADCASTSD (DI)(R12*8), Y14
+	VANDPD Y12, Y14, Y15
+	VADDPD Y15, Y1, Y1
+	VANDPD Y12, Y11, Y15
+	VADDPD Y15, Y2, Y2
+	// The largest positive M (+0 for the others; VMAXPD gives its second
+	// source, the running largest, for equal ones), and the smallest
+	// negative one (the same, VMINPD), whose size is its negation.
+	VMAXPD Y6, Y15, Y6
+	VANDPD Y13, Y11, Y15
+	VMINPD Y7, Y15, Y7
+	// The counts.
+	VANDPD 96(AX), Y12, Y15
+	VADDPD Y15, Y8, Y8
+	VANDPD 96(AX), Y13, Y15
+	VADDPD Y15, Y9, Y9
+	// The round-off units (neither P nor N): their sums.
+	VORPD Y12, Y13, Y12
+	VBROADCASTSD (DX)(R12*8), Y14
+	VANDNPD Y14, Y12, Y15
+	VADDPD Y15, Y3, Y3
+	VBROADCASTSD (DI)(R12*8), Y14
+	VANDNPD Y14, Y12, Y15
+	VADDPD Y15, Y4, Y4
+	VANDNPD Y11, Y12, Y15
+	VADDPD Y15, Y5, Y5
+	INCQ R12
+	CMPQ R12, CX
+	JNE floop
+
+fdone:
+	// The largest size of the negative M: 0 − the smallest (+0 for none).
+	VXORPD Y15, Y15, Y15
+	VSUBPD Y7, Y15, Y7
+	VMOVUPD Y0, 0(BX)
+	VMOVUPD Y1, 32(BX)
+	VMOVUPD Y2, 64(BX)
+	VMOVUPD Y3, 96(BX)
+	VMOVUPD Y4, 128(BX)
+	VMOVUPD Y5, 160(BX)
+	VMOVUPD Y6, 192(BX)
+	VMOVUPD Y7, 224(BX)
+	VMOVUPD Y8, 256(BX)
+	VMOVUPD Y9, 288(BX)
+	VMOVUPD Y10, 320(BX)
+	VZEROUPPER
+	RET
+
+// func foldSignsAVX(x *[2]*float64, n, v, a *float64, nu int, c *foldConsts, out *[11][2]float64)
+//
+// c: nz at 0, −nz at 16, the mask of a size at 32, ones at 48 (two lanes
+// each). out: the positive units' sums of n, v and a, the round-off
+// units' sums of the same, the largest size of the positive and of the
+// negative units, the counts of each, and the sum of every unit's value.
+TEXT ·foldSignsAVX(SB), NOSPLIT, $0-56
+	MOVQ x+0(FP), AX
+	MOVQ 0(AX), R8
+	MOVQ 8(AX), R9
+	MOVQ n+8(FP), DX
+	MOVQ v+16(FP), DI
+	MOVQ a+24(FP), SI
+	MOVQ nu+32(FP), CX
+	MOVQ c+40(FP), AX
+	MOVQ out+48(FP), BX
+	VXORPD X0, X0, X0
+	VXORPD X1, X1, X1
+	VXORPD X2, X2, X2
+	VXORPD X3, X3, X3
+	VXORPD X4, X4, X4
+	VXORPD X5, X5, X5
+	VXORPD X6, X6, X6
+	VXORPD X7, X7, X7
+	VXORPD X8, X8, X8
+	VXORPD X9, X9, X9
+	VXORPD X10, X10, X10
+	XORQ R12, R12
+	TESTQ CX, CX
+	JEQ gdone
+
+gloop:
+	// The two lanes' values of unit u, and their sum.
+	VMOVSD (R8)(R12*8), X11
+	VMOVHPD (R9)(R12*8), X11, X11
+	VADDPD X11, X10, X10
+	// P: value > nz; N: value < −nz (false for NaN).
+	VCMPPD $0x1e, 0(AX), X11, X12
+	VCMPPD $0x11, 16(AX), X11, X13
+	// The positive units' sums: +0 added for the others.
+	VMOVDDUP (DX)(R12*8), X14
+	VANDPD X12, X14, X15
+	VADDPD X15, X0, X0
+	VMOVDDUP (DI)(R12*8), X14
+	VANDPD X12, X14, X15
+	VADDPD X15, X1, X1
+	VMOVDDUP (SI)(R12*8), X14
+	VANDPD X12, X14, X15
+	VADDPD X15, X2, X2
+	// The counts.
+	VANDPD 48(AX), X12, X15
+	VADDPD X15, X8, X8
+	VANDPD 48(AX), X13, X15
+	VADDPD X15, X9, X9
+	// The largest sizes.
+	VANDPD 32(AX), X11, X15
+	VANDPD X12, X15, X14
+	VMAXPD X6, X14, X6
+	VANDPD X13, X15, X15
+	VMAXPD X7, X15, X7
+	// The round-off units (neither P nor N): their sums.
+	VORPD X12, X13, X12
+	VMOVDDUP (DX)(R12*8), X14
+	VANDNPD X14, X12, X15
+	VADDPD X15, X3, X3
+	VMOVDDUP (DI)(R12*8), X14
+	VANDNPD X14, X12, X15
+	VADDPD X15, X4, X4
+	VMOVDDUP (SI)(R12*8), X14
+	VANDNPD X14, X12, X15
+	VADDPD X15, X5, X5
+	INCQ R12
+	CMPQ R12, CX
+	JNE gloop
+
+gdone:
+	VMOVUPD X0, 0(BX)
+	VMOVUPD X1, 16(BX)
+	VMOVUPD X2, 32(BX)
+	VMOVUPD X3, 48(BX)
+	VMOVUPD X4, 64(BX)
+	VMOVUPD X5, 80(BX)
+	VMOVUPD X6, 96(BX)
+	VMOVUPD X7, 112(BX)
+	VMOVUPD X8, 128(BX)
+	VMOVUPD X9, 144(BX)
+	VMOVUPD X10, 160(BX)
+	RET
+
 // func cpuid(eaxArg, ecxArg uint32) (eax, ebx, ecx, edx uint32)
 TEXT ·cpuid(SB), NOSPLIT, $0-24
 	MOVL eaxArg+0(FP), AX
@@ -182,8 +373,14 @@ sdone:
 	VZEROUPPER
 	RET
 
-// func listReachingAVX(mv *float64, n int, t0, t1 float64, r0, r1 *int32) (n0, n1 int)
-TEXT ·listReachingAVX(SB), NOSPLIT, $0-64
+// func listReachingAVX(mv *float64, n int, t0, t1 float64, r0, r1 *int32, lt *laneTable) (n0, n1 int)
+//
+// lt: at 0, for each mask of four lanes, the lanes set, in order (four
+// int32 each, 16 bytes a mask); at 256, how many are set (a byte each).
+// A group of four units with some listed writes four indices at the end
+// of each list, of which those listed count: the lists hold four entries
+// more than the units.
+TEXT ·listReachingAVX(SB), NOSPLIT, $0-72
 	MOVQ mv+0(FP), SI
 	MOVQ n+8(FP), CX
 	VBROADCASTSD t0+16(FP), Y4
@@ -192,6 +389,7 @@ TEXT ·listReachingAVX(SB), NOSPLIT, $0-64
 	VSUBPD Y5, Y6, Y5
 	MOVQ r0+32(FP), DI
 	MOVQ r1+40(FP), R8
+	MOVQ lt+48(FP), R11
 	XORQ R9, R9
 	XORQ R10, R10
 	XORQ R12, R12
@@ -214,66 +412,31 @@ lnext:
 	JLT lloop
 
 ldone:
-	MOVQ R9, n0+48(FP)
-	MOVQ R10, n1+56(FP)
+	MOVQ R9, n0+56(FP)
+	MOVQ R10, n1+64(FP)
 	VZEROUPPER
 	RET
 
 lsome:
+	// The group's first unit, in each lane.
+	VMOVQ R12, X8
+	VPSHUFD $0, X8, X8
+	// To r0, the lanes where M ≥ t0, in order.
 	VMOVMSKPD Y1, BX
-	// Lane 0: to r0 if M ≥ t0, else to r1 if M ≤ −t1.
-	MOVQ R12, R13
-	ADDQ $0, R13
-	BTL $0, BX
-	JCC n0
-	MOVL R13, (DI)(R9*4)
-	INCQ R9
-	JMP l1
-n0:
-	BTL $0, AX
-	JCC l1
-	MOVL R13, (R8)(R10*4)
-	INCQ R10
-l1:
-	// Lane 1: to r0 if M ≥ t0, else to r1 if M ≤ −t1.
-	MOVQ R12, R13
-	ADDQ $1, R13
-	BTL $1, BX
-	JCC n1
-	MOVL R13, (DI)(R9*4)
-	INCQ R9
-	JMP l2
-n1:
-	BTL $1, AX
-	JCC l2
-	MOVL R13, (R8)(R10*4)
-	INCQ R10
-l2:
-	// Lane 2: to r0 if M ≥ t0, else to r1 if M ≤ −t1.
-	MOVQ R12, R13
-	ADDQ $2, R13
-	BTL $2, BX
-	JCC n2
-	MOVL R13, (DI)(R9*4)
-	INCQ R9
-	JMP l3
-n2:
-	BTL $2, AX
-	JCC l3
-	MOVL R13, (R8)(R10*4)
-	INCQ R10
-l3:
-	// Lane 3: to r0 if M ≥ t0, else to r1 if M ≤ −t1.
-	MOVQ R12, R13
-	ADDQ $3, R13
-	BTL $3, BX
-	JCC n3
-	MOVL R13, (DI)(R9*4)
-	INCQ R9
-	JMP lnext
-n3:
-	BTL $3, AX
-	JCC lnext
-	MOVL R13, (R8)(R10*4)
-	INCQ R10
+	MOVQ BX, R13
+	SHLQ $4, R13
+	VMOVDQU (R11)(R13*1), X7
+	VPADDD X8, X7, X7
+	VMOVDQU X7, (DI)(R9*4)
+	MOVBQZX 256(R11)(BX*1), BX
+	ADDQ BX, R9
+	// To r1, the lanes where M ≤ −t1.
+	VMOVMSKPD Y2, BX
+	MOVQ BX, R13
+	SHLQ $4, R13
+	VMOVDQU (R11)(R13*1), X7
+	VPADDD X8, X7, X7
+	VMOVDQU X7, (R8)(R10*4)
+	MOVBQZX 256(R11)(BX*1), BX
+	ADDQ BX, R10
 	JMP lnext

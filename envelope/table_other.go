@@ -13,6 +13,14 @@ func signSumsAVX(rows *[4]*float64, n, v *float64, nu int, c *signConsts, out *[
 	panic("envelope: signSumsAVX without AVX")
 }
 
-func listReachingAVX(mv *float64, n int, t0, t1 float64, r0, r1 *int32) (n0, n1 int) {
+func listReachingAVX(mv *float64, n int, t0, t1 float64, r0, r1 *int32, lt *laneTable) (n0, n1 int) {
 	panic("envelope: listReachingAVX without AVX")
+}
+
+func firstSignsAVX(rows *[4]*float64, a, v, n *float64, nu int, c *firstConsts, out *[11][4]float64) {
+	panic("envelope: firstSignsAVX without AVX")
+}
+
+func foldSignsAVX(x *[2]*float64, n, v, a *float64, nu int, c *foldConsts, out *[11][2]float64) {
+	panic("envelope: foldSignsAVX without AVX")
 }

@@ -244,7 +244,7 @@ func TestListReaching(t *testing.T) {
 			t.Run(fmt.Sprintf("%v AVX %v", th, avx), func(t *testing.T) {
 				defer func(v bool) { useAVX = v }(useAVX)
 				useAVX = avx
-				got := listReaching(mv, th[0], th[1], make([]int32, len(mv)), make([]int32, len(mv)))
+				got := listReaching(mv, th[0], th[1], make([]int32, len(mv)+4), make([]int32, len(mv)+4))
 				var want [2][]int32
 				for u, m := range mv {
 					if m > nz && m >= th[0] {
