@@ -263,7 +263,7 @@ func Run(ctx context.Context, job *Job, opt Options) (*Result, error) {
 	}
 	r.Storeys = storeysOf(job)
 	nodes, drifts := r.displacementRequests() // before the storeys' stability is written
-	var stability error // reported after the envelopes' errors, which say more
+	var stability error                       // reported after the envelopes' errors, which say more
 	var stable chan struct{}
 	if pl.simple {
 		// The combinations' axial forces and storey drifts, solved on the
