@@ -262,8 +262,10 @@ func Run(ctx context.Context, job *Job, opt Options) (*Result, error) {
 		report(opt, Progress{Phase: fmt.Sprintf("solved %d loads; enveloping stations", len(lay.Model.Cases)), Total: int64(total * groups), Done: set.Progress})
 	}
 	r.Storeys = storeysOf(job)
-	nodes, drifts := r.displacementRequests() // before the storeys' stability is written
-	var stability error                       // reported after the envelopes' errors, which say more
+	// The requests of the nodes' displacements and the storeys' drifts,
+	// read from the storeys before their stability is written beside.
+	nodes, drifts := r.displacementRequests()
+	var stability error // reported after the envelopes' errors, which say more
 	var stable chan struct{}
 	if pl.simple {
 		// The combinations' axial forces and storey drifts, solved on the
