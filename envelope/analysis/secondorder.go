@@ -4,8 +4,10 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"runtime"
 	"slices"
 	"sync"
+	"sync/atomic"
 
 	"govern/combos"
 	"govern/envelope"
@@ -380,27 +382,62 @@ func (r *Result) iterateFrom(u *unit, mo *frame.Model, n []float64) error {
 	return nil
 }
 
-// iterateAll makes the iterations of the second-order units second
-// (indices into pl.units) and returns each unit's error, by index into
-// pl.units: the first of its first-order solve's, its critical load
-// factor's and its iteration's, as iterate gives it. The iterations are
-// independent of each other and of the envelopes: they run side by side,
-// taken in order by one worker per processor, after the first-order
-// solves; the units' critical load factors are found beside them, every
-// unit of a stiffness on one factor of it (criticalEach: the later units'
-// Lanczos iterations start from the first's, bucklingstart.go in package
-// frame), each stiffness in the order it first comes.
-func (r *Result) iterateAll(pl *plan, base *frame.Model, second []int) []error {
+// iterations are the second-order units' iterations under way
+// (iterateAll), by index into the plan's units.
+type iterations struct {
+	first, critical, iterated []error // of the first-order solve, αcr, the iteration
+	done                      []chan struct{}
+	critDone                  chan struct{}
+	stop                      atomic.Bool
+	wg                        sync.WaitGroup
+}
+
+// err waits for unit i's iteration and critical load factors and returns
+// its error: the first of its first-order solve's, its critical load
+// factor's and its iteration's, nil for none.
+func (it *iterations) err(i int) error {
+	<-it.done[i]
+	<-it.critDone
+	switch {
+	case it.first[i] != nil:
+		return it.first[i]
+	case it.critical[i] != nil:
+		return it.critical[i]
+	}
+	return it.iterated[i]
+}
+
+// close leaves the iterations not begun undone and waits for those under
+// way and the critical load factors.
+func (it *iterations) close() {
+	it.stop.Store(true)
+	it.wg.Wait()
+}
+
+// iterateAll starts the iterations of the second-order units second
+// (indices into pl.units, in the groups' order) once their first-order
+// solves are made, side by side, and returns them under way: each unit's
+// result is waited for as the envelopes come to it (iterations.err), so
+// that the first groups are enveloped while the later units iterate. The
+// iterations are independent of each other and of the envelopes: they
+// are taken in order by one worker per processor. The units' critical
+// load factors are found beside them, every unit of a stiffness on one
+// factor of it (criticalEach: the later units' Lanczos iterations start
+// from the first's, bucklingstart.go in package frame), each stiffness in
+// the order it first comes. The caller closes it.
+func (r *Result) iterateAll(pl *plan, base *frame.Model, second []int) *iterations {
 	n := len(pl.units)
-	first, critical, iterated := make([]error, n), make([]error, n), make([]error, n)
+	it := &iterations{first: make([]error, n), critical: make([]error, n), iterated: make([]error, n),
+		done: make([]chan struct{}, n), critDone: make(chan struct{})}
 	mos, ns := make([]*frame.Model, n), make([][]float64, n)
 	eachShared(len(second), func(q int) {
 		i := second[q]
-		mos[i], ns[i], first[i] = r.firstAxial(&pl.units[i], base, pl.units[i].method.Stiffness)
+		mos[i], ns[i], it.first[i] = r.firstAxial(&pl.units[i], base, pl.units[i].method.Stiffness)
 	})
-	done := make(chan struct{})
+	it.wg.Add(1)
 	go func() {
-		defer close(done)
+		defer it.wg.Done()
+		defer close(it.critDone)
 		var stiffs []Stiffness
 		for _, i := range second {
 			if s := pl.units[i].method.Stiffness; !slices.Contains(stiffs, s) {
@@ -412,7 +449,7 @@ func (r *Result) iterateAll(pl *plan, base *frame.Model, second []int) []error {
 			var idx []int
 			var axial [][]float64
 			for _, i := range second {
-				if pl.units[i].method.Stiffness == s && first[i] == nil {
+				if pl.units[i].method.Stiffness == s && it.first[i] == nil {
 					us, idx, axial = append(us, &pl.units[i]), append(idx, i), append(axial, ns[i])
 				}
 			}
@@ -421,30 +458,39 @@ func (r *Result) iterateAll(pl *plan, base *frame.Model, second []int) []error {
 			}
 			if !criticalTogether {
 				for q, u := range us {
-					critical[idx[q]] = r.critical(u, base, axial[q], s)
+					it.critical[idx[q]] = r.critical(u, base, axial[q], s)
 				}
 				continue
 			}
 			for q, err := range r.criticalEach(us, base, axial, s) {
-				critical[idx[q]] = err
+				it.critical[idx[q]] = err
 			}
 		}
 	}()
-	eachShared(len(second), func(q int) {
-		if i := second[q]; first[i] == nil {
-			iterated[i] = r.iterateFrom(&pl.units[i], mos[i], ns[i])
-		}
-	})
-	<-done
-	for i := range iterated {
-		switch {
-		case first[i] != nil:
-			iterated[i] = first[i]
-		case critical[i] != nil:
-			iterated[i] = critical[i]
+	next := make(chan int, len(second))
+	for _, i := range second {
+		it.done[i] = make(chan struct{})
+		next <- i
+	}
+	close(next)
+	for range min(runtime.GOMAXPROCS(0), len(second)) {
+		it.wg.Add(1)
+		go func() {
+			defer it.wg.Done()
+			for i := range next {
+				if it.first[i] == nil && !it.stop.Load() {
+					it.iterated[i] = r.iterateFrom(&pl.units[i], mos[i], ns[i])
+				}
+				close(it.done[i])
+			}
+		}()
+	}
+	if !iterationsBeside {
+		for _, i := range second {
+			<-it.done[i]
 		}
 	}
-	return iterated
+	return it
 }
 
 // critical sets u's critical load factors, for the combination as
@@ -619,7 +665,8 @@ func (r *Result) envelopes(pl *plan, sv *solved, lay *patterns.Layout, reqs []re
 			second = append(second, g.units[0])
 		}
 	}
-	iterated := r.iterateAll(pl, sv.model, second)
+	its := r.iterateAll(pl, sv.model, second)
+	defer its.close()
 	mg := make([]*merger, len(reqs))
 	for i := range reqs {
 		mg[i] = newMerger(job.Combinations)
@@ -635,7 +682,7 @@ func (r *Result) envelopes(pl *plan, sv *solved, lay *patterns.Layout, reqs []re
 			var axial []float64
 			if g.second {
 				u := &pl.units[g.units[0]]
-				if err := iterated[g.units[0]]; err != nil {
+				if err := its.err(g.units[0]); err != nil {
 					return nil, err
 				}
 				axial = u.axial
@@ -754,6 +801,11 @@ func (r *Result) envelopes(pl *plan, sv *solved, lay *patterns.Layout, reqs []re
 	}
 	return out, nil
 }
+
+// iterationsBeside is whether the envelopes of a second-order run's
+// first groups are formed while its later units iterate, rather than
+// after every unit has; the tests turn it off to compare.
+var iterationsBeside = true
 
 // criticalTogether is whether the critical load factors of a
 // second-order run's units are found side by side (iterateAll) rather

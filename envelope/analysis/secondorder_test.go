@@ -613,6 +613,7 @@ func TestSecondOrderCriticalTogether(t *testing.T) {
 
 // TestSecondOrderErrorsInOrder checks that a second-order run with
 // several combinations, their critical load factors found side by side,
+// the first enveloped while the others iterate or not (iterationsBeside),
 // returns the error of the first combination in the job's order whose
 // factor is not above 1: the cantilever under a dead load of 7 past its
 // Euler load π²EI/(4L²) = 6.17 (Timoshenko & Gere; TestBucklingIsAnError),
@@ -631,17 +632,61 @@ func TestSecondOrderErrorsInOrder(t *testing.T) {
 		{"the first and third buckle", []float64{1.75, 1, 2}, `combination "c1"`, ErrBuckles},
 		{"the third buckles", []float64{0.5, 1, 1.75}, `combination "c3"`, ErrBuckles},
 	} {
-		t.Run(tc.name, func(t *testing.T) {
-			job := cantileverJob(4, 0.045, Method{SecondOrder: true})
-			job.Combinations, job.Methods = nil, nil
-			for i, f := range tc.factor {
-				job.Combinations = append(job.Combinations, combination(fmt.Sprintf("c%d", i+1), f))
-				job.Methods = append(job.Methods, Method{SecondOrder: true})
-			}
-			_, err := Run(context.Background(), job, Options{})
-			if !errors.Is(err, tc.is) || !strings.Contains(err.Error(), tc.want) {
-				t.Errorf("got %v, want %v naming %s", err, tc.is, tc.want)
-			}
-		})
+		for _, beside := range []bool{true, false} {
+			t.Run(fmt.Sprintf("%s/beside %v", tc.name, beside), func(t *testing.T) {
+				iterationsBeside = beside
+				defer func() { iterationsBeside = true }()
+				job := cantileverJob(4, 0.045, Method{SecondOrder: true})
+				job.Combinations, job.Methods = nil, nil
+				for i, f := range tc.factor {
+					job.Combinations = append(job.Combinations, combination(fmt.Sprintf("c%d", i+1), f))
+					job.Methods = append(job.Methods, Method{SecondOrder: true})
+				}
+				_, err := Run(context.Background(), job, Options{})
+				if !errors.Is(err, tc.is) || !strings.Contains(err.Error(), tc.want) {
+					t.Errorf("got %v, want %v naming %s", err, tc.is, tc.want)
+				}
+			})
+		}
+	}
+}
+
+// TestSecondOrderIterationsBesideChangeNothing checks that a second-order
+// run whose first combinations are enveloped while the later ones iterate
+// gives every result, warnings and their order included, to the last bit
+// as one that envelopes them once all have iterated (iterationsBeside
+// off): on the regular frame with patterned live loads, with the
+// sections as given and with a notional load in each direction (two
+// units a combination), on one processor and two.
+func TestSecondOrderIterationsBesideChangeNothing(t *testing.T) {
+	for _, tc := range []struct {
+		name string
+		set  func(*Job)
+	}{
+		{"nominal", func(*Job) {}},
+		{"notional", func(j *Job) { j.Sway.Notional = NotionalAISC360 }},
+	} {
+		for _, procs := range []int{1, 2} {
+			t.Run(fmt.Sprintf("%s/GOMAXPROCS=%d", tc.name, procs), func(t *testing.T) {
+				defer runtime.GOMAXPROCS(runtime.GOMAXPROCS(procs))
+				job := regularJob(4, 5, true)
+				job.Methods = make([]Method, len(job.Combinations))
+				for k := range job.Methods {
+					job.Methods[k] = Method{SecondOrder: true}
+				}
+				tc.set(job)
+				got, err := Run(context.Background(), job, Options{})
+				if err != nil {
+					t.Fatal(err)
+				}
+				iterationsBeside = false
+				defer func() { iterationsBeside = true }()
+				want, err := Run(context.Background(), job, Options{})
+				if err != nil {
+					t.Fatal(err)
+				}
+				sameResults(t, got, want, "beside the iterations")
+			})
+		}
 	}
 }
