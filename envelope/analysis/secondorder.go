@@ -386,10 +386,15 @@ func (r *Result) iterateFrom(u *unit, mo *frame.Model, n []float64) error {
 // (iterateAll), by index into the plan's units.
 type iterations struct {
 	first, critical, iterated []error // of the first-order solve, αcr, the iteration
-	done                      []chan struct{}
-	critDone                  chan struct{}
-	stop                      atomic.Bool
-	wg                        sync.WaitGroup
+	// The storeys' first-order analyses (storeySolve), made by the
+	// iteration's worker after it, and their errors: filled in and
+	// returned in the groups' order.
+	storeys   []*storeyAnalysis
+	storeyErr []error
+	done      []chan struct{}
+	critDone  chan struct{}
+	stop      atomic.Bool
+	wg        sync.WaitGroup
 }
 
 // err waits for unit i's iteration and critical load factors and returns
@@ -428,6 +433,7 @@ func (it *iterations) close() {
 func (r *Result) iterateAll(pl *plan, base *frame.Model, second []int) *iterations {
 	n := len(pl.units)
 	it := &iterations{first: make([]error, n), critical: make([]error, n), iterated: make([]error, n),
+		storeys: make([]*storeyAnalysis, n), storeyErr: make([]error, n),
 		done: make([]chan struct{}, n), critDone: make(chan struct{})}
 	mos, ns := make([]*frame.Model, n), make([][]float64, n)
 	eachShared(len(second), func(q int) {
@@ -467,6 +473,19 @@ func (r *Result) iterateAll(pl *plan, base *frame.Model, second []int) *iteratio
 			}
 		}
 	}()
+	// The storeys' stability, which the workers' analyses read the
+	// storeys beside (unitShears) and setStoreys fills: made here, as the
+	// first unit of a strength combination would.
+	for _, i := range second {
+		if !r.Job.Combinations[pl.units[i].k].Service {
+			for si := range r.Storeys {
+				if r.Storeys[si].Stability == nil {
+					r.Storeys[si].Stability = make([]StoreyStability, len(r.Job.Combinations))
+				}
+			}
+			break
+		}
+	}
 	next := make(chan int, len(second))
 	for _, i := range second {
 		it.done[i] = make(chan struct{})
@@ -479,7 +498,17 @@ func (r *Result) iterateAll(pl *plan, base *frame.Model, second []int) *iteratio
 			defer it.wg.Done()
 			for i := range next {
 				if it.first[i] == nil && !it.stop.Load() {
-					it.iterated[i] = r.iterateFrom(&pl.units[i], mos[i], ns[i])
+					u := &pl.units[i]
+					if it.iterated[i] = r.iterateFrom(u, mos[i], ns[i]); it.iterated[i] == nil {
+						// On the factor of the first-order solution of the
+						// stiffness (its own solve where that failed: its
+						// error names the storeys).
+						var first *frame.Solution
+						if shareFactors {
+							first, _ = r.firstOrder(base, u.method.Stiffness)
+						}
+						it.storeys[i], it.storeyErr[i] = r.storeySolve(u, base, u.method.Stiffness, first)
+					}
 				}
 				close(it.done[i])
 			}
@@ -742,16 +771,12 @@ func (r *Result) envelopes(pl *plan, sv *solved, lay *patterns.Layout, reqs []re
 				return nil, err
 			}
 		} else {
-			// The storeys' first-order analyses, on the factor of the
-			// first-order solution of the stiffness (its own solve where
-			// that failed: its error names the storeys).
-			var first *frame.Solution
-			if shareFactors {
-				first, _ = r.firstOrder(sv.model, g.stiff)
-			}
-			if err := r.storeyStability(&pl.units[g.units[0]], sv.model, g.stiff, first); err != nil {
+			// The storeys' first-order analyses, made with the iteration.
+			if err := its.storeyErr[g.units[0]]; err != nil {
 				return nil, err
 			}
+			r.setStoreys(&pl.units[g.units[0]], sv.model, its.storeys[g.units[0]])
+			its.storeys[g.units[0]] = nil
 		}
 		for _, i := range g.units {
 			u := &pl.units[i]

@@ -235,9 +235,28 @@ func (r *Result) setDisplacements(nodes, drifts *valuesRequest) {
 // factor of first, a first-order solution with that stiffness, when it is
 // not nil.
 func (r *Result) storeyStability(u *unit, base *frame.Model, stiff Stiffness, first *frame.Solution) error {
+	sa, err := r.storeySolve(u, base, stiff, first)
+	if err != nil {
+		return err
+	}
+	r.setStoreys(u, base, sa)
+	return nil
+}
+
+// storeyAnalysis is the first-order analysis of the storeys of a unit's
+// combination (storeySolve), nil for none: its solution, its horizontal
+// load at each node.
+type storeyAnalysis struct {
+	sol *frame.Solution
+	hx  []float64
+}
+
+// storeySolve is storeyStability's analysis, made apart from setStoreys,
+// which fills the storeys from it: it writes nothing of r's.
+func (r *Result) storeySolve(u *unit, base *frame.Model, stiff Stiffness, first *frame.Solution) (*storeyAnalysis, error) {
 	job := r.Job
 	if len(r.Storeys) == 0 || job.Combinations[u.k].Service {
-		return nil
+		return nil, nil
 	}
 	secs, mems := job.stiffnessOf(base, stiff)
 	all, hx := r.stabilityCases(base, secs, mems, combined(base, secs, mems, u.cb, 1, nil).Cases[0])
@@ -251,10 +270,17 @@ func (r *Result) storeyStability(u *unit, base *frame.Model, stiff Stiffness, fi
 		sol, err = frame.SolveWith(all, r.solver)
 	}
 	if err != nil {
-		return fmt.Errorf("combination %q: storey stability: %w", job.Combinations[u.k].Name, err)
+		return nil, fmt.Errorf("combination %q: storey stability: %w", job.Combinations[u.k].Name, err)
 	}
-	r.setStability(u, base, sol, 0, 1, 2, hx)
-	return nil
+	return &storeyAnalysis{sol, hx}, nil
+}
+
+// setStoreys fills the stability indices of every storey for unit u from
+// its analysis sa (storeySolve; nil: nothing to fill).
+func (r *Result) setStoreys(u *unit, base *frame.Model, sa *storeyAnalysis) {
+	if sa != nil {
+		r.setStability(u, base, sa.sol, 0, 1, 2, sa.hx)
+	}
 }
 
 // storeyStabilityAll is storeyStability for the first-order units us
