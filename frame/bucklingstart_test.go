@@ -191,24 +191,40 @@ func combinedSets(tb testing.TB, bays, storeys int) (*Model, [][]float64) {
 // regular frames of combinedSets, the nine sets of axial forces those of
 // combinations of three load cases, whose modes are alike as a building
 // frame's are (the sets of BenchmarkCriticalFactors differ member by
-// member at random). cpu-ns/op as there.
+// member at random); "alone" finds each set's factor by a call of its
+// own on the same factor of K, as a second-order run did for each of its
+// combinations. cpu-ns/op as there.
 func BenchmarkCriticalCombinations(b *testing.B) {
 	for _, size := range [][2]int{{10, 10}, {30, 20}, {30, 60}} {
 		mo, sets := combinedSets(b, size[0], size[1])
-		b.Run(fmt.Sprintf("%dx%d", size[0], size[1]), func(b *testing.B) {
-			b.ReportAllocs()
-			start := cpuTime()
-			for b.Loop() {
-				bk, err := NewBuckling(mo)
-				if err != nil {
-					b.Fatal(err)
-				}
-				if _, err := bk.Factors(sets); err != nil {
-					b.Fatal(err)
-				}
+		for _, alone := range []bool{false, true} {
+			name := fmt.Sprintf("%dx%d", size[0], size[1])
+			if alone {
+				name += "/alone"
 			}
-			b.ReportMetric(float64(cpuTime()-start)/float64(b.N), "cpu-ns/op")
-		})
+			b.Run(name, func(b *testing.B) {
+				b.ReportAllocs()
+				start := cpuTime()
+				for b.Loop() {
+					bk, err := NewBuckling(mo)
+					if err != nil {
+						b.Fatal(err)
+					}
+					if !alone {
+						if _, err := bk.Factors(sets); err != nil {
+							b.Fatal(err)
+						}
+						continue
+					}
+					for _, set := range sets {
+						if _, err := bk.Factor(set); err != nil {
+							b.Fatal(err)
+						}
+					}
+				}
+				b.ReportMetric(float64(cpuTime()-start)/float64(b.N), "cpu-ns/op")
+			})
+		}
 	}
 }
 
