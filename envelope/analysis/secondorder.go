@@ -473,9 +473,10 @@ func (r *Result) iterateAll(pl *plan, base *frame.Model, second []int) *iteratio
 			}
 		}
 	}()
-	// The storeys' stability, which the workers' analyses read the
-	// storeys beside (unitShears) and setStoreys fills: made here, as the
-	// first unit of a strength combination would.
+	// Each storey's list of stability indices, made here as setStability
+	// makes it for the first strength combination: the workers' analyses
+	// read the storeys (unitShears) while the groups fill the lists, so
+	// they are not made then.
 	for _, i := range second {
 		if !r.Job.Combinations[pl.units[i].k].Service {
 			for si := range r.Storeys {
