@@ -386,15 +386,16 @@ func (r *Result) iterateFrom(u *unit, mo *frame.Model, n []float64) error {
 // (iterateAll), by index into the plan's units.
 type iterations struct {
 	first, critical, iterated []error // of the first-order solve, αcr, the iteration
-	// The storeys' first-order analyses (storeySolve), made by the
-	// iteration's worker after it, and their errors: filled in and
-	// returned in the groups' order.
-	storeys   []*storeyAnalysis
-	storeyErr []error
-	done      []chan struct{}
-	critDone  chan struct{}
-	stop      atomic.Bool
-	wg        sync.WaitGroup
+	// The storeys' first-order analyses (storeySolveAll), made beside the
+	// iterations, and their errors: filled in and returned in the groups'
+	// order (storey).
+	storeys     []*storeyAnalysis
+	storeyErr   []error
+	storeysDone chan struct{}
+	done        []chan struct{}
+	critDone    chan struct{}
+	stop        atomic.Bool
+	wg          sync.WaitGroup
 }
 
 // err waits for unit i's iteration and critical load factors and returns
@@ -410,6 +411,13 @@ func (it *iterations) err(i int) error {
 		return it.critical[i]
 	}
 	return it.iterated[i]
+}
+
+// storey waits for the storeys' analyses and returns unit i's, and its
+// error.
+func (it *iterations) storey(i int) (*storeyAnalysis, error) {
+	<-it.storeysDone
+	return it.storeys[i], it.storeyErr[i]
 }
 
 // close leaves the iterations not begun undone and waits for those under
@@ -433,46 +441,13 @@ func (it *iterations) close() {
 func (r *Result) iterateAll(pl *plan, base *frame.Model, second []int) *iterations {
 	n := len(pl.units)
 	it := &iterations{first: make([]error, n), critical: make([]error, n), iterated: make([]error, n),
-		storeys: make([]*storeyAnalysis, n), storeyErr: make([]error, n),
+		storeys: make([]*storeyAnalysis, n), storeyErr: make([]error, n), storeysDone: make(chan struct{}),
 		done: make([]chan struct{}, n), critDone: make(chan struct{})}
 	mos, ns := make([]*frame.Model, n), make([][]float64, n)
 	eachShared(len(second), func(q int) {
 		i := second[q]
 		mos[i], ns[i], it.first[i] = r.firstAxial(&pl.units[i], base, pl.units[i].method.Stiffness)
 	})
-	it.wg.Add(1)
-	go func() {
-		defer it.wg.Done()
-		defer close(it.critDone)
-		var stiffs []Stiffness
-		for _, i := range second {
-			if s := pl.units[i].method.Stiffness; !slices.Contains(stiffs, s) {
-				stiffs = append(stiffs, s)
-			}
-		}
-		for _, s := range stiffs {
-			var us []*unit
-			var idx []int
-			var axial [][]float64
-			for _, i := range second {
-				if pl.units[i].method.Stiffness == s && it.first[i] == nil {
-					us, idx, axial = append(us, &pl.units[i]), append(idx, i), append(axial, ns[i])
-				}
-			}
-			if len(us) == 0 {
-				continue
-			}
-			if !criticalTogether {
-				for q, u := range us {
-					it.critical[idx[q]] = r.critical(u, base, axial[q], s)
-				}
-				continue
-			}
-			for q, err := range r.criticalEach(us, base, axial, s) {
-				it.critical[idx[q]] = err
-			}
-		}
-	}()
 	// Each storey's list of stability indices, made here as setStability
 	// makes it for the first strength combination: the workers' analyses
 	// read the storeys (unitShears) while the groups fill the lists, so
@@ -487,6 +462,70 @@ func (r *Result) iterateAll(pl *plan, base *frame.Model, second []int) *iteratio
 			break
 		}
 	}
+	// The units of each stiffness, in the order it first comes, but for
+	// those whose first-order solve failed.
+	var stiffs []Stiffness
+	for _, i := range second {
+		if s := pl.units[i].method.Stiffness; !slices.Contains(stiffs, s) {
+			stiffs = append(stiffs, s)
+		}
+	}
+	unitsOf := func(s Stiffness) (us []*unit, idx []int) {
+		for _, i := range second {
+			if pl.units[i].method.Stiffness == s && it.first[i] == nil {
+				us, idx = append(us, &pl.units[i]), append(idx, i)
+			}
+		}
+		return us, idx
+	}
+	it.wg.Add(2)
+	go func() {
+		defer it.wg.Done()
+		defer close(it.critDone)
+		for _, s := range stiffs {
+			us, idx := unitsOf(s)
+			if len(us) == 0 {
+				continue
+			}
+			axial := make([][]float64, len(idx))
+			for q, i := range idx {
+				axial[q] = ns[i]
+			}
+			if !criticalTogether {
+				for q, u := range us {
+					it.critical[idx[q]] = r.critical(u, base, axial[q], s)
+				}
+				continue
+			}
+			for q, err := range r.criticalEach(us, base, axial, s) {
+				it.critical[idx[q]] = err
+			}
+		}
+	}()
+	// The storeys' first-order analyses, on the factor of the first-order
+	// solution of each stiffness, every unit's together (each its own
+	// solve where that failed: its error names the storeys).
+	go func() {
+		defer it.wg.Done()
+		defer close(it.storeysDone)
+		for _, s := range stiffs {
+			us, idx := unitsOf(s)
+			var first *frame.Solution
+			if shareFactors {
+				first, _ = r.firstOrder(base, s)
+			}
+			if first == nil {
+				for q, u := range us {
+					it.storeys[idx[q]], it.storeyErr[idx[q]] = r.storeySolve(u, base, s, nil)
+				}
+				continue
+			}
+			sas, errs := r.storeySolveAll(us, base, s, first)
+			for q, i := range idx {
+				it.storeys[i], it.storeyErr[i] = sas[q], errs[q]
+			}
+		}
+	}()
 	next := make(chan int, len(second))
 	for _, i := range second {
 		it.done[i] = make(chan struct{})
@@ -499,17 +538,7 @@ func (r *Result) iterateAll(pl *plan, base *frame.Model, second []int) *iteratio
 			defer it.wg.Done()
 			for i := range next {
 				if it.first[i] == nil && !it.stop.Load() {
-					u := &pl.units[i]
-					if it.iterated[i] = r.iterateFrom(u, mos[i], ns[i]); it.iterated[i] == nil {
-						// On the factor of the first-order solution of the
-						// stiffness (its own solve where that failed: its
-						// error names the storeys).
-						var first *frame.Solution
-						if shareFactors {
-							first, _ = r.firstOrder(base, u.method.Stiffness)
-						}
-						it.storeys[i], it.storeyErr[i] = r.storeySolve(u, base, u.method.Stiffness, first)
-					}
+					it.iterated[i] = r.iterateFrom(&pl.units[i], mos[i], ns[i])
 				}
 				close(it.done[i])
 			}
@@ -772,11 +801,13 @@ func (r *Result) envelopes(pl *plan, sv *solved, lay *patterns.Layout, reqs []re
 				return nil, err
 			}
 		} else {
-			// The storeys' first-order analyses, made with the iteration.
-			if err := its.storeyErr[g.units[0]]; err != nil {
+			// The storeys' first-order analyses, made beside the
+			// iterations.
+			sa, err := its.storey(g.units[0])
+			if err != nil {
 				return nil, err
 			}
-			r.setStoreys(&pl.units[g.units[0]], sv.model, its.storeys[g.units[0]])
+			r.setStoreys(&pl.units[g.units[0]], sv.model, sa)
 			its.storeys[g.units[0]] = nil
 		}
 		for _, i := range g.units {
