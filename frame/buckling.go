@@ -364,12 +364,19 @@ func (b *Buckling) Factors(axials [][]float64) ([]float64, error) {
 	// with the fixed start's every direction mixed in: the modes of a
 	// frame's combinations are much alike, and lie mostly in the space
 	// the first set's iteration has spanned.
-	mus, errs, first := b.lanczos(run[:min(1, len(run))], [][]float64{slices.Clone(r)}, [][]float64{slices.Clone(z)}, len(run) > 1)
+	mus, errs, first := b.lanczos(run[:min(1, len(run))], [][]float64{slices.Clone(r)}, [][]float64{slices.Clone(z)}, len(run) > 1, nil)
 	if len(run) > 1 {
 		rest := run[1:]
 		var rs, zs [][]float64
+		pool := &vectors{size: b.size}
 		if first != nil {
 			rs, zs = b.ritzStarts(rest, first, r, z)
+			// The first set's vectors, read no more, are the later sets'
+			// to write over (memory already touched: fresh memory is slow
+			// to map in).
+			pool.put(first.qs)
+			pool.put(first.ps)
+			first = nil
 		} else {
 			rs, zs = make([][]float64, len(rest)), make([][]float64, len(rest))
 			for i := range rest {
@@ -387,7 +394,7 @@ func (b *Buckling) Factors(axials [][]float64) ([]float64, error) {
 			go func() {
 				defer wg.Done()
 				lo, hi := i*len(rest)/parts, (i+1)*len(rest)/parts
-				ms[i], es[i], _ = b.lanczos(rest[lo:hi], rs[lo:hi], zs[lo:hi], false)
+				ms[i], es[i], _ = b.lanczos(rest[lo:hi], rs[lo:hi], zs[lo:hi], false, pool)
 			}()
 		}
 		wg.Wait()
@@ -477,8 +484,10 @@ func (b *Buckling) definite(lambda float64, axial []float64, sc *certifyScratch)
 // the K inner product with full reorthogonalization, every set's side by
 // side, set c from r0[c] (w0[c] = K r0[c]; both its own, overwritten:
 // they become its first Lanczos vector). With keep, first is the first
-// set's iteration once its μ is found (nil when it is not).
-func (b *Buckling) lanczos(axials [][]float64, r0, w0 [][]float64, keep bool) (mus []float64, errs []error, first *krylov) {
+// set's iteration once its μ is found (nil when it is not). Its vectors
+// are taken from pool, and a set's given back once it is done, when pool
+// is not nil (without keep); else made.
+func (b *Buckling) lanczos(axials [][]float64, r0, w0 [][]float64, keep bool, pool *vectors) (mus []float64, errs []error, first *krylov) {
 	size, k := b.size, len(axials)
 	type recurrence struct {
 		qs, ps      [][]float64 // K-orthonormal q, and p = K q
@@ -549,8 +558,8 @@ func (b *Buckling) lanczos(axials [][]float64, r0, w0 [][]float64, keep bool) (m
 		b.solveK(block, na)
 		for a, c := range active {
 			rc := &recs[c]
-			rc.r, rc.w = make([]float64, size), make([]float64, size)
-			for i := range size {
+			rc.r, rc.w = pool.get(size), pool.get(size)
+			for i := range size { // every entry written
 				rc.r[i], rc.w[i] = block[i*na+a], out[i*na+a]
 			}
 			q, p := rc.qs[j], rc.ps[j]
@@ -578,12 +587,63 @@ func (b *Buckling) lanczos(axials [][]float64, r0, w0 [][]float64, keep bool) (m
 			if rc.done {
 				if keep && c == 0 && errs[c] == nil {
 					first = &krylov{rc.qs, rc.ps, rc.alpha, rc.beta}
+				} else if !keep {
+					pool.put(rc.qs)
+					pool.put(rc.ps)
 				}
 				rc.qs, rc.ps = nil, nil
 			}
 		}
 	}
 	return mus, errs, first
+}
+
+// vectors lends the Lanczos iterations of one call of [Buckling.Factors]
+// vectors of size numbers, those of the iterations done before them when
+// there are any; safe for concurrent use. A nil *vectors makes each.
+type vectors struct {
+	mu   sync.Mutex
+	size int
+	free [][]float64
+}
+
+// poisonVectors, set by the tests, fills each vector lent again with NaN:
+// a value read before it is written would show in every result.
+var poisonVectors = false
+
+// get returns a vector of size numbers, of any values (p.size when p is
+// not nil).
+func (p *vectors) get(size int) []float64 {
+	if p != nil {
+		p.mu.Lock()
+		defer p.mu.Unlock()
+		if n := len(p.free); n > 0 {
+			v := p.free[n-1]
+			p.free = p.free[:n-1]
+			if poisonVectors {
+				for i := range v {
+					v[i] = math.NaN()
+				}
+			}
+			return v
+		}
+	}
+	return make([]float64, size)
+}
+
+// put gives the vectors vs back to p, to be written over; nothing when p
+// is nil.
+func (p *vectors) put(vs [][]float64) {
+	if p == nil {
+		return
+	}
+	p.mu.Lock()
+	defer p.mu.Unlock()
+	for _, v := range vs {
+		if len(v) == p.size {
+			p.free = append(p.free, v)
+		}
+	}
 }
 
 // ritzVector returns Q s and P s for s the eigenvector of the largest

@@ -73,7 +73,7 @@ func TestRitzStarts(t *testing.T) {
 	}
 	r := append([]float64(nil), z...)
 	b.solveK(r, 1)
-	_, errs, first := b.lanczos(sets[:1], [][]float64{r}, [][]float64{z}, true)
+	_, errs, first := b.lanczos(sets[:1], [][]float64{r}, [][]float64{z}, true, nil)
 	if errs[0] != nil || first == nil {
 		t.Fatal("the first set's iteration failed", errs[0])
 	}
@@ -191,23 +191,88 @@ func combinedSets(tb testing.TB, bays, storeys int) (*Model, [][]float64) {
 // regular frames of combinedSets, the nine sets of axial forces those of
 // combinations of three load cases, whose modes are alike as a building
 // frame's are (the sets of BenchmarkCriticalFactors differ member by
-// member at random). cpu-ns/op as there.
+// member at random); "alone" finds each set's factor by a call of its
+// own on the same factor of K, as a second-order run did for each of its
+// combinations. cpu-ns/op as there.
 func BenchmarkCriticalCombinations(b *testing.B) {
 	for _, size := range [][2]int{{10, 10}, {30, 20}, {30, 60}} {
 		mo, sets := combinedSets(b, size[0], size[1])
-		b.Run(fmt.Sprintf("%dx%d", size[0], size[1]), func(b *testing.B) {
-			b.ReportAllocs()
-			start := cpuTime()
-			for b.Loop() {
-				bk, err := NewBuckling(mo)
-				if err != nil {
-					b.Fatal(err)
-				}
-				if _, err := bk.Factors(sets); err != nil {
-					b.Fatal(err)
-				}
+		for _, alone := range []bool{false, true} {
+			name := fmt.Sprintf("%dx%d", size[0], size[1])
+			if alone {
+				name += "/alone"
 			}
-			b.ReportMetric(float64(cpuTime()-start)/float64(b.N), "cpu-ns/op")
-		})
+			b.Run(name, func(b *testing.B) {
+				b.ReportAllocs()
+				start := cpuTime()
+				for b.Loop() {
+					bk, err := NewBuckling(mo)
+					if err != nil {
+						b.Fatal(err)
+					}
+					if !alone {
+						if _, err := bk.Factors(sets); err != nil {
+							b.Fatal(err)
+						}
+						continue
+					}
+					for _, set := range sets {
+						if _, err := bk.Factor(set); err != nil {
+							b.Fatal(err)
+						}
+					}
+				}
+				b.ReportMetric(float64(cpuTime()-start)/float64(b.N), "cpu-ns/op")
+			})
+		}
+	}
+}
+
+// TestFactorsLendVectors checks that the later sets' Lanczos iterations,
+// which write over the vectors of the first set's and of those done
+// before them (vectors), read none of them before writing it: with each
+// vector lent again filled with NaN (poisonVectors) every factor is the
+// same to the last bit, on one processor and two, on the regular frame
+// with the combinations of combinedSets and on a random frame whose sets
+// differ member by member (both checked against the search of
+// factorizations, criticalBisect, to 1e-6).
+func TestFactorsLendVectors(t *testing.T) {
+	rng := rand.New(rand.NewPCG(41, 7))
+	rmo, axial := randomFrame(rng, 4, 6)
+	gmo, gsets := combinedSets(t, 5, 7)
+	for _, tc := range []struct {
+		name string
+		mo   *Model
+		sets [][]float64
+	}{{"regular 5 x 7", gmo, gsets}, {"random 4 x 6", rmo, randomSets(rng, axial, 6)}} {
+		for _, procs := range []int{1, 2} {
+			t.Run(fmt.Sprintf("%s/GOMAXPROCS=%d", tc.name, procs), func(t *testing.T) {
+				defer runtime.GOMAXPROCS(runtime.GOMAXPROCS(procs))
+				b, err := NewBuckling(tc.mo)
+				if err != nil {
+					t.Fatal(err)
+				}
+				want, err := b.Factors(tc.sets)
+				if err != nil {
+					t.Fatal(err)
+				}
+				poisonVectors = true
+				defer func() { poisonVectors = false }()
+				got, err := b.Factors(tc.sets)
+				if err != nil {
+					t.Fatal(err)
+				}
+				for i := range want {
+					if got[i] != want[i] {
+						t.Errorf("set %d: αcr %.17g with vectors lent again, %.17g", i, got[i], want[i])
+					}
+					if i < 3 {
+						if bis, err := criticalBisect(tc.mo, tc.sets[i]); err != nil || !within(got[i], bis, 1e-6) {
+							t.Errorf("set %d: αcr %.9g, bisection %.9g (%v)", i, got[i], bis, err)
+						}
+					}
+				}
+			})
+		}
 	}
 }

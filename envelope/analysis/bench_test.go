@@ -4,6 +4,8 @@ import (
 	"context"
 	"fmt"
 	"testing"
+
+	"govern/envelope/internal/cputime"
 )
 
 // BenchmarkRun measures Run alone on regular frames built in code
@@ -11,23 +13,37 @@ import (
 // at 11 stations, check the statics; with "-starter" also stations at the
 // column faces and deflections under a service combination. The whole
 // command, reading and writing included, is cmd/govern's BenchmarkRun.
+// On the 30 × 60 frame with the starter's extras it also measures the
+// run with the critical load factors and storeys' stability found before
+// the envelopes ("-before", stabilityBeside off) rather than beside them.
+// cpu-ns/op is the process's processor time (user and system, every
+// thread) per operation: on a machine shared with other work it is the
+// steadier figure.
 func BenchmarkRun(b *testing.B) {
 	for _, size := range []struct {
 		bays, storeys int
 		starter       bool
-	}{{3, 3, false}, {10, 10, false}, {30, 20, false}, {30, 60, false}, {30, 60, true}} {
+		before        bool
+	}{{3, 3, false, false}, {10, 10, false, false}, {30, 20, false, false}, {30, 60, false, false}, {30, 60, true, false}, {30, 60, true, true}} {
 		name := fmt.Sprintf("%dx%d", size.bays, size.storeys)
 		if size.starter {
 			name += "-starter"
 		}
+		if size.before {
+			name += "-before"
+		}
 		job := regularJob(size.bays, size.storeys, size.starter)
 		b.Run(name, func(b *testing.B) {
+			stabilityBeside = !size.before
+			defer func() { stabilityBeside = true }()
 			b.ReportAllocs()
+			start := cpuTime()
 			for b.Loop() {
 				if _, err := Run(context.Background(), job, Options{}); err != nil {
 					b.Fatal(err)
 				}
 			}
+			b.ReportMetric(float64(cpuTime()-start)/float64(b.N), "cpu-ns/op")
 		})
 	}
 }
@@ -50,3 +66,7 @@ func BenchmarkCases(b *testing.B) {
 		})
 	}
 }
+
+// cpuTime returns the processor time the process has used, user and
+// system, in nanoseconds (0 where it is not read).
+func cpuTime() int64 { return int64(cputime.Now()) }

@@ -28,14 +28,17 @@ import (
 //     grown to twice them (frame's default: every combination's solves
 //     make as much garbage again); and for each second-order
 //     combination, the last solve of its iteration, kept from the
-//     iterations (made side by side, before the envelopes) until its
-//     envelopes solve their cases on its factor: unitBands band matrices
-//     of n × (kb + 1), its factor and elements with the heap's growth
-//     (fitted).
+//     iterations (made side by side, beside the envelopes of the
+//     combinations before it) until its envelopes solve their cases on
+//     its factor: unitBands band matrices of n × (kb + 1), its factor and
+//     elements with the heap's growth (fitted).
 //
 // The critical load factors' Lanczos vectors and the storeys' solves are
-// not counted apart: they are formed before the envelopes, on the
-// solution's factor, and take less than the envelopes then do.
+// not counted apart: they are formed on the solution's factor beside the
+// first members' envelopes (first order) or the iterations (second
+// order), and let go well before the envelopes are whole (the measured
+// peaks of the 30 × 60, 60 × 60 and 20 × 200 frames grew by 0 to 2 %
+// when they moved there from before the envelopes).
 const (
 	firstGrowth = 1.2
 	unitBands   = 2.5

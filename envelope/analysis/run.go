@@ -262,40 +262,56 @@ func Run(ctx context.Context, job *Job, opt Options) (*Result, error) {
 		report(opt, Progress{Phase: fmt.Sprintf("solved %d loads; enveloping stations", len(lay.Model.Cases)), Total: int64(total * groups), Done: set.Progress})
 	}
 	r.Storeys = storeysOf(job)
+	// The requests of the nodes' displacements and the storeys' drifts,
+	// read from the storeys before their stability is written beside.
+	nodes, drifts := r.displacementRequests()
 	var stability error // reported after the envelopes' errors, which say more
+	var stable chan struct{}
 	if pl.simple {
 		// The combinations' axial forces and storey drifts, solved on the
-		// factor of sol, whose stiffness they share: before the envelopes,
-		// whose memory then reuses theirs.
+		// factor of sol, whose stiffness they share, and their critical
+		// load factors: beside the envelopes, which read nothing of them
+		// (the first combination's Lanczos iteration is one processor's
+		// work, the envelopes' members fill the other). Closed when done.
 		us := make([]*unit, len(pl.units))
 		for i := range us {
 			us[i] = &pl.units[i]
 		}
-		stability = r.firstOrderStability(us, sv.model, Nominal, sol)
+		stable = make(chan struct{})
+		go func() {
+			defer close(stable)
+			stability = r.firstOrderStability(us, sv.model, Nominal, sol)
+		}()
+		if !stabilityBeside {
+			<-stable
+		}
+	}
+	var env, across *envelope.Envelope // across: deflections across the lines of runs with a ridge
+	if pl.simple {
+		set.Factors = job.envelopeFactors(len(sv.kinds))
+		env, err = envelope.Compute(sol, sv.combinations, set, lay)
+		if err == nil {
+			idx := make([]int, len(sv.combinations))
+			for k := range idx {
+				idx[k] = k
+			}
+			for _, vr := range []*valuesRequest{nodes, drifts} {
+				if err = vr.add(sol, lay, sv.combinations, idx, set); err != nil {
+					break
+				}
+			}
+		}
+		<-stable // its error after the envelopes'
+		if err != nil {
+			return nil, err
+		}
+		if stability != nil {
+			return nil, stability
+		}
 		for i := range pl.units {
 			u := &pl.units[i]
 			cb := &r.Combinations[u.k]
 			cb.CriticalFactor, cb.CriticalNominal = u.critical, u.nominal
-		}
-	}
-	nodes, drifts := r.displacementRequests()
-	var env, across *envelope.Envelope // across: deflections across the lines of runs with a ridge
-	if pl.simple {
-		set.Factors = job.envelopeFactors(len(sv.kinds))
-		if env, err = envelope.Compute(sol, sv.combinations, set, lay); err != nil {
-			return nil, err
-		}
-		idx := make([]int, len(sv.combinations))
-		for k := range idx {
-			idx[k] = k
-		}
-		for _, vr := range []*valuesRequest{nodes, drifts} {
-			if err := vr.add(sol, lay, sv.combinations, idx, set); err != nil {
-				return nil, err
-			}
-		}
-		if stability != nil {
-			return nil, stability
 		}
 	} else {
 		// Member factors scale each case's and piece's effects on the
@@ -384,6 +400,11 @@ func Run(ctx context.Context, job *Job, opt Options) (*Result, error) {
 	r.Warnings = append(r.Warnings, newPlausibility(job).spanWarnings(r)...)
 	return r, nil
 }
+
+// stabilityBeside is whether a first-order run finds its combinations'
+// critical load factors and storeys' stability beside the envelopes
+// rather than before them; the tests turn it off to compare.
+var stabilityBeside = true
 
 func report(opt Options, p Progress) {
 	if opt.Progress != nil {

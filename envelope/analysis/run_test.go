@@ -3,7 +3,9 @@ package analysis
 import (
 	"context"
 	"errors"
+	"fmt"
 	"math"
+	"runtime"
 	"strings"
 	"testing"
 
@@ -288,5 +290,43 @@ func TestShownMember(t *testing.T) {
 	}
 	if got.Stations[0].X != 0 || got.Stations[0].M.Max != 2 || em.Stations[0].M.Max != 5 {
 		t.Errorf("flipped %+v; the original must be kept: %+v", got.Stations[0], em.Stations[0])
+	}
+}
+
+// TestStabilityBesideEnvelopesChangesNothing checks that a first-order
+// run that finds the critical load factors and storeys' stability beside
+// the envelopes gives every result, warnings and their order included,
+// to the last bit as one that finds them first (stabilityBeside off), on
+// one processor and two: the regular frame with patterned live loads,
+// whose combinations are warned of for αcr below 10, and the cantilever
+// whose combination buckles (αcr = 0.88, against the Euler load of a
+// cantilever, π²EI/(4L²): TestBucklingIsAnError).
+func TestStabilityBesideEnvelopesChangesNothing(t *testing.T) {
+	for _, tc := range []struct {
+		name string
+		job  func() *Job
+	}{
+		{"regular 6 x 8", func() *Job { return regularJob(6, 8, true) }},
+		{"buckling cantilever", func() *Job { return cantileverJob(7, 0.045, Method{}) }},
+	} {
+		for _, procs := range []int{1, 2} {
+			t.Run(fmt.Sprintf("%s/GOMAXPROCS=%d", tc.name, procs), func(t *testing.T) {
+				defer runtime.GOMAXPROCS(runtime.GOMAXPROCS(procs))
+				got, err := Run(context.Background(), tc.job(), Options{})
+				if err != nil {
+					t.Fatal(err)
+				}
+				if len(got.Warnings) == 0 {
+					t.Fatal("no warning: the case tests nothing of the warnings' order")
+				}
+				stabilityBeside = false
+				defer func() { stabilityBeside = true }()
+				want, err := Run(context.Background(), tc.job(), Options{})
+				if err != nil {
+					t.Fatal(err)
+				}
+				sameResults(t, got, want, "beside the envelopes")
+			})
+		}
 	}
 }

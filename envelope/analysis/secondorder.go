@@ -7,6 +7,7 @@ import (
 	"runtime"
 	"slices"
 	"sync"
+	"sync/atomic"
 
 	"govern/combos"
 	"govern/envelope"
@@ -290,26 +291,14 @@ func (j *Job) tauB(secs []frame.Section, members []frame.Member, axial []float64
 	return out, mem
 }
 
-// iterate solves unit u's combination, every case at its factor (times
-// u.scale) and every piece loaded, in second order: the axial forces of
-// one solve give the geometric stiffness of the next until they change by
-// less than the tolerance. It sets u.axial, u.iteration and u.final, and
-// u's critical load factors from the first-order axial forces.
-//
-// The first-order solve is made on the factor of the first-order
-// solution of its stiffness (firstOrder; the same numbers to the last
-// bit, frame.Solution.SolveCases). The steps between leave out the condition
-// estimate (frame.Options.SkipCondition): their results are not reported,
-// and the last solve, with the axial forces and τb reductions the
-// envelopes use, is estimated, refused and warned of as every solve is.
-func (r *Result) iterate(u *unit, base *frame.Model, stiff Stiffness) error {
-	job := r.Job
-	name := job.Combinations[u.k].Name
-	tol := job.Sway.Tolerance
-	if tol == 0 {
-		tol = DefaultTolerance
-	}
-	secs, mems := job.stiffnessOf(base, stiff)
+// firstAxial returns unit u's combination as a model with stiffness stiff
+// (combined: every case at its factor times u.scale and every piece
+// loaded, as one case) and the axial forces of its first-order solve,
+// made on the factor of the first-order solution of the stiffness
+// (firstOrder; the same numbers to the last bit,
+// frame.Solution.SolveCases).
+func (r *Result) firstAxial(u *unit, base *frame.Model, stiff Stiffness) (*frame.Model, []float64, error) {
+	secs, mems := r.Job.stiffnessOf(base, stiff)
 	mo := combined(base, secs, mems, u.cb, u.scale, nil)
 	var sol *frame.Solution
 	var err error
@@ -322,12 +311,31 @@ func (r *Result) iterate(u *unit, base *frame.Model, stiff Stiffness) error {
 		sol, err = frame.SolveWith(mo, r.solver)
 	}
 	if err != nil {
-		return fmt.Errorf("combination %q: %w", name, err)
+		return nil, nil, fmt.Errorf("combination %q: %w", r.Job.Combinations[u.k].Name, err)
 	}
-	n := axialForces(sol, 0)
-	if err := r.critical(u, base, n, stiff); err != nil {
-		return err
+	return mo, axialForces(sol, 0), nil
+}
+
+// iterateFrom solves unit u's combination, given as a model mo with its
+// stiffness with the axial forces n of its first-order solve
+// (firstAxial), in second order: the axial forces of one solve give the
+// geometric stiffness of the next until they change by less than the
+// tolerance. It sets u.axial, u.iteration and u.final (u's critical load
+// factors are found apart: iterateAll). The steps between leave out the
+// condition estimate (frame.Options.SkipCondition): their results are not
+// reported, and the last solve, with the axial forces and τb reductions
+// the envelopes use, is estimated, refused and warned of as every solve
+// is.
+func (r *Result) iterateFrom(u *unit, mo *frame.Model, n []float64) error {
+	job := r.Job
+	name := job.Combinations[u.k].Name
+	tol := job.Sway.Tolerance
+	if tol == 0 {
+		tol = DefaultTolerance
 	}
+	secs, mems := mo.Sections, mo.Members
+	var sol *frame.Solution
+	var err error
 	alpha := 1.0
 	if u.method.Allowable {
 		alpha = AllowableScale
@@ -374,6 +382,176 @@ func (r *Result) iterate(u *unit, base *frame.Model, stiff Stiffness) error {
 	return nil
 }
 
+// iterations are the second-order units' iterations under way
+// (iterateAll), by index into the plan's units.
+type iterations struct {
+	first, critical, iterated []error // of the first-order solve, αcr, the iteration
+	// The storeys' first-order analyses (storeySolveAll), made beside the
+	// iterations, and their errors: filled in and returned in the groups'
+	// order (storey).
+	storeys     []*storeyAnalysis
+	storeyErr   []error
+	storeysDone chan struct{}
+	done        []chan struct{}
+	critDone    chan struct{}
+	stop        atomic.Bool
+	wg          sync.WaitGroup
+}
+
+// err waits for unit i's iteration and critical load factors and returns
+// its error: the first of its first-order solve's, its critical load
+// factor's and its iteration's, nil for none.
+func (it *iterations) err(i int) error {
+	<-it.done[i]
+	<-it.critDone
+	switch {
+	case it.first[i] != nil:
+		return it.first[i]
+	case it.critical[i] != nil:
+		return it.critical[i]
+	}
+	return it.iterated[i]
+}
+
+// storey waits for the storeys' analyses and returns unit i's, and its
+// error.
+func (it *iterations) storey(i int) (*storeyAnalysis, error) {
+	<-it.storeysDone
+	return it.storeys[i], it.storeyErr[i]
+}
+
+// close leaves the iterations not begun undone and waits for those under
+// way and the critical load factors.
+func (it *iterations) close() {
+	it.stop.Store(true)
+	it.wg.Wait()
+}
+
+// iterateAll starts the iterations of the second-order units second
+// (indices into pl.units, in the groups' order) once their first-order
+// solves are made, side by side, and returns them under way: each unit's
+// result is waited for as the envelopes come to it (iterations.err), so
+// that the first groups are enveloped while the later units iterate. The
+// iterations are independent of each other and of the envelopes: they
+// are taken in order by one worker per processor. The units' critical
+// load factors are found beside them, every unit of a stiffness on one
+// factor of it (criticalEach: the later units' Lanczos iterations start
+// from the first's, bucklingstart.go in package frame), each stiffness in
+// the order it first comes. The caller closes it.
+func (r *Result) iterateAll(pl *plan, base *frame.Model, second []int) *iterations {
+	n := len(pl.units)
+	it := &iterations{first: make([]error, n), critical: make([]error, n), iterated: make([]error, n),
+		storeys: make([]*storeyAnalysis, n), storeyErr: make([]error, n), storeysDone: make(chan struct{}),
+		done: make([]chan struct{}, n), critDone: make(chan struct{})}
+	mos, ns := make([]*frame.Model, n), make([][]float64, n)
+	eachShared(len(second), func(q int) {
+		i := second[q]
+		mos[i], ns[i], it.first[i] = r.firstAxial(&pl.units[i], base, pl.units[i].method.Stiffness)
+	})
+	// Each storey's list of stability indices, made here as setStability
+	// makes it for the first strength combination: the workers' analyses
+	// read the storeys (unitShears) while the groups fill the lists, so
+	// they are not made then.
+	for _, i := range second {
+		if !r.Job.Combinations[pl.units[i].k].Service {
+			for si := range r.Storeys {
+				if r.Storeys[si].Stability == nil {
+					r.Storeys[si].Stability = make([]StoreyStability, len(r.Job.Combinations))
+				}
+			}
+			break
+		}
+	}
+	// The units of each stiffness, in the order it first comes, but for
+	// those whose first-order solve failed.
+	var stiffs []Stiffness
+	for _, i := range second {
+		if s := pl.units[i].method.Stiffness; !slices.Contains(stiffs, s) {
+			stiffs = append(stiffs, s)
+		}
+	}
+	unitsOf := func(s Stiffness) (us []*unit, idx []int) {
+		for _, i := range second {
+			if pl.units[i].method.Stiffness == s && it.first[i] == nil {
+				us, idx = append(us, &pl.units[i]), append(idx, i)
+			}
+		}
+		return us, idx
+	}
+	it.wg.Add(2)
+	go func() {
+		defer it.wg.Done()
+		defer close(it.critDone)
+		for _, s := range stiffs {
+			us, idx := unitsOf(s)
+			if len(us) == 0 {
+				continue
+			}
+			axial := make([][]float64, len(idx))
+			for q, i := range idx {
+				axial[q] = ns[i]
+			}
+			if !criticalTogether {
+				for q, u := range us {
+					it.critical[idx[q]] = r.critical(u, base, axial[q], s)
+				}
+				continue
+			}
+			for q, err := range r.criticalEach(us, base, axial, s) {
+				it.critical[idx[q]] = err
+			}
+		}
+	}()
+	// The storeys' first-order analyses, on the factor of the first-order
+	// solution of each stiffness, every unit's together (each its own
+	// solve where that failed: its error names the storeys).
+	go func() {
+		defer it.wg.Done()
+		defer close(it.storeysDone)
+		for _, s := range stiffs {
+			us, idx := unitsOf(s)
+			var first *frame.Solution
+			if shareFactors {
+				first, _ = r.firstOrder(base, s)
+			}
+			if first == nil {
+				for q, u := range us {
+					it.storeys[idx[q]], it.storeyErr[idx[q]] = r.storeySolve(u, base, s, nil)
+				}
+				continue
+			}
+			sas, errs := r.storeySolveAll(us, base, s, first)
+			for q, i := range idx {
+				it.storeys[i], it.storeyErr[i] = sas[q], errs[q]
+			}
+		}
+	}()
+	next := make(chan int, len(second))
+	for _, i := range second {
+		it.done[i] = make(chan struct{})
+		next <- i
+	}
+	close(next)
+	for range min(runtime.GOMAXPROCS(0), len(second)) {
+		it.wg.Add(1)
+		go func() {
+			defer it.wg.Done()
+			for i := range next {
+				if it.first[i] == nil && !it.stop.Load() {
+					it.iterated[i] = r.iterateFrom(&pl.units[i], mos[i], ns[i])
+				}
+				close(it.done[i])
+			}
+		}()
+	}
+	if !iterationsBeside {
+		for _, i := range second {
+			<-it.done[i]
+		}
+	}
+	return it
+}
+
 // critical sets u's critical load factors, for the combination as
 // written, from the first-order axial forces n of its loads at u.scale.
 func (r *Result) critical(u *unit, base *frame.Model, n []float64, stiff Stiffness) error {
@@ -384,35 +562,36 @@ func (r *Result) critical(u *unit, base *frame.Model, n []float64, stiff Stiffne
 // its first-order axial forces ns[i], found side by side on one factor of
 // the stiffness (frame.Buckling.Factors); the first error in their order.
 func (r *Result) criticalOf(us []*unit, base *frame.Model, ns [][]float64, stiff Stiffness) error {
-	job := r.Job
-	as, err := r.criticalFactors(base, stiff, ns)
-	if err != nil && len(us) > 1 {
-		// Which combination: each alone.
-		for i, u := range us {
-			if err := r.critical(u, base, ns[i], stiff); err != nil {
-				return err
-			}
+	for _, err := range r.criticalEach(us, base, ns, stiff) {
+		if err != nil {
+			return err
 		}
-		return nil
+	}
+	return nil
+}
+
+// criticalEach is criticalOf with each unit's error, nil for none: a
+// second-order unit's when its factor is not above its limit; where the
+// factors side by side fail, each unit's own, found alone.
+func (r *Result) criticalEach(us []*unit, base *frame.Model, ns [][]float64, stiff Stiffness) []error {
+	job := r.Job
+	errs := make([]error, len(us))
+	as, err := r.criticalFactors(base, stiff, ns)
+	noms := as
+	if err == nil && stiff != Nominal {
+		noms, err = r.criticalFactors(base, Nominal, ns)
 	}
 	if err != nil {
-		return fmt.Errorf("combination %q: critical load factor: %w", job.Combinations[us[0].k].Name, err)
-	}
-	noms := as
-	if stiff != Nominal {
-		if noms, err = r.criticalFactors(base, Nominal, ns); err != nil {
-			if len(us) > 1 {
-				for i, u := range us {
-					if err := r.critical(u, base, ns[i], stiff); err != nil {
-						return err
-					}
-				}
-				return nil
+		if len(us) > 1 {
+			// Which combination: each alone.
+			for i, u := range us {
+				errs[i] = r.critical(u, base, ns[i], stiff)
 			}
-			return fmt.Errorf("combination %q: critical load factor: %w", job.Combinations[us[0].k].Name, err)
+			return errs
 		}
+		errs[0] = fmt.Errorf("combination %q: critical load factor: %w", job.Combinations[us[0].k].Name, err)
+		return errs
 	}
-	var errs []error
 	for i, u := range us {
 		name := job.Combinations[u.k].Name
 		u.critical = sixFigures(as[i] * u.scale)
@@ -424,7 +603,7 @@ func (r *Result) criticalOf(us []*unit, base *frame.Model, ns [][]float64, stiff
 		if !(u.critical > limit) {
 			err := fmt.Errorf("%w: combination %q: the critical load factor αcr = %.4g is not above %g: the frame buckles under it (with %s stiffness)", ErrBuckles, name, u.critical, limit, stiff)
 			if u.method.SecondOrder {
-				errs = append(errs, err)
+				errs[i] = err
 				continue
 			}
 			// A first-order analysis can still be made; what it gives does
@@ -434,10 +613,7 @@ func (r *Result) criticalOf(us []*unit, base *frame.Model, ns [][]float64, stiff
 			r.mu.Unlock()
 		}
 	}
-	if len(errs) > 0 {
-		return errs[0]
-	}
-	return nil
+	return errs
 }
 
 // bucklingOnce is the factored elastic stiffness of one stiffness, made
@@ -542,30 +718,14 @@ func (r *Result) envelopes(pl *plan, sv *solved, lay *patterns.Layout, reqs []re
 		}
 		groups[g].units = append(groups[g].units, i)
 	}
-	// The second-order units' iterations are independent of each other
-	// and of the envelopes: they run side by side, taken in the groups'
-	// order by one worker per processor, and each unit's error is
-	// returned where the unit comes in order.
-	iterated := make([]error, len(pl.units))
-	next := make(chan group, len(groups))
+	var second []int // the second-order units, in the groups' order
 	for _, g := range groups {
 		if g.second {
-			next <- g
+			second = append(second, g.units[0])
 		}
 	}
-	close(next)
-	var wg sync.WaitGroup
-	for range min(runtime.GOMAXPROCS(0), len(next)) {
-		wg.Add(1)
-		go func() {
-			defer wg.Done()
-			for g := range next {
-				i := g.units[0]
-				iterated[i] = r.iterate(&pl.units[i], sv.model, g.stiff)
-			}
-		}()
-	}
-	wg.Wait()
+	its := r.iterateAll(pl, sv.model, second)
+	defer its.close()
 	mg := make([]*merger, len(reqs))
 	for i := range reqs {
 		mg[i] = newMerger(job.Combinations)
@@ -581,7 +741,7 @@ func (r *Result) envelopes(pl *plan, sv *solved, lay *patterns.Layout, reqs []re
 			var axial []float64
 			if g.second {
 				u := &pl.units[g.units[0]]
-				if err := iterated[g.units[0]]; err != nil {
+				if err := its.err(g.units[0]); err != nil {
 					return nil, err
 				}
 				axial = u.axial
@@ -641,16 +801,14 @@ func (r *Result) envelopes(pl *plan, sv *solved, lay *patterns.Layout, reqs []re
 				return nil, err
 			}
 		} else {
-			// The storeys' first-order analyses, on the factor of the
-			// first-order solution of the stiffness (its own solve where
-			// that failed: its error names the storeys).
-			var first *frame.Solution
-			if shareFactors {
-				first, _ = r.firstOrder(sv.model, g.stiff)
-			}
-			if err := r.storeyStability(&pl.units[g.units[0]], sv.model, g.stiff, first); err != nil {
+			// The storeys' first-order analyses, made beside the
+			// iterations.
+			sa, err := its.storey(g.units[0])
+			if err != nil {
 				return nil, err
 			}
+			r.setStoreys(&pl.units[g.units[0]], sv.model, sa)
+			its.storeys[g.units[0]] = nil
 		}
 		for _, i := range g.units {
 			u := &pl.units[i]
@@ -700,6 +858,16 @@ func (r *Result) envelopes(pl *plan, sv *solved, lay *patterns.Layout, reqs []re
 	}
 	return out, nil
 }
+
+// iterationsBeside is whether the envelopes of a second-order run's
+// first groups are formed while its later units iterate, rather than
+// after every unit has; the tests turn it off to compare.
+var iterationsBeside = true
+
+// criticalTogether is whether the critical load factors of a
+// second-order run's units are found side by side (iterateAll) rather
+// than each alone; the tests turn it off to compare.
+var criticalTogether = true
 
 // shareFactors is whether a second-order unit's solves reuse the factors
 // of solves with the same stiffness (its first-order solves r.sol's, its

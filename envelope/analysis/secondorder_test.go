@@ -3,8 +3,10 @@ package analysis
 import (
 	"context"
 	"errors"
+	"fmt"
 	"math"
 	"reflect"
+	"runtime"
 	"strings"
 	"testing"
 
@@ -541,6 +543,150 @@ func sameResults(t *testing.T, got, want *Result, why string) {
 	} {
 		if !reflect.DeepEqual(c.got, c.want) {
 			t.Errorf("%s differ %s", c.what, why)
+		}
+	}
+}
+
+// TestSecondOrderCriticalTogether checks that the critical load factors
+// of a second-order run's combinations, found side by side on one factor
+// of the stiffness (iterateAll), are those found for each alone
+// (criticalTogether off) within what Buckling.Factors promises of each
+// (frame.CriticalTol, and the rounding to six figures), the first
+// combination's to the last bit (its iteration is the same), and that
+// nothing else changes: on the regular frame with patterned live loads,
+// with the sections as given and reduced, on one processor and two.
+func TestSecondOrderCriticalTogether(t *testing.T) {
+	const tol = 2e-6 // frame.CriticalTol and two roundings to six figures
+	for _, tc := range []struct {
+		name string
+		set  func(*Job)
+	}{
+		{"nominal", func(*Job) {}},
+		{"strength 0.8", func(j *Job) {
+			j.Sway.StrengthEI, j.Sway.StrengthEA = 0.8, 0.8
+			for k := range j.Methods {
+				j.Methods[k].Stiffness = Strength
+			}
+		}},
+	} {
+		for _, procs := range []int{1, 2} {
+			t.Run(fmt.Sprintf("%s/GOMAXPROCS=%d", tc.name, procs), func(t *testing.T) {
+				defer runtime.GOMAXPROCS(runtime.GOMAXPROCS(procs))
+				job := regularJob(4, 6, true)
+				job.Methods = make([]Method, len(job.Combinations))
+				for k := range job.Methods {
+					job.Methods[k] = Method{SecondOrder: true}
+				}
+				tc.set(job)
+				got, err := Run(context.Background(), job, Options{})
+				if err != nil {
+					t.Fatal(err)
+				}
+				criticalTogether = false
+				defer func() { criticalTogether = true }()
+				want, err := Run(context.Background(), job, Options{})
+				if err != nil {
+					t.Fatal(err)
+				}
+				if len(got.Combinations) < 2 {
+					t.Fatal("fewer than two combinations: nothing is found side by side")
+				}
+				for k := range want.Combinations {
+					g, w := got.Combinations[k], want.Combinations[k]
+					if math.IsInf(w.CriticalFactor, 1) {
+						t.Fatalf("combination %q: αcr = +Inf, nothing to compare", w.Name)
+					}
+					if !within(g.CriticalFactor, w.CriticalFactor, tol) || !within(g.CriticalNominal, w.CriticalNominal, tol) {
+						t.Errorf("combination %q: αcr %.7g and %.7g side by side, %.7g and %.7g alone", w.Name, g.CriticalFactor, g.CriticalNominal, w.CriticalFactor, w.CriticalNominal)
+					}
+					if k == 0 && (g.CriticalFactor != w.CriticalFactor || g.CriticalNominal != w.CriticalNominal) {
+						t.Errorf("the first combination's αcr %v, alone %v", g.CriticalFactor, w.CriticalFactor)
+					}
+					// The rest to the last bit.
+					got.Combinations[k].CriticalFactor, got.Combinations[k].CriticalNominal = w.CriticalFactor, w.CriticalNominal
+				}
+				sameResults(t, got, want, "side by side")
+			})
+		}
+	}
+}
+
+// TestSecondOrderErrorsInOrder checks that a second-order run with
+// several combinations, their critical load factors found side by side,
+// the first enveloped while the others iterate or not (iterationsBeside),
+// returns the error of the first combination in the job's order whose
+// factor is not above 1: the cantilever under a dead load of 7 past its
+// Euler load π²EI/(4L²) = 6.17 (Timoshenko & Gere; TestBucklingIsAnError),
+// the others under 2 to 4.
+func TestSecondOrderErrorsInOrder(t *testing.T) {
+	combination := func(name string, d float64) combos.Combination {
+		return combos.Combination{Name: name, Terms: []combos.Term{{Case: 0, Factor: d}, {Case: 1, Factor: 1}}}
+	}
+	for _, tc := range []struct {
+		name   string
+		factor []float64 // on the dead load of 4 of each combination
+		want   string
+		is     error
+	}{
+		{"the second buckles", []float64{1, 1.75, 1}, `combination "c2"`, ErrBuckles},
+		{"the first and third buckle", []float64{1.75, 1, 2}, `combination "c1"`, ErrBuckles},
+		{"the third buckles", []float64{0.5, 1, 1.75}, `combination "c3"`, ErrBuckles},
+	} {
+		for _, beside := range []bool{true, false} {
+			t.Run(fmt.Sprintf("%s/beside %v", tc.name, beside), func(t *testing.T) {
+				iterationsBeside = beside
+				defer func() { iterationsBeside = true }()
+				job := cantileverJob(4, 0.045, Method{SecondOrder: true})
+				job.Combinations, job.Methods = nil, nil
+				for i, f := range tc.factor {
+					job.Combinations = append(job.Combinations, combination(fmt.Sprintf("c%d", i+1), f))
+					job.Methods = append(job.Methods, Method{SecondOrder: true})
+				}
+				_, err := Run(context.Background(), job, Options{})
+				if !errors.Is(err, tc.is) || !strings.Contains(err.Error(), tc.want) {
+					t.Errorf("got %v, want %v naming %s", err, tc.is, tc.want)
+				}
+			})
+		}
+	}
+}
+
+// TestSecondOrderIterationsBesideChangeNothing checks that a second-order
+// run whose first combinations are enveloped while the later ones iterate
+// gives every result, warnings and their order included, to the last bit
+// as one that envelopes them once all have iterated (iterationsBeside
+// off): on the regular frame with patterned live loads, with the
+// sections as given and with a notional load in each direction (two
+// units a combination), on one processor and two.
+func TestSecondOrderIterationsBesideChangeNothing(t *testing.T) {
+	for _, tc := range []struct {
+		name string
+		set  func(*Job)
+	}{
+		{"nominal", func(*Job) {}},
+		{"notional", func(j *Job) { j.Sway.Notional = NotionalAISC360 }},
+	} {
+		for _, procs := range []int{1, 2} {
+			t.Run(fmt.Sprintf("%s/GOMAXPROCS=%d", tc.name, procs), func(t *testing.T) {
+				defer runtime.GOMAXPROCS(runtime.GOMAXPROCS(procs))
+				job := regularJob(4, 5, true)
+				job.Methods = make([]Method, len(job.Combinations))
+				for k := range job.Methods {
+					job.Methods[k] = Method{SecondOrder: true}
+				}
+				tc.set(job)
+				got, err := Run(context.Background(), job, Options{})
+				if err != nil {
+					t.Fatal(err)
+				}
+				iterationsBeside = false
+				defer func() { iterationsBeside = true }()
+				want, err := Run(context.Background(), job, Options{})
+				if err != nil {
+					t.Fatal(err)
+				}
+				sameResults(t, got, want, "beside the iterations")
+			})
 		}
 	}
 }

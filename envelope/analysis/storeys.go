@@ -235,9 +235,75 @@ func (r *Result) setDisplacements(nodes, drifts *valuesRequest) {
 // factor of first, a first-order solution with that stiffness, when it is
 // not nil.
 func (r *Result) storeyStability(u *unit, base *frame.Model, stiff Stiffness, first *frame.Solution) error {
+	sa, err := r.storeySolve(u, base, stiff, first)
+	if err != nil {
+		return err
+	}
+	r.setStoreys(u, base, sa)
+	return nil
+}
+
+// storeyAnalysis is the first-order analysis of the storeys of a unit's
+// combination (storeySolve), nil for none: its solution, in which its
+// combination at a factor of 1, its horizontal loads alone and the first
+// unit storey shear are the cases comb, lat and shear; its horizontal
+// load at each node.
+type storeyAnalysis struct {
+	sol              *frame.Solution
+	comb, lat, shear int
+	hx               []float64
+}
+
+// storeySolveAll is storeySolve for the units us of stiffness stiff, on
+// the factor of first (not nil): their combinations and horizontal loads
+// and once for all of them the unit storey shears, solved together (the
+// same numbers as each alone to the last bit: the same factor, the same
+// substitutions); where that fails, each alone, for its error.
+func (r *Result) storeySolveAll(us []*unit, base *frame.Model, stiff Stiffness, first *frame.Solution) ([]*storeyAnalysis, []error) {
+	job := r.Job
+	out, errs := make([]*storeyAnalysis, len(us)), make([]error, len(us))
+	if len(r.Storeys) == 0 {
+		return out, errs
+	}
+	secs, mems := job.stiffnessOf(base, stiff)
+	var cases []frame.Case
+	var at []int
+	var hxs [][]float64
+	for i, u := range us {
+		if job.Combinations[u.k].Service {
+			continue
+		}
+		all, hx := r.stabilityCases(base, secs, mems, combined(base, secs, mems, u.cb, 1, nil).Cases[0])
+		// Names of their own: a combination's alternatives share its name.
+		all.Cases[0].Name = fmt.Sprintf("combination %d", len(at)+1)
+		all.Cases[1].Name = fmt.Sprintf("lateral %d", len(at)+1)
+		cases = append(cases, all.Cases...)
+		at, hxs = append(at, i), append(hxs, hx)
+	}
+	if len(at) == 0 {
+		return out, errs
+	}
+	shears := len(cases)
+	cases = append(cases, r.unitShears(base)...)
+	sol, err := first.SolveCases(cases)
+	if err != nil {
+		for _, i := range at {
+			out[i], errs[i] = r.storeySolve(us[i], base, stiff, first)
+		}
+		return out, errs
+	}
+	for q, i := range at {
+		out[i] = &storeyAnalysis{sol: sol, comb: 2 * q, lat: 2*q + 1, shear: shears, hx: hxs[q]}
+	}
+	return out, errs
+}
+
+// storeySolve is storeyStability's analysis, made apart from setStoreys,
+// which fills the storeys from it: it writes nothing of r's.
+func (r *Result) storeySolve(u *unit, base *frame.Model, stiff Stiffness, first *frame.Solution) (*storeyAnalysis, error) {
 	job := r.Job
 	if len(r.Storeys) == 0 || job.Combinations[u.k].Service {
-		return nil
+		return nil, nil
 	}
 	secs, mems := job.stiffnessOf(base, stiff)
 	all, hx := r.stabilityCases(base, secs, mems, combined(base, secs, mems, u.cb, 1, nil).Cases[0])
@@ -251,10 +317,17 @@ func (r *Result) storeyStability(u *unit, base *frame.Model, stiff Stiffness, fi
 		sol, err = frame.SolveWith(all, r.solver)
 	}
 	if err != nil {
-		return fmt.Errorf("combination %q: storey stability: %w", job.Combinations[u.k].Name, err)
+		return nil, fmt.Errorf("combination %q: storey stability: %w", job.Combinations[u.k].Name, err)
 	}
-	r.setStability(u, base, sol, 0, 1, 2, hx)
-	return nil
+	return &storeyAnalysis{sol: sol, comb: 0, lat: 1, shear: 2, hx: hx}, nil
+}
+
+// setStoreys fills the stability indices of every storey for unit u from
+// its analysis sa (storeySolve; nil: nothing to fill).
+func (r *Result) setStoreys(u *unit, base *frame.Model, sa *storeyAnalysis) {
+	if sa != nil {
+		r.setStability(u, base, sa.sol, sa.comb, sa.lat, sa.shear, sa.hx)
+	}
 }
 
 // storeyStabilityAll is storeyStability for the first-order units us
