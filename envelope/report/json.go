@@ -131,51 +131,59 @@ func (p *Report) WriteJSON(w io.Writer) error {
 		}
 		j.raw("\n  ]}")
 	}
+	// What follows the members (spans, reactions, nodes and storeys, the
+	// load cases, the statics) is formatted meanwhile on another processor,
+	// the load cases' results formed there too, into a buffer of its own
+	// that is written after them: the same bytes as one after the other.
+	rest := later(func(t *jsonWriter) {
+		t.raw("\n ]")
+		if len(env.Service) > 0 {
+			p.jsonSpans(t, combo)
+		}
+		t.raw(",\n \"reactions\": [")
+		for i, r := range env.Reactions {
+			// Only the components the support or a spring holds, in "with" too.
+			nd := &mo.Nodes[r.Node]
+			var keys [3]string
+			for d, k := range reactionForces {
+				if nd.Reacts(d) {
+					keys[d] = k
+				}
+			}
+			t.sep(i, ",").raw("\n  {\"node\": ").str(mo.Nodes[r.Node].Name)
+			for d, e := range [3]envelope.Extreme{r.Fx, r.Fy, r.M} {
+				if keys[d] != "" {
+					t.raw(", ")
+					ext(t, keys[d], d, e, keys)
+				}
+			}
+			t.raw("}")
+		}
+		t.raw("\n ]")
+		p.jsonStability(t, combo)
+		p.jsonCases(t)
+		t.raw(",\n \"statics\": [")
+		for i, b := range p.res.Statics {
+			res := func(r frame.Resultant) {
+				t.raw("{\"Fx\": ").num(p.force.Of(r.Fx)).raw(", \"Fy\": ").num(p.force.Of(r.Fy)).raw(", \"M\": ").num(p.moment.Of(r.M)).raw("}")
+			}
+			t.sep(i, ",").raw("\n  {\"case\": ").str(b.Case).raw(", \"loads\": ")
+			res(b.Applied)
+			t.raw(", \"reactions\": ")
+			res(b.Reactions)
+			t.raw(", \"joint_residual\": {\"force\": ").num(p.force.Of(b.JointForce)).raw(", \"moment\": ").num(p.moment.Of(b.JointMoment)).raw("}")
+			t.raw(", \"relative\": ").num(b.Relative()).raw(", \"limit\": ").num(b.Limit())
+			if b.OK() {
+				t.raw(", \"ok\": true}")
+			} else {
+				t.raw(", \"ok\": false}")
+			}
+		}
+		t.raw("\n ]")
+	})
 	inOrder(j, len(env.Members), member)
-	j.raw("\n ]")
-	if len(env.Service) > 0 {
-		p.jsonSpans(j, combo)
-	}
-	j.raw(",\n \"reactions\": [")
-	for i, r := range env.Reactions {
-		// Only the components the support or a spring holds, in "with" too.
-		nd := &mo.Nodes[r.Node]
-		var keys [3]string
-		for d, k := range reactionForces {
-			if nd.Reacts(d) {
-				keys[d] = k
-			}
-		}
-		j.sep(i, ",").raw("\n  {\"node\": ").str(mo.Nodes[r.Node].Name)
-		for d, e := range [3]envelope.Extreme{r.Fx, r.Fy, r.M} {
-			if keys[d] != "" {
-				j.raw(", ")
-				ext(j, keys[d], d, e, keys)
-			}
-		}
-		j.raw("}")
-	}
-	j.raw("\n ]")
-	p.jsonStability(j, combo)
-	p.jsonCases(j)
-	j.raw(",\n \"statics\": [")
-	for i, b := range p.res.Statics {
-		res := func(r frame.Resultant) {
-			j.raw("{\"Fx\": ").num(p.force.Of(r.Fx)).raw(", \"Fy\": ").num(p.force.Of(r.Fy)).raw(", \"M\": ").num(p.moment.Of(r.M)).raw("}")
-		}
-		j.sep(i, ",").raw("\n  {\"case\": ").str(b.Case).raw(", \"loads\": ")
-		res(b.Applied)
-		j.raw(", \"reactions\": ")
-		res(b.Reactions)
-		j.raw(", \"joint_residual\": {\"force\": ").num(p.force.Of(b.JointForce)).raw(", \"moment\": ").num(p.moment.Of(b.JointMoment)).raw("}")
-		j.raw(", \"relative\": ").num(b.Relative()).raw(", \"limit\": ").num(b.Limit())
-		if b.OK() {
-			j.raw(", \"ok\": true}")
-		} else {
-			j.raw(", \"ok\": false}")
-		}
-	}
-	j.raw("\n ],\n \"caution\": ").str(Caution).raw("\n}\n")
+	rest.writeTo(j)
+	j.raw(",\n \"caution\": ").str(Caution).raw("\n}\n")
 	j.flush()
 	if j.err != nil {
 		return j.err
@@ -290,6 +298,72 @@ func (j *jsonWriter) flush() {
 type sink interface {
 	io.Writer
 	io.StringWriter
+}
+
+// deferred is a part of a document formatted on a goroutine of its own
+// (later), into a buffer, while the writer goes on with what comes before it.
+type deferred struct {
+	buf   blocks
+	err   error
+	panic any // a panic of the formatting, raised again by writeTo
+	done  chan struct{}
+	part  func(t *jsonWriter) // laterInline: formatted by writeTo
+}
+
+// laterInline has later leave its part to writeTo, which formats it in
+// place, one part after the other: the tests compare the two.
+var laterInline = false
+
+// later starts formatting part into a buffer on a goroutine of its own.
+func later(part func(t *jsonWriter)) *deferred {
+	if laterInline {
+		return &deferred{part: part}
+	}
+	d := &deferred{done: make(chan struct{})}
+	go func() {
+		defer close(d.done)
+		defer func() { d.panic = recover() }()
+		t := &jsonWriter{w: &d.buf}
+		part(t)
+		t.flush()
+		d.err = t.err
+	}()
+	return d
+}
+
+// writeTo waits for the part and writes it to j, as if it had been
+// formatted there: j's error, if it has one, stays first; else the part's
+// own, and then none of it is written. A panic of the formatting is raised
+// again here, in the writer's goroutine.
+func (d *deferred) writeTo(j *jsonWriter) {
+	if d.part != nil {
+		d.part(j)
+		return
+	}
+	<-d.done
+	if d.panic != nil {
+		panic(d.panic)
+	}
+	if j.err == nil && d.err != nil {
+		j.err = d.err
+	}
+	for _, b := range d.buf {
+		j.bytes(b)
+	}
+}
+
+// blocks is a sink that keeps what is written to it, each write a block
+// of its own: it never copies what it holds to grow.
+type blocks [][]byte
+
+func (b *blocks) Write(p []byte) (int, error) {
+	*b = append(*b, bytes.Clone(p))
+	return len(p), nil
+}
+
+func (b *blocks) WriteString(s string) (int, error) {
+	*b = append(*b, []byte(s))
+	return len(s), nil
 }
 
 // jsonChunk is the number of members one processor formats at a time.

@@ -5,7 +5,10 @@ import (
 	"context"
 	"errors"
 	"fmt"
+	"math"
 	"runtime"
+	"slices"
+	"strings"
 	"testing"
 
 	"govern/combos"
@@ -129,5 +132,67 @@ func BenchmarkWriteJSON(b *testing.B) {
 			b.ReportMetric(float64(cputime.Now()-start)/float64(b.N), "cpu-ns/op")
 			b.SetBytes(int64(out.Len()))
 		})
+	}
+}
+
+// What follows the members is formatted on a goroutine of its own while
+// they are written (later): the same bytes as the document written one
+// part after the other, on one processor and on two, for frames with
+// spans and a service combination (portal), storeys (storeyResult) and
+// many members (gridResult).
+func TestJSONPartFormattedMeanwhile(t *testing.T) {
+	for _, tc := range []struct {
+		name string
+		res  *analysis.Result
+	}{{"portal", portal(t, "A1-B1")}, {"storey", storeyResult(t, false)}, {"grid 5x9", gridResult(t, 5, 9)}} {
+		t.Run(tc.name, func(t *testing.T) {
+			var want bytes.Buffer
+			laterInline = true
+			err := New(tc.res).WriteJSON(&want)
+			laterInline = false
+			if err != nil {
+				t.Fatal(err)
+			}
+			for _, k := range []string{`"spans"`, `"reactions"`, `"cases"`, `"statics"`, `"caution"`} {
+				if tc.name == "portal" && !bytes.Contains(want.Bytes(), []byte(k)) {
+					t.Fatalf("the document has no %s", k)
+				}
+			}
+			for _, procs := range []int{1, 2} {
+				func() {
+					defer runtime.GOMAXPROCS(runtime.GOMAXPROCS(procs))
+					var got bytes.Buffer
+					if err := New(tc.res).WriteJSON(&got); err != nil {
+						t.Fatal(err)
+					}
+					if !bytes.Equal(got.Bytes(), want.Bytes()) {
+						t.Errorf("GOMAXPROCS %d: %d bytes, differing from the %d written in order", procs, got.Len(), want.Len())
+					}
+				}()
+			}
+		})
+	}
+}
+
+// A value that is not a finite number in the part formatted meanwhile is
+// an error, and none of that part is written; one among the members, the
+// first in the document, is the error reported when both have one.
+func TestJSONPartFormattedMeanwhileErrors(t *testing.T) {
+	res := portal(t, "A1-B1")
+	res.Statics = slices.Clone(res.Statics)
+	res.Statics[0].Applied.Fx = math.NaN()
+	var out bytes.Buffer
+	err := New(res).WriteJSON(&out)
+	if err == nil || !strings.Contains(err.Error(), "NaN") {
+		t.Fatalf("error %v, want one naming NaN", err)
+	}
+	if bytes.Contains(out.Bytes(), []byte(`"reactions"`)) {
+		t.Error("part of what follows the members was written")
+	}
+	m := &res.Envelope.Members[0]
+	m.Stations = slices.Clone(m.Stations)
+	m.Stations[0].N.Max = math.Inf(1)
+	if err := New(res).WriteJSON(&bytes.Buffer{}); err == nil || !strings.Contains(err.Error(), "+Inf") {
+		t.Fatalf("error %v, want the members' one, naming +Inf", err)
 	}
 }
