@@ -37,7 +37,7 @@ func BenchmarkRun(b *testing.B) {
 // displacements of every load case, the patterned live load summed over
 // its pieces.
 func BenchmarkCases(b *testing.B) {
-	for _, size := range []struct{ bays, storeys int }{{3, 3}, {10, 10}, {30, 20}} {
+	for _, size := range []struct{ bays, storeys int }{{3, 3}, {10, 10}, {30, 20}, {30, 60}} {
 		res, err := Run(context.Background(), regularJob(size.bays, size.storeys, false), Options{})
 		if err != nil {
 			b.Fatal(err)
