@@ -30,12 +30,19 @@ func Values(sol *frame.Solution, cs []combos.Combination, idx []int, set Setting
 	}, what)
 }
 
-// valuesBlock is how many quantities ValuesRows hands a worker at a time.
+// ValuesBlock is how many quantities ValuesRows hands a worker at a time:
+// quantities k·ValuesBlock to (k+1)·ValuesBlock − 1, filled in their
+// order by one worker.
+const ValuesBlock = valuesBlock
+
 const valuesBlock = 64
 
 // ValuesRows is [Values] with each quantity's values given in one call:
 // fill(i, row, tmp) sets row[c] to quantity i's three components in every
-// column c; tmp, of the same length, is scratch of its own. Only the first
+// column c; tmp, of the same length, is scratch of its own, the worker's:
+// the quantities of one block of ValuesBlock are filled one after the
+// other, in their order, with the same tmp, which keeps what fill left in
+// it for the next (a quantity's values that the next one shares). Only the first
 // effects components (1 to 3) are enveloped, the others' Extremes left
 // none (zero, MaxBy and MinBy −1), and taken as zero in the values acting
 // with the extremes (MaxWith, MinWith), whatever fill sets them to: a
