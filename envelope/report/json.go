@@ -466,7 +466,33 @@ func (j *jsonWriter) bytes(b []byte) *jsonWriter {
 	return j
 }
 
-func (j *jsonWriter) str(s string) *jsonWriter { return j.bytes(quote(s)) }
+// str writes s as a JSON string, as quote gives it: a name of printable
+// ASCII that needs no escape appended as it is, between quotes.
+func (j *jsonWriter) str(s string) *jsonWriter {
+	if !plainName(s) {
+		return j.bytes(quote(s))
+	}
+	if j.err == nil {
+		j.out = append(j.out, '"')
+		j.out = append(j.out, s...)
+		j.out = append(j.out, '"')
+		if len(j.out) >= jsonFlush {
+			j.flush()
+		}
+	}
+	return j
+}
+
+// plainName reports whether s is printable ASCII that encoding/json writes as
+// it is: no quote or backslash, and none of <, > and & (which it escapes).
+func plainName(s string) bool {
+	for i := 0; i < len(s); i++ {
+		if c := s[i]; c < 0x20 || c > 0x7e || c == '"' || c == '\\' || c == '<' || c == '>' || c == '&' {
+			return false
+		}
+	}
+	return true
+}
 
 func (j *jsonWriter) boolean(b bool) *jsonWriter {
 	if b {
@@ -475,7 +501,15 @@ func (j *jsonWriter) boolean(b bool) *jsonWriter {
 	return j.raw("false")
 }
 
-func (j *jsonWriter) int(n int) *jsonWriter { return j.raw(strconv.Itoa(n)) }
+func (j *jsonWriter) int(n int) *jsonWriter {
+	if j.err == nil {
+		j.out = strconv.AppendInt(j.out, int64(n), 10)
+		if len(j.out) >= jsonFlush {
+			j.flush()
+		}
+	}
+	return j
+}
 
 // sep writes s before every element but the first.
 func (j *jsonWriter) sep(i int, s string) *jsonWriter {

@@ -6,6 +6,7 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"math/rand/v2"
 	"runtime"
 	"slices"
 	"strings"
@@ -15,6 +16,7 @@ import (
 	"govern/envelope/analysis"
 	"govern/envelope/internal/cputime"
 	"govern/frame"
+	"govern/patterns"
 )
 
 // gridResult analyses a fixed-base frame of bays × storeys (6 m, 3.5 m)
@@ -61,6 +63,34 @@ func gridResult(t testing.TB, bays, storeys int) *analysis.Result {
 		t.Fatal(err)
 	}
 	return res
+}
+
+// patternedResult is gridResult with a live load L on every beam, placed
+// span by span (exact placement), in 1.2D + 1.6L + 0.5W and 0.9D − 1.0W:
+// each extreme lists the spans loaded for it.
+func patternedResult(t testing.TB, bays, storeys int) *analysis.Result {
+	t.Helper()
+	res := gridResult(t, bays, storeys)
+	job := *res.Job
+	mo := *job.Model
+	l := frame.Case{Name: "L"}
+	for _, ld := range mo.Cases[0].MemberLoads {
+		ld.W, ld.WEnd = 12, 12
+		l.MemberLoads = append(l.MemberLoads, ld)
+	}
+	mo.Cases = append(slices.Clone(mo.Cases), l)
+	job.Model = &mo
+	job.Cases = append(slices.Clone(job.Cases), combos.Case{Name: "L", Kind: combos.Live})
+	job.Combinations = []combos.Combination{
+		{Name: "1.2D+1.6L+0.5W", Terms: []combos.Term{{Case: 0, Factor: 1.2}, {Case: 2, Factor: 1.6}, {Case: 1, Factor: 0.5}}},
+		{Name: "0.9D-1.0W", Terms: []combos.Term{{Case: 0, Factor: 0.9}, {Case: 1, Factor: -1}}},
+	}
+	job.Patterned, job.Segments, job.Patterns = []int{2}, 1, patterns.Exact
+	out, err := analysis.Run(context.Background(), &job, analysis.Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	return out
 }
 
 // The members are formatted in chunks on every processor and written in
@@ -113,13 +143,20 @@ func TestJSONWriteErrorWhileFormattingInParallel(t *testing.T) {
 }
 
 // BenchmarkWriteJSON measures the JSON file of a frame's envelopes (no
-// patterns: 11 numbers and three names per effect at each station); run
-// with -cpu 1,2 to see the formatting shared between processors.
+// patterns: 11 numbers and three names per effect at each station; with
+// "-patterned", the spans loaded listed too); run with -cpu 1,2 to see
+// the formatting shared between processors.
 func BenchmarkWriteJSON(b *testing.B) {
-	for _, size := range []struct{ bays, storeys int }{{5, 9}, {30, 60}} {
-		res := gridResult(b, size.bays, size.storeys)
+	for _, size := range []struct {
+		bays, storeys int
+		patterned     bool
+	}{{5, 9, false}, {30, 60, false}, {30, 60, true}} {
+		res, name := gridResult(b, size.bays, size.storeys), fmt.Sprintf("%dx%d", size.bays, size.storeys)
+		if size.patterned {
+			res, name = patternedResult(b, size.bays, size.storeys), name+"-patterned"
+		}
 		p := New(res)
-		b.Run(fmt.Sprintf("%dx%d", size.bays, size.storeys), func(b *testing.B) {
+		b.Run(name, func(b *testing.B) {
 			b.ReportAllocs()
 			var out bytes.Buffer
 			start := cputime.Now()
@@ -194,5 +231,27 @@ func TestJSONPartFormattedMeanwhileErrors(t *testing.T) {
 	m.Stations[0].N.Max = math.Inf(1)
 	if err := New(res).WriteJSON(&bytes.Buffer{}); err == nil || !strings.Contains(err.Error(), "+Inf") {
 		t.Fatalf("error %v, want the members' one, naming +Inf", err)
+	}
+}
+
+// str writes a name as encoding/json quotes it (quote): plain names as
+// they are, and every other, escaped, through it.
+func TestJSONStrIsQuote(t *testing.T) {
+	names := []string{"", "B1-C1", "L/A1-B1", "2.3.1-2 1.2D+1.6L+0.5Lr", "a\"b", `a\b`, "<tag>", "a&b", "tab\there",
+		"line\nbreak", "\x7f", "naïve", "\u2028", "\xff", " ", "~", "}{", "0.9D-1.0W"}
+	rng := rand.New(rand.NewPCG(5, 8))
+	for range 20000 {
+		b := make([]byte, rng.IntN(12))
+		for i := range b {
+			b[i] = byte(rng.IntN(0x90))
+		}
+		names = append(names, string(b))
+	}
+	for _, s := range names {
+		j := &jsonWriter{}
+		j.str(s)
+		if want := quote(s); string(j.out) != string(want) {
+			t.Fatalf("%q: %s, encoding/json %s", s, j.out, want)
+		}
 	}
 }
