@@ -90,13 +90,16 @@ func (p *Report) WriteJSON(w io.Writer) error {
 	j.raw("\n ],\n \"members\": [")
 	// Each effect in its output unit: N, V and Fx, Fy forces, M moments.
 	shown := [3]analysis.Shown{p.force, p.force, p.moment}
-	ext := func(j *jsonWriter, name string, d int, e envelope.Extreme, with [3]string) {
+	// The extreme of effect d named name, with the values of the keys
+	// with acting with it (x: its fixed parts, formed once).
+	ext := func(j *jsonWriter, x *extKeys, d int, e envelope.Extreme) {
 		s := shown[d]
-		j.raw("\"").raw(name).raw("\": {\"max\": ").num(s.Of(e.Max)).raw(", \"max_by\": ").bytes(nameOf(combo, e.MaxBy))
-		j.raw(", \"max_spans\": ").list(piece, e.MaxSpans).raw(", \"max_loaded\": ").int(e.MaxLoaded).raw(", \"max_with\": ").forces(with, e.MaxWith, shown)
+		j.raw(x.head).num(s.Of(e.Max)).raw(", \"max_by\": ").bytes(nameOf(combo, e.MaxBy))
+		j.raw(", \"max_spans\": ").list(piece, e.MaxSpans).raw(", \"max_loaded\": ").int(e.MaxLoaded).raw(", \"max_with\": ").forces(&x.with, e.MaxWith, shown)
 		j.raw(", \"min\": ").num(s.Of(e.Min)).raw(", \"min_by\": ").bytes(nameOf(combo, e.MinBy))
-		j.raw(", \"min_spans\": ").list(piece, e.MinSpans).raw(", \"min_loaded\": ").int(e.MinLoaded).raw(", \"min_with\": ").forces(with, e.MinWith, shown).raw("}")
+		j.raw(", \"min_spans\": ").list(piece, e.MinSpans).raw(", \"min_loaded\": ").int(e.MinLoaded).raw(", \"min_with\": ").forces(&x.with, e.MinWith, shown).raw("}")
 	}
+	memberExt := [3]extKeys{newExtKeys("N", memberForces), newExtKeys("V", memberForces), newExtKeys("M", memberForces)}
 	defl := func(j *jsonWriter, e envelope.Extreme) {
 		d := p.defl
 		j.raw("\"deflection\": {\"max\": ").num(d.Of(e.Max)).raw(", \"max_by\": ").bytes(nameOf(combo, e.MaxBy))
@@ -118,11 +121,11 @@ func (p *Report) WriteJSON(w io.Writer) error {
 			if st.Extra {
 				j.raw("\"face\": true, ")
 			}
-			ext(j, "N", 0, st.N, memberForces)
+			ext(j, &memberExt[0], 0, st.N)
 			j.raw(", ")
-			ext(j, "V", 1, st.V, memberForces)
+			ext(j, &memberExt[1], 1, st.V)
 			j.raw(", ")
-			ext(j, "M", 2, st.M, memberForces)
+			ext(j, &memberExt[2], 2, st.M)
 			if em.Deflection != nil {
 				j.raw(", ")
 				defl(j, em.Deflection[k])
@@ -154,7 +157,8 @@ func (p *Report) WriteJSON(w io.Writer) error {
 			for d, e := range [3]envelope.Extreme{r.Fx, r.Fy, r.M} {
 				if keys[d] != "" {
 					t.raw(", ")
-					ext(t, keys[d], d, e, keys)
+					x := newExtKeys(keys[d], keys)
+					ext(t, &x, d, e)
 				}
 			}
 			t.raw("}")
@@ -559,17 +563,49 @@ func (j *jsonWriter) list(names [][]byte, idx []int) *jsonWriter {
 	return j
 }
 
-// forces writes v as an object with the given keys, each value in its
-// shown unit; an empty key leaves its value out.
-func (j *jsonWriter) forces(keys [3]string, v [3]float64, shown [3]analysis.Shown) *jsonWriter {
-	j.raw("{")
-	n := 0
+// extKeys are the fixed parts of an extreme's object in the JSON: its
+// start, with the effect's name, and the keys of the values acting with
+// it (forceKeys).
+type extKeys struct {
+	head string
+	with forceKeys
+}
+
+func newExtKeys(name string, with [3]string) extKeys {
+	return extKeys{head: "\"" + name + "\": {\"max\": ", with: newForceKeys(with)}
+}
+
+// forceKeys are what forces writes before each value of an object with
+// keys: its opening brace and the key, or a comma and the key, "" for a
+// value left out; and last the closing brace (both braces when every
+// value is left out).
+type forceKeys [4]string
+
+// newForceKeys returns the forceKeys of keys; an empty key leaves its
+// value out.
+func newForceKeys(keys [3]string) forceKeys {
+	var f forceKeys
+	open := "{"
 	for i, k := range keys {
-		if k == "" {
-			continue
+		if k != "" {
+			f[i] = open + "\"" + k + "\": "
+			open = ", "
 		}
-		j.sep(n, ", ").raw("\"").raw(k).raw("\": ").num(shown[i].Of(v[i]))
-		n++
 	}
-	return j.raw("}")
+	f[3] = "}"
+	if open == "{" {
+		f[3] = "{}"
+	}
+	return f
+}
+
+// forces writes v as an object with the keys of f, each value in its
+// shown unit.
+func (j *jsonWriter) forces(f *forceKeys, v [3]float64, shown [3]analysis.Shown) *jsonWriter {
+	for i := range 3 {
+		if f[i] != "" {
+			j.raw(f[i]).num(shown[i].Of(v[i]))
+		}
+	}
+	return j.raw(f[3])
 }

@@ -9,6 +9,7 @@ import (
 	"math/rand/v2"
 	"runtime"
 	"slices"
+	"strconv"
 	"strings"
 	"testing"
 
@@ -252,6 +253,34 @@ func TestJSONStrIsQuote(t *testing.T) {
 		j.str(s)
 		if want := quote(s); string(j.out) != string(want) {
 			t.Fatalf("%q: %s, encoding/json %s", s, j.out, want)
+		}
+	}
+}
+
+// forces writes an object of the keys held, in their order, each with its
+// value in its shown unit: for every set of keys a reaction may hold,
+// none to all three.
+func TestJSONForcesKeys(t *testing.T) {
+	shown := [3]analysis.Shown{{Label: "kN", Factor: 1}, {Label: "kN", Factor: 1}, {Label: "kNm", Factor: 2}}
+	v := [3]float64{1.5, -2, 0.25}
+	for mask := range 8 {
+		var keys [3]string
+		want := "{"
+		for i, k := range reactionForces {
+			if mask&(1<<i) != 0 {
+				keys[i] = k
+				if want != "{" {
+					want += ", "
+				}
+				want += fmt.Sprintf("%q: %s", k, strconv.FormatFloat(v[i]*shown[i].Factor, 'g', 10, 64))
+			}
+		}
+		want += "}"
+		j := &jsonWriter{}
+		f := newForceKeys(keys)
+		j.forces(&f, v, shown)
+		if string(j.out) != want {
+			t.Errorf("keys %q: %s, want %s", keys, j.out, want)
 		}
 	}
 }
