@@ -25,8 +25,10 @@ const jsonSigns = "member-local: x from each member's start node; N positive in 
 // WriteJSON writes the envelopes in the govern.envelopes/2 layout (see
 // docs/output.md). It streams: a large frame's envelopes are written as
 // they are formatted, one station to a line, without building the document
-// in memory. Names are encoded once and reused. The same result always
-// gives the same bytes.
+// in memory; what follows them (reactions, nodes, storeys, load cases,
+// statics: a part the size of a few stations per node and member) is
+// formatted meanwhile and held until they are written. Names are encoded
+// once and reused. The same result always gives the same bytes.
 func (p *Report) WriteJSON(w io.Writer) error {
 	job, mo, env := p.job(), p.model(), p.res.Envelope
 	bw := bufio.NewWriterSize(w, 1<<16)
