@@ -96,10 +96,12 @@ func (p *Report) WriteJSON(w io.Writer) error {
 	// with acting with it (x: its fixed parts, formed once).
 	ext := func(j *jsonWriter, x *extKeys, d int, e envelope.Extreme) {
 		s := shown[d]
-		j.raw(x.head).num(s.Of(e.Max)).raw(", \"max_by\": ").bytes(nameOf(combo, e.MaxBy))
-		j.raw(", \"max_spans\": ").list(piece, e.MaxSpans).raw(", \"max_loaded\": ").int(e.MaxLoaded).raw(", \"max_with\": ").forces(&x.with, e.MaxWith, shown)
-		j.raw(", \"min\": ").num(s.Of(e.Min)).raw(", \"min_by\": ").bytes(nameOf(combo, e.MinBy))
-		j.raw(", \"min_spans\": ").list(piece, e.MinSpans).raw(", \"min_loaded\": ").int(e.MinLoaded).raw(", \"min_with\": ").forces(&x.with, e.MinWith, shown).raw("}")
+		// The extreme is among the values acting with it, its own effect's
+		// (numKept): formatted once.
+		j.raw(x.head).numKept(s.Of(e.Max)).raw(", \"max_by\": ").bytes(nameOf(combo, e.MaxBy))
+		j.raw(", \"max_spans\": ").list(piece, e.MaxSpans).raw(", \"max_loaded\": ").int(e.MaxLoaded).raw(", \"max_with\": ").forces(&x.with, e.MaxWith, shown, d)
+		j.raw(", \"min\": ").numKept(s.Of(e.Min)).raw(", \"min_by\": ").bytes(nameOf(combo, e.MinBy))
+		j.raw(", \"min_spans\": ").list(piece, e.MinSpans).raw(", \"min_loaded\": ").int(e.MinLoaded).raw(", \"min_with\": ").forces(&x.with, e.MinWith, shown, d).raw("}")
 	}
 	memberExt := [3]extKeys{newExtKeys("N", memberForces), newExtKeys("V", memberForces), newExtKeys("M", memberForces)}
 	defl := func(j *jsonWriter, e envelope.Extreme) {
@@ -286,6 +288,11 @@ type jsonWriter struct {
 	// the many short pieces of a document are appended, not each passed
 	// to w.
 	out []byte
+	// kept holds the bytes of the number numKept wrote last, keptN long
+	// (0 for none), of the value keptV.
+	kept  [24]byte
+	keptN int
+	keptV float64
 }
 
 // jsonFlush is how many bytes a jsonWriter holds before it passes them on.
@@ -545,6 +552,20 @@ func (j *jsonWriter) num(v float64) *jsonWriter {
 	return j
 }
 
+// numKept is num, the bytes of v kept as well, for forces to write again
+// where v comes again.
+func (j *jsonWriter) numKept(v float64) *jsonWriter {
+	j.keptN = 0
+	if math.IsNaN(v) || math.IsInf(v, 0) {
+		return j.num(v)
+	}
+	b := appendNum(j.kept[:0], v)
+	if len(b) <= len(j.kept) {
+		j.keptN, j.keptV = len(b), v
+	}
+	return j.bytes(b)
+}
+
 // list writes the names of idx as a JSON array, appended at once (a
 // station has six lists of up to 16 names).
 func (j *jsonWriter) list(names [][]byte, idx []int) *jsonWriter {
@@ -602,11 +623,18 @@ func newForceKeys(keys [3]string) forceKeys {
 }
 
 // forces writes v as an object with the keys of f, each value in its
-// shown unit.
-func (j *jsonWriter) forces(f *forceKeys, v [3]float64, shown [3]analysis.Shown) *jsonWriter {
+// shown unit; value d, where it equals the number numKept wrote last
+// (the same bytes: appendNum writes −0 as 0), as the bytes kept.
+func (j *jsonWriter) forces(f *forceKeys, v [3]float64, shown [3]analysis.Shown, d int) *jsonWriter {
 	for i := range 3 {
-		if f[i] != "" {
-			j.raw(f[i]).num(shown[i].Of(v[i]))
+		if f[i] == "" {
+			continue
+		}
+		j.raw(f[i])
+		if sv := shown[i].Of(v[i]); i == d && j.keptN > 0 && sv == j.keptV {
+			j.bytes(j.kept[:j.keptN])
+		} else {
+			j.num(sv)
 		}
 	}
 	return j.raw(f[3])

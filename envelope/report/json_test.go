@@ -278,9 +278,25 @@ func TestJSONForcesKeys(t *testing.T) {
 		want += "}"
 		j := &jsonWriter{}
 		f := newForceKeys(keys)
-		j.forces(&f, v, shown)
+		j.forces(&f, v, shown, -1)
 		if string(j.out) != want {
 			t.Errorf("keys %q: %s, want %s", keys, j.out, want)
+		}
+		// Each value again after it was written as an extreme (numKept),
+		// and a zero value with nothing kept.
+		for d := range 3 {
+			j := &jsonWriter{}
+			j.numKept(v[d] * shown[d].Factor)
+			n := len(j.out)
+			j.forces(&f, v, shown, d)
+			if string(j.out[n:]) != want {
+				t.Errorf("keys %q, value %d kept: %s, want %s", keys, d, j.out[n:], want)
+			}
+		}
+		j = &jsonWriter{}
+		j.forces(&f, [3]float64{}, shown, 0)
+		if w := strings.ReplaceAll(strings.ReplaceAll(strings.ReplaceAll(want, "1.5", "0"), "-2", "0"), "0.5", "0"); string(j.out) != w {
+			t.Errorf("keys %q, zeros: %s, want %s", keys, j.out, w)
 		}
 	}
 }
