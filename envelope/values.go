@@ -42,15 +42,15 @@ const valuesBlock = 64
 // column c; tmp, of the same length, is scratch of its own, the worker's:
 // the quantities of one block of ValuesBlock are filled one after the
 // other, in their order, with the same tmp, which keeps what fill left in
-// it for the next (a quantity's values that the next one shares). Only the first
-// effects components (1 to 3) are enveloped, the others' Extremes left
-// none (zero, MaxBy and MinBy −1), and taken as zero in the values acting
-// with the extremes (MaxWith, MinWith), whatever fill sets them to: a
-// quantity of one number (a drift) is not placed three times. The quantities
-// are enveloped on every processor, each alone, so the result does not
-// depend on how many there are; fill is called from several goroutines at
-// once. The error is that of the first quantity, in their order, that has
-// one.
+// it for the next (a quantity's values that the next one shares). Only
+// the first effects components (1 to 3) are enveloped, the others'
+// Extremes left none (zero, MaxBy and MinBy −1), and taken as zero in
+// the values acting with the extremes (MaxWith, MinWith), whatever fill
+// sets them to: a quantity of one number (a drift) is not placed three
+// times. The quantities are enveloped on every processor, each alone, so
+// the result does not depend on how many there are; fill is called from
+// several goroutines at once. The error is that of the first quantity,
+// in their order, that has one.
 func ValuesRows(sol *frame.Solution, cs []combos.Combination, idx []int, set Settings, lay *patterns.Layout, n, effects int,
 	fill func(i int, row, tmp [][3]float64), what func(i, q int) string) ([][3]Extreme, error) {
 	if len(idx) == 0 {
