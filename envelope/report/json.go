@@ -92,8 +92,8 @@ func (p *Report) WriteJSON(w io.Writer) error {
 	j.raw("\n ],\n \"members\": [")
 	// Each effect in its output unit: N, V and Fx, Fy forces, M moments.
 	shown := [3]analysis.Shown{p.force, p.force, p.moment}
-	// The extreme of effect d named name, with the values of the keys
-	// with acting with it (x: its fixed parts, formed once).
+	// The extreme e of effect d, x its fixed parts (its key and those of
+	// the values acting with it), formed once.
 	ext := func(j *jsonWriter, x *extKeys, d int, e envelope.Extreme) {
 		s := shown[d]
 		// The extreme is among the values acting with it, its own effect's
