@@ -81,6 +81,10 @@ func (sol *Solution) endForcesEach(dst [][6]float64, m, rows int) {
 	}
 	e := &sol.elems[m]
 	disp := sol.endRows(m)
+	if useAVX && nc >= 4 {
+		sol.endForcesLanes(dst, nil, m, rows, &disp)
+		return
+	}
 	clear(dst)
 	// The fixed-end forces of the cases that load the member, then k u,
 	// summed in the order of endForcesTo: f[i] + k[i][0] u[0] + … + k[i][5] u[5].
@@ -102,6 +106,54 @@ func (sol *Solution) endForcesEach(dst [][6]float64, m, rows int) {
 			f[i] = f[i] + ki[0]*u0 + ki[1]*u1 + ki[2]*u2 + ki[3]*u3 + ki[4]*u4 + ki[5]*u5
 		}
 	}
+}
+
+// endForcesLanes is endForcesEach with AVX: every case as if it did not
+// load the member (0 for the fixed-end forces), four cases at a time
+// (endForces4, the last few one by one), then the cases that load it
+// again with their fixed-end forces, as endForcesEach forms each. Where
+// local is not nil, local[c] is set to the local displacements of case c
+// (as DisplacementsEach gives them).
+func (sol *Solution) endForcesLanes(dst, local [][6]float64, m, rows int, disp *[6][]float64) {
+	nc := len(dst)
+	e := &sol.elems[m]
+	k := &e.k
+	cs, sn := e.c, e.s
+	n4 := nc / 4
+	var l0 *[6]float64
+	if local != nil {
+		l0 = &local[:nc][0]
+	}
+	endForces4(&dst[0], &disp[0][0], &disp[1][0], &disp[2][0], &disp[3][0], &disp[4][0], &disp[5][0], n4, k, cs, sn, rows, l0)
+	for c := 4 * n4; c < nc; c++ {
+		dst[c] = [6]float64{}
+		u := endForcesCol(&dst[c], k, cs, sn, disp, c, rows)
+		if local != nil {
+			local[c] = u
+		}
+	}
+	for _, ref := range sol.onMember[m] {
+		at := 6 * int(ref.i)
+		f := &dst[ref.c]
+		*f = [6]float64{}
+		copy(f[:rows], sol.fem[ref.c][at:at+rows])
+		endForcesCol(f, k, cs, sn, disp, int(ref.c), rows)
+	}
+}
+
+// endForcesCol adds to f[0:rows] the end forces k u of case c, u the local
+// displacements of the global ones in disp: f[i] + k[i][0] u[0] + … +
+// k[i][5] u[5], as endForcesEach adds them; and returns u.
+func endForcesCol(f *[6]float64, k *[6][6]float64, cs, sn float64, disp *[6][]float64, c, rows int) [6]float64 {
+	g0, g1, g2, g3, g4, g5 := disp[0][c], disp[1][c], disp[2][c], disp[3][c], disp[4][c], disp[5][c]
+	// toLocal
+	u0, u1, u2 := cs*g0+sn*g1, -sn*g0+cs*g1, g2
+	u3, u4, u5 := cs*g3+sn*g4, -sn*g3+cs*g4, g5
+	for i := range rows {
+		ki := &k[i]
+		f[i] = f[i] + ki[0]*u0 + ki[1]*u1 + ki[2]*u2 + ki[3]*u3 + ki[4]*u4 + ki[5]*u5
+	}
+	return [6]float64{u0, u1, u2, u3, u4, u5}
 }
 
 // CasesOn returns the cases whose loads act on member m, ascending; every

@@ -11,6 +11,19 @@ package frame
 //go:noescape
 func combine32(dst, base *float64, rows *int32, negs *float64, n int, d float64)
 
+// combine64 is combine32 for a block of 64 columns, eight at a time with
+// AVX-512: the same products and sums, in the same order, for each column.
+//
+//go:noescape
+func combine64(dst, base *float64, rows *int32, negs *float64, n int, d float64)
+
+// unpack32 sets dst[c] = src[c]·s for c from 0 to 31 and returns the
+// sum of every dst[c] − dst[c]: 0 when all are finite numbers, NaN when
+// some is not (see unpackRow).
+//
+//go:noescape
+func unpack32(dst, src *float64, s float64) (nonFinite float64)
+
 // cpuid and xgetbv are the instructions of those names.
 func cpuid(eaxArg, ecxArg uint32) (eax, ebx, ecx, edx uint32)
 func xgetbv() (eax, edx uint32)
@@ -26,6 +39,29 @@ func hasAVX() bool {
 	eax, _ := xgetbv()
 	return eax&6 == 6
 }
+
+// hasAVX512 reports whether the processor and the operating system
+// support AVX-512 (its foundation): the processor's flag (CPUID leaf 7)
+// with AVX's, and the operating system saving the opmask and the upper
+// ZMM registers (XCR0 bits 5 to 7).
+func hasAVX512() bool {
+	if !hasAVX() {
+		return false
+	}
+	if max, _, _, _ := cpuid(0, 0); max < 7 {
+		return false
+	}
+	_, ebx, _, _ := cpuid(7, 0)
+	if ebx&(1<<16) == 0 {
+		return false
+	}
+	eax, _ := xgetbv()
+	return eax&0xe6 == 0xe6
+}
+
+// useAVX512 is whether bandSolve, with useAVX, substitutes blocks of 64
+// columns by combine64; the tests turn it off to check the blocks of 32.
+var useAVX512 = hasAVX512()
 
 // useAVX is whether bandSolve uses combine32; the tests turn it off to
 // check the pure-Go path, which other processors take.

@@ -1,6 +1,13 @@
 package frame
 
-import "math"
+import (
+	"math"
+	"sync"
+)
+
+// endsPool holds the end forces of every case of a member (stationsTo's
+// scratch), one slice per caller at a time.
+var endsPool = sync.Pool{New: func() any { return new([][6]float64) }}
 
 // Model returns the model that was solved.
 func (sol *Solution) Model() *Model { return sol.model }
@@ -199,14 +206,24 @@ func (sol *Solution) stationsTo(dst []Forces, defl []float64, m int, xs []float6
 	if e.so != nil {
 		w = e.weights(xs)
 	}
-	var f [6]float64
-	for c := range len(sol.model.Cases) {
-		sol.endForcesTo(&f, c, m)
+	// Every case's end forces at once, from the contiguous displacement
+	// rows of the member's ends (endForcesEach: endForcesTo's to the last
+	// bit), rather than case by case from values a row apart.
+	nc := len(sol.model.Cases)
+	held := endsPool.Get().(*[][6]float64)
+	if cap(*held) < nc {
+		*held = make([][6]float64, nc)
+	}
+	ends := (*held)[:nc]
+	defer endsPool.Put(held)
+	sol.endForcesEach(ends, m, 6)
+	for c := range nc {
+		f := &ends[c]
 		idx, _ := sol.loadsOn(c, m)
 		row := dst[c*len(xs) : (c+1)*len(xs)]
 		loads := sol.model.Cases[c].MemberLoads
 		if defl != nil {
-			deflectionsTo(defl[c*len(xs):(c+1)*len(xs)], &f, e, loads, idx, xs)
+			deflectionsTo(defl[c*len(xs):(c+1)*len(xs)], f, e, loads, idx, xs)
 		}
 		if len(idx) == 0 {
 			// Unloaded in this case: N and V are constant, M linear.

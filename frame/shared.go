@@ -58,7 +58,7 @@ func (sol *Solution) solveCases(cases []Case, buf []float64) (*Solution, error) 
 	}
 	out := &Solution{model: &mo, elems: sol.elems, atNode: sol.atNode, released: sol.released,
 		dof: slices.Clone(sol.dof), dofs: sol.dofs, band: sol.band, cond: sol.cond,
-		warnings: slices.Clip(sol.warnings), axial: sol.axial, factor: sol.factor, pow2: sol.pow2}
+		warnings: slices.Clip(sol.warnings), axial: sol.axial, factor: sol.factor, pow2: sol.pow2, terms: sol.terms}
 	for i, e := range out.dof {
 		if e < -1 {
 			out.dof[i] = -1 // imposed in sol's cases: indexImposed numbers the new ones

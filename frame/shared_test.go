@@ -8,6 +8,7 @@ import (
 	"runtime"
 	"slices"
 	"strings"
+	"sync"
 	"testing"
 )
 
@@ -261,4 +262,46 @@ func renamed(cases []Case, suffix string) []Case {
 		out[i].Name += " " + suffix
 	}
 	return out
+}
+
+// Solutions sharing a factor list its terms once, whichever solves first:
+// two SolveCases on one solution at once (as the critical load factors'
+// and the storeys' solves run) give, each, what SolveWith gives their
+// cases, and the terms they use are the solution's own.
+func TestSolveCasesAtOnceShareTheTerms(t *testing.T) {
+	mo, _, _, more := sharedFrame(3)
+	sol, err := SolveWith(mo, Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	sets := [][]Case{more, more[:len(more)-1]}
+	got := make([]*Solution, len(sets))
+	errs := make([]error, len(sets))
+	var wg sync.WaitGroup
+	for i, cs := range sets {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			got[i], errs[i] = sol.SolveCases(cs)
+		}()
+	}
+	wg.Wait()
+	if sol.terms.bs == nil {
+		t.Fatal("no solve of more than one column: the shared terms are not checked")
+	}
+	for i, cs := range sets {
+		if errs[i] != nil {
+			t.Fatal(errs[i])
+		}
+		m2 := *mo
+		m2.Cases = cs
+		want, err := SolveWith(&m2, Options{})
+		if err != nil {
+			t.Fatal(err)
+		}
+		compareSolutions(t, got[i], want)
+		if got[i].terms != sol.terms {
+			t.Errorf("set %d: its own terms, not the solution's", i)
+		}
+	}
 }

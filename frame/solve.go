@@ -67,6 +67,26 @@ type Solution struct {
 	// (upper, row-major, band+1 a row; nil when there was nothing to
 	// solve), kept to solve more cases on it ([Solution.SolveCases]).
 	factor, pow2 []float64
+	// terms lists the factor's terms for the multi-column substitution,
+	// made once, by the first solve of more than one column, for every
+	// solution that shares the factor ([Solution.SolveCases]).
+	terms *sharedTerms
+}
+
+// sharedTerms is the bandSolver of a factor, made on first use by
+// whichever solution sharing the factor solves more than one column
+// first (they may solve at once).
+type sharedTerms struct {
+	once sync.Once
+	bs   *bandSolver
+}
+
+// solver returns the bandSolver of sol's factor (n equations, kb
+// superdiagonals), making it the first time.
+func (sol *Solution) solver(n, kb int) *bandSolver {
+	t := sol.terms
+	t.once.Do(func() { t.bs = newBandSolver(sol.factor, n, kb) })
+	return t.bs
 }
 
 // Info describes the system of equations a model gives.
@@ -199,7 +219,7 @@ func SolveWith(mo *Model, opt Options) (*Solution, error) {
 	}
 
 	// K x = b is solved as (D K D)(D⁻¹ x) = D b.
-	sol.factor, sol.pow2 = u.Data, d
+	sol.factor, sol.pow2, sol.terms = u.Data, d, &sharedTerms{}
 	if err := sol.solveLoads(n, kb); err != nil {
 		return nil, err
 	}
@@ -236,7 +256,7 @@ func (sol *Solution) solveLoadsIn(n, kb int, buf []float64) error {
 			x = make([]float64, n*nc)
 		}
 		d := sol.pow2
-		finite = newBandSolver(sol.factor, n, kb).solveBlocks(x, nc, d, func(dst []float64, lo, hi, bw int) {
+		finite = sol.solver(n, kb).solveBlocks(x, nc, d, func(dst []float64, lo, hi, bw int) {
 			sol.rhsBlock(dst, lo, hi, bw, d)
 		})
 	}

@@ -14,6 +14,10 @@ func (sol *Solution) StartForcesAndDisplacementsEach(ends, disp [][6]float64, m 
 	}
 	e := &sol.elems[m]
 	rows := sol.endRows(m)
+	if useAVX && nc >= 4 {
+		sol.endForcesLanes(ends, disp, m, 3, &rows)
+		return
+	}
 	clear(ends)
 	// The fixed-end forces of the cases that load the member, then k u,
 	// in the order of endForcesEach.

@@ -103,8 +103,9 @@ func (bs *bandSolver) solveScaled(x []float64, nrhs int, d []float64) (finite bo
 // row zero. The block is substituted and its solution written to x,
 // times d again, and finite reports whether every value written is a
 // finite number (checked as the rows are unpacked, while they are in
-// cache). x is only written. A last block narrower than solveBlock is
-// padded with zero columns to a whole one where combine32 is used: each
+// cache). x is only written. The blocks are blockSpans'. A last block
+// narrower than its width is padded with zero columns to a whole one
+// where combine32 (or combine64) is used: each
 // column is formed on its own, in the same order of operations at any
 // width, and zero columns move no block's first non-zero row, so its
 // columns come out the same to the last bit, and a whole block by
@@ -115,7 +116,8 @@ func (bs *bandSolver) solveBlocks(x []float64, nrhs int, d []float64, fill func(
 	}
 	u, n, kb := bs.u, bs.n, bs.kb
 	fwd, bwd := bs.fwd, bs.bwd
-	nb := (nrhs + solveBlock - 1) / solveBlock
+	spans, width := blockSpans(nrhs)
+	nb := len(spans)
 	workers := min(runtime.GOMAXPROCS(0), nb)
 	var wg sync.WaitGroup
 	bad := make([]bool, workers)
@@ -129,20 +131,23 @@ func (bs *bandSolver) solveBlocks(x []float64, nrhs int, d []float64, fill func(
 		go func() {
 			defer wg.Done()
 			offs := make([]int, 0, kb)
-			buf := make([]float64, n*solveBlock)
+			buf := make([]float64, n*width)
 			ok := true
 			for b := range next {
-				lo, hi := b*solveBlock, min((b+1)*solveBlock, nrhs)
 				// The block's columns packed, rows of bw ≥ hi−lo: the rows
 				// one row reads are then a few kilobytes apart, not nrhs
 				// words.
+				lo, hi, bw := spans[b][0], spans[b][1], spans[b][2]
 				cols := hi - lo
-				bw := cols
-				if useAVX && cols < solveBlock {
-					bw = solveBlock
-				}
 				fill(buf[:n*bw], lo, hi, bw)
-				substitute(&fwd, &bwd, u, n, kb, buf[:n*bw], bw, offs)
+				if useAVX && cols == bw && (bw == solveBlock || bw == wideBlock) {
+					// Each row written to x as the backward substitution
+					// finishes it, from the first-level cache.
+					out := unpackTo{x: x, stride: nrhs, lo: lo, d: d}
+					ok = substitute(&fwd, &bwd, u, n, kb, buf[:n*bw], bw, offs, &out) && ok
+					continue
+				}
+				substitute(&fwd, &bwd, u, n, kb, buf[:n*bw], bw, offs, nil)
 				for i := range n {
 					ok = unpackRow(x[i*nrhs+lo:i*nrhs+hi], buf[i*bw:i*bw+cols], d, i) && ok
 				}
@@ -157,6 +162,41 @@ func (bs *bandSolver) solveBlocks(x []float64, nrhs int, d []float64, fill func(
 		}
 	}
 	return true
+}
+
+// wideBlock is the width of a block substituted with AVX-512 (combine64):
+// each of the factor's terms, listed once, serves twice the columns of a
+// block of solveBlock, and its row index and factor are read half as
+// often.
+const wideBlock = 64
+
+// blockSpans returns the blocks the nrhs columns are substituted in, each
+// as its first column, the column past its last and its width bw (the
+// columns it holds, or more, padded with zero columns, where a kernel
+// takes a whole block: with AVX), and the widest bw. Blocks are of
+// solveBlock columns; of wideBlock with AVX-512 but for a last part of
+// solveBlock columns or fewer, which is a block of solveBlock: each
+// column is formed alike in either (combine32 and combine64 add the same
+// products in the same order), so the width changes no number.
+func blockSpans(nrhs int) (spans [][3]int, width int) {
+	width = solveBlock
+	if useAVX && useAVX512 && nrhs > solveBlock {
+		width = wideBlock
+	}
+	for lo := 0; lo < nrhs; {
+		w := width
+		if nrhs-lo <= solveBlock {
+			w = solveBlock
+		}
+		hi := min(lo+w, nrhs)
+		bw := hi - lo
+		if useAVX {
+			bw = w
+		}
+		spans = append(spans, [3]int{lo, hi, bw})
+		lo = hi
+	}
+	return spans, width
 }
 
 // unpackRow copies the packed row src (scratch: it is scaled in place)
@@ -279,9 +319,23 @@ func newTerms(u []float64, n, kb int, forward bool) terms {
 	return t
 }
 
+// unpackTo is where substitute writes each row of a whole block of
+// solveBlock or wideBlock columns as it finishes it: row i's to x[i·stride+lo:], times
+// d[i] (as it is where d is nil).
+type unpackTo struct {
+	x          []float64
+	stride, lo int
+	d          []float64
+}
+
 // substitute solves the packed block x, n rows of bw columns (see
-// bandSolve); offs is scratch for the rows' offsets in x.
-func substitute(fwd, bwd *terms, u []float64, n, kb int, x []float64, bw int, offs []int) {
+// bandSolve); offs is scratch for the rows' offsets in x. With out (a
+// whole block of solveBlock or wideBlock columns, with AVX), each row of the solution is
+// also written there, scaled, as the backward substitution forms it: the
+// numbers unpackRow writes, read from the first-level cache rather than
+// from the whole block again. finite reports whether every value written
+// there is a finite number (true without out).
+func substitute(fwd, bwd *terms, u []float64, n, kb int, x []float64, bw int, offs []int, out *unpackTo) (finite bool) {
 	w := kb + 1
 	start := n
 	for i, v := range x {
@@ -301,23 +355,51 @@ func substitute(fwd, bwd *terms, u []float64, n, kb int, x []float64, bw int, of
 	}
 	// Backward: U x = y, x[i] = (y[i] − Σ U[i][i+j] x[i+j]) / U[i][i]
 	// over j from 1 up.
+	if out == nil {
+		for i := n - 1; i >= 0; i-- {
+			a, b := bwd.at[i], bwd.at[i+1]
+			combineRow(x, i, bw, bwd.rows[a:b], bwd.negs[a:b], 1/u[i*w], offs)
+		}
+		return true
+	}
+	dst := out.x
+	nonFinite := 0.0
 	for i := n - 1; i >= 0; i-- {
 		a, b := bwd.at[i], bwd.at[i+1]
 		combineRow(x, i, bw, bwd.rows[a:b], bwd.negs[a:b], 1/u[i*w], offs)
+		s := 1.0
+		if out.d != nil {
+			s = out.d[i]
+		}
+		at := i*out.stride + out.lo
+		_ = dst[at+bw-1]
+		_ = x[i*bw+bw-1]
+		nonFinite += unpack32(&dst[at], &x[i*bw], s)
+		if bw == wideBlock {
+			nonFinite += unpack32(&dst[at+solveBlock], &x[i*bw+solveBlock], s)
+		}
 	}
+	return nonFinite == 0
 }
 
 // combineRow forms row i of the packed block x (rows of bw) from the rows
 // it reads and minus their factors (see combine): by combine32 for a
-// whole block where the processor has AVX. offs is scratch.
+// whole block where the processor has AVX, by combine64 for a wide one
+// where it has AVX-512. offs is scratch.
 func combineRow(x []float64, i, bw int, rows []int32, negs []float64, d float64, offs []int) {
-	if useAVX && bw == solveBlock && len(rows) > 0 {
+	if useAVX && (bw == solveBlock || bw == wideBlock) && len(rows) > 0 {
 		// Every row read lies within x.
-		_ = x[i*bw+solveBlock-1]
-		_ = x[int(rows[len(rows)-1])*bw+solveBlock-1]
+		_ = x[i*bw+bw-1]
+		_ = x[int(rows[len(rows)-1])*bw+bw-1]
 		_ = negs[len(rows)-1]
-		combine32(&x[i*bw], &x[0], &rows[0], &negs[0], len(rows), d)
-		return
+		switch {
+		case bw == solveBlock:
+			combine32(&x[i*bw], &x[0], &rows[0], &negs[0], len(rows), d)
+			return
+		case useAVX512:
+			combine64(&x[i*bw], &x[0], &rows[0], &negs[0], len(rows), d)
+			return
+		}
 	}
 	offs = offs[:0]
 	for _, k := range rows {

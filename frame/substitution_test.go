@@ -19,15 +19,24 @@ import (
 // own solver is TestRowMajorSolveMatchesGonum.) Both kernels: the pure-Go
 // one every processor can run, and AVX where this one has it.
 func TestSubstitutionIsTheReferenceToTheLastBit(t *testing.T) {
-	kernels := []bool{false}
+	// The pure-Go kernel, AVX's blocks of 32 and AVX-512's of 64.
+	type kernel struct{ avx, avx512 bool }
+	kernels := []kernel{{false, false}}
 	if hasAVX() {
-		kernels = append(kernels, true)
+		kernels = append(kernels, kernel{true, false})
 	} else {
 		t.Log("no AVX here: the pure-Go kernel only")
 	}
-	defer func(v bool) { useAVX = v }(useAVX)
-	// 30 columns (one partial block), 36 (one whole and one partial), 72;
-	// 6 and 7 (the narrow widths of an iteration).
+	if hasAVX512() {
+		kernels = append(kernels, kernel{true, true})
+	} else {
+		t.Log("no AVX-512 here: blocks of 64 columns not checked")
+	}
+	defer func(v, w bool) { useAVX, useAVX512 = v, w }(useAVX, useAVX512)
+	// 30 columns (one partial block), 36 (one whole and one partial; with
+	// AVX-512 one wide block, padded), 72 (two whole and a partial one;
+	// with AVX-512 a wide block and a narrow one); 6 and 7 (the narrow
+	// widths of an iteration).
 	for _, size := range []struct{ bays, storeys int }{{6, 5}, {3, 12}, {8, 9}, {2, 3}, {7, 1}} {
 		mo := pieceFrame(size.bays, size.storeys)
 		sol, u, n, kb := factorPieces(t, mo)
@@ -37,9 +46,9 @@ func TestSubstitutionIsTheReferenceToTheLastBit(t *testing.T) {
 		bandSolveAxpy(u.Data, n, kb, want, nc)
 		for _, procs := range []int{1, 2} {
 			for _, avx := range kernels {
-				t.Run(fmt.Sprintf("%dx%d/GOMAXPROCS=%d/avx=%v", size.bays, size.storeys, procs, avx), func(t *testing.T) {
+				t.Run(fmt.Sprintf("%dx%d/GOMAXPROCS=%d/avx=%v/avx512=%v", size.bays, size.storeys, procs, avx.avx, avx.avx512), func(t *testing.T) {
 					defer runtime.GOMAXPROCS(runtime.GOMAXPROCS(procs))
-					useAVX = avx
+					useAVX, useAVX512 = avx.avx, avx.avx512
 					got := append([]float64(nil), rhs...)
 					bandSolve(u.Data, n, kb, got, nc)
 					for i := range got {
