@@ -30,19 +30,27 @@ func Values(sol *frame.Solution, cs []combos.Combination, idx []int, set Setting
 	}, what)
 }
 
-// valuesBlock is how many quantities ValuesRows hands a worker at a time.
+// ValuesBlock is how many quantities ValuesRows hands a worker at a time:
+// quantities k·ValuesBlock to (k+1)·ValuesBlock − 1, filled in their
+// order by one worker.
+const ValuesBlock = valuesBlock
+
 const valuesBlock = 64
 
 // ValuesRows is [Values] with each quantity's values given in one call:
 // fill(i, row, tmp) sets row[c] to quantity i's three components in every
-// column c; tmp, of the same length, is scratch of its own. Only the first
-// effects components (1 to 3) are enveloped, the others' Extremes left
-// none (zero, MaxBy and MinBy −1): a quantity of one number (a drift) is
-// not placed three times. The quantities
-// are enveloped on every processor, each alone, so the result does not
-// depend on how many there are; fill is called from several goroutines at
-// once. The error is that of the first quantity, in their order, that has
-// one.
+// column c; tmp, of the same length, is scratch of its own, the worker's:
+// the quantities of one block of ValuesBlock are filled one after the
+// other, in their order, with the same tmp, which keeps what fill left in
+// it for the next (a quantity's values that the next one shares). Only
+// the first effects components (1 to 3) are enveloped, the others'
+// Extremes left none (zero, MaxBy and MinBy −1), and taken as zero in
+// the values acting with the extremes (MaxWith, MinWith), whatever fill
+// sets them to: a quantity of one number (a drift) is not placed three
+// times. The quantities are enveloped on every processor, each alone, so
+// the result does not depend on how many there are; fill is called from
+// several goroutines at once. The error is that of the first quantity,
+// in their order, that has one.
 func ValuesRows(sol *frame.Solution, cs []combos.Combination, idx []int, set Settings, lay *patterns.Layout, n, effects int,
 	fill func(i int, row, tmp [][3]float64), what func(i, q int) string) ([][3]Extreme, error) {
 	if len(idx) == 0 {
@@ -78,6 +86,9 @@ func ValuesRows(sol *frame.Solution, cs []combos.Combination, idx []int, set Set
 				}
 				for i := b * valuesBlock; i < min((b+1)*valuesBlock, n); i++ {
 					fill(i, w.ev, tmp)
+					if effects < 3 {
+						zeroPast(w.ev, effects)
+					}
 					x, ok := valueOfRow(e, w, rs)
 					if !ok {
 						if i < firstErr[k] {
@@ -102,6 +113,15 @@ func ValuesRows(sol *frame.Solution, cs []combos.Combination, idx []int, set Set
 		return nil, errs[best]
 	}
 	return out, nil
+}
+
+// zeroPast sets the components from q on of every row to zero.
+func zeroPast(rows [][3]float64, q int) {
+	for c := range rows {
+		for k := q; k < 3; k++ {
+			rows[c][k] = 0
+		}
+	}
 }
 
 // valueOf envelopes the values in w.ev as a station's; ok is false when
@@ -177,6 +197,32 @@ func valueOfRow(e *evaluator, w *work, rs *rowScan) (x [3]Extreme, ok bool) {
 	// bits: a positive number's order as the numbers', a negative one's
 	// size with its sign cleared.
 	var b0, b1, b2 uint64
+	if e.nEff == 1 {
+		// One component enveloped, the others zero (ValuesRows): its
+		// sizes alone; the others' are zero.
+		b0 = largestSizes1(e, w, pl)
+	} else {
+		b0, b1, b2 = largestSizes(e, w, pl)
+	}
+	if max(b0, b1, b2) >= 0x7ff0000000000000 { // an infinity or a NaN
+		return valueOf(e, w)
+	}
+	w.noise = [3]float64{math.Float64frombits(b0) * roundOff, math.Float64frombits(b1) * roundOff, math.Float64frombits(b2) * roundOff}
+	for p := range e.lay.Patterned {
+		if e.uses(p) {
+			pl.scanRow(e, w, rs, p)
+		}
+	}
+	x = e.scanned(w)
+	for j := e.nEff; j < 3; j++ {
+		x[j] = Extreme{MaxBy: -1, MinBy: -1}
+	}
+	return x, allFinite(&x, e.nEff)
+}
+
+// largestSizes returns the largest size of each component over every
+// column, as bits, and sets pl.big (valueOfRow).
+func largestSizes(e *evaluator, w *work, pl *exactPlacement) (b0, b1, b2 uint64) {
 	for c := range e.nOrig {
 		v := &w.ev[c]
 		b0 = max(b0, math.Float64bits(v[0])&^(1<<63))
@@ -198,20 +244,27 @@ func valueOfRow(e *evaluator, w *work, rs *rowScan) (x [3]Extreme, ok bool) {
 		pl.big[p] = [3][2]float64{{math.Float64frombits(p0), math.Float64frombits(n0)},
 			{math.Float64frombits(p1), math.Float64frombits(n1)}, {math.Float64frombits(p2), math.Float64frombits(n2)}}
 	}
-	if max(b0, b1, b2) >= 0x7ff0000000000000 { // an infinity or a NaN
-		return valueOf(e, w)
+	return b0, b1, b2
+}
+
+// largestSizes1 is largestSizes for the first component alone, the others
+// zero: their sizes in pl.big are zero.
+func largestSizes1(e *evaluator, w *work, pl *exactPlacement) (b0 uint64) {
+	for c := range e.nOrig {
+		b0 = max(b0, math.Float64bits(w.ev[c][0])&^(1<<63))
 	}
-	w.noise = [3]float64{math.Float64frombits(b0) * roundOff, math.Float64frombits(b1) * roundOff, math.Float64frombits(b2) * roundOff}
-	for p := range e.lay.Patterned {
-		if e.uses(p) {
-			pl.scanRow(e, w, rs, p)
+	for p, pc := range e.lay.Patterned {
+		var p0, n0 uint64
+		for _, v := range w.ev[e.first[p] : e.first[p]+len(pc.Units)] {
+			x0 := math.Float64bits(v[0])
+			m0 := uint64(int64(x0) >> 63) // all ones for a negative number
+			p0, n0 = max(p0, x0&^m0), max(n0, x0&m0)
 		}
+		n0 &^= 1 << 63
+		b0 = max(b0, p0, n0)
+		pl.big[p] = [3][2]float64{{math.Float64frombits(p0), math.Float64frombits(n0)}}
 	}
-	x = e.scanned(w)
-	for j := e.nEff; j < 3; j++ {
-		x[j] = Extreme{MaxBy: -1, MinBy: -1}
-	}
-	return x, allFinite(&x, e.nEff)
+	return b0
 }
 
 // scanRow is scan for patterned case p, its largest sizes of each sign
@@ -248,10 +301,14 @@ func (pl *exactPlacement) scanRow(e *evaluator, w *work, rs *rowScan, p int) {
 	var tot [3]float64
 	var listed [3]int
 	for j := range e.nEff {
-		t := tot
-		listed[j] = rs.classify(units, j, w.noise[j], &thr[j], &sum[j][0], &zero[j], &t, &count[j])
-		if j == 0 {
-			tot = t
+		switch {
+		case e.nEff == 1:
+			// The other components are zero (ValuesRows): so are their sums.
+			listed[j] = rs.classify1(units, w.noise[j], &thr[j], &sum[j][0], &zero[j], &tot, &count[j])
+		case j == 0:
+			listed[j] = rs.classify(units, j, w.noise[j], &thr[j], &sum[j][0], &zero[j], &tot, &count[j])
+		default: // the sums of all the units are the first pass's
+			listed[j] = rs.classifyPart(units, j, w.noise[j], &thr[j], &sum[j][0], &zero[j], &count[j])
 		}
 		for s := range 2 {
 			neg := s == 1
@@ -308,6 +365,61 @@ func (rs *rowScan) classify(units [][3]float64, j int, nz float64, thr *[2]float
 		k += p&b2i(x >= tp) | n&b2i(-x >= tn)
 	}
 	*pos, *tot = [3]float64{s0, s1, s2}, [3]float64{t0, t1, t2}
+	*count = [2]int{np, nn}
+	return k
+}
+
+// classifyPart is classify without the sums of all the units, which the
+// pass for the first effect forms.
+func (rs *rowScan) classifyPart(units [][3]float64, j int, nz float64, thr *[2]float64, pos, zero *[3]float64, count *[2]int) int {
+	list := rs.list[j][:len(units)]
+	tp, tn := thr[0], thr[1]
+	var s0, s1, s2 float64
+	var np, nn, k int
+	for i := range units {
+		v := &units[i]
+		x := v[j]
+		p, n := b2i(x > nz), b2i(x < -nz)
+		if p|n == 0 {
+			zero[0] += v[0]
+			zero[1] += v[1]
+			zero[2] += v[2]
+		}
+		m := -uint64(p)
+		s0 += math.Float64frombits(math.Float64bits(v[0]) & m)
+		s1 += math.Float64frombits(math.Float64bits(v[1]) & m)
+		s2 += math.Float64frombits(math.Float64bits(v[2]) & m)
+		np += p
+		nn += n
+		list[k] = int32(i)
+		k += p&b2i(x >= tp) | n&b2i(-x >= tn)
+	}
+	*pos = [3]float64{s0, s1, s2}
+	*count = [2]int{np, nn}
+	return k
+}
+
+// classify1 is classify for effect 0 of units whose other components are
+// zero: their sums are +0, as classify forms them.
+func (rs *rowScan) classify1(units [][3]float64, nz float64, thr *[2]float64, pos, zero, tot *[3]float64, count *[2]int) int {
+	list := rs.list[0][:len(units)]
+	tp, tn := thr[0], thr[1]
+	var s0, t0 float64
+	var np, nn, k int
+	for i := range units {
+		x := units[i][0]
+		t0 += x
+		p, n := b2i(x > nz), b2i(x < -nz)
+		if p|n == 0 {
+			zero[0] += x
+		}
+		s0 += math.Float64frombits(math.Float64bits(x) & -uint64(p))
+		np += p
+		nn += n
+		list[k] = int32(i)
+		k += p&b2i(x >= tp) | n&b2i(-x >= tn)
+	}
+	*pos, *tot = [3]float64{s0}, [3]float64{t0}
 	*count = [2]int{np, nn}
 	return k
 }

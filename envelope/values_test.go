@@ -90,9 +90,13 @@ func TestValuesRowsAgainstDirectSums(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
+		// The first component's extremes as with three, the others taken
+		// as zero in the values acting with them.
 		none := Extreme{MaxBy: -1, MinBy: -1}
 		for i := range n {
-			if fmt.Sprint(first[i][0]) != fmt.Sprint(one[i][0]) || fmt.Sprint(first[i][1]) != fmt.Sprint(none) || fmt.Sprint(first[i][2]) != fmt.Sprint(none) {
+			want := one[i][0]
+			want.MaxWith[1], want.MaxWith[2], want.MinWith[1], want.MinWith[2] = 0, 0, 0, 0
+			if fmt.Sprint(first[i][0]) != fmt.Sprint(want) || fmt.Sprint(first[i][1]) != fmt.Sprint(none) || fmt.Sprint(first[i][2]) != fmt.Sprint(none) {
 				t.Fatalf("quantity %d: %v, with three components %v", i, first[i], one[i])
 			}
 		}
@@ -195,6 +199,8 @@ func TestValuesRowsPlacedByRows(t *testing.T) {
 		{"nodes, every piece listed", len(mo.Nodes), 3, nodes, Settings{AllSpans: true}},
 		{"random rows", n, 3, random, Settings{}},
 		{"random rows, one component", n, 1, random, Settings{}},
+		{"random rows, one component, every piece listed", n, 1, random, Settings{AllSpans: true}},
+		{"random rows, two components", n, 2, random, Settings{}},
 		{"random rows, every piece listed", n, 3, random, Settings{AllSpans: true}},
 		{"random rows, L and Lr joined", n, 3, random, Settings{Groups: []int{-1, 0, 0, -1}}},
 		{"random rows, as written", n, 3, random, Settings{AsWritten: true}},
@@ -210,6 +216,11 @@ func TestValuesRowsPlacedByRows(t *testing.T) {
 			want := make([]string, tc.n)
 			for i := range tc.n {
 				tc.fill(i, w.ev, nil)
+				for c := range w.ev { // the components past the effects taken as zero
+					for q := tc.effects; q < 3; q++ {
+						w.ev[c][q] = 0
+					}
+				}
 				x, ok := valueOf(e, w)
 				if !ok {
 					t.Fatalf("quantity %d is not finite", i)

@@ -53,7 +53,7 @@ func BenchmarkRun(b *testing.B) {
 // displacements of every load case, the patterned live load summed over
 // its pieces.
 func BenchmarkCases(b *testing.B) {
-	for _, size := range []struct{ bays, storeys int }{{3, 3}, {10, 10}, {30, 20}} {
+	for _, size := range []struct{ bays, storeys int }{{3, 3}, {10, 10}, {30, 20}, {30, 60}} {
 		res, err := Run(context.Background(), regularJob(size.bays, size.storeys, false), Options{})
 		if err != nil {
 			b.Fatal(err)
@@ -70,3 +70,33 @@ func BenchmarkCases(b *testing.B) {
 // cpuTime returns the processor time the process has used, user and
 // system, in nanoseconds (0 where it is not read).
 func cpuTime() int64 { return int64(cputime.Now()) }
+
+// BenchmarkDrifts measures the envelopes of the columns' drifts of regular
+// frames (regularJob) over every combination, the columns taken up each
+// line, each column's bottom displacements those the one below it left
+// ("up lines"), and with both ends read for every column ("both ends").
+func BenchmarkDrifts(b *testing.B) {
+	for _, size := range []struct{ bays, storeys int }{{10, 10}, {30, 60}} {
+		res, err := Run(context.Background(), regularJob(size.bays, size.storeys, false), Options{})
+		if err != nil {
+			b.Fatal(err)
+		}
+		_, drifts := res.displacementRequests()
+		for _, v := range []struct {
+			name string
+			vr   *valuesRequest
+		}{{"up lines", drifts}, {"both ends", bothEnds(res, drifts)}} {
+			b.Run(fmt.Sprintf("%dx%d/%s", size.bays, size.storeys, v.name), func(b *testing.B) {
+				b.ReportAllocs()
+				start := cputime.Now()
+				for b.Loop() {
+					v.vr.out = nil
+					if err := v.vr.add(res.sol, res.lay, res.solved, allOf(res.solved), res.Envelope.Settings); err != nil {
+						b.Fatal(err)
+					}
+				}
+				b.ReportMetric(float64(cputime.Now()-start)/float64(b.N), "cpu-ns/op")
+			})
+		}
+	}
+}

@@ -76,21 +76,37 @@ func (r *Result) Cases() []CaseResult {
 	// The end forces of every column of a member at once, summed case by
 	// case over its columns in order: the sums of endForces, to the last
 	// bit, without reading the displacements column by column. Members
-	// on every processor, each alone.
+	// by chunks and the displacements and reactions case by case, each
+	// alone, on every processor: the cases first, the largest of which
+	// (a patterned one, summed over its pieces) would else be left to
+	// one processor at the end.
 	const chunk = 64
 	chunks := (len(mo.Members) + chunk - 1) / chunk
+	tasks := len(mo.Cases) + chunks
 	var next atomic.Int64
 	var wg sync.WaitGroup
-	for range max(min(runtime.GOMAXPROCS(0), chunks), 1) {
+	for range max(min(runtime.GOMAXPROCS(0), tasks), 1) {
 		wg.Add(1)
 		go func() {
 			defer wg.Done()
-			ends := make([][6]float64, len(r.sol.Model().Cases))
+			var ends [][6]float64
+			var u []float64
 			for {
 				k := int(next.Add(1) - 1)
-				if k >= chunks {
+				if k >= tasks {
 					return
 				}
+				if k < len(mo.Cases) {
+					if u == nil {
+						u = make([]float64, 3*len(mo.Nodes))
+					}
+					r.caseNodes(&out[k], k, cols[k], u)
+					continue
+				}
+				if ends == nil {
+					ends = make([][6]float64, len(r.sol.Model().Cases))
+				}
+				k -= len(mo.Cases)
 				for m := k * chunk; m < min((k+1)*chunk, len(mo.Members)); m++ {
 					r.sol.EndForcesEach(ends, m)
 					for c := range mo.Cases {
@@ -113,39 +129,42 @@ func (r *Result) Cases() []CaseResult {
 		}()
 	}
 	wg.Wait()
-	u := make([]float64, 3*len(mo.Nodes))
-	for c := range mo.Cases {
-		cr := &out[c]
-		r.sol.DisplacementSums(u, cols[c])
-		for v := range mo.Nodes {
-			nd := &mo.Nodes[v]
-			d := Displacement{Node: v, RotationFree: r.sol.RotationFree(v), Ux: u[3*v], Uy: u[3*v+1]}
-			if !d.RotationFree {
-				d.Rz = u[3*v+2]
-			}
-			cr.Displacements[v] = d
-			if !nd.Supported() {
-				continue
-			}
-			re := Reaction{Node: v}
-			for k := range re.Components {
-				re.Components[k] = nd.Reacts(k)
-			}
-			for _, col := range cols[c] {
-				fx, fy, m := r.sol.Reaction(col, v)
-				re.Fx, re.Fy, re.M = re.Fx+fx, re.Fy+fy, re.M+m
-			}
-			cr.Reactions = append(cr.Reactions, re)
+	return out
+}
+
+// caseNodes sets the displacements of every node and the reactions of
+// case c, the sum of the columns cols, in cr; u is scratch of 3 × the
+// number of nodes.
+func (r *Result) caseNodes(cr *CaseResult, c int, cols []int, u []float64) {
+	mo := r.Job.Model
+	r.sol.DisplacementSums(u, cols)
+	for v := range mo.Nodes {
+		nd := &mo.Nodes[v]
+		d := Displacement{Node: v, RotationFree: r.sol.RotationFree(v), Ux: u[3*v], Uy: u[3*v+1]}
+		if !d.RotationFree {
+			d.Rz = u[3*v+2]
 		}
-		if r.reduced(c) {
-			for i, rr := range r.ReducedReactions(c) {
-				re := cr.Reactions[i]
-				re.Fx, re.Fy, re.M = rr.Reduced[0], rr.Reduced[1], rr.Reduced[2]
-				cr.Reduced = append(cr.Reduced, re)
-			}
+		cr.Displacements[v] = d
+		if !nd.Supported() {
+			continue
+		}
+		re := Reaction{Node: v}
+		for k := range re.Components {
+			re.Components[k] = nd.Reacts(k)
+		}
+		for _, col := range cols {
+			fx, fy, m := r.sol.Reaction(col, v)
+			re.Fx, re.Fy, re.M = re.Fx+fx, re.Fy+fy, re.M+m
+		}
+		cr.Reactions = append(cr.Reactions, re)
+	}
+	if r.reduced(c) {
+		for i, rr := range r.ReducedReactions(c) {
+			re := cr.Reactions[i]
+			re.Fx, re.Fy, re.M = rr.Reduced[0], rr.Reduced[1], rr.Reduced[2]
+			cr.Reduced = append(cr.Reduced, re)
 		}
 	}
-	return out
 }
 
 // Shown returns the end forces of the member as the tables and the report

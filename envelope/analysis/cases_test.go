@@ -2,7 +2,10 @@ package analysis
 
 import (
 	"context"
+	"fmt"
 	"math"
+	"runtime"
+	"slices"
 	"testing"
 
 	"govern/combos"
@@ -163,16 +166,32 @@ func TestCasesPatternedWhole(t *testing.T) {
 }
 
 // Cases forms each case's end forces from every column's at once and its
-// displacements row by row: the same sums, in the same order, as adding
-// up EndForces and Displacement column by column, to the last bit.
+// displacements row by row, the members by chunks and the cases' nodes
+// on every processor: the same sums, in the same order, as adding up
+// EndForces, Displacement and Reaction column by column, to the last bit,
+// on one processor and on two; on a frame of two spans and on one of
+// 10 x 10 bays and storeys (210 members: four chunks).
 func TestCasesAreTheColumnSums(t *testing.T) {
-	job := twoSpans()
-	res, err := Run(context.Background(), job, Options{})
-	if err != nil {
-		t.Fatal(err)
+	for _, tc := range []struct {
+		name string
+		job  *Job
+	}{{"two spans", twoSpans()}, {"10x10", regularJob(10, 10, false)}} {
+		res, err := Run(context.Background(), tc.job, Options{})
+		if err != nil {
+			t.Fatal(err)
+		}
+		for _, procs := range []int{1, 2} {
+			t.Run(fmt.Sprintf("%s/GOMAXPROCS=%d", tc.name, procs), func(t *testing.T) {
+				defer runtime.GOMAXPROCS(runtime.GOMAXPROCS(procs))
+				checkColumnSums(t, res)
+			})
+		}
 	}
+}
+
+func checkColumnSums(t *testing.T, res *Result) {
 	got := res.Cases()
-	mo := job.Model
+	mo := res.Job.Model
 	checked := 0
 	for c := range mo.Cases {
 		cols := res.lay.Whole(c)
@@ -183,19 +202,32 @@ func TestCasesAreTheColumnSums(t *testing.T) {
 				t.Errorf("case %d member %d: %+v, column by column %+v", c, m, got[c].Ends[m], want)
 			}
 		}
+		var reactions []Reaction
 		for v := range mo.Nodes {
 			var want Displacement
 			want.Node, want.RotationFree = v, res.sol.RotationFree(v)
+			re := Reaction{Node: v}
 			for _, col := range cols {
 				ux, uy, rz := res.sol.Displacement(col, v)
 				want.Ux, want.Uy = want.Ux+ux, want.Uy+uy
 				if !want.RotationFree {
 					want.Rz += rz
 				}
+				fx, fy, m := res.sol.Reaction(col, v)
+				re.Fx, re.Fy, re.M = re.Fx+fx, re.Fy+fy, re.M+m
 			}
 			if got[c].Displacements[v] != want {
 				t.Errorf("case %d node %d: %+v, column by column %+v", c, v, got[c].Displacements[v], want)
 			}
+			if nd := &mo.Nodes[v]; nd.Supported() {
+				for k := range re.Components {
+					re.Components[k] = nd.Reacts(k)
+				}
+				reactions = append(reactions, re)
+			}
+		}
+		if !slices.Equal(got[c].Reactions, reactions) {
+			t.Errorf("case %d: reactions %+v, column by column %+v", c, got[c].Reactions, reactions)
 		}
 		checked += len(cols)
 	}

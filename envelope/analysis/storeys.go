@@ -125,9 +125,13 @@ type valuesRequest struct {
 	// (envelope.ValuesRows): 3 for a node's displacements, 1 for a drift.
 	effects int
 	// fill sets row[c] to quantity i in every column c of sol; tmp is
-	// scratch of the same length (envelope.ValuesRows).
-	fill    func(sol *frame.Solution, i int, row, tmp [][3]float64)
-	what    func(i, q int) string
+	// scratch of the same length, the worker's, that prev, the quantity
+	// it filled just before, left (−1 for none: envelope.ValuesRows).
+	fill func(sol *frame.Solution, i, prev int, row, tmp [][3]float64)
+	what func(i, q int) string
+	// order, when not nil, is the order in which the quantities are
+	// enveloped, such as the drifts' up each column line.
+	order   []int
 	targets []bool // per job combination, whether it is enveloped over
 	out     [][3]envelope.Extreme
 }
@@ -145,7 +149,27 @@ func (vr *valuesRequest) add(sol *frame.Solution, lay *patterns.Layout, cs []com
 		return nil
 	}
 	set.Stations, set.Extra, set.Lines, set.Progress = 2, nil, nil, nil
-	vals, err := envelope.ValuesRows(sol, cs, sel, set, lay, vr.n, vr.effects, func(i int, row, tmp [][3]float64) { vr.fill(sol, i, row, tmp) }, vr.what)
+	// at(order, q) is the quantity enveloped q-th.
+	at := func(order []int, q int) int {
+		if order == nil {
+			return q
+		}
+		return order[q]
+	}
+	values := func(order []int) ([][3]envelope.Extreme, error) {
+		return envelope.ValuesRows(sol, cs, sel, set, lay, vr.n, vr.effects, func(q int, row, tmp [][3]float64) {
+			prev := -1
+			if q%envelope.ValuesBlock != 0 {
+				prev = at(order, q-1)
+			}
+			vr.fill(sol, at(order, q), prev, row, tmp)
+		}, func(q, k int) string { return vr.what(at(order, q), k) })
+	}
+	vals, err := values(vr.order)
+	if err != nil && vr.order != nil {
+		// The error of the first quantity in error in their own order.
+		_, err = values(nil)
+	}
 	if err != nil {
 		return err
 	}
@@ -157,9 +181,10 @@ func (vr *valuesRequest) add(sol *frame.Solution, lay *patterns.Layout, cs []com
 			}
 		}
 	}
-	for i := range vals {
+	for p := range vals {
+		i := at(vr.order, p)
 		for q := range 3 {
-			mergeExtreme(&vr.out[i][q], &vals[i][q], idx)
+			mergeExtreme(&vr.out[i][q], &vals[p][q], idx)
 		}
 	}
 	return nil
@@ -172,7 +197,7 @@ func (r *Result) displacementRequests() (nodes, drifts *valuesRequest) {
 	targets := displacementTargets(r.Job.Combinations)
 	dir := [3]string{"ux", "uy", "rz"}
 	nodes = &valuesRequest{n: len(mo.Nodes), effects: 3, targets: targets,
-		fill: func(sol *frame.Solution, v int, row, _ [][3]float64) {
+		fill: func(sol *frame.Solution, v, _ int, row, _ [][3]float64) {
 			sol.DisplacementsTo(row, v)
 			if sol.RotationFree(v) {
 				for c := range row {
@@ -181,25 +206,72 @@ func (r *Result) displacementRequests() (nodes, drifts *valuesRequest) {
 			}
 		},
 		what: func(v, q int) string { return fmt.Sprintf("%s of node %q", dir[q], mo.Nodes[v].Name) }}
-	var cols []int
+	var cols, bottom, top []int
 	for _, s := range r.Storeys {
-		cols = append(cols, s.Columns...)
+		for _, m := range s.Columns {
+			b := mo.Bottom(m)
+			mem := mo.Members[m]
+			cols, bottom, top = append(cols, m), append(bottom, b), append(top, mem.Start+mem.End-b)
+		}
 	}
-	drifts = &valuesRequest{n: len(cols), effects: 1, targets: targets,
-		fill: func(sol *frame.Solution, i int, row, tmp [][3]float64) {
+	drifts = &valuesRequest{n: len(cols), effects: 1, targets: targets, order: upLines(bottom, top),
+		fill: func(sol *frame.Solution, i, prev int, row, tmp [][3]float64) {
 			// columnDrift in every column: the top's ux less the bottom's.
-			b := mo.Bottom(cols[i])
-			mem := mo.Members[cols[i]]
-			sol.DisplacementsTo(row, mem.Start+mem.End-b)
-			sol.DisplacementsTo(tmp, b)
+			// tmp keeps the top's ux, the bottom's of the column above
+			// when that comes next (upLines).
+			if prev < 0 || top[prev] != bottom[i] {
+				sol.DisplacementsTo(tmp, bottom[i])
+			}
+			sol.DisplacementsTo(row, top[i])
 			for c := range row {
-				row[c] = [3]float64{row[c][0] - tmp[c][0]}
+				ut := row[c][0]
+				row[c] = [3]float64{ut - tmp[c][0]}
+				tmp[c][0] = ut
 			}
 		},
 		what: func(i, _ int) string {
 			return fmt.Sprintf("the drift of column %q", mo.Members[cols[i]].Name)
 		}}
 	return nodes, drifts
+}
+
+// upLines returns an order of the columns with bottom and top nodes
+// bottom[i] and top[i] in which each is followed by the one standing on
+// it, where there is one: up each column line, from its foot (a column on
+// no other), the lines in the order of their feet, then any columns left
+// in their own order.
+func upLines(bottom, top []int) []int {
+	above := map[int][]int{} // node → the columns whose bottom it is, in order
+	below := map[int]bool{}  // the nodes that are some column's top
+	for i := range bottom {
+		above[bottom[i]] = append(above[bottom[i]], i)
+		below[top[i]] = true
+	}
+	order := make([]int, 0, len(bottom))
+	placed := make([]bool, len(bottom))
+	up := func(i int) {
+		for i >= 0 && !placed[i] {
+			placed[i] = true
+			order = append(order, i)
+			next := -1
+			for _, j := range above[top[i]] {
+				if !placed[j] {
+					next = j
+					break
+				}
+			}
+			i = next
+		}
+	}
+	for i := range bottom {
+		if !below[bottom[i]] {
+			up(i)
+		}
+	}
+	for i := range bottom {
+		up(i)
+	}
+	return order
 }
 
 // setDisplacements keeps the envelopes of the requests in r.

@@ -4,9 +4,13 @@ import (
 	"context"
 	"fmt"
 	"math"
+	"runtime"
+	"slices"
+	"strings"
 	"testing"
 
 	"govern/combos"
+	"govern/envelope"
 	"govern/frame"
 )
 
@@ -237,4 +241,164 @@ func TestStoreyStabilityOnSharedFactor(t *testing.T) {
 			}
 		})
 	}
+}
+
+// upLines orders columns up each line from its foot: on three storeys of
+// lines A and B listed storey by storey, with B's middle column missing
+// (its top column stands on a beam: a line of its own) and A's top column
+// drawn downwards, A1 A2 A3, then B1, then B3; and keeps every column
+// once when the tops and bottoms close on themselves.
+func TestUpLines(t *testing.T) {
+	// Nodes: A0..A3 = 0..3, B0..B3 = 4..7.
+	bottom := []int{0, 4, 1, 2, 6}
+	top := []int{1, 5, 2, 3, 7}
+	if got, want := upLines(bottom, top), []int{0, 2, 3, 1, 4}; !slices.Equal(got, want) {
+		t.Errorf("order %v, want %v", got, want)
+	}
+	// A ring of three (no foot) and one column apart.
+	got := upLines([]int{1, 2, 3, 8}, []int{2, 3, 1, 9})
+	if want := []int{3, 0, 1, 2}; !slices.Equal(got, want) {
+		t.Errorf("order %v, want %v", got, want)
+	}
+}
+
+// The drifts are enveloped up each column line, each column's bottom
+// displacements those its neighbour below left: the same envelopes, to
+// the last bit, as with both ends' displacements read for every column in
+// the storeys' order, on one processor and on two; on a regular frame,
+// and on one with a column missing, columns drawn downwards and the
+// members in another order (the storeys' columns then out of line order).
+func TestDriftsUpLines(t *testing.T) {
+	odd := regularJob(13, 11, false)
+	mo := *odd.Model
+	mo.Members = slices.Clone(mo.Members)
+	for m := range mo.Members {
+		if m%3 == 0 && mo.IsColumn(m) {
+			mo.Members[m].Start, mo.Members[m].End = mo.Members[m].End, mo.Members[m].Start
+		}
+	}
+	// Column C3 (line C, storey 3) out: its top joint rests on the beams.
+	cut := slices.IndexFunc(mo.Members, func(m frame.Member) bool { return m.Name == "CC3" })
+	mo.Members = slices.Delete(mo.Members, cut, cut+1)
+	slices.Reverse(mo.Members)
+	for c := range mo.Cases {
+		// The loads follow their members.
+		cs := &mo.Cases[c]
+		cs.MemberLoads = slices.Clone(cs.MemberLoads)
+		for i := range cs.MemberLoads {
+			m := cs.MemberLoads[i].Member
+			if m > cut {
+				m--
+			}
+			cs.MemberLoads[i].Member = len(mo.Members) - 1 - m
+		}
+	}
+	odd.Model = &mo
+	for _, tc := range []struct {
+		name string
+		job  *Job
+	}{{"regular 12x12", regularJob(12, 12, false)}, {"odd 13x11", odd}} {
+		res, err := Run(context.Background(), tc.job, Options{})
+		if err != nil {
+			t.Fatal(err)
+		}
+		for _, procs := range []int{1, 2} {
+			t.Run(fmt.Sprintf("%s/GOMAXPROCS=%d", tc.name, procs), func(t *testing.T) {
+				defer runtime.GOMAXPROCS(runtime.GOMAXPROCS(procs))
+				_, drifts := res.displacementRequests()
+				if drifts.n < 2*envelope.ValuesBlock {
+					t.Fatalf("%d drifts: fewer than two blocks", drifts.n)
+				}
+				var cols []int
+				for _, s := range res.Storeys {
+					cols = append(cols, s.Columns...)
+				}
+				m := res.Job.Model
+				in := 0 // the columns enveloped right after the one below them
+				for q := 1; q < len(drifts.order); q++ {
+					below, c := cols[drifts.order[q-1]], cols[drifts.order[q]]
+					if m.Bottom(c) == m.Members[below].Start+m.Members[below].End-m.Bottom(below) {
+						in++
+					}
+				}
+				if in < drifts.n*3/4 {
+					t.Fatalf("%d of %d drifts follow the column below them", in, drifts.n)
+				}
+				each := bothEnds(res, drifts)
+				for _, vr := range []*valuesRequest{drifts, each} {
+					if err := vr.add(res.sol, res.lay, res.solved, allOf(res.solved), res.Envelope.Settings); err != nil {
+						t.Fatal(err)
+					}
+				}
+				for i := range cols {
+					if g, w := fmt.Sprintf("%#v", drifts.out[i][0]), fmt.Sprintf("%#v", each.out[i][0]); g != w {
+						t.Fatalf("column %q: %s, both ends read %s", m.Members[cols[i]].Name, g, w)
+					}
+				}
+			})
+		}
+	}
+}
+
+// Quantities enveloped in an order of their own report the error of the
+// first in their own order that has one, as in that order.
+func TestValuesRequestOrderFirstError(t *testing.T) {
+	res, err := Run(context.Background(), regularJob(12, 12, false), Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	n := 3 * envelope.ValuesBlock
+	order := make([]int, n)
+	for q := range order {
+		order[q] = n - 1 - q
+	}
+	bad := map[int]bool{5: true, 2*envelope.ValuesBlock + 1: true}
+	idx := make([]int, len(res.solved))
+	for k := range idx {
+		idx[k] = k
+	}
+	for _, o := range [][]int{nil, order} {
+		vr := &valuesRequest{n: n, effects: 1, targets: displacementTargets(res.Job.Combinations), order: o,
+			what: func(i, _ int) string { return fmt.Sprintf("quantity %d", i) },
+			fill: func(sol *frame.Solution, i, _ int, row, _ [][3]float64) {
+				sol.DisplacementsTo(row, i%len(sol.Model().Nodes))
+				if bad[i] {
+					row[0][0] = math.Inf(1) // in the dead load
+				}
+			}}
+		err := vr.add(res.sol, res.lay, res.solved, idx, res.Envelope.Settings)
+		if err == nil || !strings.Contains(err.Error(), "quantity 5 ") {
+			t.Errorf("order %v: error %v, want quantity 5's", o != nil, err)
+		}
+	}
+}
+
+// bothEnds is the request of the drifts of res's storeys in their order,
+// each column's top and bottom displacements read for it alone: drifts
+// as displacementRequests made it before the columns were taken up the
+// lines (upLines).
+func bothEnds(res *Result, drifts *valuesRequest) *valuesRequest {
+	var cols []int
+	for _, s := range res.Storeys {
+		cols = append(cols, s.Columns...)
+	}
+	m := res.Job.Model
+	return &valuesRequest{n: len(cols), effects: 1, targets: drifts.targets, what: drifts.what,
+		fill: func(sol *frame.Solution, i, _ int, row, tmp [][3]float64) {
+			b := m.Bottom(cols[i])
+			sol.DisplacementsTo(row, m.Members[cols[i]].Start+m.Members[cols[i]].End-b)
+			sol.DisplacementsTo(tmp, b)
+			for c := range row {
+				row[c] = [3]float64{row[c][0] - tmp[c][0]}
+			}
+		}}
+}
+
+// allOf returns the indices of cs.
+func allOf[T any](cs []T) []int {
+	idx := make([]int, len(cs))
+	for k := range idx {
+		idx[k] = k
+	}
+	return idx
 }

@@ -25,8 +25,10 @@ const jsonSigns = "member-local: x from each member's start node; N positive in 
 // WriteJSON writes the envelopes in the govern.envelopes/2 layout (see
 // docs/output.md). It streams: a large frame's envelopes are written as
 // they are formatted, one station to a line, without building the document
-// in memory. Names are encoded once and reused. The same result always
-// gives the same bytes.
+// in memory; what follows them (reactions, nodes, storeys, load cases,
+// statics: a part the size of a few stations per node and member) is
+// formatted meanwhile and held until they are written. Names are encoded
+// once and reused. The same result always gives the same bytes.
 func (p *Report) WriteJSON(w io.Writer) error {
 	job, mo, env := p.job(), p.model(), p.res.Envelope
 	bw := bufio.NewWriterSize(w, 1<<16)
@@ -90,13 +92,18 @@ func (p *Report) WriteJSON(w io.Writer) error {
 	j.raw("\n ],\n \"members\": [")
 	// Each effect in its output unit: N, V and Fx, Fy forces, M moments.
 	shown := [3]analysis.Shown{p.force, p.force, p.moment}
-	ext := func(j *jsonWriter, name string, d int, e envelope.Extreme, with [3]string) {
+	// The extreme e of effect d, x its fixed parts (its key and those of
+	// the values acting with it), formed once.
+	ext := func(j *jsonWriter, x *extKeys, d int, e envelope.Extreme) {
 		s := shown[d]
-		j.raw("\"").raw(name).raw("\": {\"max\": ").num(s.Of(e.Max)).raw(", \"max_by\": ").bytes(nameOf(combo, e.MaxBy))
-		j.raw(", \"max_spans\": ").list(piece, e.MaxSpans).raw(", \"max_loaded\": ").int(e.MaxLoaded).raw(", \"max_with\": ").forces(with, e.MaxWith, shown)
-		j.raw(", \"min\": ").num(s.Of(e.Min)).raw(", \"min_by\": ").bytes(nameOf(combo, e.MinBy))
-		j.raw(", \"min_spans\": ").list(piece, e.MinSpans).raw(", \"min_loaded\": ").int(e.MinLoaded).raw(", \"min_with\": ").forces(with, e.MinWith, shown).raw("}")
+		// The extreme is among the values acting with it, its own effect's
+		// (numKept): formatted once.
+		j.raw(x.head).numKept(s.Of(e.Max)).raw(", \"max_by\": ").bytes(nameOf(combo, e.MaxBy))
+		j.raw(", \"max_spans\": ").list(piece, e.MaxSpans).raw(", \"max_loaded\": ").int(e.MaxLoaded).raw(", \"max_with\": ").forces(&x.with, e.MaxWith, shown, d)
+		j.raw(", \"min\": ").numKept(s.Of(e.Min)).raw(", \"min_by\": ").bytes(nameOf(combo, e.MinBy))
+		j.raw(", \"min_spans\": ").list(piece, e.MinSpans).raw(", \"min_loaded\": ").int(e.MinLoaded).raw(", \"min_with\": ").forces(&x.with, e.MinWith, shown, d).raw("}")
 	}
+	memberExt := [3]extKeys{newExtKeys("N", memberForces), newExtKeys("V", memberForces), newExtKeys("M", memberForces)}
 	defl := func(j *jsonWriter, e envelope.Extreme) {
 		d := p.defl
 		j.raw("\"deflection\": {\"max\": ").num(d.Of(e.Max)).raw(", \"max_by\": ").bytes(nameOf(combo, e.MaxBy))
@@ -118,11 +125,11 @@ func (p *Report) WriteJSON(w io.Writer) error {
 			if st.Extra {
 				j.raw("\"face\": true, ")
 			}
-			ext(j, "N", 0, st.N, memberForces)
+			ext(j, &memberExt[0], 0, st.N)
 			j.raw(", ")
-			ext(j, "V", 1, st.V, memberForces)
+			ext(j, &memberExt[1], 1, st.V)
 			j.raw(", ")
-			ext(j, "M", 2, st.M, memberForces)
+			ext(j, &memberExt[2], 2, st.M)
 			if em.Deflection != nil {
 				j.raw(", ")
 				defl(j, em.Deflection[k])
@@ -131,51 +138,60 @@ func (p *Report) WriteJSON(w io.Writer) error {
 		}
 		j.raw("\n  ]}")
 	}
+	// What follows the members (spans, reactions, nodes and storeys, the
+	// load cases, the statics) is formatted meanwhile on another processor,
+	// the load cases' results formed there too, into a buffer of its own
+	// that is written after them: the same bytes as one after the other.
+	rest := later(func(t *jsonWriter) {
+		t.raw("\n ]")
+		if len(env.Service) > 0 {
+			p.jsonSpans(t, combo)
+		}
+		t.raw(",\n \"reactions\": [")
+		for i, r := range env.Reactions {
+			// Only the components the support or a spring holds, in "with" too.
+			nd := &mo.Nodes[r.Node]
+			var keys [3]string
+			for d, k := range reactionForces {
+				if nd.Reacts(d) {
+					keys[d] = k
+				}
+			}
+			t.sep(i, ",").raw("\n  {\"node\": ").str(mo.Nodes[r.Node].Name)
+			for d, e := range [3]envelope.Extreme{r.Fx, r.Fy, r.M} {
+				if keys[d] != "" {
+					t.raw(", ")
+					x := newExtKeys(keys[d], keys)
+					ext(t, &x, d, e)
+				}
+			}
+			t.raw("}")
+		}
+		t.raw("\n ]")
+		p.jsonStability(t, combo)
+		p.jsonCases(t)
+		t.raw(",\n \"statics\": [")
+		for i, b := range p.res.Statics {
+			res := func(r frame.Resultant) {
+				t.raw("{\"Fx\": ").num(p.force.Of(r.Fx)).raw(", \"Fy\": ").num(p.force.Of(r.Fy)).raw(", \"M\": ").num(p.moment.Of(r.M)).raw("}")
+			}
+			t.sep(i, ",").raw("\n  {\"case\": ").str(b.Case).raw(", \"loads\": ")
+			res(b.Applied)
+			t.raw(", \"reactions\": ")
+			res(b.Reactions)
+			t.raw(", \"joint_residual\": {\"force\": ").num(p.force.Of(b.JointForce)).raw(", \"moment\": ").num(p.moment.Of(b.JointMoment)).raw("}")
+			t.raw(", \"relative\": ").num(b.Relative()).raw(", \"limit\": ").num(b.Limit())
+			if b.OK() {
+				t.raw(", \"ok\": true}")
+			} else {
+				t.raw(", \"ok\": false}")
+			}
+		}
+		t.raw("\n ]")
+	})
 	inOrder(j, len(env.Members), member)
-	j.raw("\n ]")
-	if len(env.Service) > 0 {
-		p.jsonSpans(j, combo)
-	}
-	j.raw(",\n \"reactions\": [")
-	for i, r := range env.Reactions {
-		// Only the components the support or a spring holds, in "with" too.
-		nd := &mo.Nodes[r.Node]
-		var keys [3]string
-		for d, k := range reactionForces {
-			if nd.Reacts(d) {
-				keys[d] = k
-			}
-		}
-		j.sep(i, ",").raw("\n  {\"node\": ").str(mo.Nodes[r.Node].Name)
-		for d, e := range [3]envelope.Extreme{r.Fx, r.Fy, r.M} {
-			if keys[d] != "" {
-				j.raw(", ")
-				ext(j, keys[d], d, e, keys)
-			}
-		}
-		j.raw("}")
-	}
-	j.raw("\n ]")
-	p.jsonStability(j, combo)
-	p.jsonCases(j)
-	j.raw(",\n \"statics\": [")
-	for i, b := range p.res.Statics {
-		res := func(r frame.Resultant) {
-			j.raw("{\"Fx\": ").num(p.force.Of(r.Fx)).raw(", \"Fy\": ").num(p.force.Of(r.Fy)).raw(", \"M\": ").num(p.moment.Of(r.M)).raw("}")
-		}
-		j.sep(i, ",").raw("\n  {\"case\": ").str(b.Case).raw(", \"loads\": ")
-		res(b.Applied)
-		j.raw(", \"reactions\": ")
-		res(b.Reactions)
-		j.raw(", \"joint_residual\": {\"force\": ").num(p.force.Of(b.JointForce)).raw(", \"moment\": ").num(p.moment.Of(b.JointMoment)).raw("}")
-		j.raw(", \"relative\": ").num(b.Relative()).raw(", \"limit\": ").num(b.Limit())
-		if b.OK() {
-			j.raw(", \"ok\": true}")
-		} else {
-			j.raw(", \"ok\": false}")
-		}
-	}
-	j.raw("\n ],\n \"caution\": ").str(Caution).raw("\n}\n")
+	rest.writeTo(j)
+	j.raw(",\n \"caution\": ").str(Caution).raw("\n}\n")
 	j.flush()
 	if j.err != nil {
 		return j.err
@@ -272,6 +288,11 @@ type jsonWriter struct {
 	// the many short pieces of a document are appended, not each passed
 	// to w.
 	out []byte
+	// kept holds the bytes of the number numKept wrote last, keptN long
+	// (0 for none), of the value keptV.
+	kept  [24]byte
+	keptN int
+	keptV float64
 }
 
 // jsonFlush is how many bytes a jsonWriter holds before it passes them on.
@@ -290,6 +311,72 @@ func (j *jsonWriter) flush() {
 type sink interface {
 	io.Writer
 	io.StringWriter
+}
+
+// deferred is a part of a document formatted on a goroutine of its own
+// (later), into a buffer, while the writer goes on with what comes before it.
+type deferred struct {
+	buf   blocks
+	err   error
+	panic any // a panic of the formatting, raised again by writeTo
+	done  chan struct{}
+	part  func(t *jsonWriter) // laterInline: formatted by writeTo
+}
+
+// laterInline has later leave its part to writeTo, which formats it in
+// place, one part after the other: the tests compare the two.
+var laterInline = false
+
+// later starts formatting part into a buffer on a goroutine of its own.
+func later(part func(t *jsonWriter)) *deferred {
+	if laterInline {
+		return &deferred{part: part}
+	}
+	d := &deferred{done: make(chan struct{})}
+	go func() {
+		defer close(d.done)
+		defer func() { d.panic = recover() }()
+		t := &jsonWriter{w: &d.buf}
+		part(t)
+		t.flush()
+		d.err = t.err
+	}()
+	return d
+}
+
+// writeTo waits for the part and writes it to j, as if it had been
+// formatted there: j's error, if it has one, stays first; else the part's
+// own, and then none of it is written. A panic of the formatting is raised
+// again here, in the writer's goroutine.
+func (d *deferred) writeTo(j *jsonWriter) {
+	if d.part != nil {
+		d.part(j)
+		return
+	}
+	<-d.done
+	if d.panic != nil {
+		panic(d.panic)
+	}
+	if j.err == nil && d.err != nil {
+		j.err = d.err
+	}
+	for _, b := range d.buf {
+		j.bytes(b)
+	}
+}
+
+// blocks is a sink that keeps what is written to it, each write a block
+// of its own: it never copies what it holds to grow.
+type blocks [][]byte
+
+func (b *blocks) Write(p []byte) (int, error) {
+	*b = append(*b, bytes.Clone(p))
+	return len(p), nil
+}
+
+func (b *blocks) WriteString(s string) (int, error) {
+	*b = append(*b, []byte(s))
+	return len(s), nil
 }
 
 // jsonChunk is the number of members one processor formats at a time.
@@ -392,7 +479,33 @@ func (j *jsonWriter) bytes(b []byte) *jsonWriter {
 	return j
 }
 
-func (j *jsonWriter) str(s string) *jsonWriter { return j.bytes(quote(s)) }
+// str writes s as a JSON string, as quote gives it: a name of printable
+// ASCII that needs no escape appended as it is, between quotes.
+func (j *jsonWriter) str(s string) *jsonWriter {
+	if !plainName(s) {
+		return j.bytes(quote(s))
+	}
+	if j.err == nil {
+		j.out = append(j.out, '"')
+		j.out = append(j.out, s...)
+		j.out = append(j.out, '"')
+		if len(j.out) >= jsonFlush {
+			j.flush()
+		}
+	}
+	return j
+}
+
+// plainName reports whether s is printable ASCII that encoding/json writes as
+// it is: no quote or backslash, and none of <, > and & (which it escapes).
+func plainName(s string) bool {
+	for i := 0; i < len(s); i++ {
+		if c := s[i]; c < 0x20 || c > 0x7e || c == '"' || c == '\\' || c == '<' || c == '>' || c == '&' {
+			return false
+		}
+	}
+	return true
+}
 
 func (j *jsonWriter) boolean(b bool) *jsonWriter {
 	if b {
@@ -401,7 +514,15 @@ func (j *jsonWriter) boolean(b bool) *jsonWriter {
 	return j.raw("false")
 }
 
-func (j *jsonWriter) int(n int) *jsonWriter { return j.raw(strconv.Itoa(n)) }
+func (j *jsonWriter) int(n int) *jsonWriter {
+	if j.err == nil {
+		j.out = strconv.AppendInt(j.out, int64(n), 10)
+		if len(j.out) >= jsonFlush {
+			j.flush()
+		}
+	}
+	return j
+}
 
 // sep writes s before every element but the first.
 func (j *jsonWriter) sep(i int, s string) *jsonWriter {
@@ -431,6 +552,20 @@ func (j *jsonWriter) num(v float64) *jsonWriter {
 	return j
 }
 
+// numKept is num, the bytes of v kept as well, for forces to write again
+// where v comes again.
+func (j *jsonWriter) numKept(v float64) *jsonWriter {
+	j.keptN = 0
+	if math.IsNaN(v) || math.IsInf(v, 0) {
+		return j.num(v)
+	}
+	b := appendNum(j.kept[:0], v)
+	if len(b) <= len(j.kept) {
+		j.keptN, j.keptV = len(b), v
+	}
+	return j.bytes(b)
+}
+
 // list writes the names of idx as a JSON array, appended at once (a
 // station has six lists of up to 16 names).
 func (j *jsonWriter) list(names [][]byte, idx []int) *jsonWriter {
@@ -451,17 +586,56 @@ func (j *jsonWriter) list(names [][]byte, idx []int) *jsonWriter {
 	return j
 }
 
-// forces writes v as an object with the given keys, each value in its
-// shown unit; an empty key leaves its value out.
-func (j *jsonWriter) forces(keys [3]string, v [3]float64, shown [3]analysis.Shown) *jsonWriter {
-	j.raw("{")
-	n := 0
+// extKeys are the fixed parts of an extreme's object in the JSON: its
+// start, with the effect's name, and the keys of the values acting with
+// it (forceKeys).
+type extKeys struct {
+	head string
+	with forceKeys
+}
+
+func newExtKeys(name string, with [3]string) extKeys {
+	return extKeys{head: "\"" + name + "\": {\"max\": ", with: newForceKeys(with)}
+}
+
+// forceKeys are what forces writes before each value of an object with
+// keys: its opening brace and the key, or a comma and the key, "" for a
+// value left out; and last the closing brace (both braces when every
+// value is left out).
+type forceKeys [4]string
+
+// newForceKeys returns the forceKeys of keys; an empty key leaves its
+// value out.
+func newForceKeys(keys [3]string) forceKeys {
+	var f forceKeys
+	open := "{"
 	for i, k := range keys {
-		if k == "" {
+		if k != "" {
+			f[i] = open + "\"" + k + "\": "
+			open = ", "
+		}
+	}
+	f[3] = "}"
+	if open == "{" {
+		f[3] = "{}"
+	}
+	return f
+}
+
+// forces writes v as an object with the keys of f, each value in its
+// shown unit; value d, where it equals the number numKept wrote last
+// (the same bytes: appendNum writes −0 as 0), as the bytes kept.
+func (j *jsonWriter) forces(f *forceKeys, v [3]float64, shown [3]analysis.Shown, d int) *jsonWriter {
+	for i := range 3 {
+		if f[i] == "" {
 			continue
 		}
-		j.sep(n, ", ").raw("\"").raw(k).raw("\": ").num(shown[i].Of(v[i]))
-		n++
+		j.raw(f[i])
+		if sv := shown[i].Of(v[i]); i == d && j.keptN > 0 && sv == j.keptV {
+			j.bytes(j.kept[:j.keptN])
+		} else {
+			j.num(sv)
+		}
 	}
-	return j.raw("}")
+	return j.raw(f[3])
 }

@@ -5,13 +5,19 @@ import (
 	"context"
 	"errors"
 	"fmt"
+	"math"
+	"math/rand/v2"
 	"runtime"
+	"slices"
+	"strconv"
+	"strings"
 	"testing"
 
 	"govern/combos"
 	"govern/envelope/analysis"
 	"govern/envelope/internal/cputime"
 	"govern/frame"
+	"govern/patterns"
 )
 
 // gridResult analyses a fixed-base frame of bays × storeys (6 m, 3.5 m)
@@ -58,6 +64,34 @@ func gridResult(t testing.TB, bays, storeys int) *analysis.Result {
 		t.Fatal(err)
 	}
 	return res
+}
+
+// patternedResult is gridResult with a live load L on every beam, placed
+// span by span (exact placement), in 1.2D + 1.6L + 0.5W and 0.9D − 1.0W:
+// each extreme lists the spans loaded for it.
+func patternedResult(t testing.TB, bays, storeys int) *analysis.Result {
+	t.Helper()
+	res := gridResult(t, bays, storeys)
+	job := *res.Job
+	mo := *job.Model
+	l := frame.Case{Name: "L"}
+	for _, ld := range mo.Cases[0].MemberLoads {
+		ld.W, ld.WEnd = 12, 12
+		l.MemberLoads = append(l.MemberLoads, ld)
+	}
+	mo.Cases = append(slices.Clone(mo.Cases), l)
+	job.Model = &mo
+	job.Cases = append(slices.Clone(job.Cases), combos.Case{Name: "L", Kind: combos.Live})
+	job.Combinations = []combos.Combination{
+		{Name: "1.2D+1.6L+0.5W", Terms: []combos.Term{{Case: 0, Factor: 1.2}, {Case: 2, Factor: 1.6}, {Case: 1, Factor: 0.5}}},
+		{Name: "0.9D-1.0W", Terms: []combos.Term{{Case: 0, Factor: 0.9}, {Case: 1, Factor: -1}}},
+	}
+	job.Patterned, job.Segments, job.Patterns = []int{2}, 1, patterns.Exact
+	out, err := analysis.Run(context.Background(), &job, analysis.Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	return out
 }
 
 // The members are formatted in chunks on every processor and written in
@@ -110,13 +144,20 @@ func TestJSONWriteErrorWhileFormattingInParallel(t *testing.T) {
 }
 
 // BenchmarkWriteJSON measures the JSON file of a frame's envelopes (no
-// patterns: 11 numbers and three names per effect at each station); run
-// with -cpu 1,2 to see the formatting shared between processors.
+// patterns: 11 numbers and three names per effect at each station; with
+// "-patterned", the spans loaded listed too); run with -cpu 1,2 to see
+// the formatting shared between processors.
 func BenchmarkWriteJSON(b *testing.B) {
-	for _, size := range []struct{ bays, storeys int }{{5, 9}, {30, 60}} {
-		res := gridResult(b, size.bays, size.storeys)
+	for _, size := range []struct {
+		bays, storeys int
+		patterned     bool
+	}{{5, 9, false}, {30, 60, false}, {30, 60, true}} {
+		res, name := gridResult(b, size.bays, size.storeys), fmt.Sprintf("%dx%d", size.bays, size.storeys)
+		if size.patterned {
+			res, name = patternedResult(b, size.bays, size.storeys), name+"-patterned"
+		}
 		p := New(res)
-		b.Run(fmt.Sprintf("%dx%d", size.bays, size.storeys), func(b *testing.B) {
+		b.Run(name, func(b *testing.B) {
 			b.ReportAllocs()
 			var out bytes.Buffer
 			start := cputime.Now()
@@ -129,5 +170,133 @@ func BenchmarkWriteJSON(b *testing.B) {
 			b.ReportMetric(float64(cputime.Now()-start)/float64(b.N), "cpu-ns/op")
 			b.SetBytes(int64(out.Len()))
 		})
+	}
+}
+
+// What follows the members is formatted on a goroutine of its own while
+// they are written (later): the same bytes as the document written one
+// part after the other, on one processor and on two, for frames with
+// spans and a service combination (portal), storeys (storeyResult) and
+// many members (gridResult).
+func TestJSONPartFormattedMeanwhile(t *testing.T) {
+	for _, tc := range []struct {
+		name string
+		res  *analysis.Result
+	}{{"portal", portal(t, "A1-B1")}, {"storey", storeyResult(t, false)}, {"grid 5x9", gridResult(t, 5, 9)}} {
+		t.Run(tc.name, func(t *testing.T) {
+			var want bytes.Buffer
+			laterInline = true
+			err := New(tc.res).WriteJSON(&want)
+			laterInline = false
+			if err != nil {
+				t.Fatal(err)
+			}
+			for _, k := range []string{`"spans"`, `"reactions"`, `"cases"`, `"statics"`, `"caution"`} {
+				if tc.name == "portal" && !bytes.Contains(want.Bytes(), []byte(k)) {
+					t.Fatalf("the document has no %s", k)
+				}
+			}
+			for _, procs := range []int{1, 2} {
+				func() {
+					defer runtime.GOMAXPROCS(runtime.GOMAXPROCS(procs))
+					var got bytes.Buffer
+					if err := New(tc.res).WriteJSON(&got); err != nil {
+						t.Fatal(err)
+					}
+					if !bytes.Equal(got.Bytes(), want.Bytes()) {
+						t.Errorf("GOMAXPROCS %d: %d bytes, differing from the %d written in order", procs, got.Len(), want.Len())
+					}
+				}()
+			}
+		})
+	}
+}
+
+// A value that is not a finite number in the part formatted meanwhile is
+// an error, and none of that part is written; one among the members, the
+// first in the document, is the error reported when both have one.
+func TestJSONPartFormattedMeanwhileErrors(t *testing.T) {
+	res := portal(t, "A1-B1")
+	res.Statics = slices.Clone(res.Statics)
+	res.Statics[0].Applied.Fx = math.NaN()
+	var out bytes.Buffer
+	err := New(res).WriteJSON(&out)
+	if err == nil || !strings.Contains(err.Error(), "NaN") {
+		t.Fatalf("error %v, want one naming NaN", err)
+	}
+	if bytes.Contains(out.Bytes(), []byte(`"reactions"`)) {
+		t.Error("part of what follows the members was written")
+	}
+	m := &res.Envelope.Members[0]
+	m.Stations = slices.Clone(m.Stations)
+	m.Stations[0].N.Max = math.Inf(1)
+	if err := New(res).WriteJSON(&bytes.Buffer{}); err == nil || !strings.Contains(err.Error(), "+Inf") {
+		t.Fatalf("error %v, want the members' one, naming +Inf", err)
+	}
+}
+
+// str writes a name as encoding/json quotes it (quote): plain names as
+// they are, and every other, escaped, through it.
+func TestJSONStrIsQuote(t *testing.T) {
+	names := []string{"", "B1-C1", "L/A1-B1", "2.3.1-2 1.2D+1.6L+0.5Lr", "a\"b", `a\b`, "<tag>", "a&b", "tab\there",
+		"line\nbreak", "\x7f", "naïve", "\u2028", "\xff", " ", "~", "}{", "0.9D-1.0W"}
+	rng := rand.New(rand.NewPCG(5, 8))
+	for range 20000 {
+		b := make([]byte, rng.IntN(12))
+		for i := range b {
+			b[i] = byte(rng.IntN(0x90))
+		}
+		names = append(names, string(b))
+	}
+	for _, s := range names {
+		j := &jsonWriter{}
+		j.str(s)
+		if want := quote(s); string(j.out) != string(want) {
+			t.Fatalf("%q: %s, encoding/json %s", s, j.out, want)
+		}
+	}
+}
+
+// forces writes an object of the keys held, in their order, each with its
+// value in its shown unit: for every set of keys a reaction may hold,
+// none to all three.
+func TestJSONForcesKeys(t *testing.T) {
+	shown := [3]analysis.Shown{{Label: "kN", Factor: 1}, {Label: "kN", Factor: 1}, {Label: "kNm", Factor: 2}}
+	v := [3]float64{1.5, -2, 0.25}
+	for mask := range 8 {
+		var keys [3]string
+		want := "{"
+		for i, k := range reactionForces {
+			if mask&(1<<i) != 0 {
+				keys[i] = k
+				if want != "{" {
+					want += ", "
+				}
+				want += fmt.Sprintf("%q: %s", k, strconv.FormatFloat(v[i]*shown[i].Factor, 'g', 10, 64))
+			}
+		}
+		want += "}"
+		j := &jsonWriter{}
+		f := newForceKeys(keys)
+		j.forces(&f, v, shown, -1)
+		if string(j.out) != want {
+			t.Errorf("keys %q: %s, want %s", keys, j.out, want)
+		}
+		// Each value again after it was written as an extreme (numKept),
+		// and a zero value with nothing kept.
+		for d := range 3 {
+			j := &jsonWriter{}
+			j.numKept(v[d] * shown[d].Factor)
+			n := len(j.out)
+			j.forces(&f, v, shown, d)
+			if string(j.out[n:]) != want {
+				t.Errorf("keys %q, value %d kept: %s, want %s", keys, d, j.out[n:], want)
+			}
+		}
+		j = &jsonWriter{}
+		j.forces(&f, [3]float64{}, shown, 0)
+		if w := strings.ReplaceAll(strings.ReplaceAll(strings.ReplaceAll(want, "1.5", "0"), "-2", "0"), "0.5", "0"); string(j.out) != w {
+			t.Errorf("keys %q, zeros: %s, want %s", keys, j.out, w)
+		}
 	}
 }
