@@ -106,3 +106,14 @@ func regularJob(bays, storeys int, starter bool) *Job {
 	}
 	return job
 }
+
+// secondOrderJob is regularJob with every combination analysed in second
+// order.
+func secondOrderJob(bays, storeys int, starter bool) *Job {
+	job := regularJob(bays, storeys, starter)
+	job.Methods = make([]Method, len(job.Combinations))
+	for k := range job.Methods {
+		job.Methods[k] = Method{SecondOrder: true}
+	}
+	return job
+}

@@ -18,11 +18,7 @@ func BenchmarkRunSecondOrder(b *testing.B) {
 		bays, storeys int
 		alone         bool
 	}{{10, 10, false}, {30, 20, false}, {30, 20, true}} {
-		job := regularJob(size.bays, size.storeys, false)
-		job.Methods = make([]Method, len(job.Combinations))
-		for k := range job.Methods {
-			job.Methods[k] = Method{SecondOrder: true}
-		}
+		job := secondOrderJob(size.bays, size.storeys, false)
 		name := fmt.Sprintf("%dx%d", size.bays, size.storeys)
 		if size.alone {
 			name += "-alone"

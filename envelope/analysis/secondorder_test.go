@@ -492,11 +492,7 @@ func TestSecondOrderSharedFactorsChangeNothing(t *testing.T) {
 		}},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
-			job := regularJob(4, 3, true)
-			job.Methods = make([]Method, len(job.Combinations))
-			for k := range job.Methods {
-				job.Methods[k] = Method{SecondOrder: true}
-			}
+			job := secondOrderJob(4, 3, true)
 			tc.set(job)
 			got, err := Run(context.Background(), job, Options{})
 			if err != nil {
@@ -572,11 +568,7 @@ func TestSecondOrderCriticalTogether(t *testing.T) {
 		for _, procs := range []int{1, 2} {
 			t.Run(fmt.Sprintf("%s/GOMAXPROCS=%d", tc.name, procs), func(t *testing.T) {
 				defer runtime.GOMAXPROCS(runtime.GOMAXPROCS(procs))
-				job := regularJob(4, 6, true)
-				job.Methods = make([]Method, len(job.Combinations))
-				for k := range job.Methods {
-					job.Methods[k] = Method{SecondOrder: true}
-				}
+				job := secondOrderJob(4, 6, true)
 				tc.set(job)
 				got, err := Run(context.Background(), job, Options{})
 				if err != nil {
@@ -669,11 +661,7 @@ func TestSecondOrderIterationsBesideChangeNothing(t *testing.T) {
 		for _, procs := range []int{1, 2} {
 			t.Run(fmt.Sprintf("%s/GOMAXPROCS=%d", tc.name, procs), func(t *testing.T) {
 				defer runtime.GOMAXPROCS(runtime.GOMAXPROCS(procs))
-				job := regularJob(4, 5, true)
-				job.Methods = make([]Method, len(job.Combinations))
-				for k := range job.Methods {
-					job.Methods[k] = Method{SecondOrder: true}
-				}
+				job := secondOrderJob(4, 5, true)
 				tc.set(job)
 				got, err := Run(context.Background(), job, Options{})
 				if err != nil {
