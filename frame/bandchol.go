@@ -124,3 +124,101 @@ func subScaledGo(y, x []float64, a float64) {
 		y[k] -= a * x[k]
 	}
 }
+
+// Blocked band Cholesky factorization, for checks of definiteness only.
+//
+// definiteBlock is the rows factored as one block by bandDefinite, whose
+// outer product then updates the rows below at once; definitePad is how
+// many numbers its band storage adds to each row (definiteStride).
+const (
+	definiteBlock = 8
+	definitePad   = definiteBlock + 3
+)
+
+// definiteStride returns the row stride of the band storage bandDefinite
+// factors for kb superdiagonals: each row's kb + 1 numbers (entry
+// (i, i+j) at a[i·stride+j]), then definiteBlock − 1 zeros, which stand
+// for the entries right of the band, then 4 numbers of scratch.
+func definiteStride(kb int) int { return kb + 1 + definitePad }
+
+// definiteLen returns the length of the band storage bandDefinite
+// factors for n equations and kb superdiagonals: n rows of
+// definiteStride(kb) and 3 of scratch.
+func definiteLen(n, kb int) int { return (n + 3) * definiteStride(kb) }
+
+// bandDefinite reports whether a, a symmetric matrix of n equations and
+// kb superdiagonals in the band storage of definiteStride (its zeros
+// zero, and of definiteLen(n, kb) numbers), is positive definite, by its
+// upper Cholesky factorization, blocked: definiteBlock rows at a time
+// are pivoted and scaled one by one (each row's outer product taken from
+// the block's rows below it, to where it reaches, as bandCholesky), then
+// the block's outer product, of rank definiteBlock, is taken at once
+// from the rows below it that the block reaches, four rows at a time by
+// rankUpdate4. A row's outer product stops at its last entry that is not
+// zero, as in bandCholesky. a is overwritten with the factor (partly
+// when false); its rounding is not bandCholesky's (the sums are taken
+// in another order, with fused multiply-adds where the processor has
+// them), so only the answer is for use.
+func bandDefinite(a []float64, n, kb int) bool {
+	ld := definiteStride(kb)
+	if len(a) != definiteLen(n, kb) {
+		panic("frame: bandDefinite: storage of the wrong length")
+	}
+	// l is the distance between entries (i, c) and (i+1, c): entry
+	// (i, c) is at a[i·l + c].
+	l := ld - 1
+	for lo := 0; lo < n; lo += definiteBlock {
+		hi := min(lo+definiteBlock, n)
+		end := lo // the last column the block's rows reach
+		for r := lo; r < hi; r++ {
+			m := min(kb, n-1-r)
+			row := a[r*ld : r*ld+m+1]
+			for m > 0 && row[m] == 0 {
+				m--
+			}
+			d := row[0]
+			if !(d > 0) {
+				return false
+			}
+			d = math.Sqrt(d)
+			row[0] = d
+			s := 1 / d
+			for j := 1; j <= m; j++ {
+				row[j] *= s
+			}
+			end = max(end, r+m)
+			for t := r + 1; t < hi && t <= r+m; t++ {
+				if v := row[t-r]; v != 0 {
+					subScaled(a[t*ld:t*ld+r+m-t+1], row[t-r:m+1], v)
+				}
+			}
+		}
+		// Rows hi to end, each from its diagonal to column end, less
+		// the block's outer product, four rows at a time from column t
+		// (the entries left of a row's diagonal that a tile takes are
+		// the scratch at the end of the row above it, and the rows past
+		// end only such). A row of the block that does not reach
+		// column c has zeros there, in its band or in the zeros after
+		// it (c − r < kb + definiteBlock).
+		for t := hi; t <= end; t += 4 {
+			rankUpdate4(a[t*l+t:], a[lo*l+t:], l, hi-lo, end-t+1)
+		}
+	}
+	return true
+}
+
+// rankUpdate4Go is rankUpdate4 in Go.
+func rankUpdate4Go(y, x []float64, l, nb, cols int) {
+	for c := range cols {
+		s0, s1, s2, s3 := y[c], y[l+c], y[2*l+c], y[3*l+c]
+		for r := range nb {
+			v := x[r*l+c]
+			u := x[r*l : r*l+4]
+			s0 -= u[0] * v
+			s1 -= u[1] * v
+			s2 -= u[2] * v
+			s3 -= u[3] * v
+		}
+		y[c], y[l+c], y[2*l+c], y[3*l+c] = s0, s1, s2, s3
+	}
+}

@@ -471,12 +471,12 @@ func (b *Buckling) definite(lambda float64, axial []float64, sc *certifyScratch)
 		}
 		return true
 	}
-	if len(sc.data) != b.n*(b.kb+1) {
-		sc.data = make([]float64, b.n*(b.kb+1))
+	if size := definiteLen(b.n, b.kb); len(sc.data) != size {
+		sc.data = make([]float64, size)
 	}
 	clear(sc.data) // fresh memory too: written before it is read (see Solution.rhs)
 	data := sc.data
-	return b.assembleAt(data, lambda, axial) && bandCholesky(data, b.n, b.kb)
+	return b.assembleAt(data, definiteStride(b.kb), lambda, axial) && bandDefinite(data, b.n, b.kb)
 }
 
 // lanczos returns, for each set of axial forces, the largest eigenvalue μ

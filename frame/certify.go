@@ -2,11 +2,11 @@ package frame
 
 // assembleAt adds K + λ·Kg of the axial forces axial, each member's
 // pencil condensed at λ·N (condensedAt) and turned to global axes, to
-// the band matrix data (the layout of Solution.assemble), with the node
-// springs; false when some member's own block is not positive definite
-// (the whole matrix then is not).
-func (b *Buckling) assembleAt(data []float64, lambda float64, axial []float64) bool {
-	w := b.kb + 1
+// the band matrix data, entry (i, i+j) at data[i·w+j] (w = kb + 1 the
+// layout of Solution.assemble, definiteStride(kb) that of bandDefinite),
+// with the node springs; false when some member's own block is not
+// positive definite (the whole matrix then is not).
+func (b *Buckling) assembleAt(data []float64, w int, lambda float64, axial []float64) bool {
 	for m := range b.mems {
 		p := &b.mems[m]
 		k, ok := p.condensedAt(lambda * axial[m])

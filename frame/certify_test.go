@@ -1,6 +1,7 @@
 package frame
 
 import (
+	"fmt"
 	"math"
 	"math/rand/v2"
 	"testing"
@@ -23,7 +24,7 @@ func TestAssembleAt(t *testing.T) {
 		}
 		want := b.sol.assemble(b.n, b.kb)
 		got := make([]float64, len(want))
-		if !b.assembleAt(got, 0, axial) {
+		if !b.assembleAt(got, b.kb+1, 0, axial) {
 			t.Fatal("K not positive definite")
 		}
 		scale := 0.0
@@ -54,5 +55,46 @@ func TestAssembleAt(t *testing.T) {
 				}
 			}
 		}
+	}
+}
+
+// BenchmarkCertify measures the check of a factor found (definite: the
+// assembly of K + λ·Kg at λ just below αcr and its blocked factorization,
+// bandDefinite) on random frames of the sizes of the 30 × 60 and 60 × 60
+// frames, against the same check by the unblocked factorization
+// (assembleAt in the layout of Solution.assemble, bandCholesky), as it
+// was.
+func BenchmarkCertify(b *testing.B) {
+	for _, size := range [][2]int{{30, 60}, {60, 60}} {
+		mo, axial := randomFrame(rand.New(rand.NewPCG(18, 1)), size[0], size[1])
+		bk, err := NewBuckling(mo)
+		if err != nil {
+			b.Fatal(err)
+		}
+		alpha, err := bk.Factor(axial)
+		if err != nil {
+			b.Fatal(err)
+		}
+		lambda := (1 - certifyGap) * alpha
+		name := fmt.Sprintf("%dx%d", size[0], size[1])
+		b.Run(name+"/blocked", func(b *testing.B) {
+			b.ReportAllocs()
+			var sc certifyScratch
+			for b.Loop() {
+				if !bk.definite(lambda, axial, &sc) {
+					b.Fatal("not positive definite below αcr")
+				}
+			}
+		})
+		b.Run(name+"/unblocked", func(b *testing.B) {
+			b.ReportAllocs()
+			data := make([]float64, bk.n*(bk.kb+1))
+			for b.Loop() {
+				clear(data)
+				if !bk.assembleAt(data, bk.kb+1, lambda, axial) || !bandCholesky(data, bk.n, bk.kb) {
+					b.Fatal("not positive definite below αcr")
+				}
+			}
+		})
 	}
 }
