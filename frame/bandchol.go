@@ -160,49 +160,59 @@ func definiteLen(n, kb int) int { return (n + 3) * definiteStride(kb) }
 // in another order, with fused multiply-adds where the processor has
 // them), so only the answer is for use.
 func bandDefinite(a []float64, n, kb int) bool {
-	ld := definiteStride(kb)
 	if len(a) != definiteLen(n, kb) {
 		panic("frame: bandDefinite: storage of the wrong length")
 	}
+	for lo := 0; lo < n; lo += definiteBlock {
+		if !definiteStep(a, kb, lo, min(lo+definiteBlock, n), n-1) {
+			return false
+		}
+	}
+	return true
+}
+
+// definiteStep is one step of bandDefinite: rows lo to hi − 1 pivoted
+// and scaled, and their outer product taken from the rows below them;
+// false when a pivot is not positive. Rows and columns are counted from
+// a's first row, last is the matrix's last row so counted, and a holds
+// the rows up to the last the step reaches, hi + kb + 2 (or last + 3).
+func definiteStep(a []float64, kb, lo, hi, last int) bool {
+	ld := definiteStride(kb)
 	// l is the distance between entries (i, c) and (i+1, c): entry
 	// (i, c) is at a[i·l + c].
 	l := ld - 1
-	for lo := 0; lo < n; lo += definiteBlock {
-		hi := min(lo+definiteBlock, n)
-		end := lo // the last column the block's rows reach
-		for r := lo; r < hi; r++ {
-			m := min(kb, n-1-r)
-			row := a[r*ld : r*ld+m+1]
-			for m > 0 && row[m] == 0 {
-				m--
-			}
-			d := row[0]
-			if !(d > 0) {
-				return false
-			}
-			d = math.Sqrt(d)
-			row[0] = d
-			s := 1 / d
-			for j := 1; j <= m; j++ {
-				row[j] *= s
-			}
-			end = max(end, r+m)
-			for t := r + 1; t < hi && t <= r+m; t++ {
-				if v := row[t-r]; v != 0 {
-					subScaled(a[t*ld:t*ld+r+m-t+1], row[t-r:m+1], v)
-				}
+	end := lo // the last column the block's rows reach
+	for r := lo; r < hi; r++ {
+		m := min(kb, last-r)
+		row := a[r*ld : r*ld+m+1]
+		for m > 0 && row[m] == 0 {
+			m--
+		}
+		d := row[0]
+		if !(d > 0) {
+			return false
+		}
+		d = math.Sqrt(d)
+		row[0] = d
+		s := 1 / d
+		for j := 1; j <= m; j++ {
+			row[j] *= s
+		}
+		end = max(end, r+m)
+		for t := r + 1; t < hi && t <= r+m; t++ {
+			if v := row[t-r]; v != 0 {
+				subScaled(a[t*ld:t*ld+r+m-t+1], row[t-r:m+1], v)
 			}
 		}
-		// Rows hi to end, each from its diagonal to column end, less
-		// the block's outer product, four rows at a time from column t
-		// (the entries left of a row's diagonal that a tile takes are
-		// the scratch at the end of the row above it, and the rows past
-		// end only such). A row of the block that does not reach
-		// column c has zeros there, in its band or in the zeros after
-		// it (c − r < kb + definiteBlock).
-		for t := hi; t <= end; t += 4 {
-			rankUpdate4(a[t*l+t:], a[lo*l+t:], l, hi-lo, end-t+1)
-		}
+	}
+	// Rows hi to end, each from its diagonal to column end, less the
+	// block's outer product, four rows at a time from column t (the
+	// entries left of a row's diagonal that a tile takes are the scratch
+	// at the end of the row above it, and the rows past end only such).
+	// A row of the block that does not reach column c has zeros there,
+	// in its band or in the zeros after it (c − r < kb + definiteBlock).
+	for t := hi; t <= end; t += 4 {
+		rankUpdate4(a[t*l+t:], a[lo*l+t:], l, hi-lo, end-t+1)
 	}
 	return true
 }

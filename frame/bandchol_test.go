@@ -96,10 +96,11 @@ func TestBandCholesky(t *testing.T) {
 }
 
 // BenchmarkBandCholesky measures the band Cholesky factorization of the
-// check of a factor (bandCholesky) against LAPACK's dpbtrf (gonum) on
-// a matrix of the band of the 30 × 60 frame and smaller ones.
+// check of a factor (bandCholesky), the blocked one of the checks of
+// definiteness (bandDefinite) and LAPACK's dpbtrf (gonum) on matrices of
+// the bands of the 30 × 60 and 60 × 60 frames and smaller ones.
 func BenchmarkBandCholesky(b *testing.B) {
-	for _, size := range [][2]int{{600, 30}, {2000, 60}, {5580, 96}} {
+	for _, size := range [][2]int{{600, 30}, {2000, 60}, {5580, 98}, {10980, 182}} {
 		a := randomBand(rand.New(rand.NewPCG(5, 5)), size[0], size[1], 1.2, 0)
 		c := make([]float64, len(a))
 		b.Run(fmt.Sprintf("%dx%d/own", size[0], size[1]), func(b *testing.B) {
@@ -108,6 +109,19 @@ func BenchmarkBandCholesky(b *testing.B) {
 			for b.Loop() {
 				copy(c, a)
 				if !bandCholesky(c, size[0], size[1]) {
+					b.Fatal("not positive definite")
+				}
+			}
+			b.ReportMetric(float64(cpuTime()-start)/float64(b.N), "cpu-ns/op")
+		})
+		p := padBand(a, size[0], size[1])
+		d := make([]float64, len(p))
+		b.Run(fmt.Sprintf("%dx%d/blocked", size[0], size[1]), func(b *testing.B) {
+			b.ReportAllocs()
+			start := cpuTime()
+			for b.Loop() {
+				copy(d, p)
+				if !bandDefinite(d, size[0], size[1]) {
 					b.Fatal("not positive definite")
 				}
 			}

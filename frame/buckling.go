@@ -38,6 +38,10 @@ type Buckling struct {
 	sol   *Solution // the numbering, for the check of a factor found
 	lt    []float64 // u by columns (transposeBand)
 	first []int32   // firstRows of u
+
+	// The checks of definiteness (certifyOrder).
+	byFirst, firstEq []int32
+	springs          []float64
 }
 
 // NewBuckling factors the elastic stiffness of mo for [Buckling.Factor].
@@ -84,6 +88,7 @@ func NewBuckling(mo *Model) (*Buckling, error) {
 	b.u = data
 	b.first = firstRows(b.u, n, b.kb)
 	b.lt = transposeBand(b.u, n, b.kb)
+	b.certifyOrder()
 	return b, nil
 }
 
@@ -455,6 +460,7 @@ const certifyGap = 1e-6
 // slow to touch.
 type certifyScratch struct {
 	data []float64
+	g    [][6][6]float64 // each member's condensed stiffness in global axes
 }
 
 // definite reports whether K + λ·Kg of axial is positive definite; sc,
@@ -471,12 +477,7 @@ func (b *Buckling) definite(lambda float64, axial []float64, sc *certifyScratch)
 		}
 		return true
 	}
-	if size := definiteLen(b.n, b.kb); len(sc.data) != size {
-		sc.data = make([]float64, size)
-	}
-	clear(sc.data) // fresh memory too: written before it is read (see Solution.rhs)
-	data := sc.data
-	return b.assembleAt(data, definiteStride(b.kb), lambda, axial) && bandDefinite(data, b.n, b.kb)
+	return b.definiteBand(lambda, axial, sc)
 }
 
 // lanczos returns, for each set of axial forces, the largest eigenvalue μ
