@@ -38,6 +38,7 @@ type Buckling struct {
 	sol   *Solution // the numbering, for the check of a factor found
 	lt    []float64 // u by columns (transposeBand)
 	first []int32   // firstRows of u
+	last  []int32   // lastCols of u
 
 	// The checks of definiteness (certifyOrder).
 	byFirst, firstEq []int32
@@ -87,6 +88,7 @@ func NewBuckling(mo *Model) (*Buckling, error) {
 	}
 	b.u = data
 	b.first = firstRows(b.u, n, b.kb)
+	b.last = lastCols(b.u, n, b.kb)
 	b.lt = transposeBand(b.u, n, b.kb)
 	b.certifyOrder()
 	return b, nil
