@@ -41,7 +41,8 @@ type Buckling struct {
 	last  []int32   // lastCols of u
 
 	// The checks of definiteness (certifyOrder).
-	byFirst, firstEq []int32
+	firstEq, placeOf []int32
+	gdofs            [][6]int32
 	springs          []float64
 }
 
@@ -462,7 +463,7 @@ const certifyGap = 1e-6
 // slow to touch.
 type certifyScratch struct {
 	data []float64
-	g    [][6][6]float64 // each member's condensed stiffness in global axes
+	g    [][6][6]float64 // each member's condensed stiffness in global axes, in the order of certifyOrder
 }
 
 // definite reports whether K + λ·Kg of axial is positive definite; sc,

@@ -39,19 +39,24 @@ func (b *Buckling) addMember(data []float64, w, m int, nm float64) bool {
 		return false
 	}
 	g := toGlobal6(&k, p.c, p.s)
-	p.scatter(data, w, 0, &g)
+	var gdof [6]int32
+	for i, e := range p.gdof {
+		gdof[i] = int32(e)
+	}
+	scatter(data, w, 0, &gdof, &g)
 	return true
 }
 
-// scatter adds the member's stiffness g in global axes to the band
-// matrix data, entry (i, i+j) at data[(i−base)·w+j].
-func (p *pencil) scatter(data []float64, w, base int, g *[6][6]float64) {
-	for i, ei := range p.gdof {
+// scatter adds a member's stiffness g in global axes, its node degrees
+// of freedom's equations gdof (< 0 for none), to the band matrix data,
+// entry (i, i+j) at data[(i−base)·w+j].
+func scatter(data []float64, w, base int, gdof *[6]int32, g *[6][6]float64) {
+	for i, ei := range gdof {
 		if ei < 0 {
 			continue
 		}
-		row := data[(ei-base)*w:]
-		for j, ej := range p.gdof {
+		row := data[(int(ei)-base)*w:]
+		for j, ej := range gdof {
 			if ej >= ei {
 				row[ej-ei] += g[i][j]
 			}
@@ -61,11 +66,12 @@ func (p *pencil) scatter(data []float64, w, base int, g *[6][6]float64) {
 
 // certifyOrder sets what the checks of definiteness (definite) share:
 // the members in the order of their first equation (those with none
-// first), each member's first equation (−1 for none), and the springs'
-// stiffness at each equation.
+// first), and in that order each one's first equation (−1 for none),
+// its node degrees of freedom's equations, and its place in it; and the
+// springs' stiffness at each equation.
 func (b *Buckling) certifyOrder() {
-	b.firstEq = make([]int32, len(b.mems))
-	b.byFirst = make([]int32, len(b.mems))
+	first := make([]int32, len(b.mems))
+	order := make([]int32, len(b.mems))
 	for m := range b.mems {
 		f := -1
 		for _, e := range b.mems[m].gdof {
@@ -73,9 +79,18 @@ func (b *Buckling) certifyOrder() {
 				f = e
 			}
 		}
-		b.firstEq[m], b.byFirst[m] = int32(f), int32(m)
+		first[m], order[m] = int32(f), int32(m)
 	}
-	slices.SortStableFunc(b.byFirst, func(x, y int32) int { return cmp.Compare(b.firstEq[x], b.firstEq[y]) })
+	slices.SortStableFunc(order, func(x, y int32) int { return cmp.Compare(first[x], first[y]) })
+	b.firstEq = make([]int32, len(b.mems))
+	b.placeOf = make([]int32, len(b.mems))
+	b.gdofs = make([][6]int32, len(b.mems))
+	for at, m := range order {
+		b.firstEq[at], b.placeOf[m] = first[m], int32(at)
+		for i, e := range b.mems[m].gdof {
+			b.gdofs[at][i] = int32(e)
+		}
+	}
 	b.springs = make([]float64, b.n)
 	mo := b.model
 	for v := range mo.Nodes {
@@ -106,7 +121,8 @@ func (b *Buckling) definiteBand(lambda float64, axial []float64, sc *certifyScra
 	}
 	a := sc.data
 	// Every member condensed first, one after another as their numbers
-	// lie (its own block's definiteness the first answer).
+	// lie (its own block's definiteness the first answer), each kept at
+	// its place in the order of first equations, read in turn below.
 	if len(sc.g) != len(b.mems) {
 		sc.g = make([][6][6]float64, len(b.mems))
 	}
@@ -116,7 +132,7 @@ func (b *Buckling) definiteBand(lambda float64, axial []float64, sc *certifyScra
 		if !ok {
 			return false
 		}
-		sc.g[m] = toGlobal6(&k, p.c, p.s)
+		sc.g[b.placeOf[m]] = toGlobal6(&k, p.c, p.s)
 	}
 	base, ready := 0, 0 // a holds rows base to ready − 1, assembled so far
 	next := 0
@@ -132,9 +148,8 @@ func (b *Buckling) definiteBand(lambda float64, axial []float64, sc *certifyScra
 			a[(e-base)*ld] = b.springs[e]
 		}
 		ready = need
-		for ; next < len(b.byFirst) && int(b.firstEq[b.byFirst[next]]) < hi; next++ {
-			m := b.byFirst[next]
-			b.mems[m].scatter(a, ld, base, &sc.g[m])
+		for ; next < len(b.firstEq) && int(b.firstEq[next]) < hi; next++ {
+			scatter(a, ld, base, &b.gdofs[next], &sc.g[next])
 		}
 		if !definiteStep(a, kb, lo-base, hi-base, n-1-base) {
 			return false
