@@ -232,3 +232,18 @@ func rankUpdate4Go(y, x []float64, l, nb, cols int) {
 		y[c], y[l+c], y[2*l+c], y[3*l+c] = s0, s1, s2, s3
 	}
 }
+
+// rankUpdate4Rows is rankUpdate4 a row of y at a time, two rows of x at a
+// time (subScaled2, as bandCholesky): for processors without AVX-512.
+func rankUpdate4Rows(y, x []float64, l, nb, cols int) {
+	for t := range 4 {
+		yt := y[t*l : t*l+cols]
+		r := 0
+		for ; r+1 < nb; r += 2 {
+			subScaled2(yt, x[r*l:r*l+cols], x[(r+1)*l:(r+1)*l+cols], x[r*l+t], x[(r+1)*l+t])
+		}
+		if r < nb {
+			subScaled(yt, x[r*l:r*l+cols], x[r*l+t])
+		}
+	}
+}

@@ -70,9 +70,12 @@ func rankUpdate4(y, x []float64, l, nb, cols int) {
 		return
 	}
 	_, _ = y[3*l+cols-1], x[(nb-1)*l+max(cols, 4)-1]
-	if useAVX512 {
+	switch {
+	case useAVX512:
 		rankUpdate4AVX512(&y[0], &x[0], l, nb, cols)
-		return
+	case useAVX:
+		rankUpdate4Rows(y, x, l, nb, cols)
+	default:
+		rankUpdate4Go(y, x, l, nb, cols)
 	}
-	rankUpdate4Go(y, x, l, nb, cols)
 }

@@ -234,8 +234,9 @@ func padBand(a []float64, n, kb int) []float64 {
 // a dominant matrix shifted far down, and ones made indefinite at one
 // pivot on purpose, the last among them (the diagonal entry set to what
 // the rows above take from it, less a little: the pivot LAPACK's
-// factorization finds, 1e-6 of its entry, is then negative). With and
-// without AVX-512, and in pure Go (-tags purego).
+// factorization finds, 1e-6 of its entry, is then negative). With
+// AVX-512, with AVX alone (rankUpdate4Rows) and in Go (also -tags
+// purego).
 func TestBandDefinite(t *testing.T) {
 	rng := rand.New(rand.NewPCG(31, 9))
 	for _, tc := range []struct {
@@ -250,14 +251,14 @@ func TestBandDefinite(t *testing.T) {
 		{60, 9, false, -1, -1e6}, {120, 20, false, 0, 0}, {120, 20, false, 77, 0}, {301, 96, true, 300, 0},
 		{500, 98, true, 499, 0}, {500, 98, false, 250, 0}, {9, 8, false, 8, 0},
 	} {
-		for _, avx := range []bool{true, false} {
-			if avx && !useAVX512 {
+		for _, path := range []struct{ avx512, avx bool }{{true, true}, {false, true}, {false, false}} {
+			if path.avx512 && !useAVX512 || path.avx && !useAVX {
 				continue
 			}
-			name := fmt.Sprintf("%dx%d/fail%d/avx512=%v", tc.n, tc.kb, tc.fail, avx)
+			name := fmt.Sprintf("%dx%d/fail%d/avx512=%v/avx=%v", tc.n, tc.kb, tc.fail, path.avx512, path.avx)
 			t.Run(name, func(t *testing.T) {
-				defer func(was bool) { useAVX512 = was }(useAVX512)
-				useAVX512 = avx
+				defer func(avx512, avx bool) { useAVX512, useAVX = avx512, avx }(useAVX512, useAVX)
+				useAVX512, useAVX = path.avx512, path.avx
 				w := tc.kb + 1
 				a := randomBand(rand.New(rand.NewPCG(uint64(tc.n), uint64(tc.kb))), tc.n, tc.kb, 1.2, tc.shift)
 				if tc.profile {
