@@ -459,10 +459,9 @@ func (b *Buckling) certify(mu float64, axial []float64, sc *certifyScratch) (flo
 const certifyGap = 1e-6
 
 // certifyScratch is the memory of one check of definiteness (definite),
-// kept for the next: a frame's band is megabytes, and fresh memory is
-// slow to touch.
+// kept for the next: fresh memory is slow to touch.
 type certifyScratch struct {
-	data []float64
+	data []float64       // the window of rows of definiteBand
 	g    [][6][6]float64 // each member's condensed stiffness in global axes, in the order of certifyOrder
 }
 
