@@ -124,3 +124,126 @@ func subScaledGo(y, x []float64, a float64) {
 		y[k] -= a * x[k]
 	}
 }
+
+// Blocked band Cholesky factorization, for checks of definiteness only.
+//
+// definiteBlock is the rows factored as one block by bandDefinite, whose
+// outer product then updates the rows below at once; definitePad is how
+// many numbers its band storage adds to each row (definiteStride).
+const (
+	definiteBlock = 8
+	definitePad   = definiteBlock + 3
+)
+
+// definiteStride returns the row stride of the band storage bandDefinite
+// factors for kb superdiagonals: each row's kb + 1 numbers (entry
+// (i, i+j) at a[i·stride+j]), then definiteBlock − 1 zeros, which stand
+// for the entries right of the band, then 4 numbers of scratch.
+func definiteStride(kb int) int { return kb + 1 + definitePad }
+
+// definiteLen returns the length of the band storage bandDefinite
+// factors for n equations and kb superdiagonals: n rows of
+// definiteStride(kb) and 3 of scratch.
+func definiteLen(n, kb int) int { return (n + 3) * definiteStride(kb) }
+
+// bandDefinite reports whether a, a symmetric matrix of n equations and
+// kb superdiagonals in the band storage of definiteStride (its zeros
+// zero, and of definiteLen(n, kb) numbers), is positive definite, by its
+// upper Cholesky factorization, blocked: definiteBlock rows at a time
+// are pivoted and scaled one by one (each row's outer product taken from
+// the block's rows below it, to where it reaches, as bandCholesky), then
+// the block's outer product, of rank definiteBlock, is taken at once
+// from the rows below it that the block reaches, four rows at a time by
+// rankUpdate4. A row's outer product stops at its last entry that is not
+// zero, as in bandCholesky. a is overwritten with the factor (partly
+// when false); its rounding is not bandCholesky's (the sums are taken
+// in another order, with fused multiply-adds where the processor has
+// them), so only the answer is for use.
+func bandDefinite(a []float64, n, kb int) bool {
+	if len(a) != definiteLen(n, kb) {
+		panic("frame: bandDefinite: storage of the wrong length")
+	}
+	for lo := 0; lo < n; lo += definiteBlock {
+		if !definiteStep(a, kb, lo, min(lo+definiteBlock, n), n-1) {
+			return false
+		}
+	}
+	return true
+}
+
+// definiteStep is one step of bandDefinite: rows lo to hi − 1 pivoted
+// and scaled, and their outer product taken from the rows below them;
+// false when a pivot is not positive. Rows and columns are counted from
+// a's first row, last is the matrix's last row so counted, and a holds
+// the rows up to the last the step reaches, hi + kb + 2 (or last + 3).
+func definiteStep(a []float64, kb, lo, hi, last int) bool {
+	ld := definiteStride(kb)
+	// l is the distance between entries (i, c) and (i+1, c): entry
+	// (i, c) is at a[i·l + c].
+	l := ld - 1
+	end := lo // the last column the block's rows reach
+	for r := lo; r < hi; r++ {
+		m := min(kb, last-r)
+		row := a[r*ld : r*ld+m+1]
+		for m > 0 && row[m] == 0 {
+			m--
+		}
+		d := row[0]
+		if !(d > 0) {
+			return false
+		}
+		d = math.Sqrt(d)
+		row[0] = d
+		s := 1 / d
+		for j := 1; j <= m; j++ {
+			row[j] *= s
+		}
+		end = max(end, r+m)
+		for t := r + 1; t < hi && t <= r+m; t++ {
+			if v := row[t-r]; v != 0 {
+				subScaled(a[t*ld:t*ld+r+m-t+1], row[t-r:m+1], v)
+			}
+		}
+	}
+	// Rows hi to end, each from its diagonal to column end, less the
+	// block's outer product, four rows at a time from column t (the
+	// entries left of a row's diagonal that a tile takes are the scratch
+	// at the end of the row above it, and the rows past end only such).
+	// A row of the block that does not reach column c has zeros there,
+	// in its band or in the zeros after it (c − r < kb + definiteBlock).
+	for t := hi; t <= end; t += 4 {
+		rankUpdate4(a[t*l+t:], a[lo*l+t:], l, hi-lo, end-t+1)
+	}
+	return true
+}
+
+// rankUpdate4Go is rankUpdate4 in Go.
+func rankUpdate4Go(y, x []float64, l, nb, cols int) {
+	for c := range cols {
+		s0, s1, s2, s3 := y[c], y[l+c], y[2*l+c], y[3*l+c]
+		for r := range nb {
+			v := x[r*l+c]
+			u := x[r*l : r*l+4]
+			s0 -= u[0] * v
+			s1 -= u[1] * v
+			s2 -= u[2] * v
+			s3 -= u[3] * v
+		}
+		y[c], y[l+c], y[2*l+c], y[3*l+c] = s0, s1, s2, s3
+	}
+}
+
+// rankUpdate4Rows is rankUpdate4 a row of y at a time, two rows of x at a
+// time (subScaled2, as bandCholesky): for processors without AVX-512.
+func rankUpdate4Rows(y, x []float64, l, nb, cols int) {
+	for t := range 4 {
+		yt := y[t*l : t*l+cols]
+		r := 0
+		for ; r+1 < nb; r += 2 {
+			subScaled2(yt, x[r*l:r*l+cols], x[(r+1)*l:(r+1)*l+cols], x[r*l+t], x[(r+1)*l+t])
+		}
+		if r < nb {
+			subScaled(yt, x[r*l:r*l+cols], x[r*l+t])
+		}
+	}
+}

@@ -53,3 +53,29 @@ func lanes1(v, z *float64, n int, a *[4]float64)
 //
 //go:noescape
 func lanes4(dst, z *float64, zstride int, v *float64, n int, d float64)
+
+// rankUpdate4AVX512 is rankUpdate4 for nb ≥ 1 and cols ≥ 1, eight
+// columns at a time with AVX-512, each sum's terms in the order of r by
+// fused multiply-adds, l in numbers.
+//
+//go:noescape
+func rankUpdate4AVX512(y, x *float64, l, nb, cols int)
+
+// rankUpdate4 subtracts from y[t·l + c], t < 4 and c < cols, the sum over
+// r < nb of x[r·l + t]·x[r·l + c]: four rows of a band matrix (entry
+// (i, c) at i·l + c) less the outer product of nb rows above them, x
+// from the column of y's first row.
+func rankUpdate4(y, x []float64, l, nb, cols int) {
+	if cols <= 0 || nb <= 0 {
+		return
+	}
+	_, _ = y[3*l+cols-1], x[(nb-1)*l+max(cols, 4)-1]
+	switch {
+	case useAVX512:
+		rankUpdate4AVX512(&y[0], &x[0], l, nb, cols)
+	case useAVX:
+		rankUpdate4Rows(y, x, l, nb, cols)
+	default:
+		rankUpdate4Go(y, x, l, nb, cols)
+	}
+}

@@ -38,6 +38,12 @@ type Buckling struct {
 	sol   *Solution // the numbering, for the check of a factor found
 	lt    []float64 // u by columns (transposeBand)
 	first []int32   // firstRows of u
+	last  []int32   // lastCols of u
+
+	// The checks of definiteness (certifyOrder).
+	firstEq, placeOf []int32
+	gdofs            [][6]int32
+	springs          []float64
 }
 
 // NewBuckling factors the elastic stiffness of mo for [Buckling.Factor].
@@ -83,7 +89,9 @@ func NewBuckling(mo *Model) (*Buckling, error) {
 	}
 	b.u = data
 	b.first = firstRows(b.u, n, b.kb)
+	b.last = lastCols(b.u, n, b.kb)
 	b.lt = transposeBand(b.u, n, b.kb)
+	b.certifyOrder()
 	return b, nil
 }
 
@@ -451,10 +459,10 @@ func (b *Buckling) certify(mu float64, axial []float64, sc *certifyScratch) (flo
 const certifyGap = 1e-6
 
 // certifyScratch is the memory of one check of definiteness (definite),
-// kept for the next: a frame's band is megabytes, and fresh memory is
-// slow to touch.
+// kept for the next: fresh memory is slow to touch.
 type certifyScratch struct {
-	data []float64
+	data []float64       // the window of rows of definiteBand
+	g    [][6][6]float64 // each member's condensed stiffness in global axes, in the order of certifyOrder
 }
 
 // definite reports whether K + λ·Kg of axial is positive definite; sc,
@@ -471,12 +479,7 @@ func (b *Buckling) definite(lambda float64, axial []float64, sc *certifyScratch)
 		}
 		return true
 	}
-	if len(sc.data) != b.n*(b.kb+1) {
-		sc.data = make([]float64, b.n*(b.kb+1))
-	}
-	clear(sc.data) // fresh memory too: written before it is read (see Solution.rhs)
-	data := sc.data
-	return b.assembleAt(data, lambda, axial) && bandCholesky(data, b.n, b.kb)
+	return b.definiteBand(lambda, axial, sc)
 }
 
 // lanczos returns, for each set of axial forces, the largest eigenvalue μ

@@ -45,10 +45,31 @@ func firstRows(u []float64, n, kb int) []int32 {
 	return first
 }
 
+// lastCols returns, for each row i of the upper band factor u (n
+// equations, kb superdiagonals), how many entries right of the diagonal
+// reach its last one that is not zero: the back substitution of row i
+// reads no row below that.
+func lastCols(u []float64, n, kb int) []int32 {
+	w := kb + 1
+	last := make([]int32, n)
+	for i := range n {
+		m := min(kb, n-1-i)
+		for m > 0 && u[i*w+m] == 0 {
+			m--
+		}
+		last[i] = int32(m)
+	}
+	return last
+}
+
 // bandSolveLanes overwrites the k columns of x (n rows, row-major) with
 // U⁻¹ U⁻ᵀ x, u an upper band Cholesky factor (row-major, kb
-// superdiagonals), lt its transposeBand and first its firstRows.
-func bandSolveLanes(u, lt []float64, n, kb int, x []float64, k int, first []int32) {
+// superdiagonals), lt its transposeBand, first its firstRows and last
+// its lastCols. The terms left out, before first and after last, are
+// the factor's zeros: their products, ±0, would leave each partial sum
+// as it is (a partial sum starts at +0 and is never −0), so the numbers
+// are those of the whole band.
+func bandSolveLanes(u, lt []float64, n, kb int, x []float64, k int, first, last []int32) {
 	w := kb + 1
 	for i := range n {
 		lo := int(first[i])
@@ -56,7 +77,7 @@ func bandSolveLanes(u, lt []float64, n, kb int, x []float64, k int, first []int3
 		rowLanes(x, i*k, lo*k, k, v, 1/u[i*w])
 	}
 	for i := n - 1; i >= 0; i-- {
-		m := min(kb, n-1-i)
+		m := int(last[i])
 		rowLanes(x, i*k, (i+1)*k, k, u[i*w+1:i*w+1+m], 1/u[i*w])
 	}
 }

@@ -25,7 +25,7 @@ func (b *Buckling) solveK(x []float64, k int) {
 		}
 	}
 	if b.n > 0 {
-		bandSolveLanes(b.u, b.lt, b.n, b.kb, x[:b.n*k], k, b.first)
+		bandSolveLanes(b.u, b.lt, b.n, b.kb, x[:b.n*k], k, b.first, b.last)
 	}
 	for m := range b.mems {
 		p := &b.mems[m]

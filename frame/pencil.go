@@ -257,17 +257,25 @@ func (p *pencil) condensedAt(n float64) (k [6][6]float64, ok bool) {
 	}
 	// y[j] = L⁻¹ (column j of the own rows), then the node block less
 	// Σ y[i][q] y[j][q].
+	// Row i of all six columns at once: each y[j][i] by the same
+	// operations in the same order as column by column, the six
+	// divisions independent of each other.
 	var y [6][maxOwn]float64
-	for j := range 6 {
-		yj := &y[j]
-		for i := range ni {
-			li := &l[i]
-			s := on[i][j]
-			for q := range i {
-				s -= li[q] * yj[q]
-			}
-			yj[i] = s / li[i]
+	for i := range ni {
+		li := &l[i]
+		d := li[i]
+		s := on[i]
+		for q := range i {
+			v := li[q]
+			s[0] -= v * y[0][q]
+			s[1] -= v * y[1][q]
+			s[2] -= v * y[2][q]
+			s[3] -= v * y[3][q]
+			s[4] -= v * y[4][q]
+			s[5] -= v * y[5][q]
 		}
+		y[0][i], y[1][i], y[2][i] = s[0]/d, s[1]/d, s[2]/d
+		y[3][i], y[4][i], y[5][i] = s[3]/d, s[4]/d, s[5]/d
 	}
 	for i := range 6 {
 		yi := &y[i]

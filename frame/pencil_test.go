@@ -73,3 +73,24 @@ func (p *pencil) condensedAtSchur(n float64) (k [6][6]float64, ok bool) {
 	}
 	return k, true
 }
+
+// BenchmarkCondensedAt measures condensedAt for every member of a random
+// 30 × 60 frame at its axial force, once each, as the check of a factor
+// takes them.
+func BenchmarkCondensedAt(b *testing.B) {
+	mo, axial := randomFrame(rand.New(rand.NewPCG(18, 1)), 30, 60)
+	bk, err := NewBuckling(mo)
+	if err != nil {
+		b.Fatal(err)
+	}
+	b.Run("30x60", func(b *testing.B) {
+		b.ReportAllocs()
+		for b.Loop() {
+			for m := range bk.mems {
+				if _, ok := bk.mems[m].condensedAt(axial[m]); !ok {
+					b.Fatal("own block not positive definite")
+				}
+			}
+		}
+	})
+}
