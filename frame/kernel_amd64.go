@@ -17,6 +17,29 @@ func combine32(dst, base *float64, rows *int32, negs *float64, n int, d float64)
 //go:noescape
 func combine64(dst, base *float64, rows *int32, negs *float64, n int, d float64)
 
+// combine32c is combine32 for rows read that follow each other, from
+// src on (src+32·t for the t-th): the same products and sums in the same
+// order, without a list of the rows to read.
+//
+//go:noescape
+func combine32c(dst, src *float64, negs *float64, n int, d float64)
+
+// combine64c is combine64 for rows read that follow each other, as
+// combine32c is combine32's.
+//
+//go:noescape
+func combine64c(dst, src *float64, negs *float64, n int, d float64)
+
+// combine64x2 adds to two rows of a block of 64 columns the terms of the
+// same rows read, which follow each other from src on:
+// dst0[c] += Σ negs0[t]·src[64·t+c] and dst1[c] += Σ negs1[t]·src[64·t+c]
+// for c from 0 to 63, each product rounded and then added, in the order
+// of t, as combine64c adds them (without its last product by d): each
+// value read serves both rows.
+//
+//go:noescape
+func combine64x2(dst0, dst1, src, negs0, negs1 *float64, n int)
+
 // unpack32 sets dst[c] = src[c]·s for c from 0 to 31 and returns the
 // sum of every dst[c] − dst[c]: 0 when all are finite numbers, NaN when
 // some is not (see unpackRow).

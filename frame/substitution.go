@@ -346,10 +346,21 @@ func substitute(fwd, bwd *terms, u []float64, n, kb int, x []float64, bw int, of
 	}
 	// Forward: Uᵀ y = x, y[i] = (x[i] − Σ U[k][i] y[k]) / U[i][i] over the
 	// rows k from max(start, i − kb) up: rows above start are zero.
+	pairs := useAVX && useAVX512 && bw == wideBlock
 	for i := start; i < n; i++ {
 		a, b := fwd.at[i], fwd.at[i+1]
 		for a < b && int(fwd.rows[a]) < start {
 			a++
+		}
+		if pairs && i+1 < n {
+			a1, b1 := fwd.at[i+1], fwd.at[i+2]
+			for a1 < b1 && int(fwd.rows[a1]) < start {
+				a1++
+			}
+			if combinePair(x, i, fwd, a, b, a1, b1, 1/u[i*w], 1/u[(i+1)*w]) {
+				i++
+				continue
+			}
 		}
 		combineRow(x, i, bw, fwd.rows[a:b], fwd.negs[a:b], 1/u[i*w], offs)
 	}
@@ -382,19 +393,75 @@ func substitute(fwd, bwd *terms, u []float64, n, kb int, x []float64, bw int, of
 	return nonFinite == 0
 }
 
+// pairMin is the fewest rows two rows of the forward substitution must
+// read in common for combinePair to form them together.
+const pairMin = 8
+
+// combinePair forms rows i and i + 1 of the forward substitution of the
+// packed block x (rows of wideBlock, with AVX-512), their terms fwd's
+// [a, b) and [a1, b1) and their factors d0 and d1, where each reads rows
+// that follow each other, up to i − 1 and up to i, and the two read at
+// least pairMin rows in common; it reports whether it did. Each row's
+// sum takes the same terms in the same order as combineRow's: first the
+// rows that one of the two reads alone (combine64c, the sum kept as it
+// is: times 1), then the rows both read (combine64x2: each value read
+// once for both rows, where the rows read, some hundred kilobytes, are
+// in the second-level cache), then row i's factor, and row i + 1's term
+// of row i and its factor. A sum left in memory between the steps is the
+// same float64.
+func combinePair(x []float64, i int, fwd *terms, a, b, a1, b1 int, d0, d1 float64) bool {
+	const bw = wideBlock
+	if b-a < pairMin || b1-a1 < pairMin+1 {
+		return false
+	}
+	f0, f1 := int(fwd.rows[a]), int(fwd.rows[a1])
+	if int(fwd.rows[b-1]) != i-1 || i-1-f0 != b-a-1 || int(fwd.rows[b1-1]) != i || i-f1 != b1-a1-1 {
+		return false
+	}
+	s := max(f0, f1) // the first row both read
+	if i-s < pairMin {
+		return false
+	}
+	_ = x[(i+1)*bw+bw-1]
+	negs0, negs1 := fwd.negs[a:b], fwd.negs[a1:b1]
+	if f0 < s {
+		combine64c(&x[i*bw], &x[f0*bw], &negs0[0], s-f0, 1)
+	}
+	if f1 < s {
+		combine64c(&x[(i+1)*bw], &x[f1*bw], &negs1[0], s-f1, 1)
+	}
+	combine64x2(&x[i*bw], &x[(i+1)*bw], &x[s*bw], &negs0[s-f0], &negs1[s-f1], i-s)
+	combine64c(&x[i*bw], &x[i*bw], &negs0[0], 0, d0)
+	combine64c(&x[(i+1)*bw], &x[i*bw], &negs1[len(negs1)-1], 1, d1)
+	return true
+}
+
 // combineRow forms row i of the packed block x (rows of bw) from the rows
 // it reads and minus their factors (see combine): by combine32 for a
 // whole block where the processor has AVX, by combine64 for a wide one
-// where it has AVX-512. offs is scratch.
+// where it has AVX-512, and by combine32c and combine64c where the rows
+// read follow each other (nearly every row of a frame's factor: its
+// profile is full), which then take neither the list of rows nor its
+// loads' wait. offs is scratch.
 func combineRow(x []float64, i, bw int, rows []int32, negs []float64, d float64, offs []int) {
 	if useAVX && (bw == solveBlock || bw == wideBlock) && len(rows) > 0 {
 		// Every row read lies within x.
+		first, last := int(rows[0]), int(rows[len(rows)-1])
 		_ = x[i*bw+bw-1]
-		_ = x[int(rows[len(rows)-1])*bw+bw-1]
+		_ = x[last*bw+bw-1]
 		_ = negs[len(rows)-1]
+		// Rows read that follow each other (ascending, so the first and
+		// the last tell) are read in turn, not through the list.
+		next := last-first == len(rows)-1
 		switch {
+		case bw == solveBlock && next:
+			combine32c(&x[i*bw], &x[first*bw], &negs[0], len(rows), d)
+			return
 		case bw == solveBlock:
 			combine32(&x[i*bw], &x[0], &rows[0], &negs[0], len(rows), d)
+			return
+		case useAVX512 && next:
+			combine64c(&x[i*bw], &x[first*bw], &negs[0], len(rows), d)
 			return
 		case useAVX512:
 			combine64(&x[i*bw], &x[0], &rows[0], &negs[0], len(rows), d)

@@ -5,6 +5,7 @@ import (
 	"math"
 	"math/rand/v2"
 	"runtime"
+	"slices"
 	"sync"
 	"testing"
 
@@ -311,4 +312,110 @@ func factorPieces(t *testing.T, mo *Model) (sol *Solution, u blas64.TriangularBa
 		t.Fatal("not positive definite")
 	}
 	return sol, u, n, kb
+}
+
+// The kernels that read rows following each other (combine32c,
+// combine64c) and the one that forms two rows of the forward substitution
+// together (combinePair, by combine64x2) give the pure-Go row sums of
+// combine to the last bit (the same products added in the same order):
+// rows of random numbers, two rows reading 40 and 33 rows, 44 and 40
+// (either one reading rows alone first), and pairs combinePair must
+// refuse (too few rows in common, or a row not read in between).
+func TestContiguousKernelsAreTheRowSums(t *testing.T) {
+	if !hasAVX512() {
+		t.Skip("no AVX-512 here")
+	}
+	defer func(v, w bool) { useAVX, useAVX512 = v, w }(useAVX, useAVX512)
+	useAVX, useAVX512 = true, true
+	rng := rand.New(rand.NewPCG(5, 0))
+	const rows = 64
+	random := func(bw int) []float64 {
+		x := make([]float64, rows*bw)
+		for i := range x {
+			x[i] = rng.NormFloat64()
+		}
+		return x
+	}
+	// reference forms row i from rows first up to last − 1 by combine.
+	reference := func(x []float64, bw, i, first, last int, negs []float64, d float64) {
+		var offs []int
+		for k := first; k < last; k++ {
+			offs = append(offs, k*bw)
+		}
+		combine(x, i*bw, 0, bw, offs, negs, d)
+	}
+	same := func(t *testing.T, got, want []float64) {
+		t.Helper()
+		for k := range got {
+			if math.Float64bits(got[k]) != math.Float64bits(want[k]) {
+				t.Fatalf("value %d (row %d): %v, combine %v", k, k/wideBlock, got[k], want[k])
+			}
+		}
+	}
+	for _, bw := range []int{solveBlock, wideBlock} {
+		t.Run(fmt.Sprintf("combine%dc", bw), func(t *testing.T) {
+			x := random(bw)
+			negs := make([]float64, 30)
+			for k := range negs {
+				negs[k] = rng.NormFloat64()
+			}
+			want := slices.Clone(x)
+			reference(want, bw, 50, 10, 40, negs, 0.75)
+			if bw == solveBlock {
+				combine32c(&x[50*bw], &x[10*bw], &negs[0], 30, 0.75)
+			} else {
+				combine64c(&x[50*bw], &x[10*bw], &negs[0], 30, 0.75)
+			}
+			same(t, x, want)
+		})
+	}
+	for _, tc := range []struct {
+		name      string
+		i, f0, f1 int
+		paired    bool
+	}{{"row i reads more", 45, 5, 12, true}, {"row i+1 reads more", 50, 6, 3, true},
+		{"as many", 40, 20, 20, true}, {"few in common", 40, 20, 33, false}} {
+		t.Run("combinePair/"+tc.name, func(t *testing.T) {
+			x := random(wideBlock)
+			i, f0, f1 := tc.i, tc.f0, tc.f1
+			fwd := &terms{at: []int{0, i - f0, i - f0 + i + 1 - f1}}
+			for k := f0; k < i; k++ {
+				fwd.rows, fwd.negs = append(fwd.rows, int32(k)), append(fwd.negs, rng.NormFloat64())
+			}
+			for k := f1; k <= i; k++ {
+				fwd.rows, fwd.negs = append(fwd.rows, int32(k)), append(fwd.negs, rng.NormFloat64())
+			}
+			want := slices.Clone(x)
+			reference(want, wideBlock, i, f0, i, fwd.negs[:i-f0], 0.5)
+			reference(want, wideBlock, i+1, f1, i+1, fwd.negs[i-f0:], 0.25)
+			got := slices.Clone(x)
+			if ok := combinePair(got, i, fwd, 0, fwd.at[1], fwd.at[1], fwd.at[2], 0.5, 0.25); ok != tc.paired {
+				t.Fatalf("combinePair did it: %v, want %v", ok, tc.paired)
+			}
+			if !tc.paired {
+				same(t, got, x) // untouched
+				return
+			}
+			same(t, got, want)
+		})
+	}
+	t.Run("combinePair/a row not read", func(t *testing.T) {
+		// Row i + 1 skips row i − 3 (a zero factor): not paired.
+		x := random(wideBlock)
+		i := 40
+		fwd := &terms{}
+		for k := 10; k < i; k++ {
+			fwd.rows, fwd.negs = append(fwd.rows, int32(k)), append(fwd.negs, 1)
+		}
+		n0 := len(fwd.rows)
+		for k := 10; k <= i; k++ {
+			if k != i-3 {
+				fwd.rows, fwd.negs = append(fwd.rows, int32(k)), append(fwd.negs, 1)
+			}
+		}
+		fwd.at = []int{0, n0, len(fwd.rows)}
+		if combinePair(x, i, fwd, 0, n0, n0, len(fwd.rows), 1, 1) {
+			t.Fatal("paired rows that do not read rows following each other")
+		}
+	})
 }
