@@ -168,6 +168,22 @@ func (pl *exactPlacement) extremes(e *evaluator, w *work) [3]Extreme {
 		return out
 	}
 	for k := range e.cs {
+		if e.flat != nil && (e.joined == nil || e.joined[k].n == 0) {
+			// No joined group: the largest and the smallest at once.
+			ts := e.flat[k]
+			for j := range e.nEff {
+				h, l := pl.combineBoth(w, ts, j)
+				if h > out[j].Max {
+					hi := pl.combine(e, w, k, j, true)
+					out[j].Max, out[j].MaxBy, out[j].MaxWith = hi[j], k, hi
+				}
+				if l < out[j].Min {
+					lo := pl.combine(e, w, k, j, false)
+					out[j].Min, out[j].MinBy, out[j].MinWith = lo[j], k, lo
+				}
+			}
+			continue
+		}
 		for j := range e.nEff {
 			if pl.combineOne(e, w, k, j, true) > out[j].Max {
 				hi := pl.combine(e, w, k, j, true)
@@ -180,6 +196,35 @@ func (pl *exactPlacement) extremes(e *evaluator, w *work) [3]Extreme {
 		}
 	}
 	return out
+}
+
+// combineBoth is combineOne for the largest (hi) and the smallest (lo)
+// at once, for a combination without joined groups (its terms ts): each
+// the same terms added in the same order, the product of each term formed
+// once for both (combineOne forms the same product twice), so the same
+// numbers to the last bit.
+func (pl *exactPlacement) combineBoth(w *work, ts []flatTerm, j int) (hi, lo float64) {
+	for _, t := range ts {
+		a := t.f * w.ev[t.c][j]
+		if t.always || a > 0 {
+			hi += a
+		}
+		if t.always || a < 0 {
+			lo += a
+		}
+		if t.p < 0 {
+			continue
+		}
+		s := &pl.sum[t.p][j]
+		if t.f >= 0 {
+			hi += t.f * s[0][j]
+			lo += t.f * s[1][j]
+		} else {
+			hi += t.f * s[1][j]
+			lo += t.f * s[0][j]
+		}
+	}
+	return hi, lo
 }
 
 // combineOne is combine's effect j alone: the same terms added in the

@@ -94,3 +94,12 @@ func hasAVX() bool {
 // numbers would no longer be those of the pure-Go loops, nor those of
 // frame's stations.
 var useAVX = hasAVX() && !goFuses
+
+// largestFirstAVX is largestFirst's pass over cnt units that do not load
+// the member (ends, n, v and a from the first of them), with AVX: it sets
+// n, v and a, and raises big (see bigConsts) as largestFirst's plain
+// comparisons raise its sizes, NaN left out (VMAXPD keeps the running
+// largest unless the new size is larger).
+//
+//go:noescape
+func largestFirstAVX(ends *[6]float64, n, v, a *float64, cnt int, c *bigConsts, big *[4]float64)

@@ -440,3 +440,56 @@ lsome:
 	MOVBQZX 256(R11)(BX*1), BX
 	ADDQ BX, R10
 	JMP lnext
+
+// func largestFirstAVX(ends *[6]float64, n, v, a *float64, cnt int, c *bigConsts, big *[4]float64)
+//
+// c: the signs to flip (of g[0] and g[2]) at 0, the mask of a size (lanes
+// 0 to 2; lane 3 cleared) at 32, the member's length l at 64. big: the
+// largest sizes of N, V and M so far in lanes 0 to 2, and in lane 3 that
+// of M again, which the sizes of M at the member's end raise.
+TEXT ·largestFirstAVX(SB), NOSPLIT, $0-56
+	MOVQ ends+0(FP), SI
+	MOVQ n+8(FP), R8
+	MOVQ v+16(FP), R9
+	MOVQ a+24(FP), R10
+	MOVQ cnt+32(FP), CX
+	MOVQ c+40(FP), AX
+	MOVQ big+48(FP), BX
+	VMOVUPD 0(AX), Y8
+	VMOVUPD 32(AX), Y9
+	VMOVSD 64(AX), X10
+	VMOVUPD 0(BX), Y6
+	VMOVSD 24(BX), X7
+	XORQ R12, R12
+	TESTQ CX, CX
+	JEQ bdone
+
+bloop:
+	// (x, y, z) = (−g[0], g[1], −g[2]), and g[3] in lane 3.
+	VMOVUPD 0(SI), Y1
+	VXORPD Y8, Y1, Y1
+	VMOVSD X1, (R8)(R12*8)
+	VMOVHPD X1, (R9)(R12*8)
+	VEXTRACTF128 $1, Y1, X2
+	VMOVSD X2, (R10)(R12*8)
+	// Their sizes (lane 3 cleared: +0), the largest kept: VMAXPD gives
+	// its second source, the running largest, unless the size is larger
+	// (a NaN left out).
+	VANDPD Y9, Y1, Y3
+	VMAXPD Y6, Y3, Y6
+	// M at the end: z + l·y, the product rounded, then added.
+	VPERMILPD $1, X1, X4
+	VMULSD X10, X4, X4
+	VADDSD X4, X2, X4
+	VANDPD X9, X4, X4
+	VMAXSD X7, X4, X7
+	ADDQ $48, SI
+	INCQ R12
+	CMPQ R12, CX
+	JNE bloop
+
+bdone:
+	VMOVUPD Y6, 0(BX)
+	VMOVSD X7, 24(BX)
+	VZEROUPPER
+	RET

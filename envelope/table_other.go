@@ -24,3 +24,7 @@ func firstSignsAVX(rows *[4]*float64, a, v, n *float64, nu int, c *firstConsts, 
 func foldSignsAVX(x *[2]*float64, n, v, a *float64, nu int, c *foldConsts, out *[11][2]float64) {
 	panic("envelope: foldSignsAVX without AVX")
 }
+
+func largestFirstAVX(ends *[6]float64, n, v, a *float64, cnt int, c *bigConsts, big *[4]float64) {
+	panic("envelope: largestFirstAVX without AVX")
+}
