@@ -493,3 +493,126 @@ bdone:
 	VMOVSD X7, 24(BX)
 	VZEROUPPER
 	RET
+
+// func classify3AVX(units *[3]float64, nu int, c *class3Consts, l0, l1, l2 *int32, out *class3Out) (k0, k1, k2 int)
+//
+// One unit at a time, its three components in lanes 0 to 2 (lane 3 +0):
+// for each effect j the sums of the components of the units whose effect
+// j is positive (lane q: component q), each a chain of its own in the
+// order of the units. c: nz at 0, −nz at 32, the thresholds of the
+// positive units at 64 and the negated ones of the negative units at 96,
+// ones at 128, a lane per effect (lane 3: 0, 0, +Inf, −Inf, 0).
+TEXT ·classify3AVX(SB), NOSPLIT, $0-80
+	MOVQ units+0(FP), SI
+	MOVQ nu+8(FP), CX
+	MOVQ c+16(FP), AX
+	MOVQ l0+24(FP), R8
+	MOVQ l1+32(FP), R9
+	MOVQ l2+40(FP), R10
+	VXORPD Y0, Y0, Y0
+	VXORPD Y1, Y1, Y1
+	VXORPD Y2, Y2, Y2
+	VXORPD Y3, Y3, Y3
+	VXORPD Y4, Y4, Y4
+	VXORPD Y5, Y5, Y5
+	VXORPD Y6, Y6, Y6
+	VXORPD Y7, Y7, Y7
+	VXORPD Y8, Y8, Y8
+	XORQ DI, DI
+	XORQ R11, R11
+	XORQ R12, R12
+	XORQ R13, R13
+	TESTQ CX, CX
+	JEQ cdone
+
+cloop:
+	// The unit's components, lane 3 +0; their sums.
+	VMOVUPD (SI), X9
+	VMOVSD 16(SI), X12
+	VINSERTF128 $1, X12, Y9, Y9
+	VADDPD Y9, Y3, Y3
+	// P: positive past the round-off; N: negative past it (false for
+	// NaN).
+	VCMPPD $0x1e, 0(AX), Y9, Y10
+	VCMPPD $0x11, 32(AX), Y9, Y11
+	// Listed for effect j: P and at least its threshold, or N and at
+	// most its negated threshold.
+	VCMPPD $0x1d, 64(AX), Y9, Y12
+	VANDPD Y10, Y12, Y12
+	VCMPPD $0x12, 96(AX), Y9, Y13
+	VANDPD Y11, Y13, Y13
+	VORPD Y12, Y13, Y12
+	VMOVMSKPD Y12, DX
+	MOVL DI, (R8)(R11*4)
+	MOVL DI, (R9)(R12*4)
+	MOVL DI, (R10)(R13*4)
+	BTL $0, DX
+	ADCQ $0, R11
+	BTL $1, DX
+	ADCQ $0, R12
+	BTL $2, DX
+	ADCQ $0, R13
+	// The counts.
+	VANDPD 128(AX), Y10, Y13
+	VADDPD Y13, Y4, Y4
+	VANDPD 128(AX), Y11, Y13
+	VADDPD Y13, Y5, Y5
+	// Effect j's P in every lane, the unit's components where it holds
+	// (+0 elsewhere) to effect j's sums.
+	VPERMILPD $0, Y10, Y12
+	VPERM2F128 $0x00, Y12, Y12, Y13
+	VANDPD Y9, Y13, Y13
+	VADDPD Y13, Y0, Y0
+	VPERM2F128 $0x11, Y12, Y12, Y13
+	VANDPD Y9, Y13, Y13
+	VADDPD Y13, Y2, Y2
+	VPERMILPD $0xf, Y10, Y12
+	VPERM2F128 $0x00, Y12, Y12, Y13
+	VANDPD Y9, Y13, Y13
+	VADDPD Y13, Y1, Y1
+	// Round-off for some effect (neither P nor N): its sums, rare.
+	VORPD Y10, Y11, Y12
+	VMOVMSKPD Y12, DX
+	ANDL $7, DX
+	CMPL DX, $7
+	JNE czero
+
+cnext:
+	ADDQ $24, SI
+	INCQ DI
+	CMPQ DI, CX
+	JNE cloop
+
+cdone:
+	MOVQ out+48(FP), BX
+	VMOVUPD Y0, 0(BX)
+	VMOVUPD Y1, 32(BX)
+	VMOVUPD Y2, 64(BX)
+	VMOVUPD Y3, 96(BX)
+	VMOVUPD Y4, 128(BX)
+	VMOVUPD Y5, 160(BX)
+	VMOVUPD Y6, 192(BX)
+	VMOVUPD Y7, 224(BX)
+	VMOVUPD Y8, 256(BX)
+	MOVQ R11, k0+56(FP)
+	MOVQ R12, k1+64(FP)
+	MOVQ R13, k2+72(FP)
+	VZEROUPPER
+	RET
+
+czero:
+	// Effect j's round-off flag (not P|N) in every lane: the unit's
+	// components where it holds (+0 elsewhere) to effect j's round-off
+	// sums.
+	VPERMILPD $0, Y12, Y13
+	VPERM2F128 $0x00, Y13, Y13, Y14
+	VANDNPD Y9, Y14, Y14
+	VADDPD Y14, Y6, Y6
+	VPERM2F128 $0x11, Y13, Y13, Y14
+	VANDNPD Y9, Y14, Y14
+	VADDPD Y14, Y8, Y8
+	VPERMILPD $0xf, Y12, Y13
+	VPERM2F128 $0x00, Y13, Y13, Y14
+	VANDNPD Y9, Y14, Y14
+	VADDPD Y14, Y7, Y7
+	JMP cnext

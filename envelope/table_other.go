@@ -28,3 +28,7 @@ func foldSignsAVX(x *[2]*float64, n, v, a *float64, nu int, c *foldConsts, out *
 func largestFirstAVX(ends *[6]float64, n, v, a *float64, cnt int, c *bigConsts, big *[4]float64) {
 	panic("envelope: largestFirstAVX without AVX")
 }
+
+func classify3AVX(units *[3]float64, nu int, c *class3Consts, l0, l1, l2 *int32, out *class3Out) (k0, k1, k2 int) {
+	panic("envelope: classify3AVX without AVX")
+}
