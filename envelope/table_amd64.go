@@ -115,3 +115,12 @@ func largestFirstAVX(ends *[6]float64, n, v, a *float64, cnt int, c *bigConsts, 
 //
 //go:noescape
 func classify3AVX(units *[3]float64, nu int, c *class3Consts, l0, l1, l2 *int32, out *class3Out) (k0, k1, k2 int)
+
+// largestSignsAVX is the pass of largestSizes over a patterned case's
+// units with AVX, a unit's three components in three lanes of one
+// register: out[0] the largest value of each component, out[1] the
+// smallest, each of them and +0, NaN left out, and out[2] a lane of all
+// ones for a component with some NaN.
+//
+//go:noescape
+func largestSignsAVX(units *[3]float64, nu int, out *[3][4]float64)

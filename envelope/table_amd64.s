@@ -616,3 +616,39 @@ czero:
 	VANDNPD Y9, Y14, Y14
 	VADDPD Y14, Y7, Y7
 	JMP cnext
+
+// func largestSignsAVX(units *[3]float64, nu int, out *[3][4]float64)
+//
+// One unit at a time, its three components in lanes 0 to 2 (lane 3 +0):
+// out[0] the largest of +0 and the units' values (VMAXPD gives its second
+// source, the running largest, unless the value is larger: a NaN or −0
+// left out), out[1] the smallest of +0 and them (VMINPD, likewise), out[2]
+// all ones in a lane where some value is a NaN.
+TEXT ·largestSignsAVX(SB), NOSPLIT, $0-24
+	MOVQ units+0(FP), SI
+	MOVQ nu+8(FP), CX
+	MOVQ out+16(FP), BX
+	VXORPD Y0, Y0, Y0
+	VXORPD Y1, Y1, Y1
+	VXORPD Y2, Y2, Y2
+	TESTQ CX, CX
+	JEQ gdone
+
+gloop:
+	VMOVUPD (SI), X9
+	VMOVSD 16(SI), X12
+	VINSERTF128 $1, X12, Y9, Y9
+	VMAXPD Y0, Y9, Y0
+	VMINPD Y1, Y9, Y1
+	VCMPPD $3, Y9, Y9, Y10
+	VORPD Y10, Y2, Y2
+	ADDQ $24, SI
+	DECQ CX
+	JNE gloop
+
+gdone:
+	VMOVUPD Y0, 0(BX)
+	VMOVUPD Y1, 32(BX)
+	VMOVUPD Y2, 64(BX)
+	VZEROUPPER
+	RET

@@ -32,3 +32,7 @@ func largestFirstAVX(ends *[6]float64, n, v, a *float64, cnt int, c *bigConsts, 
 func classify3AVX(units *[3]float64, nu int, c *class3Consts, l0, l1, l2 *int32, out *class3Out) (k0, k1, k2 int) {
 	panic("envelope: classify3AVX without AVX")
 }
+
+func largestSignsAVX(units *[3]float64, nu int, out *[3][4]float64) {
+	panic("envelope: largestSignsAVX without AVX")
+}

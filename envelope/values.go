@@ -231,6 +231,13 @@ func largestSizes(e *evaluator, w *work, pl *exactPlacement) (b0, b1, b2 uint64)
 	}
 	for p, pc := range e.lay.Patterned {
 		var p0, p1, p2, n0, n1, n2 uint64
+		if units := w.ev[e.first[p] : e.first[p]+len(pc.Units)]; useAVX && len(units) > 0 {
+			p0, p1, p2, n0, n1, n2 = largestSigns(units)
+			b0, b1, b2 = max(b0, p0, n0), max(b1, p1, n1), max(b2, p2, n2)
+			pl.big[p] = [3][2]float64{{math.Float64frombits(p0), math.Float64frombits(n0)},
+				{math.Float64frombits(p1), math.Float64frombits(n1)}, {math.Float64frombits(p2), math.Float64frombits(n2)}}
+			continue
+		}
 		for _, v := range w.ev[e.first[p] : e.first[p]+len(pc.Units)] {
 			x0, x1, x2 := math.Float64bits(v[0]), math.Float64bits(v[1]), math.Float64bits(v[2])
 			// All ones for a negative number.
@@ -247,6 +254,25 @@ func largestSizes(e *evaluator, w *work, pl *exactPlacement) (b0, b1, b2 uint64)
 	return b0, b1, b2
 }
 
+// largestSigns returns, as bits, the largest positive value of each
+// component of units (+0 for none) and the largest size of a negative one
+// (+0 for none), as largestSizes forms them with AVX (largestSignsAVX): a
+// component with a NaN gives a NaN for both, as the bits of a NaN of
+// either sign give one there (largestSizes then reports a size past
+// every number, and valueOfRow takes valueOf's path). len(units) > 0.
+func largestSigns(units [][3]float64) (p0, p1, p2, n0, n1, n2 uint64) {
+	var out [3][4]float64
+	largestSignsAVX(&units[0], len(units), &out)
+	var pos, neg [3]uint64
+	for q := range 3 {
+		pos[q], neg[q] = math.Float64bits(out[0][q]), math.Float64bits(0-out[1][q])
+		if math.Float64bits(out[2][q]) != 0 {
+			pos[q], neg[q] = math.Float64bits(math.NaN()), math.Float64bits(math.NaN())
+		}
+	}
+	return pos[0], pos[1], pos[2], neg[0], neg[1], neg[2]
+}
+
 // largestSizes1 is largestSizes for the first component alone, the others
 // zero: their sizes in pl.big are zero.
 func largestSizes1(e *evaluator, w *work, pl *exactPlacement) (b0 uint64) {
@@ -255,6 +281,13 @@ func largestSizes1(e *evaluator, w *work, pl *exactPlacement) (b0 uint64) {
 	}
 	for p, pc := range e.lay.Patterned {
 		var p0, n0 uint64
+		if units := w.ev[e.first[p] : e.first[p]+len(pc.Units)]; useAVX && len(units) > 0 {
+			// The other components are zero: their sizes too.
+			p0, _, _, n0, _, _ = largestSigns(units)
+			b0 = max(b0, p0, n0)
+			pl.big[p] = [3][2]float64{{math.Float64frombits(p0), math.Float64frombits(n0)}}
+			continue
+		}
 		for _, v := range w.ev[e.first[p] : e.first[p]+len(pc.Units)] {
 			x0 := math.Float64bits(v[0])
 			m0 := uint64(int64(x0) >> 63) // all ones for a negative number

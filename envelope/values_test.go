@@ -450,3 +450,70 @@ func TestClassify3(t *testing.T) {
 		}
 	}
 }
+
+// TestLargestSigns checks the largest positive value and the largest size
+// of a negative one of each component of a row's units, with AVX
+// (largestSigns), against the definition value by value: +0 for none (a
+// zero of either sign counts as neither), infinities as they are, and a
+// NaN for both where some value of the component is a NaN.
+func TestLargestSigns(t *testing.T) {
+	if !hasAVXHere() {
+		t.Skip("no AVX")
+	}
+	rng := rand.New(rand.NewPCG(11, 3))
+	for trial := range 300 {
+		nu := 1 + rng.IntN(40)
+		units := make([][3]float64, nu)
+		for u := range units {
+			for q := range 3 {
+				switch rng.IntN(30) {
+				case 0:
+					units[u][q] = math.NaN()
+				case 1:
+					units[u][q] = math.Inf(1)
+				case 2:
+					units[u][q] = math.Inf(-1)
+				case 3, 4:
+					units[u][q] = math.Copysign(0, -1)
+				case 5, 6:
+					units[u][q] = 0
+				default:
+					units[u][q] = rng.NormFloat64() * math.Pow(10, float64(rng.IntN(9)-4))
+				}
+			}
+		}
+		if trial%3 == 0 { // every value of component 1 negative
+			for u := range units {
+				units[u][1] = -math.Abs(units[u][1]) - 1
+			}
+		}
+		p0, p1, p2, n0, n1, n2 := largestSigns(units)
+		got := [3][2]uint64{{p0, n0}, {p1, n1}, {p2, n2}}
+		for q := range 3 {
+			var pos, neg float64 // +0
+			nan := false
+			for _, v := range units {
+				x := v[q]
+				switch {
+				case math.IsNaN(x):
+					nan = true
+				case x > pos:
+					pos = x
+				case -x > neg:
+					neg = -x
+				}
+			}
+			want := [2]uint64{math.Float64bits(pos), math.Float64bits(neg)}
+			if nan {
+				if !math.IsNaN(math.Float64frombits(got[q][0])) || !math.IsNaN(math.Float64frombits(got[q][1])) {
+					t.Errorf("trial %d, component %d: %v, want NaN", trial, q, got[q])
+				}
+				continue
+			}
+			if got[q] != want {
+				t.Errorf("trial %d, component %d: %v %v, want %v %v", trial, q,
+					math.Float64frombits(got[q][0]), math.Float64frombits(got[q][1]), pos, neg)
+			}
+		}
+	}
+}
