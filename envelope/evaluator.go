@@ -245,6 +245,9 @@ type work struct {
 	only  int         // when not 0, exact placement scans effect only−1 alone (endMoments)
 	fold  fold        // the current member folded, for exact placement (fold.go)
 	lists [6]spanList // pieces being collected: max and min of N, V, M
+	// spanCache holds the lists of N and V (the first four) of the last
+	// folded station, for the next (spans).
+	spanCache [4]spanCache
 	// spanBuf is the rest of the chunk the stations' lists are copied
 	// into (spans).
 	spanBuf []int

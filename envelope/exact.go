@@ -24,6 +24,11 @@ type exactPlacement struct {
 	// kept holds, per patterned case, effect and sign, the units of the
 	// list the last scan made, which seed the next one's ranking (seed.go).
 	kept [][3][2][]int32
+	// nvID gives, per patterned case, the fold whose N and V (sums,
+	// largest sizes, counts and lists, effects 0 and 1) the station's are,
+	// unchanged (foldNV.id; 0 for none): stations with the same one give
+	// the same spans lists of N and V for the same combination (spans).
+	nvID []uint64
 }
 
 func newExactPlacement(patterned int) *exactPlacement {
@@ -33,6 +38,7 @@ func newExactPlacement(patterned int) *exactPlacement {
 		count: make([][3][2]int, patterned),
 		top:   make([][3][2][]candidate, patterned),
 		kept:  make([][3][2][]int32, patterned),
+		nvID:  make([]uint64, patterned),
 	}
 }
 
@@ -47,6 +53,7 @@ func (pl *exactPlacement) scan(e *evaluator, w *work) {
 	if w.only > 0 {
 		js, je = w.only-1, w.only
 	}
+	clear(pl.nvID)
 	for p, pc := range e.lay.Patterned {
 		if !e.uses(p) {
 			continue // read by no combination
@@ -285,7 +292,8 @@ func (pl *exactPlacement) combine(e *evaluator, w *work, k, j int, hi bool) [3]f
 // same pieces in the same order as keepLargest and sortLargestFirst give.
 // The factored sizes are the units' times one factor, so in the same
 // order but where two round to the same size, and keepDescending places
-// each where its factored size and piece put it.
+// each where its factored size and piece put it; once one is smaller
+// than the smallest of a full list, so are the rest.
 func (pl *exactPlacement) pieces(e *evaluator, w *work, l *spanList, k, p, j int, f float64, hi bool) int {
 	s := sign(hi == (f >= 0))
 	units := e.lay.Patterned[p].Units
@@ -304,11 +312,18 @@ func (pl *exactPlacement) pieces(e *evaluator, w *work, l *spanList, k, p, j int
 	l.sorted = true
 	piece0 := units0(e, p)
 	for q := len(top) - 1; q >= 0 && top[q].a >= cut; q-- {
+		a := top[q].a * af
+		if n := len(l.ranked); n == w.limit && a < l.ranked[n-1].a {
+			// Smaller than the smallest of a full list, and so is every
+			// unit after it (their factored sizes are no larger): none
+			// is kept.
+			break
+		}
 		pc := piece0[top[q].piece]
 		if pc < 0 {
 			pc = units[top[q].piece].Pieces[0] // none: as before
 		}
-		l.ranked = keepDescending(l.ranked, candidate{piece: pc, a: top[q].a * af}, w.limit)
+		l.ranked = keepDescending(l.ranked, candidate{piece: pc, a: a}, w.limit)
 	}
 	return pl.count[p][j][s]
 }

@@ -133,6 +133,8 @@ type fold struct {
 	// keptNV holds, likewise, the units of the lists of N and V
 	// ([j][s]) of the member folded before (foldCase.fold).
 	keptNV [][2][2][]int32
+	// seq is the last foldNV.id given.
+	seq uint64
 }
 
 // foldCase is one patterned case folded over the current member.
@@ -180,6 +182,8 @@ type foldNV struct {
 	top   [2][2][]candidate
 	totN  float64 // their sums of N and V, unscaled
 	totV  float64
+	// id tells this fold from every other of the scratch (fold.seq).
+	id uint64
 }
 
 // folding is whether members are folded at all; the tests turn it off to
@@ -423,6 +427,8 @@ func (f *fold) load(e *evaluator, w *work, sol *frame.Solution, m int) {
 		for k, q := range parts {
 			if q.uses(p) {
 				fc.fold(f, w, &fc.nv[k], &f.keptNV[k*len(f.cases)+p], f.second, scaleOf(q, m, pc.Case))
+				f.seq++
+				fc.nv[k].id = f.seq
 			}
 		}
 	}
@@ -904,6 +910,11 @@ func (pl *exactPlacement) scanFolded(e *evaluator, w *work, f *fold, i, k int, r
 			top[j][0] = append(top[j][0][:0], nv.top[j][0]...)
 			top[j][1] = append(top[j][1][:0], nv.top[j][1]...)
 		}
+		// Without units that load the member, N and V are the fold's.
+		pl.nvID[p] = 0
+		if len(fc.own) == 0 {
+			pl.nvID[p] = nv.id
+		}
 		// M: every unit's value at x (mv), then the units listed by sign
 		// (classify), so that the sums and the largest sizes are formed
 		// over each list without a branch per unit, the largest sizes
@@ -1085,6 +1096,7 @@ func (pl *exactPlacement) scanFolded(e *evaluator, w *work, f *fold, i, k int, r
 // (a first pass), so that most units are rejected at one comparison.
 func (pl *exactPlacement) scanOne(e *evaluator, w *work, vals []float64, ns, i int) {
 	nz := w.noise[0]
+	clear(pl.nvID)
 	for p, pc := range e.lay.Patterned {
 		if !e.uses(p) {
 			continue // read by no combination

@@ -208,6 +208,7 @@ func valueOfRow(e *evaluator, w *work, rs *rowScan) (x [3]Extreme, ok bool) {
 		return valueOf(e, w)
 	}
 	w.noise = [3]float64{math.Float64frombits(b0) * roundOff, math.Float64frombits(b1) * roundOff, math.Float64frombits(b2) * roundOff}
+	clear(pl.nvID)
 	for p := range e.lay.Patterned {
 		if e.uses(p) {
 			pl.scanRow(e, w, rs, p)
