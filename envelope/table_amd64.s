@@ -111,10 +111,11 @@ TEXT ·firstSignsAVX(SB), NOSPLIT, $0-56
 
 floop:
 	// mm = a + x·v, the product rounded, then added; and the sum.
+	// (v kept in Y14.)
 	VBROADCASTSD (DI)(R12*8), Y14
-	VMULPD 0(AX), Y14, Y14
+	VMULPD 0(AX), Y14, Y15
 	VBROADCASTSD (SI)(R12*8), Y11
-	VADDPD Y14, Y11, Y11
+	VADDPD Y15, Y11, Y11
 	VADDPD Y11, Y10, Y10
 	// Each lane to its station's row.
 	VMOVSD X11, (R8)(R12*8)
@@ -126,10 +127,9 @@ floop:
 	VCMPPD $0x1e, 32(AX), Y11, Y12
 	VCMPPD $0x11, 64(AX), Y11, Y13
 	// The positive units' sums: +0 added for the others.
-	VBROADCASTSD (DX)(R12*8), Y14
-	VANDPD Y12, Y14, Y15
+	VBROADCASTSD (DX)(R12*8), Y15
+	VANDPD Y12, Y15, Y15
 	VADDPD Y15, Y0, Y0
-	VBROADCASTSD (DI)(R12*8), Y14
 	VANDPD Y12, Y14, Y15
 	VADDPD Y15, Y1, Y1
 	VANDPD Y12, Y11, Y15
@@ -145,16 +145,14 @@ floop:
 	VADDPD Y15, Y8, Y8
 	VANDPD 96(AX), Y13, Y15
 	VADDPD Y15, Y9, Y9
-	// The round-off units (neither P nor N): their sums.
+	// The round-off units (neither P nor N), rare: their sums, in a
+	// lane with one (fround), the others' +0 added.
 	VORPD Y12, Y13, Y12
-	VBROADCASTSD (DX)(R12*8), Y14
-	VANDNPD Y14, Y12, Y15
-	VADDPD Y15, Y3, Y3
-	VBROADCASTSD (DI)(R12*8), Y14
-	VANDNPD Y14, Y12, Y15
-	VADDPD Y15, Y4, Y4
-	VANDNPD Y11, Y12, Y15
-	VADDPD Y15, Y5, Y5
+	VMOVMSKPD Y12, R13
+	CMPQ R13, $15
+	JNE fround
+
+fnext:
 	INCQ R12
 	CMPQ R12, CX
 	JNE floop
@@ -176,6 +174,17 @@ fdone:
 	VMOVUPD Y10, 320(BX)
 	VZEROUPPER
 	RET
+
+fround:
+	VBROADCASTSD (DX)(R12*8), Y14
+	VANDNPD Y14, Y12, Y15
+	VADDPD Y15, Y3, Y3
+	VBROADCASTSD (DI)(R12*8), Y14
+	VANDNPD Y14, Y12, Y15
+	VADDPD Y15, Y4, Y4
+	VANDNPD Y11, Y12, Y15
+	VADDPD Y15, Y5, Y5
+	JMP fnext
 
 // func foldSignsAVX(x *[2]*float64, n, v, a *float64, nu int, c *foldConsts, out *[11][2]float64)
 //
@@ -237,17 +246,14 @@ gloop:
 	VMAXPD X6, X14, X6
 	VANDPD X13, X15, X15
 	VMAXPD X7, X15, X7
-	// The round-off units (neither P nor N): their sums.
+	// The round-off units (neither P nor N), rare: their sums, in a
+	// lane with one (ground), the other's +0 added.
 	VORPD X12, X13, X12
-	VMOVDDUP (DX)(R12*8), X14
-	VANDNPD X14, X12, X15
-	VADDPD X15, X3, X3
-	VMOVDDUP (DI)(R12*8), X14
-	VANDNPD X14, X12, X15
-	VADDPD X15, X4, X4
-	VMOVDDUP (SI)(R12*8), X14
-	VANDNPD X14, X12, X15
-	VADDPD X15, X5, X5
+	VMOVMSKPD X12, R13
+	CMPQ R13, $3
+	JNE ground
+
+gnext:
 	INCQ R12
 	CMPQ R12, CX
 	JNE gloop
@@ -265,6 +271,18 @@ gdone:
 	VMOVUPD X9, 144(BX)
 	VMOVUPD X10, 160(BX)
 	RET
+
+ground:
+	VMOVDDUP (DX)(R12*8), X14
+	VANDNPD X14, X12, X15
+	VADDPD X15, X3, X3
+	VMOVDDUP (DI)(R12*8), X14
+	VANDNPD X14, X12, X15
+	VADDPD X15, X4, X4
+	VMOVDDUP (SI)(R12*8), X14
+	VANDNPD X14, X12, X15
+	VADDPD X15, X5, X5
+	JMP gnext
 
 // func cpuid(eaxArg, ecxArg uint32) (eax, ebx, ecx, edx uint32)
 TEXT ·cpuid(SB), NOSPLIT, $0-24
