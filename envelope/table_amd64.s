@@ -364,15 +364,15 @@ sloop:
 	VMAXPD Y6, Y11, Y6
 	VANDPD Y12, Y15, Y15
 	VMAXPD Y7, Y15, Y7
-	// The round-off units (neither P nor N): their sums.
+	// The round-off units (neither P nor N), rare: their sums, in a
+	// lane with one (sround), the others' +0 added.
 	VCMPPD $0x1e, 0(AX), Y10, Y11
 	VORPD Y11, Y12, Y11
-	VANDNPD Y13, Y11, Y15
-	VADDPD Y15, Y3, Y3
-	VANDNPD Y14, Y11, Y15
-	VADDPD Y15, Y4, Y4
-	VANDNPD Y10, Y11, Y15
-	VADDPD Y15, Y5, Y5
+	VMOVMSKPD Y11, R13
+	CMPQ R13, $15
+	JNE sround
+
+snext:
 	INCQ R12
 	CMPQ R12, CX
 	JNE sloop
@@ -390,6 +390,15 @@ sdone:
 	VMOVUPD Y9, 288(BX)
 	VZEROUPPER
 	RET
+
+sround:
+	VANDNPD Y13, Y11, Y15
+	VADDPD Y15, Y3, Y3
+	VANDNPD Y14, Y11, Y15
+	VADDPD Y15, Y4, Y4
+	VANDNPD Y10, Y11, Y15
+	VADDPD Y15, Y5, Y5
+	JMP snext
 
 // func listReachingAVX(mv *float64, n int, t0, t1 float64, r0, r1 *int32, lt *laneTable) (n0, n1 int)
 //
