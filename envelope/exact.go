@@ -174,6 +174,10 @@ func (pl *exactPlacement) extremes(e *evaluator, w *work) [3]Extreme {
 		}
 		return out
 	}
+	// The forces acting with each extreme are formed once, for the
+	// combination that governs in the end (combine depends on the station
+	// alone): the same numbers as formed for each combination that makes
+	// the extreme worse on the way.
 	for k := range e.cs {
 		if e.flat != nil && (e.joined == nil || e.joined[k].n == 0) {
 			// No joined group: the largest and the smallest at once.
@@ -181,25 +185,31 @@ func (pl *exactPlacement) extremes(e *evaluator, w *work) [3]Extreme {
 			for j := range e.nEff {
 				h, l := pl.combineBoth(w, ts, j)
 				if h > out[j].Max {
-					hi := pl.combine(e, w, k, j, true)
-					out[j].Max, out[j].MaxBy, out[j].MaxWith = hi[j], k, hi
+					out[j].Max, out[j].MaxBy = h, k
 				}
 				if l < out[j].Min {
-					lo := pl.combine(e, w, k, j, false)
-					out[j].Min, out[j].MinBy, out[j].MinWith = lo[j], k, lo
+					out[j].Min, out[j].MinBy = l, k
 				}
 			}
 			continue
 		}
 		for j := range e.nEff {
-			if pl.combineOne(e, w, k, j, true) > out[j].Max {
-				hi := pl.combine(e, w, k, j, true)
-				out[j].Max, out[j].MaxBy, out[j].MaxWith = hi[j], k, hi
+			if h := pl.combineOne(e, w, k, j, true); h > out[j].Max {
+				out[j].Max, out[j].MaxBy = h, k
 			}
-			if pl.combineOne(e, w, k, j, false) < out[j].Min {
-				lo := pl.combine(e, w, k, j, false)
-				out[j].Min, out[j].MinBy, out[j].MinWith = lo[j], k, lo
+			if l := pl.combineOne(e, w, k, j, false); l < out[j].Min {
+				out[j].Min, out[j].MinBy = l, k
 			}
+		}
+	}
+	for j := range e.nEff {
+		if k := out[j].MaxBy; k >= 0 {
+			hi := pl.combine(e, w, k, j, true)
+			out[j].Max, out[j].MaxWith = hi[j], hi
+		}
+		if k := out[j].MinBy; k >= 0 {
+			lo := pl.combine(e, w, k, j, false)
+			out[j].Min, out[j].MinWith = lo[j], lo
 		}
 	}
 	return out

@@ -396,7 +396,8 @@ func TestCombineOneIsCombine(t *testing.T) {
 // where adverse) and each patterned case's factored sum of its units of
 // the adverse sign (exactPlacement.sum), with effects of either sign,
 // zeros of either sign and NaN, and factors of either sign and zero; and
-// against combineOne, which extremes used before.
+// against combineOne and combine's effect j, which extremes used before
+// (the forces acting with an extreme are combine's).
 func TestCombineBoth(t *testing.T) {
 	rng := rand.New(rand.NewPCG(21, 8))
 	const units = 9
@@ -462,8 +463,9 @@ func TestCombineBoth(t *testing.T) {
 				}
 				hi, lo := pl.combineBoth(w, e.flat[k], j)
 				one := [2]float64{pl.combineOne(e, w, k, j, true), pl.combineOne(e, w, k, j, false)}
-				if !sameBits([]float64{hi, lo}, want[:]) || !sameBits(one[:], want[:]) {
-					t.Errorf("trial %d, %s, effect %d: %v %v (combineOne %v), want %v", trial, cb.Name, j, hi, lo, one, want)
+				all := [2]float64{pl.combine(e, w, k, j, true)[j], pl.combine(e, w, k, j, false)[j]}
+				if !sameBits([]float64{hi, lo}, want[:]) || !sameBits(one[:], want[:]) || !sameBits(all[:], want[:]) {
+					t.Errorf("trial %d, %s, effect %d: %v %v (combineOne %v, combine %v), want %v", trial, cb.Name, j, hi, lo, one, all, want)
 				}
 			}
 		}
