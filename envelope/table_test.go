@@ -224,7 +224,8 @@ func TestSignsOfIsClassify(t *testing.T) {
 // TestListReaching checks the units listed for ranking (listReaching,
 // with AVX four at a time and in pure Go) against the units of each sign
 // past the round-off that reach the thresholds, compared one by one: the
-// same units in the same order; a NaN threshold lists none.
+// same units in the same order, for every count of units to 40 and for
+// 503; a NaN threshold lists none.
 func TestListReaching(t *testing.T) {
 	rng := rand.New(rand.NewPCG(9, 1))
 	mv := make([]float64, 503)
@@ -236,27 +237,36 @@ func TestListReaching(t *testing.T) {
 	}
 	mv[7], mv[9] = 1, -2 // exactly at the thresholds {1, 2}
 	const nz = 0.05
+	all := mv
 	for _, th := range [][2]float64{{0.1, 0.1}, {1, 2}, {3, 0.06}, {10, 10}, {math.NaN(), math.NaN()}} {
 		for _, avx := range []bool{false, true} {
 			if avx && !hasAVXHere() {
 				continue
 			}
-			t.Run(fmt.Sprintf("%v AVX %v", th, avx), func(t *testing.T) {
-				defer func(v bool) { useAVX = v }(useAVX)
-				useAVX = avx
-				got := listReaching(mv, th[0], th[1], make([]int32, len(mv)+4), make([]int32, len(mv)+4))
-				var want [2][]int32
-				for u, m := range mv {
-					if m > nz && m >= th[0] {
-						want[0] = append(want[0], int32(u))
-					} else if m < -nz && -m >= th[1] {
-						want[1] = append(want[1], int32(u))
+			// Every length to 40 (groups of eight and four, and what
+			// is left), and all of them.
+			for n := 0; n <= len(all); n++ {
+				if n > 40 && n < len(all) {
+					continue
+				}
+				mv := all[:n]
+				t.Run(fmt.Sprintf("%v AVX %v %d units", th, avx, n), func(t *testing.T) {
+					defer func(v bool) { useAVX = v }(useAVX)
+					useAVX = avx
+					got := listReaching(mv, th[0], th[1], make([]int32, len(mv)+4), make([]int32, len(mv)+4))
+					var want [2][]int32
+					for u, m := range mv {
+						if m > nz && m >= th[0] {
+							want[0] = append(want[0], int32(u))
+						} else if m < -nz && -m >= th[1] {
+							want[1] = append(want[1], int32(u))
+						}
 					}
-				}
-				if !reflect.DeepEqual(append([]int32{}, got[0]...), append([]int32{}, want[0]...)) || !reflect.DeepEqual(append([]int32{}, got[1]...), append([]int32{}, want[1]...)) {
-					t.Errorf("listed %v, want %v", got, want)
-				}
-			})
+					if !reflect.DeepEqual(append([]int32{}, got[0]...), append([]int32{}, want[0]...)) || !reflect.DeepEqual(append([]int32{}, got[1]...), append([]int32{}, want[1]...)) {
+						t.Errorf("listed %v, want %v", got, want)
+					}
+				})
+			}
 		}
 	}
 }
