@@ -89,9 +89,10 @@ func (e *evaluator) spans(w *work, out *[3]Extreme) {
 			}
 			// N and V of a station whose every patterned case's are
 			// those of the same folds as at the station before, for the
-			// same combination: the same list.
+			// same combination: the same list. (The deflections, one
+			// effect, met between two stations, leave the lists kept.)
 			var c *spanCache
-			cacheable := pl != nil && j < 2
+			cacheable := pl != nil && j < 2 && e.nEff == 3
 			if cacheable {
 				c = &w.spanCache[k]
 				if len(c.ids) != len(e.lay.Patterned) {
