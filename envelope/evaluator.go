@@ -53,6 +53,37 @@ type evaluator struct {
 	// Pieces[0], -1 for none): what exactPlacement.pieces lists, read
 	// from one short slice rather than from each unit's.
 	piece0 [][]int
+	// flat gives, per combination of cs, its terms with what the loops
+	// over the combinations read of each (flatTerm); nil for an
+	// evaluator not made by newEvaluator (the tests').
+	flat [][]flatTerm
+}
+
+// flatTerm is a combination's term with what exactPlacement.extremes
+// reads of its case, in one place: the case, its factor, whether it acts
+// whatever its sign (evaluator.always) and its patterned case
+// (evaluator.patternOf, -1 for none).
+type flatTerm struct {
+	c      int
+	f      float64
+	always bool
+	p      int
+}
+
+// flatten sets e.flat from e.cs, e.always and e.patternOf; a term of no
+// original case is Compute's to report.
+func (e *evaluator) flatten() {
+	e.flat = make([][]flatTerm, len(e.cs))
+	for k, cb := range e.cs {
+		ts := make([]flatTerm, len(cb.Terms))
+		for i, t := range cb.Terms {
+			ts[i] = flatTerm{c: t.Case, f: t.Factor, p: -1}
+			if t.Case >= 0 && t.Case < len(e.patternOf) { // else Compute reports it
+				ts[i].always, ts[i].p = e.always[t.Case], e.patternOf[t.Case]
+			}
+		}
+		e.flat[k] = ts
+	}
 }
 
 func newEvaluator(mo *frame.Model, cs []combos.Combination, idx []int, nEff int, set Settings, lay *patterns.Layout) *evaluator {
@@ -102,6 +133,7 @@ func newEvaluator(mo *frame.Model, cs []combos.Combination, idx []int, nEff int,
 			}
 		}
 	}
+	e.flatten()
 	if lay != nil {
 		e.unitCase = make([]int, len(mo.Cases)-e.nOrig)
 		for i := range e.unitCase {
@@ -165,6 +197,12 @@ func (e *evaluator) plan() {
 			}
 		}
 	}
+	// The copies of an evaluator made with other combinations (Compute's
+	// deflections, setFactors' parts) have its cases' always and
+	// patternOf already.
+	if e.always != nil && e.patternOf != nil {
+		e.flatten()
+	}
 }
 
 // skipUnused is whether the patterned cases no combination uses are
@@ -207,6 +245,9 @@ type work struct {
 	only  int         // when not 0, exact placement scans effect only−1 alone (endMoments)
 	fold  fold        // the current member folded, for exact placement (fold.go)
 	lists [6]spanList // pieces being collected: max and min of N, V, M
+	// spanCache holds the lists of N and V (the first four) of the last
+	// folded station, for the next (spans).
+	spanCache [4]spanCache
 	// spanBuf is the rest of the chunk the stations' lists are copied
 	// into (spans).
 	spanBuf []int

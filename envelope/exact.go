@@ -24,6 +24,11 @@ type exactPlacement struct {
 	// kept holds, per patterned case, effect and sign, the units of the
 	// list the last scan made, which seed the next one's ranking (seed.go).
 	kept [][3][2][]int32
+	// nvID gives, per patterned case, the fold whose N and V (sums,
+	// largest sizes, counts and lists, effects 0 and 1) the station's are,
+	// unchanged (foldNV.id; 0 for none): stations with the same one give
+	// the same spans lists of N and V for the same combination (spans).
+	nvID []uint64
 }
 
 func newExactPlacement(patterned int) *exactPlacement {
@@ -33,6 +38,7 @@ func newExactPlacement(patterned int) *exactPlacement {
 		count: make([][3][2]int, patterned),
 		top:   make([][3][2][]candidate, patterned),
 		kept:  make([][3][2][]int32, patterned),
+		nvID:  make([]uint64, patterned),
 	}
 }
 
@@ -47,6 +53,7 @@ func (pl *exactPlacement) scan(e *evaluator, w *work) {
 	if w.only > 0 {
 		js, je = w.only-1, w.only
 	}
+	clear(pl.nvID)
 	for p, pc := range e.lay.Patterned {
 		if !e.uses(p) {
 			continue // read by no combination
@@ -167,19 +174,74 @@ func (pl *exactPlacement) extremes(e *evaluator, w *work) [3]Extreme {
 		}
 		return out
 	}
+	// The forces acting with each extreme are formed once, for the
+	// combination that governs in the end (combine depends on the station
+	// alone): the same numbers as formed for each combination that makes
+	// the extreme worse on the way.
 	for k := range e.cs {
-		for j := range e.nEff {
-			if pl.combineOne(e, w, k, j, true) > out[j].Max {
-				hi := pl.combine(e, w, k, j, true)
-				out[j].Max, out[j].MaxBy, out[j].MaxWith = hi[j], k, hi
+		if e.flat != nil && (e.joined == nil || e.joined[k].n == 0) {
+			// No joined group: the largest and the smallest at once.
+			ts := e.flat[k]
+			for j := range e.nEff {
+				h, l := pl.combineBoth(w, ts, j)
+				if h > out[j].Max {
+					out[j].Max, out[j].MaxBy = h, k
+				}
+				if l < out[j].Min {
+					out[j].Min, out[j].MinBy = l, k
+				}
 			}
-			if pl.combineOne(e, w, k, j, false) < out[j].Min {
-				lo := pl.combine(e, w, k, j, false)
-				out[j].Min, out[j].MinBy, out[j].MinWith = lo[j], k, lo
+			continue
+		}
+		for j := range e.nEff {
+			if h := pl.combineOne(e, w, k, j, true); h > out[j].Max {
+				out[j].Max, out[j].MaxBy = h, k
+			}
+			if l := pl.combineOne(e, w, k, j, false); l < out[j].Min {
+				out[j].Min, out[j].MinBy = l, k
 			}
 		}
 	}
+	for j := range e.nEff {
+		if k := out[j].MaxBy; k >= 0 {
+			hi := pl.combine(e, w, k, j, true)
+			out[j].Max, out[j].MaxWith = hi[j], hi
+		}
+		if k := out[j].MinBy; k >= 0 {
+			lo := pl.combine(e, w, k, j, false)
+			out[j].Min, out[j].MinWith = lo[j], lo
+		}
+	}
 	return out
+}
+
+// combineBoth is combineOne for the largest (hi) and the smallest (lo)
+// at once, for a combination without joined groups (its terms ts): each
+// the same terms added in the same order, the product of each term formed
+// once for both (combineOne forms the same product twice), so the same
+// numbers to the last bit.
+func (pl *exactPlacement) combineBoth(w *work, ts []flatTerm, j int) (hi, lo float64) {
+	for _, t := range ts {
+		a := t.f * w.ev[t.c][j]
+		if t.always || a > 0 {
+			hi += a
+		}
+		if t.always || a < 0 {
+			lo += a
+		}
+		if t.p < 0 {
+			continue
+		}
+		s := &pl.sum[t.p][j]
+		if t.f >= 0 {
+			hi += t.f * s[0][j]
+			lo += t.f * s[1][j]
+		} else {
+			hi += t.f * s[1][j]
+			lo += t.f * s[0][j]
+		}
+	}
+	return hi, lo
 }
 
 // combineOne is combine's effect j alone: the same terms added in the
@@ -240,7 +302,8 @@ func (pl *exactPlacement) combine(e *evaluator, w *work, k, j int, hi bool) [3]f
 // same pieces in the same order as keepLargest and sortLargestFirst give.
 // The factored sizes are the units' times one factor, so in the same
 // order but where two round to the same size, and keepDescending places
-// each where its factored size and piece put it.
+// each where its factored size and piece put it; once one is smaller
+// than the smallest of a full list, so are the rest.
 func (pl *exactPlacement) pieces(e *evaluator, w *work, l *spanList, k, p, j int, f float64, hi bool) int {
 	s := sign(hi == (f >= 0))
 	units := e.lay.Patterned[p].Units
@@ -259,11 +322,18 @@ func (pl *exactPlacement) pieces(e *evaluator, w *work, l *spanList, k, p, j int
 	l.sorted = true
 	piece0 := units0(e, p)
 	for q := len(top) - 1; q >= 0 && top[q].a >= cut; q-- {
+		a := top[q].a * af
+		if n := len(l.ranked); n == w.limit && a < l.ranked[n-1].a {
+			// Smaller than the smallest of a full list, and so is every
+			// unit after it (their factored sizes are no larger): none
+			// is kept.
+			break
+		}
 		pc := piece0[top[q].piece]
 		if pc < 0 {
 			pc = units[top[q].piece].Pieces[0] // none: as before
 		}
-		l.ranked = keepDescending(l.ranked, candidate{piece: pc, a: top[q].a * af}, w.limit)
+		l.ranked = keepDescending(l.ranked, candidate{piece: pc, a: a}, w.limit)
 	}
 	return pl.count[p][j][s]
 }

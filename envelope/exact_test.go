@@ -388,3 +388,86 @@ func TestCombineOneIsCombine(t *testing.T) {
 		})
 	}
 }
+
+// TestCombineBoth checks the largest and the smallest value of effect j
+// of a combination formed in one pass (combineBoth) against the
+// definition, bit for bit: in the order of its terms, each case's
+// factored effect where it acts (a permanent case always, a variable one
+// where adverse) and each patterned case's factored sum of its units of
+// the adverse sign (exactPlacement.sum), with effects of either sign,
+// zeros of either sign and NaN, and factors of either sign and zero; and
+// against combineOne and combine's effect j, which extremes used before
+// (the forces acting with an extreme are combine's).
+func TestCombineBoth(t *testing.T) {
+	rng := rand.New(rand.NewPCG(21, 8))
+	const units = 9
+	pc := patterns.Patterned{Case: 1}
+	for i := range units {
+		pc.Units = append(pc.Units, patterns.Unit{Column: 3 + i, Pieces: []int{i}})
+	}
+	always := make([]bool, 3+units)
+	always[0] = true // D
+	term := func(c int, f float64) combos.Term { return combos.Term{Case: c, Factor: f} }
+	e := &evaluator{
+		cs: []combos.Combination{
+			{Name: "1.4D", Terms: []combos.Term{term(0, 1.4)}},
+			{Name: "1.2D+1.6L+0.5W", Terms: []combos.Term{term(0, 1.2), term(1, 1.6), term(2, 0.5)}},
+			{Name: "0.9D-W-0.5L", Terms: []combos.Term{term(0, 0.9), term(2, -1), term(1, -0.5)}},
+			{Name: "L+0W+L", Terms: []combos.Term{term(1, 1), term(2, 0), term(1, 1)}},
+		},
+		nEff:      3,
+		lay:       &patterns.Layout{Mode: patterns.Exact, Patterned: []patterns.Patterned{pc}, Model: &frame.Model{Cases: make([]frame.Case, 3+units)}},
+		patterned: true,
+		nOrig:     3,
+		always:    always,
+		patternOf: []int{-1, 0, -1},
+		first:     []int{3},
+	}
+	e.flatten()
+	w := e.scratch()
+	pl := w.place.(*exactPlacement)
+	num := func() float64 {
+		switch rng.IntN(8) {
+		case 0:
+			return 0
+		case 1:
+			return math.Copysign(0, -1)
+		case 2:
+			return math.NaN()
+		}
+		return rng.NormFloat64()
+	}
+	for trial := range 200 {
+		for c := range w.ev {
+			w.ev[c] = [3]float64{num(), num(), num()}
+		}
+		w.noise = [3]float64{1e-3, 1e-3, 1e-3}
+		pl.scan(e, w)
+		for k, cb := range e.cs {
+			for j := range 3 {
+				var want [2]float64 // largest, smallest
+				for s, hi := range []bool{true, false} {
+					for _, t := range cb.Terms {
+						a := t.Factor * w.ev[t.Case][j]
+						if always[t.Case] || (hi && a > 0) || (!hi && a < 0) {
+							want[s] += a
+						}
+						if t.Case == 1 {
+							adverse := 0 // the positive units
+							if hi != (t.Factor >= 0) {
+								adverse = 1
+							}
+							want[s] += t.Factor * pl.sum[0][j][adverse][j]
+						}
+					}
+				}
+				hi, lo := pl.combineBoth(w, e.flat[k], j)
+				one := [2]float64{pl.combineOne(e, w, k, j, true), pl.combineOne(e, w, k, j, false)}
+				all := [2]float64{pl.combine(e, w, k, j, true)[j], pl.combine(e, w, k, j, false)[j]}
+				if !sameBits([]float64{hi, lo}, want[:]) || !sameBits(one[:], want[:]) || !sameBits(all[:], want[:]) {
+					t.Errorf("trial %d, %s, effect %d: %v %v (combineOne %v, combine %v), want %v", trial, cb.Name, j, hi, lo, one, all, want)
+				}
+			}
+		}
+	}
+}

@@ -133,6 +133,8 @@ type fold struct {
 	// keptNV holds, likewise, the units of the lists of N and V
 	// ([j][s]) of the member folded before (foldCase.fold).
 	keptNV [][2][2][]int32
+	// seq is the last foldNV.id given.
+	seq uint64
 }
 
 // foldCase is one patterned case folded over the current member.
@@ -180,6 +182,8 @@ type foldNV struct {
 	top   [2][2][]candidate
 	totN  float64 // their sums of N and V, unscaled
 	totV  float64
+	// id tells this fold from every other of the scratch (fold.seq).
+	id uint64
 }
 
 // folding is whether members are folded at all; the tests turn it off to
@@ -423,6 +427,8 @@ func (f *fold) load(e *evaluator, w *work, sol *frame.Solution, m int) {
 		for k, q := range parts {
 			if q.uses(p) {
 				fc.fold(f, w, &fc.nv[k], &f.keptNV[k*len(f.cases)+p], f.second, scaleOf(q, m, pc.Case))
+				f.seq++
+				fc.nv[k].id = f.seq
 			}
 		}
 	}
@@ -435,7 +441,15 @@ func (f *fold) load(e *evaluator, w *work, sol *frame.Solution, m int) {
 // (M₀) and at its end (M₀ + l·V), NaN left out: what load's plain
 // comparisons give (a size of zero raises none), in one pass, the sizes
 // kept in registers.
+//
+// With AVX the units between those of own go through largestFirstAVX,
+// each run of them in one call: the same numbers, and the same sizes
+// (the largest of the same sizes, whichever order they are met in).
 func largestFirst(big *[3]float64, n, v, a []float64, ends [][6]float64, own []int, l float64) {
+	if useAVX {
+		largestFirstRuns(big, n, v, a, ends, own, l)
+		return
+	}
 	bn, bv, bm := big[0], big[1], big[2]
 	v, a, ends = v[:len(n)], a[:len(n)], ends[:len(n)]
 	for u := range n {
@@ -461,6 +475,49 @@ func largestFirst(big *[3]float64, n, v, a []float64, ends [][6]float64, own []i
 		}
 	}
 	big[0], big[1], big[2] = bn, bv, bm
+}
+
+// bigConsts is what largestFirstAVX reads: the signs of g[0] and g[2]
+// (flipped: N and M₀ are their negations), the mask of a size in lanes 0
+// to 2 (lane 3, g[3], cleared to +0) and the member's length.
+type bigConsts struct {
+	flip, size [4]float64
+	l          float64
+}
+
+// largestFirstRuns is largestFirst with AVX: the units of own zero, as
+// largestFirst meets them (ascending: an entry not past the one before
+// is never met, nor any after it), the runs between them through
+// largestFirstAVX.
+func largestFirstRuns(big *[3]float64, n, v, a []float64, ends [][6]float64, own []int, l float64) {
+	nu := len(n)
+	v, a, ends = v[:nu], a[:nu], ends[:nu]
+	const sign, size = 1 << 63, 1<<63 - 1
+	c := bigConsts{
+		flip: [4]float64{math.Float64frombits(sign), 0, math.Float64frombits(sign), 0},
+		size: [4]float64{math.Float64frombits(size), math.Float64frombits(size), math.Float64frombits(size), 0},
+		l:    l,
+	}
+	b := [4]float64{big[0], big[1], big[2], big[2]}
+	run := func(from, to int) {
+		if to > from {
+			largestFirstAVX(&ends[from], &n[from], &v[from], &a[from], to-from, &c, &b)
+		}
+	}
+	from := 0
+	for _, u := range own {
+		if u < from || u >= nu {
+			break // never met by largestFirst's loop
+		}
+		run(from, u)
+		n[u], v[u], a[u] = 0, 0, 0
+		from = u + 1
+	}
+	run(from, nu)
+	big[0], big[1], big[2] = b[0], b[1], b[2]
+	if b[3] > b[2] {
+		big[2] = b[3]
+	}
 }
 
 // boundRoom is the room a bound of the size of M leaves for the rounding
@@ -853,6 +910,11 @@ func (pl *exactPlacement) scanFolded(e *evaluator, w *work, f *fold, i, k int, r
 			top[j][0] = append(top[j][0][:0], nv.top[j][0]...)
 			top[j][1] = append(top[j][1][:0], nv.top[j][1]...)
 		}
+		// Without units that load the member, N and V are the fold's.
+		pl.nvID[p] = 0
+		if len(fc.own) == 0 {
+			pl.nvID[p] = nv.id
+		}
 		// M: every unit's value at x (mv), then the units listed by sign
 		// (classify), so that the sums and the largest sizes are formed
 		// over each list without a branch per unit, the largest sizes
@@ -1034,6 +1096,7 @@ func (pl *exactPlacement) scanFolded(e *evaluator, w *work, f *fold, i, k int, r
 // (a first pass), so that most units are rejected at one comparison.
 func (pl *exactPlacement) scanOne(e *evaluator, w *work, vals []float64, ns, i int) {
 	nz := w.noise[0]
+	clear(pl.nvID)
 	for p, pc := range e.lay.Patterned {
 		if !e.uses(p) {
 			continue // read by no combination

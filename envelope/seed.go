@@ -66,26 +66,28 @@ func largestReaching(list []int32, vals []float64, negThr float64, ranked []int3
 // anyway; and when all limit of them are of the sign (full), at least
 // limit units reach the smallest size among them, so the limit largest
 // do too. It returns 0 when no unit listed is of the sign.
+//
+// The sizes of the sign are numbers above nz ≥ 0 (not NaN), so their bits
+// order as they do: the smallest and the largest are kept as bits, with
+// no branch on the sizes (a unit not of the sign leaves them as they
+// are, as all ones and as zero).
 func keptAt(units []int32, mv []float64, nz float64, negative bool, share float64, limit int) (t float64, full bool) {
-	lo, hi, q := math.Inf(1), 0.0, 0
+	lo, hi, q := math.Float64bits(math.Inf(1)), uint64(0), 0
 	for _, u := range units {
 		x := mv[u]
 		if negative {
 			x = -x
 		}
-		if x > nz { // plain comparisons: x is a number past the round-off
-			if x < lo {
-				lo = x
-			}
-			if x > hi {
-				hi = x
-			}
-			q++
-		}
+		of := b2i(x > nz)
+		m := -uint64(of) // all ones for a size of the sign
+		b := math.Float64bits(x)
+		lo = min(lo, b|^m)
+		hi = max(hi, b&m)
+		q += of
 	}
-	t = share * hi
+	t = share * math.Float64frombits(hi)
 	if q == limit && len(units) == limit {
-		return max(t, lo), true
+		return max(t, math.Float64frombits(lo)), true
 	}
 	return t, false
 }

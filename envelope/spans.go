@@ -77,13 +77,44 @@ func (e *evaluator) spans(w *work, out *[3]Extreme) {
 		w.lists[k].distinct = e.distinct
 	}
 	var loaded [6]int
-	for p, pc := range e.lay.Patterned {
-		for j := range e.nEff {
-			for side, by := range [2]int{out[j].MaxBy, out[j].MinBy} {
-				if by < 0 {
+	total := 0
+	pl, _ := w.place.(*exactPlacement)
+	for j := range e.nEff {
+		for side, by := range [2]int{out[j].MaxBy, out[j].MinBy} {
+			k, hi := 2*j+side, side == 0
+			l := &w.lists[k]
+			if by < 0 {
+				total += l.order()
+				continue
+			}
+			// N and V of a station whose every patterned case's are
+			// those of the same folds as at the station before, for the
+			// same combination: the same list. (The deflections, one
+			// effect, met between two stations, leave the lists kept.)
+			var c *spanCache
+			cacheable := pl != nil && j < 2 && e.nEff == 3
+			if cacheable {
+				c = &w.spanCache[k]
+				if len(c.ids) != len(e.lay.Patterned) {
+					c.ids = make([]uint64, len(e.lay.Patterned))
+					c.e = nil
+				}
+				same := c.e == e && c.by == by
+				for p := range e.lay.Patterned {
+					id := pl.nvID[p]
+					cacheable = cacheable && id != 0
+					same = same && id == c.ids[p]
+					c.ids[p] = id
+				}
+				if same && cacheable {
+					l.pieces = append(l.pieces, c.pieces...)
+					loaded[k] = c.loaded
+					total += len(l.pieces)
 					continue
 				}
-				k, hi := 2*j+side, side == 0
+				c.e = nil
+			}
+			for p, pc := range e.lay.Patterned {
 				// The factor of this case in the winning combination.
 				f, has := 0.0, false
 				for _, t := range e.cs[by].Terms {
@@ -94,12 +125,16 @@ func (e *evaluator) spans(w *work, out *[3]Extreme) {
 				if !has || f == 0 {
 					continue
 				}
-				loaded[k] += w.place.pieces(e, w, &w.lists[k], by, p, j, f, hi)
+				loaded[k] += w.place.pieces(e, w, l, by, p, j, f, hi)
+			}
+			total += l.order()
+			if cacheable {
+				c.e, c.by, c.loaded = e, by, loaded[k]
+				c.pieces = append(c.pieces[:0], l.pieces...)
 			}
 		}
 	}
-	total := 0
-	for k := range w.lists {
+	for k := 2 * e.nEff; k < len(w.lists); k++ {
 		total += w.lists[k].order()
 	}
 	for j := range 3 {
@@ -128,6 +163,18 @@ func (e *evaluator) spans(w *work, out *[3]Extreme) {
 		out[j].MaxSpans = take(2 * j)
 		out[j].MinSpans = take(2*j + 1)
 	}
+}
+
+// spanCache is one spans list of N or V as spans last formed it at a
+// folded station (exactPlacement.nvID): the evaluator (nil for none),
+// the combination, each patterned case's fold, how many pieces it loads
+// and the list.
+type spanCache struct {
+	e      *evaluator
+	by     int
+	ids    []uint64
+	loaded int
+	pieces []int
 }
 
 // spanChunk is how many pieces the lists of the stations share one

@@ -94,3 +94,33 @@ func hasAVX() bool {
 // numbers would no longer be those of the pure-Go loops, nor those of
 // frame's stations.
 var useAVX = hasAVX() && !goFuses
+
+// largestFirstAVX is largestFirst's pass over cnt units that do not load
+// the member (ends, n, v and a from the first of them), with AVX: it sets
+// n, v and a, and raises big (see bigConsts) as largestFirst's plain
+// comparisons raise its sizes, NaN left out (VMAXPD keeps the running
+// largest unless the new size is larger).
+//
+//go:noescape
+func largestFirstAVX(ends *[6]float64, n, v, a *float64, cnt int, c *bigConsts, big *[4]float64)
+
+// classify3AVX is rowScan.classify's pass for the three effects at once
+// (rowScan.classify3), with AVX: a unit's three components in three lanes
+// of one register, each effect's sums of the positive units and of the
+// round-off ones a register of three chains of additions, in the order
+// of the units from +0 (+0 added for the other units, which leaves such a
+// sum as it is), so the same numbers to the last bit. It lists in l0, l1
+// and l2 the units that reach each effect's thresholds and returns how
+// many; out: the sums, of all the units too, and the counts.
+//
+//go:noescape
+func classify3AVX(units *[3]float64, nu int, c *class3Consts, l0, l1, l2 *int32, out *class3Out) (k0, k1, k2 int)
+
+// largestSignsAVX is the pass of largestSizes over a patterned case's
+// units with AVX, a unit's three components in three lanes of one
+// register: out[0] the largest value of each component, out[1] the
+// smallest, each of them and +0, NaN left out, and out[2] a lane of all
+// ones for a component with some NaN.
+//
+//go:noescape
+func largestSignsAVX(units *[3]float64, nu int, out *[3][4]float64)

@@ -111,10 +111,11 @@ TEXT ·firstSignsAVX(SB), NOSPLIT, $0-56
 
 floop:
 	// mm = a + x·v, the product rounded, then added; and the sum.
+	// (v kept in Y14.)
 	VBROADCASTSD (DI)(R12*8), Y14
-	VMULPD 0(AX), Y14, Y14
+	VMULPD 0(AX), Y14, Y15
 	VBROADCASTSD (SI)(R12*8), Y11
-	VADDPD Y14, Y11, Y11
+	VADDPD Y15, Y11, Y11
 	VADDPD Y11, Y10, Y10
 	// Each lane to its station's row.
 	VMOVSD X11, (R8)(R12*8)
@@ -126,10 +127,9 @@ floop:
 	VCMPPD $0x1e, 32(AX), Y11, Y12
 	VCMPPD $0x11, 64(AX), Y11, Y13
 	// The positive units' sums: +0 added for the others.
-	VBROADCASTSD (DX)(R12*8), Y14
-	VANDPD Y12, Y14, Y15
+	VBROADCASTSD (DX)(R12*8), Y15
+	VANDPD Y12, Y15, Y15
 	VADDPD Y15, Y0, Y0
-	VBROADCASTSD (DI)(R12*8), Y14
 	VANDPD Y12, Y14, Y15
 	VADDPD Y15, Y1, Y1
 	VANDPD Y12, Y11, Y15
@@ -145,16 +145,14 @@ floop:
 	VADDPD Y15, Y8, Y8
 	VANDPD 96(AX), Y13, Y15
 	VADDPD Y15, Y9, Y9
-	// The round-off units (neither P nor N): their sums.
+	// The round-off units (neither P nor N), rare: their sums, in a
+	// lane with one (fround), the others' +0 added.
 	VORPD Y12, Y13, Y12
-	VBROADCASTSD (DX)(R12*8), Y14
-	VANDNPD Y14, Y12, Y15
-	VADDPD Y15, Y3, Y3
-	VBROADCASTSD (DI)(R12*8), Y14
-	VANDNPD Y14, Y12, Y15
-	VADDPD Y15, Y4, Y4
-	VANDNPD Y11, Y12, Y15
-	VADDPD Y15, Y5, Y5
+	VMOVMSKPD Y12, R13
+	CMPQ R13, $15
+	JNE fround
+
+fnext:
 	INCQ R12
 	CMPQ R12, CX
 	JNE floop
@@ -176,6 +174,17 @@ fdone:
 	VMOVUPD Y10, 320(BX)
 	VZEROUPPER
 	RET
+
+fround:
+	VBROADCASTSD (DX)(R12*8), Y14
+	VANDNPD Y14, Y12, Y15
+	VADDPD Y15, Y3, Y3
+	VBROADCASTSD (DI)(R12*8), Y14
+	VANDNPD Y14, Y12, Y15
+	VADDPD Y15, Y4, Y4
+	VANDNPD Y11, Y12, Y15
+	VADDPD Y15, Y5, Y5
+	JMP fnext
 
 // func foldSignsAVX(x *[2]*float64, n, v, a *float64, nu int, c *foldConsts, out *[11][2]float64)
 //
@@ -237,17 +246,14 @@ gloop:
 	VMAXPD X6, X14, X6
 	VANDPD X13, X15, X15
 	VMAXPD X7, X15, X7
-	// The round-off units (neither P nor N): their sums.
+	// The round-off units (neither P nor N), rare: their sums, in a
+	// lane with one (ground), the other's +0 added.
 	VORPD X12, X13, X12
-	VMOVDDUP (DX)(R12*8), X14
-	VANDNPD X14, X12, X15
-	VADDPD X15, X3, X3
-	VMOVDDUP (DI)(R12*8), X14
-	VANDNPD X14, X12, X15
-	VADDPD X15, X4, X4
-	VMOVDDUP (SI)(R12*8), X14
-	VANDNPD X14, X12, X15
-	VADDPD X15, X5, X5
+	VMOVMSKPD X12, R13
+	CMPQ R13, $3
+	JNE ground
+
+gnext:
 	INCQ R12
 	CMPQ R12, CX
 	JNE gloop
@@ -265,6 +271,18 @@ gdone:
 	VMOVUPD X9, 144(BX)
 	VMOVUPD X10, 160(BX)
 	RET
+
+ground:
+	VMOVDDUP (DX)(R12*8), X14
+	VANDNPD X14, X12, X15
+	VADDPD X15, X3, X3
+	VMOVDDUP (DI)(R12*8), X14
+	VANDNPD X14, X12, X15
+	VADDPD X15, X4, X4
+	VMOVDDUP (SI)(R12*8), X14
+	VANDNPD X14, X12, X15
+	VADDPD X15, X5, X5
+	JMP gnext
 
 // func cpuid(eaxArg, ecxArg uint32) (eax, ebx, ecx, edx uint32)
 TEXT ·cpuid(SB), NOSPLIT, $0-24
@@ -346,15 +364,15 @@ sloop:
 	VMAXPD Y6, Y11, Y6
 	VANDPD Y12, Y15, Y15
 	VMAXPD Y7, Y15, Y7
-	// The round-off units (neither P nor N): their sums.
+	// The round-off units (neither P nor N), rare: their sums, in a
+	// lane with one (sround), the others' +0 added.
 	VCMPPD $0x1e, 0(AX), Y10, Y11
 	VORPD Y11, Y12, Y11
-	VANDNPD Y13, Y11, Y15
-	VADDPD Y15, Y3, Y3
-	VANDNPD Y14, Y11, Y15
-	VADDPD Y15, Y4, Y4
-	VANDNPD Y10, Y11, Y15
-	VADDPD Y15, Y5, Y5
+	VMOVMSKPD Y11, R13
+	CMPQ R13, $15
+	JNE sround
+
+snext:
 	INCQ R12
 	CMPQ R12, CX
 	JNE sloop
@@ -372,6 +390,15 @@ sdone:
 	VMOVUPD Y9, 288(BX)
 	VZEROUPPER
 	RET
+
+sround:
+	VANDNPD Y13, Y11, Y15
+	VADDPD Y15, Y3, Y3
+	VANDNPD Y14, Y11, Y15
+	VADDPD Y15, Y4, Y4
+	VANDNPD Y10, Y11, Y15
+	VADDPD Y15, Y5, Y5
+	JMP snext
 
 // func listReachingAVX(mv *float64, n int, t0, t1 float64, r0, r1 *int32, lt *laneTable) (n0, n1 int)
 //
@@ -440,3 +467,215 @@ lsome:
 	MOVBQZX 256(R11)(BX*1), BX
 	ADDQ BX, R10
 	JMP lnext
+
+// func largestFirstAVX(ends *[6]float64, n, v, a *float64, cnt int, c *bigConsts, big *[4]float64)
+//
+// c: the signs to flip (of g[0] and g[2]) at 0, the mask of a size (lanes
+// 0 to 2; lane 3 cleared) at 32, the member's length l at 64. big: the
+// largest sizes of N, V and M so far in lanes 0 to 2, and in lane 3 that
+// of M again, which the sizes of M at the member's end raise.
+TEXT ·largestFirstAVX(SB), NOSPLIT, $0-56
+	MOVQ ends+0(FP), SI
+	MOVQ n+8(FP), R8
+	MOVQ v+16(FP), R9
+	MOVQ a+24(FP), R10
+	MOVQ cnt+32(FP), CX
+	MOVQ c+40(FP), AX
+	MOVQ big+48(FP), BX
+	VMOVUPD 0(AX), Y8
+	VMOVUPD 32(AX), Y9
+	VMOVSD 64(AX), X10
+	VMOVUPD 0(BX), Y6
+	VMOVSD 24(BX), X7
+	XORQ R12, R12
+	TESTQ CX, CX
+	JEQ bdone
+
+bloop:
+	// (x, y, z) = (−g[0], g[1], −g[2]), and g[3] in lane 3.
+	VMOVUPD 0(SI), Y1
+	VXORPD Y8, Y1, Y1
+	VMOVSD X1, (R8)(R12*8)
+	VMOVHPD X1, (R9)(R12*8)
+	VEXTRACTF128 $1, Y1, X2
+	VMOVSD X2, (R10)(R12*8)
+	// Their sizes (lane 3 cleared: +0), the largest kept: VMAXPD gives
+	// its second source, the running largest, unless the size is larger
+	// (a NaN left out).
+	VANDPD Y9, Y1, Y3
+	VMAXPD Y6, Y3, Y6
+	// M at the end: z + l·y, the product rounded, then added.
+	VPERMILPD $1, X1, X4
+	VMULSD X10, X4, X4
+	VADDSD X4, X2, X4
+	VANDPD X9, X4, X4
+	VMAXSD X7, X4, X7
+	ADDQ $48, SI
+	INCQ R12
+	CMPQ R12, CX
+	JNE bloop
+
+bdone:
+	VMOVUPD Y6, 0(BX)
+	VMOVSD X7, 24(BX)
+	VZEROUPPER
+	RET
+
+// func classify3AVX(units *[3]float64, nu int, c *class3Consts, l0, l1, l2 *int32, out *class3Out) (k0, k1, k2 int)
+//
+// One unit at a time, its three components in lanes 0 to 2 (lane 3 +0):
+// for each effect j the sums of the components of the units whose effect
+// j is positive (lane q: component q), each a chain of its own in the
+// order of the units. c: nz at 0, −nz at 32, the thresholds of the
+// positive units at 64 and the negated ones of the negative units at 96,
+// ones at 128, a lane per effect (lane 3: 0, 0, +Inf, −Inf, 0).
+TEXT ·classify3AVX(SB), NOSPLIT, $0-80
+	MOVQ units+0(FP), SI
+	MOVQ nu+8(FP), CX
+	MOVQ c+16(FP), AX
+	MOVQ l0+24(FP), R8
+	MOVQ l1+32(FP), R9
+	MOVQ l2+40(FP), R10
+	VXORPD Y0, Y0, Y0
+	VXORPD Y1, Y1, Y1
+	VXORPD Y2, Y2, Y2
+	VXORPD Y3, Y3, Y3
+	VXORPD Y4, Y4, Y4
+	VXORPD Y5, Y5, Y5
+	VXORPD Y6, Y6, Y6
+	VXORPD Y7, Y7, Y7
+	VXORPD Y8, Y8, Y8
+	XORQ DI, DI
+	XORQ R11, R11
+	XORQ R12, R12
+	XORQ R13, R13
+	TESTQ CX, CX
+	JEQ cdone
+
+cloop:
+	// The unit's components, lane 3 +0; their sums.
+	VMOVUPD (SI), X9
+	VMOVSD 16(SI), X12
+	VINSERTF128 $1, X12, Y9, Y9
+	VADDPD Y9, Y3, Y3
+	// P: positive past the round-off; N: negative past it (false for
+	// NaN).
+	VCMPPD $0x1e, 0(AX), Y9, Y10
+	VCMPPD $0x11, 32(AX), Y9, Y11
+	// Listed for effect j: P and at least its threshold, or N and at
+	// most its negated threshold.
+	VCMPPD $0x1d, 64(AX), Y9, Y12
+	VANDPD Y10, Y12, Y12
+	VCMPPD $0x12, 96(AX), Y9, Y13
+	VANDPD Y11, Y13, Y13
+	VORPD Y12, Y13, Y12
+	VMOVMSKPD Y12, DX
+	MOVL DI, (R8)(R11*4)
+	MOVL DI, (R9)(R12*4)
+	MOVL DI, (R10)(R13*4)
+	BTL $0, DX
+	ADCQ $0, R11
+	BTL $1, DX
+	ADCQ $0, R12
+	BTL $2, DX
+	ADCQ $0, R13
+	// The counts.
+	VANDPD 128(AX), Y10, Y13
+	VADDPD Y13, Y4, Y4
+	VANDPD 128(AX), Y11, Y13
+	VADDPD Y13, Y5, Y5
+	// Effect j's P in every lane, the unit's components where it holds
+	// (+0 elsewhere) to effect j's sums.
+	VPERMILPD $0, Y10, Y12
+	VPERM2F128 $0x00, Y12, Y12, Y13
+	VANDPD Y9, Y13, Y13
+	VADDPD Y13, Y0, Y0
+	VPERM2F128 $0x11, Y12, Y12, Y13
+	VANDPD Y9, Y13, Y13
+	VADDPD Y13, Y2, Y2
+	VPERMILPD $0xf, Y10, Y12
+	VPERM2F128 $0x00, Y12, Y12, Y13
+	VANDPD Y9, Y13, Y13
+	VADDPD Y13, Y1, Y1
+	// Round-off for some effect (neither P nor N): its sums, rare.
+	VORPD Y10, Y11, Y12
+	VMOVMSKPD Y12, DX
+	ANDL $7, DX
+	CMPL DX, $7
+	JNE czero
+
+cnext:
+	ADDQ $24, SI
+	INCQ DI
+	CMPQ DI, CX
+	JNE cloop
+
+cdone:
+	MOVQ out+48(FP), BX
+	VMOVUPD Y0, 0(BX)
+	VMOVUPD Y1, 32(BX)
+	VMOVUPD Y2, 64(BX)
+	VMOVUPD Y3, 96(BX)
+	VMOVUPD Y4, 128(BX)
+	VMOVUPD Y5, 160(BX)
+	VMOVUPD Y6, 192(BX)
+	VMOVUPD Y7, 224(BX)
+	VMOVUPD Y8, 256(BX)
+	MOVQ R11, k0+56(FP)
+	MOVQ R12, k1+64(FP)
+	MOVQ R13, k2+72(FP)
+	VZEROUPPER
+	RET
+
+czero:
+	// Effect j's round-off flag (not P|N) in every lane: the unit's
+	// components where it holds (+0 elsewhere) to effect j's round-off
+	// sums.
+	VPERMILPD $0, Y12, Y13
+	VPERM2F128 $0x00, Y13, Y13, Y14
+	VANDNPD Y9, Y14, Y14
+	VADDPD Y14, Y6, Y6
+	VPERM2F128 $0x11, Y13, Y13, Y14
+	VANDNPD Y9, Y14, Y14
+	VADDPD Y14, Y8, Y8
+	VPERMILPD $0xf, Y12, Y13
+	VPERM2F128 $0x00, Y13, Y13, Y14
+	VANDNPD Y9, Y14, Y14
+	VADDPD Y14, Y7, Y7
+	JMP cnext
+
+// func largestSignsAVX(units *[3]float64, nu int, out *[3][4]float64)
+//
+// One unit at a time, its three components in lanes 0 to 2 (lane 3 +0):
+// out[0] the largest of +0 and the units' values (VMAXPD gives its second
+// source, the running largest, unless the value is larger: a NaN or −0
+// left out), out[1] the smallest of +0 and them (VMINPD, likewise), out[2]
+// all ones in a lane where some value is a NaN.
+TEXT ·largestSignsAVX(SB), NOSPLIT, $0-24
+	MOVQ units+0(FP), SI
+	MOVQ nu+8(FP), CX
+	MOVQ out+16(FP), BX
+	VXORPD Y0, Y0, Y0
+	VXORPD Y1, Y1, Y1
+	VXORPD Y2, Y2, Y2
+	TESTQ CX, CX
+	JEQ gdone
+
+gloop:
+	VMOVUPD (SI), X9
+	VMOVSD 16(SI), X12
+	VINSERTF128 $1, X12, Y9, Y9
+	VMAXPD Y0, Y9, Y0
+	VMINPD Y1, Y9, Y1
+	VCMPPD $3, Y9, Y9, Y10
+	VORPD Y10, Y2, Y2
+	ADDQ $24, SI
+	DECQ CX
+	JNE gloop
+
+gdone:
+	VMOVUPD Y0, 0(BX)
+	VMOVUPD Y1, 32(BX)
+	VMOVUPD Y2, 64(BX)
+	VZEROUPPER
+	RET

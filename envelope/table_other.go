@@ -24,3 +24,15 @@ func firstSignsAVX(rows *[4]*float64, a, v, n *float64, nu int, c *firstConsts, 
 func foldSignsAVX(x *[2]*float64, n, v, a *float64, nu int, c *foldConsts, out *[11][2]float64) {
 	panic("envelope: foldSignsAVX without AVX")
 }
+
+func largestFirstAVX(ends *[6]float64, n, v, a *float64, cnt int, c *bigConsts, big *[4]float64) {
+	panic("envelope: largestFirstAVX without AVX")
+}
+
+func classify3AVX(units *[3]float64, nu int, c *class3Consts, l0, l1, l2 *int32, out *class3Out) (k0, k1, k2 int) {
+	panic("envelope: classify3AVX without AVX")
+}
+
+func largestSignsAVX(units *[3]float64, nu int, out *[3][4]float64) {
+	panic("envelope: largestSignsAVX without AVX")
+}

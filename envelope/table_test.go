@@ -224,7 +224,8 @@ func TestSignsOfIsClassify(t *testing.T) {
 // TestListReaching checks the units listed for ranking (listReaching,
 // with AVX four at a time and in pure Go) against the units of each sign
 // past the round-off that reach the thresholds, compared one by one: the
-// same units in the same order; a NaN threshold lists none.
+// same units in the same order, for every count of units to 40 and for
+// 503; a NaN threshold lists none.
 func TestListReaching(t *testing.T) {
 	rng := rand.New(rand.NewPCG(9, 1))
 	mv := make([]float64, 503)
@@ -236,27 +237,115 @@ func TestListReaching(t *testing.T) {
 	}
 	mv[7], mv[9] = 1, -2 // exactly at the thresholds {1, 2}
 	const nz = 0.05
+	all := mv
 	for _, th := range [][2]float64{{0.1, 0.1}, {1, 2}, {3, 0.06}, {10, 10}, {math.NaN(), math.NaN()}} {
 		for _, avx := range []bool{false, true} {
 			if avx && !hasAVXHere() {
 				continue
 			}
-			t.Run(fmt.Sprintf("%v AVX %v", th, avx), func(t *testing.T) {
-				defer func(v bool) { useAVX = v }(useAVX)
-				useAVX = avx
-				got := listReaching(mv, th[0], th[1], make([]int32, len(mv)+4), make([]int32, len(mv)+4))
-				var want [2][]int32
-				for u, m := range mv {
-					if m > nz && m >= th[0] {
-						want[0] = append(want[0], int32(u))
-					} else if m < -nz && -m >= th[1] {
-						want[1] = append(want[1], int32(u))
+			// Every length to 40 (groups of eight and four, and what
+			// is left), and all of them.
+			for n := 0; n <= len(all); n++ {
+				if n > 40 && n < len(all) {
+					continue
+				}
+				mv := all[:n]
+				t.Run(fmt.Sprintf("%v AVX %v %d units", th, avx, n), func(t *testing.T) {
+					defer func(v bool) { useAVX = v }(useAVX)
+					useAVX = avx
+					got := listReaching(mv, th[0], th[1], make([]int32, len(mv)+4), make([]int32, len(mv)+4))
+					var want [2][]int32
+					for u, m := range mv {
+						if m > nz && m >= th[0] {
+							want[0] = append(want[0], int32(u))
+						} else if m < -nz && -m >= th[1] {
+							want[1] = append(want[1], int32(u))
+						}
+					}
+					if !reflect.DeepEqual(append([]int32{}, got[0]...), append([]int32{}, want[0]...)) || !reflect.DeepEqual(append([]int32{}, got[1]...), append([]int32{}, want[1]...)) {
+						t.Errorf("listed %v, want %v", got, want)
+					}
+				})
+			}
+		}
+	}
+}
+
+// TestLargestFirst checks the units' N, V and M₀ and the largest sizes a
+// first-order member's fold starts from (largestFirst, with AVX run by
+// run between the units that load the member, and in pure Go) against
+// the definition unit by unit: N = −g₀, V = g₁, M₀ = −g₂ from each unit's
+// forces at the member's start, zero for the units of own, and the
+// largest |N|, |V| and |M| (M at the start, M₀, and at the end, M₀ + l·V)
+// over the others, raising the sizes given, NaN left out; bit for bit.
+// own lists are ascending, as the fold forms them, and also out of order
+// or past the units, where an entry not past the one before is never met
+// and stops the zeroing (as a merge of two ascending lists would).
+func TestLargestFirst(t *testing.T) {
+	rng := rand.New(rand.NewPCG(4, 2))
+	num := func() float64 {
+		switch rng.IntN(12) {
+		case 0:
+			return 0
+		case 1:
+			return math.Copysign(0, -1)
+		case 2:
+			return math.NaN()
+		case 3:
+			return math.Inf(-1)
+		}
+		return rng.NormFloat64() * 100
+	}
+	const l = 6.5
+	for _, nu := range []int{0, 1, 3, 4, 17, 300} {
+		for _, own := range [][]int{nil, {0}, {2}, {0, 1, 2}, {1, 5, 16}, {5, 5, 7}, {7, 3, 9}, {nu - 1}, {nu + 2, 1}} {
+			for _, start := range [][3]float64{{0, 0, 0}, {50, 60, 70}, {1e9, 1e9, 1e9}} {
+				ends := make([][6]float64, nu)
+				for u := range ends {
+					for k := range ends[u] {
+						ends[u][k] = num()
 					}
 				}
-				if !reflect.DeepEqual(append([]int32{}, got[0]...), append([]int32{}, want[0]...)) || !reflect.DeepEqual(append([]int32{}, got[1]...), append([]int32{}, want[1]...)) {
-					t.Errorf("listed %v, want %v", got, want)
+				// The definition.
+				wantN, wantV, wantA := make([]float64, nu), make([]float64, nu), make([]float64, nu)
+				want := start
+				next := 0 // own[next] is the unit of own met next
+				raise := func(b *float64, s float64) {
+					if s > *b {
+						*b = s
+					}
 				}
-			})
+				for u := range nu {
+					if next < len(own) && own[next] == u {
+						next++
+						continue
+					}
+					x, y, z := -ends[u][0], ends[u][1], -ends[u][2]
+					wantN[u], wantV[u], wantA[u] = x, y, z
+					raise(&want[0], math.Abs(x))
+					raise(&want[1], math.Abs(y))
+					raise(&want[2], math.Abs(z))
+					raise(&want[2], math.Abs(z+l*y))
+				}
+				for _, avx := range []bool{false, true} {
+					if avx && !hasAVXHere() {
+						continue
+					}
+					func() {
+						defer func(v bool) { useAVX = v }(useAVX)
+						useAVX = avx
+						n, v, a := make([]float64, nu), make([]float64, nu), make([]float64, nu)
+						for u := range nu { // what the units of own must overwrite
+							n[u], v[u], a[u] = 1, 1, 1
+						}
+						got := start
+						largestFirst(&got, n, v, a, ends, own, l)
+						if !sameBits(n, wantN) || !sameBits(v, wantV) || !sameBits(a, wantA) || !sameBits(got[:], want[:]) {
+							t.Errorf("%d units, own %v, sizes from %v, AVX %v: sizes %v, want %v", nu, own, start, avx, got, want)
+						}
+					}()
+				}
+			}
 		}
 	}
 }

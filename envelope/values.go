@@ -208,6 +208,7 @@ func valueOfRow(e *evaluator, w *work, rs *rowScan) (x [3]Extreme, ok bool) {
 		return valueOf(e, w)
 	}
 	w.noise = [3]float64{math.Float64frombits(b0) * roundOff, math.Float64frombits(b1) * roundOff, math.Float64frombits(b2) * roundOff}
+	clear(pl.nvID)
 	for p := range e.lay.Patterned {
 		if e.uses(p) {
 			pl.scanRow(e, w, rs, p)
@@ -231,6 +232,13 @@ func largestSizes(e *evaluator, w *work, pl *exactPlacement) (b0, b1, b2 uint64)
 	}
 	for p, pc := range e.lay.Patterned {
 		var p0, p1, p2, n0, n1, n2 uint64
+		if units := w.ev[e.first[p] : e.first[p]+len(pc.Units)]; useAVX && len(units) > 0 {
+			p0, p1, p2, n0, n1, n2 = largestSigns(units)
+			b0, b1, b2 = max(b0, p0, n0), max(b1, p1, n1), max(b2, p2, n2)
+			pl.big[p] = [3][2]float64{{math.Float64frombits(p0), math.Float64frombits(n0)},
+				{math.Float64frombits(p1), math.Float64frombits(n1)}, {math.Float64frombits(p2), math.Float64frombits(n2)}}
+			continue
+		}
 		for _, v := range w.ev[e.first[p] : e.first[p]+len(pc.Units)] {
 			x0, x1, x2 := math.Float64bits(v[0]), math.Float64bits(v[1]), math.Float64bits(v[2])
 			// All ones for a negative number.
@@ -247,6 +255,25 @@ func largestSizes(e *evaluator, w *work, pl *exactPlacement) (b0, b1, b2 uint64)
 	return b0, b1, b2
 }
 
+// largestSigns returns, as bits, the largest positive value of each
+// component of units (+0 for none) and the largest size of a negative one
+// (+0 for none), as largestSizes forms them with AVX (largestSignsAVX): a
+// component with a NaN gives a NaN for both, as the bits of a NaN of
+// either sign give one there (largestSizes then reports a size past
+// every number, and valueOfRow takes valueOf's path). len(units) > 0.
+func largestSigns(units [][3]float64) (p0, p1, p2, n0, n1, n2 uint64) {
+	var out [3][4]float64
+	largestSignsAVX(&units[0], len(units), &out)
+	var pos, neg [3]uint64
+	for q := range 3 {
+		pos[q], neg[q] = math.Float64bits(out[0][q]), math.Float64bits(0-out[1][q])
+		if math.Float64bits(out[2][q]) != 0 {
+			pos[q], neg[q] = math.Float64bits(math.NaN()), math.Float64bits(math.NaN())
+		}
+	}
+	return pos[0], pos[1], pos[2], neg[0], neg[1], neg[2]
+}
+
 // largestSizes1 is largestSizes for the first component alone, the others
 // zero: their sizes in pl.big are zero.
 func largestSizes1(e *evaluator, w *work, pl *exactPlacement) (b0 uint64) {
@@ -255,6 +282,13 @@ func largestSizes1(e *evaluator, w *work, pl *exactPlacement) (b0 uint64) {
 	}
 	for p, pc := range e.lay.Patterned {
 		var p0, n0 uint64
+		if units := w.ev[e.first[p] : e.first[p]+len(pc.Units)]; useAVX && len(units) > 0 {
+			// The other components are zero: their sizes too.
+			p0, _, _, n0, _, _ = largestSigns(units)
+			b0 = max(b0, p0, n0)
+			pl.big[p] = [3][2]float64{{math.Float64frombits(p0), math.Float64frombits(n0)}}
+			continue
+		}
 		for _, v := range w.ev[e.first[p] : e.first[p]+len(pc.Units)] {
 			x0 := math.Float64bits(v[0])
 			m0 := uint64(int64(x0) >> 63) // all ones for a negative number
@@ -300,16 +334,22 @@ func (pl *exactPlacement) scanRow(e *evaluator, w *work, rs *rowScan, p int) {
 	var count [3][2]int
 	var tot [3]float64
 	var listed [3]int
-	for j := range e.nEff {
-		switch {
-		case e.nEff == 1:
-			// The other components are zero (ValuesRows): so are their sums.
-			listed[j] = rs.classify1(units, w.noise[j], &thr[j], &sum[j][0], &zero[j], &tot, &count[j])
-		case j == 0:
-			listed[j] = rs.classify(units, j, w.noise[j], &thr[j], &sum[j][0], &zero[j], &tot, &count[j])
-		default: // the sums of all the units are the first pass's
-			listed[j] = rs.classifyPart(units, j, w.noise[j], &thr[j], &sum[j][0], &zero[j], &count[j])
+	switch {
+	case e.nEff == 1:
+		// The other components are zero (ValuesRows): so are their sums.
+		listed[0] = rs.classify1(units, w.noise[0], &thr[0], &sum[0][0], &zero[0], &tot, &count[0])
+	case e.nEff == 3 && classify3s:
+		listed = rs.classify3(units, &w.noise, &thr, &sum, &zero, &tot, &count)
+	default:
+		for j := range e.nEff {
+			if j == 0 {
+				listed[j] = rs.classify(units, j, w.noise[j], &thr[j], &sum[j][0], &zero[j], &tot, &count[j])
+			} else { // the sums of all the units are the first pass's
+				listed[j] = rs.classifyPart(units, j, w.noise[j], &thr[j], &sum[j][0], &zero[j], &count[j])
+			}
 		}
+	}
+	for j := range e.nEff {
 		for s := range 2 {
 			neg := s == 1
 			h := rankRow(top[j][s][:0], units, j, neg, w.noise[j], rs.list[j][:listed[j]], thr[j][s], w.limit)
@@ -367,6 +407,57 @@ func (rs *rowScan) classify(units [][3]float64, j int, nz float64, thr *[2]float
 	*pos, *tot = [3]float64{s0, s1, s2}, [3]float64{t0, t1, t2}
 	*count = [2]int{np, nn}
 	return k
+}
+
+// classify3s is whether scanRow classifies the units for the three
+// effects in one pass with AVX (classify3); the tests turn it off to
+// compare.
+var classify3s = true
+
+// class3Consts is what classify3AVX reads, a lane per effect: the
+// round-off nz and −nz, the thresholds of the positive units and the
+// negated ones of the negative units, and 1.
+type class3Consts struct {
+	nz, negNz, tp, negTn, one [4]float64
+}
+
+// class3Out is what classify3AVX forms, a lane per component: per effect
+// the sums of the positive units; the sums of all; per effect (lane) the
+// counts of each sign; per effect the sums of the round-off units.
+type class3Out struct {
+	pos         [3][4]float64
+	tot, cp, cn [4]float64
+	zero        [3][4]float64
+}
+
+// classify3 is classify for the three effects at once, with AVX, in one
+// pass over the units (classify3AVX): for each effect j the same sums,
+// in the same order, counts and list rs.list[j] as classify's pass for
+// j, and the sums of all the units; it returns how many units are listed
+// for each effect. zero must hold zeros. Without AVX, or for no unit, it
+// is classify and classifyPart, effect by effect.
+func (rs *rowScan) classify3(units [][3]float64, nz *[3]float64, thr *[3][2]float64, pos *[3][2][3]float64, zero *[3][3]float64, tot *[3]float64, count *[3][2]int) (listed [3]int) {
+	if !useAVX || len(units) == 0 {
+		listed[0] = rs.classify(units, 0, nz[0], &thr[0], &pos[0][0], &zero[0], tot, &count[0])
+		for j := 1; j < 3; j++ {
+			listed[j] = rs.classifyPart(units, j, nz[j], &thr[j], &pos[j][0], &zero[j], &count[j])
+		}
+		return listed
+	}
+	var c class3Consts
+	for j := range 3 {
+		c.nz[j], c.negNz[j], c.tp[j], c.negTn[j], c.one[j] = nz[j], -nz[j], thr[j][0], -thr[j][1], 1
+	}
+	var out class3Out
+	l0, l1, l2 := rs.list[0][:len(units)], rs.list[1][:len(units)], rs.list[2][:len(units)]
+	listed[0], listed[1], listed[2] = classify3AVX(&units[0], len(units), &c, &l0[0], &l1[0], &l2[0], &out)
+	for j := range 3 {
+		pos[j][0] = [3]float64{out.pos[j][0], out.pos[j][1], out.pos[j][2]}
+		zero[j] = [3]float64{out.zero[j][0], out.zero[j][1], out.zero[j][2]}
+		count[j] = [2]int{int(out.cp[j]), int(out.cn[j])}
+	}
+	*tot = [3]float64{out.tot[0], out.tot[1], out.tot[2]}
+	return listed
 }
 
 // classifyPart is classify without the sums of all the units, which the

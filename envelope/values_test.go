@@ -6,6 +6,7 @@ import (
 	"math"
 	"math/rand/v2"
 	"runtime"
+	"slices"
 	"strings"
 	"testing"
 	"time"
@@ -351,4 +352,168 @@ func BenchmarkValuesRows(b *testing.B) {
 // b, as cpu-ns/op.
 func reportCPU(b *testing.B, start time.Duration) {
 	b.ReportMetric(float64(cputime.Now()-start)/float64(b.N), "cpu-ns/op")
+}
+
+// TestClassify3 checks the pass over a row's units for the three effects
+// at once (rowScan.classify3, with AVX and without) against the
+// definition, effect by effect, bit for bit: the sums of the components
+// of the units whose effect j is positive past the round-off and of
+// those of neither sign, in the order of the units, the sums of all, the
+// counts of each sign, and the units listed for ranking (of a sign, and
+// reaching its threshold), in order. The units have effects of either
+// sign, at and near the round-off and zeros of either sign.
+func TestClassify3(t *testing.T) {
+	rng := rand.New(rand.NewPCG(5, 17))
+	nz := [3]float64{1e-3, 2e-3, 0}
+	num := func(j int) float64 {
+		switch rng.IntN(12) {
+		case 0:
+			return 0
+		case 1:
+			return math.Copysign(0, -1)
+		case 2:
+			return nz[j]
+		case 3:
+			return -nz[j]
+		case 4:
+			return nz[j] * rng.Float64()
+		case 5:
+			return 0.5 // at the thresholds below
+		case 6:
+			return -0.25
+		}
+		return rng.NormFloat64()
+	}
+	thr := [3][2]float64{{0.5, 0.25}, {0.5, 0.25}, {1, 2}}
+	for _, nu := range []int{0, 1, 2, 7, 400} {
+		for _, avx := range []bool{false, true} {
+			if avx && !hasAVXHere() {
+				continue
+			}
+			units := make([][3]float64, nu)
+			for u := range units {
+				units[u] = [3]float64{num(0), num(1), num(2)}
+			}
+			rs := &rowScan{}
+			for j := range rs.list {
+				rs.list[j] = make([]int32, nu)
+			}
+			var pos [3][2][3]float64
+			var zero [3][3]float64
+			var tot [3]float64
+			var count [3][2]int
+			func() {
+				defer func(v bool) { useAVX = v }(useAVX)
+				useAVX = avx
+				listed := rs.classify3(units, &nz, &thr, &pos, &zero, &tot, &count)
+				var wantTot [3]float64
+				for _, v := range units {
+					for q := range 3 {
+						wantTot[q] += v[q]
+					}
+				}
+				if !sameBits(tot[:], wantTot[:]) {
+					t.Errorf("%d units, AVX %v: sums %v, want %v", nu, avx, tot, wantTot)
+				}
+				for j := range 3 {
+					var wantPos, wantZero [3]float64
+					var wantCount [2]int
+					var wantList []int32
+					for u, v := range units {
+						x := v[j]
+						switch {
+						case x > nz[j]:
+							for q := range 3 {
+								wantPos[q] += v[q]
+							}
+							wantCount[0]++
+							if x >= thr[j][0] {
+								wantList = append(wantList, int32(u))
+							}
+						case x < -nz[j]:
+							wantCount[1]++
+							if -x >= thr[j][1] {
+								wantList = append(wantList, int32(u))
+							}
+						default:
+							for q := range 3 {
+								wantZero[q] += v[q]
+							}
+						}
+					}
+					got := rs.list[j][:listed[j]]
+					if !sameBits(pos[j][0][:], wantPos[:]) || !sameBits(zero[j][:], wantZero[:]) || count[j] != wantCount || !slices.Equal(got, wantList) {
+						t.Errorf("%d units, AVX %v, effect %d: %v %v %v %v, want %v %v %v %v", nu, avx, j, pos[j][0], zero[j], count[j], got, wantPos, wantZero, wantCount, wantList)
+					}
+				}
+			}()
+		}
+	}
+}
+
+// TestLargestSigns checks the largest positive value and the largest size
+// of a negative one of each component of a row's units, with AVX
+// (largestSigns), against the definition value by value: +0 for none (a
+// zero of either sign counts as neither), infinities as they are, and a
+// NaN for both where some value of the component is a NaN.
+func TestLargestSigns(t *testing.T) {
+	if !hasAVXHere() {
+		t.Skip("no AVX")
+	}
+	rng := rand.New(rand.NewPCG(11, 3))
+	for trial := range 300 {
+		nu := 1 + rng.IntN(40)
+		units := make([][3]float64, nu)
+		for u := range units {
+			for q := range 3 {
+				switch rng.IntN(30) {
+				case 0:
+					units[u][q] = math.NaN()
+				case 1:
+					units[u][q] = math.Inf(1)
+				case 2:
+					units[u][q] = math.Inf(-1)
+				case 3, 4:
+					units[u][q] = math.Copysign(0, -1)
+				case 5, 6:
+					units[u][q] = 0
+				default:
+					units[u][q] = rng.NormFloat64() * math.Pow(10, float64(rng.IntN(9)-4))
+				}
+			}
+		}
+		if trial%3 == 0 { // every value of component 1 negative
+			for u := range units {
+				units[u][1] = -math.Abs(units[u][1]) - 1
+			}
+		}
+		p0, p1, p2, n0, n1, n2 := largestSigns(units)
+		got := [3][2]uint64{{p0, n0}, {p1, n1}, {p2, n2}}
+		for q := range 3 {
+			var pos, neg float64 // +0
+			nan := false
+			for _, v := range units {
+				x := v[q]
+				switch {
+				case math.IsNaN(x):
+					nan = true
+				case x > pos:
+					pos = x
+				case -x > neg:
+					neg = -x
+				}
+			}
+			want := [2]uint64{math.Float64bits(pos), math.Float64bits(neg)}
+			if nan {
+				if !math.IsNaN(math.Float64frombits(got[q][0])) || !math.IsNaN(math.Float64frombits(got[q][1])) {
+					t.Errorf("trial %d, component %d: %v, want NaN", trial, q, got[q])
+				}
+				continue
+			}
+			if got[q] != want {
+				t.Errorf("trial %d, component %d: %v %v, want %v %v", trial, q,
+					math.Float64frombits(got[q][0]), math.Float64frombits(got[q][1]), pos, neg)
+			}
+		}
+	}
 }
