@@ -91,11 +91,26 @@ func (sol *Solution) Balance(c int) Balance { return sol.BalanceOf([]int{c}) }
 // residuals of that sum. Checking a patterned case through the sum of its
 // pieces costs one pass over the members, not one per piece.
 func (sol *Solution) BalanceOf(cs []int) Balance {
+	return sol.balanceOf(make([]float64, 3*len(sol.model.Nodes)), cs)
+}
+
+// BalanceSums is [Solution.BalanceOf] that leaves in u the displacements
+// it checks: those of cases cs summed, as [Solution.DisplacementSums] sets
+// them, to the last bit. A caller that needs both is spared reading the
+// solution twice. u must have 3 entries per node.
+func (sol *Solution) BalanceSums(u []float64, cs []int) Balance {
+	if len(u) != 3*len(sol.model.Nodes) {
+		panic("frame: BalanceSums: u has the wrong length")
+	}
+	return sol.balanceOf(u, cs)
+}
+
+// balanceOf is BalanceOf with the summed displacements set in u.
+func (sol *Solution) balanceOf(u []float64, cs []int) Balance {
 	mo := sol.model
 	nn, nm := len(mo.Nodes), len(mo.Members)
 	x0, y0, x1, y1 := box(mo)
 	b := Balance{Length: math.Hypot(x1-x0, y1-y0), X0: x0, Y0: y0}
-	u := make([]float64, 3*nn)
 	fem := make([]float64, 6*nm)
 	acc := make([]float64, 3*nn) // node loads less the end forces on the members
 	for _, c := range cs {
