@@ -137,7 +137,11 @@ func (r *Result) Cases() []CaseResult {
 // number of nodes.
 func (r *Result) caseNodes(cr *CaseResult, c int, cols []int, u []float64) {
 	mo := r.Job.Model
-	r.sol.DisplacementSums(u, cols)
+	if c < len(r.sums) && r.sums[c] != nil {
+		u = r.sums[c] // the statics check's, the same sums (statics)
+	} else {
+		r.sol.DisplacementSums(u, cols)
+	}
 	for v := range mo.Nodes {
 		nd := &mo.Nodes[v]
 		d := Displacement{Node: v, RotationFree: r.sol.RotationFree(v), Ux: u[3*v], Uy: u[3*v+1]}
