@@ -97,8 +97,8 @@ func (r *Result) Cases() []CaseResult {
 					return
 				}
 				if k < len(mo.Cases) {
-					if u == nil {
-						u = make([]float64, 3*len(mo.Nodes))
+					if u == nil && (k >= len(r.sums) || r.sums[k] == nil) {
+						u = make([]float64, 3*len(mo.Nodes)) // the statics check's sums are not there
 					}
 					r.caseNodes(&out[k], k, cols[k], u)
 					continue
