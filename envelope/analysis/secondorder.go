@@ -242,6 +242,25 @@ func axialForces(sol *frame.Solution, c int) []float64 {
 	return out
 }
 
+// axialForcesFirst returns axialForces(sol, c) for the first n cases c,
+// read member by member: a member's displacements in neighbouring cases
+// share cache lines, which case by case are read again from memory for
+// every case.
+func axialForcesFirst(sol *frame.Solution, n int) [][]float64 {
+	mo := sol.Model()
+	out := make([][]float64, n)
+	for c := range out {
+		out[c] = make([]float64, len(mo.Members))
+	}
+	for m := range mo.Members {
+		for c := range out {
+			f := sol.EndForces(c, m)
+			out[c][m] = (-f[0] + f[3]) / 2
+		}
+	}
+	return out
+}
+
 // stiffnessOf returns the sections and members of mo with stiffness s: the
 // sections as given (Nominal), or copies scaled by the job's factors, one
 // per section.
@@ -1209,10 +1228,7 @@ func (r *Result) firstOrderStabilityShared(us []*unit, base *frame.Model, stiff 
 	if err != nil {
 		return false, nil
 	}
-	ns := make([][]float64, len(us))
-	for i := range us {
-		ns[i] = axialForces(s, i)
-	}
+	ns := axialForcesFirst(s, len(us))
 	// The storeys beside the critical load factors, as firstOrderStability
 	// has them: they share nothing they write.
 	done := make(chan struct{})
