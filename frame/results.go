@@ -43,9 +43,29 @@ func (sol *Solution) DisplacementsTo(dst [][3]float64, v int) {
 	if len(dst) != len(sol.model.Cases) {
 		panic("frame: DisplacementsTo: dst has the wrong length")
 	}
+	// Where all three directions are solved (no support, settlement or
+	// free rotation), each case's three values are written at once, in
+	// one pass over dst rather than three.
+	if r0, r1, r2 := sol.solvedRow(3*v), sol.solvedRow(3*v+1), sol.solvedRow(3*v+2); r0 != nil && r1 != nil && r2 != nil && !sol.released[v] {
+		r0, r1, r2 = r0[:len(dst)], r1[:len(dst)], r2[:len(dst)]
+		for c := range dst {
+			dst[c] = [3]float64{r0[c], r1[c], r2[c]}
+		}
+		return
+	}
 	for d := range 3 {
 		sol.componentTo(dst, v, d)
 	}
+}
+
+// solvedRow returns every case's value of displacement component i
+// (3 × node + direction) where it is solved for, else nil.
+func (sol *Solution) solvedRow(i int) []float64 {
+	nc := len(sol.model.Cases)
+	if e := sol.dof[i]; e >= 0 {
+		return sol.x[e*nc : (e+1)*nc]
+	}
+	return nil
 }
 
 // DisplacementTo sets dst[c][d] to the displacement of node v in
