@@ -176,3 +176,25 @@ func TestBalanceSumsIsBalanceOfAndTheSums(t *testing.T) {
 		}
 	}
 }
+
+// BenchmarkBalanceOf measures the statics check of every case of a
+// regular frame with one load case per beam, acting together, as a
+// patterned case is checked through the sum of its pieces: most of it is
+// the sums of the displacements over the cases (rowSums).
+func BenchmarkBalanceOf(b *testing.B) {
+	mo := pieceFrame(30, 60)
+	sol, err := Solve(mo)
+	if err != nil {
+		b.Fatal(err)
+	}
+	all := make([]int, len(mo.Cases))
+	for c := range all {
+		all[c] = c
+	}
+	b.Run(fmt.Sprintf("30x60/%d-cases", len(all)), func(b *testing.B) {
+		b.ReportAllocs()
+		for b.Loop() {
+			sol.BalanceOf(all)
+		}
+	})
+}
