@@ -91,11 +91,26 @@ func (sol *Solution) Balance(c int) Balance { return sol.BalanceOf([]int{c}) }
 // residuals of that sum. Checking a patterned case through the sum of its
 // pieces costs one pass over the members, not one per piece.
 func (sol *Solution) BalanceOf(cs []int) Balance {
+	return sol.balanceOf(make([]float64, 3*len(sol.model.Nodes)), cs)
+}
+
+// BalanceSums is [Solution.BalanceOf] that leaves in u the displacements
+// it checks: those of cases cs summed, as [Solution.DisplacementSums] sets
+// them, to the last bit. A caller that needs both is spared reading the
+// solution twice. u must have 3 entries per node.
+func (sol *Solution) BalanceSums(u []float64, cs []int) Balance {
+	if len(u) != 3*len(sol.model.Nodes) {
+		panic("frame: BalanceSums: u has the wrong length")
+	}
+	return sol.balanceOf(u, cs)
+}
+
+// balanceOf is BalanceOf with the summed displacements set in u.
+func (sol *Solution) balanceOf(u []float64, cs []int) Balance {
 	mo := sol.model
 	nn, nm := len(mo.Nodes), len(mo.Members)
 	x0, y0, x1, y1 := box(mo)
 	b := Balance{Length: math.Hypot(x1-x0, y1-y0), X0: x0, Y0: y0}
-	u := make([]float64, 3*nn)
 	fem := make([]float64, 6*nm)
 	acc := make([]float64, 3*nn) // node loads less the end forces on the members
 	for _, c := range cs {
@@ -317,8 +332,9 @@ func absIntegral(wa, wb, length float64) float64 {
 
 // rowSums sets u[i] to the sum of displacement component i (3*node+d) over
 // the cases cs, added in the order of cs: row by row, each row of the
-// solution read along its contiguous cases once, four rows at a time (four
-// independent sums in flight; each row's order is that of cs).
+// solution read along its contiguous cases once, eight rows at a time
+// (eight independent sums in flight, where one row's additions would
+// each wait on the one before; each row's order is that of cs).
 func (sol *Solution) rowSums(u []float64, cs []int) {
 	nc := len(sol.model.Cases)
 	row := func(i int) []float64 {
@@ -331,22 +347,28 @@ func (sol *Solution) rowSums(u []float64, cs []int) {
 		return nil
 	}
 	i := 0
-	for ; i+4 <= len(u); i += 4 {
+	for ; i+8 <= len(u); i += 8 {
 		r0, r1, r2, r3 := row(i), row(i+1), row(i+2), row(i+3)
-		if r0 == nil || r1 == nil || r2 == nil || r3 == nil {
-			for k := i; k < i+4; k++ {
+		r4, r5, r6, r7 := row(i+4), row(i+5), row(i+6), row(i+7)
+		if r0 == nil || r1 == nil || r2 == nil || r3 == nil || r4 == nil || r5 == nil || r6 == nil || r7 == nil {
+			for k := i; k < i+8; k++ {
 				u[k] = sum(row(k), cs)
 			}
 			continue
 		}
-		var s0, s1, s2, s3 float64
+		var s0, s1, s2, s3, s4, s5, s6, s7 float64
 		for _, c := range cs {
 			s0 += r0[c]
 			s1 += r1[c]
 			s2 += r2[c]
 			s3 += r3[c]
+			s4 += r4[c]
+			s5 += r5[c]
+			s6 += r6[c]
+			s7 += r7[c]
 		}
 		u[i], u[i+1], u[i+2], u[i+3] = s0, s1, s2, s3
+		u[i+4], u[i+5], u[i+6], u[i+7] = s4, s5, s6, s7
 	}
 	for ; i < len(u); i++ {
 		u[i] = sum(row(i), cs)

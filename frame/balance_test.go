@@ -130,3 +130,71 @@ func TestBalanceFarFromTheOrigin(t *testing.T) {
 		})
 	}
 }
+
+// BalanceSums gives BalanceOf's check and leaves in u the displacements
+// summed over the cases, as DisplacementSums gives them and as the sums
+// of Displacement over the cases in their order, to the bit: on a frame
+// with every kind of load and a settlement, each case alone, several
+// together and none.
+func TestBalanceSumsIsBalanceOfAndTheSums(t *testing.T) {
+	mo := columnsFrame()
+	sol := solve(t, mo)
+	all := make([]int, len(mo.Cases))
+	for c := range all {
+		all[c] = c
+	}
+	sets := [][]int{nil, all, {len(all) - 1, 0}}
+	for c := range all {
+		sets = append(sets, []int{c})
+	}
+	for _, cs := range sets {
+		u := make([]float64, 3*len(mo.Nodes))
+		for i := range u {
+			u[i] = 7 // overwritten
+		}
+		got := sol.BalanceSums(u, cs)
+		if want := sol.BalanceOf(cs); got != want {
+			t.Errorf("cases %v: BalanceSums %+v, BalanceOf %+v", cs, got, want)
+		}
+		sums := make([]float64, len(u))
+		sol.DisplacementSums(sums, cs)
+		for v := range mo.Nodes {
+			var direct [3]float64 // the sum of Displacement over cs, in order
+			for _, c := range cs {
+				ux, uy, rz := sol.Displacement(c, v)
+				if sol.RotationFree(v) {
+					rz = 0
+				}
+				direct[0], direct[1], direct[2] = direct[0]+ux, direct[1]+uy, direct[2]+rz
+			}
+			for d := range 3 {
+				i := 3*v + d
+				if math.Float64bits(u[i]) != math.Float64bits(sums[i]) || (!sol.RotationFree(v) || d < 2) && u[i] != direct[d] {
+					t.Fatalf("cases %v, node %d, direction %d: %v, DisplacementSums %v, summed directly %v", cs, v, d, u[i], sums[i], direct[d])
+				}
+			}
+		}
+	}
+}
+
+// BenchmarkBalanceOf measures the statics check of every case of a
+// regular frame with one load case per beam, acting together, as a
+// patterned case is checked through the sum of its pieces: most of it is
+// the sums of the displacements over the cases (rowSums).
+func BenchmarkBalanceOf(b *testing.B) {
+	mo := pieceFrame(30, 60)
+	sol, err := Solve(mo)
+	if err != nil {
+		b.Fatal(err)
+	}
+	all := make([]int, len(mo.Cases))
+	for c := range all {
+		all[c] = c
+	}
+	b.Run(fmt.Sprintf("30x60/%d-cases", len(all)), func(b *testing.B) {
+		b.ReportAllocs()
+		for b.Loop() {
+			sol.BalanceOf(all)
+		}
+	})
+}

@@ -216,7 +216,9 @@ func (mo *Model) Validate() error {
 	if len(mo.Members) == 0 {
 		add("model has no members")
 	}
-	seen := map[string]bool{}
+	// The names of the nodes, then of the sections, members and cases,
+	// each in turn: sized at once for the most, not grown and rehashed.
+	seen := make(map[string]bool, max(len(mo.Nodes), len(mo.Sections), len(mo.Members), len(mo.Cases)))
 	for _, n := range mo.Nodes {
 		if seen[n.Name] {
 			add("node %q: duplicate name", n.Name)

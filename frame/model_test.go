@@ -35,3 +35,16 @@ func TestIsColumnPlumbTolerance(t *testing.T) {
 		})
 	}
 }
+
+// BenchmarkValidate measures Model.Validate on a regular frame with one
+// load case per beam, as pattern loading builds it (pieceFrame): a run
+// validates its model several times.
+func BenchmarkValidate(b *testing.B) {
+	mo := pieceFrame(30, 60)
+	b.ReportAllocs()
+	for b.Loop() {
+		if err := mo.Validate(); err != nil {
+			b.Fatal(err)
+		}
+	}
+}

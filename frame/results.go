@@ -40,32 +40,74 @@ func (sol *Solution) Displacement(c, v int) (ux, uy, rz float64) {
 // direction's values of every case together. dst must have one entry per
 // case.
 func (sol *Solution) DisplacementsTo(dst [][3]float64, v int) {
-	nc := len(sol.model.Cases)
-	if len(dst) != nc {
+	if len(dst) != len(sol.model.Cases) {
 		panic("frame: DisplacementsTo: dst has the wrong length")
 	}
+	// Where all three directions are solved (no support, settlement or
+	// free rotation), each case's three values are written at once, in
+	// one pass over dst rather than three.
+	if r0, r1, r2 := sol.solvedRow(3*v), sol.solvedRow(3*v+1), sol.solvedRow(3*v+2); r0 != nil && r1 != nil && r2 != nil && !sol.released[v] {
+		r0, r1, r2 = r0[:len(dst)], r1[:len(dst)], r2[:len(dst)]
+		for c := range dst {
+			dst[c] = [3]float64{r0[c], r1[c], r2[c]}
+		}
+		return
+	}
 	for d := range 3 {
-		var row []float64 // every case's value, nil for zero
-		switch e := sol.dof[3*v+d]; {
-		case d == 2 && sol.released[v]:
-			for c := range dst {
-				dst[c][d] = math.NaN()
-			}
-			continue
-		case e >= 0:
-			row = sol.x[e*nc : (e+1)*nc]
-		case e < -1:
-			row = sol.imposed[(-2-e)*nc : (-1-e)*nc]
+		sol.componentTo(dst, v, d)
+	}
+}
+
+// solvedRow returns every case's value of displacement component i
+// (3 × node + direction) where it is solved for, else nil.
+func (sol *Solution) solvedRow(i int) []float64 {
+	nc := len(sol.model.Cases)
+	if e := sol.dof[i]; e >= 0 {
+		return sol.x[e*nc : (e+1)*nc]
+	}
+	return nil
+}
+
+// DisplacementTo sets dst[c][d] to the displacement of node v in
+// direction d (0 ux, 1 uy, 2 rz) in every case c, as
+// [Solution.DisplacementsTo] sets it, and leaves the other two directions
+// of dst as they are: a caller that needs one direction (such as a
+// column's drift, from ux) reads a third of the displacements. dst must
+// have one entry per case.
+func (sol *Solution) DisplacementTo(dst [][3]float64, v, d int) {
+	if len(dst) != len(sol.model.Cases) {
+		panic("frame: DisplacementTo: dst has the wrong length")
+	}
+	if d < 0 || d > 2 {
+		panic("frame: DisplacementTo: direction out of range")
+	}
+	sol.componentTo(dst, v, d)
+}
+
+// componentTo sets dst[c][d] to node v's displacement in direction d in
+// every case c, reading the values of every case together.
+func (sol *Solution) componentTo(dst [][3]float64, v, d int) {
+	nc := len(sol.model.Cases)
+	var row []float64 // every case's value, nil for zero
+	switch e := sol.dof[3*v+d]; {
+	case d == 2 && sol.released[v]:
+		for c := range dst {
+			dst[c][d] = math.NaN()
 		}
-		if row == nil {
-			for c := range dst {
-				dst[c][d] = 0
-			}
-			continue
+		return
+	case e >= 0:
+		row = sol.x[e*nc : (e+1)*nc]
+	case e < -1:
+		row = sol.imposed[(-2-e)*nc : (-1-e)*nc]
+	}
+	if row == nil {
+		for c := range dst {
+			dst[c][d] = 0
 		}
-		for c, x := range row {
-			dst[c][d] = x
-		}
+		return
+	}
+	for c, x := range row {
+		dst[c][d] = x
 	}
 }
 

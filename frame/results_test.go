@@ -8,7 +8,9 @@ import (
 )
 
 // DisplacementsTo gives, case by case, what Displacement gives: solved,
-// imposed (a settlement), held (zero) and free rotations (NaN).
+// imposed (a settlement), held (zero) and free rotations (NaN); and
+// DisplacementTo gives each direction of it alone, leaving the other two
+// of dst as they were.
 func TestDisplacementsToMatchesDisplacement(t *testing.T) {
 	hinge := &Model{Sections: []Section{{Name: "S", E: 2e8, A: 1e-2, I: 1e-4}},
 		Nodes: []Node{{Name: "a", Support: Fixed}, {Name: "b", X: 4}, {Name: "c", X: 8, Support: Fixed}},
@@ -39,6 +41,26 @@ func TestDisplacementsToMatchesDisplacement(t *testing.T) {
 						}
 						if math.IsNaN(want[d]) {
 							nan++
+						}
+					}
+				}
+			}
+			one := make([][3]float64, len(tc.mo.Cases))
+			for v := range tc.mo.Nodes {
+				for d := range 3 {
+					const mark = 12345.5 // what the other directions keep
+					for c := range one {
+						one[c] = [3]float64{mark, mark, mark}
+					}
+					sol.DisplacementTo(one, v, d)
+					for c := range one {
+						ux, uy, rz := sol.Displacement(c, v)
+						want := [3]float64{mark, mark, mark}
+						want[d] = [3]float64{ux, uy, rz}[d]
+						for e := range 3 {
+							if math.Float64bits(one[c][e]) != math.Float64bits(want[e]) {
+								t.Fatalf("DisplacementTo node %d, case %d, direction %d: component %d is %v, want %v", v, c, d, e, one[c][e], want[e])
+							}
 						}
 					}
 				}

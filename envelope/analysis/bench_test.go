@@ -100,3 +100,18 @@ func BenchmarkDrifts(b *testing.B) {
 		}
 	}
 }
+
+// BenchmarkSpans measures finding the spans and cantilevers of regular
+// frames (regularJob): the runs of beams, where other members hold them,
+// and their places.
+func BenchmarkSpans(b *testing.B) {
+	for _, size := range []struct{ bays, storeys int }{{10, 10}, {30, 60}} {
+		job := regularJob(size.bays, size.storeys, false)
+		b.Run(fmt.Sprintf("%dx%d", size.bays, size.storeys), func(b *testing.B) {
+			b.ReportAllocs()
+			for b.Loop() {
+				spans(job.Model)
+			}
+		})
+	}
+}

@@ -97,8 +97,8 @@ func (r *Result) Cases() []CaseResult {
 					return
 				}
 				if k < len(mo.Cases) {
-					if u == nil {
-						u = make([]float64, 3*len(mo.Nodes))
+					if u == nil && (k >= len(r.sums) || r.sums[k] == nil) {
+						u = make([]float64, 3*len(mo.Nodes)) // the statics check's sums are not there
 					}
 					r.caseNodes(&out[k], k, cols[k], u)
 					continue
@@ -137,7 +137,11 @@ func (r *Result) Cases() []CaseResult {
 // number of nodes.
 func (r *Result) caseNodes(cr *CaseResult, c int, cols []int, u []float64) {
 	mo := r.Job.Model
-	r.sol.DisplacementSums(u, cols)
+	if c < len(r.sums) && r.sums[c] != nil {
+		u = r.sums[c] // the statics check's, the same sums (statics)
+	} else {
+		r.sol.DisplacementSums(u, cols)
+	}
 	for v := range mo.Nodes {
 		nd := &mo.Nodes[v]
 		d := Displacement{Node: v, RotationFree: r.sol.RotationFree(v), Ux: u[3*v], Uy: u[3*v+1]}

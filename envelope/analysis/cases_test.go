@@ -165,8 +165,9 @@ func TestCasesPatternedWhole(t *testing.T) {
 	}
 }
 
-// Cases forms each case's end forces from every column's at once and its
-// displacements row by row, the members by chunks and the cases' nodes
+// Cases forms each case's end forces from every column's at once and
+// takes its displacements as the statics check summed them row by row
+// (Result.sums), the members by chunks and the cases' nodes
 // on every processor: the same sums, in the same order, as adding up
 // EndForces, Displacement and Reaction column by column, to the last bit,
 // on one processor and on two; on a frame of two spans and on one of
@@ -179,6 +180,10 @@ func TestCasesAreTheColumnSums(t *testing.T) {
 		res, err := Run(context.Background(), tc.job, Options{})
 		if err != nil {
 			t.Fatal(err)
+		}
+		if len(res.sums) != len(tc.job.Model.Cases) {
+			// Cases gives the statics check's sums: those are checked here.
+			t.Fatalf("%s: %d cases' displacement sums kept by the statics check, want %d", tc.name, len(res.sums), len(tc.job.Model.Cases))
 		}
 		for _, procs := range []int{1, 2} {
 			t.Run(fmt.Sprintf("%s/GOMAXPROCS=%d", tc.name, procs), func(t *testing.T) {

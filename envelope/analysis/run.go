@@ -93,6 +93,10 @@ type Result struct {
 	lay    *patterns.Layout
 	sol    *frame.Solution
 	spanOf []int // member → index into Spans, -1 for none
+	// sums holds, per load case, the displacements of sol summed over its
+	// columns (frame.Solution.DisplacementSums), as the statics check
+	// formed them; read only.
+	sums [][]float64
 
 	solver  frame.Options // the options of every solve
 	mu      sync.Mutex    // guards buckled and solutions

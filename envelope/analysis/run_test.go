@@ -330,3 +330,57 @@ func TestStabilityBesideEnvelopesChangesNothing(t *testing.T) {
 		}
 	}
 }
+
+// TestStabilitySharedSolveChangesNothing checks that a first-order run
+// that solves the cases of the critical load factors and of the storeys
+// together (firstOrderStabilityShared, a strength combination's column
+// read for both) gives every result, the critical load factors and the
+// storeys' stability indices included, to the last bit as one that
+// solves them apart (stabilityShared off), and that the shared solve was
+// made: the regular frame with patterned live loads and its service
+// combination (no storeys' analysis), the sway frame with strength and
+// service stiffness (a first-order group of each, solved on its own
+// factor) and its storeys that take a unit shear, the buckling
+// cantilever; on one processor and two.
+func TestStabilitySharedSolveChangesNothing(t *testing.T) {
+	for _, tc := range []struct {
+		name string
+		job  func() *Job
+	}{
+		{"regular 6 x 8", func() *Job { return regularJob(6, 8, true) }},
+		{"sway frame", swayFrame},
+		{"sway frame, strength and service stiffness", func() *Job {
+			j := swayFrame()
+			j.Sway.StrengthEI = 0.8
+			j.Methods = []Method{{Stiffness: Strength}, {Stiffness: Strength}, {}, {Stiffness: Strength}, {Stiffness: Service}}
+			return j
+		}},
+		{"buckling cantilever", func() *Job { return cantileverJob(7, 0.045, Method{}) }},
+	} {
+		for _, procs := range []int{1, 2} {
+			t.Run(fmt.Sprintf("%s/GOMAXPROCS=%d", tc.name, procs), func(t *testing.T) {
+				defer runtime.GOMAXPROCS(runtime.GOMAXPROCS(procs))
+				before := sharedStability.Load()
+				got, err := Run(context.Background(), tc.job(), Options{})
+				if err != nil {
+					t.Fatal(err)
+				}
+				if sharedStability.Load() == before {
+					t.Fatal("no shared solve was made: the case tests nothing")
+				}
+				stabilityShared = false
+				defer func() { stabilityShared = true }()
+				want, err := Run(context.Background(), tc.job(), Options{})
+				if err != nil {
+					t.Fatal(err)
+				}
+				sameResults(t, got, want, "solved together")
+				for k := range got.Combinations {
+					if g, w := got.Combinations[k].CriticalFactor, want.Combinations[k].CriticalFactor; g != w {
+						t.Errorf("combination %d: αcr %v, apart %v", k, g, w)
+					}
+				}
+			})
+		}
+	}
+}

@@ -184,6 +184,28 @@ func combinedOf(base *frame.Model, us []*unit) []frame.Case {
 func combined(base *frame.Model, sections []frame.Section, members []frame.Member, cb combos.Combination, scale float64, extra *frame.Case) *frame.Model {
 	var c frame.Case
 	c.Name = cb.Name
+	// Each list made at its length at once: a patterned frame's
+	// combination holds thousands of member loads, which appending would
+	// copy over and over as the list grows.
+	var nm, nn, nd int
+	count := func(src *frame.Case) {
+		nm, nn, nd = nm+len(src.MemberLoads), nn+len(src.NodeLoads), nd+len(src.Displacements)
+	}
+	for _, t := range cb.Terms {
+		count(&base.Cases[t.Case])
+	}
+	if extra != nil {
+		count(extra)
+	}
+	if nm > 0 {
+		c.MemberLoads = make([]frame.MemberLoad, 0, nm)
+	}
+	if nn > 0 {
+		c.NodeLoads = make([]frame.NodeLoad, 0, nn)
+	}
+	if nd > 0 {
+		c.Displacements = make([]frame.NodeDisplacement, 0, nd)
+	}
 	add := func(src *frame.Case, f float64) {
 		for _, ld := range src.MemberLoads {
 			ld.W, ld.WEnd, ld.P, ld.M, ld.DT, ld.DTGrad = f*ld.W, f*ld.WEnd, f*ld.P, f*ld.M, f*ld.DT, f*ld.DTGrad
@@ -216,6 +238,25 @@ func axialForces(sol *frame.Solution, c int) []float64 {
 	for m := range out {
 		f := sol.EndForces(c, m)
 		out[m] = (-f[0] + f[3]) / 2
+	}
+	return out
+}
+
+// axialForcesFirst returns axialForces(sol, c) for the first n cases c,
+// read member by member: a member's displacements in neighbouring cases
+// share cache lines, which case by case are read again from memory for
+// every case.
+func axialForcesFirst(sol *frame.Solution, n int) [][]float64 {
+	mo := sol.Model()
+	out := make([][]float64, n)
+	for c := range out {
+		out[c] = make([]float64, len(mo.Members))
+	}
+	for m := range mo.Members {
+		for c := range out {
+			f := sol.EndForces(c, m)
+			out[c][m] = (-f[0] + f[3]) / 2
+		}
 	}
 	return out
 }
@@ -1089,6 +1130,14 @@ type buckled struct {
 // write). The error is the critical load factors', else the storeys'.
 func (r *Result) firstOrderStability(us []*unit, base *frame.Model, stiff Stiffness, sol *frame.Solution) error {
 	comb := combinedOf(base, us)
+	if stabilityShared {
+		if ok, err := r.firstOrderStabilityShared(us, base, stiff, sol, comb); ok {
+			sharedStability.Add(1)
+			return err
+		}
+	}
+	// Where the cases solved together fail, the critical load factors and
+	// the storeys each solve their own, for the error they give.
 	var storeys error
 	done := make(chan struct{})
 	go func() {
@@ -1101,6 +1150,103 @@ func (r *Result) firstOrderStability(us []*unit, base *frame.Model, stiff Stiffn
 		return err
 	}
 	return storeys
+}
+
+// stabilityShared is whether firstOrderStability solves the cases of the
+// critical load factors and of the storeys together
+// (firstOrderStabilityShared); the tests turn it off to compare, and
+// count in sharedStability the calls that did.
+var (
+	stabilityShared = true
+	sharedStability atomic.Int64
+)
+
+// firstOrderStabilityShared is firstOrderStability with the cases of
+// the critical load factors and of the storeys solved together, once, on
+// the factor of sol: each combination (combinedOf) in a load column of its
+// own, the storeys' horizontal loads and unit storey shears after them
+// (storeyStabilityAll), a strength combination at a factor of 1 read from
+// its critical load factor's column rather than solved again. Each
+// column is substituted on its own, in the same order of operations
+// whatever the columns beside it (frame.Solution.SolveCases), so the
+// results are those of criticalAll and storeyStabilityAll to the last
+// bit, without validating the model, indexing the combinations' loads and
+// solving them twice. ok is false, and nothing is set, where the solve
+// fails: the two then solve apart, for the error each gives.
+func (r *Result) firstOrderStabilityShared(us []*unit, base *frame.Model, stiff Stiffness, sol *frame.Solution, comb []frame.Case) (ok bool, err error) {
+	if len(us) == 0 {
+		return false, nil
+	}
+	job := r.Job
+	cases := make([]frame.Case, len(us))
+	for i := range us {
+		cases[i] = comb[i]
+		// Names of their own, none another's here: a combination's
+		// alternatives share its name.
+		cases[i].Name = fmt.Sprintf("combination %d", i+1)
+	}
+	// The storeys of each strength combination: the column of its
+	// combination at a factor of 1 and of its horizontal loads.
+	type storeyUnit struct {
+		u        *unit
+		comb     int
+		lat      int
+		hx       []float64
+		critical bool // comb is the unit's critical load factor's column
+	}
+	var storeys []storeyUnit
+	shears := 0
+	if len(r.Storeys) > 0 {
+		secs, mems := job.stiffnessOf(base, stiff)
+		for i, u := range us {
+			if job.Combinations[u.k].Service {
+				continue
+			}
+			su := storeyUnit{u: u, comb: i, critical: true}
+			c := comb[i]
+			if u.scale != 1 {
+				c = combined(base, secs, mems, u.cb, 1, nil).Cases[0]
+				su.comb, su.critical = -1, false
+			}
+			all, hx := r.stabilityCases(base, secs, mems, c)
+			if su.comb < 0 {
+				all.Cases[0].Name = fmt.Sprintf("unscaled %d", len(storeys)+1)
+				su.comb = len(cases)
+				cases = append(cases, all.Cases[0])
+			}
+			all.Cases[1].Name = fmt.Sprintf("lateral %d", len(storeys)+1)
+			su.lat, su.hx = len(cases), hx
+			cases = append(cases, all.Cases[1])
+			storeys = append(storeys, su)
+		}
+		if len(storeys) > 0 {
+			shears = len(cases)
+			cases = append(cases, r.unitShears(base)...)
+		}
+	}
+	s, err := sol.SolveCases(cases)
+	if err != nil {
+		return false, nil
+	}
+	ns := axialForcesFirst(s, len(us))
+	// The storeys beside the critical load factors, as firstOrderStability
+	// has them: they share nothing they write.
+	done := make(chan struct{})
+	go func() {
+		defer close(done)
+		for _, su := range storeys {
+			var axial []float64
+			if su.critical {
+				axial = slices.Clone(ns[su.comb]) // the same numbers: axialForces of the same column
+			} else {
+				axial = axialForces(s, su.comb)
+			}
+			r.setStabilityOf(su.u, base, s, axial, su.lat, shears, su.hx)
+		}
+	}()
+	err = r.criticalOf(us, base, ns, stiff)
+	<-done
+	return true, err
 }
 
 // criticalAll sets the critical load factors of the first-order units us,

@@ -7,6 +7,7 @@ import (
 	"math"
 	"reflect"
 	"runtime"
+	"slices"
 	"strings"
 	"testing"
 
@@ -675,6 +676,26 @@ func TestSecondOrderIterationsBesideChangeNothing(t *testing.T) {
 				}
 				sameResults(t, got, want, "beside the iterations")
 			})
+		}
+	}
+}
+
+// axialForcesFirst, member by member, gives what axialForces gives case
+// by case, to the bit: the solution of a regular frame with patterned
+// live loads (its load cases and pieces), every column of it.
+func TestAxialForcesFirstIsAxialForces(t *testing.T) {
+	res, err := Run(context.Background(), regularJob(4, 3, false), Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	n := len(res.sol.Model().Cases)
+	if n < 8 {
+		t.Fatalf("%d columns: the case tests little", n)
+	}
+	got := axialForcesFirst(res.sol, n)
+	for c := range n {
+		if want := axialForces(res.sol, c); !slices.Equal(got[c], want) {
+			t.Fatalf("column %d: %v, axialForces %v", c, got[c], want)
 		}
 	}
 }

@@ -131,6 +131,17 @@ type runGraph struct {
 	mo  *frame.Model
 	at  [][]int // members at each node
 	run []bool  // members that can be part of a run (Runs)
+
+	// The marks of the holding of one chain at a time (holding), each
+	// valid where it holds that holding's stamp: a frame's chains are
+	// many, and marks in slices, not cleared from chain to chain, cost
+	// less than maps made afresh for each.
+	stamp   int32
+	chainAt []int32 // node → the stamp of the chain it is of
+	runAt   []int32 // member → the stamp of the chain it is of
+	seenAt  []int32 // node → the stamp of the holding that gave it a part
+	part    []int32 // node → its part, where seenAt is the stamp
+	queue   []int   // reaches's, reused
 }
 
 func newRunGraph(mo *frame.Model) *runGraph {
@@ -243,49 +254,57 @@ func (g *runGraph) walk(m0 int, done []bool) chain {
 // holding finds, for the nodes of one chain, whether other members hold
 // it there: whether a member's far side reaches a support without passing
 // through the chain. The parts of the frame left when the chain's nodes
-// are taken away are found as they are needed.
+// are taken away are found as they are needed. A holding is read before
+// the graph's next one is made: they share the graph's marks.
 type holding struct {
 	g       *runGraph
-	inChain map[int]bool
-	inRun   map[int]bool
-	part    map[int]int // node → part, for the nodes seen
-	reached []bool      // per part: it holds a support
+	stamp   int32
+	reached []bool // per part: it holds a support
 }
 
 func (g *runGraph) holding(c chain) *holding {
-	h := &holding{g: g, inChain: map[int]bool{}, inRun: map[int]bool{}, part: map[int]int{}}
+	if g.chainAt == nil {
+		g.chainAt, g.seenAt, g.part = make([]int32, len(g.mo.Nodes)), make([]int32, len(g.mo.Nodes)), make([]int32, len(g.mo.Nodes))
+		g.runAt = make([]int32, len(g.mo.Members))
+	}
+	g.stamp++
+	h := &holding{g: g, stamp: g.stamp}
 	for _, n := range c.nodes {
-		h.inChain[n] = true
+		g.chainAt[n] = h.stamp
 	}
 	for _, m := range c.members {
-		h.inRun[m] = true
+		g.runAt[m] = h.stamp
 	}
 	return h
 }
 
+// inChain reports whether node n is of the chain.
+func (h *holding) inChain(n int) bool { return h.g.chainAt[n] == h.stamp }
+
 // reaches reports whether node f, not of the chain, is joined to a support
 // by members that do not pass through the chain.
 func (h *holding) reaches(f int) bool {
-	if p, ok := h.part[f]; ok {
-		return h.reached[p]
+	g := h.g
+	if g.seenAt[f] == h.stamp {
+		return h.reached[g.part[f]]
 	}
-	p := len(h.reached)
+	p := int32(len(h.reached))
 	found := false
-	h.part[f] = p
-	queue := []int{f}
-	for len(queue) > 0 {
-		n := queue[0]
-		queue = queue[1:]
-		found = found || h.g.supported(n)
-		for _, m := range h.g.at[n] {
-			o := h.g.far(m, n)
-			if _, seen := h.part[o]; seen || h.inChain[o] {
+	g.seenAt[f], g.part[f] = h.stamp, p
+	queue := append(g.queue[:0], f)
+	for i := 0; i < len(queue); i++ {
+		n := queue[i]
+		found = found || g.supported(n)
+		for _, m := range g.at[n] {
+			o := g.far(m, n)
+			if g.seenAt[o] == h.stamp || h.inChain(o) {
 				continue
 			}
-			h.part[o] = p
+			g.seenAt[o], g.part[o] = h.stamp, p
 			queue = append(queue, o)
 		}
 	}
+	g.queue = queue
 	h.reached = append(h.reached, found)
 	return found
 }
@@ -300,14 +319,14 @@ func (h *holding) holds(n int, rising bool) bool {
 		return true
 	}
 	for _, k := range g.at[n] {
-		if h.inRun[k] {
+		if g.runAt[k] == h.stamp {
 			continue
 		}
 		_, dy := g.dir(k, n)
 		if (dy > collinearTol) != rising {
 			continue
 		}
-		if f := g.far(k, n); !h.inChain[f] && h.reaches(f) {
+		if f := g.far(k, n); !h.inChain(f) && h.reaches(f) {
 			return true
 		}
 	}

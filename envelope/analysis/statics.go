@@ -38,11 +38,19 @@ func (b Balance) OK() bool { return b.Relative() <= b.Limit() }
 // statics returns the statics check of every load case of the model. A
 // patterned case was solved as several loads (its rest and its pieces or
 // arrangements); it is checked whole, through the sum of their solutions.
+//
+// The displacements each case's check sums are kept in r.sums, for Cases
+// to give: the same sums, not read from the solution again.
 func (r *Result) statics() []Balance {
 	cs := r.Job.Model.Cases
 	out := make([]Balance, len(cs))
+	nn := 3 * len(r.Job.Model.Nodes)
+	all := make([]float64, len(cs)*nn)
+	r.sums = make([][]float64, len(cs))
 	for c := range cs {
-		out[c] = Balance{Case: cs[c].Name, Balance: r.sol.BalanceOf(r.lay.Whole(c)), RoundOff: r.sol.RoundOff()}
+		u := all[c*nn : (c+1)*nn : (c+1)*nn]
+		out[c] = Balance{Case: cs[c].Name, Balance: r.sol.BalanceSums(u, r.lay.Whole(c)), RoundOff: r.sol.RoundOff()}
+		r.sums[c] = u
 	}
 	return out
 }

@@ -68,19 +68,31 @@ type StoreyStability struct {
 // columns between them.
 func storeysOf(job *Job) []Storey {
 	mo := job.Model
-	var out []Storey
-	for i := 1; i < len(job.Levels); i++ {
-		lo, hi := job.Levels[i-1], job.Levels[i]
-		tol := levelTol * (1 + math.Abs(hi.Y))
-		s := Storey{Bottom: lo, Top: hi, Height: hi.Y - lo.Y}
+	// The columns with the heights of their bottom and top, in model
+	// order, found once for every storey.
+	type column struct {
+		m      int
+		yb, yt float64
+	}
+	var cols []column
+	if len(job.Levels) > 1 {
 		for m, mem := range mo.Members {
 			if !mo.IsColumn(m) {
 				continue
 			}
 			b := mo.Bottom(m)
 			t := mem.Start + mem.End - b
-			if math.Abs(mo.Nodes[b].Y-lo.Y) <= tol && math.Abs(mo.Nodes[t].Y-hi.Y) <= tol {
-				s.Columns = append(s.Columns, m)
+			cols = append(cols, column{m, mo.Nodes[b].Y, mo.Nodes[t].Y})
+		}
+	}
+	var out []Storey
+	for i := 1; i < len(job.Levels); i++ {
+		lo, hi := job.Levels[i-1], job.Levels[i]
+		tol := levelTol * (1 + math.Abs(hi.Y))
+		s := Storey{Bottom: lo, Top: hi, Height: hi.Y - lo.Y}
+		for _, c := range cols {
+			if math.Abs(c.yb-lo.Y) <= tol && math.Abs(c.yt-hi.Y) <= tol {
+				s.Columns = append(s.Columns, c.m)
 			}
 		}
 		if len(s.Columns) > 0 && s.Height > 0 {
@@ -219,10 +231,12 @@ func (r *Result) displacementRequests() (nodes, drifts *valuesRequest) {
 			// columnDrift in every column: the top's ux less the bottom's.
 			// tmp keeps the top's ux, the bottom's of the column above
 			// when that comes next (upLines).
+			// ux alone is read (frame.Solution.DisplacementTo), a third
+			// of a node's displacements.
 			if prev < 0 || top[prev] != bottom[i] {
-				sol.DisplacementsTo(tmp, bottom[i])
+				sol.DisplacementTo(tmp, bottom[i], 0)
 			}
-			sol.DisplacementsTo(row, top[i])
+			sol.DisplacementTo(row, top[i], 0)
 			for c := range row {
 				ut := row[c][0]
 				row[c] = [3]float64{ut - tmp[c][0]}
@@ -502,12 +516,26 @@ func (r *Result) unitShears(base *frame.Model) []frame.Case {
 // column lat, the unit shear of storey i in column shear+i; hx the
 // horizontal load at each node.
 func (r *Result) setStability(u *unit, base *frame.Model, sol *frame.Solution, comb, lat, shear int, hx []float64) {
+	r.setStabilityOf(u, base, sol, axialForces(sol, comb), lat, shear, hx)
+}
+
+// setStabilityOf is setStability with the axial forces of the
+// combination's column given (axialForces).
+func (r *Result) setStabilityOf(u *unit, base *frame.Model, sol *frame.Solution, axial []float64, lat, shear int, hx []float64) {
 	job := r.Job
 	alpha := 1.0
 	if u.method.Allowable {
 		alpha = AllowableScale
 	}
-	axial := axialForces(sol, comb)
+	// The nodes with a horizontal load, in model order: adding a zero
+	// leaves a storey shear as it is (+0 + −0 is +0), so those are
+	// skipped.
+	var loaded []int
+	for v, h := range hx {
+		if h != 0 {
+			loaded = append(loaded, v)
+		}
+	}
 	for si := range r.Storeys {
 		s := &r.Storeys[si]
 		if s.Stability == nil {
@@ -522,8 +550,8 @@ func (r *Result) setStability(u *unit, base *frame.Model, sol *frame.Solution, c
 			}
 		}
 		// The storey shear: the horizontal loads above its bottom.
-		for v, nd := range base.Nodes {
-			if nd.Y > s.Bottom.Y+levelTol*(1+math.Abs(s.Bottom.Y)) {
+		for _, v := range loaded {
+			if base.Nodes[v].Y > s.Bottom.Y+levelTol*(1+math.Abs(s.Bottom.Y)) {
 				st.H += hx[v]
 			}
 		}

@@ -8,6 +8,7 @@ import (
 	"io"
 	"math"
 	"runtime"
+	"slices"
 	"strconv"
 	"sync"
 
@@ -99,9 +100,9 @@ func (p *Report) WriteJSON(w io.Writer) error {
 		// The extreme is among the values acting with it, its own effect's
 		// (numKept): formatted once.
 		j.raw(x.head).numKept(s.Of(e.Max)).raw(", \"max_by\": ").bytes(nameOf(combo, e.MaxBy))
-		j.raw(", \"max_spans\": ").list(piece, e.MaxSpans).raw(", \"max_loaded\": ").int(e.MaxLoaded).raw(", \"max_with\": ").forces(&x.with, e.MaxWith, shown, d)
+		j.raw(", \"max_spans\": ").listAt(2*d, piece, e.MaxSpans).raw(", \"max_loaded\": ").int(e.MaxLoaded).raw(", \"max_with\": ").forces(&x.with, e.MaxWith, shown, d)
 		j.raw(", \"min\": ").numKept(s.Of(e.Min)).raw(", \"min_by\": ").bytes(nameOf(combo, e.MinBy))
-		j.raw(", \"min_spans\": ").list(piece, e.MinSpans).raw(", \"min_loaded\": ").int(e.MinLoaded).raw(", \"min_with\": ").forces(&x.with, e.MinWith, shown, d).raw("}")
+		j.raw(", \"min_spans\": ").listAt(2*d+1, piece, e.MinSpans).raw(", \"min_loaded\": ").int(e.MinLoaded).raw(", \"min_with\": ").forces(&x.with, e.MinWith, shown, d).raw("}")
 	}
 	memberExt := [3]extKeys{newExtKeys("N", memberForces), newExtKeys("V", memberForces), newExtKeys("M", memberForces)}
 	defl := func(j *jsonWriter, e envelope.Extreme) {
@@ -293,6 +294,23 @@ type jsonWriter struct {
 	kept  [24]byte
 	keptN int
 	keptV float64
+	// lists holds, per slot of listAt, the indices and bytes of the list
+	// it wrote there last: a station's lists of spans are often those of
+	// the station before.
+	lists [listSlots]keptList
+}
+
+// listSlots is the number of slots listAt keeps a list for: the largest
+// and smallest of a station's three effects.
+const listSlots = 6
+
+// keptList is a list listAt wrote: the names it was of (their first
+// element and their number), its indices and its bytes.
+type keptList struct {
+	names *[]byte
+	n     int
+	idx   []int
+	bytes []byte
 }
 
 // jsonFlush is how many bytes a jsonWriter holds before it passes them on.
@@ -572,18 +590,41 @@ func (j *jsonWriter) list(names [][]byte, idx []int) *jsonWriter {
 	if j.err != nil {
 		return j
 	}
-	j.out = append(j.out, '[')
-	for i, p := range idx {
-		if i > 0 {
-			j.out = append(j.out, ", "...)
-		}
-		j.out = append(j.out, names[p]...)
-	}
-	j.out = append(j.out, ']')
+	j.out = appendList(j.out, names, idx)
 	if len(j.out) >= jsonFlush {
 		j.flush()
 	}
 	return j
+}
+
+// appendList appends the names of idx as a JSON array to dst.
+func appendList(dst []byte, names [][]byte, idx []int) []byte {
+	dst = append(dst, '[')
+	for i, p := range idx {
+		if i > 0 {
+			dst = append(dst, ", "...)
+		}
+		dst = append(dst, names[p]...)
+	}
+	return append(dst, ']')
+}
+
+// listAt is list, the list's indices and bytes kept in slot (below
+// listSlots): where the list written last in that slot had the same
+// indices into the same names, its bytes are written again, not formed
+// name by name. The same bytes as list.
+func (j *jsonWriter) listAt(slot int, names [][]byte, idx []int) *jsonWriter {
+	if j.err != nil || len(idx) == 0 || len(names) == 0 {
+		return j.list(names, idx)
+	}
+	k := &j.lists[slot]
+	if k.names == &names[0] && k.n == len(names) && slices.Equal(k.idx, idx) {
+		return j.bytes(k.bytes)
+	}
+	k.names, k.n = &names[0], len(names)
+	k.idx = append(k.idx[:0], idx...)
+	k.bytes = appendList(k.bytes[:0], names, idx)
+	return j.bytes(k.bytes)
 }
 
 // extKeys are the fixed parts of an extreme's object in the JSON: its

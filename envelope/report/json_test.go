@@ -300,3 +300,43 @@ func TestJSONForcesKeys(t *testing.T) {
 		}
 	}
 }
+
+// listAt writes what list writes, list after list, whether a slot's list
+// is the one written there before (its kept bytes written again) or not:
+// random lists of few indices, so that many repeat, into two tables of
+// names of the same length and over the writer's flushes, compared with
+// the lists written by list alone.
+func TestJSONListAtIsList(t *testing.T) {
+	rng := rand.New(rand.NewPCG(18, 3))
+	tables := [2][][]byte{}
+	for k := range tables {
+		for i := range 5 {
+			tables[k] = append(tables[k], quote(fmt.Sprintf("T%d/P%d", k, i)))
+		}
+	}
+	var got, want bytes.Buffer
+	g, w := &jsonWriter{w: &got}, &jsonWriter{w: &want}
+	kept := 0
+	for range 20000 {
+		names := tables[rng.IntN(2)]
+		idx := make([]int, rng.IntN(3))
+		for i := range idx {
+			idx[i] = rng.IntN(2)
+		}
+		slot := rng.IntN(listSlots)
+		k := g.lists[slot]
+		if k.names == &names[0] && slices.Equal(k.idx, idx) && len(idx) > 0 {
+			kept++
+		}
+		g.listAt(slot, names, idx).raw(", ")
+		w.list(names, idx).raw(", ")
+	}
+	g.flush()
+	w.flush()
+	if !bytes.Equal(got.Bytes(), want.Bytes()) {
+		t.Fatalf("listAt wrote %d bytes, list %d, not the same", got.Len(), want.Len())
+	}
+	if kept == 0 || got.Len() < 2*jsonFlush {
+		t.Fatalf("%d lists written again from a slot, %d bytes: the case tests nothing", kept, got.Len())
+	}
+}

@@ -51,7 +51,11 @@ type checks struct {
 	sets     memberSets       // what each member's [[member]] table gives
 	selected map[string][]int // members each selector picks, by canonical selector
 	levelYs  []float64        // r.levels(), once computed
-	lineXs   []float64        // r.lines(), once computed
+	// beamLevel holds, per member, the level its start is at when it is
+	// a beam, else −1 (beamLevels), for the levels of levelsOf.
+	beamLevel []int
+	levelsOf  []float64
+	lineXs    []float64 // r.lines(), once computed
 }
 
 // tablesBy records the table that defined or changed each node or member,

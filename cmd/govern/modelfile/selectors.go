@@ -143,11 +143,10 @@ func (r *reader) selectOne(sel string) ([]int, error) {
 			}
 		}
 		key = "level " + rangeKey(strconv.Itoa(a), strconv.Itoa(b))
+		of := r.beamLevels(lv)
 		pick = func(m int) bool {
-			if !mo.IsBeam(m) {
-				return false
-			}
-			k := nearest(lv, mo.Nodes[mo.Members[m].Start].Y)
+			// −1 for a member that is not a beam, or at no level: a ≥ 0.
+			k := of[m]
 			return k >= a && k <= b
 		}
 	case len(f) == 2 && f[0] == "storey":
@@ -211,6 +210,25 @@ func (r *reader) selectOne(sel string) ([]int, error) {
 		r.selected[key] = out
 	}
 	return out, nil
+}
+
+// beamLevels returns, per member of the model, the level among lv its
+// start is at (nearest) when it is a beam, else −1: found once for every
+// "level" selector (a file may name each of a tall frame's levels),
+// again only when the members or the levels are not those it was found
+// for.
+func (r *reader) beamLevels(lv []float64) []int {
+	mo := r.job.Model
+	if len(r.beamLevel) != len(mo.Members) || len(r.levelsOf) != len(lv) || len(lv) > 0 && &r.levelsOf[0] != &lv[0] {
+		r.beamLevel, r.levelsOf = make([]int, len(mo.Members)), lv
+		for m := range mo.Members {
+			r.beamLevel[m] = -1
+			if mo.IsBeam(m) {
+				r.beamLevel[m] = nearest(lv, mo.Nodes[mo.Members[m].Start].Y)
+			}
+		}
+	}
+	return r.beamLevel
 }
 
 // rangeHint shows how a range of levels, storeys or lines is written,

@@ -177,3 +177,38 @@ kind = "dead"
 		}
 	}
 }
+
+// TestLevelSelectorsInOneFile: several "level" selectors and "roof" read
+// from one file (the members' levels found once for all of them) each
+// pick the beams counted by hand on the grid, whatever came before.
+func TestLevelSelectorsInOneFile(t *testing.T) {
+	sels := []struct{ sel, want string }{
+		{"level 1", "A1-B1 B1-C1 C1-D1"},
+		{"roof", "A4-B4 B4-C4 C4-D4"},
+		{"level 3-4", "A3-B3 B3-C3 C3-D3 A4-B4 B4-C4 C4-D4"},
+		{"level 2", "A2-B2 B2-C2 C2-D2"},
+	}
+	src := frame3x4
+	for i, s := range sels {
+		src += "  [[case.load]]\n  type = \"udl\"\n  on = \"" + s.sel + "\"\n  w = " + strings.Repeat("1", i+2) + "\n"
+	}
+	job, err := Read("m.toml", []byte(src))
+	if err != nil {
+		t.Fatal(err)
+	}
+	for i, s := range sels {
+		var w float64
+		for range i + 2 {
+			w = 10*w + 1
+		}
+		var names []string
+		for _, l := range job.Model.Cases[0].MemberLoads {
+			if l.W == w {
+				names = append(names, job.Model.Members[l.Member].Name)
+			}
+		}
+		if got := strings.Join(names, " "); got != s.want {
+			t.Errorf("%q picks %s, want %s", s.sel, got, s.want)
+		}
+	}
+}
