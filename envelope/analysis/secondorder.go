@@ -236,11 +236,14 @@ func axialForces(sol *frame.Solution, c int) []float64 {
 	mo := sol.Model()
 	out := make([]float64, len(mo.Members))
 	for m := range out {
-		f := sol.EndForces(c, m)
-		out[m] = (-f[0] + f[3]) / 2
+		out[m] = meanAxial(sol.EndForces(c, m))
 	}
 	return out
 }
+
+// meanAxial is the axial force (tension positive) of a member of end
+// forces f in its local axes: the mean of its ends'.
+func meanAxial(f [6]float64) float64 { return (-f[0] + f[3]) / 2 }
 
 // axialForcesFirst returns axialForces(sol, c) for the first n cases c,
 // read member by member: a member's displacements in neighbouring cases
@@ -254,8 +257,7 @@ func axialForcesFirst(sol *frame.Solution, n int) [][]float64 {
 	}
 	for m := range mo.Members {
 		for c := range out {
-			f := sol.EndForces(c, m)
-			out[c][m] = (-f[0] + f[3]) / 2
+			out[c][m] = meanAxial(sol.EndForces(c, m))
 		}
 	}
 	return out
