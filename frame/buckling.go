@@ -666,7 +666,7 @@ func ritzVector(qs, ps [][]float64, alpha, beta []float64) (y, ky []float64) {
 	}
 	var v mat.Dense
 	eig.VectorsTo(&v)
-	y, ky = make([]float64, len(qs[0])), make([]float64, len(qs[0]))
+	y, ky = written[float64](len(qs[0])), written[float64](len(qs[0])) // added to before stored to
 	for j := range m {
 		axpy(y, v.At(j, m-1), qs[j])
 		axpy(ky, v.At(j, m-1), ps[j])

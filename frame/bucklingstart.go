@@ -51,7 +51,7 @@ func (b *Buckling) ritzStarts(axials [][]float64, first *krylov, r, z []float64)
 	hs := b.project(axials, qs)
 	rs, zs = make([][]float64, len(axials)), make([][]float64, len(axials))
 	for c := range axials {
-		y, ky := make([]float64, size), make([]float64, size)
+		y, ky := written[float64](size), written[float64](size) // added to before stored to
 		var eig mat.EigenSym
 		if eig.Factorize(mat.NewSymDense(m, hs[c]), true) {
 			var v mat.Dense

@@ -655,7 +655,7 @@ func (sol *Solution) indexLoads() {
 		}
 		sol.loaded[c], sol.span[c], sol.byMember[c], sol.fem[c] = members, spans, idx, fem
 	}
-	sol.casesOn, sol.onMember = make([][]int32, len(mo.Members)), make([][]loadRef, len(mo.Members))
+	sol.casesOn, sol.onMember = written[[]int32](len(mo.Members)), written[[]loadRef](len(mo.Members)) // appended to
 	for c := range mo.Cases {
 		for i, m := range sol.loaded[c] {
 			sol.casesOn[m] = append(sol.casesOn[m], int32(c))

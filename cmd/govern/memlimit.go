@@ -23,6 +23,14 @@ var limitMemory = func(*analysis.Job) (restore func()) { return func() {} }
 // count writing the report and the CSV files, which with the limit kept
 // would be collected over and over. A job the estimate refuses is left to
 // the analysis to report.
+//
+// With the limit, unless GOGC is set, the collector's own target is
+// turned off for the analysis (debug.SetGCPercent(-1)): the limit alone
+// starts a cycle, as the process nears the estimate, not each doubling of
+// the heap on the way there, whose cycles mark the model, the factor and
+// the pencils again and again while the run's memory is still far below
+// what it is allowed (docs/performance.md, "The collector's target";
+// the 30 × 60 frame: from six cycles in the analysis to one).
 func setMemoryLimit(job *analysis.Job) (restore func()) {
 	if os.Getenv("GOMEMLIMIT") != "" {
 		return func() {}
@@ -32,5 +40,12 @@ func setMemoryLimit(job *analysis.Job) (restore func()) {
 		return func() {}
 	}
 	old := debug.SetMemoryLimit(int64(est))
-	return func() { debug.SetMemoryLimit(old) }
+	if os.Getenv("GOGC") != "" {
+		return func() { debug.SetMemoryLimit(old) }
+	}
+	percent := debug.SetGCPercent(-1)
+	return func() {
+		debug.SetGCPercent(percent)
+		debug.SetMemoryLimit(old)
+	}
 }
