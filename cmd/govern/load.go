@@ -40,14 +40,29 @@ func loadModel(path string) (*modelfile.Job, error) {
 	src := buf.Bytes()
 	// Decoding takes about 270 bytes an entry of the file at its peak
 	// (docs/errors.md); with the collector's default target the heap may
-	// grow to twice what is live, so it is held closer while reading.
-	defer debug.SetGCPercent(debug.SetGCPercent(readGCPercent))
+	// grow to twice what is live, so it is held closer while reading a
+	// large file.
+	if holdsReading(st.Size()) {
+		defer debug.SetGCPercent(debug.SetGCPercent(readGCPercent))
+	}
 	return modelfile.ReadAt(filepath.Dir(path), filepath.Base(path), src)
 }
 
-// readGCPercent is the garbage collector's target while a model is read:
-// the heap may grow to 1.25 times what is live, not twice.
+// readGCPercent is the garbage collector's target while a large model
+// file is read: the heap may grow to 1.25 times what is live, not twice.
 const readGCPercent = 25
+
+// readHeldSize is the size of file from which the collector's target is
+// held at readGCPercent while it is read. Below it the decoder's peak is
+// some tens of megabytes, and the target's floor (the runtime's 4 MB
+// heap times the percentage) would start a collection every megabyte:
+// nine of them in the 25 ms a 7 KB file describing a 30 × 60 frame takes
+// to read (docs/errors.md, Memory of reading a model).
+const readHeldSize = 1 << 20
+
+// holdsReading reports whether the collector's target is held at
+// readGCPercent while a file of size bytes is read.
+func holdsReading(size int64) bool { return size >= readHeldSize }
 
 // located returns an analysis error of the model file name: at the line
 // of the load at fault for a moment applied where nothing resists it,
