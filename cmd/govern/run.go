@@ -217,6 +217,10 @@ func analyse(env *environ, job *modelfile.Job, name, path string, f *runFlags) e
 	if err := report.CheckSize(&job.Job, report.Formats{JSON: f.json != "" || f.out != "", CSV: f.csv != "" || f.out != "", HTML: f.report != "" || f.out != "", Cases: f.casesCSV != "" || f.out != ""}); err != nil {
 		return fmt.Errorf("%s: %w", name, err)
 	}
+	// The files the run will replace leave the system's cache beside the
+	// analysis, not in the renames at its end (files.Release).
+	jsonPath, csvPath, reportPath, casesPath := f.paths()
+	go files.Release(jsonPath, csvPath, reportPath, casesPath, f.designCSV)
 	unlimit := limitMemory(&job.Job)
 	p := newProgress(env.stderr, env.name, f.quiet)
 	res, err := analysis.Run(context.Background(), &job.Job, f.options(p))
@@ -285,6 +289,16 @@ func (f *runFlags) check() error {
 	return nil
 }
 
+// paths returns the files the run writes its JSON, CSV, report and load
+// cases' CSV to ("" for those not asked for): the flags', or those of the
+// --out folder.
+func (f *runFlags) paths() (json, csv, report, cases string) {
+	if f.out != "" {
+		return filepath.Join(f.out, jsonName), filepath.Join(f.out, csvName), filepath.Join(f.out, reportName), filepath.Join(f.out, casesName)
+	}
+	return f.json, f.csv, f.report, f.casesCSV
+}
+
 // writeResults writes the requested files and, unless a file goes to
 // standard output, the summary tables.
 func writeResults(stdout io.Writer, model string, f *runFlags, rp *report.Report) error {
@@ -293,10 +307,7 @@ func writeResults(stdout io.Writer, model string, f *runFlags, rp *report.Report
 	}
 	toStdout := f.json == "-" || f.csv == "-" || f.report == "-" || f.casesCSV == "-" || f.designCSV == "-"
 	rp.Wide = f.wide
-	jsonPath, csvPath, reportPath, casesPath := f.json, f.csv, f.report, f.casesCSV
-	if f.out != "" {
-		jsonPath, csvPath, reportPath, casesPath = filepath.Join(f.out, jsonName), filepath.Join(f.out, csvName), filepath.Join(f.out, reportName), filepath.Join(f.out, casesName)
-	}
+	jsonPath, csvPath, reportPath, casesPath := f.paths()
 	var outs []files.Output
 	for _, o := range []files.Output{{Path: jsonPath, Write: rp.WriteJSON}, {Path: csvPath, Write: rp.WriteCSV}, {Path: casesPath, Write: rp.WriteCasesCSV}, {Path: f.designCSV, Write: rp.WriteDesignCSV}, {Path: reportPath, Write: rp.WriteHTML}} {
 		if o.Path != "" {
