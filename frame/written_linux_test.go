@@ -1,3 +1,5 @@
+//go:build !race
+
 package frame
 
 import (
@@ -16,11 +18,15 @@ import (
 // it, over memory fresh from the system, counted for both. It runs in a
 // process of its own (this test binary again, only this test): in this
 // one, memory the other tests freed may come back already mapped, or
-// cleared by the allocator.
+// cleared by the allocator. Not built under the race detector, whose
+// shadow memory faults pages of its own.
 func TestWrittenFaultsOnce(t *testing.T) {
 	if os.Getenv("GOVERN_WRITTEN_CHILD") == "" {
 		cmd := exec.Command(os.Args[0], "-test.run=^TestWrittenFaultsOnce$", "-test.v")
-		cmd.Env = append(os.Environ(), "GOVERN_WRITTEN_CHILD=1")
+		// Without the heap's transparent huge pages, where the system
+		// gives them unasked (enabled=always): a 2 MiB page faults once
+		// for 512 of the pages counted.
+		cmd.Env = append(os.Environ(), "GOVERN_WRITTEN_CHILD=1", "GODEBUG=disablethp=1")
 		out, err := cmd.CombinedOutput()
 		t.Logf("in its own process:\n%s", out)
 		if err != nil {
@@ -60,7 +66,7 @@ func TestWrittenFaultsOnce(t *testing.T) {
 	if made < pages*3/2 {
 		t.Fatalf("%d faults for %d pages only allocated, want about two a page: the memory was not fresh from the system", made, pages)
 	}
-	if first > pages*5/4 {
+	if first < pages*9/10 || first > pages*5/4 {
 		t.Errorf("%d faults for %d pages written first, want about one a page", first, pages)
 	}
 }

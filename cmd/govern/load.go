@@ -42,7 +42,7 @@ func loadModel(path string) (*modelfile.Job, error) {
 	// (docs/errors.md); with the collector's default target the heap may
 	// grow to twice what is live, so it is held closer while reading a
 	// large file.
-	if holdsReading(st.Size()) {
+	if holdsReading(st.Size(), src) {
 		defer debug.SetGCPercent(debug.SetGCPercent(readGCPercent))
 	}
 	return modelfile.ReadAt(filepath.Dir(path), filepath.Base(path), src)
@@ -52,17 +52,27 @@ func loadModel(path string) (*modelfile.Job, error) {
 // file is read: the heap may grow to 1.25 times what is live, not twice.
 const readGCPercent = 25
 
-// readHeldSize is the size of file from which the collector's target is
-// held at readGCPercent while it is read. Below it the decoder's peak is
-// some tens of megabytes, and the target's floor (the runtime's 4 MB
-// heap times the percentage) would start a collection every megabyte:
-// nine of them in the 25 ms a 7 KB file describing a 30 × 60 frame takes
-// to read (docs/errors.md, Memory of reading a model).
-const readHeldSize = 1 << 20
+// A file of readHeldSize bytes or more, or of readHeldEntries entries or
+// more (modelfile.Entries: about 270 bytes each at the decoder's peak,
+// some 11 MB for these), is read with the collector's target held at
+// readGCPercent. Below both the decoder's peak is some megabytes, and the
+// target's floor (a quarter of the runtime's 4 MB minimum heap) would
+// start a collection every megabyte: nine of them in the 25 ms the 7 KB
+// file of a 30 × 60 frame (a few hundred entries) takes to read
+// (docs/errors.md, Memory of reading a model). A small file of many
+// entries is held: 1 MB of one-key inline tables holds some 670,000
+// (docs/errors.md: 9 MB of them, 6 million entries, peak at 1.68 GB).
+const (
+	readHeldSize    = 1 << 20
+	readHeldEntries = 40_000
+)
 
 // holdsReading reports whether the collector's target is held at
-// readGCPercent while a file of size bytes is read.
-func holdsReading(size int64) bool { return size >= readHeldSize }
+// readGCPercent while src, a file of size bytes, is read; its entries are
+// counted only below readHeldSize.
+func holdsReading(size int64, src []byte) bool {
+	return size >= readHeldSize || modelfile.Entries(src) >= readHeldEntries
+}
 
 // located returns an analysis error of the model file name: at the line
 // of the load at fault for a moment applied where nothing resists it,

@@ -30,7 +30,7 @@ var limitMemory = func(*analysis.Job) (restore func()) { return func() {} }
 // the heap on the way there, whose cycles mark the model, the factor and
 // the pencils again and again while the run's memory is still far below
 // what it is allowed (docs/performance.md, "The collector's target";
-// the 30 × 60 frame: from six cycles in the analysis to one).
+// the 30 × 60 frame: from five cycles in the analysis to one).
 func setMemoryLimit(job *analysis.Job) (restore func()) {
 	if os.Getenv("GOMEMLIMIT") != "" {
 		return func() {}

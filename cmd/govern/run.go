@@ -218,9 +218,15 @@ func analyse(env *environ, job *modelfile.Job, name, path string, f *runFlags) e
 		return fmt.Errorf("%s: %w", name, err)
 	}
 	// The files the run will replace leave the system's cache beside the
-	// analysis, not in the renames at its end (files.Release).
+	// analysis, not in the renames at its end (files.Release); waited for
+	// before they are written, so that it is the old files' copies it
+	// drops, never the new ones'.
 	jsonPath, csvPath, reportPath, casesPath := f.paths()
-	go files.Release(jsonPath, csvPath, reportPath, casesPath, f.designCSV)
+	released := make(chan struct{})
+	go func() {
+		defer close(released)
+		files.Release(jsonPath, csvPath, reportPath, casesPath, f.designCSV)
+	}()
 	unlimit := limitMemory(&job.Job)
 	p := newProgress(env.stderr, env.name, f.quiet)
 	res, err := analysis.Run(context.Background(), &job.Job, f.options(p))
@@ -239,6 +245,7 @@ func analyse(env *environ, job *modelfile.Job, name, path string, f *runFlags) e
 		return strictError(name, res.Warnings)
 	}
 	p.phase("writing results", 0)
+	<-released
 	err = writeResults(env.stdout, path, f, report.New(res).From(source(job, name, date)))
 	p.end()
 	// After the progress line is gone, and below the tables.

@@ -13,7 +13,8 @@ import (
 // Release drops a file's clean pages from the page cache: the resident
 // pages of a file written, synced and read back (mincore(2) of a mapping
 // of it), before and after. The file's bytes are unchanged. A file system
-// whose files are their cached pages (tmpfs) has nothing to drop.
+// whose files are their cached pages (tmpfs), or that keeps no cached copy
+// of a file read (some network file systems), has nothing to drop.
 func TestRelease(t *testing.T) {
 	const (
 		size       = 8 << 20
@@ -68,7 +69,7 @@ func TestRelease(t *testing.T) {
 	after := resident()
 	t.Logf("%d pages: %d resident before, %d after", pages, before, after)
 	if before < pages*9/10 {
-		t.Fatalf("%d of %d pages resident after reading the file, want nearly all", before, pages)
+		t.Skipf("%d of %d pages resident after reading the file: this file system keeps no cached copy to drop", before, pages)
 	}
 	if after > pages/10 {
 		t.Errorf("%d of %d pages resident after Release, want nearly none", after, pages)
