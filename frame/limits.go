@@ -73,7 +73,9 @@ func checkEquations(mo *Model) error {
 //     entry each way: three matrices' worth) and, for the critical load
 //     factors, made beside them, the elastic stiffness's factor and its
 //     copy by columns (the forward substitution's), seven in all, with
-//     the heap's growth past them (fitted: 12); the kb × kb block of the
+//     the heap's growth past them (fitted: 9; 12 while the check of each
+//     critical load factor assembled a whole band of its own, before it
+//     took the band a window of rows at a time); the kb × kb block of the
 //     pivot watch while a mechanism is looked for;
 //   - each member's pencil and element of the critical load factors'
 //     search (NewBuckling), made beside the solve: pencilBytes, with its
@@ -82,7 +84,7 @@ func checkEquations(mo *Model) error {
 //   - what the caller adds (Options.Held), and baseMemory: the runtime's,
 //     the program's and the model's own (fitted).
 const (
-	bandWork      = 12
+	bandWork      = 9
 	defaultGrowth = 2
 	baseMemory    = 14 << 20
 )

@@ -29,11 +29,11 @@ func TestModelsPastTheLimitsAreRefused(t *testing.T) {
 			// (the hub is numbered next to the last foot). A band matrix is
 			// 12,003 × 12,002 values, 8 bytes each: 1.07 GiB. The solution,
 			// with its factor and the 12,000 members' elements, twice for the
-			// collector's growth, 2.16 GiB; the solve's twelve band matrices'
-			// worth, 12.88 GiB; the pivot watch's block, 12,001² values,
+			// collector's growth, 2.16 GiB; the solve's nine band matrices'
+			// worth, 9.66 GiB; the pivot watch's block, 12,001² values,
 			// 1.07 GiB; the members' pencils for the critical load factors,
 			// 3,624 bytes each (see TestMemoryEstimateArithmetic), 41 MiB;
-			// and 14 MiB of the runtime's own: 16.2 GiB.
+			// and 14 MiB of the runtime's own: 12.9 GiB.
 			name: "a stiffness band past the memory limit",
 			model: func() *Model {
 				const feet = 12000
@@ -45,7 +45,7 @@ func TestModelsPastTheLimitsAreRefused(t *testing.T) {
 				}
 				return mo
 			},
-			want: "the model is too large: solving needs about 16.2 GiB of memory (12,003 equations, half-bandwidth 12,001, 0 load cases); the limit is 2.0 GiB",
+			want: "the model is too large: solving needs about 12.9 GiB of memory (12,003 equations, half-bandwidth 12,001, 0 load cases); the limit is 2.0 GiB",
 		},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
@@ -77,7 +77,7 @@ func TestMemoryEstimateArithmetic(t *testing.T) {
 	mo.Cases[0].MemberLoads = []MemberLoad{{Member: 0, To: 4, W: 10, WEnd: 10}}
 	// A band matrix: 3 × 3 values, 72 bytes. A solution: 3 × 1
 	// displacements and 6 fixed-end forces, 72 bytes, the member's element
-	// and its factor. The solve's 12 band matrices, 864 bytes, and the
+	// and its factor. The solve's 9 band matrices, 648 bytes, and the
 	// pivot watch's 2 × 2 block, 32 bytes; the member's pencil: on a 64-bit
 	// machine its struct, 152 bytes, room for 48 entries of Kg, 16 bytes
 	// each, and its element, 688 bytes (pencilBytes, checked below), and
@@ -88,7 +88,7 @@ func TestMemoryEstimateArithmetic(t *testing.T) {
 	// runtime's own.
 	const matrix = 72.0
 	solution := 72 + elementBytes + matrix
-	rest := 12*matrix + 32 + pencilBytes + 2016 + 14<<20
+	rest := 9*matrix + 32 + pencilBytes + 2016 + 14<<20
 	if unsafe.Sizeof(uintptr(0)) == 8 && pencilBytes != 152+48*16+688 {
 		t.Errorf("a pencil's struct, Kg's room and element take %.0f bytes, want 152 + 768 + 688 = 1,608", pencilBytes)
 	}

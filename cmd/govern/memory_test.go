@@ -17,10 +17,11 @@ import (
 // frames docs/perf/model.sh writes, first- and second-order, measured by
 // docs/perf/memory.sh and listed in docs/errors.md, with their equations
 // and half-bandwidths: the medians of three runs each, 2026-12-03 from
-// 07:55 to 07:57 UTC on the project's 2-core development machine (load
-// averages 0.4 to 1.7), the run setting its soft memory limit to the
-// estimate for the analysis, with the collector's own target off
-// (setMemoryLimit).
+// 08:33 to 08:35 UTC on the project's 2-core development machine (load
+// averages 1.7 to 3.0), the run setting its soft memory limit to the
+// estimate for the analysis (setMemoryLimit), with GOGC=100 as
+// docs/perf/memory.sh sets it: the collector's own target kept, so that
+// the peak is what the run needs, not the limit it sets itself.
 func TestMemoryEstimateAgainstMeasuredPeaks(t *testing.T) {
 	const within = 0.25
 	for _, m := range []struct {
@@ -30,16 +31,16 @@ func TestMemoryEstimateAgainstMeasuredPeaks(t *testing.T) {
 		band          int
 		peakMiB       float64
 	}{
-		{10, 10, false, 330, 32, 19},
+		{10, 10, false, 330, 32, 20},
 		{20, 20, false, 1260, 62, 44},
-		{40, 40, false, 4920, 122, 203},
-		{30, 60, false, 5580, 98, 226},
-		{60, 60, false, 10980, 182, 649},
-		{20, 200, false, 12600, 68, 711},
-		{10, 20, true, 660, 38, 53},
-		{20, 30, true, 1890, 68, 162},
-		{30, 30, true, 2790, 92, 278},
-		{30, 60, true, 5580, 98, 705},
+		{40, 40, false, 4920, 122, 185},
+		{30, 60, false, 5580, 98, 214},
+		{60, 60, false, 10980, 182, 641},
+		{20, 200, false, 12600, 68, 678},
+		{10, 20, true, 660, 38, 52},
+		{20, 30, true, 1890, 68, 148},
+		{30, 30, true, 2790, 92, 252},
+		{30, 60, true, 5580, 98, 655},
 	} {
 		name := fmt.Sprintf("%dx%d", m.bays, m.storeys)
 		if m.second {
