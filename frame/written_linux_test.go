@@ -26,7 +26,11 @@ func TestWrittenFaultsOnce(t *testing.T) {
 		// Without the heap's transparent huge pages, where the system
 		// gives them unasked (enabled=always): a 2 MiB page faults once
 		// for 512 of the pages counted.
-		cmd.Env = append(os.Environ(), "GOVERN_WRITTEN_CHILD=1", "GODEBUG=disablethp=1")
+		debug := "disablethp=1"
+		if d := os.Getenv("GODEBUG"); d != "" {
+			debug = d + "," + debug // the last setting of a name wins
+		}
+		cmd.Env = append(os.Environ(), "GOVERN_WRITTEN_CHILD=1", "GODEBUG="+debug)
 		out, err := cmd.CombinedOutput()
 		t.Logf("in its own process:\n%s", out)
 		if err != nil {

@@ -42,7 +42,7 @@ func loadModel(path string) (*modelfile.Job, error) {
 	// (docs/errors.md); with the collector's default target the heap may
 	// grow to twice what is live, so it is held closer while reading a
 	// large file.
-	if holdsReading(st.Size(), src) {
+	if holdsReading(int64(len(src)), src) {
 		defer debug.SetGCPercent(debug.SetGCPercent(readGCPercent))
 	}
 	return modelfile.ReadAt(filepath.Dir(path), filepath.Base(path), src)
@@ -68,7 +68,7 @@ const (
 )
 
 // holdsReading reports whether the collector's target is held at
-// readGCPercent while src, a file of size bytes, is read; its entries are
+// readGCPercent while src, of size bytes, is read; its entries are
 // counted only below readHeldSize.
 func holdsReading(size int64, src []byte) bool {
 	return size >= readHeldSize || modelfile.Entries(src) >= readHeldEntries

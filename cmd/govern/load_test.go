@@ -27,9 +27,11 @@ func TestHoldsReading(t *testing.T) {
 		{"a 30 × 60 frame's file", 7117, []byte("[grid]\nbays = [7.5, 6]\n"), false},
 		{"just under 1 MiB, few entries", 1<<20 - 1, []byte("# comments\n"), false},
 		{"1 MiB", 1 << 20, nil, true},
-		{"the largest file read", 128 << 20, nil, true},  // modelfile.MaxFileSize
-		{"9,999 inline tables", 0, inline(9999), false},  // 39,997 entries
-		{"10,000 inline tables", 0, inline(10000), true}, // 40,001
+		{"the largest file read", 128 << 20, nil, true},                                                   // modelfile.MaxFileSize
+		{"9,999 inline tables", 0, inline(9999), false},                                                   // 39,997 entries
+		{"10,000 inline tables", 0, inline(10000), true},                                                  // 40,001
+		{"9,999 inline tables and three keys", 0, append(inline(9999), "a = 1\nb = 2\nc = 3\n"...), true}, // 40,000
+		{"9,999 inline tables and two keys", 0, append(inline(9999), "a = 1\nb = 2\n"...), false},         // 39,999
 	} {
 		c.size = max(c.size, int64(len(c.src)))
 		if got := holdsReading(c.size, c.src); got != c.want {

@@ -12,9 +12,10 @@ import (
 )
 
 // The estimate that refuses a model too large (frame.MaxMemory) is within
-// 25 % of the peak memory measured for it: the peaks of 'govern run
-// --quiet --json' (maximum resident set size from /usr/bin/time) on the
-// frames docs/perf/model.sh writes, first- and second-order, measured by
+// 20 % of the peak memory measured for it (the target is 25 %): the peaks
+// of 'govern run --quiet --json' (maximum resident set size from
+// /usr/bin/time) on the frames docs/perf/model.sh writes, first- and
+// second-order, and one with no case patterned (the band dominates), measured by
 // docs/perf/memory.sh and listed in docs/errors.md, with their equations
 // and half-bandwidths: the medians of three runs each, 2026-12-03 from
 // 08:33 to 08:35 UTC on the project's 2-core development machine (load
@@ -23,28 +24,33 @@ import (
 // docs/perf/memory.sh sets it: the collector's own target kept, so that
 // the peak is what the run needs, not the limit it sets itself.
 func TestMemoryEstimateAgainstMeasuredPeaks(t *testing.T) {
-	const within = 0.25
+	const within = 0.20 // the issue asks 25 %; twelve band matrices put the 100 × 100 unpatterned frame at 1.40
 	for _, m := range []struct {
 		bays, storeys int
 		second        bool
 		equations     int
 		band          int
 		peakMiB       float64
+		unpatterned   bool // no case patterned: four load columns, the band dominates
 	}{
-		{10, 10, false, 330, 32, 20},
-		{20, 20, false, 1260, 62, 44},
-		{40, 40, false, 4920, 122, 185},
-		{30, 60, false, 5580, 98, 214},
-		{60, 60, false, 10980, 182, 641},
-		{20, 200, false, 12600, 68, 678},
-		{10, 20, true, 660, 38, 52},
-		{20, 30, true, 1890, 68, 148},
-		{30, 30, true, 2790, 92, 252},
-		{30, 60, true, 5580, 98, 655},
+		{10, 10, false, 330, 32, 20, false},
+		{20, 20, false, 1260, 62, 44, false},
+		{40, 40, false, 4920, 122, 185, false},
+		{30, 60, false, 5580, 98, 214, false},
+		{60, 60, false, 10980, 182, 641, false},
+		{20, 200, false, 12600, 68, 678, false},
+		{10, 20, true, 660, 38, 52, false},
+		{20, 30, true, 1890, 68, 148, false},
+		{30, 30, true, 2790, 92, 252, false},
+		{30, 60, true, 5580, 98, 655, false},
+		{100, 100, false, 30300, 302, 821, true},
 	} {
 		name := fmt.Sprintf("%dx%d", m.bays, m.storeys)
 		if m.second {
 			name += "-second-order"
+		}
+		if m.unpatterned {
+			name += "-unpatterned"
 		}
 		t.Run(name, func(t *testing.T) {
 			s := modelfile.Starter{Title: "memory", Spacing: 6}
@@ -61,6 +67,10 @@ func TestMemoryEstimateAgainstMeasuredPeaks(t *testing.T) {
 			text := src.String()
 			if m.second {
 				text = strings.Replace(text, "[analysis]\n", "[analysis]\nsecond_order = true\n", 1)
+			}
+			if m.unpatterned {
+				text = strings.ReplaceAll(text, "\npattern = true ", "\npattern = false ") // as docs/perf/memory.sh's sed
+				text = strings.ReplaceAll(text, "\npattern = true\n", "\npattern = false\n")
 			}
 			job, err := modelfile.Read("memory.toml", []byte(text))
 			if err != nil {

@@ -27,8 +27,9 @@ const inlineEntries = 3
 // Entries returns how many entries src has, as MaxEntries counts them
 // (keys and table headers one each, an inline table three), outside
 // strings and comments: what reading it costs memory for, about 270 bytes
-// an entry at its peak. It reads src as far as its first nesting deeper
-// than MaxNesting, which the reader refuses.
+// an entry at its peak. It counts as far as the first nesting deeper than
+// MaxNesting, or a string left open, where the reader refuses the file or
+// leaves it to the parser to report.
 func Entries(src []byte) int {
 	_, _, _, n := guard(string(src))
 	return n
